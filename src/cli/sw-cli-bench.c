@@ -1,0 +1,134 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* stagewright-cli bench: medians of the hot paths, measured on one thread. */
+#include "config.h"
+
+#include "sw-cli.h"
+
+#include "sw-curves.h"
+#include "sw-sizing.h"
+
+#include <time.h>
+
+static gboolean opt_json;
+
+static GOptionEntry entries[] = {
+  { "json", 0, 0, G_OPTION_ARG_NONE, &opt_json, "Print JSON for machines", NULL },
+  { NULL }
+};
+
+static double
+now_ns (void)
+{
+  struct timespec ts;
+  clock_gettime (CLOCK_MONOTONIC, &ts);
+  return ts.tv_sec * 1e9 + ts.tv_nsec;
+}
+
+static int
+cmp_double (gconstpointer a, gconstpointer b)
+{
+  double x = *(const double *) a, y = *(const double *) b;
+  return (x > y) - (x < y);
+}
+
+static double
+median (double *v, guint n)
+{
+  qsort (v, n, sizeof *v, (int (*) (const void *, const void *)) cmp_double);
+  return n % 2 ? v[n / 2] : 0.5 * (v[n / 2 - 1] + v[n / 2]);
+}
+
+/* Keeps the optimiser from dropping the work. */
+static volatile double sink;
+
+char *
+sw_cli_find_demo (const char *basename)
+{
+  char *path = g_build_filename (SOURCE_DESIGNS_DIR, basename, NULL);
+  if (g_file_test (path, G_FILE_TEST_EXISTS))
+    return path;
+  g_free (path);
+  return g_build_filename (DESIGNS_DIR, basename, NULL);
+}
+
+int
+sw_cli_bench (int argc, char **argv)
+{
+  g_autoptr (SwDesign) d = NULL;
+  g_autofree char *path = NULL;
+  enum { BATCHES = 101, PER_BATCH = 2000, UPDATES = 201 };
+  double samples[BATCHES], updates[UPDATES];
+  double optimal_ns, live_us, dv;
+  SwStageSet set;
+  int code;
+
+  opt_json = FALSE;
+  if (!sw_cli_parse ("bench", entries, &argc, &argv, -1, &code))
+    return code;
+  if (argc > 2)
+    {
+      g_printerr ("stagewright-cli bench: expected at most one FILE\n");
+      return SW_EXIT_USAGE;
+    }
+  path = argc == 2 ? g_strdup (argv[1]) : sw_cli_find_demo ("medium-cargo.stagewright");
+  if ((d = sw_cli_load (path)) == NULL)
+    return SW_EXIT_USAGE;
+  if (!sw_design_required_delta_v (d, &dv, NULL))
+    return SW_EXIT_USAGE;
+
+  /* The worst case of the target: five stages, optimal split. */
+  sw_stage_set_extend (&set, d, 5);
+  for (guint b = 0; b < BATCHES; b++)
+    {
+      double t0 = now_ns ();
+      for (guint i = 0; i < PER_BATCH; i++)
+        {
+          SwSizing s;
+          sw_size (&set, d->payload_kg, dv * (1.0 + 1e-9 * i), SW_SPLIT_OPTIMAL, &s);
+          sink += s.liftoff_mass_kg;
+        }
+      samples[b] = (now_ns () - t0) / PER_BATCH;
+    }
+  optimal_ns = median (samples, BATCHES);
+
+  for (guint u = 0; u < UPDATES; u++)
+    {
+      SwSizing s;
+      SwStageCurve curve;
+      SwSweep *sweep = g_new (SwSweep, 1);
+      double t0 = now_ns ();
+
+      sw_design_size (d, &s, NULL);
+      sw_stage_curve_compute (d, dv, SW_MAX_STAGES, &curve);
+      sw_sweep_compute (d, SW_SWEEP_CURVES, SW_SWEEP_POINTS, sweep);
+      updates[u] = (now_ns () - t0) / 1000.0;
+      sink += s.liftoff_mass_kg + curve.points[0].liftoff_mass_kg + sweep->curves[0].liftoff_mass_kg[1];
+      g_free (sweep);
+    }
+  live_us = median (updates, UPDATES);
+
+  if (opt_json)
+    {
+      g_autoptr (JsonBuilder) b = json_builder_new_immutable ();
+      g_autoptr (JsonNode) node = NULL;
+
+      json_builder_begin_object (b);
+      json_builder_set_member_name (b, "design");
+      json_builder_add_string_value (b, d->name);
+      sw_cli_add_number (b, "optimal_size_ns", optimal_ns);
+      sw_cli_add_number (b, "live_update_us", live_us);
+      json_builder_end_object (b);
+      node = json_builder_get_root (b);
+      sw_cli_print_json (node);
+    }
+  else
+    {
+      g_print ("Design: %s\n", d->name);
+      g_print ("optimal sizing, 5 stages     %10.0f ns median  (target <= 2000 ns)\n",
+               optimal_ns);
+      g_print ("live update (size + 1..8 curve + 5 x 200 sweep) %8.1f us median  "
+               "(target <= 1000 us)\n",
+               live_us);
+    }
+  return SW_EXIT_OK;
+}

@@ -1,0 +1,154 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* stagewright-cli: the command-line front end over the core. */
+#define G_LOG_DOMAIN "stagewright-cli"
+
+#include "config.h"
+
+#include "sw-cli.h"
+
+#include <glib/gi18n.h>
+#include <locale.h>
+#include <math.h>
+#include <stdio.h>
+#include <string.h>
+
+const char *sw_cli_caution =
+  "Conceptual sizing only: not for flight hardware or safety decisions. Defer to licensed "
+  "engineering practice, range safety and local regulations.";
+
+static const SwCliCommand commands[] = {
+  { "size", "FILE", "Size a design: masses, delta-v split, feasibility", sw_cli_size },
+  { "curve", "FILE", "Liftoff mass against stage count (optimal split)", sw_cli_curve },
+  { "budget", "FILE", "Delta-v budget of an orbit mission", sw_cli_budget },
+  { "limits", "", "The accepted range of every input field", sw_cli_limits },
+  { "bench", "[FILE]", "Benchmark the sizing and a full live update", sw_cli_bench },
+};
+
+static const SwCliCommand *
+find_command (const char *name)
+{
+  for (guint i = 0; i < G_N_ELEMENTS (commands); i++)
+    if (strcmp (name, commands[i].name) == 0)
+      return &commands[i];
+  return NULL;
+}
+
+gboolean
+sw_cli_parse (const char *name, GOptionEntry *entries, int *argc, char ***argv,
+              int n_positional, int *exit_code)
+{
+  const SwCliCommand *cmd = find_command (name);
+  g_autofree char *param = g_strdup_printf ("%s %s", cmd->name, cmd->args);
+  g_autoptr (GOptionContext) ctx = g_option_context_new (param);
+  g_autoptr (GError) error = NULL;
+
+  g_option_context_set_summary (ctx, cmd->summary);
+  g_option_context_set_description (ctx, sw_cli_caution);
+  if (entries != NULL)
+    g_option_context_add_main_entries (ctx, entries, NULL);
+  if (!g_option_context_parse (ctx, argc, argv, &error))
+    {
+      g_printerr ("stagewright-cli %s: %s\n", cmd->name, error->message);
+      *exit_code = SW_EXIT_USAGE;
+      return FALSE;
+    }
+  /* (*argv)[0] is the subcommand; then the positional arguments. */
+  if (n_positional >= 0 && *argc - 1 != n_positional)
+    {
+      g_printerr ("stagewright-cli %s: expected %s (see --help)\n", cmd->name,
+                  cmd->args[0] ? cmd->args : "no arguments");
+      *exit_code = SW_EXIT_USAGE;
+      return FALSE;
+    }
+  return TRUE;
+}
+
+SwDesign *
+sw_cli_load (const char *filename)
+{
+  g_autoptr (GPtrArray) warnings = g_ptr_array_new_with_free_func (g_free);
+  g_autoptr (GError) error = NULL;
+  SwDesign *design = sw_design_load (filename, warnings, &error);
+
+  for (guint i = 0; i < warnings->len; i++)
+    g_printerr ("warning: %s\n", (const char *) warnings->pdata[i]);
+  if (design == NULL)
+    g_printerr ("error: %s\n", error->message);
+  return design;
+}
+
+void
+sw_cli_print_json (JsonNode *node)
+{
+  g_autoptr (JsonGenerator) gen = json_generator_new ();
+  g_autofree char *text = NULL;
+
+  json_generator_set_pretty (gen, TRUE);
+  json_generator_set_root (gen, node);
+  text = json_generator_to_data (gen, NULL);
+  g_print ("%s\n", text);
+}
+
+void
+sw_cli_add_number (JsonBuilder *b, const char *key, double value)
+{
+  json_builder_set_member_name (b, key);
+  if (isfinite (value))
+    json_builder_add_double_value (b, value);
+  else
+    json_builder_add_null_value (b);
+}
+
+char *
+sw_cli_format (double value, int decimals)
+{
+  if (!isfinite (value))
+    return g_strdup ("-");
+  return g_strdup_printf ("%.*f", decimals, value);
+}
+
+static void
+usage (FILE *out)
+{
+  fprintf (out, "Usage: stagewright-cli COMMAND [OPTIONS] ARGS\n\n"
+                "Sizes multistage launch vehicles at the concept stage.\n\nCommands:\n");
+  for (guint i = 0; i < G_N_ELEMENTS (commands); i++)
+    fprintf (out, "  %-12s %-8s %s\n", commands[i].name, commands[i].args, commands[i].summary);
+  fprintf (out, "\nRun 'stagewright-cli COMMAND --help' for a command's options.\n"
+                "Exit codes: 0 success (an infeasible design is a result), 2 bad input or "
+                "usage, 1 anything else.\n\n%s\n",
+           sw_cli_caution);
+}
+
+int
+main (int argc, char **argv)
+{
+  setlocale (LC_ALL, "");
+  bindtextdomain (GETTEXT_PACKAGE, LOCALEDIR);
+  bind_textdomain_codeset (GETTEXT_PACKAGE, "UTF-8");
+  /* Numbers in tables and JSON use the C conventions whatever the locale. */
+  setlocale (LC_NUMERIC, "C");
+
+  if (argc < 2)
+    {
+      usage (stderr);
+      return SW_EXIT_USAGE;
+    }
+  if (strcmp (argv[1], "--help") == 0 || strcmp (argv[1], "-h") == 0
+      || strcmp (argv[1], "help") == 0)
+    {
+      usage (stdout);
+      return SW_EXIT_OK;
+    }
+  if (strcmp (argv[1], "--version") == 0)
+    {
+      g_print ("stagewright-cli %s\n", PACKAGE_VERSION);
+      return SW_EXIT_OK;
+    }
+  if (find_command (argv[1]) != NULL)
+    return find_command (argv[1])->run (argc - 1, argv + 1);
+
+  g_printerr ("stagewright-cli: unknown command '%s'\n\n", argv[1]);
+  usage (stderr);
+  return SW_EXIT_USAGE;
+}

@@ -1,0 +1,47 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* sw-cli.h: helpers shared by the subcommands of stagewright-cli. */
+#pragma once
+
+#include <json-glib/json-glib.h>
+
+#include "sw-design.h"
+
+G_BEGIN_DECLS
+
+enum {
+  SW_EXIT_OK = 0,
+  SW_EXIT_FAILURE = 1,
+  SW_EXIT_USAGE = 2,
+};
+
+typedef struct {
+  const char *name;
+  const char *args;     /* e.g. "FILE" */
+  const char *summary;
+  int (*run) (int argc, char **argv);
+} SwCliCommand;
+
+/* Parses the options of a subcommand (with --help); returns FALSE and sets
+ * *exit_code when the program should stop. */
+gboolean  sw_cli_parse (const char *name, GOptionEntry *entries, int *argc, char ***argv,
+                        int n_positional, int *exit_code);
+/* Loads a design, printing warnings and the error on stderr. */
+SwDesign *sw_cli_load (const char *filename);
+/* Prints a JSON node on stdout, pretty. */
+void      sw_cli_print_json (JsonNode *node);
+/* Adds a number member, or null when it is not finite. */
+void      sw_cli_add_number (JsonBuilder *b, const char *key, double value);
+/* Formats a number for tables; "-" when not finite. */
+char     *sw_cli_format (double value, int decimals);
+/* The cautions printed under every report. */
+extern const char *sw_cli_caution;
+/* A bundled demo design: the source tree first, then the installed copy. */
+char     *sw_cli_find_demo (const char *basename);
+
+int sw_cli_size (int argc, char **argv);
+int sw_cli_curve (int argc, char **argv);
+int sw_cli_budget (int argc, char **argv);
+int sw_cli_bench (int argc, char **argv);
+int sw_cli_limits (int argc, char **argv);
+
+G_END_DECLS

@@ -1,0 +1,87 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+#define G_LOG_DOMAIN "sw-curves"
+
+#include "config.h"
+
+#include "sw-curves.h"
+
+#include <math.h>
+
+void
+sw_stage_curve_compute (const SwDesign *design, double delta_v_m_s, guint max_stages,
+                        SwStageCurve *out)
+{
+  g_return_if_fail (design != NULL && out != NULL && design->n_stages > 0);
+
+  max_stages = CLAMP (max_stages, 1, SW_MAX_STAGES);
+  out->delta_v_m_s = delta_v_m_s;
+  out->payload_kg = design->payload_kg;
+  out->n_points = max_stages;
+  for (guint n = 1; n <= max_stages; n++)
+    {
+      SwStageSet set;
+      SwSizing sizing;
+      SwStageCountPoint *p = &out->points[n - 1];
+
+      sw_stage_set_extend (&set, design, n);
+      sw_size (&set, design->payload_kg, delta_v_m_s, SW_SPLIT_OPTIMAL, &sizing);
+      p->stages = n;
+      p->feasible = sizing.feasible;
+      p->liftoff_mass_kg = sizing.feasible ? sizing.liftoff_mass_kg : NAN;
+      p->delta_v_limit_m_s = sizing.delta_v_limit_m_s;
+    }
+}
+
+/* The optimal vehicle traced along its Lagrange multiplier: with x = 1/eta
+ * every stage's mass ratio is n_i = (1 - x/c_i)/eps_i (at least 1), so each x
+ * gives an exact optimum (delta-v, liftoff mass) pair without a root search.
+ * x runs from max c_i(1 - eps_i) (zero delta-v) down towards 0 (the limit);
+ * quadratic spacing puts more points near the asymptote. */
+void
+sw_sweep_compute (const SwDesign *design, guint max_curves, guint n_points, SwSweep *out)
+{
+  g_return_if_fail (design != NULL && out != NULL && design->n_stages > 0);
+
+  max_curves = CLAMP (max_curves, 1, SW_SWEEP_CURVES);
+  n_points = CLAMP (n_points, 2, SW_SWEEP_POINTS);
+  out->payload_kg = design->payload_kg;
+  out->n_curves = max_curves;
+
+  for (guint n = 1; n <= max_curves; n++)
+    {
+      SwSweepCurve *curve = &out->curves[n - 1];
+      SwStageSet set;
+      double x_max = 0.0;
+
+      sw_stage_set_extend (&set, design, n);
+      curve->stages = n;
+      curve->n_points = n_points;
+      curve->delta_v_limit_m_s = 0.0;
+      for (guint i = 0; i < n; i++)
+        {
+          double c = set.exhaust_velocity_m_s[i], eps = set.structural_coefficient[i];
+          curve->delta_v_limit_m_s += c * log (1.0 / eps);
+          x_max = MAX (x_max, c * (1.0 - eps));
+        }
+
+      for (guint j = 0; j < n_points; j++)
+        {
+          /* t from 0 to 0.99: x from x_max to 1e-4 x_max. */
+          double t = 0.99 * j / (n_points - 1);
+          double x = x_max * (1.0 - t) * (1.0 - t);
+          double dv = 0.0, m = design->payload_kg;
+
+          for (int i = (int) n - 1; i >= 0; i--)
+            {
+              double c = set.exhaust_velocity_m_s[i], eps = set.structural_coefficient[i];
+              double nr = (1.0 - x / c) / eps;
+              if (nr <= 1.0)
+                continue;
+              dv += c * log (nr);
+              m *= nr * (1.0 - eps) / (1.0 - nr * eps);
+            }
+          curve->delta_v_m_s[j] = dv;
+          curve->liftoff_mass_kg[j] = m;
+        }
+    }
+}

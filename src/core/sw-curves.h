@@ -1,0 +1,48 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* sw-curves.h: the trade curves: liftoff mass against stage count and against
+ * the required delta-v. */
+#pragma once
+
+#include "sw-design.h"
+#include "sw-sizing.h"
+#include "sw-types.h"
+
+G_BEGIN_DECLS
+
+typedef struct {
+  guint    stages;
+  gboolean feasible;
+  double   liftoff_mass_kg;      /* NAN when infeasible */
+  double   delta_v_limit_m_s;
+} SwStageCountPoint;
+
+struct _SwStageCurve {
+  double delta_v_m_s;
+  double payload_kg;
+  guint  n_points;
+  SwStageCountPoint points[SW_MAX_STAGES];
+};
+
+typedef struct {
+  guint  stages;
+  double delta_v_limit_m_s;
+  guint  n_points;
+  double delta_v_m_s[SW_SWEEP_POINTS];
+  double liftoff_mass_kg[SW_SWEEP_POINTS];
+} SwSweepCurve;
+
+struct _SwSweep {
+  double payload_kg;
+  guint  n_curves;
+  SwSweepCurve curves[SW_SWEEP_CURVES];
+};
+
+/* Optimal split for N = 1..@max_stages (at most SW_MAX_STAGES). */
+void     sw_stage_curve_compute (const SwDesign *design, double delta_v_m_s,
+                                 guint max_stages, SwStageCurve *out);
+/* Optimal liftoff mass against delta-v for N = 1..@max_curves, from zero to
+ * just short of each curve's limit. */
+void     sw_sweep_compute (const SwDesign *design, guint max_curves, guint n_points,
+                           SwSweep *out);
+
+G_END_DECLS

@@ -1,0 +1,1097 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+#define G_LOG_DOMAIN "sw-design"
+
+#include "config.h"
+
+#include "sw-design.h"
+
+#include "sw-budget.h"
+#include "sw-limits.h"
+
+#include <glib/gi18n-lib.h>
+#include <glib/gstdio.h>
+#include <math.h>
+#include <string.h>
+
+static const char *const root_keys[] = {
+  "format", "version", "name", "notes", "payload_kg", "mission", "split", "stages",
+  "baseline", NULL
+};
+static const char *const mission_keys[] = {
+  "delta_v_m_s", "orbit", "losses_m_s", "loss_model", NULL
+};
+static const char *const orbit_keys[] = {
+  "altitude_km", "inclination_deg", "site_latitude_deg", NULL
+};
+static const char *const stage_keys[] = {
+  "name", "isp_vac_s", "isp_sl_s", "structural_coefficient", "delta_v_share", NULL
+};
+
+SwDesign *
+sw_design_new (void)
+{
+  SwDesign *d = g_new0 (SwDesign, 1);
+  d->split = SW_SPLIT_OPTIMAL;
+  d->mission.kind = SW_MISSION_DELTA_V;
+  return d;
+}
+
+void
+sw_stage_init_default (SwStage *stage, guint index)
+{
+  memset (stage, 0, sizeof *stage);
+  g_snprintf (stage->name, sizeof stage->name, _("Stage %u"), index + 1);
+  /* Plausible liquid stages (common practice): a first stage with a sea-level
+   * Isp, upper stages with lighter structure-to-propellant. */
+  stage->isp_vac_s = index == 0 ? 320.0 : 340.0;
+  stage->has_isp_sl = index == 0;
+  stage->isp_sl_s = index == 0 ? 285.0 : 0.0;
+  stage->structural_coefficient = index == 0 ? 0.07 : 0.09;
+  stage->delta_v_share = 0.0;
+}
+
+SwDesign *
+sw_design_new_default (void)
+{
+  SwDesign *d = sw_design_new ();
+
+  g_strlcpy (d->name, _("Untitled design"), sizeof d->name);
+  d->payload_kg = 1000.0;
+  d->mission.delta_v_m_s = 9400.0;
+  d->n_stages = 2;
+  for (guint i = 0; i < d->n_stages; i++)
+    {
+      sw_stage_init_default (&d->stages[i], i);
+      d->stages[i].delta_v_share = 0.5;
+      d->stages[i].has_share = TRUE;
+    }
+  return d;
+}
+
+SwDesign *
+sw_design_copy (const SwDesign *design)
+{
+  SwDesign *copy;
+
+  g_return_val_if_fail (design != NULL, NULL);
+
+  copy = g_new (SwDesign, 1);
+  *copy = *design;
+  copy->notes = g_strdup (design->notes);
+  copy->baseline = design->baseline != NULL ? sw_design_copy (design->baseline) : NULL;
+  return copy;
+}
+
+void
+sw_design_free (SwDesign *design)
+{
+  if (design == NULL)
+    return;
+  g_free (design->notes);
+  sw_design_free (design->baseline);
+  g_free (design);
+}
+
+void
+sw_design_set_notes (SwDesign *design, const char *notes)
+{
+  g_return_if_fail (design != NULL);
+  if (g_strcmp0 (design->notes, notes) == 0)
+    return;
+  g_free (design->notes);
+  design->notes = g_strdup (notes);
+}
+
+gboolean
+sw_design_equal (const SwDesign *a, const SwDesign *b)
+{
+  SwDesign ca, cb;
+
+  if (a == NULL || b == NULL)
+    return a == b;
+  if (g_strcmp0 (a->notes, b->notes) != 0 || !sw_design_equal (a->baseline, b->baseline))
+    return FALSE;
+  /* Compare the plain part field by field through a normalised copy: unused
+   * bytes of the name buffers must not decide equality. */
+  ca = *a;
+  cb = *b;
+  ca.notes = cb.notes = NULL;
+  ca.baseline = cb.baseline = NULL;
+  if (strcmp (ca.name, cb.name) != 0 || ca.n_stages != cb.n_stages)
+    return FALSE;
+  memset (ca.name, 0, sizeof ca.name);
+  memset (cb.name, 0, sizeof cb.name);
+  for (guint i = 0; i < SW_MAX_STAGES; i++)
+    {
+      if (i < ca.n_stages && strcmp (ca.stages[i].name, cb.stages[i].name) != 0)
+        return FALSE;
+      if (i >= ca.n_stages)
+        {
+          memset (&ca.stages[i], 0, sizeof ca.stages[i]);
+          memset (&cb.stages[i], 0, sizeof cb.stages[i]);
+        }
+      memset (ca.stages[i].name, 0, sizeof ca.stages[i].name);
+      memset (cb.stages[i].name, 0, sizeof cb.stages[i].name);
+    }
+  return memcmp (&ca, &cb, sizeof ca) == 0;
+}
+
+/* ---- loading ----------------------------------------------------------- */
+
+typedef struct {
+  const char *file;
+  GPtrArray  *warnings;
+} LoadContext;
+
+static const char *
+display_file (const char *file)
+{
+  return file != NULL ? file : _("(design)");
+}
+
+static void G_GNUC_PRINTF (4, 5)
+set_field_error (GError **error, SwError code, const LoadContext *ctx, const char *fmt, ...)
+{
+  va_list args;
+  g_autofree char *msg = NULL;
+
+  va_start (args, fmt);
+  msg = g_strdup_vprintf (fmt, args);
+  va_end (args);
+  g_set_error (error, SW_ERROR, code, "%s: %s", display_file (ctx->file), msg);
+}
+
+static char *
+join_path (const char *prefix, const char *key)
+{
+  return prefix[0] != '\0' ? g_strdup_printf ("%s.%s", prefix, key) : g_strdup (key);
+}
+
+static gboolean
+key_in (const char *key, const char *const *keys)
+{
+  for (guint i = 0; keys[i] != NULL; i++)
+    if (strcmp (key, keys[i]) == 0)
+      return TRUE;
+  return FALSE;
+}
+
+static void
+warn_unknown_keys (JsonObject *obj, const LoadContext *ctx, const char *prefix,
+                   const char *const *known, const char *const *known2,
+                   const char *const *known3)
+{
+  g_autoptr (GList) members = NULL;
+
+  if (ctx->warnings == NULL)
+    return;
+  members = json_object_get_members (obj);
+  for (GList *l = members; l != NULL; l = l->next)
+    {
+      const char *key = l->data;
+      g_autofree char *path = NULL;
+
+      if (key_in (key, known) || (known2 != NULL && key_in (key, known2))
+          || (known3 != NULL && key_in (key, known3)))
+        continue;
+      path = join_path (prefix, key);
+      g_ptr_array_add (ctx->warnings,
+                       g_strdup_printf (_("%s: %s: unknown key, ignored (it will not be saved)"),
+                                        display_file (ctx->file), path));
+    }
+}
+
+static const char *
+node_type_name (JsonNode *node)
+{
+  switch (json_node_get_node_type (node))
+    {
+    case JSON_NODE_OBJECT:
+      return _("an object");
+    case JSON_NODE_ARRAY:
+      return _("an array");
+    case JSON_NODE_NULL:
+      return _("null");
+    case JSON_NODE_VALUE:
+    default:
+      switch (json_node_get_value_type (node))
+        {
+        case G_TYPE_BOOLEAN:
+          return _("a boolean");
+        case G_TYPE_STRING:
+          return _("a string");
+        default:
+          return _("a number");
+        }
+    }
+}
+
+static gboolean
+node_is_number (JsonNode *node)
+{
+  GType t;
+
+  if (json_node_get_node_type (node) != JSON_NODE_VALUE)
+    return FALSE;
+  t = json_node_get_value_type (node);
+  return t == G_TYPE_DOUBLE || t == G_TYPE_INT64;
+}
+
+static gboolean
+node_is_string (JsonNode *node)
+{
+  return json_node_get_node_type (node) == JSON_NODE_VALUE
+         && json_node_get_value_type (node) == G_TYPE_STRING;
+}
+
+/* Reads an optional or required number; *present tells which. */
+static gboolean
+read_number (JsonObject *obj, const char *key, const LoadContext *ctx, const char *prefix,
+             gboolean required, double *value, gboolean *present, GError **error)
+{
+  g_autofree char *path = join_path (prefix, key);
+  JsonNode *node = json_object_get_member (obj, key);
+
+  if (present != NULL)
+    *present = FALSE;
+  if (node == NULL)
+    {
+      if (required)
+        set_field_error (error, SW_ERROR_MISSING, ctx, _("%s: required number is missing"), path);
+      return !required;
+    }
+  if (!node_is_number (node))
+    {
+      set_field_error (error, SW_ERROR_TYPE, ctx, _("%s: expected a number, found %s"), path,
+                       node_type_name (node));
+      return FALSE;
+    }
+  *value = json_node_get_double (node);
+  if (!isfinite (*value))
+    {
+      set_field_error (error, SW_ERROR_NOT_FINITE, ctx,
+                       _("%s: the number is not finite (too large to represent)"), path);
+      return FALSE;
+    }
+  if (present != NULL)
+    *present = TRUE;
+  return TRUE;
+}
+
+static gboolean
+read_string (JsonObject *obj, const char *key, const LoadContext *ctx, const char *prefix,
+             gboolean required, const char **value, GError **error)
+{
+  g_autofree char *path = join_path (prefix, key);
+  JsonNode *node = json_object_get_member (obj, key);
+
+  *value = NULL;
+  if (node == NULL)
+    {
+      if (required)
+        set_field_error (error, SW_ERROR_MISSING, ctx, _("%s: required text is missing"), path);
+      return !required;
+    }
+  if (!node_is_string (node))
+    {
+      set_field_error (error, SW_ERROR_TYPE, ctx, _("%s: expected text, found %s"), path,
+                       node_type_name (node));
+      return FALSE;
+    }
+  *value = json_node_get_string (node);
+  return TRUE;
+}
+
+static JsonObject *
+read_object (JsonObject *obj, const char *key, const LoadContext *ctx, const char *prefix,
+             gboolean required, gboolean *ok, GError **error)
+{
+  g_autofree char *path = join_path (prefix, key);
+  JsonNode *node = json_object_get_member (obj, key);
+
+  *ok = TRUE;
+  if (node == NULL)
+    {
+      if (required)
+        {
+          set_field_error (error, SW_ERROR_MISSING, ctx, _("%s: required object is missing"), path);
+          *ok = FALSE;
+        }
+      return NULL;
+    }
+  if (json_node_get_node_type (node) != JSON_NODE_OBJECT)
+    {
+      set_field_error (error, SW_ERROR_TYPE, ctx, _("%s: expected an object, found %s"), path,
+                       node_type_name (node));
+      *ok = FALSE;
+      return NULL;
+    }
+  return json_node_get_object (node);
+}
+
+static gboolean
+copy_text (char *dest, gsize size, const char *text, const LoadContext *ctx, const char *path,
+           GError **error)
+{
+  if (strlen (text) >= size)
+    {
+      set_field_error (error, SW_ERROR_RANGE, ctx,
+                       _("%s: the text is %zu bytes long; at most %zu are accepted"), path,
+                       strlen (text), size - 1);
+      return FALSE;
+    }
+  g_strlcpy (dest, text, size);
+  return TRUE;
+}
+
+static gboolean
+load_stage (JsonObject *obj, const LoadContext *ctx, const char *prefix, SwStage *stage,
+            GError **error)
+{
+  const char *name = NULL;
+  g_autofree char *name_path = join_path (prefix, "name");
+
+  warn_unknown_keys (obj, ctx, prefix, stage_keys, sw_propulsion_stage_keys,
+                     sw_reliability_stage_keys);
+
+  if (!read_string (obj, "name", ctx, prefix, FALSE, &name, error))
+    return FALSE;
+  if (name != NULL && !copy_text (stage->name, sizeof stage->name, name, ctx, name_path, error))
+    return FALSE;
+  return read_number (obj, "isp_vac_s", ctx, prefix, TRUE, &stage->isp_vac_s, NULL, error)
+         && read_number (obj, "isp_sl_s", ctx, prefix, FALSE, &stage->isp_sl_s,
+                         &stage->has_isp_sl, error)
+         && read_number (obj, "structural_coefficient", ctx, prefix, TRUE,
+                         &stage->structural_coefficient, NULL, error)
+         && read_number (obj, "delta_v_share", ctx, prefix, FALSE, &stage->delta_v_share,
+                         &stage->has_share, error)
+         && sw_propulsion_load_stage (obj, ctx->file, prefix, &stage->propulsion,
+                                      ctx->warnings, error)
+         && sw_reliability_load_stage (obj, ctx->file, prefix, &stage->reliability,
+                                       ctx->warnings, error);
+}
+
+static gboolean
+load_mission (JsonObject *obj, const LoadContext *ctx, const char *prefix, SwMission *m,
+              GError **error)
+{
+  JsonObject *orbit;
+  gboolean ok, has_dv;
+  const char *loss_model = NULL;
+  g_autofree char *orbit_path = join_path (prefix, "orbit");
+
+  warn_unknown_keys (obj, ctx, prefix, mission_keys, NULL, NULL);
+
+  orbit = read_object (obj, "orbit", ctx, prefix, FALSE, &ok, error);
+  if (!ok)
+    return FALSE;
+  if (!read_number (obj, "delta_v_m_s", ctx, prefix, FALSE, &m->delta_v_m_s, &has_dv, error))
+    return FALSE;
+  if (has_dv && orbit != NULL)
+    {
+      set_field_error (error, SW_ERROR_VALUE, ctx,
+                       _("%s: give either delta_v_m_s or orbit, not both"), prefix);
+      return FALSE;
+    }
+  if (!has_dv && orbit == NULL)
+    {
+      set_field_error (error, SW_ERROR_MISSING, ctx,
+                       _("%s: needs either delta_v_m_s (a number) or orbit (an object)"), prefix);
+      return FALSE;
+    }
+  if (has_dv)
+    {
+      m->kind = SW_MISSION_DELTA_V;
+      return TRUE;
+    }
+
+  m->kind = SW_MISSION_ORBIT;
+  warn_unknown_keys (orbit, ctx, orbit_path, orbit_keys, NULL, NULL);
+  if (!read_number (orbit, "altitude_km", ctx, orbit_path, TRUE, &m->altitude_km, NULL, error)
+      || !read_number (orbit, "inclination_deg", ctx, orbit_path, TRUE, &m->inclination_deg,
+                       NULL, error)
+      || !read_number (orbit, "site_latitude_deg", ctx, orbit_path, TRUE,
+                       &m->site_latitude_deg, NULL, error)
+      || !read_number (obj, "losses_m_s", ctx, prefix, FALSE, &m->losses_m_s, &m->has_losses,
+                       error)
+      || !read_string (obj, "loss_model", ctx, prefix, FALSE, &loss_model, error))
+    return FALSE;
+
+  m->loss_model = SW_LOSS_ALLOWANCE;
+  if (loss_model != NULL)
+    {
+      if (strcmp (loss_model, "simulate") == 0)
+        m->loss_model = SW_LOSS_SIMULATE;
+      else if (strcmp (loss_model, "allowance") != 0)
+        {
+          g_autofree char *path = join_path (prefix, "loss_model");
+          set_field_error (error, SW_ERROR_VALUE, ctx,
+                           _("%s: \"%s\" is not a loss model; use \"allowance\" or \"simulate\""),
+                           path, loss_model);
+          return FALSE;
+        }
+    }
+  if (!m->has_losses && m->loss_model == SW_LOSS_ALLOWANCE && ctx->warnings != NULL)
+    {
+      g_autofree char *path = join_path (prefix, "losses_m_s");
+      g_ptr_array_add (ctx->warnings,
+                       g_strdup_printf (_("%s: %s is missing: no gravity, drag or steering "
+                                          "losses are assumed"),
+                                        display_file (ctx->file), path));
+    }
+  return TRUE;
+}
+
+static SwDesign *
+load_design_object (JsonObject *root, const LoadContext *ctx, const char *prefix,
+                    gboolean is_baseline, GError **error)
+{
+  g_autoptr (SwDesign) d = sw_design_new ();
+  const char *format = NULL, *name = NULL, *notes = NULL, *split = NULL;
+  JsonObject *mission, *baseline;
+  JsonNode *version_node, *stages_node;
+  JsonArray *stages;
+  gboolean ok;
+  guint n;
+
+  warn_unknown_keys (root, ctx, prefix, root_keys, sw_propulsion_design_keys, NULL);
+
+  /* format and version are required at the top; a pinned baseline inherits them. */
+  if (!read_string (root, "format", ctx, prefix, !is_baseline, &format, error))
+    return NULL;
+  if (format != NULL && strcmp (format, SW_DESIGN_FORMAT) != 0)
+    {
+      g_autofree char *path = join_path (prefix, "format");
+      set_field_error (error, SW_ERROR_FORMAT, ctx,
+                       _("%s: \"%s\" is not a Stagewright design (expected \"%s\")"), path,
+                       format, SW_DESIGN_FORMAT);
+      return NULL;
+    }
+  version_node = json_object_get_member (root, "version");
+  if (version_node == NULL && !is_baseline)
+    {
+      set_field_error (error, SW_ERROR_MISSING, ctx, _("version: required number is missing"));
+      return NULL;
+    }
+  if (version_node != NULL)
+    {
+      g_autofree char *path = join_path (prefix, "version");
+      double v;
+
+      if (!node_is_number (version_node))
+        {
+          set_field_error (error, SW_ERROR_TYPE, ctx, _("%s: expected a whole number, found %s"),
+                           path, node_type_name (version_node));
+          return NULL;
+        }
+      v = json_node_get_double (version_node);
+      if (!isfinite (v) || v != floor (v) || v < 1)
+        {
+          set_field_error (error, SW_ERROR_VALUE, ctx,
+                           _("%s: %g is not a format version (whole numbers from 1)"), path, v);
+          return NULL;
+        }
+      if (v > SW_DESIGN_VERSION)
+        {
+          set_field_error (error, SW_ERROR_VERSION, ctx,
+                           _("%s: the file is format version %.0f, written by a newer "
+                             "Stagewright; this one reads versions up to %d"),
+                           path, v, SW_DESIGN_VERSION);
+          return NULL;
+        }
+    }
+
+  if (!read_string (root, "name", ctx, prefix, FALSE, &name, error)
+      || !read_string (root, "notes", ctx, prefix, FALSE, &notes, error))
+    return NULL;
+  if (name != NULL)
+    {
+      g_autofree char *path = join_path (prefix, "name");
+      if (!copy_text (d->name, sizeof d->name, name, ctx, path, error))
+        return NULL;
+    }
+  if (notes != NULL)
+    sw_design_set_notes (d, notes);
+
+  if (!read_number (root, "payload_kg", ctx, prefix, TRUE, &d->payload_kg, NULL, error))
+    return NULL;
+
+  mission = read_object (root, "mission", ctx, prefix, TRUE, &ok, error);
+  if (!ok)
+    return NULL;
+  {
+    g_autofree char *path = join_path (prefix, "mission");
+    if (!load_mission (mission, ctx, path, &d->mission, error))
+      return NULL;
+  }
+
+  if (!read_string (root, "split", ctx, prefix, TRUE, &split, error))
+    return NULL;
+  if (!sw_split_mode_from_string (split, &d->split))
+    {
+      g_autofree char *path = join_path (prefix, "split");
+      set_field_error (error, SW_ERROR_VALUE, ctx,
+                       _("%s: \"%s\" is not a split mode; use \"equal\", \"optimal\" or "
+                         "\"manual\""),
+                       path, split);
+      return NULL;
+    }
+
+  stages_node = json_object_get_member (root, "stages");
+  {
+    g_autofree char *path = join_path (prefix, "stages");
+    if (stages_node == NULL)
+      {
+        set_field_error (error, SW_ERROR_MISSING, ctx, _("%s: required list of stages is missing"),
+                         path);
+        return NULL;
+      }
+    if (json_node_get_node_type (stages_node) != JSON_NODE_ARRAY)
+      {
+        set_field_error (error, SW_ERROR_TYPE, ctx, _("%s: expected a list of stages, found %s"),
+                         path, node_type_name (stages_node));
+        return NULL;
+      }
+    stages = json_node_get_array (stages_node);
+    n = json_array_get_length (stages);
+    if (n < 1 || n > SW_MAX_STAGES)
+      {
+        set_field_error (error, SW_ERROR_RANGE, ctx,
+                         _("%s: %u stages given; a design has 1 to %d stages"), path, n,
+                         SW_MAX_STAGES);
+        return NULL;
+      }
+  }
+  d->n_stages = n;
+  for (guint i = 0; i < n; i++)
+    {
+      JsonNode *node = json_array_get_element (stages, i);
+      g_autofree char *path = g_strdup_printf ("%s%sstages[%u]", prefix,
+                                               prefix[0] ? "." : "", i);
+
+      if (json_node_get_node_type (node) != JSON_NODE_OBJECT)
+        {
+          set_field_error (error, SW_ERROR_TYPE, ctx, _("%s: expected a stage object, found %s"),
+                           path, node_type_name (node));
+          return NULL;
+        }
+      g_snprintf (d->stages[i].name, sizeof d->stages[i].name, _("Stage %u"), i + 1);
+      if (!load_stage (json_node_get_object (node), ctx, path, &d->stages[i], error))
+        return NULL;
+    }
+
+  if (!sw_propulsion_load_design (root, ctx->file, &d->ascent, ctx->warnings, error))
+    return NULL;
+
+  baseline = read_object (root, "baseline", ctx, prefix, FALSE, &ok, error);
+  if (!ok)
+    return NULL;
+  if (baseline != NULL)
+    {
+      g_autofree char *path = join_path (prefix, "baseline");
+      if (is_baseline)
+        {
+          set_field_error (error, SW_ERROR_NESTING, ctx,
+                           _("%s: a baseline cannot have a baseline of its own"), path);
+          return NULL;
+        }
+      d->baseline = load_design_object (baseline, ctx, path, TRUE, error);
+      if (d->baseline == NULL)
+        return NULL;
+    }
+
+  return g_steal_pointer (&d);
+}
+
+/* json-glib's parser recurses; refuse absurd nesting before it sees the text. */
+static gboolean
+check_nesting (const char *data, gsize length, const LoadContext *ctx, GError **error)
+{
+  int depth = 0;
+  gboolean in_string = FALSE;
+
+  for (gsize i = 0; i < length; i++)
+    {
+      char ch = data[i];
+      if (in_string)
+        {
+          if (ch == '\\')
+            i++;
+          else if (ch == '"')
+            in_string = FALSE;
+          continue;
+        }
+      if (ch == '"')
+        in_string = TRUE;
+      else if (ch == '{' || ch == '[')
+        {
+          if (++depth > SW_DESIGN_MAX_DEPTH)
+            {
+              set_field_error (error, SW_ERROR_NESTING, ctx,
+                               _("objects and lists are nested more than %d deep; a design "
+                                 "never needs that"),
+                               SW_DESIGN_MAX_DEPTH);
+              return FALSE;
+            }
+        }
+      else if (ch == '}' || ch == ']')
+        depth--;
+    }
+  return TRUE;
+}
+
+SwDesign *
+sw_design_from_json (JsonNode *root, const char *filename, GPtrArray *warnings, GError **error)
+{
+  LoadContext ctx = { filename, warnings };
+  SwDesign *d;
+
+  g_return_val_if_fail (root != NULL, NULL);
+
+  if (json_node_get_node_type (root) != JSON_NODE_OBJECT)
+    {
+      set_field_error (error, SW_ERROR_TYPE, &ctx,
+                       _("the file holds %s; a design is a JSON object"), node_type_name (root));
+      return NULL;
+    }
+  d = load_design_object (json_node_get_object (root), &ctx, "", FALSE, error);
+  if (d == NULL)
+    return NULL;
+  if (!sw_design_validate (d, filename, error))
+    {
+      sw_design_free (d);
+      return NULL;
+    }
+  return d;
+}
+
+SwDesign *
+sw_design_load_data (const char *data, gssize length, const char *filename,
+                     GPtrArray *warnings, GError **error)
+{
+  LoadContext ctx = { filename, warnings };
+  g_autoptr (JsonParser) parser = NULL;
+  g_autoptr (GError) local_error = NULL;
+  gsize len;
+
+  g_return_val_if_fail (data != NULL || length == 0, NULL);
+
+  len = length < 0 ? strlen (data) : (gsize) length;
+  if (len > SW_DESIGN_MAX_BYTES)
+    {
+      set_field_error (error, SW_ERROR_TOO_LARGE, &ctx,
+                       _("the file is %zu bytes; a design file may be at most %d bytes (1 MiB)"),
+                       len, SW_DESIGN_MAX_BYTES);
+      return NULL;
+    }
+  if (len == 0)
+    {
+      set_field_error (error, SW_ERROR_SYNTAX, &ctx, _("the file is empty"));
+      return NULL;
+    }
+  if (!g_utf8_validate (data, len, NULL))
+    {
+      set_field_error (error, SW_ERROR_SYNTAX, &ctx, _("the file is not UTF-8 text"));
+      return NULL;
+    }
+  if (!check_nesting (data, len, &ctx, error))
+    return NULL;
+
+  parser = json_parser_new_immutable ();
+  if (!json_parser_load_from_data (parser, data, len, &local_error))
+    {
+      set_field_error (error, SW_ERROR_SYNTAX, &ctx, _("not valid JSON: %s"),
+                       local_error->message);
+      return NULL;
+    }
+  if (json_parser_get_root (parser) == NULL)
+    {
+      set_field_error (error, SW_ERROR_SYNTAX, &ctx, _("the file holds no JSON value"));
+      return NULL;
+    }
+  return sw_design_from_json (json_parser_get_root (parser), filename, warnings, error);
+}
+
+SwDesign *
+sw_design_load (const char *filename, GPtrArray *warnings, GError **error)
+{
+  LoadContext ctx = { filename, warnings };
+  g_autoptr (GError) local_error = NULL;
+  g_autofree char *data = NULL;
+  GStatBuf st;
+  gsize len;
+
+  g_return_val_if_fail (filename != NULL, NULL);
+
+  /* Check the size before reading so a huge file is never pulled into memory. */
+  if (g_stat (filename, &st) == 0 && st.st_size > SW_DESIGN_MAX_BYTES)
+    {
+      set_field_error (error, SW_ERROR_TOO_LARGE, &ctx,
+                       _("the file is %lld bytes; a design file may be at most %d bytes (1 MiB)"),
+                       (long long) st.st_size, SW_DESIGN_MAX_BYTES);
+      return NULL;
+    }
+  if (!g_file_get_contents (filename, &data, &len, &local_error))
+    {
+      g_set_error (error, SW_ERROR, SW_ERROR_IO, "%s", local_error->message);
+      return NULL;
+    }
+  return sw_design_load_data (data, (gssize) len, filename, warnings, error);
+}
+
+/* ---- validation -------------------------------------------------------- */
+
+static gboolean
+check_limit (SwLimitId id, double value, const LoadContext *ctx, const char *prefix,
+             GError **error)
+{
+  const SwLimit *l = sw_limit_get (id);
+  g_autofree char *path = NULL;
+
+  if (sw_limit_contains (id, value))
+    return TRUE;
+  path = join_path (prefix, l->key);
+  if (!isfinite (value))
+    set_field_error (error, SW_ERROR_NOT_FINITE, ctx, _("%s: the value is not a finite number"),
+                     path);
+  else
+    set_field_error (error, SW_ERROR_RANGE, ctx,
+                     _("%s: %g is outside the accepted range %s%g to %g%s%s (%s)"), path, value,
+                     l->min_exclusive ? _("above ") : "", l->min, l->max,
+                     l->unit[0] ? " " : "", l->unit, l->why);
+  return FALSE;
+}
+
+static gboolean
+validate_design (const SwDesign *d, const LoadContext *ctx, const char *prefix, GError **error)
+{
+  g_autofree char *mission = join_path (prefix, "mission");
+  g_autofree char *orbit = join_path (mission, "orbit");
+  double share_sum = 0.0;
+
+  if (!check_limit (SW_LIMIT_PAYLOAD, d->payload_kg, ctx, prefix, error))
+    return FALSE;
+  if (d->notes != NULL && strlen (d->notes) > sw_limit_get (SW_LIMIT_NOTES_LENGTH)->max)
+    {
+      g_autofree char *path = join_path (prefix, "notes");
+      set_field_error (error, SW_ERROR_RANGE, ctx, _("%s: the notes are longer than %g bytes"),
+                       path, sw_limit_get (SW_LIMIT_NOTES_LENGTH)->max);
+      return FALSE;
+    }
+
+  if (d->mission.kind == SW_MISSION_DELTA_V)
+    {
+      if (!check_limit (SW_LIMIT_DELTA_V, d->mission.delta_v_m_s, ctx, mission, error))
+        return FALSE;
+    }
+  else
+    {
+      double az;
+
+      if (!check_limit (SW_LIMIT_ALTITUDE, d->mission.altitude_km, ctx, orbit, error)
+          || !check_limit (SW_LIMIT_INCLINATION, d->mission.inclination_deg, ctx, orbit, error)
+          || !check_limit (SW_LIMIT_SITE_LATITUDE, d->mission.site_latitude_deg, ctx, orbit,
+                           error)
+          || (d->mission.has_losses
+              && !check_limit (SW_LIMIT_LOSSES, d->mission.losses_m_s, ctx, mission, error)))
+        return FALSE;
+      if (fabs (d->mission.site_latitude_deg) > 89.99
+          || !sw_launch_azimuth (d->mission.inclination_deg, d->mission.site_latitude_deg, &az))
+        {
+          g_autofree char *path = join_path (orbit, "inclination_deg");
+          set_field_error (error, SW_ERROR_VALUE, ctx,
+                           _("%s: an orbit inclined %g deg cannot be reached directly from a "
+                             "site at latitude %g deg; the inclination must lie between %g and "
+                             "%g deg"),
+                           path, d->mission.inclination_deg, d->mission.site_latitude_deg,
+                           fabs (d->mission.site_latitude_deg),
+                           180.0 - fabs (d->mission.site_latitude_deg));
+          return FALSE;
+        }
+    }
+
+  if (d->n_stages < 1 || d->n_stages > SW_MAX_STAGES)
+    {
+      g_autofree char *path = join_path (prefix, "stages");
+      set_field_error (error, SW_ERROR_RANGE, ctx, _("%s: %u stages; a design has 1 to %d"),
+                       path, d->n_stages, SW_MAX_STAGES);
+      return FALSE;
+    }
+
+  for (guint i = 0; i < d->n_stages; i++)
+    {
+      const SwStage *s = &d->stages[i];
+      g_autofree char *sp = g_strdup_printf ("%s%sstages[%u]", prefix, prefix[0] ? "." : "", i);
+
+      if (!check_limit (SW_LIMIT_ISP_VAC, s->isp_vac_s, ctx, sp, error)
+          || !check_limit (SW_LIMIT_STRUCTURAL_COEFFICIENT, s->structural_coefficient, ctx, sp,
+                           error)
+          || (s->has_isp_sl && !check_limit (SW_LIMIT_ISP_SL, s->isp_sl_s, ctx, sp, error)))
+        return FALSE;
+      if (s->has_isp_sl && s->isp_sl_s > s->isp_vac_s)
+        {
+          g_autofree char *path = join_path (sp, "isp_sl_s");
+          set_field_error (error, SW_ERROR_RANGE, ctx,
+                           _("%s: %g s is above the stage's vacuum Isp of %g s; the sea-level "
+                             "Isp must lie between 0 and the vacuum Isp"),
+                           path, s->isp_sl_s, s->isp_vac_s);
+          return FALSE;
+        }
+      if (d->split == SW_SPLIT_MANUAL)
+        {
+          if (!s->has_share)
+            {
+              g_autofree char *path = join_path (sp, "delta_v_share");
+              set_field_error (error, SW_ERROR_MISSING, ctx,
+                               _("%s: required for the manual split (a fraction from 0 to 1)"),
+                               path);
+              return FALSE;
+            }
+          if (!check_limit (SW_LIMIT_DELTA_V_SHARE, s->delta_v_share, ctx, sp, error))
+            return FALSE;
+          share_sum += s->delta_v_share;
+        }
+      else if (s->has_share && !check_limit (SW_LIMIT_DELTA_V_SHARE, s->delta_v_share, ctx, sp,
+                                             error))
+        return FALSE;
+    }
+
+  if (d->split == SW_SPLIT_MANUAL && fabs (share_sum - 1.0) > 1e-6)
+    {
+      g_autofree char *path = join_path (prefix, "stages");
+      set_field_error (error, SW_ERROR_VALUE, ctx,
+                       _("%s: the manual delta_v_share values add up to %.9g; they must add "
+                         "up to 1 (within 1e-6)"),
+                       path, share_sum);
+      return FALSE;
+    }
+
+  if (d->baseline != NULL)
+    {
+      g_autofree char *path = join_path (prefix, "baseline");
+      if (d->baseline->baseline != NULL)
+        {
+          set_field_error (error, SW_ERROR_NESTING, ctx,
+                           _("%s: a baseline cannot have a baseline of its own"), path);
+          return FALSE;
+        }
+      return validate_design (d->baseline, ctx, path, error);
+    }
+  return TRUE;
+}
+
+gboolean
+sw_design_validate (const SwDesign *design, const char *filename, GError **error)
+{
+  LoadContext ctx = { filename, NULL };
+
+  g_return_val_if_fail (design != NULL, FALSE);
+  return validate_design (design, &ctx, "", error);
+}
+
+/* ---- saving ------------------------------------------------------------ */
+
+static void
+add_double (JsonBuilder *b, const char *key, double value)
+{
+  json_builder_set_member_name (b, key);
+  json_builder_add_double_value (b, value);
+}
+
+static void
+build_design (JsonBuilder *b, const SwDesign *d, gboolean is_baseline)
+{
+  json_builder_begin_object (b);
+  if (!is_baseline)
+    {
+      json_builder_set_member_name (b, "format");
+      json_builder_add_string_value (b, SW_DESIGN_FORMAT);
+      json_builder_set_member_name (b, "version");
+      json_builder_add_int_value (b, SW_DESIGN_VERSION);
+    }
+  json_builder_set_member_name (b, "name");
+  json_builder_add_string_value (b, d->name);
+  if (d->notes != NULL)
+    {
+      json_builder_set_member_name (b, "notes");
+      json_builder_add_string_value (b, d->notes);
+    }
+  add_double (b, "payload_kg", d->payload_kg);
+
+  json_builder_set_member_name (b, "mission");
+  json_builder_begin_object (b);
+  if (d->mission.kind == SW_MISSION_DELTA_V)
+    add_double (b, "delta_v_m_s", d->mission.delta_v_m_s);
+  else
+    {
+      json_builder_set_member_name (b, "orbit");
+      json_builder_begin_object (b);
+      add_double (b, "altitude_km", d->mission.altitude_km);
+      add_double (b, "inclination_deg", d->mission.inclination_deg);
+      add_double (b, "site_latitude_deg", d->mission.site_latitude_deg);
+      json_builder_end_object (b);
+      if (d->mission.has_losses)
+        add_double (b, "losses_m_s", d->mission.losses_m_s);
+      if (d->mission.loss_model == SW_LOSS_SIMULATE)
+        {
+          json_builder_set_member_name (b, "loss_model");
+          json_builder_add_string_value (b, "simulate");
+        }
+    }
+  json_builder_end_object (b);
+
+  json_builder_set_member_name (b, "split");
+  json_builder_add_string_value (b, sw_split_mode_to_string (d->split));
+
+  json_builder_set_member_name (b, "stages");
+  json_builder_begin_array (b);
+  for (guint i = 0; i < d->n_stages; i++)
+    {
+      const SwStage *s = &d->stages[i];
+      json_builder_begin_object (b);
+      json_builder_set_member_name (b, "name");
+      json_builder_add_string_value (b, s->name);
+      add_double (b, "isp_vac_s", s->isp_vac_s);
+      if (s->has_isp_sl)
+        add_double (b, "isp_sl_s", s->isp_sl_s);
+      add_double (b, "structural_coefficient", s->structural_coefficient);
+      if (s->has_share)
+        add_double (b, "delta_v_share", s->delta_v_share);
+      sw_propulsion_save_stage (b, &s->propulsion);
+      sw_reliability_save_stage (b, &s->reliability);
+      json_builder_end_object (b);
+    }
+  json_builder_end_array (b);
+
+  sw_propulsion_save_design (b, &d->ascent);
+
+  if (d->baseline != NULL && !is_baseline)
+    {
+      json_builder_set_member_name (b, "baseline");
+      build_design (b, d->baseline, TRUE);
+    }
+  json_builder_end_object (b);
+}
+
+JsonNode *
+sw_design_to_json (const SwDesign *design)
+{
+  g_autoptr (JsonBuilder) b = json_builder_new_immutable ();
+
+  g_return_val_if_fail (design != NULL, NULL);
+  build_design (b, design, FALSE);
+  return json_builder_get_root (b);
+}
+
+char *
+sw_design_to_data (const SwDesign *design, gsize *length)
+{
+  g_autoptr (JsonGenerator) gen = json_generator_new ();
+  g_autoptr (JsonNode) root = sw_design_to_json (design);
+  g_autofree char *text = NULL;
+
+  json_generator_set_pretty (gen, TRUE);
+  json_generator_set_indent (gen, 2);
+  json_generator_set_root (gen, root);
+  text = json_generator_to_data (gen, NULL);
+  /* End with a newline, as text files do. */
+  {
+    char *out = g_strconcat (text, "\n", NULL);
+    if (length != NULL)
+      *length = strlen (out);
+    return out;
+  }
+}
+
+gboolean
+sw_design_save (const SwDesign *design, const char *filename, GError **error)
+{
+  g_autoptr (GError) local_error = NULL;
+  g_autofree char *data = NULL;
+  gsize len;
+
+  g_return_val_if_fail (design != NULL && filename != NULL, FALSE);
+
+  if (!sw_design_validate (design, filename, error))
+    return FALSE;
+  data = sw_design_to_data (design, &len);
+  /* Temporary file in the same folder, fsync, rename: the old file stays
+   * whole until the new one is complete on disk. */
+  if (!g_file_set_contents_full (filename, data, (gssize) len,
+                                 G_FILE_SET_CONTENTS_CONSISTENT | G_FILE_SET_CONTENTS_DURABLE,
+                                 0644, &local_error))
+    {
+      g_set_error (error, SW_ERROR, SW_ERROR_IO, _("Could not save %s: %s"), filename,
+                   local_error->message);
+      return FALSE;
+    }
+  return TRUE;
+}
+
+/* ---- derived quantities and edits -------------------------------------- */
+
+gboolean
+sw_design_required_delta_v (const SwDesign *design, double *delta_v_m_s, GError **error)
+{
+  SwBudget budget;
+
+  g_return_val_if_fail (design != NULL && delta_v_m_s != NULL, FALSE);
+
+  if (design->mission.kind == SW_MISSION_DELTA_V)
+    {
+      *delta_v_m_s = design->mission.delta_v_m_s;
+      return TRUE;
+    }
+  if (!sw_design_budget (design, &budget, error))
+    return FALSE;
+  *delta_v_m_s = budget.delta_v_m_s;
+  return TRUE;
+}
+
+void
+sw_design_set_share_rebalanced (SwDesign *design, guint index, double share)
+{
+  double rest = 0.0;
+  guint n;
+
+  g_return_if_fail (design != NULL && index < design->n_stages);
+
+  n = design->n_stages;
+  share = CLAMP (share, 0.0, 1.0);
+  if (n == 1)
+    share = 1.0;
+  for (guint i = 0; i < n; i++)
+    if (i != index)
+      rest += design->stages[i].has_share ? design->stages[i].delta_v_share : 0.0;
+
+  /* The others keep their proportions among themselves; if they were all
+   * zero they share what is left equally. */
+  for (guint i = 0; i < n; i++)
+    {
+      SwStage *s = &design->stages[i];
+      double old = s->has_share ? s->delta_v_share : 0.0;
+      if (i == index)
+        s->delta_v_share = share;
+      else if (rest > 1e-12)
+        s->delta_v_share = old / rest * (1.0 - share);
+      else
+        s->delta_v_share = (1.0 - share) / (n - 1);
+      s->has_share = TRUE;
+    }
+}
+
+void
+sw_design_move_share (SwDesign *design, guint from, guint to, double amount)
+{
+  SwStage *a, *b;
+  double total;
+
+  g_return_if_fail (design != NULL && from < design->n_stages && to < design->n_stages);
+
+  a = &design->stages[from];
+  b = &design->stages[to];
+  total = a->delta_v_share + b->delta_v_share;
+  amount = CLAMP (amount, -b->delta_v_share, a->delta_v_share);
+  a->delta_v_share -= amount;
+  b->delta_v_share = total - a->delta_v_share;
+}

@@ -1,0 +1,83 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* sw-sizing.h: Tsiolkovsky sizing, top-down from the payload, with the equal,
+ * manual and optimal (Lagrange multiplier) delta-v splits. */
+#pragma once
+
+#include "sw-design.h"
+#include "sw-types.h"
+
+G_BEGIN_DECLS
+
+#define SW_REASON_MAX 256
+
+struct _SwStageResult {
+  double delta_v_m_s;
+  double delta_v_share;
+  double exhaust_velocity_m_s;  /* c = Isp_vac g0 */
+  double delta_v_limit_m_s;     /* c ln(1/eps) */
+  double mass_ratio;            /* n = m_initial / m_burnout */
+  double propellant_mass_kg;
+  double structural_mass_kg;
+  double stage_mass_kg;         /* propellant + structure */
+  double payload_mass_kg;       /* everything above this stage */
+  double initial_mass_kg;       /* at ignition, everything above included */
+  double burnout_mass_kg;
+  gboolean feasible;
+  gboolean unused;              /* optimal split gave it no delta-v */
+};
+
+struct _SwSizing {
+  gboolean feasible;
+  char     reason[SW_REASON_MAX];  /* "" when feasible */
+  int      infeasible_stage;       /* index of the stage that fails, or -1 */
+  SwSplitMode split;
+  double   liftoff_mass_kg;        /* NAN when infeasible */
+  double   payload_kg;
+  double   payload_fraction;
+  double   delta_v_m_s;
+  double   delta_v_limit_m_s;      /* sum of c_i ln(1/eps_i) */
+  double   margin_m_s;             /* limit - delta_v */
+  double   multiplier_s_m;         /* Lagrange multiplier eta (s/m); NAN unless optimal */
+  guint    n_unused;               /* stages given no delta-v by the optimum */
+  guint    n_stages;
+  SwStageResult stages[SW_MAX_STAGES];
+};
+
+/* The stage inputs of one sizing, in firing order. */
+typedef struct {
+  guint  n_stages;
+  double exhaust_velocity_m_s[SW_MAX_STAGES];
+  double structural_coefficient[SW_MAX_STAGES];
+  double share[SW_MAX_STAGES];      /* manual split only */
+} SwStageSet;
+
+void     sw_stage_set_from_design (SwStageSet *set, const SwDesign *design);
+/* The hypothetical @n_stages vehicle of the stage-count trade: stage k takes
+ * the parameters of the design's stage min(k, n_design). */
+void     sw_stage_set_extend (SwStageSet *set, const SwDesign *design, guint n_stages);
+
+/* Size the vehicle.  Never fails: an infeasible vehicle is an answer. */
+void     sw_size (const SwStageSet *set, double payload_kg, double delta_v_m_s,
+                  SwSplitMode split, SwSizing *out);
+
+/* The design's own sizing (required delta-v from its mission). */
+gboolean sw_design_size (const SwDesign *design, SwSizing *out, GError **error);
+
+/* Optimal split only: the delta-v of each stage and the multiplier. */
+gboolean sw_optimal_split (const SwStageSet *set, double delta_v_m_s,
+                           double *stage_delta_v, double *multiplier_s_m);
+
+/* Liftoff mass for given per-stage delta-v (no feasibility text), NAN when a
+ * stage cannot deliver its share.  Used by tests and the minimiser check. */
+double   sw_liftoff_mass_for_split (const SwStageSet *set, double payload_kg,
+                                    const double *stage_delta_v);
+
+/* Structural coefficient conversions. */
+double   sw_eps_to_form (double eps, SwEpsForm form);
+double   sw_eps_from_form (double value, SwEpsForm form);
+/* Valid range of the value in @form for eps in [eps_min, eps_max]. */
+void     sw_eps_form_range (SwEpsForm form, double eps_min, double eps_max,
+                            double *lo, double *hi);
+const char *sw_eps_form_to_string (SwEpsForm form);
+
+G_END_DECLS
