@@ -1,0 +1,37 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* sw-stack-view.h: the vehicle drawn as a stack of stage blocks whose areas
+ * are proportional to their computed masses.  Draws an SwResult; never
+ * computes physics. */
+#pragma once
+
+#include <gtk/gtk.h>
+
+#include "sw-result.h"
+
+G_BEGIN_DECLS
+
+#define SW_TYPE_STACK_VIEW (sw_stack_view_get_type ())
+G_DECLARE_FINAL_TYPE (SwStackView, sw_stack_view, SW, STACK_VIEW, GtkWidget)
+
+GtkWidget *sw_stack_view_new (void);
+/* Takes a reference; NULL clears the view. */
+void       sw_stack_view_set_result (SwStackView *self, SwResult *result);
+SwResult  *sw_stack_view_get_result (SwStackView *self);
+/* -1 for none. Property "selected-stage". */
+void       sw_stack_view_set_selected (SwStackView *self, int stage);
+int        sw_stack_view_get_selected (SwStackView *self);
+
+/* Geometry of the last layout, for tests: the rectangle of stage @index
+ * (firing order) in widget coordinates; FALSE when not drawn. */
+gboolean   sw_stack_view_get_block_rect (SwStackView *self, guint index, graphene_rect_t *rect);
+
+/* Signals:
+ *   "stage-activated" (int stage)             a click selected a stage
+ *   "share-dragged"   (int lower, int upper, double amount, gboolean finished)
+ *        the border between stage @lower and stage @upper = lower + 1 was
+ *        dragged; @amount is the delta-v share to move from @upper to
+ *        @lower since the drag began (negative: the other way).  The
+ *        owner edits the design (split becomes manual) and posts a solve;
+ *        @finished is TRUE on release (one undo step per drag). */
+
+G_END_DECLS
