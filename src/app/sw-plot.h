@@ -56,4 +56,17 @@ void  sw_plot_set_y_format (SwPlot *self, const char *format, double scale);
 /* For tests: data coordinates to widget coordinates of the last layout. */
 gboolean sw_plot_data_to_widget (SwPlot *self, double x, double y, double *wx, double *wy);
 
+/* Added by the widgets' implementation. */
+/* The plot area of the last layout in widget coordinates (for tests). */
+gboolean sw_plot_get_plot_area (SwPlot *self, graphene_rect_t *area);
+/* TRUE: the hover readout is a tooltip instead of a drawn label box.
+ * Property "readout-tooltip". */
+void  sw_plot_set_readout_tooltip (SwPlot *self, gboolean tooltip);
+/* The application's colour-blind-safe palette (Okabe-Ito, eight colours),
+ * adjusted to the theme of @widget so every entry keeps 3:1 contrast with
+ * the background; index 7 is the foreground.  Used by the stack view too. */
+void  sw_plot_palette_color (GtkWidget *widget, int index, GdkRGBA *rgba);
+/* Whether @widget's theme is dark (light foreground). */
+gboolean sw_plot_style_is_dark (GtkWidget *widget);
+
 G_END_DECLS

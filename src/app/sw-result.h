@@ -28,11 +28,19 @@ struct _SwResult {
   SwSweep   sweep;             /* N = 1..5 */
 };
 
+#define SW_TYPE_RESULT (sw_result_get_type ())
+GType     sw_result_get_type (void) G_GNUC_CONST;
+
 /* Runs on the worker thread: everything the views need for @design.
  * Returns NULL when @cancellable was cancelled part way. */
 SwResult *sw_result_compute (const SwDesign *design, guint64 serial, GCancellable *cancellable);
 SwResult *sw_result_ref (SwResult *result);
 void      sw_result_unref (SwResult *result);
+
+/* Switches @design to the manual split, with the shares @result gave its
+ * stages (equal shares when @result does not fit @design).  Used when the
+ * user takes hold of a share in the equal or optimal split. */
+void      sw_result_apply_shares (const SwResult *result, SwDesign *design);
 
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (SwResult, sw_result_unref)
 

@@ -25,6 +25,14 @@ int        sw_stack_view_get_selected (SwStackView *self);
  * (firing order) in widget coordinates; FALSE when not drawn. */
 gboolean   sw_stack_view_get_block_rect (SwStackView *self, guint index, graphene_rect_t *rect);
 
+/* Added by the implementation, for tests and for placing popovers: the
+ * payload block; the structure band inside stage @index's block (FALSE when
+ * the stage is not drawn to scale); the block area per kilogram in square
+ * pixels (0 when the vehicle is not sized). */
+gboolean   sw_stack_view_get_payload_rect (SwStackView *self, graphene_rect_t *rect);
+gboolean   sw_stack_view_get_structure_rect (SwStackView *self, guint index, graphene_rect_t *rect);
+double     sw_stack_view_get_area_scale (SwStackView *self);
+
 /* Signals:
  *   "stage-activated" (int stage)             a click selected a stage
  *   "share-dragged"   (int lower, int upper, double amount, gboolean finished)

@@ -99,9 +99,13 @@ print_sizing_table (const SwDesign *d, const SwSizing *s)
       g_autofree char *ms = sw_cli_format (r->structural_mass_kg, 1);
       g_autofree char *m0 = sw_cli_format (r->initial_mass_kg, 1);
       g_autofree char *mf = sw_cli_format (r->burnout_mass_kg, 1);
-      g_print ("%-3u %-20.20s %6.1f %6.4f %9.1f %6.3f %8.4f %12s %11s %13s %12s%s\n", i + 1,
+      /* Beyond the vehicle's limit no split exists: these are "-" too. */
+      g_autofree char *dv = sw_cli_format (r->delta_v_m_s, 1);
+      g_autofree char *share = sw_cli_format (r->delta_v_share, 3);
+      g_autofree char *n = sw_cli_format (r->mass_ratio, 4);
+      g_print ("%-3u %-20.20s %6.1f %6.4f %9s %6s %8s %12s %11s %13s %12s%s\n", i + 1,
                d->stages[i].name, d->stages[i].isp_vac_s, d->stages[i].structural_coefficient,
-               r->delta_v_m_s, r->delta_v_share, r->mass_ratio, mp, ms, m0, mf,
+               dv, share, n, mp, ms, m0, mf,
                !r->feasible ? "  INFEASIBLE" : r->unused ? "  (unused)" : "");
     }
   g_print ("\n");

@@ -21,6 +21,14 @@ static const SwCliCommand commands[] = {
   { "curve", "FILE", "Liftoff mass against stage count (optimal split)", sw_cli_curve },
   { "budget", "FILE", "Delta-v budget of an orbit mission", sw_cli_budget },
   { "limits", "", "The accepted range of every input field", sw_cli_limits },
+  { "sensitivity", "FILE", "What moves the liftoff mass: derivatives, tornado, exchange ratios",
+    sw_cli_sensitivity },
+  { "montecarlo", "FILE", "Uncertainty: liftoff mass and payload margin over sampled inputs",
+    sw_cli_montecarlo },
+  { "reliability", "FILE", "Mission success probability and its curve against stage count",
+    sw_cli_reliability },
+  { "export", "FILE", "The one-page briefing sheet (PDF, SVG, PNG) and CSV tables",
+    sw_cli_export },
   { "bench", "[FILE]", "Benchmark the sizing and a full live update", sw_cli_bench },
 };
 

@@ -43,5 +43,9 @@ int sw_cli_curve (int argc, char **argv);
 int sw_cli_budget (int argc, char **argv);
 int sw_cli_bench (int argc, char **argv);
 int sw_cli_limits (int argc, char **argv);
+int sw_cli_sensitivity (int argc, char **argv);
+int sw_cli_montecarlo (int argc, char **argv);
+int sw_cli_reliability (int argc, char **argv);
+int sw_cli_export (int argc, char **argv);
 
 G_END_DECLS

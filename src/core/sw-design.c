@@ -33,6 +33,9 @@ sw_design_new (void)
   SwDesign *d = g_new0 (SwDesign, 1);
   d->split = SW_SPLIT_OPTIMAL;
   d->mission.kind = SW_MISSION_DELTA_V;
+  /* The state the loader gives a file without the optional object, so that
+   * a new design equals itself after save and load. */
+  sw_uncertainty_init (&d->uncertainty);
   return d;
 }
 
@@ -76,7 +79,7 @@ sw_design_copy (const SwDesign *design)
   g_return_val_if_fail (design != NULL, NULL);
 
   copy = g_new (SwDesign, 1);
-  *copy = *design;
+  memcpy (copy, design, sizeof *copy);
   copy->notes = g_strdup (design->notes);
   copy->baseline = design->baseline != NULL ? sw_design_copy (design->baseline) : NULL;
   return copy;
@@ -102,6 +105,30 @@ sw_design_set_notes (SwDesign *design, const char *notes)
   design->notes = g_strdup (notes);
 }
 
+/* Clears the values a file does not carry (the other kind of mission, an
+ * absent optional number), so that equality means "saves the same". */
+static void
+clear_unsaved_values (SwDesign *c)
+{
+  if (c->mission.kind == SW_MISSION_DELTA_V)
+    {
+      c->mission.loss_model = SW_LOSS_ALLOWANCE;
+      c->mission.altitude_km = c->mission.inclination_deg = c->mission.site_latitude_deg = 0.0;
+      c->mission.has_losses = FALSE;
+    }
+  else
+    c->mission.delta_v_m_s = 0.0;
+  if (!c->mission.has_losses)
+    c->mission.losses_m_s = 0.0;
+  for (guint i = 0; i < c->n_stages && i < SW_MAX_STAGES; i++)
+    {
+      if (!c->stages[i].has_isp_sl)
+        c->stages[i].isp_sl_s = 0.0;
+      if (!c->stages[i].has_share)
+        c->stages[i].delta_v_share = 0.0;
+    }
+}
+
 gboolean
 sw_design_equal (const SwDesign *a, const SwDesign *b)
 {
@@ -113,12 +140,14 @@ sw_design_equal (const SwDesign *a, const SwDesign *b)
     return FALSE;
   /* Compare the plain part field by field through a normalised copy: unused
    * bytes of the name buffers must not decide equality. */
-  ca = *a;
-  cb = *b;
+  memcpy (&ca, a, sizeof ca);
+  memcpy (&cb, b, sizeof cb);
   ca.notes = cb.notes = NULL;
   ca.baseline = cb.baseline = NULL;
   if (strcmp (ca.name, cb.name) != 0 || ca.n_stages != cb.n_stages)
     return FALSE;
+  clear_unsaved_values (&ca);
+  clear_unsaved_values (&cb);
   memset (ca.name, 0, sizeof ca.name);
   memset (cb.name, 0, sizeof cb.name);
   for (guint i = 0; i < SW_MAX_STAGES; i++)
@@ -454,7 +483,8 @@ load_design_object (JsonObject *root, const LoadContext *ctx, const char *prefix
   gboolean ok;
   guint n;
 
-  warn_unknown_keys (root, ctx, prefix, root_keys, sw_propulsion_design_keys, NULL);
+  warn_unknown_keys (root, ctx, prefix, root_keys, sw_propulsion_design_keys,
+                     sw_uncertainty_design_keys);
 
   /* format and version are required at the top; a pinned baseline inherits them. */
   if (!read_string (root, "format", ctx, prefix, !is_baseline, &format, error))
@@ -581,6 +611,9 @@ load_design_object (JsonObject *root, const LoadContext *ctx, const char *prefix
     }
 
   if (!sw_propulsion_load_design (root, ctx->file, &d->ascent, ctx->warnings, error))
+    return NULL;
+  if (!sw_uncertainty_load_design (root, ctx->file, prefix, &d->uncertainty, ctx->warnings,
+                                   error))
     return NULL;
 
   baseline = read_object (root, "baseline", ctx, prefix, FALSE, &ok, error);
@@ -826,7 +859,8 @@ validate_design (const SwDesign *d, const LoadContext *ctx, const char *prefix, 
       if (!check_limit (SW_LIMIT_ISP_VAC, s->isp_vac_s, ctx, sp, error)
           || !check_limit (SW_LIMIT_STRUCTURAL_COEFFICIENT, s->structural_coefficient, ctx, sp,
                            error)
-          || (s->has_isp_sl && !check_limit (SW_LIMIT_ISP_SL, s->isp_sl_s, ctx, sp, error)))
+          || (s->has_isp_sl && !check_limit (SW_LIMIT_ISP_SL, s->isp_sl_s, ctx, sp, error))
+          || !sw_reliability_validate_stage (&s->reliability, ctx->file, sp, error))
         return FALSE;
       if (s->has_isp_sl && s->isp_sl_s > s->isp_vac_s)
         {
@@ -865,6 +899,9 @@ validate_design (const SwDesign *d, const LoadContext *ctx, const char *prefix, 
                        path, share_sum);
       return FALSE;
     }
+
+  if (!sw_uncertainty_validate (&d->uncertainty, ctx->file, prefix, error))
+    return FALSE;
 
   if (d->baseline != NULL)
     {
@@ -964,6 +1001,7 @@ build_design (JsonBuilder *b, const SwDesign *d, gboolean is_baseline)
   json_builder_end_array (b);
 
   sw_propulsion_save_design (b, &d->ascent);
+  sw_uncertainty_save_design (b, &d->uncertainty);
 
   if (d->baseline != NULL && !is_baseline)
     {
@@ -1088,6 +1126,10 @@ sw_design_move_share (SwDesign *design, guint from, guint to, double amount)
 
   g_return_if_fail (design != NULL && from < design->n_stages && to < design->n_stages);
 
+  /* Moving share within one stage changes nothing (the code below would
+   * count the stage twice and break the sum). */
+  if (from == to)
+    return;
   a = &design->stages[from];
   b = &design->stages[to];
   total = a->delta_v_share + b->delta_v_share;

@@ -10,6 +10,7 @@
 
 #include "sw-propulsion.h"
 #include "sw-reliability.h"
+#include "sw-uncertainty.h"
 #include "sw-types.h"
 
 G_BEGIN_DECLS
@@ -53,6 +54,7 @@ struct _SwDesign {
   guint       n_stages;
   SwStage     stages[SW_MAX_STAGES];
   SwDesignAscent ascent;           /* optional design-level ascent keys */
+  SwUncertainty uncertainty;       /* optional Monte Carlo spreads */
   SwDesign   *baseline;            /* owned, may be NULL: a pinned earlier design */
 };
 

@@ -223,8 +223,16 @@ size_with_names (const SwStageSet *set, const SwDesign *names, double payload_kg
                         "%.0f m/s that these %u stages reach even when empty of payload "
                         "(the sum of c ln(1/eps) over the stages)."),
                       delta_v_m_s, out->delta_v_limit_m_s, n);
+          /* No split exists: every per-stage figure is undefined (NAN, never
+           * the zeros of the memset). */
           for (guint i = 0; i < n; i++)
-            out->stages[i].feasible = FALSE;
+            {
+              SwStageResult *r = &out->stages[i];
+              r->feasible = FALSE;
+              r->delta_v_m_s = r->delta_v_share = r->mass_ratio = NAN;
+              r->propellant_mass_kg = r->structural_mass_kg = r->stage_mass_kg = NAN;
+              r->payload_mass_kg = r->initial_mass_kg = r->burnout_mass_kg = NAN;
+            }
           return;
         }
       break;

@@ -1,0 +1,363 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+#define G_LOG_DOMAIN "sw-application"
+
+#include "config.h"
+
+#include "sw-application.h"
+
+#include "sw-format.h"
+#include "sw-window-private.h"
+
+#include <glib/gi18n.h>
+
+/* A screenshot that has not been drawn by then has failed. */
+#define SCREENSHOT_TIMEOUT_S 60
+
+struct _SwApplication {
+  GtkApplication parent_instance;
+  char          *screenshot;       /* --screenshot=FILE */
+  int            exit_status;
+  guint          screenshot_timeout;
+};
+
+G_DEFINE_FINAL_TYPE (SwApplication, sw_application, GTK_TYPE_APPLICATION)
+
+GSettings *
+sw_application_settings_new (void)
+{
+  GSettingsSchemaSource *source = g_settings_schema_source_get_default ();
+  g_autoptr (GSettingsSchema) schema = NULL;
+
+  if (source != NULL)
+    schema = g_settings_schema_source_lookup (source, APP_ID, TRUE);
+  if (schema == NULL)
+    {
+      g_autoptr (GSettingsSchemaSource) build = NULL;
+      g_autoptr (GError) error = NULL;
+
+      build = g_settings_schema_source_new_from_directory (SW_BUILD_SCHEMAS_DIR, source, FALSE,
+                                                           &error);
+      if (build != NULL)
+        schema = g_settings_schema_source_lookup (build, APP_ID, FALSE);
+      if (schema == NULL)
+        g_error ("The settings schema %s is neither installed nor compiled in %s%s%s", APP_ID,
+                 SW_BUILD_SCHEMAS_DIR, error != NULL ? ": " : "",
+                 error != NULL ? error->message : "");
+    }
+  return g_settings_new_full (schema, NULL, NULL);
+}
+
+char *
+sw_application_find_design (const char *basename)
+{
+  char *path = g_build_filename (SOURCE_DESIGNS_DIR, basename, NULL);
+
+  if (g_file_test (path, G_FILE_TEST_IS_REGULAR))
+    return path;
+  g_free (path);
+  return g_build_filename (DESIGNS_DIR, basename, NULL);
+}
+
+gboolean
+sw_application_write_png (GtkWidget *widget, const char *filename, GError **error)
+{
+  int width = gtk_widget_get_width (widget);
+  int height = gtk_widget_get_height (widget);
+  g_autoptr (GdkPaintable) paintable = gtk_widget_paintable_new (widget);
+  g_autoptr (GskRenderer) renderer = gsk_cairo_renderer_new ();
+  g_autoptr (GskRenderNode) node = NULL;
+  g_autoptr (GdkTexture) texture = NULL;
+  GtkSnapshot *snapshot = gtk_snapshot_new ();
+
+  gdk_paintable_snapshot (paintable, snapshot, width, height);
+  node = gtk_snapshot_free_to_node (snapshot);
+  if (node == NULL || width <= 0 || height <= 0)
+    {
+      g_set_error (error, G_IO_ERROR, G_IO_ERROR_FAILED, _("%s: the window has not been drawn"),
+                   filename);
+      return FALSE;
+    }
+  /* The cairo renderer needs no surface and no GPU. */
+  if (!gsk_renderer_realize (renderer, NULL, error))
+    return FALSE;
+  texture = gsk_renderer_render_texture (renderer, node,
+                                         &GRAPHENE_RECT_INIT (0, 0, width, height));
+  gsk_renderer_unrealize (renderer);
+  if (!gdk_texture_save_to_png (texture, filename))
+    {
+      g_set_error (error, G_IO_ERROR, G_IO_ERROR_FAILED, _("%s: could not write the PNG file"),
+                   filename);
+      return FALSE;
+    }
+  return TRUE;
+}
+
+/* ---- windows ----------------------------------------------------------- */
+
+static SwWindow *
+replaceable_window (SwApplication *self)
+{
+  GtkWindow *active = gtk_application_get_active_window (GTK_APPLICATION (self));
+
+  if (SW_IS_WINDOW (active) && sw_window_is_replaceable (SW_WINDOW (active)))
+    return SW_WINDOW (active);
+  return sw_window_new (GTK_APPLICATION (self));
+}
+
+/* The design of the last session, or on the first start the demonstration
+ * design, opened as an untitled copy so it is never overwritten. */
+static void
+open_first_design (SwApplication *self, SwWindow *window)
+{
+  g_autoptr (GSettings) settings = sw_application_settings_new ();
+  g_autofree char *last = g_settings_get_string (settings, "last-design");
+  g_autofree char *demo = NULL;
+  g_autoptr (GFile) file = NULL;
+
+  if (last[0] != '\0' && g_file_test (last, G_FILE_TEST_IS_REGULAR))
+    {
+      file = g_file_new_for_path (last);
+      if (sw_window_load (window, file))
+        return;
+    }
+  demo = sw_application_find_design ("medium-cargo.stagewright");
+  g_set_object (&file, g_file_new_for_path (demo));
+  sw_window_load_template (window, file);
+}
+
+static void
+screenshot_failed (SwApplication *self, const char *message)
+{
+  g_printerr ("stagewright: %s\n", message);
+  self->exit_status = 1;
+  g_application_quit (G_APPLICATION (self));
+}
+
+static gboolean
+screenshot_timeout_cb (gpointer data)
+{
+  SwApplication *self = data;
+
+  self->screenshot_timeout = 0;
+  screenshot_failed (self, _("the screenshot timed out before the first sizing was drawn"));
+  return G_SOURCE_REMOVE;
+}
+
+static void
+screenshot_drawn_cb (SwWindow *window, guint64 serial, SwApplication *self)
+{
+  g_autoptr (GError) error = NULL;
+
+  /* The first result of the design as loaded, not of the placeholder. */
+  if (serial < sw_solver_get_posted_serial (sw_window_get_solver (window)))
+    return;
+  g_signal_handlers_disconnect_by_func (window, screenshot_drawn_cb, self);
+  g_clear_handle_id (&self->screenshot_timeout, g_source_remove);
+  if (!sw_application_write_png (GTK_WIDGET (window), self->screenshot, &error))
+    {
+      screenshot_failed (self, error->message);
+      return;
+    }
+  gtk_window_destroy (GTK_WINDOW (window));
+}
+
+static void
+start_screenshot (SwApplication *self, GFile *file)
+{
+  SwWindow *window = sw_window_new (GTK_APPLICATION (self));
+  g_autoptr (GFile) demo = NULL;
+  gboolean ok;
+
+  sw_window_set_ephemeral (window);
+  gtk_window_unmaximize (GTK_WINDOW (window));
+  gtk_window_set_default_size (GTK_WINDOW (window), 1280, 800);
+  if (file != NULL)
+    ok = sw_window_load (window, file);
+  else
+    {
+      g_autofree char *path = sw_application_find_design ("medium-cargo.stagewright");
+      demo = g_file_new_for_path (path);
+      ok = sw_window_load_template (window, demo);
+    }
+  if (!ok)
+    {
+      const char *message = sw_window_get_message (window, NULL);
+      screenshot_failed (self, message != NULL ? message : _("the design could not be opened"));
+      gtk_window_destroy (GTK_WINDOW (window));
+      return;
+    }
+  g_signal_connect (window, "result-drawn", G_CALLBACK (screenshot_drawn_cb), self);
+  self->screenshot_timeout = g_timeout_add_seconds (SCREENSHOT_TIMEOUT_S, screenshot_timeout_cb,
+                                                    self);
+  gtk_window_present (GTK_WINDOW (window));
+}
+
+/* ---- app actions ------------------------------------------------------- */
+
+static void
+quit_action (GSimpleAction *action, GVariant *param, gpointer data)
+{
+  g_autoptr (GList) windows = g_list_copy (gtk_application_get_windows (GTK_APPLICATION (data)));
+
+  /* Each window asks about its own unsaved changes. */
+  for (GList *l = windows; l != NULL; l = l->next)
+    gtk_window_close (GTK_WINDOW (l->data));
+}
+
+static void
+about_action (GSimpleAction *action, GVariant *param, gpointer data)
+{
+  GtkWindow *parent = gtk_application_get_active_window (GTK_APPLICATION (data));
+  g_autofree char *comments = g_strdup_printf ("%s\n\n%s",
+                                               _("Size multistage launch vehicles at the "
+                                                 "concept stage."),
+                                               sw_format_cautions ());
+  const char *authors[] = { _("The Stagewright developers"), NULL };
+
+  gtk_show_about_dialog (parent,
+                         "program-name", "Stagewright",
+                         "logo-icon-name", APP_ID,
+                         "version", PACKAGE_VERSION,
+                         "comments", comments,
+                         "license-type", GTK_LICENSE_GPL_3_0,
+                         "copyright", _("© 2026 The Stagewright developers"),
+                         "authors", authors,
+                         /* Translators: your name(s), one per line */
+                         "translator-credits", _("translator-credits"),
+                         NULL);
+}
+
+static const GActionEntry app_actions[] = {
+  { "quit", quit_action, NULL, NULL, NULL, { 0 } },
+  { "about", about_action, NULL, NULL, NULL, { 0 } },
+};
+
+/* ---- GApplication ------------------------------------------------------ */
+
+static int
+sw_application_handle_local_options (GApplication *app, GVariantDict *options)
+{
+  SwApplication *self = SW_APPLICATION (app);
+
+  if (g_variant_dict_contains (options, "version"))
+    {
+      g_print ("stagewright %s\n", PACKAGE_VERSION);
+      return 0;
+    }
+  if (g_variant_dict_lookup (options, "screenshot", "^ay", &self->screenshot))
+    /* A screenshot runs on its own, never in an instance already running. */
+    g_application_set_flags (app, g_application_get_flags (app) | G_APPLICATION_NON_UNIQUE);
+  return -1;
+}
+
+static void
+sw_application_startup (GApplication *app)
+{
+  g_autoptr (GtkCssProvider) css = gtk_css_provider_new ();
+
+  G_APPLICATION_CLASS (sw_application_parent_class)->startup (app);
+
+  gtk_css_provider_load_from_resource (css, "/org/stagewright/Stagewright/style.css");
+  gtk_style_context_add_provider_for_display (gdk_display_get_default (),
+                                              GTK_STYLE_PROVIDER (css),
+                                              GTK_STYLE_PROVIDER_PRIORITY_APPLICATION);
+  gtk_window_set_default_icon_name (APP_ID);
+
+  g_action_map_add_action_entries (G_ACTION_MAP (app), app_actions, G_N_ELEMENTS (app_actions),
+                                   app);
+  gtk_application_set_accels_for_action (GTK_APPLICATION (app), "app.quit",
+                                         (const char *[]) { "<Control>q", NULL });
+}
+
+static void
+sw_application_activate (GApplication *app)
+{
+  SwApplication *self = SW_APPLICATION (app);
+  GtkWindow *window;
+
+  if (self->screenshot != NULL)
+    {
+      start_screenshot (self, NULL);
+      return;
+    }
+  window = gtk_application_get_active_window (GTK_APPLICATION (app));
+  if (window == NULL)
+    {
+      window = GTK_WINDOW (sw_window_new (GTK_APPLICATION (app)));
+      open_first_design (self, SW_WINDOW (window));
+    }
+  gtk_window_present (window);
+}
+
+static void
+sw_application_open (GApplication *app, GFile **files, int n_files, const char *hint)
+{
+  SwApplication *self = SW_APPLICATION (app);
+
+  if (self->screenshot != NULL)
+    {
+      start_screenshot (self, files[0]);
+      return;
+    }
+  for (int i = 0; i < n_files; i++)
+    {
+      SwWindow *window = replaceable_window (self);
+      sw_window_load (window, files[i]);
+      gtk_window_present (GTK_WINDOW (window));
+    }
+}
+
+static void
+sw_application_finalize (GObject *object)
+{
+  SwApplication *self = SW_APPLICATION (object);
+
+  g_clear_handle_id (&self->screenshot_timeout, g_source_remove);
+  g_free (self->screenshot);
+  G_OBJECT_CLASS (sw_application_parent_class)->finalize (object);
+}
+
+static void
+sw_application_class_init (SwApplicationClass *klass)
+{
+  GObjectClass *object_class = G_OBJECT_CLASS (klass);
+  GApplicationClass *app_class = G_APPLICATION_CLASS (klass);
+
+  object_class->finalize = sw_application_finalize;
+  app_class->handle_local_options = sw_application_handle_local_options;
+  app_class->startup = sw_application_startup;
+  app_class->activate = sw_application_activate;
+  app_class->open = sw_application_open;
+}
+
+static void
+sw_application_init (SwApplication *self)
+{
+  const GOptionEntry options[] = {
+    { "screenshot", 0, 0, G_OPTION_ARG_FILENAME, NULL,
+      N_("Draw the main window at 1280×800 once the design is sized, write it to FILE as "
+         "PNG and quit"), N_("FILE") },
+    { "version", 0, 0, G_OPTION_ARG_NONE, NULL, N_("Print the version and quit"), NULL },
+    { NULL }
+  };
+
+  g_application_add_main_option_entries (G_APPLICATION (self), options);
+  g_application_set_option_context_parameter_string (G_APPLICATION (self), _("[DESIGN…]"));
+}
+
+SwApplication *
+sw_application_new (void)
+{
+  return g_object_new (SW_TYPE_APPLICATION,
+                       "application-id", APP_ID,
+                       "flags", G_APPLICATION_HANDLES_OPEN,
+                       "resource-base-path", "/org/stagewright/Stagewright",
+                       NULL);
+}
+
+int
+sw_application_get_exit_status (SwApplication *self)
+{
+  g_return_val_if_fail (SW_IS_APPLICATION (self), 1);
+  return self->exit_status;
+}

@@ -1,0 +1,28 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* sw-application.h: the GtkApplication: single instance, opens
+ * .stagewright files, app-wide actions, --screenshot. */
+#pragma once
+
+#include <gtk/gtk.h>
+
+G_BEGIN_DECLS
+
+#define SW_TYPE_APPLICATION (sw_application_get_type ())
+G_DECLARE_FINAL_TYPE (SwApplication, sw_application, SW, APPLICATION, GtkApplication)
+
+SwApplication *sw_application_new (void);
+/* The process exit status (non-zero when --screenshot failed). */
+int            sw_application_get_exit_status (SwApplication *self);
+
+/* The application's settings; falls back to the schema compiled in the
+ * build folder when the application runs uninstalled. */
+GSettings     *sw_application_settings_new (void);
+/* Path of a bundled demonstration design (the source tree when it exists,
+ * else the installed copy). */
+char          *sw_application_find_design (const char *basename);
+
+/* Renders @widget offscreen with the cairo renderer and writes a PNG. */
+gboolean       sw_application_write_png (GtkWidget *widget, const char *filename,
+                                         GError **error);
+
+G_END_DECLS

@@ -1,0 +1,49 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* sw-inspector.h: the panel where the mission, the split and the stages are
+ * edited.  Every edit goes to the document as one undoable step; the
+ * computed values it shows come from the last SwResult. */
+#pragma once
+
+#include <gtk/gtk.h>
+
+#include "sw-document.h"
+#include "sw-result.h"
+
+G_BEGIN_DECLS
+
+#define SW_TYPE_INSPECTOR (sw_inspector_get_type ())
+G_DECLARE_FINAL_TYPE (SwInspector, sw_inspector, SW, INSPECTOR, GtkWidget)
+
+GtkWidget *sw_inspector_new (void);
+void       sw_inspector_set_document (SwInspector *self, SwDocument *document);
+void       sw_inspector_set_result (SwInspector *self, SwResult *result);
+/* Property "selected-stage": -1 for none. */
+void       sw_inspector_set_selected (SwInspector *self, int stage);
+int        sw_inspector_get_selected (SwInspector *self);
+
+/* Widget actions: stage.add, stage.duplicate, stage.remove, stage.move-up,
+ * stage.move-down. */
+
+/* For tests: the input widgets. */
+typedef enum {
+  SW_INSPECTOR_PAYLOAD,        /* GtkSpinButton, kg */
+  SW_INSPECTOR_MISSION_KIND,   /* GtkDropDown: 0 delta-v, 1 orbit */
+  SW_INSPECTOR_DELTA_V,        /* GtkSpinButton, m/s */
+  SW_INSPECTOR_ALTITUDE,
+  SW_INSPECTOR_INCLINATION,
+  SW_INSPECTOR_LATITUDE,
+  SW_INSPECTOR_LOSSES,
+  SW_INSPECTOR_IDEAL_LABEL,    /* GtkLabel */
+  SW_INSPECTOR_STAGE_LIST,     /* GtkListBox */
+  SW_INSPECTOR_STAGE_NAME,     /* GtkEntry */
+  SW_INSPECTOR_ISP_VAC,        /* GtkSpinButton, s */
+  SW_INSPECTOR_ISP_SL,
+  SW_INSPECTOR_EPS_FORM,       /* GtkDropDown, SwEpsForm order */
+  SW_INSPECTOR_EPS,            /* GtkSpinButton, in the chosen form */
+  SW_INSPECTOR_SHARE,          /* GtkSpinButton, percent */
+  SW_INSPECTOR_SHARE_SCALE,    /* GtkScale, same adjustment */
+} SwInspectorField;
+
+GtkWidget *sw_inspector_get_field (SwInspector *self, SwInspectorField field);
+
+G_END_DECLS

@@ -1,0 +1,253 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+#define G_LOG_DOMAIN "sw-solver"
+
+#include "config.h"
+
+#include "sw-solver.h"
+
+/* State shared by the object and its thread.  The thread never touches the
+ * GObject: it reaches the owner only through a weak reference, and only on
+ * the owner's main context. */
+typedef struct {
+  GMutex        mutex;
+  GCond         cond;
+  gboolean      quit;
+  SwDesign     *pending;            /* newest request not yet started, or NULL */
+  guint64       pending_serial;
+  GCancellable *pending_cancellable;
+  GCancellable *running;            /* cancellable of the request being solved */
+  guint64       dropped;
+  GWeakRef      owner;
+  GMainContext *context;
+} Shared;
+
+struct _SwSolver {
+  GObject   parent_instance;
+  Shared   *shared;
+  GThread  *thread;
+  guint64   serial;                 /* last posted */
+  guint64   shown;                  /* serial of the last result emitted */
+  SwResult *result;
+};
+
+G_DEFINE_FINAL_TYPE (SwSolver, sw_solver, G_TYPE_OBJECT)
+
+enum { SOLVED, N_SIGNALS };
+static guint signals[N_SIGNALS];
+
+static void
+shared_free (gpointer data)
+{
+  Shared *sh = data;
+
+  g_mutex_clear (&sh->mutex);
+  g_cond_clear (&sh->cond);
+  sw_design_free (sh->pending);
+  g_clear_object (&sh->pending_cancellable);
+  g_clear_object (&sh->running);
+  g_weak_ref_clear (&sh->owner);
+  g_main_context_unref (sh->context);
+}
+
+static Shared *
+shared_ref (Shared *sh)
+{
+  return g_atomic_rc_box_acquire (sh);
+}
+
+static void
+shared_unref (Shared *sh)
+{
+  g_atomic_rc_box_release_full (sh, shared_free);
+}
+
+typedef struct {
+  Shared   *shared;
+  SwResult *result;
+} Delivery;
+
+static void
+delivery_free (gpointer data)
+{
+  Delivery *d = data;
+
+  shared_unref (d->shared);
+  g_clear_pointer (&d->result, sw_result_unref);
+  g_free (d);
+}
+
+/* Main loop: hand the result to the owner if it still exists and the
+ * result is newer than what it shows. */
+static gboolean
+deliver_cb (gpointer data)
+{
+  Delivery *d = data;
+  g_autoptr (SwSolver) self = g_weak_ref_get (&d->shared->owner);
+
+  if (self == NULL || d->result->serial <= self->shown)
+    return G_SOURCE_REMOVE;
+  self->shown = d->result->serial;
+  g_clear_pointer (&self->result, sw_result_unref);
+  self->result = sw_result_ref (d->result);
+  g_signal_emit (self, signals[SOLVED], 0, d->result);
+  return G_SOURCE_REMOVE;
+}
+
+static gpointer
+worker_thread (gpointer data)
+{
+  Shared *sh = data;
+
+  for (;;)
+    {
+      g_autoptr (SwDesign) design = NULL;
+      g_autoptr (GCancellable) cancellable = NULL;
+      SwResult *result;
+      guint64 serial;
+      Delivery *d;
+
+      g_mutex_lock (&sh->mutex);
+      while (!sh->quit && sh->pending == NULL)
+        g_cond_wait (&sh->cond, &sh->mutex);
+      if (sh->quit)
+        {
+          g_mutex_unlock (&sh->mutex);
+          break;
+        }
+      design = g_steal_pointer (&sh->pending);
+      serial = sh->pending_serial;
+      cancellable = g_steal_pointer (&sh->pending_cancellable);
+      g_set_object (&sh->running, cancellable);
+      g_mutex_unlock (&sh->mutex);
+
+      result = sw_result_compute (design, serial, cancellable);
+
+      g_mutex_lock (&sh->mutex);
+      g_clear_object (&sh->running);
+      g_mutex_unlock (&sh->mutex);
+
+      if (result == NULL)
+        continue;  /* abandoned for a newer request */
+
+      d = g_new0 (Delivery, 1);
+      d->shared = shared_ref (sh);
+      d->result = result;
+      g_main_context_invoke_full (sh->context, G_PRIORITY_DEFAULT, deliver_cb, d,
+                                  delivery_free);
+    }
+  shared_unref (sh);
+  return NULL;
+}
+
+guint64
+sw_solver_post (SwSolver *self, const SwDesign *design)
+{
+  Shared *sh;
+
+  g_return_val_if_fail (SW_IS_SOLVER (self), 0);
+  g_return_val_if_fail (design != NULL, 0);
+
+  sh = self->shared;
+  g_mutex_lock (&sh->mutex);
+  if (sh->pending != NULL)
+    sh->dropped++;
+  sw_design_free (sh->pending);
+  sh->pending = sw_design_copy (design);
+  sh->pending_serial = ++self->serial;
+  g_clear_object (&sh->pending_cancellable);
+  sh->pending_cancellable = g_cancellable_new ();
+  if (sh->running != NULL)
+    g_cancellable_cancel (sh->running);
+  g_cond_signal (&sh->cond);
+  g_mutex_unlock (&sh->mutex);
+  return self->serial;
+}
+
+guint64
+sw_solver_get_posted_serial (SwSolver *self)
+{
+  g_return_val_if_fail (SW_IS_SOLVER (self), 0);
+  return self->serial;
+}
+
+SwResult *
+sw_solver_get_result (SwSolver *self)
+{
+  g_return_val_if_fail (SW_IS_SOLVER (self), NULL);
+  return self->result;
+}
+
+guint64
+sw_solver_get_dropped (SwSolver *self)
+{
+  guint64 n;
+
+  g_return_val_if_fail (SW_IS_SOLVER (self), 0);
+  g_mutex_lock (&self->shared->mutex);
+  n = self->shared->dropped;
+  g_mutex_unlock (&self->shared->mutex);
+  return n;
+}
+
+SwSolver *
+sw_solver_new (void)
+{
+  return g_object_new (SW_TYPE_SOLVER, NULL);
+}
+
+static void
+sw_solver_dispose (GObject *object)
+{
+  SwSolver *self = SW_SOLVER (object);
+
+  /* Shutdown is the one place where the main thread waits for the worker. */
+  if (self->thread != NULL)
+    {
+      Shared *sh = self->shared;
+
+      g_mutex_lock (&sh->mutex);
+      sh->quit = TRUE;
+      if (sh->running != NULL)
+        g_cancellable_cancel (sh->running);
+      g_cond_signal (&sh->cond);
+      g_mutex_unlock (&sh->mutex);
+      g_thread_join (g_steal_pointer (&self->thread));
+    }
+  g_clear_pointer (&self->result, sw_result_unref);
+  G_OBJECT_CLASS (sw_solver_parent_class)->dispose (object);
+}
+
+static void
+sw_solver_finalize (GObject *object)
+{
+  SwSolver *self = SW_SOLVER (object);
+
+  g_clear_pointer (&self->shared, shared_unref);
+  G_OBJECT_CLASS (sw_solver_parent_class)->finalize (object);
+}
+
+static void
+sw_solver_class_init (SwSolverClass *klass)
+{
+  GObjectClass *object_class = G_OBJECT_CLASS (klass);
+
+  object_class->dispose = sw_solver_dispose;
+  object_class->finalize = sw_solver_finalize;
+
+  signals[SOLVED] = g_signal_new ("solved", G_TYPE_FROM_CLASS (klass), G_SIGNAL_RUN_LAST, 0,
+                                  NULL, NULL, NULL, G_TYPE_NONE, 1,
+                                  SW_TYPE_RESULT | G_SIGNAL_TYPE_STATIC_SCOPE);
+}
+
+static void
+sw_solver_init (SwSolver *self)
+{
+  Shared *sh = g_atomic_rc_box_new0 (Shared);
+
+  g_mutex_init (&sh->mutex);
+  g_cond_init (&sh->cond);
+  g_weak_ref_init (&sh->owner, self);
+  sh->context = g_main_context_ref_thread_default ();
+  self->shared = sh;
+  self->thread = g_thread_new ("sw-solver", worker_thread, shared_ref (sh));
+}

@@ -1,0 +1,30 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* sw-solver.h: the one solver thread.  Every edit posts a copy of the whole
+ * design; the worker always solves the newest request and drops superseded
+ * ones; results come back on the main loop as the "solved" signal. */
+#pragma once
+
+#include <gio/gio.h>
+
+#include "sw-design.h"
+#include "sw-result.h"
+
+G_BEGIN_DECLS
+
+#define SW_TYPE_SOLVER (sw_solver_get_type ())
+G_DECLARE_FINAL_TYPE (SwSolver, sw_solver, SW, SOLVER, GObject)
+
+SwSolver *sw_solver_new (void);
+/* Copies @design and queues it, replacing any request not yet started and
+ * cancelling the one being solved.  Returns the serial of the request. */
+guint64   sw_solver_post (SwSolver *self, const SwDesign *design);
+guint64   sw_solver_get_posted_serial (SwSolver *self);
+/* The newest result emitted, or NULL. */
+SwResult *sw_solver_get_result (SwSolver *self);
+/* Requests replaced before the worker started them, for tests and benchmarks. */
+guint64   sw_solver_get_dropped (SwSolver *self);
+
+/* Signal "solved" (SwResult *result): emitted on the main loop of the thread
+ * that created the solver, with serials strictly increasing. */
+
+G_END_DECLS

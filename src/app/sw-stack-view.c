@@ -1,0 +1,1399 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+#define G_LOG_DOMAIN "sw-stack-view"
+
+#include "config.h"
+
+#include "sw-stack-view.h"
+#include "sw-plot.h"
+
+#include <glib/gi18n.h>
+#include <math.h>
+
+/* Layout constants, in pixels. */
+#define MARGIN 12.0
+#define BLOCK_GAP 6.0          /* the separation between two blocks */
+#define UNUSED_HEIGHT 14.0
+#define LEADER_GAP 28.0        /* between the widest block and the labels */
+#define BORDER_GRAB 5.0        /* how far from a border a drag may start */
+#define MIN_HIT 10.0           /* hit area of tiny blocks */
+#define LABEL_SPACING 6.0
+
+typedef enum {
+  ITEM_STAGE,      /* sized: area proportional to mass */
+  ITEM_UNUSED,     /* the optimum gives it nothing: a thin dashed placeholder */
+  ITEM_NOMINAL,    /* not sized because another stage fails: nominal size */
+  ITEM_FAILING,    /* this stage cannot deliver its delta-v: nominal, hatched */
+  ITEM_PAYLOAD,
+} ItemKind;
+
+typedef struct {
+  ItemKind        kind;
+  int             stage;        /* firing order; -1 for the payload */
+  double          mass_kg;      /* NAN when not sized */
+  double          structure_fraction;
+  graphene_rect_t rect;
+  graphene_rect_t structure;    /* the structure band inside rect (stages) */
+  double          label_y;      /* top of the label after de-overlapping */
+  double          label_h;
+  PangoLayout    *label;
+} Item;
+
+struct _SwStackView {
+  GtkWidget  parent_instance;
+
+  SwResult  *result;
+  int        selected;
+  int        hover_border;
+
+  /* Last layout */
+  gboolean   layout_valid;
+  int        layout_width;
+  int        layout_height;
+  guint      n_items;
+  Item       items[SW_MAX_STAGES + 1];   /* bottom (first stage) to top (payload) */
+  double     px2_per_kg;                 /* block area per kilogram; 0 when not to scale */
+  double     stack_height;               /* stages only, for the drag mapping */
+  double     label_x;
+  double     stack_right;
+  PangoLayout *message;                  /* error or infeasibility text */
+  graphene_rect_t message_rect;
+  double     scale_ref_kg;
+  double     top_y;                      /* below the legend (and message) */
+  double     bottom_y;                   /* above the scale row */
+
+  /* Dragging a border */
+  int        drag_lower;
+  double     drag_stack_height;
+};
+
+enum {
+  PROP_0,
+  PROP_SELECTED_STAGE,
+  N_PROPS
+};
+
+enum {
+  STAGE_ACTIVATED,
+  SHARE_DRAGGED,
+  N_SIGNALS
+};
+
+static GParamSpec *properties[N_PROPS];
+static guint signals[N_SIGNALS];
+
+G_DEFINE_FINAL_TYPE (SwStackView, sw_stack_view, GTK_TYPE_WIDGET)
+
+/* Formatting: never a NaN on screen. */
+
+static char *
+format_mass (double kg)
+{
+  double t = kg / 1000.0;
+
+  if (!isfinite (kg))
+    return g_strdup ("—");
+  if (kg < 1000.0)
+    return g_strdup_printf (_("%.0f kg"), kg);
+  if (t < 10.0)
+    return g_strdup_printf (_("%.2f t"), t);
+  if (t < 100.0)
+    return g_strdup_printf (_("%.1f t"), t);
+  return g_strdup_printf (_("%.0f t"), t);
+}
+
+static char *
+format_speed (double m_s)
+{
+  if (!isfinite (m_s))
+    return g_strdup ("—");
+  return g_strdup_printf (_("%.0f m/s"), m_s);
+}
+
+static char *
+format_ratio (double ratio)
+{
+  if (!isfinite (ratio) || ratio <= 0.0)
+    return g_strdup ("—");
+  return g_strdup_printf ("%.3f", ratio);
+}
+
+static char *
+format_percent (double fraction)
+{
+  if (!isfinite (fraction))
+    return g_strdup ("—");
+  return g_strdup_printf (_("%.1f %%"), 100.0 * fraction);
+}
+
+static const char *
+stage_name (SwResult *r, int stage)
+{
+  if (r->design != NULL && stage >= 0 && (guint) stage < r->design->n_stages
+      && r->design->stages[stage].name[0] != '\0')
+    return r->design->stages[stage].name;
+  return NULL;
+}
+
+static char *
+stage_title_markup (SwResult *r, int stage)
+{
+  const char *name = stage_name (r, stage);
+
+  if (name != NULL)
+    return g_markup_printf_escaped ("<b>%d · %s</b>", stage + 1, name);
+  return g_markup_printf_escaped (_("<b>Stage %d</b>"), stage + 1);
+}
+
+/* Colours: the foreground of the style, the application palette, and
+ * translucent blends so the fills sit on any theme background. */
+
+static void
+get_fg (GtkWidget *widget, GdkRGBA *fg)
+{
+  G_GNUC_BEGIN_IGNORE_DEPRECATIONS
+  gtk_style_context_get_color (gtk_widget_get_style_context (widget), fg);
+  G_GNUC_END_IGNORE_DEPRECATIONS
+}
+
+static void
+set_source_alpha (cairo_t *cr, const GdkRGBA *c, double alpha)
+{
+  cairo_set_source_rgba (cr, c->red, c->green, c->blue, c->alpha * alpha);
+}
+
+typedef struct {
+  GdkRGBA fg;
+  GdkRGBA accent;      /* propellant */
+  GdkRGBA payload;
+  GdkRGBA warning;
+  GdkRGBA select;
+  double  propellant_alpha;
+  double  structure_alpha;  /* of the foreground: dark on light, light on dark */
+} Colors;
+
+static void
+get_colors (GtkWidget *widget, Colors *c)
+{
+  get_fg (widget, &c->fg);
+  sw_plot_palette_color (widget, 0, &c->accent);   /* blue */
+  sw_plot_palette_color (widget, 4, &c->payload);  /* orange */
+  sw_plot_palette_color (widget, 1, &c->warning);  /* vermillion */
+  sw_plot_palette_color (widget, 3, &c->select);   /* reddish purple */
+  c->propellant_alpha = sw_plot_style_is_dark (widget) ? 0.45 : 0.35;
+  c->structure_alpha = 0.72;
+}
+
+/* Layout */
+
+static void
+clear_layout (SwStackView *self)
+{
+  for (guint i = 0; i < G_N_ELEMENTS (self->items); i++)
+    g_clear_object (&self->items[i].label);
+  g_clear_object (&self->message);
+  self->n_items = 0;
+  self->layout_valid = FALSE;
+}
+
+static PangoLayout *
+make_label (SwStackView *self, const char *markup)
+{
+  PangoLayout *layout = gtk_widget_create_pango_layout (GTK_WIDGET (self), NULL);
+
+  pango_layout_set_markup (layout, markup, -1);
+  return layout;
+}
+
+static char *
+item_label_markup (SwStackView *self, const Item *item, gboolean compact)
+{
+  SwResult *r = self->result;
+  const SwStageResult *s;
+  g_autofree char *title = NULL;
+  g_autofree char *mass = NULL;
+  g_autofree char *dv = NULL;
+  g_autofree char *ratio = NULL;
+
+  if (item->kind == ITEM_PAYLOAD)
+    {
+      mass = format_mass (r->design->payload_kg);
+      if (compact)
+        return g_markup_printf_escaped (_("<b>Payload</b> · %s"), mass);
+      return g_markup_printf_escaped (_("<b>Payload</b>\n%s"), mass);
+    }
+
+  s = &r->sizing.stages[item->stage];
+  title = stage_title_markup (r, item->stage);
+  mass = format_mass (s->stage_mass_kg);
+  dv = format_speed (s->delta_v_m_s);
+  ratio = format_ratio (s->mass_ratio);
+
+  switch (item->kind)
+    {
+    case ITEM_UNUSED:
+      if (compact)
+        return g_strdup_printf (_("%s · unused"), title);
+      return g_strdup_printf (_("%s\nunused: no Δv at the optimum"), title);
+    case ITEM_FAILING:
+      {
+        g_autofree char *limit = format_speed (s->delta_v_limit_m_s);
+        g_autofree char *want = s->delta_v_m_s > 0.0 ? g_strdup (dv) : g_strdup ("—");
+        if (compact)
+          return g_strdup_printf (_("%s · <b>⚠ cannot deliver</b>"), title);
+        return g_strdup_printf (_("%s\n<b>⚠ cannot deliver</b> Δv %s\nlimit %s · mass —"),
+                                title, want, limit);
+      }
+    case ITEM_NOMINAL:
+      {
+        g_autofree char *want = s->delta_v_m_s > 0.0 ? g_strdup (dv) : g_strdup ("—");
+        if (compact)
+          return g_strdup_printf (_("%s · not sized"), title);
+        return g_strdup_printf (_("%s\nnot sized · Δv %s\nmass —"), title, want);
+      }
+    case ITEM_STAGE:
+    case ITEM_PAYLOAD:
+    default:
+      if (compact)
+        return g_strdup_printf (_("%s · %s · Δv %s"), title, mass, dv);
+      return g_strdup_printf (_("%s\n%s · Δv %s\nmass ratio %s"), title, mass, dv, ratio);
+    }
+}
+
+/* A round mass (1, 2 or 5 times a power of ten) whose square is about
+ * @target_px wide at the current scale. */
+static double
+scale_reference (double px2_per_kg, double target_px)
+{
+  double want = target_px * target_px / px2_per_kg;
+  double decade = pow (10.0, floor (log10 (want)));
+  static const double steps[] = { 1.0, 2.0, 5.0, 10.0 };
+  double best = decade, best_err = INFINITY;
+
+  for (guint i = 0; i < G_N_ELEMENTS (steps); i++)
+    {
+      double side = sqrt (steps[i] * decade * px2_per_kg);
+      double err = fabs (log (side / target_px));
+      if (err < best_err)
+        {
+          best_err = err;
+          best = steps[i] * decade;
+        }
+    }
+  return best;
+}
+
+static void
+place_labels (SwStackView *self, double top, double bottom)
+{
+  /* Labels want to sit level with their blocks; push apart where they
+   * overlap, first upwards from the bottom, then back down from the top. */
+  double prev_top = bottom + LABEL_SPACING;
+
+  for (guint i = 0; i < self->n_items; i++)
+    {
+      Item *it = &self->items[i];
+      double want = it->rect.origin.y + it->rect.size.height / 2.0 - it->label_h / 2.0;
+
+      it->label_y = MIN (want, prev_top - LABEL_SPACING - it->label_h);
+      prev_top = it->label_y;
+    }
+  if (self->n_items > 0 && self->items[self->n_items - 1].label_y < top)
+    {
+      double prev_bottom = top - LABEL_SPACING;
+      for (int i = (int) self->n_items - 1; i >= 0; i--)
+        {
+          Item *it = &self->items[i];
+          it->label_y = MAX (it->label_y, prev_bottom + LABEL_SPACING);
+          prev_bottom = it->label_y + it->label_h;
+        }
+    }
+}
+
+static double
+labels_height (SwStackView *self)
+{
+  double sum = 0.0;
+
+  for (guint i = 0; i < self->n_items; i++)
+    sum += self->items[i].label_h + LABEL_SPACING;
+  return sum;
+}
+
+static void
+make_labels (SwStackView *self, gboolean compact, double max_width, double *width)
+{
+  *width = 0.0;
+  for (guint i = 0; i < self->n_items; i++)
+    {
+      Item *it = &self->items[i];
+      g_autofree char *markup = item_label_markup (self, it, compact);
+      int lw, lh;
+
+      g_clear_object (&it->label);
+      it->label = make_label (self, markup);
+      pango_layout_set_ellipsize (it->label, PANGO_ELLIPSIZE_END);
+      pango_layout_set_height (it->label, -1);
+      pango_layout_get_pixel_size (it->label, &lw, &lh);
+      if (lw > max_width)
+        {
+          pango_layout_set_width (it->label, (int) (max_width * PANGO_SCALE));
+          pango_layout_get_pixel_size (it->label, &lw, &lh);
+        }
+      it->label_h = lh;
+      *width = MAX (*width, lw);
+    }
+}
+
+static void
+layout_message (SwStackView *self, const char *markup, double width)
+{
+  g_clear_object (&self->message);
+  self->message = make_label (self, markup);
+  pango_layout_set_wrap (self->message, PANGO_WRAP_WORD_CHAR);
+  pango_layout_set_width (self->message, (int) (MAX (width, 40.0) * PANGO_SCALE));
+}
+
+static double
+legend_height (SwStackView *self)
+{
+  PangoLayout *probe = gtk_widget_create_pango_layout (GTK_WIDGET (self), "Mg");
+  int h;
+
+  pango_layout_get_pixel_size (probe, NULL, &h);
+  g_object_unref (probe);
+  return h + 8.0;
+}
+
+static void
+stack_layout (SwStackView *self, int width, int height)
+{
+  SwResult *r = self->result;
+  const SwSizing *sz;
+  double legend_h, top, bottom, label_w, max_label_w, avail_w, avail_h;
+  double sum_sqrt = 0.0, max_sqrt = 0.0, fixed_h = 0.0;
+  double s, aspect, x_axis, y, max_w = 0.0;
+  gboolean to_scale;
+
+  clear_layout (self);
+  self->layout_width = width;
+  self->layout_height = height;
+  self->layout_valid = TRUE;
+  self->px2_per_kg = 0.0;
+  self->stack_height = 0.0;
+
+  if (r == NULL || width < 40 || height < 40)
+    return;
+
+  if (!r->ok)
+    {
+      g_autofree char *markup =
+        g_markup_printf_escaped (_("<b>⚠ This design cannot be solved</b>\n%s"),
+                                 r->error_message != NULL ? r->error_message : "");
+      layout_message (self, markup, width - 4 * MARGIN);
+      pango_layout_set_alignment (self->message, PANGO_ALIGN_CENTER);
+      return;
+    }
+
+  sz = &r->sizing;
+  to_scale = sz->feasible;
+  legend_h = legend_height (self);
+  top = MARGIN + legend_h;
+  bottom = height - MARGIN - (to_scale ? legend_h + 30.0 : legend_h);
+
+  if (!sz->feasible)
+    {
+      g_autofree char *markup =
+        g_markup_printf_escaped (_("<b>⚠ Not feasible.</b> %s"),
+                                 sz->reason[0] != '\0' ? sz->reason : _("No reason given."));
+      int mh;
+      layout_message (self, markup, width - 2 * MARGIN - 16.0);
+      pango_layout_get_pixel_size (self->message, NULL, &mh);
+      self->message_rect = GRAPHENE_RECT_INIT (MARGIN, top, width - 2 * MARGIN, mh + 12.0);
+      top += mh + 12.0 + 10.0;
+    }
+  self->top_y = top;
+  self->bottom_y = bottom;
+
+  /* Items, bottom to top. */
+  for (guint i = 0; i < sz->n_stages && i < SW_MAX_STAGES; i++)
+    {
+      const SwStageResult *sr = &sz->stages[i];
+      Item *it = &self->items[self->n_items++];
+
+      it->stage = (int) i;
+      it->mass_kg = sr->stage_mass_kg;
+      it->structure_fraction = sr->stage_mass_kg > 0.0
+                               ? sr->structural_mass_kg / sr->stage_mass_kg : 0.0;
+      if (!sz->feasible)
+        it->kind = sr->feasible ? ITEM_NOMINAL : ITEM_FAILING;
+      else if (sr->unused || !(sr->stage_mass_kg > 0.0))
+        it->kind = ITEM_UNUSED;
+      else
+        it->kind = ITEM_STAGE;
+    }
+  {
+    Item *it = &self->items[self->n_items++];
+    it->kind = ITEM_PAYLOAD;
+    it->stage = -1;
+    it->mass_kg = r->design->payload_kg;
+    it->structure_fraction = 0.0;
+  }
+
+  /* Labels first: their width decides the room left for the blocks. */
+  max_label_w = MAX (80.0, 0.5 * (width - 2 * MARGIN));
+  make_labels (self, FALSE, max_label_w, &label_w);
+  if (labels_height (self) > bottom - top)
+    make_labels (self, TRUE, max_label_w, &label_w);
+
+  avail_w = width - 2 * MARGIN - LEADER_GAP - label_w;
+  avail_h = bottom - top - BLOCK_GAP * (self->n_items - 1);
+  if (avail_w < 20.0 || avail_h < 20.0)
+    return;
+
+  for (guint i = 0; i < self->n_items; i++)
+    {
+      Item *it = &self->items[i];
+      if (it->kind == ITEM_UNUSED)
+        fixed_h += UNUSED_HEIGHT;
+      else if (to_scale)
+        {
+          double q = sqrt (MAX (it->mass_kg, 0.0));
+          sum_sqrt += q;
+          max_sqrt = MAX (max_sqrt, q);
+        }
+    }
+  avail_h -= fixed_h;
+
+  if (to_scale && sum_sqrt > 0.0 && avail_h > 10.0)
+    {
+      /* Side lengths sqrt(mass) with one common aspect ratio (height/width)
+       * and one common scale: every area is s^2 * mass.  The aspect ratio
+       * only decides how the stack fills the widget. */
+      aspect = CLAMP (avail_h * max_sqrt / (avail_w * sum_sqrt), 0.8, 2.5);
+      s = MIN (avail_h / (sqrt (aspect) * sum_sqrt), avail_w * sqrt (aspect) / max_sqrt);
+      self->px2_per_kg = s * s;
+      for (guint i = 0; i < self->n_items; i++)
+        {
+          Item *it = &self->items[i];
+          double q = sqrt (MAX (it->mass_kg, 0.0));
+          if (it->kind == ITEM_UNUSED)
+            continue;
+          it->rect.size.width = s * q / sqrt (aspect);
+          it->rect.size.height = s * q * sqrt (aspect);
+          max_w = MAX (max_w, it->rect.size.width);
+        }
+      self->scale_ref_kg = scale_reference (self->px2_per_kg, 36.0);
+    }
+  else
+    {
+      /* Not sized: equal nominal blocks, the payload half as wide. */
+      double n_nominal = 0.0, side;
+      for (guint i = 0; i < self->n_items; i++)
+        if (self->items[i].kind != ITEM_UNUSED)
+          n_nominal += self->items[i].kind == ITEM_PAYLOAD ? 0.5 : 1.0;
+      side = MIN (MIN (avail_h / MAX (n_nominal, 1.0), avail_w), 140.0);
+      for (guint i = 0; i < self->n_items; i++)
+        {
+          Item *it = &self->items[i];
+          double f = it->kind == ITEM_PAYLOAD ? 0.5 : 1.0;
+          if (it->kind == ITEM_UNUSED)
+            continue;
+          it->rect.size.width = side * f;
+          it->rect.size.height = side * f;
+          max_w = MAX (max_w, it->rect.size.width);
+        }
+    }
+
+  /* Unused placeholders: thin, as wide as the block below. */
+  for (guint i = 0; i < self->n_items; i++)
+    {
+      Item *it = &self->items[i];
+      if (it->kind != ITEM_UNUSED)
+        continue;
+      it->rect.size.width = i > 0 ? MAX (self->items[i - 1].rect.size.width * 0.8, 24.0)
+                                  : MAX (max_w * 0.5, 24.0);
+      it->rect.size.height = UNUSED_HEIGHT;
+      max_w = MAX (max_w, it->rect.size.width);
+    }
+
+  /* Centre the group (stack + labels) horizontally; stand it on the bottom. */
+  {
+    double group = max_w + LEADER_GAP + label_w;
+    double x0 = MAX (MARGIN, (width - group) / 2.0);
+    x_axis = x0 + max_w / 2.0;
+    self->stack_right = x0 + max_w;
+    self->label_x = self->stack_right + LEADER_GAP;
+  }
+  y = bottom;
+  for (guint i = 0; i < self->n_items; i++)
+    {
+      Item *it = &self->items[i];
+      y -= it->rect.size.height;
+      it->rect.origin.x = x_axis - it->rect.size.width / 2.0;
+      it->rect.origin.y = y;
+      if (it->kind == ITEM_STAGE)
+        {
+          double hs = it->rect.size.height * it->structure_fraction;
+          it->structure = GRAPHENE_RECT_INIT (it->rect.origin.x,
+                                              it->rect.origin.y + it->rect.size.height - hs,
+                                              it->rect.size.width, hs);
+        }
+      if (it->kind != ITEM_PAYLOAD)
+        self->stack_height = bottom - y;
+      y -= BLOCK_GAP;
+    }
+
+  place_labels (self, top, bottom);
+}
+
+static void
+ensure_layout (SwStackView *self)
+{
+  int w = gtk_widget_get_width (GTK_WIDGET (self));
+  int h = gtk_widget_get_height (GTK_WIDGET (self));
+
+  if (!self->layout_valid || w != self->layout_width || h != self->layout_height)
+    stack_layout (self, w, h);
+}
+
+static void
+invalidate (SwStackView *self)
+{
+  self->layout_valid = FALSE;
+  gtk_widget_queue_draw (GTK_WIDGET (self));
+}
+
+/* Hit testing */
+
+static int
+item_at (SwStackView *self, double x, double y)
+{
+  ensure_layout (self);
+  for (guint i = 0; i < self->n_items; i++)
+    {
+      const graphene_rect_t *rc = &self->items[i].rect;
+      double grow_y = MAX (0.0, (MIN_HIT - rc->size.height) / 2.0);
+      double grow_x = MAX (0.0, (MIN_HIT - rc->size.width) / 2.0);
+
+      if (rc->size.width <= 0.0)
+        continue;
+      if (x >= rc->origin.x - grow_x && x <= rc->origin.x + rc->size.width + grow_x
+          && y >= rc->origin.y - grow_y && y <= rc->origin.y + rc->size.height + grow_y)
+        return (int) i;
+      /* The label counts as the block too. */
+      if (self->items[i].label != NULL && x >= self->label_x
+          && y >= self->items[i].label_y && y <= self->items[i].label_y + self->items[i].label_h)
+        return (int) i;
+    }
+  return -1;
+}
+
+/* The border below item @lower + 1; returns the lower stage index or -1. */
+static int
+border_at (SwStackView *self, double x, double y)
+{
+  ensure_layout (self);
+  if (self->result == NULL || !self->result->ok)
+    return -1;
+  for (guint i = 0; i + 1 < self->n_items; i++)
+    {
+      const Item *lo = &self->items[i];
+      const Item *up = &self->items[i + 1];
+      double y_lo = lo->rect.origin.y;
+      double y_up = up->rect.origin.y + up->rect.size.height;
+      double half_w = MAX (lo->rect.size.width, up->rect.size.width) / 2.0;
+      double cx = lo->rect.origin.x + lo->rect.size.width / 2.0;
+      /* The gap, and a little into each block unless the block is thin. */
+      double grab_up = MIN (BORDER_GRAB, up->rect.size.height / 4.0);
+      double grab_lo = MIN (BORDER_GRAB, lo->rect.size.height / 4.0);
+
+      if (up->kind == ITEM_PAYLOAD)
+        break;
+      if (y >= y_up - grab_up && y <= y_lo + grab_lo && fabs (x - cx) <= half_w + BORDER_GRAB)
+        return lo->stage;
+    }
+  return -1;
+}
+
+/* Drawing */
+
+static void
+rect_path (cairo_t *cr, const graphene_rect_t *rc)
+{
+  cairo_rectangle (cr, rc->origin.x, rc->origin.y, rc->size.width, rc->size.height);
+}
+
+static void
+hatch (cairo_t *cr, const graphene_rect_t *rc, double spacing, double line_width)
+{
+  double x0 = rc->origin.x, y0 = rc->origin.y;
+  double w = rc->size.width, h = rc->size.height;
+
+  cairo_save (cr);
+  rect_path (cr, rc);
+  cairo_clip (cr);
+  cairo_set_line_width (cr, line_width);
+  for (double d = -h; d < w; d += spacing)
+    {
+      cairo_move_to (cr, x0 + d, y0 + h);
+      cairo_line_to (cr, x0 + d + h, y0);
+    }
+  cairo_stroke (cr);
+  cairo_restore (cr);
+}
+
+static void
+draw_text (cairo_t *cr, PangoLayout *layout, double x, double y)
+{
+  cairo_move_to (cr, x, y);
+  pango_cairo_show_layout (cr, layout);
+}
+
+static void
+draw_simple_text (SwStackView *self, cairo_t *cr, const char *markup, double x, double y,
+                  double *w_out)
+{
+  PangoLayout *layout = make_label (self, markup);
+  int w;
+
+  pango_layout_get_pixel_size (layout, &w, NULL);
+  draw_text (cr, layout, x, y);
+  if (w_out != NULL)
+    *w_out = w;
+  g_object_unref (layout);
+}
+
+static double
+legend_swatch (SwStackView *self, cairo_t *cr, double x, double y, double h,
+               const GdkRGBA *fill, double alpha, gboolean hatched, const Colors *c,
+               const char *text)
+{
+  graphene_rect_t sw = GRAPHENE_RECT_INIT (x, y + 2.0, h - 4.0, h - 4.0);
+  double tw;
+
+  set_source_alpha (cr, fill, alpha);
+  rect_path (cr, &sw);
+  cairo_fill (cr);
+  if (hatched)
+    {
+      set_source_alpha (cr, &c->warning, 1.0);
+      hatch (cr, &sw, 5.0, 1.5);
+    }
+  set_source_alpha (cr, &c->fg, 1.0);
+  draw_simple_text (self, cr, text, x + h, y + 0.0, &tw);
+  return x + h + tw + 16.0;
+}
+
+static void
+draw_legend (SwStackView *self, cairo_t *cr, const Colors *c)
+{
+  double h = legend_height (self) - 8.0;
+  double x = MARGIN, y = MARGIN;
+
+  if (self->result->sizing.feasible)
+    {
+      x = legend_swatch (self, cr, x, y, h, &c->accent, c->propellant_alpha, FALSE, c,
+                         _("Propellant"));
+      x = legend_swatch (self, cr, x, y, h, &c->fg, c->structure_alpha, FALSE, c,
+                         _("Structure"));
+      legend_swatch (self, cr, x, y, h, &c->payload, 0.75, FALSE, c, _("Payload"));
+    }
+  else
+    {
+      x = legend_swatch (self, cr, x, y, h, &c->warning, 0.15, TRUE, c, _("Cannot deliver"));
+      x = legend_swatch (self, cr, x, y, h, &c->fg, 0.08, FALSE, c, _("Not sized"));
+      legend_swatch (self, cr, x, y, h, &c->payload, 0.75, FALSE, c, _("Payload"));
+    }
+}
+
+static void
+draw_scale (SwStackView *self, cairo_t *cr, const Colors *c, int width, int height)
+{
+  double side = sqrt (self->scale_ref_kg * self->px2_per_kg);
+  double base = height - MARGIN;
+  g_autofree char *ref = format_mass (self->scale_ref_kg);
+  g_autofree char *liftoff = format_mass (self->result->sizing.liftoff_mass_kg);
+  g_autofree char *pf = format_percent (self->result->sizing.payload_fraction);
+  g_autofree char *scale_text = NULL;
+  g_autofree char *total_text = NULL;
+  PangoLayout *layout;
+  int tw, th;
+  double x;
+
+  /* The scale: a square of known mass, since areas, not lengths, carry mass. */
+  scale_text = g_markup_printf_escaped (_("Square = %s\n(block area ∝ mass)"), ref);
+  layout = make_label (self, scale_text);
+  pango_layout_get_pixel_size (layout, &tw, &th);
+  x = width - MARGIN - tw - 8.0 - side;
+  set_source_alpha (cr, &c->fg, 0.18);
+  cairo_rectangle (cr, x, base - side, side, side);
+  cairo_fill_preserve (cr);
+  set_source_alpha (cr, &c->fg, 0.9);
+  cairo_set_line_width (cr, 1.0);
+  cairo_stroke (cr);
+  draw_text (cr, layout, x + side + 8.0, base - side / 2.0 - th / 2.0);
+  g_object_unref (layout);
+
+  total_text = g_markup_printf_escaped (_("Liftoff <b>%s</b>\npayload fraction %s"),
+                                        liftoff, pf);
+  layout = make_label (self, total_text);
+  pango_layout_get_pixel_size (layout, &tw, &th);
+  if (MARGIN + tw < x - 8.0)
+    draw_text (cr, layout, MARGIN, base - th);
+  g_object_unref (layout);
+}
+
+static void
+draw_item (SwStackView *self, cairo_t *cr, const Item *it, const Colors *c)
+{
+  const graphene_rect_t *rc = &it->rect;
+
+  switch (it->kind)
+    {
+    case ITEM_STAGE:
+      {
+        graphene_rect_t prop = *rc;
+        prop.size.height -= it->structure.size.height;
+        set_source_alpha (cr, &c->accent, c->propellant_alpha);
+        rect_path (cr, &prop);
+        cairo_fill (cr);
+        set_source_alpha (cr, &c->fg, c->structure_alpha);
+        rect_path (cr, &it->structure);
+        cairo_fill (cr);
+      }
+      break;
+
+    case ITEM_PAYLOAD:
+      set_source_alpha (cr, &c->payload, 0.75);
+      rect_path (cr, rc);
+      cairo_fill (cr);
+      break;
+
+    case ITEM_UNUSED:
+      {
+        static const double dash[] = { 4.0, 3.0 };
+        cairo_save (cr);
+        cairo_set_dash (cr, dash, 2, 0.0);
+        cairo_set_line_width (cr, 1.0);
+        set_source_alpha (cr, &c->fg, 0.6);
+        cairo_rectangle (cr, rc->origin.x + 0.5, rc->origin.y + 0.5,
+                         rc->size.width - 1.0, rc->size.height - 1.0);
+        cairo_stroke (cr);
+        cairo_restore (cr);
+      }
+      break;
+
+    case ITEM_FAILING:
+      {
+        PangoLayout *mark = make_label (self, "<span size='xx-large' weight='bold'>⚠</span>");
+        int mw, mh;
+        set_source_alpha (cr, &c->warning, 0.12);
+        rect_path (cr, rc);
+        cairo_fill (cr);
+        set_source_alpha (cr, &c->warning, 0.9);
+        hatch (cr, rc, 9.0, 2.5);
+        cairo_set_line_width (cr, 3.0);
+        cairo_rectangle (cr, rc->origin.x + 1.5, rc->origin.y + 1.5,
+                         rc->size.width - 3.0, rc->size.height - 3.0);
+        cairo_stroke (cr);
+        pango_layout_get_pixel_size (mark, &mw, &mh);
+        /* The mark on a plate so the stripes do not eat it. */
+        cairo_save (cr);
+        cairo_arc (cr, rc->origin.x + rc->size.width / 2.0, rc->origin.y + rc->size.height / 2.0,
+                   MAX (mw, mh) * 0.75, 0, 2 * G_PI);
+        cairo_set_source_rgba (cr, c->warning.red, c->warning.green, c->warning.blue, 1.0);
+        cairo_fill (cr);
+        cairo_restore (cr);
+        cairo_set_source_rgb (cr, 1.0, 1.0, 1.0);
+        draw_text (cr, mark, rc->origin.x + (rc->size.width - mw) / 2.0,
+                   rc->origin.y + (rc->size.height - mh) / 2.0);
+        g_object_unref (mark);
+      }
+      break;
+
+    case ITEM_NOMINAL:
+    default:
+      {
+        static const double dash[] = { 6.0, 4.0 };
+        set_source_alpha (cr, &c->fg, 0.08);
+        rect_path (cr, rc);
+        cairo_fill (cr);
+        cairo_save (cr);
+        cairo_set_dash (cr, dash, 2, 0.0);
+        cairo_set_line_width (cr, 1.5);
+        set_source_alpha (cr, &c->fg, 0.6);
+        cairo_rectangle (cr, rc->origin.x + 0.75, rc->origin.y + 0.75,
+                         rc->size.width - 1.5, rc->size.height - 1.5);
+        cairo_stroke (cr);
+        cairo_restore (cr);
+      }
+      break;
+    }
+}
+
+static void
+draw_label (SwStackView *self, cairo_t *cr, const Item *it, const Colors *c)
+{
+  const graphene_rect_t *rc = &it->rect;
+  double by = rc->origin.y + rc->size.height / 2.0;
+  double ly = it->label_y + it->label_h / 2.0;
+
+  /* Leader: level with the block until past the widest block, then to the label. */
+  set_source_alpha (cr, &c->fg, 0.45);
+  cairo_set_line_width (cr, 1.0);
+  cairo_move_to (cr, rc->origin.x + rc->size.width + 4.0, by);
+  cairo_line_to (cr, self->stack_right + 8.0, by);
+  cairo_line_to (cr, self->label_x - 4.0, ly);
+  cairo_stroke (cr);
+
+  if (it->kind == ITEM_FAILING)
+    set_source_alpha (cr, &c->warning, 1.0);
+  else
+    set_source_alpha (cr, &c->fg, it->kind == ITEM_UNUSED ? 0.7 : 1.0);
+  draw_text (cr, it->label, self->label_x, it->label_y);
+}
+
+static void
+draw_selection (SwStackView *self, cairo_t *cr, const Item *it, const Colors *c)
+{
+  const graphene_rect_t *rc = &it->rect;
+
+  set_source_alpha (cr, &c->select, 1.0);
+  cairo_set_line_width (cr, 2.0);
+  cairo_rectangle (cr, rc->origin.x - 4.0, rc->origin.y - 4.0,
+                   rc->size.width + 8.0, rc->size.height + 8.0);
+  cairo_stroke (cr);
+  /* A bar beside the label as well, so the selection does not rest on colour. */
+  cairo_rectangle (cr, self->label_x - 10.0, it->label_y, 4.0, it->label_h);
+  cairo_fill (cr);
+}
+
+static void
+sw_stack_view_snapshot (GtkWidget *widget, GtkSnapshot *snapshot)
+{
+  SwStackView *self = SW_STACK_VIEW (widget);
+  int width = gtk_widget_get_width (widget);
+  int height = gtk_widget_get_height (widget);
+  cairo_t *cr;
+  Colors c;
+
+  if (width <= 0 || height <= 0)
+    return;
+  ensure_layout (self);
+  get_colors (widget, &c);
+  cr = gtk_snapshot_append_cairo (snapshot, &GRAPHENE_RECT_INIT (0, 0, width, height));
+
+  if (self->result == NULL)
+    goto out;
+
+  if (!self->result->ok)
+    {
+      int mw, mh;
+      if (self->message != NULL)
+        {
+          pango_layout_get_pixel_size (self->message, &mw, &mh);
+          set_source_alpha (cr, &c.warning, 1.0);
+          draw_text (cr, self->message, (width - pango_layout_get_width (self->message)
+                                         / (double) PANGO_SCALE) / 2.0, (height - mh) / 2.0);
+        }
+      goto out;
+    }
+
+  draw_legend (self, cr, &c);
+
+  if (self->message != NULL)
+    {
+      const graphene_rect_t *m = &self->message_rect;
+      set_source_alpha (cr, &c.warning, 0.10);
+      rect_path (cr, m);
+      cairo_fill (cr);
+      set_source_alpha (cr, &c.warning, 1.0);
+      cairo_set_line_width (cr, 2.0);
+      cairo_rectangle (cr, m->origin.x + 1.0, m->origin.y + 1.0,
+                       m->size.width - 2.0, m->size.height - 2.0);
+      cairo_stroke (cr);
+      set_source_alpha (cr, &c.fg, 1.0);
+      draw_text (cr, self->message, m->origin.x + 8.0, m->origin.y + 6.0);
+    }
+
+  /* Hook for the baseline comparison (a later issue): draw the blocks of
+   * result->design->baseline here, as outlines on the same px2_per_kg, before
+   * the current blocks.  The result does not carry the baseline's sizing yet. */
+
+  for (guint i = 0; i < self->n_items; i++)
+    if (self->items[i].rect.size.width > 0.0)
+      draw_item (self, cr, &self->items[i], &c);
+  for (guint i = 0; i < self->n_items; i++)
+    if (self->items[i].label != NULL && self->items[i].rect.size.width > 0.0)
+      draw_label (self, cr, &self->items[i], &c);
+
+  for (guint i = 0; i < self->n_items; i++)
+    if (self->items[i].stage >= 0 && self->items[i].stage == self->selected)
+      draw_selection (self, cr, &self->items[i], &c);
+
+  if (self->hover_border >= 0 || self->drag_lower >= 0)
+    {
+      int b = self->drag_lower >= 0 ? self->drag_lower : self->hover_border;
+      for (guint i = 0; i + 1 < self->n_items; i++)
+        if (self->items[i].stage == b)
+          {
+            const Item *lo = &self->items[i], *up = &self->items[i + 1];
+            double y = (lo->rect.origin.y + up->rect.origin.y + up->rect.size.height) / 2.0;
+            double hw = MAX (lo->rect.size.width, up->rect.size.width) / 2.0 + 6.0;
+            double cx = lo->rect.origin.x + lo->rect.size.width / 2.0;
+            set_source_alpha (cr, &c.select, 1.0);
+            cairo_set_line_width (cr, 3.0);
+            cairo_move_to (cr, cx - hw, y);
+            cairo_line_to (cr, cx + hw, y);
+            cairo_stroke (cr);
+          }
+    }
+
+  if (self->px2_per_kg > 0.0)
+    draw_scale (self, cr, &c, width, height);
+  else
+    {
+      set_source_alpha (cr, &c.fg, 0.8);
+      draw_simple_text (self, cr, _("Not to scale: no masses while the vehicle is infeasible"),
+                        MARGIN, height - MARGIN - legend_height (self) + 8.0, NULL);
+    }
+
+out:
+  cairo_destroy (cr);
+}
+
+static void
+sw_stack_view_measure (GtkWidget *widget, GtkOrientation orientation, int for_size,
+                       int *minimum, int *natural, int *minimum_baseline, int *natural_baseline)
+{
+  if (orientation == GTK_ORIENTATION_HORIZONTAL)
+    {
+      *minimum = 240;
+      *natural = 420;
+    }
+  else
+    {
+      *minimum = 280;
+      *natural = 560;
+    }
+}
+
+static void
+sw_stack_view_size_allocate (GtkWidget *widget, int width, int height, int baseline)
+{
+  SW_STACK_VIEW (widget)->layout_valid = FALSE;
+}
+
+static void
+sw_stack_view_css_changed (GtkWidget *widget, GtkCssStyleChange *change)
+{
+  GTK_WIDGET_CLASS (sw_stack_view_parent_class)->css_changed (widget, change);
+  invalidate (SW_STACK_VIEW (widget));
+}
+
+/* Tooltip */
+
+static gboolean
+query_tooltip_cb (SwStackView *self, int x, int y, gboolean keyboard, GtkTooltip *tooltip)
+{
+  SwResult *r = self->result;
+  const Item *it;
+  const SwStageResult *s;
+  g_autofree char *title = NULL;
+  g_autofree char *mass = NULL, *prop = NULL, *struc = NULL, *dv = NULL, *share = NULL;
+  g_autofree char *ratio = NULL, *m0 = NULL, *mb = NULL, *limit = NULL, *markup = NULL;
+  int index;
+
+  if (r == NULL || !r->ok)
+    return FALSE;
+  if (keyboard)
+    {
+      index = -1;
+      for (guint i = 0; i < self->n_items; i++)
+        if (self->items[i].stage >= 0 && self->items[i].stage == self->selected)
+          index = (int) i;
+    }
+  else
+    index = item_at (self, x, y);
+  if (index < 0)
+    return FALSE;
+  it = &self->items[index];
+
+  if (it->kind == ITEM_PAYLOAD)
+    {
+      mass = format_mass (r->design->payload_kg);
+      markup = g_markup_printf_escaped (_("<b>Payload</b>\n%s"), mass);
+      gtk_tooltip_set_markup (tooltip, markup);
+      return TRUE;
+    }
+
+  s = &r->sizing.stages[it->stage];
+  title = stage_title_markup (r, it->stage);
+  mass = format_mass (s->stage_mass_kg);
+  prop = format_mass (s->propellant_mass_kg);
+  struc = format_mass (s->structural_mass_kg);
+  dv = format_speed (s->delta_v_m_s);
+  share = format_percent (s->delta_v_share);
+  ratio = format_ratio (s->mass_ratio);
+  m0 = format_mass (s->initial_mass_kg);
+  mb = format_mass (s->burnout_mass_kg);
+  limit = format_speed (s->delta_v_limit_m_s);
+  markup = g_strdup_printf (_("%s\n"
+                              "Stage mass: %s (propellant %s, structure %s)\n"
+                              "Δv: %s (%s of the total), limit %s\n"
+                              "Mass ratio: %s\n"
+                              "Mass at ignition: %s, at burnout: %s%s%s"),
+                            title, mass, prop, struc, dv, share, limit, ratio, m0, mb,
+                            it->kind == ITEM_FAILING ? _("\n<b>⚠ Cannot deliver its Δv</b>") : "",
+                            it->kind == ITEM_UNUSED ? _("\nUnused: no Δv at the optimum") : "");
+  gtk_tooltip_set_markup (tooltip, markup);
+  return TRUE;
+}
+
+/* Input */
+
+static void
+click_pressed_cb (GtkGestureClick *gesture, int n_press, double x, double y, SwStackView *self)
+{
+  int index = item_at (self, x, y);
+
+  gtk_widget_grab_focus (GTK_WIDGET (self));
+  if (index < 0 || self->items[index].stage < 0 || border_at (self, x, y) >= 0)
+    return;
+  sw_stack_view_set_selected (self, self->items[index].stage);
+  g_signal_emit (self, signals[STAGE_ACTIVATED], 0, self->items[index].stage);
+}
+
+static void
+drag_begin_cb (GtkGestureDrag *gesture, double x, double y, SwStackView *self)
+{
+  int lower = border_at (self, x, y);
+
+  if (lower < 0 || self->stack_height <= 0.0)
+    {
+      gtk_gesture_set_state (GTK_GESTURE (gesture), GTK_EVENT_SEQUENCE_DENIED);
+      return;
+    }
+  gtk_gesture_set_state (GTK_GESTURE (gesture), GTK_EVENT_SEQUENCE_CLAIMED);
+  self->drag_lower = lower;
+  /* The whole stack height stands for the whole delta-v. */
+  self->drag_stack_height = self->stack_height;
+  gtk_widget_queue_draw (GTK_WIDGET (self));
+}
+
+static void
+drag_update_cb (GtkGestureDrag *gesture, double dx, double dy, SwStackView *self)
+{
+  if (self->drag_lower < 0)
+    return;
+  /* Up (negative dy) grows the lower stage: share moves from upper to lower. */
+  g_signal_emit (self, signals[SHARE_DRAGGED], 0, self->drag_lower, self->drag_lower + 1,
+                 -dy / self->drag_stack_height, FALSE);
+}
+
+static void
+drag_end_cb (GtkGestureDrag *gesture, double dx, double dy, SwStackView *self)
+{
+  int lower = self->drag_lower;
+
+  if (lower < 0)
+    return;
+  self->drag_lower = -1;
+  g_signal_emit (self, signals[SHARE_DRAGGED], 0, lower, lower + 1,
+                 -dy / self->drag_stack_height, TRUE);
+  gtk_widget_queue_draw (GTK_WIDGET (self));
+}
+
+static void
+motion_cb (GtkEventControllerMotion *motion, double x, double y, SwStackView *self)
+{
+  int border = border_at (self, x, y);
+
+  if (border != self->hover_border)
+    {
+      self->hover_border = border;
+      gtk_widget_queue_draw (GTK_WIDGET (self));
+    }
+  if (border >= 0 || self->drag_lower >= 0)
+    gtk_widget_set_cursor_from_name (GTK_WIDGET (self), "ns-resize");
+  else if (item_at (self, x, y) >= 0)
+    gtk_widget_set_cursor_from_name (GTK_WIDGET (self), "pointer");
+  else
+    gtk_widget_set_cursor (GTK_WIDGET (self), NULL);
+}
+
+static void
+leave_cb (GtkEventControllerMotion *motion, SwStackView *self)
+{
+  if (self->hover_border >= 0)
+    {
+      self->hover_border = -1;
+      gtk_widget_queue_draw (GTK_WIDGET (self));
+    }
+}
+
+static gboolean
+key_pressed_cb (GtkEventControllerKey *key, guint keyval, guint keycode, GdkModifierType state,
+                SwStackView *self)
+{
+  int n, next;
+
+  if (self->result == NULL || !self->result->ok)
+    return FALSE;
+  n = (int) self->result->sizing.n_stages;
+  if (keyval == GDK_KEY_Up || keyval == GDK_KEY_KP_Up)
+    next = self->selected < 0 ? 0 : MIN (self->selected + 1, n - 1);
+  else if (keyval == GDK_KEY_Down || keyval == GDK_KEY_KP_Down)
+    next = self->selected < 0 ? 0 : MAX (self->selected - 1, 0);
+  else
+    return FALSE;
+  if (n <= 0)
+    return FALSE;
+  sw_stack_view_set_selected (self, next);
+  g_signal_emit (self, signals[STAGE_ACTIVATED], 0, next);
+  return TRUE;
+}
+
+/* GObject */
+
+static void
+sw_stack_view_dispose (GObject *object)
+{
+  SwStackView *self = SW_STACK_VIEW (object);
+
+  clear_layout (self);
+  g_clear_pointer (&self->result, sw_result_unref);
+  G_OBJECT_CLASS (sw_stack_view_parent_class)->dispose (object);
+}
+
+static void
+sw_stack_view_get_property (GObject *object, guint prop_id, GValue *value, GParamSpec *pspec)
+{
+  SwStackView *self = SW_STACK_VIEW (object);
+
+  switch (prop_id)
+    {
+    case PROP_SELECTED_STAGE:
+      g_value_set_int (value, self->selected);
+      break;
+    default:
+      G_OBJECT_WARN_INVALID_PROPERTY_ID (object, prop_id, pspec);
+    }
+}
+
+static void
+sw_stack_view_set_property (GObject *object, guint prop_id, const GValue *value,
+                            GParamSpec *pspec)
+{
+  SwStackView *self = SW_STACK_VIEW (object);
+
+  switch (prop_id)
+    {
+    case PROP_SELECTED_STAGE:
+      sw_stack_view_set_selected (self, g_value_get_int (value));
+      break;
+    default:
+      G_OBJECT_WARN_INVALID_PROPERTY_ID (object, prop_id, pspec);
+    }
+}
+
+static void
+sw_stack_view_class_init (SwStackViewClass *klass)
+{
+  GObjectClass *object_class = G_OBJECT_CLASS (klass);
+  GtkWidgetClass *widget_class = GTK_WIDGET_CLASS (klass);
+
+  object_class->dispose = sw_stack_view_dispose;
+  object_class->get_property = sw_stack_view_get_property;
+  object_class->set_property = sw_stack_view_set_property;
+  widget_class->snapshot = sw_stack_view_snapshot;
+  widget_class->measure = sw_stack_view_measure;
+  widget_class->size_allocate = sw_stack_view_size_allocate;
+  widget_class->css_changed = sw_stack_view_css_changed;
+
+  properties[PROP_SELECTED_STAGE] =
+    g_param_spec_int ("selected-stage", NULL, NULL, -1, SW_MAX_STAGES - 1, -1,
+                      G_PARAM_READWRITE | G_PARAM_EXPLICIT_NOTIFY | G_PARAM_STATIC_STRINGS);
+  g_object_class_install_properties (object_class, N_PROPS, properties);
+
+  signals[STAGE_ACTIVATED] =
+    g_signal_new ("stage-activated", G_TYPE_FROM_CLASS (klass), G_SIGNAL_RUN_LAST,
+                  0, NULL, NULL, NULL, G_TYPE_NONE, 1, G_TYPE_INT);
+  signals[SHARE_DRAGGED] =
+    g_signal_new ("share-dragged", G_TYPE_FROM_CLASS (klass), G_SIGNAL_RUN_LAST,
+                  0, NULL, NULL, NULL, G_TYPE_NONE, 4,
+                  G_TYPE_INT, G_TYPE_INT, G_TYPE_DOUBLE, G_TYPE_BOOLEAN);
+
+  gtk_widget_class_set_css_name (widget_class, "stackview");
+  gtk_widget_class_set_accessible_role (widget_class, GTK_ACCESSIBLE_ROLE_IMG);
+}
+
+static void
+sw_stack_view_init (SwStackView *self)
+{
+  GtkWidget *widget = GTK_WIDGET (self);
+  GtkGesture *click = gtk_gesture_click_new ();
+  GtkGesture *drag = gtk_gesture_drag_new ();
+  GtkEventController *motion = gtk_event_controller_motion_new ();
+  GtkEventController *key = gtk_event_controller_key_new ();
+
+  self->selected = -1;
+  self->hover_border = -1;
+  self->drag_lower = -1;
+
+  gtk_gesture_single_set_button (GTK_GESTURE_SINGLE (click), GDK_BUTTON_PRIMARY);
+  g_signal_connect (click, "pressed", G_CALLBACK (click_pressed_cb), self);
+  gtk_widget_add_controller (widget, GTK_EVENT_CONTROLLER (click));
+
+  gtk_gesture_single_set_button (GTK_GESTURE_SINGLE (drag), GDK_BUTTON_PRIMARY);
+  g_signal_connect (drag, "drag-begin", G_CALLBACK (drag_begin_cb), self);
+  g_signal_connect (drag, "drag-update", G_CALLBACK (drag_update_cb), self);
+  g_signal_connect (drag, "drag-end", G_CALLBACK (drag_end_cb), self);
+  gtk_widget_add_controller (widget, GTK_EVENT_CONTROLLER (drag));
+
+  g_signal_connect (motion, "motion", G_CALLBACK (motion_cb), self);
+  g_signal_connect (motion, "leave", G_CALLBACK (leave_cb), self);
+  gtk_widget_add_controller (widget, motion);
+
+  g_signal_connect (key, "key-pressed", G_CALLBACK (key_pressed_cb), self);
+  gtk_widget_add_controller (widget, key);
+
+  gtk_widget_set_focusable (widget, TRUE);
+  gtk_widget_set_has_tooltip (widget, TRUE);
+  g_signal_connect_swapped (widget, "query-tooltip", G_CALLBACK (query_tooltip_cb), self);
+}
+
+/* Public API */
+
+GtkWidget *
+sw_stack_view_new (void)
+{
+  return g_object_new (SW_TYPE_STACK_VIEW, NULL);
+}
+
+static void
+update_accessible (SwStackView *self)
+{
+  SwResult *r = self->result;
+  g_autofree char *text = NULL;
+
+  if (r == NULL)
+    text = g_strdup (_("Stage stack: no design"));
+  else if (!r->ok)
+    text = g_strdup_printf (_("Stage stack: the design cannot be solved. %s"),
+                            r->error_message != NULL ? r->error_message : "");
+  else if (!r->sizing.feasible)
+    text = g_strdup_printf (_("Stage stack: not feasible. %s"), r->sizing.reason);
+  else
+    {
+      g_autofree char *m = format_mass (r->sizing.liftoff_mass_kg);
+      text = g_strdup_printf (_("Stage stack: %u stages, liftoff mass %s"),
+                              r->sizing.n_stages, m);
+    }
+  gtk_accessible_update_property (GTK_ACCESSIBLE (self), GTK_ACCESSIBLE_PROPERTY_LABEL, text, -1);
+}
+
+void
+sw_stack_view_set_result (SwStackView *self, SwResult *result)
+{
+  g_return_if_fail (SW_IS_STACK_VIEW (self));
+
+  if (result == self->result)
+    return;
+  if (result != NULL)
+    sw_result_ref (result);
+  g_clear_pointer (&self->result, sw_result_unref);
+  self->result = result;
+  if (self->selected >= 0 && (result == NULL || !result->ok
+                              || (guint) self->selected >= result->sizing.n_stages))
+    sw_stack_view_set_selected (self, -1);
+  update_accessible (self);
+  invalidate (self);
+}
+
+SwResult *
+sw_stack_view_get_result (SwStackView *self)
+{
+  g_return_val_if_fail (SW_IS_STACK_VIEW (self), NULL);
+  return self->result;
+}
+
+void
+sw_stack_view_set_selected (SwStackView *self, int stage)
+{
+  g_return_if_fail (SW_IS_STACK_VIEW (self));
+
+  stage = CLAMP (stage, -1, SW_MAX_STAGES - 1);
+  if (stage == self->selected)
+    return;
+  self->selected = stage;
+  g_object_notify_by_pspec (G_OBJECT (self), properties[PROP_SELECTED_STAGE]);
+  gtk_widget_queue_draw (GTK_WIDGET (self));
+}
+
+int
+sw_stack_view_get_selected (SwStackView *self)
+{
+  g_return_val_if_fail (SW_IS_STACK_VIEW (self), -1);
+  return self->selected;
+}
+
+static const Item *
+find_item (SwStackView *self, int stage)
+{
+  ensure_layout (self);
+  for (guint i = 0; i < self->n_items; i++)
+    if (self->items[i].stage == stage && self->items[i].rect.size.width > 0.0)
+      return &self->items[i];
+  return NULL;
+}
+
+gboolean
+sw_stack_view_get_block_rect (SwStackView *self, guint index, graphene_rect_t *rect)
+{
+  const Item *it;
+
+  g_return_val_if_fail (SW_IS_STACK_VIEW (self), FALSE);
+  it = find_item (self, (int) index);
+  if (it == NULL)
+    return FALSE;
+  if (rect != NULL)
+    *rect = it->rect;
+  return TRUE;
+}
+
+gboolean
+sw_stack_view_get_payload_rect (SwStackView *self, graphene_rect_t *rect)
+{
+  const Item *it;
+
+  g_return_val_if_fail (SW_IS_STACK_VIEW (self), FALSE);
+  it = find_item (self, -1);
+  if (it == NULL)
+    return FALSE;
+  if (rect != NULL)
+    *rect = it->rect;
+  return TRUE;
+}
+
+gboolean
+sw_stack_view_get_structure_rect (SwStackView *self, guint index, graphene_rect_t *rect)
+{
+  const Item *it;
+
+  g_return_val_if_fail (SW_IS_STACK_VIEW (self), FALSE);
+  it = find_item (self, (int) index);
+  if (it == NULL || it->kind != ITEM_STAGE)
+    return FALSE;
+  if (rect != NULL)
+    *rect = it->structure;
+  return TRUE;
+}
+
+double
+sw_stack_view_get_area_scale (SwStackView *self)
+{
+  g_return_val_if_fail (SW_IS_STACK_VIEW (self), 0.0);
+  ensure_layout (self);
+  return self->px2_per_kg;
+}

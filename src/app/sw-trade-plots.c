@@ -1,0 +1,127 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+#define G_LOG_DOMAIN "sw-trade-plots"
+
+#include "config.h"
+
+#include "sw-trade-plots.h"
+
+#include <glib/gi18n.h>
+#include <math.h>
+
+gboolean
+sw_trade_plots_current_point (SwResult *r, guint which, double *x, double *y)
+{
+  if (r == NULL || !r->ok || !r->sizing.feasible || !isfinite (r->sizing.liftoff_mass_kg))
+    return FALSE;
+  *x = which == 0 ? (double) r->sizing.n_stages : r->delta_v_m_s;
+  *y = r->sizing.liftoff_mass_kg;
+  return TRUE;
+}
+
+static void
+setup_mass_axis (SwPlot *plot)
+{
+  sw_plot_set_y_axis (plot, _("Liftoff mass"), TRUE);
+  /* Translators: tick labels of a mass axis in tonnes */
+  sw_plot_set_y_format (plot, _("%.3g t"), 1000.0);
+}
+
+void
+sw_trade_plots_show_stage_count (SwPlot *plot, SwResult *r)
+{
+  const SwStageCurve *curve;
+  double x[SW_MAX_STAGES], y[SW_MAX_STAGES];
+  double y_top = 0.0, cx, cy;
+
+  g_return_if_fail (SW_IS_PLOT (plot));
+
+  sw_plot_clear (plot);
+  sw_plot_set_title (plot, _("Liftoff mass against stage count, optimal split"));
+  sw_plot_set_x_axis (plot, _("Number of stages"), FALSE);
+  sw_plot_set_x_format (plot, "%.0f", 1.0);
+  sw_plot_set_x_range (plot, 0.5, SW_MAX_STAGES + 0.5);
+  setup_mass_axis (plot);
+  sw_plot_set_y_range (plot, NAN, NAN);
+  if (r == NULL || !r->ok)
+    return;
+
+  curve = &r->stage_curve;
+  for (guint k = 0; k < curve->n_points; k++)
+    {
+      x[k] = curve->points[k].stages;
+      y[k] = curve->points[k].feasible ? curve->points[k].liftoff_mass_kg : NAN;
+      if (isfinite (y[k]))
+        y_top = MAX (y_top, y[k]);
+    }
+  if (r->sizing.feasible && isfinite (r->sizing.liftoff_mass_kg))
+    y_top = MAX (y_top, r->sizing.liftoff_mass_kg);
+  /* Counts without a solution have no mass: their crosses sit above the
+   * highest mass shown. */
+  y_top = y_top > 0.0 ? y_top * 2.0 : r->sizing.payload_kg * 100.0;
+  sw_plot_add_series (plot, _("Optimal split"), x, y, curve->n_points, SW_PLOT_LINE_POINTS, 0);
+  for (guint k = 0; k < curve->n_points; k++)
+    if (!curve->points[k].feasible)
+      sw_plot_add_marker (plot, x[k], y_top, _("no solution"), SW_MARKER_INFEASIBLE);
+
+  if (sw_trade_plots_current_point (r, 0, &cx, &cy))
+    sw_plot_add_marker (plot, cx, cy, _("this design"), SW_MARKER_CURRENT);
+  else
+    sw_plot_add_marker (plot, r->sizing.n_stages, y_top, _("this design does not close"),
+                        SW_MARKER_INFEASIBLE);
+}
+
+void
+sw_trade_plots_show_sweep (SwPlot *plot, SwResult *r)
+{
+  const SwSweep *sw;
+  double dv, x_hi, x_max = 0.0, y_lo, y_hi, cx, cy;
+
+  g_return_if_fail (SW_IS_PLOT (plot));
+
+  sw_plot_clear (plot);
+  sw_plot_set_title (plot, _("Liftoff mass against delta-v, optimal split"));
+  sw_plot_set_x_axis (plot, _("Required delta-v"), FALSE);
+  /* Translators: tick labels of a speed axis in km/s */
+  sw_plot_set_x_format (plot, _("%.0f km/s"), 1000.0);
+  setup_mass_axis (plot);
+  if (r == NULL || !r->ok)
+    {
+      sw_plot_set_x_range (plot, NAN, NAN);
+      sw_plot_set_y_range (plot, NAN, NAN);
+      return;
+    }
+
+  sw = &r->sweep;
+  for (guint c = 0; c < sw->n_curves; c++)
+    {
+      const SwSweepCurve *curve = &sw->curves[c];
+      g_autofree char *name = g_strdup_printf (g_dngettext (GETTEXT_PACKAGE, "%u stage",
+                                                            "%u stages", curve->stages),
+                                               curve->stages);
+      g_autofree char *limit = g_strdup_printf (_("limit %u"), curve->stages);
+      guint s = sw_plot_add_series (plot, name, curve->delta_v_m_s, curve->liftoff_mass_kg,
+                                    curve->n_points, SW_PLOT_LINE, (int) c);
+
+      sw_plot_set_series_highlighted (plot, s, curve->stages == r->sizing.n_stages);
+      sw_plot_add_vline (plot, curve->delta_v_limit_m_s, limit, (int) c);
+      x_max = MAX (x_max, curve->delta_v_limit_m_s);
+    }
+
+  /* Show the region around the design: up to twice its delta-v, at least
+   * past the one-stage asymptote; masses from the payload up to three
+   * decades above it (a payload fraction of 0.1 %). */
+  dv = r->delta_v_m_s;
+  x_hi = 2.0 * dv;
+  if (sw->n_curves > 0)
+    x_hi = MAX (x_hi, 1.1 * sw->curves[0].delta_v_limit_m_s);
+  x_hi = MIN (x_hi, 1.02 * x_max);
+  sw_plot_set_x_range (plot, 0.0, x_hi > 0.0 ? x_hi : NAN);
+  y_lo = r->sizing.payload_kg;
+  y_hi = 1000.0 * y_lo;
+  if (r->sizing.feasible && isfinite (r->sizing.liftoff_mass_kg))
+    y_hi = MAX (y_hi, 10.0 * r->sizing.liftoff_mass_kg);
+  sw_plot_set_y_range (plot, y_lo, y_hi);
+
+  if (sw_trade_plots_current_point (r, 1, &cx, &cy))
+    sw_plot_add_marker (plot, cx, cy, _("this design"), SW_MARKER_CURRENT);
+}

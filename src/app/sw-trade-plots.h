@@ -1,0 +1,22 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* sw-trade-plots.h: the two trade curves of the main window, filled from an
+ * SwResult (no physics here: the curves are in the result). */
+#pragma once
+
+#include "sw-plot.h"
+#include "sw-result.h"
+
+G_BEGIN_DECLS
+
+/* Liftoff mass against stage count 1..8, log y, the current count marked,
+ * counts that do not close marked as infeasible. */
+void sw_trade_plots_show_stage_count (SwPlot *plot, SwResult *result);
+/* Liftoff mass against delta-v for 1..5 stages, log y, each curve with its
+ * asymptote, the current design marked. */
+void sw_trade_plots_show_sweep (SwPlot *plot, SwResult *result);
+
+/* Where the current design's marker was put, in data coordinates; FALSE when
+ * there is none (for tests). */
+gboolean sw_trade_plots_current_point (SwResult *result, guint which, double *x, double *y);
+
+G_END_DECLS

@@ -1,0 +1,49 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* sw-window-private.h: what the GUI tests, the screenshot option and the
+ * latency benchmark need to reach inside the main window. */
+#pragma once
+
+#include "sw-document.h"
+#include "sw-inspector.h"
+#include "sw-plot.h"
+#include "sw-result.h"
+#include "sw-solver.h"
+#include "sw-stack-view.h"
+#include "sw-totals.h"
+#include "sw-window.h"
+#include "sw-working-view.h"
+
+G_BEGIN_DECLS
+
+SwDocument    *sw_window_get_document (SwWindow *self);
+SwSolver      *sw_window_get_solver (SwWindow *self);
+SwInspector   *sw_window_get_inspector (SwWindow *self);
+SwStackView   *sw_window_get_stack_view (SwWindow *self);
+SwTotals      *sw_window_get_totals (SwWindow *self);
+SwWorkingView *sw_window_get_working_view (SwWindow *self);
+/* 0: liftoff mass against stage count; 1: against delta-v. */
+SwPlot        *sw_window_get_plot (SwWindow *self, guint which);
+/* The result the views show now, or NULL before the first one. */
+SwResult      *sw_window_get_shown_result (SwWindow *self);
+/* Serial of the newest result that has been painted in a frame. */
+guint64        sw_window_get_drawn_serial (SwWindow *self);
+/* Signal "result-drawn" (guint64 serial): after the frame that first
+ * painted that result. */
+
+gboolean       sw_window_save_to (SwWindow *self, GFile *file, GError **error);
+/* The text of the message bar and its type, NULL when it is hidden. */
+const char    *sw_window_get_message (SwWindow *self, GtkMessageType *type);
+
+/* The recovery copy. */
+char          *sw_window_dup_recovery_path (SwWindow *self);
+gboolean       sw_window_get_recovery_offered (SwWindow *self);
+void           sw_window_answer_recovery (SwWindow *self, gboolean restore);
+/* Writes a pending recovery copy now instead of after the delay. */
+void           sw_window_flush_recovery (SwWindow *self);
+/* Closes without asking and removes the recovery copy (a clean close). */
+void           sw_window_close_discarding (SwWindow *self);
+
+/* Screenshot and benchmark mode: no recovery copy, no settings written. */
+void           sw_window_set_ephemeral (SwWindow *self);
+
+G_END_DECLS

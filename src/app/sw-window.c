@@ -1,0 +1,1183 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+#define G_LOG_DOMAIN "sw-window"
+
+#include "config.h"
+
+#include "sw-window.h"
+
+#include "sw-application.h"
+#include "sw-format.h"
+#include "sw-trade-plots.h"
+#include "sw-window-private.h"
+
+#include <glib/gi18n.h>
+#include <glib/gstdio.h>
+#include <errno.h>
+#include <string.h>
+
+/* The recovery copy is written this long after the last change. */
+#define RECOVERY_DELAY_MS 1000
+#define MIME_TYPE "application/x-stagewright+json"
+#define MAX_RECENT 8
+
+typedef enum {
+  AFTER_NOTHING,
+  AFTER_CLOSE,
+  AFTER_NEW,
+  AFTER_OPEN,
+  AFTER_OPEN_FILE,
+} AfterSave;
+
+struct _SwWindow {
+  GtkApplicationWindow parent_instance;
+
+  SwDocument     *document;
+  SwSolver       *solver;
+  SwResult       *result;
+  GSettings      *settings;
+  gboolean        ephemeral;
+  guint64         drawn_serial;
+  GdkFrameClock  *frame_clock;
+  SwDesign       *drag_base;           /* the design when a border drag began */
+
+  int             recovery_slot;       /* -1: none */
+  guint           recovery_timeout;
+  gboolean        recovery_offered;
+  SwDesign       *recovered;
+  GFile          *recovered_origin;
+
+  AfterSave       after;               /* what to do once the design is saved */
+  GFile          *after_file;
+  gboolean        closing;
+  GtkNativeDialog *chooser;
+
+  GtkLabel       *title_label;
+  GtkLabel       *subtitle_label;
+  GtkInfoBar     *recovery_bar;
+  GtkLabel       *recovery_label;
+  GtkInfoBar     *message_bar;
+  GtkLabel       *message_label;
+  SwInspector    *inspector;
+  SwStackView    *stack_view;
+  SwTotals       *totals;
+  GtkNotebook    *notebook;
+  SwPlot         *stage_count_plot;
+  SwPlot         *sweep_plot;
+  SwWorkingView  *working_view;
+  GMenu          *recent_menu;
+};
+
+G_DEFINE_FINAL_TYPE (SwWindow, sw_window, GTK_TYPE_APPLICATION_WINDOW)
+
+enum { RESULT_DRAWN, N_SIGNALS };
+static guint signals[N_SIGNALS];
+
+/* Recovery slots in use in this process: window k writes recovery file k. */
+static guint used_recovery_slots;
+
+static void show_save_as (SwWindow *self);
+static void schedule_recovery (SwWindow *self);
+
+/* ---- messages and title ------------------------------------------------ */
+
+static void
+show_message (SwWindow *self, GtkMessageType type, const char *text)
+{
+  gtk_info_bar_set_message_type (self->message_bar, type);
+  gtk_label_set_text (self->message_label, text);
+  gtk_info_bar_set_revealed (self->message_bar, TRUE);
+}
+
+static void
+hide_message (SwWindow *self)
+{
+  gtk_info_bar_set_revealed (self->message_bar, FALSE);
+}
+
+static void
+message_response_cb (SwWindow *self, int response)
+{
+  hide_message (self);
+}
+
+static void
+update_title (SwWindow *self)
+{
+  g_autofree char *name = sw_document_dup_title (self->document);
+  g_autofree char *title = NULL, *window_title = NULL, *subtitle = NULL;
+  gboolean modified = sw_document_get_modified (self->document);
+  GFile *file = sw_document_get_file (self->document);
+
+  /* The bullet marks unsaved changes. */
+  title = modified ? g_strdup_printf ("• %s", name) : g_strdup (name);
+  window_title = g_strdup_printf ("%s – Stagewright", title);
+  if (file != NULL)
+    {
+      g_autofree char *path = g_file_get_path (file);
+      const char *home = g_get_home_dir ();
+      if (path != NULL && home != NULL && g_str_has_prefix (path, home) && strlen (home) > 1)
+        subtitle = g_strdup_printf ("~%s", path + strlen (home));
+      else
+        subtitle = path != NULL ? g_strdup (path) : g_file_get_uri (file);
+    }
+  else
+    subtitle = g_strdup (_("Not saved yet"));
+  gtk_label_set_text (self->title_label, title);
+  gtk_label_set_text (self->subtitle_label, subtitle);
+  gtk_window_set_title (GTK_WINDOW (self), window_title);
+}
+
+static void
+update_actions (SwWindow *self)
+{
+  gtk_widget_action_set_enabled (GTK_WIDGET (self), "design.undo",
+                                 sw_document_can_undo (self->document));
+  gtk_widget_action_set_enabled (GTK_WIDGET (self), "design.redo",
+                                 sw_document_can_redo (self->document));
+  gtk_widget_action_set_enabled (GTK_WIDGET (self), "design.copy-working",
+                                 self->result != NULL && self->result->ok);
+}
+
+/* ---- design -> solver -> views ----------------------------------------- */
+
+static void
+document_changed_cb (SwWindow *self)
+{
+  sw_solver_post (self->solver, sw_document_get_design (self->document));
+  update_title (self);
+  update_actions (self);
+  schedule_recovery (self);
+}
+
+static void
+solved_cb (SwWindow *self, SwResult *result)
+{
+  g_clear_pointer (&self->result, sw_result_unref);
+  self->result = sw_result_ref (result);
+  sw_stack_view_set_result (self->stack_view, result);
+  sw_inspector_set_result (self->inspector, result);
+  sw_totals_set_result (self->totals, result);
+  sw_working_view_set_result (self->working_view, result);
+  sw_trade_plots_show_stage_count (self->stage_count_plot, result);
+  sw_trade_plots_show_sweep (self->sweep_plot, result);
+  update_actions (self);
+  /* A frame must follow even if no view changed, so "drawn" is reached. */
+  if (self->frame_clock != NULL)
+    gdk_frame_clock_request_phase (self->frame_clock, GDK_FRAME_CLOCK_PHASE_PAINT);
+}
+
+static void
+after_paint_cb (SwWindow *self)
+{
+  if (self->result != NULL && self->result->serial > self->drawn_serial)
+    {
+      self->drawn_serial = self->result->serial;
+      g_signal_emit (self, signals[RESULT_DRAWN], 0, self->drawn_serial);
+    }
+}
+
+static void
+selected_stage_cb (SwWindow *self)
+{
+  sw_working_view_set_selected (self->working_view, sw_inspector_get_selected (self->inspector));
+}
+
+static void
+stage_activated_cb (SwWindow *self, int stage)
+{
+  sw_inspector_set_selected (self->inspector, stage);
+}
+
+/* A drag of the border between @lower and @upper: @amount of share moves
+ * from @upper to @lower, counted from the start of the drag, so each step
+ * starts from the design as it was when the drag began. */
+static void
+share_dragged_cb (SwWindow *self, int lower, int upper, double amount, gboolean finished)
+{
+  g_autoptr (SwDesign) d = NULL;
+  guint n = sw_document_get_design (self->document)->n_stages;
+
+  if (lower < 0 || upper < 0 || (guint) lower >= n || (guint) upper >= n || lower == upper)
+    return;
+  if (self->drag_base == NULL)
+    {
+      self->drag_base = sw_document_dup_design (self->document);
+      if (self->drag_base->split != SW_SPLIT_MANUAL)
+        sw_result_apply_shares (self->result, self->drag_base);
+    }
+  d = sw_design_copy (self->drag_base);
+  sw_design_move_share (d, (guint) upper, (guint) lower, amount);
+  sw_document_commit (self->document, g_steal_pointer (&d), "drag:share");
+  if (finished)
+    {
+      g_clear_pointer (&self->drag_base, sw_design_free);
+      sw_document_end_merge (self->document);
+    }
+}
+
+/* ---- the recovery copy ------------------------------------------------- */
+
+static char *
+recovery_dir (void)
+{
+  const char *env = g_getenv ("STAGEWRIGHT_RECOVERY_DIR");
+
+  if (env != NULL && env[0] != '\0')
+    return g_strdup (env);
+  return g_build_filename (g_get_user_state_dir (), "stagewright", NULL);
+}
+
+char *
+sw_window_dup_recovery_path (SwWindow *self)
+{
+  g_autofree char *dir = recovery_dir ();
+  g_autofree char *name = NULL;
+
+  g_return_val_if_fail (SW_IS_WINDOW (self), NULL);
+
+  if (self->recovery_slot <= 0)
+    name = g_strdup ("recovery.stagewright");
+  else
+    name = g_strdup_printf ("recovery-%d.stagewright", self->recovery_slot + 1);
+  return g_build_filename (dir, name, NULL);
+}
+
+/* Beside the copy: the URI of the file it belongs to (empty: untitled). */
+static char *
+origin_path (const char *recovery_path)
+{
+  return g_strconcat (recovery_path, ".origin", NULL);
+}
+
+static void
+remove_recovery (SwWindow *self)
+{
+  g_autofree char *path = NULL, *origin = NULL;
+
+  g_clear_handle_id (&self->recovery_timeout, g_source_remove);
+  /* A copy still waiting for the user's answer is not ours to delete. */
+  if (self->recovery_slot < 0 || self->recovery_offered || self->ephemeral)
+    return;
+  path = sw_window_dup_recovery_path (self);
+  origin = origin_path (path);
+  g_unlink (path);
+  g_unlink (origin);
+}
+
+static void
+write_recovery (SwWindow *self)
+{
+  g_autofree char *dir = recovery_dir ();
+  g_autofree char *path = NULL, *origin = NULL, *uri = NULL;
+  g_autoptr (GError) error = NULL;
+  GFile *file;
+
+  if (self->ephemeral || self->recovery_offered || self->recovery_slot < 0
+      || !sw_document_get_modified (self->document))
+    return;
+  path = sw_window_dup_recovery_path (self);
+  origin = origin_path (path);
+  if (g_mkdir_with_parents (dir, 0700) != 0)
+    {
+      g_warning ("Cannot create %s for the recovery copy: %s", dir, g_strerror (errno));
+      return;
+    }
+  /* An invalid design (an orbit the site cannot reach, say) is not written:
+   * the copy keeps the last state that can be opened again. */
+  if (!sw_design_save (sw_document_get_design (self->document), path, &error))
+    {
+      g_debug ("Recovery copy not written: %s", error->message);
+      return;
+    }
+  file = sw_document_get_file (self->document);
+  uri = file != NULL ? g_file_get_uri (file) : g_strdup ("");
+  if (!g_file_set_contents_full (origin, uri, -1, G_FILE_SET_CONTENTS_CONSISTENT, 0600, &error))
+    g_debug ("Recovery origin not written: %s", error->message);
+}
+
+static gboolean
+recovery_timeout_cb (gpointer data)
+{
+  SwWindow *self = data;
+
+  self->recovery_timeout = 0;
+  write_recovery (self);
+  return G_SOURCE_REMOVE;
+}
+
+static void
+schedule_recovery (SwWindow *self)
+{
+  if (self->ephemeral || self->recovery_offered)
+    return;
+  if (!sw_document_get_modified (self->document))
+    {
+      remove_recovery (self);
+      return;
+    }
+  /* Debounced: a burst of edits gives one write, a second after the last. */
+  g_clear_handle_id (&self->recovery_timeout, g_source_remove);
+  self->recovery_timeout = g_timeout_add (RECOVERY_DELAY_MS, recovery_timeout_cb, self);
+}
+
+void
+sw_window_flush_recovery (SwWindow *self)
+{
+  g_return_if_fail (SW_IS_WINDOW (self));
+  if (self->recovery_timeout != 0)
+    {
+      g_clear_handle_id (&self->recovery_timeout, g_source_remove);
+      write_recovery (self);
+    }
+}
+
+static void
+claim_recovery_slot (SwWindow *self)
+{
+  for (int k = 0; k < 32; k++)
+    if (!(used_recovery_slots & (1u << k)))
+      {
+        used_recovery_slots |= 1u << k;
+        self->recovery_slot = k;
+        return;
+      }
+  self->recovery_slot = -1;
+}
+
+static void
+release_recovery_slot (SwWindow *self)
+{
+  if (self->recovery_slot >= 0)
+    used_recovery_slots &= ~(1u << self->recovery_slot);
+  self->recovery_slot = -1;
+}
+
+/* A copy left by a session that ended without a clean close: offer it. */
+static void
+check_recovery (SwWindow *self)
+{
+  g_autofree char *path = NULL, *origin = NULL, *uri = NULL, *when = NULL, *text = NULL;
+  g_autoptr (GError) error = NULL;
+  g_autoptr (GDateTime) mtime = NULL;
+  GStatBuf st;
+
+  if (self->recovery_slot < 0)
+    return;
+  path = sw_window_dup_recovery_path (self);
+  if (!g_file_test (path, G_FILE_TEST_IS_REGULAR))
+    return;
+  self->recovered = sw_design_load (path, NULL, &error);
+  if (self->recovered == NULL)
+    {
+      g_autofree char *kept = g_strconcat (path, ".unreadable", NULL);
+      g_rename (path, kept);
+      text = g_strdup_printf (_("A recovery copy from an earlier session could not be read "
+                                "and was moved to %s.\n%s"), kept, error->message);
+      show_message (self, GTK_MESSAGE_WARNING, text);
+      return;
+    }
+  origin = origin_path (path);
+  if (g_file_get_contents (origin, &uri, NULL, NULL) && uri[0] != '\0')
+    self->recovered_origin = g_file_new_for_uri (g_strstrip (uri));
+  if (g_stat (path, &st) == 0)
+    mtime = g_date_time_new_from_unix_local (st.st_mtime);
+  when = mtime != NULL ? g_date_time_format (mtime, "%x %X") : g_strdup ("?");
+  /* Translators: %s are the design's name and the date and time of the copy */
+  text = g_strdup_printf (_("Stagewright did not close properly last time. Unsaved changes to "
+                            "“%s” were kept (copy of %s). Restore them?"),
+                          self->recovered->name[0] ? self->recovered->name : _("Untitled design"),
+                          when);
+  gtk_label_set_text (self->recovery_label, text);
+  gtk_info_bar_set_revealed (self->recovery_bar, TRUE);
+  self->recovery_offered = TRUE;
+}
+
+gboolean
+sw_window_get_recovery_offered (SwWindow *self)
+{
+  g_return_val_if_fail (SW_IS_WINDOW (self), FALSE);
+  return self->recovery_offered;
+}
+
+void
+sw_window_answer_recovery (SwWindow *self, gboolean restore)
+{
+  g_return_if_fail (SW_IS_WINDOW (self));
+
+  if (!self->recovery_offered)
+    return;
+  self->recovery_offered = FALSE;
+  gtk_info_bar_set_revealed (self->recovery_bar, FALSE);
+  if (restore)
+    {
+      sw_document_reset (self->document, g_steal_pointer (&self->recovered),
+                         self->recovered_origin, TRUE);
+      sw_inspector_set_selected (self->inspector, 0);
+    }
+  else
+    {
+      g_autofree char *path = sw_window_dup_recovery_path (self);
+      g_autofree char *origin = origin_path (path);
+      g_unlink (path);
+      g_unlink (origin);
+    }
+  g_clear_pointer (&self->recovered, sw_design_free);
+  g_clear_object (&self->recovered_origin);
+  schedule_recovery (self);
+}
+
+static void
+recovery_response_cb (SwWindow *self, int response)
+{
+  sw_window_answer_recovery (self, response == 1);
+}
+
+/* ---- files ------------------------------------------------------------- */
+
+static void
+remember_file (SwWindow *self, GFile *file)
+{
+  g_autofree char *uri = g_file_get_uri (file);
+  g_autofree char *path = g_file_get_path (file);
+  GtkRecentData data = { 0 };
+
+  if (self->ephemeral)
+    return;
+  data.mime_type = (char *) MIME_TYPE;
+  data.app_name = (char *) "Stagewright";
+  data.app_exec = (char *) "stagewright %u";
+  gtk_recent_manager_add_full (gtk_recent_manager_get_default (), uri, &data);
+  if (path != NULL)
+    g_settings_set_string (self->settings, "last-design", path);
+}
+
+static void
+rebuild_recent_menu (SwWindow *self)
+{
+  GList *items = gtk_recent_manager_get_items (gtk_recent_manager_get_default ());
+  guint n = 0;
+
+  g_menu_remove_all (self->recent_menu);
+  for (GList *l = items; l != NULL && n < MAX_RECENT; l = l->next)
+    {
+      GtkRecentInfo *info = l->data;
+      const char *uri = gtk_recent_info_get_uri (info);
+      g_autoptr (GMenuItem) item = NULL;
+
+      if (!g_str_has_suffix (uri, ".stagewright") || !gtk_recent_info_exists (info))
+        continue;
+      item = g_menu_item_new (gtk_recent_info_get_display_name (info), NULL);
+      g_menu_item_set_action_and_target_value (item, "design.open-recent",
+                                               g_variant_new_string (uri));
+      g_menu_append_item (self->recent_menu, item);
+      n++;
+    }
+  g_list_free_full (items, (GDestroyNotify) gtk_recent_info_unref);
+  if (n == 0)
+    {
+      g_autoptr (GMenuItem) none = g_menu_item_new (_("No recent designs"), "design.none");
+      g_menu_append_item (self->recent_menu, none);
+    }
+}
+
+static gboolean
+load_file (SwWindow *self, GFile *file, gboolean as_copy)
+{
+  g_autoptr (GPtrArray) warnings = g_ptr_array_new_with_free_func (g_free);
+  g_autoptr (GError) error = NULL;
+
+  if (!sw_document_load (self->document, file, warnings, &error))
+    {
+      g_autofree char *text = g_strdup_printf (_("Could not open the design; nothing was "
+                                                 "changed.\n%s"), error->message);
+      show_message (self, GTK_MESSAGE_ERROR, text);
+      return FALSE;
+    }
+  if (warnings->len > 0)
+    {
+      GString *text = g_string_new (_("The design was opened, with warnings:"));
+      for (guint i = 0; i < warnings->len; i++)
+        g_string_append_printf (text, "\n%s", (const char *) warnings->pdata[i]);
+      show_message (self, GTK_MESSAGE_WARNING, text->str);
+      g_string_free (text, TRUE);
+    }
+  else
+    hide_message (self);
+  if (as_copy)
+    sw_document_reset (self->document, sw_document_dup_design (self->document), NULL, FALSE);
+  else
+    remember_file (self, file);
+  sw_inspector_set_selected (self->inspector, 0);
+  return TRUE;
+}
+
+gboolean
+sw_window_load (SwWindow *self, GFile *file)
+{
+  g_return_val_if_fail (SW_IS_WINDOW (self), FALSE);
+  g_return_val_if_fail (G_IS_FILE (file), FALSE);
+  return load_file (self, file, FALSE);
+}
+
+gboolean
+sw_window_load_template (SwWindow *self, GFile *file)
+{
+  g_return_val_if_fail (SW_IS_WINDOW (self), FALSE);
+  g_return_val_if_fail (G_IS_FILE (file), FALSE);
+  return load_file (self, file, TRUE);
+}
+
+gboolean
+sw_window_is_replaceable (SwWindow *self)
+{
+  g_return_val_if_fail (SW_IS_WINDOW (self), FALSE);
+  return !sw_document_get_modified (self->document) && !self->recovery_offered;
+}
+
+gboolean
+sw_window_save_to (SwWindow *self, GFile *file, GError **error)
+{
+  g_return_val_if_fail (SW_IS_WINDOW (self), FALSE);
+
+  if (!sw_document_save (self->document, file, error))
+    return FALSE;
+  remember_file (self, sw_document_get_file (self->document));
+  remove_recovery (self);
+  return TRUE;
+}
+
+/* Saves and reports a failure in the window. */
+static gboolean
+save_to (SwWindow *self, GFile *file)
+{
+  g_autoptr (GError) error = NULL;
+
+  if (!sw_window_save_to (self, file, &error))
+    {
+      g_autofree char *text = g_strdup_printf (_("The design was not saved.\n%s"),
+                                               error->message);
+      show_message (self, GTK_MESSAGE_ERROR, text);
+      return FALSE;
+    }
+  hide_message (self);
+  return TRUE;
+}
+
+static void
+new_design (SwWindow *self)
+{
+  sw_document_reset (self->document, sw_design_new_default (), NULL, FALSE);
+  hide_message (self);
+  sw_inspector_set_selected (self->inspector, 0);
+}
+
+static void
+add_filters (GtkFileChooser *chooser)
+{
+  g_autoptr (GtkFileFilter) designs = gtk_file_filter_new ();
+  g_autoptr (GtkFileFilter) all = gtk_file_filter_new ();
+
+  gtk_file_filter_set_name (designs, _("Stagewright designs"));
+  gtk_file_filter_add_pattern (designs, "*.stagewright");
+  gtk_file_filter_add_mime_type (designs, MIME_TYPE);
+  gtk_file_filter_set_name (all, _("All files"));
+  gtk_file_filter_add_pattern (all, "*");
+  gtk_file_chooser_add_filter (chooser, designs);
+  gtk_file_chooser_add_filter (chooser, all);
+}
+
+static void
+open_response_cb (SwWindow *self, int response, GtkNativeDialog *dialog)
+{
+  if (response == GTK_RESPONSE_ACCEPT)
+    {
+      g_autoptr (GFile) file = gtk_file_chooser_get_file (GTK_FILE_CHOOSER (dialog));
+      if (file != NULL)
+        sw_window_load (self, file);
+    }
+  g_clear_object (&self->chooser);
+}
+
+static void
+show_open (SwWindow *self)
+{
+  GtkFileChooserNative *chooser;
+
+  if (self->chooser != NULL)
+    return;
+  chooser = gtk_file_chooser_native_new (_("Open a Design"), GTK_WINDOW (self),
+                                         GTK_FILE_CHOOSER_ACTION_OPEN, _("_Open"),
+                                         _("_Cancel"));
+  add_filters (GTK_FILE_CHOOSER (chooser));
+  gtk_native_dialog_set_modal (GTK_NATIVE_DIALOG (chooser), TRUE);
+  g_signal_connect_swapped (chooser, "response", G_CALLBACK (open_response_cb), self);
+  self->chooser = GTK_NATIVE_DIALOG (chooser);
+  gtk_native_dialog_show (self->chooser);
+}
+
+static void
+run_after (SwWindow *self)
+{
+  AfterSave after = self->after;
+  g_autoptr (GFile) file = g_steal_pointer (&self->after_file);
+
+  self->after = AFTER_NOTHING;
+  switch (after)
+    {
+    case AFTER_CLOSE:
+      sw_window_close_discarding (self);
+      break;
+    case AFTER_NEW:
+      new_design (self);
+      break;
+    case AFTER_OPEN:
+      show_open (self);
+      break;
+    case AFTER_OPEN_FILE:
+      sw_window_load (self, file);
+      break;
+    case AFTER_NOTHING:
+    default:
+      break;
+    }
+}
+
+static void
+cancel_after (SwWindow *self)
+{
+  self->after = AFTER_NOTHING;
+  g_clear_object (&self->after_file);
+}
+
+static void
+save_as_response_cb (SwWindow *self, int response, GtkNativeDialog *dialog)
+{
+  g_autoptr (GFile) file = NULL;
+
+  if (response == GTK_RESPONSE_ACCEPT)
+    file = gtk_file_chooser_get_file (GTK_FILE_CHOOSER (dialog));
+  g_clear_object (&self->chooser);
+  if (file == NULL)
+    {
+      cancel_after (self);
+      return;
+    }
+  {
+    g_autofree char *base = g_file_get_basename (file);
+    if (base != NULL && strchr (base, '.') == NULL)
+      {
+        g_autofree char *name = g_strconcat (base, ".stagewright", NULL);
+        g_autoptr (GFile) parent = g_file_get_parent (file);
+        g_set_object (&file, g_file_get_child (parent, name));
+      }
+  }
+  if (save_to (self, file))
+    run_after (self);
+  else
+    cancel_after (self);
+}
+
+static void
+show_save_as (SwWindow *self)
+{
+  GtkFileChooserNative *chooser;
+  GFile *current = sw_document_get_file (self->document);
+
+  if (self->chooser != NULL)
+    return;
+  chooser = gtk_file_chooser_native_new (_("Save the Design"), GTK_WINDOW (self),
+                                         GTK_FILE_CHOOSER_ACTION_SAVE, _("_Save"),
+                                         _("_Cancel"));
+  add_filters (GTK_FILE_CHOOSER (chooser));
+  if (current != NULL)
+    gtk_file_chooser_set_file (GTK_FILE_CHOOSER (chooser), current, NULL);
+  else
+    {
+      g_autofree char *title = sw_document_dup_title (self->document);
+      g_autofree char *name = g_strconcat (title, ".stagewright", NULL);
+      g_strdelimit (name, "/\\", '-');
+      gtk_file_chooser_set_current_name (GTK_FILE_CHOOSER (chooser), name);
+    }
+  gtk_native_dialog_set_modal (GTK_NATIVE_DIALOG (chooser), TRUE);
+  g_signal_connect_swapped (chooser, "response", G_CALLBACK (save_as_response_cb), self);
+  self->chooser = GTK_NATIVE_DIALOG (chooser);
+  gtk_native_dialog_show (self->chooser);
+}
+
+static void
+save (SwWindow *self)
+{
+  GFile *file = sw_document_get_file (self->document);
+
+  if (file == NULL)
+    show_save_as (self);
+  else if (save_to (self, file))
+    run_after (self);
+  else
+    cancel_after (self);
+}
+
+static void
+question_response_cb (SwWindow *self, int response, GtkDialog *dialog)
+{
+  gtk_window_destroy (GTK_WINDOW (dialog));
+  switch (response)
+    {
+    case GTK_RESPONSE_ACCEPT:
+      save (self);
+      break;
+    case GTK_RESPONSE_REJECT:
+      run_after (self);
+      break;
+    default:
+      cancel_after (self);
+      break;
+    }
+}
+
+/* Runs @after now, or once the user has saved or discarded the changes. */
+static void
+ask_then (SwWindow *self, AfterSave after, GFile *file)
+{
+  g_autofree char *title = NULL;
+  GtkWidget *dialog, *discard;
+
+  self->after = after;
+  g_set_object (&self->after_file, file);
+  if (!sw_document_get_modified (self->document))
+    {
+      run_after (self);
+      return;
+    }
+  title = sw_document_dup_title (self->document);
+  dialog = gtk_message_dialog_new (GTK_WINDOW (self),
+                                   GTK_DIALOG_MODAL | GTK_DIALOG_DESTROY_WITH_PARENT,
+                                   GTK_MESSAGE_QUESTION, GTK_BUTTONS_NONE,
+                                   _("Save the changes to “%s”?"), title);
+  gtk_message_dialog_format_secondary_text (GTK_MESSAGE_DIALOG (dialog), "%s",
+                                            _("Changes that are not saved will be lost."));
+  gtk_dialog_add_button (GTK_DIALOG (dialog), _("_Cancel"), GTK_RESPONSE_CANCEL);
+  discard = gtk_dialog_add_button (GTK_DIALOG (dialog), _("_Discard"), GTK_RESPONSE_REJECT);
+  gtk_widget_add_css_class (discard, "destructive-action");
+  gtk_dialog_add_button (GTK_DIALOG (dialog), _("_Save"), GTK_RESPONSE_ACCEPT);
+  gtk_dialog_set_default_response (GTK_DIALOG (dialog), GTK_RESPONSE_ACCEPT);
+  g_signal_connect_swapped (dialog, "response", G_CALLBACK (question_response_cb), self);
+  gtk_window_present (GTK_WINDOW (dialog));
+}
+
+void
+sw_window_close_discarding (SwWindow *self)
+{
+  g_return_if_fail (SW_IS_WINDOW (self));
+  self->closing = TRUE;
+  gtk_window_close (GTK_WINDOW (self));
+}
+
+/* ---- actions ----------------------------------------------------------- */
+
+static void
+new_action (GtkWidget *widget, const char *name, GVariant *param)
+{
+  ask_then (SW_WINDOW (widget), AFTER_NEW, NULL);
+}
+
+static void
+open_action (GtkWidget *widget, const char *name, GVariant *param)
+{
+  ask_then (SW_WINDOW (widget), AFTER_OPEN, NULL);
+}
+
+static void
+open_recent_action (GtkWidget *widget, const char *name, GVariant *param)
+{
+  g_autoptr (GFile) file = g_file_new_for_uri (g_variant_get_string (param, NULL));
+  ask_then (SW_WINDOW (widget), AFTER_OPEN_FILE, file);
+}
+
+static void
+save_action (GtkWidget *widget, const char *name, GVariant *param)
+{
+  SwWindow *self = SW_WINDOW (widget);
+
+  cancel_after (self);
+  save (self);
+}
+
+static void
+save_as_action (GtkWidget *widget, const char *name, GVariant *param)
+{
+  SwWindow *self = SW_WINDOW (widget);
+
+  cancel_after (self);
+  show_save_as (self);
+}
+
+static void
+undo_action (GtkWidget *widget, const char *name, GVariant *param)
+{
+  sw_document_undo (SW_WINDOW (widget)->document);
+}
+
+static void
+redo_action (GtkWidget *widget, const char *name, GVariant *param)
+{
+  sw_document_redo (SW_WINDOW (widget)->document);
+}
+
+static void
+copy_working_action (GtkWidget *widget, const char *name, GVariant *param)
+{
+  SwWindow *self = SW_WINDOW (widget);
+  g_autofree char *text = sw_working_view_dup_text (self->working_view);
+
+  gdk_clipboard_set_text (gtk_widget_get_clipboard (widget), text);
+}
+
+static void
+split_action (GtkWidget *widget, const char *name, GVariant *param)
+{
+  SwWindow *self = SW_WINDOW (widget);
+  g_autoptr (SwDesign) d = sw_document_dup_design (self->document);
+  SwSplitMode mode;
+
+  if (!sw_split_mode_from_string (g_variant_get_string (param, NULL), &mode) || mode == d->split)
+    return;
+  if (mode == SW_SPLIT_MANUAL)
+    sw_result_apply_shares (self->result, d);
+  else
+    d->split = mode;
+  sw_document_commit (self->document, g_steal_pointer (&d), NULL);
+}
+
+static void
+page_action (GtkWidget *widget, const char *name, GVariant *param)
+{
+  gtk_notebook_set_current_page (SW_WINDOW (widget)->notebook, g_variant_get_int32 (param));
+}
+
+static gboolean
+stage_shortcut_cb (GtkWidget *widget, GVariant *args, gpointer user_data)
+{
+  SwWindow *self = SW_WINDOW (widget);
+  const char *action = g_variant_get_string (args, NULL);
+
+  return gtk_widget_activate_action (GTK_WIDGET (self->inspector), action, NULL);
+}
+
+static gboolean
+select_stage_cb (GtkWidget *widget, GVariant *args, gpointer user_data)
+{
+  SwWindow *self = SW_WINDOW (widget);
+  int sel = sw_inspector_get_selected (self->inspector) + g_variant_get_int32 (args);
+
+  if (sel < 0 || (guint) sel >= sw_document_get_design (self->document)->n_stages)
+    return FALSE;
+  sw_inspector_set_selected (self->inspector, sel);
+  return TRUE;
+}
+
+/* ---- accessors for tests ----------------------------------------------- */
+
+SwDocument *
+sw_window_get_document (SwWindow *self)
+{
+  g_return_val_if_fail (SW_IS_WINDOW (self), NULL);
+  return self->document;
+}
+
+SwSolver *
+sw_window_get_solver (SwWindow *self)
+{
+  g_return_val_if_fail (SW_IS_WINDOW (self), NULL);
+  return self->solver;
+}
+
+SwInspector *
+sw_window_get_inspector (SwWindow *self)
+{
+  g_return_val_if_fail (SW_IS_WINDOW (self), NULL);
+  return self->inspector;
+}
+
+SwStackView *
+sw_window_get_stack_view (SwWindow *self)
+{
+  g_return_val_if_fail (SW_IS_WINDOW (self), NULL);
+  return self->stack_view;
+}
+
+SwTotals *
+sw_window_get_totals (SwWindow *self)
+{
+  g_return_val_if_fail (SW_IS_WINDOW (self), NULL);
+  return self->totals;
+}
+
+SwWorkingView *
+sw_window_get_working_view (SwWindow *self)
+{
+  g_return_val_if_fail (SW_IS_WINDOW (self), NULL);
+  return self->working_view;
+}
+
+SwPlot *
+sw_window_get_plot (SwWindow *self, guint which)
+{
+  g_return_val_if_fail (SW_IS_WINDOW (self), NULL);
+  return which == 0 ? self->stage_count_plot : self->sweep_plot;
+}
+
+SwResult *
+sw_window_get_shown_result (SwWindow *self)
+{
+  g_return_val_if_fail (SW_IS_WINDOW (self), NULL);
+  return self->result;
+}
+
+guint64
+sw_window_get_drawn_serial (SwWindow *self)
+{
+  g_return_val_if_fail (SW_IS_WINDOW (self), 0);
+  return self->drawn_serial;
+}
+
+const char *
+sw_window_get_message (SwWindow *self, GtkMessageType *type)
+{
+  g_return_val_if_fail (SW_IS_WINDOW (self), NULL);
+  if (!gtk_info_bar_get_revealed (self->message_bar))
+    return NULL;
+  if (type != NULL)
+    *type = gtk_info_bar_get_message_type (self->message_bar);
+  return gtk_label_get_text (self->message_label);
+}
+
+void
+sw_window_set_ephemeral (SwWindow *self)
+{
+  g_return_if_fail (SW_IS_WINDOW (self));
+
+  self->ephemeral = TRUE;
+  g_clear_handle_id (&self->recovery_timeout, g_source_remove);
+  /* Leave an offered copy on disk for the next real session. */
+  self->recovery_offered = FALSE;
+  gtk_info_bar_set_revealed (self->recovery_bar, FALSE);
+  g_clear_pointer (&self->recovered, sw_design_free);
+  g_clear_object (&self->recovered_origin);
+  release_recovery_slot (self);
+}
+
+/* ---- GObject ----------------------------------------------------------- */
+
+SwWindow *
+sw_window_new (GtkApplication *application)
+{
+  return g_object_new (SW_TYPE_WINDOW, "application", application, NULL);
+}
+
+static gboolean
+sw_window_close_request (GtkWindow *window)
+{
+  SwWindow *self = SW_WINDOW (window);
+
+  if (!self->closing && !self->ephemeral && sw_document_get_modified (self->document))
+    {
+      ask_then (self, AFTER_CLOSE, NULL);
+      return TRUE;
+    }
+  /* A clean close: the work is saved or was discarded on purpose. */
+  remove_recovery (self);
+  if (!self->ephemeral)
+    {
+      int width, height;
+      gtk_window_get_default_size (window, &width, &height);
+      g_settings_set_int (self->settings, "window-width", width);
+      g_settings_set_int (self->settings, "window-height", height);
+      g_settings_set_boolean (self->settings, "window-maximized",
+                              gtk_window_is_maximized (window));
+    }
+  return GTK_WINDOW_CLASS (sw_window_parent_class)->close_request (window);
+}
+
+static void
+sw_window_realize (GtkWidget *widget)
+{
+  SwWindow *self = SW_WINDOW (widget);
+
+  GTK_WIDGET_CLASS (sw_window_parent_class)->realize (widget);
+  self->frame_clock = g_object_ref (gtk_widget_get_frame_clock (widget));
+  g_signal_connect_object (self->frame_clock, "after-paint", G_CALLBACK (after_paint_cb), self,
+                           G_CONNECT_SWAPPED);
+}
+
+static void
+sw_window_unrealize (GtkWidget *widget)
+{
+  SwWindow *self = SW_WINDOW (widget);
+
+  if (self->frame_clock != NULL)
+    {
+      g_signal_handlers_disconnect_by_func (self->frame_clock, after_paint_cb, self);
+      g_clear_object (&self->frame_clock);
+    }
+  GTK_WIDGET_CLASS (sw_window_parent_class)->unrealize (widget);
+}
+
+static void
+sw_window_dispose (GObject *object)
+{
+  SwWindow *self = SW_WINDOW (object);
+
+  /* Gone without a clean close (the session ends, say): keep the work. */
+  if (self->recovery_timeout != 0 && !self->closing)
+    sw_window_flush_recovery (self);
+  g_clear_handle_id (&self->recovery_timeout, g_source_remove);
+  release_recovery_slot (self);
+  if (self->chooser != NULL)
+    {
+      gtk_native_dialog_destroy (self->chooser);
+      g_clear_object (&self->chooser);
+    }
+  if (self->solver != NULL)
+    g_signal_handlers_disconnect_by_func (self->solver, solved_cb, self);
+  g_clear_object (&self->solver);
+  if (self->document != NULL)
+    g_signal_handlers_disconnect_by_func (self->document, document_changed_cb, self);
+  g_clear_object (&self->document);
+  g_clear_pointer (&self->result, sw_result_unref);
+  g_clear_pointer (&self->drag_base, sw_design_free);
+  g_clear_pointer (&self->recovered, sw_design_free);
+  g_clear_object (&self->recovered_origin);
+  g_clear_object (&self->after_file);
+  g_clear_object (&self->settings);
+  g_signal_handlers_disconnect_by_func (gtk_recent_manager_get_default (),
+                                        rebuild_recent_menu, self);
+  gtk_widget_dispose_template (GTK_WIDGET (self), SW_TYPE_WINDOW);
+  G_OBJECT_CLASS (sw_window_parent_class)->dispose (object);
+}
+
+static void
+sw_window_class_init (SwWindowClass *klass)
+{
+  GObjectClass *object_class = G_OBJECT_CLASS (klass);
+  GtkWidgetClass *widget_class = GTK_WIDGET_CLASS (klass);
+  GtkWindowClass *window_class = GTK_WINDOW_CLASS (klass);
+
+  object_class->dispose = sw_window_dispose;
+  widget_class->realize = sw_window_realize;
+  widget_class->unrealize = sw_window_unrealize;
+  window_class->close_request = sw_window_close_request;
+
+  signals[RESULT_DRAWN] = g_signal_new ("result-drawn", G_TYPE_FROM_CLASS (klass),
+                                        G_SIGNAL_RUN_LAST, 0, NULL, NULL, NULL,
+                                        G_TYPE_NONE, 1, G_TYPE_UINT64);
+
+  g_type_ensure (SW_TYPE_INSPECTOR);
+  g_type_ensure (SW_TYPE_STACK_VIEW);
+  g_type_ensure (SW_TYPE_TOTALS);
+  g_type_ensure (SW_TYPE_PLOT);
+  g_type_ensure (SW_TYPE_WORKING_VIEW);
+
+  gtk_widget_class_set_template_from_resource (widget_class,
+                                               "/org/stagewright/Stagewright/sw-window.ui");
+#define CHILD(name) gtk_widget_class_bind_template_child (widget_class, SwWindow, name)
+  CHILD (title_label);
+  CHILD (subtitle_label);
+  CHILD (recovery_bar);
+  CHILD (recovery_label);
+  CHILD (message_bar);
+  CHILD (message_label);
+  CHILD (inspector);
+  CHILD (stack_view);
+  CHILD (totals);
+  CHILD (notebook);
+  CHILD (stage_count_plot);
+  CHILD (sweep_plot);
+  CHILD (working_view);
+  CHILD (recent_menu);
+#undef CHILD
+  gtk_widget_class_bind_template_callback (widget_class, recovery_response_cb);
+  gtk_widget_class_bind_template_callback (widget_class, message_response_cb);
+  gtk_widget_class_bind_template_callback (widget_class, stage_activated_cb);
+  gtk_widget_class_bind_template_callback (widget_class, share_dragged_cb);
+
+  gtk_widget_class_install_action (widget_class, "design.new", NULL, new_action);
+  gtk_widget_class_install_action (widget_class, "design.open", NULL, open_action);
+  gtk_widget_class_install_action (widget_class, "design.open-recent", "s", open_recent_action);
+  gtk_widget_class_install_action (widget_class, "design.save", NULL, save_action);
+  gtk_widget_class_install_action (widget_class, "design.save-as", NULL, save_as_action);
+  gtk_widget_class_install_action (widget_class, "design.undo", NULL, undo_action);
+  gtk_widget_class_install_action (widget_class, "design.redo", NULL, redo_action);
+  gtk_widget_class_install_action (widget_class, "design.copy-working", NULL,
+                                   copy_working_action);
+  gtk_widget_class_install_action (widget_class, "design.split", "s", split_action);
+  gtk_widget_class_install_action (widget_class, "view.page", "i", page_action);
+
+#define BIND(key, mods, action, ...) \
+  gtk_widget_class_add_binding_action (widget_class, key, mods, action, __VA_ARGS__)
+  BIND (GDK_KEY_n, GDK_CONTROL_MASK, "design.new", NULL);
+  BIND (GDK_KEY_o, GDK_CONTROL_MASK, "design.open", NULL);
+  BIND (GDK_KEY_s, GDK_CONTROL_MASK, "design.save", NULL);
+  BIND (GDK_KEY_s, GDK_CONTROL_MASK | GDK_SHIFT_MASK, "design.save-as", NULL);
+  BIND (GDK_KEY_z, GDK_CONTROL_MASK, "design.undo", NULL);
+  BIND (GDK_KEY_z, GDK_CONTROL_MASK | GDK_SHIFT_MASK, "design.redo", NULL);
+  BIND (GDK_KEY_y, GDK_CONTROL_MASK, "design.redo", NULL);
+  BIND (GDK_KEY_c, GDK_CONTROL_MASK | GDK_SHIFT_MASK, "design.copy-working", NULL);
+  BIND (GDK_KEY_1, GDK_CONTROL_MASK, "design.split", "s", "equal");
+  BIND (GDK_KEY_2, GDK_CONTROL_MASK, "design.split", "s", "optimal");
+  BIND (GDK_KEY_3, GDK_CONTROL_MASK, "design.split", "s", "manual");
+  BIND (GDK_KEY_1, GDK_ALT_MASK, "view.page", "i", 0);
+  BIND (GDK_KEY_2, GDK_ALT_MASK, "view.page", "i", 1);
+  BIND (GDK_KEY_w, GDK_CONTROL_MASK, "window.close", NULL);
+#undef BIND
+  gtk_widget_class_add_binding (widget_class, GDK_KEY_n, GDK_CONTROL_MASK | GDK_SHIFT_MASK,
+                                stage_shortcut_cb, "s", "stage.add");
+  gtk_widget_class_add_binding (widget_class, GDK_KEY_d, GDK_CONTROL_MASK,
+                                stage_shortcut_cb, "s", "stage.duplicate");
+  gtk_widget_class_add_binding (widget_class, GDK_KEY_Delete, GDK_CONTROL_MASK,
+                                stage_shortcut_cb, "s", "stage.remove");
+  gtk_widget_class_add_binding (widget_class, GDK_KEY_Up, GDK_ALT_MASK,
+                                stage_shortcut_cb, "s", "stage.move-up");
+  gtk_widget_class_add_binding (widget_class, GDK_KEY_Down, GDK_ALT_MASK,
+                                stage_shortcut_cb, "s", "stage.move-down");
+  gtk_widget_class_add_binding (widget_class, GDK_KEY_Page_Up, GDK_CONTROL_MASK,
+                                select_stage_cb, "i", -1);
+  gtk_widget_class_add_binding (widget_class, GDK_KEY_Page_Down, GDK_CONTROL_MASK,
+                                select_stage_cb, "i", +1);
+}
+
+static void
+sw_window_init (SwWindow *self)
+{
+  self->recovery_slot = -1;
+  gtk_widget_init_template (GTK_WIDGET (self));
+
+  self->settings = sw_application_settings_new ();
+  gtk_window_set_default_size (GTK_WINDOW (self),
+                               g_settings_get_int (self->settings, "window-width"),
+                               g_settings_get_int (self->settings, "window-height"));
+  if (g_settings_get_boolean (self->settings, "window-maximized"))
+    gtk_window_maximize (GTK_WINDOW (self));
+
+  self->document = sw_document_new ();
+  self->solver = sw_solver_new ();
+  g_signal_connect_swapped (self->document, "changed", G_CALLBACK (document_changed_cb), self);
+  g_signal_connect_swapped (self->solver, "solved", G_CALLBACK (solved_cb), self);
+  sw_inspector_set_document (self->inspector, self->document);
+  g_object_bind_property (self->inspector, "selected-stage", self->stack_view, "selected-stage",
+                          G_BINDING_SYNC_CREATE | G_BINDING_BIDIRECTIONAL);
+  g_signal_connect_swapped (self->inspector, "notify::selected-stage",
+                            G_CALLBACK (selected_stage_cb), self);
+  selected_stage_cb (self);
+
+  g_signal_connect_swapped (gtk_recent_manager_get_default (), "changed",
+                            G_CALLBACK (rebuild_recent_menu), self);
+  rebuild_recent_menu (self);
+
+  claim_recovery_slot (self);
+  check_recovery (self);
+
+  update_title (self);
+  update_actions (self);
+  sw_solver_post (self->solver, sw_document_get_design (self->document));
+}

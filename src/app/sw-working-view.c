@@ -1,0 +1,309 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+#define G_LOG_DOMAIN "sw-working-view"
+
+#include "config.h"
+
+#include "sw-working-view.h"
+
+#include "sw-format.h"
+
+#include <glib/gi18n.h>
+#include <math.h>
+
+struct _SwWorkingView {
+  GtkWidget    parent_instance;
+  SwResult    *result;
+  int          selected;
+  GtkLabel    *title_label;
+  GtkTextView *text_view;
+};
+
+G_DEFINE_FINAL_TYPE (SwWorkingView, sw_working_view, GTK_TYPE_WIDGET)
+
+/* Numbers as typed into a calculator: grouping for masses and speeds, four
+ * decimals for ratios.  The em dash for anything not finite. */
+static char *
+num (const char *format, double value)
+{
+  return sw_format_value (format, value);
+}
+
+#define KG(v) num ("%'.1f", (v))
+#define MS(v) num ("%'.1f", (v))
+#define RATIO(v) num ("%.4f", (v))
+
+static void G_GNUC_PRINTF (3, 4)
+line (GString *s, const char *label, const char *format, ...)
+{
+  va_list args;
+  g_autofree char *text = NULL;
+  glong width = g_utf8_strlen (label, -1);
+
+  va_start (args, format);
+  text = g_strdup_vprintf (format, args);
+  va_end (args);
+  g_string_append (s, label);
+  for (glong i = width; i < 22; i++)
+    g_string_append_c (s, ' ');
+  g_string_append (s, text);
+  g_string_append_c (s, '\n');
+}
+
+static void
+cont (GString *s, const char *text)
+{
+  g_string_append (s, "                        ");
+  g_string_append (s, text);
+  g_string_append_c (s, '\n');
+}
+
+static char *
+build_text (SwWorkingView *self, gboolean for_copy)
+{
+  SwResult *r = self->result;
+  const SwDesign *d;
+  const SwStage *st;
+  const SwStageResult *sr;
+  const SwSizing *sz;
+  GString *s;
+  guint i;
+
+  if (r == NULL)
+    return g_strdup (_("Waiting for the first sizing…"));
+  if (!r->ok)
+    return g_strdup_printf (_("This design cannot be sized yet:\n%s"), r->error_message);
+  d = r->design;
+  sz = &r->sizing;
+  if (self->selected < 0 || (guint) self->selected >= d->n_stages || sz->n_stages != d->n_stages)
+    return g_strdup (_("Select a stage to see its working."));
+
+  i = (guint) self->selected;
+  st = &d->stages[i];
+  sr = &sz->stages[i];
+  s = g_string_new (NULL);
+
+  {
+    g_autofree char *dv = MS (sz->delta_v_m_s);
+    const char *split = sz->split == SW_SPLIT_OPTIMAL ? _("optimal (Lagrange multiplier)")
+                        : sz->split == SW_SPLIT_EQUAL ? _("equal") : _("manual");
+    /* Translators: header of the working; stage number, count, name */
+    g_string_append_printf (s, _("Stage %u of %u: %s\n"), i + 1, d->n_stages, st->name);
+    g_string_append_printf (s, _("Split: %s.  Required delta-v Δv = %s m/s.  g0 = 9.80665 m/s² (exact)\n\n"),
+                            split, dv);
+  }
+
+  {
+    g_autofree char *isp = num ("%.1f", st->isp_vac_s);
+    g_autofree char *c = MS (sr->exhaust_velocity_m_s);
+    line (s, _("Exhaust velocity"), _("c = Isp·g0 = %s s × 9.80665 m/s² = %s m/s"), isp, c);
+  }
+  {
+    g_autofree char *eps = RATIO (st->structural_coefficient);
+    line (s, _("Structural coeff."), _("ε = m_s/(m_s + m_p) = %s"), eps);
+  }
+
+  if (sz->split == SW_SPLIT_OPTIMAL && isfinite (sz->multiplier_s_m))
+    {
+      g_autofree char *eta = num ("%.6e", sz->multiplier_s_m);
+      g_autofree char *c = MS (sr->exhaust_velocity_m_s);
+      g_autofree char *eps = RATIO (st->structural_coefficient);
+      g_autofree char *n = RATIO (sr->mass_ratio);
+      g_autofree char *rhs = NULL;
+
+      line (s, _("Lagrange multiplier"), _("η = %s s/m (the same for every stage)"), eta);
+      if (sr->unused)
+        line (s, _("Mass ratio"),
+              _("n = (c·η − 1)/(c·ε·η) would be below 1: at the optimum this stage gets no delta-v, n = 1"));
+      else
+        {
+          line (s, _("Mass ratio"), "n = (c·η − 1)/(c·ε·η)");
+          rhs = g_strdup_printf ("= (%s × %s − 1)/(%s × %s × %s) = %s", c, eta, c, eps, eta, n);
+          cont (s, rhs);
+        }
+      {
+        g_autofree char *dv = MS (sr->delta_v_m_s);
+        g_autofree char *share = sw_format_fraction (sr->delta_v_share, 1);
+        g_autofree char *text = g_strdup_printf (_("Δv = c·ln n = %s × ln %s = %s m/s (%s of the total)"),
+                                                 c, n, dv, share);
+        line (s, _("Stage delta-v"), "%s", text);
+      }
+    }
+  else
+    {
+      g_autofree char *dv = MS (sr->delta_v_m_s);
+      g_autofree char *c = MS (sr->exhaust_velocity_m_s);
+      g_autofree char *n = RATIO (sr->mass_ratio);
+      g_autofree char *share = sw_format_fraction (sr->delta_v_share, 1);
+
+      line (s, _("Stage delta-v"), _("Δv = %s m/s (%s of the total, %s split)"), dv, share,
+            sz->split == SW_SPLIT_EQUAL ? _("equal") : _("manual"));
+      line (s, _("Mass ratio"), _("n = exp(Δv/c) = exp(%s / %s) = %s"), dv, c, n);
+    }
+
+  {
+    g_autofree char *limit = MS (sr->delta_v_limit_m_s);
+    g_autofree char *c = MS (sr->exhaust_velocity_m_s);
+    g_autofree char *eps = RATIO (st->structural_coefficient);
+    line (s, _("Stage limit"), _("c·ln(1/ε) = %s × ln(1/%s) = %s m/s (n reaches 1/ε)"), c, eps,
+          limit);
+  }
+  g_string_append_c (s, '\n');
+
+  if (!sz->feasible)
+    {
+      g_string_append_printf (s, _("No masses: the vehicle does not close.\n%s\n"), sz->reason);
+    }
+  else
+    {
+      g_autofree char *above = KG (sr->payload_mass_kg);
+      g_autofree char *n = RATIO (sr->mass_ratio);
+      g_autofree char *eps = RATIO (st->structural_coefficient);
+      g_autofree char *m0 = KG (sr->initial_mass_kg);
+      g_autofree char *mb = KG (sr->burnout_mass_kg);
+      g_autofree char *mp = KG (sr->propellant_mass_kg);
+      g_autofree char *ms = KG (sr->structural_mass_kg);
+      g_autofree char *mst = KG (sr->stage_mass_kg);
+      g_autofree char *rhs = NULL;
+
+      line (s, _("Mass above"), _("m_above = %s kg (payload and the stages above)"), above);
+      line (s, _("Initial mass"), "m0 = m_above·n·(1 − ε)/(1 − n·ε)");
+      rhs = g_strdup_printf ("= %s × %s × (1 − %s)/(1 − %s × %s) = %s kg", above, n, eps, n, eps,
+                             m0);
+      cont (s, rhs);
+      line (s, _("Burnout mass"), "m_b = m0/n = %s / %s = %s kg", m0, n, mb);
+      line (s, _("Propellant"), "m_p = m0 − m_b = %s − %s = %s kg", m0, mb, mp);
+      line (s, _("Structure"), "m_s = m_b − m_above = %s − %s = %s kg", mb, above, ms);
+      line (s, _("Stage mass"), "m_p + m_s = %s kg", mst);
+      g_string_append_c (s, '\n');
+
+      {
+        g_autofree char *lift = KG (sz->liftoff_mass_kg);
+        g_autofree char *pl = KG (sz->payload_kg);
+        g_autofree char *frac = sw_format_fraction (sz->payload_fraction, 3);
+        g_autofree char *lim = MS (sz->delta_v_limit_m_s);
+        g_autofree char *margin = MS (sz->margin_m_s);
+
+        line (s, _("Liftoff mass"), _("m0 of stage 1 = %s kg"), lift);
+        line (s, _("Payload fraction"), "%s / %s = %s", pl, lift, frac);
+        line (s, _("Vehicle limit"), _("Σ c_i·ln(1/ε_i) = %s m/s, margin %s m/s"), lim, margin);
+      }
+      if (sz->reason[0] != '\0')
+        g_string_append_printf (s, "\n%s\n", sz->reason);
+    }
+
+  if (for_copy)
+    {
+      g_string_append_c (s, '\n');
+      g_string_append (s, sw_format_cautions ());
+      g_string_append_c (s, '\n');
+    }
+  return g_string_free (s, FALSE);
+}
+
+static void
+update (SwWorkingView *self)
+{
+  g_autofree char *text = build_text (self, FALSE);
+  g_autofree char *title = NULL;
+  const SwDesign *d = self->result != NULL ? self->result->design : NULL;
+
+  if (d != NULL && self->selected >= 0 && (guint) self->selected < d->n_stages)
+    /* Translators: %d is the stage number, %s its name */
+    title = g_strdup_printf (_("The working for stage %d, %s"), self->selected + 1,
+                             d->stages[self->selected].name);
+  gtk_label_set_text (self->title_label, title != NULL ? title : _("The working"));
+  gtk_text_buffer_set_text (gtk_text_view_get_buffer (self->text_view), text, -1);
+  gtk_widget_action_set_enabled (GTK_WIDGET (self), "working.copy",
+                                 self->result != NULL && self->result->ok);
+}
+
+char *
+sw_working_view_dup_text (SwWorkingView *self)
+{
+  g_return_val_if_fail (SW_IS_WORKING_VIEW (self), NULL);
+  return build_text (self, TRUE);
+}
+
+static void
+copy_action (GtkWidget *widget, const char *name, GVariant *param)
+{
+  SwWorkingView *self = SW_WORKING_VIEW (widget);
+  g_autofree char *text = sw_working_view_dup_text (self);
+
+  gdk_clipboard_set_text (gtk_widget_get_clipboard (widget), text);
+}
+
+GtkWidget *
+sw_working_view_new (void)
+{
+  return g_object_new (SW_TYPE_WORKING_VIEW, NULL);
+}
+
+void
+sw_working_view_set_result (SwWorkingView *self, SwResult *result)
+{
+  g_return_if_fail (SW_IS_WORKING_VIEW (self));
+
+  if (self->result == result)
+    return;
+  g_clear_pointer (&self->result, sw_result_unref);
+  self->result = result != NULL ? sw_result_ref (result) : NULL;
+  /* The text is only rebuilt while visible; mapping rebuilds it. */
+  if (gtk_widget_get_mapped (GTK_WIDGET (self)))
+    update (self);
+}
+
+void
+sw_working_view_set_selected (SwWorkingView *self, int stage)
+{
+  g_return_if_fail (SW_IS_WORKING_VIEW (self));
+
+  if (self->selected == stage)
+    return;
+  self->selected = stage;
+  if (gtk_widget_get_mapped (GTK_WIDGET (self)))
+    update (self);
+}
+
+static void
+sw_working_view_map (GtkWidget *widget)
+{
+  GTK_WIDGET_CLASS (sw_working_view_parent_class)->map (widget);
+  update (SW_WORKING_VIEW (widget));
+}
+
+static void
+sw_working_view_dispose (GObject *object)
+{
+  SwWorkingView *self = SW_WORKING_VIEW (object);
+
+  g_clear_pointer (&self->result, sw_result_unref);
+  gtk_widget_dispose_template (GTK_WIDGET (self), SW_TYPE_WORKING_VIEW);
+  G_OBJECT_CLASS (sw_working_view_parent_class)->dispose (object);
+}
+
+static void
+sw_working_view_class_init (SwWorkingViewClass *klass)
+{
+  GObjectClass *object_class = G_OBJECT_CLASS (klass);
+  GtkWidgetClass *widget_class = GTK_WIDGET_CLASS (klass);
+
+  object_class->dispose = sw_working_view_dispose;
+  widget_class->map = sw_working_view_map;
+
+  gtk_widget_class_set_template_from_resource (widget_class,
+                                               "/org/stagewright/Stagewright/sw-working-view.ui");
+  gtk_widget_class_set_layout_manager_type (widget_class, GTK_TYPE_BIN_LAYOUT);
+  gtk_widget_class_set_css_name (widget_class, "sw-working-view");
+  gtk_widget_class_bind_template_child (widget_class, SwWorkingView, title_label);
+  gtk_widget_class_bind_template_child (widget_class, SwWorkingView, text_view);
+  gtk_widget_class_install_action (widget_class, "working.copy", NULL, copy_action);
+}
+
+static void
+sw_working_view_init (SwWorkingView *self)
+{
+  self->selected = -1;
+  gtk_widget_init_template (GTK_WIDGET (self));
+  update (self);
+}

@@ -1,0 +1,564 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* The trade-study subcommands: sensitivity, montecarlo, reliability, export. */
+#include "config.h"
+
+#include "sw-cli.h"
+
+#include "sw-comparison.h"
+#include "sw-montecarlo.h"
+#include "sw-reliability.h"
+#include "sw-sensitivity.h"
+#include "sw-csv.h"
+#include "sw-sheet.h"
+#include "sw-sizing.h"
+
+#include <math.h>
+#include <string.h>
+
+static gboolean opt_json;
+
+/* ---- sensitivity ------------------------------------------------------- */
+
+static double opt_step = SW_SENSITIVITY_DEFAULT_STEP * 100.0;
+
+static GOptionEntry sensitivity_entries[] = {
+  { "step", 0, 0, G_OPTION_ARG_DOUBLE, &opt_step,
+    "Plus-or-minus step of the tornado, percent of each value (default 5)", "PCT" },
+  { "json", 0, 0, G_OPTION_ARG_NONE, &opt_json, "Print JSON for machines", NULL },
+  { NULL }
+};
+
+static const char *
+unit_of (SwSensParam p)
+{
+  switch (p)
+    {
+    case SW_SENS_PAYLOAD:
+      return "kg/kg";
+    case SW_SENS_DELTA_V:
+      return "kg/(m/s)";
+    case SW_SENS_ISP:
+      return "kg/s";
+    case SW_SENS_STRUCTURAL_COEFFICIENT:
+    default:
+      return "kg/unit";
+    }
+}
+
+int
+sw_cli_sensitivity (int argc, char **argv)
+{
+  g_autoptr (SwDesign) d = NULL;
+  g_autoptr (GError) error = NULL;
+  SwSensitivityTable t;
+  int code;
+
+  opt_json = FALSE;
+  opt_step = SW_SENSITIVITY_DEFAULT_STEP * 100.0;
+  if (!sw_cli_parse ("sensitivity", sensitivity_entries, &argc, &argv, 1, &code))
+    return code;
+  if (!(opt_step >= 0.1 && opt_step <= 50.0))
+    {
+      g_printerr ("stagewright-cli sensitivity: --step must be 0.1 to 50 percent, not %g\n",
+                  opt_step);
+      return SW_EXIT_USAGE;
+    }
+  if ((d = sw_cli_load (argv[1])) == NULL)
+    return SW_EXIT_USAGE;
+  if (!sw_sensitivity_compute (d, opt_step / 100.0, &t, &error))
+    {
+      g_printerr ("error: %s: %s\n", argv[1], error->message);
+      return SW_EXIT_USAGE;
+    }
+
+  if (opt_json)
+    {
+      g_autoptr (JsonBuilder) b = json_builder_new_immutable ();
+      g_autoptr (JsonNode) node = NULL;
+
+      json_builder_begin_object (b);
+      json_builder_set_member_name (b, "feasible");
+      json_builder_add_boolean_value (b, t.feasible);
+      sw_cli_add_number (b, "liftoff_mass_kg", t.liftoff_mass_kg);
+      sw_cli_add_number (b, "step_percent", t.step * 100.0);
+      json_builder_set_member_name (b, "parameters");
+      json_builder_begin_array (b);
+      for (guint r = 0; r < t.n_items; r++)
+        {
+          const SwSensitivity *it = &t.items[t.ranked[r]];
+          g_autofree char *label = sw_sensitivity_dup_label (d, it);
+
+          json_builder_begin_object (b);
+          json_builder_set_member_name (b, "rank");
+          json_builder_add_int_value (b, r + 1);
+          json_builder_set_member_name (b, "parameter");
+          json_builder_add_string_value (b, sw_sens_param_to_string (it->param));
+          json_builder_set_member_name (b, "stage");
+          if (it->stage >= 0)
+            json_builder_add_int_value (b, it->stage + 1);
+          else
+            json_builder_add_null_value (b);
+          json_builder_set_member_name (b, "label");
+          json_builder_add_string_value (b, label);
+          sw_cli_add_number (b, "value", it->value);
+          sw_cli_add_number (b, "derivative_kg_per_unit", it->derivative);
+          sw_cli_add_number (b, "elasticity", it->elasticity);
+          sw_cli_add_number (b, "minus_step_kg", it->minus_kg);
+          sw_cli_add_number (b, "plus_step_kg", it->plus_kg);
+          json_builder_end_object (b);
+        }
+      json_builder_end_array (b);
+      json_builder_set_member_name (b, "exchange_ratios");
+      json_builder_begin_array (b);
+      for (guint i = 0; t.feasible && i < t.n_stages; i++)
+        {
+          json_builder_begin_object (b);
+          json_builder_set_member_name (b, "stage");
+          json_builder_add_int_value (b, i + 1);
+          json_builder_set_member_name (b, "name");
+          json_builder_add_string_value (b, d->stages[i].name);
+          sw_cli_add_number (b, "payload_lost_per_kg_dry", t.exchange_ratio[i]);
+          json_builder_end_object (b);
+        }
+      json_builder_end_array (b);
+      json_builder_set_member_name (b, "caution");
+      json_builder_add_string_value (b, sw_cli_caution);
+      json_builder_end_object (b);
+      node = json_builder_get_root (b);
+      sw_cli_print_json (node);
+      return SW_EXIT_OK;
+    }
+
+  g_print ("Design: %s\n", d->name);
+  if (!t.feasible)
+    {
+      g_print ("The design is infeasible: no sensitivities.\n\n%s\n", sw_cli_caution);
+      return SW_EXIT_OK;
+    }
+  g_print ("Liftoff mass %.1f kg; tornado step +-%g %%, largest effect first\n\n",
+           t.liftoff_mass_kg, t.step * 100.0);
+  g_print ("%-3s %-40s %12s %14s %-9s %10s %12s %12s\n", "#", "parameter", "value", "dm0/dx",
+           "unit", "elasticity", "-step kg", "+step kg");
+  for (guint r = 0; r < t.n_items; r++)
+    {
+      const SwSensitivity *it = &t.items[t.ranked[r]];
+      g_autofree char *label = sw_sensitivity_dup_label (d, it);
+      g_autofree char *mi = it->minus_feasible ? sw_cli_format (it->minus_kg, 1)
+                                               : g_strdup ("infeasible");
+      g_autofree char *pl = it->plus_feasible ? sw_cli_format (it->plus_kg, 1)
+                                              : g_strdup ("infeasible");
+      g_print ("%-3u %-40.40s %12.5g %14.5g %-9s %10.3f %12s %12s\n", r + 1, label, it->value,
+               it->derivative, unit_of (it->param), it->elasticity, mi, pl);
+    }
+  g_print ("\nPayload exchange ratios (propellant loads fixed): payload lost per kg of dry "
+           "mass added\n");
+  for (guint i = 0; i < t.n_stages; i++)
+    {
+      g_autofree char *x = sw_cli_format (t.exchange_ratio[i], 4);
+      g_print ("  stage %u %-28.28s %10s kg/kg\n", i + 1, d->stages[i].name, x);
+    }
+  g_print ("\n%s\n", sw_cli_caution);
+  return SW_EXIT_OK;
+}
+
+/* ---- montecarlo -------------------------------------------------------- */
+
+static int opt_samples;
+static gint64 opt_seed = -1;
+static int opt_threads;
+
+static GOptionEntry montecarlo_entries[] = {
+  { "samples", 0, 0, G_OPTION_ARG_INT, &opt_samples,
+    "Number of samples (default: the design's, else 10000)", "N" },
+  { "seed", 0, 0, G_OPTION_ARG_INT64, &opt_seed,
+    "Seed of the random stream (default: the design's, else 1)", "S" },
+  { "threads", 0, 0, G_OPTION_ARG_INT, &opt_threads, "Threads (default: all cores)", "T" },
+  { "json", 0, 0, G_OPTION_ARG_NONE, &opt_json, "Print JSON for machines", NULL },
+  { NULL }
+};
+
+static void
+add_summary (JsonBuilder *b, const char *key, const SwMcSummary *s)
+{
+  json_builder_set_member_name (b, key);
+  json_builder_begin_object (b);
+  json_builder_set_member_name (b, "count");
+  json_builder_add_int_value (b, s->n);
+  sw_cli_add_number (b, "mean", s->mean);
+  sw_cli_add_number (b, "sd", s->sd);
+  sw_cli_add_number (b, "p05", s->p05);
+  sw_cli_add_number (b, "p50", s->p50);
+  sw_cli_add_number (b, "p95", s->p95);
+  sw_cli_add_number (b, "min", s->min);
+  sw_cli_add_number (b, "max", s->max);
+  json_builder_set_member_name (b, "histogram");
+  json_builder_begin_object (b);
+  sw_cli_add_number (b, "lower", s->bin_lo);
+  sw_cli_add_number (b, "upper", s->bin_hi);
+  json_builder_set_member_name (b, "counts");
+  json_builder_begin_array (b);
+  for (guint i = 0; s->n > 0 && i < SW_MC_BINS; i++)
+    json_builder_add_int_value (b, s->bins[i]);
+  json_builder_end_array (b);
+  json_builder_end_object (b);
+  json_builder_end_object (b);
+}
+
+static void
+add_spread (JsonBuilder *b, const char *key, const SwSpread *s, const char *unit)
+{
+  json_builder_set_member_name (b, key);
+  json_builder_begin_object (b);
+  json_builder_set_member_name (b, "distribution");
+  json_builder_add_string_value (b, sw_spread_kind_to_string (s->kind));
+  sw_cli_add_number (b, unit, s->kind == SW_SPREAD_NONE ? 0.0 : s->width);
+  json_builder_end_object (b);
+}
+
+static void
+print_summary (const char *title, const SwMcSummary *s, const char *unit)
+{
+  g_autofree char *mean = sw_cli_format (s->mean, 1), *sd = sw_cli_format (s->sd, 1);
+  g_autofree char *p05 = sw_cli_format (s->p05, 1), *p50 = sw_cli_format (s->p50, 1);
+  g_autofree char *p95 = sw_cli_format (s->p95, 1);
+
+  g_print ("%s (%u samples)\n", title, s->n);
+  g_print ("  mean %s %s   sd %s %s\n", mean, unit, sd, unit);
+  g_print ("  5th %s   50th %s   95th percentile %s %s\n", p05, p50, p95, unit);
+}
+
+static const char *
+spread_text (const SwSpread *s, const char *unit, char *buf, gsize size)
+{
+  if (s->kind == SW_SPREAD_NONE || s->width <= 0.0)
+    return "none";
+  g_snprintf (buf, size, "%s, %s %g %s", sw_spread_kind_to_string (s->kind),
+              s->kind == SW_SPREAD_NORMAL ? "sigma" : "+-", s->width, unit);
+  return buf;
+}
+
+int
+sw_cli_montecarlo (int argc, char **argv)
+{
+  g_autoptr (SwDesign) d = NULL;
+  g_autoptr (GError) error = NULL;
+  SwMonteCarlo mc;
+  char b1[64], b2[64], b3[64];
+  int code;
+
+  opt_json = FALSE;
+  opt_samples = 0;
+  opt_seed = -1;
+  opt_threads = 0;
+  if (!sw_cli_parse ("montecarlo", montecarlo_entries, &argc, &argv, 1, &code))
+    return code;
+  if (opt_samples != 0 && (opt_samples < 100 || opt_samples > 1000000))
+    {
+      g_printerr ("stagewright-cli montecarlo: --samples must be 100 to 1000000, not %d\n",
+                  opt_samples);
+      return SW_EXIT_USAGE;
+    }
+  if (opt_seed < -1 || opt_seed > G_MAXUINT32)
+    {
+      g_printerr ("stagewright-cli montecarlo: --seed must be 0 to 4294967295\n");
+      return SW_EXIT_USAGE;
+    }
+  if (opt_threads < 0 || opt_threads > 64)
+    {
+      g_printerr ("stagewright-cli montecarlo: --threads must be 1 to 64 (0 = all cores)\n");
+      return SW_EXIT_USAGE;
+    }
+  if ((d = sw_cli_load (argv[1])) == NULL)
+    return SW_EXIT_USAGE;
+  if (!d->uncertainty.present || !sw_uncertainty_has_spread (&d->uncertainty))
+    g_printerr ("warning: %s: the design has no \"uncertainty\" spreads; every sample is the "
+                "nominal design\n",
+                argv[1]);
+  if (!sw_montecarlo_run (d, NULL, (guint) opt_samples, opt_seed >= 0, (guint32) MAX (opt_seed, 0),
+                          (guint) opt_threads, &mc, NULL, NULL, &error))
+    {
+      g_printerr ("error: %s: %s\n", argv[1], error->message);
+      return SW_EXIT_USAGE;
+    }
+
+  if (opt_json)
+    {
+      g_autoptr (JsonBuilder) b = json_builder_new_immutable ();
+      g_autoptr (JsonNode) node = NULL;
+
+      json_builder_begin_object (b);
+      json_builder_set_member_name (b, "samples");
+      json_builder_add_int_value (b, mc.samples);
+      json_builder_set_member_name (b, "seed");
+      json_builder_add_int_value (b, mc.seed);
+      json_builder_set_member_name (b, "threads");
+      json_builder_add_int_value (b, mc.threads);
+      json_builder_set_member_name (b, "spreads");
+      json_builder_begin_object (b);
+      add_spread (b, "isp_vac", &mc.spreads.isp, "percent");
+      add_spread (b, "structural_coefficient", &mc.spreads.structural_coefficient, "percent");
+      add_spread (b, "losses", &mc.spreads.losses, "m_s");
+      json_builder_end_object (b);
+      json_builder_set_member_name (b, "nominal_feasible");
+      json_builder_add_boolean_value (b, mc.nominal_feasible);
+      sw_cli_add_number (b, "nominal_liftoff_mass_kg", mc.nominal_liftoff_kg);
+      sw_cli_add_number (b, "required_payload_kg", mc.required_payload_kg);
+      sw_cli_add_number (b, "nominal_delta_v_m_s", mc.nominal_delta_v_m_s);
+      add_summary (b, "liftoff_mass_kg", &mc.liftoff);
+      sw_cli_add_number (b, "infeasible_fraction", mc.infeasible_fraction);
+      add_summary (b, "fixed_vehicle_payload_kg", &mc.payload);
+      sw_cli_add_number (b, "probability_negative_margin", mc.p_negative_margin);
+      sw_cli_add_number (b, "payload_reserve_95_kg", mc.reserve_95_kg);
+      json_builder_set_member_name (b, "margin_definition");
+      json_builder_add_string_value (b, "payload margin = payload that the nominal vehicle "
+                                        "(fixed propellant loads) carries to the sampled "
+                                        "delta-v minus the required payload");
+      json_builder_set_member_name (b, "caution");
+      json_builder_add_string_value (b, sw_cli_caution);
+      json_builder_end_object (b);
+      node = json_builder_get_root (b);
+      sw_cli_print_json (node);
+      return SW_EXIT_OK;
+    }
+
+  g_print ("Design: %s\n", d->name);
+  g_print ("%u samples, seed %u, %u thread(s)\n", mc.samples, mc.seed, mc.threads);
+  g_print ("Spreads: Isp %s; structural coefficient %s; losses %s\n\n",
+           spread_text (&mc.spreads.isp, "%", b1, sizeof b1),
+           spread_text (&mc.spreads.structural_coefficient, "%", b2, sizeof b2),
+           spread_text (&mc.spreads.losses, "m/s", b3, sizeof b3));
+  print_summary ("Liftoff mass needed for the payload", &mc.liftoff, "kg");
+  {
+    g_autofree char *nom = sw_cli_format (mc.nominal_liftoff_kg, 1);
+    g_print ("  nominal %s kg; infeasible samples %.2f %%\n\n", nom,
+             100.0 * mc.infeasible_fraction);
+  }
+  if (mc.payload.n > 0)
+    {
+      g_autofree char *res = sw_cli_format (mc.reserve_95_kg, 1);
+      print_summary ("Payload of the nominal vehicle (propellant loads fixed)", &mc.payload,
+                     "kg");
+      g_print ("  required %.1f kg; probability of a negative margin %.1f %%\n",
+               mc.required_payload_kg, 100.0 * mc.p_negative_margin);
+      g_print ("  payload reserve for 95 %% confidence: %s kg\n", res);
+      g_print ("  (margin = payload the built vehicle carries minus the required payload)\n");
+    }
+  else
+    g_print ("The nominal design is infeasible: no fixed vehicle to test.\n");
+  g_print ("\n%s\n", sw_cli_caution);
+  return SW_EXIT_OK;
+}
+
+/* ---- reliability ------------------------------------------------------- */
+
+static GOptionEntry json_entries[] = {
+  { "json", 0, 0, G_OPTION_ARG_NONE, &opt_json, "Print JSON for machines", NULL },
+  { NULL }
+};
+
+int
+sw_cli_reliability (int argc, char **argv)
+{
+  g_autoptr (SwDesign) d = NULL;
+  SwReliability r;
+  SwReliabilityCurve curve;
+  int code;
+
+  opt_json = FALSE;
+  if (!sw_cli_parse ("reliability", json_entries, &argc, &argv, 1, &code))
+    return code;
+  if ((d = sw_cli_load (argv[1])) == NULL)
+    return SW_EXIT_USAGE;
+  sw_design_reliability (d, &r);
+  sw_reliability_curve_compute (d, SW_MAX_STAGES, &curve);
+  if (!r.given)
+    g_printerr ("warning: %s: no stage has reliability keys; every stage counts as perfect\n",
+                argv[1]);
+
+  if (opt_json)
+    {
+      g_autoptr (JsonBuilder) b = json_builder_new_immutable ();
+      g_autoptr (JsonNode) node = NULL;
+
+      json_builder_begin_object (b);
+      json_builder_set_member_name (b, "given");
+      json_builder_add_boolean_value (b, r.given);
+      sw_cli_add_number (b, "mission_success", r.mission);
+      json_builder_set_member_name (b, "stages");
+      json_builder_begin_array (b);
+      for (guint i = 0; i < r.n_stages; i++)
+        {
+          SwReliabilityInputs in;
+
+          sw_reliability_inputs (&d->stages[i].reliability, &in);
+          json_builder_begin_object (b);
+          json_builder_set_member_name (b, "name");
+          json_builder_add_string_value (b, d->stages[i].name);
+          json_builder_set_member_name (b, "engine_count");
+          json_builder_add_int_value (b, in.engine_count);
+          sw_cli_add_number (b, "engine_reliability", in.engine_reliability);
+          json_builder_set_member_name (b, "engine_failures_tolerated");
+          json_builder_add_int_value (b, in.failures_tolerated);
+          sw_cli_add_number (b, "ignition_reliability", in.ignition_reliability);
+          sw_cli_add_number (b, "engines_success", r.engines[i]);
+          sw_cli_add_number (b, "stage_success", r.stage[i]);
+          json_builder_set_member_name (b, "separation_success");
+          if (i + 1 < r.n_stages)
+            json_builder_add_double_value (b, r.separation[i]);
+          else
+            json_builder_add_null_value (b);
+          json_builder_end_object (b);
+        }
+      json_builder_end_array (b);
+      json_builder_set_member_name (b, "curve");
+      json_builder_begin_array (b);
+      for (guint n = 0; n < curve.n_points; n++)
+        {
+          json_builder_begin_object (b);
+          json_builder_set_member_name (b, "stages");
+          json_builder_add_int_value (b, n + 1);
+          sw_cli_add_number (b, "mission_success", curve.mission[n]);
+          json_builder_end_object (b);
+        }
+      json_builder_end_array (b);
+      json_builder_set_member_name (b, "caution");
+      json_builder_add_string_value (b, sw_cli_caution);
+      json_builder_end_object (b);
+      node = json_builder_get_root (b);
+      sw_cli_print_json (node);
+      return SW_EXIT_OK;
+    }
+
+  g_print ("Design: %s\n\n", d->name);
+  g_print ("%-3s %-24s %7s %9s %9s %9s %10s %10s %11s\n", "#", "stage", "engines", "r_engine",
+           "tolerated", "ignition", "engines P", "stage P", "separation");
+  for (guint i = 0; i < r.n_stages; i++)
+    {
+      SwReliabilityInputs in;
+      g_autofree char *sep = i + 1 < r.n_stages ? sw_cli_format (r.separation[i], 6)
+                                                : g_strdup ("-");
+
+      sw_reliability_inputs (&d->stages[i].reliability, &in);
+      g_print ("%-3u %-24.24s %7u %9.5f %9u %9.5f %10.6f %10.6f %11s\n", i + 1,
+               d->stages[i].name, in.engine_count, in.engine_reliability, in.failures_tolerated,
+               in.ignition_reliability, r.engines[i], r.stage[i], sep);
+    }
+  g_print ("\nMission success probability: %.6f (%.3f %%)\n\n", r.mission, 100.0 * r.mission);
+  g_print ("Against stage count (stage k takes design stage min(k, %u)):\n", d->n_stages);
+  for (guint n = 0; n < curve.n_points; n++)
+    g_print ("  %u stage%s  %.6f\n", n + 1, n == 0 ? " " : "s", curve.mission[n]);
+  g_print ("\n%s\n", sw_cli_caution);
+  return SW_EXIT_OK;
+}
+
+/* ---- export ------------------------------------------------------------ */
+
+static char *opt_pdf, *opt_svg, *opt_png, *opt_csv, *opt_paper;
+static gboolean opt_no_montecarlo;
+
+static GOptionEntry export_entries[] = {
+  { "pdf", 0, 0, G_OPTION_ARG_FILENAME, &opt_pdf, "Write the briefing sheet as PDF", "OUT" },
+  { "svg", 0, 0, G_OPTION_ARG_FILENAME, &opt_svg, "Write the briefing sheet as SVG", "OUT" },
+  { "png", 0, 0, G_OPTION_ARG_FILENAME, &opt_png, "Write the briefing sheet as PNG (150 dpi)",
+    "OUT" },
+  { "csv", 0, 0, G_OPTION_ARG_FILENAME, &opt_csv,
+    "Write the stage table and every curve as CSV files into the folder OUT", "OUT" },
+  { "paper", 0, 0, G_OPTION_ARG_STRING, &opt_paper, "Paper size: a4 (default) or letter",
+    "SIZE" },
+  { "threads", 0, 0, G_OPTION_ARG_INT, &opt_threads,
+    "Threads for the Monte Carlo (default: all cores)", "T" },
+  { "no-montecarlo", 0, 0, G_OPTION_ARG_NONE, &opt_no_montecarlo,
+    "Skip the Monte Carlo even when the design has spreads", NULL },
+  { NULL }
+};
+
+static void
+clear_export_options (void)
+{
+  g_clear_pointer (&opt_pdf, g_free);
+  g_clear_pointer (&opt_svg, g_free);
+  g_clear_pointer (&opt_png, g_free);
+  g_clear_pointer (&opt_csv, g_free);
+  g_clear_pointer (&opt_paper, g_free);
+}
+
+int
+sw_cli_export (int argc, char **argv)
+{
+  g_autoptr (SwDesign) d = NULL;
+  g_autoptr (SwBriefing) b = NULL;
+  g_autoptr (GError) error = NULL;
+  SwPaper paper = SW_PAPER_A4;
+  int code = SW_EXIT_OK;
+  struct { char **path; SwSheetFormat format; } sheets[] = {
+    { &opt_pdf, SW_SHEET_PDF }, { &opt_svg, SW_SHEET_SVG }, { &opt_png, SW_SHEET_PNG },
+  };
+
+  clear_export_options ();
+  opt_threads = 0;
+  opt_no_montecarlo = FALSE;
+  if (!sw_cli_parse ("export", export_entries, &argc, &argv, 1, &code))
+    goto out;
+  if (opt_pdf == NULL && opt_svg == NULL && opt_png == NULL && opt_csv == NULL)
+    {
+      g_printerr ("stagewright-cli export: give at least one of --pdf, --svg, --png or --csv "
+                  "(see --help)\n");
+      code = SW_EXIT_USAGE;
+      goto out;
+    }
+  if (opt_paper != NULL && !sw_paper_from_string (opt_paper, &paper))
+    {
+      g_printerr ("stagewright-cli export: --paper must be a4 or letter, not '%s'\n", opt_paper);
+      code = SW_EXIT_USAGE;
+      goto out;
+    }
+  if (opt_threads < 0 || opt_threads > 64)
+    {
+      g_printerr ("stagewright-cli export: --threads must be 1 to 64 (0 = all cores)\n");
+      code = SW_EXIT_USAGE;
+      goto out;
+    }
+  if ((d = sw_cli_load (argv[1])) == NULL)
+    {
+      code = SW_EXIT_USAGE;
+      goto out;
+    }
+  b = sw_briefing_new (d, opt_no_montecarlo ? SW_BRIEFING_NONE
+                                            : SW_BRIEFING_MONTECARLO | SW_BRIEFING_BAND,
+                       (guint) opt_threads, &error);
+  if (b == NULL)
+    {
+      g_printerr ("error: %s: %s\n", argv[1], error->message);
+      code = SW_EXIT_USAGE;
+      goto out;
+    }
+
+  for (guint i = 0; i < G_N_ELEMENTS (sheets); i++)
+    {
+      if (*sheets[i].path == NULL)
+        continue;
+      if (!sw_sheet_export (b, sheets[i].format, paper, *sheets[i].path, &error))
+        {
+          g_printerr ("error: %s\n", error->message);
+          code = SW_EXIT_FAILURE;
+          goto out;
+        }
+      g_print ("wrote %s\n", *sheets[i].path);
+    }
+  if (opt_csv != NULL)
+    {
+      g_autoptr (GPtrArray) written = g_ptr_array_new_with_free_func (g_free);
+      if (!sw_csv_export (b, opt_csv, written, &error))
+        {
+          g_printerr ("error: %s\n", error->message);
+          code = SW_EXIT_FAILURE;
+          goto out;
+        }
+      for (guint i = 0; i < written->len; i++)
+        g_print ("wrote %s\n", (const char *) written->pdata[i]);
+    }
+
+out:
+  clear_export_options ();
+  return code;
+}

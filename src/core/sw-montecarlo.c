@@ -1,0 +1,367 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+#define G_LOG_DOMAIN "sw-montecarlo"
+
+#include "config.h"
+
+#include "sw-montecarlo.h"
+
+#include "sw-fixed-vehicle.h"
+#include "sw-sizing.h"
+
+#include <glib/gi18n-lib.h>
+#include <gsl/gsl_histogram.h>
+#include <gsl/gsl_randist.h>
+#include <gsl/gsl_rng.h>
+#include <gsl/gsl_sort.h>
+#include <gsl/gsl_statistics_double.h>
+#include <math.h>
+#include <string.h>
+
+typedef struct {
+  SwStageSet     set;          /* nominal stages of the vehicle sampled */
+  SwSplitMode    split;
+  double         payload_kg;
+  double         delta_v_m_s;
+  SwUncertainty  unc;
+  gboolean       have_vehicle;
+  SwFixedVehicle vehicle;      /* nominal propellant loads (question 2) */
+  guint          samples;
+  guint32        seed;
+  double        *liftoff;      /* per sample, NAN when infeasible */
+  double        *payload;      /* per sample, or NULL to skip question 2 */
+  gint           next_block;   /* atomic */
+} McJob;
+
+/* SplitMix64 finaliser (Steele, Lea and Flood, "Fast splittable pseudorandom
+ * number generators", OOPSLA 2014): spreads (seed, block) over the generator's
+ * seed space so neighbouring blocks get unrelated streams. */
+static guint64
+mix64 (guint64 z)
+{
+  z += G_GUINT64_CONSTANT (0x9E3779B97F4A7C15);
+  z = (z ^ (z >> 30)) * G_GUINT64_CONSTANT (0xBF58476D1CE4E5B9);
+  z = (z ^ (z >> 27)) * G_GUINT64_CONSTANT (0x94D049BB133111EB);
+  return z ^ (z >> 31);
+}
+
+/* A zero-mean deviate of the spread (percent or m/s). */
+static double
+draw (gsl_rng *r, const SwSpread *s)
+{
+  switch (s->kind)
+    {
+    case SW_SPREAD_NORMAL:
+      return s->width > 0.0 ? gsl_ran_gaussian_ziggurat (r, s->width) : 0.0;
+    case SW_SPREAD_UNIFORM:
+      return s->width > 0.0 ? gsl_ran_flat (r, -s->width, s->width) : 0.0;
+    case SW_SPREAD_NONE:
+    default:
+      return 0.0;
+    }
+}
+
+/* Draws until the value stays physical (a normal tail could cross zero);
+ * after many tries the nominal value is kept. */
+static double
+draw_scaled (gsl_rng *r, const SwSpread *s, double nominal, double lo, double hi)
+{
+  for (int tries = 0; tries < 64; tries++)
+    {
+      double v = nominal * (1.0 + draw (r, s) / 100.0);
+      if (v > lo && v < hi)
+        return v;
+    }
+  return nominal;
+}
+
+static void
+run_sample (const McJob *job, gsl_rng *r, guint index)
+{
+  SwStageSet s = job->set;
+  double dvs[SW_MAX_STAGES], dv = job->delta_v_m_s, m = NAN;
+  gboolean ok = TRUE;
+
+  for (guint i = 0; i < s.n_stages; i++)
+    {
+      double c = job->set.exhaust_velocity_m_s[i];
+      s.exhaust_velocity_m_s[i] = draw_scaled (r, &job->unc.isp, c, 0.05 * c, INFINITY);
+      s.structural_coefficient[i] = draw_scaled (r, &job->unc.structural_coefficient,
+                                                 job->set.structural_coefficient[i], 1e-4,
+                                                 0.95);
+    }
+  for (int tries = 0; tries < 64; tries++)
+    {
+      double d = dv + draw (r, &job->unc.losses);
+      if (d > 0.0)
+        {
+          dv = d;
+          break;
+        }
+    }
+
+  switch (job->split)
+    {
+    case SW_SPLIT_EQUAL:
+      for (guint i = 0; i < s.n_stages; i++)
+        dvs[i] = dv / s.n_stages;
+      break;
+    case SW_SPLIT_MANUAL:
+      for (guint i = 0; i < s.n_stages; i++)
+        dvs[i] = s.share[i] * dv;
+      break;
+    case SW_SPLIT_OPTIMAL:
+    default:
+      ok = sw_optimal_split (&s, dv, dvs, NULL);
+      break;
+    }
+  if (ok)
+    m = sw_liftoff_mass_for_split (&s, job->payload_kg, dvs);
+  job->liftoff[index] = isfinite (m) ? m : NAN;
+
+  if (job->payload != NULL)
+    {
+      SwFixedVehicle v = job->vehicle;
+      double p = NAN;
+
+      for (guint i = 0; i < v.n_stages; i++)
+        {
+          double eps = s.structural_coefficient[i];
+          v.exhaust_velocity_m_s[i] = s.exhaust_velocity_m_s[i];
+          if (v.propellant_mass_kg[i] > 0.0)
+            v.structural_mass_kg[i] = v.propellant_mass_kg[i] * eps / (1.0 - eps);
+        }
+      if (!sw_fixed_vehicle_payload (&v, dv, &p))
+        p = NAN;
+      job->payload[index] = p;
+    }
+}
+
+static gpointer
+worker (gpointer data)
+{
+  McJob *job = data;
+  gsl_rng *r = gsl_rng_alloc (gsl_rng_mt19937);
+  guint n_blocks = (job->samples + SW_MC_BLOCK - 1) / SW_MC_BLOCK;
+
+  for (;;)
+    {
+      guint block = (guint) g_atomic_int_add (&job->next_block, 1);
+      guint first, last;
+
+      if (block >= n_blocks)
+        break;
+      gsl_rng_set (r, (unsigned long) (mix64 (((guint64) job->seed << 32) ^ block)
+                                       & G_GUINT64_CONSTANT (0xffffffff)));
+      first = block * SW_MC_BLOCK;
+      last = MIN (first + SW_MC_BLOCK, job->samples);
+      for (guint i = first; i < last; i++)
+        run_sample (job, r, i);
+    }
+  gsl_rng_free (r);
+  return NULL;
+}
+
+static guint
+run_job (McJob *job, guint threads)
+{
+  guint n_blocks = (job->samples + SW_MC_BLOCK - 1) / SW_MC_BLOCK;
+  GThread *pool[64];
+
+  if (threads == 0)
+    threads = g_get_num_processors ();
+  threads = CLAMP (threads, 1, MIN (64, n_blocks));
+  job->next_block = 0;
+  if (threads == 1)
+    {
+      worker (job);
+      return 1;
+    }
+  for (guint t = 0; t < threads; t++)
+    pool[t] = g_thread_new ("sw-montecarlo", worker, job);
+  for (guint t = 0; t < threads; t++)
+    g_thread_join (pool[t]);
+  return threads;
+}
+
+void
+sw_mc_summarise (const double *values, guint n, SwMcSummary *out)
+{
+  g_autofree double *v = g_new (double, MAX (n, 1));
+  gsl_histogram *h;
+  guint k = 0;
+  double lo, hi;
+
+  memset (out, 0, sizeof *out);
+  out->mean = out->sd = out->p05 = out->p50 = out->p95 = NAN;
+  out->min = out->max = out->bin_lo = out->bin_hi = NAN;
+  for (guint i = 0; i < n; i++)
+    if (isfinite (values[i]))
+      v[k++] = values[i];
+  out->n = k;
+  if (k == 0)
+    return;
+
+  gsl_sort (v, 1, k);
+  out->mean = gsl_stats_mean (v, 1, k);
+  out->sd = k > 1 ? gsl_stats_sd_m (v, 1, k, out->mean) : 0.0;
+  out->p05 = gsl_stats_quantile_from_sorted_data (v, 1, k, 0.05);
+  out->p50 = gsl_stats_quantile_from_sorted_data (v, 1, k, 0.50);
+  out->p95 = gsl_stats_quantile_from_sorted_data (v, 1, k, 0.95);
+  out->min = v[0];
+  out->max = v[k - 1];
+
+  /* Equal bins from the smallest to the largest sample; the top edge is
+   * nudged up so the largest sample falls into the last bin. */
+  lo = v[0];
+  hi = v[k - 1];
+  if (!(hi > lo))
+    {
+      double w = MAX (fabs (lo) * 1e-6, 1e-9);
+      lo -= w;
+      hi += w;
+    }
+  hi += (hi - lo) * 1e-9;
+  h = gsl_histogram_alloc (SW_MC_BINS);
+  gsl_histogram_set_ranges_uniform (h, lo, hi);
+  for (guint i = 0; i < k; i++)
+    gsl_histogram_increment (h, v[i]);
+  for (guint b = 0; b < SW_MC_BINS; b++)
+    out->bins[b] = (guint) gsl_histogram_get (h, b);
+  out->bin_lo = lo;
+  out->bin_hi = hi;
+  gsl_histogram_free (h);
+}
+
+static gboolean
+prepare (const SwDesign *design, const SwUncertainty *spreads, McJob *job, SwSizing *sizing,
+         GError **error)
+{
+  memset (job, 0, sizeof *job);
+  if (!sw_design_size (design, sizing, error))
+    return FALSE;
+  sw_stage_set_from_design (&job->set, design);
+  job->split = design->split;
+  job->payload_kg = design->payload_kg;
+  job->delta_v_m_s = sizing->delta_v_m_s;
+  job->unc = spreads != NULL ? *spreads : design->uncertainty;
+  return TRUE;
+}
+
+gboolean
+sw_montecarlo_run (const SwDesign *design, const SwUncertainty *spreads, guint samples,
+                   gboolean use_seed, guint32 seed, guint threads, SwMonteCarlo *out,
+                   double *liftoff_samples, double *payload_samples, GError **error)
+{
+  McJob job;
+  SwSizing sizing;
+  g_autofree double *liftoff = NULL, *payload = NULL;
+  guint infeasible = 0, short_of = 0;
+
+  g_return_val_if_fail (design != NULL && out != NULL, FALSE);
+
+  memset (out, 0, sizeof *out);
+  if (!prepare (design, spreads, &job, &sizing, error))
+    return FALSE;
+  job.samples = samples > 0 ? samples : sw_uncertainty_samples (&job.unc);
+  job.seed = use_seed ? seed : sw_uncertainty_seed (&job.unc);
+  if (job.samples < 2 || job.samples > 10000000)
+    {
+      g_set_error (error, SW_ERROR, SW_ERROR_USAGE,
+                   _("%u samples: a Monte Carlo run takes 2 to 10,000,000 samples."),
+                   job.samples);
+      return FALSE;
+    }
+  liftoff = g_new (double, job.samples);
+  job.liftoff = liftoff;
+  job.have_vehicle = sw_fixed_vehicle_from_sizing (&job.vehicle, &sizing);
+  if (job.have_vehicle)
+    payload = job.payload = g_new (double, job.samples);
+
+  out->threads = run_job (&job, threads);
+  out->samples = job.samples;
+  out->seed = job.seed;
+  out->spreads = job.unc;
+  out->nominal_feasible = sizing.feasible;
+  out->nominal_liftoff_kg = sizing.liftoff_mass_kg;
+  out->required_payload_kg = design->payload_kg;
+  out->nominal_delta_v_m_s = sizing.delta_v_m_s;
+
+  sw_mc_summarise (liftoff, job.samples, &out->liftoff);
+  for (guint i = 0; i < job.samples; i++)
+    infeasible += !isfinite (liftoff[i]);
+  out->infeasible_fraction = (double) infeasible / job.samples;
+
+  out->p_negative_margin = NAN;
+  out->reserve_95_kg = NAN;
+  if (payload != NULL)
+    {
+      sw_mc_summarise (payload, job.samples, &out->payload);
+      for (guint i = 0; i < job.samples; i++)
+        short_of += !(payload[i] >= design->payload_kg);
+      out->p_negative_margin = (double) short_of / job.samples;
+      out->reserve_95_kg = design->payload_kg - out->payload.p05;
+    }
+  else
+    sw_mc_summarise (NULL, 0, &out->payload);
+
+  if (liftoff_samples != NULL)
+    memcpy (liftoff_samples, liftoff, job.samples * sizeof *liftoff);
+  if (payload_samples != NULL)
+    for (guint i = 0; i < job.samples; i++)
+      payload_samples[i] = payload != NULL ? payload[i] : NAN;
+  return TRUE;
+}
+
+/* Quantile @q of @n samples of which the @k sorted finite ones are in @v and
+ * the rest are infeasible (infinitely heavy): NAN when it falls among those. */
+static double
+quantile_with_infeasible (const double *v, guint k, guint n, double q)
+{
+  double pos = q * (n - 1);
+  guint i = (guint) floor (pos);
+  double frac = pos - i;
+
+  if (k == 0 || i >= k || (frac > 0.0 && i + 1 >= k))
+    return NAN;
+  return frac > 0.0 ? (1.0 - frac) * v[i] + frac * v[i + 1] : v[i];
+}
+
+gboolean
+sw_montecarlo_band (const SwDesign *design, const SwUncertainty *spreads, guint max_stages,
+                    guint samples, guint32 seed, guint threads, SwMcBand *out, GError **error)
+{
+  McJob job;
+  SwSizing sizing;
+  g_autofree double *liftoff = NULL;
+
+  g_return_val_if_fail (design != NULL && out != NULL, FALSE);
+
+  memset (out, 0, sizeof *out);
+  if (!prepare (design, spreads, &job, &sizing, error))
+    return FALSE;
+  max_stages = CLAMP (max_stages, 1, SW_MAX_STAGES);
+  job.samples = samples > 0 ? samples : sw_uncertainty_samples (&job.unc);
+  job.seed = seed;
+  job.split = SW_SPLIT_OPTIMAL;
+  liftoff = g_new (double, job.samples);
+  job.liftoff = liftoff;
+  out->n_points = max_stages;
+  out->samples = job.samples;
+
+  for (guint n = 1; n <= max_stages; n++)
+    {
+      guint k = 0;
+
+      sw_stage_set_extend (&job.set, design, n);
+      run_job (&job, threads);
+      for (guint i = 0; i < job.samples; i++)
+        if (isfinite (liftoff[i]))
+          liftoff[k++] = liftoff[i];
+      gsl_sort (liftoff, 1, k);
+      out->feasible_fraction[n - 1] = (double) k / job.samples;
+      out->p05[n - 1] = quantile_with_infeasible (liftoff, k, job.samples, 0.05);
+      out->p50[n - 1] = quantile_with_infeasible (liftoff, k, job.samples, 0.50);
+      out->p95[n - 1] = quantile_with_infeasible (liftoff, k, job.samples, 0.95);
+    }
+  return TRUE;
+}

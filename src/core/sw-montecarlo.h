@@ -1,0 +1,89 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* sw-montecarlo.h: how much margin is there?  Samples the Isp and structural
+ * coefficient of every stage and the losses from the design's "uncertainty"
+ * spreads and answers two questions per sample:
+ *   1. the liftoff mass needed for the fixed payload (re-sized with the
+ *      design's split rule; the optimal split is re-optimised);
+ *   2. the payload that the nominal vehicle (the design's propellant loads,
+ *      structure = propellant x eps/(1 - eps) at the sampled eps) carries to
+ *      the sampled required delta-v.
+ * The payload margin is question 2's payload minus the required payload; it
+ * is negative when the built vehicle falls short.  The nominal vehicle has a
+ * margin of zero by construction, so symmetric spreads put about half of the
+ * samples below zero: the 5th percentile tells the reserve to carry.
+ *
+ * Samples run in blocks of SW_MC_BLOCK on all cores; each block draws from its
+ * own GSL generator seeded from (seed, block index), every sample is stored
+ * at its index and the statistics are taken in index order, so one seed gives
+ * bit-identical results whatever the thread count. */
+#pragma once
+
+#include "sw-design.h"
+#include "sw-uncertainty.h"
+#include "sw-types.h"
+
+G_BEGIN_DECLS
+
+#define SW_MC_BLOCK 256
+#define SW_MC_BINS 40
+
+typedef struct {
+  guint  n;               /* samples counted (finite values) */
+  double mean;
+  double sd;
+  double p05, p50, p95;
+  double min, max;
+  double bin_lo;          /* histogram: SW_MC_BINS equal bins over [bin_lo, bin_hi] */
+  double bin_hi;
+  guint  bins[SW_MC_BINS];
+} SwMcSummary;
+
+typedef struct {
+  guint    samples;
+  guint32  seed;
+  guint    threads;                 /* threads used */
+  SwUncertainty spreads;            /* the spreads used */
+  gboolean nominal_feasible;
+  double   nominal_liftoff_kg;      /* NAN when infeasible */
+  double   required_payload_kg;
+  double   nominal_delta_v_m_s;
+  /* Question 1 over the feasible samples. */
+  SwMcSummary liftoff;
+  double   infeasible_fraction;     /* samples beyond the vehicle's delta-v limit */
+  /* Question 2, when the nominal design is feasible (else n = 0). */
+  SwMcSummary payload;
+  double   p_negative_margin;       /* fraction of samples with payload < required */
+  double   reserve_95_kg;           /* required - p05 of payload: the reserve for 95 % */
+} SwMonteCarlo;
+
+/* The stage-count band: liftoff-mass percentiles of the N-stage vehicle of
+ * the stage-count curve (stage k takes design stage min(k, n)). */
+typedef struct {
+  guint  n_points;
+  guint  samples;
+  /* Percentiles over all samples, an infeasible sample counting as
+   * infinitely heavy: NAN where the percentile falls among those. */
+  double p05[SW_MAX_STAGES];
+  double p50[SW_MAX_STAGES];
+  double p95[SW_MAX_STAGES];
+  double feasible_fraction[SW_MAX_STAGES];
+} SwMcBand;
+
+/* Runs the design's spreads (@spreads overrides them when not NULL).
+ * @samples and @seed override the design's when @samples > 0 / @use_seed;
+ * @threads 0 = all cores.  @liftoff_samples and @payload_samples, when not
+ * NULL, receive every sample in index order (NAN for an infeasible one);
+ * they must hold the sample count. */
+gboolean sw_montecarlo_run (const SwDesign *design, const SwUncertainty *spreads,
+                            guint samples, gboolean use_seed, guint32 seed, guint threads,
+                            SwMonteCarlo *out, double *liftoff_samples,
+                            double *payload_samples, GError **error);
+
+gboolean sw_montecarlo_band (const SwDesign *design, const SwUncertainty *spreads,
+                             guint max_stages, guint samples, guint32 seed, guint threads,
+                             SwMcBand *out, GError **error);
+
+/* Statistics of @n values (NAN ones skipped): GSL's mean, sd and quantiles. */
+void     sw_mc_summarise (const double *values, guint n, SwMcSummary *out);
+
+G_END_DECLS

@@ -1,0 +1,255 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+#define G_LOG_DOMAIN "sw-sensitivity"
+
+#include "config.h"
+
+#include "sw-sensitivity.h"
+
+#include "sw-fixed-vehicle.h"
+
+#include <glib/gi18n-lib.h>
+#include <math.h>
+#include <string.h>
+
+/* With m0 = P prod_i f_i(n_i), f = n (1 - eps) / (1 - n eps) and
+ * n_i = exp(dv_i / c_i) (Tsiolkovsky, each stage carrying all above it):
+ *   d ln m0 / d eps_i = (n_i - 1) / ((1 - eps_i) (1 - n_i eps_i))     (n_i fixed)
+ *   d ln m0 / d c_i   = -dv_i / (c_i^2 (1 - n_i eps_i))               (dv_i fixed)
+ *   d ln m0 / d dv    = sum_i share_i / (c_i (1 - n_i eps_i))          (shares fixed)
+ *   d ln m0 / d P     = 1 / P.
+ * At the Lagrange optimum every firing stage has 1/(c_i (1 - n_i eps_i)) =
+ * eta, the multiplier (Curtis, Orbital Mechanics for Engineering Students,
+ * sec. 11.6), so d ln m0 / d dv = eta; by the envelope theorem the partials at
+ * the fixed optimal split equal the total derivatives. */
+void
+sw_sensitivity_analytic (const SwStageSet *set, const SwSizing *sizing, double *d_payload,
+                         double *d_delta_v, double *d_isp, double *d_eps)
+{
+  double m0 = sizing->liftoff_mass_kg, dlnm_ddv = 0.0;
+
+  g_return_if_fail (set != NULL && sizing != NULL && sizing->feasible);
+
+  for (guint i = 0; i < set->n_stages; i++)
+    {
+      const SwStageResult *r = &sizing->stages[i];
+      double c = set->exhaust_velocity_m_s[i], eps = set->structural_coefficient[i];
+      double n = r->mass_ratio, denom = 1.0 - n * eps;
+
+      if (d_eps != NULL)
+        d_eps[i] = m0 * (n - 1.0) / ((1.0 - eps) * denom);
+      if (d_isp != NULL)
+        d_isp[i] = -m0 * r->delta_v_m_s / (c * c * denom) * SW_G0;
+      dlnm_ddv += r->delta_v_share / (c * denom);
+    }
+  if (d_delta_v != NULL)
+    *d_delta_v = m0 * dlnm_ddv;
+  if (d_payload != NULL)
+    *d_payload = m0 / sizing->payload_kg;
+}
+
+static double
+perturbed_mass (const SwStageSet *set, double payload, double dv, SwSplitMode split,
+                SwSensParam param, int stage, double factor)
+{
+  SwStageSet s = *set;
+  SwSizing sizing;
+
+  switch (param)
+    {
+    case SW_SENS_PAYLOAD:
+      payload *= factor;
+      break;
+    case SW_SENS_DELTA_V:
+      dv *= factor;
+      break;
+    case SW_SENS_ISP:
+      s.exhaust_velocity_m_s[stage] *= factor;
+      break;
+    case SW_SENS_STRUCTURAL_COEFFICIENT:
+    default:
+      s.structural_coefficient[stage] *= factor;
+      break;
+    }
+  if (!(s.structural_coefficient[MAX (stage, 0)] < 1.0))
+    return NAN;
+  sw_size (&s, payload, dv, split, &sizing);
+  return sizing.feasible ? sizing.liftoff_mass_kg : NAN;
+}
+
+static double
+nominal_value (const SwStageSet *set, double payload, double dv, SwSensParam param, int stage)
+{
+  switch (param)
+    {
+    case SW_SENS_PAYLOAD:
+      return payload;
+    case SW_SENS_DELTA_V:
+      return dv;
+    case SW_SENS_ISP:
+      return set->exhaust_velocity_m_s[stage] / SW_G0;
+    case SW_SENS_STRUCTURAL_COEFFICIENT:
+    default:
+      return set->structural_coefficient[stage];
+    }
+}
+
+double
+sw_sensitivity_finite (const SwStageSet *set, double payload_kg, double delta_v_m_s,
+                       SwSplitMode split, SwSensParam param, int stage, double h)
+{
+  double x = nominal_value (set, payload_kg, delta_v_m_s, param, stage);
+  double up = perturbed_mass (set, payload_kg, delta_v_m_s, split, param, stage, 1.0 + h);
+  double down = perturbed_mass (set, payload_kg, delta_v_m_s, split, param, stage, 1.0 - h);
+
+  g_return_val_if_fail (set != NULL && h > 0.0, NAN);
+  return (up - down) / (2.0 * h * x);
+}
+
+static int
+compare_effect (gconstpointer a, gconstpointer b, gpointer data)
+{
+  const SwSensitivityTable *t = data;
+  double ea = t->items[*(const guint *) a].effect_kg, eb = t->items[*(const guint *) b].effect_kg;
+
+  if (ea != eb)
+    return ea > eb ? -1 : 1;
+  /* Stable order for ties: the table order. */
+  return (int) *(const guint *) a - (int) *(const guint *) b;
+}
+
+gboolean
+sw_sensitivity_compute (const SwDesign *design, double step, SwSensitivityTable *out,
+                        GError **error)
+{
+  SwStageSet set;
+  SwSizing sizing;
+  SwFixedVehicle vehicle;
+  double d_payload, d_dv, d_isp[SW_MAX_STAGES], d_eps[SW_MAX_STAGES];
+  double added;
+
+  g_return_val_if_fail (design != NULL && out != NULL, FALSE);
+
+  memset (out, 0, sizeof *out);
+  if (!(step > 0.0 && step < 1.0))
+    {
+      g_set_error (error, SW_ERROR, SW_ERROR_USAGE,
+                   _("The sensitivity step must lie between 0 and 100 percent, not %g percent."),
+                   step * 100.0);
+      return FALSE;
+    }
+  if (!sw_design_size (design, &sizing, error))
+    return FALSE;
+  out->step = step;
+  out->feasible = sizing.feasible;
+  out->liftoff_mass_kg = sizing.liftoff_mass_kg;
+  out->payload_kg = sizing.payload_kg;
+  out->delta_v_m_s = sizing.delta_v_m_s;
+  out->n_stages = sizing.n_stages;
+  for (guint i = 0; i < SW_MAX_STAGES; i++)
+    out->exchange_ratio[i] = NAN;
+  if (!sizing.feasible)
+    return TRUE;
+
+  sw_stage_set_from_design (&set, design);
+  sw_sensitivity_analytic (&set, &sizing, &d_payload, &d_dv, d_isp, d_eps);
+
+  for (int k = -2; k < 2 * (int) set.n_stages; k++)
+    {
+      SwSensitivity *it = &out->items[out->n_items++];
+      double m_minus, m_plus;
+
+      if (k == -2)
+        {
+          it->param = SW_SENS_PAYLOAD;
+          it->stage = -1;
+          it->derivative = d_payload;
+        }
+      else if (k == -1)
+        {
+          it->param = SW_SENS_DELTA_V;
+          it->stage = -1;
+          it->derivative = d_dv;
+        }
+      else
+        {
+          it->stage = k / 2;
+          it->param = k % 2 == 0 ? SW_SENS_ISP : SW_SENS_STRUCTURAL_COEFFICIENT;
+          it->derivative = k % 2 == 0 ? d_isp[it->stage] : d_eps[it->stage];
+        }
+      it->value = nominal_value (&set, sizing.payload_kg, sizing.delta_v_m_s, it->param,
+                                 it->stage);
+      it->elasticity = it->value / sizing.liftoff_mass_kg * it->derivative;
+      m_minus = perturbed_mass (&set, sizing.payload_kg, sizing.delta_v_m_s, design->split,
+                                it->param, it->stage, 1.0 - step);
+      m_plus = perturbed_mass (&set, sizing.payload_kg, sizing.delta_v_m_s, design->split,
+                               it->param, it->stage, 1.0 + step);
+      it->minus_feasible = isfinite (m_minus);
+      it->plus_feasible = isfinite (m_plus);
+      it->minus_kg = m_minus - sizing.liftoff_mass_kg;
+      it->plus_kg = m_plus - sizing.liftoff_mass_kg;
+      it->effect_kg = it->minus_feasible && it->plus_feasible
+                        ? MAX (fabs (it->minus_kg), fabs (it->plus_kg)) : INFINITY;
+    }
+  for (guint i = 0; i < out->n_items; i++)
+    out->ranked[i] = i;
+  g_qsort_with_data (out->ranked, out->n_items, sizeof out->ranked[0], compare_effect, out);
+
+  /* Exchange ratios by the root finder; the step is small against every
+   * stage's structure yet far above the solver's tolerance. */
+  if (sw_fixed_vehicle_from_sizing (&vehicle, &sizing))
+    {
+      added = 1e-4 * sizing.liftoff_mass_kg;
+      for (guint i = 0; i < vehicle.n_stages; i++)
+        if (vehicle.propellant_mass_kg[i] > 0.0)
+          added = MIN (added, 0.01 * vehicle.structural_mass_kg[i]);
+      added = MAX (added, 1e-6 * sizing.liftoff_mass_kg);
+      if (!sw_fixed_vehicle_exchange_ratios (&vehicle, sizing.delta_v_m_s, added,
+                                             out->exchange_ratio))
+        for (guint i = 0; i < SW_MAX_STAGES; i++)
+          out->exchange_ratio[i] = NAN;
+    }
+  return TRUE;
+}
+
+const char *
+sw_sens_param_to_string (SwSensParam param)
+{
+  switch (param)
+    {
+    case SW_SENS_PAYLOAD:
+      return "payload";
+    case SW_SENS_DELTA_V:
+      return "delta_v";
+    case SW_SENS_ISP:
+      return "isp_vac";
+    case SW_SENS_STRUCTURAL_COEFFICIENT:
+    default:
+      return "structural_coefficient";
+    }
+}
+
+char *
+sw_sensitivity_dup_label (const SwDesign *design, const SwSensitivity *item)
+{
+  const char *what;
+
+  switch (item->param)
+    {
+    case SW_SENS_PAYLOAD:
+      return g_strdup (_("Payload"));
+    case SW_SENS_DELTA_V:
+      return g_strdup (_("Required delta-v"));
+    case SW_SENS_ISP:
+      what = _("Isp");
+      break;
+    case SW_SENS_STRUCTURAL_COEFFICIENT:
+    default:
+      what = _("Structural coeff.");
+      break;
+    }
+  if (design != NULL && item->stage >= 0 && (guint) item->stage < design->n_stages
+      && design->stages[item->stage].name[0] != '\0')
+    return g_strdup_printf (_("%s, stage %d (%s)"), what, item->stage + 1,
+                            design->stages[item->stage].name);
+  return g_strdup_printf (_("%s, stage %d"), what, item->stage + 1);
+}

@@ -1,0 +1,579 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* End-to-end tests of stagewright-cli: runs the built program (env SW_CLI)
+ * on the demo designs and parses its JSON with json-glib. */
+#include "config.h"
+
+#include "sw-budget.h"
+#include "sw-curves.h"
+#include "sw-design.h"
+#include "sw-sizing.h"
+
+#include <glib/gstdio.h>
+#include <json-glib/json-glib.h>
+#include <math.h>
+#include <string.h>
+#include <sys/wait.h>
+
+typedef struct {
+  char *out;
+  char *err;
+  int   code;
+} Run;
+
+static GRegex *nan_re;
+
+static void
+run_clear (Run *r)
+{
+  g_clear_pointer (&r->out, g_free);
+  g_clear_pointer (&r->err, g_free);
+}
+
+/* Runs the CLI with the NULL-terminated arguments. */
+static void
+run_cli (Run *r, const char *first, ...)
+{
+  g_autoptr (GPtrArray) argv = g_ptr_array_new ();
+  g_autoptr (GError) error = NULL;
+  const char *cli = g_getenv ("SW_CLI");
+  int status = 0;
+  va_list ap;
+
+  g_assert_nonnull (cli);
+  g_ptr_array_add (argv, (gpointer) cli);
+  va_start (ap, first);
+  for (const char *a = first; a != NULL; a = va_arg (ap, const char *))
+    g_ptr_array_add (argv, (gpointer) a);
+  va_end (ap);
+  g_ptr_array_add (argv, NULL);
+
+  memset (r, 0, sizeof *r);
+  g_assert_true (g_spawn_sync (NULL, (char **) argv->pdata, NULL, G_SPAWN_DEFAULT, NULL, NULL,
+                               &r->out, &r->err, &status, &error));
+  g_assert_no_error (error);
+  g_assert_true (WIFEXITED (status));
+  r->code = WEXITSTATUS (status);
+  /* Nothing the program prints shows a non-finite number. */
+  if (g_regex_match (nan_re, r->out, 0, NULL))
+    {
+      g_printerr ("%s", r->out);
+      g_error ("stdout shows a non-finite number (printed above on stderr)");
+    }
+}
+
+static char *
+demo (const char *basename)
+{
+  const char *root = g_getenv ("SW_SOURCE_ROOT");
+  g_assert_nonnull (root);
+  return g_build_filename (root, "data", "designs", basename, NULL);
+}
+
+static const char *const demos[] = {
+  "small-sat-launcher.stagewright", "medium-cargo.stagewright", "all-solid-concept.stagewright",
+};
+
+static JsonNode *
+parse (const char *text)
+{
+  g_autoptr (JsonParser) parser = json_parser_new ();
+  g_autoptr (GError) error = NULL;
+
+  if (!json_parser_load_from_data (parser, text, -1, &error))
+    {
+      g_printerr ("%s", text);
+      g_error ("not JSON (%s); the text is above on stderr", error->message);
+    }
+  g_assert_true (JSON_NODE_HOLDS_OBJECT (json_parser_get_root (parser)));
+  return json_node_copy (json_parser_get_root (parser));
+}
+
+static gboolean
+is_number (JsonNode *n)
+{
+  GType t;
+  if (n == NULL || !JSON_NODE_HOLDS_VALUE (n))
+    return FALSE;
+  t = json_node_get_value_type (n);
+  return t == G_TYPE_DOUBLE || t == G_TYPE_INT64;
+}
+
+/* A number, or null when @nullable. */
+static void
+assert_number_member (JsonObject *obj, const char *key, gboolean nullable)
+{
+  JsonNode *n = json_object_get_member (obj, key);
+
+  if (n == NULL)
+    g_error ("missing key %s", key);
+  if (nullable && JSON_NODE_HOLDS_NULL (n))
+    return;
+  if (!is_number (n))
+    g_error ("%s is not a number", key);
+}
+
+static void
+assert_member_type (JsonObject *obj, const char *key, GType type)
+{
+  JsonNode *n = json_object_get_member (obj, key);
+
+  if (n == NULL)
+    g_error ("missing key %s", key);
+  g_assert_true (JSON_NODE_HOLDS_VALUE (n));
+  g_assert_true (json_node_get_value_type (n) == type);
+}
+
+static double
+number_or_nan (JsonObject *obj, const char *key)
+{
+  JsonNode *n = json_object_get_member (obj, key);
+  return JSON_NODE_HOLDS_NULL (n) ? NAN : json_node_get_double (n);
+}
+
+static void
+assert_same (double cli, double core)
+{
+  if (isnan (core))
+    g_assert_true (isnan (cli));
+  else if (!(fabs (cli - core) <= 1e-12 * fabs (core)))
+    g_error ("CLI %.17g, core %.17g", cli, core);
+}
+
+static char *
+write_tmp (const char *dir, const char *name, const char *text)
+{
+  char *path = g_build_filename (dir, name, NULL);
+  g_assert_true (g_file_set_contents (path, text, -1, NULL));
+  return path;
+}
+
+/* ---- size ----------------------------------------------------------------- */
+
+static void
+check_size_json (const char *path)
+{
+  static const char *const stage_keys[] = {
+    "delta_v_m_s", "delta_v_share", "mass_ratio", "propellant_mass_kg", "structural_mass_kg",
+    "initial_mass_kg", "burnout_mass_kg",
+  };
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
+  g_autoptr (JsonNode) root = NULL;
+  JsonObject *obj;
+  JsonArray *stages;
+  SwSizing s;
+  Run r;
+
+  g_assert_nonnull (d);
+  g_assert_true (sw_design_size (d, &s, NULL));
+  run_cli (&r, "size", "--json", path, NULL);
+  g_assert_cmpint (r.code, ==, 0);
+  root = parse (r.out);
+  obj = json_node_get_object (root);
+
+  /* The keys of issue 2, with their types. */
+  assert_member_type (obj, "feasible", G_TYPE_BOOLEAN);
+  assert_member_type (obj, "reason", G_TYPE_STRING);
+  assert_number_member (obj, "liftoff_mass_kg", TRUE);
+  assert_number_member (obj, "payload_kg", FALSE);
+  assert_number_member (obj, "payload_fraction", TRUE);
+  assert_number_member (obj, "delta_v_m_s", FALSE);
+  assert_number_member (obj, "delta_v_limit_m_s", FALSE);
+  g_assert_true (JSON_NODE_HOLDS_ARRAY (json_object_get_member (obj, "stages")));
+
+  /* The numbers are the core's. */
+  g_assert_cmpint (json_object_get_boolean_member (obj, "feasible"), ==, s.feasible);
+  g_assert_cmpstr (json_object_get_string_member (obj, "reason"), ==, s.reason);
+  assert_same (number_or_nan (obj, "liftoff_mass_kg"), s.liftoff_mass_kg);
+  assert_same (number_or_nan (obj, "payload_kg"), d->payload_kg);
+  assert_same (number_or_nan (obj, "payload_fraction"), s.payload_fraction);
+  assert_same (number_or_nan (obj, "delta_v_m_s"), s.delta_v_m_s);
+  assert_same (number_or_nan (obj, "delta_v_limit_m_s"), s.delta_v_limit_m_s);
+
+  stages = json_object_get_array_member (obj, "stages");
+  g_assert_cmpuint (json_array_get_length (stages), ==, d->n_stages);
+  for (guint i = 0; i < d->n_stages; i++)
+    {
+      JsonObject *st = json_array_get_object_element (stages, i);
+      const SwStageResult *sr = &s.stages[i];
+      const double core[] = {
+        sr->delta_v_m_s, sr->delta_v_share, sr->mass_ratio, sr->propellant_mass_kg,
+        sr->structural_mass_kg, sr->initial_mass_kg, sr->burnout_mass_kg,
+      };
+
+      /* Firing order: the first element is the stage that lifts off. */
+      assert_member_type (st, "name", G_TYPE_STRING);
+      g_assert_cmpstr (json_object_get_string_member (st, "name"), ==, d->stages[i].name);
+      for (guint k = 0; k < G_N_ELEMENTS (stage_keys); k++)
+        {
+          assert_number_member (st, stage_keys[k], TRUE);
+          assert_same (number_or_nan (st, stage_keys[k]), core[k]);
+        }
+    }
+  if (s.feasible)
+    assert_same (json_object_get_double_member (json_array_get_object_element (stages, 0),
+                                                "initial_mass_kg"),
+                 s.liftoff_mass_kg);
+  run_clear (&r);
+}
+
+static void
+test_size_json (void)
+{
+  for (guint i = 0; i < G_N_ELEMENTS (demos); i++)
+    {
+      g_autofree char *path = demo (demos[i]);
+      check_size_json (path);
+    }
+}
+
+static void
+test_size_table (void)
+{
+  for (guint i = 0; i < G_N_ELEMENTS (demos); i++)
+    {
+      g_autofree char *path = demo (demos[i]);
+      g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
+      Run r;
+
+      run_cli (&r, "size", path, NULL);
+      g_assert_cmpint (r.code, ==, 0);
+      g_assert_nonnull (strstr (r.out, d->name));
+      g_assert_nonnull (strstr (r.out, "Liftoff mass"));
+      /* The cautions under every report (RULES). */
+      g_assert_nonnull (strstr (r.out, "not for flight hardware"));
+      g_assert_nonnull (strstr (r.out, "range safety"));
+      run_clear (&r);
+    }
+}
+
+/* An infeasible design is an answer: exit 0, feasible false, null masses. */
+static void
+test_size_infeasible (void)
+{
+  static const char text[] =
+    "{ \"format\": \"stagewright-design\", \"version\": 1, \"name\": \"Too far\",\n"
+    "  \"payload_kg\": 100, \"mission\": { \"delta_v_m_s\": 15000 }, \"split\": \"optimal\",\n"
+    "  \"stages\": [ { \"name\": \"Only\", \"isp_vac_s\": 300, \"structural_coefficient\": 0.1 } ] }\n";
+  g_autofree char *dir = g_dir_make_tmp ("sw-test-cli-XXXXXX", NULL);
+  g_autofree char *path = write_tmp (dir, "too-far.stagewright", text);
+  g_autoptr (JsonNode) root = NULL;
+  JsonObject *obj, *st;
+  Run r;
+
+  check_size_json (path);
+  run_cli (&r, "size", "--json", path, NULL);
+  g_assert_cmpint (r.code, ==, 0);
+  root = parse (r.out);
+  obj = json_node_get_object (root);
+  g_assert_false (json_object_get_boolean_member (obj, "feasible"));
+  g_assert_cmpuint (strlen (json_object_get_string_member (obj, "reason")), >, 0);
+  g_assert_true (JSON_NODE_HOLDS_NULL (json_object_get_member (obj, "liftoff_mass_kg")));
+  g_assert_true (JSON_NODE_HOLDS_NULL (json_object_get_member (obj, "payload_fraction")));
+  st = json_array_get_object_element (json_object_get_array_member (obj, "stages"), 0);
+  g_assert_true (JSON_NODE_HOLDS_NULL (json_object_get_member (st, "propellant_mass_kg")));
+  g_assert_true (JSON_NODE_HOLDS_NULL (json_object_get_member (st, "initial_mass_kg")));
+  run_clear (&r);
+
+  /* The table shows "-" and says why. */
+  run_cli (&r, "size", path, NULL);
+  g_assert_cmpint (r.code, ==, 0);
+  g_assert_nonnull (strstr (r.out, "INFEASIBLE"));
+  run_clear (&r);
+
+  /* And so does the curve: one such stage never reaches 15 km/s, three do. */
+  run_cli (&r, "curve", "--json", "--max-stages", "3", path, NULL);
+  g_assert_cmpint (r.code, ==, 0);
+  run_clear (&r);
+
+  g_remove (path);
+  g_rmdir (dir);
+}
+
+/* ---- curve ------------------------------------------------------------------ */
+
+static void
+test_curve_json (void)
+{
+  guint n_null = 0;
+
+  for (guint i = 0; i < G_N_ELEMENTS (demos); i++)
+    {
+      g_autofree char *path = demo (demos[i]);
+      g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
+      g_autoptr (JsonNode) root = NULL;
+      JsonArray *points;
+      SwStageCurve curve;
+      double dv;
+      Run r;
+
+      g_assert_true (sw_design_required_delta_v (d, &dv, NULL));
+      sw_stage_curve_compute (d, dv, SW_MAX_STAGES, &curve);
+      run_cli (&r, "curve", "--json", path, NULL);
+      g_assert_cmpint (r.code, ==, 0);
+      root = parse (r.out);
+      points = json_object_get_array_member (json_node_get_object (root), "points");
+      g_assert_nonnull (points);
+      /* Points 1..8, infeasible ones kept with a null mass. */
+      g_assert_cmpuint (json_array_get_length (points), ==, 8);
+      for (guint k = 0; k < 8; k++)
+        {
+          JsonObject *p = json_array_get_object_element (points, k);
+          JsonNode *mass = json_object_get_member (p, "liftoff_mass_kg");
+          gboolean feasible;
+
+          assert_member_type (p, "stages", G_TYPE_INT64);
+          g_assert_cmpint (json_object_get_int_member (p, "stages"), ==, k + 1);
+          assert_member_type (p, "feasible", G_TYPE_BOOLEAN);
+          feasible = json_object_get_boolean_member (p, "feasible");
+          g_assert_nonnull (mass);
+          g_assert_cmpint (feasible, ==, curve.points[k].feasible);
+          if (feasible)
+            {
+              g_assert_true (is_number (mass));
+              assert_same (json_node_get_double (mass), curve.points[k].liftoff_mass_kg);
+            }
+          else
+            {
+              g_assert_true (JSON_NODE_HOLDS_NULL (mass));
+              n_null++;
+            }
+        }
+      run_clear (&r);
+    }
+  /* The all-solid demo cannot fly on one of its stages. */
+  g_assert_cmpuint (n_null, >=, 1);
+
+  /* --max-stages */
+  {
+    g_autofree char *path = demo ("medium-cargo.stagewright");
+    g_autoptr (JsonNode) root = NULL;
+    Run r;
+
+    run_cli (&r, "curve", "--max-stages", "3", "--json", path, NULL);
+    g_assert_cmpint (r.code, ==, 0);
+    root = parse (r.out);
+    g_assert_cmpuint (json_array_get_length (json_object_get_array_member (
+                        json_node_get_object (root), "points")), ==, 3);
+    run_clear (&r);
+  }
+}
+
+/* ---- budget ----------------------------------------------------------------- */
+
+static void
+test_budget_json (void)
+{
+  static const char *const keys[] = {
+    "circular_velocity_m_s", "launch_azimuth_deg", "site_speed_m_s", "rotation_gain_m_s",
+    "ideal_delta_v_m_s", "losses_m_s", "delta_v_m_s",
+  };
+  g_autofree char *path = demo ("medium-cargo.stagewright");
+  g_autofree char *dv_path = demo ("all-solid-concept.stagewright");
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
+  g_autoptr (JsonNode) root = NULL;
+  JsonObject *obj;
+  SwBudget b;
+  Run r;
+
+  g_assert_true (sw_design_budget (d, &b, NULL));
+  {
+    const double core[] = {
+      b.circular_velocity_m_s, b.launch_azimuth_deg, b.site_speed_m_s, b.rotation_gain_m_s,
+      b.ideal_delta_v_m_s, b.losses_m_s, b.delta_v_m_s,
+    };
+
+    run_cli (&r, "budget", "--json", path, NULL);
+    g_assert_cmpint (r.code, ==, 0);
+    root = parse (r.out);
+    obj = json_node_get_object (root);
+    for (guint k = 0; k < G_N_ELEMENTS (keys); k++)
+      {
+        assert_number_member (obj, keys[k], FALSE);
+        assert_same (json_object_get_double_member (obj, keys[k]), core[k]);
+      }
+    run_clear (&r);
+  }
+
+  /* A delta-v mission has no budget: bad input, exit 2, said on stderr. */
+  run_cli (&r, "budget", "--json", dv_path, NULL);
+  g_assert_cmpint (r.code, ==, 2);
+  g_assert_nonnull (strstr (r.err, "all-solid-concept.stagewright"));
+  g_assert_cmpstr (r.out, ==, "");
+  run_clear (&r);
+}
+
+/* ---- exit codes, help, bench --------------------------------------------------- */
+
+static void
+test_exit_codes (void)
+{
+  const char *root = g_getenv ("SW_SOURCE_ROOT");
+  g_autofree char *bad = g_build_filename (root, "tests", "malformed",
+                                           "range-isp-vac-low.stagewright", NULL);
+  g_autofree char *bad2 = g_build_filename (root, "tests", "malformed",
+                                            "type-payload-string.stagewright", NULL);
+  g_autofree char *good = demo ("medium-cargo.stagewright");
+  static const char *const commands[] = { "size", "curve", "budget" };
+  Run r;
+
+  for (guint c = 0; c < G_N_ELEMENTS (commands); c++)
+    {
+      /* A malformed file: exit 2, stderr names the file and the field. */
+      run_cli (&r, commands[c], "--json", bad, NULL);
+      g_assert_cmpint (r.code, ==, 2);
+      g_assert_nonnull (strstr (r.err, "range-isp-vac-low.stagewright"));
+      g_assert_nonnull (strstr (r.err, "stages[1].isp_vac_s"));
+      g_assert_cmpstr (r.out, ==, "");
+      run_clear (&r);
+      run_cli (&r, commands[c], bad2, NULL);
+      g_assert_cmpint (r.code, ==, 2);
+      g_assert_nonnull (strstr (r.err, "type-payload-string.stagewright"));
+      g_assert_nonnull (strstr (r.err, "payload_kg"));
+      run_clear (&r);
+      /* A file that does not exist. */
+      run_cli (&r, commands[c], "/nonexistent/nowhere.stagewright", NULL);
+      g_assert_cmpint (r.code, ==, 2);
+      g_assert_nonnull (strstr (r.err, "nowhere.stagewright"));
+      run_clear (&r);
+      /* Usage errors: no file, two files, an unknown option. */
+      run_cli (&r, commands[c], NULL);
+      g_assert_cmpint (r.code, ==, 2);
+      g_assert_cmpuint (strlen (r.err), >, 0);
+      run_clear (&r);
+      run_cli (&r, commands[c], good, good, NULL);
+      g_assert_cmpint (r.code, ==, 2);
+      run_clear (&r);
+      run_cli (&r, commands[c], "--no-such-option", good, NULL);
+      g_assert_cmpint (r.code, ==, 2);
+      g_assert_cmpuint (strlen (r.err), >, 0);
+      run_clear (&r);
+    }
+
+  run_cli (&r, NULL);
+  g_assert_cmpint (r.code, ==, 2);
+  run_clear (&r);
+  run_cli (&r, "no-such-command", NULL);
+  g_assert_cmpint (r.code, ==, 2);
+  g_assert_nonnull (strstr (r.err, "no-such-command"));
+  run_clear (&r);
+  run_cli (&r, "curve", "--max-stages", "0", good, NULL);
+  g_assert_cmpint (r.code, ==, 2);
+  run_clear (&r);
+  run_cli (&r, "curve", "--max-stages", "9", good, NULL);
+  g_assert_cmpint (r.code, ==, 2);
+  run_clear (&r);
+  run_cli (&r, "curve", "--max-stages", "many", good, NULL);
+  g_assert_cmpint (r.code, ==, 2);
+  run_clear (&r);
+
+  /* An unknown key is a warning, not an error. */
+  {
+    g_autofree char *dir = g_dir_make_tmp ("sw-test-cli-XXXXXX", NULL);
+    g_autofree char *text = NULL, *path = NULL;
+    g_assert_true (g_file_get_contents (good, &text, NULL, NULL));
+    {
+      char *brace = strchr (text, '{');
+      g_autofree char *patched = g_strdup_printf ("{ \"paint_colour\": \"blue\", %s", brace + 1);
+      path = write_tmp (dir, "extra-key.stagewright", patched);
+    }
+    run_cli (&r, "size", "--json", path, NULL);
+    g_assert_cmpint (r.code, ==, 0);
+    g_assert_nonnull (strstr (r.err, "warning"));
+    g_assert_nonnull (strstr (r.err, "paint_colour"));
+    run_clear (&r);
+    g_remove (path);
+    g_rmdir (dir);
+  }
+}
+
+/* --help works for the program and every subcommand it lists. */
+static void
+test_help (void)
+{
+  g_auto (GStrv) lines = NULL;
+  gboolean in_commands = FALSE;
+  guint n = 0;
+  gboolean seen_size = FALSE, seen_curve = FALSE, seen_budget = FALSE, seen_bench = FALSE;
+  Run r;
+
+  run_cli (&r, "--help", NULL);
+  g_assert_cmpint (r.code, ==, 0);
+  g_assert_nonnull (strstr (r.out, "not for flight hardware"));
+  lines = g_strsplit (r.out, "\n", -1);
+  run_clear (&r);
+  for (guint i = 0; lines[i] != NULL; i++)
+    {
+      g_auto (GStrv) words = NULL;
+
+      if (g_str_has_prefix (lines[i], "Commands:"))
+        {
+          in_commands = TRUE;
+          continue;
+        }
+      if (!in_commands)
+        continue;
+      if (lines[i][0] != ' ')
+        break;
+      words = g_strsplit_set (g_strstrip (lines[i]), " ", 2);
+      run_cli (&r, words[0], "--help", NULL);
+      if (r.code != 0)
+        g_error ("%s --help exits %d", words[0], r.code);
+      g_assert_nonnull (strstr (r.out, words[0]));
+      run_clear (&r);
+      seen_size |= strcmp (words[0], "size") == 0;
+      seen_curve |= strcmp (words[0], "curve") == 0;
+      seen_budget |= strcmp (words[0], "budget") == 0;
+      seen_bench |= strcmp (words[0], "bench") == 0;
+      n++;
+    }
+  g_assert_true (seen_size && seen_curve && seen_budget && seen_bench);
+  g_test_message ("%u subcommands answer --help", n);
+}
+
+/* bench --json reports positive numbers (timing targets are not asserted:
+ * performance is a benchmark, not a test). */
+static void
+test_bench_json (void)
+{
+  g_autoptr (JsonNode) root = NULL;
+  JsonObject *obj;
+  Run r;
+
+  run_cli (&r, "bench", "--json", NULL);
+  g_assert_cmpint (r.code, ==, 0);
+  root = parse (r.out);
+  obj = json_node_get_object (root);
+  assert_number_member (obj, "optimal_size_ns", FALSE);
+  assert_number_member (obj, "live_update_us", FALSE);
+  g_assert_cmpfloat (json_object_get_double_member (obj, "optimal_size_ns"), >, 0.0);
+  g_assert_cmpfloat (json_object_get_double_member (obj, "live_update_us"), >, 0.0);
+  g_test_message ("optimal_size_ns %.0f, live_update_us %.1f",
+                  json_object_get_double_member (obj, "optimal_size_ns"),
+                  json_object_get_double_member (obj, "live_update_us"));
+  run_clear (&r);
+}
+
+int
+main (int argc, char **argv)
+{
+  int ret;
+
+  g_test_init (&argc, &argv, NULL);
+  /* "nan" or "inf" as printf writes a non-finite double. */
+  nan_re = g_regex_new ("(?<![`'\"\\w])[-+]?(nan|inf|infinity)(?!\\w)", G_REGEX_CASELESS, 0,
+                        NULL);
+  g_assert_nonnull (nan_re);
+
+  g_test_add_func ("/cli/size-json", test_size_json);
+  g_test_add_func ("/cli/size-table", test_size_table);
+  g_test_add_func ("/cli/size-infeasible", test_size_infeasible);
+  g_test_add_func ("/cli/curve-json", test_curve_json);
+  g_test_add_func ("/cli/budget-json", test_budget_json);
+  g_test_add_func ("/cli/exit-codes", test_exit_codes);
+  g_test_add_func ("/cli/help", test_help);
+  g_test_add_func ("/cli/bench-json", test_bench_json);
+
+  ret = g_test_run ();
+  g_regex_unref (nan_re);
+  return ret;
+}

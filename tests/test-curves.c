@@ -1,0 +1,231 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* Tests of sw-curves: liftoff mass against stage count and against delta-v. */
+#include "config.h"
+
+#include "sw-curves.h"
+#include "sw-design.h"
+#include "sw-sizing.h"
+
+#include <math.h>
+#include <string.h>
+
+static void
+assert_rel (double got, double want, double rel)
+{
+  if (!(fabs (got - want) <= rel * fabs (want)))
+    g_error ("relative check failed: got %.12g, want %.12g (tolerance %g)", got, want, rel);
+}
+
+/* A two-stage design: kerosene-like first stage, hydrogen-like upper stage
+ * (invented numbers). */
+static SwDesign *
+two_stage_design (double delta_v)
+{
+  SwDesign *d = sw_design_new ();
+
+  g_strlcpy (d->name, "Curve test", sizeof d->name);
+  d->payload_kg = 2000.0;
+  d->mission.delta_v_m_s = delta_v;
+  d->split = SW_SPLIT_OPTIMAL;
+  d->n_stages = 2;
+  d->stages[0].isp_vac_s = 300.0;
+  d->stages[0].structural_coefficient = 0.08;
+  d->stages[1].isp_vac_s = 440.0;
+  d->stages[1].structural_coefficient = 0.13;
+  return d;
+}
+
+/* The hypothetical N-stage vehicle built by hand from the rule of issue 2:
+ * stage k takes the design's stage min(k, n_design). */
+static void
+hand_extend (const SwDesign *d, guint n, SwStageSet *set)
+{
+  memset (set, 0, sizeof *set);
+  set->n_stages = n;
+  for (guint k = 0; k < n; k++)
+    {
+      guint src = k < d->n_stages ? k : d->n_stages - 1;
+      set->exhaust_velocity_m_s[k] = d->stages[src].isp_vac_s * SW_G0;
+      set->structural_coefficient[k] = d->stages[src].structural_coefficient;
+    }
+}
+
+static void
+test_stage_curve_matches_sizing (void)
+{
+  /* 12 km/s: beyond one stage (300 s: 7428 m/s limit), within two. */
+  g_autoptr (SwDesign) d = two_stage_design (12000.0);
+  SwStageCurve curve;
+  guint n_infeasible = 0;
+
+  sw_stage_curve_compute (d, 12000.0, SW_MAX_STAGES, &curve);
+  g_assert_cmpuint (curve.n_points, ==, SW_MAX_STAGES);
+  g_assert_cmpfloat (curve.delta_v_m_s, ==, 12000.0);
+  g_assert_cmpfloat (curve.payload_kg, ==, 2000.0);
+  for (guint n = 1; n <= SW_MAX_STAGES; n++)
+    {
+      const SwStageCountPoint *p = &curve.points[n - 1];
+      SwStageSet set;
+      SwSizing s;
+
+      hand_extend (d, n, &set);
+      sw_size (&set, d->payload_kg, 12000.0, SW_SPLIT_OPTIMAL, &s);
+      g_assert_cmpuint (p->stages, ==, n);
+      g_assert_cmpint (p->feasible, ==, s.feasible);
+      assert_rel (p->delta_v_limit_m_s, s.delta_v_limit_m_s, 1e-15);
+      if (s.feasible)
+        g_assert_cmpfloat (p->liftoff_mass_kg, ==, s.liftoff_mass_kg);
+      else
+        {
+          /* Marked, not dropped. */
+          g_assert_true (isnan (p->liftoff_mass_kg));
+          n_infeasible++;
+        }
+    }
+  /* One stage cannot reach 12 km/s; two or more can. */
+  g_assert_cmpuint (n_infeasible, ==, 1);
+  g_assert_false (curve.points[0].feasible);
+  g_assert_true (curve.points[1].feasible);
+  /* More stages of the same kind: lighter, but with shrinking returns. */
+  for (guint n = 2; n < SW_MAX_STAGES; n++)
+    g_assert_cmpfloat (curve.points[n].liftoff_mass_kg, <, curve.points[n - 1].liftoff_mass_kg);
+}
+
+static void
+test_stage_curve_all_infeasible (void)
+{
+  /* 60 km/s is beyond five of these stages (7.4 + 4 x 8.8 km/s). */
+  g_autoptr (SwDesign) d = two_stage_design (60000.0);
+  SwStageCurve curve;
+
+  sw_stage_curve_compute (d, 60000.0, 5, &curve);
+  g_assert_cmpuint (curve.n_points, ==, 5);
+  for (guint i = 0; i < 5; i++)
+    {
+      g_assert_cmpuint (curve.points[i].stages, ==, i + 1);
+      g_assert_false (curve.points[i].feasible);
+      g_assert_true (isnan (curve.points[i].liftoff_mass_kg));
+      g_assert_true (isfinite (curve.points[i].delta_v_limit_m_s));
+    }
+}
+
+static void
+test_stage_curve_clamps (void)
+{
+  g_autoptr (SwDesign) d = two_stage_design (9000.0);
+  SwStageCurve curve;
+
+  sw_stage_curve_compute (d, 9000.0, 0, &curve);
+  g_assert_cmpuint (curve.n_points, ==, 1);
+  sw_stage_curve_compute (d, 9000.0, 100, &curve);
+  g_assert_cmpuint (curve.n_points, ==, SW_MAX_STAGES);
+}
+
+static void
+test_sweep (void)
+{
+  g_autoptr (SwDesign) d = two_stage_design (9000.0);
+  g_autofree SwSweep *sweep = g_new0 (SwSweep, 1);
+
+  sw_sweep_compute (d, SW_SWEEP_CURVES, SW_SWEEP_POINTS, sweep);
+  g_assert_cmpuint (sweep->n_curves, ==, SW_SWEEP_CURVES);
+  g_assert_cmpfloat (sweep->payload_kg, ==, 2000.0);
+  for (guint c = 0; c < sweep->n_curves; c++)
+    {
+      const SwSweepCurve *cv = &sweep->curves[c];
+      guint n = c + 1, last = cv->n_points - 1;
+      SwStageSet set;
+      double limit = 0.0;
+      static const guint probes[] = { 1, 20, 77, 140, 180, 199 };
+
+      hand_extend (d, n, &set);
+      for (guint i = 0; i < n; i++)
+        limit += set.exhaust_velocity_m_s[i] * log (1.0 / set.structural_coefficient[i]);
+      g_assert_cmpuint (cv->stages, ==, n);
+      g_assert_cmpuint (cv->n_points, ==, SW_SWEEP_POINTS);
+      assert_rel (cv->delta_v_limit_m_s, limit, 1e-12);
+
+      /* Starts at zero delta-v with the bare payload. */
+      g_assert_cmpfloat (cv->delta_v_m_s[0], ==, 0.0);
+      assert_rel (cv->liftoff_mass_kg[0], d->payload_kg, 1e-12);
+      /* Monotone increasing, every value finite. */
+      for (guint j = 1; j < cv->n_points; j++)
+        {
+          g_assert_true (isfinite (cv->delta_v_m_s[j]) && isfinite (cv->liftoff_mass_kg[j]));
+          g_assert_cmpfloat (cv->delta_v_m_s[j], >, cv->delta_v_m_s[j - 1]);
+          g_assert_cmpfloat (cv->liftoff_mass_kg[j], >, cv->liftoff_mass_kg[j - 1]);
+          g_assert_cmpfloat (cv->delta_v_m_s[j], <, limit);
+        }
+      /* Approaches the limit: last point within 1 % of it, mass huge. */
+      g_assert_cmpfloat (cv->delta_v_m_s[last], >, 0.99 * limit);
+      g_assert_cmpfloat (cv->liftoff_mass_kg[last], >, 1000.0 * d->payload_kg);
+
+      /* Sweep points are exact optima: sw_size at that delta-v agrees. */
+      for (guint k = 0; k < G_N_ELEMENTS (probes); k++)
+        {
+          guint j = probes[k];
+          SwSizing s;
+
+          sw_size (&set, d->payload_kg, cv->delta_v_m_s[j], SW_SPLIT_OPTIMAL, &s);
+          g_assert_true (s.feasible);
+          assert_rel (cv->liftoff_mass_kg[j], s.liftoff_mass_kg, 1e-9);
+        }
+    }
+}
+
+/* A three-stage design in the sweep: curves 4 and 5 repeat the top stage. */
+static void
+test_sweep_extends_top_stage (void)
+{
+  g_autoptr (SwDesign) d = two_stage_design (9000.0);
+  g_autofree SwSweep *sweep = g_new0 (SwSweep, 1);
+
+  d->n_stages = 3;
+  d->stages[2].isp_vac_s = 320.0;
+  d->stages[2].structural_coefficient = 0.2;
+  sw_sweep_compute (d, 5, 50, sweep);
+  g_assert_cmpuint (sweep->n_curves, ==, 5);
+  for (guint c = 0; c < 5; c++)
+    {
+      SwStageSet set;
+      double limit = 0.0;
+      SwSizing s;
+
+      hand_extend (d, c + 1, &set);
+      for (guint i = 0; i <= c; i++)
+        limit += set.exhaust_velocity_m_s[i] * log (1.0 / set.structural_coefficient[i]);
+      g_assert_cmpuint (sweep->curves[c].n_points, ==, 50);
+      assert_rel (sweep->curves[c].delta_v_limit_m_s, limit, 1e-12);
+      sw_size (&set, d->payload_kg, sweep->curves[c].delta_v_m_s[30], SW_SPLIT_OPTIMAL, &s);
+      assert_rel (sweep->curves[c].liftoff_mass_kg[30], s.liftoff_mass_kg, 1e-9);
+    }
+}
+
+static void
+test_sweep_clamps (void)
+{
+  g_autoptr (SwDesign) d = two_stage_design (9000.0);
+  g_autofree SwSweep *sweep = g_new0 (SwSweep, 1);
+
+  sw_sweep_compute (d, 0, 0, sweep);
+  g_assert_cmpuint (sweep->n_curves, ==, 1);
+  g_assert_cmpuint (sweep->curves[0].n_points, ==, 2);
+  sw_sweep_compute (d, 50, 5000, sweep);
+  g_assert_cmpuint (sweep->n_curves, ==, SW_SWEEP_CURVES);
+  g_assert_cmpuint (sweep->curves[0].n_points, ==, SW_SWEEP_POINTS);
+}
+
+int
+main (int argc, char **argv)
+{
+  g_test_init (&argc, &argv, NULL);
+
+  g_test_add_func ("/core/curves/stage-curve-matches-sizing", test_stage_curve_matches_sizing);
+  g_test_add_func ("/core/curves/stage-curve-all-infeasible", test_stage_curve_all_infeasible);
+  g_test_add_func ("/core/curves/stage-curve-clamps", test_stage_curve_clamps);
+  g_test_add_func ("/core/curves/sweep", test_sweep);
+  g_test_add_func ("/core/curves/sweep-extends-top-stage", test_sweep_extends_top_stage);
+  g_test_add_func ("/core/curves/sweep-clamps", test_sweep_clamps);
+
+  return g_test_run ();
+}
