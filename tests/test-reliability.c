@@ -74,7 +74,7 @@ test_mission_hand_worked (void)
   g_assert_cmpfloat_with_epsilon (r.stage[0], 0.9981216446, 1e-10);
   g_assert_cmpfloat_with_epsilon (r.stage[1], 0.991014, 1e-12);
   g_assert_cmpfloat_with_epsilon (r.stage[2], 0.993012, 1e-12);
-  g_assert_cmpfloat_with_epsilon (r.separation[2], 1.0, 0.0);
+  g_assert_cmpfloat (r.separation[2], ==, 1.0);
   g_assert_cmpfloat_with_epsilon (r.mission, 0.9812583309, 1e-10);
 }
 

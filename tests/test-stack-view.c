@@ -370,6 +370,106 @@ test_selection (void)
   g_object_unref (view);
 }
 
+typedef struct {
+  int    calls;
+  int    lower;
+  int    upper;
+  double amount;
+  gboolean finished;
+  int    activated;
+} Signals;
+
+static void
+share_dragged_cb (SwStackView *view, int lower, int upper, double amount, gboolean finished,
+                  Signals *s)
+{
+  s->calls++;
+  s->lower = lower;
+  s->upper = upper;
+  s->amount = amount;
+  s->finished = finished;
+}
+
+static void
+stage_activated_cb (SwStackView *view, int stage, Signals *s)
+{
+  s->activated = stage;
+}
+
+static GObject *
+find_controller (GtkWidget *widget, GType type)
+{
+  GListModel *list = gtk_widget_observe_controllers (widget);
+  GObject *found = NULL;
+
+  for (guint i = 0; i < g_list_model_get_n_items (list) && found == NULL; i++)
+    {
+      GObject *c = g_list_model_get_item (list, i);
+      if (G_TYPE_CHECK_INSTANCE_TYPE (c, type))
+        found = c;
+      g_object_unref (c);
+    }
+  g_object_unref (list);
+  return found;
+}
+
+/* The input handlers, driven through their controllers' signals (a real
+ * pointer cannot be scripted portably under Xvfb). */
+static void
+test_drag_and_click (void)
+{
+  g_autoptr (SwResult) result = widget_render_demo_result ("small-sat-launcher.stagewright");
+  GtkWidget *view, *window;
+  GObject *drag, *click;
+  graphene_rect_t r0, r1, r2;
+  Signals s = { 0, -9, -9, NAN, FALSE, -9 };
+  double border_y, cx, stack_h;
+
+  window = show_result (result, &view);
+  g_signal_connect (view, "share-dragged", G_CALLBACK (share_dragged_cb), &s);
+  g_signal_connect (view, "stage-activated", G_CALLBACK (stage_activated_cb), &s);
+  g_assert_true (sw_stack_view_get_block_rect (SW_STACK_VIEW (view), 0, &r0));
+  g_assert_true (sw_stack_view_get_block_rect (SW_STACK_VIEW (view), 1, &r1));
+  g_assert_true (sw_stack_view_get_block_rect (SW_STACK_VIEW (view), 2, &r2));
+  border_y = (r0.origin.y + r1.origin.y + r1.size.height) / 2.0;
+  cx = r0.origin.x + r0.size.width / 2.0;
+  stack_h = r0.origin.y + r0.size.height - r2.origin.y;
+
+  drag = find_controller (view, GTK_TYPE_GESTURE_DRAG);
+  click = find_controller (view, GTK_TYPE_GESTURE_CLICK);
+  g_assert_nonnull (drag);
+  g_assert_nonnull (click);
+
+  /* Up by 10 % of the stack: a tenth of the delta-v moves to the lower stage. */
+  g_signal_emit_by_name (drag, "drag-begin", cx, border_y);
+  g_signal_emit_by_name (drag, "drag-update", 0.0, -0.1 * stack_h);
+  g_assert_cmpint (s.calls, ==, 1);
+  g_assert_cmpint (s.lower, ==, 0);
+  g_assert_cmpint (s.upper, ==, 1);
+  g_assert_cmpfloat_with_epsilon (s.amount, 0.1, 1e-9);
+  g_assert_false (s.finished);
+  g_signal_emit_by_name (drag, "drag-end", 0.0, 0.05 * stack_h);
+  g_assert_cmpint (s.calls, ==, 2);
+  g_assert_cmpfloat_with_epsilon (s.amount, -0.05, 1e-9);
+  g_assert_true (s.finished);
+
+  /* A drag that starts inside a block is not a share drag. */
+  g_signal_emit_by_name (drag, "drag-begin", cx, r0.origin.y + r0.size.height / 2.0);
+  g_signal_emit_by_name (drag, "drag-update", 0.0, -30.0);
+  g_signal_emit_by_name (drag, "drag-end", 0.0, -30.0);
+  g_assert_cmpint (s.calls, ==, 2);
+
+  /* A press on the second block selects it. */
+  g_signal_emit_by_name (click, "pressed", 1, cx, r1.origin.y + r1.size.height / 2.0);
+  g_assert_cmpint (s.activated, ==, 1);
+  g_assert_cmpint (sw_stack_view_get_selected (SW_STACK_VIEW (view)), ==, 1);
+  /* ... and a press on the border between blocks does not. */
+  s.activated = -9;
+  g_signal_emit_by_name (click, "pressed", 1, cx, border_y);
+  g_assert_cmpint (s.activated, ==, -9);
+  gtk_window_destroy (GTK_WINDOW (window));
+}
+
 int
 main (int argc, char **argv)
 {
@@ -382,5 +482,6 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/stack-view/error", test_error);
   g_test_add_func ("/gui/stack-view/unused", test_unused);
   g_test_add_func ("/gui/stack-view/selection", test_selection);
+  g_test_add_func ("/gui/stack-view/drag-and-click", test_drag_and_click);
   return g_test_run ();
 }

@@ -10,7 +10,7 @@
 #include "sw-design.h"
 #include "sw-result.h"
 
-static gboolean
+G_GNUC_UNUSED static gboolean
 widget_render_timeout_cb (gpointer data)
 {
   *(gboolean *) data = TRUE;
@@ -42,6 +42,17 @@ widget_render_show (GtkWidget *widget, int width, int height)
   for (int i = 0; i < 20 && g_main_context_pending (NULL); i++)
     g_main_context_iteration (NULL, FALSE);
   return window;
+}
+
+/* Lets pending redraws and relayouts run (after a change to a shown widget). */
+static inline void
+widget_render_settle (void)
+{
+  gboolean timed_out = FALSE;
+  g_timeout_add (100, widget_render_timeout_cb, &timed_out);
+
+  while (!timed_out)
+    g_main_context_iteration (NULL, TRUE);
 }
 
 /* Renders the whole window (its background included) to an ARGB image. */

@@ -61,9 +61,10 @@ sw_application_find_design (const char *basename)
 gboolean
 sw_application_write_png (GtkWidget *widget, const char *filename, GError **error)
 {
-  int width = gtk_widget_get_width (widget);
-  int height = gtk_widget_get_height (widget);
   g_autoptr (GdkPaintable) paintable = gtk_widget_paintable_new (widget);
+  /* At the paintable's own size: any other size would scale the picture. */
+  int width = gdk_paintable_get_intrinsic_width (paintable);
+  int height = gdk_paintable_get_intrinsic_height (paintable);
   g_autoptr (GskRenderer) renderer = gsk_cairo_renderer_new ();
   g_autoptr (GskRenderNode) node = NULL;
   g_autoptr (GdkTexture) texture = NULL;

@@ -47,7 +47,6 @@ struct _SwInspector {
   GtkLabel      *losses_unit;
   GtkWidget     *ideal_caption;
   GtkLabel      *ideal_label;
-  GtkLabel      *required_label;
   GtkToggleButton *split_equal;
   GtkToggleButton *split_optimal;
   GtkToggleButton *split_manual;
@@ -166,14 +165,14 @@ eps_form_label (SwEpsForm form)
   switch (form)
     {
     case SW_EPS_STRUCTURE_RATIO:
-      return _("m_s / m_p");
+      return "mₛ/mₚ";
     case SW_EPS_WET_DRY_RATIO:
-      return _("(m_s + m_p) / m_s");
+      return "(mₛ + mₚ)/mₛ";
     case SW_EPS_PROPELLANT_FRACTION:
-      return _("m_p / (m_s + m_p)");
+      return "mₚ/(mₛ + mₚ)";
     case SW_EPS_COEFFICIENT:
     default:
-      return _("ε = m_s / (m_s + m_p)");
+      return "ε = mₛ/(mₛ + mₚ)";
     }
 }
 
@@ -213,7 +212,7 @@ configure_eps_spin (SwInspector *self)
   gtk_spin_button_set_range (self->eps_spin, lo, hi);
   gtk_spin_button_set_increments (self->eps_spin, self->eps_form == SW_EPS_WET_DRY_RATIO ? 0.1 : 0.001,
                                   self->eps_form == SW_EPS_WET_DRY_RATIO ? 1.0 : 0.01);
-  gtk_label_set_text_with_mnemonic (self->eps_label, eps_form_label (self->eps_form));
+  gtk_label_set_text (self->eps_label, eps_form_label (self->eps_form));
   gtk_widget_set_tooltip_text (GTK_WIDGET (self->eps_spin), eps_form_tooltip (self->eps_form));
   gtk_widget_set_tooltip_text (GTK_WIDGET (self->eps_label), eps_form_tooltip (self->eps_form));
   gtk_label_set_text (self->eps_unit, "");
@@ -242,7 +241,9 @@ stage_row_new (guint index)
   GtkWidget *box = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 8);
   GtkWidget *number = gtk_label_new (NULL);
   GtkWidget *name = gtk_label_new (NULL);
-  GtkWidget *mass = gtk_label_new (NULL);
+  /* An inscription: its size does not follow its text, so a new mass
+   * repaints the row without a relayout of the window. */
+  GtkWidget *mass = gtk_inscription_new (NULL);
   g_autofree char *num = g_strdup_printf ("%u", index + 1);
 
   gtk_label_set_text (GTK_LABEL (number), num);
@@ -250,6 +251,9 @@ stage_row_new (guint index)
   gtk_label_set_xalign (GTK_LABEL (name), 0.0);
   gtk_label_set_ellipsize (GTK_LABEL (name), PANGO_ELLIPSIZE_END);
   gtk_widget_set_hexpand (name, TRUE);
+  gtk_inscription_set_min_chars (GTK_INSCRIPTION (mass), 8);
+  gtk_inscription_set_nat_chars (GTK_INSCRIPTION (mass), 9);
+  gtk_inscription_set_xalign (GTK_INSCRIPTION (mass), 1.0);
   gtk_widget_add_css_class (mass, "numeric");
   gtk_widget_add_css_class (mass, "dim-label");
   gtk_box_append (GTK_BOX (box), number);
@@ -287,7 +291,7 @@ update_stage_rows (SwInspector *self)
       if (self->result != NULL && self->result->ok && i < self->result->sizing.n_stages
           && self->result->sizing.n_stages == d->n_stages)
         mass_text = sw_format_mass (self->result->sizing.stages[i].stage_mass_kg);
-      gtk_label_set_text (GTK_LABEL (mass), mass_text != NULL ? mass_text : SW_NO_VALUE);
+      gtk_inscription_set_text (GTK_INSCRIPTION (mass), mass_text != NULL ? mass_text : SW_NO_VALUE);
     }
   if (self->selected >= 0)
     gtk_list_box_select_row (self->stage_list,
@@ -298,15 +302,11 @@ static void
 update_computed (SwInspector *self)
 {
   g_autofree char *ideal = NULL;
-  g_autofree char *required = NULL;
   SwResult *r = self->result;
 
   if (r != NULL && r->has_budget)
     ideal = sw_format_speed (r->budget.ideal_delta_v_m_s);
-  if (r != NULL && r->ok)
-    required = sw_format_speed (r->delta_v_m_s);
   gtk_label_set_text (self->ideal_label, ideal != NULL ? ideal : SW_NO_VALUE);
-  gtk_label_set_text (self->required_label, required != NULL ? required : SW_NO_VALUE);
 }
 
 static void
@@ -348,10 +348,18 @@ update_stage_fields (SwInspector *self)
   set_spin (self->isp_vac_spin, s->isp_vac_s);
   gtk_check_button_set_active (self->isp_sl_check, s->has_isp_sl);
   gtk_widget_set_sensitive (GTK_WIDGET (self->isp_sl_spin), s->has_isp_sl);
-  gtk_spin_button_set_range (self->isp_sl_spin, sw_limit_get (SW_LIMIT_ISP_SL)->min,
-                             MIN (sw_limit_get (SW_LIMIT_ISP_SL)->max, s->isp_vac_s));
+  {
+    /* At most the vacuum Isp.  Set only on a change: a new range resizes the
+     * spin button, and a resize costs a relayout of the whole window. */
+    double lo, hi, max = MIN (sw_limit_get (SW_LIMIT_ISP_SL)->max, s->isp_vac_s);
+    gtk_spin_button_get_range (self->isp_sl_spin, &lo, &hi);
+    if (hi != max)
+      gtk_spin_button_set_range (self->isp_sl_spin, sw_limit_get (SW_LIMIT_ISP_SL)->min, max);
+  }
   if (s->has_isp_sl)
     set_spin (self->isp_sl_spin, s->isp_sl_s);
+  else
+    gtk_editable_set_text (GTK_EDITABLE (self->isp_sl_spin), SW_NO_VALUE);
   set_spin (self->eps_spin, sw_eps_to_form (s->structural_coefficient, self->eps_form));
   {
     double share = shown_share (self, (guint) self->selected);
@@ -983,7 +991,6 @@ sw_inspector_class_init (SwInspectorClass *klass)
   CHILD (losses_unit);
   CHILD (ideal_caption);
   CHILD (ideal_label);
-  CHILD (required_label);
   CHILD (split_equal);
   CHILD (split_optimal);
   CHILD (split_manual);

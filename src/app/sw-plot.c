@@ -5,7 +5,6 @@
 
 #include "sw-plot.h"
 
-#include <glib/gi18n.h>
 #include <math.h>
 #include <string.h>
 
@@ -542,6 +541,19 @@ data_extent (SwPlot *self, Extent *ex, Extent *ey)
         }
       if (s->style == SW_PLOT_BARS && !self->y.log)
         extent_add (ey, &self->y, 0.0);
+      if (s->style == SW_PLOT_BARS && !self->x.log && s->n > 0)
+        {
+          /* Whole bars: half a bar spacing beyond the first and last centres. */
+          double spacing = INFINITY;
+          for (guint k = 0; k + 1 < s->n; k++)
+            if (isfinite (s->x[k]) && isfinite (s->x[k + 1]) && s->x[k + 1] != s->x[k])
+              spacing = MIN (spacing, fabs (s->x[k + 1] - s->x[k]));
+          if (isfinite (spacing) && isfinite (ex->min) && isfinite (ex->max))
+            {
+              extent_add (ex, &self->x, ex->min - spacing / 2.0);
+              extent_add (ex, &self->x, ex->max + spacing / 2.0);
+            }
+        }
       if (s->style == SW_PLOT_HBARS && !self->x.log)
         extent_add (ex, &self->x, 0.0);
     }
@@ -1496,6 +1508,17 @@ draw_series (SwPlot *self, cairo_t *cr, const Colors *c)
       any_highlight |= s->highlighted;
       n_bar += s->style == SW_PLOT_BARS;
       n_hbar += s->style == SW_PLOT_HBARS;
+    }
+
+  /* A zero line where bars grow both ways from it. */
+  if (n_hbar > 0 && !self->x.log && self->x.v0 < 0.0 && self->x.v1 > 0.0)
+    {
+      double px = round (axis_map (&self->x, 0.0)) + 0.5;
+      set_source (cr, &c->fg, 0.6);
+      cairo_set_line_width (cr, 1.0);
+      cairo_move_to (cr, px, self->area.origin.y);
+      cairo_line_to (cr, px, self->area.origin.y + self->area.size.height);
+      cairo_stroke (cr);
     }
 
   /* Bars under lines; highlighted series last, on top. */

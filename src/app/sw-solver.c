@@ -105,6 +105,7 @@ worker_thread (gpointer data)
       SwResult *result;
       guint64 serial;
       Delivery *d;
+      GSource *source;
 
       g_mutex_lock (&sh->mutex);
       while (!sh->quit && sh->pending == NULL)
@@ -129,11 +130,18 @@ worker_thread (gpointer data)
       if (result == NULL)
         continue;  /* abandoned for a newer request */
 
+      /* An idle source on the owner's context, never g_main_context_invoke():
+       * that would run the callback right here in the worker whenever the
+       * worker can acquire the default context. */
       d = g_new0 (Delivery, 1);
       d->shared = shared_ref (sh);
       d->result = result;
-      g_main_context_invoke_full (sh->context, G_PRIORITY_DEFAULT, deliver_cb, d,
-                                  delivery_free);
+      source = g_idle_source_new ();
+      g_source_set_priority (source, G_PRIORITY_DEFAULT);
+      g_source_set_callback (source, deliver_cb, d, delivery_free);
+      g_source_set_static_name (source, "[stagewright] solver result");
+      g_source_attach (source, sh->context);
+      g_source_unref (source);
     }
   shared_unref (sh);
   return NULL;

@@ -946,6 +946,16 @@ sw_stack_view_snapshot (GtkWidget *widget, GtkSnapshot *snapshot)
             cairo_move_to (cr, cx - hw, y);
             cairo_line_to (cr, cx + hw, y);
             cairo_stroke (cr);
+            /* A grip: up and down arrows at the end of the line. */
+            cairo_move_to (cr, cx + hw + 4.0, y - 3.0);
+            cairo_line_to (cr, cx + hw + 9.0, y - 10.0);
+            cairo_line_to (cr, cx + hw + 14.0, y - 3.0);
+            cairo_close_path (cr);
+            cairo_move_to (cr, cx + hw + 4.0, y + 3.0);
+            cairo_line_to (cr, cx + hw + 9.0, y + 10.0);
+            cairo_line_to (cr, cx + hw + 14.0, y + 3.0);
+            cairo_close_path (cr);
+            cairo_fill (cr);
           }
     }
 

@@ -11,28 +11,28 @@
 
 struct _SwTotals {
   GtkWidget  parent_instance;
+  GtkWidget *box;
   SwResult  *result;
-  GtkLabel  *liftoff_label;
-  GtkLabel  *fraction_label;
-  GtkLabel  *margin_label;
-  GtkLabel  *required_label;
-  GtkLabel  *limit_label;
-  GtkWidget *status_box;
-  GtkImage  *status_icon;
-  GtkLabel  *status_label;
+  GtkInscription *liftoff_label;
+  GtkInscription *fraction_label;
+  GtkInscription *margin_label;
+  GtkInscription *required_label;
+  GtkInscription *limit_label;
+  GtkStack  *status_stack;
 };
 
 G_DEFINE_FINAL_TYPE (SwTotals, sw_totals, GTK_TYPE_WIDGET)
 
+/* One page per state, each with its fixed icon and style. */
 static void
-set_status (SwTotals *self, const char *icon, const char *css, const char *text)
+set_status (SwTotals *self, const char *page, const char *text)
 {
-  gtk_image_set_from_icon_name (self->status_icon, icon);
-  gtk_widget_remove_css_class (self->status_box, "sw-status-ok");
-  gtk_widget_remove_css_class (self->status_box, "sw-status-note");
-  gtk_widget_remove_css_class (self->status_box, "sw-status-bad");
-  gtk_widget_add_css_class (self->status_box, css);
-  gtk_label_set_text (self->status_label, text);
+  GtkLabel *label = GTK_LABEL (gtk_widget_get_last_child (
+    gtk_stack_get_child_by_name (self->status_stack, page)));
+
+  if (g_strcmp0 (gtk_label_get_text (label), text) != 0)
+    gtk_label_set_text (label, text);
+  gtk_stack_set_visible_child_name (self->status_stack, page);
 }
 
 static void
@@ -45,23 +45,23 @@ update (SwTotals *self)
 
   if (r == NULL)
     {
-      gtk_label_set_text (self->liftoff_label, SW_NO_VALUE);
-      gtk_label_set_text (self->fraction_label, SW_NO_VALUE);
-      gtk_label_set_text (self->margin_label, SW_NO_VALUE);
-      gtk_label_set_text (self->required_label, "");
-      gtk_label_set_text (self->limit_label, "");
-      set_status (self, "content-loading-symbolic", "sw-status-note", _("Sizing…"));
+      gtk_inscription_set_text (self->liftoff_label, SW_NO_VALUE);
+      gtk_inscription_set_text (self->fraction_label, SW_NO_VALUE);
+      gtk_inscription_set_text (self->margin_label, SW_NO_VALUE);
+      gtk_inscription_set_text (self->required_label, "");
+      gtk_inscription_set_text (self->limit_label, "");
+      set_status (self, "note", _("Sizing…"));
       return;
     }
   if (!r->ok)
     {
-      gtk_label_set_text (self->liftoff_label, SW_NO_VALUE);
-      gtk_label_set_text (self->fraction_label, SW_NO_VALUE);
-      gtk_label_set_text (self->margin_label, SW_NO_VALUE);
-      gtk_label_set_text (self->required_label, "");
-      gtk_label_set_text (self->limit_label, "");
+      gtk_inscription_set_text (self->liftoff_label, SW_NO_VALUE);
+      gtk_inscription_set_text (self->fraction_label, SW_NO_VALUE);
+      gtk_inscription_set_text (self->margin_label, SW_NO_VALUE);
+      gtk_inscription_set_text (self->required_label, "");
+      gtk_inscription_set_text (self->limit_label, "");
       status = g_strdup_printf (_("Cannot size this design. %s"), r->error_message);
-      set_status (self, "dialog-error-symbolic", "sw-status-bad", status);
+      set_status (self, "bad", status);
       return;
     }
 
@@ -75,30 +75,27 @@ update (SwTotals *self)
   required = g_strdup_printf (_("Required delta-v %s"), dv);
   /* Translators: %s is a speed such as "12,500 m/s" */
   limit = g_strdup_printf (_("Vehicle limit %s (no payload)"), lim);
-  gtk_label_set_text (self->liftoff_label, liftoff);
-  gtk_label_set_text (self->fraction_label, fraction);
-  gtk_label_set_text (self->margin_label, margin);
-  gtk_label_set_text (self->required_label, required);
-  gtk_label_set_text (self->limit_label, limit);
+  gtk_inscription_set_text (self->liftoff_label, liftoff);
+  gtk_inscription_set_text (self->fraction_label, fraction);
+  gtk_inscription_set_text (self->margin_label, margin);
+  gtk_inscription_set_text (self->required_label, required);
+  gtk_inscription_set_text (self->limit_label, limit);
 
   if (!s->feasible)
     {
       status = g_strdup_printf (_("Not feasible. %s"), s->reason);
-      set_status (self, "dialog-error-symbolic", "sw-status-bad", status);
+      set_status (self, "bad", status);
     }
   else if (s->reason[0] != '\0')
     {
       status = g_strdup_printf (_("Feasible. %s"), s->reason);
-      set_status (self, "dialog-information-symbolic", "sw-status-note", status);
+      set_status (self, "note", status);
     }
   else
-    {
-      g_autofree char *spare = sw_format_speed (s->margin_m_s);
-      /* Translators: %s is a speed such as "1,200 m/s" */
-      status = g_strdup_printf (_("Feasible: the stages could give %s more than required."),
-                                spare);
-      set_status (self, "object-select-symbolic", "sw-status-ok", status);
-    }
+    /* A fixed text: a wrapping label that changes costs a relayout of the
+     * column on every edit, and the margin is shown above anyway. */
+    set_status (self, "ok", _("Feasible: every stage gives its share of the delta-v and the "
+                              "vehicle closes."));
 }
 
 GtkWidget *
@@ -126,12 +123,14 @@ sw_totals_get_text (SwTotals *self, SwTotalsField field)
 
   switch (field)
     {
-    case SW_TOTALS_LIFTOFF: return gtk_label_get_text (self->liftoff_label);
-    case SW_TOTALS_FRACTION: return gtk_label_get_text (self->fraction_label);
-    case SW_TOTALS_MARGIN: return gtk_label_get_text (self->margin_label);
-    case SW_TOTALS_REQUIRED: return gtk_label_get_text (self->required_label);
-    case SW_TOTALS_LIMIT: return gtk_label_get_text (self->limit_label);
-    case SW_TOTALS_STATUS: return gtk_label_get_text (self->status_label);
+    case SW_TOTALS_LIFTOFF: return gtk_inscription_get_text (self->liftoff_label);
+    case SW_TOTALS_FRACTION: return gtk_inscription_get_text (self->fraction_label);
+    case SW_TOTALS_MARGIN: return gtk_inscription_get_text (self->margin_label);
+    case SW_TOTALS_REQUIRED: return gtk_inscription_get_text (self->required_label);
+    case SW_TOTALS_LIMIT: return gtk_inscription_get_text (self->limit_label);
+    case SW_TOTALS_STATUS:
+      return gtk_label_get_text (GTK_LABEL (gtk_widget_get_last_child (
+        gtk_stack_get_visible_child (self->status_stack))));
     default: return NULL;
     }
 }
@@ -158,14 +157,13 @@ sw_totals_class_init (SwTotalsClass *klass)
                                                "/org/stagewright/Stagewright/sw-totals.ui");
   gtk_widget_class_set_layout_manager_type (widget_class, GTK_TYPE_BIN_LAYOUT);
   gtk_widget_class_set_css_name (widget_class, "sw-totals");
+  gtk_widget_class_bind_template_child (widget_class, SwTotals, box);
   gtk_widget_class_bind_template_child (widget_class, SwTotals, liftoff_label);
   gtk_widget_class_bind_template_child (widget_class, SwTotals, fraction_label);
   gtk_widget_class_bind_template_child (widget_class, SwTotals, margin_label);
   gtk_widget_class_bind_template_child (widget_class, SwTotals, required_label);
   gtk_widget_class_bind_template_child (widget_class, SwTotals, limit_label);
-  gtk_widget_class_bind_template_child (widget_class, SwTotals, status_box);
-  gtk_widget_class_bind_template_child (widget_class, SwTotals, status_icon);
-  gtk_widget_class_bind_template_child (widget_class, SwTotals, status_label);
+  gtk_widget_class_bind_template_child (widget_class, SwTotals, status_stack);
 }
 
 static void

@@ -1180,4 +1180,13 @@ sw_window_init (SwWindow *self)
   update_title (self);
   update_actions (self);
   sw_solver_post (self->solver, sw_document_get_design (self->document));
+
+  /* Start with the stage list focused, not with a text field selected. */
+  {
+    GtkListBox *list = GTK_LIST_BOX (sw_inspector_get_field (self->inspector,
+                                                             SW_INSPECTOR_STAGE_LIST));
+    GtkListBoxRow *row = gtk_list_box_get_row_at_index (list, 0);
+    if (row != NULL)
+      gtk_window_set_focus (GTK_WINDOW (self), GTK_WIDGET (row));
+  }
 }

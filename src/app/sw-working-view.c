@@ -12,6 +12,7 @@
 
 struct _SwWorkingView {
   GtkWidget    parent_instance;
+  GtkWidget   *box;
   SwResult    *result;
   int          selected;
   GtkLabel    *title_label;
@@ -30,31 +31,28 @@ num (const char *format, double value)
 
 #define KG(v) num ("%'.1f", (v))
 #define MS(v) num ("%'.1f", (v))
+
 #define RATIO(v) num ("%.4f", (v))
 
-static void G_GNUC_PRINTF (3, 4)
-line (GString *s, const char *label, const char *format, ...)
+/* A heading line, then the formula lines indented under it: narrow enough
+ * for the side panel and for pasting into notes. */
+static void
+head (GString *s, const char *label)
 {
-  va_list args;
-  g_autofree char *text = NULL;
-  glong width = g_utf8_strlen (label, -1);
-
-  va_start (args, format);
-  text = g_strdup_vprintf (format, args);
-  va_end (args);
   g_string_append (s, label);
-  for (glong i = width; i < 22; i++)
-    g_string_append_c (s, ' ');
-  g_string_append (s, text);
   g_string_append_c (s, '\n');
 }
 
-static void
-cont (GString *s, const char *text)
+static void G_GNUC_PRINTF (2, 3)
+formula (GString *s, const char *format, ...)
 {
-  g_string_append (s, "                        ");
-  g_string_append (s, text);
+  va_list args;
+
+  va_start (args, format);
+  g_string_append (s, "  ");
+  g_string_append_vprintf (s, format, args);
   g_string_append_c (s, '\n');
+  va_end (args);
 }
 
 static char *
@@ -65,6 +63,7 @@ build_text (SwWorkingView *self, gboolean for_copy)
   const SwStage *st;
   const SwStageResult *sr;
   const SwSizing *sz;
+  g_autofree char *c = NULL, *eps = NULL, *n = NULL, *dv = NULL;
   GString *s;
   guint i;
 
@@ -80,113 +79,105 @@ build_text (SwWorkingView *self, gboolean for_copy)
   i = (guint) self->selected;
   st = &d->stages[i];
   sr = &sz->stages[i];
+  c = MS (sr->exhaust_velocity_m_s);
+  eps = RATIO (st->structural_coefficient);
+  n = RATIO (sr->mass_ratio);
+  dv = MS (sr->delta_v_m_s);
   s = g_string_new (NULL);
 
   {
-    g_autofree char *dv = MS (sz->delta_v_m_s);
+    g_autofree char *total = MS (sz->delta_v_m_s);
     const char *split = sz->split == SW_SPLIT_OPTIMAL ? _("optimal (Lagrange multiplier)")
                         : sz->split == SW_SPLIT_EQUAL ? _("equal") : _("manual");
     /* Translators: header of the working; stage number, count, name */
     g_string_append_printf (s, _("Stage %u of %u: %s\n"), i + 1, d->n_stages, st->name);
-    g_string_append_printf (s, _("Split: %s.  Required delta-v Δv = %s m/s.  g0 = 9.80665 m/s² (exact)\n\n"),
-                            split, dv);
+    g_string_append_printf (s, _("Split: %s\n"), split);
+    g_string_append_printf (s, _("Required delta-v Δv = %s m/s; g0 = 9.80665 m/s² (exact)\n\n"),
+                            total);
   }
 
   {
     g_autofree char *isp = num ("%.1f", st->isp_vac_s);
-    g_autofree char *c = MS (sr->exhaust_velocity_m_s);
-    line (s, _("Exhaust velocity"), _("c = Isp·g0 = %s s × 9.80665 m/s² = %s m/s"), isp, c);
-  }
-  {
-    g_autofree char *eps = RATIO (st->structural_coefficient);
-    line (s, _("Structural coeff."), _("ε = m_s/(m_s + m_p) = %s"), eps);
+    head (s, _("Exhaust velocity"));
+    formula (s, "c = Isp·g0 = %s s × 9.80665 m/s² = %s m/s", isp, c);
+    head (s, _("Structural coefficient"));
+    formula (s, "ε = m_s/(m_s + m_p) = %s", eps);
   }
 
   if (sz->split == SW_SPLIT_OPTIMAL && isfinite (sz->multiplier_s_m))
     {
-      g_autofree char *eta = num ("%.6e", sz->multiplier_s_m);
-      g_autofree char *c = MS (sr->exhaust_velocity_m_s);
-      g_autofree char *eps = RATIO (st->structural_coefficient);
-      g_autofree char *n = RATIO (sr->mass_ratio);
-      g_autofree char *rhs = NULL;
+      g_autofree char *eta = num ("%.5e", sz->multiplier_s_m);
 
-      line (s, _("Lagrange multiplier"), _("η = %s s/m (the same for every stage)"), eta);
+      head (s, _("Lagrange multiplier (the same for every stage)"));
+      formula (s, "η = %s s/m", eta);
+      head (s, _("Mass ratio at the optimum"));
+      formula (s, "n = (c·η − 1)/(c·ε·η)");
       if (sr->unused)
-        line (s, _("Mass ratio"),
-              _("n = (c·η − 1)/(c·ε·η) would be below 1: at the optimum this stage gets no delta-v, n = 1"));
+        formula (s, "%s", _("would be below 1: this stage gets no delta-v, n = 1"));
       else
         {
-          line (s, _("Mass ratio"), "n = (c·η − 1)/(c·ε·η)");
-          rhs = g_strdup_printf ("= (%s × %s − 1)/(%s × %s × %s) = %s", c, eta, c, eps, eta, n);
-          cont (s, rhs);
+          formula (s, "  = (%s × %s − 1)/(%s × %s × %s)", c, eta, c, eps, eta);
+          formula (s, "  = %s", n);
         }
-      {
-        g_autofree char *dv = MS (sr->delta_v_m_s);
-        g_autofree char *share = sw_format_fraction (sr->delta_v_share, 1);
-        g_autofree char *text = g_strdup_printf (_("Δv = c·ln n = %s × ln %s = %s m/s (%s of the total)"),
-                                                 c, n, dv, share);
-        line (s, _("Stage delta-v"), "%s", text);
-      }
+      head (s, _("Stage delta-v"));
+      formula (s, "Δv = c·ln n = %s m/s × ln %s = %s m/s", c, n, dv);
     }
   else
     {
-      g_autofree char *dv = MS (sr->delta_v_m_s);
-      g_autofree char *c = MS (sr->exhaust_velocity_m_s);
-      g_autofree char *n = RATIO (sr->mass_ratio);
-      g_autofree char *share = sw_format_fraction (sr->delta_v_share, 1);
-
-      line (s, _("Stage delta-v"), _("Δv = %s m/s (%s of the total, %s split)"), dv, share,
-            sz->split == SW_SPLIT_EQUAL ? _("equal") : _("manual"));
-      line (s, _("Mass ratio"), _("n = exp(Δv/c) = exp(%s / %s) = %s"), dv, c, n);
+      head (s, _("Stage delta-v"));
+      formula (s, "Δv = %s m/s", dv);
+      head (s, _("Mass ratio"));
+      formula (s, "n = exp(Δv/c) = exp(%s / %s) = %s", dv, c, n);
     }
-
+  {
+    g_autofree char *share = sw_format_fraction (sr->delta_v_share, 1);
+    /* Translators: %s is a percentage */
+    formula (s, _("(%s of the required delta-v)"), share);
+  }
   {
     g_autofree char *limit = MS (sr->delta_v_limit_m_s);
-    g_autofree char *c = MS (sr->exhaust_velocity_m_s);
-    g_autofree char *eps = RATIO (st->structural_coefficient);
-    line (s, _("Stage limit"), _("c·ln(1/ε) = %s × ln(1/%s) = %s m/s (n reaches 1/ε)"), c, eps,
-          limit);
+    head (s, _("Stage limit, where n would reach 1/ε"));
+    formula (s, "c·ln(1/ε) = %s × ln(1/%s) = %s m/s", c, eps, limit);
   }
   g_string_append_c (s, '\n');
 
   if (!sz->feasible)
-    {
-      g_string_append_printf (s, _("No masses: the vehicle does not close.\n%s\n"), sz->reason);
-    }
+    g_string_append_printf (s, _("No masses: the vehicle does not close.\n%s\n"), sz->reason);
   else
     {
       g_autofree char *above = KG (sr->payload_mass_kg);
-      g_autofree char *n = RATIO (sr->mass_ratio);
-      g_autofree char *eps = RATIO (st->structural_coefficient);
       g_autofree char *m0 = KG (sr->initial_mass_kg);
       g_autofree char *mb = KG (sr->burnout_mass_kg);
       g_autofree char *mp = KG (sr->propellant_mass_kg);
       g_autofree char *ms = KG (sr->structural_mass_kg);
       g_autofree char *mst = KG (sr->stage_mass_kg);
-      g_autofree char *rhs = NULL;
+      g_autofree char *lift = KG (sz->liftoff_mass_kg);
+      g_autofree char *pl = KG (sz->payload_kg);
+      g_autofree char *frac = sw_format_fraction (sz->payload_fraction, 3);
+      g_autofree char *lim = MS (sz->delta_v_limit_m_s);
+      g_autofree char *margin = MS (sz->margin_m_s);
 
-      line (s, _("Mass above"), _("m_above = %s kg (payload and the stages above)"), above);
-      line (s, _("Initial mass"), "m0 = m_above·n·(1 − ε)/(1 − n·ε)");
-      rhs = g_strdup_printf ("= %s × %s × (1 − %s)/(1 − %s × %s) = %s kg", above, n, eps, n, eps,
-                             m0);
-      cont (s, rhs);
-      line (s, _("Burnout mass"), "m_b = m0/n = %s / %s = %s kg", m0, n, mb);
-      line (s, _("Propellant"), "m_p = m0 − m_b = %s − %s = %s kg", m0, mb, mp);
-      line (s, _("Structure"), "m_s = m_b − m_above = %s − %s = %s kg", mb, above, ms);
-      line (s, _("Stage mass"), "m_p + m_s = %s kg", mst);
+      head (s, _("Mass above this stage (payload and upper stages)"));
+      formula (s, "m_above = %s kg", above);
+      head (s, _("Initial mass"));
+      formula (s, "m0 = m_above·n·(1 − ε)/(1 − n·ε)");
+      formula (s, "   = %s × %s × (1 − %s)/(1 − %s × %s)", above, n, eps, n, eps);
+      formula (s, "   = %s kg", m0);
+      head (s, _("Burnout mass"));
+      formula (s, "m_b = m0/n = %s / %s = %s kg", m0, n, mb);
+      head (s, _("Propellant"));
+      formula (s, "m_p = m0 − m_b = %s − %s = %s kg", m0, mb, mp);
+      head (s, _("Structure"));
+      formula (s, "m_s = m_b − m_above = %s − %s = %s kg", mb, above, ms);
+      head (s, _("Stage mass"));
+      formula (s, "m_p + m_s = %s kg", mst);
       g_string_append_c (s, '\n');
 
-      {
-        g_autofree char *lift = KG (sz->liftoff_mass_kg);
-        g_autofree char *pl = KG (sz->payload_kg);
-        g_autofree char *frac = sw_format_fraction (sz->payload_fraction, 3);
-        g_autofree char *lim = MS (sz->delta_v_limit_m_s);
-        g_autofree char *margin = MS (sz->margin_m_s);
-
-        line (s, _("Liftoff mass"), _("m0 of stage 1 = %s kg"), lift);
-        line (s, _("Payload fraction"), "%s / %s = %s", pl, lift, frac);
-        line (s, _("Vehicle limit"), _("Σ c_i·ln(1/ε_i) = %s m/s, margin %s m/s"), lim, margin);
-      }
+      head (s, _("Vehicle"));
+      formula (s, _("liftoff mass (m0 of stage 1) = %s kg"), lift);
+      formula (s, _("payload fraction = %s / %s = %s"), pl, lift, frac);
+      formula (s, _("delta-v limit Σ c_i·ln(1/ε_i) = %s m/s"), lim);
+      formula (s, _("margin to the limit = %s m/s"), margin);
       if (sz->reason[0] != '\0')
         g_string_append_printf (s, "\n%s\n", sz->reason);
     }
@@ -295,6 +286,7 @@ sw_working_view_class_init (SwWorkingViewClass *klass)
                                                "/org/stagewright/Stagewright/sw-working-view.ui");
   gtk_widget_class_set_layout_manager_type (widget_class, GTK_TYPE_BIN_LAYOUT);
   gtk_widget_class_set_css_name (widget_class, "sw-working-view");
+  gtk_widget_class_bind_template_child (widget_class, SwWorkingView, box);
   gtk_widget_class_bind_template_child (widget_class, SwWorkingView, title_label);
   gtk_widget_class_bind_template_child (widget_class, SwWorkingView, text_view);
   gtk_widget_class_install_action (widget_class, "working.copy", NULL, copy_action);

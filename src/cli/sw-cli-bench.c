@@ -4,9 +4,13 @@
 
 #include "sw-cli.h"
 
+#include "sw-ascent.h"
 #include "sw-curves.h"
+#include "sw-montecarlo.h"
+#include "sw-sensitivity.h"
 #include "sw-sizing.h"
 
+#include <math.h>
 #include <time.h>
 
 static gboolean opt_json;
@@ -58,7 +62,10 @@ sw_cli_bench (int argc, char **argv)
   g_autofree char *path = NULL;
   enum { BATCHES = 101, PER_BATCH = 2000, UPDATES = 201 };
   double samples[BATCHES], updates[UPDATES];
-  double optimal_ns, live_us, dv;
+  double optimal_ns, live_us, dv, sensitivity_us = 0.0, montecarlo_ms = 0.0;
+  double ascent_ms = NAN, loop_ms = NAN;
+  g_autofree char *ascent_design = NULL;
+  guint mc_threads = 1;
   SwStageSet set;
   int code;
 
@@ -107,6 +114,71 @@ sw_cli_bench (int argc, char **argv)
     }
   live_us = median (updates, UPDATES);
 
+  /* Trade studies: one sensitivity table (derivatives, tornado, exchange
+   * ratios); a 10,000-sample Monte Carlo on all cores with fixed spreads
+   * (Isp sigma 1 %, structural coefficient +-8 %, losses sigma 120 m/s). */
+  {
+    enum { TABLES = 201, RUNS = 9 };
+    double tables[TABLES], runs[RUNS];
+    SwUncertainty spreads;
+
+    for (guint k = 0; k < TABLES; k++)
+      {
+        SwSensitivityTable t;
+        double t0 = now_ns ();
+        sw_sensitivity_compute (d, SW_SENSITIVITY_DEFAULT_STEP, &t, NULL);
+        tables[k] = (now_ns () - t0) / 1000.0;
+        sink += t.liftoff_mass_kg;
+      }
+    sensitivity_us = median (tables, TABLES);
+
+    sw_uncertainty_init (&spreads);
+    spreads.isp = (SwSpread) { SW_SPREAD_NORMAL, 1.0 };
+    spreads.structural_coefficient = (SwSpread) { SW_SPREAD_UNIFORM, 8.0 };
+    spreads.losses = (SwSpread) { SW_SPREAD_NORMAL, 120.0 };
+    for (guint k = 0; k < RUNS; k++)
+      {
+        SwMonteCarlo mc;
+        double t0 = now_ns ();
+        sw_montecarlo_run (d, &spreads, 10000, TRUE, k + 1, 0, &mc, NULL, NULL, NULL);
+        runs[k] = (now_ns () - t0) / 1e6;
+        sink += mc.liftoff.mean;
+        mc_threads = mc.threads;
+      }
+    montecarlo_ms = median (runs, RUNS);
+  }
+
+  /* Ascent: one guided solve of the three-stage demo (vehicle sized with its
+   * first guess of the losses, pitch kick and steering solved, the flight
+   * recorded), and its closed sizing-and-losses loop. */
+  {
+    enum { SOLVES = 15, LOOPS = 7 };
+    double solves[SOLVES], loops[LOOPS];
+    g_autofree char *apath = sw_cli_find_demo ("three-stage-simulated.stagewright");
+    g_autoptr (SwDesign) ad = sw_design_load (apath, NULL, NULL);
+
+    if (ad != NULL)
+      {
+        ascent_design = g_strdup (ad->name);
+        for (guint k = 0; k < SOLVES; k++)
+          {
+            double t0 = now_ns ();
+            g_autoptr (SwAscentResult) r = sw_ascent_solve (ad, NULL, NULL, NULL);
+            solves[k] = (now_ns () - t0) / 1e6;
+            sink += r != NULL ? r->losses_m_s : 0.0;
+          }
+        ascent_ms = median (solves, SOLVES);
+        for (guint k = 0; k < LOOPS; k++)
+          {
+            double t0 = now_ns ();
+            g_autoptr (SwAscentResult) r = sw_ascent_close_loop (ad, NULL, NULL, NULL);
+            loops[k] = (now_ns () - t0) / 1e6;
+            sink += r != NULL ? r->losses_m_s : 0.0;
+          }
+        loop_ms = median (loops, LOOPS);
+      }
+  }
+
   if (opt_json)
     {
       g_autoptr (JsonBuilder) b = json_builder_new_immutable ();
@@ -117,6 +189,17 @@ sw_cli_bench (int argc, char **argv)
       json_builder_add_string_value (b, d->name);
       sw_cli_add_number (b, "optimal_size_ns", optimal_ns);
       sw_cli_add_number (b, "live_update_us", live_us);
+      sw_cli_add_number (b, "sensitivity_table_us", sensitivity_us);
+      sw_cli_add_number (b, "montecarlo_10k_ms", montecarlo_ms);
+      json_builder_set_member_name (b, "montecarlo_threads");
+      json_builder_add_int_value (b, mc_threads);
+      json_builder_set_member_name (b, "ascent_design");
+      if (ascent_design != NULL)
+        json_builder_add_string_value (b, ascent_design);
+      else
+        json_builder_add_null_value (b);
+      sw_cli_add_number (b, "ascent_solve_ms", ascent_ms);
+      sw_cli_add_number (b, "closed_loop_ms", loop_ms);
       json_builder_end_object (b);
       node = json_builder_get_root (b);
       sw_cli_print_json (node);
@@ -129,6 +212,18 @@ sw_cli_bench (int argc, char **argv)
       g_print ("live update (size + 1..8 curve + 5 x 200 sweep) %8.1f us median  "
                "(target <= 1000 us)\n",
                live_us);
+      g_print ("sensitivity table            %10.1f us median  (target <= 1000 us)\n",
+               sensitivity_us);
+      g_print ("Monte Carlo, 10,000 samples  %10.2f ms median  on %u thread(s) "
+               "(target <= 50 ms on 2 cores)\n",
+               montecarlo_ms, mc_threads);
+      {
+        g_autofree char *a = sw_cli_format (ascent_ms, 1);
+        g_autofree char *l = sw_cli_format (loop_ms, 1);
+        g_print ("ascent solve, three stages   %10s ms median  (target <= 50 ms)  %s\n", a,
+                 ascent_design != NULL ? ascent_design : "(demo not found)");
+        g_print ("closed sizing-losses loop    %10s ms median  (target <= 500 ms)\n", l);
+      }
     }
   return SW_EXIT_OK;
 }

@@ -7,6 +7,7 @@
 #include "sw-cli.h"
 
 #include <glib/gi18n.h>
+#include <gsl/gsl_errno.h>
 #include <locale.h>
 #include <math.h>
 #include <stdio.h>
@@ -29,6 +30,10 @@ static const SwCliCommand commands[] = {
     sw_cli_reliability },
   { "export", "FILE", "The one-page briefing sheet (PDF, SVG, PNG) and CSV tables",
     sw_cli_export },
+  { "ascent", "FILE", "Ascent simulation: orbit reached, losses, max-Q, staging; closes the loss loop",
+    sw_cli_ascent },
+  { "atmosphere", "ALTITUDE_M", "1976 U.S. Standard Atmosphere at a geometric altitude",
+    sw_cli_atmosphere },
   { "bench", "[FILE]", "Benchmark the sizing and a full live update", sw_cli_bench },
 };
 
@@ -136,6 +141,8 @@ main (int argc, char **argv)
   bind_textdomain_codeset (GETTEXT_PACKAGE, "UTF-8");
   /* Numbers in tables and JSON use the C conventions whatever the locale. */
   setlocale (LC_NUMERIC, "C");
+  /* GSL reports numerical trouble through status codes, never abort(). */
+  gsl_set_error_handler_off ();
 
   if (argc < 2)
     {

@@ -47,5 +47,7 @@ int sw_cli_sensitivity (int argc, char **argv);
 int sw_cli_montecarlo (int argc, char **argv);
 int sw_cli_reliability (int argc, char **argv);
 int sw_cli_export (int argc, char **argv);
+int sw_cli_ascent (int argc, char **argv);
+int sw_cli_atmosphere (int argc, char **argv);
 
 G_END_DECLS

@@ -18,12 +18,15 @@
  * stage as an impulsive equivalent).  A vehicle sized for the allowance L then
  * reaches the orbit exactly when losses <= L; the difference is its margin or
  * the delta-v it misses.  The breakdown adds up to the losses:
- *     losses = gravity + drag + steering + pressure + fairing + other
+ *     losses = gravity + drag + steering + pressure + fairing + raising + other
  *   gravity   integral of g sin(gamma_air) dt   (flight-path angle relative to the air)
  *   drag      integral of D / m dt
  *   steering  integral of (T / m)(1 - cos alpha) dt, alpha between thrust and air velocity
  *   pressure  integral of (T_vac - T) / m dt, the back-pressure thrust deficit
  *   fairing   the rocket-equation delta-v lost to carrying the fairing
+ *   raising   with a transfer (ascent.insertion_altitude_km): the cutoff speed above
+ *             the target's circular speed plus the circularisation burn at apogee
+ *             (impulsive); 0 for direct insertion
  *   other     the rest: the rotating frame's extra speed at altitude (the
  *             budget counts the rotation at the site's radius) and the cutoff residual.
  * The rotation gain is the budget's: v_circular - ideal. */
@@ -57,7 +60,7 @@ typedef struct {
   SwSteeringMode steering;
   gboolean       record;             /* keep the time series (default TRUE) */
   double         sample_interval_s;  /* longest spacing of recorded samples (default 1 s) */
-  double         rtol;               /* relative tolerance of the integrator (default 1e-9) */
+  double         rtol;               /* relative tolerance of the integrator (default 1e-8) */
 } SwAscentOptions;
 
 typedef enum {
@@ -100,7 +103,7 @@ typedef struct {
   gboolean fires;                    /* FALSE: the sizing gave it no propellant */
   gboolean flown;                    /* it ignited in the simulation */
   double   thrust_vac_n;
-  double   thrust_sl_n;              /* at sea-level pressure */
+  double   thrust_sl_n;              /* at sea-level pressure; NAN without isp_sl_s */
   double   mass_flow_kg_s;
   double   burn_time_s;              /* propellant / mass flow, the full load */
   double   burn_time_flown_s;        /* to burnout or cutoff */
@@ -131,10 +134,17 @@ struct _SwAscentResult {
   double ideal_delta_v_m_s;          /* the budget's |v_orbit - v_site| */
   double rotation_gain_m_s;          /* v_circular - ideal, the budget's */
 
-  /* the orbit reached: at cutoff, or at the last real burnout when short */
+  /* the orbit reached: at cutoff (after the circularisation burn when there
+   * is a transfer), or at the last real burnout when short */
   double perigee_km;                 /* NAN when no orbit (escape) */
   double apogee_km;
   SwAscentPoint cutoff;
+  /* transfer profile (ascent.insertion_altitude_km); NAN for direct insertion */
+  double insertion_altitude_km;
+  double transfer_perigee_km;        /* the orbit at cutoff */
+  double transfer_apogee_km;
+  double circularization_m_s;        /* the apogee burn, impulsive */
+  double circularization_time_s;     /* half a transfer orbit after cutoff */
 
   /* delta-v accounting, m/s (see the header comment) */
   double losses_m_s;
@@ -143,6 +153,7 @@ struct _SwAscentResult {
   double steering_loss_m_s;
   double pressure_loss_m_s;
   double fairing_loss_m_s;
+  double raising_loss_m_s;
   double other_loss_m_s;
   double engines_delta_v_m_s;        /* integral of T_vac / m: what the engines gave */
   double delta_v_needed_m_s;         /* ideal + losses */

@@ -860,7 +860,8 @@ validate_design (const SwDesign *d, const LoadContext *ctx, const char *prefix, 
           || !check_limit (SW_LIMIT_STRUCTURAL_COEFFICIENT, s->structural_coefficient, ctx, sp,
                            error)
           || (s->has_isp_sl && !check_limit (SW_LIMIT_ISP_SL, s->isp_sl_s, ctx, sp, error))
-          || !sw_reliability_validate_stage (&s->reliability, ctx->file, sp, error))
+          || !sw_reliability_validate_stage (&s->reliability, ctx->file, sp, error)
+          || !sw_propulsion_validate_stage (&s->propulsion, i, ctx->file, sp, error))
         return FALSE;
       if (s->has_isp_sl && s->isp_sl_s > s->isp_vac_s)
         {
@@ -900,7 +901,8 @@ validate_design (const SwDesign *d, const LoadContext *ctx, const char *prefix, 
       return FALSE;
     }
 
-  if (!sw_uncertainty_validate (&d->uncertainty, ctx->file, prefix, error))
+  if (!sw_uncertainty_validate (&d->uncertainty, ctx->file, prefix, error)
+      || !sw_propulsion_validate_design (&d->ascent, ctx->file, error))
     return FALSE;
 
   if (d->baseline != NULL)

@@ -85,6 +85,8 @@ static const SwLimit limits[SW_N_LIMITS] = {
     "speed relative to the air at which the vertical rise ends and the pitch-over begins" },
   [SW_LIMIT_PITCH_KICK] = { "pitch_kick_deg", "deg", 0.0, 45.0, TRUE,
     "tilt of the thrust at the pitch-over; left out, the solver picks the one that costs least delta-v" },
+  [SW_LIMIT_INSERTION_ALTITUDE] = { "insertion_altitude_km", "km", 100.0, 2000.0, FALSE,
+    "perigee of a transfer orbit up to the target, circularised at apogee; left out, direct insertion" },
 };
 
 const SwLimit *

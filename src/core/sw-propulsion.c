@@ -20,7 +20,7 @@ const char *const sw_propulsion_stage_keys[] = {
 const char *const sw_propulsion_design_keys[] = { "ascent", NULL };
 const char *const sw_propulsion_ascent_keys[] = {
   "fairing_mass_kg", "fairing_jettison_altitude_km", "fairing_jettison_dynamic_pressure_pa",
-  "pitch_over_speed_m_s", "pitch_kick_deg", NULL
+  "pitch_over_speed_m_s", "pitch_kick_deg", "insertion_altitude_km", NULL
 };
 
 /* Generic slender-vehicle drag coefficient against Mach number: ours, with
@@ -251,7 +251,11 @@ sw_propulsion_load_design (JsonObject *root, const char *file, SwDesignAscent *a
                                    error)
       || !sw_optional_read_number (obj, "pitch_kick_deg", file, "ascent", SW_LIMIT_PITCH_KICK,
                                    FALSE, &ascent->pitch_kick_deg, &ascent->has_pitch_kick,
-                                   error))
+                                   error)
+      || !sw_optional_read_number (obj, "insertion_altitude_km", file, "ascent",
+                                   SW_LIMIT_INSERTION_ALTITUDE, FALSE,
+                                   &ascent->insertion_altitude_km,
+                                   &ascent->has_insertion_altitude, error))
     return FALSE;
   return sw_propulsion_validate_design (ascent, file, error);
 }
@@ -273,7 +277,10 @@ sw_propulsion_validate_design (const SwDesignAscent *a, const char *file, GError
           && !sw_optional_check (SW_LIMIT_PITCH_OVER_SPEED, a->pitch_over_speed_m_s, file,
                                  "ascent", error))
       || (a->has_pitch_kick
-          && !sw_optional_check (SW_LIMIT_PITCH_KICK, a->pitch_kick_deg, file, "ascent", error)))
+          && !sw_optional_check (SW_LIMIT_PITCH_KICK, a->pitch_kick_deg, file, "ascent", error))
+      || (a->has_insertion_altitude
+          && !sw_optional_check (SW_LIMIT_INSERTION_ALTITUDE, a->insertion_altitude_km, file,
+                                 "ascent", error)))
     return FALSE;
   if (a->has_fairing_altitude && a->has_fairing_pressure)
     {
@@ -346,6 +353,8 @@ sw_propulsion_save_design (JsonBuilder *builder, const SwDesignAscent *a)
     add_number (builder, "pitch_over_speed_m_s", a->pitch_over_speed_m_s);
   if (a->has_pitch_kick)
     add_number (builder, "pitch_kick_deg", a->pitch_kick_deg);
+  if (a->has_insertion_altitude)
+    add_number (builder, "insertion_altitude_km", a->insertion_altitude_km);
   json_builder_end_object (builder);
 }
 

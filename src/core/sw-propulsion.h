@@ -15,7 +15,9 @@
  *   coast_before_ignition_s     unpowered flight before ignition (not stage 1)
  * Design keys, object "ascent":
  *   fairing_mass_kg, fairing_jettison_altitude_km or
- *   fairing_jettison_dynamic_pressure_pa, pitch_over_speed_m_s, pitch_kick_deg */
+ *   fairing_jettison_dynamic_pressure_pa, pitch_over_speed_m_s, pitch_kick_deg,
+ *   insertion_altitude_km (fly to a transfer orbit with this perigee and the
+ *   target as apogee, circularise there; left out: direct insertion) */
 #pragma once
 
 #include <json-glib/json-glib.h>
@@ -49,12 +51,15 @@ typedef struct {
   double   fairing_jettison_dynamic_pressure_pa; /* valid when has_fairing_pressure */
   double   pitch_over_speed_m_s;                 /* valid when has_pitch_over_speed */
   double   pitch_kick_deg;                       /* valid when has_pitch_kick */
+  double   insertion_altitude_km;                /* valid when has_insertion_altitude */
   gboolean present;                              /* the "ascent" object was given */
   gboolean has_fairing_mass;
   gboolean has_fairing_altitude;
   gboolean has_fairing_pressure;
   gboolean has_pitch_over_speed;
   gboolean has_pitch_kick;
+  gboolean has_insertion_altitude;
+  gboolean reserved;                             /* keeps the struct free of padding */
 } SwDesignAscent;
 
 extern const char *const sw_propulsion_stage_keys[];

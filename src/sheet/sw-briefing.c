@@ -5,8 +5,11 @@
 
 #include "sw-briefing.h"
 
+#include "sw-ascent.h"
+
 #include <glib/gi18n-lib.h>
 #include <math.h>
+#include <stdarg.h>
 #include <string.h>
 
 SwBriefing *
@@ -80,21 +83,72 @@ sw_briefing_free (SwBriefing *briefing)
   g_free (briefing);
 }
 
+static void
+add_line (SwBriefing *b, const char *label, const char *fmt, ...) G_GNUC_PRINTF (3, 4);
+
+static void
+add_line (SwBriefing *b, const char *label, const char *fmt, ...)
+{
+  va_list args;
+
+  if (b->n_ascent >= SW_BRIEFING_MAX_LINES)
+    return;
+  g_strlcpy (b->ascent[b->n_ascent].label, label, SW_BRIEFING_TEXT);
+  va_start (args, fmt);
+  g_vsnprintf (b->ascent[b->n_ascent].value, SW_BRIEFING_TEXT, fmt, args);
+  va_end (args);
+  b->n_ascent++;
+}
+
 void
 sw_briefing_fill_ascent (SwBriefing *b)
 {
+  g_autoptr (GError) error = NULL;
+  g_autoptr (SwAscentResult) r = NULL;
+
   g_return_if_fail (b != NULL);
 
-  /* ASCENT HOOK: the ascent model (sw-ascent.h) is not part of the build
-   * yet.  When it is, run it here for designs whose mission has
-   * loss_model "simulate" and fill b->ascent[] with label/value pairs
-   * (losses by kind, max-Q, burnout conditions); the sheet draws whatever
-   * lines are present. */
   b->n_ascent = 0;
-  if (b->design->mission.kind == SW_MISSION_ORBIT
-      && b->design->mission.loss_model == SW_LOSS_SIMULATE)
-    g_strlcpy (b->ascent_note, _("Ascent simulation requested but not available in this build."),
-               sizeof b->ascent_note);
-  else
-    b->ascent_note[0] = '\0';
+  b->ascent_note[0] = '\0';
+  /* Only designs that carry the ascent inputs (thrust, diameter, an orbit)
+   * are flown; the others say nothing unless they asked for simulated losses. */
+  if (!b->sizing.feasible || !sw_ascent_check_inputs (b->design, &error))
+    {
+      if (b->design->mission.kind == SW_MISSION_ORBIT
+          && b->design->mission.loss_model == SW_LOSS_SIMULATE)
+        g_snprintf (b->ascent_note, sizeof b->ascent_note, _("Ascent not simulated: %s"),
+                    error != NULL ? error->message : _("the design is infeasible."));
+      return;
+    }
+  r = sw_design_ascent (b->design, NULL, &error);
+  if (r == NULL)
+    {
+      g_snprintf (b->ascent_note, sizeof b->ascent_note, _("Ascent not simulated: %s"),
+                  error->message);
+      return;
+    }
+  switch (r->status)
+    {
+    case SW_ASCENT_REACHED:
+      add_line (b, _("Ascent"), _("orbit reached, %.0f m/s spare"), r->delta_v_margin_m_s);
+      break;
+    case SW_ASCENT_SHORT:
+      add_line (b, _("Ascent"), _("short by %.0f m/s"), r->delta_v_missing_m_s);
+      break;
+    case SW_ASCENT_NO_SOLUTION:
+    case SW_ASCENT_NOT_SIMULATED:
+    case SW_ASCENT_UNGUIDED:
+    default:
+      add_line (b, _("Ascent"), "%s", _("no orbit"));
+      g_strlcpy (b->ascent_note, r->reason, sizeof b->ascent_note);
+      return;
+    }
+  add_line (b, _("Simulated losses"), _("%.0f m/s (gravity %.0f, drag %.0f)"), r->losses_m_s,
+            r->gravity_loss_m_s, r->drag_loss_m_s);
+  if (isfinite (r->max_q_pa))
+    add_line (b, _("Max-Q"), _("%.1f kPa at %.0f s, %.1f km"), r->max_q_pa / 1000.0,
+              r->max_q_time_s, r->max_q_altitude_m / 1000.0);
+  if (isfinite (r->liftoff_thrust_to_weight))
+    add_line (b, _("Liftoff T/W; max accel."), _("%.2f; %.1f g"), r->liftoff_thrust_to_weight,
+              r->max_axial_g);
 }

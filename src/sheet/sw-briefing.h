@@ -68,9 +68,10 @@ typedef struct {
 SwBriefing *sw_briefing_new (const SwDesign *design, SwBriefingFlags flags, guint threads,
                              GError **error);
 void        sw_briefing_free (SwBriefing *briefing);
-/* ASCENT HOOK: fills the ascent summary when the design asks for simulated
- * losses and the ascent model is built in; otherwise leaves n_ascent at 0
- * and says why in ascent_note. */
+/* The ascent summary: flies the design (sw_design_ascent) when it carries
+ * the ascent inputs and fills the label/value lines; otherwise leaves
+ * n_ascent at 0 (and, when the design asked for simulated losses, says why
+ * in ascent_note).  The GUI may fill the lines from its own ascent result. */
 void        sw_briefing_fill_ascent (SwBriefing *briefing);
 
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (SwBriefing, sw_briefing_free)

@@ -498,6 +498,23 @@ draw_x_axis (cairo_t *cr, const Axes *a, guint highlight, const char *label)
   text_at (cr, label, a->x, a->y + a->h + 11.0, &lab);
 }
 
+/* A tick in tonnes: "0.5", "7", "1,500", or "10⁷" from 100,000 up. */
+static char *
+tick_label (double t)
+{
+  static const char *const sup[] = { "\342\201\260", "\302\271", "\302\262", "\302\263",
+                                     "\342\201\264", "\342\201\265", "\342\201\266",
+                                     "\342\201\267", "\342\201\270", "\342\201\271" };
+  int k = (int) lround (log10 (t));
+
+  if (t >= 99999.0 && fabs (t - pow (10.0, k)) < 1e-6 * t && k < 100)
+    return k < 10 ? g_strconcat ("10", sup[k], NULL)
+                  : g_strconcat ("10", sup[k / 10], sup[k % 10], NULL);
+  if (t >= 99999.0)
+    return g_strdup_printf ("%.0e", t);
+  return fmt_grouped (t, fabs (t - round (t)) < 1e-9 ? 0 : (t < 1.0 ? 2 : 1));
+}
+
 /* Log ticks at 1, 2, 5 x 10^k over wide ranges; 1, 1.5, 2, 3, 5, 7 x 10^k
  * over narrow ones (labels in tonnes). */
 static void
@@ -524,7 +541,7 @@ draw_log_y_axis (cairo_t *cr, const Axes *a)
           continue;
         yy = ax_y (a, v);
         rule (cr, a->x, a->x + a->w, yy, GRID, 0.5);
-        label = fmt_grouped (v / 1000.0, v < 1000.0 ? (v < 100.0 ? 2 : 1) : (v < 10000.0 ? 1 : 0));
+        label = tick_label (v / 1000.0);
         text_centered_v (cr, label, a->x - 37.0, yy, &tick);
       }
 }
@@ -534,7 +551,7 @@ sw_sheet_draw_stage_curve (cairo_t *cr, const SwStageCurve *curve, const SwMcBan
                            const SwStageCurve *baseline, guint design_stages, double x, double y,
                            double w, double h)
 {
-  Axes a = { x + 40.0, y + 4.0, w - 46.0, h - 26.0, 0, 0, TRUE, curve->n_points };
+  Axes a = { x + 40.0, y + 4.0, w - 46.0, h - 36.0, 0, 0, TRUE, curve->n_points };
   double vmin = INFINITY, vmax = 0.0;
   gboolean any = FALSE, first = TRUE;
   TextStyle lab = style (6.8, FALSE, MUTED);
@@ -693,24 +710,23 @@ sw_sheet_draw_stage_curve (cairo_t *cr, const SwStageCurve *curve, const SwMcBan
 
   draw_x_axis (cr, &a, design_stages, _("stages"));
 
-  /* Legend. */
+  /* Legend: one line under the axis, where no curve can run. */
   {
-    double lx = a.x + a.w - 4.0, ly = a.y + 2.0;
     GString *legend = g_string_new (NULL);
     gboolean infeasible = FALSE;
 
     for (guint i = 0; i < curve->n_points; i++)
       infeasible = infeasible || !curve->points[i].feasible;
-    g_string_append (legend, _("\342\227\217 this design's stage count"));
+    g_string_append (legend, _("\342\227\217 this design"));
     if (band != NULL)
-      g_string_append (legend, _("\n\342\226\210 5\342\200\22395 % band (Monte Carlo)"));
+      g_string_append (legend, _("   \342\226\210 5\342\200\22395 % band"));
     if (baseline != NULL)
-      g_string_append (legend, _("\n\342\224\204 baseline"));
+      g_string_append (legend, _("   \342\224\204 baseline"));
     if (infeasible)
-      g_string_append (legend, _("\n\303\227 beyond the delta-v limit"));
+      g_string_append (legend, _("   \303\227 beyond the \316\224v limit"));
     {
-      TextStyle st = { 6.5, FALSE, MUTED, PANGO_ALIGN_RIGHT, 130, FALSE };
-      text_at (cr, legend->str, lx - 130, ly, &st);
+      TextStyle st = style_w (6.5, FALSE, MUTED, PANGO_ALIGN_CENTER, w);
+      text_at (cr, legend->str, x, a.y + a.h + 21.0, &st);
     }
     g_string_free (legend, TRUE);
   }
@@ -721,7 +737,7 @@ void
 sw_sheet_draw_reliability_curve (cairo_t *cr, const SwReliabilityCurve *curve,
                                  guint design_stages, double x, double y, double w, double h)
 {
-  Axes a = { x + 40.0, y + 4.0, w - 46.0, h - 26.0, 0, 1.0, FALSE, curve->n_points };
+  Axes a = { x + 40.0, y + 4.0, w - 46.0, h - 36.0, 0, 1.0, FALSE, curve->n_points };
   double vmin = 1.0;
   TextStyle tick = style_w (6.8, FALSE, MUTED, PANGO_ALIGN_RIGHT, 34);
   double step;
@@ -776,6 +792,11 @@ sw_sheet_draw_reliability_curve (cairo_t *cr, const SwReliabilityCurve *curve,
       text_centered_v (cr, v, px, MAX (py, a.y + 4.0), &st);
     }
   draw_x_axis (cr, &a, design_stages, _("stages"));
+  {
+    TextStyle st = style_w (6.5, FALSE, MUTED, PANGO_ALIGN_CENTER, w);
+    text_at (cr, _("\342\227\217 this design   stage k of N takes design stage min(k, n)"), x,
+             a.y + a.h + 21.0, &st);
+  }
 }
 
 void
@@ -1035,7 +1056,14 @@ draw_totals (const Page *p, const SwBriefing *b, double x, double y, double w, d
     {
       g_autofree char *big = fmt_mass (s->liftoff_mass_kg);
       g_autofree char *kg = fmt_grouped (s->liftoff_mass_kg, 0);
-      g_autofree char *small = g_strdup_printf (_("Liftoff mass %s kg"), kg);
+      g_autofree char *delta = b->has_baseline
+                                 ? delta_text (&b->comparison.totals[SW_TOTAL_LIFTOFF_MASS], 0,
+                                               "", TRUE)
+                                 : NULL;
+      g_autofree char *small = delta != NULL && strcmp (delta, "-") != 0
+                                 ? g_strdup_printf (_("Liftoff mass %s kg  \302\267  %s vs "
+                                                      "baseline"), kg, delta)
+                                 : g_strdup_printf (_("Liftoff mass %s kg"), kg);
       TextStyle bs = style (22.0, TRUE, INK);
       TextStyle ss = style (8.0, FALSE, MUTED);
       double bh = text_at (cr, big, x, yy, &bs);
@@ -1058,9 +1086,6 @@ draw_totals (const Page *p, const SwBriefing *b, double x, double y, double w, d
     double prop = sw_sizing_total (s, SW_TOTAL_PROPELLANT);
     double str = sw_sizing_total (s, SW_TOTAL_STRUCTURE);
 
-    if (c != NULL && s->feasible)
-      ADD_ROW (_("Liftoff mass"), fmt_mass (s->liftoff_mass_kg),
-               delta_text (&c->totals[SW_TOTAL_LIFTOFF_MASS], 0, "", TRUE), INK);
     ADD_ROW (_("Payload fraction"), fmt_percent (s->payload_fraction, 2),
              c ? delta_text (&c->totals[SW_TOTAL_PAYLOAD_FRACTION], 4, "", FALSE) : NULL, INK);
     if (c != NULL && isfinite (c->totals[SW_TOTAL_PAYLOAD_FRACTION].delta))
@@ -1105,7 +1130,10 @@ draw_totals (const Page *p, const SwBriefing *b, double x, double y, double w, d
 #undef ADD_ROW
 
   {
-    double row_h = 11.5, vx = x + w * 0.38, dx = x + w * 0.70;
+    double vx = x + w * 0.38, dx = x + w * 0.70;
+    /* Tighter rows when many figures must share the panel. */
+    double row_h = n > 0 ? CLAMP ((y + h - yy - (b->has_baseline ? 10.0 : 0.0)) / n, 9.6, 11.5)
+                         : 11.5;
     TextStyle val = style_w (7.8, TRUE, INK, PANGO_ALIGN_LEFT, (b->has_baseline ? dx : x + w) - vx - 4);
     TextStyle dst = style_w (7.2, FALSE, MUTED, PANGO_ALIGN_LEFT, x + w - dx);
 
@@ -1128,6 +1156,7 @@ draw_totals (const Page *p, const SwBriefing *b, double x, double y, double w, d
       {
         val.color = rows[i].color;
         text_at (cr, rows[i].label, x, yy, &lab);
+        val.width = (rows[i].delta != NULL ? dx : x + w) - vx - 4;
         text_at (cr, rows[i].value, vx, yy, &val);
         if (rows[i].delta != NULL)
           text_at (cr, rows[i].delta, dx, yy + 0.5, &dst);
@@ -1357,8 +1386,14 @@ sw_sheet_draw_page (cairo_t *cr, const SwBriefing *b, double width, double heigh
   footer_top = draw_footer (&p, height - margin + 12.0);
   table_h = stage_table_height (b);
   avail = footer_top - gap - y - table_h - 3 * gap;
-  top_h = avail * 0.37;
-  chart_h = avail * 0.31;
+  /* The totals panel grows with its figures; the charts share the rest. */
+  {
+    guint rows = 6 + (b->has_reliability ? 1 : 0) + (b->has_montecarlo ? 2 : 0) + b->n_ascent;
+    double needed = 66.0 + (b->has_baseline ? 23.0 : 0.0) + rows * 11.0
+                    + (b->sizing.reason[0] != '\0' ? 20.0 : 0.0);
+    top_h = CLAMP (needed, avail * 0.34, avail * 0.46);
+  }
+  chart_h = (avail - top_h) * 0.49;
   bottom_h = avail - top_h - chart_h;
   col = (p.w - 18.0) / 2.0;
 

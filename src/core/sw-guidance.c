@@ -1,0 +1,682 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* The solvers around the flight simulator: the pitch kick that costs least
+ * delta-v (GSL's Brent minimiser), the two linear-tangent angles that put
+ * the cutoff on the target (GSL's hybrid root finder), and one ascent of a
+ * sized vehicle. */
+#define G_LOG_DOMAIN "sw-ascent"
+
+#include "config.h"
+
+#include "sw-ascent.h"
+
+#include "sw-ascent-private.h"
+#include "sw-budget.h"
+#include "sw-sizing.h"
+
+#include <glib/gi18n-lib.h>
+#include <gsl/gsl_errno.h>
+#include <gsl/gsl_min.h>
+#include <gsl/gsl_multiroots.h>
+#include <math.h>
+#include <string.h>
+
+#define PSI_LIMIT (80.0 * SW_DEG)
+#define JACOBIAN_STEP 2e-4           /* rad */
+
+/* ---- guidance ---------------------------------------------------------- */
+
+typedef struct {
+  SwFlightSim   sim;
+  SwFlightModel model;
+  SwFlightState po_snap;         /* at the pitch-over: every kick starts here */
+  gboolean      have_po;
+  SwFlightState guide_snap;      /* at the start of guidance, for the kick in hand */
+  gboolean      have_guide;
+  double        guide_gamma;     /* flight-path angle relative to the air there */
+  double        kick;
+  double        psi[2];
+  double        psi_gamma;       /* guide_gamma when psi was solved */
+  gboolean      have_psi;
+  double        needed;          /* delta-v needed, the objective of the kick */
+  SwOutcome     last_outcome;
+  double        tol;             /* of the steering residuals (10 km and deg units) */
+  guint         orbits;          /* trial flights that reached the cutoff energy */
+  GCancellable *cancellable;
+  gboolean      cancelled;
+} Solver;
+
+/* Liftoff: on the pad, moving with the site's in-plane speed. */
+static void
+start_on_pad (SwFlightSim *s, SwSteer steer)
+{
+  const SwFlightModel *m = s->m;
+
+  sw_flight_start (s, SW_RE, 0.0, m->v0, m->st[m->first].m_ignition + m->fairing_mass, steer);
+}
+
+static double
+clamp_psi (double psi)
+{
+  return isnan (psi) ? 0.0 : CLAMP (psi, -PSI_LIMIT, PSI_LIMIT);
+}
+
+static SwOutcome
+fly_guided (Solver *sv, const double *psi)
+{
+  SwFlightSim *s = &sv->sim;
+
+  s->f = sv->guide_snap;
+  s->tan_s = tan (clamp_psi (psi[0]));
+  s->tan_e = tan (clamp_psi (psi[1]));
+  s->stop_at_po = s->stop_at_guide = FALSE;
+  sv->last_outcome = sw_flight_run (s);
+  if (sv->last_outcome == SW_OUT_CUTOFF)
+    sv->orbits++;
+  return sv->last_outcome;
+}
+
+static void
+residuals (Solver *sv, SwOutcome o, double *f)
+{
+  const SwFlightState *fl = &sv->sim.f;
+  double gamma = atan2 (fl->y[SW_Y_VR], fl->y[SW_Y_VT]) / SW_DEG;
+
+  f[0] = (fl->y[SW_Y_R] - sv->model.r_cut) / 1.0e4;
+  f[1] = gamma;
+  if (o != SW_OUT_CUTOFF)
+    {
+      /* Not an orbit: push the solver away along the same directions. */
+      f[0] -= 5.0;
+      f[1] -= 5.0;
+    }
+  for (int i = 0; i < 2; i++)
+    if (!isfinite (f[i]))
+      f[i] = -1.0e3;
+}
+
+static int
+guide_f (const gsl_vector *x, void *data, gsl_vector *f)
+{
+  Solver *sv = data;
+  double psi[2] = { gsl_vector_get (x, 0), gsl_vector_get (x, 1) }, r[2];
+
+  if (!isfinite (psi[0]) || !isfinite (psi[1]))
+    return GSL_EDOM;
+  residuals (sv, fly_guided (sv, psi), r);
+  gsl_vector_set (f, 0, r[0]);
+  gsl_vector_set (f, 1, r[1]);
+  return GSL_SUCCESS;
+}
+
+static int
+guide_fdf (const gsl_vector *x, void *data, gsl_vector *f, gsl_matrix *J)
+{
+  Solver *sv = data;
+  double psi[2] = { gsl_vector_get (x, 0), gsl_vector_get (x, 1) }, r0[2], r1[2];
+  gboolean any_orbit;
+
+  if (!isfinite (psi[0]) || !isfinite (psi[1]))
+    return GSL_EDOM;
+  /* Forward differences with a step well above the integrator's noise. */
+  any_orbit = fly_guided (sv, psi) == SW_OUT_CUTOFF;
+  residuals (sv, sv->last_outcome, r0);
+  for (int j = 0; j < 2; j++)
+    {
+      double p[2] = { psi[0], psi[1] };
+      p[j] += JACOBIAN_STEP;
+      any_orbit = (fly_guided (sv, p) == SW_OUT_CUTOFF) || any_orbit;
+      residuals (sv, sv->last_outcome, r1);
+      for (int i = 0; i < 2; i++)
+        gsl_matrix_set (J, i, j, (r1[i] - r0[i]) / JACOBIAN_STEP);
+    }
+  /* Every trial falls short of orbit: no slope to follow from here. */
+  if (!any_orbit)
+    return GSL_EDOM;
+  gsl_vector_set (f, 0, r0[0]);
+  gsl_vector_set (f, 1, r0[1]);
+  return GSL_SUCCESS;
+}
+
+static int
+guide_df (const gsl_vector *x, void *data, gsl_matrix *J)
+{
+  gsl_vector *f = gsl_vector_alloc (2);
+  int status = guide_fdf (x, data, f, J);
+  gsl_vector_free (f);
+  return status;
+}
+
+/* Solves the two linear-tangent angles from @guess; TRUE when the cutoff
+ * meets the orbit's radius within 1e4 tol metres and its flight-path angle
+ * within tol degrees. */
+static gboolean
+solve_steering (Solver *sv, const double *guess, double *psi)
+{
+  gsl_multiroot_function_fdf fdf = { guide_f, guide_df, guide_fdf, 2, sv };
+  gsl_multiroot_fdfsolver *solver;
+  gsl_vector *x = gsl_vector_alloc (2);
+  gboolean ok = FALSE;
+
+  gsl_vector_set (x, 0, guess[0]);
+  gsl_vector_set (x, 1, guess[1]);
+  solver = gsl_multiroot_fdfsolver_alloc (gsl_multiroot_fdfsolver_hybridsj, 2);
+  if (gsl_multiroot_fdfsolver_set (solver, &fdf, x) != GSL_SUCCESS)
+    {
+      gsl_multiroot_fdfsolver_free (solver);
+      gsl_vector_free (x);
+      return FALSE;
+    }
+  for (int iter = 0; iter < 25; iter++)
+    {
+      double f0 = gsl_vector_get (solver->f, 0), f1 = gsl_vector_get (solver->f, 1);
+
+      if (fabs (f0) < sv->tol && fabs (f1) < sv->tol)
+        {
+          ok = TRUE;
+          break;
+        }
+      if (g_cancellable_is_cancelled (sv->cancellable))
+        {
+          sv->cancelled = TRUE;
+          break;
+        }
+      if (gsl_multiroot_fdfsolver_iterate (solver) != GSL_SUCCESS)
+        break;
+    }
+  psi[0] = gsl_vector_get (solver->x, 0);
+  psi[1] = gsl_vector_get (solver->x, 1);
+  if (ok)
+    {
+      /* Leave the simulator at the solution, and make sure it is an orbit. */
+      ok = fly_guided (sv, psi) == SW_OUT_CUTOFF;
+    }
+  gsl_multiroot_fdfsolver_free (solver);
+  gsl_vector_free (x);
+  return ok;
+}
+
+/* Flies the first stage with pitch kick @kick and solves the steering.
+ * Sets sv->needed, sv->psi. */
+static gboolean
+solve_for_kick (Solver *sv, double kick)
+{
+  SwFlightSim *s = &sv->sim;
+  const double guesses[][2] = { { 0.0, 0.0 }, { 30.0, -10.0 }, { 10.0, 10.0 } };
+  double psi[2];
+  SwOutcome o;
+
+  sv->kick = kick;
+  s->kick = kick;
+  if (sv->have_po)
+    s->f = sv->po_snap;
+  else
+    start_on_pad (s, SW_STEER_VERTICAL);
+  s->stop_at_po = FALSE;
+  s->stop_at_guide = TRUE;
+  o = sw_flight_run (s);
+  if (o != SW_OUT_GUIDE)
+    {
+      sv->have_guide = FALSE;
+      return FALSE;
+    }
+  sv->guide_snap = s->f;
+  sv->have_guide = TRUE;
+  sv->orbits = 0;
+  sv->guide_gamma = atan2 (s->f.y[SW_Y_VR], s->f.y[SW_Y_VT] - sv->model.omega_p * s->f.y[SW_Y_R]);
+
+  if (sv->have_psi)
+    {
+      /* The last solution; then the same shifted with the flight-path angle
+       * at staging. */
+      double g[2] = { sv->psi[0] + sv->guide_gamma - sv->psi_gamma, sv->psi[1] };
+      if (solve_steering (sv, sv->psi, psi)
+          || (fabs (g[0] - sv->psi[0]) > 0.5 * SW_DEG && solve_steering (sv, g, psi)))
+        goto solved;
+    }
+  for (guint i = 0; i < G_N_ELEMENTS (guesses) && !sv->cancelled; i++)
+    {
+      double g[2] = { (i == 0 ? sv->guide_gamma / SW_DEG : guesses[i][0]) * SW_DEG,
+                      guesses[i][1] * SW_DEG };
+
+      /* Two starts and not one trial flight reached orbit energy: the upper
+       * stages cannot make it from this staging point. */
+      if (i == 1 && sv->orbits == 0)
+        break;
+      if (solve_steering (sv, g, psi))
+        goto solved;
+    }
+  return FALSE;
+
+solved:
+  {
+    double needed = sw_flight_sized_delta_v (&sv->model, s->f.seg, s->f.y, s->f.fairing_on)
+                    + sv->model.cross_cost;
+
+    /* The two angles can have two roots.  The cheap one lowers the pitch
+     * through the burn (the optimal law's shape); a root whose pitch rises
+     * has dived first.  Then try the other starts and keep the cheaper. */
+    if (psi[1] > psi[0] + 1.0 * SW_DEG)
+      for (guint i = 0; i < G_N_ELEMENTS (guesses) && !sv->cancelled; i++)
+        {
+          double g[2] = { (i == 0 ? sv->guide_gamma / SW_DEG : guesses[i][0]) * SW_DEG,
+                          guesses[i][1] * SW_DEG }, alt[2];
+
+          if (solve_steering (sv, g, alt))
+            {
+              double n2 = sw_flight_sized_delta_v (&sv->model, s->f.seg, s->f.y, s->f.fairing_on)
+                          + sv->model.cross_cost;
+              if (n2 < needed - 1e-3)
+                {
+                  needed = n2;
+                  psi[0] = alt[0];
+                  psi[1] = alt[1];
+                  if (psi[1] <= psi[0] + 1.0 * SW_DEG)
+                    break;
+                }
+            }
+        }
+    /* Leave the simulator on the chosen solution. */
+    if (fly_guided (sv, psi) != SW_OUT_CUTOFF)
+      return FALSE;
+    sv->psi[0] = psi[0];
+    sv->psi[1] = psi[1];
+    sv->psi_gamma = sv->guide_gamma;
+    sv->have_psi = TRUE;
+    sv->needed = needed;
+    return TRUE;
+  }
+}
+
+#define KICK_FAILED 1.0e9
+
+static double
+kick_objective (double kick, void *data)
+{
+  Solver *sv = data;
+
+  if (sv->cancelled || g_cancellable_is_cancelled (sv->cancellable))
+    {
+      sv->cancelled = TRUE;
+      return KICK_FAILED;
+    }
+  return solve_for_kick (sv, kick) ? sv->needed : KICK_FAILED + kick;
+}
+
+/* The pitch kick that needs the least delta-v.  Cold (@grid): a coarse
+ * geometric grid from 0.75 to 24 deg, whose best point and its neighbours
+ * bracket the optimum (the cost can have more than one valley when the
+ * vehicle is very lively).  Warm: from @start, kicks double and halve in
+ * turn until one flies to orbit.  Then a geometric ladder walks downhill
+ * until the best kick is bracketed, and Brent's minimiser ends it. */
+static gboolean
+optimise_kick (Solver *sv, double start, gboolean grid, double *best_kick, gboolean *at_edge)
+{
+  const double lo_limit = 0.05 * SW_DEG, hi_limit = 30.0 * SW_DEG;
+  double ratio = grid ? 2.0 : 1.3;
+  double k[3], f[3], up = start, down = start, mid = start, fmid;
+  gsl_min_fminimizer *min;
+  gsl_function fn = { kick_objective, sv };
+  double x;
+  int status;
+
+  *at_edge = FALSE;
+  if (grid)
+    {
+      double gk[6], gf[6];
+      int best = -1;
+
+      for (int i = 0; i < 6 && !sv->cancelled; i++)
+        {
+          gk[i] = 0.75 * SW_DEG * (1 << i);
+          gf[i] = kick_objective (gk[i], sv);
+          if (gf[i] < KICK_FAILED && (best < 0 || gf[i] < gf[best]))
+            best = i;
+        }
+      if (best < 0 || sv->cancelled)
+        return FALSE;
+      k[0] = best > 0 ? gk[best - 1] : gk[0] / ratio;
+      f[0] = best > 0 ? gf[best - 1] : kick_objective (k[0], sv);
+      k[1] = gk[best];
+      f[1] = gf[best];
+      k[2] = best < 5 ? gk[best + 1] : MIN (gk[5] * 1.25, hi_limit);
+      f[2] = best < 5 ? gf[best + 1] : kick_objective (k[2], sv);
+      ratio = best < 5 ? 2.0 : 1.25;
+    }
+  else
+    {
+      fmid = kick_objective (start, sv);
+      while (fmid >= KICK_FAILED && !sv->cancelled && (up < hi_limit || down > lo_limit))
+        {
+          if (up < hi_limit)
+            {
+              up = MIN (up * 2.0, hi_limit);
+              mid = up;
+              if ((fmid = kick_objective (up, sv)) < KICK_FAILED)
+                break;
+            }
+          if (down > lo_limit)
+            {
+              down = MAX (down / 2.0, lo_limit);
+              mid = down;
+              fmid = kick_objective (down, sv);
+            }
+        }
+      if (fmid >= KICK_FAILED || sv->cancelled)
+        return FALSE;
+      k[0] = MAX (mid / ratio, lo_limit);
+      k[1] = mid;
+      k[2] = MIN (mid * ratio, hi_limit);
+      if (k[0] >= k[1] || k[2] <= k[1])
+        {
+          /* The kick is at a limit of the search. */
+          *at_edge = TRUE;
+          *best_kick = mid;
+          return TRUE;
+        }
+      f[0] = kick_objective (k[0], sv);
+      f[1] = fmid;
+      f[2] = kick_objective (k[2], sv);
+    }
+  for (int guard = 0; guard < 16 && !sv->cancelled; guard++)
+    {
+      if (f[1] < f[0] && f[1] < f[2])
+        break;
+      if (f[0] <= f[2])
+        {
+          if (k[0] / ratio < lo_limit)
+            {
+              *at_edge = TRUE;
+              *best_kick = f[0] <= f[1] ? k[0] : k[1];
+              return TRUE;
+            }
+          k[2] = k[1]; f[2] = f[1];
+          k[1] = k[0]; f[1] = f[0];
+          k[0] = k[1] / ratio;
+          f[0] = kick_objective (k[0], sv);
+        }
+      else
+        {
+          if (k[2] * ratio > hi_limit)
+            {
+              *at_edge = TRUE;
+              *best_kick = f[2] <= f[1] ? k[2] : k[1];
+              return TRUE;
+            }
+          k[0] = k[1]; f[0] = f[1];
+          k[1] = k[2]; f[1] = f[2];
+          k[2] = k[1] * ratio;
+          f[2] = kick_objective (k[2], sv);
+        }
+    }
+  if (sv->cancelled || !(f[1] < f[0] && f[1] < f[2]))
+    return FALSE;
+  /* A bracket end where nothing flies misleads Brent's parabolas: pull it in
+   * until the vehicle flies there. */
+  for (int side = 0; side < 3; side += 2)
+    for (int k2 = 0; k2 < 3 && f[side] >= KICK_FAILED && !sv->cancelled; k2++)
+      {
+        double kk = sqrt (k[side] * k[1]), ff = kick_objective (kk, sv);
+        if (ff < f[1])
+          {
+            /* Better than the middle: it becomes the middle. */
+            k[2 - side] = k[1]; f[2 - side] = f[1];
+            k[1] = kk; f[1] = ff;
+          }
+        else
+          {
+            k[side] = kk;
+            f[side] = ff;
+          }
+      }
+
+  if (sv->cancelled || !(f[1] < f[0] && f[1] < f[2]))
+    {
+      /* Pulling in an end gave a tie: the middle is as good as it gets. */
+      *best_kick = k[1];
+      return !sv->cancelled;
+    }
+  min = gsl_min_fminimizer_alloc (gsl_min_fminimizer_brent);
+  gsl_min_fminimizer_set_with_values (min, &fn, k[1], f[1], k[0], f[0], k[2], f[2]);
+  for (int iter = 0, calm = 0; iter < 20 && !sv->cancelled; iter++)
+    {
+      double before = gsl_min_fminimizer_f_minimum (min);
+
+      status = gsl_min_fminimizer_iterate (min);
+      if (status != GSL_SUCCESS)
+        break;
+      /* The optimum is flat: stop when the kick is pinned to 0.05 deg or
+       * the needed delta-v has stopped improving by 0.05 m/s twice. */
+      calm = before - gsl_min_fminimizer_f_minimum (min) < 0.05 ? calm + 1 : 0;
+      if (calm >= 2
+          || gsl_min_test_interval (gsl_min_fminimizer_x_lower (min),
+                                    gsl_min_fminimizer_x_upper (min), 0.05 * SW_DEG, 0.0)
+             == GSL_SUCCESS)
+        break;
+    }
+  x = gsl_min_fminimizer_x_minimum (min);
+  gsl_min_fminimizer_free (min);
+  *best_kick = x;
+  return TRUE;
+}
+
+static void
+describe_failure (Solver *sv, SwAscentResult *res)
+{
+  const SwFlightModel *m = &sv->model;
+  const SwFlightState *f = &sv->sim.f;
+
+  res->status = SW_ASCENT_NO_SOLUTION;
+  if (!sv->have_po)
+    g_snprintf (res->reason, sizeof res->reason,
+                _("No ascent: the first stage never reaches the pitch-over speed of %.0f m/s "
+                  "(thrust-to-weight %.2f at liftoff)."),
+                m->pitch_over_speed, res->liftoff_thrust_to_weight);
+  else if (!sv->have_guide)
+    g_snprintf (res->reason, sizeof res->reason,
+                _("No ascent: with every pitch-over tried the vehicle falls back before the "
+                  "upper stages take over (T+%.0f s, %.1f km). The first stage lacks thrust "
+                  "or burns too short."),
+                f->t, (f->y[SW_Y_R] - SW_RE) / 1000.0);
+  else
+    g_snprintf (res->reason, sizeof res->reason,
+                _("No ascent: no steering of the upper stages reaches the %.0f km circular "
+                  "orbit, even with extra propellant in the last stage (the attempt ends at "
+                  "T+%.0f s, %.1f km up at %.0f m/s). The upper stages may lack thrust: "
+                  "check their ignition thrust-to-weight."),
+                (m->r_target - SW_RE) / 1000.0, f->t, (f->y[SW_Y_R] - SW_RE) / 1000.0,
+                hypot (f->y[SW_Y_VR], f->y[SW_Y_VT]));
+}
+
+SwAscentResult *
+sw_ascent_solve_sized (const SwDesign *design, const SwSizing *sizing,
+                       const SwAscentOptions *options, SwAscentHints *hints,
+                       GCancellable *cancellable, GError **error)
+{
+  g_autoptr (SwAscentResult) res = sw_ascent_result_new ();
+  SwAscentOptions opt;
+  Solver *sv;
+  SwFlightSim *s;
+  SwBuildStatus bs;
+  SwOutcome o;
+  double kick = 0.0;
+  gboolean ok = FALSE, at_edge = FALSE;
+  guint runs = 0;
+
+  g_return_val_if_fail (design != NULL && sizing != NULL, NULL);
+
+  sw_ascent_gsl_errors_as_status ();
+  if (options != NULL)
+    opt = *options;
+  else
+    sw_ascent_options_init (&opt);
+  if (g_cancellable_set_error_if_cancelled (cancellable, error))
+    return NULL;
+
+  sv = g_new0 (Solver, 1);
+  sv->cancellable = cancellable;
+  sv->tol = 1e-4;
+  bs = sw_flight_model_build (&sv->model, design, sizing, &opt, res, error);
+  if (bs == SW_BUILD_ERROR)
+    {
+      g_free (sv);
+      return NULL;
+    }
+  if (bs == SW_BUILD_INFEASIBLE)
+    {
+      /* No flight; still the stage figures from the sizing. */
+      sw_ascent_stage_figures (design, sizing, res->stages, NULL);
+      g_free (sv);
+      return g_steal_pointer (&res);
+    }
+  s = &sv->sim;
+  sw_flight_init (s, &sv->model);
+
+  if (opt.steering != SW_STEERING_GUIDED)
+    {
+      s->record = opt.record;
+      start_on_pad (s, opt.steering == SW_STEERING_VERTICAL ? SW_STEER_VERTICAL
+                                                            : SW_STEER_PROGRADE);
+      o = sw_flight_run (s);
+      sw_flight_fill_result (s, o, res);
+      if (o == SW_OUT_IMPACT || o == SW_OUT_FAILED)
+        g_strlcpy (res->reason,
+                   o == SW_OUT_IMPACT ? _("The check flight ended on the ground.")
+                                      : _("The integrator failed."),
+                   sizeof res->reason);
+      g_array_append_vals (res->samples, s->samples->data, s->samples->len);
+      res->guidance_iterations = s->n_runs;
+      sw_flight_clear (s);
+      g_free (sv);
+      return g_steal_pointer (&res);
+    }
+
+  /* The vertical rise is the same for every kick: fly it once. */
+  {
+    start_on_pad (s, SW_STEER_VERTICAL);
+    s->stop_at_po = TRUE;
+    s->stop_at_guide = TRUE;
+    o = sw_flight_run (s);
+    if (o == SW_OUT_PITCH_OVER)
+      {
+        sv->po_snap = s->f;
+        sv->have_po = TRUE;
+      }
+  }
+
+  if (hints != NULL && hints->have_psi)
+    {
+      sv->psi[0] = hints->psi[0];
+      sv->psi[1] = hints->psi[1];
+      sv->have_psi = TRUE;
+    }
+
+  if (!sv->have_po)
+    ok = FALSE;
+  else if (design->ascent.has_pitch_kick)
+    {
+      kick = design->ascent.pitch_kick_deg * SW_DEG;
+      ok = solve_for_kick (sv, kick);
+    }
+  else if (!sv->cancelled)
+    {
+      gboolean warm = hints != NULL && hints->have_kick;
+      double start = warm ? hints->kick_rad : 3.0 * SW_DEG;
+      /* Search with a 10 m / 0.001 deg cutoff, then solve the best kick to
+       * 1 m / 1e-4 deg. */
+      sv->tol = 1e-3;
+      ok = optimise_kick (sv, start, !warm, &kick, &at_edge) && !sv->cancelled;
+      sv->tol = 1e-4;
+      if (ok)
+        ok = solve_for_kick (sv, kick);
+      res->pitch_kick_solved = TRUE;
+    }
+
+  if (sv->cancelled || g_cancellable_is_cancelled (cancellable))
+    {
+      sw_flight_clear (s);
+      g_free (sv);
+      g_cancellable_set_error_if_cancelled (cancellable, error);
+      return NULL;
+    }
+
+  runs = s->n_runs;
+  if (!ok)
+    {
+      /* No flight to report: the reason, and the stage figures from the sizing. */
+      describe_failure (sv, res);
+      sw_ascent_stage_figures (design, sizing, res->stages, NULL);
+      res->guidance_iterations = runs;
+      sw_flight_clear (s);
+      g_free (sv);
+      return g_steal_pointer (&res);
+    }
+
+  if (hints != NULL)
+    {
+      hints->have_kick = TRUE;
+      hints->kick_rad = kick;
+      hints->have_psi = TRUE;
+      hints->psi[0] = sv->psi[0];
+      hints->psi[1] = sv->psi[1];
+    }
+
+  /* The flight to report, from liftoff, recorded. */
+  {
+    s->record = opt.record;
+    s->kick = kick;
+    s->tan_s = tan (clamp_psi (sv->psi[0]));
+    s->tan_e = tan (clamp_psi (sv->psi[1]));
+    s->stop_at_po = s->stop_at_guide = FALSE;
+    g_array_set_size (s->samples, 0);
+    start_on_pad (s, SW_STEER_VERTICAL);
+    o = sw_flight_run (s);
+  }
+  sw_flight_fill_result (s, o, res);
+  if (o != SW_OUT_CUTOFF)
+    describe_failure (sv, res);
+  res->pitch_kick_deg = kick / SW_DEG;
+  res->guidance_start_s = s->f.t_guide;
+  res->steering_start_deg = clamp_psi (sv->psi[0]) / SW_DEG;
+  res->steering_end_deg = clamp_psi (sv->psi[1]) / SW_DEG;
+  res->guidance_iterations = runs;
+  g_array_append_vals (res->samples, s->samples->data, s->samples->len);
+
+  if (at_edge)
+    sw_ascent_result_add_note (res,
+                               _("The least-cost pitch kick lies at the edge of the range "
+                                 "searched (%.2f deg); the trajectory may be far from the best."),
+                               kick / SW_DEG);
+  if (sv->model.fairing_mass > 0.0 && !res->fairing_dropped && o == SW_OUT_CUTOFF)
+    sw_ascent_result_add_note (res,
+                               _("The fairing (%.0f kg) is never dropped: its jettison "
+                                 "condition is not met before cutoff, so it rides to orbit."),
+                               sv->model.fairing_mass);
+  for (guint i = 0; i < sv->model.n; i++)
+    if (i != sv->model.first && res->stages[i].flown
+        && res->stages[i].ignition_thrust_to_weight < 0.5)
+      sw_ascent_result_add_note (res,
+                                 _("Stage %u ignites with a thrust-to-weight of only %.2f "
+                                   "(common practice for upper stages: 0.6 to 1.2); its "
+                                   "gravity losses are high."),
+                                 i + 1, res->stages[i].ignition_thrust_to_weight);
+
+  sw_flight_clear (s);
+  g_free (sv);
+  return g_steal_pointer (&res);
+}
+
+SwAscentResult *
+sw_ascent_solve (const SwDesign *design, const SwAscentOptions *options,
+                 GCancellable *cancellable, GError **error)
+{
+  SwSizing sizing;
+
+  g_return_val_if_fail (design != NULL, NULL);
+
+  if (!sw_flight_check_inputs (design,
+                               options == NULL || options->steering == SW_STEERING_GUIDED, error))
+    return NULL;
+  if (!sw_design_size (design, &sizing, error))
+    return NULL;
+  return sw_ascent_solve_sized (design, &sizing, options, NULL, cancellable, error);
+}

@@ -1,0 +1,205 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* bench-gui: the latency from a changed field to the frame that shows the
+ * new sizing, over 200 scripted edits of the main window, and the resident
+ * memory of the running application.  A benchmark, not a test:
+ *     ninja -C BUILD bench-gui
+ * (runs it under xvfb-run with the cairo renderer). */
+#include "config.h"
+
+#include "sw-application.h"
+#include "sw-window-private.h"
+
+#include <glib/gstdio.h>
+#include <gsl/gsl_sort.h>
+#include <gsl/gsl_statistics_double.h>
+#include <stdio.h>
+#include <string.h>
+
+#define N_EDITS 200
+
+static gboolean
+flag_cb (gpointer data)
+{
+  *(gboolean *) data = TRUE;
+  return G_SOURCE_REMOVE;
+}
+
+static void
+spin_for (guint ms)
+{
+  gboolean done = FALSE;
+
+  g_timeout_add (ms, flag_cb, &done);
+  while (!done)
+    g_main_context_iteration (NULL, TRUE);
+}
+
+/* Runs the main loop until the newest edit has been painted; FALSE after 5 s. */
+static gboolean
+wait_drawn (SwWindow *w)
+{
+  gboolean timed_out = FALSE;
+  guint id = g_timeout_add (5000, flag_cb, &timed_out);
+  guint64 posted = sw_solver_get_posted_serial (sw_window_get_solver (w));
+
+  while (sw_window_get_drawn_serial (w) < posted && !timed_out)
+    g_main_context_iteration (NULL, TRUE);
+  if (!timed_out)
+    g_source_remove (id);
+  return !timed_out;
+}
+
+typedef struct {
+  guint64 serial;
+  gint64  drawn_us;
+  gint64  solved_us;     /* after the window's views took the result */
+  gint64  frame_us;      /* the start of the first frame after that */
+} Drawn;
+
+static void
+before_paint_cb (GdkFrameClock *clock, Drawn *drawn)
+{
+  if (drawn->frame_us < drawn->solved_us)
+    drawn->frame_us = g_get_monotonic_time ();
+}
+
+static void
+solved_cb (SwSolver *solver, SwResult *result, Drawn *drawn)
+{
+  drawn->solved_us = g_get_monotonic_time ();
+}
+
+static void
+result_drawn_cb (SwWindow *w, guint64 serial, Drawn *drawn)
+{
+  drawn->serial = serial;
+  drawn->drawn_us = g_get_monotonic_time ();
+}
+
+static double
+resident_mb (void)
+{
+  g_autofree char *status = NULL;
+  const char *line;
+
+  if (!g_file_get_contents ("/proc/self/status", &status, NULL, NULL))
+    return -1.0;
+  line = strstr (status, "VmRSS:");
+  return line != NULL ? g_ascii_strtod (line + 6, NULL) / 1024.0 : -1.0;
+}
+
+int
+main (int argc, char **argv)
+{
+  g_autofree char *tmp = g_dir_make_tmp ("stagewright-bench-XXXXXX", NULL);
+  g_autofree char *demo = NULL;
+  g_autoptr (GFile) file = NULL;
+  g_autoptr (GtkCssProvider) css = NULL;
+  SwWindow *w;
+  SwInspector *insp;
+  Drawn drawn = { 0 };
+  double latency[N_EDITS], to_views[N_EDITS], to_frame[N_EDITS], in_frame[N_EDITS];
+  double median, p99, rss;
+
+  g_setenv ("XDG_STATE_HOME", tmp, TRUE);
+  g_setenv ("XDG_DATA_HOME", tmp, TRUE);
+  g_setenv ("GSETTINGS_BACKEND", "memory", TRUE);
+  gtk_init ();
+  css = gtk_css_provider_new ();
+  gtk_css_provider_load_from_resource (css, "/org/stagewright/Stagewright/style.css");
+  gtk_style_context_add_provider_for_display (gdk_display_get_default (),
+                                              GTK_STYLE_PROVIDER (css),
+                                              GTK_STYLE_PROVIDER_PRIORITY_APPLICATION);
+
+  w = sw_window_new (NULL);
+  sw_window_set_ephemeral (w);
+  gtk_window_set_default_size (GTK_WINDOW (w), 1280, 800);
+  demo = sw_application_find_design ("medium-cargo.stagewright");
+  file = g_file_new_for_path (demo);
+  if (!sw_window_load_template (w, file))
+    {
+      g_printerr ("bench-gui: cannot open %s\n", demo);
+      return 1;
+    }
+  g_signal_connect (w, "result-drawn", G_CALLBACK (result_drawn_cb), &drawn);
+  /* Connected after the window's own handler, so it runs once the views
+   * have the result. */
+  g_signal_connect (sw_window_get_solver (w), "solved", G_CALLBACK (solved_cb), &drawn);
+  gtk_window_present (GTK_WINDOW (w));
+  if (!wait_drawn (w))
+    {
+      g_printerr ("bench-gui: the first sizing was never drawn\n");
+      return 1;
+    }
+  spin_for (200);
+  g_signal_connect (gtk_widget_get_frame_clock (GTK_WIDGET (w)), "before-paint",
+                    G_CALLBACK (before_paint_cb), &drawn);
+  insp = sw_window_get_inspector (w);
+
+  for (guint i = 0; i < N_EDITS; i++)
+    {
+      GtkSpinButton *spin;
+      double value;
+      gint64 t0;
+      guint64 serial;
+
+      /* Edits arrive at every phase of the frame cycle, as a user's would:
+       * a deterministic sweep of 0..32 ms between the last frame and the edit. */
+      spin_for ((i * 7) % 33);
+      switch (i % 4)
+        {
+        case 0:
+          sw_inspector_set_selected (insp, 0);
+          spin = GTK_SPIN_BUTTON (sw_inspector_get_field (insp, SW_INSPECTOR_ISP_VAC));
+          value = 320.0 + (i % 40);
+          break;
+        case 1:
+          sw_inspector_set_selected (insp, 1);
+          spin = GTK_SPIN_BUTTON (sw_inspector_get_field (insp, SW_INSPECTOR_EPS));
+          value = 0.08 + 0.001 * (i % 40);
+          break;
+        case 2:
+          spin = GTK_SPIN_BUTTON (sw_inspector_get_field (insp, SW_INSPECTOR_PAYLOAD));
+          value = 6000.0 + 50.0 * (i % 40);
+          break;
+        default:
+          sw_inspector_set_selected (insp, 0);
+          spin = GTK_SPIN_BUTTON (sw_inspector_get_field (insp, SW_INSPECTOR_SHARE));
+          value = 35.0 + (i % 20);
+          break;
+        }
+      t0 = g_get_monotonic_time ();
+      gtk_spin_button_set_value (spin, value);
+      serial = sw_solver_get_posted_serial (sw_window_get_solver (w));
+      if (!wait_drawn (w) || drawn.serial < serial)
+        {
+          g_printerr ("bench-gui: edit %u was never drawn\n", i);
+          return 1;
+        }
+      latency[i] = (drawn.drawn_us - t0) / 1000.0;
+      to_views[i] = (drawn.solved_us - t0) / 1000.0;
+      to_frame[i] = (drawn.frame_us - drawn.solved_us) / 1000.0;
+      in_frame[i] = (drawn.drawn_us - drawn.frame_us) / 1000.0;
+    }
+  rss = resident_mb ();
+
+  gsl_sort (latency, 1, N_EDITS);
+  median = gsl_stats_median_from_sorted_data (latency, 1, N_EDITS);
+  p99 = gsl_stats_quantile_from_sorted_data (latency, 1, N_EDITS, 0.99);
+  printf ("GUI latency, changed field to drawn frame, %d edits: median %.1f ms, "
+          "99th percentile %.1f ms, max %.1f ms (target: median <= 16 ms)\n",
+          N_EDITS, median, p99, latency[N_EDITS - 1]);
+  gsl_sort (to_views, 1, N_EDITS);
+  gsl_sort (to_frame, 1, N_EDITS);
+  gsl_sort (in_frame, 1, N_EDITS);
+  printf ("  medians of the parts: edit, solve on the worker and views updated %.1f ms; "
+          "waiting for the frame clock %.1f ms; layout and paint %.1f ms\n",
+          gsl_stats_median_from_sorted_data (to_views, 1, N_EDITS),
+          gsl_stats_median_from_sorted_data (to_frame, 1, N_EDITS),
+          gsl_stats_median_from_sorted_data (in_frame, 1, N_EDITS));
+  printf ("Resident memory of the running application: %.1f MB (target <= 120 MB)\n", rss);
+
+  gtk_window_destroy (GTK_WINDOW (w));
+  g_remove (tmp);
+  return 0;
+}

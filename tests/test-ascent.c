@@ -1,0 +1,644 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* The ascent simulation against closed-form mechanics, the budget, and the
+ * trade's rules of thumb; the closed sizing-and-losses loop; bad input. */
+#include "config.h"
+
+#include "sw-ascent.h"
+#include "sw-atmosphere.h"
+#include "sw-budget.h"
+#include "sw-design.h"
+#include "sw-sizing.h"
+
+#include <gio/gio.h>
+#include <glib/gstdio.h>
+#include <json-glib/json-glib.h>
+#include <math.h>
+#include <string.h>
+#include <sys/wait.h>
+
+#define G0 9.80665               /* 3rd CGPM (1901) */
+#define MU 3.986004418e14        /* WGS 84 */
+#define RE 6378137.0             /* WGS 84 equatorial radius */
+
+static SwDesign *
+load (const char *text)
+{
+  g_autoptr (GError) error = NULL;
+  SwDesign *d = sw_design_load_data (text, -1, "test.stagewright", NULL, &error);
+
+  g_assert_no_error (error);
+  return d;
+}
+
+static void
+options (SwAscentOptions *o, SwGravityModel g, gboolean atmosphere, gboolean rotation,
+         SwSteeringMode steering)
+{
+  sw_ascent_options_init (o);
+  o->gravity = g;
+  o->atmosphere = atmosphere;
+  o->rotation = rotation;
+  o->steering = steering;
+  o->rtol = 1e-11;
+}
+
+/* ---- closed-form checks ------------------------------------------------ */
+
+static const char *three_stage_dv =
+  "{ \"format\": \"stagewright-design\", \"version\": 1, \"name\": \"dv\", \"payload_kg\": 800,"
+  "  \"mission\": { \"delta_v_m_s\": 8500 }, \"split\": \"optimal\", \"stages\": ["
+  "  { \"isp_vac_s\": 300, \"isp_sl_s\": 270, \"structural_coefficient\": 0.08,"
+  "    \"thrust_vac_kn\": 500, \"diameter_m\": 2 },"
+  "  { \"isp_vac_s\": 330, \"structural_coefficient\": 0.10, \"thrust_vac_kn\": 90,"
+  "    \"coast_before_ignition_s\": 5 },"
+  "  { \"isp_vac_s\": 310, \"structural_coefficient\": 0.12, \"thrust_vac_kn\": 15,"
+  "    \"coast_before_ignition_s\": 20 } ] }";
+
+static void
+test_tsiolkovsky (void)
+{
+  /* Without gravity and atmosphere, thrust along the velocity: the speed
+   * gained is the rocket equation's sum of c ln(m0/mf) (Tsiolkovsky), which
+   * the sizing delivers stage by stage. */
+  g_autoptr (SwDesign) d = load (three_stage_dv);
+  g_autoptr (SwAscentResult) r = NULL;
+  g_autoptr (GError) error = NULL;
+  SwAscentOptions o;
+  SwSizing s;
+  double rocket = 0.0, v;
+
+  options (&o, SW_GRAVITY_NONE, FALSE, FALSE, SW_STEERING_PROGRADE);
+  g_assert_true (sw_design_size (d, &s, &error));
+  for (guint i = 0; i < s.n_stages; i++)
+    rocket += d->stages[i].isp_vac_s * G0
+              * log (s.stages[i].initial_mass_kg / s.stages[i].burnout_mass_kg);
+  g_assert_cmpfloat_with_epsilon (rocket, 8500.0, 1e-6);
+
+  r = sw_ascent_solve (d, &o, NULL, &error);
+  g_assert_no_error (error);
+  g_assert_cmpint (r->status, ==, SW_ASCENT_UNGUIDED);
+  v = hypot (r->final_radial_velocity_m_s, r->final_horizontal_velocity_m_s);
+  g_assert_cmpfloat (fabs (v - rocket) / rocket, <, 1e-6);
+  g_assert_cmpfloat (fabs (r->engines_delta_v_m_s - rocket) / rocket, <, 1e-6);
+  /* Every stage burnt out, the last one's burnout mass is what is left. */
+  g_assert_cmpfloat (fabs (r->final_mass_kg - s.stages[2].burnout_mass_kg), <, 1e-6);
+  for (guint i = 0; i < 3; i++)
+    g_assert_cmpfloat_with_epsilon (r->stages[i].burn_time_flown_s, r->stages[i].burn_time_s,
+                                    1e-6);
+  /* The coasts are flown: stage 3 ignites 5 + 20 s after the burns above. */
+  g_assert_cmpfloat_with_epsilon (r->stages[2].ignition.time_s,
+                                  r->stages[0].burn_time_s + 5.0 + r->stages[1].burn_time_s
+                                  + 20.0, 1e-6);
+}
+
+static void
+test_vertical_constant_gravity (void)
+{
+  /* Vertical burn in vacuum under constant gravity: v(t) = c ln(m0/m(t)) - g t
+   * (the rocket equation with a gravity term; any rocket propulsion text,
+   * e.g. Sutton, Rocket Propulsion Elements, ch. 4; from memory). */
+  static const char *one =
+    "{ \"format\": \"stagewright-design\", \"version\": 1, \"name\": \"v\", \"payload_kg\": 1000,"
+    "  \"mission\": { \"delta_v_m_s\": 3000 }, \"split\": \"optimal\", \"stages\": ["
+    "  { \"isp_vac_s\": 300, \"isp_sl_s\": 280, \"structural_coefficient\": 0.1,"
+    "    \"thrust_vac_kn\": 100, \"diameter_m\": 1 } ] }";
+  g_autoptr (SwDesign) d = load (one);
+  g_autoptr (SwAscentResult) r = NULL;
+  g_autoptr (GError) error = NULL;
+  SwAscentOptions o;
+  double c = 300.0 * G0, m0;
+  guint checked = 0;
+
+  options (&o, SW_GRAVITY_CONSTANT, FALSE, FALSE, SW_STEERING_VERTICAL);
+  o.sample_interval_s = 2.0;
+  r = sw_ascent_solve (d, &o, NULL, &error);
+  g_assert_no_error (error);
+  g_assert_cmpuint (r->samples->len, >, 20);
+  m0 = g_array_index (r->samples, SwAscentSample, 0).mass_kg;
+  for (guint i = 1; i < r->samples->len; i++)
+    {
+      const SwAscentSample *p = &g_array_index (r->samples, SwAscentSample, i);
+      double exact = c * log (m0 / p->mass_kg) - G0 * p->time_s;
+
+      g_assert_cmpfloat (fabs (p->speed_m_s - exact), <, 1e-6 * (c * log (m0 / p->mass_kg)));
+      g_assert_cmpfloat (fabs (p->flight_path_deg - 90.0), <, 1e-9);
+      checked++;
+    }
+  g_assert_cmpuint (checked, >, 20);
+}
+
+static void
+test_circular_orbit (void)
+{
+  /* An unpowered circular orbit keeps its radius and energy over one
+   * revolution; it takes 2 pi r / v and covers 2 pi of arc (Kepler). */
+  double r0 = RE + 400.0e3, v0 = sqrt (MU / r0), period = 2.0 * G_PI * r0 / v0;
+  double e0 = 0.5 * v0 * v0 - MU / r0, e1, v1;
+  g_autoptr (SwAscentResult) r = NULL;
+  g_autoptr (GError) error = NULL;
+  SwAscentOptions o;
+
+  options (&o, SW_GRAVITY_INVERSE_SQUARE, FALSE, FALSE, SW_STEERING_PROGRADE);
+  o.record = FALSE;
+  r = sw_ascent_coast (1000.0, 0.0, NULL, 400.0e3, 0.0, v0, period, &o, &error);
+  g_assert_no_error (error);
+  v1 = hypot (r->final_radial_velocity_m_s, r->final_horizontal_velocity_m_s);
+  e1 = 0.5 * v1 * v1 - MU / r->final_radius_m;
+  g_assert_cmpfloat_with_epsilon (r->final_time_s, period, 1e-9);
+  g_assert_cmpfloat (fabs (r->final_radius_m - r0) / r0, <, 1e-6);
+  g_assert_cmpfloat (fabs ((e1 - e0) / e0), <, 1e-6);
+  /* Downrange is measured on the surface: one revolution is 2 pi R. */
+  g_assert_cmpfloat (fabs (r->final_downrange_m - 2.0 * G_PI * RE) / (2.0 * G_PI * RE), <, 1e-6);
+}
+
+static void
+test_terminal_speed (void)
+{
+  /* A dropped body settles at the terminal speed where drag balances weight,
+   * v = sqrt(2 m g / (rho Cd A)) (any mechanics text), with rho from the
+   * standard atmosphere at its altitude.  Here v is about 4.5 m/s, so the
+   * lag behind the slowly falling terminal speed, v^2 / (4 g H) with a scale
+   * height H near 8.5 km, stays below 1e-4. */
+  SwStagePropulsion aero = { 0 };
+  g_autoptr (SwAscentResult) r = NULL;
+  g_autoptr (GError) error = NULL;
+  SwAscentOptions o;
+  guint checked = 0;
+
+  aero.n_drag = 1;
+  aero.drag_cd[0] = 1.0;
+  options (&o, SW_GRAVITY_CONSTANT, TRUE, FALSE, SW_STEERING_PROGRADE);
+  o.sample_interval_s = 5.0;
+  r = sw_ascent_coast (1.0, 1.0, &aero, 3000.0, 0.0, 0.0, 2000.0, &o, &error);
+  g_assert_no_error (error);
+  for (guint i = 0; i < r->samples->len; i++)
+    {
+      const SwAscentSample *p = &g_array_index (r->samples, SwAscentSample, i);
+      SwAtmosphere a;
+      double vt;
+
+      if (p->time_s < 20.0 || p->altitude_m < 100.0)
+        continue;
+      sw_atmosphere_at (p->altitude_m, &a);
+      vt = sqrt (2.0 * 1.0 * G0 / (a.density_kg_m3 * 1.0 * 1.0));
+      g_assert_cmpfloat (fabs (p->air_speed_m_s - vt) / vt, <, 2e-4);
+      g_assert_cmpfloat (p->flight_path_deg, <, -89.999);
+      checked++;
+    }
+  g_assert_cmpuint (checked, >, 50);
+  /* It reaches the ground: the coast ends there. */
+  g_assert_cmpfloat (r->final_radius_m - RE, <, 0.0);
+}
+
+/* ---- the Earth's rotation ---------------------------------------------- */
+
+static const char *orbit_one_stage =
+  "{ \"format\": \"stagewright-design\", \"version\": 1, \"name\": \"rot\", \"payload_kg\": 1000,"
+  "  \"mission\": { \"orbit\": { \"altitude_km\": 400, \"inclination_deg\": 51.6,"
+  "    \"site_latitude_deg\": 28.5 }, \"losses_m_s\": 0 }, \"split\": \"optimal\", \"stages\": ["
+  "  { \"isp_vac_s\": 450, \"isp_sl_s\": 380, \"structural_coefficient\": 0.08,"
+  "    \"thrust_vac_kn\": 2000, \"diameter_m\": 4 },"
+  "  { \"isp_vac_s\": 450, \"structural_coefficient\": 0.08, \"thrust_vac_kn\": 200 } ] }";
+
+static void
+test_rotation_gain (void)
+{
+  g_autoptr (SwDesign) d = load (orbit_one_stage);
+  g_autoptr (SwAscentResult) r = NULL;
+  g_autoptr (SwAscentResult) still = NULL;
+  g_autoptr (GError) error = NULL;
+  SwAscentOptions o;
+  SwBudget b;
+  double v_final, v0, az;
+
+  /* In vacuum without gravity, thrust along the velocity: the vehicle keeps
+   * the in-plane speed the turning Earth gave it at the site,
+   * 408.7 m/s x sin(azimuth) at 28.5 deg (WGS 84, computed), with
+   * cos i = cos(latitude) sin(azimuth) (spherical trigonometry). */
+  options (&o, SW_GRAVITY_NONE, FALSE, TRUE, SW_STEERING_PROGRADE);
+  o.record = FALSE;
+  r = sw_ascent_solve (d, &o, NULL, &error);
+  g_assert_no_error (error);
+  v_final = hypot (r->final_radial_velocity_m_s, r->final_horizontal_velocity_m_s);
+  v0 = v_final - r->engines_delta_v_m_s;
+  az = asin (cos (51.6 * G_PI / 180.0) / cos (28.5 * G_PI / 180.0));
+  g_assert_cmpfloat_with_epsilon (v0, 408.7 * sin (az), 0.1);
+
+  /* The gain the ascent reports is the budget's: v_circular - |v_orbit - v_site|. */
+  g_assert_true (sw_design_budget (d, &b, &error));
+  g_assert_cmpfloat (fabs (r->rotation_gain_m_s - b.rotation_gain_m_s), <,
+                     1e-9 * b.rotation_gain_m_s);
+  g_assert_cmpfloat (fabs (r->ideal_delta_v_m_s - b.ideal_delta_v_m_s), <, 1e-9 * 7000.0);
+  /* The part across the orbit plane costs a little: gain below the in-plane speed. */
+  g_assert_cmpfloat (r->rotation_gain_m_s, <, v0);
+  g_assert_cmpfloat (r->rotation_gain_m_s, >, v0 - 10.0);
+
+  /* A still Earth gives nothing. */
+  o.rotation = FALSE;
+  still = sw_ascent_solve (d, &o, NULL, &error);
+  g_assert_no_error (error);
+  g_assert_cmpfloat (fabs (hypot (still->final_radial_velocity_m_s,
+                                  still->final_horizontal_velocity_m_s)
+                           - still->engines_delta_v_m_s), <, 1e-6);
+  g_assert_cmpfloat (fabs (still->rotation_gain_m_s), <, 1e-9);
+}
+
+/* ---- guided ascents ---------------------------------------------------- */
+
+/* A conventional two-stage kerosene vehicle to a 200 km orbit, launched due
+ * east: liftoff thrust-to-weight near 1.4, upper stage near 0.9 (common
+ * practice). */
+#define TWO_STAGE(LOSSES, MODEL, T1, T2, EXTRA) \
+  "{ \"format\": \"stagewright-design\", \"version\": 1, \"name\": \"two\", \"payload_kg\": 5000," \
+  "  \"mission\": { \"orbit\": { \"altitude_km\": 200, \"inclination_deg\": 28.5," \
+  "    \"site_latitude_deg\": 28.5 }, \"losses_m_s\": " LOSSES "," \
+  "    \"loss_model\": \"" MODEL "\" }," \
+  "  \"split\": \"optimal\", \"stages\": [" \
+  "  { \"isp_vac_s\": 320, \"isp_sl_s\": 285, \"structural_coefficient\": 0.06," \
+  "    \"thrust_vac_kn\": " T1 ", \"diameter_m\": 3.7 }," \
+  "  { \"isp_vac_s\": 345, \"structural_coefficient\": 0.09, \"thrust_vac_kn\": " T2 "," \
+  "    \"coast_before_ignition_s\": 3 } ]," \
+  "  \"ascent\": { \"fairing_mass_kg\": 1000, \"fairing_jettison_altitude_km\": 110" EXTRA " } }"
+
+static void
+check_samples (const SwAscentResult *r)
+{
+  double t = -1.0;
+
+  g_assert_cmpuint (r->samples->len, >, 100);
+  for (guint i = 0; i < r->samples->len; i++)
+    {
+      const SwAscentSample *p = &g_array_index (r->samples, SwAscentSample, i);
+      g_assert_cmpfloat (p->time_s, >=, t);
+      t = p->time_s;
+      g_assert_true (isfinite (p->altitude_m) && isfinite (p->downrange_m)
+                     && isfinite (p->speed_m_s) && isfinite (p->flight_path_deg)
+                     && isfinite (p->dynamic_pressure_pa) && isfinite (p->axial_accel_g)
+                     && isfinite (p->mass_kg) && isfinite (p->mach));
+      g_assert_cmpfloat (p->altitude_m, >, -1.0);
+    }
+}
+
+static void
+test_two_stage_losses (void)
+{
+  g_autoptr (SwDesign) d = load (TWO_STAGE ("1600", "simulate", "2100", "220", ""));
+  g_autoptr (SwAscentResult) r = NULL;
+  g_autoptr (GError) error = NULL;
+  SwBudget b;
+  double sum;
+
+  r = sw_design_ascent (d, NULL, &error);
+  g_assert_no_error (error);
+  if (r->status != SW_ASCENT_REACHED)
+    g_error ("not reached: %s", r->reason);
+  g_assert_true (r->reached_orbit && r->closed_loop && r->loop_converged);
+
+  /* Losses to low orbit (common practice, reference-values.md): gravity
+   * 0.8 to 1.8 km/s, drag below 0.3 km/s, steering 0.02 to 0.2 km/s. */
+  g_assert_cmpfloat (r->gravity_loss_m_s, >, 800.0);
+  g_assert_cmpfloat (r->gravity_loss_m_s, <, 1800.0);
+  g_assert_cmpfloat (r->drag_loss_m_s, >, 0.0);
+  g_assert_cmpfloat (r->drag_loss_m_s, <, 300.0);
+  g_assert_cmpfloat (r->steering_loss_m_s, <, 200.0);
+  /* Ground to low orbit: 9.3 to 10 km/s with the losses (common practice). */
+  g_assert_cmpfloat (r->delta_v_needed_m_s, >, 9000.0);
+  g_assert_cmpfloat (r->delta_v_needed_m_s, <, 10000.0);
+
+  /* The breakdown adds up, and the loop has closed: the vehicle was sized
+   * with what it needs, within 1 m/s. */
+  sum = r->gravity_loss_m_s + r->drag_loss_m_s + r->steering_loss_m_s + r->pressure_loss_m_s
+        + r->fairing_loss_m_s + r->raising_loss_m_s + r->other_loss_m_s;
+  g_assert_cmpfloat_with_epsilon (sum, r->losses_m_s, 1e-6);
+  g_assert_cmpfloat_with_epsilon (r->delta_v_needed_m_s - r->ideal_delta_v_m_s, r->losses_m_s,
+                                  1e-6);
+  g_assert_cmpfloat (fabs (r->losses_m_s - r->loop_sized_losses_m_s), <, 1.0);
+  g_assert_cmpfloat (fabs (r->other_loss_m_s), <, 50.0);
+  /* Direct insertion: cut off at the circular speed, nothing to raise. */
+  g_assert_cmpfloat (fabs (r->raising_loss_m_s), <, 0.1);
+  g_assert_true (isnan (r->circularization_m_s));
+  g_assert_cmpfloat (r->fairing_loss_m_s, >, 0.0);
+  g_assert_true (sw_design_budget (d, &b, &error));
+  g_assert_cmpfloat_with_epsilon (r->rotation_gain_m_s, b.rotation_gain_m_s, 1e-9);
+
+  /* The orbit: 200 km circular, cut off level. */
+  g_assert_cmpfloat_with_epsilon (r->perigee_km, 200.0, 1.0);
+  g_assert_cmpfloat_with_epsilon (r->apogee_km, 200.0, 1.0);
+  g_assert_cmpfloat_with_epsilon (r->cutoff.flight_path_deg, 0.0, 1e-3);
+
+  /* Events: the fairing goes at 110 km; max-Q in the lower atmosphere; the
+   * first stage burns its full load; staging states recorded. */
+  g_assert_true (r->fairing_dropped);
+  g_assert_cmpfloat_with_epsilon (r->fairing.altitude_m, 110000.0, 1.0);
+  g_assert_cmpfloat (r->max_q_pa, >, 5000.0);
+  g_assert_cmpfloat (r->max_q_altitude_m, >, 3000.0);
+  g_assert_cmpfloat (r->max_q_altitude_m, <, 25000.0);
+  g_assert_cmpfloat (r->max_axial_g, >, 1.0);
+  g_assert_cmpfloat (r->max_axial_g, <, 15.0);
+  g_assert_cmpfloat_with_epsilon (r->stages[0].burn_time_flown_s, r->stages[0].burn_time_s,
+                                  1e-6);
+  g_assert_cmpfloat_with_epsilon (r->stages[1].ignition.time_s,
+                                  r->stages[0].burnout.time_s + 3.0, 1e-6);
+  g_assert_cmpfloat (r->stages[0].ignition_thrust_to_weight, >, 1.2);
+  g_assert_cmpfloat (r->stages[0].ignition_thrust_to_weight, <, 1.5);
+  g_assert_cmpfloat (r->stages[1].propellant_left_kg, >=, -1.0);
+  g_assert_true (r->pitch_kick_solved);
+  check_samples (r);
+}
+
+static void
+test_allowance_shortfall (void)
+{
+  /* Sized with a 1000 m/s allowance the vehicle cannot make it; the answer
+   * says by how much, consistently with the losses. */
+  g_autoptr (SwDesign) d = load (TWO_STAGE ("1000", "allowance", "2100", "220", ""));
+  g_autoptr (SwAscentResult) r = NULL;
+  g_autoptr (GError) error = NULL;
+
+  r = sw_design_ascent (d, NULL, &error);
+  g_assert_no_error (error);
+  g_assert_cmpint (r->status, ==, SW_ASCENT_SHORT);
+  g_assert_false (r->reached_orbit);
+  g_assert_false (r->closed_loop);
+  g_assert_cmpfloat (r->delta_v_missing_m_s, >, 300.0);
+  g_assert_cmpfloat_with_epsilon (r->delta_v_missing_m_s, r->losses_m_s - 1000.0, 1e-6);
+  g_assert_nonnull (strstr (r->reason, "falls short"));
+  /* The orbit actually reached at burnout is no orbit: perigee underground. */
+  g_assert_cmpfloat (r->perigee_km, <, 0.0);
+}
+
+static void
+test_transfer (void)
+{
+  /* To 400 km through a transfer orbit from a 200 km perigee: the apogee
+   * burn is Hohmann's second, dv2 = sqrt(mu/r2) (1 - sqrt(2 r1 / (r1 + r2)))
+   * (Curtis, Orbital Mechanics for Engineering Students, sec. 6.3; from
+   * memory); and with this low-thrust upper stage the transfer costs less
+   * than climbing to 400 km under power (common practice). */
+  static const char *direct =
+    TWO_STAGE ("2100", "allowance", "2100", "220", "");
+  static const char *transfer =
+    TWO_STAGE ("2100", "allowance", "2100", "220", ", \"insertion_altitude_km\": 200");
+  g_autoptr (SwDesign) d1 = load (direct);
+  g_autoptr (SwDesign) d2 = load (transfer);
+  g_autoptr (SwAscentResult) r1 = NULL;
+  g_autoptr (SwAscentResult) r2 = NULL;
+  g_autoptr (GError) error = NULL;
+  double r_1 = RE + 200.0e3, r_2 = RE + 400.0e3;
+  double dv2 = sqrt (MU / r_2) * (1.0 - sqrt (2.0 * r_1 / (r_1 + r_2)));
+
+  d1->mission.altitude_km = d2->mission.altitude_km = 400.0;
+  r1 = sw_design_ascent (d1, NULL, &error);
+  g_assert_no_error (error);
+  r2 = sw_design_ascent (d2, NULL, &error);
+  g_assert_no_error (error);
+  g_assert_true (r1->status == SW_ASCENT_REACHED || r1->status == SW_ASCENT_SHORT);
+  if (r2->status != SW_ASCENT_REACHED)
+    g_error ("transfer not reached: %s", r2->reason);
+
+  g_assert_cmpfloat_with_epsilon (r2->insertion_altitude_km, 200.0, 1e-9);
+  g_assert_cmpfloat_with_epsilon (r2->transfer_perigee_km, 200.0, 0.01);
+  g_assert_cmpfloat_with_epsilon (r2->transfer_apogee_km, 400.0, 0.05);
+  g_assert_cmpfloat_with_epsilon (r2->circularization_m_s, dv2, 0.05);
+  g_assert_cmpfloat_with_epsilon (r2->perigee_km, r2->apogee_km, 1e-9);
+  /* The guidance holds the cutoff to a metre; the recorded flight, with its
+   * shorter steps, lands within the integrator's few metres of it. */
+  g_assert_cmpfloat_with_epsilon (r2->cutoff.altitude_m, 200000.0, 10.0);
+  g_assert_cmpfloat (r2->raising_loss_m_s, >, dv2);
+  g_assert_cmpfloat (r2->losses_m_s, <, r1->losses_m_s);
+  g_assert_cmpfloat_with_epsilon (r2->gravity_loss_m_s + r2->drag_loss_m_s
+                                  + r2->steering_loss_m_s + r2->pressure_loss_m_s
+                                  + r2->fairing_loss_m_s + r2->raising_loss_m_s
+                                  + r2->other_loss_m_s, r2->losses_m_s, 1e-6);
+}
+
+static void
+test_fixed_kick (void)
+{
+  g_autoptr (SwDesign) d = load (TWO_STAGE ("1700", "allowance", "2100", "220",
+                                            ", \"pitch_kick_deg\": 3"));
+  g_autoptr (SwAscentResult) r = NULL;
+  g_autoptr (GError) error = NULL;
+
+  r = sw_design_ascent (d, NULL, &error);
+  g_assert_no_error (error);
+  g_assert_cmpfloat (r->pitch_kick_deg, ==, 3.0);
+  g_assert_false (r->pitch_kick_solved);
+  g_assert_true (r->status == SW_ASCENT_REACHED || r->status == SW_ASCENT_SHORT);
+  g_assert_cmpfloat_with_epsilon (r->cutoff.altitude_m, 200000.0, 1000.0);
+}
+
+static void
+test_bad_propulsion (void)
+{
+  g_autoptr (GError) error = NULL;
+
+  /* Thrust-to-weight below 1 at liftoff: an infeasible answer that says why. */
+  {
+    g_autoptr (SwDesign) d = load (TWO_STAGE ("1600", "allowance", "1200", "220", ""));
+    g_autoptr (SwAscentResult) r = sw_design_ascent (d, NULL, &error);
+    g_assert_no_error (error);
+    g_assert_cmpint (r->status, ==, SW_ASCENT_NO_SOLUTION);
+    g_assert_nonnull (strstr (r->reason, "cannot lift off"));
+    g_assert_nonnull (strstr (r->reason, "thrust-to-weight"));
+    g_assert_cmpfloat (r->liftoff_thrust_to_weight, <, 1.0);
+    /* The stage figures are still there for the views. */
+    g_assert_cmpfloat (r->stages[0].burn_time_s, >, 0.0);
+  }
+  /* An upper stage far too weak: no orbit, and a reason. */
+  {
+    g_autoptr (SwDesign) d = load (TWO_STAGE ("1600", "allowance", "2100", "25", ""));
+    g_autoptr (SwAscentResult) r = sw_design_ascent (d, NULL, &error);
+    g_assert_no_error (error);
+    g_assert_false (r->reached_orbit);
+    g_assert_cmpint (r->status, !=, SW_ASCENT_REACHED);
+    g_assert_cmpuint (strlen (r->reason), >, 20);
+  }
+  /* The loop cannot close when the vehicle grows faster than its thrust. */
+  {
+    g_autoptr (SwDesign) d = load (TWO_STAGE ("1600", "simulate", "1750", "160", ""));
+    g_autoptr (SwAscentResult) r = sw_design_ascent (d, NULL, &error);
+    g_assert_no_error (error);
+    g_assert_true (r->closed_loop);
+    g_assert_false (r->loop_converged);
+    g_assert_false (r->reached_orbit);
+    g_assert_nonnull (strstr (r->reason, "does not converge"));
+  }
+  /* No propulsion keys at all: an error naming the keys needed. */
+  {
+    g_autoptr (SwDesign) d = load (
+      "{ \"format\": \"stagewright-design\", \"version\": 1, \"payload_kg\": 100,"
+      "  \"mission\": { \"orbit\": { \"altitude_km\": 300, \"inclination_deg\": 30,"
+      "  \"site_latitude_deg\": 10 } }, \"split\": \"equal\","
+      "  \"stages\": [ { \"isp_vac_s\": 300, \"structural_coefficient\": 0.1 } ] }");
+    g_assert_null (sw_design_ascent (d, NULL, &error));
+    g_assert_error (error, SW_ERROR, SW_ERROR_MISSING);
+    g_assert_nonnull (strstr (error->message, "thrust_vac_kn"));
+    g_assert_nonnull (strstr (error->message, "isp_sl_s"));
+    g_assert_nonnull (strstr (error->message, "diameter_m"));
+    g_clear_error (&error);
+  }
+  /* A delta-v mission has no orbit to fly to. */
+  {
+    g_autoptr (SwDesign) d = load (three_stage_dv);
+    g_assert_null (sw_ascent_solve (d, NULL, NULL, &error));
+    g_assert_nonnull (strstr (error->message, "mission.orbit"));
+    g_clear_error (&error);
+  }
+  /* Zero thrust and a negative diameter never load (test-propulsion has the
+   * full list); in memory they are caught before flying. */
+  {
+    g_autoptr (SwDesign) d = load (TWO_STAGE ("1600", "allowance", "2100", "220", ""));
+    d->stages[0].propulsion.diameter_m = -3.0;
+    g_assert_null (sw_design_ascent (d, NULL, &error));
+    g_assert_nonnull (strstr (error->message, "stages[0].diameter_m"));
+    g_clear_error (&error);
+    d->stages[0].propulsion.diameter_m = 3.0;
+    d->stages[1].propulsion.thrust_vac_kn = 0.0;
+    g_assert_null (sw_design_ascent (d, NULL, &error));
+    g_assert_nonnull (strstr (error->message, "stages[1].thrust_vac_kn"));
+    g_clear_error (&error);
+  }
+  /* Beyond direct insertion. */
+  {
+    g_autoptr (SwDesign) d = load (TWO_STAGE ("1600", "allowance", "2100", "220", ""));
+    d->mission.altitude_km = 5000.0;
+    g_assert_null (sw_design_ascent (d, NULL, &error));
+    g_assert_nonnull (strstr (error->message, "altitude_km"));
+    g_clear_error (&error);
+  }
+}
+
+static void
+test_cancel (void)
+{
+  g_autoptr (SwDesign) d = load (TWO_STAGE ("1600", "simulate", "2100", "220", ""));
+  g_autoptr (GCancellable) c = g_cancellable_new ();
+  g_autoptr (GError) error = NULL;
+
+  g_cancellable_cancel (c);
+  g_assert_null (sw_design_ascent (d, c, &error));
+  g_assert_error (error, G_IO_ERROR, G_IO_ERROR_CANCELLED);
+}
+
+/* ---- the command line -------------------------------------------------- */
+
+static JsonObject *
+run_json (const char *const *args, int *status, JsonParser *parser)
+{
+  g_autoptr (GError) error = NULL;
+  g_autofree char *out = NULL, *err = NULL;
+
+  g_assert_true (g_spawn_sync (NULL, (char **) args, NULL, G_SPAWN_DEFAULT, NULL, NULL, &out,
+                               &err, status, &error));
+  g_assert_no_error (error);
+  if (*status != 0)
+    return NULL;
+  g_assert_true (json_parser_load_from_data (parser, out, -1, &error));
+  g_assert_no_error (error);
+  return json_node_get_object (json_parser_get_root (parser));
+}
+
+static void
+test_cli (void)
+{
+  const char *cli = g_getenv ("SW_CLI"), *root = g_getenv ("SW_SOURCE_ROOT");
+  g_autofree char *demo = NULL, *csv = NULL, *csv_text = NULL;
+  g_autoptr (JsonParser) p1 = json_parser_new ();
+  g_autoptr (JsonParser) p2 = json_parser_new ();
+  g_autoptr (GError) error = NULL;
+  g_autofree char *out = NULL, *err = NULL;
+  JsonObject *o, *st;
+  int status;
+
+  if (cli == NULL || root == NULL || !g_file_test (cli, G_FILE_TEST_IS_EXECUTABLE))
+    {
+      g_test_skip ("SW_CLI and SW_SOURCE_ROOT are set by meson test");
+      return;
+    }
+  demo = g_build_filename (root, "data", "designs", "three-stage-simulated.stagewright", NULL);
+
+  {
+    const char *args[] = { cli, "atmosphere", "11000", "--json", NULL };
+    o = run_json (args, &status, p1);
+    g_assert_cmpint (status, ==, 0);
+    /* 11 km: 216.774 K, 22700 Pa (the 1976 standard's table, from memory). */
+    g_assert_cmpfloat_with_epsilon (json_object_get_double_member (o, "temperature_k"),
+                                    216.774, 0.01);
+    g_assert_true (json_object_has_member (o, "pressure_pa"));
+    g_assert_true (json_object_has_member (o, "density_kg_m3"));
+    g_assert_true (json_object_has_member (o, "speed_of_sound_m_s"));
+  }
+  {
+    const char *args[] = { cli, "atmosphere", "2e6", NULL };
+    g_assert_null (run_json (args, &status, p1));
+    g_assert_cmpint (WEXITSTATUS (status), ==, 2);
+  }
+
+  csv = g_build_filename (g_get_tmp_dir (), "sw-test-ascent.csv", NULL);
+  {
+    const char *args[] = { cli, "ascent", demo, "--json", "--csv", csv, NULL };
+    static const char *keys[] = {
+      "reached_orbit", "perigee_km", "apogee_km", "gravity_loss_m_s", "drag_loss_m_s",
+      "steering_loss_m_s", "pressure_loss_m_s", "rotation_gain_m_s", "max_q_pa",
+      "max_q_time_s", "max_axial_g", "caution",
+    };
+    JsonArray *stages;
+
+    o = run_json (args, &status, p2);
+    g_assert_cmpint (status, ==, 0);
+    for (guint i = 0; i < G_N_ELEMENTS (keys); i++)
+      g_assert_true (json_object_has_member (o, keys[i]));
+    g_assert_true (json_object_get_boolean_member (o, "reached_orbit"));
+    stages = json_object_get_array_member (o, "stages");
+    g_assert_cmpuint (json_array_get_length (stages), ==, 3);
+    st = json_array_get_object_element (stages, 0);
+    g_assert_cmpfloat (json_object_get_double_member (st, "ignition_thrust_to_weight"), >, 1.0);
+    g_assert_cmpfloat (json_object_get_double_member (st, "burn_time_s"), >, 10.0);
+    g_assert_true (json_object_get_boolean_member (
+      json_object_get_object_member (o, "closed_loop"), "converged"));
+  }
+  g_assert_true (g_file_get_contents (csv, &csv_text, NULL, &error));
+  g_assert_true (g_str_has_prefix (csv_text, "# Stagewright ascent time series"));
+  g_assert_nonnull (strstr (csv_text, "not for flight hardware"));
+  g_assert_nonnull (strstr (csv_text, "time_s,altitude_m,downrange_m,speed_m_s"));
+  g_assert_null (strstr (csv_text, "nan"));
+  g_unlink (csv);
+
+  /* A design without propulsion keys: exit 2, and the keys named. */
+  {
+    g_autofree char *tmp = g_build_filename (g_get_tmp_dir (), "sw-test-bare.stagewright", NULL);
+    const char *args[] = { cli, "ascent", tmp, NULL };
+    g_assert_true (g_file_set_contents (
+      tmp,
+      "{ \"format\": \"stagewright-design\", \"version\": 1, \"payload_kg\": 100,"
+      "  \"mission\": { \"orbit\": { \"altitude_km\": 300, \"inclination_deg\": 30,"
+      "  \"site_latitude_deg\": 10 } }, \"split\": \"equal\","
+      "  \"stages\": [ { \"isp_vac_s\": 300, \"structural_coefficient\": 0.1 } ] }",
+      -1, &error));
+    g_assert_true (g_spawn_sync (NULL, (char **) args, NULL, G_SPAWN_DEFAULT, NULL, NULL, &out,
+                                 &err, &status, &error));
+    g_assert_cmpint (WEXITSTATUS (status), ==, 2);
+    g_assert_nonnull (strstr (err, "thrust_vac_kn"));
+    g_unlink (tmp);
+  }
+}
+
+int
+main (int argc, char **argv)
+{
+  g_test_init (&argc, &argv, NULL);
+  g_test_add_func ("/core/ascent/tsiolkovsky", test_tsiolkovsky);
+  g_test_add_func ("/core/ascent/vertical-constant-gravity", test_vertical_constant_gravity);
+  g_test_add_func ("/core/ascent/circular-orbit", test_circular_orbit);
+  g_test_add_func ("/core/ascent/terminal-speed", test_terminal_speed);
+  g_test_add_func ("/core/ascent/rotation-gain", test_rotation_gain);
+  g_test_add_func ("/core/ascent/two-stage-losses", test_two_stage_losses);
+  g_test_add_func ("/core/ascent/allowance-shortfall", test_allowance_shortfall);
+  g_test_add_func ("/core/ascent/transfer", test_transfer);
+  g_test_add_func ("/core/ascent/fixed-kick", test_fixed_kick);
+  g_test_add_func ("/core/ascent/bad-propulsion", test_bad_propulsion);
+  g_test_add_func ("/core/ascent/cancel", test_cancel);
+  g_test_add_func ("/core/ascent/cli", test_cli);
+  return g_test_run ();
+}

@@ -1,0 +1,256 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* Tests of the Monte Carlo: repeatability across thread counts, the mean
+ * against the deterministic run where the model is near linear, the spread
+ * against first-order propagation, and the "uncertainty" design keys. */
+#include "config.h"
+
+#include "sw-design.h"
+#include "sw-montecarlo.h"
+#include "sw-sensitivity.h"
+#include "sw-sizing.h"
+
+#include <math.h>
+#include <string.h>
+
+static const char *design_json =
+  "{ \"format\": \"stagewright-design\", \"version\": 1, \"name\": \"mc\",\n"
+  "  \"payload_kg\": 1200, \"mission\": { \"delta_v_m_s\": 9300 }, \"split\": \"optimal\",\n"
+  "  \"stages\": [\n"
+  "    { \"isp_vac_s\": 320, \"structural_coefficient\": 0.07 },\n"
+  "    { \"isp_vac_s\": 345, \"structural_coefficient\": 0.09 },\n"
+  "    { \"isp_vac_s\": 325, \"structural_coefficient\": 0.14 } ],\n"
+  "  \"uncertainty\": { \"samples\": 4000, \"seed\": 99,\n"
+  "    \"isp_vac\": { \"distribution\": \"normal\", \"sigma_percent\": 1.0 },\n"
+  "    \"structural_coefficient\": { \"distribution\": \"uniform\", \"half_range_percent\": 8 },\n"
+  "    \"losses\": { \"distribution\": \"normal\", \"sigma_m_s\": 120 } } }";
+
+static SwDesign *
+load (const char *json, GError **error)
+{
+  return sw_design_load_data (json, -1, "mc.stagewright", NULL, error);
+}
+
+/* One seed, 1 and 2 threads (and 3, which splits the blocks unevenly):
+ * every sample and every statistic bit for bit the same. */
+static void
+test_same_seed_any_threads (void)
+{
+  g_autoptr (SwDesign) d = load (design_json, NULL);
+  const guint n = 3000;   /* not a multiple of the block size */
+  g_autofree double *l1 = g_new (double, n), *l2 = g_new (double, n), *l3 = g_new (double, n);
+  g_autofree double *p1 = g_new (double, n), *p2 = g_new (double, n), *p3 = g_new (double, n);
+  SwMonteCarlo a, b, c, other;
+
+  g_assert_true (sw_montecarlo_run (d, NULL, n, TRUE, 12345, 1, &a, l1, p1, NULL));
+  g_assert_true (sw_montecarlo_run (d, NULL, n, TRUE, 12345, 2, &b, l2, p2, NULL));
+  g_assert_true (sw_montecarlo_run (d, NULL, n, TRUE, 12345, 3, &c, l3, p3, NULL));
+  g_assert_cmpuint (a.threads, ==, 1);
+  g_assert_cmpuint (b.threads, ==, 2);
+  g_assert_cmpmem (l1, n * sizeof (double), l2, n * sizeof (double));
+  g_assert_cmpmem (p1, n * sizeof (double), p2, n * sizeof (double));
+  g_assert_cmpmem (l1, n * sizeof (double), l3, n * sizeof (double));
+  g_assert_cmpmem (&a.liftoff, sizeof a.liftoff, &b.liftoff, sizeof b.liftoff);
+  g_assert_cmpmem (&a.payload, sizeof a.payload, &b.payload, sizeof b.payload);
+  g_assert_cmpfloat (a.p_negative_margin, ==, b.p_negative_margin);
+
+  /* Another seed gives another stream. */
+  g_assert_true (sw_montecarlo_run (d, NULL, n, TRUE, 12346, 2, &other, NULL, NULL, NULL));
+  g_assert_cmpfloat (other.liftoff.mean, !=, a.liftoff.mean);
+}
+
+/* Where the model is near linear (small spreads) the Monte Carlo mean lies
+ * within 3 standard errors of the deterministic run at the mean inputs
+ * (common practice: the central limit theorem, standard error sd/sqrt(N)).
+ * The spreads are symmetric about the nominal values, so the mean inputs are
+ * the design's. */
+static void
+test_mean_near_linear (void)
+{
+  g_autoptr (SwDesign) d = load (design_json, NULL);
+  SwUncertainty small = d->uncertainty;
+  SwMonteCarlo mc;
+  SwSizing s;
+  double se;
+
+  small.isp.width = 0.05;
+  small.structural_coefficient.width = 0.5;
+  small.losses.width = 5.0;
+  g_assert_true (sw_design_size (d, &s, NULL));
+  g_assert_true (sw_montecarlo_run (d, &small, 10000, TRUE, 4, 0, &mc, NULL, NULL, NULL));
+  g_assert_cmpfloat (mc.infeasible_fraction, ==, 0.0);
+
+  se = mc.liftoff.sd / sqrt (mc.liftoff.n);
+  g_assert_cmpfloat (mc.liftoff.sd, >, 0.0);
+  g_assert_cmpfloat (fabs (mc.liftoff.mean - s.liftoff_mass_kg), <, 3.0 * se);
+
+  /* Question 2: the vehicle as sized carries the payload on average. */
+  se = mc.payload.sd / sqrt (mc.payload.n);
+  g_assert_cmpfloat (fabs (mc.payload.mean - d->payload_kg), <, 3.0 * se);
+  /* Symmetric, near-linear: about half the samples fall short. */
+  g_assert_cmpfloat (fabs (mc.p_negative_margin - 0.5), <, 0.03);
+}
+
+/* The spread against first-order propagation of uncertainty (JCGM 100:2008,
+ * "Guide to the expression of uncertainty in measurement", the law of
+ * propagation for independent inputs, u^2 = sum (df/dx_i)^2 u_i^2; a uniform
+ * half range h counts as u = h/sqrt(3); from memory), the sensitivities from
+ * the analytic module.  Small spreads, so the linear model holds to a few
+ * percent. */
+static void
+test_sd_against_propagation (void)
+{
+  g_autoptr (SwDesign) d = load (design_json, NULL);
+  SwUncertainty small = d->uncertainty;
+  SwMonteCarlo mc;
+  SwStageSet set;
+  SwSizing s;
+  double d_dv, d_isp[SW_MAX_STAGES], d_eps[SW_MAX_STAGES], var = 0.0;
+
+  small.isp.width = 0.2;                       /* percent, normal sigma */
+  small.structural_coefficient.width = 2.0;    /* percent, uniform half range */
+  small.losses.width = 20.0;                   /* m/s, normal sigma */
+  g_assert_true (sw_design_size (d, &s, NULL));
+  sw_stage_set_from_design (&set, d);
+  sw_sensitivity_analytic (&set, &s, NULL, &d_dv, d_isp, d_eps);
+  for (guint i = 0; i < d->n_stages; i++)
+    {
+      double u_isp = d->stages[i].isp_vac_s * 0.002;
+      double u_eps = d->stages[i].structural_coefficient * 0.02 / sqrt (3.0);
+      var += pow (d_isp[i] * u_isp, 2) + pow (d_eps[i] * u_eps, 2);
+    }
+  var += pow (d_dv * 20.0, 2);
+
+  g_assert_true (sw_montecarlo_run (d, &small, 20000, TRUE, 5, 0, &mc, NULL, NULL, NULL));
+  g_assert_cmpfloat (fabs (mc.liftoff.sd / sqrt (var) - 1.0), <, 0.03);
+}
+
+static void
+test_summary (void)
+{
+  g_autoptr (SwDesign) d = load (design_json, NULL);
+  SwMonteCarlo mc;
+  guint total = 0;
+
+  g_assert_true (sw_montecarlo_run (d, NULL, 0, FALSE, 0, 0, &mc, NULL, NULL, NULL));
+  g_assert_cmpuint (mc.samples, ==, 4000);
+  g_assert_cmpuint (mc.seed, ==, 99);
+  g_assert_cmpfloat (mc.liftoff.min, <=, mc.liftoff.p05);
+  g_assert_cmpfloat (mc.liftoff.p05, <=, mc.liftoff.p50);
+  g_assert_cmpfloat (mc.liftoff.p50, <=, mc.liftoff.p95);
+  g_assert_cmpfloat (mc.liftoff.p95, <=, mc.liftoff.max);
+  for (guint b = 0; b < SW_MC_BINS; b++)
+    total += mc.liftoff.bins[b];
+  g_assert_cmpuint (total, ==, mc.liftoff.n);
+  g_assert_cmpfloat (mc.reserve_95_kg, ==, d->payload_kg - mc.payload.p05);
+  /* A reserve is needed for 95 %: the 5th percentile payload is short. */
+  g_assert_cmpfloat (mc.reserve_95_kg, >, 0.0);
+}
+
+/* No spread: every sample is the nominal design. */
+static void
+test_no_spread (void)
+{
+  g_autoptr (SwDesign) d = load (design_json, NULL);
+  SwUncertainty none;
+  SwMonteCarlo mc;
+  SwSizing s;
+
+  sw_uncertainty_init (&none);
+  g_assert_true (sw_design_size (d, &s, NULL));
+  g_assert_true (sw_montecarlo_run (d, &none, 500, TRUE, 1, 2, &mc, NULL, NULL, NULL));
+  g_assert_cmpfloat (fabs (mc.liftoff.mean / s.liftoff_mass_kg - 1.0), <, 1e-9);
+  g_assert_cmpfloat (mc.liftoff.sd, <, 1e-6 * s.liftoff_mass_kg);
+  g_assert_cmpfloat (fabs (mc.payload.mean - d->payload_kg), <, 1e-3);
+}
+
+/* The band on the stage-count curve brackets the deterministic curve. */
+static void
+test_band (void)
+{
+  g_autoptr (SwDesign) d = load (design_json, NULL);
+  SwMcBand band;
+
+  g_assert_true (sw_montecarlo_band (d, NULL, 6, 1000, 3, 0, &band, NULL));
+  g_assert_cmpuint (band.n_points, ==, 6);
+  for (guint i = 0; i < band.n_points; i++)
+    {
+      SwStageSet set;
+      SwSizing s;
+      double dv = 9300.0;
+
+      sw_stage_set_extend (&set, d, i + 1);
+      sw_size (&set, d->payload_kg, dv, SW_SPLIT_OPTIMAL, &s);
+      if (!s.feasible || !isfinite (band.p95[i]))
+        continue;
+      g_assert_cmpfloat (band.p05[i], <, s.liftoff_mass_kg);
+      g_assert_cmpfloat (band.p95[i], >, s.liftoff_mass_kg);
+    }
+  /* One stage cannot reach 9.3 km/s with these numbers: no band there. */
+  g_assert_cmpfloat (band.feasible_fraction[0], ==, 0.0);
+  g_assert_true (isnan (band.p50[0]));
+}
+
+static void
+test_keys (void)
+{
+  g_autoptr (SwDesign) d = load (design_json, NULL);
+  g_autoptr (SwDesign) again = NULL;
+  g_autoptr (GError) error = NULL;
+  g_autofree char *data = sw_design_to_data (d, NULL);
+  const struct { const char *from, *to, *needle; } bad[] = {
+    { "\"distribution\": \"normal\", \"sigma_percent\": 1.0",
+      "\"distribution\": \"gaussian\", \"sigma_percent\": 1.0",
+      "uncertainty.isp_vac.distribution: \"gaussian\" is not a distribution" },
+    { "\"half_range_percent\": 8", "\"sigma_percent\": 8",
+      "uncertainty.structural_coefficient.sigma_percent: does not belong to a uniform" },
+    { "\"samples\": 4000", "\"samples\": 4000.5", "uncertainty.samples: 4000.5 is not a whole" },
+    { "\"samples\": 4000", "\"samples\": 10", "uncertainty.samples: 10 is outside" },
+    { "\"sigma_m_s\": 120", "\"sigma_m_s\": -1", "uncertainty.losses.sigma_m_s: -1 is outside" },
+    { "\"sigma_percent\": 1.0 }", "\"sigma_percent\": 1.0, \"extra\": 2 }", NULL },
+  };
+
+  g_assert_true (d->uncertainty.present);
+  g_assert_cmpint (d->uncertainty.isp.kind, ==, SW_SPREAD_NORMAL);
+  g_assert_cmpint (d->uncertainty.structural_coefficient.kind, ==, SW_SPREAD_UNIFORM);
+  g_assert_cmpfloat (d->uncertainty.losses.width, ==, 120.0);
+  again = load (data, &error);
+  g_assert_no_error (error);
+  g_assert_true (sw_design_equal (d, again));
+
+  for (guint i = 0; i < G_N_ELEMENTS (bad); i++)
+    {
+      g_autoptr (GString) json = g_string_new (design_json);
+      g_autoptr (GError) e = NULL;
+      g_autoptr (GPtrArray) warnings = g_ptr_array_new_with_free_func (g_free);
+      g_autoptr (SwDesign) x = NULL;
+
+      g_assert_cmpint (g_string_replace (json, bad[i].from, bad[i].to, 1), ==, 1);
+      x = sw_design_load_data (json->str, -1, "mc.stagewright", warnings, &e);
+      if (bad[i].needle == NULL)
+        {
+          /* An unknown key is a warning, not an error. */
+          g_assert_no_error (e);
+          g_assert_cmpuint (warnings->len, ==, 1);
+          g_assert_nonnull (strstr (warnings->pdata[0], "uncertainty.isp_vac.extra"));
+          continue;
+        }
+      g_assert_null (x);
+      g_assert_nonnull (e);
+      if (strstr (e->message, bad[i].needle) == NULL)
+        g_error ("expected \"%s\" in: %s", bad[i].needle, e->message);
+    }
+}
+
+int
+main (int argc, char **argv)
+{
+  g_test_init (&argc, &argv, NULL);
+  g_test_add_func ("/core/montecarlo/same-seed-any-threads", test_same_seed_any_threads);
+  g_test_add_func ("/core/montecarlo/mean-near-linear", test_mean_near_linear);
+  g_test_add_func ("/core/montecarlo/sd-propagation", test_sd_against_propagation);
+  g_test_add_func ("/core/montecarlo/summary", test_summary);
+  g_test_add_func ("/core/montecarlo/no-spread", test_no_spread);
+  g_test_add_func ("/core/montecarlo/band", test_band);
+  g_test_add_func ("/core/montecarlo/keys", test_keys);
+  return g_test_run ();
+}

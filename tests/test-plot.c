@@ -1,0 +1,305 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* GUI tests of the plot widget: rendered offscreen (cairo renderer, Xvfb).
+ * The check values are geometry: a linear axis maps equal steps to equal
+ * distances, a log axis maps each factor of ten to the same distance, and a
+ * point is drawn where the mapping says.  The trade-curve test takes the
+ * current design's point from the core's result. */
+#include "config.h"
+
+#include "sw-plot.h"
+#include "widget-render.h"
+
+#include <math.h>
+
+#define WIDTH 600
+#define HEIGHT 400
+
+static GtkWidget *
+show_plot (GtkWidget *plot)
+{
+  return widget_render_show (plot, WIDTH, HEIGHT);
+}
+
+static gboolean
+inside (const graphene_rect_t *a, double x, double y)
+{
+  return x >= a->origin.x - 1e-6 && x <= a->origin.x + a->size.width + 1e-6
+         && y >= a->origin.y - 1e-6 && y <= a->origin.y + a->size.height + 1e-6;
+}
+
+static void
+test_linear_mapping (void)
+{
+  static const double x[] = { 0.0, 2.5, 5.0, 7.5, 10.0 };
+  static const double y[] = { 0.0, 40.0, 20.0, 80.0, 100.0 };
+  GtkWidget *plot = sw_plot_new ();
+  GtkWidget *window;
+  graphene_rect_t area;
+  double wx[5], wy[5];
+
+  sw_plot_set_title (SW_PLOT (plot), "Linear");
+  sw_plot_set_x_axis (SW_PLOT (plot), "Time (s)", FALSE);
+  sw_plot_set_y_axis (SW_PLOT (plot), "Speed (m/s)", FALSE);
+  sw_plot_add_series (SW_PLOT (plot), "speed", x, y, 5, SW_PLOT_LINE, -1);
+  window = show_plot (plot);
+
+  g_assert_true (sw_plot_get_plot_area (SW_PLOT (plot), &area));
+  g_assert_cmpfloat (area.size.width, >, WIDTH / 2.0);
+  g_assert_cmpfloat (area.size.height, >, HEIGHT / 3.0);
+  for (int i = 0; i < 5; i++)
+    {
+      g_assert_true (sw_plot_data_to_widget (SW_PLOT (plot), x[i], y[i], &wx[i], &wy[i]));
+      g_assert_true (inside (&area, wx[i], wy[i]));
+    }
+  /* x grows to the right, y grows upwards (smaller widget y). */
+  for (int i = 0; i + 1 < 5; i++)
+    g_assert_cmpfloat (wx[i + 1], >, wx[i]);
+  g_assert_cmpfloat (wy[1], <, wy[0]);
+  g_assert_cmpfloat (wy[2], >, wy[1]);
+  g_assert_cmpfloat (wy[4], <, wy[3]);
+  /* Linear: equal data steps, equal pixel steps; midpoints map to midpoints. */
+  g_assert_cmpfloat_with_epsilon (wx[1] - wx[0], wx[4] - wx[3], 1e-9);
+  {
+    double mid;
+    g_assert_true (sw_plot_data_to_widget (SW_PLOT (plot), 5.0, 50.0, NULL, &mid));
+    g_assert_cmpfloat_with_epsilon ((wy[0] + wy[4]) / 2.0, mid, 1e-9);
+  }
+  /* Non-finite input has no position. */
+  g_assert_false (sw_plot_data_to_widget (SW_PLOT (plot), NAN, 1.0, NULL, NULL));
+  g_assert_false (sw_plot_data_to_widget (SW_PLOT (plot), 1.0, INFINITY, NULL, NULL));
+  gtk_window_destroy (GTK_WINDOW (window));
+}
+
+static void
+test_log_decades (void)
+{
+  static const double x[] = { 1.0, 2.0, 3.0, 4.0, 5.0, 6.0 };
+  static const double y[] = { 150.0, 2e3, NAN, 4e4, -1.0, 7e5 };
+  GtkWidget *plot = sw_plot_new ();
+  GtkWidget *window;
+  graphene_rect_t area;
+  double w3, w4, w5, w6, lo, hi;
+
+  sw_plot_set_y_axis (SW_PLOT (plot), "Mass (kg)", TRUE);
+  sw_plot_add_series (SW_PLOT (plot), "mass", x, y, 6, SW_PLOT_LINE_POINTS, -1);
+  window = show_plot (plot);
+  g_assert_true (sw_plot_get_plot_area (SW_PLOT (plot), &area));
+
+  g_assert_true (sw_plot_data_to_widget (SW_PLOT (plot), 1.0, 1e3, NULL, &w3));
+  g_assert_true (sw_plot_data_to_widget (SW_PLOT (plot), 1.0, 1e4, NULL, &w4));
+  g_assert_true (sw_plot_data_to_widget (SW_PLOT (plot), 1.0, 1e5, NULL, &w5));
+  g_assert_true (sw_plot_data_to_widget (SW_PLOT (plot), 1.0, 1e6, NULL, &w6));
+  /* Each decade takes the same height. */
+  g_assert_cmpfloat (w3 - w4, >, 10.0);
+  g_assert_cmpfloat_with_epsilon (w3 - w4, w4 - w5, 1e-6);
+  g_assert_cmpfloat_with_epsilon (w4 - w5, w5 - w6, 1e-6);
+  /* A factor of two is log10(2) of a decade. */
+  {
+    double w2e3;
+    g_assert_true (sw_plot_data_to_widget (SW_PLOT (plot), 1.0, 2e3, NULL, &w2e3));
+    g_assert_cmpfloat_with_epsilon ((w3 - w2e3) / (w3 - w4), log10 (2.0), 1e-9);
+  }
+  /* The automatic range holds every valid point (NaN and -1 ignored) and
+   * does not run far past them: from 150 to 7e5 the nice ends are 100 and 1e6. */
+  g_assert_true (sw_plot_data_to_widget (SW_PLOT (plot), 1.0, 150.0, NULL, &lo));
+  g_assert_true (sw_plot_data_to_widget (SW_PLOT (plot), 6.0, 7e5, NULL, &hi));
+  g_assert_true (inside (&area, area.origin.x, lo));
+  g_assert_true (inside (&area, area.origin.x, hi));
+  g_assert_cmpfloat (hi - area.origin.y, <, 0.1 * area.size.height);
+  g_assert_cmpfloat (area.origin.y + area.size.height - lo, <, 0.1 * area.size.height);
+  /* No position for values a log axis cannot show. */
+  g_assert_false (sw_plot_data_to_widget (SW_PLOT (plot), 1.0, 0.0, NULL, NULL));
+  g_assert_false (sw_plot_data_to_widget (SW_PLOT (plot), 1.0, -5.0, NULL, NULL));
+  gtk_window_destroy (GTK_WINDOW (window));
+}
+
+static double
+distance_to (const double px[4], const GdkRGBA *c)
+{
+  return fabs (px[0] - c->red) + fabs (px[1] - c->green) + fabs (px[2] - c->blue);
+}
+
+/* The smallest colour distance to @c within @r pixels of (x, y). */
+static double
+nearest_color (cairo_surface_t *surface, double x, double y, int r, const GdkRGBA *c)
+{
+  double best = INFINITY;
+
+  for (int dy = -r; dy <= r; dy++)
+    for (int dx = -r; dx <= r; dx++)
+      {
+        double px[4];
+        widget_render_pixel (surface, (int) floor (x) + dx, (int) floor (y) + dy, px);
+        best = MIN (best, distance_to (px, c));
+      }
+  return best;
+}
+
+static void
+test_points_drawn (void)
+{
+  static const double x[] = { 10.0, 20.0, 30.0 };
+  static const double y[] = { 5.0, 9.0, 2.0 };
+  GtkWidget *plot = sw_plot_new ();
+  GtkWidget *window;
+  cairo_surface_t *surface;
+  GdkRGBA color;
+  double wx, wy, bg[4];
+
+  sw_plot_set_x_axis (SW_PLOT (plot), "x", FALSE);
+  sw_plot_set_y_axis (SW_PLOT (plot), "y", FALSE);
+  sw_plot_add_series (SW_PLOT (plot), "points", x, y, 3, SW_PLOT_POINTS, 2);
+  window = show_plot (plot);
+  surface = widget_render_window (window);
+  sw_plot_palette_color (plot, 2, &color);
+  widget_render_pixel (surface, 1, 1, bg);
+
+  for (int i = 0; i < 3; i++)
+    {
+      g_assert_true (sw_plot_data_to_widget (SW_PLOT (plot), x[i], y[i], &wx, &wy));
+      /* The marker's colour right at the mapped point. */
+      g_assert_cmpfloat (nearest_color (surface, wx, wy, 1, &color), <, 0.05);
+    }
+  /* ... and not where there is no point (half-way between two points,
+   * well off the straight line between them: POINTS draws no line). */
+  g_assert_true (sw_plot_data_to_widget (SW_PLOT (plot), 15.0, 2.0, &wx, &wy));
+  g_assert_cmpfloat (nearest_color (surface, wx, wy, 3, &color), >, 0.3);
+  cairo_surface_destroy (surface);
+  gtk_window_destroy (GTK_WINDOW (window));
+}
+
+static void
+test_line_breaks (void)
+{
+  /* A NaN in the middle breaks the line: no pixels of the series colour
+   * half-way across the gap. */
+  static const double x[] = { 0.0, 1.0, 2.0, 3.0, 4.0 };
+  static const double y[] = { 1.0, 1.0, NAN, 1.0, 1.0 };
+  GtkWidget *plot = sw_plot_new ();
+  GtkWidget *window;
+  cairo_surface_t *surface;
+  GdkRGBA color;
+  double wx, wy;
+
+  sw_plot_set_y_range (SW_PLOT (plot), 0.0, 2.0);
+  sw_plot_add_series (SW_PLOT (plot), "broken", x, y, 5, SW_PLOT_LINE, 0);
+  window = show_plot (plot);
+  surface = widget_render_window (window);
+  sw_plot_palette_color (plot, 0, &color);
+
+  g_assert_true (sw_plot_data_to_widget (SW_PLOT (plot), 0.5, 1.0, &wx, &wy));
+  g_assert_cmpfloat (nearest_color (surface, wx, wy, 2, &color), <, 0.05);
+  g_assert_true (sw_plot_data_to_widget (SW_PLOT (plot), 2.0, 1.0, &wx, &wy));
+  g_assert_cmpfloat (nearest_color (surface, wx, wy, 2, &color), >, 0.3);
+  cairo_surface_destroy (surface);
+  gtk_window_destroy (GTK_WINDOW (window));
+}
+
+static void
+test_current_design_marker (void)
+{
+  /* The stage-count curve of a demo design, with the current design marked
+   * at the liftoff mass the core computed for its stage count. */
+  g_autoptr (SwResult) r = widget_render_demo_result ("small-sat-launcher.stagewright");
+  GtkWidget *plot = sw_plot_new ();
+  GtkWidget *window;
+  cairo_surface_t *surface;
+  double x[SW_MAX_STAGES], y[SW_MAX_STAGES], wx, wy;
+  GdkRGBA fg;
+  guint n = r->stage_curve.n_points;
+
+  g_assert_true (r->ok && r->sizing.feasible);
+  for (guint i = 0; i < n; i++)
+    {
+      x[i] = r->stage_curve.points[i].stages;
+      y[i] = r->stage_curve.points[i].liftoff_mass_kg;
+    }
+  sw_plot_set_x_axis (SW_PLOT (plot), "Number of stages", FALSE);
+  sw_plot_set_y_axis (SW_PLOT (plot), "Liftoff mass (t)", TRUE);
+  sw_plot_set_y_format (SW_PLOT (plot), "%.1f t", 1000.0);
+  sw_plot_set_x_range (SW_PLOT (plot), 0.5, n + 0.5);
+  sw_plot_add_series (SW_PLOT (plot), "optimal split", x, y, n, SW_PLOT_LINE_POINTS, 0);
+  sw_plot_add_marker (SW_PLOT (plot), r->sizing.n_stages, r->sizing.liftoff_mass_kg,
+                      "this design", SW_MARKER_CURRENT);
+  window = show_plot (plot);
+  surface = widget_render_window (window);
+
+  /* The design's own optimal sizing and the curve's point for its stage
+   * count are the same vehicle. */
+  g_assert_cmpfloat (fabs (y[r->sizing.n_stages - 1] / r->sizing.liftoff_mass_kg - 1.0), <, 1e-6);
+  g_assert_true (sw_plot_data_to_widget (SW_PLOT (plot), r->sizing.n_stages,
+                                         r->sizing.liftoff_mass_kg, &wx, &wy));
+  /* The filled current-design marker (foreground colour) is drawn there. */
+  G_GNUC_BEGIN_IGNORE_DEPRECATIONS
+  gtk_style_context_get_color (gtk_widget_get_style_context (plot), &fg);
+  G_GNUC_END_IGNORE_DEPRECATIONS
+  g_assert_cmpfloat (nearest_color (surface, wx, wy, 1, &fg), <, 0.1);
+  cairo_surface_destroy (surface);
+  gtk_window_destroy (GTK_WINDOW (window));
+}
+
+static void
+test_palette (void)
+{
+  GtkWidget *label = g_object_ref_sink (gtk_label_new (NULL));
+  GdkRGBA a, b;
+
+  /* Eight distinct colours, repeating after eight. */
+  for (int i = 0; i < 8; i++)
+    for (int j = i + 1; j < 8; j++)
+      {
+        sw_plot_palette_color (label, i, &a);
+        sw_plot_palette_color (label, j, &b);
+        g_assert_false (gdk_rgba_equal (&a, &b));
+      }
+  sw_plot_palette_color (label, 1, &a);
+  sw_plot_palette_color (label, 9, &b);
+  g_assert_true (gdk_rgba_equal (&a, &b));
+  g_object_unref (label);
+}
+
+static void
+test_clear_and_formats (void)
+{
+  static const double x[] = { 1.0, 2.0 };
+  static const double y[] = { 1.0, 2.0 };
+  GtkWidget *plot = sw_plot_new ();
+  GtkWidget *window;
+  graphene_rect_t area;
+  double before, after;
+
+  /* A format with two conversions is refused with a warning, not used. */
+  g_test_expect_message ("sw-plot", G_LOG_LEVEL_WARNING, "*exactly one double conversion*");
+  sw_plot_set_x_format (SW_PLOT (plot), "%f %f", 1.0);
+  g_test_assert_expected_messages ();
+  sw_plot_set_x_format (SW_PLOT (plot), "%.0f %%", 0.01);
+  sw_plot_add_series (SW_PLOT (plot), "a", x, y, 2, SW_PLOT_LINE, -1);
+  sw_plot_add_vline (SW_PLOT (plot), 1.5, "limit", 1);
+  window = show_plot (plot);
+  g_assert_true (sw_plot_get_plot_area (SW_PLOT (plot), &area));
+  /* Automatic range: the data run from 1 to 2, round numbers already. */
+  g_assert_true (sw_plot_data_to_widget (SW_PLOT (plot), 1.0, 1.5, &before, NULL));
+  g_assert_cmpfloat_with_epsilon (before, area.origin.x, 1e-9);
+  sw_plot_clear (SW_PLOT (plot));
+  sw_plot_set_x_range (SW_PLOT (plot), 0.0, 3.0);
+  /* Empty plot: still an area and a mapping from the fixed range. */
+  g_assert_true (sw_plot_data_to_widget (SW_PLOT (plot), 1.0, 1.5, &after, NULL));
+  g_assert_true (sw_plot_get_plot_area (SW_PLOT (plot), &area));
+  g_assert_cmpfloat_with_epsilon (after, area.origin.x + area.size.width / 3.0, 1e-9);
+  gtk_window_destroy (GTK_WINDOW (window));
+}
+
+int
+main (int argc, char **argv)
+{
+  gtk_test_init (&argc, &argv, NULL);
+
+  g_test_add_func ("/gui/plot/linear-mapping", test_linear_mapping);
+  g_test_add_func ("/gui/plot/log-decades", test_log_decades);
+  g_test_add_func ("/gui/plot/points-drawn", test_points_drawn);
+  g_test_add_func ("/gui/plot/line-breaks", test_line_breaks);
+  g_test_add_func ("/gui/plot/current-design-marker", test_current_design_marker);
+  g_test_add_func ("/gui/plot/palette", test_palette);
+  g_test_add_func ("/gui/plot/clear-and-formats", test_clear_and_formats);
+  return g_test_run ();
+}

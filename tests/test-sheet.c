@@ -1,0 +1,255 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* Tests of the briefing sheet and the CSV exports: the PDF's text holds the
+ * liftoff mass as the core computes it and the cautions, the PNG has the
+ * page's size, the SVG is well-formed XML, the CSV tables are complete. */
+#include "config.h"
+
+#include "sw-csv.h"
+#include "sw-sheet.h"
+
+#include <cairo.h>
+#include <glib/gstdio.h>
+#include <math.h>
+#include <string.h>
+
+static char *tmpdir;
+
+static SwDesign *
+load_trade_study (void)
+{
+  g_autoptr (GError) error = NULL;
+  g_autofree char *path = g_test_build_filename (G_TEST_DIST, "trade", "trade-study.stagewright",
+                                                 NULL);
+  SwDesign *d = sw_design_load (path, NULL, &error);
+
+  g_assert_no_error (error);
+  return d;
+}
+
+static SwBriefing *
+briefing (SwBriefingFlags flags)
+{
+  g_autoptr (SwDesign) d = load_trade_study ();
+  g_autoptr (GError) error = NULL;
+  SwBriefing *b = sw_briefing_new (d, flags, 0, &error);
+
+  g_assert_no_error (error);
+  return b;
+}
+
+/* The test's own thousands grouping, independent of the sheet's. */
+static char *
+grouped (double v)
+{
+  g_autofree char *digits = g_strdup_printf ("%.0f", v);
+  GString *s = g_string_new (NULL);
+  gsize n = strlen (digits);
+
+  for (gsize i = 0; i < n; i++)
+    {
+      if (i > 0 && (n - i) % 3 == 0)
+        g_string_append_c (s, ',');
+      g_string_append_c (s, digits[i]);
+    }
+  return g_string_free (s, FALSE);
+}
+
+static char *
+run_tool (const char *const *argv)
+{
+  g_autoptr (GError) error = NULL;
+  char *out = NULL;
+  int status = 0;
+
+  if (!g_spawn_sync (NULL, (char **) argv, NULL, G_SPAWN_SEARCH_PATH, NULL, NULL, &out, NULL,
+                     &status, &error))
+    g_error ("%s could not run (Debian package poppler-utils, see scripts/deps.sh): %s",
+             argv[0], error->message);
+  g_assert_true (g_spawn_check_wait_status (status, NULL));
+  return out;
+}
+
+static void
+test_pdf_text (void)
+{
+  g_autoptr (SwBriefing) b = briefing (SW_BRIEFING_MONTECARLO | SW_BRIEFING_BAND);
+  g_autofree char *pdf = g_build_filename (tmpdir, "sheet.pdf", NULL);
+  g_autoptr (GError) error = NULL;
+  g_autofree char *text = NULL, *info = NULL, *mass = NULL, *expect = NULL;
+  g_autofree char *part = g_strconcat (pdf, ".part", NULL);
+  SwSizing s;
+
+  g_assert_true (sw_sheet_export (b, SW_SHEET_PDF, SW_PAPER_A4, pdf, &error));
+  g_assert_no_error (error);
+  g_assert_false (g_file_test (part, G_FILE_TEST_EXISTS));
+
+  /* The liftoff mass as the core computes it, straight from the sizing. */
+  g_assert_true (sw_design_size (b->design, &s, NULL));
+  mass = grouped (s.liftoff_mass_kg);
+  expect = g_strdup_printf ("Liftoff mass %s kg", mass);
+  text = run_tool ((const char *[]) { "pdftotext", "-layout", pdf, "-", NULL });
+  if (strstr (text, expect) == NULL)
+    g_error ("\"%s\" not in the PDF's text:\n%s", expect, text);
+  g_assert_nonnull (strstr (text, "Wren 3 trade study"));
+  g_assert_nonnull (strstr (text, "Wren sustainer"));
+  /* The cautions. */
+  g_assert_nonnull (strstr (text, "Conceptual sizing only"));
+  g_assert_nonnull (strstr (text, "not for flight hardware or safety decisions"));
+  g_assert_nonnull (strstr (text, "range safety and local regulations"));
+  g_assert_null (strstr (text, "nan"));
+  g_assert_null (strstr (text, "inf "));
+
+  /* A4 is 210 x 297 mm (ISO 216) = 595.28 x 841.89 pt. */
+  info = run_tool ((const char *[]) { "pdfinfo", pdf, NULL });
+  g_assert_nonnull (strstr (info, "Pages:"));
+  g_assert_nonnull (strstr (info, "595.276 x 841.89"));
+}
+
+static void
+check_png (SwPaper paper, int want_w, int want_h)
+{
+  g_autoptr (SwBriefing) b = briefing (SW_BRIEFING_NONE);
+  g_autofree char *png = g_build_filename (tmpdir, "sheet.png", NULL);
+  g_autoptr (GError) error = NULL;
+  cairo_surface_t *img;
+  int w, h;
+
+  g_assert_true (sw_sheet_export (b, SW_SHEET_PNG, paper, png, &error));
+  g_assert_no_error (error);
+  img = cairo_image_surface_create_from_png (png);
+  g_assert_cmpint (cairo_surface_status (img), ==, CAIRO_STATUS_SUCCESS);
+  w = cairo_image_surface_get_width (img);
+  h = cairo_image_surface_get_height (img);
+  cairo_surface_destroy (img);
+  g_assert_cmpint (w, ==, want_w);
+  g_assert_cmpint (h, ==, want_h);
+  sw_sheet_png_size (paper, &w, &h);
+  g_assert_cmpint (w, ==, want_w);
+  g_assert_cmpint (h, ==, want_h);
+}
+
+/* The page's size at 150 dots per inch: A4 210 x 297 mm (ISO 216, from
+ * memory) gives 1240 x 1754 px; US Letter 8.5 x 11 in (from memory) gives
+ * 1275 x 1650. */
+static void
+test_png_size (void)
+{
+  check_png (SW_PAPER_A4, 1240, 1754);
+  check_png (SW_PAPER_LETTER, 1275, 1650);
+}
+
+typedef struct {
+  guint elements;
+  gboolean root_svg;
+  char *width;
+} SvgCheck;
+
+static void
+svg_start (GMarkupParseContext *ctx, const char *name, const char **names, const char **values,
+           gpointer data, GError **error)
+{
+  SvgCheck *c = data;
+
+  if (c->elements++ == 0)
+    {
+      c->root_svg = strcmp (name, "svg") == 0;
+      for (guint i = 0; names[i] != NULL; i++)
+        if (strcmp (names[i], "width") == 0)
+          c->width = g_strdup (values[i]);
+    }
+}
+
+/* Well-formed XML (GLib's GMarkup parser rejects anything that is not), an
+ * <svg> root, and the Letter page width 612 pt. */
+static void
+test_svg_well_formed (void)
+{
+  g_autoptr (SwBriefing) b = briefing (SW_BRIEFING_NONE);
+  g_autofree char *svg = g_build_filename (tmpdir, "sheet.svg", NULL);
+  g_autoptr (GError) error = NULL;
+  g_autofree char *data = NULL;
+  GMarkupParser parser = { svg_start, NULL, NULL, NULL, NULL };
+  GMarkupParseContext *ctx;
+  SvgCheck check = { 0 };
+  gsize len;
+
+  g_assert_true (sw_sheet_export (b, SW_SHEET_SVG, SW_PAPER_LETTER, svg, &error));
+  g_assert_no_error (error);
+  g_assert_true (g_file_get_contents (svg, &data, &len, NULL));
+  ctx = g_markup_parse_context_new (&parser, 0, &check, NULL);
+  g_assert_true (g_markup_parse_context_parse (ctx, data, (gssize) len, &error));
+  g_assert_true (g_markup_parse_context_end_parse (ctx, &error));
+  g_assert_no_error (error);
+  g_markup_parse_context_free (ctx);
+  g_assert_true (check.root_svg);
+  g_assert_cmpuint (check.elements, >, 100);
+  g_assert_cmpstr (check.width, ==, "612pt");
+  g_free (check.width);
+}
+
+static void
+test_csv (void)
+{
+  g_autoptr (SwBriefing) b = briefing (SW_BRIEFING_MONTECARLO);
+  g_autofree char *dir = g_build_filename (tmpdir, "csv", NULL);
+  g_autoptr (GPtrArray) written = g_ptr_array_new_with_free_func (g_free);
+  g_autoptr (GError) error = NULL;
+  g_autofree char *stages = NULL, *curve = NULL, *path = NULL;
+  g_auto (GStrv) lines = NULL;
+
+  g_assert_true (sw_csv_export (b, dir, written, &error));
+  g_assert_no_error (error);
+  g_assert_cmpuint (written->len, ==, 6);
+
+  path = g_build_filename (dir, "stages.csv", NULL);
+  g_assert_true (g_file_get_contents (path, &stages, NULL, NULL));
+  lines = g_strsplit (stages, "\n", -1);
+  g_assert_true (g_str_has_prefix (lines[0], "# Conceptual sizing only"));
+  g_assert_true (g_str_has_prefix (lines[1], "stage,name,isp_vac_s"));
+  g_assert_true (g_str_has_prefix (lines[2], "1,Wren booster,320,"));
+  g_assert_true (g_str_has_prefix (lines[5], "total,"));
+  g_assert_cmpstr (lines[6], ==, "");
+  g_assert_null (strstr (stages, "nan"));
+
+  g_clear_pointer (&path, g_free);
+  path = g_build_filename (dir, "stage-count.csv", NULL);
+  g_assert_true (g_file_get_contents (path, &curve, NULL, NULL));
+  /* One stage cannot fly this mission: an empty mass, never NaN. */
+  g_assert_nonnull (strstr (curve, "\n1,false,,"));
+  g_assert_null (strstr (curve, "nan"));
+}
+
+static void
+remove_tree (const char *dir)
+{
+  g_autoptr (GDir) d = g_dir_open (dir, 0, NULL);
+  const char *name;
+
+  while (d != NULL && (name = g_dir_read_name (d)) != NULL)
+    {
+      g_autofree char *path = g_build_filename (dir, name, NULL);
+      if (g_file_test (path, G_FILE_TEST_IS_DIR))
+        remove_tree (path);
+      else
+        g_remove (path);
+    }
+  g_rmdir (dir);
+}
+
+int
+main (int argc, char **argv)
+{
+  int status;
+
+  g_test_init (&argc, &argv, NULL);
+  tmpdir = g_dir_make_tmp ("sw-sheet-XXXXXX", NULL);
+  g_assert_nonnull (tmpdir);
+  g_test_add_func ("/sheet/pdf-text", test_pdf_text);
+  g_test_add_func ("/sheet/png-size", test_png_size);
+  g_test_add_func ("/sheet/svg-well-formed", test_svg_well_formed);
+  g_test_add_func ("/sheet/csv", test_csv);
+  status = g_test_run ();
+  remove_tree (tmpdir);
+  g_free (tmpdir);
+  return status;
+}

@@ -1,0 +1,652 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* GUI tests of the main window: edits through the inspector reach the solver
+ * thread and come back as totals; border drags, undo, save and reopen, the
+ * recovery copy, a burst of 1,000 edits and the plots' current-design
+ * markers.  Run under Xvfb with the cairo renderer (suite 'gui'). */
+#include "config.h"
+
+#include "sw-application.h"
+#include "sw-format.h"
+#include "sw-limits.h"
+#include "sw-sizing.h"
+#include "sw-trade-plots.h"
+#include "sw-window-private.h"
+
+#include <glib/gstdio.h>
+#include <math.h>
+#include <string.h>
+
+static char *tmp_dir;
+
+/* ---- helpers ----------------------------------------------------------- */
+
+static gboolean
+flag_cb (gpointer data)
+{
+  *(gboolean *) data = TRUE;
+  return G_SOURCE_REMOVE;
+}
+
+/* Runs the main loop until @cond holds; fails the test after @ms. */
+static void
+wait_until (gboolean (*cond) (gpointer), gpointer data, guint ms, const char *what)
+{
+  gboolean timed_out = FALSE;
+  guint id = g_timeout_add (ms, flag_cb, &timed_out);
+
+  while (!cond (data) && !timed_out)
+    g_main_context_iteration (NULL, TRUE);
+  if (timed_out)
+    g_error ("timed out after %u ms waiting for %s", ms, what);
+  g_source_remove (id);
+}
+
+/* The newest edit has been solved, shown and painted. */
+static gboolean
+up_to_date (gpointer data)
+{
+  SwWindow *w = data;
+  SwResult *r = sw_window_get_shown_result (w);
+  guint64 posted = sw_solver_get_posted_serial (sw_window_get_solver (w));
+
+  return r != NULL && r->serial == posted && sw_window_get_drawn_serial (w) >= posted;
+}
+
+static void
+wait_shown (SwWindow *w)
+{
+  wait_until (up_to_date, w, 10000, "the newest result to be drawn");
+}
+
+static SwWindow *
+window_new (void)
+{
+  SwWindow *w = sw_window_new (NULL);
+
+  gtk_window_present (GTK_WINDOW (w));
+  wait_shown (w);
+  return w;
+}
+
+static void
+window_close (SwWindow *w)
+{
+  GtkWidget *weak = GTK_WIDGET (w);
+
+  g_object_add_weak_pointer (G_OBJECT (w), (gpointer *) &weak);
+  sw_window_close_discarding (w);
+  for (int i = 0; i < 1000 && weak != NULL; i++)
+    g_main_context_iteration (NULL, FALSE);
+  g_assert_null (weak);
+}
+
+static char *
+demo_path (const char *name)
+{
+  return g_build_filename (SOURCE_DESIGNS_DIR, name, NULL);
+}
+
+static void
+load_demo (SwWindow *w, const char *name)
+{
+  g_autofree char *path = demo_path (name);
+  g_autoptr (GFile) file = g_file_new_for_path (path);
+
+  g_assert_true (sw_window_load (w, file));
+  wait_shown (w);
+}
+
+/* A one-stage design whose numbers a reader can check by hand. */
+static SwDesign *
+single_stage_design (void)
+{
+  SwDesign *d = sw_design_new_default ();
+
+  g_strlcpy (d->name, "Hand check", sizeof d->name);
+  d->payload_kg = 1000.0;
+  d->mission.kind = SW_MISSION_DELTA_V;
+  d->mission.delta_v_m_s = 3000.0;
+  d->split = SW_SPLIT_OPTIMAL;
+  d->n_stages = 1;
+  d->stages[0].isp_vac_s = 300.0;
+  d->stages[0].structural_coefficient = 0.1;
+  d->stages[0].has_share = FALSE;
+  return d;
+}
+
+/* Tsiolkovsky with the structural coefficient, top-down for one stage
+ * (H. D. Curtis, Orbital Mechanics for Engineering Students, sec. 11.5,
+ * from memory): n = exp(dv / (Isp g0)), m0 = m_pl n (1 - eps) / (1 - n eps). */
+static double
+hand_liftoff (double payload, double dv, double isp, double eps)
+{
+  double n = exp (dv / (isp * 9.80665));
+  return payload * n * (1.0 - eps) / (1.0 - n * eps);
+}
+
+static GtkSpinButton *
+field (SwWindow *w, SwInspectorField f)
+{
+  return GTK_SPIN_BUTTON (sw_inspector_get_field (sw_window_get_inspector (w), f));
+}
+
+static const char *
+totals_text (SwWindow *w, SwTotalsField f)
+{
+  return sw_totals_get_text (sw_window_get_totals (w), f);
+}
+
+static void
+assert_liftoff_shown (SwWindow *w, double expected_kg)
+{
+  SwResult *r = sw_window_get_shown_result (w);
+  g_autofree char *text = sw_format_mass (expected_kg);
+
+  g_assert_nonnull (r);
+  g_assert_true (r->ok);
+  g_assert_true (r->sizing.feasible);
+  g_assert_cmpfloat_with_epsilon (r->sizing.liftoff_mass_kg / expected_kg, 1.0, 1e-9);
+  g_assert_cmpstr (totals_text (w, SW_TOTALS_LIFTOFF), ==, text);
+}
+
+/* ---- tests ------------------------------------------------------------- */
+
+static void
+test_builds (void)
+{
+  SwWindow *w = window_new ();
+  SwResult *r;
+  g_autofree char *liftoff = NULL;
+
+  load_demo (w, "medium-cargo.stagewright");
+  r = sw_window_get_shown_result (w);
+  g_assert_true (r->ok);
+  g_assert_cmpuint (r->design->n_stages, ==, 2);
+  g_assert_true (g_str_has_prefix (gtk_window_get_title (GTK_WINDOW (w)),
+                                   "Harrow Medium cargo vehicle"));
+  g_assert_false (sw_document_get_modified (sw_window_get_document (w)));
+  liftoff = sw_format_mass (r->sizing.liftoff_mass_kg);
+  g_assert_cmpstr (totals_text (w, SW_TOTALS_LIFTOFF), ==, liftoff);
+  /* The inspector shows the first stage of the file. */
+  g_assert_cmpfloat (gtk_spin_button_get_value (field (w, SW_INSPECTOR_ISP_VAC)), ==, 338.0);
+  /* The spin ranges come from the limits table. */
+  {
+    double lo, hi;
+    gtk_spin_button_get_range (field (w, SW_INSPECTOR_ISP_VAC), &lo, &hi);
+    g_assert_cmpfloat (lo, ==, sw_limit_get (SW_LIMIT_ISP_VAC)->min);
+    g_assert_cmpfloat (hi, ==, sw_limit_get (SW_LIMIT_ISP_VAC)->max);
+  }
+  window_close (w);
+}
+
+static void
+test_edit_fields (void)
+{
+  SwWindow *w = window_new ();
+  SwDocument *doc = sw_window_get_document (w);
+  GtkDropDown *form;
+  const SwDesign *d;
+
+  sw_document_reset (doc, single_stage_design (), NULL, FALSE);
+  wait_shown (w);
+  assert_liftoff_shown (w, hand_liftoff (1000.0, 3000.0, 300.0, 0.1));
+
+  /* Isp */
+  gtk_spin_button_set_value (field (w, SW_INSPECTOR_ISP_VAC), 350.0);
+  wait_shown (w);
+  g_assert_cmpfloat (sw_document_get_design (doc)->stages[0].isp_vac_s, ==, 350.0);
+  assert_liftoff_shown (w, hand_liftoff (1000.0, 3000.0, 350.0, 0.1));
+
+  /* eps, entered as eps */
+  gtk_spin_button_set_value (field (w, SW_INSPECTOR_EPS), 0.12);
+  wait_shown (w);
+  g_assert_cmpfloat_with_epsilon (sw_document_get_design (doc)->stages[0].structural_coefficient,
+                                  0.12, 1e-12);
+  assert_liftoff_shown (w, hand_liftoff (1000.0, 3000.0, 350.0, 0.12));
+
+  /* eps, entered as the wet-to-dry mass ratio 1/eps: 10 means eps = 0.1 */
+  form = GTK_DROP_DOWN (sw_inspector_get_field (sw_window_get_inspector (w),
+                                                SW_INSPECTOR_EPS_FORM));
+  gtk_drop_down_set_selected (form, SW_EPS_WET_DRY_RATIO);
+  g_assert_cmpfloat_with_epsilon (gtk_spin_button_get_value (field (w, SW_INSPECTOR_EPS)),
+                                  1.0 / 0.12, 1e-9);
+  gtk_spin_button_set_value (field (w, SW_INSPECTOR_EPS), 10.0);
+  wait_shown (w);
+  g_assert_cmpfloat_with_epsilon (sw_document_get_design (doc)->stages[0].structural_coefficient,
+                                  0.1, 1e-12);
+  assert_liftoff_shown (w, hand_liftoff (1000.0, 3000.0, 350.0, 0.1));
+  gtk_drop_down_set_selected (form, SW_EPS_COEFFICIENT);
+
+  /* A second stage, then the share of the first: the split becomes manual
+   * and the other share takes the rest. */
+  gtk_widget_activate_action (GTK_WIDGET (sw_window_get_inspector (w)), "stage.add", NULL);
+  wait_shown (w);
+  g_assert_cmpuint (sw_document_get_design (doc)->n_stages, ==, 2);
+  sw_inspector_set_selected (sw_window_get_inspector (w), 0);
+  gtk_spin_button_set_value (field (w, SW_INSPECTOR_SHARE), 30.0);
+  wait_shown (w);
+  d = sw_document_get_design (doc);
+  g_assert_cmpint (d->split, ==, SW_SPLIT_MANUAL);
+  g_assert_cmpfloat_with_epsilon (d->stages[0].delta_v_share, 0.30, 1e-12);
+  g_assert_cmpfloat_with_epsilon (d->stages[1].delta_v_share, 0.70, 1e-12);
+  {
+    /* Two stages top-down by hand: the upper stage's initial mass is the
+     * lower stage's payload. */
+    double upper = hand_liftoff (1000.0, 0.7 * 3000.0, d->stages[1].isp_vac_s,
+                                 d->stages[1].structural_coefficient);
+    double lower = hand_liftoff (upper, 0.3 * 3000.0, 350.0, 0.1);
+    assert_liftoff_shown (w, lower);
+  }
+  window_close (w);
+}
+
+static void
+test_drag_border (void)
+{
+  SwWindow *w = window_new ();
+  SwDocument *doc = sw_window_get_document (w);
+  g_autoptr (SwDesign) before = NULL;
+  SwResult *r;
+  double s0, s1;
+  const SwDesign *d;
+
+  load_demo (w, "medium-cargo.stagewright");
+  before = sw_document_dup_design (doc);
+  r = sw_window_get_shown_result (w);
+  s0 = r->sizing.stages[0].delta_v_share;
+  s1 = r->sizing.stages[1].delta_v_share;
+
+  /* As the stack view reports a drag: 0.05 then 0.10 of the share moves
+   * from stage 2 (upper) to stage 1 (lower), counted from the drag's start. */
+  g_signal_emit_by_name (sw_window_get_stack_view (w), "share-dragged", 0, 1, 0.05, FALSE);
+  g_signal_emit_by_name (sw_window_get_stack_view (w), "share-dragged", 0, 1, 0.10, TRUE);
+  wait_shown (w);
+  d = sw_document_get_design (doc);
+  g_assert_cmpint (d->split, ==, SW_SPLIT_MANUAL);
+  g_assert_cmpfloat_with_epsilon (d->stages[0].delta_v_share, s0 + 0.10, 1e-9);
+  g_assert_cmpfloat_with_epsilon (d->stages[1].delta_v_share, s1 - 0.10, 1e-9);
+  r = sw_window_get_shown_result (w);
+  g_assert_cmpfloat_with_epsilon (r->sizing.stages[0].delta_v_m_s,
+                                  (s0 + 0.10) * r->delta_v_m_s, 1e-6);
+  g_assert_true (sw_document_get_modified (doc));
+
+  /* One drag is one undo step. */
+  g_assert_true (sw_document_undo (doc));
+  g_assert_true (sw_design_equal (sw_document_get_design (doc), before));
+  g_assert_false (sw_document_can_undo (doc));
+  window_close (w);
+}
+
+static void
+test_undo_exact (void)
+{
+  SwWindow *w = window_new ();
+  SwDocument *doc = sw_window_get_document (w);
+  SwInspector *insp = sw_window_get_inspector (w);
+  GPtrArray *states = g_ptr_array_new_with_free_func ((GDestroyNotify) sw_design_free);
+
+  load_demo (w, "small-sat-launcher.stagewright");
+  g_ptr_array_add (states, sw_document_dup_design (doc));
+
+  gtk_spin_button_set_value (field (w, SW_INSPECTOR_PAYLOAD), 321.5);
+  g_ptr_array_add (states, sw_document_dup_design (doc));
+  sw_inspector_set_selected (insp, 1);
+  gtk_spin_button_set_value (field (w, SW_INSPECTOR_ISP_VAC), 341.7);
+  g_ptr_array_add (states, sw_document_dup_design (doc));
+  gtk_spin_button_set_value (field (w, SW_INSPECTOR_EPS), 0.0937);
+  g_ptr_array_add (states, sw_document_dup_design (doc));
+  gtk_widget_activate_action (GTK_WIDGET (insp), "stage.duplicate", NULL);
+  g_ptr_array_add (states, sw_document_dup_design (doc));
+  gtk_widget_activate_action (GTK_WIDGET (insp), "stage.move-up", NULL);
+  g_ptr_array_add (states, sw_document_dup_design (doc));
+  gtk_spin_button_set_value (field (w, SW_INSPECTOR_SHARE), 12.5);
+  g_ptr_array_add (states, sw_document_dup_design (doc));
+  gtk_widget_activate_action (GTK_WIDGET (insp), "stage.remove", NULL);
+  g_ptr_array_add (states, sw_document_dup_design (doc));
+
+  /* Every step differs from the one before, and undo walks back exactly. */
+  for (guint i = 1; i < states->len; i++)
+    g_assert_false (sw_design_equal (states->pdata[i], states->pdata[i - 1]));
+  for (guint i = states->len - 1; i > 0; i--)
+    {
+      g_assert_true (sw_document_undo (doc));
+      g_assert_true (sw_design_equal (sw_document_get_design (doc), states->pdata[i - 1]));
+    }
+  g_assert_false (sw_document_can_undo (doc));
+  g_assert_false (sw_document_get_modified (doc));
+  for (guint i = 1; i < states->len; i++)
+    {
+      g_assert_true (sw_document_redo (doc));
+      g_assert_true (sw_design_equal (sw_document_get_design (doc), states->pdata[i]));
+    }
+  wait_shown (w);
+  g_assert_true (sw_design_equal (sw_window_get_shown_result (w)->design,
+                                  sw_document_get_design (doc)));
+  g_ptr_array_unref (states);
+  window_close (w);
+}
+
+static void
+test_save_reopen (void)
+{
+  SwWindow *w = window_new ();
+  SwWindow *w2;
+  g_autofree char *path = g_build_filename (tmp_dir, "round-trip.stagewright", NULL);
+  g_autofree char *bad_path = g_build_filename (tmp_dir, "bad.stagewright", NULL);
+  g_autoptr (GFile) file = g_file_new_for_path (path);
+  g_autoptr (GFile) bad = g_file_new_for_path (bad_path);
+  g_autoptr (GError) error = NULL;
+  g_autoptr (SwDesign) saved = NULL;
+  GtkMessageType type;
+  const char *message;
+
+  load_demo (w, "all-solid-concept.stagewright");
+  gtk_spin_button_set_value (field (w, SW_INSPECTOR_ISP_VAC), 281.5);
+  g_assert_true (sw_document_get_modified (sw_window_get_document (w)));
+  g_assert_true (g_str_has_prefix (gtk_window_get_title (GTK_WINDOW (w)), "• "));
+  g_assert_true (sw_window_save_to (w, file, &error));
+  g_assert_no_error (error);
+  g_assert_false (sw_document_get_modified (sw_window_get_document (w)));
+  g_assert_false (g_str_has_prefix (gtk_window_get_title (GTK_WINDOW (w)), "• "));
+  saved = sw_document_dup_design (sw_window_get_document (w));
+
+  w2 = window_new ();
+  g_assert_true (sw_window_load (w2, file));
+  g_assert_true (sw_design_equal (sw_document_get_design (sw_window_get_document (w2)), saved));
+  g_assert_false (sw_document_get_modified (sw_window_get_document (w2)));
+
+  /* A file that does not load changes nothing and says which file, which
+   * field and why. */
+  g_assert_true (g_file_set_contents (bad_path,
+                                      "{ \"format\": \"stagewright-design\", \"version\": 1,"
+                                      "  \"name\": \"x\", \"payload_kg\": -5,"
+                                      "  \"mission\": { \"delta_v_m_s\": 9000 },"
+                                      "  \"split\": \"equal\","
+                                      "  \"stages\": [ { \"name\": \"a\", \"isp_vac_s\": 300,"
+                                      "                  \"structural_coefficient\": 0.1 } ] }",
+                                      -1, NULL));
+  g_assert_false (sw_window_load (w2, bad));
+  g_assert_true (sw_design_equal (sw_document_get_design (sw_window_get_document (w2)), saved));
+  message = sw_window_get_message (w2, &type);
+  g_assert_nonnull (message);
+  g_assert_cmpint (type, ==, GTK_MESSAGE_ERROR);
+  g_assert_nonnull (strstr (message, "bad.stagewright"));
+  g_assert_nonnull (strstr (message, "payload_kg"));
+
+  /* Unknown keys: the design opens and the window names them. */
+  g_assert_true (g_file_set_contents (bad_path,
+                                      "{ \"format\": \"stagewright-design\", \"version\": 1,"
+                                      "  \"name\": \"x\", \"payload_kg\": 500, \"colour\": 3,"
+                                      "  \"mission\": { \"delta_v_m_s\": 9000 },"
+                                      "  \"split\": \"equal\","
+                                      "  \"stages\": [ { \"name\": \"a\", \"isp_vac_s\": 300,"
+                                      "                  \"structural_coefficient\": 0.1 } ] }",
+                                      -1, NULL));
+  g_assert_true (sw_window_load (w2, bad));
+  g_assert_cmpfloat (sw_document_get_design (sw_window_get_document (w2))->payload_kg, ==, 500.0);
+  message = sw_window_get_message (w2, &type);
+  g_assert_nonnull (message);
+  g_assert_cmpint (type, ==, GTK_MESSAGE_WARNING);
+  g_assert_nonnull (strstr (message, "colour"));
+
+  window_close (w2);
+  window_close (w);
+}
+
+static gboolean
+file_exists (gpointer path)
+{
+  return g_file_test (path, G_FILE_TEST_EXISTS);
+}
+
+static void
+test_recovery (void)
+{
+  SwWindow *w = window_new ();
+  g_autofree char *path = sw_window_dup_recovery_path (w);
+  g_autoptr (SwDesign) crashed = NULL;
+  g_autoptr (GError) error = NULL;
+
+  /* The copy appears about a second after an edit, not at once. */
+  g_assert_false (g_file_test (path, G_FILE_TEST_EXISTS));
+  load_demo (w, "medium-cargo.stagewright");
+  gtk_spin_button_set_value (field (w, SW_INSPECTOR_PAYLOAD), 7500.0);
+  g_assert_false (g_file_test (path, G_FILE_TEST_EXISTS));
+  wait_until (file_exists, path, 5000, "the recovery copy");
+  {
+    g_autoptr (SwDesign) copy = sw_design_load (path, NULL, &error);
+    g_assert_no_error (error);
+    g_assert_true (sw_design_equal (copy, sw_document_get_design (sw_window_get_document (w))));
+  }
+  /* A clean close (here: discarding on purpose) removes it. */
+  window_close (w);
+  g_assert_false (g_file_test (path, G_FILE_TEST_EXISTS));
+
+  /* A crash: the copy is left behind. */
+  crashed = sw_design_new_default ();
+  g_strlcpy (crashed->name, "Left behind by a crash", sizeof crashed->name);
+  crashed->payload_kg = 1234.5;
+  {
+    g_autofree char *dir = g_path_get_dirname (path);
+    g_assert_cmpint (g_mkdir_with_parents (dir, 0700), ==, 0);
+  }
+  g_assert_true (sw_design_save (crashed, path, &error));
+  g_assert_no_error (error);
+
+  w = window_new ();
+  g_assert_true (sw_window_get_recovery_offered (w));
+  /* Edits before the answer do not overwrite the copy. */
+  gtk_spin_button_set_value (field (w, SW_INSPECTOR_PAYLOAD), 999.0);
+  sw_window_flush_recovery (w);
+  {
+    g_autoptr (SwDesign) still = sw_design_load (path, NULL, &error);
+    g_assert_no_error (error);
+    g_assert_true (sw_design_equal (still, crashed));
+  }
+  sw_window_answer_recovery (w, TRUE);
+  g_assert_false (sw_window_get_recovery_offered (w));
+  g_assert_true (sw_design_equal (sw_document_get_design (sw_window_get_document (w)), crashed));
+  g_assert_true (sw_document_get_modified (sw_window_get_document (w)));
+  wait_shown (w);
+  g_assert_cmpfloat (sw_window_get_shown_result (w)->design->payload_kg, ==, 1234.5);
+  window_close (w);
+  g_assert_false (g_file_test (path, G_FILE_TEST_EXISTS));
+}
+
+static void
+test_thousand_edits (void)
+{
+  SwWindow *w = window_new ();
+  GtkSpinButton *isp;
+  SwResult *shown;
+  g_autoptr (SwResult) fresh = NULL;
+  g_autofree char *liftoff = NULL;
+  guint64 posted;
+
+  load_demo (w, "medium-cargo.stagewright");
+  isp = field (w, SW_INSPECTOR_ISP_VAC);
+  /* 1,000 edits as fast as the main thread can make them; now and then the
+   * main loop runs so that some results arrive while edits continue. */
+  for (int i = 0; i < 1000; i++)
+    {
+      gtk_spin_button_set_value (isp, 300.0 + (i % 2 == 0 ? i * 0.1 : 50.0 - i * 0.01));
+      if (i % 97 == 0)
+        g_main_context_iteration (NULL, FALSE);
+    }
+  gtk_spin_button_set_value (isp, 333.3);
+  posted = sw_solver_get_posted_serial (sw_window_get_solver (w));
+  wait_shown (w);
+
+  shown = sw_window_get_shown_result (w);
+  g_assert_cmpuint (shown->serial, ==, posted);
+  g_assert_cmpfloat (shown->design->stages[0].isp_vac_s, ==, 333.3);
+  g_assert_true (sw_design_equal (shown->design,
+                                  sw_document_get_design (sw_window_get_document (w))));
+  /* What is shown equals a fresh solve of the last design. */
+  fresh = sw_result_compute (sw_document_get_design (sw_window_get_document (w)), 0, NULL);
+  g_assert_cmpfloat (shown->sizing.liftoff_mass_kg, ==, fresh->sizing.liftoff_mass_kg);
+  liftoff = sw_format_mass (fresh->sizing.liftoff_mass_kg);
+  g_assert_cmpstr (totals_text (w, SW_TOTALS_LIFTOFF), ==, liftoff);
+  g_test_message ("1,001 edits: %" G_GUINT64_FORMAT " requests dropped unsolved",
+                  sw_solver_get_dropped (sw_window_get_solver (w)));
+  window_close (w);
+}
+
+/* The colour of the pixel at @x, @y of an ARGB32 surface. */
+static void
+pixel (cairo_surface_t *s, int x, int y, double *r, double *g, double *b)
+{
+  unsigned char *data = cairo_image_surface_get_data (s);
+  int stride = cairo_image_surface_get_stride (s);
+  guint32 p = *(guint32 *) (data + y * stride + 4 * x);
+
+  *r = ((p >> 16) & 0xff) / 255.0;
+  *g = ((p >> 8) & 0xff) / 255.0;
+  *b = (p & 0xff) / 255.0;
+}
+
+/* Renders @widget at its own size (no scaling); pixel (0, 0) is @origin in
+ * the widget's coordinates. */
+static cairo_surface_t *
+render (GtkWidget *widget, graphene_point_t *origin)
+{
+  g_autoptr (GdkPaintable) paintable = gtk_widget_paintable_new (widget);
+  int w = gdk_paintable_get_intrinsic_width (paintable);
+  int h = gdk_paintable_get_intrinsic_height (paintable);
+  GtkSnapshot *snapshot = gtk_snapshot_new ();
+  g_autoptr (GskRenderNode) node = NULL;
+  cairo_surface_t *surface = cairo_image_surface_create (CAIRO_FORMAT_ARGB32, w, h);
+  cairo_t *cr = cairo_create (surface);
+  graphene_rect_t bounds;
+
+  g_assert_true (gtk_widget_compute_bounds (widget, widget, &bounds));
+  g_assert_cmpint (w, ==, (int) ceilf (bounds.size.width));
+  *origin = bounds.origin;
+  gdk_paintable_snapshot (paintable, snapshot, w, h);
+  node = gtk_snapshot_free_to_node (snapshot);
+  g_assert_nonnull (node);
+  gsk_render_node_draw (node, cr);
+  cairo_destroy (cr);
+  cairo_surface_flush (surface);
+  return surface;
+}
+
+/* The current-design marker is a filled disc in the foreground colour: every
+ * pixel within 3 px of the point the core's numbers give must have it. */
+static void
+assert_marker_at (SwWindow *w, guint which, cairo_surface_t *shot, const graphene_point_t *origin)
+{
+  SwPlot *plot = sw_window_get_plot (w, which);
+  SwResult *r = sw_window_get_shown_result (w);
+  GdkRGBA fg;
+  double x, y, wx, wy;
+  graphene_point_t p;
+
+  G_GNUC_BEGIN_IGNORE_DEPRECATIONS
+  gtk_style_context_get_color (gtk_widget_get_style_context (GTK_WIDGET (plot)), &fg);
+  G_GNUC_END_IGNORE_DEPRECATIONS
+
+  /* Where the core puts the design: its stage count or required delta-v,
+   * and its liftoff mass. */
+  x = which == 0 ? (double) r->sizing.n_stages : r->delta_v_m_s;
+  y = r->sizing.liftoff_mass_kg;
+  g_assert_true (sw_trade_plots_current_point (r, which, &wx, &wy));
+  g_assert_cmpfloat (wx, ==, x);
+  g_assert_cmpfloat (wy, ==, y);
+  g_assert_true (sw_plot_data_to_widget (plot, x, y, &wx, &wy));
+  g_assert_true (gtk_widget_compute_point (GTK_WIDGET (plot), GTK_WIDGET (w),
+                                           &GRAPHENE_POINT_INIT (wx, wy), &p));
+  p.x -= origin->x;
+  p.y -= origin->y;
+  for (int dy = -3; dy <= 3; dy++)
+    for (int dx = -3; dx <= 3; dx++)
+      {
+        double pr, pg, pb;
+        if (dx * dx + dy * dy > 9)
+          continue;
+        pixel (shot, (int) floor (p.x) + dx, (int) floor (p.y) + dy, &pr, &pg, &pb);
+        g_assert_cmpfloat (fabs (pr - fg.red) + fabs (pg - fg.green) + fabs (pb - fg.blue), <,
+                           0.25);
+      }
+}
+
+static void
+test_plots_current (void)
+{
+  SwWindow *w = window_new ();
+  cairo_surface_t *shot;
+  graphene_point_t origin;
+  SwDocument *doc = sw_window_get_document (w);
+  g_autoptr (SwDesign) d = NULL;
+
+  load_demo (w, "small-sat-launcher.stagewright");
+  /* The equal split puts the design off the optimal curves, so the marker
+   * stands alone. */
+  d = sw_document_dup_design (doc);
+  d->split = SW_SPLIT_EQUAL;
+  sw_document_commit (doc, g_steal_pointer (&d), NULL);
+  wait_shown (w);
+  shot = render (GTK_WIDGET (w), &origin);
+  assert_marker_at (w, 0, shot, &origin);
+  assert_marker_at (w, 1, shot, &origin);
+  cairo_surface_destroy (shot);
+  window_close (w);
+}
+
+/* ---- main -------------------------------------------------------------- */
+
+static void
+remove_tree (const char *path)
+{
+  GDir *dir = g_dir_open (path, 0, NULL);
+  const char *name;
+
+  if (dir != NULL)
+    {
+      while ((name = g_dir_read_name (dir)) != NULL)
+        {
+          g_autofree char *child = g_build_filename (path, name, NULL);
+          remove_tree (child);
+        }
+      g_dir_close (dir);
+    }
+  g_remove (path);
+}
+
+int
+main (int argc, char **argv)
+{
+  int status;
+
+  /* Private folders for state (the recovery copy), data (recent files) and
+   * settings; the schema comes from the build folder. */
+  tmp_dir = g_dir_make_tmp ("stagewright-gui-XXXXXX", NULL);
+  g_assert_nonnull (tmp_dir);
+  for (guint i = 0; i < 4; i++)
+    {
+      const char *vars[] = { "XDG_STATE_HOME", "XDG_DATA_HOME", "XDG_CONFIG_HOME",
+                             "XDG_CACHE_HOME" };
+      g_autofree char *dir = g_build_filename (tmp_dir, vars[i], NULL);
+      g_mkdir_with_parents (dir, 0700);
+      g_setenv (vars[i], dir, TRUE);
+    }
+  g_setenv ("GSETTINGS_BACKEND", "memory", TRUE);
+  g_setenv ("GSK_RENDERER", "cairo", TRUE);
+  g_unsetenv ("STAGEWRIGHT_RECOVERY_DIR");
+
+  gtk_test_init (&argc, &argv, NULL);
+
+  g_test_add_func ("/gui/window/builds", test_builds);
+  g_test_add_func ("/gui/window/edit-fields", test_edit_fields);
+  g_test_add_func ("/gui/window/drag-border", test_drag_border);
+  g_test_add_func ("/gui/window/undo-exact", test_undo_exact);
+  g_test_add_func ("/gui/window/save-reopen", test_save_reopen);
+  g_test_add_func ("/gui/window/recovery", test_recovery);
+  g_test_add_func ("/gui/window/thousand-edits", test_thousand_edits);
+  g_test_add_func ("/gui/window/plots-current", test_plots_current);
+
+  status = g_test_run ();
+  remove_tree (tmp_dir);
+  g_free (tmp_dir);
+  return status;
+}
