@@ -169,6 +169,21 @@ test_builds (void)
   g_assert_cmpstr (totals_text (w, SW_TOTALS_LIFTOFF), ==, liftoff);
   /* The inspector shows the first stage of the file. */
   g_assert_cmpfloat (gtk_spin_button_get_value (field (w, SW_INSPECTOR_ISP_VAC)), ==, 338.0);
+  /* An orbit the site cannot reach: the window says which field and why,
+   * shows no numbers, and keeps the selected stage. */
+  sw_inspector_set_selected (sw_window_get_inspector (w), 1);
+  gtk_spin_button_set_value (field (w, SW_INSPECTOR_INCLINATION), 10.0);
+  wait_shown (w);
+  g_assert_false (sw_window_get_shown_result (w)->ok);
+  g_assert_nonnull (strstr (totals_text (w, SW_TOTALS_STATUS), "inclination_deg"));
+  g_assert_cmpstr (totals_text (w, SW_TOTALS_LIFTOFF), ==, SW_NO_VALUE);
+  g_assert_cmpint (sw_inspector_get_selected (sw_window_get_inspector (w)), ==, 1);
+  g_assert_true (sw_document_undo (sw_window_get_document (w)));
+  wait_shown (w);
+  g_assert_true (sw_window_get_shown_result (w)->ok);
+  g_assert_cmpint (sw_stack_view_get_selected (sw_window_get_stack_view (w)), ==, 1);
+  sw_inspector_set_selected (sw_window_get_inspector (w), 0);
+
   /* The spin ranges come from the limits table. */
   {
     double lo, hi;
@@ -222,6 +237,9 @@ test_edit_fields (void)
   gtk_widget_activate_action (GTK_WIDGET (sw_window_get_inspector (w)), "stage.add", NULL);
   wait_shown (w);
   g_assert_cmpuint (sw_document_get_design (doc)->n_stages, ==, 2);
+  /* The new stage is selected, here and in the drawing. */
+  g_assert_cmpint (sw_inspector_get_selected (sw_window_get_inspector (w)), ==, 1);
+  g_assert_cmpint (sw_stack_view_get_selected (sw_window_get_stack_view (w)), ==, 1);
   sw_inspector_set_selected (sw_window_get_inspector (w), 0);
   gtk_spin_button_set_value (field (w, SW_INSPECTOR_SHARE), 30.0);
   wait_shown (w);

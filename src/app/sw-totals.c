@@ -94,8 +94,7 @@ update (SwTotals *self)
   else
     /* A fixed text: a wrapping label that changes costs a relayout of the
      * column on every edit, and the margin is shown above anyway. */
-    set_status (self, "ok", _("Feasible: every stage gives its share of the delta-v and the "
-                              "vehicle closes."));
+    set_status (self, "ok", _("Feasible: every stage gives its share of the delta-v."));
 }
 
 GtkWidget *

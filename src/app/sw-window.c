@@ -124,7 +124,8 @@ update_title (SwWindow *self)
     subtitle = g_strdup (_("Not saved yet"));
   gtk_label_set_text (self->title_label, title);
   gtk_label_set_text (self->subtitle_label, subtitle);
-  gtk_window_set_title (GTK_WINDOW (self), window_title);
+  if (g_strcmp0 (gtk_window_get_title (GTK_WINDOW (self)), window_title) != 0)
+    gtk_window_set_title (GTK_WINDOW (self), window_title);
 }
 
 static void
@@ -155,6 +156,7 @@ solved_cb (SwWindow *self, SwResult *result)
   g_clear_pointer (&self->result, sw_result_unref);
   self->result = sw_result_ref (result);
   sw_stack_view_set_result (self->stack_view, result);
+  sw_stack_view_set_selected (self->stack_view, sw_inspector_get_selected (self->inspector));
   sw_inspector_set_result (self->inspector, result);
   sw_totals_set_result (self->totals, result);
   sw_working_view_set_result (self->working_view, result);
@@ -958,6 +960,9 @@ sw_window_set_ephemeral (SwWindow *self)
   g_return_if_fail (SW_IS_WINDOW (self));
 
   self->ephemeral = TRUE;
+  g_settings_unbind (self, "default-width");
+  g_settings_unbind (self, "default-height");
+  g_settings_unbind (self, "maximized");
   g_clear_handle_id (&self->recovery_timeout, g_source_remove);
   /* Leave an offered copy on disk for the next real session. */
   self->recovery_offered = FALSE;
@@ -987,15 +992,6 @@ sw_window_close_request (GtkWindow *window)
     }
   /* A clean close: the work is saved or was discarded on purpose. */
   remove_recovery (self);
-  if (!self->ephemeral)
-    {
-      int width, height;
-      gtk_window_get_default_size (window, &width, &height);
-      g_settings_set_int (self->settings, "window-width", width);
-      g_settings_set_int (self->settings, "window-height", height);
-      g_settings_set_boolean (self->settings, "window-maximized",
-                              gtk_window_is_maximized (window));
-    }
   return GTK_WINDOW_CLASS (sw_window_parent_class)->close_request (window);
 }
 
@@ -1153,19 +1149,22 @@ sw_window_init (SwWindow *self)
   gtk_widget_init_template (GTK_WIDGET (self));
 
   self->settings = sw_application_settings_new ();
-  gtk_window_set_default_size (GTK_WINDOW (self),
-                               g_settings_get_int (self->settings, "window-width"),
-                               g_settings_get_int (self->settings, "window-height"));
-  if (g_settings_get_boolean (self->settings, "window-maximized"))
-    gtk_window_maximize (GTK_WINDOW (self));
+  g_settings_bind (self->settings, "window-width", self, "default-width",
+                   G_SETTINGS_BIND_DEFAULT);
+  g_settings_bind (self->settings, "window-height", self, "default-height",
+                   G_SETTINGS_BIND_DEFAULT);
+  g_settings_bind (self->settings, "window-maximized", self, "maximized",
+                   G_SETTINGS_BIND_DEFAULT);
 
   self->document = sw_document_new ();
   self->solver = sw_solver_new ();
   g_signal_connect_swapped (self->document, "changed", G_CALLBACK (document_changed_cb), self);
   g_signal_connect_swapped (self->solver, "solved", G_CALLBACK (solved_cb), self);
   sw_inspector_set_document (self->inspector, self->document);
+  /* One way: the stack view may refuse a stage its older result does not
+   * have yet; its clicks come back through "stage-activated". */
   g_object_bind_property (self->inspector, "selected-stage", self->stack_view, "selected-stage",
-                          G_BINDING_SYNC_CREATE | G_BINDING_BIDIRECTIONAL);
+                          G_BINDING_SYNC_CREATE);
   g_signal_connect_swapped (self->inspector, "notify::selected-stage",
                             G_CALLBACK (selected_stage_cb), self);
   selected_stage_cb (self);

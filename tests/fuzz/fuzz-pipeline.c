@@ -1,9 +1,11 @@
 /* SPDX-License-Identifier: GPL-3.0-or-later */
 /* libFuzzer harness: the whole pipeline on any design that loads: sizing,
- * stage-count curve, delta-v sweep and budget.  No output may be NaN where a
+ * stage-count curve, delta-v sweep, budget and, for designs with thrust on an
+ * orbit mission, the guided ascent (libFuzzer's -timeout bounds each input).  No output may be NaN where a
  * number is promised. */
 #include "config.h"
 
+#include "sw-ascent.h"
 #include "sw-budget.h"
 #include "sw-curves.h"
 #include "sw-design.h"
@@ -61,5 +63,19 @@ LLVMFuzzerTestOneInput (const uint8_t *data, size_t size)
       CHECK (sw_design_budget (d, &budget, NULL));
       CHECK (isfinite (budget.delta_v_m_s));
     }
+
+  {
+    g_autoptr (GError) error = NULL;
+    g_autoptr (SwAscentResult) ascent = sw_design_ascent (d, NULL, &error);
+
+    if (ascent == NULL)
+      CHECK (error != NULL && error->message[0] != '\0');
+    else if (ascent->reached_orbit)
+      CHECK (isfinite (ascent->losses_m_s) && isfinite (ascent->gravity_loss_m_s)
+             && isfinite (ascent->drag_loss_m_s) && isfinite (ascent->max_q_pa)
+             && isfinite (ascent->max_axial_g));
+    else
+      CHECK (ascent->reason[0] != '\0');
+  }
   return 0;
 }
