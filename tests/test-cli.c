@@ -532,6 +532,57 @@ test_help (void)
 
 /* bench --json reports positive numbers (timing targets are not asserted:
  * performance is a benchmark, not a test). */
+/* Stage names of many-byte characters, as long as the format allows: every
+ * table cuts them at whole characters, so what the program prints stays
+ * UTF-8 (a cut inside a character made the terminal show garbage and a
+ * pipe into a UTF-8 reader fail). */
+static void
+test_names_stay_utf8 (void)
+{
+  static const char *const commands[][2] = {
+    { "size", NULL }, { "size", "--json" }, { "curve", NULL }, { "ascent", NULL },
+    { "ascent", "--json" }, { "sensitivity", NULL }, { "reliability", NULL },
+  };
+  g_autofree char *path = demo ("medium-cargo.stagewright");
+  g_autofree char *tmp = g_build_filename (g_get_tmp_dir (), "sw-cli-utf8-XXXXXX", NULL);
+  g_autofree char *copy = NULL;
+  g_autoptr (SwDesign) d = NULL;
+  g_autoptr (GError) error = NULL;
+  GString *name = g_string_new (NULL);
+
+  d = sw_design_load (path, NULL, &error);
+  g_assert_no_error (error);
+  /* "€" is three bytes: 42 of them fill 126 of the 127 bytes a name has. */
+  for (int k = 0; k < 42; k++)
+    g_string_append (name, "€");
+  for (guint i = 0; i < d->n_stages; i++)
+    g_strlcpy (d->stages[i].name, name->str, sizeof d->stages[i].name);
+  g_strlcpy (d->name, name->str, sizeof d->name);
+  g_string_free (name, TRUE);
+  g_assert_nonnull (g_mkdtemp (tmp));
+  copy = g_build_filename (tmp, "names.stagewright", NULL);
+  g_assert_true (sw_design_save (d, copy, &error));
+  g_assert_no_error (error);
+
+  for (guint k = 0; k < G_N_ELEMENTS (commands); k++)
+    {
+      Run r;
+
+      if (commands[k][1] != NULL)
+        run_cli (&r, commands[k][0], commands[k][1], copy, NULL);
+      else
+        run_cli (&r, commands[k][0], copy, NULL);
+      g_assert_cmpint (r.code, ==, 0);
+      if (!g_utf8_validate (r.out, -1, NULL) || !g_utf8_validate (r.err, -1, NULL))
+        g_error ("stagewright-cli %s %s printed invalid UTF-8", commands[k][0],
+                 commands[k][1] != NULL ? commands[k][1] : "");
+      g_assert_nonnull (strstr (r.out, "€€€€€€€€€€"));
+      run_clear (&r);
+    }
+  g_remove (copy);
+  g_rmdir (tmp);
+}
+
 static void
 test_bench_json (void)
 {
@@ -572,6 +623,7 @@ main (int argc, char **argv)
   g_test_add_func ("/cli/exit-codes", test_exit_codes);
   g_test_add_func ("/cli/help", test_help);
   g_test_add_func ("/cli/bench-json", test_bench_json);
+  g_test_add_func ("/cli/names-stay-utf8", test_names_stay_utf8);
 
   ret = g_test_run ();
   g_regex_unref (nan_re);

@@ -70,6 +70,34 @@ test_linear_mapping (void)
   gtk_window_destroy (GTK_WINDOW (window));
 }
 
+/* A series whose values differ only in the last bits (a flat curve after
+ * rounding) gets a readable axis around it; it once made the tick loop run
+ * for ever. */
+static void
+test_flat_series (void)
+{
+  static const double x[] = { 1.0, 2.0, 3.0 };
+  double y[3] = { 0.24, 0.24, 0.24 };
+  GtkWidget *plot, *window;
+  double w0, w1;
+
+  y[1] = nextafter (y[0], 1.0);
+  y[2] = nextafter (y[1], 1.0);
+  for (int log_scale = 0; log_scale < 2; log_scale++)
+    {
+      plot = sw_plot_new ();
+      sw_plot_set_y_axis (SW_PLOT (plot), "y", log_scale);
+      sw_plot_add_series (SW_PLOT (plot), "flat", x, y, 3, SW_PLOT_LINE, -1);
+      window = show_plot (plot);
+      g_assert_true (sw_plot_data_to_widget (SW_PLOT (plot), 1.0, y[0], NULL, &w0));
+      g_assert_true (sw_plot_data_to_widget (SW_PLOT (plot), 1.0, 0.25, NULL, &w1));
+      /* The range is widened to a tenth (linear) or a factor of two (log)
+       * around the value: 0.25 lies above it within the plot. */
+      g_assert_cmpfloat (w1, <, w0);
+      gtk_window_destroy (GTK_WINDOW (window));
+    }
+}
+
 static void
 test_log_decades (void)
 {
@@ -295,6 +323,7 @@ main (int argc, char **argv)
   gtk_test_init (&argc, &argv, NULL);
 
   g_test_add_func ("/gui/plot/linear-mapping", test_linear_mapping);
+  g_test_add_func ("/gui/plot/flat-series", test_flat_series);
   g_test_add_func ("/gui/plot/log-decades", test_log_decades);
   g_test_add_func ("/gui/plot/points-drawn", test_points_drawn);
   g_test_add_func ("/gui/plot/line-breaks", test_line_breaks);

@@ -9,15 +9,29 @@
 #include "sw-window-private.h"
 
 #include <glib/gi18n.h>
+#include <math.h>
+#include <stdio.h>
+#include <string.h>
 
 /* A screenshot that has not been drawn by then has failed. */
 #define SCREENSHOT_TIMEOUT_S 60
+/* The same for the hidden test options (slow under sanitizers). */
+#define TEST_SCRIPT_TIMEOUT_S 120
 
 struct _SwApplication {
   GtkApplication parent_instance;
   char          *screenshot;       /* --screenshot=FILE */
+  char          *page;             /* --page=NAME */
+  int            shot_width;       /* --screenshot-size=WxH */
+  int            shot_height;
   int            exit_status;
   guint          screenshot_timeout;
+  /* Hidden options for the end-to-end tests (tests/test-recovery-kill.c). */
+  char         **test_edits;       /* --test-edit=FIELD=VALUE, in order */
+  gboolean       test_edits_done;
+  gboolean       test_restore;     /* --test-restore: accept a recovery offer */
+  char          *test_dump;        /* --test-dump=FILE */
+  guint          test_timeout;
 };
 
 G_DEFINE_FINAL_TYPE (SwApplication, sw_application, GTK_TYPE_APPLICATION)
@@ -152,6 +166,11 @@ screenshot_drawn_cb (SwWindow *window, guint64 serial, SwApplication *self)
   /* The first result of the design as loaded, not of the placeholder. */
   if (serial < sw_solver_get_posted_serial (sw_window_get_solver (window)))
     return;
+  /* With an ascent or a Monte Carlo on the way, the picture waits for it. */
+  if (sw_window_get_shown_result (window) != NULL
+      && (sw_window_get_shown_result (window)->ascent_pending
+          || sw_window_get_shown_result (window)->montecarlo_pending))
+    return;
   g_signal_handlers_disconnect_by_func (window, screenshot_drawn_cb, self);
   g_clear_handle_id (&self->screenshot_timeout, g_source_remove);
   if (!sw_application_write_png (GTK_WIDGET (window), self->screenshot, &error))
@@ -171,7 +190,7 @@ start_screenshot (SwApplication *self, GFile *file)
 
   sw_window_set_ephemeral (window);
   gtk_window_unmaximize (GTK_WINDOW (window));
-  gtk_window_set_default_size (GTK_WINDOW (window), 1280, 800);
+  gtk_window_set_default_size (GTK_WINDOW (window), self->shot_width, self->shot_height);
   if (file != NULL)
     ok = sw_window_load (window, file);
   else
@@ -187,10 +206,134 @@ start_screenshot (SwApplication *self, GFile *file)
       gtk_window_destroy (GTK_WINDOW (window));
       return;
     }
+  if (self->page != NULL && !sw_window_show_page (window, self->page))
+    {
+      g_autofree char *message = g_strdup_printf (_("--page=%s: no such page (curves, working, "
+                                                    "ascent, trade)"), self->page);
+      screenshot_failed (self, message);
+      gtk_window_destroy (GTK_WINDOW (window));
+      return;
+    }
   g_signal_connect (window, "result-drawn", G_CALLBACK (screenshot_drawn_cb), self);
   self->screenshot_timeout = g_timeout_add_seconds (SCREENSHOT_TIMEOUT_S, screenshot_timeout_cb,
                                                     self);
   gtk_window_present (GTK_WINDOW (window));
+}
+
+/* ---- hidden test options ----------------------------------------------- */
+
+/* These drive the real binary from tests/test-recovery-kill.c: accept the
+ * recovery offer, make edits through the inspector's own fields once the
+ * design is shown, write the design out once their result is drawn. */
+
+static gboolean
+test_script_active (SwApplication *self)
+{
+  return self->test_edits != NULL || self->test_restore || self->test_dump != NULL;
+}
+
+static void
+test_script_failed (SwApplication *self, SwWindow *window, const char *message)
+{
+  g_printerr ("stagewright: %s\n", message);
+  self->exit_status = 1;
+  g_clear_handle_id (&self->test_timeout, g_source_remove);
+  if (window != NULL)
+    sw_window_close_discarding (window);
+  g_application_quit (G_APPLICATION (self));
+}
+
+static gboolean
+test_timeout_cb (gpointer data)
+{
+  SwApplication *self = data;
+
+  self->test_timeout = 0;
+  test_script_failed (self, NULL, "the test options timed out");
+  return G_SOURCE_REMOVE;
+}
+
+/* FIELD=VALUE: a spin button of the inspector set as a user would, or
+ * stage=N to select a stage first. */
+static gboolean
+apply_test_edit (SwWindow *window, const char *edit, GError **error)
+{
+  static const struct { const char *key; SwInspectorField field; } fields[] = {
+    { "payload_kg", SW_INSPECTOR_PAYLOAD }, { "delta_v_m_s", SW_INSPECTOR_DELTA_V },
+    { "altitude_km", SW_INSPECTOR_ALTITUDE }, { "inclination_deg", SW_INSPECTOR_INCLINATION },
+    { "site_latitude_deg", SW_INSPECTOR_LATITUDE }, { "losses_m_s", SW_INSPECTOR_LOSSES },
+    { "isp_vac_s", SW_INSPECTOR_ISP_VAC }, { "isp_sl_s", SW_INSPECTOR_ISP_SL },
+  };
+  SwInspector *inspector = sw_window_get_inspector (window);
+  g_auto (GStrv) kv = g_strsplit (edit, "=", 2);
+  char *end = NULL;
+  double value = kv[0] != NULL && kv[1] != NULL ? g_ascii_strtod (kv[1], &end) : NAN;
+
+  if (end != NULL && end != kv[1] && *end == '\0' && isfinite (value))
+    {
+      if (strcmp (kv[0], "stage") == 0)
+        {
+          sw_inspector_set_selected (inspector, (int) value);
+          return TRUE;
+        }
+      for (guint i = 0; i < G_N_ELEMENTS (fields); i++)
+        if (strcmp (kv[0], fields[i].key) == 0)
+          {
+            GtkWidget *spin = sw_inspector_get_field (inspector, fields[i].field);
+            gtk_spin_button_set_value (GTK_SPIN_BUTTON (spin), value);
+            return TRUE;
+          }
+    }
+  g_set_error (error, G_OPTION_ERROR, G_OPTION_ERROR_BAD_VALUE,
+               "--test-edit=%s: expected FIELD=NUMBER (payload_kg, delta_v_m_s, altitude_km, "
+               "inclination_deg, site_latitude_deg, losses_m_s, isp_vac_s, isp_sl_s, stage)",
+               edit);
+  return FALSE;
+}
+
+static void
+test_script_drawn_cb (SwWindow *window, guint64 serial, SwApplication *self)
+{
+  SwSolver *solver = sw_window_get_solver (window);
+  const SwDesign *design;
+  SwResult *shown;
+  g_autoptr (GError) error = NULL;
+
+  if (serial < sw_solver_get_posted_serial (solver))
+    return;
+  if (!self->test_edits_done)
+    {
+      self->test_edits_done = TRUE;
+      for (guint i = 0; self->test_edits != NULL && self->test_edits[i] != NULL; i++)
+        if (!apply_test_edit (window, self->test_edits[i], &error))
+          {
+            test_script_failed (self, window, error->message);
+            return;
+          }
+      if (serial < sw_solver_get_posted_serial (solver))
+        return;  /* wait for the result of the edits */
+    }
+  g_signal_handlers_disconnect_by_func (window, test_script_drawn_cb, self);
+  g_clear_handle_id (&self->test_timeout, g_source_remove);
+  if (self->test_dump == NULL)
+    return;  /* keep running: the test kills the process */
+  design = sw_document_get_design (sw_window_get_document (window));
+  shown = sw_window_get_shown_result (window);
+  if (shown == NULL || !sw_design_equal (shown->design, design))
+    test_script_failed (self, window, "the result shown is not of the design being edited");
+  else if (!sw_design_save (design, self->test_dump, &error))
+    test_script_failed (self, window, error->message);
+  else
+    sw_window_close_discarding (window);
+}
+
+static void
+start_test_script (SwApplication *self, SwWindow *window)
+{
+  if (self->test_restore && sw_window_get_recovery_offered (window))
+    sw_window_answer_recovery (window, TRUE);
+  g_signal_connect (window, "result-drawn", G_CALLBACK (test_script_drawn_cb), self);
+  self->test_timeout = g_timeout_add_seconds (TEST_SCRIPT_TIMEOUT_S, test_timeout_cb, self);
 }
 
 /* ---- app actions ------------------------------------------------------- */
@@ -245,8 +388,28 @@ sw_application_handle_local_options (GApplication *app, GVariantDict *options)
       g_print ("stagewright %s\n", PACKAGE_VERSION);
       return 0;
     }
-  if (g_variant_dict_lookup (options, "screenshot", "^ay", &self->screenshot))
-    /* A screenshot runs on its own, never in an instance already running. */
+  g_variant_dict_lookup (options, "screenshot", "^ay", &self->screenshot);
+  g_variant_dict_lookup (options, "page", "s", &self->page);
+  if (g_variant_dict_contains (options, "screenshot-size"))
+    {
+      g_autofree char *size = NULL;
+      g_variant_dict_lookup (options, "screenshot-size", "s", &size);
+      /* A projector's 1920x1080 or a small laptop's 1024x640. */
+      if (sscanf (size, "%dx%d", &self->shot_width, &self->shot_height) != 2
+          || self->shot_width < 800 || self->shot_width > 3840
+          || self->shot_height < 600 || self->shot_height > 2160)
+        {
+          g_printerr (_("stagewright: --screenshot-size=%s: expected WIDTHxHEIGHT, 800x600 to "
+                        "3840x2160\n"), size);
+          return 2;
+        }
+    }
+  g_variant_dict_lookup (options, "test-edit", "^as", &self->test_edits);
+  g_variant_dict_lookup (options, "test-restore", "b", &self->test_restore);
+  g_variant_dict_lookup (options, "test-dump", "^ay", &self->test_dump);
+  if (self->screenshot != NULL || test_script_active (self))
+    /* A screenshot or a test runs on its own, never in an instance already
+     * running. */
     g_application_set_flags (app, g_application_get_flags (app) | G_APPLICATION_NON_UNIQUE);
   return -1;
 }
@@ -286,6 +449,10 @@ sw_application_activate (GApplication *app)
     {
       window = GTK_WINDOW (sw_window_new (GTK_APPLICATION (app)));
       open_first_design (self, SW_WINDOW (window));
+      if (self->page != NULL)
+        sw_window_show_page (SW_WINDOW (window), self->page);
+      if (test_script_active (self))
+        start_test_script (self, SW_WINDOW (window));
     }
   gtk_window_present (window);
 }
@@ -304,6 +471,10 @@ sw_application_open (GApplication *app, GFile **files, int n_files, const char *
     {
       SwWindow *window = replaceable_window (self);
       sw_window_load (window, files[i]);
+      if (self->page != NULL)
+        sw_window_show_page (window, self->page);
+      if (i == 0 && test_script_active (self))
+        start_test_script (self, window);
       gtk_window_present (GTK_WINDOW (window));
     }
 }
@@ -314,7 +485,11 @@ sw_application_finalize (GObject *object)
   SwApplication *self = SW_APPLICATION (object);
 
   g_clear_handle_id (&self->screenshot_timeout, g_source_remove);
+  g_clear_handle_id (&self->test_timeout, g_source_remove);
   g_free (self->screenshot);
+  g_free (self->page);
+  g_strfreev (self->test_edits);
+  g_free (self->test_dump);
   G_OBJECT_CLASS (sw_application_parent_class)->finalize (object);
 }
 
@@ -334,11 +509,21 @@ sw_application_class_init (SwApplicationClass *klass)
 static void
 sw_application_init (SwApplication *self)
 {
+  self->shot_width = 1280;
+  self->shot_height = 800;
   const GOptionEntry options[] = {
     { "screenshot", 0, 0, G_OPTION_ARG_FILENAME, NULL,
       N_("Draw the main window at 1280×800 once the design is sized, write it to FILE as "
          "PNG and quit"), N_("FILE") },
+    { "screenshot-size", 0, 0, G_OPTION_ARG_STRING, NULL,
+      N_("The window size for --screenshot instead of 1280×800"), N_("WIDTHxHEIGHT") },
+    { "page", 0, 0, G_OPTION_ARG_STRING, NULL,
+      N_("Show PAGE first: curves, working, ascent or trade"), N_("PAGE") },
     { "version", 0, 0, G_OPTION_ARG_NONE, NULL, N_("Print the version and quit"), NULL },
+    /* For tests/test-recovery-kill.c only: not shown in --help. */
+    { "test-edit", 0, G_OPTION_FLAG_HIDDEN, G_OPTION_ARG_STRING_ARRAY, NULL, NULL, NULL },
+    { "test-restore", 0, G_OPTION_FLAG_HIDDEN, G_OPTION_ARG_NONE, NULL, NULL, NULL },
+    { "test-dump", 0, G_OPTION_FLAG_HIDDEN, G_OPTION_ARG_FILENAME, NULL, NULL, NULL },
     { NULL }
   };
 

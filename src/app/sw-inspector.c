@@ -136,6 +136,25 @@ commit (SwInspector *self, SwDesign *edited, const char *merge_key)
   sw_document_commit (self->document, edited, merge_key);
 }
 
+/* Copies whole characters of @text that fit in @size bytes: a name cut
+ * inside a character would not be UTF-8, and the loader rejects such a
+ * file. */
+static void
+copy_name (char *dest, gsize size, const char *text)
+{
+  const char *end = text;
+
+  while (*end != '\0')
+    {
+      const char *next = g_utf8_next_char (end);
+      if ((gsize) (next - text) >= size)
+        break;
+      end = next;
+    }
+  memcpy (dest, text, (gsize) (end - text));
+  dest[end - text] = '\0';
+}
+
 static char *
 stage_key (SwInspector *self, const char *field)
 {
@@ -443,7 +462,7 @@ name_changed_cb (SwInspector *self, GtkEditable *entry)
   if (!editing_ok (self))
     return;
   d = sw_document_dup_design (self->document);
-  g_strlcpy (d->name, gtk_editable_get_text (entry), sizeof d->name);
+  copy_name (d->name, sizeof d->name, gtk_editable_get_text (entry));
   commit (self, g_steal_pointer (&d), "name");
 }
 
@@ -547,8 +566,8 @@ stage_name_changed_cb (SwInspector *self, GtkEditable *entry)
   if (!stage_ok (self))
     return;
   d = sw_document_dup_design (self->document);
-  g_strlcpy (d->stages[self->selected].name, gtk_editable_get_text (entry),
-             sizeof d->stages[self->selected].name);
+  copy_name (d->stages[self->selected].name, sizeof d->stages[self->selected].name,
+             gtk_editable_get_text (entry));
   key = stage_key (self, "name");
   commit (self, g_steal_pointer (&d), key);
 }
@@ -714,8 +733,11 @@ stage_duplicate_action (GtkWidget *widget, const char *name, GVariant *param)
   d = sw_document_dup_design (self->document);
   sel = (guint) self->selected;
   copy = d->stages[sel];
-  /* Translators: name of a duplicated stage; %s is the original's name */
-  g_snprintf (copy.name, sizeof copy.name, _("%s (copy)"), d->stages[sel].name);
+  {
+    /* Translators: name of a duplicated stage; %s is the original's name */
+    g_autofree char *copy_of = g_strdup_printf (_("%s (copy)"), d->stages[sel].name);
+    copy_name (copy.name, sizeof copy.name, copy_of);
+  }
   memmove (&d->stages[sel + 2], &d->stages[sel + 1],
            (d->n_stages - sel - 1) * sizeof d->stages[0]);
   d->stages[sel + 1] = copy;

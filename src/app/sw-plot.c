@@ -691,7 +691,10 @@ axis_compute (SwPlot *self, Axis *axis, const Extent *e, double p0, double p1,
       a = b;
       b = t;
     }
-  if (b <= a)
+  /* Ends that differ only by rounding (a flat curve) are one value: a tick
+   * step that small would leave k * minor below unchanged by k++ and the
+   * tick loop would never end. */
+  if (b - a <= 1e-9 * MAX (fabs (a), fabs (b)))
     {
       if (axis->log)
         {

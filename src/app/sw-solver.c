@@ -5,6 +5,13 @@
 
 #include "sw-solver.h"
 
+/* The Monte Carlo starts only after this long without a newer request: it
+ * cannot be interrupted, and a drag must not wait for it. */
+#define MONTECARLO_DELAY_MS 150
+/* The same for the ascent, which a newer request does cancel (see
+ * solve_ascent). */
+#define ASCENT_DELAY_MS 60
+
 /* State shared by the object and its thread.  The thread never touches the
  * GObject: it reaches the owner only through a weak reference, and only on
  * the owner's main context. */
@@ -16,7 +23,10 @@ typedef struct {
   guint64       pending_serial;
   GCancellable *pending_cancellable;
   GCancellable *running;            /* cancellable of the request being solved */
+  SwSolveOptions options;           /* settings for the next request */
   guint64       dropped;
+  guint64       ascents_started;
+  guint64       ascents_cancelled;  /* started, then abandoned for a newer request */
   GWeakRef      owner;
   GMainContext *context;
 } Shared;
@@ -26,7 +36,7 @@ struct _SwSolver {
   Shared   *shared;
   GThread  *thread;
   guint64   serial;                 /* last posted */
-  guint64   shown;                  /* serial of the last result emitted */
+  guint64   shown;                  /* rank of the last result emitted (result_rank) */
   SwResult *result;
 };
 
@@ -76,6 +86,14 @@ delivery_free (gpointer data)
   g_free (d);
 }
 
+/* Results in the order they may be shown: by serial, and within one serial
+ * by phase: the fast one, the Monte Carlo, the ascent. */
+static guint64
+result_rank (const SwResult *r)
+{
+  return 4 * r->serial + r->phase;
+}
+
 /* Main loop: hand the result to the owner if it still exists and the
  * result is newer than what it shows. */
 static gboolean
@@ -84,13 +102,88 @@ deliver_cb (gpointer data)
   Delivery *d = data;
   g_autoptr (SwSolver) self = g_weak_ref_get (&d->shared->owner);
 
-  if (self == NULL || d->result->serial <= self->shown)
+  if (self == NULL || result_rank (d->result) <= self->shown)
     return G_SOURCE_REMOVE;
-  self->shown = d->result->serial;
+  self->shown = result_rank (d->result);
   g_clear_pointer (&self->result, sw_result_unref);
   self->result = sw_result_ref (d->result);
   g_signal_emit (self, signals[SOLVED], 0, d->result);
   return G_SOURCE_REMOVE;
+}
+
+/* An idle source on the owner's context, never g_main_context_invoke():
+ * that would run the callback right here in the worker whenever the worker
+ * can acquire the default context.  Takes @result. */
+static void
+deliver (Shared *sh, SwResult *result)
+{
+  Delivery *d = g_new0 (Delivery, 1);
+  GSource *source;
+
+  d->shared = shared_ref (sh);
+  d->result = result;
+  source = g_idle_source_new ();
+  g_source_set_priority (source, G_PRIORITY_DEFAULT);
+  g_source_set_callback (source, deliver_cb, d, delivery_free);
+  g_source_set_static_name (source, "[stagewright] solver result");
+  g_source_attach (source, sh->context);
+  g_source_unref (source);
+}
+
+/* The Monte Carlo phase, once no newer request has come for a moment.
+ * Returns the new result (delivered, and a reference for the caller) or
+ * NULL when superseded or cancelled. */
+static SwResult *
+solve_montecarlo (Shared *sh, SwResult *fast, const SwSolveOptions *options,
+                  GCancellable *cancellable)
+{
+  SwResult *result;
+  gboolean superseded;
+  gint64 until = g_get_monotonic_time () + MONTECARLO_DELAY_MS * G_TIME_SPAN_MILLISECOND;
+
+  g_mutex_lock (&sh->mutex);
+  while (sh->pending == NULL && !sh->quit && g_cond_wait_until (&sh->cond, &sh->mutex, until))
+    ;
+  superseded = sh->pending != NULL || sh->quit;
+  g_mutex_unlock (&sh->mutex);
+  if (superseded || g_cancellable_is_cancelled (cancellable))
+    return NULL;
+  result = sw_result_compute_montecarlo (fast, options, cancellable);
+  if (result != NULL)
+    deliver (sh, sw_result_ref (result));
+  return result;
+}
+
+/* The second phase: the ascent, once no newer request has come for a
+ * moment.  The core checks the cancellable only every few trajectories, so
+ * an ascent started between the edits of a drag would delay the next
+ * sizing by milliseconds; waiting keeps the worker free for it. */
+static void
+solve_ascent (Shared *sh, SwResult *fast, GCancellable *cancellable)
+{
+  SwResult *result;
+  gboolean superseded;
+  gint64 until = g_get_monotonic_time () + ASCENT_DELAY_MS * G_TIME_SPAN_MILLISECOND;
+
+  g_mutex_lock (&sh->mutex);
+  while (sh->pending == NULL && !sh->quit && g_cond_wait_until (&sh->cond, &sh->mutex, until))
+    ;
+  superseded = sh->pending != NULL || sh->quit;
+  g_mutex_unlock (&sh->mutex);
+  if (superseded || g_cancellable_is_cancelled (cancellable))
+    return;
+  g_mutex_lock (&sh->mutex);
+  sh->ascents_started++;
+  g_mutex_unlock (&sh->mutex);
+  result = sw_result_compute_ascent (fast, cancellable);
+  if (result != NULL)
+    deliver (sh, result);
+  else
+    {
+      g_mutex_lock (&sh->mutex);
+      sh->ascents_cancelled++;
+      g_mutex_unlock (&sh->mutex);
+    }
 }
 
 static gpointer
@@ -102,10 +195,9 @@ worker_thread (gpointer data)
     {
       g_autoptr (SwDesign) design = NULL;
       g_autoptr (GCancellable) cancellable = NULL;
-      SwResult *result;
+      g_autoptr (SwResult) result = NULL;
+      SwSolveOptions options;
       guint64 serial;
-      Delivery *d;
-      GSource *source;
 
       g_mutex_lock (&sh->mutex);
       while (!sh->quit && sh->pending == NULL)
@@ -118,30 +210,33 @@ worker_thread (gpointer data)
       design = g_steal_pointer (&sh->pending);
       serial = sh->pending_serial;
       cancellable = g_steal_pointer (&sh->pending_cancellable);
+      options = sh->options;
       g_set_object (&sh->running, cancellable);
       g_mutex_unlock (&sh->mutex);
 
-      result = sw_result_compute (design, serial, cancellable);
+      result = sw_result_compute_with (design, serial, &options, cancellable);
+      /* The sizing first, within the frame; then the ascent, which a newer
+       * request cancels through the same cancellable. */
+      if (result != NULL)
+        {
+          deliver (sh, sw_result_ref (result));
+          if (result->montecarlo_pending)
+            {
+              SwResult *mc = solve_montecarlo (sh, result, &options, cancellable);
+              /* The ascent copies the newest result, so it keeps the Monte Carlo. */
+              if (mc != NULL)
+                {
+                  sw_result_unref (result);
+                  result = mc;
+                }
+            }
+          if (result->ascent_pending)
+            solve_ascent (sh, result, cancellable);
+        }
 
       g_mutex_lock (&sh->mutex);
       g_clear_object (&sh->running);
       g_mutex_unlock (&sh->mutex);
-
-      if (result == NULL)
-        continue;  /* abandoned for a newer request */
-
-      /* An idle source on the owner's context, never g_main_context_invoke():
-       * that would run the callback right here in the worker whenever the
-       * worker can acquire the default context. */
-      d = g_new0 (Delivery, 1);
-      d->shared = shared_ref (sh);
-      d->result = result;
-      source = g_idle_source_new ();
-      g_source_set_priority (source, G_PRIORITY_DEFAULT);
-      g_source_set_callback (source, deliver_cb, d, delivery_free);
-      g_source_set_static_name (source, "[stagewright] solver result");
-      g_source_attach (source, sh->context);
-      g_source_unref (source);
     }
   shared_unref (sh);
   return NULL;
@@ -183,6 +278,39 @@ sw_solver_get_result (SwSolver *self)
 {
   g_return_val_if_fail (SW_IS_SOLVER (self), NULL);
   return self->result;
+}
+
+void
+sw_solver_set_options (SwSolver *self, const SwSolveOptions *options)
+{
+  g_return_if_fail (SW_IS_SOLVER (self));
+  g_return_if_fail (options != NULL);
+
+  g_mutex_lock (&self->shared->mutex);
+  self->shared->options = *options;
+  g_mutex_unlock (&self->shared->mutex);
+}
+
+void
+sw_solver_get_options (SwSolver *self, SwSolveOptions *options)
+{
+  g_return_if_fail (SW_IS_SOLVER (self));
+
+  g_mutex_lock (&self->shared->mutex);
+  *options = self->shared->options;
+  g_mutex_unlock (&self->shared->mutex);
+}
+
+void
+sw_solver_get_ascent_counts (SwSolver *self, guint64 *started, guint64 *cancelled)
+{
+  g_return_if_fail (SW_IS_SOLVER (self));
+  g_mutex_lock (&self->shared->mutex);
+  if (started != NULL)
+    *started = self->shared->ascents_started;
+  if (cancelled != NULL)
+    *cancelled = self->shared->ascents_cancelled;
+  g_mutex_unlock (&self->shared->mutex);
 }
 
 guint64
@@ -253,6 +381,7 @@ sw_solver_init (SwSolver *self)
   Shared *sh = g_atomic_rc_box_new0 (Shared);
 
   g_mutex_init (&sh->mutex);
+  sw_solve_options_init (&sh->options);
   g_cond_init (&sh->cond);
   g_weak_ref_init (&sh->owner, self);
   sh->context = g_main_context_ref_thread_default ();

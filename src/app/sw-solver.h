@@ -21,10 +21,21 @@ guint64   sw_solver_post (SwSolver *self, const SwDesign *design);
 guint64   sw_solver_get_posted_serial (SwSolver *self);
 /* The newest result emitted, or NULL. */
 SwResult *sw_solver_get_result (SwSolver *self);
+/* Settings that are not part of the design (the sensitivity step): they
+ * apply from the next post on. */
+void      sw_solver_set_options (SwSolver *self, const SwSolveOptions *options);
+void      sw_solver_get_options (SwSolver *self, SwSolveOptions *options);
 /* Requests replaced before the worker started them, for tests and benchmarks. */
 guint64   sw_solver_get_dropped (SwSolver *self);
+/* Ascents the worker began, and those a newer request cancelled part way
+ * (for tests). */
+void      sw_solver_get_ascent_counts (SwSolver *self, guint64 *started, guint64 *cancelled);
 
 /* Signal "solved" (SwResult *result): emitted on the main loop of the thread
- * that created the solver, with serials strictly increasing. */
+ * that created the solver, with serials never decreasing.  When a design can
+ * be flown, one serial is emitted twice: the fast phase with ascent_pending,
+ * then a new result with the simulated ascent (unless a newer edit cancelled
+ * it).  A design with spreads gets a result with the Monte Carlo in between
+ * (montecarlo_pending in the fast one); result->phase orders them. */
 
 G_END_DECLS

@@ -17,6 +17,7 @@
 #define BORDER_GRAB 5.0        /* how far from a border a drag may start */
 #define MIN_HIT 10.0           /* hit area of tiny blocks */
 #define LABEL_SPACING 6.0
+#define BASELINE_GAP 18.0      /* between the baseline's outline and the stack */
 
 typedef enum {
   ITEM_STAGE,      /* sized: area proportional to mass */
@@ -60,6 +61,14 @@ struct _SwStackView {
   double     scale_ref_kg;
   double     top_y;                      /* below the legend (and message) */
   double     bottom_y;                   /* above the scale row */
+
+  /* The pinned baseline: outlines beside the stack at the same scale,
+   * bottom (first stage) to top (payload); n_base 0 when not drawn. */
+  guint      n_base;
+  graphene_rect_t base_rects[SW_MAX_STAGES + 1];
+  PangoLayout *base_caption;
+  double     base_caption_x;
+  double     base_caption_y;
 
   /* Dragging a border */
   int        drag_lower;
@@ -191,6 +200,8 @@ clear_layout (SwStackView *self)
   for (guint i = 0; i < G_N_ELEMENTS (self->items); i++)
     g_clear_object (&self->items[i].label);
   g_clear_object (&self->message);
+  g_clear_object (&self->base_caption);
+  self->n_base = 0;
   self->n_items = 0;
   self->layout_valid = FALSE;
 }
@@ -202,6 +213,36 @@ make_label (SwStackView *self, const char *markup)
 
   pango_layout_set_markup (layout, markup, -1);
   return layout;
+}
+
+/* Thrust-to-weight at ignition, computed on the worker: as flown when the
+ * result has the ascent (fairing and ambient pressure included), else from
+ * the sized masses (SwResult's stage figures).  A line of its own, or
+ * " · T/W 1.45" when @compact; "" when the design has no thrust. */
+static double
+stage_tw (SwResult *r, int stage)
+{
+  if (r == NULL || stage < 0 || stage >= SW_MAX_STAGES)
+    return NAN;
+  if (r->ascent != NULL && (guint) stage < r->ascent->n_stages && r->ascent->stages[stage].flown)
+    return r->ascent->stages[stage].ignition_thrust_to_weight;
+  if (r->has_stage_figures && r->stage_figures[stage].fires)
+    return r->stage_figures[stage].ignition_thrust_to_weight;
+  return NAN;
+}
+
+static char *
+stage_tw_text (SwResult *r, int stage, gboolean compact)
+{
+  double tw = stage_tw (r, stage);
+
+  if (!isfinite (tw))
+    return g_strdup ("");
+  if (compact)
+    /* Translators: appended to a stage's label: thrust-to-weight at ignition */
+    return g_strdup_printf (_(" · T/W %.2f"), tw);
+  /* Translators: the last line of a stage's label: thrust-to-weight at ignition */
+  return g_strdup_printf (_("\nT/W %.2f at ignition"), tw);
 }
 
 static char *
@@ -253,9 +294,15 @@ item_label_markup (SwStackView *self, const Item *item, gboolean compact)
     case ITEM_STAGE:
     case ITEM_PAYLOAD:
     default:
-      if (compact)
-        return g_strdup_printf (_("%s · %s · Δv %s"), title, mass, dv);
-      return g_strdup_printf (_("%s\n%s · Δv %s\nmass ratio %s"), title, mass, dv, ratio);
+      {
+        g_autofree char *tw = stage_tw_text (r, item->stage, compact);
+        g_autofree char *base = NULL;
+        if (compact)
+          base = g_strdup_printf (_("%s · %s · Δv %s"), title, mass, dv);
+        else
+          base = g_strdup_printf (_("%s\n%s · Δv %s\nmass ratio %s"), title, mass, dv, ratio);
+        return g_strconcat (base, tw, NULL);
+      }
     }
 }
 
@@ -364,6 +411,25 @@ legend_height (SwStackView *self)
   return h + 8.0;
 }
 
+/* The pinned baseline's blocks in kg, bottom to top, the payload last;
+ * none when there is no baseline or it does not close. */
+static guint
+baseline_masses (SwResult *r, double *mass)
+{
+  const SwSizing *b;
+  guint n = 0;
+
+  if (r == NULL || !r->ok || !r->has_baseline || !r->baseline_ok
+      || !r->baseline_sizing.feasible)
+    return 0;
+  b = &r->baseline_sizing;
+  for (guint i = 0; i < b->n_stages && i < SW_MAX_STAGES; i++)
+    if (!b->stages[i].unused && b->stages[i].stage_mass_kg > 0.0)
+      mass[n++] = b->stages[i].stage_mass_kg;
+  mass[n++] = b->payload_kg;
+  return n;
+}
+
 static void
 stack_layout (SwStackView *self, int width, int height)
 {
@@ -372,6 +438,9 @@ stack_layout (SwStackView *self, int width, int height)
   double legend_h, top, bottom, label_w, max_label_w, avail_w, avail_h;
   double sum_sqrt = 0.0, max_sqrt = 0.0, fixed_h = 0.0;
   double s, aspect, x_axis, y, max_w = 0.0;
+  double base_mass[SW_MAX_STAGES + 1], base_sum = 0.0, base_max = 0.0, base_avail_h = 0.0;
+  double base_w = 0.0;
+  guint n_base = 0;
   gboolean to_scale;
 
   clear_layout (self);
@@ -464,13 +533,49 @@ stack_layout (SwStackView *self, int width, int height)
     }
   avail_h -= fixed_h;
 
+  /* The baseline stands beside the stack: it shares the width, and the
+   * scale must fit its height too. */
+  n_base = to_scale ? baseline_masses (r, base_mass) : 0;
+  if (n_base > 0)
+    {
+      g_autofree char *mass = format_mass (r->baseline_sizing.liftoff_mass_kg);
+      g_autofree char *markup = g_markup_printf_escaped (_("<b>Baseline</b>\n%s"), mass);
+      int ch;
+
+      self->base_caption = make_label (self, markup);
+      pango_layout_set_alignment (self->base_caption, PANGO_ALIGN_CENTER);
+      pango_layout_get_pixel_size (self->base_caption, NULL, &ch);
+      base_avail_h = bottom - top - BLOCK_GAP * (n_base - 1) - ch - 4.0;
+      for (guint i = 0; i < n_base; i++)
+        {
+          base_sum += sqrt (base_mass[i]);
+          base_max = MAX (base_max, sqrt (base_mass[i]));
+        }
+      avail_w -= BASELINE_GAP;
+      if (base_avail_h < 20.0 || avail_w < 20.0)
+        n_base = 0;
+    }
+
   if (to_scale && sum_sqrt > 0.0 && avail_h > 10.0)
     {
       /* Side lengths sqrt(mass) with one common aspect ratio (height/width)
        * and one common scale: every area is s^2 * mass.  The aspect ratio
        * only decides how the stack fills the widget. */
-      aspect = CLAMP (avail_h * max_sqrt / (avail_w * sum_sqrt), 0.8, 2.5);
-      s = MIN (avail_h / (sqrt (aspect) * sum_sqrt), avail_w * sqrt (aspect) / max_sqrt);
+      double w_sqrt = max_sqrt + (n_base > 0 ? base_max : 0.0);
+      double h_sqrt = n_base > 0 ? MAX (sum_sqrt, base_sum * avail_h / base_avail_h) : sum_sqrt;
+      /* Two stacks share the width: taller blocks keep them readable. */
+      aspect = CLAMP (avail_h * w_sqrt / (avail_w * h_sqrt), 0.8, n_base > 0 ? 4.0 : 2.5);
+      s = MIN (avail_h / (sqrt (aspect) * sum_sqrt), avail_w * sqrt (aspect) / w_sqrt);
+      if (n_base > 0)
+        {
+          s = MIN (s, base_avail_h / (sqrt (aspect) * base_sum));
+          base_w = s * base_max / sqrt (aspect);
+          for (guint i = 0; i < n_base; i++)
+            {
+              self->base_rects[i].size.width = s * sqrt (base_mass[i]) / sqrt (aspect);
+              self->base_rects[i].size.height = s * sqrt (base_mass[i]) * sqrt (aspect);
+            }
+        }
       self->px2_per_kg = s * s;
       for (guint i = 0; i < self->n_items; i++)
         {
@@ -518,8 +623,25 @@ stack_layout (SwStackView *self, int width, int height)
 
   /* Centre the group (stack + labels) horizontally; stand it on the bottom. */
   {
-    double group = max_w + LEADER_GAP + label_w;
+    double base_room = n_base > 0 && base_w > 0.0 ? base_w + BASELINE_GAP : 0.0;
+    double group = base_room + max_w + LEADER_GAP + label_w;
     double x0 = MAX (MARGIN, (width - group) / 2.0);
+    if (base_room > 0.0)
+      {
+        double bx = x0 + base_w / 2.0, by = bottom;
+        for (guint i = 0; i < n_base; i++)
+          {
+            graphene_rect_t *rc = &self->base_rects[i];
+            by -= rc->size.height;
+            rc->origin.x = bx - rc->size.width / 2.0;
+            rc->origin.y = by;
+            by -= BLOCK_GAP;
+          }
+        self->n_base = n_base;
+        self->base_caption_x = bx;
+        self->base_caption_y = by + BLOCK_GAP - 4.0;
+        x0 += base_room;
+      }
     x_axis = x0 + max_w / 2.0;
     self->stack_right = x0 + max_w;
     self->label_x = self->stack_right + LEADER_GAP;
@@ -868,6 +990,39 @@ draw_selection (SwStackView *self, cairo_t *cr, const Item *it, const Colors *c)
   cairo_fill (cr);
 }
 
+/* The pinned baseline: dashed outlines at the same area scale, its payload
+ * in the payload's colour, captioned above. */
+static void
+draw_baseline (SwStackView *self, cairo_t *cr, const Colors *c)
+{
+  static const double dash[] = { 5.0, 3.0 };
+  int cw, ch;
+
+  cairo_save (cr);
+  cairo_set_dash (cr, dash, G_N_ELEMENTS (dash), 0.0);
+  cairo_set_line_width (cr, 1.5);
+  for (guint i = 0; i < self->n_base; i++)
+    {
+      const graphene_rect_t *rc = &self->base_rects[i];
+      gboolean payload = i + 1 == self->n_base;
+      set_source_alpha (cr, payload ? &c->payload : &c->fg, 0.06);
+      rect_path (cr, rc);
+      cairo_fill (cr);
+      set_source_alpha (cr, payload ? &c->payload : &c->fg, payload ? 1.0 : 0.75);
+      cairo_rectangle (cr, rc->origin.x + 0.75, rc->origin.y + 0.75, rc->size.width - 1.5,
+                       rc->size.height - 1.5);
+      cairo_stroke (cr);
+    }
+  cairo_restore (cr);
+  if (self->base_caption != NULL)
+    {
+      pango_layout_get_pixel_size (self->base_caption, &cw, &ch);
+      set_source_alpha (cr, &c->fg, 0.85);
+      draw_text (cr, self->base_caption, self->base_caption_x - cw / 2.0,
+                 self->base_caption_y - ch);
+    }
+}
+
 static void
 sw_stack_view_snapshot (GtkWidget *widget, GtkSnapshot *snapshot)
 {
@@ -916,9 +1071,8 @@ sw_stack_view_snapshot (GtkWidget *widget, GtkSnapshot *snapshot)
       draw_text (cr, self->message, m->origin.x + 8.0, m->origin.y + 6.0);
     }
 
-  /* Hook for the baseline comparison (a later issue): draw the blocks of
-   * result->design->baseline here, as outlines on the same px2_per_kg, before
-   * the current blocks.  The result does not carry the baseline's sizing yet. */
+  if (self->n_base > 0)
+    draw_baseline (self, cr, &c);
 
   for (guint i = 0; i < self->n_items; i++)
     if (self->items[i].rect.size.width > 0.0)
@@ -1056,6 +1210,17 @@ query_tooltip_cb (SwStackView *self, int x, int y, gboolean keyboard, GtkTooltip
                             title, mass, prop, struc, dv, share, limit, ratio, m0, mb,
                             it->kind == ITEM_FAILING ? _("\n<b>⚠ Cannot deliver its Δv</b>") : "",
                             it->kind == ITEM_UNUSED ? _("\nUnused: no Δv at the optimum") : "");
+  if (isfinite (stage_tw (r, it->stage)) && r->has_stage_figures)
+    {
+      const SwAscentStage *f = &r->stage_figures[it->stage];
+      /* Translators: thrust-to-weight ratio, then a burn time in seconds */
+      g_autofree char *more = g_strdup_printf (_("\nThrust-to-weight at ignition: %.2f, burn "
+                                                 "time %.0f s"),
+                                               stage_tw (r, it->stage), f->burn_time_s);
+      char *joined = g_strconcat (markup, more, NULL);
+      g_free (markup);
+      markup = joined;
+    }
   gtk_tooltip_set_markup (tooltip, markup);
   return TRUE;
 }
@@ -1397,6 +1562,19 @@ sw_stack_view_get_structure_rect (SwStackView *self, guint index, graphene_rect_
     return FALSE;
   if (rect != NULL)
     *rect = it->structure;
+  return TRUE;
+}
+
+gboolean
+sw_stack_view_get_baseline_rect (SwStackView *self, guint index, graphene_rect_t *rect)
+{
+  g_return_val_if_fail (SW_IS_STACK_VIEW (self), FALSE);
+
+  ensure_layout (self);
+  if (index >= self->n_base)
+    return FALSE;
+  if (rect != NULL)
+    *rect = self->base_rects[index];
   return TRUE;
 }
 

@@ -32,6 +32,11 @@ gboolean   sw_stack_view_get_block_rect (SwStackView *self, guint index, graphen
 gboolean   sw_stack_view_get_payload_rect (SwStackView *self, graphene_rect_t *rect);
 gboolean   sw_stack_view_get_structure_rect (SwStackView *self, guint index, graphene_rect_t *rect);
 double     sw_stack_view_get_area_scale (SwStackView *self);
+/* The pinned baseline's outline beside the stack, same area scale: block
+ * @index counts its drawn stages from the bottom, the payload last; FALSE
+ * when not drawn (no baseline, or it or the design does not close). */
+gboolean   sw_stack_view_get_baseline_rect (SwStackView *self, guint index,
+                                            graphene_rect_t *rect);
 
 /* Signals:
  *   "stage-activated" (int stage)             a click selected a stage

@@ -8,6 +8,7 @@
 #include "sw-format.h"
 
 #include <glib/gi18n.h>
+#include <math.h>
 
 struct _SwTotals {
   GtkWidget  parent_instance;
@@ -19,6 +20,14 @@ struct _SwTotals {
   GtkInscription *required_label;
   GtkInscription *limit_label;
   GtkStack  *status_stack;
+  GtkWidget *ascent_note_box;
+  GtkLabel  *ascent_note_label;
+  GtkWidget *ascent_warning_box;
+  GtkLabel  *ascent_warning_label;
+  GtkInscription *delta_caption;
+  GtkInscription *liftoff_delta;
+  GtkInscription *fraction_delta;
+  GtkInscription *margin_delta;
 };
 
 G_DEFINE_FINAL_TYPE (SwTotals, sw_totals, GTK_TYPE_WIDGET)
@@ -33,6 +42,97 @@ set_status (SwTotals *self, const char *page, const char *text)
   if (g_strcmp0 (gtk_label_get_text (label), text) != 0)
     gtk_label_set_text (label, text);
   gtk_stack_set_visible_child_name (self->status_stack, page);
+}
+
+char *
+sw_totals_format_delta (SwTotal total, const SwDelta *d)
+{
+  g_autofree char *abs_text = NULL, *percent = NULL;
+  const char *sign;
+
+  g_return_val_if_fail (d != NULL, NULL);
+
+  if (!isfinite (d->delta))
+    return g_strdup (SW_NO_VALUE);
+  sign = d->delta > 0.0 ? "+" : d->delta < 0.0 ? "−" : "";
+  switch (total)
+    {
+    case SW_TOTAL_PAYLOAD_FRACTION:
+      /* Translators: a change of a percentage in percentage points */
+      abs_text = g_strdup_printf (_("%.2f pp"), 100.0 * fabs (d->delta));
+      break;
+    case SW_TOTAL_DELTA_V:
+    case SW_TOTAL_DELTA_V_LIMIT:
+      abs_text = sw_format_speed (fabs (d->delta));
+      break;
+    case SW_TOTAL_STAGE_COUNT:
+      abs_text = g_strdup_printf ("%.0f", fabs (d->delta));
+      break;
+    case SW_TOTAL_LIFTOFF_MASS:
+    case SW_TOTAL_PAYLOAD:
+    case SW_TOTAL_PROPELLANT:
+    case SW_TOTAL_STRUCTURE:
+    case SW_N_TOTALS:
+    default:
+      abs_text = sw_format_mass (fabs (d->delta));
+      break;
+    }
+  if (!isfinite (d->percent))
+    return g_strconcat (sign, abs_text, NULL);
+  /* Translators: a change and its share of the baseline's value, e.g. "+3.2 t (+11.6 %)" */
+  percent = g_strdup_printf (_("%s%s (%s%.1f %%)"), sign, abs_text,
+                             d->percent > 0.0 ? "+" : d->percent < 0.0 ? "−" : "",
+                             fabs (d->percent));
+  return g_steal_pointer (&percent);
+}
+
+static void
+set_delta (GtkInscription *label, const char *text, const char *tooltip)
+{
+  gtk_widget_set_visible (GTK_WIDGET (label), text != NULL);
+  if (g_strcmp0 (gtk_inscription_get_text (label), text) != 0)
+    gtk_inscription_set_text (label, text);
+  gtk_widget_set_tooltip_text (GTK_WIDGET (label), tooltip);
+}
+
+/* The change of each figure against the pinned baseline. */
+static void
+update_deltas (SwTotals *self)
+{
+  SwResult *r = self->result;
+  g_autofree char *liftoff = NULL, *fraction = NULL, *margin = NULL, *tooltip = NULL;
+  const char *name;
+
+  if (r == NULL || !r->ok || !r->has_baseline)
+    {
+      set_delta (self->delta_caption, NULL, NULL);
+      set_delta (self->liftoff_delta, NULL, NULL);
+      set_delta (self->fraction_delta, NULL, NULL);
+      set_delta (self->margin_delta, NULL, NULL);
+      return;
+    }
+  name = r->design->baseline->name[0] != '\0' ? r->design->baseline->name : _("Untitled design");
+  if (!r->baseline_ok)
+    {
+      /* Translators: %s says why the baseline cannot be sized */
+      tooltip = g_strdup_printf (_("The baseline cannot be sized: %s"), r->baseline_error);
+      set_delta (self->delta_caption, tooltip, tooltip);
+      set_delta (self->liftoff_delta, SW_NO_VALUE, tooltip);
+      set_delta (self->fraction_delta, "", NULL);
+      set_delta (self->margin_delta, "", NULL);
+      return;
+    }
+  /* Translators: %s is the baseline's name */
+  tooltip = g_strdup_printf (_("Change against the pinned baseline “%s”"), name);
+  liftoff = sw_totals_format_delta (SW_TOTAL_LIFTOFF_MASS,
+                                    &r->comparison.totals[SW_TOTAL_LIFTOFF_MASS]);
+  fraction = sw_totals_format_delta (SW_TOTAL_PAYLOAD_FRACTION,
+                                     &r->comparison.totals[SW_TOTAL_PAYLOAD_FRACTION]);
+  margin = sw_totals_format_delta (SW_TOTAL_DELTA_V, &r->margin_delta);
+  set_delta (self->delta_caption, tooltip, NULL);
+  set_delta (self->liftoff_delta, liftoff, tooltip);
+  set_delta (self->fraction_delta, fraction, tooltip);
+  set_delta (self->margin_delta, margin, tooltip);
 }
 
 static void
@@ -113,6 +213,23 @@ sw_totals_set_result (SwTotals *self, SwResult *result)
   g_clear_pointer (&self->result, sw_result_unref);
   self->result = result != NULL ? sw_result_ref (result) : NULL;
   update (self);
+  update_deltas (self);
+}
+
+static void
+set_row (GtkWidget *box, GtkLabel *label, const char *text)
+{
+  if (g_strcmp0 (gtk_label_get_text (label), text != NULL ? text : "") != 0)
+    gtk_label_set_text (label, text != NULL ? text : "");
+  gtk_widget_set_visible (box, text != NULL);
+}
+
+void
+sw_totals_set_ascent (SwTotals *self, const char *note, const char *warnings)
+{
+  g_return_if_fail (SW_IS_TOTALS (self));
+  set_row (self->ascent_note_box, self->ascent_note_label, note);
+  set_row (self->ascent_warning_box, self->ascent_warning_label, warnings);
 }
 
 const char *
@@ -130,6 +247,21 @@ sw_totals_get_text (SwTotals *self, SwTotalsField field)
     case SW_TOTALS_STATUS:
       return gtk_label_get_text (GTK_LABEL (gtk_widget_get_last_child (
         gtk_stack_get_visible_child (self->status_stack))));
+    case SW_TOTALS_ASCENT_NOTE:
+      return gtk_widget_get_visible (self->ascent_note_box)
+             ? gtk_label_get_text (self->ascent_note_label) : NULL;
+    case SW_TOTALS_LIFTOFF_DELTA:
+      return gtk_widget_get_visible (GTK_WIDGET (self->liftoff_delta))
+             ? gtk_inscription_get_text (self->liftoff_delta) : NULL;
+    case SW_TOTALS_FRACTION_DELTA:
+      return gtk_widget_get_visible (GTK_WIDGET (self->fraction_delta))
+             ? gtk_inscription_get_text (self->fraction_delta) : NULL;
+    case SW_TOTALS_MARGIN_DELTA:
+      return gtk_widget_get_visible (GTK_WIDGET (self->margin_delta))
+             ? gtk_inscription_get_text (self->margin_delta) : NULL;
+    case SW_TOTALS_ASCENT_WARNINGS:
+      return gtk_widget_get_visible (self->ascent_warning_box)
+             ? gtk_label_get_text (self->ascent_warning_label) : NULL;
     default: return NULL;
     }
 }
@@ -163,6 +295,14 @@ sw_totals_class_init (SwTotalsClass *klass)
   gtk_widget_class_bind_template_child (widget_class, SwTotals, required_label);
   gtk_widget_class_bind_template_child (widget_class, SwTotals, limit_label);
   gtk_widget_class_bind_template_child (widget_class, SwTotals, status_stack);
+  gtk_widget_class_bind_template_child (widget_class, SwTotals, ascent_note_box);
+  gtk_widget_class_bind_template_child (widget_class, SwTotals, ascent_note_label);
+  gtk_widget_class_bind_template_child (widget_class, SwTotals, ascent_warning_box);
+  gtk_widget_class_bind_template_child (widget_class, SwTotals, ascent_warning_label);
+  gtk_widget_class_bind_template_child (widget_class, SwTotals, delta_caption);
+  gtk_widget_class_bind_template_child (widget_class, SwTotals, liftoff_delta);
+  gtk_widget_class_bind_template_child (widget_class, SwTotals, fraction_delta);
+  gtk_widget_class_bind_template_child (widget_class, SwTotals, margin_delta);
 }
 
 static void

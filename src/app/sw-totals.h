@@ -13,6 +13,9 @@ G_DECLARE_FINAL_TYPE (SwTotals, sw_totals, SW, TOTALS, GtkWidget)
 
 GtkWidget  *sw_totals_new (void);
 void        sw_totals_set_result (SwTotals *self, SwResult *result);
+/* The ascent's note on the sizing and its warnings (one per line), from the
+ * ascent page; NULL hides the row. */
+void        sw_totals_set_ascent (SwTotals *self, const char *note, const char *warnings);
 
 /* For tests: the texts shown. */
 typedef enum {
@@ -22,8 +25,16 @@ typedef enum {
   SW_TOTALS_REQUIRED,
   SW_TOTALS_LIMIT,
   SW_TOTALS_STATUS,
+  SW_TOTALS_ASCENT_NOTE,       /* NULL when hidden */
+  SW_TOTALS_ASCENT_WARNINGS,   /* NULL when hidden */
+  SW_TOTALS_LIFTOFF_DELTA,     /* against the baseline; NULL when there is none */
+  SW_TOTALS_FRACTION_DELTA,
+  SW_TOTALS_MARGIN_DELTA,
 } SwTotalsField;
 
 const char *sw_totals_get_text (SwTotals *self, SwTotalsField field);
+/* A change against the baseline as the totals show it: "+3.2 t (+11.6 %)",
+ * the em dash when it is not known. */
+char       *sw_totals_format_delta (SwTotal total, const SwDelta *delta);
 
 G_END_DECLS

@@ -58,7 +58,22 @@ sw_trade_plots_show_stage_count (SwPlot *plot, SwResult *r)
   /* Counts without a solution have no mass: their crosses sit above the
    * highest mass shown. */
   y_top = y_top > 0.0 ? y_top * 2.0 : r->sizing.payload_kg * 100.0;
+  /* Masses all alike (no delta-v to give): a range of its own, since an
+   * automatic log axis over one value has no span to divide. */
+  {
+    double y_min = INFINITY, y_max = 0.0;
+    for (guint k = 0; k < curve->n_points; k++)
+      if (isfinite (y[k]) && y[k] > 0.0)
+        {
+          y_min = MIN (y_min, y[k]);
+          y_max = MAX (y_max, y[k]);
+        }
+    if (isfinite (y_min) && y_max < 1.05 * y_min)
+      sw_plot_set_y_range (plot, y_min / 2.0, y_max * 2.0);
+  }
+  sw_trade_plots_add_band (plot, r);
   sw_plot_add_series (plot, _("Optimal split"), x, y, curve->n_points, SW_PLOT_LINE_POINTS, 0);
+  sw_trade_plots_add_baseline (plot, r, 0);
   for (guint k = 0; k < curve->n_points; k++)
     if (!curve->points[k].feasible)
       sw_plot_add_marker (plot, x[k], y_top, _("no solution"), SW_MARKER_INFEASIBLE);
@@ -122,6 +137,60 @@ sw_trade_plots_show_sweep (SwPlot *plot, SwResult *r)
     y_hi = MAX (y_hi, 10.0 * r->sizing.liftoff_mass_kg);
   sw_plot_set_y_range (plot, y_lo, y_hi);
 
+  sw_trade_plots_add_baseline (plot, r, 1);
   if (sw_trade_plots_current_point (r, 1, &cx, &cy))
     sw_plot_add_marker (plot, cx, cy, _("this design"), SW_MARKER_CURRENT);
+}
+
+void
+sw_trade_plots_add_band (SwPlot *plot, SwResult *r)
+{
+  double x[SW_MAX_STAGES];
+
+  g_return_if_fail (SW_IS_PLOT (plot));
+
+  if (r == NULL || !r->ok || !r->has_band)
+    return;
+  for (guint k = 0; k < r->band.n_points && k < SW_MAX_STAGES; k++)
+    x[k] = k + 1;
+  /* Same colour as the curve it surrounds. */
+  sw_plot_add_band (plot, _("5th to 95th percentile (Monte Carlo)"), x, r->band.p05,
+                    r->band.p95, MIN (r->band.n_points, SW_MAX_STAGES), 0);
+}
+
+gboolean
+sw_trade_plots_baseline_point (SwResult *r, guint which, double *x, double *y)
+{
+  const SwSizing *b;
+
+  if (r == NULL || !r->ok || !r->has_baseline || !r->baseline_ok)
+    return FALSE;
+  b = &r->baseline_sizing;
+  if (!b->feasible || !isfinite (b->liftoff_mass_kg))
+    return FALSE;
+  *x = which == 0 ? (double) b->n_stages : b->delta_v_m_s;
+  *y = b->liftoff_mass_kg;
+  return TRUE;
+}
+
+void
+sw_trade_plots_add_baseline (SwPlot *plot, SwResult *r, guint which)
+{
+  double x[SW_MAX_STAGES], y[SW_MAX_STAGES], bx, by;
+
+  g_return_if_fail (SW_IS_PLOT (plot));
+
+  if (!sw_trade_plots_baseline_point (r, which, &bx, &by))
+    return;
+  if (which == 0)
+    {
+      const SwStageCurve *curve = &r->baseline_curve;
+      for (guint k = 0; k < curve->n_points; k++)
+        {
+          x[k] = curve->points[k].stages;
+          y[k] = curve->points[k].feasible ? curve->points[k].liftoff_mass_kg : NAN;
+        }
+      sw_plot_add_series (plot, _("Baseline"), x, y, curve->n_points, SW_PLOT_LINE, 3);
+    }
+  sw_plot_add_marker (plot, bx, by, _("baseline"), SW_MARKER_BASELINE);
 }

@@ -15,6 +15,13 @@ void sw_trade_plots_show_stage_count (SwPlot *plot, SwResult *result);
  * asymptote, the current design marked. */
 void sw_trade_plots_show_sweep (SwPlot *plot, SwResult *result);
 
+/* Overlays, also used by the trade-study page: the Monte Carlo band on the
+ * stage-count curve; the baseline's stage-count curve (@which 0) and its
+ * marker (on either plot). */
+void sw_trade_plots_add_band (SwPlot *plot, SwResult *result);
+void sw_trade_plots_add_baseline (SwPlot *plot, SwResult *result, guint which);
+gboolean sw_trade_plots_baseline_point (SwResult *result, guint which, double *x, double *y);
+
 /* Where the current design's marker was put, in data coordinates; FALSE when
  * there is none (for tests). */
 gboolean sw_trade_plots_current_point (SwResult *result, guint which, double *x, double *y);

@@ -3,13 +3,16 @@
  * latency benchmark need to reach inside the main window. */
 #pragma once
 
+#include "sw-ascent-page.h"
 #include "sw-document.h"
+#include "sw-export-dialog.h"
 #include "sw-inspector.h"
 #include "sw-plot.h"
 #include "sw-result.h"
 #include "sw-solver.h"
 #include "sw-stack-view.h"
 #include "sw-totals.h"
+#include "sw-trade-page.h"
 #include "sw-window.h"
 #include "sw-working-view.h"
 
@@ -21,6 +24,13 @@ SwInspector   *sw_window_get_inspector (SwWindow *self);
 SwStackView   *sw_window_get_stack_view (SwWindow *self);
 SwTotals      *sw_window_get_totals (SwWindow *self);
 SwWorkingView *sw_window_get_working_view (SwWindow *self);
+SwAscentPage  *sw_window_get_ascent_page (SwWindow *self);
+SwTradePage   *sw_window_get_trade_page (SwWindow *self);
+/* The export dialog while it is open (design.export opens it), or NULL. */
+SwExportDialog *sw_window_get_export_dialog (SwWindow *self);
+/* Brings a page of the notebook to the front: "curves", "working",
+ * "ascent" or "trade"; FALSE for an unknown name. */
+gboolean       sw_window_show_page (SwWindow *self, const char *name);
 /* 0: liftoff mass against stage count; 1: against delta-v. */
 SwPlot        *sw_window_get_plot (SwWindow *self, guint which);
 /* The result the views show now, or NULL before the first one. */
@@ -28,7 +38,9 @@ SwResult      *sw_window_get_shown_result (SwWindow *self);
 /* Serial of the newest result that has been painted in a frame. */
 guint64        sw_window_get_drawn_serial (SwWindow *self);
 /* Signal "result-drawn" (guint64 serial): after the frame that first
- * painted that result. */
+ * painted that result; once more with the same serial after the frame that
+ * first painted its last phase (ascent_pending and montecarlo_pending are
+ * then FALSE). */
 
 gboolean       sw_window_save_to (SwWindow *self, GFile *file, GError **error);
 /* The text of the message bar and its type, NULL when it is hidden. */

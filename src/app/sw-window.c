@@ -6,7 +6,10 @@
 #include "sw-window.h"
 
 #include "sw-application.h"
+#include "sw-ascent-page.h"
+#include "sw-export-dialog.h"
 #include "sw-format.h"
+#include "sw-trade-page.h"
 #include "sw-trade-plots.h"
 #include "sw-window-private.h"
 
@@ -37,6 +40,7 @@ struct _SwWindow {
   GSettings      *settings;
   gboolean        ephemeral;
   guint64         drawn_serial;
+  gboolean        drawn_pending;       /* a later phase of the drawn result was pending */
   GdkFrameClock  *frame_clock;
   SwDesign       *drag_base;           /* the design when a border drag began */
 
@@ -64,6 +68,9 @@ struct _SwWindow {
   SwPlot         *stage_count_plot;
   SwPlot         *sweep_plot;
   SwWorkingView  *working_view;
+  SwAscentPage   *ascent_page;
+  SwTradePage    *trade_page;
+  SwExportDialog *export_dialog;       /* weak, while open */
   GMenu          *recent_menu;
 };
 
@@ -137,6 +144,10 @@ update_actions (SwWindow *self)
                                  sw_document_can_redo (self->document));
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "design.copy-working",
                                  self->result != NULL && self->result->ok);
+  gtk_widget_action_set_enabled (GTK_WIDGET (self), "design.clear-baseline",
+                                 sw_document_get_design (self->document)->baseline != NULL);
+  gtk_widget_action_set_enabled (GTK_WIDGET (self), "design.export",
+                                 self->result != NULL && self->result->ok);
 }
 
 /* ---- design -> solver -> views ----------------------------------------- */
@@ -160,6 +171,10 @@ solved_cb (SwWindow *self, SwResult *result)
   sw_inspector_set_result (self->inspector, result);
   sw_totals_set_result (self->totals, result);
   sw_working_view_set_result (self->working_view, result);
+  sw_ascent_page_set_result (self->ascent_page, result);
+  sw_trade_page_set_result (self->trade_page, result);
+  if (self->export_dialog != NULL)
+    sw_export_dialog_set_result (self->export_dialog, result);
   sw_trade_plots_show_stage_count (self->stage_count_plot, result);
   sw_trade_plots_show_sweep (self->sweep_plot, result);
   update_actions (self);
@@ -168,14 +183,33 @@ solved_cb (SwWindow *self, SwResult *result)
     gdk_frame_clock_request_phase (self->frame_clock, GDK_FRAME_CLOCK_PHASE_PAINT);
 }
 
+/* A later phase (Monte Carlo, ascent) of the same serial is on its way. */
+static gboolean
+result_pending (const SwResult *r)
+{
+  return r->ascent_pending || r->montecarlo_pending;
+}
+
+/* Also once more for the same serial when its last phase has been painted. */
 static void
 after_paint_cb (SwWindow *self)
 {
-  if (self->result != NULL && self->result->serial > self->drawn_serial)
+  if (self->result != NULL
+      && (self->result->serial > self->drawn_serial
+          || (self->result->serial == self->drawn_serial && self->drawn_pending
+              && !result_pending (self->result))))
     {
       self->drawn_serial = self->result->serial;
+      self->drawn_pending = result_pending (self->result);
       g_signal_emit (self, signals[RESULT_DRAWN], 0, self->drawn_serial);
     }
+}
+
+static void
+ascent_summary_cb (SwWindow *self)
+{
+  sw_totals_set_ascent (self->totals, sw_ascent_page_get_note (self->ascent_page),
+                        sw_ascent_page_get_warnings (self->ascent_page));
 }
 
 static void
@@ -857,6 +891,67 @@ page_action (GtkWidget *widget, const char *name, GVariant *param)
   gtk_notebook_set_current_page (SW_WINDOW (widget)->notebook, g_variant_get_int32 (param));
 }
 
+/* The current design, as it is now, becomes the baseline (an undoable edit). */
+static void
+pin_baseline_action (GtkWidget *widget, const char *name, GVariant *param)
+{
+  SwWindow *self = SW_WINDOW (widget);
+  g_autoptr (SwDesign) d = sw_document_dup_design (self->document);
+  SwDesign *pinned = sw_design_copy (d);
+
+  g_clear_pointer (&pinned->baseline, sw_design_free);
+  sw_design_free (d->baseline);
+  d->baseline = pinned;
+  sw_document_commit (self->document, g_steal_pointer (&d), NULL);
+}
+
+static void
+clear_baseline_action (GtkWidget *widget, const char *name, GVariant *param)
+{
+  SwWindow *self = SW_WINDOW (widget);
+  g_autoptr (SwDesign) d = sw_document_dup_design (self->document);
+
+  if (d->baseline == NULL)
+    return;
+  g_clear_pointer (&d->baseline, sw_design_free);
+  sw_document_commit (self->document, g_steal_pointer (&d), NULL);
+}
+
+static void
+export_action (GtkWidget *widget, const char *name, GVariant *param)
+{
+  SwWindow *self = SW_WINDOW (widget);
+
+  if (self->export_dialog == NULL)
+    {
+      self->export_dialog = sw_export_dialog_new (GTK_WINDOW (self), self->result,
+                                                  sw_document_get_file (self->document));
+      g_object_add_weak_pointer (G_OBJECT (self->export_dialog),
+                                 (gpointer *) &self->export_dialog);
+    }
+  gtk_window_present (GTK_WINDOW (self->export_dialog));
+}
+
+/* The tornado's step is a setting: a new step is a new solve. */
+static void
+trade_step_cb (SwWindow *self)
+{
+  SwSolveOptions options;
+
+  sw_solver_get_options (self->solver, &options);
+  if (options.sensitivity_step == sw_trade_page_get_step (self->trade_page))
+    return;
+  options.sensitivity_step = sw_trade_page_get_step (self->trade_page);
+  sw_solver_set_options (self->solver, &options);
+  sw_solver_post (self->solver, sw_document_get_design (self->document));
+}
+
+static void
+show_page_action (GtkWidget *widget, const char *name, GVariant *param)
+{
+  sw_window_show_page (SW_WINDOW (widget), g_variant_get_string (param, NULL));
+}
+
 static gboolean
 stage_shortcut_cb (GtkWidget *widget, GVariant *args, gpointer user_data)
 {
@@ -920,6 +1015,48 @@ sw_window_get_working_view (SwWindow *self)
 {
   g_return_val_if_fail (SW_IS_WINDOW (self), NULL);
   return self->working_view;
+}
+
+SwAscentPage *
+sw_window_get_ascent_page (SwWindow *self)
+{
+  g_return_val_if_fail (SW_IS_WINDOW (self), NULL);
+  return self->ascent_page;
+}
+
+gboolean
+sw_window_show_page (SwWindow *self, const char *name)
+{
+  GtkWidget *page = NULL;
+
+  g_return_val_if_fail (SW_IS_WINDOW (self), FALSE);
+
+  if (g_strcmp0 (name, "ascent") == 0)
+    page = GTK_WIDGET (self->ascent_page);
+  else if (g_strcmp0 (name, "working") == 0)
+    page = GTK_WIDGET (self->working_view);
+  else if (g_strcmp0 (name, "trade") == 0)
+    page = GTK_WIDGET (self->trade_page);
+  else if (g_strcmp0 (name, "curves") == 0)
+    page = gtk_notebook_get_nth_page (self->notebook, 0);
+  if (page == NULL || gtk_notebook_page_num (self->notebook, page) < 0)
+    return FALSE;
+  gtk_notebook_set_current_page (self->notebook, gtk_notebook_page_num (self->notebook, page));
+  return TRUE;
+}
+
+SwTradePage *
+sw_window_get_trade_page (SwWindow *self)
+{
+  g_return_val_if_fail (SW_IS_WINDOW (self), NULL);
+  return self->trade_page;
+}
+
+SwExportDialog *
+sw_window_get_export_dialog (SwWindow *self)
+{
+  g_return_val_if_fail (SW_IS_WINDOW (self), NULL);
+  return self->export_dialog;
 }
 
 SwPlot *
@@ -1073,6 +1210,8 @@ sw_window_class_init (SwWindowClass *klass)
   g_type_ensure (SW_TYPE_TOTALS);
   g_type_ensure (SW_TYPE_PLOT);
   g_type_ensure (SW_TYPE_WORKING_VIEW);
+  g_type_ensure (SW_TYPE_ASCENT_PAGE);
+  g_type_ensure (SW_TYPE_TRADE_PAGE);
 
   gtk_widget_class_set_template_from_resource (widget_class,
                                                "/org/stagewright/Stagewright/sw-window.ui");
@@ -1090,12 +1229,15 @@ sw_window_class_init (SwWindowClass *klass)
   CHILD (stage_count_plot);
   CHILD (sweep_plot);
   CHILD (working_view);
+  CHILD (ascent_page);
+  CHILD (trade_page);
   CHILD (recent_menu);
 #undef CHILD
   gtk_widget_class_bind_template_callback (widget_class, recovery_response_cb);
   gtk_widget_class_bind_template_callback (widget_class, message_response_cb);
   gtk_widget_class_bind_template_callback (widget_class, stage_activated_cb);
   gtk_widget_class_bind_template_callback (widget_class, share_dragged_cb);
+  gtk_widget_class_bind_template_callback (widget_class, ascent_summary_cb);
 
   gtk_widget_class_install_action (widget_class, "design.new", NULL, new_action);
   gtk_widget_class_install_action (widget_class, "design.open", NULL, open_action);
@@ -1108,6 +1250,12 @@ sw_window_class_init (SwWindowClass *klass)
                                    copy_working_action);
   gtk_widget_class_install_action (widget_class, "design.split", "s", split_action);
   gtk_widget_class_install_action (widget_class, "view.page", "i", page_action);
+  gtk_widget_class_install_action (widget_class, "view.show-page", "s", show_page_action);
+  gtk_widget_class_install_action (widget_class, "design.pin-baseline", NULL,
+                                   pin_baseline_action);
+  gtk_widget_class_install_action (widget_class, "design.clear-baseline", NULL,
+                                   clear_baseline_action);
+  gtk_widget_class_install_action (widget_class, "design.export", NULL, export_action);
 
 #define BIND(key, mods, action, ...) \
   gtk_widget_class_add_binding_action (widget_class, key, mods, action, __VA_ARGS__)
@@ -1124,6 +1272,9 @@ sw_window_class_init (SwWindowClass *klass)
   BIND (GDK_KEY_3, GDK_CONTROL_MASK, "design.split", "s", "manual");
   BIND (GDK_KEY_1, GDK_ALT_MASK, "view.page", "i", 0);
   BIND (GDK_KEY_2, GDK_ALT_MASK, "view.page", "i", 1);
+  BIND (GDK_KEY_3, GDK_ALT_MASK, "view.show-page", "s", "ascent");
+  BIND (GDK_KEY_4, GDK_ALT_MASK, "view.show-page", "s", "trade");
+  BIND (GDK_KEY_e, GDK_CONTROL_MASK, "design.export", NULL);
   BIND (GDK_KEY_w, GDK_CONTROL_MASK, "window.close", NULL);
 #undef BIND
   gtk_widget_class_add_binding (widget_class, GDK_KEY_n, GDK_CONTROL_MASK | GDK_SHIFT_MASK,
@@ -1161,6 +1312,14 @@ sw_window_init (SwWindow *self)
   g_signal_connect_swapped (self->document, "changed", G_CALLBACK (document_changed_cb), self);
   g_signal_connect_swapped (self->solver, "solved", G_CALLBACK (solved_cb), self);
   sw_inspector_set_document (self->inspector, self->document);
+  sw_trade_page_set_document (self->trade_page, self->document);
+  {
+    SwSolveOptions options;
+    sw_solver_get_options (self->solver, &options);
+    options.sensitivity_step = sw_trade_page_get_step (self->trade_page);
+    sw_solver_set_options (self->solver, &options);
+  }
+  g_signal_connect_swapped (self->trade_page, "notify::step", G_CALLBACK (trade_step_cb), self);
   /* One way: the stack view may refuse a stage its older result does not
    * have yet; its clicks come back through "stage-activated". */
   g_object_bind_property (self->inspector, "selected-stage", self->stack_view, "selected-stage",

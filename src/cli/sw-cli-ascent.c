@@ -234,9 +234,9 @@ print_stage_table (const SwDesign *d, const SwAscentStage *st, guint n, gboolean
       g_autofree char *tw = fmt (s->ignition_thrust_to_weight, 2);
       g_autofree char *twb = fmt (s->burnout_thrust_to_weight, 2);
       g_autofree char *it = fmt (simulated ? s->ignition.time_s : NAN, 1);
+      g_autofree char *name = sw_cli_cell (d->stages[i].name, 20);
 
-      g_print ("%-3u %-20.20s %10s %9s %8s %7s %6s %7s %7s", i + 1, d->stages[i].name, thr, md,
-               bt, co, tw, twb, it);
+      g_print ("%-3u %s %10s %9s %8s %7s %6s %7s %7s", i + 1, name, thr, md, bt, co, tw, twb, it);
       if (simulated)
         {
           gboolean ok = isfinite (s->burnout.time_s);

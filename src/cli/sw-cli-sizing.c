@@ -103,8 +103,9 @@ print_sizing_table (const SwDesign *d, const SwSizing *s)
       g_autofree char *dv = sw_cli_format (r->delta_v_m_s, 1);
       g_autofree char *share = sw_cli_format (r->delta_v_share, 3);
       g_autofree char *n = sw_cli_format (r->mass_ratio, 4);
-      g_print ("%-3u %-20.20s %6.1f %6.4f %9s %6s %8s %12s %11s %13s %12s%s\n", i + 1,
-               d->stages[i].name, d->stages[i].isp_vac_s, d->stages[i].structural_coefficient,
+      g_autofree char *name = sw_cli_cell (d->stages[i].name, 20);
+      g_print ("%-3u %s %6.1f %6.4f %9s %6s %8s %12s %11s %13s %12s%s\n", i + 1,
+               name, d->stages[i].isp_vac_s, d->stages[i].structural_coefficient,
                dv, share, n, mp, ms, m0, mf,
                !r->feasible ? "  INFEASIBLE" : r->unused ? "  (unused)" : "");
     }

@@ -5,6 +5,7 @@
 #include "sw-cli.h"
 
 #include "sw-comparison.h"
+#include "sw-limits.h"
 #include "sw-montecarlo.h"
 #include "sw-reliability.h"
 #include "sw-sensitivity.h"
@@ -57,10 +58,11 @@ sw_cli_sensitivity (int argc, char **argv)
   opt_step = SW_SENSITIVITY_DEFAULT_STEP * 100.0;
   if (!sw_cli_parse ("sensitivity", sensitivity_entries, &argc, &argv, 1, &code))
     return code;
-  if (!(opt_step >= 0.1 && opt_step <= 50.0))
+  if (!sw_limit_contains (SW_LIMIT_SENSITIVITY_STEP, opt_step))
     {
-      g_printerr ("stagewright-cli sensitivity: --step must be 0.1 to 50 percent, not %g\n",
-                  opt_step);
+      const SwLimit *l = sw_limit_get (SW_LIMIT_SENSITIVITY_STEP);
+      g_printerr ("stagewright-cli sensitivity: --step must be %g to %g percent, not %g\n",
+                  l->min, l->max, opt_step);
       return SW_EXIT_USAGE;
     }
   if ((d = sw_cli_load (argv[1])) == NULL)
@@ -147,7 +149,8 @@ sw_cli_sensitivity (int argc, char **argv)
                                                : g_strdup ("infeasible");
       g_autofree char *pl = it->plus_feasible ? sw_cli_format (it->plus_kg, 1)
                                               : g_strdup ("infeasible");
-      g_print ("%-3u %-40.40s %12.5g %14.5g %-9s %10.3f %12s %12s\n", r + 1, label, it->value,
+      g_autofree char *cell = sw_cli_cell (label, 40);
+      g_print ("%-3u %s %12.5g %14.5g %-9s %10.3f %12s %12s\n", r + 1, cell, it->value,
                it->derivative, unit_of (it->param), it->elasticity, mi, pl);
     }
   g_print ("\nPayload exchange ratios (propellant loads fixed): payload lost per kg of dry "
@@ -155,7 +158,8 @@ sw_cli_sensitivity (int argc, char **argv)
   for (guint i = 0; i < t.n_stages; i++)
     {
       g_autofree char *x = sw_cli_format (t.exchange_ratio[i], 4);
-      g_print ("  stage %u %-28.28s %10s kg/kg\n", i + 1, d->stages[i].name, x);
+      g_autofree char *name = sw_cli_cell (d->stages[i].name, 28);
+      g_print ("  stage %u %s %10s kg/kg\n", i + 1, name, x);
     }
   g_print ("\n%s\n", sw_cli_caution);
   return SW_EXIT_OK;
@@ -252,15 +256,18 @@ sw_cli_montecarlo (int argc, char **argv)
   opt_threads = 0;
   if (!sw_cli_parse ("montecarlo", montecarlo_entries, &argc, &argv, 1, &code))
     return code;
-  if (opt_samples != 0 && (opt_samples < 100 || opt_samples > 1000000))
+  /* The same ranges as the design's "uncertainty" keys. */
+  if (opt_samples != 0 && !sw_limit_contains (SW_LIMIT_MC_SAMPLES, opt_samples))
     {
-      g_printerr ("stagewright-cli montecarlo: --samples must be 100 to 1000000, not %d\n",
-                  opt_samples);
+      const SwLimit *l = sw_limit_get (SW_LIMIT_MC_SAMPLES);
+      g_printerr ("stagewright-cli montecarlo: --samples must be %.10g to %.10g, not %d\n",
+                  l->min, l->max, opt_samples);
       return SW_EXIT_USAGE;
     }
-  if (opt_seed < -1 || opt_seed > G_MAXUINT32)
+  if (opt_seed != -1 && !sw_limit_contains (SW_LIMIT_MC_SEED, (double) opt_seed))
     {
-      g_printerr ("stagewright-cli montecarlo: --seed must be 0 to 4294967295\n");
+      const SwLimit *l = sw_limit_get (SW_LIMIT_MC_SEED);
+      g_printerr ("stagewright-cli montecarlo: --seed must be %.10g to %.10g\n", l->min, l->max);
       return SW_EXIT_USAGE;
     }
   if (opt_threads < 0 || opt_threads > 64)
@@ -439,8 +446,9 @@ sw_cli_reliability (int argc, char **argv)
                                                 : g_strdup ("-");
 
       sw_reliability_inputs (&d->stages[i].reliability, &in);
-      g_print ("%-3u %-24.24s %7u %9.5f %9u %9.5f %10.6f %10.6f %11s\n", i + 1,
-               d->stages[i].name, in.engine_count, in.engine_reliability, in.failures_tolerated,
+      g_autofree char *name = sw_cli_cell (d->stages[i].name, 24);
+      g_print ("%-3u %s %7u %9.5f %9u %9.5f %10.6f %10.6f %11s\n", i + 1,
+               name, in.engine_count, in.engine_reliability, in.failures_tolerated,
                in.ignition_reliability, r.engines[i], r.stage[i], sep);
     }
   g_print ("\nMission success probability: %.6f (%.3f %%)\n\n", r.mission, 100.0 * r.mission);

@@ -120,6 +120,20 @@ sw_cli_format (double value, int decimals)
   return g_strdup_printf ("%.*f", decimals, value);
 }
 
+char *
+sw_cli_cell (const char *text, guint width)
+{
+  GString *s = g_string_new (NULL);
+  guint n = 0;
+
+  /* Whole characters: a cut inside one would print invalid UTF-8. */
+  for (const char *p = text; *p != '\0' && n < width; p = g_utf8_next_char (p), n++)
+    g_string_append_len (s, p, g_utf8_next_char (p) - p);
+  for (; n < width; n++)
+    g_string_append_c (s, ' ');
+  return g_string_free (s, FALSE);
+}
+
 static void
 usage (FILE *out)
 {

@@ -33,6 +33,9 @@ void      sw_cli_print_json (JsonNode *node);
 void      sw_cli_add_number (JsonBuilder *b, const char *key, double value);
 /* Formats a number for tables; "-" when not finite. */
 char     *sw_cli_format (double value, int decimals);
+/* A text cell of a table: at most @width characters (not bytes, so a name
+ * is never cut inside a character), padded with spaces to @width. */
+char     *sw_cli_cell (const char *text, guint width);
 /* The cautions printed under every report. */
 extern const char *sw_cli_caution;
 /* A bundled demo design: the source tree first, then the installed copy. */

@@ -789,7 +789,7 @@ check_limit (SwLimitId id, double value, const LoadContext *ctx, const char *pre
                      path);
   else
     set_field_error (error, SW_ERROR_RANGE, ctx,
-                     _("%s: %g is outside the accepted range %s%g to %g%s%s (%s)"), path, value,
+                     _("%s: %g is outside the accepted range %s%.10g to %.10g%s%s (%s)"), path, value,
                      l->min_exclusive ? _("above ") : "", l->min, l->max,
                      l->unit[0] ? " " : "", l->unit, l->why);
   return FALSE;

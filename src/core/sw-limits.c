@@ -6,6 +6,7 @@
 #include "sw-design.h"
 
 #include <math.h>
+#include <string.h>
 
 /* The accepted input ranges.  The loader, the GUI's spin buttons and the
  * README's table all read this one table. */
@@ -18,8 +19,8 @@ static const SwLimit limits[SW_N_LIMITS] = {
     "a circular orbit needs at least 100 km to survive a revolution; 100,000 km covers high orbits" },
   [SW_LIMIT_INCLINATION] = { "inclination_deg", "deg", 0.0, 180.0, FALSE,
     "the full range of inclinations; it must also lie between |latitude| and 180 - |latitude|" },
-  [SW_LIMIT_SITE_LATITUDE] = { "site_latitude_deg", "deg", -90.0, 90.0, FALSE,
-    "any point on the globe" },
+  [SW_LIMIT_SITE_LATITUDE] = { "site_latitude_deg", "deg", -89.9, 89.9, FALSE,
+    "any launch site short of the poles, where the launch azimuth is undefined" },
   [SW_LIMIT_LOSSES] = { "losses_m_s", "m/s", 0.0, 5000.0, FALSE,
     "gravity, drag and steering losses; over 5 km/s no ascent is sensible" },
   [SW_LIMIT_ISP_VAC] = { "isp_vac_s", "s", 50.0, 1000.0, FALSE,
@@ -108,6 +109,75 @@ sw_limit_contains (SwLimitId id, double value)
   return value <= l->max;
 }
 
+/* Where each limit applies, as the README shows it: the JSON path of the
+ * key in a design file ([] stands for any stage or point). */
+static const char *const limit_fields[SW_N_LIMITS] = {
+  [SW_LIMIT_PAYLOAD] = "`payload_kg`",
+  [SW_LIMIT_DELTA_V] = "`mission.delta_v_m_s`",
+  [SW_LIMIT_ALTITUDE] = "`mission.orbit.altitude_km`",
+  [SW_LIMIT_INCLINATION] = "`mission.orbit.inclination_deg`",
+  [SW_LIMIT_SITE_LATITUDE] = "`mission.orbit.site_latitude_deg`",
+  [SW_LIMIT_LOSSES] = "`mission.losses_m_s`",
+  [SW_LIMIT_ISP_VAC] = "`stages[].isp_vac_s`",
+  [SW_LIMIT_ISP_SL] = "`stages[].isp_sl_s`",
+  [SW_LIMIT_STRUCTURAL_COEFFICIENT] = "`stages[].structural_coefficient`",
+  [SW_LIMIT_DELTA_V_SHARE] = "`stages[].delta_v_share`",
+  [SW_LIMIT_STAGE_COUNT] = "`stages` (entries)",
+  [SW_LIMIT_NAME_LENGTH] = "`name`, `stages[].name`",
+  [SW_LIMIT_NOTES_LENGTH] = "`notes`",
+  [SW_LIMIT_ENGINE_COUNT] = "`stages[].engine_count`",
+  [SW_LIMIT_ENGINE_RELIABILITY] = "`stages[].engine_reliability`",
+  [SW_LIMIT_ENGINE_FAILURES_TOLERATED] = "`stages[].engine_failures_tolerated`",
+  [SW_LIMIT_IGNITION_RELIABILITY] = "`stages[].ignition_reliability`",
+  [SW_LIMIT_SEPARATION_RELIABILITY] = "`stages[].separation_reliability`",
+  [SW_LIMIT_MC_SAMPLES] = "`uncertainty.samples`",
+  [SW_LIMIT_MC_SEED] = "`uncertainty.seed`",
+  [SW_LIMIT_SPREAD_SIGMA_PERCENT] = "`uncertainty.isp_vac.sigma_percent`, "
+                                    "`uncertainty.structural_coefficient.sigma_percent`",
+  [SW_LIMIT_SPREAD_HALF_RANGE_PERCENT] = "`uncertainty.isp_vac.half_range_percent`, "
+                                         "`uncertainty.structural_coefficient.half_range_percent`",
+  [SW_LIMIT_LOSSES_SIGMA] = "`uncertainty.losses.sigma_m_s`",
+  [SW_LIMIT_LOSSES_HALF_RANGE] = "`uncertainty.losses.half_range_m_s`",
+  [SW_LIMIT_SENSITIVITY_STEP] = "`stagewright-cli sensitivity --step` (`step_percent`)",
+  [SW_LIMIT_THRUST_VAC] = "`stages[].thrust_vac_kn`",
+  [SW_LIMIT_ENGINE_THRUST_VAC] = "`stages[].engine_thrust_vac_kn`",
+  [SW_LIMIT_DIAMETER] = "`stages[].diameter_m`",
+  [SW_LIMIT_DRAG_POINTS] = "`stages[].drag_coefficients` (pairs)",
+  [SW_LIMIT_DRAG_MACH] = "`stages[].drag_coefficients[][0]` (mach)",
+  [SW_LIMIT_DRAG_CD] = "`stages[].drag_coefficients[][1]` (cd)",
+  [SW_LIMIT_COAST] = "`stages[].coast_before_ignition_s`",
+  [SW_LIMIT_FAIRING_MASS] = "`ascent.fairing_mass_kg`",
+  [SW_LIMIT_FAIRING_ALTITUDE] = "`ascent.fairing_jettison_altitude_km`",
+  [SW_LIMIT_FAIRING_DYNAMIC_PRESSURE] = "`ascent.fairing_jettison_dynamic_pressure_pa`",
+  [SW_LIMIT_PITCH_OVER_SPEED] = "`ascent.pitch_over_speed_m_s`",
+  [SW_LIMIT_PITCH_KICK] = "`ascent.pitch_kick_deg`",
+  [SW_LIMIT_INSERTION_ALTITUDE] = "`ascent.insertion_altitude_km`",
+};
+
+/* A bound as the README shows it: up to ten significant digits, thousands
+ * grouped with commas ("10,000,000"). */
+static void
+append_bound (GString *s, double value)
+{
+  g_autofree char *text = g_strdup_printf ("%.10g", value);
+  const char *digits = text + (text[0] == '-');
+  size_t int_len = strspn (digits, "0123456789");
+
+  if (strchr (text, 'e') != NULL || int_len <= 4)
+    {
+      g_string_append (s, text);
+      return;
+    }
+  g_string_append_len (s, text, digits - text);
+  for (size_t i = 0; i < int_len; i++)
+    {
+      if (i > 0 && (int_len - i) % 3 == 0)
+        g_string_append_c (s, ',');
+      g_string_append_c (s, digits[i]);
+    }
+  g_string_append (s, digits + int_len);
+}
+
 char *
 sw_limits_dup_markdown (void)
 {
@@ -120,9 +190,12 @@ sw_limits_dup_markdown (void)
       g_auto (GStrv) parts = g_strsplit (l->why, "|", -1);
       g_autofree char *why = g_strjoinv ("\\|", parts);
 
-      g_string_append_printf (s, "| `%s` | %s | %s%g to %g | %s |\n", l->key,
-                              l->unit[0] ? l->unit : "-", l->min_exclusive ? "above " : "",
-                              l->min, l->max, why);
+      g_string_append_printf (s, "| %s | %s | %s", limit_fields[i],
+                              l->unit[0] ? l->unit : "-", l->min_exclusive ? "above " : "");
+      append_bound (s, l->min);
+      g_string_append (s, " to ");
+      append_bound (s, l->max);
+      g_string_append_printf (s, " | %s |\n", why);
     }
   return g_string_free (s, FALSE);
 }

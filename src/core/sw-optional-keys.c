@@ -62,7 +62,7 @@ sw_optional_check (SwLimitId limit, double value, const char *file, const char *
                  display_file (file), path);
   else
     g_set_error (error, SW_ERROR, SW_ERROR_RANGE,
-                 _("%s: %s: %g is outside the accepted range %s%g to %g%s%s (%s)"),
+                 _("%s: %s: %g is outside the accepted range %s%.10g to %.10g%s%s (%s)"),
                  display_file (file), path, value, l->min_exclusive ? _("above ") : "", l->min,
                  l->max, l->unit[0] ? " " : "", l->unit, l->why);
   return FALSE;
