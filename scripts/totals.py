@@ -24,7 +24,7 @@ for path in args:
         if not line.strip():
             continue
         entry = json.loads(line)
-        out = entry.get("stdo") or ""
+        out = entry.get("stdout") or entry.get("stdo") or ""
         oks = len(re.findall(r"^ok \d+(?! # skip)", out, re.M | re.I))
         skips = len(re.findall(r"^ok \d+.*# skip", out, re.M | re.I))
         bad = len(re.findall(r"^not ok \d+", out, re.M))

@@ -12,6 +12,8 @@
 #include "sw-format.h"
 #include "sw-window-private.h"
 
+#include "gui-test-env.h"
+
 #include <glib/gstdio.h>
 #include <math.h>
 #include <string.h>
@@ -23,50 +25,20 @@ static char *tmp_dir;
 
 /* ---- helpers ----------------------------------------------------------- */
 
-static gboolean
-flag_cb (gpointer data)
-{
-  *(gboolean *) data = TRUE;
-  return G_SOURCE_REMOVE;
-}
-
-static void
-wait_until (gboolean (*cond) (gpointer), gpointer data, guint ms, const char *what)
-{
-  gboolean timed_out = FALSE;
-  guint id = g_timeout_add (ms, flag_cb, &timed_out);
-
-  while (!cond (data) && !timed_out)
-    g_main_context_iteration (NULL, TRUE);
-  if (timed_out)
-    g_error ("timed out after %u ms waiting for %s", ms, what);
-  g_source_remove (id);
-}
-
-/* The newest edit's sizing has been shown and painted. */
-static gboolean
-sizing_shown (gpointer data)
-{
-  SwWindow *w = data;
-  SwResult *r = sw_window_get_shown_result (w);
-  guint64 posted = sw_solver_get_posted_serial (sw_window_get_solver (w));
-
-  return r != NULL && r->serial == posted && sw_window_get_drawn_serial (w) >= posted;
-}
-
-/* ... and its ascent too (or it has none). */
+/* The newest edit's sizing has been shown and painted, and its ascent too
+ * (or it has none). */
 static gboolean
 ascent_shown (gpointer data)
 {
   SwWindow *w = data;
 
-  return sizing_shown (w) && !sw_window_get_shown_result (w)->ascent_pending;
+  return sw_test_result_drawn (w) && !sw_window_get_shown_result (w)->ascent_pending;
 }
 
 static void
 wait_ascent (SwWindow *w)
 {
-  wait_until (ascent_shown, w, ASCENT_WAIT_MS, "the newest ascent to be shown");
+  sw_test_wait_until (ascent_shown, w, ASCENT_WAIT_MS, "the newest ascent to be shown");
 }
 
 static SwWindow *
@@ -78,18 +50,6 @@ window_new (void)
   gtk_window_present (GTK_WINDOW (w));
   wait_ascent (w);
   return w;
-}
-
-static void
-window_close (SwWindow *w)
-{
-  GtkWidget *weak = GTK_WIDGET (w);
-
-  g_object_add_weak_pointer (G_OBJECT (w), (gpointer *) &weak);
-  sw_window_close_discarding (w);
-  for (int i = 0; i < 1000 && weak != NULL; i++)
-    g_main_context_iteration (NULL, FALSE);
-  g_assert_null (weak);
 }
 
 static void
@@ -261,7 +221,7 @@ test_not_blocking (void)
   /* The main loop is never held: at most 100 ms between ticks that the
    * main thread spent neither running nor waiting for a processor. */
   g_assert_cmpint (wt.max_asleep_us, <, 100000);
-  window_close (w);
+  sw_test_window_close (w);
 }
 
 /* ---- a newer edit cancels the older simulation ------------------------- */
@@ -318,11 +278,11 @@ test_newer_edit_cancels (void)
   first = sw_solver_get_posted_serial (solver);
   args[0] = w;
   args[1] = &first;
-  wait_until (serial_shown, args, ASCENT_WAIT_MS, "the first edit's sizing");
+  sw_test_wait_until (serial_shown, args, ASCENT_WAIT_MS, "the first edit's sizing");
   g_assert_true (sw_window_get_shown_result (w)->ascent_pending);
   args[0] = solver;
   args[1] = &started;
-  wait_until (ascent_started, args, ASCENT_WAIT_MS, "the first edit's ascent to start");
+  sw_test_wait_until (ascent_started, args, ASCENT_WAIT_MS, "the first edit's ascent to start");
   set_payload (w, 1700.0);
   second = sw_solver_get_posted_serial (solver);
   g_assert_cmpuint (second, >, first);
@@ -341,7 +301,7 @@ test_newer_edit_cancels (void)
   g_assert_false (sw_ascent_page_get_pending (page (w)));
   g_assert_cmpfloat (sw_window_get_shown_result (w)->design->payload_kg, ==, 1700.0);
   g_array_unref (e.ascents);
-  window_close (w);
+  sw_test_window_close (w);
 }
 
 /* ---- the page shows the core's numbers --------------------------------- */
@@ -426,14 +386,14 @@ test_core_numbers (void)
     double wx, wy;
 
     g_assert_true (sw_window_show_page (w, "ascent"));
-    wait_until (plot_laid_out, args, 5000, "the trajectory plot to be laid out");
+    sw_test_wait_until (plot_laid_out, args, 5000, "the trajectory plot to be laid out");
     g_assert_true (sw_plot_data_to_widget (plot, last->downrange_m, last->altitude_m, &wx, &wy));
     g_assert_true (sw_plot_get_plot_area (plot, &area));
     g_assert_true (graphene_rect_contains_point (&area, &GRAPHENE_POINT_INIT (wx, wy)));
   }
   for (SwAscentPageField f = SW_ASCENT_PAGE_STATUS; f <= SW_ASCENT_PAGE_LIFTOFF_TW; f++)
     assert_no_nan (page_text (w, f));
-  window_close (w);
+  sw_test_window_close (w);
 }
 
 /* ---- without propulsion keys: the core's explanation ------------------- */
@@ -475,7 +435,7 @@ test_no_propulsion (void)
   g_assert_nonnull (strstr (sw_ascent_page_get_message (page (w)), "mission.orbit"));
   /* The stage figures need no orbit: the stack view still gets them. */
   g_assert_true (r->has_stage_figures);
-  window_close (w);
+  sw_test_window_close (w);
 }
 
 /* ---- warnings against the user's limits -------------------------------- */
@@ -503,7 +463,7 @@ static void
 expect_warnings (SwWindow *w, const char *needle)
 {
   WarnWait ww = { w, needle };
-  wait_until (warnings_are, &ww, 5000, needle != NULL ? needle : "no warnings");
+  sw_test_wait_until (warnings_are, &ww, 5000, needle != NULL ? needle : "no warnings");
 }
 
 static void
@@ -557,49 +517,17 @@ test_warnings (void)
     g_assert_cmpfloat (r->stage_figures[0].ignition_thrust_to_weight, <, 1.2);
     expect_warnings (w, "below the limit of 1.20");
   }
-  window_close (w);
+  sw_test_window_close (w);
 }
 
 /* ---- main -------------------------------------------------------------- */
-
-static void
-remove_tree (const char *path)
-{
-  GDir *dir = g_dir_open (path, 0, NULL);
-  const char *name;
-
-  if (dir != NULL)
-    {
-      while ((name = g_dir_read_name (dir)) != NULL)
-        {
-          g_autofree char *child = g_build_filename (path, name, NULL);
-          remove_tree (child);
-        }
-      g_dir_close (dir);
-    }
-  g_remove (path);
-}
 
 int
 main (int argc, char **argv)
 {
   int status;
 
-  tmp_dir = g_dir_make_tmp ("stagewright-ascent-gui-XXXXXX", NULL);
-  g_assert_nonnull (tmp_dir);
-  for (guint i = 0; i < 4; i++)
-    {
-      const char *vars[] = { "XDG_STATE_HOME", "XDG_DATA_HOME", "XDG_CONFIG_HOME",
-                             "XDG_CACHE_HOME" };
-      g_autofree char *dir = g_build_filename (tmp_dir, vars[i], NULL);
-      g_mkdir_with_parents (dir, 0700);
-      g_setenv (vars[i], dir, TRUE);
-    }
-  g_setenv ("GSETTINGS_BACKEND", "memory", TRUE);
-  g_setenv ("GSK_RENDERER", "cairo", TRUE);
-  g_unsetenv ("STAGEWRIGHT_RECOVERY_DIR");
-
-  gtk_test_init (&argc, &argv, NULL);
+  tmp_dir = sw_gui_test_env_init (&argc, &argv, "stagewright-ascent-gui-XXXXXX");
   {
     g_autoptr (GtkCssProvider) css = gtk_css_provider_new ();
     gtk_css_provider_load_from_resource (css, "/org/stagewright/Stagewright/style.css");
@@ -615,7 +543,6 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/ascent/warnings", test_warnings);
 
   status = g_test_run ();
-  remove_tree (tmp_dir);
-  g_free (tmp_dir);
+  sw_gui_test_env_finish (tmp_dir);
   return status;
 }

@@ -11,6 +11,8 @@
 #include "sw-sizing.h"
 #include "sw-window-private.h"
 
+#include "gui-test-env.h"
+
 #include <glib/gstdio.h>
 #include <math.h>
 #include <string.h>
@@ -19,42 +21,11 @@ static char *tmp_dir;
 
 /* ---- helpers ----------------------------------------------------------- */
 
-static gboolean
-flag_cb (gpointer data)
-{
-  *(gboolean *) data = TRUE;
-  return G_SOURCE_REMOVE;
-}
-
-static void
-wait_until (gboolean (*cond) (gpointer), gpointer data, guint ms, const char *what)
-{
-  gboolean timed_out = FALSE;
-  guint id = g_timeout_add (ms, flag_cb, &timed_out);
-
-  while (!cond (data) && !timed_out)
-    g_main_context_iteration (NULL, TRUE);
-  if (timed_out)
-    g_error ("timed out after %u ms waiting for %s", ms, what);
-  g_source_remove (id);
-}
-
-static gboolean
-up_to_date (gpointer data)
-{
-  SwWindow *w = data;
-  SwResult *r = sw_window_get_shown_result (w);
-  guint64 posted = sw_solver_get_posted_serial (sw_window_get_solver (w));
-
-  /* Every phase (the Monte Carlo, the ascent): their pages show numbers too. */
-  return r != NULL && r->serial == posted && !r->ascent_pending && !r->montecarlo_pending
-         && sw_window_get_drawn_serial (w) >= posted;
-}
-
 static void
 wait_shown (SwWindow *w)
 {
-  wait_until (up_to_date, w, 60000, "the newest result to be drawn");
+  /* Every phase (the Monte Carlo, the ascent): their pages show numbers too. */
+  sw_test_wait_until (sw_test_result_complete, w, 60000, "the newest result to be drawn");
 }
 
 static SwWindow *
@@ -68,18 +39,6 @@ window_with_demo (const char *name)
   g_assert_true (sw_window_load (w, file));
   wait_shown (w);
   return w;
-}
-
-static void
-window_close (SwWindow *w)
-{
-  GtkWidget *weak = GTK_WIDGET (w);
-
-  g_object_add_weak_pointer (G_OBJECT (w), (gpointer *) &weak);
-  sw_window_close_discarding (w);
-  for (int i = 0; i < 1000 && weak != NULL; i++)
-    g_main_context_iteration (NULL, FALSE);
-  g_assert_null (weak);
 }
 
 static GtkWidget *
@@ -391,7 +350,7 @@ test_spin_ranges (void)
   g_test_message ("%u spin buttons in the inspector, %u in the window, each with a range "
                   "from the limits table or the settings schema", inspector_spins,
                   spins->len - inspector_spins);
-  window_close (w);
+  sw_test_window_close (w);
 }
 
 /* Each field at both ends of what its widget allows, with the other fields
@@ -479,7 +438,7 @@ test_extremes_valid (void)
   g_assert_true (gtk_widget_is_sensitive (widget (w, SW_INSPECTOR_SHARE)));
   sweep_field (w, spin (w, SW_INSPECTOR_SHARE), "stage 1 share");
   g_assert_cmpint (doc_design (w)->split, ==, SW_SPLIT_MANUAL);
-  window_close (w);
+  sw_test_window_close (w);
 }
 
 /* A design with every optional model (reliability, spreads for the Monte
@@ -499,7 +458,7 @@ test_trade_extremes (void)
   sweep_field (w, spin (w, SW_INSPECTOR_ISP_VAC), "stage 1 vacuum Isp");
   gtk_spin_button_set_value (spin (w, SW_INSPECTOR_ISP_VAC), 311.0);
   sweep_field (w, spin (w, SW_INSPECTOR_EPS), "stage 1 structure");
-  window_close (w);
+  sw_test_window_close (w);
 }
 
 /* The stage count stops at the table's ends whatever the user asks. */
@@ -523,7 +482,7 @@ test_stage_count (void)
     gtk_widget_activate_action (inspector, "stage.remove", NULL);
   g_assert_cmpuint (doc_design (w)->n_stages, ==, (guint) count->min);
   assert_design_valid (w, "removing stages down to the limit");
-  window_close (w);
+  sw_test_window_close (w);
 }
 
 /* Names longer than the format's limit are cut, never in the middle of a
@@ -571,49 +530,17 @@ test_long_names (void)
                         (gsize) len->max);
       assert_design_valid (w, entry == stage_name ? "a long stage name" : "a long name");
     }
-  window_close (w);
+  sw_test_window_close (w);
 }
 
 /* ---- main -------------------------------------------------------------- */
-
-static void
-remove_tree (const char *path)
-{
-  GDir *dir = g_dir_open (path, 0, NULL);
-  const char *name;
-
-  if (dir != NULL)
-    {
-      while ((name = g_dir_read_name (dir)) != NULL)
-        {
-          g_autofree char *child = g_build_filename (path, name, NULL);
-          remove_tree (child);
-        }
-      g_dir_close (dir);
-    }
-  g_remove (path);
-}
 
 int
 main (int argc, char **argv)
 {
   int status;
 
-  tmp_dir = g_dir_make_tmp ("stagewright-limits-XXXXXX", NULL);
-  g_assert_nonnull (tmp_dir);
-  for (guint i = 0; i < 4; i++)
-    {
-      const char *vars[] = { "XDG_STATE_HOME", "XDG_DATA_HOME", "XDG_CONFIG_HOME",
-                             "XDG_CACHE_HOME" };
-      g_autofree char *dir = g_build_filename (tmp_dir, vars[i], NULL);
-      g_mkdir_with_parents (dir, 0700);
-      g_setenv (vars[i], dir, TRUE);
-    }
-  g_setenv ("GSETTINGS_BACKEND", "memory", TRUE);
-  g_setenv ("GSK_RENDERER", "cairo", TRUE);
-  g_unsetenv ("STAGEWRIGHT_RECOVERY_DIR");
-
-  gtk_test_init (&argc, &argv, NULL);
+  tmp_dir = sw_gui_test_env_init (&argc, &argv, "stagewright-limits-XXXXXX");
 
   g_test_add_func ("/gui/limits/spin-ranges", test_spin_ranges);
   g_test_add_func ("/gui/limits/extremes-valid", test_extremes_valid);
@@ -622,7 +549,6 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/limits/long-names", test_long_names);
 
   status = g_test_run ();
-  remove_tree (tmp_dir);
-  g_free (tmp_dir);
+  sw_gui_test_env_finish (tmp_dir);
   return status;
 }

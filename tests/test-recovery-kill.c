@@ -8,6 +8,9 @@
 
 #include "sw-design.h"
 
+#define SW_GUI_TEST_ENV_GLIB_ONLY
+#include "gui-test-env.h"
+
 #include <glib/gstdio.h>
 #include <errno.h>
 #include <signal.h>
@@ -30,15 +33,13 @@ static char **
 child_environment (void)
 {
   char **env = g_get_environ ();
-  const char *vars[] = { "XDG_STATE_HOME", "XDG_DATA_HOME", "XDG_CONFIG_HOME",
-                         "XDG_CACHE_HOME" };
 
   env = g_environ_setenv (env, "HOME", tmp_dir, TRUE);
-  for (guint i = 0; i < G_N_ELEMENTS (vars); i++)
+  for (guint i = 0; i < G_N_ELEMENTS (sw_test_xdg_vars); i++)
     {
-      g_autofree char *dir = g_build_filename (tmp_dir, vars[i], NULL);
+      g_autofree char *dir = g_build_filename (tmp_dir, sw_test_xdg_vars[i], NULL);
       g_assert_cmpint (g_mkdir_with_parents (dir, 0700), ==, 0);
-      env = g_environ_setenv (env, vars[i], dir, TRUE);
+      env = g_environ_setenv (env, sw_test_xdg_vars[i], dir, TRUE);
     }
   env = g_environ_setenv (env, "GSETTINGS_BACKEND", "memory", TRUE);
   env = g_environ_setenv (env, "GSK_RENDERER", "cairo", TRUE);
@@ -251,24 +252,6 @@ test_no_restore_keeps_copy (void)
   g_remove (copy_path);
 }
 
-static void
-remove_tree (const char *path)
-{
-  GDir *dir = g_dir_open (path, 0, NULL);
-  const char *name;
-
-  if (dir != NULL)
-    {
-      while ((name = g_dir_read_name (dir)) != NULL)
-        {
-          g_autofree char *child = g_build_filename (path, name, NULL);
-          remove_tree (child);
-        }
-      g_dir_close (dir);
-    }
-  g_remove (path);
-}
-
 int
 main (int argc, char **argv)
 {
@@ -282,7 +265,7 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/recovery/no-restore-keeps-copy", test_no_restore_keeps_copy);
 
   status = g_test_run ();
-  remove_tree (tmp_dir);
+  sw_test_remove_tree (tmp_dir);
   g_free (tmp_dir);
   return status;
 }

@@ -22,6 +22,8 @@
 
 #include "sw-window-private.h"
 
+#include "gui-test-env.h"
+
 #include <glib/gstdio.h>
 #include <math.h>
 #include <stdio.h>
@@ -38,53 +40,11 @@ static char *tmp_dir;
 
 /* ---- helpers ----------------------------------------------------------- */
 
-static gboolean
-flag_cb (gpointer data)
-{
-  *(gboolean *) data = TRUE;
-  return G_SOURCE_REMOVE;
-}
-
-static void
-wait_until (gboolean (*cond) (gpointer), gpointer data, guint ms, const char *what)
-{
-  gboolean timed_out = FALSE;
-  guint id = g_timeout_add (ms, flag_cb, &timed_out);
-
-  while (!cond (data) && !timed_out)
-    g_main_context_iteration (NULL, TRUE);
-  if (timed_out)
-    g_error ("timed out after %u ms waiting for %s", ms, what);
-  g_source_remove (id);
-}
-
-/* The newest edit's last phase (its ascent) is shown and painted. */
-static gboolean
-ascent_shown (gpointer data)
-{
-  SwWindow *w = data;
-  SwResult *r = sw_window_get_shown_result (w);
-  guint64 posted = sw_solver_get_posted_serial (sw_window_get_solver (w));
-
-  return r != NULL && r->serial == posted && !r->ascent_pending && !r->montecarlo_pending
-         && sw_window_get_drawn_serial (w) >= posted;
-}
-
 static void
 wait_ascent (SwWindow *w)
 {
-  wait_until (ascent_shown, w, 120000, "the ascent of the newest edit");
-}
-
-/* The newest edit's fast part is painted and its ascent is on its way. */
-static gboolean
-fast_shown (gpointer data)
-{
-  SwWindow *w = data;
-  SwResult *r = sw_window_get_shown_result (w);
-  guint64 posted = sw_solver_get_posted_serial (sw_window_get_solver (w));
-
-  return r != NULL && r->serial == posted && sw_window_get_drawn_serial (w) >= posted;
+  /* The newest edit's last phase (its ascent) is shown and painted. */
+  sw_test_wait_until (sw_test_result_complete, w, 120000, "the ascent of the newest edit");
 }
 
 static GtkSpinButton *
@@ -265,7 +225,6 @@ test_busy_worker (void)
   guint64 started0, cancelled0, started1, cancelled1;
   SwWindow *w = sw_window_new (NULL);
   SwSolver *solver = sw_window_get_solver (w);
-  GtkWidget *weak = GTK_WIDGET (w);
   Clock idle_clock = { 0 };
   Chain c = { 0 };
   double fastest = INFINITY, slowest = 0.0, slowest_fast = 0.0, shortest_ascent = INFINITY;
@@ -296,12 +255,12 @@ test_busy_worker (void)
       t0 = g_get_monotonic_time ();
       gtk_spin_button_set_value (payload_spin (w), 1490.0 + k);
       idle.serial = sw_solver_get_posted_serial (solver);
-      wait_until (fast_shown, w, 60000, "the fast part of the edit");
+      sw_test_wait_until (sw_test_result_drawn, w, 60000, "the fast part of the edit");
       fast_ms = (g_get_monotonic_time () - t0) / 1000.0;
       if (!sw_window_get_shown_result (w)->ascent_pending)
         g_error ("the edit's ascent came with its first result: no slow solve to test");
       idle_clock.on = TRUE;
-      wait_until (idle_arrived, &idle, 120000, "the ascent");
+      sw_test_wait_until (idle_arrived, &idle, 120000, "the ascent");
       ms = (g_get_monotonic_time () - t0) / 1000.0;
       fastest = MIN (fastest, ms);
       slowest = MAX (slowest, ms);
@@ -331,7 +290,7 @@ test_busy_worker (void)
   tick_id = g_timeout_add (TICK_MS, tick_cb, &c.clock);
   t0 = g_get_monotonic_time ();
   chain_edit (&c);
-  wait_until (chain_done, &c, 300000, "the end of the edits");
+  sw_test_wait_until (chain_done, &c, 300000, "the end of the edits");
   g_source_remove (tick_id);
   t0 = g_get_monotonic_time ();
   wait_ascent (w);
@@ -375,58 +334,21 @@ test_busy_worker (void)
   g_assert_cmpfloat (shown->design->payload_kg, ==, 1500.0 + 0.1 * c.edits);
   g_assert_nonnull (shown->ascent);
 
-  g_object_add_weak_pointer (G_OBJECT (w), (gpointer *) &weak);
-  sw_window_close_discarding (w);
-  for (int i = 0; i < 1000 && weak != NULL; i++)
-    g_main_context_iteration (NULL, FALSE);
-  g_assert_null (weak);
+  sw_test_window_close (w);
 }
 
 /* ---- main -------------------------------------------------------------- */
-
-static void
-remove_tree (const char *path)
-{
-  GDir *dir = g_dir_open (path, 0, NULL);
-  const char *name;
-
-  if (dir != NULL)
-    {
-      while ((name = g_dir_read_name (dir)) != NULL)
-        {
-          g_autofree char *child = g_build_filename (path, name, NULL);
-          remove_tree (child);
-        }
-      g_dir_close (dir);
-    }
-  g_remove (path);
-}
 
 int
 main (int argc, char **argv)
 {
   int status;
 
-  tmp_dir = g_dir_make_tmp ("stagewright-busy-XXXXXX", NULL);
-  g_assert_nonnull (tmp_dir);
-  for (guint i = 0; i < 4; i++)
-    {
-      const char *vars[] = { "XDG_STATE_HOME", "XDG_DATA_HOME", "XDG_CONFIG_HOME",
-                             "XDG_CACHE_HOME" };
-      g_autofree char *dir = g_build_filename (tmp_dir, vars[i], NULL);
-      g_mkdir_with_parents (dir, 0700);
-      g_setenv (vars[i], dir, TRUE);
-    }
-  g_setenv ("GSETTINGS_BACKEND", "memory", TRUE);
-  g_setenv ("GSK_RENDERER", "cairo", TRUE);
-  g_unsetenv ("STAGEWRIGHT_RECOVERY_DIR");
-
-  gtk_test_init (&argc, &argv, NULL);
+  tmp_dir = sw_gui_test_env_init (&argc, &argv, "stagewright-busy-XXXXXX");
 
   g_test_add_func ("/gui/solver/busy-worker", test_busy_worker);
 
   status = g_test_run ();
-  remove_tree (tmp_dir);
-  g_free (tmp_dir);
+  sw_gui_test_env_finish (tmp_dir);
   return status;
 }

@@ -16,6 +16,8 @@
 #include "sw-trade-plots.h"
 #include "sw-window-private.h"
 
+#include "gui-test-env.h"
+
 #include <glib/gstdio.h>
 #include <math.h>
 #include <string.h>
@@ -24,43 +26,12 @@ static char *tmp_dir;
 
 /* ---- helpers ----------------------------------------------------------- */
 
-static gboolean
-flag_cb (gpointer data)
-{
-  *(gboolean *) data = TRUE;
-  return G_SOURCE_REMOVE;
-}
-
-static void
-wait_until (gboolean (*cond) (gpointer), gpointer data, guint ms, const char *what)
-{
-  gboolean timed_out = FALSE;
-  guint id = g_timeout_add (ms, flag_cb, &timed_out);
-
-  while (!cond (data) && !timed_out)
-    g_main_context_iteration (NULL, TRUE);
-  if (timed_out)
-    g_error ("timed out after %u ms waiting for %s", ms, what);
-  g_source_remove (id);
-}
-
-/* The newest edit has been solved in every phase (the Monte Carlo and the
- * ascent included), shown and painted. */
-static gboolean
-complete (gpointer data)
-{
-  SwWindow *w = data;
-  SwResult *r = sw_window_get_shown_result (w);
-  guint64 posted = sw_solver_get_posted_serial (sw_window_get_solver (w));
-
-  return r != NULL && r->serial == posted && !r->montecarlo_pending && !r->ascent_pending
-         && sw_window_get_drawn_serial (w) >= posted;
-}
-
 static void
 wait_complete (SwWindow *w)
 {
-  wait_until (complete, w, 30000, "the newest result in all its phases");
+  /* The newest edit has been solved in every phase (the Monte Carlo and
+   * the ascent included), shown and painted. */
+  sw_test_wait_until (sw_test_result_complete, w, 30000, "the newest result in all its phases");
 }
 
 static SwWindow *
@@ -72,18 +43,6 @@ window_new (void)
   gtk_window_present (GTK_WINDOW (w));
   wait_complete (w);
   return w;
-}
-
-static void
-window_close (SwWindow *w)
-{
-  GtkWidget *weak = GTK_WIDGET (w);
-
-  g_object_add_weak_pointer (G_OBJECT (w), (gpointer *) &weak);
-  sw_window_close_discarding (w);
-  for (int i = 0; i < 1000 && weak != NULL; i++)
-    g_main_context_iteration (NULL, FALSE);
-  g_assert_null (weak);
 }
 
 static void
@@ -131,7 +90,7 @@ static void
 show_trade (SwWindow *w)
 {
   g_assert_true (sw_window_show_page (w, "trade"));
-  wait_until (plots_allocated, page (w), 10000, "the trade page's plots to be laid out");
+  sw_test_wait_until (plots_allocated, page (w), 10000, "the trade page's plots to be laid out");
 }
 
 static const SwDesign *
@@ -257,7 +216,7 @@ test_tornado (void)
     p = g_strdup_printf ("%.1f %%", 100.0 * rel.mission);
     g_assert_cmpstr (sw_trade_page_get_card_text (page (w), SW_TRADE_CARD_SUCCESS), ==, p);
   }
-  window_close (w);
+  sw_test_window_close (w);
 }
 
 static void
@@ -380,7 +339,7 @@ test_histogram (void)
     g_assert_cmpuint (gtk_drop_down_get_selected (isp_kind), ==, SW_SPREAD_NONE);
     g_assert_false (sw_trade_page_get_percentile_lines (page (w), after));
   }
-  window_close (w);
+  sw_test_window_close (w);
 }
 
 /* Same scale: block area per kilogram is the current stack's (graphene
@@ -513,7 +472,7 @@ test_baseline (void)
   check_deltas (w2);
   g_assert_cmpstr (sw_totals_get_text (sw_window_get_totals (w2), SW_TOTALS_LIFTOFF_DELTA), ==,
                    sw_totals_get_text (sw_window_get_totals (w), SW_TOTALS_LIFTOFF_DELTA));
-  window_close (w2);
+  sw_test_window_close (w2);
 
   /* Undo of the edit and of the pin restores the design exactly. */
   g_assert_true (sw_document_undo (doc));
@@ -532,7 +491,7 @@ test_baseline (void)
   g_assert_null (doc_design (w)->baseline);
   g_assert_true (sw_document_undo (doc));
   g_assert_true (sw_design_equal (doc_design (w)->baseline, original));
-  window_close (w);
+  sw_test_window_close (w);
 }
 
 static gboolean
@@ -578,7 +537,7 @@ test_export (void)
   g_assert_true (sw_export_dialog_is_busy (dialog));
   /* The window goes on solving while the sheet is written. */
   posted = sw_solver_post (sw_window_get_solver (w), doc_design (w));
-  wait_until (export_done, dialog, 60000, "the export");
+  sw_test_wait_until (export_done, dialog, 60000, "the export");
   g_assert_nonnull (sw_export_dialog_get_status (dialog, &failed));
   g_assert_false (failed);
   wait_complete (w);
@@ -600,25 +559,7 @@ test_export (void)
   for (int i = 0; i < 100 && sw_window_get_export_dialog (w) != NULL; i++)
     g_main_context_iteration (NULL, FALSE);
   g_assert_null (sw_window_get_export_dialog (w));
-  window_close (w);
-}
-
-static void
-remove_tree (const char *path)
-{
-  GDir *dir = g_dir_open (path, 0, NULL);
-  const char *name;
-
-  if (dir != NULL)
-    {
-      while ((name = g_dir_read_name (dir)) != NULL)
-        {
-          g_autofree char *child = g_build_filename (path, name, NULL);
-          remove_tree (child);
-        }
-      g_dir_close (dir);
-    }
-  g_remove (path);
+  sw_test_window_close (w);
 }
 
 int
@@ -626,21 +567,7 @@ main (int argc, char **argv)
 {
   int status;
 
-  tmp_dir = g_dir_make_tmp ("stagewright-trade-XXXXXX", NULL);
-  g_assert_nonnull (tmp_dir);
-  for (guint i = 0; i < 4; i++)
-    {
-      const char *vars[] = { "XDG_STATE_HOME", "XDG_DATA_HOME", "XDG_CONFIG_HOME",
-                             "XDG_CACHE_HOME" };
-      g_autofree char *dir = g_build_filename (tmp_dir, vars[i], NULL);
-      g_mkdir_with_parents (dir, 0700);
-      g_setenv (vars[i], dir, TRUE);
-    }
-  g_setenv ("GSETTINGS_BACKEND", "memory", TRUE);
-  g_setenv ("GSK_RENDERER", "cairo", TRUE);
-  g_unsetenv ("STAGEWRIGHT_RECOVERY_DIR");
-
-  gtk_test_init (&argc, &argv, NULL);
+  tmp_dir = sw_gui_test_env_init (&argc, &argv, "stagewright-trade-XXXXXX");
 
   g_test_add_func ("/gui/trade/tornado", test_tornado);
   g_test_add_func ("/gui/trade/histogram", test_histogram);
@@ -648,7 +575,6 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/trade/export", test_export);
 
   status = g_test_run ();
-  remove_tree (tmp_dir);
-  g_free (tmp_dir);
+  sw_gui_test_env_finish (tmp_dir);
   return status;
 }

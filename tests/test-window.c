@@ -12,6 +12,8 @@
 #include "sw-trade-plots.h"
 #include "sw-window-private.h"
 
+#include "gui-test-env.h"
+
 #include <glib/gstdio.h>
 #include <math.h>
 #include <string.h>
@@ -20,42 +22,11 @@ static char *tmp_dir;
 
 /* ---- helpers ----------------------------------------------------------- */
 
-static gboolean
-flag_cb (gpointer data)
-{
-  *(gboolean *) data = TRUE;
-  return G_SOURCE_REMOVE;
-}
-
-/* Runs the main loop until @cond holds; fails the test after @ms. */
-static void
-wait_until (gboolean (*cond) (gpointer), gpointer data, guint ms, const char *what)
-{
-  gboolean timed_out = FALSE;
-  guint id = g_timeout_add (ms, flag_cb, &timed_out);
-
-  while (!cond (data) && !timed_out)
-    g_main_context_iteration (NULL, TRUE);
-  if (timed_out)
-    g_error ("timed out after %u ms waiting for %s", ms, what);
-  g_source_remove (id);
-}
-
-/* The newest edit has been solved, shown and painted. */
-static gboolean
-up_to_date (gpointer data)
-{
-  SwWindow *w = data;
-  SwResult *r = sw_window_get_shown_result (w);
-  guint64 posted = sw_solver_get_posted_serial (sw_window_get_solver (w));
-
-  return r != NULL && r->serial == posted && sw_window_get_drawn_serial (w) >= posted;
-}
-
 static void
 wait_shown (SwWindow *w)
 {
-  wait_until (up_to_date, w, 10000, "the newest result to be drawn");
+  /* The newest edit has been solved, shown and painted. */
+  sw_test_wait_until (sw_test_result_drawn, w, 10000, "the newest result to be drawn");
 }
 
 static SwWindow *
@@ -66,18 +37,6 @@ window_new (void)
   gtk_window_present (GTK_WINDOW (w));
   wait_shown (w);
   return w;
-}
-
-static void
-window_close (SwWindow *w)
-{
-  GtkWidget *weak = GTK_WIDGET (w);
-
-  g_object_add_weak_pointer (G_OBJECT (w), (gpointer *) &weak);
-  sw_window_close_discarding (w);
-  for (int i = 0; i < 1000 && weak != NULL; i++)
-    g_main_context_iteration (NULL, FALSE);
-  g_assert_null (weak);
 }
 
 static char *
@@ -191,7 +150,7 @@ test_builds (void)
     g_assert_cmpfloat (lo, ==, sw_limit_get (SW_LIMIT_ISP_VAC)->min);
     g_assert_cmpfloat (hi, ==, sw_limit_get (SW_LIMIT_ISP_VAC)->max);
   }
-  window_close (w);
+  sw_test_window_close (w);
 }
 
 static void
@@ -255,7 +214,7 @@ test_edit_fields (void)
     double lower = hand_liftoff (upper, 0.3 * 3000.0, 350.0, 0.1);
     assert_liftoff_shown (w, lower);
   }
-  window_close (w);
+  sw_test_window_close (w);
 }
 
 static void
@@ -292,7 +251,7 @@ test_drag_border (void)
   g_assert_true (sw_document_undo (doc));
   g_assert_true (sw_design_equal (sw_document_get_design (doc), before));
   g_assert_false (sw_document_can_undo (doc));
-  window_close (w);
+  sw_test_window_close (w);
 }
 
 static void
@@ -341,7 +300,7 @@ test_undo_exact (void)
   g_assert_true (sw_design_equal (sw_window_get_shown_result (w)->design,
                                   sw_document_get_design (doc)));
   g_ptr_array_unref (states);
-  window_close (w);
+  sw_test_window_close (w);
 }
 
 static void
@@ -407,8 +366,8 @@ test_save_reopen (void)
   g_assert_cmpint (type, ==, GTK_MESSAGE_WARNING);
   g_assert_nonnull (strstr (message, "colour"));
 
-  window_close (w2);
-  window_close (w);
+  sw_test_window_close (w2);
+  sw_test_window_close (w);
 }
 
 static gboolean
@@ -430,14 +389,14 @@ test_recovery (void)
   load_demo (w, "medium-cargo.stagewright");
   gtk_spin_button_set_value (field (w, SW_INSPECTOR_PAYLOAD), 7500.0);
   g_assert_false (g_file_test (path, G_FILE_TEST_EXISTS));
-  wait_until (file_exists, path, 5000, "the recovery copy");
+  sw_test_wait_until (file_exists, path, 5000, "the recovery copy");
   {
     g_autoptr (SwDesign) copy = sw_design_load (path, NULL, &error);
     g_assert_no_error (error);
     g_assert_true (sw_design_equal (copy, sw_document_get_design (sw_window_get_document (w))));
   }
   /* A clean close (here: discarding on purpose) removes it. */
-  window_close (w);
+  sw_test_window_close (w);
   g_assert_false (g_file_test (path, G_FILE_TEST_EXISTS));
 
   /* A crash: the copy is left behind. */
@@ -467,7 +426,7 @@ test_recovery (void)
   g_assert_true (sw_document_get_modified (sw_window_get_document (w)));
   wait_shown (w);
   g_assert_cmpfloat (sw_window_get_shown_result (w)->design->payload_kg, ==, 1234.5);
-  window_close (w);
+  sw_test_window_close (w);
   g_assert_false (g_file_test (path, G_FILE_TEST_EXISTS));
 }
 
@@ -507,7 +466,7 @@ test_thousand_edits (void)
   g_assert_cmpstr (totals_text (w, SW_TOTALS_LIFTOFF), ==, liftoff);
   g_test_message ("1,001 edits: %" G_GUINT64_FORMAT " requests dropped unsolved",
                   sw_solver_get_dropped (sw_window_get_solver (w)));
-  window_close (w);
+  sw_test_window_close (w);
 }
 
 /* The colour of the pixel at @x, @y of an ARGB32 surface. */
@@ -608,28 +567,10 @@ test_plots_current (void)
   assert_marker_at (w, 0, shot, &origin);
   assert_marker_at (w, 1, shot, &origin);
   cairo_surface_destroy (shot);
-  window_close (w);
+  sw_test_window_close (w);
 }
 
 /* ---- main -------------------------------------------------------------- */
-
-static void
-remove_tree (const char *path)
-{
-  GDir *dir = g_dir_open (path, 0, NULL);
-  const char *name;
-
-  if (dir != NULL)
-    {
-      while ((name = g_dir_read_name (dir)) != NULL)
-        {
-          g_autofree char *child = g_build_filename (path, name, NULL);
-          remove_tree (child);
-        }
-      g_dir_close (dir);
-    }
-  g_remove (path);
-}
 
 int
 main (int argc, char **argv)
@@ -638,21 +579,7 @@ main (int argc, char **argv)
 
   /* Private folders for state (the recovery copy), data (recent files) and
    * settings; the schema comes from the build folder. */
-  tmp_dir = g_dir_make_tmp ("stagewright-gui-XXXXXX", NULL);
-  g_assert_nonnull (tmp_dir);
-  for (guint i = 0; i < 4; i++)
-    {
-      const char *vars[] = { "XDG_STATE_HOME", "XDG_DATA_HOME", "XDG_CONFIG_HOME",
-                             "XDG_CACHE_HOME" };
-      g_autofree char *dir = g_build_filename (tmp_dir, vars[i], NULL);
-      g_mkdir_with_parents (dir, 0700);
-      g_setenv (vars[i], dir, TRUE);
-    }
-  g_setenv ("GSETTINGS_BACKEND", "memory", TRUE);
-  g_setenv ("GSK_RENDERER", "cairo", TRUE);
-  g_unsetenv ("STAGEWRIGHT_RECOVERY_DIR");
-
-  gtk_test_init (&argc, &argv, NULL);
+  tmp_dir = sw_gui_test_env_init (&argc, &argv, "stagewright-gui-XXXXXX");
 
   g_test_add_func ("/gui/window/builds", test_builds);
   g_test_add_func ("/gui/window/edit-fields", test_edit_fields);
@@ -664,7 +591,6 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/window/plots-current", test_plots_current);
 
   status = g_test_run ();
-  remove_tree (tmp_dir);
-  g_free (tmp_dir);
+  sw_gui_test_env_finish (tmp_dir);
   return status;
 }

@@ -7,6 +7,7 @@
 
 #include "sw-budget.h"
 #include "sw-limits.h"
+#include "sw-optional-keys.h"
 
 #include <glib/gi18n-lib.h>
 #include <glib/gstdio.h>
@@ -25,6 +26,13 @@ static const char *const orbit_keys[] = {
 };
 static const char *const stage_keys[] = {
   "name", "isp_vac_s", "isp_sl_s", "structural_coefficient", "delta_v_share", NULL
+};
+/* The optional models add their own keys to the design and to each stage. */
+static const char *const *const root_key_lists[] = {
+  root_keys, sw_propulsion_design_keys, sw_uncertainty_design_keys, NULL
+};
+static const char *const *const stage_key_lists[] = {
+  stage_keys, sw_propulsion_stage_keys, sw_reliability_stage_keys, NULL
 };
 
 SwDesign *
@@ -172,201 +180,15 @@ typedef struct {
   GPtrArray  *warnings;
 } LoadContext;
 
-static const char *
-display_file (const char *file)
-{
-  return file != NULL ? file : _("(design)");
-}
-
-static void G_GNUC_PRINTF (4, 5)
-set_field_error (GError **error, SwError code, const LoadContext *ctx, const char *fmt, ...)
-{
-  va_list args;
-  g_autofree char *msg = NULL;
-
-  va_start (args, fmt);
-  msg = g_strdup_vprintf (fmt, args);
-  va_end (args);
-  g_set_error (error, SW_ERROR, code, "%s: %s", display_file (ctx->file), msg);
-}
-
-static char *
-join_path (const char *prefix, const char *key)
-{
-  return prefix[0] != '\0' ? g_strdup_printf ("%s.%s", prefix, key) : g_strdup (key);
-}
-
-static gboolean
-key_in (const char *key, const char *const *keys)
-{
-  for (guint i = 0; keys[i] != NULL; i++)
-    if (strcmp (key, keys[i]) == 0)
-      return TRUE;
-  return FALSE;
-}
-
-static void
-warn_unknown_keys (JsonObject *obj, const LoadContext *ctx, const char *prefix,
-                   const char *const *known, const char *const *known2,
-                   const char *const *known3)
-{
-  g_autoptr (GList) members = NULL;
-
-  if (ctx->warnings == NULL)
-    return;
-  members = json_object_get_members (obj);
-  for (GList *l = members; l != NULL; l = l->next)
-    {
-      const char *key = l->data;
-      g_autofree char *path = NULL;
-
-      if (key_in (key, known) || (known2 != NULL && key_in (key, known2))
-          || (known3 != NULL && key_in (key, known3)))
-        continue;
-      path = join_path (prefix, key);
-      g_ptr_array_add (ctx->warnings,
-                       g_strdup_printf (_("%s: %s: unknown key, ignored (it will not be saved)"),
-                                        display_file (ctx->file), path));
-    }
-}
-
-static const char *
-node_type_name (JsonNode *node)
-{
-  switch (json_node_get_node_type (node))
-    {
-    case JSON_NODE_OBJECT:
-      return _("an object");
-    case JSON_NODE_ARRAY:
-      return _("an array");
-    case JSON_NODE_NULL:
-      return _("null");
-    case JSON_NODE_VALUE:
-    default:
-      switch (json_node_get_value_type (node))
-        {
-        case G_TYPE_BOOLEAN:
-          return _("a boolean");
-        case G_TYPE_STRING:
-          return _("a string");
-        default:
-          return _("a number");
-        }
-    }
-}
-
-static gboolean
-node_is_number (JsonNode *node)
-{
-  GType t;
-
-  if (json_node_get_node_type (node) != JSON_NODE_VALUE)
-    return FALSE;
-  t = json_node_get_value_type (node);
-  return t == G_TYPE_DOUBLE || t == G_TYPE_INT64;
-}
-
-static gboolean
-node_is_string (JsonNode *node)
-{
-  return json_node_get_node_type (node) == JSON_NODE_VALUE
-         && json_node_get_value_type (node) == G_TYPE_STRING;
-}
-
-/* Reads an optional or required number; *present tells which. */
-static gboolean
-read_number (JsonObject *obj, const char *key, const LoadContext *ctx, const char *prefix,
-             gboolean required, double *value, gboolean *present, GError **error)
-{
-  g_autofree char *path = join_path (prefix, key);
-  JsonNode *node = json_object_get_member (obj, key);
-
-  if (present != NULL)
-    *present = FALSE;
-  if (node == NULL)
-    {
-      if (required)
-        set_field_error (error, SW_ERROR_MISSING, ctx, _("%s: required number is missing"), path);
-      return !required;
-    }
-  if (!node_is_number (node))
-    {
-      set_field_error (error, SW_ERROR_TYPE, ctx, _("%s: expected a number, found %s"), path,
-                       node_type_name (node));
-      return FALSE;
-    }
-  *value = json_node_get_double (node);
-  if (!isfinite (*value))
-    {
-      set_field_error (error, SW_ERROR_NOT_FINITE, ctx,
-                       _("%s: the number is not finite (too large to represent)"), path);
-      return FALSE;
-    }
-  if (present != NULL)
-    *present = TRUE;
-  return TRUE;
-}
-
-static gboolean
-read_string (JsonObject *obj, const char *key, const LoadContext *ctx, const char *prefix,
-             gboolean required, const char **value, GError **error)
-{
-  g_autofree char *path = join_path (prefix, key);
-  JsonNode *node = json_object_get_member (obj, key);
-
-  *value = NULL;
-  if (node == NULL)
-    {
-      if (required)
-        set_field_error (error, SW_ERROR_MISSING, ctx, _("%s: required text is missing"), path);
-      return !required;
-    }
-  if (!node_is_string (node))
-    {
-      set_field_error (error, SW_ERROR_TYPE, ctx, _("%s: expected text, found %s"), path,
-                       node_type_name (node));
-      return FALSE;
-    }
-  *value = json_node_get_string (node);
-  return TRUE;
-}
-
-static JsonObject *
-read_object (JsonObject *obj, const char *key, const LoadContext *ctx, const char *prefix,
-             gboolean required, gboolean *ok, GError **error)
-{
-  g_autofree char *path = join_path (prefix, key);
-  JsonNode *node = json_object_get_member (obj, key);
-
-  *ok = TRUE;
-  if (node == NULL)
-    {
-      if (required)
-        {
-          set_field_error (error, SW_ERROR_MISSING, ctx, _("%s: required object is missing"), path);
-          *ok = FALSE;
-        }
-      return NULL;
-    }
-  if (json_node_get_node_type (node) != JSON_NODE_OBJECT)
-    {
-      set_field_error (error, SW_ERROR_TYPE, ctx, _("%s: expected an object, found %s"), path,
-                       node_type_name (node));
-      *ok = FALSE;
-      return NULL;
-    }
-  return json_node_get_object (node);
-}
-
 static gboolean
 copy_text (char *dest, gsize size, const char *text, const LoadContext *ctx, const char *path,
            GError **error)
 {
   if (strlen (text) >= size)
     {
-      set_field_error (error, SW_ERROR_RANGE, ctx,
-                       _("%s: the text is %zu bytes long; at most %zu are accepted"), path,
-                       strlen (text), size - 1);
+      sw_optional_set_error (error, SW_ERROR_RANGE, ctx->file,
+                             _("%s: the text is %zu bytes long; at most %zu are accepted"), path,
+                             strlen (text), size - 1);
       return FALSE;
     }
   g_strlcpy (dest, text, size);
@@ -378,22 +200,25 @@ load_stage (JsonObject *obj, const LoadContext *ctx, const char *prefix, SwStage
             GError **error)
 {
   const char *name = NULL;
-  g_autofree char *name_path = join_path (prefix, "name");
+  g_autofree char *name_path = sw_optional_path (prefix, "name");
 
-  warn_unknown_keys (obj, ctx, prefix, stage_keys, sw_propulsion_stage_keys,
-                     sw_reliability_stage_keys);
+  sw_optional_warn_unknown_full (obj, ctx->file, prefix, stage_key_lists, ctx->warnings);
 
-  if (!read_string (obj, "name", ctx, prefix, FALSE, &name, error))
+  if (!sw_optional_read_string_full (obj, "name", ctx->file, prefix, FALSE, &name, error))
     return FALSE;
   if (name != NULL && !copy_text (stage->name, sizeof stage->name, name, ctx, name_path, error))
     return FALSE;
-  return read_number (obj, "isp_vac_s", ctx, prefix, TRUE, &stage->isp_vac_s, NULL, error)
-         && read_number (obj, "isp_sl_s", ctx, prefix, FALSE, &stage->isp_sl_s,
-                         &stage->has_isp_sl, error)
-         && read_number (obj, "structural_coefficient", ctx, prefix, TRUE,
-                         &stage->structural_coefficient, NULL, error)
-         && read_number (obj, "delta_v_share", ctx, prefix, FALSE, &stage->delta_v_share,
-                         &stage->has_share, error)
+  return sw_optional_read_number_full (obj, "isp_vac_s", ctx->file, prefix, TRUE,
+                                       SW_OPTIONAL_NO_LIMIT, FALSE, &stage->isp_vac_s, NULL, error)
+         && sw_optional_read_number_full (obj, "isp_sl_s", ctx->file, prefix, FALSE,
+                                          SW_OPTIONAL_NO_LIMIT, FALSE, &stage->isp_sl_s,
+                                          &stage->has_isp_sl, error)
+         && sw_optional_read_number_full (obj, "structural_coefficient", ctx->file, prefix, TRUE,
+                                          SW_OPTIONAL_NO_LIMIT, FALSE,
+                                          &stage->structural_coefficient, NULL, error)
+         && sw_optional_read_number_full (obj, "delta_v_share", ctx->file, prefix, FALSE,
+                                          SW_OPTIONAL_NO_LIMIT, FALSE, &stage->delta_v_share,
+                                          &stage->has_share, error)
          && sw_propulsion_load_stage (obj, ctx->file, prefix, &stage->propulsion,
                                       ctx->warnings, error)
          && sw_reliability_load_stage (obj, ctx->file, prefix, &stage->reliability,
@@ -407,25 +232,27 @@ load_mission (JsonObject *obj, const LoadContext *ctx, const char *prefix, SwMis
   JsonObject *orbit;
   gboolean ok, has_dv;
   const char *loss_model = NULL;
-  g_autofree char *orbit_path = join_path (prefix, "orbit");
+  g_autofree char *orbit_path = sw_optional_path (prefix, "orbit");
 
-  warn_unknown_keys (obj, ctx, prefix, mission_keys, NULL, NULL);
+  sw_optional_warn_unknown (obj, ctx->file, prefix, mission_keys, ctx->warnings);
 
-  orbit = read_object (obj, "orbit", ctx, prefix, FALSE, &ok, error);
+  orbit = sw_optional_read_object_full (obj, "orbit", ctx->file, prefix, FALSE, &ok, error);
   if (!ok)
     return FALSE;
-  if (!read_number (obj, "delta_v_m_s", ctx, prefix, FALSE, &m->delta_v_m_s, &has_dv, error))
+  if (!sw_optional_read_number_full (obj, "delta_v_m_s", ctx->file, prefix, FALSE,
+                                     SW_OPTIONAL_NO_LIMIT, FALSE, &m->delta_v_m_s, &has_dv, error))
     return FALSE;
   if (has_dv && orbit != NULL)
     {
-      set_field_error (error, SW_ERROR_VALUE, ctx,
-                       _("%s: give either delta_v_m_s or orbit, not both"), prefix);
+      sw_optional_set_error (error, SW_ERROR_VALUE, ctx->file,
+                             _("%s: give either delta_v_m_s or orbit, not both"), prefix);
       return FALSE;
     }
   if (!has_dv && orbit == NULL)
     {
-      set_field_error (error, SW_ERROR_MISSING, ctx,
-                       _("%s: needs either delta_v_m_s (a number) or orbit (an object)"), prefix);
+      sw_optional_set_error (error, SW_ERROR_MISSING, ctx->file,
+                             _("%s: needs either delta_v_m_s (a number) or orbit (an object)"),
+                             prefix);
       return FALSE;
     }
   if (has_dv)
@@ -435,15 +262,20 @@ load_mission (JsonObject *obj, const LoadContext *ctx, const char *prefix, SwMis
     }
 
   m->kind = SW_MISSION_ORBIT;
-  warn_unknown_keys (orbit, ctx, orbit_path, orbit_keys, NULL, NULL);
-  if (!read_number (orbit, "altitude_km", ctx, orbit_path, TRUE, &m->altitude_km, NULL, error)
-      || !read_number (orbit, "inclination_deg", ctx, orbit_path, TRUE, &m->inclination_deg,
-                       NULL, error)
-      || !read_number (orbit, "site_latitude_deg", ctx, orbit_path, TRUE,
-                       &m->site_latitude_deg, NULL, error)
-      || !read_number (obj, "losses_m_s", ctx, prefix, FALSE, &m->losses_m_s, &m->has_losses,
-                       error)
-      || !read_string (obj, "loss_model", ctx, prefix, FALSE, &loss_model, error))
+  sw_optional_warn_unknown (orbit, ctx->file, orbit_path, orbit_keys, ctx->warnings);
+  if (!sw_optional_read_number_full (orbit, "altitude_km", ctx->file, orbit_path, TRUE,
+                                     SW_OPTIONAL_NO_LIMIT, FALSE, &m->altitude_km, NULL, error)
+      || !sw_optional_read_number_full (orbit, "inclination_deg", ctx->file, orbit_path, TRUE,
+                                        SW_OPTIONAL_NO_LIMIT, FALSE, &m->inclination_deg, NULL,
+                                        error)
+      || !sw_optional_read_number_full (orbit, "site_latitude_deg", ctx->file, orbit_path, TRUE,
+                                        SW_OPTIONAL_NO_LIMIT, FALSE, &m->site_latitude_deg, NULL,
+                                        error)
+      || !sw_optional_read_number_full (obj, "losses_m_s", ctx->file, prefix, FALSE,
+                                        SW_OPTIONAL_NO_LIMIT, FALSE, &m->losses_m_s, &m->has_losses,
+                                        error)
+      || !sw_optional_read_string_full (obj, "loss_model", ctx->file, prefix, FALSE, &loss_model,
+                                        error))
     return FALSE;
 
   m->loss_model = SW_LOSS_ALLOWANCE;
@@ -453,20 +285,21 @@ load_mission (JsonObject *obj, const LoadContext *ctx, const char *prefix, SwMis
         m->loss_model = SW_LOSS_SIMULATE;
       else if (strcmp (loss_model, "allowance") != 0)
         {
-          g_autofree char *path = join_path (prefix, "loss_model");
-          set_field_error (error, SW_ERROR_VALUE, ctx,
-                           _("%s: \"%s\" is not a loss model; use \"allowance\" or \"simulate\""),
-                           path, loss_model);
+          g_autofree char *path = sw_optional_path (prefix, "loss_model");
+          sw_optional_set_error (error, SW_ERROR_VALUE, ctx->file,
+                                 _("%s: \"%s\" is not a loss model; use \"allowance\" or "
+                                   "\"simulate\""),
+                                 path, loss_model);
           return FALSE;
         }
     }
   if (!m->has_losses && m->loss_model == SW_LOSS_ALLOWANCE && ctx->warnings != NULL)
     {
-      g_autofree char *path = join_path (prefix, "losses_m_s");
+      g_autofree char *path = sw_optional_path (prefix, "losses_m_s");
       g_ptr_array_add (ctx->warnings,
                        g_strdup_printf (_("%s: %s is missing: no gravity, drag or steering "
                                           "losses are assumed"),
-                                        display_file (ctx->file), path));
+                                        sw_optional_display_file (ctx->file), path));
     }
   return TRUE;
 }
@@ -483,112 +316,117 @@ load_design_object (JsonObject *root, const LoadContext *ctx, const char *prefix
   gboolean ok;
   guint n;
 
-  warn_unknown_keys (root, ctx, prefix, root_keys, sw_propulsion_design_keys,
-                     sw_uncertainty_design_keys);
+  sw_optional_warn_unknown_full (root, ctx->file, prefix, root_key_lists, ctx->warnings);
 
   /* format and version are required at the top; a pinned baseline inherits them. */
-  if (!read_string (root, "format", ctx, prefix, !is_baseline, &format, error))
+  if (!sw_optional_read_string_full (root, "format", ctx->file, prefix, !is_baseline, &format,
+                                     error))
     return NULL;
   if (format != NULL && strcmp (format, SW_DESIGN_FORMAT) != 0)
     {
-      g_autofree char *path = join_path (prefix, "format");
-      set_field_error (error, SW_ERROR_FORMAT, ctx,
-                       _("%s: \"%s\" is not a Stagewright design (expected \"%s\")"), path,
-                       format, SW_DESIGN_FORMAT);
+      g_autofree char *path = sw_optional_path (prefix, "format");
+      sw_optional_set_error (error, SW_ERROR_FORMAT, ctx->file,
+                             _("%s: \"%s\" is not a Stagewright design (expected \"%s\")"), path,
+                             format, SW_DESIGN_FORMAT);
       return NULL;
     }
   version_node = json_object_get_member (root, "version");
   if (version_node == NULL && !is_baseline)
     {
-      set_field_error (error, SW_ERROR_MISSING, ctx, _("version: required number is missing"));
+      sw_optional_set_error (error, SW_ERROR_MISSING, ctx->file,
+                             _("version: required number is missing"));
       return NULL;
     }
   if (version_node != NULL)
     {
-      g_autofree char *path = join_path (prefix, "version");
+      g_autofree char *path = sw_optional_path (prefix, "version");
       double v;
 
-      if (!node_is_number (version_node))
+      if (!sw_optional_node_is_number (version_node))
         {
-          set_field_error (error, SW_ERROR_TYPE, ctx, _("%s: expected a whole number, found %s"),
-                           path, node_type_name (version_node));
+          sw_optional_set_error (error, SW_ERROR_TYPE, ctx->file,
+                                 _("%s: expected a whole number, found %s"), path,
+                                 sw_optional_node_type_name (version_node));
           return NULL;
         }
       v = json_node_get_double (version_node);
       if (!isfinite (v) || v != floor (v) || v < 1)
         {
-          set_field_error (error, SW_ERROR_VALUE, ctx,
-                           _("%s: %g is not a format version (whole numbers from 1)"), path, v);
+          sw_optional_set_error (error, SW_ERROR_VALUE, ctx->file,
+                                 _("%s: %g is not a format version (whole numbers from 1)"),
+                                 path, v);
           return NULL;
         }
       if (v > SW_DESIGN_VERSION)
         {
-          set_field_error (error, SW_ERROR_VERSION, ctx,
-                           _("%s: the file is format version %.0f, written by a newer "
-                             "Stagewright; this one reads versions up to %d"),
-                           path, v, SW_DESIGN_VERSION);
+          sw_optional_set_error (error, SW_ERROR_VERSION, ctx->file,
+                                 _("%s: the file is format version %.0f, written by a newer "
+                                   "Stagewright; this one reads versions up to %d"),
+                                 path, v, SW_DESIGN_VERSION);
           return NULL;
         }
     }
 
-  if (!read_string (root, "name", ctx, prefix, FALSE, &name, error)
-      || !read_string (root, "notes", ctx, prefix, FALSE, &notes, error))
+  if (!sw_optional_read_string_full (root, "name", ctx->file, prefix, FALSE, &name, error)
+      || !sw_optional_read_string_full (root, "notes", ctx->file, prefix, FALSE, &notes, error))
     return NULL;
   if (name != NULL)
     {
-      g_autofree char *path = join_path (prefix, "name");
+      g_autofree char *path = sw_optional_path (prefix, "name");
       if (!copy_text (d->name, sizeof d->name, name, ctx, path, error))
         return NULL;
     }
   if (notes != NULL)
     sw_design_set_notes (d, notes);
 
-  if (!read_number (root, "payload_kg", ctx, prefix, TRUE, &d->payload_kg, NULL, error))
+  if (!sw_optional_read_number_full (root, "payload_kg", ctx->file, prefix, TRUE,
+                                     SW_OPTIONAL_NO_LIMIT, FALSE, &d->payload_kg, NULL, error))
     return NULL;
 
-  mission = read_object (root, "mission", ctx, prefix, TRUE, &ok, error);
+  mission = sw_optional_read_object_full (root, "mission", ctx->file, prefix, TRUE, &ok, error);
   if (!ok)
     return NULL;
   {
-    g_autofree char *path = join_path (prefix, "mission");
+    g_autofree char *path = sw_optional_path (prefix, "mission");
     if (!load_mission (mission, ctx, path, &d->mission, error))
       return NULL;
   }
 
-  if (!read_string (root, "split", ctx, prefix, TRUE, &split, error))
+  if (!sw_optional_read_string_full (root, "split", ctx->file, prefix, TRUE, &split, error))
     return NULL;
   if (!sw_split_mode_from_string (split, &d->split))
     {
-      g_autofree char *path = join_path (prefix, "split");
-      set_field_error (error, SW_ERROR_VALUE, ctx,
-                       _("%s: \"%s\" is not a split mode; use \"equal\", \"optimal\" or "
-                         "\"manual\""),
-                       path, split);
+      g_autofree char *path = sw_optional_path (prefix, "split");
+      sw_optional_set_error (error, SW_ERROR_VALUE, ctx->file,
+                             _("%s: \"%s\" is not a split mode; use \"equal\", \"optimal\" or "
+                               "\"manual\""),
+                             path, split);
       return NULL;
     }
 
   stages_node = json_object_get_member (root, "stages");
   {
-    g_autofree char *path = join_path (prefix, "stages");
+    g_autofree char *path = sw_optional_path (prefix, "stages");
     if (stages_node == NULL)
       {
-        set_field_error (error, SW_ERROR_MISSING, ctx, _("%s: required list of stages is missing"),
-                         path);
+        sw_optional_set_error (error, SW_ERROR_MISSING, ctx->file,
+                               _("%s: required list of stages is missing"), path);
         return NULL;
       }
     if (json_node_get_node_type (stages_node) != JSON_NODE_ARRAY)
       {
-        set_field_error (error, SW_ERROR_TYPE, ctx, _("%s: expected a list of stages, found %s"),
-                         path, node_type_name (stages_node));
+        sw_optional_set_error (error, SW_ERROR_TYPE, ctx->file,
+                               _("%s: expected a list of stages, found %s"), path,
+                               sw_optional_node_type_name (stages_node));
         return NULL;
       }
     stages = json_node_get_array (stages_node);
     n = json_array_get_length (stages);
     if (n < 1 || n > SW_MAX_STAGES)
       {
-        set_field_error (error, SW_ERROR_RANGE, ctx,
-                         _("%s: %u stages given; a design has 1 to %d stages"), path, n,
-                         SW_MAX_STAGES);
+        sw_optional_set_error (error, SW_ERROR_RANGE, ctx->file,
+                               _("%s: %u stages given; a design has 1 to %d stages"), path, n,
+                               SW_MAX_STAGES);
         return NULL;
       }
   }
@@ -601,8 +439,9 @@ load_design_object (JsonObject *root, const LoadContext *ctx, const char *prefix
 
       if (json_node_get_node_type (node) != JSON_NODE_OBJECT)
         {
-          set_field_error (error, SW_ERROR_TYPE, ctx, _("%s: expected a stage object, found %s"),
-                           path, node_type_name (node));
+          sw_optional_set_error (error, SW_ERROR_TYPE, ctx->file,
+                                 _("%s: expected a stage object, found %s"), path,
+                                 sw_optional_node_type_name (node));
           return NULL;
         }
       g_snprintf (d->stages[i].name, sizeof d->stages[i].name, _("Stage %u"), i + 1);
@@ -616,16 +455,16 @@ load_design_object (JsonObject *root, const LoadContext *ctx, const char *prefix
                                    error))
     return NULL;
 
-  baseline = read_object (root, "baseline", ctx, prefix, FALSE, &ok, error);
+  baseline = sw_optional_read_object_full (root, "baseline", ctx->file, prefix, FALSE, &ok, error);
   if (!ok)
     return NULL;
   if (baseline != NULL)
     {
-      g_autofree char *path = join_path (prefix, "baseline");
+      g_autofree char *path = sw_optional_path (prefix, "baseline");
       if (is_baseline)
         {
-          set_field_error (error, SW_ERROR_NESTING, ctx,
-                           _("%s: a baseline cannot have a baseline of its own"), path);
+          sw_optional_set_error (error, SW_ERROR_NESTING, ctx->file,
+                                 _("%s: a baseline cannot have a baseline of its own"), path);
           return NULL;
         }
       d->baseline = load_design_object (baseline, ctx, path, TRUE, error);
@@ -660,10 +499,10 @@ check_nesting (const char *data, gsize length, const LoadContext *ctx, GError **
         {
           if (++depth > SW_DESIGN_MAX_DEPTH)
             {
-              set_field_error (error, SW_ERROR_NESTING, ctx,
-                               _("objects and lists are nested more than %d deep; a design "
-                                 "never needs that"),
-                               SW_DESIGN_MAX_DEPTH);
+              sw_optional_set_error (error, SW_ERROR_NESTING, ctx->file,
+                                     _("objects and lists are nested more than %d deep; a design "
+                                       "never needs that"),
+                                     SW_DESIGN_MAX_DEPTH);
               return FALSE;
             }
         }
@@ -683,8 +522,9 @@ sw_design_from_json (JsonNode *root, const char *filename, GPtrArray *warnings, 
 
   if (json_node_get_node_type (root) != JSON_NODE_OBJECT)
     {
-      set_field_error (error, SW_ERROR_TYPE, &ctx,
-                       _("the file holds %s; a design is a JSON object"), node_type_name (root));
+      sw_optional_set_error (error, SW_ERROR_TYPE, ctx.file,
+                             _("the file holds %s; a design is a JSON object"),
+                             sw_optional_node_type_name (root));
       return NULL;
     }
   d = load_design_object (json_node_get_object (root), &ctx, "", FALSE, error);
@@ -712,19 +552,20 @@ sw_design_load_data (const char *data, gssize length, const char *filename,
   len = length < 0 ? strlen (data) : (gsize) length;
   if (len > SW_DESIGN_MAX_BYTES)
     {
-      set_field_error (error, SW_ERROR_TOO_LARGE, &ctx,
-                       _("the file is %zu bytes; a design file may be at most %d bytes (1 MiB)"),
-                       len, SW_DESIGN_MAX_BYTES);
+      sw_optional_set_error (error, SW_ERROR_TOO_LARGE, ctx.file,
+                             _("the file is %zu bytes; a design file may be at most %d bytes "
+                               "(1 MiB)"),
+                             len, SW_DESIGN_MAX_BYTES);
       return NULL;
     }
   if (len == 0)
     {
-      set_field_error (error, SW_ERROR_SYNTAX, &ctx, _("the file is empty"));
+      sw_optional_set_error (error, SW_ERROR_SYNTAX, ctx.file, _("the file is empty"));
       return NULL;
     }
   if (!g_utf8_validate (data, len, NULL))
     {
-      set_field_error (error, SW_ERROR_SYNTAX, &ctx, _("the file is not UTF-8 text"));
+      sw_optional_set_error (error, SW_ERROR_SYNTAX, ctx.file, _("the file is not UTF-8 text"));
       return NULL;
     }
   if (!check_nesting (data, len, &ctx, error))
@@ -733,13 +574,13 @@ sw_design_load_data (const char *data, gssize length, const char *filename,
   parser = json_parser_new_immutable ();
   if (!json_parser_load_from_data (parser, data, len, &local_error))
     {
-      set_field_error (error, SW_ERROR_SYNTAX, &ctx, _("not valid JSON: %s"),
-                       local_error->message);
+      sw_optional_set_error (error, SW_ERROR_SYNTAX, ctx.file, _("not valid JSON: %s"),
+                             local_error->message);
       return NULL;
     }
   if (json_parser_get_root (parser) == NULL)
     {
-      set_field_error (error, SW_ERROR_SYNTAX, &ctx, _("the file holds no JSON value"));
+      sw_optional_set_error (error, SW_ERROR_SYNTAX, ctx.file, _("the file holds no JSON value"));
       return NULL;
     }
   return sw_design_from_json (json_parser_get_root (parser), filename, warnings, error);
@@ -759,9 +600,10 @@ sw_design_load (const char *filename, GPtrArray *warnings, GError **error)
   /* Check the size before reading so a huge file is never pulled into memory. */
   if (g_stat (filename, &st) == 0 && st.st_size > SW_DESIGN_MAX_BYTES)
     {
-      set_field_error (error, SW_ERROR_TOO_LARGE, &ctx,
-                       _("the file is %lld bytes; a design file may be at most %d bytes (1 MiB)"),
-                       (long long) st.st_size, SW_DESIGN_MAX_BYTES);
+      sw_optional_set_error (error, SW_ERROR_TOO_LARGE, ctx.file,
+                             _("the file is %lld bytes; a design file may be at most %d bytes "
+                               "(1 MiB)"),
+                             (long long) st.st_size, SW_DESIGN_MAX_BYTES);
       return NULL;
     }
   if (!g_file_get_contents (filename, &data, &len, &local_error))
@@ -775,79 +617,62 @@ sw_design_load (const char *filename, GPtrArray *warnings, GError **error)
 /* ---- validation -------------------------------------------------------- */
 
 static gboolean
-check_limit (SwLimitId id, double value, const LoadContext *ctx, const char *prefix,
-             GError **error)
-{
-  const SwLimit *l = sw_limit_get (id);
-  g_autofree char *path = NULL;
-
-  if (sw_limit_contains (id, value))
-    return TRUE;
-  path = join_path (prefix, l->key);
-  if (!isfinite (value))
-    set_field_error (error, SW_ERROR_NOT_FINITE, ctx, _("%s: the value is not a finite number"),
-                     path);
-  else
-    set_field_error (error, SW_ERROR_RANGE, ctx,
-                     _("%s: %g is outside the accepted range %s%.10g to %.10g%s%s (%s)"), path, value,
-                     l->min_exclusive ? _("above ") : "", l->min, l->max,
-                     l->unit[0] ? " " : "", l->unit, l->why);
-  return FALSE;
-}
-
-static gboolean
 validate_design (const SwDesign *d, const LoadContext *ctx, const char *prefix, GError **error)
 {
-  g_autofree char *mission = join_path (prefix, "mission");
-  g_autofree char *orbit = join_path (mission, "orbit");
+  g_autofree char *mission = sw_optional_path (prefix, "mission");
+  g_autofree char *orbit = sw_optional_path (mission, "orbit");
   double share_sum = 0.0;
 
-  if (!check_limit (SW_LIMIT_PAYLOAD, d->payload_kg, ctx, prefix, error))
+  if (!sw_optional_check (SW_LIMIT_PAYLOAD, d->payload_kg, ctx->file, prefix, error))
     return FALSE;
   if (d->notes != NULL && strlen (d->notes) > sw_limit_get (SW_LIMIT_NOTES_LENGTH)->max)
     {
-      g_autofree char *path = join_path (prefix, "notes");
-      set_field_error (error, SW_ERROR_RANGE, ctx, _("%s: the notes are longer than %g bytes"),
-                       path, sw_limit_get (SW_LIMIT_NOTES_LENGTH)->max);
+      g_autofree char *path = sw_optional_path (prefix, "notes");
+      sw_optional_set_error (error, SW_ERROR_RANGE, ctx->file,
+                             _("%s: the notes are longer than %g bytes"), path,
+                             sw_limit_get (SW_LIMIT_NOTES_LENGTH)->max);
       return FALSE;
     }
 
   if (d->mission.kind == SW_MISSION_DELTA_V)
     {
-      if (!check_limit (SW_LIMIT_DELTA_V, d->mission.delta_v_m_s, ctx, mission, error))
+      if (!sw_optional_check (SW_LIMIT_DELTA_V, d->mission.delta_v_m_s, ctx->file, mission, error))
         return FALSE;
     }
   else
     {
       double az;
 
-      if (!check_limit (SW_LIMIT_ALTITUDE, d->mission.altitude_km, ctx, orbit, error)
-          || !check_limit (SW_LIMIT_INCLINATION, d->mission.inclination_deg, ctx, orbit, error)
-          || !check_limit (SW_LIMIT_SITE_LATITUDE, d->mission.site_latitude_deg, ctx, orbit,
-                           error)
+      if (!sw_optional_check (SW_LIMIT_ALTITUDE, d->mission.altitude_km, ctx->file, orbit, error)
+          || !sw_optional_check (SW_LIMIT_INCLINATION, d->mission.inclination_deg, ctx->file, orbit,
+                                 error)
+          || !sw_optional_check (SW_LIMIT_SITE_LATITUDE, d->mission.site_latitude_deg, ctx->file,
+                                 orbit, error)
           || (d->mission.has_losses
-              && !check_limit (SW_LIMIT_LOSSES, d->mission.losses_m_s, ctx, mission, error)))
+              && !sw_optional_check (SW_LIMIT_LOSSES, d->mission.losses_m_s, ctx->file, mission,
+                                     error)))
         return FALSE;
       if (fabs (d->mission.site_latitude_deg) > 89.99
           || !sw_launch_azimuth (d->mission.inclination_deg, d->mission.site_latitude_deg, &az))
         {
-          g_autofree char *path = join_path (orbit, "inclination_deg");
-          set_field_error (error, SW_ERROR_VALUE, ctx,
-                           _("%s: an orbit inclined %g deg cannot be reached directly from a "
-                             "site at latitude %g deg; the inclination must lie between %g and "
-                             "%g deg"),
-                           path, d->mission.inclination_deg, d->mission.site_latitude_deg,
-                           fabs (d->mission.site_latitude_deg),
-                           180.0 - fabs (d->mission.site_latitude_deg));
+          g_autofree char *path = sw_optional_path (orbit, "inclination_deg");
+          sw_optional_set_error (error, SW_ERROR_VALUE, ctx->file,
+                                 _("%s: an orbit inclined %g deg cannot be reached directly "
+                                   "from a site at latitude %g deg; the inclination must lie "
+                                   "between %g and %g deg"),
+                                 path, d->mission.inclination_deg, d->mission.site_latitude_deg,
+                                 fabs (d->mission.site_latitude_deg),
+                                 180.0 - fabs (d->mission.site_latitude_deg));
           return FALSE;
         }
     }
 
   if (d->n_stages < 1 || d->n_stages > SW_MAX_STAGES)
     {
-      g_autofree char *path = join_path (prefix, "stages");
-      set_field_error (error, SW_ERROR_RANGE, ctx, _("%s: %u stages; a design has 1 to %d"),
-                       path, d->n_stages, SW_MAX_STAGES);
+      g_autofree char *path = sw_optional_path (prefix, "stages");
+      sw_optional_set_error (error, SW_ERROR_RANGE, ctx->file,
+                             _("%s: %u stages; a design has 1 to %d"), path, d->n_stages,
+                             SW_MAX_STAGES);
       return FALSE;
     }
 
@@ -856,48 +681,50 @@ validate_design (const SwDesign *d, const LoadContext *ctx, const char *prefix, 
       const SwStage *s = &d->stages[i];
       g_autofree char *sp = g_strdup_printf ("%s%sstages[%u]", prefix, prefix[0] ? "." : "", i);
 
-      if (!check_limit (SW_LIMIT_ISP_VAC, s->isp_vac_s, ctx, sp, error)
-          || !check_limit (SW_LIMIT_STRUCTURAL_COEFFICIENT, s->structural_coefficient, ctx, sp,
-                           error)
-          || (s->has_isp_sl && !check_limit (SW_LIMIT_ISP_SL, s->isp_sl_s, ctx, sp, error))
+      if (!sw_optional_check (SW_LIMIT_ISP_VAC, s->isp_vac_s, ctx->file, sp, error)
+          || !sw_optional_check (SW_LIMIT_STRUCTURAL_COEFFICIENT, s->structural_coefficient,
+                                 ctx->file, sp, error)
+          || (s->has_isp_sl && !sw_optional_check (SW_LIMIT_ISP_SL, s->isp_sl_s, ctx->file, sp,
+                                                   error))
           || !sw_reliability_validate_stage (&s->reliability, ctx->file, sp, error)
           || !sw_propulsion_validate_stage (&s->propulsion, i, ctx->file, sp, error))
         return FALSE;
       if (s->has_isp_sl && s->isp_sl_s > s->isp_vac_s)
         {
-          g_autofree char *path = join_path (sp, "isp_sl_s");
-          set_field_error (error, SW_ERROR_RANGE, ctx,
-                           _("%s: %g s is above the stage's vacuum Isp of %g s; the sea-level "
-                             "Isp must lie between 0 and the vacuum Isp"),
-                           path, s->isp_sl_s, s->isp_vac_s);
+          g_autofree char *path = sw_optional_path (sp, "isp_sl_s");
+          sw_optional_set_error (error, SW_ERROR_RANGE, ctx->file,
+                                 _("%s: %g s is above the stage's vacuum Isp of %g s; the "
+                                   "sea-level Isp must lie between 0 and the vacuum Isp"),
+                                 path, s->isp_sl_s, s->isp_vac_s);
           return FALSE;
         }
       if (d->split == SW_SPLIT_MANUAL)
         {
           if (!s->has_share)
             {
-              g_autofree char *path = join_path (sp, "delta_v_share");
-              set_field_error (error, SW_ERROR_MISSING, ctx,
-                               _("%s: required for the manual split (a fraction from 0 to 1)"),
-                               path);
+              g_autofree char *path = sw_optional_path (sp, "delta_v_share");
+              sw_optional_set_error (error, SW_ERROR_MISSING, ctx->file,
+                                     _("%s: required for the manual split (a fraction "
+                                       "from 0 to 1)"),
+                                     path);
               return FALSE;
             }
-          if (!check_limit (SW_LIMIT_DELTA_V_SHARE, s->delta_v_share, ctx, sp, error))
+          if (!sw_optional_check (SW_LIMIT_DELTA_V_SHARE, s->delta_v_share, ctx->file, sp, error))
             return FALSE;
           share_sum += s->delta_v_share;
         }
-      else if (s->has_share && !check_limit (SW_LIMIT_DELTA_V_SHARE, s->delta_v_share, ctx, sp,
-                                             error))
+      else if (s->has_share && !sw_optional_check (SW_LIMIT_DELTA_V_SHARE, s->delta_v_share,
+                                                   ctx->file, sp, error))
         return FALSE;
     }
 
   if (d->split == SW_SPLIT_MANUAL && fabs (share_sum - 1.0) > 1e-6)
     {
-      g_autofree char *path = join_path (prefix, "stages");
-      set_field_error (error, SW_ERROR_VALUE, ctx,
-                       _("%s: the manual delta_v_share values add up to %.9g; they must add "
-                         "up to 1 (within 1e-6)"),
-                       path, share_sum);
+      g_autofree char *path = sw_optional_path (prefix, "stages");
+      sw_optional_set_error (error, SW_ERROR_VALUE, ctx->file,
+                             _("%s: the manual delta_v_share values add up to %.9g; they must add "
+                               "up to 1 (within 1e-6)"),
+                             path, share_sum);
       return FALSE;
     }
 
@@ -907,11 +734,11 @@ validate_design (const SwDesign *d, const LoadContext *ctx, const char *prefix, 
 
   if (d->baseline != NULL)
     {
-      g_autofree char *path = join_path (prefix, "baseline");
+      g_autofree char *path = sw_optional_path (prefix, "baseline");
       if (d->baseline->baseline != NULL)
         {
-          set_field_error (error, SW_ERROR_NESTING, ctx,
-                           _("%s: a baseline cannot have a baseline of its own"), path);
+          sw_optional_set_error (error, SW_ERROR_NESTING, ctx->file,
+                                 _("%s: a baseline cannot have a baseline of its own"), path);
           return FALSE;
         }
       return validate_design (d->baseline, ctx, path, error);

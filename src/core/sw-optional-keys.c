@@ -9,10 +9,22 @@
 #include <math.h>
 #include <string.h>
 
-static const char *
-display_file (const char *file)
+const char *
+sw_optional_display_file (const char *file)
 {
   return file != NULL ? file : _("(design)");
+}
+
+void
+sw_optional_set_error (GError **error, SwError code, const char *file, const char *format, ...)
+{
+  va_list args;
+  g_autofree char *msg = NULL;
+
+  va_start (args, format);
+  msg = g_strdup_vprintf (format, args);
+  va_end (args);
+  g_set_error (error, SW_ERROR, code, "%s: %s", sw_optional_display_file (file), msg);
 }
 
 char *
@@ -22,8 +34,8 @@ sw_optional_path (const char *prefix, const char *key)
                                               : g_strdup (key);
 }
 
-static const char *
-node_type_name (JsonNode *node)
+const char *
+sw_optional_node_type_name (JsonNode *node)
 {
   switch (json_node_get_node_type (node))
     {
@@ -48,6 +60,17 @@ node_type_name (JsonNode *node)
 }
 
 gboolean
+sw_optional_node_is_number (JsonNode *node)
+{
+  GType t;
+
+  if (json_node_get_node_type (node) != JSON_NODE_VALUE)
+    return FALSE;
+  t = json_node_get_value_type (node);
+  return t == G_TYPE_DOUBLE || t == G_TYPE_INT64;
+}
+
+gboolean
 sw_optional_check (SwLimitId limit, double value, const char *file, const char *prefix,
                    GError **error)
 {
@@ -58,14 +81,59 @@ sw_optional_check (SwLimitId limit, double value, const char *file, const char *
     return TRUE;
   path = sw_optional_path (prefix, l->key);
   if (!isfinite (value))
-    g_set_error (error, SW_ERROR, SW_ERROR_NOT_FINITE, _("%s: %s: the value is not a finite number"),
-                 display_file (file), path);
+    sw_optional_set_error (error, SW_ERROR_NOT_FINITE, file,
+                           _("%s: the value is not a finite number"), path);
   else
-    g_set_error (error, SW_ERROR, SW_ERROR_RANGE,
-                 _("%s: %s: %g is outside the accepted range %s%.10g to %.10g%s%s (%s)"),
-                 display_file (file), path, value, l->min_exclusive ? _("above ") : "", l->min,
-                 l->max, l->unit[0] ? " " : "", l->unit, l->why);
+    sw_optional_set_error (error, SW_ERROR_RANGE, file,
+                           _("%s: %g is outside the accepted range %s%.10g to %.10g%s%s (%s)"),
+                           path, value, l->min_exclusive ? _("above ") : "", l->min, l->max,
+                           l->unit[0] ? " " : "", l->unit, l->why);
   return FALSE;
+}
+
+gboolean
+sw_optional_read_number_full (JsonObject *obj, const char *key, const char *file,
+                              const char *prefix, gboolean required, SwLimitId limit,
+                              gboolean whole, double *value, gboolean *present, GError **error)
+{
+  JsonNode *node = json_object_get_member (obj, key);
+  g_autofree char *path = sw_optional_path (prefix, key);
+  double v;
+
+  if (present != NULL)
+    *present = FALSE;
+  if (node == NULL)
+    {
+      if (required)
+        sw_optional_set_error (error, SW_ERROR_MISSING, file,
+                               _("%s: required number is missing"), path);
+      return !required;
+    }
+  if (!sw_optional_node_is_number (node))
+    {
+      sw_optional_set_error (error, SW_ERROR_TYPE, file, _("%s: expected a number, found %s"),
+                             path, sw_optional_node_type_name (node));
+      return FALSE;
+    }
+  v = json_node_get_double (node);
+  if (!isfinite (v))
+    {
+      sw_optional_set_error (error, SW_ERROR_NOT_FINITE, file,
+                             _("%s: the number is not finite (too large to represent)"), path);
+      return FALSE;
+    }
+  if (whole && v != floor (v))
+    {
+      sw_optional_set_error (error, SW_ERROR_VALUE, file, _("%s: %g is not a whole number"),
+                             path, v);
+      return FALSE;
+    }
+  if (limit != SW_OPTIONAL_NO_LIMIT && !sw_optional_check (limit, v, file, prefix, error))
+    return FALSE;
+  *value = v;
+  if (present != NULL)
+    *present = TRUE;
+  return TRUE;
 }
 
 gboolean
@@ -73,40 +141,34 @@ sw_optional_read_number (JsonObject *obj, const char *key, const char *file, con
                          SwLimitId limit, gboolean whole, double *value, gboolean *present,
                          GError **error)
 {
+  return sw_optional_read_number_full (obj, key, file, prefix, FALSE, limit, whole, value,
+                                       present, error);
+}
+
+gboolean
+sw_optional_read_string_full (JsonObject *obj, const char *key, const char *file,
+                              const char *prefix, gboolean required, const char **value,
+                              GError **error)
+{
   JsonNode *node = json_object_get_member (obj, key);
   g_autofree char *path = sw_optional_path (prefix, key);
-  GType t;
-  double v;
 
-  *present = FALSE;
+  *value = NULL;
   if (node == NULL)
-    return TRUE;
-  t = json_node_get_node_type (node) == JSON_NODE_VALUE ? json_node_get_value_type (node)
-                                                        : G_TYPE_INVALID;
-  if (t != G_TYPE_DOUBLE && t != G_TYPE_INT64)
     {
-      g_set_error (error, SW_ERROR, SW_ERROR_TYPE, _("%s: %s: expected a number, found %s"),
-                   display_file (file), path, node_type_name (node));
+      if (required)
+        sw_optional_set_error (error, SW_ERROR_MISSING, file, _("%s: required text is missing"),
+                               path);
+      return !required;
+    }
+  if (json_node_get_node_type (node) != JSON_NODE_VALUE
+      || json_node_get_value_type (node) != G_TYPE_STRING)
+    {
+      sw_optional_set_error (error, SW_ERROR_TYPE, file, _("%s: expected text, found %s"), path,
+                             sw_optional_node_type_name (node));
       return FALSE;
     }
-  v = json_node_get_double (node);
-  if (!isfinite (v))
-    {
-      g_set_error (error, SW_ERROR, SW_ERROR_NOT_FINITE,
-                   _("%s: %s: the number is not finite (too large to represent)"),
-                   display_file (file), path);
-      return FALSE;
-    }
-  if (whole && v != floor (v))
-    {
-      g_set_error (error, SW_ERROR, SW_ERROR_VALUE, _("%s: %s: %g is not a whole number"),
-                   display_file (file), path, v);
-      return FALSE;
-    }
-  if (!sw_optional_check (limit, v, file, prefix, error))
-    return FALSE;
-  *value = v;
-  *present = TRUE;
+  *value = json_node_get_string (node);
   return TRUE;
 }
 
@@ -114,46 +176,48 @@ gboolean
 sw_optional_read_string (JsonObject *obj, const char *key, const char *file, const char *prefix,
                          const char **value, GError **error)
 {
-  JsonNode *node = json_object_get_member (obj, key);
-
-  *value = NULL;
-  if (node == NULL)
-    return TRUE;
-  if (json_node_get_node_type (node) != JSON_NODE_VALUE
-      || json_node_get_value_type (node) != G_TYPE_STRING)
-    {
-      g_autofree char *path = sw_optional_path (prefix, key);
-      g_set_error (error, SW_ERROR, SW_ERROR_TYPE, _("%s: %s: expected text, found %s"),
-                   display_file (file), path, node_type_name (node));
-      return FALSE;
-    }
-  *value = json_node_get_string (node);
-  return TRUE;
+  return sw_optional_read_string_full (obj, key, file, prefix, FALSE, value, error);
 }
 
 JsonObject *
-sw_optional_read_object (JsonObject *obj, const char *key, const char *file, const char *prefix,
-                         gboolean *ok, GError **error)
+sw_optional_read_object_full (JsonObject *obj, const char *key, const char *file,
+                              const char *prefix, gboolean required, gboolean *ok,
+                              GError **error)
 {
   JsonNode *node = json_object_get_member (obj, key);
+  g_autofree char *path = sw_optional_path (prefix, key);
 
   *ok = TRUE;
   if (node == NULL)
-    return NULL;
+    {
+      if (required)
+        {
+          sw_optional_set_error (error, SW_ERROR_MISSING, file,
+                                 _("%s: required object is missing"), path);
+          *ok = FALSE;
+        }
+      return NULL;
+    }
   if (json_node_get_node_type (node) != JSON_NODE_OBJECT)
     {
-      g_autofree char *path = sw_optional_path (prefix, key);
-      g_set_error (error, SW_ERROR, SW_ERROR_TYPE, _("%s: %s: expected an object, found %s"),
-                   display_file (file), path, node_type_name (node));
+      sw_optional_set_error (error, SW_ERROR_TYPE, file, _("%s: expected an object, found %s"),
+                             path, sw_optional_node_type_name (node));
       *ok = FALSE;
       return NULL;
     }
   return json_node_get_object (node);
 }
 
+JsonObject *
+sw_optional_read_object (JsonObject *obj, const char *key, const char *file, const char *prefix,
+                         gboolean *ok, GError **error)
+{
+  return sw_optional_read_object_full (obj, key, file, prefix, FALSE, ok, error);
+}
+
 void
-sw_optional_warn_unknown (JsonObject *obj, const char *file, const char *prefix,
-                          const char *const *known, GPtrArray *warnings)
+sw_optional_warn_unknown_full (JsonObject *obj, const char *file, const char *prefix,
+                               const char *const *const *known_lists, GPtrArray *warnings)
 {
   g_autoptr (GList) members = NULL;
 
@@ -166,13 +230,23 @@ sw_optional_warn_unknown (JsonObject *obj, const char *file, const char *prefix,
       gboolean found = FALSE;
       g_autofree char *path = NULL;
 
-      for (guint i = 0; known[i] != NULL && !found; i++)
-        found = strcmp (key, known[i]) == 0;
+      for (guint k = 0; known_lists[k] != NULL && !found; k++)
+        for (guint i = 0; known_lists[k][i] != NULL && !found; i++)
+          found = strcmp (key, known_lists[k][i]) == 0;
       if (found)
         continue;
       path = sw_optional_path (prefix, key);
       g_ptr_array_add (warnings,
                        g_strdup_printf (_("%s: %s: unknown key, ignored (it will not be saved)"),
-                                        display_file (file), path));
+                                        sw_optional_display_file (file), path));
     }
+}
+
+void
+sw_optional_warn_unknown (JsonObject *obj, const char *file, const char *prefix,
+                          const char *const *known, GPtrArray *warnings)
+{
+  const char *const *const lists[] = { known, NULL };
+
+  sw_optional_warn_unknown_full (obj, file, prefix, lists, warnings);
 }
