@@ -117,6 +117,11 @@ print_sizing_table (const SwDesign *d, const SwSizing *s)
     g_print ("INFEASIBLE: %s\n", s->reason);
   if (s->feasible && s->reason[0] != '\0')
     g_print ("Note: %s\n", s->reason);
+  if (d->mission.kind == SW_MISSION_ORBIT && d->mission.loss_model == SW_LOSS_SIMULATE)
+    g_print ("Note: the design asks for simulated losses; this sizing uses the first guess of "
+             "%.0f m/s. 'stagewright-cli ascent' closes the loop and sizes with the simulated "
+             "losses.\n",
+             d->mission.has_losses ? d->mission.losses_m_s : 0.0);
   g_print ("\n%s\n", sw_cli_caution);
 }
 
