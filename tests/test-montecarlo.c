@@ -241,6 +241,59 @@ test_keys (void)
     }
 }
 
+/* A live cancellable changes nothing; a cancelled one stops the run with
+ * G_IO_ERROR_CANCELLED instead of an answer (the solver thread relies on it
+ * to drop a run that a newer edit has made stale). */
+static gboolean
+cancel_soon_cb (gpointer data)
+{
+  g_cancellable_cancel (data);
+  return G_SOURCE_REMOVE;
+}
+
+static gpointer
+cancel_thread (gpointer data)
+{
+  g_usleep (20000);
+  cancel_soon_cb (data);
+  return NULL;
+}
+
+static void
+test_cancellable (void)
+{
+  g_autoptr (SwDesign) d = load (design_json, NULL);
+  g_autoptr (GCancellable) live = g_cancellable_new ();
+  g_autoptr (GCancellable) dead = g_cancellable_new ();
+  g_autoptr (GCancellable) later = g_cancellable_new ();
+  g_autoptr (GError) error = NULL;
+  SwMonteCarlo a, b, c;
+  SwMcBand band;
+  GThread *canceller;
+
+  g_assert_true (sw_montecarlo_run (d, NULL, 3000, TRUE, 7, 2, &a, NULL, NULL, NULL));
+  g_assert_true (sw_montecarlo_run_cancellable (d, NULL, 3000, TRUE, 7, 2, &b, NULL, NULL,
+                                                live, NULL));
+  g_assert_cmpmem (&a.liftoff, sizeof a.liftoff, &b.liftoff, sizeof b.liftoff);
+
+  g_cancellable_cancel (dead);
+  g_assert_false (sw_montecarlo_run_cancellable (d, NULL, 3000, TRUE, 7, 2, &c, NULL, NULL,
+                                                 dead, &error));
+  g_assert_error (error, G_IO_ERROR, G_IO_ERROR_CANCELLED);
+  g_clear_error (&error);
+  g_assert_false (sw_montecarlo_band_cancellable (d, NULL, 8, 2000, 7, 2, &band, dead, &error));
+  g_assert_error (error, G_IO_ERROR, G_IO_ERROR_CANCELLED);
+  g_clear_error (&error);
+
+  /* Cancelled from another thread part way through a run of ten million
+   * samples (tens of seconds if it ran to the end). */
+  canceller = g_thread_new ("canceller", cancel_thread, later);
+  g_assert_false (sw_montecarlo_run_cancellable (d, NULL, 10000000, TRUE, 7, 2, &c, NULL, NULL,
+                                                 later, &error));
+  g_assert_error (error, G_IO_ERROR, G_IO_ERROR_CANCELLED);
+  g_thread_join (canceller);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -252,5 +305,6 @@ main (int argc, char **argv)
   g_test_add_func ("/core/montecarlo/no-spread", test_no_spread);
   g_test_add_func ("/core/montecarlo/band", test_band);
   g_test_add_func ("/core/montecarlo/keys", test_keys);
+  g_test_add_func ("/core/montecarlo/cancellable", test_cancellable);
   return g_test_run ();
 }

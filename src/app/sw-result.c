@@ -208,17 +208,18 @@ sw_result_compute_montecarlo (const SwResult *fast, const SwSolveOptions *option
   r->montecarlo_pending = FALSE;
   r->phase = 1;
 
-  /* The core's Monte Carlo cannot be interrupted: the cancellable is looked
-   * at between the two runs (20 to 60 ms each for 10,000 and 8 x 2,000
-   * samples of a three-stage design on two busy cores). */
+  /* The core looks at the cancellable before every block of samples, so a
+   * newer edit abandons even a million-sample run within a block. */
   unc = &r->design->uncertainty;
-  r->has_montecarlo = sw_montecarlo_run (r->design, NULL, 0, FALSE, 0, options->threads,
-                                         &r->montecarlo, NULL, NULL, &error);
-  if (r->has_montecarlo && !g_cancellable_is_cancelled (cancellable))
-    r->has_band = sw_montecarlo_band (r->design, NULL, SW_MAX_STAGES,
-                                      MIN (sw_uncertainty_samples (unc), options->band_samples),
-                                      sw_uncertainty_seed (unc), options->threads, &r->band,
-                                      &error);
+  r->has_montecarlo = sw_montecarlo_run_cancellable (r->design, NULL, 0, FALSE, 0,
+                                                     options->threads, &r->montecarlo, NULL,
+                                                     NULL, cancellable, &error);
+  if (r->has_montecarlo)
+    r->has_band = sw_montecarlo_band_cancellable (r->design, NULL, SW_MAX_STAGES,
+                                                  MIN (sw_uncertainty_samples (unc),
+                                                       options->band_samples),
+                                                  sw_uncertainty_seed (unc), options->threads,
+                                                  &r->band, cancellable, &error);
   if (error != NULL)
     g_strlcpy (r->montecarlo_error, error->message, sizeof r->montecarlo_error);
   if (g_cancellable_is_cancelled (cancellable))

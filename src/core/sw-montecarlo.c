@@ -30,6 +30,7 @@ typedef struct {
   double        *liftoff;      /* per sample, NAN when infeasible */
   double        *payload;      /* per sample, or NULL to skip question 2 */
   gint           next_block;   /* atomic */
+  GCancellable  *cancellable;  /* may be NULL */
 } McJob;
 
 /* The SplitMix64 finaliser (a published 64-bit mixing function): spreads
@@ -148,7 +149,7 @@ worker (gpointer data)
       guint block = (guint) g_atomic_int_add (&job->next_block, 1);
       guint first, last;
 
-      if (block >= n_blocks)
+      if (block >= n_blocks || g_cancellable_is_cancelled (job->cancellable))
         break;
       gsl_rng_set (r, (unsigned long) (mix64 (((guint64) job->seed << 32) ^ block)
                                        & G_GUINT64_CONSTANT (0xffffffff)));
@@ -252,6 +253,17 @@ sw_montecarlo_run (const SwDesign *design, const SwUncertainty *spreads, guint s
                    gboolean use_seed, guint32 seed, guint threads, SwMonteCarlo *out,
                    double *liftoff_samples, double *payload_samples, GError **error)
 {
+  return sw_montecarlo_run_cancellable (design, spreads, samples, use_seed, seed, threads, out,
+                                        liftoff_samples, payload_samples, NULL, error);
+}
+
+gboolean
+sw_montecarlo_run_cancellable (const SwDesign *design, const SwUncertainty *spreads,
+                               guint samples, gboolean use_seed, guint32 seed, guint threads,
+                               SwMonteCarlo *out, double *liftoff_samples,
+                               double *payload_samples, GCancellable *cancellable,
+                               GError **error)
+{
   McJob job;
   SwSizing sizing;
   g_autofree double *liftoff = NULL, *payload = NULL;
@@ -277,7 +289,10 @@ sw_montecarlo_run (const SwDesign *design, const SwUncertainty *spreads, guint s
   if (job.have_vehicle)
     payload = job.payload = g_new (double, job.samples);
 
+  job.cancellable = cancellable;
   out->threads = run_job (&job, threads);
+  if (g_cancellable_set_error_if_cancelled (cancellable, error))
+    return FALSE;
   out->samples = job.samples;
   out->seed = job.seed;
   out->spreads = job.unc;
@@ -332,6 +347,15 @@ gboolean
 sw_montecarlo_band (const SwDesign *design, const SwUncertainty *spreads, guint max_stages,
                     guint samples, guint32 seed, guint threads, SwMcBand *out, GError **error)
 {
+  return sw_montecarlo_band_cancellable (design, spreads, max_stages, samples, seed, threads,
+                                         out, NULL, error);
+}
+
+gboolean
+sw_montecarlo_band_cancellable (const SwDesign *design, const SwUncertainty *spreads,
+                                guint max_stages, guint samples, guint32 seed, guint threads,
+                                SwMcBand *out, GCancellable *cancellable, GError **error)
+{
   McJob job;
   SwSizing sizing;
   g_autofree double *liftoff = NULL;
@@ -355,7 +379,10 @@ sw_montecarlo_band (const SwDesign *design, const SwUncertainty *spreads, guint 
       guint k = 0;
 
       sw_stage_set_extend (&job.set, design, n);
+      job.cancellable = cancellable;
       run_job (&job, threads);
+      if (g_cancellable_set_error_if_cancelled (cancellable, error))
+        return FALSE;
       for (guint i = 0; i < job.samples; i++)
         if (isfinite (liftoff[i]))
           liftoff[k++] = liftoff[i];

@@ -18,6 +18,8 @@
  * bit-identical results whatever the thread count. */
 #pragma once
 
+#include <gio/gio.h>
+
 #include "sw-design.h"
 #include "sw-uncertainty.h"
 #include "sw-types.h"
@@ -82,6 +84,19 @@ gboolean sw_montecarlo_run (const SwDesign *design, const SwUncertainty *spreads
 gboolean sw_montecarlo_band (const SwDesign *design, const SwUncertainty *spreads,
                              guint max_stages, guint samples, guint32 seed, guint threads,
                              SwMcBand *out, GError **error);
+
+/* The same with a cancellable, looked at before every block of samples:
+ * FALSE with G_IO_ERROR_CANCELLED once it is cancelled (the solver thread
+ * abandons a run when a newer edit arrives). */
+gboolean sw_montecarlo_run_cancellable (const SwDesign *design, const SwUncertainty *spreads,
+                                        guint samples, gboolean use_seed, guint32 seed,
+                                        guint threads, SwMonteCarlo *out,
+                                        double *liftoff_samples, double *payload_samples,
+                                        GCancellable *cancellable, GError **error);
+gboolean sw_montecarlo_band_cancellable (const SwDesign *design, const SwUncertainty *spreads,
+                                         guint max_stages, guint samples, guint32 seed,
+                                         guint threads, SwMcBand *out,
+                                         GCancellable *cancellable, GError **error);
 
 /* Statistics of @n values (NAN ones skipped): GSL's mean, sd and quantiles. */
 void     sw_mc_summarise (const double *values, guint n, SwMcSummary *out);
