@@ -990,7 +990,7 @@ draw_header (const Page *p, const SwBriefing *b, double y)
   TextStyle sub = style_w (8.5, FALSE, MUTED, PANGO_ALIGN_LEFT, p->w);
   g_autofree char *payload = fmt_mass (d->payload_kg);
   g_autofree char *dv = fmt_grouped (b->delta_v_m_s, 0);
-  g_autofree char *mission = NULL, *line = NULL, *date = NULL;
+  g_autofree char *mission = NULL, *line = NULL, *date = NULL, *stages = NULL;
   double h;
 
   text_at (p->cr, _("LAUNCH VEHICLE CONCEPT \342\200\224 SIZING BRIEF"), p->x, y, &kicker);
@@ -1005,10 +1005,10 @@ draw_header (const Page *p, const SwBriefing *b, double y)
                                d->mission.site_latitude_deg);
   else
     mission = g_strdup (_("delta-v mission"));
+  stages = g_strdup_printf (ngettext ("%u stage", "%u stages", d->n_stages), d->n_stages);
   line = g_strdup_printf (_("Payload %s  \302\267  %s  \302\267  required \316\224v %s m/s  "
-                            "\302\267  %s split  \302\267  %u stage%s"),
-                          payload, mission, dv, sw_split_mode_to_string (d->split), d->n_stages,
-                          d->n_stages == 1 ? "" : "s");
+                            "\302\267  %s split  \302\267  %s"),
+                          payload, mission, dv, sw_split_mode_to_string (d->split), stages);
   text_at (p->cr, line, p->x, y + 13.0 + h, &sub);
   y += 13.0 + h + 14.0;
   rule (p->cr, p->x, p->x + p->w, y, INK, 1.0);
