@@ -494,10 +494,7 @@ sw_cli_ascent (int argc, char **argv)
 
   r = sw_design_ascent (d, NULL, &error);
   if (r == NULL)
-    {
-      g_printerr ("error: %s: %s\n", argv[1], error->message);
-      return SW_EXIT_USAGE;
-    }
+    return sw_cli_input_error (argv[1], error);
   if (csv != NULL && !write_csv (csv, d, r))
     return SW_EXIT_FAILURE;
   if (opt_json)

@@ -139,10 +139,7 @@ sw_cli_size (int argc, char **argv)
   if ((d = sw_cli_load (argv[1])) == NULL)
     return SW_EXIT_USAGE;
   if (!sw_design_size (d, &s, &error))
-    {
-      g_printerr ("error: %s: %s\n", argv[1], error->message);
-      return SW_EXIT_USAGE;
-    }
+    return sw_cli_input_error (argv[1], error);
   if (opt_json)
     {
       g_autoptr (JsonNode) node = sizing_to_json (d, &s);
@@ -175,16 +172,12 @@ sw_cli_curve (int argc, char **argv)
   if ((d = sw_cli_load (argv[1])) == NULL)
     return SW_EXIT_USAGE;
   if (!sw_design_required_delta_v (d, &dv, &error))
-    {
-      g_printerr ("error: %s: %s\n", argv[1], error->message);
-      return SW_EXIT_USAGE;
-    }
+    return sw_cli_input_error (argv[1], error);
   sw_stage_curve_compute (d, dv, (guint) opt_max_stages, &curve);
 
   if (opt_json)
     {
       g_autoptr (JsonBuilder) b = json_builder_new_immutable ();
-      g_autoptr (JsonNode) node = NULL;
 
       json_builder_begin_object (b);
       sw_cli_add_number (b, "delta_v_m_s", dv);
@@ -203,11 +196,7 @@ sw_cli_curve (int argc, char **argv)
           json_builder_end_object (b);
         }
       json_builder_end_array (b);
-      json_builder_set_member_name (b, "caution");
-      json_builder_add_string_value (b, sw_cli_caution);
-      json_builder_end_object (b);
-      node = json_builder_get_root (b);
-      sw_cli_print_json (node);
+      sw_cli_finish_json (b);
       return SW_EXIT_OK;
     }
 
@@ -239,14 +228,10 @@ sw_cli_budget (int argc, char **argv)
   if ((d = sw_cli_load (argv[1])) == NULL)
     return SW_EXIT_USAGE;
   if (!sw_design_budget (d, &b, &error))
-    {
-      g_printerr ("error: %s: %s\n", argv[1], error->message);
-      return SW_EXIT_USAGE;
-    }
+    return sw_cli_input_error (argv[1], error);
   if (opt_json)
     {
       g_autoptr (JsonBuilder) jb = json_builder_new_immutable ();
-      g_autoptr (JsonNode) node = NULL;
 
       json_builder_begin_object (jb);
       sw_cli_add_number (jb, "circular_velocity_m_s", b.circular_velocity_m_s);
@@ -256,11 +241,7 @@ sw_cli_budget (int argc, char **argv)
       sw_cli_add_number (jb, "ideal_delta_v_m_s", b.ideal_delta_v_m_s);
       sw_cli_add_number (jb, "losses_m_s", b.losses_m_s);
       sw_cli_add_number (jb, "delta_v_m_s", b.delta_v_m_s);
-      json_builder_set_member_name (jb, "caution");
-      json_builder_add_string_value (jb, sw_cli_caution);
-      json_builder_end_object (jb);
-      node = json_builder_get_root (jb);
-      sw_cli_print_json (node);
+      sw_cli_finish_json (jb);
       return SW_EXIT_OK;
     }
   g_print ("Design: %s\n", d->name);

@@ -68,15 +68,11 @@ sw_cli_sensitivity (int argc, char **argv)
   if ((d = sw_cli_load (argv[1])) == NULL)
     return SW_EXIT_USAGE;
   if (!sw_sensitivity_compute (d, opt_step / 100.0, &t, &error))
-    {
-      g_printerr ("error: %s: %s\n", argv[1], error->message);
-      return SW_EXIT_USAGE;
-    }
+    return sw_cli_input_error (argv[1], error);
 
   if (opt_json)
     {
       g_autoptr (JsonBuilder) b = json_builder_new_immutable ();
-      g_autoptr (JsonNode) node = NULL;
 
       json_builder_begin_object (b);
       json_builder_set_member_name (b, "feasible");
@@ -123,11 +119,7 @@ sw_cli_sensitivity (int argc, char **argv)
           json_builder_end_object (b);
         }
       json_builder_end_array (b);
-      json_builder_set_member_name (b, "caution");
-      json_builder_add_string_value (b, sw_cli_caution);
-      json_builder_end_object (b);
-      node = json_builder_get_root (b);
-      sw_cli_print_json (node);
+      sw_cli_finish_json (b);
       return SW_EXIT_OK;
     }
 
@@ -283,15 +275,11 @@ sw_cli_montecarlo (int argc, char **argv)
                 argv[1]);
   if (!sw_montecarlo_run (d, NULL, (guint) opt_samples, opt_seed >= 0, (guint32) MAX (opt_seed, 0),
                           (guint) opt_threads, &mc, NULL, NULL, &error))
-    {
-      g_printerr ("error: %s: %s\n", argv[1], error->message);
-      return SW_EXIT_USAGE;
-    }
+    return sw_cli_input_error (argv[1], error);
 
   if (opt_json)
     {
       g_autoptr (JsonBuilder) b = json_builder_new_immutable ();
-      g_autoptr (JsonNode) node = NULL;
 
       json_builder_begin_object (b);
       json_builder_set_member_name (b, "samples");
@@ -320,11 +308,7 @@ sw_cli_montecarlo (int argc, char **argv)
       json_builder_add_string_value (b, "payload margin = payload that the nominal vehicle "
                                         "(fixed propellant loads) carries to the sampled "
                                         "delta-v minus the required payload");
-      json_builder_set_member_name (b, "caution");
-      json_builder_add_string_value (b, sw_cli_caution);
-      json_builder_end_object (b);
-      node = json_builder_get_root (b);
-      sw_cli_print_json (node);
+      sw_cli_finish_json (b);
       return SW_EXIT_OK;
     }
 
@@ -385,7 +369,6 @@ sw_cli_reliability (int argc, char **argv)
   if (opt_json)
     {
       g_autoptr (JsonBuilder) b = json_builder_new_immutable ();
-      g_autoptr (JsonNode) node = NULL;
 
       json_builder_begin_object (b);
       json_builder_set_member_name (b, "given");
@@ -428,11 +411,7 @@ sw_cli_reliability (int argc, char **argv)
           json_builder_end_object (b);
         }
       json_builder_end_array (b);
-      json_builder_set_member_name (b, "caution");
-      json_builder_add_string_value (b, sw_cli_caution);
-      json_builder_end_object (b);
-      node = json_builder_get_root (b);
-      sw_cli_print_json (node);
+      sw_cli_finish_json (b);
       return SW_EXIT_OK;
     }
 

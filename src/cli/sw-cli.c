@@ -102,6 +102,25 @@ sw_cli_print_json (JsonNode *node)
   g_print ("%s\n", text);
 }
 
+int
+sw_cli_input_error (const char *filename, const GError *error)
+{
+  g_printerr ("error: %s: %s\n", filename, error->message);
+  return SW_EXIT_USAGE;
+}
+
+void
+sw_cli_finish_json (JsonBuilder *builder)
+{
+  g_autoptr (JsonNode) node = NULL;
+
+  json_builder_set_member_name (builder, "caution");
+  json_builder_add_string_value (builder, sw_cli_caution);
+  json_builder_end_object (builder);
+  node = json_builder_get_root (builder);
+  sw_cli_print_json (node);
+}
+
 void
 sw_cli_add_number (JsonBuilder *b, const char *key, double value)
 {

@@ -27,6 +27,10 @@ gboolean  sw_cli_parse (const char *name, GOptionEntry *entries, int *argc, char
                         int n_positional, int *exit_code);
 /* Loads a design, printing warnings and the error on stderr. */
 SwDesign *sw_cli_load (const char *filename);
+/* Prints "error: FILE: message" on stderr; returns SW_EXIT_USAGE. */
+int       sw_cli_input_error (const char *filename, const GError *error);
+/* Adds the cautions, closes the builder's top object and prints it. */
+void      sw_cli_finish_json (JsonBuilder *builder);
 /* Prints a JSON node on stdout, pretty. */
 void      sw_cli_print_json (JsonNode *node);
 /* Adds a number member, or null when it is not finite. */
