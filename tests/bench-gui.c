@@ -64,7 +64,7 @@ before_paint_cb (GdkFrameClock *clock, Drawn *drawn)
 }
 
 static void
-solved_cb (SwSolver *solver, SwResult *result, Drawn *drawn)
+solved_cb (SwSolver *solver, SwAnalysis *result, Drawn *drawn)
 {
   drawn->solved_us = g_get_monotonic_time ();
 }

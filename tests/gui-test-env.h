@@ -101,7 +101,7 @@ static inline gboolean
 sw_test_result_drawn (gpointer data)
 {
   SwWindow *w = data;
-  SwResult *r = sw_window_get_shown_result (w);
+  SwAnalysis *r = sw_window_get_shown_result (w);
   guint64 posted = sw_solver_get_posted_serial (sw_window_get_solver (w));
 
   return r != NULL && r->serial == posted && sw_window_get_drawn_serial (w) >= posted;
@@ -112,7 +112,7 @@ static inline gboolean
 sw_test_result_complete (gpointer data)
 {
   SwWindow *w = data;
-  SwResult *r = sw_window_get_shown_result (w);
+  SwAnalysis *r = sw_window_get_shown_result (w);
 
   return sw_test_result_drawn (w) && !r->montecarlo_pending && !r->ascent_pending;
 }

@@ -60,7 +60,7 @@ save (GtkWidget *widget, int w, int h, const char *dir, const char *name)
 
 /* The two trade plots of the application, as the window will draw them. */
 static void
-fill_stage_count_plot (SwPlot *plot, SwResult *r)
+fill_stage_count_plot (SwPlot *plot, SwAnalysis *r)
 {
   double x[SW_MAX_STAGES], y[SW_MAX_STAGES];
   guint n = r->stage_curve.n_points;
@@ -86,7 +86,7 @@ fill_stage_count_plot (SwPlot *plot, SwResult *r)
 }
 
 static void
-fill_sweep_plot (SwPlot *plot, SwResult *r)
+fill_sweep_plot (SwPlot *plot, SwAnalysis *r)
 {
   sw_plot_set_title (plot, "Liftoff mass against delta-v");
   sw_plot_set_x_axis (plot, "Delta-v (m/s)", FALSE);
@@ -170,7 +170,7 @@ fill_ranked (SwPlot *plot)
 int
 main (int argc, char **argv)
 {
-  g_autoptr (SwResult) result = NULL;
+  g_autoptr (SwAnalysis) result = NULL;
   g_autoptr (SwDesign) design = NULL;
   g_autoptr (GError) error = NULL;
   const char *dir;
@@ -224,7 +224,7 @@ main (int argc, char **argv)
     }
   if (dark)
     g_object_set (gtk_settings_get_default (), "gtk-application-prefer-dark-theme", TRUE, NULL);
-  result = sw_result_compute (design, 1, NULL);
+  result = sw_analysis_compute (design, 1, NULL);
   dir = argv[2];
   base = g_path_get_basename (argv[1]);
   if (strrchr (base, '.') != NULL)

@@ -167,7 +167,7 @@ tick_cb (gpointer data)
 }
 
 static void
-watch_solved_cb (SwSolver *solver, SwResult *r, Watch *wt)
+watch_solved_cb (SwSolver *solver, SwAnalysis *r, Watch *wt)
 {
   gint64 now = g_get_monotonic_time ();
 
@@ -231,7 +231,7 @@ typedef struct {
 } Emitted;
 
 static void
-record_cb (SwSolver *solver, SwResult *r, Emitted *e)
+record_cb (SwSolver *solver, SwAnalysis *r, Emitted *e)
 {
   if (r->ascent != NULL)
     g_array_append_val (e->ascents, r->serial);
@@ -243,7 +243,7 @@ serial_shown (gpointer data)
   gpointer *args = data;
   SwWindow *w = args[0];
   guint64 serial = *(guint64 *) args[1];
-  SwResult *r = sw_window_get_shown_result (w);
+  SwAnalysis *r = sw_window_get_shown_result (w);
 
   return r != NULL && r->serial == serial;
 }
@@ -320,7 +320,7 @@ static void
 test_core_numbers (void)
 {
   SwWindow *w = window_new ();
-  SwResult *r;
+  SwAnalysis *r;
   g_autoptr (SwAscentResult) core = NULL;
   g_autoptr (GError) error = NULL;
   g_autofree char *q = NULL, *g = NULL, *losses = NULL, *tw = NULL, *liftoff = NULL;
@@ -405,7 +405,7 @@ test_no_propulsion (void)
   SwDocument *doc = sw_window_get_document (w);
   g_autoptr (SwDesign) d = NULL;
   g_autoptr (GError) expected = NULL;
-  SwResult *r;
+  SwAnalysis *r;
 
   load_demo (w, "medium-cargo.stagewright");
   g_assert_cmpuint (sw_ascent_page_get_shown_serial (page (w)), >, 0);
@@ -471,7 +471,7 @@ test_warnings (void)
 {
   SwWindow *w = window_new ();
   g_autoptr (GSettings) settings = sw_application_settings_new ();
-  SwResult *r;
+  SwAnalysis *r;
   g_autofree char *tw = NULL;
 
   load_demo (w, "three-stage-simulated.stagewright");

@@ -228,7 +228,7 @@ test_current_design_marker (void)
 {
   /* The stage-count curve of a demo design, with the current design marked
    * at the liftoff mass the core computed for its stage count. */
-  g_autoptr (SwResult) r = widget_render_demo_result ("small-sat-launcher.stagewright");
+  g_autoptr (SwAnalysis) r = widget_render_demo_result ("small-sat-launcher.stagewright");
   GtkWidget *plot = sw_plot_new ();
   GtkWidget *window;
   cairo_surface_t *surface;

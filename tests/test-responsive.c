@@ -113,7 +113,7 @@ typedef struct {
 } Idle;
 
 static void
-idle_solved_cb (SwSolver *solver, SwResult *r, Idle *idle)
+idle_solved_cb (SwSolver *solver, SwAnalysis *r, Idle *idle)
 {
   /* The ascent's own repaint is drawing, not waiting: the clock stops. */
   if (r->serial == idle->serial && r->phase == 2)
@@ -179,7 +179,7 @@ chain_poll_cb (gpointer data)
 }
 
 static void
-chain_solved_cb (SwSolver *solver, SwResult *r, Chain *c)
+chain_solved_cb (SwSolver *solver, SwAnalysis *r, Chain *c)
 {
   guint64 posted = sw_solver_get_posted_serial (solver);
 
@@ -232,7 +232,7 @@ test_busy_worker (void)
   gint64 t0;
   guint tick_id;
   gulong handler;
-  SwResult *shown;
+  SwAnalysis *shown;
 
   gtk_window_present (GTK_WINDOW (w));
   g_assert_true (sw_window_load (w, file));

@@ -83,7 +83,7 @@ measure (cairo_surface_t *surface, const graphene_rect_t *rc, const double bg[4]
 }
 
 static GtkWidget *
-show_result (SwResult *result, GtkWidget **view_out)
+show_result (SwAnalysis *result, GtkWidget **view_out)
 {
   GtkWidget *view = sw_stack_view_new ();
 
@@ -95,7 +95,7 @@ show_result (SwResult *result, GtkWidget **view_out)
 static void
 check_design_areas (const char *basename)
 {
-  g_autoptr (SwResult) result = widget_render_demo_result (basename);
+  g_autoptr (SwAnalysis) result = widget_render_demo_result (basename);
   const SwSizing *sz = &result->sizing;
   GtkWidget *view, *window;
   cairo_surface_t *surface;
@@ -233,9 +233,9 @@ fraction_not_bg (cairo_surface_t *surface, const graphene_rect_t *rc, const doub
 static void
 test_infeasible (void)
 {
-  g_autoptr (SwResult) base = widget_render_demo_result ("all-solid-concept.stagewright");
+  g_autoptr (SwAnalysis) base = widget_render_demo_result ("all-solid-concept.stagewright");
   g_autoptr (SwDesign) design = sw_design_copy (base->design);
-  g_autoptr (SwResult) result = NULL;
+  g_autoptr (SwAnalysis) result = NULL;
   GtkWidget *view, *window;
   cairo_surface_t *surface;
   GdkRGBA warning;
@@ -245,7 +245,7 @@ test_infeasible (void)
   /* Four solid stages asked for 25 km/s with the manual split: stages 2 to 4
    * must give more than c ln(1/eps) (the first one, 6.0 of 6.2 km/s, can). */
   design->mission.delta_v_m_s = 25000.0;
-  result = sw_result_compute (design, 2, NULL);
+  result = sw_analysis_compute (design, 2, NULL);
   g_assert_true (result->ok);
   g_assert_false (result->sizing.feasible);
   g_assert_cmpstr (result->sizing.reason, !=, "");
@@ -279,16 +279,16 @@ test_infeasible (void)
 static void
 test_error (void)
 {
-  g_autoptr (SwResult) base = widget_render_demo_result ("medium-cargo.stagewright");
+  g_autoptr (SwAnalysis) base = widget_render_demo_result ("medium-cargo.stagewright");
   g_autoptr (SwDesign) design = sw_design_copy (base->design);
-  g_autoptr (SwResult) result = NULL;
+  g_autoptr (SwAnalysis) result = NULL;
   GtkWidget *view, *window;
   cairo_surface_t *surface;
   graphene_rect_t centre = GRAPHENE_RECT_INIT (0, HEIGHT / 2.0 - 60.0, WIDTH, 120.0);
   double bg[4];
 
   design->stages[0].isp_vac_s = -5.0;   /* out of range: the design cannot be solved */
-  result = sw_result_compute (design, 3, NULL);
+  result = sw_analysis_compute (design, 3, NULL);
   g_assert_false (result->ok);
   g_assert_nonnull (result->error_message);
 
@@ -306,9 +306,9 @@ test_error (void)
 static void
 test_unused (void)
 {
-  g_autoptr (SwResult) base = widget_render_demo_result ("small-sat-launcher.stagewright");
+  g_autoptr (SwAnalysis) base = widget_render_demo_result ("small-sat-launcher.stagewright");
   g_autoptr (SwDesign) design = sw_design_copy (base->design);
-  g_autoptr (SwResult) result = NULL;
+  g_autoptr (SwAnalysis) result = NULL;
   GtkWidget *view, *window;
   graphene_rect_t rc, below;
   int unused = -1;
@@ -317,7 +317,7 @@ test_unused (void)
    * the optimal split gives it nothing. */
   design->stages[2].isp_vac_s = 60.0;
   design->stages[2].structural_coefficient = 0.5;
-  result = sw_result_compute (design, 4, NULL);
+  result = sw_analysis_compute (design, 4, NULL);
   g_assert_true (result->ok);
   g_assert_true (result->sizing.feasible);
   g_assert_cmpuint (result->sizing.n_unused, >=, 1);
@@ -345,7 +345,7 @@ notify_cb (GObject *object, GParamSpec *pspec, int *count)
 static void
 test_selection (void)
 {
-  g_autoptr (SwResult) result = widget_render_demo_result ("medium-cargo.stagewright");
+  g_autoptr (SwAnalysis) result = widget_render_demo_result ("medium-cargo.stagewright");
   GtkWidget *view = g_object_ref_sink (sw_stack_view_new ());
   int count = 0, selected = 0;
 
@@ -359,9 +359,9 @@ test_selection (void)
   /* A result with fewer stages drops a selection that no longer exists. */
   {
     g_autoptr (SwDesign) one = sw_design_copy (result->design);
-    g_autoptr (SwResult) r1 = NULL;
+    g_autoptr (SwAnalysis) r1 = NULL;
     one->n_stages = 1;
-    r1 = sw_result_compute (one, 5, NULL);
+    r1 = sw_analysis_compute (one, 5, NULL);
     sw_stack_view_set_result (SW_STACK_VIEW (view), r1);
     g_assert_cmpint (sw_stack_view_get_selected (SW_STACK_VIEW (view)), ==, -1);
   }
@@ -418,7 +418,7 @@ find_controller (GtkWidget *widget, GType type)
 static void
 test_drag_and_click (void)
 {
-  g_autoptr (SwResult) result = widget_render_demo_result ("small-sat-launcher.stagewright");
+  g_autoptr (SwAnalysis) result = widget_render_demo_result ("small-sat-launcher.stagewright");
   GtkWidget *view, *window;
   GObject *drag, *click;
   graphene_rect_t r0, r1, r2;

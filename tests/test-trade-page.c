@@ -127,7 +127,7 @@ check_tornado (SwWindow *w, double step)
   const double *minus, *plus;
   const char *const *labels;
   SwPlot *plot = sw_trade_page_get_plot (page (w), SW_TRADE_PLOT_TORNADO);
-  SwResult *r = sw_window_get_shown_result (w);
+  SwAnalysis *r = sw_window_get_shown_result (w);
   guint n, payload_row = G_MAXUINT;
   double prev = INFINITY;
 
@@ -203,7 +203,7 @@ test_tornado (void)
   {
     SwReliabilityCurve curve;
     SwReliability rel;
-    SwResult *r = sw_window_get_shown_result (w);
+    SwAnalysis *r = sw_window_get_shown_result (w);
     g_autofree char *p = NULL;
 
     sw_reliability_curve_compute (doc_design (w), SW_MAX_STAGES, &curve);
@@ -225,7 +225,7 @@ check_percentiles (SwWindow *w)
   SwMonteCarlo mc;
   g_autoptr (GError) error = NULL;
   SwPlot *plot = sw_trade_page_get_plot (page (w), SW_TRADE_PLOT_HISTOGRAM);
-  SwResult *r = sw_window_get_shown_result (w);
+  SwAnalysis *r = sw_window_get_shown_result (w);
   double lines[3], x[3];
 
   /* One seed gives the same samples whatever the thread count (the core's
@@ -348,7 +348,7 @@ static void
 check_stack_scale (SwWindow *w)
 {
   SwStackView *view = sw_window_get_stack_view (w);
-  SwResult *r = sw_window_get_shown_result (w);
+  SwAnalysis *r = sw_window_get_shown_result (w);
   const SwSizing *b = &r->baseline_sizing;
   double scale = sw_stack_view_get_area_scale (view);
   graphene_rect_t rc;
@@ -378,7 +378,7 @@ check_deltas (SwWindow *w)
 {
   SwComparison core;
   g_autoptr (GError) error = NULL;
-  SwResult *r = sw_window_get_shown_result (w);
+  SwAnalysis *r = sw_window_get_shown_result (w);
   SwTotals *totals = sw_window_get_totals (w);
   g_autofree char *liftoff = NULL, *fraction = NULL;
 
@@ -416,7 +416,7 @@ test_baseline (void)
   g_autoptr (GError) error = NULL;
   GtkSpinButton *payload = GTK_SPIN_BUTTON (sw_inspector_get_field (
     sw_window_get_inspector (w), SW_INSPECTOR_PAYLOAD));
-  SwResult *r;
+  SwAnalysis *r;
   double x, y;
 
   load_file (w, demo);

@@ -98,7 +98,7 @@ totals_text (SwWindow *w, SwTotalsField f)
 static void
 assert_liftoff_shown (SwWindow *w, double expected_kg)
 {
-  SwResult *r = sw_window_get_shown_result (w);
+  SwAnalysis *r = sw_window_get_shown_result (w);
   g_autofree char *text = sw_format_mass (expected_kg);
 
   g_assert_nonnull (r);
@@ -114,7 +114,7 @@ static void
 test_builds (void)
 {
   SwWindow *w = window_new ();
-  SwResult *r;
+  SwAnalysis *r;
   g_autofree char *liftoff = NULL;
 
   load_demo (w, "medium-cargo.stagewright");
@@ -223,7 +223,7 @@ test_drag_border (void)
   SwWindow *w = window_new ();
   SwDocument *doc = sw_window_get_document (w);
   g_autoptr (SwDesign) before = NULL;
-  SwResult *r;
+  SwAnalysis *r;
   double s0, s1;
   const SwDesign *d;
 
@@ -435,8 +435,8 @@ test_thousand_edits (void)
 {
   SwWindow *w = window_new ();
   GtkSpinButton *isp;
-  SwResult *shown;
-  g_autoptr (SwResult) fresh = NULL;
+  SwAnalysis *shown;
+  g_autoptr (SwAnalysis) fresh = NULL;
   g_autofree char *liftoff = NULL;
   guint64 posted;
 
@@ -460,7 +460,7 @@ test_thousand_edits (void)
   g_assert_true (sw_design_equal (shown->design,
                                   sw_document_get_design (sw_window_get_document (w))));
   /* What is shown equals a fresh solve of the last design. */
-  fresh = sw_result_compute (sw_document_get_design (sw_window_get_document (w)), 0, NULL);
+  fresh = sw_analysis_compute (sw_document_get_design (sw_window_get_document (w)), 0, NULL);
   g_assert_cmpfloat (shown->sizing.liftoff_mass_kg, ==, fresh->sizing.liftoff_mass_kg);
   liftoff = sw_format_mass (fresh->sizing.liftoff_mass_kg);
   g_assert_cmpstr (totals_text (w, SW_TOTALS_LIFTOFF), ==, liftoff);
@@ -514,7 +514,7 @@ static void
 assert_marker_at (SwWindow *w, guint which, cairo_surface_t *shot, const graphene_point_t *origin)
 {
   SwPlot *plot = sw_window_get_plot (w, which);
-  SwResult *r = sw_window_get_shown_result (w);
+  SwAnalysis *r = sw_window_get_shown_result (w);
   GdkRGBA fg;
   double x, y, wx, wy;
   graphene_point_t p;

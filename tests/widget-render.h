@@ -8,7 +8,7 @@
 #include <gtk/gtk.h>
 
 #include "sw-design.h"
-#include "sw-result.h"
+#include "sw-analysis.h"
 
 G_GNUC_UNUSED static gboolean
 widget_render_timeout_cb (gpointer data)
@@ -80,7 +80,7 @@ widget_render_window (GtkWidget *window)
 }
 
 /* The result of a demo design from the source tree (env SW_SOURCE_ROOT). */
-static inline SwResult *
+static inline SwAnalysis *
 widget_render_demo_result (const char *basename)
 {
   const char *root = g_getenv ("SW_SOURCE_ROOT");
@@ -92,7 +92,7 @@ widget_render_demo_result (const char *basename)
   design = sw_design_load (path, NULL, &error);
   g_assert_no_error (error);
   g_assert_nonnull (design);
-  return sw_result_compute (design, 1, NULL);
+  return sw_analysis_compute (design, 1, NULL);
 }
 
 /* A pixel as four doubles in 0..1, alpha-premultiplied as cairo stores it. */

@@ -296,7 +296,7 @@ test_script_drawn_cb (SwWindow *window, guint64 serial, SwApplication *self)
 {
   SwSolver *solver = sw_window_get_solver (window);
   const SwDesign *design;
-  SwResult *shown;
+  SwAnalysis *shown;
   g_autoptr (GError) error = NULL;
 
   if (serial < sw_solver_get_posted_serial (solver))

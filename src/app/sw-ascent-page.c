@@ -21,8 +21,8 @@
 struct _SwAscentPage {
   GtkWidget      parent_instance;
 
-  SwResult      *result;         /* the newest */
-  SwResult      *flown;          /* the newest with an ascent; older while one is pending */
+  SwAnalysis      *result;         /* the newest */
+  SwAnalysis      *flown;          /* the newest with an ascent; older while one is pending */
   GSettings     *settings;
   char          *note;
   char          *warnings;
@@ -104,7 +104,7 @@ fmt_seconds (double s)
 }
 
 static gboolean
-simulates_losses (const SwResult *r)
+simulates_losses (const SwAnalysis *r)
 {
   return r != NULL && r->ok && r->design->mission.kind == SW_MISSION_ORBIT
          && r->design->mission.loss_model == SW_LOSS_SIMULATE;
@@ -113,7 +113,7 @@ simulates_losses (const SwResult *r)
 /* The losses the fast phase sized with: the allowance, or the closed loop's
  * first guess. */
 static double
-fast_losses (const SwResult *r)
+fast_losses (const SwAnalysis *r)
 {
   return r->has_budget ? r->budget.losses_m_s : NAN;
 }
@@ -127,7 +127,7 @@ shown_ascent (SwAscentPage *self)
 /* ---- warnings ---------------------------------------------------------- */
 
 char *
-sw_ascent_warnings_text (const SwResult *result, const SwAscentResult *ascent,
+sw_ascent_warnings_text (const SwAnalysis *result, const SwAscentResult *ascent,
                          double min_thrust_to_weight, double max_q_pa, double max_g)
 {
   GString *s = g_string_new (NULL);
@@ -174,7 +174,7 @@ sw_ascent_warnings_text (const SwResult *result, const SwAscentResult *ascent,
 static char *
 note_text (SwAscentPage *self)
 {
-  SwResult *r = self->result;
+  SwAnalysis *r = self->result;
   const SwAscentResult *a;
   g_autofree char *guess = NULL, *losses = NULL, *allowed = NULL, *diff = NULL;
 
@@ -297,7 +297,7 @@ set_status (SwAscentPage *self, StatusKind kind, const char *text)
 static void
 update_status (SwAscentPage *self)
 {
-  SwResult *r = self->result;
+  SwAnalysis *r = self->result;
   const SwAscentResult *a;
   g_autofree char *text = NULL, *orbit = NULL, *missing = NULL, *cutoff = NULL;
   StatusKind kind;
@@ -475,7 +475,7 @@ grid_text (GtkGrid *grid, int column, int row, const char *text, gboolean headin
 static void
 stage_row (SwAscentPage *self, const SwAscentResult *a, guint i, GPtrArray *cells)
 {
-  SwResult *r = self->result;
+  SwAnalysis *r = self->result;
   const SwDesign *d = a != NULL ? self->flown->design : r->design;
   const SwAscentStage *st = a != NULL ? &a->stages[i] : &r->stage_figures[i];
   char *name, *ignition, *tw, *burn, *burnout;
@@ -522,7 +522,7 @@ stage_row (SwAscentPage *self, const SwAscentResult *a, guint i, GPtrArray *cell
 static void
 update_stages (SwAscentPage *self)
 {
-  SwResult *r = self->result;
+  SwAnalysis *r = self->result;
   const SwAscentResult *a = shown_ascent (self);
   g_autoptr (GPtrArray) cells = g_ptr_array_new_with_free_func (g_free);
   g_autofree char *key = NULL;
@@ -817,7 +817,7 @@ update (SwAscentPage *self, gboolean flown_changed)
 }
 
 void
-sw_ascent_page_set_result (SwAscentPage *self, SwResult *result)
+sw_ascent_page_set_result (SwAscentPage *self, SwAnalysis *result)
 {
   gboolean flown_changed = FALSE;
 
@@ -825,18 +825,18 @@ sw_ascent_page_set_result (SwAscentPage *self, SwResult *result)
 
   if (self->result == result)
     return;
-  g_clear_pointer (&self->result, sw_result_unref);
-  self->result = result != NULL ? sw_result_ref (result) : NULL;
+  g_clear_pointer (&self->result, sw_analysis_unref);
+  self->result = result != NULL ? sw_analysis_ref (result) : NULL;
 
   if (result != NULL && result->ascent != NULL)
     {
-      g_clear_pointer (&self->flown, sw_result_unref);
-      self->flown = sw_result_ref (result);
+      g_clear_pointer (&self->flown, sw_analysis_unref);
+      self->flown = sw_analysis_ref (result);
       flown_changed = TRUE;
     }
   else if ((result == NULL || !result->ascent_pending) && self->flown != NULL)
     {
-      g_clear_pointer (&self->flown, sw_result_unref);
+      g_clear_pointer (&self->flown, sw_analysis_unref);
       flown_changed = TRUE;
     }
   update (self, flown_changed);
@@ -941,8 +941,8 @@ sw_ascent_page_dispose (GObject *object)
   if (self->settings != NULL)
     g_signal_handlers_disconnect_by_func (self->settings, settings_changed_cb, self);
   g_clear_object (&self->settings);
-  g_clear_pointer (&self->result, sw_result_unref);
-  g_clear_pointer (&self->flown, sw_result_unref);
+  g_clear_pointer (&self->result, sw_analysis_unref);
+  g_clear_pointer (&self->flown, sw_analysis_unref);
   g_clear_pointer (&self->note, g_free);
   g_clear_pointer (&self->warnings, g_free);
   g_clear_pointer (&self->stages_key, g_free);

@@ -4,14 +4,14 @@
  * acceleration and flight-path angle against time, the losses ranked), a
  * summary of the figures, and warnings against the user's limits (GSettings
  * keys min-thrust-to-weight, max-dynamic-pressure-kpa, max-acceleration-g,
- * edited in the page's "Limits" popover).  Draws an SwResult; never computes
+ * edited in the page's "Limits" popover).  Draws an SwAnalysis; never computes
  * physics. */
 #pragma once
 
 #include <gtk/gtk.h>
 
 #include "sw-plot.h"
-#include "sw-result.h"
+#include "sw-analysis.h"
 
 G_BEGIN_DECLS
 
@@ -43,7 +43,7 @@ typedef enum {
 } SwAscentPageField;
 
 GtkWidget  *sw_ascent_page_new (void);
-void        sw_ascent_page_set_result (SwAscentPage *self, SwResult *result);
+void        sw_ascent_page_set_result (SwAscentPage *self, SwAnalysis *result);
 
 /* For the totals area: a note on the sizing (the closed loop's losses, or
  * how far the ascent falls short of the allowance) and the warnings against
@@ -56,7 +56,7 @@ const char *sw_ascent_page_get_warnings (SwAscentPage *self);
  * one per line, or NULL.  Thrust-to-weight comes from the ascent when it is
  * there, else from the fast phase's stage figures; @ascent may be an older
  * result's while the newest is simulated. */
-char       *sw_ascent_warnings_text (const SwResult *result, const SwAscentResult *ascent,
+char       *sw_ascent_warnings_text (const SwAnalysis *result, const SwAscentResult *ascent,
                                      double min_thrust_to_weight, double max_q_pa,
                                      double max_g);
 

@@ -14,7 +14,7 @@
 struct _SwExportDialog {
   GtkWindow     parent_instance;
 
-  SwResult     *result;
+  SwAnalysis     *result;
   char         *sheet_path;
   char         *csv_dir;
   GCancellable *cancellable;      /* of the export running, or NULL */
@@ -44,7 +44,7 @@ static const char *const extensions[] = { ".pdf", ".svg", ".png" };
 /* ---- the work (any thread) --------------------------------------------- */
 
 SwBriefing *
-sw_export_briefing_from_result (const SwResult *r, GError **error)
+sw_export_briefing_from_result (const SwAnalysis *r, GError **error)
 {
   g_autoptr (SwBriefing) b = NULL;
   g_autoptr (GDateTime) now = g_date_time_new_now_local ();
@@ -113,7 +113,7 @@ sw_export_briefing_from_result (const SwResult *r, GError **error)
 }
 
 typedef struct {
-  SwResult      *result;
+  SwAnalysis      *result;
   SwSheetFormat  format;
   SwPaper        paper;
   char          *sheet_path;
@@ -125,7 +125,7 @@ export_job_free (gpointer data)
 {
   ExportJob *job = data;
 
-  g_clear_pointer (&job->result, sw_result_unref);
+  g_clear_pointer (&job->result, sw_analysis_unref);
   g_free (job->sheet_path);
   g_free (job->csv_dir);
   g_free (job);
@@ -167,7 +167,7 @@ export_thread (GTask *task, gpointer source, gpointer data, GCancellable *cancel
 }
 
 void
-sw_export_run_async (SwResult *result, SwSheetFormat format, SwPaper paper,
+sw_export_run_async (SwAnalysis *result, SwSheetFormat format, SwPaper paper,
                      const char *sheet_path, const char *csv_dir, GCancellable *cancellable,
                      GAsyncReadyCallback callback, gpointer user_data)
 {
@@ -180,7 +180,7 @@ sw_export_run_async (SwResult *result, SwSheetFormat format, SwPaper paper,
   g_task_set_source_tag (task, sw_export_run_async);
   g_task_set_name (task, "[stagewright] export");
   job = g_new0 (ExportJob, 1);
-  job->result = sw_result_ref (result);
+  job->result = sw_analysis_ref (result);
   job->format = format;
   job->paper = paper;
   job->sheet_path = g_strdup (sheet_path);
@@ -437,14 +437,14 @@ sw_export_dialog_get_status (SwExportDialog *self, gboolean *failed)
 }
 
 void
-sw_export_dialog_set_result (SwExportDialog *self, SwResult *result)
+sw_export_dialog_set_result (SwExportDialog *self, SwAnalysis *result)
 {
   g_return_if_fail (SW_IS_EXPORT_DIALOG (self));
 
   if (self->result == result)
     return;
-  g_clear_pointer (&self->result, sw_result_unref);
-  self->result = result != NULL ? sw_result_ref (result) : NULL;
+  g_clear_pointer (&self->result, sw_analysis_unref);
+  self->result = result != NULL ? sw_analysis_ref (result) : NULL;
   if (result != NULL && !result->ok)
     set_status (self, _("The design cannot be sized: fix it before exporting."), TRUE);
   else if (self->failed && self->cancellable == NULL)
@@ -507,7 +507,7 @@ suggest_paths (SwExportDialog *self, GFile *design_file)
 }
 
 SwExportDialog *
-sw_export_dialog_new (GtkWindow *parent, SwResult *result, GFile *design_file)
+sw_export_dialog_new (GtkWindow *parent, SwAnalysis *result, GFile *design_file)
 {
   SwExportDialog *self = g_object_new (SW_TYPE_EXPORT_DIALOG, "transient-for", parent, NULL);
 
@@ -541,7 +541,7 @@ sw_export_dialog_dispose (GObject *object)
   if (self->cancellable != NULL)
     g_cancellable_cancel (self->cancellable);
   g_clear_object (&self->cancellable);
-  g_clear_pointer (&self->result, sw_result_unref);
+  g_clear_pointer (&self->result, sw_analysis_unref);
   gtk_widget_dispose_template (GTK_WIDGET (self), SW_TYPE_EXPORT_DIALOG);
   G_OBJECT_CLASS (sw_export_dialog_parent_class)->dispose (object);
 }

@@ -7,7 +7,7 @@
 #include <gtk/gtk.h>
 
 #include "sw-briefing.h"
-#include "sw-result.h"
+#include "sw-analysis.h"
 #include "sw-sheet.h"
 
 G_BEGIN_DECLS
@@ -16,9 +16,9 @@ G_BEGIN_DECLS
 G_DECLARE_FINAL_TYPE (SwExportDialog, sw_export_dialog, SW, EXPORT_DIALOG, GtkWindow)
 
 /* @design_file (may be NULL) suggests where to write. */
-SwExportDialog *sw_export_dialog_new (GtkWindow *parent, SwResult *result, GFile *design_file);
+SwExportDialog *sw_export_dialog_new (GtkWindow *parent, SwAnalysis *result, GFile *design_file);
 /* The window hands on every newer result while the dialog is open. */
-void            sw_export_dialog_set_result (SwExportDialog *self, SwResult *result);
+void            sw_export_dialog_set_result (SwExportDialog *self, SwAnalysis *result);
 /* For tests: where the dialog would write (NULL: no CSV). */
 void            sw_export_dialog_set_targets (SwExportDialog *self, SwSheetFormat format,
                                               SwPaper paper, const char *sheet_path,
@@ -32,12 +32,12 @@ const char     *sw_export_dialog_get_status (SwExportDialog *self, gboolean *fai
 /* The briefing of a shown result, its figures taken from the result (the
  * Monte Carlo run here when the result does not carry it yet, the ascent
  * summary flown by the sheet library).  Runs on any thread. */
-SwBriefing     *sw_export_briefing_from_result (const SwResult *result, GError **error);
+SwBriefing     *sw_export_briefing_from_result (const SwAnalysis *result, GError **error);
 
 /* The work itself, on a worker thread: the sheet to @sheet_path (may be
  * NULL) and the CSV tables into @csv_dir (may be NULL).  Finishes with the
  * paths written (owned strings). */
-void            sw_export_run_async (SwResult *result, SwSheetFormat format, SwPaper paper,
+void            sw_export_run_async (SwAnalysis *result, SwSheetFormat format, SwPaper paper,
                                      const char *sheet_path, const char *csv_dir,
                                      GCancellable *cancellable, GAsyncReadyCallback callback,
                                      gpointer user_data);

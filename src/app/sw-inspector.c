@@ -18,7 +18,7 @@ struct _SwInspector {
   GtkWidget      parent_instance;
 
   SwDocument    *document;
-  SwResult      *result;
+  SwAnalysis      *result;
   GSettings     *settings;
   int            selected;
   guint          updating;
@@ -321,7 +321,7 @@ static void
 update_computed (SwInspector *self)
 {
   g_autofree char *ideal = NULL;
-  SwResult *r = self->result;
+  SwAnalysis *r = self->result;
 
   if (r != NULL && r->has_budget)
     ideal = sw_format_speed (r->budget.ideal_delta_v_m_s);
@@ -549,7 +549,7 @@ split_toggled_cb (SwInspector *self, GtkToggleButton *button)
     return;
   d = sw_document_dup_design (self->document);
   if (split == SW_SPLIT_MANUAL)
-    sw_result_apply_shares (self->result, d);  /* start from the split on screen */
+    sw_analysis_apply_shares (self->result, d);  /* start from the split on screen */
   else
     d->split = split;
   commit (self, g_steal_pointer (&d), NULL);
@@ -664,7 +664,7 @@ share_changed_cb (SwInspector *self, GtkAdjustment *adjustment)
     return;
   d = sw_document_dup_design (self->document);
   if (d->split != SW_SPLIT_MANUAL)
-    sw_result_apply_shares (self->result, d);
+    sw_analysis_apply_shares (self->result, d);
   sw_design_set_share_rebalanced (d, (guint) self->selected, value);
   key = stage_key (self, "share");
   commit (self, g_steal_pointer (&d), key);
@@ -824,14 +824,14 @@ sw_inspector_set_document (SwInspector *self, SwDocument *document)
 }
 
 void
-sw_inspector_set_result (SwInspector *self, SwResult *result)
+sw_inspector_set_result (SwInspector *self, SwAnalysis *result)
 {
   g_return_if_fail (SW_IS_INSPECTOR (self));
 
   if (self->result == result)
     return;
-  g_clear_pointer (&self->result, sw_result_unref);
-  self->result = result != NULL ? sw_result_ref (result) : NULL;
+  g_clear_pointer (&self->result, sw_analysis_unref);
+  self->result = result != NULL ? sw_analysis_ref (result) : NULL;
   if (self->document == NULL)
     return;
   self->updating++;
@@ -933,7 +933,7 @@ sw_inspector_dispose (GObject *object)
   if (self->document != NULL)
     g_signal_handlers_disconnect_by_func (self->document, document_changed_cb, self);
   g_clear_object (&self->document);
-  g_clear_pointer (&self->result, sw_result_unref);
+  g_clear_pointer (&self->result, sw_analysis_unref);
   g_clear_object (&self->settings);
   gtk_widget_dispose_template (GTK_WIDGET (self), SW_TYPE_INSPECTOR);
   G_OBJECT_CLASS (sw_inspector_parent_class)->dispose (object);

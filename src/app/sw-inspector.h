@@ -1,13 +1,13 @@
 /* SPDX-License-Identifier: GPL-3.0-or-later */
 /* sw-inspector.h: the panel where the mission, the split and the stages are
  * edited.  Every edit goes to the document as one undoable step; the
- * computed values it shows come from the last SwResult. */
+ * computed values it shows come from the last SwAnalysis. */
 #pragma once
 
 #include <gtk/gtk.h>
 
 #include "sw-document.h"
-#include "sw-result.h"
+#include "sw-analysis.h"
 
 G_BEGIN_DECLS
 
@@ -16,7 +16,7 @@ G_DECLARE_FINAL_TYPE (SwInspector, sw_inspector, SW, INSPECTOR, GtkWidget)
 
 GtkWidget *sw_inspector_new (void);
 void       sw_inspector_set_document (SwInspector *self, SwDocument *document);
-void       sw_inspector_set_result (SwInspector *self, SwResult *result);
+void       sw_inspector_set_result (SwInspector *self, SwAnalysis *result);
 /* Property "selected-stage": -1 for none. */
 void       sw_inspector_set_selected (SwInspector *self, int stage);
 int        sw_inspector_get_selected (SwInspector *self);

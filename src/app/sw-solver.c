@@ -37,7 +37,7 @@ struct _SwSolver {
   GThread  *thread;
   guint64   serial;                 /* last posted */
   guint64   shown;                  /* rank of the last result emitted (result_rank) */
-  SwResult *result;
+  SwAnalysis *result;
 };
 
 G_DEFINE_FINAL_TYPE (SwSolver, sw_solver, G_TYPE_OBJECT)
@@ -73,7 +73,7 @@ shared_unref (Shared *sh)
 
 typedef struct {
   Shared   *shared;
-  SwResult *result;
+  SwAnalysis *result;
 } Delivery;
 
 static void
@@ -82,14 +82,14 @@ delivery_free (gpointer data)
   Delivery *d = data;
 
   shared_unref (d->shared);
-  g_clear_pointer (&d->result, sw_result_unref);
+  g_clear_pointer (&d->result, sw_analysis_unref);
   g_free (d);
 }
 
 /* Results in the order they may be shown: by serial, and within one serial
  * by phase: the fast one, the Monte Carlo, the ascent. */
 static guint64
-result_rank (const SwResult *r)
+result_rank (const SwAnalysis *r)
 {
   return 4 * r->serial + r->phase;
 }
@@ -105,8 +105,8 @@ deliver_cb (gpointer data)
   if (self == NULL || result_rank (d->result) <= self->shown)
     return G_SOURCE_REMOVE;
   self->shown = result_rank (d->result);
-  g_clear_pointer (&self->result, sw_result_unref);
-  self->result = sw_result_ref (d->result);
+  g_clear_pointer (&self->result, sw_analysis_unref);
+  self->result = sw_analysis_ref (d->result);
   g_signal_emit (self, signals[SOLVED], 0, d->result);
   return G_SOURCE_REMOVE;
 }
@@ -115,7 +115,7 @@ deliver_cb (gpointer data)
  * that would run the callback right here in the worker whenever the worker
  * can acquire the default context.  Takes @result. */
 static void
-deliver (Shared *sh, SwResult *result)
+deliver (Shared *sh, SwAnalysis *result)
 {
   Delivery *d = g_new0 (Delivery, 1);
   GSource *source;
@@ -133,11 +133,11 @@ deliver (Shared *sh, SwResult *result)
 /* The Monte Carlo phase, once no newer request has come for a moment.
  * Returns the new result (delivered, and a reference for the caller) or
  * NULL when superseded or cancelled. */
-static SwResult *
-solve_montecarlo (Shared *sh, SwResult *fast, const SwSolveOptions *options,
+static SwAnalysis *
+solve_montecarlo (Shared *sh, SwAnalysis *fast, const SwSolveOptions *options,
                   GCancellable *cancellable)
 {
-  SwResult *result;
+  SwAnalysis *result;
   gboolean superseded;
   gint64 until = g_get_monotonic_time () + MONTECARLO_DELAY_MS * G_TIME_SPAN_MILLISECOND;
 
@@ -148,9 +148,9 @@ solve_montecarlo (Shared *sh, SwResult *fast, const SwSolveOptions *options,
   g_mutex_unlock (&sh->mutex);
   if (superseded || g_cancellable_is_cancelled (cancellable))
     return NULL;
-  result = sw_result_compute_montecarlo (fast, options, cancellable);
+  result = sw_analysis_compute_montecarlo (fast, options, cancellable);
   if (result != NULL)
-    deliver (sh, sw_result_ref (result));
+    deliver (sh, sw_analysis_ref (result));
   return result;
 }
 
@@ -159,9 +159,9 @@ solve_montecarlo (Shared *sh, SwResult *fast, const SwSolveOptions *options,
  * an ascent started between the edits of a drag would delay the next
  * sizing by milliseconds; waiting keeps the worker free for it. */
 static void
-solve_ascent (Shared *sh, SwResult *fast, GCancellable *cancellable)
+solve_ascent (Shared *sh, SwAnalysis *fast, GCancellable *cancellable)
 {
-  SwResult *result;
+  SwAnalysis *result;
   gboolean superseded;
   gint64 until = g_get_monotonic_time () + ASCENT_DELAY_MS * G_TIME_SPAN_MILLISECOND;
 
@@ -175,7 +175,7 @@ solve_ascent (Shared *sh, SwResult *fast, GCancellable *cancellable)
   g_mutex_lock (&sh->mutex);
   sh->ascents_started++;
   g_mutex_unlock (&sh->mutex);
-  result = sw_result_compute_ascent (fast, cancellable);
+  result = sw_analysis_compute_ascent (fast, cancellable);
   if (result != NULL)
     deliver (sh, result);
   else
@@ -195,7 +195,7 @@ worker_thread (gpointer data)
     {
       g_autoptr (SwDesign) design = NULL;
       g_autoptr (GCancellable) cancellable = NULL;
-      g_autoptr (SwResult) result = NULL;
+      g_autoptr (SwAnalysis) result = NULL;
       SwSolveOptions options;
       guint64 serial;
 
@@ -214,19 +214,19 @@ worker_thread (gpointer data)
       g_set_object (&sh->running, cancellable);
       g_mutex_unlock (&sh->mutex);
 
-      result = sw_result_compute_with (design, serial, &options, cancellable);
+      result = sw_analysis_compute_with (design, serial, &options, cancellable);
       /* The sizing first, within the frame; then the ascent, which a newer
        * request cancels through the same cancellable. */
       if (result != NULL)
         {
-          deliver (sh, sw_result_ref (result));
+          deliver (sh, sw_analysis_ref (result));
           if (result->montecarlo_pending)
             {
-              SwResult *mc = solve_montecarlo (sh, result, &options, cancellable);
+              SwAnalysis *mc = solve_montecarlo (sh, result, &options, cancellable);
               /* The ascent copies the newest result, so it keeps the Monte Carlo. */
               if (mc != NULL)
                 {
-                  sw_result_unref (result);
+                  sw_analysis_unref (result);
                   result = mc;
                 }
             }
@@ -273,7 +273,7 @@ sw_solver_get_posted_serial (SwSolver *self)
   return self->serial;
 }
 
-SwResult *
+SwAnalysis *
 sw_solver_get_result (SwSolver *self)
 {
   g_return_val_if_fail (SW_IS_SOLVER (self), NULL);
@@ -349,7 +349,7 @@ sw_solver_dispose (GObject *object)
       g_mutex_unlock (&sh->mutex);
       g_thread_join (g_steal_pointer (&self->thread));
     }
-  g_clear_pointer (&self->result, sw_result_unref);
+  g_clear_pointer (&self->result, sw_analysis_unref);
   G_OBJECT_CLASS (sw_solver_parent_class)->dispose (object);
 }
 
@@ -372,7 +372,7 @@ sw_solver_class_init (SwSolverClass *klass)
 
   signals[SOLVED] = g_signal_new ("solved", G_TYPE_FROM_CLASS (klass), G_SIGNAL_RUN_LAST, 0,
                                   NULL, NULL, NULL, G_TYPE_NONE, 1,
-                                  SW_TYPE_RESULT | G_SIGNAL_TYPE_STATIC_SCOPE);
+                                  SW_TYPE_ANALYSIS | G_SIGNAL_TYPE_STATIC_SCOPE);
 }
 
 static void

@@ -7,7 +7,7 @@
 #include <gio/gio.h>
 
 #include "sw-design.h"
-#include "sw-result.h"
+#include "sw-analysis.h"
 
 G_BEGIN_DECLS
 
@@ -20,7 +20,7 @@ SwSolver *sw_solver_new (void);
 guint64   sw_solver_post (SwSolver *self, const SwDesign *design);
 guint64   sw_solver_get_posted_serial (SwSolver *self);
 /* The newest result emitted, or NULL. */
-SwResult *sw_solver_get_result (SwSolver *self);
+SwAnalysis *sw_solver_get_result (SwSolver *self);
 /* Settings that are not part of the design (the sensitivity step): they
  * apply from the next post on. */
 void      sw_solver_set_options (SwSolver *self, const SwSolveOptions *options);
@@ -31,7 +31,7 @@ guint64   sw_solver_get_dropped (SwSolver *self);
  * (for tests). */
 void      sw_solver_get_ascent_counts (SwSolver *self, guint64 *started, guint64 *cancelled);
 
-/* Signal "solved" (SwResult *result): emitted on the main loop of the thread
+/* Signal "solved" (SwAnalysis *result): emitted on the main loop of the thread
  * that created the solver, with serials never decreasing.  When a design can
  * be flown, one serial is emitted twice: the fast phase with ascent_pending,
  * then a new result with the simulated ascent (unless a newer edit cancelled

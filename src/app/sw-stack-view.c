@@ -42,7 +42,7 @@ typedef struct {
 struct _SwStackView {
   GtkWidget  parent_instance;
 
-  SwResult  *result;
+  SwAnalysis  *result;
   int        selected;
   int        hover_border;
 
@@ -135,7 +135,7 @@ format_percent (double fraction)
 }
 
 static const char *
-stage_name (SwResult *r, int stage)
+stage_name (SwAnalysis *r, int stage)
 {
   if (r->design != NULL && stage >= 0 && (guint) stage < r->design->n_stages
       && r->design->stages[stage].name[0] != '\0')
@@ -144,7 +144,7 @@ stage_name (SwResult *r, int stage)
 }
 
 static char *
-stage_title_markup (SwResult *r, int stage)
+stage_title_markup (SwAnalysis *r, int stage)
 {
   const char *name = stage_name (r, stage);
 
@@ -217,10 +217,10 @@ make_label (SwStackView *self, const char *markup)
 
 /* Thrust-to-weight at ignition, computed on the worker: as flown when the
  * result has the ascent (fairing and ambient pressure included), else from
- * the sized masses (SwResult's stage figures).  A line of its own, or
+ * the sized masses (SwAnalysis's stage figures).  A line of its own, or
  * " · T/W 1.45" when @compact; "" when the design has no thrust. */
 static double
-stage_tw (SwResult *r, int stage)
+stage_tw (SwAnalysis *r, int stage)
 {
   if (r == NULL || stage < 0 || stage >= SW_MAX_STAGES)
     return NAN;
@@ -232,7 +232,7 @@ stage_tw (SwResult *r, int stage)
 }
 
 static char *
-stage_tw_text (SwResult *r, int stage, gboolean compact)
+stage_tw_text (SwAnalysis *r, int stage, gboolean compact)
 {
   double tw = stage_tw (r, stage);
 
@@ -248,7 +248,7 @@ stage_tw_text (SwResult *r, int stage, gboolean compact)
 static char *
 item_label_markup (SwStackView *self, const Item *item, gboolean compact)
 {
-  SwResult *r = self->result;
+  SwAnalysis *r = self->result;
   const SwStageResult *s;
   g_autofree char *title = NULL;
   g_autofree char *mass = NULL;
@@ -414,7 +414,7 @@ legend_height (SwStackView *self)
 /* The pinned baseline's blocks in kg, bottom to top, the payload last;
  * none when there is no baseline or it does not close. */
 static guint
-baseline_masses (SwResult *r, double *mass)
+baseline_masses (SwAnalysis *r, double *mass)
 {
   const SwSizing *b;
   guint n = 0;
@@ -433,7 +433,7 @@ baseline_masses (SwResult *r, double *mass)
 static void
 stack_layout (SwStackView *self, int width, int height)
 {
-  SwResult *r = self->result;
+  SwAnalysis *r = self->result;
   const SwSizing *sz;
   double legend_h, top, bottom, label_w, max_label_w, avail_w, avail_h;
   double sum_sqrt = 0.0, max_sqrt = 0.0, fixed_h = 0.0;
@@ -1160,7 +1160,7 @@ sw_stack_view_css_changed (GtkWidget *widget, GtkCssStyleChange *change)
 static gboolean
 query_tooltip_cb (SwStackView *self, int x, int y, gboolean keyboard, GtkTooltip *tooltip)
 {
-  SwResult *r = self->result;
+  SwAnalysis *r = self->result;
   const Item *it;
   const SwStageResult *s;
   g_autofree char *title = NULL;
@@ -1337,7 +1337,7 @@ sw_stack_view_dispose (GObject *object)
   SwStackView *self = SW_STACK_VIEW (object);
 
   clear_layout (self);
-  g_clear_pointer (&self->result, sw_result_unref);
+  g_clear_pointer (&self->result, sw_analysis_unref);
   G_OBJECT_CLASS (sw_stack_view_parent_class)->dispose (object);
 }
 
@@ -1449,7 +1449,7 @@ sw_stack_view_new (void)
 static void
 update_accessible (SwStackView *self)
 {
-  SwResult *r = self->result;
+  SwAnalysis *r = self->result;
   g_autofree char *text = NULL;
 
   if (r == NULL)
@@ -1469,15 +1469,15 @@ update_accessible (SwStackView *self)
 }
 
 void
-sw_stack_view_set_result (SwStackView *self, SwResult *result)
+sw_stack_view_set_result (SwStackView *self, SwAnalysis *result)
 {
   g_return_if_fail (SW_IS_STACK_VIEW (self));
 
   if (result == self->result)
     return;
   if (result != NULL)
-    sw_result_ref (result);
-  g_clear_pointer (&self->result, sw_result_unref);
+    sw_analysis_ref (result);
+  g_clear_pointer (&self->result, sw_analysis_unref);
   self->result = result;
   if (self->selected >= 0 && (result == NULL || !result->ok
                               || (guint) self->selected >= result->sizing.n_stages))
@@ -1486,7 +1486,7 @@ sw_stack_view_set_result (SwStackView *self, SwResult *result)
   invalidate (self);
 }
 
-SwResult *
+SwAnalysis *
 sw_stack_view_get_result (SwStackView *self)
 {
   g_return_val_if_fail (SW_IS_STACK_VIEW (self), NULL);

@@ -1,12 +1,12 @@
 /* SPDX-License-Identifier: GPL-3.0-or-later */
 /* sw-stack-view.h: the vehicle drawn as a stack of stage blocks whose areas
- * are proportional to their computed masses.  Draws an SwResult; never
+ * are proportional to their computed masses.  Draws an SwAnalysis; never
  * computes physics. */
 #pragma once
 
 #include <gtk/gtk.h>
 
-#include "sw-result.h"
+#include "sw-analysis.h"
 
 G_BEGIN_DECLS
 
@@ -15,8 +15,8 @@ G_DECLARE_FINAL_TYPE (SwStackView, sw_stack_view, SW, STACK_VIEW, GtkWidget)
 
 GtkWidget *sw_stack_view_new (void);
 /* Takes a reference; NULL clears the view. */
-void       sw_stack_view_set_result (SwStackView *self, SwResult *result);
-SwResult  *sw_stack_view_get_result (SwStackView *self);
+void       sw_stack_view_set_result (SwStackView *self, SwAnalysis *result);
+SwAnalysis  *sw_stack_view_get_result (SwStackView *self);
 /* -1 for none. Property "selected-stage". */
 void       sw_stack_view_set_selected (SwStackView *self, int stage);
 int        sw_stack_view_get_selected (SwStackView *self);

@@ -13,7 +13,7 @@
 struct _SwTotals {
   GtkWidget  parent_instance;
   GtkWidget *box;
-  SwResult  *result;
+  SwAnalysis  *result;
   GtkInscription *liftoff_label;
   GtkInscription *fraction_label;
   GtkInscription *margin_label;
@@ -99,7 +99,7 @@ set_delta (GtkInscription *label, const char *text, const char *tooltip)
 static void
 update_deltas (SwTotals *self)
 {
-  SwResult *r = self->result;
+  SwAnalysis *r = self->result;
   g_autofree char *liftoff = NULL, *fraction = NULL, *margin = NULL, *tooltip = NULL;
   const char *name;
 
@@ -138,7 +138,7 @@ update_deltas (SwTotals *self)
 static void
 update (SwTotals *self)
 {
-  SwResult *r = self->result;
+  SwAnalysis *r = self->result;
   const SwSizing *s;
   g_autofree char *liftoff = NULL, *fraction = NULL, *margin = NULL;
   g_autofree char *required = NULL, *limit = NULL, *dv = NULL, *lim = NULL, *status = NULL;
@@ -204,14 +204,14 @@ sw_totals_new (void)
 }
 
 void
-sw_totals_set_result (SwTotals *self, SwResult *result)
+sw_totals_set_result (SwTotals *self, SwAnalysis *result)
 {
   g_return_if_fail (SW_IS_TOTALS (self));
 
   if (self->result == result)
     return;
-  g_clear_pointer (&self->result, sw_result_unref);
-  self->result = result != NULL ? sw_result_ref (result) : NULL;
+  g_clear_pointer (&self->result, sw_analysis_unref);
+  self->result = result != NULL ? sw_analysis_ref (result) : NULL;
   update (self);
   update_deltas (self);
 }
@@ -271,7 +271,7 @@ sw_totals_dispose (GObject *object)
 {
   SwTotals *self = SW_TOTALS (object);
 
-  g_clear_pointer (&self->result, sw_result_unref);
+  g_clear_pointer (&self->result, sw_analysis_unref);
   gtk_widget_dispose_template (GTK_WIDGET (self), SW_TYPE_TOTALS);
   G_OBJECT_CLASS (sw_totals_parent_class)->dispose (object);
 }

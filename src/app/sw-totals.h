@@ -1,10 +1,10 @@
 /* SPDX-License-Identifier: GPL-3.0-or-later */
-/* sw-totals.h: the vehicle's totals and whether it closes, from an SwResult. */
+/* sw-totals.h: the vehicle's totals and whether it closes, from an SwAnalysis. */
 #pragma once
 
 #include <gtk/gtk.h>
 
-#include "sw-result.h"
+#include "sw-analysis.h"
 
 G_BEGIN_DECLS
 
@@ -12,7 +12,7 @@ G_BEGIN_DECLS
 G_DECLARE_FINAL_TYPE (SwTotals, sw_totals, SW, TOTALS, GtkWidget)
 
 GtkWidget  *sw_totals_new (void);
-void        sw_totals_set_result (SwTotals *self, SwResult *result);
+void        sw_totals_set_result (SwTotals *self, SwAnalysis *result);
 /* The ascent's note on the sizing and its warnings (one per line), from the
  * ascent page; NULL hides the row. */
 void        sw_totals_set_ascent (SwTotals *self, const char *note, const char *warnings);

@@ -20,7 +20,7 @@ struct _SwTradePage {
   GtkWidget    parent_instance;
 
   SwDocument  *document;
-  SwResult    *result;
+  SwAnalysis    *result;
   gboolean     stale;          /* result not shown yet: the page was not mapped */
   GSettings   *settings;
   guint        updating;
@@ -245,7 +245,7 @@ step_changed_cb (SwTradePage *self)
 /* ---- the charts -------------------------------------------------------- */
 
 static void
-show_tornado (SwTradePage *self, SwResult *r)
+show_tornado (SwTradePage *self, SwAnalysis *r)
 {
   const SwSensitivityTable *t = r != NULL ? &r->sensitivity : NULL;
   g_autofree char *title = NULL, *minus_name = NULL, *plus_name = NULL;
@@ -314,7 +314,7 @@ show_tornado (SwTradePage *self, SwResult *r)
 }
 
 static void
-show_histogram (SwTradePage *self, SwResult *r)
+show_histogram (SwTradePage *self, SwAnalysis *r)
 {
   const SwMcSummary *s = r != NULL ? &r->montecarlo.liftoff : NULL;
   double x[SW_MC_BINS], y[SW_MC_BINS], width;
@@ -385,7 +385,7 @@ show_histogram (SwTradePage *self, SwResult *r)
 }
 
 static void
-show_reliability (SwTradePage *self, SwResult *r)
+show_reliability (SwTradePage *self, SwAnalysis *r)
 {
   const SwReliabilityCurve *c = r != NULL ? &r->reliability_curve : NULL;
   double x[SW_MAX_STAGES], y[SW_MAX_STAGES], lowest = 1.0;
@@ -443,7 +443,7 @@ show_reliability (SwTradePage *self, SwResult *r)
 }
 
 static void
-show_mass (SwTradePage *self, SwResult *r)
+show_mass (SwTradePage *self, SwAnalysis *r)
 {
   sw_trade_plots_show_stage_count (self->mass_plot, r);
   /* The window's title is too long for half the page. */
@@ -453,7 +453,7 @@ show_mass (SwTradePage *self, SwResult *r)
 /* ---- the cards --------------------------------------------------------- */
 
 static void
-show_cards (SwTradePage *self, SwResult *r)
+show_cards (SwTradePage *self, SwAnalysis *r)
 {
   g_autofree char *caption = NULL, *step_text = NULL;
   g_autofree char *value = NULL, *detail = NULL;
@@ -612,14 +612,14 @@ show_result (SwTradePage *self)
 }
 
 void
-sw_trade_page_set_result (SwTradePage *self, SwResult *result)
+sw_trade_page_set_result (SwTradePage *self, SwAnalysis *result)
 {
   g_return_if_fail (SW_IS_TRADE_PAGE (self));
 
   if (self->result == result)
     return;
-  g_clear_pointer (&self->result, sw_result_unref);
-  self->result = result != NULL ? sw_result_ref (result) : NULL;
+  g_clear_pointer (&self->result, sw_analysis_unref);
+  self->result = result != NULL ? sw_analysis_ref (result) : NULL;
   /* Behind another page the cards' labels would cost the window a
    * relayout on every edit: the page catches up when it is shown. */
   self->stale = TRUE;
@@ -769,7 +769,7 @@ sw_trade_page_dispose (GObject *object)
   if (self->document != NULL)
     g_signal_handlers_disconnect_by_func (self->document, document_changed_cb, self);
   g_clear_object (&self->document);
-  g_clear_pointer (&self->result, sw_result_unref);
+  g_clear_pointer (&self->result, sw_analysis_unref);
   g_clear_object (&self->settings);
   g_clear_pointer (&self->row_labels, g_strfreev);
   gtk_widget_dispose_template (GTK_WIDGET (self), SW_TYPE_TRADE_PAGE);

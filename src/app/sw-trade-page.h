@@ -2,7 +2,7 @@
 /* sw-trade-page.h: the trade-study page of the main window: which input
  * moves the liftoff mass most (a ranked bar chart), how far the liftoff mass
  * spreads (the Monte Carlo histogram), and liftoff mass beside mission
- * success against stage count.  Draws an SwResult; edits the design's
+ * success against stage count.  Draws an SwAnalysis; edits the design's
  * Monte Carlo inputs (samples, seed, spreads) as undoable edits; the
  * tornado's step is a setting. */
 #pragma once
@@ -11,7 +11,7 @@
 
 #include "sw-document.h"
 #include "sw-plot.h"
-#include "sw-result.h"
+#include "sw-analysis.h"
 
 G_BEGIN_DECLS
 
@@ -48,7 +48,7 @@ GtkWidget *sw_trade_page_new (void);
 void       sw_trade_page_set_document (SwTradePage *self, SwDocument *document);
 /* Takes a reference; NULL clears the page.  Behind another page of the
  * notebook the page is brought up to date when it is shown. */
-void       sw_trade_page_set_result (SwTradePage *self, SwResult *result);
+void       sw_trade_page_set_result (SwTradePage *self, SwAnalysis *result);
 /* The tornado's relative step (0.05 = 5 %).  Property "step"; stored in the
  * setting "sensitivity-step-percent". */
 double     sw_trade_page_get_step (SwTradePage *self);

@@ -9,7 +9,7 @@
 #include <math.h>
 
 gboolean
-sw_trade_plots_current_point (SwResult *r, guint which, double *x, double *y)
+sw_trade_plots_current_point (SwAnalysis *r, guint which, double *x, double *y)
 {
   if (r == NULL || !r->ok || !r->sizing.feasible || !isfinite (r->sizing.liftoff_mass_kg))
     return FALSE;
@@ -27,7 +27,7 @@ setup_mass_axis (SwPlot *plot)
 }
 
 void
-sw_trade_plots_show_stage_count (SwPlot *plot, SwResult *r)
+sw_trade_plots_show_stage_count (SwPlot *plot, SwAnalysis *r)
 {
   const SwStageCurve *curve;
   double x[SW_MAX_STAGES], y[SW_MAX_STAGES];
@@ -86,7 +86,7 @@ sw_trade_plots_show_stage_count (SwPlot *plot, SwResult *r)
 }
 
 void
-sw_trade_plots_show_sweep (SwPlot *plot, SwResult *r)
+sw_trade_plots_show_sweep (SwPlot *plot, SwAnalysis *r)
 {
   const SwSweep *sw;
   double dv, x_hi, x_max = 0.0, y_lo, y_hi, cx, cy;
@@ -143,7 +143,7 @@ sw_trade_plots_show_sweep (SwPlot *plot, SwResult *r)
 }
 
 void
-sw_trade_plots_add_band (SwPlot *plot, SwResult *r)
+sw_trade_plots_add_band (SwPlot *plot, SwAnalysis *r)
 {
   double x[SW_MAX_STAGES];
 
@@ -159,7 +159,7 @@ sw_trade_plots_add_band (SwPlot *plot, SwResult *r)
 }
 
 gboolean
-sw_trade_plots_baseline_point (SwResult *r, guint which, double *x, double *y)
+sw_trade_plots_baseline_point (SwAnalysis *r, guint which, double *x, double *y)
 {
   const SwSizing *b;
 
@@ -174,7 +174,7 @@ sw_trade_plots_baseline_point (SwResult *r, guint which, double *x, double *y)
 }
 
 void
-sw_trade_plots_add_baseline (SwPlot *plot, SwResult *r, guint which)
+sw_trade_plots_add_baseline (SwPlot *plot, SwAnalysis *r, guint which)
 {
   double x[SW_MAX_STAGES], y[SW_MAX_STAGES], bx, by;
 

@@ -1,29 +1,29 @@
 /* SPDX-License-Identifier: GPL-3.0-or-later */
 /* sw-trade-plots.h: the two trade curves of the main window, filled from an
- * SwResult (no physics here: the curves are in the result). */
+ * SwAnalysis (no physics here: the curves are in the result). */
 #pragma once
 
 #include "sw-plot.h"
-#include "sw-result.h"
+#include "sw-analysis.h"
 
 G_BEGIN_DECLS
 
 /* Liftoff mass against stage count 1..8, log y, the current count marked,
  * counts that do not close marked as infeasible. */
-void sw_trade_plots_show_stage_count (SwPlot *plot, SwResult *result);
+void sw_trade_plots_show_stage_count (SwPlot *plot, SwAnalysis *result);
 /* Liftoff mass against delta-v for 1..5 stages, log y, each curve with its
  * asymptote, the current design marked. */
-void sw_trade_plots_show_sweep (SwPlot *plot, SwResult *result);
+void sw_trade_plots_show_sweep (SwPlot *plot, SwAnalysis *result);
 
 /* Overlays, also used by the trade-study page: the Monte Carlo band on the
  * stage-count curve; the baseline's stage-count curve (@which 0) and its
  * marker (on either plot). */
-void sw_trade_plots_add_band (SwPlot *plot, SwResult *result);
-void sw_trade_plots_add_baseline (SwPlot *plot, SwResult *result, guint which);
-gboolean sw_trade_plots_baseline_point (SwResult *result, guint which, double *x, double *y);
+void sw_trade_plots_add_band (SwPlot *plot, SwAnalysis *result);
+void sw_trade_plots_add_baseline (SwPlot *plot, SwAnalysis *result, guint which);
+gboolean sw_trade_plots_baseline_point (SwAnalysis *result, guint which, double *x, double *y);
 
 /* Where the current design's marker was put, in data coordinates; FALSE when
  * there is none (for tests). */
-gboolean sw_trade_plots_current_point (SwResult *result, guint which, double *x, double *y);
+gboolean sw_trade_plots_current_point (SwAnalysis *result, guint which, double *x, double *y);
 
 G_END_DECLS

@@ -8,7 +8,7 @@
 #include "sw-export-dialog.h"
 #include "sw-inspector.h"
 #include "sw-plot.h"
-#include "sw-result.h"
+#include "sw-analysis.h"
 #include "sw-solver.h"
 #include "sw-stack-view.h"
 #include "sw-totals.h"
@@ -34,7 +34,7 @@ gboolean       sw_window_show_page (SwWindow *self, const char *name);
 /* 0: liftoff mass against stage count; 1: against delta-v. */
 SwPlot        *sw_window_get_plot (SwWindow *self, guint which);
 /* The result the views show now, or NULL before the first one. */
-SwResult      *sw_window_get_shown_result (SwWindow *self);
+SwAnalysis      *sw_window_get_shown_result (SwWindow *self);
 /* Serial of the newest result that has been painted in a frame. */
 guint64        sw_window_get_drawn_serial (SwWindow *self);
 /* Signal "result-drawn" (guint64 serial): after the frame that first

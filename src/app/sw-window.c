@@ -36,7 +36,7 @@ struct _SwWindow {
 
   SwDocument     *document;
   SwSolver       *solver;
-  SwResult       *result;
+  SwAnalysis       *result;
   GSettings      *settings;
   gboolean        ephemeral;
   guint64         drawn_serial;
@@ -162,10 +162,10 @@ document_changed_cb (SwWindow *self)
 }
 
 static void
-solved_cb (SwWindow *self, SwResult *result)
+solved_cb (SwWindow *self, SwAnalysis *result)
 {
-  g_clear_pointer (&self->result, sw_result_unref);
-  self->result = sw_result_ref (result);
+  g_clear_pointer (&self->result, sw_analysis_unref);
+  self->result = sw_analysis_ref (result);
   sw_stack_view_set_result (self->stack_view, result);
   sw_stack_view_set_selected (self->stack_view, sw_inspector_get_selected (self->inspector));
   sw_inspector_set_result (self->inspector, result);
@@ -185,7 +185,7 @@ solved_cb (SwWindow *self, SwResult *result)
 
 /* A later phase (Monte Carlo, ascent) of the same serial is on its way. */
 static gboolean
-result_pending (const SwResult *r)
+result_pending (const SwAnalysis *r)
 {
   return r->ascent_pending || r->montecarlo_pending;
 }
@@ -239,7 +239,7 @@ share_dragged_cb (SwWindow *self, int lower, int upper, double amount, gboolean 
     {
       self->drag_base = sw_document_dup_design (self->document);
       if (self->drag_base->split != SW_SPLIT_MANUAL)
-        sw_result_apply_shares (self->result, self->drag_base);
+        sw_analysis_apply_shares (self->result, self->drag_base);
     }
   d = sw_design_copy (self->drag_base);
   sw_design_move_share (d, (guint) upper, (guint) lower, amount);
@@ -879,7 +879,7 @@ split_action (GtkWidget *widget, const char *name, GVariant *param)
   if (!sw_split_mode_from_string (g_variant_get_string (param, NULL), &mode) || mode == d->split)
     return;
   if (mode == SW_SPLIT_MANUAL)
-    sw_result_apply_shares (self->result, d);
+    sw_analysis_apply_shares (self->result, d);
   else
     d->split = mode;
   sw_document_commit (self->document, g_steal_pointer (&d), NULL);
@@ -1066,7 +1066,7 @@ sw_window_get_plot (SwWindow *self, guint which)
   return which == 0 ? self->stage_count_plot : self->sweep_plot;
 }
 
-SwResult *
+SwAnalysis *
 sw_window_get_shown_result (SwWindow *self)
 {
   g_return_val_if_fail (SW_IS_WINDOW (self), NULL);
@@ -1177,7 +1177,7 @@ sw_window_dispose (GObject *object)
   if (self->document != NULL)
     g_signal_handlers_disconnect_by_func (self->document, document_changed_cb, self);
   g_clear_object (&self->document);
-  g_clear_pointer (&self->result, sw_result_unref);
+  g_clear_pointer (&self->result, sw_analysis_unref);
   g_clear_pointer (&self->drag_base, sw_design_free);
   g_clear_pointer (&self->recovered, sw_design_free);
   g_clear_object (&self->recovered_origin);

@@ -13,7 +13,7 @@
 struct _SwWorkingView {
   GtkWidget    parent_instance;
   GtkWidget   *box;
-  SwResult    *result;
+  SwAnalysis    *result;
   int          selected;
   GtkLabel    *title_label;
   GtkTextView *text_view;
@@ -58,7 +58,7 @@ formula (GString *s, const char *format, ...)
 static char *
 build_text (SwWorkingView *self, gboolean for_copy)
 {
-  SwResult *r = self->result;
+  SwAnalysis *r = self->result;
   const SwDesign *d;
   const SwStage *st;
   const SwStageResult *sr;
@@ -231,14 +231,14 @@ sw_working_view_new (void)
 }
 
 void
-sw_working_view_set_result (SwWorkingView *self, SwResult *result)
+sw_working_view_set_result (SwWorkingView *self, SwAnalysis *result)
 {
   g_return_if_fail (SW_IS_WORKING_VIEW (self));
 
   if (self->result == result)
     return;
-  g_clear_pointer (&self->result, sw_result_unref);
-  self->result = result != NULL ? sw_result_ref (result) : NULL;
+  g_clear_pointer (&self->result, sw_analysis_unref);
+  self->result = result != NULL ? sw_analysis_ref (result) : NULL;
   /* The text is only rebuilt while visible; mapping rebuilds it. */
   if (gtk_widget_get_mapped (GTK_WIDGET (self)))
     update (self);
@@ -268,7 +268,7 @@ sw_working_view_dispose (GObject *object)
 {
   SwWorkingView *self = SW_WORKING_VIEW (object);
 
-  g_clear_pointer (&self->result, sw_result_unref);
+  g_clear_pointer (&self->result, sw_analysis_unref);
   gtk_widget_dispose_template (GTK_WIDGET (self), SW_TYPE_WORKING_VIEW);
   G_OBJECT_CLASS (sw_working_view_parent_class)->dispose (object);
 }

@@ -5,7 +5,7 @@
 
 #include <gtk/gtk.h>
 
-#include "sw-result.h"
+#include "sw-analysis.h"
 
 G_BEGIN_DECLS
 
@@ -13,7 +13,7 @@ G_BEGIN_DECLS
 G_DECLARE_FINAL_TYPE (SwWorkingView, sw_working_view, SW, WORKING_VIEW, GtkWidget)
 
 GtkWidget *sw_working_view_new (void);
-void       sw_working_view_set_result (SwWorkingView *self, SwResult *result);
+void       sw_working_view_set_result (SwWorkingView *self, SwAnalysis *result);
 void       sw_working_view_set_selected (SwWorkingView *self, int stage);
 /* The text as copied (with the cautions line). */
 char      *sw_working_view_dup_text (SwWorkingView *self);

@@ -1,18 +1,18 @@
 /* SPDX-License-Identifier: GPL-3.0-or-later */
-#define G_LOG_DOMAIN "sw-result"
+#define G_LOG_DOMAIN "sw-analysis"
 
 #include "config.h"
 
-#include "sw-result.h"
+#include "sw-analysis.h"
 
 #include <math.h>
 
-G_DEFINE_BOXED_TYPE (SwResult, sw_result, sw_result_ref, sw_result_unref)
+G_DEFINE_BOXED_TYPE (SwAnalysis, sw_analysis, sw_analysis_ref, sw_analysis_unref)
 
 static void
 result_clear (gpointer data)
 {
-  SwResult *r = data;
+  SwAnalysis *r = data;
 
   sw_design_free (r->design);
   g_free (r->error_message);
@@ -23,7 +23,7 @@ result_clear (gpointer data)
 /* Fast phase: thrust-to-weight per stage from the sized masses, and whether
  * the design has what an ascent needs (if not, the core says which keys). */
 static void
-prepare_ascent (SwResult *r, const SwDesign *design)
+prepare_ascent (SwAnalysis *r, const SwDesign *design)
 {
   g_autoptr (GError) error = NULL;
 
@@ -43,7 +43,7 @@ sw_solve_options_init (SwSolveOptions *options)
 
 /* The comparison with the baseline, from the sizing in force. */
 static void
-compare_with_baseline (SwResult *r)
+compare_with_baseline (SwAnalysis *r)
 {
   sw_comparison_from_sizings (&r->sizing, r->baseline_ok ? &r->baseline_sizing : NULL,
                               &r->comparison);
@@ -54,7 +54,7 @@ compare_with_baseline (SwResult *r)
 
 /* Fast phase of the trade studies: microseconds each (see the CLI's bench). */
 static void
-prepare_trade (SwResult *r, const SwDesign *design, const SwSolveOptions *options)
+prepare_trade (SwAnalysis *r, const SwDesign *design, const SwSolveOptions *options)
 {
   g_autoptr (GError) error = NULL;
 
@@ -84,17 +84,17 @@ prepare_trade (SwResult *r, const SwDesign *design, const SwSolveOptions *option
   r->montecarlo_pending = sw_uncertainty_has_spread (&design->uncertainty);
 }
 
-SwResult *
-sw_result_compute (const SwDesign *design, guint64 serial, GCancellable *cancellable)
+SwAnalysis *
+sw_analysis_compute (const SwDesign *design, guint64 serial, GCancellable *cancellable)
 {
-  return sw_result_compute_with (design, serial, NULL, cancellable);
+  return sw_analysis_compute_with (design, serial, NULL, cancellable);
 }
 
-SwResult *
-sw_result_compute_with (const SwDesign *design, guint64 serial, const SwSolveOptions *options,
+SwAnalysis *
+sw_analysis_compute_with (const SwDesign *design, guint64 serial, const SwSolveOptions *options,
                         GCancellable *cancellable)
 {
-  SwResult *r;
+  SwAnalysis *r;
   SwSolveOptions defaults;
   g_autoptr (GError) error = NULL;
 
@@ -106,7 +106,7 @@ sw_result_compute_with (const SwDesign *design, guint64 serial, const SwSolveOpt
       options = &defaults;
     }
 
-  r = g_atomic_rc_box_new0 (SwResult);
+  r = g_atomic_rc_box_new0 (SwAnalysis);
   r->serial = serial;
   r->design = sw_design_copy (design);
 
@@ -128,18 +128,18 @@ sw_result_compute_with (const SwDesign *design, guint64 serial, const SwSolveOpt
 
   if (g_cancellable_is_cancelled (cancellable))
     {
-      sw_result_unref (r);
+      sw_analysis_unref (r);
       return NULL;
     }
   return r;
 }
 
-SwResult *
-sw_result_compute_ascent (const SwResult *fast, GCancellable *cancellable)
+SwAnalysis *
+sw_analysis_compute_ascent (const SwAnalysis *fast, GCancellable *cancellable)
 {
   g_autoptr (GError) error = NULL;
   SwAscentResult *ascent;
-  SwResult *r;
+  SwAnalysis *r;
 
   g_return_val_if_fail (fast != NULL && fast->ok && fast->ascent_pending, NULL);
 
@@ -151,7 +151,7 @@ sw_result_compute_ascent (const SwResult *fast, GCancellable *cancellable)
     }
 
   /* The fast part, copied: the emitted fast result stays as it was. */
-  r = g_atomic_rc_box_new0 (SwResult);
+  r = g_atomic_rc_box_new0 (SwAnalysis);
   *r = *fast;
   r->design = sw_design_copy (fast->design);
   r->error_message = g_strdup (fast->error_message);
@@ -181,14 +181,14 @@ sw_result_compute_ascent (const SwResult *fast, GCancellable *cancellable)
   return r;
 }
 
-SwResult *
-sw_result_compute_montecarlo (const SwResult *fast, const SwSolveOptions *options,
+SwAnalysis *
+sw_analysis_compute_montecarlo (const SwAnalysis *fast, const SwSolveOptions *options,
                               GCancellable *cancellable)
 {
   g_autoptr (GError) error = NULL;
   const SwUncertainty *unc;
   SwSolveOptions defaults;
-  SwResult *r;
+  SwAnalysis *r;
 
   g_return_val_if_fail (fast != NULL && fast->ok && fast->montecarlo_pending, NULL);
 
@@ -197,9 +197,9 @@ sw_result_compute_montecarlo (const SwResult *fast, const SwSolveOptions *option
       sw_solve_options_init (&defaults);
       options = &defaults;
     }
-  /* The fast part, copied as in sw_result_compute_ascent(); the trade
+  /* The fast part, copied as in sw_analysis_compute_ascent(); the trade
    * fields hold no pointers.  The ascent has not run yet in this phase. */
-  r = g_atomic_rc_box_new0 (SwResult);
+  r = g_atomic_rc_box_new0 (SwAnalysis);
   *r = *fast;
   r->design = sw_design_copy (fast->design);
   r->error_message = g_strdup (fast->error_message);
@@ -224,26 +224,26 @@ sw_result_compute_montecarlo (const SwResult *fast, const SwSolveOptions *option
     g_strlcpy (r->montecarlo_error, error->message, sizeof r->montecarlo_error);
   if (g_cancellable_is_cancelled (cancellable))
     {
-      sw_result_unref (r);
+      sw_analysis_unref (r);
       return NULL;
     }
   return r;
 }
 
-SwResult *
-sw_result_ref (SwResult *result)
+SwAnalysis *
+sw_analysis_ref (SwAnalysis *result)
 {
   return g_atomic_rc_box_acquire (result);
 }
 
 void
-sw_result_unref (SwResult *result)
+sw_analysis_unref (SwAnalysis *result)
 {
   g_atomic_rc_box_release_full (result, result_clear);
 }
 
 void
-sw_result_apply_shares (const SwResult *result, SwDesign *design)
+sw_analysis_apply_shares (const SwAnalysis *result, SwDesign *design)
 {
   guint n;
   double sum = 0.0;

@@ -1,5 +1,5 @@
 /* SPDX-License-Identifier: GPL-3.0-or-later */
-/* sw-result.h: the immutable answer of one solve.  The worker thread builds
+/* sw-analysis.h: the immutable answer of one solve.  The worker thread builds
  * it from a copy of the design; the views only read it.  Reference counted
  * (g_atomic_rc_box) so every view may hold it as long as it draws from it. */
 #pragma once
@@ -18,7 +18,7 @@
 
 G_BEGIN_DECLS
 
-typedef struct _SwResult SwResult;
+typedef struct _SwResult SwAnalysis;
 
 struct _SwResult {
   guint64   serial;            /* the edit this answers; strictly increasing */
@@ -34,9 +34,9 @@ struct _SwResult {
 
   /* The ascent.  The fast phase fills stage_figures and says whether an
    * ascent follows; the worker then simulates and emits a second result of
-   * the same serial (sw_result_compute_ascent), with ascent_pending FALSE.
-   * Heap fields are deep-copied in sw_result_compute_ascent and
-   * sw_result_compute_montecarlo: add new ones there. */
+   * the same serial (sw_analysis_compute_ascent), with ascent_pending FALSE.
+   * Heap fields are deep-copied in sw_analysis_compute_ascent and
+   * sw_analysis_compute_montecarlo: add new ones there. */
   gboolean  has_stage_figures;
   SwAscentStage stage_figures[SW_MAX_STAGES];  /* thrust-to-weight at ignition, burn time */
   gboolean  ascent_pending;    /* a result with the simulated ascent follows */
@@ -47,7 +47,7 @@ struct _SwResult {
   /* Trade studies (no heap fields: the later phases copy the struct).  The
    * fast phase fills the sensitivities, the reliability and the baseline
    * comparison; the Monte Carlo follows in a later result of the same
-   * serial (sw_result_compute_montecarlo), before the ascent. */
+   * serial (sw_analysis_compute_montecarlo), before the ascent. */
   double    sensitivity_step;  /* the tornado's relative step */
   gboolean  has_sensitivity;   /* the sizing closes */
   SwSensitivityTable sensitivity;
@@ -79,33 +79,33 @@ typedef struct {
 
 void      sw_solve_options_init (SwSolveOptions *options);
 
-#define SW_TYPE_RESULT (sw_result_get_type ())
-GType     sw_result_get_type (void) G_GNUC_CONST;
+#define SW_TYPE_ANALYSIS (sw_analysis_get_type ())
+GType     sw_analysis_get_type (void) G_GNUC_CONST;
 
 /* Runs on the worker thread: everything the views need for @design.
  * Returns NULL when @cancellable was cancelled part way. */
-SwResult *sw_result_compute (const SwDesign *design, guint64 serial, GCancellable *cancellable);
+SwAnalysis *sw_analysis_compute (const SwDesign *design, guint64 serial, GCancellable *cancellable);
 /* The same with @options (NULL: the defaults). */
-SwResult *sw_result_compute_with (const SwDesign *design, guint64 serial,
+SwAnalysis *sw_analysis_compute_with (const SwDesign *design, guint64 serial,
                                   const SwSolveOptions *options, GCancellable *cancellable);
 /* Runs on the worker thread after the fast phase when @fast->montecarlo_pending:
  * a new result of the same serial that copies @fast and adds the Monte Carlo
  * and its band.  NULL when cancelled. */
-SwResult *sw_result_compute_montecarlo (const SwResult *fast, const SwSolveOptions *options,
+SwAnalysis *sw_analysis_compute_montecarlo (const SwAnalysis *fast, const SwSolveOptions *options,
                                         GCancellable *cancellable);
 /* Runs on the worker thread after the fast phase when @fast->ascent_pending:
  * simulates the ascent and returns a new result of the same serial that
  * copies @fast and adds it (for "loss_model": "simulate" with the closed
  * loop's sizing in place of the fast one).  NULL when cancelled. */
-SwResult *sw_result_compute_ascent (const SwResult *fast, GCancellable *cancellable);
-SwResult *sw_result_ref (SwResult *result);
-void      sw_result_unref (SwResult *result);
+SwAnalysis *sw_analysis_compute_ascent (const SwAnalysis *fast, GCancellable *cancellable);
+SwAnalysis *sw_analysis_ref (SwAnalysis *result);
+void      sw_analysis_unref (SwAnalysis *result);
 
 /* Switches @design to the manual split, with the shares @result gave its
  * stages (equal shares when @result does not fit @design).  Used when the
  * user takes hold of a share in the equal or optimal split. */
-void      sw_result_apply_shares (const SwResult *result, SwDesign *design);
+void      sw_analysis_apply_shares (const SwAnalysis *result, SwDesign *design);
 
-G_DEFINE_AUTOPTR_CLEANUP_FUNC (SwResult, sw_result_unref)
+G_DEFINE_AUTOPTR_CLEANUP_FUNC (SwAnalysis, sw_analysis_unref)
 
 G_END_DECLS
