@@ -9,7 +9,7 @@ packages=(
   libglib2.0-dev libglib2.0-bin libjson-glib-dev libgsl-dev libgtk-4-dev
   xvfb xauth dbus dbus-x11 fonts-dejavu-core
   desktop-file-utils appstream poppler-utils valgrind
-  clang libclang-rt-14-dev
+  clang libclang-rt-14-dev locales xdotool
 )
 
 missing=()
@@ -27,4 +27,13 @@ if [ ${#missing[@]} -gt 0 ]; then
   export DEBIAN_FRONTEND=noninteractive
   apt-get update -q
   apt-get install -y -q --no-install-recommends "${missing[@]}"
+fi
+
+# A locale with a decimal comma, for the formatter's and the window's tests.
+if ! locale -a 2>/dev/null | grep -qi '^de_DE\.utf-\?8$'; then
+  if [ "$(id -u)" -eq 0 ]; then
+    sed -i 's/^# *de_DE.UTF-8 UTF-8/de_DE.UTF-8 UTF-8/' /etc/locale.gen
+    grep -q '^de_DE.UTF-8 UTF-8' /etc/locale.gen || echo 'de_DE.UTF-8 UTF-8' >> /etc/locale.gen
+    locale-gen > /dev/null
+  fi
 fi

@@ -167,7 +167,7 @@ update (SwTotals *self)
 
   s = &r->sizing;
   liftoff = sw_format_mass (s->liftoff_mass_kg);
-  fraction = sw_format_fraction (s->payload_fraction, 2);
+  fraction = sw_format_percent (s->payload_fraction, 2);
   margin = sw_format_speed (s->margin_m_s);
   dv = sw_format_speed (s->delta_v_m_s);
   lim = sw_format_speed (s->delta_v_limit_m_s);

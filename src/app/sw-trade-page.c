@@ -89,7 +89,7 @@ format_signed_mass (double kg)
 static char *
 format_probability (double p)
 {
-  return sw_format_fraction (p, isfinite (p) && p > 0.99 && p < 1.0 ? 2 : 1);
+  return sw_format_percent (p, isfinite (p) && p > 0.99 && p < 1.0 ? 2 : 1);
 }
 
 static void
@@ -493,7 +493,7 @@ show_cards (SwTradePage *self, SwAnalysis *r)
       value = g_strdup_printf ("%s – %s", lo, hi);
       if (mc->infeasible_fraction > 0.0)
         {
-          g_autofree char *bad = sw_format_fraction (mc->infeasible_fraction, 1);
+          g_autofree char *bad = sw_format_percent (mc->infeasible_fraction, 1);
           /* Translators: median mass; share of samples; number of samples; seed */
           detail = g_strdup_printf (_("median %s; %s of the samples do not close (%s samples, "
                                       "seed %u)"), median, bad, n, mc->seed);
@@ -520,7 +520,7 @@ show_cards (SwTradePage *self, SwAnalysis *r)
     {
       const SwMonteCarlo *mc = &r->montecarlo;
       g_autofree char *reserve = sw_format_mass (mc->reserve_95_kg);
-      value = sw_format_fraction (mc->p_negative_margin, 1);
+      value = sw_format_percent (mc->p_negative_margin, 1);
       if (mc->reserve_95_kg > 0.0)
         /* Translators: %s is a mass */
         detail = g_strdup_printf (_("A payload reserve of %s covers 95 %% of the samples"),

@@ -130,7 +130,7 @@ build_text (SwWorkingView *self, gboolean for_copy)
       formula (s, "n = exp(Δv/c) = exp(%s / %s) = %s", dv, c, n);
     }
   {
-    g_autofree char *share = sw_format_fraction (sr->delta_v_share, 1);
+    g_autofree char *share = sw_format_percent (sr->delta_v_share, 1);
     /* Translators: %s is a percentage */
     formula (s, _("(%s of the required delta-v)"), share);
   }
@@ -153,7 +153,7 @@ build_text (SwWorkingView *self, gboolean for_copy)
       g_autofree char *mst = KG (sr->stage_mass_kg);
       g_autofree char *lift = KG (sz->liftoff_mass_kg);
       g_autofree char *pl = KG (sz->payload_kg);
-      g_autofree char *frac = sw_format_fraction (sz->payload_fraction, 3);
+      g_autofree char *frac = sw_format_percent (sz->payload_fraction, 3);
       g_autofree char *lim = MS (sz->delta_v_limit_m_s);
       g_autofree char *margin = MS (sz->margin_m_s);
 

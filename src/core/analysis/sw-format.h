@@ -1,0 +1,49 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* sw-format.h: the one way numbers are written for people.  The window, the
+ * briefing sheet and the command line's text output all use it, so a mass
+ * reads the same everywhere.  Machine output (JSON, CSV) never goes through
+ * here: it writes plain numbers in SI units with g_ascii_dtostr.
+ *
+ * Rules:
+ * - anything not finite is SW_NO_VALUE (an em dash), never "nan" or "inf";
+ * - a value that rounds to zero is written without a sign ("0 kg", never
+ *   "-0 kg" or "+0 kg");
+ * - negative numbers use the minus sign U+2212; deltas carry "+" or "−";
+ * - digit grouping and the decimal separator follow LC_NUMERIC (the "%'"
+ *   flag of printf), so a German desktop reads "1.234,5 t";
+ * - mass: below 10 t in kilograms without decimals ("8,000 kg"), from 10 t
+ *   to below 1,000 t in tonnes with one decimal ("312.4 t"), from 1,000 t up
+ *   in whole tonnes ("6,396 t"). */
+#pragma once
+
+#include <glib.h>
+
+G_BEGIN_DECLS
+
+#define SW_NO_VALUE "\u2014"
+
+/* A plain number with @decimals decimals and digit grouping: "1,234.5". */
+char       *sw_format_number (double value, int decimals);
+/* The same with "+" or "−" in front (none for a value that rounds to 0). */
+char       *sw_format_signed (double value, int decimals);
+
+char       *sw_format_mass (double kg);                 /* "8,000 kg", "312.4 t" */
+char       *sw_format_mass_delta (double kg);           /* "+3.2 t", "−850 kg" */
+char       *sw_format_speed (double m_s);               /* "9,400 m/s" */
+char       *sw_format_speed_delta (double m_s);         /* "+1,811 m/s" */
+char       *sw_format_percent (double fraction, int decimals);  /* 0.0123, 2 -> "1.23 %" */
+char       *sw_format_probability (double p);           /* "95.1 %"; "99.91 %" near 1 */
+char       *sw_format_duration (double s);              /* "152.3 s" */
+char       *sw_format_distance_km (double m);           /* metres in, "185.0 km" */
+char       *sw_format_pressure_kpa (double pa);         /* pascals in, "32.4 kPa" */
+char       *sw_format_accel_g (double g);               /* "3.85 g" */
+char       *sw_format_ratio (double ratio, int decimals);  /* "1.350" */
+char       *sw_format_isp (double s);                   /* "311 s" */
+/* printf-style with one double; SW_NO_VALUE when @value is not finite. */
+char       *sw_format_value (const char *format, double value) G_GNUC_FORMAT (1);
+
+/* The cautions every export, report and the About dialog carry (translated).
+ * One sentence pair, written once. */
+const char *sw_format_cautions (void);
+
+G_END_DECLS
