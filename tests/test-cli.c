@@ -164,7 +164,7 @@ check_size_json (const char *path)
   Run r;
 
   g_assert_nonnull (d);
-  g_assert_true (sw_design_size (d, &s, NULL));
+  g_assert_true (sw_size_design (d, &s, NULL));
   run_cli (&r, "size", "--json", path, NULL);
   g_assert_cmpint (r.code, ==, 0);
   root = parse (r.out);

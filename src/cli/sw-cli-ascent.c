@@ -429,7 +429,7 @@ no_simulation (const SwDesign *d, const char *file, const char *why)
   g_autoptr (GError) error = NULL;
   SwSizing s;
 
-  if (!sw_design_size (d, &s, &error) || !sw_ascent_stage_figures (d, &s, st, &error))
+  if (!sw_size_design (d, &s, &error) || !sw_ascent_stage_figures (d, &s, st, &error))
     {
       g_printerr ("error: %s: %s\n", file, error->message);
       return SW_EXIT_USAGE;
@@ -492,7 +492,7 @@ sw_cli_ascent (int argc, char **argv)
                             "time and thrust-to-weight from the sized masses.");
     }
 
-  r = sw_design_ascent (d, NULL, &error);
+  r = sw_ascent_fly_design (d, NULL, &error);
   if (r == NULL)
     return sw_cli_input_error (argv[1], error);
   if (csv != NULL && !write_csv (csv, d, r))

@@ -138,7 +138,7 @@ sw_cli_size (int argc, char **argv)
     return code;
   if ((d = sw_cli_load (argv[1])) == NULL)
     return SW_EXIT_USAGE;
-  if (!sw_design_size (d, &s, &error))
+  if (!sw_size_design (d, &s, &error))
     return sw_cli_input_error (argv[1], error);
   if (opt_json)
     {

@@ -360,7 +360,7 @@ sw_cli_reliability (int argc, char **argv)
     return code;
   if ((d = sw_cli_load (argv[1])) == NULL)
     return SW_EXIT_USAGE;
-  sw_design_reliability (d, &r);
+  sw_reliability_from_design (d, &r);
   sw_reliability_curve_compute (d, SW_MAX_STAGES, &curve);
   if (!r.given)
     g_printerr ("warning: %s: no stage has reliability keys; every stage counts as perfect\n",

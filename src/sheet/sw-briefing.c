@@ -23,7 +23,7 @@ sw_briefing_new (const SwDesign *design, SwBriefingFlags flags, guint threads, G
 
   b->design = sw_design_copy (design);
   g_strlcpy (b->date, date, sizeof b->date);
-  if (!sw_design_size (design, &b->sizing, error))
+  if (!sw_size_design (design, &b->sizing, error))
     return NULL;
   b->delta_v_m_s = b->sizing.delta_v_m_s;
   sw_stage_curve_compute (design, b->delta_v_m_s, SW_MAX_STAGES, &b->stage_curve);
@@ -33,7 +33,7 @@ sw_briefing_new (const SwDesign *design, SwBriefingFlags flags, guint threads, G
     {
       double dv;
 
-      if (!sw_design_size (design->baseline, &b->baseline_sizing, error)
+      if (!sw_size_design (design->baseline, &b->baseline_sizing, error)
           || !sw_design_required_delta_v (design->baseline, &dv, error))
         return NULL;
       sw_stage_curve_compute (design->baseline, dv, SW_MAX_STAGES, &b->baseline_curve);
@@ -48,7 +48,7 @@ sw_briefing_new (const SwDesign *design, SwBriefingFlags flags, guint threads, G
       b->has_sensitivity = TRUE;
     }
 
-  sw_design_reliability (design, &b->reliability);
+  sw_reliability_from_design (design, &b->reliability);
   sw_reliability_curve_compute (design, SW_MAX_STAGES, &b->reliability_curve);
   b->has_reliability = b->reliability.given;
 
@@ -120,7 +120,7 @@ sw_briefing_fill_ascent (SwBriefing *b)
                     error != NULL ? error->message : _("the design is infeasible."));
       return;
     }
-  r = sw_design_ascent (b->design, NULL, &error);
+  r = sw_ascent_fly_design (b->design, NULL, &error);
   if (r == NULL)
     {
       g_snprintf (b->ascent_note, sizeof b->ascent_note, _("Ascent not simulated: %s"),

@@ -68,7 +68,7 @@ typedef struct {
 SwBriefing *sw_briefing_new (const SwDesign *design, SwBriefingFlags flags, guint threads,
                              GError **error);
 void        sw_briefing_free (SwBriefing *briefing);
-/* The ascent summary: flies the design (sw_design_ascent) when it carries
+/* The ascent summary: flies the design (sw_ascent_fly_design) when it carries
  * the ascent inputs and fills the label/value lines; otherwise leaves
  * n_ascent at 0 (and, when the design asked for simulated losses, says why
  * in ascent_note).  The GUI may fill the lines from its own ascent result. */
