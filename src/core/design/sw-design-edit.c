@@ -152,17 +152,12 @@ sw_design_set_split (SwDesign *design, SwSplitMode mode, const double *shares, g
 
 /* Copies whole characters of @text that fit in @size bytes: a name cut
  * inside a character would not be UTF-8, and the loader rejects such a
- * file. */
+ * file.  @text must be UTF-8 (checked by the callers). */
 static void
 copy_name (char *dest, gsize size, const char *text)
 {
   const char *end = text;
 
-  if (!g_utf8_validate (text, -1, NULL))
-    {
-      dest[0] = '\0';
-      return;
-    }
   while (*end != '\0')
     {
       const char *next = g_utf8_next_char (end);
@@ -209,6 +204,7 @@ sw_design_duplicate_stage (SwDesign *design, guint index)
     /* Translators: name of a duplicated stage; %s is the original's name */
     g_autofree char *copy_of = g_strdup_printf (_("%s (copy)"), design->stages[index].name);
     copy_name (copy.name, sizeof copy.name, copy_of);
+    g_strchomp (copy.name);  /* " (copy)" cut after its space */
   }
   memmove (&design->stages[index + 2], &design->stages[index + 1],
            (design->n_stages - index - 1) * sizeof design->stages[0]);
@@ -262,18 +258,21 @@ sw_design_move_stage (SwDesign *design, guint from, guint to)
 
 /* ---- fields ------------------------------------------------------------ */
 
-void
+gboolean
 sw_design_set_name (SwDesign *design, const char *name)
 {
-  g_return_if_fail (design != NULL && name != NULL);
+  g_return_val_if_fail (design != NULL && name != NULL, FALSE);
+  if (!g_utf8_validate (name, -1, NULL))
+    return FALSE;
   copy_name (design->name, sizeof design->name, name);
+  return TRUE;
 }
 
 gboolean
 sw_design_set_stage_name (SwDesign *design, guint index, const char *name)
 {
   g_return_val_if_fail (design != NULL && name != NULL, FALSE);
-  if (index >= design->n_stages)
+  if (index >= design->n_stages || !g_utf8_validate (name, -1, NULL))
     return FALSE;
   copy_name (design->stages[index].name, sizeof design->stages[index].name, name);
   return TRUE;

@@ -72,8 +72,9 @@ gboolean sw_design_move_stage (SwDesign *design, guint from, guint to);
 
 /* ---- fields ------------------------------------------------------------ */
 
-/* Names are cut to whole UTF-8 characters that fit the buffer. */
-void     sw_design_set_name (SwDesign *design, const char *name);
+/* Names are cut to whole UTF-8 characters that fit the buffer (127 bytes);
+ * text that is not UTF-8 is refused (FALSE, name unchanged). */
+gboolean sw_design_set_name (SwDesign *design, const char *name);
 gboolean sw_design_set_stage_name (SwDesign *design, guint index, const char *name);
 
 void     sw_design_set_payload (SwDesign *design, double payload_kg);
