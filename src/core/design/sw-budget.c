@@ -5,8 +5,6 @@
 
 #include "sw-budget.h"
 
-#include "sw-limits.h"
-
 #include <glib/gi18n-lib.h>
 #include <math.h>
 

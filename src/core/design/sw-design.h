@@ -15,8 +15,6 @@
 
 G_BEGIN_DECLS
 
-#define SW_NAME_MAX 128
-
 struct _SwStage {
   char     name[SW_NAME_MAX];
   double   isp_vac_s;

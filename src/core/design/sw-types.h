@@ -17,6 +17,8 @@ G_BEGIN_DECLS
 #define SW_SEA_LEVEL_PRESSURE_PA 101325.0
 
 #define SW_MAX_STAGES 8
+/* Bytes of a design or stage name, the terminating NUL included. */
+#define SW_NAME_MAX 128
 #define SW_SWEEP_CURVES 5
 #define SW_SWEEP_POINTS 200
 
