@@ -932,11 +932,26 @@ export_action (GtkWidget *widget, const char *name, GVariant *param)
   gtk_window_present (GTK_WINDOW (self->export_dialog));
 }
 
+/* The user's limits decide the verdict: a change is a new solve. */
+static void
+limits_changed_cb (SwWindow *self)
+{
+  SwAnalysisOptions options;
+
+  sw_solver_get_options (self->solver, &options);
+  options.min_thrust_to_weight = g_settings_get_double (self->settings, "min-thrust-to-weight");
+  options.max_q_pa = 1000.0 * g_settings_get_double (self->settings, "max-dynamic-pressure-kpa");
+  options.max_axial_g = g_settings_get_double (self->settings, "max-acceleration-g");
+  sw_solver_set_options (self->solver, &options);
+  if (sw_document_get_design (self->document) != NULL)
+    sw_solver_post (self->solver, sw_document_get_design (self->document));
+}
+
 /* The tornado's step is a setting: a new step is a new solve. */
 static void
 trade_step_cb (SwWindow *self)
 {
-  SwSolveOptions options;
+  SwAnalysisOptions options;
 
   sw_solver_get_options (self->solver, &options);
   if (options.sensitivity_step == sw_trade_page_get_step (self->trade_page))
@@ -1314,11 +1329,21 @@ sw_window_init (SwWindow *self)
   sw_inspector_set_document (self->inspector, self->document);
   sw_trade_page_set_document (self->trade_page, self->document);
   {
-    SwSolveOptions options;
+    SwAnalysisOptions options;
     sw_solver_get_options (self->solver, &options);
     options.sensitivity_step = sw_trade_page_get_step (self->trade_page);
+    options.min_thrust_to_weight = g_settings_get_double (self->settings, "min-thrust-to-weight");
+    options.max_q_pa = 1000.0 * g_settings_get_double (self->settings,
+                                                       "max-dynamic-pressure-kpa");
+    options.max_axial_g = g_settings_get_double (self->settings, "max-acceleration-g");
     sw_solver_set_options (self->solver, &options);
   }
+  g_signal_connect_swapped (self->settings, "changed::min-thrust-to-weight",
+                            G_CALLBACK (limits_changed_cb), self);
+  g_signal_connect_swapped (self->settings, "changed::max-dynamic-pressure-kpa",
+                            G_CALLBACK (limits_changed_cb), self);
+  g_signal_connect_swapped (self->settings, "changed::max-acceleration-g",
+                            G_CALLBACK (limits_changed_cb), self);
   g_signal_connect_swapped (self->trade_page, "notify::step", G_CALLBACK (trade_step_cb), self);
   /* One way: the stack view may refuse a stage its older result does not
    * have yet; its clicks come back through "stage-activated". */
