@@ -6,6 +6,7 @@
 #include "sw-window.h"
 
 #include "sw-application.h"
+#include "sw-design-edit.h"
 #include "sw-ascent-page.h"
 #include "sw-export-dialog.h"
 #include "sw-format.h"
@@ -237,9 +238,13 @@ share_dragged_cb (SwWindow *self, int lower, int upper, double amount, gboolean 
     return;
   if (self->drag_base == NULL)
     {
+      double shares[SW_MAX_STAGES];
+      guint n_shares = self->result != NULL && self->result->ok
+                       ? sw_sizing_get_shares (&self->result->sizing, shares) : 0;
+
       self->drag_base = sw_document_dup_design (self->document);
       if (self->drag_base->split != SW_SPLIT_MANUAL)
-        sw_analysis_apply_shares (self->result, self->drag_base);
+        sw_design_take_manual_shares (self->drag_base, shares, n_shares);
     }
   d = sw_design_copy (self->drag_base);
   sw_design_move_share (d, (guint) upper, (guint) lower, amount);
@@ -874,14 +879,14 @@ split_action (GtkWidget *widget, const char *name, GVariant *param)
 {
   SwWindow *self = SW_WINDOW (widget);
   g_autoptr (SwDesign) d = sw_document_dup_design (self->document);
+  double shares[SW_MAX_STAGES];
+  guint n_shares = self->result != NULL && self->result->ok
+                   ? sw_sizing_get_shares (&self->result->sizing, shares) : 0;
   SwSplitMode mode;
 
-  if (!sw_split_mode_from_string (g_variant_get_string (param, NULL), &mode) || mode == d->split)
+  if (!sw_split_mode_from_string (g_variant_get_string (param, NULL), &mode)
+      || !sw_design_set_split (d, mode, shares, n_shares))
     return;
-  if (mode == SW_SPLIT_MANUAL)
-    sw_analysis_apply_shares (self->result, d);
-  else
-    d->split = mode;
   sw_document_commit (self->document, g_steal_pointer (&d), NULL);
 }
 
@@ -897,11 +902,8 @@ pin_baseline_action (GtkWidget *widget, const char *name, GVariant *param)
 {
   SwWindow *self = SW_WINDOW (widget);
   g_autoptr (SwDesign) d = sw_document_dup_design (self->document);
-  SwDesign *pinned = sw_design_copy (d);
 
-  g_clear_pointer (&pinned->baseline, sw_design_free);
-  sw_design_free (d->baseline);
-  d->baseline = pinned;
+  sw_design_pin_baseline (d);
   sw_document_commit (self->document, g_steal_pointer (&d), NULL);
 }
 
@@ -911,9 +913,8 @@ clear_baseline_action (GtkWidget *widget, const char *name, GVariant *param)
   SwWindow *self = SW_WINDOW (widget);
   g_autoptr (SwDesign) d = sw_document_dup_design (self->document);
 
-  if (d->baseline == NULL)
+  if (!sw_design_clear_baseline (d))
     return;
-  g_clear_pointer (&d->baseline, sw_design_free);
   sw_document_commit (self->document, g_steal_pointer (&d), NULL);
 }
 

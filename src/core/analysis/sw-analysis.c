@@ -362,7 +362,7 @@ prepare_trade (SwAnalysis *r)
     r->has_sensitivity = sw_sensitivity_compute (design, r->sensitivity_step, &r->sensitivity,
                                                  NULL)
                          && r->sensitivity.feasible;
-  sw_design_reliability (design, &r->reliability);
+  sw_reliability_from_design (design, &r->reliability);
   sw_reliability_curve_compute (design, SW_MAX_STAGES, &r->reliability_curve);
 
   r->has_baseline = design->baseline != NULL;
@@ -371,7 +371,7 @@ prepare_trade (SwAnalysis *r)
       double dv;
 
       r->baseline_ok = sw_design_required_delta_v (design->baseline, &dv, &error)
-                       && sw_design_size (design->baseline, &r->baseline_sizing, &error);
+                       && sw_size_design (design->baseline, &r->baseline_sizing, &error);
       sw_reliability_curve_compute (design->baseline, SW_MAX_STAGES,
                                     &r->baseline_reliability_curve);
       if (r->baseline_ok)
@@ -410,7 +410,7 @@ sw_analysis_new (const SwDesign *design, guint64 serial, const SwAnalysisOptions
 
   if (!sw_design_validate (design, NULL, &error)
       || !sw_design_required_delta_v (design, &r->delta_v_m_s, &error)
-      || !sw_design_size (design, &r->sizing, &error))
+      || !sw_size_design (design, &r->sizing, &error))
     {
       r->ok = FALSE;
       g_strlcpy (r->error_message, error->message, sizeof r->error_message);
@@ -496,7 +496,7 @@ sw_analysis_add_ascent (const SwAnalysis *prev, GCancellable *cancellable)
 
   g_return_val_if_fail (prev != NULL && prev->ok && prev->ascent_pending, NULL);
 
-  ascent = sw_design_ascent (prev->design, cancellable, &error);
+  ascent = sw_ascent_fly_design (prev->design, cancellable, &error);
   if (g_cancellable_is_cancelled (cancellable))
     {
       g_clear_pointer (&ascent, sw_ascent_result_free);
