@@ -406,6 +406,7 @@ show_reliability (SwTradePage *self, SwAnalysis *r)
   sw_plot_set_title (self->reliability_plot, _("Mission success by stage count"));
   sw_plot_set_x_axis (self->reliability_plot, _("Number of stages"), FALSE);
   sw_plot_set_x_format (self->reliability_plot, "%.0f", 1.0);
+  sw_plot_set_x_integer (self->reliability_plot, TRUE);
   sw_plot_set_x_range (self->reliability_plot, 0.5, SW_MAX_STAGES + 0.5);
   sw_plot_set_y_axis (self->reliability_plot, _("Success probability"), FALSE);
   /* Translators: tick labels of a probability axis in percent */
