@@ -73,23 +73,13 @@ static GParamSpec *properties[N_PROPS];
 
 /* ---- formatting -------------------------------------------------------- */
 
-/* "+3.2 t", "−850 kg": a change, signed, the em dash when unknown. */
+/* The sensitivity step in percent: "5" or "2.5". */
 static char *
-format_signed_mass (double kg)
+step_percent (SwAnalysis *r)
 {
-  g_autofree char *mass = NULL;
+  double pct = r != NULL ? 100.0 * r->sensitivity_step : NAN;
 
-  if (!isfinite (kg))
-    return g_strdup (SW_NO_VALUE);
-  mass = sw_format_mass (fabs (kg));
-  return g_strconcat (kg > 0.0 ? "+" : kg < 0.0 ? "−" : "", mass, NULL);
-}
-
-/* A probability as a percentage, with a second decimal near certainty. */
-static char *
-format_probability (double p)
-{
-  return sw_format_percent (p, isfinite (p) && p > 0.99 && p < 1.0 ? 2 : 1);
+  return sw_format_number (pct, fabs (pct - round (pct)) < 1e-9 ? 0 : 1);
 }
 
 static void
@@ -257,7 +247,7 @@ show_tornado (SwTradePage *self, SwAnalysis *r)
   self->n_rows = 0;
   g_clear_pointer (&self->row_labels, g_strfreev);
 
-  step_text = sw_format_value ("%.3g", r != NULL ? 100.0 * r->sensitivity_step : NAN);
+  step_text = step_percent (r);
   /* Translators: %s is the step in percent, e.g. "5" */
   title = g_strdup_printf (_("Liftoff mass change, each input ±%s %%"), step_text);
   sw_plot_set_title (self->tornado_plot, title);
@@ -351,7 +341,7 @@ show_histogram (SwTradePage *self, SwAnalysis *r)
       return;
     }
 
-  samples = sw_format_value ("%'.0f", s->n);
+  samples = sw_format_number (s->n, 0);
   /* Translators: %s is the number of samples, e.g. "10,000" */
   title = g_strdup_printf (_("Liftoff mass over %s samples"), samples);
   sw_plot_set_title (self->histogram_plot, title);
@@ -460,15 +450,15 @@ show_cards (SwTradePage *self, SwAnalysis *r)
   g_autofree char *value = NULL, *detail = NULL;
 
   /* The largest effect. */
-  step_text = sw_format_value ("%.3g", r != NULL ? 100.0 * r->sensitivity_step : NAN);
+  step_text = step_percent (r);
   /* Translators: %s is the tornado's step in percent */
   caption = g_strdup_printf (_("Largest effect of ±%s %% on the liftoff mass"), step_text);
   set_label (self->driver_caption, caption);
   if (r != NULL && r->ok && r->has_sensitivity && r->sensitivity.n_items > 0)
     {
       const SwSensitivity *top = &r->sensitivity.items[r->sensitivity.ranked[0]];
-      g_autofree char *lo = format_signed_mass (top->minus_feasible ? top->minus_kg : NAN);
-      g_autofree char *hi = format_signed_mass (top->plus_feasible ? top->plus_kg : NAN);
+      g_autofree char *lo = sw_format_mass_delta (top->minus_feasible ? top->minus_kg : NAN);
+      g_autofree char *hi = sw_format_mass_delta (top->plus_feasible ? top->plus_kg : NAN);
       value = g_strdup_printf ("%s / %s", lo, hi);
       detail = sw_sensitivity_dup_label (r->design, top);
     }
@@ -490,7 +480,7 @@ show_cards (SwTradePage *self, SwAnalysis *r)
       g_autofree char *lo = sw_format_mass (mc->liftoff.p05);
       g_autofree char *hi = sw_format_mass (mc->liftoff.p95);
       g_autofree char *median = sw_format_mass (mc->liftoff.p50);
-      g_autofree char *n = sw_format_value ("%'.0f", mc->samples);
+      g_autofree char *n = sw_format_number (mc->samples, 0);
       value = g_strdup_printf ("%s – %s", lo, hi);
       if (mc->infeasible_fraction > 0.0)
         {
@@ -548,11 +538,11 @@ show_cards (SwTradePage *self, SwAnalysis *r)
       guint n = r->design->n_stages;
       GString *text = g_string_new (NULL);
 
-      value = format_probability (r->reliability.mission);
+      value = sw_format_probability (r->reliability.mission);
       for (guint k = n - 1; k <= n + 1; k += 2)
         if (k >= 1 && k <= c->n_points && c->given)
           {
-            g_autofree char *p = format_probability (c->mission[k - 1]);
+            g_autofree char *p = sw_format_probability (c->mission[k - 1]);
             if (text->len > 0)
               g_string_append (text, " · ");
             /* Translators: a stage count and a probability, e.g. "4 stages 95.2 %" */
