@@ -5,7 +5,6 @@
 
 #include "sw-ascent-page.h"
 
-#include "sw-application.h"
 #include "sw-format.h"
 
 #include <glib/gi18n.h>
@@ -240,12 +239,9 @@ update_summary (SwAscentPage *self)
   gboolean changed;
 
   warnings = sw_ascent_warnings_text (self->result, shown_ascent (self),
-                                      g_settings_get_double (self->settings,
-                                                             "min-thrust-to-weight"),
-                                      1000.0 * g_settings_get_double (self->settings,
-                                                                      "max-dynamic-pressure-kpa"),
-                                      g_settings_get_double (self->settings,
-                                                             "max-acceleration-g"));
+                                      gtk_adjustment_get_value (self->min_tw_adjustment),
+                                      1000.0 * gtk_adjustment_get_value (self->max_q_adjustment),
+                                      gtk_adjustment_get_value (self->max_g_adjustment));
   changed = g_strcmp0 (note, self->note) != 0 || g_strcmp0 (warnings, self->warnings) != 0;
   g_free (self->note);
   self->note = g_steal_pointer (&note);
@@ -725,8 +721,8 @@ update_plots (SwAscentPage *self)
   sw_plot_set_x_range (self->plots[SW_ASCENT_PLOT_TRAJECTORY], 0.0, NAN);
 
   /* The user's limits, where they are close enough to be seen. */
-  q_limit = 1000.0 * g_settings_get_double (self->settings, "max-dynamic-pressure-kpa");
-  g_limit = g_settings_get_double (self->settings, "max-acceleration-g");
+  q_limit = 1000.0 * gtk_adjustment_get_value (self->max_q_adjustment);
+  g_limit = gtk_adjustment_get_value (self->max_g_adjustment);
   q_kpa = fmt_kpa (q_limit);
   /* Translators: %s is the user's limit, such as "45.0 kPa" */
   q_limit_name = g_strdup_printf (_("warning limit %s"), q_kpa);
@@ -827,16 +823,44 @@ sw_ascent_page_set_result (SwAscentPage *self, SwAnalysis *result)
   update (self, flown_changed);
 }
 
+/* The limits live in the adjustments, bound to the settings when the page
+ * has them: the limit lines and warnings move with them. */
 static void
-settings_changed_cb (SwAscentPage *self, const char *key)
+limits_changed_cb (SwAscentPage *self)
 {
-  if (g_strcmp0 (key, "min-thrust-to-weight") != 0
-      && g_strcmp0 (key, "max-dynamic-pressure-kpa") != 0
-      && g_strcmp0 (key, "max-acceleration-g") != 0)
-    return;
-  /* The limit lines move with the limits. */
   update_plots (self);
   update_summary (self);
+}
+
+static void
+unbind_settings (SwAscentPage *self)
+{
+  if (self->settings == NULL)
+    return;
+  g_settings_unbind (self->min_tw_adjustment, "value");
+  g_settings_unbind (self->max_q_adjustment, "value");
+  g_settings_unbind (self->max_g_adjustment, "value");
+  g_clear_object (&self->settings);
+}
+
+void
+sw_ascent_page_set_settings (SwAscentPage *self, GSettings *settings)
+{
+  g_return_if_fail (SW_IS_ASCENT_PAGE (self));
+  g_return_if_fail (settings == NULL || G_IS_SETTINGS (settings));
+
+  if (settings == self->settings)
+    return;
+  unbind_settings (self);
+  if (settings == NULL)
+    return;
+  self->settings = g_object_ref (settings);
+  g_settings_bind (settings, "min-thrust-to-weight", self->min_tw_adjustment, "value",
+                   G_SETTINGS_BIND_DEFAULT);
+  g_settings_bind (settings, "max-dynamic-pressure-kpa", self->max_q_adjustment, "value",
+                   G_SETTINGS_BIND_DEFAULT);
+  g_settings_bind (settings, "max-acceleration-g", self->max_g_adjustment, "value",
+                   G_SETTINGS_BIND_DEFAULT);
 }
 
 /* ---- accessors --------------------------------------------------------- */
@@ -923,9 +947,7 @@ sw_ascent_page_dispose (GObject *object)
 {
   SwAscentPage *self = SW_ASCENT_PAGE (object);
 
-  if (self->settings != NULL)
-    g_signal_handlers_disconnect_by_func (self->settings, settings_changed_cb, self);
-  g_clear_object (&self->settings);
+  unbind_settings (self);
   g_clear_pointer (&self->result, sw_analysis_unref);
   g_clear_pointer (&self->flown, sw_analysis_unref);
   g_clear_pointer (&self->note, g_free);
@@ -996,14 +1018,16 @@ sw_ascent_page_init (SwAscentPage *self)
 {
   gtk_widget_init_template (GTK_WIDGET (self));
 
-  self->settings = sw_application_settings_new ();
-  g_settings_bind (self->settings, "min-thrust-to-weight", self->min_tw_adjustment, "value",
-                   G_SETTINGS_BIND_DEFAULT);
-  g_settings_bind (self->settings, "max-dynamic-pressure-kpa", self->max_q_adjustment, "value",
-                   G_SETTINGS_BIND_DEFAULT);
-  g_settings_bind (self->settings, "max-acceleration-g", self->max_g_adjustment, "value",
-                   G_SETTINGS_BIND_DEFAULT);
-  g_signal_connect_swapped (self->settings, "changed", G_CALLBACK (settings_changed_cb), self);
+  /* The schema's defaults until the owner hands the settings in. */
+  gtk_adjustment_set_value (self->min_tw_adjustment, 1.2);
+  gtk_adjustment_set_value (self->max_q_adjustment, 45.0);
+  gtk_adjustment_set_value (self->max_g_adjustment, 6.0);
+  g_signal_connect_swapped (self->min_tw_adjustment, "value-changed",
+                            G_CALLBACK (limits_changed_cb), self);
+  g_signal_connect_swapped (self->max_q_adjustment, "value-changed",
+                            G_CALLBACK (limits_changed_cb), self);
+  g_signal_connect_swapped (self->max_g_adjustment, "value-changed",
+                            G_CALLBACK (limits_changed_cb), self);
   setup_plots (self);
   update (self, TRUE);
 }

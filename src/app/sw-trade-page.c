@@ -5,7 +5,6 @@
 
 #include "sw-trade-page.h"
 
-#include "sw-application.h"
 #include "sw-format.h"
 #include "sw-limits.h"
 #include "sw-trade-plots.h"
@@ -80,6 +79,23 @@ step_percent (SwAnalysis *r)
   double pct = r != NULL ? 100.0 * r->sensitivity_step : NAN;
 
   return sw_format_number (pct, fabs (pct - round (pct)) < 1e-9 ? 0 : 1);
+}
+
+void
+sw_trade_page_set_settings (SwTradePage *self, GSettings *settings)
+{
+  g_return_if_fail (SW_IS_TRADE_PAGE (self));
+  g_return_if_fail (settings == NULL || G_IS_SETTINGS (settings));
+
+  if (settings == self->settings)
+    return;
+  if (self->settings != NULL)
+    g_settings_unbind (gtk_spin_button_get_adjustment (self->step_spin), "value");
+  g_set_object (&self->settings, settings);
+  if (settings != NULL)
+    g_settings_bind (settings, "sensitivity-step-percent",
+                     gtk_spin_button_get_adjustment (self->step_spin), "value",
+                     G_SETTINGS_BIND_DEFAULT);
 }
 
 static void
@@ -761,7 +777,7 @@ sw_trade_page_dispose (GObject *object)
     g_signal_handlers_disconnect_by_func (self->document, document_changed_cb, self);
   g_clear_object (&self->document);
   g_clear_pointer (&self->result, sw_analysis_unref);
-  g_clear_object (&self->settings);
+  sw_trade_page_set_settings (self, NULL);
   g_clear_pointer (&self->row_labels, g_strfreev);
   gtk_widget_dispose_template (GTK_WIDGET (self), SW_TYPE_TRADE_PAGE);
   G_OBJECT_CLASS (sw_trade_page_parent_class)->dispose (object);
@@ -841,10 +857,6 @@ sw_trade_page_init (SwTradePage *self)
   setup_spin (self->eps_width, self->eps_unit, SW_LIMIT_SPREAD_SIGMA_PERCENT, 1, 0.5, 5.0);
   setup_spin (self->losses_width, self->losses_unit, SW_LIMIT_LOSSES_SIGMA, 0, 10.0, 100.0);
 
-  self->settings = sw_application_settings_new ();
-  g_settings_bind (self->settings, "sensitivity-step-percent",
-                   gtk_spin_button_get_adjustment (self->step_spin), "value",
-                   G_SETTINGS_BIND_DEFAULT);
   self->updating--;
 
   show_result (self);
