@@ -563,31 +563,3 @@ sw_analysis_run (const SwDesign *design, const SwAnalysisOptions *options,
     }
   return g_steal_pointer (&r);
 }
-
-void
-sw_analysis_apply_shares (const SwAnalysis *result, SwDesign *design)
-{
-  guint n;
-  double sum = 0.0;
-  gboolean usable;
-
-  g_return_if_fail (design != NULL && design->n_stages > 0);
-
-  n = design->n_stages;
-  usable = result != NULL && result->ok && result->sizing.n_stages == n
-           && result->sizing.delta_v_m_s > 0.0;
-  for (guint i = 0; usable && i < n; i++)
-    {
-      double share = result->sizing.stages[i].delta_v_share;
-      usable = isfinite (share) && share >= 0.0;
-      sum += usable ? share : 0.0;
-    }
-  usable = usable && sum > 0.5;
-  for (guint i = 0; i < n; i++)
-    {
-      design->stages[i].delta_v_share = usable ? result->sizing.stages[i].delta_v_share / sum
-                                               : 1.0 / n;
-      design->stages[i].has_share = TRUE;
-    }
-  design->split = SW_SPLIT_MANUAL;
-}

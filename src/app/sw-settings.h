@@ -1,0 +1,14 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* sw-settings.h: the application's settings object.  The window makes one
+ * and hands it to its views (sw_*_set_settings); no view makes its own. */
+#pragma once
+
+#include <gio/gio.h>
+
+G_BEGIN_DECLS
+
+/* Falls back to the schema compiled in the build folder when the
+ * application runs uninstalled. */
+GSettings *sw_settings_new (void);
+
+G_END_DECLS
