@@ -6,11 +6,13 @@
 #include "sw-application.h"
 
 #include "sw-format.h"
+#include "sw-install-paths.h"
 #include "sw-window-private.h"
 
 #include <glib/gi18n.h>
 #include <math.h>
 #include <stdio.h>
+#include <stdlib.h>
 #include <string.h>
 
 /* A screenshot that has not been drawn by then has failed. */
@@ -36,27 +38,53 @@ struct _SwApplication {
 
 G_DEFINE_FINAL_TYPE (SwApplication, sw_application, GTK_TYPE_APPLICATION)
 
-GSettings *
-sw_application_settings_new (void)
+/* The schema from the default places (GSETTINGS_SCHEMA_DIR, XDG_DATA_DIRS),
+ * else from the install prefix (sw-install-paths.h). */
+static GSettingsSchema *
+lookup_schema (GError **error)
 {
   GSettingsSchemaSource *source = g_settings_schema_source_get_default ();
-  g_autoptr (GSettingsSchema) schema = NULL;
+  g_autoptr (GSettingsSchemaSource) installed = NULL;
+  g_autofree char *dir = sw_install_schemas_dir ();
+  GSettingsSchema *schema = NULL;
 
   if (source != NULL)
     schema = g_settings_schema_source_lookup (source, APP_ID, TRUE);
+  if (schema != NULL)
+    return schema;
+  if (g_file_test (dir, G_FILE_TEST_IS_DIR))
+    installed = g_settings_schema_source_new_from_directory (dir, source, FALSE, NULL);
+  if (installed != NULL)
+    schema = g_settings_schema_source_lookup (installed, APP_ID, FALSE);
+  if (schema == NULL)
+    g_set_error (error, G_IO_ERROR, G_IO_ERROR_NOT_FOUND,
+                 _("The settings schema %s is not installed: it was looked for in the "
+                   "system folders and in %s. Reinstall the application, or point "
+                   "GSETTINGS_SCHEMA_DIR at the folder with the compiled schema "
+                   "(BUILD/data in a build folder)."),
+                 APP_ID, dir);
+  return schema;
+}
+
+gboolean
+sw_application_check_settings (GError **error)
+{
+  g_autoptr (GSettingsSchema) schema = lookup_schema (error);
+
+  return schema != NULL;
+}
+
+GSettings *
+sw_application_settings_new (void)
+{
+  g_autoptr (GError) error = NULL;
+  g_autoptr (GSettingsSchema) schema = lookup_schema (&error);
+
   if (schema == NULL)
     {
-      g_autoptr (GSettingsSchemaSource) build = NULL;
-      g_autoptr (GError) error = NULL;
-
-      build = g_settings_schema_source_new_from_directory (SW_BUILD_SCHEMAS_DIR, source, FALSE,
-                                                           &error);
-      if (build != NULL)
-        schema = g_settings_schema_source_lookup (build, APP_ID, FALSE);
-      if (schema == NULL)
-        g_error ("The settings schema %s is neither installed nor compiled in %s%s%s", APP_ID,
-                 SW_BUILD_SCHEMAS_DIR, error != NULL ? ": " : "",
-                 error != NULL ? error->message : "");
+      /* main() checks first; this is for code that runs without main(). */
+      g_printerr ("stagewright: %s\n", error->message);
+      exit (EXIT_FAILURE);
     }
   return g_settings_new_full (schema, NULL, NULL);
 }
@@ -64,12 +92,7 @@ sw_application_settings_new (void)
 char *
 sw_application_find_design (const char *basename)
 {
-  char *path = g_build_filename (SOURCE_DESIGNS_DIR, basename, NULL);
-
-  if (g_file_test (path, G_FILE_TEST_IS_REGULAR))
-    return path;
-  g_free (path);
-  return g_build_filename (DESIGNS_DIR, basename, NULL);
+  return sw_install_find_design (basename);
 }
 
 gboolean

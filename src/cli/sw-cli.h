@@ -42,7 +42,7 @@ char     *sw_cli_format (double value, int decimals);
 char     *sw_cli_cell (const char *text, guint width);
 /* The cautions printed under every report. */
 extern const char *sw_cli_caution;
-/* A bundled demo design: the source tree first, then the installed copy. */
+/* A bundled demo design, under the install prefix (SW_DESIGNS_DIR overrides). */
 char     *sw_cli_find_demo (const char *basename);
 
 int sw_cli_size (int argc, char **argv);
