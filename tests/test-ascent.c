@@ -294,15 +294,26 @@ test_two_stage_losses (void)
     g_error ("not reached: %s", r->reason);
   g_assert_true (r->reached_orbit && r->closed_loop && r->loop_converged);
 
-  /* Losses to low orbit (common practice, reference-values.md): gravity
-   * 0.8 to 1.8 km/s, drag below 0.3 km/s, steering 0.02 to 0.2 km/s. */
-  g_assert_cmpfloat (r->gravity_loss_m_s, >, 800.0);
-  g_assert_cmpfloat (r->gravity_loss_m_s, <, 1800.0);
-  g_assert_cmpfloat (r->drag_loss_m_s, >, 0.0);
-  g_assert_cmpfloat (r->drag_loss_m_s, <, 300.0);
+  /* Losses to low orbit (reference-values.md, rules of thumb: common
+   * practice, from memory): gravity 1.0 to 1.5 km/s (up to about 1.8 for
+   * low-thrust vehicles), drag 0.05 to 0.15 km/s, steering 0.02 to 0.2 km/s.
+   * This vehicle (liftoff T/W near 1.4) measures 1352 / 100 / 8 m/s.  Its
+   * steering loss lies under the rule's lower end: launched due east into
+   * its own inclination it turns only in the plane, so only the rule's upper
+   * bound is asserted for steering. */
+  g_assert_cmpfloat (r->gravity_loss_m_s, >, 1000.0);
+  g_assert_cmpfloat (r->gravity_loss_m_s, <, 1500.0);
+  g_assert_cmpfloat (r->drag_loss_m_s, >, 50.0);
+  g_assert_cmpfloat (r->drag_loss_m_s, <, 150.0);
+  g_assert_cmpfloat (r->steering_loss_m_s, >, 0.0);
   g_assert_cmpfloat (r->steering_loss_m_s, <, 200.0);
-  /* Ground to low orbit: 9.3 to 10 km/s with the losses (common practice). */
-  g_assert_cmpfloat (r->delta_v_needed_m_s, >, 9000.0);
+  /* Ground to low orbit: about 9.3 to 10 km/s with the losses (same rules).
+   * This launch measures 9008 m/s, under the rule's 9.3: it goes due east
+   * from 28.5 deg to a low 200 km orbit.  The lower bound asserted is the
+   * one the rules above give for it: 7784.3 m/s circular at 200 km less
+   * the site's 408.7 m/s (reference-values.md, computed) plus the least
+   * gravity and drag losses of the rules, 1000 + 50 m/s: 8425.6 m/s. */
+  g_assert_cmpfloat (r->delta_v_needed_m_s, >, 7784.3 - 408.7 + 1000.0 + 50.0);
   g_assert_cmpfloat (r->delta_v_needed_m_s, <, 10000.0);
 
   /* The breakdown adds up, and the loop has closed: the vehicle was sized

@@ -5,7 +5,6 @@
 
 #include "sw-inspector.h"
 
-#include "sw-application.h"
 #include "sw-design-edit.h"
 #include "sw-format.h"
 #include "sw-limits.h"
@@ -1019,9 +1018,22 @@ sw_inspector_init (SwInspector *self)
   }
   configure_eps_spin (self);
 
-  self->settings = sw_application_settings_new ();
-  g_settings_bind_with_mapping (self->settings, "eps-form", self->eps_form_dropdown, "selected",
-                                G_SETTINGS_BIND_DEFAULT, eps_form_get_mapping,
-                                eps_form_set_mapping, NULL, NULL);
   update_actions (self);
+}
+
+/* The structural-mass form is kept in @settings ("eps-form"). */
+void
+sw_inspector_set_settings (SwInspector *self, GSettings *settings)
+{
+  g_return_if_fail (SW_IS_INSPECTOR (self));
+
+  if (settings == self->settings)
+    return;
+  if (self->settings != NULL)
+    g_settings_unbind (self->eps_form_dropdown, "selected");
+  g_set_object (&self->settings, settings);
+  if (settings != NULL)
+    g_settings_bind_with_mapping (settings, "eps-form", self->eps_form_dropdown, "selected",
+                                  G_SETTINGS_BIND_DEFAULT, eps_form_get_mapping,
+                                  eps_form_set_mapping, NULL, NULL);
 }
