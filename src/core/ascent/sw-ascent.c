@@ -465,6 +465,7 @@ track (SwFlightSim *s)
   if (current_segment (s)->is_virtual)
     return;
   derive (s, s->f.t, s->f.y, &d);
+  s->f.max_alt = MAX (s->f.max_alt, d.h);
   if (d.q > s->f.max_q)
     {
       s->f.max_q = d.q;
