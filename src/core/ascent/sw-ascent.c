@@ -98,9 +98,9 @@ derive (const SwFlightSim *s, double t, const double *y, Derived *d)
   d->h = d->r - SW_RE;
   d->vr = y[SW_Y_VR];
   d->vt = y[SW_Y_VT];
-  d->v = hypot (d->vr, d->vt);
+  d->v = sqrt (d->vr * d->vr + d->vt * d->vt);
   d->vt_rel = d->vt - m->omega_p * d->r;
-  d->v_rel = hypot (d->vr, d->vt_rel);
+  d->v_rel = sqrt (d->vr * d->vr + d->vt_rel * d->vt_rel);
 
   switch (m->opt.gravity)
     {

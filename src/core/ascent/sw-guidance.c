@@ -387,7 +387,14 @@ kick_objective (double kick, void *data)
       sv->cancelled = TRUE;
       return KICK_FAILED;
     }
-  return solve_for_kick (sv, kick) ? sv->needed : KICK_FAILED + kick;
+  {
+    guint before = sv->sim.n_runs;
+    gboolean ok = solve_for_kick (sv, kick);
+    if (g_getenv ("SW_KICK_DEBUG"))
+      g_printerr ("kick %.3f: %s %.2f, %u flights\n", kick / SW_DEG, ok ? "ok" : "FAIL",
+                  ok ? sv->needed : 0.0, sv->sim.n_runs - before);
+    return ok ? sv->needed : KICK_FAILED + kick;
+  }
 }
 
 /* The pitch kick that needs the least delta-v.  Cold (@grid): a coarse
@@ -413,14 +420,36 @@ optimise_kick (Solver *sv, double start, gboolean grid, double *best_kick, gbool
     {
       double gk[GRID], gf[GRID];
       int best = -1;
+      const int mid_i = 5;   /* 3.2 deg */
 
-      for (int i = 0; i < GRID && !sv->cancelled; i++)
+      /* From 3.2 deg up while the cost falls, then down while it falls or
+       * nothing has flown yet: every grid kick is tried when needed, the
+       * cheap vehicles stop early. */
+      for (int i = 0; i < GRID; i++)
         {
           gk[i] = 0.1 * SW_DEG * (1 << i);
+          gf[i] = NAN;
+        }
+      for (int i = mid_i; i < GRID && !sv->cancelled; i++)
+        {
           gf[i] = kick_objective (gk[i], sv);
           if (gf[i] < KICK_FAILED && (best < 0 || gf[i] < gf[best]))
             best = i;
+          else if (best >= 0)
+            break;
         }
+      if (best < 0 || best == mid_i)
+        for (int i = mid_i - 1; i >= 0 && !sv->cancelled; i--)
+          {
+            gf[i] = kick_objective (gk[i], sv);
+            if (gf[i] < KICK_FAILED && (best < 0 || gf[i] < gf[best]))
+              best = i;
+            else if (best >= 0)
+              break;
+          }
+      for (int i = best - 1; i <= best + 1 && best >= 0 && !sv->cancelled; i++)
+        if (i >= 0 && i < GRID && isnan (gf[i]))
+          gf[i] = kick_objective (gk[i], sv);
       if (best < 0 || sv->cancelled)
         return FALSE;
       k[0] = best > 0 ? gk[best - 1] : gk[0] / ratio;
