@@ -21,6 +21,7 @@
 #include <string.h>
 
 #define PSI_LIMIT (80.0 * SW_DEG)
+#define SEARCH_RTOL 1e-6
 #define JACOBIAN_STEP 2e-4           /* rad */
 
 /* ---- guidance ---------------------------------------------------------- */
@@ -408,7 +409,7 @@ optimise_kick (Solver *sv, double start, gboolean grid, double *best_kick, gbool
 {
   const double lo_limit = 0.05 * SW_DEG, hi_limit = 30.0 * SW_DEG;
   enum { GRID = 9 };
-  double ratio = grid ? 2.0 : 1.3;
+  double ratio = grid ? 2.0 : 1.15;
   double k[3], f[3], up = start, down = start, mid = start, fmid;
   gsl_min_fminimizer *min;
   gsl_function fn = { kick_objective, sv };
@@ -564,7 +565,7 @@ optimise_kick (Solver *sv, double start, gboolean grid, double *best_kick, gbool
         break;
       /* The optimum is flat: stop when the kick is pinned to 0.05 deg or
        * the needed delta-v has stopped improving by 0.05 m/s twice. */
-      calm = before - gsl_min_fminimizer_f_minimum (min) < 0.05 ? calm + 1 : 0;
+      calm = before - gsl_min_fminimizer_f_minimum (min) < 0.1 ? calm + 1 : 0;
       if (calm >= 2
           || gsl_min_test_interval (gsl_min_fminimizer_x_lower (min),
                                     gsl_min_fminimizer_x_upper (min), 0.05 * SW_DEG, 0.0)
@@ -715,14 +716,19 @@ sw_ascent_solve_sized (const SwDesign *design, const SwSizing *sizing,
     {
       gboolean warm = hints != NULL && hints->have_kick;
       double start = warm ? hints->kick_rad : 3.0 * SW_DEG;
-      /* Search with a 10 m / 0.001 deg cutoff, then solve the best kick to
-       * 1 m / 1e-4 deg. */
+      /* Search with a 10 m / 0.001 deg cutoff and the integrator at a
+       * relative tolerance of SEARCH_RTOL (the cost's noise stays near
+       * 0.01 m/s), then solve the best kick to 1 m / 1e-4 deg at the
+       * tolerance asked for. */
       sv->tol = 1e-3;
+      if (SEARCH_RTOL > opt.rtol)
+        gsl_odeiv2_control_init (s->ctl, 1e-6, SEARCH_RTOL, 1.0, 0.0);
       ok = optimise_kick (sv, start, !warm, &kick, &at_edge) && !sv->cancelled;
       /* A warm start that found nothing: the full search from the grid. */
       if (!ok && warm && !sv->cancelled)
         ok = optimise_kick (sv, start, TRUE, &kick, &at_edge) && !sv->cancelled;
       sv->tol = 1e-4;
+      gsl_odeiv2_control_init (s->ctl, 1e-6, sv->model.opt.rtol, 1.0, 0.0);
       if (ok)
         ok = solve_for_kick (sv, kick);
       res->pitch_kick_solved = TRUE;
