@@ -430,6 +430,54 @@ test_allowance_shortfall (void)
   g_assert_nonnull (strstr (r->reason, "falls short"));
   /* The orbit actually reached at burnout is no orbit: perigee underground. */
   g_assert_cmpfloat (r->perigee_km, <, 0.0);
+
+  /* The shortfall is measured by flying on with propellant the vehicle does
+   * not carry; the time series shows that part, marked, and ends at the
+   * same cutoff as the figures. */
+  {
+    const SwAscentSample *last = &g_array_index (r->samples, SwAscentSample, r->samples->len - 1);
+    gboolean coast_seen = FALSE;
+
+    g_assert_cmpfloat (r->propellant_beyond_load_kg, >, 0.0);
+    g_assert_nonnull (strstr (r->reason, "beyond its load"));
+    g_assert_true (last->beyond_load);
+    g_assert_cmpfloat_with_epsilon (last->time_s, r->cutoff.time_s, 1e-9);
+    g_assert_cmpfloat_with_epsilon (last->altitude_m, r->cutoff.altitude_m, 1e-6);
+    g_assert_cmpfloat_with_epsilon (last->mass_kg, r->cutoff.mass_kg, 1e-6);
+    /* In the coast before the second stage no thrust: the sensed
+     * acceleration is the drag's deceleration, never positive. */
+    for (guint i = 0; i < r->samples->len; i++)
+      {
+        const SwAscentSample *p = &g_array_index (r->samples, SwAscentSample, i);
+        if (p->thrust_n == 0.0)
+          {
+            coast_seen = TRUE;
+            g_assert_cmpfloat (p->axial_accel_g, <=, 0.0);
+          }
+      }
+    g_assert_true (coast_seen);
+  }
+}
+
+static void
+test_retrograde_liftoff (void)
+{
+  /* On a retrograde azimuth the site's velocity points backwards; the
+   * vehicle still stands vertical on the pad: 90 deg at liftoff. */
+  g_autoptr (SwDesign) d = load (TWO_STAGE ("2100", "allowance", "3400", "400", ""));
+  g_autoptr (SwAscentResult) r = NULL;
+  g_autoptr (GError) error = NULL;
+
+  d->mission.inclination_deg = 140.0;
+  r = sw_design_ascent (d, NULL, &error);
+  g_assert_no_error (error);
+  g_assert_cmpfloat (r->launch_azimuth_deg, >, 180.0);
+  if (r->status != SW_ASCENT_REACHED && r->status != SW_ASCENT_SHORT)
+    g_error ("retrograde: %s", r->reason);
+  g_assert_cmpfloat_with_epsilon (r->stages[0].ignition.flight_path_deg, 90.0, 1e-9);
+  g_assert_cmpfloat_with_epsilon (g_array_index (r->samples, SwAscentSample, 0).flight_path_deg,
+                                  90.0, 1e-9);
+  g_assert_true (r->status == SW_ASCENT_REACHED || r->status == SW_ASCENT_SHORT);
 }
 
 static void
@@ -701,6 +749,7 @@ main (int argc, char **argv)
   g_test_add_func ("/core/ascent/two-stage-losses", test_two_stage_losses);
   g_test_add_func ("/core/ascent/allowance-shortfall", test_allowance_shortfall);
   g_test_add_func ("/core/ascent/loop-first-guess", test_loop_first_guess);
+  g_test_add_func ("/core/ascent/retrograde-liftoff", test_retrograde_liftoff);
   g_test_add_func ("/core/ascent/loop-no-allowance", test_loop_no_allowance);
   g_test_add_func ("/core/ascent/transfer", test_transfer);
   g_test_add_func ("/core/ascent/fixed-kick", test_fixed_kick);

@@ -239,7 +239,20 @@ axial_accel_g (const Derived *d, double m)
 {
   double cos_a = d->v_rel > 1e-9 ? (d->sin_psi * d->vr + d->cos_psi * d->vt_rel) / d->v_rel
                                  : 1.0;
-  return d->thrust > 0.0 ? (d->thrust - d->drag * cos_a) / m / SW_G0 : d->drag / m / SW_G0;
+  /* Thrust less the drag's component along the axis; in a coast only the
+   * drag, a deceleration (negative). */
+  return (d->thrust - d->drag * cos_a) / m / SW_G0;
+}
+
+/* The inertial flight-path angle; on the pad, at rest in the air, the
+ * vehicle's own: 90 deg (its inertial velocity is the site's, which on a
+ * retrograde azimuth points backwards). */
+static double
+flight_path_deg (const Derived *d)
+{
+  if (d->v_rel < 1e-6 && d->h < 1.0)
+    return 90.0;
+  return atan2 (d->vr, d->vt) / SW_DEG;
 }
 
 static void
@@ -253,7 +266,7 @@ point_of (const SwFlightSim *s, double t, const double *y, SwAscentPoint *pt)
   pt->downrange_m = y[SW_Y_S];
   pt->speed_m_s = d.v;
   pt->air_speed_m_s = d.v_rel;
-  pt->flight_path_deg = atan2 (d.vr, d.vt) / SW_DEG;
+  pt->flight_path_deg = flight_path_deg (&d);
   pt->dynamic_pressure_pa = d.q;
   pt->mass_kg = y[SW_Y_M];
 }
@@ -438,7 +451,7 @@ record_sample (SwFlightSim *s)
   SwAscentSample smp;
   Derived d;
 
-  if (!s->record || current_segment (s)->is_virtual)
+  if (!s->record)
     return;
   derive (s, s->f.t, s->f.y, &d);
   smp.time_s = s->f.t;
@@ -446,13 +459,14 @@ record_sample (SwFlightSim *s)
   smp.downrange_m = s->f.y[SW_Y_S];
   smp.speed_m_s = d.v;
   smp.air_speed_m_s = d.v_rel;
-  smp.flight_path_deg = atan2 (d.vr, d.vt) / SW_DEG;
+  smp.flight_path_deg = flight_path_deg (&d);
   smp.dynamic_pressure_pa = d.q;
   smp.mach = d.mach;
   smp.axial_accel_g = axial_accel_g (&d, s->f.y[SW_Y_M]);
   smp.mass_kg = s->f.y[SW_Y_M];
   smp.thrust_n = d.thrust;
   smp.stage = current_segment (s)->stage;
+  smp.beyond_load = current_segment (s)->is_virtual;
   g_array_append_val (s->samples, smp);
 }
 
@@ -1046,6 +1060,7 @@ sw_ascent_result_new (void)
   r->circularization_m_s = r->circularization_time_s = NAN;
   r->engines_delta_v_m_s = r->delta_v_needed_m_s = r->sized_delta_v_m_s = NAN;
   r->delta_v_margin_m_s = r->delta_v_missing_m_s = NAN;
+  r->propellant_beyond_load_kg = NAN;
   r->max_q_pa = r->max_q_time_s = r->max_q_altitude_m = NAN;
   r->max_axial_g = r->max_axial_g_time_s = r->liftoff_thrust_to_weight = NAN;
   r->pitch_over_time_s = r->pitch_kick_deg = r->guidance_start_s = NAN;
@@ -1232,6 +1247,10 @@ sw_flight_fill_result (const SwFlightSim *s, SwOutcome out, SwAscentResult *res)
       needed = sized_at_cut + circ + m->cross_cost;
 
       point_of (s, f->t, f->y, &res->cutoff);
+      res->propellant_beyond_load_kg = 0.0;
+      if (sg->is_virtual)
+        res->propellant_beyond_load_kg = m->st[sg->stage].m_burnout
+                                         + (f->fairing_on ? m->fairing_mass : 0.0) - f->y[SW_Y_M];
       if (!sg->is_virtual)
         {
           st->burnout = res->cutoff;
@@ -1269,11 +1288,13 @@ sw_flight_fill_result (const SwFlightSim *s, SwOutcome out, SwAscentResult *res)
                         _("The vehicle falls short of the %.0f km orbit by %.0f m/s of "
                           "delta-v: the simulated losses are %.0f m/s where the sizing "
                           "allowed %.0f m/s. The last stage burns out at T+%.0f s, %.0f km "
-                          "up at %.0f m/s (perigee %.0f km)."),
+                          "up at %.0f m/s (perigee %.0f km); flown on to the cutoff with %.0f kg "
+                          "of propellant beyond its load, to measure the shortfall."),
                         m->r_target / 1000.0 - SW_RE / 1000.0, res->delta_v_missing_m_s,
                         res->losses_m_s, m->sized_total - m->ideal, f->t_real_bo,
                         (f->y_real_bo[SW_Y_R] - SW_RE) / 1000.0,
-                        hypot (f->y_real_bo[SW_Y_VR], f->y_real_bo[SW_Y_VT]), res->perigee_km);
+                        hypot (f->y_real_bo[SW_Y_VR], f->y_real_bo[SW_Y_VT]), res->perigee_km,
+                        res->propellant_beyond_load_kg);
           else
             g_snprintf (res->reason, sizeof res->reason,
                         _("The vehicle reaches the %.0f km orbit in the plane but lacks %.1f "
