@@ -117,13 +117,7 @@ derive (const SwFlightSim *s, double t, const double *y, Derived *d)
     }
 
   if (m->opt.atmosphere)
-    {
-      SwAtmosphere a;
-      sw_atmosphere_at (d->h, &a);
-      d->p = a.pressure_pa;
-      d->rho = a.density_kg_m3;
-      d->sound = a.speed_of_sound_m_s;
-    }
+    sw_atmosphere_flight (d->h, &d->p, &d->rho, &d->sound);
   else
     {
       d->p = d->rho = 0.0;
@@ -323,13 +317,13 @@ event_direction (EventId e)
     }
 }
 
+/* Event @e's function at (t, y), from the derived quantities @dd there. */
 static double
-event_value (const SwFlightSim *s, EventId e, double t, const double *y)
+event_value_at (const SwFlightSim *s, EventId e, double t, const double *y, const Derived *dd)
 {
   const SwFlightModel *m = s->m;
-  Derived d;
+  const Derived d = *dd;
 
-  derive (s, t, y, &d);
   switch (e)
     {
     case EV_IMPACT:
@@ -370,6 +364,15 @@ event_value (const SwFlightSim *s, EventId e, double t, const double *y)
     default:
       return 0.0;
     }
+}
+
+static double
+event_value (const SwFlightSim *s, EventId e, double t, const double *y)
+{
+  Derived d;
+
+  derive (s, t, y, &d);
+  return event_value_at (s, e, t, y, &d);
 }
 
 static gboolean
@@ -427,7 +430,7 @@ locate (SwFlightSim *s, EventId e, double t0, const double *y0, double dt)
       gsl_root_fsolver_iterate (s->root);
       lo = gsl_root_fsolver_x_lower (s->root);
       hi = gsl_root_fsolver_x_upper (s->root);
-      if (gsl_root_test_interval (lo, hi, 1e-9, 1e-12) == GSL_SUCCESS)
+      if (gsl_root_test_interval (lo, hi, 1e-7, 0.0) == GSL_SUCCESS)
         break;
     }
   /* Make sure the state at hi is past the event. */
@@ -471,14 +474,13 @@ record_sample (SwFlightSim *s)
 }
 
 static void
-track (SwFlightSim *s)
+track_derived (SwFlightSim *s, const Derived *dd)
 {
-  Derived d;
+  Derived d = *dd;
   double acc;
 
   if (current_segment (s)->is_virtual)
     return;
-  derive (s, s->f.t, s->f.y, &d);
   s->f.max_alt = MAX (s->f.max_alt, d.h);
   if (d.q > s->f.max_q)
     {
@@ -494,6 +496,15 @@ track (SwFlightSim *s)
     }
 }
 
+static void
+track (SwFlightSim *s)
+{
+  Derived d;
+
+  derive (s, s->f.t, s->f.y, &d);
+  track_derived (s, &d);
+}
+
 /* Integrates to @t_end or to the first event; *failed on integrator trouble. */
 static EventId
 advance (SwFlightSim *s, double t_end, gboolean *failed)
@@ -501,15 +512,21 @@ advance (SwFlightSim *s, double t_end, gboolean *failed)
   double g_prev[N_EVENTS];
   gboolean active[N_EVENTS];
 
-  for (int e = 0; e < N_EVENTS; e++)
-    {
-      active[e] = event_active (s, e);
-      g_prev[e] = active[e] ? event_value (s, e, s->f.t, s->f.y) : 0.0;
-    }
+  {
+    Derived d;
+
+    derive (s, s->f.t, s->f.y, &d);
+    for (int e = 0; e < N_EVENTS; e++)
+      {
+        active[e] = event_active (s, e);
+        g_prev[e] = active[e] ? event_value_at (s, e, s->f.t, s->f.y, &d) : 0.0;
+      }
+  }
 
   while (s->f.t < t_end)
     {
       double t0 = s->f.t, y0[SW_NY], h = s->f.h;
+      Derived dnow;
       EventId best = EV_NONE;
       double best_tau = G_MAXDOUBLE;
       int status;
@@ -527,13 +544,14 @@ advance (SwFlightSim *s, double t_end, gboolean *failed)
       if (s->f.t < t_end)
         s->f.h = h;
 
+      derive (s, s->f.t, s->f.y, &dnow);
       for (int e = 0; e < N_EVENTS; e++)
         {
           double g1;
 
           if (!active[e])
             continue;
-          g1 = event_value (s, e, s->f.t, s->f.y);
+          g1 = event_value_at (s, e, s->f.t, s->f.y, &dnow);
           if (crossed (s, e, g_prev[e], g1))
             {
               double tau = locate (s, e, t0, y0, s->f.t - t0);
@@ -555,7 +573,7 @@ advance (SwFlightSim *s, double t_end, gboolean *failed)
           track (s);
           return best;
         }
-      track (s);
+      track_derived (s, &dnow);
       record_sample (s);
     }
   return EV_NONE;

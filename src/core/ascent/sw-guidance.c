@@ -21,7 +21,7 @@
 #include <string.h>
 
 #define PSI_LIMIT (80.0 * SW_DEG)
-#define SEARCH_RTOL 1e-6
+#define SEARCH_RTOL 1e-5
 #define JACOBIAN_STEP 2e-4           /* rad */
 
 /* ---- guidance ---------------------------------------------------------- */
@@ -343,7 +343,9 @@ solved:
     /* The two angles can have two roots.  The cheap one lowers the pitch
      * through the burn (the optimal law's shape); a root whose pitch rises
      * has dived first.  Then try the other starts and keep the cheaper. */
-    if (psi[1] > psi[0] + 1.0 * SW_DEG)
+    gboolean moved = psi[1] > psi[0] + 1.0 * SW_DEG;
+
+    if (moved)
       for (guint i = 0; i < G_N_ELEMENTS (guesses) && !sv->cancelled; i++)
         {
           double g[2] = { (i == 0 ? sv->guide_gamma / SW_DEG : guesses[i][0]) * SW_DEG,
@@ -363,8 +365,9 @@ solved:
                 }
             }
         }
-    /* Leave the simulator on the chosen solution. */
-    if (fly_guided (sv, psi) != SW_OUT_CUTOFF)
+    /* Leave the simulator on the chosen solution (solve_steering left it
+     * there unless other roots were tried). */
+    if (moved && fly_guided (sv, psi) != SW_OUT_CUTOFF)
       return FALSE;
     sv->psi[0] = psi[0];
     sv->psi[1] = psi[1];
