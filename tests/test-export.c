@@ -8,6 +8,7 @@
 #include "sw-csv.h"
 #include "sw-export-dialog.h"
 #include "sw-solver.h"
+#include "sw-totals.h"
 
 #include <glib/gstdio.h>
 #include <json-glib/json-glib.h>
@@ -217,10 +218,62 @@ test_same_numbers (void)
   check_same_numbers ("medium-cargo.stagewright");
 }
 
+/* The totals show the verdict: literal words, and the icon and style by
+ * state (green only for reaches-orbit). */
+static void
+check_totals (const SwDesign *d, const SwAnalysisOptions *o, const char *page, const char *prefix)
+{
+  g_autoptr (SwAnalysis) a = sw_analysis_run (d, o, NULL);
+  GtkWidget *totals = g_object_ref_sink (sw_totals_new ());
+  const char *status;
+
+  sw_totals_set_result (SW_TOTALS (totals), a);
+  status = sw_totals_get_text (SW_TOTALS (totals), SW_TOTALS_STATUS);
+  if (!g_str_has_prefix (status, prefix))
+    g_error ("totals: \"%s\" does not start with \"%s\"", status, prefix);
+  g_assert_cmpstr (sw_totals_get_text (SW_TOTALS (totals), SW_TOTALS_STATUS_PAGE), ==, page);
+  g_object_unref (totals);
+}
+
+static void
+test_totals_verdict (void)
+{
+  g_autoptr (SwDesign) paper = demo ("all-solid-concept.stagewright");
+  g_autoptr (SwDesign) shortfall = demo ("medium-cargo.stagewright");
+  g_autoptr (SwDesign) reaches = demo ("three-stage-simulated.stagewright");
+  g_autoptr (SwDesign) far = sw_design_copy (paper);
+  g_autoptr (SwAnalysis) sim = NULL;
+  g_autoptr (GtkWidget) totals = NULL;
+  SwAnalysisOptions o;
+
+  far->mission.delta_v_m_s = 25000.0;
+  check_totals (far, NULL, "bad", "Not feasible. ");
+  check_totals (shortfall, NULL, "bad", "Does not reach the orbit. In the simulated ascent the "
+                                        "vehicle falls ");
+  check_totals (paper, NULL, "note", "Feasible on paper only. The stages give the required "
+                                     "delta-v by the rocket equation");
+  check_totals (reaches, NULL, "ok", "Reaches the orbit. The simulated ascent reaches the "
+                                     "250.0 km orbit with ");
+  sw_analysis_options_init (&o);
+  o.max_q_pa = 1000.0;
+  check_totals (reaches, &o, "warn", "Reaches the orbit, but breaks a limit. The simulated "
+                                     "ascent reaches the orbit, but: Max-Q is ");
+
+  /* Without a simulation the headline margin is a dash, and the headroom
+   * is named as such below it. */
+  sim = sw_analysis_run (paper, NULL, NULL);
+  totals = g_object_ref_sink (sw_totals_new ());
+  sw_totals_set_result (SW_TOTALS (totals), sim);
+  g_assert_cmpstr (sw_totals_get_text (SW_TOTALS (totals), SW_TOTALS_MARGIN), ==, "\u2014");
+  g_assert_nonnull (strstr (sw_totals_get_text (SW_TOTALS (totals), SW_TOTALS_LIMIT),
+                            ", headroom "));
+}
+
 int
 main (int argc, char **argv)
 {
-  g_test_init (&argc, &argv, NULL);
+  gtk_test_init (&argc, &argv, NULL);
+  g_test_add_func ("/export/totals-verdict", test_totals_verdict);
   g_test_add_func ("/export/flies-nothing", test_export_flies_nothing);
   g_test_add_func ("/export/same-numbers", test_same_numbers);
   return g_test_run ();
