@@ -476,9 +476,8 @@ draw_totals (const Page *p, const SwAnalysis *a, double x, double y, double w, d
     {
       g_autofree char *l = sw_format_speed (a->ascent->losses_m_s);
       g_autofree char *gl = sw_format_speed (a->ascent->gravity_loss_m_s);
-      g_autofree char *dl = sw_format_speed (a->ascent->drag_loss_m_s);
-      /* Translators: total losses, then gravity and drag losses */
-      ADD_ROW (_("Simulated losses"), g_strdup_printf (_("%s (gravity %s, drag %s)"), l, gl, dl),
+      /* Translators: total losses, then the gravity loss */
+      ADD_ROW (_("Simulated losses"), g_strdup_printf (_("%s (gravity %s)"), l, gl),
                NULL, INK);
     }
   if (a->ascent != NULL && isfinite (a->ascent->max_q_pa))
@@ -498,10 +497,10 @@ draw_totals (const Page *p, const SwAnalysis *a, double x, double y, double w, d
              NULL, INK);
   if (a->has_montecarlo && isfinite (a->montecarlo_success))
     {
-      ADD_ROW (_("Chance the payload fits, no reserve"),
+      ADD_ROW (_("Payload fits, no reserve"),
                sw_format_probability (a->montecarlo_success), NULL,
                a->montecarlo_success >= 0.95 ? GOOD : INK);
-      ADD_ROW (_("Payload reserve for a 95 % chance"), sw_format_mass (a->montecarlo.reserve_95_kg),
+      ADD_ROW (_("Reserve for a 95 % chance"), sw_format_mass (a->montecarlo.reserve_95_kg),
                NULL, INK);
     }
 #undef ADD_ROW
@@ -525,7 +524,7 @@ draw_totals (const Page *p, const SwAnalysis *a, double x, double y, double w, d
         TextStyle hs = style_w (6.8, TRUE, MUTED, PANGO_ALIGN_LEFT, x + w - dx);
         text_at (cr, t, x, yy, &bs);
         yy += 13.0;
-        text_at (cr, _("change against the baseline"), dx, yy - 1.0, &hs);
+        text_at (cr, _("against the baseline"), dx, yy - 1.0, &hs);
         yy += 10.0;
       }
     for (guint i = 0; i < n && yy + row_h <= y + h; i++)
@@ -575,14 +574,14 @@ draw_stage_table (const Page *p, const SwAnalysis *a, double y)
   tonnes = use_tonnes (largest);
   heads[0] = "#";
   heads[1] = _("Stage");
-  heads[2] = _("Isp vac, s");
-  heads[3] = _("Struct. coeff.");
+  heads[2] = _("Isp, s");
+  heads[3] = _("\316\265");
   heads[4] = _("\316\224v, m/s");
   heads[5] = _("Share");
   heads[6] = _("Mass ratio");
-  heads[7] = tonnes ? _("Propellant, t") : _("Propellant, kg");
-  heads[8] = tonnes ? _("Structure, t") : _("Structure, kg");
-  heads[9] = tonnes ? _("At ignition, t") : _("At ignition, kg");
+  heads[7] = tonnes ? _("Prop., t") : _("Prop., kg");
+  heads[8] = tonnes ? _("Struct., t") : _("Struct., kg");
+  heads[9] = tonnes ? _("Ignition, t") : _("Ignition, kg");
   heads[10] = _("Success");
 
   if (!rel)
