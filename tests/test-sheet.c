@@ -6,6 +6,7 @@
 
 #include "sw-csv.h"
 #include "sw-sheet.h"
+#include "sw-sheet-private.h"
 
 #include <cairo.h>
 #include <glib/gstdio.h>
@@ -226,6 +227,69 @@ test_csv (void)
 }
 
 static void
+box_clear (gpointer p)
+{
+  g_free (((SwSheetTextBox *) p)->text);
+}
+
+/* Nothing overprinted: every text the page draws is recorded with its ink
+ * box, and no two boxes overlap (0.3 pt of slack for antialiased edges). */
+static void
+check_no_overlap (SwAnalysis *a)
+{
+  g_autoptr (GArray) boxes = g_array_new (FALSE, FALSE, sizeof (SwSheetTextBox));
+  cairo_surface_t *surface = cairo_recording_surface_create (CAIRO_CONTENT_COLOR, NULL);
+  cairo_t *cr = cairo_create (surface);
+  double w, h;
+
+  g_array_set_clear_func (boxes, box_clear);
+  sw_sheet_paper_size (SW_PAPER_A4, &w, &h);
+  sw_sheet_private_record_text (boxes);
+  sw_sheet_draw_page (cr, a, w, h);
+  sw_sheet_private_record_text (NULL);
+  cairo_destroy (cr);
+  cairo_surface_destroy (surface);
+  g_assert_cmpuint (boxes->len, >, 40);
+  for (guint i = 0; i < boxes->len; i++)
+    for (guint j = i + 1; j < boxes->len; j++)
+      {
+        const SwSheetTextBox *p = &g_array_index (boxes, SwSheetTextBox, i);
+        const SwSheetTextBox *q = &g_array_index (boxes, SwSheetTextBox, j);
+        double ox = MIN (p->x + p->w, q->x + q->w) - MAX (p->x, q->x);
+        double oy = MIN (p->y + p->h, q->y + q->h) - MAX (p->y, q->y);
+        if (ox > 0.3 && oy > 0.3)
+          g_error ("%s: \"%s\" and \"%s\" overlap", a->design->name, p->text, q->text);
+      }
+}
+
+static void
+test_no_overlap (void)
+{
+  static const char *const demos[] = {
+    "all-solid-concept.stagewright", "kestrel-upgrade-study.stagewright",
+    "medium-cargo.stagewright", "small-sat-launcher.stagewright",
+    "three-stage-simulated.stagewright",
+  };
+  g_autoptr (SwAnalysis) trade = briefing (WITH_MONTECARLO | WITH_BAND);
+
+  check_no_overlap (trade);
+  for (guint i = 0; i < G_N_ELEMENTS (demos); i++)
+    {
+      g_autofree char *path = g_build_filename (g_getenv ("SW_SOURCE_ROOT"), "data", "designs",
+                                                demos[i], NULL);
+      g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
+      g_autoptr (SwAnalysis) a = NULL;
+      SwAnalysisOptions o;
+
+      g_assert_nonnull (d);
+      sw_analysis_options_init (&o);
+      o.band_samples = 500;
+      a = sw_analysis_run (d, &o, NULL);
+      check_no_overlap (a);
+    }
+}
+
+static void
 remove_tree (const char *dir)
 {
   g_autoptr (GDir) d = g_dir_open (dir, 0, NULL);
@@ -254,6 +318,7 @@ main (int argc, char **argv)
   g_test_add_func ("/sheet/png-size", test_png_size);
   g_test_add_func ("/sheet/svg-well-formed", test_svg_well_formed);
   g_test_add_func ("/sheet/csv", test_csv);
+  g_test_add_func ("/sheet/no-overlap", test_no_overlap);
   status = g_test_run ();
   remove_tree (tmpdir);
   g_free (tmpdir);
