@@ -98,6 +98,21 @@ test_pdf_text (void)
   if (strstr (text, expect) == NULL)
     g_error ("\"%s\" not in the PDF's text:\n%s", expect, text);
   g_assert_nonnull (strstr (text, "Wren 3 trade study"));
+  /* The verdict is the first thing under the title: this study's vehicle
+   * falls short of its orbit in simulation (its own ascent). */
+  g_assert_cmpint (b->verdict.state, ==, SW_VERDICT_SHORT_OF_ORBIT);
+  {
+    const char *verdict = strstr (text, "Does not reach the orbit");
+    const char *totals = strstr (text, "Totals");
+    g_assert_nonnull (verdict);
+    g_assert_nonnull (totals);
+    g_assert_cmpint (verdict - text, <, totals - text);
+    g_assert_nonnull (strstr (text, "short of the orbit"));
+  }
+  /* No JSON key or internal phrase on the page. */
+  g_assert_null (strstr (text, "_kn"));
+  g_assert_null (strstr (text, "_m_s"));
+  g_assert_null (strstr (text, "min(k"));
   g_assert_nonnull (strstr (text, "Wren sustainer"));
   /* The cautions. */
   g_assert_nonnull (strstr (text, "Conceptual sizing only"));
@@ -192,6 +207,12 @@ test_svg_well_formed (void)
   g_assert_cmpuint (check.elements, >, 100);
   g_assert_cmpstr (check.width, ==, "612pt");
   g_free (check.width);
+  /* Text stays text: the words can be found in the file, and no glyph is
+   * drawn as an outline. */
+  g_assert_nonnull (strstr (data, ">Totals</text>"));
+  g_assert_nonnull (strstr (data, ">Wren 3 trade study</text>"));
+  g_assert_nonnull (strstr (data, "Conceptual sizing only"));
+  g_assert_null (strstr (data, "glyph"));
 }
 
 static void
@@ -244,9 +265,9 @@ check_no_overlap (SwAnalysis *a)
 
   g_array_set_clear_func (boxes, box_clear);
   sw_sheet_paper_size (SW_PAPER_A4, &w, &h);
-  sw_sheet_private_record_text (boxes);
+  sw_sheet_private_record_text (cr, boxes);
   sw_sheet_draw_page (cr, a, w, h);
-  sw_sheet_private_record_text (NULL);
+  sw_sheet_private_record_text (cr, NULL);
   cairo_destroy (cr);
   cairo_surface_destroy (surface);
   g_assert_cmpuint (boxes->len, >, 40);

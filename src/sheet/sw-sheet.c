@@ -867,10 +867,42 @@ check_surface (cairo_surface_t *surface, const char *filename, GError **error)
   return FALSE;
 }
 
+/* cairo's SVG surface draws text as glyph outlines: the sheet's texts,
+ * collected as <text> elements while drawing, go in before the end. */
+static gboolean
+add_svg_texts (const char *tmp, const char *filename, const GString *texts, GError **error)
+{
+  g_autofree char *data = NULL;
+  g_autoptr (GError) local = NULL;
+  GString *out;
+  char *end;
+  gboolean ok;
+
+  if (!g_file_get_contents (tmp, &data, NULL, &local)
+      || (end = g_strrstr (data, "</svg>")) == NULL)
+    {
+      g_set_error (error, SW_ERROR, SW_ERROR_IO, _("Could not write %s: %s"), filename,
+                   local != NULL ? local->message : _("the SVG is incomplete"));
+      return FALSE;
+    }
+  out = g_string_new_len (data, end - data);
+  g_string_append (out, "<g id=\"text\">\n");
+  g_string_append_len (out, texts->str, texts->len);
+  g_string_append (out, "</g>\n");
+  g_string_append (out, end);
+  ok = g_file_set_contents (tmp, out->str, (gssize) out->len, &local);
+  g_string_free (out, TRUE);
+  if (!ok)
+    g_set_error (error, SW_ERROR, SW_ERROR_IO, _("Could not write %s: %s"), filename,
+                 local->message);
+  return ok;
+}
+
 gboolean
 sw_sheet_export (const SwAnalysis *b, SwSheetFormat format, SwPaper paper, const char *filename,
                  GError **error)
 {
+  g_autoptr (GString) svg_texts = NULL;
   g_autofree char *tmp = NULL;
   cairo_surface_t *surface;
   cairo_t *cr;
@@ -879,6 +911,7 @@ sw_sheet_export (const SwAnalysis *b, SwSheetFormat format, SwPaper paper, const
 
   g_return_val_if_fail (b != NULL && filename != NULL, FALSE);
 
+  svg_texts = g_string_new (NULL);
   sw_sheet_paper_size (paper, &w, &h);
   /* Written beside the target and renamed: never a half-written sheet. */
   tmp = g_strdup_printf ("%s.part", filename);
@@ -918,6 +951,8 @@ sw_sheet_export (const SwAnalysis *b, SwSheetFormat format, SwPaper paper, const
       return FALSE;
     }
 
+  if (format == SW_SHEET_SVG)
+    sw_sheet_svg_text_begin (cr, svg_texts);
   sw_sheet_draw_page (cr, b, w, h);
   cairo_show_page (cr);
   ok = cairo_status (cr) == CAIRO_STATUS_SUCCESS;
@@ -937,6 +972,8 @@ sw_sheet_export (const SwAnalysis *b, SwSheetFormat format, SwPaper paper, const
   cairo_surface_finish (surface);
   ok = ok && check_surface (surface, filename, error);
   cairo_surface_destroy (surface);
+  if (ok && format == SW_SHEET_SVG)
+    ok = add_svg_texts (tmp, filename, svg_texts, error);
   if (!ok)
     {
       g_unlink (tmp);
