@@ -438,13 +438,15 @@ draw_totals (const Page *p, const SwAnalysis *a, double x, double y, double w, d
 
   ADD_ROW (_("Payload"), sw_format_mass (s->payload_kg),
            c ? delta_text (&c->totals[SW_TOTAL_PAYLOAD], TRUE, FALSE) : NULL, INK);
-  ADD_ROW (_("Payload fraction"), sw_format_percent (s->payload_fraction, 2),
-           c && isfinite (c->totals[SW_TOTAL_PAYLOAD_FRACTION].delta)
+  {
+    g_autofree char *pp = c != NULL
+                            ? sw_format_signed (100.0 * c->totals[SW_TOTAL_PAYLOAD_FRACTION].delta,
+                                                2)
+                            : NULL;
+    ADD_ROW (_("Payload fraction"), sw_format_percent (s->payload_fraction, 2),
              /* Translators: a change in percentage points */
-             ? g_strdup_printf (_("%s points"),
-                                sw_format_signed (100.0 * c->totals[SW_TOTAL_PAYLOAD_FRACTION].delta, 2))
-             : c ? g_strdup (SW_NO_VALUE) : NULL,
-           INK);
+             c != NULL ? g_strdup_printf (_("%s points"), pp) : NULL, INK);
+  }
   ADD_ROW (_("Propellant"), sw_format_mass (sw_sizing_total (s, SW_TOTAL_PROPELLANT)),
            c ? delta_text (&c->totals[SW_TOTAL_PROPELLANT], TRUE, FALSE) : NULL, INK);
   ADD_ROW (_("Structure"), sw_format_mass (sw_sizing_total (s, SW_TOTAL_STRUCTURE)),
@@ -598,7 +600,8 @@ draw_stage_table (const Page *p, const SwAnalysis *a, double y)
           continue;
         }
       x = p->x + right[c] * p->w;
-      st.width = c == 0 ? right[0] * p->w : (right[c] - (c == 2 ? 0.26 : right[c - 1])) * p->w - 3.0;
+      st.width = c == 0 ? right[0] * p->w
+                        : (right[c] - (c == 2 ? 0.26 : right[c - 1])) * p->w - 3.0;
       st.align = PANGO_ALIGN_RIGHT;
       st.ellipsize = TRUE;
       text_at (cr, heads[c], x - st.width, yy, &st);

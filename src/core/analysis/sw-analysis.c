@@ -211,7 +211,8 @@ limits_broken (const SwAnalysis *r)
 
   if (isfinite (tw) && tw < o->min_thrust_to_weight)
     {
-      g_autofree char *v = sw_format_ratio (tw, 2), *l = sw_format_ratio (o->min_thrust_to_weight, 2);
+      g_autofree char *v = sw_format_ratio (tw, 2);
+      g_autofree char *l = sw_format_ratio (o->min_thrust_to_weight, 2);
       g_string_append_printf (s, _("Thrust-to-weight at liftoff is %s, below your limit of %s."),
                               v, l);
     }
