@@ -502,6 +502,7 @@ draw_totals (const Page *p, const SwAnalysis *a, double x, double y, double w, d
       ADD_ROW (_("Payload fits, no reserve"),
                sw_format_probability (a->montecarlo_success), NULL,
                a->montecarlo_success >= 0.95 ? GOOD : INK);
+      /* xgettext:no-c-format */
       ADD_ROW (_("Reserve for a 95 % chance"), sw_format_mass (a->montecarlo.reserve_95_kg),
                NULL, INK);
     }
