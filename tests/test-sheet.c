@@ -247,6 +247,39 @@ test_csv (void)
   g_assert_null (strstr (curve, "nan"));
 }
 
+/* A first stage too weak to lift off: the sheet says so in the totals
+ * (thrust 20 kN against a vehicle of some tonnes: T/W well below 1). */
+static void
+test_thrust_to_weight_warning (void)
+{
+  static const char design[] =
+    "{ \"format\": \"stagewright-design\", \"version\": 1, \"name\": \"Weak\","
+    "  \"payload_kg\": 150, \"mission\": { \"delta_v_m_s\": 9600 }, \"split\": \"optimal\","
+    "  \"stages\": [ { \"name\": \"One\", \"isp_vac_s\": 275, \"isp_sl_s\": 245,"
+    "                  \"structural_coefficient\": 0.10, \"thrust_vac_kn\": 20,"
+    "                  \"diameter_m\": 1.2 },"
+    "                { \"name\": \"Two\", \"isp_vac_s\": 290, \"structural_coefficient\": 0.12,"
+    "                  \"thrust_vac_kn\": 12 } ] }";
+  g_autoptr (GError) error = NULL;
+  g_autoptr (SwDesign) d = sw_design_load_data (design, -1, "weak.stagewright", NULL, &error);
+  g_autoptr (SwAnalysis) a = NULL;
+  g_autofree char *pdf = g_build_filename (tmpdir, "weak.pdf", NULL);
+  g_autofree char *text = NULL;
+
+  g_assert_no_error (error);
+  a = sw_analysis_run (d, NULL, NULL);
+  g_assert_cmpint (a->verdict.state, ==, SW_VERDICT_OVER_LIMIT);
+  g_assert_true (sw_sheet_export (a, SW_SHEET_PDF, SW_PAPER_A4, pdf, &error));
+  g_assert_no_error (error);
+  text = run_tool ((const char *[]) { "pdftotext", "-layout", pdf, "-", NULL });
+  g_assert_nonnull (strstr (text, "Reaches the orbit, but breaks a limit"));
+  g_assert_nonnull (strstr (text, "Thrust-to-weight at liftoff"));
+  g_assert_nonnull (strstr (text, "below the limit of 1.20"));
+  /* No performance margin without a simulation: the headroom is named. */
+  g_assert_nonnull (strstr (text, "Headroom to the stages"));
+  g_assert_null (strstr (text, "Simulated \316\224v margin"));
+}
+
 static void
 box_clear (gpointer p)
 {
@@ -340,6 +373,7 @@ main (int argc, char **argv)
   g_test_add_func ("/sheet/svg-well-formed", test_svg_well_formed);
   g_test_add_func ("/sheet/csv", test_csv);
   g_test_add_func ("/sheet/no-overlap", test_no_overlap);
+  g_test_add_func ("/sheet/thrust-to-weight-warning", test_thrust_to_weight_warning);
   status = g_test_run ();
   remove_tree (tmpdir);
   g_free (tmpdir);
