@@ -115,6 +115,54 @@ test_export_flies_nothing (void)
   g_rmdir (dir);
 }
 
+/* Export asked for while the window's ascent is still being simulated: the
+ * dialog waits for the window's next analysis and flies nothing itself. */
+static void
+test_dialog_waits_for_ascent (void)
+{
+  g_autoptr (SwDesign) d = demo ("small-sat-launcher.stagewright");
+  g_autoptr (SwAnalysis) fast = sw_analysis_new (d, 1, NULL, NULL);
+  g_autoptr (SwAnalysis) flown = NULL;
+  g_autofree char *dir = g_dir_make_tmp ("sw-wait-XXXXXX", NULL);
+  g_autofree char *pdf = g_build_filename (dir, "sheet.pdf", NULL);
+  g_autofree char *text = NULL;
+  SwExportDialog *dialog;
+  gboolean failed = TRUE;
+  guint before, timeout;
+
+  g_assert_true (fast->ascent_pending);
+  dialog = sw_export_dialog_new (NULL, fast, NULL);
+  sw_export_dialog_set_targets (dialog, SW_SHEET_PDF, SW_PAPER_A4, pdf, NULL);
+  before = sw_ascent_private_design_runs ();
+  sw_export_dialog_export (dialog);
+  g_assert_true (sw_export_dialog_is_busy (dialog));
+  g_assert_cmpstr (sw_export_dialog_get_status (dialog, NULL), ==,
+                   "Waiting for the simulated ascent\u2026");
+  g_assert_false (g_file_test (pdf, G_FILE_TEST_EXISTS));
+
+  /* What the solver would deliver next (flown here, by the test). */
+  flown = sw_analysis_add_ascent (fast, NULL);
+  before += 1;
+  g_assert_cmpuint (sw_ascent_private_design_runs (), ==, before);
+  sw_export_dialog_set_result (dialog, flown);
+  timeout = g_timeout_add_seconds (60, timeout_cb, (gpointer) "the waiting export");
+  while (sw_export_dialog_is_busy (dialog))
+    g_main_context_iteration (NULL, TRUE);
+  g_source_remove (timeout);
+  g_assert_nonnull (sw_export_dialog_get_status (dialog, &failed));
+  g_assert_false (failed);
+  g_assert_cmpuint (sw_ascent_private_design_runs (), ==, before);
+  {
+    const char *pt[] = { "pdftotext", pdf, "-", NULL };
+    g_assert_true (g_spawn_sync (NULL, (char **) pt, NULL, G_SPAWN_SEARCH_PATH, NULL, NULL,
+                                 &text, NULL, NULL, NULL));
+  }
+  g_assert_nonnull (strstr (text, "Does not reach the orbit"));
+  gtk_window_destroy (GTK_WINDOW (dialog));
+  g_remove (pdf);
+  g_rmdir (dir);
+}
+
 /* The CSV's "total" row: liftoff mass is the 10th field. */
 static double
 csv_liftoff (const char *text)
@@ -275,6 +323,7 @@ main (int argc, char **argv)
   gtk_test_init (&argc, &argv, NULL);
   g_test_add_func ("/export/totals-verdict", test_totals_verdict);
   g_test_add_func ("/export/flies-nothing", test_export_flies_nothing);
+  g_test_add_func ("/export/dialog-waits-for-ascent", test_dialog_waits_for_ascent);
   g_test_add_func ("/export/same-numbers", test_same_numbers);
   return g_test_run ();
 }
