@@ -632,7 +632,7 @@ draw_stage_table (const Page *p, const SwAnalysis *a, double y)
       cells[7] = mass_in (r->propellant_mass_kg, tonnes);
       cells[8] = mass_in (r->structural_mass_kg, tonnes);
       cells[9] = mass_in (r->initial_mass_kg, tonnes);
-      cells[10] = rel ? sw_format_probability (a->reliability.stage[i]) : NULL;
+      cells[10] = rel ? sw_format_percent (a->reliability.stage[i], 2) : NULL;
       for (guint c = 0; c < ncol; c++)
         {
           TextStyle st = cell;
