@@ -91,7 +91,7 @@ test_pdf_text (void)
   g_assert_false (g_file_test (part, G_FILE_TEST_EXISTS));
 
   /* The liftoff mass as the core computes it, straight from the sizing. */
-  g_assert_true (sw_design_size (b->design, &s, NULL));
+  g_assert_true (sw_size_design (b->design, &s, NULL));
   mass = grouped (s.liftoff_mass_kg);
   expect = g_strdup_printf ("Liftoff mass %s kg", mass);
   text = run_tool ((const char *[]) { "pdftotext", "-layout", pdf, "-", NULL });

@@ -5,6 +5,7 @@
 #include "config.h"
 
 #include "sw-cli.h"
+#include "sw-install-paths.h"
 
 #include "sw-format.h"
 
@@ -236,9 +237,12 @@ usage (FILE *out)
 int
 main (int argc, char **argv)
 {
+  g_autofree char *localedir = sw_install_locale_dir ();
+
   setlocale (LC_ALL, "");
-  bindtextdomain (GETTEXT_PACKAGE, LOCALEDIR);
+  bindtextdomain (GETTEXT_PACKAGE, localedir);
   bind_textdomain_codeset (GETTEXT_PACKAGE, "UTF-8");
+  textdomain (GETTEXT_PACKAGE);
   /* Numbers in tables and JSON use the C conventions whatever the locale. */
   setlocale (LC_NUMERIC, "C");
   /* GSL reports numerical trouble through status codes, never abort(). */

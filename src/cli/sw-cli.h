@@ -53,7 +53,9 @@ void      sw_cli_print_verdict (const SwAnalysis *a);
 /* A text cell of a table: at most @width characters (not bytes, so a name
  * is never cut inside a character), padded with spaces to @width. */
 char     *sw_cli_cell (const char *text, guint width);
-/* A bundled demo design: the source tree first, then the installed copy. */
+/* The cautions printed under every report. */
+extern const char *sw_cli_caution;
+/* A bundled demo design, under the install prefix (SW_DESIGNS_DIR overrides). */
 char     *sw_cli_find_demo (const char *basename);
 
 int sw_cli_size (int argc, char **argv);

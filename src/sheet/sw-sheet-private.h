@@ -42,6 +42,9 @@ typedef struct {
 
 void         sw_sheet_set_color (cairo_t *cr, guint32 hex, double alpha);
 PangoLayout *sw_sheet_layout (cairo_t *cr, const char *text, const TextStyle *st);
+/* Draws @layout with its top left at @x, @y in the source colour: every text
+ * of the sheet (and of the shared stack drawing) goes through here. */
+void         sw_sheet_show_layout (cairo_t *cr, PangoLayout *layout, double x, double y);
 /* Draws @text with its top at @y; returns its height. */
 double       sw_sheet_text_at (cairo_t *cr, const char *text, double x, double y,
                                const TextStyle *st);

@@ -101,8 +101,8 @@ svg_text (cairo_t *cr, GString *out, PangoLayout *layout, double x, double y)
 }
 
 /* Every text of the sheet goes through here. */
-static void
-show_layout (cairo_t *cr, PangoLayout *layout, double x, double y)
+void
+sw_sheet_show_layout (cairo_t *cr, PangoLayout *layout, double x, double y)
 {
   GArray *boxes = cairo_get_user_data (cr, &record_key);
   GString *svg = cairo_get_user_data (cr, &svg_key);
@@ -167,7 +167,7 @@ sw_sheet_text_at (cairo_t *cr, const char *text, double x, double y, const TextS
 
   pango_layout_get_size (layout, &w, &h);
   sw_sheet_set_color (cr, st->color, 1.0);
-  show_layout (cr, layout, x, y);
+  sw_sheet_show_layout (cr, layout, x, y);
   g_object_unref (layout);
   return (double) h / PANGO_SCALE;
 }
@@ -181,7 +181,7 @@ sw_sheet_text_centered_v (cairo_t *cr, const char *text, double x, double cy, co
 
   pango_layout_get_size (layout, &w, &h);
   sw_sheet_set_color (cr, st->color, 1.0);
-  show_layout (cr, layout, x, cy - (double) h / PANGO_SCALE / 2.0);
+  sw_sheet_show_layout (cr, layout, x, cy - (double) h / PANGO_SCALE / 2.0);
   g_object_unref (layout);
 }
 
@@ -234,6 +234,6 @@ sw_sheet_note_in_box (cairo_t *cr, const char *text, double x, double y, double 
   layout = sw_sheet_layout (cr, text, &st);
   pango_layout_get_size (layout, &lw, &lh);
   sw_sheet_set_color (cr, MUTED, 1.0);
-  show_layout (cr, layout, x + 8, y + (h - (double) lh / PANGO_SCALE) / 2.0);
+  sw_sheet_show_layout (cr, layout, x + 8, y + (h - (double) lh / PANGO_SCALE) / 2.0);
   g_object_unref (layout);
 }

@@ -363,7 +363,7 @@ prepare_trade (SwAnalysis *r)
     r->has_sensitivity = sw_sensitivity_compute (design, r->sensitivity_step, &r->sensitivity,
                                                  NULL)
                          && r->sensitivity.feasible;
-  sw_design_reliability (design, &r->reliability);
+  sw_reliability_from_design (design, &r->reliability);
   sw_reliability_curve_compute (design, SW_MAX_STAGES, &r->reliability_curve);
 
   r->has_baseline = design->baseline != NULL;
@@ -372,7 +372,7 @@ prepare_trade (SwAnalysis *r)
       double dv;
 
       r->baseline_ok = sw_design_required_delta_v (design->baseline, &dv, &error)
-                       && sw_design_size (design->baseline, &r->baseline_sizing, &error);
+                       && sw_size_design (design->baseline, &r->baseline_sizing, &error);
       sw_reliability_curve_compute (design->baseline, SW_MAX_STAGES,
                                     &r->baseline_reliability_curve);
       if (r->baseline_ok)
@@ -411,7 +411,7 @@ sw_analysis_new (const SwDesign *design, guint64 serial, const SwAnalysisOptions
 
   if (!sw_design_validate (design, NULL, &error)
       || !sw_design_required_delta_v (design, &r->delta_v_m_s, &error)
-      || !sw_design_size (design, &r->sizing, &error))
+      || !sw_size_design (design, &r->sizing, &error))
     {
       r->ok = FALSE;
       g_strlcpy (r->error_message, error->message, sizeof r->error_message);
@@ -497,7 +497,7 @@ sw_analysis_add_ascent (const SwAnalysis *prev, GCancellable *cancellable)
 
   g_return_val_if_fail (prev != NULL && prev->ok && prev->ascent_pending, NULL);
 
-  ascent = sw_design_ascent (prev->design, cancellable, &error);
+  ascent = sw_ascent_fly_design (prev->design, cancellable, &error);
   if (g_cancellable_is_cancelled (cancellable))
     {
       g_clear_pointer (&ascent, sw_ascent_result_free);
@@ -563,32 +563,4 @@ sw_analysis_run (const SwDesign *design, const SwAnalysisOptions *options,
       r = next;
     }
   return g_steal_pointer (&r);
-}
-
-void
-sw_analysis_apply_shares (const SwAnalysis *result, SwDesign *design)
-{
-  guint n;
-  double sum = 0.0;
-  gboolean usable;
-
-  g_return_if_fail (design != NULL && design->n_stages > 0);
-
-  n = design->n_stages;
-  usable = result != NULL && result->ok && result->sizing.n_stages == n
-           && result->sizing.delta_v_m_s > 0.0;
-  for (guint i = 0; usable && i < n; i++)
-    {
-      double share = result->sizing.stages[i].delta_v_share;
-      usable = isfinite (share) && share >= 0.0;
-      sum += usable ? share : 0.0;
-    }
-  usable = usable && sum > 0.5;
-  for (guint i = 0; i < n; i++)
-    {
-      design->stages[i].delta_v_share = usable ? result->sizing.stages[i].delta_v_share / sum
-                                               : 1.0 / n;
-      design->stages[i].has_share = TRUE;
-    }
-  design->split = SW_SPLIT_MANUAL;
 }

@@ -166,11 +166,6 @@ SwAnalysis *sw_analysis_copy (const SwAnalysis *analysis);
 SwAnalysis *sw_analysis_ref (SwAnalysis *analysis);
 void        sw_analysis_unref (SwAnalysis *analysis);
 
-/* Switches @design to the manual split, with the shares @result gave its
- * stages (equal shares when @result does not fit @design).  Used when the
- * user takes hold of a share in the equal or optimal split. */
-void      sw_analysis_apply_shares (const SwAnalysis *result, SwDesign *design);
-
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (SwAnalysis, sw_analysis_unref)
 
 G_END_DECLS

@@ -62,7 +62,7 @@ pass (Loop *lp, double L)
     }
   lp->work->mission.losses_m_s = L;
   lp->work->mission.has_losses = TRUE;
-  if (!sw_design_size (lp->work, &sizing, lp->error))
+  if (!sw_size_design (lp->work, &sizing, lp->error))
     {
       lp->aborted = TRUE;
       return NAN;
@@ -293,7 +293,7 @@ sw_ascent_private_design_runs (void)
 }
 
 SwAscentResult *
-sw_design_ascent (const SwDesign *design, GCancellable *cancellable, GError **error)
+sw_ascent_fly_design (const SwDesign *design, GCancellable *cancellable, GError **error)
 {
   g_return_val_if_fail (design != NULL, NULL);
 
