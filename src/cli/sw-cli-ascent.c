@@ -282,9 +282,11 @@ print_ascent (const SwDesign *d, const SwAscentResult *r)
   }
   if (r->closed_loop)
     {
-      g_print (_("Loss model: simulate (closed loop, %s after %u pass%s; losses sized:"),
-               r->loop_converged ? "converged" : "NOT converged", r->loop_iterations,
-               r->loop_iterations == 1 ? "" : "es");
+      g_print (g_dngettext (GETTEXT_PACKAGE,
+                            "Loss model: simulate (closed loop, %s after %u pass; losses sized:",
+                            "Loss model: simulate (closed loop, %s after %u passes; losses sized:",
+                            r->loop_iterations),
+               r->loop_converged ? _("converged") : _("NOT converged"), r->loop_iterations);
       for (guint i = 0; i < r->loop_iterations; i++)
         g_print (" %s", sw_cli_num (r->loop_losses_m_s[i], 1));
       g_print (" m/s)\n");

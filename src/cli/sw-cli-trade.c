@@ -482,7 +482,11 @@ sw_cli_reliability (int argc, char **argv)
   g_print (_("Against stage count (with more stages than the design's %u, the top stage is "
              "repeated):\n"), d->n_stages);
   for (guint n = 0; n < curve.n_points; n++)
-    g_print (_("  %u stage%s  %s\n"), n + 1, n == 0 ? " " : "s", sw_cli_num (curve.mission[n], 6));
+    {
+      g_autofree char *count = g_strdup_printf (g_dngettext (GETTEXT_PACKAGE, "%u stage",
+                                                             "%u stages", n + 1), n + 1);
+      g_print ("  %-10s %s\n", count, sw_cli_num (curve.mission[n], 6));
+    }
   g_print ("\n%s\n", sw_format_cautions ());
   return SW_EXIT_OK;
 }
