@@ -11,6 +11,7 @@
 
 #include "sw-ascent.h"
 #include "sw-atmosphere.h"
+#include "sw-curves.h"
 #include "sw-design.h"
 #include "sw-montecarlo.h"
 #include "sw-reliability.h"
@@ -496,6 +497,226 @@ test_atmosphere_values (void)
   run_clear (&run);
 }
 
+/* ---- CSV export -------------------------------------------------------------- */
+
+/* A CSV file written by `export --csv`: the caution line, a header, rows.
+ * Cells are looked up by the header's column names. */
+typedef struct {
+  char     **header;
+  GPtrArray *rows;        /* of GStrv */
+} Csv;
+
+static void
+csv_clear (Csv *c)
+{
+  g_strfreev (c->header);
+  g_ptr_array_unref (c->rows);
+}
+
+/* Splits one line at commas outside double quotes (RFC 4180). */
+static char **
+csv_split (const char *line)
+{
+  GPtrArray *cells = g_ptr_array_new ();
+  GString *cell = g_string_new (NULL);
+  gboolean quoted = FALSE;
+
+  for (const char *p = line;; p++)
+    {
+      if (*p == '"' && quoted && p[1] == '"')
+        g_string_append_c (cell, *p++);
+      else if (*p == '"')
+        quoted = !quoted;
+      else if ((*p == ',' && !quoted) || *p == '\0')
+        {
+          g_ptr_array_add (cells, g_strdup (cell->str));
+          g_string_truncate (cell, 0);
+          if (*p == '\0')
+            break;
+        }
+      else
+        g_string_append_c (cell, *p);
+    }
+  g_string_free (cell, TRUE);
+  g_ptr_array_add (cells, NULL);
+  return (char **) g_ptr_array_free (cells, FALSE);
+}
+
+static void
+csv_read (Csv *c, const char *dir, const char *name)
+{
+  g_autofree char *path = g_build_filename (dir, name, NULL);
+  g_autofree char *text = NULL;
+  g_auto (GStrv) lines = NULL;
+
+  if (!g_file_get_contents (path, &text, NULL, NULL))
+    g_error ("%s was not written", name);
+  lines = g_strsplit (text, "\n", -1);
+  /* The cautions first (every export carries them). */
+  g_assert_true (g_str_has_prefix (lines[0], "# "));
+  g_assert_nonnull (strstr (lines[0], "not for flight hardware"));
+  c->header = csv_split (lines[1]);
+  c->rows = g_ptr_array_new_with_free_func ((GDestroyNotify) g_strfreev);
+  for (guint i = 2; lines[i] != NULL; i++)
+    if (lines[i][0] != '\0')
+      {
+        char **row = csv_split (lines[i]);
+        g_assert_cmpuint (g_strv_length (row), ==, g_strv_length (c->header));
+        g_ptr_array_add (c->rows, row);
+      }
+}
+
+static const char *
+cell (const Csv *c, guint row, const char *column)
+{
+  g_assert_cmpuint (row, <, c->rows->len);
+  for (guint k = 0; c->header[k] != NULL; k++)
+    if (strcmp (c->header[k], column) == 0)
+      return ((char **) c->rows->pdata[row])[k];
+  g_error ("no column %s", column);
+}
+
+/* The CSV prints 10 significant figures: half a unit of the tenth is at most
+ * 5e-10 relative.  An empty cell stands for "no value" (NAN). */
+static void
+check_cell (const Csv *c, guint row, const char *column, double core)
+{
+  const char *text = cell (c, row, column);
+  double v;
+
+  if (isnan (core))
+    {
+      if (text[0] != '\0')
+        g_error ("row %u, %s: the core has no value, the CSV shows %s", row, column, text);
+      return;
+    }
+  if (text[0] == '\0')
+    g_error ("row %u, %s: empty, the core has %.10g", row, column, core);
+  v = g_ascii_strtod (text, NULL);
+  if (!(fabs (v - core) <= 5e-10 * fabs (core) + 1e-300))
+    g_error ("row %u, %s: CSV %s, core %.17g", row, column, text, core);
+}
+
+static void
+test_csv_values (void)
+{
+  g_autofree char *path = demo ("kestrel-upgrade-study.stagewright");
+  g_autofree char *dir = g_dir_make_tmp ("sw-cli-csv-XXXXXX", NULL);
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
+  g_autofree SwSweep *sweep = g_new0 (SwSweep, 1);
+  const char *const files[] = { "stages.csv", "stage-count.csv", "delta-v-sweep.csv",
+                                "sensitivity.csv", "reliability.csv" };
+  SwSizing s;
+  SwStageCurve curve, base;
+  SwReliability rel;
+  SwReliabilityCurve relc;
+  SwSensitivityTable t;
+  double dv;
+  Csv c;
+  Run run;
+
+  g_assert_nonnull (d);
+  g_assert_nonnull (d->baseline);
+  g_assert_true (sw_design_size (d, &s, NULL));
+  g_assert_true (s.feasible);
+  g_assert_true (sw_design_required_delta_v (d, &dv, NULL));
+  sw_stage_curve_compute (d, dv, SW_MAX_STAGES, &curve);
+  {
+    /* The baseline's curve is for the baseline's own mission. */
+    double base_dv;
+    g_assert_true (sw_design_required_delta_v (d->baseline, &base_dv, NULL));
+    sw_stage_curve_compute (d->baseline, base_dv, SW_MAX_STAGES, &base);
+  }
+  sw_sweep_compute (d, SW_SWEEP_CURVES, SW_SWEEP_POINTS, sweep);
+  sw_design_reliability (d, &rel);
+  sw_reliability_curve_compute (d, SW_MAX_STAGES, &relc);
+  g_assert_true (sw_sensitivity_compute (d, SW_SENSITIVITY_DEFAULT_STEP, &t, NULL));
+
+  run_cli (&run, "export", "--csv", dir, "--no-montecarlo", path, NULL);
+  g_assert_cmpint (run.code, ==, 0);
+  run_clear (&run);
+
+  csv_read (&c, dir, "stages.csv");
+  g_assert_cmpuint (c.rows->len, ==, d->n_stages + 1);       /* and the total */
+  for (guint i = 0; i < d->n_stages; i++)
+    {
+      const SwStageResult *r = &s.stages[i];
+      g_assert_cmpstr (cell (&c, i, "name"), ==, d->stages[i].name);
+      check_cell (&c, i, "isp_vac_s", d->stages[i].isp_vac_s);
+      check_cell (&c, i, "structural_coefficient", d->stages[i].structural_coefficient);
+      check_cell (&c, i, "delta_v_m_s", r->delta_v_m_s);
+      check_cell (&c, i, "delta_v_share", r->delta_v_share);
+      check_cell (&c, i, "mass_ratio", r->mass_ratio);
+      check_cell (&c, i, "propellant_mass_kg", r->propellant_mass_kg);
+      check_cell (&c, i, "structural_mass_kg", r->structural_mass_kg);
+      check_cell (&c, i, "initial_mass_kg", r->initial_mass_kg);
+      check_cell (&c, i, "burnout_mass_kg", r->burnout_mass_kg);
+      check_cell (&c, i, "stage_success", rel.stage[i]);
+    }
+  g_assert_cmpstr (cell (&c, d->n_stages, "stage"), ==, "total");
+  check_cell (&c, d->n_stages, "delta_v_m_s", s.delta_v_m_s);
+  check_cell (&c, d->n_stages, "initial_mass_kg", s.liftoff_mass_kg);
+  check_cell (&c, d->n_stages, "stage_success", rel.mission);
+  csv_clear (&c);
+
+  csv_read (&c, dir, "stage-count.csv");
+  g_assert_cmpuint (c.rows->len, ==, curve.n_points);
+  for (guint i = 0; i < curve.n_points; i++)
+    {
+      g_assert_cmpint (atoi (cell (&c, i, "stages")), ==, i + 1);
+      g_assert_cmpstr (cell (&c, i, "feasible"), ==, curve.points[i].feasible ? "true" : "false");
+      check_cell (&c, i, "liftoff_mass_kg", curve.points[i].liftoff_mass_kg);
+      check_cell (&c, i, "delta_v_limit_m_s", curve.points[i].delta_v_limit_m_s);
+      check_cell (&c, i, "baseline_liftoff_mass_kg", base.points[i].liftoff_mass_kg);
+      check_cell (&c, i, "mission_success", relc.mission[i]);
+      /* No Monte Carlo asked for: no band. */
+      check_cell (&c, i, "liftoff_mass_p50_kg", NAN);
+    }
+  csv_clear (&c);
+
+  csv_read (&c, dir, "delta-v-sweep.csv");
+  {
+    guint row = 0;
+    for (guint k = 0; k < sweep->n_curves; k++)
+      for (guint j = 0; j < sweep->curves[k].n_points; j++, row++)
+        {
+          g_assert_cmpint (atoi (cell (&c, row, "stages")), ==, sweep->curves[k].stages);
+          check_cell (&c, row, "delta_v_m_s", sweep->curves[k].delta_v_m_s[j]);
+          check_cell (&c, row, "liftoff_mass_kg", sweep->curves[k].liftoff_mass_kg[j]);
+        }
+    g_assert_cmpuint (c.rows->len, ==, row);
+  }
+  csv_clear (&c);
+
+  csv_read (&c, dir, "sensitivity.csv");
+  g_assert_cmpuint (c.rows->len, ==, t.n_items);
+  for (guint r = 0; r < t.n_items; r++)
+    {
+      const SwSensitivity *it = &t.items[t.ranked[r]];
+      g_assert_cmpint (atoi (cell (&c, r, "rank")), ==, r + 1);
+      g_assert_cmpstr (cell (&c, r, "parameter"), ==, sw_sens_param_to_string (it->param));
+      check_cell (&c, r, "value", it->value);
+      check_cell (&c, r, "derivative_kg_per_unit", it->derivative);
+      check_cell (&c, r, "elasticity", it->elasticity);
+      check_cell (&c, r, "minus_step_kg", it->minus_kg);
+      check_cell (&c, r, "plus_step_kg", it->plus_kg);
+    }
+  csv_clear (&c);
+
+  csv_read (&c, dir, "reliability.csv");
+  g_assert_cmpuint (c.rows->len, ==, relc.n_points);
+  for (guint i = 0; i < relc.n_points; i++)
+    check_cell (&c, i, "mission_success", relc.mission[i]);
+  csv_clear (&c);
+
+  for (guint i = 0; i < G_N_ELEMENTS (files); i++)
+    {
+      g_autofree char *f = g_build_filename (dir, files[i], NULL);
+      g_unlink (f);
+    }
+  g_rmdir (dir);
+}
+
 /* ---- translations ------------------------------------------------------------- */
 
 /* The CLI binds the translations (SW_LOCALE_DIR: the build tree's po/), so
@@ -545,6 +766,7 @@ main (int argc, char **argv)
   g_test_add_func ("/cli-values/reliability", test_reliability_values);
   g_test_add_func ("/cli-values/ascent", test_ascent_values);
   g_test_add_func ("/cli-values/atmosphere", test_atmosphere_values);
+  g_test_add_func ("/cli-values/csv", test_csv_values);
   g_test_add_func ("/cli-values/german-message", test_german_message);
   return g_test_run ();
 }
