@@ -717,6 +717,107 @@ test_csv_values (void)
   g_rmdir (dir);
 }
 
+/* ---- text reports ------------------------------------------------------------- */
+
+static void
+expect_line (const char *out, const char *line)
+{
+  g_autofree char *needle = g_strconcat ("\n", line, "\n", NULL);
+  g_autofree char *text = g_strconcat ("\n", out, NULL);
+
+  if (strstr (text, needle) == NULL)
+    {
+      g_printerr ("%s", out);
+      g_error ("no line \"%s\" in the output above", line);
+    }
+}
+
+/* The table's figures at 10 km, written out from the 1976 standard's table
+ * (reference-values.md, confirmed: 223.252 K, 0.41351 kg/m^3, 299.53 m/s),
+ * and the model named up to the layered part's top at exactly 86 km. */
+static void
+test_atmosphere_text (void)
+{
+  g_autoptr (JsonNode) keep = NULL;
+  JsonObject *o;
+  Run run;
+
+  run_cli (&run, "atmosphere", "10000", NULL);
+  g_assert_cmpint (run.code, ==, 0);
+  expect_line (run.out, "  temperature             223.252 K");
+  expect_line (run.out, "  density                 0.41351 kg/m^3");
+  expect_line (run.out, "  speed of sound           299.53 m/s");
+  expect_line (run.out, "Model: 1976 U.S. Standard Atmosphere (NOAA-S/T 76-1562)");
+  run_clear (&run);
+
+  run_cli (&run, "atmosphere", "--json", "86000", NULL);
+  g_assert_cmpint (run.code, ==, 0);
+  o = parse (run.out, &keep);
+  g_assert_cmpstr (json_object_get_string_member (o, "model"), ==,
+                   "1976 U.S. Standard Atmosphere");
+  run_clear (&run);
+  g_clear_pointer (&keep, json_node_unref);
+  run_cli (&run, "atmosphere", "--json", "86001", NULL);
+  g_assert_cmpint (run.code, ==, 0);
+  o = parse (run.out, &keep);
+  g_assert_nonnull (strstr (json_object_get_string_member (o, "model"), "above 86 km"));
+  run_clear (&run);
+}
+
+/* The Monte Carlo report: the spreads as the design file gives them (kestrel
+ * demo: Isp normal 1 %, structural coefficient uniform 6 %, losses normal
+ * 100 m/s), the share short of the payload in percent, and a spread of
+ * width zero reported as none. */
+static void
+test_montecarlo_text (void)
+{
+  g_autofree char *path = demo ("kestrel-upgrade-study.stagewright");
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
+  g_autofree char *margin = NULL;
+  SwMonteCarlo mc;
+  Run run;
+
+  g_assert_true (sw_montecarlo_run (d, NULL, 500, TRUE, 3, 2, &mc, NULL, NULL, NULL));
+  run_cli (&run, "montecarlo", "--samples", "500", "--seed", "3", "--threads", "2", path, NULL);
+  g_assert_cmpint (run.code, ==, 0);
+  expect_line (run.out, "Spreads: Isp normal, sigma 1 %; structural coefficient uniform, +- 6 %; "
+                        "losses normal, sigma 100 m/s");
+  margin = g_strdup_printf ("  required %.1f kg; probability of a negative margin %.1f %%",
+                            d->payload_kg, 100.0 * mc.p_negative_margin);
+  expect_line (run.out, margin);
+  run_clear (&run);
+
+  {
+    g_autofree char *dir = g_dir_make_tmp ("sw-cli-mc-XXXXXX", NULL);
+    g_autofree char *flat = g_build_filename (dir, "flat.stagewright", NULL);
+    static const char text[] =
+      "{ \"format\": \"stagewright-design\", \"version\": 1, \"name\": \"flat\",\n"
+      "  \"payload_kg\": 1000, \"mission\": { \"delta_v_m_s\": 9000 }, \"split\": \"optimal\",\n"
+      "  \"stages\": [ { \"isp_vac_s\": 320, \"structural_coefficient\": 0.07 },\n"
+      "    { \"isp_vac_s\": 345, \"structural_coefficient\": 0.09 } ],\n"
+      "  \"uncertainty\": { \"samples\": 200,\n"
+      "    \"isp_vac\": { \"distribution\": \"normal\", \"sigma_percent\": 0 } } }\n";
+    g_autoptr (GError) error = NULL;
+    g_autoptr (SwDesign) f = NULL;
+
+    g_assert_true (g_file_set_contents (flat, text, -1, NULL));
+    f = sw_design_load (flat, NULL, &error);
+    if (f != NULL)
+      {
+        run_cli (&run, "montecarlo", flat, NULL);
+        g_assert_cmpint (run.code, ==, 0);
+        expect_line (run.out, "Spreads: Isp none; structural coefficient none; losses none");
+        /* Nothing varies: nothing falls short. */
+        expect_line (run.out, "  required 1000.0 kg; probability of a negative margin 0.0 %");
+        run_clear (&run);
+      }
+    else
+      g_test_message ("a zero sigma is refused: %s", error->message);
+    g_unlink (flat);
+    g_rmdir (dir);
+  }
+}
+
 /* ---- translations ------------------------------------------------------------- */
 
 /* The CLI binds the translations (SW_LOCALE_DIR: the build tree's po/), so
@@ -767,6 +868,8 @@ main (int argc, char **argv)
   g_test_add_func ("/cli-values/ascent", test_ascent_values);
   g_test_add_func ("/cli-values/atmosphere", test_atmosphere_values);
   g_test_add_func ("/cli-values/csv", test_csv_values);
+  g_test_add_func ("/cli-values/atmosphere-text", test_atmosphere_text);
+  g_test_add_func ("/cli-values/montecarlo-text", test_montecarlo_text);
   g_test_add_func ("/cli-values/german-message", test_german_message);
   return g_test_run ();
 }
