@@ -135,7 +135,7 @@ test_transfer_orbit_reported (void)
   g_autoptr (GError) error = NULL;
 
   d->mission.altitude_km = 400.0;
-  r = sw_design_ascent (d, NULL, &error);
+  r = sw_ascent_fly_design (d, NULL, &error);
   g_assert_no_error (error);
   if (r->status != SW_ASCENT_REACHED)
     g_error ("transfer not reached: %s", r->reason);
@@ -153,7 +153,7 @@ test_shortfall_names_orbit (void)
   g_autoptr (GError) error = NULL;
   g_autofree char *missing = NULL;
 
-  r = sw_design_ascent (d, NULL, &error);
+  r = sw_ascent_fly_design (d, NULL, &error);
   g_assert_no_error (error);
   g_assert_cmpint (r->status, ==, SW_ASCENT_SHORT);
   g_assert_nonnull (strstr (r->reason, "the 200 km orbit"));

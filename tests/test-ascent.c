@@ -68,7 +68,7 @@ test_tsiolkovsky (void)
   double rocket = 0.0, v;
 
   options (&o, SW_GRAVITY_NONE, FALSE, FALSE, SW_STEERING_PROGRADE);
-  g_assert_true (sw_design_size (d, &s, &error));
+  g_assert_true (sw_size_design (d, &s, &error));
   for (guint i = 0; i < s.n_stages; i++)
     rocket += d->stages[i].isp_vac_s * G0
               * log (s.stages[i].initial_mass_kg / s.stages[i].burnout_mass_kg);
@@ -288,7 +288,7 @@ test_two_stage_losses (void)
   SwBudget b;
   double sum;
 
-  r = sw_design_ascent (d, NULL, &error);
+  r = sw_ascent_fly_design (d, NULL, &error);
   g_assert_no_error (error);
   if (r->status != SW_ASCENT_REACHED)
     g_error ("not reached: %s", r->reason);
@@ -366,7 +366,7 @@ test_allowance_shortfall (void)
   g_autoptr (SwAscentResult) r = NULL;
   g_autoptr (GError) error = NULL;
 
-  r = sw_design_ascent (d, NULL, &error);
+  r = sw_ascent_fly_design (d, NULL, &error);
   g_assert_no_error (error);
   g_assert_cmpint (r->status, ==, SW_ASCENT_SHORT);
   g_assert_false (r->reached_orbit);
@@ -399,9 +399,9 @@ test_transfer (void)
   double dv2 = sqrt (MU / r_2) * (1.0 - sqrt (2.0 * r_1 / (r_1 + r_2)));
 
   d1->mission.altitude_km = d2->mission.altitude_km = 400.0;
-  r1 = sw_design_ascent (d1, NULL, &error);
+  r1 = sw_ascent_fly_design (d1, NULL, &error);
   g_assert_no_error (error);
-  r2 = sw_design_ascent (d2, NULL, &error);
+  r2 = sw_ascent_fly_design (d2, NULL, &error);
   g_assert_no_error (error);
   g_assert_true (r1->status == SW_ASCENT_REACHED || r1->status == SW_ASCENT_SHORT);
   if (r2->status != SW_ASCENT_REACHED)
@@ -431,7 +431,7 @@ test_fixed_kick (void)
   g_autoptr (SwAscentResult) r = NULL;
   g_autoptr (GError) error = NULL;
 
-  r = sw_design_ascent (d, NULL, &error);
+  r = sw_ascent_fly_design (d, NULL, &error);
   g_assert_no_error (error);
   g_assert_cmpfloat (r->pitch_kick_deg, ==, 3.0);
   g_assert_false (r->pitch_kick_solved);
@@ -447,7 +447,7 @@ test_bad_propulsion (void)
   /* Thrust-to-weight below 1 at liftoff: an infeasible answer that says why. */
   {
     g_autoptr (SwDesign) d = load (TWO_STAGE ("1600", "allowance", "1200", "220", ""));
-    g_autoptr (SwAscentResult) r = sw_design_ascent (d, NULL, &error);
+    g_autoptr (SwAscentResult) r = sw_ascent_fly_design (d, NULL, &error);
     g_assert_no_error (error);
     g_assert_cmpint (r->status, ==, SW_ASCENT_NO_SOLUTION);
     g_assert_nonnull (strstr (r->reason, "cannot lift off"));
@@ -459,7 +459,7 @@ test_bad_propulsion (void)
   /* An upper stage far too weak: no orbit, and a reason. */
   {
     g_autoptr (SwDesign) d = load (TWO_STAGE ("1600", "allowance", "2100", "25", ""));
-    g_autoptr (SwAscentResult) r = sw_design_ascent (d, NULL, &error);
+    g_autoptr (SwAscentResult) r = sw_ascent_fly_design (d, NULL, &error);
     g_assert_no_error (error);
     g_assert_false (r->reached_orbit);
     g_assert_cmpint (r->status, !=, SW_ASCENT_REACHED);
@@ -468,7 +468,7 @@ test_bad_propulsion (void)
   /* The loop cannot close when the vehicle grows faster than its thrust. */
   {
     g_autoptr (SwDesign) d = load (TWO_STAGE ("1600", "simulate", "1750", "160", ""));
-    g_autoptr (SwAscentResult) r = sw_design_ascent (d, NULL, &error);
+    g_autoptr (SwAscentResult) r = sw_ascent_fly_design (d, NULL, &error);
     g_assert_no_error (error);
     g_assert_true (r->closed_loop);
     g_assert_false (r->loop_converged);
@@ -482,7 +482,7 @@ test_bad_propulsion (void)
       "  \"mission\": { \"orbit\": { \"altitude_km\": 300, \"inclination_deg\": 30,"
       "  \"site_latitude_deg\": 10 } }, \"split\": \"equal\","
       "  \"stages\": [ { \"isp_vac_s\": 300, \"structural_coefficient\": 0.1 } ] }");
-    g_assert_null (sw_design_ascent (d, NULL, &error));
+    g_assert_null (sw_ascent_fly_design (d, NULL, &error));
     g_assert_error (error, SW_ERROR, SW_ERROR_MISSING);
     g_assert_nonnull (strstr (error->message, "thrust_vac_kn"));
     g_assert_nonnull (strstr (error->message, "isp_sl_s"));
@@ -501,12 +501,12 @@ test_bad_propulsion (void)
   {
     g_autoptr (SwDesign) d = load (TWO_STAGE ("1600", "allowance", "2100", "220", ""));
     d->stages[0].propulsion.diameter_m = -3.0;
-    g_assert_null (sw_design_ascent (d, NULL, &error));
+    g_assert_null (sw_ascent_fly_design (d, NULL, &error));
     g_assert_nonnull (strstr (error->message, "stages[0].diameter_m"));
     g_clear_error (&error);
     d->stages[0].propulsion.diameter_m = 3.0;
     d->stages[1].propulsion.thrust_vac_kn = 0.0;
-    g_assert_null (sw_design_ascent (d, NULL, &error));
+    g_assert_null (sw_ascent_fly_design (d, NULL, &error));
     g_assert_nonnull (strstr (error->message, "stages[1].thrust_vac_kn"));
     g_clear_error (&error);
   }
@@ -514,7 +514,7 @@ test_bad_propulsion (void)
   {
     g_autoptr (SwDesign) d = load (TWO_STAGE ("1600", "allowance", "2100", "220", ""));
     d->mission.altitude_km = 5000.0;
-    g_assert_null (sw_design_ascent (d, NULL, &error));
+    g_assert_null (sw_ascent_fly_design (d, NULL, &error));
     g_assert_nonnull (strstr (error->message, "altitude_km"));
     g_clear_error (&error);
   }
@@ -528,7 +528,7 @@ test_cancel (void)
   g_autoptr (GError) error = NULL;
 
   g_cancellable_cancel (c);
-  g_assert_null (sw_design_ascent (d, c, &error));
+  g_assert_null (sw_ascent_fly_design (d, c, &error));
   g_assert_error (error, G_IO_ERROR, G_IO_ERROR_CANCELLED);
 }
 

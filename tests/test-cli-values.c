@@ -331,7 +331,7 @@ test_reliability_values (void)
   Run r;
 
   g_assert_nonnull (d);
-  sw_design_reliability (d, &rel);
+  sw_reliability_from_design (d, &rel);
   sw_reliability_curve_compute (d, SW_MAX_STAGES, &curve);
   g_assert_true (rel.given);
   run_cli (&r, "reliability", "--json", path, NULL);

@@ -133,7 +133,7 @@ test_stage_curve_other_splits (void)
           g_assert_cmpmem (&curve.points[n - 1], sizeof curve.points[0], &optimal.points[n - 1],
                            sizeof optimal.points[0]);
         }
-      g_assert_true (sw_design_size (d, &own, NULL));
+      g_assert_true (sw_size_design (d, &own, NULL));
       g_assert_true (own.feasible);
       /* Strictly lighter: these stages differ, so neither split is optimal. */
       g_assert_cmpfloat (curve.points[2].liftoff_mass_kg, <, own.liftoff_mass_kg);

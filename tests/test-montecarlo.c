@@ -77,7 +77,7 @@ test_mean_near_linear (void)
   small.isp.width = 0.05;
   small.structural_coefficient.width = 0.5;
   small.losses.width = 5.0;
-  g_assert_true (sw_design_size (d, &s, NULL));
+  g_assert_true (sw_size_design (d, &s, NULL));
   g_assert_true (sw_montecarlo_run (d, &small, 10000, TRUE, 4, 0, &mc, NULL, NULL, NULL));
   g_assert_cmpfloat (mc.infeasible_fraction, ==, 0.0);
 
@@ -114,7 +114,7 @@ test_sd_against_propagation (void)
   small.isp.width = 0.2;                       /* percent, normal sigma */
   small.structural_coefficient.width = 2.0;    /* percent, uniform half range */
   small.losses.width = 20.0;                   /* m/s, normal sigma */
-  g_assert_true (sw_design_size (d, &s, NULL));
+  g_assert_true (sw_size_design (d, &s, NULL));
   sw_stage_set_from_design (&set, d);
   sw_sensitivity_analytic (&set, &s, NULL, &d_dv, d_isp, d_eps);
   for (guint i = 0; i < d->n_stages; i++)
@@ -230,7 +230,7 @@ test_no_spread (void)
   SwSizing s;
 
   sw_uncertainty_init (&none);
-  g_assert_true (sw_design_size (d, &s, NULL));
+  g_assert_true (sw_size_design (d, &s, NULL));
   g_assert_true (sw_montecarlo_run (d, &none, 500, TRUE, 1, 2, &mc, NULL, NULL, NULL));
   g_assert_cmpfloat (fabs (mc.liftoff.mean / s.liftoff_mass_kg - 1.0), <, 1e-9);
   g_assert_cmpfloat (mc.liftoff.sd, <, 1e-6 * s.liftoff_mass_kg);

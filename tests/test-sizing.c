@@ -233,7 +233,7 @@ test_textbook_optimal (void)
   for (guint i = 0; i < 3; i++)
     assert_rel (set.exhaust_velocity_m_s[i], isp[i] * BOOK_G0, 1e-14);
 
-  g_assert_true (sw_design_size (d, &s, &error));
+  g_assert_true (sw_size_design (d, &s, &error));
   g_assert_no_error (error);
   g_assert_true (s.feasible);
   g_assert_cmpuint (s.n_unused, ==, 0);
@@ -690,7 +690,7 @@ check_unused (guint unused_index)
   d->stages[unused_index].isp_vac_s = poor_isp;
   d->stages[unused_index].structural_coefficient = poor_eps;
 
-  g_assert_true (sw_design_size (d, &s, NULL));
+  g_assert_true (sw_size_design (d, &s, NULL));
   g_assert_true (s.feasible);
   g_assert_cmpuint (s.n_unused, ==, 1);
   g_assert_true (s.stages[unused_index].unused);
@@ -829,7 +829,7 @@ test_infeasible_manual_share (void)
   d->stages[0].delta_v_share = 0.05;
   d->stages[1].delta_v_share = 0.9;
   d->stages[2].delta_v_share = 0.05;
-  g_assert_true (sw_design_size (d, &s, NULL));
+  g_assert_true (sw_size_design (d, &s, NULL));
   g_assert_false (s.feasible);
   g_assert_cmpint (s.infeasible_stage, ==, 1);
   g_assert_false (s.stages[1].feasible);
@@ -842,7 +842,7 @@ test_infeasible_manual_share (void)
 
   /* The same vehicle with the optimal split is feasible. */
   d->split = SW_SPLIT_OPTIMAL;
-  g_assert_true (sw_design_size (d, &s, NULL));
+  g_assert_true (sw_size_design (d, &s, NULL));
   g_assert_true (s.feasible);
   g_assert_cmpint (s.infeasible_stage, ==, -1);
 }
@@ -995,7 +995,7 @@ test_design_size (void)
 
   /* A delta-v mission sizes at its delta-v with its split. */
   d->split = SW_SPLIT_MANUAL;
-  g_assert_true (sw_design_size (d, &s, &error));
+  g_assert_true (sw_size_design (d, &s, &error));
   g_assert_no_error (error);
   sw_stage_set_from_design (&set, d);
   sw_size (&set, d->payload_kg, d->mission.delta_v_m_s, SW_SPLIT_MANUAL, &ref);
@@ -1011,21 +1011,21 @@ test_design_size (void)
   d->mission.has_losses = TRUE;
   d->split = SW_SPLIT_OPTIMAL;
   g_assert_true (sw_design_required_delta_v (d, &dv, &error));
-  g_assert_true (sw_design_size (d, &s, &error));
+  g_assert_true (sw_size_design (d, &s, &error));
   g_assert_no_error (error);
   g_assert_cmpfloat (s.delta_v_m_s, ==, dv);
   g_assert_cmpfloat (dv, >, 1400.0 + 7000.0);
 
   /* An unreachable orbit is an error, not a sizing. */
   d->mission.inclination_deg = 10.0;
-  g_assert_false (sw_design_size (d, &s, &error));
+  g_assert_false (sw_size_design (d, &s, &error));
   g_assert_error (error, SW_ERROR, SW_ERROR_VALUE);
   g_clear_error (&error);
 
   /* No stages: an error. */
   d->mission.inclination_deg = 40.0;
   d->n_stages = 0;
-  g_assert_false (sw_design_size (d, &s, &error));
+  g_assert_false (sw_size_design (d, &s, &error));
   g_assert_nonnull (error);
 }
 

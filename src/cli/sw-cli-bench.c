@@ -102,7 +102,7 @@ sw_cli_bench (int argc, char **argv)
       SwSweep *sweep = g_new (SwSweep, 1);
       double t0 = now_ns ();
 
-      sw_design_size (d, &s, NULL);
+      sw_size_design (d, &s, NULL);
       sw_stage_curve_compute (d, dv, SW_MAX_STAGES, &curve);
       sw_sweep_compute (d, SW_SWEEP_CURVES, SW_SWEEP_POINTS, sweep);
       updates[u] = (now_ns () - t0) / 1000.0;
