@@ -405,7 +405,7 @@ test_ascent_values (void)
   Run run;
 
   g_assert_nonnull (d);
-  r = sw_design_ascent (d, NULL, &error);
+  r = sw_ascent_fly_design (d, NULL, &error);
   g_assert_no_error (error);
   run_cli (&run, "ascent", "--json", path, NULL);
   g_assert_cmpint (run.code, ==, 0);
@@ -617,7 +617,7 @@ test_csv_values (void)
 
   g_assert_nonnull (d);
   g_assert_nonnull (d->baseline);
-  g_assert_true (sw_design_size (d, &s, NULL));
+  g_assert_true (sw_size_design (d, &s, NULL));
   g_assert_true (s.feasible);
   g_assert_true (sw_design_required_delta_v (d, &dv, NULL));
   sw_stage_curve_compute (d, dv, SW_MAX_STAGES, &curve);
@@ -628,7 +628,7 @@ test_csv_values (void)
     sw_stage_curve_compute (d->baseline, base_dv, SW_MAX_STAGES, &base);
   }
   sw_sweep_compute (d, SW_SWEEP_CURVES, SW_SWEEP_POINTS, sweep);
-  sw_design_reliability (d, &rel);
+  sw_reliability_from_design (d, &rel);
   sw_reliability_curve_compute (d, SW_MAX_STAGES, &relc);
   g_assert_true (sw_sensitivity_compute (d, SW_SENSITIVITY_DEFAULT_STEP, &t, NULL));
 
@@ -766,7 +766,7 @@ test_atmosphere_text (void)
 
 /* The Monte Carlo report: the spreads as the design file gives them (kestrel
  * demo: Isp normal 1 %, structural coefficient uniform 6 %, losses normal
- * 100 m/s), the share short of the payload in percent, and a spread of
+ * 100 m/s), the share that carries the payload in percent, and a spread of
  * width zero reported as none. */
 static void
 test_montecarlo_text (void)
@@ -782,9 +782,11 @@ test_montecarlo_text (void)
   g_assert_cmpint (run.code, ==, 0);
   expect_line (run.out, "Spreads: Isp normal, sigma 1 %; structural coefficient uniform, +- 6 %; "
                         "losses normal, sigma 100 m/s");
-  margin = g_strdup_printf ("  required %.1f kg; probability of a negative margin %.1f %%",
-                            d->payload_kg, 100.0 * mc.p_negative_margin);
-  expect_line (run.out, margin);
+  /* The share of samples that carry the whole payload: 1 - the share short. */
+  margin = g_strdup_printf (" carries the whole payload in %.1f %% of cases;",
+                            100.0 * (1.0 - mc.p_negative_margin));
+  if (strstr (run.out, margin) == NULL)
+    g_error ("no \"%s\" in:\n%s", margin, run.out);
   run_clear (&run);
 
   {
@@ -807,8 +809,9 @@ test_montecarlo_text (void)
         run_cli (&run, "montecarlo", flat, NULL);
         g_assert_cmpint (run.code, ==, 0);
         expect_line (run.out, "Spreads: Isp none; structural coefficient none; losses none");
-        /* Nothing varies: nothing falls short. */
-        expect_line (run.out, "  required 1000.0 kg; probability of a negative margin 0.0 %");
+        /* Nothing varies: nothing falls short, no reserve is needed. */
+        expect_line (run.out, "  required 1000.0 kg; reserve for 95 % confidence: 0.0 kg");
+        g_assert_nonnull (strstr (run.out, " carries the whole payload in 100.0 % of cases;"));
         run_clear (&run);
       }
     else
