@@ -848,6 +848,11 @@ test_german_message (void)
   /* po/de.po: "%s: \"%s\" ist kein Stagewright-Entwurf (\"%s\" erwartet)" */
   g_assert_nonnull (strstr (r.err, "\"something-else\" ist kein Stagewright-Entwurf"));
   run_clear (&r);
+  /* The CLI's own messages too (po/de.po). */
+  run_cli_env (&r, env, NULL);
+  g_assert_cmpint (r.code, ==, 2);
+  g_assert_nonnull (strstr (r.err, "Aufruf: stagewright-cli BEFEHL [OPTIONEN] ARGUMENTE"));
+  run_clear (&r);
   /* And in English without LANGUAGE. */
   env = g_environ_unsetenv (env, "LANGUAGE");
   env = g_environ_setenv (env, "LC_ALL", "C.UTF-8", TRUE);
