@@ -605,7 +605,8 @@ test_csv_values (void)
   g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
   g_autofree SwSweep *sweep = g_new0 (SwSweep, 1);
   const char *const files[] = { "stages.csv", "stage-count.csv", "delta-v-sweep.csv",
-                                "sensitivity.csv", "reliability.csv" };
+                                "sensitivity.csv", "reliability.csv",
+                                "uncertainty-histogram.csv" };
   SwSizing s;
   SwStageCurve curve, base;
   SwReliability rel;
@@ -709,12 +710,42 @@ test_csv_values (void)
     check_cell (&c, i, "mission_success", relc.mission[i]);
   csv_clear (&c);
 
+  /* With the Monte Carlo: the band columns are the core's band for the
+   * design's seed and samples (at most 2000 per stage count, sw-analysis.h),
+   * and ordered p05 <= p50 <= p95. */
+  {
+    SwMcBand band;
+    guint n_band = 0;
+
+    g_assert_true (sw_montecarlo_band (d, NULL, SW_MAX_STAGES,
+                                       MIN (sw_uncertainty_samples (&d->uncertainty), 2000),
+                                       sw_uncertainty_seed (&d->uncertainty), 2, &band, NULL));
+    run_cli (&run, "export", "--csv", dir, "--threads", "2", path, NULL);
+    g_assert_cmpint (run.code, ==, 0);
+    run_clear (&run);
+    csv_read (&c, dir, "stage-count.csv");
+    for (guint i = 0; i < band.n_points; i++)
+      {
+        check_cell (&c, i, "liftoff_mass_p05_kg", band.p05[i]);
+        check_cell (&c, i, "liftoff_mass_p50_kg", band.p50[i]);
+        check_cell (&c, i, "liftoff_mass_p95_kg", band.p95[i]);
+        if (isfinite (band.p95[i]))
+          {
+            g_assert_cmpfloat (band.p05[i], <, band.p50[i]);
+            g_assert_cmpfloat (band.p50[i], <, band.p95[i]);
+            n_band++;
+          }
+      }
+    g_assert_cmpuint (n_band, >=, 2);
+    csv_clear (&c);
+  }
+
   for (guint i = 0; i < G_N_ELEMENTS (files); i++)
     {
       g_autofree char *f = g_build_filename (dir, files[i], NULL);
       g_unlink (f);
     }
-  g_rmdir (dir);
+  g_assert_cmpint (g_rmdir (dir), ==, 0);
 }
 
 /* ---- text reports ------------------------------------------------------------- */
