@@ -739,6 +739,36 @@ test_csv_values (void)
     g_assert_cmpuint (n_band, >=, 2);
     csv_clear (&c);
   }
+  /* The histograms: the design's own run (its samples and seed), bins of
+   * equal width from the lowest to the highest sample. */
+  {
+    SwMonteCarlo mc;
+
+    g_assert_true (sw_montecarlo_run (d, NULL, 0, FALSE, 0, 2, &mc, NULL, NULL, NULL));
+    csv_read (&c, dir, "uncertainty-histogram.csv");
+    g_assert_cmpuint (c.rows->len, ==, 2 * SW_MC_BINS);
+    for (guint q = 0; q < 2; q++)
+      {
+        const SwMcSummary *sum = q == 0 ? &mc.liftoff : &mc.payload;
+        guint total = 0;
+
+        for (guint i = 0; i < SW_MC_BINS; i++)
+          {
+            guint row = q * SW_MC_BINS + i;
+            double w = (sum->bin_hi - sum->bin_lo) / SW_MC_BINS;
+
+            g_assert_cmpstr (cell (&c, row, "quantity"), ==,
+                             q == 0 ? "liftoff_mass_kg" : "fixed_vehicle_payload_kg");
+            g_assert_cmpint (atoi (cell (&c, row, "bin")), ==, i + 1);
+            check_cell (&c, row, "lower", sum->bin_lo + i * w);
+            check_cell (&c, row, "upper", sum->bin_lo + (i + 1) * w);
+            g_assert_cmpint (atoi (cell (&c, row, "count")), ==, sum->bins[i]);
+            total += (guint) atoi (cell (&c, row, "count"));
+          }
+        g_assert_cmpuint (total, ==, sum->n);
+      }
+    csv_clear (&c);
+  }
 
   for (guint i = 0; i < G_N_ELEMENTS (files); i++)
     {
