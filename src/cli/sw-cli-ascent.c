@@ -148,6 +148,7 @@ ascent_to_json (const SwAnalysis *a)
   sw_cli_add_number (b, "sized_delta_v_m_s", r->sized_delta_v_m_s);
   sw_cli_add_number (b, "delta_v_margin_m_s", r->delta_v_margin_m_s);
   sw_cli_add_number (b, "delta_v_missing_m_s", r->delta_v_missing_m_s);
+  sw_cli_add_number (b, "propellant_beyond_load_kg", r->propellant_beyond_load_kg);
   sw_cli_add_number (b, "liftoff_mass_kg", r->sizing.liftoff_mass_kg + r->fairing_mass_kg);
   sw_cli_add_number (b, "liftoff_thrust_to_weight", r->liftoff_thrust_to_weight);
   sw_cli_add_number (b, "max_q_pa", r->max_q_pa);
@@ -404,7 +405,8 @@ write_csv (const char *path, const SwDesign *d, const SwAscentResult *r)
   g_string_append_printf (s, "# Stagewright ascent time series: %s\n# %s\n", d->name,
                           sw_format_cautions ());
   g_string_append (s, "time_s,altitude_m,downrange_m,speed_m_s,air_speed_m_s,flight_path_deg,"
-                      "dynamic_pressure_pa,mach,axial_accel_g,mass_kg,thrust_n,stage\n");
+                      "dynamic_pressure_pa,mach,axial_accel_g,mass_kg,thrust_n,stage,"
+                      "beyond_load\n");
   for (guint i = 0; i < r->samples->len; i++)
     {
       const SwAscentSample *p = &g_array_index (r->samples, SwAscentSample, i);
@@ -417,7 +419,7 @@ write_csv (const char *path, const SwDesign *d, const SwAscentResult *r)
             g_string_append_printf (s, "%.9g", v[k]);
           g_string_append_c (s, ',');
         }
-      g_string_append_printf (s, "%u\n", p->stage + 1);
+      g_string_append_printf (s, "%u,%d\n", p->stage + 1, p->beyond_load ? 1 : 0);
     }
   if (!g_file_set_contents_full (path, s->str, (gssize) s->len,
                                  G_FILE_SET_CONTENTS_CONSISTENT, 0644, &error))
