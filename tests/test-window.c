@@ -572,6 +572,67 @@ test_plots_current (void)
 
 /* ---- main -------------------------------------------------------------- */
 
+/* The window's minimum width never depends on the numbers shown: an
+ * extreme payload (999,999,999,999 kg, accepted by the core) and an
+ * infeasible design on every page leave it under 1,280 px, and undo does
+ * not keep a wider one. */
+static int
+min_width (SwWindow *w)
+{
+  int min = 0;
+
+  gtk_widget_measure (GTK_WIDGET (w), GTK_ORIENTATION_HORIZONTAL, -1, &min, NULL, NULL, NULL);
+  return min;
+}
+
+static void
+check_min_width_all_pages (SwWindow *w, const char *what)
+{
+  static const char *const pages[] = { "curves", "ascent", "working", "trade" };
+
+  for (guint i = 0; i < G_N_ELEMENTS (pages); i++)
+    {
+      int min;
+      g_assert_true (sw_window_show_page (w, pages[i]));
+      sw_test_wait_until (sw_test_result_drawn, w, 10000, "the page to be drawn");
+      min = min_width (w);
+      g_test_message ("%s, page %s: minimum width %d px", what, pages[i], min);
+      g_assert_cmpint (min, <, 1280);
+    }
+}
+
+static void
+test_min_width_extremes (void)
+{
+  SwWindow *w = window_new ();
+  SwDocument *doc = sw_window_get_document (w);
+  SwDesign *d;
+
+  load_demo (w, "medium-cargo.stagewright");
+  check_min_width_all_pages (w, "demo");
+
+  d = sw_design_copy (sw_document_get_design (doc));
+  d->payload_kg = 999999999999.0;
+  sw_document_commit (doc, d, NULL);
+  wait_shown (w);
+  check_min_width_all_pages (w, "payload 999,999,999,999 kg");
+
+  /* Infeasible: no stage can give its share with this structure. */
+  d = sw_design_copy (sw_document_get_design (doc));
+  d->payload_kg = 8000.0;
+  for (guint i = 0; i < d->n_stages; i++)
+    d->stages[i].structural_coefficient = 0.6;
+  sw_document_commit (doc, d, NULL);
+  wait_shown (w);
+  g_assert_false (sw_window_get_shown_result (w)->sizing.feasible);
+  check_min_width_all_pages (w, "infeasible");
+
+  g_assert_true (sw_document_undo (doc));
+  wait_shown (w);
+  check_min_width_all_pages (w, "after undo");
+  sw_test_window_close (w);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -589,6 +650,7 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/window/recovery", test_recovery);
   g_test_add_func ("/gui/window/thousand-edits", test_thousand_edits);
   g_test_add_func ("/gui/window/plots-current", test_plots_current);
+  g_test_add_func ("/gui/window/min-width-extremes", test_min_width_extremes);
 
   status = g_test_run ();
   sw_gui_test_env_finish (tmp_dir);
