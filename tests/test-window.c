@@ -585,6 +585,24 @@ min_width (SwWindow *w)
   return min;
 }
 
+/* No selectable label comes up with its text selected (focus moving into
+ * a page used to select the whole Ascent banner). */
+static void
+assert_nothing_selected (GtkWidget *widget)
+{
+  int start, end;
+
+  if (GTK_IS_LABEL (widget) && gtk_label_get_selectable (GTK_LABEL (widget)))
+    {
+      if (gtk_label_get_selection_bounds (GTK_LABEL (widget), &start, &end))
+        g_error ("Label \"%s\" opened with characters %d..%d selected",
+                 gtk_label_get_text (GTK_LABEL (widget)), start, end);
+    }
+  for (GtkWidget *c = gtk_widget_get_first_child (widget); c != NULL;
+       c = gtk_widget_get_next_sibling (c))
+    assert_nothing_selected (c);
+}
+
 static void
 check_min_width_all_pages (SwWindow *w, const char *what)
 {
@@ -596,6 +614,10 @@ check_min_width_all_pages (SwWindow *w, const char *what)
       g_assert_true (sw_window_show_page (w, pages[i]));
       sw_test_wait_until (sw_test_result_drawn, w, 10000, "the page to be drawn");
       min = min_width (w);
+      /* Tab into the page, as a keyboard user would. */
+      if (g_str_equal (pages[i], "ascent"))
+        gtk_widget_child_focus (GTK_WIDGET (sw_window_get_ascent_page (w)), GTK_DIR_TAB_FORWARD);
+      assert_nothing_selected (GTK_WIDGET (w));
       g_test_message ("%s, page %s: minimum width %d px", what, pages[i], min);
       g_assert_cmpint (min, <, 1280);
     }
