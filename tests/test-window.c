@@ -655,6 +655,59 @@ test_min_width_extremes (void)
   sw_test_window_close (w);
 }
 
+/* The question a modified window asks when it is closed. */
+static GtkDialog *
+find_question (SwWindow *w)
+{
+  GListModel *tops = gtk_window_get_toplevels ();
+
+  for (guint i = 0; i < g_list_model_get_n_items (tops); i++)
+    {
+      g_autoptr (GObject) o = g_list_model_get_item (tops, i);
+      if (GTK_IS_MESSAGE_DIALOG (o) && gtk_window_get_transient_for (GTK_WINDOW (o)) == GTK_WINDOW (w))
+        return GTK_DIALOG (o);
+    }
+  return NULL;
+}
+
+static gboolean
+question_shown (gpointer data)
+{
+  return find_question (data) != NULL;
+}
+
+/* Closing with unsaved changes and answering Discard, and a window that
+ * goes while its question is open (the application quits): no warning and
+ * no critical on the way (the GUI tests run with fatal warnings). */
+static void
+test_close_unsaved (void)
+{
+  for (int variant = 0; variant < 2; variant++)
+    {
+      SwWindow *w = window_new ();
+      SwDocument *doc = sw_window_get_document (w);
+      GtkWidget *weak = GTK_WIDGET (w);
+      SwDesign *d = sw_design_copy (sw_document_get_design (doc));
+
+      d->payload_kg += 100.0;
+      sw_document_commit (doc, d, NULL);
+      wait_shown (w);
+      g_assert_true (sw_document_get_modified (doc));
+      g_object_add_weak_pointer (G_OBJECT (w), (gpointer *) &weak);
+      gtk_window_close (GTK_WINDOW (w));
+      sw_test_wait_until (question_shown, w, 5000, "the save question");
+      if (variant == 0)
+        gtk_dialog_response (find_question (w), GTK_RESPONSE_REJECT);
+      else
+        gtk_window_destroy (GTK_WINDOW (w));
+      for (int i = 0; i < 1000 && weak != NULL; i++)
+        g_main_context_iteration (NULL, FALSE);
+      g_assert_null (weak);
+      for (int i = 0; i < 100; i++)
+        g_main_context_iteration (NULL, FALSE);
+    }
+}
+
 int
 main (int argc, char **argv)
 {
@@ -673,6 +726,7 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/window/thousand-edits", test_thousand_edits);
   g_test_add_func ("/gui/window/plots-current", test_plots_current);
   g_test_add_func ("/gui/window/min-width-extremes", test_min_width_extremes);
+  g_test_add_func ("/gui/window/close-unsaved", test_close_unsaved);
 
   status = g_test_run ();
   sw_gui_test_env_finish (tmp_dir);
