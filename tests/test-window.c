@@ -623,6 +623,27 @@ check_min_width_all_pages (SwWindow *w, const char *what)
     }
 }
 
+/* Popovers of @widget's menu buttons: their natural width stays well
+ * inside a 1,280 px window, wherever their button sits. */
+static void
+assert_popovers_fit (GtkWidget *widget)
+{
+  if (GTK_IS_MENU_BUTTON (widget) && gtk_menu_button_get_popover (GTK_MENU_BUTTON (widget)))
+    {
+      GtkPopover *pop = gtk_menu_button_get_popover (GTK_MENU_BUTTON (widget));
+      int nat = 0;
+      /* The content: an unmapped popover measures nothing. */
+      gtk_widget_measure (gtk_popover_get_child (pop), GTK_ORIENTATION_HORIZONTAL, -1, NULL,
+                          &nat, NULL, NULL);
+      g_test_message ("popover of %s: natural width %d px",
+                      gtk_widget_get_name (widget), nat);
+      g_assert_cmpint (nat, <, 480);
+    }
+  for (GtkWidget *c = gtk_widget_get_first_child (widget); c != NULL;
+       c = gtk_widget_get_next_sibling (c))
+    assert_popovers_fit (c);
+}
+
 static void
 test_min_width_extremes (void)
 {
@@ -632,6 +653,7 @@ test_min_width_extremes (void)
 
   load_demo (w, "medium-cargo.stagewright");
   check_min_width_all_pages (w, "demo");
+  assert_popovers_fit (GTK_WIDGET (sw_window_get_ascent_page (w)));
 
   d = sw_design_copy (sw_document_get_design (doc));
   d->payload_kg = 999999999999.0;

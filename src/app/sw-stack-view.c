@@ -354,11 +354,11 @@ make_labels (SwStackView *self, gboolean compact, double max_width, double *widt
 
       g_clear_object (&it->label);
       it->label = make_label (self, markup);
-      pango_layout_set_ellipsize (it->label, PANGO_ELLIPSIZE_END);
-      pango_layout_set_height (it->label, -1);
       pango_layout_get_pixel_size (it->label, &lw, &lh);
       if (lw > max_width)
         {
+          /* Wrapped between words, never cut mid-word or mid-number. */
+          pango_layout_set_wrap (it->label, PANGO_WRAP_WORD_CHAR);
           pango_layout_set_width (it->label, (int) (max_width * PANGO_SCALE));
           pango_layout_get_pixel_size (it->label, &lw, &lh);
         }
