@@ -6,12 +6,14 @@
 #include "sw-application.h"
 
 #include "sw-format.h"
+#include "sw-install-paths.h"
 #include "sw-settings.h"
 #include "sw-window-private.h"
 
 #include <glib/gi18n.h>
 #include <math.h>
 #include <stdio.h>
+#include <stdlib.h>
 #include <string.h>
 
 /* A screenshot that has not been drawn by then has failed. */
@@ -37,6 +39,12 @@ struct _SwApplication {
 
 G_DEFINE_FINAL_TYPE (SwApplication, sw_application, GTK_TYPE_APPLICATION)
 
+gboolean
+sw_application_check_settings (GError **error)
+{
+  return sw_settings_check (error);
+}
+
 GSettings *
 sw_application_settings_new (void)
 {
@@ -46,12 +54,7 @@ sw_application_settings_new (void)
 char *
 sw_application_find_design (const char *basename)
 {
-  char *path = g_build_filename (SOURCE_DESIGNS_DIR, basename, NULL);
-
-  if (g_file_test (path, G_FILE_TEST_IS_REGULAR))
-    return path;
-  g_free (path);
-  return g_build_filename (DESIGNS_DIR, basename, NULL);
+  return sw_install_find_design (basename);
 }
 
 gboolean

@@ -319,7 +319,7 @@ update_status (SwAscentPage *self)
   if (a == NULL)
     {
       text = g_strdup_printf (_("No ascent simulated. %s"),
-                              r->ascent_message != NULL ? r->ascent_message : "");
+                              r->ascent_message);
       if (r->has_stage_figures)
         {
           char *more = g_strdup_printf ("%s\n%s", text,

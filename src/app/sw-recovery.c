@@ -100,17 +100,19 @@ write_copy (SwRecovery *self)
       g_warning ("Cannot create %s for the recovery copy: %s", dir, g_strerror (errno));
       return;
     }
-  /* An invalid design (an orbit the site cannot reach, say) is not written:
-   * the copy keeps the last state that can be opened again. */
-  if (!sw_design_save (sw_document_get_design (self->document), path, &error))
-    {
-      g_debug ("Recovery copy not written: %s", error->message);
-      return;
-    }
+  /* The origin first: a copy on disk always has the origin it belongs to,
+   * even when the process is killed between the two writes. */
   file = sw_document_get_file (self->document);
   uri = file != NULL ? g_file_get_uri (file) : g_strdup ("");
   if (!g_file_set_contents_full (origin, uri, -1, G_FILE_SET_CONTENTS_CONSISTENT, 0600, &error))
-    g_debug ("Recovery origin not written: %s", error->message);
+    {
+      g_debug ("Recovery origin not written: %s", error->message);
+      return;
+    }
+  /* An invalid design (an orbit the site cannot reach, say) is not written:
+   * the copy keeps the last state that can be opened again. */
+  if (!sw_design_save (sw_document_get_design (self->document), path, &error))
+    g_debug ("Recovery copy not written: %s", error->message);
 }
 
 static gboolean

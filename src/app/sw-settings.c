@@ -5,28 +5,60 @@
 
 #include "sw-settings.h"
 
-GSettings *
-sw_settings_new (void)
+#include "sw-install-paths.h"
+
+#include <glib/gi18n.h>
+#include <stdlib.h>
+
+/* The schema from the default places (GSETTINGS_SCHEMA_DIR, XDG_DATA_DIRS),
+ * else from the install prefix (sw-install-paths.h).  No path of the source
+ * or build tree is compiled in: the tests point GSETTINGS_SCHEMA_DIR at the
+ * build folder. */
+static GSettingsSchema *
+lookup_schema (GError **error)
 {
   GSettingsSchemaSource *source = g_settings_schema_source_get_default ();
-  g_autoptr (GSettingsSchema) schema = NULL;
+  g_autoptr (GSettingsSchemaSource) installed = NULL;
+  g_autofree char *dir = sw_install_schemas_dir ();
+  GSettingsSchema *schema = NULL;
 
   if (source != NULL)
     schema = g_settings_schema_source_lookup (source, APP_ID, TRUE);
+  if (schema != NULL)
+    return schema;
+  if (g_file_test (dir, G_FILE_TEST_IS_DIR))
+    installed = g_settings_schema_source_new_from_directory (dir, source, FALSE, NULL);
+  if (installed != NULL)
+    schema = g_settings_schema_source_lookup (installed, APP_ID, FALSE);
+  if (schema == NULL)
+    g_set_error (error, G_IO_ERROR, G_IO_ERROR_NOT_FOUND,
+                 _("The settings schema %s is not installed: it was looked for in the "
+                   "system folders and in %s. Reinstall the application, or point "
+                   "GSETTINGS_SCHEMA_DIR at the folder with the compiled schema "
+                   "(BUILD/data in a build folder)."),
+                 APP_ID, dir);
+  return schema;
+}
+
+gboolean
+sw_settings_check (GError **error)
+{
+  g_autoptr (GSettingsSchema) schema = lookup_schema (error);
+
+  return schema != NULL;
+}
+
+GSettings *
+sw_settings_new (void)
+{
+  g_autoptr (GError) error = NULL;
+  g_autoptr (GSettingsSchema) schema = lookup_schema (&error);
+
   if (schema == NULL)
     {
-      g_autoptr (GSettingsSchemaSource) build = NULL;
-      g_autoptr (GError) error = NULL;
-
-      build = g_settings_schema_source_new_from_directory (SW_BUILD_SCHEMAS_DIR, source, FALSE,
-                                                           &error);
-      if (build != NULL)
-        schema = g_settings_schema_source_lookup (build, APP_ID, FALSE);
-      if (schema == NULL)
-        g_error ("The settings schema %s is neither installed nor compiled in %s%s%s", APP_ID,
-                 SW_BUILD_SCHEMAS_DIR, error != NULL ? ": " : "",
-                 error != NULL ? error->message : "");
+      /* main() checks first; this is for code that runs without main(). */
+      g_printerr ("stagewright: %s\n", error->message);
+      exit (EXIT_FAILURE);
     }
   return g_settings_new_full (schema, NULL, NULL);
 }
-

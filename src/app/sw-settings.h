@@ -7,8 +7,9 @@
 
 G_BEGIN_DECLS
 
-/* Falls back to the schema compiled in the build folder when the
- * application runs uninstalled. */
+/* FALSE with a message naming where the schema was looked for. */
+gboolean   sw_settings_check (GError **error);
+/* Exits with that message when the schema is missing (main() checks first). */
 GSettings *sw_settings_new (void);
 
 G_END_DECLS

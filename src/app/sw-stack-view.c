@@ -410,7 +410,7 @@ stack_layout (SwStackView *self, int width, int height)
     {
       g_autofree char *markup =
         g_markup_printf_escaped (_("<b>⚠ This design cannot be solved</b>\n%s"),
-                                 r->error_message != NULL ? r->error_message : "");
+                                 r->error_message);
       layout_message (self, markup, width - 4 * MARGIN);
       pango_layout_set_alignment (self->message, PANGO_ALIGN_CENTER);
       return;
@@ -1381,7 +1381,7 @@ update_accessible (SwStackView *self)
     text = g_strdup (_("Stage stack: no design"));
   else if (!r->ok)
     text = g_strdup_printf (_("Stage stack: the design cannot be solved. %s"),
-                            r->error_message != NULL ? r->error_message : "");
+                            r->error_message);
   else if (!r->sizing.feasible)
     text = g_strdup_printf (_("Stage stack: not feasible. %s"), r->sizing.reason);
   else

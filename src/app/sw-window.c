@@ -5,6 +5,7 @@
 
 #include "sw-window.h"
 
+#include "sw-design-edit.h"
 #include "sw-settings.h"
 #include "sw-ascent-page.h"
 #include "sw-export-dialog.h"
@@ -227,9 +228,13 @@ share_dragged_cb (SwWindow *self, int lower, int upper, double amount, gboolean 
     return;
   if (self->drag_base == NULL)
     {
+      double shares[SW_MAX_STAGES];
+      guint n_shares = self->result != NULL && self->result->ok
+                       ? sw_sizing_get_shares (&self->result->sizing, shares) : 0;
+
       self->drag_base = sw_document_dup_design (self->document);
       if (self->drag_base->split != SW_SPLIT_MANUAL)
-        sw_analysis_apply_shares (self->result, self->drag_base);
+        sw_design_take_manual_shares (self->drag_base, shares, n_shares);
     }
   d = sw_design_copy (self->drag_base);
   sw_design_move_share (d, (guint) upper, (guint) lower, amount);
@@ -731,14 +736,14 @@ split_action (GtkWidget *widget, const char *name, GVariant *param)
 {
   SwWindow *self = SW_WINDOW (widget);
   g_autoptr (SwDesign) d = sw_document_dup_design (self->document);
+  double shares[SW_MAX_STAGES];
+  guint n_shares = self->result != NULL && self->result->ok
+                   ? sw_sizing_get_shares (&self->result->sizing, shares) : 0;
   SwSplitMode mode;
 
-  if (!sw_split_mode_from_string (g_variant_get_string (param, NULL), &mode) || mode == d->split)
+  if (!sw_split_mode_from_string (g_variant_get_string (param, NULL), &mode)
+      || !sw_design_set_split (d, mode, shares, n_shares))
     return;
-  if (mode == SW_SPLIT_MANUAL)
-    sw_analysis_apply_shares (self->result, d);
-  else
-    d->split = mode;
   sw_document_commit (self->document, g_steal_pointer (&d), NULL);
 }
 
@@ -754,11 +759,8 @@ pin_baseline_action (GtkWidget *widget, const char *name, GVariant *param)
 {
   SwWindow *self = SW_WINDOW (widget);
   g_autoptr (SwDesign) d = sw_document_dup_design (self->document);
-  SwDesign *pinned = sw_design_copy (d);
 
-  g_clear_pointer (&pinned->baseline, sw_design_free);
-  sw_design_free (d->baseline);
-  d->baseline = pinned;
+  sw_design_pin_baseline (d);
   sw_document_commit (self->document, g_steal_pointer (&d), NULL);
 }
 
@@ -768,9 +770,8 @@ clear_baseline_action (GtkWidget *widget, const char *name, GVariant *param)
   SwWindow *self = SW_WINDOW (widget);
   g_autoptr (SwDesign) d = sw_document_dup_design (self->document);
 
-  if (d->baseline == NULL)
+  if (!sw_design_clear_baseline (d))
     return;
-  g_clear_pointer (&d->baseline, sw_design_free);
   sw_document_commit (self->document, g_steal_pointer (&d), NULL);
 }
 
@@ -789,11 +790,26 @@ export_action (GtkWidget *widget, const char *name, GVariant *param)
   gtk_window_present (GTK_WINDOW (self->export_dialog));
 }
 
+/* The user's limits decide the verdict: a change is a new solve. */
+static void
+limits_changed_cb (SwWindow *self)
+{
+  SwAnalysisOptions options;
+
+  sw_solver_get_options (self->solver, &options);
+  options.min_thrust_to_weight = g_settings_get_double (self->settings, "min-thrust-to-weight");
+  options.max_q_pa = 1000.0 * g_settings_get_double (self->settings, "max-dynamic-pressure-kpa");
+  options.max_axial_g = g_settings_get_double (self->settings, "max-acceleration-g");
+  sw_solver_set_options (self->solver, &options);
+  if (sw_document_get_design (self->document) != NULL)
+    sw_solver_post (self->solver, sw_document_get_design (self->document));
+}
+
 /* The tornado's step is a setting: a new step is a new solve. */
 static void
 trade_step_cb (SwWindow *self)
 {
-  SwSolveOptions options;
+  SwAnalysisOptions options;
 
   sw_solver_get_options (self->solver, &options);
   if (options.sensitivity_step == sw_trade_page_get_step (self->trade_page))
@@ -1168,11 +1184,21 @@ sw_window_init (SwWindow *self)
   sw_inspector_set_document (self->inspector, self->document);
   sw_trade_page_set_document (self->trade_page, self->document);
   {
-    SwSolveOptions options;
+    SwAnalysisOptions options;
     sw_solver_get_options (self->solver, &options);
     options.sensitivity_step = sw_trade_page_get_step (self->trade_page);
+    options.min_thrust_to_weight = g_settings_get_double (self->settings, "min-thrust-to-weight");
+    options.max_q_pa = 1000.0 * g_settings_get_double (self->settings,
+                                                       "max-dynamic-pressure-kpa");
+    options.max_axial_g = g_settings_get_double (self->settings, "max-acceleration-g");
     sw_solver_set_options (self->solver, &options);
   }
+  g_signal_connect_swapped (self->settings, "changed::min-thrust-to-weight",
+                            G_CALLBACK (limits_changed_cb), self);
+  g_signal_connect_swapped (self->settings, "changed::max-dynamic-pressure-kpa",
+                            G_CALLBACK (limits_changed_cb), self);
+  g_signal_connect_swapped (self->settings, "changed::max-acceleration-g",
+                            G_CALLBACK (limits_changed_cb), self);
   g_signal_connect_swapped (self->trade_page, "notify::step", G_CALLBACK (trade_step_cb), self);
   /* One way: the stack view may refuse a stage its older result does not
    * have yet; its clicks come back through "stage-activated". */
