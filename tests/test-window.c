@@ -680,6 +680,18 @@ test_min_width_extremes (void)
   g_assert_true (sw_document_undo (doc));
   wait_shown (w);
   check_min_width_all_pages (w, "after undo");
+
+  /* A large interface font (15 pt) does not force a wider window either. */
+  {
+    GtkSettings *settings = gtk_settings_get_default ();
+    g_autofree char *font = NULL;
+
+    g_object_get (settings, "gtk-font-name", &font, NULL);
+    g_object_set (settings, "gtk-font-name", "Sans 15", NULL);
+    wait_shown (w);
+    check_min_width_all_pages (w, "15 pt font");
+    g_object_set (settings, "gtk-font-name", font, NULL);
+  }
   sw_test_window_close (w);
 }
 

@@ -784,7 +784,6 @@ sw_plot_set_empty_text (SwPlot *self, const char *text)
   if (g_strcmp0 (text, self->empty_text) == 0)
     return;
   g_free (self->empty_text);
-  g_hash_table_unref (self->text_cache);
   self->empty_text = g_strdup (text);
   invalidate (self);
 }
