@@ -614,6 +614,10 @@ save (SwWindow *self)
 static void
 question_response_cb (SwWindow *self, int response, GtkDialog *dialog)
 {
+  /* The answer may close this window at once: the dialog, finalized only
+   * after its response signal, must not point at it by then. */
+  g_signal_handlers_disconnect_by_func (dialog, question_response_cb, self);
+  gtk_window_set_transient_for (GTK_WINDOW (dialog), NULL);
   gtk_window_destroy (GTK_WINDOW (dialog));
   switch (response)
     {
