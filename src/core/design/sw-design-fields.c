@@ -538,6 +538,54 @@ sw_design_set_notes_checked (SwDesign *design, const char *notes, GError **error
 }
 
 gboolean
+sw_design_set_thrust (SwDesign *design, guint stage, gboolean per_engine, double thrust_kn,
+                      GError **error)
+{
+  g_autoptr (SwDesign) copy = NULL;
+  SwDesignField field = per_engine ? SW_FIELD_ENGINE_THRUST_VAC : SW_FIELD_THRUST_VAC;
+
+  g_return_val_if_fail (design != NULL, FALSE);
+  if (!check_stage (design, field, stage, error))
+    return FALSE;
+  copy = sw_design_copy (design);
+  if (!sw_design_field_unset (copy, SW_FIELD_THRUST_VAC, stage, error)
+      || !sw_design_field_unset (copy, SW_FIELD_ENGINE_THRUST_VAC, stage, error)
+      || (!isnan (thrust_kn) && !sw_design_field_set (copy, field, stage, thrust_kn, error)))
+    return FALSE;
+  design->stages[stage].propulsion = copy->stages[stage].propulsion;
+  return TRUE;
+}
+
+gboolean
+sw_design_set_fairing_rule (SwDesign *design, gboolean by_pressure, double value,
+                            GError **error)
+{
+  g_autoptr (SwDesign) copy = NULL;
+  SwDesignField field = by_pressure ? SW_FIELD_FAIRING_PRESSURE : SW_FIELD_FAIRING_ALTITUDE;
+  SwDesignField other = by_pressure ? SW_FIELD_FAIRING_ALTITUDE : SW_FIELD_FAIRING_PRESSURE;
+
+  g_return_val_if_fail (design != NULL, FALSE);
+  if (isnan (value))
+    {
+      copy = sw_design_copy (design);
+      if (!sw_design_field_unset (copy, other, 0, error)
+          || !sw_design_field_unset (copy, field, 0, error))
+        return FALSE;
+      design->ascent = copy->ascent;
+      return TRUE;
+    }
+  if (!check_range (field, 0, value, error))
+    return FALSE;
+  copy = sw_design_copy (design);
+  store (copy, other, 0, 0.0, FALSE);
+  store (copy, field, 0, value, TRUE);
+  if (!check_whole_design (copy, error))
+    return FALSE;
+  design->ascent = copy->ascent;
+  return TRUE;
+}
+
+gboolean
 sw_design_set_loss_model (SwDesign *design, SwLossModel model, GError **error)
 {
   g_autoptr (SwDesign) copy = NULL;

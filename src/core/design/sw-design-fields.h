@@ -81,6 +81,17 @@ gboolean  sw_design_set_stage_name (SwDesign *design, guint stage, const char *n
                                     GError **error);
 gboolean  sw_design_set_notes_checked (SwDesign *design, const char *notes, GError **error);
 
+/* The stage's thrust as a total (thrust_vac_kn) or per engine
+ * (engine_thrust_vac_kn, with engine_count given), replacing the other
+ * form: the two are one quantity.  NAN leaves the thrust out. */
+gboolean  sw_design_set_thrust (SwDesign *design, guint stage, gboolean per_engine,
+                                double thrust_kn, GError **error);
+/* The fairing's jettison rule: an altitude (km) or, with @by_pressure, a
+ * dynamic pressure (Pa), replacing the other rule.  NAN leaves both out
+ * (refused while the fairing has mass). */
+gboolean  sw_design_set_fairing_rule (SwDesign *design, gboolean by_pressure, double value,
+                                      GError **error);
+
 /* "mission.loss_model": simulate needs an orbit mission. */
 gboolean  sw_design_set_loss_model (SwDesign *design, SwLossModel model, GError **error);
 
