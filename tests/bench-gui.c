@@ -138,7 +138,7 @@ main (int argc, char **argv)
 
   for (guint i = 0; i < N_EDITS; i++)
     {
-      GtkSpinButton *spin;
+      SwNumberField *spin;
       double value;
       gint64 t0;
       guint64 serial;
@@ -150,26 +150,26 @@ main (int argc, char **argv)
         {
         case 0:
           sw_inspector_set_selected (insp, 0);
-          spin = GTK_SPIN_BUTTON (sw_inspector_get_field (insp, SW_INSPECTOR_ISP_VAC));
+          spin = SW_NUMBER_FIELD (sw_inspector_get_field (insp, SW_INSPECTOR_ISP_VAC));
           value = 320.0 + (i % 40);
           break;
         case 1:
           sw_inspector_set_selected (insp, 1);
-          spin = GTK_SPIN_BUTTON (sw_inspector_get_field (insp, SW_INSPECTOR_EPS));
+          spin = SW_NUMBER_FIELD (sw_inspector_get_field (insp, SW_INSPECTOR_EPS));
           value = 0.08 + 0.001 * (i % 40);
           break;
         case 2:
-          spin = GTK_SPIN_BUTTON (sw_inspector_get_field (insp, SW_INSPECTOR_PAYLOAD));
+          spin = SW_NUMBER_FIELD (sw_inspector_get_field (insp, SW_INSPECTOR_PAYLOAD));
           value = 6000.0 + 50.0 * (i % 40);
           break;
         default:
           sw_inspector_set_selected (insp, 0);
-          spin = GTK_SPIN_BUTTON (sw_inspector_get_field (insp, SW_INSPECTOR_SHARE));
+          spin = SW_NUMBER_FIELD (sw_inspector_get_field (insp, SW_INSPECTOR_SHARE));
           value = 35.0 + (i % 20);
           break;
         }
       t0 = g_get_monotonic_time ();
-      gtk_spin_button_set_value (spin, value);
+      sw_number_field_commit_value (spin, value);
       serial = sw_solver_get_posted_serial (sw_window_get_solver (w));
       if (!wait_drawn (w) || drawn.serial < serial)
         {

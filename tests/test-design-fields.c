@@ -233,6 +233,37 @@ test_dependencies (void)
   }
 }
 
+/* The two forms of one quantity replace each other in one edit. */
+static void
+test_replacing_forms (void)
+{
+  g_autoptr (SwDesign) d = sw_design_new_default ();
+  g_autoptr (GError) error = NULL;
+
+  g_assert_true (sw_design_set_thrust (d, 0, FALSE, 1200.0, NULL));
+  g_assert_false (sw_design_set_thrust (d, 0, TRUE, 150.0, &error));
+  g_assert_nonnull (strstr (error->message, "engine count"));
+  g_clear_error (&error);
+  g_assert_true (d->stages[0].propulsion.has_thrust);
+  g_assert_true (sw_design_field_set (d, SW_FIELD_ENGINE_COUNT, 0, 8.0, NULL));
+  g_assert_true (sw_design_set_thrust (d, 0, TRUE, 150.0, NULL));
+  g_assert_false (d->stages[0].propulsion.has_thrust);
+  g_assert_cmpfloat (d->stages[0].propulsion.engine_thrust_vac_kn, ==, 150.0);
+  g_assert_cmpfloat (sw_stage_thrust_vac_n (&d->stages[0].propulsion, 8), ==, 1.2e6);
+  assert_round_trip (d);
+  g_assert_true (sw_design_set_thrust (d, 0, FALSE, NAN, NULL));
+  g_assert_false (d->stages[0].propulsion.present);
+
+  g_assert_true (sw_design_set_fairing_rule (d, FALSE, 110.0, NULL));
+  g_assert_true (sw_design_field_set (d, SW_FIELD_FAIRING_MASS, 0, 1500.0, NULL));
+  g_assert_true (sw_design_set_fairing_rule (d, TRUE, 500.0, NULL));
+  g_assert_false (d->ascent.has_fairing_altitude);
+  g_assert_cmpfloat (d->ascent.fairing_jettison_dynamic_pressure_pa, ==, 500.0);
+  g_assert_false (sw_design_set_fairing_rule (d, TRUE, NAN, &error));
+  g_assert_true (d->ascent.has_fairing_pressure);
+  assert_round_trip (d);
+}
+
 static void
 test_texts_and_loss_model (void)
 {
@@ -381,6 +412,7 @@ main (int argc, char **argv)
   g_test_add_func ("/core/design-fields/out-of-range-unchanged", test_out_of_range_unchanged);
   g_test_add_func ("/core/design-fields/unset", test_unset);
   g_test_add_func ("/core/design-fields/dependencies", test_dependencies);
+  g_test_add_func ("/core/design-fields/replacing-forms", test_replacing_forms);
   g_test_add_func ("/core/design-fields/texts-and-loss-model", test_texts_and_loss_model);
   g_test_add_func ("/core/design-fields/drag-text", test_drag_text);
   g_test_add_func ("/core/design-fields/spread", test_spread);

@@ -430,7 +430,7 @@ refresh (SwInspector *self)
       set_field (self->altitude_spin, d->mission.altitude_km);
       set_field (self->inclination_spin, d->mission.inclination_deg);
       set_field (self->latitude_spin, d->mission.site_latitude_deg);
-      set_field (self->losses_spin, d->mission.has_losses ? d->mission.losses_m_s : 0.0);
+      set_field (self->losses_spin, d->mission.has_losses ? d->mission.losses_m_s : NAN);
     }
   else
     set_field (self->delta_v_spin, d->mission.delta_v_m_s);
@@ -493,7 +493,8 @@ commit_field (SwInspector *self, SwNumberField *field, SwDesignField key, double
       sw_number_field_set_error (field, error->message);
       return FALSE;
     }
-  commit (self, g_steal_pointer (&d), NULL);
+  if (!sw_design_equal (d, design (self)))
+    commit (self, g_steal_pointer (&d), NULL);
   return TRUE;
 }
 

@@ -135,8 +135,16 @@ format_value (double value, guint digits)
     g_snprintf (fmt, sizeof fmt, "%%.%uf", digits);
     g_ascii_formatd (buf, sizeof buf, fmt, value);
   }
-  if (fabs (g_ascii_strtod (buf, NULL) - value) > 1e-12 * MAX (1.0, fabs (value)))
-    g_ascii_formatd (buf, sizeof buf, "%.12g", value);
+  /* Not exact at @digits: the shortest form that reads back exactly. */
+  if (g_ascii_strtod (buf, NULL) != value)
+    for (int p = 15; p <= 17; p++)
+      {
+        char fmt[16];
+        g_snprintf (fmt, sizeof fmt, "%%.%dg", p);
+        g_ascii_formatd (buf, sizeof buf, fmt, value);
+        if (g_ascii_strtod (buf, NULL) == value)
+          break;
+      }
   if (strchr (buf, '.') != NULL && strchr (buf, 'e') == NULL)
     {
       char *e = buf + strlen (buf) - 1;
@@ -314,6 +322,16 @@ sw_number_field_commit (SwNumberField *self)
       return FALSE;
     }
   return commit_value (self, value);
+}
+
+gboolean
+sw_number_field_commit_value (SwNumberField *self, double value)
+{
+  g_autofree char *text = NULL;
+
+  g_return_val_if_fail (SW_IS_NUMBER_FIELD (self), FALSE);
+  text = format_value (value, 17);
+  return sw_number_field_enter (self, text);
 }
 
 gboolean

@@ -50,6 +50,9 @@ double      sw_number_field_get_value (SwNumberField *self);
 
 /* Reads the text now, as Enter does; TRUE when it was valid. */
 gboolean    sw_number_field_commit (SwNumberField *self);
+/* For tests and scripts: the text of @value (the locale's mark, all its
+ * digits) committed as if typed and entered. */
+gboolean    sw_number_field_commit_value (SwNumberField *self, double value);
 /* For tests and scripts: replaces the text and commits it. */
 gboolean    sw_number_field_enter (SwNumberField *self, const char *text);
 
