@@ -740,6 +740,32 @@ stage_row_selected_cb (SwInspector *self, GtkListBoxRow *row)
   sw_inspector_set_selected (self, gtk_list_box_row_get_index (row));
 }
 
+/* Ctrl+Z and Ctrl+Shift+Z in a text entry of the panel go to the window's
+ * history (the entry's own undo is off: names commit as they are typed). */
+static gboolean
+entry_undo_key_cb (GtkEventControllerKey *controller, guint keyval, guint keycode,
+                   GdkModifierType state, GtkWidget *entry)
+{
+  GdkModifierType mods = state & gtk_accelerator_get_default_mod_mask ();
+
+  if (mods == GDK_CONTROL_MASK && (keyval == GDK_KEY_z || keyval == GDK_KEY_Z))
+    return gtk_widget_activate_action (entry, "design.undo", NULL);
+  if ((mods == (GDK_CONTROL_MASK | GDK_SHIFT_MASK) && (keyval == GDK_KEY_z || keyval == GDK_KEY_Z))
+      || (mods == GDK_CONTROL_MASK && keyval == GDK_KEY_y))
+    return gtk_widget_activate_action (entry, "design.redo", NULL);
+  return FALSE;
+}
+
+static void
+route_undo (GtkWidget *entry)
+{
+  GtkEventController *controller = gtk_event_controller_key_new ();
+
+  gtk_event_controller_set_propagation_phase (controller, GTK_PHASE_CAPTURE);
+  g_signal_connect (controller, "key-pressed", G_CALLBACK (entry_undo_key_cb), entry);
+  gtk_widget_add_controller (entry, controller);
+}
+
 /* The share slider never takes the wheel: over the panel the wheel
  * scrolls it (a slider cannot show that it has focus well enough). */
 static void
@@ -1696,6 +1722,9 @@ sw_inspector_init (SwInspector *self)
   }
   build_sections (self);
   no_wheel_on_scale (GTK_WIDGET (self->share_scale));
+  route_undo (GTK_WIDGET (self->name_entry));
+  route_undo (GTK_WIDGET (self->stage_name_entry));
+  route_undo (GTK_WIDGET (self->drag_entry));
   configure_eps_spin (self);
 
   self->settings = sw_application_settings_new ();

@@ -404,17 +404,21 @@ key_cb (GtkEventControllerKey *controller, guint keyval, guint keycode, GdkModif
       sw_number_field_reset (self, self->value);
       return TRUE;
     }
-  /* Undo: uncommitted text first, then the window's history. */
+  /* Undo: uncommitted text first, then the window's history (the text
+   * widget would otherwise swallow the key with its own, disabled, undo). */
   if ((mods == GDK_CONTROL_MASK && (keyval == GDK_KEY_z || keyval == GDK_KEY_Z))
       || (mods == (GDK_CONTROL_MASK | GDK_SHIFT_MASK) && (keyval == GDK_KEY_z || keyval == GDK_KEY_Z))
       || (mods == GDK_CONTROL_MASK && keyval == GDK_KEY_y))
     {
+      gboolean redo = keyval == GDK_KEY_y || (mods & GDK_SHIFT_MASK) != 0;
+
       if (dirty (self) || self->error != NULL)
         {
           sw_number_field_reset (self, self->value);
           return TRUE;
         }
-      return FALSE;
+      return gtk_widget_activate_action (GTK_WIDGET (self), redo ? "design.redo" : "design.undo",
+                                         NULL);
     }
   return FALSE;
 }
