@@ -129,22 +129,22 @@ format_value (double value, guint digits)
 
   if (!isfinite (value))
     return g_strdup ("");
-  /* The C form, whatever LC_NUMERIC says; the locale's mark goes in below. */
-  {
-    char fmt[16];
-    g_snprintf (fmt, sizeof fmt, "%%.%uf", digits);
-    g_ascii_formatd (buf, sizeof buf, fmt, value);
-  }
-  /* Not exact at @digits: the shortest form that reads back exactly. */
-  if (g_ascii_strtod (buf, NULL) != value)
-    for (int p = 15; p <= 17; p++)
-      {
-        char fmt[16];
-        g_snprintf (fmt, sizeof fmt, "%%.%dg", p);
-        g_ascii_formatd (buf, sizeof buf, fmt, value);
-        if (g_ascii_strtod (buf, NULL) == value)
-          break;
-      }
+  /* The C form, whatever LC_NUMERIC says; the locale's mark goes in below.
+   * A value typed with a few more decimals than the field shows keeps them;
+   * a computed one (a share from the optimum) is rounded to @digits. */
+  for (guint d = digits; d <= digits + 3; d++)
+    {
+      char fmt[16];
+      g_snprintf (fmt, sizeof fmt, "%%.%uf", d);
+      g_ascii_formatd (buf, sizeof buf, fmt, value);
+      if (g_ascii_strtod (buf, NULL) == value)
+        break;
+      if (d == digits + 3)
+        {
+          g_snprintf (fmt, sizeof fmt, "%%.%uf", digits);
+          g_ascii_formatd (buf, sizeof buf, fmt, value);
+        }
+    }
   if (strchr (buf, '.') != NULL && strchr (buf, 'e') == NULL)
     {
       char *e = buf + strlen (buf) - 1;
@@ -330,7 +330,21 @@ sw_number_field_commit_value (SwNumberField *self, double value)
   g_autofree char *text = NULL;
 
   g_return_val_if_fail (SW_IS_NUMBER_FIELD (self), FALSE);
-  text = format_value (value, 17);
+  /* All the digits it takes to read back exactly. */
+  {
+    char buf[G_ASCII_DTOSTR_BUF_SIZE];
+    GString *t = g_string_new (NULL);
+
+    g_ascii_dtostr (buf, sizeof buf, value);
+    for (const char *p = buf; *p != '\0'; p++)
+      {
+        if (*p == '.')
+          g_string_append (t, locale_mark ());
+        else
+          g_string_append_c (t, *p);
+      }
+    text = g_string_free (t, FALSE);
+  }
   return sw_number_field_enter (self, text);
 }
 
