@@ -68,7 +68,7 @@ test_tsiolkovsky (void)
   double rocket = 0.0, v;
 
   options (&o, SW_GRAVITY_NONE, FALSE, FALSE, SW_STEERING_PROGRADE);
-  g_assert_true (sw_design_size (d, &s, &error));
+  g_assert_true (sw_size_design (d, &s, &error));
   for (guint i = 0; i < s.n_stages; i++)
     rocket += d->stages[i].isp_vac_s * G0
               * log (s.stages[i].initial_mass_kg / s.stages[i].burnout_mass_kg);
@@ -288,21 +288,32 @@ test_two_stage_losses (void)
   SwBudget b;
   double sum;
 
-  r = sw_design_ascent (d, NULL, &error);
+  r = sw_ascent_fly_design (d, NULL, &error);
   g_assert_no_error (error);
   if (r->status != SW_ASCENT_REACHED)
     g_error ("not reached: %s", r->reason);
   g_assert_true (r->reached_orbit && r->closed_loop && r->loop_converged);
 
-  /* Losses to low orbit (common practice, reference-values.md): gravity
-   * 0.8 to 1.8 km/s, drag below 0.3 km/s, steering 0.02 to 0.2 km/s. */
-  g_assert_cmpfloat (r->gravity_loss_m_s, >, 800.0);
-  g_assert_cmpfloat (r->gravity_loss_m_s, <, 1800.0);
-  g_assert_cmpfloat (r->drag_loss_m_s, >, 0.0);
-  g_assert_cmpfloat (r->drag_loss_m_s, <, 300.0);
+  /* Losses to low orbit (reference-values.md, rules of thumb: common
+   * practice, from memory): gravity 1.0 to 1.5 km/s (up to about 1.8 for
+   * low-thrust vehicles), drag 0.05 to 0.15 km/s, steering 0.02 to 0.2 km/s.
+   * This vehicle (liftoff T/W near 1.4) measures 1352 / 100 / 8 m/s.  Its
+   * steering loss lies under the rule's lower end: launched due east into
+   * its own inclination it turns only in the plane, so only the rule's upper
+   * bound is asserted for steering. */
+  g_assert_cmpfloat (r->gravity_loss_m_s, >, 1000.0);
+  g_assert_cmpfloat (r->gravity_loss_m_s, <, 1500.0);
+  g_assert_cmpfloat (r->drag_loss_m_s, >, 50.0);
+  g_assert_cmpfloat (r->drag_loss_m_s, <, 150.0);
+  g_assert_cmpfloat (r->steering_loss_m_s, >, 0.0);
   g_assert_cmpfloat (r->steering_loss_m_s, <, 200.0);
-  /* Ground to low orbit: 9.3 to 10 km/s with the losses (common practice). */
-  g_assert_cmpfloat (r->delta_v_needed_m_s, >, 9000.0);
+  /* Ground to low orbit: about 9.3 to 10 km/s with the losses (same rules).
+   * This launch measures 9008 m/s, under the rule's 9.3: it goes due east
+   * from 28.5 deg to a low 200 km orbit.  The lower bound asserted is the
+   * one the rules above give for it: 7784.3 m/s circular at 200 km less
+   * the site's 408.7 m/s (reference-values.md, computed) plus the least
+   * gravity and drag losses of the rules, 1000 + 50 m/s: 8425.6 m/s. */
+  g_assert_cmpfloat (r->delta_v_needed_m_s, >, 7784.3 - 408.7 + 1000.0 + 50.0);
   g_assert_cmpfloat (r->delta_v_needed_m_s, <, 10000.0);
 
   /* The breakdown adds up, and the loop has closed: the vehicle was sized
@@ -346,6 +357,71 @@ test_two_stage_losses (void)
   check_samples (r);
 }
 
+/* A three-stage vehicle like the simulate demo (invented numbers). */
+static const char *three_stage_loop =
+  "{ \"format\": \"stagewright-design\", \"version\": 1, \"name\": \"loop\", \"payload_kg\": 1500,"
+  "  \"mission\": { \"orbit\": { \"altitude_km\": 250, \"inclination_deg\": 40,"
+  "    \"site_latitude_deg\": 34 }, \"losses_m_s\": 1600, \"loss_model\": \"simulate\" },"
+  "  \"split\": \"optimal\", \"stages\": ["
+  "  { \"isp_vac_s\": 318, \"isp_sl_s\": 285, \"structural_coefficient\": 0.07,"
+  "    \"thrust_vac_kn\": 720, \"diameter_m\": 2.6 },"
+  "  { \"isp_vac_s\": 342, \"structural_coefficient\": 0.09, \"thrust_vac_kn\": 115,"
+  "    \"coast_before_ignition_s\": 3 },"
+  "  { \"isp_vac_s\": 325, \"structural_coefficient\": 0.12, \"thrust_vac_kn\": 28,"
+  "    \"diameter_m\": 1.8, \"coast_before_ignition_s\": 8 } ],"
+  "  \"ascent\": { \"fairing_mass_kg\": 350, \"fairing_jettison_altitude_km\": 105 } }";
+
+static void
+test_loop_first_guess (void)
+{
+  /* The closed loop finds the same losses from any first guess between 500
+   * and 3,000 m/s (too low, too high, and so high that the vehicle sized
+   * for it cannot lift off), within the 1 m/s to which it settles. */
+  static const double guesses[] = { 500, 850, 1200, 1600, 1900, 2300, 2600, 3000 };
+  double first = NAN;
+
+  for (guint i = 0; i < G_N_ELEMENTS (guesses); i++)
+    {
+      g_autoptr (SwDesign) d = load (three_stage_loop);
+      g_autoptr (SwAscentResult) r = NULL;
+      g_autoptr (GError) error = NULL;
+
+      d->mission.losses_m_s = guesses[i];
+      r = sw_ascent_fly_design (d, NULL, &error);
+      g_assert_no_error (error);
+      if (!r->loop_converged)
+        g_error ("first guess %.0f: %s", guesses[i], r->reason);
+      g_assert_cmpint (r->status, ==, SW_ASCENT_REACHED);
+      g_assert_cmpfloat (fabs (r->losses_m_s - r->loop_sized_losses_m_s), <, 1.0);
+      g_test_message ("first guess %.0f m/s: losses %.2f m/s after %u passes", guesses[i],
+                      r->losses_m_s, r->loop_iterations);
+      if (i == 0)
+        first = r->losses_m_s;
+      else
+        g_assert_cmpfloat (fabs (r->losses_m_s - first), <, 1.0);
+    }
+}
+
+static void
+test_loop_no_allowance (void)
+{
+  /* Too little thrust in the upper stages for any allowance: the loop says
+   * so with numbers rather than running out of passes. */
+  g_autoptr (SwDesign) d = load (three_stage_loop);
+  g_autoptr (SwAscentResult) r = NULL;
+  g_autoptr (GError) error = NULL;
+
+  d->stages[0].propulsion.thrust_vac_kn = 560.0;
+  d->stages[2].propulsion.thrust_vac_kn = 6.0;
+  r = sw_ascent_fly_design (d, NULL, &error);
+  g_assert_no_error (error);
+  g_test_message ("%s", r->reason);
+  g_assert_false (r->loop_converged);
+  g_assert_cmpint (r->status, ==, SW_ASCENT_NO_SOLUTION);
+  g_assert_nonnull (strstr (r->reason, "m/s"));
+  g_assert_cmpuint (r->loop_iterations, <, SW_ASCENT_LOOP_MAX);
+}
+
 static void
 test_allowance_shortfall (void)
 {
@@ -355,7 +431,7 @@ test_allowance_shortfall (void)
   g_autoptr (SwAscentResult) r = NULL;
   g_autoptr (GError) error = NULL;
 
-  r = sw_design_ascent (d, NULL, &error);
+  r = sw_ascent_fly_design (d, NULL, &error);
   g_assert_no_error (error);
   g_assert_cmpint (r->status, ==, SW_ASCENT_SHORT);
   g_assert_false (r->reached_orbit);
@@ -365,6 +441,54 @@ test_allowance_shortfall (void)
   g_assert_nonnull (strstr (r->reason, "falls short"));
   /* The orbit actually reached at burnout is no orbit: perigee underground. */
   g_assert_cmpfloat (r->perigee_km, <, 0.0);
+
+  /* The shortfall is measured by flying on with propellant the vehicle does
+   * not carry; the time series shows that part, marked, and ends at the
+   * same cutoff as the figures. */
+  {
+    const SwAscentSample *last = &g_array_index (r->samples, SwAscentSample, r->samples->len - 1);
+    gboolean coast_seen = FALSE;
+
+    g_assert_cmpfloat (r->propellant_beyond_load_kg, >, 0.0);
+    g_assert_nonnull (strstr (r->reason, "beyond its load"));
+    g_assert_true (last->beyond_load);
+    g_assert_cmpfloat_with_epsilon (last->time_s, r->cutoff.time_s, 1e-9);
+    g_assert_cmpfloat_with_epsilon (last->altitude_m, r->cutoff.altitude_m, 1e-6);
+    g_assert_cmpfloat_with_epsilon (last->mass_kg, r->cutoff.mass_kg, 1e-6);
+    /* In the coast before the second stage no thrust: the sensed
+     * acceleration is the drag's deceleration, never positive. */
+    for (guint i = 0; i < r->samples->len; i++)
+      {
+        const SwAscentSample *p = &g_array_index (r->samples, SwAscentSample, i);
+        if (p->thrust_n == 0.0)
+          {
+            coast_seen = TRUE;
+            g_assert_cmpfloat (p->axial_accel_g, <=, 0.0);
+          }
+      }
+    g_assert_true (coast_seen);
+  }
+}
+
+static void
+test_retrograde_liftoff (void)
+{
+  /* On a retrograde azimuth the site's velocity points backwards; the
+   * vehicle still stands vertical on the pad: 90 deg at liftoff. */
+  g_autoptr (SwDesign) d = load (TWO_STAGE ("2100", "allowance", "3400", "400", ""));
+  g_autoptr (SwAscentResult) r = NULL;
+  g_autoptr (GError) error = NULL;
+
+  d->mission.inclination_deg = 140.0;
+  r = sw_ascent_fly_design (d, NULL, &error);
+  g_assert_no_error (error);
+  g_assert_cmpfloat (r->launch_azimuth_deg, >, 180.0);
+  if (r->status != SW_ASCENT_REACHED && r->status != SW_ASCENT_SHORT)
+    g_error ("retrograde: %s", r->reason);
+  g_assert_cmpfloat_with_epsilon (r->stages[0].ignition.flight_path_deg, 90.0, 1e-9);
+  g_assert_cmpfloat_with_epsilon (g_array_index (r->samples, SwAscentSample, 0).flight_path_deg,
+                                  90.0, 1e-9);
+  g_assert_true (r->status == SW_ASCENT_REACHED || r->status == SW_ASCENT_SHORT);
 }
 
 static void
@@ -388,9 +512,9 @@ test_transfer (void)
   double dv2 = sqrt (MU / r_2) * (1.0 - sqrt (2.0 * r_1 / (r_1 + r_2)));
 
   d1->mission.altitude_km = d2->mission.altitude_km = 400.0;
-  r1 = sw_design_ascent (d1, NULL, &error);
+  r1 = sw_ascent_fly_design (d1, NULL, &error);
   g_assert_no_error (error);
-  r2 = sw_design_ascent (d2, NULL, &error);
+  r2 = sw_ascent_fly_design (d2, NULL, &error);
   g_assert_no_error (error);
   g_assert_true (r1->status == SW_ASCENT_REACHED || r1->status == SW_ASCENT_SHORT);
   if (r2->status != SW_ASCENT_REACHED)
@@ -420,7 +544,7 @@ test_fixed_kick (void)
   g_autoptr (SwAscentResult) r = NULL;
   g_autoptr (GError) error = NULL;
 
-  r = sw_design_ascent (d, NULL, &error);
+  r = sw_ascent_fly_design (d, NULL, &error);
   g_assert_no_error (error);
   g_assert_cmpfloat (r->pitch_kick_deg, ==, 3.0);
   g_assert_false (r->pitch_kick_solved);
@@ -436,7 +560,7 @@ test_bad_propulsion (void)
   /* Thrust-to-weight below 1 at liftoff: an infeasible answer that says why. */
   {
     g_autoptr (SwDesign) d = load (TWO_STAGE ("1600", "allowance", "1200", "220", ""));
-    g_autoptr (SwAscentResult) r = sw_design_ascent (d, NULL, &error);
+    g_autoptr (SwAscentResult) r = sw_ascent_fly_design (d, NULL, &error);
     g_assert_no_error (error);
     g_assert_cmpint (r->status, ==, SW_ASCENT_NO_SOLUTION);
     g_assert_nonnull (strstr (r->reason, "cannot lift off"));
@@ -448,7 +572,7 @@ test_bad_propulsion (void)
   /* An upper stage far too weak: no orbit, and a reason. */
   {
     g_autoptr (SwDesign) d = load (TWO_STAGE ("1600", "allowance", "2100", "25", ""));
-    g_autoptr (SwAscentResult) r = sw_design_ascent (d, NULL, &error);
+    g_autoptr (SwAscentResult) r = sw_ascent_fly_design (d, NULL, &error);
     g_assert_no_error (error);
     g_assert_false (r->reached_orbit);
     g_assert_cmpint (r->status, !=, SW_ASCENT_REACHED);
@@ -457,7 +581,7 @@ test_bad_propulsion (void)
   /* The loop cannot close when the vehicle grows faster than its thrust. */
   {
     g_autoptr (SwDesign) d = load (TWO_STAGE ("1600", "simulate", "1750", "160", ""));
-    g_autoptr (SwAscentResult) r = sw_design_ascent (d, NULL, &error);
+    g_autoptr (SwAscentResult) r = sw_ascent_fly_design (d, NULL, &error);
     g_assert_no_error (error);
     g_assert_true (r->closed_loop);
     g_assert_false (r->loop_converged);
@@ -471,7 +595,7 @@ test_bad_propulsion (void)
       "  \"mission\": { \"orbit\": { \"altitude_km\": 300, \"inclination_deg\": 30,"
       "  \"site_latitude_deg\": 10 } }, \"split\": \"equal\","
       "  \"stages\": [ { \"isp_vac_s\": 300, \"structural_coefficient\": 0.1 } ] }");
-    g_assert_null (sw_design_ascent (d, NULL, &error));
+    g_assert_null (sw_ascent_fly_design (d, NULL, &error));
     g_assert_error (error, SW_ERROR, SW_ERROR_MISSING);
     g_assert_nonnull (strstr (error->message, "thrust_vac_kn"));
     g_assert_nonnull (strstr (error->message, "isp_sl_s"));
@@ -490,12 +614,12 @@ test_bad_propulsion (void)
   {
     g_autoptr (SwDesign) d = load (TWO_STAGE ("1600", "allowance", "2100", "220", ""));
     d->stages[0].propulsion.diameter_m = -3.0;
-    g_assert_null (sw_design_ascent (d, NULL, &error));
+    g_assert_null (sw_ascent_fly_design (d, NULL, &error));
     g_assert_nonnull (strstr (error->message, "stages[0].diameter_m"));
     g_clear_error (&error);
     d->stages[0].propulsion.diameter_m = 3.0;
     d->stages[1].propulsion.thrust_vac_kn = 0.0;
-    g_assert_null (sw_design_ascent (d, NULL, &error));
+    g_assert_null (sw_ascent_fly_design (d, NULL, &error));
     g_assert_nonnull (strstr (error->message, "stages[1].thrust_vac_kn"));
     g_clear_error (&error);
   }
@@ -503,7 +627,7 @@ test_bad_propulsion (void)
   {
     g_autoptr (SwDesign) d = load (TWO_STAGE ("1600", "allowance", "2100", "220", ""));
     d->mission.altitude_km = 5000.0;
-    g_assert_null (sw_design_ascent (d, NULL, &error));
+    g_assert_null (sw_ascent_fly_design (d, NULL, &error));
     g_assert_nonnull (strstr (error->message, "altitude_km"));
     g_clear_error (&error);
   }
@@ -517,7 +641,7 @@ test_cancel (void)
   g_autoptr (GError) error = NULL;
 
   g_cancellable_cancel (c);
-  g_assert_null (sw_design_ascent (d, c, &error));
+  g_assert_null (sw_ascent_fly_design (d, c, &error));
   g_assert_error (error, G_IO_ERROR, G_IO_ERROR_CANCELLED);
 }
 
@@ -635,6 +759,9 @@ main (int argc, char **argv)
   g_test_add_func ("/core/ascent/rotation-gain", test_rotation_gain);
   g_test_add_func ("/core/ascent/two-stage-losses", test_two_stage_losses);
   g_test_add_func ("/core/ascent/allowance-shortfall", test_allowance_shortfall);
+  g_test_add_func ("/core/ascent/loop-first-guess", test_loop_first_guess);
+  g_test_add_func ("/core/ascent/retrograde-liftoff", test_retrograde_liftoff);
+  g_test_add_func ("/core/ascent/loop-no-allowance", test_loop_no_allowance);
   g_test_add_func ("/core/ascent/transfer", test_transfer);
   g_test_add_func ("/core/ascent/fixed-kick", test_fixed_kick);
   g_test_add_func ("/core/ascent/bad-propulsion", test_bad_propulsion);

@@ -273,10 +273,10 @@ test_texts_and_loss_model (void)
 
   memset (long_name, 'x', sizeof long_name - 1);
   long_name[sizeof long_name - 1] = '\0';
-  g_assert_false (sw_design_set_name (d, long_name, &error));
+  g_assert_false (sw_design_field_set_name (d, long_name, &error));
   g_assert_nonnull (strstr (error->message, "name: 199 bytes"));
   g_clear_error (&error);
-  g_assert_true (sw_design_set_stage_name (d, 1, "Kick", NULL));
+  g_assert_true (sw_design_field_set_stage_name (d, 1, "Kick", NULL));
   g_assert_cmpstr (d->stages[1].name, ==, "Kick");
   g_assert_true (sw_design_set_notes_checked (d, "Invented for a test.", NULL));
   g_assert_cmpstr (d->notes, ==, "Invented for a test.");

@@ -68,7 +68,7 @@ test_mission_hand_worked (void)
   SwReliability r;
 
   g_assert_no_error (error);
-  sw_design_reliability (d, &r);
+  sw_reliability_from_design (d, &r);
   g_assert_true (r.given);
   g_assert_cmpuint (r.n_stages, ==, 3);
   g_assert_cmpfloat_with_epsilon (r.stage[0], 0.9981216446, 1e-10);
@@ -105,7 +105,7 @@ test_no_keys_is_perfect (void)
   g_autoptr (SwDesign) d = sw_design_new_default ();
   SwReliability r;
 
-  sw_design_reliability (d, &r);
+  sw_reliability_from_design (d, &r);
   g_assert_false (r.given);
   g_assert_cmpfloat (r.mission, ==, 1.0);
 }

@@ -254,7 +254,7 @@ test_table (void)
 
   g_assert_true (sw_sensitivity_compute (d, 0.05, &t, &error));
   g_assert_no_error (error);
-  g_assert_true (sw_design_size (d, &s, NULL));
+  g_assert_true (sw_size_design (d, &s, NULL));
   g_assert_true (t.feasible);
   g_assert_cmpuint (t.n_items, ==, 2 + 2 * d->n_stages);
   for (guint r = 1; r < t.n_items; r++)

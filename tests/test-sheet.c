@@ -26,15 +26,21 @@ load_trade_study (void)
   return d;
 }
 
-static SwBriefing *
-briefing (SwBriefingFlags flags)
+enum { WITH_MONTECARLO = 1, WITH_BAND = 2 };
+
+static SwAnalysis *
+briefing (guint flags)
 {
   g_autoptr (SwDesign) d = load_trade_study ();
-  g_autoptr (GError) error = NULL;
-  SwBriefing *b = sw_briefing_new (d, flags, 0, &error);
+  SwAnalysisOptions o;
+  SwAnalysis *a;
 
-  g_assert_no_error (error);
-  return b;
+  sw_analysis_options_init (&o);
+  o.montecarlo = (flags & WITH_MONTECARLO) != 0;
+  o.band = (flags & WITH_BAND) != 0;
+  a = sw_analysis_run (d, &o, NULL);
+  g_assert_true (a->ok);
+  return a;
 }
 
 /* The test's own thousands grouping, independent of the sheet's. */
@@ -72,7 +78,7 @@ run_tool (const char *const *argv)
 static void
 test_pdf_text (void)
 {
-  g_autoptr (SwBriefing) b = briefing (SW_BRIEFING_MONTECARLO | SW_BRIEFING_BAND);
+  g_autoptr (SwAnalysis) b = briefing (WITH_MONTECARLO | WITH_BAND);
   g_autofree char *pdf = g_build_filename (tmpdir, "sheet.pdf", NULL);
   g_autoptr (GError) error = NULL;
   g_autofree char *text = NULL, *info = NULL, *mass = NULL, *expect = NULL;
@@ -84,7 +90,7 @@ test_pdf_text (void)
   g_assert_false (g_file_test (part, G_FILE_TEST_EXISTS));
 
   /* The liftoff mass as the core computes it, straight from the sizing. */
-  g_assert_true (sw_design_size (b->design, &s, NULL));
+  g_assert_true (sw_size_design (b->design, &s, NULL));
   mass = grouped (s.liftoff_mass_kg);
   expect = g_strdup_printf ("Liftoff mass %s kg", mass);
   text = run_tool ((const char *[]) { "pdftotext", "-layout", pdf, "-", NULL });
@@ -108,7 +114,7 @@ test_pdf_text (void)
 static void
 check_png (SwPaper paper, int want_w, int want_h)
 {
-  g_autoptr (SwBriefing) b = briefing (SW_BRIEFING_NONE);
+  g_autoptr (SwAnalysis) b = briefing (0);
   g_autofree char *png = g_build_filename (tmpdir, "sheet.png", NULL);
   g_autoptr (GError) error = NULL;
   cairo_surface_t *img;
@@ -164,7 +170,7 @@ svg_start (GMarkupParseContext *ctx, const char *name, const char **names, const
 static void
 test_svg_well_formed (void)
 {
-  g_autoptr (SwBriefing) b = briefing (SW_BRIEFING_NONE);
+  g_autoptr (SwAnalysis) b = briefing (0);
   g_autofree char *svg = g_build_filename (tmpdir, "sheet.svg", NULL);
   g_autoptr (GError) error = NULL;
   g_autofree char *data = NULL;
@@ -190,7 +196,7 @@ test_svg_well_formed (void)
 static void
 test_csv (void)
 {
-  g_autoptr (SwBriefing) b = briefing (SW_BRIEFING_MONTECARLO);
+  g_autoptr (SwAnalysis) b = briefing (WITH_MONTECARLO);
   g_autofree char *dir = g_build_filename (tmpdir, "csv", NULL);
   g_autoptr (GPtrArray) written = g_ptr_array_new_with_free_func (g_free);
   g_autoptr (GError) error = NULL;

@@ -74,8 +74,10 @@ single_stage_design (void)
 }
 
 /* Tsiolkovsky with the structural coefficient, top-down for one stage
- * (H. D. Curtis, Orbital Mechanics for Engineering Students, sec. 11.5,
- * from memory): n = exp(dv / (Isp g0)), m0 = m_pl n (1 - eps) / (1 - n eps). */
+ * (H. D. Curtis, Orbital Mechanics for Engineering Students, sec. 11.6, the
+ * stage-mass equation m_k = (n_k - 1)/(1 - n_k eps_k) m_above, confirmed in
+ * reference-values.md): n = exp(dv / (Isp g0)), so
+ * m0 = m_pl + m_1 = m_pl n (1 - eps) / (1 - n eps). */
 static double
 hand_liftoff (double payload, double dv, double isp, double eps)
 {

@@ -43,75 +43,6 @@ static const char *const extensions[] = { ".pdf", ".svg", ".png" };
 
 /* ---- the work (any thread) --------------------------------------------- */
 
-SwBriefing *
-sw_export_briefing_from_result (const SwAnalysis *r, GError **error)
-{
-  g_autoptr (SwBriefing) b = NULL;
-  g_autoptr (GDateTime) now = g_date_time_new_now_local ();
-  g_autofree char *date = g_date_time_format (now, "%Y-%m-%d");
-  const SwDesign *d;
-
-  g_return_val_if_fail (r != NULL, NULL);
-
-  if (!r->ok)
-    {
-      g_set_error (error, SW_ERROR, SW_ERROR_VALUE, _("The design cannot be sized, so there is "
-                                                      "no sheet to export: %s"),
-                   r->error_message != NULL ? r->error_message : "");
-      return NULL;
-    }
-  d = r->design;
-  b = g_new0 (SwBriefing, 1);
-  b->design = sw_design_copy (d);
-  g_strlcpy (b->date, date, sizeof b->date);
-  b->delta_v_m_s = r->sizing.delta_v_m_s;
-  b->sizing = r->sizing;
-  b->stage_curve = r->stage_curve;
-  b->sweep = r->sweep;
-
-  if (r->has_baseline && r->baseline_ok)
-    {
-      b->has_baseline = TRUE;
-      b->baseline_sizing = r->baseline_sizing;
-      b->baseline_curve = r->baseline_curve;
-      b->comparison = r->comparison;
-    }
-  if (r->has_sensitivity)
-    {
-      b->has_sensitivity = TRUE;
-      b->sensitivity = r->sensitivity;
-    }
-  if (r->has_montecarlo)
-    {
-      b->has_montecarlo = TRUE;
-      b->montecarlo = r->montecarlo;
-      b->has_band = r->has_band;
-      b->band = r->band;
-    }
-  else if (r->montecarlo_pending)
-    {
-      /* Exported before the solver's Monte Carlo arrived: the same run
-       * (same inputs, same seed) here, with the same band. */
-      SwSolveOptions options;
-      const SwUncertainty *unc = &d->uncertainty;
-
-      sw_solve_options_init (&options);
-      if (!sw_montecarlo_run (d, NULL, 0, FALSE, 0, options.threads, &b->montecarlo, NULL, NULL,
-                              error))
-        return NULL;
-      b->has_montecarlo = TRUE;
-      b->has_band = sw_montecarlo_band (d, NULL, SW_MAX_STAGES,
-                                        MIN (sw_uncertainty_samples (unc), options.band_samples),
-                                        sw_uncertainty_seed (unc), options.threads, &b->band,
-                                        NULL);
-    }
-  b->has_reliability = r->reliability.given;
-  b->reliability = r->reliability;
-  b->reliability_curve = r->reliability_curve;
-  sw_briefing_fill_ascent (b);
-  return g_steal_pointer (&b);
-}
-
 typedef struct {
   SwAnalysis      *result;
   SwSheetFormat  format;
@@ -136,14 +67,29 @@ export_thread (GTask *task, gpointer source, gpointer data, GCancellable *cancel
 {
   ExportJob *job = data;
   g_autoptr (GPtrArray) written = g_ptr_array_new_with_free_func (g_free);
-  g_autoptr (SwBriefing) b = NULL;
+  g_autoptr (SwAnalysis) b = sw_analysis_ref (job->result);
   GError *error = NULL;
 
-  b = sw_export_briefing_from_result (job->result, &error);
-  if (b == NULL)
+  if (!b->ok)
     {
-      g_task_return_error (task, error);
+      g_task_return_new_error (task, SW_ERROR, SW_ERROR_VALUE,
+                               _("The design cannot be sized, so there is no sheet to export: "
+                                 "%s"), b->error_message);
       return;
+    }
+  /* Exported before the solver's Monte Carlo arrived: the core's Monte Carlo
+   * phase here, on the analysis the window has.  The ascent is never flown
+   * again: the sheet shows what the window shows. */
+  if (b->montecarlo_pending)
+    {
+      SwAnalysis *mc = sw_analysis_add_montecarlo (b, cancellable);
+      if (mc == NULL)
+        {
+          g_task_return_error_if_cancelled (task);
+          return;
+        }
+      g_clear_pointer (&b, sw_analysis_unref);
+      b = mc;
     }
   if (g_task_return_error_if_cancelled (task))
     return;

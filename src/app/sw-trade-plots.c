@@ -39,6 +39,7 @@ sw_trade_plots_show_stage_count (SwPlot *plot, SwAnalysis *r)
   sw_plot_set_title (plot, _("Liftoff mass against stage count, optimal split"));
   sw_plot_set_x_axis (plot, _("Number of stages"), FALSE);
   sw_plot_set_x_format (plot, "%.0f", 1.0);
+  sw_plot_set_x_integer (plot, TRUE);
   sw_plot_set_x_range (plot, 0.5, SW_MAX_STAGES + 0.5);
   setup_mass_axis (plot);
   sw_plot_set_y_range (plot, NAN, NAN);

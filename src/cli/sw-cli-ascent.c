@@ -7,7 +7,10 @@
 #include "sw-ascent.h"
 #include "sw-atmosphere.h"
 #include "sw-budget.h"
+#include "sw-format.h"
 #include "sw-sizing.h"
+
+#include <glib/gi18n.h>
 
 #include <math.h>
 #include <stdlib.h>
@@ -110,12 +113,15 @@ add_notes_json (JsonBuilder *b, const char *notes)
 }
 
 static JsonNode *
-ascent_to_json (const SwDesign *d, const SwAscentResult *r)
+ascent_to_json (const SwAnalysis *a)
 {
+  const SwDesign *d = a->design;
+  const SwAscentResult *r = a->ascent;
   g_autoptr (JsonBuilder) b = json_builder_new_immutable ();
 
   json_builder_begin_object (b);
   add_string (b, "name", d->name);
+  sw_cli_add_verdict (b, a);
   add_bool (b, "simulated", TRUE);
   add_string (b, "status", sw_ascent_status_to_string (r->status));
   add_bool (b, "reached_orbit", r->reached_orbit);
@@ -142,6 +148,7 @@ ascent_to_json (const SwDesign *d, const SwAscentResult *r)
   sw_cli_add_number (b, "sized_delta_v_m_s", r->sized_delta_v_m_s);
   sw_cli_add_number (b, "delta_v_margin_m_s", r->delta_v_margin_m_s);
   sw_cli_add_number (b, "delta_v_missing_m_s", r->delta_v_missing_m_s);
+  sw_cli_add_number (b, "propellant_beyond_load_kg", r->propellant_beyond_load_kg);
   sw_cli_add_number (b, "liftoff_mass_kg", r->sizing.liftoff_mass_kg + r->fairing_mass_kg);
   sw_cli_add_number (b, "liftoff_thrust_to_weight", r->liftoff_thrust_to_weight);
   sw_cli_add_number (b, "max_q_pa", r->max_q_pa);
@@ -205,7 +212,7 @@ ascent_to_json (const SwDesign *d, const SwAscentResult *r)
     json_builder_add_null_value (b);
 
   add_stages_json (b, d, r->stages, r->n_stages, TRUE);
-  add_string (b, "caution", sw_cli_caution);
+  add_string (b, "caution", sw_format_cautions ());
   json_builder_end_object (b);
   return json_builder_get_root (b);
 }
@@ -320,7 +327,7 @@ print_ascent (const SwDesign *d, const SwAscentResult *r)
       /* No flight worth showing: the stage figures only. */
       g_print ("\n");
       print_stage_table (d, r->stages, r->n_stages, FALSE);
-      g_print ("\n%s\n", sw_cli_caution);
+      g_print ("\n%s\n", sw_format_cautions ());
       return;
     }
 
@@ -386,7 +393,7 @@ print_ascent (const SwDesign *d, const SwAscentResult *r)
              "%.1f m/s at T+%.0f s (impulsive)\n",
              r->transfer_perigee_km, r->transfer_apogee_km, r->circularization_m_s,
              r->circularization_time_s);
-  g_print ("\n%s\n", sw_cli_caution);
+  g_print ("\n%s\n", sw_format_cautions ());
 }
 
 static gboolean
@@ -396,9 +403,10 @@ write_csv (const char *path, const SwDesign *d, const SwAscentResult *r)
   g_autoptr (GError) error = NULL;
 
   g_string_append_printf (s, "# Stagewright ascent time series: %s\n# %s\n", d->name,
-                          sw_cli_caution);
+                          sw_format_cautions ());
   g_string_append (s, "time_s,altitude_m,downrange_m,speed_m_s,air_speed_m_s,flight_path_deg,"
-                      "dynamic_pressure_pa,mach,axial_accel_g,mass_kg,thrust_n,stage\n");
+                      "dynamic_pressure_pa,mach,axial_accel_g,mass_kg,thrust_n,stage,"
+                      "beyond_load\n");
   for (guint i = 0; i < r->samples->len; i++)
     {
       const SwAscentSample *p = &g_array_index (r->samples, SwAscentSample, i);
@@ -411,7 +419,7 @@ write_csv (const char *path, const SwDesign *d, const SwAscentResult *r)
             g_string_append_printf (s, "%.9g", v[k]);
           g_string_append_c (s, ',');
         }
-      g_string_append_printf (s, "%u\n", p->stage + 1);
+      g_string_append_printf (s, "%u,%d\n", p->stage + 1, p->beyond_load ? 1 : 0);
     }
   if (!g_file_set_contents_full (path, s->str, (gssize) s->len,
                                  G_FILE_SET_CONTENTS_CONSISTENT, 0644, &error))
@@ -423,15 +431,13 @@ write_csv (const char *path, const SwDesign *d, const SwAscentResult *r)
 }
 
 static int
-no_simulation (const SwDesign *d, const char *file, const char *why)
+no_simulation (const SwAnalysis *a, const char *why)
 {
-  SwAscentStage st[SW_MAX_STAGES];
-  g_autoptr (GError) error = NULL;
-  SwSizing s;
+  const SwDesign *d = a->design;
 
-  if (!sw_design_size (d, &s, &error) || !sw_ascent_stage_figures (d, &s, st, &error))
+  if (!a->has_stage_figures)
     {
-      g_printerr ("error: %s: %s\n", file, error->message);
+      g_printerr (_("error: %s\n"), why);
       return SW_EXIT_USAGE;
     }
   if (opt_json)
@@ -441,22 +447,24 @@ no_simulation (const SwDesign *d, const char *file, const char *why)
 
       json_builder_begin_object (b);
       add_string (b, "name", d->name);
+      sw_cli_add_verdict (b, a);
       add_bool (b, "simulated", FALSE);
       add_bool (b, "reached_orbit", FALSE);
       add_string (b, "reason", why);
-      sw_cli_add_number (b, "liftoff_mass_kg", s.liftoff_mass_kg);
-      add_stages_json (b, d, st, d->n_stages, FALSE);
-      add_string (b, "caution", sw_cli_caution);
+      sw_cli_add_number (b, "liftoff_mass_kg", a->sizing.liftoff_mass_kg);
+      add_stages_json (b, d, a->stage_figures, d->n_stages, FALSE);
+      add_string (b, "caution", sw_format_cautions ());
       json_builder_end_object (b);
       node = json_builder_get_root (b);
       sw_cli_print_json (node);
     }
   else
     {
-      g_print ("Design: %s\n\nNo ascent simulated: %s\n\n", d->name, why);
-      print_stage_table (d, st, d->n_stages, FALSE);
-      g_print ("\nFirst stage: sea-level thrust with the fairing; upper stages: vacuum thrust."
-               "\n\n%s\n", sw_cli_caution);
+      sw_cli_print_verdict (a);
+      g_print (_("\nDesign: %s\n\nNo ascent simulated: %s\n\n"), d->name, why);
+      print_stage_table (d, a->stage_figures, d->n_stages, FALSE);
+      g_print (_("\nFirst stage: sea-level thrust with the fairing; upper stages: vacuum "
+                 "thrust.\n\n%s\n"), sw_format_cautions ());
     }
   return SW_EXIT_OK;
 }
@@ -464,10 +472,11 @@ no_simulation (const SwDesign *d, const char *file, const char *why)
 int
 sw_cli_ascent (int argc, char **argv)
 {
-  g_autoptr (SwDesign) d = NULL;
-  g_autoptr (SwAscentResult) r = NULL;
-  g_autoptr (GError) error = NULL;
+  g_autoptr (SwAnalysis) a = NULL;
   g_autofree char *csv = NULL;
+  SwAnalysisOptions o;
+  const SwAscentResult *r;
+  const SwDesign *d;
   int code;
 
   opt_json = FALSE;
@@ -475,35 +484,44 @@ sw_cli_ascent (int argc, char **argv)
   if (!sw_cli_parse ("ascent", ascent_entries, &argc, &argv, 1, &code))
     return code;
   csv = g_steal_pointer (&opt_csv);
-  if ((d = sw_cli_load (argv[1])) == NULL)
-    return SW_EXIT_USAGE;
+  sw_analysis_options_init (&o);
+  o.montecarlo = FALSE;
+  if ((a = sw_cli_analyse (argv[1], &o, &code)) == NULL)
+    return code;
+  d = a->design;
 
   if (d->mission.kind != SW_MISSION_ORBIT)
     {
       if (csv != NULL)
         {
-          g_printerr ("error: %s: no time series to write: the design states its delta-v "
-                      "directly, so no ascent is simulated\n", argv[1]);
+          g_printerr (_("error: %s: no time series to write: the design states its delta-v "
+                        "directly, so no ascent is simulated\n"), argv[1]);
           return SW_EXIT_USAGE;
         }
-      return no_simulation (d, argv[1],
-                            "the design states its delta-v directly (mission.delta_v_m_s); an "
-                            "ascent needs a target orbit (mission.orbit). Below: thrust, burn "
-                            "time and thrust-to-weight from the sized masses.");
+      return no_simulation (a, _("the design states its delta-v directly (mission.delta_v_m_s); "
+                                 "an ascent needs a target orbit (mission.orbit). Below: "
+                                 "thrust, burn time and thrust-to-weight from the sized "
+                                 "masses."));
     }
-
-  r = sw_design_ascent (d, NULL, &error);
+  r = a->ascent;
   if (r == NULL)
-    return sw_cli_input_error (argv[1], error);
+    {
+      g_printerr (_("error: %s: %s\n"), argv[1], a->ascent_message);
+      return SW_EXIT_USAGE;
+    }
   if (csv != NULL && !write_csv (csv, d, r))
     return SW_EXIT_FAILURE;
   if (opt_json)
     {
-      g_autoptr (JsonNode) node = ascent_to_json (d, r);
+      g_autoptr (JsonNode) node = ascent_to_json (a);
       sw_cli_print_json (node);
     }
   else
-    print_ascent (d, r);
+    {
+      sw_cli_print_verdict (a);
+      g_print ("\n");
+      print_ascent (d, r);
+    }
   return SW_EXIT_OK;
 }
 

@@ -10,9 +10,11 @@
 #include "sw-reliability.h"
 #include "sw-sensitivity.h"
 #include "sw-csv.h"
+#include "sw-format.h"
 #include "sw-sheet.h"
 #include "sw-sizing.h"
 
+#include <glib/gi18n.h>
 #include <math.h>
 #include <string.h>
 
@@ -25,7 +27,7 @@ static double opt_step = SW_SENSITIVITY_DEFAULT_STEP * 100.0;
 static GOptionEntry sensitivity_entries[] = {
   { "step", 0, 0, G_OPTION_ARG_DOUBLE, &opt_step,
     "Plus-or-minus step of the tornado, percent of each value (default 5)", "PCT" },
-  { "json", 0, 0, G_OPTION_ARG_NONE, &opt_json, "Print JSON for machines", NULL },
+  { "json", 0, 0, G_OPTION_ARG_NONE, &opt_json, N_("Print JSON for machines"), NULL },
   { NULL }
 };
 
@@ -49,8 +51,10 @@ unit_of (SwSensParam p)
 int
 sw_cli_sensitivity (int argc, char **argv)
 {
-  g_autoptr (SwDesign) d = NULL;
-  g_autoptr (GError) error = NULL;
+  g_autoptr (SwAnalysis) a = NULL;
+  SwAnalysisOptions o;
+  const SwSensitivityTable *tp;
+  const SwDesign *d;
   SwSensitivityTable t;
   int code;
 
@@ -65,10 +69,24 @@ sw_cli_sensitivity (int argc, char **argv)
                   l->min, l->max, opt_step);
       return SW_EXIT_USAGE;
     }
-  if ((d = sw_cli_load (argv[1])) == NULL)
-    return SW_EXIT_USAGE;
-  if (!sw_sensitivity_compute (d, opt_step / 100.0, &t, &error))
-    return sw_cli_input_error (argv[1], error);
+  sw_analysis_options_init (&o);
+  o.montecarlo = FALSE;
+  o.ascent = FALSE;
+  o.sensitivity_step = opt_step / 100.0;
+  if ((a = sw_cli_analyse (argv[1], &o, &code)) == NULL)
+    return code;
+  d = a->design;
+  tp = &a->sensitivity;
+  /* An infeasible design has no table: say so with the step asked for. */
+  t = *tp;
+  if (!a->has_sensitivity)
+    {
+      t.feasible = FALSE;
+      t.n_items = 0;
+      t.n_stages = 0;
+      t.step = o.sensitivity_step;
+      t.liftoff_mass_kg = NAN;
+    }
 
   if (opt_json)
     {
@@ -126,7 +144,7 @@ sw_cli_sensitivity (int argc, char **argv)
   g_print ("Design: %s\n", d->name);
   if (!t.feasible)
     {
-      g_print ("The design is infeasible: no sensitivities.\n\n%s\n", sw_cli_caution);
+      g_print ("The design is infeasible: no sensitivities.\n\n%s\n", sw_format_cautions ());
       return SW_EXIT_OK;
     }
   g_print ("Liftoff mass %.1f kg; tornado step +-%g %%, largest effect first\n\n",
@@ -153,7 +171,7 @@ sw_cli_sensitivity (int argc, char **argv)
       g_autofree char *name = sw_cli_cell (d->stages[i].name, 28);
       g_print ("  stage %u %s %10s kg/kg\n", i + 1, name, x);
     }
-  g_print ("\n%s\n", sw_cli_caution);
+  g_print ("\n%s\n", sw_format_cautions ());
   return SW_EXIT_OK;
 }
 
@@ -169,7 +187,7 @@ static GOptionEntry montecarlo_entries[] = {
   { "seed", 0, 0, G_OPTION_ARG_INT64, &opt_seed,
     "Seed of the random stream (default: the design's, else 1)", "S" },
   { "threads", 0, 0, G_OPTION_ARG_INT, &opt_threads, "Threads (default: all cores)", "T" },
-  { "json", 0, 0, G_OPTION_ARG_NONE, &opt_json, "Print JSON for machines", NULL },
+  { "json", 0, 0, G_OPTION_ARG_NONE, &opt_json, N_("Print JSON for machines"), NULL },
   { NULL }
 };
 
@@ -236,8 +254,9 @@ spread_text (const SwSpread *s, const char *unit, char *buf, gsize size)
 int
 sw_cli_montecarlo (int argc, char **argv)
 {
+  g_autoptr (SwAnalysis) a = NULL;
   g_autoptr (SwDesign) d = NULL;
-  g_autoptr (GError) error = NULL;
+  SwAnalysisOptions o;
   SwMonteCarlo mc;
   char b1[64], b2[64], b3[64];
   int code;
@@ -273,9 +292,26 @@ sw_cli_montecarlo (int argc, char **argv)
     g_printerr ("warning: %s: the design has no \"uncertainty\" spreads; every sample is the "
                 "nominal design\n",
                 argv[1]);
-  if (!sw_montecarlo_run (d, NULL, (guint) opt_samples, opt_seed >= 0, (guint32) MAX (opt_seed, 0),
-                          (guint) opt_threads, &mc, NULL, NULL, &error))
-    return sw_cli_input_error (argv[1], error);
+  sw_analysis_options_init (&o);
+  o.ascent = FALSE;
+  o.band = FALSE;
+  o.montecarlo_always = TRUE;
+  o.montecarlo_samples = (guint) opt_samples;
+  o.montecarlo_use_seed = opt_seed >= 0;
+  o.montecarlo_seed = (guint32) MAX (opt_seed, 0);
+  o.threads = (guint) opt_threads;
+  a = sw_analysis_run (d, &o, NULL);
+  if (!a->ok)
+    {
+      g_printerr (_("error: %s: %s\n"), argv[1], a->error_message);
+      return SW_EXIT_USAGE;
+    }
+  if (!a->has_montecarlo)
+    {
+      g_printerr (_("error: %s: %s\n"), argv[1], a->montecarlo_error);
+      return SW_EXIT_USAGE;
+    }
+  mc = a->montecarlo;
 
   if (opt_json)
     {
@@ -303,6 +339,7 @@ sw_cli_montecarlo (int argc, char **argv)
       sw_cli_add_number (b, "infeasible_fraction", mc.infeasible_fraction);
       add_summary (b, "fixed_vehicle_payload_kg", &mc.payload);
       sw_cli_add_number (b, "probability_negative_margin", mc.p_negative_margin);
+      sw_cli_add_number (b, "probability_payload_fits", a->montecarlo_success);
       sw_cli_add_number (b, "payload_reserve_95_kg", mc.reserve_95_kg);
       json_builder_set_member_name (b, "margin_definition");
       json_builder_add_string_value (b, "payload margin = payload that the nominal vehicle "
@@ -329,28 +366,33 @@ sw_cli_montecarlo (int argc, char **argv)
       g_autofree char *res = sw_cli_format (mc.reserve_95_kg, 1);
       print_summary ("Payload of the nominal vehicle (propellant loads fixed)", &mc.payload,
                      "kg");
-      g_print ("  required %.1f kg; probability of a negative margin %.1f %%\n",
-               mc.required_payload_kg, 100.0 * mc.p_negative_margin);
-      g_print ("  payload reserve for 95 %% confidence: %s kg\n", res);
-      g_print ("  (margin = payload the built vehicle carries minus the required payload)\n");
+      g_autofree char *chance = sw_format_probability (a->montecarlo_success);
+      g_autofree char *resm = sw_format_mass (mc.reserve_95_kg);
+      g_print (_("  required %.1f kg; reserve for 95 %% confidence: %s kg\n"),
+               mc.required_payload_kg, res);
+      g_print (_("Built as sized, with no payload reserve, the vehicle carries the whole payload "
+                 "in %s of cases; holding back %s of payload capacity raises that to 95 %%.\n"),
+               chance, resm);
     }
   else
     g_print ("The nominal design is infeasible: no fixed vehicle to test.\n");
-  g_print ("\n%s\n", sw_cli_caution);
+  g_print ("\n%s\n", sw_format_cautions ());
   return SW_EXIT_OK;
 }
 
 /* ---- reliability ------------------------------------------------------- */
 
 static GOptionEntry json_entries[] = {
-  { "json", 0, 0, G_OPTION_ARG_NONE, &opt_json, "Print JSON for machines", NULL },
+  { "json", 0, 0, G_OPTION_ARG_NONE, &opt_json, N_("Print JSON for machines"), NULL },
   { NULL }
 };
 
 int
 sw_cli_reliability (int argc, char **argv)
 {
-  g_autoptr (SwDesign) d = NULL;
+  g_autoptr (SwAnalysis) a = NULL;
+  SwAnalysisOptions o;
+  const SwDesign *d;
   SwReliability r;
   SwReliabilityCurve curve;
   int code;
@@ -358,10 +400,14 @@ sw_cli_reliability (int argc, char **argv)
   opt_json = FALSE;
   if (!sw_cli_parse ("reliability", json_entries, &argc, &argv, 1, &code))
     return code;
-  if ((d = sw_cli_load (argv[1])) == NULL)
-    return SW_EXIT_USAGE;
-  sw_design_reliability (d, &r);
-  sw_reliability_curve_compute (d, SW_MAX_STAGES, &curve);
+  sw_analysis_options_init (&o);
+  o.montecarlo = FALSE;
+  o.ascent = FALSE;
+  if ((a = sw_cli_analyse (argv[1], &o, &code)) == NULL)
+    return code;
+  d = a->design;
+  r = a->reliability;
+  curve = a->reliability_curve;
   if (!r.given)
     g_printerr ("warning: %s: no stage has reliability keys; every stage counts as perfect\n",
                 argv[1]);
@@ -431,10 +477,11 @@ sw_cli_reliability (int argc, char **argv)
                in.ignition_reliability, r.engines[i], r.stage[i], sep);
     }
   g_print ("\nMission success probability: %.6f (%.3f %%)\n\n", r.mission, 100.0 * r.mission);
-  g_print ("Against stage count (stage k takes design stage min(k, %u)):\n", d->n_stages);
+  g_print (_("Against stage count (with more stages than the design's %u, the top stage is "
+             "repeated):\n"), d->n_stages);
   for (guint n = 0; n < curve.n_points; n++)
     g_print ("  %u stage%s  %.6f\n", n + 1, n == 0 ? " " : "s", curve.mission[n]);
-  g_print ("\n%s\n", sw_cli_caution);
+  g_print ("\n%s\n", sw_format_cautions ());
   return SW_EXIT_OK;
 }
 
@@ -442,6 +489,7 @@ sw_cli_reliability (int argc, char **argv)
 
 static char *opt_pdf, *opt_svg, *opt_png, *opt_csv, *opt_paper;
 static gboolean opt_no_montecarlo;
+static gboolean opt_no_ascent;
 
 static GOptionEntry export_entries[] = {
   { "pdf", 0, 0, G_OPTION_ARG_FILENAME, &opt_pdf, "Write the briefing sheet as PDF", "OUT" },
@@ -455,7 +503,9 @@ static GOptionEntry export_entries[] = {
   { "threads", 0, 0, G_OPTION_ARG_INT, &opt_threads,
     "Threads for the Monte Carlo (default: all cores)", "T" },
   { "no-montecarlo", 0, 0, G_OPTION_ARG_NONE, &opt_no_montecarlo,
-    "Skip the Monte Carlo even when the design has spreads", NULL },
+    N_("Skip the Monte Carlo even when the design has spreads"), NULL },
+  { "no-ascent", 0, 0, G_OPTION_ARG_NONE, &opt_no_ascent,
+    N_("Do not simulate the ascent: the verdict is paper-only"), NULL },
   { NULL }
 };
 
@@ -472,9 +522,9 @@ clear_export_options (void)
 int
 sw_cli_export (int argc, char **argv)
 {
-  g_autoptr (SwDesign) d = NULL;
-  g_autoptr (SwBriefing) b = NULL;
+  g_autoptr (SwAnalysis) b = NULL;
   g_autoptr (GError) error = NULL;
+  SwAnalysisOptions o;
   SwPaper paper = SW_PAPER_A4;
   int code = SW_EXIT_OK;
   struct { char **path; SwSheetFormat format; } sheets[] = {
@@ -484,6 +534,7 @@ sw_cli_export (int argc, char **argv)
   clear_export_options ();
   opt_threads = 0;
   opt_no_montecarlo = FALSE;
+  opt_no_ascent = FALSE;
   if (!sw_cli_parse ("export", export_entries, &argc, &argv, 1, &code))
     goto out;
   if (opt_pdf == NULL && opt_svg == NULL && opt_png == NULL && opt_csv == NULL)
@@ -505,20 +556,12 @@ sw_cli_export (int argc, char **argv)
       code = SW_EXIT_USAGE;
       goto out;
     }
-  if ((d = sw_cli_load (argv[1])) == NULL)
-    {
-      code = SW_EXIT_USAGE;
-      goto out;
-    }
-  b = sw_briefing_new (d, opt_no_montecarlo ? SW_BRIEFING_NONE
-                                            : SW_BRIEFING_MONTECARLO | SW_BRIEFING_BAND,
-                       (guint) opt_threads, &error);
-  if (b == NULL)
-    {
-      g_printerr ("error: %s: %s\n", argv[1], error->message);
-      code = SW_EXIT_USAGE;
-      goto out;
-    }
+  sw_analysis_options_init (&o);
+  o.montecarlo = !opt_no_montecarlo;
+  o.threads = (guint) opt_threads;
+  o.ascent = !opt_no_ascent;
+  if ((b = sw_cli_analyse (argv[1], &o, &code)) == NULL)
+    goto out;
 
   for (guint i = 0; i < G_N_ELEMENTS (sheets); i++)
     {

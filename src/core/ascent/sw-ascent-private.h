@@ -145,6 +145,7 @@ typedef struct {
   double        max_q_h;
   double        max_acc;
   double        max_acc_t;
+  double        max_alt;           /* highest altitude so far, m */
   gboolean      ignited[SW_MAX_STAGES];
   gboolean      burnt[SW_MAX_STAGES];
   SwAscentPoint ign[SW_MAX_STAGES];
@@ -195,5 +196,8 @@ void          sw_flight_fill_result (const SwFlightSim *s, SwOutcome out, SwAsce
 /* Rocket-equation delta-v of the sized vehicle up to state @y (see sw-ascent.h). */
 double        sw_flight_sized_delta_v (const SwFlightModel *m, guint seg, const double *y,
                                        gboolean fairing_on);
+
+/* How many times sw_ascent_fly_design() ran in this process (for tests). */
+guint sw_ascent_private_design_runs (void);
 
 G_END_DECLS

@@ -504,7 +504,7 @@ check_text (const char *path, const char *text, double max_bytes, GError **error
 }
 
 gboolean
-sw_design_set_name (SwDesign *design, const char *name, GError **error)
+sw_design_field_set_name (SwDesign *design, const char *name, GError **error)
 {
   g_return_val_if_fail (design != NULL && name != NULL, FALSE);
   if (!check_text ("name", name, sw_limit_get (SW_LIMIT_NAME_LENGTH)->max, error))
@@ -514,7 +514,7 @@ sw_design_set_name (SwDesign *design, const char *name, GError **error)
 }
 
 gboolean
-sw_design_set_stage_name (SwDesign *design, guint stage, const char *name, GError **error)
+sw_design_field_set_stage_name (SwDesign *design, guint stage, const char *name, GError **error)
 {
   g_autofree char *path = g_strdup_printf ("stages[%u].name", stage);
 

@@ -76,8 +76,8 @@ gboolean  sw_design_field_unset (SwDesign *design, SwDesignField field, guint st
 
 /* Texts.  Name and stage name: at most SW_NAME_MAX - 1 bytes; notes: the
  * notes limit.  Text that is too long is an error, never cut. */
-gboolean  sw_design_set_name (SwDesign *design, const char *name, GError **error);
-gboolean  sw_design_set_stage_name (SwDesign *design, guint stage, const char *name,
+gboolean  sw_design_field_set_name (SwDesign *design, const char *name, GError **error);
+gboolean  sw_design_field_set_stage_name (SwDesign *design, guint stage, const char *name,
                                     GError **error);
 gboolean  sw_design_set_notes_checked (SwDesign *design, const char *notes, GError **error);
 

@@ -22,7 +22,7 @@ ignition_mass (const SwDesign *design, guint stage, double *mass_kg, GError **er
 {
   SwSizing sizing;
 
-  if (!sw_design_size (design, &sizing, error))
+  if (!sw_size_design (design, &sizing, error))
     return FALSE;
   if (!sizing.feasible || stage >= sizing.n_stages
       || !isfinite (sizing.stages[stage].initial_mass_kg))
