@@ -870,7 +870,13 @@ loss_model_changed_cb (SwInspector *self)
   d = sw_document_dup_design (self->document);
   if (!sw_design_set_loss_model (d, model, &error))
     {
-      g_warning ("%s", error->message);
+      /* Refused (only an orbit mission shows the choice): show the model
+       * in force again, and why in the tooltip. */
+      self->updating++;
+      gtk_drop_down_set_selected (self->loss_model_dropdown,
+                                  design (self)->mission.loss_model == SW_LOSS_SIMULATE);
+      self->updating--;
+      gtk_widget_set_tooltip_text (GTK_WIDGET (self->loss_model_dropdown), error->message);
       return;
     }
   commit (self, g_steal_pointer (&d), NULL);
