@@ -8,6 +8,7 @@
  * field.  Suite 'gui' (Xvfb, X11 backend). */
 #include "config.h"
 
+#include "sw-application.h"
 #include "sw-number-field.h"
 #include "sw-sizing.h"
 #include "sw-window-private.h"
@@ -159,6 +160,22 @@ assert_unchanged (SwWindow *w, const SwDesign *before)
   g_assert_true (sw_design_equal (doc_design (w), before));
 }
 
+/* With SW_TEST_SHOT_DIR set, a picture of the window for a person to look
+ * at (not checked). */
+static void
+maybe_shot (SwWindow *w, const char *name)
+{
+  const char *dir = g_getenv ("SW_TEST_SHOT_DIR");
+  g_autofree char *path = NULL;
+  g_autoptr (GError) error = NULL;
+
+  if (dir == NULL)
+    return;
+  path = g_build_filename (dir, name, NULL);
+  if (!sw_application_write_png (GTK_WIDGET (w), path, &error))
+    g_test_message ("%s: %s", path, error->message);
+}
+
 /* ---- cases ------------------------------------------------------------- */
 
 /* Letters in Payload, then Enter: an error on the field with the accepted
@@ -180,6 +197,7 @@ test_letters (void)
   g_assert_cmpstr (sw_number_field_get_error (payload), ==,
                    "“abc” is not a number; write it like 0.95. Accepted: 0.1 to 10,000,000 kg");
   g_assert_true (gtk_widget_has_css_class (sw_number_field_get_entry (payload), "error"));
+  maybe_shot (w, "input-letters.png");
   /* Leaving the field does not take the text either. */
   focus_field (w, GTK_WIDGET (field (w, SW_INSPECTOR_ISP_VAC)));
   assert_unchanged (w, before);
@@ -332,12 +350,13 @@ test_dependent_field (void)
   xdo ("key", "Return", NULL);
   assert_unchanged (w, before);
   g_assert_cmpstr (sw_number_field_get_error (vac), ==,
-                   "stages[0].isp_vac_s: 200 s is below the stage's sea-level Isp of 305 s; "
-                   "lower the sea-level Isp first");
+                   "200 s is below the stage's sea-level Isp of 305 s; lower the sea-level "
+                   "Isp first");
   g_assert_cmpstr (sw_number_field_get_error (sl), ==,
                    "Above the vacuum Isp typed: lower this first");
   g_assert_true (gtk_widget_has_css_class (sw_number_field_get_entry (sl), "error"));
   g_assert_cmpstr (sw_number_field_get_text (sl), ==, "305");
+  maybe_shot (w, "input-conflict.png");
   /* Raising it again: one edit, the sea-level Isp where it was. */
   retype ("345");
   xdo ("key", "Return", NULL);

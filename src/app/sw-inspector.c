@@ -445,6 +445,18 @@ name_changed_cb (SwInspector *self, GtkEditable *entry)
   commit (self, g_steal_pointer (&d), "name");
 }
 
+/* The core's message without its leading JSON path ("stages[0].isp_vac_s: "):
+ * the field it shows under is the key. */
+static const char *
+field_message (const char *message)
+{
+  const char *colon = strstr (message, ": ");
+
+  if (colon != NULL && memchr (message, ' ', (gsize) (colon - message)) == NULL)
+    return colon + 2;
+  return message;
+}
+
 /* Every number field of a key: the core's named edit on a copy, committed
  * as one undo step.  A refusal shows on the field and the design stays as
  * it was. */
@@ -464,7 +476,7 @@ commit_field (SwInspector *self, SwNumberField *field, SwDesignField key, double
                      : sw_design_field_set (d, key, stage, value, &error);
   if (!ok)
     {
-      sw_number_field_set_error (field, error->message);
+      sw_number_field_set_error (field, field_message (error->message));
       return FALSE;
     }
   if (!sw_design_equal (d, design (self)))
@@ -770,7 +782,7 @@ caption (const char *text, const char *tooltip, GtkWidget *mnemonic)
   gtk_label_set_wrap (GTK_LABEL (label), TRUE);
   gtk_label_set_max_width_chars (GTK_LABEL (label), 16);
   gtk_widget_set_valign (label, GTK_ALIGN_START);
-  gtk_widget_set_margin_top (label, 6);
+  gtk_widget_set_margin_top (label, 8);
   gtk_widget_set_tooltip_text (label, tooltip);
   if (mnemonic != NULL)
     gtk_label_set_mnemonic_widget (GTK_LABEL (label), mnemonic);
@@ -804,7 +816,7 @@ add_number_row (SwInspector *self, GtkGrid *grid, int row, const char *text, con
   unit = gtk_label_new (limit != SW_N_LIMITS ? sw_limit_get (limit)->unit : "");
   gtk_label_set_xalign (GTK_LABEL (unit), 0.0);
   gtk_widget_set_valign (unit, GTK_ALIGN_START);
-  gtk_widget_set_margin_top (unit, 6);
+  gtk_widget_set_margin_top (unit, 8);
   gtk_widget_add_css_class (unit, "dim-label");
   gtk_grid_attach (grid, caption (text, tooltip, sw_number_field_get_entry (field)), 0, row, 1, 1);
   gtk_grid_attach (grid, GTK_WIDGET (field), 1, row, 1, 1);
@@ -896,7 +908,7 @@ thrust_cb (SwNumberField *field, SwInspector *self)
   if (!sw_design_set_thrust (d, (guint) self->selected, field == self->engine_thrust_field,
                              sw_number_field_get_value (field), &error))
     {
-      sw_number_field_set_error (field, error->message);
+      sw_number_field_set_error (field, field_message (error->message));
       return;
     }
   commit (self, g_steal_pointer (&d), NULL);
@@ -915,7 +927,7 @@ tw_cb (SwNumberField *field, SwInspector *self)
   if (!sw_design_set_thrust_for_tw (d, (guint) self->selected, sw_number_field_get_value (field),
                                     &error))
     {
-      sw_number_field_set_error (field, error->message);
+      sw_number_field_set_error (field, field_message (error->message));
       return;
     }
   commit (self, g_steal_pointer (&d), NULL);
@@ -939,7 +951,7 @@ fairing_rule_cb (SwNumberField *field, SwInspector *self)
   d = sw_document_dup_design (self->document);
   if (!sw_design_set_fairing_rule (d, by_pressure, sw_number_field_get_value (field), &error))
     {
-      sw_number_field_set_error (field, error->message);
+      sw_number_field_set_error (field, field_message (error->message));
       return;
     }
   commit (self, g_steal_pointer (&d), NULL);
@@ -984,7 +996,7 @@ drag_commit (SwInspector *self)
   d = sw_document_dup_design (self->document);
   if (!sw_design_set_drag_text (d, (guint) self->selected, text, &error))
     {
-      show_drag_error (self, error->message);
+      show_drag_error (self, field_message (error->message));
       return;
     }
   show_drag_error (self, NULL);
@@ -1667,6 +1679,19 @@ sw_inspector_init (SwInspector *self)
     const SwLimit *l = sw_limit_get (SW_LIMIT_DELTA_V_SHARE);
     gtk_adjustment_set_lower (self->share_adjustment, l->min * 100.0);
     gtk_adjustment_set_upper (self->share_adjustment, l->max * 100.0);
+  }
+  /* Captions and units stay beside the entry when an error shows under it. */
+  {
+    GtkWidget *grids[] = { gtk_widget_get_parent (GTK_WIDGET (self->payload_spin)),
+                           self->stage_grid };
+    for (guint g = 0; g < G_N_ELEMENTS (grids); g++)
+      for (GtkWidget *c = gtk_widget_get_first_child (grids[g]); c != NULL;
+           c = gtk_widget_get_next_sibling (c))
+        if (GTK_IS_LABEL (c) || GTK_IS_CHECK_BUTTON (c))
+          {
+            gtk_widget_set_valign (c, GTK_ALIGN_START);
+            gtk_widget_set_margin_top (c, GTK_IS_LABEL (c) ? 8 : 4);
+          }
   }
   build_sections (self);
   no_wheel_on_scale (GTK_WIDGET (self->share_scale));
