@@ -357,6 +357,71 @@ test_two_stage_losses (void)
   check_samples (r);
 }
 
+/* A three-stage vehicle like the simulate demo (invented numbers). */
+static const char *three_stage_loop =
+  "{ \"format\": \"stagewright-design\", \"version\": 1, \"name\": \"loop\", \"payload_kg\": 1500,"
+  "  \"mission\": { \"orbit\": { \"altitude_km\": 250, \"inclination_deg\": 40,"
+  "    \"site_latitude_deg\": 34 }, \"losses_m_s\": 1600, \"loss_model\": \"simulate\" },"
+  "  \"split\": \"optimal\", \"stages\": ["
+  "  { \"isp_vac_s\": 318, \"isp_sl_s\": 285, \"structural_coefficient\": 0.07,"
+  "    \"thrust_vac_kn\": 720, \"diameter_m\": 2.6 },"
+  "  { \"isp_vac_s\": 342, \"structural_coefficient\": 0.09, \"thrust_vac_kn\": 115,"
+  "    \"coast_before_ignition_s\": 3 },"
+  "  { \"isp_vac_s\": 325, \"structural_coefficient\": 0.12, \"thrust_vac_kn\": 28,"
+  "    \"diameter_m\": 1.8, \"coast_before_ignition_s\": 8 } ],"
+  "  \"ascent\": { \"fairing_mass_kg\": 350, \"fairing_jettison_altitude_km\": 105 } }";
+
+static void
+test_loop_first_guess (void)
+{
+  /* The closed loop finds the same losses from any first guess between 500
+   * and 3,000 m/s (too low, too high, and so high that the vehicle sized
+   * for it cannot lift off), within the 1 m/s to which it settles. */
+  static const double guesses[] = { 500, 850, 1200, 1600, 1900, 2300, 2600, 3000 };
+  double first = NAN;
+
+  for (guint i = 0; i < G_N_ELEMENTS (guesses); i++)
+    {
+      g_autoptr (SwDesign) d = load (three_stage_loop);
+      g_autoptr (SwAscentResult) r = NULL;
+      g_autoptr (GError) error = NULL;
+
+      d->mission.losses_m_s = guesses[i];
+      r = sw_ascent_fly_design (d, NULL, &error);
+      g_assert_no_error (error);
+      if (!r->loop_converged)
+        g_error ("first guess %.0f: %s", guesses[i], r->reason);
+      g_assert_cmpint (r->status, ==, SW_ASCENT_REACHED);
+      g_assert_cmpfloat (fabs (r->losses_m_s - r->loop_sized_losses_m_s), <, 1.0);
+      g_test_message ("first guess %.0f m/s: losses %.2f m/s after %u passes", guesses[i],
+                      r->losses_m_s, r->loop_iterations);
+      if (i == 0)
+        first = r->losses_m_s;
+      else
+        g_assert_cmpfloat (fabs (r->losses_m_s - first), <, 1.0);
+    }
+}
+
+static void
+test_loop_no_allowance (void)
+{
+  /* Too little thrust in the upper stages for any allowance: the loop says
+   * so with numbers rather than running out of passes. */
+  g_autoptr (SwDesign) d = load (three_stage_loop);
+  g_autoptr (SwAscentResult) r = NULL;
+  g_autoptr (GError) error = NULL;
+
+  d->stages[0].propulsion.thrust_vac_kn = 560.0;
+  d->stages[2].propulsion.thrust_vac_kn = 6.0;
+  r = sw_ascent_fly_design (d, NULL, &error);
+  g_assert_no_error (error);
+  g_test_message ("%s", r->reason);
+  g_assert_false (r->loop_converged);
+  g_assert_cmpint (r->status, ==, SW_ASCENT_NO_SOLUTION);
+  g_assert_nonnull (strstr (r->reason, "m/s"));
+  g_assert_cmpuint (r->loop_iterations, <, SW_ASCENT_LOOP_MAX);
+}
+
 static void
 test_allowance_shortfall (void)
 {
@@ -376,6 +441,54 @@ test_allowance_shortfall (void)
   g_assert_nonnull (strstr (r->reason, "falls short"));
   /* The orbit actually reached at burnout is no orbit: perigee underground. */
   g_assert_cmpfloat (r->perigee_km, <, 0.0);
+
+  /* The shortfall is measured by flying on with propellant the vehicle does
+   * not carry; the time series shows that part, marked, and ends at the
+   * same cutoff as the figures. */
+  {
+    const SwAscentSample *last = &g_array_index (r->samples, SwAscentSample, r->samples->len - 1);
+    gboolean coast_seen = FALSE;
+
+    g_assert_cmpfloat (r->propellant_beyond_load_kg, >, 0.0);
+    g_assert_nonnull (strstr (r->reason, "beyond its load"));
+    g_assert_true (last->beyond_load);
+    g_assert_cmpfloat_with_epsilon (last->time_s, r->cutoff.time_s, 1e-9);
+    g_assert_cmpfloat_with_epsilon (last->altitude_m, r->cutoff.altitude_m, 1e-6);
+    g_assert_cmpfloat_with_epsilon (last->mass_kg, r->cutoff.mass_kg, 1e-6);
+    /* In the coast before the second stage no thrust: the sensed
+     * acceleration is the drag's deceleration, never positive. */
+    for (guint i = 0; i < r->samples->len; i++)
+      {
+        const SwAscentSample *p = &g_array_index (r->samples, SwAscentSample, i);
+        if (p->thrust_n == 0.0)
+          {
+            coast_seen = TRUE;
+            g_assert_cmpfloat (p->axial_accel_g, <=, 0.0);
+          }
+      }
+    g_assert_true (coast_seen);
+  }
+}
+
+static void
+test_retrograde_liftoff (void)
+{
+  /* On a retrograde azimuth the site's velocity points backwards; the
+   * vehicle still stands vertical on the pad: 90 deg at liftoff. */
+  g_autoptr (SwDesign) d = load (TWO_STAGE ("2100", "allowance", "3400", "400", ""));
+  g_autoptr (SwAscentResult) r = NULL;
+  g_autoptr (GError) error = NULL;
+
+  d->mission.inclination_deg = 140.0;
+  r = sw_ascent_fly_design (d, NULL, &error);
+  g_assert_no_error (error);
+  g_assert_cmpfloat (r->launch_azimuth_deg, >, 180.0);
+  if (r->status != SW_ASCENT_REACHED && r->status != SW_ASCENT_SHORT)
+    g_error ("retrograde: %s", r->reason);
+  g_assert_cmpfloat_with_epsilon (r->stages[0].ignition.flight_path_deg, 90.0, 1e-9);
+  g_assert_cmpfloat_with_epsilon (g_array_index (r->samples, SwAscentSample, 0).flight_path_deg,
+                                  90.0, 1e-9);
+  g_assert_true (r->status == SW_ASCENT_REACHED || r->status == SW_ASCENT_SHORT);
 }
 
 static void
@@ -646,6 +759,9 @@ main (int argc, char **argv)
   g_test_add_func ("/core/ascent/rotation-gain", test_rotation_gain);
   g_test_add_func ("/core/ascent/two-stage-losses", test_two_stage_losses);
   g_test_add_func ("/core/ascent/allowance-shortfall", test_allowance_shortfall);
+  g_test_add_func ("/core/ascent/loop-first-guess", test_loop_first_guess);
+  g_test_add_func ("/core/ascent/retrograde-liftoff", test_retrograde_liftoff);
+  g_test_add_func ("/core/ascent/loop-no-allowance", test_loop_no_allowance);
   g_test_add_func ("/core/ascent/transfer", test_transfer);
   g_test_add_func ("/core/ascent/fixed-kick", test_fixed_kick);
   g_test_add_func ("/core/ascent/bad-propulsion", test_bad_propulsion);

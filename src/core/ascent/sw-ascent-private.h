@@ -145,6 +145,7 @@ typedef struct {
   double        max_q_h;
   double        max_acc;
   double        max_acc_t;
+  double        max_alt;           /* highest altitude so far, m */
   gboolean      ignited[SW_MAX_STAGES];
   gboolean      burnt[SW_MAX_STAGES];
   SwAscentPoint ign[SW_MAX_STAGES];

@@ -98,9 +98,9 @@ derive (const SwFlightSim *s, double t, const double *y, Derived *d)
   d->h = d->r - SW_RE;
   d->vr = y[SW_Y_VR];
   d->vt = y[SW_Y_VT];
-  d->v = hypot (d->vr, d->vt);
+  d->v = sqrt (d->vr * d->vr + d->vt * d->vt);
   d->vt_rel = d->vt - m->omega_p * d->r;
-  d->v_rel = hypot (d->vr, d->vt_rel);
+  d->v_rel = sqrt (d->vr * d->vr + d->vt_rel * d->vt_rel);
 
   switch (m->opt.gravity)
     {
@@ -117,13 +117,7 @@ derive (const SwFlightSim *s, double t, const double *y, Derived *d)
     }
 
   if (m->opt.atmosphere)
-    {
-      SwAtmosphere a;
-      sw_atmosphere_at (d->h, &a);
-      d->p = a.pressure_pa;
-      d->rho = a.density_kg_m3;
-      d->sound = a.speed_of_sound_m_s;
-    }
+    sw_atmosphere_flight (d->h, &d->p, &d->rho, &d->sound);
   else
     {
       d->p = d->rho = 0.0;
@@ -239,7 +233,20 @@ axial_accel_g (const Derived *d, double m)
 {
   double cos_a = d->v_rel > 1e-9 ? (d->sin_psi * d->vr + d->cos_psi * d->vt_rel) / d->v_rel
                                  : 1.0;
-  return d->thrust > 0.0 ? (d->thrust - d->drag * cos_a) / m / SW_G0 : d->drag / m / SW_G0;
+  /* Thrust less the drag's component along the axis; in a coast only the
+   * drag, a deceleration (negative). */
+  return (d->thrust - d->drag * cos_a) / m / SW_G0;
+}
+
+/* The inertial flight-path angle; on the pad, at rest in the air, the
+ * vehicle's own: 90 deg (its inertial velocity is the site's, which on a
+ * retrograde azimuth points backwards). */
+static double
+flight_path_deg (const Derived *d)
+{
+  if (d->v_rel < 1e-6 && d->h < 1.0)
+    return 90.0;
+  return atan2 (d->vr, d->vt) / SW_DEG;
 }
 
 static void
@@ -253,7 +260,7 @@ point_of (const SwFlightSim *s, double t, const double *y, SwAscentPoint *pt)
   pt->downrange_m = y[SW_Y_S];
   pt->speed_m_s = d.v;
   pt->air_speed_m_s = d.v_rel;
-  pt->flight_path_deg = atan2 (d.vr, d.vt) / SW_DEG;
+  pt->flight_path_deg = flight_path_deg (&d);
   pt->dynamic_pressure_pa = d.q;
   pt->mass_kg = y[SW_Y_M];
 }
@@ -310,13 +317,13 @@ event_direction (EventId e)
     }
 }
 
+/* Event @e's function at (t, y), from the derived quantities @dd there. */
 static double
-event_value (const SwFlightSim *s, EventId e, double t, const double *y)
+event_value_at (const SwFlightSim *s, EventId e, double t, const double *y, const Derived *dd)
 {
   const SwFlightModel *m = s->m;
-  Derived d;
+  const Derived d = *dd;
 
-  derive (s, t, y, &d);
   switch (e)
     {
     case EV_IMPACT:
@@ -357,6 +364,15 @@ event_value (const SwFlightSim *s, EventId e, double t, const double *y)
     default:
       return 0.0;
     }
+}
+
+static double
+event_value (const SwFlightSim *s, EventId e, double t, const double *y)
+{
+  Derived d;
+
+  derive (s, t, y, &d);
+  return event_value_at (s, e, t, y, &d);
 }
 
 static gboolean
@@ -414,7 +430,7 @@ locate (SwFlightSim *s, EventId e, double t0, const double *y0, double dt)
       gsl_root_fsolver_iterate (s->root);
       lo = gsl_root_fsolver_x_lower (s->root);
       hi = gsl_root_fsolver_x_upper (s->root);
-      if (gsl_root_test_interval (lo, hi, 1e-9, 1e-12) == GSL_SUCCESS)
+      if (gsl_root_test_interval (lo, hi, 1e-7, 0.0) == GSL_SUCCESS)
         break;
     }
   /* Make sure the state at hi is past the event. */
@@ -438,7 +454,7 @@ record_sample (SwFlightSim *s)
   SwAscentSample smp;
   Derived d;
 
-  if (!s->record || current_segment (s)->is_virtual)
+  if (!s->record)
     return;
   derive (s, s->f.t, s->f.y, &d);
   smp.time_s = s->f.t;
@@ -446,25 +462,26 @@ record_sample (SwFlightSim *s)
   smp.downrange_m = s->f.y[SW_Y_S];
   smp.speed_m_s = d.v;
   smp.air_speed_m_s = d.v_rel;
-  smp.flight_path_deg = atan2 (d.vr, d.vt) / SW_DEG;
+  smp.flight_path_deg = flight_path_deg (&d);
   smp.dynamic_pressure_pa = d.q;
   smp.mach = d.mach;
   smp.axial_accel_g = axial_accel_g (&d, s->f.y[SW_Y_M]);
   smp.mass_kg = s->f.y[SW_Y_M];
   smp.thrust_n = d.thrust;
   smp.stage = current_segment (s)->stage;
+  smp.beyond_load = current_segment (s)->is_virtual;
   g_array_append_val (s->samples, smp);
 }
 
 static void
-track (SwFlightSim *s)
+track_derived (SwFlightSim *s, const Derived *dd)
 {
-  Derived d;
+  Derived d = *dd;
   double acc;
 
   if (current_segment (s)->is_virtual)
     return;
-  derive (s, s->f.t, s->f.y, &d);
+  s->f.max_alt = MAX (s->f.max_alt, d.h);
   if (d.q > s->f.max_q)
     {
       s->f.max_q = d.q;
@@ -479,6 +496,15 @@ track (SwFlightSim *s)
     }
 }
 
+static void
+track (SwFlightSim *s)
+{
+  Derived d;
+
+  derive (s, s->f.t, s->f.y, &d);
+  track_derived (s, &d);
+}
+
 /* Integrates to @t_end or to the first event; *failed on integrator trouble. */
 static EventId
 advance (SwFlightSim *s, double t_end, gboolean *failed)
@@ -486,15 +512,21 @@ advance (SwFlightSim *s, double t_end, gboolean *failed)
   double g_prev[N_EVENTS];
   gboolean active[N_EVENTS];
 
-  for (int e = 0; e < N_EVENTS; e++)
-    {
-      active[e] = event_active (s, e);
-      g_prev[e] = active[e] ? event_value (s, e, s->f.t, s->f.y) : 0.0;
-    }
+  {
+    Derived d;
+
+    derive (s, s->f.t, s->f.y, &d);
+    for (int e = 0; e < N_EVENTS; e++)
+      {
+        active[e] = event_active (s, e);
+        g_prev[e] = active[e] ? event_value_at (s, e, s->f.t, s->f.y, &d) : 0.0;
+      }
+  }
 
   while (s->f.t < t_end)
     {
       double t0 = s->f.t, y0[SW_NY], h = s->f.h;
+      Derived dnow;
       EventId best = EV_NONE;
       double best_tau = G_MAXDOUBLE;
       int status;
@@ -512,13 +544,14 @@ advance (SwFlightSim *s, double t_end, gboolean *failed)
       if (s->f.t < t_end)
         s->f.h = h;
 
+      derive (s, s->f.t, s->f.y, &dnow);
       for (int e = 0; e < N_EVENTS; e++)
         {
           double g1;
 
           if (!active[e])
             continue;
-          g1 = event_value (s, e, s->f.t, s->f.y);
+          g1 = event_value_at (s, e, s->f.t, s->f.y, &dnow);
           if (crossed (s, e, g_prev[e], g1))
             {
               double tau = locate (s, e, t0, y0, s->f.t - t0);
@@ -540,7 +573,7 @@ advance (SwFlightSim *s, double t_end, gboolean *failed)
           track (s);
           return best;
         }
-      track (s);
+      track_derived (s, &dnow);
       record_sample (s);
     }
   return EV_NONE;
@@ -1045,6 +1078,7 @@ sw_ascent_result_new (void)
   r->circularization_m_s = r->circularization_time_s = NAN;
   r->engines_delta_v_m_s = r->delta_v_needed_m_s = r->sized_delta_v_m_s = NAN;
   r->delta_v_margin_m_s = r->delta_v_missing_m_s = NAN;
+  r->propellant_beyond_load_kg = NAN;
   r->max_q_pa = r->max_q_time_s = r->max_q_altitude_m = NAN;
   r->max_axial_g = r->max_axial_g_time_s = r->liftoff_thrust_to_weight = NAN;
   r->pitch_over_time_s = r->pitch_kick_deg = r->guidance_start_s = NAN;
@@ -1231,6 +1265,10 @@ sw_flight_fill_result (const SwFlightSim *s, SwOutcome out, SwAscentResult *res)
       needed = sized_at_cut + circ + m->cross_cost;
 
       point_of (s, f->t, f->y, &res->cutoff);
+      res->propellant_beyond_load_kg = 0.0;
+      if (sg->is_virtual)
+        res->propellant_beyond_load_kg = m->st[sg->stage].m_burnout
+                                         + (f->fairing_on ? m->fairing_mass : 0.0) - f->y[SW_Y_M];
       if (!sg->is_virtual)
         {
           st->burnout = res->cutoff;
@@ -1268,11 +1306,13 @@ sw_flight_fill_result (const SwFlightSim *s, SwOutcome out, SwAscentResult *res)
                         _("The vehicle falls short of the %.0f km orbit by %.0f m/s of "
                           "delta-v: the simulated losses are %.0f m/s where the sizing "
                           "allowed %.0f m/s. The last stage burns out at T+%.0f s, %.0f km "
-                          "up at %.0f m/s (perigee %.0f km)."),
+                          "up at %.0f m/s (perigee %.0f km); flown on to the cutoff with %.0f kg "
+                          "of propellant beyond its load, to measure the shortfall."),
                         m->r_target / 1000.0 - SW_RE / 1000.0, res->delta_v_missing_m_s,
                         res->losses_m_s, m->sized_total - m->ideal, f->t_real_bo,
                         (f->y_real_bo[SW_Y_R] - SW_RE) / 1000.0,
-                        hypot (f->y_real_bo[SW_Y_VR], f->y_real_bo[SW_Y_VT]), res->perigee_km);
+                        hypot (f->y_real_bo[SW_Y_VR], f->y_real_bo[SW_Y_VT]), res->perigee_km,
+                        res->propellant_beyond_load_kg);
           else
             g_snprintf (res->reason, sizeof res->reason,
                         _("The vehicle reaches the %.0f km orbit in the plane but lacks %.1f "

@@ -78,13 +78,17 @@ typedef struct {
   double downrange_m;          /* along the surface */
   double speed_m_s;            /* inertial */
   double air_speed_m_s;        /* relative to the turning atmosphere */
-  double flight_path_deg;      /* inertial velocity above the local horizontal */
+  double flight_path_deg;      /* inertial velocity above the local horizontal (90 on
+                                * the pad) */
   double dynamic_pressure_pa;
   double mach;
-  double axial_accel_g;        /* sensed along the thrust axis, thrust and drag, in g0 */
+  double axial_accel_g;        /* sensed along the vehicle's axis, thrust less drag, in g0;
+                                * in coasts the drag's deceleration (negative) */
   double mass_kg;
   double thrust_n;
   guint  stage;                /* index of the stage at the bottom of the stack */
+  gboolean beyond_load;        /* flown on propellant the last stage does not carry
+                                * (a "short" result measures its shortfall so) */
 } SwAscentSample;
 
 /* The state at an event. */
@@ -160,6 +164,8 @@ struct _SwAscentResult {
   double sized_delta_v_m_s;          /* what the sizing gave the vehicle */
   double delta_v_margin_m_s;         /* sized - needed: > 0 spare, < 0 missing */
   double delta_v_missing_m_s;        /* max(0, -margin) */
+  double propellant_beyond_load_kg;  /* a short flight reaches its cutoff burning this much
+                                      * propellant beyond the last stage's load (0: none) */
 
   /* loads */
   double max_q_pa;

@@ -207,3 +207,45 @@ sw_atmosphere_at (double altitude_m, SwAtmosphere *out)
       return inside;
     }
 }
+
+void
+sw_atmosphere_flight (double altitude_m, double *pressure_pa, double *density_kg_m3,
+                      double *speed_of_sound_m_s)
+{
+  double z = altitude_m;
+
+  if (!(z <= SW_ATMOSPHERE_LAYERED_TOP_M) || isnan (z))
+    {
+      SwAtmosphere a;
+
+      if (isnan (z) || z > SW_ATMOSPHERE_MAX_ALTITUDE_M)
+        {
+          sw_atmosphere_at (z, &a);
+          *pressure_pa = a.pressure_pa;
+          *density_kg_m3 = a.density_kg_m3;
+          *speed_of_sound_m_s = a.speed_of_sound_m_s;
+          return;
+        }
+      {
+        const Upper *u = upper_table ();
+        double z_km = z / 1000.0;
+        double p = exp (gsl_interp_eval (u->ln_p, u->z, u->lp, z_km, NULL));
+        double rho = exp (gsl_interp_eval (u->ln_rho, u->z, u->lr, z_km, NULL));
+
+        *pressure_pa = p;
+        *density_kg_m3 = rho;
+        *speed_of_sound_m_s = sqrt (GAMMA * p / rho);
+        return;
+      }
+    }
+  {
+    double t_m, p;
+
+    if (z < SW_ATMOSPHERE_MIN_ALTITUDE_M)
+      z = SW_ATMOSPHERE_MIN_ALTITUDE_M;
+    layered (z, &t_m, &p);
+    *pressure_pa = p;
+    *density_kg_m3 = p * M0 / (R_STAR * t_m);
+    *speed_of_sound_m_s = sqrt (GAMMA * R_STAR * t_m / M0);
+  }
+}

@@ -27,6 +27,11 @@ typedef struct {
  * temperature and speed of sound at 1000 km.  NaN gives FALSE and NaNs. */
 gboolean sw_atmosphere_at (double altitude_m, SwAtmosphere *out);
 
+/* The same pressure, density and speed of sound without the temperature:
+ * the flight simulator's hot path.  Identical values to sw_atmosphere_at. */
+void     sw_atmosphere_flight (double altitude_m, double *pressure_pa, double *density_kg_m3,
+                               double *speed_of_sound_m_s);
+
 /* Geopotential altitude (m') of geometric altitude @altitude_m (m), with the
  * standard's r0 = 6356.766 km. */
 double   sw_atmosphere_geopotential (double altitude_m);

@@ -18,16 +18,22 @@
 /* The loop looks for the losses L at which the vehicle sized for L needs
  * exactly L (sw-ascent.h defines the losses so that they plug straight into
  * the budget):  F(L) = L_simulated(size(L)) - L = 0.
- * Pass 1 sizes with the first guess L0 (losses_m_s, or 1500 m/s), pass 2
- * with what pass 1 simulated (the plain "size, simulate, resize" step).
- * Because the thrust is fixed, a heavier vehicle has a lower thrust-to-weight
- * and loses more, so L_simulated grows with L; near a liftoff thrust-to-
- * weight of 1.3 it grows almost as fast as L, and plain repetition creeps.
- * From pass 3 the next L comes from the secant through the last two passes,
- * and once F changes sign GSL's Brent method closes the bracket.  Converged
- * when |F| < 1 m/s: the required delta-v has settled within 1 m/s.  If F
- * does not fall as L grows, there is no L at which the vehicle closes: the
- * vehicle grows faster than its thrust can carry. */
+ * Because the thrust is fixed, a heavier vehicle has a lower thrust-to-
+ * weight and loses more, so L_simulated grows with L, but more slowly than
+ * L where the vehicle can close: F falls as L grows.  The loop does not
+ * depend on its first guess L0 (losses_m_s, or 1500 m/s):
+ *  1. a first pass at L0; if the vehicle sized for L0 cannot fly (too heavy
+ *     to lift off, infeasible sizing), lower allowances until one flies;
+ *  2. a bracket: from a flyable L, steps in the direction of F, each longer
+ *     than the last (the step overshoots the secant estimate by half), until
+ *     F changes sign; a step into an allowance that cannot be flown is
+ *     bisected back towards the last flyable one;
+ *  3. GSL's Brent method on the bracket until |F| < 0.2 m/s.
+ * If F stays positive up to the largest allowance that can still be sized
+ * and flown, no allowance reaches the orbit: the answer gives that
+ * allowance, what the vehicle then lacks, and why a larger one fails. */
+
+#define INNER_TOLERANCE 0.2        /* m/s: Brent stops here (the public tolerance is 1) */
 
 typedef struct {
   const SwDesign *design;
@@ -36,28 +42,38 @@ typedef struct {
   SwAscentHints   hints;
   GCancellable   *cancellable;
   GError        **error;
-  SwAscentResult *res;          /* the result of the last pass */
+  SwAscentResult *res;          /* the result of the pass nearest to F = 0 */
   double          res_L;        /* the losses it was sized with */
+  double          res_F;
   double          history[SW_ASCENT_LOOP_MAX];
   double          F[SW_ASCENT_LOOP_MAX];         /* F at history[i], NAN if failed */
   double          mass[SW_ASCENT_LOOP_MAX];
   guint           n;
-  gboolean        failed;       /* a pass gave no answer: why[] says why */
+  gboolean        failed;       /* the last pass gave no answer: why[] says why */
+  gboolean        full;         /* out of passes */
   gboolean        aborted;      /* error or cancelled: *error is set */
   char            why[SW_ASCENT_REASON_MAX];
 } Loop;
 
-/* One pass: size for @L, simulate; returns F(L), or NAN on failure. */
+/* One pass: size for @L, simulate; returns F(L), or NAN when the vehicle
+ * sized for L cannot be flown (lp->failed, lp->why) or on error. */
 static double
 pass (Loop *lp, double L)
 {
   SwSizing sizing;
+  SwAscentResult *r;
+  double F;
 
+  lp->failed = FALSE;
+  for (guint i = 0; i < lp->n; i++)
+    if (lp->history[i] == L)
+      {
+        lp->failed = !isfinite (lp->F[i]);
+        return lp->F[i];
+      }
   if (lp->n >= SW_ASCENT_LOOP_MAX)
     {
-      lp->failed = TRUE;
-      g_snprintf (lp->why, sizeof lp->why,
-                  _("the losses did not settle within 1 m/s in %d passes"), SW_ASCENT_LOOP_MAX);
+      lp->full = TRUE;
       return NAN;
     }
   lp->work->mission.losses_m_s = L;
@@ -72,56 +88,54 @@ pass (Loop *lp, double L)
   lp->mass[lp->n] = sizing.liftoff_mass_kg;
   lp->n++;
 
-  g_clear_pointer (&lp->res, sw_ascent_result_free);
-  lp->res = sw_ascent_solve_sized (lp->work, &sizing, lp->options, &lp->hints,
-                                   lp->cancellable, lp->error);
-  lp->res_L = L;
-  if (lp->res == NULL)
+  r = sw_ascent_solve_sized (lp->work, &sizing, lp->options, &lp->hints, lp->cancellable,
+                             lp->error);
+  if (r == NULL)
     {
       lp->aborted = TRUE;
       return NAN;
     }
   if (!sizing.feasible)
+    g_snprintf (lp->why, sizeof lp->why, _("sized for %.0f m/s of losses the vehicle is "
+                                          "infeasible: %s"), L, sizing.reason);
+  else if (r->status != SW_ASCENT_REACHED && r->status != SW_ASCENT_SHORT)
+    g_snprintf (lp->why, sizeof lp->why, _("sized for %.0f m/s of losses (liftoff mass %.1f t): "
+                                          "%s"), L, sizing.liftoff_mass_kg / 1000.0, r->reason);
+  if (!sizing.feasible || (r->status != SW_ASCENT_REACHED && r->status != SW_ASCENT_SHORT))
     {
       lp->failed = TRUE;
-      g_snprintf (lp->why, sizeof lp->why,
-                  _("at pass %u the losses reached %.0f m/s and the vehicle can no longer be "
-                    "sized: %s"),
-                  lp->n, L, sizing.reason);
+      if (lp->res == NULL)
+        {
+          lp->res = r;
+          lp->res_L = L;
+          lp->res_F = NAN;
+        }
+      else
+        sw_ascent_result_free (r);
       return NAN;
     }
-  if (lp->res->status != SW_ASCENT_REACHED && lp->res->status != SW_ASCENT_SHORT)
+  F = r->losses_m_s - L;
+  lp->F[lp->n - 1] = F;
+  if (lp->res == NULL || !isfinite (lp->res_F) || fabs (F) <= fabs (lp->res_F))
     {
-      lp->failed = TRUE;
-      g_snprintf (lp->why, sizeof lp->why,
-                  _("at pass %u (losses %.0f m/s, liftoff mass %.1f t): %s"), lp->n, L,
-                  sizing.liftoff_mass_kg / 1000.0, lp->res->reason);
-      return NAN;
+      g_clear_pointer (&lp->res, sw_ascent_result_free);
+      lp->res = r;
+      lp->res_L = L;
+      lp->res_F = F;
     }
-  lp->F[lp->n - 1] = lp->res->losses_m_s - L;
-  return lp->F[lp->n - 1];
+  else
+    sw_ascent_result_free (r);
+  return F;
 }
 
 static double
 brent_fn (double L, void *data)
 {
   Loop *lp = data;
-  double F;
-
-  /* gsl_root_fsolver_set evaluates the bracket's ends, passes we have flown. */
-  for (guint i = 0; i < lp->n; i++)
-    if (lp->history[i] == L && isfinite (lp->F[i]))
-      return lp->F[i];
-  F = lp->failed || lp->aborted ? NAN : pass (lp, L);
+  double F = lp->aborted || lp->full ? NAN : pass (lp, L);
 
   /* GSL's Brent needs a number; a failed pass stops the loop below. */
   return isfinite (F) ? F : 0.0;
-}
-
-static gboolean
-settled (double F)
-{
-  return fabs (F) < SW_ASCENT_LOOP_TOLERANCE;
 }
 
 SwAscentResult *
@@ -130,9 +144,11 @@ sw_ascent_close_loop (const SwDesign *design, const SwAscentOptions *options,
 {
   g_autoptr (SwDesign) work = NULL;
   Loop lp = { 0 };
-  double L0, F0, L1, F1;
-  gboolean converged = FALSE;
   const double L_max = sw_limit_get (SW_LIMIT_LOSSES)->max;
+  double La, Fa, Lb = NAN, Fb = NAN, L0, lo, hi, slope = -0.5;
+  double L_fail = NAN;               /* the least allowance known not to fly */
+  char fail_why[SW_ASCENT_REASON_MAX] = "";
+  gboolean converged = FALSE, bracketed = FALSE, first_down = TRUE;
 
   g_return_val_if_fail (design != NULL, NULL);
 
@@ -147,101 +163,271 @@ sw_ascent_close_loop (const SwDesign *design, const SwAscentOptions *options,
   lp.error = error;
 
   L0 = design->mission.has_losses ? design->mission.losses_m_s : SW_ASCENT_FIRST_GUESS_LOSSES;
-  F0 = pass (&lp, L0);
+  L0 = CLAMP (L0, 0.0, L_max);
+
+  /* 1. A flyable allowance. */
+  La = L0;
+  Fa = pass (&lp, La);
+  for (double step = 500.0; lp.failed && !lp.aborted && !lp.full; step *= 2.0)
+    {
+      L_fail = La;
+      g_strlcpy (fail_why, lp.why, sizeof fail_why);
+      if (La <= 0.0)
+        break;
+      La = MAX (0.0, La - step);
+      Fa = pass (&lp, La);
+    }
   if (lp.aborted)
     goto aborted;
-  if (lp.failed || settled (F0))
+  if (lp.failed || lp.full)
     {
-      converged = !lp.failed;
+      g_snprintf (lp.why, sizeof lp.why,
+                  _("no allowance from 0 to %.0f m/s gives a vehicle that flies; %s"), L0,
+                  fail_why);
       goto done;
     }
-  L1 = CLAMP (L0 + F0, 0.0, L_max);
-  F1 = pass (&lp, L1);
 
-  while (!lp.aborted && !lp.failed && !settled (F1))
+  /* 2. The bracket [lo, hi] with F(lo) > 0 > F(hi). */
+  if (Fa > 0.0 && fabs (Fa) >= INNER_TOLERANCE)
     {
-      double slope, L2, F2;
+      /* The fixed-point step L + F(L) = L_simulated(L) cannot pass the
+       * lowest root from below. */
+      double Lc = MIN (La + Fa, L_max), Fc;
 
-      if ((F0 < 0.0) != (F1 < 0.0))
+      Fc = pass (&lp, Lc);
+      if (lp.aborted)
+        goto aborted;
+      if (lp.failed || !(Fc < Fa))
         {
-          /* Bracketed: Brent's method on F. */
-          gsl_root_fsolver *brent = gsl_root_fsolver_alloc (gsl_root_fsolver_brent);
-          gsl_function fn = { brent_fn, &lp };
-          double lo = MIN (L0, L1), hi = MAX (L0, L1);
+          /* F grows with L here: we are above the vehicle's useful range (or
+           * the fixed-point step cannot be flown).  Walk down until F < 0,
+           * or until F grows again: then it has a minimum above 0. */
+          double Lp = La, Fp = Fa, step = MAX (Fa, 300.0);
 
-          gsl_root_fsolver_set (brent, &fn, lo, hi);
-          while (!lp.aborted && !lp.failed)
+          if (lp.failed)
             {
-              gsl_root_fsolver_iterate (brent);
-              if (lp.aborted || lp.failed)
-                break;
-              if (settled (lp.res->losses_m_s - lp.res_L))
+              L_fail = Lc;
+              g_strlcpy (fail_why, lp.why, sizeof fail_why);
+              lp.failed = FALSE;
+            }
+          for (;;)
+            {
+              double Lx = MAX (0.0, Lp - step), Fx;
+
+              if (Lp <= 0.0)
                 {
-                  F1 = lp.res->losses_m_s - lp.res_L;
+                  g_snprintf (lp.why, sizeof lp.why,
+                              _("no allowance reaches the orbit: sized with no loss allowance "
+                                "the vehicle lacks %.0f m/s"), Fp);
+                  lp.failed = TRUE;
                   break;
                 }
-              lo = gsl_root_fsolver_x_lower (brent);
-              hi = gsl_root_fsolver_x_upper (brent);
-              if (hi - lo < 0.05)
+              Fx = pass (&lp, Lx);
+              if (lp.aborted)
+                goto aborted;
+              if (lp.full || lp.failed)
+                break;
+              if (Fx < 0.0 || fabs (Fx) < INNER_TOLERANCE)
                 {
-                  /* The bracket is closed but F jumps across it (the
-                   * optimum pitch kick can switch): take the pass nearer 0. */
-                  g_snprintf (lp.why, sizeof lp.why,
-                              _("the simulated losses jump by more than 1 m/s across "
-                                "%.2f m/s of sizing allowance, near %.0f m/s"),
-                              hi - lo, lo);
-                  lp.failed = TRUE;
+                  La = Lx;
+                  Fa = Fx;
+                  break;
                 }
+              if (Fx >= Fp)
+                {
+                  g_snprintf (lp.why, sizeof lp.why,
+                              _("no allowance reaches the orbit: the least the vehicle lacks "
+                                "is about %.0f m/s, sized for %.0f m/s of losses (liftoff mass "
+                                "%.1f t)"),
+                              Fp, Lp, lp.mass[0] > 0.0 ? lp.res->sizing.liftoff_mass_kg / 1000.0
+                                                       : NAN);
+                  lp.failed = TRUE;
+                  break;
+                }
+              Lp = Lx;
+              Fp = Fx;
+              step *= 2.0;
             }
-          gsl_root_fsolver_free (brent);
-          if (lp.aborted)
-            goto aborted;
-          converged = !lp.failed;
-          goto done;
         }
+      else
+        {
+          /* Below the root: secant steps, which stay below it (F is convex
+           * in L), then a small step past it for the bracket. */
+          for (;;)
+            {
+              double sl = (Fc - Fa) / (Lc - La), Ln, Fn;
 
-      /* Not bracketed yet: the secant through the last two passes. */
-      slope = (F1 - F0) / (L1 - L0);
-      if (!(slope < -0.02))
+              if (fabs (Fc) < INNER_TOLERANCE)
+                {
+                  La = Lc;
+                  Fa = Fc;
+                  break;
+                }
+              if (!(sl < -1e-3))
+                sl = -1e-3;
+              Ln = Lc - Fc / sl;
+              Ln += MAX (1.0, 0.05 * (Ln - Lc));
+              if (isfinite (L_fail) && Ln >= L_fail)
+                Ln = 0.5 * (Lc + L_fail);
+              Ln = MIN (Ln, L_max);
+              if (Ln - Lc < 0.5)
+                {
+                  g_snprintf (lp.why, sizeof lp.why,
+                              _("no allowance reaches the orbit: sized for %.0f m/s of losses "
+                                "the vehicle still lacks %.0f m/s, and %s"),
+                              Lc, Fc, isfinite (L_fail) ? fail_why
+                                      : _("larger allowances lie beyond the accepted range"));
+                  lp.failed = TRUE;
+                  break;
+                }
+              Fn = pass (&lp, Ln);
+              if (lp.aborted)
+                goto aborted;
+              if (lp.full)
+                break;
+              if (lp.failed)
+                {
+                  L_fail = Ln;
+                  g_strlcpy (fail_why, lp.why, sizeof fail_why);
+                  lp.failed = FALSE;
+                  continue;
+                }
+              if (Fn < 0.0 || fabs (Fn) < INNER_TOLERANCE)
+                {
+                  La = Lc;
+                  Fa = Fc;
+                  Lb = Ln;
+                  Fb = Fn;
+                  bracketed = Fn < 0.0;
+                  if (!bracketed)
+                    {
+                      La = Ln;
+                      Fa = Fn;
+                    }
+                  break;
+                }
+              if (Fn >= Fc)
+                {
+                  g_snprintf (lp.why, sizeof lp.why,
+                              _("no allowance reaches the orbit: the least the vehicle lacks "
+                                "is about %.0f m/s, sized for %.0f m/s of losses"),
+                              Fc, Lc);
+                  lp.failed = TRUE;
+                  break;
+                }
+              La = Lc;
+              Fa = Fc;
+              Lc = Ln;
+              Fc = Fn;
+            }
+        }
+    }
+  /* From above (F < 0): the fixed-point step cannot pass the root either;
+   * half as far again brackets it. */
+  while (!bracketed && !lp.failed && !lp.full && !lp.aborted && Fa < 0.0
+         && fabs (Fa) >= INNER_TOLERANCE)
+    {
+      /* The first step half as far again as the fixed-point step, then the
+       * secant's root overshot by 30 %. */
+      Lb = first_down ? La + 1.5 * (Fa - 2.0) : La + 1.3 * (Fa - 2.0) / MAX (-slope, 0.02);
+      Lb = MAX (0.0, Lb);
+      first_down = FALSE;
+      if (La - Lb < 0.5)
         {
           g_snprintf (lp.why, sizeof lp.why,
-                      _("the simulated losses grow as fast as the allowance (sized with "
-                        "%.0f m/s the vehicle needs %.0f; sized with %.0f it needs %.0f): the "
-                        "vehicle grows faster than its fixed thrust can carry; give the stages "
-                        "more thrust or the vehicle less payload"),
-                      L0, L0 + F0, L1, L1 + F1);
+                      _("the vehicle sized with no loss allowance already has %.0f m/s to "
+                        "spare"), -Fa);
           lp.failed = TRUE;
           break;
         }
-      L2 = L1 - F1 / slope;
-      /* Do not leap: at most 1.5 km/s per pass, inside the accepted range. */
-      L2 = CLAMP (L2, L1 - 1500.0, L1 + 1500.0);
-      L2 = CLAMP (L2, 0.0, L_max);
-      if (fabs (L2 - L1) < 1e-9)
+      Fb = pass (&lp, Lb);
+      if (lp.aborted)
+        goto aborted;
+      if (lp.failed || lp.full)
+        break;
+      if (Fb >= 0.0 || fabs (Fb) < INNER_TOLERANCE)
         {
-          g_snprintf (lp.why, sizeof lp.why,
-                      _("the losses needed lie beyond the accepted %.0f m/s"), L_max);
-          lp.failed = TRUE;
+          bracketed = Fb > 0.0;
+          if (!bracketed)
+            {
+              La = Lb;
+              Fa = Fb;
+            }
           break;
         }
-      F2 = pass (&lp, L2);
-      /* A leap into a vehicle that cannot fly: back off towards the last pass. */
-      for (int k = 0; k < 3 && lp.failed && !lp.aborted && lp.n < SW_ASCENT_LOOP_MAX; k++)
-        {
-          lp.failed = FALSE;
-          L2 = 0.5 * (L1 + L2);
-          F2 = pass (&lp, L2);
-        }
-      L0 = L1;
-      F0 = F1;
-      L1 = L2;
-      F1 = F2;
+      if ((Fb - Fa) / (Lb - La) < -0.02)
+        slope = (Fb - Fa) / (Lb - La);
+      La = Lb;
+      Fa = Fb;
     }
   if (lp.aborted)
     goto aborted;
-  converged = !lp.failed && settled (F1);
+  if (lp.failed)
+    goto done;
+  if (lp.full)
+    {
+      g_snprintf (lp.why, sizeof lp.why,
+                  _("the losses did not settle within 1 m/s in %d passes"), SW_ASCENT_LOOP_MAX);
+      goto done;
+    }
+  if (!bracketed || fabs (lp.res_F) < INNER_TOLERANCE)
+    {
+      converged = fabs (lp.res_F) < SW_ASCENT_LOOP_TOLERANCE;
+      goto done;
+    }
+
+  /* 3. Brent's method on the bracket. */
+  lo = MIN (La, Lb);
+  hi = MAX (La, Lb);
+  {
+    gsl_root_fsolver *brent = gsl_root_fsolver_alloc (gsl_root_fsolver_brent);
+    gsl_function fn = { brent_fn, &lp };
+
+    gsl_root_fsolver_set (brent, &fn, lo, hi);
+    while (!lp.aborted && !lp.full)
+      {
+        gsl_root_fsolver_iterate (brent);
+        if (lp.aborted || lp.full)
+          break;
+        if (lp.failed)
+          {
+            /* Inside a bracket of flyable allowances: should not happen. */
+            break;
+          }
+        if (fabs (lp.res_F) < INNER_TOLERANCE)
+          break;
+        lo = gsl_root_fsolver_x_lower (brent);
+        hi = gsl_root_fsolver_x_upper (brent);
+        if (hi - lo < 0.05)
+          break;
+      }
+    gsl_root_fsolver_free (brent);
+  }
+  if (lp.aborted)
+    goto aborted;
+  converged = isfinite (lp.res_F) && fabs (lp.res_F) < SW_ASCENT_LOOP_TOLERANCE;
+  if (!converged)
+    {
+      if (lp.full)
+        g_snprintf (lp.why, sizeof lp.why,
+                    _("the losses did not settle within 1 m/s in %d passes"),
+                    SW_ASCENT_LOOP_MAX);
+      else if (lp.failed)
+        /* lp.why says why */;
+      else
+        g_snprintf (lp.why, sizeof lp.why,
+                    _("the simulated losses jump by %.1f m/s across %.2f m/s of sizing "
+                      "allowance, near %.0f m/s"),
+                    fabs (lp.res_F), hi - lo, lo);
+    }
 
 done:
+  if (lp.res == NULL)
+    {
+      /* No pass at all (should not happen): report the failure plainly. */
+      lp.res = sw_ascent_result_new ();
+      lp.res_L = L0;
+    }
   lp.res->closed_loop = TRUE;
   lp.res->loop_converged = converged;
   lp.res->loop_iterations = lp.n;

@@ -21,6 +21,7 @@
 #include <string.h>
 
 #define PSI_LIMIT (80.0 * SW_DEG)
+#define SEARCH_RTOL 1e-5
 #define JACOBIAN_STEP 2e-4           /* rad */
 
 /* ---- guidance ---------------------------------------------------------- */
@@ -41,6 +42,14 @@ typedef struct {
   SwOutcome     last_outcome;
   double        tol;             /* of the steering residuals (10 km and deg units) */
   guint         orbits;          /* trial flights that reached the cutoff energy */
+  double        best_short;      /* least delta-v shortfall of a trial that missed the
+                                  * cutoff energy, m/s (G_MAXDOUBLE: none measured) */
+  double        best_short_kick; /* the kick of that trial */
+  double        best_fall_alt;   /* highest point of a first stage that fell back, m */
+  double        best_fall_kick;
+  gboolean      any_guide;       /* some kick brought the first stage to staging */
+  gboolean      any_solved;      /* some kick has flown to the cutoff */
+  gboolean      any_energy;      /* some trial reached the cutoff energy */
   GCancellable *cancellable;
   gboolean      cancelled;
 } Solver;
@@ -71,7 +80,24 @@ fly_guided (Solver *sv, const double *psi)
   s->stop_at_po = s->stop_at_guide = FALSE;
   sv->last_outcome = sw_flight_run (s);
   if (sv->last_outcome == SW_OUT_CUTOFF)
-    sv->orbits++;
+    {
+      sv->orbits++;
+      sv->any_energy = TRUE;
+    }
+  else
+    {
+      /* How far from the cutoff energy the trial ended: the speed it lacks
+       * at its last radius, a lower bound of the delta-v it misses. */
+      double r = s->f.y[SW_Y_R], v = hypot (s->f.y[SW_Y_VR], s->f.y[SW_Y_VT]);
+      double e = 2.0 * (sv->model.e_target + SW_WGS84_MU / MAX (r, SW_RE));
+      double short_m_s = sqrt (MAX (e, 0.0)) - v;
+
+      if (isfinite (short_m_s) && short_m_s < sv->best_short)
+        {
+          sv->best_short = short_m_s;
+          sv->best_short_kick = sv->kick;
+        }
+    }
   return sv->last_outcome;
 }
 
@@ -195,6 +221,60 @@ solve_steering (Solver *sv, const double *guess, double *psi)
   return ok;
 }
 
+/* A bracketed search for the steering: the residuals on a grid of start
+ * and end pitches (the flight-path angle at staging and -10 to 78 deg at
+ * the start, -40 to 55 deg at the end), then the root finder from
+ * the SCAN_STARTS grid points nearest to the target (an orbit's energy
+ * reached first, then the smallest residual).  TRUE with @psi solved. */
+#define SCAN_STARTS 6
+
+typedef struct {
+  double psi[2];
+  double score;
+} ScanPoint;
+
+static int
+cmp_scan (const void *a, const void *b)
+{
+  double x = ((const ScanPoint *) a)->score, y = ((const ScanPoint *) b)->score;
+  return (x > y) - (x < y);
+}
+
+static gboolean
+scan_steering (Solver *sv, double *psi)
+{
+  const double start_deg[] = { -10.0, 0.0, 10.0, 20.0, 35.0, 50.0, 65.0, 78.0 };
+  const double end_deg[] = { -40.0, -20.0, -5.0, 10.0, 30.0, 55.0 };
+  ScanPoint pts[(G_N_ELEMENTS (start_deg) + 1) * G_N_ELEMENTS (end_deg)];
+  guint n = 0;
+
+  for (guint i = 0; i <= G_N_ELEMENTS (start_deg) && !sv->cancelled; i++)
+    for (guint j = 0; j < G_N_ELEMENTS (end_deg); j++)
+      {
+        double p[2] = { (i == 0 ? sv->guide_gamma : start_deg[i - 1] * SW_DEG),
+                        end_deg[j] * SW_DEG }, r[2];
+        SwOutcome o = fly_guided (sv, p);
+
+        residuals (sv, o, r);
+        pts[n].psi[0] = p[0];
+        pts[n].psi[1] = p[1];
+        /* Flights that reach the orbit's energy first. */
+        pts[n].score = hypot (r[0], r[1]) + (o == SW_OUT_CUTOFF ? 0.0 : 1.0e6);
+        n++;
+      }
+  if (g_cancellable_is_cancelled (sv->cancellable))
+    sv->cancelled = TRUE;
+  qsort (pts, n, sizeof pts[0], cmp_scan);
+  for (guint k = 0; k < MIN (n, SCAN_STARTS) && !sv->cancelled; k++)
+    {
+      if (pts[k].score >= 1.0e6 && k > 0)
+        break;
+      if (solve_steering (sv, pts[k].psi, psi))
+        return TRUE;
+    }
+  return FALSE;
+}
+
 /* Flies the first stage with pitch kick @kick and solves the steering.
  * Sets sv->needed, sv->psi. */
 static gboolean
@@ -216,11 +296,19 @@ solve_for_kick (Solver *sv, double kick)
   o = sw_flight_run (s);
   if (o != SW_OUT_GUIDE)
     {
+      /* The first stage fell back: remember how high the best kick got. */
+      double top = s->f.max_alt;
+      if (top > sv->best_fall_alt)
+        {
+          sv->best_fall_alt = top;
+          sv->best_fall_kick = kick;
+        }
       sv->have_guide = FALSE;
       return FALSE;
     }
   sv->guide_snap = s->f;
   sv->have_guide = TRUE;
+  sv->any_guide = TRUE;
   sv->orbits = 0;
   sv->guide_gamma = atan2 (s->f.y[SW_Y_VR], s->f.y[SW_Y_VT] - sv->model.omega_p * s->f.y[SW_Y_R]);
 
@@ -238,13 +326,13 @@ solve_for_kick (Solver *sv, double kick)
       double g[2] = { (i == 0 ? sv->guide_gamma / SW_DEG : guesses[i][0]) * SW_DEG,
                       guesses[i][1] * SW_DEG };
 
-      /* Two starts and not one trial flight reached orbit energy: the upper
-       * stages cannot make it from this staging point. */
-      if (i == 1 && sv->orbits == 0)
-        break;
       if (solve_steering (sv, g, psi))
         goto solved;
     }
+  /* The quick starts failed: scan a grid of start and end pitches, and
+   * start the root finder from the grid points that came closest. */
+  if (!sv->cancelled && !sv->any_solved && scan_steering (sv, psi))
+    goto solved;
   return FALSE;
 
 solved:
@@ -255,7 +343,9 @@ solved:
     /* The two angles can have two roots.  The cheap one lowers the pitch
      * through the burn (the optimal law's shape); a root whose pitch rises
      * has dived first.  Then try the other starts and keep the cheaper. */
-    if (psi[1] > psi[0] + 1.0 * SW_DEG)
+    gboolean moved = psi[1] > psi[0] + 1.0 * SW_DEG;
+
+    if (moved)
       for (guint i = 0; i < G_N_ELEMENTS (guesses) && !sv->cancelled; i++)
         {
           double g[2] = { (i == 0 ? sv->guide_gamma / SW_DEG : guesses[i][0]) * SW_DEG,
@@ -275,14 +365,16 @@ solved:
                 }
             }
         }
-    /* Leave the simulator on the chosen solution. */
-    if (fly_guided (sv, psi) != SW_OUT_CUTOFF)
+    /* Leave the simulator on the chosen solution (solve_steering left it
+     * there unless other roots were tried). */
+    if (moved && fly_guided (sv, psi) != SW_OUT_CUTOFF)
       return FALSE;
     sv->psi[0] = psi[0];
     sv->psi[1] = psi[1];
     sv->psi_gamma = sv->guide_gamma;
     sv->have_psi = TRUE;
     sv->needed = needed;
+    sv->any_solved = TRUE;
     return TRUE;
   }
 }
@@ -299,11 +391,18 @@ kick_objective (double kick, void *data)
       sv->cancelled = TRUE;
       return KICK_FAILED;
     }
-  return solve_for_kick (sv, kick) ? sv->needed : KICK_FAILED + kick;
+  {
+    guint before = sv->sim.n_runs;
+    gboolean ok = solve_for_kick (sv, kick);
+    if (g_getenv ("SW_KICK_DEBUG"))
+      g_printerr ("kick %.3f: %s %.2f, %u flights\n", kick / SW_DEG, ok ? "ok" : "FAIL",
+                  ok ? sv->needed : 0.0, sv->sim.n_runs - before);
+    return ok ? sv->needed : KICK_FAILED + kick;
+  }
 }
 
 /* The pitch kick that needs the least delta-v.  Cold (@grid): a coarse
- * geometric grid from 0.75 to 24 deg, whose best point and its neighbours
+ * geometric grid from 0.1 to 25.6 deg, whose best point and its neighbours
  * bracket the optimum (the cost can have more than one valley when the
  * vehicle is very lively).  Warm: from @start, kicks double and halve in
  * turn until one flies to orbit.  Then a geometric ladder walks downhill
@@ -312,7 +411,8 @@ static gboolean
 optimise_kick (Solver *sv, double start, gboolean grid, double *best_kick, gboolean *at_edge)
 {
   const double lo_limit = 0.05 * SW_DEG, hi_limit = 30.0 * SW_DEG;
-  double ratio = grid ? 2.0 : 1.3;
+  enum { GRID = 9 };
+  double ratio = grid ? 2.0 : 1.15;
   double k[3], f[3], up = start, down = start, mid = start, fmid;
   gsl_min_fminimizer *min;
   gsl_function fn = { kick_objective, sv };
@@ -322,25 +422,47 @@ optimise_kick (Solver *sv, double start, gboolean grid, double *best_kick, gbool
   *at_edge = FALSE;
   if (grid)
     {
-      double gk[6], gf[6];
+      double gk[GRID], gf[GRID];
       int best = -1;
+      const int mid_i = 5;   /* 3.2 deg */
 
-      for (int i = 0; i < 6 && !sv->cancelled; i++)
+      /* From 3.2 deg up while the cost falls, then down while it falls or
+       * nothing has flown yet: every grid kick is tried when needed, the
+       * cheap vehicles stop early. */
+      for (int i = 0; i < GRID; i++)
         {
-          gk[i] = 0.75 * SW_DEG * (1 << i);
+          gk[i] = 0.1 * SW_DEG * (1 << i);
+          gf[i] = NAN;
+        }
+      for (int i = mid_i; i < GRID && !sv->cancelled; i++)
+        {
           gf[i] = kick_objective (gk[i], sv);
           if (gf[i] < KICK_FAILED && (best < 0 || gf[i] < gf[best]))
             best = i;
+          else if (best >= 0)
+            break;
         }
+      if (best < 0 || best == mid_i)
+        for (int i = mid_i - 1; i >= 0 && !sv->cancelled; i--)
+          {
+            gf[i] = kick_objective (gk[i], sv);
+            if (gf[i] < KICK_FAILED && (best < 0 || gf[i] < gf[best]))
+              best = i;
+            else if (best >= 0)
+              break;
+          }
+      for (int i = best - 1; i <= best + 1 && best >= 0 && !sv->cancelled; i++)
+        if (i >= 0 && i < GRID && isnan (gf[i]))
+          gf[i] = kick_objective (gk[i], sv);
       if (best < 0 || sv->cancelled)
         return FALSE;
       k[0] = best > 0 ? gk[best - 1] : gk[0] / ratio;
       f[0] = best > 0 ? gf[best - 1] : kick_objective (k[0], sv);
       k[1] = gk[best];
       f[1] = gf[best];
-      k[2] = best < 5 ? gk[best + 1] : MIN (gk[5] * 1.25, hi_limit);
-      f[2] = best < 5 ? gf[best + 1] : kick_objective (k[2], sv);
-      ratio = best < 5 ? 2.0 : 1.25;
+      k[2] = best < GRID - 1 ? gk[best + 1] : MIN (gk[GRID - 1] * 1.15, hi_limit);
+      f[2] = best < GRID - 1 ? gf[best + 1] : kick_objective (k[2], sv);
+      ratio = best < GRID - 1 ? 2.0 : 1.15;
     }
   else
     {
@@ -446,7 +568,7 @@ optimise_kick (Solver *sv, double start, gboolean grid, double *best_kick, gbool
         break;
       /* The optimum is flat: stop when the kick is pinned to 0.05 deg or
        * the needed delta-v has stopped improving by 0.05 m/s twice. */
-      calm = before - gsl_min_fminimizer_f_minimum (min) < 0.05 ? calm + 1 : 0;
+      calm = before - gsl_min_fminimizer_f_minimum (min) < 0.1 ? calm + 1 : 0;
       if (calm >= 2
           || gsl_min_test_interval (gsl_min_fminimizer_x_lower (min),
                                     gsl_min_fminimizer_x_upper (min), 0.05 * SW_DEG, 0.0)
@@ -460,30 +582,44 @@ optimise_kick (Solver *sv, double start, gboolean grid, double *best_kick, gbool
 }
 
 static void
-describe_failure (Solver *sv, SwAscentResult *res)
+describe_failure (Solver *sv, SwAscentResult *res, gboolean fixed_kick)
 {
   const SwFlightModel *m = &sv->model;
   const SwFlightState *f = &sv->sim.f;
+  g_autofree char *kicks = fixed_kick
+    ? g_strdup_printf (_("with the pitch kick of %.2f deg"), sv->kick / SW_DEG)
+    : g_strdup (_("with every pitch kick from 0.05 to 30 deg"));
 
   res->status = SW_ASCENT_NO_SOLUTION;
   if (!sv->have_po)
     g_snprintf (res->reason, sizeof res->reason,
                 _("No ascent: the first stage never reaches the pitch-over speed of %.0f m/s "
-                  "(thrust-to-weight %.2f at liftoff)."),
-                m->pitch_over_speed, res->liftoff_thrust_to_weight);
-  else if (!sv->have_guide)
+                  "(thrust-to-weight %.2f at liftoff); flying straight up it ends at T+%.0f s, "
+                  "%.1f km."),
+                m->pitch_over_speed, res->liftoff_thrust_to_weight, f->t,
+                (f->y[SW_Y_R] - SW_RE) / 1000.0);
+  else if (!sv->any_guide)
     g_snprintf (res->reason, sizeof res->reason,
-                _("No ascent: with every pitch-over tried the vehicle falls back before the "
-                  "upper stages take over (T+%.0f s, %.1f km). The first stage lacks thrust "
-                  "or burns too short."),
-                f->t, (f->y[SW_Y_R] - SW_RE) / 1000.0);
+                _("No ascent: %s the vehicle falls back to the ground before the first stage "
+                  "burns out (thrust-to-weight %.2f at liftoff; the best kick, %.2f deg, "
+                  "reaches %.1f km). The first stage lacks thrust or burns too short."),
+                kicks, res->liftoff_thrust_to_weight, sv->best_fall_kick / SW_DEG,
+                sv->best_fall_alt / 1000.0);
+  else if (!sv->any_energy && sv->best_short < G_MAXDOUBLE)
+    g_snprintf (res->reason, sizeof res->reason,
+                _("No ascent: %s no steering of the upper stages reaches the energy of the "
+                  "%.0f km orbit, even with extra propellant in the last stage down to 5 %% of "
+                  "its burnout mass: the best trial (kick %.2f deg) lacks %.0f m/s of speed. "
+                  "The upper stages lack thrust or propellant: check their ignition "
+                  "thrust-to-weight."),
+                kicks, (m->r_target - SW_RE) / 1000.0, sv->best_short_kick / SW_DEG,
+                MAX (sv->best_short, 0.0));
   else
     g_snprintf (res->reason, sizeof res->reason,
-                _("No ascent: no steering of the upper stages reaches the %.0f km circular "
-                  "orbit, even with extra propellant in the last stage (the attempt ends at "
-                  "T+%.0f s, %.1f km up at %.0f m/s). The upper stages may lack thrust: "
-                  "check their ignition thrust-to-weight."),
-                (m->r_target - SW_RE) / 1000.0, f->t, (f->y[SW_Y_R] - SW_RE) / 1000.0,
+                _("No ascent: %s the upper stages reach the energy of the %.0f km orbit, but "
+                  "no steering found puts the cutoff at that altitude with a level flight "
+                  "path (the last attempt ends at T+%.0f s, %.1f km up at %.0f m/s)."),
+                kicks, (m->r_target - SW_RE) / 1000.0, f->t, (f->y[SW_Y_R] - SW_RE) / 1000.0,
                 hypot (f->y[SW_Y_VR], f->y[SW_Y_VT]));
 }
 
@@ -515,6 +651,8 @@ sw_ascent_solve_sized (const SwDesign *design, const SwSizing *sizing,
   sv = g_new0 (Solver, 1);
   sv->cancellable = cancellable;
   sv->tol = 1e-4;
+  sv->best_short = G_MAXDOUBLE;
+  sv->best_fall_alt = -G_MAXDOUBLE;
   bs = sw_flight_model_build (&sv->model, design, sizing, &opt, res, error);
   if (bs == SW_BUILD_ERROR)
     {
@@ -581,11 +719,19 @@ sw_ascent_solve_sized (const SwDesign *design, const SwSizing *sizing,
     {
       gboolean warm = hints != NULL && hints->have_kick;
       double start = warm ? hints->kick_rad : 3.0 * SW_DEG;
-      /* Search with a 10 m / 0.001 deg cutoff, then solve the best kick to
-       * 1 m / 1e-4 deg. */
+      /* Search with a 10 m / 0.001 deg cutoff and the integrator at a
+       * relative tolerance of SEARCH_RTOL (the cost's noise stays near
+       * 0.01 m/s), then solve the best kick to 1 m / 1e-4 deg at the
+       * tolerance asked for. */
       sv->tol = 1e-3;
+      if (SEARCH_RTOL > opt.rtol)
+        gsl_odeiv2_control_init (s->ctl, 1e-6, SEARCH_RTOL, 1.0, 0.0);
       ok = optimise_kick (sv, start, !warm, &kick, &at_edge) && !sv->cancelled;
+      /* A warm start that found nothing: the full search from the grid. */
+      if (!ok && warm && !sv->cancelled)
+        ok = optimise_kick (sv, start, TRUE, &kick, &at_edge) && !sv->cancelled;
       sv->tol = 1e-4;
+      gsl_odeiv2_control_init (s->ctl, 1e-6, sv->model.opt.rtol, 1.0, 0.0);
       if (ok)
         ok = solve_for_kick (sv, kick);
       res->pitch_kick_solved = TRUE;
@@ -603,7 +749,7 @@ sw_ascent_solve_sized (const SwDesign *design, const SwSizing *sizing,
   if (!ok)
     {
       /* No flight to report: the reason, and the stage figures from the sizing. */
-      describe_failure (sv, res);
+      describe_failure (sv, res, design->ascent.has_pitch_kick);
       sw_ascent_stage_figures (design, sizing, res->stages, NULL);
       res->guidance_iterations = runs;
       sw_flight_clear (s);
@@ -633,7 +779,7 @@ sw_ascent_solve_sized (const SwDesign *design, const SwSizing *sizing,
   }
   sw_flight_fill_result (s, o, res);
   if (o != SW_OUT_CUTOFF)
-    describe_failure (sv, res);
+    describe_failure (sv, res, design->ascent.has_pitch_kick);
   res->pitch_kick_deg = kick / SW_DEG;
   res->guidance_start_s = s->f.t_guide;
   res->steering_start_deg = clamp_psi (sv->psi[0]) / SW_DEG;
