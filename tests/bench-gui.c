@@ -99,32 +99,32 @@ result_drawn_cb (SwWindow *w, guint64 serial, Drawn *drawn)
 static void
 scripted_edit (SwInspector *insp, guint i)
 {
-  GtkSpinButton *spin;
+  SwNumberField *spin;
   double value;
 
   switch (i % 4)
     {
     case 0:
       sw_inspector_set_selected (insp, 0);
-      spin = GTK_SPIN_BUTTON (sw_inspector_get_field (insp, SW_INSPECTOR_ISP_VAC));
+      spin = SW_NUMBER_FIELD (sw_inspector_get_field (insp, SW_INSPECTOR_ISP_VAC));
       value = 320.0 + (i % 40);
       break;
     case 1:
       sw_inspector_set_selected (insp, 1);
-      spin = GTK_SPIN_BUTTON (sw_inspector_get_field (insp, SW_INSPECTOR_EPS));
+      spin = SW_NUMBER_FIELD (sw_inspector_get_field (insp, SW_INSPECTOR_EPS));
       value = 0.08 + 0.001 * (i % 40);
       break;
     case 2:
-      spin = GTK_SPIN_BUTTON (sw_inspector_get_field (insp, SW_INSPECTOR_PAYLOAD));
+      spin = SW_NUMBER_FIELD (sw_inspector_get_field (insp, SW_INSPECTOR_PAYLOAD));
       value = 6000.0 + 50.0 * (i % 40);
       break;
     default:
       sw_inspector_set_selected (insp, 0);
-      spin = GTK_SPIN_BUTTON (sw_inspector_get_field (insp, SW_INSPECTOR_SHARE));
+      spin = SW_NUMBER_FIELD (sw_inspector_get_field (insp, SW_INSPECTOR_SHARE));
       value = 35.0 + (i % 20);
       break;
     }
-  gtk_spin_button_set_value (spin, value);
+  sw_number_field_commit_value (spin, value);
 }
 
 static double
