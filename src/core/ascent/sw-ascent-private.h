@@ -16,6 +16,7 @@ typedef struct {
   double   kick_rad;
   gboolean have_psi;
   double   psi[2];         /* linear-tangent start and end pitch, rad */
+  gboolean hold_kick;      /* fly kick_rad as given (no kick search) */
 } SwAscentHints;
 
 /* One ascent of the vehicle given by @sizing (the design supplies the
