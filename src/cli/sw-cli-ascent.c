@@ -136,6 +136,8 @@ ascent_to_json (const SwDesign *d, const SwAscentResult *r)
   sw_cli_add_number (b, "fairing_loss_m_s", r->fairing_loss_m_s);
   sw_cli_add_number (b, "raising_loss_m_s", r->raising_loss_m_s);
   sw_cli_add_number (b, "other_loss_m_s", r->other_loss_m_s);
+  sw_cli_add_number (b, "rotation_term_m_s", r->rotation_term_m_s);
+  sw_cli_add_number (b, "gravity_loss_air_m_s", r->gravity_loss_air_m_s);
   sw_cli_add_number (b, "losses_m_s", r->losses_m_s);
   sw_cli_add_number (b, "engines_delta_v_m_s", r->engines_delta_v_m_s);
   sw_cli_add_number (b, "delta_v_needed_m_s", r->delta_v_needed_m_s);
@@ -333,7 +335,8 @@ print_ascent (const SwDesign *d, const SwAscentResult *r)
       g_print ("\nDelta-v budget (m/s)\n");
       g_print ("  ideal |v_orbit - v_site|   %9.1f   (rotation gain %.1f)\n",
                r->ideal_delta_v_m_s, r->rotation_gain_m_s);
-      g_print ("  gravity loss               %9.1f\n", r->gravity_loss_m_s);
+      g_print ("  gravity loss               %9.1f   (inertial flight path; %.1f against "
+               "the air)\n", r->gravity_loss_m_s, r->gravity_loss_air_m_s);
       g_print ("  drag loss                  %9.1f\n", r->drag_loss_m_s);
       g_print ("  steering loss              %9.1f\n", r->steering_loss_m_s);
       g_print ("  back-pressure thrust loss  %9.1f\n", r->pressure_loss_m_s);
@@ -343,7 +346,9 @@ print_ascent (const SwDesign *d, const SwAscentResult *r)
                  r->raising_loss_m_s, r->circularization_m_s);
       else
         g_print ("  cutoff above circular speed%9.1f\n", r->raising_loss_m_s);
-      g_print ("  other (rotation at altitude) %7.1f\n", r->other_loss_m_s);
+      g_print ("  turning atmosphere         %9.1f   (thrust and drag against the air)\n",
+               r->rotation_term_m_s);
+      g_print ("  residual                   %9.1f\n", r->other_loss_m_s - r->rotation_term_m_s);
       g_print ("  losses, total              %9.1f\n", r->losses_m_s);
       g_print ("  needed (ideal + losses)    %9.1f\n", r->delta_v_needed_m_s);
       g_print ("  sized                      %9.1f   (margin %.1f)\n", r->sized_delta_v_m_s,

@@ -39,9 +39,11 @@ void sw_ascent_result_add_note (SwAscentResult *result, const char *format, ...)
 
 #define SW_RE SW_WGS84_A           /* the sphere of the model, as in the budget */
 #define SW_DEG (G_PI / 180.0)
-#define SW_NY 10                   /* the state: */
+#define SW_NY 12                   /* the state: */
 enum { SW_Y_R, SW_Y_S, SW_Y_VR, SW_Y_VT, SW_Y_M,       /* r, downrange, vr, vt, m */
-       SW_Y_LG, SW_Y_LD, SW_Y_LS, SW_Y_LP, SW_Y_LE };  /* loss integrals, engines' delta-v */
+       SW_Y_LG, SW_Y_LD, SW_Y_LS, SW_Y_LP, SW_Y_LE,    /* loss integrals, engines' delta-v */
+       SW_Y_LGA,                                       /* gravity loss, air-relative angle */
+       SW_Y_LR };                                      /* the turning atmosphere's term */
 
 /* How the thrust points. */
 typedef enum {

@@ -220,7 +220,20 @@ rhs (double t, const double y[], double dydt[], void *params)
   dydt[SW_Y_VR] += d.thrust * d.sin_psi / m;
   dydt[SW_Y_VT] += d.thrust * d.cos_psi / m;
   dydt[SW_Y_M] = -d.mdot;
-  dydt[SW_Y_LG] = d.g * sin_g;
+  /* Gravity loss with the inertial flight-path angle (the conventional
+   * figure), and with the angle relative to the air. */
+  dydt[SW_Y_LG] = d.v > 1e-9 ? d.g * d.vr / d.v : d.g;
+  dydt[SW_Y_LGA] = d.g * sin_g;
+  /* Thrust and drag are measured against the air, gravity against the
+   * inertial velocity: what the air's turning adds (see sw-ascent.h). */
+  if (d.v > 1e-9 && d.v_rel > 1e-9)
+    {
+      double cos_ai = (d.sin_psi * d.vr + d.cos_psi * d.vt) / d.v;
+      double dot = (d.vr * d.vr + d.vt_rel * d.vt) / (d.v_rel * d.v);
+      dydt[SW_Y_LR] = d.thrust / m * (cos_a - cos_ai) - d.drag / m * (1.0 - dot);
+    }
+  else
+    dydt[SW_Y_LR] = 0.0;
   dydt[SW_Y_LD] = d.drag / m;
   dydt[SW_Y_LS] = d.thrust / m * (1.0 - cos_a);
   dydt[SW_Y_LP] = (d.thrust_vac - d.thrust) / m;
@@ -1072,6 +1085,7 @@ sw_ascent_result_new (void)
   r->target_altitude_km = r->circular_velocity_m_s = r->launch_azimuth_deg = NAN;
   r->ideal_delta_v_m_s = r->rotation_gain_m_s = NAN;
   r->losses_m_s = r->gravity_loss_m_s = r->drag_loss_m_s = r->steering_loss_m_s = NAN;
+  r->gravity_loss_air_m_s = r->rotation_term_m_s = NAN;
   r->pressure_loss_m_s = r->fairing_loss_m_s = r->other_loss_m_s = NAN;
   r->raising_loss_m_s = NAN;
   r->insertion_altitude_km = r->transfer_perigee_km = r->transfer_apogee_km = NAN;
@@ -1188,6 +1202,8 @@ sw_flight_fill_result (const SwFlightSim *s, SwOutcome out, SwAscentResult *res)
   res->final_mass_kg = f->y[SW_Y_M];
 
   res->gravity_loss_m_s = f->y[SW_Y_LG];
+  res->gravity_loss_air_m_s = f->y[SW_Y_LGA];
+  res->rotation_term_m_s = f->y[SW_Y_LR];
   res->drag_loss_m_s = f->y[SW_Y_LD];
   res->steering_loss_m_s = f->y[SW_Y_LS];
   res->pressure_loss_m_s = f->y[SW_Y_LP];
