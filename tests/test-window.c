@@ -122,7 +122,7 @@ test_builds (void)
   g_assert_true (r->ok);
   g_assert_cmpuint (r->design->n_stages, ==, 2);
   g_assert_true (g_str_has_prefix (gtk_window_get_title (GTK_WINDOW (w)),
-                                   "Harrow Medium cargo vehicle"));
+                                   "Dunmarrow Medium cargo vehicle"));
   g_assert_false (sw_document_get_modified (sw_window_get_document (w)));
   liftoff = sw_format_mass (r->sizing.liftoff_mass_kg);
   g_assert_cmpstr (totals_text (w, SW_TOTALS_LIFTOFF), ==, liftoff);

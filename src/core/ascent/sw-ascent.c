@@ -1203,7 +1203,10 @@ sw_flight_fill_result (const SwFlightSim *s, SwOutcome out, SwAscentResult *res)
 
   res->gravity_loss_m_s = f->y[SW_Y_LG];
   res->gravity_loss_air_m_s = f->y[SW_Y_LGA];
-  res->rotation_term_m_s = f->y[SW_Y_LR];
+  /* On a retrograde azimuth the site's in-plane speed points backwards: the
+   * budget's ideal counts its reversal, which the flown integrals count
+   * again: v0 - |v0| = -2 |v0| belongs to the same term. */
+  res->rotation_term_m_s = f->y[SW_Y_LR] + (m->v0 - fabs (m->v0));
   res->drag_loss_m_s = f->y[SW_Y_LD];
   res->steering_loss_m_s = f->y[SW_Y_LS];
   res->pressure_loss_m_s = f->y[SW_Y_LP];

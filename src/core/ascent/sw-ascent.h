@@ -40,7 +40,9 @@
  *             the flight the inertial velocity is the site's, horizontal, while the
  *             vehicle climbs vertically through the air, so this term is large
  *             (several hundred m/s) and the inertial gravity loss correspondingly
- *             smaller than the air-relative one.  Newton's law along the inertial
+ *             smaller than the air-relative one.  On a retrograde azimuth it also
+ *             holds -2 |v_site,in-plane|: the ideal delta-v counts the reversal of
+ *             the site's backward speed, which the flown integrals count again.  Newton's law along the inertial
  *             velocity makes the sum exact; the rest of other is the cutoff's and
  *             the integrator's residual (below 0.05 m/s).
  * The rotation gain is the budget's: v_circular - ideal. */
