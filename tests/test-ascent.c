@@ -481,6 +481,84 @@ test_montecarlo_simulated (void)
   g_assert_error (error, G_IO_ERROR, G_IO_ERROR_CANCELLED);
 }
 
+/* Largest pitch rate in the powered and coasting flight after @t0, deg/s. */
+static double
+max_pitch_rate (const SwAscentResult *r, double t0)
+{
+  double worst = 0.0;
+
+  for (guint i = 1; i < r->samples->len; i++)
+    {
+      const SwAscentSample *a = &g_array_index (r->samples, SwAscentSample, i - 1);
+      const SwAscentSample *b = &g_array_index (r->samples, SwAscentSample, i);
+
+      if (a->time_s < t0)
+        continue;
+      if (b->time_s - a->time_s > 1e-6)
+        worst = MAX (worst, fabs (b->pitch_deg - a->pitch_deg) / (b->time_s - a->time_s));
+      else
+        /* Two samples at one instant (an event): the attitude does not jump. */
+        g_assert_cmpfloat (fabs (b->pitch_deg - a->pitch_deg), <, 1e-9);
+    }
+  return worst;
+}
+
+static void
+test_staging_attitude (void)
+{
+  /* At staging the attitude turns at the limited rate, never jumps; a
+   * q alpha limit holds through the guided flight, at a small cost.  A
+   * short, powerful first stage stages low, in a dense atmosphere. */
+  g_autoptr (SwDesign) d = load (TWO_STAGE ("2100", "allowance", "4200", "220", ""));
+  g_autoptr (SwAscentResult) free_r = NULL;
+  g_autoptr (SwAscentResult) lim_r = NULL;
+  g_autoptr (GError) error = NULL;
+  double t_stage, limit, q_alpha_guided = 0.0;
+
+  free_r = sw_design_ascent (d, NULL, &error);
+  g_assert_no_error (error);
+  g_assert_true (free_r->status == SW_ASCENT_REACHED || free_r->status == SW_ASCENT_SHORT);
+  t_stage = free_r->guidance_start_s;
+  g_assert_cmpfloat (max_pitch_rate (free_r, t_stage), <, SW_ASCENT_PITCH_RATE_DEG_S + 0.5);
+
+  /* The q alpha the free flight reaches after staging, from its samples. */
+  for (guint i = 0; i < free_r->samples->len; i++)
+    {
+      const SwAscentSample *p = &g_array_index (free_r->samples, SwAscentSample, i);
+      double alpha;
+
+      if (p->time_s < t_stage || p->air_speed_m_s < 1.0 || p->thrust_n <= 0.0)
+        continue;
+      /* Angle of attack: pitch less the flight-path angle against the air. */
+      alpha = p->pitch_deg - asin (CLAMP ((p->speed_m_s * sin (p->flight_path_deg * G_PI / 180.0))
+                                          / p->air_speed_m_s, -1.0, 1.0)) * 180.0 / G_PI;
+      q_alpha_guided = MAX (q_alpha_guided, p->dynamic_pressure_pa * fabs (alpha) / 1000.0);
+    }
+  g_test_message ("free flight: q alpha %.3f kPa deg after staging, %.3f overall",
+                  q_alpha_guided, free_r->max_q_alpha_kpa_deg);
+  g_assert_cmpfloat (q_alpha_guided, >, 2.0);
+
+  limit = MAX (1.0, 0.4 * q_alpha_guided);
+  d->ascent.has_max_q_alpha = TRUE;
+  d->ascent.max_q_alpha_kpa_deg = limit;
+  lim_r = sw_design_ascent (d, NULL, &error);
+  g_assert_no_error (error);
+  g_assert_true (lim_r->status == SW_ASCENT_REACHED || lim_r->status == SW_ASCENT_SHORT);
+  for (guint i = 0; i < lim_r->samples->len; i++)
+    {
+      const SwAscentSample *p = &g_array_index (lim_r->samples, SwAscentSample, i);
+      double alpha;
+
+      if (p->time_s < lim_r->guidance_start_s || p->air_speed_m_s < 1.0)
+        continue;
+      alpha = p->pitch_deg - asin (CLAMP ((p->speed_m_s * sin (p->flight_path_deg * G_PI / 180.0))
+                                          / p->air_speed_m_s, -1.0, 1.0)) * 180.0 / G_PI;
+      g_assert_cmpfloat (p->dynamic_pressure_pa * fabs (alpha) / 1000.0, <=, limit * 1.001);
+    }
+  /* Limiting the steering cannot make the flight cheaper. */
+  g_assert_cmpfloat (lim_r->losses_m_s, >=, free_r->losses_m_s - 0.5);
+}
+
 static void
 test_allowance_shortfall (void)
 {
@@ -820,6 +898,7 @@ main (int argc, char **argv)
   g_test_add_func ("/core/ascent/allowance-shortfall", test_allowance_shortfall);
   g_test_add_func ("/core/ascent/loop-first-guess", test_loop_first_guess);
   g_test_add_func ("/core/ascent/retrograde-liftoff", test_retrograde_liftoff);
+  g_test_add_func ("/core/ascent/staging-attitude", test_staging_attitude);
   g_test_add_func ("/core/ascent/montecarlo-simulated", test_montecarlo_simulated);
   g_test_add_func ("/core/ascent/loop-no-allowance", test_loop_no_allowance);
   g_test_add_func ("/core/ascent/transfer", test_transfer);

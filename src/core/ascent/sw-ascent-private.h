@@ -110,6 +110,8 @@ typedef struct {
   SwFairingRule   fairing_rule;
   double          fairing_value;   /* m or Pa */
   double          pitch_over_speed;
+  double          q_alpha_max;     /* Pa rad; 0: no limit */
+  double          pitch_rate;      /* rad/s: the attitude's rate from staging to the guidance */
   double          omega_p;         /* in-plane rotation rate of the air */
   double          v0;              /* initial in-plane inertial speed */
   double          cross_cost;      /* delta-v to cancel the site's cross-plane velocity */
@@ -149,6 +151,8 @@ typedef struct {
   double        max_acc;
   double        max_acc_t;
   double        max_alt;           /* highest altitude so far, m */
+  double        max_q_alpha;       /* Pa rad */
+  double        psi_stage;         /* the attitude when guidance took over, rad */
   gboolean      ignited[SW_MAX_STAGES];
   gboolean      burnt[SW_MAX_STAGES];
   SwAscentPoint ign[SW_MAX_STAGES];

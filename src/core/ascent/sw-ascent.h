@@ -56,6 +56,10 @@
 
 G_BEGIN_DECLS
 
+/* When guidance takes over at staging, the attitude turns from the stage
+ * below's to the guidance law's at this rate, not at once. */
+#define SW_ASCENT_PITCH_RATE_DEG_S 2.0
+
 typedef enum {
   SW_GRAVITY_INVERSE_SQUARE,   /* mu / r^2 (default) */
   SW_GRAVITY_CONSTANT,         /* g0 everywhere, for checks */
@@ -98,6 +102,7 @@ typedef struct {
                                 * the pad) */
   double dynamic_pressure_pa;
   double mach;
+  double pitch_deg;            /* the thrust's pitch above the local horizontal */
   double axial_accel_g;        /* sensed along the vehicle's axis, thrust less drag, in g0;
                                 * in coasts the drag's deceleration (negative) */
   double mass_kg;
@@ -191,6 +196,7 @@ struct _SwAscentResult {
   double max_q_altitude_m;
   double max_axial_g;
   double max_axial_g_time_s;
+  double max_q_alpha_kpa_deg;        /* dynamic pressure times angle of attack, powered flight */
   double liftoff_thrust_to_weight;
 
   /* fairing */
