@@ -138,6 +138,7 @@ ascent_to_json (const SwDesign *d, const SwAscentResult *r)
   sw_cli_add_number (b, "other_loss_m_s", r->other_loss_m_s);
   sw_cli_add_number (b, "rotation_term_m_s", r->rotation_term_m_s);
   sw_cli_add_number (b, "gravity_loss_air_m_s", r->gravity_loss_air_m_s);
+  sw_cli_add_number (b, "max_q_alpha_kpa_deg", r->max_q_alpha_kpa_deg);
   sw_cli_add_number (b, "losses_m_s", r->losses_m_s);
   sw_cli_add_number (b, "engines_delta_v_m_s", r->engines_delta_v_m_s);
   sw_cli_add_number (b, "delta_v_needed_m_s", r->delta_v_needed_m_s);
@@ -405,7 +406,7 @@ write_csv (const char *path, const SwDesign *d, const SwAscentResult *r)
                           sw_cli_caution);
   g_string_append (s, "time_s,altitude_m,downrange_m,speed_m_s,air_speed_m_s,flight_path_deg,"
                       "dynamic_pressure_pa,mach,axial_accel_g,mass_kg,thrust_n,stage,"
-                      "beyond_load\n");
+                      "beyond_load,pitch_deg\n");
   for (guint i = 0; i < r->samples->len; i++)
     {
       const SwAscentSample *p = &g_array_index (r->samples, SwAscentSample, i);
@@ -418,7 +419,10 @@ write_csv (const char *path, const SwDesign *d, const SwAscentResult *r)
             g_string_append_printf (s, "%.9g", v[k]);
           g_string_append_c (s, ',');
         }
-      g_string_append_printf (s, "%u,%d\n", p->stage + 1, p->beyond_load ? 1 : 0);
+      g_string_append_printf (s, "%u,%d,", p->stage + 1, p->beyond_load ? 1 : 0);
+      if (isfinite (p->pitch_deg))
+        g_string_append_printf (s, "%.9g", p->pitch_deg);
+      g_string_append_c (s, '\n');
     }
   if (!g_file_set_contents_full (path, s->str, (gssize) s->len,
                                  G_FILE_SET_CONTENTS_CONSISTENT, 0644, &error))
