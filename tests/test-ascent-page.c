@@ -331,7 +331,7 @@ test_core_numbers (void)
   g_assert_nonnull (r->ascent);
 
   /* The core, run here on the test's thread for the same design. */
-  core = sw_design_ascent (r->design, NULL, &error);
+  core = sw_ascent_fly_design (r->design, NULL, &error);
   g_assert_no_error (error);
   g_assert_true (core->reached_orbit);
   g_assert_true (core->closed_loop && core->loop_converged);

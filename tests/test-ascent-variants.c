@@ -75,7 +75,7 @@ variant_design (const Variant *v)
 
   d = sw_design_load_data (json->str, -1, "variant.stagewright", NULL, &error);
   g_assert_no_error (error);
-  g_assert_true (sw_design_size (d, &s, &error));
+  g_assert_true (sw_size_design (d, &s, &error));
   g_assert_true (s.feasible);
   /* Thrust from the wanted thrust-to-weight: sea-level thrust is
    * T_vac Isp_sl / Isp_vac. */
@@ -171,7 +171,7 @@ own_shooting_solve (const SwDesign *d, double *kick_found)
 
   sw_ascent_options_init (&opt);
   opt.record = FALSE;
-  g_assert_true (sw_design_size (d, &sz, &error));
+  g_assert_true (sw_size_design (d, &sz, &error));
   if (sw_flight_model_build (m, d, &sz, &opt, res, &error) != SW_BUILD_OK)
     {
       g_assert_no_error (error);

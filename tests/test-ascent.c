@@ -69,7 +69,7 @@ test_tsiolkovsky (void)
   double rocket = 0.0, v;
 
   options (&o, SW_GRAVITY_NONE, FALSE, FALSE, SW_STEERING_PROGRADE);
-  g_assert_true (sw_design_size (d, &s, &error));
+  g_assert_true (sw_size_design (d, &s, &error));
   for (guint i = 0; i < s.n_stages; i++)
     rocket += d->stages[i].isp_vac_s * G0
               * log (s.stages[i].initial_mass_kg / s.stages[i].burnout_mass_kg);
@@ -289,26 +289,37 @@ test_two_stage_losses (void)
   SwBudget b;
   double sum;
 
-  r = sw_design_ascent (d, NULL, &error);
+  r = sw_ascent_fly_design (d, NULL, &error);
   g_assert_no_error (error);
   if (r->status != SW_ASCENT_REACHED)
     g_error ("not reached: %s", r->reason);
   g_assert_true (r->reached_orbit && r->closed_loop && r->loop_converged);
 
-  /* Losses to low orbit (common practice, reference-values.md): gravity
-   * 0.8 to 1.8 km/s, drag below 0.3 km/s, steering 0.02 to 0.2 km/s. */
-  g_assert_cmpfloat (r->gravity_loss_air_m_s, >, 800.0);
-  g_assert_cmpfloat (r->gravity_loss_air_m_s, <, 1800.0);
+  /* Losses to low orbit (reference-values.md, rules of thumb: common
+   * practice, from memory): gravity 1.0 to 1.5 km/s (up to about 1.8 for
+   * low-thrust vehicles), drag 0.05 to 0.15 km/s, steering 0.02 to 0.2 km/s.
+   * The rule's gravity loss is the one with the flight-path angle against
+   * the air (gravity_loss_air_m_s).  Its steering loss lies under the rule's
+   * lower end: launched due east into its own inclination it turns only in
+   * the plane, so only the rule's upper bound is asserted for steering. */
+  g_assert_cmpfloat (r->gravity_loss_air_m_s, >, 1000.0);
+  g_assert_cmpfloat (r->gravity_loss_air_m_s, <, 1500.0);
   /* With the inertial flight-path angle (the primary figure) the loss is
    * smaller: early in the flight the inertial velocity is the site's,
    * horizontal, while the vehicle climbs through the air. */
   g_assert_cmpfloat (r->gravity_loss_m_s, >, 0.5 * r->gravity_loss_air_m_s);
   g_assert_cmpfloat (r->gravity_loss_m_s, <, r->gravity_loss_air_m_s);
-  g_assert_cmpfloat (r->drag_loss_m_s, >, 0.0);
-  g_assert_cmpfloat (r->drag_loss_m_s, <, 300.0);
+  g_assert_cmpfloat (r->drag_loss_m_s, >, 50.0);
+  g_assert_cmpfloat (r->drag_loss_m_s, <, 150.0);
+  g_assert_cmpfloat (r->steering_loss_m_s, >, 0.0);
   g_assert_cmpfloat (r->steering_loss_m_s, <, 200.0);
-  /* Ground to low orbit: 9.3 to 10 km/s with the losses (common practice). */
-  g_assert_cmpfloat (r->delta_v_needed_m_s, >, 9000.0);
+  /* Ground to low orbit: about 9.3 to 10 km/s with the losses (same rules).
+   * This launch measures 9008 m/s, under the rule's 9.3: it goes due east
+   * from 28.5 deg to a low 200 km orbit.  The lower bound asserted is the
+   * one the rules above give for it: 7784.3 m/s circular at 200 km less
+   * the site's 408.7 m/s (reference-values.md, computed) plus the least
+   * gravity and drag losses of the rules, 1000 + 50 m/s: 8425.6 m/s. */
+  g_assert_cmpfloat (r->delta_v_needed_m_s, >, 7784.3 - 408.7 + 1000.0 + 50.0);
   g_assert_cmpfloat (r->delta_v_needed_m_s, <, 10000.0);
 
   /* The breakdown adds up, and the loop has closed: the vehicle was sized
@@ -387,7 +398,7 @@ test_loop_first_guess (void)
       g_autoptr (GError) error = NULL;
 
       d->mission.losses_m_s = guesses[i];
-      r = sw_design_ascent (d, NULL, &error);
+      r = sw_ascent_fly_design (d, NULL, &error);
       g_assert_no_error (error);
       if (!r->loop_converged)
         g_error ("first guess %.0f: %s", guesses[i], r->reason);
@@ -413,7 +424,7 @@ test_loop_no_allowance (void)
 
   d->stages[0].propulsion.thrust_vac_kn = 560.0;
   d->stages[2].propulsion.thrust_vac_kn = 6.0;
-  r = sw_design_ascent (d, NULL, &error);
+  r = sw_ascent_fly_design (d, NULL, &error);
   g_assert_no_error (error);
   g_test_message ("%s", r->reason);
   g_assert_false (r->loop_converged);
@@ -515,7 +526,7 @@ test_staging_attitude (void)
   g_autoptr (GError) error = NULL;
   double t_stage, limit, q_alpha_guided = 0.0;
 
-  free_r = sw_design_ascent (d, NULL, &error);
+  free_r = sw_ascent_fly_design (d, NULL, &error);
   g_assert_no_error (error);
   g_assert_true (free_r->status == SW_ASCENT_REACHED || free_r->status == SW_ASCENT_SHORT);
   t_stage = free_r->guidance_start_s;
@@ -541,7 +552,7 @@ test_staging_attitude (void)
   limit = MAX (1.0, 0.4 * q_alpha_guided);
   d->ascent.has_max_q_alpha = TRUE;
   d->ascent.max_q_alpha_kpa_deg = limit;
-  lim_r = sw_design_ascent (d, NULL, &error);
+  lim_r = sw_ascent_fly_design (d, NULL, &error);
   g_assert_no_error (error);
   g_assert_true (lim_r->status == SW_ASCENT_REACHED || lim_r->status == SW_ASCENT_SHORT);
   for (guint i = 0; i < lim_r->samples->len; i++)
@@ -568,7 +579,7 @@ test_allowance_shortfall (void)
   g_autoptr (SwAscentResult) r = NULL;
   g_autoptr (GError) error = NULL;
 
-  r = sw_design_ascent (d, NULL, &error);
+  r = sw_ascent_fly_design (d, NULL, &error);
   g_assert_no_error (error);
   g_assert_cmpint (r->status, ==, SW_ASCENT_SHORT);
   g_assert_false (r->reached_orbit);
@@ -617,7 +628,7 @@ test_retrograde_liftoff (void)
   g_autoptr (GError) error = NULL;
 
   d->mission.inclination_deg = 140.0;
-  r = sw_design_ascent (d, NULL, &error);
+  r = sw_ascent_fly_design (d, NULL, &error);
   g_assert_no_error (error);
   g_assert_cmpfloat (r->launch_azimuth_deg, >, 180.0);
   if (r->status != SW_ASCENT_REACHED && r->status != SW_ASCENT_SHORT)
@@ -649,9 +660,9 @@ test_transfer (void)
   double dv2 = sqrt (MU / r_2) * (1.0 - sqrt (2.0 * r_1 / (r_1 + r_2)));
 
   d1->mission.altitude_km = d2->mission.altitude_km = 400.0;
-  r1 = sw_design_ascent (d1, NULL, &error);
+  r1 = sw_ascent_fly_design (d1, NULL, &error);
   g_assert_no_error (error);
-  r2 = sw_design_ascent (d2, NULL, &error);
+  r2 = sw_ascent_fly_design (d2, NULL, &error);
   g_assert_no_error (error);
   g_assert_true (r1->status == SW_ASCENT_REACHED || r1->status == SW_ASCENT_SHORT);
   if (r2->status != SW_ASCENT_REACHED)
@@ -681,7 +692,7 @@ test_fixed_kick (void)
   g_autoptr (SwAscentResult) r = NULL;
   g_autoptr (GError) error = NULL;
 
-  r = sw_design_ascent (d, NULL, &error);
+  r = sw_ascent_fly_design (d, NULL, &error);
   g_assert_no_error (error);
   g_assert_cmpfloat (r->pitch_kick_deg, ==, 3.0);
   g_assert_false (r->pitch_kick_solved);
@@ -697,7 +708,7 @@ test_bad_propulsion (void)
   /* Thrust-to-weight below 1 at liftoff: an infeasible answer that says why. */
   {
     g_autoptr (SwDesign) d = load (TWO_STAGE ("1600", "allowance", "1200", "220", ""));
-    g_autoptr (SwAscentResult) r = sw_design_ascent (d, NULL, &error);
+    g_autoptr (SwAscentResult) r = sw_ascent_fly_design (d, NULL, &error);
     g_assert_no_error (error);
     g_assert_cmpint (r->status, ==, SW_ASCENT_NO_SOLUTION);
     g_assert_nonnull (strstr (r->reason, "cannot lift off"));
@@ -709,7 +720,7 @@ test_bad_propulsion (void)
   /* An upper stage far too weak: no orbit, and a reason. */
   {
     g_autoptr (SwDesign) d = load (TWO_STAGE ("1600", "allowance", "2100", "25", ""));
-    g_autoptr (SwAscentResult) r = sw_design_ascent (d, NULL, &error);
+    g_autoptr (SwAscentResult) r = sw_ascent_fly_design (d, NULL, &error);
     g_assert_no_error (error);
     g_assert_false (r->reached_orbit);
     g_assert_cmpint (r->status, !=, SW_ASCENT_REACHED);
@@ -718,7 +729,7 @@ test_bad_propulsion (void)
   /* The loop cannot close when the vehicle grows faster than its thrust. */
   {
     g_autoptr (SwDesign) d = load (TWO_STAGE ("1600", "simulate", "1750", "160", ""));
-    g_autoptr (SwAscentResult) r = sw_design_ascent (d, NULL, &error);
+    g_autoptr (SwAscentResult) r = sw_ascent_fly_design (d, NULL, &error);
     g_assert_no_error (error);
     g_assert_true (r->closed_loop);
     g_assert_false (r->loop_converged);
@@ -732,7 +743,7 @@ test_bad_propulsion (void)
       "  \"mission\": { \"orbit\": { \"altitude_km\": 300, \"inclination_deg\": 30,"
       "  \"site_latitude_deg\": 10 } }, \"split\": \"equal\","
       "  \"stages\": [ { \"isp_vac_s\": 300, \"structural_coefficient\": 0.1 } ] }");
-    g_assert_null (sw_design_ascent (d, NULL, &error));
+    g_assert_null (sw_ascent_fly_design (d, NULL, &error));
     g_assert_error (error, SW_ERROR, SW_ERROR_MISSING);
     g_assert_nonnull (strstr (error->message, "thrust_vac_kn"));
     g_assert_nonnull (strstr (error->message, "isp_sl_s"));
@@ -751,12 +762,12 @@ test_bad_propulsion (void)
   {
     g_autoptr (SwDesign) d = load (TWO_STAGE ("1600", "allowance", "2100", "220", ""));
     d->stages[0].propulsion.diameter_m = -3.0;
-    g_assert_null (sw_design_ascent (d, NULL, &error));
+    g_assert_null (sw_ascent_fly_design (d, NULL, &error));
     g_assert_nonnull (strstr (error->message, "stages[0].diameter_m"));
     g_clear_error (&error);
     d->stages[0].propulsion.diameter_m = 3.0;
     d->stages[1].propulsion.thrust_vac_kn = 0.0;
-    g_assert_null (sw_design_ascent (d, NULL, &error));
+    g_assert_null (sw_ascent_fly_design (d, NULL, &error));
     g_assert_nonnull (strstr (error->message, "stages[1].thrust_vac_kn"));
     g_clear_error (&error);
   }
@@ -764,7 +775,7 @@ test_bad_propulsion (void)
   {
     g_autoptr (SwDesign) d = load (TWO_STAGE ("1600", "allowance", "2100", "220", ""));
     d->mission.altitude_km = 5000.0;
-    g_assert_null (sw_design_ascent (d, NULL, &error));
+    g_assert_null (sw_ascent_fly_design (d, NULL, &error));
     g_assert_nonnull (strstr (error->message, "altitude_km"));
     g_clear_error (&error);
   }
@@ -778,7 +789,7 @@ test_cancel (void)
   g_autoptr (GError) error = NULL;
 
   g_cancellable_cancel (c);
-  g_assert_null (sw_design_ascent (d, c, &error));
+  g_assert_null (sw_ascent_fly_design (d, c, &error));
   g_assert_error (error, G_IO_ERROR, G_IO_ERROR_CANCELLED);
 }
 

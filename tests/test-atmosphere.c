@@ -38,21 +38,35 @@ check_rel (const char *what, double z_km, double value, double expected, double 
              z_km, value, expected, rel * 100.0, tol * 100.0);
 }
 
+/* One unit in the last printed figure of @printed (given to @figures
+ * significant figures), relative to it. */
+static double
+last_figure (double printed, int figures)
+{
+  return pow (10.0, floor (log10 (fabs (printed))) - (figures - 1)) / fabs (printed);
+}
+
 static void
 test_standard_table (void)
 {
-  /* The task asks for 0.1 %; printed copies of the table differ by one unit
-   * in the fifth figure at 10, 11 and 80 km, so we hold p and rho to 0.05 %
-   * and T to 0.001 K below 80 km (reference-values.md). */
+  /* The table prints five significant figures (the density at 86 km four).
+   * Printed copies differ by one unit in the fifth figure at 10, 11 and
+   * 80 km (reference-values.md), so each value is held to one unit of its
+   * last printed figure: 1e-5 to 1e-4 relative, where the file's blanket
+   * 0.05 % was up to 50 units.  Measured: at most 0.47 of a unit (density
+   * at 2 km, 4.7e-5 relative).  T to 0.001 K below 80 km (the table's
+   * three decimals). */
   for (guint i = 0; i < G_N_ELEMENTS (table); i++)
     {
       SwAtmosphere a;
       double z_km = table[i].z_km;
 
       g_assert_true (sw_atmosphere_at (z_km * 1000.0, &a));
-      check_rel ("pressure", z_km, a.pressure_pa, table[i].p, 5e-4);
-      check_rel ("density", z_km, a.density_kg_m3, table[i].rho, 5e-4);
-      check_rel ("speed of sound", z_km, a.speed_of_sound_m_s, table[i].a, 5e-4);
+      check_rel ("pressure", z_km, a.pressure_pa, table[i].p, last_figure (table[i].p, 5));
+      check_rel ("density", z_km, a.density_kg_m3, table[i].rho,
+                 last_figure (table[i].rho, z_km < 86.0 ? 5 : 4));
+      check_rel ("speed of sound", z_km, a.speed_of_sound_m_s, table[i].a,
+                 last_figure (table[i].a, 5));
       if (z_km < 80.0)
         g_assert_cmpfloat_with_epsilon (a.temperature_k, table[i].t, 1.0e-3 + 1e-9);
       else

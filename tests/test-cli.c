@@ -3,6 +3,7 @@
  * on the demo designs and parses its JSON with json-glib. */
 #include "config.h"
 
+#include "sw-analysis.h"
 #include "sw-budget.h"
 #include "sw-curves.h"
 #include "sw-design.h"
@@ -163,8 +164,13 @@ check_size_json (const char *path)
   SwSizing s;
   Run r;
 
+  g_autoptr (SwAnalysis) a = NULL;
+
   g_assert_nonnull (d);
-  g_assert_true (sw_design_size (d, &s, NULL));
+  /* The CLI reads the one analysis: with the ascent, and for "simulate"
+   * designs the closed loop's sizing, as the window shows. */
+  a = sw_analysis_run (d, NULL, NULL);
+  s = a->sizing;
   run_cli (&r, "size", "--json", path, NULL);
   g_assert_cmpint (r.code, ==, 0);
   root = parse (r.out);
@@ -182,6 +188,10 @@ check_size_json (const char *path)
 
   /* The numbers are the core's. */
   g_assert_cmpint (json_object_get_boolean_member (obj, "feasible"), ==, s.feasible);
+  g_assert_cmpstr (json_object_get_string_member (json_object_get_object_member (obj, "verdict"),
+                                                  "state"),
+                   ==, sw_verdict_state_to_string (a->verdict.state));
+  assert_same (number_or_nan (obj, "simulated_margin_m_s"), a->simulated_margin_m_s);
   g_assert_cmpstr (json_object_get_string_member (obj, "reason"), ==, s.reason);
   assert_same (number_or_nan (obj, "liftoff_mass_kg"), s.liftoff_mass_kg);
   assert_same (number_or_nan (obj, "payload_kg"), d->payload_kg);
@@ -219,11 +229,154 @@ check_size_json (const char *path)
 static void
 test_size_json (void)
 {
+  g_autofree char *simulated = demo ("three-stage-simulated.stagewright");
+
   for (guint i = 0; i < G_N_ELEMENTS (demos); i++)
     {
       g_autofree char *path = demo (demos[i]);
       check_size_json (path);
     }
+  check_size_json (simulated);
+}
+
+/* A design written to a file of the test's folder. */
+static char *
+write_design (const char *name, const char *json)
+{
+  g_autofree char *dir = g_dir_make_tmp ("sw-cli-XXXXXX", NULL);
+  char *path = g_build_filename (dir, name, NULL);
+
+  g_assert_true (g_file_set_contents (path, json, -1, NULL));
+  return path;
+}
+
+static void
+remove_design (const char *path)
+{
+  g_autofree char *dir = g_path_get_dirname (path);
+  g_remove (path);
+  g_rmdir (dir);
+}
+
+/* `size --json` gives {"verdict": {"state", "reason"}} and the text report
+ * starts with the same verdict. */
+static void
+check_verdict (const char *path, const char *option, const char *state, const char *const *words,
+               const char *text_title)
+{
+  g_autoptr (JsonNode) root = NULL;
+  JsonObject *v;
+  const char *reason;
+  Run r;
+
+  if (option != NULL)
+    run_cli (&r, "size", "--json", option, path, NULL);
+  else
+    run_cli (&r, "size", "--json", path, NULL);
+  g_assert_cmpint (r.code, ==, 0);
+  root = parse (r.out);
+  v = json_object_get_object_member (json_node_get_object (root), "verdict");
+  g_assert_nonnull (v);
+  g_assert_cmpstr (json_object_get_string_member (v, "state"), ==, state);
+  reason = json_object_get_string_member (v, "reason");
+  for (guint i = 0; words[i] != NULL; i++)
+    if (strstr (reason, words[i]) == NULL)
+      g_error ("verdict %s: \"%s\" not in \"%s\"", state, words[i], reason);
+  run_clear (&r);
+
+  if (option != NULL)
+    run_cli (&r, "size", option, path, NULL);
+  else
+    run_cli (&r, "size", path, NULL);
+  g_assert_cmpint (r.code, ==, 0);
+  g_assert_true (g_str_has_prefix (r.out, text_title));
+  run_clear (&r);
+}
+
+static const char infeasible_design[] =
+  "{ \"format\": \"stagewright-design\", \"version\": 1, \"name\": \"Too far\","
+  "  \"payload_kg\": 150, \"mission\": { \"delta_v_m_s\": 14000 }, \"split\": \"optimal\","
+  "  \"stages\": [ { \"name\": \"Only\", \"isp_vac_s\": 300, \"structural_coefficient\": 0.1 },"
+  "                { \"name\": \"Top\", \"isp_vac_s\": 300, \"structural_coefficient\": 0.1 } ] }";
+
+/* The all-solid demo with a first stage far too weak to lift off. */
+static const char weak_design[] =
+  "{ \"format\": \"stagewright-design\", \"version\": 1, \"name\": \"Weak\","
+  "  \"payload_kg\": 150, \"mission\": { \"delta_v_m_s\": 9600 }, \"split\": \"optimal\","
+  "  \"stages\": [ { \"name\": \"One\", \"isp_vac_s\": 275, \"isp_sl_s\": 245,"
+  "                  \"structural_coefficient\": 0.10, \"thrust_vac_kn\": 20, \"diameter_m\": 1.2 },"
+  "                { \"name\": \"Two\", \"isp_vac_s\": 290, \"structural_coefficient\": 0.12,"
+  "                  \"thrust_vac_kn\": 12 } ] }";
+
+static void
+test_size_verdicts (void)
+{
+  g_autofree char *infeasible = write_design ("infeasible.stagewright", infeasible_design);
+  g_autofree char *weak = write_design ("weak.stagewright", weak_design);
+  g_autofree char *paper = demo ("all-solid-concept.stagewright");
+  g_autofree char *cargo = demo ("medium-cargo.stagewright");
+  g_autofree char *shortfall = g_build_filename (g_get_tmp_dir (), "sw-cli-short.stagewright",
+                                                 NULL);
+  g_autofree char *reaches = demo ("three-stage-simulated.stagewright");
+
+  /* The cargo demo with too small a loss allowance falls short. */
+  {
+    g_autoptr (SwDesign) d = sw_design_load (cargo, NULL, NULL);
+    g_assert_nonnull (d);
+    d->mission.losses_m_s = 1500.0;
+    g_assert_true (sw_design_save (d, shortfall, NULL));
+  }
+
+  /* Two stages of c ln(1/eps) = 300 g0 ln 10 = 6,774 m/s each give at most
+   * 13,548 m/s (hand-worked with g0 = 9.80665): 14 km/s is out of reach. */
+  check_verdict (infeasible, NULL, "infeasible",
+                 (const char *const[]) { "14000", "13548", NULL }, "Not feasible: ");
+  /* No flight (a delta-v mission), so no "reaches the orbit, but": paper
+   * only, with the broken limit said in the reason. */
+  check_verdict (weak, NULL, "paper-only",
+                 (const char *const[]) { "Thrust-to-weight at liftoff is",
+                                         "below your limit of 1.20", NULL },
+                 "Feasible on paper only: ");
+  /* The flight that reaches its orbit, against a max-Q limit it exceeds. */
+  check_verdict (reaches, "--max-q-kpa=5", "over-limit",
+                 (const char *const[]) { "reaches the orbit, but", "Max-Q is",
+                                         "above your limit of 5.0 kPa", NULL },
+                 "Reaches the orbit, but breaks a limit: ");
+  check_verdict (paper, NULL, "paper-only",
+                 (const char *const[]) { "rocket equation", "not a target orbit", NULL },
+                 "Feasible on paper only: ");
+  check_verdict (shortfall, NULL, "short-of-orbit",
+                 (const char *const[]) { "short of the orbit", "largest loss is gravity", NULL },
+                 "Does not reach the orbit: ");
+  check_verdict (reaches, NULL, "reaches-orbit",
+                 (const char *const[]) { "reaches the 250.0 km orbit", "to spare", NULL },
+                 "Reaches the orbit: ");
+  check_verdict (reaches, "--no-ascent", "paper-only",
+                 (const char *const[]) { "not simulated on request", NULL },
+                 "Feasible on paper only: ");
+  remove_design (infeasible);
+  remove_design (weak);
+  g_remove (shortfall);
+}
+
+/* The limits take the window's ranges; outside them it is a usage error. */
+static void
+test_size_limit_options (void)
+{
+  g_autofree char *path = demo ("small-sat-launcher.stagewright");
+  Run r;
+
+  run_cli (&r, "size", "--max-q-kpa=4.9", path, NULL);
+  g_assert_cmpint (r.code, ==, 2);
+  g_assert_nonnull (strstr (r.err, "--max-q-kpa 5 to 200"));
+  g_assert_cmpstr (r.out, ==, "");
+  run_clear (&r);
+  run_cli (&r, "size", "--min-thrust-to-weight=0.4", path, NULL);
+  g_assert_cmpint (r.code, ==, 2);
+  run_clear (&r);
+  run_cli (&r, "size", "--max-g=21", path, NULL);
+  g_assert_cmpint (r.code, ==, 2);
+  run_clear (&r);
 }
 
 static void
@@ -617,6 +770,8 @@ main (int argc, char **argv)
 
   g_test_add_func ("/cli/size-json", test_size_json);
   g_test_add_func ("/cli/size-table", test_size_table);
+  g_test_add_func ("/cli/size-verdicts", test_size_verdicts);
+  g_test_add_func ("/cli/size-limit-options", test_size_limit_options);
   g_test_add_func ("/cli/size-infeasible", test_size_infeasible);
   g_test_add_func ("/cli/curve-json", test_curve_json);
   g_test_add_func ("/cli/budget-json", test_budget_json);

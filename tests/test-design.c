@@ -4,6 +4,7 @@
 #include "config.h"
 
 #include "sw-design.h"
+#include "sw-design-edit.h"
 
 #include <glib/gstdio.h>
 #include <gsl/gsl_rng.h>

@@ -184,7 +184,7 @@ test_mass_flow_and_burn_time (void)
   g_assert_cmpfloat_with_epsilon (mdot, 339.9, 0.05);
 
   g_assert_no_error (error);
-  g_assert_true (sw_design_size (d, &s, &error));
+  g_assert_true (sw_size_design (d, &s, &error));
   g_assert_true (sw_ascent_stage_figures (d, &s, st, &error));
   g_assert_no_error (error);
   /* 9 engines of 100 kN */

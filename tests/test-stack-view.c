@@ -8,6 +8,7 @@
 #include "config.h"
 
 #include "sw-plot.h"
+#include "sw-stack-drawing.h"
 #include "sw-stack-view.h"
 #include "widget-render.h"
 
@@ -471,6 +472,108 @@ test_drag_and_click (void)
   gtk_window_destroy (GTK_WINDOW (window));
 }
 
+/* Drawn coverage (alpha) inside @b, one pixel of margin for antialiasing. */
+static double
+alpha_in_box (cairo_surface_t *surface, const SwStackBox *b)
+{
+  int stride = cairo_image_surface_get_stride (surface);
+  int width = cairo_image_surface_get_width (surface);
+  int height = cairo_image_surface_get_height (surface);
+  const guint8 *data;
+  double sum = 0.0;
+
+  cairo_surface_flush (surface);
+  data = cairo_image_surface_get_data (surface);
+  for (int y = MAX (0, (int) floor (b->y) - 1); y < MIN (height, (int) ceil (b->y + b->height) + 1);
+       y++)
+    for (int x = MAX (0, (int) floor (b->x) - 1); x < MIN (width, (int) ceil (b->x + b->width) + 1);
+         x++)
+      sum += ((const guint32 *) (data + y * stride))[x] >> 24;
+  return sum / 255.0;
+}
+
+/* The routine the sheet and the stack view share, drawn GTK-free at two
+ * sizes: every part's measured area over its mass is the same number
+ * (area proportional to mass), at each size.  The stack is invented:
+ * 120 t, 30 t and 6 t stages with a tenth structure, 1.5 t payload. */
+static void
+test_shared_drawing_two_sizes (void)
+{
+  static const double sizes[2][2] = { { 300.0, 500.0 }, { 900.0, 1300.0 } };
+  SwStackMasses m = { 3, { 120000.0, 30000.0, 6000.0 }, { 12000.0, 3000.0, 600.0 }, 1500.0 };
+  const SwStackMasses *one[1] = { &m };
+  /* Opaque fills, no outline: the alpha channel is the drawn area. */
+  SwStackStyle st = { { 0.2, 0.4, 0.8, 1.0 }, { 0.1, 0.1, 0.1, 1.0 }, { 0.9, 0.6, 0.1, 1.0 },
+                      { 0.0, 0.0, 0.0, 0.0 }, 0.0 };
+  double k_size[2];
+
+  for (int z = 0; z < 2; z++)
+    {
+      cairo_surface_t *surface =
+        cairo_image_surface_create (CAIRO_FORMAT_ARGB32, (int) sizes[z][0], (int) sizes[z][1]);
+      cairo_t *cr = cairo_create (surface);
+      SwStackScale scale;
+      SwStackGeometry g;
+      double ref = NAN;
+
+      g_assert_true (sw_stack_fit (one, 1, sizes[z][0] - 20.0, sizes[z][1] - 20.0, 6.0, 0.0,
+                                   0.0, 0.6, 3.2, &scale));
+      sw_stack_place (&m, &scale, sizes[z][0] / 2.0, sizes[z][1] - 10.0, 6.0, 0.0, &g);
+      g_assert_cmpuint (g.n, ==, 4);
+      g_assert_cmpint (g.kind[3], ==, SW_STACK_PART_PAYLOAD);
+      sw_stack_draw (cr, &g, &st, FALSE);
+      cairo_destroy (cr);
+
+      for (guint i = 0; i < g.n; i++)
+        {
+          double mass = i < 3 ? m.stage_kg[i] : m.payload_kg;
+          double k = alpha_in_box (surface, &g.box[i]) / mass;
+
+          /* Inside the surface, with margin. */
+          g_assert_cmpfloat (g.box[i].x, >=, 9.0);
+          g_assert_cmpfloat (g.box[i].y, >=, 9.0);
+          g_assert_cmpfloat (g.box[i].x + g.box[i].width, <=, sizes[z][0] - 9.0);
+          if (isnan (ref))
+            ref = k;
+          g_test_message ("%.0f x %.0f: part %u, %.0f px for %.0f kg (%.2f %% off)",
+                          sizes[z][0], sizes[z][1], i, k * mass, mass, 100.0 * (k / ref - 1.0));
+          /* 1 %: antialiased edges are counted fractionally; the payload
+           * cone (about 900 px at the small size) is the least exact. */
+          g_assert_cmpfloat (fabs (k / ref - 1.0), <, 0.01);
+        }
+      /* The first stage's width follows the cube-root rule against the
+       * second: (120/30)^(1/3) = 1.5874. */
+      g_assert_cmpfloat_with_epsilon (g.box[0].width / g.box[1].width, 1.587401, 1e-5);
+      k_size[z] = ref;
+      cairo_surface_destroy (surface);
+    }
+  /* The larger box draws the same stack larger. */
+  g_assert_cmpfloat (k_size[1], >, 4.0 * k_size[0]);
+}
+
+/* The screen draws the sheet's shapes: the stack view's block widths go as
+ * the cube root of the stage masses, like the sheet's. */
+static void
+test_screen_same_shapes (void)
+{
+  g_autoptr (SwAnalysis) result = widget_render_demo_result ("all-solid-concept.stagewright");
+  GtkWidget *view, *window;
+  graphene_rect_t r0, r1;
+
+  window = show_result (result, &view);
+  g_assert_true (sw_stack_view_get_block_rect (SW_STACK_VIEW (view), 0, &r0));
+  g_assert_true (sw_stack_view_get_block_rect (SW_STACK_VIEW (view), 1, &r1));
+  /* Width ratio = (m0/m1)^(1/3), heights (m0/m1)^(2/3), to float precision. */
+  g_assert_cmpfloat_with_epsilon (r0.size.width / r1.size.width,
+                                  cbrt (result->sizing.stages[0].stage_mass_kg
+                                        / result->sizing.stages[1].stage_mass_kg), 1e-4);
+  g_assert_cmpfloat_with_epsilon (r0.size.height / r1.size.height,
+                                  pow (result->sizing.stages[0].stage_mass_kg
+                                       / result->sizing.stages[1].stage_mass_kg, 2.0 / 3.0),
+                                  1e-4);
+  gtk_window_destroy (GTK_WINDOW (window));
+}
+
 int
 main (int argc, char **argv)
 {
@@ -484,5 +587,7 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/stack-view/unused", test_unused);
   g_test_add_func ("/gui/stack-view/selection", test_selection);
   g_test_add_func ("/gui/stack-view/drag-and-click", test_drag_and_click);
+  g_test_add_func ("/gui/stack-view/shared-drawing-two-sizes", test_shared_drawing_two_sizes);
+  g_test_add_func ("/gui/stack-view/screen-same-shapes", test_screen_same_shapes);
   return g_test_run ();
 }

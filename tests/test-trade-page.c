@@ -207,7 +207,7 @@ test_tornado (void)
     g_autofree char *p = NULL;
 
     sw_reliability_curve_compute (doc_design (w), SW_MAX_STAGES, &curve);
-    sw_design_reliability (doc_design (w), &rel);
+    sw_reliability_from_design (doc_design (w), &rel);
     g_assert_true (curve.given && rel.given);
     g_assert_cmpuint (r->reliability_curve.n_points, ==, curve.n_points);
     for (guint k = 0; k < curve.n_points; k++)
@@ -366,10 +366,11 @@ check_stack_scale (SwWindow *w)
       g_assert_cmpfloat_with_epsilon (rc.size.width * rc.size.height
                                       / (scale * b->stages[i].stage_mass_kg), 1.0, 1e-6);
     }
-  /* The payload last, then nothing. */
+  /* The payload last, then nothing; the payload is a cone filling half
+   * its box (the shape rule of sw-stack-drawing.h). */
   g_assert_true (sw_stack_view_get_baseline_rect (view, k, &rc));
-  g_assert_cmpfloat_with_epsilon (rc.size.width * rc.size.height / (scale * b->payload_kg), 1.0,
-                                  1e-6);
+  g_assert_cmpfloat_with_epsilon (rc.size.width * rc.size.height / 2.0 / (scale * b->payload_kg),
+                                  1.0, 1e-6);
   g_assert_false (sw_stack_view_get_baseline_rect (view, k + 1, &rc));
 }
 
@@ -382,7 +383,7 @@ check_deltas (SwWindow *w)
   SwTotals *totals = sw_window_get_totals (w);
   g_autofree char *liftoff = NULL, *fraction = NULL;
 
-  g_assert_true (sw_design_compare (doc_design (w), &core, &error));
+  g_assert_true (sw_comparison_from_design (doc_design (w), &core, &error));
   g_assert_no_error (error);
   g_assert_true (core.has_baseline);
   g_assert_true (r->has_baseline && r->baseline_ok);
@@ -544,7 +545,7 @@ test_export (void)
   g_assert_cmpuint (sw_window_get_shown_result (w)->serial, >=, posted);
 
   /* The liftoff mass as the core computes it, straight from the sizing. */
-  g_assert_true (sw_design_size (doc_design (w), &s, NULL));
+  g_assert_true (sw_size_design (doc_design (w), &s, NULL));
   mass = grouped (s.liftoff_mass_kg);
   expect = g_strdup_printf ("Liftoff mass %s kg", mass);
   text = run_tool ((const char *[]) { "pdftotext", "-layout", pdf, "-", NULL });

@@ -6,11 +6,14 @@
 #include "sw-application.h"
 
 #include "sw-format.h"
+#include "sw-install-paths.h"
+#include "sw-settings.h"
 #include "sw-window-private.h"
 
 #include <glib/gi18n.h>
 #include <math.h>
 #include <stdio.h>
+#include <stdlib.h>
 #include <string.h>
 
 /* A screenshot that has not been drawn by then has failed. */
@@ -36,40 +39,22 @@ struct _SwApplication {
 
 G_DEFINE_FINAL_TYPE (SwApplication, sw_application, GTK_TYPE_APPLICATION)
 
+gboolean
+sw_application_check_settings (GError **error)
+{
+  return sw_settings_check (error);
+}
+
 GSettings *
 sw_application_settings_new (void)
 {
-  GSettingsSchemaSource *source = g_settings_schema_source_get_default ();
-  g_autoptr (GSettingsSchema) schema = NULL;
-
-  if (source != NULL)
-    schema = g_settings_schema_source_lookup (source, APP_ID, TRUE);
-  if (schema == NULL)
-    {
-      g_autoptr (GSettingsSchemaSource) build = NULL;
-      g_autoptr (GError) error = NULL;
-
-      build = g_settings_schema_source_new_from_directory (SW_BUILD_SCHEMAS_DIR, source, FALSE,
-                                                           &error);
-      if (build != NULL)
-        schema = g_settings_schema_source_lookup (build, APP_ID, FALSE);
-      if (schema == NULL)
-        g_error ("The settings schema %s is neither installed nor compiled in %s%s%s", APP_ID,
-                 SW_BUILD_SCHEMAS_DIR, error != NULL ? ": " : "",
-                 error != NULL ? error->message : "");
-    }
-  return g_settings_new_full (schema, NULL, NULL);
+  return sw_settings_new ();
 }
 
 char *
 sw_application_find_design (const char *basename)
 {
-  char *path = g_build_filename (SOURCE_DESIGNS_DIR, basename, NULL);
-
-  if (g_file_test (path, G_FILE_TEST_IS_REGULAR))
-    return path;
-  g_free (path);
-  return g_build_filename (DESIGNS_DIR, basename, NULL);
+  return sw_install_find_design (basename);
 }
 
 gboolean

@@ -16,6 +16,7 @@ int            sw_application_get_exit_status (SwApplication *self);
 
 /* The application's settings; falls back to the schema compiled in the
  * build folder when the application runs uninstalled. */
+gboolean       sw_application_check_settings (GError **error);
 GSettings     *sw_application_settings_new (void);
 /* Path of a bundled demonstration design (the source tree when it exists,
  * else the installed copy). */

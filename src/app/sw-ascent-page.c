@@ -5,7 +5,6 @@
 
 #include "sw-ascent-page.h"
 
-#include "sw-application.h"
 #include "sw-format.h"
 
 #include <glib/gi18n.h>
@@ -60,48 +59,36 @@ G_DEFINE_FINAL_TYPE (SwAscentPage, sw_ascent_page, GTK_TYPE_WIDGET)
 enum { SUMMARY_CHANGED, N_SIGNALS };
 static guint signals[N_SIGNALS];
 
-/* ---- numbers ----------------------------------------------------------- */
-
-static char *
-fmt_km (double m)
-{
-  /* Translators: an altitude or distance in kilometres */
-  return sw_format_value (_("%'.1f km"), m / 1000.0);
-}
+/* ---- numbers: through the one formatter (sw-format.h) ------------------- */
 
 static char *
 fmt_time (double s)
 {
-  /* Translators: time after liftoff in seconds */
-  return sw_format_value (_("T+%.1f s"), s);
+  g_autofree char *d = sw_format_duration (s);
+
+  if (!isfinite (s))
+    return g_strdup (SW_NO_VALUE);
+  /* Translators: time after liftoff, %s is a duration such as "152.3 s" */
+  return g_strdup_printf (_("T+%s"), d);
 }
 
 static char *
-fmt_kpa (double pa)
+fmt_orbit (double perigee_km, double apogee_km, int decimals)
 {
-  /* Translators: a pressure in kilopascals */
-  return sw_format_value (_("%.1f kPa"), pa / 1000.0);
+  g_autofree char *p = sw_format_number (perigee_km, decimals);
+  g_autofree char *q = sw_format_number (apogee_km, decimals);
+
+  if (!isfinite (perigee_km) || !isfinite (apogee_km))
+    return g_strdup (SW_NO_VALUE);
+  /* Translators: perigee and apogee altitudes in km */
+  return g_strdup_printf (_("%s × %s km"), p, q);
 }
 
-static char *
-fmt_g (double g)
-{
-  /* Translators: an acceleration in units of standard gravity */
-  return sw_format_value (_("%.2f g"), g);
-}
-
-static char *
-fmt_ratio (double ratio)
-{
-  return sw_format_value ("%.2f", ratio);
-}
-
-static char *
-fmt_seconds (double s)
-{
-  /* Translators: a duration in seconds */
-  return sw_format_value (_("%.1f s"), s);
-}
+#define fmt_km(m) sw_format_distance_km (m)
+#define fmt_kpa(pa) sw_format_pressure_kpa (pa)
+#define fmt_g(g) sw_format_accel_g (g)
+#define fmt_ratio(r) sw_format_ratio ((r), 2)
+#define fmt_seconds(s) sw_format_duration (s)
 
 static gboolean
 simulates_losses (const SwAnalysis *r)
@@ -139,27 +126,32 @@ sw_ascent_warnings_text (const SwAnalysis *result, const SwAscentResult *ascent,
     tw = ascent->liftoff_thrust_to_weight;
 
   if (isfinite (tw) && tw < min_thrust_to_weight)
-    /* Translators: thrust-to-weight ratios, then the user's limit */
-    g_string_append_printf (s, _("Liftoff thrust-to-weight %.2f is below the limit of %.2f "
-                                 "(common practice: at least about 1.2)."),
-                            tw, min_thrust_to_weight);
+    {
+      g_autofree char *a = sw_format_ratio (tw, 2), *b = sw_format_ratio (min_thrust_to_weight, 2);
+      /* Translators: thrust-to-weight ratios, then the user's limit */
+      g_string_append_printf (s, _("Liftoff thrust-to-weight %s is below the limit of %s "
+                                   "(common practice: at least about 1.2)."), a, b);
+    }
   if (ascent != NULL && isfinite (ascent->max_q_pa) && ascent->max_q_pa > max_q_pa)
     {
       if (s->len > 0)
         g_string_append_c (s, '\n');
-      /* Translators: pressures in kPa and a time after liftoff in seconds */
-      g_string_append_printf (s, _("Max-Q %.1f kPa at T+%.0f s exceeds the limit of %.1f kPa."),
-                              ascent->max_q_pa / 1000.0, ascent->max_q_time_s,
-                              max_q_pa / 1000.0);
+      g_autofree char *q = sw_format_pressure_kpa (ascent->max_q_pa);
+      g_autofree char *t = fmt_time (ascent->max_q_time_s);
+      g_autofree char *lim = sw_format_pressure_kpa (max_q_pa);
+      /* Translators: a pressure, a time after liftoff ("T+65.2 s"), the limit */
+      g_string_append_printf (s, _("Max-Q %s at %s exceeds the limit of %s."), q, t, lim);
     }
   if (ascent != NULL && isfinite (ascent->max_axial_g) && ascent->max_axial_g > max_g)
     {
       if (s->len > 0)
         g_string_append_c (s, '\n');
-      /* Translators: accelerations in units of standard gravity, a time in seconds */
-      g_string_append_printf (s, _("Axial acceleration reaches %.2f g at T+%.0f s, above the "
-                                   "limit of %.1f g."),
-                              ascent->max_axial_g, ascent->max_axial_g_time_s, max_g);
+      g_autofree char *g = sw_format_accel_g (ascent->max_axial_g);
+      g_autofree char *t = fmt_time (ascent->max_axial_g_time_s);
+      g_autofree char *lim = sw_format_accel_g (max_g);
+      /* Translators: an acceleration, a time after liftoff ("T+65.2 s"), the limit */
+      g_string_append_printf (s, _("Axial acceleration reaches %s at %s, above the limit of %s."),
+                              g, t, lim);
     }
   if (s->len == 0)
     {
@@ -247,12 +239,9 @@ update_summary (SwAscentPage *self)
   gboolean changed;
 
   warnings = sw_ascent_warnings_text (self->result, shown_ascent (self),
-                                      g_settings_get_double (self->settings,
-                                                             "min-thrust-to-weight"),
-                                      1000.0 * g_settings_get_double (self->settings,
-                                                                      "max-dynamic-pressure-kpa"),
-                                      g_settings_get_double (self->settings,
-                                                             "max-acceleration-g"));
+                                      gtk_adjustment_get_value (self->min_tw_adjustment),
+                                      1000.0 * gtk_adjustment_get_value (self->max_q_adjustment),
+                                      gtk_adjustment_get_value (self->max_g_adjustment));
   changed = g_strcmp0 (note, self->note) != 0 || g_strcmp0 (warnings, self->warnings) != 0;
   g_free (self->note);
   self->note = g_steal_pointer (&note);
@@ -330,7 +319,7 @@ update_status (SwAscentPage *self)
   if (a == NULL)
     {
       text = g_strdup_printf (_("No ascent simulated. %s"),
-                              r->ascent_message != NULL ? r->ascent_message : "");
+                              r->ascent_message);
       if (r->has_stage_figures)
         {
           char *more = g_strdup_printf ("%s\n%s", text,
@@ -347,11 +336,7 @@ update_status (SwAscentPage *self)
   switch (a->status)
     {
     case SW_ASCENT_REACHED:
-      if (isfinite (a->perigee_km) && isfinite (a->apogee_km))
-        /* Translators: perigee and apogee altitudes in km */
-        orbit = g_strdup_printf (_("%.1f × %.1f km"), a->perigee_km, a->apogee_km);
-      else
-        orbit = g_strdup (SW_NO_VALUE);
+      orbit = fmt_orbit (a->perigee_km, a->apogee_km, 1);
       cutoff = fmt_time (a->cutoff.time_s);
       /* Translators: an orbit such as "250.0 × 250.0 km", then a time such as "T+564.1 s" */
       text = g_strdup_printf (_("Orbit reached: %s, engine cutoff at %s."), orbit, cutoff);
@@ -415,11 +400,7 @@ update_figures (SwAscentPage *self)
       return;
     }
 
-  if (isfinite (a->perigee_km) && isfinite (a->apogee_km))
-    /* Translators: perigee and apogee altitudes in km, rounded */
-    orbit = g_strdup_printf (_("%.0f × %.0f km"), a->perigee_km, a->apogee_km);
-  else
-    orbit = g_strdup (SW_NO_VALUE);
+  orbit = fmt_orbit (a->perigee_km, a->apogee_km, 0);
   rot = sw_format_speed (a->rotation_gain_m_s);
   /* Translators: %s is a speed such as "355 m/s" */
   rotation = g_strdup_printf (_("rotation gain %s"), rot);
@@ -740,8 +721,8 @@ update_plots (SwAscentPage *self)
   sw_plot_set_x_range (self->plots[SW_ASCENT_PLOT_TRAJECTORY], 0.0, NAN);
 
   /* The user's limits, where they are close enough to be seen. */
-  q_limit = 1000.0 * g_settings_get_double (self->settings, "max-dynamic-pressure-kpa");
-  g_limit = g_settings_get_double (self->settings, "max-acceleration-g");
+  q_limit = 1000.0 * gtk_adjustment_get_value (self->max_q_adjustment);
+  g_limit = gtk_adjustment_get_value (self->max_g_adjustment);
   q_kpa = fmt_kpa (q_limit);
   /* Translators: %s is the user's limit, such as "45.0 kPa" */
   q_limit_name = g_strdup_printf (_("warning limit %s"), q_kpa);
@@ -842,16 +823,44 @@ sw_ascent_page_set_result (SwAscentPage *self, SwAnalysis *result)
   update (self, flown_changed);
 }
 
+/* The limits live in the adjustments, bound to the settings when the page
+ * has them: the limit lines and warnings move with them. */
 static void
-settings_changed_cb (SwAscentPage *self, const char *key)
+limits_changed_cb (SwAscentPage *self)
 {
-  if (g_strcmp0 (key, "min-thrust-to-weight") != 0
-      && g_strcmp0 (key, "max-dynamic-pressure-kpa") != 0
-      && g_strcmp0 (key, "max-acceleration-g") != 0)
-    return;
-  /* The limit lines move with the limits. */
   update_plots (self);
   update_summary (self);
+}
+
+static void
+unbind_settings (SwAscentPage *self)
+{
+  if (self->settings == NULL)
+    return;
+  g_settings_unbind (self->min_tw_adjustment, "value");
+  g_settings_unbind (self->max_q_adjustment, "value");
+  g_settings_unbind (self->max_g_adjustment, "value");
+  g_clear_object (&self->settings);
+}
+
+void
+sw_ascent_page_set_settings (SwAscentPage *self, GSettings *settings)
+{
+  g_return_if_fail (SW_IS_ASCENT_PAGE (self));
+  g_return_if_fail (settings == NULL || G_IS_SETTINGS (settings));
+
+  if (settings == self->settings)
+    return;
+  unbind_settings (self);
+  if (settings == NULL)
+    return;
+  self->settings = g_object_ref (settings);
+  g_settings_bind (settings, "min-thrust-to-weight", self->min_tw_adjustment, "value",
+                   G_SETTINGS_BIND_DEFAULT);
+  g_settings_bind (settings, "max-dynamic-pressure-kpa", self->max_q_adjustment, "value",
+                   G_SETTINGS_BIND_DEFAULT);
+  g_settings_bind (settings, "max-acceleration-g", self->max_g_adjustment, "value",
+                   G_SETTINGS_BIND_DEFAULT);
 }
 
 /* ---- accessors --------------------------------------------------------- */
@@ -938,9 +947,7 @@ sw_ascent_page_dispose (GObject *object)
 {
   SwAscentPage *self = SW_ASCENT_PAGE (object);
 
-  if (self->settings != NULL)
-    g_signal_handlers_disconnect_by_func (self->settings, settings_changed_cb, self);
-  g_clear_object (&self->settings);
+  unbind_settings (self);
   g_clear_pointer (&self->result, sw_analysis_unref);
   g_clear_pointer (&self->flown, sw_analysis_unref);
   g_clear_pointer (&self->note, g_free);
@@ -1011,14 +1018,16 @@ sw_ascent_page_init (SwAscentPage *self)
 {
   gtk_widget_init_template (GTK_WIDGET (self));
 
-  self->settings = sw_application_settings_new ();
-  g_settings_bind (self->settings, "min-thrust-to-weight", self->min_tw_adjustment, "value",
-                   G_SETTINGS_BIND_DEFAULT);
-  g_settings_bind (self->settings, "max-dynamic-pressure-kpa", self->max_q_adjustment, "value",
-                   G_SETTINGS_BIND_DEFAULT);
-  g_settings_bind (self->settings, "max-acceleration-g", self->max_g_adjustment, "value",
-                   G_SETTINGS_BIND_DEFAULT);
-  g_signal_connect_swapped (self->settings, "changed", G_CALLBACK (settings_changed_cb), self);
+  /* The schema's defaults until the owner hands the settings in. */
+  gtk_adjustment_set_value (self->min_tw_adjustment, 1.2);
+  gtk_adjustment_set_value (self->max_q_adjustment, 45.0);
+  gtk_adjustment_set_value (self->max_g_adjustment, 6.0);
+  g_signal_connect_swapped (self->min_tw_adjustment, "value-changed",
+                            G_CALLBACK (limits_changed_cb), self);
+  g_signal_connect_swapped (self->max_q_adjustment, "value-changed",
+                            G_CALLBACK (limits_changed_cb), self);
+  g_signal_connect_swapped (self->max_g_adjustment, "value-changed",
+                            G_CALLBACK (limits_changed_cb), self);
   setup_plots (self);
   update (self, TRUE);
 }

@@ -44,6 +44,9 @@ typedef enum {
 
 GtkWidget  *sw_ascent_page_new (void);
 void        sw_ascent_page_set_result (SwAscentPage *self, SwAnalysis *result);
+/* The limits (minimum T/W, max-Q, acceleration) come from @settings;
+ * without, the schema's defaults. */
+void        sw_ascent_page_set_settings (SwAscentPage *self, GSettings *settings);
 
 /* For the totals area: a note on the sizing (the closed loop's losses, or
  * how far the ascent falls short of the allowance) and the warnings against

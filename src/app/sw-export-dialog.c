@@ -18,6 +18,7 @@ struct _SwExportDialog {
   char         *sheet_path;
   char         *csv_dir;
   GCancellable *cancellable;      /* of the export running, or NULL */
+  gboolean      queued;           /* asked for while the ascent was being simulated */
   GtkNativeDialog *chooser;
   char         *status;
   gboolean      failed;
@@ -43,75 +44,6 @@ static const char *const extensions[] = { ".pdf", ".svg", ".png" };
 
 /* ---- the work (any thread) --------------------------------------------- */
 
-SwBriefing *
-sw_export_briefing_from_result (const SwAnalysis *r, GError **error)
-{
-  g_autoptr (SwBriefing) b = NULL;
-  g_autoptr (GDateTime) now = g_date_time_new_now_local ();
-  g_autofree char *date = g_date_time_format (now, "%Y-%m-%d");
-  const SwDesign *d;
-
-  g_return_val_if_fail (r != NULL, NULL);
-
-  if (!r->ok)
-    {
-      g_set_error (error, SW_ERROR, SW_ERROR_VALUE, _("The design cannot be sized, so there is "
-                                                      "no sheet to export: %s"),
-                   r->error_message != NULL ? r->error_message : "");
-      return NULL;
-    }
-  d = r->design;
-  b = g_new0 (SwBriefing, 1);
-  b->design = sw_design_copy (d);
-  g_strlcpy (b->date, date, sizeof b->date);
-  b->delta_v_m_s = r->sizing.delta_v_m_s;
-  b->sizing = r->sizing;
-  b->stage_curve = r->stage_curve;
-  b->sweep = r->sweep;
-
-  if (r->has_baseline && r->baseline_ok)
-    {
-      b->has_baseline = TRUE;
-      b->baseline_sizing = r->baseline_sizing;
-      b->baseline_curve = r->baseline_curve;
-      b->comparison = r->comparison;
-    }
-  if (r->has_sensitivity)
-    {
-      b->has_sensitivity = TRUE;
-      b->sensitivity = r->sensitivity;
-    }
-  if (r->has_montecarlo)
-    {
-      b->has_montecarlo = TRUE;
-      b->montecarlo = r->montecarlo;
-      b->has_band = r->has_band;
-      b->band = r->band;
-    }
-  else if (r->montecarlo_pending)
-    {
-      /* Exported before the solver's Monte Carlo arrived: the same run
-       * (same inputs, same seed) here, with the same band. */
-      SwSolveOptions options;
-      const SwUncertainty *unc = &d->uncertainty;
-
-      sw_solve_options_init (&options);
-      if (!sw_montecarlo_run (d, NULL, 0, FALSE, 0, options.threads, &b->montecarlo, NULL, NULL,
-                              error))
-        return NULL;
-      b->has_montecarlo = TRUE;
-      b->has_band = sw_montecarlo_band (d, NULL, SW_MAX_STAGES,
-                                        MIN (sw_uncertainty_samples (unc), options.band_samples),
-                                        sw_uncertainty_seed (unc), options.threads, &b->band,
-                                        NULL);
-    }
-  b->has_reliability = r->reliability.given;
-  b->reliability = r->reliability;
-  b->reliability_curve = r->reliability_curve;
-  sw_briefing_fill_ascent (b);
-  return g_steal_pointer (&b);
-}
-
 typedef struct {
   SwAnalysis      *result;
   SwSheetFormat  format;
@@ -136,14 +68,29 @@ export_thread (GTask *task, gpointer source, gpointer data, GCancellable *cancel
 {
   ExportJob *job = data;
   g_autoptr (GPtrArray) written = g_ptr_array_new_with_free_func (g_free);
-  g_autoptr (SwBriefing) b = NULL;
+  g_autoptr (SwAnalysis) b = sw_analysis_ref (job->result);
   GError *error = NULL;
 
-  b = sw_export_briefing_from_result (job->result, &error);
-  if (b == NULL)
+  if (!b->ok)
     {
-      g_task_return_error (task, error);
+      g_task_return_new_error (task, SW_ERROR, SW_ERROR_VALUE,
+                               _("The design cannot be sized, so there is no sheet to export: "
+                                 "%s"), b->error_message);
       return;
+    }
+  /* Exported before the solver's Monte Carlo arrived: the core's Monte Carlo
+   * phase here, on the analysis the window has.  The ascent is never flown
+   * again: the sheet shows what the window shows. */
+  if (b->montecarlo_pending)
+    {
+      SwAnalysis *mc = sw_analysis_add_montecarlo (b, cancellable);
+      if (mc == NULL)
+        {
+          g_task_return_error_if_cancelled (task);
+          return;
+        }
+      g_clear_pointer (&b, sw_analysis_unref);
+      b = mc;
     }
   if (g_task_return_error_if_cancelled (task))
     return;
@@ -230,7 +177,7 @@ set_status (SwExportDialog *self, const char *text, gboolean failed)
 static void
 update_sensitivity (SwExportDialog *self)
 {
-  gboolean busy = self->cancellable != NULL;
+  gboolean busy = self->cancellable != NULL || self->queued;
   gboolean csv = gtk_check_button_get_active (self->csv_check);
   gboolean ok = self->result != NULL && self->result->ok;
 
@@ -399,6 +346,16 @@ sw_export_dialog_export (SwExportDialog *self)
 
   if (self->cancellable != NULL || self->result == NULL)
     return;
+  /* The sheet leads with the verdict, which needs the ascent: wait for the
+   * window's next analysis rather than fly it a second time here. */
+  if (self->result->ok && self->result->ascent_pending)
+    {
+      self->queued = TRUE;
+      set_status (self, _("Waiting for the simulated ascent…"), FALSE);
+      update_sensitivity (self);
+      return;
+    }
+  self->queued = FALSE;
   csv = gtk_check_button_get_active (self->csv_check) ? self->csv_dir : NULL;
   self->cancellable = g_cancellable_new ();
   set_status (self, _("Writing…"), FALSE);
@@ -424,7 +381,7 @@ gboolean
 sw_export_dialog_is_busy (SwExportDialog *self)
 {
   g_return_val_if_fail (SW_IS_EXPORT_DIALOG (self), FALSE);
-  return self->cancellable != NULL;
+  return self->cancellable != NULL || self->queued;
 }
 
 const char *
@@ -446,10 +403,15 @@ sw_export_dialog_set_result (SwExportDialog *self, SwAnalysis *result)
   g_clear_pointer (&self->result, sw_analysis_unref);
   self->result = result != NULL ? sw_analysis_ref (result) : NULL;
   if (result != NULL && !result->ok)
-    set_status (self, _("The design cannot be sized: fix it before exporting."), TRUE);
+    {
+      self->queued = FALSE;
+      set_status (self, _("The design cannot be sized: fix it before exporting."), TRUE);
+    }
   else if (self->failed && self->cancellable == NULL)
     set_status (self, NULL, FALSE);
   update_sensitivity (self);
+  if (self->queued && result != NULL && result->ok && !result->ascent_pending)
+    sw_export_dialog_export (self);
 }
 
 void

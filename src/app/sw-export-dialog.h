@@ -6,7 +6,6 @@
 
 #include <gtk/gtk.h>
 
-#include "sw-briefing.h"
 #include "sw-analysis.h"
 #include "sw-sheet.h"
 
@@ -28,11 +27,6 @@ void            sw_export_dialog_set_targets (SwExportDialog *self, SwSheetForma
 void            sw_export_dialog_export (SwExportDialog *self);
 gboolean        sw_export_dialog_is_busy (SwExportDialog *self);
 const char     *sw_export_dialog_get_status (SwExportDialog *self, gboolean *failed);
-
-/* The briefing of a shown result, its figures taken from the result (the
- * Monte Carlo run here when the result does not carry it yet, the ascent
- * summary flown by the sheet library).  Runs on any thread. */
-SwBriefing     *sw_export_briefing_from_result (const SwAnalysis *result, GError **error);
 
 /* The work itself, on a worker thread: the sheet to @sheet_path (may be
  * NULL) and the CSV tables into @csv_dir (may be NULL).  Finishes with the

@@ -5,7 +5,7 @@
 
 #include "sw-inspector.h"
 
-#include "sw-application.h"
+#include "sw-design-edit.h"
 #include "sw-format.h"
 #include "sw-limits.h"
 #include "sw-sizing.h"
@@ -136,44 +136,18 @@ commit (SwInspector *self, SwDesign *edited, const char *merge_key)
   sw_document_commit (self->document, edited, merge_key);
 }
 
-/* Copies whole characters of @text that fit in @size bytes: a name cut
- * inside a character would not be UTF-8, and the loader rejects such a
- * file. */
-static void
-copy_name (char *dest, gsize size, const char *text)
+/* The split on screen, for sw_design_take_manual_shares (); 0 without one. */
+static guint
+screen_shares (SwInspector *self, double *shares)
 {
-  const char *end = text;
-
-  while (*end != '\0')
-    {
-      const char *next = g_utf8_next_char (end);
-      if ((gsize) (next - text) >= size)
-        break;
-      end = next;
-    }
-  memcpy (dest, text, (gsize) (end - text));
-  dest[end - text] = '\0';
+  return self->result != NULL && self->result->ok
+         ? sw_sizing_get_shares (&self->result->sizing, shares) : 0;
 }
 
 static char *
 stage_key (SwInspector *self, const char *field)
 {
   return g_strdup_printf ("%s:%d", field, self->selected);
-}
-
-/* Manual shares after removing a stage: the rest scaled to add up to 1. */
-static void
-renormalize_shares (SwDesign *d)
-{
-  double sum = 0.0;
-
-  if (d->split != SW_SPLIT_MANUAL)
-    return;
-  for (guint i = 0; i < d->n_stages; i++)
-    sum += d->stages[i].delta_v_share;
-  for (guint i = 0; i < d->n_stages; i++)
-    d->stages[i].delta_v_share = sum > 1e-12 ? d->stages[i].delta_v_share / sum
-                                             : 1.0 / d->n_stages;
 }
 
 /* ---- the eps field ----------------------------------------------------- */
@@ -462,11 +436,11 @@ name_changed_cb (SwInspector *self, GtkEditable *entry)
   if (!editing_ok (self))
     return;
   d = sw_document_dup_design (self->document);
-  copy_name (d->name, sizeof d->name, gtk_editable_get_text (entry));
+  sw_design_set_name (d, gtk_editable_get_text (entry));
   commit (self, g_steal_pointer (&d), "name");
 }
 
-#define MISSION_EDIT(fn, field, key)                                        \
+#define MISSION_EDIT(fn, field, setter, key)                                \
 static void                                                                 \
 fn (SwInspector *self, GtkSpinButton *spin)                                 \
 {                                                                           \
@@ -476,15 +450,17 @@ fn (SwInspector *self, GtkSpinButton *spin)                                 \
   if (!editing_ok (self) || !spin_edited (spin, design (self)->field, &value)) \
     return;                                                                 \
   d = sw_document_dup_design (self->document);                              \
-  d->field = value;                                                         \
+  setter (d, value);                                                        \
   commit (self, g_steal_pointer (&d), key);                                 \
 }
 
-MISSION_EDIT (payload_changed_cb, payload_kg, "payload")
-MISSION_EDIT (delta_v_changed_cb, mission.delta_v_m_s, "delta-v")
-MISSION_EDIT (altitude_changed_cb, mission.altitude_km, "altitude")
-MISSION_EDIT (inclination_changed_cb, mission.inclination_deg, "inclination")
-MISSION_EDIT (latitude_changed_cb, mission.site_latitude_deg, "latitude")
+MISSION_EDIT (payload_changed_cb, payload_kg, sw_design_set_payload, "payload")
+MISSION_EDIT (delta_v_changed_cb, mission.delta_v_m_s, sw_design_set_mission_delta_v, "delta-v")
+MISSION_EDIT (altitude_changed_cb, mission.altitude_km, sw_design_set_altitude, "altitude")
+MISSION_EDIT (inclination_changed_cb, mission.inclination_deg, sw_design_set_inclination,
+              "inclination")
+MISSION_EDIT (latitude_changed_cb, mission.site_latitude_deg, sw_design_set_site_latitude,
+              "latitude")
 
 static void
 losses_changed_cb (SwInspector *self, GtkSpinButton *spin)
@@ -499,8 +475,7 @@ losses_changed_cb (SwInspector *self, GtkSpinButton *spin)
   if (!spin_edited (spin, m->has_losses ? m->losses_m_s : 0.0, &value))
     return;
   d = sw_document_dup_design (self->document);
-  d->mission.losses_m_s = value;
-  d->mission.has_losses = TRUE;
+  sw_design_set_losses (d, value);
   commit (self, g_steal_pointer (&d), "losses");
 }
 
@@ -517,21 +492,9 @@ mission_kind_changed_cb (SwInspector *self)
   if (kind == design (self)->mission.kind)
     return;
   d = sw_document_dup_design (self->document);
-  d->mission.kind = kind;
-  /* Fill a field that was never set with a starting value: the delta-v the
-   * orbit needed, or a low equatorial-ish orbit (common practice for a first
-   * look: 400 km, 1,500 m/s of losses). */
-  if (kind == SW_MISSION_DELTA_V && !sw_limit_contains (SW_LIMIT_DELTA_V, d->mission.delta_v_m_s))
-    d->mission.delta_v_m_s = self->result != NULL && self->result->ok
-                             ? round (self->result->delta_v_m_s) : 9400.0;
-  if (kind == SW_MISSION_ORBIT && !sw_limit_contains (SW_LIMIT_ALTITUDE, d->mission.altitude_km))
-    {
-      d->mission.altitude_km = 400.0;
-      d->mission.inclination_deg = 30.0;
-      d->mission.site_latitude_deg = 28.0;
-      d->mission.losses_m_s = 1500.0;
-      d->mission.has_losses = TRUE;
-    }
+  /* A field never set starts from the delta-v the orbit needed. */
+  sw_design_set_mission_kind (d, kind, self->result != NULL && self->result->ok
+                                       ? self->result->delta_v_m_s : NAN);
   commit (self, g_steal_pointer (&d), NULL);
 }
 
@@ -548,10 +511,11 @@ split_toggled_cb (SwInspector *self, GtkToggleButton *button)
   if (split == design (self)->split)
     return;
   d = sw_document_dup_design (self->document);
-  if (split == SW_SPLIT_MANUAL)
-    sw_analysis_apply_shares (self->result, d);  /* start from the split on screen */
-  else
-    d->split = split;
+  {
+    double shares[SW_MAX_STAGES];
+    guint n = screen_shares (self, shares);
+    sw_design_set_split (d, split, shares, n);  /* manual starts from the split on screen */
+  }
   commit (self, g_steal_pointer (&d), NULL);
 }
 
@@ -566,8 +530,7 @@ stage_name_changed_cb (SwInspector *self, GtkEditable *entry)
   if (!stage_ok (self))
     return;
   d = sw_document_dup_design (self->document);
-  copy_name (d->stages[self->selected].name, sizeof d->stages[self->selected].name,
-             gtk_editable_get_text (entry));
+  sw_design_set_stage_name (d, (guint) self->selected, gtk_editable_get_text (entry));
   key = stage_key (self, "name");
   commit (self, g_steal_pointer (&d), key);
 }
@@ -577,18 +540,13 @@ isp_vac_changed_cb (SwInspector *self, GtkSpinButton *spin)
 {
   g_autoptr (SwDesign) d = NULL;
   g_autofree char *key = NULL;
-  SwStage *s;
   double value;
 
   if (!stage_ok (self)
       || !spin_edited (spin, design (self)->stages[self->selected].isp_vac_s, &value))
     return;
   d = sw_document_dup_design (self->document);
-  s = &d->stages[self->selected];
-  s->isp_vac_s = value;
-  /* The sea-level Isp can never exceed the vacuum Isp: it follows down. */
-  if (s->has_isp_sl && s->isp_sl_s > value)
-    s->isp_sl_s = value;
+  sw_design_set_stage_isp_vac (d, (guint) self->selected, value);
   key = stage_key (self, "isp-vac");
   commit (self, g_steal_pointer (&d), key);
 }
@@ -597,15 +555,11 @@ static void
 isp_sl_toggled_cb (SwInspector *self, GtkCheckButton *check)
 {
   g_autoptr (SwDesign) d = NULL;
-  SwStage *s;
 
   if (!stage_ok (self))
     return;
   d = sw_document_dup_design (self->document);
-  s = &d->stages[self->selected];
-  s->has_isp_sl = gtk_check_button_get_active (check);
-  if (s->has_isp_sl && !(s->isp_sl_s > 0.0 && s->isp_sl_s <= s->isp_vac_s))
-    s->isp_sl_s = round (0.9 * s->isp_vac_s);  /* a starting value the user will edit */
+  sw_design_set_stage_has_isp_sl (d, (guint) self->selected, gtk_check_button_get_active (check));
   commit (self, g_steal_pointer (&d), NULL);
 }
 
@@ -623,7 +577,7 @@ isp_sl_changed_cb (SwInspector *self, GtkSpinButton *spin)
   if (!cur->has_isp_sl || !spin_edited (spin, cur->isp_sl_s, &value))
     return;
   d = sw_document_dup_design (self->document);
-  d->stages[self->selected].isp_sl_s = MIN (value, d->stages[self->selected].isp_vac_s);
+  sw_design_set_stage_isp_sl (d, (guint) self->selected, value);
   key = stage_key (self, "isp-sl");
   commit (self, g_steal_pointer (&d), key);
 }
@@ -631,7 +585,6 @@ isp_sl_changed_cb (SwInspector *self, GtkSpinButton *spin)
 static void
 eps_changed_cb (SwInspector *self, GtkSpinButton *spin)
 {
-  const SwLimit *l = sw_limit_get (SW_LIMIT_STRUCTURAL_COEFFICIENT);
   g_autoptr (SwDesign) d = NULL;
   g_autofree char *key = NULL;
   double value, current;
@@ -643,8 +596,8 @@ eps_changed_cb (SwInspector *self, GtkSpinButton *spin)
   if (!spin_edited (spin, current, &value))
     return;
   d = sw_document_dup_design (self->document);
-  d->stages[self->selected].structural_coefficient
-    = CLAMP (sw_eps_from_form (value, self->eps_form), l->min, l->max);
+  sw_design_set_stage_structural_coefficient (d, (guint) self->selected,
+                                              sw_eps_from_form (value, self->eps_form));
   key = stage_key (self, "eps");
   commit (self, g_steal_pointer (&d), key);
 }
@@ -664,7 +617,11 @@ share_changed_cb (SwInspector *self, GtkAdjustment *adjustment)
     return;
   d = sw_document_dup_design (self->document);
   if (d->split != SW_SPLIT_MANUAL)
-    sw_analysis_apply_shares (self->result, d);
+    {
+      double shares[SW_MAX_STAGES];
+      guint n = screen_shares (self, shares);
+      sw_design_take_manual_shares (d, shares, n);
+    }
   sw_design_set_share_rebalanced (d, (guint) self->selected, value);
   key = stage_key (self, "share");
   commit (self, g_steal_pointer (&d), key);
@@ -704,18 +661,12 @@ stage_add_action (GtkWidget *widget, const char *name, GVariant *param)
   g_autoptr (SwDesign) d = NULL;
   guint n;
 
-  if (self->document == NULL || design (self)->n_stages >= SW_MAX_STAGES)
+  if (self->document == NULL)
     return;
   d = sw_document_dup_design (self->document);
   n = d->n_stages;
-  sw_stage_init_default (&d->stages[n], n);
-  d->n_stages = n + 1;
-  if (d->split == SW_SPLIT_MANUAL)
-    {
-      d->stages[n].has_share = TRUE;
-      d->stages[n].delta_v_share = 0.0;
-      sw_design_set_share_rebalanced (d, n, 1.0 / (n + 1));
-    }
+  if (!sw_design_add_stage (d))
+    return;
   commit (self, g_steal_pointer (&d), NULL);
   sw_inspector_set_selected (self, (int) n);
 }
@@ -725,28 +676,14 @@ stage_duplicate_action (GtkWidget *widget, const char *name, GVariant *param)
 {
   SwInspector *self = SW_INSPECTOR (widget);
   g_autoptr (SwDesign) d = NULL;
-  SwStage copy;
   guint sel;
 
-  if (!stage_ok (self) || design (self)->n_stages >= SW_MAX_STAGES)
+  if (!stage_ok (self))
     return;
   d = sw_document_dup_design (self->document);
   sel = (guint) self->selected;
-  copy = d->stages[sel];
-  {
-    /* Translators: name of a duplicated stage; %s is the original's name */
-    g_autofree char *copy_of = g_strdup_printf (_("%s (copy)"), d->stages[sel].name);
-    copy_name (copy.name, sizeof copy.name, copy_of);
-  }
-  memmove (&d->stages[sel + 2], &d->stages[sel + 1],
-           (d->n_stages - sel - 1) * sizeof d->stages[0]);
-  d->stages[sel + 1] = copy;
-  d->n_stages++;
-  if (d->split == SW_SPLIT_MANUAL)
-    {
-      d->stages[sel].delta_v_share /= 2.0;
-      d->stages[sel + 1].delta_v_share = d->stages[sel].delta_v_share;
-    }
+  if (!sw_design_duplicate_stage (d, sel))
+    return;
   commit (self, g_steal_pointer (&d), NULL);
   sw_inspector_set_selected (self, (int) sel + 1);
 }
@@ -758,14 +695,12 @@ stage_remove_action (GtkWidget *widget, const char *name, GVariant *param)
   g_autoptr (SwDesign) d = NULL;
   guint sel;
 
-  if (!stage_ok (self) || design (self)->n_stages <= 1)
+  if (!stage_ok (self))
     return;
   d = sw_document_dup_design (self->document);
   sel = (guint) self->selected;
-  memmove (&d->stages[sel], &d->stages[sel + 1], (d->n_stages - sel - 1) * sizeof d->stages[0]);
-  d->n_stages--;
-  memset (&d->stages[d->n_stages], 0, sizeof d->stages[0]);
-  renormalize_shares (d);
+  if (!sw_design_remove_stage (d, sel))
+    return;
   commit (self, g_steal_pointer (&d), NULL);
   sw_inspector_set_selected (self, MIN ((int) sel, (int) design (self)->n_stages - 1));
 }
@@ -774,15 +709,13 @@ static void
 stage_move (SwInspector *self, int offset)
 {
   g_autoptr (SwDesign) d = NULL;
-  SwStage tmp;
   int to = self->selected + offset;
 
-  if (!stage_ok (self) || to < 0 || (guint) to >= design (self)->n_stages)
+  if (!stage_ok (self) || to < 0)
     return;
   d = sw_document_dup_design (self->document);
-  tmp = d->stages[self->selected];
-  d->stages[self->selected] = d->stages[to];
-  d->stages[to] = tmp;
+  if (!sw_design_move_stage (d, (guint) self->selected, (guint) to))
+    return;
   commit (self, g_steal_pointer (&d), NULL);
   sw_inspector_set_selected (self, to);
 }
@@ -1085,9 +1018,22 @@ sw_inspector_init (SwInspector *self)
   }
   configure_eps_spin (self);
 
-  self->settings = sw_application_settings_new ();
-  g_settings_bind_with_mapping (self->settings, "eps-form", self->eps_form_dropdown, "selected",
-                                G_SETTINGS_BIND_DEFAULT, eps_form_get_mapping,
-                                eps_form_set_mapping, NULL, NULL);
   update_actions (self);
+}
+
+/* The structural-mass form is kept in @settings ("eps-form"). */
+void
+sw_inspector_set_settings (SwInspector *self, GSettings *settings)
+{
+  g_return_if_fail (SW_IS_INSPECTOR (self));
+
+  if (settings == self->settings)
+    return;
+  if (self->settings != NULL)
+    g_settings_unbind (self->eps_form_dropdown, "selected");
+  g_set_object (&self->settings, settings);
+  if (settings != NULL)
+    g_settings_bind_with_mapping (settings, "eps-form", self->eps_form_dropdown, "selected",
+                                  G_SETTINGS_BIND_DEFAULT, eps_form_get_mapping,
+                                  eps_form_set_mapping, NULL, NULL);
 }

@@ -17,6 +17,7 @@ G_DECLARE_FINAL_TYPE (SwInspector, sw_inspector, SW, INSPECTOR, GtkWidget)
 GtkWidget *sw_inspector_new (void);
 void       sw_inspector_set_document (SwInspector *self, SwDocument *document);
 void       sw_inspector_set_result (SwInspector *self, SwAnalysis *result);
+void       sw_inspector_set_settings (SwInspector *self, GSettings *settings);
 /* Property "selected-stage": -1 for none. */
 void       sw_inspector_set_selected (SwInspector *self, int stage);
 int        sw_inspector_get_selected (SwInspector *self);

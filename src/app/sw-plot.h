@@ -8,6 +8,8 @@
 
 #include <gtk/gtk.h>
 
+#include "sw-plot-palette.h"
+
 G_BEGIN_DECLS
 
 #define SW_TYPE_PLOT (sw_plot_get_type ())
@@ -62,11 +64,11 @@ gboolean sw_plot_get_plot_area (SwPlot *self, graphene_rect_t *area);
 /* TRUE: the hover readout is a tooltip instead of a drawn label box.
  * Property "readout-tooltip". */
 void  sw_plot_set_readout_tooltip (SwPlot *self, gboolean tooltip);
-/* The application's colour-blind-safe palette (Okabe-Ito, eight colours),
- * adjusted to the theme of @widget so every entry keeps 3:1 contrast with
- * the background; index 7 is the foreground.  Used by the stack view too. */
-void  sw_plot_palette_color (GtkWidget *widget, int index, GdkRGBA *rgba);
-/* Whether @widget's theme is dark (light foreground). */
-gboolean sw_plot_style_is_dark (GtkWidget *widget);
+/* Ticks on whole numbers only (a count such as the number of stages). */
+void  sw_plot_set_x_integer (SwPlot *self, gboolean integer);
+/* What the plot says instead of drawing empty axes when it has no data
+ * (default "No data"). */
+void  sw_plot_set_empty_text (SwPlot *self, const char *text);
+/* The palette: sw-plot-palette.h. */
 
 G_END_DECLS

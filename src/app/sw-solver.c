@@ -23,7 +23,7 @@ typedef struct {
   guint64       pending_serial;
   GCancellable *pending_cancellable;
   GCancellable *running;            /* cancellable of the request being solved */
-  SwSolveOptions options;           /* settings for the next request */
+  SwAnalysisOptions options;           /* settings for the next request */
   guint64       dropped;
   guint64       ascents_started;
   guint64       ascents_cancelled;  /* started, then abandoned for a newer request */
@@ -134,8 +134,7 @@ deliver (Shared *sh, SwAnalysis *result)
  * Returns the new result (delivered, and a reference for the caller) or
  * NULL when superseded or cancelled. */
 static SwAnalysis *
-solve_montecarlo (Shared *sh, SwAnalysis *fast, const SwSolveOptions *options,
-                  GCancellable *cancellable)
+solve_montecarlo (Shared *sh, SwAnalysis *fast, GCancellable *cancellable)
 {
   SwAnalysis *result;
   gboolean superseded;
@@ -148,7 +147,7 @@ solve_montecarlo (Shared *sh, SwAnalysis *fast, const SwSolveOptions *options,
   g_mutex_unlock (&sh->mutex);
   if (superseded || g_cancellable_is_cancelled (cancellable))
     return NULL;
-  result = sw_analysis_compute_montecarlo (fast, options, cancellable);
+  result = sw_analysis_add_montecarlo (fast, cancellable);
   if (result != NULL)
     deliver (sh, sw_analysis_ref (result));
   return result;
@@ -175,7 +174,7 @@ solve_ascent (Shared *sh, SwAnalysis *fast, GCancellable *cancellable)
   g_mutex_lock (&sh->mutex);
   sh->ascents_started++;
   g_mutex_unlock (&sh->mutex);
-  result = sw_analysis_compute_ascent (fast, cancellable);
+  result = sw_analysis_add_ascent (fast, cancellable);
   if (result != NULL)
     deliver (sh, result);
   else
@@ -196,7 +195,7 @@ worker_thread (gpointer data)
       g_autoptr (SwDesign) design = NULL;
       g_autoptr (GCancellable) cancellable = NULL;
       g_autoptr (SwAnalysis) result = NULL;
-      SwSolveOptions options;
+      SwAnalysisOptions options;
       guint64 serial;
 
       g_mutex_lock (&sh->mutex);
@@ -214,7 +213,7 @@ worker_thread (gpointer data)
       g_set_object (&sh->running, cancellable);
       g_mutex_unlock (&sh->mutex);
 
-      result = sw_analysis_compute_with (design, serial, &options, cancellable);
+      result = sw_analysis_new (design, serial, &options, cancellable);
       /* The sizing first, within the frame; then the ascent, which a newer
        * request cancels through the same cancellable. */
       if (result != NULL)
@@ -222,7 +221,7 @@ worker_thread (gpointer data)
           deliver (sh, sw_analysis_ref (result));
           if (result->montecarlo_pending)
             {
-              SwAnalysis *mc = solve_montecarlo (sh, result, &options, cancellable);
+              SwAnalysis *mc = solve_montecarlo (sh, result, cancellable);
               /* The ascent copies the newest result, so it keeps the Monte Carlo. */
               if (mc != NULL)
                 {
@@ -281,7 +280,7 @@ sw_solver_get_result (SwSolver *self)
 }
 
 void
-sw_solver_set_options (SwSolver *self, const SwSolveOptions *options)
+sw_solver_set_options (SwSolver *self, const SwAnalysisOptions *options)
 {
   g_return_if_fail (SW_IS_SOLVER (self));
   g_return_if_fail (options != NULL);
@@ -292,7 +291,7 @@ sw_solver_set_options (SwSolver *self, const SwSolveOptions *options)
 }
 
 void
-sw_solver_get_options (SwSolver *self, SwSolveOptions *options)
+sw_solver_get_options (SwSolver *self, SwAnalysisOptions *options)
 {
   g_return_if_fail (SW_IS_SOLVER (self));
 
@@ -381,7 +380,7 @@ sw_solver_init (SwSolver *self)
   Shared *sh = g_atomic_rc_box_new0 (Shared);
 
   g_mutex_init (&sh->mutex);
-  sw_solve_options_init (&sh->options);
+  sw_analysis_options_init (&sh->options);
   g_cond_init (&sh->cond);
   g_weak_ref_init (&sh->owner, self);
   sh->context = g_main_context_ref_thread_default ();

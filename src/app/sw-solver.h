@@ -23,8 +23,8 @@ guint64   sw_solver_get_posted_serial (SwSolver *self);
 SwAnalysis *sw_solver_get_result (SwSolver *self);
 /* Settings that are not part of the design (the sensitivity step): they
  * apply from the next post on. */
-void      sw_solver_set_options (SwSolver *self, const SwSolveOptions *options);
-void      sw_solver_get_options (SwSolver *self, SwSolveOptions *options);
+void      sw_solver_set_options (SwSolver *self, const SwAnalysisOptions *options);
+void      sw_solver_get_options (SwSolver *self, SwAnalysisOptions *options);
 /* Requests replaced before the worker started them, for tests and benchmarks. */
 guint64   sw_solver_get_dropped (SwSolver *self);
 /* Ascents the worker began, and those a newer request cancelled part way

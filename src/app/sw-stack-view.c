@@ -4,7 +4,10 @@
 #include "config.h"
 
 #include "sw-stack-view.h"
+
+#include "sw-format.h"
 #include "sw-plot.h"
+#include "sw-stack-drawing.h"
 
 #include <glib/gi18n.h>
 #include <math.h>
@@ -53,6 +56,8 @@ struct _SwStackView {
   guint      n_items;
   Item       items[SW_MAX_STAGES + 1];   /* bottom (first stage) to top (payload) */
   double     px2_per_kg;                 /* block area per kilogram; 0 when not to scale */
+  SwStackScale scale;
+  SwStackGeometry geom;                  /* parts = items when to scale */
   double     stack_height;               /* stages only, for the drag mapping */
   double     label_x;
   double     stack_right;
@@ -66,6 +71,7 @@ struct _SwStackView {
    * bottom (first stage) to top (payload); n_base 0 when not drawn. */
   guint      n_base;
   graphene_rect_t base_rects[SW_MAX_STAGES + 1];
+  SwStackGeometry base_geom;
   PangoLayout *base_caption;
   double     base_caption_x;
   double     base_caption_y;
@@ -92,46 +98,14 @@ static guint signals[N_SIGNALS];
 
 G_DEFINE_FINAL_TYPE (SwStackView, sw_stack_view, GTK_TYPE_WIDGET)
 
-/* Formatting: never a NaN on screen. */
-
-static char *
-format_mass (double kg)
-{
-  double t = kg / 1000.0;
-
-  if (!isfinite (kg))
-    return g_strdup ("—");
-  if (kg < 1000.0)
-    return g_strdup_printf (_("%.0f kg"), kg);
-  if (t < 10.0)
-    return g_strdup_printf (_("%.2f t"), t);
-  if (t < 100.0)
-    return g_strdup_printf (_("%.1f t"), t);
-  return g_strdup_printf (_("%.0f t"), t);
-}
-
-static char *
-format_speed (double m_s)
-{
-  if (!isfinite (m_s))
-    return g_strdup ("—");
-  return g_strdup_printf (_("%.0f m/s"), m_s);
-}
+/* Numbers through the one formatter (sw-format.h): never a NaN on screen. */
 
 static char *
 format_ratio (double ratio)
 {
   if (!isfinite (ratio) || ratio <= 0.0)
-    return g_strdup ("—");
-  return g_strdup_printf ("%.3f", ratio);
-}
-
-static char *
-format_percent (double fraction)
-{
-  if (!isfinite (fraction))
-    return g_strdup ("—");
-  return g_strdup_printf (_("%.1f %%"), 100.0 * fraction);
+    return g_strdup (SW_NO_VALUE);
+  return sw_format_ratio (ratio, 3);
 }
 
 static const char *
@@ -235,14 +209,16 @@ static char *
 stage_tw_text (SwAnalysis *r, int stage, gboolean compact)
 {
   double tw = stage_tw (r, stage);
+  g_autofree char *text = NULL;
 
   if (!isfinite (tw))
     return g_strdup ("");
+  text = sw_format_ratio (tw, 2);
   if (compact)
     /* Translators: appended to a stage's label: thrust-to-weight at ignition */
-    return g_strdup_printf (_(" · T/W %.2f"), tw);
+    return g_strdup_printf (_(" · T/W %s"), text);
   /* Translators: the last line of a stage's label: thrust-to-weight at ignition */
-  return g_strdup_printf (_("\nT/W %.2f at ignition"), tw);
+  return g_strdup_printf (_("\nT/W %s at ignition"), text);
 }
 
 static char *
@@ -257,7 +233,7 @@ item_label_markup (SwStackView *self, const Item *item, gboolean compact)
 
   if (item->kind == ITEM_PAYLOAD)
     {
-      mass = format_mass (r->design->payload_kg);
+      mass = sw_format_mass (r->design->payload_kg);
       if (compact)
         return g_markup_printf_escaped (_("<b>Payload</b> · %s"), mass);
       return g_markup_printf_escaped (_("<b>Payload</b>\n%s"), mass);
@@ -265,8 +241,8 @@ item_label_markup (SwStackView *self, const Item *item, gboolean compact)
 
   s = &r->sizing.stages[item->stage];
   title = stage_title_markup (r, item->stage);
-  mass = format_mass (s->stage_mass_kg);
-  dv = format_speed (s->delta_v_m_s);
+  mass = sw_format_mass (s->stage_mass_kg);
+  dv = sw_format_speed (s->delta_v_m_s);
   ratio = format_ratio (s->mass_ratio);
 
   switch (item->kind)
@@ -277,7 +253,7 @@ item_label_markup (SwStackView *self, const Item *item, gboolean compact)
       return g_strdup_printf (_("%s\nunused: no Δv at the optimum"), title);
     case ITEM_FAILING:
       {
-        g_autofree char *limit = format_speed (s->delta_v_limit_m_s);
+        g_autofree char *limit = sw_format_speed (s->delta_v_limit_m_s);
         g_autofree char *want = s->delta_v_m_s > 0.0 ? g_strdup (dv) : g_strdup ("—");
         if (compact)
           return g_strdup_printf (_("%s · <b>⚠ cannot deliver</b>"), title);
@@ -378,11 +354,11 @@ make_labels (SwStackView *self, gboolean compact, double max_width, double *widt
 
       g_clear_object (&it->label);
       it->label = make_label (self, markup);
-      pango_layout_set_ellipsize (it->label, PANGO_ELLIPSIZE_END);
-      pango_layout_set_height (it->label, -1);
       pango_layout_get_pixel_size (it->label, &lw, &lh);
       if (lw > max_width)
         {
+          /* Wrapped between words, never cut mid-word or mid-number. */
+          pango_layout_set_wrap (it->label, PANGO_WRAP_WORD_CHAR);
           pango_layout_set_width (it->label, (int) (max_width * PANGO_SCALE));
           pango_layout_get_pixel_size (it->label, &lw, &lh);
         }
@@ -411,24 +387,7 @@ legend_height (SwStackView *self)
   return h + 8.0;
 }
 
-/* The pinned baseline's blocks in kg, bottom to top, the payload last;
- * none when there is no baseline or it does not close. */
-static guint
-baseline_masses (SwAnalysis *r, double *mass)
-{
-  const SwSizing *b;
-  guint n = 0;
-
-  if (r == NULL || !r->ok || !r->has_baseline || !r->baseline_ok
-      || !r->baseline_sizing.feasible)
-    return 0;
-  b = &r->baseline_sizing;
-  for (guint i = 0; i < b->n_stages && i < SW_MAX_STAGES; i++)
-    if (!b->stages[i].unused && b->stages[i].stage_mass_kg > 0.0)
-      mass[n++] = b->stages[i].stage_mass_kg;
-  mass[n++] = b->payload_kg;
-  return n;
-}
+static guint legend_run (SwStackView *self, cairo_t *cr, const Colors *c, int width);
 
 static void
 stack_layout (SwStackView *self, int width, int height)
@@ -436,11 +395,7 @@ stack_layout (SwStackView *self, int width, int height)
   SwAnalysis *r = self->result;
   const SwSizing *sz;
   double legend_h, top, bottom, label_w, max_label_w, avail_w, avail_h;
-  double sum_sqrt = 0.0, max_sqrt = 0.0, fixed_h = 0.0;
-  double s, aspect, x_axis, y, max_w = 0.0;
-  double base_mass[SW_MAX_STAGES + 1], base_sum = 0.0, base_max = 0.0, base_avail_h = 0.0;
-  double base_w = 0.0;
-  guint n_base = 0;
+  double x_axis, y, max_w = 0.0;
   gboolean to_scale;
 
   clear_layout (self);
@@ -457,7 +412,7 @@ stack_layout (SwStackView *self, int width, int height)
     {
       g_autofree char *markup =
         g_markup_printf_escaped (_("<b>⚠ This design cannot be solved</b>\n%s"),
-                                 r->error_message != NULL ? r->error_message : "");
+                                 r->error_message);
       layout_message (self, markup, width - 4 * MARGIN);
       pango_layout_set_alignment (self->message, PANGO_ALIGN_CENTER);
       return;
@@ -466,7 +421,8 @@ stack_layout (SwStackView *self, int width, int height)
   sz = &r->sizing;
   to_scale = sz->feasible;
   legend_h = legend_height (self);
-  top = MARGIN + legend_h;
+  /* The legend wraps in a narrow view instead of being cut. */
+  top = MARGIN + legend_h * legend_run (self, NULL, NULL, width);
   bottom = height - MARGIN - (to_scale ? legend_h + 30.0 : legend_h);
 
   if (!sz->feasible)
@@ -515,133 +471,106 @@ stack_layout (SwStackView *self, int width, int height)
     make_labels (self, TRUE, max_label_w, &label_w);
 
   avail_w = width - 2 * MARGIN - LEADER_GAP - label_w;
-  avail_h = bottom - top - BLOCK_GAP * (self->n_items - 1);
+  avail_h = bottom - top;
   if (avail_w < 20.0 || avail_h < 20.0)
     return;
 
-  for (guint i = 0; i < self->n_items; i++)
+  if (to_scale)
     {
-      Item *it = &self->items[i];
-      if (it->kind == ITEM_UNUSED)
-        fixed_h += UNUSED_HEIGHT;
-      else if (to_scale)
-        {
-          double q = sqrt (MAX (it->mass_kg, 0.0));
-          sum_sqrt += q;
-          max_sqrt = MAX (max_sqrt, q);
-        }
-    }
-  avail_h -= fixed_h;
+      /* The shapes of the sheet (sw-stack-drawing.c): one scale for the
+       * stack and the pinned baseline beside it. */
+      SwStackMasses cur, base;
+      const SwStackMasses *both[2] = { &cur, &base };
+      guint n_stacks = 1;
+      double caption_h = 0.0;
 
-  /* The baseline stands beside the stack: it shares the width, and the
-   * scale must fit its height too. */
-  n_base = to_scale ? baseline_masses (r, base_mass) : 0;
-  if (n_base > 0)
-    {
-      g_autofree char *mass = format_mass (r->baseline_sizing.liftoff_mass_kg);
-      g_autofree char *markup = g_markup_printf_escaped (_("<b>Baseline</b>\n%s"), mass);
-      int ch;
+      sw_stack_masses_from_sizing (sz, &cur);
+      if (r->has_baseline && r->baseline_ok
+          && sw_stack_masses_from_sizing (&r->baseline_sizing, &base))
+        {
+          g_autofree char *mass = sw_format_mass (r->baseline_sizing.liftoff_mass_kg);
+          g_autofree char *markup = g_markup_printf_escaped (_("<b>Baseline</b>\n%s"), mass);
+          int ch;
 
-      self->base_caption = make_label (self, markup);
-      pango_layout_set_alignment (self->base_caption, PANGO_ALIGN_CENTER);
-      pango_layout_get_pixel_size (self->base_caption, NULL, &ch);
-      base_avail_h = bottom - top - BLOCK_GAP * (n_base - 1) - ch - 4.0;
-      for (guint i = 0; i < n_base; i++)
-        {
-          base_sum += sqrt (base_mass[i]);
-          base_max = MAX (base_max, sqrt (base_mass[i]));
+          self->base_caption = make_label (self, markup);
+          pango_layout_set_alignment (self->base_caption, PANGO_ALIGN_CENTER);
+          pango_layout_get_pixel_size (self->base_caption, NULL, &ch);
+          caption_h = ch + 4.0;
+          n_stacks = 2;
         }
-      avail_w -= BASELINE_GAP;
-      if (base_avail_h < 20.0 || avail_w < 20.0)
-        n_base = 0;
-    }
-
-  if (to_scale && sum_sqrt > 0.0 && avail_h > 10.0)
-    {
-      /* Side lengths sqrt(mass) with one common aspect ratio (height/width)
-       * and one common scale: every area is s^2 * mass.  The aspect ratio
-       * only decides how the stack fills the widget. */
-      double w_sqrt = max_sqrt + (n_base > 0 ? base_max : 0.0);
-      double h_sqrt = n_base > 0 ? MAX (sum_sqrt, base_sum * avail_h / base_avail_h) : sum_sqrt;
-      /* Two stacks share the width: taller blocks keep them readable. */
-      aspect = CLAMP (avail_h * w_sqrt / (avail_w * h_sqrt), 0.8, n_base > 0 ? 4.0 : 2.5);
-      s = MIN (avail_h / (sqrt (aspect) * sum_sqrt), avail_w * sqrt (aspect) / w_sqrt);
-      if (n_base > 0)
+      if (!sw_stack_fit (both, n_stacks, avail_w - (n_stacks > 1 ? BASELINE_GAP : 0.0),
+                         avail_h - caption_h, BLOCK_GAP, UNUSED_HEIGHT, BASELINE_GAP,
+                         0.6, 3.2, &self->scale))
         {
-          s = MIN (s, base_avail_h / (sqrt (aspect) * base_sum));
-          base_w = s * base_max / sqrt (aspect);
-          for (guint i = 0; i < n_base; i++)
-            {
-              self->base_rects[i].size.width = s * sqrt (base_mass[i]) / sqrt (aspect);
-              self->base_rects[i].size.height = s * sqrt (base_mass[i]) * sqrt (aspect);
-            }
+          g_clear_object (&self->base_caption);
+          return;
         }
-      self->px2_per_kg = s * s;
-      for (guint i = 0; i < self->n_items; i++)
-        {
-          Item *it = &self->items[i];
-          double q = sqrt (MAX (it->mass_kg, 0.0));
-          if (it->kind == ITEM_UNUSED)
-            continue;
-          it->rect.size.width = s * q / sqrt (aspect);
-          it->rect.size.height = s * q * sqrt (aspect);
-          max_w = MAX (max_w, it->rect.size.width);
-        }
+      /* The baseline's height was fitted without the gaps of unused stages. */
+      self->px2_per_kg = sw_stack_area_per_kg (&self->scale);
       self->scale_ref_kg = scale_reference (self->px2_per_kg, 36.0);
-    }
-  else
-    {
-      /* Not sized: equal nominal blocks, the payload half as wide. */
-      double n_nominal = 0.0, side;
-      for (guint i = 0; i < self->n_items; i++)
-        if (self->items[i].kind != ITEM_UNUSED)
-          n_nominal += self->items[i].kind == ITEM_PAYLOAD ? 0.5 : 1.0;
-      side = MIN (MIN (avail_h / MAX (n_nominal, 1.0), avail_w), 140.0);
+      max_w = sw_stack_width (&cur, &self->scale);
+      {
+        double base_w = n_stacks > 1 ? sw_stack_width (&base, &self->scale) : 0.0;
+        double base_room = n_stacks > 1 ? base_w + BASELINE_GAP : 0.0;
+        double group = base_room + max_w + LEADER_GAP + label_w;
+        double x0 = MAX (MARGIN, (width - group) / 2.0);
+
+        if (n_stacks > 1)
+          {
+            sw_stack_place (&base, &self->scale, x0 + base_w / 2.0, bottom, BLOCK_GAP, 0.0,
+                            &self->base_geom);
+            self->n_base = self->base_geom.n;
+            for (guint i = 0; i < self->n_base; i++)
+              {
+                const SwStackBox *bx = &self->base_geom.box[i];
+                self->base_rects[i] = GRAPHENE_RECT_INIT (bx->x, bx->y, bx->width, bx->height);
+              }
+            self->base_caption_x = x0 + base_w / 2.0;
+            self->base_caption_y = self->base_geom.top - 4.0;
+            x0 += base_room;
+          }
+        x_axis = x0 + max_w / 2.0;
+        self->stack_right = x0 + max_w;
+        self->label_x = self->stack_right + LEADER_GAP;
+      }
+      sw_stack_place (&cur, &self->scale, x_axis, bottom, BLOCK_GAP, UNUSED_HEIGHT, &self->geom);
+      g_assert (self->geom.n == self->n_items);
       for (guint i = 0; i < self->n_items; i++)
         {
           Item *it = &self->items[i];
-          double f = it->kind == ITEM_PAYLOAD ? 0.5 : 1.0;
-          if (it->kind == ITEM_UNUSED)
-            continue;
-          it->rect.size.width = side * f;
-          it->rect.size.height = side * f;
-          max_w = MAX (max_w, it->rect.size.width);
+          const SwStackBox *bx = &self->geom.box[i];
+          const SwStackBox *st = &self->geom.structure[i];
+
+          it->rect = GRAPHENE_RECT_INIT (bx->x, bx->y, bx->width, bx->height);
+          it->structure = GRAPHENE_RECT_INIT (st->x, st->y, st->width, st->height);
+          /* From the stored (float) rectangles, as a caller measures them. */
+          if (it->kind != ITEM_PAYLOAD)
+            self->stack_height = self->items[0].rect.origin.y + self->items[0].rect.size.height
+                                 - it->rect.origin.y;
         }
+      place_labels (self, top, bottom);
+      return;
     }
 
-  /* Unused placeholders: thin, as wide as the block below. */
-  for (guint i = 0; i < self->n_items; i++)
-    {
-      Item *it = &self->items[i];
-      if (it->kind != ITEM_UNUSED)
-        continue;
-      it->rect.size.width = i > 0 ? MAX (self->items[i - 1].rect.size.width * 0.8, 24.0)
-                                  : MAX (max_w * 0.5, 24.0);
-      it->rect.size.height = UNUSED_HEIGHT;
-      max_w = MAX (max_w, it->rect.size.width);
-    }
-
-  /* Centre the group (stack + labels) horizontally; stand it on the bottom. */
+  /* Not sized: equal nominal blocks, the payload half as wide. */
   {
-    double base_room = n_base > 0 && base_w > 0.0 ? base_w + BASELINE_GAP : 0.0;
-    double group = base_room + max_w + LEADER_GAP + label_w;
-    double x0 = MAX (MARGIN, (width - group) / 2.0);
-    if (base_room > 0.0)
+    double n_nominal = 0.0, side;
+
+    avail_h -= BLOCK_GAP * (self->n_items - 1);
+    for (guint i = 0; i < self->n_items; i++)
+      n_nominal += self->items[i].kind == ITEM_PAYLOAD ? 0.5 : 1.0;
+    side = MIN (MIN (avail_h / MAX (n_nominal, 1.0), avail_w), 140.0);
+    for (guint i = 0; i < self->n_items; i++)
       {
-        double bx = x0 + base_w / 2.0, by = bottom;
-        for (guint i = 0; i < n_base; i++)
-          {
-            graphene_rect_t *rc = &self->base_rects[i];
-            by -= rc->size.height;
-            rc->origin.x = bx - rc->size.width / 2.0;
-            rc->origin.y = by;
-            by -= BLOCK_GAP;
-          }
-        self->n_base = n_base;
-        self->base_caption_x = bx;
-        self->base_caption_y = by + BLOCK_GAP - 4.0;
-        x0 += base_room;
+        Item *it = &self->items[i];
+        double f = it->kind == ITEM_PAYLOAD ? 0.5 : 1.0;
+        it->rect.size.width = side * f;
+        it->rect.size.height = side * f;
+        max_w = MAX (max_w, it->rect.size.width);
       }
+  }
+  {
+    double x0 = MAX (MARGIN, (width - (max_w + LEADER_GAP + label_w)) / 2.0);
     x_axis = x0 + max_w / 2.0;
     self->stack_right = x0 + max_w;
     self->label_x = self->stack_right + LEADER_GAP;
@@ -653,13 +582,6 @@ stack_layout (SwStackView *self, int width, int height)
       y -= it->rect.size.height;
       it->rect.origin.x = x_axis - it->rect.size.width / 2.0;
       it->rect.origin.y = y;
-      if (it->kind == ITEM_STAGE)
-        {
-          double hs = it->rect.size.height * it->structure_fraction;
-          it->structure = GRAPHENE_RECT_INIT (it->rect.origin.x,
-                                              it->rect.origin.y + it->rect.size.height - hs,
-                                              it->rect.size.width, hs);
-        }
       if (it->kind != ITEM_PAYLOAD)
         self->stack_height = bottom - y;
       y -= BLOCK_GAP;
@@ -806,26 +728,53 @@ legend_swatch (SwStackView *self, cairo_t *cr, double x, double y, double h,
   return x + h + tw + 16.0;
 }
 
+/* The legend's entries, wrapped to the widget's width; without @cr only
+ * counts the rows. */
+static guint
+legend_run (SwStackView *self, cairo_t *cr, const Colors *c, int width)
+{
+  gboolean feasible = self->result != NULL && self->result->sizing.feasible;
+  const char *names[3];
+  double h = legend_height (self) - 8.0;
+  double x = MARGIN, y = MARGIN;
+  guint rows = 1;
+
+  names[0] = feasible ? _("Propellant") : _("Cannot deliver");
+  names[1] = feasible ? _("Structure") : _("Not sized");
+  names[2] = _("Payload");
+  for (guint i = 0; i < 3; i++)
+    {
+      PangoLayout *probe = make_label (self, names[i]);
+      int tw;
+
+      pango_layout_get_pixel_size (probe, &tw, NULL);
+      g_object_unref (probe);
+      if (x > MARGIN && x + h + tw > width - MARGIN)
+        {
+          x = MARGIN;
+          y += h + 8.0;
+          rows++;
+        }
+      if (cr == NULL)
+        {
+          x += h + tw + 16.0;
+          continue;
+        }
+      if (feasible)
+        x = legend_swatch (self, cr, x, y, h, i == 0 ? &c->accent : i == 1 ? &c->fg : &c->payload,
+                           i == 0 ? c->propellant_alpha : i == 1 ? c->structure_alpha : 0.75,
+                           FALSE, c, names[i]);
+      else
+        x = legend_swatch (self, cr, x, y, h, i == 0 ? &c->warning : i == 1 ? &c->fg : &c->payload,
+                           i == 0 ? 0.15 : i == 1 ? 0.08 : 0.75, i == 0, c, names[i]);
+    }
+  return rows;
+}
+
 static void
 draw_legend (SwStackView *self, cairo_t *cr, const Colors *c)
 {
-  double h = legend_height (self) - 8.0;
-  double x = MARGIN, y = MARGIN;
-
-  if (self->result->sizing.feasible)
-    {
-      x = legend_swatch (self, cr, x, y, h, &c->accent, c->propellant_alpha, FALSE, c,
-                         _("Propellant"));
-      x = legend_swatch (self, cr, x, y, h, &c->fg, c->structure_alpha, FALSE, c,
-                         _("Structure"));
-      legend_swatch (self, cr, x, y, h, &c->payload, 0.75, FALSE, c, _("Payload"));
-    }
-  else
-    {
-      x = legend_swatch (self, cr, x, y, h, &c->warning, 0.15, TRUE, c, _("Cannot deliver"));
-      x = legend_swatch (self, cr, x, y, h, &c->fg, 0.08, FALSE, c, _("Not sized"));
-      legend_swatch (self, cr, x, y, h, &c->payload, 0.75, FALSE, c, _("Payload"));
-    }
+  legend_run (self, cr, c, gtk_widget_get_width (GTK_WIDGET (self)));
 }
 
 static void
@@ -833,9 +782,9 @@ draw_scale (SwStackView *self, cairo_t *cr, const Colors *c, int width, int heig
 {
   double side = sqrt (self->scale_ref_kg * self->px2_per_kg);
   double base = height - MARGIN;
-  g_autofree char *ref = format_mass (self->scale_ref_kg);
-  g_autofree char *liftoff = format_mass (self->result->sizing.liftoff_mass_kg);
-  g_autofree char *pf = format_percent (self->result->sizing.payload_fraction);
+  g_autofree char *ref = sw_format_mass (self->scale_ref_kg);
+  g_autofree char *liftoff = sw_format_mass (self->result->sizing.liftoff_mass_kg);
+  g_autofree char *pf = sw_format_percent (self->result->sizing.payload_fraction, 1);
   g_autofree char *scale_text = NULL;
   g_autofree char *total_text = NULL;
   PangoLayout *layout;
@@ -865,28 +814,42 @@ draw_scale (SwStackView *self, cairo_t *cr, const Colors *c, int width, int heig
   g_object_unref (layout);
 }
 
+/* The sized parts through the shared routine, so the screen draws the
+ * sheet's shapes; Colors in the style's terms. */
+static void
+stack_style (const Colors *c, SwStackStyle *st)
+{
+#define RGBA(dst_, col_, a_) \
+  G_STMT_START { dst_[0] = (col_)->red; dst_[1] = (col_)->green; dst_[2] = (col_)->blue; \
+                 dst_[3] = (col_)->alpha * (a_); } G_STMT_END
+  RGBA (st->propellant, &c->accent, c->propellant_alpha);
+  RGBA (st->structure, &c->fg, c->structure_alpha);
+  RGBA (st->payload, &c->payload, 0.75);
+  RGBA (st->outline, &c->fg, 0.0);
+  st->line_width = 0.0;
+#undef RGBA
+}
+
 static void
 draw_item (SwStackView *self, cairo_t *cr, const Item *it, const Colors *c)
 {
   const graphene_rect_t *rc = &it->rect;
 
+  if (self->px2_per_kg > 0.0 && self->geom.n == self->n_items
+      && (it->kind == ITEM_STAGE || it->kind == ITEM_PAYLOAD))
+    {
+      SwStackStyle st;
+      stack_style (c, &st);
+      sw_stack_draw_part (cr, &self->geom, (guint) (it - self->items), &st, FALSE);
+      return;
+    }
+
   switch (it->kind)
     {
     case ITEM_STAGE:
-      {
-        graphene_rect_t prop = *rc;
-        prop.size.height -= it->structure.size.height;
-        set_source_alpha (cr, &c->accent, c->propellant_alpha);
-        rect_path (cr, &prop);
-        cairo_fill (cr);
-        set_source_alpha (cr, &c->fg, c->structure_alpha);
-        rect_path (cr, &it->structure);
-        cairo_fill (cr);
-      }
-      break;
-
     case ITEM_PAYLOAD:
-      set_source_alpha (cr, &c->payload, 0.75);
+      /* Not to scale: a plain block. */
+      set_source_alpha (cr, &c->payload, it->kind == ITEM_PAYLOAD ? 0.75 : 0.3);
       rect_path (cr, rc);
       cairo_fill (cr);
       break;
@@ -995,25 +958,16 @@ draw_selection (SwStackView *self, cairo_t *cr, const Item *it, const Colors *c)
 static void
 draw_baseline (SwStackView *self, cairo_t *cr, const Colors *c)
 {
-  static const double dash[] = { 5.0, 3.0 };
+  SwStackStyle st;
   int cw, ch;
 
-  cairo_save (cr);
-  cairo_set_dash (cr, dash, G_N_ELEMENTS (dash), 0.0);
-  cairo_set_line_width (cr, 1.5);
-  for (guint i = 0; i < self->n_base; i++)
-    {
-      const graphene_rect_t *rc = &self->base_rects[i];
-      gboolean payload = i + 1 == self->n_base;
-      set_source_alpha (cr, payload ? &c->payload : &c->fg, 0.06);
-      rect_path (cr, rc);
-      cairo_fill (cr);
-      set_source_alpha (cr, payload ? &c->payload : &c->fg, payload ? 1.0 : 0.75);
-      cairo_rectangle (cr, rc->origin.x + 0.75, rc->origin.y + 0.75, rc->size.width - 1.5,
-                       rc->size.height - 1.5);
-      cairo_stroke (cr);
-    }
-  cairo_restore (cr);
+  stack_style (c, &st);
+  st.outline[0] = c->fg.red;
+  st.outline[1] = c->fg.green;
+  st.outline[2] = c->fg.blue;
+  st.outline[3] = 0.75;
+  st.line_width = 1.5;
+  sw_stack_draw (cr, &self->base_geom, &st, TRUE);
   if (self->base_caption != NULL)
     {
       pango_layout_get_pixel_size (self->base_caption, &cw, &ch);
@@ -1185,7 +1139,7 @@ query_tooltip_cb (SwStackView *self, int x, int y, gboolean keyboard, GtkTooltip
 
   if (it->kind == ITEM_PAYLOAD)
     {
-      mass = format_mass (r->design->payload_kg);
+      mass = sw_format_mass (r->design->payload_kg);
       markup = g_markup_printf_escaped (_("<b>Payload</b>\n%s"), mass);
       gtk_tooltip_set_markup (tooltip, markup);
       return TRUE;
@@ -1193,15 +1147,15 @@ query_tooltip_cb (SwStackView *self, int x, int y, gboolean keyboard, GtkTooltip
 
   s = &r->sizing.stages[it->stage];
   title = stage_title_markup (r, it->stage);
-  mass = format_mass (s->stage_mass_kg);
-  prop = format_mass (s->propellant_mass_kg);
-  struc = format_mass (s->structural_mass_kg);
-  dv = format_speed (s->delta_v_m_s);
-  share = format_percent (s->delta_v_share);
+  mass = sw_format_mass (s->stage_mass_kg);
+  prop = sw_format_mass (s->propellant_mass_kg);
+  struc = sw_format_mass (s->structural_mass_kg);
+  dv = sw_format_speed (s->delta_v_m_s);
+  share = sw_format_percent (s->delta_v_share, 1);
   ratio = format_ratio (s->mass_ratio);
-  m0 = format_mass (s->initial_mass_kg);
-  mb = format_mass (s->burnout_mass_kg);
-  limit = format_speed (s->delta_v_limit_m_s);
+  m0 = sw_format_mass (s->initial_mass_kg);
+  mb = sw_format_mass (s->burnout_mass_kg);
+  limit = sw_format_speed (s->delta_v_limit_m_s);
   markup = g_strdup_printf (_("%s\n"
                               "Stage mass: %s (propellant %s, structure %s)\n"
                               "Δv: %s (%s of the total), limit %s\n"
@@ -1213,10 +1167,11 @@ query_tooltip_cb (SwStackView *self, int x, int y, gboolean keyboard, GtkTooltip
   if (isfinite (stage_tw (r, it->stage)) && r->has_stage_figures)
     {
       const SwAscentStage *f = &r->stage_figures[it->stage];
-      /* Translators: thrust-to-weight ratio, then a burn time in seconds */
-      g_autofree char *more = g_strdup_printf (_("\nThrust-to-weight at ignition: %.2f, burn "
-                                                 "time %.0f s"),
-                                               stage_tw (r, it->stage), f->burn_time_s);
+      g_autofree char *tw = sw_format_ratio (stage_tw (r, it->stage), 2);
+      g_autofree char *burn = sw_format_duration (f->burn_time_s);
+      /* Translators: thrust-to-weight ratio, then a burn time with its unit */
+      g_autofree char *more = g_strdup_printf (_("\nThrust-to-weight at ignition: %s, burn "
+                                                 "time %s"), tw, burn);
       char *joined = g_strconcat (markup, more, NULL);
       g_free (markup);
       markup = joined;
@@ -1456,12 +1411,12 @@ update_accessible (SwStackView *self)
     text = g_strdup (_("Stage stack: no design"));
   else if (!r->ok)
     text = g_strdup_printf (_("Stage stack: the design cannot be solved. %s"),
-                            r->error_message != NULL ? r->error_message : "");
+                            r->error_message);
   else if (!r->sizing.feasible)
     text = g_strdup_printf (_("Stage stack: not feasible. %s"), r->sizing.reason);
   else
     {
-      g_autofree char *m = format_mass (r->sizing.liftoff_mass_kg);
+      g_autofree char *m = sw_format_mass (r->sizing.liftoff_mass_kg);
       text = g_strdup_printf (_("Stage stack: %u stages, liftoff mass %s"),
                               r->sizing.n_stages, m);
     }

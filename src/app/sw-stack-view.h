@@ -26,7 +26,8 @@ int        sw_stack_view_get_selected (SwStackView *self);
 gboolean   sw_stack_view_get_block_rect (SwStackView *self, guint index, graphene_rect_t *rect);
 
 /* Added by the implementation, for tests and for placing popovers: the
- * payload block; the structure band inside stage @index's block (FALSE when
+ * payload's box (the payload is drawn as a cone filling half of it, the
+ * shape rule of sw-stack-drawing.h); the structure band inside stage @index's block (FALSE when
  * the stage is not drawn to scale); the block area per kilogram in square
  * pixels (0 when the vehicle is not sized). */
 gboolean   sw_stack_view_get_payload_rect (SwStackView *self, graphene_rect_t *rect);

@@ -5,7 +5,7 @@
 
 #include "sw-trade-page.h"
 
-#include "sw-application.h"
+#include "sw-design-edit.h"
 #include "sw-format.h"
 #include "sw-limits.h"
 #include "sw-trade-plots.h"
@@ -73,23 +73,30 @@ static GParamSpec *properties[N_PROPS];
 
 /* ---- formatting -------------------------------------------------------- */
 
-/* "+3.2 t", "−850 kg": a change, signed, the em dash when unknown. */
+/* The sensitivity step in percent: "5" or "2.5". */
 static char *
-format_signed_mass (double kg)
+step_percent (SwAnalysis *r)
 {
-  g_autofree char *mass = NULL;
+  double pct = r != NULL ? 100.0 * r->sensitivity_step : NAN;
 
-  if (!isfinite (kg))
-    return g_strdup (SW_NO_VALUE);
-  mass = sw_format_mass (fabs (kg));
-  return g_strconcat (kg > 0.0 ? "+" : kg < 0.0 ? "−" : "", mass, NULL);
+  return sw_format_number (pct, fabs (pct - round (pct)) < 1e-9 ? 0 : 1);
 }
 
-/* A probability as a percentage, with a second decimal near certainty. */
-static char *
-format_probability (double p)
+void
+sw_trade_page_set_settings (SwTradePage *self, GSettings *settings)
 {
-  return sw_format_percent (p, isfinite (p) && p > 0.99 && p < 1.0 ? 2 : 1);
+  g_return_if_fail (SW_IS_TRADE_PAGE (self));
+  g_return_if_fail (settings == NULL || G_IS_SETTINGS (settings));
+
+  if (settings == self->settings)
+    return;
+  if (self->settings != NULL)
+    g_settings_unbind (gtk_spin_button_get_adjustment (self->step_spin), "value");
+  g_set_object (&self->settings, settings);
+  if (settings != NULL)
+    g_settings_bind (settings, "sensitivity-step-percent",
+                     gtk_spin_button_get_adjustment (self->step_spin), "value",
+                     G_SETTINGS_BIND_DEFAULT);
 }
 
 static void
@@ -154,7 +161,6 @@ can_edit (SwTradePage *self)
 static void
 commit (SwTradePage *self, SwDesign *design, const char *merge_key)
 {
-  design->uncertainty.present = TRUE;
   if (sw_design_equal (design, sw_document_get_design (self->document)))
     {
       sw_design_free (design);
@@ -177,8 +183,7 @@ samples_changed_cb (SwTradePage *self)
       sw_design_free (d);
       return;
     }
-  d->uncertainty.has_samples = TRUE;
-  d->uncertainty.samples = samples;
+  sw_design_set_mc_samples (d, samples);
   commit (self, d, "trade:samples");
 }
 
@@ -198,8 +203,7 @@ seed_changed_cb (SwTradePage *self)
       sw_design_free (d);
       return;
     }
-  d->uncertainty.has_seed = TRUE;
-  d->uncertainty.seed = seed;
+  sw_design_set_mc_seed (d, seed);
   commit (self, d, "trade:seed");
 }
 
@@ -224,15 +228,20 @@ static void
 spread_changed_cb (SwTradePage *self)
 {
   SwDesign *d;
+  SwSpread isp, eps, losses;
 
   if (!can_edit (self))
     return;
   d = sw_document_dup_design (self->document);
+  isp = d->uncertainty.isp;
+  eps = d->uncertainty.structural_coefficient;
+  losses = d->uncertainty.losses;
   self->updating++;
-  read_spread (self->isp_kind, self->isp_width, &d->uncertainty.isp, 1.0);
-  read_spread (self->eps_kind, self->eps_width, &d->uncertainty.structural_coefficient, 5.0);
-  read_spread (self->losses_kind, self->losses_width, &d->uncertainty.losses, 100.0);
+  read_spread (self->isp_kind, self->isp_width, &isp, 1.0);
+  read_spread (self->eps_kind, self->eps_width, &eps, 5.0);
+  read_spread (self->losses_kind, self->losses_width, &losses, 100.0);
   self->updating--;
+  sw_design_set_spreads (d, &isp, &eps, &losses);
   commit (self, d, "trade:spreads");
 }
 
@@ -257,7 +266,7 @@ show_tornado (SwTradePage *self, SwAnalysis *r)
   self->n_rows = 0;
   g_clear_pointer (&self->row_labels, g_strfreev);
 
-  step_text = sw_format_value ("%.3g", r != NULL ? 100.0 * r->sensitivity_step : NAN);
+  step_text = step_percent (r);
   /* Translators: %s is the step in percent, e.g. "5" */
   title = g_strdup_printf (_("Liftoff mass change, each input ±%s %%"), step_text);
   sw_plot_set_title (self->tornado_plot, title);
@@ -351,7 +360,7 @@ show_histogram (SwTradePage *self, SwAnalysis *r)
       return;
     }
 
-  samples = sw_format_value ("%'.0f", s->n);
+  samples = sw_format_number (s->n, 0);
   /* Translators: %s is the number of samples, e.g. "10,000" */
   title = g_strdup_printf (_("Liftoff mass over %s samples"), samples);
   sw_plot_set_title (self->histogram_plot, title);
@@ -406,6 +415,7 @@ show_reliability (SwTradePage *self, SwAnalysis *r)
   sw_plot_set_title (self->reliability_plot, _("Mission success by stage count"));
   sw_plot_set_x_axis (self->reliability_plot, _("Number of stages"), FALSE);
   sw_plot_set_x_format (self->reliability_plot, "%.0f", 1.0);
+  sw_plot_set_x_integer (self->reliability_plot, TRUE);
   sw_plot_set_x_range (self->reliability_plot, 0.5, SW_MAX_STAGES + 0.5);
   sw_plot_set_y_axis (self->reliability_plot, _("Success probability"), FALSE);
   /* Translators: tick labels of a probability axis in percent */
@@ -459,15 +469,15 @@ show_cards (SwTradePage *self, SwAnalysis *r)
   g_autofree char *value = NULL, *detail = NULL;
 
   /* The largest effect. */
-  step_text = sw_format_value ("%.3g", r != NULL ? 100.0 * r->sensitivity_step : NAN);
+  step_text = step_percent (r);
   /* Translators: %s is the tornado's step in percent */
   caption = g_strdup_printf (_("Largest effect of ±%s %% on the liftoff mass"), step_text);
   set_label (self->driver_caption, caption);
   if (r != NULL && r->ok && r->has_sensitivity && r->sensitivity.n_items > 0)
     {
       const SwSensitivity *top = &r->sensitivity.items[r->sensitivity.ranked[0]];
-      g_autofree char *lo = format_signed_mass (top->minus_feasible ? top->minus_kg : NAN);
-      g_autofree char *hi = format_signed_mass (top->plus_feasible ? top->plus_kg : NAN);
+      g_autofree char *lo = sw_format_mass_delta (top->minus_feasible ? top->minus_kg : NAN);
+      g_autofree char *hi = sw_format_mass_delta (top->plus_feasible ? top->plus_kg : NAN);
       value = g_strdup_printf ("%s / %s", lo, hi);
       detail = sw_sensitivity_dup_label (r->design, top);
     }
@@ -489,7 +499,7 @@ show_cards (SwTradePage *self, SwAnalysis *r)
       g_autofree char *lo = sw_format_mass (mc->liftoff.p05);
       g_autofree char *hi = sw_format_mass (mc->liftoff.p95);
       g_autofree char *median = sw_format_mass (mc->liftoff.p50);
-      g_autofree char *n = sw_format_value ("%'.0f", mc->samples);
+      g_autofree char *n = sw_format_number (mc->samples, 0);
       value = g_strdup_printf ("%s – %s", lo, hi);
       if (mc->infeasible_fraction > 0.0)
         {
@@ -547,11 +557,11 @@ show_cards (SwTradePage *self, SwAnalysis *r)
       guint n = r->design->n_stages;
       GString *text = g_string_new (NULL);
 
-      value = format_probability (r->reliability.mission);
+      value = sw_format_probability (r->reliability.mission);
       for (guint k = n - 1; k <= n + 1; k += 2)
         if (k >= 1 && k <= c->n_points && c->given)
           {
-            g_autofree char *p = format_probability (c->mission[k - 1]);
+            g_autofree char *p = sw_format_probability (c->mission[k - 1]);
             if (text->len > 0)
               g_string_append (text, " · ");
             /* Translators: a stage count and a probability, e.g. "4 stages 95.2 %" */
@@ -770,7 +780,7 @@ sw_trade_page_dispose (GObject *object)
     g_signal_handlers_disconnect_by_func (self->document, document_changed_cb, self);
   g_clear_object (&self->document);
   g_clear_pointer (&self->result, sw_analysis_unref);
-  g_clear_object (&self->settings);
+  sw_trade_page_set_settings (self, NULL);
   g_clear_pointer (&self->row_labels, g_strfreev);
   gtk_widget_dispose_template (GTK_WIDGET (self), SW_TYPE_TRADE_PAGE);
   G_OBJECT_CLASS (sw_trade_page_parent_class)->dispose (object);
@@ -850,10 +860,6 @@ sw_trade_page_init (SwTradePage *self)
   setup_spin (self->eps_width, self->eps_unit, SW_LIMIT_SPREAD_SIGMA_PERCENT, 1, 0.5, 5.0);
   setup_spin (self->losses_width, self->losses_unit, SW_LIMIT_LOSSES_SIGMA, 0, 10.0, 100.0);
 
-  self->settings = sw_application_settings_new ();
-  g_settings_bind (self->settings, "sensitivity-step-percent",
-                   gtk_spin_button_get_adjustment (self->step_spin), "value",
-                   G_SETTINGS_BIND_DEFAULT);
   self->updating--;
 
   show_result (self);

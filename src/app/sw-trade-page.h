@@ -49,6 +49,8 @@ void       sw_trade_page_set_document (SwTradePage *self, SwDocument *document);
 /* Takes a reference; NULL clears the page.  Behind another page of the
  * notebook the page is brought up to date when it is shown. */
 void       sw_trade_page_set_result (SwTradePage *self, SwAnalysis *result);
+/* The sensitivity step is kept in @settings ("sensitivity-step-percent"). */
+void       sw_trade_page_set_settings (SwTradePage *self, GSettings *settings);
 /* The tornado's relative step (0.05 = 5 %).  Property "step"; stored in the
  * setting "sensitivity-step-percent". */
 double     sw_trade_page_get_step (SwTradePage *self);

@@ -5,10 +5,12 @@
 
 #include "sw-window.h"
 
-#include "sw-application.h"
+#include "sw-design-edit.h"
+#include "sw-settings.h"
 #include "sw-ascent-page.h"
 #include "sw-export-dialog.h"
 #include "sw-format.h"
+#include "sw-recovery.h"
 #include "sw-trade-page.h"
 #include "sw-trade-plots.h"
 #include "sw-window-private.h"
@@ -18,8 +20,6 @@
 #include <errno.h>
 #include <string.h>
 
-/* The recovery copy is written this long after the last change. */
-#define RECOVERY_DELAY_MS 1000
 #define MIME_TYPE "application/x-stagewright+json"
 #define MAX_RECENT 8
 
@@ -44,11 +44,7 @@ struct _SwWindow {
   GdkFrameClock  *frame_clock;
   SwDesign       *drag_base;           /* the design when a border drag began */
 
-  int             recovery_slot;       /* -1: none */
-  guint           recovery_timeout;
-  gboolean        recovery_offered;
-  SwDesign       *recovered;
-  GFile          *recovered_origin;
+  SwRecovery     *recovery;
 
   AfterSave       after;               /* what to do once the design is saved */
   GFile          *after_file;
@@ -79,11 +75,7 @@ G_DEFINE_FINAL_TYPE (SwWindow, sw_window, GTK_TYPE_APPLICATION_WINDOW)
 enum { RESULT_DRAWN, N_SIGNALS };
 static guint signals[N_SIGNALS];
 
-/* Recovery slots in use in this process: window k writes recovery file k. */
-static guint used_recovery_slots;
-
 static void show_save_as (SwWindow *self);
-static void schedule_recovery (SwWindow *self);
 
 /* ---- messages and title ------------------------------------------------ */
 
@@ -158,7 +150,6 @@ document_changed_cb (SwWindow *self)
   sw_solver_post (self->solver, sw_document_get_design (self->document));
   update_title (self);
   update_actions (self);
-  schedule_recovery (self);
 }
 
 static void
@@ -237,9 +228,13 @@ share_dragged_cb (SwWindow *self, int lower, int upper, double amount, gboolean 
     return;
   if (self->drag_base == NULL)
     {
+      double shares[SW_MAX_STAGES];
+      guint n_shares = self->result != NULL && self->result->ok
+                       ? sw_sizing_get_shares (&self->result->sizing, shares) : 0;
+
       self->drag_base = sw_document_dup_design (self->document);
       if (self->drag_base->split != SW_SPLIT_MANUAL)
-        sw_analysis_apply_shares (self->result, self->drag_base);
+        sw_design_take_manual_shares (self->drag_base, shares, n_shares);
     }
   d = sw_design_copy (self->drag_base);
   sw_design_move_share (d, (guint) upper, (guint) lower, amount);
@@ -251,215 +246,77 @@ share_dragged_cb (SwWindow *self, int lower, int upper, double amount, gboolean 
     }
 }
 
-/* ---- the recovery copy ------------------------------------------------- */
-
-static char *
-recovery_dir (void)
-{
-  const char *env = g_getenv ("STAGEWRIGHT_RECOVERY_DIR");
-
-  if (env != NULL && env[0] != '\0')
-    return g_strdup (env);
-  return g_build_filename (g_get_user_state_dir (), "stagewright", NULL);
-}
+/* ---- the recovery copy (sw-recovery.c) ---------------------------------- */
 
 char *
 sw_window_dup_recovery_path (SwWindow *self)
 {
-  g_autofree char *dir = recovery_dir ();
-  g_autofree char *name = NULL;
-
   g_return_val_if_fail (SW_IS_WINDOW (self), NULL);
-
-  if (self->recovery_slot <= 0)
-    name = g_strdup ("recovery.stagewright");
-  else
-    name = g_strdup_printf ("recovery-%d.stagewright", self->recovery_slot + 1);
-  return g_build_filename (dir, name, NULL);
-}
-
-/* Beside the copy: the URI of the file it belongs to (empty: untitled). */
-static char *
-origin_path (const char *recovery_path)
-{
-  return g_strconcat (recovery_path, ".origin", NULL);
-}
-
-static void
-remove_recovery (SwWindow *self)
-{
-  g_autofree char *path = NULL, *origin = NULL;
-
-  g_clear_handle_id (&self->recovery_timeout, g_source_remove);
-  /* A copy still waiting for the user's answer is not ours to delete. */
-  if (self->recovery_slot < 0 || self->recovery_offered || self->ephemeral)
-    return;
-  path = sw_window_dup_recovery_path (self);
-  origin = origin_path (path);
-  g_unlink (path);
-  g_unlink (origin);
-}
-
-static void
-write_recovery (SwWindow *self)
-{
-  g_autofree char *dir = recovery_dir ();
-  g_autofree char *path = NULL, *origin = NULL, *uri = NULL;
-  g_autoptr (GError) error = NULL;
-  GFile *file;
-
-  if (self->ephemeral || self->recovery_offered || self->recovery_slot < 0
-      || !sw_document_get_modified (self->document))
-    return;
-  path = sw_window_dup_recovery_path (self);
-  origin = origin_path (path);
-  if (g_mkdir_with_parents (dir, 0700) != 0)
-    {
-      g_warning ("Cannot create %s for the recovery copy: %s", dir, g_strerror (errno));
-      return;
-    }
-  /* An invalid design (an orbit the site cannot reach, say) is not written:
-   * the copy keeps the last state that can be opened again. */
-  if (!sw_design_save (sw_document_get_design (self->document), path, &error))
-    {
-      g_debug ("Recovery copy not written: %s", error->message);
-      return;
-    }
-  file = sw_document_get_file (self->document);
-  uri = file != NULL ? g_file_get_uri (file) : g_strdup ("");
-  if (!g_file_set_contents_full (origin, uri, -1, G_FILE_SET_CONTENTS_CONSISTENT, 0600, &error))
-    g_debug ("Recovery origin not written: %s", error->message);
-}
-
-static gboolean
-recovery_timeout_cb (gpointer data)
-{
-  SwWindow *self = data;
-
-  self->recovery_timeout = 0;
-  write_recovery (self);
-  return G_SOURCE_REMOVE;
-}
-
-static void
-schedule_recovery (SwWindow *self)
-{
-  if (self->ephemeral || self->recovery_offered)
-    return;
-  if (!sw_document_get_modified (self->document))
-    {
-      remove_recovery (self);
-      return;
-    }
-  /* Debounced: a burst of edits gives one write, a second after the last. */
-  g_clear_handle_id (&self->recovery_timeout, g_source_remove);
-  self->recovery_timeout = g_timeout_add (RECOVERY_DELAY_MS, recovery_timeout_cb, self);
+  return sw_recovery_dup_path (self->recovery);
 }
 
 void
 sw_window_flush_recovery (SwWindow *self)
 {
   g_return_if_fail (SW_IS_WINDOW (self));
-  if (self->recovery_timeout != 0)
-    {
-      g_clear_handle_id (&self->recovery_timeout, g_source_remove);
-      write_recovery (self);
-    }
-}
-
-static void
-claim_recovery_slot (SwWindow *self)
-{
-  for (int k = 0; k < 32; k++)
-    if (!(used_recovery_slots & (1u << k)))
-      {
-        used_recovery_slots |= 1u << k;
-        self->recovery_slot = k;
-        return;
-      }
-  self->recovery_slot = -1;
-}
-
-static void
-release_recovery_slot (SwWindow *self)
-{
-  if (self->recovery_slot >= 0)
-    used_recovery_slots &= ~(1u << self->recovery_slot);
-  self->recovery_slot = -1;
+  sw_recovery_flush (self->recovery);
 }
 
 /* A copy left by a session that ended without a clean close: offer it. */
 static void
 check_recovery (SwWindow *self)
 {
-  g_autofree char *path = NULL, *origin = NULL, *uri = NULL, *when = NULL, *text = NULL;
+  g_autofree char *kept = NULL, *when = NULL, *text = NULL;
   g_autoptr (GError) error = NULL;
   g_autoptr (GDateTime) mtime = NULL;
-  GStatBuf st;
+  const SwDesign *d;
 
-  if (self->recovery_slot < 0)
-    return;
-  path = sw_window_dup_recovery_path (self);
-  if (!g_file_test (path, G_FILE_TEST_IS_REGULAR))
-    return;
-  self->recovered = sw_design_load (path, NULL, &error);
-  if (self->recovered == NULL)
+  if (!sw_recovery_check (self->recovery, &kept, &error))
     {
-      g_autofree char *kept = g_strconcat (path, ".unreadable", NULL);
-      g_rename (path, kept);
-      text = g_strdup_printf (_("A recovery copy from an earlier session could not be read "
-                                "and was moved to %s.\n%s"), kept, error->message);
-      show_message (self, GTK_MESSAGE_WARNING, text);
+      if (error != NULL)
+        {
+          text = g_strdup_printf (_("A recovery copy from an earlier session could not be read "
+                                    "and was moved to %s.\n%s"), kept != NULL ? kept : "?",
+                                  error->message);
+          show_message (self, GTK_MESSAGE_WARNING, text);
+        }
       return;
     }
-  origin = origin_path (path);
-  if (g_file_get_contents (origin, &uri, NULL, NULL) && uri[0] != '\0')
-    self->recovered_origin = g_file_new_for_uri (g_strstrip (uri));
-  if (g_stat (path, &st) == 0)
-    mtime = g_date_time_new_from_unix_local (st.st_mtime);
+  d = sw_recovery_get_offered_design (self->recovery);
+  mtime = sw_recovery_dup_offered_time (self->recovery);
   when = mtime != NULL ? g_date_time_format (mtime, "%x %X") : g_strdup ("?");
   /* Translators: %s are the design's name and the date and time of the copy */
   text = g_strdup_printf (_("Stagewright did not close properly last time. Unsaved changes to "
                             "“%s” were kept (copy of %s). Restore them?"),
-                          self->recovered->name[0] ? self->recovered->name : _("Untitled design"),
-                          when);
+                          d->name[0] ? d->name : _("Untitled design"), when);
   gtk_label_set_text (self->recovery_label, text);
   gtk_info_bar_set_revealed (self->recovery_bar, TRUE);
-  self->recovery_offered = TRUE;
 }
 
 gboolean
 sw_window_get_recovery_offered (SwWindow *self)
 {
   g_return_val_if_fail (SW_IS_WINDOW (self), FALSE);
-  return self->recovery_offered;
+  return sw_recovery_get_offered (self->recovery);
 }
 
 void
 sw_window_answer_recovery (SwWindow *self, gboolean restore)
 {
+  SwDesign *design = NULL;
+  GFile *origin = NULL;
+
   g_return_if_fail (SW_IS_WINDOW (self));
 
-  if (!self->recovery_offered)
+  if (!sw_recovery_answer (self->recovery, restore, &design, &origin))
     return;
-  self->recovery_offered = FALSE;
   gtk_info_bar_set_revealed (self->recovery_bar, FALSE);
-  if (restore)
+  if (design != NULL)
     {
-      sw_document_reset (self->document, g_steal_pointer (&self->recovered),
-                         self->recovered_origin, TRUE);
+      sw_document_reset (self->document, design, origin, TRUE);
       sw_inspector_set_selected (self->inspector, 0);
     }
-  else
-    {
-      g_autofree char *path = sw_window_dup_recovery_path (self);
-      g_autofree char *origin = origin_path (path);
-      g_unlink (path);
-      g_unlink (origin);
-    }
-  g_clear_pointer (&self->recovered, sw_design_free);
-  g_clear_object (&self->recovered_origin);
-  schedule_recovery (self);
+  g_clear_object (&origin);
 }
 
 static void
@@ -567,7 +424,8 @@ gboolean
 sw_window_is_replaceable (SwWindow *self)
 {
   g_return_val_if_fail (SW_IS_WINDOW (self), FALSE);
-  return !sw_document_get_modified (self->document) && !self->recovery_offered;
+  return !sw_document_get_modified (self->document)
+         && !sw_recovery_get_offered (self->recovery);
 }
 
 gboolean
@@ -578,7 +436,7 @@ sw_window_save_to (SwWindow *self, GFile *file, GError **error)
   if (!sw_document_save (self->document, file, error))
     return FALSE;
   remember_file (self, sw_document_get_file (self->document));
-  remove_recovery (self);
+  sw_recovery_remove (self->recovery);
   return TRUE;
 }
 
@@ -756,6 +614,10 @@ save (SwWindow *self)
 static void
 question_response_cb (SwWindow *self, int response, GtkDialog *dialog)
 {
+  /* The answer may close this window at once: the dialog, finalized only
+   * after its response signal, must not point at it by then. */
+  g_signal_handlers_disconnect_by_func (dialog, question_response_cb, self);
+  gtk_window_set_transient_for (GTK_WINDOW (dialog), NULL);
   gtk_window_destroy (GTK_WINDOW (dialog));
   switch (response)
     {
@@ -874,14 +736,14 @@ split_action (GtkWidget *widget, const char *name, GVariant *param)
 {
   SwWindow *self = SW_WINDOW (widget);
   g_autoptr (SwDesign) d = sw_document_dup_design (self->document);
+  double shares[SW_MAX_STAGES];
+  guint n_shares = self->result != NULL && self->result->ok
+                   ? sw_sizing_get_shares (&self->result->sizing, shares) : 0;
   SwSplitMode mode;
 
-  if (!sw_split_mode_from_string (g_variant_get_string (param, NULL), &mode) || mode == d->split)
+  if (!sw_split_mode_from_string (g_variant_get_string (param, NULL), &mode)
+      || !sw_design_set_split (d, mode, shares, n_shares))
     return;
-  if (mode == SW_SPLIT_MANUAL)
-    sw_analysis_apply_shares (self->result, d);
-  else
-    d->split = mode;
   sw_document_commit (self->document, g_steal_pointer (&d), NULL);
 }
 
@@ -897,11 +759,8 @@ pin_baseline_action (GtkWidget *widget, const char *name, GVariant *param)
 {
   SwWindow *self = SW_WINDOW (widget);
   g_autoptr (SwDesign) d = sw_document_dup_design (self->document);
-  SwDesign *pinned = sw_design_copy (d);
 
-  g_clear_pointer (&pinned->baseline, sw_design_free);
-  sw_design_free (d->baseline);
-  d->baseline = pinned;
+  sw_design_pin_baseline (d);
   sw_document_commit (self->document, g_steal_pointer (&d), NULL);
 }
 
@@ -911,9 +770,8 @@ clear_baseline_action (GtkWidget *widget, const char *name, GVariant *param)
   SwWindow *self = SW_WINDOW (widget);
   g_autoptr (SwDesign) d = sw_document_dup_design (self->document);
 
-  if (d->baseline == NULL)
+  if (!sw_design_clear_baseline (d))
     return;
-  g_clear_pointer (&d->baseline, sw_design_free);
   sw_document_commit (self->document, g_steal_pointer (&d), NULL);
 }
 
@@ -932,11 +790,26 @@ export_action (GtkWidget *widget, const char *name, GVariant *param)
   gtk_window_present (GTK_WINDOW (self->export_dialog));
 }
 
+/* The user's limits decide the verdict: a change is a new solve. */
+static void
+limits_changed_cb (SwWindow *self)
+{
+  SwAnalysisOptions options;
+
+  sw_solver_get_options (self->solver, &options);
+  options.min_thrust_to_weight = g_settings_get_double (self->settings, "min-thrust-to-weight");
+  options.max_q_pa = 1000.0 * g_settings_get_double (self->settings, "max-dynamic-pressure-kpa");
+  options.max_axial_g = g_settings_get_double (self->settings, "max-acceleration-g");
+  sw_solver_set_options (self->solver, &options);
+  if (sw_document_get_design (self->document) != NULL)
+    sw_solver_post (self->solver, sw_document_get_design (self->document));
+}
+
 /* The tornado's step is a setting: a new step is a new solve. */
 static void
 trade_step_cb (SwWindow *self)
 {
-  SwSolveOptions options;
+  SwAnalysisOptions options;
 
   sw_solver_get_options (self->solver, &options);
   if (options.sensitivity_step == sw_trade_page_get_step (self->trade_page))
@@ -1100,13 +973,9 @@ sw_window_set_ephemeral (SwWindow *self)
   g_settings_unbind (self, "default-width");
   g_settings_unbind (self, "default-height");
   g_settings_unbind (self, "maximized");
-  g_clear_handle_id (&self->recovery_timeout, g_source_remove);
   /* Leave an offered copy on disk for the next real session. */
-  self->recovery_offered = FALSE;
+  sw_recovery_disable (self->recovery);
   gtk_info_bar_set_revealed (self->recovery_bar, FALSE);
-  g_clear_pointer (&self->recovered, sw_design_free);
-  g_clear_object (&self->recovered_origin);
-  release_recovery_slot (self);
 }
 
 /* ---- GObject ----------------------------------------------------------- */
@@ -1128,7 +997,7 @@ sw_window_close_request (GtkWindow *window)
       return TRUE;
     }
   /* A clean close: the work is saved or was discarded on purpose. */
-  remove_recovery (self);
+  sw_recovery_remove (self->recovery);
   return GTK_WINDOW_CLASS (sw_window_parent_class)->close_request (window);
 }
 
@@ -1161,11 +1030,11 @@ sw_window_dispose (GObject *object)
 {
   SwWindow *self = SW_WINDOW (object);
 
-  /* Gone without a clean close (the session ends, say): keep the work. */
-  if (self->recovery_timeout != 0 && !self->closing)
-    sw_window_flush_recovery (self);
-  g_clear_handle_id (&self->recovery_timeout, g_source_remove);
-  release_recovery_slot (self);
+  /* Gone without a clean close (the session ends, say): the recovery
+   * object keeps the work when it goes. */
+  if (self->recovery != NULL && self->closing)
+    sw_recovery_disable (self->recovery);
+  g_clear_object (&self->recovery);
   if (self->chooser != NULL)
     {
       gtk_native_dialog_destroy (self->chooser);
@@ -1179,8 +1048,6 @@ sw_window_dispose (GObject *object)
   g_clear_object (&self->document);
   g_clear_pointer (&self->result, sw_analysis_unref);
   g_clear_pointer (&self->drag_base, sw_design_free);
-  g_clear_pointer (&self->recovered, sw_design_free);
-  g_clear_object (&self->recovered_origin);
   g_clear_object (&self->after_file);
   g_clear_object (&self->settings);
   g_signal_handlers_disconnect_by_func (gtk_recent_manager_get_default (),
@@ -1296,10 +1163,13 @@ sw_window_class_init (SwWindowClass *klass)
 static void
 sw_window_init (SwWindow *self)
 {
-  self->recovery_slot = -1;
   gtk_widget_init_template (GTK_WIDGET (self));
 
-  self->settings = sw_application_settings_new ();
+  /* One settings object, handed to the views. */
+  self->settings = sw_settings_new ();
+  sw_inspector_set_settings (self->inspector, self->settings);
+  sw_ascent_page_set_settings (self->ascent_page, self->settings);
+  sw_trade_page_set_settings (self->trade_page, self->settings);
   g_settings_bind (self->settings, "window-width", self, "default-width",
                    G_SETTINGS_BIND_DEFAULT);
   g_settings_bind (self->settings, "window-height", self, "default-height",
@@ -1314,11 +1184,21 @@ sw_window_init (SwWindow *self)
   sw_inspector_set_document (self->inspector, self->document);
   sw_trade_page_set_document (self->trade_page, self->document);
   {
-    SwSolveOptions options;
+    SwAnalysisOptions options;
     sw_solver_get_options (self->solver, &options);
     options.sensitivity_step = sw_trade_page_get_step (self->trade_page);
+    options.min_thrust_to_weight = g_settings_get_double (self->settings, "min-thrust-to-weight");
+    options.max_q_pa = 1000.0 * g_settings_get_double (self->settings,
+                                                       "max-dynamic-pressure-kpa");
+    options.max_axial_g = g_settings_get_double (self->settings, "max-acceleration-g");
     sw_solver_set_options (self->solver, &options);
   }
+  g_signal_connect_swapped (self->settings, "changed::min-thrust-to-weight",
+                            G_CALLBACK (limits_changed_cb), self);
+  g_signal_connect_swapped (self->settings, "changed::max-dynamic-pressure-kpa",
+                            G_CALLBACK (limits_changed_cb), self);
+  g_signal_connect_swapped (self->settings, "changed::max-acceleration-g",
+                            G_CALLBACK (limits_changed_cb), self);
   g_signal_connect_swapped (self->trade_page, "notify::step", G_CALLBACK (trade_step_cb), self);
   /* One way: the stack view may refuse a stage its older result does not
    * have yet; its clicks come back through "stage-activated". */
@@ -1332,7 +1212,7 @@ sw_window_init (SwWindow *self)
                             G_CALLBACK (rebuild_recent_menu), self);
   rebuild_recent_menu (self);
 
-  claim_recovery_slot (self);
+  self->recovery = sw_recovery_new (self->document);
   check_recovery (self);
 
   update_title (self);

@@ -21,18 +21,12 @@ struct _SwWorkingView {
 
 G_DEFINE_FINAL_TYPE (SwWorkingView, sw_working_view, GTK_TYPE_WIDGET)
 
-/* Numbers as typed into a calculator: grouping for masses and speeds, four
- * decimals for ratios.  The em dash for anything not finite. */
-static char *
-num (const char *format, double value)
-{
-  return sw_format_value (format, value);
-}
-
-#define KG(v) num ("%'.1f", (v))
-#define MS(v) num ("%'.1f", (v))
-
-#define RATIO(v) num ("%.4f", (v))
+/* Numbers as typed into a calculator, through the one formatter: grouping
+ * for masses and speeds, four decimals for ratios, the em dash for anything
+ * not finite. */
+#define KG(v) sw_format_number ((v), 1)
+#define MS(v) sw_format_number ((v), 1)
+#define RATIO(v) sw_format_ratio ((v), 4)
 
 /* A heading line, then the formula lines indented under it: narrow enough
  * for the side panel and for pasting into notes. */
@@ -97,7 +91,7 @@ build_text (SwWorkingView *self, gboolean for_copy)
   }
 
   {
-    g_autofree char *isp = num ("%.1f", st->isp_vac_s);
+    g_autofree char *isp = sw_format_number (st->isp_vac_s, 1);
     head (s, _("Exhaust velocity"));
     formula (s, "c = Isp·g0 = %s s × 9.80665 m/s² = %s m/s", isp, c);
     head (s, _("Structural coefficient"));
@@ -106,7 +100,7 @@ build_text (SwWorkingView *self, gboolean for_copy)
 
   if (sz->split == SW_SPLIT_OPTIMAL && isfinite (sz->multiplier_s_m))
     {
-      g_autofree char *eta = num ("%.5e", sz->multiplier_s_m);
+      g_autofree char *eta = sw_format_value ("%.5e", sz->multiplier_s_m);
 
       head (s, _("Lagrange multiplier (the same for every stage)"));
       formula (s, "η = %s s/m", eta);

@@ -3,6 +3,7 @@
 #include "config.h"
 
 #include "sw-cli.h"
+#include "sw-install-paths.h"
 
 #include "sw-ascent.h"
 #include "sw-ascent-montecarlo.h"
@@ -49,11 +50,7 @@ static volatile double sink;
 char *
 sw_cli_find_demo (const char *basename)
 {
-  char *path = g_build_filename (SOURCE_DESIGNS_DIR, basename, NULL);
-  if (g_file_test (path, G_FILE_TEST_EXISTS))
-    return path;
-  g_free (path);
-  return g_build_filename (DESIGNS_DIR, basename, NULL);
+  return sw_install_find_design (basename);
 }
 
 int
@@ -107,7 +104,7 @@ sw_cli_bench (int argc, char **argv)
       SwSweep *sweep = g_new (SwSweep, 1);
       double t0 = now_ns ();
 
-      sw_design_size (d, &s, NULL);
+      sw_size_design (d, &s, NULL);
       sw_stage_curve_compute (d, dv, SW_MAX_STAGES, &curve);
       sw_sweep_compute (d, SW_SWEEP_CURVES, SW_SWEEP_POINTS, sweep);
       updates[u] = (now_ns () - t0) / 1000.0;

@@ -1,50 +1,89 @@
 /* SPDX-License-Identifier: GPL-3.0-or-later */
-/* The sizing subcommands: size, curve, budget, limits. */
+/* The sizing subcommands: size, curve, budget, limits.  Each reads one
+ * SwAnalysis of the design. */
 #include "config.h"
 
 #include "sw-cli.h"
 
-#include "sw-budget.h"
-#include "sw-curves.h"
+#include "sw-format.h"
 #include "sw-limits.h"
-#include "sw-sizing.h"
 
+#include <glib/gi18n.h>
 #include <math.h>
 
 static gboolean opt_json;
+static gboolean opt_no_ascent;
+static double opt_min_tw, opt_max_q_kpa, opt_max_g;
 static int opt_max_stages = SW_MAX_STAGES;
 
 static GOptionEntry json_entries[] = {
-  { "json", 0, 0, G_OPTION_ARG_NONE, &opt_json, "Print JSON for machines", NULL },
+  { "json", 0, 0, G_OPTION_ARG_NONE, &opt_json, N_("Print JSON for machines"), NULL },
+  { NULL }
+};
+
+static GOptionEntry size_entries[] = {
+  { "json", 0, 0, G_OPTION_ARG_NONE, &opt_json, N_("Print JSON for machines"), NULL },
+  { "no-ascent", 0, 0, G_OPTION_ARG_NONE, &opt_no_ascent,
+    N_("Do not simulate the ascent (nor close the loss loop): the verdict is paper-only"),
+    NULL },
+  { "min-thrust-to-weight", 0, 0, G_OPTION_ARG_DOUBLE, &opt_min_tw,
+    N_("Lowest liftoff thrust-to-weight for the verdict (0.5 to 5, default 1.2)"), "R" },
+  { "max-q-kpa", 0, 0, G_OPTION_ARG_DOUBLE, &opt_max_q_kpa,
+    N_("Highest dynamic pressure for the verdict (5 to 200 kPa, default 45)"), "KPA" },
+  { "max-g", 0, 0, G_OPTION_ARG_DOUBLE, &opt_max_g,
+    N_("Highest axial acceleration for the verdict (1 to 20 g, default 6)"), "G" },
   { NULL }
 };
 
 static GOptionEntry curve_entries[] = {
-  { "json", 0, 0, G_OPTION_ARG_NONE, &opt_json, "Print JSON for machines", NULL },
-  { "max-stages", 0, 0, G_OPTION_ARG_INT, &opt_max_stages, "Largest stage count (1 to 8)", "N" },
+  { "json", 0, 0, G_OPTION_ARG_NONE, &opt_json, N_("Print JSON for machines"), NULL },
+  { "max-stages", 0, 0, G_OPTION_ARG_INT, &opt_max_stages, N_("Largest stage count (1 to 8)"),
+    "N" },
   { NULL }
 };
 
-static JsonNode *
-sizing_to_json (const SwDesign *d, const SwSizing *s)
+/* The options of a command that needs neither the Monte Carlo nor the ascent. */
+static void
+fast_options (SwAnalysisOptions *o)
 {
+  sw_analysis_options_init (o);
+  o->montecarlo = FALSE;
+  o->ascent = FALSE;
+}
+
+static JsonNode *
+sizing_to_json (const SwAnalysis *a)
+{
+  const SwDesign *d = a->design;
+  const SwSizing *s = &a->sizing;
   g_autoptr (JsonBuilder) b = json_builder_new_immutable ();
 
   json_builder_begin_object (b);
   json_builder_set_member_name (b, "name");
   json_builder_add_string_value (b, d->name);
+  sw_cli_add_verdict (b, a);
   json_builder_set_member_name (b, "feasible");
   json_builder_add_boolean_value (b, s->feasible);
   json_builder_set_member_name (b, "reason");
   json_builder_add_string_value (b, s->reason);
   json_builder_set_member_name (b, "split");
   json_builder_add_string_value (b, sw_split_mode_to_string (s->split));
+  json_builder_set_member_name (b, "sized_with_simulated_losses");
+  json_builder_add_boolean_value (b, a->sized_by_ascent);
   sw_cli_add_number (b, "liftoff_mass_kg", s->liftoff_mass_kg);
   sw_cli_add_number (b, "payload_kg", s->payload_kg);
   sw_cli_add_number (b, "payload_fraction", s->payload_fraction);
   sw_cli_add_number (b, "delta_v_m_s", s->delta_v_m_s);
   sw_cli_add_number (b, "delta_v_limit_m_s", s->delta_v_limit_m_s);
+  /* The headroom to the asymptote, kept under its old key for scripts;
+   * the simulated margin is the one that says whether the vehicle flies. */
   sw_cli_add_number (b, "margin_m_s", s->margin_m_s);
+  sw_cli_add_number (b, "headroom_to_limit_m_s", a->headroom_m_s);
+  sw_cli_add_number (b, "simulated_margin_m_s", a->simulated_margin_m_s);
+  sw_cli_add_number (b, "liftoff_thrust_to_weight",
+                     a->ascent != NULL ? a->ascent->liftoff_thrust_to_weight
+                     : a->has_stage_figures ? a->stage_figures[0].ignition_thrust_to_weight
+                                            : NAN);
   sw_cli_add_number (b, "lagrange_multiplier_s_m", s->multiplier_s_m);
   json_builder_set_member_name (b, "stages");
   json_builder_begin_array (b);
@@ -72,91 +111,123 @@ sizing_to_json (const SwDesign *d, const SwSizing *s)
     }
   json_builder_end_array (b);
   json_builder_set_member_name (b, "caution");
-  json_builder_add_string_value (b, sw_cli_caution);
+  json_builder_add_string_value (b, sw_format_cautions ());
   json_builder_end_object (b);
   return json_builder_get_root (b);
 }
 
 static void
-print_sizing_table (const SwDesign *d, const SwSizing *s)
+print_sizing_table (const SwAnalysis *a)
 {
-  g_print ("Design: %s\n", d->name);
-  g_print ("Split: %s    Payload: %.1f kg    Required delta-v: %.1f m/s\n",
-           sw_split_mode_to_string (s->split), s->payload_kg, s->delta_v_m_s);
-  g_print ("Vehicle delta-v limit: %.1f m/s    Margin to the limit: %.1f m/s\n",
-           s->delta_v_limit_m_s, s->margin_m_s);
+  const SwDesign *d = a->design;
+  const SwSizing *s = &a->sizing;
+  g_autofree char *payload = sw_format_mass (s->payload_kg);
+  g_autofree char *dv = sw_format_speed (s->delta_v_m_s);
+
+  /* The verdict is the first line: what a reader needs before any figure. */
+  sw_cli_print_verdict (a);
+  g_print ("\n");
+  g_print (_("Design: %s\n"), d->name);
+  g_print (_("Split: %s    Payload: %s    Required delta-v: %s%s\n"),
+           sw_split_mode_to_string (s->split), payload, dv,
+           a->sized_by_ascent ? _(" (with the simulated losses)") : "");
+  if (isfinite (a->simulated_margin_m_s))
+    {
+      g_autofree char *m = sw_format_speed_delta (a->simulated_margin_m_s);
+      g_print (_("Simulated delta-v margin: %s\n"), m);
+    }
   if (isfinite (s->multiplier_s_m))
-    g_print ("Lagrange multiplier eta: %.6f s/km\n", s->multiplier_s_m * 1000.0);
-  g_print ("\n%-3s %-20s %6s %6s %9s %6s %8s %12s %11s %13s %12s\n", "#", "stage", "Isp_v",
-           "eps", "dv m/s", "share", "n", "propellant", "structure", "initial kg",
-           "burnout kg");
-  /* Top of the stack first reads like the vehicle; firing order is kept in
-   * the numbering. */
+    {
+      g_autofree char *eta = sw_format_number (s->multiplier_s_m * 1000.0, 6);
+      g_print (_("Lagrange multiplier eta: %s s/km\n"), eta);
+    }
+  g_print ("\n%-3s %-20s %6s %6s %9s %6s %8s %12s %11s %13s %12s\n", "#", _("stage"), "Isp_v",
+           "eps", "dv m/s", _("share"), "n", _("propellant"), _("structure"), _("initial kg"),
+           _("burnout kg"));
+  /* Firing order, the first stage first. */
   for (guint i = 0; i < s->n_stages; i++)
     {
       const SwStageResult *r = &s->stages[i];
-      g_autofree char *mp = sw_cli_format (r->propellant_mass_kg, 1);
-      g_autofree char *ms = sw_cli_format (r->structural_mass_kg, 1);
-      g_autofree char *m0 = sw_cli_format (r->initial_mass_kg, 1);
-      g_autofree char *mf = sw_cli_format (r->burnout_mass_kg, 1);
-      /* Beyond the vehicle's limit no split exists: these are "-" too. */
-      g_autofree char *dv = sw_cli_format (r->delta_v_m_s, 1);
-      g_autofree char *share = sw_cli_format (r->delta_v_share, 3);
-      g_autofree char *n = sw_cli_format (r->mass_ratio, 4);
+      g_autofree char *mp = sw_format_number (r->propellant_mass_kg, 1);
+      g_autofree char *ms = sw_format_number (r->structural_mass_kg, 1);
+      g_autofree char *m0 = sw_format_number (r->initial_mass_kg, 1);
+      g_autofree char *mf = sw_format_number (r->burnout_mass_kg, 1);
+      g_autofree char *sdv = sw_format_number (r->delta_v_m_s, 1);
+      g_autofree char *share = sw_format_number (r->delta_v_share, 3);
+      g_autofree char *n = sw_format_number (r->mass_ratio, 4);
+      g_autofree char *isp = sw_format_number (d->stages[i].isp_vac_s, 1);
+      g_autofree char *eps = sw_format_number (d->stages[i].structural_coefficient, 4);
       g_autofree char *name = sw_cli_cell (d->stages[i].name, 20);
-      g_print ("%-3u %s %6.1f %6.4f %9s %6s %8s %12s %11s %13s %12s%s\n", i + 1,
-               name, d->stages[i].isp_vac_s, d->stages[i].structural_coefficient,
-               dv, share, n, mp, ms, m0, mf,
-               !r->feasible ? "  INFEASIBLE" : r->unused ? "  (unused)" : "");
+      g_print ("%-3u %s %6s %6s %9s %6s %8s %12s %11s %13s %12s%s\n", i + 1, name, isp, eps, sdv,
+               share, n, mp, ms, m0, mf,
+               !r->feasible ? _("  INFEASIBLE") : r->unused ? _("  (unused)") : "");
     }
   g_print ("\n");
   if (s->feasible)
-    g_print ("Liftoff mass: %.1f kg (%.3f t)    Payload fraction: %.5f\n", s->liftoff_mass_kg,
-             s->liftoff_mass_kg / 1000.0, s->payload_fraction);
+    {
+      g_autofree char *lm = sw_format_number (s->liftoff_mass_kg, 1);
+      g_autofree char *lt = sw_format_mass (s->liftoff_mass_kg);
+      g_autofree char *pf = sw_format_percent (s->payload_fraction, 3);
+      g_autofree char *hr = sw_format_speed (a->headroom_m_s);
+      g_print (_("Liftoff mass: %s kg (%s)    Payload fraction: %s\n"), lm, lt, pf);
+      g_print (_("Headroom to the stages' delta-v limit (no payload): %s\n"), hr);
+    }
   else
-    g_print ("INFEASIBLE: %s\n", s->reason);
+    g_print (_("INFEASIBLE: %s\n"), s->reason);
   if (s->feasible && s->reason[0] != '\0')
-    g_print ("Note: %s\n", s->reason);
-  if (d->mission.kind == SW_MISSION_ORBIT && d->mission.loss_model == SW_LOSS_SIMULATE)
-    g_print ("Note: the design asks for simulated losses; this sizing uses the first guess of "
-             "%.0f m/s. 'stagewright-cli ascent' closes the loop and sizes with the simulated "
-             "losses.\n",
-             d->mission.has_losses ? d->mission.losses_m_s : 0.0);
-  g_print ("\n%s\n", sw_cli_caution);
+    g_print (_("Note: %s\n"), s->reason);
+  g_print ("\n%s\n", sw_format_cautions ());
 }
 
 int
 sw_cli_size (int argc, char **argv)
 {
-  g_autoptr (SwDesign) d = NULL;
-  g_autoptr (GError) error = NULL;
-  SwSizing s;
+  g_autoptr (SwAnalysis) a = NULL;
+  SwAnalysisOptions o;
   int code;
 
+  sw_analysis_options_init (&o);
   opt_json = FALSE;
-  if (!sw_cli_parse ("size", json_entries, &argc, &argv, 1, &code))
+  opt_no_ascent = FALSE;
+  opt_min_tw = o.min_thrust_to_weight;
+  opt_max_q_kpa = o.max_q_pa / 1000.0;
+  opt_max_g = o.max_axial_g;
+  if (!sw_cli_parse ("size", size_entries, &argc, &argv, 1, &code))
     return code;
-  if ((d = sw_cli_load (argv[1])) == NULL)
-    return SW_EXIT_USAGE;
-  if (!sw_design_size (d, &s, &error))
-    return sw_cli_input_error (argv[1], error);
+  /* The window's settings keep the same ranges (data/ schema). */
+  if (!(opt_min_tw >= 0.5 && opt_min_tw <= 5.0) || !(opt_max_q_kpa >= 5.0 && opt_max_q_kpa <= 200.0)
+      || !(opt_max_g >= 1.0 && opt_max_g <= 20.0))
+    {
+      g_printerr (_("stagewright-cli size: the limits must be --min-thrust-to-weight 0.5 to 5, "
+                    "--max-q-kpa 5 to 200 and --max-g 1 to 20\n"));
+      return SW_EXIT_USAGE;
+    }
+  /* The ascent decides the verdict, and for "loss_model": "simulate" the
+   * closed loop sizes the vehicle, exactly as in the window. */
+  o.montecarlo = FALSE;
+  o.ascent = !opt_no_ascent;
+  o.min_thrust_to_weight = opt_min_tw;
+  o.max_q_pa = 1000.0 * opt_max_q_kpa;
+  o.max_axial_g = opt_max_g;
+  if ((a = sw_cli_analyse (argv[1], &o, &code)) == NULL)
+    return code;
   if (opt_json)
     {
-      g_autoptr (JsonNode) node = sizing_to_json (d, &s);
+      g_autoptr (JsonNode) node = sizing_to_json (a);
       sw_cli_print_json (node);
     }
   else
-    print_sizing_table (d, &s);
+    print_sizing_table (a);
   return SW_EXIT_OK;
 }
 
 int
 sw_cli_curve (int argc, char **argv)
 {
-  g_autoptr (SwDesign) d = NULL;
-  g_autoptr (GError) error = NULL;
-  SwStageCurve curve;
-  double dv;
+  g_autoptr (SwAnalysis) a = NULL;
+  SwAnalysisOptions o;
+  const SwStageCurve *curve;
+  guint n;
   int code;
 
   opt_json = FALSE;
@@ -165,34 +236,34 @@ sw_cli_curve (int argc, char **argv)
     return code;
   if (opt_max_stages < 1 || opt_max_stages > SW_MAX_STAGES)
     {
-      g_printerr ("stagewright-cli curve: --max-stages must be 1 to %d, not %d\n", SW_MAX_STAGES,
-                  opt_max_stages);
+      g_printerr (_("stagewright-cli curve: --max-stages must be 1 to %d, not %d\n"),
+                  SW_MAX_STAGES, opt_max_stages);
       return SW_EXIT_USAGE;
     }
-  if ((d = sw_cli_load (argv[1])) == NULL)
-    return SW_EXIT_USAGE;
-  if (!sw_design_required_delta_v (d, &dv, &error))
-    return sw_cli_input_error (argv[1], error);
-  sw_stage_curve_compute (d, dv, (guint) opt_max_stages, &curve);
+  fast_options (&o);
+  if ((a = sw_cli_analyse (argv[1], &o, &code)) == NULL)
+    return code;
+  curve = &a->stage_curve;
+  n = MIN (curve->n_points, (guint) opt_max_stages);
 
   if (opt_json)
     {
       g_autoptr (JsonBuilder) b = json_builder_new_immutable ();
 
       json_builder_begin_object (b);
-      sw_cli_add_number (b, "delta_v_m_s", dv);
-      sw_cli_add_number (b, "payload_kg", d->payload_kg);
+      sw_cli_add_number (b, "delta_v_m_s", a->delta_v_m_s);
+      sw_cli_add_number (b, "payload_kg", a->design->payload_kg);
       json_builder_set_member_name (b, "points");
       json_builder_begin_array (b);
-      for (guint i = 0; i < curve.n_points; i++)
+      for (guint i = 0; i < n; i++)
         {
           json_builder_begin_object (b);
           json_builder_set_member_name (b, "stages");
-          json_builder_add_int_value (b, curve.points[i].stages);
+          json_builder_add_int_value (b, curve->points[i].stages);
           json_builder_set_member_name (b, "feasible");
-          json_builder_add_boolean_value (b, curve.points[i].feasible);
-          sw_cli_add_number (b, "liftoff_mass_kg", curve.points[i].liftoff_mass_kg);
-          sw_cli_add_number (b, "delta_v_limit_m_s", curve.points[i].delta_v_limit_m_s);
+          json_builder_add_boolean_value (b, curve->points[i].feasible);
+          sw_cli_add_number (b, "liftoff_mass_kg", curve->points[i].liftoff_mass_kg);
+          sw_cli_add_number (b, "delta_v_limit_m_s", curve->points[i].delta_v_limit_m_s);
           json_builder_end_object (b);
         }
       json_builder_end_array (b);
@@ -200,63 +271,84 @@ sw_cli_curve (int argc, char **argv)
       return SW_EXIT_OK;
     }
 
-  g_print ("Design: %s    Payload: %.1f kg    Delta-v: %.1f m/s (optimal split)\n\n", d->name,
-           d->payload_kg, dv);
-  g_print ("%-7s %16s %16s  %s\n", "stages", "liftoff kg", "dv limit m/s", "");
-  for (guint i = 0; i < curve.n_points; i++)
+  {
+    g_autofree char *payload = sw_format_mass (a->design->payload_kg);
+    g_autofree char *dv = sw_format_speed (a->delta_v_m_s);
+    g_print (_("Design: %s    Payload: %s    Delta-v: %s (optimal split)\n\n"), a->design->name,
+             payload, dv);
+  }
+  g_print ("%-7s %16s %16s  %s\n", _("stages"), _("liftoff kg"), _("dv limit m/s"), "");
+  for (guint i = 0; i < n; i++)
     {
-      g_autofree char *m = sw_cli_format (curve.points[i].liftoff_mass_kg, 1);
-      g_print ("%-7u %16s %16.1f  %s\n", curve.points[i].stages, m,
-               curve.points[i].delta_v_limit_m_s,
-               curve.points[i].feasible ? "" : "infeasible: beyond the delta-v limit");
+      g_autofree char *m = sw_format_number (curve->points[i].liftoff_mass_kg, 1);
+      g_autofree char *l = sw_format_number (curve->points[i].delta_v_limit_m_s, 1);
+      g_print ("%-7u %16s %16s  %s\n", curve->points[i].stages, m, l,
+               curve->points[i].feasible ? "" : _("infeasible: beyond the delta-v limit"));
     }
-  g_print ("\n%s\n", sw_cli_caution);
+  g_print ("\n%s\n", sw_format_cautions ());
   return SW_EXIT_OK;
 }
 
 int
 sw_cli_budget (int argc, char **argv)
 {
-  g_autoptr (SwDesign) d = NULL;
-  g_autoptr (GError) error = NULL;
-  SwBudget b;
+  g_autoptr (SwAnalysis) a = NULL;
+  SwAnalysisOptions o;
+  const SwBudget *b;
+  const SwDesign *d;
   int code;
 
   opt_json = FALSE;
   if (!sw_cli_parse ("budget", json_entries, &argc, &argv, 1, &code))
     return code;
-  if ((d = sw_cli_load (argv[1])) == NULL)
-    return SW_EXIT_USAGE;
-  if (!sw_design_budget (d, &b, &error))
-    return sw_cli_input_error (argv[1], error);
+  fast_options (&o);
+  if ((a = sw_cli_analyse (argv[1], &o, &code)) == NULL)
+    return code;
+  d = a->design;
+  if (!a->has_budget)
+    {
+      g_printerr (_("error: %s: mission: the design states its delta-v directly "
+                    "(mission.delta_v_m_s); a delta-v budget needs a target orbit "
+                    "(mission.orbit)\n"), argv[1]);
+      return SW_EXIT_USAGE;
+    }
+  b = &a->budget;
   if (opt_json)
     {
       g_autoptr (JsonBuilder) jb = json_builder_new_immutable ();
 
       json_builder_begin_object (jb);
-      sw_cli_add_number (jb, "circular_velocity_m_s", b.circular_velocity_m_s);
-      sw_cli_add_number (jb, "launch_azimuth_deg", b.launch_azimuth_deg);
-      sw_cli_add_number (jb, "site_speed_m_s", b.site_speed_m_s);
-      sw_cli_add_number (jb, "rotation_gain_m_s", b.rotation_gain_m_s);
-      sw_cli_add_number (jb, "ideal_delta_v_m_s", b.ideal_delta_v_m_s);
-      sw_cli_add_number (jb, "losses_m_s", b.losses_m_s);
-      sw_cli_add_number (jb, "delta_v_m_s", b.delta_v_m_s);
+      sw_cli_add_number (jb, "circular_velocity_m_s", b->circular_velocity_m_s);
+      sw_cli_add_number (jb, "launch_azimuth_deg", b->launch_azimuth_deg);
+      sw_cli_add_number (jb, "site_speed_m_s", b->site_speed_m_s);
+      sw_cli_add_number (jb, "rotation_gain_m_s", b->rotation_gain_m_s);
+      sw_cli_add_number (jb, "ideal_delta_v_m_s", b->ideal_delta_v_m_s);
+      sw_cli_add_number (jb, "losses_m_s", b->losses_m_s);
+      sw_cli_add_number (jb, "delta_v_m_s", b->delta_v_m_s);
       sw_cli_finish_json (jb);
       return SW_EXIT_OK;
     }
-  g_print ("Design: %s\n", d->name);
-  g_print ("Orbit: %.1f km circular, inclination %.2f deg, site latitude %.2f deg\n\n",
-           d->mission.altitude_km, d->mission.inclination_deg, d->mission.site_latitude_deg);
-  g_print ("  circular velocity   %10.1f m/s   sqrt(mu / (a + h)), WGS 84\n",
-           b.circular_velocity_m_s);
-  g_print ("  launch azimuth      %10.2f deg   sin(az) = cos(i) / cos(latitude)\n",
-           b.launch_azimuth_deg);
-  g_print ("  site speed          %10.1f m/s   omega a cos(latitude)\n", b.site_speed_m_s);
-  g_print ("  rotation gain       %10.1f m/s\n", b.rotation_gain_m_s);
-  g_print ("  ideal delta-v       %10.1f m/s   |v_orbit - v_site|\n", b.ideal_delta_v_m_s);
-  g_print ("  losses              %10.1f m/s   gravity, drag, steering (allowance)\n",
-           b.losses_m_s);
-  g_print ("  required delta-v    %10.1f m/s\n\n%s\n", b.delta_v_m_s, sw_cli_caution);
+  {
+    g_autofree char *alt = sw_format_distance_km (d->mission.altitude_km * 1000.0);
+    g_autofree char *vc = sw_format_speed (b->circular_velocity_m_s);
+    g_autofree char *az = sw_format_value ("%.2f\302\260", b->launch_azimuth_deg);
+    g_autofree char *vs = sw_format_speed (b->site_speed_m_s);
+    g_autofree char *rg = sw_format_speed (b->rotation_gain_m_s);
+    g_autofree char *id = sw_format_speed (b->ideal_delta_v_m_s);
+    g_autofree char *lo = sw_format_speed (b->losses_m_s);
+    g_autofree char *dv = sw_format_speed (b->delta_v_m_s);
+
+    g_print (_("Design: %s\n"), d->name);
+    g_print (_("Orbit: %s circular, inclination %.2f deg, site latitude %.2f deg\n\n"), alt,
+             d->mission.inclination_deg, d->mission.site_latitude_deg);
+    g_print (_("  circular velocity   %14s   sqrt(mu / (a + h)), WGS 84\n"), vc);
+    g_print (_("  launch azimuth      %14s   sin(az) = cos(i) / cos(latitude)\n"), az);
+    g_print (_("  site speed          %14s   omega a cos(latitude)\n"), vs);
+    g_print (_("  rotation gain       %14s\n"), rg);
+    g_print (_("  ideal delta-v       %14s   |v_orbit - v_site|\n"), id);
+    g_print (_("  losses              %14s   gravity, drag, steering (allowance)\n"), lo);
+    g_print (_("  required delta-v    %14s\n\n%s\n"), dv, sw_format_cautions ());
+  }
   return SW_EXIT_OK;
 }
 

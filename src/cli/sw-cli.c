@@ -5,6 +5,9 @@
 #include "config.h"
 
 #include "sw-cli.h"
+#include "sw-install-paths.h"
+
+#include "sw-format.h"
 
 #include <glib/gi18n.h>
 #include <gsl/gsl_errno.h>
@@ -13,28 +16,25 @@
 #include <stdio.h>
 #include <string.h>
 
-const char *sw_cli_caution =
-  "Conceptual sizing only: not for flight hardware or safety decisions. Defer to licensed "
-  "engineering practice, range safety and local regulations.";
-
 static const SwCliCommand commands[] = {
-  { "size", "FILE", "Size a design: masses, delta-v split, feasibility", sw_cli_size },
-  { "curve", "FILE", "Liftoff mass against stage count (optimal split)", sw_cli_curve },
-  { "budget", "FILE", "Delta-v budget of an orbit mission", sw_cli_budget },
-  { "limits", "", "The accepted range of every input field", sw_cli_limits },
-  { "sensitivity", "FILE", "What moves the liftoff mass: derivatives, tornado, exchange ratios",
+  { "size", "FILE", N_("Size a design: masses, delta-v split, feasibility"), sw_cli_size },
+  { "curve", "FILE", N_("Liftoff mass against stage count (optimal split)"), sw_cli_curve },
+  { "budget", "FILE", N_("Delta-v budget of an orbit mission"), sw_cli_budget },
+  { "limits", "", N_("The accepted range of every input field"), sw_cli_limits },
+  { "sensitivity", "FILE", N_("What moves the liftoff mass: derivatives, tornado, exchange ratios"),
     sw_cli_sensitivity },
-  { "montecarlo", "FILE", "Uncertainty: liftoff mass and payload margin over sampled inputs",
+  { "montecarlo", "FILE", N_("Uncertainty: liftoff mass and payload margin over sampled inputs"),
     sw_cli_montecarlo },
-  { "reliability", "FILE", "Mission success probability and its curve against stage count",
+  { "reliability", "FILE", N_("Mission success probability and its curve against stage count"),
     sw_cli_reliability },
-  { "export", "FILE", "The one-page briefing sheet (PDF, SVG, PNG) and CSV tables",
+  { "export", "FILE", N_("The one-page briefing sheet (PDF, SVG, PNG) and CSV tables"),
     sw_cli_export },
-  { "ascent", "FILE", "Ascent simulation: orbit reached, losses, max-Q, staging; closes the loss loop",
+  { "ascent", "FILE",
+    N_("Ascent simulation: orbit reached, losses, max-Q, staging; closes the loss loop"),
     sw_cli_ascent },
-  { "atmosphere", "ALTITUDE_M", "1976 U.S. Standard Atmosphere at a geometric altitude",
+  { "atmosphere", "ALTITUDE_M", N_("1976 U.S. Standard Atmosphere at a geometric altitude"),
     sw_cli_atmosphere },
-  { "bench", "[FILE]", "Benchmark the sizing and a full live update", sw_cli_bench },
+  { "bench", "[FILE]", N_("Benchmark the sizing and a full live update"), sw_cli_bench },
 };
 
 static const SwCliCommand *
@@ -55,10 +55,10 @@ sw_cli_parse (const char *name, GOptionEntry *entries, int *argc, char ***argv,
   g_autoptr (GOptionContext) ctx = g_option_context_new (param);
   g_autoptr (GError) error = NULL;
 
-  g_option_context_set_summary (ctx, cmd->summary);
-  g_option_context_set_description (ctx, sw_cli_caution);
+  g_option_context_set_summary (ctx, _(cmd->summary));
+  g_option_context_set_description (ctx, sw_format_cautions ());
   if (entries != NULL)
-    g_option_context_add_main_entries (ctx, entries, NULL);
+    g_option_context_add_main_entries (ctx, entries, GETTEXT_PACKAGE);
   if (!g_option_context_parse (ctx, argc, argv, &error))
     {
       g_printerr ("stagewright-cli %s: %s\n", cmd->name, error->message);
@@ -68,8 +68,9 @@ sw_cli_parse (const char *name, GOptionEntry *entries, int *argc, char ***argv,
   /* (*argv)[0] is the subcommand; then the positional arguments. */
   if (n_positional >= 0 && *argc - 1 != n_positional)
     {
-      g_printerr ("stagewright-cli %s: expected %s (see --help)\n", cmd->name,
-                  cmd->args[0] ? cmd->args : "no arguments");
+      /* Translators: a command name, then its arguments such as "FILE" */
+      g_printerr (_("stagewright-cli %s: expected %s (see --help)\n"), cmd->name,
+                  cmd->args[0] ? cmd->args : _("no arguments"));
       *exit_code = SW_EXIT_USAGE;
       return FALSE;
     }
@@ -84,9 +85,9 @@ sw_cli_load (const char *filename)
   SwDesign *design = sw_design_load (filename, warnings, &error);
 
   for (guint i = 0; i < warnings->len; i++)
-    g_printerr ("warning: %s\n", (const char *) warnings->pdata[i]);
+    g_printerr (_("warning: %s\n"), (const char *) warnings->pdata[i]);
   if (design == NULL)
-    g_printerr ("error: %s\n", error->message);
+    g_printerr (_("error: %s\n"), error->message);
   return design;
 }
 
@@ -105,7 +106,7 @@ sw_cli_print_json (JsonNode *node)
 int
 sw_cli_input_error (const char *filename, const GError *error)
 {
-  g_printerr ("error: %s: %s\n", filename, error->message);
+  g_printerr (_("error: %s: %s\n"), filename, error->message);
   return SW_EXIT_USAGE;
 }
 
@@ -115,7 +116,7 @@ sw_cli_finish_json (JsonBuilder *builder)
   g_autoptr (JsonNode) node = NULL;
 
   json_builder_set_member_name (builder, "caution");
-  json_builder_add_string_value (builder, sw_cli_caution);
+  json_builder_add_string_value (builder, sw_format_cautions ());
   json_builder_end_object (builder);
   node = json_builder_get_root (builder);
   sw_cli_print_json (node);
@@ -134,9 +135,75 @@ sw_cli_add_number (JsonBuilder *b, const char *key, double value)
 char *
 sw_cli_format (double value, int decimals)
 {
-  if (!isfinite (value))
-    return g_strdup ("-");
-  return g_strdup_printf ("%.*f", decimals, value);
+  return sw_format_number (value, decimals);
+}
+
+/* A few strings alive at once, so that one g_print() can take several. */
+#define RING 16
+static char *ring[RING];
+static guint ring_next;
+
+static const char *
+ring_keep (char *text)
+{
+  guint i = ring_next++ % RING;
+
+  g_free (ring[i]);
+  ring[i] = text;
+  return text;
+}
+
+const char *
+sw_cli_num (double value, int decimals)
+{
+  return ring_keep (sw_format_number (value, decimals));
+}
+
+const char *
+sw_cli_num_signed (double value, int decimals)
+{
+  return ring_keep (sw_format_signed (value, decimals));
+}
+
+SwAnalysis *
+sw_cli_analyse (const char *filename, const SwAnalysisOptions *options, int *exit_code)
+{
+  g_autoptr (SwDesign) d = sw_cli_load (filename);
+  SwAnalysis *a;
+
+  if (d == NULL)
+    {
+      *exit_code = SW_EXIT_USAGE;
+      return NULL;
+    }
+  a = sw_analysis_run (d, options, NULL);
+  if (!a->ok)
+    {
+      g_printerr (_("error: %s: %s\n"), filename, a->error_message);
+      sw_analysis_unref (a);
+      *exit_code = SW_EXIT_USAGE;
+      return NULL;
+    }
+  *exit_code = SW_EXIT_OK;
+  return a;
+}
+
+void
+sw_cli_add_verdict (JsonBuilder *b, const SwAnalysis *a)
+{
+  json_builder_set_member_name (b, "verdict");
+  json_builder_begin_object (b);
+  json_builder_set_member_name (b, "state");
+  json_builder_add_string_value (b, sw_verdict_state_to_string (a->verdict.state));
+  json_builder_set_member_name (b, "reason");
+  json_builder_add_string_value (b, a->verdict.reason);
+  json_builder_end_object (b);
+}
+
+void
+sw_cli_print_verdict (const SwAnalysis *a)
+{
+  g_print ("%s: %s\n", sw_verdict_state_title (a->verdict.state), a->verdict.reason);
 }
 
 char *
@@ -156,22 +223,26 @@ sw_cli_cell (const char *text, guint width)
 static void
 usage (FILE *out)
 {
-  fprintf (out, "Usage: stagewright-cli COMMAND [OPTIONS] ARGS\n\n"
-                "Sizes multistage launch vehicles at the concept stage.\n\nCommands:\n");
+  fprintf (out, "%s", _("Usage: stagewright-cli COMMAND [OPTIONS] ARGS\n\n"
+                        "Sizes multistage launch vehicles at the concept stage.\n\nCommands:\n"));
   for (guint i = 0; i < G_N_ELEMENTS (commands); i++)
-    fprintf (out, "  %-12s %-8s %s\n", commands[i].name, commands[i].args, commands[i].summary);
-  fprintf (out, "\nRun 'stagewright-cli COMMAND --help' for a command's options.\n"
-                "Exit codes: 0 success (an infeasible design is a result), 2 bad input or "
-                "usage, 1 anything else.\n\n%s\n",
-           sw_cli_caution);
+    fprintf (out, "  %-12s %-8s %s\n", commands[i].name, commands[i].args,
+             _(commands[i].summary));
+  fprintf (out, _("\nRun 'stagewright-cli COMMAND --help' for a command's options.\n"
+                  "Exit codes: 0 success (an infeasible design is a result), 2 bad input or "
+                  "usage, 1 anything else.\n\n%s\n"),
+           sw_format_cautions ());
 }
 
 int
 main (int argc, char **argv)
 {
+  g_autofree char *localedir = sw_install_locale_dir ();
+
   setlocale (LC_ALL, "");
-  bindtextdomain (GETTEXT_PACKAGE, LOCALEDIR);
+  bindtextdomain (GETTEXT_PACKAGE, localedir);
   bind_textdomain_codeset (GETTEXT_PACKAGE, "UTF-8");
+  textdomain (GETTEXT_PACKAGE);
   /* Numbers in tables and JSON use the C conventions whatever the locale. */
   setlocale (LC_NUMERIC, "C");
   /* GSL reports numerical trouble through status codes, never abort(). */
@@ -196,7 +267,7 @@ main (int argc, char **argv)
   if (find_command (argv[1]) != NULL)
     return find_command (argv[1])->run (argc - 1, argv + 1);
 
-  g_printerr ("stagewright-cli: unknown command '%s'\n\n", argv[1]);
+  g_printerr (_("stagewright-cli: unknown command '%s'\n\n"), argv[1]);
   usage (stderr);
   return SW_EXIT_USAGE;
 }

@@ -4,6 +4,7 @@
 
 #include <json-glib/json-glib.h>
 
+#include "sw-analysis.h"
 #include "sw-design.h"
 
 G_BEGIN_DECLS
@@ -35,14 +36,26 @@ void      sw_cli_finish_json (JsonBuilder *builder);
 void      sw_cli_print_json (JsonNode *node);
 /* Adds a number member, or null when it is not finite. */
 void      sw_cli_add_number (JsonBuilder *b, const char *key, double value);
-/* Formats a number for tables; "-" when not finite. */
+/* A number for tables: the core formatter's (sw_format_number). */
 char     *sw_cli_format (double value, int decimals);
+/* The same for a printf argument: the string lives until 16 more are made. */
+const char *sw_cli_num (double value, int decimals);
+const char *sw_cli_num_signed (double value, int decimals);  /* "+12.5", "−3.0" */
+/* Loads @filename and runs every phase of the analysis @options ask for;
+ * prints the error and sets *exit_code when the design cannot be read or
+ * sized. */
+SwAnalysis *sw_cli_analyse (const char *filename, const SwAnalysisOptions *options,
+                            int *exit_code);
+/* "verdict": {"state": ..., "reason": ...} */
+void      sw_cli_add_verdict (JsonBuilder *b, const SwAnalysis *a);
+/* The verdict as the first line of a text report. */
+void      sw_cli_print_verdict (const SwAnalysis *a);
 /* A text cell of a table: at most @width characters (not bytes, so a name
  * is never cut inside a character), padded with spaces to @width. */
 char     *sw_cli_cell (const char *text, guint width);
 /* The cautions printed under every report. */
 extern const char *sw_cli_caution;
-/* A bundled demo design: the source tree first, then the installed copy. */
+/* A bundled demo design, under the install prefix (SW_DESIGNS_DIR overrides). */
 char     *sw_cli_find_demo (const char *basename);
 
 int sw_cli_size (int argc, char **argv);

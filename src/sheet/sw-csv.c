@@ -5,7 +5,7 @@
 
 #include "sw-csv.h"
 
-#include "sw-sheet.h"
+#include "sw-format.h"
 
 #include <errno.h>
 #include <glib/gi18n-lib.h>
@@ -17,7 +17,7 @@ static GString *
 csv_begin (const char *header)
 {
   GString *s = g_string_new ("# ");
-  g_string_append (s, sw_sheet_caution);
+  g_string_append (s, sw_format_cautions ());
   g_string_append_c (s, '\n');
   g_string_append (s, header);
   g_string_append_c (s, '\n');
@@ -57,7 +57,7 @@ csv_text (GString *s, const char *text, gboolean last)
 }
 
 char *
-sw_csv_stage_table (const SwBriefing *b)
+sw_csv_stage_table (const SwAnalysis *b)
 {
   const SwSizing *sz = &b->sizing;
   GString *s = csv_begin ("stage,name,isp_vac_s,structural_coefficient,delta_v_m_s,"
@@ -80,7 +80,7 @@ sw_csv_stage_table (const SwBriefing *b)
       csv_number (s, r->burnout_mass_kg, FALSE);
       g_string_append (s, r->feasible ? "true," : "false,");
       g_string_append (s, r->unused ? "true," : "false,");
-      csv_number (s, b->has_reliability ? b->reliability.stage[i] : NAN, TRUE);
+      csv_number (s, b->reliability.given ? b->reliability.stage[i] : NAN, TRUE);
     }
   g_string_append (s, "total,,,,");
   csv_number (s, sz->delta_v_m_s, FALSE);
@@ -90,12 +90,12 @@ sw_csv_stage_table (const SwBriefing *b)
   csv_number (s, sz->feasible ? sz->liftoff_mass_kg : NAN, FALSE);
   g_string_append (s, ",");
   g_string_append (s, sz->feasible ? "true,," : "false,,");
-  csv_number (s, b->has_reliability ? b->reliability.mission : NAN, TRUE);
+  csv_number (s, b->reliability.given ? b->reliability.mission : NAN, TRUE);
   return g_string_free (s, FALSE);
 }
 
 char *
-sw_csv_stage_curve (const SwBriefing *b)
+sw_csv_stage_curve (const SwAnalysis *b)
 {
   GString *s = csv_begin ("stages,feasible,liftoff_mass_kg,delta_v_limit_m_s,"
                           "liftoff_mass_p05_kg,liftoff_mass_p50_kg,liftoff_mass_p95_kg,"
@@ -110,16 +110,16 @@ sw_csv_stage_curve (const SwBriefing *b)
       csv_number (s, b->has_band && i < b->band.n_points ? b->band.p05[i] : NAN, FALSE);
       csv_number (s, b->has_band && i < b->band.n_points ? b->band.p50[i] : NAN, FALSE);
       csv_number (s, b->has_band && i < b->band.n_points ? b->band.p95[i] : NAN, FALSE);
-      csv_number (s, b->has_baseline && i < b->baseline_curve.n_points
+      csv_number (s, b->has_baseline && b->baseline_ok && i < b->baseline_curve.n_points
                        ? b->baseline_curve.points[i].liftoff_mass_kg : NAN, FALSE);
-      csv_number (s, b->has_reliability && i < b->reliability_curve.n_points
+      csv_number (s, b->reliability.given && i < b->reliability_curve.n_points
                        ? b->reliability_curve.mission[i] : NAN, TRUE);
     }
   return g_string_free (s, FALSE);
 }
 
 char *
-sw_csv_sweep (const SwBriefing *b)
+sw_csv_sweep (const SwAnalysis *b)
 {
   GString *s = csv_begin ("stages,delta_v_m_s,liftoff_mass_kg");
 
@@ -137,11 +137,11 @@ sw_csv_sweep (const SwBriefing *b)
 }
 
 char *
-sw_csv_reliability (const SwBriefing *b)
+sw_csv_reliability (const SwAnalysis *b)
 {
   GString *s;
 
-  if (!b->has_reliability)
+  if (!b->reliability.given)
     return NULL;
   s = csv_begin ("stages,mission_success");
   for (guint i = 0; i < b->reliability_curve.n_points; i++)
@@ -153,7 +153,7 @@ sw_csv_reliability (const SwBriefing *b)
 }
 
 char *
-sw_csv_tornado (const SwBriefing *b)
+sw_csv_tornado (const SwAnalysis *b)
 {
   const SwSensitivityTable *t = &b->sensitivity;
   GString *s;
@@ -186,7 +186,7 @@ sw_csv_tornado (const SwBriefing *b)
 }
 
 char *
-sw_csv_histogram (const SwBriefing *b)
+sw_csv_histogram (const SwAnalysis *b)
 {
   const SwMonteCarlo *mc = &b->montecarlo;
   GString *s;
@@ -212,9 +212,9 @@ sw_csv_histogram (const SwBriefing *b)
 }
 
 gboolean
-sw_csv_export (const SwBriefing *b, const char *dir, GPtrArray *written, GError **error)
+sw_csv_export (const SwAnalysis *b, const char *dir, GPtrArray *written, GError **error)
 {
-  struct { const char *name; char *(*make) (const SwBriefing *); } files[] = {
+  struct { const char *name; char *(*make) (const SwAnalysis *); } files[] = {
     { "stages.csv", sw_csv_stage_table },
     { "stage-count.csv", sw_csv_stage_curve },
     { "delta-v-sweep.csv", sw_csv_sweep },

@@ -33,7 +33,7 @@ LLVMFuzzerTestOneInput (const uint8_t *data, size_t size)
     return 0;
   CHECK (sw_design_required_delta_v (d, &dv, NULL));
   CHECK (isfinite (dv));
-  CHECK (sw_design_size (d, &s, NULL));
+  CHECK (sw_size_design (d, &s, NULL));
   CHECK (isfinite (s.delta_v_limit_m_s));
   if (s.feasible)
     {
@@ -66,7 +66,7 @@ LLVMFuzzerTestOneInput (const uint8_t *data, size_t size)
 
   {
     g_autoptr (GError) error = NULL;
-    g_autoptr (SwAscentResult) ascent = sw_design_ascent (d, NULL, &error);
+    g_autoptr (SwAscentResult) ascent = sw_ascent_fly_design (d, NULL, &error);
 
     if (ascent == NULL)
       CHECK (error != NULL && error->message[0] != '\0');

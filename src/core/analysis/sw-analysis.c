@@ -5,40 +5,345 @@
 
 #include "sw-analysis.h"
 
+#include "sw-format.h"
+
+#include <glib/gi18n-lib.h>
 #include <math.h>
+#include <string.h>
 
 G_DEFINE_BOXED_TYPE (SwAnalysis, sw_analysis, sw_analysis_ref, sw_analysis_unref)
 
+/* ---- the shared heap parts ---------------------------------------------- */
+
+/* An immutable heap object shared by the phases of one analysis. */
+struct _SwAnalysisHeld {
+  gpointer       data;
+  GDestroyNotify free_func;
+};
+
 static void
-result_clear (gpointer data)
+held_clear (gpointer p)
+{
+  SwAnalysisHeld *h = p;
+
+  h->free_func (h->data);
+}
+
+static SwAnalysisHeld *
+held_new (gpointer data, GDestroyNotify free_func)
+{
+  SwAnalysisHeld *h = g_atomic_rc_box_new0 (SwAnalysisHeld);
+
+  h->data = data;
+  h->free_func = free_func;
+  return h;
+}
+
+static SwAnalysisHeld *
+held_ref (SwAnalysisHeld *h)
+{
+  return h != NULL ? g_atomic_rc_box_acquire (h) : NULL;
+}
+
+static void
+held_unref (SwAnalysisHeld *h)
+{
+  if (h != NULL)
+    g_atomic_rc_box_release_full (h, held_clear);
+}
+
+static void
+analysis_clear (gpointer data)
 {
   SwAnalysis *r = data;
 
-  sw_design_free (r->design);
-  g_free (r->error_message);
-  g_clear_pointer (&r->ascent, sw_ascent_result_free);
-  g_free (r->ascent_message);
+  held_unref (r->held_design);
+  held_unref (r->held_ascent);
 }
 
-/* Fast phase: thrust-to-weight per stage from the sized masses, and whether
- * the design has what an ascent needs (if not, the core says which keys). */
-static void
-prepare_ascent (SwAnalysis *r, const SwDesign *design)
+SwAnalysis *
+sw_analysis_copy (const SwAnalysis *analysis)
 {
-  g_autoptr (GError) error = NULL;
+  SwAnalysis *r;
 
-  r->has_stage_figures = sw_ascent_stage_figures (design, &r->sizing, r->stage_figures, NULL);
-  r->ascent_pending = sw_ascent_check_inputs (design, &error);
-  if (!r->ascent_pending)
-    r->ascent_message = g_strdup (error->message);
+  g_return_val_if_fail (analysis != NULL, NULL);
+
+  /* Everything but the two heap parts is plain data held by value; the heap
+   * parts are immutable, so the copy shares them. */
+  r = (SwAnalysis *) g_atomic_rc_box_dup (sizeof *analysis, (gconstpointer) analysis);
+  held_ref (r->held_design);
+  held_ref (r->held_ascent);
+  return r;
+}
+
+SwAnalysis *
+sw_analysis_ref (SwAnalysis *analysis)
+{
+  return g_atomic_rc_box_acquire (analysis);
 }
 
 void
-sw_solve_options_init (SwSolveOptions *options)
+sw_analysis_unref (SwAnalysis *analysis)
 {
+  g_atomic_rc_box_release_full (analysis, analysis_clear);
+}
+
+/* ---- options and the verdict's words ------------------------------------ */
+
+void
+sw_analysis_options_init (SwAnalysisOptions *options)
+{
+  memset (options, 0, sizeof *options);
   options->sensitivity_step = SW_SENSITIVITY_DEFAULT_STEP;
   options->band_samples = 2000;
   options->threads = 0;
+  options->montecarlo = TRUE;
+  options->band = TRUE;
+  options->ascent = TRUE;
+  /* The defaults of the window's settings (the GSettings schema in data/). */
+  options->min_thrust_to_weight = 1.2;
+  options->max_q_pa = 45000.0;
+  options->max_axial_g = 6.0;
+}
+
+const char *
+sw_verdict_state_to_string (SwVerdictState state)
+{
+  switch (state)
+    {
+    case SW_VERDICT_INFEASIBLE: return "infeasible";
+    case SW_VERDICT_SHORT_OF_ORBIT: return "short-of-orbit";
+    case SW_VERDICT_OVER_LIMIT: return "over-limit";
+    case SW_VERDICT_PAPER_ONLY: return "paper-only";
+    case SW_VERDICT_REACHES_ORBIT: return "reaches-orbit";
+    case SW_VERDICT_PENDING:
+    default: return "pending";
+    }
+}
+
+const char *
+sw_verdict_state_title (SwVerdictState state)
+{
+  switch (state)
+    {
+    case SW_VERDICT_INFEASIBLE: return _("Not feasible");
+    case SW_VERDICT_SHORT_OF_ORBIT: return _("Does not reach the orbit");
+    case SW_VERDICT_OVER_LIMIT: return _("Reaches the orbit, but breaks a limit");
+    case SW_VERDICT_PAPER_ONLY: return _("Feasible on paper only");
+    case SW_VERDICT_REACHES_ORBIT: return _("Reaches the orbit");
+    case SW_VERDICT_PENDING:
+    default: return _("Checking the ascent");
+    }
+}
+
+static void
+verdict_set (SwAnalysis *r, SwVerdictState state, const char *reason)
+{
+  r->verdict.state = state;
+  g_strlcpy (r->verdict.reason, reason, sizeof r->verdict.reason);
+}
+
+/* Which propulsion input is missing, in plain words. */
+static char *
+missing_words (const SwAnalysis *r)
+{
+  const SwDesign *d = r->design;
+  gboolean any = FALSE;
+
+  if (d->mission.kind != SW_MISSION_ORBIT)
+    return g_strdup (_("the mission gives its delta-v directly, not a target orbit, so there "
+                       "is no ascent to fly"));
+  for (guint i = 0; i < d->n_stages; i++)
+    any = any || d->stages[i].propulsion.present;
+  if (!any)
+    return g_strdup (_("the design has no propulsion data (thrust of every stage, sea-level "
+                       "Isp and diameter of the first stage), so the ascent was not simulated"));
+  for (guint i = 0; i < d->n_stages; i++)
+    {
+      const SwStage *st = &d->stages[i];
+      guint count = st->reliability.has_engine_count ? st->reliability.engine_count : 0;
+      if (!isfinite (sw_stage_thrust_vac_n (&st->propulsion, count)))
+        /* Translators: %u is a stage number, %s its name */
+        return g_strdup_printf (_("stage %u (%s) has no thrust, so the ascent was not "
+                                  "simulated"), i + 1, st->name);
+    }
+  if (!d->stages[0].has_isp_sl)
+    return g_strdup (_("the first stage has no sea-level Isp, so the ascent was not "
+                       "simulated"));
+  if (!d->stages[0].propulsion.has_diameter)
+    return g_strdup (_("the first stage has no diameter, so the ascent was not simulated"));
+  return g_strdup (_("the propulsion data is incomplete or out of range, so the ascent was "
+                     "not simulated (the Ascent page says which)"));
+}
+
+/* The largest single loss of a simulated ascent, in words. */
+static char *
+largest_loss (const SwAscentResult *a)
+{
+  struct { const char *name; double v; } losses[] = {
+    { N_("gravity"), a->gravity_loss_m_s },
+    { N_("drag"), a->drag_loss_m_s },
+    { N_("steering"), a->steering_loss_m_s },
+    { N_("nozzle back-pressure"), a->pressure_loss_m_s },
+  };
+  guint best = 0;
+  g_autofree char *v = NULL;
+
+  for (guint i = 1; i < G_N_ELEMENTS (losses); i++)
+    if (isfinite (losses[i].v) && !(losses[i].v <= losses[best].v))
+      best = i;
+  if (!isfinite (losses[best].v))
+    return NULL;
+  v = sw_format_speed (losses[best].v);
+  /* Translators: a kind of loss ("gravity") and a speed */
+  return g_strdup_printf (_("the largest loss is %s, %s"), _(losses[best].name), v);
+}
+
+/* The limits the vehicle breaks, one sentence each; NULL when none. */
+static char *
+limits_broken (const SwAnalysis *r)
+{
+  const SwAnalysisOptions *o = &r->options;
+  const SwAscentResult *a = r->ascent;
+  GString *s = g_string_new (NULL);
+  double tw = a != NULL ? a->liftoff_thrust_to_weight
+              : r->has_stage_figures ? r->stage_figures[0].ignition_thrust_to_weight : NAN;
+
+  if (isfinite (tw) && tw < o->min_thrust_to_weight)
+    {
+      g_autofree char *v = sw_format_ratio (tw, 2);
+      g_autofree char *l = sw_format_ratio (o->min_thrust_to_weight, 2);
+      g_string_append_printf (s, _("Thrust-to-weight at liftoff is %s, below your limit of %s."),
+                              v, l);
+    }
+  if (a != NULL && isfinite (a->max_q_pa) && a->max_q_pa > o->max_q_pa)
+    {
+      g_autofree char *v = sw_format_pressure_kpa (a->max_q_pa);
+      g_autofree char *l = sw_format_pressure_kpa (o->max_q_pa);
+      if (s->len > 0)
+        g_string_append_c (s, ' ');
+      g_string_append_printf (s, _("Max-Q is %s, above your limit of %s."), v, l);
+    }
+  if (a != NULL && isfinite (a->max_axial_g) && a->max_axial_g > o->max_axial_g)
+    {
+      g_autofree char *v = sw_format_accel_g (a->max_axial_g);
+      g_autofree char *l = sw_format_accel_g (o->max_axial_g);
+      if (s->len > 0)
+        g_string_append_c (s, ' ');
+      g_string_append_printf (s, _("Peak acceleration is %s, above your limit of %s."), v, l);
+    }
+  if (s->len == 0)
+    {
+      g_string_free (s, TRUE);
+      return NULL;
+    }
+  return g_string_free (s, FALSE);
+}
+
+/* The one verdict, from what the analysis holds so far (precedence as in
+ * SwVerdictState). */
+static void
+update_verdict (SwAnalysis *r)
+{
+  const SwAscentResult *a = r->ascent;
+  g_autofree char *text = NULL, *broken = NULL;
+
+  if (!r->ok)
+    {
+      text = g_strdup_printf (_("The design cannot be sized: %s"), r->error_message);
+      verdict_set (r, SW_VERDICT_INFEASIBLE, text);
+      return;
+    }
+  if (!r->sizing.feasible)
+    {
+      verdict_set (r, SW_VERDICT_INFEASIBLE, r->sizing.reason);
+      return;
+    }
+  if (r->ascent_pending)
+    {
+      verdict_set (r, SW_VERDICT_PENDING, _("Simulating the ascent to check the design "
+                                            "reaches its orbit…"));
+      return;
+    }
+  if (a != NULL && a->status != SW_ASCENT_REACHED)
+    {
+      g_autofree char *loss = largest_loss (a);
+      if (a->status == SW_ASCENT_SHORT && isfinite (a->delta_v_missing_m_s))
+        {
+          g_autofree char *miss = sw_format_speed (a->delta_v_missing_m_s);
+          if (loss != NULL)
+            /* Translators: a speed, then "the largest loss is gravity, 1,234 m/s" */
+            text = g_strdup_printf (_("In the simulated ascent the vehicle falls %s short of "
+                                      "the orbit; %s."), miss, loss);
+          else
+            text = g_strdup_printf (_("In the simulated ascent the vehicle falls %s short of "
+                                      "the orbit."), miss);
+        }
+      else
+        text = g_strdup_printf (_("The simulated ascent does not reach the orbit: %s"),
+                                a->reason);
+      verdict_set (r, SW_VERDICT_SHORT_OF_ORBIT, text);
+      return;
+    }
+  broken = limits_broken (r);
+  if (a == NULL)
+    {
+      g_autofree char *why = NULL;
+      if (r->ascent_skipped)
+        why = g_strdup (_("the ascent was not simulated on request"));
+      else if (r->phase == 2)
+        /* The inputs were there, but the simulation failed. */
+        why = g_strdup_printf (_("the ascent could not be simulated (%s)"), r->ascent_message);
+      else
+        why = missing_words (r);
+      /* Translators: %s says why there is no simulation */
+      text = g_strdup_printf (_("The stages give the required delta-v by the rocket equation, "
+                                "but %s. Whether it reaches orbit is not checked."), why);
+      /* Without a flight there is no "reaches the orbit, but": a limit the
+       * figures already break is said here. */
+      if (broken != NULL)
+        {
+          char *more = g_strconcat (text, " ", broken, NULL);
+          g_free (text);
+          text = more;
+        }
+      verdict_set (r, SW_VERDICT_PAPER_ONLY, text);
+      return;
+    }
+  if (broken != NULL)
+    {
+      /* Translators: %s lists the limits broken */
+      text = g_strdup_printf (_("The simulated ascent reaches the orbit, but: %s"), broken);
+      verdict_set (r, SW_VERDICT_OVER_LIMIT, text);
+      return;
+    }
+  {
+    g_autofree char *margin = sw_format_speed (r->simulated_margin_m_s);
+    g_autofree char *orbit = sw_format_distance_km (a->target_altitude_km * 1000.0);
+    /* Translators: an altitude such as "400.0 km", then a speed */
+    text = g_strdup_printf (_("The simulated ascent reaches the %s orbit with %s of delta-v to "
+                              "spare."), orbit, margin);
+    verdict_set (r, SW_VERDICT_REACHES_ORBIT, text);
+  }
+}
+
+/* ---- phase 1: fast ------------------------------------------------------- */
+
+/* Thrust-to-weight per stage from the sized masses, and whether the design
+ * has what an ascent needs (if not, the core says which keys). */
+static void
+prepare_ascent (SwAnalysis *r)
+{
+  g_autoptr (GError) error = NULL;
+
+  r->has_stage_figures = sw_ascent_stage_figures (r->design, &r->sizing, r->stage_figures,
+                                                  NULL);
+  if (!sw_ascent_check_inputs (r->design, &error))
+    g_strlcpy (r->ascent_message, error->message, sizeof r->ascent_message);
+  else if (!r->options.ascent)
+    r->ascent_skipped = TRUE;
+  else
+    r->ascent_pending = TRUE;
 }
 
 /* The comparison with the baseline, from the sizing in force. */
@@ -54,16 +359,17 @@ compare_with_baseline (SwAnalysis *r)
 
 /* Fast phase of the trade studies: microseconds each (see the CLI's bench). */
 static void
-prepare_trade (SwAnalysis *r, const SwDesign *design, const SwSolveOptions *options)
+prepare_trade (SwAnalysis *r)
 {
+  const SwDesign *design = r->design;
   g_autoptr (GError) error = NULL;
 
-  r->sensitivity_step = options->sensitivity_step;
+  r->sensitivity_step = r->options.sensitivity_step;
   if (r->sizing.feasible)
-    r->has_sensitivity = sw_sensitivity_compute (design, options->sensitivity_step,
-                                                 &r->sensitivity, NULL)
+    r->has_sensitivity = sw_sensitivity_compute (design, r->sensitivity_step, &r->sensitivity,
+                                                 NULL)
                          && r->sensitivity.feasible;
-  sw_design_reliability (design, &r->reliability);
+  sw_reliability_from_design (design, &r->reliability);
   sw_reliability_curve_compute (design, SW_MAX_STAGES, &r->reliability_curve);
 
   r->has_baseline = design->baseline != NULL;
@@ -72,7 +378,7 @@ prepare_trade (SwAnalysis *r, const SwDesign *design, const SwSolveOptions *opti
       double dv;
 
       r->baseline_ok = sw_design_required_delta_v (design->baseline, &dv, &error)
-                       && sw_design_size (design->baseline, &r->baseline_sizing, &error);
+                       && sw_size_design (design->baseline, &r->baseline_sizing, &error);
       sw_reliability_curve_compute (design->baseline, SW_MAX_STAGES,
                                     &r->baseline_reliability_curve);
       if (r->baseline_ok)
@@ -81,50 +387,52 @@ prepare_trade (SwAnalysis *r, const SwDesign *design, const SwSolveOptions *opti
         g_strlcpy (r->baseline_error, error->message, sizeof r->baseline_error);
     }
   compare_with_baseline (r);
-  r->montecarlo_pending = sw_uncertainty_has_spread (&design->uncertainty);
+  r->montecarlo_pending = r->options.montecarlo
+                          && (r->options.montecarlo_always
+                              || sw_uncertainty_has_spread (&design->uncertainty));
 }
 
 SwAnalysis *
-sw_analysis_compute (const SwDesign *design, guint64 serial, GCancellable *cancellable)
-{
-  return sw_analysis_compute_with (design, serial, NULL, cancellable);
-}
-
-SwAnalysis *
-sw_analysis_compute_with (const SwDesign *design, guint64 serial, const SwSolveOptions *options,
-                        GCancellable *cancellable)
+sw_analysis_new (const SwDesign *design, guint64 serial, const SwAnalysisOptions *options,
+                 GCancellable *cancellable)
 {
   SwAnalysis *r;
-  SwSolveOptions defaults;
+  SwDesign *copy;
   g_autoptr (GError) error = NULL;
 
   g_return_val_if_fail (design != NULL, NULL);
 
-  if (options == NULL)
-    {
-      sw_solve_options_init (&defaults);
-      options = &defaults;
-    }
-
   r = g_atomic_rc_box_new0 (SwAnalysis);
   r->serial = serial;
-  r->design = sw_design_copy (design);
+  if (options != NULL)
+    r->options = *options;
+  else
+    sw_analysis_options_init (&r->options);
+  copy = sw_design_copy (design);
+  r->held_design = held_new (copy, (GDestroyNotify) sw_design_free);
+  r->design = copy;
+  r->simulated_margin_m_s = NAN;
+  r->montecarlo_success = NAN;
+  r->headroom_m_s = NAN;
 
   if (!sw_design_validate (design, NULL, &error)
       || !sw_design_required_delta_v (design, &r->delta_v_m_s, &error)
-      || !sw_design_size (design, &r->sizing, &error))
+      || !sw_size_design (design, &r->sizing, &error))
     {
       r->ok = FALSE;
-      r->error_message = g_strdup (error->message);
+      g_strlcpy (r->error_message, error->message, sizeof r->error_message);
+      update_verdict (r);
       return r;
     }
   r->ok = TRUE;
+  r->headroom_m_s = r->sizing.margin_m_s;
   r->has_budget = design->mission.kind == SW_MISSION_ORBIT
                   && sw_design_budget (design, &r->budget, NULL);
   sw_stage_curve_compute (design, r->delta_v_m_s, SW_MAX_STAGES, &r->stage_curve);
   sw_sweep_compute (design, SW_SWEEP_CURVES, SW_SWEEP_POINTS, &r->sweep);
-  prepare_ascent (r, design);
-  prepare_trade (r, design, options);
+  prepare_ascent (r);
+  prepare_trade (r);
+  update_verdict (r);
 
   if (g_cancellable_is_cancelled (cancellable))
     {
@@ -135,38 +443,96 @@ sw_analysis_compute_with (const SwDesign *design, guint64 serial, const SwSolveO
 }
 
 SwAnalysis *
-sw_analysis_compute_ascent (const SwAnalysis *fast, GCancellable *cancellable)
+sw_analysis_compute (const SwDesign *design, guint64 serial, GCancellable *cancellable)
+{
+  return sw_analysis_new (design, serial, NULL, cancellable);
+}
+
+/* ---- phase 2: Monte Carlo ------------------------------------------------ */
+
+SwAnalysis *
+sw_analysis_add_montecarlo (const SwAnalysis *prev, GCancellable *cancellable)
+{
+  g_autoptr (GError) error = NULL;
+  const SwAnalysisOptions *o;
+  const SwUncertainty *unc;
+  SwAnalysis *r;
+
+  g_return_val_if_fail (prev != NULL && prev->ok && prev->montecarlo_pending, NULL);
+
+  r = sw_analysis_copy (prev);
+  r->montecarlo_pending = FALSE;
+  r->phase = MAX (r->phase, 1);
+  o = &r->options;
+  unc = &r->design->uncertainty;
+
+  /* The core looks at the cancellable before every block of samples, so a
+   * newer edit abandons even a million-sample run within a block. */
+  r->has_montecarlo = sw_montecarlo_run_cancellable (r->design, NULL, o->montecarlo_samples,
+                                                     o->montecarlo_use_seed, o->montecarlo_seed,
+                                                     o->threads, &r->montecarlo, NULL, NULL,
+                                                     cancellable, &error);
+  if (r->has_montecarlo && r->montecarlo.payload.n > 0)
+    r->montecarlo_success = 1.0 - r->montecarlo.p_negative_margin;
+  /* A lighter run per stage count: the band is a picture, not a figure. */
+  if (r->has_montecarlo && o->band)
+    r->has_band = sw_montecarlo_band_cancellable (
+      r->design, NULL, SW_MAX_STAGES,
+      MIN (o->montecarlo_samples > 0 ? o->montecarlo_samples : sw_uncertainty_samples (unc),
+           o->band_samples),
+      o->montecarlo_use_seed ? o->montecarlo_seed : sw_uncertainty_seed (unc), o->threads,
+      &r->band, cancellable, &error);
+  if (error != NULL)
+    g_strlcpy (r->montecarlo_error, error->message, sizeof r->montecarlo_error);
+  if (g_cancellable_is_cancelled (cancellable))
+    {
+      sw_analysis_unref (r);
+      return NULL;
+    }
+  return r;
+}
+
+/* ---- phase 3: the ascent ------------------------------------------------- */
+
+SwAnalysis *
+sw_analysis_add_ascent (const SwAnalysis *prev, GCancellable *cancellable)
 {
   g_autoptr (GError) error = NULL;
   SwAscentResult *ascent;
   SwAnalysis *r;
 
-  g_return_val_if_fail (fast != NULL && fast->ok && fast->ascent_pending, NULL);
+  g_return_val_if_fail (prev != NULL && prev->ok && prev->ascent_pending, NULL);
 
-  ascent = sw_design_ascent (fast->design, cancellable, &error);
+  ascent = sw_ascent_fly_design (prev->design, cancellable, &error);
   if (g_cancellable_is_cancelled (cancellable))
     {
       g_clear_pointer (&ascent, sw_ascent_result_free);
       return NULL;
     }
 
-  /* The fast part, copied: the emitted fast result stays as it was. */
-  r = g_atomic_rc_box_new0 (SwAnalysis);
-  *r = *fast;
-  r->design = sw_design_copy (fast->design);
-  r->error_message = g_strdup (fast->error_message);
+  r = sw_analysis_copy (prev);
   r->ascent_pending = FALSE;
   r->phase = 2;
+  if (ascent == NULL)
+    {
+      g_strlcpy (r->ascent_message, error->message, sizeof r->ascent_message);
+      update_verdict (r);
+      return r;
+    }
+  held_unref (r->held_ascent);
+  r->held_ascent = held_new (ascent, (GDestroyNotify) sw_ascent_result_free);
   r->ascent = ascent;
-  r->ascent_message = ascent == NULL ? g_strdup (error->message) : NULL;
+  if (ascent->status == SW_ASCENT_REACHED || ascent->status == SW_ASCENT_SHORT)
+    r->simulated_margin_m_s = ascent->delta_v_margin_m_s;
 
   /* The closed loop sized the vehicle with the simulated losses: that
    * vehicle replaces the first guess in every view. */
-  if (ascent != NULL && ascent->closed_loop && ascent->loop_converged
-      && ascent->sizing.feasible && ascent->sizing.n_stages == fast->sizing.n_stages)
+  if (ascent->closed_loop && ascent->loop_converged && ascent->sizing.feasible
+      && ascent->sizing.n_stages == prev->sizing.n_stages)
     {
       r->sizing = ascent->sizing;
       r->delta_v_m_s = ascent->sizing.delta_v_m_s;
+      r->headroom_m_s = r->sizing.margin_m_s;
       r->sized_by_ascent = TRUE;
       if (r->has_budget)
         {
@@ -178,94 +544,29 @@ sw_analysis_compute_ascent (const SwAnalysis *fast, GCancellable *cancellable)
       r->has_stage_figures = sw_ascent_stage_figures (r->design, &r->sizing, r->stage_figures,
                                                       NULL);
     }
+  update_verdict (r);
   return r;
 }
 
-SwAnalysis *
-sw_analysis_compute_montecarlo (const SwAnalysis *fast, const SwSolveOptions *options,
-                              GCancellable *cancellable)
-{
-  g_autoptr (GError) error = NULL;
-  const SwUncertainty *unc;
-  SwSolveOptions defaults;
-  SwAnalysis *r;
-
-  g_return_val_if_fail (fast != NULL && fast->ok && fast->montecarlo_pending, NULL);
-
-  if (options == NULL)
-    {
-      sw_solve_options_init (&defaults);
-      options = &defaults;
-    }
-  /* The fast part, copied as in sw_analysis_compute_ascent(); the trade
-   * fields hold no pointers.  The ascent has not run yet in this phase. */
-  r = g_atomic_rc_box_new0 (SwAnalysis);
-  *r = *fast;
-  r->design = sw_design_copy (fast->design);
-  r->error_message = g_strdup (fast->error_message);
-  r->ascent = NULL;
-  r->ascent_message = g_strdup (fast->ascent_message);
-  r->montecarlo_pending = FALSE;
-  r->phase = 1;
-
-  /* The core looks at the cancellable before every block of samples, so a
-   * newer edit abandons even a million-sample run within a block. */
-  unc = &r->design->uncertainty;
-  r->has_montecarlo = sw_montecarlo_run_cancellable (r->design, NULL, 0, FALSE, 0,
-                                                     options->threads, &r->montecarlo, NULL,
-                                                     NULL, cancellable, &error);
-  if (r->has_montecarlo)
-    r->has_band = sw_montecarlo_band_cancellable (r->design, NULL, SW_MAX_STAGES,
-                                                  MIN (sw_uncertainty_samples (unc),
-                                                       options->band_samples),
-                                                  sw_uncertainty_seed (unc), options->threads,
-                                                  &r->band, cancellable, &error);
-  if (error != NULL)
-    g_strlcpy (r->montecarlo_error, error->message, sizeof r->montecarlo_error);
-  if (g_cancellable_is_cancelled (cancellable))
-    {
-      sw_analysis_unref (r);
-      return NULL;
-    }
-  return r;
-}
+/* ---- all phases ---------------------------------------------------------- */
 
 SwAnalysis *
-sw_analysis_ref (SwAnalysis *result)
+sw_analysis_run (const SwDesign *design, const SwAnalysisOptions *options,
+                 GCancellable *cancellable)
 {
-  return g_atomic_rc_box_acquire (result);
-}
+  g_autoptr (SwAnalysis) r = sw_analysis_new (design, 0, options, cancellable);
 
-void
-sw_analysis_unref (SwAnalysis *result)
-{
-  g_atomic_rc_box_release_full (result, result_clear);
-}
-
-void
-sw_analysis_apply_shares (const SwAnalysis *result, SwDesign *design)
-{
-  guint n;
-  double sum = 0.0;
-  gboolean usable;
-
-  g_return_if_fail (design != NULL && design->n_stages > 0);
-
-  n = design->n_stages;
-  usable = result != NULL && result->ok && result->sizing.n_stages == n
-           && result->sizing.delta_v_m_s > 0.0;
-  for (guint i = 0; usable && i < n; i++)
+  if (r != NULL && r->montecarlo_pending)
     {
-      double share = result->sizing.stages[i].delta_v_share;
-      usable = isfinite (share) && share >= 0.0;
-      sum += usable ? share : 0.0;
+      SwAnalysis *next = sw_analysis_add_montecarlo (r, cancellable);
+      g_clear_pointer (&r, sw_analysis_unref);
+      r = next;
     }
-  usable = usable && sum > 0.5;
-  for (guint i = 0; i < n; i++)
+  if (r != NULL && r->ascent_pending)
     {
-      design->stages[i].delta_v_share = usable ? result->sizing.stages[i].delta_v_share / sum
-                                               : 1.0 / n;
-      design->stages[i].has_share = TRUE;
+      SwAnalysis *next = sw_analysis_add_ascent (r, cancellable);
+      g_clear_pointer (&r, sw_analysis_unref);
+      r = next;
     }
-  design->split = SW_SPLIT_MANUAL;
+  return g_steal_pointer (&r);
 }

@@ -1,7 +1,23 @@
 /* SPDX-License-Identifier: GPL-3.0-or-later */
-/* sw-analysis.h: the immutable answer of one solve.  The worker thread builds
- * it from a copy of the design; the views only read it.  Reference counted
- * (g_atomic_rc_box) so every view may hold it as long as it draws from it. */
+/* sw-analysis.h: the one analysis of a design.  The window (through its
+ * solver thread), the briefing sheet, the CSV tables and every command of
+ * the command line read this and nothing else.
+ *
+ * An analysis is immutable and reference counted (g_atomic_rc_box).  It is
+ * built in phases, each a new analysis that starts as a copy of the previous
+ * one (sw_analysis_copy) and adds to it:
+ *   1. fast (sw_analysis_new): sizing, curves, budget, sensitivities,
+ *      reliability, the baseline comparison, the thrust-to-weight figures;
+ *   2. Monte Carlo (sw_analysis_add_montecarlo), when montecarlo_pending;
+ *   3. ascent (sw_analysis_add_ascent), when ascent_pending: the simulated
+ *      ascent, and for "loss_model": "simulate" the closed loop's sizing in
+ *      place of the fast one.
+ * Every phase takes a GCancellable and returns NULL once it is cancelled.
+ * sw_analysis_run does all the phases the options ask for in one call.
+ *
+ * Plain data is held by value.  The two heap parts (the solved design and
+ * the simulated ascent) are immutable and shared between the phases of one
+ * design through their own reference counts, so a copy is one function. */
 #pragma once
 
 #include <gio/gio.h>
@@ -18,36 +34,87 @@
 
 G_BEGIN_DECLS
 
-typedef struct _SwResult SwAnalysis;
+#define SW_ANALYSIS_TEXT_MAX 768
 
-struct _SwResult {
+/* What the analysis says about the design, in this order of precedence. */
+typedef enum {
+  SW_VERDICT_INFEASIBLE,       /* a stage cannot give its share, or no sizing */
+  SW_VERDICT_SHORT_OF_ORBIT,   /* the simulated ascent does not reach the orbit */
+  SW_VERDICT_OVER_LIMIT,       /* it flies, but breaks one of the user's limits */
+  SW_VERDICT_PAPER_ONLY,       /* no simulation: the rocket equation only */
+  SW_VERDICT_REACHES_ORBIT,    /* the simulated ascent reaches the orbit */
+  SW_VERDICT_PENDING,          /* the ascent is still being simulated (window only) */
+} SwVerdictState;
+
+typedef struct {
+  SwVerdictState state;
+  char reason[SW_ANALYSIS_TEXT_MAX];   /* plain words, translated */
+} SwVerdict;
+
+/* "infeasible", "short-of-orbit", "over-limit", "paper-only",
+ * "reaches-orbit", "pending" (scripts depend on these strings). */
+const char *sw_verdict_state_to_string (SwVerdictState state);
+/* A short title for people: "Reaches the orbit", "Not feasible", ... */
+const char *sw_verdict_state_title (SwVerdictState state);
+
+/* Settings that are not part of the design. */
+typedef struct {
+  double   sensitivity_step;      /* relative, 0.001 to 0.5; default 0.05 */
+  guint    band_samples;          /* per stage count of the band; default 2000 */
+  guint    threads;               /* Monte Carlo threads, 0 = all cores */
+  gboolean montecarlo;            /* run the Monte Carlo phase when the design has
+                                   * spreads (default TRUE) */
+  gboolean montecarlo_always;     /* ... even without spreads (default FALSE) */
+  guint    montecarlo_samples;    /* 0: the design's */
+  gboolean montecarlo_use_seed;   /* TRUE: montecarlo_seed instead of the design's */
+  guint32  montecarlo_seed;
+  gboolean band;                  /* the band on the stage-count curve (default TRUE) */
+  gboolean ascent;                /* run the ascent phase when the design can be
+                                   * flown (default TRUE) */
+  /* The user's limits, for the verdict (defaults: the settings' defaults). */
+  double   min_thrust_to_weight;  /* at liftoff; 1.2, common practice */
+  double   max_q_pa;              /* 45 kPa, from memory */
+  double   max_axial_g;           /* 6 g, from memory */
+} SwAnalysisOptions;
+
+void sw_analysis_options_init (SwAnalysisOptions *options);
+
+typedef struct _SwAnalysisHeld SwAnalysisHeld;
+typedef struct _SwAnalysis SwAnalysis;
+
+struct _SwAnalysis {
   guint64   serial;            /* the edit this answers; strictly increasing */
-  SwDesign *design;            /* the solved copy (owned) */
+  guint     phase;             /* 0 fast, 1 Monte Carlo, 2 ascent: the order of results */
+  SwAnalysisOptions options;   /* what it was built with */
+  const SwDesign *design;      /* the solved copy (shared, immutable) */
   gboolean  ok;                /* FALSE: the design could not be solved */
-  char     *error_message;     /* when !ok: which field and why */
-  double    delta_v_m_s;       /* required delta-v */
+  char      error_message[SW_ANALYSIS_TEXT_MAX];  /* when !ok: which field and why */
+
+  SwVerdict verdict;           /* the one answer; see SwVerdictState */
+
+  double    delta_v_m_s;       /* required delta-v (the closed loop's when sized_by_ascent) */
   gboolean  has_budget;        /* orbit mission */
   SwBudget  budget;
   SwSizing  sizing;
   SwStageCurve stage_curve;    /* N = 1..8, optimal split */
   SwSweep   sweep;             /* N = 1..5 */
+  /* The vehicle's delta-v limit with no payload less the required delta-v:
+   * headroom to the asymptote, not a performance margin. */
+  double    headroom_m_s;
 
-  /* The ascent.  The fast phase fills stage_figures and says whether an
-   * ascent follows; the worker then simulates and emits a second result of
-   * the same serial (sw_analysis_compute_ascent), with ascent_pending FALSE.
-   * Heap fields are deep-copied in sw_analysis_compute_ascent and
-   * sw_analysis_compute_montecarlo: add new ones there. */
+  /* The ascent. */
   gboolean  has_stage_figures;
   SwAscentStage stage_figures[SW_MAX_STAGES];  /* thrust-to-weight at ignition, burn time */
-  gboolean  ascent_pending;    /* a result with the simulated ascent follows */
-  SwAscentResult *ascent;      /* owned; NULL in the fast phase or without an ascent */
-  char     *ascent_message;    /* why there is no ascent (the core's words), or NULL */
+  gboolean  ascent_pending;    /* a later phase simulates the ascent */
+  gboolean  ascent_skipped;    /* the options said not to simulate */
+  const SwAscentResult *ascent;  /* shared; NULL before the ascent phase or without one */
+  char      ascent_message[SW_ANALYSIS_TEXT_MAX];  /* why there is no ascent (core's words) */
   gboolean  sized_by_ascent;   /* sizing is the closed loop's (loss_model "simulate") */
+  /* Simulated delta-v margin: carried less needed, signed (NAN without a
+   * simulation that found a steering). */
+  double    simulated_margin_m_s;
 
-  /* Trade studies (no heap fields: the later phases copy the struct).  The
-   * fast phase fills the sensitivities, the reliability and the baseline
-   * comparison; the Monte Carlo follows in a later result of the same
-   * serial (sw_analysis_compute_montecarlo), before the ascent. */
+  /* Trade studies. */
   double    sensitivity_step;  /* the tornado's relative step */
   gboolean  has_sensitivity;   /* the sizing closes */
   SwSensitivityTable sensitivity;
@@ -55,56 +122,49 @@ struct _SwResult {
   SwReliabilityCurve reliability_curve;
   gboolean  has_baseline;      /* design->baseline is set */
   gboolean  baseline_ok;       /* ... and was sized; else baseline_error says why */
-  char      baseline_error[SW_REASON_MAX];
+  char      baseline_error[SW_ANALYSIS_TEXT_MAX];
   SwSizing  baseline_sizing;
   SwStageCurve baseline_curve;
   SwReliabilityCurve baseline_reliability_curve;
   SwComparison comparison;     /* the totals against the baseline's */
-  SwDelta   margin_delta;      /* the delta-v margin against the baseline's */
-  gboolean  montecarlo_pending;  /* a result with the Monte Carlo follows */
-  gboolean  has_montecarlo;    /* the design has spreads and the Monte Carlo ran */
+  SwDelta   margin_delta;      /* the headroom against the baseline's */
+  gboolean  montecarlo_pending;  /* a later phase runs the Monte Carlo */
+  gboolean  has_montecarlo;    /* the Monte Carlo ran */
   SwMonteCarlo montecarlo;
+  /* Chance that the vehicle as sized carries the whole payload (no reserve):
+   * 1 - montecarlo.p_negative_margin; NAN without a fixed vehicle. */
+  double    montecarlo_success;
   gboolean  has_band;          /* percentiles on the stage-count curve */
   SwMcBand  band;
-  char      montecarlo_error[SW_REASON_MAX];
-  guint     phase;             /* 0 fast, 1 Monte Carlo, 2 ascent: the order of results */
+  char      montecarlo_error[SW_ANALYSIS_TEXT_MAX];
+
+  /*< private >*/
+  SwAnalysisHeld *held_design;
+  SwAnalysisHeld *held_ascent;
 };
 
-/* Solve settings that are not part of the design. */
-typedef struct {
-  double sensitivity_step;     /* relative, 0.001 to 0.5; default 0.05 */
-  guint  band_samples;         /* per stage count of the band; default 2000 */
-  guint  threads;              /* Monte Carlo threads, 0 = all cores */
-} SwSolveOptions;
-
-void      sw_solve_options_init (SwSolveOptions *options);
-
 #define SW_TYPE_ANALYSIS (sw_analysis_get_type ())
-GType     sw_analysis_get_type (void) G_GNUC_CONST;
+GType       sw_analysis_get_type (void) G_GNUC_CONST;
 
-/* Runs on the worker thread: everything the views need for @design.
- * Returns NULL when @cancellable was cancelled part way. */
-SwAnalysis *sw_analysis_compute (const SwDesign *design, guint64 serial, GCancellable *cancellable);
-/* The same with @options (NULL: the defaults). */
-SwAnalysis *sw_analysis_compute_with (const SwDesign *design, guint64 serial,
-                                  const SwSolveOptions *options, GCancellable *cancellable);
-/* Runs on the worker thread after the fast phase when @fast->montecarlo_pending:
- * a new result of the same serial that copies @fast and adds the Monte Carlo
- * and its band.  NULL when cancelled. */
-SwAnalysis *sw_analysis_compute_montecarlo (const SwAnalysis *fast, const SwSolveOptions *options,
-                                        GCancellable *cancellable);
-/* Runs on the worker thread after the fast phase when @fast->ascent_pending:
- * simulates the ascent and returns a new result of the same serial that
- * copies @fast and adds it (for "loss_model": "simulate" with the closed
- * loop's sizing in place of the fast one).  NULL when cancelled. */
-SwAnalysis *sw_analysis_compute_ascent (const SwAnalysis *fast, GCancellable *cancellable);
-SwAnalysis *sw_analysis_ref (SwAnalysis *result);
-void      sw_analysis_unref (SwAnalysis *result);
+/* Phase 1, on any thread.  @options NULL: the defaults.  NULL when
+ * @cancellable was cancelled part way. */
+SwAnalysis *sw_analysis_new (const SwDesign *design, guint64 serial,
+                             const SwAnalysisOptions *options, GCancellable *cancellable);
+/* Phase 2: needs @prev->montecarlo_pending. */
+SwAnalysis *sw_analysis_add_montecarlo (const SwAnalysis *prev, GCancellable *cancellable);
+/* Phase 3: needs @prev->ascent_pending. */
+SwAnalysis *sw_analysis_add_ascent (const SwAnalysis *prev, GCancellable *cancellable);
+/* Every phase @options asks for, in order (serial 0). */
+SwAnalysis *sw_analysis_run (const SwDesign *design, const SwAnalysisOptions *options,
+                             GCancellable *cancellable);
+/* The fast phase with the default options (for tests and previews). */
+SwAnalysis *sw_analysis_compute (const SwDesign *design, guint64 serial,
+                                 GCancellable *cancellable);
 
-/* Switches @design to the manual split, with the shares @result gave its
- * stages (equal shares when @result does not fit @design).  Used when the
- * user takes hold of a share in the equal or optimal split. */
-void      sw_analysis_apply_shares (const SwAnalysis *result, SwDesign *design);
+/* A new analysis equal to @analysis (the heap parts shared). */
+SwAnalysis *sw_analysis_copy (const SwAnalysis *analysis);
+SwAnalysis *sw_analysis_ref (SwAnalysis *analysis);
+void        sw_analysis_unref (SwAnalysis *analysis);
 
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (SwAnalysis, sw_analysis_unref)
 

@@ -229,7 +229,7 @@ sw_ascent_montecarlo_run (const SwDesign *design, guint samples, guint32 seed, g
       nominal->mission.losses_m_s = loop->loop_sized_losses_m_s;
       nominal->mission.has_losses = TRUE;
     }
-  if (!sw_design_size (nominal, &job.sizing, error))
+  if (!sw_size_design (nominal, &job.sizing, error))
     return NULL;
   nres = sw_ascent_solve_sized (nominal, &job.sizing, &job.opt, &job.hints, cancellable, error);
   if (nres == NULL)

@@ -204,4 +204,7 @@ void          sw_flight_fill_result (const SwFlightSim *s, SwOutcome out, SwAsce
 double        sw_flight_sized_delta_v (const SwFlightModel *m, guint seg, const double *y,
                                        gboolean fairing_on);
 
+/* How many times sw_ascent_fly_design() ran in this process (for tests). */
+guint sw_ascent_private_design_runs (void);
+
 G_END_DECLS

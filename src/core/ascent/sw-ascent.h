@@ -266,8 +266,8 @@ SwAscentResult *sw_ascent_close_loop (const SwDesign *design, const SwAscentOpti
 /* What the GUI calls on its solver thread: the closed loop for
  * "loss_model": "simulate", otherwise one ascent with the allowance.
  * Default options, time series recorded. */
-SwAscentResult *sw_design_ascent (const SwDesign *design, GCancellable *cancellable,
-                                  GError **error);
+SwAscentResult *sw_ascent_fly_design (const SwDesign *design, GCancellable *cancellable,
+                                      GError **error);
 
 /* An unpowered point mass from a state, until @duration_s or the ground: for
  * checks of the integrator and the drag model.  @area_m2 0 means no drag;

@@ -78,7 +78,7 @@ pass (Loop *lp, double L)
     }
   lp->work->mission.losses_m_s = L;
   lp->work->mission.has_losses = TRUE;
-  if (!sw_design_size (lp->work, &sizing, lp->error))
+  if (!sw_size_design (lp->work, &sizing, lp->error))
     {
       lp->aborted = TRUE;
       return NAN;
@@ -469,11 +469,21 @@ aborted:
   return NULL;
 }
 
+/* Counted so a test can show that an export flies nothing. */
+static guint design_ascent_runs;
+
+guint
+sw_ascent_private_design_runs (void)
+{
+  return g_atomic_int_get (&design_ascent_runs);
+}
+
 SwAscentResult *
-sw_design_ascent (const SwDesign *design, GCancellable *cancellable, GError **error)
+sw_ascent_fly_design (const SwDesign *design, GCancellable *cancellable, GError **error)
 {
   g_return_val_if_fail (design != NULL, NULL);
 
+  g_atomic_int_inc (&design_ascent_runs);
   if (design->mission.kind == SW_MISSION_ORBIT && design->mission.loss_model == SW_LOSS_SIMULATE)
     return sw_ascent_close_loop (design, NULL, cancellable, error);
   return sw_ascent_solve (design, NULL, cancellable, error);

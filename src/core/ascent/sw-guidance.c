@@ -828,7 +828,7 @@ sw_ascent_solve (const SwDesign *design, const SwAscentOptions *options,
   if (!sw_flight_check_inputs (design,
                                options == NULL || options->steering == SW_STEERING_GUIDED, error))
     return NULL;
-  if (!sw_design_size (design, &sizing, error))
+  if (!sw_size_design (design, &sizing, error))
     return NULL;
   return sw_ascent_solve_sized (design, &sizing, options, NULL, cancellable, error);
 }

@@ -895,7 +895,25 @@ sw_design_save (const SwDesign *design, const char *filename, GError **error)
   return TRUE;
 }
 
-/* ---- derived quantities and edits -------------------------------------- */
+/* ---- derived quantities ------------------------------------------------ */
+
+gboolean
+sw_design_budget (const SwDesign *design, SwBudget *out, GError **error)
+{
+  const SwMission *m;
+
+  g_return_val_if_fail (design != NULL && out != NULL, FALSE);
+
+  m = &design->mission;
+  if (m->kind != SW_MISSION_ORBIT)
+    {
+      g_set_error (error, SW_ERROR, SW_ERROR_USAGE,
+                   _("The design states its delta-v directly; a budget needs an orbit mission."));
+      return FALSE;
+    }
+  return sw_budget_compute (m->altitude_km, m->inclination_deg, m->site_latitude_deg,
+                            m->has_losses ? m->losses_m_s : 0.0, out, error);
+}
 
 gboolean
 sw_design_required_delta_v (const SwDesign *design, double *delta_v_m_s, GError **error)
@@ -913,56 +931,4 @@ sw_design_required_delta_v (const SwDesign *design, double *delta_v_m_s, GError 
     return FALSE;
   *delta_v_m_s = budget.delta_v_m_s;
   return TRUE;
-}
-
-void
-sw_design_set_share_rebalanced (SwDesign *design, guint index, double share)
-{
-  double rest = 0.0;
-  guint n;
-
-  g_return_if_fail (design != NULL && index < design->n_stages);
-
-  n = design->n_stages;
-  share = CLAMP (share, 0.0, 1.0);
-  if (n == 1)
-    share = 1.0;
-  for (guint i = 0; i < n; i++)
-    if (i != index)
-      rest += design->stages[i].has_share ? design->stages[i].delta_v_share : 0.0;
-
-  /* The others keep their proportions among themselves; if they were all
-   * zero they share what is left equally. */
-  for (guint i = 0; i < n; i++)
-    {
-      SwStage *s = &design->stages[i];
-      double old = s->has_share ? s->delta_v_share : 0.0;
-      if (i == index)
-        s->delta_v_share = share;
-      else if (rest > 1e-12)
-        s->delta_v_share = old / rest * (1.0 - share);
-      else
-        s->delta_v_share = (1.0 - share) / (n - 1);
-      s->has_share = TRUE;
-    }
-}
-
-void
-sw_design_move_share (SwDesign *design, guint from, guint to, double amount)
-{
-  SwStage *a, *b;
-  double total;
-
-  g_return_if_fail (design != NULL && from < design->n_stages && to < design->n_stages);
-
-  /* Moving share within one stage changes nothing (the code below would
-   * count the stage twice and break the sum). */
-  if (from == to)
-    return;
-  a = &design->stages[from];
-  b = &design->stages[to];
-  total = a->delta_v_share + b->delta_v_share;
-  amount = CLAMP (amount, -b->delta_v_share, a->delta_v_share);
-  a->delta_v_share -= amount;
-  b->delta_v_share = total - a->delta_v_share;
 }

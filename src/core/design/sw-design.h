@@ -9,13 +9,11 @@
 #include <json-glib/json-glib.h>
 
 #include "sw-propulsion.h"
-#include "sw-reliability.h"
+#include "sw-stage-reliability.h"
 #include "sw-uncertainty.h"
 #include "sw-types.h"
 
 G_BEGIN_DECLS
-
-#define SW_NAME_MAX 128
 
 struct _SwStage {
   char     name[SW_NAME_MAX];
@@ -88,11 +86,11 @@ gboolean  sw_design_save (const SwDesign *design, const char *filename, GError *
  * mission the ideal delta-v from the budget plus the losses. */
 gboolean  sw_design_required_delta_v (const SwDesign *design, double *delta_v_m_s, GError **error);
 
-/* Manual shares: set stage @index to @share and rescale the others so the sum
- * stays 1 (used by the inspector's slider and the stack view's drag). */
-void      sw_design_set_share_rebalanced (SwDesign *design, guint index, double share);
-/* Move @amount of share from stage @from to stage @to, clamped to [0, 1]. */
-void      sw_design_move_share (SwDesign *design, guint from, guint to, double amount);
+/* The delta-v budget of the design's orbit mission (an error for a
+ * delta-v mission). */
+gboolean  sw_design_budget (const SwDesign *design, SwBudget *out, GError **error);
+
+/* The edits the GUI makes are in sw-design-edit.h. */
 
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (SwDesign, sw_design_free)
 

@@ -3,8 +3,6 @@
 
 #include "sw-limits.h"
 
-#include "sw-design.h"
-
 #include <math.h>
 #include <string.h>
 

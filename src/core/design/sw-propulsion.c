@@ -5,7 +5,6 @@
 
 #include "sw-propulsion.h"
 
-#include "sw-atmosphere.h"
 #include "sw-limits.h"
 #include "sw-optional-keys.h"
 
@@ -390,7 +389,7 @@ sw_propulsion_mass_flow (double thrust_vac_n, double isp_vac_s)
 double
 sw_propulsion_isp_at (double isp_vac_s, double isp_sl_s, double p_pa)
 {
-  return MAX (0.0, isp_vac_s - (isp_vac_s - isp_sl_s) * p_pa / SW_ATMOSPHERE_P0);
+  return MAX (0.0, isp_vac_s - (isp_vac_s - isp_sl_s) * p_pa / SW_SEA_LEVEL_PRESSURE_PA);
 }
 
 double

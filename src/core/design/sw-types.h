@@ -12,8 +12,13 @@ G_BEGIN_DECLS
 #define SW_WGS84_MU 3.986004418e14      /* m^3/s^2, atmosphere included */
 #define SW_WGS84_A 6378137.0            /* m, equatorial radius */
 #define SW_WGS84_OMEGA 7.292115e-5      /* rad/s, rotation rate */
+/* Sea-level pressure of the 1976 U.S. Standard Atmosphere, Pa (the same
+ * value as SW_ATMOSPHERE_P0; the design folder may not include ascent/). */
+#define SW_SEA_LEVEL_PRESSURE_PA 101325.0
 
 #define SW_MAX_STAGES 8
+/* Bytes of a design or stage name, the terminating NUL included. */
+#define SW_NAME_MAX 128
 #define SW_SWEEP_CURVES 5
 #define SW_SWEEP_POINTS 200
 

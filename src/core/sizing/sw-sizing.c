@@ -324,8 +324,24 @@ sw_size (const SwStageSet *set, double payload_kg, double delta_v_m_s,
   size_with_names (set, NULL, payload_kg, delta_v_m_s, split, out);
 }
 
+guint
+sw_sizing_get_shares (const SwSizing *sizing, double *shares)
+{
+  g_return_val_if_fail (sizing != NULL && shares != NULL, 0);
+
+  if (!(sizing->delta_v_m_s > 0.0) || sizing->n_stages == 0 || sizing->n_stages > SW_MAX_STAGES)
+    return 0;
+  for (guint i = 0; i < sizing->n_stages; i++)
+    {
+      shares[i] = sizing->stages[i].delta_v_share;
+      if (!isfinite (shares[i]) || shares[i] < 0.0)
+        return 0;
+    }
+  return sizing->n_stages;
+}
+
 gboolean
-sw_design_size (const SwDesign *design, SwSizing *out, GError **error)
+sw_size_design (const SwDesign *design, SwSizing *out, GError **error)
 {
   SwStageSet set;
   double dv;

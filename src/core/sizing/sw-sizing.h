@@ -61,7 +61,13 @@ void     sw_size (const SwStageSet *set, double payload_kg, double delta_v_m_s,
                   SwSplitMode split, SwSizing *out);
 
 /* The design's own sizing (required delta-v from its mission). */
-gboolean sw_design_size (const SwDesign *design, SwSizing *out, GError **error);
+gboolean sw_size_design (const SwDesign *design, SwSizing *out, GError **error);
+
+/* The delta-v share of each stage in @sizing, into @shares (SW_MAX_STAGES
+ * values): the split on screen, for sw_design_take_manual_shares ().
+ * Returns the stage count, or 0 when the sizing has no usable split (no
+ * delta-v, a share not finite or negative). */
+guint    sw_sizing_get_shares (const SwSizing *sizing, double *shares);
 
 /* Optimal split only: the delta-v of each stage and the multiplier. */
 gboolean sw_optimal_split (const SwStageSet *set, double delta_v_m_s,

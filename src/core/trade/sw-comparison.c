@@ -67,20 +67,20 @@ sw_comparison_from_sizings (const SwSizing *current, const SwSizing *baseline, S
 }
 
 gboolean
-sw_design_compare (const SwDesign *design, SwComparison *out, GError **error)
+sw_comparison_from_design (const SwDesign *design, SwComparison *out, GError **error)
 {
   SwSizing current, baseline;
 
   g_return_val_if_fail (design != NULL && out != NULL, FALSE);
 
-  if (!sw_design_size (design, &current, error))
+  if (!sw_size_design (design, &current, error))
     return FALSE;
   if (design->baseline == NULL)
     {
       sw_comparison_from_sizings (&current, NULL, out);
       return TRUE;
     }
-  if (!sw_design_size (design->baseline, &baseline, error))
+  if (!sw_size_design (design->baseline, &baseline, error))
     return FALSE;
   sw_comparison_from_sizings (&current, &baseline, out);
   return TRUE;

@@ -41,7 +41,7 @@ double      sw_sizing_total (const SwSizing *sizing, SwTotal total);
 void        sw_comparison_from_sizings (const SwSizing *current, const SwSizing *baseline,
                                         SwComparison *out);
 /* Sizes @design and its baseline; has_baseline is FALSE when there is none. */
-gboolean    sw_design_compare (const SwDesign *design, SwComparison *out, GError **error);
+gboolean    sw_comparison_from_design (const SwDesign *design, SwComparison *out, GError **error);
 const char *sw_total_label (SwTotal total);   /* translated, for tables */
 const char *sw_total_key (SwTotal total);     /* JSON key, e.g. "liftoff_mass_kg" */
 

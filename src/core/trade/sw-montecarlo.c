@@ -238,7 +238,7 @@ prepare (const SwDesign *design, const SwUncertainty *spreads, McJob *job, SwSiz
          GError **error)
 {
   memset (job, 0, sizeof *job);
-  if (!sw_design_size (design, sizing, error))
+  if (!sw_size_design (design, sizing, error))
     return FALSE;
   sw_stage_set_from_design (&job->set, design);
   job->split = design->split;

@@ -13,34 +13,11 @@
  * has no reliability figure (SwReliability.given is FALSE). */
 #pragma once
 
-#include <json-glib/json-glib.h>
-
+#include "sw-design.h"
+#include "sw-stage-reliability.h"
 #include "sw-types.h"
 
 G_BEGIN_DECLS
-
-typedef struct {
-  gboolean present;                  /* any reliability key was given */
-  gboolean has_engine_count;
-  gboolean has_engine_reliability;
-  gboolean has_failures_tolerated;
-  gboolean has_ignition_reliability;
-  gboolean has_separation_reliability;
-  guint    engine_count;
-  double   engine_reliability;       /* probability that one engine runs its burn */
-  guint    failures_tolerated;       /* engine failures the stage survives (< engine_count) */
-  double   ignition_reliability;     /* probability that the stage's start sequence succeeds */
-  double   separation_reliability;   /* the staging event above this stage */
-} SwStageReliability;
-
-/* The values in force for one stage, defaults filled in. */
-typedef struct {
-  guint  engine_count;
-  double engine_reliability;
-  guint  failures_tolerated;
-  double ignition_reliability;
-  double separation_reliability;
-} SwReliabilityInputs;
 
 typedef struct {
   gboolean given;                    /* some stage has reliability keys */
@@ -57,17 +34,6 @@ typedef struct {
   double   mission[SW_MAX_STAGES];   /* success probability of the N-stage vehicle */
 } SwReliabilityCurve;
 
-extern const char *const sw_reliability_stage_keys[];
-
-gboolean sw_reliability_load_stage (JsonObject *obj, const char *file, const char *path,
-                                    SwStageReliability *rel, GPtrArray *warnings, GError **error);
-void     sw_reliability_save_stage (JsonBuilder *builder, const SwStageReliability *rel);
-/* Range checks of a stage's keys in memory; @path is the stage's JSON path. */
-gboolean sw_reliability_validate_stage (const SwStageReliability *rel, const char *file,
-                                        const char *path, GError **error);
-
-void     sw_reliability_inputs (const SwStageReliability *rel, SwReliabilityInputs *out);
-
 /* P(at most @tolerated of @n engines fail), each engine failing independently
  * with probability 1 - @r: the binomial distribution function (GSL). */
 double   sw_reliability_engines (guint n, double r, guint tolerated);
@@ -75,7 +41,7 @@ double   sw_reliability_engines (guint n, double r, guint tolerated);
 double   sw_reliability_stage (const SwReliabilityInputs *in);
 
 /* The design's own vehicle. */
-void     sw_design_reliability (const SwDesign *design, SwReliability *out);
+void     sw_reliability_from_design (const SwDesign *design, SwReliability *out);
 /* Success probability against stage count N = 1..@max_stages, stage k of the
  * N-stage vehicle taking the keys of design stage min(k, n) (the rule of the
  * stage-count curve). */

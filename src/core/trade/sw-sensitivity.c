@@ -137,7 +137,7 @@ sw_sensitivity_compute (const SwDesign *design, double step, SwSensitivityTable 
                    step * 100.0);
       return FALSE;
     }
-  if (!sw_design_size (design, &sizing, error))
+  if (!sw_size_design (design, &sizing, error))
     return FALSE;
   out->step = step;
   out->feasible = sizing.feasible;

@@ -1,8 +1,9 @@
 /* SPDX-License-Identifier: GPL-3.0-or-later */
-/* sw-budget.h: the delta-v budget of a circular orbit from a launch site. */
+/* sw-budget.h: the delta-v budget of a circular orbit from a launch site.
+ * Depends on nothing but the mission's numbers; the design's own budget is
+ * sw_design_budget () in sw-design.h. */
 #pragma once
 
-#include "sw-design.h"
 #include "sw-types.h"
 
 G_BEGIN_DECLS
@@ -22,6 +23,5 @@ double   sw_site_speed (double latitude_deg);
 gboolean sw_launch_azimuth (double inclination_deg, double latitude_deg, double *azimuth_deg);
 gboolean sw_budget_compute (double altitude_km, double inclination_deg, double latitude_deg,
                             double losses_m_s, SwBudget *out, GError **error);
-gboolean sw_design_budget (const SwDesign *design, SwBudget *out, GError **error);
 
 G_END_DECLS

@@ -5,8 +5,6 @@
 
 #include "sw-budget.h"
 
-#include "sw-limits.h"
-
 #include <glib/gi18n-lib.h>
 #include <math.h>
 
@@ -73,22 +71,4 @@ sw_budget_compute (double altitude_km, double inclination_deg, double latitude_d
   out->losses_m_s = losses_m_s;
   out->delta_v_m_s = out->ideal_delta_v_m_s + losses_m_s;
   return TRUE;
-}
-
-gboolean
-sw_design_budget (const SwDesign *design, SwBudget *out, GError **error)
-{
-  const SwMission *m;
-
-  g_return_val_if_fail (design != NULL && out != NULL, FALSE);
-
-  m = &design->mission;
-  if (m->kind != SW_MISSION_ORBIT)
-    {
-      g_set_error (error, SW_ERROR, SW_ERROR_USAGE,
-                   _("The design states its delta-v directly; a budget needs an orbit mission."));
-      return FALSE;
-    }
-  return sw_budget_compute (m->altitude_km, m->inclination_deg, m->site_latitude_deg,
-                            m->has_losses ? m->losses_m_s : 0.0, out, error);
 }

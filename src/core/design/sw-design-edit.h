@@ -1,0 +1,127 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* sw-design-edit.h: every edit the GUI makes to a design, as a named
+ * operation on SwDesign.  The window and the inspector copy the document's
+ * design, call one of these, and commit the copy; nothing else writes into a
+ * design.
+ *
+ * Shares.  Under the manual split the stages' delta_v_share values add up to
+ * 1; every operation here keeps that sum (to rounding, 1e-12) and keeps each
+ * share in [0, 1].  Under the equal and optimal splits the stored shares are
+ * not used; the operations that change the stage list leave them alone.
+ *
+ * Refusals.  An operation that cannot be done (a ninth stage, removing the
+ * last stage, an index out of range) returns FALSE and leaves the design as
+ * it was.  Moving more share than a stage has is clamped, not refused: the
+ * giver ends at 0 (a border dragged past its neighbour stops there). */
+#pragma once
+
+#include "sw-design.h"
+#include "sw-types.h"
+
+G_BEGIN_DECLS
+
+/* ---- shares ------------------------------------------------------------ */
+
+/* Switches @design to the manual split with @shares (@n_shares values, one
+ * per stage, from the split on screen), scaled to add up to 1.  Used when
+ * the user takes hold of a share in the equal or optimal split.  When the
+ * shares do not fit (count differs from the stage count, a value negative or
+ * not finite, a sum not above 0) every stage gets 1/n instead and FALSE is
+ * returned; the design is in the manual split either way. */
+gboolean sw_design_take_manual_shares (SwDesign *design, const double *shares, guint n_shares);
+
+/* Manual shares: set stage @index to @share (clamped to [0, 1]; a single
+ * stage always has 1) and scale the others so the sum stays 1; they keep
+ * their proportions, or share the rest equally when they were all 0.
+ * FALSE for an index out of range. */
+gboolean sw_design_set_share_rebalanced (SwDesign *design, guint index, double share);
+
+/* Move @amount of share from stage @from to stage @to (negative: the other
+ * way), clamped so that neither goes below 0: at most the giver's share.
+ * The other stages do not change.  FALSE for an index out of range; moving
+ * within one stage changes nothing and returns TRUE. */
+gboolean sw_design_move_share (SwDesign *design, guint from, guint to, double amount);
+
+/* Changes the split mode.  Into the manual split from another, the stages
+ * take @shares (see sw_design_take_manual_shares; may be NULL, then equal
+ * shares).  FALSE when the design already had @mode. */
+gboolean sw_design_set_split (SwDesign *design, SwSplitMode mode, const double *shares,
+                              guint n_shares);
+
+/* ---- the stage list ---------------------------------------------------- */
+
+/* Appends a stage with plausible defaults (sw_stage_init_default).  In the
+ * manual split it gets 1/(n+1) of the delta-v and the others are scaled by
+ * n/(n+1).  FALSE at SW_MAX_STAGES stages. */
+gboolean sw_design_add_stage (SwDesign *design);
+
+/* Inserts a copy of stage @index right after it, named "NAME (copy)"; in the
+ * manual split the two halves share the original's share.  FALSE at
+ * SW_MAX_STAGES stages or for an index out of range. */
+gboolean sw_design_duplicate_stage (SwDesign *design, guint index);
+
+/* Removes stage @index; in the manual split the other shares are scaled up
+ * to add up to 1 again (equal shares if they were all 0).  FALSE for the last
+ * remaining stage or an index out of range. */
+gboolean sw_design_remove_stage (SwDesign *design, guint index);
+
+/* Moves stage @from to position @to, the stages between shifting by one;
+ * each stage keeps all its values, its share included.  FALSE for an index
+ * out of range; @from == @to changes nothing and returns TRUE. */
+gboolean sw_design_move_stage (SwDesign *design, guint from, guint to);
+
+/* ---- fields ------------------------------------------------------------ */
+
+/* Names are cut to whole UTF-8 characters that fit the buffer (127 bytes);
+ * text that is not UTF-8 is refused (FALSE, name unchanged). */
+gboolean sw_design_set_name (SwDesign *design, const char *name);
+gboolean sw_design_set_stage_name (SwDesign *design, guint index, const char *name);
+
+void     sw_design_set_payload (SwDesign *design, double payload_kg);
+void     sw_design_set_mission_delta_v (SwDesign *design, double delta_v_m_s);
+void     sw_design_set_altitude (SwDesign *design, double altitude_km);
+void     sw_design_set_inclination (SwDesign *design, double inclination_deg);
+void     sw_design_set_site_latitude (SwDesign *design, double latitude_deg);
+/* Sets the losses allowance and marks it given. */
+void     sw_design_set_losses (SwDesign *design, double losses_m_s);
+
+/* Switches between a delta-v mission and an orbit mission.  A field the new
+ * kind needs that holds no accepted value gets a starting value: the delta-v
+ * @current_delta_v_m_s (rounded to 1 m/s; 9400 m/s when it is not finite or
+ * out of range), or an orbit of 400 km at 30 deg from latitude 28 deg with
+ * 1500 m/s of losses (common practice for a first look).  FALSE when the
+ * mission already had @kind. */
+gboolean sw_design_set_mission_kind (SwDesign *design, SwMissionKind kind,
+                                     double current_delta_v_m_s);
+
+/* The vacuum Isp; a sea-level Isp above it follows it down. */
+gboolean sw_design_set_stage_isp_vac (SwDesign *design, guint index, double isp_vac_s);
+/* Gives or takes away the stage's sea-level Isp; given without an accepted
+ * value (in (0, vacuum]) it starts at 0.9 of the vacuum Isp, rounded. */
+gboolean sw_design_set_stage_has_isp_sl (SwDesign *design, guint index, gboolean has_isp_sl);
+/* The sea-level Isp, at most the vacuum Isp. */
+gboolean sw_design_set_stage_isp_sl (SwDesign *design, guint index, double isp_sl_s);
+/* The structural coefficient, clamped to the limits table's range. */
+gboolean sw_design_set_stage_structural_coefficient (SwDesign *design, guint index, double eps);
+
+/* ---- the Monte Carlo inputs (the "uncertainty" object) ----------------- */
+
+/* Each marks the object given (it is saved from then on).  The sample count
+ * and the seed are taken as they are: the loader's checks of their ranges
+ * (sw_design_validate) stay in force. */
+void     sw_design_set_mc_samples (SwDesign *design, guint samples);
+void     sw_design_set_mc_seed (SwDesign *design, guint32 seed);
+/* The three spreads at once (NULL leaves one as it is); a spread of kind
+ * SW_SPREAD_NONE is stored with width 0. */
+void     sw_design_set_spreads (SwDesign *design, const SwSpread *isp,
+                                const SwSpread *structural_coefficient,
+                                const SwSpread *losses);
+
+/* ---- the baseline ------------------------------------------------------ */
+
+/* The design as it is now becomes its own baseline (replacing any). */
+void     sw_design_pin_baseline (SwDesign *design);
+/* FALSE when there was no baseline. */
+gboolean sw_design_clear_baseline (SwDesign *design);
+
+G_END_DECLS

@@ -1,0 +1,445 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+#define G_LOG_DOMAIN "sw-stack-drawing"
+
+#include "config.h"
+
+#include "sw-stack-drawing.h"
+
+#include "sw-format.h"
+#include "sw-sheet-private.h"
+
+#include <glib/gi18n-lib.h>
+#include <math.h>
+#include <pango/pangocairo.h>
+#include <string.h>
+
+static gboolean
+stage_used (const SwStackMasses *m, guint i)
+{
+  return isfinite (m->stage_kg[i]) && m->stage_kg[i] > 0.0;
+}
+
+gboolean
+sw_stack_masses_from_sizing (const SwSizing *s, SwStackMasses *m)
+{
+  g_return_val_if_fail (m != NULL, FALSE);
+
+  memset (m, 0, sizeof *m);
+  if (s == NULL || !s->feasible)
+    return FALSE;
+  m->n_stages = MIN (s->n_stages, SW_MAX_STAGES);
+  for (guint i = 0; i < m->n_stages; i++)
+    {
+      m->stage_kg[i] = s->stages[i].unused ? 0.0 : s->stages[i].stage_mass_kg;
+      m->structure_kg[i] = s->stages[i].structural_mass_kg;
+    }
+  m->payload_kg = s->payload_kg;
+  return TRUE;
+}
+
+double
+sw_stack_area_per_kg (const SwStackScale *s)
+{
+  return s->a * s->b;
+}
+
+/* Sums of the shape rule's powers: the widest m^(1/3), the total of m^(2/3)
+ * (the cone counts twice), the number of parts and of unused stages. */
+static void
+stack_sums (const SwStackMasses *m, double *max_cbrt, double *sum_23, guint *n_parts,
+            guint *n_unused)
+{
+  *max_cbrt = cbrt (MAX (m->payload_kg, 0.0));
+  *sum_23 = 2.0 * pow (MAX (m->payload_kg, 0.0), 2.0 / 3.0);
+  *n_parts = 1;
+  *n_unused = 0;
+  for (guint i = 0; i < m->n_stages; i++)
+    {
+      (*n_parts)++;
+      if (!stage_used (m, i))
+        {
+          (*n_unused)++;
+          continue;
+        }
+      *max_cbrt = MAX (*max_cbrt, cbrt (m->stage_kg[i]));
+      *sum_23 += pow (m->stage_kg[i], 2.0 / 3.0);
+    }
+}
+
+double
+sw_stack_width (const SwStackMasses *m, const SwStackScale *s)
+{
+  double max_cbrt, sum_23;
+  guint n, n_unused;
+
+  stack_sums (m, &max_cbrt, &sum_23, &n, &n_unused);
+  return s->a * max_cbrt;
+}
+
+double
+sw_stack_height (const SwStackMasses *m, const SwStackScale *s, double gap,
+                 double unused_height)
+{
+  double max_cbrt, sum_23;
+  guint n, n_unused;
+
+  stack_sums (m, &max_cbrt, &sum_23, &n, &n_unused);
+  if (unused_height <= 0.0)
+    n -= n_unused;
+  return s->b * sum_23 + unused_height * n_unused + gap * (n > 0 ? n - 1 : 0);
+}
+
+gboolean
+sw_stack_fit (const SwStackMasses *const *stacks, guint n_stacks, double width, double height,
+              double gap, double unused_height, double side_gap, double min_aspect,
+              double max_aspect, SwStackScale *scale)
+{
+  double sum_cbrt = 0.0, max_23 = 0.0, heaviest = 0.0, room_h = INFINITY;
+  double room_w = width - side_gap * (n_stacks > 0 ? n_stacks - 1 : 0);
+  double r, aspect;
+
+  g_return_val_if_fail (scale != NULL, FALSE);
+
+  scale->a = scale->b = 0.0;
+  for (guint j = 0; j < n_stacks; j++)
+    {
+      double max_cbrt, sum_23, fixed;
+      guint n, n_unused;
+      stack_sums (stacks[j], &max_cbrt, &sum_23, &n, &n_unused);
+      if (unused_height <= 0.0)
+        n -= n_unused;
+      fixed = unused_height * n_unused + gap * (n > 0 ? n - 1 : 0);
+      sum_cbrt += max_cbrt;
+      /* Each stack's height: b sum_23 + fixed <= height. */
+      if (sum_23 > 0.0)
+        {
+          if (!(height - fixed > 0.0))
+            return FALSE;
+          if ((height - fixed) / sum_23 < room_h)
+            {
+              room_h = (height - fixed) / sum_23;
+              max_23 = sum_23;
+            }
+        }
+      heaviest = MAX (heaviest, max_cbrt);
+    }
+  if (!(sum_cbrt > 0.0) || !isfinite (room_h) || !(room_w > 0.0) || !(max_23 > 0.0))
+    return FALSE;
+
+  /* With b = r a: the heights need a <= room_h / r, the widths
+   * a <= room_w / sum_cbrt; both bind at r = room_h / (room_w / sum_cbrt).
+   * The heaviest part's height/width is r m^(1/3). */
+  r = room_h / (room_w / sum_cbrt);
+  aspect = CLAMP (r * heaviest, min_aspect, max_aspect);
+  r = aspect / heaviest;
+  scale->a = MIN (room_h / r, room_w / sum_cbrt);
+  scale->b = r * scale->a;
+  return isfinite (scale->a) && scale->a > 0.0 && isfinite (scale->b) && scale->b > 0.0;
+}
+
+void
+sw_stack_place (const SwStackMasses *m, const SwStackScale *s, double cx, double bottom,
+                double gap, double unused_height, SwStackGeometry *g)
+{
+  double y = bottom, below_w = 0.0;
+
+  g_return_if_fail (m != NULL && s != NULL && g != NULL);
+
+  memset (g, 0, sizeof *g);
+  for (guint i = 0; i <= m->n_stages && i < SW_STACK_MAX_PARTS; i++)
+    {
+      gboolean payload = i == m->n_stages;
+      guint k = g->n;
+      double mass = payload ? m->payload_kg : m->stage_kg[i];
+      double w, h;
+
+      if (!payload && !stage_used (m, i))
+        {
+          if (unused_height <= 0.0)
+            continue;
+          g->kind[k] = SW_STACK_PART_UNUSED;
+          w = MAX (below_w * 0.8, 24.0);
+          h = unused_height;
+          mass = 0.0;
+        }
+      else
+        {
+          g->kind[k] = payload ? SW_STACK_PART_PAYLOAD : SW_STACK_PART_STAGE;
+          w = s->a * cbrt (MAX (mass, 0.0));
+          h = (payload ? 2.0 : 1.0) * s->b * pow (MAX (mass, 0.0), 2.0 / 3.0);
+          below_w = w;
+        }
+      if (k > 0)
+        y -= gap;
+      y -= h;
+      g->stage[k] = payload ? -1 : (int) i;
+      g->mass_kg[k] = mass;
+      g->box[k] = (SwStackBox) { cx - w / 2.0, y, w, h };
+      if (g->kind[k] == SW_STACK_PART_STAGE)
+        {
+          double f = m->stage_kg[i] > 0.0 ? CLAMP (m->structure_kg[i] / m->stage_kg[i], 0.0, 1.0)
+                                          : 0.0;
+          g->structure[k] = (SwStackBox) { cx - w / 2.0, y + h * (1.0 - f), w, h * f };
+        }
+      g->width = MAX (g->width, w);
+      g->n++;
+    }
+  g->top = y;
+}
+
+static void
+source (cairo_t *cr, const double rgba[4])
+{
+  cairo_set_source_rgba (cr, rgba[0], rgba[1], rgba[2], rgba[3]);
+}
+
+static void
+part_path (cairo_t *cr, const SwStackGeometry *g, guint i)
+{
+  const SwStackBox *b = &g->box[i];
+
+  if (g->kind[i] == SW_STACK_PART_PAYLOAD)
+    {
+      cairo_move_to (cr, b->x, b->y + b->height);
+      cairo_line_to (cr, b->x + b->width, b->y + b->height);
+      cairo_line_to (cr, b->x + b->width / 2.0, b->y);
+      cairo_close_path (cr);
+    }
+  else
+    cairo_rectangle (cr, b->x, b->y, b->width, b->height);
+}
+
+void
+sw_stack_draw_part (cairo_t *cr, const SwStackGeometry *g, guint i, const SwStackStyle *st,
+                    gboolean outline_only)
+{
+  static const double dash[] = { 4.0, 3.0 };
+  const SwStackBox *b;
+
+  g_return_if_fail (cr != NULL && g != NULL && st != NULL && i < g->n);
+
+  b = &g->box[i];
+  cairo_save (cr);
+  cairo_new_path (cr);
+  if (outline_only || g->kind[i] == SW_STACK_PART_UNUSED)
+    {
+      double lw = MAX (st->line_width, 0.5);
+      cairo_set_dash (cr, dash, G_N_ELEMENTS (dash), 0.0);
+      cairo_set_line_width (cr, lw);
+      if (g->kind[i] == SW_STACK_PART_PAYLOAD)
+        source (cr, st->payload);
+      else
+        source (cr, st->outline[3] > 0.0 ? st->outline : st->structure);
+      part_path (cr, g, i);
+      cairo_stroke (cr);
+      cairo_restore (cr);
+      return;
+    }
+  switch (g->kind[i])
+    {
+    case SW_STACK_PART_STAGE:
+      source (cr, st->propellant);
+      cairo_rectangle (cr, b->x, b->y, b->width, b->height - g->structure[i].height);
+      cairo_fill (cr);
+      source (cr, st->structure);
+      cairo_rectangle (cr, g->structure[i].x, g->structure[i].y, g->structure[i].width,
+                       g->structure[i].height);
+      cairo_fill (cr);
+      break;
+    case SW_STACK_PART_PAYLOAD:
+    default:
+      source (cr, st->payload);
+      part_path (cr, g, i);
+      cairo_fill (cr);
+      break;
+    }
+  if (st->outline[3] > 0.0 && st->line_width > 0.0)
+    {
+      source (cr, st->outline);
+      cairo_set_line_width (cr, st->line_width);
+      part_path (cr, g, i);
+      cairo_stroke (cr);
+    }
+  cairo_restore (cr);
+}
+
+void
+sw_stack_draw (cairo_t *cr, const SwStackGeometry *g, const SwStackStyle *st,
+               gboolean outline_only)
+{
+  for (guint i = 0; i < g->n; i++)
+    sw_stack_draw_part (cr, g, i, st, outline_only);
+}
+
+/* ---- the sheet's panel ---------------------------------------------------- */
+
+#define HEX(c, a) { (((c) >> 16) & 0xff) / 255.0, (((c) >> 8) & 0xff) / 255.0, \
+                    ((c) & 0xff) / 255.0, (a) }
+
+/* The sheet's colours (its palette in sw-sheet.c). */
+static const double ink[4] = HEX (0x1b2530, 1.0);
+static const double muted[4] = HEX (0x5a6672, 1.0);
+static const double rule_color[4] = HEX (0xc5cdd5, 1.0);
+static const double baseline_color[4] = HEX (0x8a96a3, 1.0);
+static const double panel_color[4] = HEX (0xf4f6f8, 1.0);
+
+static const SwStackStyle paper_style = {
+  HEX (0xb9d0e3, 1.0), HEX (0x5d7f99, 1.0), HEX (0xd79b2b, 1.0), HEX (0x1b2530, 1.0), 0.7,
+};
+static const SwStackStyle paper_baseline_style = {
+  HEX (0x8a96a3, 1.0), HEX (0x8a96a3, 1.0), HEX (0x8a96a3, 1.0), HEX (0x8a96a3, 1.0), 0.9,
+};
+
+static PangoLayout *
+panel_text (cairo_t *cr, const char *text, double size, gboolean bold, double width,
+            PangoAlignment align)
+{
+  PangoLayout *layout = pango_cairo_create_layout (cr);
+  PangoFontDescription *fd = pango_font_description_from_string ("DejaVu Sans, Sans");
+  cairo_font_options_t *fo = cairo_font_options_create ();
+
+  /* The same metrics on every surface, as in the rest of the sheet. */
+  cairo_font_options_set_hint_metrics (fo, CAIRO_HINT_METRICS_OFF);
+  cairo_font_options_set_hint_style (fo, CAIRO_HINT_STYLE_NONE);
+  pango_cairo_context_set_font_options (pango_layout_get_context (layout), fo);
+  pango_layout_context_changed (layout);
+  cairo_font_options_destroy (fo);
+  pango_font_description_set_absolute_size (fd, size * PANGO_SCALE);
+  pango_font_description_set_weight (fd, bold ? PANGO_WEIGHT_BOLD : PANGO_WEIGHT_NORMAL);
+  pango_layout_set_font_description (layout, fd);
+  pango_font_description_free (fd);
+  if (width > 0.0)
+    {
+      pango_layout_set_width (layout, (int) (width * PANGO_SCALE));
+      pango_layout_set_ellipsize (layout, PANGO_ELLIPSIZE_END);
+      pango_layout_set_alignment (layout, align);
+    }
+  pango_layout_set_text (layout, text, -1);
+  return layout;
+}
+
+/* Draws @text with its vertical centre at @cy (or its top at @cy when
+ * !@centred). */
+static void
+panel_show (cairo_t *cr, const char *text, double x, double cy, gboolean centred, double size,
+            gboolean bold, const double color[4], double width, PangoAlignment align)
+{
+  PangoLayout *layout = panel_text (cr, text, size, bold, width, align);
+  int h;
+
+  pango_layout_get_size (layout, NULL, &h);
+  source (cr, color);
+  /* Through the sheet's text path: an SVG keeps it as text. */
+  sw_sheet_show_layout (cr, layout, x, centred ? cy - (double) h / PANGO_SCALE / 2.0 : cy);
+  g_object_unref (layout);
+}
+
+void
+sw_stack_draw_panel (cairo_t *cr, const SwDesign *design, const SwSizing *sizing,
+                     const SwSizing *baseline, double x, double y, double w, double h)
+{
+  SwStackMasses cur, base;
+  const SwStackMasses *both[2] = { &cur, &base };
+  SwStackGeometry g, bg;
+  SwStackScale scale;
+  gboolean has_base;
+  double label_w = MIN (120.0, w * 0.55), stack_w = w - label_w, bottom = y + h - 14.0;
+  double cx, label_y[SW_STACK_MAX_PARTS];
+
+  g_return_if_fail (cr != NULL && design != NULL);
+
+  if (!sw_stack_masses_from_sizing (sizing, &cur))
+    {
+      source (cr, panel_color);
+      cairo_rectangle (cr, x, y, w, h);
+      cairo_fill (cr);
+      panel_show (cr, _("No stack: the design is infeasible."), x + 8.0, y + h / 2.0, TRUE,
+                  7.5, FALSE, muted, w - 16.0, PANGO_ALIGN_LEFT);
+      return;
+    }
+  has_base = sw_stack_masses_from_sizing (baseline, &base);
+
+  /* The first stage stands about three times as tall as it is wide. */
+  if (!sw_stack_fit (both, has_base ? 2 : 1, has_base ? stack_w * 0.9 : stack_w * 0.6,
+                     bottom - y - 16.0, 0.0, 0.0, stack_w * 0.1, 3.2, 3.2, &scale))
+    return;
+
+  cx = x + (has_base ? stack_w * 0.70 : stack_w * 0.5);
+  sw_stack_place (&cur, &scale, cx, bottom, 0.0, 0.0, &g);
+  sw_stack_draw (cr, &g, &paper_style, FALSE);
+  if (has_base)
+    {
+      double bcx = x + stack_w * 0.26;
+      sw_stack_place (&base, &scale, bcx, bottom, 0.0, 0.0, &bg);
+      sw_stack_draw (cr, &bg, &paper_baseline_style, TRUE);
+      panel_show (cr, _("baseline"), bcx - stack_w * 0.225, bottom + 3.0, FALSE, 6.5, FALSE,
+                  baseline_color, stack_w * 0.45, PANGO_ALIGN_CENTER);
+    }
+  panel_show (cr, has_base ? _("current") : _("area \342\210\235 mass"), cx - stack_w * 0.3,
+              bottom + 3.0, FALSE, 6.5, FALSE, muted, stack_w * 0.6, PANGO_ALIGN_CENTER);
+  source (cr, rule_color);
+  cairo_set_line_width (cr, 0.6);
+  cairo_move_to (cr, x + 4, bottom);
+  cairo_line_to (cr, x + stack_w - 4, bottom);
+  cairo_stroke (cr);
+
+  /* Labels to the right, one per stage of the design (unused ones too),
+   * pushed apart so they never overlap, with leaders. */
+  {
+    double ly[SW_STACK_MAX_PARTS], min_gap = 20.0, lx = x + stack_w + 6.0, prev = INFINITY;
+    guint n = cur.n_stages, k = 0;
+
+    for (guint i = 0; i <= n; i++)
+      {
+        label_y[i] = NAN;
+        if (i == n || stage_used (&cur, i))
+          {
+            /* The payload's label sits level with the cone's base region. */
+            label_y[i] = i == n ? g.box[k].y + g.box[k].height * 0.6
+                                : g.box[k].y + g.box[k].height / 2.0;
+            k++;
+          }
+        ly[i] = MIN (isfinite (label_y[i]) ? label_y[i] : prev - min_gap, prev - min_gap);
+        prev = ly[i];
+      }
+    /* A column that runs off the top moves down as a whole. */
+    if (ly[n] - 8.0 < y)
+      {
+        double shift = y - (ly[n] - 8.0);
+        for (guint i = 0; i <= n; i++)
+          ly[i] += shift;
+      }
+    for (guint i = 0; i <= n; i++)
+      {
+        g_autofree char *mass = NULL, *title = NULL;
+
+        if (i < n && !isfinite (label_y[i]))
+          {
+            title = g_strdup_printf ("%u %s", i + 1, design->stages[i].name);
+            mass = g_strdup (_("unused: no propellant"));
+          }
+        else if (i < n)
+          {
+            title = g_strdup_printf ("%u %s", i + 1, design->stages[i].name);
+            mass = sw_format_mass (cur.stage_kg[i]);
+          }
+        else
+          {
+            title = g_strdup (_("Payload"));
+            mass = sw_format_mass (cur.payload_kg);
+          }
+        if (isfinite (label_y[i]))
+          {
+            source (cr, rule_color);
+            cairo_set_line_width (cr, 0.5);
+            cairo_move_to (cr, cx + g.width / 2.0 + 2.0, label_y[i]);
+            cairo_line_to (cr, lx - 3.0, ly[i]);
+            cairo_stroke (cr);
+          }
+        panel_show (cr, title, lx, ly[i] - 4.0, TRUE, 7.5, TRUE, ink, label_w - 8.0,
+                    PANGO_ALIGN_LEFT);
+        panel_show (cr, mass, lx, ly[i] + 4.5, TRUE, 7.0, FALSE, muted, label_w - 8.0,
+                    PANGO_ALIGN_LEFT);
+      }
+  }
+}

@@ -1,0 +1,185 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* Tests of the one analysis: the verdict's states and precedence, the copy
+ * that shares the heap parts, cancellation. */
+#include "config.h"
+
+#include "sw-analysis.h"
+#include "sw-ascent-private.h"
+
+#include <math.h>
+#include <string.h>
+
+static SwDesign *
+demo (const char *basename)
+{
+  const char *root = g_getenv ("SW_SOURCE_ROOT");
+  g_autofree char *path = NULL;
+  g_autoptr (GError) error = NULL;
+  SwDesign *d;
+
+  g_assert_nonnull (root);
+  path = g_build_filename (root, "data", "designs", basename, NULL);
+  d = sw_design_load (path, NULL, &error);
+  g_assert_no_error (error);
+  return d;
+}
+
+static void
+assert_verdict (const SwAnalysis *a, const char *state, const char *word)
+{
+  g_assert_cmpstr (sw_verdict_state_to_string (a->verdict.state), ==, state);
+  if (word != NULL && strstr (a->verdict.reason, word) == NULL)
+    g_error ("verdict %s: \"%s\" not in \"%s\"", state, word, a->verdict.reason);
+}
+
+/* The five strings scripts depend on. */
+static void
+test_state_strings (void)
+{
+  g_assert_cmpstr (sw_verdict_state_to_string (SW_VERDICT_INFEASIBLE), ==, "infeasible");
+  g_assert_cmpstr (sw_verdict_state_to_string (SW_VERDICT_SHORT_OF_ORBIT), ==, "short-of-orbit");
+  g_assert_cmpstr (sw_verdict_state_to_string (SW_VERDICT_OVER_LIMIT), ==, "over-limit");
+  g_assert_cmpstr (sw_verdict_state_to_string (SW_VERDICT_PAPER_ONLY), ==, "paper-only");
+  g_assert_cmpstr (sw_verdict_state_to_string (SW_VERDICT_REACHES_ORBIT), ==, "reaches-orbit");
+}
+
+static void
+test_verdicts (void)
+{
+  g_autoptr (SwDesign) paper = demo ("all-solid-concept.stagewright");
+  g_autoptr (SwDesign) shortfall = demo ("medium-cargo.stagewright");  /* made short below */
+  g_autoptr (SwDesign) reaches = demo ("three-stage-simulated.stagewright");
+  g_autoptr (SwDesign) far = sw_design_copy (paper);
+  g_autoptr (SwAnalysis) a1 = NULL, a2 = NULL, a3 = NULL, a4 = NULL, a5 = NULL, a6 = NULL;
+  SwAnalysisOptions o;
+
+  /* Far beyond what four solid stages give (the demo's limit is below
+   * 20 km/s: c ln(1/eps) per stage is under 6.5 km/s for Isp <= 292 s and
+   * eps >= 0.10): infeasible, whatever the rest says. */
+  far->mission.delta_v_m_s = 25000.0;
+  a1 = sw_analysis_run (far, NULL, NULL);
+  assert_verdict (a1, "infeasible", "Cobbleford");
+
+  a2 = sw_analysis_run (paper, NULL, NULL);
+  assert_verdict (a2, "paper-only", "not a target orbit");
+  g_assert_true (isnan (a2->simulated_margin_m_s));
+  g_assert_true (isfinite (a2->headroom_m_s));
+
+  /* The cargo demo with too small a loss allowance falls short. */
+  shortfall->mission.losses_m_s = 1500.0;
+  a3 = sw_analysis_run (shortfall, NULL, NULL);
+  assert_verdict (a3, "short-of-orbit", "short of the orbit");
+  g_assert_cmpfloat (a3->simulated_margin_m_s, <, 0.0);
+  g_assert_cmpfloat (a3->simulated_margin_m_s, ==, -a3->ascent->delta_v_missing_m_s);
+
+  a4 = sw_analysis_run (reaches, NULL, NULL);
+  assert_verdict (a4, "reaches-orbit", "to spare");
+  g_assert_true (a4->sized_by_ascent);
+  g_assert_cmpfloat (a4->simulated_margin_m_s, ==, a4->ascent->delta_v_margin_m_s);
+
+  /* The same flight against a max-Q limit it exceeds: over-limit, naming it. */
+  sw_analysis_options_init (&o);
+  o.max_q_pa = 1000.0;
+  a5 = sw_analysis_run (reaches, &o, NULL);
+  assert_verdict (a5, "over-limit", "Max-Q is");
+  g_assert_nonnull (strstr (a5->verdict.reason, "above your limit of 1.0 kPa"));
+
+  /* Without the ascent: paper-only, sized by the allowance. */
+  o.ascent = FALSE;
+  a6 = sw_analysis_run (reaches, &o, NULL);
+  assert_verdict (a6, "paper-only", "on request");
+  g_assert_false (a6->sized_by_ascent);
+  g_assert_null (a6->ascent);
+}
+
+/* Without a flight there is no "reaches the orbit, but": a limit the
+ * figures break is told in the paper-only reason. */
+static void
+test_paper_only_with_limit (void)
+{
+  g_autoptr (SwDesign) paper = demo ("all-solid-concept.stagewright");
+  g_autoptr (SwAnalysis) a = NULL;
+  SwAnalysisOptions o;
+
+  g_assert_true (paper->stages[0].propulsion.present);
+  sw_analysis_options_init (&o);
+  o.min_thrust_to_weight = 5.0;
+  a = sw_analysis_run (paper, &o, NULL);
+  assert_verdict (a, "paper-only", "below your limit of 5.00");
+}
+
+/* Precedence: a shortfall outranks a broken limit. */
+static void
+test_precedence (void)
+{
+  g_autoptr (SwDesign) shortfall = demo ("medium-cargo.stagewright");  /* made short below */
+  g_autoptr (SwAnalysis) a = NULL;
+  SwAnalysisOptions o;
+
+  shortfall->mission.losses_m_s = 1500.0;   /* too small an allowance */
+  sw_analysis_options_init (&o);
+  o.max_q_pa = 1.0;
+  o.max_axial_g = 1.0;
+  o.min_thrust_to_weight = 5.0;
+  a = sw_analysis_run (shortfall, &o, NULL);
+  assert_verdict (a, "short-of-orbit", NULL);
+}
+
+/* A copy is a new analysis that shares the immutable heap parts; each
+ * lives as long as any analysis holds it. */
+static void
+test_copy_shares (void)
+{
+  g_autoptr (SwDesign) d = demo ("small-sat-launcher.stagewright");
+  SwAnalysis *a = sw_analysis_run (d, NULL, NULL);
+  SwAnalysis *b;
+
+  g_assert_nonnull (a->ascent);
+  b = sw_analysis_copy (a);
+  g_assert_true (a != b);
+  g_assert_true (a->design == b->design);
+  g_assert_true (a->ascent == b->ascent);
+  g_assert_cmpstr (a->verdict.reason, ==, b->verdict.reason);
+  sw_analysis_unref (a);
+  /* Still readable through the copy (ASan and valgrind would see a
+   * use-after-free). */
+  g_assert_cmpstr (b->design->name, ==, d->name);
+  g_assert_cmpuint (b->ascent->n_stages, ==, d->n_stages);
+  sw_analysis_unref (b);
+}
+
+/* Every phase gives up once its cancellable is cancelled, and the fast
+ * phase runs no ascent. */
+static void
+test_cancel_and_phases (void)
+{
+  g_autoptr (SwDesign) d = demo ("small-sat-launcher.stagewright");
+  g_autoptr (GCancellable) c = g_cancellable_new ();
+  g_autoptr (SwAnalysis) fast = NULL;
+  guint runs;
+
+  runs = sw_ascent_private_design_runs ();
+  fast = sw_analysis_new (d, 7, NULL, NULL);
+  g_assert_cmpuint (sw_ascent_private_design_runs (), ==, runs);
+  g_assert_cmpuint (fast->serial, ==, 7);
+  g_assert_cmpuint (fast->phase, ==, 0);
+  g_assert_true (fast->ascent_pending);
+  assert_verdict (fast, "pending", NULL);
+
+  g_cancellable_cancel (c);
+  g_assert_null (sw_analysis_new (d, 8, NULL, c));
+  g_assert_null (sw_analysis_add_ascent (fast, c));
+}
+
+int
+main (int argc, char **argv)
+{
+  g_test_init (&argc, &argv, NULL);
+  g_test_add_func ("/analysis/state-strings", test_state_strings);
+  g_test_add_func ("/analysis/verdicts", test_verdicts);
+  g_test_add_func ("/analysis/precedence", test_precedence);
+  g_test_add_func ("/analysis/paper-only-with-limit", test_paper_only_with_limit);
+  g_test_add_func ("/analysis/copy-shares", test_copy_shares);
+  g_test_add_func ("/analysis/cancel-and-phases", test_cancel_and_phases);
+  return g_test_run ();
+}

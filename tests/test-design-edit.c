@@ -1,0 +1,746 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* The edits the GUI makes to a design (sw-design-edit.h).  Expected shares
+ * are worked out by hand beside each check: the arithmetic is fractions of
+ * small numbers, so the checks use 1e-15 (a few ulp of values <= 1) unless
+ * a division by a sum makes rounding possible, then 1e-12.  Every manual
+ * design the edits leave must have shares adding up to 1 within 1e-12 and
+ * pass the loader's own validation. */
+#include "config.h"
+
+#include "sw-design.h"
+#include "sw-design-edit.h"
+#include "sw-sizing.h"
+
+#include <gsl/gsl_rng.h>
+#include <math.h>
+#include <string.h>
+
+#define EXACT 1e-15
+#define SUM_TOL 1e-12
+
+static SwDesign *
+manual_design (guint n, const double *shares)
+{
+  SwDesign *d = sw_design_new_default ();
+
+  d->n_stages = n;
+  d->split = SW_SPLIT_MANUAL;
+  for (guint i = 0; i < n; i++)
+    {
+      sw_stage_init_default (&d->stages[i], i);
+      g_snprintf (d->stages[i].name, sizeof d->stages[i].name, "%c", 'A' + i);
+      d->stages[i].has_share = TRUE;
+      d->stages[i].delta_v_share = shares[i];
+    }
+  return d;
+}
+
+static void
+assert_shares (const SwDesign *d, guint n, const double *expected, double tol)
+{
+  double sum = 0.0;
+
+  g_assert_cmpuint (d->n_stages, ==, n);
+  for (guint i = 0; i < n; i++)
+    {
+      g_assert_true (d->stages[i].has_share);
+      g_assert_cmpfloat_with_epsilon (d->stages[i].delta_v_share, expected[i], tol);
+      g_assert_cmpfloat (d->stages[i].delta_v_share, >=, 0.0);
+      g_assert_cmpfloat (d->stages[i].delta_v_share, <=, 1.0);
+      sum += d->stages[i].delta_v_share;
+    }
+  if (d->split == SW_SPLIT_MANUAL)
+    g_assert_cmpfloat_with_epsilon (sum, 1.0, SUM_TOL);
+}
+
+static void
+assert_valid (const SwDesign *d)
+{
+  g_autoptr (GError) error = NULL;
+
+  if (!sw_design_validate (d, "edited", &error))
+    g_error ("an edit left a design the loader rejects: %s", error->message);
+}
+
+/* ---- taking the split on screen into the manual split ----------------- */
+
+static void
+test_take_manual_shares (void)
+{
+  static const double start[] = { 0.2, 0.2, 0.6 };
+
+  /* Shares that add up to 1 are taken as they are. */
+  {
+    g_autoptr (SwDesign) d = manual_design (3, start);
+    static const double on_screen[] = { 0.6, 0.3, 0.1 };
+    d->split = SW_SPLIT_OPTIMAL;
+    g_assert_true (sw_design_take_manual_shares (d, on_screen, 3));
+    g_assert_cmpint (d->split, ==, SW_SPLIT_MANUAL);
+    assert_shares (d, 3, on_screen, EXACT);
+    assert_valid (d);
+  }
+  /* Shares that do not add up to 1 are scaled: 3 and 1 of 4 are 0.75, 0.25. */
+  {
+    g_autoptr (SwDesign) d = manual_design (2, start);
+    static const double raw[] = { 3.0, 1.0 }, expected[] = { 0.75, 0.25 };
+    d->split = SW_SPLIT_EQUAL;
+    g_assert_true (sw_design_take_manual_shares (d, raw, 2));
+    assert_shares (d, 2, expected, EXACT);
+  }
+  /* An optimum that gives one stage nothing: the zero is kept. */
+  {
+    g_autoptr (SwDesign) d = manual_design (3, start);
+    static const double raw[] = { 0.55, 0.45, 0.0 };
+    d->split = SW_SPLIT_OPTIMAL;
+    g_assert_true (sw_design_take_manual_shares (d, raw, 3));
+    assert_shares (d, 3, raw, EXACT);
+  }
+  /* Shares that do not fit give equal shares, 1/3 each, and FALSE; the
+   * design is in the manual split either way. */
+  {
+    static const double third[] = { 1.0 / 3, 1.0 / 3, 1.0 / 3 };
+    const double two[] = { 0.5, 0.5 };
+    const double with_nan[] = { 0.5, NAN, 0.5 };
+    const double with_inf[] = { 0.5, INFINITY, 0.5 };
+    const double negative[] = { 0.7, -0.1, 0.4 };
+    const double zeros[] = { 0.0, 0.0, 0.0 };
+    const double *bad[] = { NULL, two, with_nan, with_inf, negative, zeros };
+    const guint counts[] = { 3, 2, 3, 3, 3, 3 };
+
+    for (guint k = 0; k < G_N_ELEMENTS (bad); k++)
+      {
+        g_autoptr (SwDesign) d = manual_design (3, start);
+        d->split = SW_SPLIT_OPTIMAL;
+        g_assert_false (sw_design_take_manual_shares (d, bad[k], counts[k]));
+        g_assert_cmpint (d->split, ==, SW_SPLIT_MANUAL);
+        assert_shares (d, 3, third, EXACT);
+      }
+  }
+}
+
+/* The split on screen read from a sizing filled in by hand. */
+static void
+test_sizing_get_shares (void)
+{
+  SwSizing s;
+  double shares[SW_MAX_STAGES];
+
+  memset (&s, 0, sizeof s);
+  s.n_stages = 2;
+  s.delta_v_m_s = 9000.0;
+  s.stages[0].delta_v_share = 0.25;
+  s.stages[1].delta_v_share = 0.75;
+  g_assert_cmpuint (sw_sizing_get_shares (&s, shares), ==, 2);
+  g_assert_cmpfloat (shares[0], ==, 0.25);
+  g_assert_cmpfloat (shares[1], ==, 0.75);
+
+  s.stages[1].delta_v_share = NAN;
+  g_assert_cmpuint (sw_sizing_get_shares (&s, shares), ==, 0);
+  s.stages[1].delta_v_share = -0.01;
+  g_assert_cmpuint (sw_sizing_get_shares (&s, shares), ==, 0);
+  s.stages[1].delta_v_share = 0.75;
+  s.delta_v_m_s = 0.0;
+  g_assert_cmpuint (sw_sizing_get_shares (&s, shares), ==, 0);
+
+  /* A real sizing: the equal split of 3 stages gives 1/3 each (by
+   * definition of the equal split), and taking them into the manual split
+   * leaves a design that sizes to the same stage delta-v. */
+  {
+    g_autoptr (SwDesign) d = sw_design_new_default ();
+    g_autoptr (GError) error = NULL;
+    static const double third[] = { 1.0 / 3, 1.0 / 3, 1.0 / 3 };
+    SwSizing before, after;
+    guint n;
+
+    sw_design_add_stage (d);
+    d->split = SW_SPLIT_EQUAL;
+    g_assert_true (sw_size_design (d, &before, &error));
+    n = sw_sizing_get_shares (&before, shares);
+    g_assert_cmpuint (n, ==, 3);
+    g_assert_true (sw_design_take_manual_shares (d, shares, n));
+    assert_shares (d, 3, third, 1e-15);
+    g_assert_true (sw_size_design (d, &after, &error));
+    for (guint i = 0; i < 3; i++)
+      g_assert_cmpfloat_with_epsilon (after.stages[i].delta_v_m_s, 9400.0 / 3, 1e-9);
+  }
+}
+
+/* ---- setting one share ------------------------------------------------- */
+
+static void
+test_set_share_rebalanced (void)
+{
+  static const double start[] = { 0.5, 0.3, 0.2 };
+
+  /* 0.6 for stage 0: the other two keep 3:2 of the remaining 0.4, i.e.
+   * 0.24 and 0.16. */
+  {
+    g_autoptr (SwDesign) d = manual_design (3, start);
+    static const double expected[] = { 0.6, 0.24, 0.16 };
+    g_assert_true (sw_design_set_share_rebalanced (d, 0, 0.6));
+    assert_shares (d, 3, expected, EXACT);
+    assert_valid (d);
+  }
+  /* Above 1 clamps to 1, the others go to 0; then 0.4 for stage 0 with
+   * the others all 0: they share 0.6 equally, 0.3 each. */
+  {
+    g_autoptr (SwDesign) d = manual_design (3, start);
+    static const double all[] = { 1.0, 0.0, 0.0 }, split[] = { 0.4, 0.3, 0.3 };
+    g_assert_true (sw_design_set_share_rebalanced (d, 0, 1.3));
+    assert_shares (d, 3, all, EXACT);
+    g_assert_true (sw_design_set_share_rebalanced (d, 0, 0.4));
+    assert_shares (d, 3, split, EXACT);
+  }
+  /* Below 0 clamps to 0: stage 2 gives its 0.2 to the others, 5:3 of 1,
+   * 0.625 and 0.375. */
+  {
+    g_autoptr (SwDesign) d = manual_design (3, start);
+    static const double expected[] = { 0.625, 0.375, 0.0 };
+    g_assert_true (sw_design_set_share_rebalanced (d, 2, -0.5));
+    assert_shares (d, 3, expected, EXACT);
+  }
+  /* A single stage always has all of it. */
+  {
+    static const double one[] = { 1.0 };
+    g_autoptr (SwDesign) d = manual_design (1, one);
+    g_assert_true (sw_design_set_share_rebalanced (d, 0, 0.3));
+    assert_shares (d, 1, one, EXACT);
+  }
+  /* An index out of range is refused and changes nothing. */
+  {
+    g_autoptr (SwDesign) d = manual_design (3, start);
+    g_autoptr (SwDesign) before = sw_design_copy (d);
+    g_assert_false (sw_design_set_share_rebalanced (d, 3, 0.5));
+    g_assert_true (sw_design_equal (d, before));
+  }
+}
+
+/* ---- moving share across a border -------------------------------------- */
+
+static void
+test_move_share (void)
+{
+  static const double start[] = { 0.5, 0.3, 0.2 };
+  g_autoptr (SwDesign) d = manual_design (3, start);
+  g_autoptr (SwDesign) before = NULL;
+
+  /* 0.1 from stage 1 to stage 2: 0.5, 0.2, 0.3. */
+  {
+    static const double expected[] = { 0.5, 0.2, 0.3 };
+    g_assert_true (sw_design_move_share (d, 1, 2, 0.1));
+    assert_shares (d, 3, expected, EXACT);
+  }
+  /* 0.5 from stage 1, which has 0.2: clamped, stage 1 ends at 0 and stage 0
+   * gets 0.2 (0.7); stage 2 is untouched. */
+  {
+    static const double expected[] = { 0.7, 0.0, 0.3 };
+    g_assert_true (sw_design_move_share (d, 1, 0, 0.5));
+    assert_shares (d, 3, expected, EXACT);
+    g_assert_cmpfloat (d->stages[1].delta_v_share, ==, 0.0);
+  }
+  /* A negative amount moves the other way: -0.4 from 0 to 2 takes 0.4 from
+   * stage 2, which has 0.3: clamped to 0.3, giving 1, 0, 0. */
+  {
+    static const double expected[] = { 1.0, 0.0, 0.0 };
+    g_assert_true (sw_design_move_share (d, 0, 2, -0.4));
+    assert_shares (d, 3, expected, EXACT);
+    assert_valid (d);
+  }
+  /* Within one stage nothing changes; an index out of range is refused. */
+  before = sw_design_copy (d);
+  g_assert_true (sw_design_move_share (d, 1, 1, 0.3));
+  g_assert_true (sw_design_equal (d, before));
+  g_assert_false (sw_design_move_share (d, 0, 3, 0.1));
+  g_assert_false (sw_design_move_share (d, 5, 0, 0.1));
+  g_assert_true (sw_design_equal (d, before));
+
+  /* A long drag in small steps does not drift: 1000 steps of 0.001 across
+   * the border 0/1 and back leave the sum at 1 within 1e-12. */
+  for (guint k = 0; k < 1000; k++)
+    sw_design_move_share (d, 0, 1, 0.001);
+  for (guint k = 0; k < 1000; k++)
+    sw_design_move_share (d, 1, 0, 0.001);
+  {
+    static const double expected[] = { 1.0, 0.0, 0.0 };
+    assert_shares (d, 3, expected, 1e-12);
+  }
+}
+
+/* ---- split mode -------------------------------------------------------- */
+
+static void
+test_set_split (void)
+{
+  static const double start[] = { 0.5, 0.5 };
+  static const double on_screen[] = { 0.7, 0.3 };
+  g_autoptr (SwDesign) d = manual_design (2, start);
+
+  d->split = SW_SPLIT_OPTIMAL;
+  g_assert_false (sw_design_set_split (d, SW_SPLIT_OPTIMAL, NULL, 0));
+  g_assert_true (sw_design_set_split (d, SW_SPLIT_MANUAL, on_screen, 2));
+  g_assert_cmpint (d->split, ==, SW_SPLIT_MANUAL);
+  assert_shares (d, 2, on_screen, EXACT);
+  /* Manual to manual changes nothing, even with other shares offered. */
+  g_assert_false (sw_design_set_split (d, SW_SPLIT_MANUAL, start, 2));
+  assert_shares (d, 2, on_screen, EXACT);
+  /* Leaving the manual split keeps the stored shares (they come back when
+   * the file is loaded and the user returns to manual). */
+  g_assert_true (sw_design_set_split (d, SW_SPLIT_EQUAL, NULL, 0));
+  g_assert_cmpint (d->split, ==, SW_SPLIT_EQUAL);
+  assert_shares (d, 2, on_screen, EXACT);
+  /* Into manual with nothing on screen: equal shares. */
+  g_assert_true (sw_design_set_split (d, SW_SPLIT_MANUAL, NULL, 0));
+  assert_shares (d, 2, start, EXACT);
+  assert_valid (d);
+}
+
+/* ---- the stage list ---------------------------------------------------- */
+
+static void
+test_add_stage (void)
+{
+  static const double start[] = { 0.6, 0.4 };
+
+  /* Manual: the new stage gets 1/3, the others 2/3 of what they had:
+   * 0.6 * 2/3 = 0.4, 0.4 * 2/3 = 4/15. */
+  {
+    g_autoptr (SwDesign) d = manual_design (2, start);
+    static const double expected[] = { 0.4, 4.0 / 15, 1.0 / 3 };
+    g_assert_true (sw_design_add_stage (d));
+    assert_shares (d, 3, expected, EXACT);
+    /* The defaults of an upper stage (sw_stage_init_default). */
+    g_assert_cmpfloat (d->stages[2].isp_vac_s, ==, 340.0);
+    g_assert_false (d->stages[2].has_isp_sl);
+    g_assert_cmpfloat (d->stages[2].structural_coefficient, ==, 0.09);
+    assert_valid (d);
+  }
+  /* Optimal: the others' stored values are left alone. */
+  {
+    g_autoptr (SwDesign) d = manual_design (2, start);
+    d->split = SW_SPLIT_OPTIMAL;
+    g_assert_true (sw_design_add_stage (d));
+    g_assert_cmpuint (d->n_stages, ==, 3);
+    g_assert_cmpfloat (d->stages[0].delta_v_share, ==, 0.6);
+    g_assert_cmpfloat (d->stages[1].delta_v_share, ==, 0.4);
+    assert_valid (d);
+  }
+  /* Up to eight; the ninth is refused and changes nothing. */
+  {
+    g_autoptr (SwDesign) d = manual_design (2, start);
+    g_autoptr (SwDesign) before = NULL;
+    double sum = 0.0;
+
+    for (guint n = 3; n <= SW_MAX_STAGES; n++)
+      g_assert_true (sw_design_add_stage (d));
+    g_assert_cmpuint (d->n_stages, ==, 8);
+    /* The last added holds 1/8. */
+    g_assert_cmpfloat_with_epsilon (d->stages[7].delta_v_share, 0.125, EXACT);
+    for (guint i = 0; i < 8; i++)
+      sum += d->stages[i].delta_v_share;
+    g_assert_cmpfloat_with_epsilon (sum, 1.0, SUM_TOL);
+    before = sw_design_copy (d);
+    g_assert_false (sw_design_add_stage (d));
+    g_assert_true (sw_design_equal (d, before));
+    assert_valid (d);
+  }
+}
+
+static void
+test_duplicate_stage (void)
+{
+  static const double start[] = { 0.5, 0.3, 0.2 };
+
+  /* Stage B (0.3) duplicated: B and its copy hold 0.15 each, after it. */
+  {
+    g_autoptr (SwDesign) d = manual_design (3, start);
+    static const double expected[] = { 0.5, 0.15, 0.15, 0.2 };
+    d->stages[1].isp_vac_s = 333.0;
+    g_assert_true (sw_design_duplicate_stage (d, 1));
+    assert_shares (d, 4, expected, EXACT);
+    g_assert_cmpstr (d->stages[1].name, ==, "B");
+    g_assert_cmpstr (d->stages[2].name, ==, "B (copy)");
+    g_assert_cmpstr (d->stages[3].name, ==, "C");
+    g_assert_cmpfloat (d->stages[2].isp_vac_s, ==, 333.0);
+    assert_valid (d);
+  }
+  /* Refused at eight stages and for an index out of range. */
+  {
+    g_autoptr (SwDesign) d = manual_design (3, start);
+    g_autoptr (SwDesign) before = NULL;
+
+    g_assert_false (sw_design_duplicate_stage (d, 3));
+    while (d->n_stages < SW_MAX_STAGES)
+      g_assert_true (sw_design_duplicate_stage (d, 0));
+    before = sw_design_copy (d);
+    g_assert_false (sw_design_duplicate_stage (d, 0));
+    g_assert_true (sw_design_equal (d, before));
+    /* 0.5 halved five times: 0.5/32 left in stage 0 and in its last copy. */
+    g_assert_cmpfloat_with_epsilon (d->stages[0].delta_v_share, 0.5 / 32, EXACT);
+    g_assert_cmpfloat_with_epsilon (d->stages[1].delta_v_share, 0.5 / 32, EXACT);
+    assert_valid (d);
+  }
+  /* A long name: the copy's name is cut at a whole character.  63 two-byte
+   * characters fill 126 of the 127 bytes; of " (copy)" only the space would
+   * fit, and a trailing space is dropped. */
+  {
+    g_autoptr (SwDesign) d = manual_design (3, start);
+    GString *name = g_string_new (NULL);
+
+    for (guint i = 0; i < 63; i++)
+      g_string_append (name, "\xc3\xa9");  /* U+00E9, two bytes in UTF-8 */
+    g_assert_true (sw_design_set_stage_name (d, 0, name->str));
+    g_assert_true (sw_design_duplicate_stage (d, 0));
+    g_assert_cmpstr (d->stages[1].name, ==, name->str);
+    g_assert_true (g_utf8_validate (d->stages[1].name, -1, NULL));
+    g_string_free (name, TRUE);
+    assert_valid (d);
+  }
+}
+
+static void
+test_remove_stage (void)
+{
+  static const double start[] = { 0.5, 0.3, 0.2 };
+
+  /* Removing A (0.5): B and C scaled from 0.3 and 0.2 of 0.5 to 0.6, 0.4. */
+  {
+    g_autoptr (SwDesign) d = manual_design (3, start);
+    static const double expected[] = { 0.6, 0.4 };
+    g_assert_true (sw_design_remove_stage (d, 0));
+    assert_shares (d, 2, expected, 1e-12);
+    g_assert_cmpstr (d->stages[0].name, ==, "B");
+    g_assert_cmpstr (d->stages[1].name, ==, "C");
+    /* The slot behind the last stage is cleared. */
+    g_assert_cmpstr (d->stages[2].name, ==, "");
+    g_assert_cmpfloat (d->stages[2].isp_vac_s, ==, 0.0);
+    assert_valid (d);
+  }
+  /* The rest held nothing: they share equally, 0.5 each. */
+  {
+    static const double all[] = { 1.0, 0.0, 0.0 }, half[] = { 0.5, 0.5 };
+    g_autoptr (SwDesign) d = manual_design (3, all);
+    g_assert_true (sw_design_remove_stage (d, 0));
+    assert_shares (d, 2, half, EXACT);
+  }
+  /* The last stage is refused, as is an index out of range. */
+  {
+    static const double one[] = { 1.0 };
+    g_autoptr (SwDesign) d = manual_design (1, one);
+    g_autoptr (SwDesign) before = sw_design_copy (d);
+    g_assert_false (sw_design_remove_stage (d, 0));
+    g_assert_true (sw_design_equal (d, before));
+  }
+  {
+    g_autoptr (SwDesign) d = manual_design (3, start);
+    g_autoptr (SwDesign) before = sw_design_copy (d);
+    g_assert_false (sw_design_remove_stage (d, 3));
+    g_assert_true (sw_design_equal (d, before));
+  }
+}
+
+static void
+test_move_stage (void)
+{
+  static const double start[] = { 0.4, 0.3, 0.2, 0.1 };
+  g_autoptr (SwDesign) d = manual_design (4, start);
+  g_autoptr (SwDesign) before = NULL;
+
+  /* A B C D, A to position 2: B C A D, the shares travelling along. */
+  g_assert_true (sw_design_move_stage (d, 0, 2));
+  {
+    static const double expected[] = { 0.3, 0.2, 0.4, 0.1 };
+    assert_shares (d, 4, expected, EXACT);
+    g_assert_cmpstr (d->stages[0].name, ==, "B");
+    g_assert_cmpstr (d->stages[1].name, ==, "C");
+    g_assert_cmpstr (d->stages[2].name, ==, "A");
+    g_assert_cmpstr (d->stages[3].name, ==, "D");
+  }
+  /* D to the bottom: D B C A. */
+  g_assert_true (sw_design_move_stage (d, 3, 0));
+  g_assert_cmpstr (d->stages[0].name, ==, "D");
+  g_assert_cmpstr (d->stages[1].name, ==, "B");
+  g_assert_cmpstr (d->stages[2].name, ==, "C");
+  g_assert_cmpstr (d->stages[3].name, ==, "A");
+  /* One step, as the list's up/down buttons do: a swap. */
+  g_assert_true (sw_design_move_stage (d, 1, 2));
+  g_assert_cmpstr (d->stages[1].name, ==, "C");
+  g_assert_cmpstr (d->stages[2].name, ==, "B");
+  assert_valid (d);
+
+  before = sw_design_copy (d);
+  g_assert_true (sw_design_move_stage (d, 2, 2));
+  g_assert_false (sw_design_move_stage (d, 4, 0));
+  g_assert_false (sw_design_move_stage (d, 0, 4));
+  g_assert_true (sw_design_equal (d, before));
+}
+
+/* Any sequence of the GUI's share and stage edits keeps a valid manual
+ * design: shares in [0, 1] adding up to 1 within 1e-12. */
+static void
+test_random_sequences (void)
+{
+  gsl_rng *rng = gsl_rng_alloc (gsl_rng_mt19937);
+  static const double start[] = { 0.5, 0.5 };
+  g_autoptr (SwDesign) d = manual_design (2, start);
+
+  gsl_rng_set (rng, 9);
+  for (guint k = 0; k < 20000; k++)
+    {
+      guint n = d->n_stages;
+      guint i = gsl_rng_uniform_int (rng, n + 1), j = gsl_rng_uniform_int (rng, n + 1);
+      double x = -0.3 + 1.6 * gsl_rng_uniform (rng);
+      double sum = 0.0;
+
+      switch (gsl_rng_uniform_int (rng, 6))
+        {
+        case 0: sw_design_set_share_rebalanced (d, i, x); break;
+        case 1: sw_design_move_share (d, i, j, x - 0.5); break;
+        case 2: sw_design_add_stage (d); break;
+        case 3: sw_design_duplicate_stage (d, i); break;
+        case 4: sw_design_remove_stage (d, i); break;
+        default: sw_design_move_stage (d, i, j); break;
+        }
+      g_assert_cmpuint (d->n_stages, >=, 1);
+      g_assert_cmpuint (d->n_stages, <=, SW_MAX_STAGES);
+      for (guint s = 0; s < d->n_stages; s++)
+        {
+          g_assert_cmpfloat (d->stages[s].delta_v_share, >=, 0.0);
+          g_assert_cmpfloat (d->stages[s].delta_v_share, <=, 1.0);
+          sum += d->stages[s].delta_v_share;
+        }
+      g_assert_cmpfloat_with_epsilon (sum, 1.0, SUM_TOL);
+    }
+  assert_valid (d);
+  gsl_rng_free (rng);
+}
+
+/* ---- fields ------------------------------------------------------------ */
+
+static void
+test_names (void)
+{
+  g_autoptr (SwDesign) d = sw_design_new_default ();
+  GString *long_name = g_string_new (NULL);
+
+  g_assert_true (sw_design_set_name (d, "Test vehicle"));
+  g_assert_cmpstr (d->name, ==, "Test vehicle");
+  /* 200 two-byte characters: 63 fit in 127 bytes (126 bytes used). */
+  for (guint i = 0; i < 200; i++)
+    g_string_append (long_name, "\xc3\xa9");
+  g_assert_true (sw_design_set_name (d, long_name->str));
+  g_assert_cmpuint (strlen (d->name), ==, 126);
+  g_assert_cmpuint (g_utf8_strlen (d->name, -1), ==, 63);
+  /* 127 one-byte characters fit exactly; the 128th does not. */
+  g_string_assign (long_name, "");
+  for (guint i = 0; i < 130; i++)
+    g_string_append_c (long_name, 'x');
+  g_assert_true (sw_design_set_stage_name (d, 1, long_name->str));
+  g_assert_cmpuint (strlen (d->stages[1].name), ==, 127);
+  /* Not UTF-8: refused, the name stays. */
+  g_assert_false (sw_design_set_name (d, "bad \xff name"));
+  g_assert_cmpuint (strlen (d->name), ==, 126);
+  g_assert_false (sw_design_set_stage_name (d, 0, "\xc3"));
+  g_assert_false (sw_design_set_stage_name (d, 2, "no such stage"));
+  g_string_free (long_name, TRUE);
+  assert_valid (d);
+}
+
+static void
+test_mission_fields (void)
+{
+  g_autoptr (SwDesign) d = sw_design_new_default ();
+
+  sw_design_set_payload (d, 2500.0);
+  g_assert_cmpfloat (d->payload_kg, ==, 2500.0);
+  sw_design_set_mission_delta_v (d, 9100.0);
+  g_assert_cmpfloat (d->mission.delta_v_m_s, ==, 9100.0);
+
+  /* To an orbit mission: no accepted altitude yet, so the starting orbit
+   * 400 km, 30 deg, latitude 28 deg, 1500 m/s of losses. */
+  g_assert_true (sw_design_set_mission_kind (d, SW_MISSION_ORBIT, 9100.0));
+  g_assert_cmpint (d->mission.kind, ==, SW_MISSION_ORBIT);
+  g_assert_cmpfloat (d->mission.altitude_km, ==, 400.0);
+  g_assert_cmpfloat (d->mission.inclination_deg, ==, 30.0);
+  g_assert_cmpfloat (d->mission.site_latitude_deg, ==, 28.0);
+  g_assert_true (d->mission.has_losses);
+  g_assert_cmpfloat (d->mission.losses_m_s, ==, 1500.0);
+  assert_valid (d);
+  g_assert_false (sw_design_set_mission_kind (d, SW_MISSION_ORBIT, 0.0));
+
+  sw_design_set_altitude (d, 250.0);
+  sw_design_set_inclination (d, 51.5);
+  sw_design_set_site_latitude (d, 45.9);
+  sw_design_set_losses (d, 1700.0);
+  g_assert_cmpfloat (d->mission.altitude_km, ==, 250.0);
+  g_assert_cmpfloat (d->mission.inclination_deg, ==, 51.5);
+  g_assert_cmpfloat (d->mission.site_latitude_deg, ==, 45.9);
+  g_assert_cmpfloat (d->mission.losses_m_s, ==, 1700.0);
+  assert_valid (d);
+
+  /* Back to delta-v: the earlier 9100 m/s is still accepted and kept. */
+  g_assert_true (sw_design_set_mission_kind (d, SW_MISSION_DELTA_V, 9876.0));
+  g_assert_cmpfloat (d->mission.delta_v_m_s, ==, 9100.0);
+  /* Again with no accepted delta-v: the one the orbit needed, rounded to
+   * 1 m/s (9312.6 -> 9313); without one (NAN), 9400 m/s. */
+  sw_design_set_mission_kind (d, SW_MISSION_ORBIT, NAN);
+  g_assert_cmpfloat (d->mission.altitude_km, ==, 250.0);  /* kept: accepted */
+  d->mission.delta_v_m_s = 0.0;
+  g_assert_true (sw_design_set_mission_kind (d, SW_MISSION_DELTA_V, 9312.6));
+  g_assert_cmpfloat (d->mission.delta_v_m_s, ==, 9313.0);
+  sw_design_set_mission_kind (d, SW_MISSION_ORBIT, NAN);
+  d->mission.delta_v_m_s = 0.0;
+  g_assert_true (sw_design_set_mission_kind (d, SW_MISSION_DELTA_V, NAN));
+  g_assert_cmpfloat (d->mission.delta_v_m_s, ==, 9400.0);
+  /* A suggestion outside the accepted range (30 km/s) is not taken. */
+  sw_design_set_mission_kind (d, SW_MISSION_ORBIT, NAN);
+  d->mission.delta_v_m_s = 0.0;
+  g_assert_true (sw_design_set_mission_kind (d, SW_MISSION_DELTA_V, 45000.0));
+  g_assert_cmpfloat (d->mission.delta_v_m_s, ==, 9400.0);
+  assert_valid (d);
+}
+
+static void
+test_stage_fields (void)
+{
+  g_autoptr (SwDesign) d = sw_design_new_default ();
+
+  /* Stage 0 has a sea-level Isp of 285 s below its vacuum Isp of 320 s. */
+  g_assert_true (d->stages[0].has_isp_sl);
+  g_assert_true (sw_design_set_stage_isp_vac (d, 0, 280.0));
+  g_assert_cmpfloat (d->stages[0].isp_vac_s, ==, 280.0);
+  g_assert_cmpfloat (d->stages[0].isp_sl_s, ==, 280.0);   /* followed down */
+  g_assert_true (sw_design_set_stage_isp_vac (d, 0, 345.0));
+  g_assert_cmpfloat (d->stages[0].isp_sl_s, ==, 280.0);   /* not up */
+  g_assert_true (sw_design_set_stage_isp_sl (d, 0, 500.0));
+  g_assert_cmpfloat (d->stages[0].isp_sl_s, ==, 345.0);   /* at most vacuum */
+  g_assert_true (sw_design_set_stage_isp_sl (d, 0, 300.0));
+  g_assert_cmpfloat (d->stages[0].isp_sl_s, ==, 300.0);
+  assert_valid (d);
+
+  /* Stage 1 has none; given one, it starts at 0.9 x 345 = 310.5, rounded
+   * half away from zero to 311. */
+  g_assert_true (sw_design_set_stage_isp_vac (d, 1, 345.0));
+  g_assert_false (d->stages[1].has_isp_sl);
+  g_assert_true (sw_design_set_stage_has_isp_sl (d, 1, TRUE));
+  g_assert_cmpfloat (d->stages[1].isp_sl_s, ==, 311.0);
+  /* An accepted value is kept when the box is ticked again. */
+  g_assert_true (sw_design_set_stage_isp_sl (d, 1, 290.0));
+  g_assert_true (sw_design_set_stage_has_isp_sl (d, 1, FALSE));
+  g_assert_true (sw_design_set_stage_has_isp_sl (d, 1, TRUE));
+  g_assert_cmpfloat (d->stages[1].isp_sl_s, ==, 290.0);
+  assert_valid (d);
+
+  /* The structural coefficient is clamped to the limits table's
+   * 0.01 .. 0.6 (sw-limits.c). */
+  g_assert_true (sw_design_set_stage_structural_coefficient (d, 1, 0.12));
+  g_assert_cmpfloat (d->stages[1].structural_coefficient, ==, 0.12);
+  g_assert_true (sw_design_set_stage_structural_coefficient (d, 1, 0.001));
+  g_assert_cmpfloat (d->stages[1].structural_coefficient, ==, 0.01);
+  g_assert_true (sw_design_set_stage_structural_coefficient (d, 1, 0.9));
+  g_assert_cmpfloat (d->stages[1].structural_coefficient, ==, 0.6);
+  g_assert_false (sw_design_set_stage_structural_coefficient (d, 1, NAN));
+  g_assert_cmpfloat (d->stages[1].structural_coefficient, ==, 0.6);
+  assert_valid (d);
+
+  /* Every stage field refuses an index past the last stage. */
+  g_assert_false (sw_design_set_stage_isp_vac (d, 2, 300.0));
+  g_assert_false (sw_design_set_stage_isp_sl (d, 2, 300.0));
+  g_assert_false (sw_design_set_stage_has_isp_sl (d, 2, TRUE));
+  g_assert_false (sw_design_set_stage_structural_coefficient (d, 2, 0.1));
+  g_assert_cmpfloat (d->stages[2].isp_vac_s, ==, 0.0);
+}
+
+static void
+test_monte_carlo_inputs (void)
+{
+  g_autoptr (SwDesign) d = sw_design_new_default ();
+  g_autoptr (SwDesign) again = NULL;
+  g_autofree char *data = NULL;
+  const SwSpread normal = { SW_SPREAD_NORMAL, 1.5 }, uniform = { SW_SPREAD_UNIFORM, 120.0 };
+  const SwSpread none_with_width = { SW_SPREAD_NONE, 7.0 };
+  gsize len;
+
+  g_assert_false (d->uncertainty.present);
+  sw_design_set_mc_samples (d, 2500);
+  g_assert_true (d->uncertainty.present);
+  g_assert_true (d->uncertainty.has_samples);
+  g_assert_cmpuint (sw_uncertainty_samples (&d->uncertainty), ==, 2500);
+  g_assert_false (d->uncertainty.has_seed);
+  sw_design_set_mc_seed (d, 4294967295u);
+  g_assert_cmpuint (sw_uncertainty_seed (&d->uncertainty), ==, 4294967295u);
+
+  sw_design_set_spreads (d, &normal, NULL, &uniform);
+  g_assert_cmpint (d->uncertainty.isp.kind, ==, SW_SPREAD_NORMAL);
+  g_assert_cmpfloat (d->uncertainty.isp.width, ==, 1.5);
+  g_assert_cmpint (d->uncertainty.structural_coefficient.kind, ==, SW_SPREAD_NONE);
+  g_assert_cmpint (d->uncertainty.losses.kind, ==, SW_SPREAD_UNIFORM);
+  g_assert_cmpfloat (d->uncertainty.losses.width, ==, 120.0);
+  /* Switched off: the width goes to 0, so equal designs save the same. */
+  sw_design_set_spreads (d, NULL, NULL, &none_with_width);
+  g_assert_cmpint (d->uncertainty.losses.kind, ==, SW_SPREAD_NONE);
+  g_assert_cmpfloat (d->uncertainty.losses.width, ==, 0.0);
+  g_assert_cmpfloat (d->uncertainty.isp.width, ==, 1.5);
+  assert_valid (d);
+
+  /* What the edits set is what a save and a load give back. */
+  data = sw_design_to_data (d, &len);
+  again = sw_design_load_data (data, (gssize) len, "edited", NULL, NULL);
+  g_assert_nonnull (again);
+  g_assert_true (sw_design_equal (d, again));
+
+  /* A sample count outside 100 .. 1,000,000 is stored, and the loader's
+   * check refuses it. */
+  sw_design_set_mc_samples (d, 99);
+  g_assert_false (sw_design_validate (d, NULL, NULL));
+}
+
+static void
+test_baseline (void)
+{
+  g_autoptr (SwDesign) d = sw_design_new_default ();
+  g_autoptr (SwDesign) plain = NULL;
+
+  g_assert_false (sw_design_clear_baseline (d));
+  sw_design_pin_baseline (d);
+  g_assert_nonnull (d->baseline);
+  g_assert_null (d->baseline->baseline);
+  plain = sw_design_copy (d);
+  g_clear_pointer (&plain->baseline, sw_design_free);
+  g_assert_true (sw_design_equal (d->baseline, plain));
+
+  /* Pinning again replaces the baseline with the design as it is now, and
+   * never nests one baseline in another. */
+  sw_design_set_payload (d, 4321.0);
+  sw_design_pin_baseline (d);
+  g_assert_null (d->baseline->baseline);
+  g_assert_cmpfloat (d->baseline->payload_kg, ==, 4321.0);
+  assert_valid (d);
+
+  g_assert_true (sw_design_clear_baseline (d));
+  g_assert_null (d->baseline);
+  g_assert_false (sw_design_clear_baseline (d));
+}
+
+int
+main (int argc, char **argv)
+{
+  g_setenv ("LANGUAGE", "C", TRUE);
+  g_test_init (&argc, &argv, NULL);
+
+  g_test_add_func ("/core/design-edit/take-manual-shares", test_take_manual_shares);
+  g_test_add_func ("/core/design-edit/sizing-get-shares", test_sizing_get_shares);
+  g_test_add_func ("/core/design-edit/set-share-rebalanced", test_set_share_rebalanced);
+  g_test_add_func ("/core/design-edit/move-share", test_move_share);
+  g_test_add_func ("/core/design-edit/set-split", test_set_split);
+  g_test_add_func ("/core/design-edit/add-stage", test_add_stage);
+  g_test_add_func ("/core/design-edit/duplicate-stage", test_duplicate_stage);
+  g_test_add_func ("/core/design-edit/remove-stage", test_remove_stage);
+  g_test_add_func ("/core/design-edit/move-stage", test_move_stage);
+  g_test_add_func ("/core/design-edit/random-sequences", test_random_sequences);
+  g_test_add_func ("/core/design-edit/names", test_names);
+  g_test_add_func ("/core/design-edit/mission-fields", test_mission_fields);
+  g_test_add_func ("/core/design-edit/stage-fields", test_stage_fields);
+  g_test_add_func ("/core/design-edit/monte-carlo-inputs", test_monte_carlo_inputs);
+  g_test_add_func ("/core/design-edit/baseline", test_baseline);
+  return g_test_run ();
+}
