@@ -86,6 +86,8 @@ static const SwLimit limits[SW_N_LIMITS] = {
     "tilt of the thrust at the pitch-over; left out, the solver picks the one that costs least delta-v" },
   [SW_LIMIT_INSERTION_ALTITUDE] = { "insertion_altitude_km", "km", 100.0, 2000.0, FALSE,
     "perigee of a transfer orbit up to the target, circularised at apogee; left out, direct insertion" },
+  [SW_LIMIT_MAX_Q_ALPHA] = { "max_q_alpha_kpa_deg", "kPa deg", 1.0, 1000.0, FALSE,
+    "dynamic pressure times angle of attack the guided flight keeps below; left out, no limit" },
 };
 
 const SwLimit *
@@ -150,6 +152,7 @@ static const char *const limit_fields[SW_N_LIMITS] = {
   [SW_LIMIT_PITCH_OVER_SPEED] = "`ascent.pitch_over_speed_m_s`",
   [SW_LIMIT_PITCH_KICK] = "`ascent.pitch_kick_deg`",
   [SW_LIMIT_INSERTION_ALTITUDE] = "`ascent.insertion_altitude_km`",
+  [SW_LIMIT_MAX_Q_ALPHA] = "`ascent.max_q_alpha_kpa_deg`",
 };
 
 /* A bound as the README shows it: up to ten significant digits, thousands
