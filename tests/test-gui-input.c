@@ -425,6 +425,17 @@ test_first_start (void)
   gtk_text_buffer_get_bounds (notes, &a, &b);
   text = gtk_text_buffer_get_text (notes, &a, &b, FALSE);
   g_assert_true (g_str_has_prefix (text, "Invented demonstration scenario"));
+  /* Saved, the copy is the user's own design: the note goes. */
+  {
+    g_autofree char *saved = g_build_filename (tmp_dir, "mine.stagewright", NULL);
+    g_autoptr (GFile) saved_file = g_file_new_for_path (saved);
+    g_autoptr (GError) error = NULL;
+
+    g_assert_true (sw_window_save_to (w, saved_file, &error));
+    g_assert_false (gtk_widget_get_visible (intro));
+    g_assert_true (sw_window_load_template (w, file));
+    g_assert_true (gtk_widget_get_visible (intro));
+  }
   g_assert_true (gtk_widget_activate_action (GTK_WIDGET (w), "design.new", NULL));
   drain ();
   g_assert_false (gtk_widget_get_visible (intro));
