@@ -11,6 +11,7 @@
 #include "sw-application.h"
 #include "sw-number-field.h"
 #include "sw-sizing.h"
+#include "sw-stage-thrust.h"
 #include "sw-window-private.h"
 
 #include "gui-test-env.h"
@@ -442,6 +443,38 @@ test_first_start (void)
   sw_test_window_close (w);
 }
 
+/* A stage added in the window (Ctrl+Shift+N, as a user does) gets its
+ * thrust from the common-practice ignition thrust-to-weight, so the ascent
+ * is simulated without opening the file; the T/W field then shows it. */
+static void
+test_new_stage_flies (void)
+{
+  SwWindow *w = window_with_demo ("three-stage-simulated.stagewright");
+  SwInspector *inspector = sw_window_get_inspector (w);
+  SwAnalysis *r;
+
+  focus_field (w, sw_inspector_get_field (inspector, SW_INSPECTOR_EPS_FORM));
+  xdo ("key", "ctrl+shift+n", NULL);
+  g_assert_cmpuint (doc_design (w)->n_stages, ==, 4);
+  g_assert_true (doc_design (w)->stages[3].propulsion.has_thrust);
+  g_assert_cmpint (sw_inspector_get_selected (inspector), ==, 3);
+  /* 0.8: upper-stage ignition T/W 0.6 to 1.2 (common practice). */
+  g_assert_cmpfloat_with_epsilon (sw_number_field_get_value (field (w, SW_INSPECTOR_TW)), 0.8,
+                                  1e-9);
+  sw_test_wait_until (sw_test_result_complete, w, 120000, "the ascent of four stages");
+  r = sw_window_get_shown_result (w);
+  if (r->ascent == NULL)
+    g_error ("no ascent for the new stage: %s", r->ascent_message);
+  g_assert_null (strstr (r->ascent_message, "missing"));
+  /* A T/W typed in the field sets the thrust: one edit. */
+  focus_field (w, GTK_WIDGET (field (w, SW_INSPECTOR_TW)));
+  retype ("1.1");
+  xdo ("key", "Return", NULL);
+  g_assert_null (sw_number_field_get_error (field (w, SW_INSPECTOR_TW)));
+  g_assert_cmpfloat_with_epsilon (sw_design_ignition_tw (doc_design (w), 3), 1.1, 1e-9);
+  sw_test_window_close (w);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -462,6 +495,7 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/input/dependent-field", test_dependent_field);
   g_test_add_func ("/gui/input/undo-in-field", test_undo_in_field);
   g_test_add_func ("/gui/input/first-start", test_first_start);
+  g_test_add_func ("/gui/input/new-stage-flies", test_new_stage_flies);
 
   status = g_test_run ();
   sw_gui_test_env_finish (tmp_dir);
