@@ -475,6 +475,56 @@ test_new_stage_flies (void)
   sw_test_window_close (w);
 }
 
+/* The parser behind every field, case by case: the decimal mark of the
+ * locale (',' in German, with '.' its grouping mark), '.' where it is not
+ * the grouping mark, a sign, an exponent; nothing else. */
+static void
+test_parse (void)
+{
+  static const struct {
+    const char *text, *mark, *grouping;
+    gboolean ok;
+    double value;
+  } cases[] = {
+    { "0,95", ",", ".", TRUE, 0.95 },
+    { "0.95", ",", ".", FALSE, 0 },     /* German grouping mark: ambiguous, refused */
+    { "1.500", ",", ".", FALSE, 0 },
+    { "0.95", ".", ",", TRUE, 0.95 },
+    { "0,95", ".", ",", FALSE, 0 },     /* English grouping mark */
+    { "0.95", ",", "", TRUE, 0.95 },    /* a comma locale without grouping takes '.' too */
+    { "-5", ".", "", TRUE, -5.0 },
+    { "\xe2\x88\x92" "3,5", ",", ".", TRUE, -3.5 },  /* U+2212 minus */
+    { "+4", ".", "", TRUE, 4.0 },
+    { ".5", ".", "", TRUE, 0.5 },
+    { "5.", ".", "", TRUE, 5.0 },
+    { " 12 ", ".", "", TRUE, 12.0 },
+    { "1e3", ".", "", TRUE, 1000.0 },
+    { "2,5E-1", ",", ".", TRUE, 0.25 },
+    { "1e", ".", "", FALSE, 0 },
+    { "", ".", "", FALSE, 0 },
+    { "-", ".", "", FALSE, 0 },
+    { "abc", ".", "", FALSE, 0 },
+    { "12 kg", ".", "", FALSE, 0 },
+    { "nan", ".", "", FALSE, 0 },
+    { "inf", ".", "", FALSE, 0 },
+    { "0x10", ".", "", FALSE, 0 },
+    { "1,2,3", ",", ".", FALSE, 0 },
+    { "1e999", ".", "", FALSE, 0 },     /* not finite */
+  };
+
+  for (guint i = 0; i < G_N_ELEMENTS (cases); i++)
+    {
+      double v = -12345.0;
+      gboolean ok = sw_number_parse (cases[i].text, cases[i].mark, cases[i].grouping, &v);
+
+      if (ok != cases[i].ok)
+        g_error ("\"%s\" (mark %s, grouping \"%s\"): %s", cases[i].text, cases[i].mark,
+                 cases[i].grouping, ok ? "accepted" : "refused");
+      if (ok)
+        g_assert_cmpfloat (v, ==, cases[i].value);
+    }
+}
+
 int
 main (int argc, char **argv)
 {
@@ -487,6 +537,7 @@ main (int argc, char **argv)
       return 77;
     }
 
+  g_test_add_func ("/gui/input/parse", test_parse);
   g_test_add_func ("/gui/input/letters", test_letters);
   g_test_add_func ("/gui/input/out-of-range", test_out_of_range);
   g_test_add_func ("/gui/input/decimal-comma", test_decimal_comma);
