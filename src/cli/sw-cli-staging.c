@@ -370,10 +370,10 @@ carpet_csv (const SwCarpet *c)
         double v = c->values[j * c->x.n + i];
         char xb[G_ASCII_DTOSTR_BUF_SIZE], yb[G_ASCII_DTOSTR_BUF_SIZE], vb[G_ASCII_DTOSTR_BUF_SIZE];
 
-        g_ascii_formatd (xb, sizeof xb, "%.10g", sw_carpet_axis_value (&c->x, i));
-        g_ascii_formatd (yb, sizeof yb, "%.10g", sw_carpet_axis_value (&c->y, j));
+        g_ascii_formatd (xb, sizeof xb, "%.15g", sw_carpet_axis_value (&c->x, i));
+        g_ascii_formatd (yb, sizeof yb, "%.15g", sw_carpet_axis_value (&c->y, j));
         if (isfinite (v))
-          g_ascii_formatd (vb, sizeof vb, "%.10g", v);
+          g_ascii_formatd (vb, sizeof vb, "%.15g", v);
         else
           vb[0] = '\0';
         g_print ("%s,%s,%s,%s\n", xb, yb, vb, isfinite (v) ? "yes" : "no");
