@@ -13,6 +13,7 @@
 #include <glib/gstdio.h>
 #include <json-glib/json-glib.h>
 #include <math.h>
+#include <stdlib.h>
 #include <string.h>
 #include <sys/wait.h>
 
@@ -341,6 +342,97 @@ test_carpet_errors (void)
   g_unlink (path);
 }
 
+/* `export --csv` writes the staging decision and the default carpet: the
+ * same numbers as the core's. */
+static void
+test_export_csv (void)
+{
+  g_autofree char *path = write_design ();
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
+  g_autoptr (GError) error = NULL;
+  g_autofree char *dir = g_dir_make_tmp ("sw-cli-staging-XXXXXX", &error);
+  g_autofree char *decision = g_build_filename (dir, "stage-decision.csv", NULL);
+  g_autofree char *carpet = g_build_filename (dir, "carpet.csv", NULL);
+  g_autofree char *text = NULL;
+  g_auto (GStrv) lines = NULL;
+  g_autoptr (SwCarpet) c = NULL;
+  SwCarpetOptions o;
+  SwStaging s;
+  Run r;
+
+  g_assert_no_error (error);
+  run_cli (&r, "export", path, "--csv", dir, "--no-montecarlo", "--no-ascent", NULL);
+  g_assert_cmpint (r.code, ==, 0);
+  run_clear (&r);
+  g_assert_true (sw_staging_compute (d, 6, &s, NULL));
+  g_assert_true (g_file_get_contents (decision, &text, NULL, &error));
+  lines = g_strsplit (text, "\n", -1);
+  g_assert_true (g_str_has_prefix (lines[0], "# Conceptual sizing only"));
+  g_assert_cmpstr (lines[1] + 2, ==, s.weighting);
+  g_assert_true (g_str_has_prefix (lines[2], "stage_count,closes,closes_recovered,liftoff_mass_kg,"));
+  for (guint i = 0; i < 6; i++)
+    {
+      g_auto (GStrv) f = g_strsplit (lines[3 + i], ",", -1);
+      const double core[] = { s.rows[i].liftoff_mass_kg, s.rows[i].liftoff_mass_reused_kg,
+                              s.rows[i].payload_penalty_fraction,
+                              s.rows[i].development_work_years,
+                              s.rows[i].development_reused_work_years,
+                              s.rows[i].cost_per_flight_work_years,
+                              s.rows[i].cost_per_flight_reused_work_years,
+                              s.rows[i].success_probability, s.rows[i].payload_fixed_size_kg,
+                              s.rows[i].score };
+
+      g_assert_cmpuint (g_strv_length (f), ==, 15);
+      g_assert_cmpint (atoi (f[0]), ==, i + 1);
+      g_assert_cmpstr (f[13], ==, (int) i == s.best ? "yes" : "no");
+      g_assert_cmpstr (f[14], ==, i + 1 == 2 ? "yes" : "no");
+      for (guint k = 0; k < G_N_ELEMENTS (core); k++)
+        if (isfinite (core[k]))
+          g_assert_cmpfloat_with_epsilon (g_ascii_strtod (f[3 + k], NULL) / core[k], 1.0, 1e-13);
+        else
+          g_assert_cmpstr (f[3 + k], ==, "");
+    }
+  g_clear_pointer (&text, g_free);
+  g_clear_pointer (&lines, g_strfreev);
+
+  /* The export's carpet: eps of stage 1 from 0.5 to 1.5 times 0.06, the top
+   * stage's Isp from 0.85 to 1.15 times 345 s, 21 x 21, liftoff mass. */
+  memset (&o, 0, sizeof o);
+  g_assert_true (sw_carpet_param_parse ("stages[0].structural_coefficient", d, &o.x, NULL));
+  g_assert_true (sw_carpet_param_parse ("stages[1].isp_vac_s", d, &o.y, NULL));
+  o.x.min = 0.03;
+  o.x.max = 0.09;
+  o.y.min = 293.25;
+  o.y.max = 396.75;
+  o.x.n = o.y.n = 21;
+  o.output = SW_CARPET_LIFTOFF_MASS;
+  c = sw_carpet_compute (d, &o, NULL);
+  g_assert_nonnull (c);
+  g_assert_true (g_file_get_contents (carpet, &text, NULL, &error));
+  lines = g_strsplit (text, "\n", -1);
+  g_assert_cmpstr (lines[1], ==, "stages[0].structural_coefficient,stages[1].isp_vac_s,"
+                                 "liftoff_mass_kg,closes");
+  g_assert_cmpuint (g_strv_length (lines), ==, 2 + 21 * 21 + 1);
+  for (guint k = 0; k < 21 * 21; k += 37)
+    {
+      g_auto (GStrv) f = g_strsplit (lines[2 + k], ",", -1);
+      g_assert_cmpfloat_with_epsilon (g_ascii_strtod (f[2], NULL) / c->values[k], 1.0, 1e-13);
+    }
+  g_unlink (decision);
+  g_unlink (carpet);
+  {
+    g_autoptr (GDir) gd = g_dir_open (dir, 0, NULL);
+    const char *name;
+    while ((name = g_dir_read_name (gd)) != NULL)
+      {
+        g_autofree char *p = g_build_filename (dir, name, NULL);
+        g_unlink (p);
+      }
+  }
+  g_rmdir (dir);
+  g_unlink (path);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -349,5 +441,6 @@ main (int argc, char **argv)
   g_test_add_func ("/cli/staging/stages-table", test_stages_table);
   g_test_add_func ("/cli/staging/carpet-json-csv", test_carpet_json_csv);
   g_test_add_func ("/cli/staging/carpet-errors", test_carpet_errors);
+  g_test_add_func ("/cli/staging/export-csv", test_export_csv);
   return g_test_run ();
 }

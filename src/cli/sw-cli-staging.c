@@ -8,6 +8,7 @@
 #include "sw-cli.h"
 
 #include "sw-carpet.h"
+#include "sw-csv-staging.h"
 #include "sw-economics.h"
 #include "sw-format.h"
 #include "sw-staging.h"
@@ -356,28 +357,10 @@ carpet_json (const SwDesign *d, const SwCarpet *c)
 static void
 carpet_csv (const SwCarpet *c)
 {
-  g_autofree char *xn = sw_carpet_param_dup_name (&c->x);
-  g_autofree char *yn = sw_carpet_param_dup_name (&c->y);
+  /* The export's writer: the cautions as a comment line, then the points. */
+  g_autofree char *text = sw_csv_carpet_text (c);
 
-  /* The cautions travel with every export, as a comment line. */
-  g_print ("# %s\n", sw_format_cautions ());
-  g_print ("%s,%s,%s_%s,closes\n", xn, yn, sw_carpet_output_to_string (c->output),
-           c->output == SW_CARPET_DEVELOPMENT || c->output == SW_CARPET_COST_PER_FLIGHT
-             ? "work_years" : "kg");
-  for (guint j = 0; j < c->y.n; j++)
-    for (guint i = 0; i < c->x.n; i++)
-      {
-        double v = c->values[j * c->x.n + i];
-        char xb[G_ASCII_DTOSTR_BUF_SIZE], yb[G_ASCII_DTOSTR_BUF_SIZE], vb[G_ASCII_DTOSTR_BUF_SIZE];
-
-        g_ascii_formatd (xb, sizeof xb, "%.15g", sw_carpet_axis_value (&c->x, i));
-        g_ascii_formatd (yb, sizeof yb, "%.15g", sw_carpet_axis_value (&c->y, j));
-        if (isfinite (v))
-          g_ascii_formatd (vb, sizeof vb, "%.15g", v);
-        else
-          vb[0] = '\0';
-        g_print ("%s,%s,%s,%s\n", xb, yb, vb, isfinite (v) ? "yes" : "no");
-      }
+  g_print ("%s", text);
 }
 
 static void
