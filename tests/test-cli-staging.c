@@ -297,12 +297,12 @@ test_carpet_json_csv (void)
       if (isfinite (v))
         {
           g_assert_cmpfloat_with_epsilon (g_ascii_strtod (f[2], NULL) / v, 1.0, 1e-11);
-          g_assert_cmpstr (f[3], ==, "yes");
+          g_assert_cmpstr (f[3], ==, "true");
         }
       else
         {
           g_assert_cmpstr (f[2], ==, "");
-          g_assert_cmpstr (f[3], ==, "no");
+          g_assert_cmpstr (f[3], ==, "false");
         }
     }
   run_clear (&r);
@@ -384,8 +384,8 @@ test_export_csv (void)
 
       g_assert_cmpuint (g_strv_length (f), ==, 15);
       g_assert_cmpint (atoi (f[0]), ==, i + 1);
-      g_assert_cmpstr (f[13], ==, (int) i == s.best ? "yes" : "no");
-      g_assert_cmpstr (f[14], ==, i + 1 == 2 ? "yes" : "no");
+      g_assert_cmpstr (f[13], ==, (int) i == s.best ? "true" : "false");
+      g_assert_cmpstr (f[14], ==, i + 1 == 2 ? "true" : "false");
       for (guint k = 0; k < G_N_ELEMENTS (core); k++)
         if (isfinite (core[k]))
           g_assert_cmpfloat_with_epsilon (g_ascii_strtod (f[3 + k], NULL) / core[k], 1.0, 1e-13);

@@ -54,8 +54,8 @@ sw_csv_staging_decision (const SwAnalysis *b)
     {
       const SwStagingRow *r = &st.rows[i];
 
-      g_string_append_printf (s, "%u,%s,%s,", r->n_stages, r->feasible ? "yes" : "no",
-                              r->reused_feasible ? "yes" : "no");
+      g_string_append_printf (s, "%u,%s,%s,", r->n_stages, r->feasible ? "true" : "false",
+                              r->reused_feasible ? "true" : "false");
       number (s, r->liftoff_mass_kg, FALSE);
       number (s, r->liftoff_mass_reused_kg, FALSE);
       number (s, r->payload_penalty_fraction, FALSE);
@@ -66,8 +66,8 @@ sw_csv_staging_decision (const SwAnalysis *b)
       number (s, r->success_probability, FALSE);
       number (s, r->payload_fixed_size_kg, FALSE);
       number (s, r->score, FALSE);
-      g_string_append_printf (s, "%s,%s\n", (int) i == st.best ? "yes" : "no",
-                              r->n_stages == st.design_stages ? "yes" : "no");
+      g_string_append_printf (s, "%s,%s\n", (int) i == st.best ? "true" : "false",
+                              r->n_stages == st.design_stages ? "true" : "false");
     }
   return g_string_free (s, FALSE);
 }
@@ -113,7 +113,7 @@ sw_csv_carpet_text (const SwCarpet *c)
         number (s, sw_carpet_axis_value (&c->x, i), FALSE);
         number (s, sw_carpet_axis_value (&c->y, j), FALSE);
         number (s, v, FALSE);
-        g_string_append (s, isfinite (v) ? "yes\n" : "no\n");
+        g_string_append (s, isfinite (v) ? "true\n" : "false\n");
       }
   return g_string_free (s, FALSE);
 }
