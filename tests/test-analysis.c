@@ -90,6 +90,22 @@ test_verdicts (void)
   g_assert_null (a6->ascent);
 }
 
+/* Without a flight there is no "reaches the orbit, but": a limit the
+ * figures break is told in the paper-only reason. */
+static void
+test_paper_only_with_limit (void)
+{
+  g_autoptr (SwDesign) paper = demo ("all-solid-concept.stagewright");
+  g_autoptr (SwAnalysis) a = NULL;
+  SwAnalysisOptions o;
+
+  g_assert_true (paper->stages[0].propulsion.present);
+  sw_analysis_options_init (&o);
+  o.min_thrust_to_weight = 5.0;
+  a = sw_analysis_run (paper, &o, NULL);
+  assert_verdict (a, "paper-only", "below your limit of 5.00");
+}
+
 /* Precedence: a shortfall outranks a broken limit. */
 static void
 test_precedence (void)
@@ -159,6 +175,7 @@ main (int argc, char **argv)
   g_test_add_func ("/analysis/state-strings", test_state_strings);
   g_test_add_func ("/analysis/verdicts", test_verdicts);
   g_test_add_func ("/analysis/precedence", test_precedence);
+  g_test_add_func ("/analysis/paper-only-with-limit", test_paper_only_with_limit);
   g_test_add_func ("/analysis/copy-shares", test_copy_shares);
   g_test_add_func ("/analysis/cancel-and-phases", test_cancel_and_phases);
   return g_test_run ();

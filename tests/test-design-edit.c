@@ -651,6 +651,50 @@ test_stage_fields (void)
 }
 
 static void
+test_monte_carlo_inputs (void)
+{
+  g_autoptr (SwDesign) d = sw_design_new_default ();
+  g_autoptr (SwDesign) again = NULL;
+  g_autofree char *data = NULL;
+  const SwSpread normal = { SW_SPREAD_NORMAL, 1.5 }, uniform = { SW_SPREAD_UNIFORM, 120.0 };
+  const SwSpread none_with_width = { SW_SPREAD_NONE, 7.0 };
+  gsize len;
+
+  g_assert_false (d->uncertainty.present);
+  sw_design_set_mc_samples (d, 2500);
+  g_assert_true (d->uncertainty.present);
+  g_assert_true (d->uncertainty.has_samples);
+  g_assert_cmpuint (sw_uncertainty_samples (&d->uncertainty), ==, 2500);
+  g_assert_false (d->uncertainty.has_seed);
+  sw_design_set_mc_seed (d, 4294967295u);
+  g_assert_cmpuint (sw_uncertainty_seed (&d->uncertainty), ==, 4294967295u);
+
+  sw_design_set_spreads (d, &normal, NULL, &uniform);
+  g_assert_cmpint (d->uncertainty.isp.kind, ==, SW_SPREAD_NORMAL);
+  g_assert_cmpfloat (d->uncertainty.isp.width, ==, 1.5);
+  g_assert_cmpint (d->uncertainty.structural_coefficient.kind, ==, SW_SPREAD_NONE);
+  g_assert_cmpint (d->uncertainty.losses.kind, ==, SW_SPREAD_UNIFORM);
+  g_assert_cmpfloat (d->uncertainty.losses.width, ==, 120.0);
+  /* Switched off: the width goes to 0, so equal designs save the same. */
+  sw_design_set_spreads (d, NULL, NULL, &none_with_width);
+  g_assert_cmpint (d->uncertainty.losses.kind, ==, SW_SPREAD_NONE);
+  g_assert_cmpfloat (d->uncertainty.losses.width, ==, 0.0);
+  g_assert_cmpfloat (d->uncertainty.isp.width, ==, 1.5);
+  assert_valid (d);
+
+  /* What the edits set is what a save and a load give back. */
+  data = sw_design_to_data (d, &len);
+  again = sw_design_load_data (data, (gssize) len, "edited", NULL, NULL);
+  g_assert_nonnull (again);
+  g_assert_true (sw_design_equal (d, again));
+
+  /* A sample count outside 100 .. 1,000,000 is stored, and the loader's
+   * check refuses it. */
+  sw_design_set_mc_samples (d, 99);
+  g_assert_false (sw_design_validate (d, NULL, NULL));
+}
+
+static void
 test_baseline (void)
 {
   g_autoptr (SwDesign) d = sw_design_new_default ();
@@ -696,6 +740,7 @@ main (int argc, char **argv)
   g_test_add_func ("/core/design-edit/names", test_names);
   g_test_add_func ("/core/design-edit/mission-fields", test_mission_fields);
   g_test_add_func ("/core/design-edit/stage-fields", test_stage_fields);
+  g_test_add_func ("/core/design-edit/monte-carlo-inputs", test_monte_carlo_inputs);
   g_test_add_func ("/core/design-edit/baseline", test_baseline);
   return g_test_run ();
 }

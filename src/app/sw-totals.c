@@ -132,7 +132,9 @@ update_deltas (SwTotals *self)
   set_delta (self->delta_caption, tooltip, NULL);
   set_delta (self->liftoff_delta, liftoff, tooltip);
   set_delta (self->fraction_delta, fraction, tooltip);
-  set_delta (self->margin_delta, margin, tooltip);
+  /* The headroom's change is no change of the simulated margin above it. */
+  set_delta (self->margin_delta, "", NULL);
+  (void) margin;
 }
 
 static void
@@ -168,33 +170,49 @@ update (SwTotals *self)
   s = &r->sizing;
   liftoff = sw_format_mass (s->liftoff_mass_kg);
   fraction = sw_format_percent (s->payload_fraction, 2);
-  margin = sw_format_speed (s->margin_m_s);
-  dv = sw_format_speed (s->delta_v_m_s);
+  /* The headline margin is the simulated one; the headroom to the stages'
+   * limit is no performance margin and stays on the line below. */
+  margin = isfinite (r->simulated_margin_m_s) ? sw_format_speed_delta (r->simulated_margin_m_s)
+                                              : g_strdup (SW_NO_VALUE);
+  dv = sw_format_speed (r->delta_v_m_s);
   lim = sw_format_speed (s->delta_v_limit_m_s);
   /* Translators: %s is a speed such as "9,400 m/s" */
   required = g_strdup_printf (_("Required delta-v %s"), dv);
-  /* Translators: %s is a speed such as "12,500 m/s" */
-  limit = g_strdup_printf (_("Vehicle limit %s (no payload)"), lim);
+  if (s->feasible)
+    {
+      g_autofree char *head = sw_format_speed (r->headroom_m_s);
+      /* Translators: two speeds: the stages' limit and the headroom below it */
+      limit = g_strdup_printf (_("Stages' limit %s (no payload), headroom %s"), lim, head);
+    }
+  else
+    /* Translators: %s is a speed such as "12,500 m/s" */
+    limit = g_strdup_printf (_("Stages' limit %s (no payload)"), lim);
   gtk_inscription_set_text (self->liftoff_label, liftoff);
   gtk_inscription_set_text (self->fraction_label, fraction);
   gtk_inscription_set_text (self->margin_label, margin);
   gtk_inscription_set_text (self->required_label, required);
   gtk_inscription_set_text (self->limit_label, limit);
 
-  if (!s->feasible)
+  /* The verdict: icon and style by state, green only when the simulated
+   * ascent reaches the orbit within the limits. */
+  status = g_strdup_printf (_("%s. %s"), sw_verdict_state_title (r->verdict.state),
+                            r->verdict.reason);
+  set_status (self, sw_totals_status_page (r->verdict.state), status);
+}
+
+const char *
+sw_totals_status_page (SwVerdictState state)
+{
+  switch (state)
     {
-      status = g_strdup_printf (_("Not feasible. %s"), s->reason);
-      set_status (self, "bad", status);
+    case SW_VERDICT_REACHES_ORBIT: return "ok";
+    case SW_VERDICT_OVER_LIMIT: return "warn";
+    case SW_VERDICT_INFEASIBLE:
+    case SW_VERDICT_SHORT_OF_ORBIT: return "bad";
+    case SW_VERDICT_PAPER_ONLY:
+    case SW_VERDICT_PENDING:
+    default: return "note";
     }
-  else if (s->reason[0] != '\0')
-    {
-      status = g_strdup_printf (_("Feasible. %s"), s->reason);
-      set_status (self, "note", status);
-    }
-  else
-    /* A fixed text: a wrapping label that changes costs a relayout of the
-     * column on every edit, and the margin is shown above anyway. */
-    set_status (self, "ok", _("Feasible: every stage gives its share of the delta-v."));
 }
 
 GtkWidget *
@@ -244,6 +262,8 @@ sw_totals_get_text (SwTotals *self, SwTotalsField field)
     case SW_TOTALS_MARGIN: return gtk_inscription_get_text (self->margin_label);
     case SW_TOTALS_REQUIRED: return gtk_inscription_get_text (self->required_label);
     case SW_TOTALS_LIMIT: return gtk_inscription_get_text (self->limit_label);
+    case SW_TOTALS_STATUS_PAGE:
+      return gtk_stack_get_visible_child_name (self->status_stack);
     case SW_TOTALS_STATUS:
       return gtk_label_get_text (GTK_LABEL (gtk_widget_get_last_child (
         gtk_stack_get_visible_child (self->status_stack))));

@@ -400,6 +400,7 @@ load_file (SwWindow *self, GFile *file, gboolean as_copy)
     sw_document_reset (self->document, sw_document_dup_design (self->document), NULL, FALSE);
   else
     remember_file (self, file);
+  sw_inspector_set_intro (self->inspector, as_copy);
   sw_inspector_set_selected (self->inspector, 0);
   return TRUE;
 }
@@ -461,6 +462,7 @@ static void
 new_design (SwWindow *self)
 {
   sw_document_reset (self->document, sw_design_new_default (), NULL, FALSE);
+  sw_inspector_set_intro (self->inspector, FALSE);
   hide_message (self);
   sw_inspector_set_selected (self->inspector, 0);
 }
@@ -614,6 +616,10 @@ save (SwWindow *self)
 static void
 question_response_cb (SwWindow *self, int response, GtkDialog *dialog)
 {
+  /* The answer may close this window at once: the dialog, finalized only
+   * after its response signal, must not point at it by then. */
+  g_signal_handlers_disconnect_by_func (dialog, question_response_cb, self);
+  gtk_window_set_transient_for (GTK_WINDOW (dialog), NULL);
   gtk_window_destroy (GTK_WINDOW (dialog));
   switch (response)
     {
@@ -835,7 +841,12 @@ select_stage_cb (GtkWidget *widget, GVariant *args, gpointer user_data)
 {
   SwWindow *self = SW_WINDOW (widget);
   int sel = sw_inspector_get_selected (self->inspector) + g_variant_get_int32 (args);
+  GtkWidget *focus = gtk_root_get_focus (GTK_ROOT (self));
 
+  /* Not while typing in a field: the key belongs to the field, and a new
+   * stage must not replace what is being typed. */
+  if (focus != NULL && (GTK_IS_EDITABLE (focus) || GTK_IS_TEXT_VIEW (focus)))
+    return FALSE;
   if (sel < 0 || (guint) sel >= sw_document_get_design (self->document)->n_stages)
     return FALSE;
   sw_inspector_set_selected (self->inspector, sel);

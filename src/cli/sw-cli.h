@@ -38,6 +38,9 @@ void      sw_cli_print_json (JsonNode *node);
 void      sw_cli_add_number (JsonBuilder *b, const char *key, double value);
 /* A number for tables: the core formatter's (sw_format_number). */
 char     *sw_cli_format (double value, int decimals);
+/* The same for a printf argument: the string lives until 16 more are made. */
+const char *sw_cli_num (double value, int decimals);
+const char *sw_cli_num_signed (double value, int decimals);  /* "+12.5", "−3.0" */
 /* Loads @filename and runs every phase of the analysis @options ask for;
  * prints the error and sets *exit_code when the design cannot be read or
  * sized. */

@@ -400,6 +400,46 @@ sw_design_set_stage_structural_coefficient (SwDesign *design, guint index, doubl
   return TRUE;
 }
 
+/* ---- the Monte Carlo inputs -------------------------------------------- */
+
+void
+sw_design_set_mc_samples (SwDesign *design, guint samples)
+{
+  g_return_if_fail (design != NULL);
+  design->uncertainty.present = TRUE;
+  design->uncertainty.has_samples = TRUE;
+  design->uncertainty.samples = samples;
+}
+
+void
+sw_design_set_mc_seed (SwDesign *design, guint32 seed)
+{
+  g_return_if_fail (design != NULL);
+  design->uncertainty.present = TRUE;
+  design->uncertainty.has_seed = TRUE;
+  design->uncertainty.seed = seed;
+}
+
+static void
+set_spread (SwSpread *dest, const SwSpread *src)
+{
+  if (src == NULL)
+    return;
+  dest->kind = src->kind;
+  dest->width = src->kind == SW_SPREAD_NONE ? 0.0 : src->width;
+}
+
+void
+sw_design_set_spreads (SwDesign *design, const SwSpread *isp,
+                       const SwSpread *structural_coefficient, const SwSpread *losses)
+{
+  g_return_if_fail (design != NULL);
+  design->uncertainty.present = TRUE;
+  set_spread (&design->uncertainty.isp, isp);
+  set_spread (&design->uncertainty.structural_coefficient, structural_coefficient);
+  set_spread (&design->uncertainty.losses, losses);
+}
+
 /* ---- the baseline ------------------------------------------------------ */
 
 void

@@ -104,6 +104,19 @@ gboolean sw_design_set_stage_isp_sl (SwDesign *design, guint index, double isp_s
 /* The structural coefficient, clamped to the limits table's range. */
 gboolean sw_design_set_stage_structural_coefficient (SwDesign *design, guint index, double eps);
 
+/* ---- the Monte Carlo inputs (the "uncertainty" object) ----------------- */
+
+/* Each marks the object given (it is saved from then on).  The sample count
+ * and the seed are taken as they are: the loader's checks of their ranges
+ * (sw_design_validate) stay in force. */
+void     sw_design_set_mc_samples (SwDesign *design, guint samples);
+void     sw_design_set_mc_seed (SwDesign *design, guint32 seed);
+/* The three spreads at once (NULL leaves one as it is); a spread of kind
+ * SW_SPREAD_NONE is stored with width 0. */
+void     sw_design_set_spreads (SwDesign *design, const SwSpread *isp,
+                                const SwSpread *structural_coefficient,
+                                const SwSpread *losses);
+
 /* ---- the baseline ------------------------------------------------------ */
 
 /* The design as it is now becomes its own baseline (replacing any). */

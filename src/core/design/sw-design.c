@@ -855,6 +855,70 @@ sw_design_to_json (const SwDesign *design)
   return json_builder_get_root (b);
 }
 
+/* The shortest of %.15g, %.16g and %.17g that reads back as the same double:
+ * a file says 0.07, not the 0.070000000000000007 that "%.17g" writes. */
+static void
+append_shortest (GString *out, double value)
+{
+  char buf[G_ASCII_DTOSTR_BUF_SIZE];
+
+  for (int digits = 15; digits <= 17; digits++)
+    {
+      char format[8];
+
+      g_snprintf (format, sizeof format, "%%.%dg", digits);
+      g_ascii_formatd (buf, sizeof buf, format, value);
+      if (g_ascii_strtod (buf, NULL) == value)
+        break;
+    }
+  g_string_append (out, buf);
+}
+
+/* Rewrites every non-integer number of the generated JSON @text (outside
+ * strings) in its shortest exact form; integers stay as written. */
+static char *
+shorten_numbers (const char *text)
+{
+  GString *out = g_string_sized_new (strlen (text) + 1);
+  const char *p = text;
+
+  while (*p != '\0')
+    {
+      if (*p == '"')
+        {
+          const char *q = p + 1;
+          while (*q != '\0' && *q != '"')
+            q += (*q == '\\' && q[1] != '\0') ? 2 : 1;
+          if (*q == '"')
+            q++;
+          g_string_append_len (out, p, q - p);
+          p = q;
+        }
+      else if (*p == '-' || g_ascii_isdigit (*p))
+        {
+          const char *q = p + 1;
+          gboolean real = FALSE;
+          while (g_ascii_isdigit (*q) || *q == '.' || *q == 'e' || *q == 'E' || *q == '+'
+                 || *q == '-')
+            {
+              real = real || *q == '.' || *q == 'e' || *q == 'E';
+              q++;
+            }
+          if (real)
+            {
+              g_autofree char *token = g_strndup (p, q - p);
+              append_shortest (out, g_ascii_strtod (token, NULL));
+            }
+          else
+            g_string_append_len (out, p, q - p);
+          p = q;
+        }
+      else
+        g_string_append_c (out, *p++);
+    }
+  return g_string_free (out, FALSE);
+}
+
 char *
 sw_design_to_data (const SwDesign *design, gsize *length)
 {
@@ -868,7 +932,8 @@ sw_design_to_data (const SwDesign *design, gsize *length)
   text = json_generator_to_data (gen, NULL);
   /* End with a newline, as text files do. */
   {
-    char *out = g_strconcat (text, "\n", NULL);
+    g_autofree char *shortest = shorten_numbers (text);
+    char *out = g_strconcat (shortest, "\n", NULL);
     if (length != NULL)
       *length = strlen (out);
     return out;
