@@ -606,7 +606,8 @@ test_csv_values (void)
   g_autofree SwSweep *sweep = g_new0 (SwSweep, 1);
   const char *const files[] = { "stages.csv", "stage-count.csv", "delta-v-sweep.csv",
                                 "sensitivity.csv", "reliability.csv",
-                                "uncertainty-histogram.csv" };
+                                "uncertainty-histogram.csv", "stage-decision.csv",
+                                "carpet.csv" };
   SwSizing s;
   SwStageCurve curve, base;
   SwReliability rel;
