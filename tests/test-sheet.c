@@ -781,6 +781,125 @@ test_axis_units (void)
   }
 }
 
+/* The legends' markers, from the pixels: each marker is drawn 7 pt left of
+ * its words (the layout's rule: marker centred 4 pt into a 12 pt slot, words
+ * 11 pt in), in the colour the plot uses, and whole: the band's box spans
+ * 8 pt, the cross has both strokes. */
+#define LEGEND_SCALE 4.0
+
+static void
+marker_pixels (cairo_surface_t *img, double cx, double cy, guint32 hex, double alpha,
+               double *n, double *sx, double *sy, double *x0, double *x1, guint quad[4])
+{
+  const guchar *data = cairo_image_surface_get_data (img);
+  int stride = cairo_image_surface_get_stride (img);
+  double want[3];
+
+  for (int k = 0; k < 3; k++)
+    {
+      double c = ((hex >> (16 - 8 * k)) & 0xff) / 255.0;
+      want[k] = 255.0 * (1.0 - alpha + alpha * c);
+    }
+  *n = *sx = *sy = 0.0;
+  *x0 = INFINITY;
+  *x1 = -INFINITY;
+  memset (quad, 0, 4 * sizeof (guint));
+  for (int py = (int) ((cy - 6.0) * LEGEND_SCALE); py <= (int) ((cy + 6.0) * LEGEND_SCALE); py++)
+    for (int px = (int) ((cx - 7.0) * LEGEND_SCALE); px <= (int) ((cx + 7.0) * LEGEND_SCALE);
+         px++)
+      {
+        guint32 v = *(const guint32 *) (data + py * stride + 4 * px);
+        double rgb[3] = { (v >> 16) & 0xff, (v >> 8) & 0xff, v & 0xff };
+        double d = 0.0, x = (px + 0.5) / LEGEND_SCALE, y = (py + 0.5) / LEGEND_SCALE;
+        for (int k = 0; k < 3; k++)
+          d = MAX (d, fabs (rgb[k] - want[k]));
+        if (d > 3.0)
+          continue;
+        *n += 1.0;
+        *sx += x;
+        *sy += y;
+        *x0 = MIN (*x0, x);
+        *x1 = MAX (*x1, x);
+        /* Away from the centre, where the strokes of a cross meet. */
+        if (fabs (x - cx) > 1.5 && fabs (y - cy) > 1.5)
+          quad[(x > cx ? 1 : 0) + (y > cy ? 2 : 0)]++;
+      }
+}
+
+static void
+test_legend_markers (void)
+{
+  g_autoptr (SwAnalysis) a = briefing (WITH_MONTECARLO | WITH_BAND);
+  g_autoptr (GArray) boxes = page_boxes (a);
+  cairo_surface_t *img;
+  cairo_t *cr;
+  double w, h;
+  static const struct {
+    const char *text;
+    guint32 color;
+    double alpha;
+    double half_width;   /* half the marker's drawn width, pt; 0: a dot */
+    gboolean cross;
+  } items[] = {
+    { "optimal split", ACCENT, 1.0, 4.0, FALSE },
+    { "5\342\200\22395 % band", ACCENT, 0.16, 4.0, FALSE },
+    { "not feasible", BAD, 1.0, 3.0, TRUE },
+    { "this design", SECOND, 1.0, 3.0, FALSE },
+  };
+
+  sw_sheet_paper_size (SW_PAPER_A4, &w, &h);
+  img = cairo_image_surface_create (CAIRO_FORMAT_RGB24, (int) ceil (w * LEGEND_SCALE),
+                                    (int) ceil (h * LEGEND_SCALE));
+  cr = cairo_create (img);
+  cairo_set_source_rgb (cr, 1, 1, 1);
+  cairo_paint (cr);
+  cairo_scale (cr, LEGEND_SCALE, LEGEND_SCALE);
+  sw_sheet_draw_page (cr, a, w, h);
+  cairo_destroy (cr);
+  cairo_surface_flush (img);
+
+  for (guint i = 0; i < G_N_ELEMENTS (items); i++)
+    {
+      /* The stage-count chart's legend: the row of "optimal split" (the
+       * reliability chart has a "this design" of its own). */
+      const SwSheetTextBox *row = need_box (boxes, items[0].text), *b = NULL;
+      /* The ink starts a fraction of a point right of the layout's origin. */
+      double mx, cy;
+      double n, sx, sy, x0, x1;
+      guint quad[4];
+
+      for (guint j = 0; j < boxes->len && b == NULL; j++)
+        {
+          const SwSheetTextBox *c = &g_array_index (boxes, SwSheetTextBox, j);
+          if (strcmp (c->text, items[i].text) == 0
+              && fabs (c->y + c->h / 2.0 - (row->y + row->h / 2.0)) < 2.0)
+            b = c;
+        }
+      if (b == NULL)
+        g_error ("\"%s\" is not in the legend of the stage-count chart", items[i].text);
+
+      mx = b->x - 7.0;
+      cy = b->y + b->h / 2.0;
+      marker_pixels (img, mx, cy, items[i].color, items[i].alpha, &n, &sx, &sy, &x0, &x1, quad);
+      if (n < 8.0)
+        g_error ("no marker in its colour left of \"%s\"", items[i].text);
+      /* Centred on mx: 1 pt for the ink's offset and antialiasing; a marker
+       * moved by half its width is 4 pt off. */
+      if (fabs (sx / n - mx) > 1.0)
+        g_error ("the marker of \"%s\" is centred at x %.2f, not %.2f", items[i].text, sx / n,
+                 mx);
+      /* Its width as drawn, to a point (stroke caps and edges). */
+      if (fabs ((x1 - x0) - 2.0 * items[i].half_width) > 1.0)
+        g_error ("the marker of \"%s\" is %.2f pt wide, not %.1f", items[i].text, x1 - x0,
+                 2.0 * items[i].half_width);
+      if (items[i].cross)
+        for (guint q = 0; q < 4; q++)
+          if (quad[q] < 3)
+            g_error ("the cross left of \"%s\" misses a stroke (quadrant %u)", items[i].text, q);
+    }
+  cairo_surface_destroy (img);
+}
+
 static void
 remove_tree (const char *dir)
 {
@@ -815,6 +934,7 @@ main (int argc, char **argv)
   g_test_add_func ("/sheet/numbers", test_numbers);
   g_test_add_func ("/sheet/font-sizes", test_font_sizes);
   g_test_add_func ("/sheet/axis-units", test_axis_units);
+  g_test_add_func ("/sheet/legend-markers", test_legend_markers);
   status = g_test_run ();
   remove_tree (tmpdir);
   g_free (tmpdir);
