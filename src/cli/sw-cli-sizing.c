@@ -7,6 +7,7 @@
 
 #include "sw-format.h"
 #include "sw-limits.h"
+#include "sw-phases.h"
 
 #include <glib/gi18n.h>
 #include <math.h>
@@ -107,9 +108,40 @@ sizing_to_json (const SwAnalysis *a)
       sw_cli_add_number (b, "structural_mass_kg", r->structural_mass_kg);
       sw_cli_add_number (b, "initial_mass_kg", r->initial_mass_kg);
       sw_cli_add_number (b, "burnout_mass_kg", r->burnout_mass_kg);
+      json_builder_set_member_name (b, "fixed");
+      json_builder_add_boolean_value (b, r->fixed);
+      if (d->stages[i].propellant.kind != SW_PROPELLANT_NONE)
+        {
+          SwStageShape shape;
+          sw_sizing_stage_shape (d, s, i, &shape);
+          sw_cli_add_number (b, "propellant_volume_m3", shape.propellant_volume_m3);
+          sw_cli_add_number (b, "tank_volume_m3", shape.tank_volume_m3);
+          sw_cli_add_number (b, "length_m", shape.length_m);
+          sw_cli_add_number (b, "diameter_m", sw_stage_effective_diameter (d, i));
+        }
       json_builder_end_object (b);
     }
   json_builder_end_array (b);
+  {
+    SwPhase phases[SW_MAX_STAGES];
+    guint n_phases = sw_sizing_phases (d, s, phases);
+
+    json_builder_set_member_name (b, "phases");
+    json_builder_begin_array (b);
+    for (guint k = 0; k < n_phases; k++)
+      {
+        json_builder_begin_object (b);
+        json_builder_set_member_name (b, "name");
+        json_builder_add_string_value (b, d->stages[phases[k].stage].name);
+        sw_cli_add_number (b, "delta_v_m_s", phases[k].delta_v_m_s);
+        sw_cli_add_number (b, "exhaust_velocity_m_s", phases[k].exhaust_velocity_m_s);
+        sw_cli_add_number (b, "initial_mass_kg", phases[k].initial_mass_kg);
+        sw_cli_add_number (b, "final_mass_kg", phases[k].final_mass_kg);
+        sw_cli_add_number (b, "duration_s", phases[k].duration_s);
+        json_builder_end_object (b);
+      }
+    json_builder_end_array (b);
+  }
   json_builder_set_member_name (b, "caution");
   json_builder_add_string_value (b, sw_format_cautions ());
   json_builder_end_object (b);
