@@ -6,6 +6,7 @@
 #include "config.h"
 
 #include "sw-design.h"
+#include "sw-design-fields.h"
 #include "sw-propellant.h"
 
 #include <math.h>
@@ -199,9 +200,56 @@ test_set_kind (void)
   p.has_mixture_ratio = TRUE;
   p.mixture_ratio = 3.0;
   sw_propellant_set_kind (&p, SW_PROPELLANT_SOLID_COMPOSITE);
-  g_assert_false (p.has_mixture_ratio);
+  g_assert_true (p.has_mixture_ratio);   /* kept: a solid with one is refused */
   g_assert_cmpstr (p.custom_name, ==, "");
+  g_assert_false (sw_propellant_validate_stage (&p, NULL, "stages[0]", NULL));
+  p.has_mixture_ratio = FALSE;
+  p.mixture_ratio = 0.0;
   g_assert_true (sw_propellant_validate_stage (&p, NULL, "stages[0]", NULL));
+}
+
+/* The named edits of the window: the propellant choice and the fields. */
+static void
+test_design_edits (void)
+{
+  g_autoptr (SwDesign) d = sw_design_new_default ();
+  g_autoptr (GError) error = NULL;
+  double v;
+
+  /* The densities belong to a propellant of the user's own. */
+  g_assert_false (sw_design_field_set (d, SW_FIELD_OXIDIZER_DENSITY, 0, 1100.0, &error));
+  g_assert_nonnull (strstr (error->message, "stages[0].propellant.oxidizer_density_kg_m3"));
+  g_clear_error (&error);
+  g_assert_false (sw_design_field_get (d, SW_FIELD_FUEL_DENSITY, 0, &v));
+  /* A mixture ratio needs a liquid propellant. */
+  g_assert_false (sw_design_field_set (d, SW_FIELD_MIXTURE_RATIO, 0, 2.3, &error));
+  g_clear_error (&error);
+  g_assert_true (sw_design_set_propellant (d, 0, SW_PROPELLANT_LOX_KEROSENE, &error));
+  g_assert_no_error (error);
+  g_assert_true (sw_design_field_set (d, SW_FIELD_MIXTURE_RATIO, 0, 2.3, &error));
+  g_assert_true (sw_design_field_get (d, SW_FIELD_MIXTURE_RATIO, 0, &v));
+  g_assert_cmpfloat (v, ==, 2.3);
+  g_assert_true (sw_design_set_propellant (d, 0, SW_PROPELLANT_CUSTOM, &error));
+  g_assert_true (sw_design_field_get (d, SW_FIELD_FUEL_DENSITY, 0, &v));
+  g_assert_cmpfloat (v, ==, 809.95);   /* open property data, RP-1 */
+  g_assert_true (sw_design_field_set (d, SW_FIELD_FUEL_DENSITY, 0, 820.0, &error));
+  g_assert_false (sw_design_field_unset (d, SW_FIELD_FUEL_DENSITY, 0, &error));
+  g_clear_error (&error);
+  /* A solid cannot keep the mixture ratio: the choice is refused, the
+   * design unchanged. */
+  g_assert_false (sw_design_set_propellant (d, 0, SW_PROPELLANT_SOLID_COMPOSITE, &error));
+  g_assert_nonnull (error);
+  g_clear_error (&error);
+  g_assert_cmpint (d->stages[0].propellant.kind, ==, SW_PROPELLANT_CUSTOM);
+  g_assert_true (sw_design_field_unset (d, SW_FIELD_MIXTURE_RATIO, 0, &error));
+  g_assert_true (sw_design_set_propellant (d, 0, SW_PROPELLANT_SOLID_COMPOSITE, &error));
+  g_assert_no_error (error);
+  /* A fixed load and the ullage. */
+  g_assert_true (sw_design_field_set (d, SW_FIELD_PROPELLANT_LOAD, 1, 8000.0, &error));
+  g_assert_true (sw_design_field_set (d, SW_FIELD_ULLAGE, 1, 0.04, &error));
+  g_assert_false (sw_design_field_set (d, SW_FIELD_ULLAGE, 1, 0.6, &error));
+  g_assert_nonnull (strstr (error->message, "accepted range"));
+  g_assert_cmpfloat (d->stages[1].propellant.ullage_fraction, ==, 0.04);
 }
 
 int
@@ -214,5 +262,6 @@ main (int argc, char **argv)
   g_test_add_func ("/propellant/versions-round-trip", test_versions_round_trip);
   g_test_add_func ("/propellant/manual-shares-sized-only", test_manual_shares_sized_only);
   g_test_add_func ("/propellant/set-kind", test_set_kind);
+  g_test_add_func ("/propellant/design-edits", test_design_edits);
   return g_test_run ();
 }

@@ -265,12 +265,6 @@ sw_propellant_set_kind (SwStagePropellant *prop, SwPropellantKind kind)
       prop->custom_mixture_ratio = 0.0;
     }
   prop->kind = kind;
-  /* A mixture ratio means nothing without a liquid propellant. */
-  if (kind == SW_PROPELLANT_NONE || kind == SW_PROPELLANT_SOLID_COMPOSITE)
-    {
-      prop->has_mixture_ratio = FALSE;
-      prop->mixture_ratio = 0.0;
-    }
 }
 
 /* ---- what follows ------------------------------------------------------ */

@@ -91,7 +91,8 @@ gboolean sw_propellant_validate_stage (const SwStagePropellant *prop, const char
                                        const char *path, GError **error);
 /* TRUE when any key of this module is given (the file is then version 2). */
 gboolean sw_propellant_is_used (const SwStagePropellant *prop);
-/* Chooses the propellant, keeping the other keys.  CUSTOM starts from the
+/* Chooses the propellant, keeping the other keys (a mixture ratio left on a
+ * solid is then invalid: the caller validates).  CUSTOM starts from the
  * densities and mixture ratio of the propellant it replaces (LOX/kerosene
  * when there was none). */
 void     sw_propellant_set_kind (SwStagePropellant *prop, SwPropellantKind kind);
