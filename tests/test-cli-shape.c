@@ -20,6 +20,33 @@
 #define CLI_TIMEOUT_S 60
 
 static char *
+run_cli_json (const char *command, const char *path, int *code)
+{
+  g_autoptr (GError) error = NULL;
+  g_autofree char *secs = g_strdup_printf ("%d", CLI_TIMEOUT_S);
+  g_autofree char *err = NULL;
+  const char *cli = g_getenv ("SW_CLI");
+  const char *argv[] = { "timeout", secs, cli, command, "--json", path, NULL };
+  char *out = NULL;
+  int status = 0;
+
+  g_assert_nonnull (cli);
+  g_assert_true (g_spawn_sync (NULL, (char **) argv, NULL, G_SPAWN_SEARCH_PATH, NULL, NULL,
+                               &out, &err, &status, &error));
+  g_assert_no_error (error);
+  g_assert_true (WIFEXITED (status));
+  *code = WEXITSTATUS (status);
+  if (*code == 124)
+    g_error ("stagewright-cli %s did not finish within %d s", command, CLI_TIMEOUT_S);
+  if (*code != 0)
+    {
+      g_free (out);
+      return g_steal_pointer (&err);
+    }
+  return out;
+}
+
+static char *
 run_size_json (const char *path)
 {
   g_autoptr (GError) error = NULL;
@@ -204,11 +231,105 @@ test_version_one_demo (void)
     }
 }
 
+/* An invented vehicle that exists: both stages with fixed loads. */
+static const char *built_text =
+  "{ \"format\": \"stagewright-design\", \"version\": 2, \"name\": \"Built\","
+  "  \"payload_kg\": 1000, \"mission\": { \"delta_v_m_s\": %g }, \"split\": \"optimal\","
+  "  \"stages\": ["
+  "   { \"name\": \"A\", \"isp_vac_s\": 310, \"structural_coefficient\": 0.07,"
+  "     \"propellant_kg\": 200000, \"thrust_vac_kn\": 3500 },"
+  "   { \"name\": \"B\", \"isp_vac_s\": 345, \"structural_coefficient\": 0.1,"
+  "     \"propellant_kg\": 30000 } ] }";
+
+static char *
+write_design (const char *dir, const char *name, const char *text)
+{
+  char *path = g_build_filename (dir, name, NULL);
+  g_assert_true (g_file_set_contents (path, text, -1, NULL));
+  return path;
+}
+
+/* `performance`: the payload at which the vehicle's delta-v equals the
+ * requirement, against a bisection on the core's `size` of the same design
+ * (feasible exactly when the vehicle reaches the requirement); the phases
+ * add up to the requirement; an unreachable mission is an answer (exit 0,
+ * payload null); a vehicle with a sized stage is refused naming the key. */
+static void
+test_performance (void)
+{
+  g_autoptr (GError) error = NULL;
+  g_autofree char *dir = g_dir_make_tmp ("sw-cli-perf-XXXXXX", &error);
+  g_autofree char *text = g_strdup_printf (built_text, 9000.0);
+  g_autofree char *far_text = g_strdup_printf (built_text, 14000.0);
+  g_autofree char *path = write_design (dir, "built.stagewright", text);
+  g_autofree char *far = write_design (dir, "far.stagewright", far_text);
+  g_autofree char *sized = write_design (dir, "sized.stagewright", design_text);
+  g_autofree char *out = NULL, *out_far = NULL, *out_sized = NULL;
+  g_autoptr (JsonNode) root = NULL, root_far = NULL;
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, &error);
+  JsonObject *o;
+  JsonArray *phases;
+  double lo = 0.0, hi = 1.0e5, got, sum = 0.0;
+  int code;
+
+  g_assert_no_error (error);
+  out = run_cli_json ("performance", path, &code);
+  g_assert_cmpint (code, ==, 0);
+  root = parse (out);
+  o = json_node_get_object (root);
+  g_assert_true (json_object_get_boolean_member (o, "reachable"));
+  got = json_object_get_double_member (o, "payload_kg");
+  /* Bisection on the sizing: 60 halvings of 100 t. */
+  for (int k = 0; k < 60; k++)
+    {
+      SwSizing s;
+      d->payload_kg = 0.5 * (lo + hi);
+      g_assert_true (sw_size_design (d, &s, NULL));
+      if (s.feasible)
+        lo = d->payload_kg;
+      else
+        hi = d->payload_kg;
+    }
+  g_assert_cmpfloat (fabs (got - lo), <, 1e-6 * lo);
+  g_assert_cmpfloat (got, >, 1000.0);
+  phases = json_object_get_array_member (o, "phases");
+  g_assert_cmpuint (json_array_get_length (phases), ==, 2);
+  for (guint i = 0; i < 2; i++)
+    sum += json_object_get_double_member (json_array_get_object_element (phases, i),
+                                          "delta_v_m_s");
+  g_assert_cmpfloat (fabs (sum - 9000.0), <, 1e-6);
+  /* Stage A burns 200 t at 3500 kN and 310 s: 200000 x 310 g0 / 3.5e6 s. */
+  g_assert_cmpfloat (fabs (json_object_get_double_member (json_array_get_object_element (phases,
+                                                                                         0),
+                                                          "duration_s")
+                           - 200000.0 * 310.0 * SW_G0 / 3.5e6),
+                     <, 1e-9);
+
+  out_far = run_cli_json ("performance", far, &code);
+  g_assert_cmpint (code, ==, 0);
+  root_far = parse (out_far);
+  o = json_node_get_object (root_far);
+  g_assert_false (json_object_get_boolean_member (o, "reachable"));
+  g_assert_true (JSON_NODE_HOLDS_NULL (json_object_get_member (o, "payload_kg")));
+  g_assert_nonnull (strstr (json_object_get_string_member (o, "reason"), "even with no payload"));
+
+  out_sized = run_cli_json ("performance", sized, &code);
+  g_assert_cmpint (code, ==, 2);
+  g_assert_nonnull (strstr (out_sized, "sized.stagewright"));
+  g_assert_nonnull (strstr (out_sized, "stages[0].propellant_kg"));
+
+  g_remove (path);
+  g_remove (far);
+  g_remove (sized);
+  g_rmdir (dir);
+}
+
 int
 main (int argc, char **argv)
 {
   g_test_init (&argc, &argv, NULL);
   g_test_add_func ("/cli-shape/shape-and-phases", test_shape_and_phases);
   g_test_add_func ("/cli-shape/version-one-demo", test_version_one_demo);
+  g_test_add_func ("/cli-shape/performance", test_performance);
   return g_test_run ();
 }

@@ -52,6 +52,30 @@ fast_options (SwAnalysisOptions *o)
   o->ascent = FALSE;
 }
 
+/* The "phases" array of @s. */
+static void
+add_phases (JsonBuilder *b, const SwDesign *d, const SwSizing *s)
+{
+  SwPhase phases[SW_MAX_STAGES];
+  guint n_phases = sw_sizing_phases (d, s, phases);
+
+  json_builder_set_member_name (b, "phases");
+  json_builder_begin_array (b);
+  for (guint k = 0; k < n_phases; k++)
+    {
+      json_builder_begin_object (b);
+      json_builder_set_member_name (b, "name");
+      json_builder_add_string_value (b, d->stages[phases[k].stage].name);
+      sw_cli_add_number (b, "delta_v_m_s", phases[k].delta_v_m_s);
+      sw_cli_add_number (b, "exhaust_velocity_m_s", phases[k].exhaust_velocity_m_s);
+      sw_cli_add_number (b, "initial_mass_kg", phases[k].initial_mass_kg);
+      sw_cli_add_number (b, "final_mass_kg", phases[k].final_mass_kg);
+      sw_cli_add_number (b, "duration_s", phases[k].duration_s);
+      json_builder_end_object (b);
+    }
+  json_builder_end_array (b);
+}
+
 static JsonNode *
 sizing_to_json (const SwAnalysis *a)
 {
@@ -122,26 +146,7 @@ sizing_to_json (const SwAnalysis *a)
       json_builder_end_object (b);
     }
   json_builder_end_array (b);
-  {
-    SwPhase phases[SW_MAX_STAGES];
-    guint n_phases = sw_sizing_phases (d, s, phases);
-
-    json_builder_set_member_name (b, "phases");
-    json_builder_begin_array (b);
-    for (guint k = 0; k < n_phases; k++)
-      {
-        json_builder_begin_object (b);
-        json_builder_set_member_name (b, "name");
-        json_builder_add_string_value (b, d->stages[phases[k].stage].name);
-        sw_cli_add_number (b, "delta_v_m_s", phases[k].delta_v_m_s);
-        sw_cli_add_number (b, "exhaust_velocity_m_s", phases[k].exhaust_velocity_m_s);
-        sw_cli_add_number (b, "initial_mass_kg", phases[k].initial_mass_kg);
-        sw_cli_add_number (b, "final_mass_kg", phases[k].final_mass_kg);
-        sw_cli_add_number (b, "duration_s", phases[k].duration_s);
-        json_builder_end_object (b);
-      }
-    json_builder_end_array (b);
-  }
+  add_phases (b, d, s);
   json_builder_set_member_name (b, "caution");
   json_builder_add_string_value (b, sw_format_cautions ());
   json_builder_end_object (b);
@@ -250,6 +255,60 @@ sw_cli_size (int argc, char **argv)
     }
   else
     print_sizing_table (a);
+  return SW_EXIT_OK;
+}
+
+/* The payload a vehicle that exists (every stage with a fixed propellant
+ * load) carries to the design's mission. */
+int
+sw_cli_performance (int argc, char **argv)
+{
+  g_autoptr (SwDesign) d = NULL;
+  g_autoptr (GError) error = NULL;
+  SwPerformance p;
+  int code;
+
+  opt_json = FALSE;
+  if (!sw_cli_parse ("performance", json_entries, &argc, &argv, 1, &code))
+    return code;
+  if ((d = sw_cli_load (argv[1])) == NULL)
+    return SW_EXIT_USAGE;
+  if (!sw_design_performance (d, &p, &error))
+    return sw_cli_input_error (argv[1], error);
+  if (opt_json)
+    {
+      g_autoptr (JsonBuilder) b = json_builder_new_immutable ();
+      json_builder_begin_object (b);
+      json_builder_set_member_name (b, "name");
+      json_builder_add_string_value (b, d->name);
+      json_builder_set_member_name (b, "reachable");
+      json_builder_add_boolean_value (b, p.reachable);
+      json_builder_set_member_name (b, "reason");
+      json_builder_add_string_value (b, p.reason);
+      sw_cli_add_number (b, "payload_kg", p.payload_kg);
+      sw_cli_add_number (b, "delta_v_m_s", p.delta_v_m_s);
+      sw_cli_add_number (b, "empty_delta_v_m_s", p.empty_delta_v_m_s);
+      sw_cli_add_number (b, "liftoff_mass_kg",
+                         p.reachable ? p.sizing.liftoff_mass_kg : NAN);
+      add_phases (b, d, &p.sizing);
+      sw_cli_finish_json (b);
+      return SW_EXIT_OK;
+    }
+  g_print (_("Design: %s\n"), d->name);
+  {
+    g_autofree char *dv = sw_format_speed (p.delta_v_m_s);
+    g_autofree char *empty = sw_format_speed (p.empty_delta_v_m_s);
+    g_print (_("Required delta-v: %s    Delta-v with no payload: %s\n"), dv, empty);
+  }
+  if (p.reachable)
+    {
+      g_autofree char *pl = sw_format_mass (p.payload_kg);
+      g_autofree char *lm = sw_format_mass (p.sizing.liftoff_mass_kg);
+      g_print (_("Payload capability: %s    Liftoff mass: %s\n"), pl, lm);
+    }
+  else
+    g_print (_("UNREACHABLE: %s\n"), p.reason);
+  g_print ("\n%s\n", sw_format_cautions ());
   return SW_EXIT_OK;
 }
 

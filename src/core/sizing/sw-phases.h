@@ -30,4 +30,22 @@ double   sw_stage_effective_diameter (const SwDesign *design, guint stage);
 void     sw_sizing_stage_shape (const SwDesign *design, const SwSizing *sizing, guint stage,
                                 SwStageShape *out);
 
+/* Payload capability of a vehicle whose every stage has a fixed propellant
+ * load (propellant_kg): the payload at which its delta-v equals the
+ * design's required delta-v (the mission's target, or the orbit's budget
+ * plus the loss allowance), by Brent's method (sw_fixed_vehicle_payload), and
+ * the sizing at that payload.  FALSE with @error when a stage is not fixed.
+ * A vehicle that falls short even with no payload is an answer: *reachable
+ * FALSE, @reason says by how much, @sizing is the sizing with no payload. */
+typedef struct {
+  gboolean reachable;
+  double   payload_kg;              /* NAN when not reachable */
+  double   delta_v_m_s;             /* required */
+  double   empty_delta_v_m_s;       /* the vehicle's delta-v with no payload */
+  char     reason[SW_REASON_MAX];
+  SwSizing sizing;                  /* at payload_kg (or with no payload) */
+} SwPerformance;
+
+gboolean sw_design_performance (const SwDesign *design, SwPerformance *out, GError **error);
+
 G_END_DECLS
