@@ -197,7 +197,8 @@ print_sizing_table (const SwAnalysis *a)
       g_autofree char *name = sw_cli_cell (d->stages[i].name, 20);
       g_print ("%-3u %s %6s %6s %9s %6s %8s %12s %11s %13s %12s%s\n", i + 1, name, isp, eps, sdv,
                share, n, mp, ms, m0, mf,
-               !r->feasible ? _("  INFEASIBLE") : r->unused ? _("  (unused)") : "");
+               !r->feasible ? _("  INFEASIBLE") : r->unused ? _("  (unused)")
+               : r->fixed ? _("  (fixed load)") : "");
     }
   g_print ("\n");
   if (s->feasible)
