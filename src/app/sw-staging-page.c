@@ -702,7 +702,7 @@ sw_staging_page_init (SwStagingPage *self)
   gtk_label_set_xalign (GTK_LABEL (self->statement), 0.0);
   gtk_box_append (GTK_BOX (self->box), self->statement);
   self->decision = gtk_drawing_area_new ();
-  gtk_widget_set_size_request (self->decision, 300, 260);
+  gtk_widget_set_size_request (self->decision, 300, 420);
   gtk_widget_set_vexpand (self->decision, TRUE);
   gtk_drawing_area_set_draw_func (GTK_DRAWING_AREA (self->decision), draw_decision, self, NULL);
   gtk_box_append (GTK_BOX (self->box), self->decision);
@@ -720,6 +720,11 @@ sw_staging_page_init (SwStagingPage *self)
   self->progress = gtk_progress_bar_new ();
   gtk_widget_set_visible (self->progress, FALSE);
   gtk_box_append (GTK_BOX (self->box), self->progress);
+  self->carpet = gtk_drawing_area_new ();
+  gtk_widget_set_size_request (self->carpet, 300, 380);
+  gtk_widget_set_vexpand (self->carpet, TRUE);
+  gtk_drawing_area_set_draw_func (GTK_DRAWING_AREA (self->carpet), draw_carpet, self, NULL);
+  gtk_box_append (GTK_BOX (self->box), self->carpet);
   {
     static const char *const labels[SW_N_ECON_NUMBERS] = {
       [SW_ECON_WORK_YEAR_COST] = N_("Cost of a work-year"),
@@ -788,11 +793,6 @@ sw_staging_page_init (SwStagingPage *self)
     gtk_box_append (GTK_BOX (self->box), title);
     gtk_box_append (GTK_BOX (self->box), grid);
   }
-  self->carpet = gtk_drawing_area_new ();
-  gtk_widget_set_size_request (self->carpet, 300, 220);
-  gtk_widget_set_vexpand (self->carpet, TRUE);
-  gtk_drawing_area_set_draw_func (GTK_DRAWING_AREA (self->carpet), draw_carpet, self, NULL);
-  gtk_box_append (GTK_BOX (self->box), self->carpet);
 }
 
 GtkWidget *
