@@ -187,7 +187,7 @@ static void
 test_montecarlo_values (void)
 {
   const guint samples = 3000, seed = 4242, threads = 2;
-  g_autofree char *path = demo ("kestrel-upgrade-study.stagewright");
+  g_autofree char *path = demo ("skelloway-upgrade-study.stagewright");
   g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
   g_autofree double *lift = g_new (double, samples);
   g_autofree double *pay = g_new (double, samples);
@@ -320,7 +320,7 @@ test_sensitivity_values (void)
 static void
 test_reliability_values (void)
 {
-  g_autofree char *path = demo ("kestrel-upgrade-study.stagewright");
+  g_autofree char *path = demo ("skelloway-upgrade-study.stagewright");
   g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
   g_autoptr (JsonNode) keep = NULL;
   SwReliability rel;
@@ -600,7 +600,7 @@ check_cell (const Csv *c, guint row, const char *column, double core)
 static void
 test_csv_values (void)
 {
-  g_autofree char *path = demo ("kestrel-upgrade-study.stagewright");
+  g_autofree char *path = demo ("skelloway-upgrade-study.stagewright");
   g_autofree char *dir = g_dir_make_tmp ("sw-cli-csv-XXXXXX", NULL);
   g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
   g_autofree SwSweep *sweep = g_new0 (SwSweep, 1);
@@ -826,14 +826,14 @@ test_atmosphere_text (void)
   run_clear (&run);
 }
 
-/* The Monte Carlo report: the spreads as the design file gives them (kestrel
+/* The Monte Carlo report: the spreads as the design file gives them (skelloway
  * demo: Isp normal 1 %, structural coefficient uniform 6 %, losses normal
  * 100 m/s), the share that carries the payload in percent, and a spread of
  * width zero reported as none. */
 static void
 test_montecarlo_text (void)
 {
-  g_autofree char *path = demo ("kestrel-upgrade-study.stagewright");
+  g_autofree char *path = demo ("skelloway-upgrade-study.stagewright");
   g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
   g_autofree char *margin = NULL;
   SwMonteCarlo mc;

@@ -314,8 +314,18 @@ test_size_verdicts (void)
   g_autofree char *infeasible = write_design ("infeasible.stagewright", infeasible_design);
   g_autofree char *weak = write_design ("weak.stagewright", weak_design);
   g_autofree char *paper = demo ("all-solid-concept.stagewright");
-  g_autofree char *shortfall = demo ("medium-cargo.stagewright");
+  g_autofree char *cargo = demo ("medium-cargo.stagewright");
+  g_autofree char *shortfall = g_build_filename (g_get_tmp_dir (), "sw-cli-short.stagewright",
+                                                 NULL);
   g_autofree char *reaches = demo ("three-stage-simulated.stagewright");
+
+  /* The cargo demo with too small a loss allowance falls short. */
+  {
+    g_autoptr (SwDesign) d = sw_design_load (cargo, NULL, NULL);
+    g_assert_nonnull (d);
+    d->mission.losses_m_s = 1500.0;
+    g_assert_true (sw_design_save (d, shortfall, NULL));
+  }
 
   /* Two stages of c ln(1/eps) = 300 g0 ln 10 = 6,774 m/s each give at most
    * 13,548 m/s (hand-worked with g0 = 9.80665): 14 km/s is out of reach. */
@@ -346,6 +356,7 @@ test_size_verdicts (void)
                  "Feasible on paper only: ");
   remove_design (infeasible);
   remove_design (weak);
+  g_remove (shortfall);
 }
 
 /* The limits take the window's ranges; outside them it is a usage error. */

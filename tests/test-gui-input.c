@@ -11,6 +11,7 @@
 #include "sw-application.h"
 #include "sw-number-field.h"
 #include "sw-sizing.h"
+#include "sw-stage-thrust.h"
 #include "sw-window-private.h"
 
 #include "gui-test-env.h"
@@ -425,10 +426,103 @@ test_first_start (void)
   gtk_text_buffer_get_bounds (notes, &a, &b);
   text = gtk_text_buffer_get_text (notes, &a, &b, FALSE);
   g_assert_true (g_str_has_prefix (text, "Invented demonstration scenario"));
+  /* Saved, the copy is the user's own design: the note goes. */
+  {
+    g_autofree char *saved = g_build_filename (tmp_dir, "mine.stagewright", NULL);
+    g_autoptr (GFile) saved_file = g_file_new_for_path (saved);
+    g_autoptr (GError) error = NULL;
+
+    g_assert_true (sw_window_save_to (w, saved_file, &error));
+    g_assert_false (gtk_widget_get_visible (intro));
+    g_assert_true (sw_window_load_template (w, file));
+    g_assert_true (gtk_widget_get_visible (intro));
+  }
   g_assert_true (gtk_widget_activate_action (GTK_WIDGET (w), "design.new", NULL));
   drain ();
   g_assert_false (gtk_widget_get_visible (intro));
   sw_test_window_close (w);
+}
+
+/* A stage added in the window (Ctrl+Shift+N, as a user does) gets its
+ * thrust from the common-practice ignition thrust-to-weight, so the ascent
+ * is simulated without opening the file; the T/W field then shows it. */
+static void
+test_new_stage_flies (void)
+{
+  SwWindow *w = window_with_demo ("three-stage-simulated.stagewright");
+  SwInspector *inspector = sw_window_get_inspector (w);
+  SwAnalysis *r;
+
+  focus_field (w, sw_inspector_get_field (inspector, SW_INSPECTOR_EPS_FORM));
+  xdo ("key", "ctrl+shift+n", NULL);
+  g_assert_cmpuint (doc_design (w)->n_stages, ==, 4);
+  g_assert_true (doc_design (w)->stages[3].propulsion.has_thrust);
+  g_assert_cmpint (sw_inspector_get_selected (inspector), ==, 3);
+  /* 0.8: upper-stage ignition T/W 0.6 to 1.2 (common practice). */
+  g_assert_cmpfloat_with_epsilon (sw_number_field_get_value (field (w, SW_INSPECTOR_TW)), 0.8,
+                                  1e-9);
+  sw_test_wait_until (sw_test_result_complete, w, 120000, "the ascent of four stages");
+  r = sw_window_get_shown_result (w);
+  if (r->ascent == NULL)
+    g_error ("no ascent for the new stage: %s", r->ascent_message);
+  g_assert_null (strstr (r->ascent_message, "missing"));
+  /* A T/W typed in the field sets the thrust: one edit. */
+  focus_field (w, GTK_WIDGET (field (w, SW_INSPECTOR_TW)));
+  retype ("1.1");
+  xdo ("key", "Return", NULL);
+  g_assert_null (sw_number_field_get_error (field (w, SW_INSPECTOR_TW)));
+  g_assert_cmpfloat_with_epsilon (sw_design_ignition_tw (doc_design (w), 3), 1.1, 1e-9);
+  sw_test_window_close (w);
+}
+
+/* The parser behind every field, case by case: the decimal mark of the
+ * locale (',' in German, with '.' its grouping mark), '.' where it is not
+ * the grouping mark, a sign, an exponent; nothing else. */
+static void
+test_parse (void)
+{
+  static const struct {
+    const char *text, *mark, *grouping;
+    gboolean ok;
+    double value;
+  } cases[] = {
+    { "0,95", ",", ".", TRUE, 0.95 },
+    { "0.95", ",", ".", FALSE, 0 },     /* German grouping mark: ambiguous, refused */
+    { "1.500", ",", ".", FALSE, 0 },
+    { "0.95", ".", ",", TRUE, 0.95 },
+    { "0,95", ".", ",", FALSE, 0 },     /* English grouping mark */
+    { "0.95", ",", "", TRUE, 0.95 },    /* a comma locale without grouping takes '.' too */
+    { "-5", ".", "", TRUE, -5.0 },
+    { "\xe2\x88\x92" "3,5", ",", ".", TRUE, -3.5 },  /* U+2212 minus */
+    { "+4", ".", "", TRUE, 4.0 },
+    { ".5", ".", "", TRUE, 0.5 },
+    { "5.", ".", "", TRUE, 5.0 },
+    { " 12 ", ".", "", TRUE, 12.0 },
+    { "1e3", ".", "", TRUE, 1000.0 },
+    { "2,5E-1", ",", ".", TRUE, 0.25 },
+    { "1e", ".", "", FALSE, 0 },
+    { "", ".", "", FALSE, 0 },
+    { "-", ".", "", FALSE, 0 },
+    { "abc", ".", "", FALSE, 0 },
+    { "12 kg", ".", "", FALSE, 0 },
+    { "nan", ".", "", FALSE, 0 },
+    { "inf", ".", "", FALSE, 0 },
+    { "0x10", ".", "", FALSE, 0 },
+    { "1,2,3", ",", ".", FALSE, 0 },
+    { "1e999", ".", "", FALSE, 0 },     /* not finite */
+  };
+
+  for (guint i = 0; i < G_N_ELEMENTS (cases); i++)
+    {
+      double v = -12345.0;
+      gboolean ok = sw_number_parse (cases[i].text, cases[i].mark, cases[i].grouping, &v);
+
+      if (ok != cases[i].ok)
+        g_error ("\"%s\" (mark %s, grouping \"%s\"): %s", cases[i].text, cases[i].mark,
+                 cases[i].grouping, ok ? "accepted" : "refused");
+      if (ok)
+        g_assert_cmpfloat (v, ==, cases[i].value);
+    }
 }
 
 int
@@ -443,6 +537,7 @@ main (int argc, char **argv)
       return 77;
     }
 
+  g_test_add_func ("/gui/input/parse", test_parse);
   g_test_add_func ("/gui/input/letters", test_letters);
   g_test_add_func ("/gui/input/out-of-range", test_out_of_range);
   g_test_add_func ("/gui/input/decimal-comma", test_decimal_comma);
@@ -451,6 +546,7 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/input/dependent-field", test_dependent_field);
   g_test_add_func ("/gui/input/undo-in-field", test_undo_in_field);
   g_test_add_func ("/gui/input/first-start", test_first_start);
+  g_test_add_func ("/gui/input/new-stage-flies", test_new_stage_flies);
 
   status = g_test_run ();
   sw_gui_test_env_finish (tmp_dir);

@@ -321,7 +321,7 @@ static void
 test_no_overlap (void)
 {
   static const char *const demos[] = {
-    "all-solid-concept.stagewright", "kestrel-upgrade-study.stagewright",
+    "all-solid-concept.stagewright", "skelloway-upgrade-study.stagewright",
     "medium-cargo.stagewright", "small-sat-launcher.stagewright",
     "three-stage-simulated.stagewright",
   };

@@ -124,7 +124,7 @@ test_builds (void)
   g_assert_true (r->ok);
   g_assert_cmpuint (r->design->n_stages, ==, 2);
   g_assert_true (g_str_has_prefix (gtk_window_get_title (GTK_WINDOW (w)),
-                                   "Harrow Medium cargo vehicle"));
+                                   "Dunmarrow Medium cargo vehicle"));
   g_assert_false (sw_document_get_modified (sw_window_get_document (w)));
   /* The demo's liftoff mass (about 124,087 kg by the core) in tonnes with
    * one decimal, the mass rule of sw-format.h. */

@@ -420,6 +420,9 @@ refresh (SwInspector *self)
   update_stage_rows (self);
   update_stage_fields (self);
   update_design_extra (self, d);
+  /* Once saved, the demonstration copy is the user's own design. */
+  if (sw_document_get_file (self->document) != NULL)
+    gtk_widget_set_visible (self->intro_box, FALSE);
   update_computed (self);
   update_actions (self);
   self->updating--;
@@ -1206,6 +1209,15 @@ build_sections (SwInspector *self)
   gtk_box_append (GTK_BOX (box), GTK_WIDGET (grid));
 }
 
+static gboolean
+focus_within (GtkWidget *widget)
+{
+  GtkRoot *root = gtk_widget_get_root (widget);
+  GtkWidget *focus = root != NULL ? gtk_root_get_focus (root) : NULL;
+
+  return focus != NULL && (focus == widget || gtk_widget_is_ancestor (focus, widget));
+}
+
 static void
 update_extra_stage_fields (SwInspector *self, const SwDesign *d, guint i, gboolean reset)
 {
@@ -1215,6 +1227,16 @@ update_extra_stage_fields (SwInspector *self, const SwDesign *d, guint i, gboole
   g_autofree char *drag = sw_design_dup_drag_text (d, i, decimal_mark ());
 
   show (self->thrust_field, s->propulsion.has_thrust ? s->propulsion.thrust_vac_kn : NAN);
+  {
+    /* Given per engine, the total it makes shows as the placeholder. */
+    double total = sw_stage_thrust_vac_n (&s->propulsion, s->reliability.has_engine_count
+                                                          ? s->reliability.engine_count : 1);
+    g_autofree char *num = isfinite (total) ? sw_format_number (total / 1000.0, 1) : NULL;
+    /* Translators: placeholder of the total thrust when it is given per engine */
+    g_autofree char *from = num != NULL ? g_strdup_printf (_("%s from the engines"), num) : NULL;
+    sw_number_field_set_optional (self->thrust_field, TRUE,
+                                  s->propulsion.has_engine_thrust ? from : _("not given"));
+  }
   show (self->engine_thrust_field,
         s->propulsion.has_engine_thrust ? s->propulsion.engine_thrust_vac_kn : NAN);
   show (self->engine_count_field,
@@ -1233,7 +1255,7 @@ update_extra_stage_fields (SwInspector *self, const SwDesign *d, guint i, gboole
         sw_design_field_get (d, SW_FIELD_SEPARATION_RELIABILITY, i, &v) ? v : NAN);
   if ((reset || gtk_widget_get_visible (GTK_WIDGET (self->drag_message)) == FALSE)
       && g_strcmp0 (gtk_editable_get_text (GTK_EDITABLE (self->drag_entry)), drag) != 0
-      && (reset || !gtk_widget_has_focus (GTK_WIDGET (self->drag_entry))))
+      && (reset || !focus_within (GTK_WIDGET (self->drag_entry))))
     {
       gtk_editable_set_text (GTK_EDITABLE (self->drag_entry), drag);
       show_drag_error (self, NULL);
@@ -1377,7 +1399,11 @@ sw_inspector_set_document (SwInspector *self, SwDocument *document)
     g_signal_handlers_disconnect_by_func (self->document, document_changed_cb, self);
   g_set_object (&self->document, document);
   if (document != NULL)
-    g_signal_connect_swapped (document, "changed", G_CALLBACK (document_changed_cb), self);
+    {
+      g_signal_connect_swapped (document, "changed", G_CALLBACK (document_changed_cb), self);
+      g_signal_connect_swapped (document, "notify::file", G_CALLBACK (document_changed_cb),
+                                self);
+    }
   refresh (self);
 }
 

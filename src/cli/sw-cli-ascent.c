@@ -142,6 +142,9 @@ ascent_to_json (const SwAnalysis *a)
   sw_cli_add_number (b, "fairing_loss_m_s", r->fairing_loss_m_s);
   sw_cli_add_number (b, "raising_loss_m_s", r->raising_loss_m_s);
   sw_cli_add_number (b, "other_loss_m_s", r->other_loss_m_s);
+  sw_cli_add_number (b, "rotation_term_m_s", r->rotation_term_m_s);
+  sw_cli_add_number (b, "gravity_loss_air_m_s", r->gravity_loss_air_m_s);
+  sw_cli_add_number (b, "max_q_alpha_kpa_deg", r->max_q_alpha_kpa_deg);
   sw_cli_add_number (b, "losses_m_s", r->losses_m_s);
   sw_cli_add_number (b, "engines_delta_v_m_s", r->engines_delta_v_m_s);
   sw_cli_add_number (b, "delta_v_needed_m_s", r->delta_v_needed_m_s);
@@ -342,7 +345,9 @@ print_ascent (const SwDesign *d, const SwAscentResult *r)
       g_print (_("\nDelta-v budget (m/s)\n"));
       g_print (_("  ideal |v_orbit - v_site|   %9s   (rotation gain %s)\n"),
                sw_cli_num (r->ideal_delta_v_m_s, 1), sw_cli_num (r->rotation_gain_m_s, 1));
-      g_print (_("  gravity loss               %9s\n"), sw_cli_num (r->gravity_loss_m_s, 1));
+      g_print (_("  gravity loss               %9s   (inertial flight path; %s against the "
+                 "air)\n"),
+               sw_cli_num (r->gravity_loss_m_s, 1), sw_cli_num (r->gravity_loss_air_m_s, 1));
       g_print (_("  drag loss                  %9s\n"), sw_cli_num (r->drag_loss_m_s, 1));
       g_print (_("  steering loss              %9s\n"), sw_cli_num (r->steering_loss_m_s, 1));
       g_print (_("  back-pressure thrust loss  %9s\n"), sw_cli_num (r->pressure_loss_m_s, 1));
@@ -352,7 +357,10 @@ print_ascent (const SwDesign *d, const SwAscentResult *r)
                  sw_cli_num (r->raising_loss_m_s, 1), sw_cli_num (r->circularization_m_s, 1));
       else
         g_print (_("  cutoff above circular speed%9s\n"), sw_cli_num (r->raising_loss_m_s, 1));
-      g_print (_("  other (rotation at altitude) %7s\n"), sw_cli_num (r->other_loss_m_s, 1));
+      g_print (_("  turning atmosphere         %9s   (thrust and drag against the air)\n"),
+               sw_cli_num (r->rotation_term_m_s, 1));
+      g_print (_("  residual                   %9s\n"),
+               sw_cli_num (r->other_loss_m_s - r->rotation_term_m_s, 1));
       g_print (_("  losses, total              %9s\n"), sw_cli_num (r->losses_m_s, 1));
       g_print (_("  needed (ideal + losses)    %9s\n"), sw_cli_num (r->delta_v_needed_m_s, 1));
       g_print (_("  sized                      %9s   (margin %s)\n"),
@@ -411,7 +419,7 @@ write_csv (const char *path, const SwDesign *d, const SwAscentResult *r)
                           sw_format_cautions ());
   g_string_append (s, "time_s,altitude_m,downrange_m,speed_m_s,air_speed_m_s,flight_path_deg,"
                       "dynamic_pressure_pa,mach,axial_accel_g,mass_kg,thrust_n,stage,"
-                      "beyond_load\n");
+                      "beyond_load,pitch_deg\n");
   for (guint i = 0; i < r->samples->len; i++)
     {
       const SwAscentSample *p = &g_array_index (r->samples, SwAscentSample, i);
@@ -424,7 +432,10 @@ write_csv (const char *path, const SwDesign *d, const SwAscentResult *r)
             g_string_append_printf (s, "%.9g", v[k]);
           g_string_append_c (s, ',');
         }
-      g_string_append_printf (s, "%u,%d\n", p->stage + 1, p->beyond_load ? 1 : 0);
+      g_string_append_printf (s, "%u,%d,", p->stage + 1, p->beyond_load ? 1 : 0);
+      if (isfinite (p->pitch_deg))
+        g_string_append_printf (s, "%.9g", p->pitch_deg);
+      g_string_append_c (s, '\n');
     }
   if (!g_file_set_contents_full (path, s->str, (gssize) s->len,
                                  G_FILE_SET_CONTENTS_CONSISTENT, 0644, &error))

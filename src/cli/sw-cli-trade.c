@@ -6,6 +6,7 @@
 
 #include "sw-comparison.h"
 #include "sw-limits.h"
+#include "sw-ascent-montecarlo.h"
 #include "sw-montecarlo.h"
 #include "sw-reliability.h"
 #include "sw-sensitivity.h"
@@ -180,6 +181,7 @@ sw_cli_sensitivity (int argc, char **argv)
 static int opt_samples;
 static gint64 opt_seed = -1;
 static int opt_threads;
+static gboolean opt_simulate;
 
 static GOptionEntry montecarlo_entries[] = {
   { "samples", 0, 0, G_OPTION_ARG_INT, &opt_samples,
@@ -188,6 +190,8 @@ static GOptionEntry montecarlo_entries[] = {
     N_("Seed of the random stream (default: the design's, else 1)"), "S" },
   { "threads", 0, 0, G_OPTION_ARG_INT, &opt_threads, N_("Threads (default: all cores)"), "T" },
   { "json", 0, 0, G_OPTION_ARG_NONE, &opt_json, N_("Print JSON for machines"), NULL },
+  { "simulate", 0, 0, G_OPTION_ARG_NONE, &opt_simulate,
+    N_("Fly the ascent of every sample (default 1000 samples)"), NULL },
   { NULL }
 };
 
@@ -251,6 +255,78 @@ spread_text (const SwSpread *s, const char *unit, char *buf, gsize size)
   return buf;
 }
 
+/* montecarlo --simulate: the built vehicle flown per sample
+ * (sw-ascent-montecarlo.h). */
+static int
+montecarlo_simulated (const SwDesign *d, const char *file)
+{
+  g_autoptr (GError) error = NULL;
+  g_autoptr (SwAscentMonteCarlo) mc = NULL;
+  guint samples = opt_samples > 0 ? (guint) opt_samples : 1000;
+  guint32 seed = opt_seed >= 0 ? (guint32) opt_seed : sw_uncertainty_seed (&d->uncertainty);
+
+  mc = sw_ascent_montecarlo_run (d, samples, seed, (guint) opt_threads, NULL, NULL, NULL, &error);
+  if (mc == NULL)
+    return sw_cli_input_error (file, error);
+  if (opt_json)
+    {
+      g_autoptr (JsonBuilder) b = json_builder_new_immutable ();
+
+      json_builder_begin_object (b);
+      json_builder_set_member_name (b, "simulated");
+      json_builder_add_boolean_value (b, TRUE);
+      json_builder_set_member_name (b, "samples");
+      json_builder_add_int_value (b, mc->samples);
+      json_builder_set_member_name (b, "seed");
+      json_builder_add_int_value (b, seed);
+      json_builder_set_member_name (b, "threads");
+      json_builder_add_int_value (b, mc->threads);
+      json_builder_set_member_name (b, "flown");
+      json_builder_add_int_value (b, mc->flown);
+      sw_cli_add_number (b, "sized_losses_m_s", mc->sized_losses_m_s);
+      sw_cli_add_number (b, "nominal_margin_m_s", mc->nominal_margin_m_s);
+      sw_cli_add_number (b, "mean_losses_m_s", mc->mean_losses_m_s);
+      json_builder_set_member_name (b, "delta_v_margin_m_s");
+      json_builder_begin_object (b);
+      sw_cli_add_number (b, "mean", mc->mean_margin_m_s);
+      sw_cli_add_number (b, "sd", mc->sd_margin_m_s);
+      sw_cli_add_number (b, "p05", mc->p05_margin_m_s);
+      sw_cli_add_number (b, "p50", mc->p50_margin_m_s);
+      sw_cli_add_number (b, "p95", mc->p95_margin_m_s);
+      sw_cli_add_number (b, "min", mc->min_margin_m_s);
+      sw_cli_add_number (b, "max", mc->max_margin_m_s);
+      json_builder_end_object (b);
+      sw_cli_add_number (b, "probability_reached", mc->probability_reached);
+      sw_cli_add_number (b, "delta_v_per_kg_payload_m_s", mc->dv_per_kg_payload);
+      sw_cli_add_number (b, "payload_reserve_95_kg", mc->payload_reserve_95_kg);
+      sw_cli_finish_json (b);
+      return SW_EXIT_OK;
+    }
+  {
+    g_autofree char *mean = sw_cli_format (mc->mean_margin_m_s, 1);
+    g_autofree char *sd = sw_cli_format (mc->sd_margin_m_s, 1);
+    g_autofree char *p05 = sw_cli_format (mc->p05_margin_m_s, 1);
+    g_autofree char *p50 = sw_cli_format (mc->p50_margin_m_s, 1);
+    g_autofree char *p95 = sw_cli_format (mc->p95_margin_m_s, 1);
+    g_autofree char *res = sw_cli_format (mc->payload_reserve_95_kg, 1);
+    g_autofree char *sized = sw_cli_format (mc->sized_losses_m_s, 1);
+    g_autofree char *flown = sw_cli_format (mc->mean_losses_m_s, 1);
+
+    g_print (_("Design: %s\n"), d->name);
+    g_print (_("%u samples flown (seed %u, %u thread(s)); %u with an answer\n"), mc->samples,
+             seed, mc->threads, mc->flown);
+    g_print (_("Vehicle sized for %s m/s of losses; mean losses flown %s m/s\n"), sized, flown);
+    g_print (_("Delta-v margin (sized less ideal less losses flown)\n"));
+    g_print (_("  mean %s m/s   sd %s m/s\n"), mean, sd);
+    g_print (_("  5th %s   50th %s   95th percentile %s m/s\n"), p05, p50, p95);
+    g_print (_("  orbit reached in %s %% of the samples\n"),
+             sw_cli_num (100.0 * mc->probability_reached, 1));
+    g_print (_("  payload reserve for 95 %% confidence: %s kg\n"), res);
+    g_print ("\n%s\n", sw_format_cautions ());
+  }
+  return SW_EXIT_OK;
+}
+
 int
 sw_cli_montecarlo (int argc, char **argv)
 {
@@ -265,6 +341,7 @@ sw_cli_montecarlo (int argc, char **argv)
   opt_samples = 0;
   opt_seed = -1;
   opt_threads = 0;
+  opt_simulate = FALSE;
   if (!sw_cli_parse ("montecarlo", montecarlo_entries, &argc, &argv, 1, &code))
     return code;
   /* The same ranges as the design's "uncertainty" keys. */
@@ -292,6 +369,8 @@ sw_cli_montecarlo (int argc, char **argv)
     g_printerr (_("warning: %s: the design has no \"uncertainty\" spreads; every sample is the "
                 "nominal design\n"),
                 argv[1]);
+  if (opt_simulate)
+    return montecarlo_simulated (d, argv[1]);
   sw_analysis_options_init (&o);
   o.ascent = FALSE;
   o.band = FALSE;

@@ -50,6 +50,7 @@ typedef enum {
   SW_LIMIT_PITCH_OVER_SPEED,
   SW_LIMIT_PITCH_KICK,
   SW_LIMIT_INSERTION_ALTITUDE,
+  SW_LIMIT_MAX_Q_ALPHA,
   /* economics: cost model, reuse, stage-count decision (design level) */
   SW_LIMIT_WORK_YEAR_COST,
   SW_LIMIT_PRODUCTION_RUN,
