@@ -644,11 +644,20 @@ test_every_key_has_a_field (void)
         case SW_LIMIT_LOSSES_HALF_RANGE:
           found = sw_trade_page_get_field (trade, SW_TRADE_FIELD_LOSSES_WIDTH);
           break;
+        /* The economics keys are edited on the staging-decision tab; the
+         * list-valued ones (engine types, their stages) only in the file. */
+        case SW_LIMIT_ENGINE_TYPES:
+        case SW_LIMIT_ENGINE_DRY_MASS:
+        case SW_LIMIT_ECON_STAGE_INDEX:
+          continue;
         /* Not a key of the file: the tornado's step, a preference. */
         case SW_LIMIT_SENSITIVITY_STEP:
           found = sw_trade_page_get_field (trade, SW_TRADE_FIELD_STEP);
           break;
         default:
+          for (guint k = 0; k < SW_N_ECON_NUMBERS && found == NULL; k++)
+            if (sw_economics_number_limit (k) == id)
+              found = sw_staging_page_get_field (sw_window_get_staging_page (w), k);
           break;
         }
       if (found == NULL)
