@@ -8,6 +8,7 @@
 #include "config.h"
 
 #include "sw-design.h"
+#include "sw-design-edit.h"
 #include "sw-sizing.h"
 
 #include <math.h>
@@ -209,6 +210,36 @@ test_design_fixed (void)
   g_assert_cmpfloat (a.stages[1].propellant_mass_kg, ==, 12000.0);
 }
 
+/* Taking the optimum's split as manual shares with a fixed stage: the
+ * fixed stage gets no share, the sized ones add up to 1, and the manual
+ * sizing gives the optimum's vehicle back. */
+static void
+test_take_shares_with_fixed (void)
+{
+  g_autoptr (SwDesign) d = sw_design_new_default ();
+  double shares[SW_MAX_STAGES];
+  SwSizing opt, man;
+  guint n;
+
+  d->n_stages = 3;
+  sw_stage_init_default (&d->stages[2], 2);
+  d->stages[2].propellant.has_propellant_kg = TRUE;
+  d->stages[2].propellant.propellant_kg = 3000.0;
+  d->split = SW_SPLIT_OPTIMAL;
+  g_assert_true (sw_size_design (d, &opt, NULL));
+  g_assert_true (opt.feasible);
+  n = sw_sizing_get_shares (&opt, shares);
+  g_assert_cmpuint (n, ==, 3);
+  g_assert_cmpfloat (shares[2], ==, 0.0);
+  g_assert_true (sw_design_take_manual_shares (d, shares, n));
+  g_assert_cmpfloat (fabs (d->stages[0].delta_v_share + d->stages[1].delta_v_share - 1.0), <,
+                     1e-12);
+  g_assert_true (sw_design_validate (d, NULL, NULL));
+  g_assert_true (sw_size_design (d, &man, NULL));
+  g_assert_true (man.feasible);
+  assert_rel (man.liftoff_mass_kg, opt.liftoff_mass_kg, 1e-9);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -219,5 +250,6 @@ main (int argc, char **argv)
   g_test_add_func ("/fixed-stages/infeasible", test_infeasible);
   g_test_add_func ("/fixed-stages/no-fixed-unchanged", test_no_fixed_is_unchanged);
   g_test_add_func ("/fixed-stages/design", test_design_fixed);
+  g_test_add_func ("/fixed-stages/take-shares", test_take_shares_with_fixed);
   return g_test_run ();
 }

@@ -656,7 +656,9 @@ sw_sizing_get_shares (const SwSizing *sizing, double *shares)
     return 0;
   for (guint i = 0; i < sizing->n_stages; i++)
     {
-      shares[i] = sizing->stages[i].delta_v_share;
+      /* A fixed stage takes no share: the manual split divides the sized
+       * stages' delta-v (sw_design_take_manual_shares normalises the rest). */
+      shares[i] = sizing->stages[i].fixed ? 0.0 : sizing->stages[i].delta_v_share;
       if (!isfinite (shares[i]) || shares[i] < 0.0)
         return 0;
     }

@@ -92,7 +92,8 @@ void     sw_size_with_fixed (const SwStageSet *set, const double *fixed_propella
 gboolean sw_size_design (const SwDesign *design, SwSizing *out, GError **error);
 
 /* The delta-v share of each stage in @sizing, into @shares (SW_MAX_STAGES
- * values): the split on screen, for sw_design_take_manual_shares ().
+ * values): the split on screen, for sw_design_take_manual_shares ().  A
+ * stage with a fixed load gets 0 (the manual split is among the sized ones).
  * Returns the stage count, or 0 when the sizing has no usable split (no
  * delta-v, a share not finite or negative). */
 guint    sw_sizing_get_shares (const SwSizing *sizing, double *shares);
