@@ -16,6 +16,9 @@
 set -uo pipefail
 
 meson=$1 build=$(realpath "$2") src=$(realpath "$3") mode=$4
+for tool in strings timeout; do
+  command -v "$tool" > /dev/null || { echo "FAIL: $tool is not installed" >&2; exit 1; }
+done
 tmp=$(mktemp -d "${TMPDIR:-/tmp}/sw-install.XXXXXX")
 trap 'rm -rf "$tmp"' EXIT
 fail () { echo "FAIL: $*" >&2; exit 1; }

@@ -47,7 +47,7 @@ static void
 test_verdicts (void)
 {
   g_autoptr (SwDesign) paper = demo ("all-solid-concept.stagewright");
-  g_autoptr (SwDesign) shortfall = demo ("medium-cargo.stagewright");
+  g_autoptr (SwDesign) shortfall = demo ("medium-cargo.stagewright");  /* made short below */
   g_autoptr (SwDesign) reaches = demo ("three-stage-simulated.stagewright");
   g_autoptr (SwDesign) far = sw_design_copy (paper);
   g_autoptr (SwAnalysis) a1 = NULL, a2 = NULL, a3 = NULL, a4 = NULL, a5 = NULL, a6 = NULL;
@@ -58,13 +58,15 @@ test_verdicts (void)
    * eps >= 0.10): infeasible, whatever the rest says. */
   far->mission.delta_v_m_s = 25000.0;
   a1 = sw_analysis_run (far, NULL, NULL);
-  assert_verdict (a1, "infeasible", "Flint");
+  assert_verdict (a1, "infeasible", "Cobbleford");
 
   a2 = sw_analysis_run (paper, NULL, NULL);
   assert_verdict (a2, "paper-only", "not a target orbit");
   g_assert_true (isnan (a2->simulated_margin_m_s));
   g_assert_true (isfinite (a2->headroom_m_s));
 
+  /* The cargo demo with too small a loss allowance falls short. */
+  shortfall->mission.losses_m_s = 1500.0;
   a3 = sw_analysis_run (shortfall, NULL, NULL);
   assert_verdict (a3, "short-of-orbit", "short of the orbit");
   g_assert_cmpfloat (a3->simulated_margin_m_s, <, 0.0);
@@ -90,14 +92,31 @@ test_verdicts (void)
   g_assert_null (a6->ascent);
 }
 
+/* Without a flight there is no "reaches the orbit, but": a limit the
+ * figures break is told in the paper-only reason. */
+static void
+test_paper_only_with_limit (void)
+{
+  g_autoptr (SwDesign) paper = demo ("all-solid-concept.stagewright");
+  g_autoptr (SwAnalysis) a = NULL;
+  SwAnalysisOptions o;
+
+  g_assert_true (paper->stages[0].propulsion.present);
+  sw_analysis_options_init (&o);
+  o.min_thrust_to_weight = 5.0;
+  a = sw_analysis_run (paper, &o, NULL);
+  assert_verdict (a, "paper-only", "below your limit of 5.00");
+}
+
 /* Precedence: a shortfall outranks a broken limit. */
 static void
 test_precedence (void)
 {
-  g_autoptr (SwDesign) shortfall = demo ("medium-cargo.stagewright");
+  g_autoptr (SwDesign) shortfall = demo ("medium-cargo.stagewright");  /* made short below */
   g_autoptr (SwAnalysis) a = NULL;
   SwAnalysisOptions o;
 
+  shortfall->mission.losses_m_s = 1500.0;   /* too small an allowance */
   sw_analysis_options_init (&o);
   o.max_q_pa = 1.0;
   o.max_axial_g = 1.0;
@@ -159,6 +178,7 @@ main (int argc, char **argv)
   g_test_add_func ("/analysis/state-strings", test_state_strings);
   g_test_add_func ("/analysis/verdicts", test_verdicts);
   g_test_add_func ("/analysis/precedence", test_precedence);
+  g_test_add_func ("/analysis/paper-only-with-limit", test_paper_only_with_limit);
   g_test_add_func ("/analysis/copy-shares", test_copy_shares);
   g_test_add_func ("/analysis/cancel-and-phases", test_cancel_and_phases);
   return g_test_run ();

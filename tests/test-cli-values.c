@@ -9,6 +9,9 @@
  * Runs the built program (env SW_CLI); demo designs from SW_DESIGNS_DIR. */
 #include "config.h"
 
+#include "sw-ascent.h"
+#include "sw-atmosphere.h"
+#include "sw-curves.h"
 #include "sw-design.h"
 #include "sw-montecarlo.h"
 #include "sw-reliability.h"
@@ -184,7 +187,7 @@ static void
 test_montecarlo_values (void)
 {
   const guint samples = 3000, seed = 4242, threads = 2;
-  g_autofree char *path = demo ("kestrel-upgrade-study.stagewright");
+  g_autofree char *path = demo ("skelloway-upgrade-study.stagewright");
   g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
   g_autofree double *lift = g_new (double, samples);
   g_autofree double *pay = g_new (double, samples);
@@ -317,7 +320,7 @@ test_sensitivity_values (void)
 static void
 test_reliability_values (void)
 {
-  g_autofree char *path = demo ("kestrel-upgrade-study.stagewright");
+  g_autofree char *path = demo ("skelloway-upgrade-study.stagewright");
   g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
   g_autoptr (JsonNode) keep = NULL;
   SwReliability rel;
@@ -367,6 +370,519 @@ test_reliability_values (void)
   run_clear (&r);
 }
 
+/* ---- ascent ------------------------------------------------------------------ */
+
+/* An event: the key names carry the units (km for altitudes, the rest SI). */
+static void
+check_point (JsonObject *o, const char *prefix, const SwAscentPoint *p, gboolean with_mass)
+{
+  g_autofree char *k1 = g_strdup_printf ("%s_time_s", prefix);
+  g_autofree char *k2 = g_strdup_printf ("%s_altitude_km", prefix);
+  g_autofree char *k3 = g_strdup_printf ("%s_speed_m_s", prefix);
+  g_autofree char *k4 = g_strdup_printf ("%s_flight_path_deg", prefix);
+  g_autofree char *k5 = g_strdup_printf ("%s_dynamic_pressure_pa", prefix);
+  g_autofree char *k6 = g_strdup_printf ("%s_mass_kg", prefix);
+
+  check (o, k1, p->time_s);
+  check (o, k2, p->altitude_m / 1000.0);
+  check (o, k3, p->speed_m_s);
+  check (o, k4, p->flight_path_deg);
+  check (o, k5, p->dynamic_pressure_pa);
+  if (with_mass)
+    check (o, k6, p->mass_kg);
+}
+
+static void
+test_ascent_values (void)
+{
+  g_autofree char *path = demo ("three-stage-simulated.stagewright");
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
+  g_autoptr (SwAscentResult) r = NULL;
+  g_autoptr (GError) error = NULL;
+  g_autoptr (JsonNode) keep = NULL;
+  JsonObject *o, *fairing;
+  JsonArray *stages;
+  Run run;
+
+  g_assert_nonnull (d);
+  r = sw_ascent_fly_design (d, NULL, &error);
+  g_assert_no_error (error);
+  run_cli (&run, "ascent", "--json", path, NULL);
+  g_assert_cmpint (run.code, ==, 0);
+  o = parse (run.out, &keep);
+  g_assert_cmpstr (json_object_get_string_member (o, "status"), ==,
+                   sw_ascent_status_to_string (r->status));
+  check (o, "target_altitude_km", r->target_altitude_km);
+  check (o, "perigee_km", r->perigee_km);
+  check (o, "apogee_km", r->apogee_km);
+  check (o, "launch_azimuth_deg", r->launch_azimuth_deg);
+  check (o, "circular_velocity_m_s", r->circular_velocity_m_s);
+  check (o, "ideal_delta_v_m_s", r->ideal_delta_v_m_s);
+  check (o, "rotation_gain_m_s", r->rotation_gain_m_s);
+  check (o, "gravity_loss_m_s", r->gravity_loss_m_s);
+  check (o, "drag_loss_m_s", r->drag_loss_m_s);
+  check (o, "steering_loss_m_s", r->steering_loss_m_s);
+  check (o, "pressure_loss_m_s", r->pressure_loss_m_s);
+  check (o, "fairing_loss_m_s", r->fairing_loss_m_s);
+  check (o, "raising_loss_m_s", r->raising_loss_m_s);
+  check (o, "other_loss_m_s", r->other_loss_m_s);
+  check (o, "losses_m_s", r->losses_m_s);
+  check (o, "engines_delta_v_m_s", r->engines_delta_v_m_s);
+  check (o, "delta_v_needed_m_s", r->delta_v_needed_m_s);
+  check (o, "sized_delta_v_m_s", r->sized_delta_v_m_s);
+  check (o, "delta_v_margin_m_s", r->delta_v_margin_m_s);
+  check (o, "delta_v_missing_m_s", r->delta_v_missing_m_s);
+  /* Liftoff with the fairing, which the sizing leaves out. */
+  check (o, "liftoff_mass_kg", r->sizing.liftoff_mass_kg + r->fairing_mass_kg);
+  check (o, "liftoff_thrust_to_weight", r->liftoff_thrust_to_weight);
+  check (o, "max_q_pa", r->max_q_pa);
+  check (o, "max_q_time_s", r->max_q_time_s);
+  check (o, "max_q_altitude_km", r->max_q_altitude_m / 1000.0);
+  check (o, "max_axial_g", r->max_axial_g);
+  check (o, "max_axial_g_time_s", r->max_axial_g_time_s);
+  check_point (o, "cutoff", &r->cutoff, TRUE);
+  fairing = object (o, "fairing");
+  check (fairing, "mass_kg", r->fairing_mass_kg);
+  check (fairing, "time_s", r->fairing_dropped ? r->fairing.time_s : NAN);
+  check (fairing, "altitude_km", r->fairing_dropped ? r->fairing.altitude_m / 1000.0 : NAN);
+
+  stages = array (o, "stages");
+  g_assert_cmpuint (json_array_get_length (stages), ==, d->n_stages);
+  for (guint i = 0; i < d->n_stages; i++)
+    {
+      JsonObject *st = json_array_get_object_element (stages, i);
+      const SwAscentStage *s = &r->stages[i];
+
+      g_assert_cmpstr (json_object_get_string_member (st, "name"), ==, d->stages[i].name);
+      check (st, "thrust_vac_kn", s->thrust_vac_n / 1000.0);
+      check (st, "thrust_sl_kn", s->thrust_sl_n / 1000.0);
+      check (st, "mass_flow_kg_s", s->mass_flow_kg_s);
+      check (st, "burn_time_s", s->burn_time_s);
+      check (st, "coast_before_ignition_s", s->coast_s);
+      check (st, "ignition_mass_kg", s->ignition_mass_kg);
+      check (st, "ignition_thrust_to_weight", s->ignition_thrust_to_weight);
+      check (st, "burnout_thrust_to_weight", s->burnout_thrust_to_weight);
+      check (st, "burn_time_flown_s", s->burn_time_flown_s);
+      check (st, "propellant_left_kg", s->propellant_left_kg);
+      check_point (st, "ignition", &s->ignition, FALSE);
+      check_point (st, "burnout", &s->burnout, TRUE);
+    }
+  run_clear (&run);
+}
+
+/* The atmosphere command prints the core's model at the asked altitude, in
+ * SI units; at 10 km that is the 1976 table's 26,500 Pa and 0.41351 kg/m^3
+ * (reference-values.md, confirmed; one unit of the last figure). */
+static void
+test_atmosphere_values (void)
+{
+  g_autoptr (JsonNode) keep = NULL;
+  JsonObject *o;
+  SwAtmosphere a;
+  Run run;
+
+  g_assert_true (sw_atmosphere_at (10000.0, &a));
+  run_cli (&run, "atmosphere", "--json", "10000", NULL);
+  g_assert_cmpint (run.code, ==, 0);
+  o = parse (run.out, &keep);
+  check (o, "altitude_m", 10000.0);
+  check (o, "geopotential_altitude_m", sw_atmosphere_geopotential (10000.0));
+  check (o, "temperature_k", a.temperature_k);
+  check (o, "pressure_pa", a.pressure_pa);
+  check (o, "density_kg_m3", a.density_kg_m3);
+  check (o, "speed_of_sound_m_s", a.speed_of_sound_m_s);
+  g_assert_cmpfloat_with_epsilon (json_object_get_double_member (o, "pressure_pa"), 26500.0, 1.0);
+  g_assert_cmpfloat_with_epsilon (json_object_get_double_member (o, "density_kg_m3"), 0.41351,
+                                  1e-5);
+  run_clear (&run);
+}
+
+/* ---- CSV export -------------------------------------------------------------- */
+
+/* A CSV file written by `export --csv`: the caution line, a header, rows.
+ * Cells are looked up by the header's column names. */
+typedef struct {
+  char     **header;
+  GPtrArray *rows;        /* of GStrv */
+} Csv;
+
+static void
+csv_clear (Csv *c)
+{
+  g_strfreev (c->header);
+  g_ptr_array_unref (c->rows);
+}
+
+/* Splits one line at commas outside double quotes (RFC 4180). */
+static char **
+csv_split (const char *line)
+{
+  GPtrArray *cells = g_ptr_array_new ();
+  GString *cell = g_string_new (NULL);
+  gboolean quoted = FALSE;
+
+  for (const char *p = line;; p++)
+    {
+      if (*p == '"' && quoted && p[1] == '"')
+        g_string_append_c (cell, *p++);
+      else if (*p == '"')
+        quoted = !quoted;
+      else if ((*p == ',' && !quoted) || *p == '\0')
+        {
+          g_ptr_array_add (cells, g_strdup (cell->str));
+          g_string_truncate (cell, 0);
+          if (*p == '\0')
+            break;
+        }
+      else
+        g_string_append_c (cell, *p);
+    }
+  g_string_free (cell, TRUE);
+  g_ptr_array_add (cells, NULL);
+  return (char **) g_ptr_array_free (cells, FALSE);
+}
+
+static void
+csv_read (Csv *c, const char *dir, const char *name)
+{
+  g_autofree char *path = g_build_filename (dir, name, NULL);
+  g_autofree char *text = NULL;
+  g_auto (GStrv) lines = NULL;
+
+  if (!g_file_get_contents (path, &text, NULL, NULL))
+    g_error ("%s was not written", name);
+  lines = g_strsplit (text, "\n", -1);
+  /* The cautions first (every export carries them). */
+  g_assert_true (g_str_has_prefix (lines[0], "# "));
+  g_assert_nonnull (strstr (lines[0], "not for flight hardware"));
+  c->header = csv_split (lines[1]);
+  c->rows = g_ptr_array_new_with_free_func ((GDestroyNotify) g_strfreev);
+  for (guint i = 2; lines[i] != NULL; i++)
+    if (lines[i][0] != '\0')
+      {
+        char **row = csv_split (lines[i]);
+        g_assert_cmpuint (g_strv_length (row), ==, g_strv_length (c->header));
+        g_ptr_array_add (c->rows, row);
+      }
+}
+
+static const char *
+cell (const Csv *c, guint row, const char *column)
+{
+  g_assert_cmpuint (row, <, c->rows->len);
+  for (guint k = 0; c->header[k] != NULL; k++)
+    if (strcmp (c->header[k], column) == 0)
+      return ((char **) c->rows->pdata[row])[k];
+  g_error ("no column %s", column);
+}
+
+/* The CSV prints 10 significant figures: half a unit of the tenth is at most
+ * 5e-10 relative.  An empty cell stands for "no value" (NAN). */
+static void
+check_cell (const Csv *c, guint row, const char *column, double core)
+{
+  const char *text = cell (c, row, column);
+  double v;
+
+  if (isnan (core))
+    {
+      if (text[0] != '\0')
+        g_error ("row %u, %s: the core has no value, the CSV shows %s", row, column, text);
+      return;
+    }
+  if (text[0] == '\0')
+    g_error ("row %u, %s: empty, the core has %.10g", row, column, core);
+  v = g_ascii_strtod (text, NULL);
+  if (!(fabs (v - core) <= 5e-10 * fabs (core) + 1e-300))
+    g_error ("row %u, %s: CSV %s, core %.17g", row, column, text, core);
+}
+
+static void
+test_csv_values (void)
+{
+  g_autofree char *path = demo ("skelloway-upgrade-study.stagewright");
+  g_autofree char *dir = g_dir_make_tmp ("sw-cli-csv-XXXXXX", NULL);
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
+  g_autofree SwSweep *sweep = g_new0 (SwSweep, 1);
+  const char *const files[] = { "stages.csv", "stage-count.csv", "delta-v-sweep.csv",
+                                "sensitivity.csv", "reliability.csv",
+                                "uncertainty-histogram.csv", "stage-decision.csv",
+                                "carpet.csv" };
+  SwSizing s;
+  SwStageCurve curve, base;
+  SwReliability rel;
+  SwReliabilityCurve relc;
+  SwSensitivityTable t;
+  double dv;
+  Csv c;
+  Run run;
+
+  g_assert_nonnull (d);
+  g_assert_nonnull (d->baseline);
+  g_assert_true (sw_size_design (d, &s, NULL));
+  g_assert_true (s.feasible);
+  g_assert_true (sw_design_required_delta_v (d, &dv, NULL));
+  sw_stage_curve_compute (d, dv, SW_MAX_STAGES, &curve);
+  {
+    /* The baseline's curve is for the baseline's own mission. */
+    double base_dv;
+    g_assert_true (sw_design_required_delta_v (d->baseline, &base_dv, NULL));
+    sw_stage_curve_compute (d->baseline, base_dv, SW_MAX_STAGES, &base);
+  }
+  sw_sweep_compute (d, SW_SWEEP_CURVES, SW_SWEEP_POINTS, sweep);
+  sw_reliability_from_design (d, &rel);
+  sw_reliability_curve_compute (d, SW_MAX_STAGES, &relc);
+  g_assert_true (sw_sensitivity_compute (d, SW_SENSITIVITY_DEFAULT_STEP, &t, NULL));
+
+  run_cli (&run, "export", "--csv", dir, "--no-montecarlo", path, NULL);
+  g_assert_cmpint (run.code, ==, 0);
+  run_clear (&run);
+
+  csv_read (&c, dir, "stages.csv");
+  g_assert_cmpuint (c.rows->len, ==, d->n_stages + 1);       /* and the total */
+  for (guint i = 0; i < d->n_stages; i++)
+    {
+      const SwStageResult *r = &s.stages[i];
+      g_assert_cmpstr (cell (&c, i, "name"), ==, d->stages[i].name);
+      check_cell (&c, i, "isp_vac_s", d->stages[i].isp_vac_s);
+      check_cell (&c, i, "structural_coefficient", d->stages[i].structural_coefficient);
+      check_cell (&c, i, "delta_v_m_s", r->delta_v_m_s);
+      check_cell (&c, i, "delta_v_share", r->delta_v_share);
+      check_cell (&c, i, "mass_ratio", r->mass_ratio);
+      check_cell (&c, i, "propellant_mass_kg", r->propellant_mass_kg);
+      check_cell (&c, i, "structural_mass_kg", r->structural_mass_kg);
+      check_cell (&c, i, "initial_mass_kg", r->initial_mass_kg);
+      check_cell (&c, i, "burnout_mass_kg", r->burnout_mass_kg);
+      check_cell (&c, i, "stage_success", rel.stage[i]);
+    }
+  g_assert_cmpstr (cell (&c, d->n_stages, "stage"), ==, "total");
+  check_cell (&c, d->n_stages, "delta_v_m_s", s.delta_v_m_s);
+  check_cell (&c, d->n_stages, "initial_mass_kg", s.liftoff_mass_kg);
+  check_cell (&c, d->n_stages, "stage_success", rel.mission);
+  csv_clear (&c);
+
+  csv_read (&c, dir, "stage-count.csv");
+  g_assert_cmpuint (c.rows->len, ==, curve.n_points);
+  for (guint i = 0; i < curve.n_points; i++)
+    {
+      g_assert_cmpint (atoi (cell (&c, i, "stages")), ==, i + 1);
+      g_assert_cmpstr (cell (&c, i, "feasible"), ==, curve.points[i].feasible ? "true" : "false");
+      check_cell (&c, i, "liftoff_mass_kg", curve.points[i].liftoff_mass_kg);
+      check_cell (&c, i, "delta_v_limit_m_s", curve.points[i].delta_v_limit_m_s);
+      check_cell (&c, i, "baseline_liftoff_mass_kg", base.points[i].liftoff_mass_kg);
+      check_cell (&c, i, "mission_success", relc.mission[i]);
+      /* No Monte Carlo asked for: no band. */
+      check_cell (&c, i, "liftoff_mass_p50_kg", NAN);
+    }
+  csv_clear (&c);
+
+  csv_read (&c, dir, "delta-v-sweep.csv");
+  {
+    guint row = 0;
+    for (guint k = 0; k < sweep->n_curves; k++)
+      for (guint j = 0; j < sweep->curves[k].n_points; j++, row++)
+        {
+          g_assert_cmpint (atoi (cell (&c, row, "stages")), ==, sweep->curves[k].stages);
+          check_cell (&c, row, "delta_v_m_s", sweep->curves[k].delta_v_m_s[j]);
+          check_cell (&c, row, "liftoff_mass_kg", sweep->curves[k].liftoff_mass_kg[j]);
+        }
+    g_assert_cmpuint (c.rows->len, ==, row);
+  }
+  csv_clear (&c);
+
+  csv_read (&c, dir, "sensitivity.csv");
+  g_assert_cmpuint (c.rows->len, ==, t.n_items);
+  for (guint r = 0; r < t.n_items; r++)
+    {
+      const SwSensitivity *it = &t.items[t.ranked[r]];
+      g_assert_cmpint (atoi (cell (&c, r, "rank")), ==, r + 1);
+      g_assert_cmpstr (cell (&c, r, "parameter"), ==, sw_sens_param_to_string (it->param));
+      check_cell (&c, r, "value", it->value);
+      check_cell (&c, r, "derivative_kg_per_unit", it->derivative);
+      check_cell (&c, r, "elasticity", it->elasticity);
+      check_cell (&c, r, "minus_step_kg", it->minus_kg);
+      check_cell (&c, r, "plus_step_kg", it->plus_kg);
+    }
+  csv_clear (&c);
+
+  csv_read (&c, dir, "reliability.csv");
+  g_assert_cmpuint (c.rows->len, ==, relc.n_points);
+  for (guint i = 0; i < relc.n_points; i++)
+    check_cell (&c, i, "mission_success", relc.mission[i]);
+  csv_clear (&c);
+
+  /* With the Monte Carlo: the band columns are the core's band for the
+   * design's seed and samples (at most 2000 per stage count, sw-analysis.h),
+   * and ordered p05 <= p50 <= p95. */
+  {
+    SwMcBand band;
+    guint n_band = 0;
+
+    g_assert_true (sw_montecarlo_band (d, NULL, SW_MAX_STAGES,
+                                       MIN (sw_uncertainty_samples (&d->uncertainty), 2000),
+                                       sw_uncertainty_seed (&d->uncertainty), 2, &band, NULL));
+    run_cli (&run, "export", "--csv", dir, "--threads", "2", path, NULL);
+    g_assert_cmpint (run.code, ==, 0);
+    run_clear (&run);
+    csv_read (&c, dir, "stage-count.csv");
+    for (guint i = 0; i < band.n_points; i++)
+      {
+        check_cell (&c, i, "liftoff_mass_p05_kg", band.p05[i]);
+        check_cell (&c, i, "liftoff_mass_p50_kg", band.p50[i]);
+        check_cell (&c, i, "liftoff_mass_p95_kg", band.p95[i]);
+        if (isfinite (band.p95[i]))
+          {
+            g_assert_cmpfloat (band.p05[i], <, band.p50[i]);
+            g_assert_cmpfloat (band.p50[i], <, band.p95[i]);
+            n_band++;
+          }
+      }
+    g_assert_cmpuint (n_band, >=, 2);
+    csv_clear (&c);
+  }
+  /* The histograms: the design's own run (its samples and seed), bins of
+   * equal width from the lowest to the highest sample. */
+  {
+    SwMonteCarlo mc;
+
+    g_assert_true (sw_montecarlo_run (d, NULL, 0, FALSE, 0, 2, &mc, NULL, NULL, NULL));
+    csv_read (&c, dir, "uncertainty-histogram.csv");
+    g_assert_cmpuint (c.rows->len, ==, 2 * SW_MC_BINS);
+    for (guint q = 0; q < 2; q++)
+      {
+        const SwMcSummary *sum = q == 0 ? &mc.liftoff : &mc.payload;
+        guint total = 0;
+
+        for (guint i = 0; i < SW_MC_BINS; i++)
+          {
+            guint row = q * SW_MC_BINS + i;
+            double w = (sum->bin_hi - sum->bin_lo) / SW_MC_BINS;
+
+            g_assert_cmpstr (cell (&c, row, "quantity"), ==,
+                             q == 0 ? "liftoff_mass_kg" : "fixed_vehicle_payload_kg");
+            g_assert_cmpint (atoi (cell (&c, row, "bin")), ==, i + 1);
+            check_cell (&c, row, "lower", sum->bin_lo + i * w);
+            check_cell (&c, row, "upper", sum->bin_lo + (i + 1) * w);
+            g_assert_cmpint (atoi (cell (&c, row, "count")), ==, sum->bins[i]);
+            total += (guint) atoi (cell (&c, row, "count"));
+          }
+        g_assert_cmpuint (total, ==, sum->n);
+      }
+    csv_clear (&c);
+  }
+
+  for (guint i = 0; i < G_N_ELEMENTS (files); i++)
+    {
+      g_autofree char *f = g_build_filename (dir, files[i], NULL);
+      g_unlink (f);
+    }
+  g_assert_cmpint (g_rmdir (dir), ==, 0);
+}
+
+/* ---- text reports ------------------------------------------------------------- */
+
+static void
+expect_line (const char *out, const char *line)
+{
+  g_autofree char *needle = g_strconcat ("\n", line, "\n", NULL);
+  g_autofree char *text = g_strconcat ("\n", out, NULL);
+
+  if (strstr (text, needle) == NULL)
+    {
+      g_printerr ("%s", out);
+      g_error ("no line \"%s\" in the output above", line);
+    }
+}
+
+/* The table's figures at 10 km, written out from the 1976 standard's table
+ * (reference-values.md, confirmed: 223.252 K, 0.41351 kg/m^3, 299.53 m/s),
+ * and the model named up to the layered part's top at exactly 86 km. */
+static void
+test_atmosphere_text (void)
+{
+  g_autoptr (JsonNode) keep = NULL;
+  JsonObject *o;
+  Run run;
+
+  run_cli (&run, "atmosphere", "10000", NULL);
+  g_assert_cmpint (run.code, ==, 0);
+  expect_line (run.out, "  temperature             223.252 K");
+  expect_line (run.out, "  density                 0.41351 kg/m^3");
+  expect_line (run.out, "  speed of sound           299.53 m/s");
+  expect_line (run.out, "Model: 1976 U.S. Standard Atmosphere (NOAA-S/T 76-1562)");
+  run_clear (&run);
+
+  run_cli (&run, "atmosphere", "--json", "86000", NULL);
+  g_assert_cmpint (run.code, ==, 0);
+  o = parse (run.out, &keep);
+  g_assert_cmpstr (json_object_get_string_member (o, "model"), ==,
+                   "1976 U.S. Standard Atmosphere");
+  run_clear (&run);
+  g_clear_pointer (&keep, json_node_unref);
+  run_cli (&run, "atmosphere", "--json", "86001", NULL);
+  g_assert_cmpint (run.code, ==, 0);
+  o = parse (run.out, &keep);
+  g_assert_nonnull (strstr (json_object_get_string_member (o, "model"), "above 86 km"));
+  run_clear (&run);
+}
+
+/* The Monte Carlo report: the spreads as the design file gives them (skelloway
+ * demo: Isp normal 1 %, structural coefficient uniform 6 %, losses normal
+ * 100 m/s), the share that carries the payload in percent, and a spread of
+ * width zero reported as none. */
+static void
+test_montecarlo_text (void)
+{
+  g_autofree char *path = demo ("skelloway-upgrade-study.stagewright");
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
+  g_autofree char *margin = NULL;
+  SwMonteCarlo mc;
+  Run run;
+
+  g_assert_true (sw_montecarlo_run (d, NULL, 500, TRUE, 3, 2, &mc, NULL, NULL, NULL));
+  run_cli (&run, "montecarlo", "--samples", "500", "--seed", "3", "--threads", "2", path, NULL);
+  g_assert_cmpint (run.code, ==, 0);
+  expect_line (run.out, "Spreads: Isp normal, sigma 1 %; structural coefficient uniform, +- 6 %; "
+                        "losses normal, sigma 100 m/s");
+  /* The share of samples that carry the whole payload: 1 - the share short. */
+  margin = g_strdup_printf (" carries the whole payload in %.1f %% of cases;",
+                            100.0 * (1.0 - mc.p_negative_margin));
+  if (strstr (run.out, margin) == NULL)
+    g_error ("no \"%s\" in:\n%s", margin, run.out);
+  run_clear (&run);
+
+  {
+    g_autofree char *dir = g_dir_make_tmp ("sw-cli-mc-XXXXXX", NULL);
+    g_autofree char *flat = g_build_filename (dir, "flat.stagewright", NULL);
+    static const char text[] =
+      "{ \"format\": \"stagewright-design\", \"version\": 1, \"name\": \"flat\",\n"
+      "  \"payload_kg\": 1000, \"mission\": { \"delta_v_m_s\": 9000 }, \"split\": \"optimal\",\n"
+      "  \"stages\": [ { \"isp_vac_s\": 320, \"structural_coefficient\": 0.07 },\n"
+      "    { \"isp_vac_s\": 345, \"structural_coefficient\": 0.09 } ],\n"
+      "  \"uncertainty\": { \"samples\": 200,\n"
+      "    \"isp_vac\": { \"distribution\": \"normal\", \"sigma_percent\": 0 } } }\n";
+    g_autoptr (GError) error = NULL;
+    g_autoptr (SwDesign) f = NULL;
+
+    g_assert_true (g_file_set_contents (flat, text, -1, NULL));
+    f = sw_design_load (flat, NULL, &error);
+    if (f != NULL)
+      {
+        run_cli (&run, "montecarlo", flat, NULL);
+        g_assert_cmpint (run.code, ==, 0);
+        expect_line (run.out, "Spreads: Isp none; structural coefficient none; losses none");
+        /* Nothing varies: nothing falls short, no reserve is needed. */
+        expect_line (run.out, "  required 1,000.0 kg; reserve for 95 % confidence: 0.0 kg");
+        g_assert_nonnull (strstr (run.out, " carries the whole payload in 100.0 % of cases: no reserve is needed for 95 %."));
+        run_clear (&run);
+      }
+    else
+      g_test_message ("a zero sigma is refused: %s", error->message);
+    g_unlink (flat);
+    g_rmdir (dir);
+  }
+}
+
 /* ---- translations ------------------------------------------------------------- */
 
 /* The CLI binds the translations (SW_LOCALE_DIR: the build tree's po/), so
@@ -394,6 +910,11 @@ test_german_message (void)
   /* po/de.po: "%s: \"%s\" ist kein Stagewright-Entwurf (\"%s\" erwartet)" */
   g_assert_nonnull (strstr (r.err, "\"something-else\" ist kein Stagewright-Entwurf"));
   run_clear (&r);
+  /* The CLI's own messages too (po/de.po). */
+  run_cli_env (&r, env, NULL);
+  g_assert_cmpint (r.code, ==, 2);
+  g_assert_nonnull (strstr (r.err, "Aufruf: stagewright-cli BEFEHL [OPTIONEN] ARGUMENTE"));
+  run_clear (&r);
   /* And in English without LANGUAGE. */
   env = g_environ_unsetenv (env, "LANGUAGE");
   env = g_environ_setenv (env, "LC_ALL", "C.UTF-8", TRUE);
@@ -414,6 +935,11 @@ main (int argc, char **argv)
   g_test_add_func ("/cli-values/montecarlo", test_montecarlo_values);
   g_test_add_func ("/cli-values/sensitivity", test_sensitivity_values);
   g_test_add_func ("/cli-values/reliability", test_reliability_values);
+  g_test_add_func ("/cli-values/ascent", test_ascent_values);
+  g_test_add_func ("/cli-values/atmosphere", test_atmosphere_values);
+  g_test_add_func ("/cli-values/csv", test_csv_values);
+  g_test_add_func ("/cli-values/atmosphere-text", test_atmosphere_text);
+  g_test_add_func ("/cli-values/montecarlo-text", test_montecarlo_text);
   g_test_add_func ("/cli-values/german-message", test_german_message);
   return g_test_run ();
 }

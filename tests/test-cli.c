@@ -314,16 +314,33 @@ test_size_verdicts (void)
   g_autofree char *infeasible = write_design ("infeasible.stagewright", infeasible_design);
   g_autofree char *weak = write_design ("weak.stagewright", weak_design);
   g_autofree char *paper = demo ("all-solid-concept.stagewright");
-  g_autofree char *shortfall = demo ("medium-cargo.stagewright");
+  g_autofree char *cargo = demo ("medium-cargo.stagewright");
+  g_autofree char *shortfall = g_build_filename (g_get_tmp_dir (), "sw-cli-short.stagewright",
+                                                 NULL);
   g_autofree char *reaches = demo ("three-stage-simulated.stagewright");
+
+  /* The cargo demo with too small a loss allowance falls short. */
+  {
+    g_autoptr (SwDesign) d = sw_design_load (cargo, NULL, NULL);
+    g_assert_nonnull (d);
+    d->mission.losses_m_s = 1500.0;
+    g_assert_true (sw_design_save (d, shortfall, NULL));
+  }
 
   /* Two stages of c ln(1/eps) = 300 g0 ln 10 = 6,774 m/s each give at most
    * 13,548 m/s (hand-worked with g0 = 9.80665): 14 km/s is out of reach. */
   check_verdict (infeasible, NULL, "infeasible",
                  (const char *const[]) { "14000", "13548", NULL }, "Not feasible: ");
-  check_verdict (weak, NULL, "over-limit",
-                 (const char *const[]) { "Thrust-to-weight at liftoff is", "below your limit of 1.20",
-                                         NULL },
+  /* No flight (a delta-v mission), so no "reaches the orbit, but": paper
+   * only, with the broken limit said in the reason. */
+  check_verdict (weak, NULL, "paper-only",
+                 (const char *const[]) { "Thrust-to-weight at liftoff is",
+                                         "below your limit of 1.20", NULL },
+                 "Feasible on paper only: ");
+  /* The flight that reaches its orbit, against a max-Q limit it exceeds. */
+  check_verdict (reaches, "--max-q-kpa=5", "over-limit",
+                 (const char *const[]) { "reaches the orbit, but", "Max-Q is",
+                                         "above your limit of 5.0 kPa", NULL },
                  "Reaches the orbit, but breaks a limit: ");
   check_verdict (paper, NULL, "paper-only",
                  (const char *const[]) { "rocket equation", "not a target orbit", NULL },
@@ -339,6 +356,27 @@ test_size_verdicts (void)
                  "Feasible on paper only: ");
   remove_design (infeasible);
   remove_design (weak);
+  g_remove (shortfall);
+}
+
+/* The limits take the window's ranges; outside them it is a usage error. */
+static void
+test_size_limit_options (void)
+{
+  g_autofree char *path = demo ("small-sat-launcher.stagewright");
+  Run r;
+
+  run_cli (&r, "size", "--max-q-kpa=4.9", path, NULL);
+  g_assert_cmpint (r.code, ==, 2);
+  g_assert_nonnull (strstr (r.err, "--max-q-kpa 5 to 200"));
+  g_assert_cmpstr (r.out, ==, "");
+  run_clear (&r);
+  run_cli (&r, "size", "--min-thrust-to-weight=0.4", path, NULL);
+  g_assert_cmpint (r.code, ==, 2);
+  run_clear (&r);
+  run_cli (&r, "size", "--max-g=21", path, NULL);
+  g_assert_cmpint (r.code, ==, 2);
+  run_clear (&r);
 }
 
 static void
@@ -733,6 +771,7 @@ main (int argc, char **argv)
   g_test_add_func ("/cli/size-json", test_size_json);
   g_test_add_func ("/cli/size-table", test_size_table);
   g_test_add_func ("/cli/size-verdicts", test_size_verdicts);
+  g_test_add_func ("/cli/size-limit-options", test_size_limit_options);
   g_test_add_func ("/cli/size-infeasible", test_size_infeasible);
   g_test_add_func ("/cli/curve-json", test_curve_json);
   g_test_add_func ("/cli/budget-json", test_budget_json);

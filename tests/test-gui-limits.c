@@ -503,7 +503,7 @@ test_extremes_valid (void)
 static void
 test_trade_extremes (void)
 {
-  SwWindow *w = window_with_demo ("kestrel-upgrade-study.stagewright");
+  SwWindow *w = window_with_demo ("skelloway-upgrade-study.stagewright");
   SwInspector *inspector = sw_window_get_inspector (w);
 
   g_assert_true (doc_design (w)->uncertainty.present);

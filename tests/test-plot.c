@@ -317,6 +317,58 @@ test_clear_and_formats (void)
   gtk_window_destroy (GTK_WINDOW (window));
 }
 
+/* Dark pixels down the column of the y axis inside the plot area. */
+static int
+axis_column_ink (cairo_surface_t *surface, const graphene_rect_t *area)
+{
+  int n = 0;
+  double bg[4];
+
+  widget_render_pixel (surface, 1, 1, bg);
+  for (int y = (int) area->origin.y + 2; y < (int) (area->origin.y + area->size.height) - 2; y++)
+    {
+      double px[4];
+      widget_render_pixel (surface, (int) round (area->origin.x), y, px);
+      if (fabs (px[0] - bg[0]) + fabs (px[1] - bg[1]) + fabs (px[2] - bg[2]) > 0.3)
+        n++;
+    }
+  return n;
+}
+
+/* A plot with nothing to draw says so instead of drawing empty 0..1 axes;
+ * the same plot with a series draws its axis. */
+static void
+test_no_data (void)
+{
+  static const double x[] = { 1.0, 2.0, 3.0 };
+  static const double y[] = { 5.0, 7.0, 6.0 };
+  GtkWidget *plot = sw_plot_new ();
+  GtkWidget *window;
+  cairo_surface_t *surface;
+  graphene_rect_t area;
+  int empty_ink, full_ink;
+
+  sw_plot_set_title (SW_PLOT (plot), "Nothing yet");
+  sw_plot_set_x_axis (SW_PLOT (plot), "x", FALSE);
+  sw_plot_set_y_axis (SW_PLOT (plot), "y", FALSE);
+  window = show_plot (plot);
+  g_assert_true (sw_plot_get_plot_area (SW_PLOT (plot), &area));
+  surface = widget_render_window (window);
+  empty_ink = axis_column_ink (surface, &area);
+  cairo_surface_destroy (surface);
+
+  sw_plot_add_series (SW_PLOT (plot), "s", x, y, 3, SW_PLOT_LINE, -1);
+  widget_render_settle ();
+  g_assert_true (sw_plot_get_plot_area (SW_PLOT (plot), &area));
+  surface = widget_render_window (window);
+  full_ink = axis_column_ink (surface, &area);
+  cairo_surface_destroy (surface);
+  g_test_message ("axis column: %d dark pixels without data, %d with", empty_ink, full_ink);
+  g_assert_cmpint (full_ink, >, area.size.height / 2);
+  g_assert_cmpint (empty_ink, <, area.size.height / 10);
+  gtk_window_destroy (GTK_WINDOW (window));
+}
+
 int
 main (int argc, char **argv)
 {
@@ -330,5 +382,6 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/plot/current-design-marker", test_current_design_marker);
   g_test_add_func ("/gui/plot/palette", test_palette);
   g_test_add_func ("/gui/plot/clear-and-formats", test_clear_and_formats);
+  g_test_add_func ("/gui/plot/no-data", test_no_data);
   return g_test_run ();
 }

@@ -5,6 +5,7 @@
 #include "sw-design.h"
 #include "sw-reliability.h"
 
+#include <gsl/gsl_cdf.h>
 #include <math.h>
 #include <string.h>
 
@@ -33,6 +34,25 @@ test_binomial_hand_worked (void)
   g_assert_cmpfloat (sw_reliability_engines (9, 0.995, 1), >, 0.995);
   /* Without tolerance more engines are worse (common practice). */
   g_assert_cmpfloat (sw_reliability_engines (9, 0.995, 0), <, 0.995);
+}
+
+/* Every cluster against GSL's binomial distribution: at most f of n engines
+ * fail, each with probability q = 1 - r, is gsl_cdf_binomial_P (f, q, n). */
+static void
+test_binomial_against_gsl (void)
+{
+  static const double rs[] = { 0.9, 0.97, 0.995, 0.9999 };
+
+  for (guint k = 0; k < G_N_ELEMENTS (rs); k++)
+    for (guint n = 1; n <= 30; n++)
+      for (guint f = 0; f < n; f++)
+        {
+          double want = gsl_cdf_binomial_P (f, 1.0 - rs[k], n);
+          double got = sw_reliability_engines (n, rs[k], f);
+          if (!(fabs (got - want) <= 1e-12))
+            g_error ("%u engines, r = %g, %u tolerated: %.15g, GSL %.15g", n, rs[k], f, got,
+                     want);
+        }
 }
 
 static const char *design_json =
@@ -162,6 +182,7 @@ main (int argc, char **argv)
 {
   g_test_init (&argc, &argv, NULL);
   g_test_add_func ("/core/reliability/binomial-hand-worked", test_binomial_hand_worked);
+  g_test_add_func ("/core/reliability/binomial-gsl", test_binomial_against_gsl);
   g_test_add_func ("/core/reliability/mission-hand-worked", test_mission_hand_worked);
   g_test_add_func ("/core/reliability/curve-rule", test_curve_rule);
   g_test_add_func ("/core/reliability/no-keys", test_no_keys_is_perfect);

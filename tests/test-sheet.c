@@ -6,6 +6,7 @@
 
 #include "sw-csv.h"
 #include "sw-sheet.h"
+#include "sw-sheet-private.h"
 
 #include <cairo.h>
 #include <glib/gstdio.h>
@@ -97,6 +98,21 @@ test_pdf_text (void)
   if (strstr (text, expect) == NULL)
     g_error ("\"%s\" not in the PDF's text:\n%s", expect, text);
   g_assert_nonnull (strstr (text, "Wren 3 trade study"));
+  /* The verdict is the first thing under the title: this study's vehicle
+   * falls short of its orbit in simulation (its own ascent). */
+  g_assert_cmpint (b->verdict.state, ==, SW_VERDICT_SHORT_OF_ORBIT);
+  {
+    const char *verdict = strstr (text, "Does not reach the orbit");
+    const char *totals = strstr (text, "Totals");
+    g_assert_nonnull (verdict);
+    g_assert_nonnull (totals);
+    g_assert_cmpint (verdict - text, <, totals - text);
+    g_assert_nonnull (strstr (text, "short of the orbit"));
+  }
+  /* No JSON key or internal phrase on the page. */
+  g_assert_null (strstr (text, "_kn"));
+  g_assert_null (strstr (text, "_m_s"));
+  g_assert_null (strstr (text, "min(k"));
   g_assert_nonnull (strstr (text, "Wren sustainer"));
   /* The cautions. */
   g_assert_nonnull (strstr (text, "Conceptual sizing only"));
@@ -191,6 +207,12 @@ test_svg_well_formed (void)
   g_assert_cmpuint (check.elements, >, 100);
   g_assert_cmpstr (check.width, ==, "612pt");
   g_free (check.width);
+  /* Text stays text: the words can be found in the file, and no glyph is
+   * drawn as an outline. */
+  g_assert_nonnull (strstr (data, ">Totals</text>"));
+  g_assert_nonnull (strstr (data, ">Wren 3 trade study</text>"));
+  g_assert_nonnull (strstr (data, "Conceptual sizing only"));
+  g_assert_null (strstr (data, "glyph"));
 }
 
 static void
@@ -205,7 +227,7 @@ test_csv (void)
 
   g_assert_true (sw_csv_export (b, dir, written, &error));
   g_assert_no_error (error);
-  g_assert_cmpuint (written->len, ==, 6);
+  g_assert_cmpuint (written->len, ==, 8);  /* with stage-decision.csv and carpet.csv */
 
   path = g_build_filename (dir, "stages.csv", NULL);
   g_assert_true (g_file_get_contents (path, &stages, NULL, NULL));
@@ -223,6 +245,103 @@ test_csv (void)
   /* One stage cannot fly this mission: an empty mass, never NaN. */
   g_assert_nonnull (strstr (curve, "\n1,false,,"));
   g_assert_null (strstr (curve, "nan"));
+}
+
+/* A first stage too weak to lift off: the sheet says so in the totals
+ * (thrust 20 kN against a vehicle of some tonnes: T/W well below 1), and
+ * without a flight the verdict stays "on paper only". */
+static void
+test_thrust_to_weight_warning (void)
+{
+  static const char design[] =
+    "{ \"format\": \"stagewright-design\", \"version\": 1, \"name\": \"Weak\","
+    "  \"payload_kg\": 150, \"mission\": { \"delta_v_m_s\": 9600 }, \"split\": \"optimal\","
+    "  \"stages\": [ { \"name\": \"One\", \"isp_vac_s\": 275, \"isp_sl_s\": 245,"
+    "                  \"structural_coefficient\": 0.10, \"thrust_vac_kn\": 20,"
+    "                  \"diameter_m\": 1.2 },"
+    "                { \"name\": \"Two\", \"isp_vac_s\": 290, \"structural_coefficient\": 0.12,"
+    "                  \"thrust_vac_kn\": 12 } ] }";
+  g_autoptr (GError) error = NULL;
+  g_autoptr (SwDesign) d = sw_design_load_data (design, -1, "weak.stagewright", NULL, &error);
+  g_autoptr (SwAnalysis) a = NULL;
+  g_autofree char *pdf = g_build_filename (tmpdir, "weak.pdf", NULL);
+  g_autofree char *text = NULL;
+
+  g_assert_no_error (error);
+  a = sw_analysis_run (d, NULL, NULL);
+  g_assert_cmpint (a->verdict.state, ==, SW_VERDICT_PAPER_ONLY);
+  g_assert_true (sw_sheet_export (a, SW_SHEET_PDF, SW_PAPER_A4, pdf, &error));
+  g_assert_no_error (error);
+  text = run_tool ((const char *[]) { "pdftotext", "-layout", pdf, "-", NULL });
+  g_assert_nonnull (strstr (text, "Feasible on paper only"));
+  g_assert_nonnull (strstr (text, "Thrust-to-weight at liftoff"));
+  g_assert_nonnull (strstr (text, "below the limit of 1.20"));
+  /* No performance margin without a simulation: the headroom is named. */
+  g_assert_nonnull (strstr (text, "Headroom to the stages"));
+  g_assert_null (strstr (text, "Simulated \316\224v margin"));
+}
+
+static void
+box_clear (gpointer p)
+{
+  g_free (((SwSheetTextBox *) p)->text);
+}
+
+/* Nothing overprinted: every text the page draws is recorded with its ink
+ * box, and no two boxes overlap (0.3 pt of slack for antialiased edges). */
+static void
+check_no_overlap (SwAnalysis *a)
+{
+  g_autoptr (GArray) boxes = g_array_new (FALSE, FALSE, sizeof (SwSheetTextBox));
+  cairo_surface_t *surface = cairo_recording_surface_create (CAIRO_CONTENT_COLOR, NULL);
+  cairo_t *cr = cairo_create (surface);
+  double w, h;
+
+  g_array_set_clear_func (boxes, box_clear);
+  sw_sheet_paper_size (SW_PAPER_A4, &w, &h);
+  sw_sheet_private_record_text (cr, boxes);
+  sw_sheet_draw_page (cr, a, w, h);
+  sw_sheet_private_record_text (cr, NULL);
+  cairo_destroy (cr);
+  cairo_surface_destroy (surface);
+  g_assert_cmpuint (boxes->len, >, 40);
+  for (guint i = 0; i < boxes->len; i++)
+    for (guint j = i + 1; j < boxes->len; j++)
+      {
+        const SwSheetTextBox *p = &g_array_index (boxes, SwSheetTextBox, i);
+        const SwSheetTextBox *q = &g_array_index (boxes, SwSheetTextBox, j);
+        double ox = MIN (p->x + p->w, q->x + q->w) - MAX (p->x, q->x);
+        double oy = MIN (p->y + p->h, q->y + q->h) - MAX (p->y, q->y);
+        if (ox > 0.3 && oy > 0.3)
+          g_error ("%s: \"%s\" and \"%s\" overlap", a->design->name, p->text, q->text);
+      }
+}
+
+static void
+test_no_overlap (void)
+{
+  static const char *const demos[] = {
+    "all-solid-concept.stagewright", "skelloway-upgrade-study.stagewright",
+    "medium-cargo.stagewright", "small-sat-launcher.stagewright",
+    "three-stage-simulated.stagewright",
+  };
+  g_autoptr (SwAnalysis) trade = briefing (WITH_MONTECARLO | WITH_BAND);
+
+  check_no_overlap (trade);
+  for (guint i = 0; i < G_N_ELEMENTS (demos); i++)
+    {
+      g_autofree char *path = g_build_filename (g_getenv ("SW_SOURCE_ROOT"), "data", "designs",
+                                                demos[i], NULL);
+      g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
+      g_autoptr (SwAnalysis) a = NULL;
+      SwAnalysisOptions o;
+
+      g_assert_nonnull (d);
+      sw_analysis_options_init (&o);
+      o.band_samples = 500;
+      a = sw_analysis_run (d, &o, NULL);
+      check_no_overlap (a);
+    }
 }
 
 static void
@@ -254,6 +373,8 @@ main (int argc, char **argv)
   g_test_add_func ("/sheet/png-size", test_png_size);
   g_test_add_func ("/sheet/svg-well-formed", test_svg_well_formed);
   g_test_add_func ("/sheet/csv", test_csv);
+  g_test_add_func ("/sheet/no-overlap", test_no_overlap);
+  g_test_add_func ("/sheet/thrust-to-weight-warning", test_thrust_to_weight_warning);
   status = g_test_run ();
   remove_tree (tmpdir);
   g_free (tmpdir);

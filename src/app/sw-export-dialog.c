@@ -18,6 +18,7 @@ struct _SwExportDialog {
   char         *sheet_path;
   char         *csv_dir;
   GCancellable *cancellable;      /* of the export running, or NULL */
+  gboolean      queued;           /* asked for while the ascent was being simulated */
   GtkNativeDialog *chooser;
   char         *status;
   gboolean      failed;
@@ -176,7 +177,7 @@ set_status (SwExportDialog *self, const char *text, gboolean failed)
 static void
 update_sensitivity (SwExportDialog *self)
 {
-  gboolean busy = self->cancellable != NULL;
+  gboolean busy = self->cancellable != NULL || self->queued;
   gboolean csv = gtk_check_button_get_active (self->csv_check);
   gboolean ok = self->result != NULL && self->result->ok;
 
@@ -345,6 +346,16 @@ sw_export_dialog_export (SwExportDialog *self)
 
   if (self->cancellable != NULL || self->result == NULL)
     return;
+  /* The sheet leads with the verdict, which needs the ascent: wait for the
+   * window's next analysis rather than fly it a second time here. */
+  if (self->result->ok && self->result->ascent_pending)
+    {
+      self->queued = TRUE;
+      set_status (self, _("Waiting for the simulated ascent…"), FALSE);
+      update_sensitivity (self);
+      return;
+    }
+  self->queued = FALSE;
   csv = gtk_check_button_get_active (self->csv_check) ? self->csv_dir : NULL;
   self->cancellable = g_cancellable_new ();
   set_status (self, _("Writing…"), FALSE);
@@ -370,7 +381,7 @@ gboolean
 sw_export_dialog_is_busy (SwExportDialog *self)
 {
   g_return_val_if_fail (SW_IS_EXPORT_DIALOG (self), FALSE);
-  return self->cancellable != NULL;
+  return self->cancellable != NULL || self->queued;
 }
 
 const char *
@@ -392,10 +403,15 @@ sw_export_dialog_set_result (SwExportDialog *self, SwAnalysis *result)
   g_clear_pointer (&self->result, sw_analysis_unref);
   self->result = result != NULL ? sw_analysis_ref (result) : NULL;
   if (result != NULL && !result->ok)
-    set_status (self, _("The design cannot be sized: fix it before exporting."), TRUE);
+    {
+      self->queued = FALSE;
+      set_status (self, _("The design cannot be sized: fix it before exporting."), TRUE);
+    }
   else if (self->failed && self->cancellable == NULL)
     set_status (self, NULL, FALSE);
   update_sensitivity (self);
+  if (self->queued && result != NULL && result->ok && !result->ascent_pending)
+    sw_export_dialog_export (self);
 }
 
 void

@@ -426,7 +426,7 @@ draw_axes (SwPlot *self, cairo_t *cr, const Colors *c)
       double cw = sw_plot_category_width (self);
       for (guint i = 0; self->categories[i] != NULL; i++)
         {
-          PangoLayout *layout = sw_plot_make_text (self, self->categories[i]);
+          PangoLayout *layout = sw_plot_make_text_fresh (self, self->categories[i]);
           double py = sw_plot_axis_map (&self->y, i);
           int w, h;
           pango_layout_set_ellipsize (layout, PANGO_ELLIPSIZE_END);
@@ -827,7 +827,7 @@ sw_plot_snapshot (GtkWidget *widget, GtkSnapshot *snapshot)
   if (!sw_plot_has_data (self))
     {
       /* No empty 0-1 axes: say so instead. */
-      PangoLayout *layout = sw_plot_make_text (self, self->empty_text != NULL ? self->empty_text
+      PangoLayout *layout = sw_plot_make_text_fresh (self, self->empty_text != NULL ? self->empty_text
                                                                               : _("No data"));
       int w, h;
       pango_layout_set_width (layout, (int) (MAX (width - 2 * MARGIN, 1) * PANGO_SCALE));

@@ -63,6 +63,7 @@ struct _SwPlot {
   int        next_color;
   gboolean   readout_tooltip;
   char      *empty_text;  /* shown instead of axes when there is no data */
+  GHashTable *text_cache; /* text -> PangoLayout, see sw_plot_make_text() */
 
   /* Layout */
   gboolean        layout_valid;
@@ -97,7 +98,10 @@ typedef struct {
 
 /* sw-plot.c: layout */
 PangoLayout *sw_plot_make_layout (SwPlot *self, const char *markup);
+/* A shared, cached layout (a new reference): do not change it. */
 PangoLayout *sw_plot_make_text (SwPlot *self, const char *text);
+/* A layout of one's own, to set a width or ellipsize. */
+PangoLayout *sw_plot_make_text_fresh (SwPlot *self, const char *text);
 PangoLayout *sw_plot_title_layout (SwPlot *self);
 GArray      *sw_plot_legend_entries (SwPlot *self);
 double       sw_plot_text_height (SwPlot *self);

@@ -130,7 +130,7 @@ data_extent (SwPlot *self, Extent *ex, Extent *ey)
 static double
 text_extent (const char *text, gboolean horizontal, gpointer user_data)
 {
-  PangoLayout *layout = gtk_widget_create_pango_layout (GTK_WIDGET (user_data), text);
+  PangoLayout *layout = sw_plot_make_text (user_data, text);
   int w, h;
 
   pango_layout_get_pixel_size (layout, &w, &h);
@@ -149,8 +149,31 @@ sw_plot_make_layout (SwPlot *self, const char *markup)
   return layout;
 }
 
+/* Plain texts (ticks, axis titles, legend names) recur from one result to
+ * the next: their shaped layouts are kept, so a new result does not shape
+ * them again.  Callers must not change the layout they get. */
+#define TEXT_CACHE_MAX 512
+
 PangoLayout *
 sw_plot_make_text (SwPlot *self, const char *text)
+{
+  PangoLayout *layout;
+
+  if (text == NULL)
+    text = "";
+  layout = g_hash_table_lookup (self->text_cache, text);
+  if (layout == NULL)
+    {
+      if (g_hash_table_size (self->text_cache) >= TEXT_CACHE_MAX)
+        g_hash_table_remove_all (self->text_cache);
+      layout = gtk_widget_create_pango_layout (GTK_WIDGET (self), text);
+      g_hash_table_insert (self->text_cache, g_strdup (text), layout);
+    }
+  return g_object_ref (layout);
+}
+
+PangoLayout *
+sw_plot_make_text_fresh (SwPlot *self, const char *text)
 {
   return gtk_widget_create_pango_layout (GTK_WIDGET (self), text);
 }
@@ -350,6 +373,8 @@ static void
 sw_plot_css_changed (GtkWidget *widget, GtkCssStyleChange *change)
 {
   GTK_WIDGET_CLASS (sw_plot_parent_class)->css_changed (widget, change);
+  /* The font may have changed. */
+  g_hash_table_remove_all (SW_PLOT (widget)->text_cache);
   invalidate (SW_PLOT (widget));
 }
 
@@ -403,6 +428,7 @@ sw_plot_finalize (GObject *object)
 
   g_free (self->title);
   g_free (self->empty_text);
+  g_hash_table_unref (self->text_cache);
   sw_plot_axis_clear (&self->x);
   sw_plot_axis_clear (&self->y);
   g_ptr_array_unref (self->series);
@@ -484,6 +510,7 @@ sw_plot_init (SwPlot *self)
   self->bands = g_ptr_array_new_with_free_func (band_free);
   self->markers = g_ptr_array_new_with_free_func (marker_free);
   self->vlines = g_ptr_array_new_with_free_func (vline_free);
+  self->text_cache = g_hash_table_new_full (g_str_hash, g_str_equal, g_free, g_object_unref);
   sw_plot_hover_setup (self);
 }
 

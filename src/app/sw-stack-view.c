@@ -354,11 +354,11 @@ make_labels (SwStackView *self, gboolean compact, double max_width, double *widt
 
       g_clear_object (&it->label);
       it->label = make_label (self, markup);
-      pango_layout_set_ellipsize (it->label, PANGO_ELLIPSIZE_END);
-      pango_layout_set_height (it->label, -1);
       pango_layout_get_pixel_size (it->label, &lw, &lh);
       if (lw > max_width)
         {
+          /* Wrapped between words, never cut mid-word or mid-number. */
+          pango_layout_set_wrap (it->label, PANGO_WRAP_WORD_CHAR);
           pango_layout_set_width (it->label, (int) (max_width * PANGO_SCALE));
           pango_layout_get_pixel_size (it->label, &lw, &lh);
         }
@@ -386,6 +386,8 @@ legend_height (SwStackView *self)
   g_object_unref (probe);
   return h + 8.0;
 }
+
+static guint legend_run (SwStackView *self, cairo_t *cr, const Colors *c, int width);
 
 static void
 stack_layout (SwStackView *self, int width, int height)
@@ -419,7 +421,8 @@ stack_layout (SwStackView *self, int width, int height)
   sz = &r->sizing;
   to_scale = sz->feasible;
   legend_h = legend_height (self);
-  top = MARGIN + legend_h;
+  /* The legend wraps in a narrow view instead of being cut. */
+  top = MARGIN + legend_h * legend_run (self, NULL, NULL, width);
   bottom = height - MARGIN - (to_scale ? legend_h + 30.0 : legend_h);
 
   if (!sz->feasible)
@@ -725,26 +728,53 @@ legend_swatch (SwStackView *self, cairo_t *cr, double x, double y, double h,
   return x + h + tw + 16.0;
 }
 
+/* The legend's entries, wrapped to the widget's width; without @cr only
+ * counts the rows. */
+static guint
+legend_run (SwStackView *self, cairo_t *cr, const Colors *c, int width)
+{
+  gboolean feasible = self->result != NULL && self->result->sizing.feasible;
+  const char *names[3];
+  double h = legend_height (self) - 8.0;
+  double x = MARGIN, y = MARGIN;
+  guint rows = 1;
+
+  names[0] = feasible ? _("Propellant") : _("Cannot deliver");
+  names[1] = feasible ? _("Structure") : _("Not sized");
+  names[2] = _("Payload");
+  for (guint i = 0; i < 3; i++)
+    {
+      PangoLayout *probe = make_label (self, names[i]);
+      int tw;
+
+      pango_layout_get_pixel_size (probe, &tw, NULL);
+      g_object_unref (probe);
+      if (x > MARGIN && x + h + tw > width - MARGIN)
+        {
+          x = MARGIN;
+          y += h + 8.0;
+          rows++;
+        }
+      if (cr == NULL)
+        {
+          x += h + tw + 16.0;
+          continue;
+        }
+      if (feasible)
+        x = legend_swatch (self, cr, x, y, h, i == 0 ? &c->accent : i == 1 ? &c->fg : &c->payload,
+                           i == 0 ? c->propellant_alpha : i == 1 ? c->structure_alpha : 0.75,
+                           FALSE, c, names[i]);
+      else
+        x = legend_swatch (self, cr, x, y, h, i == 0 ? &c->warning : i == 1 ? &c->fg : &c->payload,
+                           i == 0 ? 0.15 : i == 1 ? 0.08 : 0.75, i == 0, c, names[i]);
+    }
+  return rows;
+}
+
 static void
 draw_legend (SwStackView *self, cairo_t *cr, const Colors *c)
 {
-  double h = legend_height (self) - 8.0;
-  double x = MARGIN, y = MARGIN;
-
-  if (self->result->sizing.feasible)
-    {
-      x = legend_swatch (self, cr, x, y, h, &c->accent, c->propellant_alpha, FALSE, c,
-                         _("Propellant"));
-      x = legend_swatch (self, cr, x, y, h, &c->fg, c->structure_alpha, FALSE, c,
-                         _("Structure"));
-      legend_swatch (self, cr, x, y, h, &c->payload, 0.75, FALSE, c, _("Payload"));
-    }
-  else
-    {
-      x = legend_swatch (self, cr, x, y, h, &c->warning, 0.15, TRUE, c, _("Cannot deliver"));
-      x = legend_swatch (self, cr, x, y, h, &c->fg, 0.08, FALSE, c, _("Not sized"));
-      legend_swatch (self, cr, x, y, h, &c->payload, 0.75, FALSE, c, _("Payload"));
-    }
+  legend_run (self, cr, c, gtk_widget_get_width (GTK_WIDGET (self)));
 }
 
 static void

@@ -19,7 +19,10 @@ struct _SwTotals {
   GtkInscription *margin_label;
   GtkInscription *required_label;
   GtkInscription *limit_label;
-  GtkStack  *status_stack;
+  GtkWidget *status_box;
+  GtkImage  *status_icon;
+  GtkLabel  *status_label;
+  const char *status_page;     /* "ok", "note", "warn" or "bad" */
   GtkWidget *ascent_note_box;
   GtkLabel  *ascent_note_label;
   GtkWidget *ascent_warning_box;
@@ -32,16 +35,33 @@ struct _SwTotals {
 
 G_DEFINE_FINAL_TYPE (SwTotals, sw_totals, GTK_TYPE_WIDGET)
 
-/* One page per state, each with its fixed icon and style. */
+/* The state's icon and style ("ok", "note", "warn", "bad"), and the text. */
 static void
 set_status (SwTotals *self, const char *page, const char *text)
 {
-  GtkLabel *label = GTK_LABEL (gtk_widget_get_last_child (
-    gtk_stack_get_child_by_name (self->status_stack, page)));
+  static const struct { const char *page, *icon; } icons[] = {
+    { "ok", "object-select-symbolic" },
+    { "note", "dialog-information-symbolic" },
+    { "warn", "dialog-warning-symbolic" },
+    { "bad", "dialog-error-symbolic" },
+  };
 
-  if (g_strcmp0 (gtk_label_get_text (label), text) != 0)
-    gtk_label_set_text (label, text);
-  gtk_stack_set_visible_child_name (self->status_stack, page);
+  if (g_strcmp0 (gtk_label_get_text (self->status_label), text) != 0)
+    gtk_label_set_text (self->status_label, text);
+  if (g_strcmp0 (self->status_page, page) == 0)
+    return;
+  for (guint i = 0; i < G_N_ELEMENTS (icons); i++)
+    {
+      g_autofree char *css = g_strconcat ("sw-status-", icons[i].page, NULL);
+      if (g_str_equal (icons[i].page, page))
+        {
+          self->status_page = icons[i].page;
+          gtk_image_set_from_icon_name (self->status_icon, icons[i].icon);
+          gtk_widget_add_css_class (self->status_box, css);
+        }
+      else
+        gtk_widget_remove_css_class (self->status_box, css);
+    }
 }
 
 char *
@@ -132,7 +152,9 @@ update_deltas (SwTotals *self)
   set_delta (self->delta_caption, tooltip, NULL);
   set_delta (self->liftoff_delta, liftoff, tooltip);
   set_delta (self->fraction_delta, fraction, tooltip);
-  set_delta (self->margin_delta, margin, tooltip);
+  /* The headroom's change is no change of the simulated margin above it. */
+  set_delta (self->margin_delta, "", NULL);
+  (void) margin;
 }
 
 static void
@@ -168,33 +190,49 @@ update (SwTotals *self)
   s = &r->sizing;
   liftoff = sw_format_mass (s->liftoff_mass_kg);
   fraction = sw_format_percent (s->payload_fraction, 2);
-  margin = sw_format_speed (s->margin_m_s);
-  dv = sw_format_speed (s->delta_v_m_s);
+  /* The headline margin is the simulated one; the headroom to the stages'
+   * limit is no performance margin and stays on the line below. */
+  margin = isfinite (r->simulated_margin_m_s) ? sw_format_speed_delta (r->simulated_margin_m_s)
+                                              : g_strdup (SW_NO_VALUE);
+  dv = sw_format_speed (r->delta_v_m_s);
   lim = sw_format_speed (s->delta_v_limit_m_s);
   /* Translators: %s is a speed such as "9,400 m/s" */
   required = g_strdup_printf (_("Required delta-v %s"), dv);
-  /* Translators: %s is a speed such as "12,500 m/s" */
-  limit = g_strdup_printf (_("Vehicle limit %s (no payload)"), lim);
+  if (s->feasible)
+    {
+      g_autofree char *head = sw_format_speed (r->headroom_m_s);
+      /* Translators: two speeds: the stages' limit and the headroom below it */
+      limit = g_strdup_printf (_("Stages' limit %s (no payload), headroom %s"), lim, head);
+    }
+  else
+    /* Translators: %s is a speed such as "12,500 m/s" */
+    limit = g_strdup_printf (_("Stages' limit %s (no payload)"), lim);
   gtk_inscription_set_text (self->liftoff_label, liftoff);
   gtk_inscription_set_text (self->fraction_label, fraction);
   gtk_inscription_set_text (self->margin_label, margin);
   gtk_inscription_set_text (self->required_label, required);
   gtk_inscription_set_text (self->limit_label, limit);
 
-  if (!s->feasible)
+  /* The verdict: icon and style by state, green only when the simulated
+   * ascent reaches the orbit within the limits. */
+  status = g_strdup_printf (_("%s. %s"), sw_verdict_state_title (r->verdict.state),
+                            r->verdict.reason);
+  set_status (self, sw_totals_status_page (r->verdict.state), status);
+}
+
+const char *
+sw_totals_status_page (SwVerdictState state)
+{
+  switch (state)
     {
-      status = g_strdup_printf (_("Not feasible. %s"), s->reason);
-      set_status (self, "bad", status);
+    case SW_VERDICT_REACHES_ORBIT: return "ok";
+    case SW_VERDICT_OVER_LIMIT: return "warn";
+    case SW_VERDICT_INFEASIBLE:
+    case SW_VERDICT_SHORT_OF_ORBIT: return "bad";
+    case SW_VERDICT_PAPER_ONLY:
+    case SW_VERDICT_PENDING:
+    default: return "note";
     }
-  else if (s->reason[0] != '\0')
-    {
-      status = g_strdup_printf (_("Feasible. %s"), s->reason);
-      set_status (self, "note", status);
-    }
-  else
-    /* A fixed text: a wrapping label that changes costs a relayout of the
-     * column on every edit, and the margin is shown above anyway. */
-    set_status (self, "ok", _("Feasible: every stage gives its share of the delta-v."));
 }
 
 GtkWidget *
@@ -244,9 +282,10 @@ sw_totals_get_text (SwTotals *self, SwTotalsField field)
     case SW_TOTALS_MARGIN: return gtk_inscription_get_text (self->margin_label);
     case SW_TOTALS_REQUIRED: return gtk_inscription_get_text (self->required_label);
     case SW_TOTALS_LIMIT: return gtk_inscription_get_text (self->limit_label);
+    case SW_TOTALS_STATUS_PAGE:
+      return self->status_page;
     case SW_TOTALS_STATUS:
-      return gtk_label_get_text (GTK_LABEL (gtk_widget_get_last_child (
-        gtk_stack_get_visible_child (self->status_stack))));
+      return gtk_label_get_text (self->status_label);
     case SW_TOTALS_ASCENT_NOTE:
       return gtk_widget_get_visible (self->ascent_note_box)
              ? gtk_label_get_text (self->ascent_note_label) : NULL;
@@ -294,7 +333,9 @@ sw_totals_class_init (SwTotalsClass *klass)
   gtk_widget_class_bind_template_child (widget_class, SwTotals, margin_label);
   gtk_widget_class_bind_template_child (widget_class, SwTotals, required_label);
   gtk_widget_class_bind_template_child (widget_class, SwTotals, limit_label);
-  gtk_widget_class_bind_template_child (widget_class, SwTotals, status_stack);
+  gtk_widget_class_bind_template_child (widget_class, SwTotals, status_box);
+  gtk_widget_class_bind_template_child (widget_class, SwTotals, status_icon);
+  gtk_widget_class_bind_template_child (widget_class, SwTotals, status_label);
   gtk_widget_class_bind_template_child (widget_class, SwTotals, ascent_note_box);
   gtk_widget_class_bind_template_child (widget_class, SwTotals, ascent_note_label);
   gtk_widget_class_bind_template_child (widget_class, SwTotals, ascent_warning_box);

@@ -30,9 +30,12 @@ typedef enum {
   SW_TOTALS_LIFTOFF_DELTA,     /* against the baseline; NULL when there is none */
   SW_TOTALS_FRACTION_DELTA,
   SW_TOTALS_MARGIN_DELTA,
+  SW_TOTALS_STATUS_PAGE,       /* "ok", "note", "warn" or "bad": the icon and style shown */
 } SwTotalsField;
 
 const char *sw_totals_get_text (SwTotals *self, SwTotalsField field);
+/* The status page (icon and style) of a verdict state. */
+const char *sw_totals_status_page (SwVerdictState state);
 /* A change against the baseline as the totals show it: "+3.2 t (+11.6 %)",
  * the em dash when it is not known. */
 char       *sw_totals_format_delta (SwTotal total, const SwDelta *delta);

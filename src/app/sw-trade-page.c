@@ -5,6 +5,7 @@
 
 #include "sw-trade-page.h"
 
+#include "sw-design-fields.h"
 #include "sw-format.h"
 #include "sw-limits.h"
 #include "sw-trade-plots.h"
@@ -160,7 +161,6 @@ can_edit (SwTradePage *self)
 static void
 commit (SwTradePage *self, SwDesign *design, const char *merge_key)
 {
-  design->uncertainty.present = TRUE;
   if (sw_design_equal (design, sw_document_get_design (self->document)))
     {
       sw_design_free (design);
@@ -183,8 +183,11 @@ samples_changed_cb (SwTradePage *self)
       sw_design_free (d);
       return;
     }
-  d->uncertainty.has_samples = TRUE;
-  d->uncertainty.samples = samples;
+  if (!sw_design_field_set (d, SW_FIELD_MC_SAMPLES, 0, samples, NULL))
+    {
+      sw_design_free (d);
+      return;
+    }
   commit (self, d, "trade:samples");
 }
 
@@ -204,8 +207,11 @@ seed_changed_cb (SwTradePage *self)
       sw_design_free (d);
       return;
     }
-  d->uncertainty.has_seed = TRUE;
-  d->uncertainty.seed = seed;
+  if (!sw_design_field_set (d, SW_FIELD_MC_SEED, 0, seed, NULL))
+    {
+      sw_design_free (d);
+      return;
+    }
   commit (self, d, "trade:seed");
 }
 
@@ -230,15 +236,26 @@ static void
 spread_changed_cb (SwTradePage *self)
 {
   SwDesign *d;
+  SwSpread isp, eps, losses;
 
   if (!can_edit (self))
     return;
   d = sw_document_dup_design (self->document);
+  isp = d->uncertainty.isp;
+  eps = d->uncertainty.structural_coefficient;
+  losses = d->uncertainty.losses;
   self->updating++;
-  read_spread (self->isp_kind, self->isp_width, &d->uncertainty.isp, 1.0);
-  read_spread (self->eps_kind, self->eps_width, &d->uncertainty.structural_coefficient, 5.0);
-  read_spread (self->losses_kind, self->losses_width, &d->uncertainty.losses, 100.0);
+  read_spread (self->isp_kind, self->isp_width, &isp, 1.0);
+  read_spread (self->eps_kind, self->eps_width, &eps, 5.0);
+  read_spread (self->losses_kind, self->losses_width, &losses, 100.0);
   self->updating--;
+  if (!sw_design_set_spread (d, 0, isp.kind, isp.width, NULL)
+      || !sw_design_set_spread (d, 1, eps.kind, eps.width, NULL)
+      || !sw_design_set_spread (d, 2, losses.kind, losses.width, NULL))
+    {
+      sw_design_free (d);
+      return;
+    }
   commit (self, d, "trade:spreads");
 }
 

@@ -43,6 +43,7 @@ sw_trade_plots_show_stage_count (SwPlot *plot, SwAnalysis *r)
   sw_plot_set_x_range (plot, 0.5, SW_MAX_STAGES + 0.5);
   setup_mass_axis (plot);
   sw_plot_set_y_range (plot, NAN, NAN);
+  sw_plot_set_empty_text (plot, _("No curve: the design cannot be solved."));
   if (r == NULL || !r->ok)
     return;
 
@@ -100,6 +101,7 @@ sw_trade_plots_show_sweep (SwPlot *plot, SwAnalysis *r)
   /* Translators: tick labels of a speed axis in km/s */
   sw_plot_set_x_format (plot, _("%.0f km/s"), 1000.0);
   setup_mass_axis (plot);
+  sw_plot_set_empty_text (plot, _("No curves: the design cannot be solved."));
   if (r == NULL || !r->ok)
     {
       sw_plot_set_x_range (plot, NAN, NAN);

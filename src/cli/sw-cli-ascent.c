@@ -19,14 +19,14 @@ static gboolean opt_json;
 static char *opt_csv;
 
 static GOptionEntry ascent_entries[] = {
-  { "json", 0, 0, G_OPTION_ARG_NONE, &opt_json, "Print JSON for machines", NULL },
-  { "csv", 0, 0, G_OPTION_ARG_FILENAME, &opt_csv, "Write the time series to FILE (CSV)",
+  { "json", 0, 0, G_OPTION_ARG_NONE, &opt_json, N_("Print JSON for machines"), NULL },
+  { "csv", 0, 0, G_OPTION_ARG_FILENAME, &opt_csv, N_("Write the time series to FILE (CSV)"),
     "FILE" },
   { NULL }
 };
 
 static GOptionEntry json_entries[] = {
-  { "json", 0, 0, G_OPTION_ARG_NONE, &opt_json, "Print JSON for machines", NULL },
+  { "json", 0, 0, G_OPTION_ARG_NONE, &opt_json, N_("Print JSON for machines"), NULL },
   { NULL }
 };
 
@@ -142,6 +142,9 @@ ascent_to_json (const SwAnalysis *a)
   sw_cli_add_number (b, "fairing_loss_m_s", r->fairing_loss_m_s);
   sw_cli_add_number (b, "raising_loss_m_s", r->raising_loss_m_s);
   sw_cli_add_number (b, "other_loss_m_s", r->other_loss_m_s);
+  sw_cli_add_number (b, "rotation_term_m_s", r->rotation_term_m_s);
+  sw_cli_add_number (b, "gravity_loss_air_m_s", r->gravity_loss_air_m_s);
+  sw_cli_add_number (b, "max_q_alpha_kpa_deg", r->max_q_alpha_kpa_deg);
   sw_cli_add_number (b, "losses_m_s", r->losses_m_s);
   sw_cli_add_number (b, "engines_delta_v_m_s", r->engines_delta_v_m_s);
   sw_cli_add_number (b, "delta_v_needed_m_s", r->delta_v_needed_m_s);
@@ -264,7 +267,7 @@ print_notes (const char *notes)
 
   for (guint i = 0; lines[i] != NULL; i++)
     if (lines[i][0] != '\0')
-      g_print ("Note: %s\n", lines[i]);
+      g_print (_("Note: %s\n"), lines[i]);
 }
 
 static void
@@ -273,52 +276,55 @@ print_ascent (const SwDesign *d, const SwAscentResult *r)
   g_autofree char *pe = fmt (r->perigee_km, 1);
   g_autofree char *ap = fmt (r->apogee_km, 1);
 
-  g_print ("Design: %s\n", d->name);
+  g_print (_("Design: %s\n"), d->name);
   {
     g_autofree char *ta = fmt (r->target_altitude_km, 1);
     g_autofree char *az = fmt (r->launch_azimuth_deg, 2);
     g_autofree char *vc = fmt (r->circular_velocity_m_s, 1);
-    g_print ("Target: %s km circular, launch azimuth %s deg, circular speed %s m/s\n", ta, az,
+    g_print (_("Target: %s km circular, launch azimuth %s deg, circular speed %s m/s\n"), ta, az,
              vc);
   }
   if (r->closed_loop)
     {
-      g_print ("Loss model: simulate (closed loop, %s after %u pass%s; losses sized:",
-               r->loop_converged ? "converged" : "NOT converged", r->loop_iterations,
-               r->loop_iterations == 1 ? "" : "es");
+      g_print (g_dngettext (GETTEXT_PACKAGE,
+                            "Loss model: simulate (closed loop, %s after %u pass; losses sized:",
+                            "Loss model: simulate (closed loop, %s after %u passes; losses sized:",
+                            r->loop_iterations),
+               r->loop_converged ? _("converged") : _("NOT converged"), r->loop_iterations);
       for (guint i = 0; i < r->loop_iterations; i++)
-        g_print (" %.1f", r->loop_losses_m_s[i]);
+        g_print (" %s", sw_cli_num (r->loop_losses_m_s[i], 1));
       g_print (" m/s)\n");
     }
   else
     {
       g_autofree char *al = fmt (r->sized_delta_v_m_s - r->ideal_delta_v_m_s, 1);
-      g_print ("Loss model: allowance of %s m/s (the sizing's)\n", al);
+      g_print (_("Loss model: allowance of %s m/s (the sizing's)\n"), al);
     }
   {
     g_autofree char *lm = fmt (r->sizing.liftoff_mass_kg / 1000.0, 3);
     g_autofree char *tw = fmt (r->liftoff_thrust_to_weight, 3);
-    g_print ("Liftoff mass: %s t sized + %.0f kg fairing    thrust-to-weight at liftoff: %s\n",
-             lm, r->fairing_mass_kg, tw);
+    g_print (_("Liftoff mass: %s t sized + %s kg fairing    thrust-to-weight at liftoff: %s\n"),
+             lm, sw_cli_num (r->fairing_mass_kg, 0), tw);
   }
   g_print ("\n");
 
   switch (r->status)
     {
     case SW_ASCENT_REACHED:
-      g_print ("ORBIT REACHED: perigee %s km, apogee %s km", pe, ap);
+      g_print (_("ORBIT REACHED: perigee %s km, apogee %s km"), pe, ap);
       if (isfinite (r->delta_v_margin_m_s))
-        g_print ("; delta-v margin %+.1f m/s", r->delta_v_margin_m_s);
+        g_print (_("; delta-v margin %s m/s"), sw_cli_num_signed (r->delta_v_margin_m_s, 1));
       g_print ("\n");
       break;
     case SW_ASCENT_SHORT:
-      g_print ("SHORT BY %.0f m/s of delta-v. %s\n", r->delta_v_missing_m_s, r->reason);
+      g_print (_("SHORT BY %s m/s of delta-v. %s\n"), sw_cli_num (r->delta_v_missing_m_s, 0),
+               r->reason);
       break;
     case SW_ASCENT_NOT_SIMULATED:
     case SW_ASCENT_NO_SOLUTION:
     case SW_ASCENT_UNGUIDED:
     default:
-      g_print ("NO ORBIT: %s\n", r->reason);
+      g_print (_("NO ORBIT: %s\n"), r->reason);
       break;
     }
   print_notes (r->notes);
@@ -336,24 +342,29 @@ print_ascent (const SwDesign *d, const SwAscentResult *r)
 
   if (isfinite (r->losses_m_s))
     {
-      g_print ("\nDelta-v budget (m/s)\n");
-      g_print ("  ideal |v_orbit - v_site|   %9.1f   (rotation gain %.1f)\n",
-               r->ideal_delta_v_m_s, r->rotation_gain_m_s);
-      g_print ("  gravity loss               %9.1f\n", r->gravity_loss_m_s);
-      g_print ("  drag loss                  %9.1f\n", r->drag_loss_m_s);
-      g_print ("  steering loss              %9.1f\n", r->steering_loss_m_s);
-      g_print ("  back-pressure thrust loss  %9.1f\n", r->pressure_loss_m_s);
-      g_print ("  fairing carried            %9.1f\n", r->fairing_loss_m_s);
+      g_print (_("\nDelta-v budget (m/s)\n"));
+      g_print (_("  ideal |v_orbit - v_site|   %9s   (rotation gain %s)\n"),
+               sw_cli_num (r->ideal_delta_v_m_s, 1), sw_cli_num (r->rotation_gain_m_s, 1));
+      g_print (_("  gravity loss               %9s   (inertial flight path; %s against the "
+                 "air)\n"),
+               sw_cli_num (r->gravity_loss_m_s, 1), sw_cli_num (r->gravity_loss_air_m_s, 1));
+      g_print (_("  drag loss                  %9s\n"), sw_cli_num (r->drag_loss_m_s, 1));
+      g_print (_("  steering loss              %9s\n"), sw_cli_num (r->steering_loss_m_s, 1));
+      g_print (_("  back-pressure thrust loss  %9s\n"), sw_cli_num (r->pressure_loss_m_s, 1));
+      g_print (_("  fairing carried            %9s\n"), sw_cli_num (r->fairing_loss_m_s, 1));
       if (isfinite (r->circularization_m_s))
-        g_print ("  orbit raising              %9.1f   (incl. %.1f m/s circularisation)\n",
-                 r->raising_loss_m_s, r->circularization_m_s);
+        g_print (_("  orbit raising              %9s   (incl. %s m/s circularisation)\n"),
+                 sw_cli_num (r->raising_loss_m_s, 1), sw_cli_num (r->circularization_m_s, 1));
       else
-        g_print ("  cutoff above circular speed%9.1f\n", r->raising_loss_m_s);
-      g_print ("  other (rotation at altitude) %7.1f\n", r->other_loss_m_s);
-      g_print ("  losses, total              %9.1f\n", r->losses_m_s);
-      g_print ("  needed (ideal + losses)    %9.1f\n", r->delta_v_needed_m_s);
-      g_print ("  sized                      %9.1f   (margin %.1f)\n", r->sized_delta_v_m_s,
-               r->delta_v_margin_m_s);
+        g_print (_("  cutoff above circular speed%9s\n"), sw_cli_num (r->raising_loss_m_s, 1));
+      g_print (_("  turning atmosphere         %9s   (thrust and drag against the air)\n"),
+               sw_cli_num (r->rotation_term_m_s, 1));
+      g_print (_("  residual                   %9s\n"),
+               sw_cli_num (r->other_loss_m_s - r->rotation_term_m_s, 1));
+      g_print (_("  losses, total              %9s\n"), sw_cli_num (r->losses_m_s, 1));
+      g_print (_("  needed (ideal + losses)    %9s\n"), sw_cli_num (r->delta_v_needed_m_s, 1));
+      g_print (_("  sized                      %9s   (margin %s)\n"),
+               sw_cli_num (r->sized_delta_v_m_s, 1), sw_cli_num (r->delta_v_margin_m_s, 1));
     }
   g_print ("\n");
   {
@@ -362,17 +373,18 @@ print_ascent (const SwDesign *d, const SwAscentResult *r)
     g_autofree char *qh = fmt (r->max_q_altitude_m / 1000.0, 1);
     g_autofree char *a = fmt (r->max_axial_g, 2);
     g_autofree char *at = fmt (r->max_axial_g_time_s, 1);
-    g_print ("Max-Q: %s kPa at T+%s s (%s km)    Max axial acceleration: %s g at T+%s s\n", q,
+    g_print (_("Max-Q: %s kPa at T+%s s (%s km)    Max axial acceleration: %s g at T+%s s\n"), q,
              qt, qh, a, at);
   }
   if (r->fairing_mass_kg > 0.0)
     {
       if (r->fairing_dropped)
-        g_print ("Fairing: %.0f kg dropped at T+%.1f s, %.1f km, q = %.1f Pa\n",
-                 r->fairing_mass_kg, r->fairing.time_s, r->fairing.altitude_m / 1000.0,
-                 r->fairing.dynamic_pressure_pa);
+        g_print (_("Fairing: %s kg dropped at T+%s s, %s km, q = %s Pa\n"),
+                 sw_cli_num (r->fairing_mass_kg, 0), sw_cli_num (r->fairing.time_s, 1),
+                 sw_cli_num (r->fairing.altitude_m / 1000.0, 1),
+                 sw_cli_num (r->fairing.dynamic_pressure_pa, 1));
       else
-        g_print ("Fairing: %.0f kg, not dropped\n", r->fairing_mass_kg);
+        g_print (_("Fairing: %s kg, not dropped\n"), sw_cli_num (r->fairing_mass_kg, 0));
     }
   {
     g_autofree char *po = fmt (r->pitch_over_time_s, 1);
@@ -380,19 +392,20 @@ print_ascent (const SwDesign *d, const SwAscentResult *r)
     g_autofree char *s0 = fmt (r->steering_start_deg, 1);
     g_autofree char *s1 = fmt (r->steering_end_deg, 1);
     g_autofree char *gs = fmt (r->guidance_start_s, 1);
-    g_print ("Guidance: pitch-over at T+%s s, kick %s deg%s; linear tangent from T+%s s, pitch "
-             "%s deg to %s deg (%u trajectories simulated)\n",
+    g_print (_("Guidance: pitch-over at T+%s s, kick %s deg%s; linear tangent from T+%s s, pitch "
+             "%s deg to %s deg (%u trajectories simulated)\n"),
              po, k, r->pitch_kick_solved ? " (least delta-v)" : "", gs, s0, s1,
              r->guidance_iterations);
   }
   if (r->status == SW_ASCENT_REACHED || r->status == SW_ASCENT_SHORT)
-    g_print ("Cutoff: T+%.1f s at %.1f km, %.1f m/s, flight-path %.3f deg\n", r->cutoff.time_s,
-             r->cutoff.altitude_m / 1000.0, r->cutoff.speed_m_s, r->cutoff.flight_path_deg);
+    g_print (_("Cutoff: T+%s s at %s km, %s m/s, flight-path %s deg\n"),
+             sw_cli_num (r->cutoff.time_s, 1), sw_cli_num (r->cutoff.altitude_m / 1000.0, 1),
+             sw_cli_num (r->cutoff.speed_m_s, 1), sw_cli_num (r->cutoff.flight_path_deg, 3));
   if (isfinite (r->circularization_m_s))
-    g_print ("Transfer: cutoff into %.1f x %.1f km, coast to apogee, circularisation burn of "
-             "%.1f m/s at T+%.0f s (impulsive)\n",
-             r->transfer_perigee_km, r->transfer_apogee_km, r->circularization_m_s,
-             r->circularization_time_s);
+    g_print (_("Transfer: cutoff into %s x %s km, coast to apogee, circularisation burn of "
+             "%s m/s at T+%s s (impulsive)\n"), sw_cli_num (r->transfer_perigee_km,
+             1), sw_cli_num (r->transfer_apogee_km, 1), sw_cli_num (r->circularization_m_s,
+             1), sw_cli_num (r->circularization_time_s, 0));
   g_print ("\n%s\n", sw_format_cautions ());
 }
 
@@ -406,7 +419,7 @@ write_csv (const char *path, const SwDesign *d, const SwAscentResult *r)
                           sw_format_cautions ());
   g_string_append (s, "time_s,altitude_m,downrange_m,speed_m_s,air_speed_m_s,flight_path_deg,"
                       "dynamic_pressure_pa,mach,axial_accel_g,mass_kg,thrust_n,stage,"
-                      "beyond_load\n");
+                      "beyond_load,pitch_deg\n");
   for (guint i = 0; i < r->samples->len; i++)
     {
       const SwAscentSample *p = &g_array_index (r->samples, SwAscentSample, i);
@@ -419,12 +432,15 @@ write_csv (const char *path, const SwDesign *d, const SwAscentResult *r)
             g_string_append_printf (s, "%.9g", v[k]);
           g_string_append_c (s, ',');
         }
-      g_string_append_printf (s, "%u,%d\n", p->stage + 1, p->beyond_load ? 1 : 0);
+      g_string_append_printf (s, "%u,%d,", p->stage + 1, p->beyond_load ? 1 : 0);
+      if (isfinite (p->pitch_deg))
+        g_string_append_printf (s, "%.9g", p->pitch_deg);
+      g_string_append_c (s, '\n');
     }
   if (!g_file_set_contents_full (path, s->str, (gssize) s->len,
                                  G_FILE_SET_CONTENTS_CONSISTENT, 0644, &error))
     {
-      g_printerr ("error: could not write %s: %s\n", path, error->message);
+      g_printerr (_("error: could not write %s: %s\n"), path, error->message);
       return FALSE;
     }
   return TRUE;
@@ -541,12 +557,12 @@ sw_cli_atmosphere (int argc, char **argv)
   z = g_ascii_strtod (argv[1], &end);
   if (end == argv[1] || *end != '\0' || !isfinite (z))
     {
-      g_printerr ("stagewright-cli atmosphere: \"%s\" is not an altitude in metres\n", argv[1]);
+      g_printerr (_("stagewright-cli atmosphere: \"%s\" is not an altitude in metres\n"), argv[1]);
       return SW_EXIT_USAGE;
     }
   if (!sw_atmosphere_at (z, &a))
     {
-      g_printerr ("stagewright-cli atmosphere: %g m is outside the model's range, %g to %g m\n",
+      g_printerr (_("stagewright-cli atmosphere: %g m is outside the model's range, %g to %g m\n"),
                   z, SW_ATMOSPHERE_MIN_ALTITUDE_M, SW_ATMOSPHERE_MAX_ALTITUDE_M);
       return SW_EXIT_USAGE;
     }
@@ -571,13 +587,13 @@ sw_cli_atmosphere (int argc, char **argv)
       sw_cli_print_json (node);
       return SW_EXIT_OK;
     }
-  g_print ("Altitude: %.1f m geometric (%.1f m' geopotential)\n", z,
-           sw_atmosphere_geopotential (z));
-  g_print ("  temperature      %14.3f K\n", a.temperature_k);
-  g_print ("  pressure         %14.6g Pa\n", a.pressure_pa);
-  g_print ("  density          %14.6g kg/m^3\n", a.density_kg_m3);
-  g_print ("  speed of sound   %14.2f m/s\n", a.speed_of_sound_m_s);
-  g_print ("Model: %s\n",
+  g_print (_("Altitude: %s m geometric (%s m' geopotential)\n"), sw_cli_num (z, 1),
+           sw_cli_num (sw_atmosphere_geopotential (z), 1));
+  g_print (_("  temperature      %14s K\n"), sw_cli_num (a.temperature_k, 3));
+  g_print (_("  pressure         %14.6g Pa\n"), a.pressure_pa);
+  g_print (_("  density          %14.6g kg/m^3\n"), a.density_kg_m3);
+  g_print (_("  speed of sound   %14s m/s\n"), sw_cli_num (a.speed_of_sound_m_s, 2));
+  g_print (_("Model: %s\n"),
            z <= SW_ATMOSPHERE_LAYERED_TOP_M
              ? "1976 U.S. Standard Atmosphere (NOAA-S/T 76-1562)"
              : "above 86 km a smooth approximation of ours through the 1976 standard's "

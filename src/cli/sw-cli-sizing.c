@@ -13,6 +13,7 @@
 
 static gboolean opt_json;
 static gboolean opt_no_ascent;
+static double opt_min_tw, opt_max_q_kpa, opt_max_g;
 static int opt_max_stages = SW_MAX_STAGES;
 
 static GOptionEntry json_entries[] = {
@@ -25,6 +26,12 @@ static GOptionEntry size_entries[] = {
   { "no-ascent", 0, 0, G_OPTION_ARG_NONE, &opt_no_ascent,
     N_("Do not simulate the ascent (nor close the loss loop): the verdict is paper-only"),
     NULL },
+  { "min-thrust-to-weight", 0, 0, G_OPTION_ARG_DOUBLE, &opt_min_tw,
+    N_("Lowest liftoff thrust-to-weight for the verdict (0.5 to 5, default 1.2)"), "R" },
+  { "max-q-kpa", 0, 0, G_OPTION_ARG_DOUBLE, &opt_max_q_kpa,
+    N_("Highest dynamic pressure for the verdict (5 to 200 kPa, default 45)"), "KPA" },
+  { "max-g", 0, 0, G_OPTION_ARG_DOUBLE, &opt_max_g,
+    N_("Highest axial acceleration for the verdict (1 to 20 g, default 6)"), "G" },
   { NULL }
 };
 
@@ -179,15 +186,29 @@ sw_cli_size (int argc, char **argv)
   SwAnalysisOptions o;
   int code;
 
+  sw_analysis_options_init (&o);
   opt_json = FALSE;
   opt_no_ascent = FALSE;
+  opt_min_tw = o.min_thrust_to_weight;
+  opt_max_q_kpa = o.max_q_pa / 1000.0;
+  opt_max_g = o.max_axial_g;
   if (!sw_cli_parse ("size", size_entries, &argc, &argv, 1, &code))
     return code;
+  /* The window's settings keep the same ranges (data/ schema). */
+  if (!(opt_min_tw >= 0.5 && opt_min_tw <= 5.0) || !(opt_max_q_kpa >= 5.0 && opt_max_q_kpa <= 200.0)
+      || !(opt_max_g >= 1.0 && opt_max_g <= 20.0))
+    {
+      g_printerr (_("stagewright-cli size: the limits must be --min-thrust-to-weight 0.5 to 5, "
+                    "--max-q-kpa 5 to 200 and --max-g 1 to 20\n"));
+      return SW_EXIT_USAGE;
+    }
   /* The ascent decides the verdict, and for "loss_model": "simulate" the
    * closed loop sizes the vehicle, exactly as in the window. */
-  sw_analysis_options_init (&o);
   o.montecarlo = FALSE;
   o.ascent = !opt_no_ascent;
+  o.min_thrust_to_weight = opt_min_tw;
+  o.max_q_pa = 1000.0 * opt_max_q_kpa;
+  o.max_axial_g = opt_max_g;
   if ((a = sw_cli_analyse (argv[1], &o, &code)) == NULL)
     return code;
   if (opt_json)

@@ -6,6 +6,7 @@
 
 #include "sw-comparison.h"
 #include "sw-limits.h"
+#include "sw-ascent-montecarlo.h"
 #include "sw-montecarlo.h"
 #include "sw-reliability.h"
 #include "sw-sensitivity.h"
@@ -26,7 +27,7 @@ static double opt_step = SW_SENSITIVITY_DEFAULT_STEP * 100.0;
 
 static GOptionEntry sensitivity_entries[] = {
   { "step", 0, 0, G_OPTION_ARG_DOUBLE, &opt_step,
-    "Plus-or-minus step of the tornado, percent of each value (default 5)", "PCT" },
+    N_("Plus-or-minus step of the tornado, percent of each value (default 5)"), "PCT" },
   { "json", 0, 0, G_OPTION_ARG_NONE, &opt_json, N_("Print JSON for machines"), NULL },
   { NULL }
 };
@@ -65,7 +66,7 @@ sw_cli_sensitivity (int argc, char **argv)
   if (!sw_limit_contains (SW_LIMIT_SENSITIVITY_STEP, opt_step))
     {
       const SwLimit *l = sw_limit_get (SW_LIMIT_SENSITIVITY_STEP);
-      g_printerr ("stagewright-cli sensitivity: --step must be %g to %g percent, not %g\n",
+      g_printerr (_("stagewright-cli sensitivity: --step must be %g to %g percent, not %g\n"),
                   l->min, l->max, opt_step);
       return SW_EXIT_USAGE;
     }
@@ -141,14 +142,14 @@ sw_cli_sensitivity (int argc, char **argv)
       return SW_EXIT_OK;
     }
 
-  g_print ("Design: %s\n", d->name);
+  g_print (_("Design: %s\n"), d->name);
   if (!t.feasible)
     {
-      g_print ("The design is infeasible: no sensitivities.\n\n%s\n", sw_format_cautions ());
+      g_print (_("The design is infeasible: no sensitivities.\n\n%s\n"), sw_format_cautions ());
       return SW_EXIT_OK;
     }
-  g_print ("Liftoff mass %.1f kg; tornado step +-%g %%, largest effect first\n\n",
-           t.liftoff_mass_kg, t.step * 100.0);
+  g_print (_("Liftoff mass %s kg; tornado step +-%g %%, largest effect first\n\n"),
+           sw_cli_num (t.liftoff_mass_kg, 1), t.step * 100.0);
   g_print ("%-3s %-40s %12s %14s %-9s %10s %12s %12s\n", "#", "parameter", "value", "dm0/dx",
            "unit", "elasticity", "-step kg", "+step kg");
   for (guint r = 0; r < t.n_items; r++)
@@ -160,16 +161,16 @@ sw_cli_sensitivity (int argc, char **argv)
       g_autofree char *pl = it->plus_feasible ? sw_cli_format (it->plus_kg, 1)
                                               : g_strdup ("infeasible");
       g_autofree char *cell = sw_cli_cell (label, 40);
-      g_print ("%-3u %s %12.5g %14.5g %-9s %10.3f %12s %12s\n", r + 1, cell, it->value,
-               it->derivative, unit_of (it->param), it->elasticity, mi, pl);
+      g_print ("%-3u %s %12.5g %14.5g %-9s %10s %12s %12s\n", r + 1, cell, it->value,
+               it->derivative, unit_of (it->param), sw_cli_num (it->elasticity, 3), mi, pl);
     }
-  g_print ("\nPayload exchange ratios (propellant loads fixed): payload lost per kg of dry "
-           "mass added\n");
+  g_print (_("\nPayload exchange ratios (propellant loads fixed): payload lost per kg of dry "
+           "mass added\n"));
   for (guint i = 0; i < t.n_stages; i++)
     {
       g_autofree char *x = sw_cli_format (t.exchange_ratio[i], 4);
       g_autofree char *name = sw_cli_cell (d->stages[i].name, 28);
-      g_print ("  stage %u %s %10s kg/kg\n", i + 1, name, x);
+      g_print (_("  stage %u %s %10s kg/kg\n"), i + 1, name, x);
     }
   g_print ("\n%s\n", sw_format_cautions ());
   return SW_EXIT_OK;
@@ -180,14 +181,17 @@ sw_cli_sensitivity (int argc, char **argv)
 static int opt_samples;
 static gint64 opt_seed = -1;
 static int opt_threads;
+static gboolean opt_simulate;
 
 static GOptionEntry montecarlo_entries[] = {
   { "samples", 0, 0, G_OPTION_ARG_INT, &opt_samples,
-    "Number of samples (default: the design's, else 10000)", "N" },
+    N_("Number of samples (default: the design's, else 10000)"), "N" },
   { "seed", 0, 0, G_OPTION_ARG_INT64, &opt_seed,
-    "Seed of the random stream (default: the design's, else 1)", "S" },
-  { "threads", 0, 0, G_OPTION_ARG_INT, &opt_threads, "Threads (default: all cores)", "T" },
+    N_("Seed of the random stream (default: the design's, else 1)"), "S" },
+  { "threads", 0, 0, G_OPTION_ARG_INT, &opt_threads, N_("Threads (default: all cores)"), "T" },
   { "json", 0, 0, G_OPTION_ARG_NONE, &opt_json, N_("Print JSON for machines"), NULL },
+  { "simulate", 0, 0, G_OPTION_ARG_NONE, &opt_simulate,
+    N_("Fly the ascent of every sample (default 1000 samples)"), NULL },
   { NULL }
 };
 
@@ -236,9 +240,9 @@ print_summary (const char *title, const SwMcSummary *s, const char *unit)
   g_autofree char *p05 = sw_cli_format (s->p05, 1), *p50 = sw_cli_format (s->p50, 1);
   g_autofree char *p95 = sw_cli_format (s->p95, 1);
 
-  g_print ("%s (%u samples)\n", title, s->n);
-  g_print ("  mean %s %s   sd %s %s\n", mean, unit, sd, unit);
-  g_print ("  5th %s   50th %s   95th percentile %s %s\n", p05, p50, p95, unit);
+  g_print (_("%s (%u samples)\n"), title, s->n);
+  g_print (_("  mean %s %s   sd %s %s\n"), mean, unit, sd, unit);
+  g_print (_("  5th %s   50th %s   95th percentile %s %s\n"), p05, p50, p95, unit);
 }
 
 static const char *
@@ -249,6 +253,78 @@ spread_text (const SwSpread *s, const char *unit, char *buf, gsize size)
   g_snprintf (buf, size, "%s, %s %g %s", sw_spread_kind_to_string (s->kind),
               s->kind == SW_SPREAD_NORMAL ? "sigma" : "+-", s->width, unit);
   return buf;
+}
+
+/* montecarlo --simulate: the built vehicle flown per sample
+ * (sw-ascent-montecarlo.h). */
+static int
+montecarlo_simulated (const SwDesign *d, const char *file)
+{
+  g_autoptr (GError) error = NULL;
+  g_autoptr (SwAscentMonteCarlo) mc = NULL;
+  guint samples = opt_samples > 0 ? (guint) opt_samples : 1000;
+  guint32 seed = opt_seed >= 0 ? (guint32) opt_seed : sw_uncertainty_seed (&d->uncertainty);
+
+  mc = sw_ascent_montecarlo_run (d, samples, seed, (guint) opt_threads, NULL, NULL, NULL, &error);
+  if (mc == NULL)
+    return sw_cli_input_error (file, error);
+  if (opt_json)
+    {
+      g_autoptr (JsonBuilder) b = json_builder_new_immutable ();
+
+      json_builder_begin_object (b);
+      json_builder_set_member_name (b, "simulated");
+      json_builder_add_boolean_value (b, TRUE);
+      json_builder_set_member_name (b, "samples");
+      json_builder_add_int_value (b, mc->samples);
+      json_builder_set_member_name (b, "seed");
+      json_builder_add_int_value (b, seed);
+      json_builder_set_member_name (b, "threads");
+      json_builder_add_int_value (b, mc->threads);
+      json_builder_set_member_name (b, "flown");
+      json_builder_add_int_value (b, mc->flown);
+      sw_cli_add_number (b, "sized_losses_m_s", mc->sized_losses_m_s);
+      sw_cli_add_number (b, "nominal_margin_m_s", mc->nominal_margin_m_s);
+      sw_cli_add_number (b, "mean_losses_m_s", mc->mean_losses_m_s);
+      json_builder_set_member_name (b, "delta_v_margin_m_s");
+      json_builder_begin_object (b);
+      sw_cli_add_number (b, "mean", mc->mean_margin_m_s);
+      sw_cli_add_number (b, "sd", mc->sd_margin_m_s);
+      sw_cli_add_number (b, "p05", mc->p05_margin_m_s);
+      sw_cli_add_number (b, "p50", mc->p50_margin_m_s);
+      sw_cli_add_number (b, "p95", mc->p95_margin_m_s);
+      sw_cli_add_number (b, "min", mc->min_margin_m_s);
+      sw_cli_add_number (b, "max", mc->max_margin_m_s);
+      json_builder_end_object (b);
+      sw_cli_add_number (b, "probability_reached", mc->probability_reached);
+      sw_cli_add_number (b, "delta_v_per_kg_payload_m_s", mc->dv_per_kg_payload);
+      sw_cli_add_number (b, "payload_reserve_95_kg", mc->payload_reserve_95_kg);
+      sw_cli_finish_json (b);
+      return SW_EXIT_OK;
+    }
+  {
+    g_autofree char *mean = sw_cli_format (mc->mean_margin_m_s, 1);
+    g_autofree char *sd = sw_cli_format (mc->sd_margin_m_s, 1);
+    g_autofree char *p05 = sw_cli_format (mc->p05_margin_m_s, 1);
+    g_autofree char *p50 = sw_cli_format (mc->p50_margin_m_s, 1);
+    g_autofree char *p95 = sw_cli_format (mc->p95_margin_m_s, 1);
+    g_autofree char *res = sw_cli_format (mc->payload_reserve_95_kg, 1);
+    g_autofree char *sized = sw_cli_format (mc->sized_losses_m_s, 1);
+    g_autofree char *flown = sw_cli_format (mc->mean_losses_m_s, 1);
+
+    g_print (_("Design: %s\n"), d->name);
+    g_print (_("%u samples flown (seed %u, %u thread(s)); %u with an answer\n"), mc->samples,
+             seed, mc->threads, mc->flown);
+    g_print (_("Vehicle sized for %s m/s of losses; mean losses flown %s m/s\n"), sized, flown);
+    g_print (_("Delta-v margin (sized less ideal less losses flown)\n"));
+    g_print (_("  mean %s m/s   sd %s m/s\n"), mean, sd);
+    g_print (_("  5th %s   50th %s   95th percentile %s m/s\n"), p05, p50, p95);
+    g_print (_("  orbit reached in %s %% of the samples\n"),
+             sw_cli_num (100.0 * mc->probability_reached, 1));
+    g_print (_("  payload reserve for 95 %% confidence: %s kg\n"), res);
+    g_print ("\n%s\n", sw_format_cautions ());
+  }
+  return SW_EXIT_OK;
 }
 
 int
@@ -265,33 +341,36 @@ sw_cli_montecarlo (int argc, char **argv)
   opt_samples = 0;
   opt_seed = -1;
   opt_threads = 0;
+  opt_simulate = FALSE;
   if (!sw_cli_parse ("montecarlo", montecarlo_entries, &argc, &argv, 1, &code))
     return code;
   /* The same ranges as the design's "uncertainty" keys. */
   if (opt_samples != 0 && !sw_limit_contains (SW_LIMIT_MC_SAMPLES, opt_samples))
     {
       const SwLimit *l = sw_limit_get (SW_LIMIT_MC_SAMPLES);
-      g_printerr ("stagewright-cli montecarlo: --samples must be %.10g to %.10g, not %d\n",
+      g_printerr (_("stagewright-cli montecarlo: --samples must be %.10g to %.10g, not %d\n"),
                   l->min, l->max, opt_samples);
       return SW_EXIT_USAGE;
     }
   if (opt_seed != -1 && !sw_limit_contains (SW_LIMIT_MC_SEED, (double) opt_seed))
     {
       const SwLimit *l = sw_limit_get (SW_LIMIT_MC_SEED);
-      g_printerr ("stagewright-cli montecarlo: --seed must be %.10g to %.10g\n", l->min, l->max);
+      g_printerr (_("stagewright-cli montecarlo: --seed must be %.10g to %.10g\n"), l->min, l->max);
       return SW_EXIT_USAGE;
     }
   if (opt_threads < 0 || opt_threads > 64)
     {
-      g_printerr ("stagewright-cli montecarlo: --threads must be 1 to 64 (0 = all cores)\n");
+      g_printerr (_("stagewright-cli montecarlo: --threads must be 1 to 64 (0 = all cores)\n"));
       return SW_EXIT_USAGE;
     }
   if ((d = sw_cli_load (argv[1])) == NULL)
     return SW_EXIT_USAGE;
   if (!d->uncertainty.present || !sw_uncertainty_has_spread (&d->uncertainty))
-    g_printerr ("warning: %s: the design has no \"uncertainty\" spreads; every sample is the "
-                "nominal design\n",
+    g_printerr (_("warning: %s: the design has no \"uncertainty\" spreads; every sample is the "
+                "nominal design\n"),
                 argv[1]);
+  if (opt_simulate)
+    return montecarlo_simulated (d, argv[1]);
   sw_analysis_options_init (&o);
   o.ascent = FALSE;
   o.band = FALSE;
@@ -349,17 +428,17 @@ sw_cli_montecarlo (int argc, char **argv)
       return SW_EXIT_OK;
     }
 
-  g_print ("Design: %s\n", d->name);
-  g_print ("%u samples, seed %u, %u thread(s)\n", mc.samples, mc.seed, mc.threads);
-  g_print ("Spreads: Isp %s; structural coefficient %s; losses %s\n\n",
+  g_print (_("Design: %s\n"), d->name);
+  g_print (_("%u samples, seed %u, %u thread(s)\n"), mc.samples, mc.seed, mc.threads);
+  g_print (_("Spreads: Isp %s; structural coefficient %s; losses %s\n\n"),
            spread_text (&mc.spreads.isp, "%", b1, sizeof b1),
            spread_text (&mc.spreads.structural_coefficient, "%", b2, sizeof b2),
            spread_text (&mc.spreads.losses, "m/s", b3, sizeof b3));
   print_summary ("Liftoff mass needed for the payload", &mc.liftoff, "kg");
   {
     g_autofree char *nom = sw_cli_format (mc.nominal_liftoff_kg, 1);
-    g_print ("  nominal %s kg; infeasible samples %.2f %%\n\n", nom,
-             100.0 * mc.infeasible_fraction);
+    g_print (_("  nominal %s kg; infeasible samples %s %%\n\n"), nom,
+             sw_cli_num (100.0 * mc.infeasible_fraction, 2));
   }
   if (mc.payload.n > 0)
     {
@@ -368,14 +447,18 @@ sw_cli_montecarlo (int argc, char **argv)
                      "kg");
       g_autofree char *chance = sw_format_probability (a->montecarlo_success);
       g_autofree char *resm = sw_format_mass (mc.reserve_95_kg);
-      g_print (_("  required %.1f kg; reserve for 95 %% confidence: %s kg\n"),
-               mc.required_payload_kg, res);
-      g_print (_("Built as sized, with no payload reserve, the vehicle carries the whole payload "
-                 "in %s of cases; holding back %s of payload capacity raises that to 95 %%.\n"),
-               chance, resm);
+      g_print (_("  required %s kg; reserve for 95 %% confidence: %s kg\n"),
+               sw_cli_num (mc.required_payload_kg, 1), res);
+      if (a->montecarlo_success >= 0.95)
+        g_print (_("Built as sized, with no payload reserve, the vehicle carries the whole "
+                   "payload in %s of cases: no reserve is needed for 95 %%.\n"), chance);
+      else
+        g_print (_("Built as sized, with no payload reserve, the vehicle carries the whole "
+                   "payload in %s of cases; holding back %s of payload capacity raises that "
+                   "to 95 %%.\n"), chance, resm);
     }
   else
-    g_print ("The nominal design is infeasible: no fixed vehicle to test.\n");
+    g_print (_("The nominal design is infeasible: no fixed vehicle to test.\n"));
   g_print ("\n%s\n", sw_format_cautions ());
   return SW_EXIT_OK;
 }
@@ -409,7 +492,7 @@ sw_cli_reliability (int argc, char **argv)
   r = a->reliability;
   curve = a->reliability_curve;
   if (!r.given)
-    g_printerr ("warning: %s: no stage has reliability keys; every stage counts as perfect\n",
+    g_printerr (_("warning: %s: no stage has reliability keys; every stage counts as perfect\n"),
                 argv[1]);
 
   if (opt_json)
@@ -461,7 +544,7 @@ sw_cli_reliability (int argc, char **argv)
       return SW_EXIT_OK;
     }
 
-  g_print ("Design: %s\n\n", d->name);
+  g_print (_("Design: %s\n\n"), d->name);
   g_print ("%-3s %-24s %7s %9s %9s %9s %10s %10s %11s\n", "#", "stage", "engines", "r_engine",
            "tolerated", "ignition", "engines P", "stage P", "separation");
   for (guint i = 0; i < r.n_stages; i++)
@@ -472,15 +555,21 @@ sw_cli_reliability (int argc, char **argv)
 
       sw_reliability_inputs (&d->stages[i].reliability, &in);
       g_autofree char *name = sw_cli_cell (d->stages[i].name, 24);
-      g_print ("%-3u %s %7u %9.5f %9u %9.5f %10.6f %10.6f %11s\n", i + 1,
-               name, in.engine_count, in.engine_reliability, in.failures_tolerated,
-               in.ignition_reliability, r.engines[i], r.stage[i], sep);
+      g_print ("%-3u %s %7u %9s %9u %9s %10s %10s %11s\n", i + 1,
+               name, in.engine_count, sw_cli_num (in.engine_reliability, 5), in.failures_tolerated,
+               sw_cli_num (in.ignition_reliability, 5), sw_cli_num (r.engines[i], 6),
+               sw_cli_num (r.stage[i], 6), sep);
     }
-  g_print ("\nMission success probability: %.6f (%.3f %%)\n\n", r.mission, 100.0 * r.mission);
+  g_print (_("\nMission success probability: %s (%s %%)\n\n"), sw_cli_num (r.mission, 6),
+           sw_cli_num (100.0 * r.mission, 3));
   g_print (_("Against stage count (with more stages than the design's %u, the top stage is "
              "repeated):\n"), d->n_stages);
   for (guint n = 0; n < curve.n_points; n++)
-    g_print ("  %u stage%s  %.6f\n", n + 1, n == 0 ? " " : "s", curve.mission[n]);
+    {
+      g_autofree char *count = g_strdup_printf (g_dngettext (GETTEXT_PACKAGE, "%u stage",
+                                                             "%u stages", n + 1), n + 1);
+      g_print ("  %-10s %s\n", count, sw_cli_num (curve.mission[n], 6));
+    }
   g_print ("\n%s\n", sw_format_cautions ());
   return SW_EXIT_OK;
 }
@@ -492,16 +581,16 @@ static gboolean opt_no_montecarlo;
 static gboolean opt_no_ascent;
 
 static GOptionEntry export_entries[] = {
-  { "pdf", 0, 0, G_OPTION_ARG_FILENAME, &opt_pdf, "Write the briefing sheet as PDF", "OUT" },
-  { "svg", 0, 0, G_OPTION_ARG_FILENAME, &opt_svg, "Write the briefing sheet as SVG", "OUT" },
-  { "png", 0, 0, G_OPTION_ARG_FILENAME, &opt_png, "Write the briefing sheet as PNG (150 dpi)",
+  { "pdf", 0, 0, G_OPTION_ARG_FILENAME, &opt_pdf, N_("Write the briefing sheet as PDF"), "OUT" },
+  { "svg", 0, 0, G_OPTION_ARG_FILENAME, &opt_svg, N_("Write the briefing sheet as SVG"), "OUT" },
+  { "png", 0, 0, G_OPTION_ARG_FILENAME, &opt_png, N_("Write the briefing sheet as PNG (150 dpi)"),
     "OUT" },
   { "csv", 0, 0, G_OPTION_ARG_FILENAME, &opt_csv,
-    "Write the stage table and every curve as CSV files into the folder OUT", "OUT" },
-  { "paper", 0, 0, G_OPTION_ARG_STRING, &opt_paper, "Paper size: a4 (default) or letter",
+    N_("Write the stage table and every curve as CSV files into the folder OUT"), "OUT" },
+  { "paper", 0, 0, G_OPTION_ARG_STRING, &opt_paper, N_("Paper size: a4 (default) or letter"),
     "SIZE" },
   { "threads", 0, 0, G_OPTION_ARG_INT, &opt_threads,
-    "Threads for the Monte Carlo (default: all cores)", "T" },
+    N_("Threads for the Monte Carlo (default: all cores)"), "T" },
   { "no-montecarlo", 0, 0, G_OPTION_ARG_NONE, &opt_no_montecarlo,
     N_("Skip the Monte Carlo even when the design has spreads"), NULL },
   { "no-ascent", 0, 0, G_OPTION_ARG_NONE, &opt_no_ascent,
@@ -539,20 +628,20 @@ sw_cli_export (int argc, char **argv)
     goto out;
   if (opt_pdf == NULL && opt_svg == NULL && opt_png == NULL && opt_csv == NULL)
     {
-      g_printerr ("stagewright-cli export: give at least one of --pdf, --svg, --png or --csv "
-                  "(see --help)\n");
+      g_printerr (_("stagewright-cli export: give at least one of --pdf, --svg, --png or --csv "
+                  "(see --help)\n"));
       code = SW_EXIT_USAGE;
       goto out;
     }
   if (opt_paper != NULL && !sw_paper_from_string (opt_paper, &paper))
     {
-      g_printerr ("stagewright-cli export: --paper must be a4 or letter, not '%s'\n", opt_paper);
+      g_printerr (_("stagewright-cli export: --paper must be a4 or letter, not '%s'\n"), opt_paper);
       code = SW_EXIT_USAGE;
       goto out;
     }
   if (opt_threads < 0 || opt_threads > 64)
     {
-      g_printerr ("stagewright-cli export: --threads must be 1 to 64 (0 = all cores)\n");
+      g_printerr (_("stagewright-cli export: --threads must be 1 to 64 (0 = all cores)\n"));
       code = SW_EXIT_USAGE;
       goto out;
     }
@@ -569,23 +658,23 @@ sw_cli_export (int argc, char **argv)
         continue;
       if (!sw_sheet_export (b, sheets[i].format, paper, *sheets[i].path, &error))
         {
-          g_printerr ("error: %s\n", error->message);
+          g_printerr (_("error: %s\n"), error->message);
           code = SW_EXIT_FAILURE;
           goto out;
         }
-      g_print ("wrote %s\n", *sheets[i].path);
+      g_print (_("wrote %s\n"), *sheets[i].path);
     }
   if (opt_csv != NULL)
     {
       g_autoptr (GPtrArray) written = g_ptr_array_new_with_free_func (g_free);
       if (!sw_csv_export (b, opt_csv, written, &error))
         {
-          g_printerr ("error: %s\n", error->message);
+          g_printerr (_("error: %s\n"), error->message);
           code = SW_EXIT_FAILURE;
           goto out;
         }
       for (guint i = 0; i < written->len; i++)
-        g_print ("wrote %s\n", (const char *) written->pdata[i]);
+        g_print (_("wrote %s\n"), (const char *) written->pdata[i]);
     }
 
 out:

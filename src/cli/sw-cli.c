@@ -29,10 +29,15 @@ static const SwCliCommand commands[] = {
     sw_cli_reliability },
   { "export", "FILE", N_("The one-page briefing sheet (PDF, SVG, PNG) and CSV tables"),
     sw_cli_export },
-  { "ascent", "FILE", N_("Ascent simulation: orbit reached, losses, max-Q, staging; closes the loss loop"),
+  { "ascent", "FILE",
+    N_("Ascent simulation: orbit reached, losses, max-Q, staging; closes the loss loop"),
     sw_cli_ascent },
   { "atmosphere", "ALTITUDE_M", N_("1976 U.S. Standard Atmosphere at a geometric altitude"),
     sw_cli_atmosphere },
+  { "stages", "FILE", N_("The staging decision: mass, cost, reliability and reuse for 1 to 6 stages"),
+    sw_cli_stages },
+  { "carpet", "FILE", N_("A carpet grid of liftoff mass, payload or cost over two inputs"),
+    sw_cli_carpet },
   { "bench", "[FILE]", N_("Benchmark the sizing and a full live update"), sw_cli_bench },
 };
 
@@ -135,6 +140,33 @@ char *
 sw_cli_format (double value, int decimals)
 {
   return sw_format_number (value, decimals);
+}
+
+/* A few strings alive at once, so that one g_print() can take several. */
+#define RING 16
+static char *ring[RING];
+static guint ring_next;
+
+static const char *
+ring_keep (char *text)
+{
+  guint i = ring_next++ % RING;
+
+  g_free (ring[i]);
+  ring[i] = text;
+  return text;
+}
+
+const char *
+sw_cli_num (double value, int decimals)
+{
+  return ring_keep (sw_format_number (value, decimals));
+}
+
+const char *
+sw_cli_num_signed (double value, int decimals)
+{
+  return ring_keep (sw_format_signed (value, decimals));
 }
 
 SwAnalysis *

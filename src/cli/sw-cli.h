@@ -38,6 +38,9 @@ void      sw_cli_print_json (JsonNode *node);
 void      sw_cli_add_number (JsonBuilder *b, const char *key, double value);
 /* A number for tables: the core formatter's (sw_format_number). */
 char     *sw_cli_format (double value, int decimals);
+/* The same for a printf argument: the string lives until 16 more are made. */
+const char *sw_cli_num (double value, int decimals);
+const char *sw_cli_num_signed (double value, int decimals);  /* "+12.5", "−3.0" */
 /* Loads @filename and runs every phase of the analysis @options ask for;
  * prints the error and sets *exit_code when the design cannot be read or
  * sized. */
@@ -66,5 +69,9 @@ int sw_cli_reliability (int argc, char **argv);
 int sw_cli_export (int argc, char **argv);
 int sw_cli_ascent (int argc, char **argv);
 int sw_cli_atmosphere (int argc, char **argv);
+int sw_cli_stages (int argc, char **argv);
+int sw_cli_carpet (int argc, char **argv);
+/* Median time of a 50 x 50 carpet of optimal sizings, ms (sw-cli-staging.c). */
+double sw_cli_bench_carpet_ms (const SwDesign *design);
 
 G_END_DECLS

@@ -395,11 +395,10 @@ sw_sheet_draw_reliability_curve (cairo_t *cr, const SwReliabilityCurve *curve,
   }
   for (double v = a.lo; v <= a.hi + 1e-9; v += step)
     {
-      char buf[32];
+      g_autofree char *label = sw_format_percent (v, step < 0.01 ? 1 : 0);
       double yy = ax_y (&a, v);
       sw_sheet_rule (cr, a.x, a.x + a.w, yy, GRID, 0.5);
-      g_snprintf (buf, sizeof buf, step < 0.01 ? "%.1f %%" : "%.0f %%", 100.0 * v);
-      sw_sheet_text_centered_v (cr, buf, a.x - 37.0, yy, &tick);
+      sw_sheet_text_centered_v (cr, label, a.x - 37.0, yy, &tick);
     }
 
   sw_sheet_set_color (cr, SECOND, 1.0);
@@ -615,9 +614,12 @@ sw_sheet_draw_tornado (cairo_t *cr, const SwDesign *design, const SwSensitivityT
       }
     }
   {
-    g_autofree char *text = g_strdup_printf (_("liftoff mass change for each input at "
-                                               "\342\210\222%g %% (blue) and +%g %% (amber)"),
-                                             t->step * 100.0, t->step * 100.0);
+    int dec = fabs (t->step * 100.0 - round (t->step * 100.0)) > 1e-9 ? 1 : 0;
+    g_autofree char *minus = sw_format_percent (-t->step, dec);
+    g_autofree char *plus = sw_format_percent (t->step, dec);
+    /* Translators: two steps such as "−5 %" and "5 %" */
+    g_autofree char *text = g_strdup_printf (_("liftoff mass change for each input at %s "
+                                               "(blue) and +%s (amber)"), minus, plus);
     TextStyle st = sw_sheet_style_w (6.5, FALSE, MUTED, PANGO_ALIGN_CENTER, w);
     sw_sheet_text_at (cr, text, x, y + rows * row_h + 2.0, &st);
   }

@@ -42,6 +42,9 @@ typedef struct {
 
 void         sw_sheet_set_color (cairo_t *cr, guint32 hex, double alpha);
 PangoLayout *sw_sheet_layout (cairo_t *cr, const char *text, const TextStyle *st);
+/* Draws @layout with its top left at @x, @y in the source colour: every text
+ * of the sheet (and of the shared stack drawing) goes through here. */
+void         sw_sheet_show_layout (cairo_t *cr, PangoLayout *layout, double x, double y);
 /* Draws @text with its top at @y; returns its height. */
 double       sw_sheet_text_at (cairo_t *cr, const char *text, double x, double y,
                                const TextStyle *st);
@@ -58,13 +61,16 @@ double       sw_sheet_heading (cairo_t *cr, const char *title, double x, double 
 void         sw_sheet_note_in_box (cairo_t *cr, const char *text, double x, double y, double w,
                                    double h);
 
-/* For tests: every text drawn while recording is on is appended to @boxes
- * (SwSheetTextBox, user space, ink extents); NULL stops recording. */
+/* For tests: every text drawn on @cr is appended to @boxes (SwSheetTextBox,
+ * device space, ink extents); NULL stops recording. */
 typedef struct {
   double x, y, w, h;
   char  *text;             /* owned by the array's clear function */
 } SwSheetTextBox;
-void         sw_sheet_private_record_text (GArray *boxes);
+void         sw_sheet_private_record_text (cairo_t *cr, GArray *boxes);
+/* From now on the texts drawn on @cr are not drawn as glyphs but appended
+ * to @elements as SVG <text> elements (the SVG export adds them). */
+void         sw_sheet_svg_text_begin (cairo_t *cr, GString *elements);
 
 /* The area-proportional stack (sw-sheet.c). */
 void     sw_sheet_draw_stack (cairo_t *cr, const SwDesign *design, const SwSizing *sizing,

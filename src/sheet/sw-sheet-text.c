@@ -10,22 +10,28 @@
 
 #define FONT_FAMILY "DejaVu Sans, Sans"
 
-static GArray *recorded;   /* tests only: SwSheetTextBox */
+/* Per drawing context, so exports on several threads never meet. */
+static cairo_user_data_key_t record_key;
+static cairo_user_data_key_t svg_key;
 
 void
-sw_sheet_private_record_text (GArray *boxes)
+sw_sheet_private_record_text (cairo_t *cr, GArray *boxes)
 {
-  recorded = boxes;
+  cairo_set_user_data (cr, &record_key, boxes, NULL);
+}
+
+void
+sw_sheet_svg_text_begin (cairo_t *cr, GString *elements)
+{
+  cairo_set_user_data (cr, &svg_key, elements, NULL);
 }
 
 static void
-record (cairo_t *cr, PangoLayout *layout, const char *text, double x, double y)
+record (cairo_t *cr, GArray *boxes, PangoLayout *layout, double x, double y)
 {
   PangoRectangle ink;
   SwSheetTextBox box;
 
-  if (recorded == NULL)
-    return;
   pango_layout_get_extents (layout, &ink, NULL);
   if (ink.width <= 0 || ink.height <= 0)
     return;
@@ -36,8 +42,80 @@ record (cairo_t *cr, PangoLayout *layout, const char *text, double x, double y)
   cairo_user_to_device (cr, &box.x, &box.y);
   cairo_user_to_device_distance (cr, &box.w, &box.h);
   box.text = g_strdup (pango_layout_get_text (layout));
-  (void) text;
-  g_array_append_val (recorded, box);
+  g_array_append_val (boxes, box);
+}
+
+/* One SVG <text> per line of @layout, in the source colour of @cr: the
+ * SVG keeps its text as text, so it can be searched and edited. */
+static void
+svg_text (cairo_t *cr, GString *out, PangoLayout *layout, double x, double y)
+{
+  const PangoFontDescription *fd = pango_layout_get_font_description (layout);
+  const char *text = pango_layout_get_text (layout);
+  double size = (double) pango_font_description_get_size (fd) / PANGO_SCALE;
+  gboolean bold = pango_font_description_get_weight (fd) >= PANGO_WEIGHT_BOLD;
+  gboolean cut = pango_layout_is_ellipsized (layout);
+  double r = 0, g = 0, b = 0, a = 1;
+  char color[8], buf[5][G_ASCII_DTOSTR_BUF_SIZE];
+  PangoLayoutIter *it;
+
+  cairo_pattern_get_rgba (cairo_get_source (cr), &r, &g, &b, &a);
+  g_snprintf (color, sizeof color, "#%02x%02x%02x", (int) lround (r * 255),
+              (int) lround (g * 255), (int) lround (b * 255));
+  it = pango_layout_get_iter (layout);
+  do
+    {
+      PangoLayoutLine *line = pango_layout_iter_get_line_readonly (it);
+      PangoRectangle logical;
+      double lx, ly, lw;
+      g_autofree char *chunk = NULL, *escaped = NULL;
+
+      if (line->length <= 0)
+        continue;
+      pango_layout_iter_get_line_extents (it, NULL, &logical);
+      lx = x + (double) logical.x / PANGO_SCALE;
+      ly = y + (double) pango_layout_iter_get_baseline (it) / PANGO_SCALE;
+      lw = (double) logical.width / PANGO_SCALE;
+      cairo_user_to_device (cr, &lx, &ly);
+      chunk = g_strndup (text + line->start_index, line->length);
+      g_strchomp (chunk);
+      escaped = g_markup_escape_text (chunk, -1);
+      g_string_append_printf (out, "<text xml:space=\"preserve\" x=\"%s\" y=\"%s\" "
+                                   "font-family=\"DejaVu Sans, sans-serif\" font-size=\"%s\"%s "
+                                   "fill=\"%s\"",
+                              g_ascii_formatd (buf[0], sizeof buf[0], "%.2f", lx),
+                              g_ascii_formatd (buf[1], sizeof buf[1], "%.2f", ly),
+                              g_ascii_formatd (buf[2], sizeof buf[2], "%.2f", size),
+                              bold ? " font-weight=\"bold\"" : "", color);
+      if (a < 1.0)
+        g_string_append_printf (out, " fill-opacity=\"%s\"",
+                                g_ascii_formatd (buf[3], sizeof buf[3], "%.2f", a));
+      /* An ellipsized line keeps its whole text, fitted to the room it had. */
+      if (cut)
+        g_string_append_printf (out, " textLength=\"%s\" lengthAdjust=\"spacingAndGlyphs\"",
+                                g_ascii_formatd (buf[4], sizeof buf[4], "%.2f", lw));
+      g_string_append_printf (out, ">%s</text>\n", escaped);
+    }
+  while (pango_layout_iter_next_line (it));
+  pango_layout_iter_free (it);
+}
+
+/* Every text of the sheet goes through here. */
+void
+sw_sheet_show_layout (cairo_t *cr, PangoLayout *layout, double x, double y)
+{
+  GArray *boxes = cairo_get_user_data (cr, &record_key);
+  GString *svg = cairo_get_user_data (cr, &svg_key);
+
+  if (boxes != NULL)
+    record (cr, boxes, layout, x, y);
+  if (svg != NULL)
+    {
+      svg_text (cr, svg, layout, x, y);
+      return;
+    }
+  cairo_move_to (cr, x, y);
+  pango_cairo_show_layout (cr, layout);
 }
 
 void
@@ -89,9 +167,7 @@ sw_sheet_text_at (cairo_t *cr, const char *text, double x, double y, const TextS
 
   pango_layout_get_size (layout, &w, &h);
   sw_sheet_set_color (cr, st->color, 1.0);
-  cairo_move_to (cr, x, y);
-  pango_cairo_show_layout (cr, layout);
-  record (cr, layout, text, x, y);
+  sw_sheet_show_layout (cr, layout, x, y);
   g_object_unref (layout);
   return (double) h / PANGO_SCALE;
 }
@@ -105,9 +181,7 @@ sw_sheet_text_centered_v (cairo_t *cr, const char *text, double x, double cy, co
 
   pango_layout_get_size (layout, &w, &h);
   sw_sheet_set_color (cr, st->color, 1.0);
-  cairo_move_to (cr, x, cy - (double) h / PANGO_SCALE / 2.0);
-  pango_cairo_show_layout (cr, layout);
-  record (cr, layout, text, x, cy - (double) h / PANGO_SCALE / 2.0);
+  sw_sheet_show_layout (cr, layout, x, cy - (double) h / PANGO_SCALE / 2.0);
   g_object_unref (layout);
 }
 
@@ -160,8 +234,6 @@ sw_sheet_note_in_box (cairo_t *cr, const char *text, double x, double y, double 
   layout = sw_sheet_layout (cr, text, &st);
   pango_layout_get_size (layout, &lw, &lh);
   sw_sheet_set_color (cr, MUTED, 1.0);
-  cairo_move_to (cr, x + 8, y + (h - (double) lh / PANGO_SCALE) / 2.0);
-  pango_cairo_show_layout (cr, layout);
-  record (cr, layout, text, x + 8, y + (h - (double) lh / PANGO_SCALE) / 2.0);
+  sw_sheet_show_layout (cr, layout, x + 8, y + (h - (double) lh / PANGO_SCALE) / 2.0);
   g_object_unref (layout);
 }

@@ -226,13 +226,15 @@ draw_totals (const Page *p, const SwAnalysis *a, double x, double y, double w, d
 
   ADD_ROW (_("Payload"), sw_format_mass (s->payload_kg),
            c ? delta_text (&c->totals[SW_TOTAL_PAYLOAD], TRUE, FALSE) : NULL, INK);
-  ADD_ROW (_("Payload fraction"), sw_format_percent (s->payload_fraction, 2),
-           c && isfinite (c->totals[SW_TOTAL_PAYLOAD_FRACTION].delta)
+  {
+    g_autofree char *pp = c != NULL
+                            ? sw_format_signed (100.0 * c->totals[SW_TOTAL_PAYLOAD_FRACTION].delta,
+                                                2)
+                            : NULL;
+    ADD_ROW (_("Payload fraction"), sw_format_percent (s->payload_fraction, 2),
              /* Translators: a change in percentage points */
-             ? g_strdup_printf (_("%s points"),
-                                sw_format_signed (100.0 * c->totals[SW_TOTAL_PAYLOAD_FRACTION].delta, 2))
-             : c ? g_strdup (SW_NO_VALUE) : NULL,
-           INK);
+             c != NULL ? g_strdup_printf (_("%s points"), pp) : NULL, INK);
+  }
   ADD_ROW (_("Propellant"), sw_format_mass (sw_sizing_total (s, SW_TOTAL_PROPELLANT)),
            c ? delta_text (&c->totals[SW_TOTAL_PROPELLANT], TRUE, FALSE) : NULL, INK);
   ADD_ROW (_("Structure"), sw_format_mass (sw_sizing_total (s, SW_TOTAL_STRUCTURE)),
@@ -264,9 +266,8 @@ draw_totals (const Page *p, const SwAnalysis *a, double x, double y, double w, d
     {
       g_autofree char *l = sw_format_speed (a->ascent->losses_m_s);
       g_autofree char *gl = sw_format_speed (a->ascent->gravity_loss_m_s);
-      g_autofree char *dl = sw_format_speed (a->ascent->drag_loss_m_s);
-      /* Translators: total losses, then gravity and drag losses */
-      ADD_ROW (_("Simulated losses"), g_strdup_printf (_("%s (gravity %s, drag %s)"), l, gl, dl),
+      /* Translators: total losses, then the gravity loss */
+      ADD_ROW (_("Simulated losses"), g_strdup_printf (_("%s (gravity %s)"), l, gl),
                NULL, INK);
     }
   if (a->ascent != NULL && isfinite (a->ascent->max_q_pa))
@@ -286,10 +287,11 @@ draw_totals (const Page *p, const SwAnalysis *a, double x, double y, double w, d
              NULL, INK);
   if (a->has_montecarlo && isfinite (a->montecarlo_success))
     {
-      ADD_ROW (_("Chance the payload fits, no reserve"),
+      ADD_ROW (_("Payload fits, no reserve"),
                sw_format_probability (a->montecarlo_success), NULL,
                a->montecarlo_success >= 0.95 ? GOOD : INK);
-      ADD_ROW (_("Payload reserve for a 95 % chance"), sw_format_mass (a->montecarlo.reserve_95_kg),
+      /* xgettext:no-c-format */
+      ADD_ROW (_("Reserve for a 95 % chance"), sw_format_mass (a->montecarlo.reserve_95_kg),
                NULL, INK);
     }
 #undef ADD_ROW
@@ -313,7 +315,7 @@ draw_totals (const Page *p, const SwAnalysis *a, double x, double y, double w, d
         TextStyle hs = style_w (6.8, TRUE, MUTED, PANGO_ALIGN_LEFT, x + w - dx);
         text_at (cr, t, x, yy, &bs);
         yy += 13.0;
-        text_at (cr, _("change against the baseline"), dx, yy - 1.0, &hs);
+        text_at (cr, _("against the baseline"), dx, yy - 1.0, &hs);
         yy += 10.0;
       }
     for (guint i = 0; i < n && yy + row_h <= y + h; i++)
@@ -363,14 +365,14 @@ draw_stage_table (const Page *p, const SwAnalysis *a, double y)
   tonnes = use_tonnes (largest);
   heads[0] = "#";
   heads[1] = _("Stage");
-  heads[2] = _("Isp vac, s");
-  heads[3] = _("Struct. coeff.");
+  heads[2] = _("Isp, s");
+  heads[3] = _("\316\265");
   heads[4] = _("\316\224v, m/s");
   heads[5] = _("Share");
   heads[6] = _("Mass ratio");
-  heads[7] = tonnes ? _("Propellant, t") : _("Propellant, kg");
-  heads[8] = tonnes ? _("Structure, t") : _("Structure, kg");
-  heads[9] = tonnes ? _("At ignition, t") : _("At ignition, kg");
+  heads[7] = tonnes ? _("Prop., t") : _("Prop., kg");
+  heads[8] = tonnes ? _("Struct., t") : _("Struct., kg");
+  heads[9] = tonnes ? _("Ignition, t") : _("Ignition, kg");
   heads[10] = _("Success");
 
   if (!rel)
@@ -387,7 +389,8 @@ draw_stage_table (const Page *p, const SwAnalysis *a, double y)
           continue;
         }
       x = p->x + right[c] * p->w;
-      st.width = c == 0 ? right[0] * p->w : (right[c] - (c == 2 ? 0.26 : right[c - 1])) * p->w - 3.0;
+      st.width = c == 0 ? right[0] * p->w
+                        : (right[c] - (c == 2 ? 0.26 : right[c - 1])) * p->w - 3.0;
       st.align = PANGO_ALIGN_RIGHT;
       st.ellipsize = TRUE;
       text_at (cr, heads[c], x - st.width, yy, &st);
@@ -417,7 +420,7 @@ draw_stage_table (const Page *p, const SwAnalysis *a, double y)
       cells[7] = mass_in (r->propellant_mass_kg, tonnes);
       cells[8] = mass_in (r->structural_mass_kg, tonnes);
       cells[9] = mass_in (r->initial_mass_kg, tonnes);
-      cells[10] = rel ? sw_format_probability (a->reliability.stage[i]) : NULL;
+      cells[10] = rel ? sw_format_percent (a->reliability.stage[i], 2) : NULL;
       for (guint c = 0; c < ncol; c++)
         {
           TextStyle st = cell;
@@ -656,10 +659,42 @@ check_surface (cairo_surface_t *surface, const char *filename, GError **error)
   return FALSE;
 }
 
+/* cairo's SVG surface draws text as glyph outlines: the sheet's texts,
+ * collected as <text> elements while drawing, go in before the end. */
+static gboolean
+add_svg_texts (const char *tmp, const char *filename, const GString *texts, GError **error)
+{
+  g_autofree char *data = NULL;
+  g_autoptr (GError) local = NULL;
+  GString *out;
+  char *end;
+  gboolean ok;
+
+  if (!g_file_get_contents (tmp, &data, NULL, &local)
+      || (end = g_strrstr (data, "</svg>")) == NULL)
+    {
+      g_set_error (error, SW_ERROR, SW_ERROR_IO, _("Could not write %s: %s"), filename,
+                   local != NULL ? local->message : _("the SVG is incomplete"));
+      return FALSE;
+    }
+  out = g_string_new_len (data, end - data);
+  g_string_append (out, "<g id=\"text\">\n");
+  g_string_append_len (out, texts->str, texts->len);
+  g_string_append (out, "</g>\n");
+  g_string_append (out, end);
+  ok = g_file_set_contents (tmp, out->str, (gssize) out->len, &local);
+  g_string_free (out, TRUE);
+  if (!ok)
+    g_set_error (error, SW_ERROR, SW_ERROR_IO, _("Could not write %s: %s"), filename,
+                 local->message);
+  return ok;
+}
+
 gboolean
 sw_sheet_export (const SwAnalysis *b, SwSheetFormat format, SwPaper paper, const char *filename,
                  GError **error)
 {
+  g_autoptr (GString) svg_texts = NULL;
   g_autofree char *tmp = NULL;
   cairo_surface_t *surface;
   cairo_t *cr;
@@ -668,6 +703,7 @@ sw_sheet_export (const SwAnalysis *b, SwSheetFormat format, SwPaper paper, const
 
   g_return_val_if_fail (b != NULL && filename != NULL, FALSE);
 
+  svg_texts = g_string_new (NULL);
   sw_sheet_paper_size (paper, &w, &h);
   /* Written beside the target and renamed: never a half-written sheet. */
   tmp = g_strdup_printf ("%s.part", filename);
@@ -707,6 +743,8 @@ sw_sheet_export (const SwAnalysis *b, SwSheetFormat format, SwPaper paper, const
       return FALSE;
     }
 
+  if (format == SW_SHEET_SVG)
+    sw_sheet_svg_text_begin (cr, svg_texts);
   sw_sheet_draw_page (cr, b, w, h);
   cairo_show_page (cr);
   ok = cairo_status (cr) == CAIRO_STATUS_SUCCESS;
@@ -726,6 +764,8 @@ sw_sheet_export (const SwAnalysis *b, SwSheetFormat format, SwPaper paper, const
   cairo_surface_finish (surface);
   ok = ok && check_surface (surface, filename, error);
   cairo_surface_destroy (surface);
+  if (ok && format == SW_SHEET_SVG)
+    ok = add_svg_texts (tmp, filename, svg_texts, error);
   if (!ok)
     {
       g_unlink (tmp);

@@ -6,6 +6,7 @@
 #include "sw-stack-drawing.h"
 
 #include "sw-format.h"
+#include "sw-sheet-private.h"
 
 #include <glib/gi18n-lib.h>
 #include <math.h>
@@ -328,8 +329,8 @@ panel_show (cairo_t *cr, const char *text, double x, double cy, gboolean centred
 
   pango_layout_get_size (layout, NULL, &h);
   source (cr, color);
-  cairo_move_to (cr, x, centred ? cy - (double) h / PANGO_SCALE / 2.0 : cy);
-  pango_cairo_show_layout (cr, layout);
+  /* Through the sheet's text path: an SVG keeps it as text. */
+  sw_sheet_show_layout (cr, layout, x, centred ? cy - (double) h / PANGO_SCALE / 2.0 : cy);
   g_object_unref (layout);
 }
 

@@ -211,7 +211,8 @@ limits_broken (const SwAnalysis *r)
 
   if (isfinite (tw) && tw < o->min_thrust_to_weight)
     {
-      g_autofree char *v = sw_format_ratio (tw, 2), *l = sw_format_ratio (o->min_thrust_to_weight, 2);
+      g_autofree char *v = sw_format_ratio (tw, 2);
+      g_autofree char *l = sw_format_ratio (o->min_thrust_to_weight, 2);
       g_string_append_printf (s, _("Thrust-to-weight at liftoff is %s, below your limit of %s."),
                               v, l);
     }
@@ -285,21 +286,12 @@ update_verdict (SwAnalysis *r)
       return;
     }
   broken = limits_broken (r);
-  if (broken != NULL)
-    {
-      if (a != NULL)
-        /* Translators: %s lists the limits broken */
-        text = g_strdup_printf (_("The simulated ascent reaches the orbit, but: %s"), broken);
-      verdict_set (r, SW_VERDICT_OVER_LIMIT, text != NULL ? text : broken);
-      return;
-    }
   if (a == NULL)
     {
       g_autofree char *why = NULL;
       if (r->ascent_skipped)
         why = g_strdup (_("the ascent was not simulated on request"));
-      else if (r->ascent_message[0] != '\0' && r->has_stage_figures
-               && r->design->mission.kind == SW_MISSION_ORBIT)
+      else if (r->phase == 2)
         /* The inputs were there, but the simulation failed. */
         why = g_strdup_printf (_("the ascent could not be simulated (%s)"), r->ascent_message);
       else
@@ -307,7 +299,22 @@ update_verdict (SwAnalysis *r)
       /* Translators: %s says why there is no simulation */
       text = g_strdup_printf (_("The stages give the required delta-v by the rocket equation, "
                                 "but %s. Whether it reaches orbit is not checked."), why);
+      /* Without a flight there is no "reaches the orbit, but": a limit the
+       * figures already break is said here. */
+      if (broken != NULL)
+        {
+          char *more = g_strconcat (text, " ", broken, NULL);
+          g_free (text);
+          text = more;
+        }
       verdict_set (r, SW_VERDICT_PAPER_ONLY, text);
+      return;
+    }
+  if (broken != NULL)
+    {
+      /* Translators: %s lists the limits broken */
+      text = g_strdup_printf (_("The simulated ascent reaches the orbit, but: %s"), broken);
+      verdict_set (r, SW_VERDICT_OVER_LIMIT, text);
       return;
     }
   {

@@ -16,6 +16,7 @@ typedef struct {
   double   kick_rad;
   gboolean have_psi;
   double   psi[2];         /* linear-tangent start and end pitch, rad */
+  gboolean hold_kick;      /* fly kick_rad as given (no kick search) */
 } SwAscentHints;
 
 /* One ascent of the vehicle given by @sizing (the design supplies the
@@ -38,9 +39,11 @@ void sw_ascent_result_add_note (SwAscentResult *result, const char *format, ...)
 
 #define SW_RE SW_WGS84_A           /* the sphere of the model, as in the budget */
 #define SW_DEG (G_PI / 180.0)
-#define SW_NY 10                   /* the state: */
+#define SW_NY 12                   /* the state: */
 enum { SW_Y_R, SW_Y_S, SW_Y_VR, SW_Y_VT, SW_Y_M,       /* r, downrange, vr, vt, m */
-       SW_Y_LG, SW_Y_LD, SW_Y_LS, SW_Y_LP, SW_Y_LE };  /* loss integrals, engines' delta-v */
+       SW_Y_LG, SW_Y_LD, SW_Y_LS, SW_Y_LP, SW_Y_LE,    /* loss integrals, engines' delta-v */
+       SW_Y_LGA,                                       /* gravity loss, air-relative angle */
+       SW_Y_LR };                                      /* the turning atmosphere's term */
 
 /* How the thrust points. */
 typedef enum {
@@ -107,6 +110,8 @@ typedef struct {
   SwFairingRule   fairing_rule;
   double          fairing_value;   /* m or Pa */
   double          pitch_over_speed;
+  double          q_alpha_max;     /* Pa rad; 0: no limit */
+  double          pitch_rate;      /* rad/s: the attitude's rate from staging to the guidance */
   double          omega_p;         /* in-plane rotation rate of the air */
   double          v0;              /* initial in-plane inertial speed */
   double          cross_cost;      /* delta-v to cancel the site's cross-plane velocity */
@@ -146,6 +151,8 @@ typedef struct {
   double        max_acc;
   double        max_acc_t;
   double        max_alt;           /* highest altitude so far, m */
+  double        max_q_alpha;       /* Pa rad */
+  double        psi_stage;         /* the attitude when guidance took over, rad */
   gboolean      ignited[SW_MAX_STAGES];
   gboolean      burnt[SW_MAX_STAGES];
   SwAscentPoint ign[SW_MAX_STAGES];

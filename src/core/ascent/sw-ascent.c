@@ -178,9 +178,23 @@ derive (const SwFlightSim *s, double t, const double *y, Derived *d)
          * at the start of guidance to tan(psi_end) at the nominal end of the
          * last burn (Bryson and Ho's law for a flat Earth in vacuum). */
         double tp = s->tan_s + (s->tan_e - s->tan_s) * (t - s->f.t_guide) / s->f.T_guide;
-        double k = 1.0 / sqrt (1.0 + tp * tp);
-        d->sin_psi = tp * k;
-        d->cos_psi = k;
+        double psi = atan (tp), off = s->f.psi_stage - atan (s->tan_s);
+        double left = fabs (off) - m->pitch_rate * (t - s->f.t_guide);
+
+        /* No jump at staging: the attitude turns from the one the stage
+         * below flew to the guidance law's at a limited rate. */
+        if (left > 0.0)
+          psi += copysign (left, off);
+        /* q alpha limit: the thrust stays within q_alpha_max / q of the air
+         * velocity. */
+        if (m->q_alpha_max > 0.0 && d->q > 0.0 && d->v_rel > 1e-6)
+          {
+            double gam = atan2 (d->vr, d->vt_rel), amax = m->q_alpha_max / d->q;
+            if (amax < G_PI)
+              psi = CLAMP (psi, gam - amax, gam + amax);
+          }
+        d->sin_psi = sin (psi);
+        d->cos_psi = cos (psi);
       }
       break;
     }
@@ -220,7 +234,20 @@ rhs (double t, const double y[], double dydt[], void *params)
   dydt[SW_Y_VR] += d.thrust * d.sin_psi / m;
   dydt[SW_Y_VT] += d.thrust * d.cos_psi / m;
   dydt[SW_Y_M] = -d.mdot;
-  dydt[SW_Y_LG] = d.g * sin_g;
+  /* Gravity loss with the inertial flight-path angle (the conventional
+   * figure), and with the angle relative to the air. */
+  dydt[SW_Y_LG] = d.v > 1e-9 ? d.g * d.vr / d.v : d.g;
+  dydt[SW_Y_LGA] = d.g * sin_g;
+  /* Thrust and drag are measured against the air, gravity against the
+   * inertial velocity: what the air's turning adds (see sw-ascent.h). */
+  if (d.v > 1e-9 && d.v_rel > 1e-9)
+    {
+      double cos_ai = (d.sin_psi * d.vr + d.cos_psi * d.vt) / d.v;
+      double dot = (d.vr * d.vr + d.vt_rel * d.vt) / (d.v_rel * d.v);
+      dydt[SW_Y_LR] = d.thrust / m * (cos_a - cos_ai) - d.drag / m * (1.0 - dot);
+    }
+  else
+    dydt[SW_Y_LR] = 0.0;
   dydt[SW_Y_LD] = d.drag / m;
   dydt[SW_Y_LS] = d.thrust / m * (1.0 - cos_a);
   dydt[SW_Y_LP] = (d.thrust_vac - d.thrust) / m;
@@ -463,6 +490,7 @@ record_sample (SwFlightSim *s)
   smp.speed_m_s = d.v;
   smp.air_speed_m_s = d.v_rel;
   smp.flight_path_deg = flight_path_deg (&d);
+  smp.pitch_deg = atan2 (d.sin_psi, d.cos_psi) / SW_DEG;
   smp.dynamic_pressure_pa = d.q;
   smp.mach = d.mach;
   smp.axial_accel_g = axial_accel_g (&d, s->f.y[SW_Y_M]);
@@ -482,6 +510,11 @@ track_derived (SwFlightSim *s, const Derived *dd)
   if (current_segment (s)->is_virtual)
     return;
   s->f.max_alt = MAX (s->f.max_alt, d.h);
+  if (d.thrust > 0.0 && d.v_rel > 1e-6)
+    {
+      double c = (d.sin_psi * d.vr + d.cos_psi * d.vt_rel) / d.v_rel;
+      s->f.max_q_alpha = MAX (s->f.max_q_alpha, d.q * acos (CLAMP (c, -1.0, 1.0)));
+    }
   if (d.q > s->f.max_q)
     {
       s->f.max_q = d.q;
@@ -607,6 +640,16 @@ start_segment (SwFlightSim *s)
     }
 }
 
+/* The thrust's pitch above the local horizontal now, rad. */
+static double
+attitude (const SwFlightSim *s)
+{
+  Derived d;
+
+  derive (s, s->f.t, s->f.y, &d);
+  return atan2 (d.sin_psi, d.cos_psi);
+}
+
 static double
 remaining_nominal_time (const SwFlightSim *s)
 {
@@ -646,6 +689,7 @@ end_segment (SwFlightSim *s)
       s->f.y[SW_Y_M] = m->st[sg->stage].m_after + (s->f.fairing_on ? m->fairing_mass : 0.0);
       if (sg->stage == m->first && m->opt.steering == SW_STEERING_GUIDED)
         {
+          s->f.psi_stage = attitude (s);
           s->f.steer = SW_STEER_GUIDED;
           s->f.t_guide = s->f.t;
           guide = TRUE;
@@ -705,6 +749,7 @@ sw_flight_run (SwFlightSim *s)
           s->f.y[SW_Y_M] -= m->fairing_mass;
           break;
         case EV_GUIDE_START:
+          s->f.psi_stage = attitude (s);
           s->f.steer = SW_STEER_GUIDED;
           s->f.t_guide = s->f.t;
           s->f.T_guide = remaining_nominal_time (s);
@@ -981,6 +1026,9 @@ sw_flight_model_build (SwFlightModel *m, const SwDesign *d, const SwSizing *sz,
   res->fairing_mass_kg = m->fairing_mass;
   m->pitch_over_speed = d->ascent.has_pitch_over_speed ? d->ascent.pitch_over_speed_m_s
                                                        : SW_PITCH_OVER_SPEED_DEFAULT;
+  m->q_alpha_max = d->ascent.has_max_q_alpha ? d->ascent.max_q_alpha_kpa_deg * 1000.0 * SW_DEG
+                                             : 0.0;
+  m->pitch_rate = SW_ASCENT_PITCH_RATE_DEG_S * SW_DEG;
 
   res->target_altitude_km = NAN;
   res->circular_velocity_m_s = res->launch_azimuth_deg = NAN;
@@ -1072,6 +1120,7 @@ sw_ascent_result_new (void)
   r->target_altitude_km = r->circular_velocity_m_s = r->launch_azimuth_deg = NAN;
   r->ideal_delta_v_m_s = r->rotation_gain_m_s = NAN;
   r->losses_m_s = r->gravity_loss_m_s = r->drag_loss_m_s = r->steering_loss_m_s = NAN;
+  r->gravity_loss_air_m_s = r->rotation_term_m_s = NAN;
   r->pressure_loss_m_s = r->fairing_loss_m_s = r->other_loss_m_s = NAN;
   r->raising_loss_m_s = NAN;
   r->insertion_altitude_km = r->transfer_perigee_km = r->transfer_apogee_km = NAN;
@@ -1081,6 +1130,7 @@ sw_ascent_result_new (void)
   r->propellant_beyond_load_kg = NAN;
   r->max_q_pa = r->max_q_time_s = r->max_q_altitude_m = NAN;
   r->max_axial_g = r->max_axial_g_time_s = r->liftoff_thrust_to_weight = NAN;
+  r->max_q_alpha_kpa_deg = NAN;
   r->pitch_over_time_s = r->pitch_kick_deg = r->guidance_start_s = NAN;
   r->steering_start_deg = r->steering_end_deg = NAN;
   r->loop_sized_losses_m_s = NAN;
@@ -1188,6 +1238,11 @@ sw_flight_fill_result (const SwFlightSim *s, SwOutcome out, SwAscentResult *res)
   res->final_mass_kg = f->y[SW_Y_M];
 
   res->gravity_loss_m_s = f->y[SW_Y_LG];
+  res->gravity_loss_air_m_s = f->y[SW_Y_LGA];
+  /* On a retrograde azimuth the site's in-plane speed points backwards: the
+   * budget's ideal counts its reversal, which the flown integrals count
+   * again: v0 - |v0| = -2 |v0| belongs to the same term. */
+  res->rotation_term_m_s = f->y[SW_Y_LR] + (m->v0 - fabs (m->v0));
   res->drag_loss_m_s = f->y[SW_Y_LD];
   res->steering_loss_m_s = f->y[SW_Y_LS];
   res->pressure_loss_m_s = f->y[SW_Y_LP];
@@ -1201,6 +1256,7 @@ sw_flight_fill_result (const SwFlightSim *s, SwOutcome out, SwAscentResult *res)
       res->max_q_altitude_m = f->max_q_h;
     }
   res->max_axial_g = f->max_acc;
+  res->max_q_alpha_kpa_deg = f->max_q_alpha / SW_DEG / 1000.0;
   res->max_axial_g_time_s = f->max_acc_t;
   res->fairing_dropped = f->fairing_dropped;
   res->fairing = f->fairing_pt;

@@ -19,7 +19,13 @@
  * reaches the orbit exactly when losses <= L; the difference is its margin or
  * the delta-v it misses.  The breakdown adds up to the losses:
  *     losses = gravity + drag + steering + pressure + fairing + raising + other
- *   gravity   integral of g sin(gamma_air) dt   (flight-path angle relative to the air)
+ * following the usual definitions of the loss integrals (gravity loss the
+ * integral of g sin(gamma) with gamma the flight-path angle, drag loss the
+ * integral of D/m: Curtis, Orbital Mechanics for Engineering Students,
+ * ch. 11; from memory), with the budget's ideal delta-v the speed change
+ * |v_orbit - v_site|, so that ideal + losses is what the engines must give:
+ *   gravity   integral of g sin(gamma) dt, gamma the INERTIAL flight-path angle
+ *             (gravity_loss_air_m_s: the same with gamma relative to the air)
  *   drag      integral of D / m dt
  *   steering  integral of (T / m)(1 - cos alpha) dt, alpha between thrust and air velocity
  *   pressure  integral of (T_vac - T) / m dt, the back-pressure thrust deficit
@@ -27,8 +33,18 @@
  *   raising   with a transfer (ascent.insertion_altitude_km): the cutoff speed above
  *             the target's circular speed plus the circularisation burn at apogee
  *             (impulsive); 0 for direct insertion
- *   other     the rest: the rotating frame's extra speed at altitude (the
- *             budget counts the rotation at the site's radius) and the cutoff residual.
+ *   other     rotation_term_m_s, the turning atmosphere: thrust and drag are
+ *             measured against the air but gravity against the inertial velocity,
+ *             integral of (T/m)(cos alpha_air - cos alpha_inertial)
+ *             - (D/m)(1 - cos(angle between air and inertial velocity)) dt; early in
+ *             the flight the inertial velocity is the site's, horizontal, while the
+ *             vehicle climbs vertically through the air, so this term is large
+ *             (several hundred m/s) and the inertial gravity loss correspondingly
+ *             smaller than the air-relative one.  On a retrograde azimuth it also
+ *             holds -2 |v_site,in-plane|: the ideal delta-v counts the reversal of
+ *             the site's backward speed, which the flown integrals count again.  Newton's law along the inertial
+ *             velocity makes the sum exact; the rest of other is the cutoff's and
+ *             the integrator's residual (below 0.05 m/s).
  * The rotation gain is the budget's: v_circular - ideal. */
 #pragma once
 
@@ -39,6 +55,10 @@
 #include "sw-types.h"
 
 G_BEGIN_DECLS
+
+/* When guidance takes over at staging, the attitude turns from the stage
+ * below's to the guidance law's at this rate, not at once. */
+#define SW_ASCENT_PITCH_RATE_DEG_S 2.0
 
 typedef enum {
   SW_GRAVITY_INVERSE_SQUARE,   /* mu / r^2 (default) */
@@ -82,6 +102,7 @@ typedef struct {
                                 * the pad) */
   double dynamic_pressure_pa;
   double mach;
+  double pitch_deg;            /* the thrust's pitch above the local horizontal */
   double axial_accel_g;        /* sensed along the vehicle's axis, thrust less drag, in g0;
                                 * in coasts the drag's deceleration (negative) */
   double mass_kg;
@@ -152,13 +173,15 @@ struct _SwAscentResult {
 
   /* delta-v accounting, m/s (see the header comment) */
   double losses_m_s;
-  double gravity_loss_m_s;
+  double gravity_loss_m_s;           /* integral of g sin(gamma), gamma inertial */
+  double gravity_loss_air_m_s;       /* the same with gamma relative to the air (secondary) */
   double drag_loss_m_s;
   double steering_loss_m_s;
   double pressure_loss_m_s;
   double fairing_loss_m_s;
   double raising_loss_m_s;
-  double other_loss_m_s;
+  double other_loss_m_s;             /* rotation_term_m_s plus the cutoff residual */
+  double rotation_term_m_s;          /* part of other: the turning atmosphere (sw-ascent.h) */
   double engines_delta_v_m_s;        /* integral of T_vac / m: what the engines gave */
   double delta_v_needed_m_s;         /* ideal + losses */
   double sized_delta_v_m_s;          /* what the sizing gave the vehicle */
@@ -173,6 +196,7 @@ struct _SwAscentResult {
   double max_q_altitude_m;
   double max_axial_g;
   double max_axial_g_time_s;
+  double max_q_alpha_kpa_deg;        /* dynamic pressure times angle of attack, powered flight */
   double liftoff_thrust_to_weight;
 
   /* fairing */

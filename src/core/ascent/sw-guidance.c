@@ -715,6 +715,12 @@ sw_ascent_solve_sized (const SwDesign *design, const SwSizing *sizing,
       kick = design->ascent.pitch_kick_deg * SW_DEG;
       ok = solve_for_kick (sv, kick);
     }
+  else if (hints != NULL && hints->have_kick && hints->hold_kick)
+    {
+      kick = hints->kick_rad;
+      ok = solve_for_kick (sv, kick);
+      res->pitch_kick_solved = TRUE;
+    }
   else if (!sv->cancelled)
     {
       gboolean warm = hints != NULL && hints->have_kick;

@@ -29,7 +29,8 @@ static const char *const stage_keys[] = {
 };
 /* The optional models add their own keys to the design and to each stage. */
 static const char *const *const root_key_lists[] = {
-  root_keys, sw_propulsion_design_keys, sw_uncertainty_design_keys, NULL
+  root_keys, sw_propulsion_design_keys, sw_uncertainty_design_keys, sw_economics_design_keys,
+  NULL
 };
 static const char *const *const stage_key_lists[] = {
   stage_keys, sw_propulsion_stage_keys, sw_reliability_stage_keys, NULL
@@ -44,6 +45,7 @@ sw_design_new (void)
   /* The state the loader gives a file without the optional object, so that
    * a new design equals itself after save and load. */
   sw_uncertainty_init (&d->uncertainty);
+  sw_economics_init (&d->economics);
   return d;
 }
 
@@ -452,7 +454,8 @@ load_design_object (JsonObject *root, const LoadContext *ctx, const char *prefix
   if (!sw_propulsion_load_design (root, ctx->file, &d->ascent, ctx->warnings, error))
     return NULL;
   if (!sw_uncertainty_load_design (root, ctx->file, prefix, &d->uncertainty, ctx->warnings,
-                                   error))
+                                   error)
+      || !sw_economics_load_design (root, ctx->file, prefix, &d->economics, ctx->warnings, error))
     return NULL;
 
   baseline = sw_optional_read_object_full (root, "baseline", ctx->file, prefix, FALSE, &ok, error);
@@ -729,6 +732,7 @@ validate_design (const SwDesign *d, const LoadContext *ctx, const char *prefix, 
     }
 
   if (!sw_uncertainty_validate (&d->uncertainty, ctx->file, prefix, error)
+      || !sw_economics_validate (&d->economics, d->n_stages, ctx->file, prefix, error)
       || !sw_propulsion_validate_design (&d->ascent, ctx->file, error))
     return FALSE;
 
@@ -831,6 +835,7 @@ build_design (JsonBuilder *b, const SwDesign *d, gboolean is_baseline)
 
   sw_propulsion_save_design (b, &d->ascent);
   sw_uncertainty_save_design (b, &d->uncertainty);
+  sw_economics_save_design (b, &d->economics);
 
   if (d->baseline != NULL && !is_baseline)
     {

@@ -85,7 +85,7 @@ sw_optional_check (SwLimitId limit, double value, const char *file, const char *
                            _("%s: the value is not a finite number"), path);
   else
     sw_optional_set_error (error, SW_ERROR_RANGE, file,
-                           _("%s: %g is outside the accepted range %s%.10g to %.10g%s%s (%s)"),
+                           _("%s: %.10g is outside the accepted range %s%.10g to %.10g%s%s (%s)"),
                            path, value, l->min_exclusive ? _("above ") : "", l->min, l->max,
                            l->unit[0] ? " " : "", l->unit, l->why);
   return FALSE;

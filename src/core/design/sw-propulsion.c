@@ -19,7 +19,8 @@ const char *const sw_propulsion_stage_keys[] = {
 const char *const sw_propulsion_design_keys[] = { "ascent", NULL };
 const char *const sw_propulsion_ascent_keys[] = {
   "fairing_mass_kg", "fairing_jettison_altitude_km", "fairing_jettison_dynamic_pressure_pa",
-  "pitch_over_speed_m_s", "pitch_kick_deg", "insertion_altitude_km", NULL
+  "pitch_over_speed_m_s", "pitch_kick_deg", "insertion_altitude_km", "max_q_alpha_kpa_deg",
+  NULL
 };
 
 /* Generic slender-vehicle drag coefficient against Mach number: ours, with
@@ -254,7 +255,10 @@ sw_propulsion_load_design (JsonObject *root, const char *file, SwDesignAscent *a
       || !sw_optional_read_number (obj, "insertion_altitude_km", file, "ascent",
                                    SW_LIMIT_INSERTION_ALTITUDE, FALSE,
                                    &ascent->insertion_altitude_km,
-                                   &ascent->has_insertion_altitude, error))
+                                   &ascent->has_insertion_altitude, error)
+      || !sw_optional_read_number (obj, "max_q_alpha_kpa_deg", file, "ascent",
+                                   SW_LIMIT_MAX_Q_ALPHA, FALSE, &ascent->max_q_alpha_kpa_deg,
+                                   &ascent->has_max_q_alpha, error))
     return FALSE;
   return sw_propulsion_validate_design (ascent, file, error);
 }
@@ -279,7 +283,10 @@ sw_propulsion_validate_design (const SwDesignAscent *a, const char *file, GError
           && !sw_optional_check (SW_LIMIT_PITCH_KICK, a->pitch_kick_deg, file, "ascent", error))
       || (a->has_insertion_altitude
           && !sw_optional_check (SW_LIMIT_INSERTION_ALTITUDE, a->insertion_altitude_km, file,
-                                 "ascent", error)))
+                                 "ascent", error))
+      || (a->has_max_q_alpha
+          && !sw_optional_check (SW_LIMIT_MAX_Q_ALPHA, a->max_q_alpha_kpa_deg, file, "ascent",
+                                 error)))
     return FALSE;
   if (a->has_fairing_altitude && a->has_fairing_pressure)
     {
@@ -354,6 +361,8 @@ sw_propulsion_save_design (JsonBuilder *builder, const SwDesignAscent *a)
     add_number (builder, "pitch_kick_deg", a->pitch_kick_deg);
   if (a->has_insertion_altitude)
     add_number (builder, "insertion_altitude_km", a->insertion_altitude_km);
+  if (a->has_max_q_alpha)
+    add_number (builder, "max_q_alpha_kpa_deg", a->max_q_alpha_kpa_deg);
   json_builder_end_object (builder);
 }
 

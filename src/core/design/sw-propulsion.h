@@ -17,7 +17,9 @@
  *   fairing_mass_kg, fairing_jettison_altitude_km or
  *   fairing_jettison_dynamic_pressure_pa, pitch_over_speed_m_s, pitch_kick_deg,
  *   insertion_altitude_km (fly to a transfer orbit with this perigee and the
- *   target as apogee, circularise there; left out: direct insertion) */
+ *   target as apogee, circularise there; left out: direct insertion),
+ *   max_q_alpha_kpa_deg (the guided flight keeps dynamic pressure times angle
+ *   of attack below it) */
 #pragma once
 
 #include <json-glib/json-glib.h>
@@ -52,6 +54,7 @@ typedef struct {
   double   pitch_over_speed_m_s;                 /* valid when has_pitch_over_speed */
   double   pitch_kick_deg;                       /* valid when has_pitch_kick */
   double   insertion_altitude_km;                /* valid when has_insertion_altitude */
+  double   max_q_alpha_kpa_deg;                  /* valid when has_max_q_alpha */
   gboolean present;                              /* the "ascent" object was given */
   gboolean has_fairing_mass;
   gboolean has_fairing_altitude;
@@ -59,7 +62,7 @@ typedef struct {
   gboolean has_pitch_over_speed;
   gboolean has_pitch_kick;
   gboolean has_insertion_altitude;
-  gboolean reserved;                             /* keeps the struct free of padding */
+  gboolean has_max_q_alpha;
 } SwDesignAscent;
 
 extern const char *const sw_propulsion_stage_keys[];
