@@ -541,6 +541,8 @@ assert_marker_at (SwWindow *w, guint which, cairo_surface_t *shot, const graphen
                                            &GRAPHENE_POINT_INIT (wx, wy), &p));
   p.x -= origin->x;
   p.y -= origin->y;
+  g_test_message ("plot %u: marker at %.1f, %.1f of a %d x %d shot", which, p.x, p.y,
+                  cairo_image_surface_get_width (shot), cairo_image_surface_get_height (shot));
   for (int dy = -3; dy <= 3; dy++)
     for (int dx = -3; dx <= 3; dx++)
       {
