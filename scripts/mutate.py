@@ -222,15 +222,41 @@ def locate(lines, m):
     return min(hits, key=lambda j: abs(j - i))
 
 
+def descendants(pid):
+    """The process ids below @pid (from /proc), deepest last."""
+    children = {}
+    for entry in os.listdir("/proc"):
+        if not entry.isdigit():
+            continue
+        try:
+            with open(f"/proc/{entry}/stat", encoding="utf-8") as fh:
+                ppid = int(fh.read().rsplit(")", 1)[1].split()[1])
+        except (OSError, ValueError, IndexError):
+            continue
+        children.setdefault(ppid, []).append(int(entry))
+    out, todo = [], [pid]
+    while todo:
+        for c in children.get(todo.pop(), []):
+            out.append(c)
+            todo.append(c)
+    return out
+
+
 def run(cmd, timeout, cwd=None, env=None):
-    """Runs cmd in its own process group; kills the group on timeout."""
+    """Runs cmd in its own session; on timeout kills it and every process
+    below it (meson test starts each test in a process group of its own, so
+    killing the group alone would leave a hung test running)."""
     p = subprocess.Popen(cmd, cwd=cwd, env=env, stdout=subprocess.PIPE,
                          stderr=subprocess.STDOUT, start_new_session=True)
     try:
         out, _ = p.communicate(timeout=timeout)
         return p.returncode, out.decode("utf-8", "replace"), False
     except subprocess.TimeoutExpired:
-        os.killpg(p.pid, signal.SIGKILL)
+        for pid in [p.pid] + descendants(p.pid):
+            try:
+                os.kill(pid, signal.SIGKILL)
+            except ProcessLookupError:
+                pass
         out, _ = p.communicate()
         return None, out.decode("utf-8", "replace"), True
 

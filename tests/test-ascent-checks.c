@@ -143,6 +143,37 @@ test_transfer_orbit_reported (void)
   g_assert_cmpfloat_with_epsilon (r->apogee_km, 400.0, 0.05);
 }
 
+/* Each firing stage's mass flow is its vacuum thrust over its exhaust
+ * velocity, mdot = T_vac / (Isp_vac g0) (the definition of specific
+ * impulse, g0 = 9.80665 m/s^2 exact), and its burn time is its propellant
+ * load over that flow: 345 s and 220 kN give 65.03 kg/s for the upper
+ * stage (computed). */
+static void
+test_stage_flow (void)
+{
+  g_autoptr (SwDesign) d = load (TWO_STAGE ("1600", "allowance", ""));
+  g_autoptr (SwAscentResult) r = NULL;
+  g_autoptr (GError) error = NULL;
+  static const double isp[] = { 320.0, 345.0 }, thrust_kn[] = { 2100.0, 220.0 };
+
+  r = sw_ascent_fly_design (d, NULL, &error);
+  g_assert_no_error (error);
+  g_assert_cmpuint (r->n_stages, ==, 2);
+  g_assert_cmpfloat_with_epsilon (r->stages[1].mass_flow_kg_s, 65.03, 0.005);
+  for (guint i = 0; i < 2; i++)
+    {
+      const SwAscentStage *st = &r->stages[i];
+      double mdot = thrust_kn[i] * 1000.0 / (isp[i] * 9.80665);
+
+      g_assert_true (st->fires);
+      g_assert_cmpfloat_with_epsilon (st->thrust_vac_n, thrust_kn[i] * 1000.0, 1e-6);
+      g_assert_cmpfloat_with_epsilon (st->mass_flow_kg_s, mdot, 1e-9 * mdot);
+      g_assert_cmpfloat_with_epsilon (st->burn_time_s,
+                                      r->sizing.stages[i].propellant_mass_kg / mdot,
+                                      1e-9 * st->burn_time_s);
+    }
+}
+
 /* Sized with too small an allowance the vehicle falls short; the reason
  * names the target orbit's altitude in km and the missing delta-v. */
 static void
@@ -170,5 +201,6 @@ main (int argc, char **argv)
   g_test_add_func ("/core/ascent-checks/air-speed-with-rotation", test_air_speed_with_rotation);
   g_test_add_func ("/core/ascent-checks/transfer-orbit-reported", test_transfer_orbit_reported);
   g_test_add_func ("/core/ascent-checks/shortfall-names-orbit", test_shortfall_names_orbit);
+  g_test_add_func ("/core/ascent-checks/stage-flow", test_stage_flow);
   return g_test_run ();
 }

@@ -78,9 +78,9 @@ page_text (SwWindow *w, SwAscentPageField f)
 static void
 set_payload (SwWindow *w, double kg)
 {
-  GtkSpinButton *spin = GTK_SPIN_BUTTON (sw_inspector_get_field (sw_window_get_inspector (w),
+  SwNumberField *spin = SW_NUMBER_FIELD (sw_inspector_get_field (sw_window_get_inspector (w),
                                                                  SW_INSPECTOR_PAYLOAD));
-  gtk_spin_button_set_value (spin, kg);
+  sw_number_field_commit_value (spin, kg);
 }
 
 static void

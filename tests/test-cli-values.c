@@ -606,7 +606,8 @@ test_csv_values (void)
   g_autofree SwSweep *sweep = g_new0 (SwSweep, 1);
   const char *const files[] = { "stages.csv", "stage-count.csv", "delta-v-sweep.csv",
                                 "sensitivity.csv", "reliability.csv",
-                                "uncertainty-histogram.csv" };
+                                "uncertainty-histogram.csv", "stage-decision.csv",
+                                "carpet.csv" };
   SwSizing s;
   SwStageCurve curve, base;
   SwReliability rel;
@@ -871,8 +872,8 @@ test_montecarlo_text (void)
         g_assert_cmpint (run.code, ==, 0);
         expect_line (run.out, "Spreads: Isp none; structural coefficient none; losses none");
         /* Nothing varies: nothing falls short, no reserve is needed. */
-        expect_line (run.out, "  required 1000.0 kg; reserve for 95 % confidence: 0.0 kg");
-        g_assert_nonnull (strstr (run.out, " carries the whole payload in 100.0 % of cases;"));
+        expect_line (run.out, "  required 1,000.0 kg; reserve for 95 % confidence: 0.0 kg");
+        g_assert_nonnull (strstr (run.out, " carries the whole payload in 100.0 % of cases: no reserve is needed for 95 %."));
         run_clear (&run);
       }
     else

@@ -207,6 +207,25 @@ test_exchange_ratios (void)
       g_assert_cmpfloat_with_epsilon (numeric[k], analytic[k], 1e-6);
     }
 
+  /* Entries past the stage count are not part of the vehicle: filled with
+   * a stage's worth of mass, they change nothing. */
+  {
+    SwFixedVehicle two = p.v, padded;
+    double r_two[SW_MAX_STAGES], r_padded[SW_MAX_STAGES], dv_two;
+
+    two.n_stages = 2;
+    padded = two;
+    for (guint i = 2; i < SW_MAX_STAGES; i++)
+      set_stage (&padded, i, 300.0, 9.81, 0.2, 5000.0);
+    dv_two = sw_fixed_vehicle_delta_v (&two, 5000.0);
+    g_assert_cmpfloat (sw_fixed_vehicle_delta_v (&padded, 5000.0), ==, dv_two);
+    sw_fixed_vehicle_exchange_ratios_analytic (&two, 5000.0, r_two);
+    sw_fixed_vehicle_exchange_ratios_analytic (&padded, 5000.0, r_padded);
+    g_assert_cmpfloat (r_padded[0], ==, r_two[0]);
+    g_assert_cmpfloat (r_padded[1], ==, r_two[1]);
+    g_assert_cmpfloat_with_epsilon (r_two[1], 1.0, 1e-15);
+  }
+
   /* One stage: the ratio is 1 (the same identity). */
   {
     SwFixedVehicle one = { .n_stages = 1 };

@@ -1,12 +1,15 @@
 /* SPDX-License-Identifier: GPL-3.0-or-later */
-/* Limits everywhere: every spin button of the main window takes its range
- * from the core's one table (src/core/sw-limits.c), and no value the
- * widgets accept (each field at its lowest and highest, typed text out of
- * range, stage counts at both ends, long names) gives a design that the
- * loader's validation rejects or a NaN on screen.  Suite 'gui' (Xvfb). */
+/* Limits everywhere: every number field of the main window takes its range
+ * from the core's one table (src/core/design/sw-limits.c), every key of the
+ * table has a field in the window, and no value the widgets accept (each
+ * field at its lowest and highest, typed text out of range, stage counts at
+ * both ends, long names) gives a design that the loader's validation
+ * rejects or a NaN on screen; text they refuse is an error on the field and
+ * leaves the design as it was.  Suite 'gui' (Xvfb). */
 #include "config.h"
 
 #include "sw-application.h"
+#include "sw-number-field.h"
 #include "sw-limits.h"
 #include "sw-sizing.h"
 #include "sw-window-private.h"
@@ -47,10 +50,10 @@ widget (SwWindow *w, SwInspectorField f)
   return sw_inspector_get_field (sw_window_get_inspector (w), f);
 }
 
-static GtkSpinButton *
+static SwNumberField *
 spin (SwWindow *w, SwInspectorField f)
 {
-  return GTK_SPIN_BUTTON (widget (w, f));
+  return SW_NUMBER_FIELD (widget (w, f));
 }
 
 static const SwDesign *
@@ -59,10 +62,26 @@ doc_design (SwWindow *w)
   return sw_document_get_design (sw_window_get_document (w));
 }
 
+/* Number fields of ours and spin buttons (other pages) alike. */
+static void
+field_range (GtkWidget *f, double *lower, double *upper, guint *digits)
+{
+  if (SW_IS_NUMBER_FIELD (f))
+    {
+      sw_number_field_get_range (SW_NUMBER_FIELD (f), lower, upper);
+      *digits = sw_number_field_get_digits (SW_NUMBER_FIELD (f));
+    }
+  else
+    {
+      gtk_spin_button_get_range (GTK_SPIN_BUTTON (f), lower, upper);
+      *digits = gtk_spin_button_get_digits (GTK_SPIN_BUTTON (f));
+    }
+}
+
 static void
 collect_spins (GtkWidget *root, GPtrArray *out)
 {
-  if (GTK_IS_SPIN_BUTTON (root))
+  if (GTK_IS_SPIN_BUTTON (root) || SW_IS_NUMBER_FIELD (root))
     g_ptr_array_add (out, root);
   for (GtkWidget *c = gtk_widget_get_first_child (root); c != NULL;
        c = gtk_widget_get_next_sibling (c))
@@ -91,16 +110,17 @@ range_matches (double lower, double upper, guint digits, double scale, const SwL
     return FALSE;
   if (!l->min_exclusive)
     return fabs (lower - min) <= tol;
-  return lower > min && lower <= min + pow (10.0, -(double) digits) + tol;
+  /* A number field keeps the open end itself and refuses it. */
+  return lower >= min && lower <= min + pow (10.0, -(double) digits) + tol;
 }
 
 static void
-assert_range (GtkSpinButton *s, SwLimitId id, double scale)
+assert_range (SwNumberField *s, SwLimitId id, double scale)
 {
   double lower, upper;
 
-  gtk_spin_button_get_range (s, &lower, &upper);
-  if (!range_matches (lower, upper, gtk_spin_button_get_digits (s), scale, sw_limit_get (id)))
+  sw_number_field_get_range (s, &lower, &upper);
+  if (!range_matches (lower, upper, sw_number_field_get_digits (s), scale, sw_limit_get (id)))
     g_error ("%s: range %g to %g is not the table's %s%g to %g for %s",
              spin_name (GTK_WIDGET (s)), lower, upper,
              sw_limit_get (id)->min_exclusive ? "above " : "", sw_limit_get (id)->min * scale,
@@ -174,31 +194,61 @@ assert_design_valid (SwWindow *w, const char *what)
 }
 
 /* Sets @s to its lowest and highest value, then types out-of-range and
- * non-numeric text into it, each as its own edit. */
+ * non-numeric text into it, each as its own edit.  Text the field refuses
+ * is an error on the field and leaves the design as it was.  With
+ * @may_conflict an end may be refused by a rule between keys (a sea-level
+ * Isp above the vacuum Isp): an error, the design unchanged. */
 static void
-sweep_field (SwWindow *w, GtkSpinButton *s, const char *what)
+sweep_field (SwWindow *w, SwNumberField *s, const char *what, gboolean may_conflict)
 {
-  static const char *const typed[] = { "-1e30", "1e30", "nan", "inf", "-inf", "", "abc" };
+  static const char *const typed[] = { "-1e30", "1e30", "nan", "inf", "-inf", "", "abc",
+                                       "1,2,3", "0x10", "12 kg" };
   double lower, upper;
 
-  gtk_spin_button_get_range (s, &lower, &upper);
+  sw_number_field_get_range (s, &lower, &upper);
+  /* An open lower end: the first value the field shows above it. */
+  if (sw_number_field_get_limit (s) != SW_N_LIMITS
+      && sw_limit_get (sw_number_field_get_limit (s))->min_exclusive)
+    lower += pow (10.0, -(double) sw_number_field_get_digits (s));
   for (int k = 0; k < 2; k++)
     {
       g_autofree char *label = g_strdup_printf ("%s at %s (%g)", what, k ? "its highest" :
                                                 "its lowest", k ? upper : lower);
-      gtk_spin_button_set_value (s, k ? upper : lower);
-      g_assert_cmpfloat (gtk_spin_button_get_value (s), ==, k ? upper : lower);
+      g_autoptr (SwDesign) before = sw_design_copy (doc_design (w));
+
+      if (sw_number_field_commit_value (s, k ? upper : lower))
+        /* A form of eps goes through the core's conversion and back. */
+        g_assert_cmpfloat_with_epsilon (sw_number_field_get_value (s), k ? upper : lower,
+                                        1e-12 * MAX (1.0, upper));
+      else
+        {
+          if (!may_conflict)
+            g_error ("%s: refused: %s", label, sw_number_field_get_error (s));
+          g_assert_nonnull (sw_number_field_get_error (s));
+          g_assert_true (sw_design_equal (doc_design (w), before));
+          sw_number_field_reset (s, sw_number_field_get_value (s));
+        }
       assert_design_valid (w, label);
     }
   for (guint k = 0; k < G_N_ELEMENTS (typed); k++)
     {
       g_autofree char *label = g_strdup_printf ("%s typed \"%s\"", what, typed[k]);
+      g_autoptr (SwDesign) before = sw_design_copy (doc_design (w));
       double v;
 
-      gtk_editable_set_text (GTK_EDITABLE (s), typed[k]);
-      gtk_spin_button_update (s);
-      v = gtk_spin_button_get_value (s);
-      g_assert_true (isfinite (v) && v >= lower && v <= upper);
+      if (!sw_number_field_enter (s, typed[k]))
+        {
+          g_assert_nonnull (sw_number_field_get_error (s));
+          g_assert_true (sw_design_equal (doc_design (w), before));
+          sw_number_field_reset (s, sw_number_field_get_value (s));
+        }
+      else
+        {
+          /* Only the empty text of an optional key is taken: left out. */
+          g_assert_cmpstr (typed[k], ==, "");
+          v = sw_number_field_get_value (s);
+          g_assert_true (isnan (v));
+        }
       assert_design_valid (w, label);
     }
 }
@@ -221,12 +271,12 @@ static const FieldLimit field_limits[] = {
 };
 
 static gboolean
-matches_some_limit (GtkSpinButton *s)
+matches_some_limit (GtkWidget *s)
 {
   double lower, upper;
-  guint digits = gtk_spin_button_get_digits (s);
+  guint digits;
 
-  gtk_spin_button_get_range (s, &lower, &upper);
+  field_range (s, &lower, &upper, &digits);
   for (guint i = 0; i < SW_N_LIMITS; i++)
     {
       const SwLimit *l = sw_limit_get (i);
@@ -241,14 +291,15 @@ matches_some_limit (GtkSpinButton *s)
 /* A preference (a view setting, not part of the design) may take its range
  * from the settings schema instead, where it is documented the same way. */
 static gboolean
-matches_some_setting (GtkSpinButton *s)
+matches_some_setting (GtkWidget *s)
 {
   g_autoptr (GSettings) settings = sw_application_settings_new ();
   g_autoptr (GSettingsSchema) schema = NULL;
   g_auto (GStrv) keys = NULL;
   double lower, upper;
+  guint digits;
 
-  gtk_spin_button_get_range (s, &lower, &upper);
+  field_range (s, &lower, &upper, &digits);
   g_object_get (settings, "settings-schema", &schema, NULL);
   keys = g_settings_schema_list_keys (schema);
   for (guint k = 0; keys[k] != NULL; k++)
@@ -294,15 +345,16 @@ test_spin_ranges (void)
     assert_range (spin (w, field_limits[k].field), field_limits[k].limit, 1.0);
   /* The share is shown in percent. */
   assert_range (spin (w, SW_INSPECTOR_SHARE), SW_LIMIT_DELTA_V_SHARE, 100.0);
-  /* The sea-level Isp: the table's range, capped by the stage's vacuum Isp. */
+  /* The sea-level Isp: the table's range; a value above the stage's vacuum
+   * Isp is a conflict the core refuses (test_extremes_valid). */
   for (guint i = 0; i < doc_design (w)->n_stages; i++)
     {
       double lower, upper;
 
       sw_inspector_set_selected (sw_window_get_inspector (w), (int) i);
-      gtk_spin_button_get_range (spin (w, SW_INSPECTOR_ISP_SL), &lower, &upper);
+      sw_number_field_get_range (spin (w, SW_INSPECTOR_ISP_SL), &lower, &upper);
       g_assert_cmpfloat (lower, ==, isp_sl->min);
-      g_assert_cmpfloat (upper, ==, MIN (isp_sl->max, doc_design (w)->stages[i].isp_vac_s));
+      g_assert_cmpfloat (upper, ==, isp_sl->max);
     }
   /* The structural coefficient in each of its forms: the table's range
    * converted by the core (sw_eps_form_range). */
@@ -314,7 +366,7 @@ test_spin_ranges (void)
 
       gtk_drop_down_set_selected (forms, f);
       sw_eps_form_range (f, eps->min, eps->max, &lo, &hi);
-      gtk_spin_button_get_range (spin (w, SW_INSPECTOR_EPS), &lower, &upper);
+      sw_number_field_get_range (spin (w, SW_INSPECTOR_EPS), &lower, &upper);
       g_assert_cmpfloat_with_epsilon (lower, lo, 1e-12 * hi);
       g_assert_cmpfloat_with_epsilon (upper, hi, 1e-12 * hi);
       g_assert_true (lower < upper);
@@ -337,17 +389,19 @@ test_spin_ranges (void)
 
       if (s == widget (w, SW_INSPECTOR_ISP_SL) || s == widget (w, SW_INSPECTOR_EPS))
         continue;  /* checked above: their ranges depend on the stage or the form */
-      if (!matches_some_limit (GTK_SPIN_BUTTON (s))
-          && (in_inspector || !matches_some_setting (GTK_SPIN_BUTTON (s))))
+      if (s == widget (w, SW_INSPECTOR_TW))
+        continue;  /* a thrust-to-weight that sets the thrust, not a key of the file */
+      if (!matches_some_limit (s) && (in_inspector || !matches_some_setting (s)))
         {
           double lower, upper;
-          gtk_spin_button_get_range (GTK_SPIN_BUTTON (s), &lower, &upper);
+          guint digits;
+          field_range (s, &lower, &upper, &digits);
           g_error ("%s: range %g to %g is in no row of the limits table%s", spin_name (s),
                    lower, upper, in_inspector ? "" : " nor the range of a settings key");
         }
     }
   g_assert_cmpuint (inspector_spins, >=, G_N_ELEMENTS (field_limits) + 3);
-  g_test_message ("%u spin buttons in the inspector, %u in the window, each with a range "
+  g_test_message ("%u number fields in the inspector, %u in the window, each with a range "
                   "from the limits table or the settings schema", inspector_spins,
                   spins->len - inspector_spins);
   sw_test_window_close (w);
@@ -367,18 +421,19 @@ test_extremes_valid (void)
   GtkDropDown *forms = GTK_DROP_DOWN (widget (w, SW_INSPECTOR_EPS_FORM));
 
   g_assert_cmpint (doc_design (w)->mission.kind, ==, SW_MISSION_ORBIT);
-  sweep_field (w, spin (w, SW_INSPECTOR_PAYLOAD), "payload");
-  sweep_field (w, spin (w, SW_INSPECTOR_ALTITUDE), "altitude");
-  sweep_field (w, spin (w, SW_INSPECTOR_LOSSES), "losses");
-  gtk_spin_button_set_value (spin (w, SW_INSPECTOR_LATITUDE), 0.0);
-  sweep_field (w, spin (w, SW_INSPECTOR_INCLINATION), "inclination");
-  gtk_spin_button_set_value (spin (w, SW_INSPECTOR_INCLINATION), 90.0);
-  sweep_field (w, spin (w, SW_INSPECTOR_LATITUDE), "site latitude");
+  sweep_field (w, spin (w, SW_INSPECTOR_PAYLOAD), "payload", FALSE);
+  sweep_field (w, spin (w, SW_INSPECTOR_ALTITUDE), "altitude", FALSE);
+  sweep_field (w, spin (w, SW_INSPECTOR_LOSSES), "losses", FALSE);
+  g_assert_true (sw_number_field_commit_value (spin (w, SW_INSPECTOR_LOSSES), 1500.0));
+  g_assert_true (sw_number_field_commit_value (spin (w, SW_INSPECTOR_LATITUDE), 0.0));
+  sweep_field (w, spin (w, SW_INSPECTOR_INCLINATION), "inclination", FALSE);
+  g_assert_true (sw_number_field_commit_value (spin (w, SW_INSPECTOR_INCLINATION), 90.0));
+  sweep_field (w, spin (w, SW_INSPECTOR_LATITUDE), "site latitude", FALSE);
 
   gtk_drop_down_set_selected (mission, 0);
   g_assert_cmpint (doc_design (w)->mission.kind, ==, SW_MISSION_DELTA_V);
   assert_design_valid (w, "the switch to a delta-v mission");
-  sweep_field (w, spin (w, SW_INSPECTOR_DELTA_V), "delta-v");
+  sweep_field (w, spin (w, SW_INSPECTOR_DELTA_V), "delta-v", FALSE);
   gtk_drop_down_set_selected (mission, 1);
   assert_design_valid (w, "the switch back to an orbit");
 
@@ -389,54 +444,55 @@ test_extremes_valid (void)
       GtkCheckButton *check;
 
       sw_inspector_set_selected (inspector, (int) i);
-      sweep_field (w, spin (w, SW_INSPECTOR_ISP_VAC), vac);
-      gtk_spin_button_set_value (spin (w, SW_INSPECTOR_ISP_VAC), 350.0);
-      /* The check button beside the sea-level field turns it on. */
+      /* The check button beside the sea-level field turns it on and off. */
       check = GTK_CHECK_BUTTON (gtk_widget_get_prev_sibling (widget (w, SW_INSPECTOR_ISP_SL)));
       g_assert_true (GTK_IS_CHECK_BUTTON (check));
+      gtk_check_button_set_active (check, FALSE);
+      g_assert_false (doc_design (w)->stages[i].has_isp_sl);
+      sweep_field (w, spin (w, SW_INSPECTOR_ISP_VAC), vac, FALSE);
+      g_assert_true (sw_number_field_commit_value (spin (w, SW_INSPECTOR_ISP_VAC), 350.0));
       gtk_check_button_set_active (check, TRUE);
       g_assert_true (doc_design (w)->stages[i].has_isp_sl);
-      sweep_field (w, spin (w, SW_INSPECTOR_ISP_SL), sl);
-      /* Lowering the vacuum Isp pulls the sea-level Isp down with it. */
-      gtk_spin_button_set_value (spin (w, SW_INSPECTOR_ISP_SL), 350.0);
-      gtk_spin_button_set_value (spin (w, SW_INSPECTOR_ISP_VAC), 200.0);
-      g_assert_cmpfloat (doc_design (w)->stages[i].isp_sl_s, <=, 200.0);
-      assert_design_valid (w, "a vacuum Isp below the sea-level one");
+      /* Above 350 s the sea-level Isp is refused: a conflict, not a clamp. */
+      sweep_field (w, spin (w, SW_INSPECTOR_ISP_SL), sl, TRUE);
+      g_assert_cmpfloat (doc_design (w)->stages[i].isp_sl_s, <=, 350.0);
+      /* Lowering the vacuum Isp below the sea-level one is refused on both
+       * fields; neither value moves the other. */
+      g_assert_true (sw_number_field_commit_value (spin (w, SW_INSPECTOR_ISP_SL), 340.0));
+      g_assert_false (sw_number_field_commit_value (spin (w, SW_INSPECTOR_ISP_VAC), 200.0));
+      g_assert_nonnull (sw_number_field_get_error (spin (w, SW_INSPECTOR_ISP_VAC)));
+      g_assert_nonnull (sw_number_field_get_error (spin (w, SW_INSPECTOR_ISP_SL)));
+      g_assert_cmpfloat (doc_design (w)->stages[i].isp_sl_s, ==, 340.0);
+      g_assert_cmpfloat (doc_design (w)->stages[i].isp_vac_s, ==, 350.0);
+      g_assert_true (sw_number_field_commit_value (spin (w, SW_INSPECTOR_ISP_VAC), 345.0));
+      g_assert_null (sw_number_field_get_error (spin (w, SW_INSPECTOR_ISP_VAC)));
+      g_assert_null (sw_number_field_get_error (spin (w, SW_INSPECTOR_ISP_SL)));
+      assert_design_valid (w, "a vacuum Isp refused below the sea-level one");
       for (SwEpsForm f = SW_EPS_COEFFICIENT; f <= SW_EPS_PROPELLANT_FRACTION; f++)
         {
           g_autofree char *eps = g_strdup_printf ("stage %u structure in form %s", i + 1,
                                                   sw_eps_form_to_string (f));
           gtk_drop_down_set_selected (forms, f);
-          sweep_field (w, spin (w, SW_INSPECTOR_EPS), eps);
+          sweep_field (w, spin (w, SW_INSPECTOR_EPS), eps, FALSE);
         }
       gtk_drop_down_set_selected (forms, SW_EPS_COEFFICIENT);
-      gtk_spin_button_set_value (spin (w, SW_INSPECTOR_EPS), 0.1);
+      g_assert_true (sw_number_field_commit_value (spin (w, SW_INSPECTOR_EPS), 0.1));
     }
 
-  /* The one pair the widgets cannot keep consistent on their own: an orbit
-   * the site cannot reach is shown as a clear error naming the field, with
-   * no number on screen, and it is not a file the GUI can write. */
-  gtk_spin_button_set_value (spin (w, SW_INSPECTOR_LATITUDE), 28.5);
-  gtk_spin_button_set_value (spin (w, SW_INSPECTOR_INCLINATION), 10.0);
-  wait_shown (w);
-  g_assert_false (sw_window_get_shown_result (w)->ok);
-  g_assert_nonnull (strstr (sw_window_get_shown_result (w)->error_message, "inclination_deg"));
-  assert_totals_finite (w);
-  {
-    g_autofree char *path = g_build_filename (tmp_dir, "unreachable.stagewright", NULL);
-    g_autoptr (GFile) file = g_file_new_for_path (path);
-    g_autoptr (GError) error = NULL;
-    g_assert_false (sw_window_save_to (w, file, &error));
-    g_assert_nonnull (error);
-    g_assert_false (g_file_test (path, G_FILE_TEST_EXISTS));
-  }
-  gtk_spin_button_set_value (spin (w, SW_INSPECTOR_INCLINATION), 51.6);
+  /* An orbit the site cannot reach: refused on the field, naming the key,
+   * and the design keeps its last valid state. */
+  g_assert_true (sw_number_field_commit_value (spin (w, SW_INSPECTOR_LATITUDE), 28.5));
+  g_assert_false (sw_number_field_commit_value (spin (w, SW_INSPECTOR_INCLINATION), 10.0));
+  g_assert_nonnull (strstr (sw_number_field_get_error (spin (w, SW_INSPECTOR_INCLINATION)),
+                            "an orbit inclined 10 deg cannot be reached"));
+  g_assert_cmpfloat (doc_design (w)->mission.inclination_deg, ==, 90.0);
+  g_assert_true (sw_number_field_commit_value (spin (w, SW_INSPECTOR_INCLINATION), 51.6));
   assert_design_valid (w, "a reachable orbit again");
 
   /* Manual shares: one stage at 0 % and at 100 %; the others rebalance. */
   sw_inspector_set_selected (inspector, 0);
   g_assert_true (gtk_widget_is_sensitive (widget (w, SW_INSPECTOR_SHARE)));
-  sweep_field (w, spin (w, SW_INSPECTOR_SHARE), "stage 1 share");
+  sweep_field (w, spin (w, SW_INSPECTOR_SHARE), "stage 1 share", FALSE);
   g_assert_cmpint (doc_design (w)->split, ==, SW_SPLIT_MANUAL);
   sw_test_window_close (w);
 }
@@ -452,12 +508,12 @@ test_trade_extremes (void)
 
   g_assert_true (doc_design (w)->uncertainty.present);
   g_assert_nonnull (doc_design (w)->baseline);
-  sweep_field (w, spin (w, SW_INSPECTOR_PAYLOAD), "payload");
-  gtk_spin_button_set_value (spin (w, SW_INSPECTOR_PAYLOAD), 300.0);
+  sweep_field (w, spin (w, SW_INSPECTOR_PAYLOAD), "payload", FALSE);
+  g_assert_true (sw_number_field_commit_value (spin (w, SW_INSPECTOR_PAYLOAD), 300.0));
   sw_inspector_set_selected (inspector, 0);
-  sweep_field (w, spin (w, SW_INSPECTOR_ISP_VAC), "stage 1 vacuum Isp");
-  gtk_spin_button_set_value (spin (w, SW_INSPECTOR_ISP_VAC), 311.0);
-  sweep_field (w, spin (w, SW_INSPECTOR_EPS), "stage 1 structure");
+  sweep_field (w, spin (w, SW_INSPECTOR_ISP_VAC), "stage 1 vacuum Isp", TRUE);
+  g_assert_true (sw_number_field_commit_value (spin (w, SW_INSPECTOR_ISP_VAC), 311.0));
+  sweep_field (w, spin (w, SW_INSPECTOR_EPS), "stage 1 structure", FALSE);
   sw_test_window_close (w);
 }
 
@@ -533,6 +589,117 @@ test_long_names (void)
   sw_test_window_close (w);
 }
 
+/* Every key of the file has a field in the window: walk the limits table
+ * and find, for each row, the field that edits it (a number field with that
+ * row's range, or the one widget for a text, a list or a table). */
+static void
+test_every_key_has_a_field (void)
+{
+  SwWindow *w = window_with_demo ("three-stage-simulated.stagewright");
+  SwTradePage *trade = sw_window_get_trade_page (w);
+  g_autoptr (GPtrArray) fields = g_ptr_array_new ();
+
+  collect_spins (GTK_WIDGET (sw_window_get_inspector (w)), fields);
+  for (SwLimitId id = 0; id < SW_N_LIMITS; id++)
+    {
+      const SwLimit *l = sw_limit_get (id);
+      GtkWidget *found = NULL;
+
+      for (guint k = 0; k < fields->len && found == NULL; k++)
+        if (SW_IS_NUMBER_FIELD (fields->pdata[k])
+            && sw_number_field_get_limit (fields->pdata[k]) == id)
+          found = fields->pdata[k];
+      switch (id)
+        {
+        case SW_LIMIT_STAGE_COUNT:
+          found = widget (w, SW_INSPECTOR_STAGE_LIST);
+          g_assert_true (gtk_widget_activate_action (GTK_WIDGET (sw_window_get_inspector (w)),
+                                                     "stage.add", NULL));
+          break;
+        case SW_LIMIT_NAME_LENGTH:
+          found = widget (w, SW_INSPECTOR_STAGE_NAME);
+          break;
+        case SW_LIMIT_NOTES_LENGTH:
+          found = widget (w, SW_INSPECTOR_NOTES);
+          break;
+        case SW_LIMIT_DRAG_POINTS:
+        case SW_LIMIT_DRAG_MACH:
+        case SW_LIMIT_DRAG_CD:
+          found = widget (w, SW_INSPECTOR_DRAG);
+          break;
+        /* The uncertainty object is edited beside the Monte Carlo it drives. */
+        case SW_LIMIT_MC_SAMPLES:
+          found = sw_trade_page_get_field (trade, SW_TRADE_FIELD_SAMPLES);
+          break;
+        case SW_LIMIT_MC_SEED:
+          found = sw_trade_page_get_field (trade, SW_TRADE_FIELD_SEED);
+          break;
+        case SW_LIMIT_SPREAD_SIGMA_PERCENT:
+        case SW_LIMIT_SPREAD_HALF_RANGE_PERCENT:
+          found = sw_trade_page_get_field (trade, SW_TRADE_FIELD_ISP_WIDTH);
+          g_assert_nonnull (sw_trade_page_get_field (trade, SW_TRADE_FIELD_EPS_WIDTH));
+          g_assert_nonnull (sw_trade_page_get_field (trade, SW_TRADE_FIELD_ISP_KIND));
+          break;
+        case SW_LIMIT_LOSSES_SIGMA:
+        case SW_LIMIT_LOSSES_HALF_RANGE:
+          found = sw_trade_page_get_field (trade, SW_TRADE_FIELD_LOSSES_WIDTH);
+          break;
+        /* Not a key of the file: the tornado's step, a preference. */
+        case SW_LIMIT_SENSITIVITY_STEP:
+          found = sw_trade_page_get_field (trade, SW_TRADE_FIELD_STEP);
+          break;
+        default:
+          break;
+        }
+      if (found == NULL)
+        g_error ("%s: no field in the window edits this key", l->key);
+      g_assert_true (gtk_widget_get_root (found) == GTK_ROOT (w));
+    }
+  /* The loss model and the thrust, in both its forms. */
+  g_assert_true (GTK_IS_DROP_DOWN (widget (w, SW_INSPECTOR_LOSS_MODEL)));
+  g_assert_true (SW_IS_NUMBER_FIELD (widget (w, SW_INSPECTOR_THRUST)));
+  g_assert_true (SW_IS_NUMBER_FIELD (widget (w, SW_INSPECTOR_ENGINE_THRUST)));
+  sw_test_window_close (w);
+}
+
+/* The fields added for the ascent, reliability and guidance keys at both
+ * ends of their ranges and with bad text, on each stage. */
+static void
+test_model_fields_extremes (void)
+{
+  static const SwInspectorField stage_fields[] = {
+    SW_INSPECTOR_THRUST, SW_INSPECTOR_ENGINE_COUNT, SW_INSPECTOR_ENGINE_THRUST,
+    SW_INSPECTOR_DIAMETER, SW_INSPECTOR_COAST, SW_INSPECTOR_ENGINE_RELIABILITY,
+    SW_INSPECTOR_FAILURES_TOLERATED, SW_INSPECTOR_IGNITION_RELIABILITY,
+    SW_INSPECTOR_SEPARATION_RELIABILITY,
+  };
+  static const SwInspectorField design_fields[] = {
+    SW_INSPECTOR_FAIRING_ALTITUDE, SW_INSPECTOR_FAIRING_PRESSURE, SW_INSPECTOR_FAIRING_MASS,
+    SW_INSPECTOR_PITCH_OVER_SPEED, SW_INSPECTOR_PITCH_KICK, SW_INSPECTOR_INSERTION_ALTITUDE,
+  };
+  SwWindow *w = window_with_demo ("three-stage-simulated.stagewright");
+  SwInspector *inspector = sw_window_get_inspector (w);
+
+  for (guint i = 0; i < doc_design (w)->n_stages; i++)
+    {
+      sw_inspector_set_selected (inspector, (int) i);
+      for (guint k = 0; k < G_N_ELEMENTS (stage_fields); k++)
+        {
+          g_autofree char *what = g_strdup_printf ("stage %u field %d", i + 1, stage_fields[k]);
+          /* The coast of the first stage, engine failures against the
+           * engines, a thrust per engine without an engine count: rules
+           * between keys may refuse an end. */
+          sweep_field (w, spin (w, stage_fields[k]), what, TRUE);
+        }
+    }
+  for (guint k = 0; k < G_N_ELEMENTS (design_fields); k++)
+    {
+      g_autofree char *what = g_strdup_printf ("design field %d", design_fields[k]);
+      sweep_field (w, spin (w, design_fields[k]), what, TRUE);
+    }
+  sw_test_window_close (w);
+}
+
 /* ---- main -------------------------------------------------------------- */
 
 int
@@ -547,6 +714,8 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/limits/trade-extremes", test_trade_extremes);
   g_test_add_func ("/gui/limits/stage-count", test_stage_count);
   g_test_add_func ("/gui/limits/long-names", test_long_names);
+  g_test_add_func ("/gui/limits/every-key-has-a-field", test_every_key_has_a_field);
+  g_test_add_func ("/gui/limits/model-fields-extremes", test_model_fields_extremes);
 
   status = g_test_run ();
   sw_gui_test_env_finish (tmp_dir);

@@ -415,7 +415,7 @@ test_baseline (void)
   g_autoptr (SwDesign) original = NULL;
   g_autoptr (SwDesign) pinned = NULL;
   g_autoptr (GError) error = NULL;
-  GtkSpinButton *payload = GTK_SPIN_BUTTON (sw_inspector_get_field (
+  SwNumberField *payload = SW_NUMBER_FIELD (sw_inspector_get_field (
     sw_window_get_inspector (w), SW_INSPECTOR_PAYLOAD));
   SwAnalysis *r;
   double x, y;
@@ -444,7 +444,7 @@ test_baseline (void)
   /* Ten percent more payload: with the optimal split every mass scales
    * with the payload (top-down Tsiolkovsky sizing, Curtis sec. 11.6, from
    * memory), so the liftoff mass grows by exactly 10 %. */
-  gtk_spin_button_set_value (payload, original->payload_kg * 1.1);
+  sw_number_field_commit_value (payload, original->payload_kg * 1.1);
   wait_complete (w);
   g_assert_cmpint (doc_design (w)->split, ==, SW_SPLIT_OPTIMAL);
   r = sw_window_get_shown_result (w);

@@ -73,6 +73,11 @@ test_defaults (void)
    * the three inputs. */
   u.isp = (SwSpread) { SW_SPREAD_NORMAL, 0.0 };
   g_assert_false (sw_uncertainty_has_spread (&u));
+  u.structural_coefficient = (SwSpread) { SW_SPREAD_UNIFORM, 0.0 };
+  g_assert_false (sw_uncertainty_has_spread (&u));
+  u.losses = (SwSpread) { SW_SPREAD_NORMAL, 0.0 };
+  g_assert_false (sw_uncertainty_has_spread (&u));
+  u.structural_coefficient = u.losses = (SwSpread) { SW_SPREAD_NONE, 0.0 };
   u.isp = (SwSpread) { SW_SPREAD_NONE, 3.0 };
   g_assert_false (sw_uncertainty_has_spread (&u));
   u.isp = (SwSpread) { SW_SPREAD_UNIFORM, 0.5 };

@@ -238,7 +238,7 @@ test_timeout_cb (gpointer data)
   return G_SOURCE_REMOVE;
 }
 
-/* FIELD=VALUE: a spin button of the inspector set as a user would, or
+/* FIELD=VALUE: a number field of the inspector set as a user would, or
  * stage=N to select a stage first. */
 static gboolean
 apply_test_edit (SwWindow *window, const char *edit, GError **error)
@@ -264,9 +264,13 @@ apply_test_edit (SwWindow *window, const char *edit, GError **error)
       for (guint i = 0; i < G_N_ELEMENTS (fields); i++)
         if (strcmp (kv[0], fields[i].key) == 0)
           {
-            GtkWidget *spin = sw_inspector_get_field (inspector, fields[i].field);
-            gtk_spin_button_set_value (GTK_SPIN_BUTTON (spin), value);
-            return TRUE;
+            SwNumberField *f = SW_NUMBER_FIELD (sw_inspector_get_field (inspector,
+                                                                       fields[i].field));
+            if (sw_number_field_commit_value (f, value))
+              return TRUE;
+            g_set_error (error, G_OPTION_ERROR, G_OPTION_ERROR_BAD_VALUE, "--test-edit=%s: %s",
+                         edit, sw_number_field_get_error (f));
+            return FALSE;
           }
     }
   g_set_error (error, G_OPTION_ERROR, G_OPTION_ERROR_BAD_VALUE,

@@ -6,9 +6,12 @@
 #include "sw-inspector.h"
 
 #include "sw-design-edit.h"
+#include "sw-design-fields.h"
 #include "sw-format.h"
 #include "sw-limits.h"
+#include "sw-number-field.h"
 #include "sw-sizing.h"
+#include "sw-stage-thrust.h"
 
 #include <glib/gi18n.h>
 #include <math.h>
@@ -27,23 +30,23 @@ struct _SwInspector {
 
   GtkWidget     *scroller;
   GtkEntry      *name_entry;
-  GtkSpinButton *payload_spin;
+  SwNumberField *payload_spin;
   GtkLabel      *payload_unit;
   GtkDropDown   *mission_dropdown;
   GtkWidget     *delta_v_label;
-  GtkSpinButton *delta_v_spin;
+  SwNumberField *delta_v_spin;
   GtkLabel      *delta_v_unit;
   GtkWidget     *altitude_label;
-  GtkSpinButton *altitude_spin;
+  SwNumberField *altitude_spin;
   GtkLabel      *altitude_unit;
   GtkWidget     *inclination_label;
-  GtkSpinButton *inclination_spin;
+  SwNumberField *inclination_spin;
   GtkLabel      *inclination_unit;
   GtkWidget     *latitude_label;
-  GtkSpinButton *latitude_spin;
+  SwNumberField *latitude_spin;
   GtkLabel      *latitude_unit;
   GtkWidget     *losses_label;
-  GtkSpinButton *losses_spin;
+  SwNumberField *losses_spin;
   GtkLabel      *losses_unit;
   GtkWidget     *ideal_caption;
   GtkLabel      *ideal_label;
@@ -54,61 +57,72 @@ struct _SwInspector {
   GtkLabel      *stage_title;
   GtkWidget     *stage_grid;
   GtkEntry      *stage_name_entry;
-  GtkSpinButton *isp_vac_spin;
+  SwNumberField *isp_vac_spin;
   GtkLabel      *isp_vac_unit;
   GtkCheckButton *isp_sl_check;
-  GtkSpinButton *isp_sl_spin;
+  SwNumberField *isp_sl_spin;
   GtkLabel      *isp_sl_unit;
   GtkDropDown   *eps_form_dropdown;
   GtkLabel      *eps_label;
-  GtkSpinButton *eps_spin;
+  SwNumberField *eps_spin;
   GtkLabel      *eps_unit;
-  GtkSpinButton *share_spin;
+  SwNumberField *share_spin;
   GtkScale      *share_scale;
   GtkAdjustment *share_adjustment;
+  GtkWidget     *content_box;
+
+  /* built in code: notes, loss model, propulsion, reliability, ascent */
+  GtkWidget     *intro_box;
+  GtkTextView   *notes_view;
+  GtkLabel      *notes_message;
+  GtkDropDown   *loss_model_dropdown;
+  GtkWidget     *loss_model_label;
+  GtkWidget     *stage_extra;
+  SwNumberField *thrust_field;
+  SwNumberField *engine_thrust_field;
+  SwNumberField *engine_count_field;
+  SwNumberField *tw_field;
+  SwNumberField *diameter_field;
+  SwNumberField *coast_field;
+  GtkEntry      *drag_entry;
+  GtkLabel      *drag_message;
+  SwNumberField *engine_rel_field;
+  SwNumberField *failures_field;
+  SwNumberField *ignition_rel_field;
+  SwNumberField *separation_rel_field;
+  SwNumberField *fairing_mass_field;
+  SwNumberField *fairing_altitude_field;
+  SwNumberField *fairing_pressure_field;
+  SwNumberField *pitch_over_field;
+  SwNumberField *pitch_kick_field;
+  SwNumberField *insertion_field;
+  gboolean       isp_conflict;           /* the Isp pair shows a conflict */
 };
 
 G_DEFINE_FINAL_TYPE (SwInspector, sw_inspector, GTK_TYPE_WIDGET)
 
 enum { PROP_0, PROP_SELECTED_STAGE, N_PROPS };
+
+static void update_extra_stage_fields (SwInspector *self, const SwDesign *d, guint i,
+                                       gboolean reset);
+static void update_design_extra (SwInspector *self, const SwDesign *d);
 static GParamSpec *properties[N_PROPS];
 
 /* ---- helpers ----------------------------------------------------------- */
 
-/* Spin-button ranges come from the one limits table. */
+/* Field ranges come from the one limits table. */
 static void
-setup_spin (GtkSpinButton *spin, GtkLabel *unit, SwLimitId id, guint digits, double step,
-            double page)
+setup_field (SwNumberField *field, GtkLabel *unit, SwLimitId id, guint digits, double step)
 {
-  const SwLimit *l = sw_limit_get (id);
-  double lo = l->min_exclusive ? l->min + pow (10.0, -(double) digits) : l->min;
-
-  gtk_spin_button_set_digits (spin, digits);
-  gtk_spin_button_set_range (spin, lo, l->max);
-  gtk_spin_button_set_increments (spin, step, page);
-  gtk_spin_button_set_numeric (spin, FALSE);
-  gtk_editable_set_enable_undo (GTK_EDITABLE (spin), FALSE);
-  gtk_editable_set_width_chars (GTK_EDITABLE (spin), 9);
+  sw_number_field_set_limit (field, id, 1.0, digits, step);
   if (unit != NULL)
-    gtk_label_set_text (unit, l->unit);
-}
-
-/* TRUE when @spin shows a value other than @current at its precision: a
- * focus change re-reads the text and must not become an edit. */
-static gboolean
-spin_edited (GtkSpinButton *spin, double current, double *value)
-{
-  double scale = pow (10.0, gtk_spin_button_get_digits (spin));
-
-  *value = gtk_spin_button_get_value (spin);
-  return !isfinite (current) || round (*value * scale) != round (current * scale);
+    gtk_label_set_text (unit, sw_limit_get (id)->unit);
 }
 
 static void
-set_spin (GtkSpinButton *spin, double value)
+set_field (SwNumberField *field, double value)
 {
-  if (isfinite (value))
-    gtk_spin_button_set_value (spin, value);
+  sw_number_field_set_value (field, value);
 }
 
 static gboolean
@@ -201,10 +215,8 @@ configure_eps_spin (SwInspector *self)
 
   sw_eps_form_range (self->eps_form, l->min, l->max, &lo, &hi);
   self->updating++;
-  gtk_spin_button_set_digits (self->eps_spin, digits);
-  gtk_spin_button_set_range (self->eps_spin, lo, hi);
-  gtk_spin_button_set_increments (self->eps_spin, self->eps_form == SW_EPS_WET_DRY_RATIO ? 0.1 : 0.001,
-                                  self->eps_form == SW_EPS_WET_DRY_RATIO ? 1.0 : 0.01);
+  sw_number_field_set_range (self->eps_spin, lo, hi, FALSE, "", digits,
+                             self->eps_form == SW_EPS_WET_DRY_RATIO ? 0.1 : 0.001);
   gtk_label_set_text (self->eps_label, eps_form_label (self->eps_form));
   gtk_widget_set_tooltip_text (GTK_WIDGET (self->eps_spin), eps_form_tooltip (self->eps_form));
   gtk_widget_set_tooltip_text (GTK_WIDGET (self->eps_label), eps_form_tooltip (self->eps_form));
@@ -327,6 +339,7 @@ update_stage_fields (SwInspector *self)
   gboolean has = self->selected >= 0 && (guint) self->selected < d->n_stages;
 
   gtk_widget_set_sensitive (self->stage_grid, has);
+  gtk_widget_set_sensitive (self->stage_extra, has);
   if (!has)
     {
       gtk_label_set_text (self->stage_title, _("No stage selected"));
@@ -338,28 +351,19 @@ update_stage_fields (SwInspector *self)
   gtk_label_set_text (self->stage_title, title);
   if (g_strcmp0 (gtk_editable_get_text (GTK_EDITABLE (self->stage_name_entry)), s->name) != 0)
     gtk_editable_set_text (GTK_EDITABLE (self->stage_name_entry), s->name);
-  set_spin (self->isp_vac_spin, s->isp_vac_s);
+  set_field (self->isp_vac_spin, s->isp_vac_s);
   gtk_check_button_set_active (self->isp_sl_check, s->has_isp_sl);
   gtk_widget_set_sensitive (GTK_WIDGET (self->isp_sl_spin), s->has_isp_sl);
-  {
-    /* At most the vacuum Isp.  Set only on a change: a new range resizes the
-     * spin button, and a resize costs a relayout of the whole window. */
-    double lo, hi, max = MIN (sw_limit_get (SW_LIMIT_ISP_SL)->max, s->isp_vac_s);
-    gtk_spin_button_get_range (self->isp_sl_spin, &lo, &hi);
-    if (hi != max)
-      gtk_spin_button_set_range (self->isp_sl_spin, sw_limit_get (SW_LIMIT_ISP_SL)->min, max);
-  }
-  if (s->has_isp_sl)
-    set_spin (self->isp_sl_spin, s->isp_sl_s);
-  else
-    gtk_editable_set_text (GTK_EDITABLE (self->isp_sl_spin), SW_NO_VALUE);
-  set_spin (self->eps_spin, sw_eps_to_form (s->structural_coefficient, self->eps_form));
+  set_field (self->isp_sl_spin, s->has_isp_sl ? s->isp_sl_s : NAN);
+  set_field (self->eps_spin, sw_eps_to_form (s->structural_coefficient, self->eps_form));
   {
     double share = shown_share (self, (guint) self->selected);
     gtk_adjustment_set_value (self->share_adjustment, isfinite (share) ? share * 100.0 : 0.0);
+    set_field (self->share_spin, isfinite (share) ? share * 100.0 : NAN);
     gtk_widget_set_sensitive (GTK_WIDGET (self->share_scale), d->n_stages > 1);
     gtk_widget_set_sensitive (GTK_WIDGET (self->share_spin), d->n_stages > 1);
   }
+  update_extra_stage_fields (self, d, (guint) self->selected, FALSE);
 }
 
 static void
@@ -375,7 +379,7 @@ refresh (SwInspector *self)
 
   if (g_strcmp0 (gtk_editable_get_text (GTK_EDITABLE (self->name_entry)), d->name) != 0)
     gtk_editable_set_text (GTK_EDITABLE (self->name_entry), d->name);
-  set_spin (self->payload_spin, d->payload_kg);
+  set_field (self->payload_spin, d->payload_kg);
   orbit = d->mission.kind == SW_MISSION_ORBIT;
   gtk_drop_down_set_selected (self->mission_dropdown, orbit ? 1 : 0);
   gtk_widget_set_visible (self->delta_v_label, !orbit);
@@ -397,13 +401,13 @@ refresh (SwInspector *self)
   gtk_widget_set_visible (GTK_WIDGET (self->ideal_label), orbit);
   if (orbit)
     {
-      set_spin (self->altitude_spin, d->mission.altitude_km);
-      set_spin (self->inclination_spin, d->mission.inclination_deg);
-      set_spin (self->latitude_spin, d->mission.site_latitude_deg);
-      set_spin (self->losses_spin, d->mission.has_losses ? d->mission.losses_m_s : 0.0);
+      set_field (self->altitude_spin, d->mission.altitude_km);
+      set_field (self->inclination_spin, d->mission.inclination_deg);
+      set_field (self->latitude_spin, d->mission.site_latitude_deg);
+      set_field (self->losses_spin, d->mission.has_losses ? d->mission.losses_m_s : NAN);
     }
   else
-    set_spin (self->delta_v_spin, d->mission.delta_v_m_s);
+    set_field (self->delta_v_spin, d->mission.delta_v_m_s);
 
   gtk_toggle_button_set_active (d->split == SW_SPLIT_EQUAL ? self->split_equal
                                 : d->split == SW_SPLIT_OPTIMAL ? self->split_optimal
@@ -415,6 +419,10 @@ refresh (SwInspector *self)
     sw_inspector_set_selected (self, 0);
   update_stage_rows (self);
   update_stage_fields (self);
+  update_design_extra (self, d);
+  /* Once saved, the demonstration copy is the user's own design. */
+  if (sw_document_get_file (self->document) != NULL)
+    gtk_widget_set_visible (self->intro_box, FALSE);
   update_computed (self);
   update_actions (self);
   self->updating--;
@@ -440,44 +448,67 @@ name_changed_cb (SwInspector *self, GtkEditable *entry)
   commit (self, g_steal_pointer (&d), "name");
 }
 
-#define MISSION_EDIT(fn, field, setter, key)                                \
-static void                                                                 \
-fn (SwInspector *self, GtkSpinButton *spin)                                 \
-{                                                                           \
-  g_autoptr (SwDesign) d = NULL;                                            \
-  double value;                                                             \
-                                                                            \
-  if (!editing_ok (self) || !spin_edited (spin, design (self)->field, &value)) \
-    return;                                                                 \
-  d = sw_document_dup_design (self->document);                              \
-  setter (d, value);                                                        \
-  commit (self, g_steal_pointer (&d), key);                                 \
+/* The core's message without its leading JSON path ("stages[0].isp_vac_s: "):
+ * the field it shows under is the key. */
+static const char *
+field_message (const char *message)
+{
+  const char *colon = strstr (message, ": ");
+
+  if (colon != NULL && memchr (message, ' ', (gsize) (colon - message)) == NULL)
+    return colon + 2;
+  return message;
 }
 
-MISSION_EDIT (payload_changed_cb, payload_kg, sw_design_set_payload, "payload")
-MISSION_EDIT (delta_v_changed_cb, mission.delta_v_m_s, sw_design_set_mission_delta_v, "delta-v")
-MISSION_EDIT (altitude_changed_cb, mission.altitude_km, sw_design_set_altitude, "altitude")
-MISSION_EDIT (inclination_changed_cb, mission.inclination_deg, sw_design_set_inclination,
-              "inclination")
-MISSION_EDIT (latitude_changed_cb, mission.site_latitude_deg, sw_design_set_site_latitude,
-              "latitude")
-
-static void
-losses_changed_cb (SwInspector *self, GtkSpinButton *spin)
+/* Every number field of a key: the core's named edit on a copy, committed
+ * as one undo step.  A refusal shows on the field and the design stays as
+ * it was. */
+static gboolean
+commit_field (SwInspector *self, SwNumberField *field, SwDesignField key, double value)
 {
   g_autoptr (SwDesign) d = NULL;
-  const SwMission *m;
-  double value;
+  g_autoptr (GError) error = NULL;
+  gboolean per_stage = sw_design_field_info (key)->per_stage;
+  guint stage = per_stage ? (guint) self->selected : 0;
+  gboolean ok;
 
-  if (!editing_ok (self))
-    return;
-  m = &design (self)->mission;
-  if (!spin_edited (spin, m->has_losses ? m->losses_m_s : 0.0, &value))
-    return;
+  if (!editing_ok (self) || (per_stage && !stage_ok (self)))
+    return FALSE;
   d = sw_document_dup_design (self->document);
-  sw_design_set_losses (d, value);
-  commit (self, g_steal_pointer (&d), "losses");
+  ok = isnan (value) ? sw_design_field_unset (d, key, stage, &error)
+                     : sw_design_field_set (d, key, stage, value, &error);
+  if (!ok)
+    {
+      sw_number_field_set_error (field, field_message (error->message));
+      return FALSE;
+    }
+  if (!sw_design_equal (d, design (self)))
+    commit (self, g_steal_pointer (&d), NULL);
+  return TRUE;
 }
+
+/* The fields built in code carry their key. */
+static void
+number_field_cb (SwNumberField *field, SwInspector *self)
+{
+  SwDesignField key = GPOINTER_TO_INT (g_object_get_data (G_OBJECT (field), "sw-key")) - 1;
+
+  commit_field (self, field, key, sw_number_field_get_value (field));
+}
+
+#define FIELD_EDIT(fn, key)                                                 \
+static void                                                                 \
+fn (SwInspector *self, SwNumberField *field)                                \
+{                                                                           \
+  commit_field (self, field, key, sw_number_field_get_value (field));       \
+}
+
+FIELD_EDIT (payload_changed_cb, SW_FIELD_PAYLOAD)
+FIELD_EDIT (delta_v_changed_cb, SW_FIELD_DELTA_V)
+FIELD_EDIT (altitude_changed_cb, SW_FIELD_ALTITUDE)
+FIELD_EDIT (inclination_changed_cb, SW_FIELD_INCLINATION)
+FIELD_EDIT (latitude_changed_cb, SW_FIELD_SITE_LATITUDE)
+FIELD_EDIT (losses_changed_cb, SW_FIELD_LOSSES)
 
 static void
 mission_kind_changed_cb (SwInspector *self)
@@ -535,20 +566,46 @@ stage_name_changed_cb (SwInspector *self, GtkEditable *entry)
   commit (self, g_steal_pointer (&d), key);
 }
 
+/* The Isp pair: a vacuum Isp below the sea-level Isp is flagged on both
+ * fields and the design keeps its last valid state; neither value moves
+ * the other. */
 static void
-isp_vac_changed_cb (SwInspector *self, GtkSpinButton *spin)
+show_isp_conflict (SwInspector *self, SwNumberField *typed, gboolean conflict)
 {
-  g_autoptr (SwDesign) d = NULL;
-  g_autofree char *key = NULL;
-  double value;
+  SwNumberField *other = typed == self->isp_vac_spin ? self->isp_sl_spin : self->isp_vac_spin;
 
-  if (!stage_ok (self)
-      || !spin_edited (spin, design (self)->stages[self->selected].isp_vac_s, &value))
+  if (conflict)
+    {
+      sw_number_field_set_error (other, typed == self->isp_vac_spin
+                                 ? _("Above the vacuum Isp typed: lower this first")
+                                 : _("Below the sea-level Isp typed: raise this first"));
+      self->isp_conflict = TRUE;
+    }
+  else if (self->isp_conflict)
+    {
+      self->isp_conflict = FALSE;
+      sw_number_field_set_error (other, NULL);
+      if (self->document != NULL)
+        {
+          self->updating++;
+          update_stage_fields (self);
+          self->updating--;
+        }
+    }
+}
+
+static void
+isp_vac_changed_cb (SwInspector *self, SwNumberField *field)
+{
+  double v = sw_number_field_get_value (field);
+  const SwStage *s;
+  gboolean ok;
+
+  if (!stage_ok (self))
     return;
-  d = sw_document_dup_design (self->document);
-  sw_design_set_stage_isp_vac (d, (guint) self->selected, value);
-  key = stage_key (self, "isp-vac");
-  commit (self, g_steal_pointer (&d), key);
+  s = &design (self)->stages[self->selected];
+  ok = commit_field (self, field, SW_FIELD_ISP_VAC, v);
+  show_isp_conflict (self, field, !ok && s->has_isp_sl && v < s->isp_sl_s);
 }
 
 static void
@@ -564,42 +621,54 @@ isp_sl_toggled_cb (SwInspector *self, GtkCheckButton *check)
 }
 
 static void
-isp_sl_changed_cb (SwInspector *self, GtkSpinButton *spin)
+isp_sl_changed_cb (SwInspector *self, SwNumberField *field)
 {
-  g_autoptr (SwDesign) d = NULL;
-  g_autofree char *key = NULL;
-  const SwStage *cur;
-  double value;
+  double v = sw_number_field_get_value (field);
+  const SwStage *s;
+  gboolean ok;
 
   if (!stage_ok (self))
     return;
-  cur = &design (self)->stages[self->selected];
-  if (!cur->has_isp_sl || !spin_edited (spin, cur->isp_sl_s, &value))
+  s = &design (self)->stages[self->selected];
+  if (!s->has_isp_sl)
     return;
-  d = sw_document_dup_design (self->document);
-  sw_design_set_stage_isp_sl (d, (guint) self->selected, value);
-  key = stage_key (self, "isp-sl");
-  commit (self, g_steal_pointer (&d), key);
+  ok = commit_field (self, field, SW_FIELD_ISP_SL, v);
+  show_isp_conflict (self, field, !ok && v > s->isp_vac_s);
 }
 
 static void
-eps_changed_cb (SwInspector *self, GtkSpinButton *spin)
+eps_changed_cb (SwInspector *self, SwNumberField *field)
+{
+  const SwLimit *l = sw_limit_get (SW_LIMIT_STRUCTURAL_COEFFICIENT);
+  double eps = sw_eps_from_form (sw_number_field_get_value (field), self->eps_form);
+
+  /* The form's range is the coefficient's: only rounding may stray out. */
+  if (eps < l->min && eps > l->min - 1e-12)
+    eps = l->min;
+  if (eps > l->max && eps < l->max + 1e-12)
+    eps = l->max;
+  commit_field (self, field, SW_FIELD_STRUCTURAL_COEFFICIENT, eps);
+}
+
+/* The share typed in percent: one undo step; the other stages' shares
+ * rescale so the sum stays 1 (that is what a share is, not a side effect). */
+static void
+share_field_cb (SwInspector *self, SwNumberField *field)
 {
   g_autoptr (SwDesign) d = NULL;
-  g_autofree char *key = NULL;
-  double value, current;
+  double value = sw_number_field_get_value (field) / 100.0;
 
-  if (!stage_ok (self))
-    return;
-  current = sw_eps_to_form (design (self)->stages[self->selected].structural_coefficient,
-                            self->eps_form);
-  if (!spin_edited (spin, current, &value))
+  if (!stage_ok (self) || design (self)->n_stages < 2 || isnan (value))
     return;
   d = sw_document_dup_design (self->document);
-  sw_design_set_stage_structural_coefficient (d, (guint) self->selected,
-                                              sw_eps_from_form (value, self->eps_form));
-  key = stage_key (self, "eps");
-  commit (self, g_steal_pointer (&d), key);
+  if (d->split != SW_SPLIT_MANUAL)
+    {
+      double shares[SW_MAX_STAGES];
+      guint n = screen_shares (self, shares);
+      sw_design_take_manual_shares (d, shares, n);
+    }
+  sw_design_set_share_rebalanced (d, (guint) self->selected, value);
+  commit (self, g_steal_pointer (&d), NULL);
 }
 
 static void
@@ -652,6 +721,580 @@ stage_row_selected_cb (SwInspector *self, GtkListBoxRow *row)
   sw_inspector_set_selected (self, gtk_list_box_row_get_index (row));
 }
 
+/* Ctrl+Z and Ctrl+Shift+Z in a text entry of the panel go to the window's
+ * history (the entry's own undo is off: names commit as they are typed). */
+static gboolean
+entry_undo_key_cb (GtkEventControllerKey *controller, guint keyval, guint keycode,
+                   GdkModifierType state, GtkWidget *entry)
+{
+  GdkModifierType mods = state & gtk_accelerator_get_default_mod_mask ();
+
+  if (mods == GDK_CONTROL_MASK && (keyval == GDK_KEY_z || keyval == GDK_KEY_Z))
+    return gtk_widget_activate_action (entry, "design.undo", NULL);
+  if ((mods == (GDK_CONTROL_MASK | GDK_SHIFT_MASK) && (keyval == GDK_KEY_z || keyval == GDK_KEY_Z))
+      || (mods == GDK_CONTROL_MASK && keyval == GDK_KEY_y))
+    return gtk_widget_activate_action (entry, "design.redo", NULL);
+  return FALSE;
+}
+
+static void
+route_undo (GtkWidget *entry)
+{
+  GtkEventController *controller = gtk_event_controller_key_new ();
+
+  gtk_event_controller_set_propagation_phase (controller, GTK_PHASE_CAPTURE);
+  g_signal_connect (controller, "key-pressed", G_CALLBACK (entry_undo_key_cb), entry);
+  gtk_widget_add_controller (entry, controller);
+}
+
+/* The share slider never takes the wheel: over the panel the wheel
+ * scrolls it (a slider cannot show that it has focus well enough). */
+static void
+no_wheel_on_scale (GtkWidget *scale)
+{
+  GListModel *controllers = gtk_widget_observe_controllers (scale);
+
+  for (guint i = 0; i < g_list_model_get_n_items (controllers); i++)
+    {
+      g_autoptr (GtkEventController) c = g_list_model_get_item (controllers, i);
+      if (GTK_IS_EVENT_CONTROLLER_SCROLL (c))
+        gtk_event_controller_set_propagation_phase (c, GTK_PHASE_NONE);
+    }
+  g_object_unref (controllers);
+}
+
+/* ---- the fields built in code ----------------------------------------- */
+
+static GtkWidget *
+section_title (const char *text)
+{
+  GtkWidget *label = gtk_label_new (text);
+
+  gtk_label_set_xalign (GTK_LABEL (label), 0.0);
+  gtk_widget_set_margin_top (label, 8);
+  gtk_widget_add_css_class (label, "sw-section-title");
+  return label;
+}
+
+static GtkWidget *
+caption (const char *text, const char *tooltip, GtkWidget *mnemonic)
+{
+  GtkWidget *label = gtk_label_new_with_mnemonic (text);
+
+  gtk_label_set_xalign (GTK_LABEL (label), 0.0);
+  gtk_label_set_wrap (GTK_LABEL (label), TRUE);
+  gtk_label_set_max_width_chars (GTK_LABEL (label), 16);
+  gtk_widget_set_valign (label, GTK_ALIGN_START);
+  gtk_widget_set_margin_top (label, 8);
+  gtk_widget_set_tooltip_text (label, tooltip);
+  if (mnemonic != NULL)
+    gtk_label_set_mnemonic_widget (GTK_LABEL (label), mnemonic);
+  return label;
+}
+
+/* A row of @grid: caption, a number field for @key (or the limit @limit
+ * when @key is SW_N_FIELDS), unit.  Optional keys show @placeholder when
+ * left out. */
+static SwNumberField *
+add_number_row (SwInspector *self, GtkGrid *grid, int row, const char *text, const char *tooltip,
+                SwDesignField key, SwLimitId limit, guint digits, double step,
+                const char *placeholder)
+{
+  SwNumberField *field = SW_NUMBER_FIELD (sw_number_field_new ());
+  GtkWidget *unit;
+
+  if (key != SW_N_FIELDS)
+    {
+      const SwDesignFieldInfo *info = sw_design_field_info (key);
+      limit = info->limit;
+      sw_number_field_set_whole (field, info->whole);
+      sw_number_field_set_optional (field, info->optional, placeholder);
+      g_object_set_data (G_OBJECT (field), "sw-key", GINT_TO_POINTER (key + 1));
+      g_signal_connect (field, "value-committed", G_CALLBACK (number_field_cb), self);
+    }
+  if (limit != SW_N_LIMITS)
+    sw_number_field_set_limit (field, limit, 1.0, digits, step);
+  gtk_widget_set_tooltip_text (GTK_WIDGET (field), tooltip);
+  gtk_widget_set_hexpand (GTK_WIDGET (field), TRUE);
+  unit = gtk_label_new (limit != SW_N_LIMITS ? sw_limit_get (limit)->unit : "");
+  gtk_label_set_xalign (GTK_LABEL (unit), 0.0);
+  gtk_widget_set_valign (unit, GTK_ALIGN_START);
+  gtk_widget_set_margin_top (unit, 8);
+  gtk_widget_add_css_class (unit, "dim-label");
+  gtk_grid_attach (grid, caption (text, tooltip, sw_number_field_get_entry (field)), 0, row, 1, 1);
+  gtk_grid_attach (grid, GTK_WIDGET (field), 1, row, 1, 1);
+  gtk_grid_attach (grid, unit, 2, row, 1, 1);
+  return field;
+}
+
+static GtkGrid *
+new_grid (void)
+{
+  GtkWidget *grid = gtk_grid_new ();
+
+  gtk_grid_set_row_spacing (GTK_GRID (grid), 4);
+  gtk_grid_set_column_spacing (GTK_GRID (grid), 8);
+  return GTK_GRID (grid);
+}
+
+/* The notes: the design says what it is (the demos say they are
+ * invented).  Committed when the view loses focus, one undo step. */
+static void
+notes_commit (SwInspector *self)
+{
+  g_autoptr (SwDesign) d = NULL;
+  g_autoptr (GError) error = NULL;
+  GtkTextBuffer *buffer = gtk_text_view_get_buffer (self->notes_view);
+  GtkTextIter start, end;
+  g_autofree char *text = NULL;
+
+  if (!editing_ok (self))
+    return;
+  gtk_text_buffer_get_bounds (buffer, &start, &end);
+  text = gtk_text_buffer_get_text (buffer, &start, &end, FALSE);
+  if (g_strcmp0 (text, design (self)->notes != NULL ? design (self)->notes : "") == 0)
+    return;
+  d = sw_document_dup_design (self->document);
+  if (!sw_design_set_notes_checked (d, text, &error))
+    {
+      gtk_label_set_text (self->notes_message, error->message);
+      gtk_widget_set_visible (GTK_WIDGET (self->notes_message), TRUE);
+      return;
+    }
+  gtk_widget_set_visible (GTK_WIDGET (self->notes_message), FALSE);
+  commit (self, g_steal_pointer (&d), NULL);
+}
+
+static void
+notes_leave_cb (GtkEventControllerFocus *controller, SwInspector *self)
+{
+  if (gtk_widget_get_mapped (GTK_WIDGET (self)))
+    notes_commit (self);
+}
+
+static void
+loss_model_changed_cb (SwInspector *self)
+{
+  g_autoptr (SwDesign) d = NULL;
+  g_autoptr (GError) error = NULL;
+  SwLossModel model = gtk_drop_down_get_selected (self->loss_model_dropdown) == 1
+                      ? SW_LOSS_SIMULATE : SW_LOSS_ALLOWANCE;
+
+  if (!editing_ok (self) || model == design (self)->mission.loss_model)
+    return;
+  d = sw_document_dup_design (self->document);
+  if (!sw_design_set_loss_model (d, model, &error))
+    {
+      /* Refused (only an orbit mission shows the choice): show the model
+       * in force again, and why in the tooltip. */
+      self->updating++;
+      gtk_drop_down_set_selected (self->loss_model_dropdown,
+                                  design (self)->mission.loss_model == SW_LOSS_SIMULATE);
+      self->updating--;
+      gtk_widget_set_tooltip_text (GTK_WIDGET (self->loss_model_dropdown), error->message);
+      return;
+    }
+  commit (self, g_steal_pointer (&d), NULL);
+}
+
+/* Thrust as a total or per engine: one quantity, the form typed replaces
+ * the other in one edit. */
+static void
+thrust_cb (SwNumberField *field, SwInspector *self)
+{
+  g_autoptr (SwDesign) d = NULL;
+  g_autoptr (GError) error = NULL;
+
+  if (!stage_ok (self))
+    return;
+  d = sw_document_dup_design (self->document);
+  if (!sw_design_set_thrust (d, (guint) self->selected, field == self->engine_thrust_field,
+                             sw_number_field_get_value (field), &error))
+    {
+      sw_number_field_set_error (field, field_message (error->message));
+      return;
+    }
+  commit (self, g_steal_pointer (&d), NULL);
+}
+
+/* The thrust from the thrust-to-weight the user wants at ignition. */
+static void
+tw_cb (SwNumberField *field, SwInspector *self)
+{
+  g_autoptr (SwDesign) d = NULL;
+  g_autoptr (GError) error = NULL;
+
+  if (!stage_ok (self) || isnan (sw_number_field_get_value (field)))
+    return;
+  d = sw_document_dup_design (self->document);
+  if (!sw_design_set_thrust_for_tw (d, (guint) self->selected, sw_number_field_get_value (field),
+                                    &error))
+    {
+      sw_number_field_set_error (field, field_message (error->message));
+      return;
+    }
+  commit (self, g_steal_pointer (&d), NULL);
+}
+
+static void
+fairing_rule_cb (SwNumberField *field, SwInspector *self)
+{
+  g_autoptr (SwDesign) d = NULL;
+  g_autoptr (GError) error = NULL;
+  gboolean by_pressure = field == self->fairing_pressure_field;
+  const SwDesignAscent *a;
+
+  if (!editing_ok (self))
+    return;
+  a = &design (self)->ascent;
+  /* Emptying the field of the rule not in force changes nothing. */
+  if (isnan (sw_number_field_get_value (field))
+      && !(by_pressure ? a->has_fairing_pressure : a->has_fairing_altitude))
+    return;
+  d = sw_document_dup_design (self->document);
+  if (!sw_design_set_fairing_rule (d, by_pressure, sw_number_field_get_value (field), &error))
+    {
+      sw_number_field_set_error (field, field_message (error->message));
+      return;
+    }
+  commit (self, g_steal_pointer (&d), NULL);
+}
+
+static void
+show_drag_error (SwInspector *self, const char *message)
+{
+  gtk_label_set_text (self->drag_message, message != NULL ? message : "");
+  gtk_widget_set_visible (GTK_WIDGET (self->drag_message), message != NULL);
+  if (message != NULL)
+    gtk_widget_add_css_class (GTK_WIDGET (self->drag_entry), "error");
+  else
+    gtk_widget_remove_css_class (GTK_WIDGET (self->drag_entry), "error");
+}
+
+static char
+decimal_mark (void)
+{
+  g_autofree char *half = sw_format_number (0.5, 1);
+  const char *p = strchr (half, '5');
+
+  return p != NULL && p > half && p[-1] == ',' ? ',' : '.';
+}
+
+static void
+drag_commit (SwInspector *self)
+{
+  g_autoptr (SwDesign) d = NULL;
+  g_autoptr (GError) error = NULL;
+  g_autofree char *current = NULL;
+  const char *text = gtk_editable_get_text (GTK_EDITABLE (self->drag_entry));
+
+  if (!stage_ok (self))
+    return;
+  current = sw_design_dup_drag_text (design (self), (guint) self->selected, decimal_mark ());
+  if (g_strcmp0 (current, text) == 0)
+    {
+      show_drag_error (self, NULL);
+      return;
+    }
+  d = sw_document_dup_design (self->document);
+  if (!sw_design_set_drag_text (d, (guint) self->selected, text, &error))
+    {
+      show_drag_error (self, field_message (error->message));
+      return;
+    }
+  show_drag_error (self, NULL);
+  commit (self, g_steal_pointer (&d), NULL);
+}
+
+static void
+drag_leave_cb (GtkEventControllerFocus *controller, SwInspector *self)
+{
+  if (gtk_widget_get_mapped (GTK_WIDGET (self)))
+    drag_commit (self);
+}
+
+static void
+build_sections (SwInspector *self)
+{
+  GtkWidget *box = self->content_box;
+  GtkGrid *grid;
+  GtkWidget *frame, *label, *button, *intro_text;
+  GtkEventController *controller;
+  int row;
+
+  /* First start and the notes, at the top. */
+  self->intro_box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 6);
+  gtk_widget_add_css_class (self->intro_box, "sw-intro");
+  intro_text = gtk_label_new (_("This is a demonstration design, opened as an unsaved copy. "
+                                "Its notes below say what it is. Edit it, or start your own."));
+  gtk_label_set_wrap (GTK_LABEL (intro_text), TRUE);
+  gtk_label_set_xalign (GTK_LABEL (intro_text), 0.0);
+  gtk_label_set_max_width_chars (GTK_LABEL (intro_text), 30);
+  button = gtk_button_new_with_mnemonic (_("_New design"));
+  gtk_actionable_set_action_name (GTK_ACTIONABLE (button), "design.new");
+  gtk_widget_set_halign (button, GTK_ALIGN_START);
+  gtk_box_append (GTK_BOX (self->intro_box), intro_text);
+  gtk_box_append (GTK_BOX (self->intro_box), button);
+  gtk_widget_set_visible (self->intro_box, FALSE);
+  gtk_box_prepend (GTK_BOX (box), self->intro_box);
+
+  label = section_title (_("Notes"));
+  gtk_widget_set_margin_top (label, 0);
+  gtk_box_insert_child_after (GTK_BOX (box), label, self->intro_box);
+  self->notes_view = GTK_TEXT_VIEW (gtk_text_view_new ());
+  gtk_text_view_set_wrap_mode (self->notes_view, GTK_WRAP_WORD_CHAR);
+  gtk_text_view_set_left_margin (self->notes_view, 6);
+  gtk_text_view_set_right_margin (self->notes_view, 6);
+  gtk_text_view_set_top_margin (self->notes_view, 4);
+  gtk_text_view_set_bottom_margin (self->notes_view, 4);
+  gtk_widget_set_size_request (GTK_WIDGET (self->notes_view), -1, 64);
+  gtk_widget_set_tooltip_text (GTK_WIDGET (self->notes_view),
+                               _("What the design is and where its numbers come from; saved in "
+                                 "the file"));
+  gtk_accessible_update_property (GTK_ACCESSIBLE (self->notes_view),
+                                  GTK_ACCESSIBLE_PROPERTY_LABEL, _("Notes"), -1);
+  controller = gtk_event_controller_focus_new ();
+  g_signal_connect (controller, "leave", G_CALLBACK (notes_leave_cb), self);
+  gtk_widget_add_controller (GTK_WIDGET (self->notes_view), controller);
+  frame = gtk_frame_new (NULL);
+  gtk_frame_set_child (GTK_FRAME (frame), GTK_WIDGET (self->notes_view));
+  gtk_box_insert_child_after (GTK_BOX (box), frame, label);
+  self->notes_message = GTK_LABEL (gtk_label_new (NULL));
+  gtk_label_set_wrap (self->notes_message, TRUE);
+  gtk_widget_add_css_class (GTK_WIDGET (self->notes_message), "error");
+  gtk_widget_set_visible (GTK_WIDGET (self->notes_message), FALSE);
+  gtk_box_insert_child_after (GTK_BOX (box), GTK_WIDGET (self->notes_message), frame);
+
+  /* The loss model, in the mission grid under the losses. */
+  self->loss_model_label = caption (_("Losses _from"),
+                                    _("An allowance you give, or the losses of the simulated "
+                                      "ascent, sized in a closed loop"), NULL);
+  self->loss_model_dropdown = GTK_DROP_DOWN (gtk_drop_down_new_from_strings (
+    (const char *const[]) { _("Allowance above"), _("Simulated ascent"), NULL }));
+  gtk_label_set_mnemonic_widget (GTK_LABEL (self->loss_model_label),
+                                 GTK_WIDGET (self->loss_model_dropdown));
+  gtk_widget_set_tooltip_text (GTK_WIDGET (self->loss_model_dropdown),
+                               gtk_widget_get_tooltip_text (self->loss_model_label));
+  g_signal_connect_swapped (self->loss_model_dropdown, "notify::selected",
+                            G_CALLBACK (loss_model_changed_cb), self);
+  {
+    GtkGrid *mission = GTK_GRID (gtk_widget_get_parent (GTK_WIDGET (self->losses_spin)));
+    gtk_grid_attach (mission, self->loss_model_label, 0, 9, 1, 1);
+    gtk_grid_attach (mission, GTK_WIDGET (self->loss_model_dropdown), 1, 9, 2, 1);
+  }
+
+  /* The selected stage: propulsion and shape, reliability. */
+  self->stage_extra = gtk_box_new (GTK_ORIENTATION_VERTICAL, 6);
+  gtk_box_append (GTK_BOX (box), self->stage_extra);
+  gtk_box_append (GTK_BOX (self->stage_extra), section_title (_("Propulsion and shape")));
+  grid = new_grid ();
+  row = 0;
+  self->thrust_field = add_number_row (self, grid, row++, _("_Thrust, total"),
+                                       _("Vacuum thrust of the whole stage; or give it per "
+                                         "engine below"), SW_N_FIELDS, SW_LIMIT_THRUST_VAC, 1,
+                                       10.0, _("not given"));
+  sw_number_field_set_optional (self->thrust_field, TRUE, _("not given"));
+  g_signal_connect (self->thrust_field, "value-committed", G_CALLBACK (thrust_cb), self);
+  self->engine_count_field = add_number_row (self, grid, row++, _("_Engines"),
+                                             _("Number of engines in the stage (also used by "
+                                               "the reliability model)"),
+                                             SW_FIELD_ENGINE_COUNT, 0, 0, 1.0, "1");
+  self->engine_thrust_field = add_number_row (self, grid, row++, _("Thrust per en_gine"),
+                                              _("Vacuum thrust of one engine; the stage's "
+                                                "thrust is this times the engines"),
+                                              SW_N_FIELDS, SW_LIMIT_ENGINE_THRUST_VAC, 1, 10.0,
+                                              _("not given"));
+  sw_number_field_set_optional (self->engine_thrust_field, TRUE, _("not given"));
+  g_signal_connect (self->engine_thrust_field, "value-committed", G_CALLBACK (thrust_cb), self);
+  self->tw_field = add_number_row (self, grid, row++, _("T/W at _ignition"),
+                                   _("Vacuum thrust over the weight of the stage and everything "
+                                     "above it at ignition. Type a value to set the thrust from "
+                                     "it; common practice is 1.2 to 1.5 at liftoff and 0.6 to "
+                                     "1.2 for an upper stage"),
+                                   SW_N_FIELDS, SW_N_LIMITS, 2, 0.05, NULL);
+  sw_number_field_set_range (self->tw_field, 0.0, SW_TW_MAX, TRUE, "", 2, 0.05);
+  g_signal_connect (self->tw_field, "value-committed", G_CALLBACK (tw_cb), self);
+  self->diameter_field = add_number_row (self, grid, row++, _("_Diameter"),
+                                         _("Outer diameter, the drag reference area; an upper "
+                                           "stage without one takes the diameter below"),
+                                         SW_FIELD_DIAMETER, 0, 2, 0.1, _("as below"));
+  self->coast_field = add_number_row (self, grid, row++, _("_Coast before ignition"),
+                                      _("Unpowered flight from the separation below to this "
+                                        "stage's ignition; not for the first stage"),
+                                      SW_FIELD_COAST, 0, 1, 1.0, _("none"));
+  self->drag_entry = GTK_ENTRY (gtk_entry_new ());
+  gtk_entry_set_placeholder_text (self->drag_entry, _("generic slender-vehicle table"));
+  gtk_editable_set_enable_undo (GTK_EDITABLE (self->drag_entry), FALSE);
+  gtk_widget_set_tooltip_text (GTK_WIDGET (self->drag_entry),
+                               _("Drag coefficient against Mach number as mach:cd pairs "
+                                 "separated by ';', Mach increasing, e.g. 0:0.3; 1.1:0.55; "
+                                 "4:0.25. Empty: the generic table"));
+  g_signal_connect_swapped (self->drag_entry, "activate", G_CALLBACK (drag_commit), self);
+  controller = gtk_event_controller_focus_new ();
+  g_signal_connect (controller, "leave", G_CALLBACK (drag_leave_cb), self);
+  gtk_widget_add_controller (GTK_WIDGET (self->drag_entry), controller);
+  gtk_grid_attach (grid, caption (_("D_rag (mach:cd)"),
+                                  gtk_widget_get_tooltip_text (GTK_WIDGET (self->drag_entry)),
+                                  GTK_WIDGET (self->drag_entry)), 0, row, 1, 1);
+  gtk_grid_attach (grid, GTK_WIDGET (self->drag_entry), 1, row++, 2, 1);
+  self->drag_message = GTK_LABEL (gtk_label_new (NULL));
+  gtk_label_set_wrap (self->drag_message, TRUE);
+  gtk_label_set_xalign (self->drag_message, 0.0);
+  gtk_widget_add_css_class (GTK_WIDGET (self->drag_message), "error");
+  gtk_widget_set_visible (GTK_WIDGET (self->drag_message), FALSE);
+  gtk_grid_attach (grid, GTK_WIDGET (self->drag_message), 1, row++, 2, 1);
+  gtk_box_append (GTK_BOX (self->stage_extra), GTK_WIDGET (grid));
+
+  gtk_box_append (GTK_BOX (self->stage_extra), section_title (_("Reliability")));
+  grid = new_grid ();
+  row = 0;
+  self->engine_rel_field = add_number_row (self, grid, row++, _("Engine re_liability"),
+                                           _("Probability that one engine runs its burn"),
+                                           SW_FIELD_ENGINE_RELIABILITY, 0, 4, 0.001, "1");
+  self->failures_field = add_number_row (self, grid, row++, _("Engine _failures tolerated"),
+                                         _("Engine failures the stage survives; fewer than its "
+                                           "engines"), SW_FIELD_FAILURES_TOLERATED, 0, 0, 1.0,
+                                         "0");
+  self->ignition_rel_field = add_number_row (self, grid, row++, _("I_gnition reliability"),
+                                             _("Probability that the stage's start sequence "
+                                               "succeeds"), SW_FIELD_IGNITION_RELIABILITY, 0, 4,
+                                             0.001, "1");
+  self->separation_rel_field = add_number_row (self, grid, row++, _("Se_paration reliability"),
+                                               _("Probability that the staging event above this "
+                                                 "stage succeeds (ignored for the top stage)"),
+                                               SW_FIELD_SEPARATION_RELIABILITY, 0, 4, 0.001,
+                                               "1");
+  gtk_box_append (GTK_BOX (self->stage_extra), GTK_WIDGET (grid));
+
+  /* The design's ascent settings. */
+  gtk_box_append (GTK_BOX (box), section_title (_("Ascent")));
+  grid = new_grid ();
+  row = 0;
+  self->fairing_mass_field = add_number_row (self, grid, row++, _("Fairing _mass"),
+                                             _("Payload fairing carried on top of the vehicle "
+                                               "until it is dropped"), SW_FIELD_FAIRING_MASS, 0,
+                                             0, 10.0, _("none"));
+  self->fairing_altitude_field = add_number_row (self, grid, row++, _("Drop fairing at _altitude"),
+                                                 _("Altitude at which the fairing is dropped; "
+                                                   "common practice is near 100 to 120 km. "
+                                                   "Replaces a dynamic-pressure rule"),
+                                                 SW_N_FIELDS, SW_LIMIT_FAIRING_ALTITUDE, 1, 1.0,
+                                                 NULL);
+  sw_number_field_set_optional (self->fairing_altitude_field, TRUE, _("not this rule"));
+  g_signal_connect (self->fairing_altitude_field, "value-committed",
+                    G_CALLBACK (fairing_rule_cb), self);
+  self->fairing_pressure_field = add_number_row (self, grid, row++,
+                                                 _("…or below _dynamic pressure"),
+                                                 _("The fairing is dropped when the dynamic "
+                                                   "pressure falls below this value after max-Q. "
+                                                   "Replaces an altitude rule"),
+                                                 SW_N_FIELDS, SW_LIMIT_FAIRING_DYNAMIC_PRESSURE,
+                                                 0, 10.0, NULL);
+  sw_number_field_set_optional (self->fairing_pressure_field, TRUE, _("not this rule"));
+  g_signal_connect (self->fairing_pressure_field, "value-committed",
+                    G_CALLBACK (fairing_rule_cb), self);
+  self->pitch_over_field = add_number_row (self, grid, row++, _("Pitch-o_ver speed"),
+                                           _("Speed relative to the air at which the vertical "
+                                             "rise ends and the pitch-over begins"),
+                                           SW_FIELD_PITCH_OVER_SPEED, 0, 0, 1.0, "50");
+  self->pitch_kick_field = add_number_row (self, grid, row++, _("Pitch _kick"),
+                                           _("Tilt of the thrust at the pitch-over; left empty, "
+                                             "the solver picks the one that costs least delta-v"),
+                                           SW_FIELD_PITCH_KICK, 0, 2, 0.1, _("automatic"));
+  self->insertion_field = add_number_row (self, grid, row++, _("In_sertion altitude"),
+                                          _("Perigee of a transfer orbit up to the target, "
+                                            "circularised at apogee; left empty, direct "
+                                            "insertion"), SW_FIELD_INSERTION_ALTITUDE, 0, 0,
+                                          10.0, _("direct"));
+  gtk_box_append (GTK_BOX (box), GTK_WIDGET (grid));
+}
+
+static gboolean
+focus_within (GtkWidget *widget)
+{
+  GtkRoot *root = gtk_widget_get_root (widget);
+  GtkWidget *focus = root != NULL ? gtk_root_get_focus (root) : NULL;
+
+  return focus != NULL && (focus == widget || gtk_widget_is_ancestor (focus, widget));
+}
+
+static void
+update_extra_stage_fields (SwInspector *self, const SwDesign *d, guint i, gboolean reset)
+{
+  const SwStage *s = &d->stages[i];
+  void (*show) (SwNumberField *, double) = reset ? sw_number_field_reset : sw_number_field_set_value;
+  double v;
+  g_autofree char *drag = sw_design_dup_drag_text (d, i, decimal_mark ());
+
+  show (self->thrust_field, s->propulsion.has_thrust ? s->propulsion.thrust_vac_kn : NAN);
+  {
+    /* Given per engine, the total it makes shows as the placeholder. */
+    double total = sw_stage_thrust_vac_n (&s->propulsion, s->reliability.has_engine_count
+                                                          ? s->reliability.engine_count : 1);
+    g_autofree char *num = isfinite (total) ? sw_format_number (total / 1000.0, 1) : NULL;
+    /* Translators: placeholder of the total thrust when it is given per engine */
+    g_autofree char *from = num != NULL ? g_strdup_printf (_("%s from the engines"), num) : NULL;
+    sw_number_field_set_optional (self->thrust_field, TRUE,
+                                  s->propulsion.has_engine_thrust ? from : _("not given"));
+  }
+  show (self->engine_thrust_field,
+        s->propulsion.has_engine_thrust ? s->propulsion.engine_thrust_vac_kn : NAN);
+  show (self->engine_count_field,
+        sw_design_field_get (d, SW_FIELD_ENGINE_COUNT, i, &v) ? v : NAN);
+  show (self->tw_field, sw_design_ignition_tw (d, i));
+  show (self->diameter_field, sw_design_field_get (d, SW_FIELD_DIAMETER, i, &v) ? v : NAN);
+  show (self->coast_field, sw_design_field_get (d, SW_FIELD_COAST, i, &v) ? v : NAN);
+  gtk_widget_set_sensitive (GTK_WIDGET (self->coast_field), i > 0);
+  show (self->engine_rel_field,
+        sw_design_field_get (d, SW_FIELD_ENGINE_RELIABILITY, i, &v) ? v : NAN);
+  show (self->failures_field,
+        sw_design_field_get (d, SW_FIELD_FAILURES_TOLERATED, i, &v) ? v : NAN);
+  show (self->ignition_rel_field,
+        sw_design_field_get (d, SW_FIELD_IGNITION_RELIABILITY, i, &v) ? v : NAN);
+  show (self->separation_rel_field,
+        sw_design_field_get (d, SW_FIELD_SEPARATION_RELIABILITY, i, &v) ? v : NAN);
+  if ((reset || gtk_widget_get_visible (GTK_WIDGET (self->drag_message)) == FALSE)
+      && g_strcmp0 (gtk_editable_get_text (GTK_EDITABLE (self->drag_entry)), drag) != 0
+      && (reset || !focus_within (GTK_WIDGET (self->drag_entry))))
+    {
+      gtk_editable_set_text (GTK_EDITABLE (self->drag_entry), drag);
+      show_drag_error (self, NULL);
+    }
+}
+
+static void
+update_design_extra (SwInspector *self, const SwDesign *d)
+{
+  const SwDesignAscent *a = &d->ascent;
+  g_autofree char *notes = NULL;
+  GtkTextBuffer *buffer = gtk_text_view_get_buffer (self->notes_view);
+  GtkTextIter start, end;
+  gboolean orbit = d->mission.kind == SW_MISSION_ORBIT;
+
+  gtk_text_buffer_get_bounds (buffer, &start, &end);
+  notes = gtk_text_buffer_get_text (buffer, &start, &end, FALSE);
+  if (g_strcmp0 (notes, d->notes != NULL ? d->notes : "") != 0)
+    gtk_text_buffer_set_text (buffer, d->notes != NULL ? d->notes : "", -1);
+
+  gtk_widget_set_visible (self->loss_model_label, orbit);
+  gtk_widget_set_visible (GTK_WIDGET (self->loss_model_dropdown), orbit);
+  gtk_drop_down_set_selected (self->loss_model_dropdown,
+                              d->mission.loss_model == SW_LOSS_SIMULATE ? 1 : 0);
+
+  sw_number_field_set_value (self->fairing_mass_field,
+                             a->has_fairing_mass ? a->fairing_mass_kg : NAN);
+  sw_number_field_set_value (self->fairing_altitude_field,
+                             a->has_fairing_altitude ? a->fairing_jettison_altitude_km : NAN);
+  sw_number_field_set_value (self->fairing_pressure_field,
+                             a->has_fairing_pressure ? a->fairing_jettison_dynamic_pressure_pa
+                                                     : NAN);
+  sw_number_field_set_value (self->pitch_over_field,
+                             a->has_pitch_over_speed ? a->pitch_over_speed_m_s : NAN);
+  sw_number_field_set_value (self->pitch_kick_field, a->has_pitch_kick ? a->pitch_kick_deg : NAN);
+  sw_number_field_set_value (self->insertion_field,
+                             a->has_insertion_altitude ? a->insertion_altitude_km : NAN);
+}
+
 /* ---- stage list actions ------------------------------------------------ */
 
 static void
@@ -667,6 +1310,10 @@ stage_add_action (GtkWidget *widget, const char *name, GVariant *param)
   n = d->n_stages;
   if (!sw_design_add_stage (d))
     return;
+  /* Thrust from a common-practice thrust-to-weight at ignition, so the
+   * ascent can be simulated; the T/W field changes it.  A vehicle that
+   * cannot be sized yet gets none. */
+  sw_design_set_thrust_for_tw (d, n, sw_default_ignition_tw (n), NULL);
   commit (self, g_steal_pointer (&d), NULL);
   sw_inspector_set_selected (self, (int) n);
 }
@@ -752,7 +1399,11 @@ sw_inspector_set_document (SwInspector *self, SwDocument *document)
     g_signal_handlers_disconnect_by_func (self->document, document_changed_cb, self);
   g_set_object (&self->document, document);
   if (document != NULL)
-    g_signal_connect_swapped (document, "changed", G_CALLBACK (document_changed_cb), self);
+    {
+      g_signal_connect_swapped (document, "changed", G_CALLBACK (document_changed_cb), self);
+      g_signal_connect_swapped (document, "notify::file", G_CALLBACK (document_changed_cb),
+                                self);
+    }
   refresh (self);
 }
 
@@ -791,11 +1442,26 @@ sw_inspector_set_selected (SwInspector *self, int stage)
       if (stage >= 0 && (guint) stage < self->listed_stages)
         gtk_list_box_select_row (self->stage_list,
                                  gtk_list_box_get_row_at_index (self->stage_list, stage));
+      /* Another stage: text being edited or an error belongs to the old one. */
+      sw_number_field_reset (self->isp_vac_spin, NAN);
+      sw_number_field_reset (self->isp_sl_spin, NAN);
+      sw_number_field_reset (self->eps_spin, NAN);
+      sw_number_field_reset (self->share_spin, NAN);
+      self->isp_conflict = FALSE;
+      if (stage >= 0 && (guint) stage < design (self)->n_stages)
+        update_extra_stage_fields (self, design (self), (guint) stage, TRUE);
       update_stage_fields (self);
       update_actions (self);
       self->updating--;
     }
   g_object_notify_by_pspec (G_OBJECT (self), properties[PROP_SELECTED_STAGE]);
+}
+
+void
+sw_inspector_set_intro (SwInspector *self, gboolean shown)
+{
+  g_return_if_fail (SW_IS_INSPECTOR (self));
+  gtk_widget_set_visible (self->intro_box, shown);
 }
 
 int
@@ -828,6 +1494,27 @@ sw_inspector_get_field (SwInspector *self, SwInspectorField field)
     case SW_INSPECTOR_EPS: return GTK_WIDGET (self->eps_spin);
     case SW_INSPECTOR_SHARE: return GTK_WIDGET (self->share_spin);
     case SW_INSPECTOR_SHARE_SCALE: return GTK_WIDGET (self->share_scale);
+    case SW_INSPECTOR_NOTES: return GTK_WIDGET (self->notes_view);
+    case SW_INSPECTOR_INTRO: return self->intro_box;
+    case SW_INSPECTOR_LOSS_MODEL: return GTK_WIDGET (self->loss_model_dropdown);
+    case SW_INSPECTOR_THRUST: return GTK_WIDGET (self->thrust_field);
+    case SW_INSPECTOR_ENGINE_THRUST: return GTK_WIDGET (self->engine_thrust_field);
+    case SW_INSPECTOR_ENGINE_COUNT: return GTK_WIDGET (self->engine_count_field);
+    case SW_INSPECTOR_TW: return GTK_WIDGET (self->tw_field);
+    case SW_INSPECTOR_DIAMETER: return GTK_WIDGET (self->diameter_field);
+    case SW_INSPECTOR_COAST: return GTK_WIDGET (self->coast_field);
+    case SW_INSPECTOR_DRAG: return GTK_WIDGET (self->drag_entry);
+    case SW_INSPECTOR_ENGINE_RELIABILITY: return GTK_WIDGET (self->engine_rel_field);
+    case SW_INSPECTOR_FAILURES_TOLERATED: return GTK_WIDGET (self->failures_field);
+    case SW_INSPECTOR_IGNITION_RELIABILITY: return GTK_WIDGET (self->ignition_rel_field);
+    case SW_INSPECTOR_SEPARATION_RELIABILITY: return GTK_WIDGET (self->separation_rel_field);
+    case SW_INSPECTOR_FAIRING_MASS: return GTK_WIDGET (self->fairing_mass_field);
+    case SW_INSPECTOR_FAIRING_ALTITUDE: return GTK_WIDGET (self->fairing_altitude_field);
+    case SW_INSPECTOR_FAIRING_PRESSURE: return GTK_WIDGET (self->fairing_pressure_field);
+    case SW_INSPECTOR_PITCH_OVER_SPEED: return GTK_WIDGET (self->pitch_over_field);
+    case SW_INSPECTOR_PITCH_KICK: return GTK_WIDGET (self->pitch_kick_field);
+    case SW_INSPECTOR_INSERTION_ALTITUDE: return GTK_WIDGET (self->insertion_field);
+    case SW_INSPECTOR_N_FIELDS:
     default: return NULL;
     }
 }
@@ -918,6 +1605,7 @@ sw_inspector_class_init (SwInspectorClass *klass)
                         G_PARAM_READWRITE | G_PARAM_EXPLICIT_NOTIFY | G_PARAM_STATIC_STRINGS);
   g_object_class_install_properties (object_class, N_PROPS, properties);
 
+  g_type_ensure (SW_TYPE_NUMBER_FIELD);
   gtk_widget_class_set_template_from_resource (widget_class,
                                                "/org/stagewright/Stagewright/sw-inspector.ui");
   gtk_widget_class_set_layout_manager_type (widget_class, GTK_TYPE_BIN_LAYOUT);
@@ -965,6 +1653,7 @@ sw_inspector_class_init (SwInspectorClass *klass)
   CHILD (share_spin);
   CHILD (share_scale);
   CHILD (share_adjustment);
+  CHILD (content_box);
 #undef CHILD
 
   gtk_widget_class_bind_template_callback (widget_class, name_changed_cb);
@@ -984,6 +1673,7 @@ sw_inspector_class_init (SwInspectorClass *klass)
   gtk_widget_class_bind_template_callback (widget_class, eps_form_changed_cb);
   gtk_widget_class_bind_template_callback (widget_class, eps_changed_cb);
   gtk_widget_class_bind_template_callback (widget_class, share_changed_cb);
+  gtk_widget_class_bind_template_callback (widget_class, share_field_cb);
 
   gtk_widget_class_install_action (widget_class, "stage.add", NULL, stage_add_action);
   gtk_widget_class_install_action (widget_class, "stage.duplicate", NULL, stage_duplicate_action);
@@ -1000,22 +1690,40 @@ sw_inspector_init (SwInspector *self)
   self->eps_form = SW_EPS_COEFFICIENT;
   gtk_widget_init_template (GTK_WIDGET (self));
 
-  setup_spin (self->payload_spin, self->payload_unit, SW_LIMIT_PAYLOAD, 1, 10.0, 1000.0);
-  setup_spin (self->delta_v_spin, self->delta_v_unit, SW_LIMIT_DELTA_V, 0, 10.0, 100.0);
-  setup_spin (self->altitude_spin, self->altitude_unit, SW_LIMIT_ALTITUDE, 0, 10.0, 100.0);
-  setup_spin (self->inclination_spin, self->inclination_unit, SW_LIMIT_INCLINATION, 1, 0.1, 1.0);
-  setup_spin (self->latitude_spin, self->latitude_unit, SW_LIMIT_SITE_LATITUDE, 1, 0.1, 1.0);
-  setup_spin (self->losses_spin, self->losses_unit, SW_LIMIT_LOSSES, 0, 10.0, 100.0);
-  setup_spin (self->isp_vac_spin, self->isp_vac_unit, SW_LIMIT_ISP_VAC, 1, 1.0, 10.0);
-  setup_spin (self->isp_sl_spin, self->isp_sl_unit, SW_LIMIT_ISP_SL, 1, 1.0, 10.0);
-  setup_spin (self->eps_spin, self->eps_unit, SW_LIMIT_STRUCTURAL_COEFFICIENT, 4, 0.001, 0.01);
-  gtk_editable_set_enable_undo (GTK_EDITABLE (self->share_spin), FALSE);
-  gtk_editable_set_width_chars (GTK_EDITABLE (self->share_spin), 9);
+  setup_field (self->payload_spin, self->payload_unit, SW_LIMIT_PAYLOAD, 1, 10.0);
+  setup_field (self->delta_v_spin, self->delta_v_unit, SW_LIMIT_DELTA_V, 0, 10.0);
+  setup_field (self->altitude_spin, self->altitude_unit, SW_LIMIT_ALTITUDE, 0, 10.0);
+  setup_field (self->inclination_spin, self->inclination_unit, SW_LIMIT_INCLINATION, 1, 0.1);
+  setup_field (self->latitude_spin, self->latitude_unit, SW_LIMIT_SITE_LATITUDE, 1, 0.1);
+  setup_field (self->losses_spin, self->losses_unit, SW_LIMIT_LOSSES, 0, 10.0);
+  sw_number_field_set_optional (self->losses_spin, TRUE, _("none"));
+  setup_field (self->isp_vac_spin, self->isp_vac_unit, SW_LIMIT_ISP_VAC, 1, 1.0);
+  setup_field (self->isp_sl_spin, self->isp_sl_unit, SW_LIMIT_ISP_SL, 1, 1.0);
+  setup_field (self->eps_spin, self->eps_unit, SW_LIMIT_STRUCTURAL_COEFFICIENT, 4, 0.001);
+  sw_number_field_set_limit (self->share_spin, SW_LIMIT_DELTA_V_SHARE, 100.0, 1, 0.5);
   {
     const SwLimit *l = sw_limit_get (SW_LIMIT_DELTA_V_SHARE);
     gtk_adjustment_set_lower (self->share_adjustment, l->min * 100.0);
     gtk_adjustment_set_upper (self->share_adjustment, l->max * 100.0);
   }
+  /* Captions and units stay beside the entry when an error shows under it. */
+  {
+    GtkWidget *grids[] = { gtk_widget_get_parent (GTK_WIDGET (self->payload_spin)),
+                           self->stage_grid };
+    for (guint g = 0; g < G_N_ELEMENTS (grids); g++)
+      for (GtkWidget *c = gtk_widget_get_first_child (grids[g]); c != NULL;
+           c = gtk_widget_get_next_sibling (c))
+        if (GTK_IS_LABEL (c) || GTK_IS_CHECK_BUTTON (c))
+          {
+            gtk_widget_set_valign (c, GTK_ALIGN_START);
+            gtk_widget_set_margin_top (c, GTK_IS_LABEL (c) ? 8 : 4);
+          }
+  }
+  build_sections (self);
+  no_wheel_on_scale (GTK_WIDGET (self->share_scale));
+  route_undo (GTK_WIDGET (self->name_entry));
+  route_undo (GTK_WIDGET (self->stage_name_entry));
+  route_undo (GTK_WIDGET (self->drag_entry));
   configure_eps_spin (self);
 
   update_actions (self);

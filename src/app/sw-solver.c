@@ -104,6 +104,19 @@ deliver_cb (gpointer data)
 
   if (self == NULL || result_rank (d->result) <= self->shown)
     return G_SOURCE_REMOVE;
+  /* A slow phase (Monte Carlo, ascent) of an edit that a newer one has
+   * already replaced would show stale figures until the newer edit's own
+   * arrives: drop it.  Fast results are always shown. */
+  if (d->result->phase > 0 && d->result->serial < self->serial)
+    {
+      if (d->result->phase == 2)
+        {
+          g_mutex_lock (&d->shared->mutex);
+          d->shared->ascents_cancelled++;
+          g_mutex_unlock (&d->shared->mutex);
+        }
+      return G_SOURCE_REMOVE;
+    }
   self->shown = result_rank (d->result);
   g_clear_pointer (&self->result, sw_analysis_unref);
   self->result = sw_analysis_ref (d->result);
@@ -175,6 +188,13 @@ solve_ascent (Shared *sh, SwAnalysis *fast, GCancellable *cancellable)
   sh->ascents_started++;
   g_mutex_unlock (&sh->mutex);
   result = sw_analysis_add_ascent (fast, cancellable);
+  /* An ascent that ended just as a newer edit came is stale: drop it, as if
+   * the cancellation had caught it. */
+  g_mutex_lock (&sh->mutex);
+  superseded = sh->pending != NULL || sh->quit;
+  g_mutex_unlock (&sh->mutex);
+  if (superseded)
+    g_clear_pointer (&result, sw_analysis_unref);
   if (result != NULL)
     deliver (sh, result);
   else

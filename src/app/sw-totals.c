@@ -19,7 +19,10 @@ struct _SwTotals {
   GtkInscription *margin_label;
   GtkInscription *required_label;
   GtkInscription *limit_label;
-  GtkStack  *status_stack;
+  GtkWidget *status_box;
+  GtkImage  *status_icon;
+  GtkLabel  *status_label;
+  const char *status_page;     /* "ok", "note", "warn" or "bad" */
   GtkWidget *ascent_note_box;
   GtkLabel  *ascent_note_label;
   GtkWidget *ascent_warning_box;
@@ -32,16 +35,33 @@ struct _SwTotals {
 
 G_DEFINE_FINAL_TYPE (SwTotals, sw_totals, GTK_TYPE_WIDGET)
 
-/* One page per state, each with its fixed icon and style. */
+/* The state's icon and style ("ok", "note", "warn", "bad"), and the text. */
 static void
 set_status (SwTotals *self, const char *page, const char *text)
 {
-  GtkLabel *label = GTK_LABEL (gtk_widget_get_last_child (
-    gtk_stack_get_child_by_name (self->status_stack, page)));
+  static const struct { const char *page, *icon; } icons[] = {
+    { "ok", "object-select-symbolic" },
+    { "note", "dialog-information-symbolic" },
+    { "warn", "dialog-warning-symbolic" },
+    { "bad", "dialog-error-symbolic" },
+  };
 
-  if (g_strcmp0 (gtk_label_get_text (label), text) != 0)
-    gtk_label_set_text (label, text);
-  gtk_stack_set_visible_child_name (self->status_stack, page);
+  if (g_strcmp0 (gtk_label_get_text (self->status_label), text) != 0)
+    gtk_label_set_text (self->status_label, text);
+  if (g_strcmp0 (self->status_page, page) == 0)
+    return;
+  for (guint i = 0; i < G_N_ELEMENTS (icons); i++)
+    {
+      g_autofree char *css = g_strconcat ("sw-status-", icons[i].page, NULL);
+      if (g_str_equal (icons[i].page, page))
+        {
+          self->status_page = icons[i].page;
+          gtk_image_set_from_icon_name (self->status_icon, icons[i].icon);
+          gtk_widget_add_css_class (self->status_box, css);
+        }
+      else
+        gtk_widget_remove_css_class (self->status_box, css);
+    }
 }
 
 char *
@@ -263,10 +283,9 @@ sw_totals_get_text (SwTotals *self, SwTotalsField field)
     case SW_TOTALS_REQUIRED: return gtk_inscription_get_text (self->required_label);
     case SW_TOTALS_LIMIT: return gtk_inscription_get_text (self->limit_label);
     case SW_TOTALS_STATUS_PAGE:
-      return gtk_stack_get_visible_child_name (self->status_stack);
+      return self->status_page;
     case SW_TOTALS_STATUS:
-      return gtk_label_get_text (GTK_LABEL (gtk_widget_get_last_child (
-        gtk_stack_get_visible_child (self->status_stack))));
+      return gtk_label_get_text (self->status_label);
     case SW_TOTALS_ASCENT_NOTE:
       return gtk_widget_get_visible (self->ascent_note_box)
              ? gtk_label_get_text (self->ascent_note_label) : NULL;
@@ -314,7 +333,9 @@ sw_totals_class_init (SwTotalsClass *klass)
   gtk_widget_class_bind_template_child (widget_class, SwTotals, margin_label);
   gtk_widget_class_bind_template_child (widget_class, SwTotals, required_label);
   gtk_widget_class_bind_template_child (widget_class, SwTotals, limit_label);
-  gtk_widget_class_bind_template_child (widget_class, SwTotals, status_stack);
+  gtk_widget_class_bind_template_child (widget_class, SwTotals, status_box);
+  gtk_widget_class_bind_template_child (widget_class, SwTotals, status_icon);
+  gtk_widget_class_bind_template_child (widget_class, SwTotals, status_label);
   gtk_widget_class_bind_template_child (widget_class, SwTotals, ascent_note_box);
   gtk_widget_class_bind_template_child (widget_class, SwTotals, ascent_note_label);
   gtk_widget_class_bind_template_child (widget_class, SwTotals, ascent_warning_box);

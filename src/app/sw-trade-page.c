@@ -5,7 +5,7 @@
 
 #include "sw-trade-page.h"
 
-#include "sw-design-edit.h"
+#include "sw-design-fields.h"
 #include "sw-format.h"
 #include "sw-limits.h"
 #include "sw-trade-plots.h"
@@ -183,7 +183,11 @@ samples_changed_cb (SwTradePage *self)
       sw_design_free (d);
       return;
     }
-  sw_design_set_mc_samples (d, samples);
+  if (!sw_design_field_set (d, SW_FIELD_MC_SAMPLES, 0, samples, NULL))
+    {
+      sw_design_free (d);
+      return;
+    }
   commit (self, d, "trade:samples");
 }
 
@@ -203,7 +207,11 @@ seed_changed_cb (SwTradePage *self)
       sw_design_free (d);
       return;
     }
-  sw_design_set_mc_seed (d, seed);
+  if (!sw_design_field_set (d, SW_FIELD_MC_SEED, 0, seed, NULL))
+    {
+      sw_design_free (d);
+      return;
+    }
   commit (self, d, "trade:seed");
 }
 
@@ -241,7 +249,13 @@ spread_changed_cb (SwTradePage *self)
   read_spread (self->eps_kind, self->eps_width, &eps, 5.0);
   read_spread (self->losses_kind, self->losses_width, &losses, 100.0);
   self->updating--;
-  sw_design_set_spreads (d, &isp, &eps, &losses);
+  if (!sw_design_set_spread (d, 0, isp.kind, isp.width, NULL)
+      || !sw_design_set_spread (d, 1, eps.kind, eps.width, NULL)
+      || !sw_design_set_spread (d, 2, losses.kind, losses.width, NULL))
+    {
+      sw_design_free (d);
+      return;
+    }
   commit (self, d, "trade:spreads");
 }
 

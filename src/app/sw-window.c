@@ -11,6 +11,7 @@
 #include "sw-export-dialog.h"
 #include "sw-format.h"
 #include "sw-recovery.h"
+#include "sw-staging-page.h"
 #include "sw-trade-page.h"
 #include "sw-trade-plots.h"
 #include "sw-window-private.h"
@@ -66,6 +67,7 @@ struct _SwWindow {
   SwWorkingView  *working_view;
   SwAscentPage   *ascent_page;
   SwTradePage    *trade_page;
+  SwStagingPage  *staging_page;
   SwExportDialog *export_dialog;       /* weak, while open */
   GMenu          *recent_menu;
 };
@@ -164,6 +166,7 @@ solved_cb (SwWindow *self, SwAnalysis *result)
   sw_working_view_set_result (self->working_view, result);
   sw_ascent_page_set_result (self->ascent_page, result);
   sw_trade_page_set_result (self->trade_page, result);
+  sw_staging_page_set_result (self->staging_page, result);
   if (self->export_dialog != NULL)
     sw_export_dialog_set_result (self->export_dialog, result);
   sw_trade_plots_show_stage_count (self->stage_count_plot, result);
@@ -400,6 +403,7 @@ load_file (SwWindow *self, GFile *file, gboolean as_copy)
     sw_document_reset (self->document, sw_document_dup_design (self->document), NULL, FALSE);
   else
     remember_file (self, file);
+  sw_inspector_set_intro (self->inspector, as_copy);
   sw_inspector_set_selected (self->inspector, 0);
   return TRUE;
 }
@@ -461,6 +465,7 @@ static void
 new_design (SwWindow *self)
 {
   sw_document_reset (self->document, sw_design_new_default (), NULL, FALSE);
+  sw_inspector_set_intro (self->inspector, FALSE);
   hide_message (self);
   sw_inspector_set_selected (self->inspector, 0);
 }
@@ -839,7 +844,12 @@ select_stage_cb (GtkWidget *widget, GVariant *args, gpointer user_data)
 {
   SwWindow *self = SW_WINDOW (widget);
   int sel = sw_inspector_get_selected (self->inspector) + g_variant_get_int32 (args);
+  GtkWidget *focus = gtk_root_get_focus (GTK_ROOT (self));
 
+  /* Not while typing in a field: the key belongs to the field, and a new
+   * stage must not replace what is being typed. */
+  if (focus != NULL && (GTK_IS_EDITABLE (focus) || GTK_IS_TEXT_VIEW (focus)))
+    return FALSE;
   if (sel < 0 || (guint) sel >= sw_document_get_design (self->document)->n_stages)
     return FALSE;
   sw_inspector_set_selected (self->inspector, sel);
@@ -910,6 +920,8 @@ sw_window_show_page (SwWindow *self, const char *name)
     page = GTK_WIDGET (self->working_view);
   else if (g_strcmp0 (name, "trade") == 0)
     page = GTK_WIDGET (self->trade_page);
+  else if (g_strcmp0 (name, "staging") == 0)
+    page = GTK_WIDGET (self->staging_page);
   else if (g_strcmp0 (name, "curves") == 0)
     page = gtk_notebook_get_nth_page (self->notebook, 0);
   if (page == NULL || gtk_notebook_page_num (self->notebook, page) < 0)
@@ -1183,6 +1195,9 @@ sw_window_init (SwWindow *self)
   g_signal_connect_swapped (self->solver, "solved", G_CALLBACK (solved_cb), self);
   sw_inspector_set_document (self->inspector, self->document);
   sw_trade_page_set_document (self->trade_page, self->document);
+  self->staging_page = SW_STAGING_PAGE (sw_staging_page_new ());
+  gtk_notebook_append_page (self->notebook, GTK_WIDGET (self->staging_page),
+                            gtk_label_new_with_mnemonic (_("Stagin_g decision")));
   {
     SwAnalysisOptions options;
     sw_solver_get_options (self->solver, &options);

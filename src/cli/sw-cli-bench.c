@@ -61,7 +61,7 @@ sw_cli_bench (int argc, char **argv)
   enum { BATCHES = 101, PER_BATCH = 2000, UPDATES = 201 };
   double samples[BATCHES], updates[UPDATES];
   double optimal_ns, live_us, dv, sensitivity_us = 0.0, montecarlo_ms = 0.0;
-  double ascent_ms = NAN, loop_ms = NAN, mc_sim_s = NAN;
+  double ascent_ms = NAN, loop_ms = NAN, mc_sim_s = NAN, carpet_ms;
   guint mc_sim_threads = 0;
   g_autofree char *ascent_design = NULL;
   guint mc_threads = 1;
@@ -195,6 +195,7 @@ sw_cli_bench (int argc, char **argv)
       }
   }
 
+  carpet_ms = sw_cli_bench_carpet_ms (d);
   if (opt_json)
     {
       g_autoptr (JsonBuilder) b = json_builder_new_immutable ();
@@ -219,6 +220,7 @@ sw_cli_bench (int argc, char **argv)
       sw_cli_add_number (b, "montecarlo_simulated_1k_s", mc_sim_s);
       json_builder_set_member_name (b, "montecarlo_simulated_threads");
       json_builder_add_int_value (b, mc_sim_threads);
+      sw_cli_add_number (b, "carpet_50x50_ms", carpet_ms);
       json_builder_end_object (b);
       node = json_builder_get_root (b);
       sw_cli_print_json (node);
@@ -245,6 +247,7 @@ sw_cli_bench (int argc, char **argv)
         g_print ("closed sizing-losses loop    %10s ms median  (target <= 50 ms)\n", l);
         g_print ("Monte Carlo, simulated, 1,000 %9s s         on %u thread(s) "
                  "(target <= 5 s on 2 cores)\n", m, mc_sim_threads);
+        g_print ("carpet, 50 x 50 sizings      %10.2f ms median  (target <= 50 ms)\n", carpet_ms);
       }
     }
   return SW_EXIT_OK;

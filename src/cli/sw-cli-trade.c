@@ -449,9 +449,13 @@ sw_cli_montecarlo (int argc, char **argv)
       g_autofree char *resm = sw_format_mass (mc.reserve_95_kg);
       g_print (_("  required %s kg; reserve for 95 %% confidence: %s kg\n"),
                sw_cli_num (mc.required_payload_kg, 1), res);
-      g_print (_("Built as sized, with no payload reserve, the vehicle carries the whole payload "
-                 "in %s of cases; holding back %s of payload capacity raises that to 95 %%.\n"),
-               chance, resm);
+      if (a->montecarlo_success >= 0.95)
+        g_print (_("Built as sized, with no payload reserve, the vehicle carries the whole "
+                   "payload in %s of cases: no reserve is needed for 95 %%.\n"), chance);
+      else
+        g_print (_("Built as sized, with no payload reserve, the vehicle carries the whole "
+                   "payload in %s of cases; holding back %s of payload capacity raises that "
+                   "to 95 %%.\n"), chance, resm);
     }
   else
     g_print (_("The nominal design is infeasible: no fixed vehicle to test.\n"));

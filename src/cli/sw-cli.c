@@ -34,6 +34,10 @@ static const SwCliCommand commands[] = {
     sw_cli_ascent },
   { "atmosphere", "ALTITUDE_M", N_("1976 U.S. Standard Atmosphere at a geometric altitude"),
     sw_cli_atmosphere },
+  { "stages", "FILE", N_("The staging decision: mass, cost, reliability and reuse for 1 to 6 stages"),
+    sw_cli_stages },
+  { "carpet", "FILE", N_("A carpet grid of liftoff mass, payload or cost over two inputs"),
+    sw_cli_carpet },
   { "bench", "[FILE]", N_("Benchmark the sizing and a full live update"), sw_cli_bench },
 };
 

@@ -69,5 +69,9 @@ int sw_cli_reliability (int argc, char **argv);
 int sw_cli_export (int argc, char **argv);
 int sw_cli_ascent (int argc, char **argv);
 int sw_cli_atmosphere (int argc, char **argv);
+int sw_cli_stages (int argc, char **argv);
+int sw_cli_carpet (int argc, char **argv);
+/* Median time of a 50 x 50 carpet of optimal sizings, ms (sw-cli-staging.c). */
+double sw_cli_bench_carpet_ms (const SwDesign *design);
 
 G_END_DECLS

@@ -5,6 +5,7 @@
 
 #include "sw-csv.h"
 
+#include "sw-csv-staging.h"
 #include "sw-format.h"
 
 #include <errno.h>
@@ -221,6 +222,8 @@ sw_csv_export (const SwAnalysis *b, const char *dir, GPtrArray *written, GError 
     { "sensitivity.csv", sw_csv_tornado },
     { "reliability.csv", sw_csv_reliability },
     { "uncertainty-histogram.csv", sw_csv_histogram },
+    { "stage-decision.csv", sw_csv_staging_decision },
+    { "carpet.csv", sw_csv_carpet },
   };
 
   g_return_val_if_fail (b != NULL && dir != NULL, FALSE);

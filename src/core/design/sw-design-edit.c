@@ -278,49 +278,6 @@ sw_design_set_stage_name (SwDesign *design, guint index, const char *name)
   return TRUE;
 }
 
-void
-sw_design_set_payload (SwDesign *design, double payload_kg)
-{
-  g_return_if_fail (design != NULL);
-  design->payload_kg = payload_kg;
-}
-
-void
-sw_design_set_mission_delta_v (SwDesign *design, double delta_v_m_s)
-{
-  g_return_if_fail (design != NULL);
-  design->mission.delta_v_m_s = delta_v_m_s;
-}
-
-void
-sw_design_set_altitude (SwDesign *design, double altitude_km)
-{
-  g_return_if_fail (design != NULL);
-  design->mission.altitude_km = altitude_km;
-}
-
-void
-sw_design_set_inclination (SwDesign *design, double inclination_deg)
-{
-  g_return_if_fail (design != NULL);
-  design->mission.inclination_deg = inclination_deg;
-}
-
-void
-sw_design_set_site_latitude (SwDesign *design, double latitude_deg)
-{
-  g_return_if_fail (design != NULL);
-  design->mission.site_latitude_deg = latitude_deg;
-}
-
-void
-sw_design_set_losses (SwDesign *design, double losses_m_s)
-{
-  g_return_if_fail (design != NULL);
-  design->mission.losses_m_s = losses_m_s;
-  design->mission.has_losses = TRUE;
-}
-
 gboolean
 sw_design_set_mission_kind (SwDesign *design, SwMissionKind kind, double current_delta_v_m_s)
 {
@@ -348,22 +305,6 @@ sw_design_set_mission_kind (SwDesign *design, SwMissionKind kind, double current
 }
 
 gboolean
-sw_design_set_stage_isp_vac (SwDesign *design, guint index, double isp_vac_s)
-{
-  SwStage *s;
-
-  g_return_val_if_fail (design != NULL, FALSE);
-  if (index >= design->n_stages)
-    return FALSE;
-  s = &design->stages[index];
-  s->isp_vac_s = isp_vac_s;
-  /* The sea-level Isp can never exceed the vacuum Isp: it follows down. */
-  if (s->has_isp_sl && s->isp_sl_s > isp_vac_s)
-    s->isp_sl_s = isp_vac_s;
-  return TRUE;
-}
-
-gboolean
 sw_design_set_stage_has_isp_sl (SwDesign *design, guint index, gboolean has_isp_sl)
 {
   SwStage *s;
@@ -376,68 +317,6 @@ sw_design_set_stage_has_isp_sl (SwDesign *design, guint index, gboolean has_isp_
   if (s->has_isp_sl && !(s->isp_sl_s > 0.0 && s->isp_sl_s <= s->isp_vac_s))
     s->isp_sl_s = round (0.9 * s->isp_vac_s);  /* a starting value the user will edit */
   return TRUE;
-}
-
-gboolean
-sw_design_set_stage_isp_sl (SwDesign *design, guint index, double isp_sl_s)
-{
-  g_return_val_if_fail (design != NULL, FALSE);
-  if (index >= design->n_stages)
-    return FALSE;
-  design->stages[index].isp_sl_s = MIN (isp_sl_s, design->stages[index].isp_vac_s);
-  return TRUE;
-}
-
-gboolean
-sw_design_set_stage_structural_coefficient (SwDesign *design, guint index, double eps)
-{
-  const SwLimit *l = sw_limit_get (SW_LIMIT_STRUCTURAL_COEFFICIENT);
-
-  g_return_val_if_fail (design != NULL, FALSE);
-  if (index >= design->n_stages || isnan (eps))
-    return FALSE;
-  design->stages[index].structural_coefficient = CLAMP (eps, l->min, l->max);
-  return TRUE;
-}
-
-/* ---- the Monte Carlo inputs -------------------------------------------- */
-
-void
-sw_design_set_mc_samples (SwDesign *design, guint samples)
-{
-  g_return_if_fail (design != NULL);
-  design->uncertainty.present = TRUE;
-  design->uncertainty.has_samples = TRUE;
-  design->uncertainty.samples = samples;
-}
-
-void
-sw_design_set_mc_seed (SwDesign *design, guint32 seed)
-{
-  g_return_if_fail (design != NULL);
-  design->uncertainty.present = TRUE;
-  design->uncertainty.has_seed = TRUE;
-  design->uncertainty.seed = seed;
-}
-
-static void
-set_spread (SwSpread *dest, const SwSpread *src)
-{
-  if (src == NULL)
-    return;
-  dest->kind = src->kind;
-  dest->width = src->kind == SW_SPREAD_NONE ? 0.0 : src->width;
-}
-
-void
-sw_design_set_spreads (SwDesign *design, const SwSpread *isp,
-                       const SwSpread *structural_coefficient, const SwSpread *losses)
-{
-  g_return_if_fail (design != NULL);
-  design->uncertainty.present = TRUE;
-  set_spread (&design->uncertainty.isp, isp);
-  set_spread (&design->uncertainty.structural_coefficient, structural_coefficient);
-  set_spread (&design->uncertainty.losses, losses);
 }
 
 /* ---- the baseline ------------------------------------------------------ */

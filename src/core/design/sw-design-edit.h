@@ -1,8 +1,9 @@
 /* SPDX-License-Identifier: GPL-3.0-or-later */
-/* sw-design-edit.h: every edit the GUI makes to a design, as a named
- * operation on SwDesign.  The window and the inspector copy the document's
- * design, call one of these, and commit the copy; nothing else writes into a
- * design.
+/* sw-design-edit.h: the edits the GUI makes to a design that are more than
+ * one key: shares, split mode, the stage list, names, the mission kind, the
+ * baseline.  One key's number is set through sw-design-fields.h.  The
+ * window, the inspector and the trade page copy the document's design, call
+ * one of these, and commit the copy; nothing else writes into a design.
  *
  * Shares.  Under the manual split the stages' delta_v_share values add up to
  * 1; every operation here keeps that sum (to rounding, 1e-12) and keeps each
@@ -72,18 +73,13 @@ gboolean sw_design_move_stage (SwDesign *design, guint from, guint to);
 
 /* ---- fields ------------------------------------------------------------ */
 
+/* The numeric keys are edited through sw-design-fields.h (range-checked,
+ * one key each); these are the edits that are not one number. */
+
 /* Names are cut to whole UTF-8 characters that fit the buffer (127 bytes);
  * text that is not UTF-8 is refused (FALSE, name unchanged). */
 gboolean sw_design_set_name (SwDesign *design, const char *name);
 gboolean sw_design_set_stage_name (SwDesign *design, guint index, const char *name);
-
-void     sw_design_set_payload (SwDesign *design, double payload_kg);
-void     sw_design_set_mission_delta_v (SwDesign *design, double delta_v_m_s);
-void     sw_design_set_altitude (SwDesign *design, double altitude_km);
-void     sw_design_set_inclination (SwDesign *design, double inclination_deg);
-void     sw_design_set_site_latitude (SwDesign *design, double latitude_deg);
-/* Sets the losses allowance and marks it given. */
-void     sw_design_set_losses (SwDesign *design, double losses_m_s);
 
 /* Switches between a delta-v mission and an orbit mission.  A field the new
  * kind needs that holds no accepted value gets a starting value: the delta-v
@@ -94,28 +90,9 @@ void     sw_design_set_losses (SwDesign *design, double losses_m_s);
 gboolean sw_design_set_mission_kind (SwDesign *design, SwMissionKind kind,
                                      double current_delta_v_m_s);
 
-/* The vacuum Isp; a sea-level Isp above it follows it down. */
-gboolean sw_design_set_stage_isp_vac (SwDesign *design, guint index, double isp_vac_s);
 /* Gives or takes away the stage's sea-level Isp; given without an accepted
  * value (in (0, vacuum]) it starts at 0.9 of the vacuum Isp, rounded. */
 gboolean sw_design_set_stage_has_isp_sl (SwDesign *design, guint index, gboolean has_isp_sl);
-/* The sea-level Isp, at most the vacuum Isp. */
-gboolean sw_design_set_stage_isp_sl (SwDesign *design, guint index, double isp_sl_s);
-/* The structural coefficient, clamped to the limits table's range. */
-gboolean sw_design_set_stage_structural_coefficient (SwDesign *design, guint index, double eps);
-
-/* ---- the Monte Carlo inputs (the "uncertainty" object) ----------------- */
-
-/* Each marks the object given (it is saved from then on).  The sample count
- * and the seed are taken as they are: the loader's checks of their ranges
- * (sw_design_validate) stay in force. */
-void     sw_design_set_mc_samples (SwDesign *design, guint samples);
-void     sw_design_set_mc_seed (SwDesign *design, guint32 seed);
-/* The three spreads at once (NULL leaves one as it is); a spread of kind
- * SW_SPREAD_NONE is stored with width 0. */
-void     sw_design_set_spreads (SwDesign *design, const SwSpread *isp,
-                                const SwSpread *structural_coefficient,
-                                const SwSpread *losses);
 
 /* ---- the baseline ------------------------------------------------------ */
 

@@ -29,7 +29,8 @@ static const char *const stage_keys[] = {
 };
 /* The optional models add their own keys to the design and to each stage. */
 static const char *const *const root_key_lists[] = {
-  root_keys, sw_propulsion_design_keys, sw_uncertainty_design_keys, NULL
+  root_keys, sw_propulsion_design_keys, sw_uncertainty_design_keys, sw_economics_design_keys,
+  NULL
 };
 static const char *const *const stage_key_lists[] = {
   stage_keys, sw_propulsion_stage_keys, sw_reliability_stage_keys, NULL
@@ -44,6 +45,7 @@ sw_design_new (void)
   /* The state the loader gives a file without the optional object, so that
    * a new design equals itself after save and load. */
   sw_uncertainty_init (&d->uncertainty);
+  sw_economics_init (&d->economics);
   return d;
 }
 
@@ -452,7 +454,8 @@ load_design_object (JsonObject *root, const LoadContext *ctx, const char *prefix
   if (!sw_propulsion_load_design (root, ctx->file, &d->ascent, ctx->warnings, error))
     return NULL;
   if (!sw_uncertainty_load_design (root, ctx->file, prefix, &d->uncertainty, ctx->warnings,
-                                   error))
+                                   error)
+      || !sw_economics_load_design (root, ctx->file, prefix, &d->economics, ctx->warnings, error))
     return NULL;
 
   baseline = sw_optional_read_object_full (root, "baseline", ctx->file, prefix, FALSE, &ok, error);
@@ -729,6 +732,7 @@ validate_design (const SwDesign *d, const LoadContext *ctx, const char *prefix, 
     }
 
   if (!sw_uncertainty_validate (&d->uncertainty, ctx->file, prefix, error)
+      || !sw_economics_validate (&d->economics, d->n_stages, ctx->file, prefix, error)
       || !sw_propulsion_validate_design (&d->ascent, ctx->file, error))
     return FALSE;
 
@@ -831,6 +835,7 @@ build_design (JsonBuilder *b, const SwDesign *d, gboolean is_baseline)
 
   sw_propulsion_save_design (b, &d->ascent);
   sw_uncertainty_save_design (b, &d->uncertainty);
+  sw_economics_save_design (b, &d->economics);
 
   if (d->baseline != NULL && !is_baseline)
     {
@@ -850,6 +855,70 @@ sw_design_to_json (const SwDesign *design)
   return json_builder_get_root (b);
 }
 
+/* The shortest of %.15g, %.16g and %.17g that reads back as the same double:
+ * a file says 0.07, not the 0.070000000000000007 that "%.17g" writes. */
+static void
+append_shortest (GString *out, double value)
+{
+  char buf[G_ASCII_DTOSTR_BUF_SIZE];
+
+  for (int digits = 15; digits <= 17; digits++)
+    {
+      char format[8];
+
+      g_snprintf (format, sizeof format, "%%.%dg", digits);
+      g_ascii_formatd (buf, sizeof buf, format, value);
+      if (g_ascii_strtod (buf, NULL) == value)
+        break;
+    }
+  g_string_append (out, buf);
+}
+
+/* Rewrites every non-integer number of the generated JSON @text (outside
+ * strings) in its shortest exact form; integers stay as written. */
+static char *
+shorten_numbers (const char *text)
+{
+  GString *out = g_string_sized_new (strlen (text) + 1);
+  const char *p = text;
+
+  while (*p != '\0')
+    {
+      if (*p == '"')
+        {
+          const char *q = p + 1;
+          while (*q != '\0' && *q != '"')
+            q += (*q == '\\' && q[1] != '\0') ? 2 : 1;
+          if (*q == '"')
+            q++;
+          g_string_append_len (out, p, q - p);
+          p = q;
+        }
+      else if (*p == '-' || g_ascii_isdigit (*p))
+        {
+          const char *q = p + 1;
+          gboolean real = FALSE;
+          while (g_ascii_isdigit (*q) || *q == '.' || *q == 'e' || *q == 'E' || *q == '+'
+                 || *q == '-')
+            {
+              real = real || *q == '.' || *q == 'e' || *q == 'E';
+              q++;
+            }
+          if (real)
+            {
+              g_autofree char *token = g_strndup (p, q - p);
+              append_shortest (out, g_ascii_strtod (token, NULL));
+            }
+          else
+            g_string_append_len (out, p, q - p);
+          p = q;
+        }
+      else
+        g_string_append_c (out, *p++);
+    }
+  return g_string_free (out, FALSE);
+}
+
 char *
 sw_design_to_data (const SwDesign *design, gsize *length)
 {
@@ -863,7 +932,8 @@ sw_design_to_data (const SwDesign *design, gsize *length)
   text = json_generator_to_data (gen, NULL);
   /* End with a newline, as text files do. */
   {
-    char *out = g_strconcat (text, "\n", NULL);
+    g_autofree char *shortest = shorten_numbers (text);
+    char *out = g_strconcat (shortest, "\n", NULL);
     if (length != NULL)
       *length = strlen (out);
     return out;

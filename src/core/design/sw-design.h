@@ -8,6 +8,7 @@
 
 #include <json-glib/json-glib.h>
 
+#include "sw-economics.h"
 #include "sw-propulsion.h"
 #include "sw-stage-reliability.h"
 #include "sw-uncertainty.h"
@@ -53,6 +54,7 @@ struct _SwDesign {
   SwStage     stages[SW_MAX_STAGES];
   SwDesignAscent ascent;           /* optional design-level ascent keys */
   SwUncertainty uncertainty;       /* optional Monte Carlo spreads */
+  SwEconomics economics;           /* optional cost, reuse and decision keys */
   SwDesign   *baseline;            /* owned, may be NULL: a pinned earlier design */
 };
 

@@ -1,0 +1,111 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* sw-design-fields.h: one named edit per key of the design file, for the
+ * window's fields.  Each setter checks the value against the limits table
+ * (sw-limits.c) and against the keys it depends on, and on failure leaves
+ * the design as it was and returns an error that names the key's JSON path
+ * and the accepted range.  A setter never changes another key as a side
+ * effect: a conflict (a sea-level Isp above the vacuum Isp, more engine
+ * failures tolerated than engines) is an error, not a silent fix. */
+#pragma once
+
+#include "sw-design.h"
+#include "sw-limits.h"
+#include "sw-types.h"
+
+G_BEGIN_DECLS
+
+/* The numeric keys.  Keys of a stage take the stage's index. */
+typedef enum {
+  SW_FIELD_PAYLOAD,
+  SW_FIELD_DELTA_V,
+  SW_FIELD_ALTITUDE,
+  SW_FIELD_INCLINATION,
+  SW_FIELD_SITE_LATITUDE,
+  SW_FIELD_LOSSES,
+  /* per stage */
+  SW_FIELD_ISP_VAC,
+  SW_FIELD_ISP_SL,                    /* optional */
+  SW_FIELD_STRUCTURAL_COEFFICIENT,
+  SW_FIELD_THRUST_VAC,                /* optional */
+  SW_FIELD_ENGINE_THRUST_VAC,         /* optional */
+  SW_FIELD_DIAMETER,                  /* optional */
+  SW_FIELD_COAST,                     /* optional */
+  SW_FIELD_ENGINE_COUNT,              /* optional, whole */
+  SW_FIELD_ENGINE_RELIABILITY,        /* optional */
+  SW_FIELD_FAILURES_TOLERATED,        /* optional, whole */
+  SW_FIELD_IGNITION_RELIABILITY,      /* optional */
+  SW_FIELD_SEPARATION_RELIABILITY,    /* optional */
+  /* the "ascent" object */
+  SW_FIELD_FAIRING_MASS,              /* optional */
+  SW_FIELD_FAIRING_ALTITUDE,          /* optional */
+  SW_FIELD_FAIRING_PRESSURE,          /* optional */
+  SW_FIELD_PITCH_OVER_SPEED,          /* optional */
+  SW_FIELD_PITCH_KICK,                /* optional */
+  SW_FIELD_INSERTION_ALTITUDE,        /* optional */
+  /* the "uncertainty" object */
+  SW_FIELD_MC_SAMPLES,                /* optional, whole */
+  SW_FIELD_MC_SEED,                   /* optional, whole */
+  SW_N_FIELDS
+} SwDesignField;
+
+typedef struct {
+  const char *path;       /* JSON path, "%u" for the stage index */
+  SwLimitId   limit;
+  gboolean    per_stage;
+  gboolean    optional;   /* may be left out of the file */
+  gboolean    whole;      /* whole numbers only */
+} SwDesignFieldInfo;
+
+const SwDesignFieldInfo *sw_design_field_info (SwDesignField field);
+/* "stages[1].isp_vac_s", "payload_kg", ... */
+char     *sw_design_field_dup_path (SwDesignField field, guint stage);
+
+/* The value in the design; FALSE (and *value 0) when an optional key is
+ * left out. */
+gboolean  sw_design_field_get (const SwDesign *design, SwDesignField field, guint stage,
+                               double *value);
+/* Sets the key to @value.  FALSE, the design unchanged and @error set when
+ * @value is out of range, not whole where it must be, or conflicts with
+ * another key. */
+gboolean  sw_design_field_set (SwDesign *design, SwDesignField field, guint stage,
+                               double value, GError **error);
+/* Leaves an optional key out (the model's default applies).  FALSE with
+ * @error for a required key or when leaving it out conflicts. */
+gboolean  sw_design_field_unset (SwDesign *design, SwDesignField field, guint stage,
+                                 GError **error);
+
+/* Texts.  Name and stage name: at most SW_NAME_MAX - 1 bytes; notes: the
+ * notes limit.  Text that is too long is an error, never cut. */
+gboolean  sw_design_field_set_name (SwDesign *design, const char *name, GError **error);
+gboolean  sw_design_field_set_stage_name (SwDesign *design, guint stage, const char *name,
+                                    GError **error);
+gboolean  sw_design_set_notes_checked (SwDesign *design, const char *notes, GError **error);
+
+/* The stage's thrust as a total (thrust_vac_kn) or per engine
+ * (engine_thrust_vac_kn, with engine_count given), replacing the other
+ * form: the two are one quantity.  NAN leaves the thrust out. */
+gboolean  sw_design_set_thrust (SwDesign *design, guint stage, gboolean per_engine,
+                                double thrust_kn, GError **error);
+/* The fairing's jettison rule: an altitude (km) or, with @by_pressure, a
+ * dynamic pressure (Pa), replacing the other rule.  NAN leaves both out
+ * (refused while the fairing has mass). */
+gboolean  sw_design_set_fairing_rule (SwDesign *design, gboolean by_pressure, double value,
+                                      GError **error);
+
+/* "mission.loss_model": simulate needs an orbit mission. */
+gboolean  sw_design_set_loss_model (SwDesign *design, SwLossModel model, GError **error);
+
+/* A stage's drag table as text: "mach:cd" pairs separated by ';' or line
+ * breaks, a '.' or ',' as the decimal mark ("0:0.30; 1.1:0.55").  Empty
+ * text leaves the key out (the generic table). */
+gboolean  sw_design_set_drag_text (SwDesign *design, guint stage, const char *text,
+                                   GError **error);
+/* The table as such text with @decimal_mark ('.' or ','); "" for none. */
+char     *sw_design_dup_drag_text (const SwDesign *design, guint stage, char decimal_mark);
+
+/* One spread of the "uncertainty" object: @which 0 Isp, 1 structural
+ * coefficient, 2 losses.  Kind none takes width 0. */
+gboolean  sw_design_set_spread (SwDesign *design, guint which, SwSpreadKind kind,
+                                double width, GError **error);
+
+G_END_DECLS

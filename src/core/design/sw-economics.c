@@ -1,0 +1,581 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+#define G_LOG_DOMAIN "sw-economics"
+
+#include "config.h"
+
+#include "sw-economics.h"
+
+#include "sw-optional-keys.h"
+
+#include <glib/gi18n-lib.h>
+#include <math.h>
+#include <string.h>
+
+const char *const sw_economics_design_keys[] = { "economics", NULL };
+
+static const char *const economics_keys[] = {
+  "work_year_cost", "production_run", "learning_rate", "cost_coefficients", "engine_types",
+  "developed_stages", "engine_mass_fraction", "recovery", "decision_weights", NULL
+};
+static const char *const engine_keys[] = { "name", "dry_mass_kg", "on_stages", "developed", NULL };
+static const char *const recovery_keys[] = {
+  "mode", "recovery_delta_v_m_s", "landing_hardware_fraction", "refurbishment_fraction",
+  "flights_per_stage", NULL
+};
+static const char *const weight_keys[] = {
+  "liftoff_mass", "development", "cost_per_flight", "failure", NULL
+};
+
+/* The one table of cost coefficients.  The form a M^x, b M^y and f0 = 1.04^N
+ * is the published statistical model (Koelle, TRANSCOST 7.x/8.x, read in a
+ * secondary description); the numbers are from memory: check before relying. */
+static const SwCerInfo cer_table[SW_N_CER] = {
+  [SW_CER_STAGE_DEV_FACTOR] = { "stage_development_factor", 100.0,
+    N_("published form, value from memory"), SW_LIMIT_CER_STAGE_DEV_FACTOR },
+  [SW_CER_STAGE_DEV_EXPONENT] = { "stage_development_exponent", 0.555,
+    N_("published form, value from memory"), SW_LIMIT_CER_STAGE_DEV_EXPONENT },
+  [SW_CER_STAGE_UNIT_FACTOR] = { "stage_unit_factor", 1.265,
+    N_("published form, value from memory"), SW_LIMIT_CER_STAGE_UNIT_FACTOR },
+  [SW_CER_STAGE_UNIT_EXPONENT] = { "stage_unit_exponent", 0.59,
+    N_("published form, value from memory"), SW_LIMIT_CER_STAGE_UNIT_EXPONENT },
+  [SW_CER_ENGINE_DEV_FACTOR] = { "engine_development_factor", 277.0,
+    N_("published form, value from memory"), SW_LIMIT_CER_ENGINE_DEV_FACTOR },
+  [SW_CER_ENGINE_DEV_EXPONENT] = { "engine_development_exponent", 0.48,
+    N_("published form, value from memory"), SW_LIMIT_CER_ENGINE_DEV_EXPONENT },
+  [SW_CER_ENGINE_UNIT_FACTOR] = { "engine_unit_factor", 1.9,
+    N_("published form, value from memory"), SW_LIMIT_CER_ENGINE_UNIT_FACTOR },
+  [SW_CER_ENGINE_UNIT_EXPONENT] = { "engine_unit_exponent", 0.535,
+    N_("published form, value from memory"), SW_LIMIT_CER_ENGINE_UNIT_EXPONENT },
+  [SW_CER_SYSTEMS_BASE] = { "systems_factor_per_stage", 1.04,
+    N_("published form and value"), SW_LIMIT_CER_SYSTEMS_BASE },
+};
+
+const SwCerInfo *
+sw_cer_info (SwCerId id)
+{
+  g_return_val_if_fail (id < SW_N_CER, NULL);
+  return &cer_table[id];
+}
+
+void
+sw_economics_init (SwEconomics *econ)
+{
+  g_return_if_fail (econ != NULL);
+  memset (econ, 0, sizeof *econ);
+  econ->production_run = SW_ECONOMICS_DEFAULT_PRODUCTION_RUN;
+  /* Common practice for aerospace production: 0.85 to 0.95. */
+  econ->learning_rate = SW_ECONOMICS_DEFAULT_LEARNING_RATE;
+  for (guint i = 0; i < SW_N_CER; i++)
+    econ->coefficients[i] = cer_table[i].value;
+  econ->engine_mass_fraction = SW_ECONOMICS_DEFAULT_ENGINE_MASS_FRACTION;
+  econ->recovery_mode = SW_RECOVERY_NONE;
+  econ->landing_hardware_fraction = SW_ECONOMICS_DEFAULT_LANDING_HARDWARE;
+  econ->refurbishment_fraction = SW_ECONOMICS_DEFAULT_REFURBISHMENT;
+  econ->flights_per_stage = SW_ECONOMICS_DEFAULT_FLIGHTS;
+  econ->weight_liftoff_mass = econ->weight_development = 1.0;
+  econ->weight_cost_per_flight = econ->weight_failure = 1.0;
+}
+
+double
+sw_economics_recovery_delta_v (const SwEconomics *econ)
+{
+  g_return_val_if_fail (econ != NULL, NAN);
+  if (econ->has_recovery_delta_v)
+    return econ->recovery_delta_v_m_s;
+  switch (econ->recovery_mode)
+    {
+    case SW_RECOVERY_DOWNRANGE:
+      return SW_ECONOMICS_DEFAULT_DOWNRANGE_DELTA_V;
+    case SW_RECOVERY_LAUNCH_SITE:
+      return SW_ECONOMICS_DEFAULT_LAUNCH_SITE_DELTA_V;
+    case SW_RECOVERY_NONE:
+    default:
+      return 0.0;
+    }
+}
+
+int
+sw_economics_engine_type_of_stage (const SwEconomics *econ, guint stage)
+{
+  g_return_val_if_fail (econ != NULL, -1);
+  for (guint i = 0; i < econ->n_engine_types && i < SW_ECONOMICS_MAX_ENGINE_TYPES; i++)
+    if (stage < 32 && (econ->engine_types[i].stage_mask & (1u << stage)) != 0)
+      return (int) i;
+  return -1;
+}
+
+const char *
+sw_recovery_mode_to_string (SwRecoveryMode mode)
+{
+  switch (mode)
+    {
+    case SW_RECOVERY_DOWNRANGE:
+      return "downrange";
+    case SW_RECOVERY_LAUNCH_SITE:
+      return "launch_site";
+    case SW_RECOVERY_NONE:
+    default:
+      return "expendable";
+    }
+}
+
+gboolean
+sw_recovery_mode_from_string (const char *text, SwRecoveryMode *mode)
+{
+  if (g_strcmp0 (text, "expendable") == 0)
+    *mode = SW_RECOVERY_NONE;
+  else if (g_strcmp0 (text, "downrange") == 0)
+    *mode = SW_RECOVERY_DOWNRANGE;
+  else if (g_strcmp0 (text, "launch_site") == 0)
+    *mode = SW_RECOVERY_LAUNCH_SITE;
+  else
+    return FALSE;
+  return TRUE;
+}
+
+/* As sw_optional_check(), for a value whose JSON path is not prefix.key of
+ * the limit (an array element, a key sharing a limit). */
+static gboolean
+check_at (SwLimitId limit, double value, const char *file, const char *path, GError **error)
+{
+  const SwLimit *l = sw_limit_get (limit);
+
+  if (sw_limit_contains (limit, value))
+    return TRUE;
+  if (!isfinite (value))
+    sw_optional_set_error (error, SW_ERROR_NOT_FINITE, file,
+                           _("%s: the value is not a finite number"), path);
+  else
+    sw_optional_set_error (error, SW_ERROR_RANGE, file,
+                           _("%s: %g is outside the accepted range %s%.10g to %.10g%s%s (%s)"),
+                           path, value, l->min_exclusive ? _("above ") : "", l->min, l->max,
+                           l->unit[0] ? " " : "", l->unit, l->why);
+  return FALSE;
+}
+
+/* A list of 0-based stage indices into a bit mask. */
+static gboolean
+load_stage_list (JsonObject *obj, const char *key, const char *file, const char *prefix,
+                 guint32 *mask, GError **error)
+{
+  g_autofree char *path = sw_optional_path (prefix, key);
+  JsonNode *node = json_object_get_member (obj, key);
+  JsonArray *arr;
+
+  *mask = 0;
+  if (node == NULL)
+    return TRUE;
+  if (json_node_get_node_type (node) != JSON_NODE_ARRAY)
+    {
+      sw_optional_set_error (error, SW_ERROR_TYPE, file,
+                             _("%s: expected a list of stage indices, found %s"), path,
+                             sw_optional_node_type_name (node));
+      return FALSE;
+    }
+  arr = json_node_get_array (node);
+  for (guint i = 0; i < json_array_get_length (arr); i++)
+    {
+      JsonNode *e = json_array_get_element (arr, i);
+      g_autofree char *ep = g_strdup_printf ("%s[%u]", path, i);
+      double v;
+
+      if (!sw_optional_node_is_number (e))
+        {
+          sw_optional_set_error (error, SW_ERROR_TYPE, file,
+                                 _("%s: expected a stage index, found %s"), ep,
+                                 sw_optional_node_type_name (e));
+          return FALSE;
+        }
+      v = json_node_get_double (e);
+      if (isfinite (v) && v != floor (v))
+        {
+          sw_optional_set_error (error, SW_ERROR_VALUE, file, _("%s: %g is not a whole number"),
+                                 ep, v);
+          return FALSE;
+        }
+      if (!check_at (SW_LIMIT_ECON_STAGE_INDEX, v, file, ep, error))
+        return FALSE;
+      *mask |= 1u << (guint) v;
+    }
+  return TRUE;
+}
+
+static gboolean
+load_engine_types (JsonObject *obj, const char *file, const char *prefix, SwEconomics *econ,
+                   GPtrArray *warnings, GError **error)
+{
+  g_autofree char *path = sw_optional_path (prefix, "engine_types");
+  JsonNode *node = json_object_get_member (obj, "engine_types");
+  JsonArray *arr;
+  guint n;
+
+  if (node == NULL)
+    return TRUE;
+  if (json_node_get_node_type (node) != JSON_NODE_ARRAY)
+    {
+      sw_optional_set_error (error, SW_ERROR_TYPE, file, _("%s: expected a list, found %s"),
+                             path, sw_optional_node_type_name (node));
+      return FALSE;
+    }
+  arr = json_node_get_array (node);
+  n = json_array_get_length (arr);
+  if (!check_at (SW_LIMIT_ENGINE_TYPES, n, file, path, error))
+    return FALSE;
+  for (guint i = 0; i < n; i++)
+    {
+      JsonNode *e = json_array_get_element (arr, i);
+      g_autofree char *ep = g_strdup_printf ("%s[%u]", path, i);
+      SwEngineType *t = &econ->engine_types[i];
+      JsonObject *eo;
+      const char *name = NULL;
+      gboolean has_mass = FALSE;
+      JsonNode *dev;
+
+      if (json_node_get_node_type (e) != JSON_NODE_OBJECT)
+        {
+          sw_optional_set_error (error, SW_ERROR_TYPE, file,
+                                 _("%s: expected an engine type object, found %s"), ep,
+                                 sw_optional_node_type_name (e));
+          return FALSE;
+        }
+      eo = json_node_get_object (e);
+      sw_optional_warn_unknown (eo, file, ep, engine_keys, warnings);
+      if (!sw_optional_read_string (eo, "name", file, ep, &name, error))
+        return FALSE;
+      if (name != NULL && strlen (name) >= sizeof t->name)
+        {
+          g_autofree char *np = sw_optional_path (ep, "name");
+          sw_optional_set_error (error, SW_ERROR_RANGE, file,
+                                 _("%s: the text is %zu bytes long; at most %zu are accepted"),
+                                 np, strlen (name), sizeof t->name - 1);
+          return FALSE;
+        }
+      if (name != NULL)
+        g_strlcpy (t->name, name, sizeof t->name);
+      else
+        g_snprintf (t->name, sizeof t->name, _("Engine %u"), i + 1);
+      if (!sw_optional_read_number_full (eo, "dry_mass_kg", file, ep, TRUE,
+                                         SW_LIMIT_ENGINE_DRY_MASS, FALSE, &t->dry_mass_kg,
+                                         &has_mass, error)
+          || !load_stage_list (eo, "on_stages", file, ep, &t->stage_mask, error))
+        return FALSE;
+      dev = json_object_get_member (eo, "developed");
+      if (dev != NULL)
+        {
+          if (json_node_get_node_type (dev) != JSON_NODE_VALUE
+              || json_node_get_value_type (dev) != G_TYPE_BOOLEAN)
+            {
+              g_autofree char *dp = sw_optional_path (ep, "developed");
+              sw_optional_set_error (error, SW_ERROR_TYPE, file,
+                                     _("%s: expected true or false, found %s"), dp,
+                                     sw_optional_node_type_name (dev));
+              return FALSE;
+            }
+          t->developed = json_node_get_boolean (dev);
+        }
+    }
+  econ->n_engine_types = n;
+  return TRUE;
+}
+
+static gboolean
+load_recovery (JsonObject *obj, const char *file, const char *prefix, SwEconomics *econ,
+               GPtrArray *warnings, GError **error)
+{
+  g_autofree char *path = sw_optional_path (prefix, "recovery");
+  JsonObject *ro;
+  gboolean ok, present;
+  const char *mode = NULL;
+  double flights = 0.0;
+
+  ro = sw_optional_read_object (obj, "recovery", file, prefix, &ok, error);
+  if (!ok)
+    return FALSE;
+  if (ro == NULL)
+    return TRUE;
+  sw_optional_warn_unknown (ro, file, path, recovery_keys, warnings);
+  if (!sw_optional_read_string (ro, "mode", file, path, &mode, error))
+    return FALSE;
+  if (mode != NULL && !sw_recovery_mode_from_string (mode, &econ->recovery_mode))
+    {
+      g_autofree char *mp = sw_optional_path (path, "mode");
+      sw_optional_set_error (error, SW_ERROR_VALUE, file,
+                             _("%s: \"%s\" is not a recovery mode; use \"expendable\", "
+                               "\"downrange\" or \"launch_site\""),
+                             mp, mode);
+      return FALSE;
+    }
+  if (!sw_optional_read_number (ro, "recovery_delta_v_m_s", file, path, SW_LIMIT_RECOVERY_DELTA_V,
+                                FALSE, &econ->recovery_delta_v_m_s, &econ->has_recovery_delta_v,
+                                error)
+      || !sw_optional_read_number (ro, "landing_hardware_fraction", file, path,
+                                   SW_LIMIT_LANDING_HARDWARE, FALSE,
+                                   &econ->landing_hardware_fraction, &present, error)
+      || !sw_optional_read_number (ro, "refurbishment_fraction", file, path,
+                                   SW_LIMIT_REFURBISHMENT, FALSE, &econ->refurbishment_fraction,
+                                   &present, error)
+      || !sw_optional_read_number (ro, "flights_per_stage", file, path,
+                                   SW_LIMIT_FLIGHTS_PER_STAGE, TRUE, &flights, &present, error))
+    return FALSE;
+  if (present)
+    econ->flights_per_stage = (guint) flights;
+  return TRUE;
+}
+
+static gboolean
+load_weights (JsonObject *obj, const char *file, const char *prefix, SwEconomics *econ,
+              GPtrArray *warnings, GError **error)
+{
+  g_autofree char *path = sw_optional_path (prefix, "decision_weights");
+  double *slots[] = { &econ->weight_liftoff_mass, &econ->weight_development,
+                      &econ->weight_cost_per_flight, &econ->weight_failure };
+  JsonObject *wo;
+  gboolean ok;
+
+  wo = sw_optional_read_object (obj, "decision_weights", file, prefix, &ok, error);
+  if (!ok)
+    return FALSE;
+  if (wo == NULL)
+    return TRUE;
+  sw_optional_warn_unknown (wo, file, path, weight_keys, warnings);
+  for (guint i = 0; i < G_N_ELEMENTS (slots); i++)
+    {
+      g_autofree char *kp = sw_optional_path (path, weight_keys[i]);
+      gboolean present = FALSE;
+      double v = 0.0;
+
+      if (!sw_optional_read_number (wo, weight_keys[i], file, path, SW_OPTIONAL_NO_LIMIT, FALSE,
+                                    &v, &present, error))
+        return FALSE;
+      if (present && !check_at (SW_LIMIT_DECISION_WEIGHT, v, file, kp, error))
+        return FALSE;
+      if (present)
+        *slots[i] = v;
+    }
+  return TRUE;
+}
+
+gboolean
+sw_economics_load_design (JsonObject *root, const char *file, const char *prefix,
+                          SwEconomics *econ, GPtrArray *warnings, GError **error)
+{
+  g_autofree char *path = sw_optional_path (prefix, "economics");
+  g_autofree char *cpath = NULL;
+  JsonObject *obj, *coeffs;
+  gboolean ok, present;
+  double run = 0.0;
+
+  sw_economics_init (econ);
+  obj = sw_optional_read_object (root, "economics", file, prefix, &ok, error);
+  if (!ok)
+    return FALSE;
+  if (obj == NULL)
+    return TRUE;
+  econ->present = TRUE;
+  sw_optional_warn_unknown (obj, file, path, economics_keys, warnings);
+  if (!sw_optional_read_number (obj, "work_year_cost", file, path, SW_LIMIT_WORK_YEAR_COST, FALSE,
+                                &econ->work_year_cost, &econ->has_work_year_cost, error)
+      || !sw_optional_read_number (obj, "production_run", file, path, SW_LIMIT_PRODUCTION_RUN,
+                                   TRUE, &run, &present, error))
+    return FALSE;
+  if (present)
+    econ->production_run = (guint) run;
+  if (!sw_optional_read_number (obj, "learning_rate", file, path, SW_LIMIT_LEARNING_RATE, FALSE,
+                                &econ->learning_rate, &present, error)
+      || !sw_optional_read_number (obj, "engine_mass_fraction", file, path,
+                                   SW_LIMIT_ENGINE_MASS_FRACTION, FALSE,
+                                   &econ->engine_mass_fraction, &present, error))
+    return FALSE;
+
+  coeffs = sw_optional_read_object (obj, "cost_coefficients", file, path, &ok, error);
+  if (!ok)
+    return FALSE;
+  if (coeffs != NULL)
+    {
+      const char *known[SW_N_CER + 1];
+
+      cpath = sw_optional_path (path, "cost_coefficients");
+      for (guint i = 0; i < SW_N_CER; i++)
+        known[i] = cer_table[i].key;
+      known[SW_N_CER] = NULL;
+      sw_optional_warn_unknown (coeffs, file, cpath, known, warnings);
+      for (guint i = 0; i < SW_N_CER; i++)
+        {
+          if (!sw_optional_read_number (coeffs, cer_table[i].key, file, cpath, cer_table[i].limit,
+                                        FALSE, &econ->coefficients[i], &present, error))
+            return FALSE;
+          if (present)
+            econ->coefficients_set |= G_GUINT64_CONSTANT (1) << i;
+        }
+    }
+
+  return load_engine_types (obj, file, path, econ, warnings, error)
+         && load_stage_list (obj, "developed_stages", file, path, &econ->developed_stages, error)
+         && load_recovery (obj, file, path, econ, warnings, error)
+         && load_weights (obj, file, path, econ, warnings, error);
+}
+
+static void
+add_number (JsonBuilder *b, const char *key, double value)
+{
+  json_builder_set_member_name (b, key);
+  json_builder_add_double_value (b, value);
+}
+
+static void
+add_stage_list (JsonBuilder *b, const char *key, guint32 mask)
+{
+  json_builder_set_member_name (b, key);
+  json_builder_begin_array (b);
+  for (guint i = 0; i < SW_MAX_STAGES; i++)
+    if ((mask & (1u << i)) != 0)
+      json_builder_add_int_value (b, i);
+  json_builder_end_array (b);
+}
+
+void
+sw_economics_save_design (JsonBuilder *b, const SwEconomics *econ)
+{
+  SwEconomics def;
+
+  if (econ == NULL || !econ->present)
+    return;
+  sw_economics_init (&def);
+  json_builder_set_member_name (b, "economics");
+  json_builder_begin_object (b);
+  if (econ->has_work_year_cost)
+    add_number (b, "work_year_cost", econ->work_year_cost);
+  json_builder_set_member_name (b, "production_run");
+  json_builder_add_int_value (b, econ->production_run);
+  add_number (b, "learning_rate", econ->learning_rate);
+  if (econ->coefficients_set != 0)
+    {
+      json_builder_set_member_name (b, "cost_coefficients");
+      json_builder_begin_object (b);
+      for (guint i = 0; i < SW_N_CER; i++)
+        if ((econ->coefficients_set & (G_GUINT64_CONSTANT (1) << i)) != 0)
+          add_number (b, cer_table[i].key, econ->coefficients[i]);
+      json_builder_end_object (b);
+    }
+  if (econ->n_engine_types > 0)
+    {
+      json_builder_set_member_name (b, "engine_types");
+      json_builder_begin_array (b);
+      for (guint i = 0; i < econ->n_engine_types; i++)
+        {
+          const SwEngineType *t = &econ->engine_types[i];
+          json_builder_begin_object (b);
+          json_builder_set_member_name (b, "name");
+          json_builder_add_string_value (b, t->name);
+          add_number (b, "dry_mass_kg", t->dry_mass_kg);
+          add_stage_list (b, "on_stages", t->stage_mask);
+          json_builder_set_member_name (b, "developed");
+          json_builder_add_boolean_value (b, t->developed);
+          json_builder_end_object (b);
+        }
+      json_builder_end_array (b);
+    }
+  if (econ->developed_stages != 0)
+    add_stage_list (b, "developed_stages", econ->developed_stages);
+  add_number (b, "engine_mass_fraction", econ->engine_mass_fraction);
+  json_builder_set_member_name (b, "recovery");
+  json_builder_begin_object (b);
+  json_builder_set_member_name (b, "mode");
+  json_builder_add_string_value (b, sw_recovery_mode_to_string (econ->recovery_mode));
+  if (econ->has_recovery_delta_v)
+    add_number (b, "recovery_delta_v_m_s", econ->recovery_delta_v_m_s);
+  add_number (b, "landing_hardware_fraction", econ->landing_hardware_fraction);
+  add_number (b, "refurbishment_fraction", econ->refurbishment_fraction);
+  json_builder_set_member_name (b, "flights_per_stage");
+  json_builder_add_int_value (b, econ->flights_per_stage);
+  json_builder_end_object (b);
+  json_builder_set_member_name (b, "decision_weights");
+  json_builder_begin_object (b);
+  add_number (b, "liftoff_mass", econ->weight_liftoff_mass);
+  add_number (b, "development", econ->weight_development);
+  add_number (b, "cost_per_flight", econ->weight_cost_per_flight);
+  add_number (b, "failure", econ->weight_failure);
+  json_builder_end_object (b);
+  json_builder_end_object (b);
+}
+
+gboolean
+sw_economics_validate (const SwEconomics *econ, guint n_stages, const char *file,
+                       const char *prefix, GError **error)
+{
+  g_autofree char *path = sw_optional_path (prefix, "economics");
+  g_autofree char *cpath = sw_optional_path (path, "cost_coefficients");
+  g_autofree char *rpath = sw_optional_path (path, "recovery");
+  g_autofree char *wpath = sw_optional_path (path, "decision_weights");
+  double weights[4];
+  guint32 seen = 0;
+
+  g_return_val_if_fail (econ != NULL, FALSE);
+  if (!econ->present)
+    return TRUE;
+  weights[0] = econ->weight_liftoff_mass;
+  weights[1] = econ->weight_development;
+  weights[2] = econ->weight_cost_per_flight;
+  weights[3] = econ->weight_failure;
+  if ((econ->has_work_year_cost
+       && !sw_optional_check (SW_LIMIT_WORK_YEAR_COST, econ->work_year_cost, file, path, error))
+      || !sw_optional_check (SW_LIMIT_PRODUCTION_RUN, econ->production_run, file, path, error)
+      || !sw_optional_check (SW_LIMIT_LEARNING_RATE, econ->learning_rate, file, path, error)
+      || !sw_optional_check (SW_LIMIT_ENGINE_MASS_FRACTION, econ->engine_mass_fraction, file,
+                             path, error)
+      || !sw_optional_check (SW_LIMIT_ENGINE_TYPES, econ->n_engine_types, file, path, error))
+    return FALSE;
+  for (guint i = 0; i < SW_N_CER; i++)
+    if (!sw_optional_check (cer_table[i].limit, econ->coefficients[i], file, cpath, error))
+      return FALSE;
+  for (guint i = 0; i < econ->n_engine_types; i++)
+    {
+      const SwEngineType *t = &econ->engine_types[i];
+      g_autofree char *ep = g_strdup_printf ("%s.engine_types[%u]", path, i);
+
+      if (!sw_optional_check (SW_LIMIT_ENGINE_DRY_MASS, t->dry_mass_kg, file, ep, error))
+        return FALSE;
+      if (t->stage_mask >> n_stages != 0)
+        {
+          sw_optional_set_error (error, SW_ERROR_RANGE, file,
+                                 _("%s.on_stages: names a stage the design does not have "
+                                   "(it has %u, numbered from 0)"),
+                                 ep, n_stages);
+          return FALSE;
+        }
+      if ((t->stage_mask & seen) != 0)
+        {
+          sw_optional_set_error (error, SW_ERROR_VALUE, file,
+                                 _("%s.on_stages: a stage already uses another engine type; "
+                                   "each stage has at most one"),
+                                 ep);
+          return FALSE;
+        }
+      seen |= t->stage_mask;
+    }
+  if (econ->developed_stages >> n_stages != 0)
+    {
+      sw_optional_set_error (error, SW_ERROR_RANGE, file,
+                             _("%s.developed_stages: names a stage the design does not have "
+                               "(it has %u, numbered from 0)"),
+                             path, n_stages);
+      return FALSE;
+    }
+  if ((econ->has_recovery_delta_v
+       && !sw_optional_check (SW_LIMIT_RECOVERY_DELTA_V, econ->recovery_delta_v_m_s, file, rpath,
+                              error))
+      || !sw_optional_check (SW_LIMIT_LANDING_HARDWARE, econ->landing_hardware_fraction, file,
+                             rpath, error)
+      || !sw_optional_check (SW_LIMIT_REFURBISHMENT, econ->refurbishment_fraction, file, rpath,
+                             error)
+      || !sw_optional_check (SW_LIMIT_FLIGHTS_PER_STAGE, econ->flights_per_stage, file, rpath,
+                             error))
+    return FALSE;
+  for (guint i = 0; i < G_N_ELEMENTS (weights); i++)
+    {
+      g_autofree char *kp = sw_optional_path (wpath, weight_keys[i]);
+      if (!check_at (SW_LIMIT_DECISION_WEIGHT, weights[i], file, kp, error))
+        return FALSE;
+    }
+  return TRUE;
+}

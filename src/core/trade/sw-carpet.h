@@ -1,0 +1,92 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* sw-carpet.h: a carpet plot's grid.  Two numeric inputs of the design (an
+ * axis each: parameter, range, point count) are varied over a grid; at every
+ * point the vehicle is sized with the design's split and one output taken:
+ * liftoff mass, the payload of a vehicle of the design's own liftoff mass,
+ * development effort or cost per flight (work-years, expendable).  A point
+ * whose vehicle does not close is infeasible (value NAN, flag cleared).
+ * Synchronous; cancellable between rows, with a progress callback per row. */
+#pragma once
+
+#include <gio/gio.h>
+
+#include "sw-design.h"
+#include "sw-types.h"
+
+G_BEGIN_DECLS
+
+#define SW_CARPET_MAX_POINTS 500
+
+typedef enum {
+  SW_CARPET_PARAM_PAYLOAD,            /* payload_kg */
+  SW_CARPET_PARAM_DELTA_V,            /* mission.delta_v_m_s (delta-v missions) */
+  SW_CARPET_PARAM_LOSSES,             /* mission.losses_m_s */
+  SW_CARPET_PARAM_ISP_VAC,            /* stages[i].isp_vac_s */
+  SW_CARPET_PARAM_STRUCTURAL_COEFFICIENT, /* stages[i].structural_coefficient */
+} SwCarpetParamKind;
+
+typedef struct {
+  SwCarpetParamKind kind;
+  guint  stage;                       /* for the stage parameters */
+  double min;
+  double max;
+  guint  n;                           /* points, 2..SW_CARPET_MAX_POINTS */
+} SwCarpetAxis;
+
+typedef enum {
+  SW_CARPET_LIFTOFF_MASS,
+  SW_CARPET_PAYLOAD,
+  SW_CARPET_DEVELOPMENT,
+  SW_CARPET_COST_PER_FLIGHT,
+} SwCarpetOutput;
+
+typedef void (*SwCarpetProgress) (double fraction, gpointer user_data);
+
+typedef struct {
+  SwCarpetAxis   x;
+  SwCarpetAxis   y;
+  SwCarpetOutput output;
+  GCancellable  *cancellable;         /* may be NULL */
+  SwCarpetProgress progress;          /* may be NULL; called after each row */
+  gpointer       progress_data;
+} SwCarpetOptions;
+
+typedef struct {
+  SwCarpetAxis   x;
+  SwCarpetAxis   y;
+  SwCarpetOutput output;
+  double        *values;              /* y.n rows of x.n: values[j * x.n + i]; NAN infeasible */
+  gboolean      *feasible;
+  guint          n_infeasible;
+  double         design_x;            /* the design's own values, to mark it */
+  double         design_y;
+  double         design_value;        /* NAN when the design does not close */
+} SwCarpet;
+
+/* "stages[1].isp_vac_s" and the like into @kind and @stage; an error names
+ * the text and lists the parameters. */
+gboolean    sw_carpet_param_parse (const char *text, const SwDesign *design, SwCarpetAxis *axis,
+                                   GError **error);
+/* The parameter's name as sw_carpet_param_parse() reads it (owned). */
+char       *sw_carpet_param_dup_name (const SwCarpetAxis *axis);
+const char *sw_carpet_output_to_string (SwCarpetOutput output);
+gboolean    sw_carpet_output_from_string (const char *text, SwCarpetOutput *output);
+/* Checks the axis's range against the parameter's limit and its count. */
+gboolean    sw_carpet_axis_check (const SwCarpetAxis *axis, const SwDesign *design,
+                                  GError **error);
+/* The value of grid index @i on @axis. */
+double      sw_carpet_axis_value (const SwCarpetAxis *axis, guint i);
+/* The parameter's value in @design. */
+double      sw_carpet_design_value (const SwCarpetAxis *axis, const SwDesign *design);
+/* Sets the parameter in a design (the check of sampled points). */
+void        sw_carpet_apply (const SwCarpetAxis *axis, SwDesign *design, double value);
+
+/* The grid; NULL with G_IO_ERROR_CANCELLED when cancelled, or an SW_ERROR
+ * for a bad axis or a mission without delta-v. */
+SwCarpet   *sw_carpet_compute (const SwDesign *design, const SwCarpetOptions *options,
+                               GError **error);
+void        sw_carpet_free (SwCarpet *carpet);
+
+G_DEFINE_AUTOPTR_CLEANUP_FUNC (SwCarpet, sw_carpet_free)
+
+G_END_DECLS

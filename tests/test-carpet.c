@@ -1,0 +1,252 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* Tests of the carpet grid: its values equal individual sizings of the
+ * design with the two inputs set (sw_size_design, the `size` command's
+ * path) at sampled points; infeasible points flagged; cancellation. */
+#include "config.h"
+
+#include "sw-carpet.h"
+#include "sw-cost.h"
+#include "sw-design.h"
+#include "sw-sizing.h"
+
+#include <math.h>
+#include <string.h>
+
+static const char *orbit_json =
+  "{ \"format\": \"stagewright-design\", \"version\": 1, \"name\": \"carpet test\",\n"
+  "  \"payload_kg\": 3000, \"split\": \"optimal\",\n"
+  "  \"mission\": { \"orbit\": { \"altitude_km\": 400, \"inclination_deg\": 51.6,\n"
+  "                 \"site_latitude_deg\": 45.6 }, \"losses_m_s\": 1500 },\n"
+  "  \"stages\": [\n"
+  "    { \"name\": \"A\", \"isp_vac_s\": 310, \"isp_sl_s\": 280, \"structural_coefficient\": 0.07 },\n"
+  "    { \"name\": \"B\", \"isp_vac_s\": 340, \"structural_coefficient\": 0.09 },\n"
+  "    { \"name\": \"C\", \"isp_vac_s\": 330, \"structural_coefficient\": 0.12 } ] }";
+
+static SwDesign *
+load (const char *json)
+{
+  g_autoptr (GError) error = NULL;
+  SwDesign *d = sw_design_load_data (json, -1, "test.stagewright", NULL, &error);
+
+  g_assert_no_error (error);
+  return d;
+}
+
+static void
+axis (SwCarpetAxis *a, const SwDesign *d, const char *param, double min, double max, guint n)
+{
+  g_autoptr (GError) error = NULL;
+
+  memset (a, 0, sizeof *a);
+  g_assert_true (sw_carpet_param_parse (param, d, a, &error));
+  g_assert_no_error (error);
+  a->min = min;
+  a->max = max;
+  a->n = n;
+}
+
+/* The individual sizing of a point: a copy of the design with both inputs
+ * set, sized as the `size` command sizes it. */
+static double
+individual (const SwDesign *d, const SwCarpet *c, guint i, guint j)
+{
+  g_autoptr (SwDesign) copy = sw_design_copy (d);
+  SwSizing s, own;
+
+  sw_carpet_apply (&c->x, copy, sw_carpet_axis_value (&c->x, i));
+  sw_carpet_apply (&c->y, copy, sw_carpet_axis_value (&c->y, j));
+  g_assert_true (sw_design_validate (copy, NULL, NULL));
+  g_assert_true (sw_size_design (copy, &s, NULL));
+  if (!s.feasible)
+    return NAN;
+  switch (c->output)
+    {
+    case SW_CARPET_PAYLOAD:
+      g_assert_true (sw_size_design (d, &own, NULL));
+      return copy->payload_kg * own.liftoff_mass_kg / s.liftoff_mass_kg;
+    case SW_CARPET_DEVELOPMENT:
+    case SW_CARPET_COST_PER_FLIGHT:
+      {
+        SwCostVehicle v;
+        SwCost cost;
+        sw_cost_vehicle_from_sizing (&v, &s, copy);
+        sw_cost_compute (copy, &v, &cost);
+        return c->output == SW_CARPET_DEVELOPMENT ? cost.development_work_years
+                                                  : cost.cost_per_flight_work_years;
+      }
+    case SW_CARPET_LIFTOFF_MASS:
+    default:
+      return s.liftoff_mass_kg;
+    }
+}
+
+static void
+check_samples (const SwDesign *d, const SwCarpet *c)
+{
+  const guint samples[][2] = { { 0, 0 }, { 1, 7 }, { 13, 2 }, { 24, 24 }, { 49, 0 },
+                               { 0, 49 }, { 31, 17 }, { 49, 49 } };
+
+  for (guint s = 0; s < G_N_ELEMENTS (samples); s++)
+    {
+      guint i = MIN (samples[s][0], c->x.n - 1), j = MIN (samples[s][1], c->y.n - 1);
+      double v = c->values[j * c->x.n + i], want = individual (d, c, i, j);
+
+      if (isnan (want))
+        {
+          g_assert_false (c->feasible[j * c->x.n + i]);
+          g_assert_true (isnan (v));
+        }
+      else
+        {
+          g_assert_true (c->feasible[j * c->x.n + i]);
+          g_assert_cmpfloat_with_epsilon (v / want, 1.0, 1e-12);
+        }
+    }
+}
+
+static void
+test_grid_equals_sizings (void)
+{
+  g_autoptr (SwDesign) d = load (orbit_json);
+  const SwCarpetOutput outputs[] = { SW_CARPET_LIFTOFF_MASS, SW_CARPET_PAYLOAD,
+                                     SW_CARPET_DEVELOPMENT, SW_CARPET_COST_PER_FLIGHT };
+
+  for (guint o = 0; o < G_N_ELEMENTS (outputs); o++)
+    {
+      SwCarpetOptions opt = { 0 };
+      g_autoptr (SwCarpet) c = NULL;
+      g_autoptr (GError) error = NULL;
+
+      axis (&opt.x, d, "stages[0].structural_coefficient", 0.04, 0.16, 50);
+      axis (&opt.y, d, "stages[1].isp_vac_s", 300.0, 460.0, 50);
+      opt.output = outputs[o];
+      c = sw_carpet_compute (d, &opt, &error);
+      g_assert_no_error (error);
+      g_assert_nonnull (c);
+      g_assert_cmpfloat (c->design_x, ==, 0.07);
+      g_assert_cmpfloat (c->design_y, ==, 340.0);
+      check_samples (d, c);
+    }
+}
+
+/* Losses on an orbit mission; delta-v on a delta-v mission, where the far
+ * corner does not close: the default design's two stages (320 s, eps 0.07;
+ * 340 s, eps 0.09) reach c1 ln(1/eps1) + c2 ln(1/eps2) = 8345 + 8029
+ * = 16,374 m/s at most. */
+static void
+test_losses_payload_infeasible (void)
+{
+  g_autoptr (SwDesign) d = load (orbit_json);
+  g_autoptr (SwDesign) dv = sw_design_new_default ();
+  SwCarpetOptions opt = { 0 };
+  g_autoptr (SwCarpet) c = NULL;
+  g_autoptr (SwCarpet) c2 = NULL;
+  g_autoptr (GError) error = NULL;
+
+  axis (&opt.x, d, "mission.losses_m_s", 0.0, 5000.0, 30);
+  axis (&opt.y, d, "payload_kg", 100.0, 20000.0, 20);
+  c = sw_carpet_compute (d, &opt, &error);
+  g_assert_no_error (error);
+  g_assert_cmpfloat (c->design_x, ==, 1500.0);
+  check_samples (d, c);
+
+  axis (&opt.x, dv, "mission.delta_v_m_s", 6000.0, 20000.0, 30);
+  axis (&opt.y, dv, "payload_kg", 100.0, 20000.0, 20);
+  c2 = sw_carpet_compute (dv, &opt, &error);
+  g_assert_no_error (error);
+  g_assert_cmpfloat (c2->design_x, ==, 9400.0);
+  g_assert_cmpuint (c2->n_infeasible, >, 0);
+  g_assert_cmpuint (c2->n_infeasible, <, 30 * 20);
+  g_assert_false (c2->feasible[29]);
+  g_assert_true (isnan (c2->values[29]));
+  g_assert_true (c2->feasible[0]);
+  check_samples (dv, c2);
+}
+
+static void
+cancel_after_first_row (double fraction, gpointer data)
+{
+  g_cancellable_cancel (G_CANCELLABLE (data));
+}
+
+static void
+count_rows (double fraction, gpointer data)
+{
+  guint *n = data;
+  (*n)++;
+}
+
+static void
+test_cancel_and_progress (void)
+{
+  g_autoptr (SwDesign) d = load (orbit_json);
+  g_autoptr (GCancellable) cancel = g_cancellable_new ();
+  SwCarpetOptions opt = { 0 };
+  g_autoptr (GError) error = NULL;
+  SwCarpet *c;
+  guint rows = 0;
+
+  axis (&opt.x, d, "stages[2].structural_coefficient", 0.05, 0.3, 10);
+  axis (&opt.y, d, "stages[0].isp_vac_s", 290.0, 350.0, 12);
+  opt.progress = count_rows;
+  opt.progress_data = &rows;
+  c = sw_carpet_compute (d, &opt, &error);
+  g_assert_no_error (error);
+  g_assert_cmpuint (rows, ==, 12);
+  sw_carpet_free (c);
+
+  opt.cancellable = cancel;
+  opt.progress = cancel_after_first_row;
+  opt.progress_data = cancel;
+  c = sw_carpet_compute (d, &opt, &error);
+  g_assert_null (c);
+  g_assert_error (error, G_IO_ERROR, G_IO_ERROR_CANCELLED);
+}
+
+static void
+test_bad_axes (void)
+{
+  g_autoptr (SwDesign) d = load (orbit_json);
+  SwCarpetAxis a = { 0 };
+  SwCarpetOptions opt = { 0 };
+  GError *error = NULL;
+
+  g_assert_false (sw_carpet_param_parse ("stages[3].isp_vac_s", d, &a, &error));
+  g_assert_error (error, SW_ERROR, SW_ERROR_USAGE);
+  g_assert_nonnull (strstr (error->message, "the design has 3 stages"));
+  g_clear_error (&error);
+  g_assert_false (sw_carpet_param_parse ("thrust", d, &a, &error));
+  g_assert_nonnull (strstr (error->message, "thrust: not a parameter of the carpet plot"));
+  g_clear_error (&error);
+  g_assert_false (sw_carpet_param_parse ("mission.delta_v_m_s", d, &a, &error));
+  g_assert_nonnull (strstr (error->message, "vary mission.losses_m_s instead"));
+  g_clear_error (&error);
+
+  axis (&opt.x, d, "stages[0].structural_coefficient", 0.005, 0.2, 10);
+  axis (&opt.y, d, "payload_kg", 100.0, 200.0, 10);
+  g_assert_null (sw_carpet_compute (d, &opt, &error));
+  g_assert_error (error, SW_ERROR, SW_ERROR_RANGE);
+  g_assert_nonnull (strstr (error->message, "stages[0].structural_coefficient: the range 0.005 "
+                                            "to 0.2 leaves the accepted range 0.01 to 0.6"));
+  g_clear_error (&error);
+  opt.x.min = 0.05;
+  opt.y.n = 1;
+  g_assert_null (sw_carpet_compute (d, &opt, &error));
+  g_assert_nonnull (strstr (error->message, "payload_kg: 1 points; a carpet axis has 2 to 500"));
+  g_clear_error (&error);
+  opt.y = opt.x;
+  g_assert_null (sw_carpet_compute (d, &opt, &error));
+  g_assert_nonnull (strstr (error->message, "must be different parameters"));
+  g_clear_error (&error);
+}
+
+int
+main (int argc, char **argv)
+{
+  g_test_init (&argc, &argv, NULL);
+  g_test_add_func ("/core/carpet/grid-equals-sizings", test_grid_equals_sizings);
+  g_test_add_func ("/core/carpet/losses-payload-infeasible", test_losses_payload_infeasible);
+  g_test_add_func ("/core/carpet/cancel-and-progress", test_cancel_and_progress);
+  g_test_add_func ("/core/carpet/bad-axes", test_bad_axes);
+  return g_test_run ();
+}

@@ -1,0 +1,446 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* stagewright-cli stages and carpet: every number of the JSON equals the
+ * core's own result for the same design (sw_staging_compute,
+ * sw_carpet_compute), the CSV holds the same grid, the table carries the
+ * literal markers and statements, and bad input exits 2 with a message
+ * that names the option.  Runs the built program (env SW_CLI). */
+#include "config.h"
+
+#include "sw-carpet.h"
+#include "sw-design.h"
+#include "sw-staging.h"
+
+#include <glib/gstdio.h>
+#include <json-glib/json-glib.h>
+#include <math.h>
+#include <stdlib.h>
+#include <string.h>
+#include <sys/wait.h>
+
+#define CLI_TIMEOUT_S 60
+
+static const char *design_json =
+  "{ \"format\": \"stagewright-design\", \"version\": 1, \"name\": \"CLI staging test\",\n"
+  "  \"payload_kg\": 2000, \"mission\": { \"delta_v_m_s\": 9300 }, \"split\": \"optimal\",\n"
+  "  \"stages\": [\n"
+  "    { \"name\": \"A\", \"isp_vac_s\": 310, \"isp_sl_s\": 280, \"structural_coefficient\": 0.06,\n"
+  "      \"engine_count\": 9, \"engine_reliability\": 0.995, \"engine_failures_tolerated\": 1 },\n"
+  "    { \"name\": \"B\", \"isp_vac_s\": 345, \"structural_coefficient\": 0.09,\n"
+  "      \"engine_reliability\": 0.993 } ],\n"
+  "  \"economics\": { \"production_run\": 30, \"work_year_cost\": 200000,\n"
+  "    \"engine_types\": [ { \"name\": \"E1\", \"dry_mass_kg\": 900, \"on_stages\": [0, 1] } ],\n"
+  "    \"recovery\": { \"mode\": \"launch_site\" } } }\n";
+
+typedef struct {
+  char *out;
+  char *err;
+  int   code;
+} Run;
+
+static void
+run_clear (Run *r)
+{
+  g_clear_pointer (&r->out, g_free);
+  g_clear_pointer (&r->err, g_free);
+}
+
+static void
+run_cli (Run *r, const char *first, ...)
+{
+  g_autoptr (GPtrArray) argv = g_ptr_array_new ();
+  g_autoptr (GError) error = NULL;
+  g_autofree char *secs = g_strdup_printf ("%d", CLI_TIMEOUT_S);
+  const char *cli = g_getenv ("SW_CLI");
+  int status = 0;
+  va_list ap;
+
+  g_assert_nonnull (cli);
+  g_ptr_array_add (argv, (gpointer) "timeout");
+  g_ptr_array_add (argv, secs);
+  g_ptr_array_add (argv, (gpointer) cli);
+  va_start (ap, first);
+  for (const char *a = first; a != NULL; a = va_arg (ap, const char *))
+    g_ptr_array_add (argv, (gpointer) a);
+  va_end (ap);
+  g_ptr_array_add (argv, NULL);
+  memset (r, 0, sizeof *r);
+  g_assert_true (g_spawn_sync (NULL, (char **) argv->pdata, NULL, G_SPAWN_SEARCH_PATH, NULL,
+                               NULL, &r->out, &r->err, &status, &error));
+  g_assert_no_error (error);
+  g_assert_true (WIFEXITED (status));
+  r->code = WEXITSTATUS (status);
+  if (r->code == 124)
+    g_error ("stagewright-cli %s did not finish within %d s", first, CLI_TIMEOUT_S);
+}
+
+static char *
+write_design (void)
+{
+  g_autoptr (GError) error = NULL;
+  char *path = NULL;
+  int fd = g_file_open_tmp ("sw-cli-staging-XXXXXX.stagewright", &path, &error);
+
+  g_assert_no_error (error);
+  close (fd);
+  g_assert_true (g_file_set_contents (path, design_json, -1, &error));
+  return path;
+}
+
+static JsonObject *
+parse (const char *text, JsonNode **keep)
+{
+  g_autoptr (JsonParser) parser = json_parser_new ();
+  g_autoptr (GError) error = NULL;
+
+  if (!json_parser_load_from_data (parser, text, -1, &error))
+    g_error ("not JSON (%s): %s", error->message, text);
+  *keep = json_node_copy (json_parser_get_root (parser));
+  g_assert_true (JSON_NODE_HOLDS_OBJECT (*keep));
+  return json_node_get_object (*keep);
+}
+
+/* The JSON number equals the core's (1e-15 relative: %.17g round-trips);
+ * a NAN core value must be null. */
+static void
+check_value (JsonNode *n, const char *what, double core)
+{
+  if (n == NULL)
+    g_error ("missing %s", what);
+  if (isnan (core))
+    {
+      if (!JSON_NODE_HOLDS_NULL (n))
+        g_error ("%s: the core has no value, the CLI prints %g", what, json_node_get_double (n));
+      return;
+    }
+  g_assert_true (JSON_NODE_HOLDS_VALUE (n));
+  if (!(fabs (json_node_get_double (n) - core) <= 1e-15 * fabs (core) + 1e-300))
+    g_error ("%s: CLI %.17g, core %.17g", what, json_node_get_double (n), core);
+}
+
+static void
+check (JsonObject *o, const char *key, double core)
+{
+  check_value (json_object_get_member (o, key), key, core);
+}
+
+static void
+test_stages_json (void)
+{
+  g_autofree char *path = write_design ();
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
+  g_autoptr (JsonNode) keep = NULL;
+  JsonObject *o, *w;
+  JsonArray *rows;
+  SwStaging s;
+  Run r;
+
+  g_assert_nonnull (d);
+  g_assert_true (sw_staging_compute (d, 5, &s, NULL));
+  run_cli (&r, "stages", path, "--max-stages", "5", "--json", NULL);
+  g_assert_cmpint (r.code, ==, 0);
+  o = parse (r.out, &keep);
+  g_assert_cmpint (json_object_get_int_member (o, "design_stage_count"), ==, 2);
+  g_assert_true (json_object_get_boolean_member (o, "design_recovers_first_stage"));
+  g_assert_cmpstr (json_object_get_string_member (o, "recovery_mode"), ==, "launch_site");
+  /* The launch-site default, from memory (the reference notes' example). */
+  check (o, "recovery_delta_v_m_s", 2750.0);
+  check (o, "work_year_cost", 200000.0);
+  check (o, "design_liftoff_mass_kg", s.design_liftoff_mass_kg);
+  g_assert_cmpint (json_object_get_int_member (o, "best_stage_count"), ==,
+                   s.rows[s.best].n_stages);
+  w = json_object_get_object_member (o, "weighting");
+  check (w, "liftoff_mass", 1.0);
+  check (w, "failure", 1.0);
+  g_assert_cmpstr (json_object_get_string_member (w, "statement"), ==, s.weighting);
+  g_assert_nonnull (strstr (json_object_get_string_member (o, "effort_note"), "never a quote"));
+  g_assert_nonnull (strstr (json_object_get_string_member (o, "caution"),
+                            "Conceptual sizing only"));
+  rows = json_object_get_array_member (o, "by_stage_count");
+  g_assert_cmpuint (json_array_get_length (rows), ==, 5);
+  for (guint i = 0; i < 5; i++)
+    {
+      JsonObject *row = json_array_get_object_element (rows, i);
+      const SwStagingRow *c = &s.rows[i];
+
+      g_assert_cmpint (json_object_get_int_member (row, "stage_count"), ==, i + 1);
+      g_assert_cmpstr (json_object_get_string_member (row, "arrangement"), ==, "serial");
+      g_assert_cmpint (json_object_get_boolean_member (row, "closes"), ==, c->feasible);
+      g_assert_cmpint (json_object_get_boolean_member (row, "closes_recovered"), ==,
+                       c->reused_feasible);
+      check (row, "liftoff_mass_kg", c->liftoff_mass_kg);
+      check (row, "liftoff_mass_recovered_kg", c->liftoff_mass_reused_kg);
+      check (row, "recovery_payload_penalty", c->payload_penalty_fraction);
+      check (row, "development_work_years", c->development_work_years);
+      check (row, "development_recovered_work_years", c->development_reused_work_years);
+      check (row, "per_flight_work_years", c->cost_per_flight_work_years);
+      check (row, "per_flight_recovered_work_years", c->cost_per_flight_reused_work_years);
+      check (row, "development_money", c->development_work_years * 200000.0);
+      check (row, "per_flight_money", c->cost_per_flight_work_years * 200000.0);
+      check (row, "mission_success", c->success_probability);
+      check (row, "payload_at_design_liftoff_mass_kg", c->payload_fixed_size_kg);
+      check (row, "weighted_score", c->score);
+    }
+  /* One stage does not close: its figures are null, the reason given. */
+  g_assert_false (s.rows[0].feasible);
+  g_assert_nonnull (json_object_get_string_member (json_array_get_object_element (rows, 0),
+                                                   "why_not"));
+  run_clear (&r);
+  g_unlink (path);
+}
+
+static void
+test_stages_table (void)
+{
+  g_autofree char *path = write_design ();
+  Run r;
+
+  run_cli (&r, "stages", path, NULL);
+  g_assert_cmpint (r.code, ==, 0);
+  g_assert_nonnull (strstr (r.out, "Design: CLI staging test (2 stages)\n"));
+  g_assert_nonnull (strstr (r.out, "Recovered column: first stage returns to the launch site, "
+                                   "recovery delta-v 2,750 m/s\n"));
+  g_assert_nonnull (strstr (r.out, "* best stage count   > this design's stage count   "
+                                   "wy: work-years\n"));
+  g_assert_nonnull (strstr (r.out, "Weights: liftoff mass 1, development effort 1, cost per "
+                                   "flight (first stage reused) 1, failure probability 1; each "
+                                   "criterion divided by its best stage count, the lowest sum "
+                                   "wins\n"));
+  /* The design's own row is marked; the one-stage row does not close. */
+  g_assert_nonnull (strstr (r.out, ">  2 "));
+  {
+    /* The one-stage row: its liftoff mass cell holds the no-value mark
+     * (an em dash or "-", by the locale's charset), never a number. */
+    const char *row = strstr (r.out, "\n    1  ");
+    g_autofree char *first = NULL;
+
+    g_assert_nonnull (row);
+    first = g_strndup (row + 8, 14);
+    g_strstrip (first);
+    g_assert_false (g_ascii_isdigit (first[0]));
+    g_assert_cmpuint (strlen (first), >, 0);
+  }
+  g_assert_nonnull (strstr (r.out, "never a quote"));
+  g_assert_nonnull (strstr (r.out, "Conceptual sizing only"));
+  run_clear (&r);
+
+  run_cli (&r, "stages", path, "--max-stages", "7", NULL);
+  g_assert_cmpint (r.code, ==, 2);
+  g_assert_nonnull (strstr (r.err, "--max-stages 7: give 1 to 6"));
+  run_clear (&r);
+  g_unlink (path);
+}
+
+static void
+test_carpet_json_csv (void)
+{
+  g_autofree char *path = write_design ();
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
+  g_autoptr (SwCarpet) c = NULL;
+  g_autoptr (JsonNode) keep = NULL;
+  g_auto (GStrv) lines = NULL;
+  SwCarpetOptions opt = { 0 };
+  JsonObject *o;
+  JsonArray *rows;
+  Run r;
+
+  g_assert_true (sw_carpet_param_parse ("stages[0].structural_coefficient", d, &opt.x, NULL));
+  g_assert_true (sw_carpet_param_parse ("stages[1].isp_vac_s", d, &opt.y, NULL));
+  opt.x.min = 0.03;
+  opt.x.max = 0.2;
+  opt.x.n = 7;
+  opt.y.min = 300;
+  opt.y.max = 460;
+  opt.y.n = 5;
+  opt.output = SW_CARPET_PAYLOAD;
+  c = sw_carpet_compute (d, &opt, NULL);
+  g_assert_nonnull (c);
+
+  run_cli (&r, "carpet", path, "--x", "stages[0].structural_coefficient:0.03:0.2:7", "--y",
+           "stages[1].isp_vac_s:300:460:5", "--output", "payload", "--json", NULL);
+  g_assert_cmpint (r.code, ==, 0);
+  o = parse (r.out, &keep);
+  g_assert_cmpstr (json_object_get_string_member (o, "quantity"), ==, "payload");
+  g_assert_cmpstr (json_object_get_string_member (o, "unit"), ==, "kg");
+  g_assert_cmpstr (json_object_get_string_member (json_object_get_object_member (o, "x"),
+                                                  "parameter"),
+                   ==, "stages[0].structural_coefficient");
+  check (json_object_get_object_member (o, "this_design"), "value", c->design_value);
+  check (json_object_get_object_member (o, "this_design"), "x", 0.06);
+  g_assert_cmpint (json_object_get_int_member (o, "points_not_closing"), ==, c->n_infeasible);
+  rows = json_object_get_array_member (o, "rows");
+  g_assert_cmpuint (json_array_get_length (rows), ==, 5);
+  for (guint j = 0; j < 5; j++)
+    {
+      JsonArray *row = json_array_get_array_element (rows, j);
+      g_assert_cmpuint (json_array_get_length (row), ==, 7);
+      for (guint i = 0; i < 7; i++)
+        check_value (json_array_get_element (row, i), "grid value", c->values[j * 7 + i]);
+    }
+  run_clear (&r);
+
+  run_cli (&r, "carpet", path, "--x", "stages[0].structural_coefficient:0.03:0.2:7", "--y",
+           "stages[1].isp_vac_s:300:460:5", "--output", "payload", "--csv", NULL);
+  g_assert_cmpint (r.code, ==, 0);
+  lines = g_strsplit (r.out, "\n", -1);
+  g_assert_true (g_str_has_prefix (lines[0], "# Conceptual sizing only"));
+  g_assert_cmpstr (lines[1], ==, "stages[0].structural_coefficient,stages[1].isp_vac_s,"
+                                 "payload_kg,closes");
+  g_assert_cmpuint (g_strv_length (lines), ==, 2 + 35 + 1);
+  for (guint k = 0; k < 35; k++)
+    {
+      g_auto (GStrv) f = g_strsplit (lines[2 + k], ",", -1);
+      double v = c->values[k];
+
+      g_assert_cmpuint (g_strv_length (f), ==, 4);
+      g_assert_cmpfloat_with_epsilon (g_ascii_strtod (f[0], NULL),
+                                      sw_carpet_axis_value (&c->x, k % 7), 1e-12);
+      if (isfinite (v))
+        {
+          g_assert_cmpfloat_with_epsilon (g_ascii_strtod (f[2], NULL) / v, 1.0, 1e-11);
+          g_assert_cmpstr (f[3], ==, "true");
+        }
+      else
+        {
+          g_assert_cmpstr (f[2], ==, "");
+          g_assert_cmpstr (f[3], ==, "false");
+        }
+    }
+  run_clear (&r);
+  g_unlink (path);
+}
+
+static void
+test_carpet_errors (void)
+{
+  g_autofree char *path = write_design ();
+  Run r;
+
+  run_cli (&r, "carpet", path, "--x", "stages[0].isp_vac_s:300:340", "--y",
+           "payload_kg:100:200:3", NULL);
+  g_assert_cmpint (r.code, ==, 2);
+  g_assert_nonnull (strstr (r.err, "--x stages[0].isp_vac_s:300:340: expected PARAM:MIN:MAX:N"));
+  run_clear (&r);
+  run_cli (&r, "carpet", path, "--x", "stages[5].isp_vac_s:300:340:4", "--y",
+           "payload_kg:100:200:3", NULL);
+  g_assert_cmpint (r.code, ==, 2);
+  g_assert_nonnull (strstr (r.err, "stages[5].isp_vac_s: the design has 2 stages"));
+  run_clear (&r);
+  run_cli (&r, "carpet", path, "--x", "stages[0].isp_vac_s:270:340:4", "--y",
+           "payload_kg:100:200:3", NULL);
+  g_assert_cmpint (r.code, ==, 2);
+  g_assert_nonnull (strstr (r.err, "below the stage's sea-level Isp of 280 s"));
+  run_clear (&r);
+  run_cli (&r, "carpet", path, "--y", "payload_kg:100:200:3", NULL);
+  g_assert_cmpint (r.code, ==, 2);
+  g_assert_nonnull (strstr (r.err, "--x is required (PARAM:MIN:MAX:N)"));
+  run_clear (&r);
+  run_cli (&r, "carpet", path, "--x", "payload_kg:100:200:3", "--y",
+           "stages[1].isp_vac_s:300:340:4", "--output", "mass", NULL);
+  g_assert_cmpint (r.code, ==, 2);
+  g_assert_nonnull (strstr (r.err, "--output mass: use liftoff_mass, payload"));
+  run_clear (&r);
+  g_unlink (path);
+}
+
+/* `export --csv` writes the staging decision and the default carpet: the
+ * same numbers as the core's. */
+static void
+test_export_csv (void)
+{
+  g_autofree char *path = write_design ();
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
+  g_autoptr (GError) error = NULL;
+  g_autofree char *dir = g_dir_make_tmp ("sw-cli-staging-XXXXXX", &error);
+  g_autofree char *decision = g_build_filename (dir, "stage-decision.csv", NULL);
+  g_autofree char *carpet = g_build_filename (dir, "carpet.csv", NULL);
+  g_autofree char *text = NULL;
+  g_auto (GStrv) lines = NULL;
+  g_autoptr (SwCarpet) c = NULL;
+  SwCarpetOptions o;
+  SwStaging s;
+  Run r;
+
+  g_assert_no_error (error);
+  run_cli (&r, "export", path, "--csv", dir, "--no-montecarlo", "--no-ascent", NULL);
+  g_assert_cmpint (r.code, ==, 0);
+  run_clear (&r);
+  g_assert_true (sw_staging_compute (d, 6, &s, NULL));
+  g_assert_true (g_file_get_contents (decision, &text, NULL, &error));
+  lines = g_strsplit (text, "\n", -1);
+  g_assert_true (g_str_has_prefix (lines[0], "# Conceptual sizing only"));
+  g_assert_cmpstr (lines[1] + 2, ==, s.weighting);
+  g_assert_true (g_str_has_prefix (lines[2], "stage_count,closes,closes_recovered,liftoff_mass_kg,"));
+  for (guint i = 0; i < 6; i++)
+    {
+      g_auto (GStrv) f = g_strsplit (lines[3 + i], ",", -1);
+      const double core[] = { s.rows[i].liftoff_mass_kg, s.rows[i].liftoff_mass_reused_kg,
+                              s.rows[i].payload_penalty_fraction,
+                              s.rows[i].development_work_years,
+                              s.rows[i].development_reused_work_years,
+                              s.rows[i].cost_per_flight_work_years,
+                              s.rows[i].cost_per_flight_reused_work_years,
+                              s.rows[i].success_probability, s.rows[i].payload_fixed_size_kg,
+                              s.rows[i].score };
+
+      g_assert_cmpuint (g_strv_length (f), ==, 15);
+      g_assert_cmpint (atoi (f[0]), ==, i + 1);
+      g_assert_cmpstr (f[13], ==, (int) i == s.best ? "true" : "false");
+      g_assert_cmpstr (f[14], ==, i + 1 == 2 ? "true" : "false");
+      for (guint k = 0; k < G_N_ELEMENTS (core); k++)
+        if (isfinite (core[k]))
+          g_assert_cmpfloat_with_epsilon (g_ascii_strtod (f[3 + k], NULL) / core[k], 1.0, 1e-13);
+        else
+          g_assert_cmpstr (f[3 + k], ==, "");
+    }
+  g_clear_pointer (&text, g_free);
+  g_clear_pointer (&lines, g_strfreev);
+
+  /* The export's carpet: eps of stage 1 from 0.5 to 1.5 times 0.06, the top
+   * stage's Isp from 0.85 to 1.15 times 345 s, 21 x 21, liftoff mass. */
+  memset (&o, 0, sizeof o);
+  g_assert_true (sw_carpet_param_parse ("stages[0].structural_coefficient", d, &o.x, NULL));
+  g_assert_true (sw_carpet_param_parse ("stages[1].isp_vac_s", d, &o.y, NULL));
+  o.x.min = 0.03;
+  o.x.max = 0.09;
+  o.y.min = 293.25;
+  o.y.max = 396.75;
+  o.x.n = o.y.n = 21;
+  o.output = SW_CARPET_LIFTOFF_MASS;
+  c = sw_carpet_compute (d, &o, NULL);
+  g_assert_nonnull (c);
+  g_assert_true (g_file_get_contents (carpet, &text, NULL, &error));
+  lines = g_strsplit (text, "\n", -1);
+  g_assert_cmpstr (lines[1], ==, "stages[0].structural_coefficient,stages[1].isp_vac_s,"
+                                 "liftoff_mass_kg,closes");
+  g_assert_cmpuint (g_strv_length (lines), ==, 2 + 21 * 21 + 1);
+  for (guint k = 0; k < 21 * 21; k += 37)
+    {
+      g_auto (GStrv) f = g_strsplit (lines[2 + k], ",", -1);
+      g_assert_cmpfloat_with_epsilon (g_ascii_strtod (f[2], NULL) / c->values[k], 1.0, 1e-13);
+    }
+  g_unlink (decision);
+  g_unlink (carpet);
+  {
+    g_autoptr (GDir) gd = g_dir_open (dir, 0, NULL);
+    const char *name;
+    while ((name = g_dir_read_name (gd)) != NULL)
+      {
+        g_autofree char *p = g_build_filename (dir, name, NULL);
+        g_unlink (p);
+      }
+  }
+  g_rmdir (dir);
+  g_unlink (path);
+}
+
+int
+main (int argc, char **argv)
+{
+  g_test_init (&argc, &argv, NULL);
+  g_test_add_func ("/cli/staging/stages-json", test_stages_json);
+  g_test_add_func ("/cli/staging/stages-table", test_stages_table);
+  g_test_add_func ("/cli/staging/carpet-json-csv", test_carpet_json_csv);
+  g_test_add_func ("/cli/staging/carpet-errors", test_carpet_errors);
+  g_test_add_func ("/cli/staging/export-csv", test_export_csv);
+  return g_test_run ();
+}

@@ -1,0 +1,168 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* Tests of the optional "economics" keys: reading, defaults, saving and
+ * reading back, and errors that name the file, the path and the range. */
+#include "config.h"
+
+#include "sw-design.h"
+#include "sw-economics.h"
+
+#include <math.h>
+#include <string.h>
+
+#define HEAD "{ \"format\": \"stagewright-design\", \"version\": 1, \"name\": \"econ\",\n" \
+             "  \"payload_kg\": 1000, \"mission\": { \"delta_v_m_s\": 9000 },\n" \
+             "  \"split\": \"optimal\", \"stages\": [\n" \
+             "    { \"isp_vac_s\": 300, \"structural_coefficient\": 0.07 },\n" \
+             "    { \"isp_vac_s\": 340, \"structural_coefficient\": 0.09 },\n" \
+             "    { \"isp_vac_s\": 340, \"structural_coefficient\": 0.1 } ]"
+
+static const char *full_json = HEAD ",\n"
+  "  \"economics\": { \"work_year_cost\": 250000, \"production_run\": 40,\n"
+  "    \"learning_rate\": 0.85,\n"
+  "    \"cost_coefficients\": { \"stage_development_factor\": 90, \"engine_unit_exponent\": 0.5 },\n"
+  "    \"engine_types\": [ { \"name\": \"Lower\", \"dry_mass_kg\": 1100, \"on_stages\": [0] },\n"
+  "                        { \"name\": \"Upper\", \"dry_mass_kg\": 400, \"on_stages\": [1, 2],\n"
+  "                          \"developed\": true } ],\n"
+  "    \"developed_stages\": [2], \"engine_mass_fraction\": 0.3,\n"
+  "    \"recovery\": { \"mode\": \"launch_site\", \"recovery_delta_v_m_s\": 2500,\n"
+  "                  \"landing_hardware_fraction\": 0.12, \"refurbishment_fraction\": 0.05,\n"
+  "                  \"flights_per_stage\": 15 },\n"
+  "    \"decision_weights\": { \"liftoff_mass\": 0.5, \"failure\": 3 } } }";
+
+static SwDesign *
+load (const char *json, GPtrArray *warnings, GError **error)
+{
+  return sw_design_load_data (json, -1, "econ.stagewright", warnings, error);
+}
+
+static void
+test_defaults (void)
+{
+  g_autoptr (GError) error = NULL;
+  g_autoptr (SwDesign) d = load (HEAD " }", NULL, &error);
+  const SwEconomics *e;
+
+  g_assert_no_error (error);
+  e = &d->economics;
+  g_assert_false (e->present);
+  g_assert_cmpuint (e->production_run, ==, 10);
+  g_assert_cmpfloat (e->learning_rate, ==, 0.9);
+  /* The published-form table, coefficients from memory (reference notes,
+   * "Cost-estimating relationships"). */
+  g_assert_cmpfloat (e->coefficients[SW_CER_STAGE_DEV_FACTOR], ==, 100.0);
+  g_assert_cmpfloat (e->coefficients[SW_CER_STAGE_DEV_EXPONENT], ==, 0.555);
+  g_assert_cmpfloat (e->coefficients[SW_CER_ENGINE_DEV_FACTOR], ==, 277.0);
+  g_assert_cmpfloat (e->coefficients[SW_CER_SYSTEMS_BASE], ==, 1.04);
+  for (guint i = 0; i < SW_N_CER; i++)
+    g_assert_nonnull (strstr (sw_cer_info (i)->provenance, "published form"));
+  g_assert_nonnull (strstr (sw_cer_info (SW_CER_STAGE_UNIT_FACTOR)->provenance, "from memory"));
+  g_assert_cmpint (e->recovery_mode, ==, SW_RECOVERY_NONE);
+  g_assert_cmpfloat (sw_economics_recovery_delta_v (e), ==, 0.0);
+  g_assert_cmpint (sw_economics_engine_type_of_stage (e, 0), ==, -1);
+}
+
+static void
+test_load_and_round_trip (void)
+{
+  g_autoptr (GError) error = NULL;
+  g_autoptr (GPtrArray) warnings = g_ptr_array_new_with_free_func (g_free);
+  g_autoptr (SwDesign) d = load (full_json, warnings, &error);
+  g_autoptr (SwDesign) back = NULL;
+  g_autofree char *data = NULL;
+  const SwEconomics *e;
+  gsize len;
+
+  g_assert_no_error (error);
+  g_assert_cmpuint (warnings->len, ==, 0);
+  e = &d->economics;
+  g_assert_true (e->present);
+  g_assert_cmpfloat (e->work_year_cost, ==, 250000.0);
+  g_assert_cmpuint (e->production_run, ==, 40);
+  g_assert_cmpfloat (e->coefficients[SW_CER_STAGE_DEV_FACTOR], ==, 90.0);
+  g_assert_cmpfloat (e->coefficients[SW_CER_STAGE_DEV_EXPONENT], ==, 0.555);
+  g_assert_cmpfloat (e->coefficients[SW_CER_ENGINE_UNIT_EXPONENT], ==, 0.5);
+  g_assert_cmpuint (e->n_engine_types, ==, 2);
+  g_assert_cmpstr (e->engine_types[1].name, ==, "Upper");
+  g_assert_true (e->engine_types[1].developed);
+  g_assert_cmpint (sw_economics_engine_type_of_stage (e, 0), ==, 0);
+  g_assert_cmpint (sw_economics_engine_type_of_stage (e, 2), ==, 1);
+  g_assert_cmpuint (e->developed_stages, ==, 0x4);
+  g_assert_cmpint (e->recovery_mode, ==, SW_RECOVERY_LAUNCH_SITE);
+  g_assert_cmpfloat (sw_economics_recovery_delta_v (e), ==, 2500.0);
+  g_assert_cmpuint (e->flights_per_stage, ==, 15);
+  g_assert_cmpfloat (e->weight_liftoff_mass, ==, 0.5);
+  g_assert_cmpfloat (e->weight_development, ==, 1.0);
+  g_assert_cmpfloat (e->weight_failure, ==, 3.0);
+
+  data = sw_design_to_data (d, &len);
+  back = load (data, NULL, &error);
+  g_assert_no_error (error);
+  g_assert_true (sw_design_equal (d, back));
+  /* A design without the object saves without it. */
+  {
+    g_autoptr (SwDesign) plain = load (HEAD " }", NULL, NULL);
+    g_autofree char *text = sw_design_to_data (plain, &len);
+    g_assert_null (strstr (text, "economics"));
+  }
+}
+
+static void
+expect_error (const char *economics, const char *message)
+{
+  g_autofree char *json = g_strdup_printf (HEAD ", \"economics\": %s }", economics);
+  g_autoptr (GError) error = NULL;
+  g_autoptr (SwDesign) d = load (json, NULL, &error);
+
+  g_assert_null (d);
+  g_assert_nonnull (error);
+  if (strstr (error->message, message) == NULL || !g_str_has_prefix (error->message, "econ.stagewright: "))
+    g_error ("expected \"%s\" in \"%s\"", message, error->message);
+}
+
+static void
+test_errors (void)
+{
+  expect_error ("[]", "economics: expected an object");
+  expect_error ("{ \"production_run\": 2.5 }", "economics.production_run: 2.5 is not a whole number");
+  expect_error ("{ \"learning_rate\": 1.2 }",
+                "economics.learning_rate: 1.2 is outside the accepted range 0.5 to 1");
+  expect_error ("{ \"engine_types\": [ { \"on_stages\": [0] } ] }",
+                "economics.engine_types[0].dry_mass_kg: required number is missing");
+  expect_error ("{ \"engine_types\": [ { \"dry_mass_kg\": 100, \"on_stages\": [3] } ] }",
+                "economics.engine_types[0].on_stages: names a stage the design does not have "
+                "(it has 3, numbered from 0)");
+  expect_error ("{ \"engine_types\": [ { \"dry_mass_kg\": 100, \"on_stages\": [0] },"
+                " { \"dry_mass_kg\": 50, \"on_stages\": [1, 0] } ] }",
+                "economics.engine_types[1].on_stages: a stage already uses another engine type");
+  expect_error ("{ \"developed_stages\": [\"first\"] }",
+                "economics.developed_stages[0]: expected a stage index, found a string");
+  expect_error ("{ \"recovery\": { \"mode\": \"parachute\" } }",
+                "economics.recovery.mode: \"parachute\" is not a recovery mode");
+  expect_error ("{ \"decision_weights\": { \"failure\": -1 } }",
+                "economics.decision_weights.failure: -1 is outside the accepted range 0 to 100");
+  expect_error ("{ \"engine_types\": [ { \"dry_mass_kg\": 100, \"developed\": 1 } ] }",
+                "economics.engine_types[0].developed: expected true or false, found a number");
+}
+
+static void
+test_unknown_keys_warn (void)
+{
+  g_autoptr (GError) error = NULL;
+  g_autoptr (GPtrArray) warnings = g_ptr_array_new_with_free_func (g_free);
+  g_autoptr (SwDesign) d = load (HEAD ", \"economics\": { \"budget\": 1,"
+                                 " \"recovery\": { \"legs\": 4 } } }", warnings, &error);
+
+  g_assert_no_error (error);
+  g_assert_cmpuint (warnings->len, ==, 2);
+}
+
+int
+main (int argc, char **argv)
+{
+  g_test_init (&argc, &argv, NULL);
+  g_test_add_func ("/core/economics/defaults", test_defaults);
+  g_test_add_func ("/core/economics/load-and-round-trip", test_load_and_round_trip);
+  g_test_add_func ("/core/economics/errors", test_errors);
+  g_test_add_func ("/core/economics/unknown-keys-warn", test_unknown_keys_warn);
+  return g_test_run ();
+}

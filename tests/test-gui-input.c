@@ -1,0 +1,554 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* No silent edits, driven by real input: xdotool sends key, wheel and
+ * pointer events through the X server (XTEST) to the running window, and
+ * the design is read back through the window's test API.  Each case: text
+ * that does not parse or is out of range, a decimal comma, a window
+ * shortcut while a field has focus, the wheel over a field without focus,
+ * a value that conflicts with a dependent field, and undo from a focused
+ * field.  Suite 'gui' (Xvfb, X11 backend). */
+#include "config.h"
+
+#include "sw-application.h"
+#include "sw-number-field.h"
+#include "sw-sizing.h"
+#include "sw-stage-thrust.h"
+#include "sw-window-private.h"
+
+#include "gui-test-env.h"
+
+#include <gdk/x11/gdkx.h>
+#include <locale.h>
+#include <math.h>
+#include <string.h>
+
+static char *tmp_dir;
+
+/* ---- real input -------------------------------------------------------- */
+
+/* Lets GTK read and handle every event the X server has for it now. */
+static void
+drain (void)
+{
+  for (int round = 0; round < 3; round++)
+    {
+      gdk_display_sync (gdk_display_get_default ());
+      while (g_main_context_pending (NULL))
+        g_main_context_iteration (NULL, FALSE);
+    }
+}
+
+/* Runs xdotool with @args (NULL-terminated) under a 10 s limit, then lets
+ * the window handle what it sent.  XTEST input needs nothing from this
+ * process, so a blocking spawn cannot deadlock. */
+static void
+xdo (const char *first, ...)
+{
+  g_autoptr (GPtrArray) argv = g_ptr_array_new ();
+  g_autoptr (GError) error = NULL;
+  g_autofree char *err = NULL;
+  int status = 0;
+  va_list ap;
+
+  g_ptr_array_add (argv, (char *) "timeout");
+  g_ptr_array_add (argv, (char *) "10");
+  g_ptr_array_add (argv, (char *) "xdotool");
+  va_start (ap, first);
+  for (const char *a = first; a != NULL; a = va_arg (ap, const char *))
+    g_ptr_array_add (argv, (char *) a);
+  va_end (ap);
+  g_ptr_array_add (argv, NULL);
+  if (!g_spawn_sync (NULL, (char **) argv->pdata, NULL, G_SPAWN_SEARCH_PATH
+                     | G_SPAWN_STDOUT_TO_DEV_NULL, NULL, NULL, NULL, &err, &status, &error))
+    g_error ("xdotool: %s", error->message);
+  if (!g_spawn_check_wait_status (status, &error))
+    g_error ("xdotool %s: %s (%s)", first, error->message, err);
+  drain ();
+}
+
+static char *
+xid_of (SwWindow *w)
+{
+  GdkSurface *surface = gtk_native_get_surface (GTK_NATIVE (w));
+  return g_strdup_printf ("%lu", (unsigned long) gdk_x11_surface_get_xid (surface));
+}
+
+static gboolean
+is_active (gpointer data)
+{
+  return gtk_window_is_active (GTK_WINDOW (data));
+}
+
+/* Gives the X input focus to the window and GTK's focus to @field. */
+static void
+focus_field (SwWindow *w, GtkWidget *field)
+{
+  g_autofree char *xid = xid_of (w);
+  GtkWidget *focus;
+
+  xdo ("windowfocus", "--sync", xid, NULL);
+  sw_test_wait_until (is_active, w, 10000, "the window to be active");
+  g_assert_true (gtk_widget_grab_focus (field));
+  drain ();
+  focus = gtk_root_get_focus (GTK_ROOT (w));
+  g_assert_true (focus == field || gtk_widget_is_ancestor (focus, field));
+}
+
+/* Moves the pointer to the middle of @widget. */
+static void
+point_at (SwWindow *w, GtkWidget *widget)
+{
+  g_autofree char *xid = xid_of (w);
+  graphene_point_t in = GRAPHENE_POINT_INIT (gtk_widget_get_width (widget) / 2.0,
+                                             gtk_widget_get_height (widget) / 2.0);
+  graphene_point_t out;
+  double sx, sy;
+  g_autofree char *x = NULL, *y = NULL;
+
+  g_assert_true (gtk_widget_compute_point (widget, GTK_WIDGET (w), &in, &out));
+  gtk_native_get_surface_transform (GTK_NATIVE (w), &sx, &sy);
+  x = g_strdup_printf ("%d", (int) (out.x + sx));
+  y = g_strdup_printf ("%d", (int) (out.y + sy));
+  xdo ("mousemove", "--window", xid, "--sync", x, y, NULL);
+}
+
+/* Replaces the text of the focused field by typing, as a user does. */
+static void
+retype (const char *text)
+{
+  xdo ("key", "--clearmodifiers", "ctrl+a", "BackSpace", NULL);
+  if (text[0] != '\0')
+    xdo ("type", "--delay", "2", "--", text, NULL);
+}
+
+/* ---- the window -------------------------------------------------------- */
+
+static gboolean
+mapped (gpointer data)
+{
+  return gtk_widget_get_mapped (GTK_WIDGET (data));
+}
+
+static SwWindow *
+window_with_demo (const char *name)
+{
+  SwWindow *w = sw_window_new (NULL);
+  g_autofree char *path = g_build_filename (SOURCE_DESIGNS_DIR, name, NULL);
+  g_autoptr (GFile) file = g_file_new_for_path (path);
+
+  gtk_window_set_default_size (GTK_WINDOW (w), 1280, 900);
+  gtk_window_present (GTK_WINDOW (w));
+  g_assert_true (sw_window_load (w, file));
+  sw_test_wait_until (mapped, w, 10000, "the window to map");
+  sw_test_wait_until (sw_test_result_drawn, w, 60000, "the first result to be drawn");
+  return w;
+}
+
+static SwNumberField *
+field (SwWindow *w, SwInspectorField f)
+{
+  return SW_NUMBER_FIELD (sw_inspector_get_field (sw_window_get_inspector (w), f));
+}
+
+static const SwDesign *
+doc_design (SwWindow *w)
+{
+  return sw_document_get_design (sw_window_get_document (w));
+}
+
+static void
+assert_unchanged (SwWindow *w, const SwDesign *before)
+{
+  g_assert_true (sw_design_equal (doc_design (w), before));
+}
+
+/* With SW_TEST_SHOT_DIR set, a picture of the window for a person to look
+ * at (not checked). */
+static void
+maybe_shot (SwWindow *w, const char *name)
+{
+  const char *dir = g_getenv ("SW_TEST_SHOT_DIR");
+  g_autofree char *path = NULL;
+  g_autoptr (GError) error = NULL;
+
+  if (dir == NULL)
+    return;
+  path = g_build_filename (dir, name, NULL);
+  if (!sw_application_write_png (GTK_WIDGET (w), path, &error))
+    g_test_message ("%s: %s", path, error->message);
+}
+
+/* ---- cases ------------------------------------------------------------- */
+
+/* Letters in Payload, then Enter: an error on the field with the accepted
+ * range, the payload as it was; Escape gives the value back. */
+static void
+test_letters (void)
+{
+  SwWindow *w = window_with_demo ("medium-cargo.stagewright");
+  SwNumberField *payload = field (w, SW_INSPECTOR_PAYLOAD);
+  g_autoptr (SwDesign) before = sw_design_copy (doc_design (w));
+
+  focus_field (w, GTK_WIDGET (payload));
+  retype ("abc");
+  xdo ("key", "Return", NULL);
+  assert_unchanged (w, before);
+  g_assert_cmpfloat (doc_design (w)->payload_kg, ==, 8000.0);
+  g_assert_false (sw_document_get_modified (sw_window_get_document (w)));
+  g_assert_cmpstr (sw_number_field_get_text (payload), ==, "abc");
+  g_assert_cmpstr (sw_number_field_get_error (payload), ==,
+                   "“abc” is not a number; write it like 0.95. Accepted: 0.1 to 10,000,000 kg");
+  g_assert_true (gtk_widget_has_css_class (sw_number_field_get_entry (payload), "error"));
+  maybe_shot (w, "input-letters.png");
+  /* Leaving the field does not take the text either. */
+  focus_field (w, GTK_WIDGET (field (w, SW_INSPECTOR_ISP_VAC)));
+  assert_unchanged (w, before);
+  focus_field (w, GTK_WIDGET (payload));
+  xdo ("key", "Escape", NULL);
+  g_assert_cmpstr (sw_number_field_get_text (payload), ==, "8000");
+  g_assert_null (sw_number_field_get_error (payload));
+  g_assert_false (gtk_widget_has_css_class (sw_number_field_get_entry (payload), "error"));
+  sw_test_window_close (w);
+}
+
+/* "-5" in the vacuum Isp: out of range, refused, not 50 s. */
+static void
+test_out_of_range (void)
+{
+  SwWindow *w = window_with_demo ("medium-cargo.stagewright");
+  SwNumberField *isp = field (w, SW_INSPECTOR_ISP_VAC);
+  g_autoptr (SwDesign) before = sw_design_copy (doc_design (w));
+
+  sw_inspector_set_selected (sw_window_get_inspector (w), 0);
+  focus_field (w, GTK_WIDGET (isp));
+  retype ("-5");
+  xdo ("key", "Return", NULL);
+  assert_unchanged (w, before);
+  g_assert_cmpfloat (doc_design (w)->stages[0].isp_vac_s, ==, 338.0);
+  g_assert_cmpstr (sw_number_field_get_error (isp), ==,
+                   "-5 is out of range. Accepted: 50 to 1,000 s");
+  /* A valid value then goes in as one edit. */
+  retype ("340");
+  xdo ("key", "Return", NULL);
+  g_assert_cmpfloat (doc_design (w)->stages[0].isp_vac_s, ==, 340.0);
+  g_assert_null (sw_number_field_get_error (isp));
+  sw_test_window_close (w);
+}
+
+/* The locale's decimal mark: "0,95" as a propellant fraction under a
+ * German locale is 0.95 (eps 0.05), not 0.40; under the C locale the comma
+ * is refused with an error. */
+static void
+test_decimal_comma (void)
+{
+  g_autofree char *old = g_strdup (setlocale (LC_NUMERIC, NULL));
+  SwWindow *w = window_with_demo ("medium-cargo.stagewright");
+  SwNumberField *eps = field (w, SW_INSPECTOR_EPS);
+  GtkDropDown *forms = GTK_DROP_DOWN (sw_inspector_get_field (sw_window_get_inspector (w),
+                                                              SW_INSPECTOR_EPS_FORM));
+  g_autoptr (SwDesign) before = sw_design_copy (doc_design (w));
+
+  sw_inspector_set_selected (sw_window_get_inspector (w), 0);
+  gtk_drop_down_set_selected (forms, SW_EPS_PROPELLANT_FRACTION);
+  focus_field (w, GTK_WIDGET (eps));
+  retype ("0,95");
+  xdo ("key", "Return", NULL);
+  assert_unchanged (w, before);
+  g_assert_nonnull (strstr (sw_number_field_get_error (eps), "is not a number"));
+  xdo ("key", "Escape", NULL);
+
+  if (setlocale (LC_NUMERIC, "de_DE.UTF-8") == NULL)
+    {
+      gtk_drop_down_set_selected (forms, SW_EPS_COEFFICIENT);
+      sw_test_window_close (w);
+      g_test_skip ("no de_DE.UTF-8 locale on this machine");
+      return;
+    }
+  retype ("0,95");
+  xdo ("key", "Return", NULL);
+  setlocale (LC_NUMERIC, old);
+  g_assert_null (sw_number_field_get_error (eps));
+  g_assert_cmpfloat_with_epsilon (doc_design (w)->stages[0].structural_coefficient, 0.05, 1e-12);
+  gtk_drop_down_set_selected (forms, SW_EPS_COEFFICIENT);
+  sw_test_window_close (w);
+}
+
+/* The previous-stage and next-stage shortcuts (Ctrl+Page Up/Down) with the
+ * cursor in a field change neither the field nor the design; with the
+ * focus on the stage list they do move the selection. */
+static void
+test_shortcut_in_field (void)
+{
+  SwWindow *w = window_with_demo ("medium-cargo.stagewright");
+  SwInspector *inspector = sw_window_get_inspector (w);
+  SwNumberField *isp = field (w, SW_INSPECTOR_ISP_VAC);
+  g_autoptr (SwDesign) before = sw_design_copy (doc_design (w));
+  g_autofree char *text = NULL;
+
+  sw_inspector_set_selected (inspector, 1);
+  focus_field (w, GTK_WIDGET (isp));
+  text = g_strdup (sw_number_field_get_text (isp));
+  xdo ("key", "ctrl+Prior", NULL);
+  xdo ("key", "ctrl+Next", NULL);
+  assert_unchanged (w, before);
+  g_assert_cmpstr (sw_number_field_get_text (isp), ==, text);
+  g_assert_cmpint (sw_inspector_get_selected (inspector), ==, 1);
+  /* The shortcut itself works where it belongs (focus on a drop-down). */
+  focus_field (w, sw_inspector_get_field (inspector, SW_INSPECTOR_EPS_FORM));
+  xdo ("key", "ctrl+Prior", NULL);
+  g_assert_cmpint (sw_inspector_get_selected (inspector), ==, 0);
+  assert_unchanged (w, before);
+  sw_test_window_close (w);
+}
+
+/* The wheel over a field without focus never edits it; with focus each
+ * wheel step is one edit and one undo step. */
+static void
+test_wheel (void)
+{
+  SwWindow *w = window_with_demo ("medium-cargo.stagewright");
+  SwDocument *doc = sw_window_get_document (w);
+  SwNumberField *isp = field (w, SW_INSPECTOR_ISP_VAC);
+  g_autoptr (SwDesign) before = sw_design_copy (doc_design (w));
+
+  sw_inspector_set_selected (sw_window_get_inspector (w), 0);
+  focus_field (w, GTK_WIDGET (field (w, SW_INSPECTOR_PAYLOAD)));
+  point_at (w, GTK_WIDGET (isp));
+  xdo ("click", "--repeat", "3", "--delay", "30", "5", NULL);
+  xdo ("click", "--repeat", "3", "--delay", "30", "4", NULL);
+  assert_unchanged (w, before);
+  g_assert_false (sw_document_can_undo (doc));
+
+  focus_field (w, GTK_WIDGET (isp));
+  point_at (w, GTK_WIDGET (isp));
+  xdo ("click", "--repeat", "3", "--delay", "30", "5", NULL);
+  g_assert_cmpfloat (doc_design (w)->stages[0].isp_vac_s, ==, 335.0);
+  /* Ctrl+Z with the focus in the field: one wheel step at a time. */
+  xdo ("key", "ctrl+z", NULL);
+  g_assert_cmpfloat (doc_design (w)->stages[0].isp_vac_s, ==, 336.0);
+  xdo ("key", "ctrl+z", NULL);
+  g_assert_cmpfloat (doc_design (w)->stages[0].isp_vac_s, ==, 337.0);
+  xdo ("key", "ctrl+z", NULL);
+  assert_unchanged (w, before);
+  g_assert_false (sw_document_can_undo (doc));
+  g_assert_cmpstr (sw_number_field_get_text (isp), ==, "338");
+  sw_test_window_close (w);
+}
+
+/* A vacuum Isp below the sea-level Isp: an error on both fields, and
+ * neither value of the design moves. */
+static void
+test_dependent_field (void)
+{
+  SwWindow *w = window_with_demo ("medium-cargo.stagewright");
+  SwNumberField *vac = field (w, SW_INSPECTOR_ISP_VAC);
+  SwNumberField *sl = field (w, SW_INSPECTOR_ISP_SL);
+  g_autoptr (SwDesign) before = sw_design_copy (doc_design (w));
+
+  sw_inspector_set_selected (sw_window_get_inspector (w), 0);
+  g_assert_cmpfloat (doc_design (w)->stages[0].isp_sl_s, ==, 305.0);
+  focus_field (w, GTK_WIDGET (vac));
+  retype ("200");
+  xdo ("key", "Return", NULL);
+  assert_unchanged (w, before);
+  g_assert_cmpstr (sw_number_field_get_error (vac), ==,
+                   "200 s is below the stage's sea-level Isp of 305 s; lower the sea-level "
+                   "Isp first");
+  g_assert_cmpstr (sw_number_field_get_error (sl), ==,
+                   "Above the vacuum Isp typed: lower this first");
+  g_assert_true (gtk_widget_has_css_class (sw_number_field_get_entry (sl), "error"));
+  g_assert_cmpstr (sw_number_field_get_text (sl), ==, "305");
+  maybe_shot (w, "input-conflict.png");
+  /* Raising it again: one edit, the sea-level Isp where it was. */
+  retype ("345");
+  xdo ("key", "Return", NULL);
+  g_assert_cmpfloat (doc_design (w)->stages[0].isp_vac_s, ==, 345.0);
+  g_assert_cmpfloat (doc_design (w)->stages[0].isp_sl_s, ==, 305.0);
+  g_assert_null (sw_number_field_get_error (vac));
+  g_assert_null (sw_number_field_get_error (sl));
+  sw_test_window_close (w);
+}
+
+/* Ctrl+Z in a focused field: text not yet committed is reverted first;
+ * with none, the last committed edit is undone; each commit is one step. */
+static void
+test_undo_in_field (void)
+{
+  SwWindow *w = window_with_demo ("medium-cargo.stagewright");
+  SwDocument *doc = sw_window_get_document (w);
+  SwNumberField *payload = field (w, SW_INSPECTOR_PAYLOAD);
+  g_autoptr (SwDesign) before = sw_design_copy (doc_design (w));
+
+  focus_field (w, GTK_WIDGET (payload));
+  retype ("9000");
+  xdo ("key", "ctrl+z", NULL);
+  g_assert_cmpstr (sw_number_field_get_text (payload), ==, "8000");
+  assert_unchanged (w, before);
+  g_assert_false (sw_document_can_undo (doc));
+
+  retype ("9000");
+  xdo ("key", "Return", NULL);
+  retype ("9500");
+  xdo ("key", "Return", NULL);
+  g_assert_cmpfloat (doc_design (w)->payload_kg, ==, 9500.0);
+  xdo ("key", "ctrl+z", NULL);
+  g_assert_cmpfloat (doc_design (w)->payload_kg, ==, 9000.0);
+  g_assert_cmpstr (sw_number_field_get_text (payload), ==, "9000");
+  xdo ("key", "ctrl+z", NULL);
+  assert_unchanged (w, before);
+  g_assert_cmpstr (sw_number_field_get_text (payload), ==, "8000");
+  xdo ("key", "ctrl+shift+z", NULL);
+  g_assert_cmpfloat (doc_design (w)->payload_kg, ==, 9000.0);
+  sw_test_window_close (w);
+}
+
+/* A first start shows an unsaved copy of a demo: the window says so, shows
+ * its notes (they say it is invented) and offers New. */
+static void
+test_first_start (void)
+{
+  SwWindow *w = sw_window_new (NULL);
+  g_autofree char *path = g_build_filename (SOURCE_DESIGNS_DIR, "medium-cargo.stagewright",
+                                            NULL);
+  g_autoptr (GFile) file = g_file_new_for_path (path);
+  SwInspector *inspector = sw_window_get_inspector (w);
+  GtkWidget *intro = sw_inspector_get_field (inspector, SW_INSPECTOR_INTRO);
+  GtkTextBuffer *notes;
+  GtkTextIter a, b;
+  g_autofree char *text = NULL;
+
+  gtk_window_present (GTK_WINDOW (w));
+  g_assert_true (sw_window_load_template (w, file));
+  sw_test_wait_until (sw_test_result_drawn, w, 60000, "the first result to be drawn");
+  g_assert_true (gtk_widget_get_visible (intro));
+  g_assert_true (gtk_widget_get_mapped (intro));
+  notes = gtk_text_view_get_buffer (GTK_TEXT_VIEW (sw_inspector_get_field (inspector,
+                                                                           SW_INSPECTOR_NOTES)));
+  gtk_text_buffer_get_bounds (notes, &a, &b);
+  text = gtk_text_buffer_get_text (notes, &a, &b, FALSE);
+  g_assert_true (g_str_has_prefix (text, "Invented demonstration scenario"));
+  /* Saved, the copy is the user's own design: the note goes. */
+  {
+    g_autofree char *saved = g_build_filename (tmp_dir, "mine.stagewright", NULL);
+    g_autoptr (GFile) saved_file = g_file_new_for_path (saved);
+    g_autoptr (GError) error = NULL;
+
+    g_assert_true (sw_window_save_to (w, saved_file, &error));
+    g_assert_false (gtk_widget_get_visible (intro));
+    g_assert_true (sw_window_load_template (w, file));
+    g_assert_true (gtk_widget_get_visible (intro));
+  }
+  g_assert_true (gtk_widget_activate_action (GTK_WIDGET (w), "design.new", NULL));
+  drain ();
+  g_assert_false (gtk_widget_get_visible (intro));
+  sw_test_window_close (w);
+}
+
+/* A stage added in the window (Ctrl+Shift+N, as a user does) gets its
+ * thrust from the common-practice ignition thrust-to-weight, so the ascent
+ * is simulated without opening the file; the T/W field then shows it. */
+static void
+test_new_stage_flies (void)
+{
+  SwWindow *w = window_with_demo ("three-stage-simulated.stagewright");
+  SwInspector *inspector = sw_window_get_inspector (w);
+  SwAnalysis *r;
+
+  focus_field (w, sw_inspector_get_field (inspector, SW_INSPECTOR_EPS_FORM));
+  xdo ("key", "ctrl+shift+n", NULL);
+  g_assert_cmpuint (doc_design (w)->n_stages, ==, 4);
+  g_assert_true (doc_design (w)->stages[3].propulsion.has_thrust);
+  g_assert_cmpint (sw_inspector_get_selected (inspector), ==, 3);
+  /* 0.8: upper-stage ignition T/W 0.6 to 1.2 (common practice). */
+  g_assert_cmpfloat_with_epsilon (sw_number_field_get_value (field (w, SW_INSPECTOR_TW)), 0.8,
+                                  1e-9);
+  sw_test_wait_until (sw_test_result_complete, w, 120000, "the ascent of four stages");
+  r = sw_window_get_shown_result (w);
+  if (r->ascent == NULL)
+    g_error ("no ascent for the new stage: %s", r->ascent_message);
+  g_assert_null (strstr (r->ascent_message, "missing"));
+  /* A T/W typed in the field sets the thrust: one edit. */
+  focus_field (w, GTK_WIDGET (field (w, SW_INSPECTOR_TW)));
+  retype ("1.1");
+  xdo ("key", "Return", NULL);
+  g_assert_null (sw_number_field_get_error (field (w, SW_INSPECTOR_TW)));
+  g_assert_cmpfloat_with_epsilon (sw_design_ignition_tw (doc_design (w), 3), 1.1, 1e-9);
+  sw_test_window_close (w);
+}
+
+/* The parser behind every field, case by case: the decimal mark of the
+ * locale (',' in German, with '.' its grouping mark), '.' where it is not
+ * the grouping mark, a sign, an exponent; nothing else. */
+static void
+test_parse (void)
+{
+  static const struct {
+    const char *text, *mark, *grouping;
+    gboolean ok;
+    double value;
+  } cases[] = {
+    { "0,95", ",", ".", TRUE, 0.95 },
+    { "0.95", ",", ".", FALSE, 0 },     /* German grouping mark: ambiguous, refused */
+    { "1.500", ",", ".", FALSE, 0 },
+    { "0.95", ".", ",", TRUE, 0.95 },
+    { "0,95", ".", ",", FALSE, 0 },     /* English grouping mark */
+    { "0.95", ",", "", TRUE, 0.95 },    /* a comma locale without grouping takes '.' too */
+    { "-5", ".", "", TRUE, -5.0 },
+    { "\xe2\x88\x92" "3,5", ",", ".", TRUE, -3.5 },  /* U+2212 minus */
+    { "+4", ".", "", TRUE, 4.0 },
+    { ".5", ".", "", TRUE, 0.5 },
+    { "5.", ".", "", TRUE, 5.0 },
+    { " 12 ", ".", "", TRUE, 12.0 },
+    { "1e3", ".", "", TRUE, 1000.0 },
+    { "2,5E-1", ",", ".", TRUE, 0.25 },
+    { "1e", ".", "", FALSE, 0 },
+    { "", ".", "", FALSE, 0 },
+    { "-", ".", "", FALSE, 0 },
+    { "abc", ".", "", FALSE, 0 },
+    { "12 kg", ".", "", FALSE, 0 },
+    { "nan", ".", "", FALSE, 0 },
+    { "inf", ".", "", FALSE, 0 },
+    { "0x10", ".", "", FALSE, 0 },
+    { "1,2,3", ",", ".", FALSE, 0 },
+    { "1e999", ".", "", FALSE, 0 },     /* not finite */
+  };
+
+  for (guint i = 0; i < G_N_ELEMENTS (cases); i++)
+    {
+      double v = -12345.0;
+      gboolean ok = sw_number_parse (cases[i].text, cases[i].mark, cases[i].grouping, &v);
+
+      if (ok != cases[i].ok)
+        g_error ("\"%s\" (mark %s, grouping \"%s\"): %s", cases[i].text, cases[i].mark,
+                 cases[i].grouping, ok ? "accepted" : "refused");
+      if (ok)
+        g_assert_cmpfloat (v, ==, cases[i].value);
+    }
+}
+
+int
+main (int argc, char **argv)
+{
+  int status;
+
+  tmp_dir = sw_gui_test_env_init (&argc, &argv, "stagewright-input-XXXXXX");
+  if (!GDK_IS_X11_DISPLAY (gdk_display_get_default ()))
+    {
+      g_printerr ("test-gui-input needs the X11 backend (GDK_BACKEND=x11 under Xvfb)\n");
+      return 77;
+    }
+
+  g_test_add_func ("/gui/input/parse", test_parse);
+  g_test_add_func ("/gui/input/letters", test_letters);
+  g_test_add_func ("/gui/input/out-of-range", test_out_of_range);
+  g_test_add_func ("/gui/input/decimal-comma", test_decimal_comma);
+  g_test_add_func ("/gui/input/shortcut-in-field", test_shortcut_in_field);
+  g_test_add_func ("/gui/input/wheel", test_wheel);
+  g_test_add_func ("/gui/input/dependent-field", test_dependent_field);
+  g_test_add_func ("/gui/input/undo-in-field", test_undo_in_field);
+  g_test_add_func ("/gui/input/first-start", test_first_start);
+  g_test_add_func ("/gui/input/new-stage-flies", test_new_stage_flies);
+
+  status = g_test_run ();
+  sw_gui_test_env_finish (tmp_dir);
+  return status;
+}

@@ -1,0 +1,99 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* GUI tests of the staging-decision page: its figures come from the worker
+ * (the weighting shown is the core's statement for the design), a newer
+ * result replaces an older one still running, a page destroyed while its
+ * worker runs does not crash, and the window shows the page by name.  Run
+ * under Xvfb with the cairo renderer (suite 'gui'). */
+#include "config.h"
+
+#include "sw-staging-page.h"
+#include "sw-window-private.h"
+
+#include "gui-test-env.h"
+
+#include <string.h>
+
+static char *tmp_dir;
+
+static gboolean
+ready_cb (gpointer data)
+{
+  return sw_staging_page_is_ready (SW_STAGING_PAGE (data));
+}
+
+static SwAnalysis *
+analyse (SwDesign *d)
+{
+  SwAnalysisOptions o;
+
+  sw_analysis_options_init (&o);
+  o.montecarlo = FALSE;
+  o.ascent = FALSE;
+  return sw_analysis_run (d, &o, NULL);
+}
+
+static void
+test_page_shows_worker_result (void)
+{
+  g_autoptr (SwDesign) d = sw_design_new_default ();
+  g_autoptr (SwDesign) d2 = sw_design_new_default ();
+  GtkWidget *win = gtk_window_new ();
+  GtkWidget *page = sw_staging_page_new ();
+  SwAnalysis *a, *b;
+
+  gtk_window_set_child (GTK_WINDOW (win), page);
+  gtk_window_set_default_size (GTK_WINDOW (win), 1000, 900);
+  gtk_window_present (GTK_WINDOW (win));
+  g_assert_false (sw_staging_page_is_ready (SW_STAGING_PAGE (page)));
+
+  /* Two results in a row: the first is cancelled or dropped, the second
+   * shown.  The second design recovers its first stage, so the statement
+   * names the recovered cost per flight. */
+  d2->economics.present = TRUE;
+  d2->economics.recovery_mode = SW_RECOVERY_DOWNRANGE;
+  d2->economics.weight_development = 0.0;
+  a = analyse (d);
+  b = analyse (d2);
+  sw_staging_page_set_result (SW_STAGING_PAGE (page), a);
+  sw_staging_page_set_result (SW_STAGING_PAGE (page), b);
+  sw_test_wait_until (ready_cb, page, 20000, "the staging page's worker");
+  g_assert_cmpstr (sw_staging_page_get_weighting (SW_STAGING_PAGE (page)), ==,
+                   "Weights: liftoff mass 1, cost per flight (first stage reused) 1; each "
+                   "criterion divided by its best stage count, the lowest sum wins");
+
+  /* A result, then the page goes away while its worker may still run. */
+  sw_staging_page_set_result (SW_STAGING_PAGE (page), a);
+  gtk_window_destroy (GTK_WINDOW (win));
+  sw_analysis_unref (a);
+  sw_analysis_unref (b);
+  /* Let the worker finish and its callback run against the disposed page. */
+  for (guint i = 0; i < 50; i++)
+    {
+      g_usleep (2000);
+      while (g_main_context_iteration (NULL, FALSE))
+        ;
+    }
+}
+
+static void
+test_window_has_page (void)
+{
+  SwWindow *w = sw_window_new (NULL);
+
+  gtk_window_present (GTK_WINDOW (w));
+  g_assert_true (sw_window_show_page (w, "staging"));
+  sw_test_window_close (w);
+}
+
+int
+main (int argc, char **argv)
+{
+  int status;
+
+  tmp_dir = sw_gui_test_env_init (&argc, &argv, "sw-staging-page-XXXXXX");
+  g_test_add_func ("/gui/staging-page/shows-worker-result", test_page_shows_worker_result);
+  g_test_add_func ("/gui/staging-page/window-has-page", test_window_has_page);
+  status = g_test_run ();
+  sw_gui_test_env_finish (tmp_dir);
+  return status;
+}

@@ -1,0 +1,179 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* Tests of the staging decision: every column against the module that owns
+ * that figure, and the payload of the fixed-size vehicle against the
+ * fixed-vehicle root finder (GSL Brent), an independent route. */
+#include "config.h"
+
+#include "sw-curves.h"
+#include "sw-design.h"
+#include "sw-fixed-vehicle.h"
+#include "sw-reliability.h"
+#include "sw-staging.h"
+
+#include <math.h>
+#include <string.h>
+
+static const char *design_json =
+  "{ \"format\": \"stagewright-design\", \"version\": 1, \"name\": \"staging test\",\n"
+  "  \"payload_kg\": 2000, \"mission\": { \"delta_v_m_s\": 9300 }, \"split\": \"optimal\",\n"
+  "  \"stages\": [\n"
+  "    { \"name\": \"A\", \"isp_vac_s\": 310, \"structural_coefficient\": 0.06,\n"
+  "      \"engine_count\": 9, \"engine_reliability\": 0.995, \"engine_failures_tolerated\": 1,\n"
+  "      \"ignition_reliability\": 0.999, \"separation_reliability\": 0.9995 },\n"
+  "    { \"name\": \"B\", \"isp_vac_s\": 345, \"structural_coefficient\": 0.09,\n"
+  "      \"engine_reliability\": 0.993, \"ignition_reliability\": 0.998 } ],\n"
+  "  \"economics\": { \"production_run\": 30, \"work_year_cost\": 200000,\n"
+  "    \"engine_types\": [ { \"name\": \"E1\", \"dry_mass_kg\": 900, \"on_stages\": [0, 1] } ],\n"
+  "    \"recovery\": { \"mode\": \"downrange\" } } }";
+
+static SwDesign *
+load (const char *json)
+{
+  g_autoptr (GError) error = NULL;
+  SwDesign *d = sw_design_load_data (json, -1, "test.stagewright", NULL, &error);
+
+  g_assert_no_error (error);
+  return d;
+}
+
+static void
+test_columns (void)
+{
+  g_autoptr (SwDesign) d = load (design_json);
+  SwStaging s;
+  SwStageCurve curve;
+  SwReliabilityCurve rel;
+  SwSizing own;
+  g_autoptr (GError) error = NULL;
+
+  g_assert_true (sw_staging_compute (d, 6, &s, &error));
+  g_assert_no_error (error);
+  g_assert_cmpuint (s.n_rows, ==, 6);
+  g_assert_true (s.design_reuses);
+  g_assert_true (s.reliability_given);
+  sw_stage_curve_compute (d, 9300.0, 6, &curve);
+  sw_reliability_curve_compute (d, 6, &rel);
+  g_assert_true (sw_size_design (d, &own, NULL));
+  for (guint i = 0; i < 6; i++)
+    {
+      const SwStagingRow *row = &s.rows[i];
+
+      g_assert_cmpuint (row->n_stages, ==, i + 1);
+      g_assert_cmpint (row->feasible, ==, curve.points[i].feasible);
+      if (!row->feasible)
+        {
+          g_assert_true (isnan (row->liftoff_mass_kg));
+          g_assert_true (isnan (row->score));
+          continue;
+        }
+      g_assert_cmpfloat_with_epsilon (row->liftoff_mass_kg / curve.points[i].liftoff_mass_kg, 1.0,
+                                      1e-12);
+      g_assert_cmpfloat_with_epsilon (row->success_probability, rel.mission[i], 1e-15);
+      g_assert_cmpfloat (row->liftoff_mass_reused_kg, >, row->liftoff_mass_kg);
+      g_assert_cmpfloat (row->development_work_years, >, 0.0);
+      /* The fixed-size vehicle: the row's vehicle scaled to the design's
+       * liftoff mass, its payload found by the root finder. */
+      {
+        SwStageSet set;
+        SwSizing sz;
+        SwFixedVehicle fv;
+        double payload, scale = own.liftoff_mass_kg / row->liftoff_mass_kg;
+
+        sw_stage_set_extend (&set, d, i + 1);
+        sw_size (&set, d->payload_kg, 9300.0, SW_SPLIT_OPTIMAL, &sz);
+        g_assert_true (sw_fixed_vehicle_from_sizing (&fv, &sz));
+        for (guint k = 0; k < fv.n_stages; k++)
+          {
+            fv.propellant_mass_kg[k] *= scale;
+            fv.structural_mass_kg[k] *= scale;
+          }
+        g_assert_true (sw_fixed_vehicle_payload (&fv, 9300.0, &payload));
+        g_assert_cmpfloat_with_epsilon (row->payload_fixed_size_kg / payload, 1.0, 1e-6);
+      }
+    }
+  /* One stage does not reach 9.3 km/s with eps 0.06 and 310 s (c ln(1/eps)
+   * = 8553 m/s); two and more do. */
+  g_assert_false (s.rows[0].feasible);
+  g_assert_true (s.rows[1].feasible);
+  /* The design's own stage count carries its own payload at its own mass. */
+  g_assert_cmpfloat_with_epsilon (s.rows[1].payload_fixed_size_kg, 2000.0, 1e-9);
+  /* More stages are lighter here, and less reliable. */
+  g_assert_cmpfloat (s.rows[2].liftoff_mass_kg, <, s.rows[1].liftoff_mass_kg);
+  g_assert_cmpfloat (s.rows[2].success_probability, <, s.rows[1].success_probability);
+}
+
+/* The best stage count under a weighting is the argmin of the criterion
+ * when only that criterion is weighted. */
+static void
+test_best_under_weighting (void)
+{
+  g_autoptr (SwDesign) d = load (design_json);
+  SwStaging s;
+  int argmin = -1;
+
+  d->economics.weight_development = 0.0;
+  d->economics.weight_cost_per_flight = 0.0;
+  d->economics.weight_failure = 0.0;
+  g_assert_true (sw_staging_compute (d, 6, &s, NULL));
+  for (guint i = 0; i < s.n_rows; i++)
+    if (s.rows[i].feasible && s.rows[i].reused_feasible
+        && (argmin < 0 || s.rows[i].liftoff_mass_kg < s.rows[argmin].liftoff_mass_kg))
+      argmin = (int) i;
+  g_assert_cmpint (s.best, ==, argmin);
+  g_assert_cmpint (s.best, >, 1);
+  g_assert_cmpstr (s.weighting, ==,
+                   "Weights: liftoff mass 1; each criterion divided by its best stage count, "
+                   "the lowest sum wins");
+
+  /* Failure probability alone: the fewest feasible stages. */
+  d->economics.weight_liftoff_mass = 0.0;
+  d->economics.weight_failure = 1.0;
+  g_assert_true (sw_staging_compute (d, 6, &s, NULL));
+  g_assert_cmpint (s.best, ==, 1);
+  g_assert_cmpstr (s.weighting, ==,
+                   "Weights: failure probability 1; each criterion divided by its best stage "
+                   "count, the lowest sum wins");
+
+  /* The default weighting, stated. */
+  d->economics.weight_liftoff_mass = d->economics.weight_development = 1.0;
+  d->economics.weight_cost_per_flight = 2.0;
+  g_assert_true (sw_staging_compute (d, 4, &s, NULL));
+  g_assert_cmpstr (s.weighting, ==,
+                   "Weights: liftoff mass 1, development effort 1, cost per flight (first stage "
+                   "reused) 2, failure probability 1; each criterion divided by its best stage "
+                   "count, the lowest sum wins");
+  g_assert_cmpint (s.best, >=, 1);
+  g_assert_true (isfinite (s.rows[s.best].score));
+  for (guint i = 0; i < s.n_rows; i++)
+    if (isfinite (s.rows[i].score))
+      g_assert_cmpfloat (s.rows[i].score, >=, s.rows[s.best].score);
+}
+
+/* Without economics or reliability keys: expendable, downrange for the
+ * reused column, no failure criterion. */
+static void
+test_defaults (void)
+{
+  g_autoptr (SwDesign) d = sw_design_new_default ();
+  SwStaging s;
+
+  g_assert_true (sw_staging_compute (d, 3, &s, NULL));
+  g_assert_false (s.design_reuses);
+  g_assert_cmpint (s.reuse_mode, ==, SW_RECOVERY_DOWNRANGE);
+  g_assert_false (s.reliability_given);
+  g_assert_true (isnan (s.rows[1].success_probability));
+  g_assert_false (s.has_money);
+  g_assert_cmpstr (s.weighting, ==,
+                   "Weights: liftoff mass 1, development effort 1, cost per flight (expendable) "
+                   "1; each criterion divided by its best stage count, the lowest sum wins");
+}
+
+int
+main (int argc, char **argv)
+{
+  g_test_init (&argc, &argv, NULL);
+  g_test_add_func ("/core/staging/columns", test_columns);
+  g_test_add_func ("/core/staging/best-under-weighting", test_best_under_weighting);
+  g_test_add_func ("/core/staging/defaults", test_defaults);
+  return g_test_run ();
+}
