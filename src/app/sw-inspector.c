@@ -96,6 +96,7 @@ struct _SwInspector {
   SwNumberField *pitch_over_field;
   SwNumberField *pitch_kick_field;
   SwNumberField *insertion_field;
+  SwNumberField *q_alpha_field;
   gboolean       isp_conflict;           /* the Isp pair shows a conflict */
 };
 
@@ -1206,6 +1207,11 @@ build_sections (SwInspector *self)
                                             "circularised at apogee; left empty, direct "
                                             "insertion"), SW_FIELD_INSERTION_ALTITUDE, 0, 0,
                                           10.0, _("direct"));
+  self->q_alpha_field = add_number_row (self, grid, row++, _("Max. q \u00d7 _alpha"),
+                                        _("Dynamic pressure times angle of attack (kPa deg) "
+                                          "the guided flight keeps below; left empty, no "
+                                          "limit"), SW_FIELD_MAX_Q_ALPHA, 0, 1, 1.0,
+                                        _("no limit"));
   gtk_box_append (GTK_BOX (box), GTK_WIDGET (grid));
 }
 
@@ -1293,6 +1299,8 @@ update_design_extra (SwInspector *self, const SwDesign *d)
   sw_number_field_set_value (self->pitch_kick_field, a->has_pitch_kick ? a->pitch_kick_deg : NAN);
   sw_number_field_set_value (self->insertion_field,
                              a->has_insertion_altitude ? a->insertion_altitude_km : NAN);
+  sw_number_field_set_value (self->q_alpha_field,
+                             a->has_max_q_alpha ? a->max_q_alpha_kpa_deg : NAN);
 }
 
 /* ---- stage list actions ------------------------------------------------ */
