@@ -49,8 +49,19 @@ static const SwDesignFieldInfo fields[SW_N_FIELDS] = {
   [SW_FIELD_PITCH_KICK] = { "ascent.pitch_kick_deg", SW_LIMIT_PITCH_KICK, FALSE, TRUE, FALSE },
   [SW_FIELD_INSERTION_ALTITUDE] = { "ascent.insertion_altitude_km", SW_LIMIT_INSERTION_ALTITUDE,
                                     FALSE, TRUE, FALSE },
+  [SW_FIELD_MAX_Q_ALPHA] = { "ascent.max_q_alpha_kpa_deg", SW_LIMIT_MAX_Q_ALPHA, FALSE, TRUE,
+                             FALSE },
   [SW_FIELD_MC_SAMPLES] = { "uncertainty.samples", SW_LIMIT_MC_SAMPLES, FALSE, TRUE, TRUE },
   [SW_FIELD_MC_SEED] = { "uncertainty.seed", SW_LIMIT_MC_SEED, FALSE, TRUE, TRUE },
+  [SW_FIELD_PROPELLANT_LOAD] = { "stages[%u].propellant_kg", SW_LIMIT_PROPELLANT_LOAD, TRUE, TRUE,
+                                 FALSE },
+  [SW_FIELD_MIXTURE_RATIO] = { "stages[%u].mixture_ratio", SW_LIMIT_MIXTURE_RATIO, TRUE, TRUE,
+                               FALSE },
+  [SW_FIELD_ULLAGE] = { "stages[%u].ullage_fraction", SW_LIMIT_ULLAGE, TRUE, TRUE, FALSE },
+  [SW_FIELD_OXIDIZER_DENSITY] = { "stages[%u].propellant.oxidizer_density_kg_m3",
+                                  SW_LIMIT_COMPONENT_DENSITY, TRUE, FALSE, FALSE },
+  [SW_FIELD_FUEL_DENSITY] = { "stages[%u].propellant.fuel_density_kg_m3",
+                              SW_LIMIT_COMPONENT_DENSITY, TRUE, FALSE, FALSE },
 };
 
 const SwDesignFieldInfo *
@@ -141,10 +152,22 @@ slot_of (SwDesign *d, SwDesignField f, guint i)
     case SW_FIELD_INSERTION_ALTITUDE:
       s.slot = &d->ascent.insertion_altitude_km; s.has = &d->ascent.has_insertion_altitude;
       break;
+    case SW_FIELD_MAX_Q_ALPHA:
+      s.slot = &d->ascent.max_q_alpha_kpa_deg; s.has = &d->ascent.has_max_q_alpha; break;
     case SW_FIELD_MC_SAMPLES:
       s.uint_slot = &d->uncertainty.samples; s.has = &d->uncertainty.has_samples; break;
     case SW_FIELD_MC_SEED:
       s.u32_slot = &d->uncertainty.seed; s.has = &d->uncertainty.has_seed; break;
+    case SW_FIELD_PROPELLANT_LOAD:
+      s.slot = &st->propellant.propellant_kg; s.has = &st->propellant.has_propellant_kg; break;
+    case SW_FIELD_MIXTURE_RATIO:
+      s.slot = &st->propellant.mixture_ratio; s.has = &st->propellant.has_mixture_ratio; break;
+    case SW_FIELD_ULLAGE:
+      s.slot = &st->propellant.ullage_fraction; s.has = &st->propellant.has_ullage; break;
+    case SW_FIELD_OXIDIZER_DENSITY:
+      s.slot = &st->propellant.oxidizer_density_kg_m3; break;
+    case SW_FIELD_FUEL_DENSITY:
+      s.slot = &st->propellant.fuel_density_kg_m3; break;
     case SW_N_FIELDS:
     default:
       g_assert_not_reached ();
@@ -162,6 +185,14 @@ sw_design_field_get (const SwDesign *design, SwDesignField field, guint stage, d
   g_return_val_if_fail (!fields[field].per_stage || stage < design->n_stages, FALSE);
 
   s = slot_of ((SwDesign *) design, field, fields[field].per_stage ? stage : 0);
+  /* The component densities exist for a propellant of the user's own only. */
+  if ((field == SW_FIELD_OXIDIZER_DENSITY || field == SW_FIELD_FUEL_DENSITY)
+      && design->stages[stage].propellant.kind != SW_PROPELLANT_CUSTOM)
+    {
+      if (value != NULL)
+        *value = 0.0;
+      return FALSE;
+    }
   v = s.slot != NULL ? *s.slot : s.uint_slot != NULL ? (double) *s.uint_slot : (double) *s.u32_slot;
   if (s.has != NULL && !*s.has)
     {
@@ -205,9 +236,10 @@ update_presence (SwDesign *d, SwDesignField f, guint i)
     case SW_FIELD_PITCH_OVER_SPEED:
     case SW_FIELD_PITCH_KICK:
     case SW_FIELD_INSERTION_ALTITUDE:
+    case SW_FIELD_MAX_Q_ALPHA:
       a->present = a->has_fairing_mass || a->has_fairing_altitude || a->has_fairing_pressure
                    || a->has_pitch_over_speed || a->has_pitch_kick
-                   || a->has_insertion_altitude;
+                   || a->has_insertion_altitude || a->has_max_q_alpha;
       break;
     case SW_FIELD_MC_SAMPLES:
     case SW_FIELD_MC_SEED:
@@ -354,6 +386,26 @@ check_dependencies (const SwDesign *d, SwDesignField f, guint i, double value, G
           }
       }
       break;
+    case SW_FIELD_OXIDIZER_DENSITY:
+    case SW_FIELD_FUEL_DENSITY:
+      if (st->propellant.kind != SW_PROPELLANT_CUSTOM)
+        {
+          g_set_error (error, SW_ERROR, SW_ERROR_VALUE,
+                       _("%s: the component densities belong to a propellant of your own; "
+                         "choose one first"), path);
+          return FALSE;
+        }
+      break;
+    case SW_FIELD_MIXTURE_RATIO:
+      if (st->propellant.kind == SW_PROPELLANT_NONE
+          || st->propellant.kind == SW_PROPELLANT_SOLID_COMPOSITE)
+        {
+          g_set_error (error, SW_ERROR, SW_ERROR_VALUE,
+                       _("%s: a mixture ratio needs a liquid propellant; choose one first"),
+                       path);
+          return FALSE;
+        }
+      break;
     case SW_FIELD_FAIRING_ALTITUDE:
       if (d->ascent.has_fairing_pressure)
         {
@@ -437,6 +489,29 @@ sw_design_field_set (SwDesign *design, SwDesignField field, guint stage, double 
          && check_range (field, stage, value, error)
          && check_dependencies (design, field, stage, value, error)
          && apply_checked (design, field, stage, value, TRUE, error);
+}
+
+gboolean
+sw_design_set_propellant (SwDesign *design, guint stage, SwPropellantKind kind, GError **error)
+{
+  g_autoptr (SwDesign) copy = NULL;
+
+  g_return_val_if_fail (design != NULL && kind < SW_N_PROPELLANTS, FALSE);
+
+  if (stage >= design->n_stages)
+    {
+      g_set_error (error, SW_ERROR, SW_ERROR_USAGE, _("stages[%u]: the design has %u stages"),
+                   stage, design->n_stages);
+      return FALSE;
+    }
+  if (design->stages[stage].propellant.kind == kind)
+    return TRUE;
+  copy = sw_design_copy (design);
+  sw_propellant_set_kind (&copy->stages[stage].propellant, kind);
+  if (!check_whole_design (copy, error))
+    return FALSE;
+  sw_propellant_set_kind (&design->stages[stage].propellant, kind);
+  return TRUE;
 }
 
 gboolean
