@@ -134,6 +134,44 @@ test_benchmark_drag (void)
   g_assert_cmpfloat (fabs (s.final_time_s - 143.0) / 143.0, <, 0.05);
 }
 
+/* Optimality, shown without the reference file: bending the law either
+ * way (tan theta = tan theta_0 - c t + bend t (t - t_f), solved again for
+ * the same end conditions) takes longer, as it must around a minimum.  A
+ * shooting that had found a non-optimal solution would fail this on one
+ * side.  The bend changes tan theta by 0.05 at mid-flight. */
+static void
+test_bent_law_is_slower (void)
+{
+  for (int k = 0; k < 2; k++)
+    {
+      SwOptimalAscentProblem p;
+      SwOptimalAscentSolution best, bent;
+      g_autoptr (GError) error = NULL;
+      double g = k == 0 ? 1.61544 : 5.3 * FT, bend;
+
+      sw_optimal_ascent_problem_init (&p);
+      p.gravity_m_s2 = g;
+      p.thrust_accel_m_s2 = 3.0 * g;
+      p.altitude_m = k == 0 ? 185000.0 : 50000.0 * FT;
+      p.horizontal_speed_m_s = k == 0 ? 1627.0 : 5780.0 * FT;
+      g_assert_true (sw_optimal_ascent_solve (&p, 0.0, 0.0, &best, &error));
+      g_assert_no_error (error);
+      bend = 0.05 * 4.0 / (best.final_time_s * best.final_time_s);
+      for (int sign = -1; sign <= 1; sign += 2)
+        {
+          p.bend_per_s2 = sign * bend;
+          g_assert_true (sw_optimal_ascent_solve (&p, best.final_time_s, best.theta0_rad, &bent,
+                                                  &error));
+          g_assert_no_error (error);
+          g_assert_cmpfloat (bent.residual, <, 1e-9);
+          g_test_message ("benchmark %d: law %.6f s, bent %+d: %.6f s", k + 1,
+                          best.final_time_s, sign, bent.final_time_s);
+          /* Longer by more than the solvers' error (about 1e-6 s). */
+          g_assert_cmpfloat (bent.final_time_s, >, best.final_time_s + 1e-5);
+        }
+    }
+}
+
 /* Bad problems get an error, not a NaN. */
 static void
 test_bad_problem (void)
@@ -160,6 +198,7 @@ main (int argc, char **argv)
   g_test_add_func ("/optimal-ascent/benchmark-lunar", test_benchmark_lunar);
   g_test_add_func ("/optimal-ascent/benchmark-bryson-ho", test_benchmark_bryson_ho);
   g_test_add_func ("/optimal-ascent/benchmark-drag", test_benchmark_drag);
+  g_test_add_func ("/optimal-ascent/bent-law-is-slower", test_bent_law_is_slower);
   g_test_add_func ("/optimal-ascent/bad-problem", test_bad_problem);
   return g_test_run ();
 }

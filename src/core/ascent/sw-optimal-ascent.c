@@ -25,7 +25,7 @@ sw_optimal_ascent_problem_init (SwOptimalAscentProblem *p)
 
 typedef struct {
   const SwOptimalAscentProblem *p;
-  double tan0, c;
+  double tan0, c, tf;
 } Flight;
 
 static int
@@ -33,7 +33,7 @@ rhs (double t, const double s[], double ds[], void *data)
 {
   const Flight *f = data;
   const SwOptimalAscentProblem *p = f->p;
-  double tan_theta = f->tan0 - f->c * t;
+  double tan_theta = f->tan0 - f->c * t + p->bend_per_s2 * t * (t - f->tf);
   double sec = sqrt (1.0 + tan_theta * tan_theta);
   double cos_t = 1.0 / sec, sin_t = tan_theta / sec;
   double m = s[4], a, ax_drag = 0.0, ay_drag = 0.0;
@@ -67,7 +67,7 @@ gboolean
 sw_optimal_ascent_fly (const SwOptimalAscentProblem *p, double theta0_rad, double c_per_s,
                        double tf_s, double state[5])
 {
-  Flight f = { p, tan (theta0_rad), c_per_s };
+  Flight f = { p, tan (theta0_rad), c_per_s, tf_s };
   gsl_odeiv2_system sys = { rhs, NULL, 5, &f };
   gsl_odeiv2_driver *drv;
   double t = 0.0;

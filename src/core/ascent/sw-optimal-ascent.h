@@ -21,6 +21,9 @@
 G_BEGIN_DECLS
 
 typedef struct {
+  /* A bend added to the law, for the test of its optimality:
+   * tan theta = tan theta_0 - c t + bend t (t - t_f); 0 for the law itself. */
+  double bend_per_s2;
   double gravity_m_s2;          /* constant, > 0 */
   /* Thrust: either a constant acceleration (thrust_n == 0) ... */
   double thrust_accel_m_s2;
