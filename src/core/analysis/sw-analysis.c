@@ -331,6 +331,17 @@ update_verdict (SwAnalysis *r)
 
 /* The note of a design whose trade studies use its allowance as given; for a
  * simulate design, says it is the first guess and why. */
+/* A stage with a fixed propellant load: no sensitivities or Monte Carlo
+ * (they resize every stage), so there is no loss basis to state. */
+static gboolean
+sizing_has_fixed (const SwSizing *sizing)
+{
+  for (guint i = 0; i < sizing->n_stages; i++)
+    if (sizing->stages[i].fixed)
+      return TRUE;
+  return FALSE;
+}
+
 static void
 note_trade_losses (SwAnalysis *r)
 {
@@ -341,7 +352,8 @@ note_trade_losses (SwAnalysis *r)
   r->trade_losses_simulated = FALSE;
   r->trade_losses_m_s = m->kind == SW_MISSION_ORBIT ? (m->has_losses ? m->losses_m_s : 0.0)
                                                     : NAN;
-  if (m->kind != SW_MISSION_ORBIT || m->loss_model != SW_LOSS_SIMULATE)
+  if (m->kind != SW_MISSION_ORBIT || m->loss_model != SW_LOSS_SIMULATE
+      || sizing_has_fixed (&r->sizing))
     return;
   v = sw_format_speed (r->trade_losses_m_s);
   if (r->ascent_pending)
@@ -396,8 +408,20 @@ prepare_trade (SwAnalysis *r)
   const SwDesign *design = r->design;
   g_autoptr (GError) error = NULL;
 
+  gboolean fixed = FALSE;
+
+  /* The sensitivities and the Monte Carlo resize every stage; with a fixed
+   * propellant load they would describe another vehicle, so they are left
+   * out and say why. */
+  for (guint i = 0; i < r->sizing.n_stages; i++)
+    fixed = fixed || r->sizing.stages[i].fixed;
   r->sensitivity_step = r->options.sensitivity_step;
-  if (r->sizing.feasible)
+  if (fixed)
+    g_strlcpy (r->montecarlo_error,
+               _("Sensitivities and the Monte Carlo are not computed for a design with a "
+                 "fixed propellant load: they resize every stage."),
+               sizeof r->montecarlo_error);
+  if (r->sizing.feasible && !fixed)
     r->has_sensitivity = sw_sensitivity_compute (design, r->sensitivity_step, &r->sensitivity,
                                                  NULL)
                          && r->sensitivity.feasible;
@@ -419,7 +443,7 @@ prepare_trade (SwAnalysis *r)
         g_strlcpy (r->baseline_error, error->message, sizeof r->baseline_error);
     }
   compare_with_baseline (r);
-  r->montecarlo_pending = r->options.montecarlo
+  r->montecarlo_pending = r->options.montecarlo && !fixed
                           && (r->options.montecarlo_always
                               || sw_uncertainty_has_spread (&design->uncertainty));
 }
@@ -584,6 +608,8 @@ sw_analysis_add_ascent (const SwAnalysis *prev, GCancellable *cancellable)
   if (ascent->closed_loop && ascent->loop_converged && ascent->sizing.feasible
       && ascent->sizing.n_stages == prev->sizing.n_stages)
     {
+      gboolean fixed = sizing_has_fixed (&ascent->sizing);
+
       r->sizing = ascent->sizing;
       r->delta_v_m_s = ascent->sizing.delta_v_m_s;
       r->headroom_m_s = r->sizing.margin_m_s;
@@ -598,32 +624,34 @@ sw_analysis_add_ascent (const SwAnalysis *prev, GCancellable *cancellable)
       r->has_stage_figures = sw_ascent_stage_figures (r->design, &r->sizing, r->stage_figures,
                                                       NULL);
       /* One loss model everywhere: the trade studies again, with the
-       * closed loop's losses (the design as sized by the loop). */
-      {
-        g_autoptr (SwDesign) looped = sw_design_copy (r->design);
-        g_autofree char *v = NULL;
+       * closed loop's losses (the design as sized by the loop); a fixed
+       * propellant load has none (see prepare_trade). */
+      if (!fixed)
+        {
+          g_autoptr (SwDesign) looped = sw_design_copy (r->design);
+          g_autofree char *v = NULL;
 
-        looped->mission.losses_m_s = ascent->loop_sized_losses_m_s;
-        looped->mission.has_losses = TRUE;
-        r->has_sensitivity = sw_sensitivity_compute (looped, r->sensitivity_step,
-                                                     &r->sensitivity, NULL)
-                             && r->sensitivity.feasible;
-        if (r->has_montecarlo)
-          {
-            run_montecarlo (r, looped, cancellable);
-            if (g_cancellable_is_cancelled (cancellable))
-              {
-                sw_analysis_unref (r);
-                return NULL;
-              }
-          }
-        r->trade_losses_m_s = ascent->loop_sized_losses_m_s;
-        r->trade_losses_simulated = TRUE;
-        v = sw_format_speed (r->trade_losses_m_s);
-        /* Translators: %s is a speed such as "1,868.7 m/s" */
-        g_snprintf (r->trade_losses_note, sizeof r->trade_losses_note,
-                    _("Sensitivities and Monte Carlo use the closed-loop losses of %s."), v);
-      }
+          looped->mission.losses_m_s = ascent->loop_sized_losses_m_s;
+          looped->mission.has_losses = TRUE;
+          r->has_sensitivity = sw_sensitivity_compute (looped, r->sensitivity_step,
+                                                       &r->sensitivity, NULL)
+                               && r->sensitivity.feasible;
+          if (r->has_montecarlo)
+            {
+              run_montecarlo (r, looped, cancellable);
+              if (g_cancellable_is_cancelled (cancellable))
+                {
+                  sw_analysis_unref (r);
+                  return NULL;
+                }
+            }
+          r->trade_losses_m_s = ascent->loop_sized_losses_m_s;
+          r->trade_losses_simulated = TRUE;
+          v = sw_format_speed (r->trade_losses_m_s);
+          /* Translators: %s is a speed such as "1,868.7 m/s" */
+          g_snprintf (r->trade_losses_note, sizeof r->trade_losses_note,
+                      _("Sensitivities and Monte Carlo use the closed-loop losses of %s."), v);
+        }
     }
   else
     note_trade_losses (r);
