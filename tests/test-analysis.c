@@ -268,6 +268,64 @@ test_trade_losses_note (void)
   g_assert_false (b->trade_losses_simulated);
 }
 
+/* "loss_model": "simulate": after the ascent phase the analysis carries the
+ * closed loop's vehicle (run here on its own through the ascent module),
+ * not the first guess sized with the 1,600 m/s allowance; the first phase
+ * still has the first guess. */
+static void
+test_closed_loop_sizing (void)
+{
+  g_autoptr (SwDesign) d = demo ("three-stage-simulated.stagewright");
+  g_autoptr (SwAnalysis) fast = NULL, full = NULL;
+  g_autoptr (GError) error = NULL;
+  SwAscentResult *loop;
+  SwAscentOptions ao;
+  SwAnalysisOptions o;
+
+  sw_analysis_options_init (&o);
+  o.montecarlo = FALSE;
+  o.band = FALSE;
+  fast = sw_analysis_new (d, 1, &o, NULL);
+  g_assert_true (fast->ok);
+  g_assert_false (fast->sized_by_ascent);
+  g_assert_true (fast->ascent_pending);
+  full = sw_analysis_add_ascent (fast, NULL);
+  g_assert_nonnull (full);
+
+  sw_ascent_options_init (&ao);
+  loop = sw_ascent_close_loop (d, &ao, NULL, &error);
+  g_assert_no_error (error);
+  g_assert_nonnull (loop);
+  g_assert_true (loop->closed_loop);
+  g_assert_true (loop->loop_converged);
+  g_assert_true (loop->sizing.feasible);
+
+  g_assert_true (full->sized_by_ascent);
+  g_assert_true (full->sizing.feasible);
+  /* The same computation twice: equal to rounding (1e-9 relative). */
+  g_assert_cmpfloat_with_epsilon (full->sizing.liftoff_mass_kg, loop->sizing.liftoff_mass_kg,
+                                  1e-9 * loop->sizing.liftoff_mass_kg);
+  g_assert_cmpfloat_with_epsilon (full->delta_v_m_s, loop->sizing.delta_v_m_s, 1e-6);
+  for (guint i = 0; i < loop->sizing.n_stages; i++)
+    g_assert_cmpfloat_with_epsilon (full->sizing.stages[i].propellant_mass_kg,
+                                    loop->sizing.stages[i].propellant_mass_kg,
+                                    1e-9 * loop->sizing.liftoff_mass_kg);
+  /* The required delta-v is the ideal one plus the simulated losses, not
+   * the allowance. */
+  g_assert_cmpfloat_with_epsilon (full->budget.losses_m_s, loop->loop_sized_losses_m_s, 1e-6);
+  g_assert_cmpfloat (fabs (full->budget.losses_m_s - 1600.0), >, 1.0);
+  /* ... and the first guess is a different vehicle: the delta-v moved by
+   * more than the loop's 1 m/s settling bound, so the mass by more than
+   * 0.01 %. */
+  g_assert_cmpfloat (fabs (fast->delta_v_m_s - full->delta_v_m_s), >, 1.0);
+  g_assert_cmpfloat (fabs (fast->sizing.liftoff_mass_kg - full->sizing.liftoff_mass_kg), >,
+                     1e-4 * full->sizing.liftoff_mass_kg);
+  /* The stage-count curve follows: its point at the design's stage count is
+   * the loop's vehicle (optimal split). */
+  g_assert_cmpfloat_with_epsilon (full->stage_curve.delta_v_m_s, full->delta_v_m_s, 1e-6);
+  sw_ascent_result_free (loop);
+}
+
 /* A stage with a fixed propellant load: the sensitivities and the Monte
  * Carlo, which resize every stage, are left out and say why, rather than
  * describing another vehicle. */
@@ -305,6 +363,7 @@ main (int argc, char **argv)
   g_test_add_func ("/analysis/cancel-and-phases", test_cancel_and_phases);
   g_test_add_func ("/analysis/trade-uses-loop-losses", test_trade_uses_loop_losses);
   g_test_add_func ("/analysis/trade-losses-note", test_trade_losses_note);
+  g_test_add_func ("/analysis/closed-loop-sizing", test_closed_loop_sizing);
   g_test_add_func ("/analysis/fixed-stage-trades", test_fixed_stage_trades);
   return g_test_run ();
 }

@@ -428,13 +428,18 @@ write_csv (const char *path, const SwDesign *d, const SwAscentResult *r)
                      p->mass_kg, p->thrust_n };
       for (guint k = 0; k < G_N_ELEMENTS (v); k++)
         {
+          char buf[G_ASCII_DTOSTR_BUF_SIZE];
+          /* Plain C numbers whatever the locale (the text output follows it). */
           if (isfinite (v[k]))
-            g_string_append_printf (s, "%.9g", v[k]);
+            g_string_append (s, g_ascii_formatd (buf, sizeof buf, "%.9g", v[k]));
           g_string_append_c (s, ',');
         }
       g_string_append_printf (s, "%u,%d,", p->stage + 1, p->beyond_load ? 1 : 0);
       if (isfinite (p->pitch_deg))
-        g_string_append_printf (s, "%.9g", p->pitch_deg);
+        {
+          char buf[G_ASCII_DTOSTR_BUF_SIZE];
+          g_string_append (s, g_ascii_formatd (buf, sizeof buf, "%.9g", p->pitch_deg));
+        }
       g_string_append_c (s, '\n');
     }
   if (!g_file_set_contents_full (path, s->str, (gssize) s->len,

@@ -250,8 +250,20 @@ main (int argc, char **argv)
   bindtextdomain (GETTEXT_PACKAGE, localedir);
   bind_textdomain_codeset (GETTEXT_PACKAGE, "UTF-8");
   textdomain (GETTEXT_PACKAGE);
-  /* Numbers in tables and JSON use the C conventions whatever the locale. */
-  setlocale (LC_NUMERIC, "C");
+  /* Text output follows the user's locale (digit grouping, decimal mark)
+   * through sw-format; JSON (json-glib) and CSV (g_ascii_formatd) write
+   * their numbers in the C form whatever the locale.  JSON is for machines
+   * as a whole: its plain-words strings (verdict reason, caution) hold
+   * numbers too, so with --json the whole output is the C locale's, the
+   * same bytes under any locale.  (LC_CTYPE stays the user's: names are
+   * printed as UTF-8.) */
+  for (int i = 1; i < argc; i++)
+    if (strcmp (argv[i], "--json") == 0)
+      {
+        setlocale (LC_NUMERIC, "C");
+        setlocale (LC_MESSAGES, "C");
+        break;
+      }
   /* GSL reports numerical trouble through status codes, never abort(). */
   gsl_set_error_handler_off ();
 

@@ -1,0 +1,121 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* The command line's text output as literal text (C locale): the figures of
+ * a demo design as `size --json` gives them (124,086.92 kg at liftoff for
+ * medium-cargo.stagewright, stage masses 81,467.0 / 4,741.5 kg, ...), so a
+ * figure printed in the wrong unit, column or place fails; and the lines
+ * that appear only when they apply (a fairing).
+ * Runs the built program (env SW_CLI). */
+#include "config.h"
+
+#include <glib.h>
+#include <glib/gstdio.h>
+#include <string.h>
+#include <sys/wait.h>
+
+#define CLI_TIMEOUT_S 60
+
+static char *
+run_cli (const char *const *args)
+{
+  g_autoptr (GPtrArray) argv = g_ptr_array_new ();
+  g_autoptr (GError) error = NULL;
+  g_autofree char *secs = g_strdup_printf ("%d", CLI_TIMEOUT_S);
+  g_auto (GStrv) envp = g_get_environ ();
+  char *out = NULL;
+  int status = 0;
+
+  g_assert_nonnull (g_getenv ("SW_CLI"));
+  envp = g_environ_setenv (envp, "LC_ALL", "C.UTF-8", TRUE);
+  envp = g_environ_unsetenv (envp, "LANGUAGE");
+  g_ptr_array_add (argv, (gpointer) "timeout");
+  g_ptr_array_add (argv, secs);
+  g_ptr_array_add (argv, (gpointer) g_getenv ("SW_CLI"));
+  for (guint i = 0; args[i] != NULL; i++)
+    g_ptr_array_add (argv, (gpointer) args[i]);
+  g_ptr_array_add (argv, NULL);
+  g_assert_true (g_spawn_sync (NULL, (char **) argv->pdata, envp, G_SPAWN_SEARCH_PATH, NULL,
+                               NULL, &out, NULL, &status, &error));
+  g_assert_no_error (error);
+  g_assert_true (WIFEXITED (status));
+  if (WEXITSTATUS (status) == 124)
+    g_error ("stagewright-cli %s did not finish within %d s", args[0], CLI_TIMEOUT_S);
+  g_assert_cmpint (WEXITSTATUS (status), ==, 0);
+  return out;
+}
+
+static void
+assert_line (const char *out, const char *line)
+{
+  g_autofree char *with_nl = g_strconcat ("\n", line, "\n", NULL);
+
+  if (strstr (out, with_nl) == NULL)
+    g_error ("the line \"%s\" is not in the output:\n%s", line, out);
+}
+
+static char *
+demo (const char *basename)
+{
+  return g_build_filename (g_getenv ("SW_DESIGNS_DIR"), basename, NULL);
+}
+
+static void
+test_size_text (void)
+{
+  g_autofree char *path = demo ("medium-cargo.stagewright");
+  const char *args[] = { "size", path, NULL };
+  g_autofree char *out = run_cli (args);
+
+  assert_line (out, "Split: optimal    Payload: 8,000 kg    Required delta-v: 8,885 m/s");
+  assert_line (out, "1   Dunmarrow core        338.0 0.0550   3,542.2  0.399   2.9115     "
+                    "81,467.0     4,741.5     124,086.9     42,619.9");
+  assert_line (out, "2   Dunmarrow upper       450.0 0.1100   5,343.1  0.601   3.3560     "
+                    "26,591.8     3,286.6      37,878.5     11,286.6");
+  assert_line (out, "Liftoff mass: 124,086.9 kg (124.1 t)    Payload fraction: 6.447 %");
+  assert_line (out, "Headroom to the stages' delta-v limit (no payload): 10,469 m/s");
+}
+
+static void
+test_sensitivity_text (void)
+{
+  g_autofree char *path = demo ("medium-cargo.stagewright");
+  const char *args[] = { "sensitivity", path, NULL };
+  g_autofree char *out = run_cli (args);
+
+  assert_line (out, "Liftoff mass 124,086.9 kg; tornado step +-5 %, largest effect first");
+}
+
+/* The fairing line only with a fairing: the demo drops its 1,500 kg at
+ * 110 km; the same vehicle without the "ascent" block carries none. */
+static void
+test_ascent_fairing (void)
+{
+  g_autofree char *path = demo ("medium-cargo.stagewright");
+  const char *args[] = { "ascent", path, NULL };
+  g_autofree char *out = run_cli (args);
+  g_autofree char *text = NULL, *tmp = NULL, *bare = NULL, *out2 = NULL;
+  g_autoptr (GRegex) re = g_regex_new (",\\s*\"ascent\"\\s*:\\s*\\{[^}]*\\}", 0, 0, NULL);
+  const char *args2[] = { "ascent", NULL, NULL };
+
+  g_assert_nonnull (strstr (out, "\nFairing: 1,500 kg dropped at T+"));
+  g_assert_nonnull (strstr (out, ", 110.0 km, q = "));
+  g_assert_true (g_file_get_contents (path, &text, NULL, NULL));
+  bare = g_regex_replace_literal (re, text, -1, 0, "", 0, NULL);
+  g_assert_null (strstr (bare, "fairing"));
+  tmp = g_build_filename (g_get_tmp_dir (), "sw-cli-text-nofairing.stagewright", NULL);
+  g_assert_true (g_file_set_contents (tmp, bare, -1, NULL));
+  args2[1] = tmp;
+  out2 = run_cli (args2);
+  g_remove (tmp);
+  g_assert_nonnull (strstr (out2, "Liftoff mass: 124.087 t sized + 0 kg fairing"));
+  g_assert_null (strstr (out2, "\nFairing:"));
+}
+
+int
+main (int argc, char **argv)
+{
+  g_test_init (&argc, &argv, NULL);
+  g_test_add_func ("/cli-text/size", test_size_text);
+  g_test_add_func ("/cli-text/sensitivity", test_sensitivity_text);
+  g_test_add_func ("/cli-text/ascent-fairing", test_ascent_fairing);
+  return g_test_run ();
+}
