@@ -794,21 +794,15 @@ draw_markers (SwPlot *self, cairo_t *cr, const Colors *c, Placer *pl)
     }
 }
 
-void
-sw_plot_snapshot (GtkWidget *widget, GtkSnapshot *snapshot)
+/* Everything but the hover readout, recorded into @snapshot. */
+static void
+draw_plot (SwPlot *self, GtkSnapshot *snapshot, int width, int height, const Colors *cc)
 {
-  SwPlot *self = SW_PLOT (widget);
-  int width = gtk_widget_get_width (widget);
-  int height = gtk_widget_get_height (widget);
+  Colors c = *cc;
   PangoLayout *title;
   Placer pl;
   cairo_t *cr;
-  Colors c;
 
-  if (width <= 0 || height <= 0)
-    return;
-  sw_plot_ensure_layout (self);
-  sw_plot_get_colors (self, &c);
   cr = gtk_snapshot_append_cairo (snapshot, &GRAPHENE_RECT_INIT (0, 0, width, height));
 
   title = sw_plot_title_layout (self);
@@ -857,9 +851,38 @@ sw_plot_snapshot (GtkWidget *widget, GtkSnapshot *snapshot)
   draw_markers (self, cr, &c, &pl);
   g_array_unref (pl.rects);
 
-  if (self->hovering && !self->readout_tooltip)
-    sw_plot_draw_readout (self, cr, &c);
-
   cairo_destroy (cr);
 }
 
+void
+sw_plot_snapshot (GtkWidget *widget, GtkSnapshot *snapshot)
+{
+  SwPlot *self = SW_PLOT (widget);
+  int width = gtk_widget_get_width (widget);
+  int height = gtk_widget_get_height (widget);
+  Colors c;
+
+  if (width <= 0 || height <= 0)
+    return;
+  sw_plot_ensure_layout (self);
+  sw_plot_get_colors (self, &c);
+  if (self->drawing == NULL || self->drawing_width != width || self->drawing_height != height)
+    {
+      GtkSnapshot *own = gtk_snapshot_new ();
+
+      g_clear_pointer (&self->drawing, gsk_render_node_unref);
+      draw_plot (self, own, width, height, &c);
+      self->drawing = gtk_snapshot_free_to_node (own);
+      self->drawing_width = width;
+      self->drawing_height = height;
+    }
+  if (self->drawing != NULL)
+    gtk_snapshot_append_node (snapshot, self->drawing);
+
+  if (self->hovering && !self->readout_tooltip && sw_plot_has_data (self))
+    {
+      cairo_t *cr = gtk_snapshot_append_cairo (snapshot, &GRAPHENE_RECT_INIT (0, 0, width, height));
+      sw_plot_draw_readout (self, cr, &c);
+      cairo_destroy (cr);
+    }
+}
