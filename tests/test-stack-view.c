@@ -574,11 +574,30 @@ test_screen_same_shapes (void)
   gtk_window_destroy (GTK_WINDOW (window));
 }
 
+/* Labels keep a number with the word after it (its unit) and the word before
+ * it: literal
+ * expected text (U+00A0 no-break space, U+2060 word joiner after a slash
+ * between letters); spaces elsewhere stay breakable. */
+static void
+test_glue_units (void)
+{
+  g_autofree char *a = sw_stack_glue_units ("<b>2 · Upper</b>\n29.9 t · Δv 2,007 m/s\nT/W 0.80 at ignition");
+  g_autofree char *b = sw_stack_glue_units ("mass ratio 3.356 · Δv — · share 12.5 % · −0.4 km");
+  g_autofree char *c = sw_stack_glue_units ("unused: no propellant");
+
+  g_assert_cmpstr (a, ==, "<b>2 · Upper</b>\n29.9\u00a0t · Δv\u00a02,007\u00a0m/\u2060s\n"
+                          "T/\u2060W\u00a00.80\u00a0at ignition");
+  g_assert_cmpstr (b, ==, "mass ratio\u00a03.356 · Δv\u00a0— · share\u00a012.5\u00a0% · "
+                          "−0.4\u00a0km");
+  g_assert_cmpstr (c, ==, "unused: no propellant");
+}
+
 int
 main (int argc, char **argv)
 {
   gtk_test_init (&argc, &argv, NULL);
 
+  g_test_add_func ("/gui/stack-view/glue-units", test_glue_units);
   g_test_add_func ("/gui/stack-view/areas-small-launcher", test_areas_small);
   g_test_add_func ("/gui/stack-view/areas-medium-cargo", test_areas_medium);
   g_test_add_func ("/gui/stack-view/areas-all-solid", test_areas_solid);

@@ -356,7 +356,8 @@ make_labels (SwStackView *self, gboolean compact, double max_width, double *widt
   for (guint i = 0; i < self->n_items; i++)
     {
       Item *it = &self->items[i];
-      g_autofree char *markup = item_label_markup (self, it, compact);
+      g_autofree char *raw = item_label_markup (self, it, compact);
+      g_autofree char *markup = sw_stack_glue_units (raw);
       int lw, lh;
 
       g_clear_object (&it->label);
@@ -364,8 +365,10 @@ make_labels (SwStackView *self, gboolean compact, double max_width, double *widt
       pango_layout_get_pixel_size (it->label, &lw, &lh);
       if (lw > max_width)
         {
-          /* Wrapped between words, never cut mid-word or mid-number. */
-          pango_layout_set_wrap (it->label, PANGO_WRAP_WORD_CHAR);
+          /* Wrapped between words, never inside a word or a number and its
+           * unit (glued above): a piece wider than the column runs over
+           * rather than break as "2,007 m/" + "s". */
+          pango_layout_set_wrap (it->label, PANGO_WRAP_WORD);
           pango_layout_set_width (it->label, (int) (max_width * PANGO_SCALE));
           pango_layout_get_pixel_size (it->label, &lw, &lh);
         }
