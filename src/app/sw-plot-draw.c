@@ -424,16 +424,24 @@ draw_axes (SwPlot *self, cairo_t *cr, const Colors *c)
   if (cat && self->categories != NULL)
     {
       double cw = sw_plot_category_width (self);
+      double row = fabs (sw_plot_axis_map (&self->y, 1.0) - sw_plot_axis_map (&self->y, 0.0));
+      /* A long label ("Structural coeff., stage 2 (Upper stage)") wraps
+       * between words onto as many lines as its row holds, right-aligned
+       * against the axis; only what still does not fit is ellipsized. */
+      int lines = CLAMP ((int) floor (row / MAX (th, 1.0)), 1, 3);
       for (guint i = 0; self->categories[i] != NULL; i++)
         {
           PangoLayout *layout = sw_plot_make_text_fresh (self, self->categories[i]);
           double py = sw_plot_axis_map (&self->y, i);
           int w, h;
+          pango_layout_set_wrap (layout, PANGO_WRAP_WORD);
           pango_layout_set_ellipsize (layout, PANGO_ELLIPSIZE_END);
           pango_layout_set_width (layout, (int) (cw * PANGO_SCALE));
+          pango_layout_set_height (layout, -lines);
+          pango_layout_set_alignment (layout, PANGO_ALIGN_RIGHT);
           pango_layout_get_pixel_size (layout, &w, &h);
           sw_plot_set_source (cr, &c->fg, 1.0);
-          cairo_move_to (cr, a->origin.x - TICK_LEN - 4.0 - w, py - h / 2.0);
+          cairo_move_to (cr, a->origin.x - TICK_LEN - 4.0 - cw, py - h / 2.0);
           pango_cairo_show_layout (cr, layout);
           g_object_unref (layout);
         }

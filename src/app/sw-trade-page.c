@@ -291,7 +291,10 @@ show_tornado (SwTradePage *self, SwAnalysis *r)
     for (guint i = 0; i < t->n_items; i++)
       {
         const SwSensitivity *item = &t->items[t->ranked[i]];
-        g_autofree char *name = sw_sensitivity_dup_label (r->design, item);
+        /* "Isp, stage 2" without the stage's name: the rows stay short
+         * enough to read whole beside a narrow chart (the stage list gives
+         * the names in the same firing order). */
+        g_autofree char *name = sw_sensitivity_dup_label (NULL, item);
 
         self->minus_kg[i] = item->minus_feasible ? item->minus_kg : NAN;
         self->plus_kg[i] = item->plus_feasible ? item->plus_kg : NAN;
