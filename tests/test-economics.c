@@ -156,6 +156,44 @@ test_unknown_keys_warn (void)
   g_assert_cmpuint (warnings->len, ==, 2);
 }
 
+/* The named edits: every numeric key set to a value inside its range is
+ * saved and read back; outside its range nothing changes. */
+static void
+test_named_edits (void)
+{
+  g_autoptr (GError) error = NULL;
+  g_autoptr (SwDesign) d = load (HEAD " }", NULL, &error);
+
+  g_assert_no_error (error);
+  for (guint k = 0; k < SW_N_ECON_NUMBERS; k++)
+    {
+      const SwLimit *l = sw_limit_get (sw_economics_number_limit (k));
+      double v = l->min + 0.37 * (l->max - l->min);
+      g_autoptr (SwDesign) back = NULL;
+      g_autofree char *data = NULL;
+      gsize len;
+      SwEconomics before;
+
+      if (sw_economics_number_is_whole (k))
+        v = round (v);
+      g_assert_true (sw_economics_set_number (&d->economics, k, v));
+      g_assert_true (d->economics.present);
+      g_assert_cmpfloat (sw_economics_get_number (&d->economics, k), ==, v);
+      data = sw_design_to_data (d, &len);
+      g_assert_nonnull (strstr (data, strrchr (sw_economics_number_path (k), '.') != NULL
+                                        ? strrchr (sw_economics_number_path (k), '.') + 1
+                                        : sw_economics_number_path (k)));
+      back = load (data, NULL, &error);
+      g_assert_no_error (error);
+      g_assert_cmpfloat (sw_economics_get_number (&back->economics, k), ==, v);
+      before = d->economics;
+      g_assert_false (sw_economics_set_number (&d->economics, k, l->max * 2.0 + 1.0));
+      g_assert_true (memcmp (&before, &d->economics, sizeof before) == 0);
+    }
+  sw_economics_set_recovery_mode (&d->economics, SW_RECOVERY_LAUNCH_SITE);
+  g_assert_cmpint (d->economics.recovery_mode, ==, SW_RECOVERY_LAUNCH_SITE);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -164,5 +202,6 @@ main (int argc, char **argv)
   g_test_add_func ("/core/economics/load-and-round-trip", test_load_and_round_trip);
   g_test_add_func ("/core/economics/errors", test_errors);
   g_test_add_func ("/core/economics/unknown-keys-warn", test_unknown_keys_warn);
+  g_test_add_func ("/core/economics/named-edits", test_named_edits);
   return g_test_run ();
 }

@@ -6,6 +6,7 @@
  * under Xvfb with the cairo renderer (suite 'gui'). */
 #include "config.h"
 
+#include "sw-number-field.h"
 #include "sw-staging-page.h"
 #include "sw-window-private.h"
 
@@ -82,6 +83,30 @@ test_window_has_page (void)
 
   gtk_window_present (GTK_WINDOW (w));
   g_assert_true (sw_window_show_page (w, "staging"));
+  {
+    SwStagingPage *page = sw_window_get_staging_page (w);
+    SwDocument *doc = sw_window_get_document (w);
+    GtkWidget *run = sw_staging_page_get_field (page, SW_ECON_PRODUCTION_RUN);
+    GtkWidget *hw = sw_staging_page_get_field (page, SW_ECON_LANDING_HARDWARE);
+
+    /* A typed value is one named edit of the design, undone in one step. */
+    g_assert_true (sw_number_field_enter (SW_NUMBER_FIELD (run), "25"));
+    g_assert_true (sw_document_get_design (doc)->economics.present);
+    g_assert_cmpuint (sw_document_get_design (doc)->economics.production_run, ==, 25);
+    /* Fractions are shown in percent. */
+    g_assert_true (sw_number_field_enter (SW_NUMBER_FIELD (hw), "12"));
+    g_assert_cmpfloat_with_epsilon (sw_document_get_design (doc)->economics
+                                      .landing_hardware_fraction, 0.12, 1e-12);
+    /* Outside the range: refused, the design unchanged. */
+    g_assert_false (sw_number_field_enter (SW_NUMBER_FIELD (run), "0"));
+    g_assert_cmpuint (sw_document_get_design (doc)->economics.production_run, ==, 25);
+    gtk_drop_down_set_selected (GTK_DROP_DOWN (sw_staging_page_get_mode (page)), 2);
+    g_assert_cmpint (sw_document_get_design (doc)->economics.recovery_mode, ==,
+                     SW_RECOVERY_LAUNCH_SITE);
+    g_assert_true (sw_document_undo (doc));
+    g_assert_cmpint (sw_document_get_design (doc)->economics.recovery_mode, ==,
+                     SW_RECOVERY_NONE);
+  }
   sw_test_window_close (w);
 }
 

@@ -96,6 +96,7 @@ struct _SwInspector {
   SwNumberField *pitch_over_field;
   SwNumberField *pitch_kick_field;
   SwNumberField *insertion_field;
+  SwNumberField *max_q_alpha_field;
   gboolean       isp_conflict;           /* the Isp pair shows a conflict */
 };
 
@@ -1206,6 +1207,11 @@ build_sections (SwInspector *self)
                                             "circularised at apogee; left empty, direct "
                                             "insertion"), SW_FIELD_INSERTION_ALTITUDE, 0, 0,
                                           10.0, _("direct"));
+  self->max_q_alpha_field = add_number_row (self, grid, row++, _("Max _q·α"),
+                                            _("The guided flight keeps the dynamic pressure "
+                                              "times the angle of attack below this; left "
+                                              "empty, no such limit"),
+                                            SW_FIELD_MAX_Q_ALPHA, 0, 0, 10.0, _("no limit"));
   gtk_box_append (GTK_BOX (box), GTK_WIDGET (grid));
 }
 
@@ -1293,6 +1299,8 @@ update_design_extra (SwInspector *self, const SwDesign *d)
   sw_number_field_set_value (self->pitch_kick_field, a->has_pitch_kick ? a->pitch_kick_deg : NAN);
   sw_number_field_set_value (self->insertion_field,
                              a->has_insertion_altitude ? a->insertion_altitude_km : NAN);
+  sw_number_field_set_value (self->max_q_alpha_field,
+                             a->has_max_q_alpha ? a->max_q_alpha_kpa_deg : NAN);
 }
 
 /* ---- stage list actions ------------------------------------------------ */
@@ -1514,6 +1522,7 @@ sw_inspector_get_field (SwInspector *self, SwInspectorField field)
     case SW_INSPECTOR_PITCH_OVER_SPEED: return GTK_WIDGET (self->pitch_over_field);
     case SW_INSPECTOR_PITCH_KICK: return GTK_WIDGET (self->pitch_kick_field);
     case SW_INSPECTOR_INSERTION_ALTITUDE: return GTK_WIDGET (self->insertion_field);
+    case SW_INSPECTOR_MAX_Q_ALPHA: return GTK_WIDGET (self->max_q_alpha_field);
     case SW_INSPECTOR_N_FIELDS:
     default: return NULL;
     }

@@ -194,6 +194,9 @@ range_text (SwNumberField *self)
 static void
 show_error (SwNumberField *self, const char *message)
 {
+  /* Nothing to undo: no relayout for nothing. */
+  if (message == NULL && self->error == NULL)
+    return;
   g_free (self->error);
   self->error = g_strdup (message);
   if (message != NULL)
@@ -220,7 +223,8 @@ show_text (SwNumberField *self, double value)
 {
   g_free (self->shown_text);
   self->shown_text = format_value (value, self->digits);
-  gtk_editable_set_text (GTK_EDITABLE (self->entry), self->shown_text);
+  if (g_strcmp0 (gtk_editable_get_text (GTK_EDITABLE (self->entry)), self->shown_text) != 0)
+    gtk_editable_set_text (GTK_EDITABLE (self->entry), self->shown_text);
 }
 
 static gboolean
@@ -520,7 +524,8 @@ sw_number_field_set_optional (SwNumberField *self, gboolean optional, const char
 {
   g_return_if_fail (SW_IS_NUMBER_FIELD (self));
   self->optional = optional;
-  gtk_entry_set_placeholder_text (GTK_ENTRY (self->entry), placeholder);
+  if (g_strcmp0 (gtk_entry_get_placeholder_text (GTK_ENTRY (self->entry)), placeholder) != 0)
+    gtk_entry_set_placeholder_text (GTK_ENTRY (self->entry), placeholder);
 }
 
 void

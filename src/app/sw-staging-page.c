@@ -7,7 +7,10 @@
 
 #include "sw-carpet.h"
 #include "sw-csv-staging.h"
+#include "sw-document.h"
+#include "sw-economics.h"
 #include "sw-format.h"
+#include "sw-number-field.h"
 #include "sw-plot-axis.h"
 #include "sw-plot-palette.h"
 #include "sw-staging.h"
@@ -54,6 +57,11 @@ struct _SwStagingPage {
   GtkWidget      *carpet_title;
   GtkWidget      *progress;
   GtkWidget      *carpet;
+  GtkWidget      *scroller;
+  SwDocument     *document;     /* the edits of the economics keys go here */
+  guint           updating;     /* fields being filled from a result */
+  GtkWidget      *fields[SW_N_ECON_NUMBERS];
+  GtkWidget      *mode;
   Job            *running;      /* the newest job, until it is shown */
   Job            *shown;        /* the job whose figures are drawn */
   guint           progress_id;
@@ -141,6 +149,16 @@ sw_staging_page_set_result (SwStagingPage *self, SwAnalysis *result)
     }
   if (result == NULL || result->design == NULL || result->design->n_stages == 0)
     return;
+  /* The fields show the design the figures come from. */
+  self->updating++;
+  for (guint k = 0; k < SW_N_ECON_NUMBERS; k++)
+    {
+      double v = sw_economics_get_number (&result->design->economics, k);
+      double scale = sw_limit_get (sw_economics_number_limit (k))->max <= 1.0 ? 100.0 : 1.0;
+      sw_number_field_reset (SW_NUMBER_FIELD (self->fields[k]), v * scale);
+    }
+  gtk_drop_down_set_selected (GTK_DROP_DOWN (self->mode), result->design->economics.recovery_mode);
+  self->updating--;
   job = g_new0 (Job, 1);
   job->ref = 1;
   g_mutex_init (&job->lock);
@@ -156,6 +174,66 @@ sw_staging_page_set_result (SwStagingPage *self, SwAnalysis *result)
   gtk_widget_set_visible (self->progress, TRUE);
   if (self->progress_id == 0)
     self->progress_id = g_timeout_add (50, progress_tick_cb, self);
+}
+
+void
+sw_staging_page_set_document (SwStagingPage *self, SwDocument *document)
+{
+  g_return_if_fail (SW_IS_STAGING_PAGE (self));
+  g_set_object (&self->document, document);
+}
+
+GtkWidget *
+sw_staging_page_get_field (SwStagingPage *self, SwEconNumber key)
+{
+  g_return_val_if_fail (SW_IS_STAGING_PAGE (self) && key < SW_N_ECON_NUMBERS, NULL);
+  return self->fields[key];
+}
+
+GtkWidget *
+sw_staging_page_get_mode (SwStagingPage *self)
+{
+  g_return_val_if_fail (SW_IS_STAGING_PAGE (self), NULL);
+  return self->mode;
+}
+
+/* A field's value into the design through the named edit, one undo step
+ * per field (merged while the same field is edited). */
+static void
+field_committed_cb (SwNumberField *field, SwStagingPage *self)
+{
+  SwEconNumber key = GPOINTER_TO_UINT (g_object_get_data (G_OBJECT (field), "sw-econ-key"));
+  double scale = sw_limit_get (sw_economics_number_limit (key))->max <= 1.0 ? 100.0 : 1.0;
+  g_autofree char *merge = g_strdup_printf ("staging:%u", key);
+  SwDesign *d;
+
+  if (self->updating > 0 || self->document == NULL)
+    return;
+  d = sw_document_dup_design (self->document);
+  if (!sw_economics_set_number (&d->economics, key, sw_number_field_get_value (field) / scale)
+      || sw_design_equal (d, sw_document_get_design (self->document)))
+    {
+      sw_design_free (d);
+      return;
+    }
+  sw_document_commit (self->document, d, merge);
+}
+
+static void
+mode_cb (GtkDropDown *dd, GParamSpec *pspec, SwStagingPage *self)
+{
+  SwDesign *d;
+
+  if (self->updating > 0 || self->document == NULL)
+    return;
+  d = sw_document_dup_design (self->document);
+  sw_economics_set_recovery_mode (&d->economics, gtk_drop_down_get_selected (dd));
+  if (sw_design_equal (d, sw_document_get_design (self->document)))
+    {
+      sw_design_free (d);
+      return;
+    }
+  sw_document_commit (self->document, d, "staging:mode");
 }
 
 gboolean
@@ -584,7 +662,8 @@ sw_staging_page_dispose (GObject *object)
   g_clear_pointer (&self->running, job_unref);
   g_clear_pointer (&self->shown, job_unref);
   g_clear_handle_id (&self->progress_id, g_source_remove);
-  g_clear_pointer (&self->box, gtk_widget_unparent);
+  g_clear_object (&self->document);
+  g_clear_pointer (&self->scroller, gtk_widget_unparent);
   G_OBJECT_CLASS (sw_staging_page_parent_class)->dispose (object);
 }
 
@@ -601,12 +680,16 @@ sw_staging_page_init (SwStagingPage *self)
 {
   GtkWidget *heading, *note;
 
+  self->scroller = gtk_scrolled_window_new ();
+  gtk_scrolled_window_set_policy (GTK_SCROLLED_WINDOW (self->scroller), GTK_POLICY_NEVER,
+                                  GTK_POLICY_AUTOMATIC);
+  gtk_widget_set_parent (self->scroller, GTK_WIDGET (self));
   self->box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 6);
   gtk_widget_set_margin_start (self->box, 8);
   gtk_widget_set_margin_end (self->box, 8);
   gtk_widget_set_margin_top (self->box, 8);
   gtk_widget_set_margin_bottom (self->box, 8);
-  gtk_widget_set_parent (self->box, GTK_WIDGET (self));
+  gtk_scrolled_window_set_child (GTK_SCROLLED_WINDOW (self->scroller), self->box);
 
   heading = gtk_label_new (_("The staging decision: one to six serial stages (boosters are not "
                              "modelled yet). Solid: expendable; dashed: first stage recovered. "
@@ -619,7 +702,7 @@ sw_staging_page_init (SwStagingPage *self)
   gtk_label_set_xalign (GTK_LABEL (self->statement), 0.0);
   gtk_box_append (GTK_BOX (self->box), self->statement);
   self->decision = gtk_drawing_area_new ();
-  gtk_widget_set_size_request (self->decision, 600, 380);
+  gtk_widget_set_size_request (self->decision, 300, 420);
   gtk_widget_set_vexpand (self->decision, TRUE);
   gtk_drawing_area_set_draw_func (GTK_DRAWING_AREA (self->decision), draw_decision, self, NULL);
   gtk_box_append (GTK_BOX (self->box), self->decision);
@@ -638,10 +721,78 @@ sw_staging_page_init (SwStagingPage *self)
   gtk_widget_set_visible (self->progress, FALSE);
   gtk_box_append (GTK_BOX (self->box), self->progress);
   self->carpet = gtk_drawing_area_new ();
-  gtk_widget_set_size_request (self->carpet, 600, 340);
+  gtk_widget_set_size_request (self->carpet, 300, 380);
   gtk_widget_set_vexpand (self->carpet, TRUE);
   gtk_drawing_area_set_draw_func (GTK_DRAWING_AREA (self->carpet), draw_carpet, self, NULL);
   gtk_box_append (GTK_BOX (self->box), self->carpet);
+  {
+    static const char *const labels[SW_N_ECON_NUMBERS] = {
+      [SW_ECON_WORK_YEAR_COST] = N_("Cost of a work-year"),
+      [SW_ECON_PRODUCTION_RUN] = N_("Vehicles built"),
+      [SW_ECON_LEARNING_RATE] = N_("Learning rate"),
+      [SW_ECON_CER_FIRST + SW_CER_STAGE_DEV_FACTOR] = N_("Stage development a"),
+      [SW_ECON_CER_FIRST + SW_CER_STAGE_DEV_EXPONENT] = N_("Stage development x"),
+      [SW_ECON_CER_FIRST + SW_CER_STAGE_UNIT_FACTOR] = N_("Stage first unit b"),
+      [SW_ECON_CER_FIRST + SW_CER_STAGE_UNIT_EXPONENT] = N_("Stage first unit y"),
+      [SW_ECON_CER_FIRST + SW_CER_ENGINE_DEV_FACTOR] = N_("Engine development a"),
+      [SW_ECON_CER_FIRST + SW_CER_ENGINE_DEV_EXPONENT] = N_("Engine development x"),
+      [SW_ECON_CER_FIRST + SW_CER_ENGINE_UNIT_FACTOR] = N_("Engine first unit b"),
+      [SW_ECON_CER_FIRST + SW_CER_ENGINE_UNIT_EXPONENT] = N_("Engine first unit y"),
+      [SW_ECON_CER_FIRST + SW_CER_SYSTEMS_BASE] = N_("Systems factor per stage"),
+      [SW_ECON_ENGINE_MASS_FRACTION] = N_("Engines in a stage's dry mass"),
+      [SW_ECON_RECOVERY_DELTA_V] = N_("Recovery delta-v"),
+      [SW_ECON_LANDING_HARDWARE] = N_("Landing hardware"),
+      [SW_ECON_REFURBISHMENT] = N_("Refurbishment"),
+      [SW_ECON_FLIGHTS_PER_STAGE] = N_("Flights per stage"),
+      [SW_ECON_WEIGHT_LIFTOFF_MASS] = N_("Weight: liftoff mass"),
+      [SW_ECON_WEIGHT_DEVELOPMENT] = N_("Weight: development"),
+      [SW_ECON_WEIGHT_COST_PER_FLIGHT] = N_("Weight: cost per flight"),
+      [SW_ECON_WEIGHT_FAILURE] = N_("Weight: failure"),
+    };
+    GtkWidget *title = gtk_label_new (_("Cost model, recovery and weights (the design's "
+                                        "economics keys; engine types and developed stages "
+                                        "are set in the file)"));
+    GtkWidget *grid = gtk_grid_new ();
+    const char *modes[] = { N_("Expendable"), N_("Lands downrange"),
+                            N_("Returns to the launch site"), NULL };
+    const char *shown[4];
+
+    gtk_grid_set_column_spacing (GTK_GRID (grid), 8);
+    gtk_grid_set_row_spacing (GTK_GRID (grid), 4);
+    for (guint k = 0; k < SW_N_ECON_NUMBERS; k++)
+      {
+        SwLimitId id = sw_economics_number_limit (k);
+        gboolean percent = sw_limit_get (id)->max <= 1.0;
+        GtkWidget *label = gtk_label_new (_(labels[k]));
+        GtkWidget *field = sw_number_field_new ();
+        int row = (int) k + 1, col = 0;
+
+        gtk_label_set_xalign (GTK_LABEL (label), 0.0);
+        sw_number_field_set_limit (SW_NUMBER_FIELD (field), id, percent ? 100.0 : 1.0,
+                                   sw_economics_number_is_whole (k) ? 0 : 3,
+                                   sw_economics_number_is_whole (k) ? 1.0 : 0.01);
+        sw_number_field_set_whole (SW_NUMBER_FIELD (field), sw_economics_number_is_whole (k));
+        if (k == SW_ECON_WORK_YEAR_COST)
+          sw_number_field_set_optional (SW_NUMBER_FIELD (field), TRUE, _("work-years only"));
+        g_object_set_data (G_OBJECT (field), "sw-econ-key", GUINT_TO_POINTER (k));
+        g_signal_connect (field, "value-committed", G_CALLBACK (field_committed_cb), self);
+        gtk_widget_set_hexpand (field, TRUE);
+        gtk_grid_attach (GTK_GRID (grid), label, col, row, 1, 1);
+        gtk_grid_attach (GTK_GRID (grid), field, col + 1, row, 1, 1);
+        self->fields[k] = field;
+      }
+    for (guint i = 0; i < 3; i++)
+      shown[i] = _(modes[i]);
+    shown[3] = NULL;
+    self->mode = gtk_drop_down_new_from_strings (shown);
+    g_signal_connect (self->mode, "notify::selected", G_CALLBACK (mode_cb), self);
+    gtk_grid_attach (GTK_GRID (grid), gtk_label_new (_("First stage")), 0, 0, 1, 1);
+    gtk_grid_attach (GTK_GRID (grid), self->mode, 1, 0, 1, 1);
+    gtk_label_set_wrap (GTK_LABEL (title), TRUE);
+    gtk_label_set_xalign (GTK_LABEL (title), 0.0);
+    gtk_box_append (GTK_BOX (self->box), title);
+    gtk_box_append (GTK_BOX (self->box), grid);
+  }
 }
 
 GtkWidget *

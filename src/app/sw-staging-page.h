@@ -12,6 +12,8 @@
 #include <gtk/gtk.h>
 
 #include "sw-analysis.h"
+#include "sw-document.h"
+#include "sw-economics.h"
 
 G_BEGIN_DECLS
 
@@ -20,6 +22,11 @@ G_DECLARE_FINAL_TYPE (SwStagingPage, sw_staging_page, SW, STAGING_PAGE, GtkWidge
 
 GtkWidget *sw_staging_page_new (void);
 void       sw_staging_page_set_result (SwStagingPage *self, SwAnalysis *result);
+/* The document the page's fields edit (the design's economics keys). */
+void       sw_staging_page_set_document (SwStagingPage *self, SwDocument *document);
+/* Test API: the field of a numeric economics key, the recovery-mode menu. */
+GtkWidget *sw_staging_page_get_field (SwStagingPage *self, SwEconNumber key);
+GtkWidget *sw_staging_page_get_mode (SwStagingPage *self);
 /* Test API: TRUE once the worker's figures for the last result are shown. */
 gboolean   sw_staging_page_is_ready (SwStagingPage *self);
 /* The weighting statement shown (for tests). */

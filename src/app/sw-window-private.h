@@ -12,6 +12,7 @@
 #include "sw-solver.h"
 #include "sw-stack-view.h"
 #include "sw-totals.h"
+#include "sw-staging-page.h"
 #include "sw-trade-page.h"
 #include "sw-window.h"
 #include "sw-working-view.h"
@@ -26,6 +27,7 @@ SwTotals      *sw_window_get_totals (SwWindow *self);
 SwWorkingView *sw_window_get_working_view (SwWindow *self);
 SwAscentPage  *sw_window_get_ascent_page (SwWindow *self);
 SwTradePage   *sw_window_get_trade_page (SwWindow *self);
+SwStagingPage *sw_window_get_staging_page (SwWindow *self);
 /* The export dialog while it is open (design.export opens it), or NULL. */
 SwExportDialog *sw_window_get_export_dialog (SwWindow *self);
 /* Brings a page of the notebook to the front: "curves", "working",

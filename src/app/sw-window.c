@@ -629,6 +629,13 @@ sw_window_get_trade_page (SwWindow *self)
   return self->trade_page;
 }
 
+SwStagingPage *
+sw_window_get_staging_page (SwWindow *self)
+{
+  g_return_val_if_fail (SW_IS_WINDOW (self), NULL);
+  return self->staging_page;
+}
+
 SwExportDialog *
 sw_window_get_export_dialog (SwWindow *self)
 {
@@ -884,8 +891,11 @@ sw_window_init (SwWindow *self)
   sw_inspector_set_document (self->inspector, self->document);
   sw_trade_page_set_document (self->trade_page, self->document);
   self->staging_page = SW_STAGING_PAGE (sw_staging_page_new ());
+  sw_staging_page_set_document (self->staging_page, self->document);
   gtk_notebook_append_page (self->notebook, GTK_WIDGET (self->staging_page),
                             gtk_label_new_with_mnemonic (_("Stagin_g decision")));
+  /* Five tabs: let the tab row scroll rather than widen the window. */
+  gtk_notebook_set_scrollable (self->notebook, TRUE);
   {
     SwAnalysisOptions options;
     sw_solver_get_options (self->solver, &options);

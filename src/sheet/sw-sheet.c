@@ -9,6 +9,7 @@
 
 #include "sw-format.h"
 #include "sw-sheet-private.h"
+#include "sw-sheet-staging.h"
 #include "sw-stack-drawing.h"
 
 #include <cairo-pdf.h>
@@ -548,7 +549,7 @@ sw_sheet_draw_page (cairo_t *cr, const SwAnalysis *a, double width, double heigh
   y = draw_header (&p, a, margin - 4.0);
   footer_top = draw_footer (&p, height - margin + 12.0);
   table_h = stage_table_height (a);
-  avail = footer_top - gap - y - table_h - 3 * gap;
+  avail = footer_top - gap - y - table_h - 3 * gap - sw_sheet_staging_height () - gap;
   /* The totals panel grows with its figures; the charts share the rest. */
   {
     guint rows = 8 + (a->reliability.given ? 1 : 0) + (a->has_montecarlo ? 2 : 0)
@@ -574,6 +575,8 @@ sw_sheet_draw_page (cairo_t *cr, const SwAnalysis *a, double width, double heigh
 
   draw_stage_table (&p, a, y);
   y += table_h + gap;
+  sw_sheet_draw_staging (cr, a->design, p.x, y, p.w, sw_sheet_staging_height ());
+  y += sw_sheet_staging_height () + gap;
 
   /* The two curves side by side: mass and risk against stage count. */
   {

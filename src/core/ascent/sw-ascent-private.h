@@ -153,6 +153,7 @@ typedef struct {
   double        max_alt;           /* highest altitude so far, m */
   double        max_q_alpha;       /* Pa rad */
   double        psi_stage;         /* the attitude when guidance took over, rad */
+  double        blend_s;           /* how long after it the attitude may still be turning */
   gboolean      ignited[SW_MAX_STAGES];
   gboolean      burnt[SW_MAX_STAGES];
   SwAscentPoint ign[SW_MAX_STAGES];

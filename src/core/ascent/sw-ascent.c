@@ -178,23 +178,36 @@ derive (const SwFlightSim *s, double t, const double *y, Derived *d)
          * at the start of guidance to tan(psi_end) at the nominal end of the
          * last burn (Bryson and Ho's law for a flat Earth in vacuum). */
         double tp = s->tan_s + (s->tan_e - s->tan_s) * (t - s->f.t_guide) / s->f.T_guide;
-        double psi = atan (tp), off = s->f.psi_stage - atan (s->tan_s);
-        double left = fabs (off) - m->pitch_rate * (t - s->f.t_guide);
+        double dt = t - s->f.t_guide;
+        double off = dt < s->f.blend_s ? s->f.psi_stage - atan (s->tan_s) : 0.0;
+        gboolean blend = fabs (off) > m->pitch_rate * dt;
+        gboolean limit = m->q_alpha_max > 0.0 && d->q > 0.0 && d->v_rel > 1e-6
+                         && m->q_alpha_max / d->q < G_PI;
 
-        /* No jump at staging: the attitude turns from the one the stage
-         * below flew to the guidance law's at a limited rate. */
-        if (left > 0.0)
-          psi += copysign (left, off);
-        /* q alpha limit: the thrust stays within q_alpha_max / q of the air
-         * velocity. */
-        if (m->q_alpha_max > 0.0 && d->q > 0.0 && d->v_rel > 1e-6)
+        if (!blend && !limit)
           {
-            double gam = atan2 (d->vr, d->vt_rel), amax = m->q_alpha_max / d->q;
-            if (amax < G_PI)
-              psi = CLAMP (psi, gam - amax, gam + amax);
+            double k = 1.0 / sqrt (1.0 + tp * tp);
+            d->sin_psi = tp * k;
+            d->cos_psi = k;
           }
-        d->sin_psi = sin (psi);
-        d->cos_psi = cos (psi);
+        else
+          {
+            double psi = atan (tp);
+
+            /* No jump at staging: the attitude turns from the one the stage
+             * below flew to the guidance law's at a limited rate. */
+            if (blend)
+              psi += copysign (fabs (off) - m->pitch_rate * dt, off);
+            /* q alpha limit: the thrust stays within q_alpha_max / q of the
+             * air velocity. */
+            if (limit)
+              {
+                double gam = atan2 (d->vr, d->vt_rel), amax = m->q_alpha_max / d->q;
+                psi = CLAMP (psi, gam - amax, gam + amax);
+              }
+            d->sin_psi = sin (psi);
+            d->cos_psi = cos (psi);
+          }
       }
       break;
     }
@@ -690,6 +703,7 @@ end_segment (SwFlightSim *s)
       if (sg->stage == m->first && m->opt.steering == SW_STEERING_GUIDED)
         {
           s->f.psi_stage = attitude (s);
+          s->f.blend_s = G_PI / m->pitch_rate;
           s->f.steer = SW_STEER_GUIDED;
           s->f.t_guide = s->f.t;
           guide = TRUE;
@@ -750,6 +764,7 @@ sw_flight_run (SwFlightSim *s)
           break;
         case EV_GUIDE_START:
           s->f.psi_stage = attitude (s);
+          s->f.blend_s = G_PI / s->m->pitch_rate;
           s->f.steer = SW_STEER_GUIDED;
           s->f.t_guide = s->f.t;
           s->f.T_guide = remaining_nominal_time (s);
@@ -795,8 +810,16 @@ sw_flight_init (SwFlightSim *s, const SwFlightModel *m)
   s->sys.dimension = SW_NY;
   s->sys.params = s;
   s->step = gsl_odeiv2_step_alloc (gsl_odeiv2_step_rk8pd, SW_NY);
-  /* Absolute floor 1e-6 (m, m/s, kg), relative rtol. */
-  s->ctl = gsl_odeiv2_control_standard_new (1e-6, m->opt.rtol, 1.0, 0.0);
+  /* Absolute floor 1e-6 (m, m/s, kg), relative rtol, on the state; the
+   * loss integrals ride on the steps the state needs (their floor 1e-3 m/s
+   * keeps them from setting the step). */
+  {
+    double scale[SW_NY];
+
+    for (int i = 0; i < SW_NY; i++)
+      scale[i] = i < SW_Y_LG ? 1.0 : 1.0e3;
+    s->ctl = gsl_odeiv2_control_scaled_new (1e-6, m->opt.rtol, 1.0, 0.0, scale, SW_NY);
+  }
   s->evo = gsl_odeiv2_evolve_alloc (SW_NY);
   s->root = gsl_root_fsolver_alloc (gsl_root_fsolver_brent);
   s->samples = g_array_new (FALSE, FALSE, sizeof (SwAscentSample));

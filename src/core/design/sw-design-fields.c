@@ -49,6 +49,8 @@ static const SwDesignFieldInfo fields[SW_N_FIELDS] = {
   [SW_FIELD_PITCH_KICK] = { "ascent.pitch_kick_deg", SW_LIMIT_PITCH_KICK, FALSE, TRUE, FALSE },
   [SW_FIELD_INSERTION_ALTITUDE] = { "ascent.insertion_altitude_km", SW_LIMIT_INSERTION_ALTITUDE,
                                     FALSE, TRUE, FALSE },
+  [SW_FIELD_MAX_Q_ALPHA] = { "ascent.max_q_alpha_kpa_deg", SW_LIMIT_MAX_Q_ALPHA, FALSE, TRUE,
+                             FALSE },
   [SW_FIELD_MC_SAMPLES] = { "uncertainty.samples", SW_LIMIT_MC_SAMPLES, FALSE, TRUE, TRUE },
   [SW_FIELD_MC_SEED] = { "uncertainty.seed", SW_LIMIT_MC_SEED, FALSE, TRUE, TRUE },
 };
@@ -141,6 +143,8 @@ slot_of (SwDesign *d, SwDesignField f, guint i)
     case SW_FIELD_INSERTION_ALTITUDE:
       s.slot = &d->ascent.insertion_altitude_km; s.has = &d->ascent.has_insertion_altitude;
       break;
+    case SW_FIELD_MAX_Q_ALPHA:
+      s.slot = &d->ascent.max_q_alpha_kpa_deg; s.has = &d->ascent.has_max_q_alpha; break;
     case SW_FIELD_MC_SAMPLES:
       s.uint_slot = &d->uncertainty.samples; s.has = &d->uncertainty.has_samples; break;
     case SW_FIELD_MC_SEED:
@@ -205,9 +209,10 @@ update_presence (SwDesign *d, SwDesignField f, guint i)
     case SW_FIELD_PITCH_OVER_SPEED:
     case SW_FIELD_PITCH_KICK:
     case SW_FIELD_INSERTION_ALTITUDE:
+    case SW_FIELD_MAX_Q_ALPHA:
       a->present = a->has_fairing_mass || a->has_fairing_altitude || a->has_fairing_pressure
                    || a->has_pitch_over_speed || a->has_pitch_kick
-                   || a->has_insertion_altitude;
+                   || a->has_insertion_altitude || a->has_max_q_alpha;
       break;
     case SW_FIELD_MC_SAMPLES:
     case SW_FIELD_MC_SEED:

@@ -42,6 +42,7 @@ typedef enum {
   SW_FIELD_PITCH_OVER_SPEED,          /* optional */
   SW_FIELD_PITCH_KICK,                /* optional */
   SW_FIELD_INSERTION_ALTITUDE,        /* optional */
+  SW_FIELD_MAX_Q_ALPHA,               /* optional */
   /* the "uncertainty" object */
   SW_FIELD_MC_SAMPLES,                /* optional, whole */
   SW_FIELD_MC_SEED,                   /* optional, whole */

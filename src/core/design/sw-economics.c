@@ -579,3 +579,160 @@ sw_economics_validate (const SwEconomics *econ, guint n_stages, const char *file
     }
   return TRUE;
 }
+
+/* ---- named edits ------------------------------------------------------- */
+
+static const struct {
+  const char *path;
+  SwLimitId   limit;
+  gboolean    whole;
+} econ_numbers[SW_N_ECON_NUMBERS] = {
+  [SW_ECON_WORK_YEAR_COST] = { "work_year_cost", SW_LIMIT_WORK_YEAR_COST, FALSE },
+  [SW_ECON_PRODUCTION_RUN] = { "production_run", SW_LIMIT_PRODUCTION_RUN, TRUE },
+  [SW_ECON_LEARNING_RATE] = { "learning_rate", SW_LIMIT_LEARNING_RATE, FALSE },
+  [SW_ECON_CER_FIRST + SW_CER_STAGE_DEV_FACTOR] = { "cost_coefficients.stage_development_factor",
+    SW_LIMIT_CER_STAGE_DEV_FACTOR, FALSE },
+  [SW_ECON_CER_FIRST + SW_CER_STAGE_DEV_EXPONENT] = {
+    "cost_coefficients.stage_development_exponent", SW_LIMIT_CER_STAGE_DEV_EXPONENT, FALSE },
+  [SW_ECON_CER_FIRST + SW_CER_STAGE_UNIT_FACTOR] = { "cost_coefficients.stage_unit_factor",
+    SW_LIMIT_CER_STAGE_UNIT_FACTOR, FALSE },
+  [SW_ECON_CER_FIRST + SW_CER_STAGE_UNIT_EXPONENT] = { "cost_coefficients.stage_unit_exponent",
+    SW_LIMIT_CER_STAGE_UNIT_EXPONENT, FALSE },
+  [SW_ECON_CER_FIRST + SW_CER_ENGINE_DEV_FACTOR] = {
+    "cost_coefficients.engine_development_factor", SW_LIMIT_CER_ENGINE_DEV_FACTOR, FALSE },
+  [SW_ECON_CER_FIRST + SW_CER_ENGINE_DEV_EXPONENT] = {
+    "cost_coefficients.engine_development_exponent", SW_LIMIT_CER_ENGINE_DEV_EXPONENT, FALSE },
+  [SW_ECON_CER_FIRST + SW_CER_ENGINE_UNIT_FACTOR] = { "cost_coefficients.engine_unit_factor",
+    SW_LIMIT_CER_ENGINE_UNIT_FACTOR, FALSE },
+  [SW_ECON_CER_FIRST + SW_CER_ENGINE_UNIT_EXPONENT] = { "cost_coefficients.engine_unit_exponent",
+    SW_LIMIT_CER_ENGINE_UNIT_EXPONENT, FALSE },
+  [SW_ECON_CER_FIRST + SW_CER_SYSTEMS_BASE] = { "cost_coefficients.systems_factor_per_stage",
+    SW_LIMIT_CER_SYSTEMS_BASE, FALSE },
+  [SW_ECON_ENGINE_MASS_FRACTION] = { "engine_mass_fraction", SW_LIMIT_ENGINE_MASS_FRACTION,
+    FALSE },
+  [SW_ECON_RECOVERY_DELTA_V] = { "recovery.recovery_delta_v_m_s", SW_LIMIT_RECOVERY_DELTA_V,
+    FALSE },
+  [SW_ECON_LANDING_HARDWARE] = { "recovery.landing_hardware_fraction", SW_LIMIT_LANDING_HARDWARE,
+    FALSE },
+  [SW_ECON_REFURBISHMENT] = { "recovery.refurbishment_fraction", SW_LIMIT_REFURBISHMENT, FALSE },
+  [SW_ECON_FLIGHTS_PER_STAGE] = { "recovery.flights_per_stage", SW_LIMIT_FLIGHTS_PER_STAGE,
+    TRUE },
+  [SW_ECON_WEIGHT_LIFTOFF_MASS] = { "decision_weights.liftoff_mass", SW_LIMIT_DECISION_WEIGHT,
+    FALSE },
+  [SW_ECON_WEIGHT_DEVELOPMENT] = { "decision_weights.development", SW_LIMIT_DECISION_WEIGHT,
+    FALSE },
+  [SW_ECON_WEIGHT_COST_PER_FLIGHT] = { "decision_weights.cost_per_flight",
+    SW_LIMIT_DECISION_WEIGHT, FALSE },
+  [SW_ECON_WEIGHT_FAILURE] = { "decision_weights.failure", SW_LIMIT_DECISION_WEIGHT, FALSE },
+};
+
+SwLimitId
+sw_economics_number_limit (SwEconNumber key)
+{
+  g_return_val_if_fail (key < SW_N_ECON_NUMBERS, SW_N_LIMITS);
+  return econ_numbers[key].limit;
+}
+
+const char *
+sw_economics_number_path (SwEconNumber key)
+{
+  g_return_val_if_fail (key < SW_N_ECON_NUMBERS, NULL);
+  return econ_numbers[key].path;
+}
+
+gboolean
+sw_economics_number_is_whole (SwEconNumber key)
+{
+  g_return_val_if_fail (key < SW_N_ECON_NUMBERS, FALSE);
+  return econ_numbers[key].whole;
+}
+
+static double *
+number_slot (SwEconomics *e, SwEconNumber key)
+{
+  switch (key)
+    {
+    case SW_ECON_WORK_YEAR_COST:
+      return &e->work_year_cost;
+    case SW_ECON_LEARNING_RATE:
+      return &e->learning_rate;
+    case SW_ECON_ENGINE_MASS_FRACTION:
+      return &e->engine_mass_fraction;
+    case SW_ECON_RECOVERY_DELTA_V:
+      return &e->recovery_delta_v_m_s;
+    case SW_ECON_LANDING_HARDWARE:
+      return &e->landing_hardware_fraction;
+    case SW_ECON_REFURBISHMENT:
+      return &e->refurbishment_fraction;
+    case SW_ECON_WEIGHT_LIFTOFF_MASS:
+      return &e->weight_liftoff_mass;
+    case SW_ECON_WEIGHT_DEVELOPMENT:
+      return &e->weight_development;
+    case SW_ECON_WEIGHT_COST_PER_FLIGHT:
+      return &e->weight_cost_per_flight;
+    case SW_ECON_WEIGHT_FAILURE:
+      return &e->weight_failure;
+    default:
+      if (key >= SW_ECON_CER_FIRST && key < SW_ECON_CER_FIRST + SW_N_CER)
+        return &e->coefficients[key - SW_ECON_CER_FIRST];
+      return NULL;
+    }
+}
+
+double
+sw_economics_get_number (const SwEconomics *econ, SwEconNumber key)
+{
+  g_return_val_if_fail (econ != NULL && key < SW_N_ECON_NUMBERS, NAN);
+  switch (key)
+    {
+    case SW_ECON_WORK_YEAR_COST:
+      return econ->has_work_year_cost ? econ->work_year_cost : NAN;
+    case SW_ECON_PRODUCTION_RUN:
+      return econ->production_run;
+    case SW_ECON_FLIGHTS_PER_STAGE:
+      return econ->flights_per_stage;
+    case SW_ECON_RECOVERY_DELTA_V:
+      return sw_economics_recovery_delta_v (econ);
+    default:
+      return *number_slot ((SwEconomics *) econ, key);
+    }
+}
+
+gboolean
+sw_economics_set_number (SwEconomics *econ, SwEconNumber key, double value)
+{
+  g_return_val_if_fail (econ != NULL && key < SW_N_ECON_NUMBERS, FALSE);
+
+  if (econ_numbers[key].whole)
+    value = round (value);
+  if (!sw_limit_contains (econ_numbers[key].limit, value))
+    return FALSE;
+  econ->present = TRUE;
+  switch (key)
+    {
+    case SW_ECON_PRODUCTION_RUN:
+      econ->production_run = (guint) value;
+      break;
+    case SW_ECON_FLIGHTS_PER_STAGE:
+      econ->flights_per_stage = (guint) value;
+      break;
+    default:
+      *number_slot (econ, key) = value;
+      if (key == SW_ECON_WORK_YEAR_COST)
+        econ->has_work_year_cost = TRUE;
+      else if (key == SW_ECON_RECOVERY_DELTA_V)
+        econ->has_recovery_delta_v = TRUE;
+      else if (key >= SW_ECON_CER_FIRST && key < SW_ECON_CER_FIRST + SW_N_CER)
+        econ->coefficients_set |= G_GUINT64_CONSTANT (1) << (key - SW_ECON_CER_FIRST);
+      break;
+    }
+  return TRUE;
+}
+
+void
+sw_economics_set_recovery_mode (SwEconomics *econ, SwRecoveryMode mode)
+{
+  g_return_if_fail (econ != NULL && mode <= SW_RECOVERY_LAUNCH_SITE);
+  econ->present = TRUE;
+  econ->recovery_mode = mode;
+}

@@ -117,6 +117,36 @@ int      sw_economics_engine_type_of_stage (const SwEconomics *econ, guint stage
 const char *sw_recovery_mode_to_string (SwRecoveryMode mode);
 gboolean    sw_recovery_mode_from_string (const char *text, SwRecoveryMode *mode);
 
+/* The numeric keys, for the window's fields and their named edit. */
+typedef enum {
+  SW_ECON_WORK_YEAR_COST,
+  SW_ECON_PRODUCTION_RUN,
+  SW_ECON_LEARNING_RATE,
+  SW_ECON_CER_FIRST,                  /* + SwCerId, SW_N_CER of them */
+  SW_ECON_ENGINE_MASS_FRACTION = SW_ECON_CER_FIRST + SW_N_CER,
+  SW_ECON_RECOVERY_DELTA_V,
+  SW_ECON_LANDING_HARDWARE,
+  SW_ECON_REFURBISHMENT,
+  SW_ECON_FLIGHTS_PER_STAGE,
+  SW_ECON_WEIGHT_LIFTOFF_MASS,
+  SW_ECON_WEIGHT_DEVELOPMENT,
+  SW_ECON_WEIGHT_COST_PER_FLIGHT,
+  SW_ECON_WEIGHT_FAILURE,
+  SW_N_ECON_NUMBERS
+} SwEconNumber;
+
+SwLimitId sw_economics_number_limit (SwEconNumber key);
+/* The JSON path below "economics" ("recovery.flights_per_stage"). */
+const char *sw_economics_number_path (SwEconNumber key);
+gboolean sw_economics_number_is_whole (SwEconNumber key);
+/* The value in force (the mode's default recovery delta-v when none is set). */
+double   sw_economics_get_number (const SwEconomics *econ, SwEconNumber key);
+/* The named edit: sets the key (whole numbers for whole keys), marks the
+ * object present; FALSE, nothing changed, when @value is outside its limit. */
+gboolean sw_economics_set_number (SwEconomics *econ, SwEconNumber key, double value);
+/* The named edit of the recovery mode. */
+void     sw_economics_set_recovery_mode (SwEconomics *econ, SwRecoveryMode mode);
+
 gboolean sw_economics_load_design (JsonObject *root, const char *file, const char *prefix,
                                    SwEconomics *econ, GPtrArray *warnings, GError **error);
 void     sw_economics_save_design (JsonBuilder *builder, const SwEconomics *econ);

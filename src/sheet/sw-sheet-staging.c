@@ -1,0 +1,100 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* The briefing sheet's staging-decision panel: the stages command's table in
+ * small print, the best stage count in the accent colour, this design's
+ * count marked, the weighting stated. */
+#define G_LOG_DOMAIN "sw-sheet"
+
+#include "config.h"
+
+#include "sw-sheet-staging.h"
+
+#include "sw-format.h"
+#include "sw-sheet-private.h"
+#include "sw-staging.h"
+
+#include <glib/gi18n-lib.h>
+#include <math.h>
+
+#define ROW_H 9.5
+
+double
+sw_sheet_staging_height (void)
+{
+  /* Heading, column titles, six rows, the weighting line. */
+  return 16.0 + ROW_H * (SW_STAGING_MAX_STAGES + 1) + 12.0;
+}
+
+void
+sw_sheet_draw_staging (cairo_t *cr, const SwDesign *design, double x, double y, double w,
+                       double h)
+{
+  const char *titles[] = { N_("stages"), N_("liftoff"), N_("recovered"), N_("development"),
+                           N_("per flight"), N_("per flight, rec."), N_("success"),
+                           N_("payload, this mass") };
+  const double widths[] = { 0.07, 0.12, 0.12, 0.14, 0.12, 0.14, 0.11, 0.18 };
+  SwStaging s;
+  double hy, cx, ty;
+  TextStyle head = sw_sheet_style_w (6.5, TRUE, MUTED, PANGO_ALIGN_RIGHT, 0);
+  g_autofree char *statement = NULL;
+
+  hy = sw_sheet_heading (cr, _("Staging decision (serial stages; effort in work-years: an "
+                               "estimate, never a quote)"),
+                         x, y, w);
+  if (design == NULL || !sw_staging_compute (design, SW_STAGING_MAX_STAGES, &s, NULL))
+    {
+      sw_sheet_note_in_box (cr, _("Not computed: the mission has no delta-v."), x, y + hy, w,
+                            h - hy);
+      return;
+    }
+  ty = y + hy;
+  cx = x;
+  for (guint c = 0; c < G_N_ELEMENTS (titles); c++)
+    {
+      head.width = widths[c] * w - 4.0;
+      sw_sheet_text_at (cr, _(titles[c]), cx, ty, &head);
+      cx += widths[c] * w;
+    }
+  ty += ROW_H;
+  for (guint i = 0; i < s.n_rows; i++)
+    {
+      const SwStagingRow *r = &s.rows[i];
+      gboolean best = (int) i == s.best;
+      TextStyle st = sw_sheet_style_w (6.5, best, best ? ACCENT : INK, PANGO_ALIGN_RIGHT, 0);
+      char *cells[8];
+
+      if (best)
+        {
+          sw_sheet_set_color (cr, ACCENT_LIGHT, 1.0);
+          cairo_rectangle (cr, x, ty - 0.5, w, ROW_H);
+          cairo_fill (cr);
+        }
+      cells[0] = g_strdup_printf ("%s%u", r->n_stages == s.design_stages ? "▸ " : "",
+                                  r->n_stages);
+      cells[1] = sw_format_mass (r->liftoff_mass_kg);
+      cells[2] = sw_format_mass (r->liftoff_mass_reused_kg);
+      cells[3] = sw_format_number (r->development_work_years, 0);
+      cells[4] = sw_format_number (r->cost_per_flight_work_years, 0);
+      cells[5] = sw_format_number (r->cost_per_flight_reused_work_years, 0);
+      cells[6] = sw_format_probability (r->success_probability);
+      cells[7] = sw_format_mass (r->payload_fixed_size_kg);
+      cx = x;
+      for (guint c = 0; c < G_N_ELEMENTS (cells); c++)
+        {
+          st.width = widths[c] * w - 4.0;
+          sw_sheet_text_at (cr, cells[c], cx, ty, &st);
+          cx += widths[c] * w;
+          g_free (cells[c]);
+        }
+      ty += ROW_H;
+    }
+  statement = g_strdup_printf (_("▸ this design; shaded: the best count; recovered: the first "
+                                 "stage %s. %s."),
+                               s.reuse_mode == SW_RECOVERY_LAUNCH_SITE
+                                 ? _("returns to the launch site") : _("lands downrange"),
+                               s.weighting);
+  {
+    TextStyle note = sw_sheet_style_w (6.0, FALSE, MUTED, PANGO_ALIGN_LEFT, w);
+    note.ellipsize = TRUE;
+    sw_sheet_text_at (cr, statement, x, ty + 1.0, &note);
+  }
+}

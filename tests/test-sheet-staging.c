@@ -1,0 +1,95 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* The briefing sheet's staging panel: the page draws its heading, the six
+ * stage counts with this design's marked, and the weighting statement, and
+ * the liftoff mass of the design's own row is the sizing's (13.0 t for the
+ * demo study, as its totals show). */
+#include "config.h"
+
+#include "sw-analysis.h"
+#include "sw-sheet.h"
+#include "sw-sheet-private.h"
+
+#include <string.h>
+
+static void
+box_clear (gpointer p)
+{
+  g_free (((SwSheetTextBox *) p)->text);
+}
+
+static gboolean
+has_text (GArray *boxes, const char *text)
+{
+  for (guint i = 0; i < boxes->len; i++)
+    if (strcmp (g_array_index (boxes, SwSheetTextBox, i).text, text) == 0)
+      return TRUE;
+  return FALSE;
+}
+
+static gboolean
+has_prefix (GArray *boxes, const char *prefix)
+{
+  for (guint i = 0; i < boxes->len; i++)
+    if (g_str_has_prefix (g_array_index (boxes, SwSheetTextBox, i).text, prefix))
+      return TRUE;
+  return FALSE;
+}
+
+static guint
+count_text (GArray *boxes, const char *text)
+{
+  guint n = 0;
+  for (guint i = 0; i < boxes->len; i++)
+    n += strcmp (g_array_index (boxes, SwSheetTextBox, i).text, text) == 0;
+  return n;
+}
+
+static void
+test_panel_on_page (void)
+{
+  g_autofree char *path = g_build_filename (SOURCE_DESIGNS_DIR,
+                                            "skelloway-upgrade-study.stagewright", NULL);
+  g_autoptr (GError) error = NULL;
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, &error);
+  g_autoptr (GArray) boxes = g_array_new (FALSE, FALSE, sizeof (SwSheetTextBox));
+  SwAnalysisOptions o;
+  SwAnalysis *a;
+  cairo_surface_t *surface;
+  cairo_t *cr;
+  double w, h;
+
+  g_assert_no_error (error);
+  sw_analysis_options_init (&o);
+  o.montecarlo = FALSE;
+  o.ascent = FALSE;
+  a = sw_analysis_run (d, &o, NULL);
+  g_array_set_clear_func (boxes, box_clear);
+  surface = cairo_recording_surface_create (CAIRO_CONTENT_COLOR, NULL);
+  cr = cairo_create (surface);
+  sw_sheet_paper_size (SW_PAPER_A4, &w, &h);
+  sw_sheet_private_record_text (cr, boxes);
+  sw_sheet_draw_page (cr, a, w, h);
+  sw_sheet_private_record_text (cr, NULL);
+  cairo_destroy (cr);
+  cairo_surface_destroy (surface);
+
+  g_assert_true (has_text (boxes, "Staging decision (serial stages; effort in work-years: an "
+                                  "estimate, never a quote)"));
+  g_assert_true (has_text (boxes, "per flight, rec."));
+  g_assert_true (has_text (boxes, "\342\226\270 3"));
+  g_assert_true (has_text (boxes, "6"));
+  /* In the totals and again in the panel's row of three stages. */
+  g_assert_cmpuint (count_text (boxes, "13.0 t"), >=, 2);
+  g_assert_true (has_prefix (boxes, "\342\226\270 this design; shaded: the best count; "
+                                    "recovered: the first stage lands downrange. Weights: "
+                                    "liftoff mass 1"));
+  sw_analysis_unref (a);
+}
+
+int
+main (int argc, char **argv)
+{
+  g_test_init (&argc, &argv, NULL);
+  g_test_add_func ("/sheet/staging/panel-on-page", test_panel_on_page);
+  return g_test_run ();
+}
