@@ -171,6 +171,31 @@ test_cancel_and_phases (void)
   g_assert_null (sw_analysis_add_ascent (fast, c));
 }
 
+/* A stage with a fixed propellant load: the sensitivities and the Monte
+ * Carlo, which resize every stage, are left out and say why, rather than
+ * describing another vehicle. */
+static void
+test_fixed_stage_trades (void)
+{
+  g_autoptr (SwDesign) d = demo ("small-sat-launcher.stagewright");
+  g_autoptr (SwAnalysis) plain = NULL, fixed = NULL;
+
+  d->uncertainty.samples = 200;
+  plain = sw_analysis_new (d, 1, NULL, NULL);
+  g_assert_true (plain->sizing.feasible);
+  g_assert_true (plain->has_sensitivity);
+  g_assert_cmpstr (plain->montecarlo_error, ==, "");
+
+  d->stages[2].propellant.has_propellant_kg = TRUE;
+  d->stages[2].propellant.propellant_kg = 300.0;
+  fixed = sw_analysis_new (d, 2, NULL, NULL);
+  g_assert_true (fixed->sizing.feasible);
+  g_assert_true (fixed->sizing.stages[2].fixed);
+  g_assert_false (fixed->has_sensitivity);
+  g_assert_false (fixed->montecarlo_pending);
+  g_assert_nonnull (strstr (fixed->montecarlo_error, "fixed propellant load"));
+}
+
 int
 main (int argc, char **argv)
 {
@@ -181,5 +206,6 @@ main (int argc, char **argv)
   g_test_add_func ("/analysis/paper-only-with-limit", test_paper_only_with_limit);
   g_test_add_func ("/analysis/copy-shares", test_copy_shares);
   g_test_add_func ("/analysis/cancel-and-phases", test_cancel_and_phases);
+  g_test_add_func ("/analysis/fixed-stage-trades", test_fixed_stage_trades);
   return g_test_run ();
 }

@@ -95,6 +95,11 @@ test_every_field_sets (void)
         value = 10.0;
       if (f == SW_FIELD_PITCH_KICK)
         value = 2.5;
+      /* The mixture ratio needs a liquid propellant, the component
+       * densities one of the user's own. */
+      if (f == SW_FIELD_MIXTURE_RATIO || f == SW_FIELD_OXIDIZER_DENSITY
+          || f == SW_FIELD_FUEL_DENSITY)
+        g_assert_true (sw_design_set_propellant (d, 1, SW_PROPELLANT_CUSTOM, NULL));
       if (!sw_design_field_set (d, f, stage, value, &error))
         g_error ("%s = %g: %s", path, value, error->message);
       g_assert_true (sw_design_field_get (d, f, stage, &back));

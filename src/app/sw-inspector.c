@@ -83,6 +83,12 @@ struct _SwInspector {
   SwNumberField *engine_count_field;
   SwNumberField *tw_field;
   SwNumberField *diameter_field;
+  GtkDropDown   *propellant_dropdown;     /* SwPropellantKind order */
+  SwNumberField *propellant_load_field;
+  SwNumberField *mixture_ratio_field;
+  SwNumberField *ullage_field;
+  SwNumberField *oxidizer_density_field;
+  SwNumberField *fuel_density_field;
   SwNumberField *coast_field;
   GtkEntry      *drag_entry;
   GtkLabel      *drag_message;
@@ -898,6 +904,32 @@ loss_model_changed_cb (SwInspector *self)
   commit (self, g_steal_pointer (&d), NULL);
 }
 
+/* The stage's propellant: none, a catalogue entry or one of the user's own. */
+static void
+propellant_changed_cb (SwInspector *self)
+{
+  g_autoptr (SwDesign) d = NULL;
+  g_autoptr (GError) error = NULL;
+  guint selected = gtk_drop_down_get_selected (self->propellant_dropdown);
+  int stage = self->selected;
+
+  if (!editing_ok (self) || stage < 0 || (guint) stage >= design (self)->n_stages
+      || selected >= SW_N_PROPELLANTS
+      || selected == design (self)->stages[stage].propellant.kind)
+    return;
+  d = sw_document_dup_design (self->document);
+  if (!sw_design_set_propellant (d, (guint) stage, (SwPropellantKind) selected, &error))
+    {
+      self->updating++;
+      gtk_drop_down_set_selected (self->propellant_dropdown,
+                                  design (self)->stages[stage].propellant.kind);
+      self->updating--;
+      gtk_widget_set_tooltip_text (GTK_WIDGET (self->propellant_dropdown), error->message);
+      return;
+    }
+  commit (self, g_steal_pointer (&d), NULL);
+}
+
 /* Thrust as a total or per engine: one quantity, the form typed replaces
  * the other in one edit. */
 static void
@@ -1123,6 +1155,47 @@ build_sections (SwInspector *self)
                                       _("Unpowered flight from the separation below to this "
                                         "stage's ignition; not for the first stage"),
                                       SW_FIELD_COAST, 0, 1, 1.0, _("none"));
+  {
+    /* SwPropellantKind order. */
+    const char *const propellants[] = {
+      _("not given"), _("LOX / kerosene"), _("LOX / hydrogen"), _("LOX / methane"),
+      _("N2O4 / UDMH"), _("N2O4 / MMH"), _("Composite solid"), _("Your own (densities below)"),
+      NULL
+    };
+    const char *tip = _("What the stage burns: with it and a diameter the window knows the "
+                        "stage's tank volumes and length");
+    self->propellant_dropdown = GTK_DROP_DOWN (gtk_drop_down_new_from_strings (propellants));
+    gtk_widget_set_tooltip_text (GTK_WIDGET (self->propellant_dropdown), tip);
+    g_signal_connect_swapped (self->propellant_dropdown, "notify::selected",
+                              G_CALLBACK (propellant_changed_cb), self);
+    gtk_grid_attach (grid, caption (_("Propellant"), tip, GTK_WIDGET (self->propellant_dropdown)),
+                     0, row, 1, 1);
+    gtk_grid_attach (grid, GTK_WIDGET (self->propellant_dropdown), 1, row++, 2, 1);
+  }
+  self->propellant_load_field = add_number_row (self, grid, row++, _("Fixed propellant load"),
+                                                _("The propellant of a stage that exists: the "
+                                                  "stage is not sized, its structure follows "
+                                                  "from its structural coefficient"),
+                                                SW_FIELD_PROPELLANT_LOAD, 0, 0, 100.0,
+                                                _("sized"));
+  self->mixture_ratio_field = add_number_row (self, grid, row++, _("Mixture ratio O/F"),
+                                              _("Oxidizer over fuel by mass, in place of the "
+                                                "propellant's own"),
+                                              SW_FIELD_MIXTURE_RATIO, 0, 2, 0.1,
+                                              _("the propellant's"));
+  self->ullage_field = add_number_row (self, grid, row++, _("Ullage fraction"),
+                                       _("Tank volume beyond the propellant's, as a fraction of "
+                                         "it; 0.02 to 0.05 is common practice"),
+                                       SW_FIELD_ULLAGE, 0, 3, 0.01, "0.03");
+  self->oxidizer_density_field = add_number_row (self, grid, row++, _("Oxidizer density"),
+                                                 _("Density of the oxidizer of a propellant of "
+                                                   "your own"),
+                                                 SW_FIELD_OXIDIZER_DENSITY, 0, 2, 10.0, NULL);
+  sw_number_field_set_optional (self->oxidizer_density_field, TRUE, _("catalogue"));
+  self->fuel_density_field = add_number_row (self, grid, row++, _("Fuel density"),
+                                             _("Density of the fuel of a propellant of your own"),
+                                             SW_FIELD_FUEL_DENSITY, 0, 2, 10.0, NULL);
+  sw_number_field_set_optional (self->fuel_density_field, TRUE, _("catalogue"));
   self->drag_entry = GTK_ENTRY (gtk_entry_new ());
   gtk_entry_set_placeholder_text (self->drag_entry, _("generic slender-vehicle table"));
   gtk_editable_set_enable_undo (GTK_EDITABLE (self->drag_entry), FALSE);
@@ -1251,6 +1324,25 @@ update_extra_stage_fields (SwInspector *self, const SwDesign *d, guint i, gboole
   show (self->diameter_field, sw_design_field_get (d, SW_FIELD_DIAMETER, i, &v) ? v : NAN);
   show (self->coast_field, sw_design_field_get (d, SW_FIELD_COAST, i, &v) ? v : NAN);
   gtk_widget_set_sensitive (GTK_WIDGET (self->coast_field), i > 0);
+  self->updating++;
+  gtk_drop_down_set_selected (self->propellant_dropdown, s->propellant.kind);
+  self->updating--;
+  show (self->propellant_load_field,
+        sw_design_field_get (d, SW_FIELD_PROPELLANT_LOAD, i, &v) ? v : NAN);
+  show (self->mixture_ratio_field,
+        sw_design_field_get (d, SW_FIELD_MIXTURE_RATIO, i, &v) ? v : NAN);
+  show (self->ullage_field, sw_design_field_get (d, SW_FIELD_ULLAGE, i, &v) ? v : NAN);
+  show (self->oxidizer_density_field,
+        sw_design_field_get (d, SW_FIELD_OXIDIZER_DENSITY, i, &v) ? v : NAN);
+  show (self->fuel_density_field,
+        sw_design_field_get (d, SW_FIELD_FUEL_DENSITY, i, &v) ? v : NAN);
+  gtk_widget_set_sensitive (GTK_WIDGET (self->mixture_ratio_field),
+                            s->propellant.kind != SW_PROPELLANT_NONE
+                            && s->propellant.kind != SW_PROPELLANT_SOLID_COMPOSITE);
+  gtk_widget_set_sensitive (GTK_WIDGET (self->oxidizer_density_field),
+                            s->propellant.kind == SW_PROPELLANT_CUSTOM);
+  gtk_widget_set_sensitive (GTK_WIDGET (self->fuel_density_field),
+                            s->propellant.kind == SW_PROPELLANT_CUSTOM);
   show (self->engine_rel_field,
         sw_design_field_get (d, SW_FIELD_ENGINE_RELIABILITY, i, &v) ? v : NAN);
   show (self->failures_field,
@@ -1523,6 +1615,12 @@ sw_inspector_get_field (SwInspector *self, SwInspectorField field)
     case SW_INSPECTOR_PITCH_KICK: return GTK_WIDGET (self->pitch_kick_field);
     case SW_INSPECTOR_INSERTION_ALTITUDE: return GTK_WIDGET (self->insertion_field);
     case SW_INSPECTOR_MAX_Q_ALPHA: return GTK_WIDGET (self->max_q_alpha_field);
+    case SW_INSPECTOR_PROPELLANT: return GTK_WIDGET (self->propellant_dropdown);
+    case SW_INSPECTOR_PROPELLANT_LOAD: return GTK_WIDGET (self->propellant_load_field);
+    case SW_INSPECTOR_MIXTURE_RATIO: return GTK_WIDGET (self->mixture_ratio_field);
+    case SW_INSPECTOR_ULLAGE: return GTK_WIDGET (self->ullage_field);
+    case SW_INSPECTOR_OXIDIZER_DENSITY: return GTK_WIDGET (self->oxidizer_density_field);
+    case SW_INSPECTOR_FUEL_DENSITY: return GTK_WIDGET (self->fuel_density_field);
     case SW_INSPECTOR_N_FIELDS:
     default: return NULL;
     }

@@ -7,6 +7,7 @@
 
 #include "sw-format.h"
 #include "sw-limits.h"
+#include "sw-phases.h"
 
 #include <glib/gi18n.h>
 #include <math.h>
@@ -49,6 +50,30 @@ fast_options (SwAnalysisOptions *o)
   sw_analysis_options_init (o);
   o->montecarlo = FALSE;
   o->ascent = FALSE;
+}
+
+/* The "phases" array of @s. */
+static void
+add_phases (JsonBuilder *b, const SwDesign *d, const SwSizing *s)
+{
+  SwPhase phases[SW_MAX_STAGES];
+  guint n_phases = sw_sizing_phases (d, s, phases);
+
+  json_builder_set_member_name (b, "phases");
+  json_builder_begin_array (b);
+  for (guint k = 0; k < n_phases; k++)
+    {
+      json_builder_begin_object (b);
+      json_builder_set_member_name (b, "name");
+      json_builder_add_string_value (b, d->stages[phases[k].stage].name);
+      sw_cli_add_number (b, "delta_v_m_s", phases[k].delta_v_m_s);
+      sw_cli_add_number (b, "exhaust_velocity_m_s", phases[k].exhaust_velocity_m_s);
+      sw_cli_add_number (b, "initial_mass_kg", phases[k].initial_mass_kg);
+      sw_cli_add_number (b, "final_mass_kg", phases[k].final_mass_kg);
+      sw_cli_add_number (b, "duration_s", phases[k].duration_s);
+      json_builder_end_object (b);
+    }
+  json_builder_end_array (b);
 }
 
 static JsonNode *
@@ -107,9 +132,21 @@ sizing_to_json (const SwAnalysis *a)
       sw_cli_add_number (b, "structural_mass_kg", r->structural_mass_kg);
       sw_cli_add_number (b, "initial_mass_kg", r->initial_mass_kg);
       sw_cli_add_number (b, "burnout_mass_kg", r->burnout_mass_kg);
+      json_builder_set_member_name (b, "fixed");
+      json_builder_add_boolean_value (b, r->fixed);
+      if (d->stages[i].propellant.kind != SW_PROPELLANT_NONE)
+        {
+          SwStageShape shape;
+          sw_sizing_stage_shape (d, s, i, &shape);
+          sw_cli_add_number (b, "propellant_volume_m3", shape.propellant_volume_m3);
+          sw_cli_add_number (b, "tank_volume_m3", shape.tank_volume_m3);
+          sw_cli_add_number (b, "length_m", shape.length_m);
+          sw_cli_add_number (b, "diameter_m", sw_stage_effective_diameter (d, i));
+        }
       json_builder_end_object (b);
     }
   json_builder_end_array (b);
+  add_phases (b, d, s);
   json_builder_set_member_name (b, "caution");
   json_builder_add_string_value (b, sw_format_cautions ());
   json_builder_end_object (b);
@@ -160,7 +197,8 @@ print_sizing_table (const SwAnalysis *a)
       g_autofree char *name = sw_cli_cell (d->stages[i].name, 20);
       g_print ("%-3u %s %6s %6s %9s %6s %8s %12s %11s %13s %12s%s\n", i + 1, name, isp, eps, sdv,
                share, n, mp, ms, m0, mf,
-               !r->feasible ? _("  INFEASIBLE") : r->unused ? _("  (unused)") : "");
+               !r->feasible ? _("  INFEASIBLE") : r->unused ? _("  (unused)")
+               : r->fixed ? _("  (fixed load)") : "");
     }
   g_print ("\n");
   if (s->feasible)
@@ -218,6 +256,60 @@ sw_cli_size (int argc, char **argv)
     }
   else
     print_sizing_table (a);
+  return SW_EXIT_OK;
+}
+
+/* The payload a vehicle that exists (every stage with a fixed propellant
+ * load) carries to the design's mission. */
+int
+sw_cli_performance (int argc, char **argv)
+{
+  g_autoptr (SwDesign) d = NULL;
+  g_autoptr (GError) error = NULL;
+  SwPerformance p;
+  int code;
+
+  opt_json = FALSE;
+  if (!sw_cli_parse ("performance", json_entries, &argc, &argv, 1, &code))
+    return code;
+  if ((d = sw_cli_load (argv[1])) == NULL)
+    return SW_EXIT_USAGE;
+  if (!sw_design_performance (d, &p, &error))
+    return sw_cli_input_error (argv[1], error);
+  if (opt_json)
+    {
+      g_autoptr (JsonBuilder) b = json_builder_new_immutable ();
+      json_builder_begin_object (b);
+      json_builder_set_member_name (b, "name");
+      json_builder_add_string_value (b, d->name);
+      json_builder_set_member_name (b, "reachable");
+      json_builder_add_boolean_value (b, p.reachable);
+      json_builder_set_member_name (b, "reason");
+      json_builder_add_string_value (b, p.reason);
+      sw_cli_add_number (b, "payload_kg", p.payload_kg);
+      sw_cli_add_number (b, "delta_v_m_s", p.delta_v_m_s);
+      sw_cli_add_number (b, "empty_delta_v_m_s", p.empty_delta_v_m_s);
+      sw_cli_add_number (b, "liftoff_mass_kg",
+                         p.reachable ? p.sizing.liftoff_mass_kg : NAN);
+      add_phases (b, d, &p.sizing);
+      sw_cli_finish_json (b);
+      return SW_EXIT_OK;
+    }
+  g_print (_("Design: %s\n"), d->name);
+  {
+    g_autofree char *dv = sw_format_speed (p.delta_v_m_s);
+    g_autofree char *empty = sw_format_speed (p.empty_delta_v_m_s);
+    g_print (_("Required delta-v: %s    Delta-v with no payload: %s\n"), dv, empty);
+  }
+  if (p.reachable)
+    {
+      g_autofree char *pl = sw_format_mass (p.payload_kg);
+      g_autofree char *lm = sw_format_mass (p.sizing.liftoff_mass_kg);
+      g_print (_("Payload capability: %s    Liftoff mass: %s\n"), pl, lm);
+    }
+  else
+    g_print (_("UNREACHABLE: %s\n"), p.reason);
+  g_print ("\n%s\n", sw_format_cautions ());
   return SW_EXIT_OK;
 }
 

@@ -143,6 +143,11 @@ sw_cli_sensitivity (int argc, char **argv)
     }
 
   g_print (_("Design: %s\n"), d->name);
+  if (!t.feasible && a->sizing.feasible && a->montecarlo_error[0] != '\0')
+    {
+      g_print ("%s\n\n%s\n", a->montecarlo_error, sw_format_cautions ());
+      return SW_EXIT_OK;
+    }
   if (!t.feasible)
     {
       g_print (_("The design is infeasible: no sensitivities.\n\n%s\n"), sw_format_cautions ());

@@ -59,6 +59,7 @@ extern const char *sw_cli_caution;
 char     *sw_cli_find_demo (const char *basename);
 
 int sw_cli_size (int argc, char **argv);
+int sw_cli_performance (int argc, char **argv);
 int sw_cli_curve (int argc, char **argv);
 int sw_cli_budget (int argc, char **argv);
 int sw_cli_bench (int argc, char **argv);

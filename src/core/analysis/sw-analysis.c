@@ -364,8 +364,20 @@ prepare_trade (SwAnalysis *r)
   const SwDesign *design = r->design;
   g_autoptr (GError) error = NULL;
 
+  gboolean fixed = FALSE;
+
+  /* The sensitivities and the Monte Carlo resize every stage; with a fixed
+   * propellant load they would describe another vehicle, so they are left
+   * out and say why. */
+  for (guint i = 0; i < r->sizing.n_stages; i++)
+    fixed = fixed || r->sizing.stages[i].fixed;
   r->sensitivity_step = r->options.sensitivity_step;
-  if (r->sizing.feasible)
+  if (fixed)
+    g_strlcpy (r->montecarlo_error,
+               _("Sensitivities and the Monte Carlo are not computed for a design with a "
+                 "fixed propellant load: they resize every stage."),
+               sizeof r->montecarlo_error);
+  if (r->sizing.feasible && !fixed)
     r->has_sensitivity = sw_sensitivity_compute (design, r->sensitivity_step, &r->sensitivity,
                                                  NULL)
                          && r->sensitivity.feasible;
@@ -387,7 +399,7 @@ prepare_trade (SwAnalysis *r)
         g_strlcpy (r->baseline_error, error->message, sizeof r->baseline_error);
     }
   compare_with_baseline (r);
-  r->montecarlo_pending = r->options.montecarlo
+  r->montecarlo_pending = r->options.montecarlo && !fixed
                           && (r->options.montecarlo_always
                               || sw_uncertainty_has_spread (&design->uncertainty));
 }

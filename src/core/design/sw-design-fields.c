@@ -53,6 +53,15 @@ static const SwDesignFieldInfo fields[SW_N_FIELDS] = {
                              FALSE },
   [SW_FIELD_MC_SAMPLES] = { "uncertainty.samples", SW_LIMIT_MC_SAMPLES, FALSE, TRUE, TRUE },
   [SW_FIELD_MC_SEED] = { "uncertainty.seed", SW_LIMIT_MC_SEED, FALSE, TRUE, TRUE },
+  [SW_FIELD_PROPELLANT_LOAD] = { "stages[%u].propellant_kg", SW_LIMIT_PROPELLANT_LOAD, TRUE, TRUE,
+                                 FALSE },
+  [SW_FIELD_MIXTURE_RATIO] = { "stages[%u].mixture_ratio", SW_LIMIT_MIXTURE_RATIO, TRUE, TRUE,
+                               FALSE },
+  [SW_FIELD_ULLAGE] = { "stages[%u].ullage_fraction", SW_LIMIT_ULLAGE, TRUE, TRUE, FALSE },
+  [SW_FIELD_OXIDIZER_DENSITY] = { "stages[%u].propellant.oxidizer_density_kg_m3",
+                                  SW_LIMIT_COMPONENT_DENSITY, TRUE, FALSE, FALSE },
+  [SW_FIELD_FUEL_DENSITY] = { "stages[%u].propellant.fuel_density_kg_m3",
+                              SW_LIMIT_COMPONENT_DENSITY, TRUE, FALSE, FALSE },
 };
 
 const SwDesignFieldInfo *
@@ -149,6 +158,16 @@ slot_of (SwDesign *d, SwDesignField f, guint i)
       s.uint_slot = &d->uncertainty.samples; s.has = &d->uncertainty.has_samples; break;
     case SW_FIELD_MC_SEED:
       s.u32_slot = &d->uncertainty.seed; s.has = &d->uncertainty.has_seed; break;
+    case SW_FIELD_PROPELLANT_LOAD:
+      s.slot = &st->propellant.propellant_kg; s.has = &st->propellant.has_propellant_kg; break;
+    case SW_FIELD_MIXTURE_RATIO:
+      s.slot = &st->propellant.mixture_ratio; s.has = &st->propellant.has_mixture_ratio; break;
+    case SW_FIELD_ULLAGE:
+      s.slot = &st->propellant.ullage_fraction; s.has = &st->propellant.has_ullage; break;
+    case SW_FIELD_OXIDIZER_DENSITY:
+      s.slot = &st->propellant.oxidizer_density_kg_m3; break;
+    case SW_FIELD_FUEL_DENSITY:
+      s.slot = &st->propellant.fuel_density_kg_m3; break;
     case SW_N_FIELDS:
     default:
       g_assert_not_reached ();
@@ -166,6 +185,14 @@ sw_design_field_get (const SwDesign *design, SwDesignField field, guint stage, d
   g_return_val_if_fail (!fields[field].per_stage || stage < design->n_stages, FALSE);
 
   s = slot_of ((SwDesign *) design, field, fields[field].per_stage ? stage : 0);
+  /* The component densities exist for a propellant of the user's own only. */
+  if ((field == SW_FIELD_OXIDIZER_DENSITY || field == SW_FIELD_FUEL_DENSITY)
+      && design->stages[stage].propellant.kind != SW_PROPELLANT_CUSTOM)
+    {
+      if (value != NULL)
+        *value = 0.0;
+      return FALSE;
+    }
   v = s.slot != NULL ? *s.slot : s.uint_slot != NULL ? (double) *s.uint_slot : (double) *s.u32_slot;
   if (s.has != NULL && !*s.has)
     {
@@ -359,6 +386,26 @@ check_dependencies (const SwDesign *d, SwDesignField f, guint i, double value, G
           }
       }
       break;
+    case SW_FIELD_OXIDIZER_DENSITY:
+    case SW_FIELD_FUEL_DENSITY:
+      if (st->propellant.kind != SW_PROPELLANT_CUSTOM)
+        {
+          g_set_error (error, SW_ERROR, SW_ERROR_VALUE,
+                       _("%s: the component densities belong to a propellant of your own; "
+                         "choose one first"), path);
+          return FALSE;
+        }
+      break;
+    case SW_FIELD_MIXTURE_RATIO:
+      if (st->propellant.kind == SW_PROPELLANT_NONE
+          || st->propellant.kind == SW_PROPELLANT_SOLID_COMPOSITE)
+        {
+          g_set_error (error, SW_ERROR, SW_ERROR_VALUE,
+                       _("%s: a mixture ratio needs a liquid propellant; choose one first"),
+                       path);
+          return FALSE;
+        }
+      break;
     case SW_FIELD_FAIRING_ALTITUDE:
       if (d->ascent.has_fairing_pressure)
         {
@@ -442,6 +489,29 @@ sw_design_field_set (SwDesign *design, SwDesignField field, guint stage, double 
          && check_range (field, stage, value, error)
          && check_dependencies (design, field, stage, value, error)
          && apply_checked (design, field, stage, value, TRUE, error);
+}
+
+gboolean
+sw_design_set_propellant (SwDesign *design, guint stage, SwPropellantKind kind, GError **error)
+{
+  g_autoptr (SwDesign) copy = NULL;
+
+  g_return_val_if_fail (design != NULL && kind < SW_N_PROPELLANTS, FALSE);
+
+  if (stage >= design->n_stages)
+    {
+      g_set_error (error, SW_ERROR, SW_ERROR_USAGE, _("stages[%u]: the design has %u stages"),
+                   stage, design->n_stages);
+      return FALSE;
+    }
+  if (design->stages[stage].propellant.kind == kind)
+    return TRUE;
+  copy = sw_design_copy (design);
+  sw_propellant_set_kind (&copy->stages[stage].propellant, kind);
+  if (!check_whole_design (copy, error))
+    return FALSE;
+  sw_propellant_set_kind (&design->stages[stage].propellant, kind);
+  return TRUE;
 }
 
 gboolean

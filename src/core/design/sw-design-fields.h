@@ -46,6 +46,12 @@ typedef enum {
   /* the "uncertainty" object */
   SW_FIELD_MC_SAMPLES,                /* optional, whole */
   SW_FIELD_MC_SEED,                   /* optional, whole */
+  /* per stage, format version 2 (sw-propellant.h) */
+  SW_FIELD_PROPELLANT_LOAD,           /* optional: a fixed load */
+  SW_FIELD_MIXTURE_RATIO,             /* optional: overrides the propellant's */
+  SW_FIELD_ULLAGE,                    /* optional */
+  SW_FIELD_OXIDIZER_DENSITY,          /* a propellant of the user's own only */
+  SW_FIELD_FUEL_DENSITY,              /* a propellant of the user's own only */
   SW_N_FIELDS
 } SwDesignField;
 
@@ -92,6 +98,12 @@ gboolean  sw_design_set_thrust (SwDesign *design, guint stage, gboolean per_engi
  * (refused while the fairing has mass). */
 gboolean  sw_design_set_fairing_rule (SwDesign *design, gboolean by_pressure, double value,
                                       GError **error);
+
+/* "stages[i].propellant": a catalogue propellant, one of the user's own
+ * (starting from the densities and mixture ratio of the one it replaces) or
+ * none.  Refused when the stage's mixture ratio cannot go with it (a solid). */
+gboolean  sw_design_set_propellant (SwDesign *design, guint stage, SwPropellantKind kind,
+                                    GError **error);
 
 /* "mission.loss_model": simulate needs an orbit mission. */
 gboolean  sw_design_set_loss_model (SwDesign *design, SwLossModel model, GError **error);

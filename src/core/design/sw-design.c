@@ -33,7 +33,8 @@ static const char *const *const root_key_lists[] = {
   NULL
 };
 static const char *const *const stage_key_lists[] = {
-  stage_keys, sw_propulsion_stage_keys, sw_reliability_stage_keys, NULL
+  stage_keys, sw_propulsion_stage_keys, sw_reliability_stage_keys, sw_propellant_stage_keys,
+  NULL
 };
 
 SwDesign *
@@ -224,7 +225,8 @@ load_stage (JsonObject *obj, const LoadContext *ctx, const char *prefix, SwStage
          && sw_propulsion_load_stage (obj, ctx->file, prefix, &stage->propulsion,
                                       ctx->warnings, error)
          && sw_reliability_load_stage (obj, ctx->file, prefix, &stage->reliability,
-                                       ctx->warnings, error);
+                                       ctx->warnings, error)
+         && sw_propellant_load_stage (obj, ctx->file, prefix, &stage->propellant, error);
 }
 
 static gboolean
@@ -625,6 +627,7 @@ validate_design (const SwDesign *d, const LoadContext *ctx, const char *prefix, 
   g_autofree char *mission = sw_optional_path (prefix, "mission");
   g_autofree char *orbit = sw_optional_path (mission, "orbit");
   double share_sum = 0.0;
+  guint n_sized = 0;
 
   if (!sw_optional_check (SW_LIMIT_PAYLOAD, d->payload_kg, ctx->file, prefix, error))
     return FALSE;
@@ -690,7 +693,8 @@ validate_design (const SwDesign *d, const LoadContext *ctx, const char *prefix, 
           || (s->has_isp_sl && !sw_optional_check (SW_LIMIT_ISP_SL, s->isp_sl_s, ctx->file, sp,
                                                    error))
           || !sw_reliability_validate_stage (&s->reliability, ctx->file, sp, error)
-          || !sw_propulsion_validate_stage (&s->propulsion, i, ctx->file, sp, error))
+          || !sw_propulsion_validate_stage (&s->propulsion, i, ctx->file, sp, error)
+          || !sw_propellant_validate_stage (&s->propellant, ctx->file, sp, error))
         return FALSE;
       if (s->has_isp_sl && s->isp_sl_s > s->isp_vac_s)
         {
@@ -701,7 +705,11 @@ validate_design (const SwDesign *d, const LoadContext *ctx, const char *prefix, 
                                  path, s->isp_sl_s, s->isp_vac_s);
           return FALSE;
         }
-      if (d->split == SW_SPLIT_MANUAL)
+      /* A stage with a fixed propellant load is not sized: the manual shares
+       * split the sized stages' delta-v and a fixed stage needs none. */
+      if (!s->propellant.has_propellant_kg)
+        n_sized++;
+      if (d->split == SW_SPLIT_MANUAL && !s->propellant.has_propellant_kg)
         {
           if (!s->has_share)
             {
@@ -721,7 +729,7 @@ validate_design (const SwDesign *d, const LoadContext *ctx, const char *prefix, 
         return FALSE;
     }
 
-  if (d->split == SW_SPLIT_MANUAL && fabs (share_sum - 1.0) > 1e-6)
+  if (d->split == SW_SPLIT_MANUAL && n_sized > 0 && fabs (share_sum - 1.0) > 1e-6)
     {
       g_autofree char *path = sw_optional_path (prefix, "stages");
       sw_optional_set_error (error, SW_ERROR_VALUE, ctx->file,
@@ -768,6 +776,17 @@ add_double (JsonBuilder *b, const char *key, double value)
   json_builder_add_double_value (b, value);
 }
 
+/* Version 1 unless a key of version 2 is used (by the design or its baseline). */
+static int
+design_format_version (const SwDesign *d)
+{
+  for (; d != NULL; d = d->baseline)
+    for (guint i = 0; i < d->n_stages && i < SW_MAX_STAGES; i++)
+      if (sw_propellant_is_used (&d->stages[i].propellant))
+        return 2;
+  return 1;
+}
+
 static void
 build_design (JsonBuilder *b, const SwDesign *d, gboolean is_baseline)
 {
@@ -777,7 +796,7 @@ build_design (JsonBuilder *b, const SwDesign *d, gboolean is_baseline)
       json_builder_set_member_name (b, "format");
       json_builder_add_string_value (b, SW_DESIGN_FORMAT);
       json_builder_set_member_name (b, "version");
-      json_builder_add_int_value (b, SW_DESIGN_VERSION);
+      json_builder_add_int_value (b, design_format_version (d));
     }
   json_builder_set_member_name (b, "name");
   json_builder_add_string_value (b, d->name);
@@ -829,6 +848,7 @@ build_design (JsonBuilder *b, const SwDesign *d, gboolean is_baseline)
         add_double (b, "delta_v_share", s->delta_v_share);
       sw_propulsion_save_stage (b, &s->propulsion);
       sw_reliability_save_stage (b, &s->reliability);
+      sw_propellant_save_stage (b, &s->propellant);
       json_builder_end_object (b);
     }
   json_builder_end_array (b);

@@ -9,6 +9,7 @@
 #include <json-glib/json-glib.h>
 
 #include "sw-economics.h"
+#include "sw-propellant.h"
 #include "sw-propulsion.h"
 #include "sw-stage-reliability.h"
 #include "sw-uncertainty.h"
@@ -26,6 +27,7 @@ struct _SwStage {
   gboolean has_share;
   SwStagePropulsion  propulsion;   /* optional keys of the ascent model */
   SwStageReliability reliability;  /* optional keys of the reliability model */
+  SwStagePropellant  propellant;   /* optional keys of format version 2 */
 };
 
 typedef enum {

@@ -130,6 +130,14 @@ static const SwLimit limits[SW_N_LIMITS] = {
     "whole number of flights one recovered stage makes before it is retired" },
   [SW_LIMIT_DECISION_WEIGHT] = { "decision_weights", "", 0.0, 100.0, FALSE,
     "weight of a criterion in the stage-count decision; 0 leaves it out" },
+  [SW_LIMIT_PROPELLANT_LOAD] = { "propellant_kg", "kg", 0.0, 1.0e7, TRUE,
+    "a fixed propellant load: the stage is not sized; 10,000 t is beyond any stage built or studied" },
+  [SW_LIMIT_MIXTURE_RATIO] = { "mixture_ratio", "", 0.0, 20.0, TRUE,
+    "oxidizer over fuel by mass; liquid pairs run from about 1.6 to 6 (Sutton, from memory)" },
+  [SW_LIMIT_ULLAGE] = { "ullage_fraction", "", 0.0, 0.5, FALSE,
+    "tank volume beyond the propellant's, as a fraction of it; 0.02 to 0.05 is common practice" },
+  [SW_LIMIT_COMPONENT_DENSITY] = { "oxidizer_density_kg_m3", "kg/m^3", 10.0, 5000.0, FALSE,
+    "density of a propellant component (also fuel_density_kg_m3); liquid hydrogen is about 71, N2O4 about 1441" },
 };
 
 const SwLimit *
@@ -216,6 +224,10 @@ static const char *const limit_fields[SW_N_LIMITS] = {
   [SW_LIMIT_REFURBISHMENT] = "`economics.recovery.refurbishment_fraction`",
   [SW_LIMIT_FLIGHTS_PER_STAGE] = "`economics.recovery.flights_per_stage`",
   [SW_LIMIT_DECISION_WEIGHT] = "`economics.decision_weights` (`liftoff_mass`, `development`, `cost_per_flight`, `failure`)",
+  [SW_LIMIT_PROPELLANT_LOAD] = "`stages[].propellant_kg`",
+  [SW_LIMIT_MIXTURE_RATIO] = "`stages[].mixture_ratio`, `stages[].propellant.mixture_ratio`",
+  [SW_LIMIT_ULLAGE] = "`stages[].ullage_fraction`",
+  [SW_LIMIT_COMPONENT_DENSITY] = "`stages[].propellant.oxidizer_density_kg_m3`, `stages[].propellant.fuel_density_kg_m3`",
 };
 
 /* A bound as the README shows it: up to ten significant digits, thousands

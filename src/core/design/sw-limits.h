@@ -73,6 +73,11 @@ typedef enum {
   SW_LIMIT_REFURBISHMENT,
   SW_LIMIT_FLIGHTS_PER_STAGE,
   SW_LIMIT_DECISION_WEIGHT,
+  /* propellant and fixed loads (per stage, format version 2) */
+  SW_LIMIT_PROPELLANT_LOAD,
+  SW_LIMIT_MIXTURE_RATIO,
+  SW_LIMIT_ULLAGE,
+  SW_LIMIT_COMPONENT_DENSITY,
   SW_N_LIMITS
 } SwLimitId;
 

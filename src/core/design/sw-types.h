@@ -23,7 +23,9 @@ G_BEGIN_DECLS
 #define SW_SWEEP_POINTS 200
 
 #define SW_DESIGN_FORMAT "stagewright-design"
-#define SW_DESIGN_VERSION 1
+/* The newest format version this build reads; it writes 1 unless a key of
+ * version 2 (sw-propellant.h) is used. */
+#define SW_DESIGN_VERSION 2
 #define SW_DESIGN_MAX_BYTES (1024 * 1024)
 #define SW_DESIGN_MAX_DEPTH 32
 

@@ -316,6 +316,329 @@ size_with_names (const SwStageSet *set, const SwDesign *names, double payload_kg
     }
 }
 
+/* ---- fixed stages ------------------------------------------------------ */
+
+typedef struct {
+  const SwStageSet *set;
+  const double *fixed_kg;          /* > 0: fixed */
+  SwSplitMode split;
+  double delta_v;                  /* required */
+  SwStageSet sized;                /* the sized stages, in firing order */
+  guint sized_index[SW_MAX_STAGES];
+} FixedProblem;
+
+static gboolean
+is_fixed (const double *fixed_kg, guint i)
+{
+  return fixed_kg != NULL && isfinite (fixed_kg[i]) && fixed_kg[i] > 0.0;
+}
+
+/* The sized stages' delta-v when they give @d together, per the split;
+ * FALSE when no such split exists. */
+static gboolean
+fixed_split (const FixedProblem *p, double d, double *sized_dv)
+{
+  guint ns = p->sized.n_stages;
+
+  switch (p->split)
+    {
+    case SW_SPLIT_EQUAL:
+      for (guint k = 0; k < ns; k++)
+        sized_dv[k] = d / ns;
+      return TRUE;
+    case SW_SPLIT_MANUAL:
+      for (guint k = 0; k < ns; k++)
+        sized_dv[k] = p->sized.share[k] * d;
+      return TRUE;
+    case SW_SPLIT_OPTIMAL:
+    default:
+      return sw_optimal_split (&p->sized, d, sized_dv, NULL);
+    }
+}
+
+/* The largest @d the split can give (exclusive): beyond it a sized stage's
+ * mass ratio reaches 1/eps. */
+static double
+fixed_split_limit (const FixedProblem *p)
+{
+  double lim = INFINITY;
+
+  for (guint k = 0; k < p->sized.n_stages; k++)
+    {
+      double l = stage_limit (p->sized.exhaust_velocity_m_s[k], p->sized.structural_coefficient[k]);
+      if (p->split == SW_SPLIT_EQUAL)
+        lim = MIN (lim, l * p->sized.n_stages);
+      else if (p->split == SW_SPLIT_MANUAL)
+        {
+          if (p->sized.share[k] > 0.0)
+            lim = MIN (lim, l / p->sized.share[k]);
+        }
+    }
+  return p->split == SW_SPLIT_OPTIMAL || !isfinite (lim) ? vehicle_limit (&p->sized) : lim;
+}
+
+/* Every stage's delta-v for the sized stages' @d, top-down from @payload_kg;
+ * returns the vehicle's total delta-v (NAN when the split does not exist). */
+static double
+fixed_total (const FixedProblem *p, double payload_kg, double d, double *dv)
+{
+  double sized_dv[SW_MAX_STAGES] = { 0 };
+  double m_above = payload_kg, total = 0.0;
+
+  if (p->sized.n_stages > 0 && !fixed_split (p, d, sized_dv))
+    return NAN;
+  for (int i = (int) p->set->n_stages - 1; i >= 0; i--)
+    {
+      double c = p->set->exhaust_velocity_m_s[i], eps = p->set->structural_coefficient[i];
+      double m0;
+
+      if (is_fixed (p->fixed_kg, (guint) i))
+        {
+          double mp = p->fixed_kg[i], ms = mp * eps / (1.0 - eps);
+          m0 = m_above + mp + ms;
+          dv[i] = c * log (m0 / (m0 - mp));
+        }
+      else
+        {
+          double n;
+          dv[i] = sized_dv[p->sized_index[i]];
+          n = exp (dv[i] / c);
+          if (!(n * eps < 1.0))
+            return NAN;
+          m0 = m_above * n * (1.0 - eps) / (1.0 - n * eps);
+        }
+      total += dv[i];
+      m_above = m0;
+    }
+  return total;
+}
+
+typedef struct {
+  const FixedProblem *p;
+  double payload_kg;
+} FixedParams;
+
+static double
+fixed_residual (double d, void *data)
+{
+  const FixedParams *fp = data;
+  double dv[SW_MAX_STAGES];
+  return fixed_total (fp->p, fp->payload_kg, d, dv) - fp->p->delta_v;
+}
+
+static void
+fixed_infeasible (SwSizing *out, guint n)
+{
+  out->feasible = FALSE;
+  out->liftoff_mass_kg = out->payload_fraction = NAN;
+  for (guint i = 0; i < n; i++)
+    {
+      SwStageResult *r = &out->stages[i];
+      r->feasible = FALSE;
+      r->delta_v_m_s = r->delta_v_share = r->mass_ratio = NAN;
+      r->propellant_mass_kg = r->structural_mass_kg = r->stage_mass_kg = NAN;
+      r->payload_mass_kg = r->initial_mass_kg = r->burnout_mass_kg = NAN;
+    }
+}
+
+static void
+size_fixed (const SwStageSet *set, const double *fixed_kg, const SwDesign *names,
+            double payload_kg, double delta_v_m_s, SwSplitMode split, SwSizing *out)
+{
+  FixedProblem p = { set, fixed_kg, split, delta_v_m_s, { 0 }, { 0 } };
+  FixedParams fp = { &p, payload_kg };
+  double dv[SW_MAX_STAGES] = { 0 };
+  double d = 0.0, d_max = 0.0, total0, m_above, best = -INFINITY;
+  guint n = set->n_stages;
+  char label[SW_NAME_MAX + 32];
+
+  memset (out, 0, sizeof *out);
+  out->split = split;
+  out->n_stages = n;
+  out->payload_kg = payload_kg;
+  out->delta_v_m_s = delta_v_m_s;
+  out->feasible = TRUE;
+  out->infeasible_stage = -1;
+  out->multiplier_s_m = NAN;
+
+  for (guint i = 0; i < n; i++)
+    {
+      SwStageResult *r = &out->stages[i];
+      r->exhaust_velocity_m_s = set->exhaust_velocity_m_s[i];
+      r->delta_v_limit_m_s = stage_limit (r->exhaust_velocity_m_s, set->structural_coefficient[i]);
+      r->feasible = TRUE;
+      r->fixed = is_fixed (fixed_kg, i);
+      if (r->fixed)
+        {
+          out->n_fixed++;
+          continue;
+        }
+      p.sized_index[i] = p.sized.n_stages;
+      p.sized.exhaust_velocity_m_s[p.sized.n_stages] = set->exhaust_velocity_m_s[i];
+      p.sized.structural_coefficient[p.sized.n_stages] = set->structural_coefficient[i];
+      p.sized.share[p.sized.n_stages] = set->share[i];
+      p.sized.n_stages++;
+    }
+
+  /* The fixed stages with the sized ones empty: the most they give. */
+  total0 = fixed_total (&p, payload_kg, 0.0, dv);
+  if (p.sized.n_stages > 0)
+    d_max = fixed_split_limit (&p);
+  out->delta_v_limit_m_s = total0 + d_max;
+
+  if (p.sized.n_stages == 0)
+    {
+      d = 0.0;
+      out->margin_m_s = total0 - delta_v_m_s;
+      if (!(total0 >= delta_v_m_s))
+        {
+          g_snprintf (out->reason, sizeof out->reason,
+                      _("The fixed stages give %.0f m/s with this payload; the mission needs "
+                        "%.0f m/s."),
+                      total0, delta_v_m_s);
+          fixed_infeasible (out, n);
+          return;
+        }
+    }
+  else if (total0 > delta_v_m_s)
+    {
+      g_snprintf (out->reason, sizeof out->reason,
+                  _("The fixed stages alone give %.0f m/s, more than the %.0f m/s required: "
+                    "nothing is left for the sized stages.  Remove a sized stage or size a "
+                    "fixed one."),
+                  total0, delta_v_m_s);
+      out->margin_m_s = out->delta_v_limit_m_s - delta_v_m_s;
+      fixed_infeasible (out, n);
+      return;
+    }
+  else if (total0 < delta_v_m_s)
+    {
+      /* Scan up from D = 0 to the first point that reaches the requirement
+       * (the lightest vehicle), then close in with Brent's method. */
+      const guint steps = 256;
+      double lo = 0.0, hi = NAN;
+
+      for (guint k = 1; k <= steps; k++)
+        {
+          double dk = d_max * k / steps * (1.0 - 1e-9);
+          double g = fixed_residual (dk, &fp);
+          if (!isfinite (g))
+            break;
+          best = MAX (best, g + delta_v_m_s);
+          if (g >= 0.0)
+            {
+              hi = dk;
+              break;
+            }
+          lo = dk;
+        }
+      if (isnan (hi))
+        {
+          g_snprintf (out->reason, sizeof out->reason,
+                      _("The vehicle cannot reach the %.0f m/s required: with its fixed "
+                        "stages it gives at most about %.0f m/s."),
+                      delta_v_m_s, MAX (best, total0));
+          out->margin_m_s = MAX (best, total0) - delta_v_m_s;
+          fixed_infeasible (out, n);
+          return;
+        }
+      else
+        {
+          gsl_function fn = { fixed_residual, &fp };
+          gsl_root_fsolver *solver = gsl_root_fsolver_alloc (gsl_root_fsolver_brent);
+          int status = GSL_CONTINUE;
+
+          gsl_root_fsolver_set (solver, &fn, lo, hi);
+          for (int iter = 0; iter < 200 && status == GSL_CONTINUE; iter++)
+            {
+              gsl_root_fsolver_iterate (solver);
+              lo = gsl_root_fsolver_x_lower (solver);
+              hi = gsl_root_fsolver_x_upper (solver);
+              status = gsl_root_test_interval (lo, hi, 1e-10, 1e-12);
+            }
+          d = gsl_root_fsolver_root (solver);
+          gsl_root_fsolver_free (solver);
+        }
+    }
+  if (p.sized.n_stages > 0)
+    out->margin_m_s = out->delta_v_limit_m_s - delta_v_m_s;
+
+  if (!isfinite (fixed_total (&p, payload_kg, d, dv)))
+    {
+      g_snprintf (out->reason, sizeof out->reason,
+                  _("No split of the sized stages gives the %.0f m/s required."), delta_v_m_s);
+      fixed_infeasible (out, n);
+      return;
+    }
+  if (split == SW_SPLIT_OPTIMAL && p.sized.n_stages > 0)
+    {
+      double sized_dv[SW_MAX_STAGES];
+      sw_optimal_split (&p.sized, d, sized_dv, &out->multiplier_s_m);
+    }
+
+  m_above = payload_kg;
+  for (int i = (int) n - 1; i >= 0; i--)
+    {
+      SwStageResult *r = &out->stages[i];
+      double eps = set->structural_coefficient[i];
+
+      r->delta_v_m_s = dv[i];
+      r->delta_v_share = delta_v_m_s > 0.0 ? dv[i] / delta_v_m_s : 0.0;
+      r->payload_mass_kg = m_above;
+      if (r->fixed)
+        {
+          r->propellant_mass_kg = fixed_kg[i];
+          r->structural_mass_kg = fixed_kg[i] * eps / (1.0 - eps);
+          r->initial_mass_kg = m_above + r->propellant_mass_kg + r->structural_mass_kg;
+          r->burnout_mass_kg = r->initial_mass_kg - r->propellant_mass_kg;
+          r->mass_ratio = r->initial_mass_kg / r->burnout_mass_kg;
+        }
+      else
+        {
+          double nr = exp (dv[i] / r->exhaust_velocity_m_s);
+          r->mass_ratio = nr;
+          r->unused = split == SW_SPLIT_OPTIMAL && dv[i] <= 0.0;
+          if (r->unused)
+            out->n_unused++;
+          r->initial_mass_kg = m_above * nr * (1.0 - eps) / (1.0 - nr * eps);
+          r->burnout_mass_kg = r->initial_mass_kg / nr;
+          r->propellant_mass_kg = r->initial_mass_kg - r->burnout_mass_kg;
+          r->structural_mass_kg = r->unused ? 0.0 : r->burnout_mass_kg - m_above;
+        }
+      r->stage_mass_kg = r->propellant_mass_kg + r->structural_mass_kg;
+      m_above = r->initial_mass_kg;
+    }
+  out->liftoff_mass_kg = m_above;
+  out->payload_fraction = payload_kg / m_above;
+
+  if (out->n_unused > 0)
+    for (guint i = 0; i < n; i++)
+      if (out->stages[i].unused)
+        {
+          stage_label (names, i, label, sizeof label);
+          g_snprintf (out->reason, sizeof out->reason,
+                      _("At the optimum %s gets no delta-v and carries no propellant: "
+                        "the vehicle is lighter without it."),
+                      label);
+          break;
+        }
+}
+
+void
+sw_size_with_fixed (const SwStageSet *set, const double *fixed_propellant_kg,
+                    double payload_kg, double delta_v_m_s, SwSplitMode split, SwSizing *out)
+{
+  gboolean any = FALSE;
+
+  g_return_if_fail (set != NULL && out != NULL && set->n_stages > 0);
+  for (guint i = 0; i < set->n_stages; i++)
+    any = any || is_fixed (fixed_propellant_kg, i);
+  if (any)
+    size_fixed (set, fixed_propellant_kg, NULL, payload_kg, delta_v_m_s, split, out);
+  else
+    size_with_names (set, NULL, payload_kg, delta_v_m_s, split, out);
+}
+
 void
 sw_size (const SwStageSet *set, double payload_kg, double delta_v_m_s,
          SwSplitMode split, SwSizing *out)
@@ -333,7 +656,9 @@ sw_sizing_get_shares (const SwSizing *sizing, double *shares)
     return 0;
   for (guint i = 0; i < sizing->n_stages; i++)
     {
-      shares[i] = sizing->stages[i].delta_v_share;
+      /* A fixed stage takes no share: the manual split divides the sized
+       * stages' delta-v (sw_design_take_manual_shares normalises the rest). */
+      shares[i] = sizing->stages[i].fixed ? 0.0 : sizing->stages[i].delta_v_share;
       if (!isfinite (shares[i]) || shares[i] < 0.0)
         return 0;
     }
@@ -356,6 +681,16 @@ sw_size_design (const SwDesign *design, SwSizing *out, GError **error)
   if (!sw_design_required_delta_v (design, &dv, error))
     return FALSE;
   sw_stage_set_from_design (&set, design);
+  for (guint i = 0; i < design->n_stages && i < SW_MAX_STAGES; i++)
+    if (design->stages[i].propellant.has_propellant_kg)
+      {
+        double fixed_kg[SW_MAX_STAGES] = { 0 };
+        for (guint k = 0; k < design->n_stages && k < SW_MAX_STAGES; k++)
+          fixed_kg[k] = design->stages[k].propellant.has_propellant_kg
+                          ? design->stages[k].propellant.propellant_kg : 0.0;
+        size_fixed (&set, fixed_kg, design, design->payload_kg, dv, design->split, out);
+        return TRUE;
+      }
   size_with_names (&set, design, design->payload_kg, dv, design->split, out);
   return TRUE;
 }

@@ -24,6 +24,7 @@ struct _SwStageResult {
   double burnout_mass_kg;
   gboolean feasible;
   gboolean unused;              /* optimal split gave it no delta-v */
+  gboolean fixed;               /* a fixed propellant load: not sized */
 };
 
 struct _SwSizing {
@@ -39,6 +40,7 @@ struct _SwSizing {
   double   margin_m_s;             /* limit - delta_v */
   double   multiplier_s_m;         /* Lagrange multiplier eta (s/m); NAN unless optimal */
   guint    n_unused;               /* stages given no delta-v by the optimum */
+  guint    n_fixed;                /* stages with a fixed propellant load */
   guint    n_stages;
   SwStageResult stages[SW_MAX_STAGES];
 };
@@ -60,11 +62,38 @@ void     sw_stage_set_extend (SwStageSet *set, const SwDesign *design, guint n_s
 void     sw_size (const SwStageSet *set, double payload_kg, double delta_v_m_s,
                   SwSplitMode split, SwSizing *out);
 
-/* The design's own sizing (required delta-v from its mission). */
+/* Size a vehicle in which some stages carry a fixed propellant load:
+ * @fixed_propellant_kg[i] > 0 fixes stage i's load (its structure is
+ * load eps / (1 - eps)); 0 or NAN sizes it.  Sizing runs top-down: a fixed
+ * stage gives the delta-v of the rocket equation with everything above it as
+ * its payload, and the rest of @delta_v_m_s is split among the sized stages:
+ *   equal    the same delta-v for every sized stage;
+ *   manual   the sized stages' shares (they add up to 1 over the sized
+ *            stages; a fixed stage's share is ignored);
+ *   optimal  the Lagrange optimum of the sized stages for the delta-v they
+ *            give together.  This is the minimum liftoff mass when every
+ *            fixed stage sits above every sized one (the sized stages then
+ *            carry a fixed payload); with a fixed stage below a sized one it
+ *            is the sized stages' own optimum, not the vehicle's.
+ * The sized stages' delta-v D solves D + sum of the fixed stages' delta-v(D)
+ * = @delta_v_m_s (a scan from D = 0, then Brent's method, GSL).  Fixed stages
+ * that alone give more than @delta_v_m_s with the sized stages empty, or a
+ * vehicle that never reaches it, are infeasible answers with a reason.  With
+ * every stage fixed the vehicle is feasible when it reaches @delta_v_m_s;
+ * each stage's delta-v is then what it gives (their sum may exceed the
+ * requirement: the margin is in margin_m_s).  Without a fixed stage this is
+ * sw_size(), bit for bit. */
+void     sw_size_with_fixed (const SwStageSet *set, const double *fixed_propellant_kg,
+                             double payload_kg, double delta_v_m_s, SwSplitMode split,
+                             SwSizing *out);
+
+/* The design's own sizing (required delta-v from its mission; the stages'
+ * propellant_kg as fixed loads). */
 gboolean sw_size_design (const SwDesign *design, SwSizing *out, GError **error);
 
 /* The delta-v share of each stage in @sizing, into @shares (SW_MAX_STAGES
- * values): the split on screen, for sw_design_take_manual_shares ().
+ * values): the split on screen, for sw_design_take_manual_shares ().  A
+ * stage with a fixed load gets 0 (the manual split is among the sized ones).
  * Returns the stage count, or 0 when the sizing has no usable split (no
  * delta-v, a share not finite or negative). */
 guint    sw_sizing_get_shares (const SwSizing *sizing, double *shares);

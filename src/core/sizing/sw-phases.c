@@ -1,0 +1,121 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+#define G_LOG_DOMAIN "sw-phases"
+
+#include "config.h"
+
+#include "sw-phases.h"
+
+#include "sw-fixed-vehicle.h"
+
+#include <glib/gi18n-lib.h>
+
+#include <math.h>
+#include <string.h>
+
+guint
+sw_sizing_phases (const SwDesign *design, const SwSizing *sizing, SwPhase *phases)
+{
+  guint n = 0;
+
+  g_return_val_if_fail (design != NULL && sizing != NULL && phases != NULL, 0);
+
+  if (!sizing->feasible)
+    return 0;
+  for (guint i = 0; i < sizing->n_stages && i < design->n_stages; i++)
+    {
+      const SwStageResult *r = &sizing->stages[i];
+      const SwStage *st = &design->stages[i];
+      SwPhase *p = &phases[n++];
+      guint engines = st->reliability.has_engine_count ? st->reliability.engine_count : 0;
+      double thrust = sw_stage_thrust_vac_n (&st->propulsion, engines);
+
+      p->stage = i;
+      p->delta_v_m_s = r->delta_v_m_s;
+      p->exhaust_velocity_m_s = r->exhaust_velocity_m_s;
+      p->initial_mass_kg = r->initial_mass_kg;
+      p->final_mass_kg = r->burnout_mass_kg;
+      p->duration_s = isfinite (thrust) && thrust > 0.0
+                        ? r->propellant_mass_kg / sw_propulsion_mass_flow (thrust, st->isp_vac_s)
+                        : NAN;
+    }
+  return n;
+}
+
+double
+sw_stage_effective_diameter (const SwDesign *design, guint stage)
+{
+  g_return_val_if_fail (design != NULL, NAN);
+
+  for (int i = (int) MIN (stage, design->n_stages - 1); i >= 0; i--)
+    if (design->stages[i].propulsion.has_diameter)
+      return design->stages[i].propulsion.diameter_m;
+  return NAN;
+}
+
+void
+sw_sizing_stage_shape (const SwDesign *design, const SwSizing *sizing, guint stage,
+                       SwStageShape *out)
+{
+  g_return_if_fail (design != NULL && sizing != NULL && out != NULL);
+  g_return_if_fail (stage < design->n_stages && stage < sizing->n_stages);
+
+  sw_stage_shape (&design->stages[stage].propellant, sizing->stages[stage].propellant_mass_kg,
+                  sw_stage_effective_diameter (design, stage), out);
+}
+
+gboolean
+sw_design_performance (const SwDesign *design, SwPerformance *out, GError **error)
+{
+  SwFixedVehicle v;
+  SwStageSet set;
+  double fixed_kg[SW_MAX_STAGES] = { 0 };
+  double dv, payload;
+
+  g_return_val_if_fail (design != NULL && out != NULL, FALSE);
+
+  memset (out, 0, sizeof *out);
+  out->payload_kg = NAN;
+  if (design->n_stages == 0 || design->n_stages > SW_MAX_STAGES)
+    {
+      g_set_error (error, SW_ERROR, SW_ERROR_RANGE, _("The design has no stages."));
+      return FALSE;
+    }
+  for (guint i = 0; i < design->n_stages; i++)
+    if (!design->stages[i].propellant.has_propellant_kg)
+      {
+        g_set_error (error, SW_ERROR, SW_ERROR_VALUE,
+                     _("stages[%u].propellant_kg: the payload capability needs a vehicle that "
+                       "exists, with a fixed propellant load on every stage"), i);
+        return FALSE;
+      }
+  if (!sw_design_required_delta_v (design, &dv, error))
+    return FALSE;
+  out->delta_v_m_s = dv;
+
+  memset (&v, 0, sizeof v);
+  v.n_stages = design->n_stages;
+  for (guint i = 0; i < design->n_stages; i++)
+    {
+      const SwStage *st = &design->stages[i];
+      fixed_kg[i] = st->propellant.propellant_kg;
+      v.exhaust_velocity_m_s[i] = st->isp_vac_s * SW_G0;
+      v.propellant_mass_kg[i] = st->propellant.propellant_kg;
+      v.structural_mass_kg[i] = st->propellant.propellant_kg * st->structural_coefficient
+                                / (1.0 - st->structural_coefficient);
+    }
+  out->empty_delta_v_m_s = sw_fixed_vehicle_delta_v (&v, 0.0);
+  sw_stage_set_from_design (&set, design);
+  if (!sw_fixed_vehicle_payload (&v, dv, &payload) || !(payload > 0.0))
+    {
+      g_snprintf (out->reason, sizeof out->reason,
+                  _("The vehicle cannot reach the %.0f m/s required even with no payload: "
+                    "empty, it gives %.0f m/s."),
+                  dv, out->empty_delta_v_m_s);
+      sw_size_with_fixed (&set, fixed_kg, 0.0, dv, design->split, &out->sizing);
+      return TRUE;
+    }
+  out->reachable = TRUE;
+  out->payload_kg = payload;
+  sw_size_with_fixed (&set, fixed_kg, payload, dv, design->split, &out->sizing);
+  return TRUE;
+}

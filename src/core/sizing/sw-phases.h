@@ -1,0 +1,51 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* sw-phases.h: the flight of a sized vehicle in phases (one per stage that
+ * fires, in firing order), and the shape of each stage from its propellant
+ * (sw-propellant.h) and diameter. */
+#pragma once
+
+#include "sw-propellant.h"
+#include "sw-sizing.h"
+
+G_BEGIN_DECLS
+
+typedef struct {
+  guint  stage;                    /* index of the stage that burns */
+  double delta_v_m_s;
+  double exhaust_velocity_m_s;
+  double initial_mass_kg;
+  double final_mass_kg;
+  double duration_s;               /* propellant over vacuum mass flow; NAN without thrust */
+} SwPhase;
+
+/* The phases of @sizing (SW_MAX_STAGES entries); returns their count, 0 when
+ * the sizing is infeasible. */
+guint    sw_sizing_phases (const SwDesign *design, const SwSizing *sizing, SwPhase *phases);
+
+/* The diameter of stage @stage: its own, or the first one given below it
+ * (as the ascent model has it); NAN when none is given. */
+double   sw_stage_effective_diameter (const SwDesign *design, guint stage);
+
+/* The shape of stage @stage with the propellant of @sizing. */
+void     sw_sizing_stage_shape (const SwDesign *design, const SwSizing *sizing, guint stage,
+                                SwStageShape *out);
+
+/* Payload capability of a vehicle whose every stage has a fixed propellant
+ * load (propellant_kg): the payload at which its delta-v equals the
+ * design's required delta-v (the mission's target, or the orbit's budget
+ * plus the loss allowance), by Brent's method (sw_fixed_vehicle_payload), and
+ * the sizing at that payload.  FALSE with @error when a stage is not fixed.
+ * A vehicle that falls short even with no payload is an answer: *reachable
+ * FALSE, @reason says by how much, @sizing is the sizing with no payload. */
+typedef struct {
+  gboolean reachable;
+  double   payload_kg;              /* NAN when not reachable */
+  double   delta_v_m_s;             /* required */
+  double   empty_delta_v_m_s;       /* the vehicle's delta-v with no payload */
+  char     reason[SW_REASON_MAX];
+  SwSizing sizing;                  /* at payload_kg (or with no payload) */
+} SwPerformance;
+
+gboolean sw_design_performance (const SwDesign *design, SwPerformance *out, GError **error);
+
+G_END_DECLS

@@ -1,0 +1,335 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* `stagewright-cli size --json` with the keys of format version 2: per stage
+ * "fixed" and, with a propellant, the propellant and tank volumes, the length
+ * and the diameter; the "phases" array.  Every value is compared with the
+ * core's own result for the same design, and the phase durations and the
+ * volumes with a hand calculation from the inputs.  Runs the built program
+ * (env SW_CLI); demo designs from SW_DESIGNS_DIR. */
+#include "config.h"
+
+#include "sw-design.h"
+#include "sw-phases.h"
+#include "sw-sizing.h"
+
+#include <glib/gstdio.h>
+#include <json-glib/json-glib.h>
+#include <math.h>
+#include <string.h>
+#include <sys/wait.h>
+
+#define CLI_TIMEOUT_S 60
+
+static char *
+run_cli_json (const char *command, const char *path, int *code)
+{
+  g_autoptr (GError) error = NULL;
+  g_autofree char *secs = g_strdup_printf ("%d", CLI_TIMEOUT_S);
+  g_autofree char *err = NULL;
+  const char *cli = g_getenv ("SW_CLI");
+  const char *argv[] = { "timeout", secs, cli, command, "--json", path, NULL };
+  char *out = NULL;
+  int status = 0;
+
+  g_assert_nonnull (cli);
+  g_assert_true (g_spawn_sync (NULL, (char **) argv, NULL, G_SPAWN_SEARCH_PATH, NULL, NULL,
+                               &out, &err, &status, &error));
+  g_assert_no_error (error);
+  g_assert_true (WIFEXITED (status));
+  *code = WEXITSTATUS (status);
+  if (*code == 124)
+    g_error ("stagewright-cli %s did not finish within %d s", command, CLI_TIMEOUT_S);
+  if (*code != 0)
+    {
+      g_free (out);
+      return g_steal_pointer (&err);
+    }
+  return out;
+}
+
+static char *
+run_size_json (const char *path)
+{
+  g_autoptr (GError) error = NULL;
+  g_autofree char *secs = g_strdup_printf ("%d", CLI_TIMEOUT_S);
+  g_autofree char *err = NULL;
+  const char *cli = g_getenv ("SW_CLI");
+  const char *argv[] = { "timeout", secs, cli, "size", "--json", "--no-ascent", path, NULL };
+  char *out = NULL;
+  int status = 0;
+
+  g_assert_nonnull (cli);
+  g_assert_true (g_spawn_sync (NULL, (char **) argv, NULL, G_SPAWN_SEARCH_PATH, NULL, NULL,
+                               &out, &err, &status, &error));
+  g_assert_no_error (error);
+  g_assert_true (WIFEXITED (status));
+  if (WEXITSTATUS (status) == 124)
+    g_error ("stagewright-cli size did not finish within %d s", CLI_TIMEOUT_S);
+  if (WEXITSTATUS (status) != 0)
+    g_error ("stagewright-cli size failed (%d): %s", WEXITSTATUS (status), err);
+  return out;
+}
+
+static JsonNode *
+parse (const char *text)
+{
+  g_autoptr (JsonParser) parser = json_parser_new ();
+  g_autoptr (GError) error = NULL;
+
+  if (!json_parser_load_from_data (parser, text, -1, &error))
+    g_error ("not JSON (%s): %s", error->message, text);
+  return json_node_copy (json_parser_get_root (parser));
+}
+
+/* The number under @key equals @core (%.17g round-trips); NAN is null. */
+static void
+check (JsonObject *o, const char *key, double core)
+{
+  JsonNode *n = json_object_get_member (o, key);
+  double v;
+
+  if (n == NULL)
+    g_error ("missing key %s", key);
+  if (isnan (core))
+    {
+      if (!JSON_NODE_HOLDS_NULL (n))
+        g_error ("%s: the core has no value, the CLI prints %g", key, json_node_get_double (n));
+      return;
+    }
+  if (!JSON_NODE_HOLDS_VALUE (n))
+    g_error ("%s: not a number", key);
+  v = json_node_get_double (n);
+  if (!(fabs (v - core) <= 1e-15 * fabs (core) + 1e-300))
+    g_error ("%s: CLI %.17g, core %.17g", key, v, core);
+}
+
+/* An invented three-stage concept: a sized LOX/kerosene first stage with a
+ * thrust, a fixed (existing) LOX/methane second stage, a sized upper stage
+ * burning a propellant of the user's own. */
+static const char *design_text =
+  "{ \"format\": \"stagewright-design\", \"version\": 2, \"name\": \"Shape test\","
+  "  \"payload_kg\": 5000, \"mission\": { \"delta_v_m_s\": 9400 }, \"split\": \"optimal\","
+  "  \"stages\": ["
+  "   { \"name\": \"A\", \"isp_vac_s\": 320, \"isp_sl_s\": 285, \"structural_coefficient\": 0.07,"
+  "     \"propellant\": \"lox-kerosene\", \"diameter_m\": 3.7, \"thrust_vac_kn\": 4000 },"
+  "   { \"name\": \"B\", \"isp_vac_s\": 345, \"structural_coefficient\": 0.09,"
+  "     \"propellant_kg\": 20000, \"propellant\": \"lox-methane\", \"ullage_fraction\": 0.04,"
+  "     \"engine_count\": 2, \"engine_thrust_vac_kn\": 400 },"
+  "   { \"name\": \"C\", \"isp_vac_s\": 450, \"structural_coefficient\": 0.12,"
+  "     \"propellant\": { \"name\": \"mine\", \"oxidizer_density_kg_m3\": 1141.17,"
+  "       \"fuel_density_kg_m3\": 70.83, \"mixture_ratio\": 5.5 } } ] }";
+
+static void
+test_shape_and_phases (void)
+{
+  g_autoptr (GError) error = NULL;
+  g_autofree char *dir = g_dir_make_tmp ("sw-cli-shape-XXXXXX", &error);
+  g_autofree char *path = g_build_filename (dir, "shape.stagewright", NULL);
+  g_autoptr (SwDesign) d = NULL;
+  g_autoptr (JsonNode) root = NULL;
+  g_autofree char *out = NULL;
+  SwSizing sizing;
+  SwPhase phases[SW_MAX_STAGES];
+  JsonArray *stages, *jphases;
+  guint n_phases;
+
+  g_assert_no_error (error);
+  g_assert_true (g_file_set_contents (path, design_text, -1, &error));
+  d = sw_design_load (path, NULL, &error);
+  g_assert_no_error (error);
+  g_assert_true (sw_size_design (d, &sizing, &error));
+  g_assert_true (sizing.feasible);
+  n_phases = sw_sizing_phases (d, &sizing, phases);
+  g_assert_cmpuint (n_phases, ==, 3);
+
+  out = run_size_json (path);
+  root = parse (out);
+  stages = json_object_get_array_member (json_node_get_object (root), "stages");
+  jphases = json_object_get_array_member (json_node_get_object (root), "phases");
+  g_assert_cmpuint (json_array_get_length (stages), ==, 3);
+  g_assert_cmpuint (json_array_get_length (jphases), ==, 3);
+
+  for (guint i = 0; i < 3; i++)
+    {
+      JsonObject *st = json_array_get_object_element (stages, i);
+      JsonObject *ph = json_array_get_object_element (jphases, i);
+      SwStageShape shape;
+
+      sw_sizing_stage_shape (d, &sizing, i, &shape);
+      g_assert_true (json_object_get_boolean_member (st, "fixed") == (i == 1));
+      check (st, "propellant_mass_kg", sizing.stages[i].propellant_mass_kg);
+      check (st, "propellant_volume_m3", shape.propellant_volume_m3);
+      check (st, "tank_volume_m3", shape.tank_volume_m3);
+      check (st, "length_m", shape.length_m);
+      check (st, "diameter_m", 3.7);   /* B and C take the diameter below */
+
+      g_assert_cmpstr (json_object_get_string_member (ph, "name"), ==, d->stages[i].name);
+      check (ph, "delta_v_m_s", phases[i].delta_v_m_s);
+      check (ph, "exhaust_velocity_m_s", phases[i].exhaust_velocity_m_s);
+      check (ph, "initial_mass_kg", phases[i].initial_mass_kg);
+      check (ph, "final_mass_kg", phases[i].final_mass_kg);
+      check (ph, "duration_s", phases[i].duration_s);
+    }
+
+  /* By hand from the inputs.  The fixed stage: 20 t of LOX/methane at its
+   * catalogue ratio 3.5 with 4 % ullage; its burn: 20 t over 2 x 400 kN /
+   * (345 s g0). */
+  {
+    JsonObject *b = json_array_get_object_element (stages, 1);
+    JsonObject *pb = json_array_get_object_element (jphases, 1);
+    JsonObject *pc = json_array_get_object_element (jphases, 2);
+    double vol = 20000.0 * 3.5 / 4.5 / 1141.17 + 20000.0 / 4.5 / 422.36;
+    double t = 20000.0 * 345.0 * SW_G0 / 800000.0;
+
+    g_assert_cmpfloat (fabs (json_object_get_double_member (b, "propellant_mass_kg") - 20000.0),
+                       <, 1e-9);
+    g_assert_cmpfloat (fabs (json_object_get_double_member (b, "propellant_volume_m3") - vol),
+                       <, 1e-9);
+    g_assert_cmpfloat (fabs (json_object_get_double_member (b, "tank_volume_m3") - vol * 1.04),
+                       <, 1e-9);
+    g_assert_cmpfloat (fabs (json_object_get_double_member (pb, "duration_s") - t), <, 1e-9);
+    /* The upper stage has no thrust: no duration. */
+    g_assert_true (JSON_NODE_HOLDS_NULL (json_object_get_member (pc, "duration_s")));
+  }
+  /* The phases add up to the mission's delta-v. */
+  {
+    double sum = 0.0;
+    for (guint i = 0; i < 3; i++)
+      sum += json_object_get_double_member (json_array_get_object_element (jphases, i),
+                                            "delta_v_m_s");
+    g_assert_cmpfloat (fabs (sum - 9400.0), <, 1e-6);
+  }
+  g_remove (path);
+  g_rmdir (dir);
+}
+
+/* A version-1 demo: every stage "fixed": false, no shape keys, phases as
+ * the stages. */
+static void
+test_version_one_demo (void)
+{
+  g_autofree char *path = g_build_filename (g_getenv ("SW_DESIGNS_DIR"),
+                                            "small-sat-launcher.stagewright", NULL);
+  g_autofree char *out = run_size_json (path);
+  g_autoptr (JsonNode) root = parse (out);
+  JsonObject *o = json_node_get_object (root);
+  JsonArray *stages = json_object_get_array_member (o, "stages");
+  JsonArray *phases = json_object_get_array_member (o, "phases");
+
+  g_assert_true (json_object_get_boolean_member (o, "feasible"));
+  g_assert_cmpuint (json_array_get_length (phases), ==, json_array_get_length (stages));
+  for (guint i = 0; i < json_array_get_length (stages); i++)
+    {
+      JsonObject *st = json_array_get_object_element (stages, i);
+      JsonObject *ph = json_array_get_object_element (phases, i);
+      g_assert_false (json_object_get_boolean_member (st, "fixed"));
+      g_assert_false (json_object_has_member (st, "tank_volume_m3"));
+      g_assert_false (json_object_has_member (st, "length_m"));
+      g_assert_cmpfloat (json_object_get_double_member (ph, "initial_mass_kg"), ==,
+                         json_object_get_double_member (st, "initial_mass_kg"));
+      g_assert_cmpfloat (json_object_get_double_member (ph, "final_mass_kg"), ==,
+                         json_object_get_double_member (st, "burnout_mass_kg"));
+    }
+}
+
+/* An invented vehicle that exists: both stages with fixed loads. */
+static const char *built_text =
+  "{ \"format\": \"stagewright-design\", \"version\": 2, \"name\": \"Built\","
+  "  \"payload_kg\": 1000, \"mission\": { \"delta_v_m_s\": %g }, \"split\": \"optimal\","
+  "  \"stages\": ["
+  "   { \"name\": \"A\", \"isp_vac_s\": 310, \"structural_coefficient\": 0.07,"
+  "     \"propellant_kg\": 200000, \"thrust_vac_kn\": 3500 },"
+  "   { \"name\": \"B\", \"isp_vac_s\": 345, \"structural_coefficient\": 0.1,"
+  "     \"propellant_kg\": 30000 } ] }";
+
+static char *
+write_design (const char *dir, const char *name, const char *text)
+{
+  char *path = g_build_filename (dir, name, NULL);
+  g_assert_true (g_file_set_contents (path, text, -1, NULL));
+  return path;
+}
+
+/* `performance`: the payload at which the vehicle's delta-v equals the
+ * requirement, against a bisection on the core's `size` of the same design
+ * (feasible exactly when the vehicle reaches the requirement); the phases
+ * add up to the requirement; an unreachable mission is an answer (exit 0,
+ * payload null); a vehicle with a sized stage is refused naming the key. */
+static void
+test_performance (void)
+{
+  g_autoptr (GError) error = NULL;
+  g_autofree char *dir = g_dir_make_tmp ("sw-cli-perf-XXXXXX", &error);
+  g_autofree char *text = g_strdup_printf (built_text, 9000.0);
+  g_autofree char *far_text = g_strdup_printf (built_text, 14000.0);
+  g_autofree char *path = write_design (dir, "built.stagewright", text);
+  g_autofree char *far = write_design (dir, "far.stagewright", far_text);
+  g_autofree char *sized = write_design (dir, "sized.stagewright", design_text);
+  g_autofree char *out = NULL, *out_far = NULL, *out_sized = NULL;
+  g_autoptr (JsonNode) root = NULL, root_far = NULL;
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, &error);
+  JsonObject *o;
+  JsonArray *phases;
+  double lo = 0.0, hi = 1.0e5, got, sum = 0.0;
+  int code;
+
+  g_assert_no_error (error);
+  out = run_cli_json ("performance", path, &code);
+  g_assert_cmpint (code, ==, 0);
+  root = parse (out);
+  o = json_node_get_object (root);
+  g_assert_true (json_object_get_boolean_member (o, "reachable"));
+  got = json_object_get_double_member (o, "payload_kg");
+  /* Bisection on the sizing: 60 halvings of 100 t. */
+  for (int k = 0; k < 60; k++)
+    {
+      SwSizing s;
+      d->payload_kg = 0.5 * (lo + hi);
+      g_assert_true (sw_size_design (d, &s, NULL));
+      if (s.feasible)
+        lo = d->payload_kg;
+      else
+        hi = d->payload_kg;
+    }
+  g_assert_cmpfloat (fabs (got - lo), <, 1e-6 * lo);
+  g_assert_cmpfloat (got, >, 1000.0);
+  phases = json_object_get_array_member (o, "phases");
+  g_assert_cmpuint (json_array_get_length (phases), ==, 2);
+  for (guint i = 0; i < 2; i++)
+    sum += json_object_get_double_member (json_array_get_object_element (phases, i),
+                                          "delta_v_m_s");
+  g_assert_cmpfloat (fabs (sum - 9000.0), <, 1e-6);
+  /* Stage A burns 200 t at 3500 kN and 310 s: 200000 x 310 g0 / 3.5e6 s. */
+  g_assert_cmpfloat (fabs (json_object_get_double_member (json_array_get_object_element (phases,
+                                                                                         0),
+                                                          "duration_s")
+                           - 200000.0 * 310.0 * SW_G0 / 3.5e6),
+                     <, 1e-9);
+
+  out_far = run_cli_json ("performance", far, &code);
+  g_assert_cmpint (code, ==, 0);
+  root_far = parse (out_far);
+  o = json_node_get_object (root_far);
+  g_assert_false (json_object_get_boolean_member (o, "reachable"));
+  g_assert_true (JSON_NODE_HOLDS_NULL (json_object_get_member (o, "payload_kg")));
+  g_assert_nonnull (strstr (json_object_get_string_member (o, "reason"), "even with no payload"));
+
+  out_sized = run_cli_json ("performance", sized, &code);
+  g_assert_cmpint (code, ==, 2);
+  g_assert_nonnull (strstr (out_sized, "sized.stagewright"));
+  g_assert_nonnull (strstr (out_sized, "stages[0].propellant_kg"));
+
+  g_remove (path);
+  g_remove (far);
+  g_remove (sized);
+  g_rmdir (dir);
+}
+
+int
+main (int argc, char **argv)
+{
+  g_test_init (&argc, &argv, NULL);
+  g_test_add_func ("/cli-shape/shape-and-phases", test_shape_and_phases);
+  g_test_add_func ("/cli-shape/version-one-demo", test_version_one_demo);
+  g_test_add_func ("/cli-shape/performance", test_performance);
+  return g_test_run ();
+}
