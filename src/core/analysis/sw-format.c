@@ -96,36 +96,6 @@ mass_unit (double kg, double *scaled, int *decimals)
   return C_("unit", "t");
 }
 
-char *
-sw_format_mass (double kg)
-{
-  g_autofree char *n = NULL;
-  const char *unit;
-  double scaled;
-  int decimals;
-
-  if (!isfinite (kg))
-    return g_strdup (SW_NO_VALUE);
-  unit = mass_unit (kg, &scaled, &decimals);
-  n = sw_format_number (scaled, decimals);
-  return g_strdup_printf ("%s %s", n, unit);
-}
-
-char *
-sw_format_mass_delta (double kg)
-{
-  g_autofree char *n = NULL;
-  const char *unit;
-  double scaled;
-  int decimals;
-
-  if (!isfinite (kg))
-    return g_strdup (SW_NO_VALUE);
-  unit = mass_unit (kg, &scaled, &decimals);
-  n = sw_format_signed (scaled, decimals);
-  return g_strdup_printf ("%s %s", n, unit);
-}
-
 static char *
 with_unit (double value, int decimals, const char *unit, gboolean sign)
 {
@@ -135,6 +105,31 @@ with_unit (double value, int decimals, const char *unit, gboolean sign)
     return g_strdup (SW_NO_VALUE);
   n = sign ? sw_format_signed (value, decimals) : sw_format_number (value, decimals);
   return g_strdup_printf ("%s %s", n, unit);
+}
+
+static char *
+mass (double kg, gboolean sign)
+{
+  const char *unit;
+  double scaled;
+  int decimals;
+
+  if (!isfinite (kg))
+    return g_strdup (SW_NO_VALUE);
+  unit = mass_unit (kg, &scaled, &decimals);
+  return with_unit (scaled, decimals, unit, sign);
+}
+
+char *
+sw_format_mass (double kg)
+{
+  return mass (kg, FALSE);
+}
+
+char *
+sw_format_mass_delta (double kg)
+{
+  return mass (kg, TRUE);
 }
 
 char *

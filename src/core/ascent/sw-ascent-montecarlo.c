@@ -34,37 +34,6 @@ typedef struct {
   GError             *error;       /* the first error of a worker */
 } Job;
 
-/* The SplitMix64 finaliser (a published 64-bit mixing function): one
- * unrelated random stream per (seed, sample). */
-static guint64
-mix64 (guint64 z)
-{
-  z += G_GUINT64_CONSTANT (0x9E3779B97F4A7C15);
-  z = (z ^ (z >> 30)) * G_GUINT64_CONSTANT (0xBF58476D1CE4E5B9);
-  z = (z ^ (z >> 27)) * G_GUINT64_CONSTANT (0x94D049BB133111EB);
-  return z ^ (z >> 31);
-}
-
-/* The nominal value spread by @s (percent), drawn again until it lies in
- * (lo, hi); after many tries the nominal value. */
-static double
-draw_scaled (gsl_rng *r, const SwSpread *s, double nominal, double lo, double hi)
-{
-  for (int tries = 0; tries < 64; tries++)
-    {
-      double d = 0.0, v;
-
-      if (s->kind == SW_SPREAD_NORMAL && s->width > 0.0)
-        d = gsl_ran_gaussian_ziggurat (r, s->width);
-      else if (s->kind == SW_SPREAD_UNIFORM && s->width > 0.0)
-        d = gsl_ran_flat (r, -s->width, s->width);
-      v = nominal * (1.0 + d / 100.0);
-      if (v > lo && v < hi)
-        return v;
-    }
-  return nominal;
-}
-
 /* One sample: the vehicle with drawn Isp and structural coefficients, flown. */
 static void
 run_sample (Job *job, SwDesign *work, gsl_rng *r, guint index)
@@ -77,12 +46,11 @@ run_sample (Job *job, SwDesign *work, gsl_rng *r, guint index)
   GError *error = NULL;
   double above = d->payload_kg, total = 0.0;
 
-  gsl_rng_set (r, (unsigned long) (mix64 (((guint64) job->seed << 32) ^ index)
-                                   & G_GUINT64_CONSTANT (0xffffffff)));
+  gsl_rng_set (r, sw_uncertainty_stream_seed (job->seed, index));
   for (guint i = 0; i < d->n_stages; i++)
     {
-      double f = draw_scaled (r, &u->isp, 1.0, 0.05, INFINITY);
-      double eps = draw_scaled (r, &u->structural_coefficient, d->stages[i].structural_coefficient,
+      double f = sw_spread_draw_scaled (r, &u->isp, 1.0, 0.05, INFINITY);
+      double eps = sw_spread_draw_scaled (r, &u->structural_coefficient, d->stages[i].structural_coefficient,
                                 1e-4, 0.95);
 
       work->stages[i].isp_vac_s = d->stages[i].isp_vac_s * f;

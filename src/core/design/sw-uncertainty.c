@@ -8,6 +8,7 @@
 #include "sw-optional-keys.h"
 
 #include <glib/gi18n-lib.h>
+#include <gsl/gsl_randist.h>
 #include <string.h>
 
 const char *const sw_uncertainty_design_keys[] = { "uncertainty", NULL };
@@ -245,4 +246,47 @@ sw_uncertainty_validate (const SwUncertainty *unc, const char *file, const char 
          && validate_spread (&unc->structural_coefficient, "structural_coefficient", TRUE, file,
                              path, error)
          && validate_spread (&unc->losses, "losses", FALSE, file, path, error);
+}
+
+static guint64
+mix64 (guint64 z)
+{
+  z += G_GUINT64_CONSTANT (0x9E3779B97F4A7C15);
+  z = (z ^ (z >> 30)) * G_GUINT64_CONSTANT (0xBF58476D1CE4E5B9);
+  z = (z ^ (z >> 27)) * G_GUINT64_CONSTANT (0x94D049BB133111EB);
+  return z ^ (z >> 31);
+}
+
+unsigned long
+sw_uncertainty_stream_seed (guint32 seed, guint64 index)
+{
+  return (unsigned long) (mix64 (((guint64) seed << 32) ^ index)
+                          & G_GUINT64_CONSTANT (0xffffffff));
+}
+
+double
+sw_spread_draw (gsl_rng *r, const SwSpread *s)
+{
+  switch (s->kind)
+    {
+    case SW_SPREAD_NORMAL:
+      return s->width > 0.0 ? gsl_ran_gaussian_ziggurat (r, s->width) : 0.0;
+    case SW_SPREAD_UNIFORM:
+      return s->width > 0.0 ? gsl_ran_flat (r, -s->width, s->width) : 0.0;
+    case SW_SPREAD_NONE:
+    default:
+      return 0.0;
+    }
+}
+
+double
+sw_spread_draw_scaled (gsl_rng *r, const SwSpread *s, double nominal, double lo, double hi)
+{
+  for (int tries = 0; tries < 64; tries++)
+    {
+      double v = nominal * (1.0 + sw_spread_draw (r, s) / 100.0);
+      if (v > lo && v < hi)
+        return v;
+    }
+  return nominal;
 }

@@ -15,6 +15,7 @@
  * includes its losses, it moves that delta-v).  A left-out spread is zero. */
 #pragma once
 
+#include <gsl/gsl_rng.h>
 #include <json-glib/json-glib.h>
 
 #include "sw-types.h"
@@ -62,5 +63,16 @@ gboolean sw_uncertainty_validate (const SwUncertainty *unc, const char *file, co
                                   GError **error);
 
 const char *sw_spread_kind_to_string (SwSpreadKind kind);
+
+/* Drawing samples, shared by every Monte Carlo of the core. */
+/* The SplitMix64 finaliser (a published 64-bit mixing function): an
+ * unrelated 32-bit generator seed for each (seed, index) pair. */
+unsigned long sw_uncertainty_stream_seed (guint32 seed, guint64 index);
+/* A zero-mean deviate of the spread (percent or m/s). */
+double        sw_spread_draw (gsl_rng *r, const SwSpread *s);
+/* @nominal spread by @s (percent), drawn again until it lies in (lo, hi)
+ * (a normal tail could cross zero); after 64 tries the nominal value. */
+double        sw_spread_draw_scaled (gsl_rng *r, const SwSpread *s, double nominal, double lo,
+                                     double hi);
 
 G_END_DECLS

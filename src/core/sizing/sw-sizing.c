@@ -173,6 +173,26 @@ stage_label (const SwDesign *design, guint index, char *buf, gsize size)
     g_snprintf (buf, size, _("stage %u"), index + 1);
 }
 
+/* The reason of an optimum that leaves a stage out. */
+static void
+explain_unused (SwSizing *out, const SwDesign *names, guint n)
+{
+  char label[SW_NAME_MAX + 32];
+
+  if (out->n_unused == 0)
+    return;
+  for (guint i = 0; i < n; i++)
+    if (out->stages[i].unused)
+      {
+        stage_label (names, i, label, sizeof label);
+        g_snprintf (out->reason, sizeof out->reason,
+                    _("At the optimum %s gets no delta-v and carries no propellant: "
+                      "the vehicle is lighter without it."),
+                    label);
+        return;
+      }
+}
+
 static void
 size_with_names (const SwStageSet *set, const SwDesign *names, double payload_kg,
                  double delta_v_m_s, SwSplitMode split, SwSizing *out)
@@ -301,19 +321,7 @@ size_with_names (const SwStageSet *set, const SwDesign *names, double payload_kg
   out->liftoff_mass_kg = m_above;
   out->payload_fraction = payload_kg / m_above;
 
-  if (out->n_unused > 0)
-    {
-      for (guint i = 0; i < n; i++)
-        if (out->stages[i].unused)
-          {
-            stage_label (names, i, label, sizeof label);
-            g_snprintf (out->reason, sizeof out->reason,
-                        _("At the optimum %s gets no delta-v and carries no propellant: "
-                          "the vehicle is lighter without it."),
-                        label);
-            break;
-          }
-    }
+  explain_unused (out, names, n);
 }
 
 /* ---- fixed stages ------------------------------------------------------ */
@@ -450,7 +458,6 @@ size_fixed (const SwStageSet *set, const double *fixed_kg, const SwDesign *names
   double dv[SW_MAX_STAGES] = { 0 };
   double d = 0.0, d_max = 0.0, total0, m_above, best = -INFINITY;
   guint n = set->n_stages;
-  char label[SW_NAME_MAX + 32];
 
   memset (out, 0, sizeof *out);
   out->split = split;
@@ -611,17 +618,7 @@ size_fixed (const SwStageSet *set, const double *fixed_kg, const SwDesign *names
   out->liftoff_mass_kg = m_above;
   out->payload_fraction = payload_kg / m_above;
 
-  if (out->n_unused > 0)
-    for (guint i = 0; i < n; i++)
-      if (out->stages[i].unused)
-        {
-          stage_label (names, i, label, sizeof label);
-          g_snprintf (out->reason, sizeof out->reason,
-                      _("At the optimum %s gets no delta-v and carries no propellant: "
-                        "the vehicle is lighter without it."),
-                      label);
-          break;
-        }
+  explain_unused (out, names, n);
 }
 
 void

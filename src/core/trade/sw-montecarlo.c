@@ -33,48 +33,6 @@ typedef struct {
   GCancellable  *cancellable;  /* may be NULL */
 } McJob;
 
-/* The SplitMix64 finaliser (a published 64-bit mixing function): spreads
- * (seed, block) over the generator's seed space so neighbouring blocks get
- * unrelated streams. */
-static guint64
-mix64 (guint64 z)
-{
-  z += G_GUINT64_CONSTANT (0x9E3779B97F4A7C15);
-  z = (z ^ (z >> 30)) * G_GUINT64_CONSTANT (0xBF58476D1CE4E5B9);
-  z = (z ^ (z >> 27)) * G_GUINT64_CONSTANT (0x94D049BB133111EB);
-  return z ^ (z >> 31);
-}
-
-/* A zero-mean deviate of the spread (percent or m/s). */
-static double
-draw (gsl_rng *r, const SwSpread *s)
-{
-  switch (s->kind)
-    {
-    case SW_SPREAD_NORMAL:
-      return s->width > 0.0 ? gsl_ran_gaussian_ziggurat (r, s->width) : 0.0;
-    case SW_SPREAD_UNIFORM:
-      return s->width > 0.0 ? gsl_ran_flat (r, -s->width, s->width) : 0.0;
-    case SW_SPREAD_NONE:
-    default:
-      return 0.0;
-    }
-}
-
-/* Draws until the value stays physical (a normal tail could cross zero);
- * after many tries the nominal value is kept. */
-static double
-draw_scaled (gsl_rng *r, const SwSpread *s, double nominal, double lo, double hi)
-{
-  for (int tries = 0; tries < 64; tries++)
-    {
-      double v = nominal * (1.0 + draw (r, s) / 100.0);
-      if (v > lo && v < hi)
-        return v;
-    }
-  return nominal;
-}
-
 static void
 run_sample (const McJob *job, gsl_rng *r, guint index)
 {
@@ -85,14 +43,14 @@ run_sample (const McJob *job, gsl_rng *r, guint index)
   for (guint i = 0; i < s.n_stages; i++)
     {
       double c = job->set.exhaust_velocity_m_s[i];
-      s.exhaust_velocity_m_s[i] = draw_scaled (r, &job->unc.isp, c, 0.05 * c, INFINITY);
-      s.structural_coefficient[i] = draw_scaled (r, &job->unc.structural_coefficient,
+      s.exhaust_velocity_m_s[i] = sw_spread_draw_scaled (r, &job->unc.isp, c, 0.05 * c, INFINITY);
+      s.structural_coefficient[i] = sw_spread_draw_scaled (r, &job->unc.structural_coefficient,
                                                  job->set.structural_coefficient[i], 1e-4,
                                                  0.95);
     }
   for (int tries = 0; tries < 64; tries++)
     {
-      double d = dv + draw (r, &job->unc.losses);
+      double d = dv + sw_spread_draw (r, &job->unc.losses);
       if (d > 0.0)
         {
           dv = d;
@@ -151,8 +109,7 @@ worker (gpointer data)
 
       if (block >= n_blocks || g_cancellable_is_cancelled (job->cancellable))
         break;
-      gsl_rng_set (r, (unsigned long) (mix64 (((guint64) job->seed << 32) ^ block)
-                                       & G_GUINT64_CONSTANT (0xffffffff)));
+      gsl_rng_set (r, sw_uncertainty_stream_seed (job->seed, (guint64) block));
       first = block * SW_MC_BLOCK;
       last = MIN (first + SW_MC_BLOCK, job->samples);
       for (guint i = first; i < last; i++)
