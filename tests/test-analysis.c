@@ -171,6 +171,103 @@ test_cancel_and_phases (void)
   g_assert_null (sw_analysis_add_ascent (fast, c));
 }
 
+/* ---- one loss model everywhere (issue 11) -------------------------------- */
+
+/* A "simulate" design: once the ascent phase closes the loop, the
+ * sensitivities and the Monte Carlo are those of the vehicle the loop sized
+ * (same liftoff mass to rounding), and the note says which losses they used.
+ * Before that, the note names the first-guess allowance.  The expected
+ * liftoff masses come from the sizing itself, an independent path
+ * (sw_size_design on a copy carrying the loop's losses), not from the trade
+ * code under test. */
+static void
+test_trade_uses_loop_losses (void)
+{
+  g_autoptr (SwDesign) d = demo ("three-stage-simulated.stagewright");
+  g_autoptr (SwDesign) looped = NULL;
+  g_autoptr (SwAnalysis) fast = NULL, mc = NULL, flown = NULL;
+  g_autoptr (GError) error = NULL;
+  SwAnalysisOptions o;
+  SwSizing check;
+  double guess;
+
+  g_assert_cmpint (d->mission.loss_model, ==, SW_LOSS_SIMULATE);
+  guess = d->mission.losses_m_s;
+  sw_analysis_options_init (&o);
+  o.montecarlo_always = TRUE;
+  o.montecarlo_samples = 400;
+  o.montecarlo_use_seed = TRUE;
+  o.montecarlo_seed = 7;
+  o.band = FALSE;
+  o.threads = 1;
+
+  fast = sw_analysis_new (d, 1, &o, NULL);
+  g_assert_true (fast->ok && fast->ascent_pending && fast->has_sensitivity);
+  g_assert_false (fast->trade_losses_simulated);
+  g_assert_cmpfloat (fast->trade_losses_m_s, ==, guess);
+  g_assert_nonnull (strstr (fast->trade_losses_note, "first-guess allowance"));
+  mc = sw_analysis_add_montecarlo (fast, NULL);
+  g_assert_true (mc->has_montecarlo);
+  flown = sw_analysis_add_ascent (mc, NULL);
+  g_assert_nonnull (flown->ascent);
+  g_assert_true (flown->ascent->closed_loop && flown->ascent->loop_converged);
+  g_assert_true (flown->sized_by_ascent);
+
+  g_assert_true (flown->trade_losses_simulated);
+  g_assert_cmpfloat (flown->trade_losses_m_s, ==, flown->ascent->loop_sized_losses_m_s);
+  g_assert_nonnull (strstr (flown->trade_losses_note, "closed-loop losses"));
+  /* The loop's losses differ from the first guess by far more than the
+   * tolerance below, so this test can tell the two apart. */
+  g_assert_cmpfloat (fabs (flown->trade_losses_m_s - guess), >, 20.0);
+
+  looped = sw_design_copy (d);
+  looped->mission.losses_m_s = flown->ascent->loop_sized_losses_m_s;
+  looped->mission.has_losses = TRUE;
+  g_assert_true (sw_size_design (looped, &check, &error));
+  g_assert_no_error (error);
+  g_assert_true (check.feasible);
+  g_assert_cmpfloat_with_epsilon (check.liftoff_mass_kg, flown->sizing.liftoff_mass_kg,
+                                  1e-6 * check.liftoff_mass_kg);
+  /* Sensitivities: recomputed about the loop's vehicle ... */
+  g_assert_true (flown->has_sensitivity);
+  g_assert_cmpfloat_with_epsilon (flown->sensitivity.liftoff_mass_kg, check.liftoff_mass_kg,
+                                  1e-6 * check.liftoff_mass_kg);
+  /* ... where the fast phase's were about the first guess's. */
+  g_assert_cmpfloat (fabs (fast->sensitivity.liftoff_mass_kg - check.liftoff_mass_kg), >,
+                     100.0);
+  /* Monte Carlo: re-run with the loop's nominal vehicle. */
+  g_assert_true (flown->has_montecarlo);
+  g_assert_cmpfloat_with_epsilon (flown->montecarlo.nominal_liftoff_kg, check.liftoff_mass_kg,
+                                  1e-6 * check.liftoff_mass_kg);
+  g_assert_cmpfloat (fabs (mc->montecarlo.nominal_liftoff_kg - check.liftoff_mass_kg), >,
+                     100.0);
+}
+
+/* Without a simulation the note names the allowance it used and why; an
+ * allowance design needs no note. */
+static void
+test_trade_losses_note (void)
+{
+  g_autoptr (SwDesign) d = demo ("three-stage-simulated.stagewright");
+  g_autoptr (SwDesign) allowance = demo ("medium-cargo.stagewright");
+  g_autoptr (SwAnalysis) a = NULL, b = NULL;
+  SwAnalysisOptions o;
+
+  sw_analysis_options_init (&o);
+  o.ascent = FALSE;
+  o.montecarlo = FALSE;
+  a = sw_analysis_run (d, &o, NULL);
+  g_assert_false (a->trade_losses_simulated);
+  g_assert_cmpfloat (a->trade_losses_m_s, ==, d->mission.losses_m_s);
+  g_assert_nonnull (strstr (a->trade_losses_note, "first-guess allowance"));
+  g_assert_nonnull (strstr (a->trade_losses_note, "the ascent was not simulated"));
+
+  g_assert_cmpint (allowance->mission.loss_model, ==, SW_LOSS_ALLOWANCE);
+  b = sw_analysis_run (allowance, &o, NULL);
+  g_assert_cmpstr (b->trade_losses_note, ==, "");
+  g_assert_false (b->trade_losses_simulated);
+}
+
 /* "loss_model": "simulate": after the ascent phase the analysis carries the
  * closed loop's vehicle (run here on its own through the ascent module),
  * not the first guess sized with the 1,600 m/s allowance; the first phase
@@ -264,6 +361,8 @@ main (int argc, char **argv)
   g_test_add_func ("/analysis/paper-only-with-limit", test_paper_only_with_limit);
   g_test_add_func ("/analysis/copy-shares", test_copy_shares);
   g_test_add_func ("/analysis/cancel-and-phases", test_cancel_and_phases);
+  g_test_add_func ("/analysis/trade-uses-loop-losses", test_trade_uses_loop_losses);
+  g_test_add_func ("/analysis/trade-losses-note", test_trade_losses_note);
   g_test_add_func ("/analysis/closed-loop-sizing", test_closed_loop_sizing);
   g_test_add_func ("/analysis/fixed-stage-trades", test_fixed_stage_trades);
   return g_test_run ();

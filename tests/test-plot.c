@@ -369,12 +369,111 @@ test_no_data (void)
   gtk_window_destroy (GTK_WINDOW (window));
 }
 
+/* The first cairo drawing in @node's tree (borrowed), NULL if none. */
+static GskRenderNode *
+first_cairo_node (GskRenderNode *node)
+{
+  if (node == NULL)
+    return NULL;
+  switch (gsk_render_node_get_node_type (node))
+    {
+    case GSK_CAIRO_NODE:
+      return node;
+    case GSK_CONTAINER_NODE:
+      for (guint i = 0; i < gsk_container_node_get_n_children (node); i++)
+        {
+          GskRenderNode *found = first_cairo_node (gsk_container_node_get_child (node, i));
+          if (found != NULL)
+            return found;
+        }
+      return NULL;
+    case GSK_TRANSFORM_NODE:
+      return first_cairo_node (gsk_transform_node_get_child (node));
+    case GSK_CLIP_NODE:
+      return first_cairo_node (gsk_clip_node_get_child (node));
+    case GSK_ROUNDED_CLIP_NODE:
+      return first_cairo_node (gsk_rounded_clip_node_get_child (node));
+    case GSK_OPACITY_NODE:
+      return first_cairo_node (gsk_opacity_node_get_child (node));
+    case GSK_DEBUG_NODE:
+      return first_cairo_node (gsk_debug_node_get_child (node));
+    default:
+      return NULL;
+    }
+}
+
+/* The plot's current drawing as the renderer gets it (a new reference). */
+static GskRenderNode *
+plot_drawing (GtkWidget *plot)
+{
+  GdkPaintable *paintable = gtk_widget_paintable_new (plot);
+  GtkSnapshot *snapshot = gtk_snapshot_new ();
+  GskRenderNode *node, *found;
+
+  gdk_paintable_snapshot (paintable, snapshot, WIDTH, HEIGHT);
+  node = gtk_snapshot_free_to_node (snapshot);
+  found = first_cairo_node (node);
+  if (found != NULL)
+    gsk_render_node_ref (found);
+  if (node != NULL)
+    gsk_render_node_unref (node);
+  g_object_unref (paintable);
+  return found;
+}
+
+/* The same data given again (as every phase of an edit does) is not drawn
+ * again: the renderer gets the very same drawing, so it rasterises nothing;
+ * a change of one value, of the highlight or of the size draws anew. */
+static void
+test_drawing_kept (void)
+{
+  static const double x[] = { 1.0, 2.0, 3.0 };
+  static const double y[] = { 5.0, 7.0, 6.0 };
+  static const double y2[] = { 5.0, 7.5, 6.0 };
+  GtkWidget *plot = sw_plot_new ();
+  GtkWidget *window;
+  GskRenderNode *first, *again, *changed, *highlighted;
+
+  sw_plot_set_x_axis (SW_PLOT (plot), "x", FALSE);
+  sw_plot_set_y_axis (SW_PLOT (plot), "y", FALSE);
+  sw_plot_add_series (SW_PLOT (plot), "s", x, y, 3, SW_PLOT_LINE, 0);
+  window = show_plot (plot);
+  first = plot_drawing (plot);
+  g_assert_nonnull (first);
+
+  sw_plot_clear (SW_PLOT (plot));
+  sw_plot_add_series (SW_PLOT (plot), "s", x, y, 3, SW_PLOT_LINE, 0);
+  widget_render_settle ();
+  again = plot_drawing (plot);
+  g_assert_true (again == first);
+
+  sw_plot_clear (SW_PLOT (plot));
+  sw_plot_add_series (SW_PLOT (plot), "s", x, y2, 3, SW_PLOT_LINE, 0);
+  widget_render_settle ();
+  changed = plot_drawing (plot);
+  g_assert_nonnull (changed);
+  g_assert_true (changed != first);
+
+  sw_plot_set_series_highlighted (SW_PLOT (plot), 0, TRUE);
+  widget_render_settle ();
+  highlighted = plot_drawing (plot);
+  g_assert_nonnull (highlighted);
+  g_assert_true (highlighted != changed);
+
+  gsk_render_node_unref (first);
+  gsk_render_node_unref (again);
+  gsk_render_node_unref (changed);
+  gsk_render_node_unref (highlighted);
+  gtk_window_destroy (GTK_WINDOW (window));
+}
+
 int
 main (int argc, char **argv)
 {
   gtk_test_init (&argc, &argv, NULL);
 
   g_test_add_func ("/gui/plot/linear-mapping", test_linear_mapping);
+  g_test_add_func ("/gui/plot/drawing-kept", test_drawing_kept);
   g_test_add_func ("/gui/plot/flat-series", test_flat_series);
   g_test_add_func ("/gui/plot/log-decades", test_log_decades);
   g_test_add_func ("/gui/plot/points-drawn", test_points_drawn);

@@ -574,11 +574,122 @@ test_screen_same_shapes (void)
   gtk_window_destroy (GTK_WINDOW (window));
 }
 
+/* Labels keep a number with the word after it (its unit) and the word before
+ * it: literal
+ * expected text (U+00A0 no-break space, U+2060 word joiner after a slash
+ * between letters); spaces elsewhere stay breakable. */
+static void
+test_glue_units (void)
+{
+  g_autofree char *a = sw_stack_glue_units ("<b>2 · Upper</b>\n29.9 t · Δv 2,007 m/s\nT/W 0.80 at ignition");
+  g_autofree char *b = sw_stack_glue_units ("mass ratio 3.356 · Δv — · share 12.5 % · −0.4 km");
+  g_autofree char *c = sw_stack_glue_units ("unused: no propellant");
+
+  g_assert_cmpstr (a, ==, "<b>2 · Upper</b>\n29.9\u00a0t · Δv\u00a02,007\u00a0m/\u2060s\n"
+                          "T/\u2060W\u00a00.80\u00a0at ignition");
+  g_assert_cmpstr (b, ==, "mass ratio\u00a03.356 · Δv\u00a0— · share\u00a012.5\u00a0% · "
+                          "−0.4\u00a0km");
+  g_assert_cmpstr (c, ==, "unused: no propellant");
+}
+
+/* The first cairo drawing in @node's tree (borrowed), NULL if none. */
+static GskRenderNode *
+first_cairo_node (GskRenderNode *node)
+{
+  if (node == NULL)
+    return NULL;
+  switch (gsk_render_node_get_node_type (node))
+    {
+    case GSK_CAIRO_NODE:
+      return node;
+    case GSK_CONTAINER_NODE:
+      for (guint i = 0; i < gsk_container_node_get_n_children (node); i++)
+        {
+          GskRenderNode *found = first_cairo_node (gsk_container_node_get_child (node, i));
+          if (found != NULL)
+            return found;
+        }
+      return NULL;
+    case GSK_TRANSFORM_NODE:
+      return first_cairo_node (gsk_transform_node_get_child (node));
+    case GSK_CLIP_NODE:
+      return first_cairo_node (gsk_clip_node_get_child (node));
+    case GSK_DEBUG_NODE:
+      return first_cairo_node (gsk_debug_node_get_child (node));
+    default:
+      return NULL;
+    }
+}
+
+/* The view's current drawing as the renderer gets it (a new reference). */
+static GskRenderNode *
+view_drawing (GtkWidget *view)
+{
+  GdkPaintable *paintable = gtk_widget_paintable_new (view);
+  GtkSnapshot *snapshot = gtk_snapshot_new ();
+  GskRenderNode *node, *found;
+
+  widget_render_settle ();
+  gdk_paintable_snapshot (paintable, snapshot, WIDTH, HEIGHT);
+  node = gtk_snapshot_free_to_node (snapshot);
+  found = first_cairo_node (node);
+  if (found != NULL)
+    gsk_render_node_ref (found);
+  if (node != NULL)
+    gsk_render_node_unref (node);
+  g_object_unref (paintable);
+  return found;
+}
+
+/* Another analysis with the same numbers (a later phase of the same edit)
+ * leaves the drawing as it was, so the renderer rasterises nothing; other
+ * numbers or another selection draw anew. */
+static void
+test_drawing_kept (void)
+{
+  g_autoptr (SwAnalysis) first_result = widget_render_demo_result ("medium-cargo.stagewright");
+  g_autoptr (SwAnalysis) same_result = widget_render_demo_result ("medium-cargo.stagewright");
+  g_autoptr (SwAnalysis) other_result = NULL;
+  g_autoptr (SwDesign) heavier = sw_design_copy (first_result->design);
+  GtkWidget *view = NULL;
+  GtkWidget *window;
+  GskRenderNode *first, *same, *other, *selected;
+
+  heavier->payload_kg *= 1.5;
+  other_result = sw_analysis_compute (heavier, 1, NULL);
+  window = show_result (first_result, &view);
+  first = view_drawing (view);
+  g_assert_nonnull (first);
+
+  g_assert_true (same_result != first_result);
+  sw_stack_view_set_result (SW_STACK_VIEW (view), same_result);
+  same = view_drawing (view);
+  g_assert_true (same == first);
+
+  sw_stack_view_set_result (SW_STACK_VIEW (view), other_result);
+  other = view_drawing (view);
+  g_assert_nonnull (other);
+  g_assert_true (other != first);
+
+  sw_stack_view_set_selected (SW_STACK_VIEW (view), 0);
+  selected = view_drawing (view);
+  g_assert_nonnull (selected);
+  g_assert_true (selected != other);
+
+  gsk_render_node_unref (first);
+  gsk_render_node_unref (same);
+  gsk_render_node_unref (other);
+  gsk_render_node_unref (selected);
+  gtk_window_destroy (GTK_WINDOW (window));
+}
+
 int
 main (int argc, char **argv)
 {
   gtk_test_init (&argc, &argv, NULL);
 
+  g_test_add_func ("/gui/stack-view/glue-units", test_glue_units);
+  g_test_add_func ("/gui/stack-view/drawing-kept", test_drawing_kept);
   g_test_add_func ("/gui/stack-view/areas-small-launcher", test_areas_small);
   g_test_add_func ("/gui/stack-view/areas-medium-cargo", test_areas_medium);
   g_test_add_func ("/gui/stack-view/areas-all-solid", test_areas_solid);

@@ -424,16 +424,24 @@ draw_axes (SwPlot *self, cairo_t *cr, const Colors *c)
   if (cat && self->categories != NULL)
     {
       double cw = sw_plot_category_width (self);
+      double row = fabs (sw_plot_axis_map (&self->y, 1.0) - sw_plot_axis_map (&self->y, 0.0));
+      /* A long label ("Structural coeff., stage 2 (Upper stage)") wraps
+       * between words onto as many lines as its row holds, right-aligned
+       * against the axis; only what still does not fit is ellipsized. */
+      int lines = CLAMP ((int) floor (row / MAX (th, 1.0)), 1, 3);
       for (guint i = 0; self->categories[i] != NULL; i++)
         {
           PangoLayout *layout = sw_plot_make_text_fresh (self, self->categories[i]);
           double py = sw_plot_axis_map (&self->y, i);
           int w, h;
+          pango_layout_set_wrap (layout, PANGO_WRAP_WORD);
           pango_layout_set_ellipsize (layout, PANGO_ELLIPSIZE_END);
           pango_layout_set_width (layout, (int) (cw * PANGO_SCALE));
+          pango_layout_set_height (layout, -lines);
+          pango_layout_set_alignment (layout, PANGO_ALIGN_RIGHT);
           pango_layout_get_pixel_size (layout, &w, &h);
           sw_plot_set_source (cr, &c->fg, 1.0);
-          cairo_move_to (cr, a->origin.x - TICK_LEN - 4.0 - w, py - h / 2.0);
+          cairo_move_to (cr, a->origin.x - TICK_LEN - 4.0 - cw, py - h / 2.0);
           pango_cairo_show_layout (cr, layout);
           g_object_unref (layout);
         }
@@ -794,21 +802,15 @@ draw_markers (SwPlot *self, cairo_t *cr, const Colors *c, Placer *pl)
     }
 }
 
-void
-sw_plot_snapshot (GtkWidget *widget, GtkSnapshot *snapshot)
+/* Everything but the hover readout, recorded into @snapshot. */
+static void
+draw_plot (SwPlot *self, GtkSnapshot *snapshot, int width, int height, const Colors *cc)
 {
-  SwPlot *self = SW_PLOT (widget);
-  int width = gtk_widget_get_width (widget);
-  int height = gtk_widget_get_height (widget);
+  Colors c = *cc;
   PangoLayout *title;
   Placer pl;
   cairo_t *cr;
-  Colors c;
 
-  if (width <= 0 || height <= 0)
-    return;
-  sw_plot_ensure_layout (self);
-  sw_plot_get_colors (self, &c);
   cr = gtk_snapshot_append_cairo (snapshot, &GRAPHENE_RECT_INIT (0, 0, width, height));
 
   title = sw_plot_title_layout (self);
@@ -857,9 +859,38 @@ sw_plot_snapshot (GtkWidget *widget, GtkSnapshot *snapshot)
   draw_markers (self, cr, &c, &pl);
   g_array_unref (pl.rects);
 
-  if (self->hovering && !self->readout_tooltip)
-    sw_plot_draw_readout (self, cr, &c);
-
   cairo_destroy (cr);
 }
 
+void
+sw_plot_snapshot (GtkWidget *widget, GtkSnapshot *snapshot)
+{
+  SwPlot *self = SW_PLOT (widget);
+  int width = gtk_widget_get_width (widget);
+  int height = gtk_widget_get_height (widget);
+  Colors c;
+
+  if (width <= 0 || height <= 0)
+    return;
+  sw_plot_ensure_layout (self);
+  sw_plot_get_colors (self, &c);
+  if (self->drawing == NULL || self->drawing_width != width || self->drawing_height != height)
+    {
+      GtkSnapshot *own = gtk_snapshot_new ();
+
+      g_clear_pointer (&self->drawing, gsk_render_node_unref);
+      draw_plot (self, own, width, height, &c);
+      self->drawing = gtk_snapshot_free_to_node (own);
+      self->drawing_width = width;
+      self->drawing_height = height;
+    }
+  if (self->drawing != NULL)
+    gtk_snapshot_append_node (snapshot, self->drawing);
+
+  if (self->hovering && !self->readout_tooltip && sw_plot_has_data (self))
+    {
+      cairo_t *cr = gtk_snapshot_append_cairo (snapshot, &GRAPHENE_RECT_INIT (0, 0, width, height));
+      sw_plot_draw_readout (self, cr, &c);
+      cairo_destroy (cr);
+    }
+}

@@ -72,6 +72,16 @@ struct _SwPlot {
   graphene_rect_t area;
   double          legend_top;
 
+  /* The drawing without the hover readout, kept while its inputs (the key
+   * hashes them, see sw-plot-draw.c) stay the same, so an edit that gives
+   * this plot the same data neither re-lays it out nor re-rasterises it:
+   * the renderer sees the same node and leaves its pixels alone. */
+  GskRenderNode *drawing;
+  guint64        drawing_key;
+  int            drawing_width;
+  int            drawing_height;
+  gboolean       drawing_dirty;
+
   /* Hover */
   gboolean  hovering;
   double    hover_x;
@@ -109,6 +119,8 @@ double       sw_plot_category_width (SwPlot *self);
 guint        sw_plot_n_categories (SwPlot *self);
 gboolean     sw_plot_categorical_y (SwPlot *self);
 void         sw_plot_ensure_layout (SwPlot *self);
+/* Drops the layout and the kept drawing if the plot's inputs changed. */
+void         sw_plot_check_inputs (SwPlot *self);
 /* Whether anything can be drawn on the axes (series, bands, markers). */
 gboolean     sw_plot_has_data (SwPlot *self);
 

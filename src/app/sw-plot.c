@@ -330,12 +330,127 @@ plot_layout (SwPlot *self, int width, int height)
     }
 }
 
+/* FNV-1a over the bytes of everything the drawing is made of. */
+static guint64
+key_bytes (guint64 h, const void *data, gsize n)
+{
+  const guchar *p = data;
+
+  for (gsize i = 0; i < n; i++)
+    h = (h ^ p[i]) * G_GUINT64_CONSTANT (1099511628211);
+  return h;
+}
+
+static guint64
+key_str (guint64 h, const char *s)
+{
+  /* NULL and "" differ; the terminator separates neighbours. */
+  return s == NULL ? key_bytes (h, "\1", 1) : key_bytes (h, s, strlen (s) + 1);
+}
+
+static guint64
+key_int (guint64 h, gint64 v)
+{
+  return key_bytes (h, &v, sizeof v);
+}
+
+static guint64
+key_axis (guint64 h, const SwPlotAxis *a)
+{
+  h = key_str (h, a->label);
+  h = key_int (h, a->log);
+  h = key_int (h, a->integer);
+  h = key_bytes (h, &a->fixed_min, sizeof (double));
+  h = key_bytes (h, &a->fixed_max, sizeof (double));
+  h = key_str (h, a->prefix);
+  h = key_str (h, a->spec);
+  h = key_str (h, a->suffix);
+  h = key_bytes (h, &a->scale, sizeof (double));
+  return key_int (h, a->ticks_bare);
+}
+
+static guint64
+drawing_key (SwPlot *self)
+{
+  guint64 h = G_GUINT64_CONSTANT (14695981039346656037);
+  Colors c;
+
+  sw_plot_get_colors (self, &c);
+  h = key_bytes (h, &c, sizeof c);
+  h = key_int (h, gtk_widget_get_scale_factor (GTK_WIDGET (self)));
+  h = key_str (h, self->title);
+  h = key_str (h, self->empty_text);
+  h = key_axis (h, &self->x);
+  h = key_axis (h, &self->y);
+  h = key_int (h, self->series->len);
+  for (guint i = 0; i < self->series->len; i++)
+    {
+      const Series *s = g_ptr_array_index (self->series, i);
+      h = key_str (h, s->name);
+      h = key_int (h, s->n);
+      h = key_bytes (h, s->x, sizeof (double) * s->n);
+      h = key_bytes (h, s->y, sizeof (double) * s->n);
+      h = key_int (h, s->style);
+      h = key_int (h, s->color);
+      h = key_int (h, s->highlighted);
+    }
+  h = key_int (h, self->bands->len);
+  for (guint i = 0; i < self->bands->len; i++)
+    {
+      const Band *b = g_ptr_array_index (self->bands, i);
+      h = key_str (h, b->name);
+      h = key_int (h, b->n);
+      h = key_bytes (h, b->x, sizeof (double) * b->n);
+      h = key_bytes (h, b->lo, sizeof (double) * b->n);
+      h = key_bytes (h, b->hi, sizeof (double) * b->n);
+      h = key_int (h, b->color);
+    }
+  h = key_int (h, self->markers->len);
+  for (guint i = 0; i < self->markers->len; i++)
+    {
+      const Marker *m = g_ptr_array_index (self->markers, i);
+      h = key_bytes (h, &m->x, sizeof (double));
+      h = key_bytes (h, &m->y, sizeof (double));
+      h = key_str (h, m->label);
+      h = key_int (h, m->kind);
+    }
+  h = key_int (h, self->vlines->len);
+  for (guint i = 0; i < self->vlines->len; i++)
+    {
+      const VLine *v = g_ptr_array_index (self->vlines, i);
+      h = key_bytes (h, &v->x, sizeof (double));
+      h = key_str (h, v->label);
+      h = key_int (h, v->color);
+    }
+  h = key_int (h, self->categories != NULL ? (gint64) g_strv_length (self->categories) : -1);
+  for (guint i = 0; self->categories != NULL && self->categories[i] != NULL; i++)
+    h = key_str (h, self->categories[i]);
+  return h;
+}
+
+void
+sw_plot_check_inputs (SwPlot *self)
+{
+  guint64 key;
+
+  if (!self->drawing_dirty)
+    return;
+  self->drawing_dirty = FALSE;
+  key = drawing_key (self);
+  if (key == self->drawing_key && self->drawing != NULL)
+    return;
+  self->drawing_key = key;
+  self->layout_valid = FALSE;
+  g_clear_pointer (&self->drawing, gsk_render_node_unref);
+}
+
 void
 sw_plot_ensure_layout (SwPlot *self)
 {
   int w = gtk_widget_get_width (GTK_WIDGET (self));
   int h = gtk_widget_get_height (GTK_WIDGET (self));
 
+  sw_plot_check_inputs (self);
   if (!self->layout_valid || w != self->layout_width || h != self->layout_height)
     plot_layout (self, w, h);
 }
@@ -343,7 +458,8 @@ sw_plot_ensure_layout (SwPlot *self)
 static void
 invalidate (SwPlot *self)
 {
-  self->layout_valid = FALSE;
+  /* The layout is redone only if the drawing's key changes (snapshot). */
+  self->drawing_dirty = TRUE;
   gtk_widget_queue_draw (GTK_WIDGET (self));
 }
 
@@ -366,7 +482,9 @@ sw_plot_measure (GtkWidget *widget, GtkOrientation orientation, int for_size,
 static void
 sw_plot_size_allocate (GtkWidget *widget, int width, int height, int baseline)
 {
-  SW_PLOT (widget)->layout_valid = FALSE;
+  /* Nothing: the layout and the drawing are keyed on the size, so a
+   * relayout of the window that leaves this plot's size alone costs
+   * nothing here. */
 }
 
 static void
@@ -375,6 +493,8 @@ sw_plot_css_changed (GtkWidget *widget, GtkCssStyleChange *change)
   GTK_WIDGET_CLASS (sw_plot_parent_class)->css_changed (widget, change);
   /* The font may have changed. */
   g_hash_table_remove_all (SW_PLOT (widget)->text_cache);
+  SW_PLOT (widget)->layout_valid = FALSE;
+  g_clear_pointer (&SW_PLOT (widget)->drawing, gsk_render_node_unref);
   invalidate (SW_PLOT (widget));
 }
 
@@ -429,6 +549,7 @@ sw_plot_finalize (GObject *object)
   g_free (self->title);
   g_free (self->empty_text);
   g_hash_table_unref (self->text_cache);
+  g_clear_pointer (&self->drawing, gsk_render_node_unref);
   sw_plot_axis_clear (&self->x);
   sw_plot_axis_clear (&self->y);
   g_ptr_array_unref (self->series);
@@ -642,6 +763,7 @@ sw_plot_set_series_highlighted (SwPlot *self, guint series, gboolean highlighted
   if (s->highlighted == !!highlighted)
     return;
   s->highlighted = !!highlighted;
+  self->drawing_dirty = TRUE;
   gtk_widget_queue_draw (GTK_WIDGET (self));
 }
 

@@ -79,6 +79,13 @@ struct _SwStackView {
   /* Dragging a border */
   int        drag_lower;
   double     drag_stack_height;
+
+  /* The last drawing, kept while what it shows (the key hashes the laid-out
+   * parts, texts, colours, selection and hover) stays the same: a later
+   * phase of the same edit, or an edit that leaves the stack alone, then
+   * neither records nor rasterises it again. */
+  GskRenderNode *drawing;
+  guint64        drawing_key;
 };
 
 enum {
@@ -349,7 +356,8 @@ make_labels (SwStackView *self, gboolean compact, double max_width, double *widt
   for (guint i = 0; i < self->n_items; i++)
     {
       Item *it = &self->items[i];
-      g_autofree char *markup = item_label_markup (self, it, compact);
+      g_autofree char *raw = item_label_markup (self, it, compact);
+      g_autofree char *markup = sw_stack_glue_units (raw);
       int lw, lh;
 
       g_clear_object (&it->label);
@@ -357,8 +365,10 @@ make_labels (SwStackView *self, gboolean compact, double max_width, double *widt
       pango_layout_get_pixel_size (it->label, &lw, &lh);
       if (lw > max_width)
         {
-          /* Wrapped between words, never cut mid-word or mid-number. */
-          pango_layout_set_wrap (it->label, PANGO_WRAP_WORD_CHAR);
+          /* Wrapped between words, never inside a word or a number and its
+           * unit (glued above): a piece wider than the column runs over
+           * rather than break as "2,007 m/" + "s". */
+          pango_layout_set_wrap (it->label, PANGO_WRAP_WORD);
           pango_layout_set_width (it->label, (int) (max_width * PANGO_SCALE));
           pango_layout_get_pixel_size (it->label, &lw, &lh);
         }
@@ -978,18 +988,11 @@ draw_baseline (SwStackView *self, cairo_t *cr, const Colors *c)
 }
 
 static void
-sw_stack_view_snapshot (GtkWidget *widget, GtkSnapshot *snapshot)
+draw_stack (SwStackView *self, GtkSnapshot *snapshot, int width, int height, const Colors *cc)
 {
-  SwStackView *self = SW_STACK_VIEW (widget);
-  int width = gtk_widget_get_width (widget);
-  int height = gtk_widget_get_height (widget);
+  Colors c = *cc;
   cairo_t *cr;
-  Colors c;
 
-  if (width <= 0 || height <= 0)
-    return;
-  ensure_layout (self);
-  get_colors (widget, &c);
   cr = gtk_snapshot_append_cairo (snapshot, &GRAPHENE_RECT_INIT (0, 0, width, height));
 
   if (self->result == NULL)
@@ -1080,6 +1083,104 @@ out:
   cairo_destroy (cr);
 }
 
+/* FNV-1a over what the drawing shows. */
+static guint64
+key_bytes (guint64 h, const void *data, gsize n)
+{
+  const guchar *p = data;
+
+  for (gsize i = 0; i < n; i++)
+    h = (h ^ p[i]) * G_GUINT64_CONSTANT (1099511628211);
+  return h;
+}
+
+static guint64
+key_layout (guint64 h, PangoLayout *layout)
+{
+  const char *text = layout != NULL ? pango_layout_get_text (layout) : NULL;
+
+  return text != NULL ? key_bytes (h, text, strlen (text) + 1) : key_bytes (h, "\1", 1);
+}
+
+static guint64
+drawing_key (SwStackView *self, int width, int height, const Colors *c)
+{
+  guint64 h = G_GUINT64_CONSTANT (14695981039346656037);
+  const SwAnalysis *r = self->result;
+  int state[6] = { width, height, self->selected, self->hover_border, self->drag_lower,
+                   r == NULL ? -1 : r->ok };
+
+  h = key_bytes (h, state, sizeof state);
+  h = key_bytes (h, c, sizeof *c);
+  if (r == NULL)
+    return h;
+  h = key_layout (h, self->message);
+  h = key_bytes (h, &self->message_rect, sizeof self->message_rect);
+  if (!r->ok)
+    return h;
+  h = key_bytes (h, &r->sizing.liftoff_mass_kg, sizeof (double));
+  h = key_bytes (h, &r->sizing.payload_fraction, sizeof (double));
+  h = key_bytes (h, &self->px2_per_kg, sizeof (double));
+  h = key_bytes (h, &self->scale_ref_kg, sizeof (double));
+  h = key_bytes (h, &self->scale, sizeof self->scale);
+  h = key_bytes (h, &self->geom, sizeof self->geom);
+  h = key_bytes (h, &self->n_items, sizeof self->n_items);
+  for (guint i = 0; i < self->n_items; i++)
+    {
+      const Item *it = &self->items[i];
+      h = key_bytes (h, &it->kind, sizeof it->kind);
+      h = key_bytes (h, &it->stage, sizeof it->stage);
+      h = key_bytes (h, &it->mass_kg, sizeof it->mass_kg);
+      h = key_bytes (h, &it->structure_fraction, sizeof it->structure_fraction);
+      h = key_bytes (h, &it->rect, sizeof it->rect);
+      h = key_bytes (h, &it->structure, sizeof it->structure);
+      h = key_bytes (h, &it->label_y, sizeof it->label_y);
+      h = key_bytes (h, &it->label_h, sizeof it->label_h);
+      h = key_layout (h, it->label);
+    }
+  h = key_bytes (h, &self->label_x, sizeof self->label_x);
+  h = key_bytes (h, &self->stack_right, sizeof self->stack_right);
+  h = key_bytes (h, &self->top_y, sizeof self->top_y);
+  h = key_bytes (h, &self->bottom_y, sizeof self->bottom_y);
+  h = key_bytes (h, &self->n_base, sizeof self->n_base);
+  if (self->n_base > 0)
+    {
+      h = key_bytes (h, self->base_rects, sizeof self->base_rects);
+      h = key_bytes (h, &self->base_geom, sizeof self->base_geom);
+      h = key_layout (h, self->base_caption);
+      h = key_bytes (h, &self->base_caption_x, sizeof (double));
+      h = key_bytes (h, &self->base_caption_y, sizeof (double));
+    }
+  return h;
+}
+
+static void
+sw_stack_view_snapshot (GtkWidget *widget, GtkSnapshot *snapshot)
+{
+  SwStackView *self = SW_STACK_VIEW (widget);
+  int width = gtk_widget_get_width (widget);
+  int height = gtk_widget_get_height (widget);
+  guint64 key;
+  Colors c;
+
+  if (width <= 0 || height <= 0)
+    return;
+  ensure_layout (self);
+  get_colors (widget, &c);
+  key = drawing_key (self, width, height, &c);
+  if (self->drawing == NULL || key != self->drawing_key)
+    {
+      GtkSnapshot *own = gtk_snapshot_new ();
+
+      g_clear_pointer (&self->drawing, gsk_render_node_unref);
+      draw_stack (self, own, width, height, &c);
+      self->drawing = gtk_snapshot_free_to_node (own);
+      self->drawing_key = key;
+    }
+  if (self->drawing != NULL)
+    gtk_snapshot_append_node (snapshot, self->drawing);
+}
+
 static void
 sw_stack_view_measure (GtkWidget *widget, GtkOrientation orientation, int for_size,
                        int *minimum, int *natural, int *minimum_baseline, int *natural_baseline)
@@ -1099,13 +1200,16 @@ sw_stack_view_measure (GtkWidget *widget, GtkOrientation orientation, int for_si
 static void
 sw_stack_view_size_allocate (GtkWidget *widget, int width, int height, int baseline)
 {
-  SW_STACK_VIEW (widget)->layout_valid = FALSE;
+  /* Nothing: the layout is keyed on the size (ensure_layout), so a relayout
+   * of the window that leaves this view's size alone re-shapes no text. */
 }
 
 static void
 sw_stack_view_css_changed (GtkWidget *widget, GtkCssStyleChange *change)
 {
   GTK_WIDGET_CLASS (sw_stack_view_parent_class)->css_changed (widget, change);
+  /* The font may have changed: draw again even if the texts did not. */
+  g_clear_pointer (&SW_STACK_VIEW (widget)->drawing, gsk_render_node_unref);
   invalidate (SW_STACK_VIEW (widget));
 }
 
@@ -1292,6 +1396,7 @@ sw_stack_view_dispose (GObject *object)
   SwStackView *self = SW_STACK_VIEW (object);
 
   clear_layout (self);
+  g_clear_pointer (&self->drawing, gsk_render_node_unref);
   g_clear_pointer (&self->result, sw_analysis_unref);
   G_OBJECT_CLASS (sw_stack_view_parent_class)->dispose (object);
 }

@@ -274,6 +274,7 @@ show_tornado (SwTradePage *self, SwAnalysis *r)
   g_autofree char *title = NULL, *minus_name = NULL, *plus_name = NULL;
   g_autofree char *step_text = NULL;
   GPtrArray *labels = g_ptr_array_new_with_free_func (g_free);
+  g_autoptr (GPtrArray) short_labels = g_ptr_array_new_with_free_func (g_free);
   double biggest = 0.0;
 
   sw_plot_clear (self->tornado_plot);
@@ -292,15 +293,27 @@ show_tornado (SwTradePage *self, SwAnalysis *r)
       {
         const SwSensitivity *item = &t->items[t->ranked[i]];
         g_autofree char *name = sw_sensitivity_dup_label (r->design, item);
+        /* On the chart "Isp, stage 2" without the stage's name: the rows
+         * stay short enough to read whole beside a narrow chart (the stage
+         * list gives the names in the same firing order). */
+        g_autofree char *short_name = sw_sensitivity_dup_label (NULL, item);
 
         self->minus_kg[i] = item->minus_feasible ? item->minus_kg : NAN;
         self->plus_kg[i] = item->plus_feasible ? item->plus_kg : NAN;
         if (!item->minus_feasible || !item->plus_feasible)
           /* Translators: a tornado row whose input, moved, leaves no solution */
-          g_ptr_array_add (labels, g_strdup_printf (_("%s (%s: no solution)"), name,
-                                                    !item->minus_feasible ? "−" : "+"));
+          {
+            g_ptr_array_add (labels, g_strdup_printf (_("%s (%s: no solution)"), name,
+                                                      !item->minus_feasible ? "−" : "+"));
+            g_ptr_array_add (short_labels,
+                             g_strdup_printf (_("%s (%s: no solution)"), short_name,
+                                              !item->minus_feasible ? "−" : "+"));
+          }
         else
-          g_ptr_array_add (labels, g_steal_pointer (&name));
+          {
+            g_ptr_array_add (labels, g_steal_pointer (&name));
+            g_ptr_array_add (short_labels, g_steal_pointer (&short_name));
+          }
         if (isfinite (self->minus_kg[i]))
           biggest = MAX (biggest, fabs (self->minus_kg[i]));
         if (isfinite (self->plus_kg[i]))
@@ -325,7 +338,7 @@ show_tornado (SwTradePage *self, SwAnalysis *r)
       sw_plot_set_categories (self->tornado_plot, NULL, 0);
       return;
     }
-  sw_plot_set_categories (self->tornado_plot, (const char *const *) self->row_labels,
+  sw_plot_set_categories (self->tornado_plot, (const char *const *) short_labels->pdata,
                           self->n_rows);
   /* Translators: the legend of the tornado's bars; %s is the step in percent */
   minus_name = g_strdup_printf (_("input −%s %%"), step_text);

@@ -6,6 +6,7 @@
 #include "sw-window.h"
 
 #include "sw-design-edit.h"
+#include "sw-file-flow.h"
 #include "sw-settings.h"
 #include "sw-ascent-page.h"
 #include "sw-export-dialog.h"
@@ -21,16 +22,7 @@
 #include <errno.h>
 #include <string.h>
 
-#define MIME_TYPE "application/x-stagewright+json"
-#define MAX_RECENT 8
 
-typedef enum {
-  AFTER_NOTHING,
-  AFTER_CLOSE,
-  AFTER_NEW,
-  AFTER_OPEN,
-  AFTER_OPEN_FILE,
-} AfterSave;
 
 struct _SwWindow {
   GtkApplicationWindow parent_instance;
@@ -47,10 +39,8 @@ struct _SwWindow {
 
   SwRecovery     *recovery;
 
-  AfterSave       after;               /* what to do once the design is saved */
-  GFile          *after_file;
+  SwFileFlow     *file_flow;           /* new, open, save, and asking first */
   gboolean        closing;
-  GtkNativeDialog *chooser;
 
   GtkLabel       *title_label;
   GtkLabel       *subtitle_label;
@@ -77,7 +67,6 @@ G_DEFINE_FINAL_TYPE (SwWindow, sw_window, GTK_TYPE_APPLICATION_WINDOW)
 enum { RESULT_DRAWN, N_SIGNALS };
 static guint signals[N_SIGNALS];
 
-static void show_save_as (SwWindow *self);
 
 /* ---- messages and title ------------------------------------------------ */
 
@@ -328,84 +317,22 @@ recovery_response_cb (SwWindow *self, int response)
   sw_window_answer_recovery (self, response == 1);
 }
 
-/* ---- files ------------------------------------------------------------- */
+/* ---- files: the flow is sw-file-flow.c; the window shows its messages --- */
 
 static void
-remember_file (SwWindow *self, GFile *file)
+flow_message_cb (SwWindow *self, int type, const char *text)
 {
-  g_autofree char *uri = g_file_get_uri (file);
-  g_autofree char *path = g_file_get_path (file);
-  GtkRecentData data = { 0 };
-
-  if (self->ephemeral)
-    return;
-  data.mime_type = (char *) MIME_TYPE;
-  data.app_name = (char *) "Stagewright";
-  data.app_exec = (char *) "stagewright %u";
-  gtk_recent_manager_add_full (gtk_recent_manager_get_default (), uri, &data);
-  if (path != NULL)
-    g_settings_set_string (self->settings, "last-design", path);
-}
-
-static void
-rebuild_recent_menu (SwWindow *self)
-{
-  GList *items = gtk_recent_manager_get_items (gtk_recent_manager_get_default ());
-  guint n = 0;
-
-  g_menu_remove_all (self->recent_menu);
-  for (GList *l = items; l != NULL && n < MAX_RECENT; l = l->next)
-    {
-      GtkRecentInfo *info = l->data;
-      const char *uri = gtk_recent_info_get_uri (info);
-      g_autoptr (GMenuItem) item = NULL;
-
-      if (!g_str_has_suffix (uri, ".stagewright") || !gtk_recent_info_exists (info))
-        continue;
-      item = g_menu_item_new (gtk_recent_info_get_display_name (info), NULL);
-      g_menu_item_set_action_and_target_value (item, "design.open-recent",
-                                               g_variant_new_string (uri));
-      g_menu_append_item (self->recent_menu, item);
-      n++;
-    }
-  g_list_free_full (items, (GDestroyNotify) gtk_recent_info_unref);
-  if (n == 0)
-    {
-      g_autoptr (GMenuItem) none = g_menu_item_new (_("No recent designs"), "design.none");
-      g_menu_append_item (self->recent_menu, none);
-    }
-}
-
-static gboolean
-load_file (SwWindow *self, GFile *file, gboolean as_copy)
-{
-  g_autoptr (GPtrArray) warnings = g_ptr_array_new_with_free_func (g_free);
-  g_autoptr (GError) error = NULL;
-
-  if (!sw_document_load (self->document, file, warnings, &error))
-    {
-      g_autofree char *text = g_strdup_printf (_("Could not open the design; nothing was "
-                                                 "changed.\n%s"), error->message);
-      show_message (self, GTK_MESSAGE_ERROR, text);
-      return FALSE;
-    }
-  if (warnings->len > 0)
-    {
-      GString *text = g_string_new (_("The design was opened, with warnings:"));
-      for (guint i = 0; i < warnings->len; i++)
-        g_string_append_printf (text, "\n%s", (const char *) warnings->pdata[i]);
-      show_message (self, GTK_MESSAGE_WARNING, text->str);
-      g_string_free (text, TRUE);
-    }
+  if (text != NULL)
+    show_message (self, (GtkMessageType) type, text);
   else
     hide_message (self);
-  if (as_copy)
-    sw_document_reset (self->document, sw_document_dup_design (self->document), NULL, FALSE);
-  else
-    remember_file (self, file);
-  sw_inspector_set_intro (self->inspector, as_copy);
+}
+
+static void
+flow_reset_cb (SwWindow *self, gboolean intro)
+{
+  sw_inspector_set_intro (self->inspector, intro);
   sw_inspector_set_selected (self->inspector, 0);
-  return TRUE;
 }
 
 gboolean
@@ -413,7 +340,7 @@ sw_window_load (SwWindow *self, GFile *file)
 {
   g_return_val_if_fail (SW_IS_WINDOW (self), FALSE);
   g_return_val_if_fail (G_IS_FILE (file), FALSE);
-  return load_file (self, file, FALSE);
+  return sw_file_flow_load (self->file_flow, file, FALSE);
 }
 
 gboolean
@@ -421,7 +348,7 @@ sw_window_load_template (SwWindow *self, GFile *file)
 {
   g_return_val_if_fail (SW_IS_WINDOW (self), FALSE);
   g_return_val_if_fail (G_IS_FILE (file), FALSE);
-  return load_file (self, file, TRUE);
+  return sw_file_flow_load (self->file_flow, file, TRUE);
 }
 
 gboolean
@@ -436,236 +363,7 @@ gboolean
 sw_window_save_to (SwWindow *self, GFile *file, GError **error)
 {
   g_return_val_if_fail (SW_IS_WINDOW (self), FALSE);
-
-  if (!sw_document_save (self->document, file, error))
-    return FALSE;
-  remember_file (self, sw_document_get_file (self->document));
-  sw_recovery_remove (self->recovery);
-  return TRUE;
-}
-
-/* Saves and reports a failure in the window. */
-static gboolean
-save_to (SwWindow *self, GFile *file)
-{
-  g_autoptr (GError) error = NULL;
-
-  if (!sw_window_save_to (self, file, &error))
-    {
-      g_autofree char *text = g_strdup_printf (_("The design was not saved.\n%s"),
-                                               error->message);
-      show_message (self, GTK_MESSAGE_ERROR, text);
-      return FALSE;
-    }
-  hide_message (self);
-  return TRUE;
-}
-
-static void
-new_design (SwWindow *self)
-{
-  sw_document_reset (self->document, sw_design_new_default (), NULL, FALSE);
-  sw_inspector_set_intro (self->inspector, FALSE);
-  hide_message (self);
-  sw_inspector_set_selected (self->inspector, 0);
-}
-
-static void
-add_filters (GtkFileChooser *chooser)
-{
-  g_autoptr (GtkFileFilter) designs = gtk_file_filter_new ();
-  g_autoptr (GtkFileFilter) all = gtk_file_filter_new ();
-
-  gtk_file_filter_set_name (designs, _("Stagewright designs"));
-  gtk_file_filter_add_pattern (designs, "*.stagewright");
-  gtk_file_filter_add_mime_type (designs, MIME_TYPE);
-  gtk_file_filter_set_name (all, _("All files"));
-  gtk_file_filter_add_pattern (all, "*");
-  gtk_file_chooser_add_filter (chooser, designs);
-  gtk_file_chooser_add_filter (chooser, all);
-}
-
-static void
-open_response_cb (SwWindow *self, int response, GtkNativeDialog *dialog)
-{
-  if (response == GTK_RESPONSE_ACCEPT)
-    {
-      g_autoptr (GFile) file = gtk_file_chooser_get_file (GTK_FILE_CHOOSER (dialog));
-      if (file != NULL)
-        sw_window_load (self, file);
-    }
-  g_clear_object (&self->chooser);
-}
-
-static void
-show_open (SwWindow *self)
-{
-  GtkFileChooserNative *chooser;
-
-  if (self->chooser != NULL)
-    return;
-  chooser = gtk_file_chooser_native_new (_("Open a Design"), GTK_WINDOW (self),
-                                         GTK_FILE_CHOOSER_ACTION_OPEN, _("_Open"),
-                                         _("_Cancel"));
-  add_filters (GTK_FILE_CHOOSER (chooser));
-  gtk_native_dialog_set_modal (GTK_NATIVE_DIALOG (chooser), TRUE);
-  g_signal_connect_swapped (chooser, "response", G_CALLBACK (open_response_cb), self);
-  self->chooser = GTK_NATIVE_DIALOG (chooser);
-  gtk_native_dialog_show (self->chooser);
-}
-
-static void
-run_after (SwWindow *self)
-{
-  AfterSave after = self->after;
-  g_autoptr (GFile) file = g_steal_pointer (&self->after_file);
-
-  self->after = AFTER_NOTHING;
-  switch (after)
-    {
-    case AFTER_CLOSE:
-      sw_window_close_discarding (self);
-      break;
-    case AFTER_NEW:
-      new_design (self);
-      break;
-    case AFTER_OPEN:
-      show_open (self);
-      break;
-    case AFTER_OPEN_FILE:
-      sw_window_load (self, file);
-      break;
-    case AFTER_NOTHING:
-    default:
-      break;
-    }
-}
-
-static void
-cancel_after (SwWindow *self)
-{
-  self->after = AFTER_NOTHING;
-  g_clear_object (&self->after_file);
-}
-
-static void
-save_as_response_cb (SwWindow *self, int response, GtkNativeDialog *dialog)
-{
-  g_autoptr (GFile) file = NULL;
-
-  if (response == GTK_RESPONSE_ACCEPT)
-    file = gtk_file_chooser_get_file (GTK_FILE_CHOOSER (dialog));
-  g_clear_object (&self->chooser);
-  if (file == NULL)
-    {
-      cancel_after (self);
-      return;
-    }
-  {
-    g_autofree char *base = g_file_get_basename (file);
-    if (base != NULL && strchr (base, '.') == NULL)
-      {
-        g_autofree char *name = g_strconcat (base, ".stagewright", NULL);
-        g_autoptr (GFile) parent = g_file_get_parent (file);
-        g_set_object (&file, g_file_get_child (parent, name));
-      }
-  }
-  if (save_to (self, file))
-    run_after (self);
-  else
-    cancel_after (self);
-}
-
-static void
-show_save_as (SwWindow *self)
-{
-  GtkFileChooserNative *chooser;
-  GFile *current = sw_document_get_file (self->document);
-
-  if (self->chooser != NULL)
-    return;
-  chooser = gtk_file_chooser_native_new (_("Save the Design"), GTK_WINDOW (self),
-                                         GTK_FILE_CHOOSER_ACTION_SAVE, _("_Save"),
-                                         _("_Cancel"));
-  add_filters (GTK_FILE_CHOOSER (chooser));
-  if (current != NULL)
-    gtk_file_chooser_set_file (GTK_FILE_CHOOSER (chooser), current, NULL);
-  else
-    {
-      g_autofree char *title = sw_document_dup_title (self->document);
-      g_autofree char *name = g_strconcat (title, ".stagewright", NULL);
-      g_strdelimit (name, "/\\", '-');
-      gtk_file_chooser_set_current_name (GTK_FILE_CHOOSER (chooser), name);
-    }
-  gtk_native_dialog_set_modal (GTK_NATIVE_DIALOG (chooser), TRUE);
-  g_signal_connect_swapped (chooser, "response", G_CALLBACK (save_as_response_cb), self);
-  self->chooser = GTK_NATIVE_DIALOG (chooser);
-  gtk_native_dialog_show (self->chooser);
-}
-
-static void
-save (SwWindow *self)
-{
-  GFile *file = sw_document_get_file (self->document);
-
-  if (file == NULL)
-    show_save_as (self);
-  else if (save_to (self, file))
-    run_after (self);
-  else
-    cancel_after (self);
-}
-
-static void
-question_response_cb (SwWindow *self, int response, GtkDialog *dialog)
-{
-  /* The answer may close this window at once: the dialog, finalized only
-   * after its response signal, must not point at it by then. */
-  g_signal_handlers_disconnect_by_func (dialog, question_response_cb, self);
-  gtk_window_set_transient_for (GTK_WINDOW (dialog), NULL);
-  gtk_window_destroy (GTK_WINDOW (dialog));
-  switch (response)
-    {
-    case GTK_RESPONSE_ACCEPT:
-      save (self);
-      break;
-    case GTK_RESPONSE_REJECT:
-      run_after (self);
-      break;
-    default:
-      cancel_after (self);
-      break;
-    }
-}
-
-/* Runs @after now, or once the user has saved or discarded the changes. */
-static void
-ask_then (SwWindow *self, AfterSave after, GFile *file)
-{
-  g_autofree char *title = NULL;
-  GtkWidget *dialog, *discard;
-
-  self->after = after;
-  g_set_object (&self->after_file, file);
-  if (!sw_document_get_modified (self->document))
-    {
-      run_after (self);
-      return;
-    }
-  title = sw_document_dup_title (self->document);
-  dialog = gtk_message_dialog_new (GTK_WINDOW (self),
-                                   GTK_DIALOG_MODAL | GTK_DIALOG_DESTROY_WITH_PARENT,
-                                   GTK_MESSAGE_QUESTION, GTK_BUTTONS_NONE,
-                                   _("Save the changes to “%s”?"), title);
-  gtk_message_dialog_format_secondary_text (GTK_MESSAGE_DIALOG (dialog), "%s",
-                                            _("Changes that are not saved will be lost."));
-  gtk_dialog_add_button (GTK_DIALOG (dialog), _("_Cancel"), GTK_RESPONSE_CANCEL);
-  discard = gtk_dialog_add_button (GTK_DIALOG (dialog), _("_Discard"), GTK_RESPONSE_REJECT);
-  gtk_widget_add_css_class (discard, "destructive-action");
-  gtk_dialog_add_button (GTK_DIALOG (dialog), _("_Save"), GTK_RESPONSE_ACCEPT);
-  gtk_dialog_set_default_response (GTK_DIALOG (dialog), GTK_RESPONSE_ACCEPT);
-  g_signal_connect_swapped (dialog, "response", G_CALLBACK (question_response_cb), self);
-  gtk_window_present (GTK_WINDOW (dialog));
+  return sw_file_flow_save_to (self->file_flow, file, error);
 }
 
 void
@@ -681,38 +379,32 @@ sw_window_close_discarding (SwWindow *self)
 static void
 new_action (GtkWidget *widget, const char *name, GVariant *param)
 {
-  ask_then (SW_WINDOW (widget), AFTER_NEW, NULL);
+  sw_file_flow_ask_then (SW_WINDOW (widget)->file_flow, SW_FILE_FLOW_NEW, NULL);
 }
 
 static void
 open_action (GtkWidget *widget, const char *name, GVariant *param)
 {
-  ask_then (SW_WINDOW (widget), AFTER_OPEN, NULL);
+  sw_file_flow_ask_then (SW_WINDOW (widget)->file_flow, SW_FILE_FLOW_OPEN, NULL);
 }
 
 static void
 open_recent_action (GtkWidget *widget, const char *name, GVariant *param)
 {
   g_autoptr (GFile) file = g_file_new_for_uri (g_variant_get_string (param, NULL));
-  ask_then (SW_WINDOW (widget), AFTER_OPEN_FILE, file);
+  sw_file_flow_ask_then (SW_WINDOW (widget)->file_flow, SW_FILE_FLOW_OPEN_FILE, file);
 }
 
 static void
 save_action (GtkWidget *widget, const char *name, GVariant *param)
 {
-  SwWindow *self = SW_WINDOW (widget);
-
-  cancel_after (self);
-  save (self);
+  sw_file_flow_save (SW_WINDOW (widget)->file_flow);
 }
 
 static void
 save_as_action (GtkWidget *widget, const char *name, GVariant *param)
 {
-  SwWindow *self = SW_WINDOW (widget);
-
-  cancel_after (self);
-  show_save_as (self);
+  sw_file_flow_save_as (SW_WINDOW (widget)->file_flow);
 }
 
 static void
@@ -989,6 +681,7 @@ sw_window_set_ephemeral (SwWindow *self)
   g_return_if_fail (SW_IS_WINDOW (self));
 
   self->ephemeral = TRUE;
+  sw_file_flow_set_ephemeral (self->file_flow, TRUE);
   g_settings_unbind (self, "default-width");
   g_settings_unbind (self, "default-height");
   g_settings_unbind (self, "maximized");
@@ -1012,7 +705,7 @@ sw_window_close_request (GtkWindow *window)
 
   if (!self->closing && !self->ephemeral && sw_document_get_modified (self->document))
     {
-      ask_then (self, AFTER_CLOSE, NULL);
+      sw_file_flow_ask_then (self->file_flow, SW_FILE_FLOW_CLOSE, NULL);
       return TRUE;
     }
   /* A clean close: the work is saved or was discarded on purpose. */
@@ -1054,11 +747,9 @@ sw_window_dispose (GObject *object)
   if (self->recovery != NULL && self->closing)
     sw_recovery_disable (self->recovery);
   g_clear_object (&self->recovery);
-  if (self->chooser != NULL)
-    {
-      gtk_native_dialog_destroy (self->chooser);
-      g_clear_object (&self->chooser);
-    }
+  if (self->file_flow != NULL)
+    sw_file_flow_abandon (self->file_flow);
+  g_clear_object (&self->file_flow);
   if (self->solver != NULL)
     g_signal_handlers_disconnect_by_func (self->solver, solved_cb, self);
   g_clear_object (&self->solver);
@@ -1067,10 +758,7 @@ sw_window_dispose (GObject *object)
   g_clear_object (&self->document);
   g_clear_pointer (&self->result, sw_analysis_unref);
   g_clear_pointer (&self->drag_base, sw_design_free);
-  g_clear_object (&self->after_file);
   g_clear_object (&self->settings);
-  g_signal_handlers_disconnect_by_func (gtk_recent_manager_get_default (),
-                                        rebuild_recent_menu, self);
   gtk_widget_dispose_template (GTK_WIDGET (self), SW_TYPE_WINDOW);
   G_OBJECT_CLASS (sw_window_parent_class)->dispose (object);
 }
@@ -1233,11 +921,13 @@ sw_window_init (SwWindow *self)
                             G_CALLBACK (selected_stage_cb), self);
   selected_stage_cb (self);
 
-  g_signal_connect_swapped (gtk_recent_manager_get_default (), "changed",
-                            G_CALLBACK (rebuild_recent_menu), self);
-  rebuild_recent_menu (self);
-
   self->recovery = sw_recovery_new (self->document);
+  self->file_flow = sw_file_flow_new (GTK_WINDOW (self), self->document, self->recovery,
+                                      self->settings, self->recent_menu);
+  g_signal_connect_swapped (self->file_flow, "message", G_CALLBACK (flow_message_cb), self);
+  g_signal_connect_swapped (self->file_flow, "reset", G_CALLBACK (flow_reset_cb), self);
+  g_signal_connect_swapped (self->file_flow, "close",
+                            G_CALLBACK (sw_window_close_discarding), self);
   check_recovery (self);
 
   update_title (self);

@@ -72,7 +72,9 @@ sw_cli_sensitivity (int argc, char **argv)
     }
   sw_analysis_options_init (&o);
   o.montecarlo = FALSE;
-  o.ascent = FALSE;
+  /* The ascent phase closes the loop of a simulate design, whose
+   * sensitivities are then the closed loop's (the analysis says which). */
+  o.ascent = TRUE;
   o.sensitivity_step = opt_step / 100.0;
   if ((a = sw_cli_analyse (argv[1], &o, &code)) == NULL)
     return code;
@@ -98,6 +100,9 @@ sw_cli_sensitivity (int argc, char **argv)
       json_builder_add_boolean_value (b, t.feasible);
       sw_cli_add_number (b, "liftoff_mass_kg", t.liftoff_mass_kg);
       sw_cli_add_number (b, "step_percent", t.step * 100.0);
+      sw_cli_add_number (b, "losses_used_m_s", a->trade_losses_m_s);
+      json_builder_set_member_name (b, "losses_from_closed_loop");
+      json_builder_add_boolean_value (b, a->trade_losses_simulated);
       json_builder_set_member_name (b, "parameters");
       json_builder_begin_array (b);
       for (guint r = 0; r < t.n_items; r++)
@@ -153,8 +158,11 @@ sw_cli_sensitivity (int argc, char **argv)
       g_print (_("The design is infeasible: no sensitivities.\n\n%s\n"), sw_format_cautions ());
       return SW_EXIT_OK;
     }
-  g_print (_("Liftoff mass %s kg; tornado step +-%g %%, largest effect first\n\n"),
+  g_print (_("Liftoff mass %s kg; tornado step +-%g %%, largest effect first\n"),
            sw_cli_num (t.liftoff_mass_kg, 1), t.step * 100.0);
+  if (a->trade_losses_note[0] != '\0')
+    g_print ("%s\n", a->trade_losses_note);
+  g_print ("\n");
   g_print ("%-3s %-40s %12s %14s %-9s %10s %12s %12s\n", "#", "parameter", "value", "dm0/dx",
            "unit", "elasticity", "-step kg", "+step kg");
   for (guint r = 0; r < t.n_items; r++)
@@ -377,7 +385,8 @@ sw_cli_montecarlo (int argc, char **argv)
   if (opt_simulate)
     return montecarlo_simulated (d, argv[1]);
   sw_analysis_options_init (&o);
-  o.ascent = FALSE;
+  /* A simulate design: the closed loop's losses, not the first guess. */
+  o.ascent = d->mission.kind == SW_MISSION_ORBIT && d->mission.loss_model == SW_LOSS_SIMULATE;
   o.band = FALSE;
   o.montecarlo_always = TRUE;
   o.montecarlo_samples = (guint) opt_samples;
@@ -419,6 +428,9 @@ sw_cli_montecarlo (int argc, char **argv)
       sw_cli_add_number (b, "nominal_liftoff_mass_kg", mc.nominal_liftoff_kg);
       sw_cli_add_number (b, "required_payload_kg", mc.required_payload_kg);
       sw_cli_add_number (b, "nominal_delta_v_m_s", mc.nominal_delta_v_m_s);
+      sw_cli_add_number (b, "losses_used_m_s", a->trade_losses_m_s);
+      json_builder_set_member_name (b, "losses_from_closed_loop");
+      json_builder_add_boolean_value (b, a->trade_losses_simulated);
       add_summary (b, "liftoff_mass_kg", &mc.liftoff);
       sw_cli_add_number (b, "infeasible_fraction", mc.infeasible_fraction);
       add_summary (b, "fixed_vehicle_payload_kg", &mc.payload);
@@ -435,6 +447,8 @@ sw_cli_montecarlo (int argc, char **argv)
 
   g_print (_("Design: %s\n"), d->name);
   g_print (_("%u samples, seed %u, %u thread(s)\n"), mc.samples, mc.seed, mc.threads);
+  if (a->trade_losses_note[0] != '\0')
+    g_print ("%s\n", a->trade_losses_note);
   g_print (_("Spreads: Isp %s; structural coefficient %s; losses %s\n\n"),
            spread_text (&mc.spreads.isp, "%", b1, sizeof b1),
            spread_text (&mc.spreads.structural_coefficient, "%", b2, sizeof b2),

@@ -421,12 +421,14 @@ sw_stack_draw_panel (cairo_t *cr, const SwDesign *design, const SwSizing *sizing
         else if (i < n)
           {
             title = g_strdup_printf ("%u %s", i + 1, design->stages[i].name);
-            mass = sw_format_mass (cur.stage_kg[i]);
+            g_autofree char *m = sw_format_mass (cur.stage_kg[i]);
+            mass = sw_stack_glue_units (m);
           }
         else
           {
             title = g_strdup (_("Payload"));
-            mass = sw_format_mass (cur.payload_kg);
+            g_autofree char *m = sw_format_mass (cur.payload_kg);
+            mass = sw_stack_glue_units (m);
           }
         if (isfinite (label_y[i]))
           {
@@ -442,4 +444,54 @@ sw_stack_draw_panel (cairo_t *cr, const SwDesign *design, const SwSizing *sizing
                     PANGO_ALIGN_LEFT);
       }
   }
+}
+
+static gboolean
+is_word_char (gunichar c)
+{
+  return g_unichar_isalpha (c) || c == ')' || c == '%';
+}
+
+static gboolean
+starts_number (const char *p)
+{
+  gunichar c = g_utf8_get_char (p);
+
+  if (g_unichar_isdigit (c))
+    return TRUE;
+  /* A sign before a digit, or the em dash that stands for no value. */
+  if (c == '-' || c == '+' || c == 0x2212 /* − */)
+    return g_unichar_isdigit (g_utf8_get_char (g_utf8_next_char (p)));
+  return c == 0x2014;
+}
+
+char *
+sw_stack_glue_units (const char *text)
+{
+  GString *out;
+  gunichar prev = 0;
+
+  g_return_val_if_fail (text != NULL, NULL);
+
+  out = g_string_sized_new (strlen (text) + 16);
+  for (const char *p = text; *p != '\0'; p = g_utf8_next_char (p))
+    {
+      gunichar c = g_utf8_get_char (p);
+      const char *next = g_utf8_next_char (p);
+      gunichar n = g_utf8_get_char (next);
+
+      if (c == ' '
+          && ((g_unichar_isdigit (prev) && (g_unichar_isalpha (n) || g_unichar_isdigit (n)
+                                            || n == '%' || n == 0x00B0 /* ° */))
+              || (is_word_char (prev) && starts_number (next))))
+        g_string_append_unichar (out, 0x00A0);   /* no-break space */
+      else
+        {
+          g_string_append_unichar (out, c);
+          if (c == '/' && g_unichar_isalpha (prev) && g_unichar_isalpha (n))
+            g_string_append_unichar (out, 0x2060);   /* word joiner */
+        }
+      prev = c;
+    }
+  return g_string_free (out, FALSE);
 }

@@ -91,6 +91,15 @@ void     sw_stack_draw_part (cairo_t *cr, const SwStackGeometry *g, guint i,
 void     sw_stack_draw (cairo_t *cr, const SwStackGeometry *g, const SwStackStyle *st,
                         gboolean outline_only);
 
+/* A copy of @text (plain or Pango markup) where a number keeps to its unit
+ * and to the word before it: the space after a digit ("2,007 m/s"), the
+ * space between a word and a number ("Δv 2,007", "T/W 1.35") become no-break
+ * spaces, and a slash between letters ("m/s") gets a word joiner, so a
+ * wrapped label never breaks as "Δv 2,007 m/" + "s".  The formatter's own
+ * text (a plain space, compared literally by many tests) is left alone;
+ * drawings convert here. */
+char    *sw_stack_glue_units (const char *text);
+
 /* The sheet's panel inside (x, y, w, h): the design's stack, the baseline's
  * dashed outline beside it at the same scale (@baseline may be NULL), the
  * stage names and masses to the right. */

@@ -327,6 +327,50 @@ update_verdict (SwAnalysis *r)
   }
 }
 
+/* ---- which losses the trade studies used -------------------------------- */
+
+/* The note of a design whose trade studies use its allowance as given; for a
+ * simulate design, says it is the first guess and why. */
+/* A stage with a fixed propellant load: no sensitivities or Monte Carlo
+ * (they resize every stage), so there is no loss basis to state. */
+static gboolean
+sizing_has_fixed (const SwSizing *sizing)
+{
+  for (guint i = 0; i < sizing->n_stages; i++)
+    if (sizing->stages[i].fixed)
+      return TRUE;
+  return FALSE;
+}
+
+static void
+note_trade_losses (SwAnalysis *r)
+{
+  const SwMission *m = &r->design->mission;
+  g_autofree char *v = NULL;
+
+  r->trade_losses_note[0] = '\0';
+  r->trade_losses_simulated = FALSE;
+  r->trade_losses_m_s = m->kind == SW_MISSION_ORBIT ? (m->has_losses ? m->losses_m_s : 0.0)
+                                                    : NAN;
+  if (m->kind != SW_MISSION_ORBIT || m->loss_model != SW_LOSS_SIMULATE
+      || sizing_has_fixed (&r->sizing))
+    return;
+  v = sw_format_speed (r->trade_losses_m_s);
+  if (r->ascent_pending)
+    /* Translators: %s is a speed such as "1,600 m/s" */
+    g_snprintf (r->trade_losses_note, sizeof r->trade_losses_note,
+                _("Sensitivities and Monte Carlo use the first-guess allowance of %s of losses "
+                  "until the simulated ascent closes the loop."), v);
+  else if (r->phase == 2)
+    g_snprintf (r->trade_losses_note, sizeof r->trade_losses_note,
+                _("Sensitivities and Monte Carlo use the first-guess allowance of %s of losses: "
+                  "the closed loop gave no sizing."), v);
+  else
+    g_snprintf (r->trade_losses_note, sizeof r->trade_losses_note,
+                _("Sensitivities and Monte Carlo use the first-guess allowance of %s of losses: "
+                  "the ascent was not simulated."), v);
+}
+
 /* ---- phase 1: fast ------------------------------------------------------- */
 
 /* Thrust-to-weight per stage from the sized masses, and whether the design
@@ -426,6 +470,7 @@ sw_analysis_new (const SwDesign *design, guint64 serial, const SwAnalysisOptions
   r->simulated_margin_m_s = NAN;
   r->montecarlo_success = NAN;
   r->headroom_m_s = NAN;
+  r->trade_losses_m_s = NAN;
 
   if (!sw_design_validate (design, NULL, &error)
       || !sw_design_required_delta_v (design, &r->delta_v_m_s, &error)
@@ -444,6 +489,7 @@ sw_analysis_new (const SwDesign *design, guint64 serial, const SwAnalysisOptions
   sw_sweep_compute (design, SW_SWEEP_CURVES, SW_SWEEP_POINTS, &r->sweep);
   prepare_ascent (r);
   prepare_trade (r);
+  note_trade_losses (r);
   update_verdict (r);
 
   if (g_cancellable_is_cancelled (cancellable))
@@ -462,25 +508,21 @@ sw_analysis_compute (const SwDesign *design, guint64 serial, GCancellable *cance
 
 /* ---- phase 2: Monte Carlo ------------------------------------------------ */
 
-SwAnalysis *
-sw_analysis_add_montecarlo (const SwAnalysis *prev, GCancellable *cancellable)
+/* The Monte Carlo and its band for @design (the analysis's design, or for a
+ * closed loop a copy carrying the closed loop's losses). */
+static void
+run_montecarlo (SwAnalysis *r, const SwDesign *design, GCancellable *cancellable)
 {
   g_autoptr (GError) error = NULL;
-  const SwAnalysisOptions *o;
-  const SwUncertainty *unc;
-  SwAnalysis *r;
+  const SwAnalysisOptions *o = &r->options;
+  const SwUncertainty *unc = &design->uncertainty;
 
-  g_return_val_if_fail (prev != NULL && prev->ok && prev->montecarlo_pending, NULL);
-
-  r = sw_analysis_copy (prev);
-  r->montecarlo_pending = FALSE;
-  r->phase = MAX (r->phase, 1);
-  o = &r->options;
-  unc = &r->design->uncertainty;
-
+  r->has_band = FALSE;
+  r->montecarlo_success = NAN;
+  r->montecarlo_error[0] = '\0';
   /* The core looks at the cancellable before every block of samples, so a
    * newer edit abandons even a million-sample run within a block. */
-  r->has_montecarlo = sw_montecarlo_run_cancellable (r->design, NULL, o->montecarlo_samples,
+  r->has_montecarlo = sw_montecarlo_run_cancellable (design, NULL, o->montecarlo_samples,
                                                      o->montecarlo_use_seed, o->montecarlo_seed,
                                                      o->threads, &r->montecarlo, NULL, NULL,
                                                      cancellable, &error);
@@ -489,13 +531,36 @@ sw_analysis_add_montecarlo (const SwAnalysis *prev, GCancellable *cancellable)
   /* A lighter run per stage count: the band is a picture, not a figure. */
   if (r->has_montecarlo && o->band)
     r->has_band = sw_montecarlo_band_cancellable (
-      r->design, NULL, SW_MAX_STAGES,
+      design, NULL, SW_MAX_STAGES,
       MIN (o->montecarlo_samples > 0 ? o->montecarlo_samples : sw_uncertainty_samples (unc),
            o->band_samples),
       o->montecarlo_use_seed ? o->montecarlo_seed : sw_uncertainty_seed (unc), o->threads,
       &r->band, cancellable, &error);
   if (error != NULL)
     g_strlcpy (r->montecarlo_error, error->message, sizeof r->montecarlo_error);
+}
+
+SwAnalysis *
+sw_analysis_add_montecarlo (const SwAnalysis *prev, GCancellable *cancellable)
+{
+  SwAnalysis *r;
+
+  g_return_val_if_fail (prev != NULL && prev->ok && prev->montecarlo_pending, NULL);
+
+  r = sw_analysis_copy (prev);
+  r->montecarlo_pending = FALSE;
+  r->phase = MAX (r->phase, 1);
+  if (r->trade_losses_simulated)
+    {
+      /* The ascent phase came first and closed the loop: its losses. */
+      g_autoptr (SwDesign) looped = sw_design_copy (r->design);
+
+      looped->mission.losses_m_s = r->trade_losses_m_s;
+      looped->mission.has_losses = TRUE;
+      run_montecarlo (r, looped, cancellable);
+    }
+  else
+    run_montecarlo (r, r->design, cancellable);
   if (g_cancellable_is_cancelled (cancellable))
     {
       sw_analysis_unref (r);
@@ -528,6 +593,7 @@ sw_analysis_add_ascent (const SwAnalysis *prev, GCancellable *cancellable)
   if (ascent == NULL)
     {
       g_strlcpy (r->ascent_message, error->message, sizeof r->ascent_message);
+      note_trade_losses (r);
       update_verdict (r);
       return r;
     }
@@ -542,6 +608,8 @@ sw_analysis_add_ascent (const SwAnalysis *prev, GCancellable *cancellable)
   if (ascent->closed_loop && ascent->loop_converged && ascent->sizing.feasible
       && ascent->sizing.n_stages == prev->sizing.n_stages)
     {
+      gboolean fixed = sizing_has_fixed (&ascent->sizing);
+
       r->sizing = ascent->sizing;
       r->delta_v_m_s = ascent->sizing.delta_v_m_s;
       r->headroom_m_s = r->sizing.margin_m_s;
@@ -555,7 +623,38 @@ sw_analysis_add_ascent (const SwAnalysis *prev, GCancellable *cancellable)
       compare_with_baseline (r);
       r->has_stage_figures = sw_ascent_stage_figures (r->design, &r->sizing, r->stage_figures,
                                                       NULL);
+      /* One loss model everywhere: the trade studies again, with the
+       * closed loop's losses (the design as sized by the loop); a fixed
+       * propellant load has none (see prepare_trade). */
+      if (!fixed)
+        {
+          g_autoptr (SwDesign) looped = sw_design_copy (r->design);
+          g_autofree char *v = NULL;
+
+          looped->mission.losses_m_s = ascent->loop_sized_losses_m_s;
+          looped->mission.has_losses = TRUE;
+          r->has_sensitivity = sw_sensitivity_compute (looped, r->sensitivity_step,
+                                                       &r->sensitivity, NULL)
+                               && r->sensitivity.feasible;
+          if (r->has_montecarlo)
+            {
+              run_montecarlo (r, looped, cancellable);
+              if (g_cancellable_is_cancelled (cancellable))
+                {
+                  sw_analysis_unref (r);
+                  return NULL;
+                }
+            }
+          r->trade_losses_m_s = ascent->loop_sized_losses_m_s;
+          r->trade_losses_simulated = TRUE;
+          v = sw_format_speed (r->trade_losses_m_s);
+          /* Translators: %s is a speed such as "1,868.7 m/s" */
+          g_snprintf (r->trade_losses_note, sizeof r->trade_losses_note,
+                      _("Sensitivities and Monte Carlo use the closed-loop losses of %s."), v);
+        }
     }
+  else
+    note_trade_losses (r);
   update_verdict (r);
   return r;
 }

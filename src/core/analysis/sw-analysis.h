@@ -138,6 +138,18 @@ struct _SwAnalysis {
   SwMcBand  band;
   char      montecarlo_error[SW_ANALYSIS_TEXT_MAX];
 
+  /* Which losses the sensitivities and the Monte Carlo used (the
+   * reliability model has no loss term).  For a "loss_model": "simulate"
+   * design they use the first-guess allowance until the ascent phase closes
+   * the loop, which then recomputes them with the closed-loop losses.
+   * trade_losses_m_s: the allowance used (NAN for a delta-v mission);
+   * trade_losses_simulated: TRUE once it is the closed loop's;
+   * trade_losses_note: one plain sentence for the views, the sheet and the
+   * command line ("" for an allowance design, where nothing needs saying). */
+  double    trade_losses_m_s;
+  gboolean  trade_losses_simulated;
+  char      trade_losses_note[SW_ANALYSIS_TEXT_MAX];
+
   /*< private >*/
   SwAnalysisHeld *held_design;
   SwAnalysisHeld *held_ascent;

@@ -769,13 +769,6 @@ sw_design_validate (const SwDesign *design, const char *filename, GError **error
 
 /* ---- saving ------------------------------------------------------------ */
 
-static void
-add_double (JsonBuilder *b, const char *key, double value)
-{
-  json_builder_set_member_name (b, key);
-  json_builder_add_double_value (b, value);
-}
-
 /* Version 1 unless a key of version 2 is used (by the design or its baseline). */
 static int
 design_format_version (const SwDesign *d)
@@ -805,22 +798,22 @@ build_design (JsonBuilder *b, const SwDesign *d, gboolean is_baseline)
       json_builder_set_member_name (b, "notes");
       json_builder_add_string_value (b, d->notes);
     }
-  add_double (b, "payload_kg", d->payload_kg);
+  sw_optional_add_number (b, "payload_kg", d->payload_kg);
 
   json_builder_set_member_name (b, "mission");
   json_builder_begin_object (b);
   if (d->mission.kind == SW_MISSION_DELTA_V)
-    add_double (b, "delta_v_m_s", d->mission.delta_v_m_s);
+    sw_optional_add_number (b, "delta_v_m_s", d->mission.delta_v_m_s);
   else
     {
       json_builder_set_member_name (b, "orbit");
       json_builder_begin_object (b);
-      add_double (b, "altitude_km", d->mission.altitude_km);
-      add_double (b, "inclination_deg", d->mission.inclination_deg);
-      add_double (b, "site_latitude_deg", d->mission.site_latitude_deg);
+      sw_optional_add_number (b, "altitude_km", d->mission.altitude_km);
+      sw_optional_add_number (b, "inclination_deg", d->mission.inclination_deg);
+      sw_optional_add_number (b, "site_latitude_deg", d->mission.site_latitude_deg);
       json_builder_end_object (b);
       if (d->mission.has_losses)
-        add_double (b, "losses_m_s", d->mission.losses_m_s);
+        sw_optional_add_number (b, "losses_m_s", d->mission.losses_m_s);
       if (d->mission.loss_model == SW_LOSS_SIMULATE)
         {
           json_builder_set_member_name (b, "loss_model");
@@ -840,12 +833,12 @@ build_design (JsonBuilder *b, const SwDesign *d, gboolean is_baseline)
       json_builder_begin_object (b);
       json_builder_set_member_name (b, "name");
       json_builder_add_string_value (b, s->name);
-      add_double (b, "isp_vac_s", s->isp_vac_s);
+      sw_optional_add_number (b, "isp_vac_s", s->isp_vac_s);
       if (s->has_isp_sl)
-        add_double (b, "isp_sl_s", s->isp_sl_s);
-      add_double (b, "structural_coefficient", s->structural_coefficient);
+        sw_optional_add_number (b, "isp_sl_s", s->isp_sl_s);
+      sw_optional_add_number (b, "structural_coefficient", s->structural_coefficient);
       if (s->has_share)
-        add_double (b, "delta_v_share", s->delta_v_share);
+        sw_optional_add_number (b, "delta_v_share", s->delta_v_share);
       sw_propulsion_save_stage (b, &s->propulsion);
       sw_reliability_save_stage (b, &s->reliability);
       sw_propellant_save_stage (b, &s->propellant);

@@ -416,13 +416,6 @@ sw_economics_load_design (JsonObject *root, const char *file, const char *prefix
 }
 
 static void
-add_number (JsonBuilder *b, const char *key, double value)
-{
-  json_builder_set_member_name (b, key);
-  json_builder_add_double_value (b, value);
-}
-
-static void
 add_stage_list (JsonBuilder *b, const char *key, guint32 mask)
 {
   json_builder_set_member_name (b, key);
@@ -444,17 +437,17 @@ sw_economics_save_design (JsonBuilder *b, const SwEconomics *econ)
   json_builder_set_member_name (b, "economics");
   json_builder_begin_object (b);
   if (econ->has_work_year_cost)
-    add_number (b, "work_year_cost", econ->work_year_cost);
+    sw_optional_add_number (b, "work_year_cost", econ->work_year_cost);
   json_builder_set_member_name (b, "production_run");
   json_builder_add_int_value (b, econ->production_run);
-  add_number (b, "learning_rate", econ->learning_rate);
+  sw_optional_add_number (b, "learning_rate", econ->learning_rate);
   if (econ->coefficients_set != 0)
     {
       json_builder_set_member_name (b, "cost_coefficients");
       json_builder_begin_object (b);
       for (guint i = 0; i < SW_N_CER; i++)
         if ((econ->coefficients_set & (G_GUINT64_CONSTANT (1) << i)) != 0)
-          add_number (b, cer_table[i].key, econ->coefficients[i]);
+          sw_optional_add_number (b, cer_table[i].key, econ->coefficients[i]);
       json_builder_end_object (b);
     }
   if (econ->n_engine_types > 0)
@@ -467,7 +460,7 @@ sw_economics_save_design (JsonBuilder *b, const SwEconomics *econ)
           json_builder_begin_object (b);
           json_builder_set_member_name (b, "name");
           json_builder_add_string_value (b, t->name);
-          add_number (b, "dry_mass_kg", t->dry_mass_kg);
+          sw_optional_add_number (b, "dry_mass_kg", t->dry_mass_kg);
           add_stage_list (b, "on_stages", t->stage_mask);
           json_builder_set_member_name (b, "developed");
           json_builder_add_boolean_value (b, t->developed);
@@ -477,24 +470,24 @@ sw_economics_save_design (JsonBuilder *b, const SwEconomics *econ)
     }
   if (econ->developed_stages != 0)
     add_stage_list (b, "developed_stages", econ->developed_stages);
-  add_number (b, "engine_mass_fraction", econ->engine_mass_fraction);
+  sw_optional_add_number (b, "engine_mass_fraction", econ->engine_mass_fraction);
   json_builder_set_member_name (b, "recovery");
   json_builder_begin_object (b);
   json_builder_set_member_name (b, "mode");
   json_builder_add_string_value (b, sw_recovery_mode_to_string (econ->recovery_mode));
   if (econ->has_recovery_delta_v)
-    add_number (b, "recovery_delta_v_m_s", econ->recovery_delta_v_m_s);
-  add_number (b, "landing_hardware_fraction", econ->landing_hardware_fraction);
-  add_number (b, "refurbishment_fraction", econ->refurbishment_fraction);
+    sw_optional_add_number (b, "recovery_delta_v_m_s", econ->recovery_delta_v_m_s);
+  sw_optional_add_number (b, "landing_hardware_fraction", econ->landing_hardware_fraction);
+  sw_optional_add_number (b, "refurbishment_fraction", econ->refurbishment_fraction);
   json_builder_set_member_name (b, "flights_per_stage");
   json_builder_add_int_value (b, econ->flights_per_stage);
   json_builder_end_object (b);
   json_builder_set_member_name (b, "decision_weights");
   json_builder_begin_object (b);
-  add_number (b, "liftoff_mass", econ->weight_liftoff_mass);
-  add_number (b, "development", econ->weight_development);
-  add_number (b, "cost_per_flight", econ->weight_cost_per_flight);
-  add_number (b, "failure", econ->weight_failure);
+  sw_optional_add_number (b, "liftoff_mass", econ->weight_liftoff_mass);
+  sw_optional_add_number (b, "development", econ->weight_development);
+  sw_optional_add_number (b, "cost_per_flight", econ->weight_cost_per_flight);
+  sw_optional_add_number (b, "failure", econ->weight_failure);
   json_builder_end_object (b);
   json_builder_end_object (b);
 }

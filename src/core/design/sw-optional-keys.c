@@ -250,3 +250,10 @@ sw_optional_warn_unknown (JsonObject *obj, const char *file, const char *prefix,
 
   sw_optional_warn_unknown_full (obj, file, prefix, lists, warnings);
 }
+
+void
+sw_optional_add_number (JsonBuilder *builder, const char *key, double value)
+{
+  json_builder_set_member_name (builder, key);
+  json_builder_add_double_value (builder, value);
+}

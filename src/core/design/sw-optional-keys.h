@@ -66,4 +66,7 @@ const char *sw_optional_node_type_name (JsonNode *node);
 /* TRUE for a JSON number (integer or not). */
 gboolean sw_optional_node_is_number (JsonNode *node);
 
+/* Writes "key": value into the object being built. */
+void     sw_optional_add_number (JsonBuilder *builder, const char *key, double value);
+
 G_END_DECLS

@@ -201,27 +201,20 @@ sw_propellant_validate_stage (const SwStagePropellant *prop, const char *file,
   return TRUE;
 }
 
-static void
-add_number (JsonBuilder *b, const char *key, double value)
-{
-  json_builder_set_member_name (b, key);
-  json_builder_add_double_value (b, value);
-}
-
 void
 sw_propellant_save_stage (JsonBuilder *b, const SwStagePropellant *prop)
 {
   if (prop->has_propellant_kg)
-    add_number (b, "propellant_kg", prop->propellant_kg);
+    sw_optional_add_number (b, "propellant_kg", prop->propellant_kg);
   if (prop->kind == SW_PROPELLANT_CUSTOM)
     {
       json_builder_set_member_name (b, "propellant");
       json_builder_begin_object (b);
       json_builder_set_member_name (b, "name");
       json_builder_add_string_value (b, prop->custom_name);
-      add_number (b, "oxidizer_density_kg_m3", prop->oxidizer_density_kg_m3);
-      add_number (b, "fuel_density_kg_m3", prop->fuel_density_kg_m3);
-      add_number (b, "mixture_ratio", prop->custom_mixture_ratio);
+      sw_optional_add_number (b, "oxidizer_density_kg_m3", prop->oxidizer_density_kg_m3);
+      sw_optional_add_number (b, "fuel_density_kg_m3", prop->fuel_density_kg_m3);
+      sw_optional_add_number (b, "mixture_ratio", prop->custom_mixture_ratio);
       json_builder_end_object (b);
     }
   else if (sw_propellant_info (prop->kind) != NULL)
@@ -230,9 +223,9 @@ sw_propellant_save_stage (JsonBuilder *b, const SwStagePropellant *prop)
       json_builder_add_string_value (b, sw_propellant_info (prop->kind)->key);
     }
   if (prop->has_mixture_ratio)
-    add_number (b, "mixture_ratio", prop->mixture_ratio);
+    sw_optional_add_number (b, "mixture_ratio", prop->mixture_ratio);
   if (prop->has_ullage)
-    add_number (b, "ullage_fraction", prop->ullage_fraction);
+    sw_optional_add_number (b, "ullage_fraction", prop->ullage_fraction);
 }
 
 gboolean

@@ -308,22 +308,15 @@ sw_propulsion_validate_design (const SwDesignAscent *a, const char *file, GError
   return TRUE;
 }
 
-static void
-add_number (JsonBuilder *b, const char *key, double value)
-{
-  json_builder_set_member_name (b, key);
-  json_builder_add_double_value (b, value);
-}
-
 void
 sw_propulsion_save_stage (JsonBuilder *builder, const SwStagePropulsion *prop)
 {
   if (prop->has_thrust)
-    add_number (builder, "thrust_vac_kn", prop->thrust_vac_kn);
+    sw_optional_add_number (builder, "thrust_vac_kn", prop->thrust_vac_kn);
   if (prop->has_engine_thrust)
-    add_number (builder, "engine_thrust_vac_kn", prop->engine_thrust_vac_kn);
+    sw_optional_add_number (builder, "engine_thrust_vac_kn", prop->engine_thrust_vac_kn);
   if (prop->has_diameter)
-    add_number (builder, "diameter_m", prop->diameter_m);
+    sw_optional_add_number (builder, "diameter_m", prop->diameter_m);
   if (prop->n_drag > 0)
     {
       json_builder_set_member_name (builder, "drag_coefficients");
@@ -338,7 +331,7 @@ sw_propulsion_save_stage (JsonBuilder *builder, const SwStagePropulsion *prop)
       json_builder_end_array (builder);
     }
   if (prop->has_coast)
-    add_number (builder, "coast_before_ignition_s", prop->coast_before_ignition_s);
+    sw_optional_add_number (builder, "coast_before_ignition_s", prop->coast_before_ignition_s);
 }
 
 void
@@ -349,20 +342,20 @@ sw_propulsion_save_design (JsonBuilder *builder, const SwDesignAscent *a)
   json_builder_set_member_name (builder, "ascent");
   json_builder_begin_object (builder);
   if (a->has_fairing_mass)
-    add_number (builder, "fairing_mass_kg", a->fairing_mass_kg);
+    sw_optional_add_number (builder, "fairing_mass_kg", a->fairing_mass_kg);
   if (a->has_fairing_altitude)
-    add_number (builder, "fairing_jettison_altitude_km", a->fairing_jettison_altitude_km);
+    sw_optional_add_number (builder, "fairing_jettison_altitude_km", a->fairing_jettison_altitude_km);
   if (a->has_fairing_pressure)
-    add_number (builder, "fairing_jettison_dynamic_pressure_pa",
+    sw_optional_add_number (builder, "fairing_jettison_dynamic_pressure_pa",
                 a->fairing_jettison_dynamic_pressure_pa);
   if (a->has_pitch_over_speed)
-    add_number (builder, "pitch_over_speed_m_s", a->pitch_over_speed_m_s);
+    sw_optional_add_number (builder, "pitch_over_speed_m_s", a->pitch_over_speed_m_s);
   if (a->has_pitch_kick)
-    add_number (builder, "pitch_kick_deg", a->pitch_kick_deg);
+    sw_optional_add_number (builder, "pitch_kick_deg", a->pitch_kick_deg);
   if (a->has_insertion_altitude)
-    add_number (builder, "insertion_altitude_km", a->insertion_altitude_km);
+    sw_optional_add_number (builder, "insertion_altitude_km", a->insertion_altitude_km);
   if (a->has_max_q_alpha)
-    add_number (builder, "max_q_alpha_kpa_deg", a->max_q_alpha_kpa_deg);
+    sw_optional_add_number (builder, "max_q_alpha_kpa_deg", a->max_q_alpha_kpa_deg);
   json_builder_end_object (builder);
 }
 
