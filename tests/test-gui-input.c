@@ -334,6 +334,72 @@ test_wheel (void)
   sw_test_window_close (w);
 }
 
+/* The Trade study page's spin buttons (in the uncertainty popover): the
+ * wheel over one without focus changes nothing; with the focus in it, the
+ * wheel does edit (so the first check can fail). */
+static gboolean
+popover_mapped (gpointer data)
+{
+  return gtk_widget_get_mapped (GTK_WIDGET (data));
+}
+
+/* Moves the pointer to the middle of @widget in its own surface (a
+ * popover has one of its own). */
+static void
+point_at_native (GtkWidget *widget)
+{
+  GtkNative *native = gtk_widget_get_native (widget);
+  GdkSurface *surface = gtk_native_get_surface (native);
+  g_autofree char *xid = g_strdup_printf ("%lu", (unsigned long) gdk_x11_surface_get_xid (surface));
+  graphene_point_t in = GRAPHENE_POINT_INIT (gtk_widget_get_width (widget) / 2.0,
+                                             gtk_widget_get_height (widget) / 2.0);
+  graphene_point_t out;
+  double sx, sy;
+  g_autofree char *x = NULL, *y = NULL;
+
+  g_assert_true (gtk_widget_compute_point (widget, GTK_WIDGET (native), &in, &out));
+  gtk_native_get_surface_transform (native, &sx, &sy);
+  x = g_strdup_printf ("%d", (int) (out.x + sx));
+  y = g_strdup_printf ("%d", (int) (out.y + sy));
+  xdo ("mousemove", "--window", xid, x, y, NULL);
+}
+
+static void
+test_wheel_trade_page (void)
+{
+  SwWindow *w = window_with_demo ("small-sat-launcher.stagewright");
+  SwTradePage *page;
+  GtkWidget *samples, *seed, *popover;
+  g_autoptr (SwDesign) before = NULL;
+
+  g_assert_true (sw_window_show_page (w, "trade"));
+  sw_test_wait_until (sw_test_result_drawn, w, 60000, "the trade page to be drawn");
+  page = sw_window_get_trade_page (w);
+  samples = sw_trade_page_get_samples_field (page);
+  seed = sw_trade_page_get_seed_field (page);
+  popover = gtk_widget_get_ancestor (samples, GTK_TYPE_POPOVER);
+  g_assert_nonnull (popover);
+  gtk_popover_popup (GTK_POPOVER (popover));
+  sw_test_wait_until (popover_mapped, seed, 10000, "the uncertainty popover to open");
+  before = sw_design_copy (doc_design (w));
+  g_assert_true (gtk_widget_grab_focus (samples));
+  drain ();
+  point_at_native (seed);
+  xdo ("click", "--repeat", "3", "--delay", "30", "4", NULL);
+  assert_unchanged (w, before);
+  g_assert_cmpfloat (gtk_spin_button_get_value (GTK_SPIN_BUTTON (seed)), ==,
+                     (double) before->uncertainty.seed);
+
+  g_assert_true (gtk_widget_grab_focus (seed));
+  drain ();
+  point_at_native (seed);
+  xdo ("click", "--delay", "30", "4", NULL);
+  g_assert_cmpfloat (gtk_spin_button_get_value (GTK_SPIN_BUTTON (seed)), ==,
+                     (double) before->uncertainty.seed + 1.0);
+  gtk_popover_popdown (GTK_POPOVER (popover));
+  sw_test_window_close (w);
+}
+
 /* A vacuum Isp below the sea-level Isp: an error on both fields, and
  * neither value of the design moves. */
 static void
@@ -543,6 +609,7 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/input/decimal-comma", test_decimal_comma);
   g_test_add_func ("/gui/input/shortcut-in-field", test_shortcut_in_field);
   g_test_add_func ("/gui/input/wheel", test_wheel);
+  g_test_add_func ("/gui/input/wheel-trade-page", test_wheel_trade_page);
   g_test_add_func ("/gui/input/dependent-field", test_dependent_field);
   g_test_add_func ("/gui/input/undo-in-field", test_undo_in_field);
   g_test_add_func ("/gui/input/first-start", test_first_start);

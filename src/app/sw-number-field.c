@@ -702,3 +702,26 @@ sw_number_field_init (SwNumberField *self)
   g_signal_connect (controller, "scroll", G_CALLBACK (scroll_cb), self);
   gtk_widget_add_controller (GTK_WIDGET (self), controller);
 }
+
+static gboolean
+guard_scroll_cb (GtkEventControllerScroll *controller, double dx, double dy, gpointer data)
+{
+  GtkWidget *widget = gtk_event_controller_get_widget (GTK_EVENT_CONTROLLER (controller));
+  GtkRoot *root = gtk_widget_get_root (widget);
+  GtkWidget *focus = root != NULL ? gtk_root_get_focus (root) : NULL;
+
+  /* TRUE: handled here, so the spin button never sees an unfocused wheel. */
+  return focus == NULL || (focus != widget && !gtk_widget_is_ancestor (focus, widget));
+}
+
+void
+sw_number_field_guard_wheel (GtkWidget *widget)
+{
+  GtkEventController *controller;
+
+  g_return_if_fail (GTK_IS_WIDGET (widget));
+  controller = gtk_event_controller_scroll_new (GTK_EVENT_CONTROLLER_SCROLL_BOTH_AXES);
+  gtk_event_controller_set_propagation_phase (controller, GTK_PHASE_CAPTURE);
+  g_signal_connect (controller, "scroll", G_CALLBACK (guard_scroll_cb), NULL);
+  gtk_widget_add_controller (widget, controller);
+}

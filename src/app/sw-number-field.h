@@ -71,4 +71,9 @@ GtkWidget  *sw_number_field_get_entry (SwNumberField *self);
 gboolean    sw_number_parse (const char *text, const char *mark, const char *grouping,
                              double *value);
 
+/* For a GtkSpinButton still in use elsewhere: the wheel changes its value
+ * only while it has the keyboard focus (without focus the wheel is
+ * swallowed, never applied). */
+void sw_number_field_guard_wheel (GtkWidget *widget);
+
 G_END_DECLS

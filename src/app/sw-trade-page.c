@@ -5,6 +5,8 @@
 
 #include "sw-trade-page.h"
 
+#include "sw-number-field.h"
+
 #include "sw-design-fields.h"
 #include "sw-format.h"
 #include "sw-limits.h"
@@ -118,6 +120,7 @@ setup_spin (GtkSpinButton *spin, GtkLabel *unit, SwLimitId id, guint digits, dou
   gtk_spin_button_set_range (spin, l->min, l->max);
   gtk_spin_button_set_increments (spin, step, page);
   gtk_spin_button_set_numeric (spin, FALSE);
+  sw_number_field_guard_wheel (GTK_WIDGET (spin));
   gtk_editable_set_enable_undo (GTK_EDITABLE (spin), FALSE);
   gtk_editable_set_width_chars (GTK_EDITABLE (spin), digits > 0 ? 5 : 8);
   if (unit != NULL)
@@ -890,4 +893,18 @@ sw_trade_page_init (SwTradePage *self)
   self->updating--;
 
   show_result (self);
+}
+
+GtkWidget *
+sw_trade_page_get_samples_field (SwTradePage *self)
+{
+  g_return_val_if_fail (SW_IS_TRADE_PAGE (self), NULL);
+  return GTK_WIDGET (self->samples_spin);
+}
+
+GtkWidget *
+sw_trade_page_get_seed_field (SwTradePage *self)
+{
+  g_return_val_if_fail (SW_IS_TRADE_PAGE (self), NULL);
+  return GTK_WIDGET (self->seed_spin);
 }

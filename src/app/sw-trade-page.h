@@ -59,6 +59,9 @@ void       sw_trade_page_set_step (SwTradePage *self, double step);
 /* For tests and the screenshot: the widgets and what the plots were given
  * (for the result shown: while the page is not mapped, the last one shown). */
 SwPlot    *sw_trade_page_get_plot (SwTradePage *self, SwTradePlot which);
+/* The Monte Carlo samples and seed fields (for the tests). */
+GtkWidget *sw_trade_page_get_samples_field (SwTradePage *self);
+GtkWidget *sw_trade_page_get_seed_field (SwTradePage *self);
 GtkWidget *sw_trade_page_get_field (SwTradePage *self, SwTradeField field);
 const char *sw_trade_page_get_card_text (SwTradePage *self, SwTradeCard card);
 /* The tornado rows as drawn, top (largest effect) first: liftoff mass
