@@ -65,6 +65,7 @@ struct _SwStagingPage {
   Job            *running;      /* the newest job, until it is shown */
   Job            *shown;        /* the job whose figures are drawn */
   guint           progress_id;
+  SwAnalysis     *pending;      /* arrived while the page was hidden */
 };
 
 G_DEFINE_FINAL_TYPE (SwStagingPage, sw_staging_page, GTK_TYPE_WIDGET)
@@ -142,6 +143,22 @@ sw_staging_page_set_result (SwStagingPage *self, SwAnalysis *result)
 
   g_return_if_fail (SW_IS_STAGING_PAGE (self));
 
+  /* Hidden, the page only keeps the newest analysis and works when it is
+   * shown: the worker and the main thread stay free for the visible views. */
+  if (!gtk_widget_get_mapped (GTK_WIDGET (self)))
+    {
+      g_clear_pointer (&self->pending, sw_analysis_unref);
+      self->pending = result != NULL ? sw_analysis_ref (result) : NULL;
+      return;
+    }
+  /* The figures depend on the design only: a later phase of the same
+   * design (Monte Carlo, ascent) changes nothing here. */
+  if (result != NULL && result->design != NULL)
+    {
+      Job *last = self->running != NULL ? self->running : self->shown;
+      if (last != NULL && sw_design_equal (last->design, result->design))
+        return;
+    }
   if (self->running != NULL)
     {
       g_cancellable_cancel (self->running->cancellable);
@@ -661,6 +678,7 @@ sw_staging_page_dispose (GObject *object)
     g_cancellable_cancel (self->running->cancellable);
   g_clear_pointer (&self->running, job_unref);
   g_clear_pointer (&self->shown, job_unref);
+  g_clear_pointer (&self->pending, sw_analysis_unref);
   g_clear_handle_id (&self->progress_id, g_source_remove);
   g_clear_object (&self->document);
   g_clear_pointer (&self->scroller, gtk_widget_unparent);
@@ -668,9 +686,23 @@ sw_staging_page_dispose (GObject *object)
 }
 
 static void
+sw_staging_page_map (GtkWidget *widget)
+{
+  SwStagingPage *self = SW_STAGING_PAGE (widget);
+
+  GTK_WIDGET_CLASS (sw_staging_page_parent_class)->map (widget);
+  if (self->pending != NULL)
+    {
+      g_autoptr (SwAnalysis) pending = g_steal_pointer (&self->pending);
+      sw_staging_page_set_result (self, pending);
+    }
+}
+
+static void
 sw_staging_page_class_init (SwStagingPageClass *klass)
 {
   G_OBJECT_CLASS (klass)->dispose = sw_staging_page_dispose;
+  GTK_WIDGET_CLASS (klass)->map = sw_staging_page_map;
   gtk_widget_class_set_layout_manager_type (GTK_WIDGET_CLASS (klass), GTK_TYPE_BIN_LAYOUT);
   gtk_widget_class_set_css_name (GTK_WIDGET_CLASS (klass), "swstagingpage");
 }
