@@ -644,11 +644,11 @@ draw_carpet (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointer 
       if (tk->labelled && tk->text != NULL)
         show_text (cr, layout, tk->text, l - 4, sw_plot_axis_map (&ya, tk->value), 1.0, 0.5);
     }
-  xn = sw_carpet_param_dup_name (&c->x);
-  yn = sw_carpet_param_dup_name (&c->y);
+  xn = sw_carpet_param_dup_label (&c->x);
+  yn = sw_carpet_param_dup_label (&c->y);
   {
-    g_autofree char *axes = g_strdup_printf (_("x: %s   y: %s   hatched: the vehicle does not "
-                                               "close"),
+    g_autofree char *axes = g_strdup_printf (_("across: %s   up: %s   hatched: the vehicle "
+                                               "does not close"),
                                              xn, yn);
     show_text (cr, layout, axes, (l + r) / 2, height - 2, 0.5, 1.0);
   }

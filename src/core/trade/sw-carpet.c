@@ -92,6 +92,25 @@ sw_carpet_param_dup_name (const SwCarpetAxis *axis)
     }
 }
 
+char *
+sw_carpet_param_dup_label (const SwCarpetAxis *axis)
+{
+  switch (axis->kind)
+    {
+    case SW_CARPET_PARAM_PAYLOAD:
+      return g_strdup (_("Payload"));
+    case SW_CARPET_PARAM_DELTA_V:
+      return g_strdup (_("Mission delta-v"));
+    case SW_CARPET_PARAM_LOSSES:
+      return g_strdup (_("Loss allowance"));
+    case SW_CARPET_PARAM_ISP_VAC:
+      return g_strdup_printf (_("Vacuum Isp, stage %u"), axis->stage + 1);
+    case SW_CARPET_PARAM_STRUCTURAL_COEFFICIENT:
+    default:
+      return g_strdup_printf (_("Structural coefficient, stage %u"), axis->stage + 1);
+    }
+}
+
 static const char *const output_names[] = {
   [SW_CARPET_LIFTOFF_MASS] = "liftoff_mass",
   [SW_CARPET_PAYLOAD] = "payload",

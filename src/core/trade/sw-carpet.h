@@ -69,6 +69,8 @@ gboolean    sw_carpet_param_parse (const char *text, const SwDesign *design, SwC
                                    GError **error);
 /* The parameter's name as sw_carpet_param_parse() reads it (owned). */
 char       *sw_carpet_param_dup_name (const SwCarpetAxis *axis);
+/* The same in plain words for people ("Vacuum Isp, stage 3"), translated. */
+char       *sw_carpet_param_dup_label (const SwCarpetAxis *axis);
 const char *sw_carpet_output_to_string (SwCarpetOutput output);
 gboolean    sw_carpet_output_from_string (const char *text, SwCarpetOutput *output);
 /* Checks the axis's range against the parameter's limit and its count. */
