@@ -97,15 +97,35 @@ vehicle_limit (const SwStageSet *set)
   return limit;
 }
 
+/* GSL's Brent root of @fn bracketed by [lo, hi], to the given tolerances
+ * (at most 200 iterations). */
+static double
+brent_root (gsl_function *fn, double lo, double hi, double epsabs, double epsrel)
+{
+  gsl_root_fsolver *solver = gsl_root_fsolver_alloc (gsl_root_fsolver_brent);
+  int status = GSL_CONTINUE;
+  double x;
+
+  gsl_root_fsolver_set (solver, fn, lo, hi);
+  for (int iter = 0; iter < 200 && status == GSL_CONTINUE; iter++)
+    {
+      gsl_root_fsolver_iterate (solver);
+      lo = gsl_root_fsolver_x_lower (solver);
+      hi = gsl_root_fsolver_x_upper (solver);
+      status = gsl_root_test_interval (lo, hi, epsabs, epsrel);
+    }
+  x = gsl_root_fsolver_root (solver);
+  gsl_root_fsolver_free (solver);
+  return x;
+}
+
 gboolean
 sw_optimal_split (const SwStageSet *set, double delta_v_m_s,
                   double *stage_delta_v, double *multiplier_s_m)
 {
   OptimalParams params = { set, delta_v_m_s };
   gsl_function fn = { optimal_residual, &params };
-  gsl_root_fsolver *solver;
   double lo = 0.0, hi = 0.0, x = 0.0, sum;
-  int status = GSL_CONTINUE;
 
   g_return_val_if_fail (set != NULL && set->n_stages > 0, FALSE);
   g_return_val_if_fail (stage_delta_v != NULL, FALSE);
@@ -125,17 +145,7 @@ sw_optimal_split (const SwStageSet *set, double delta_v_m_s,
       return TRUE;
     }
 
-  solver = gsl_root_fsolver_alloc (gsl_root_fsolver_brent);
-  gsl_root_fsolver_set (solver, &fn, lo, hi);
-  for (int iter = 0; iter < 200 && status == GSL_CONTINUE; iter++)
-    {
-      gsl_root_fsolver_iterate (solver);
-      lo = gsl_root_fsolver_x_lower (solver);
-      hi = gsl_root_fsolver_x_upper (solver);
-      status = gsl_root_test_interval (lo, hi, 1e-9, 1e-10);
-    }
-  x = gsl_root_fsolver_root (solver);
-  gsl_root_fsolver_free (solver);
+  x = brent_root (&fn, lo, hi, 1e-9, 1e-10);
 
   /* Close the last rounding gap so the split delivers exactly delta_v. */
   sum = optimal_delta_v_at (set, x, stage_delta_v);
@@ -552,19 +562,8 @@ size_fixed (const SwStageSet *set, const double *fixed_kg, const SwDesign *names
       else
         {
           gsl_function fn = { fixed_residual, &fp };
-          gsl_root_fsolver *solver = gsl_root_fsolver_alloc (gsl_root_fsolver_brent);
-          int status = GSL_CONTINUE;
 
-          gsl_root_fsolver_set (solver, &fn, lo, hi);
-          for (int iter = 0; iter < 200 && status == GSL_CONTINUE; iter++)
-            {
-              gsl_root_fsolver_iterate (solver);
-              lo = gsl_root_fsolver_x_lower (solver);
-              hi = gsl_root_fsolver_x_upper (solver);
-              status = gsl_root_test_interval (lo, hi, 1e-10, 1e-12);
-            }
-          d = gsl_root_fsolver_root (solver);
-          gsl_root_fsolver_free (solver);
+          d = brent_root (&fn, lo, hi, 1e-10, 1e-12);
         }
     }
   if (p.sized.n_stages > 0)
