@@ -560,14 +560,15 @@ show_cards (SwTradePage *self, SwAnalysis *r)
     {
       const SwMonteCarlo *mc = &r->montecarlo;
       g_autofree char *reserve = sw_format_mass (mc->reserve_95_kg);
-      value = sw_format_percent (mc->p_negative_margin, 1);
+      /* What a manager asks: how likely is the payload carried as the vehicle
+       * is sized, and what reserve makes it 95 %. */
+      value = sw_format_probability (r->montecarlo_success);
       if (mc->reserve_95_kg > 0.0)
         /* Translators: %s is a mass */
-        detail = g_strdup_printf (_("A payload reserve of %s covers 95 %% of the samples"),
+        detail = g_strdup_printf (_("Holding back %s of payload capacity raises it to 95 %%"),
                                   reserve);
       else
-        detail = g_strdup (_("The 5th-percentile payload meets the target: no reserve "
-                             "needed"));
+        detail = g_strdup (_("No payload reserve is needed for a 95 percent chance"));
     }
   else
     {
