@@ -5,6 +5,8 @@
 
 #include "sw-csv-staging.h"
 
+#include "sw-csv-write.h"
+
 #include "sw-economics.h"
 #include "sw-format.h"
 #include "sw-limits.h"
@@ -16,22 +18,7 @@
 static void
 number (GString *s, double v, gboolean last)
 {
-  if (isfinite (v))
-    {
-      char buf[G_ASCII_DTOSTR_BUF_SIZE];
-      g_ascii_formatd (buf, sizeof buf, "%.15g", v);
-      g_string_append (s, buf);
-    }
-  g_string_append_c (s, last ? '\n' : ',');
-}
-
-static GString *
-begin (void)
-{
-  GString *s = g_string_new ("# ");
-  g_string_append (s, sw_format_cautions ());
-  g_string_append_c (s, '\n');
-  return s;
+  sw_csv_append_number (s, v, 15, last);
 }
 
 char *
@@ -43,7 +30,7 @@ sw_csv_staging_decision (const SwAnalysis *b)
   g_return_val_if_fail (b != NULL && b->design != NULL, NULL);
   if (!sw_staging_compute (b->design, SW_STAGING_MAX_STAGES, &st, NULL))
     return NULL;
-  s = begin ();
+  s = sw_csv_begin (NULL);
   g_string_append_printf (s, "# %s\n", st.weighting);
   g_string_append (s, "stage_count,closes,closes_recovered,liftoff_mass_kg,"
                       "liftoff_mass_recovered_kg,recovery_payload_penalty,"
@@ -101,7 +88,7 @@ sw_csv_carpet_text (const SwCarpet *c)
   g_autofree char *xn = sw_carpet_param_dup_name (&c->x);
   g_autofree char *yn = sw_carpet_param_dup_name (&c->y);
   gboolean effort = c->output == SW_CARPET_DEVELOPMENT || c->output == SW_CARPET_COST_PER_FLIGHT;
-  GString *s = begin ();
+  GString *s = sw_csv_begin (NULL);
 
   g_string_append_printf (s, "%s,%s,%s_%s,closes\n", xn, yn,
                           sw_carpet_output_to_string (c->output), effort ? "work_years" : "kg");

@@ -6,6 +6,7 @@
 #include "sw-csv.h"
 
 #include "sw-csv-staging.h"
+#include "sw-csv-write.h"
 #include "sw-format.h"
 
 #include <errno.h>
@@ -14,27 +15,10 @@
 #include <math.h>
 #include <string.h>
 
-static GString *
-csv_begin (const char *header)
-{
-  GString *s = g_string_new ("# ");
-  g_string_append (s, sw_format_cautions ());
-  g_string_append_c (s, '\n');
-  g_string_append (s, header);
-  g_string_append_c (s, '\n');
-  return s;
-}
-
 static void
 csv_number (GString *s, double v, gboolean last)
 {
-  if (isfinite (v))
-    {
-      char buf[G_ASCII_DTOSTR_BUF_SIZE];
-      g_ascii_formatd (buf, sizeof buf, "%.10g", v);
-      g_string_append (s, buf);
-    }
-  g_string_append_c (s, last ? '\n' : ',');
+  sw_csv_append_number (s, v, 10, last);
 }
 
 /* RFC 4180 quoting. */
@@ -61,7 +45,7 @@ char *
 sw_csv_stage_table (const SwAnalysis *b)
 {
   const SwSizing *sz = &b->sizing;
-  GString *s = csv_begin ("stage,name,isp_vac_s,structural_coefficient,delta_v_m_s,"
+  GString *s = sw_csv_begin ("stage,name,isp_vac_s,structural_coefficient,delta_v_m_s,"
                           "delta_v_share,mass_ratio,propellant_mass_kg,structural_mass_kg,"
                           "initial_mass_kg,burnout_mass_kg,feasible,unused,stage_success");
 
@@ -98,7 +82,7 @@ sw_csv_stage_table (const SwAnalysis *b)
 char *
 sw_csv_stage_curve (const SwAnalysis *b)
 {
-  GString *s = csv_begin ("stages,feasible,liftoff_mass_kg,delta_v_limit_m_s,"
+  GString *s = sw_csv_begin ("stages,feasible,liftoff_mass_kg,delta_v_limit_m_s,"
                           "liftoff_mass_p05_kg,liftoff_mass_p50_kg,liftoff_mass_p95_kg,"
                           "baseline_liftoff_mass_kg,mission_success");
 
@@ -122,7 +106,7 @@ sw_csv_stage_curve (const SwAnalysis *b)
 char *
 sw_csv_sweep (const SwAnalysis *b)
 {
-  GString *s = csv_begin ("stages,delta_v_m_s,liftoff_mass_kg");
+  GString *s = sw_csv_begin ("stages,delta_v_m_s,liftoff_mass_kg");
 
   for (guint c = 0; c < b->sweep.n_curves; c++)
     {
@@ -144,7 +128,7 @@ sw_csv_reliability (const SwAnalysis *b)
 
   if (!b->reliability.given)
     return NULL;
-  s = csv_begin ("stages,mission_success");
+  s = sw_csv_begin ("stages,mission_success");
   for (guint i = 0; i < b->reliability_curve.n_points; i++)
     {
       g_string_append_printf (s, "%u,", i + 1);
@@ -161,7 +145,7 @@ sw_csv_tornado (const SwAnalysis *b)
 
   if (!b->has_sensitivity || !t->feasible)
     return NULL;
-  s = csv_begin ("rank,parameter,stage,label,value,derivative_kg_per_unit,elasticity,"
+  s = sw_csv_begin ("rank,parameter,stage,label,value,derivative_kg_per_unit,elasticity,"
                  "step_percent,minus_step_kg,plus_step_kg,exchange_ratio_kg_per_kg");
   for (guint r = 0; r < t->n_items; r++)
     {
@@ -194,7 +178,7 @@ sw_csv_histogram (const SwAnalysis *b)
 
   if (!b->has_montecarlo)
     return NULL;
-  s = csv_begin ("quantity,bin,lower,upper,count");
+  s = sw_csv_begin ("quantity,bin,lower,upper,count");
   for (guint q = 0; q < 2; q++)
     {
       const SwMcSummary *sum = q == 0 ? &mc->liftoff : &mc->payload;
