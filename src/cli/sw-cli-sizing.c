@@ -76,6 +76,85 @@ add_phases (JsonBuilder *b, const SwDesign *d, const SwSizing *s)
   json_builder_end_array (b);
 }
 
+static void
+add_string_or_null (JsonBuilder *b, const char *key, const char *value)
+{
+  json_builder_set_member_name (b, key);
+  if (value != NULL && value[0] != '\0')
+    json_builder_add_string_value (b, value);
+  else
+    json_builder_add_null_value (b);
+}
+
+/* "vehicle_shape": the height of the whole vehicle, or why there is none. */
+static void
+add_vehicle_shape (JsonBuilder *b, const SwVehicleShape *v)
+{
+  json_builder_set_member_name (b, "vehicle_shape");
+  json_builder_begin_object (b);
+  json_builder_set_member_name (b, "complete");
+  json_builder_add_boolean_value (b, v->complete);
+  add_string_or_null (b, "reason", v->complete ? NULL : v->reason);
+  sw_cli_add_number (b, "height_m", v->height_m);
+  sw_cli_add_number (b, "max_diameter_m", v->max_diameter_m);
+  sw_cli_add_number (b, "fairing_diameter_m", v->fairing_diameter_m);
+  sw_cli_add_number (b, "fairing_length_m", v->fairing_length_m);
+  json_builder_end_object (b);
+}
+
+/* "eps_estimate": the structural coefficients of the mass-estimating
+ * relationships at their fixed point with the sizing. */
+static void
+add_eps_estimate (JsonBuilder *b, const SwDesign *d, const SwMassEstimate *m)
+{
+  json_builder_set_member_name (b, "eps_estimate");
+  json_builder_begin_object (b);
+  json_builder_set_member_name (b, "converged");
+  json_builder_add_boolean_value (b, m->ok);
+  add_string_or_null (b, "reason", m->ok ? NULL : m->reason);
+  json_builder_set_member_name (b, "iterations");
+  json_builder_add_int_value (b, m->iterations);
+  sw_cli_add_number (b, "liftoff_mass_kg", m->ok ? m->liftoff_mass_kg : NAN);
+  json_builder_set_member_name (b, "stages");
+  json_builder_begin_array (b);
+  for (guint i = 0; i < m->n_stages && i < d->n_stages; i++)
+    {
+      const SwStageEstimate *e = &m->stages[i];
+      gboolean shown = m->ok && e->estimated;
+
+      json_builder_begin_object (b);
+      json_builder_set_member_name (b, "name");
+      json_builder_add_string_value (b, d->stages[i].name);
+      json_builder_set_member_name (b, "estimated");
+      json_builder_add_boolean_value (b, shown);
+      add_string_or_null (b, "reason", e->estimated ? NULL : e->reason);
+      sw_cli_add_number (b, "structural_coefficient", shown ? e->structural_coefficient : NAN);
+      sw_cli_add_number (b, "design_structural_coefficient", e->design_coefficient);
+      sw_cli_add_number (b, "structural_mass_kg", shown ? e->structural_mass_kg : NAN);
+      sw_cli_add_number (b, "propellant_mass_kg", shown ? e->propellant_mass_kg : NAN);
+      sw_cli_add_number (b, "thrust_n", shown ? e->thrust_n : NAN);
+      json_builder_set_member_name (b, "thrust_assumed");
+      json_builder_add_boolean_value (b, e->thrust_assumed);
+      sw_cli_add_number (b, "area_ratio", shown ? e->area_ratio : NAN);
+      json_builder_set_member_name (b, "items_kg");
+      json_builder_begin_object (b);
+      for (guint k = 0; k < SW_N_MER; k++)
+        sw_cli_add_number (b, sw_mer_item_key (k), shown ? e->item_kg[k] : NAN);
+      json_builder_end_object (b);
+      json_builder_end_object (b);
+    }
+  json_builder_end_array (b);
+  json_builder_set_member_name (b, "sources");
+  json_builder_begin_object (b);
+  for (guint k = 0; k < SW_N_MER; k++)
+    {
+      json_builder_set_member_name (b, sw_mer_item_key (k));
+      json_builder_add_string_value (b, sw_mer_item_source (k));
+    }
+  json_builder_end_object (b);
+  json_builder_end_object (b);
+}
+
 static JsonNode *
 sizing_to_json (const SwAnalysis *a)
 {
@@ -134,19 +213,32 @@ sizing_to_json (const SwAnalysis *a)
       sw_cli_add_number (b, "burnout_mass_kg", r->burnout_mass_kg);
       json_builder_set_member_name (b, "fixed");
       json_builder_add_boolean_value (b, r->fixed);
-      if (d->stages[i].propellant.kind != SW_PROPELLANT_NONE)
+      if (d->stages[i].propellant.kind != SW_PROPELLANT_NONE && i < a->shape.n_stages)
         {
-          SwStageShape shape;
-          sw_sizing_stage_shape (d, s, i, &shape);
-          sw_cli_add_number (b, "propellant_volume_m3", shape.propellant_volume_m3);
-          sw_cli_add_number (b, "tank_volume_m3", shape.tank_volume_m3);
-          sw_cli_add_number (b, "length_m", shape.length_m);
-          sw_cli_add_number (b, "diameter_m", sw_stage_effective_diameter (d, i));
+          const SwStageGeometry *g = &a->shape.stages[i];
+          const SwStageShape *shape = &g->shape;
+          sw_cli_add_number (b, "propellant_volume_m3", shape->propellant_volume_m3);
+          sw_cli_add_number (b, "tank_volume_m3", shape->tank_volume_m3);
+          sw_cli_add_number (b, "oxidizer_tank_volume_m3", shape->oxidizer_tank_m3);
+          sw_cli_add_number (b, "fuel_tank_volume_m3",
+                             shape->solid ? NAN : shape->fuel_tank_m3);
+          sw_cli_add_number (b, "oxidizer_tank_length_m", shape->oxidizer_tank_length_m);
+          sw_cli_add_number (b, "fuel_tank_length_m",
+                             shape->solid ? NAN : shape->fuel_tank_length_m);
+          sw_cli_add_number (b, "intertank_length_m", shape->intertank_length_m);
+          sw_cli_add_number (b, "engine_section_length_m", shape->engine_section_length_m);
+          sw_cli_add_number (b, "length_m", shape->length_m);
+          sw_cli_add_number (b, "diameter_m", g->diameter_m);
+          sw_cli_add_number (b, "interstage_length_m",
+                             a->shape.complete && i + 1 < a->shape.n_stages
+                             ? g->interstage_length_m : NAN);
         }
       json_builder_end_object (b);
     }
   json_builder_end_array (b);
   add_phases (b, d, s);
+  add_vehicle_shape (b, &a->shape);
+  add_eps_estimate (b, d, &a->mass_estimate);
   json_builder_set_member_name (b, "caution");
   json_builder_add_string_value (b, sw_format_cautions ());
   json_builder_end_object (b);

@@ -483,6 +483,8 @@ sw_analysis_new (const SwDesign *design, guint64 serial, const SwAnalysisOptions
     }
   r->ok = TRUE;
   r->headroom_m_s = r->sizing.margin_m_s;
+  sw_vehicle_shape_compute (design, &r->sizing, &r->shape);
+  sw_mass_estimate_design (design, &r->mass_estimate);
   r->has_budget = design->mission.kind == SW_MISSION_ORBIT
                   && sw_design_budget (design, &r->budget, NULL);
   sw_stage_curve_compute (design, r->delta_v_m_s, SW_MAX_STAGES, &r->stage_curve);
@@ -614,6 +616,7 @@ sw_analysis_add_ascent (const SwAnalysis *prev, GCancellable *cancellable)
       r->delta_v_m_s = ascent->sizing.delta_v_m_s;
       r->headroom_m_s = r->sizing.margin_m_s;
       r->sized_by_ascent = TRUE;
+      sw_vehicle_shape_compute (r->design, &r->sizing, &r->shape);
       if (r->has_budget)
         {
           r->budget.losses_m_s = ascent->loop_sized_losses_m_s;

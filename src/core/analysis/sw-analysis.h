@@ -27,10 +27,12 @@
 #include "sw-comparison.h"
 #include "sw-curves.h"
 #include "sw-design.h"
+#include "sw-mass-estimate.h"
 #include "sw-montecarlo.h"
 #include "sw-reliability.h"
 #include "sw-sensitivity.h"
 #include "sw-sizing.h"
+#include "sw-vehicle-shape.h"
 
 G_BEGIN_DECLS
 
@@ -101,6 +103,12 @@ struct _SwAnalysis {
   /* The vehicle's delta-v limit with no payload less the required delta-v:
    * headroom to the asymptote, not a performance margin. */
   double    headroom_m_s;
+  /* The true shape of the sized vehicle (tank volumes, lengths, interstages,
+   * fairing, height), from the sizing in force. */
+  SwVehicleShape shape;
+  /* The structural coefficients estimated from mass-estimating relationships
+   * at a fixed point with the sizing (phase 1, the design's delta-v). */
+  SwMassEstimate mass_estimate;
 
   /* The ascent. */
   gboolean  has_stage_figures;

@@ -342,3 +342,50 @@ sw_design_clear_baseline (SwDesign *design)
   g_clear_pointer (&design->baseline, sw_design_free);
   return TRUE;
 }
+
+gboolean
+sw_design_accept_structural_coefficients (SwDesign *design, const double *eps, guint n,
+                                          gboolean *changed, GError **error)
+{
+  const SwLimit *lim = sw_limit_get (SW_LIMIT_STRUCTURAL_COEFFICIENT);
+  double rounded[SW_MAX_STAGES];
+  gboolean moved = FALSE;
+
+  g_return_val_if_fail (design != NULL && (eps != NULL || n == 0), FALSE);
+
+  if (changed != NULL)
+    *changed = FALSE;
+  if (n != design->n_stages)
+    {
+      g_set_error (error, SW_ERROR, SW_ERROR_RANGE,
+                   _("(design): %u estimated structural coefficients for %u stages"),
+                   n, design->n_stages);
+      return FALSE;
+    }
+  for (guint i = 0; i < n; i++)
+    {
+      if (isnan (eps[i]))
+        {
+          rounded[i] = design->stages[i].structural_coefficient;
+          continue;
+        }
+      rounded[i] = round (eps[i] * 1e4) / 1e4;
+      if (!isfinite (rounded[i]) || !sw_limit_contains (SW_LIMIT_STRUCTURAL_COEFFICIENT,
+                                                        rounded[i]))
+        {
+          g_set_error (error, SW_ERROR, SW_ERROR_RANGE,
+                       _("(design): stages[%u].structural_coefficient: the estimate %g is "
+                         "outside the accepted range %g to %g"),
+                       i, eps[i], lim->min, lim->max);
+          return FALSE;
+        }
+    }
+  for (guint i = 0; i < n; i++)
+    {
+      moved = moved || rounded[i] != design->stages[i].structural_coefficient;
+      design->stages[i].structural_coefficient = rounded[i];
+    }
+  if (changed != NULL)
+    *changed = moved;
+  return TRUE;
+}

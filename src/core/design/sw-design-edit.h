@@ -94,6 +94,16 @@ gboolean sw_design_set_mission_kind (SwDesign *design, SwMissionKind kind,
  * value (in (0, vacuum]) it starts at 0.9 of the vacuum Isp, rounded. */
 gboolean sw_design_set_stage_has_isp_sl (SwDesign *design, guint index, gboolean has_isp_sl);
 
+/* Takes estimated structural coefficients (@n values, one per stage; NAN
+ * keeps that stage's), each rounded to 4 decimals, the precision the window
+ * shows.  All or nothing: a count that differs from the stage count, or a
+ * value outside the limits table's range after rounding, returns FALSE with
+ * @error naming the key and the range, and the design is unchanged.  *changed
+ * (may be NULL) tells whether any coefficient moved. */
+gboolean sw_design_accept_structural_coefficients (SwDesign *design, const double *eps,
+                                                   guint n, gboolean *changed,
+                                                   GError **error);
+
 /* ---- the baseline ------------------------------------------------------ */
 
 /* The design as it is now becomes its own baseline (replacing any). */
