@@ -683,6 +683,141 @@ test_drawing_kept (void)
   gtk_window_destroy (GTK_WINDOW (window));
 }
 
+
+/* ---- the vehicle to scale ------------------------------------------------ */
+
+/* One stage of 100 t of LOX/RP-1 at 3.7 m (the reference notes' tank example,
+ * shared reference values "Bulk density and tanks": tanks 6.91 m and 4.19 m
+ * long), so the stage is 6.91 + 4.19 + 0.25 D + 0.6 D = 14.25 m long. */
+static const char *scale_design =
+  "{ \"format\": \"stagewright-design\", \"version\": 2, \"name\": \"S\", \"payload_kg\": 1000,"
+  "  \"mission\": { \"delta_v_m_s\": 1000 }, \"split\": \"optimal\","
+  "  \"stages\": [ { \"name\": \"A\", \"isp_vac_s\": 300, \"structural_coefficient\": 0.06,"
+  "                  \"propellant_kg\": 100000, \"propellant\": \"lox-kerosene\","
+  "                  \"mixture_ratio\": 2.56, \"diameter_m\": 3.7 } ] }";
+
+static gboolean
+near_color (const double a[4], const double b[4], double tol)
+{
+  return fabs (a[0] - b[0]) < tol && fabs (a[1] - b[1]) < tol && fabs (a[2] - b[2]) < tol;
+}
+
+/* Counts the pixels that differ from @bg (and from @stop when given) from
+ * (@x, @y) on in steps (@dx, @dy), until the first that does not. */
+static int
+run_length (cairo_surface_t *surface, int x, int y, int dx, int dy, const double bg[4],
+            const double *stop)
+{
+  int n = 0, w = cairo_image_surface_get_width (surface);
+  int h = cairo_image_surface_get_height (surface);
+
+  for (; x >= 0 && y >= 0 && x < w && y < h; x += dx, y += dy, n++)
+    {
+      double px[4];
+      widget_render_pixel (surface, x, y, px);
+      if (near_color (px, bg, 0.02) || (stop != NULL && near_color (px, stop, 0.03)))
+        break;
+    }
+  return n;
+}
+
+/* The stage's drawn length and diameter in pixels against the scale bar's
+ * drawn length: both measured on the rendered picture, so the check does not
+ * rest on the view's layout code.  Within 2 px and 1 %. */
+static void
+test_to_scale_pixels (void)
+{
+  g_autoptr (GError) error = NULL;
+  g_autoptr (SwDesign) d = sw_design_load_data (scale_design, -1, "s.stagewright", NULL, &error);
+  g_autoptr (SwAnalysis) result = NULL;
+  GtkWidget *view, *window;
+  cairo_surface_t *surface;
+  graphene_rect_t rc, bar;
+  double bg[4], fairing[4], bar_m, px_per_m, len_m, want;
+  int bar_px, len_px, dia_px, x, ground;
+
+  g_assert_no_error (error);
+  result = sw_analysis_compute (d, 1, NULL);
+  g_assert_true (result->ok && result->shape.complete);
+  len_m = result->shape.stages[0].shape.length_m;
+  g_assert_cmpfloat (fabs (len_m - (6.91 + 4.19 + 0.85 * 3.7)), <, 0.012);  /* reference notes */
+
+  view = sw_stack_view_new ();
+  sw_stack_view_set_result (SW_STACK_VIEW (view), result);
+  window = widget_render_show (view, WIDTH, HEIGHT);
+  sw_stack_view_set_to_scale (SW_STACK_VIEW (view), TRUE);
+  widget_render_settle ();
+  surface = widget_render_window (window);
+  widget_render_pixel (surface, 1, 1, bg);
+  g_assert_true (sw_stack_view_get_block_rect (SW_STACK_VIEW (view), 0, &rc));
+  g_assert_true (sw_stack_view_get_scale_bar (SW_STACK_VIEW (view), &bar, &bar_m));
+  g_assert_true (sw_stack_view_get_payload_rect (SW_STACK_VIEW (view), &(graphene_rect_t) { 0 }));
+  px_per_m = sw_stack_view_get_metre_scale (SW_STACK_VIEW (view));
+  g_assert_cmpfloat (px_per_m, >, 5.0);
+
+  /* The bar: from just above the ground line up its middle. */
+  ground = (int) floor (rc.origin.y + rc.size.height);
+  /* The bar is an outline with its lower half filled: its top is the
+   * highest drawn pixel of its middle column (searched up to a pixel above
+   * where the view says it ends; its label stands higher). */
+  {
+    int bx = (int) (bar.origin.x + bar.size.width / 2.0), top = ground;
+    for (int y = ground - 1; y >= (int) floor (bar.origin.y) - 1; y--)
+      {
+        double px[4];
+        widget_render_pixel (surface, bx, y, px);
+        if (!near_color (px, bg, 0.02))
+          top = y;
+      }
+    bar_px = ground - top;
+  }
+  /* The fairing's colour, from the middle of its cylinder. */
+  {
+    graphene_rect_t f;
+    g_assert_true (sw_stack_view_get_payload_rect (SW_STACK_VIEW (view), &f));
+    widget_render_pixel (surface, (int) (f.origin.x + f.size.width / 2.0),
+                         (int) (f.origin.y + f.size.height * 0.8), fairing);
+  }
+  /* The stage: up a line near its wall (outside the nozzle, inside the tanks'
+   * cylinders) until the fairing begins. */
+  x = (int) (rc.origin.x + rc.size.width / 2.0 + 0.42 * rc.size.width);
+  len_px = run_length (surface, x, ground - 1, 0, -1, bg, fairing);
+  /* Across the engine section, half-way up it: from the background left of
+   * the stage to the background right of it. */
+  {
+    int y = (int) (ground - 0.3 * 3.7 * px_per_m), x0 = (int) floor (rc.origin.x) - 4;
+    double px[4];
+    widget_render_pixel (surface, x0, y, px);
+    g_assert_true (near_color (px, bg, 0.02));
+    while (x0 < WIDTH - 1 && (widget_render_pixel (surface, x0, y, px), near_color (px, bg, 0.02)))
+      x0++;
+    dia_px = run_length (surface, x0, y, 1, 0, bg, NULL);
+  }
+  g_test_message ("bar %d px for %g m; stage %d px long, %d px wide; %.3f px/m",
+                  bar_px, bar_m, len_px, dia_px, px_per_m);
+  want = len_m / bar_m * bar_px;
+  g_assert_cmpfloat (fabs (len_px - want), <=, 2.0 + 0.01 * want);
+  want = 3.7 / bar_m * bar_px;
+  g_assert_cmpfloat (fabs (dia_px - want), <=, 2.0 + 0.01 * want);
+  cairo_surface_destroy (surface);
+
+  /* Without a propellant it says so and draws no vehicle. */
+  d->stages[0].propellant.kind = SW_PROPELLANT_NONE;
+  d->stages[0].propellant.has_mixture_ratio = FALSE;
+  g_clear_pointer (&result, sw_analysis_unref);
+  result = sw_analysis_compute (d, 2, NULL);
+  g_assert_true (result->ok && !result->shape.complete);
+  sw_stack_view_set_result (SW_STACK_VIEW (view), result);
+  widget_render_settle ();
+  g_assert_cmpfloat (sw_stack_view_get_metre_scale (SW_STACK_VIEW (view)), ==, 0.0);
+  g_assert_false (sw_stack_view_get_block_rect (SW_STACK_VIEW (view), 0, &rc));
+  /* Back to the mass picture: areas again. */
+  sw_stack_view_set_to_scale (SW_STACK_VIEW (view), FALSE);
+  widget_render_settle ();
+  g_assert_cmpfloat (sw_stack_view_get_area_scale (SW_STACK_VIEW (view)), >, 0.0);
+  gtk_window_destroy (GTK_WINDOW (window));
+}
+
 int
 main (int argc, char **argv)
 {
@@ -690,6 +825,7 @@ main (int argc, char **argv)
 
   g_test_add_func ("/gui/stack-view/glue-units", test_glue_units);
   g_test_add_func ("/gui/stack-view/drawing-kept", test_drawing_kept);
+  g_test_add_func ("/gui/stack-view/to-scale-pixels", test_to_scale_pixels);
   g_test_add_func ("/gui/stack-view/areas-small-launcher", test_areas_small);
   g_test_add_func ("/gui/stack-view/areas-medium-cargo", test_areas_medium);
   g_test_add_func ("/gui/stack-view/areas-all-solid", test_areas_solid);

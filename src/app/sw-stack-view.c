@@ -76,6 +76,12 @@ struct _SwStackView {
   double     base_caption_x;
   double     base_caption_y;
 
+  /* The second picture: to scale in metres (sw-stack-drawing.h); the items
+   * then hold the stages' outlines and the fairing. */
+  gboolean   to_scale;
+  gboolean   scale_drawn;                /* sgeom is laid out */
+  SwScaleGeometry sgeom;
+
   /* Dragging a border */
   int        drag_lower;
   double     drag_stack_height;
@@ -91,6 +97,7 @@ struct _SwStackView {
 enum {
   PROP_0,
   PROP_SELECTED_STAGE,
+  PROP_TO_SCALE,
   N_PROPS
 };
 
@@ -157,6 +164,7 @@ typedef struct {
   GdkRGBA payload;
   GdkRGBA warning;
   GdkRGBA select;
+  GdkRGBA fuel;
   double  propellant_alpha;
   double  structure_alpha;  /* of the foreground: dark on light, light on dark */
 } Colors;
@@ -169,6 +177,7 @@ get_colors (GtkWidget *widget, Colors *c)
   sw_plot_palette_color (widget, 4, &c->payload);  /* orange */
   sw_plot_palette_color (widget, 1, &c->warning);  /* vermillion */
   sw_plot_palette_color (widget, 3, &c->select);   /* reddish purple */
+  sw_plot_palette_color (widget, 2, &c->fuel);     /* bluish green */
   c->propellant_alpha = sw_plot_style_is_dark (widget) ? 0.45 : 0.35;
   c->structure_alpha = 0.72;
 }
@@ -184,6 +193,7 @@ clear_layout (SwStackView *self)
   g_clear_object (&self->base_caption);
   self->n_base = 0;
   self->n_items = 0;
+  self->scale_drawn = FALSE;
   self->layout_valid = FALSE;
 }
 
@@ -399,6 +409,132 @@ legend_height (SwStackView *self)
 
 static guint legend_run (SwStackView *self, cairo_t *cr, const Colors *c, int width);
 
+/* The label of a stage in the to-scale picture: its length and diameter. */
+static char *
+scale_label_markup (SwAnalysis *r, const Item *it)
+{
+  const SwVehicleShape *v = &r->shape;
+
+  if (it->kind == ITEM_PAYLOAD)
+    {
+      g_autofree char *len = sw_format_length_m (v->fairing_length_m);
+      g_autofree char *d = sw_format_length_m (v->fairing_diameter_m);
+      return g_markup_printf_escaped (_("<b>Fairing</b>\n%s long, %s across"), len, d);
+    }
+  else
+    {
+      const SwStageGeometry *g = &v->stages[it->stage];
+      g_autofree char *title = stage_title_markup (r, it->stage);
+      g_autofree char *len = sw_format_length_m (g->shape.length_m);
+      g_autofree char *d = sw_format_length_m (g->diameter_m);
+      g_autofree char *vol = sw_format_volume_m3 (g->shape.tank_volume_m3);
+      g_autofree char *body = g_markup_printf_escaped (_("%s long, %s across%s\ntanks %s"),
+                                                       len, d,
+                                                       g->diameter_inherited
+                                                       ? _(" (from below)") : "", vol);
+      return g_strconcat (title, "\n", body, NULL);
+    }
+}
+
+/* The vehicle to scale: the stages' outlines become the items (click,
+ * hover and selection work as in the mass picture; there are no borders to
+ * drag), labelled with their lengths at the right. */
+static void
+scale_layout (SwStackView *self, int width, int height)
+{
+  SwAnalysis *r = self->result;
+  const SwVehicleShape *v = &r->shape;
+  double legend_h = legend_height (self), top, bottom, label_w = 0.0, max_label_w;
+  double bar_w, person_w, right;
+  int tw;
+
+  top = MARGIN + legend_h * legend_run (self, NULL, NULL, width);
+  bottom = height - MARGIN - legend_h - 10.0;
+  self->top_y = top;
+  self->bottom_y = bottom;
+  if (!v->complete)
+    {
+      /* Said, not guessed: which stage lacks what. */
+      g_autofree char *markup =
+        g_markup_printf_escaped (_("<b>Not drawn to scale.</b> %s"),
+                                 v->reason[0] != '\0' ? v->reason
+                                 : _("The vehicle has no shape."));
+      int mh;
+      layout_message (self, markup, width - 2 * MARGIN - 16.0);
+      pango_layout_get_pixel_size (self->message, NULL, &mh);
+      self->message_rect = GRAPHENE_RECT_INIT (MARGIN, top, width - 2 * MARGIN, mh + 12.0);
+      return;
+    }
+
+  for (guint i = 0; i < v->n_stages && i < SW_MAX_STAGES; i++)
+    {
+      Item *it = &self->items[self->n_items++];
+      it->kind = ITEM_STAGE;
+      it->stage = (int) i;
+      it->mass_kg = r->sizing.stages[i].stage_mass_kg;
+      it->structure_fraction = 0.0;
+    }
+  {
+    Item *it = &self->items[self->n_items++];
+    it->kind = ITEM_PAYLOAD;
+    it->stage = -1;
+    it->mass_kg = r->design->payload_kg;
+  }
+  max_label_w = MAX (80.0, 0.45 * (width - 2 * MARGIN));
+  for (guint i = 0; i < self->n_items; i++)
+    {
+      Item *it = &self->items[i];
+      g_autofree char *raw = scale_label_markup (r, it);
+      g_autofree char *markup = sw_stack_glue_units (raw);
+      int lw, lh;
+
+      it->label = make_label (self, markup);
+      pango_layout_get_pixel_size (it->label, &lw, &lh);
+      if (lw > max_label_w)
+        {
+          pango_layout_set_wrap (it->label, PANGO_WRAP_WORD);
+          pango_layout_set_width (it->label, (int) (max_label_w * PANGO_SCALE));
+          pango_layout_get_pixel_size (it->label, &lw, &lh);
+        }
+      it->label_h = lh;
+      label_w = MAX (label_w, lw);
+    }
+  {
+    g_autofree char *bar = sw_format_length_m (sw_scale_bar_length (v->height_m));
+    g_autofree char *person = sw_scale_person_label ();
+    PangoLayout *probe = make_label (self, bar);
+    pango_layout_get_pixel_size (probe, &tw, NULL);
+    g_object_unref (probe);
+    bar_w = MAX (SW_SCALE_BAR_ROOM, tw + 4.0);
+    probe = make_label (self, person);
+    pango_layout_get_pixel_size (probe, &tw, NULL);
+    g_object_unref (probe);
+    person_w = tw;
+  }
+  self->label_x = width - MARGIN - label_w;
+  /* The bar's and the person's texts stand above them: room for a line. */
+  if (!sw_scale_layout (v, MARGIN, top + legend_h, self->label_x - LEADER_GAP - MARGIN,
+                        bottom - top - legend_h, bar_w, person_w, &self->sgeom))
+    {
+      for (guint i = 0; i < self->n_items; i++)
+        g_clear_object (&self->items[i].label);
+      self->n_items = 0;
+      return;
+    }
+  self->scale_drawn = TRUE;
+  for (guint i = 0; i < self->n_items; i++)
+    {
+      Item *it = &self->items[i];
+      const SwStackBox *b = it->kind == ITEM_PAYLOAD ? &self->sgeom.fairing
+                                                     : &self->sgeom.stage[it->stage];
+      it->rect = GRAPHENE_RECT_INIT (b->x, b->y, b->width, b->height);
+    }
+  right = MAX (self->sgeom.person.x + self->sgeom.person.width,
+               self->sgeom.person.x + person_w);
+  self->stack_right = right;
+  place_labels (self, top, bottom);
+}
+
 static void
 stack_layout (SwStackView *self, int width, int height)
 {
@@ -428,6 +564,11 @@ stack_layout (SwStackView *self, int width, int height)
       return;
     }
 
+  if (self->to_scale)
+    {
+      scale_layout (self, width, height);
+      return;
+    }
   sz = &r->sizing;
   to_scale = sz->feasible;
   legend_h = legend_height (self);
@@ -647,7 +788,7 @@ static int
 border_at (SwStackView *self, double x, double y)
 {
   ensure_layout (self);
-  if (self->result == NULL || !self->result->ok)
+  if (self->result == NULL || !self->result->ok || self->to_scale)
     return -1;
   for (guint i = 0; i + 1 < self->n_items; i++)
     {
@@ -752,6 +893,12 @@ legend_run (SwStackView *self, cairo_t *cr, const Colors *c, int width)
   names[0] = feasible ? _("Propellant") : _("Cannot deliver");
   names[1] = feasible ? _("Structure") : _("Not sized");
   names[2] = _("Payload");
+  if (self->to_scale)
+    {
+      names[0] = _("Oxidizer tank");
+      names[1] = _("Fuel tank");
+      names[2] = _("Fairing");
+    }
   for (guint i = 0; i < 3; i++)
     {
       PangoLayout *probe = make_label (self, names[i]);
@@ -770,7 +917,10 @@ legend_run (SwStackView *self, cairo_t *cr, const Colors *c, int width)
           x += h + tw + 16.0;
           continue;
         }
-      if (feasible)
+      if (self->to_scale)
+        x = legend_swatch (self, cr, x, y, h, i == 0 ? &c->accent : i == 1 ? &c->fuel : &c->payload,
+                           i == 2 ? 0.6 : 0.55, FALSE, c, names[i]);
+      else if (feasible)
         x = legend_swatch (self, cr, x, y, h, i == 0 ? &c->accent : i == 1 ? &c->fg : &c->payload,
                            i == 0 ? c->propellant_alpha : i == 1 ? c->structure_alpha : 0.75,
                            FALSE, c, names[i]);
@@ -988,6 +1138,60 @@ draw_baseline (SwStackView *self, cairo_t *cr, const Colors *c)
 }
 
 static void
+draw_to_scale (SwStackView *self, cairo_t *cr, const Colors *c, int width, int height)
+{
+  const SwVehicleShape *v = &self->result->shape;
+  const SwScaleGeometry *g = &self->sgeom;
+  SwScaleStyle st;
+  g_autofree char *bar = sw_format_length_m (g->bar_m);
+  g_autofree char *person = sw_scale_person_label ();
+  g_autofree char *tall = sw_format_length_m (v->height_m);
+  g_autofree char *wide = sw_format_length_m (v->max_diameter_m);
+  g_autofree char *raw = NULL, *caption = NULL;
+  PangoLayout *layout;
+  int tw, th;
+
+#define RGBA(dst_, col_, a_) \
+  G_STMT_START { dst_[0] = (col_)->red; dst_[1] = (col_)->green; dst_[2] = (col_)->blue; \
+                 dst_[3] = (col_)->alpha * (a_); } G_STMT_END
+  RGBA (st.skin, &c->fg, 0.10);
+  RGBA (st.oxidizer, &c->accent, 0.55);
+  RGBA (st.fuel, &c->fuel, 0.55);
+  RGBA (st.fairing, &c->payload, 0.6);
+  RGBA (st.outline, &c->fg, 0.7);
+  RGBA (st.mark, &c->fg, 0.8);
+#undef RGBA
+  st.line_width = 1.0;
+  sw_scale_draw (cr, v, g, &st);
+
+  for (guint i = 0; i < self->n_items; i++)
+    if (self->items[i].label != NULL)
+      draw_label (self, cr, &self->items[i], c);
+  for (guint i = 0; i < self->n_items; i++)
+    if (self->items[i].stage >= 0 && self->items[i].stage == self->selected)
+      draw_selection (self, cr, &self->items[i], c);
+
+  set_source_alpha (cr, &c->fg, 0.9);
+  layout = make_label (self, bar);
+  pango_layout_get_pixel_size (layout, &tw, &th);
+  draw_text (cr, layout, MARGIN, g->bar.y - th - 2.0);
+  g_object_unref (layout);
+  layout = make_label (self, person);
+  pango_layout_get_pixel_size (layout, &tw, &th);
+  draw_text (cr, layout, g->person.x, g->person.y - th - 2.0);
+  g_object_unref (layout);
+
+  raw = g_markup_printf_escaped (_("To scale: <b>%s</b> tall, %s wide"), tall, wide);
+  caption = sw_stack_glue_units (raw);
+  layout = make_label (self, caption);
+  pango_layout_set_width (layout, (int) ((width - 2 * MARGIN) * PANGO_SCALE));
+  pango_layout_set_ellipsize (layout, PANGO_ELLIPSIZE_END);
+  pango_layout_get_pixel_size (layout, &tw, &th);
+  draw_text (cr, layout, MARGIN, height - MARGIN - th);
+  g_object_unref (layout);
+}
+
+static void
 draw_stack (SwStackView *self, GtkSnapshot *snapshot, int width, int height, const Colors *cc)
 {
   Colors c = *cc;
@@ -1026,6 +1230,13 @@ draw_stack (SwStackView *self, GtkSnapshot *snapshot, int width, int height, con
       cairo_stroke (cr);
       set_source_alpha (cr, &c.fg, 1.0);
       draw_text (cr, self->message, m->origin.x + 8.0, m->origin.y + 6.0);
+    }
+
+  if (self->to_scale)
+    {
+      if (self->scale_drawn)
+        draw_to_scale (self, cr, &c, width, height);
+      goto out;
     }
 
   if (self->n_base > 0)
@@ -1107,8 +1318,8 @@ drawing_key (SwStackView *self, int width, int height, const Colors *c)
 {
   guint64 h = G_GUINT64_CONSTANT (14695981039346656037);
   const SwAnalysis *r = self->result;
-  int state[6] = { width, height, self->selected, self->hover_border, self->drag_lower,
-                   r == NULL ? -1 : r->ok };
+  int state[7] = { width, height, self->selected, self->hover_border, self->drag_lower,
+                   r == NULL ? -1 : r->ok, self->to_scale };
 
   h = key_bytes (h, state, sizeof state);
   h = key_bytes (h, c, sizeof *c);
@@ -1118,6 +1329,12 @@ drawing_key (SwStackView *self, int width, int height, const Colors *c)
   h = key_bytes (h, &self->message_rect, sizeof self->message_rect);
   if (!r->ok)
     return h;
+  if (self->to_scale)
+    {
+      h = key_bytes (h, &self->scale_drawn, sizeof self->scale_drawn);
+      h = key_bytes (h, &self->sgeom, sizeof self->sgeom);
+      h = key_bytes (h, &r->shape, sizeof r->shape);
+    }
   h = key_bytes (h, &r->sizing.liftoff_mass_kg, sizeof (double));
   h = key_bytes (h, &r->sizing.payload_fraction, sizeof (double));
   h = key_bytes (h, &self->px2_per_kg, sizeof (double));
@@ -1411,6 +1628,9 @@ sw_stack_view_get_property (GObject *object, guint prop_id, GValue *value, GPara
     case PROP_SELECTED_STAGE:
       g_value_set_int (value, self->selected);
       break;
+    case PROP_TO_SCALE:
+      g_value_set_boolean (value, self->to_scale);
+      break;
     default:
       G_OBJECT_WARN_INVALID_PROPERTY_ID (object, prop_id, pspec);
     }
@@ -1426,6 +1646,9 @@ sw_stack_view_set_property (GObject *object, guint prop_id, const GValue *value,
     {
     case PROP_SELECTED_STAGE:
       sw_stack_view_set_selected (self, g_value_get_int (value));
+      break;
+    case PROP_TO_SCALE:
+      sw_stack_view_set_to_scale (self, g_value_get_boolean (value));
       break;
     default:
       G_OBJECT_WARN_INVALID_PROPERTY_ID (object, prop_id, pspec);
@@ -1449,6 +1672,9 @@ sw_stack_view_class_init (SwStackViewClass *klass)
   properties[PROP_SELECTED_STAGE] =
     g_param_spec_int ("selected-stage", NULL, NULL, -1, SW_MAX_STAGES - 1, -1,
                       G_PARAM_READWRITE | G_PARAM_EXPLICIT_NOTIFY | G_PARAM_STATIC_STRINGS);
+  properties[PROP_TO_SCALE] =
+    g_param_spec_boolean ("to-scale", NULL, NULL, FALSE,
+                          G_PARAM_READWRITE | G_PARAM_EXPLICIT_NOTIFY | G_PARAM_STATIC_STRINGS);
   g_object_class_install_properties (object_class, N_PROPS, properties);
 
   signals[STAGE_ACTIVATED] =
@@ -1644,4 +1870,46 @@ sw_stack_view_get_area_scale (SwStackView *self)
   g_return_val_if_fail (SW_IS_STACK_VIEW (self), 0.0);
   ensure_layout (self);
   return self->px2_per_kg;
+}
+
+void
+sw_stack_view_set_to_scale (SwStackView *self, gboolean to_scale)
+{
+  g_return_if_fail (SW_IS_STACK_VIEW (self));
+
+  to_scale = !!to_scale;
+  if (self->to_scale == to_scale)
+    return;
+  self->to_scale = to_scale;
+  self->hover_border = -1;
+  invalidate (self);
+  g_object_notify_by_pspec (G_OBJECT (self), properties[PROP_TO_SCALE]);
+}
+
+gboolean
+sw_stack_view_get_to_scale (SwStackView *self)
+{
+  g_return_val_if_fail (SW_IS_STACK_VIEW (self), FALSE);
+  return self->to_scale;
+}
+
+double
+sw_stack_view_get_metre_scale (SwStackView *self)
+{
+  g_return_val_if_fail (SW_IS_STACK_VIEW (self), 0.0);
+  ensure_layout (self);
+  return self->to_scale && self->scale_drawn ? self->sgeom.px_per_m : 0.0;
+}
+
+gboolean
+sw_stack_view_get_scale_bar (SwStackView *self, graphene_rect_t *rect, double *metres)
+{
+  g_return_val_if_fail (SW_IS_STACK_VIEW (self) && rect != NULL && metres != NULL, FALSE);
+  ensure_layout (self);
+  if (!self->to_scale || !self->scale_drawn)
+    return FALSE;
+  *rect = GRAPHENE_RECT_INIT (self->sgeom.bar.x, self->sgeom.bar.y, self->sgeom.bar.width,
+                              self->sgeom.bar.height);
+  *metres = self->sgeom.bar_m;
+  return TRUE;
 }

@@ -39,6 +39,18 @@ double     sw_stack_view_get_area_scale (SwStackView *self);
 gboolean   sw_stack_view_get_baseline_rect (SwStackView *self, guint index,
                                             graphene_rect_t *rect);
 
+/* The second picture (property "to-scale"): the vehicle to scale in metres,
+ * with its tanks, interstages, fairing, a scale bar and a person for scale;
+ * where the design lacks a propellant or diameter it says so instead.  No
+ * border is dragged in it.  FALSE: area proportional to mass. */
+void       sw_stack_view_set_to_scale (SwStackView *self, gboolean to_scale);
+gboolean   sw_stack_view_get_to_scale (SwStackView *self);
+/* Pixels per metre of the last to-scale layout; 0 when not drawn to scale. */
+double     sw_stack_view_get_metre_scale (SwStackView *self);
+/* The scale bar's rectangle and the metres it stands for (tests). */
+gboolean   sw_stack_view_get_scale_bar (SwStackView *self, graphene_rect_t *rect,
+                                        double *metres);
+
 /* Signals:
  *   "stage-activated" (int stage)             a click selected a stage
  *   "share-dragged"   (int lower, int upper, double amount, gboolean finished)

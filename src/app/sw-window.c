@@ -50,6 +50,7 @@ struct _SwWindow {
   GtkLabel       *message_label;
   SwInspector    *inspector;
   SwStackView    *stack_view;
+  GtkToggleButton *scale_view_button;
   SwTotals       *totals;
   GtkNotebook    *notebook;
   SwPlot         *stage_count_plot;
@@ -118,9 +119,34 @@ update_title (SwWindow *self)
     gtk_window_set_title (GTK_WINDOW (self), window_title);
 }
 
+/* The estimated structural coefficients of the shown analysis, when they
+ * belong to the design as it is now and the design would take them (NAN for
+ * a stage that was not estimated).  FALSE otherwise. */
+static gboolean
+eps_estimate_applicable (SwWindow *self, double *eps, gboolean *changes)
+{
+  const SwAnalysis *r = self->result;
+  const SwDesign *now = sw_document_get_design (self->document);
+  g_autoptr (SwDesign) d = NULL;
+
+  if (r == NULL || !r->ok || !r->mass_estimate.ok || !r->mass_estimate.any_estimated
+      || r->mass_estimate.n_stages != now->n_stages || !sw_design_equal (r->design, now))
+    return FALSE;
+  for (guint i = 0; i < now->n_stages; i++)
+    eps[i] = r->mass_estimate.stages[i].estimated
+             ? r->mass_estimate.stages[i].structural_coefficient : NAN;
+  d = sw_design_copy (now);
+  return sw_design_accept_structural_coefficients (d, eps, now->n_stages, changes, NULL);
+}
+
 static void
 update_actions (SwWindow *self)
 {
+  double eps[SW_MAX_STAGES];
+  gboolean changes = FALSE;
+
+  gtk_widget_action_set_enabled (GTK_WIDGET (self), "design.accept-eps-estimate",
+                                 eps_estimate_applicable (self, eps, &changes) && changes);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "design.undo",
                                  sw_document_can_undo (self->document));
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "design.redo",
@@ -448,6 +474,24 @@ static void
 page_action (GtkWidget *widget, const char *name, GVariant *param)
 {
   gtk_notebook_set_current_page (SW_WINDOW (widget)->notebook, g_variant_get_int32 (param));
+}
+
+/* The structural coefficients estimated from the mass-estimating
+ * relationships replace the design's: one named core edit, one undo step. */
+static void
+accept_eps_estimate_action (GtkWidget *widget, const char *name, GVariant *param)
+{
+  SwWindow *self = SW_WINDOW (widget);
+  double eps[SW_MAX_STAGES];
+  gboolean changes = FALSE;
+  g_autoptr (SwDesign) d = NULL;
+
+  if (!eps_estimate_applicable (self, eps, &changes) || !changes)
+    return;
+  d = sw_document_dup_design (self->document);
+  if (!sw_design_accept_structural_coefficients (d, eps, d->n_stages, NULL, NULL))
+    return;
+  sw_document_commit (self->document, g_steal_pointer (&d), NULL);
 }
 
 /* The current design, as it is now, becomes the baseline (an undoable edit). */
@@ -798,6 +842,7 @@ sw_window_class_init (SwWindowClass *klass)
   CHILD (message_label);
   CHILD (inspector);
   CHILD (stack_view);
+  CHILD (scale_view_button);
   CHILD (totals);
   CHILD (notebook);
   CHILD (stage_count_plot);
@@ -823,6 +868,8 @@ sw_window_class_init (SwWindowClass *klass)
   gtk_widget_class_install_action (widget_class, "design.copy-working", NULL,
                                    copy_working_action);
   gtk_widget_class_install_action (widget_class, "design.split", "s", split_action);
+  gtk_widget_class_install_action (widget_class, "design.accept-eps-estimate", NULL,
+                                   accept_eps_estimate_action);
   gtk_widget_class_install_action (widget_class, "view.page", "i", page_action);
   gtk_widget_class_install_action (widget_class, "view.show-page", "s", show_page_action);
   gtk_widget_class_install_action (widget_class, "design.pin-baseline", NULL,
@@ -877,6 +924,10 @@ sw_window_init (SwWindow *self)
   sw_inspector_set_settings (self->inspector, self->settings);
   sw_ascent_page_set_settings (self->ascent_page, self->settings);
   sw_trade_page_set_settings (self->trade_page, self->settings);
+  g_settings_bind (self->settings, "stack-to-scale", self->scale_view_button, "active",
+                   G_SETTINGS_BIND_DEFAULT);
+  g_object_bind_property (self->scale_view_button, "active", self->stack_view, "to-scale",
+                          G_BINDING_SYNC_CREATE);
   g_settings_bind (self->settings, "window-width", self, "default-width",
                    G_SETTINGS_BIND_DEFAULT);
   g_settings_bind (self->settings, "window-height", self, "default-height",

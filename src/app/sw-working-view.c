@@ -6,6 +6,7 @@
 #include "sw-working-view.h"
 
 #include "sw-format.h"
+#include "sw-limits.h"
 
 #include <glib/gi18n.h>
 #include <math.h>
@@ -47,6 +48,141 @@ formula (GString *s, const char *format, ...)
   g_string_append_vprintf (s, format, args);
   g_string_append_c (s, '\n');
   va_end (args);
+}
+
+#define M(v) sw_format_number ((v), 2)
+#define M3(v) sw_format_number ((v), 2)
+
+/* The stage's tanks and length from its propellant and diameter
+ * (sw-propellant.h, sw-vehicle-shape.h), or what is missing. */
+static void
+append_shape (GString *s, const SwAnalysis *r, guint i)
+{
+  const SwStageGeometry *g;
+  const SwStageShape *sh;
+
+  if (!r->sizing.feasible || i >= r->shape.n_stages)
+    return;
+  g = &r->shape.stages[i];
+  sh = &g->shape;
+  g_string_append_c (s, '\n');
+  head (s, _("Tanks and length"));
+  if (!sh->valid)
+    {
+      formula (s, "%s", _("no propellant given: choose one in the inspector to see the tank "
+                          "volumes and lengths"));
+      return;
+    }
+  {
+    g_autofree char *rho = sw_format_number (sh->bulk_density_kg_m3, 1);
+    g_autofree char *vp = M3 (sh->propellant_volume_m3);
+    g_autofree char *vt = M3 (sh->tank_volume_m3);
+    g_autofree char *ox = M3 (sh->oxidizer_tank_m3);
+    g_autofree char *fu = M3 (sh->fuel_tank_m3);
+    g_autofree char *ull = sw_format_percent (sh->propellant_volume_m3 > 0.0
+                                              ? sh->tank_volume_m3 / sh->propellant_volume_m3
+                                                - 1.0 : NAN, 1);
+
+    if (sh->solid)
+      formula (s, _("grain density %s kg/m³; propellant volume %s m³"), rho, vp);
+    else
+      {
+        formula (s, _("bulk density ρ = ρo·ρf·(1 + r)/(ρf·r + ρo) = %s kg/m³"), rho);
+        formula (s, _("propellant volume = m_o/ρo + m_f/ρf = %s m³"), vp);
+      }
+    formula (s, _("tank volume = propellant volume × (1 + ullage %s) = %s m³"), ull, vt);
+    if (!sh->solid)
+      formula (s, _("oxidizer tank %s m³, fuel tank %s m³"), ox, fu);
+  }
+  if (!sh->has_length)
+    {
+      formula (s, "%s", _("no diameter given (nor below): no lengths"));
+      return;
+    }
+  {
+    g_autofree char *d = M (g->diameter_m);
+    g_autofree char *lo = M (sh->oxidizer_tank_length_m);
+    g_autofree char *lf = M (sh->fuel_tank_length_m);
+    g_autofree char *it = M (sh->intertank_length_m);
+    g_autofree char *en = M (sh->engine_section_length_m);
+    g_autofree char *len = M (sh->length_m);
+
+    formula (s, _("diameter D = %s m%s"), d, g->diameter_inherited ? _(" (the stage below's)")
+                                                                   : "");
+    formula (s, "%s", _("tank = cylinder + two domes of height R/√2: L = (V − 2·(2/3)πR³/√2)/(πR²) "
+                        "+ 2R/√2"));
+    if (sh->solid)
+      formula (s, _("motor case %s m + nozzle skirt 0.2·D %s m = %s m"), lo, en, len);
+    else
+      formula (s, _("oxidizer tank %s + intertank D/4 %s + fuel tank %s + engine section 0.6·D "
+                    "%s = %s m"), lo, it, lf, en, len);
+    if (r->shape.complete && i + 1 < r->shape.n_stages)
+      {
+        g_autofree char *is = M (g->interstage_length_m);
+        formula (s, _("interstage above: 0.3 × the larger diameter = %s m"), is);
+      }
+    if (r->shape.complete)
+      {
+        g_autofree char *fl = M (r->shape.fairing_length_m);
+        g_autofree char *h = M (r->shape.height_m);
+        formula (s, _("vehicle: fairing 2.5·D = %s m; height %s m"), fl, h);
+      }
+  }
+}
+
+/* The stage's structure from the mass-estimating relationships at their
+ * fixed point with the sizing (sw-mass-estimate.h), each with its source. */
+static void
+append_mass_estimate (GString *s, const SwAnalysis *r, guint i)
+{
+  const SwMassEstimate *m = &r->mass_estimate;
+  const SwStageEstimate *e;
+
+  if (i >= m->n_stages)
+    return;
+  e = &m->stages[i];
+  g_string_append_c (s, '\n');
+  head (s, _("Structural coefficient estimated (mass-estimating relationships)"));
+  if (!m->ok)
+    {
+      formula (s, "%s", m->reason);
+      return;
+    }
+  if (!e->estimated)
+    {
+      formula (s, _("not estimated: %s"), e->reason);
+      return;
+    }
+  {
+    g_autofree char *t = sw_format_number (e->thrust_n / 1000.0, 1);
+    g_autofree char *ar = sw_format_number (e->area_ratio, 0);
+    formula (s, _("thrust %s kN%s, %u engine(s), area ratio %s (assumed)"), t,
+             e->thrust_assumed ? _(" (from the default thrust-to-weight: no thrust given)") : "",
+             e->engine_count, ar);
+  }
+  for (guint k = 0; k < SW_N_MER; k++)
+    {
+      g_autofree char *kg = NULL;
+      if (e->item_kg[k] == 0.0)
+        continue;
+      kg = KG (e->item_kg[k]);
+      formula (s, "%-17s %12s kg   %s", sw_mer_item_label (k), kg, sw_mer_item_source (k));
+    }
+  {
+    g_autofree char *ms = KG (e->structural_mass_kg);
+    g_autofree char *mp = KG (e->propellant_mass_kg);
+    g_autofree char *eps = RATIO (e->structural_coefficient);
+    g_autofree char *was = RATIO (e->design_coefficient);
+    g_autofree char *lift = sw_format_mass (m->liftoff_mass_kg);
+    formula (s, _("m_s = %s kg with m_p = %s kg: ε = %s (the design says %s)"), ms, mp, eps,
+             was);
+    formula (s, _("fixed point after %u rounds with the split held; liftoff then %s"),
+             m->iterations, lift);
+    if (!sw_limit_contains (SW_LIMIT_STRUCTURAL_COEFFICIENT, round (e->structural_coefficient
+                                                                    * 1e4) / 1e4))
+      formula (s, "%s", _("outside the accepted range of the structural coefficient: it "
+                          "cannot be used"));
+  }
 }
 
 static char *
@@ -175,6 +311,9 @@ build_text (SwWorkingView *self, gboolean for_copy)
       if (sz->reason[0] != '\0')
         g_string_append_printf (s, "\n%s\n", sz->reason);
     }
+
+  append_shape (s, r, i);
+  append_mass_estimate (s, r, i);
 
   if (for_copy)
     {

@@ -563,12 +563,15 @@ sw_sheet_draw_page (cairo_t *cr, const SwAnalysis *a, double width, double heigh
 
   /* Stack and totals. */
   {
-    double sw = MIN (220.0, p.w * 0.40);
+    /* Both pictures of the vehicle: to scale in metres at the left, area
+     * proportional to mass beside it. */
+    double sw = MIN (266.0, p.w * 0.49), scale_w = 58.0;
     double sy = y + heading (cr, _("Stack"), p.x, y, sw - 10);
+    sw_scale_draw_panel (cr, a, p.x, sy, scale_w, y + top_h - sy);
     sw_sheet_draw_stack (cr, a->design, &a->sizing,
                          has_baseline (a) ? a->design->baseline : NULL,
-                         has_baseline (a) ? &a->baseline_sizing : NULL, p.x, sy, sw - 10,
-                         y + top_h - sy);
+                         has_baseline (a) ? &a->baseline_sizing : NULL, p.x + scale_w + 4.0, sy,
+                         sw - 14 - scale_w, y + top_h - sy);
     draw_totals (&p, a, p.x + sw + 8.0, y, p.w - sw - 8.0, top_h);
   }
   y += top_h + gap;

@@ -271,6 +271,253 @@ sw_stack_draw (cairo_t *cr, const SwStackGeometry *g, const SwStackStyle *st,
     sw_stack_draw_part (cr, g, i, st, outline_only);
 }
 
+/* ---- the vehicle to scale ------------------------------------------------- */
+
+char *
+sw_scale_person_label (void)
+{
+  g_autofree char *n = sw_format_number (SW_PERSON_HEIGHT_M, 1);
+  return g_strdup_printf ("%s %s", n, C_("unit", "m"));
+}
+
+double
+sw_scale_bar_length (double height_m)
+{
+  double want = height_m / 4.0, decade, best;
+  static const double steps[] = { 1.0, 2.0, 5.0 };
+
+  if (!(want > 0.0) || !isfinite (want))
+    return 1.0;
+  decade = pow (10.0, floor (log10 (want)));
+  best = decade;
+  for (guint i = 0; i < G_N_ELEMENTS (steps); i++)
+    if (steps[i] * decade <= want)
+      best = steps[i] * decade;
+  return best;
+}
+
+gboolean
+sw_scale_layout (const SwVehicleShape *v, double x, double y, double w, double h,
+                 double left_room, double right_room, SwScaleGeometry *g)
+{
+  double width_m, s, person_m = SW_PERSON_HEIGHT_M * 0.3, gap = 8.0;
+  guint nb;
+
+  g_return_val_if_fail (v != NULL && g != NULL, FALSE);
+
+  memset (g, 0, sizeof *g);
+  if (!v->complete || !(v->height_m > 0.0) || !(v->max_diameter_m > 0.0))
+    return FALSE;
+  /* Boosters beside the core (the hook of sw-vehicle-shape.h): two in profile. */
+  nb = v->n_boosters > 0 && v->booster_diameter_m > 0.0 && v->booster_length_m > 0.0
+       ? MIN (v->n_boosters, 2) : 0;
+  width_m = v->max_diameter_m + (nb > 0 ? 2.0 * v->booster_diameter_m : 0.0);
+  /* Metres across: the vehicle, and the person's width beside it. */
+  s = MIN (h / MAX (v->height_m, nb > 0 ? v->booster_length_m : 0.0),
+           (w - left_room - right_room - 2.0 * gap) / (width_m + person_m));
+  if (!(s > 0.0) || !isfinite (s))
+    return FALSE;
+  g->px_per_m = s;
+  g->bottom = y + h;
+  g->cx = x + left_room + gap + width_m * s / 2.0
+          + MAX (0.0, (w - left_room - right_room - 2.0 * gap - (width_m + person_m) * s) / 2.0);
+  g->n_stages = v->n_stages;
+  for (guint i = 0; i < v->n_stages; i++)
+    {
+      const SwStageGeometry *sg = &v->stages[i];
+      double d = sg->diameter_m * s, len = sg->shape.length_m * s;
+      g->stage[i] = (SwStackBox) { g->cx - d / 2.0, g->bottom - sg->base_m * s - len, d, len };
+    }
+  g->fairing = (SwStackBox) { g->cx - v->fairing_diameter_m * s / 2.0,
+                              g->bottom - v->height_m * s, v->fairing_diameter_m * s,
+                              v->fairing_length_m * s };
+  g->top = g->bottom - v->height_m * s;
+  g->n_boosters_drawn = nb;
+  for (guint k = 0; k < nb; k++)
+    {
+      double bd = v->booster_diameter_m * s;
+      double off = (v->max_diameter_m / 2.0) * s + bd / 2.0;
+      double bx = g->cx + (k == 0 ? -off : off);
+      g->booster[k] = (SwStackBox) { bx - bd / 2.0, g->bottom - v->booster_length_m * s, bd,
+                                     v->booster_length_m * s };
+    }
+  g->person = (SwStackBox) { g->cx + width_m * s / 2.0 + gap, g->bottom - SW_PERSON_HEIGHT_M * s,
+                             person_m * s, SW_PERSON_HEIGHT_M * s };
+  g->bar_m = sw_scale_bar_length (v->height_m);
+  g->bar = (SwStackBox) { x + left_room - 6.0, g->bottom - g->bar_m * s, 6.0, g->bar_m * s };
+  return TRUE;
+}
+
+static void
+scale_capsule (cairo_t *cr, double cx, double bottom_y, double d, double len, double dome)
+{
+  double r = d / 2.0, top_y = bottom_y - len;
+  double h = MIN (dome, len / 2.0);
+
+  /* A cylinder closed by two half-ellipses of height @dome. */
+  cairo_new_path (cr);
+  cairo_save (cr);
+  cairo_translate (cr, cx, top_y + h);
+  cairo_scale (cr, r, MAX (h, 1e-6));
+  cairo_arc (cr, 0.0, 0.0, 1.0, G_PI, 2.0 * G_PI);
+  cairo_restore (cr);
+  cairo_line_to (cr, cx + r, bottom_y - h);
+  cairo_save (cr);
+  cairo_translate (cr, cx, bottom_y - h);
+  cairo_scale (cr, r, MAX (h, 1e-6));
+  cairo_arc (cr, 0.0, 0.0, 1.0, 0.0, G_PI);
+  cairo_restore (cr);
+  cairo_close_path (cr);
+}
+
+static void
+fill_stroke (cairo_t *cr, const double fill[4], const SwScaleStyle *st)
+{
+  source (cr, fill);
+  cairo_fill_preserve (cr);
+  if (st->outline[3] > 0.0 && st->line_width > 0.0)
+    {
+      source (cr, st->outline);
+      cairo_set_line_width (cr, st->line_width);
+      cairo_stroke (cr);
+    }
+  else
+    cairo_new_path (cr);
+}
+
+/* A cylinder of @b with a nose of @nose px on top (boosters, the fairing). */
+static void
+nosed_path (cairo_t *cr, const SwStackBox *b, double nose)
+{
+  double l = b->x, r = b->x + b->width, cx = b->x + b->width / 2.0;
+  double base = b->y + b->height, shoulder = b->y + nose;
+
+  cairo_new_path (cr);
+  cairo_move_to (cr, l, base);
+  cairo_line_to (cr, l, shoulder);
+  /* An ogive-like nose: tangent to the wall at the shoulder. */
+  cairo_curve_to (cr, l, shoulder - nose * 0.55, cx - b->width * 0.12, b->y, cx, b->y);
+  cairo_curve_to (cr, cx + b->width * 0.12, b->y, r, shoulder - nose * 0.55, r, shoulder);
+  cairo_line_to (cr, r, base);
+  cairo_close_path (cr);
+}
+
+void
+sw_scale_draw (cairo_t *cr, const SwVehicleShape *v, const SwScaleGeometry *g,
+               const SwScaleStyle *st)
+{
+  double s;
+
+  g_return_if_fail (cr != NULL && v != NULL && g != NULL && st != NULL);
+  if (!(g->px_per_m > 0.0))
+    return;
+  s = g->px_per_m;
+  cairo_save (cr);
+  cairo_set_line_join (cr, CAIRO_LINE_JOIN_ROUND);
+
+  for (guint k = 0; k < g->n_boosters_drawn; k++)
+    {
+      nosed_path (cr, &g->booster[k], MIN (g->booster[k].width * 1.2,
+                                           g->booster[k].height * 0.3));
+      fill_stroke (cr, st->skin, st);
+    }
+
+  for (guint i = 0; i < g->n_stages; i++)
+    {
+      const SwStageGeometry *sg = &v->stages[i];
+      const SwStageShape *sh = &sg->shape;
+      const SwStackBox *b = &g->stage[i];
+      double base = b->y + b->height, d = b->width, dome = sg->diameter_m / 2.0 / SW_DOME_ASPECT_RATIO * s;
+      double eng = sh->engine_section_length_m * s, inset = MIN (1.5, d * 0.06);
+      double y0 = base - eng;
+
+      /* The stage's wall, with the engine section's nozzle inside it. */
+      cairo_new_path (cr);
+      cairo_rectangle (cr, b->x, b->y, b->width, b->height);
+      fill_stroke (cr, st->skin, st);
+      cairo_new_path (cr);
+      cairo_move_to (cr, g->cx - d * 0.12, y0 + eng * 0.15);
+      cairo_line_to (cr, g->cx + d * 0.12, y0 + eng * 0.15);
+      cairo_line_to (cr, g->cx + d * 0.30, base);
+      cairo_line_to (cr, g->cx - d * 0.30, base);
+      cairo_close_path (cr);
+      source (cr, st->mark);
+      cairo_fill (cr);
+
+      /* Tanks from the bottom up: fuel, intertank, oxidizer (a solid's case
+       * is all "oxidizer"). */
+      if (sh->solid)
+        {
+          scale_capsule (cr, g->cx, y0, d - 2.0 * inset, sh->oxidizer_tank_length_m * s, dome);
+          fill_stroke (cr, st->oxidizer, st);
+        }
+      else
+        {
+          double fuel = sh->fuel_tank_length_m * s;
+          scale_capsule (cr, g->cx, y0, d - 2.0 * inset, fuel, dome);
+          fill_stroke (cr, st->fuel, st);
+          scale_capsule (cr, g->cx, y0 - fuel - sh->intertank_length_m * s, d - 2.0 * inset,
+                         sh->oxidizer_tank_length_m * s, dome);
+          fill_stroke (cr, st->oxidizer, st);
+        }
+
+      /* The interstage above: a frustum to the next stage's diameter. */
+      if (i + 1 < g->n_stages && sg->interstage_length_m > 0.0)
+        {
+          double top_d = sg->interstage_top_diameter_m * s, y1 = b->y;
+          double y2 = y1 - sg->interstage_length_m * s;
+          cairo_new_path (cr);
+          cairo_move_to (cr, g->cx - d / 2.0, y1);
+          cairo_line_to (cr, g->cx - top_d / 2.0, y2);
+          cairo_line_to (cr, g->cx + top_d / 2.0, y2);
+          cairo_line_to (cr, g->cx + d / 2.0, y1);
+          cairo_close_path (cr);
+          fill_stroke (cr, st->skin, st);
+        }
+    }
+
+  nosed_path (cr, &g->fairing, (v->fairing_length_m - v->fairing_cylinder_m) * s);
+  fill_stroke (cr, st->fairing, st);
+
+  /* The scale bar: a vertical ruler from the ground, alternate halves
+   * filled. */
+  source (cr, st->mark);
+  cairo_set_line_width (cr, 1.0);
+  cairo_new_path (cr);
+  cairo_rectangle (cr, g->bar.x + 0.5, g->bar.y + 0.5, g->bar.width - 1.0, g->bar.height - 1.0);
+  cairo_stroke (cr);
+  cairo_rectangle (cr, g->bar.x, g->bar.y + g->bar.height / 2.0, g->bar.width,
+                   g->bar.height / 2.0);
+  cairo_fill (cr);
+
+  /* The person: head and body, no more. */
+  {
+    const SwStackBox *p = &g->person;
+    double head = p->height * 0.13, cx = p->x + p->width / 2.0;
+    cairo_new_path (cr);
+    cairo_arc (cr, cx, p->y + head / 2.0, head / 2.0, 0.0, 2.0 * G_PI);
+    cairo_fill (cr);
+    cairo_set_line_cap (cr, CAIRO_LINE_CAP_ROUND);
+    cairo_set_line_width (cr, MAX (1.0, p->width * 0.35));
+    cairo_move_to (cr, cx, p->y + head * 1.25);
+    cairo_line_to (cr, cx, p->y + p->height * 0.55);
+    cairo_stroke (cr);
+    cairo_set_line_width (cr, MAX (1.0, p->width * 0.25));
+    cairo_move_to (cr, cx - p->width * 0.25, p->y + p->height);
+    cairo_line_to (cr, cx, p->y + p->height * 0.55);
+    cairo_line_to (cr, cx + p->width * 0.25, p->y + p->height);
+    cairo_stroke (cr);
+  }
+
+  /* The ground. */
+  source (cr, st->outline[3] > 0.0 ? st->outline : st->mark);
+  cairo_set_line_width (cr, 1.0);
+  cairo_move_to (cr, g->bar.x, g->bottom + 0.5);
+  cairo_line_to (cr, g->person.x + g->person.width + 4.0, g->bottom + 0.5);
+  cairo_stroke (cr);
+  cairo_restore (cr);
+}
+
 /* ---- the sheet's panel ---------------------------------------------------- */
 
 #define HEX(c, a) { (((c) >> 16) & 0xff) / 255.0, (((c) >> 8) & 0xff) / 255.0, \
@@ -494,4 +741,62 @@ sw_stack_glue_units (const char *text)
       prev = c;
     }
   return g_string_free (out, FALSE);
+}
+
+static const SwScaleStyle paper_scale_style = {
+  HEX (0xdfe5eb, 1.0), HEX (0xb9d0e3, 1.0), HEX (0xe8d9a8, 1.0), HEX (0xf1c27a, 1.0),
+  HEX (0x1b2530, 1.0), HEX (0x5a6672, 1.0), 0.4,
+};
+
+void
+sw_scale_draw_panel (cairo_t *cr, const SwAnalysis *a, double x, double y, double w, double h)
+{
+  SwScaleGeometry g;
+  const SwVehicleShape *v;
+  double caption_h = 20.0, bottom;
+
+  g_return_if_fail (cr != NULL && a != NULL);
+
+  v = &a->shape;
+  bottom = y + h - caption_h;
+  if (!a->ok || !v->complete
+      || !sw_scale_layout (v, x, y + 12.0, w, bottom - y - 12.0, SW_SCALE_BAR_ROOM,
+                           SW_SCALE_PERSON_ROOM, &g))
+    {
+      source (cr, panel_color);
+      cairo_rectangle (cr, x, y, w, h);
+      cairo_fill (cr);
+      {
+        g_autofree char *text = g_strdup_printf (_("Not drawn to scale. %s"),
+                                                 a->ok && v->reason[0] != '\0' ? v->reason
+                                                 : _("The vehicle has no shape."));
+        PangoLayout *layout = panel_text (cr, text, 6.5, FALSE, 0.0, PANGO_ALIGN_LEFT);
+        pango_layout_set_width (layout, (int) ((w - 8.0) * PANGO_SCALE));
+        pango_layout_set_wrap (layout, PANGO_WRAP_WORD_CHAR);
+        pango_layout_set_height (layout, (int) ((h - 8.0) * PANGO_SCALE));
+        pango_layout_set_ellipsize (layout, PANGO_ELLIPSIZE_END);
+        source (cr, muted);
+        sw_sheet_show_layout (cr, layout, x + 4.0, y + 4.0);
+        g_object_unref (layout);
+      }
+      return;
+    }
+  sw_scale_draw (cr, v, &g, &paper_scale_style);
+  {
+    g_autofree char *bar = sw_format_length_m (g.bar_m);
+    g_autofree char *tall = sw_format_length_m (v->height_m);
+    g_autofree char *tall_text = g_strdup_printf (_("%s tall"), tall);
+    g_autofree char *person = sw_scale_person_label ();
+    g_autofree char *bar_g = sw_stack_glue_units (bar);
+    g_autofree char *tall_g = sw_stack_glue_units (tall_text);
+    g_autofree char *person_g = sw_stack_glue_units (person);
+
+    panel_show (cr, bar_g, g.bar.x - 2.0, g.bar.y - 9.0, FALSE, 6.0, FALSE, muted, 0.0,
+                PANGO_ALIGN_LEFT);
+    panel_show (cr, person_g, g.person.x - 4.0, g.person.y - 9.0, FALSE, 6.0, FALSE, muted, 0.0,
+                PANGO_ALIGN_LEFT);
+    panel_show (cr, _("to scale"), x, g.bottom + 3.0, FALSE, 6.5, FALSE, muted, w,
+                PANGO_ALIGN_CENTER);
+    panel_show (cr, tall_g, x, g.bottom + 11.0, FALSE, 6.5, FALSE, muted, w, PANGO_ALIGN_CENTER);
+  }
 }

@@ -91,6 +91,61 @@ void     sw_stack_draw_part (cairo_t *cr, const SwStackGeometry *g, guint i,
 void     sw_stack_draw (cairo_t *cr, const SwStackGeometry *g, const SwStackStyle *st,
                         gboolean outline_only);
 
+/* ---- the vehicle to scale, in metres ------------------------------------ */
+
+/* The second picture: every stage at its length and diameter (from the
+ * analysis's SwVehicleShape), the tanks inside, the interstages, the fairing
+ * on top, a vertical scale bar of a round length at the left and a person
+ * (SW_PERSON_HEIGHT_M) standing at the base on the right.  The callers write
+ * the texts (the bar's length, "1.8 m", names) in their own fonts, at the
+ * boxes this layout gives. */
+typedef struct {
+  double     px_per_m;
+  double     cx, bottom;                   /* the vehicle's axis and base */
+  guint      n_stages;
+  SwStackBox stage[SW_MAX_STAGES];         /* each stage's outline */
+  SwStackBox fairing;
+  guint      n_boosters_drawn;             /* boosters in profile (0 to 2) */
+  SwStackBox booster[2];
+  SwStackBox person;
+  double     bar_m;                        /* the scale bar's length, round */
+  SwStackBox bar;
+  double     top;                          /* the fairing's tip */
+} SwScaleGeometry;
+
+typedef struct {
+  double skin[4];          /* stage walls, engine sections, interstages */
+  double oxidizer[4];      /* oxidizer tank; a solid's case */
+  double fuel[4];
+  double fairing[4];
+  double outline[4];
+  double mark[4];          /* scale bar and person */
+  double line_width;
+} SwScaleStyle;
+
+/* Room the scale bar needs at the left, and the person at the right. */
+#define SW_SCALE_BAR_ROOM 16.0
+#define SW_SCALE_PERSON_ROOM 14.0
+
+/* Lays @v out in the box (@x, @y, @w, @h), standing on its bottom edge, as
+ * large as fits with @left_room before it (the bar and its label) and
+ * @right_room after it (the person and its label).  FALSE when @v has no
+ * shape or nothing fits. */
+gboolean sw_scale_layout (const SwVehicleShape *v, double x, double y, double w, double h,
+                          double left_room, double right_room, SwScaleGeometry *g);
+void     sw_scale_draw (cairo_t *cr, const SwVehicleShape *v, const SwScaleGeometry *g,
+                        const SwScaleStyle *st);
+/* A round length (1, 2 or 5 times a power of ten metres) near a quarter of
+ * @height_m, for the scale bar. */
+double   sw_scale_bar_length (double height_m);
+/* "1.8 m": the person's label. */
+char    *sw_scale_person_label (void);
+
+/* The sheet's to-scale panel inside (x, y, w, h), or the reason there is
+ * none. */
+void     sw_scale_draw_panel (cairo_t *cr, const SwAnalysis *analysis, double x, double y,
+                              double w, double h);
+
 /* A copy of @text (plain or Pango markup) where a number keeps to its unit
  * and to the word before it: the space after a digit ("2,007 m/s"), the
  * space between a word and a number ("Δv 2,007", "T/W 1.35") become no-break

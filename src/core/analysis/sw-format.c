@@ -140,6 +140,24 @@ sw_format_speed (double m_s)
 }
 
 char *
+sw_format_length_m (double m)
+{
+  int decimals = fabs (m) < 10.0 ? 2 : fabs (m) < 100.0 ? 1 : 0;
+
+  if (isfinite (m) && m == round (m))
+    decimals = 0;
+  /* Translators: the unit of a length in metres */
+  return with_unit (m, decimals, C_("unit", "m"), FALSE);
+}
+
+char *
+sw_format_volume_m3 (double m3)
+{
+  /* Translators: the unit of a volume in cubic metres */
+  return with_unit (m3, fabs (m3) < 100.0 ? 1 : 0, C_("unit", "m³"), FALSE);
+}
+
+char *
 sw_format_speed_delta (double m_s)
 {
   return with_unit (m_s, 0, C_("unit", "m/s"), TRUE);

@@ -39,6 +39,10 @@ char       *sw_format_pressure_kpa (double pa);         /* pascals in, "32.4 kPa
 char       *sw_format_accel_g (double g);               /* "3.85 g" */
 char       *sw_format_ratio (double ratio, int decimals);  /* "1.350" */
 char       *sw_format_isp (double s);                   /* "311 s" */
+/* Metres with 2 decimals below 10 m, 1 below 100 m, none above: "6.91 m",
+ * "42.1 m"; a whole number of metres (a scale bar) without decimals. */
+char       *sw_format_length_m (double m);
+char       *sw_format_volume_m3 (double m3);            /* "64.9 m³", "1,250 m³" */
 /* printf-style with one double; SW_NO_VALUE when @value is not finite. */
 char       *sw_format_value (const char *format, double value) G_GNUC_FORMAT (1);
 
