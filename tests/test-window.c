@@ -758,6 +758,65 @@ test_close_unsaved (void)
     }
 }
 
+
+/* A design with propellants and diameters: the to-scale picture follows the
+ * setting, the working shows the tanks and the estimate with its sources,
+ * and accepting the estimate is one named edit, one undo step. */
+static const char *shaped_design =
+  "{ \"format\": \"stagewright-design\", \"version\": 2, \"name\": \"Shaped\","
+  "  \"payload_kg\": 5000, \"mission\": { \"delta_v_m_s\": 9300 }, \"split\": \"optimal\","
+  "  \"stages\": [ { \"name\": \"A\", \"isp_vac_s\": 311, \"structural_coefficient\": 0.07,"
+  "                  \"propellant\": \"lox-kerosene\", \"diameter_m\": 3.7,"
+  "                  \"engine_count\": 9, \"engine_thrust_vac_kn\": 140 },"
+  "                { \"name\": \"B\", \"isp_vac_s\": 450, \"structural_coefficient\": 0.1,"
+  "                  \"propellant\": \"lox-hydrogen\", \"thrust_vac_kn\": 300 } ] }";
+
+static void
+test_shape_and_estimate (void)
+{
+  SwWindow *w = window_new ();
+  SwDocument *doc = sw_window_get_document (w);
+  g_autofree char *path = g_build_filename (tmp_dir, "shaped.stagewright", NULL);
+  g_autoptr (GFile) file = g_file_new_for_path (path);
+  g_autoptr (GSettings) settings = g_settings_new ("org.stagewright.Stagewright");
+  g_autoptr (SwDesign) before = NULL;
+  g_autofree char *text = NULL;
+  SwAnalysis *r;
+  double eps[2];
+
+  g_assert_true (g_file_set_contents (path, shaped_design, -1, NULL));
+  g_assert_true (sw_window_load (w, file));
+  wait_shown (w);
+  r = sw_window_get_shown_result (w);
+  g_assert_true (r->ok && r->shape.complete && r->mass_estimate.ok);
+
+  /* The setting chooses the picture. */
+  g_assert_false (sw_stack_view_get_to_scale (sw_window_get_stack_view (w)));
+  g_settings_set_boolean (settings, "stack-to-scale", TRUE);
+  g_assert_true (sw_stack_view_get_to_scale (sw_window_get_stack_view (w)));
+  g_settings_set_boolean (settings, "stack-to-scale", FALSE);
+  g_assert_false (sw_stack_view_get_to_scale (sw_window_get_stack_view (w)));
+
+  sw_working_view_set_selected (sw_window_get_working_view (w), 1);
+  text = sw_working_view_dup_text (sw_window_get_working_view (w));
+  g_assert_nonnull (strstr (text, "Tanks and length"));
+  g_assert_nonnull (strstr (text, "Structural coefficient estimated"));
+  g_assert_nonnull (strstr (text, "Akin"));
+
+  before = sw_document_dup_design (doc);
+  for (guint i = 0; i < 2; i++)
+    eps[i] = round (r->mass_estimate.stages[i].structural_coefficient * 1e4) / 1e4;
+  g_assert_true (gtk_widget_activate_action (GTK_WIDGET (w), "design.accept-eps-estimate", NULL));
+  wait_shown (w);
+  for (guint i = 0; i < 2; i++)
+    g_assert_cmpfloat (sw_document_get_design (doc)->stages[i].structural_coefficient, ==,
+                       eps[i]);
+  g_assert_true (sw_document_undo (doc));
+  g_assert_true (sw_design_equal (sw_document_get_design (doc), before));
+  g_assert_false (sw_document_can_undo (doc));
+  sw_test_window_close (w);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -779,6 +838,7 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/window/plots-current", test_plots_current);
   g_test_add_func ("/gui/window/min-width-extremes", test_min_width_extremes);
   g_test_add_func ("/gui/window/close-unsaved", test_close_unsaved);
+  g_test_add_func ("/gui/window/shape-and-estimate", test_shape_and_estimate);
 
   status = g_test_run ();
   sw_gui_test_env_finish (tmp_dir);
