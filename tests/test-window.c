@@ -799,6 +799,7 @@ test_shape_and_estimate (void)
 
   sw_working_view_set_selected (sw_window_get_working_view (w), 1);
   text = sw_working_view_dup_text (sw_window_get_working_view (w));
+  g_test_message ("%s", text);
   g_assert_nonnull (strstr (text, "Tanks and length"));
   g_assert_nonnull (strstr (text, "Structural coefficient estimated"));
   g_assert_nonnull (strstr (text, "Akin"));

@@ -183,6 +183,19 @@ append_mass_estimate (GString *s, const SwAnalysis *r, guint i)
       formula (s, "%s", _("outside the accepted range of the structural coefficient: it "
                           "cannot be used"));
   }
+  /* What "Use estimated ε" does to every stage. */
+  formula (s, "%s", _("every stage (design → estimate):"));
+  for (guint k = 0; k < m->n_stages && k < r->design->n_stages; k++)
+    {
+      const SwStageEstimate *o = &m->stages[k];
+      g_autofree char *was = RATIO (o->design_coefficient);
+      g_autofree char *est = o->estimated ? RATIO (o->structural_coefficient) : NULL;
+      if (o->estimated)
+        formula (s, "  %u %s: %s → %s", k + 1, r->design->stages[k].name, was, est);
+      else
+        formula (s, _("  %u %s: %s (kept: %s)"), k + 1, r->design->stages[k].name, was,
+                 o->reason);
+    }
 }
 
 static char *
