@@ -95,13 +95,13 @@ sw_mer_item_source (SwMerItem item)
   switch (item)
     {
     case SW_MER_TANKS:
-      return _("Akin, Mass Estimating Relations (U. Maryland, 2016): 12.158 kg/m³ of tank, "
+      return _("Akin, Mass Estimating Relations (U. Maryland, 2016): 12.158 kg/m^3 of tank, "
                "9.0911 for hydrogen");
     case SW_MER_INSULATION:
-      return _("Akin (2016): 2.88 kg/m² on hydrogen tanks, 1.123 on oxygen (methane: the oxygen "
+      return _("Akin (2016): 2.88 kg/m^2 on hydrogen tanks, 1.123 on oxygen (methane: the oxygen "
                "figure, our assumption)");
     case SW_MER_ENGINES:
-      return _("Akin (2016): 7.81e-4 T + 3.37e-5 T √(Ae/At) + 59 per engine (area ratio "
+      return _("Akin (2016): 7.81e-4 T + 3.37e-5 T sqrt(Ae/At) + 59 per engine (area ratio "
                "assumed)");
     case SW_MER_THRUST_STRUCTURE:
       return _("Akin (2016): 2.55e-4 T");
@@ -110,7 +110,7 @@ sw_mer_item_source (SwMerItem item)
     case SW_MER_AVIONICS:
       return _("Akin (2016): 10 M0^0.361 of the stage's gross mass");
     case SW_MER_WIRING:
-      return _("Akin (2016): 1.058 √M0 L^0.25");
+      return _("Akin (2016): 1.058 sqrt(M0) L^0.25");
     case SW_MER_MOTOR_CASE:
       return _("Akin (2016): 0.135 of the solid propellant");
     case SW_N_MER: default: break;
