@@ -895,7 +895,11 @@ legend_run (SwStackView *self, cairo_t *cr, const Colors *c, int width)
   names[2] = _("Payload");
   if (self->to_scale)
     {
-      names[0] = _("Oxidizer tank");
+      gboolean solid = FALSE;
+      if (self->result != NULL && self->result->ok)
+        for (guint i = 0; i < self->result->shape.n_stages; i++)
+          solid = solid || self->result->shape.stages[i].shape.solid;
+      names[0] = solid ? _("Oxidizer tank or motor case") : _("Oxidizer tank");
       names[1] = _("Fuel tank");
       names[2] = _("Fairing");
     }
@@ -1215,7 +1219,9 @@ draw_stack (SwStackView *self, GtkSnapshot *snapshot, int width, int height, con
       goto out;
     }
 
-  draw_legend (self, cr, &c);
+  /* The to-scale legend only beside a drawing. */
+  if (!self->to_scale || self->scale_drawn)
+    draw_legend (self, cr, &c);
 
   if (self->message != NULL)
     {
