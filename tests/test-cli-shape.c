@@ -8,8 +8,10 @@
 #include "config.h"
 
 #include "sw-design.h"
+#include "sw-mass-estimate.h"
 #include "sw-phases.h"
 #include "sw-sizing.h"
+#include "sw-vehicle-shape.h"
 
 #include <glib/gstdio.h>
 #include <json-glib/json-glib.h>
@@ -189,6 +191,50 @@ test_shape_and_phases (void)
     g_assert_cmpfloat (fabs (json_object_get_double_member (pb, "duration_s") - t), <, 1e-9);
     /* The upper stage has no thrust: no duration. */
     g_assert_true (JSON_NODE_HOLDS_NULL (json_object_get_member (pc, "duration_s")));
+  }
+  /* The vehicle's shape and the estimated structural coefficients: the
+   * core's values, key by key. */
+  {
+    JsonObject *o = json_node_get_object (root);
+    JsonObject *vs = json_object_get_object_member (o, "vehicle_shape");
+    JsonObject *ee = json_object_get_object_member (o, "eps_estimate");
+    JsonArray *es = json_object_get_array_member (ee, "stages");
+    SwVehicleShape v;
+    SwMassEstimate m;
+
+    sw_vehicle_shape_compute (d, &sizing, &v);
+    sw_mass_estimate_design (d, &m);
+    g_assert_true (v.complete && m.ok);
+    g_assert_true (json_object_get_boolean_member (vs, "complete"));
+    g_assert_true (JSON_NODE_HOLDS_NULL (json_object_get_member (vs, "reason")));
+    check (vs, "height_m", v.height_m);
+    check (vs, "max_diameter_m", v.max_diameter_m);
+    check (vs, "fairing_length_m", v.fairing_length_m);
+    check (vs, "fairing_diameter_m", v.fairing_diameter_m);
+    g_assert_true (json_object_get_boolean_member (ee, "converged"));
+    check (ee, "liftoff_mass_kg", m.liftoff_mass_kg);
+    g_assert_cmpuint (json_array_get_length (es), ==, 3);
+    for (guint i = 0; i < 3; i++)
+      {
+        JsonObject *st = json_array_get_object_element (stages, i);
+        JsonObject *e = json_array_get_object_element (es, i);
+        JsonObject *items = json_object_get_object_member (e, "items_kg");
+
+        check (st, "oxidizer_tank_length_m", v.stages[i].shape.oxidizer_tank_length_m);
+        check (st, "fuel_tank_length_m", v.stages[i].shape.fuel_tank_length_m);
+        check (st, "interstage_length_m", i < 2 ? v.stages[i].interstage_length_m : NAN);
+        g_assert_true (json_object_get_boolean_member (e, "estimated"));
+        check (e, "structural_coefficient", m.stages[i].structural_coefficient);
+        check (e, "design_structural_coefficient", d->stages[i].structural_coefficient);
+        for (guint k = 0; k < SW_N_MER; k++)
+          check (items, sw_mer_item_key (k), m.stages[i].item_kg[k]);
+      }
+    /* C has no thrust key: its thrust is assumed, and said so. */
+    g_assert_true (json_object_get_boolean_member (json_array_get_object_element (es, 2),
+                                                   "thrust_assumed"));
+    g_assert_nonnull (strstr (json_object_get_string_member (
+                                json_object_get_object_member (ee, "sources"), "tanks"),
+                              "Akin"));
   }
   /* The phases add up to the mission's delta-v. */
   {

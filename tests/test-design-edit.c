@@ -650,6 +650,45 @@ test_baseline (void)
   g_assert_false (sw_design_clear_baseline (d));
 }
 
+
+/* Accepting estimated structural coefficients: rounded to 4 decimals, NAN
+ * keeps a stage's, all or nothing on a wrong count or a value out of the
+ * limits table's range (0.01 to 0.6), "changed" only when one moved. */
+static void
+test_accept_structural_coefficients (void)
+{
+  static const double shares[] = { 0.5, 0.3, 0.2 };
+  g_autoptr (SwDesign) d = manual_design (3, shares);
+  g_autoptr (SwDesign) before = NULL;
+  g_autoptr (GError) error = NULL;
+  double eps[3] = { 0.067829, NAN, 0.176207 };
+  double bad[3] = { 0.05, 0.08, 0.7 };
+  gboolean changed = TRUE;
+
+  d->stages[1].structural_coefficient = 0.09;
+  g_assert_true (sw_design_accept_structural_coefficients (d, eps, 3, &changed, &error));
+  g_assert_no_error (error);
+  g_assert_true (changed);
+  g_assert_cmpfloat (d->stages[0].structural_coefficient, ==, 0.0678);
+  g_assert_cmpfloat (d->stages[1].structural_coefficient, ==, 0.09);
+  g_assert_cmpfloat (d->stages[2].structural_coefficient, ==, 0.1762);
+
+  /* Again: nothing moves. */
+  g_assert_true (sw_design_accept_structural_coefficients (d, eps, 3, &changed, &error));
+  g_assert_false (changed);
+
+  before = sw_design_copy (d);
+  g_assert_false (sw_design_accept_structural_coefficients (d, bad, 3, &changed, &error));
+  g_assert_error (error, SW_ERROR, SW_ERROR_RANGE);
+  g_assert_nonnull (strstr (error->message, "stages[2].structural_coefficient"));
+  g_assert_true (sw_design_equal (d, before));
+  g_clear_error (&error);
+
+  g_assert_false (sw_design_accept_structural_coefficients (d, eps, 2, NULL, &error));
+  g_assert_error (error, SW_ERROR, SW_ERROR_RANGE);
+  g_assert_true (sw_design_equal (d, before));
+}
+
 int
 main (int argc, char **argv)
 {
@@ -670,5 +709,7 @@ main (int argc, char **argv)
   g_test_add_func ("/core/design-edit/mission-kind", test_mission_kind);
   g_test_add_func ("/core/design-edit/sea-level-isp", test_sea_level_isp);
   g_test_add_func ("/core/design-edit/baseline", test_baseline);
+  g_test_add_func ("/core/design-edit/accept-structural-coefficients",
+                   test_accept_structural_coefficients);
   return g_test_run ();
 }
