@@ -301,6 +301,29 @@ print_sizing_table (const SwAnalysis *a)
       g_autofree char *hr = sw_format_speed (a->headroom_m_s);
       g_print (_("Liftoff mass: %s kg (%s)    Payload fraction: %s\n"), lm, lt, pf);
       g_print (_("Headroom to the stages' delta-v limit (no payload): %s\n"), hr);
+      if (a->shape.complete)
+        {
+          g_autofree char *h = sw_format_length_m (a->shape.height_m);
+          g_autofree char *w = sw_format_length_m (a->shape.max_diameter_m);
+          g_print (_("Shape: %s tall with its fairing, %s wide (tanks and lengths: --json)\n"),
+                   h, w);
+        }
+      if (a->mass_estimate.ok)
+        {
+          g_print ("%s", _("Structural coefficients from mass-estimating relationships "
+                           "(details and sources: --json, \"eps_estimate\"):\n"));
+          for (guint i = 0; i < a->mass_estimate.n_stages && i < d->n_stages; i++)
+            {
+              const SwStageEstimate *e = &a->mass_estimate.stages[i];
+              g_autofree char *was = sw_format_number (e->design_coefficient, 4);
+              g_autofree char *est = sw_format_number (e->structural_coefficient, 4);
+              if (e->estimated)
+                g_print (_("  %u: %s (file %s)"), i + 1, est, was);
+              else
+                g_print (_("  %u: not estimated"), i + 1);
+            }
+          g_print ("\n");
+        }
     }
   else
     g_print (_("INFEASIBLE: %s\n"), s->reason);
