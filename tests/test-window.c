@@ -797,6 +797,18 @@ test_shape_and_estimate (void)
   g_settings_set_boolean (settings, "stack-to-scale", FALSE);
   g_assert_false (sw_stack_view_get_to_scale (sw_window_get_stack_view (w)));
 
+  /* The inspector's read-out of the selected stage's tanks. */
+  sw_inspector_set_selected (sw_window_get_inspector (w), 0);
+  {
+    const char *t = gtk_label_get_text (GTK_LABEL (sw_inspector_get_field (
+                                          sw_window_get_inspector (w), SW_INSPECTOR_TANKS_LABEL)));
+    g_autofree char *len = sw_format_length_m (r->shape.stages[0].shape.length_m);
+    g_autofree char *vol = sw_format_volume_m3 (r->shape.stages[0].shape.tank_volume_m3);
+    g_test_message ("tanks: %s", t);
+    g_assert_nonnull (strstr (t, len));
+    g_assert_nonnull (strstr (t, vol));
+  }
+
   sw_working_view_set_selected (sw_window_get_working_view (w), 1);
   text = sw_working_view_dup_text (sw_window_get_working_view (w));
   g_test_message ("%s", text);

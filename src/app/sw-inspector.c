@@ -78,6 +78,7 @@ struct _SwInspector {
   GtkDropDown   *loss_model_dropdown;
   GtkWidget     *loss_model_label;
   GtkWidget     *stage_extra;
+  GtkLabel      *tanks_label;     /* read-out: the selected stage's tanks and length */
   SwNumberField *thrust_field;
   SwNumberField *engine_thrust_field;
   SwNumberField *engine_count_field;
@@ -310,6 +311,46 @@ update_stage_rows (SwInspector *self)
                              gtk_list_box_get_row_at_index (self->stage_list, self->selected));
 }
 
+/* The selected stage's tank figures from the analysis (sw-vehicle-shape.h):
+ * volumes with a propellant, lengths with a diameter too; or what is
+ * missing. */
+static void
+update_tanks_readout (SwInspector *self)
+{
+  SwAnalysis *r = self->result;
+  g_autofree char *text = NULL;
+
+  if (self->tanks_label == NULL)
+    return;
+  if (r == NULL || !r->ok || !r->sizing.feasible || self->selected < 0
+      || (guint) self->selected >= r->shape.n_stages)
+    text = g_strdup (SW_NO_VALUE);
+  else
+    {
+      const SwStageGeometry *g = &r->shape.stages[self->selected];
+      const SwStageShape *sh = &g->shape;
+
+      if (!sh->valid)
+        text = g_strdup (_("choose a propellant to see them"));
+      else
+        {
+          g_autofree char *tank = sw_format_volume_m3 (sh->tank_volume_m3);
+          g_autofree char *prop = sw_format_volume_m3 (sh->propellant_volume_m3);
+          if (!sh->has_length)
+            text = g_strdup_printf (_("%s (propellant %s); the length needs a diameter"),
+                                    tank, prop);
+          else
+            {
+              g_autofree char *len = sw_format_length_m (sh->length_m);
+              g_autofree char *d = sw_format_length_m (g->diameter_m);
+              text = g_strdup_printf (_("%s (propellant %s); stage %s long, %s across"), tank,
+                                      prop, len, d);
+            }
+        }
+    }
+  gtk_label_set_text (self->tanks_label, text);
+}
+
 static void
 update_computed (SwInspector *self)
 {
@@ -319,6 +360,7 @@ update_computed (SwInspector *self)
   if (r != NULL && r->has_budget)
     ideal = sw_format_speed (r->budget.ideal_delta_v_m_s);
   gtk_label_set_text (self->ideal_label, ideal != NULL ? ideal : SW_NO_VALUE);
+  update_tanks_readout (self);
 }
 
 static void
@@ -1196,6 +1238,19 @@ build_sections (SwInspector *self)
                                              _("Density of the fuel of a propellant of your own"),
                                              SW_FIELD_FUEL_DENSITY, 0, 2, 10.0, NULL);
   sw_number_field_set_optional (self->fuel_density_field, TRUE, _("catalogue"));
+  {
+    const char *tip = _("Tank volume (propellant and ullage), the propellant's volume, and "
+                        "the stage's length with tanks, intertank and engine section; the "
+                        "working shows each part");
+    self->tanks_label = GTK_LABEL (gtk_label_new (SW_NO_VALUE));
+    gtk_label_set_xalign (self->tanks_label, 0.0);
+    gtk_label_set_wrap (self->tanks_label, TRUE);
+    gtk_label_set_max_width_chars (self->tanks_label, 24);
+    gtk_widget_set_margin_top (GTK_WIDGET (self->tanks_label), 8);
+    gtk_widget_set_tooltip_text (GTK_WIDGET (self->tanks_label), tip);
+    gtk_grid_attach (grid, caption (_("Tanks"), tip, NULL), 0, row, 1, 1);
+    gtk_grid_attach (grid, GTK_WIDGET (self->tanks_label), 1, row++, 2, 1);
+  }
   self->drag_entry = GTK_ENTRY (gtk_entry_new ());
   gtk_entry_set_placeholder_text (self->drag_entry, _("generic slender-vehicle table"));
   gtk_editable_set_enable_undo (GTK_EDITABLE (self->drag_entry), FALSE);
@@ -1552,6 +1607,7 @@ sw_inspector_set_selected (SwInspector *self, int stage)
         update_extra_stage_fields (self, design (self), (guint) stage, TRUE);
       update_stage_fields (self);
       update_actions (self);
+      update_tanks_readout (self);
       self->updating--;
     }
   g_object_notify_by_pspec (G_OBJECT (self), properties[PROP_SELECTED_STAGE]);
@@ -1621,6 +1677,7 @@ sw_inspector_get_field (SwInspector *self, SwInspectorField field)
     case SW_INSPECTOR_ULLAGE: return GTK_WIDGET (self->ullage_field);
     case SW_INSPECTOR_OXIDIZER_DENSITY: return GTK_WIDGET (self->oxidizer_density_field);
     case SW_INSPECTOR_FUEL_DENSITY: return GTK_WIDGET (self->fuel_density_field);
+    case SW_INSPECTOR_TANKS_LABEL: return GTK_WIDGET (self->tanks_label);
     case SW_INSPECTOR_N_FIELDS:
     default: return NULL;
     }

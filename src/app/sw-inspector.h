@@ -74,6 +74,7 @@ typedef enum {
   SW_INSPECTOR_ULLAGE,
   SW_INSPECTOR_OXIDIZER_DENSITY,
   SW_INSPECTOR_FUEL_DENSITY,
+  SW_INSPECTOR_TANKS_LABEL,    /* GtkLabel: the selected stage's tanks and length */
   SW_INSPECTOR_N_FIELDS
 } SwInspectorField;
 
