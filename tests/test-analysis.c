@@ -351,6 +351,40 @@ test_fixed_stage_trades (void)
   g_assert_nonnull (strstr (fixed->montecarlo_error, "fixed propellant load"));
 }
 
+
+/* The shape and the estimated structural coefficients follow the sizing in
+ * force: after the closed loop of a "simulate" design, the loop's vehicle
+ * (the demo names its propellants and diameters). */
+static void
+test_shape_follows_loop (void)
+{
+  g_autoptr (SwDesign) d = demo ("three-stage-simulated.stagewright");
+  g_autoptr (SwAnalysis) fast = sw_analysis_compute (d, 1, NULL);
+  g_autoptr (SwAnalysis) a = NULL;
+  g_autoptr (SwDesign) looped = NULL;
+  SwAnalysisOptions o;
+  SwVehicleShape v;
+  SwMassEstimate m;
+
+  sw_analysis_options_init (&o);
+  o.montecarlo = FALSE;
+  a = sw_analysis_run (d, &o, NULL);
+  g_assert_true (fast->shape.complete && fast->mass_estimate.ok);
+  g_assert_true (a->sized_by_ascent);
+  sw_vehicle_shape_compute (d, &a->sizing, &v);
+  g_assert_cmpfloat (a->shape.height_m, ==, v.height_m);
+  /* A bigger vehicle than the first guess's: taller. */
+  g_assert_cmpfloat (a->shape.height_m, >, fast->shape.height_m);
+  looped = sw_design_copy (d);
+  looped->mission.losses_m_s = a->ascent->loop_sized_losses_m_s;
+  looped->mission.has_losses = TRUE;
+  sw_mass_estimate_design (looped, &m);
+  g_assert_true (a->mass_estimate.ok);
+  for (guint i = 0; i < d->n_stages; i++)
+    g_assert_cmpfloat (a->mass_estimate.stages[i].structural_coefficient, ==,
+                       m.stages[i].structural_coefficient);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -365,5 +399,6 @@ main (int argc, char **argv)
   g_test_add_func ("/analysis/trade-losses-note", test_trade_losses_note);
   g_test_add_func ("/analysis/closed-loop-sizing", test_closed_loop_sizing);
   g_test_add_func ("/analysis/fixed-stage-trades", test_fixed_stage_trades);
+  g_test_add_func ("/analysis/shape-follows-loop", test_shape_follows_loop);
   return g_test_run ();
 }

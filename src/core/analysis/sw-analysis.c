@@ -636,6 +636,8 @@ sw_analysis_add_ascent (const SwAnalysis *prev, GCancellable *cancellable)
 
           looped->mission.losses_m_s = ascent->loop_sized_losses_m_s;
           looped->mission.has_losses = TRUE;
+          /* The estimated coefficients of the vehicle as the loop sized it. */
+          sw_mass_estimate_design (looped, &r->mass_estimate);
           r->has_sensitivity = sw_sensitivity_compute (looped, r->sensitivity_step,
                                                        &r->sensitivity, NULL)
                                && r->sensitivity.feasible;

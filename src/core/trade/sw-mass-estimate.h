@@ -37,8 +37,8 @@
  * re-optimises the split, and a new estimate of that vehicle may differ a
  * little.  A stage without a propellant or a diameter keeps
  * the design's coefficient and says why (it still takes part in the sizing).
- * The sizing uses the design's required delta-v (for a "simulate" design,
- * its first-guess allowance). */
+ * The sizing uses the design's required delta-v; for a "simulate" design the
+ * analysis estimates again with the closed loop's losses once it has them. */
 #pragma once
 
 #include "sw-design.h"
