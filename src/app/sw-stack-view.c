@@ -516,9 +516,14 @@ scale_layout (SwStackView *self, int width, int height)
   if (!sw_scale_layout (v, MARGIN, top + legend_h, self->label_x - LEADER_GAP - MARGIN,
                         bottom - top - legend_h, bar_w, person_w, &self->sgeom))
     {
+      int mh;
       for (guint i = 0; i < self->n_items; i++)
         g_clear_object (&self->items[i].label);
       self->n_items = 0;
+      layout_message (self, _("Too little room here to draw the vehicle to scale."),
+                      width - 2 * MARGIN - 16.0);
+      pango_layout_get_pixel_size (self->message, NULL, &mh);
+      self->message_rect = GRAPHENE_RECT_INIT (MARGIN, top, width - 2 * MARGIN, mh + 12.0);
       return;
     }
   self->scale_drawn = TRUE;
