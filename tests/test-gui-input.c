@@ -591,6 +591,65 @@ test_parse (void)
     }
 }
 
+
+/* Point at (@x, @y) of @widget's own coordinates. */
+static void
+point_at_xy (SwWindow *w, GtkWidget *widget, double x, double y)
+{
+  g_autofree char *xid = xid_of (w);
+  graphene_point_t in = GRAPHENE_POINT_INIT (x, y), out;
+  double sx, sy;
+  g_autofree char *px = NULL, *py = NULL;
+
+  g_assert_true (gtk_widget_compute_point (widget, GTK_WIDGET (w), &in, &out));
+  gtk_native_get_surface_transform (GTK_NATIVE (w), &sx, &sy);
+  px = g_strdup_printf ("%d", (int) (out.x + sx));
+  py = g_strdup_printf ("%d", (int) (out.y + sy));
+  xdo ("mousemove", "--window", xid, "--sync", px, py, NULL);
+}
+
+/* A click on "To scale" switches the stack view and the setting; a click
+ * on a stage there selects it; a drag there changes nothing (no share is
+ * dragged in the to-scale picture). */
+static void
+test_to_scale_clicks (void)
+{
+  SwWindow *w = window_with_demo ("three-stage-simulated.stagewright");
+  g_autoptr (GSettings) settings = g_settings_new ("org.stagewright.Stagewright");
+  g_autoptr (SwDesign) before = sw_design_copy (doc_design (w));
+  GtkWidget *view = GTK_WIDGET (sw_window_get_stack_view (w));
+  g_autofree char *xid = xid_of (w);
+  graphene_rect_t rc, lower;
+
+  g_assert_false (sw_stack_view_get_to_scale (SW_STACK_VIEW (view)));
+  xdo ("windowfocus", "--sync", xid, NULL);
+  point_at (w, sw_window_get_scale_toggle (w));
+  xdo ("click", "1", NULL);
+  g_assert_true (sw_stack_view_get_to_scale (SW_STACK_VIEW (view)));
+  g_assert_true (g_settings_get_boolean (settings, "stack-to-scale"));
+  g_assert_cmpfloat (sw_stack_view_get_metre_scale (SW_STACK_VIEW (view)), >, 0.0);
+  maybe_shot (w, "to-scale.png");
+
+  g_assert_true (sw_stack_view_get_block_rect (SW_STACK_VIEW (view), 1, &rc));
+  point_at_xy (w, view, rc.origin.x + rc.size.width / 2.0, rc.origin.y + rc.size.height / 2.0);
+  xdo ("click", "1", NULL);
+  g_assert_cmpint (sw_inspector_get_selected (sw_window_get_inspector (w)), ==, 1);
+
+  /* Press on the joint between stages 1 and 2 and drag up: nothing moves. */
+  g_assert_true (sw_stack_view_get_block_rect (SW_STACK_VIEW (view), 0, &lower));
+  point_at_xy (w, view, lower.origin.x + lower.size.width / 2.0, lower.origin.y + 1.0);
+  xdo ("mousedown", "1", NULL);
+  point_at_xy (w, view, lower.origin.x + lower.size.width / 2.0, lower.origin.y - 40.0);
+  xdo ("mouseup", "1", NULL);
+  assert_unchanged (w, before);
+
+  point_at (w, sw_window_get_scale_toggle (w));
+  g_settings_set_boolean (settings, "stack-to-scale", FALSE);
+  drain ();
+  g_assert_false (sw_stack_view_get_to_scale (SW_STACK_VIEW (view)));
+  sw_test_window_close (w);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -614,6 +673,7 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/input/undo-in-field", test_undo_in_field);
   g_test_add_func ("/gui/input/first-start", test_first_start);
   g_test_add_func ("/gui/input/new-stage-flies", test_new_stage_flies);
+  g_test_add_func ("/gui/input/to-scale-clicks", test_to_scale_clicks);
 
   status = g_test_run ();
   sw_gui_test_env_finish (tmp_dir);

@@ -28,6 +28,8 @@ SwWorkingView *sw_window_get_working_view (SwWindow *self);
 SwAscentPage  *sw_window_get_ascent_page (SwWindow *self);
 SwTradePage   *sw_window_get_trade_page (SwWindow *self);
 SwStagingPage *sw_window_get_staging_page (SwWindow *self);
+/* The stack view's "To scale" toggle (its partner is "Mass"). */
+GtkWidget     *sw_window_get_scale_toggle (SwWindow *self);
 /* The export dialog while it is open (design.export opens it), or NULL. */
 SwExportDialog *sw_window_get_export_dialog (SwWindow *self);
 /* Brings a page of the notebook to the front: "curves", "working",

@@ -629,6 +629,13 @@ sw_window_get_totals (SwWindow *self)
   return self->totals;
 }
 
+GtkWidget *
+sw_window_get_scale_toggle (SwWindow *self)
+{
+  g_return_val_if_fail (SW_IS_WINDOW (self), NULL);
+  return GTK_WIDGET (self->scale_view_button);
+}
+
 SwWorkingView *
 sw_window_get_working_view (SwWindow *self)
 {
