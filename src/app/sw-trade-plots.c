@@ -145,6 +145,84 @@ sw_trade_plots_show_sweep (SwPlot *plot, SwAnalysis *r)
     sw_plot_add_marker (plot, cx, cy, _("this design"), SW_MARKER_CURRENT);
 }
 
+const char *
+sw_trade_plots_note (SwAnalysis *r)
+{
+  if (r == NULL || !r->ok)
+    return "";
+  if (r->payload_curves.applies)
+    return r->payload_curves.note;
+  return r->stage_curve.note;
+}
+
+static void
+show_payload_curve (SwPlot *plot, SwAnalysis *r, gboolean altitude)
+{
+  const SwPayloadCurve *c = altitude ? &r->payload_curves.altitude
+                                     : &r->payload_curves.inclination;
+  double x[SW_PAYLOAD_CURVE_MAX], y[SW_PAYLOAD_CURVE_MAX];
+  double y_max = 0.0;
+
+  sw_plot_clear (plot);
+  sw_plot_set_x_integer (plot, FALSE);
+  if (altitude)
+    {
+      g_autofree char *title = g_strdup_printf (_("Payload against circular-orbit altitude, "
+                                                  "at %.1f° inclination"),
+                                                r->payload_curves.inclination_deg);
+      sw_plot_set_title (plot, title);
+      sw_plot_set_x_axis (plot, _("Orbit altitude"), FALSE);
+      /* Translators: tick labels of an altitude axis in km */
+      sw_plot_set_x_format (plot, _("%.0f km"), 1.0);
+    }
+  else
+    {
+      g_autofree char *title = g_strdup_printf (_("Payload against inclination, at %.0f km"),
+                                                r->payload_curves.altitude_km);
+      sw_plot_set_title (plot, title);
+      sw_plot_set_x_axis (plot, _("Inclination"), FALSE);
+      /* Translators: tick labels of an angle axis in degrees */
+      sw_plot_set_x_format (plot, _("%.0f°"), 1.0);
+    }
+  sw_plot_set_y_axis (plot, _("Payload"), FALSE);
+  sw_plot_set_y_format (plot, _("%.3g t"), 1000.0);
+  sw_plot_set_empty_text (plot, _("No payload: the vehicle reaches none of these orbits."));
+  for (guint i = 0; i < c->n_points; i++)
+    {
+      x[i] = c->points[i].x;
+      y[i] = c->points[i].reachable ? c->points[i].payload_kg : NAN;
+      if (isfinite (y[i]))
+        y_max = MAX (y_max, y[i]);
+    }
+  if (r->performance.reachable)
+    y_max = MAX (y_max, r->performance.payload_kg);
+  if (c->n_points > 0)
+    sw_plot_set_x_range (plot, x[0], x[c->n_points - 1]);
+  sw_plot_set_y_range (plot, 0.0, y_max > 0.0 ? 1.1 * y_max : NAN);
+  if (y_max <= 0.0)
+    return;
+  sw_plot_add_series (plot, _("Payload capability"), x, y, c->n_points, SW_PLOT_LINE_POINTS,
+                      0);
+  if (r->performance.reachable)
+    sw_plot_add_marker (plot, altitude ? r->payload_curves.altitude_km
+                                       : r->payload_curves.inclination_deg,
+                        r->performance.payload_kg, _("this design"), SW_MARKER_CURRENT);
+}
+
+void
+sw_trade_plots_show_payload_altitude (SwPlot *plot, SwAnalysis *r)
+{
+  g_return_if_fail (SW_IS_PLOT (plot) && r != NULL);
+  show_payload_curve (plot, r, TRUE);
+}
+
+void
+sw_trade_plots_show_payload_inclination (SwPlot *plot, SwAnalysis *r)
+{
+  g_return_if_fail (SW_IS_PLOT (plot) && r != NULL);
+  show_payload_curve (plot, r, FALSE);
+}
+
 void
 sw_trade_plots_add_band (SwPlot *plot, SwAnalysis *r)
 {

@@ -92,6 +92,12 @@ sw_sheet_draw_staging (cairo_t *cr, const SwDesign *design, double x, double y, 
                                s.reuse_mode == SW_RECOVERY_LAUNCH_SITE
                                  ? _("returns to the launch site") : _("lands downrange"),
                                s.weighting);
+  if (s.fixed_note[0] != '\0')
+    {
+      char *more = g_strconcat (s.fixed_note, " ", s.reuse_note, " ", statement, NULL);
+      g_free (statement);
+      statement = more;
+    }
   {
     TextStyle note = sw_sheet_style_w (6.0, FALSE, MUTED, PANGO_ALIGN_LEFT, w);
     note.ellipsize = TRUE;

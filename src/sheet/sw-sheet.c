@@ -227,6 +227,13 @@ draw_totals (const Page *p, const SwAnalysis *a, double x, double y, double w, d
 
   ADD_ROW (_("Payload"), sw_format_mass (s->payload_kg),
            c ? delta_text (&c->totals[SW_TOTAL_PAYLOAD], TRUE, FALSE) : NULL, INK);
+  /* A vehicle that exists: what it carries to the mission. */
+  if (a->has_performance)
+    ADD_ROW (_("Payload capability"),
+             a->performance.reachable ? sw_format_mass (a->performance.payload_kg)
+                                      : g_strdup (_("none: short even empty")),
+             NULL, a->performance.reachable && a->performance.payload_kg >= s->payload_kg
+                     ? INK : BAD);
   {
     g_autofree char *pp = c != NULL
                             ? sw_format_signed (100.0 * c->totals[SW_TOTAL_PAYLOAD_FRACTION].delta,

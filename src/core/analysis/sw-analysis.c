@@ -390,6 +390,22 @@ prepare_ascent (SwAnalysis *r)
     r->ascent_pending = TRUE;
 }
 
+/* The payload of a vehicle that exists, and its curves (through the phases
+ * API, so whatever it flies the curves fly too). */
+static void
+prepare_performance (SwAnalysis *r, GCancellable *cancellable)
+{
+  const SwAnalysisOptions *o = &r->options;
+  g_autoptr (GError) error = NULL;
+
+  r->has_performance = sw_design_performance (r->design, &r->performance, &error);
+  if (!r->has_performance)
+    g_strlcpy (r->performance_error, error->message, sizeof r->performance_error);
+  sw_payload_curves_compute (r->design, o->payload_altitudes_km, o->n_payload_altitudes,
+                             o->payload_inclinations_deg, o->n_payload_inclinations,
+                             o->payload_simulate, cancellable, &r->payload_curves);
+}
+
 /* The comparison with the baseline, from the sizing in force. */
 static void
 compare_with_baseline (SwAnalysis *r)
@@ -487,6 +503,7 @@ sw_analysis_new (const SwDesign *design, guint64 serial, const SwAnalysisOptions
                   && sw_design_budget (design, &r->budget, NULL);
   sw_stage_curve_compute (design, r->delta_v_m_s, SW_MAX_STAGES, &r->stage_curve);
   sw_sweep_compute (design, SW_SWEEP_CURVES, SW_SWEEP_POINTS, &r->sweep);
+  prepare_performance (r, cancellable);
   prepare_ascent (r);
   prepare_trade (r);
   note_trade_losses (r);
