@@ -153,7 +153,7 @@ test_reuse_fixed_note (void)
 
   g_assert_no_error (error);
   g_assert_true (sw_staging_compute (d, 6, &st, NULL));
-  g_assert_nonnull (strstr (st.reuse_note, "recovered columns resize every stage"));
+  g_assert_nonnull (strstr (st.reuse_note, "recovered columns resize every stage too"));
   d->stages[1].propellant.has_propellant_kg = FALSE;
   g_assert_true (sw_staging_compute (d, 6, &st, NULL));
   g_assert_cmpstr (st.reuse_note, ==, "");

@@ -98,8 +98,7 @@ sw_staging_compute (const SwDesign *design, guint max_stages, SwStaging *out, GE
                       "included: the fixed propellant load of stage %u (%s) is not applied."),
                     i + 1, design->stages[i].name);
         g_snprintf (out->reuse_note, sizeof out->reuse_note,
-                    _("The recovered columns resize every stage for the heavier first stage; "
-                      "a fixed propellant load is not applied there either."));
+                    _("The recovered columns resize every stage too."));
         break;
       }
 
