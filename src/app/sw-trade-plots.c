@@ -155,13 +155,24 @@ sw_trade_plots_note (SwAnalysis *r)
   return r->stage_curve.note;
 }
 
+gboolean
+sw_trade_plots_payload_point (SwAnalysis *r, gboolean altitude, double *x, double *y)
+{
+  if (r == NULL || !r->ok || !r->payload_curves.applies || !r->has_performance
+      || !r->performance.reachable)
+    return FALSE;
+  *x = altitude ? r->payload_curves.altitude_km : r->payload_curves.inclination_deg;
+  *y = r->performance.payload_kg;
+  return TRUE;
+}
+
 static void
 show_payload_curve (SwPlot *plot, SwAnalysis *r, gboolean altitude)
 {
   const SwPayloadCurve *c = altitude ? &r->payload_curves.altitude
                                      : &r->payload_curves.inclination;
   double x[SW_PAYLOAD_CURVE_MAX], y[SW_PAYLOAD_CURVE_MAX];
-  double y_max = 0.0;
+  double y_max = 0.0, mx, my;
 
   sw_plot_clear (plot);
   sw_plot_set_x_integer (plot, FALSE);
@@ -203,10 +214,8 @@ show_payload_curve (SwPlot *plot, SwAnalysis *r, gboolean altitude)
     return;
   sw_plot_add_series (plot, _("Payload capability"), x, y, c->n_points, SW_PLOT_LINE_POINTS,
                       0);
-  if (r->performance.reachable)
-    sw_plot_add_marker (plot, altitude ? r->payload_curves.altitude_km
-                                       : r->payload_curves.inclination_deg,
-                        r->performance.payload_kg, _("this design"), SW_MARKER_CURRENT);
+  if (sw_trade_plots_payload_point (r, altitude, &mx, &my))
+    sw_plot_add_marker (plot, mx, my, _("this design"), SW_MARKER_CURRENT);
 }
 
 void

@@ -23,6 +23,10 @@ void sw_trade_plots_show_payload_inclination (SwPlot *plot, SwAnalysis *result);
 /* The note shown above the curves: why a fixed load is left out of them,
  * or what losses the payload curves use; "" when none. */
 const char *sw_trade_plots_note (SwAnalysis *result);
+/* Where this design's marker goes on a payload curve (@altitude: the
+ * altitude curve), in data coordinates; FALSE when it has none. */
+gboolean sw_trade_plots_payload_point (SwAnalysis *result, gboolean altitude, double *x,
+                                       double *y);
 
 /* Overlays, also used by the trade-study page: the Monte Carlo band on the
  * stage-count curve; the baseline's stage-count curve (@which 0) and its

@@ -660,6 +660,14 @@ sw_window_get_export_dialog (SwWindow *self)
   return self->export_dialog;
 }
 
+const char *
+sw_window_get_curves_note (SwWindow *self)
+{
+  g_return_val_if_fail (SW_IS_WINDOW (self), NULL);
+  return gtk_widget_get_visible (GTK_WIDGET (self->curves_note))
+           ? gtk_label_get_text (self->curves_note) : NULL;
+}
+
 SwPlot *
 sw_window_get_plot (SwWindow *self, guint which)
 {
