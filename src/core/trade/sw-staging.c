@@ -97,8 +97,8 @@ sw_staging_compute (const SwDesign *design, guint max_stages, SwStaging *out, GE
                     _("Every stage count is sized from the payload up, this design's own "
                       "included: the fixed propellant load of stage %u (%s) is not applied."),
                     i + 1, design->stages[i].name);
-        g_snprintf (out->reuse_note, sizeof out->reuse_note,
-                    _("The recovered columns resize every stage too."));
+        g_strlcpy (out->reuse_note, _("The recovered columns resize every stage too."),
+                   sizeof out->reuse_note);
         break;
       }
 
