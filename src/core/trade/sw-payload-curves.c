@@ -105,17 +105,20 @@ payload_at (const SwDesign *design, double altitude_km, double inclination_deg,
  * NAN with @reason when the flight finds no steering. */
 static double
 flown_losses (const SwDesign *design, double altitude_km, double inclination_deg,
-              double payload_kg, double losses_m_s, GCancellable *cancellable, char *reason)
+              double payload_kg, GCancellable *cancellable, char *reason)
 {
   g_autoptr (GError) error = NULL;
   g_autoptr (SwAscentResult) res = NULL;
   SwAscentOptions o;
   SwDesign tmp = *design;
 
+  /* Every stage is fixed, so the allowance changes nothing of the vehicle
+   * flown; none at all keeps its sizing feasible whatever the flight then
+   * shows (the losses are the flight's, not the allowance's). */
   tmp.mission.altitude_km = altitude_km;
   tmp.mission.inclination_deg = inclination_deg;
   tmp.mission.loss_model = SW_LOSS_ALLOWANCE;
-  tmp.mission.losses_m_s = losses_m_s;
+  tmp.mission.losses_m_s = 0.0;
   tmp.mission.has_losses = TRUE;
   tmp.payload_kg = payload_kg;
   sw_ascent_options_init (&o);
@@ -158,7 +161,7 @@ sw_payload_point_compute (const SwDesign *design, double altitude_km, double inc
        * file allows, to see whether the flown losses are smaller. */
       double payload = out->reachable ? out->payload_kg * (1.0 - 1e-9) : pl->min;
       double flown = flown_losses (design, altitude_km, inclination_deg,
-                                   MAX (payload, pl->min), losses, cancellable, why);
+                                   MAX (payload, pl->min), cancellable, why);
 
       if (g_cancellable_is_cancelled (cancellable))
         return;
