@@ -259,6 +259,35 @@ test_simulated_point (void)
   g_assert_cmpfloat (p.losses_m_s, >, d->mission.losses_m_s);
 }
 
+/* A "loss_model": "simulate" vehicle that exists: after the closed loop,
+ * the capability is the one at the loop's losses (by hand), not at the
+ * first guess, and the curves say so. */
+static void
+test_closed_loop_losses (void)
+{
+  g_autoptr (SwDesign) d = demo ("sallowmere-as-built.stagewright");
+  g_autoptr (SwAnalysis) a = NULL;
+  SwAnalysisOptions o;
+  double want;
+
+  d->mission.loss_model = SW_LOSS_SIMULATE;
+  d->mission.losses_m_s = 1800.0;
+  sw_analysis_options_init (&o);
+  o.montecarlo = FALSE;
+  a = sw_analysis_run (d, &o, NULL);
+  g_assert_nonnull (a->ascent);
+  g_assert_true (a->sized_by_ascent);
+  want = hand_payload (d, hand_ideal (400.0, 45.0, 35.0) + a->ascent->loop_sized_losses_m_s);
+  g_assert_true (a->performance.reachable);
+  g_assert_cmpfloat (fabs (a->performance.payload_kg - want), <, 1e-6 * want);
+  /* Well below what the first guess of 1,800 m/s would promise. */
+  g_assert_cmpfloat (a->performance.payload_kg, <,
+                     hand_payload (d, hand_ideal (400.0, 45.0, 35.0) + 1800.0) - 300.0);
+  g_assert_nonnull (strstr (a->payload_curves.note, "closed loop"));
+  g_assert_cmpfloat (fabs (a->payload_curves.altitude.points[2].payload_kg - want), <,
+                     1e-6 * want);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -269,5 +298,6 @@ main (int argc, char **argv)
   g_test_add_func ("/payload-curves/not-applicable", test_not_applicable);
   g_test_add_func ("/payload-curves/grid-check", test_grid_check);
   g_test_add_func ("/payload-curves/simulated-point", test_simulated_point);
+  g_test_add_func ("/payload-curves/closed-loop-losses", test_closed_loop_losses);
   return g_test_run ();
 }

@@ -367,6 +367,10 @@ sw_cli_performance (int argc, char **argv)
   if (!sw_cli_parse ("performance", performance_entries, &argc, &argv, 1, &code))
     return code;
   fast_options (&o);
+  /* A "loss_model": "simulate" design carries what it carries at the
+   * closed loop's losses, as in the window (an allowance design flies one
+   * ascent for its verdict). */
+  o.ascent = TRUE;
   o.payload_simulate = opt_simulate;
   if ((opt_altitudes != NULL
        && (!parse_list (opt_altitudes, "--altitudes", o.payload_altitudes_km,
@@ -398,6 +402,7 @@ sw_cli_performance (int argc, char **argv)
       json_builder_begin_object (b);
       json_builder_set_member_name (b, "name");
       json_builder_add_string_value (b, d->name);
+      sw_cli_add_verdict (b, a);
       json_builder_set_member_name (b, "reachable");
       json_builder_add_boolean_value (b, p->reachable);
       json_builder_set_member_name (b, "reason");

@@ -406,6 +406,41 @@ prepare_performance (SwAnalysis *r, GCancellable *cancellable)
                              o->payload_simulate, cancellable, &r->payload_curves);
 }
 
+/* After the closed loop of a "loss_model": "simulate" design: the payload
+ * capability and the curves again, with the closed loop's losses in place
+ * of the first guess (the loop flew this orbit, so its losses are this
+ * orbit's; the other points keep them as their allowance, and say so). */
+static void
+performance_with_loop_losses (SwAnalysis *r, double losses_m_s, GCancellable *cancellable)
+{
+  g_autoptr (SwDesign) looped = NULL;
+  g_autofree char *v = NULL;
+
+  if (!r->has_performance)
+    return;
+  looped = sw_design_copy (r->design);
+  looped->mission.loss_model = SW_LOSS_ALLOWANCE;
+  looped->mission.losses_m_s = losses_m_s;
+  looped->mission.has_losses = TRUE;
+  r->has_performance = sw_design_performance (looped, &r->performance, NULL);
+  sw_payload_curves_compute (looped, r->options.payload_altitudes_km,
+                             r->options.n_payload_altitudes, r->options.payload_inclinations_deg,
+                             r->options.n_payload_inclinations, r->options.payload_simulate,
+                             cancellable, &r->payload_curves);
+  if (r->payload_curves.applies && !r->options.payload_simulate)
+    {
+      v = sw_format_speed (losses_m_s);
+      /* Translators: %s is a speed such as "2,364 m/s" */
+      g_snprintf (r->payload_curves.note, sizeof r->payload_curves.note,
+                  _("Every point uses the closed loop's losses at this design's orbit, %s. The "
+                    "budget's ideal delta-v is the orbital speed only, not the climb, so at "
+                    "fixed losses the payload rises with altitude; the command line's "
+                    "performance --simulate flies each point and counts the climb in its "
+                    "losses."),
+                  v);
+    }
+}
+
 /* The comparison with the baseline, from the sizing in force. */
 static void
 compare_with_baseline (SwAnalysis *r)
@@ -637,6 +672,7 @@ sw_analysis_add_ascent (const SwAnalysis *prev, GCancellable *cancellable)
           r->budget.delta_v_m_s = r->budget.ideal_delta_v_m_s + r->budget.losses_m_s;
         }
       sw_stage_curve_compute (r->design, r->delta_v_m_s, SW_MAX_STAGES, &r->stage_curve);
+      performance_with_loop_losses (r, ascent->loop_sized_losses_m_s, cancellable);
       compare_with_baseline (r);
       r->has_stage_figures = sw_ascent_stage_figures (r->design, &r->sizing, r->stage_figures,
                                                       NULL);
