@@ -386,6 +386,16 @@ sw_cli_performance (int argc, char **argv)
       g_printerr (_("stagewright-cli performance: %s\n"), error->message);
       return SW_EXIT_USAGE;
     }
+  /* A sized stage is refused before anything is flown. */
+  {
+    g_autoptr (SwDesign) loaded = sw_cli_load (argv[1]);
+    SwPerformance check;
+
+    if (loaded == NULL)
+      return SW_EXIT_USAGE;
+    if (!sw_design_performance (loaded, &check, &error))
+      return sw_cli_input_error (argv[1], error);
+  }
   if ((a = sw_cli_analyse (argv[1], &o, &code)) == NULL)
     return code;
   if (!a->has_performance)
