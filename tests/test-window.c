@@ -283,7 +283,7 @@ test_payload_curves (void)
       g_assert_true (sw_plot_data_to_widget (sw_window_get_plot (w, which), x, y, &wx, &wy));
     }
   g_assert_nonnull (sw_window_get_curves_note (w));
-  g_assert_nonnull (strstr (sw_window_get_curves_note (w), "loss allowance of 2380 m/s"));
+  g_assert_nonnull (strstr (sw_window_get_curves_note (w), "loss allowance of 2,380 m/s"));
 
   load_demo (w, "sallowmere-kestrune-upper-stage.stagewright");
   r = sw_window_get_shown_result (w);

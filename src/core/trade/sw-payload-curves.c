@@ -18,8 +18,6 @@
  * (the closed loop of the sizing uses the same tolerance). */
 #define LOOP_MAX 8
 #define LOOP_TOLERANCE_M_S 1.0
-/* The closed loop's first guess when a simulate design gives no allowance. */
-#define FIRST_GUESS_LOSSES_M_S 1500.0
 
 guint
 sw_payload_default_altitudes (double *altitudes_km)
@@ -144,7 +142,7 @@ sw_payload_point_compute (const SwDesign *design, double altitude_km, double inc
 {
   const SwMission *m = &design->mission;
   double losses = m->has_losses ? m->losses_m_s
-                  : m->loss_model == SW_LOSS_SIMULATE ? FIRST_GUESS_LOSSES_M_S : 0.0;
+                  : m->loss_model == SW_LOSS_SIMULATE ? SW_PAYLOAD_FIRST_GUESS_LOSSES_M_S : 0.0;
   const SwLimit *pl = sw_limit_get (SW_LIMIT_PAYLOAD);
 
   g_return_if_fail (design != NULL && out != NULL);
@@ -269,7 +267,7 @@ sw_payload_curves_compute (const SwDesign *design, const double *altitudes_km, g
                   "fixed allowance the payload rises with altitude; the command line's "
                   "performance --simulate flies each point and counts the climb in its "
                   "losses."),
-                m->has_losses ? m->losses_m_s : FIRST_GUESS_LOSSES_M_S);
+                m->has_losses ? m->losses_m_s : SW_PAYLOAD_FIRST_GUESS_LOSSES_M_S);
   else
     g_snprintf (out->note, sizeof out->note,
                 _("Every point uses the design's loss allowance of %.0f m/s. The budget's "

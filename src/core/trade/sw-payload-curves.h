@@ -22,6 +22,9 @@ G_BEGIN_DECLS
 
 #define SW_PAYLOAD_CURVE_MAX 64
 #define SW_PAYLOAD_NOTE_MAX 512
+/* The losses a "loss_model": "simulate" design without losses_m_s starts
+ * from (the closed loop's first guess, sw-ascent.h). */
+#define SW_PAYLOAD_FIRST_GUESS_LOSSES_M_S 1500.0
 
 typedef struct {
   double   x;                 /* altitude_km or inclination_deg */
