@@ -427,6 +427,59 @@ test_performance_curves (void)
   }
 }
 
+/* `export --csv`: payload-curves.csv for a vehicle that exists, one row
+ * per point of both curves with the core's numbers; none for a sized one. */
+static void
+test_payload_curves_csv (void)
+{
+  g_autofree char *path = g_build_filename (g_getenv ("SW_SOURCE_ROOT"), "data", "designs",
+                                            "sallowmere-as-built.stagewright", NULL);
+  g_autofree char *sized = g_build_filename (g_getenv ("SW_SOURCE_ROOT"), "data", "designs",
+                                             "small-sat-launcher.stagewright", NULL);
+  g_autofree char *dir = g_dir_make_tmp ("sw-cli-pc-XXXXXX", NULL);
+  g_autofree char *dir2 = g_dir_make_tmp ("sw-cli-pc-XXXXXX", NULL);
+  g_autofree char *file = g_build_filename (dir, "payload-curves.csv", NULL);
+  g_autofree char *file2 = g_build_filename (dir2, "payload-curves.csv", NULL);
+  g_autofree char *text = NULL, *out = NULL, *out2 = NULL;
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
+  g_auto (GStrv) lines = NULL;
+  SwPayloadCurves want;
+  guint rows = 0;
+  int code;
+
+  {
+    const char *const args[] = { "export", "--csv", dir, "--no-ascent", path, NULL };
+    out = run_cli_args (args, &code);
+    g_assert_cmpint (code, ==, 0);
+  }
+  {
+    const char *const args[] = { "export", "--csv", dir2, "--no-ascent", sized, NULL };
+    out2 = run_cli_args (args, &code);
+    g_assert_cmpint (code, ==, 0);
+  }
+  g_assert_false (g_file_test (file2, G_FILE_TEST_EXISTS));
+  g_assert_true (g_file_get_contents (file, &text, NULL, NULL));
+  g_assert_true (sw_payload_curves_compute (d, NULL, 0, NULL, 0, FALSE, NULL, &want));
+  lines = g_strsplit (text, "\n", -1);
+  g_assert_true (g_str_has_prefix (lines[0], "# Conceptual sizing only"));
+  g_assert_cmpstr (lines[1], ==, "curve,altitude_km,inclination_deg,payload_kg,delta_v_m_s,"
+                                 "losses_m_s,losses_simulated,reason");
+  for (guint i = 2; lines[i] != NULL && lines[i][0] != '\0'; i++)
+    {
+      g_auto (GStrv) f = g_strsplit (lines[i], ",", -1);
+      gboolean alt = g_str_equal (f[0], "altitude");
+      guint k = alt ? rows : rows - want.altitude.n_points;
+      const SwPayloadPoint *p = alt ? &want.altitude.points[k] : &want.inclination.points[k];
+      double x = g_ascii_strtod (alt ? f[1] : f[2], NULL);
+
+      g_assert_cmpfloat (fabs (x - p->x), <, 1e-9 * MAX (1.0, p->x));
+      g_assert_cmpfloat (fabs (g_ascii_strtod (f[3], NULL) - p->payload_kg), <,
+                         1e-6 * p->payload_kg);
+      rows++;
+    }
+  g_assert_cmpuint (rows, ==, want.altitude.n_points + want.inclination.n_points);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -435,5 +488,6 @@ main (int argc, char **argv)
   g_test_add_func ("/cli-shape/version-one-demo", test_version_one_demo);
   g_test_add_func ("/cli-shape/performance", test_performance);
   g_test_add_func ("/cli-shape/performance-curves", test_performance_curves);
+  g_test_add_func ("/cli-shape/payload-curves-csv", test_payload_curves_csv);
   return g_test_run ();
 }
