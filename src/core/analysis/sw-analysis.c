@@ -450,11 +450,14 @@ performance_with_loop_losses (SwAnalysis *r, double losses_m_s, GCancellable *ca
   looped->mission.losses_m_s = losses_m_s;
   looped->mission.has_losses = TRUE;
   r->has_performance = sw_design_performance (looped, &r->performance, NULL);
+  /* Flown curves fly every point whatever losses they start from. */
+  if (r->options.payload_simulate)
+    return;
   sw_payload_curves_compute (looped, r->options.payload_altitudes_km,
                              r->options.n_payload_altitudes, r->options.payload_inclinations_deg,
-                             r->options.n_payload_inclinations, r->options.payload_simulate,
-                             cancellable, &r->payload_curves);
-  if (r->payload_curves.applies && !r->options.payload_simulate)
+                             r->options.n_payload_inclinations, FALSE, cancellable,
+                             &r->payload_curves);
+  if (r->payload_curves.applies)
     {
       v = sw_format_speed (losses_m_s);
       /* Translators: %s is a speed such as "2,364 m/s" */
