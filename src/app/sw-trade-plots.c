@@ -5,6 +5,8 @@
 
 #include "sw-trade-plots.h"
 
+#include "sw-format.h"
+
 #include <glib/gi18n.h>
 #include <math.h>
 
@@ -188,8 +190,9 @@ show_payload_curve (SwPlot *plot, SwAnalysis *r, gboolean altitude)
     }
   else
     {
-      g_autofree char *title = g_strdup_printf (_("Payload against inclination, at %.0f km"),
-                                                r->payload_curves.altitude_km);
+      g_autofree char *alt = sw_format_number (r->payload_curves.altitude_km, 0);
+      /* Translators: %s is an altitude such as "1,200" */
+      g_autofree char *title = g_strdup_printf (_("Payload against inclination, at %s km"), alt);
       sw_plot_set_title (plot, title);
       sw_plot_set_x_axis (plot, _("Inclination"), FALSE);
       /* Translators: tick labels of an angle axis in degrees */
@@ -207,8 +210,17 @@ show_payload_curve (SwPlot *plot, SwAnalysis *r, gboolean altitude)
     }
   if (r->performance.reachable)
     y_max = MAX (y_max, r->performance.payload_kg);
+  /* The grid, widened to this design's orbit when it lies outside. */
   if (c->n_points > 0)
-    sw_plot_set_x_range (plot, x[0], x[c->n_points - 1]);
+    {
+      double lo = x[0], hi = x[c->n_points - 1];
+      if (sw_trade_plots_payload_point (r, altitude, &mx, &my))
+        {
+          lo = MIN (lo, mx);
+          hi = MAX (hi, mx);
+        }
+      sw_plot_set_x_range (plot, lo, hi);
+    }
   sw_plot_set_y_range (plot, 0.0, y_max > 0.0 ? 1.1 * y_max : NAN);
   if (y_max <= 0.0)
     return;
