@@ -896,6 +896,42 @@ test_cli (void)
   }
 }
 
+/* A vehicle whose every stage is fixed carries more delta-v than its
+ * mission needs when its payload is below its capability: the flight's
+ * margin is what its loads give (the rocket equation written out here, from
+ * the demo's numbers) less what the flight needed, not zero. */
+static void
+test_fixed_vehicle_margin (void)
+{
+  g_autoptr (GError) error = NULL;
+  g_autofree char *path = g_build_filename (g_getenv ("SW_SOURCE_ROOT"), "data", "designs",
+                                            "sallowmere-as-built.stagewright", NULL);
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, &error);
+  g_autoptr (SwAscentResult) res = NULL;
+  SwAscentOptions o;
+  double above, gives = 0.0;
+
+  g_assert_no_error (error);
+  above = d->payload_kg;
+  for (int i = (int) d->n_stages - 1; i >= 0; i--)
+    {
+      const SwStage *st = &d->stages[i];
+      double mp = st->propellant.propellant_kg;
+      double ms = mp * st->structural_coefficient / (1.0 - st->structural_coefficient);
+      gives += st->isp_vac_s * 9.80665 * log ((above + mp + ms) / (above + ms));
+      above += mp + ms;
+    }
+  sw_ascent_options_init (&o);
+  o.record = FALSE;
+  res = sw_ascent_solve (d, &o, NULL, &error);
+  g_assert_no_error (error);
+  g_assert_cmpint (res->status, ==, SW_ASCENT_REACHED);
+  g_assert_cmpfloat (fabs (res->sized_delta_v_m_s - gives), <, 1e-6);
+  g_assert_cmpfloat (fabs (res->delta_v_margin_m_s - (gives - res->delta_v_needed_m_s)), <, 1e-6);
+  /* 2,000 kg of a 2,207 kg capability: well over 100 m/s to spare. */
+  g_assert_cmpfloat (res->delta_v_margin_m_s, >, 100.0);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -917,5 +953,6 @@ main (int argc, char **argv)
   g_test_add_func ("/core/ascent/bad-propulsion", test_bad_propulsion);
   g_test_add_func ("/core/ascent/cancel", test_cancel);
   g_test_add_func ("/core/ascent/cli", test_cli);
+  g_test_add_func ("/core/ascent/fixed-vehicle-margin", test_fixed_vehicle_margin);
   return g_test_run ();
 }

@@ -129,6 +129,80 @@ test_grid_equals_sizings (void)
     }
 }
 
+/* A design with a fixed propellant load on its top stage: the grid honours
+ * it (each point equals sw_size_design of the design with the inputs set,
+ * the fixed load kept); the payload output, no longer linear in the mass,
+ * is checked by bisection: the vehicle sized for that payload weighs what
+ * the design weighs. */
+static void
+test_fixed_loads_honoured (void)
+{
+  g_autoptr (SwDesign) d = load (orbit_json);
+  const SwCarpetOutput outputs[] = { SW_CARPET_LIFTOFF_MASS, SW_CARPET_DEVELOPMENT };
+  SwSizing own, unfixed;
+
+  d->stages[2].propellant.has_propellant_kg = TRUE;
+  d->stages[2].propellant.propellant_kg = 9000.0;
+  g_assert_true (sw_size_design (d, &own, NULL));
+  g_assert_true (own.feasible && own.stages[2].fixed);
+  for (guint o = 0; o < G_N_ELEMENTS (outputs); o++)
+    {
+      SwCarpetOptions opt = { 0 };
+      g_autoptr (SwCarpet) c = NULL;
+
+      axis (&opt.x, d, "stages[0].structural_coefficient", 0.04, 0.16, 50);
+      axis (&opt.y, d, "payload_kg", 1000.0, 6000.0, 50);
+      opt.output = outputs[o];
+      c = sw_carpet_compute (d, &opt, NULL);
+      g_assert_nonnull (c);
+      check_samples (d, c);
+      if (outputs[o] == SW_CARPET_LIFTOFF_MASS)
+        {
+          g_assert_cmpfloat_with_epsilon (c->design_value / own.liftoff_mass_kg, 1.0, 1e-12);
+          /* Not the all-sized vehicle's mass: the fixed load counts. */
+          {
+            SwStageSet set;
+            sw_stage_set_from_design (&set, d);
+            sw_size (&set, d->payload_kg, own.delta_v_m_s, d->split, &unfixed);
+            g_assert_cmpfloat (fabs (c->design_value - unfixed.liftoff_mass_kg), >, 100.0);
+          }
+        }
+    }
+  {
+    SwCarpetOptions opt = { 0 };
+    g_autoptr (SwCarpet) c = NULL;
+    const guint samples[][2] = { { 0, 0 }, { 24, 3 }, { 49, 4 } };
+
+    axis (&opt.x, d, "stages[0].structural_coefficient", 0.04, 0.16, 50);
+    axis (&opt.y, d, "stages[1].isp_vac_s", 320.0, 360.0, 5);
+    opt.output = SW_CARPET_PAYLOAD;
+    c = sw_carpet_compute (d, &opt, NULL);
+    g_assert_nonnull (c);
+    g_assert_cmpfloat_with_epsilon (c->design_value / d->payload_kg, 1.0, 1e-8);
+    for (guint k = 0; k < G_N_ELEMENTS (samples); k++)
+      {
+        guint i = samples[k][0], j = samples[k][1];
+        g_autoptr (SwDesign) copy = sw_design_copy (d);
+        double lo = 1.0, hi = 1.0e5, v = c->values[j * c->x.n + i];
+
+        sw_carpet_apply (&c->x, copy, sw_carpet_axis_value (&c->x, i));
+        sw_carpet_apply (&c->y, copy, sw_carpet_axis_value (&c->y, j));
+        for (int it = 0; it < 100; it++)
+          {
+            SwSizing sz;
+            copy->payload_kg = 0.5 * (lo + hi);
+            g_assert_true (sw_size_design (copy, &sz, NULL));
+            if (sz.feasible && sz.liftoff_mass_kg <= own.liftoff_mass_kg)
+              lo = copy->payload_kg;
+            else
+              hi = copy->payload_kg;
+          }
+        g_assert_true (c->feasible[j * c->x.n + i]);
+        g_assert_cmpfloat_with_epsilon (v / lo, 1.0, 1e-7);
+      }
+  }
+}
+
 /* Losses on an orbit mission; delta-v on a delta-v mission, where the far
  * corner does not close: the default design's two stages (320 s, eps 0.07;
  * 340 s, eps 0.09) reach c1 ln(1/eps1) + c2 ln(1/eps2) = 8345 + 8029
@@ -248,5 +322,6 @@ main (int argc, char **argv)
   g_test_add_func ("/core/carpet/losses-payload-infeasible", test_losses_payload_infeasible);
   g_test_add_func ("/core/carpet/cancel-and-progress", test_cancel_and_progress);
   g_test_add_func ("/core/carpet/bad-axes", test_bad_axes);
+  g_test_add_func ("/core/carpet/fixed-loads-honoured", test_fixed_loads_honoured);
   return g_test_run ();
 }

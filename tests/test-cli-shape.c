@@ -9,6 +9,7 @@
 
 #include "sw-design.h"
 #include "sw-mass-estimate.h"
+#include "sw-payload-curves.h"
 #include "sw-phases.h"
 #include "sw-sizing.h"
 #include "sw-vehicle-shape.h"
@@ -370,6 +371,161 @@ test_performance (void)
   g_rmdir (dir);
 }
 
+/* stagewright-cli with @args (NULL-terminated, at most 8); stdout when it
+ * exits 0, else stderr. */
+static char *
+run_cli_args (const char *const *args, int *code)
+{
+  g_autoptr (GError) error = NULL;
+  g_autofree char *secs = g_strdup_printf ("%d", CLI_TIMEOUT_S);
+  g_autofree char *err = NULL;
+  const char *argv[12] = { "timeout", secs, g_getenv ("SW_CLI"), NULL };
+  char *out = NULL;
+  int status = 0;
+  guint n = 3;
+
+  g_assert_nonnull (argv[2]);
+  for (guint i = 0; args[i] != NULL && n < G_N_ELEMENTS (argv) - 1; i++)
+    argv[n++] = args[i];
+  argv[n] = NULL;
+  g_assert_true (g_spawn_sync (NULL, (char **) argv, NULL, G_SPAWN_SEARCH_PATH, NULL, NULL,
+                               &out, &err, &status, &error));
+  g_assert_no_error (error);
+  g_assert_true (WIFEXITED (status));
+  *code = WEXITSTATUS (status);
+  if (*code != 0)
+    {
+      g_free (out);
+      return g_steal_pointer (&err);
+    }
+  return out;
+}
+
+/* `performance --altitudes --inclinations`: the curves of the JSON are the
+ * core's (checked by hand in test-payload-curves), at the grid asked for;
+ * bad lists are refused naming the option. */
+static void
+test_performance_curves (void)
+{
+  g_autofree char *path = g_build_filename (g_getenv ("SW_SOURCE_ROOT"), "data", "designs",
+                                            "sallowmere-as-built.stagewright", NULL);
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
+  const char *const good[] = { "performance", "--json", "--altitudes", "200, 1000",
+                               "--inclinations", "45,98", path, NULL };
+  const double alts[] = { 200.0, 1000.0 }, incs[] = { 45.0, 98.0 };
+  g_autofree char *out = NULL;
+  g_autoptr (JsonNode) root = NULL;
+  SwPayloadCurves want;
+  JsonArray *curve, *inc;
+  int code;
+
+  g_assert_nonnull (d);
+  out = run_cli_args (good, &code);
+  g_assert_cmpint (code, ==, 0);
+  root = parse (out);
+  g_assert_true (sw_payload_curves_compute (d, alts, 2, incs, 2, FALSE, NULL, &want));
+  curve = json_object_get_array_member (json_node_get_object (root), "payload_curve");
+  inc = json_object_get_array_member (json_node_get_object (root), "inclination_curve");
+  g_assert_cmpuint (json_array_get_length (curve), ==, 2);
+  g_assert_cmpuint (json_array_get_length (inc), ==, 2);
+  for (guint i = 0; i < 2; i++)
+    {
+      JsonObject *a = json_array_get_object_element (curve, i);
+      JsonObject *b = json_array_get_object_element (inc, i);
+      g_assert_cmpfloat (json_object_get_double_member (a, "altitude_km"), ==, alts[i]);
+      g_assert_cmpfloat (fabs (json_object_get_double_member (a, "payload_kg")
+                               - want.altitude.points[i].payload_kg),
+                         <, 1e-6 * want.altitude.points[i].payload_kg);
+      g_assert_cmpfloat (json_object_get_double_member (b, "inclination_deg"), ==, incs[i]);
+      g_assert_cmpfloat (fabs (json_object_get_double_member (b, "payload_kg")
+                               - want.inclination.points[i].payload_kg),
+                         <, 1e-6 * want.inclination.points[i].payload_kg);
+    }
+  g_assert_nonnull (strstr (json_object_get_string_member (json_node_get_object (root),
+                                                          "caution"),
+                            "Conceptual"));
+
+  {
+    const struct { const char *option, *value, *words; } bad[] = {
+      { "--altitudes", "abc", "“abc” is not a number" },
+      { "--altitudes", "200,,300", "is not a number" },
+      { "--altitudes", "50", "out of range" },
+      { "--altitudes", "200,1e9", "out of range" },
+      { "--inclinations", "190", "out of range" },
+      { "--inclinations", "45x", "“45x” is not a number" },
+    };
+    for (guint i = 0; i < G_N_ELEMENTS (bad); i++)
+      {
+        const char *const args[] = { "performance", bad[i].option, bad[i].value, path, NULL };
+        g_autofree char *err = run_cli_args (args, &code);
+        g_assert_cmpint (code, ==, 2);
+        g_assert_nonnull (strstr (err, bad[i].option));
+        g_assert_nonnull (strstr (err, bad[i].words));
+      }
+  }
+  {
+    const char *const text[] = { "performance", path, NULL };
+    g_autofree char *t = run_cli_args (text, &code);
+    g_assert_cmpint (code, ==, 0);
+    g_assert_nonnull (strstr (t, "Payload capability"));
+    g_assert_nonnull (strstr (t, "nominal payload 2,000 kg"));
+    g_assert_nonnull (strstr (t, "Payload against inclination"));
+  }
+}
+
+/* `export --csv`: payload-curves.csv for a vehicle that exists, one row
+ * per point of both curves with the core's numbers; none for a sized one. */
+static void
+test_payload_curves_csv (void)
+{
+  g_autofree char *path = g_build_filename (g_getenv ("SW_SOURCE_ROOT"), "data", "designs",
+                                            "sallowmere-as-built.stagewright", NULL);
+  g_autofree char *sized = g_build_filename (g_getenv ("SW_SOURCE_ROOT"), "data", "designs",
+                                             "small-sat-launcher.stagewright", NULL);
+  g_autofree char *dir = g_dir_make_tmp ("sw-cli-pc-XXXXXX", NULL);
+  g_autofree char *dir2 = g_dir_make_tmp ("sw-cli-pc-XXXXXX", NULL);
+  g_autofree char *file = g_build_filename (dir, "payload-curves.csv", NULL);
+  g_autofree char *file2 = g_build_filename (dir2, "payload-curves.csv", NULL);
+  g_autofree char *text = NULL, *out = NULL, *out2 = NULL;
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
+  g_auto (GStrv) lines = NULL;
+  SwPayloadCurves want;
+  guint rows = 0;
+  int code;
+
+  {
+    const char *const args[] = { "export", "--csv", dir, "--no-ascent", path, NULL };
+    out = run_cli_args (args, &code);
+    g_assert_cmpint (code, ==, 0);
+  }
+  {
+    const char *const args[] = { "export", "--csv", dir2, "--no-ascent", sized, NULL };
+    out2 = run_cli_args (args, &code);
+    g_assert_cmpint (code, ==, 0);
+  }
+  g_assert_false (g_file_test (file2, G_FILE_TEST_EXISTS));
+  g_assert_true (g_file_get_contents (file, &text, NULL, NULL));
+  g_assert_true (sw_payload_curves_compute (d, NULL, 0, NULL, 0, FALSE, NULL, &want));
+  lines = g_strsplit (text, "\n", -1);
+  g_assert_true (g_str_has_prefix (lines[0], "# Conceptual sizing only"));
+  g_assert_cmpstr (lines[1], ==, "curve,altitude_km,inclination_deg,payload_kg,delta_v_m_s,"
+                                 "losses_m_s,losses_simulated,reason");
+  for (guint i = 2; lines[i] != NULL && lines[i][0] != '\0'; i++)
+    {
+      g_auto (GStrv) f = g_strsplit (lines[i], ",", -1);
+      gboolean alt = g_str_equal (f[0], "altitude");
+      guint k = alt ? rows : rows - want.altitude.n_points;
+      const SwPayloadPoint *p = alt ? &want.altitude.points[k] : &want.inclination.points[k];
+      double x = g_ascii_strtod (alt ? f[1] : f[2], NULL);
+
+      g_assert_cmpfloat (fabs (x - p->x), <, 1e-9 * MAX (1.0, p->x));
+      g_assert_cmpfloat (fabs (g_ascii_strtod (f[3], NULL) - p->payload_kg), <,
+                         1e-6 * p->payload_kg);
+      rows++;
+    }
+  g_assert_cmpuint (rows, ==, want.altitude.n_points + want.inclination.n_points);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -377,5 +533,7 @@ main (int argc, char **argv)
   g_test_add_func ("/cli-shape/shape-and-phases", test_shape_and_phases);
   g_test_add_func ("/cli-shape/version-one-demo", test_version_one_demo);
   g_test_add_func ("/cli-shape/performance", test_performance);
+  g_test_add_func ("/cli-shape/performance-curves", test_performance_curves);
+  g_test_add_func ("/cli-shape/payload-curves-csv", test_payload_curves_csv);
   return g_test_run ();
 }

@@ -72,6 +72,7 @@ demo (const char *basename)
 
 static const char *const demos[] = {
   "small-sat-launcher.stagewright", "medium-cargo.stagewright", "all-solid-concept.stagewright",
+  "sallowmere-kestrune-upper-stage.stagewright", "sallowmere-as-built.stagewright",
 };
 
 static JsonNode *

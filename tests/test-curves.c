@@ -276,6 +276,35 @@ test_sweep_clamps (void)
   g_assert_cmpuint (sweep->curves[0].n_points, ==, SW_SWEEP_POINTS);
 }
 
+/* A fixed propellant load is not applied to the curves (they size every
+ * stage): the note says so, naming the stage; a design without one has no
+ * note, and the curve is the same with or without the key. */
+static void
+test_fixed_load_note (void)
+{
+  g_autoptr (GError) error = NULL;
+  g_autofree char *path = g_build_filename (g_getenv ("SW_SOURCE_ROOT"), "data", "designs",
+                                            "sallowmere-kestrune-upper-stage.stagewright", NULL);
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, &error);
+  g_autoptr (SwDesign) sized = NULL;
+  SwStageCurve fixed, plain;
+  SwSweep sweep;
+
+  g_assert_no_error (error);
+  sw_stage_curve_compute (d, 9000.0, SW_MAX_STAGES, &fixed);
+  sw_sweep_compute (d, SW_SWEEP_CURVES, 20, &sweep);
+  g_assert_nonnull (strstr (fixed.note, "stage 2 (Kestrune upper stage) is not applied"));
+  g_assert_cmpstr (sweep.note, ==, fixed.note);
+  sized = sw_design_copy (d);
+  sized->stages[1].propellant.has_propellant_kg = FALSE;
+  sw_stage_curve_compute (sized, 9000.0, SW_MAX_STAGES, &plain);
+  g_assert_cmpstr (plain.note, ==, "");
+  for (guint k = 0; k < SW_MAX_STAGES; k++)
+    g_assert_true (plain.points[k].liftoff_mass_kg == fixed.points[k].liftoff_mass_kg
+                   || (isnan (plain.points[k].liftoff_mass_kg)
+                       && isnan (fixed.points[k].liftoff_mass_kg)));
+}
+
 int
 main (int argc, char **argv)
 {
@@ -288,6 +317,7 @@ main (int argc, char **argv)
   g_test_add_func ("/core/curves/sweep", test_sweep);
   g_test_add_func ("/core/curves/sweep-extends-top-stage", test_sweep_extends_top_stage);
   g_test_add_func ("/core/curves/sweep-clamps", test_sweep_clamps);
+  g_test_add_func ("/core/curves/fixed-load-note", test_fixed_load_note);
 
   return g_test_run ();
 }

@@ -8,6 +8,7 @@
 #include "sw-fixed-vehicle.h"
 #include "sw-reuse.h"
 #include "sw-sizing.h"
+#include "sw-staging.h"
 
 #include <math.h>
 #include <string.h>
@@ -139,6 +140,25 @@ test_infeasible (void)
   g_assert_true (isnan (r.payload_penalty_fraction));
 }
 
+/* A fixed propellant load is not applied (every row is sized): the
+ * staging table says so; a design without one says nothing. */
+static void
+test_reuse_fixed_note (void)
+{
+  g_autoptr (GError) error = NULL;
+  g_autofree char *path = g_build_filename (g_getenv ("SW_SOURCE_ROOT"), "data", "designs",
+                                            "sallowmere-kestrune-upper-stage.stagewright", NULL);
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, &error);
+  SwStaging st;
+
+  g_assert_no_error (error);
+  g_assert_true (sw_staging_compute (d, 6, &st, NULL));
+  g_assert_nonnull (strstr (st.reuse_note, "recovered columns resize every stage too"));
+  d->stages[1].propellant.has_propellant_kg = FALSE;
+  g_assert_true (sw_staging_compute (d, 6, &st, NULL));
+  g_assert_cmpstr (st.reuse_note, ==, "");
+}
+
 int
 main (int argc, char **argv)
 {
@@ -147,5 +167,6 @@ main (int argc, char **argv)
   g_test_add_func ("/core/reuse/downrange", test_downrange);
   g_test_add_func ("/core/reuse/launch-site-and-user-delta-v", test_launch_site_and_user_delta_v);
   g_test_add_func ("/core/reuse/infeasible", test_infeasible);
+  g_test_add_func ("/core/reuse/fixed-load-note", test_reuse_fixed_note);
   return g_test_run ();
 }

@@ -323,7 +323,8 @@ test_no_overlap (void)
   static const char *const demos[] = {
     "all-solid-concept.stagewright", "skelloway-upgrade-study.stagewright",
     "medium-cargo.stagewright", "small-sat-launcher.stagewright",
-    "three-stage-simulated.stagewright",
+    "three-stage-simulated.stagewright", "sallowmere-kestrune-upper-stage.stagewright",
+    "sallowmere-as-built.stagewright",
   };
   g_autoptr (SwAnalysis) trade = briefing (WITH_MONTECARLO | WITH_BAND);
 

@@ -168,6 +168,25 @@ test_defaults (void)
                    "1; each criterion divided by its best stage count, the lowest sum wins");
 }
 
+/* A fixed propellant load is not applied (every row is sized): the
+ * staging table says so; a design without one says nothing. */
+static void
+test_staging_fixed_note (void)
+{
+  g_autoptr (GError) error = NULL;
+  g_autofree char *path = g_build_filename (g_getenv ("SW_SOURCE_ROOT"), "data", "designs",
+                                            "sallowmere-kestrune-upper-stage.stagewright", NULL);
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, &error);
+  SwStaging st;
+
+  g_assert_no_error (error);
+  g_assert_true (sw_staging_compute (d, 6, &st, NULL));
+  g_assert_nonnull (strstr (st.fixed_note, "stage 2 (Kestrune upper stage) is not applied"));
+  d->stages[1].propellant.has_propellant_kg = FALSE;
+  g_assert_true (sw_staging_compute (d, 6, &st, NULL));
+  g_assert_cmpstr (st.fixed_note, ==, "");
+}
+
 int
 main (int argc, char **argv)
 {
@@ -175,5 +194,6 @@ main (int argc, char **argv)
   g_test_add_func ("/core/staging/columns", test_columns);
   g_test_add_func ("/core/staging/best-under-weighting", test_best_under_weighting);
   g_test_add_func ("/core/staging/defaults", test_defaults);
+  g_test_add_func ("/core/staging/fixed-load-note", test_staging_fixed_note);
   return g_test_run ();
 }

@@ -86,6 +86,29 @@ test_short_of_orbit (void)
   g_object_unref (t);
 }
 
+/* A vehicle that exists: the line under the figures gives its capability
+ * beside the nominal payload (2,207 kg: the capability checked by hand in
+ * test-payload-curves), or says it carries none. */
+static void
+test_capability (void)
+{
+  g_autoptr (SwDesign) d = demo ("sallowmere-as-built.stagewright");
+  g_autoptr (SwAnalysis) a = analyse (d, FALSE);
+  g_autoptr (SwAnalysis) far = NULL;
+  GtkWidget *t = g_object_ref_sink (sw_totals_new ());
+  SwTotals *tt = SW_TOTALS (t);
+
+  sw_totals_set_result (tt, a);
+  g_assert_cmpstr (sw_totals_get_text (tt, SW_TOTALS_LIMIT), ==,
+                   "Capability 2,207 kg, nominal 2,000 kg");
+  d->mission.losses_m_s = 4900.0;
+  far = analyse (d, FALSE);
+  sw_totals_set_result (tt, far);
+  g_assert_cmpstr (sw_totals_get_text (tt, SW_TOTALS_LIMIT), ==,
+                   "Capability none (short even empty), nominal 2,000 kg");
+  g_object_unref (t);
+}
+
 /* Without a simulation the same vehicle is "on paper only": a note, not
  * green, and no simulated margin (the em dash). */
 static void
@@ -172,6 +195,7 @@ main (int argc, char **argv)
   g_test_add_func ("/totals/status-pages", test_status_pages);
   g_test_add_func ("/totals/short-of-orbit", test_short_of_orbit);
   g_test_add_func ("/totals/paper-only", test_paper_only);
+  g_test_add_func ("/totals/capability", test_capability);
   g_test_add_func ("/totals/infeasible", test_infeasible);
   g_test_add_func ("/totals/format-delta", test_format_delta);
   status = g_test_run ();

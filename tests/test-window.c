@@ -260,6 +260,43 @@ test_drag_border (void)
   sw_test_window_close (w);
 }
 
+/* A vehicle that exists (every stage fixed): the trade-curves page shows
+ * its payload against altitude and inclination with this design marked at
+ * the analysis's capability inside the plot, and the note says which losses
+ * the curves use; a design with one fixed stage keeps the stage-count
+ * curves and the note says the fixed load is left out of them. */
+static void
+test_payload_curves (void)
+{
+  SwWindow *w = window_new ();
+  SwAnalysis *r;
+  double x, y, wx, wy;
+
+  load_demo (w, "sallowmere-as-built.stagewright");
+  r = sw_window_get_shown_result (w);
+  g_assert_true (r->payload_curves.applies && r->performance.reachable);
+  for (guint which = 0; which < 2; which++)
+    {
+      g_assert_true (sw_trade_plots_payload_point (r, which == 0, &x, &y));
+      g_assert_cmpfloat (x, ==, which == 0 ? 400.0 : 45.0);
+      g_assert_cmpfloat (y, ==, r->performance.payload_kg);
+      g_assert_true (sw_plot_data_to_widget (sw_window_get_plot (w, which), x, y, &wx, &wy));
+    }
+  g_assert_nonnull (sw_window_get_curves_note (w));
+  g_assert_nonnull (strstr (sw_window_get_curves_note (w), "loss allowance of 2,380 m/s"));
+
+  load_demo (w, "sallowmere-kestrune-upper-stage.stagewright");
+  r = sw_window_get_shown_result (w);
+  g_assert_false (r->payload_curves.applies);
+  g_assert_false (sw_trade_plots_payload_point (r, TRUE, &x, &y));
+  g_assert_true (sw_trade_plots_current_point (r, 0, &x, &y));
+  g_assert_nonnull (strstr (sw_window_get_curves_note (w), "stage 2 (Kestrune upper stage)"));
+
+  load_demo (w, "small-sat-launcher.stagewright");
+  g_assert_null (sw_window_get_curves_note (w));
+  sw_test_window_close (w);
+}
+
 static void
 test_undo_exact (void)
 {
@@ -842,6 +879,7 @@ main (int argc, char **argv)
   tmp_dir = sw_gui_test_env_init (&argc, &argv, "stagewright-gui-XXXXXX");
 
   g_test_add_func ("/gui/window/builds", test_builds);
+  g_test_add_func ("/gui/window/payload-curves", test_payload_curves);
   g_test_add_func ("/gui/window/edit-fields", test_edit_fields);
   g_test_add_func ("/gui/window/drag-border", test_drag_border);
   g_test_add_func ("/gui/window/undo-exact", test_undo_exact);

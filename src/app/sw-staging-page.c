@@ -127,8 +127,16 @@ job_done_cb (GObject *source, GAsyncResult *res, gpointer data)
       g_clear_pointer (&self->shown, job_unref);
       self->shown = g_steal_pointer (&self->running);
       gtk_widget_set_visible (self->progress, FALSE);
-      gtk_label_set_text (GTK_LABEL (self->statement),
-                          self->shown->staging_ok ? self->shown->staging.weighting : "");
+      if (self->shown->staging_ok && self->shown->staging.fixed_note[0] != '\0')
+        {
+          g_autofree char *text = g_strconcat (self->shown->staging.weighting, " ",
+                                               self->shown->staging.fixed_note, " ",
+                                               self->shown->staging.reuse_note, NULL);
+          gtk_label_set_text (GTK_LABEL (self->statement), text);
+        }
+      else
+        gtk_label_set_text (GTK_LABEL (self->statement),
+                            self->shown->staging_ok ? self->shown->staging.weighting : "");
       gtk_widget_queue_draw (self->decision);
       gtk_widget_queue_draw (self->carpet);
     }

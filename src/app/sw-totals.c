@@ -207,6 +207,22 @@ update (SwTotals *self)
   else
     /* Translators: %s is a speed such as "12,500 m/s" */
     limit = g_strdup_printf (_("Stages' limit %s (no payload)"), lim);
+  /* A vehicle that exists: what it carries, beside what it is asked to. */
+  if (r->has_performance)
+    {
+      g_autofree char *nominal = sw_format_mass (r->design->payload_kg);
+      g_free (limit);
+      if (r->performance.reachable)
+        {
+          g_autofree char *cap = sw_format_mass (r->performance.payload_kg);
+          /* Translators: two masses: what the vehicle carries, what the design asks */
+          limit = g_strdup_printf (_("Capability %s, nominal %s"), cap, nominal);
+        }
+      else
+        /* Translators: %s is a mass such as "2,000 kg" */
+        limit = g_strdup_printf (_("Capability none (short even empty), nominal %s"),
+                                 nominal);
+    }
   gtk_inscription_set_text (self->liftoff_label, liftoff);
   gtk_inscription_set_text (self->fraction_label, fraction);
   gtk_inscription_set_text (self->margin_label, margin);

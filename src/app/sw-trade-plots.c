@@ -5,6 +5,8 @@
 
 #include "sw-trade-plots.h"
 
+#include "sw-format.h"
+
 #include <glib/gi18n.h>
 #include <math.h>
 
@@ -143,6 +145,103 @@ sw_trade_plots_show_sweep (SwPlot *plot, SwAnalysis *r)
   sw_trade_plots_add_baseline (plot, r, 1);
   if (sw_trade_plots_current_point (r, 1, &cx, &cy))
     sw_plot_add_marker (plot, cx, cy, _("this design"), SW_MARKER_CURRENT);
+}
+
+const char *
+sw_trade_plots_note (SwAnalysis *r)
+{
+  if (r == NULL || !r->ok)
+    return "";
+  if (r->payload_curves.applies)
+    return r->payload_curves.note;
+  return r->stage_curve.note;
+}
+
+gboolean
+sw_trade_plots_payload_point (SwAnalysis *r, gboolean altitude, double *x, double *y)
+{
+  if (r == NULL || !r->ok || !r->payload_curves.applies || !r->has_performance
+      || !r->performance.reachable)
+    return FALSE;
+  *x = altitude ? r->payload_curves.altitude_km : r->payload_curves.inclination_deg;
+  *y = r->performance.payload_kg;
+  return TRUE;
+}
+
+static void
+show_payload_curve (SwPlot *plot, SwAnalysis *r, gboolean altitude)
+{
+  const SwPayloadCurve *c = altitude ? &r->payload_curves.altitude
+                                     : &r->payload_curves.inclination;
+  double x[SW_PAYLOAD_CURVE_MAX], y[SW_PAYLOAD_CURVE_MAX];
+  double y_max = 0.0, mx, my;
+
+  sw_plot_clear (plot);
+  sw_plot_set_x_integer (plot, FALSE);
+  if (altitude)
+    {
+      g_autofree char *title = g_strdup_printf (_("Payload against circular-orbit altitude, "
+                                                  "at %.1f° inclination"),
+                                                r->payload_curves.inclination_deg);
+      sw_plot_set_title (plot, title);
+      sw_plot_set_x_axis (plot, _("Orbit altitude"), FALSE);
+      /* Translators: tick labels of an altitude axis in km */
+      sw_plot_set_x_format (plot, _("%.0f km"), 1.0);
+    }
+  else
+    {
+      g_autofree char *alt = sw_format_number (r->payload_curves.altitude_km, 0);
+      /* Translators: %s is an altitude such as "1,200" */
+      g_autofree char *title = g_strdup_printf (_("Payload against inclination, at %s km"), alt);
+      sw_plot_set_title (plot, title);
+      sw_plot_set_x_axis (plot, _("Inclination"), FALSE);
+      /* Translators: tick labels of an angle axis in degrees */
+      sw_plot_set_x_format (plot, _("%.0f°"), 1.0);
+    }
+  sw_plot_set_y_axis (plot, _("Payload"), FALSE);
+  sw_plot_set_y_format (plot, _("%.3g t"), 1000.0);
+  sw_plot_set_empty_text (plot, _("No payload: the vehicle reaches none of these orbits."));
+  for (guint i = 0; i < c->n_points; i++)
+    {
+      x[i] = c->points[i].x;
+      y[i] = c->points[i].reachable ? c->points[i].payload_kg : NAN;
+      if (isfinite (y[i]))
+        y_max = MAX (y_max, y[i]);
+    }
+  if (r->performance.reachable)
+    y_max = MAX (y_max, r->performance.payload_kg);
+  /* The grid, widened to this design's orbit when it lies outside. */
+  if (c->n_points > 0)
+    {
+      double lo = x[0], hi = x[c->n_points - 1];
+      if (sw_trade_plots_payload_point (r, altitude, &mx, &my))
+        {
+          lo = MIN (lo, mx);
+          hi = MAX (hi, mx);
+        }
+      sw_plot_set_x_range (plot, lo, hi);
+    }
+  sw_plot_set_y_range (plot, 0.0, y_max > 0.0 ? 1.1 * y_max : NAN);
+  if (y_max <= 0.0)
+    return;
+  sw_plot_add_series (plot, _("Payload capability"), x, y, c->n_points, SW_PLOT_LINE_POINTS,
+                      0);
+  if (sw_trade_plots_payload_point (r, altitude, &mx, &my))
+    sw_plot_add_marker (plot, mx, my, _("this design"), SW_MARKER_CURRENT);
+}
+
+void
+sw_trade_plots_show_payload_altitude (SwPlot *plot, SwAnalysis *r)
+{
+  g_return_if_fail (SW_IS_PLOT (plot) && r != NULL);
+  show_payload_curve (plot, r, TRUE);
+}
+
+void
+sw_trade_plots_show_payload_inclination (SwPlot *plot, SwAnalysis *r)
+{
+  g_return_if_fail (SW_IS_PLOT (plot) && r != NULL);
+  show_payload_curve (plot, r, FALSE);
 }
 
 void

@@ -15,6 +15,19 @@ void sw_trade_plots_show_stage_count (SwPlot *plot, SwAnalysis *result);
  * asymptote, the current design marked. */
 void sw_trade_plots_show_sweep (SwPlot *plot, SwAnalysis *result);
 
+/* A vehicle that exists (result->payload_curves.applies): its payload
+ * against circular-orbit altitude and against inclination, this design's
+ * orbit marked at its capability. */
+void sw_trade_plots_show_payload_altitude (SwPlot *plot, SwAnalysis *result);
+void sw_trade_plots_show_payload_inclination (SwPlot *plot, SwAnalysis *result);
+/* The note shown above the curves: why a fixed load is left out of them,
+ * or what losses the payload curves use; "" when none. */
+const char *sw_trade_plots_note (SwAnalysis *result);
+/* Where this design's marker goes on a payload curve (@altitude: the
+ * altitude curve), in data coordinates; FALSE when it has none. */
+gboolean sw_trade_plots_payload_point (SwAnalysis *result, gboolean altitude, double *x,
+                                       double *y);
+
 /* Overlays, also used by the trade-study page: the Monte Carlo band on the
  * stage-count curve; the baseline's stage-count curve (@which 0) and its
  * marker (on either plot). */

@@ -37,6 +37,8 @@ SwExportDialog *sw_window_get_export_dialog (SwWindow *self);
 gboolean       sw_window_show_page (SwWindow *self, const char *name);
 /* 0: liftoff mass against stage count; 1: against delta-v. */
 SwPlot        *sw_window_get_plot (SwWindow *self, guint which);
+/* The note above the trade curves; NULL when hidden. */
+const char    *sw_window_get_curves_note (SwWindow *self);
 /* The result the views show now, or NULL before the first one. */
 SwAnalysis      *sw_window_get_shown_result (SwWindow *self);
 /* Serial of the newest result that has been painted in a frame. */

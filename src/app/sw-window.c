@@ -55,6 +55,7 @@ struct _SwWindow {
   GtkNotebook    *notebook;
   SwPlot         *stage_count_plot;
   SwPlot         *sweep_plot;
+  GtkLabel       *curves_note;
   SwWorkingView  *working_view;
   SwAscentPage   *ascent_page;
   SwTradePage    *trade_page;
@@ -184,8 +185,24 @@ solved_cb (SwWindow *self, SwAnalysis *result)
   sw_staging_page_set_result (self->staging_page, result);
   if (self->export_dialog != NULL)
     sw_export_dialog_set_result (self->export_dialog, result);
-  sw_trade_plots_show_stage_count (self->stage_count_plot, result);
-  sw_trade_plots_show_sweep (self->sweep_plot, result);
+  /* A vehicle that exists (every stage fixed): its payload against the
+   * orbit in place of the curves that resize it. */
+  if (result->ok && result->payload_curves.applies)
+    {
+      sw_trade_plots_show_payload_altitude (self->stage_count_plot, result);
+      sw_trade_plots_show_payload_inclination (self->sweep_plot, result);
+    }
+  else
+    {
+      sw_trade_plots_show_stage_count (self->stage_count_plot, result);
+      sw_trade_plots_show_sweep (self->sweep_plot, result);
+    }
+  {
+    const char *note = sw_trade_plots_note (result);
+    if (g_strcmp0 (gtk_label_get_text (self->curves_note), note) != 0)
+      gtk_label_set_text (self->curves_note, note);
+    gtk_widget_set_visible (GTK_WIDGET (self->curves_note), note[0] != '\0');
+  }
   update_actions (self);
   /* A frame must follow even if no view changed, so "drawn" is reached. */
   if (self->frame_clock != NULL)
@@ -694,6 +711,14 @@ sw_window_get_export_dialog (SwWindow *self)
   return self->export_dialog;
 }
 
+const char *
+sw_window_get_curves_note (SwWindow *self)
+{
+  g_return_val_if_fail (SW_IS_WINDOW (self), NULL);
+  return gtk_widget_get_visible (GTK_WIDGET (self->curves_note))
+           ? gtk_label_get_text (self->curves_note) : NULL;
+}
+
 SwPlot *
 sw_window_get_plot (SwWindow *self, guint which)
 {
@@ -854,6 +879,7 @@ sw_window_class_init (SwWindowClass *klass)
   CHILD (notebook);
   CHILD (stage_count_plot);
   CHILD (sweep_plot);
+  CHILD (curves_note);
   CHILD (working_view);
   CHILD (ascent_page);
   CHILD (trade_page);

@@ -374,56 +374,207 @@ sw_cli_size (int argc, char **argv)
   return SW_EXIT_OK;
 }
 
+static char *opt_altitudes, *opt_inclinations;
+static gboolean opt_simulate;
+
+static GOptionEntry performance_entries[] = {
+  { "json", 0, 0, G_OPTION_ARG_NONE, &opt_json, N_("Print JSON for machines"), NULL },
+  { "altitudes", 0, 0, G_OPTION_ARG_STRING, &opt_altitudes,
+    N_("Altitudes of the payload curve, km, separated by commas (default 200 to 2,000)"),
+    "A1,A2,..." },
+  { "inclinations", 0, 0, G_OPTION_ARG_STRING, &opt_inclinations,
+    N_("Inclinations of the payload curve, degrees, separated by commas (default: every "
+       "inclination the site reaches directly)"),
+    "I1,I2,..." },
+  { "simulate", 0, 0, G_OPTION_ARG_NONE, &opt_simulate,
+    N_("Fly an ascent at each point of the curves and use its losses (seconds)"), NULL },
+  { NULL }
+};
+
+/* "A1,A2,..." into @values; an error names @option and the bad item. */
+static gboolean
+parse_list (const char *text, const char *option, double *values, guint *n, GError **error)
+{
+  g_auto (GStrv) items = g_strsplit (text, ",", -1);
+  guint count = g_strv_length (items);
+
+  *n = 0;
+  if (count == 0 || count > SW_PAYLOAD_CURVE_MAX)
+    {
+      g_set_error (error, SW_ERROR, SW_ERROR_USAGE,
+                   _("%s: give 1 to %d values separated by commas"), option,
+                   SW_PAYLOAD_CURVE_MAX);
+      return FALSE;
+    }
+  for (guint i = 0; i < count; i++)
+    {
+      char *item = g_strstrip (items[i]), *end = NULL;
+      double v = g_ascii_strtod (item, &end);
+
+      if (*item == '\0' || end == item || *end != '\0' || !isfinite (v))
+        {
+          g_set_error (error, SW_ERROR, SW_ERROR_USAGE,
+                       _("%s: “%s” is not a number (give numbers separated by commas)"), option,
+                       item);
+          return FALSE;
+        }
+      values[(*n)++] = v;
+    }
+  return TRUE;
+}
+
+static void
+add_payload_curve (JsonBuilder *b, const char *member, const char *x_key,
+                   const SwPayloadCurve *c)
+{
+  json_builder_set_member_name (b, member);
+  json_builder_begin_array (b);
+  for (guint i = 0; i < c->n_points; i++)
+    {
+      const SwPayloadPoint *p = &c->points[i];
+      json_builder_begin_object (b);
+      sw_cli_add_number (b, x_key, p->x);
+      sw_cli_add_number (b, "payload_kg", p->reachable ? p->payload_kg : NAN);
+      sw_cli_add_number (b, "delta_v_m_s", p->delta_v_m_s);
+      sw_cli_add_number (b, "losses_m_s", p->losses_m_s);
+      json_builder_set_member_name (b, "losses_simulated");
+      json_builder_add_boolean_value (b, p->simulated);
+      json_builder_set_member_name (b, "reason");
+      json_builder_add_string_value (b, p->reason);
+      json_builder_end_object (b);
+    }
+  json_builder_end_array (b);
+}
+
+static void
+print_payload_curve (const char *title, const char *x_head, const SwPayloadCurve *c)
+{
+  g_print ("\n%s\n", title);
+  /* Translators: column heads of the payload curve table */
+  g_print ("%12s  %14s  %12s  %s\n", x_head, _("payload"), _("losses"), _("note"));
+  for (guint i = 0; i < c->n_points; i++)
+    {
+      const SwPayloadPoint *p = &c->points[i];
+      g_autofree char *pl = p->reachable ? sw_format_mass (p->payload_kg) : g_strdup ("—");
+      g_autofree char *l = sw_format_speed (p->losses_m_s);
+      g_autofree char *x = sw_format_number (p->x, 1);
+      g_print ("%12s  %14s  %12s  %s\n", x, pl, l, p->reason);
+    }
+}
+
 /* The payload a vehicle that exists (every stage with a fixed propellant
- * load) carries to the design's mission. */
+ * load) carries to the design's mission, and its payload curves. */
 int
 sw_cli_performance (int argc, char **argv)
 {
-  g_autoptr (SwDesign) d = NULL;
+  g_autoptr (SwAnalysis) a = NULL;
   g_autoptr (GError) error = NULL;
-  SwPerformance p;
+  SwAnalysisOptions o;
+  const SwPerformance *p;
+  const SwPayloadCurves *pc;
+  const SwDesign *d;
   int code;
 
   opt_json = FALSE;
-  if (!sw_cli_parse ("performance", json_entries, &argc, &argv, 1, &code))
+  opt_simulate = FALSE;
+  g_clear_pointer (&opt_altitudes, g_free);
+  g_clear_pointer (&opt_inclinations, g_free);
+  if (!sw_cli_parse ("performance", performance_entries, &argc, &argv, 1, &code))
     return code;
-  if ((d = sw_cli_load (argv[1])) == NULL)
-    return SW_EXIT_USAGE;
-  if (!sw_design_performance (d, &p, &error))
-    return sw_cli_input_error (argv[1], error);
+  fast_options (&o);
+  /* A "loss_model": "simulate" design carries what it carries at the
+   * closed loop's losses, as in the window (an allowance design flies one
+   * ascent for its verdict). */
+  o.ascent = TRUE;
+  o.payload_simulate = opt_simulate;
+  if ((opt_altitudes != NULL
+       && (!parse_list (opt_altitudes, "--altitudes", o.payload_altitudes_km,
+                        &o.n_payload_altitudes, &error)
+           || !sw_payload_check_grid (TRUE, o.payload_altitudes_km, o.n_payload_altitudes,
+                                      "--altitudes", &error)))
+      || (opt_inclinations != NULL
+          && (!parse_list (opt_inclinations, "--inclinations", o.payload_inclinations_deg,
+                           &o.n_payload_inclinations, &error)
+              || !sw_payload_check_grid (FALSE, o.payload_inclinations_deg,
+                                         o.n_payload_inclinations, "--inclinations", &error))))
+    {
+      g_printerr (_("stagewright-cli performance: %s\n"), error->message);
+      return SW_EXIT_USAGE;
+    }
+  /* A sized stage is refused before anything is flown. */
+  {
+    g_autoptr (SwDesign) loaded = sw_cli_load (argv[1]);
+    SwPerformance check;
+
+    if (loaded == NULL)
+      return SW_EXIT_USAGE;
+    if (!sw_design_performance (loaded, &check, &error))
+      return sw_cli_input_error (argv[1], error);
+  }
+  if ((a = sw_cli_analyse (argv[1], &o, &code)) == NULL)
+    return code;
+  if (!a->has_performance)
+    {
+      g_printerr (_("error: %s: %s\n"), argv[1], a->performance_error);
+      return SW_EXIT_USAGE;
+    }
+  d = a->design;
+  p = &a->performance;
+  pc = &a->payload_curves;
   if (opt_json)
     {
       g_autoptr (JsonBuilder) b = json_builder_new_immutable ();
       json_builder_begin_object (b);
       json_builder_set_member_name (b, "name");
       json_builder_add_string_value (b, d->name);
+      sw_cli_add_verdict (b, a);
       json_builder_set_member_name (b, "reachable");
-      json_builder_add_boolean_value (b, p.reachable);
+      json_builder_add_boolean_value (b, p->reachable);
       json_builder_set_member_name (b, "reason");
-      json_builder_add_string_value (b, p.reason);
-      sw_cli_add_number (b, "payload_kg", p.payload_kg);
-      sw_cli_add_number (b, "delta_v_m_s", p.delta_v_m_s);
-      sw_cli_add_number (b, "empty_delta_v_m_s", p.empty_delta_v_m_s);
-      sw_cli_add_number (b, "liftoff_mass_kg",
-                         p.reachable ? p.sizing.liftoff_mass_kg : NAN);
-      add_phases (b, d, &p.sizing);
+      json_builder_add_string_value (b, p->reason);
+      sw_cli_add_number (b, "payload_kg", p->payload_kg);
+      sw_cli_add_number (b, "nominal_payload_kg", d->payload_kg);
+      sw_cli_add_number (b, "delta_v_m_s", p->delta_v_m_s);
+      sw_cli_add_number (b, "empty_delta_v_m_s", p->empty_delta_v_m_s);
+      sw_cli_add_number (b, "liftoff_mass_kg", p->reachable ? p->sizing.liftoff_mass_kg : NAN);
+      add_phases (b, d, &p->sizing);
+      json_builder_set_member_name (b, "payload_curves_note");
+      json_builder_add_string_value (b, pc->note);
+      if (pc->applies)
+        {
+          add_payload_curve (b, "payload_curve", "altitude_km", &pc->altitude);
+          add_payload_curve (b, "inclination_curve", "inclination_deg", &pc->inclination);
+        }
       sw_cli_finish_json (b);
       return SW_EXIT_OK;
     }
   g_print (_("Design: %s\n"), d->name);
   {
-    g_autofree char *dv = sw_format_speed (p.delta_v_m_s);
-    g_autofree char *empty = sw_format_speed (p.empty_delta_v_m_s);
+    g_autofree char *dv = sw_format_speed (p->delta_v_m_s);
+    g_autofree char *empty = sw_format_speed (p->empty_delta_v_m_s);
     g_print (_("Required delta-v: %s    Delta-v with no payload: %s\n"), dv, empty);
   }
-  if (p.reachable)
+  if (p->reachable)
     {
-      g_autofree char *pl = sw_format_mass (p.payload_kg);
-      g_autofree char *lm = sw_format_mass (p.sizing.liftoff_mass_kg);
-      g_print (_("Payload capability: %s    Liftoff mass: %s\n"), pl, lm);
+      g_autofree char *pl = sw_format_mass (p->payload_kg);
+      g_autofree char *nom = sw_format_mass (d->payload_kg);
+      g_autofree char *lm = sw_format_mass (p->sizing.liftoff_mass_kg);
+      g_print (_("Payload capability: %s (nominal payload %s)    Liftoff mass: %s\n"), pl, nom,
+               lm);
     }
   else
-    g_print (_("UNREACHABLE: %s\n"), p.reason);
+    g_print (_("UNREACHABLE: %s\n"), p->reason);
+  if (pc->applies)
+    {
+      g_autofree char *inc = sw_format_number (pc->inclination_deg, 1);
+      g_autofree char *alt = sw_format_number (pc->altitude_km, 0);
+      g_autofree char *t1 = g_strdup_printf (_("Payload against circular-orbit altitude, at "
+                                               "%s° inclination:"), inc);
+      g_autofree char *t2 = g_strdup_printf (_("Payload against inclination, at %s km:"), alt);
+      print_payload_curve (t1, _("altitude km"), &pc->altitude);
+      print_payload_curve (t2, _("inclination °"), &pc->inclination);
+    }
+  g_print ("\n%s\n", pc->note);
   g_print ("\n%s\n", sw_format_cautions ());
   return SW_EXIT_OK;
 }
@@ -460,6 +611,8 @@ sw_cli_curve (int argc, char **argv)
       json_builder_begin_object (b);
       sw_cli_add_number (b, "delta_v_m_s", a->delta_v_m_s);
       sw_cli_add_number (b, "payload_kg", a->design->payload_kg);
+      json_builder_set_member_name (b, "fixed_loads_note");
+      json_builder_add_string_value (b, curve->note);
       json_builder_set_member_name (b, "points");
       json_builder_begin_array (b);
       for (guint i = 0; i < n; i++)
@@ -492,6 +645,8 @@ sw_cli_curve (int argc, char **argv)
       g_print ("%-7u %16s %16s  %s\n", curve->points[i].stages, m, l,
                curve->points[i].feasible ? "" : _("infeasible: beyond the delta-v limit"));
     }
+  if (curve->note[0] != '\0')
+    g_print (_("\nNote: %s\n"), curve->note);
   g_print ("\n%s\n", sw_format_cautions ());
   return SW_EXIT_OK;
 }

@@ -64,6 +64,10 @@ stages_json (const SwDesign *d, const SwStaging *s)
   sw_cli_add_number (b, "work_year_cost", s->work_year_cost);
   json_builder_set_member_name (b, "effort_note");
   json_builder_add_string_value (b, _(EFFORT_NOTE));
+  json_builder_set_member_name (b, "fixed_loads_note");
+  json_builder_add_string_value (b, s->fixed_note);
+  json_builder_set_member_name (b, "recovery_fixed_loads_note");
+  json_builder_add_string_value (b, s->reuse_note);
   json_builder_set_member_name (b, "weighting");
   json_builder_begin_object (b);
   sw_cli_add_number (b, "liftoff_mass", s->weight_liftoff_mass);
@@ -193,6 +197,8 @@ stages_table (const SwDesign *d, const SwStaging *s)
     g_print (_("No stage has reliability keys: the failure criterion is left out.\n"));
   g_print (_("Stage counts above the design's repeat its top stage; boosters are not "
              "modelled yet.\n"));
+  if (s->fixed_note[0] != '\0')
+    g_print ("%s %s\n", s->fixed_note, s->reuse_note);
   g_print ("\n%s\n", sw_format_cautions ());
 }
 

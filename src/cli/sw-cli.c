@@ -19,7 +19,8 @@
 static const SwCliCommand commands[] = {
   { "size", "FILE", N_("Size a design: masses, delta-v split, feasibility"), sw_cli_size },
   { "performance", "FILE",
-    N_("Payload capability of a vehicle whose stages all have fixed propellant loads"),
+    N_("Payload capability of a vehicle whose stages all have fixed propellant loads, "
+       "and its payload against orbit altitude and inclination"),
     sw_cli_performance },
   { "curve", "FILE", N_("Liftoff mass against stage count (optimal split)"), sw_cli_curve },
   { "budget", "FILE", N_("Delta-v budget of an orbit mission"), sw_cli_budget },

@@ -32,6 +32,8 @@ sw_csv_staging_decision (const SwAnalysis *b)
     return NULL;
   s = sw_csv_begin (NULL);
   g_string_append_printf (s, "# %s\n", st.weighting);
+  if (st.fixed_note[0] != '\0')
+    g_string_append_printf (s, "# %s %s\n", st.fixed_note, st.reuse_note);
   g_string_append (s, "stage_count,closes,closes_recovered,liftoff_mass_kg,"
                       "liftoff_mass_recovered_kg,recovery_payload_penalty,"
                       "development_work_years,development_recovered_work_years,"

@@ -121,6 +121,37 @@ sw_csv_sweep (const SwAnalysis *b)
   return g_string_free (s, FALSE);
 }
 
+/* The payload curves of a vehicle that exists: one row per point, the
+ * altitude curve first (curve "altitude", x in km), then the inclination
+ * curve (curve "inclination", x in degrees); NULL when they do not apply. */
+char *
+sw_csv_payload_curves (const SwAnalysis *b)
+{
+  const SwPayloadCurve *curves[] = { &b->payload_curves.altitude,
+                                     &b->payload_curves.inclination };
+  const char *names[] = { "altitude", "inclination" };
+  GString *s;
+
+  if (!b->ok || !b->payload_curves.applies)
+    return NULL;
+  s = sw_csv_begin ("curve,altitude_km,inclination_deg,payload_kg,delta_v_m_s,losses_m_s,"
+                    "losses_simulated,reason");
+  for (guint c = 0; c < G_N_ELEMENTS (curves); c++)
+    for (guint i = 0; i < curves[c]->n_points; i++)
+      {
+        const SwPayloadPoint *p = &curves[c]->points[i];
+        g_string_append_printf (s, "%s,", names[c]);
+        csv_number (s, c == 0 ? p->x : b->payload_curves.altitude_km, FALSE);
+        csv_number (s, c == 1 ? p->x : b->payload_curves.inclination_deg, FALSE);
+        csv_number (s, p->reachable ? p->payload_kg : NAN, FALSE);
+        csv_number (s, p->delta_v_m_s, FALSE);
+        csv_number (s, p->losses_m_s, FALSE);
+        g_string_append (s, p->simulated ? "true," : "false,");
+        csv_text (s, p->reason, TRUE);
+      }
+  return g_string_free (s, FALSE);
+}
+
 char *
 sw_csv_reliability (const SwAnalysis *b)
 {
@@ -208,6 +239,7 @@ sw_csv_export (const SwAnalysis *b, const char *dir, GPtrArray *written, GError 
     { "uncertainty-histogram.csv", sw_csv_histogram },
     { "stage-decision.csv", sw_csv_staging_decision },
     { "carpet.csv", sw_csv_carpet },
+    { "payload-curves.csv", sw_csv_payload_curves },
   };
 
   g_return_val_if_fail (b != NULL && dir != NULL, FALSE);

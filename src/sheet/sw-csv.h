@@ -14,10 +14,13 @@ char    *sw_csv_sweep (const SwAnalysis *b);            /* liftoff mass against 
 char    *sw_csv_reliability (const SwAnalysis *b);      /* NULL when not given */
 char    *sw_csv_tornado (const SwAnalysis *b);          /* NULL when infeasible */
 char    *sw_csv_histogram (const SwAnalysis *b);        /* NULL without Monte Carlo */
+/* Payload against altitude and inclination; NULL unless every stage is fixed. */
+char    *sw_csv_payload_curves (const SwAnalysis *b);
 
 /* Writes every table that exists into the folder @dir (created when
  * missing): stages.csv, stage-count.csv, delta-v-sweep.csv, sensitivity.csv,
- * reliability.csv, uncertainty-histogram.csv.  @written (may be NULL)
+ * reliability.csv, uncertainty-histogram.csv, stage-decision.csv, carpet.csv,
+ * payload-curves.csv.  @written (may be NULL)
  * receives the paths written (owned strings). */
 gboolean sw_csv_export (const SwAnalysis *b, const char *dir, GPtrArray *written,
                         GError **error);

@@ -17,11 +17,23 @@
 
 #define ROW_H 9.5
 
-double
-sw_sheet_staging_height (void)
+/* A fixed propellant load is not applied to the table: one more line says so. */
+static gboolean
+has_fixed_load (const SwDesign *design)
 {
-  /* Heading, column titles, six rows, the weighting line. */
-  return 16.0 + ROW_H * (SW_STAGING_MAX_STAGES + 1) + 12.0;
+  for (guint i = 0; design != NULL && i < design->n_stages; i++)
+    if (design->stages[i].propellant.has_propellant_kg)
+      return TRUE;
+  return FALSE;
+}
+
+double
+sw_sheet_staging_height (const SwDesign *design)
+{
+  /* Heading, column titles, six rows, the weighting line (and the line on
+   * fixed loads). */
+  return 16.0 + ROW_H * (SW_STAGING_MAX_STAGES + 1) + 12.0
+         + (has_fixed_load (design) ? ROW_H : 0.0);
 }
 
 void
@@ -92,9 +104,22 @@ sw_sheet_draw_staging (cairo_t *cr, const SwDesign *design, double x, double y, 
                                s.reuse_mode == SW_RECOVERY_LAUNCH_SITE
                                  ? _("returns to the launch site") : _("lands downrange"),
                                s.weighting);
+
   {
     TextStyle note = sw_sheet_style_w (6.0, FALSE, MUTED, PANGO_ALIGN_LEFT, w);
     note.ellipsize = TRUE;
     sw_sheet_text_at (cr, statement, x, ty + 1.0, &note);
+    for (guint i = 0; s.fixed_note[0] != '\0' && i < design->n_stages; i++)
+      if (design->stages[i].propellant.has_propellant_kg)
+        {
+          /* Translators: %u is a stage number; the short form of the staging
+           * table's note on fixed loads */
+          g_autofree char *fixed = g_strdup_printf (_("The fixed propellant load of stage %u "
+                                                      "is not applied: every row, this "
+                                                      "design's and the recovered columns "
+                                                      "included, sizes every stage."), i + 1);
+          sw_sheet_text_at (cr, fixed, x, ty + 1.0 + ROW_H, &note);
+          break;
+        }
   }
 }

@@ -9,7 +9,7 @@
 G_BEGIN_DECLS
 
 /* The panel's height in points. */
-double sw_sheet_staging_height (void);
+double sw_sheet_staging_height (const SwDesign *design);
 /* Computes the staging decision of @design and draws it in the box. */
 void   sw_sheet_draw_staging (cairo_t *cr, const SwDesign *design, double x, double y, double w,
                               double h);

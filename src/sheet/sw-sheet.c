@@ -227,6 +227,13 @@ draw_totals (const Page *p, const SwAnalysis *a, double x, double y, double w, d
 
   ADD_ROW (_("Payload"), sw_format_mass (s->payload_kg),
            c ? delta_text (&c->totals[SW_TOTAL_PAYLOAD], TRUE, FALSE) : NULL, INK);
+  /* A vehicle that exists: what it carries to the mission. */
+  if (a->has_performance)
+    ADD_ROW (_("Payload capability"),
+             a->performance.reachable ? sw_format_mass (a->performance.payload_kg)
+                                      : g_strdup (_("none: short even empty")),
+             NULL, a->performance.reachable && a->performance.payload_kg >= s->payload_kg
+                     ? INK : BAD);
   {
     g_autofree char *pp = c != NULL
                             ? sw_format_signed (100.0 * c->totals[SW_TOTAL_PAYLOAD_FRACTION].delta,
@@ -549,7 +556,7 @@ sw_sheet_draw_page (cairo_t *cr, const SwAnalysis *a, double width, double heigh
   y = draw_header (&p, a, margin - 4.0);
   footer_top = draw_footer (&p, height - margin + 12.0);
   table_h = stage_table_height (a);
-  avail = footer_top - gap - y - table_h - 3 * gap - sw_sheet_staging_height () - gap;
+  avail = footer_top - gap - y - table_h - 3 * gap - sw_sheet_staging_height (a->design) - gap;
   /* The totals panel grows with its figures; the charts share the rest. */
   {
     guint rows = 8 + (a->reliability.given ? 1 : 0) + (a->has_montecarlo ? 2 : 0)
@@ -578,12 +585,16 @@ sw_sheet_draw_page (cairo_t *cr, const SwAnalysis *a, double width, double heigh
 
   draw_stage_table (&p, a, y);
   y += table_h + gap;
-  sw_sheet_draw_staging (cr, a->design, p.x, y, p.w, sw_sheet_staging_height ());
-  y += sw_sheet_staging_height () + gap;
+  sw_sheet_draw_staging (cr, a->design, p.x, y, p.w, sw_sheet_staging_height (a->design));
+  y += sw_sheet_staging_height (a->design) + gap;
 
   /* The two curves side by side: mass and risk against stage count. */
   {
-    double hy = heading (cr, _("Liftoff mass against stage count"), p.x, y, col);
+    /* The curve sizes every stage: a fixed load is left out (stage_curve.note). */
+    double hy = heading (cr, a->stage_curve.note[0] != '\0'
+                               ? _("Liftoff mass against stage count, all sized")
+                               : _("Liftoff mass against stage count"),
+                         p.x, y, col);
     sw_sheet_draw_stage_curve (cr, &a->stage_curve, a->has_band ? &a->band : NULL,
                                has_baseline (a) ? &a->baseline_curve : NULL,
                                a->design->n_stages,
@@ -608,8 +619,11 @@ sw_sheet_draw_page (cairo_t *cr, const SwAnalysis *a, double width, double heigh
       sw_sheet_draw_tornado (cr, a->design, &a->sensitivity, 6, p.x + col + 18.0, y + hy + 2.0,
                              col, bottom_h - hy - 2.0);
     else
-      note_in_box (cr, _("No sensitivities: the design is not feasible."), p.x + col + 18.0,
-                   y + hy, col, bottom_h - hy);
+      note_in_box (cr, a->sizing.n_fixed > 0
+                         ? _("No sensitivities: they resize every stage, and this design has a "
+                             "fixed propellant load.")
+                         : _("No sensitivities: the design is not feasible."),
+                   p.x + col + 18.0, y + hy, col, bottom_h - hy);
   }
   cairo_restore (cr);
 }

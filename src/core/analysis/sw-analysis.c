@@ -390,6 +390,87 @@ prepare_ascent (SwAnalysis *r)
     r->ascent_pending = TRUE;
 }
 
+/* The payload of a vehicle that exists, and its curves (through the phases
+ * API, so whatever it flies the curves fly too). */
+static void
+prepare_performance (SwAnalysis *r, GCancellable *cancellable)
+{
+  const SwAnalysisOptions *o = &r->options;
+  g_autoptr (GError) error = NULL;
+
+  r->has_performance = sw_design_performance (r->design, &r->performance, &error);
+  if (!r->has_performance)
+    g_strlcpy (r->performance_error, error->message, sizeof r->performance_error);
+  sw_payload_curves_compute (r->design, o->payload_altitudes_km, o->n_payload_altitudes,
+                             o->payload_inclinations_deg, o->n_payload_inclinations,
+                             o->payload_simulate, cancellable, &r->payload_curves);
+  /* The same words as the core's, with the speed formatted for people. */
+  if (r->payload_curves.applies && !o->payload_simulate)
+    {
+      const SwMission *m = &r->design->mission;
+      g_autofree char *v = sw_format_speed (m->has_losses ? m->losses_m_s
+                                            : m->loss_model == SW_LOSS_SIMULATE
+                                              ? SW_PAYLOAD_FIRST_GUESS_LOSSES_M_S : 0.0);
+
+      if (m->loss_model == SW_LOSS_SIMULATE)
+        /* Translators: %s is a speed such as "1,800 m/s" */
+        g_snprintf (r->payload_curves.note, sizeof r->payload_curves.note,
+                    _("Every point uses the first-guess loss allowance of %s. The budget's "
+                      "ideal delta-v is the orbital speed only, not the climb, so at a fixed "
+                      "allowance the payload rises with altitude; the command line's "
+                      "performance --simulate flies each point and counts the climb in its "
+                      "losses."),
+                    v);
+      else
+        /* Translators: %s is a speed such as "2,380 m/s" */
+        g_snprintf (r->payload_curves.note, sizeof r->payload_curves.note,
+                    _("Every point uses the design's loss allowance of %s. The budget's ideal "
+                      "delta-v is the orbital speed only, not the climb, so at a fixed "
+                      "allowance the payload rises with altitude; the command line's "
+                      "performance --simulate flies each point and counts the climb in its "
+                      "losses."),
+                    v);
+    }
+}
+
+/* After the closed loop of a "loss_model": "simulate" design: the payload
+ * capability and the curves again, with the closed loop's losses in place
+ * of the first guess (the loop flew this orbit, so its losses are this
+ * orbit's; the other points keep them as their allowance, and say so). */
+static void
+performance_with_loop_losses (SwAnalysis *r, double losses_m_s, GCancellable *cancellable)
+{
+  g_autoptr (SwDesign) looped = NULL;
+  g_autofree char *v = NULL;
+
+  if (!r->has_performance)
+    return;
+  looped = sw_design_copy (r->design);
+  looped->mission.loss_model = SW_LOSS_ALLOWANCE;
+  looped->mission.losses_m_s = losses_m_s;
+  looped->mission.has_losses = TRUE;
+  r->has_performance = sw_design_performance (looped, &r->performance, NULL);
+  /* Flown curves fly every point whatever losses they start from. */
+  if (r->options.payload_simulate)
+    return;
+  sw_payload_curves_compute (looped, r->options.payload_altitudes_km,
+                             r->options.n_payload_altitudes, r->options.payload_inclinations_deg,
+                             r->options.n_payload_inclinations, FALSE, cancellable,
+                             &r->payload_curves);
+  if (r->payload_curves.applies)
+    {
+      v = sw_format_speed (losses_m_s);
+      /* Translators: %s is a speed such as "2,364 m/s" */
+      g_snprintf (r->payload_curves.note, sizeof r->payload_curves.note,
+                  _("Every point uses the closed loop's losses at this design's orbit, %s. The "
+                    "budget's ideal delta-v is the orbital speed only, not the climb, so at "
+                    "fixed losses the payload rises with altitude; the command line's "
+                    "performance --simulate flies each point and counts the climb in its "
+                    "losses."),
+                  v);
+    }
+}
+
 /* The comparison with the baseline, from the sizing in force. */
 static void
 compare_with_baseline (SwAnalysis *r)
@@ -489,6 +570,7 @@ sw_analysis_new (const SwDesign *design, guint64 serial, const SwAnalysisOptions
                   && sw_design_budget (design, &r->budget, NULL);
   sw_stage_curve_compute (design, r->delta_v_m_s, SW_MAX_STAGES, &r->stage_curve);
   sw_sweep_compute (design, SW_SWEEP_CURVES, SW_SWEEP_POINTS, &r->sweep);
+  prepare_performance (r, cancellable);
   prepare_ascent (r);
   prepare_trade (r);
   note_trade_losses (r);
@@ -623,6 +705,7 @@ sw_analysis_add_ascent (const SwAnalysis *prev, GCancellable *cancellable)
           r->budget.delta_v_m_s = r->budget.ideal_delta_v_m_s + r->budget.losses_m_s;
         }
       sw_stage_curve_compute (r->design, r->delta_v_m_s, SW_MAX_STAGES, &r->stage_curve);
+      performance_with_loop_losses (r, ascent->loop_sized_losses_m_s, cancellable);
       compare_with_baseline (r);
       r->has_stage_figures = sw_ascent_stage_figures (r->design, &r->sizing, r->stage_figures,
                                                       NULL);

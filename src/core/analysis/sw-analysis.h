@@ -29,6 +29,8 @@
 #include "sw-design.h"
 #include "sw-mass-estimate.h"
 #include "sw-montecarlo.h"
+#include "sw-payload-curves.h"
+#include "sw-phases.h"
 #include "sw-reliability.h"
 #include "sw-sensitivity.h"
 #include "sw-sizing.h"
@@ -77,6 +79,14 @@ typedef struct {
   double   min_thrust_to_weight;  /* at liftoff; 1.2, common practice */
   double   max_q_pa;              /* 45 kPa, from memory */
   double   max_axial_g;           /* 6 g, from memory */
+  /* The payload curves of a vehicle that exists (every stage fixed): the
+   * grids (n 0: the defaults of sw-payload-curves.h) and whether each point
+   * is flown (seconds; the command line's --simulate, never the window). */
+  guint    n_payload_altitudes;
+  double   payload_altitudes_km[SW_PAYLOAD_CURVE_MAX];
+  guint    n_payload_inclinations;
+  double   payload_inclinations_deg[SW_PAYLOAD_CURVE_MAX];
+  gboolean payload_simulate;
 } SwAnalysisOptions;
 
 void sw_analysis_options_init (SwAnalysisOptions *options);
@@ -109,6 +119,15 @@ struct _SwAnalysis {
   /* The structural coefficients estimated from mass-estimating relationships
    * at a fixed point with the sizing (phase 1, the design's delta-v). */
   SwMassEstimate mass_estimate;
+
+  /* A vehicle that exists (every stage with a fixed propellant load): the
+   * payload it carries to the mission (performance.reachable) and its
+   * payload curves.  has_performance FALSE: performance_error says why
+   * (a sized stage, named by its key). */
+  gboolean  has_performance;
+  SwPerformance performance;
+  char      performance_error[SW_ANALYSIS_TEXT_MAX];
+  SwPayloadCurves payload_curves;  /* .applies FALSE: .note says why */
 
   /* The ascent. */
   gboolean  has_stage_figures;

@@ -5,7 +5,25 @@
 
 #include "sw-curves.h"
 
+#include <glib/gi18n-lib.h>
 #include <math.h>
+
+void
+sw_curves_fixed_note (const SwDesign *design, char *note)
+{
+  note[0] = '\0';
+  for (guint i = 0; i < design->n_stages; i++)
+    if (design->stages[i].propellant.has_propellant_kg)
+      {
+        /* Translators: %u is a stage number, %s its name */
+        g_snprintf (note, SW_REASON_MAX,
+                    _("These curves size every stage from the payload up; the fixed "
+                      "propellant load of stage %u (%s) is not applied, since a vehicle with "
+                      "another stage count or delta-v has no such stage."),
+                    i + 1, design->stages[i].name);
+        return;
+      }
+}
 
 void
 sw_stage_curve_compute (const SwDesign *design, double delta_v_m_s, guint max_stages,
@@ -14,6 +32,7 @@ sw_stage_curve_compute (const SwDesign *design, double delta_v_m_s, guint max_st
   g_return_if_fail (design != NULL && out != NULL && design->n_stages > 0);
 
   max_stages = CLAMP (max_stages, 1, SW_MAX_STAGES);
+  sw_curves_fixed_note (design, out->note);
   out->delta_v_m_s = delta_v_m_s;
   out->payload_kg = design->payload_kg;
   out->n_points = max_stages;
@@ -44,6 +63,7 @@ sw_sweep_compute (const SwDesign *design, guint max_curves, guint n_points, SwSw
 
   max_curves = CLAMP (max_curves, 1, SW_SWEEP_CURVES);
   n_points = CLAMP (n_points, 2, SW_SWEEP_POINTS);
+  sw_curves_fixed_note (design, out->note);
   out->payload_kg = design->payload_kg;
   out->n_curves = max_curves;
 

@@ -17,6 +17,9 @@ typedef struct {
 } SwStageCountPoint;
 
 struct _SwStageCurve {
+  /* Why a design's fixed propellant loads do not apply to the curve (the
+   * curve sizes every stage); "" when the design has none. */
+  char   note[SW_REASON_MAX];
   double delta_v_m_s;
   double payload_kg;
   guint  n_points;
@@ -32,10 +35,17 @@ typedef struct {
 } SwSweepCurve;
 
 struct _SwSweep {
+  char   note[SW_REASON_MAX];      /* as SwStageCurve's */
   double payload_kg;
   guint  n_curves;
   SwSweepCurve curves[SW_SWEEP_CURVES];
 };
+
+/* The curves size every stage of hypothetical 1..N-stage vehicles from the
+ * payload up: a fixed propellant load (propellant_kg) is not applied, since
+ * a vehicle with another stage count or delta-v has no such stage; @note
+ * (SW_REASON_MAX) says so, naming the first fixed stage, or is "". */
+void     sw_curves_fixed_note (const SwDesign *design, char *note);
 
 /* Optimal split for N = 1..@max_stages (at most SW_MAX_STAGES). */
 void     sw_stage_curve_compute (const SwDesign *design, double delta_v_m_s,

@@ -254,9 +254,46 @@ sw_carpet_apply (const SwCarpetAxis *axis, SwDesign *design, double value)
 /* The inputs of one sizing, the cheap copy the grid varies. */
 typedef struct {
   SwStageSet set;
+  double fixed_kg[SW_MAX_STAGES];     /* the design's fixed loads; 0: sized */
+  gboolean any_fixed;
   double payload_kg;
   double delta_v_m_s;
 } Point;
+
+/* The payload at which the point's vehicle weighs @liftoff_kg.  Without a
+ * fixed load the sizing is linear in the payload; with one it is not (a
+ * fixed stage weighs the same whatever it carries), so the secant method
+ * closes in on the mass, which rises with the payload.  NAN when no
+ * vehicle of that mass closes. */
+static double
+point_payload_at_mass (const Point *p, SwSplitMode split, const SwSizing *at_payload,
+                       double liftoff_kg)
+{
+  double x0 = p->payload_kg, f0 = at_payload->liftoff_mass_kg - liftoff_kg;
+  double x1 = p->payload_kg * liftoff_kg / at_payload->liftoff_mass_kg, f1;
+
+  if (!p->any_fixed)
+    return x1;
+  for (guint k = 0; k < 60; k++)
+    {
+      SwSizing s;
+      double x2;
+
+      sw_size_with_fixed (&p->set, p->fixed_kg, x1, p->delta_v_m_s, split, &s);
+      if (!s.feasible)
+        return NAN;
+      f1 = s.liftoff_mass_kg - liftoff_kg;
+      if (fabs (f1) <= 1e-9 * liftoff_kg)
+        return x1;
+      if (f1 == f0)
+        return NAN;
+      x2 = x1 - f1 * (x1 - x0) / (f1 - f0);
+      x0 = x1;
+      f0 = f1;
+      x1 = x2 > 0.0 ? x2 : 0.5 * x1;
+    }
+  return NAN;
+}
 
 static void
 point_apply (const SwCarpetAxis *axis, Point *p, double value, double dv_without_losses)
@@ -289,14 +326,15 @@ point_output (const SwDesign *design, const SwCarpet *c, const Point *p, SwSplit
   SwCostVehicle vehicle;
   SwCost cost;
 
-  sw_size (&p->set, p->payload_kg, p->delta_v_m_s, split, &sizing);
+  /* The design's fixed propellant loads are honoured (sw_size_with_fixed
+   * is sw_size bit for bit without them). */
+  sw_size_with_fixed (&p->set, p->fixed_kg, p->payload_kg, p->delta_v_m_s, split, &sizing);
   if (!sizing.feasible)
     return NAN;
   switch (c->output)
     {
     case SW_CARPET_PAYLOAD:
-      /* Sizing is linear in the payload. */
-      return p->payload_kg * design_liftoff / sizing.liftoff_mass_kg;
+      return point_payload_at_mass (p, split, &sizing, design_liftoff);
     case SW_CARPET_DEVELOPMENT:
     case SW_CARPET_COST_PER_FLIGHT:
       sw_cost_vehicle_from_sizing (&vehicle, &sizing, design);
@@ -330,6 +368,13 @@ sw_carpet_compute (const SwDesign *design, const SwCarpetOptions *options, GErro
     }
 
   sw_stage_set_from_design (&base.set, design);
+  base.any_fixed = FALSE;
+  for (guint i = 0; i < SW_MAX_STAGES; i++)
+    {
+      base.fixed_kg[i] = i < design->n_stages && design->stages[i].propellant.has_propellant_kg
+                           ? design->stages[i].propellant.propellant_kg : 0.0;
+      base.any_fixed = base.any_fixed || base.fixed_kg[i] > 0.0;
+    }
   base.payload_kg = design->payload_kg;
   if (!sw_design_required_delta_v (design, &base.delta_v_m_s, error))
     return NULL;
@@ -340,7 +385,8 @@ sw_carpet_compute (const SwDesign *design, const SwCarpetOptions *options, GErro
         return NULL;
       dv_without_losses = budget.delta_v_m_s - budget.losses_m_s;
     }
-  sw_size (&base.set, base.payload_kg, base.delta_v_m_s, design->split, &own);
+  sw_size_with_fixed (&base.set, base.fixed_kg, base.payload_kg, base.delta_v_m_s, design->split,
+                      &own);
   design_liftoff = own.feasible ? own.liftoff_mass_kg : NAN;
 
   c = g_new0 (SwCarpet, 1);

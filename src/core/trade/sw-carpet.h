@@ -5,6 +5,8 @@
  * liftoff mass, the payload of a vehicle of the design's own liftoff mass,
  * development effort or cost per flight (work-years, expendable).  A point
  * whose vehicle does not close is infeasible (value NAN, flag cleared).
+ * The design's fixed propellant loads (propellant_kg) are honoured at every
+ * point; the payload output then solves for the mass by the secant method.
  * Synchronous; cancellable between rows, with a progress callback per row. */
 #pragma once
 

@@ -89,6 +89,18 @@ sw_staging_compute (const SwDesign *design, guint max_stages, SwStaging *out, GE
 
   sw_reliability_curve_compute (design, out->n_rows, &rel);
   out->reliability_given = rel.given;
+  for (guint i = 0; i < design->n_stages; i++)
+    if (design->stages[i].propellant.has_propellant_kg)
+      {
+        /* Translators: %u is a stage number, %s its name */
+        g_snprintf (out->fixed_note, sizeof out->fixed_note,
+                    _("Every stage count is sized from the payload up, this design's own "
+                      "included: the fixed propellant load of stage %u (%s) is not applied."),
+                    i + 1, design->stages[i].name);
+        g_strlcpy (out->reuse_note, _("The recovered columns resize every stage too."),
+                   sizeof out->reuse_note);
+        break;
+      }
 
   for (guint n = 1; n <= out->n_rows; n++)
     {

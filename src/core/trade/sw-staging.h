@@ -11,6 +11,7 @@
  *   - a score under the design's weighting: each criterion divided by its
  *     best value over the feasible stage counts, times its weight, summed;
  *     the lowest score is the best stage count.
+ * Fixed propellant loads are not applied (fixed_note says so).
  * Boosters are not modelled yet: a row is a serial vehicle.  The row type
  * has room for the vehicle's arrangement so that booster rows can be added. */
 #pragma once
@@ -63,6 +64,13 @@ typedef struct {
   gboolean has_money;
   double   work_year_cost;               /* NAN unless has_money */
   char     weighting[SW_STAGING_WEIGHTING_MAX]; /* the weighting, stated in words */
+  /* A design with a fixed propellant load (propellant_kg): every row, the
+   * design's own count and the recovered columns included, sizes every
+   * stage (the stage-count curve's rule); these say so plainly ("" when the
+   * design has no fixed load).  fixed_note: the stage counts; reuse_note:
+   * the recovered columns (sw-reuse.h resizes every stage too). */
+  char     fixed_note[SW_REASON_MAX];
+  char     reuse_note[SW_REASON_MAX];
 } SwStaging;
 
 /* The decision table for 1..@max_stages (clamped to 1..6).  FALSE (with
