@@ -136,6 +136,19 @@ flown_losses (const SwDesign *design, double altitude_km, double inclination_deg
   return res->losses_m_s;
 }
 
+/* The climb's share of the energy of a circular orbit at @altitude_km, as a
+ * speed: sqrt(2 mu/R - mu/r) - sqrt(mu/r), the energy-equivalent delta-v from
+ * rest at the surface less the orbital speed the budget already counts
+ * (specific orbital energy, Curtis, Orbital Mechanics for Engineering
+ * Students, ch. 2; from memory). */
+double
+sw_payload_climb_m_s (double altitude_km)
+{
+  double r = SW_WGS84_A + altitude_km * 1000.0;
+
+  return sqrt (2.0 * SW_WGS84_MU / SW_WGS84_A - SW_WGS84_MU / r) - sqrt (SW_WGS84_MU / r);
+}
+
 void
 sw_payload_point_compute (const SwDesign *design, double altitude_km, double inclination_deg,
                           gboolean simulate, GCancellable *cancellable, SwPayloadPoint *out)
@@ -149,6 +162,13 @@ sw_payload_point_compute (const SwDesign *design, double altitude_km, double inc
 
   memset (out, 0, sizeof *out);
   out->reason[0] = '\0';
+  /* The allowance is the design's at its own altitude; the budget's ideal
+   * delta-v counts the orbital speed but not the climb, so at another
+   * altitude the allowance moves by the change in the climb's energy.
+   * Without this a fixed allowance would make the payload rise with
+   * altitude, which no vehicle does. */
+  losses += sw_payload_climb_m_s (altitude_km) - sw_payload_climb_m_s (m->altitude_km);
+  losses = MAX (losses, 0.0);
   payload_at (design, altitude_km, inclination_deg, losses, out);
   if (!simulate || !isfinite (out->delta_v_m_s))
     return;
@@ -260,21 +280,15 @@ sw_payload_curves_compute (const SwDesign *design, const double *altitudes_km, g
     g_strlcpy (out->note, _("Each point's losses are those of an ascent flown to that orbit "
                             "with the payload the vehicle carries there."),
                sizeof out->note);
-  else if (m->loss_model == SW_LOSS_SIMULATE)
-    g_snprintf (out->note, sizeof out->note,
-                _("Every point uses the first-guess loss allowance of %.0f m/s. The "
-                  "budget's ideal delta-v is the orbital speed only, not the climb, so at a "
-                  "fixed allowance the payload rises with altitude; the command line's "
-                  "performance --simulate flies each point and counts the climb in its "
-                  "losses."),
-                m->has_losses ? m->losses_m_s : SW_PAYLOAD_FIRST_GUESS_LOSSES_M_S);
   else
     g_snprintf (out->note, sizeof out->note,
-                _("Every point uses the design's loss allowance of %.0f m/s. The budget's "
-                  "ideal delta-v is the orbital speed only, not the climb, so at a fixed "
-                  "allowance the payload rises with altitude; the command line's "
-                  "performance --simulate flies each point and counts the climb in its "
-                  "losses."),
-                m->has_losses ? m->losses_m_s : 0.0);
+                _("Every point uses the %s of %.0f m/s at the design's altitude, moved at "
+                  "other altitudes by the change in the climb's energy (the budget's ideal "
+                  "delta-v counts the orbital speed, not the climb); the command line's "
+                  "performance --simulate flies each point instead."),
+                m->loss_model == SW_LOSS_SIMULATE ? _("first-guess loss allowance")
+                                                  : _("design's loss allowance"),
+                m->has_losses ? m->losses_m_s
+                : m->loss_model == SW_LOSS_SIMULATE ? SW_PAYLOAD_FIRST_GUESS_LOSSES_M_S : 0.0);
   return TRUE;
 }

@@ -72,6 +72,7 @@ gboolean sw_payload_curves_compute (const SwDesign *design, const double *altitu
 
 /* One point: the payload of @design with its orbit at @altitude_km and
  * @inclination_deg (allowance losses, or flown when @simulate). */
+double   sw_payload_climb_m_s     (double altitude_km);
 void     sw_payload_point_compute (const SwDesign *design, double altitude_km,
                                    double inclination_deg, gboolean simulate,
                                    GCancellable *cancellable, SwPayloadPoint *out);
