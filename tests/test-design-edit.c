@@ -687,6 +687,62 @@ test_accept_structural_coefficients (void)
   g_assert_false (sw_design_accept_structural_coefficients (d, eps, 2, NULL, &error));
   g_assert_error (error, SW_ERROR, SW_ERROR_RANGE);
   g_assert_true (sw_design_equal (d, before));
+/* The economics object's stage indices follow their stages: engine type A
+ * on stages {0, 1}, B on {3}, stages {2, 3} developed, in a 4-stage design.
+ * Each expected mask is worked out by hand beside the call. */
+static void
+test_economics_follow_stages (void)
+{
+  const double shares[] = { 0.25, 0.25, 0.25, 0.25 };
+  g_autoptr (SwDesign) d = manual_design (4, shares);
+  SwEconomics *e = &d->economics;
+
+  e->present = TRUE;
+  e->n_engine_types = 2;
+  g_strlcpy (e->engine_types[0].name, "A", sizeof e->engine_types[0].name);
+  e->engine_types[0].dry_mass_kg = 500.0;
+  e->engine_types[0].stage_mask = 0x3;
+  g_strlcpy (e->engine_types[1].name, "B", sizeof e->engine_types[1].name);
+  e->engine_types[1].dry_mass_kg = 200.0;
+  e->engine_types[1].stage_mask = 0x8;
+  e->developed_stages = 0xc;
+  assert_valid (d);
+
+  /* Stage 3 moves to 0: old order 0 1 2 3 becomes 3 0 1 2. A on old 0, 1
+   * -> new 1, 2 (0x6); B on old 3 -> new 0 (0x1); developed old 2, 3 -> new
+   * 3, 0 (0x9). */
+  g_assert_true (sw_design_move_stage (d, 3, 0));
+  g_assert_cmpuint (e->engine_types[0].stage_mask, ==, 0x6);
+  g_assert_cmpuint (e->engine_types[1].stage_mask, ==, 0x1);
+  g_assert_cmpuint (e->developed_stages, ==, 0x9);
+  assert_valid (d);
+  /* And back (0 to 3). */
+  g_assert_true (sw_design_move_stage (d, 0, 3));
+  g_assert_cmpuint (e->engine_types[0].stage_mask, ==, 0x3);
+  g_assert_cmpuint (e->engine_types[1].stage_mask, ==, 0x8);
+  g_assert_cmpuint (e->developed_stages, ==, 0xc);
+
+  /* Duplicating stage 1: the copy (new 2) has A's engines and is not
+   * developed; old 2, 3 become 3, 4. A 0x7, B 0x10, developed 0x18. */
+  g_assert_true (sw_design_duplicate_stage (d, 1));
+  g_assert_cmpuint (e->engine_types[0].stage_mask, ==, 0x7);
+  g_assert_cmpuint (e->engine_types[1].stage_mask, ==, 0x10);
+  g_assert_cmpuint (e->developed_stages, ==, 0x18);
+  assert_valid (d);
+
+  /* Removing the last stage (4) takes B off every stage and stage 4 out of
+   * the developed list: a file naming a stage the design no longer has
+   * would not load. */
+  g_assert_true (sw_design_remove_stage (d, 4));
+  g_assert_cmpuint (e->engine_types[0].stage_mask, ==, 0x7);
+  g_assert_cmpuint (e->engine_types[1].stage_mask, ==, 0x0);
+  g_assert_cmpuint (e->developed_stages, ==, 0x8);
+  assert_valid (d);
+  /* Removing stage 0: A on old 1, 2 -> 0, 1; developed old 3 -> 2. */
+  g_assert_true (sw_design_remove_stage (d, 0));
+  g_assert_cmpuint (e->engine_types[0].stage_mask, ==, 0x3);
+  g_assert_cmpuint (e->developed_stages, ==, 0x4);
+  assert_valid (d);
 }
 
 int
@@ -711,5 +767,6 @@ main (int argc, char **argv)
   g_test_add_func ("/core/design-edit/baseline", test_baseline);
   g_test_add_func ("/core/design-edit/accept-structural-coefficients",
                    test_accept_structural_coefficients);
+  g_test_add_func ("/core/design-edit/economics-follow-stages", test_economics_follow_stages);
   return g_test_run ();
 }

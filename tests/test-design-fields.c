@@ -408,6 +408,158 @@ test_shortest_decimals (void)
   assert_round_trip (d);
 }
 
+/* The custom propellant's name: only for a propellant of the user's own,
+ * 1 to 63 bytes, not blank; a refused name leaves the design as it was. */
+static void
+test_propellant_name (void)
+{
+  g_autoptr (SwDesign) d = one_stage ();
+  g_autoptr (GError) error = NULL;
+  char long_name[SW_PROPELLANT_NAME_MAX + 1];
+
+  g_assert_false (sw_design_set_propellant_name (d, 0, "mine", &error));
+  g_assert_error (error, SW_ERROR, SW_ERROR_VALUE);
+  g_assert_nonnull (strstr (error->message, "stages[0].propellant.name"));
+  g_clear_error (&error);
+  g_assert_true (sw_design_set_propellant (d, 0, SW_PROPELLANT_CUSTOM, NULL));
+  g_assert_true (sw_design_set_propellant_name (d, 0, "Peroxide / kerosene", &error));
+  g_assert_no_error (error);
+  g_assert_cmpstr (d->stages[0].propellant.custom_name, ==, "Peroxide / kerosene");
+  assert_round_trip (d);
+  /* Blank, too long, not UTF-8, no such stage. */
+  g_assert_false (sw_design_set_propellant_name (d, 0, "  ", &error));
+  g_assert_error (error, SW_ERROR, SW_ERROR_RANGE);
+  g_clear_error (&error);
+  memset (long_name, 'x', SW_PROPELLANT_NAME_MAX);
+  long_name[SW_PROPELLANT_NAME_MAX] = '\0';
+  g_assert_false (sw_design_set_propellant_name (d, 0, long_name, &error));
+  g_assert_error (error, SW_ERROR, SW_ERROR_RANGE);
+  g_clear_error (&error);
+  long_name[SW_PROPELLANT_NAME_MAX - 1] = '\0';  /* 63 bytes: the most accepted */
+  g_assert_true (sw_design_set_propellant_name (d, 0, long_name, NULL));
+  assert_round_trip (d);
+  g_assert_false (sw_design_set_propellant_name (d, 0, "\xff\xfe", &error));
+  g_assert_error (error, SW_ERROR, SW_ERROR_VALUE);
+  g_clear_error (&error);
+  g_assert_false (sw_design_set_propellant_name (d, 1, "x", &error));
+  g_assert_error (error, SW_ERROR, SW_ERROR_USAGE);
+  g_clear_error (&error);
+  g_assert_cmpstr (d->stages[0].propellant.custom_name, ==, long_name);
+}
+
+/* Engine types and developed stages: every list edit of the economics
+ * object, each refusal leaving the design unchanged, the result saved and
+ * loaded back. */
+static void
+test_engine_types (void)
+{
+  g_autoptr (SwDesign) d = sw_design_new_default ();
+  g_autoptr (SwDesign) before = NULL;
+  g_autoptr (GError) error = NULL;
+  char long_name[SW_NAME_MAX + 1];
+
+  g_assert_cmpuint (d->n_stages, >=, 2);
+  g_assert_false (d->economics.present);
+  g_assert_true (sw_design_add_engine_type (d, &error));
+  g_assert_no_error (error);
+  g_assert_true (d->economics.present);
+  g_assert_cmpuint (d->economics.n_engine_types, ==, 1);
+  g_assert_cmpstr (d->economics.engine_types[0].name, ==, "Engine 1");
+  g_assert_cmpfloat (d->economics.engine_types[0].dry_mass_kg, ==,
+                     SW_ENGINE_TYPE_DEFAULT_DRY_MASS_KG);
+  g_assert_cmpuint (d->economics.engine_types[0].stage_mask, ==, 0);
+  g_assert_false (d->economics.engine_types[0].developed);
+  assert_round_trip (d);
+
+  /* Rename: blank, too long, taken by another type are refused. */
+  g_assert_true (sw_design_add_engine_type (d, NULL));
+  g_assert_cmpstr (d->economics.engine_types[1].name, ==, "Engine 2");
+  g_assert_true (sw_design_rename_engine_type (d, 0, "Core engine", &error));
+  g_assert_no_error (error);
+  before = sw_design_copy (d);
+  g_assert_false (sw_design_rename_engine_type (d, 1, " ", &error));
+  g_assert_error (error, SW_ERROR, SW_ERROR_VALUE);
+  g_clear_error (&error);
+  g_assert_false (sw_design_rename_engine_type (d, 1, "Core engine", &error));
+  g_assert_error (error, SW_ERROR, SW_ERROR_VALUE);
+  g_assert_nonnull (strstr (error->message, "economics.engine_types[1].name"));
+  g_clear_error (&error);
+  memset (long_name, 'e', SW_NAME_MAX);
+  long_name[SW_NAME_MAX] = '\0';
+  g_assert_false (sw_design_rename_engine_type (d, 1, long_name, &error));
+  g_assert_error (error, SW_ERROR, SW_ERROR_RANGE);
+  g_clear_error (&error);
+  g_assert_false (sw_design_rename_engine_type (d, 2, "x", &error));
+  g_assert_error (error, SW_ERROR, SW_ERROR_USAGE);
+  g_clear_error (&error);
+  g_assert_true (sw_design_equal (d, before));
+  /* A new type after a rename takes the first free "Engine N". */
+  g_assert_true (sw_design_rename_engine_type (d, 1, "Engine 3", NULL));
+  g_assert_true (sw_design_add_engine_type (d, NULL));
+  g_assert_cmpstr (d->economics.engine_types[2].name, ==, "Engine 4");
+  g_assert_true (sw_design_remove_engine_type (d, 2, NULL));
+
+  /* Dry mass within (0, 100000] kg (limits table). */
+  g_assert_true (sw_design_set_engine_type_dry_mass (d, 1, 100000.0, NULL));
+  g_assert_false (sw_design_set_engine_type_dry_mass (d, 1, 0.0, &error));
+  g_assert_error (error, SW_ERROR, SW_ERROR_RANGE);
+  g_clear_error (&error);
+  g_assert_false (sw_design_set_engine_type_dry_mass (d, 1, NAN, &error));
+  g_assert_error (error, SW_ERROR, SW_ERROR_NOT_FINITE);
+  g_clear_error (&error);
+  g_assert_cmpfloat (d->economics.engine_types[1].dry_mass_kg, ==, 100000.0);
+
+  /* Stages: type 0 on both stages; type 1 on stage 1 is a conflict,
+   * refused, type 0 keeps it. */
+  g_assert_true (sw_design_set_engine_type_on_stage (d, 0, 0, TRUE, NULL));
+  g_assert_true (sw_design_set_engine_type_on_stage (d, 0, 1, TRUE, NULL));
+  g_assert_cmpuint (d->economics.engine_types[0].stage_mask, ==, 0x3);
+  g_assert_false (sw_design_set_engine_type_on_stage (d, 1, 1, TRUE, &error));
+  g_assert_error (error, SW_ERROR, SW_ERROR_VALUE);
+  g_assert_nonnull (strstr (error->message, "Core engine"));
+  g_clear_error (&error);
+  g_assert_cmpuint (d->economics.engine_types[1].stage_mask, ==, 0);
+  g_assert_false (sw_design_set_engine_type_on_stage (d, 0, d->n_stages, TRUE, &error));
+  g_assert_error (error, SW_ERROR, SW_ERROR_RANGE);
+  g_clear_error (&error);
+  g_assert_true (sw_design_set_engine_type_on_stage (d, 0, 1, FALSE, NULL));
+  g_assert_true (sw_design_set_engine_type_on_stage (d, 1, 1, TRUE, NULL));
+  g_assert_cmpint (sw_economics_engine_type_of_stage (&d->economics, 1), ==, 1);
+  g_assert_true (sw_design_set_engine_type_developed (d, 1, TRUE, NULL));
+  g_assert_true (d->economics.engine_types[1].developed);
+  g_assert_false (sw_design_set_engine_type_developed (d, 5, TRUE, &error));
+  g_assert_error (error, SW_ERROR, SW_ERROR_USAGE);
+  g_clear_error (&error);
+
+  /* Developed stages. */
+  g_assert_true (sw_design_set_stage_developed (d, 1, TRUE, NULL));
+  g_assert_cmpuint (d->economics.developed_stages, ==, 0x2);
+  g_assert_false (sw_design_set_stage_developed (d, d->n_stages, TRUE, &error));
+  g_assert_error (error, SW_ERROR, SW_ERROR_RANGE);
+  g_clear_error (&error);
+  g_assert_true (sw_design_validate (d, NULL, NULL));
+  assert_round_trip (d);
+  g_assert_true (sw_design_set_stage_developed (d, 1, FALSE, NULL));
+  g_assert_cmpuint (d->economics.developed_stages, ==, 0);
+
+  /* Removing type 0 keeps type 1 and its stages. */
+  g_assert_true (sw_design_remove_engine_type (d, 0, NULL));
+  g_assert_cmpuint (d->economics.n_engine_types, ==, 1);
+  g_assert_cmpstr (d->economics.engine_types[0].name, ==, "Engine 3");
+  g_assert_cmpuint (d->economics.engine_types[0].stage_mask, ==, 0x2);
+  g_assert_false (sw_design_remove_engine_type (d, 1, &error));
+  g_assert_error (error, SW_ERROR, SW_ERROR_USAGE);
+  g_clear_error (&error);
+  assert_round_trip (d);
+
+  /* At most the limits table's count of types. */
+  while (d->economics.n_engine_types < sw_limit_get (SW_LIMIT_ENGINE_TYPES)->max)
+    g_assert_true (sw_design_add_engine_type (d, NULL));
+  g_assert_false (sw_design_add_engine_type (d, &error));
+  g_assert_error (error, SW_ERROR, SW_ERROR_RANGE);
+  assert_round_trip (d);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -423,5 +575,7 @@ main (int argc, char **argv)
   g_test_add_func ("/core/design-fields/spread", test_spread);
   g_test_add_func ("/core/design-fields/thrust-for-tw", test_thrust_for_tw);
   g_test_add_func ("/core/design-fields/shortest-decimals", test_shortest_decimals);
+  g_test_add_func ("/core/design-fields/propellant-name", test_propellant_name);
+  g_test_add_func ("/core/design-fields/engine-types", test_engine_types);
   return g_test_run ();
 }

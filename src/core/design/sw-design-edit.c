@@ -150,6 +150,61 @@ sw_design_set_split (SwDesign *design, SwSplitMode mode, const double *shares, g
 
 /* ---- the stage list ---------------------------------------------------- */
 
+/* The economics object names stages by index (engine types' stages, the
+ * developed stages): when the list changes, those indices follow their
+ * stages. */
+static guint32
+mask_remove_bit (guint32 mask, guint i)
+{
+  guint32 low = mask & ((1u << i) - 1u);
+  guint32 high = i + 1 < 32 ? (mask >> (i + 1)) << i : 0;
+  return low | high;
+}
+
+static guint32
+mask_insert_bit (guint32 mask, guint i, gboolean bit)
+{
+  guint32 low = mask & ((1u << i) - 1u);
+  guint32 high = (mask >> i) << (i + 1);
+  return low | high | (bit ? 1u << i : 0u);
+}
+
+static void
+economics_remove_stage (SwEconomics *e, guint i)
+{
+  for (guint k = 0; k < e->n_engine_types; k++)
+    e->engine_types[k].stage_mask = mask_remove_bit (e->engine_types[k].stage_mask, i);
+  e->developed_stages = mask_remove_bit (e->developed_stages, i);
+}
+
+/* A copy of stage @i at @i + 1: the same engines, but a new stage, not
+ * developed. */
+static void
+economics_duplicate_stage (SwEconomics *e, guint i)
+{
+  for (guint k = 0; k < e->n_engine_types; k++)
+    {
+      guint32 m = e->engine_types[k].stage_mask;
+      e->engine_types[k].stage_mask = mask_insert_bit (m, i + 1, (m & (1u << i)) != 0);
+    }
+  e->developed_stages = mask_insert_bit (e->developed_stages, i + 1, FALSE);
+}
+
+static guint32
+mask_move_bit (guint32 mask, guint from, guint to)
+{
+  gboolean bit = (mask & (1u << from)) != 0;
+  return mask_insert_bit (mask_remove_bit (mask, from), to, bit);
+}
+
+static void
+economics_move_stage (SwEconomics *e, guint from, guint to)
+{
+  for (guint k = 0; k < e->n_engine_types; k++)
+    e->engine_types[k].stage_mask = mask_move_bit (e->engine_types[k].stage_mask, from, to);
+  e->developed_stages = mask_move_bit (e->developed_stages, from, to);
+}
+
 /* Copies whole characters of @text that fit in @size bytes: a name cut
  * inside a character would not be UTF-8, and the loader rejects such a
  * file.  @text must be UTF-8 (checked by the callers). */
@@ -210,6 +265,7 @@ sw_design_duplicate_stage (SwDesign *design, guint index)
            (design->n_stages - index - 1) * sizeof design->stages[0]);
   design->stages[index + 1] = copy;
   design->n_stages++;
+  economics_duplicate_stage (&design->economics, index);
   if (design->split == SW_SPLIT_MANUAL)
     {
       design->stages[index].delta_v_share /= 2.0;
@@ -229,6 +285,7 @@ sw_design_remove_stage (SwDesign *design, guint index)
            (design->n_stages - index - 1) * sizeof design->stages[0]);
   design->n_stages--;
   memset (&design->stages[design->n_stages], 0, sizeof design->stages[0]);
+  economics_remove_stage (&design->economics, index);
   if (design->split == SW_SPLIT_MANUAL)
     renormalise_shares (design);
   return TRUE;
@@ -253,6 +310,7 @@ sw_design_move_stage (SwDesign *design, guint from, guint to)
     memmove (&design->stages[to + 1], &design->stages[to],
              (from - to) * sizeof design->stages[0]);
   design->stages[to] = moving;
+  economics_move_stage (&design->economics, from, to);
   return TRUE;
 }
 

@@ -51,6 +51,11 @@ gboolean sw_design_set_split (SwDesign *design, SwSplitMode mode, const double *
 
 /* ---- the stage list ---------------------------------------------------- */
 
+/* The economics object's stage indices (the stages an engine type is on,
+ * the developed stages) follow their stages through every change of the
+ * list: a removed stage leaves them, a duplicate uses the original's engine
+ * type but is not developed. */
+
 /* Appends a stage with plausible defaults (sw_stage_init_default).  In the
  * manual split it gets 1/(n+1) of the delta-v and the others are scaled by
  * n/(n+1).  FALSE at SW_MAX_STAGES stages. */

@@ -793,3 +793,253 @@ sw_design_set_spread (SwDesign *design, guint which, SwSpreadKind kind, double w
   design->uncertainty = copy->uncertainty;
   return TRUE;
 }
+
+/* ---- the custom propellant's name -------------------------------------- */
+
+static gboolean
+is_blank (const char *text)
+{
+  for (; *text != '\0'; text++)
+    if (!g_ascii_isspace (*text))
+      return FALSE;
+  return TRUE;
+}
+
+static gboolean
+check_value (const char *path, SwLimitId limit, double value, gboolean whole, GError **error)
+{
+  const SwLimit *l = sw_limit_get (limit);
+
+  if (!isfinite (value))
+    {
+      g_set_error (error, SW_ERROR, SW_ERROR_NOT_FINITE, _("%s: the value is not a finite number"),
+                   path);
+      return FALSE;
+    }
+  if (!sw_limit_contains (limit, value))
+    {
+      g_set_error (error, SW_ERROR, SW_ERROR_RANGE,
+                   _("%s: %g is outside the accepted range %s%.10g to %.10g%s%s"), path, value,
+                   l->min_exclusive ? _("above ") : "", l->min, l->max, l->unit[0] ? " " : "",
+                   l->unit);
+      return FALSE;
+    }
+  if (whole && value != floor (value))
+    {
+      g_set_error (error, SW_ERROR, SW_ERROR_VALUE, _("%s: %g is not a whole number"), path,
+                   value);
+      return FALSE;
+    }
+  return TRUE;
+}
+
+gboolean
+sw_design_set_propellant_name (SwDesign *design, guint stage, const char *name, GError **error)
+{
+  g_autofree char *path = g_strdup_printf ("stages[%u].propellant.name", stage);
+  SwStagePropellant *prop;
+
+  g_return_val_if_fail (design != NULL && name != NULL, FALSE);
+  if (stage >= design->n_stages)
+    {
+      g_set_error (error, SW_ERROR, SW_ERROR_USAGE, _("stages[%u]: the design has %u stages"),
+                   stage, design->n_stages);
+      return FALSE;
+    }
+  prop = &design->stages[stage].propellant;
+  if (prop->kind != SW_PROPELLANT_CUSTOM)
+    {
+      g_set_error (error, SW_ERROR, SW_ERROR_VALUE,
+                   _("%s: only a propellant of your own has a name to edit"), path);
+      return FALSE;
+    }
+  if (!check_text (path, name, SW_PROPELLANT_NAME_MAX - 1, error))
+    return FALSE;
+  if (is_blank (name))
+    {
+      g_set_error (error, SW_ERROR, SW_ERROR_RANGE,
+                   _("%s: a propellant's name takes 1 to %d bytes"), path,
+                   SW_PROPELLANT_NAME_MAX - 1);
+      return FALSE;
+    }
+  memset (prop->custom_name, 0, sizeof prop->custom_name);
+  g_strlcpy (prop->custom_name, name, sizeof prop->custom_name);
+  return TRUE;
+}
+
+/* ---- economics: engine types and developed stages ---------------------- */
+
+static gboolean
+check_engine_type (const SwDesign *design, guint index, GError **error)
+{
+  if (index < design->economics.n_engine_types)
+    return TRUE;
+  g_set_error (error, SW_ERROR, SW_ERROR_USAGE,
+               _("economics.engine_types[%u]: the design has %u engine types"), index,
+               design->economics.n_engine_types);
+  return FALSE;
+}
+
+static gboolean
+check_econ_stage (const SwDesign *design, const char *path, guint stage, GError **error)
+{
+  if (stage < design->n_stages)
+    return TRUE;
+  g_set_error (error, SW_ERROR, SW_ERROR_RANGE,
+               _("%s: stage %u is not a stage of the design (it has %u, numbered from 0)"),
+               path, stage, design->n_stages);
+  return FALSE;
+}
+
+static gboolean
+engine_name_taken (const SwEconomics *e, const char *name, int except)
+{
+  for (guint i = 0; i < e->n_engine_types; i++)
+    if ((int) i != except && g_strcmp0 (e->engine_types[i].name, name) == 0)
+      return TRUE;
+  return FALSE;
+}
+
+gboolean
+sw_design_add_engine_type (SwDesign *design, GError **error)
+{
+  SwEconomics *e;
+  SwEngineType *t;
+
+  g_return_val_if_fail (design != NULL, FALSE);
+  e = &design->economics;
+  if (e->n_engine_types >= SW_ECONOMICS_MAX_ENGINE_TYPES
+      || !sw_limit_contains (SW_LIMIT_ENGINE_TYPES, e->n_engine_types + 1))
+    {
+      g_set_error (error, SW_ERROR, SW_ERROR_RANGE,
+                   _("economics.engine_types: at most %.0f engine types (%s)"),
+                   sw_limit_get (SW_LIMIT_ENGINE_TYPES)->max,
+                   sw_limit_get (SW_LIMIT_ENGINE_TYPES)->why);
+      return FALSE;
+    }
+  t = &e->engine_types[e->n_engine_types];
+  memset (t, 0, sizeof *t);
+  for (guint n = e->n_engine_types + 1;; n++)
+    {
+      /* Translators: the name a new engine type starts with; %u counts from 1 */
+      g_snprintf (t->name, sizeof t->name, _("Engine %u"), n);
+      if (!engine_name_taken (e, t->name, -1))
+        break;
+    }
+  /* A starting value the user replaces: the cost relationships need a mass. */
+  t->dry_mass_kg = SW_ENGINE_TYPE_DEFAULT_DRY_MASS_KG;
+  e->n_engine_types++;
+  e->present = TRUE;
+  return TRUE;
+}
+
+gboolean
+sw_design_remove_engine_type (SwDesign *design, guint index, GError **error)
+{
+  SwEconomics *e;
+
+  g_return_val_if_fail (design != NULL, FALSE);
+  if (!check_engine_type (design, index, error))
+    return FALSE;
+  e = &design->economics;
+  memmove (&e->engine_types[index], &e->engine_types[index + 1],
+           (e->n_engine_types - index - 1) * sizeof e->engine_types[0]);
+  e->n_engine_types--;
+  memset (&e->engine_types[e->n_engine_types], 0, sizeof e->engine_types[0]);
+  return TRUE;
+}
+
+gboolean
+sw_design_rename_engine_type (SwDesign *design, guint index, const char *name, GError **error)
+{
+  g_autofree char *path = g_strdup_printf ("economics.engine_types[%u].name", index);
+  SwEngineType *t;
+
+  g_return_val_if_fail (design != NULL && name != NULL, FALSE);
+  if (!check_engine_type (design, index, error)
+      || !check_text (path, name, sizeof design->economics.engine_types[0].name - 1, error))
+    return FALSE;
+  if (is_blank (name))
+    {
+      g_set_error (error, SW_ERROR, SW_ERROR_VALUE, _("%s: an engine type needs a name"), path);
+      return FALSE;
+    }
+  if (engine_name_taken (&design->economics, name, (int) index))
+    {
+      g_set_error (error, SW_ERROR, SW_ERROR_VALUE,
+                   _("%s: another engine type is already called \"%s\""), path, name);
+      return FALSE;
+    }
+  t = &design->economics.engine_types[index];
+  memset (t->name, 0, sizeof t->name);
+  g_strlcpy (t->name, name, sizeof t->name);
+  return TRUE;
+}
+
+gboolean
+sw_design_set_engine_type_dry_mass (SwDesign *design, guint index, double kg, GError **error)
+{
+  g_autofree char *path = g_strdup_printf ("economics.engine_types[%u].dry_mass_kg", index);
+
+  g_return_val_if_fail (design != NULL, FALSE);
+  if (!check_engine_type (design, index, error)
+      || !check_value (path, SW_LIMIT_ENGINE_DRY_MASS, kg, FALSE, error))
+    return FALSE;
+  design->economics.engine_types[index].dry_mass_kg = kg;
+  return TRUE;
+}
+
+gboolean
+sw_design_set_engine_type_on_stage (SwDesign *design, guint index, guint stage, gboolean on,
+                                    GError **error)
+{
+  g_autofree char *path = g_strdup_printf ("economics.engine_types[%u].on_stages", index);
+  SwEconomics *e;
+  int other;
+
+  g_return_val_if_fail (design != NULL, FALSE);
+  if (!check_engine_type (design, index, error)
+      || !check_econ_stage (design, path, stage, error))
+    return FALSE;
+  e = &design->economics;
+  other = sw_economics_engine_type_of_stage (e, stage);
+  if (on && other >= 0 && (guint) other != index)
+    {
+      /* Never moved silently from the other type: the user takes it off first. */
+      g_set_error (error, SW_ERROR, SW_ERROR_VALUE,
+                   _("%s: stage %u already uses engine type \"%s\"; a stage has at most one"),
+                   path, stage, e->engine_types[other].name);
+      return FALSE;
+    }
+  if (on)
+    e->engine_types[index].stage_mask |= 1u << stage;
+  else
+    e->engine_types[index].stage_mask &= ~(1u << stage);
+  return TRUE;
+}
+
+gboolean
+sw_design_set_engine_type_developed (SwDesign *design, guint index, gboolean developed,
+                                     GError **error)
+{
+  g_return_val_if_fail (design != NULL, FALSE);
+  if (!check_engine_type (design, index, error))
+    return FALSE;
+  design->economics.engine_types[index].developed = developed;
+  return TRUE;
+}
+
+gboolean
+sw_design_set_stage_developed (SwDesign *design, guint stage, gboolean developed,
+                               GError **error)
+{
+  g_return_val_if_fail (design != NULL, FALSE);
+  if (!check_econ_stage (design, "economics.developed_stages", stage, error))
+    return FALSE;
+  if (developed)
+    design->economics.developed_stages |= 1u << stage;
+  else
+    design->economics.developed_stages &= ~(1u << stage);
+  design->economics.present = TRUE;
+  return TRUE;
+}

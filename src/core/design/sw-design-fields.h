@@ -121,4 +121,31 @@ char     *sw_design_dup_drag_text (const SwDesign *design, guint stage, char dec
 gboolean  sw_design_set_spread (SwDesign *design, guint which, SwSpreadKind kind,
                                 double width, GError **error);
 
+/* "stages[i].propellant.name" of a propellant of the user's own: 1 to 63
+ * bytes of UTF-8, not blank.  Refused for a catalogue propellant. */
+gboolean  sw_design_set_propellant_name (SwDesign *design, guint stage, const char *name,
+                                         GError **error);
+
+/* The "economics" object's lists.  Each refuses (FALSE, design unchanged,
+ * @error naming the key) an index out of range; none changes another key. */
+#define SW_ENGINE_TYPE_DEFAULT_DRY_MASS_KG 1000.0
+/* Appends an engine type "Engine N" (a name no other type has) of
+ * SW_ENGINE_TYPE_DEFAULT_DRY_MASS_KG, on no stage, not developed. */
+gboolean  sw_design_add_engine_type (SwDesign *design, GError **error);
+gboolean  sw_design_remove_engine_type (SwDesign *design, guint index, GError **error);
+/* Not blank, at most SW_NAME_MAX - 1 bytes, not another type's name. */
+gboolean  sw_design_rename_engine_type (SwDesign *design, guint index, const char *name,
+                                        GError **error);
+gboolean  sw_design_set_engine_type_dry_mass (SwDesign *design, guint index, double kg,
+                                              GError **error);
+/* Puts the type on stage @stage or takes it off.  A stage already using
+ * another type is a conflict (refused), never moved over silently. */
+gboolean  sw_design_set_engine_type_on_stage (SwDesign *design, guint index, guint stage,
+                                              gboolean on, GError **error);
+gboolean  sw_design_set_engine_type_developed (SwDesign *design, guint index,
+                                               gboolean developed, GError **error);
+/* "economics.developed_stages": stage @stage already developed or not. */
+gboolean  sw_design_set_stage_developed (SwDesign *design, guint stage, gboolean developed,
+                                         GError **error);
+
 G_END_DECLS
