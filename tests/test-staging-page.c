@@ -6,6 +6,7 @@
  * under Xvfb with the cairo renderer (suite 'gui'). */
 #include "config.h"
 
+#include "sw-engine-types-editor.h"
 #include "sw-number-field.h"
 #include "sw-staging-page.h"
 #include "sw-window-private.h"
@@ -110,6 +111,132 @@ test_window_has_page (void)
   sw_test_window_close (w);
 }
 
+static const SwEconomics *
+econ_of (SwDocument *doc)
+{
+  return &sw_document_get_design (doc)->economics;
+}
+
+static guint
+undo_steps (SwDocument *doc)
+{
+  guint n = 0;
+
+  while (sw_document_undo (doc))
+    n++;
+  return n;
+}
+
+/* The economics lists in the window: engine types (add, rename, dry mass,
+ * stages, developed, remove) and developed stages, each a named edit and
+ * one undo step; refusals (a blank or taken name, a mass out of range, a
+ * stage already on another type) are shown and change nothing. */
+static void
+test_engine_types_editor (void)
+{
+  SwWindow *w = sw_window_new (NULL);
+  SwDocument *doc = sw_window_get_document (w);
+  SwEngineTypesEditor *ed;
+  GtkWidget *name, *mass, *message, *check;
+  g_autoptr (SwDesign) before = NULL;
+  guint steps = 0;
+
+  gtk_window_present (GTK_WINDOW (w));
+  g_assert_true (sw_window_show_page (w, "staging"));
+  while (sw_document_undo (doc))
+    ;
+  ed = SW_ENGINE_TYPES_EDITOR (sw_staging_page_get_engine_types (sw_window_get_staging_page (w)));
+  message = sw_engine_types_editor_get_message (ed);
+  g_assert_cmpuint (sw_document_get_design (doc)->n_stages, >=, 2);
+  g_assert_cmpuint (econ_of (doc)->n_engine_types, ==, 0);
+  g_assert_null (sw_engine_types_editor_get_widget (ed, 0, SW_ENGINE_TYPE_NAME));
+
+  g_signal_emit_by_name (sw_engine_types_editor_get_add_button (ed), "clicked");
+  steps++;
+  g_assert_cmpuint (econ_of (doc)->n_engine_types, ==, 1);
+  name = sw_engine_types_editor_get_widget (ed, 0, SW_ENGINE_TYPE_NAME);
+  mass = sw_engine_types_editor_get_widget (ed, 0, SW_ENGINE_TYPE_DRY_MASS);
+  g_assert_true (GTK_IS_ENTRY (name));
+  g_assert_cmpstr (gtk_editable_get_text (GTK_EDITABLE (name)), ==, "Engine 1");
+
+  /* Rename; a blank name is refused and marked. */
+  gtk_editable_set_text (GTK_EDITABLE (name), "Core engine");
+  g_signal_emit_by_name (name, "activate");
+  steps++;
+  g_assert_cmpstr (econ_of (doc)->engine_types[0].name, ==, "Core engine");
+  before = sw_document_dup_design (doc);
+  gtk_editable_set_text (GTK_EDITABLE (name), "   ");
+  g_signal_emit_by_name (name, "activate");
+  g_assert_true (sw_design_equal (sw_document_get_design (doc), before));
+  g_assert_true (gtk_widget_has_css_class (name, "error"));
+  g_assert_true (gtk_widget_get_visible (message));
+  gtk_editable_set_text (GTK_EDITABLE (name), "Core engine");
+  g_signal_emit_by_name (name, "activate");
+  g_assert_false (gtk_widget_has_css_class (name, "error"));
+  g_assert_false (gtk_widget_get_visible (message));
+
+  /* The dry mass: a number field with the limits table's range. */
+  g_assert_true (sw_number_field_enter (SW_NUMBER_FIELD (mass), "2500"));
+  steps++;
+  g_assert_cmpfloat (econ_of (doc)->engine_types[0].dry_mass_kg, ==, 2500.0);
+  g_assert_false (sw_number_field_enter (SW_NUMBER_FIELD (mass), "-5"));
+  g_assert_false (sw_number_field_enter (SW_NUMBER_FIELD (mass), "abc"));
+  g_assert_cmpfloat (econ_of (doc)->engine_types[0].dry_mass_kg, ==, 2500.0);
+  sw_number_field_reset (SW_NUMBER_FIELD (mass), 2500.0);
+
+  /* On stages 1 and 2 (indices 0, 1). */
+  gtk_check_button_set_active (GTK_CHECK_BUTTON (sw_engine_types_editor_get_stage_check (ed, 0, 0)),
+                               TRUE);
+  gtk_check_button_set_active (GTK_CHECK_BUTTON (sw_engine_types_editor_get_stage_check (ed, 0, 1)),
+                               TRUE);
+  steps += 2;
+  g_assert_cmpuint (econ_of (doc)->engine_types[0].stage_mask, ==, 0x3);
+
+  /* A second type on stage 2: refused (stage 2 uses the first), the box
+   * goes back, the message names the other type. */
+  g_signal_emit_by_name (sw_engine_types_editor_get_add_button (ed), "clicked");
+  steps++;
+  g_clear_pointer (&before, sw_design_free);
+  before = sw_document_dup_design (doc);
+  check = sw_engine_types_editor_get_stage_check (ed, 1, 1);
+  gtk_check_button_set_active (GTK_CHECK_BUTTON (check), TRUE);
+  g_assert_false (gtk_check_button_get_active (GTK_CHECK_BUTTON (check)));
+  g_assert_true (sw_design_equal (sw_document_get_design (doc), before));
+  g_assert_true (gtk_widget_get_visible (message));
+  g_assert_nonnull (strstr (gtk_label_get_text (GTK_LABEL (message)), "Core engine"));
+  /* A name another type has is refused too. */
+  name = sw_engine_types_editor_get_widget (ed, 1, SW_ENGINE_TYPE_NAME);
+  gtk_editable_set_text (GTK_EDITABLE (name), "Core engine");
+  g_signal_emit_by_name (name, "activate");
+  g_assert_true (sw_design_equal (sw_document_get_design (doc), before));
+  g_assert_true (gtk_widget_has_css_class (name, "error"));
+
+  /* Developed: the type, and stage 2 (index 1). */
+  gtk_check_button_set_active (
+    GTK_CHECK_BUTTON (sw_engine_types_editor_get_widget (ed, 0, SW_ENGINE_TYPE_DEVELOPED)), TRUE);
+  gtk_check_button_set_active (GTK_CHECK_BUTTON (sw_engine_types_editor_get_developed_stage (ed, 1)),
+                               TRUE);
+  steps += 2;
+  g_assert_true (econ_of (doc)->engine_types[0].developed);
+  g_assert_cmpuint (econ_of (doc)->developed_stages, ==, 0x2);
+  g_assert_true (sw_design_validate (sw_document_get_design (doc), NULL, NULL));
+
+  /* Remove the second type. */
+  g_signal_emit_by_name (sw_engine_types_editor_get_widget (ed, 1, SW_ENGINE_TYPE_REMOVE),
+                         "clicked");
+  steps++;
+  g_assert_cmpuint (econ_of (doc)->n_engine_types, ==, 1);
+  g_assert_null (sw_engine_types_editor_get_widget (ed, 1, SW_ENGINE_TYPE_NAME));
+
+  /* Each change was one undo step, and undoing them all shows none. */
+  g_assert_cmpuint (undo_steps (doc), ==, steps);
+  g_assert_cmpuint (econ_of (doc)->n_engine_types, ==, 0);
+  g_assert_null (sw_engine_types_editor_get_widget (ed, 0, SW_ENGINE_TYPE_NAME));
+  g_assert_false (gtk_check_button_get_active (
+    GTK_CHECK_BUTTON (sw_engine_types_editor_get_developed_stage (ed, 1))));
+  sw_test_window_close (w);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -118,6 +245,7 @@ main (int argc, char **argv)
   tmp_dir = sw_gui_test_env_init (&argc, &argv, "sw-staging-page-XXXXXX");
   g_test_add_func ("/gui/staging-page/shows-worker-result", test_page_shows_worker_result);
   g_test_add_func ("/gui/staging-page/window-has-page", test_window_has_page);
+  g_test_add_func ("/gui/staging-page/engine-types-editor", test_engine_types_editor);
   status = g_test_run ();
   sw_gui_test_env_finish (tmp_dir);
   return status;

@@ -85,6 +85,8 @@ struct _SwInspector {
   SwNumberField *tw_field;
   SwNumberField *diameter_field;
   GtkDropDown   *propellant_dropdown;     /* SwPropellantKind order */
+  GtkEntry      *propellant_name_entry;   /* a propellant of the user's own */
+  GtkLabel      *propellant_name_message;
   SwNumberField *propellant_load_field;
   SwNumberField *mixture_ratio_field;
   SwNumberField *ullage_field;
@@ -1035,6 +1037,52 @@ fairing_rule_cb (SwNumberField *field, SwInspector *self)
   commit (self, g_steal_pointer (&d), NULL);
 }
 
+/* The name of a propellant of the user's own: committed on Enter or when
+ * the field is left; a refused name is marked and changes nothing. */
+static void
+show_propellant_name_error (SwInspector *self, const char *message)
+{
+  gtk_label_set_text (self->propellant_name_message, message != NULL ? message : "");
+  gtk_widget_set_visible (GTK_WIDGET (self->propellant_name_message), message != NULL);
+  if (message != NULL)
+    gtk_widget_add_css_class (GTK_WIDGET (self->propellant_name_entry), "error");
+  else
+    gtk_widget_remove_css_class (GTK_WIDGET (self->propellant_name_entry), "error");
+}
+
+static void
+propellant_name_commit (SwInspector *self)
+{
+  g_autoptr (SwDesign) d = NULL;
+  g_autoptr (GError) error = NULL;
+  const char *text = gtk_editable_get_text (GTK_EDITABLE (self->propellant_name_entry));
+  const SwStagePropellant *prop;
+
+  if (!stage_ok (self))
+    return;
+  prop = &design (self)->stages[self->selected].propellant;
+  if (prop->kind != SW_PROPELLANT_CUSTOM || g_strcmp0 (prop->custom_name, text) == 0)
+    {
+      show_propellant_name_error (self, NULL);
+      return;
+    }
+  d = sw_document_dup_design (self->document);
+  if (!sw_design_set_propellant_name (d, (guint) self->selected, text, &error))
+    {
+      show_propellant_name_error (self, field_message (error->message));
+      return;
+    }
+  show_propellant_name_error (self, NULL);
+  commit (self, g_steal_pointer (&d), NULL);
+}
+
+static void
+propellant_name_leave_cb (GtkEventControllerFocus *controller, SwInspector *self)
+{
+  if (gtk_widget_get_mapped (GTK_WIDGET (self)))
+    propellant_name_commit (self);
+}
+
 static void
 show_drag_error (SwInspector *self, const char *message)
 {
@@ -1213,6 +1261,27 @@ build_sections (SwInspector *self)
     gtk_grid_attach (grid, caption (_("Propellant"), tip, GTK_WIDGET (self->propellant_dropdown)),
                      0, row, 1, 1);
     gtk_grid_attach (grid, GTK_WIDGET (self->propellant_dropdown), 1, row++, 2, 1);
+  }
+  {
+    GtkEventController *name_focus = gtk_event_controller_focus_new ();
+    const char *tip = _("The name of your own propellant, as the file and the sheet give it");
+
+    self->propellant_name_entry = GTK_ENTRY (gtk_entry_new ());
+    gtk_editable_set_enable_undo (GTK_EDITABLE (self->propellant_name_entry), FALSE);
+    gtk_widget_set_tooltip_text (GTK_WIDGET (self->propellant_name_entry), tip);
+    g_signal_connect_swapped (self->propellant_name_entry, "activate",
+                              G_CALLBACK (propellant_name_commit), self);
+    g_signal_connect (name_focus, "leave", G_CALLBACK (propellant_name_leave_cb), self);
+    gtk_widget_add_controller (GTK_WIDGET (self->propellant_name_entry), name_focus);
+    gtk_grid_attach (grid, caption (_("Propellant na_me"), tip,
+                                    GTK_WIDGET (self->propellant_name_entry)), 0, row, 1, 1);
+    gtk_grid_attach (grid, GTK_WIDGET (self->propellant_name_entry), 1, row++, 2, 1);
+    self->propellant_name_message = GTK_LABEL (gtk_label_new (NULL));
+    gtk_label_set_wrap (self->propellant_name_message, TRUE);
+    gtk_label_set_xalign (self->propellant_name_message, 0.0);
+    gtk_widget_add_css_class (GTK_WIDGET (self->propellant_name_message), "error");
+    gtk_widget_set_visible (GTK_WIDGET (self->propellant_name_message), FALSE);
+    gtk_grid_attach (grid, GTK_WIDGET (self->propellant_name_message), 1, row++, 2, 1);
   }
   self->propellant_load_field = add_number_row (self, grid, row++, _("Fixed propellant load"),
                                                 _("The propellant of a stage that exists: the "
@@ -1394,6 +1463,22 @@ update_extra_stage_fields (SwInspector *self, const SwDesign *d, guint i, gboole
   gtk_widget_set_sensitive (GTK_WIDGET (self->mixture_ratio_field),
                             s->propellant.kind != SW_PROPELLANT_NONE
                             && s->propellant.kind != SW_PROPELLANT_SOLID_COMPOSITE);
+  gtk_widget_set_sensitive (GTK_WIDGET (self->propellant_name_entry),
+                            s->propellant.kind == SW_PROPELLANT_CUSTOM);
+  if (s->propellant.kind != SW_PROPELLANT_CUSTOM
+      || !gtk_widget_has_focus (GTK_WIDGET (self->propellant_name_entry))
+      || GPOINTER_TO_INT (g_object_get_data (G_OBJECT (self->propellant_name_entry),
+                                             "sw-stage-shown")) != (int) i + 1)
+    {
+      const char *name = s->propellant.kind == SW_PROPELLANT_CUSTOM ? s->propellant.custom_name
+                                                                     : "";
+      if (g_strcmp0 (gtk_editable_get_text (GTK_EDITABLE (self->propellant_name_entry)), name)
+          != 0)
+        gtk_editable_set_text (GTK_EDITABLE (self->propellant_name_entry), name);
+      show_propellant_name_error (self, NULL);
+    }
+  g_object_set_data (G_OBJECT (self->propellant_name_entry), "sw-stage-shown",
+                     GINT_TO_POINTER ((int) i + 1));
   gtk_widget_set_sensitive (GTK_WIDGET (self->oxidizer_density_field),
                             s->propellant.kind == SW_PROPELLANT_CUSTOM);
   gtk_widget_set_sensitive (GTK_WIDGET (self->fuel_density_field),
@@ -1660,6 +1745,7 @@ sw_inspector_get_field (SwInspector *self, SwInspectorField field)
     case SW_INSPECTOR_DIAMETER: return GTK_WIDGET (self->diameter_field);
     case SW_INSPECTOR_COAST: return GTK_WIDGET (self->coast_field);
     case SW_INSPECTOR_DRAG: return GTK_WIDGET (self->drag_entry);
+    case SW_INSPECTOR_PROPELLANT_NAME: return GTK_WIDGET (self->propellant_name_entry);
     case SW_INSPECTOR_ENGINE_RELIABILITY: return GTK_WIDGET (self->engine_rel_field);
     case SW_INSPECTOR_FAILURES_TOLERATED: return GTK_WIDGET (self->failures_field);
     case SW_INSPECTOR_IGNITION_RELIABILITY: return GTK_WIDGET (self->ignition_rel_field);
@@ -1888,6 +1974,7 @@ sw_inspector_init (SwInspector *self)
   route_undo (GTK_WIDGET (self->name_entry));
   route_undo (GTK_WIDGET (self->stage_name_entry));
   route_undo (GTK_WIDGET (self->drag_entry));
+  route_undo (GTK_WIDGET (self->propellant_name_entry));
   configure_eps_spin (self);
 
   update_actions (self);

@@ -75,6 +75,7 @@ typedef enum {
   SW_INSPECTOR_OXIDIZER_DENSITY,
   SW_INSPECTOR_FUEL_DENSITY,
   SW_INSPECTOR_TANKS_LABEL,    /* GtkLabel: the selected stage's tanks and length */
+  SW_INSPECTOR_PROPELLANT_NAME,  /* GtkEntry: a propellant of the user's own */
   SW_INSPECTOR_N_FIELDS
 } SwInspectorField;
 

@@ -9,6 +9,7 @@
 #include "sw-csv-staging.h"
 #include "sw-document.h"
 #include "sw-economics.h"
+#include "sw-engine-types-editor.h"
 #include "sw-format.h"
 #include "sw-number-field.h"
 #include "sw-plot-axis.h"
@@ -62,6 +63,7 @@ struct _SwStagingPage {
   guint           updating;     /* fields being filled from a result */
   GtkWidget      *fields[SW_N_ECON_NUMBERS];
   GtkWidget      *mode;
+  GtkWidget      *engine_types;  /* SwEngineTypesEditor: the economics lists */
   Job            *running;      /* the newest job, until it is shown */
   Job            *shown;        /* the job whose figures are drawn */
   guint           progress_id;
@@ -206,6 +208,7 @@ sw_staging_page_set_document (SwStagingPage *self, SwDocument *document)
 {
   g_return_if_fail (SW_IS_STAGING_PAGE (self));
   g_set_object (&self->document, document);
+  sw_engine_types_editor_set_document (SW_ENGINE_TYPES_EDITOR (self->engine_types), document);
 }
 
 GtkWidget *
@@ -213,6 +216,13 @@ sw_staging_page_get_field (SwStagingPage *self, SwEconNumber key)
 {
   g_return_val_if_fail (SW_IS_STAGING_PAGE (self) && key < SW_N_ECON_NUMBERS, NULL);
   return self->fields[key];
+}
+
+GtkWidget *
+sw_staging_page_get_engine_types (SwStagingPage *self)
+{
+  g_return_val_if_fail (SW_IS_STAGING_PAGE (self), NULL);
+  return self->engine_types;
 }
 
 GtkWidget *
@@ -790,8 +800,7 @@ sw_staging_page_init (SwStagingPage *self)
       [SW_ECON_WEIGHT_FAILURE] = N_("Weight: failure"),
     };
     GtkWidget *title = gtk_label_new (_("Cost model, recovery and weights (the design's "
-                                        "economics keys; engine types and developed stages "
-                                        "are set in the file)"));
+                                        "economics keys)"));
     GtkWidget *grid = gtk_grid_new ();
     const char *modes[] = { N_("Expendable"), N_("Lands downrange"),
                             N_("Returns to the launch site"), NULL };
@@ -832,6 +841,8 @@ sw_staging_page_init (SwStagingPage *self)
     gtk_label_set_xalign (GTK_LABEL (title), 0.0);
     gtk_box_append (GTK_BOX (self->box), title);
     gtk_box_append (GTK_BOX (self->box), grid);
+    self->engine_types = sw_engine_types_editor_new ();
+    gtk_box_append (GTK_BOX (self->box), self->engine_types);
   }
 }
 
