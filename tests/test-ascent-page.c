@@ -10,6 +10,7 @@
 #include "sw-application.h"
 #include "sw-ascent.h"
 #include "sw-format.h"
+#include "sw-plot-private.h"
 #include "sw-window-private.h"
 
 #include "gui-test-env.h"
@@ -347,6 +348,23 @@ test_core_numbers (void)
   g_assert_cmpstr (page_text (w, SW_ASCENT_PAGE_LIFTOFF_TW), ==, tw);
   g_assert_cmpstr (page_text (w, SW_ASCENT_PAGE_ORBIT), ==, orbit);
   g_assert_true (g_str_has_prefix (page_text (w, SW_ASCENT_PAGE_STATUS), "Orbit reached"));
+  /* The losses chart names the turning-atmosphere term as the README does,
+   * with the core's figure, and has no catch-all "Other" bar. */
+  {
+    SwPlot *plot = sw_ascent_page_get_plot (page (w), SW_ASCENT_PLOT_LOSSES);
+    g_autofree char *turning = sw_format_speed (core->rotation_term_m_s);
+    g_autofree char *expected = g_strdup_printf ("Turning atmosphere %s", turning);
+    gboolean seen = FALSE;
+
+    g_assert_cmpfloat (fabs (core->rotation_term_m_s), >=, 0.5);
+    g_assert_nonnull (plot->categories);
+    for (guint i = 0; plot->categories[i] != NULL; i++)
+      {
+        g_assert_false (g_str_has_prefix (plot->categories[i], "Other"));
+        seen = seen || g_strcmp0 (plot->categories[i], expected) == 0;
+      }
+    g_assert_true (seen);
+  }
 
   /* "loss_model": "simulate": the closed loop's vehicle replaces the first
    * guess everywhere, and the totals say so. */

@@ -620,7 +620,12 @@ show_losses (SwPlot *plot, const SwAscentResult *a)
     { _("Back-pressure"), a->pressure_loss_m_s },
     { _("Fairing carried"), a->fairing_loss_m_s },
     { _("Orbit raising"), a->raising_loss_m_s },
-    { _("Other"), a->other_loss_m_s },
+    /* Thrust and drag act against the air, gravity against the inertial
+     * velocity: the README's "turning atmosphere" term. */
+    { _("Turning atmosphere"), a->rotation_term_m_s },
+    /* What is left is the integrator's (README: below 0.05 m/s), drawn only
+     * when it reaches MIN_LOSS_M_S. */
+    { _("Integration residual"), a->other_loss_m_s - a->rotation_term_m_s },
   };
   char *labels[G_N_ELEMENTS (losses)];
   double x[G_N_ELEMENTS (losses)];
