@@ -9,6 +9,7 @@
 #include "config.h"
 
 #include "sw-comparison.h"
+#include "sw-format.h"
 #include "sw-montecarlo.h"
 #include "sw-reliability.h"
 #include "sw-sensitivity.h"
@@ -563,6 +564,50 @@ test_export (void)
   sw_test_window_close (w);
 }
 
+/* Which losses the trades used is said on the trade page and in the
+ * working: the closed loop's for a simulate design once the ascent has
+ * run (the analysis's note, with its figure), nothing for an allowance
+ * design. */
+static void
+test_losses_note (void)
+{
+  SwWindow *w = window_new ();
+  g_autofree char *simulated = demo_path ("three-stage-simulated.stagewright");
+  g_autofree char *allowance = demo_path ("medium-cargo.stagewright");
+  g_autofree char *working = NULL;
+  g_autofree char *losses = NULL;
+  SwAnalysis *r;
+
+  load_file (w, simulated);
+  g_assert_true (sw_window_show_page (w, "trade"));
+  while (g_main_context_iteration (NULL, FALSE))
+    ;
+  r = sw_window_get_shown_result (w);
+  g_assert_true (r->trade_losses_simulated);
+  losses = sw_format_speed (r->trade_losses_m_s);
+  g_assert_cmpstr (sw_trade_page_get_card_text (page (w), SW_TRADE_CARD_LOSSES_NOTE), ==,
+                   r->trade_losses_note);
+  g_assert_true (g_str_has_prefix (r->trade_losses_note,
+                                   "Sensitivities and Monte Carlo use the closed-loop losses"));
+  g_assert_nonnull (strstr (r->trade_losses_note, losses));
+  sw_window_show_page (w, "working");
+  working = sw_working_view_dup_text (sw_window_get_working_view (w));
+  g_assert_nonnull (strstr (working, r->trade_losses_note));
+  g_assert_nonnull (strstr (working, "from the simulated ascent (closed loop)"));
+
+  load_file (w, allowance);
+  g_assert_true (sw_window_show_page (w, "trade"));
+  while (g_main_context_iteration (NULL, FALSE))
+    ;
+  r = sw_window_get_shown_result (w);
+  g_assert_cmpstr (r->trade_losses_note, ==, "");
+  g_assert_cmpstr (sw_trade_page_get_card_text (page (w), SW_TRADE_CARD_LOSSES_NOTE), ==, "");
+  g_clear_pointer (&working, g_free);
+  working = sw_working_view_dup_text (sw_window_get_working_view (w));
+  g_assert_nonnull (strstr (working, "the design's loss allowance"));
+  sw_test_window_close (w);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -574,6 +619,7 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/trade/histogram", test_histogram);
   g_test_add_func ("/gui/trade/baseline", test_baseline);
   g_test_add_func ("/gui/trade/export", test_export);
+  g_test_add_func ("/gui/trade/losses-note", test_losses_note);
 
   status = g_test_run ();
   sw_gui_test_env_finish (tmp_dir);

@@ -57,6 +57,7 @@ struct _SwTradePage {
   GtkLabel      *shortfall_detail;
   GtkLabel      *success_value;
   GtkLabel      *success_detail;
+  GtkLabel      *losses_note;      /* which losses the trades used */
   SwPlot        *tornado_plot;
   GtkStack      *histogram_stack;
   SwPlot        *histogram_plot;
@@ -641,10 +642,23 @@ sw_trade_page_set_document (SwTradePage *self, SwDocument *document)
   refresh_inputs (self);
 }
 
+/* A simulate design's sensitivities and Monte Carlo use the allowance
+ * until the closed loop, then its losses: the analysis says which. */
+static void
+show_losses_note (SwTradePage *self, const SwAnalysis *r)
+{
+  const char *note = r != NULL ? r->trade_losses_note : "";
+
+  if (g_strcmp0 (gtk_label_get_text (self->losses_note), note) != 0)
+    gtk_label_set_text (self->losses_note, note);
+  gtk_widget_set_visible (GTK_WIDGET (self->losses_note), note[0] != '\0');
+}
+
 static void
 show_result (SwTradePage *self)
 {
   show_cards (self, self->result);
+  show_losses_note (self, self->result);
   show_tornado (self, self->result);
   show_histogram (self, self->result);
   show_mass (self, self->result);
@@ -738,6 +752,9 @@ sw_trade_page_get_card_text (SwTradePage *self, SwTradeCard card)
     case SW_TRADE_CARD_SPREAD: return gtk_label_get_text (self->spread_value);
     case SW_TRADE_CARD_SHORTFALL: return gtk_label_get_text (self->shortfall_value);
     case SW_TRADE_CARD_SUCCESS: return gtk_label_get_text (self->success_value);
+    case SW_TRADE_CARD_LOSSES_NOTE:
+      return gtk_widget_get_visible (GTK_WIDGET (self->losses_note))
+             ? gtk_label_get_text (self->losses_note) : "";
     default: return NULL;
     }
 }
@@ -861,6 +878,7 @@ sw_trade_page_class_init (SwTradePageClass *klass)
   CHILD (shortfall_detail);
   CHILD (success_value);
   CHILD (success_detail);
+  CHILD (losses_note);
   CHILD (tornado_plot);
   CHILD (histogram_stack);
   CHILD (histogram_plot);

@@ -42,6 +42,7 @@ typedef enum {
   SW_TRADE_CARD_SPREAD,        /* liftoff mass, 5th to 95th percentile */
   SW_TRADE_CARD_SHORTFALL,     /* chance the payload falls short */
   SW_TRADE_CARD_SUCCESS,       /* mission success probability */
+  SW_TRADE_CARD_LOSSES_NOTE,   /* which losses the trades used ("" when none shown) */
 } SwTradeCard;
 
 GtkWidget *sw_trade_page_new (void);

@@ -235,8 +235,23 @@ build_text (SwWorkingView *self, gboolean for_copy)
     /* Translators: header of the working; stage number, count, name */
     g_string_append_printf (s, _("Stage %u of %u: %s\n"), i + 1, d->n_stages, st->name);
     g_string_append_printf (s, _("Split: %s\n"), split);
-    g_string_append_printf (s, _("Required delta-v Δv = %s m/s; g0 = 9.80665 m/s² (exact)\n\n"),
+    g_string_append_printf (s, _("Required delta-v Δv = %s m/s; g0 = 9.80665 m/s² (exact)\n"),
                             total);
+    if (r->has_budget && isfinite (r->budget.ideal_delta_v_m_s))
+      {
+        g_autofree char *ideal = MS (r->budget.ideal_delta_v_m_s);
+        g_autofree char *losses = MS (r->delta_v_m_s - r->budget.ideal_delta_v_m_s);
+        if (r->sized_by_ascent)
+          /* Translators: the parts of the required delta-v; two speeds in m/s */
+          g_string_append_printf (s, _("  = ideal %s m/s + losses %s m/s from the simulated "
+                                       "ascent (closed loop)\n"), ideal, losses);
+        else
+          g_string_append_printf (s, _("  = ideal %s m/s + the design's loss allowance %s m/s\n"),
+                                  ideal, losses);
+      }
+    if (r->trade_losses_note[0] != '\0')
+      g_string_append_printf (s, "%s\n", r->trade_losses_note);
+    g_string_append_c (s, '\n');
   }
 
   {
