@@ -647,6 +647,191 @@ test_to_scale_clicks (void)
   g_settings_set_boolean (settings, "stack-to-scale", FALSE);
   drain ();
   g_assert_false (sw_stack_view_get_to_scale (SW_STACK_VIEW (view)));
+/* ---- the wheel over every field of every page --------------------------- */
+
+static void
+collect_numbers (GtkWidget *root, GPtrArray *out)
+{
+  if (GTK_IS_SPIN_BUTTON (root) || SW_IS_NUMBER_FIELD (root))
+    {
+      g_ptr_array_add (out, root);
+      return;
+    }
+  for (GtkWidget *c = gtk_widget_get_first_child (root); c != NULL;
+       c = gtk_widget_get_next_sibling (c))
+    collect_numbers (c, out);
+}
+
+static double
+number_value (GtkWidget *f)
+{
+  return GTK_IS_SPIN_BUTTON (f) ? gtk_spin_button_get_value (GTK_SPIN_BUTTON (f))
+                                : sw_number_field_get_value (SW_NUMBER_FIELD (f));
+}
+
+static gboolean
+same_value (double a, double b)
+{
+  return (isnan (a) && isnan (b)) || a == b;
+}
+
+/* Scrolls the panel that holds @widget so that its middle is on screen;
+ * FALSE when it cannot be (then the case is skipped, not failed). */
+static gboolean
+bring_into_view (GtkWidget *widget)
+{
+  GtkWidget *scroller = gtk_widget_get_ancestor (widget, GTK_TYPE_SCROLLED_WINDOW);
+  GtkWidget *content;
+  graphene_rect_t b;
+
+  if (scroller == NULL)
+    return TRUE;
+  content = gtk_scrolled_window_get_child (GTK_SCROLLED_WINDOW (scroller));
+  if (GTK_IS_VIEWPORT (content) && gtk_viewport_get_child (GTK_VIEWPORT (content)) != NULL)
+    content = gtk_viewport_get_child (GTK_VIEWPORT (content));
+  if (!gtk_widget_compute_bounds (widget, content, &b))
+    return FALSE;
+  gtk_adjustment_set_value (gtk_scrolled_window_get_vadjustment (GTK_SCROLLED_WINDOW (scroller)),
+                            b.origin.y + b.size.height / 2.0
+                            - gtk_widget_get_height (scroller) / 2.0);
+  /* The new position is laid out on a coming frame. */
+  for (int tries = 0; tries < 200; tries++)
+    {
+      drain ();
+      if (gtk_widget_compute_bounds (widget, scroller, &b)
+          && b.origin.y + b.size.height / 2.0 > 0.0
+          && b.origin.y + b.size.height / 2.0 < gtk_widget_get_height (scroller))
+        return TRUE;
+      g_usleep (10000);
+    }
+  return FALSE;
+}
+
+/* Scrolls up and down over each number field of @root (spin buttons and
+ * the project's fields, popovers included) while the focus is elsewhere:
+ * no field's value and nothing in the design may change.  Returns the
+ * count of fields tried. */
+static guint
+wheel_over_fields (SwWindow *w, GtkWidget *root, const char *where)
+{
+  g_autoptr (GPtrArray) fields = g_ptr_array_new ();
+  guint tried = 0;
+
+  collect_numbers (root, fields);
+  for (guint k = 0; k < fields->len; k++)
+    {
+      GtkWidget *f = fields->pdata[k];
+      GtkWidget *popover = gtk_widget_get_ancestor (f, GTK_TYPE_POPOVER);
+      g_autoptr (SwDesign) before = NULL;
+      g_autoptr (GPtrArray) values = g_ptr_array_new_with_free_func (g_free);
+      GtkWidget *focus;
+
+      if (popover != NULL)
+        {
+          gtk_popover_popup (GTK_POPOVER (popover));
+          sw_test_wait_until (popover_mapped, f, 10000, "a popover to open");
+          /* The focus on another field of the popover, or on none. */
+          gtk_widget_grab_focus (fields->pdata[k == 0 || gtk_widget_get_ancestor (
+                                                  fields->pdata[k - 1], GTK_TYPE_POPOVER)
+                                                  != popover ? k + 1 < fields->len ? k + 1 : k
+                                                             : k - 1]);
+        }
+      else
+        gtk_window_set_focus (GTK_WINDOW (w), NULL);
+      drain ();
+      if (!gtk_widget_is_drawable (f) || !gtk_widget_get_sensitive (f)
+          || (popover == NULL && !bring_into_view (f)))
+        {
+          if (popover != NULL)
+            gtk_popover_popdown (GTK_POPOVER (popover));
+          continue;
+        }
+      focus = gtk_root_get_focus (GTK_ROOT (w));
+      if (focus != NULL && (focus == f || gtk_widget_is_ancestor (focus, f)))
+        {
+          gtk_window_set_focus (GTK_WINDOW (w), NULL);
+          drain ();
+        }
+      before = sw_design_copy (doc_design (w));
+      for (guint j = 0; j < fields->len; j++)
+        {
+          double *v = g_new (double, 1);
+          *v = number_value (fields->pdata[j]);
+          g_ptr_array_add (values, v);
+        }
+      point_at_native (f);
+      /* Up, checked, then down, checked: up and down together could cancel
+       * out. */
+      for (guint button = 4; button <= 5; button++)
+        {
+          g_autofree char *b = g_strdup_printf ("%u", button);
+          xdo ("click", "--repeat", "2", "--delay", "30", b, NULL);
+          for (guint j = 0; j < fields->len; j++)
+            if (!same_value (number_value (fields->pdata[j]), *(double *) values->pdata[j]))
+              g_error ("%s: the wheel over field %u (%s) changed field %u (%s) from %g to %g",
+                       where, k, G_OBJECT_TYPE_NAME (f), j,
+                       gtk_widget_get_tooltip_text (fields->pdata[j]),
+                       *(double *) values->pdata[j], number_value (fields->pdata[j]));
+        }
+      for (guint j = 0; j < fields->len; j++)
+        if (!same_value (number_value (fields->pdata[j]), *(double *) values->pdata[j]))
+          g_error ("%s: the wheel over field %u (%s) changed field %u (%s) from %g to %g", where,
+                   k, G_OBJECT_TYPE_NAME (f), j, gtk_widget_get_tooltip_text (fields->pdata[j]),
+                   *(double *) values->pdata[j], number_value (fields->pdata[j]));
+      if (!sw_design_equal (doc_design (w), before))
+        g_error ("%s: the wheel over field %u (%s, %s) changed the design", where, k,
+                 G_OBJECT_TYPE_NAME (f), gtk_widget_get_tooltip_text (f));
+      tried++;
+      if (popover != NULL)
+        {
+          gtk_popover_popdown (GTK_POPOVER (popover));
+          drain ();
+        }
+    }
+  return tried;
+}
+
+static gboolean
+laid_out (gpointer data)
+{
+  GtkWidget *scroller = gtk_widget_get_first_child (GTK_WIDGET (data));
+
+  while (scroller != NULL && !GTK_IS_SCROLLED_WINDOW (scroller))
+    scroller = gtk_widget_get_first_child (scroller);
+  return gtk_widget_get_mapped (GTK_WIDGET (data)) && gtk_widget_get_height (GTK_WIDGET (data)) > 0
+         && (scroller == NULL || gtk_widget_get_height (scroller) > 0);
+}
+
+static void
+show_page (SwWindow *w, const char *name, gpointer page)
+{
+  g_assert_true (sw_window_show_page (w, name));
+  sw_test_wait_until (laid_out, page, 20000, "a page to be laid out");
+  drain ();
+}
+
+/* Every number field of the window, on every page, popovers included: the
+ * wheel without focus changes no value (the wheel with focus does edit, as
+ * test_wheel and test_wheel_trade_page show). */
+static void
+test_wheel_every_field (void)
+{
+  SwWindow *w = window_with_demo ("small-sat-launcher.stagewright");
+  guint tried;
+
+  g_assert_true (sw_window_show_page (w, "curves"));
+  drain ();
+  tried = wheel_over_fields (w, GTK_WIDGET (sw_window_get_inspector (w)), "inspector");
+  g_assert_cmpuint (tried, >=, 10);
+  show_page (w, "ascent", sw_window_get_ascent_page (w));
+  g_assert_cmpuint (wheel_over_fields (w, GTK_WIDGET (sw_window_get_ascent_page (w)), "ascent"),
+                    ==, 3);
+  show_page (w, "trade", sw_window_get_trade_page (w));
+  g_assert_cmpuint (wheel_over_fields (w, GTK_WIDGET (sw_window_get_trade_page (w)), "trade"),
+                    >=, 5);
+  show_page (w, "staging", sw_window_get_staging_page (w));
+  g_assert_cmpuint (wheel_over_fields (w, GTK_WIDGET (sw_window_get_staging_page (w)),
+                                       "staging"), >=, 10);
   sw_test_window_close (w);
 }
 
@@ -669,6 +854,7 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/input/shortcut-in-field", test_shortcut_in_field);
   g_test_add_func ("/gui/input/wheel", test_wheel);
   g_test_add_func ("/gui/input/wheel-trade-page", test_wheel_trade_page);
+  g_test_add_func ("/gui/input/wheel-every-field", test_wheel_every_field);
   g_test_add_func ("/gui/input/dependent-field", test_dependent_field);
   g_test_add_func ("/gui/input/undo-in-field", test_undo_in_field);
   g_test_add_func ("/gui/input/first-start", test_first_start);

@@ -6,6 +6,7 @@
 #include "sw-ascent-page.h"
 
 #include "sw-format.h"
+#include "sw-number-field.h"
 
 #include <glib/gi18n.h>
 #include <math.h>
@@ -52,6 +53,9 @@ struct _SwAscentPage {
   GtkAdjustment *min_tw_adjustment;
   GtkAdjustment *max_q_adjustment;
   GtkAdjustment *max_g_adjustment;
+  GtkWidget     *min_tw_spin;      /* the limits popover's spin buttons */
+  GtkWidget     *max_q_spin;
+  GtkWidget     *max_g_spin;
 };
 
 G_DEFINE_FINAL_TYPE (SwAscentPage, sw_ascent_page, GTK_TYPE_WIDGET)
@@ -1004,6 +1008,9 @@ sw_ascent_page_class_init (SwAscentPageClass *klass)
   CHILD (min_tw_adjustment);
   CHILD (max_q_adjustment);
   CHILD (max_g_adjustment);
+  CHILD (min_tw_spin);
+  CHILD (max_q_spin);
+  CHILD (max_g_spin);
 #undef CHILD
 #define PLOT(name, index) \
   gtk_widget_class_bind_template_child_full (widget_class, name, FALSE, \
@@ -1022,6 +1029,11 @@ static void
 sw_ascent_page_init (SwAscentPage *self)
 {
   gtk_widget_init_template (GTK_WIDGET (self));
+  /* The limits are edited with the keyboard or a wheel over a focused
+   * spin button only: a wheel passing over the popover changes nothing. */
+  sw_number_field_guard_wheel (self->min_tw_spin);
+  sw_number_field_guard_wheel (self->max_q_spin);
+  sw_number_field_guard_wheel (self->max_g_spin);
 
   /* The schema's defaults until the owner hands the settings in. */
   gtk_adjustment_set_value (self->min_tw_adjustment, 1.2);
