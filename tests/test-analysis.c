@@ -86,6 +86,19 @@ test_verdicts (void)
 
   /* Without the ascent: paper-only, sized by the allowance. */
   o.ascent = FALSE;
+  {
+    /* A first stage that cannot lift off: the core's reason is a sentence
+     * of its own and follows a full stop, not a colon. */
+    g_autoptr (SwDesign) heavy = sw_design_copy (shortfall);
+    g_autoptr (SwAnalysis) a7 = NULL;
+
+    heavy->payload_kg = 5.0e6;
+    a7 = sw_analysis_run (heavy, NULL, NULL);
+    assert_verdict (a7, "short-of-orbit", "cannot lift off");
+    g_assert_null (strstr (a7->verdict.reason, "orbit: The"));
+    g_assert_nonnull (strstr (a7->verdict.reason, "does not reach the orbit. The vehicle cannot "
+                                                 "lift off"));
+  }
   a6 = sw_analysis_run (reaches, &o, NULL);
   assert_verdict (a6, "paper-only", "on request");
   g_assert_false (a6->sized_by_ascent);

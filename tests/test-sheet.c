@@ -7,8 +7,10 @@
 #include "sw-csv.h"
 #include "sw-sheet.h"
 #include "sw-sheet-private.h"
+#include "sw-text-fit.h"
 
 #include <cairo.h>
+#include <pango/pangocairo.h>
 #include <glib/gstdio.h>
 #include <math.h>
 #include <string.h>
@@ -924,6 +926,54 @@ remove_tree (const char *dir)
   g_rmdir (dir);
 }
 
+/* Labels too long for their place lose whole words from the end, never
+ * half a word or a number ("T/W 68749.44 at ig…" was seen), and a label
+ * whose first word does not fit is not drawn. */
+static void
+test_text_fit_words (void)
+{
+  cairo_surface_t *surface = cairo_image_surface_create (CAIRO_FORMAT_ARGB32, 10, 10);
+  cairo_t *cr = cairo_create (surface);
+  PangoLayout *layout = pango_cairo_create_layout (cr);
+  const char *text = "T/W 68749.44 at ignition";
+  int full, head, word;
+
+  pango_layout_set_text (layout, text, -1);
+  pango_layout_get_size (layout, &full, NULL);
+  pango_layout_set_text (layout, "T/W 68749.44 at\342\200\246", -1);
+  pango_layout_get_size (layout, &head, NULL);
+  pango_layout_set_text (layout, "T/W\342\200\246", -1);
+  pango_layout_get_size (layout, &word, NULL);
+  g_assert_cmpint (head, <, full);
+
+  /* Room for all of it: unchanged. */
+  g_assert_true (sw_text_fit_words (layout, text, full, 1));
+  g_assert_cmpstr (pango_layout_get_text (layout), ==, text);
+  /* Room for all but the last word: that word goes, the rest stays whole. */
+  g_assert_true (sw_text_fit_words (layout, text, head, 1));
+  g_assert_cmpstr (pango_layout_get_text (layout), ==, "T/W 68749.44 at\342\200\246");
+  /* Between the two: the same, never "at ig…". */
+  g_assert_true (sw_text_fit_words (layout, text, (head + full) / 2, 1));
+  g_assert_cmpstr (pango_layout_get_text (layout), ==, "T/W 68749.44 at\342\200\246");
+  /* Just short of "T/W 68749.44…": the number is not cut, it goes whole. */
+  g_assert_true (sw_text_fit_words (layout, text, word + 1, 1));
+  g_assert_cmpstr (pango_layout_get_text (layout), ==, "T/W\342\200\246");
+  /* Not even the first word: nothing drawn. */
+  g_assert_false (sw_text_fit_words (layout, text, word - 1, 1));
+  g_assert_cmpstr (pango_layout_get_text (layout), ==, "");
+  /* Two lines of room: wrapped between words, all of it. */
+  g_assert_true (sw_text_fit_words (layout, text, head, 2));
+  g_assert_cmpstr (pango_layout_get_text (layout), ==, text);
+  g_assert_cmpint (pango_layout_get_line_count (layout), ==, 2);
+  /* A middle dot left hanging is dropped with its word. */
+  g_assert_true (sw_text_fit_words (layout, "29.9 t \302\267 unused", head / 2, 1));
+  g_assert_false (g_str_has_suffix (pango_layout_get_text (layout), "\302\267\342\200\246"));
+
+  g_object_unref (layout);
+  cairo_destroy (cr);
+  cairo_surface_destroy (surface);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -942,6 +992,7 @@ main (int argc, char **argv)
   g_test_add_func ("/sheet/font-sizes", test_font_sizes);
   g_test_add_func ("/sheet/axis-units", test_axis_units);
   g_test_add_func ("/sheet/legend-markers", test_legend_markers);
+  g_test_add_func ("/sheet/text-fit-words", test_text_fit_words);
   status = g_test_run ();
   remove_tree (tmpdir);
   g_free (tmpdir);

@@ -4,6 +4,7 @@
 #include "config.h"
 
 #include "sw-plot-private.h"
+#include "sw-text-fit.h"
 
 #include <glib/gi18n.h>
 #include <math.h>
@@ -427,17 +428,16 @@ draw_axes (SwPlot *self, cairo_t *cr, const Colors *c)
       double row = fabs (sw_plot_axis_map (&self->y, 1.0) - sw_plot_axis_map (&self->y, 0.0));
       /* A long label ("Structural coeff., stage 2 (Upper stage)") wraps
        * between words onto as many lines as its row holds, right-aligned
-       * against the axis; only what still does not fit is ellipsized. */
+       * against the axis; what still does not fit loses whole words. */
       int lines = CLAMP ((int) floor (row / MAX (th, 1.0)), 1, 3);
       for (guint i = 0; self->categories[i] != NULL; i++)
         {
           PangoLayout *layout = sw_plot_make_text_fresh (self, self->categories[i]);
           double py = sw_plot_axis_map (&self->y, i);
           int w, h;
-          pango_layout_set_wrap (layout, PANGO_WRAP_WORD);
-          pango_layout_set_ellipsize (layout, PANGO_ELLIPSIZE_END);
-          pango_layout_set_width (layout, (int) (cw * PANGO_SCALE));
-          pango_layout_set_height (layout, -lines);
+          /* Whole words only: a label that does not fit loses words from
+           * its end, never half a word or a number. */
+          sw_text_fit_words (layout, self->categories[i], (int) (cw * PANGO_SCALE), lines);
           pango_layout_set_alignment (layout, PANGO_ALIGN_RIGHT);
           pango_layout_get_pixel_size (layout, &w, &h);
           sw_plot_set_source (cr, &c->fg, 1.0);

@@ -5,6 +5,7 @@
 #include "config.h"
 
 #include "sw-sheet-private.h"
+#include "sw-text-fit.h"
 
 #include <math.h>
 
@@ -145,14 +146,18 @@ sw_sheet_layout (cairo_t *cr, const char *text, const TextStyle *st)
   pango_font_description_set_weight (fd, st->bold ? PANGO_WEIGHT_BOLD : PANGO_WEIGHT_NORMAL);
   pango_layout_set_font_description (layout, fd);
   pango_font_description_free (fd);
+  if (st->width > 0 && st->ellipsize)
+    {
+      pango_layout_set_alignment (layout, st->align);
+      /* One line; too long, it loses whole words, never half of one. */
+      sw_text_fit_words (layout, text, (int) (st->width * PANGO_SCALE), 1);
+      return layout;
+    }
   if (st->width > 0)
     {
       pango_layout_set_width (layout, (int) (st->width * PANGO_SCALE));
       pango_layout_set_alignment (layout, st->align);
-      if (st->ellipsize)
-        pango_layout_set_ellipsize (layout, PANGO_ELLIPSIZE_END);
-      else
-        pango_layout_set_wrap (layout, PANGO_WRAP_WORD_CHAR);
+      pango_layout_set_wrap (layout, PANGO_WRAP_WORD_CHAR);
     }
   pango_layout_set_text (layout, text, -1);
   return layout;

@@ -7,6 +7,7 @@
 
 #include "sw-format.h"
 #include "sw-sheet-private.h"
+#include "sw-text-fit.h"
 
 #include <glib/gi18n-lib.h>
 #include <math.h>
@@ -557,11 +558,12 @@ panel_text (cairo_t *cr, const char *text, double size, gboolean bold, double wi
   pango_font_description_free (fd);
   if (width > 0.0)
     {
-      pango_layout_set_width (layout, (int) (width * PANGO_SCALE));
-      pango_layout_set_ellipsize (layout, PANGO_ELLIPSIZE_END);
       pango_layout_set_alignment (layout, align);
+      /* One line; a label too long loses whole words, never half of one. */
+      sw_text_fit_words (layout, text, (int) (width * PANGO_SCALE), 1);
     }
-  pango_layout_set_text (layout, text, -1);
+  else
+    pango_layout_set_text (layout, text, -1);
   return layout;
 }
 

@@ -279,6 +279,11 @@ update_verdict (SwAnalysis *r)
             text = g_strdup_printf (_("In the simulated ascent the vehicle falls %s short of "
                                       "the orbit."), miss);
         }
+      else if (g_unichar_isupper (g_utf8_get_char_validated (a->reason, -1)))
+        /* The core's reason is a sentence of its own ("The vehicle cannot
+         * lift off: ..."): not run on after a colon. */
+        text = g_strdup_printf (_("The simulated ascent does not reach the orbit. %s"),
+                                a->reason);
       else
         text = g_strdup_printf (_("The simulated ascent does not reach the orbit: %s"),
                                 a->reason);
