@@ -21,7 +21,12 @@ static void
 test_mass_rule (void)
 {
   setlocale (LC_NUMERIC, "C");
-  expect (sw_format_mass (0.1), "0 kg");
+  /* The smallest payload the limits accept is not "0 kg". */
+  expect (sw_format_mass (0.1), "0.10 kg");
+  expect (sw_format_mass (0.0), "0 kg");
+  expect (sw_format_mass (2.44), "2.4 kg");
+  expect (sw_format_mass (9.96), "10 kg");
+  expect (sw_format_mass (-0.001), "0 kg");
   expect (sw_format_mass (5000.0), "5,000 kg");
   expect (sw_format_mass (9999.0), "9,999 kg");
   expect (sw_format_mass (10000.0), "10.0 t");

@@ -117,6 +117,11 @@ mass (double kg, gboolean sign)
   if (!isfinite (kg))
     return g_strdup (SW_NO_VALUE);
   unit = mass_unit (kg, &scaled, &decimals);
+  /* A mass of a few kilograms (a 100 g payload, its stages) is not "0 kg":
+   * one decimal below 10 kg, two below 1 kg.  Changes keep whole kilograms,
+   * so rounding noise never shows as a change. */
+  if (!sign && fabs (kg) < 9.95 && fabs (kg) >= 0.005)
+    decimals = fabs (kg) < 0.995 ? 2 : 1;
   return with_unit (scaled, decimals, unit, sign);
 }
 

@@ -11,7 +11,8 @@
  * - negative numbers use the minus sign U+2212; deltas carry "+" or "−";
  * - digit grouping and the decimal separator follow LC_NUMERIC (the "%'"
  *   flag of printf), so a German desktop reads "1.234,5 t";
- * - mass: below 10 t in kilograms without decimals ("8,000 kg"), from 10 t
+ * - mass: below 10 kg with one decimal ("2.4 kg"; two below 1 kg, "0.10 kg"),
+ *   below 10 t in kilograms without decimals ("8,000 kg"), from 10 t
  *   to below 1,000 t in tonnes with one decimal ("312.4 t"), from 1,000 t up
  *   in whole tonnes ("6,396 t"). */
 #pragma once
