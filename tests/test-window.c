@@ -8,6 +8,7 @@
 #include "sw-application.h"
 #include "sw-format.h"
 #include "sw-limits.h"
+#include "sw-plot-private.h"
 #include "sw-sizing.h"
 #include "sw-trade-plots.h"
 #include "sw-window-private.h"
@@ -865,6 +866,63 @@ test_shape_and_estimate (void)
   g_assert_true (sw_design_equal (sw_document_get_design (doc), before));
   g_assert_false (sw_document_can_undo (doc));
   sw_test_window_close (w);
+/* The stage-count plot labels its crosses once: with a design that does
+ * not close and several counts without a solution, the labels of
+ * neighbouring crosses were printed over each other. */
+static guint
+labelled_markers (SwPlot *plot, guint *crosses)
+{
+  guint n = 0;
+
+  *crosses = 0;
+  for (guint i = 0; i < plot->markers->len; i++)
+    {
+      const Marker *m = plot->markers->pdata[i];
+      if (m->kind == SW_MARKER_INFEASIBLE)
+        (*crosses)++;
+      if (m->label != NULL && m->label[0] != '\0')
+        n++;
+    }
+  return n;
+}
+
+static void
+test_stage_count_labels (void)
+{
+  g_autofree char *path = demo_path ("all-solid-concept.stagewright");
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
+  GtkWidget *plot = sw_plot_new ();
+  SwAnalysis *r;
+  guint infeasible = 0, crosses = 0;
+
+  g_object_ref_sink (plot);
+  g_assert_nonnull (d);
+  /* Beyond the four solid stages (test-analysis: infeasible). */
+  d->mission.delta_v_m_s = 25000.0;
+  r = sw_analysis_run (d, NULL, NULL);
+  g_assert_false (r->sizing.feasible);
+  for (guint k = 0; k < r->stage_curve.n_points; k++)
+    infeasible += !r->stage_curve.points[k].feasible;
+  g_assert_cmpuint (infeasible, >=, 2);
+  sw_trade_plots_show_stage_count (SW_PLOT (plot), r);
+  /* One cross per count without a solution (the design's own count is one
+   * of them), one label: the design's. */
+  g_assert_cmpuint (labelled_markers (SW_PLOT (plot), &crosses), ==, 1);
+  g_assert_cmpuint (crosses, ==, infeasible);
+  sw_analysis_unref (r);
+
+  /* A design that closes: "this design" and one "no solution". */
+  d->mission.delta_v_m_s = 9000.0;
+  r = sw_analysis_run (d, NULL, NULL);
+  g_assert_true (r->sizing.feasible);
+  infeasible = 0;
+  for (guint k = 0; k < r->stage_curve.n_points; k++)
+    infeasible += !r->stage_curve.points[k].feasible;
+  sw_trade_plots_show_stage_count (SW_PLOT (plot), r);
+  g_assert_cmpuint (labelled_markers (SW_PLOT (plot), &crosses), ==, infeasible > 0 ? 2 : 1);
+  g_assert_cmpuint (crosses, ==, infeasible);
+  sw_analysis_unref (r);
+  g_object_unref (plot);
 }
 
 int
@@ -890,6 +948,7 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/window/min-width-extremes", test_min_width_extremes);
   g_test_add_func ("/gui/window/close-unsaved", test_close_unsaved);
   g_test_add_func ("/gui/window/shape-and-estimate", test_shape_and_estimate);
+  g_test_add_func ("/gui/window/stage-count-labels", test_stage_count_labels);
 
   status = g_test_run ();
   sw_gui_test_env_finish (tmp_dir);

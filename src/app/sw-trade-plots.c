@@ -78,15 +78,26 @@ sw_trade_plots_show_stage_count (SwPlot *plot, SwAnalysis *r)
   sw_trade_plots_add_band (plot, r);
   sw_plot_add_series (plot, _("Optimal split"), x, y, curve->n_points, SW_PLOT_LINE_POINTS, 0);
   sw_trade_plots_add_baseline (plot, r, 0);
-  for (guint k = 0; k < curve->n_points; k++)
-    if (!curve->points[k].feasible)
-      sw_plot_add_marker (plot, x[k], y_top, _("no solution"), SW_MARKER_INFEASIBLE);
+  /* One label for the crosses, never one per cross: side by side, the
+   * labels of neighbouring counts were printed over each other. */
+  {
+    gboolean design_closes = sw_trade_plots_current_point (r, 0, &cx, &cy);
+    gboolean labelled = !design_closes;
 
-  if (sw_trade_plots_current_point (r, 0, &cx, &cy))
-    sw_plot_add_marker (plot, cx, cy, _("this design"), SW_MARKER_CURRENT);
-  else
-    sw_plot_add_marker (plot, r->sizing.n_stages, y_top, _("this design does not close"),
-                        SW_MARKER_INFEASIBLE);
+    for (guint k = 0; k < curve->n_points; k++)
+      if (!curve->points[k].feasible
+          && (design_closes || fabs (x[k] - (double) r->sizing.n_stages) > 0.5))
+        {
+          sw_plot_add_marker (plot, x[k], y_top, labelled ? NULL : _("no solution"),
+                              SW_MARKER_INFEASIBLE);
+          labelled = TRUE;
+        }
+    if (design_closes)
+      sw_plot_add_marker (plot, cx, cy, _("this design"), SW_MARKER_CURRENT);
+    else
+      sw_plot_add_marker (plot, r->sizing.n_stages, y_top, _("this design does not close"),
+                          SW_MARKER_INFEASIBLE);
+  }
 }
 
 void
