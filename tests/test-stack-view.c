@@ -816,6 +816,43 @@ test_to_scale_pixels (void)
   widget_render_settle ();
   g_assert_cmpfloat (sw_stack_view_get_area_scale (SW_STACK_VIEW (view)), >, 0.0);
   gtk_window_destroy (GTK_WINDOW (window));
+/* The T/W on a stage's label is the shown vehicle's: a closed loop that did
+ * not converge flew another sizing (its last try), whose figures must not
+ * be printed beside this one's masses (seen: "T/W 2.13" on an 85 t first
+ * stage of 720 kN). */
+static void
+test_tw_of_shown_vehicle (void)
+{
+  g_autofree char *path = g_build_filename (SOURCE_DESIGNS_DIR,
+                                            "three-stage-simulated.stagewright", NULL);
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
+  const double shares[] = { 0.8, 0.15, 0.05 };
+  GtkWidget *view = sw_stack_view_new ();
+  SwAnalysis *r;
+
+  g_object_ref_sink (view);
+  g_assert_nonnull (d);
+  d->split = SW_SPLIT_MANUAL;
+  for (guint i = 0; i < 3; i++)
+    {
+      d->stages[i].has_share = TRUE;
+      d->stages[i].delta_v_share = shares[i];
+    }
+  r = sw_analysis_run (d, NULL, NULL);
+  g_assert_true (r->sizing.feasible);
+  g_assert_nonnull (r->ascent);
+  g_assert_true (r->ascent->closed_loop);
+  g_assert_false (r->sized_by_ascent);
+  g_assert_true (r->has_stage_figures);
+  sw_stack_view_set_result (SW_STACK_VIEW (view), r);
+  for (guint i = 0; i < 3; i++)
+    g_assert_cmpfloat (sw_stack_view_get_stage_tw (SW_STACK_VIEW (view), i), ==,
+                       r->stage_figures[i].ignition_thrust_to_weight);
+  /* The first stage's from the shown masses: 720 kN against the liftoff
+   * mass, below 1 (test input, worked out: 720e3 / (87.8e3 * 9.80665)). */
+  g_assert_cmpfloat (sw_stack_view_get_stage_tw (SW_STACK_VIEW (view), 0), <, 1.0);
+  sw_analysis_unref (r);
+  g_object_unref (view);
 }
 
 int
@@ -824,6 +861,7 @@ main (int argc, char **argv)
   gtk_test_init (&argc, &argv, NULL);
 
   g_test_add_func ("/gui/stack-view/glue-units", test_glue_units);
+  g_test_add_func ("/gui/stack-view/tw-of-shown-vehicle", test_tw_of_shown_vehicle);
   g_test_add_func ("/gui/stack-view/drawing-kept", test_drawing_kept);
   g_test_add_func ("/gui/stack-view/to-scale-pixels", test_to_scale_pixels);
   g_test_add_func ("/gui/stack-view/areas-small-launcher", test_areas_small);

@@ -215,7 +215,10 @@ stage_tw (SwAnalysis *r, int stage)
 {
   if (r == NULL || stage < 0 || stage >= SW_MAX_STAGES)
     return NAN;
-  if (r->ascent != NULL && (guint) stage < r->ascent->n_stages && r->ascent->stages[stage].flown)
+  /* The flight's figures only when it flew the vehicle shown: a closed
+   * loop that did not converge flew another sizing (its last try). */
+  if (r->ascent != NULL && (!r->ascent->closed_loop || r->sized_by_ascent)
+      && (guint) stage < r->ascent->n_stages && r->ascent->stages[stage].flown)
     return r->ascent->stages[stage].ignition_thrust_to_weight;
   if (r->has_stage_figures && r->stage_figures[stage].fires)
     return r->stage_figures[stage].ignition_thrust_to_weight;
@@ -1818,6 +1821,13 @@ find_item (SwStackView *self, int stage)
     if (self->items[i].stage == stage && self->items[i].rect.size.width > 0.0)
       return &self->items[i];
   return NULL;
+}
+
+double
+sw_stack_view_get_stage_tw (SwStackView *self, guint stage)
+{
+  g_return_val_if_fail (SW_IS_STACK_VIEW (self), NAN);
+  return stage_tw (self->result, (int) stage);
 }
 
 gboolean

@@ -24,6 +24,9 @@ int        sw_stack_view_get_selected (SwStackView *self);
 /* Geometry of the last layout, for tests: the rectangle of stage @index
  * (firing order) in widget coordinates; FALSE when not drawn. */
 gboolean   sw_stack_view_get_block_rect (SwStackView *self, guint index, graphene_rect_t *rect);
+/* For tests: the thrust-to-weight at ignition a stage's label shows (NAN
+ * for none). */
+double     sw_stack_view_get_stage_tw (SwStackView *self, guint stage);
 
 /* Added by the implementation, for tests and for placing popovers: the
  * payload's box (the payload is drawn as a cone filling half of it, the
