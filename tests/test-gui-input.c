@@ -835,6 +835,66 @@ test_wheel_every_field (void)
   sw_test_window_close (w);
 }
 
+/* Every window shortcut pressed while a number field holds typed, not yet
+ * entered text: no shortcut puts that text into the design or changes a
+ * value nobody typed (a stage added, moved or removed by its shortcut keeps
+ * every other stage's values). */
+static gboolean
+isp_values_kept (const SwDesign *now, const SwDesign *before, double typed)
+{
+  for (guint i = 0; i < now->n_stages; i++)
+    {
+      if (now->stages[i].isp_vac_s == typed)
+        return FALSE;
+      /* A stage that was there keeps its value; a new one (added,
+       * duplicated) has its own. */
+      for (guint j = 0; j < before->n_stages; j++)
+        if (g_strcmp0 (now->stages[i].name, before->stages[j].name) == 0
+            && now->stages[i].isp_vac_s != before->stages[j].isp_vac_s)
+          return FALSE;
+    }
+  return TRUE;
+}
+
+static void
+test_every_shortcut_in_field (void)
+{
+  static const char *const keys[] = {
+    "ctrl+1", "ctrl+2", "ctrl+3", "alt+1", "alt+2", "alt+3", "alt+4", "ctrl+shift+n", "ctrl+d",
+    "ctrl+Delete", "alt+Up", "alt+Down", "ctrl+Prior", "ctrl+Next", "ctrl+shift+c", "ctrl+z",
+    "ctrl+shift+z", "ctrl+y",
+  };
+  SwWindow *w = window_with_demo ("small-sat-launcher.stagewright");
+  SwInspector *inspector = sw_window_get_inspector (w);
+  SwDocument *doc = sw_window_get_document (w);
+
+  for (guint k = 0; k < G_N_ELEMENTS (keys); k++)
+    {
+      g_autoptr (SwDesign) before = NULL;
+      SwNumberField *isp = field (w, SW_INSPECTOR_ISP_VAC);
+
+      g_assert_true (sw_window_show_page (w, "curves"));
+      sw_inspector_set_selected (inspector, 1);
+      drain ();
+      before = sw_design_copy (doc_design (w));
+      focus_field (w, GTK_WIDGET (isp));
+      retype ("401");
+      xdo ("key", "--clearmodifiers", keys[k], NULL);
+      if (!isp_values_kept (doc_design (w), before, 401.0))
+        {
+          for (guint i = 0; i < doc_design (w)->n_stages; i++)
+            g_printerr ("  stage %u %s isp %g\n", i, doc_design (w)->stages[i].name, doc_design (w)->stages[i].isp_vac_s);
+          g_error ("%s with \"401\" typed in the vacuum Isp field changed a stage's Isp", keys[k]);
+        }
+      /* Back to the demo as loaded, for the next key. */
+      xdo ("key", "Escape", NULL);
+      while (sw_document_can_undo (doc))
+        sw_document_undo (doc);
+      drain ();
+    }
+  sw_test_window_close (w);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -855,6 +915,7 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/input/wheel", test_wheel);
   g_test_add_func ("/gui/input/wheel-trade-page", test_wheel_trade_page);
   g_test_add_func ("/gui/input/wheel-every-field", test_wheel_every_field);
+  g_test_add_func ("/gui/input/every-shortcut-in-field", test_every_shortcut_in_field);
   g_test_add_func ("/gui/input/dependent-field", test_dependent_field);
   g_test_add_func ("/gui/input/undo-in-field", test_undo_in_field);
   g_test_add_func ("/gui/input/first-start", test_first_start);
