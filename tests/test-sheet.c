@@ -5,6 +5,7 @@
 #include "config.h"
 
 #include "sw-csv.h"
+#include "sw-limits.h"
 #include "sw-sheet.h"
 #include "sw-sheet-private.h"
 #include "sw-text-fit.h"
@@ -974,6 +975,31 @@ test_text_fit_words (void)
   cairo_surface_destroy (surface);
 }
 
+/* A vehicle of some 155,000 t: the stage-count axis reads "7×10⁵", never
+ * the C library's "7e+05" (seen on the sheet). */
+static void
+test_huge_ticks (void)
+{
+  g_autoptr (SwDesign) d = load_trade_study ();
+  g_autoptr (SwAnalysis) a = NULL;
+  g_autoptr (GArray) boxes = NULL;
+  gboolean power = FALSE;
+
+  d->payload_kg = sw_limit_get (SW_LIMIT_PAYLOAD)->max;
+  a = sw_analysis_run (d, NULL, NULL);
+  g_assert_true (a->ok && a->sizing.feasible);
+  g_assert_cmpfloat (a->sizing.liftoff_mass_kg, >, 1e8);
+  boxes = page_boxes (a);
+  for (guint i = 0; i < boxes->len; i++)
+    {
+      const SwSheetTextBox *b = &g_array_index (boxes, SwSheetTextBox, i);
+      if (strstr (b->text, "e+") != NULL || strstr (b->text, "e-0") != NULL)
+        g_error ("a number in C notation on the sheet: \"%s\"", b->text);
+      power = power || g_str_has_prefix (b->text, "10\342\201") || strstr (b->text, "\303\22710") != NULL;
+    }
+  g_assert_true (power);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -993,6 +1019,7 @@ main (int argc, char **argv)
   g_test_add_func ("/sheet/axis-units", test_axis_units);
   g_test_add_func ("/sheet/legend-markers", test_legend_markers);
   g_test_add_func ("/sheet/text-fit-words", test_text_fit_words);
+  g_test_add_func ("/sheet/huge-ticks", test_huge_ticks);
   status = g_test_run ();
   remove_tree (tmpdir);
   g_free (tmpdir);

@@ -51,20 +51,28 @@ draw_x_axis (cairo_t *cr, const Axes *a, guint highlight, const char *label)
   sw_sheet_text_at (cr, label, a->x, a->y + a->h + 11.0, &lab);
 }
 
-/* A tick in tonnes: "0.5", "7", "1,500", or "10⁷" from 100,000 up. */
+/* A tick in tonnes: "0.5", "7", "1,500", or from 100,000 up "10⁷" and
+ * "7×10⁵" (never the C library's "7e+05"). */
 static char *
 tick_label (double t)
 {
   static const char *const sup[] = { "\342\201\260", "\302\271", "\302\262", "\302\263",
                                      "\342\201\264", "\342\201\265", "\342\201\266",
                                      "\342\201\267", "\342\201\270", "\342\201\271" };
-  int k = (int) lround (log10 (t));
 
-  if (t >= 99999.0 && fabs (t - pow (10.0, k)) < 1e-6 * t && k < 100)
-    return k < 10 ? g_strconcat ("10", sup[k], NULL)
-                  : g_strconcat ("10", sup[k / 10], sup[k % 10], NULL);
-  if (t >= 99999.0)
-    return g_strdup_printf ("%.0e", t);
+  if (t >= 99999.0 && t < 1e100)
+    {
+      int k = (int) floor (log10 (t) + 1e-9);
+      double m = t / pow (10.0, k);
+      g_autofree char *power = k < 10 ? g_strconcat ("10", sup[k], NULL)
+                                      : g_strconcat ("10", sup[k / 10], sup[k % 10], NULL);
+      g_autofree char *mantissa = NULL;
+
+      if (fabs (m - 1.0) < 1e-6)
+        return g_steal_pointer (&power);
+      mantissa = sw_format_number (m, fabs (m - round (m)) < 1e-6 ? 0 : 1);
+      return g_strconcat (mantissa, "\303\227", power, NULL);  /* U+00D7 */
+    }
   return sw_format_number (t, fabs (t - round (t)) < 1e-9 ? 0 : (t < 1.0 ? 2 : 1));
 }
 
