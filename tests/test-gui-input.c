@@ -895,6 +895,60 @@ test_every_shortcut_in_field (void)
   sw_test_window_close (w);
 }
 
+/* The window's stage keys (Ctrl+Page Up/Down) with the focus in a spin
+ * button of the trade page or the ascent page's limits: GTK's own binding
+ * would jump the value to its maximum or minimum (as the vacuum Isp once
+ * went to 1000 s); neither the value nor the design may change. */
+static void
+test_stage_keys_in_spins (void)
+{
+  SwWindow *w = window_with_demo ("small-sat-launcher.stagewright");
+  const char *pages[] = { "trade", "ascent" };
+  guint tried = 0;
+
+  for (guint p = 0; p < G_N_ELEMENTS (pages); p++)
+    {
+      GtkWidget *page = p == 0 ? GTK_WIDGET (sw_window_get_trade_page (w))
+                               : GTK_WIDGET (sw_window_get_ascent_page (w));
+      g_autoptr (GPtrArray) fields = g_ptr_array_new ();
+
+      show_page (w, pages[p], page);
+      collect_numbers (page, fields);
+      for (guint k = 0; k < fields->len; k++)
+        {
+          GtkWidget *f = fields->pdata[k];
+          GtkWidget *popover = gtk_widget_get_ancestor (f, GTK_TYPE_POPOVER);
+          g_autoptr (SwDesign) before = NULL;
+          double value;
+
+          if (!GTK_IS_SPIN_BUTTON (f))
+            continue;
+          if (popover != NULL)
+            {
+              gtk_popover_popup (GTK_POPOVER (popover));
+              sw_test_wait_until (popover_mapped, f, 10000, "a popover to open");
+            }
+          if (!gtk_widget_is_drawable (f) || !gtk_widget_get_sensitive (f))
+            continue;
+          before = sw_design_copy (doc_design (w));
+          value = gtk_spin_button_get_value (GTK_SPIN_BUTTON (f));
+          g_assert_true (gtk_widget_grab_focus (f));
+          drain ();
+          xdo ("key", "--clearmodifiers", "ctrl+Prior", NULL);
+          g_assert_cmpfloat (gtk_spin_button_get_value (GTK_SPIN_BUTTON (f)), ==, value);
+          xdo ("key", "--clearmodifiers", "ctrl+Next", NULL);
+          g_assert_cmpfloat (gtk_spin_button_get_value (GTK_SPIN_BUTTON (f)), ==, value);
+          assert_unchanged (w, before);
+          tried++;
+          if (popover != NULL)
+            gtk_popover_popdown (GTK_POPOVER (popover));
+          drain ();
+        }
+    }
+  g_assert_cmpuint (tried, >=, 9);
+  sw_test_window_close (w);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -916,6 +970,7 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/input/wheel-trade-page", test_wheel_trade_page);
   g_test_add_func ("/gui/input/wheel-every-field", test_wheel_every_field);
   g_test_add_func ("/gui/input/every-shortcut-in-field", test_every_shortcut_in_field);
+  g_test_add_func ("/gui/input/stage-keys-in-spins", test_stage_keys_in_spins);
   g_test_add_func ("/gui/input/dependent-field", test_dependent_field);
   g_test_add_func ("/gui/input/undo-in-field", test_undo_in_field);
   g_test_add_func ("/gui/input/first-start", test_first_start);

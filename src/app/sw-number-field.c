@@ -714,6 +714,20 @@ guard_scroll_cb (GtkEventControllerScroll *controller, double dx, double dy, gpo
   return focus == NULL || (focus != widget && !gtk_widget_is_ancestor (focus, widget));
 }
 
+/* GTK's spin button jumps to its maximum on Ctrl+Page Up and to its
+ * minimum on Ctrl+Page Down: the window's keys for the previous and next
+ * stage.  Swallowed here, as the window leaves them to a focused field. */
+static gboolean
+guard_key_cb (GtkEventControllerKey *controller, guint keyval, guint keycode,
+              GdkModifierType state, gpointer data)
+{
+  GdkModifierType mods = state & gtk_accelerator_get_default_mod_mask ();
+
+  return (mods & GDK_CONTROL_MASK) != 0
+         && (keyval == GDK_KEY_Page_Up || keyval == GDK_KEY_Page_Down
+             || keyval == GDK_KEY_KP_Page_Up || keyval == GDK_KEY_KP_Page_Down);
+}
+
 void
 sw_number_field_guard_wheel (GtkWidget *widget)
 {
@@ -723,5 +737,9 @@ sw_number_field_guard_wheel (GtkWidget *widget)
   controller = gtk_event_controller_scroll_new (GTK_EVENT_CONTROLLER_SCROLL_BOTH_AXES);
   gtk_event_controller_set_propagation_phase (controller, GTK_PHASE_CAPTURE);
   g_signal_connect (controller, "scroll", G_CALLBACK (guard_scroll_cb), NULL);
+  gtk_widget_add_controller (widget, controller);
+  controller = gtk_event_controller_key_new ();
+  gtk_event_controller_set_propagation_phase (controller, GTK_PHASE_CAPTURE);
+  g_signal_connect (controller, "key-pressed", G_CALLBACK (guard_key_cb), NULL);
   gtk_widget_add_controller (widget, controller);
 }

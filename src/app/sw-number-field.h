@@ -73,7 +73,8 @@ gboolean    sw_number_parse (const char *text, const char *mark, const char *gro
 
 /* For a GtkSpinButton still in use elsewhere: the wheel changes its value
  * only while it has the keyboard focus (without focus the wheel is
- * swallowed, never applied). */
+ * swallowed, never applied), and Ctrl+Page Up/Down (the window's stage
+ * keys) never jump it to its maximum or minimum. */
 void sw_number_field_guard_wheel (GtkWidget *widget);
 
 G_END_DECLS
