@@ -687,6 +687,8 @@ test_accept_structural_coefficients (void)
   g_assert_false (sw_design_accept_structural_coefficients (d, eps, 2, NULL, &error));
   g_assert_error (error, SW_ERROR, SW_ERROR_RANGE);
   g_assert_true (sw_design_equal (d, before));
+}
+
 /* The economics object's stage indices follow their stages: engine type A
  * on stages {0, 1}, B on {3}, stages {2, 3} developed, in a 4-stage design.
  * Each expected mask is worked out by hand beside the call. */

@@ -647,6 +647,9 @@ test_to_scale_clicks (void)
   g_settings_set_boolean (settings, "stack-to-scale", FALSE);
   drain ();
   g_assert_false (sw_stack_view_get_to_scale (SW_STACK_VIEW (view)));
+  sw_test_window_close (w);
+}
+
 /* ---- the wheel over every field of every page --------------------------- */
 
 static void

@@ -816,6 +816,8 @@ test_to_scale_pixels (void)
   widget_render_settle ();
   g_assert_cmpfloat (sw_stack_view_get_area_scale (SW_STACK_VIEW (view)), >, 0.0);
   gtk_window_destroy (GTK_WINDOW (window));
+}
+
 /* The T/W on a stage's label is the shown vehicle's: a closed loop that did
  * not converge flew another sizing (its last try), whose figures must not
  * be printed beside this one's masses (seen: "T/W 2.13" on an 85 t first

@@ -866,6 +866,8 @@ test_shape_and_estimate (void)
   g_assert_true (sw_design_equal (sw_document_get_design (doc), before));
   g_assert_false (sw_document_can_undo (doc));
   sw_test_window_close (w);
+}
+
 /* The stage-count plot labels its crosses once: with a design that does
  * not close and several counts without a solution, the labels of
  * neighbouring crosses were printed over each other. */
