@@ -6,6 +6,9 @@
  * under Xvfb with the cairo renderer (suite 'gui'). */
 #include "config.h"
 
+#include "sw-design-edit.h"
+#include "sw-design-fields.h"
+#include "sw-limits.h"
 #include "sw-engine-types-editor.h"
 #include "sw-number-field.h"
 #include "sw-staging-page.h"
@@ -234,6 +237,32 @@ test_engine_types_editor (void)
   g_assert_null (sw_engine_types_editor_get_widget (ed, 0, SW_ENGINE_TYPE_NAME));
   g_assert_false (gtk_check_button_get_active (
     GTK_CHECK_BUTTON (sw_engine_types_editor_get_developed_stage (ed, 1))));
+
+  /* The most stages and engine types the limits allow do not widen the
+   * window (the stage boxes wrap). */
+  {
+    SwDesign *d = sw_document_dup_design (doc);
+    int min = 0;
+
+    while (d->n_stages < sw_limit_get (SW_LIMIT_STAGE_COUNT)->max)
+      g_assert_true (sw_design_add_stage (d));
+    for (guint i = 0; i < d->n_stages; i++)
+      {
+        g_assert_true (sw_design_add_engine_type (d, NULL));
+        g_assert_true (sw_design_set_engine_type_on_stage (d, i, i, TRUE, NULL));
+      }
+    sw_document_commit (doc, d, NULL);
+    while (g_main_context_iteration (NULL, FALSE))
+      ;
+    g_assert_nonnull (sw_engine_types_editor_get_stage_check (ed, 7, 7));
+    gtk_widget_measure (GTK_WIDGET (w), GTK_ORIENTATION_HORIZONTAL, -1, &min, NULL, NULL, NULL);
+    g_assert_cmpint (min, <, 1280);
+    /* Nor does the editor need a sideways scroll in the page's column
+     * (about 560 px of a 1,280 px window). */
+    gtk_widget_measure (GTK_WIDGET (ed), GTK_ORIENTATION_HORIZONTAL, -1, &min, NULL, NULL, NULL);
+    g_test_message ("8 stages, 8 engine types: the editor's minimum width %d px", min);
+    g_assert_cmpint (min, <=, 480);
+  }
   sw_test_window_close (w);
 }
 

@@ -307,6 +307,34 @@ header (const char *text)
   return label;
 }
 
+/* Check boxes of the stages in a box that wraps to as many lines as it
+ * needs. */
+static GtkWidget *
+stage_flow (void)
+{
+  GtkWidget *flow = gtk_flow_box_new ();
+
+  gtk_flow_box_set_selection_mode (GTK_FLOW_BOX (flow), GTK_SELECTION_NONE);
+  gtk_flow_box_set_max_children_per_line (GTK_FLOW_BOX (flow), SW_MAX_STAGES);
+  gtk_flow_box_set_homogeneous (GTK_FLOW_BOX (flow), TRUE);
+  gtk_flow_box_set_activate_on_single_click (GTK_FLOW_BOX (flow), FALSE);
+  gtk_widget_set_hexpand (flow, TRUE);
+  return flow;
+}
+
+/* @text in front of @child; the text wraps. */
+static GtkWidget *
+labelled (const char *text, GtkWidget *child)
+{
+  GtkWidget *box = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 8);
+  GtkWidget *label = header (text);
+
+  gtk_label_set_max_width_chars (GTK_LABEL (label), 18);
+  gtk_box_append (GTK_BOX (box), label);
+  gtk_box_append (GTK_BOX (box), child);
+  return box;
+}
+
 static void
 build_grid (SwEngineTypesEditor *self, const SwDesign *d)
 {
@@ -332,21 +360,24 @@ build_grid (SwEngineTypesEditor *self, const SwDesign *d)
     {
       gtk_grid_attach (GTK_GRID (grid), header (_("Engine type")), 0, row, 1, 1);
       gtk_grid_attach (GTK_GRID (grid), header (_("Dry mass of one engine")), 1, row, 1, 1);
-      gtk_grid_attach (GTK_GRID (grid), header (_("On stages (1 lifts off)")), 2, row, 1, 1);
       row++;
     }
-  for (guint i = 0; i < e->n_engine_types && i < MAX_TYPES; i++, row++)
+  /* Two rows a type: its name, mass, developed and remove, then the stages
+   * that use it, in a box that wraps: eight stages must not widen the
+   * window. */
+  for (guint i = 0; i < e->n_engine_types && i < MAX_TYPES; i++, row += 2)
     {
       GtkWidget *entry = gtk_entry_new ();
       GtkWidget *mass = sw_number_field_new ();
-      GtkWidget *stages = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 2);
+      GtkWidget *stages = stage_flow ();
       GtkWidget *dev = gtk_check_button_new_with_label (_("Developed"));
       GtkWidget *remove = gtk_button_new_from_icon_name ("list-remove-symbolic");
       GtkEventController *controller;
 
       g_object_set_data (G_OBJECT (entry), "sw-type", GUINT_TO_POINTER (i));
       gtk_editable_set_enable_undo (GTK_EDITABLE (entry), FALSE);
-      gtk_editable_set_width_chars (GTK_EDITABLE (entry), 12);
+      gtk_editable_set_width_chars (GTK_EDITABLE (entry), 10);
+      gtk_widget_set_hexpand (entry, TRUE);
       gtk_widget_set_tooltip_text (entry, _("The engine type's name: one engine design, "
                                             "developed once however many stages use it"));
       g_signal_connect (entry, "activate", G_CALLBACK (name_activate_cb), self);
@@ -367,21 +398,11 @@ build_grid (SwEngineTypesEditor *self, const SwDesign *d)
       gtk_grid_attach (GTK_GRID (grid), mass, 1, row, 1, 1);
       self->masses[i] = mass;
 
-      for (guint s = 0; s < d->n_stages; s++)
-        {
-          GtkWidget *check = stage_check (d, s);
-          g_object_set_data (G_OBJECT (check), "sw-type", GUINT_TO_POINTER (i));
-          g_signal_connect (check, "toggled", G_CALLBACK (on_stage_toggled_cb), self);
-          gtk_box_append (GTK_BOX (stages), check);
-          self->on_stage[i][s] = check;
-        }
-      gtk_grid_attach (GTK_GRID (grid), stages, 2, row, 1, 1);
-
       g_object_set_data (G_OBJECT (dev), "sw-type", GUINT_TO_POINTER (i));
       gtk_widget_set_tooltip_text (dev, _("Already developed: the cost model counts no "
                                           "development effort for it"));
       g_signal_connect (dev, "toggled", G_CALLBACK (type_developed_toggled_cb), self);
-      gtk_grid_attach (GTK_GRID (grid), dev, 3, row, 1, 1);
+      gtk_grid_attach (GTK_GRID (grid), dev, 2, row, 1, 1);
       self->developed[i] = dev;
 
       g_object_set_data (G_OBJECT (remove), "sw-type", GUINT_TO_POINTER (i));
@@ -389,23 +410,32 @@ build_grid (SwEngineTypesEditor *self, const SwDesign *d)
       gtk_accessible_update_property (GTK_ACCESSIBLE (remove), GTK_ACCESSIBLE_PROPERTY_LABEL,
                                       _("Remove this engine type"), -1);
       g_signal_connect (remove, "clicked", G_CALLBACK (remove_clicked_cb), self);
-      gtk_grid_attach (GTK_GRID (grid), remove, 4, row, 1, 1);
+      gtk_grid_attach (GTK_GRID (grid), remove, 3, row, 1, 1);
       self->removes[i] = remove;
+
+      for (guint st = 0; st < d->n_stages; st++)
+        {
+          GtkWidget *check = stage_check (d, st);
+          g_object_set_data (G_OBJECT (check), "sw-type", GUINT_TO_POINTER (i));
+          g_signal_connect (check, "toggled", G_CALLBACK (on_stage_toggled_cb), self);
+          gtk_flow_box_append (GTK_FLOW_BOX (stages), check);
+          self->on_stage[i][st] = check;
+        }
+      gtk_grid_attach (GTK_GRID (grid), labelled (_("On stages (1 lifts off)"), stages), 0,
+                       row + 1, 4, 1);
     }
 
-  {
-    GtkWidget *label = header (_("Stages already developed (no development effort)"));
-    gtk_grid_attach (GTK_GRID (grid), label, 0, row, 2, 1);
-  }
-  row_box = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 2);
-  for (guint s = 0; s < d->n_stages; s++)
+  row_box = stage_flow ();
+  for (guint st = 0; st < d->n_stages; st++)
     {
-      GtkWidget *check = stage_check (d, s);
+      GtkWidget *check = stage_check (d, st);
       g_signal_connect (check, "toggled", G_CALLBACK (stage_developed_toggled_cb), self);
-      gtk_box_append (GTK_BOX (row_box), check);
-      self->stage_developed[s] = check;
+      gtk_flow_box_append (GTK_FLOW_BOX (row_box), check);
+      self->stage_developed[st] = check;
     }
-  gtk_grid_attach (GTK_GRID (grid), row_box, 2, row, 3, 1);
+  gtk_grid_attach (GTK_GRID (grid),
+                   labelled (_("Stages already developed (no development effort)"), row_box), 0,
+                   row, 4, 1);
 
   self->grid = grid;
   gtk_box_insert_child_after (GTK_BOX (self->box), grid, gtk_widget_get_first_child (self->box));
