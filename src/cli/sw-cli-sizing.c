@@ -56,7 +56,7 @@ fast_options (SwAnalysisOptions *o)
 static void
 add_phases (JsonBuilder *b, const SwDesign *d, const SwSizing *s)
 {
-  SwPhase phases[SW_MAX_STAGES];
+  SwPhase phases[SW_MAX_PHASES];
   guint n_phases = sw_sizing_phases (d, s, phases);
 
   json_builder_set_member_name (b, "phases");

@@ -21,11 +21,36 @@ sw_sizing_phases (const SwDesign *design, const SwSizing *sizing, SwPhase *phase
 
   if (!sizing->feasible)
     return 0;
-  for (guint i = 0; i < sizing->n_stages && i < design->n_stages; i++)
+  if (sizing->boosters.present)
+    {
+      const SwBoosterResult *b = &sizing->boosters;
+      SwPhase *p = &phases[n++];
+
+      memset (p, 0, sizeof *p);
+      p->stage = 0;
+      p->boosters = TRUE;
+      p->delta_v_m_s = b->phase_delta_v_m_s;
+      p->exhaust_velocity_m_s = b->mixed_exhaust_velocity_m_s;
+      p->initial_mass_kg = b->phase_initial_mass_kg;
+      p->final_mass_kg = b->phase_final_mass_kg;
+      p->duration_s = b->phase_duration_s;
+      p = &phases[n++];
+      memset (p, 0, sizeof *p);
+      p->stage = 0;
+      p->delta_v_m_s = b->core_phase_delta_v_m_s;
+      p->exhaust_velocity_m_s = sizing->stages[0].exhaust_velocity_m_s;
+      p->initial_mass_kg = b->core_phase_initial_mass_kg;
+      p->final_mass_kg = sizing->stages[0].burnout_mass_kg;
+      p->duration_s = b->core_phase_duration_s;
+    }
+  for (guint i = sizing->boosters.present ? 1 : 0;
+       i < sizing->n_stages && i < design->n_stages; i++)
     {
       const SwStageResult *r = &sizing->stages[i];
       const SwStage *st = &design->stages[i];
       SwPhase *p = &phases[n++];
+
+      p->boosters = FALSE;
       guint engines = st->reliability.has_engine_count ? st->reliability.engine_count : 0;
       double thrust = sw_stage_thrust_vac_n (&st->propulsion, engines);
 

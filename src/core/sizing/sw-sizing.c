@@ -5,6 +5,7 @@
 
 #include "sw-sizing.h"
 
+#include "sw-booster-sizing.h"
 #include "sw-budget.h"
 
 #include <glib/gi18n-lib.h>
@@ -676,6 +677,14 @@ sw_size_design (const SwDesign *design, SwSizing *out, GError **error)
     }
   if (!sw_design_required_delta_v (design, &dv, error))
     return FALSE;
+  if (design->boosters.count > 0)
+    {
+      SwParallelVehicle v;
+      if (!sw_parallel_vehicle_from_design (&v, design, error))
+        return FALSE;
+      sw_size_parallel (&v, design->payload_kg, dv, design->split, out);
+      return TRUE;
+    }
   sw_stage_set_from_design (&set, design);
   for (guint i = 0; i < design->n_stages && i < SW_MAX_STAGES; i++)
     if (design->stages[i].propellant.has_propellant_kg)

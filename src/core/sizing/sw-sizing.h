@@ -27,6 +27,32 @@ struct _SwStageResult {
   gboolean fixed;               /* a fixed propellant load: not sized */
 };
 
+/* The strap-on boosters of a sizing (sw-booster-sizing.h); present FALSE
+ * without boosters.  Masses per booster unless named total. */
+typedef struct {
+  gboolean present;
+  guint    count;
+  gboolean fixed;                  /* a fixed load per booster (not sized) */
+  gboolean crossfeed;
+  double   exhaust_velocity_m_s;   /* the boosters' c = Isp_vac g0 */
+  double   propellant_mass_kg;     /* per booster */
+  double   structural_mass_kg;     /* per booster */
+  double   booster_mass_kg;        /* per booster: propellant + structure */
+  double   total_mass_kg;          /* all boosters */
+  double   thrust_vac_n;           /* per booster */
+  /* phase 0: boosters and core together */
+  double   mixed_exhaust_velocity_m_s;   /* sum F / sum mdot */
+  double   phase_delta_v_m_s;
+  double   phase_initial_mass_kg;  /* liftoff */
+  double   phase_final_mass_kg;    /* at booster burnout, before the boosters drop */
+  double   phase_duration_s;
+  double   core_propellant_in_phase_kg;  /* core propellant burnt in phase 0 (0 with crossfeed) */
+  /* the core's own phase, after the boosters drop */
+  double   core_phase_delta_v_m_s;
+  double   core_phase_initial_mass_kg;
+  double   core_phase_duration_s;
+} SwBoosterResult;
+
 struct _SwSizing {
   gboolean feasible;
   char     reason[SW_REASON_MAX];  /* "" when feasible */
@@ -43,6 +69,10 @@ struct _SwSizing {
   guint    n_fixed;                /* stages with a fixed propellant load */
   guint    n_stages;
   SwStageResult stages[SW_MAX_STAGES];
+  /* With boosters stage 0 is the core: its delta-v is that of phase 0 and
+   * of its own phase together, its initial mass the liftoff mass (boosters
+   * included), its mass ratio liftoff over core burnout. */
+  SwBoosterResult boosters;
 };
 
 /* The stage inputs of one sizing, in firing order. */
