@@ -362,6 +362,46 @@ test_too_much (void)
   g_assert_cmpuint (strlen (sz.reason), >, 0);
 }
 
+/* Payload capability of a vehicle with every load fixed, boosters
+ * included: against a bisection on the sizing's feasibility. */
+static void
+test_performance (void)
+{
+  g_autoptr (SwDesign) d = booster_design (2, FALSE);
+  SwPerformance perf;
+  double lo = 0.0, hi = 50000.0;
+
+  d->boosters.propellant.has_propellant_kg = TRUE;
+  d->boosters.propellant.propellant_kg = 40000.0;
+  d->stages[0].propellant.has_propellant_kg = TRUE;
+  d->stages[0].propellant.propellant_kg = 150000.0;
+  d->stages[1].propellant.has_propellant_kg = TRUE;
+  d->stages[1].propellant.propellant_kg = 30000.0;
+  d->stages[2].propellant.has_propellant_kg = TRUE;
+  d->stages[2].propellant.propellant_kg = 6000.0;
+  d->mission.delta_v_m_s = 9000.0;
+  g_assert_true (sw_design_performance (d, &perf, NULL));
+  g_assert_true (perf.reachable);
+  for (int i = 0; i < 100; i++)
+    {
+      SwSizing sz;
+      double mid = 0.5 * (lo + hi);
+      d->payload_kg = mid;
+      g_assert_true (sw_size_design (d, &sz, NULL));
+      if (sz.feasible)
+        lo = mid;
+      else
+        hi = mid;
+    }
+  g_test_message ("payload %.6f kg, bisection %.6f kg", perf.payload_kg, lo);
+  g_assert_cmpfloat (fabs (perf.payload_kg - lo), <, 1e-6 * lo);
+  g_assert_true (perf.sizing.feasible);
+  g_assert_true (perf.sizing.boosters.present);
+  /* Sized boosters: not a vehicle that exists. */
+  d->boosters.propellant.has_propellant_kg = FALSE;
+  g_assert_false (sw_design_performance (d, &perf, NULL));
+}
+
 int
 main (int argc, char **argv)
 {
@@ -374,5 +414,6 @@ main (int argc, char **argv)
   g_test_add_func ("/core/booster-sizing/zero-is-no-key", test_zero_is_no_key);
   g_test_add_func ("/core/booster-sizing/round-trip", test_round_trip_and_effect);
   g_test_add_func ("/core/booster-sizing/too-much", test_too_much);
+  g_test_add_func ("/core/booster-sizing/performance", test_performance);
   return g_test_run ();
 }

@@ -18,6 +18,23 @@
 #define UPPER_GRID 16
 
 gboolean
+sw_size_design (const SwDesign *design, SwSizing *out, GError **error)
+{
+  SwParallelVehicle v;
+  double dv;
+
+  g_return_val_if_fail (design != NULL && out != NULL, FALSE);
+
+  if (design->boosters.count == 0)
+    return sw_size_design_serial (design, out, error);
+  if (!sw_parallel_vehicle_from_design (&v, design, error)
+      || !sw_design_required_delta_v (design, &dv, error))
+    return FALSE;
+  sw_size_parallel (&v, design->payload_kg, dv, design->split, out);
+  return TRUE;
+}
+
+gboolean
 sw_parallel_vehicle_from_design (SwParallelVehicle *v, const SwDesign *design, GError **error)
 {
   const SwStage *core;
@@ -543,6 +560,57 @@ sw_parallel_liftoff_mass (const SwParallelVehicle *v, double payload_kg, double 
   if (delta_v_m_s != NULL)
     *delta_v_m_s = g.dv0 + g.dv1 + d_given;
   return g.m0;
+}
+
+typedef struct {
+  const SwParallelVehicle *v;
+  double delta_v;
+} PayloadRoot;
+
+static double
+payload_residual (double payload, void *data)
+{
+  const PayloadRoot *p = data;
+  double dv = NAN;
+
+  if (!isfinite (sw_parallel_liftoff_mass (p->v, payload, p->v->booster_fixed_kg,
+                                           p->v->fixed_kg[0], 0.0, &dv)))
+    return NAN;
+  return dv - p->delta_v;
+}
+
+gboolean
+sw_parallel_payload (const SwParallelVehicle *v, double delta_v_m_s, double *payload_kg,
+                     double *empty_delta_v_m_s)
+{
+  PayloadRoot p = { v, delta_v_m_s };
+  gsl_function fn = { payload_residual, &p };
+  double f0, hi, scale = 0.0;
+
+  g_return_val_if_fail (v != NULL && payload_kg != NULL, FALSE);
+
+  *payload_kg = NAN;
+  for (guint i = 0; i < v->set.n_stages; i++)
+    {
+      if (!(v->fixed_kg[i] > 0.0))
+        return FALSE;
+      scale += v->fixed_kg[i];
+    }
+  if (v->count > 0 && !(v->booster_fixed_kg > 0.0))
+    return FALSE;
+  scale += v->count * v->booster_fixed_kg;
+  f0 = payload_residual (0.0, &p);
+  if (empty_delta_v_m_s != NULL)
+    *empty_delta_v_m_s = f0 + delta_v_m_s;
+  if (!(f0 > 0.0))
+    return FALSE;
+  hi = 0.01 * scale;
+  for (int k = 0; k < 200 && payload_residual (hi, &p) > 0.0; k++)
+    hi = hi * 2.0 + scale;
+  if (!(payload_residual (hi, &p) <= 0.0))
+    return FALSE;
+  *payload_kg = brent_root (&fn, 0.0, hi);
+  return TRUE;
 }
 
 /* The upper stages' delta-v such that the whole vehicle gives @delta_v with

@@ -64,4 +64,12 @@ double   sw_parallel_liftoff_mass (const SwParallelVehicle *v, double payload_kg
                                    double booster_kg, double core_kg, double upper_delta_v_m_s,
                                    double *delta_v_m_s);
 
+/* Every load fixed (stages and boosters): the payload with which the vehicle
+ * gives exactly @delta_v_m_s (Brent's root, GSL).  FALSE when a load is
+ * sized, or when even with no payload the vehicle gives less (then
+ * *payload_kg NAN); *empty_delta_v_m_s (may be NULL) is what it gives with
+ * no payload. */
+gboolean sw_parallel_payload (const SwParallelVehicle *v, double delta_v_m_s, double *payload_kg,
+                              double *empty_delta_v_m_s);
+
 G_END_DECLS

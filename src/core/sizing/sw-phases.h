@@ -32,6 +32,15 @@ guint    sw_sizing_phases (const SwDesign *design, const SwSizing *sizing, SwPha
  * (as the ascent model has it); NAN when none is given. */
 double   sw_stage_effective_diameter (const SwDesign *design, guint stage);
 
+/* The phase's name for people: the stage's name, and for phase 0
+ * "BOOSTERS + CORE" (the boosters' and the core's names). */
+char    *sw_phase_dup_name (const SwDesign *design, const SwPhase *phase);
+
+/* The shape of one booster with the propellant of @sizing (its own
+ * diameter_m, NAN when none is given). */
+void     sw_sizing_booster_shape (const SwDesign *design, const SwSizing *sizing,
+                                  SwStageShape *out);
+
 /* The shape of stage @stage with the propellant of @sizing. */
 void     sw_sizing_stage_shape (const SwDesign *design, const SwSizing *sizing, guint stage,
                                 SwStageShape *out);

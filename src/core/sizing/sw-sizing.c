@@ -5,7 +5,6 @@
 
 #include "sw-sizing.h"
 
-#include "sw-booster-sizing.h"
 #include "sw-budget.h"
 
 #include <glib/gi18n-lib.h>
@@ -663,7 +662,7 @@ sw_sizing_get_shares (const SwSizing *sizing, double *shares)
 }
 
 gboolean
-sw_size_design (const SwDesign *design, SwSizing *out, GError **error)
+sw_size_design_serial (const SwDesign *design, SwSizing *out, GError **error)
 {
   SwStageSet set;
   double dv;
@@ -677,14 +676,6 @@ sw_size_design (const SwDesign *design, SwSizing *out, GError **error)
     }
   if (!sw_design_required_delta_v (design, &dv, error))
     return FALSE;
-  if (design->boosters.count > 0)
-    {
-      SwParallelVehicle v;
-      if (!sw_parallel_vehicle_from_design (&v, design, error))
-        return FALSE;
-      sw_size_parallel (&v, design->payload_kg, dv, design->split, out);
-      return TRUE;
-    }
   sw_stage_set_from_design (&set, design);
   for (guint i = 0; i < design->n_stages && i < SW_MAX_STAGES; i++)
     if (design->stages[i].propellant.has_propellant_kg)

@@ -118,8 +118,11 @@ void     sw_size_with_fixed (const SwStageSet *set, const double *fixed_propella
                              SwSizing *out);
 
 /* The design's own sizing (required delta-v from its mission; the stages'
- * propellant_kg as fixed loads). */
+ * propellant_kg as fixed loads; with boosters sw_size_parallel(), see
+ * sw-booster-sizing.h, where this is defined). */
 gboolean sw_size_design (const SwDesign *design, SwSizing *out, GError **error);
+/* The same for the serial stages alone (the boosters ignored). */
+gboolean sw_size_design_serial (const SwDesign *design, SwSizing *out, GError **error);
 
 /* The delta-v share of each stage in @sizing, into @shares (SW_MAX_STAGES
  * values): the split on screen, for sw_design_take_manual_shares ().  A
