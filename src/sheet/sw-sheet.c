@@ -640,6 +640,9 @@ sw_sheet_draw_page (cairo_t *cr, const SwAnalysis *a, double width, double heigh
     if (a->has_sensitivity)
       sw_sheet_draw_tornado (cr, a->design, &a->sensitivity, 6, p.x + col + 18.0, y + hy + 2.0,
                              col, bottom_h - hy - 2.0);
+    else if (a->sizing.feasible && a->montecarlo_error[0] != '\0')
+      /* Feasible but left out (boosters, a fixed load): the reason. */
+      note_in_box (cr, a->montecarlo_error, p.x + col + 18.0, y + hy, col, bottom_h - hy);
     else
       note_in_box (cr, a->sizing.n_fixed > 0
                          ? _("No sensitivities: they resize every stage, and this design has a "
