@@ -14,8 +14,8 @@
 
 /* Grid sizes that bracket the minima before Brent's method (the liftoff
  * mass is smooth and has one minimum in each variable). */
-#define BOOSTER_GRID 24
-#define UPPER_GRID 16
+#define BOOSTER_GRID 12
+#define UPPER_GRID 10
 
 gboolean
 sw_size_design (const SwDesign *design, SwSizing *out, GError **error)
@@ -259,7 +259,7 @@ brent_root (gsl_function *fn, double lo, double hi)
       gsl_root_fsolver_iterate (solver);
       lo = gsl_root_fsolver_x_lower (solver);
       hi = gsl_root_fsolver_x_upper (solver);
-      status = gsl_root_test_interval (lo, hi, 0.0, 1e-13);
+      status = gsl_root_test_interval (lo, hi, 0.0, 1e-12);
     }
   x = gsl_root_fsolver_root (solver);
   gsl_root_fsolver_free (solver);
@@ -267,9 +267,13 @@ brent_root (gsl_function *fn, double lo, double hi)
 }
 
 /* The core's load that gives @target with the boosters' @pb on top of
- * @m_up: P_core = q + y, y from a geometric scan and Brent's root. */
+ * @m_up: P_core = q + y, y from a geometric scan and Brent's root.  A
+ * previous answer in *@hint (> 0; updated) brackets the root in a few steps
+ * of 25 % (the residual rises with y); without one, or when that fails, the
+ * scan runs from 1e-3 m_up up in doublings. */
 static CoreStatus
-solve_core (const SwParallelVehicle *v, double m_up, double pb, double target, double *p1)
+solve_core_hinted (const SwParallelVehicle *v, double m_up, double pb, double target, double *p1,
+                   double *hint)
 {
   CoreProblem p = { v, m_up, pb, core_in_phase0 (v, pb), target };
   gsl_function fn = { core_residual, &p };
@@ -279,20 +283,47 @@ solve_core (const SwParallelVehicle *v, double m_up, double pb, double target, d
     return CORE_INVALID;
   if (f_lo >= 0.0)
     return CORE_TOO_MUCH;
+  if (hint != NULL && *hint > 0.0)
+    {
+      double y = *hint, f = core_residual (y, &p);
+      for (int j = 0; j < 12 && isfinite (f); j++)
+        {
+          double y2 = f < 0.0 ? y * 1.25 : y / 1.25, f2 = core_residual (y2, &p);
+          if (!isfinite (f2))
+            break;
+          if ((f < 0.0) != (f2 < 0.0))
+            {
+              double a = MIN (y, y2), b = MAX (y, y2);
+              *p1 = p.q + brent_root (&fn, a, b);
+              *hint = *p1 - p.q;
+              return CORE_OK;
+            }
+          y = y2;
+          f = f2;
+        }
+    }
   for (int j = 0; j < 80; j++)
     {
-      double y = m_up * 1e-6 * ldexp (1.0, j);
+      double y = m_up * 1e-3 * ldexp (1.0, j);
       double f = core_residual (y, &p);
       if (!isfinite (f))
         return CORE_INVALID;
       if (f >= 0.0)
         {
           *p1 = p.q + (f == 0.0 ? y : brent_root (&fn, lo, y));
+          if (hint != NULL)
+            *hint = *p1 - p.q;
           return CORE_OK;
         }
       lo = y;
     }
   return CORE_UNREACHABLE;
+}
+
+static CoreStatus
+solve_core (const SwParallelVehicle *v, double m_up, double pb, double target, double *p1)
+{
+  return solve_core_hinted (v, m_up, pb, target, p1, NULL);
 }
 
 /* ---- minimisers -------------------------------------------------------- */
@@ -345,19 +376,19 @@ minimise (Objective f, void *data, double lo, double hi, guint n, double *x_min)
       if (jb > 1 && jb < n)
         {
           double a = xb - step, b = xb + step;
-          if (wrapped_eval (a, &w) > fb && wrapped_eval (b, &w) > fb)
+          double fa = wrapped_eval (a, &w), fbb = wrapped_eval (b, &w);
+          if (fa > fb && fbb > fb)
             {
               gsl_function fn = { wrapped_eval, &w };
               gsl_min_fminimizer *m = gsl_min_fminimizer_alloc (gsl_min_fminimizer_brent);
               int status = GSL_CONTINUE;
 
-              gsl_min_fminimizer_set_with_values (m, &fn, xb, fb, a, wrapped_eval (a, &w), b,
-                                                  wrapped_eval (b, &w));
+              gsl_min_fminimizer_set_with_values (m, &fn, xb, fb, a, fa, b, fbb);
               for (int iter = 0; iter < 100 && status == GSL_CONTINUE; iter++)
                 {
                   gsl_min_fminimizer_iterate (m);
                   status = gsl_min_test_interval (gsl_min_fminimizer_x_lower (m),
-                                                  gsl_min_fminimizer_x_upper (m), 0.0, 1e-9);
+                                                  gsl_min_fminimizer_x_upper (m), 0.0, 1e-8);
                 }
               xb = gsl_min_fminimizer_x_minimum (m);
               best = gsl_min_fminimizer_f_minimum (m);
@@ -382,17 +413,18 @@ typedef struct {
   SwSplitMode split;
   double d_up;          /* the upper stages' delta-v (sized upper stages) */
   double m_up;
+  double hint;          /* the core's last load above q (a warm start), 0: none */
 } Ctx;
 
 /* Liftoff mass with the boosters' @pb, the core sized; NAN when none. */
 static double
 mass_for_booster (double pb, void *data)
 {
-  const Ctx *c = data;
+  Ctx *c = data;
   double p1;
   Group g;
 
-  if (solve_core (c->v, c->m_up, pb, c->delta_v - c->d_up, &p1) != CORE_OK
+  if (solve_core_hinted (c->v, c->m_up, pb, c->delta_v - c->d_up, &p1, &c->hint) != CORE_OK
       || !group_eval (c->v, c->m_up, pb, p1, &g))
     return NAN;
   return g.m0;
@@ -401,7 +433,7 @@ mass_for_booster (double pb, void *data)
 /* The largest booster load worth looking at: where the boosters alone give
  * the delta-v, or past where the liftoff mass starts to climb. */
 static double
-booster_search_top (const Ctx *c)
+booster_search_top (Ctx *c)
 {
   double prev = HUGE_VAL;
   double pb = c->m_up * 1e-3;
@@ -409,15 +441,15 @@ booster_search_top (const Ctx *c)
   for (int j = 0; j < 60; j++, pb *= 2.0)
     {
       double p1;
-      CoreStatus st = solve_core (c->v, c->m_up, pb, c->delta_v - c->d_up, &p1);
+      Group g;
+      CoreStatus st = solve_core_hinted (c->v, c->m_up, pb, c->delta_v - c->d_up, &p1, &c->hint);
       if (st == CORE_TOO_MUCH || st == CORE_INVALID)
         return pb;
-      if (st == CORE_OK)
+      if (st == CORE_OK && group_eval (c->v, c->m_up, pb, p1, &g))
         {
-          double m = mass_for_booster (pb, (void *) c);
-          if (m > prev)
+          if (g.m0 > prev)
             return pb;
-          prev = m;
+          prev = g.m0;
         }
     }
   return pb;
@@ -426,10 +458,10 @@ booster_search_top (const Ctx *c)
 /* The best liftoff mass for the upper stages' delta-v @d_up; *pb_out the
  * booster load that gives it. */
 static double
-best_for_upper (const Ctx *base, double d_up, double *pb_out)
+best_for_upper (Ctx *base, double d_up, double *pb_out)
 {
   Ctx c = *base;
-  double d_up_given;
+  double d_up_given, m;
 
   c.d_up = d_up;
   c.m_up = upper_mass (c.v, c.payload, d_up, c.split, NULL, &d_up_given);
@@ -446,7 +478,9 @@ best_for_upper (const Ctx *base, double d_up, double *pb_out)
       *pb_out = c.v->booster_fixed_kg;
       return mass_for_booster (c.v->booster_fixed_kg, &c);
     }
-  return minimise (mass_for_booster, &c, 0.0, booster_search_top (&c), BOOSTER_GRID, pb_out);
+  m = minimise (mass_for_booster, &c, 0.0, booster_search_top (&c), BOOSTER_GRID, pb_out);
+  base->hint = c.hint;   /* the next upper-stage delta-v starts from here */
+  return m;
 }
 
 static double
@@ -637,7 +671,7 @@ void
 sw_size_parallel (const SwParallelVehicle *v, double payload_kg, double delta_v_m_s,
                   SwSplitMode split, SwSizing *out)
 {
-  Ctx c = { v, payload_kg, delta_v_m_s, split, 0.0, 0.0 };
+  Ctx c = { v, payload_kg, delta_v_m_s, split, 0.0, 0.0, 0.0 };
   UpperKind kind;
   gboolean any_fixed = FALSE;
   double d_up = 0.0, pb = 0.0, p1 = 0.0, m;
