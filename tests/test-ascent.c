@@ -147,6 +147,35 @@ test_boosters_tsiolkovsky (void)
   check_boosters_tsiolkovsky (TRUE);
 }
 
+/* The closed loop with strap-on boosters (the demo): the loop resizes the
+ * core and upper stage around the fixed boosters until the flown losses
+ * equal the sized ones; the sizing it hands back keeps the boosters. */
+static void
+test_boosters_closed_loop (void)
+{
+  g_autofree char *path = g_build_filename (SOURCE_DESIGNS_DIR, "four-booster-cargo.stagewright",
+                                            NULL);
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
+  g_autoptr (SwAscentResult) r = NULL;
+  g_autoptr (GError) error = NULL;
+  SwAscentOptions o;
+
+  g_assert_nonnull (d);
+  g_assert_cmpuint (d->boosters.count, ==, 4);
+  sw_ascent_options_init (&o);
+  o.record = FALSE;
+  r = sw_ascent_close_loop (d, &o, NULL, &error);
+  g_assert_no_error (error);
+  g_assert_true (r->loop_converged);
+  g_assert_cmpint (r->status, ==, SW_ASCENT_REACHED);
+  g_assert_true (r->sizing.boosters.present);
+  g_assert_true (r->boosters_dropped);
+  g_test_message ("losses sized %.1f m/s, liftoff %.0f kg, boosters off at T+%.1f s",
+                  r->loop_sized_losses_m_s, r->sizing.liftoff_mass_kg, r->boosters.time_s);
+  /* The drop comes at the boosters' burn time. */
+  g_assert_cmpfloat (fabs (r->boosters.time_s - r->sizing.boosters.phase_duration_s), <, 1e-6);
+}
+
 static void
 test_vertical_constant_gravity (void)
 {
@@ -993,6 +1022,7 @@ main (int argc, char **argv)
   g_test_init (&argc, &argv, NULL);
   g_test_add_func ("/core/ascent/tsiolkovsky", test_tsiolkovsky);
   g_test_add_func ("/core/ascent/boosters-tsiolkovsky", test_boosters_tsiolkovsky);
+  g_test_add_func ("/core/ascent/boosters-closed-loop", test_boosters_closed_loop);
   g_test_add_func ("/core/ascent/vertical-constant-gravity", test_vertical_constant_gravity);
   g_test_add_func ("/core/ascent/circular-orbit", test_circular_orbit);
   g_test_add_func ("/core/ascent/terminal-speed", test_terminal_speed);
