@@ -238,6 +238,15 @@ check_size_json (const char *path)
       assert_same (number_or_nan (b, "propellant_mass_kg"), s.boosters.propellant_mass_kg);
       assert_same (number_or_nan (b, "structural_mass_kg"), s.boosters.structural_mass_kg);
       assert_same (number_or_nan (b, "total_mass_kg"), s.boosters.total_mass_kg);
+      /* A composite solid: one volume, the load over the grain's 1790 kg/m^3
+       * (from memory, the catalogue's), and 3 % ullage by default. */
+      if (g_strcmp0 (json_object_get_string_member (b, "propellant"), "solid-composite") == 0)
+        {
+          double vol = number_or_nan (b, "propellant_volume_m3");
+          g_assert_cmpfloat (fabs (vol - s.boosters.propellant_mass_kg / 1790.0), <, 1e-9 * vol);
+          g_assert_cmpfloat (fabs (number_or_nan (b, "tank_volume_m3") - vol * 1.03), <,
+                             1e-9 * vol);
+        }
       g_assert_cmpuint (json_array_get_length (phases), ==, d->n_stages + 1);
       g_assert_true (json_object_get_boolean_member (p0, "boosters"));
       assert_same (number_or_nan (p0, "delta_v_m_s"), s.boosters.phase_delta_v_m_s);

@@ -177,6 +177,7 @@ add_boosters (JsonBuilder *b, const SwDesign *d, const SwSizing *s)
   json_builder_set_member_name (b, "crossfeed");
   json_builder_add_boolean_value (b, r->crossfeed);
   sw_cli_add_number (b, "isp_vac_s", d->boosters.isp_vac_s);
+  sw_cli_add_number (b, "isp_sl_s", d->boosters.has_isp_sl ? d->boosters.isp_sl_s : NAN);
   sw_cli_add_number (b, "structural_coefficient", d->boosters.structural_coefficient);
   sw_cli_add_number (b, "thrust_vac_kn", r->thrust_vac_n / 1000.0);
   sw_cli_add_number (b, "propellant_mass_kg", r->propellant_mass_kg);
@@ -186,15 +187,31 @@ add_boosters (JsonBuilder *b, const SwDesign *d, const SwSizing *s)
   sw_cli_add_number (b, "burn_time_s", r->phase_duration_s);
   sw_cli_add_number (b, "mixed_exhaust_velocity_m_s", r->mixed_exhaust_velocity_m_s);
   sw_cli_add_number (b, "core_propellant_in_phase_0_kg", r->core_propellant_in_phase_kg);
+  sw_cli_add_number (b, "diameter_m", d->boosters.has_diameter ? d->boosters.diameter_m : NAN);
+  json_builder_set_member_name (b, "propellant");
+  {
+    const SwStagePropellant *p = &d->boosters.propellant;
+    const SwPropellantInfo *info = sw_propellant_info (p->kind);
+    if (p->kind == SW_PROPELLANT_CUSTOM)
+      json_builder_add_string_value (b, p->custom_name);
+    else if (info != NULL)
+      json_builder_add_string_value (b, info->key);
+    else
+      json_builder_add_null_value (b);
+  }
   if (d->boosters.propellant.kind != SW_PROPELLANT_NONE)
     {
       SwStageShape shape;
+      double ox, fu, mr;
+      gboolean solid;
+
+      sw_propellant_effective (&d->boosters.propellant, &ox, &fu, &mr, &solid);
+      sw_cli_add_number (b, "mixture_ratio", solid ? NAN : mr);
+      sw_cli_add_number (b, "ullage_fraction", sw_propellant_ullage (&d->boosters.propellant));
       sw_sizing_booster_shape (d, s, &shape);
       sw_cli_add_number (b, "propellant_volume_m3", shape.propellant_volume_m3);
       sw_cli_add_number (b, "tank_volume_m3", shape.tank_volume_m3);
       sw_cli_add_number (b, "length_m", shape.has_length ? shape.length_m : NAN);
-      sw_cli_add_number (b, "diameter_m",
-                         d->boosters.has_diameter ? d->boosters.diameter_m : NAN);
     }
   json_builder_end_object (b);
 }
