@@ -67,7 +67,8 @@ sw_csv_stage_table (const SwAnalysis *b)
       g_string_append (s, r->unused ? "true," : "false,");
       csv_number (s, b->reliability.given ? b->reliability.stage[i] : NAN, TRUE);
     }
-  /* The boosters, all of them together (phase 0's delta-v is in stage 1's). */
+  /* The boosters, all of them together; no delta-v of their own (phase 0's
+   * is in stage 1's, so the column still adds up to the total). */
   if (sz->boosters.present)
     {
       const SwBoosterResult *bo = &sz->boosters;
@@ -75,8 +76,7 @@ sw_csv_stage_table (const SwAnalysis *b)
       csv_text (s, b->design->boosters.name, FALSE);
       csv_number (s, b->design->boosters.isp_vac_s, FALSE);
       csv_number (s, b->design->boosters.structural_coefficient, FALSE);
-      csv_number (s, bo->phase_delta_v_m_s, FALSE);
-      g_string_append (s, ",,");
+      g_string_append (s, ",,,");
       csv_number (s, bo->count * bo->propellant_mass_kg, FALSE);
       csv_number (s, bo->count * bo->structural_mass_kg, FALSE);
       csv_number (s, bo->phase_initial_mass_kg, FALSE);
