@@ -92,6 +92,90 @@ test_tsiolkovsky (void)
                                   + 20.0, 1e-6);
 }
 
+static const char *boosters_dv =
+  "{ \"format\": \"stagewright-design\", \"version\": 2, \"name\": \"dv\", \"payload_kg\": 800,"
+  "  \"mission\": { \"delta_v_m_s\": 8500 }, \"split\": \"optimal\", \"stages\": ["
+  "  { \"isp_vac_s\": 300, \"isp_sl_s\": 270, \"structural_coefficient\": 0.08,"
+  "    \"thrust_vac_kn\": 300, \"diameter_m\": 2 },"
+  "  { \"isp_vac_s\": 330, \"structural_coefficient\": 0.10, \"thrust_vac_kn\": 90,"
+  "    \"coast_before_ignition_s\": 5 } ],"
+  "  \"boosters\": { \"count\": 3, \"isp_vac_s\": 270, \"isp_sl_s\": 240,"
+  "    \"structural_coefficient\": 0.11, \"thrust_vac_kn\": 150, \"propellant_kg\": 6000,"
+  "    \"diameter_m\": 1, \"crossfeed\": %s } }";
+
+/* With strap-on boosters: without gravity and atmosphere, thrust along the
+ * velocity, the speed gained is the sizing's delta-v (phase 0 with the
+ * mass-flow-weighted exhaust velocity, the core alone, the upper stage:
+ * reference notes, "Parallel staging"), the boosters drop at their burn
+ * time with their structure, and what is left is the last burnout mass. */
+static void
+check_boosters_tsiolkovsky (gboolean crossfeed)
+{
+  g_autofree char *text = g_strdup_printf (boosters_dv, crossfeed ? "true" : "false");
+  g_autoptr (SwDesign) d = load (text);
+  g_autoptr (SwAscentResult) r = NULL;
+  g_autoptr (GError) error = NULL;
+  SwAscentOptions o;
+  SwSizing s;
+  double v, tb, mdot_total;
+
+  options (&o, SW_GRAVITY_NONE, FALSE, FALSE, SW_STEERING_PROGRADE);
+  g_assert_true (sw_size_design (d, &s, &error));
+  g_assert_true (s.feasible && s.boosters.present);
+  r = sw_ascent_solve (d, &o, NULL, &error);
+  g_assert_no_error (error);
+  v = hypot (r->final_radial_velocity_m_s, r->final_horizontal_velocity_m_s);
+  g_assert_cmpfloat (fabs (v - 8500.0) / 8500.0, <, 1e-6);
+  g_assert_cmpfloat (fabs (r->final_mass_kg - s.stages[1].burnout_mass_kg), <, 1e-5);
+  g_assert_true (r->boosters_dropped);
+  /* Burn time: t_b = P_b c_b / F_b, or with crossfeed k P_b / (k mdot_b + mdot_core). */
+  mdot_total = 3 * 150e3 / (270 * G0) + 300e3 / (300 * G0);
+  tb = crossfeed ? 3 * 6000.0 / mdot_total : 6000.0 * 270 * G0 / 150e3;
+  g_assert_cmpfloat_with_epsilon (r->boosters.time_s, tb, 1e-6);
+  g_assert_cmpfloat_with_epsilon (s.boosters.phase_duration_s, tb, 1e-9);
+  /* At the drop the speed is phase 0's delta-v. */
+  g_assert_cmpfloat (fabs (r->boosters.speed_m_s - s.boosters.phase_delta_v_m_s), <,
+                     1e-5 * s.boosters.phase_delta_v_m_s);
+  /* The drop is marked at burnout, the boosters still on: phase 0's final mass. */
+  g_assert_cmpfloat (fabs (r->boosters.mass_kg - s.boosters.phase_final_mass_kg), <, 1e-5);
+}
+
+static void
+test_boosters_tsiolkovsky (void)
+{
+  check_boosters_tsiolkovsky (FALSE);
+  check_boosters_tsiolkovsky (TRUE);
+}
+
+/* The closed loop with strap-on boosters (the demo): the loop resizes the
+ * core and upper stage around the fixed boosters until the flown losses
+ * equal the sized ones; the sizing it hands back keeps the boosters. */
+static void
+test_boosters_closed_loop (void)
+{
+  g_autofree char *path = g_build_filename (SOURCE_DESIGNS_DIR, "four-booster-cargo.stagewright",
+                                            NULL);
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
+  g_autoptr (SwAscentResult) r = NULL;
+  g_autoptr (GError) error = NULL;
+  SwAscentOptions o;
+
+  g_assert_nonnull (d);
+  g_assert_cmpuint (d->boosters.count, ==, 4);
+  sw_ascent_options_init (&o);
+  o.record = FALSE;
+  r = sw_ascent_close_loop (d, &o, NULL, &error);
+  g_assert_no_error (error);
+  g_assert_true (r->loop_converged);
+  g_assert_cmpint (r->status, ==, SW_ASCENT_REACHED);
+  g_assert_true (r->sizing.boosters.present);
+  g_assert_true (r->boosters_dropped);
+  g_test_message ("losses sized %.1f m/s, liftoff %.0f kg, boosters off at T+%.1f s",
+                  r->loop_sized_losses_m_s, r->sizing.liftoff_mass_kg, r->boosters.time_s);
+  /* The drop comes at the boosters' burn time. */
+  g_assert_cmpfloat (fabs (r->boosters.time_s - r->sizing.boosters.phase_duration_s), <, 1e-6);
+}
+
 static void
 test_vertical_constant_gravity (void)
 {
@@ -937,6 +1021,8 @@ main (int argc, char **argv)
 {
   g_test_init (&argc, &argv, NULL);
   g_test_add_func ("/core/ascent/tsiolkovsky", test_tsiolkovsky);
+  g_test_add_func ("/core/ascent/boosters-tsiolkovsky", test_boosters_tsiolkovsky);
+  g_test_add_func ("/core/ascent/boosters-closed-loop", test_boosters_closed_loop);
   g_test_add_func ("/core/ascent/vertical-constant-gravity", test_vertical_constant_gravity);
   g_test_add_func ("/core/ascent/circular-orbit", test_circular_orbit);
   g_test_add_func ("/core/ascent/terminal-speed", test_terminal_speed);

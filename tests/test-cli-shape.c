@@ -131,7 +131,7 @@ test_shape_and_phases (void)
   g_autoptr (JsonNode) root = NULL;
   g_autofree char *out = NULL;
   SwSizing sizing;
-  SwPhase phases[SW_MAX_STAGES];
+  SwPhase phases[SW_MAX_PHASES];
   JsonArray *stages, *jphases;
   guint n_phases;
 

@@ -73,6 +73,7 @@ demo (const char *basename)
 static const char *const demos[] = {
   "small-sat-launcher.stagewright", "medium-cargo.stagewright", "all-solid-concept.stagewright",
   "sallowmere-kestrune-upper-stage.stagewright", "sallowmere-as-built.stagewright",
+  "four-booster-cargo.stagewright",
 };
 
 static JsonNode *
@@ -224,6 +225,33 @@ check_size_json (const char *path)
     assert_same (json_object_get_double_member (json_array_get_object_element (stages, 0),
                                                 "initial_mass_kg"),
                  s.liftoff_mass_kg);
+  /* Boosters: the object with the masses per booster, and phase 0 first
+   * in the phases; no key without boosters. */
+  g_assert_cmpint (json_object_has_member (obj, "boosters"), ==, s.boosters.present);
+  if (s.boosters.present)
+    {
+      JsonObject *b = json_object_get_object_member (obj, "boosters");
+      JsonArray *phases = json_object_get_array_member (obj, "phases");
+      JsonObject *p0 = json_array_get_object_element (phases, 0);
+
+      g_assert_cmpint (json_object_get_int_member (b, "count"), ==, s.boosters.count);
+      assert_same (number_or_nan (b, "propellant_mass_kg"), s.boosters.propellant_mass_kg);
+      assert_same (number_or_nan (b, "structural_mass_kg"), s.boosters.structural_mass_kg);
+      assert_same (number_or_nan (b, "total_mass_kg"), s.boosters.total_mass_kg);
+      /* A composite solid: one volume, the load over the grain's 1790 kg/m^3
+       * (from memory, the catalogue's), and 3 % ullage by default. */
+      if (g_strcmp0 (json_object_get_string_member (b, "propellant"), "solid-composite") == 0)
+        {
+          double vol = number_or_nan (b, "propellant_volume_m3");
+          g_assert_cmpfloat (fabs (vol - s.boosters.propellant_mass_kg / 1790.0), <, 1e-9 * vol);
+          g_assert_cmpfloat (fabs (number_or_nan (b, "tank_volume_m3") - vol * 1.03), <,
+                             1e-9 * vol);
+        }
+      g_assert_cmpuint (json_array_get_length (phases), ==, d->n_stages + 1);
+      g_assert_true (json_object_get_boolean_member (p0, "boosters"));
+      assert_same (number_or_nan (p0, "delta_v_m_s"), s.boosters.phase_delta_v_m_s);
+      assert_same (number_or_nan (p0, "initial_mass_kg"), s.liftoff_mass_kg);
+    }
   run_clear (&r);
 }
 

@@ -100,6 +100,18 @@ test_every_field_sets (void)
       if (f == SW_FIELD_MIXTURE_RATIO || f == SW_FIELD_OXIDIZER_DENSITY
           || f == SW_FIELD_FUEL_DENSITY)
         g_assert_true (sw_design_set_propellant (d, 1, SW_PROPELLANT_CUSTOM, NULL));
+      /* The boosters' keys need boosters, and boosters a core thrust. */
+      if (f >= SW_FIELD_BOOSTER_COUNT && f <= SW_FIELD_BOOSTER_FUEL_DENSITY)
+        {
+          g_assert_true (sw_design_field_set (d, SW_FIELD_THRUST_VAC, 0, 2000.0, NULL));
+          if (f != SW_FIELD_BOOSTER_COUNT)
+            g_assert_true (sw_design_field_set (d, SW_FIELD_BOOSTER_COUNT, 0, 2.0, NULL));
+        }
+      if (f == SW_FIELD_BOOSTER_ISP_SL)
+        value = 200.0;
+      if (f == SW_FIELD_BOOSTER_MIXTURE_RATIO || f == SW_FIELD_BOOSTER_OXIDIZER_DENSITY
+          || f == SW_FIELD_BOOSTER_FUEL_DENSITY)
+        g_assert_true (sw_design_set_booster_propellant (d, SW_PROPELLANT_CUSTOM, NULL));
       if (!sw_design_field_set (d, f, stage, value, &error))
         g_error ("%s = %g: %s", path, value, error->message);
       g_assert_true (sw_design_field_get (d, f, stage, &back));
@@ -560,6 +572,74 @@ test_engine_types (void)
   assert_round_trip (d);
 }
 
+/* The boosters' edits: none without boosters, boosters need a core thrust,
+ * the count from 0 gives starting values, count 0 saves no key, the
+ * texts, the crossfeed and the propellant are named edits too. */
+static void
+test_boosters (void)
+{
+  g_autoptr (SwDesign) d = sw_design_new_default ();
+  g_autoptr (SwDesign) plain = sw_design_copy (d);
+  g_autoptr (GError) error = NULL;
+  g_autofree char *data = NULL;
+  double v;
+
+  g_assert_false (sw_design_field_set (d, SW_FIELD_BOOSTER_ISP_VAC, 0, 280.0, &error));
+  g_assert_nonnull (strstr (error->message, "boosters.isp_vac_s: the design has no boosters"));
+  g_clear_error (&error);
+  g_assert_false (sw_design_set_booster_crossfeed (d, TRUE, &error));
+  g_assert_nonnull (strstr (error->message, "boosters.crossfeed"));
+  g_clear_error (&error);
+  g_assert_true (sw_design_equal (d, plain));
+
+  /* No core thrust: refused, naming the key to give. */
+  g_assert_false (sw_design_field_set (d, SW_FIELD_BOOSTER_COUNT, 0, 2.0, &error));
+  g_assert_nonnull (strstr (error->message, "stages[0].thrust_vac_kn"));
+  g_clear_error (&error);
+  g_assert_true (sw_design_equal (d, plain));
+
+  g_assert_true (sw_design_field_set (d, SW_FIELD_THRUST_VAC, 0, 2500.0, NULL));
+  g_assert_true (sw_design_field_set (d, SW_FIELD_BOOSTER_COUNT, 0, 4.0, &error));
+  g_assert_no_error (error);
+  g_assert_cmpuint (d->boosters.count, ==, 4);
+  g_assert_true (sw_design_field_get (d, SW_FIELD_BOOSTER_ISP_VAC, 0, &v));
+  g_assert_cmpfloat (v, ==, 270.0);
+  g_assert_true (sw_design_field_set (d, SW_FIELD_BOOSTER_PROPELLANT_LOAD, 0, 30000.0, NULL));
+  g_assert_true (sw_design_set_booster_name (d, "Side pods", NULL));
+  g_assert_true (sw_design_set_booster_crossfeed (d, TRUE, NULL));
+  g_assert_true (sw_design_set_booster_propellant (d, SW_PROPELLANT_SOLID_COMPOSITE, NULL));
+  /* A solid has no mixture ratio. */
+  g_assert_false (sw_design_field_set (d, SW_FIELD_BOOSTER_MIXTURE_RATIO, 0, 2.0, &error));
+  g_assert_nonnull (strstr (error->message, "boosters.mixture_ratio"));
+  g_clear_error (&error);
+  /* Sea level above vacuum is a conflict, not a silent fix. */
+  g_assert_false (sw_design_field_set (d, SW_FIELD_BOOSTER_ISP_SL, 0, 300.0, &error));
+  g_assert_nonnull (strstr (error->message, "boosters.isp_sl_s"));
+  g_clear_error (&error);
+  g_assert_cmpfloat (d->boosters.isp_sl_s, ==, 240.0);
+  /* The core thrust cannot go while boosters need it. */
+  g_assert_false (sw_design_field_unset (d, SW_FIELD_THRUST_VAC, 0, &error));
+  g_assert_nonnull (strstr (error->message, "stages[0].thrust_vac_kn"));
+  g_clear_error (&error);
+
+  data = sw_design_to_data (d, NULL);
+  g_assert_nonnull (strstr (data, "\"version\" : 2"));
+  g_assert_nonnull (strstr (data, "\"crossfeed\" : true"));
+  g_assert_nonnull (strstr (data, "\"Side pods\""));
+  g_assert_nonnull (strstr (data, "\"solid-composite\""));
+  assert_round_trip (d);
+
+  /* Count 0: the same design as without boosters, saved without the key
+   * and as version 1 again. */
+  g_assert_true (sw_design_field_set (d, SW_FIELD_BOOSTER_COUNT, 0, 0.0, NULL));
+  g_clear_pointer (&data, g_free);
+  data = sw_design_to_data (d, NULL);
+  g_assert_null (strstr (data, "boosters"));
+  g_assert_nonnull (strstr (data, "\"version\" : 1"));
+  g_assert_true (sw_design_field_unset (d, SW_FIELD_THRUST_VAC, 0, NULL));
+  g_assert_true (sw_design_equal (d, plain));
+}
+
 int
 main (int argc, char **argv)
 {
@@ -572,6 +652,7 @@ main (int argc, char **argv)
   g_test_add_func ("/core/design-fields/replacing-forms", test_replacing_forms);
   g_test_add_func ("/core/design-fields/texts-and-loss-model", test_texts_and_loss_model);
   g_test_add_func ("/core/design-fields/drag-text", test_drag_text);
+  g_test_add_func ("/core/design-fields/boosters", test_boosters);
   g_test_add_func ("/core/design-fields/spread", test_spread);
   g_test_add_func ("/core/design-fields/thrust-for-tw", test_thrust_for_tw);
   g_test_add_func ("/core/design-fields/shortest-decimals", test_shortest_decimals);

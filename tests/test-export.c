@@ -184,6 +184,34 @@ csv_liftoff (const char *text)
   g_assert_not_reached ();
 }
 
+/* The propellant and structure columns of the stage table (the boosters'
+ * row included) add up to the total row. */
+static void
+csv_columns_add_up (const char *text)
+{
+  g_auto (GStrv) lines = g_strsplit (text, "\n", -1);
+  double sum[2] = { 0.0, 0.0 }, total[2] = { NAN, NAN };
+
+  for (guint i = 0; lines[i] != NULL; i++)
+    {
+      g_auto (GStrv) f = NULL;
+      if (lines[i][0] == '#' || g_str_has_prefix (lines[i], "stage,") || lines[i][0] == '\0')
+        continue;
+      f = g_strsplit (lines[i], ",", -1);
+      g_assert_cmpuint (g_strv_length (f), >=, 10);
+      for (guint k = 0; k < 2; k++)
+        {
+          double v = g_ascii_strtod (f[7 + k], NULL);
+          if (g_str_has_prefix (lines[i], "total,"))
+            total[k] = v;
+          else
+            sum[k] += v;
+        }
+    }
+  for (guint k = 0; k < 2; k++)
+    g_assert_cmpfloat (fabs (sum[k] - total[k]), <=, 1e-6 * total[k] + 1e-3);
+}
+
 /* The sheet's "Liftoff mass 44,916 kg": the figure rounded to the kilogram. */
 static double
 sheet_liftoff (const char *text)
@@ -246,6 +274,7 @@ check_same_numbers (const char *basename)
   /* CSV against the window. */
   csv = sw_csv_stage_table (a);
   assert_close (csv_liftoff (csv), a->sizing.liftoff_mass_kg);
+  csv_columns_add_up (csv);
 
   /* The sheet against the window, to the kilogram it prints. */
   g_assert_true (sw_sheet_export (a, SW_SHEET_PDF, SW_PAPER_A4, pdf, &error));
@@ -269,6 +298,9 @@ test_same_numbers (void)
    * that falls short of its orbit. */
   check_same_numbers ("three-stage-simulated.stagewright");
   check_same_numbers ("medium-cargo.stagewright");
+  /* Strap-on boosters: their row in the CSV, the mass picture and the
+   * sheet's liftoff mass with them. */
+  check_same_numbers ("four-booster-cargo.stagewright");
 }
 
 /* The totals show the verdict: literal words, and the icon and style by

@@ -544,6 +544,66 @@ test_new_stage_flies (void)
 /* The parser behind every field, case by case: the decimal mark of the
  * locale (',' in German, with '.' its grouping mark), '.' where it is not
  * the grouping mark, a sign, an exponent; nothing else. */
+/* The boosters in the inspector, typed as a user does: the count out of
+ * range is refused on its field; the thrust per booster is one edit; a fixed
+ * load left empty sizes them; count 0 hides the rest and saves no key. */
+static void
+test_boosters (void)
+{
+  SwWindow *w = window_with_demo ("four-booster-cargo.stagewright");
+  SwInspector *insp = sw_window_get_inspector (w);
+  SwNumberField *count = field (w, SW_INSPECTOR_BOOSTER_COUNT);
+  SwNumberField *thrust = field (w, SW_INSPECTOR_BOOSTER_THRUST);
+  SwNumberField *load = field (w, SW_INSPECTOR_BOOSTER_PROPELLANT_LOAD);
+  g_autoptr (SwDesign) before = sw_design_copy (doc_design (w));
+
+  g_assert_cmpfloat (sw_number_field_get_value (count), ==, 4.0);
+  g_assert_true (gtk_widget_get_visible (GTK_WIDGET (thrust)));
+  g_assert_true (gtk_widget_is_visible (sw_inspector_get_field (insp,
+                                                                SW_INSPECTOR_BOOSTER_CROSSFEED)));
+  focus_field (w, GTK_WIDGET (count));
+  retype ("13");
+  xdo ("key", "Return", NULL);
+  assert_unchanged (w, before);
+  g_assert_nonnull (sw_number_field_get_error (count));
+  xdo ("key", "Escape", NULL);
+
+  focus_field (w, GTK_WIDGET (thrust));
+  retype ("900");
+  xdo ("key", "Return", NULL);
+  g_assert_cmpfloat (doc_design (w)->boosters.thrust_vac_kn, ==, 900.0);
+  g_assert_null (sw_number_field_get_error (thrust));
+  maybe_shot (w, "input-boosters-section.png");
+
+  focus_field (w, GTK_WIDGET (load));
+  retype ("abc");
+  xdo ("key", "Return", NULL);
+  g_assert_true (doc_design (w)->boosters.propellant.has_propellant_kg);
+  g_assert_nonnull (sw_number_field_get_error (load));
+  retype ("");
+  xdo ("key", "Return", NULL);
+  g_assert_false (doc_design (w)->boosters.propellant.has_propellant_kg);
+
+  /* The crossfeed is a named edit too. */
+  gtk_check_button_set_active (GTK_CHECK_BUTTON (sw_inspector_get_field (
+                                 insp, SW_INSPECTOR_BOOSTER_CROSSFEED)), TRUE);
+  drain ();
+  g_assert_true (doc_design (w)->boosters.crossfeed);
+
+  focus_field (w, GTK_WIDGET (count));
+  retype ("0");
+  xdo ("key", "Return", NULL);
+  g_assert_cmpuint (doc_design (w)->boosters.count, ==, 0);
+  drain ();
+  g_assert_false (gtk_widget_is_visible (GTK_WIDGET (thrust)));
+  {
+    g_autofree char *data = sw_design_to_data (doc_design (w), NULL);
+    g_assert_null (strstr (data, "\"boosters\""));
+  }
+  maybe_shot (w, "input-boosters.png");
+  sw_test_window_close (w);
+}
+
 static void
 test_parse (void)
 {
@@ -979,6 +1039,7 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/input/first-start", test_first_start);
   g_test_add_func ("/gui/input/new-stage-flies", test_new_stage_flies);
   g_test_add_func ("/gui/input/to-scale-clicks", test_to_scale_clicks);
+  g_test_add_func ("/gui/input/boosters", test_boosters);
 
   status = g_test_run ();
   sw_gui_test_env_finish (tmp_dir);

@@ -212,7 +212,7 @@ test_markdown (void)
   g_assert_nonnull (strstr (md, "| -89.9 to 89.9 |"));
   /* Nested keys are shown with their path. */
   g_assert_nonnull (strstr (md, "| `mission.orbit.altitude_km` |"));
-  g_assert_nonnull (strstr (md, "| `stages[].isp_vac_s` |"));
+  g_assert_nonnull (strstr (md, "| `stages[].isp_vac_s`, `boosters.isp_vac_s` |"));
   g_assert_nonnull (strstr (md, "| `ascent.pitch_kick_deg` |"));
 }
 

@@ -327,7 +327,7 @@ test_no_overlap (void)
     "all-solid-concept.stagewright", "skelloway-upgrade-study.stagewright",
     "medium-cargo.stagewright", "small-sat-launcher.stagewright",
     "three-stage-simulated.stagewright", "sallowmere-kestrune-upper-stage.stagewright",
-    "sallowmere-as-built.stagewright",
+    "sallowmere-as-built.stagewright", "four-booster-cargo.stagewright",
   };
   g_autoptr (SwAnalysis) trade = briefing (WITH_MONTECARLO | WITH_BAND);
 

@@ -109,14 +109,24 @@ check_design_areas (const char *basename)
   g_assert_cmpint (cairo_image_surface_get_width (surface), ==, WIDTH);
   widget_render_pixel (surface, 1, 1, bg);
 
-  for (int i = -1; i < (int) sz->n_stages; i++)
+  /* Strap-on boosters come after the stages: -1 the payload, then the
+   * stages, then booster j as n_stages + j. */
+  for (int i = -1; i < (int) (sz->n_stages + (sz->boosters.present ? sz->boosters.count : 0));
+       i++)
     {
       graphene_rect_t rc, st = GRAPHENE_RECT_INIT (0, 0, 0, 0);
       double mass, prop[4], strc[4], k;
       gboolean has_band = FALSE;
       Coverage cov;
 
-      if (i < 0)
+      if (i >= (int) sz->n_stages)
+        {
+          g_assert_true (sw_stack_view_get_booster_rect (SW_STACK_VIEW (view),
+                                                         (guint) i - sz->n_stages, &rc, &st));
+          mass = sz->boosters.booster_mass_kg;
+          has_band = st.size.height >= 4.0;
+        }
+      else if (i < 0)
         {
           g_assert_true (sw_stack_view_get_payload_rect (SW_STACK_VIEW (view), &rc));
           mass = result->design->payload_kg;
@@ -157,10 +167,13 @@ check_design_areas (const char *basename)
 
       if (has_band)
         {
-          const SwStageResult *s = &sz->stages[i];
-          double want_prop = s->propellant_mass_kg / s->stage_mass_kg;
+          gboolean booster = i >= (int) sz->n_stages;
+          const SwStageResult *s = &sz->stages[booster ? 0 : i];
+          double want_prop = booster ? sz->boosters.propellant_mass_kg / mass
+                                     : s->propellant_mass_kg / s->stage_mass_kg;
           double got_prop = 1.0 - cov.structure / cov.total;
-          double want_struct = s->structural_mass_kg / s->stage_mass_kg;
+          double want_struct = booster ? sz->boosters.structural_mass_kg / mass
+                                       : s->structural_mass_kg / s->stage_mass_kg;
           double got_struct = cov.structure / cov.total;
           g_test_message ("  propellant share %.4f (mass %.4f), structure %.4f (mass %.4f)",
                           got_prop, want_prop, got_struct, want_struct);
@@ -186,6 +199,13 @@ static void
 test_areas_medium (void)
 {
   check_design_areas ("medium-cargo.stagewright");
+}
+
+/* Boosters beside the core: each a block of its own mass, same area scale. */
+static void
+test_areas_boosters (void)
+{
+  check_design_areas ("four-booster-cargo.stagewright");
 }
 
 static void
@@ -868,6 +888,7 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/stack-view/to-scale-pixels", test_to_scale_pixels);
   g_test_add_func ("/gui/stack-view/areas-small-launcher", test_areas_small);
   g_test_add_func ("/gui/stack-view/areas-medium-cargo", test_areas_medium);
+  g_test_add_func ("/gui/stack-view/areas-boosters", test_areas_boosters);
   g_test_add_func ("/gui/stack-view/areas-all-solid", test_areas_solid);
   g_test_add_func ("/gui/stack-view/infeasible", test_infeasible);
   g_test_add_func ("/gui/stack-view/error", test_error);

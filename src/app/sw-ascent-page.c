@@ -757,6 +757,14 @@ update_plots (SwAscentPage *self)
       sw_plot_add_marker (self->plots[SW_ASCENT_PLOT_TRAJECTORY], st->ignition.downrange_m,
                           st->ignition.altitude_m, label, SW_MARKER_BASELINE);
     }
+  /* Strap-on boosters drop at their burnout: a staging event too. */
+  if (a->boosters_dropped && isfinite (a->boosters.time_s))
+    {
+      for (SwAscentPlot p = SW_ASCENT_PLOT_SPEED; p < SW_ASCENT_N_PLOTS; p++)
+        sw_plot_add_vline (self->plots[p], a->boosters.time_s, _("boosters off"), 7);
+      sw_plot_add_marker (self->plots[SW_ASCENT_PLOT_TRAJECTORY], a->boosters.downrange_m,
+                          a->boosters.altitude_m, _("boosters off"), SW_MARKER_BASELINE);
+    }
   if (a->fairing_dropped && isfinite (a->fairing.time_s))
     sw_plot_add_marker (self->plots[SW_ASCENT_PLOT_TRAJECTORY], a->fairing.downrange_m,
                         a->fairing.altitude_m, _("fairing off"), SW_MARKER_BASELINE);

@@ -106,6 +106,22 @@ struct _SwInspector {
   SwNumberField *pitch_kick_field;
   SwNumberField *insertion_field;
   SwNumberField *max_q_alpha_field;
+  /* the strap-on boosters */
+  GtkWidget     *booster_box;            /* everything but the count */
+  SwNumberField *booster_count_field;
+  GtkEntry      *booster_name_entry;
+  SwNumberField *booster_isp_vac_field;
+  SwNumberField *booster_isp_sl_field;
+  SwNumberField *booster_eps_field;
+  SwNumberField *booster_thrust_field;
+  SwNumberField *booster_load_field;
+  SwNumberField *booster_diameter_field;
+  GtkCheckButton *booster_crossfeed_check;
+  GtkDropDown   *booster_propellant_dropdown;
+  SwNumberField *booster_mixture_field;
+  SwNumberField *booster_ullage_field;
+  SwNumberField *booster_oxidizer_field;
+  SwNumberField *booster_fuel_field;
   gboolean       isp_conflict;           /* the Isp pair shows a conflict */
 };
 
@@ -116,6 +132,7 @@ enum { PROP_0, PROP_SELECTED_STAGE, N_PROPS };
 static void update_extra_stage_fields (SwInspector *self, const SwDesign *d, guint i,
                                        gboolean reset);
 static void update_design_extra (SwInspector *self, const SwDesign *d);
+static gboolean focus_within (GtkWidget *widget);
 static GParamSpec *properties[N_PROPS];
 
 /* ---- helpers ----------------------------------------------------------- */
@@ -1136,6 +1153,232 @@ drag_leave_cb (GtkEventControllerFocus *controller, SwInspector *self)
     drag_commit (self);
 }
 
+/* ---- the boosters ------------------------------------------------------ */
+
+static void
+booster_name_commit (SwInspector *self)
+{
+  g_autoptr (SwDesign) d = NULL;
+  g_autoptr (GError) error = NULL;
+  const char *text = gtk_editable_get_text (GTK_EDITABLE (self->booster_name_entry));
+
+  if (!editing_ok (self) || design (self)->boosters.count == 0
+      || g_strcmp0 (text, design (self)->boosters.name) == 0)
+    return;
+  d = sw_document_dup_design (self->document);
+  if (!sw_design_set_booster_name (d, text, &error))
+    {
+      gtk_widget_add_css_class (GTK_WIDGET (self->booster_name_entry), "error");
+      gtk_widget_set_tooltip_text (GTK_WIDGET (self->booster_name_entry),
+                                   field_message (error->message));
+      return;
+    }
+  gtk_widget_remove_css_class (GTK_WIDGET (self->booster_name_entry), "error");
+  commit (self, g_steal_pointer (&d), NULL);
+}
+
+static void
+booster_name_leave_cb (GtkEventControllerFocus *controller, SwInspector *self)
+{
+  if (gtk_widget_get_mapped (GTK_WIDGET (self)))
+    booster_name_commit (self);
+}
+
+static void
+booster_crossfeed_cb (SwInspector *self)
+{
+  g_autoptr (SwDesign) d = NULL;
+  g_autoptr (GError) error = NULL;
+  gboolean on = gtk_check_button_get_active (self->booster_crossfeed_check);
+
+  if (!editing_ok (self) || on == design (self)->boosters.crossfeed)
+    return;
+  d = sw_document_dup_design (self->document);
+  if (!sw_design_set_booster_crossfeed (d, on, &error))
+    {
+      self->updating++;
+      gtk_check_button_set_active (self->booster_crossfeed_check, design (self)->boosters.crossfeed);
+      self->updating--;
+      gtk_widget_set_tooltip_text (GTK_WIDGET (self->booster_crossfeed_check), error->message);
+      return;
+    }
+  commit (self, g_steal_pointer (&d), NULL);
+}
+
+static void
+booster_propellant_cb (SwInspector *self)
+{
+  g_autoptr (SwDesign) d = NULL;
+  g_autoptr (GError) error = NULL;
+  guint selected = gtk_drop_down_get_selected (self->booster_propellant_dropdown);
+
+  if (!editing_ok (self) || selected >= SW_N_PROPELLANTS
+      || selected == design (self)->boosters.propellant.kind)
+    return;
+  d = sw_document_dup_design (self->document);
+  if (!sw_design_set_booster_propellant (d, (SwPropellantKind) selected, &error))
+    {
+      self->updating++;
+      gtk_drop_down_set_selected (self->booster_propellant_dropdown,
+                                  design (self)->boosters.propellant.kind);
+      self->updating--;
+      gtk_widget_set_tooltip_text (GTK_WIDGET (self->booster_propellant_dropdown),
+                                   error->message);
+      return;
+    }
+  commit (self, g_steal_pointer (&d), NULL);
+}
+
+static void
+build_boosters (SwInspector *self, GtkWidget *box)
+{
+  GtkGrid *grid;
+  GtkEventController *controller;
+  int row = 0;
+  const char *tip;
+
+  gtk_box_append (GTK_BOX (box), section_title (_("Strap-on boosters")));
+  grid = new_grid ();
+  self->booster_count_field = add_number_row (self, grid, 0, _("Number of _boosters"),
+                                              _("Boosters beside the first stage (the core), "
+                                                "lit at liftoff and dropped at their burnout; "
+                                                "0 for none. They need the first stage's "
+                                                "thrust"),
+                                              SW_FIELD_BOOSTER_COUNT, 0, 0, 1.0, NULL);
+  gtk_box_append (GTK_BOX (box), GTK_WIDGET (grid));
+
+  self->booster_box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 0);
+  grid = new_grid ();
+  self->booster_name_entry = GTK_ENTRY (gtk_entry_new ());
+  gtk_editable_set_enable_undo (GTK_EDITABLE (self->booster_name_entry), FALSE);
+  tip = _("The boosters' name, shown in the tables and the stack");
+  gtk_widget_set_tooltip_text (GTK_WIDGET (self->booster_name_entry), tip);
+  g_signal_connect_swapped (self->booster_name_entry, "activate",
+                            G_CALLBACK (booster_name_commit), self);
+  controller = gtk_event_controller_focus_new ();
+  g_signal_connect (controller, "leave", G_CALLBACK (booster_name_leave_cb), self);
+  gtk_widget_add_controller (GTK_WIDGET (self->booster_name_entry), controller);
+  gtk_grid_attach (grid, caption (_("Name"), tip, GTK_WIDGET (self->booster_name_entry)),
+                   0, row, 1, 1);
+  gtk_grid_attach (grid, GTK_WIDGET (self->booster_name_entry), 1, row++, 2, 1);
+  self->booster_isp_vac_field = add_number_row (self, grid, row++, _("Vacuum Isp"),
+                                                _("The boosters' specific impulse in vacuum"),
+                                                SW_FIELD_BOOSTER_ISP_VAC, 0, 1, 1.0, NULL);
+  self->booster_isp_sl_field = add_number_row (self, grid, row++, _("Sea-level Isp"),
+                                               _("The boosters' specific impulse at sea level "
+                                                 "(their thrust at liftoff); left empty, the "
+                                                 "vacuum Isp"),
+                                               SW_FIELD_BOOSTER_ISP_SL, 0, 1, 1.0,
+                                               _("as in vacuum"));
+  self->booster_eps_field = add_number_row (self, grid, row++, _("Structural coefficient"),
+                                            _("eps = structure / (structure + propellant) of "
+                                              "one booster"),
+                                            SW_FIELD_BOOSTER_STRUCTURAL_COEFFICIENT, 0, 4, 0.005,
+                                            NULL);
+  self->booster_thrust_field = add_number_row (self, grid, row++, _("Thrust per booster"),
+                                               _("Vacuum thrust of one booster; with the "
+                                                 "propellant it sets the burn time"),
+                                               SW_FIELD_BOOSTER_THRUST_VAC, 0, 1, 10.0, NULL);
+  self->booster_load_field = add_number_row (self, grid, row++, _("Fixed load per booster"),
+                                             _("The propellant of one booster that exists; left "
+                                               "empty, the boosters are sized with the stages "
+                                               "for the least liftoff mass"),
+                                             SW_FIELD_BOOSTER_PROPELLANT_LOAD, 0, 0, 100.0,
+                                             _("sized"));
+  self->booster_diameter_field = add_number_row (self, grid, row++, _("Diameter"),
+                                                 _("Outer diameter of one booster: its drag "
+                                                   "area; left empty, half the core's"),
+                                                 SW_FIELD_BOOSTER_DIAMETER, 0, 2, 0.1,
+                                                 _("half the core's"));
+  self->booster_crossfeed_check = GTK_CHECK_BUTTON (
+    gtk_check_button_new_with_label (_("Crossfeed: the boosters feed the core's engines")));
+  gtk_widget_set_tooltip_text (GTK_WIDGET (self->booster_crossfeed_check),
+                               _("While the boosters burn, the core's engines draw on their "
+                                 "propellant, so the core starts its own burn full"));
+  g_signal_connect_swapped (self->booster_crossfeed_check, "notify::active",
+                            G_CALLBACK (booster_crossfeed_cb), self);
+  gtk_grid_attach (grid, GTK_WIDGET (self->booster_crossfeed_check), 0, row++, 3, 1);
+  {
+    const char *const propellants[] = {
+      _("not given"), _("LOX / kerosene"), _("LOX / hydrogen"), _("LOX / methane"),
+      _("N2O4 / UDMH"), _("N2O4 / MMH"), _("Composite solid"), _("Your own (densities below)"),
+      NULL
+    };
+    tip = _("What the boosters burn: with it and a diameter their tank volume and length "
+            "follow");
+    self->booster_propellant_dropdown = GTK_DROP_DOWN (gtk_drop_down_new_from_strings (propellants));
+    gtk_widget_set_tooltip_text (GTK_WIDGET (self->booster_propellant_dropdown), tip);
+    g_signal_connect_swapped (self->booster_propellant_dropdown, "notify::selected",
+                              G_CALLBACK (booster_propellant_cb), self);
+    gtk_grid_attach (grid, caption (_("Propellant"), tip,
+                                    GTK_WIDGET (self->booster_propellant_dropdown)),
+                     0, row, 1, 1);
+    gtk_grid_attach (grid, GTK_WIDGET (self->booster_propellant_dropdown), 1, row++, 2, 1);
+  }
+  self->booster_mixture_field = add_number_row (self, grid, row++, _("Mixture ratio O/F"),
+                                                _("Oxidizer over fuel by mass, in place of the "
+                                                  "propellant's own"),
+                                                SW_FIELD_BOOSTER_MIXTURE_RATIO, 0, 2, 0.1,
+                                                _("the propellant's"));
+  self->booster_ullage_field = add_number_row (self, grid, row++, _("Ullage fraction"),
+                                               _("Tank volume beyond the propellant's, as a "
+                                                 "fraction of it"),
+                                               SW_FIELD_BOOSTER_ULLAGE, 0, 3, 0.01, "0.03");
+  self->booster_oxidizer_field = add_number_row (self, grid, row++, _("Oxidizer density"),
+                                                 _("Density of the oxidizer of a propellant of "
+                                                   "your own"),
+                                                 SW_FIELD_BOOSTER_OXIDIZER_DENSITY, 0, 2, 10.0,
+                                                 NULL);
+  sw_number_field_set_optional (self->booster_oxidizer_field, TRUE, _("catalogue"));
+  self->booster_fuel_field = add_number_row (self, grid, row++, _("Fuel density"),
+                                             _("Density of the fuel of a propellant of your "
+                                               "own"),
+                                             SW_FIELD_BOOSTER_FUEL_DENSITY, 0, 2, 10.0, NULL);
+  sw_number_field_set_optional (self->booster_fuel_field, TRUE, _("catalogue"));
+  gtk_box_append (GTK_BOX (self->booster_box), GTK_WIDGET (grid));
+  gtk_box_append (GTK_BOX (box), self->booster_box);
+}
+
+static void
+update_boosters (SwInspector *self, const SwDesign *d)
+{
+  const SwBoosters *b = &d->boosters;
+  gboolean on = b->count > 0;
+  double v;
+
+  sw_number_field_set_value (self->booster_count_field, (double) b->count);
+  gtk_widget_set_visible (self->booster_box, on);
+  if (!on)
+    return;
+  self->updating++;
+  if (g_strcmp0 (gtk_editable_get_text (GTK_EDITABLE (self->booster_name_entry)), b->name) != 0
+      && !focus_within (GTK_WIDGET (self->booster_name_entry)))
+    gtk_editable_set_text (GTK_EDITABLE (self->booster_name_entry), b->name);
+  gtk_check_button_set_active (self->booster_crossfeed_check, b->crossfeed);
+  gtk_drop_down_set_selected (self->booster_propellant_dropdown, b->propellant.kind);
+  self->updating--;
+#define SHOW(field, key) \
+  sw_number_field_set_value (field, sw_design_field_get (d, key, 0, &v) ? v : NAN)
+  SHOW (self->booster_isp_vac_field, SW_FIELD_BOOSTER_ISP_VAC);
+  SHOW (self->booster_isp_sl_field, SW_FIELD_BOOSTER_ISP_SL);
+  SHOW (self->booster_eps_field, SW_FIELD_BOOSTER_STRUCTURAL_COEFFICIENT);
+  SHOW (self->booster_thrust_field, SW_FIELD_BOOSTER_THRUST_VAC);
+  SHOW (self->booster_load_field, SW_FIELD_BOOSTER_PROPELLANT_LOAD);
+  SHOW (self->booster_diameter_field, SW_FIELD_BOOSTER_DIAMETER);
+  SHOW (self->booster_mixture_field, SW_FIELD_BOOSTER_MIXTURE_RATIO);
+  SHOW (self->booster_ullage_field, SW_FIELD_BOOSTER_ULLAGE);
+  SHOW (self->booster_oxidizer_field, SW_FIELD_BOOSTER_OXIDIZER_DENSITY);
+  SHOW (self->booster_fuel_field, SW_FIELD_BOOSTER_FUEL_DENSITY);
+#undef SHOW
+  gtk_widget_set_sensitive (GTK_WIDGET (self->booster_mixture_field),
+                            b->propellant.kind != SW_PROPELLANT_NONE
+                            && b->propellant.kind != SW_PROPELLANT_SOLID_COMPOSITE);
+  gtk_widget_set_sensitive (GTK_WIDGET (self->booster_oxidizer_field),
+                            b->propellant.kind == SW_PROPELLANT_CUSTOM);
+  gtk_widget_set_sensitive (GTK_WIDGET (self->booster_fuel_field),
+                            b->propellant.kind == SW_PROPELLANT_CUSTOM);
+}
+
 static void
 build_sections (SwInspector *self)
 {
@@ -1410,6 +1653,8 @@ build_sections (SwInspector *self)
                                               "empty, no such limit"),
                                             SW_FIELD_MAX_Q_ALPHA, 0, 0, 10.0, _("no limit"));
   gtk_box_append (GTK_BOX (box), GTK_WIDGET (grid));
+
+  build_boosters (self, box);
 }
 
 static gboolean
@@ -1533,6 +1778,7 @@ update_design_extra (SwInspector *self, const SwDesign *d)
                              a->has_insertion_altitude ? a->insertion_altitude_km : NAN);
   sw_number_field_set_value (self->max_q_alpha_field,
                              a->has_max_q_alpha ? a->max_q_alpha_kpa_deg : NAN);
+  update_boosters (self, d);
 }
 
 /* ---- stage list actions ------------------------------------------------ */
@@ -1764,6 +2010,20 @@ sw_inspector_get_field (SwInspector *self, SwInspectorField field)
     case SW_INSPECTOR_OXIDIZER_DENSITY: return GTK_WIDGET (self->oxidizer_density_field);
     case SW_INSPECTOR_FUEL_DENSITY: return GTK_WIDGET (self->fuel_density_field);
     case SW_INSPECTOR_TANKS_LABEL: return GTK_WIDGET (self->tanks_label);
+    case SW_INSPECTOR_BOOSTER_COUNT: return GTK_WIDGET (self->booster_count_field);
+    case SW_INSPECTOR_BOOSTER_NAME: return GTK_WIDGET (self->booster_name_entry);
+    case SW_INSPECTOR_BOOSTER_ISP_VAC: return GTK_WIDGET (self->booster_isp_vac_field);
+    case SW_INSPECTOR_BOOSTER_ISP_SL: return GTK_WIDGET (self->booster_isp_sl_field);
+    case SW_INSPECTOR_BOOSTER_EPS: return GTK_WIDGET (self->booster_eps_field);
+    case SW_INSPECTOR_BOOSTER_THRUST: return GTK_WIDGET (self->booster_thrust_field);
+    case SW_INSPECTOR_BOOSTER_PROPELLANT_LOAD: return GTK_WIDGET (self->booster_load_field);
+    case SW_INSPECTOR_BOOSTER_DIAMETER: return GTK_WIDGET (self->booster_diameter_field);
+    case SW_INSPECTOR_BOOSTER_CROSSFEED: return GTK_WIDGET (self->booster_crossfeed_check);
+    case SW_INSPECTOR_BOOSTER_PROPELLANT: return GTK_WIDGET (self->booster_propellant_dropdown);
+    case SW_INSPECTOR_BOOSTER_MIXTURE_RATIO: return GTK_WIDGET (self->booster_mixture_field);
+    case SW_INSPECTOR_BOOSTER_ULLAGE: return GTK_WIDGET (self->booster_ullage_field);
+    case SW_INSPECTOR_BOOSTER_OXIDIZER_DENSITY: return GTK_WIDGET (self->booster_oxidizer_field);
+    case SW_INSPECTOR_BOOSTER_FUEL_DENSITY: return GTK_WIDGET (self->booster_fuel_field);
     case SW_INSPECTOR_N_FIELDS:
     default: return NULL;
     }

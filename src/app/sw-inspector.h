@@ -76,6 +76,21 @@ typedef enum {
   SW_INSPECTOR_FUEL_DENSITY,
   SW_INSPECTOR_TANKS_LABEL,    /* GtkLabel: the selected stage's tanks and length */
   SW_INSPECTOR_PROPELLANT_NAME,  /* GtkEntry: a propellant of the user's own */
+  /* the strap-on boosters (design level) */
+  SW_INSPECTOR_BOOSTER_COUNT,          /* SwNumberField, whole; 0: none */
+  SW_INSPECTOR_BOOSTER_NAME,           /* GtkEntry */
+  SW_INSPECTOR_BOOSTER_ISP_VAC,
+  SW_INSPECTOR_BOOSTER_ISP_SL,
+  SW_INSPECTOR_BOOSTER_EPS,            /* structural coefficient */
+  SW_INSPECTOR_BOOSTER_THRUST,         /* kN per booster */
+  SW_INSPECTOR_BOOSTER_PROPELLANT_LOAD,
+  SW_INSPECTOR_BOOSTER_DIAMETER,
+  SW_INSPECTOR_BOOSTER_CROSSFEED,      /* GtkCheckButton */
+  SW_INSPECTOR_BOOSTER_PROPELLANT,     /* GtkDropDown, SwPropellantKind order */
+  SW_INSPECTOR_BOOSTER_MIXTURE_RATIO,
+  SW_INSPECTOR_BOOSTER_ULLAGE,
+  SW_INSPECTOR_BOOSTER_OXIDIZER_DENSITY,
+  SW_INSPECTOR_BOOSTER_FUEL_DENSITY,
   SW_INSPECTOR_N_FIELDS
 } SwInspectorField;
 

@@ -297,6 +297,16 @@ item_label_markup (SwStackView *self, const Item *item, gboolean compact)
           base = g_strdup_printf (_("%s · %s · Δv %s"), title, mass, dv);
         else
           base = g_strdup_printf (_("%s\n%s · Δv %s\nmass ratio %s"), title, mass, dv, ratio);
+        /* The boosters beside the first stage: their count and mass each. */
+        if (item->stage == 0 && r->sizing.boosters.present)
+          {
+            g_autofree char *bm = sw_format_mass (r->sizing.boosters.booster_mass_kg);
+            g_autofree char *bname = g_markup_escape_text (r->design->boosters.name, -1);
+            /* Translators: the boosters beside the first stage: "+ 4 × Side boosters, 33.7 t each" */
+            g_autofree char *line = g_strdup_printf (_("\n+ %u × %s, %s each"),
+                                                     r->sizing.boosters.count, bname, bm);
+            return g_strconcat (base, tw, compact ? "" : line, NULL);
+          }
         return g_strconcat (base, tw, NULL);
       }
     }
@@ -1259,6 +1269,14 @@ draw_stack (SwStackView *self, GtkSnapshot *snapshot, int width, int height, con
   for (guint i = 0; i < self->n_items; i++)
     if (self->items[i].rect.size.width > 0.0)
       draw_item (self, cr, &self->items[i], &c);
+  /* Strap-on boosters beside the first stage, drawn to the same rule
+   * (area proportional to mass) by the shared drawing. */
+  if (self->px2_per_kg > 0.0 && self->geom.n == self->n_items && self->geom.n_boosters > 0)
+    {
+      SwStackStyle st;
+      stack_style (&c, &st);
+      sw_stack_draw_boosters (cr, &self->geom, &st, FALSE);
+    }
   for (guint i = 0; i < self->n_items; i++)
     if (self->items[i].label != NULL && self->items[i].rect.size.width > 0.0)
       draw_label (self, cr, &self->items[i], &c);
@@ -1841,6 +1859,25 @@ sw_stack_view_get_block_rect (SwStackView *self, guint index, graphene_rect_t *r
     return FALSE;
   if (rect != NULL)
     *rect = it->rect;
+  return TRUE;
+}
+
+gboolean
+sw_stack_view_get_booster_rect (SwStackView *self, guint index, graphene_rect_t *rect,
+                                graphene_rect_t *structure)
+{
+  const SwStackBox *b, *s;
+
+  g_return_val_if_fail (SW_IS_STACK_VIEW (self), FALSE);
+  if (!(self->px2_per_kg > 0.0) || self->geom.n != self->n_items
+      || index >= self->geom.n_boosters)
+    return FALSE;
+  b = &self->geom.booster[index];
+  s = &self->geom.booster_structure[index];
+  if (rect != NULL)
+    *rect = GRAPHENE_RECT_INIT (b->x, b->y, b->width, b->height);
+  if (structure != NULL)
+    *structure = GRAPHENE_RECT_INIT (s->x, s->y, s->width, s->height);
   return TRUE;
 }
 

@@ -54,6 +54,12 @@ double     sw_stack_view_get_metre_scale (SwStackView *self);
 gboolean   sw_stack_view_get_scale_bar (SwStackView *self, graphene_rect_t *rect,
                                         double *metres);
 
+/* Strap-on booster @index (0 to count - 1) beside the first stage, and the
+ * structure band inside it; FALSE when not drawn (no boosters, or not the
+ * mass picture).  Same area scale as the blocks. */
+gboolean   sw_stack_view_get_booster_rect (SwStackView *self, guint index,
+                                           graphene_rect_t *rect, graphene_rect_t *structure);
+
 /* Signals:
  *   "stage-activated" (int stage)             a click selected a stage
  *   "share-dragged"   (int lower, int upper, double amount, gboolean finished)

@@ -230,7 +230,9 @@ build_text (SwWorkingView *self, gboolean for_copy)
 
   {
     g_autofree char *total = MS (sz->delta_v_m_s);
-    const char *split = sz->split == SW_SPLIT_OPTIMAL ? _("optimal (Lagrange multiplier)")
+    const char *split = sz->split == SW_SPLIT_OPTIMAL
+                        ? (sz->boosters.present ? _("optimal (numerical minimum, with boosters)")
+                                                : _("optimal (Lagrange multiplier)"))
                         : sz->split == SW_SPLIT_EQUAL ? _("equal") : _("manual");
     /* Translators: header of the working; stage number, count, name */
     g_string_append_printf (s, _("Stage %u of %u: %s\n"), i + 1, d->n_stages, st->name);
@@ -261,6 +263,92 @@ build_text (SwWorkingView *self, gboolean for_copy)
     head (s, _("Structural coefficient"));
     formula (s, "ε = m_s/(m_s + m_p) = %s", eps);
   }
+
+  /* The core with strap-on boosters: phase 0 and its own phase, the
+   * formulas of parallel staging (the serial mass-ratio formula does not
+   * hold for this stage). */
+  if (i == 0 && sz->boosters.present && sz->feasible)
+    {
+      const SwBoosterResult *b = &sz->boosters;
+      guint engines = st->reliability.has_engine_count ? st->reliability.engine_count : 0;
+      double f1 = sw_stage_thrust_vac_n (&st->propulsion, engines);
+      double mdot1 = f1 / sr->exhaust_velocity_m_s;
+      double mdotb = b->thrust_vac_n / b->exhaust_velocity_m_s;
+      g_autofree char *cb = MS (b->exhaust_velocity_m_s);
+      g_autofree char *epsb = RATIO (d->boosters.structural_coefficient);
+      g_autofree char *fb = sw_format_number (b->thrust_vac_n / 1000.0, 1);
+      g_autofree char *fc = sw_format_number (f1 / 1000.0, 1);
+      g_autofree char *md1 = sw_format_number (mdot1, 1);
+      g_autofree char *mdb = sw_format_number (mdotb, 1);
+      g_autofree char *pb = KG (b->propellant_mass_kg);
+      g_autofree char *sb = KG (b->structural_mass_kg);
+      g_autofree char *tb = sw_format_number (b->phase_duration_s, 1);
+      g_autofree char *cmix = MS (b->mixed_exhaust_velocity_m_s);
+      g_autofree char *q = KG (b->core_propellant_in_phase_kg);
+      g_autofree char *m0 = KG (b->phase_initial_mass_kg);
+      g_autofree char *m0e = KG (b->phase_final_mass_kg);
+      g_autofree char *dv0 = MS (b->phase_delta_v_m_s);
+      g_autofree char *m1 = KG (b->core_phase_initial_mass_kg);
+      g_autofree char *mp = KG (sr->propellant_mass_kg);
+      g_autofree char *ms = KG (sr->structural_mass_kg);
+      g_autofree char *mb = KG (sr->burnout_mass_kg);
+      g_autofree char *dv1 = MS (b->core_phase_delta_v_m_s);
+      g_autofree char *above = KG (sr->payload_mass_kg);
+      g_autofree char *lift = KG (sz->liftoff_mass_kg);
+      g_autofree char *pl = KG (sz->payload_kg);
+      g_autofree char *frac = sw_format_percent (sz->payload_fraction, 3);
+      g_autofree char *share = sw_format_percent (sr->delta_v_share, 1);
+
+      g_string_append_c (s, '\n');
+      /* Translators: %u boosters named %s */
+      g_string_append_printf (s, _("With %u strap-on boosters (%s) beside this stage\n"
+                                   "(parallel staging)\n"), b->count, d->boosters.name);
+      g_string_append (s, b->fixed ? _("The boosters' load is fixed; the core's load gives\n"
+                                       "the required delta-v.\n")
+                                   : _("The boosters' load and the split are the minimum of\n"
+                                       "the liftoff mass found numerically (GSL), not the\n"
+                                       "Lagrange formula.\n"));
+      head (s, _("Boosters"));
+      formula (s, "c_b = %s m/s, ε_b = %s, F_b = %s kN", cb, epsb, fb);
+      formula (s, "m_p,b = %s kg, m_s,b = %s kg", pb, sb);
+      head (s, _("Mass flows"));
+      formula (s, "ṁ_core = F/c = %s kN / %s m/s = %s kg/s", fc, c, md1);
+      formula (s, "ṁ_b = F_b/c_b = %s kg/s", mdb);
+      head (s, _("Phase 0: boosters and core together"));
+      if (b->crossfeed)
+        formula (s, _("crossfeed: t = %u·m_p,b/(%u·ṁ_b + ṁ_core) = %s s; the core burns none "
+                      "of its own"), b->count, b->count, tb);
+      else
+        {
+          formula (s, "t_b = m_p,b·c_b/F_b = %s s", tb);
+          formula (s, "q = ṁ_core·t_b = %s kg %s", q, _("(core propellant burnt)"));
+        }
+      formula (s, "c_mix = (F + k·F_b)/(ṁ_core + k·ṁ_b) = %s m/s", cmix);
+      formula (s, "M0 = m_above + m_p + m_s + k·(m_p,b + m_s,b) = %s kg", m0);
+      formula (s, "Δv_0 = c_mix·ln(M0/(M0 − k·m_p,b − q))");
+      formula (s, "     = %s × ln(%s / %s) = %s m/s", cmix, m0, m0e, dv0);
+      head (s, _("The core alone, after the boosters drop"));
+      formula (s, "M1 = M0 − k·m_p,b − q − k·m_s,b = %s kg", m1);
+      formula (s, "Δv_1 = c·ln(M1/(m_above + m_s))");
+      formula (s, "     = %s × ln(%s / %s) = %s m/s", c, m1, mb, dv1);
+      head (s, _("Stage delta-v"));
+      formula (s, "Δv = Δv_0 + Δv_1 = %s m/s", dv);
+      formula (s, _("(%s of the required delta-v)"), share);
+      g_string_append_c (s, '\n');
+      head (s, _("Masses"));
+      formula (s, "m_above = %s kg, m_p = %s kg", above, mp);
+      formula (s, "m_s = m_p·ε/(1 − ε) = %s kg", ms);
+      head (s, _("Vehicle"));
+      formula (s, _("liftoff mass (M0, boosters included) = %s kg"), lift);
+      formula (s, _("payload fraction = %s / %s = %s"), pl, lift, frac);
+      if (for_copy)
+        {
+          g_string_append_c (s, '\n');
+          g_string_append (s, sw_format_cautions ());
+          g_string_append_c (s, '\n');
+        }
+      return g_string_free (s, FALSE);
+    }
 
   if (sz->split == SW_SPLIT_OPTIMAL && isfinite (sz->multiplier_s_m))
     {

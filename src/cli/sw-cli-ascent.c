@@ -176,6 +176,20 @@ ascent_to_json (const SwAnalysis *a)
                      r->fairing_dropped ? r->fairing.dynamic_pressure_pa : NAN);
   json_builder_end_object (b);
 
+  if (r->sizing.boosters.present)
+    {
+      json_builder_set_member_name (b, "boosters");
+      json_builder_begin_object (b);
+      add_bool (b, "dropped", r->boosters_dropped);
+      sw_cli_add_number (b, "time_s", r->boosters_dropped ? r->boosters.time_s : NAN);
+      sw_cli_add_number (b, "altitude_km",
+                         r->boosters_dropped ? r->boosters.altitude_m / 1000.0 : NAN);
+      sw_cli_add_number (b, "speed_m_s", r->boosters_dropped ? r->boosters.speed_m_s : NAN);
+      sw_cli_add_number (b, "dynamic_pressure_pa",
+                         r->boosters_dropped ? r->boosters.dynamic_pressure_pa : NAN);
+      json_builder_end_object (b);
+    }
+
   json_builder_set_member_name (b, "guidance");
   json_builder_begin_object (b);
   sw_cli_add_number (b, "pitch_over_time_s", r->pitch_over_time_s);
@@ -376,6 +390,10 @@ print_ascent (const SwDesign *d, const SwAscentResult *r)
     g_print (_("Max-Q: %s kPa at T+%s s (%s km)    Max axial acceleration: %s g at T+%s s\n"), q,
              qt, qh, a, at);
   }
+  if (r->boosters_dropped)
+    g_print (_("Boosters: dropped at T+%s s, %s km, %s m/s\n"),
+             sw_cli_num (r->boosters.time_s, 1), sw_cli_num (r->boosters.altitude_m / 1000.0, 1),
+             sw_cli_num (r->boosters.speed_m_s, 0));
   if (r->fairing_mass_kg > 0.0)
     {
       if (r->fairing_dropped)

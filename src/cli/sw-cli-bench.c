@@ -63,6 +63,7 @@ sw_cli_bench (int argc, char **argv)
   double samples[BATCHES], updates[UPDATES];
   double optimal_ns, live_us, dv, sensitivity_us = 0.0, montecarlo_ms = 0.0;
   double ascent_ms = NAN, loop_ms = NAN, mc_sim_s = NAN, carpet_ms, estimate_us = NAN;
+  double boosters_fixed_us = NAN, boosters_sized_ms = NAN;
   guint estimate_rounds = 0;
   guint mc_sim_threads = 0;
   g_autofree char *ascent_design = NULL;
@@ -214,6 +215,38 @@ sw_cli_bench (int argc, char **argv)
       }
   }
 
+  /* Sizing with strap-on boosters (the four-booster demo): with its fixed
+   * booster load (the core's root and the upper stages' minimum), and with
+   * the boosters sized too (nested GSL minimisers). */
+  {
+    enum { FIXED = 51, SIZED = 7 };
+    double fixed[FIXED], sized[SIZED];
+    g_autofree char *bpath = sw_cli_find_demo ("four-booster-cargo.stagewright");
+    g_autoptr (SwDesign) bd = sw_design_load (bpath, NULL, NULL);
+
+    if (bd != NULL && bd->boosters.count > 0)
+      {
+        SwSizing s;
+        for (guint k = 0; k < FIXED; k++)
+          {
+            double t0 = now_ns ();
+            sw_size_design (bd, &s, NULL);
+            fixed[k] = (now_ns () - t0) / 1000.0;
+            sink += s.liftoff_mass_kg;
+          }
+        boosters_fixed_us = median (fixed, FIXED);
+        bd->boosters.propellant.has_propellant_kg = FALSE;
+        for (guint k = 0; k < SIZED; k++)
+          {
+            double t0 = now_ns ();
+            sw_size_design (bd, &s, NULL);
+            sized[k] = (now_ns () - t0) / 1e6;
+            sink += s.liftoff_mass_kg;
+          }
+        boosters_sized_ms = median (sized, SIZED);
+      }
+  }
+
   carpet_ms = sw_cli_bench_carpet_ms (d);
   if (opt_json)
     {
@@ -241,6 +274,8 @@ sw_cli_bench (int argc, char **argv)
       json_builder_add_int_value (b, mc_sim_threads);
       sw_cli_add_number (b, "carpet_50x50_ms", carpet_ms);
       sw_cli_add_number (b, "eps_estimate_us", estimate_us);
+      sw_cli_add_number (b, "boosters_fixed_size_us", boosters_fixed_us);
+      sw_cli_add_number (b, "boosters_sized_size_ms", boosters_sized_ms);
       json_builder_end_object (b);
       node = json_builder_get_root (b);
       sw_cli_print_json (node);
@@ -268,6 +303,9 @@ sw_cli_bench (int argc, char **argv)
         g_print ("Monte Carlo, simulated, 1,000 %9s s         on %u thread(s) "
                  "(target <= 5 s on 2 cores)\n", m, mc_sim_threads);
         g_print ("carpet, 50 x 50 sizings      %10.2f ms median  (target <= 50 ms)\n", carpet_ms);
+        if (isfinite (boosters_fixed_us))
+          g_print ("sizing with 4 boosters, fixed load %6.1f us median; boosters sized %.1f ms "
+                   "median (no target yet)\n", boosters_fixed_us, boosters_sized_ms);
         if (isfinite (estimate_us))
           g_print ("structural-coefficient estimate %7.1f us median  (%u rounds; part of "
                    "every fast analysis)\n", estimate_us, estimate_rounds);

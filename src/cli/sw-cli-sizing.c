@@ -56,16 +56,19 @@ fast_options (SwAnalysisOptions *o)
 static void
 add_phases (JsonBuilder *b, const SwDesign *d, const SwSizing *s)
 {
-  SwPhase phases[SW_MAX_STAGES];
+  SwPhase phases[SW_MAX_PHASES];
   guint n_phases = sw_sizing_phases (d, s, phases);
 
   json_builder_set_member_name (b, "phases");
   json_builder_begin_array (b);
   for (guint k = 0; k < n_phases; k++)
     {
+      g_autofree char *name = sw_phase_dup_name (d, &phases[k]);
       json_builder_begin_object (b);
       json_builder_set_member_name (b, "name");
-      json_builder_add_string_value (b, d->stages[phases[k].stage].name);
+      json_builder_add_string_value (b, name);
+      json_builder_set_member_name (b, "boosters");
+      json_builder_add_boolean_value (b, phases[k].boosters);
       sw_cli_add_number (b, "delta_v_m_s", phases[k].delta_v_m_s);
       sw_cli_add_number (b, "exhaust_velocity_m_s", phases[k].exhaust_velocity_m_s);
       sw_cli_add_number (b, "initial_mass_kg", phases[k].initial_mass_kg);
@@ -155,6 +158,64 @@ add_eps_estimate (JsonBuilder *b, const SwDesign *d, const SwMassEstimate *m)
   json_builder_end_object (b);
 }
 
+/* The "boosters" object of @s (nothing without boosters). */
+static void
+add_boosters (JsonBuilder *b, const SwDesign *d, const SwSizing *s)
+{
+  const SwBoosterResult *r = &s->boosters;
+
+  if (!r->present)
+    return;
+  json_builder_set_member_name (b, "boosters");
+  json_builder_begin_object (b);
+  json_builder_set_member_name (b, "name");
+  json_builder_add_string_value (b, d->boosters.name);
+  json_builder_set_member_name (b, "count");
+  json_builder_add_int_value (b, r->count);
+  json_builder_set_member_name (b, "fixed");
+  json_builder_add_boolean_value (b, r->fixed);
+  json_builder_set_member_name (b, "crossfeed");
+  json_builder_add_boolean_value (b, r->crossfeed);
+  sw_cli_add_number (b, "isp_vac_s", d->boosters.isp_vac_s);
+  sw_cli_add_number (b, "isp_sl_s", d->boosters.has_isp_sl ? d->boosters.isp_sl_s : NAN);
+  sw_cli_add_number (b, "structural_coefficient", d->boosters.structural_coefficient);
+  sw_cli_add_number (b, "thrust_vac_kn", r->thrust_vac_n / 1000.0);
+  sw_cli_add_number (b, "propellant_mass_kg", r->propellant_mass_kg);
+  sw_cli_add_number (b, "structural_mass_kg", r->structural_mass_kg);
+  sw_cli_add_number (b, "booster_mass_kg", r->booster_mass_kg);
+  sw_cli_add_number (b, "total_mass_kg", r->total_mass_kg);
+  sw_cli_add_number (b, "burn_time_s", r->phase_duration_s);
+  sw_cli_add_number (b, "mixed_exhaust_velocity_m_s", r->mixed_exhaust_velocity_m_s);
+  sw_cli_add_number (b, "core_propellant_in_phase_0_kg", r->core_propellant_in_phase_kg);
+  sw_cli_add_number (b, "diameter_m", d->boosters.has_diameter ? d->boosters.diameter_m : NAN);
+  json_builder_set_member_name (b, "propellant");
+  {
+    const SwStagePropellant *p = &d->boosters.propellant;
+    const SwPropellantInfo *info = sw_propellant_info (p->kind);
+    if (p->kind == SW_PROPELLANT_CUSTOM)
+      json_builder_add_string_value (b, p->custom_name);
+    else if (info != NULL)
+      json_builder_add_string_value (b, info->key);
+    else
+      json_builder_add_null_value (b);
+  }
+  if (d->boosters.propellant.kind != SW_PROPELLANT_NONE)
+    {
+      SwStageShape shape;
+      double ox, fu, mr;
+      gboolean solid;
+
+      sw_propellant_effective (&d->boosters.propellant, &ox, &fu, &mr, &solid);
+      sw_cli_add_number (b, "mixture_ratio", solid ? NAN : mr);
+      sw_cli_add_number (b, "ullage_fraction", sw_propellant_ullage (&d->boosters.propellant));
+      sw_sizing_booster_shape (d, s, &shape);
+      sw_cli_add_number (b, "propellant_volume_m3", shape.propellant_volume_m3);
+      sw_cli_add_number (b, "tank_volume_m3", shape.tank_volume_m3);
+      sw_cli_add_number (b, "length_m", shape.has_length ? shape.length_m : NAN);
+    }
+  json_builder_end_object (b);
+}
+
 static JsonNode *
 sizing_to_json (const SwAnalysis *a)
 {
@@ -236,6 +297,7 @@ sizing_to_json (const SwAnalysis *a)
       json_builder_end_object (b);
     }
   json_builder_end_array (b);
+  add_boosters (b, d, s);
   add_phases (b, d, s);
   add_vehicle_shape (b, &a->shape);
   add_eps_estimate (b, d, &a->mass_estimate);
@@ -291,6 +353,45 @@ print_sizing_table (const SwAnalysis *a)
                share, n, mp, ms, m0, mf,
                !r->feasible ? _("  INFEASIBLE") : r->unused ? _("  (unused)")
                : r->fixed ? _("  (fixed load)") : "");
+    }
+  if (s->boosters.present && s->feasible)
+    {
+      const SwBoosterResult *r = &s->boosters;
+      g_autofree char *name = sw_cli_cell (d->boosters.name, 20);
+      g_autofree char *mp = sw_format_number (r->propellant_mass_kg, 1);
+      g_autofree char *ms = sw_format_number (r->structural_mass_kg, 1);
+      g_autofree char *mt = sw_format_number (r->total_mass_kg, 1);
+      g_autofree char *isp = sw_format_number (d->boosters.isp_vac_s, 1);
+      g_autofree char *eps = sw_format_number (d->boosters.structural_coefficient, 4);
+      g_autofree char *tb = sw_format_number (r->phase_duration_s, 1);
+      g_autofree char *q = sw_format_number (r->core_propellant_in_phase_kg, 1);
+      g_autofree char *cm = sw_format_number (r->mixed_exhaust_velocity_m_s, 1);
+      g_print (_("%-3s %s %6s %6s  %u x (%s kg propellant + %s kg structure) = %s kg%s%s\n"),
+               "B", name, isp, eps, r->count, mp, ms, mt,
+               r->fixed ? _("  (fixed load)") : "", r->crossfeed ? _("  crossfeed") : "");
+      g_print (_("    burn time %s s beside the core; the core burns %s kg of its own "
+                 "propellant meanwhile; mixed exhaust velocity %s m/s\n"), tb, q, cm);
+    }
+  /* The phases, when there is more to them than the stage table. */
+  if (s->feasible && s->boosters.present)
+    {
+      SwPhase phases[SW_MAX_PHASES];
+      guint n_phases = sw_sizing_phases (d, s, phases);
+
+      g_print ("\n%-28s %9s %9s %14s %14s %9s\n", _("phase"), "dv m/s", "c m/s",
+               _("initial kg"), _("final kg"), _("time s"));
+      for (guint k = 0; k < n_phases; k++)
+        {
+          g_autofree char *pname = sw_phase_dup_name (d, &phases[k]);
+          g_autofree char *cell = sw_cli_cell (pname, 28);
+          g_autofree char *pdv = sw_format_number (phases[k].delta_v_m_s, 1);
+          g_autofree char *pc = sw_format_number (phases[k].exhaust_velocity_m_s, 1);
+          g_autofree char *p0 = sw_format_number (phases[k].initial_mass_kg, 1);
+          g_autofree char *pf = sw_format_number (phases[k].final_mass_kg, 1);
+          g_autofree char *pt = isfinite (phases[k].duration_s)
+                                  ? sw_format_number (phases[k].duration_s, 1) : g_strdup ("-");
+          g_print ("%s %9s %9s %14s %14s %9s\n", cell, pdv, pc, p0, pf, pt);
+        }
     }
   g_print ("\n");
   if (s->feasible)

@@ -67,6 +67,23 @@ sw_csv_stage_table (const SwAnalysis *b)
       g_string_append (s, r->unused ? "true," : "false,");
       csv_number (s, b->reliability.given ? b->reliability.stage[i] : NAN, TRUE);
     }
+  /* The boosters, all of them together; no delta-v of their own (phase 0's
+   * is in stage 1's, so the column still adds up to the total). */
+  if (sz->boosters.present)
+    {
+      const SwBoosterResult *bo = &sz->boosters;
+      g_string_append (s, "boosters,");
+      csv_text (s, b->design->boosters.name, FALSE);
+      csv_number (s, b->design->boosters.isp_vac_s, FALSE);
+      csv_number (s, b->design->boosters.structural_coefficient, FALSE);
+      g_string_append (s, ",,,");
+      csv_number (s, bo->count * bo->propellant_mass_kg, FALSE);
+      csv_number (s, bo->count * bo->structural_mass_kg, FALSE);
+      csv_number (s, bo->phase_initial_mass_kg, FALSE);
+      csv_number (s, bo->phase_final_mass_kg, FALSE);
+      g_string_append (s, sz->feasible ? "true,false," : "false,false,");
+      csv_number (s, NAN, TRUE);
+    }
   g_string_append (s, "total,,,,");
   csv_number (s, sz->delta_v_m_s, FALSE);
   g_string_append (s, "1,,");

@@ -347,7 +347,7 @@ draw_totals (const Page *p, const SwAnalysis *a, double x, double y, double w, d
 static double
 stage_table_height (const SwAnalysis *a)
 {
-  return 18.0 + 13.0 * (a->sizing.n_stages + 1) + 4.0;
+  return 18.0 + 13.0 * (a->sizing.n_stages + (a->sizing.boosters.present ? 2 : 1)) + 4.0;
 }
 
 static void
@@ -406,12 +406,15 @@ draw_stage_table (const Page *p, const SwAnalysis *a, double y)
   yy += row_h;
   rule (cr, p->x, p->x + p->w, yy - 1.5, RULE, 0.6);
 
-  for (guint i = 0; i < s->n_stages; i++)
+  for (guint row = 0; row < s->n_stages + (s->boosters.present ? 1 : 0); row++)
     {
+      /* With boosters, their row comes first: they fire at liftoff. */
+      gboolean brow = s->boosters.present && row == 0;
+      guint i = s->boosters.present && row > 0 ? row - 1 : row;
       const SwStageResult *r = &s->stages[i];
       char *cells[11] = { 0 };
 
-      if (i % 2 == 1)
+      if (row % 2 == 1)
         {
           set_color (cr, PANEL, 1.0);
           cairo_rectangle (cr, p->x, yy - 1.0, p->w, row_h);
@@ -429,6 +432,25 @@ draw_stage_table (const Page *p, const SwAnalysis *a, double y)
       cells[8] = mass_in (r->structural_mass_kg, tonnes);
       cells[9] = mass_in (r->initial_mass_kg, tonnes);
       cells[10] = rel ? sw_format_percent (a->reliability.stage[i], 2) : NULL;
+      if (brow)
+        {
+          const SwBoosterResult *b = &s->boosters;
+          for (guint c = 0; c < 11; c++)
+            g_clear_pointer (&cells[c], g_free);
+          cells[0] = g_strdup ("B");
+          /* Translators: the boosters' row of the stage table: "Boosters, 4x beside stage 1" */
+          cells[1] = g_strdup_printf (_("%s, %u\303\227 beside stage 1"), d->boosters.name,
+                                      b->count);
+          cells[2] = sw_format_number (d->boosters.isp_vac_s, 1);
+          cells[3] = sw_format_number (d->boosters.structural_coefficient, 4);
+          /* Phase 0's delta-v is in stage 1's: no figures of their own here. */
+          cells[4] = g_strdup ("\342\200\224");
+          cells[5] = g_strdup ("\342\200\224");
+          cells[6] = g_strdup ("\342\200\224");
+          cells[7] = mass_in (b->count * b->propellant_mass_kg, tonnes);
+          cells[8] = mass_in (b->count * b->structural_mass_kg, tonnes);
+          cells[9] = g_strdup ("\342\200\224");
+        }
       for (guint c = 0; c < ncol; c++)
         {
           TextStyle st = cell;
@@ -437,7 +459,7 @@ draw_stage_table (const Page *p, const SwAnalysis *a, double y)
             {
               st.width = (0.26 - 0.035) * p->w;
               st.ellipsize = TRUE;
-              st.color = r->feasible ? INK : BAD;
+              st.color = brow || r->feasible ? INK : BAD;
               text_at (cr, cells[c], p->x + 0.035 * p->w, yy, &st);
               continue;
             }
@@ -618,6 +640,9 @@ sw_sheet_draw_page (cairo_t *cr, const SwAnalysis *a, double width, double heigh
     if (a->has_sensitivity)
       sw_sheet_draw_tornado (cr, a->design, &a->sensitivity, 6, p.x + col + 18.0, y + hy + 2.0,
                              col, bottom_h - hy - 2.0);
+    else if (a->sizing.feasible && a->montecarlo_error[0] != '\0')
+      /* Feasible but left out (boosters, a fixed load): the reason. */
+      note_in_box (cr, a->montecarlo_error, p.x + col + 18.0, y + hy, col, bottom_h - hy);
     else
       note_in_box (cr, a->sizing.n_fixed > 0
                          ? _("No sensitivities: they resize every stage, and this design has a "

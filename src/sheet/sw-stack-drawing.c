@@ -35,7 +35,25 @@ sw_stack_masses_from_sizing (const SwSizing *s, SwStackMasses *m)
       m->structure_kg[i] = s->stages[i].structural_mass_kg;
     }
   m->payload_kg = s->payload_kg;
+  if (s->boosters.present && s->boosters.count > 0 && isfinite (s->boosters.booster_mass_kg)
+      && s->boosters.booster_mass_kg > 0.0)
+    {
+      m->n_boosters = MIN (s->boosters.count, SW_BOOSTERS_MAX);
+      m->booster_kg = s->boosters.booster_mass_kg;
+      m->booster_structure_kg = s->boosters.structural_mass_kg;
+    }
   return TRUE;
+}
+
+/* The gap between boosters and beside the core, as a share of a booster's
+ * width (so the widths below are exact at every scale). */
+#define BOOSTER_GAP 0.1
+
+/* Boosters on the left of the core (the rest go right). */
+static guint
+boosters_left (guint n)
+{
+  return (n + 1) / 2;
 }
 
 double
@@ -64,6 +82,16 @@ stack_sums (const SwStackMasses *m, double *max_cbrt, double *sum_23, guint *n_p
         }
       *max_cbrt = MAX (*max_cbrt, cbrt (m->stage_kg[i]));
       *sum_23 += pow (m->stage_kg[i], 2.0 / 3.0);
+    }
+  /* Boosters beside the core widen the widest row (the stack stays centred
+   * on the core, so the wider side counts twice); a booster taller than
+   * the whole stack raises it. */
+  if (m->n_boosters > 0 && m->n_stages > 0)
+    {
+      double core = stage_used (m, 0) ? cbrt (m->stage_kg[0]) : 0.0;
+      *max_cbrt = MAX (*max_cbrt, core + 2.0 * boosters_left (m->n_boosters)
+                                           * (1.0 + BOOSTER_GAP) * cbrt (m->booster_kg));
+      *sum_23 = MAX (*sum_23, pow (m->booster_kg, 2.0 / 3.0));
     }
 }
 
@@ -104,9 +132,15 @@ sw_stack_fit (const SwStackMasses *const *stacks, guint n_stacks, double width, 
   scale->a = scale->b = 0.0;
   for (guint j = 0; j < n_stacks; j++)
     {
-      double max_cbrt, sum_23, fixed;
+      double max_cbrt, sum_23, fixed, part_cbrt;
       guint n, n_unused;
       stack_sums (stacks[j], &max_cbrt, &sum_23, &n, &n_unused);
+      /* The aspect rule is about one block: the heaviest part's, not the
+       * row of core and boosters. */
+      part_cbrt = cbrt (MAX (stacks[j]->payload_kg, 0.0));
+      for (guint i = 0; i < stacks[j]->n_stages; i++)
+        if (stage_used (stacks[j], i))
+          part_cbrt = MAX (part_cbrt, cbrt (stacks[j]->stage_kg[i]));
       if (unused_height <= 0.0)
         n -= n_unused;
       fixed = unused_height * n_unused + gap * (n > 0 ? n - 1 : 0);
@@ -122,7 +156,7 @@ sw_stack_fit (const SwStackMasses *const *stacks, guint n_stacks, double width, 
               max_23 = sum_23;
             }
         }
-      heaviest = MAX (heaviest, max_cbrt);
+      heaviest = MAX (heaviest, part_cbrt);
     }
   if (!(sum_cbrt > 0.0) || !isfinite (room_h) || !(room_w > 0.0) || !(max_23 > 0.0))
     return FALSE;
@@ -183,6 +217,27 @@ sw_stack_place (const SwStackMasses *m, const SwStackScale *s, double cx, double
           g->structure[k] = (SwStackBox) { cx - w / 2.0, y + h * (1.0 - f), w, h * f };
         }
       g->width = MAX (g->width, w);
+      /* The boosters beside the core, on the ground, a gap apart. */
+      if (!payload && i == 0 && g->kind[k] == SW_STACK_PART_STAGE && m->n_boosters > 0)
+        {
+          double bw = s->a * cbrt (m->booster_kg), bh = s->b * pow (m->booster_kg, 2.0 / 3.0);
+          double f = CLAMP (m->booster_structure_kg / m->booster_kg, 0.0, 1.0);
+          double hgap = BOOSTER_GAP * bw;
+          guint left = boosters_left (m->n_boosters);
+
+          g->n_boosters = m->n_boosters;
+          g->booster_mass_kg = m->booster_kg;
+          for (guint j = 0; j < m->n_boosters; j++)
+            {
+              gboolean on_left = j < left;
+              guint pos = on_left ? j : j - left;
+              double bx = on_left ? cx - w / 2.0 - (pos + 1) * (bw + hgap)
+                                  : cx + w / 2.0 + hgap + pos * (bw + hgap);
+              g->booster[j] = (SwStackBox) { bx, bottom - bh, bw, bh };
+              g->booster_structure[j] = (SwStackBox) { bx, bottom - bh * f, bw, bh * f };
+            }
+          g->width = MAX (g->width, w + 2.0 * left * (bw + hgap));
+        }
       g->n++;
     }
   g->top = y;
@@ -265,11 +320,53 @@ sw_stack_draw_part (cairo_t *cr, const SwStackGeometry *g, guint i, const SwStac
 }
 
 void
+sw_stack_draw_boosters (cairo_t *cr, const SwStackGeometry *g, const SwStackStyle *st,
+                        gboolean outline_only)
+{
+  static const double dash[] = { 4.0, 3.0 };
+
+  g_return_if_fail (cr != NULL && g != NULL && st != NULL);
+
+  for (guint j = 0; j < g->n_boosters; j++)
+    {
+      const SwStackBox *b = &g->booster[j], *sb = &g->booster_structure[j];
+
+      cairo_save (cr);
+      cairo_new_path (cr);
+      if (outline_only)
+        {
+          cairo_set_dash (cr, dash, G_N_ELEMENTS (dash), 0.0);
+          cairo_set_line_width (cr, MAX (st->line_width, 0.5));
+          source (cr, st->outline[3] > 0.0 ? st->outline : st->structure);
+          cairo_rectangle (cr, b->x, b->y, b->width, b->height);
+          cairo_stroke (cr);
+          cairo_restore (cr);
+          continue;
+        }
+      source (cr, st->propellant);
+      cairo_rectangle (cr, b->x, b->y, b->width, b->height - sb->height);
+      cairo_fill (cr);
+      source (cr, st->structure);
+      cairo_rectangle (cr, sb->x, sb->y, sb->width, sb->height);
+      cairo_fill (cr);
+      if (st->outline[3] > 0.0 && st->line_width > 0.0)
+        {
+          source (cr, st->outline);
+          cairo_set_line_width (cr, st->line_width);
+          cairo_rectangle (cr, b->x, b->y, b->width, b->height);
+          cairo_stroke (cr);
+        }
+      cairo_restore (cr);
+    }
+}
+
+void
 sw_stack_draw (cairo_t *cr, const SwStackGeometry *g, const SwStackStyle *st,
                gboolean outline_only)
 {
   for (guint i = 0; i < g->n; i++)
     sw_stack_draw_part (cr, g, i, st, outline_only);
+  sw_stack_draw_boosters (cr, g, st, outline_only);
 }
 
 /* ---- the vehicle to scale ------------------------------------------------- */

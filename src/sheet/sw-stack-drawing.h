@@ -8,7 +8,11 @@
  * as taller, tapering like a vehicle.  The payload is a cone of the same
  * width rule and twice the height, so its area is (a b) m too.  One scale
  * (a, b) is shared by everything drawn side by side (a baseline beside the
- * design); the ratio b/a only decides how the stack fills its box. */
+ * design); the ratio b/a only decides how the stack fills its box.
+ *
+ * Strap-on boosters stand beside the first stage (the core), on the same
+ * ground, each a block of its own mass by the same rule (so their area is
+ * (a b) m too): half of them on the left, the rest on the right. */
 #pragma once
 
 #include <cairo.h>
@@ -29,6 +33,9 @@ typedef struct {
   double stage_kg[SW_MAX_STAGES];
   double structure_kg[SW_MAX_STAGES];
   double payload_kg;
+  guint  n_boosters;                /* beside stage 0; 0: none */
+  double booster_kg;                /* per booster */
+  double booster_structure_kg;      /* per booster */
 } SwStackMasses;
 
 typedef struct {
@@ -50,7 +57,11 @@ typedef struct {
   SwStackBox      box[SW_STACK_MAX_PARTS];
   SwStackBox      structure[SW_STACK_MAX_PARTS];     /* band at the bottom of a stage */
   double          top;                               /* y of the cone's tip */
-  double          width;                             /* widest part */
+  double          width;                             /* widest part (boosters included) */
+  guint           n_boosters;                        /* beside stage 0 */
+  double          booster_mass_kg;                   /* each */
+  SwStackBox      booster[SW_BOOSTERS_MAX];
+  SwStackBox      booster_structure[SW_BOOSTERS_MAX];
 } SwStackGeometry;
 
 typedef struct {
@@ -90,6 +101,9 @@ void     sw_stack_draw_part (cairo_t *cr, const SwStackGeometry *g, guint i,
                              const SwStackStyle *st, gboolean outline_only);
 void     sw_stack_draw (cairo_t *cr, const SwStackGeometry *g, const SwStackStyle *st,
                         gboolean outline_only);
+/* The boosters alone (sw_stack_draw draws them with the parts). */
+void     sw_stack_draw_boosters (cairo_t *cr, const SwStackGeometry *g, const SwStackStyle *st,
+                                 gboolean outline_only);
 
 /* ---- the vehicle to scale, in metres ------------------------------------ */
 

@@ -341,6 +341,8 @@ update_verdict (SwAnalysis *r)
 static gboolean
 sizing_has_fixed (const SwSizing *sizing)
 {
+  if (sizing->boosters.present)
+    return TRUE;
   for (guint i = 0; i < sizing->n_stages; i++)
     if (sizing->stages[i].fixed)
       return TRUE;
@@ -502,7 +504,18 @@ prepare_trade (SwAnalysis *r)
   for (guint i = 0; i < r->sizing.n_stages; i++)
     fixed = fixed || r->sizing.stages[i].fixed;
   r->sensitivity_step = r->options.sensitivity_step;
-  if (fixed)
+  /* Boosters: the sensitivities' and the Monte Carlo's resizing is the
+   * serial one (the stages' Lagrange split); it would leave the boosters
+   * out.  Left out, and said so. */
+  if (design->boosters.count > 0 && !fixed)
+    {
+      fixed = TRUE;
+      g_strlcpy (r->montecarlo_error,
+                 _("Sensitivities and the Monte Carlo are not computed for a design with "
+                   "strap-on boosters yet: their resizing knows serial stages only."),
+                 sizeof r->montecarlo_error);
+    }
+  else if (fixed)
     g_strlcpy (r->montecarlo_error,
                _("Sensitivities and the Monte Carlo are not computed for a design with a "
                  "fixed propellant load: they resize every stage."),

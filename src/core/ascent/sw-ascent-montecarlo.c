@@ -168,6 +168,16 @@ sw_ascent_montecarlo_run (const SwDesign *design, guint samples, guint32 seed, g
 
   if (!sw_ascent_check_inputs (design, error))
     return NULL;
+  if (design->boosters.count > 0)
+    {
+      /* Each sample rebuilds the stack from the drawn structural
+       * coefficients, stage by stage; boosters beside the core are not in
+       * that rebuild yet. */
+      g_set_error (error, SW_ERROR, SW_ERROR_VALUE,
+                   _("boosters: the simulated Monte Carlo is not run for a design with strap-on "
+                     "boosters yet (its samples rebuild serial stages only)."));
+      return NULL;
+    }
   if (samples == 0)
     {
       g_set_error (error, SW_ERROR, SW_ERROR_VALUE, _("The Monte Carlo needs at least one sample."));

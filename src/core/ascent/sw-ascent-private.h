@@ -76,6 +76,7 @@ typedef struct {
   gboolean burning;
   gboolean is_virtual;             /* propellant the vehicle does not have: measures a shortfall */
   double   duration;
+  gboolean boosters;               /* phase 0: the strap-on boosters burn beside the core */
 } SwFlightSegment;
 
 typedef struct {
@@ -126,6 +127,18 @@ typedef struct {
   double          azimuth_deg;
   double          sized_total;
   double          m_floor;
+  /* Strap-on boosters (all of them together), burning beside stage 0 in
+   * the segments marked boosters; dropped at their burnout. */
+  gboolean        has_boosters;
+  double          b_thrust_vac;
+  double          b_isp_vac;
+  double          b_isp_sl;
+  double          b_mdot;
+  double          b_area;          /* frontal area they add */
+  double          b_dry;           /* their structure, dropped at burnout */
+  double          b_c_mix;         /* phase 0's exhaust velocity (sizing) */
+  double          b_dv0;           /* phase 0's sized delta-v */
+  double          b_m1;            /* mass at the start of the core's own phase (sizing) */
 } SwFlightModel;
 
 /* Everything that changes along a flight: a plain struct, so a flight can be
@@ -161,6 +174,8 @@ typedef struct {
   double        tw_ign[SW_MAX_STAGES];
   double        tw_bo[SW_MAX_STAGES];
   double        m_ign[SW_MAX_STAGES];
+  gboolean      boosters_dropped;
+  SwAscentPoint boosters_pt;       /* where they were dropped */
   gboolean      real_bo;           /* the last stage's own propellant ran out */
   double        t_real_bo;
   double        y_real_bo[SW_NY];

@@ -125,14 +125,24 @@ derive (const SwFlightSim *s, double t, const double *y, Derived *d)
     }
   d->mach = d->v_rel / d->sound;
   d->q = 0.5 * d->rho * d->v_rel * d->v_rel;
-  d->drag = d->q > 0.0 && st->area > 0.0
-            ? d->q * st->area * sw_propulsion_drag_coefficient (&st->aero, d->mach) : 0.0;
+  {
+    /* With the boosters on, the cluster's frontal area (core plus boosters). */
+    double area = st->area + (sg->boosters ? m->b_area : 0.0);
+    d->drag = d->q > 0.0 && area > 0.0
+              ? d->q * area * sw_propulsion_drag_coefficient (&st->aero, d->mach) : 0.0;
+  }
 
   if (burning)
     {
       d->thrust_vac = st->thrust_vac;
       d->thrust = sw_propulsion_thrust_at (st->thrust_vac, st->isp_vac, st->isp_sl, d->p);
       d->mdot = st->mdot;
+      if (sg->boosters)
+        {
+          d->thrust_vac += m->b_thrust_vac;
+          d->thrust += sw_propulsion_thrust_at (m->b_thrust_vac, m->b_isp_vac, m->b_isp_sl, d->p);
+          d->mdot += m->b_mdot;
+        }
     }
   else
     d->thrust = d->thrust_vac = d->mdot = 0.0;
@@ -696,6 +706,13 @@ end_segment (SwFlightSim *s)
           memcpy (s->f.y_real_bo, s->f.y, sizeof s->f.y);
         }
     }
+  if (sg->boosters && !sg->is_virtual)
+    {
+      /* The boosters burn out and drop away: their structure stays behind. */
+      point_of (s, s->f.t, s->f.y, &s->f.boosters_pt);
+      s->f.boosters_dropped = TRUE;
+      s->f.y[SW_Y_M] -= m->b_dry;
+    }
   if (next < m->n_seg && m->seg[next].stage != sg->stage)
     {
       /* Separation: the stage's structure stays behind. */
@@ -1024,6 +1041,32 @@ sw_flight_model_build (SwFlightModel *m, const SwDesign *d, const SwSizing *sz,
       dmax = MAX (dmax, m->st[i].area);
       m->st[i].area = G_PI * dmax * dmax / 4.0;
     }
+  if (sz->boosters.present && d->boosters.count > 0)
+    {
+      const SwBoosterResult *b = &sz->boosters;
+      /* A booster without a diameter of its own: half the core's (common
+       * practice for a first look, ours to choose). */
+      double bd = d->boosters.has_diameter ? d->boosters.diameter_m
+                                           : 0.5 * sqrt (4.0 * m->st[0].area / G_PI);
+
+      m->has_boosters = TRUE;
+      m->b_thrust_vac = b->count * b->thrust_vac_n;
+      m->b_isp_vac = d->boosters.isp_vac_s;
+      m->b_isp_sl = d->boosters.has_isp_sl ? d->boosters.isp_sl_s : d->boosters.isp_vac_s;
+      m->b_mdot = sw_propulsion_mass_flow (m->b_thrust_vac, m->b_isp_vac);
+      m->b_area = b->count * G_PI * bd * bd / 4.0;
+      m->b_dry = b->count * b->structural_mass_kg;
+      m->b_c_mix = b->mixed_exhaust_velocity_m_s;
+      m->b_dv0 = b->phase_delta_v_m_s;
+      m->b_m1 = b->core_phase_initial_mass_kg;
+      if (!m->st[0].fires || !(b->phase_duration_s > 0.0))
+        {
+          res->status = SW_ASCENT_NOT_SIMULATED;
+          g_strlcpy (res->reason, _("No ascent: the boosters need a core that fires beside them."),
+                     sizeof res->reason);
+          return SW_BUILD_INFEASIBLE;
+        }
+    }
   if (m->n_firing == 0)
     {
       res->status = SW_ASCENT_NOT_SIMULATED;
@@ -1103,8 +1146,20 @@ sw_flight_model_build (SwFlightModel *m, const SwDesign *d, const SwSizing *sz,
       if (!ms->fires)
         continue;
       if (i != m->first && ms->coast > 0.0)
-        m->seg[m->n_seg++] = (SwFlightSegment) { i, FALSE, FALSE, ms->coast };
-      m->seg[m->n_seg++] = (SwFlightSegment) { i, TRUE, FALSE, ms->burn_time };
+        m->seg[m->n_seg++] = (SwFlightSegment) { i, FALSE, FALSE, ms->coast, FALSE };
+      if (i == 0 && m->has_boosters)
+        {
+          /* Phase 0 with the boosters, then the core alone: without
+           * crossfeed the core has burnt its share already, with crossfeed
+           * it starts its own phase full. */
+          double t0 = sz->boosters.phase_duration_s;
+          double rest = d->boosters.crossfeed ? ms->burn_time : ms->burn_time - t0;
+          m->seg[m->n_seg++] = (SwFlightSegment) { i, TRUE, FALSE, t0, TRUE };
+          if (rest > 0.0 || i == m->last)
+            m->seg[m->n_seg++] = (SwFlightSegment) { i, TRUE, FALSE, MAX (rest, 0.0), FALSE };
+        }
+      else
+        m->seg[m->n_seg++] = (SwFlightSegment) { i, TRUE, FALSE, ms->burn_time, FALSE };
       if (i == m->last && m->has_target)
         m->seg[m->n_seg++] = (SwFlightSegment) { i, TRUE, TRUE,
                                           (ms->m_burnout - m->m_floor) / ms->mdot };
@@ -1115,7 +1170,10 @@ sw_flight_model_build (SwFlightModel *m, const SwDesign *d, const SwSizing *sz,
     {
       const SwFlightStage *ms = &m->st[m->first];
       double p0 = opt->atmosphere ? SW_ATMOSPHERE_P0 : 0.0;
-      double thrust = sw_propulsion_thrust_at (ms->thrust_vac, ms->isp_vac, ms->isp_sl, p0);
+      double thrust = sw_propulsion_thrust_at (ms->thrust_vac, ms->isp_vac, ms->isp_sl, p0)
+                      + (m->has_boosters && m->first == 0
+                           ? sw_propulsion_thrust_at (m->b_thrust_vac, m->b_isp_vac, m->b_isp_sl,
+                                                      p0) : 0.0);
       double mass = ms->m_ignition + m->fairing_mass;
       double g = opt->gravity == SW_GRAVITY_CONSTANT ? SW_G0 : SW_WGS84_MU / (SW_RE * SW_RE);
 
@@ -1242,8 +1300,14 @@ orbit_of (const double *y, double *perigee_km, double *apogee_km)
 double
 sw_flight_sized_delta_v (const SwFlightModel *m, guint seg, const double *y, gboolean fairing_on)
 {
-  guint k = m->seg[MIN (seg, m->n_seg - 1)].stage;
+  const SwFlightSegment *sg = &m->seg[MIN (seg, m->n_seg - 1)];
+  guint k = sg->stage;
   double dv = 0.0, mass = y[SW_Y_M] - (fairing_on ? m->fairing_mass : 0.0);
+
+  /* Stage 0 with boosters: phase 0, then the core's own phase. */
+  if (k == 0 && m->has_boosters)
+    return sg->boosters ? m->b_c_mix * log (m->st[0].m_ignition / mass)
+                        : m->b_dv0 + m->st[0].c * log (m->b_m1 / mass);
 
   for (guint i = 0; i < k; i++)
     if (m->st[i].fires)
@@ -1287,6 +1351,8 @@ sw_flight_fill_result (const SwFlightSim *s, SwOutcome out, SwAscentResult *res)
   res->max_axial_g_time_s = f->max_acc_t;
   res->fairing_dropped = f->fairing_dropped;
   res->fairing = f->fairing_pt;
+  res->boosters_dropped = f->boosters_dropped;
+  res->boosters = f->boosters_pt;
   if (f->pitched_over)
     res->pitch_over_time_s = f->t_po;
 
@@ -1463,6 +1529,22 @@ sw_ascent_stage_figures (const SwDesign *design, const SwSizing *sizing, SwAscen
                                      ? (i == 0 ? o->thrust_sl_n : o->thrust_vac_n)
                                          / (mass * SW_G0)
                                      : NAN;
+      /* Stage 0 with boosters: they lift off with it. */
+      if (i == 0 && sizing->feasible && sizing->boosters.present)
+        {
+          const SwBoosters *b = &design->boosters;
+          double bvac = sizing->boosters.count * sizing->boosters.thrust_vac_n;
+          double bsl = sw_propulsion_thrust_at (bvac, b->isp_vac_s,
+                                                b->has_isp_sl ? b->isp_sl_s : b->isp_vac_s,
+                                                SW_ATMOSPHERE_P0);
+          double core = isfinite (o->thrust_sl_n) ? o->thrust_sl_n : o->thrust_vac_n;
+          o->ignition_thrust_to_weight = (core + bsl) / (mass * SW_G0);
+          /* The core alone after the boosters drop: its burn without them. */
+          o->burn_time_s = sizing->boosters.crossfeed
+                             ? r->propellant_mass_kg / o->mass_flow_kg_s
+                                 + sizing->boosters.phase_duration_s
+                             : r->propellant_mass_kg / o->mass_flow_kg_s;
+        }
       o->burnout_thrust_to_weight = sizing->feasible
                                     ? o->thrust_vac_n / (r->burnout_mass_kg * SW_G0) : NAN;
       o->burn_time_flown_s = o->propellant_left_kg = NAN;

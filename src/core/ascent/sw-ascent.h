@@ -203,6 +203,8 @@ struct _SwAscentResult {
   double   fairing_mass_kg;
   gboolean fairing_dropped;
   SwAscentPoint fairing;
+  gboolean boosters_dropped;       /* strap-on boosters, dropped at their burnout */
+  SwAscentPoint boosters;
 
   /* guidance */
   double   pitch_over_time_s;

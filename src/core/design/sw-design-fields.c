@@ -62,7 +62,31 @@ static const SwDesignFieldInfo fields[SW_N_FIELDS] = {
                                   SW_LIMIT_COMPONENT_DENSITY, TRUE, FALSE, FALSE },
   [SW_FIELD_FUEL_DENSITY] = { "stages[%u].propellant.fuel_density_kg_m3",
                               SW_LIMIT_COMPONENT_DENSITY, TRUE, FALSE, FALSE },
+  [SW_FIELD_BOOSTER_COUNT] = { "boosters.count", SW_LIMIT_BOOSTER_COUNT, FALSE, FALSE, TRUE },
+  [SW_FIELD_BOOSTER_ISP_VAC] = { "boosters.isp_vac_s", SW_LIMIT_ISP_VAC, FALSE, FALSE, FALSE },
+  [SW_FIELD_BOOSTER_ISP_SL] = { "boosters.isp_sl_s", SW_LIMIT_ISP_SL, FALSE, TRUE, FALSE },
+  [SW_FIELD_BOOSTER_STRUCTURAL_COEFFICIENT] = { "boosters.structural_coefficient",
+                                                SW_LIMIT_STRUCTURAL_COEFFICIENT, FALSE, FALSE,
+                                                FALSE },
+  [SW_FIELD_BOOSTER_THRUST_VAC] = { "boosters.thrust_vac_kn", SW_LIMIT_THRUST_VAC, FALSE, FALSE,
+                                    FALSE },
+  [SW_FIELD_BOOSTER_PROPELLANT_LOAD] = { "boosters.propellant_kg", SW_LIMIT_PROPELLANT_LOAD,
+                                         FALSE, TRUE, FALSE },
+  [SW_FIELD_BOOSTER_DIAMETER] = { "boosters.diameter_m", SW_LIMIT_DIAMETER, FALSE, TRUE, FALSE },
+  [SW_FIELD_BOOSTER_MIXTURE_RATIO] = { "boosters.mixture_ratio", SW_LIMIT_MIXTURE_RATIO, FALSE,
+                                       TRUE, FALSE },
+  [SW_FIELD_BOOSTER_ULLAGE] = { "boosters.ullage_fraction", SW_LIMIT_ULLAGE, FALSE, TRUE, FALSE },
+  [SW_FIELD_BOOSTER_OXIDIZER_DENSITY] = { "boosters.propellant.oxidizer_density_kg_m3",
+                                          SW_LIMIT_COMPONENT_DENSITY, FALSE, FALSE, FALSE },
+  [SW_FIELD_BOOSTER_FUEL_DENSITY] = { "boosters.propellant.fuel_density_kg_m3",
+                                      SW_LIMIT_COMPONENT_DENSITY, FALSE, FALSE, FALSE },
 };
+
+static gboolean
+is_booster_field (SwDesignField f)
+{
+  return f >= SW_FIELD_BOOSTER_COUNT && f <= SW_FIELD_BOOSTER_FUEL_DENSITY;
+}
 
 const SwDesignFieldInfo *
 sw_design_field_info (SwDesignField field)
@@ -168,6 +192,31 @@ slot_of (SwDesign *d, SwDesignField f, guint i)
       s.slot = &st->propellant.oxidizer_density_kg_m3; break;
     case SW_FIELD_FUEL_DENSITY:
       s.slot = &st->propellant.fuel_density_kg_m3; break;
+    case SW_FIELD_BOOSTER_COUNT: s.uint_slot = &d->boosters.count; break;
+    case SW_FIELD_BOOSTER_ISP_VAC: s.slot = &d->boosters.isp_vac_s; break;
+    case SW_FIELD_BOOSTER_ISP_SL:
+      s.slot = &d->boosters.isp_sl_s; s.has = &d->boosters.has_isp_sl; break;
+    case SW_FIELD_BOOSTER_STRUCTURAL_COEFFICIENT:
+      s.slot = &d->boosters.structural_coefficient; break;
+    case SW_FIELD_BOOSTER_THRUST_VAC: s.slot = &d->boosters.thrust_vac_kn; break;
+    case SW_FIELD_BOOSTER_PROPELLANT_LOAD:
+      s.slot = &d->boosters.propellant.propellant_kg;
+      s.has = &d->boosters.propellant.has_propellant_kg;
+      break;
+    case SW_FIELD_BOOSTER_DIAMETER:
+      s.slot = &d->boosters.diameter_m; s.has = &d->boosters.has_diameter; break;
+    case SW_FIELD_BOOSTER_MIXTURE_RATIO:
+      s.slot = &d->boosters.propellant.mixture_ratio;
+      s.has = &d->boosters.propellant.has_mixture_ratio;
+      break;
+    case SW_FIELD_BOOSTER_ULLAGE:
+      s.slot = &d->boosters.propellant.ullage_fraction;
+      s.has = &d->boosters.propellant.has_ullage;
+      break;
+    case SW_FIELD_BOOSTER_OXIDIZER_DENSITY:
+      s.slot = &d->boosters.propellant.oxidizer_density_kg_m3; break;
+    case SW_FIELD_BOOSTER_FUEL_DENSITY:
+      s.slot = &d->boosters.propellant.fuel_density_kg_m3; break;
     case SW_N_FIELDS:
     default:
       g_assert_not_reached ();
@@ -188,6 +237,13 @@ sw_design_field_get (const SwDesign *design, SwDesignField field, guint stage, d
   /* The component densities exist for a propellant of the user's own only. */
   if ((field == SW_FIELD_OXIDIZER_DENSITY || field == SW_FIELD_FUEL_DENSITY)
       && design->stages[stage].propellant.kind != SW_PROPELLANT_CUSTOM)
+    {
+      if (value != NULL)
+        *value = 0.0;
+      return FALSE;
+    }
+  if ((field == SW_FIELD_BOOSTER_OXIDIZER_DENSITY || field == SW_FIELD_BOOSTER_FUEL_DENSITY)
+      && design->boosters.propellant.kind != SW_PROPELLANT_CUSTOM)
     {
       if (value != NULL)
         *value = 0.0;
@@ -256,6 +312,10 @@ store (SwDesign *d, SwDesignField f, guint i, double value, gboolean given)
 {
   Slot s = slot_of (d, f, i);
 
+  /* Boosters from none: the other keys start from plausible values. */
+  if (f == SW_FIELD_BOOSTER_COUNT && d->boosters.count == 0 && value > 0.0
+      && !sw_limit_contains (SW_LIMIT_ISP_VAC, d->boosters.isp_vac_s))
+    sw_boosters_init_default (&d->boosters);
   if (s.has != NULL)
     *s.has = given;
   if (!given)
@@ -311,8 +371,53 @@ check_dependencies (const SwDesign *d, SwDesignField f, guint i, double value, G
   const SwStage *st = &d->stages[i];
   g_autofree char *path = sw_design_field_dup_path (f, i);
 
+  if (is_booster_field (f) && f != SW_FIELD_BOOSTER_COUNT && d->boosters.count == 0)
+    {
+      g_set_error (error, SW_ERROR, SW_ERROR_MISSING,
+                   _("%s: the design has no boosters; set boosters.count first"), path);
+      return FALSE;
+    }
   switch (f)
     {
+    case SW_FIELD_BOOSTER_ISP_VAC:
+      if (d->boosters.has_isp_sl && value < d->boosters.isp_sl_s)
+        {
+          g_set_error (error, SW_ERROR, SW_ERROR_VALUE,
+                       _("%s: %g s is below the boosters' sea-level Isp of %g s; lower the "
+                         "sea-level Isp first"), path, value, d->boosters.isp_sl_s);
+          return FALSE;
+        }
+      break;
+    case SW_FIELD_BOOSTER_ISP_SL:
+      if (value > d->boosters.isp_vac_s)
+        {
+          g_set_error (error, SW_ERROR, SW_ERROR_VALUE,
+                       _("%s: %g s is above the boosters' vacuum Isp of %g s; the sea-level Isp "
+                         "lies between 0 and the vacuum Isp"), path, value,
+                       d->boosters.isp_vac_s);
+          return FALSE;
+        }
+      break;
+    case SW_FIELD_BOOSTER_OXIDIZER_DENSITY:
+    case SW_FIELD_BOOSTER_FUEL_DENSITY:
+      if (d->boosters.propellant.kind != SW_PROPELLANT_CUSTOM)
+        {
+          g_set_error (error, SW_ERROR, SW_ERROR_VALUE,
+                       _("%s: the component densities belong to a propellant of your own; "
+                         "choose one first"), path);
+          return FALSE;
+        }
+      break;
+    case SW_FIELD_BOOSTER_MIXTURE_RATIO:
+      if (d->boosters.propellant.kind == SW_PROPELLANT_NONE
+          || d->boosters.propellant.kind == SW_PROPELLANT_SOLID_COMPOSITE)
+        {
+          g_set_error (error, SW_ERROR, SW_ERROR_VALUE,
+                       _("%s: a mixture ratio needs a liquid propellant; choose one first"),
+                       path);
+          return FALSE;
+        }
+      break;
     case SW_FIELD_ISP_VAC:
       if (st->has_isp_sl && value < st->isp_sl_s)
         {
@@ -558,6 +663,46 @@ sw_design_field_unset (SwDesign *design, SwDesignField field, guint stage, GErro
   return apply_checked (design, field, stage, 0.0, FALSE, error);
 }
 
+/* ---- boosters ---------------------------------------------------------- */
+
+static gboolean
+check_has_boosters (const SwDesign *design, const char *key, GError **error)
+{
+  if (design->boosters.count > 0)
+    return TRUE;
+  g_set_error (error, SW_ERROR, SW_ERROR_MISSING,
+               _("boosters.%s: the design has no boosters; set boosters.count first"), key);
+  return FALSE;
+}
+
+gboolean
+sw_design_set_booster_crossfeed (SwDesign *design, gboolean crossfeed, GError **error)
+{
+  g_return_val_if_fail (design != NULL, FALSE);
+  if (!check_has_boosters (design, "crossfeed", error))
+    return FALSE;
+  design->boosters.crossfeed = crossfeed != FALSE;
+  return TRUE;
+}
+
+gboolean
+sw_design_set_booster_propellant (SwDesign *design, SwPropellantKind kind, GError **error)
+{
+  g_autoptr (SwDesign) copy = NULL;
+
+  g_return_val_if_fail (design != NULL && kind < SW_N_PROPELLANTS, FALSE);
+  if (!check_has_boosters (design, "propellant", error))
+    return FALSE;
+  if (design->boosters.propellant.kind == kind)
+    return TRUE;
+  copy = sw_design_copy (design);
+  sw_propellant_set_kind (&copy->boosters.propellant, kind);
+  if (!check_whole_design (copy, error))
+    return FALSE;
+  sw_propellant_set_kind (&design->boosters.propellant, kind);
+  return TRUE;
+}
+
 /* ---- texts ------------------------------------------------------------- */
 
 static gboolean
@@ -598,6 +743,18 @@ sw_design_field_set_stage_name (SwDesign *design, guint stage, const char *name,
       || !check_text (path, name, sw_limit_get (SW_LIMIT_NAME_LENGTH)->max, error))
     return FALSE;
   g_strlcpy (design->stages[stage].name, name, sizeof design->stages[stage].name);
+  return TRUE;
+}
+
+gboolean
+sw_design_set_booster_name (SwDesign *design, const char *name, GError **error)
+{
+  g_return_val_if_fail (design != NULL && name != NULL, FALSE);
+  if (!check_has_boosters (design, "name", error)
+      || !check_text ("boosters.name", name, sw_limit_get (SW_LIMIT_NAME_LENGTH)->max, error))
+    return FALSE;
+  memset (design->boosters.name, 0, sizeof design->boosters.name);
+  g_strlcpy (design->boosters.name, name, sizeof design->boosters.name);
   return TRUE;
 }
 

@@ -52,6 +52,19 @@ typedef enum {
   SW_FIELD_ULLAGE,                    /* optional */
   SW_FIELD_OXIDIZER_DENSITY,          /* a propellant of the user's own only */
   SW_FIELD_FUEL_DENSITY,              /* a propellant of the user's own only */
+  /* the "boosters" object (sw-boosters.h); every one but the count needs
+   * boosters (count > 0) */
+  SW_FIELD_BOOSTER_COUNT,             /* whole; 0 to SW_BOOSTERS_MAX */
+  SW_FIELD_BOOSTER_ISP_VAC,
+  SW_FIELD_BOOSTER_ISP_SL,            /* optional */
+  SW_FIELD_BOOSTER_STRUCTURAL_COEFFICIENT,
+  SW_FIELD_BOOSTER_THRUST_VAC,        /* per booster */
+  SW_FIELD_BOOSTER_PROPELLANT_LOAD,   /* optional: a fixed load per booster */
+  SW_FIELD_BOOSTER_DIAMETER,          /* optional */
+  SW_FIELD_BOOSTER_MIXTURE_RATIO,     /* optional */
+  SW_FIELD_BOOSTER_ULLAGE,            /* optional */
+  SW_FIELD_BOOSTER_OXIDIZER_DENSITY,  /* a propellant of the user's own only */
+  SW_FIELD_BOOSTER_FUEL_DENSITY,      /* a propellant of the user's own only */
   SW_N_FIELDS
 } SwDesignField;
 
@@ -104,6 +117,14 @@ gboolean  sw_design_set_fairing_rule (SwDesign *design, gboolean by_pressure, do
  * none.  Refused when the stage's mixture ratio cannot go with it (a solid). */
 gboolean  sw_design_set_propellant (SwDesign *design, guint stage, SwPropellantKind kind,
                                     GError **error);
+
+/* The boosters' keys that are not one number.  Each needs boosters
+ * (boosters.count above 0); setting the count from 0 gives the other keys
+ * starting values (sw_boosters_init_default) when they hold none. */
+gboolean  sw_design_set_booster_name (SwDesign *design, const char *name, GError **error);
+gboolean  sw_design_set_booster_crossfeed (SwDesign *design, gboolean crossfeed, GError **error);
+gboolean  sw_design_set_booster_propellant (SwDesign *design, SwPropellantKind kind,
+                                            GError **error);
 
 /* "mission.loss_model": simulate needs an orbit mission. */
 gboolean  sw_design_set_loss_model (SwDesign *design, SwLossModel model, GError **error);

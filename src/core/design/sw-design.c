@@ -30,7 +30,7 @@ static const char *const stage_keys[] = {
 /* The optional models add their own keys to the design and to each stage. */
 static const char *const *const root_key_lists[] = {
   root_keys, sw_propulsion_design_keys, sw_uncertainty_design_keys, sw_economics_design_keys,
-  NULL
+  sw_boosters_design_keys, NULL
 };
 static const char *const *const stage_key_lists[] = {
   stage_keys, sw_propulsion_stage_keys, sw_reliability_stage_keys, sw_propellant_stage_keys,
@@ -138,6 +138,7 @@ clear_unsaved_values (SwDesign *c)
       if (!c->stages[i].has_share)
         c->stages[i].delta_v_share = 0.0;
     }
+  sw_boosters_clear_unsaved (&c->boosters);
 }
 
 gboolean
@@ -457,7 +458,8 @@ load_design_object (JsonObject *root, const LoadContext *ctx, const char *prefix
     return NULL;
   if (!sw_uncertainty_load_design (root, ctx->file, prefix, &d->uncertainty, ctx->warnings,
                                    error)
-      || !sw_economics_load_design (root, ctx->file, prefix, &d->economics, ctx->warnings, error))
+      || !sw_economics_load_design (root, ctx->file, prefix, &d->economics, ctx->warnings, error)
+      || !sw_boosters_load (root, ctx->file, prefix, &d->boosters, ctx->warnings, error))
     return NULL;
 
   baseline = sw_optional_read_object_full (root, "baseline", ctx->file, prefix, FALSE, &ok, error);
@@ -741,8 +743,28 @@ validate_design (const SwDesign *d, const LoadContext *ctx, const char *prefix, 
 
   if (!sw_uncertainty_validate (&d->uncertainty, ctx->file, prefix, error)
       || !sw_economics_validate (&d->economics, d->n_stages, ctx->file, prefix, error)
-      || !sw_propulsion_validate_design (&d->ascent, ctx->file, error))
+      || !sw_propulsion_validate_design (&d->ascent, ctx->file, error)
+      || !sw_boosters_validate (&d->boosters, ctx->file, prefix, error))
     return FALSE;
+  if (d->boosters.count > 0)
+    {
+      const SwStage *core = &d->stages[0];
+      guint engines = core->reliability.has_engine_count ? core->reliability.engine_count : 0;
+      double thrust = sw_stage_thrust_vac_n (&core->propulsion, engines);
+
+      if (!(isfinite (thrust) && thrust > 0.0))
+        {
+          g_autofree char *path = g_strdup_printf ("%s%sstages[0].thrust_vac_kn", prefix,
+                                                   prefix[0] ? "." : "");
+          sw_optional_set_error (error, SW_ERROR_MISSING, ctx->file,
+                                 _("%s: with boosters the first stage (the core) needs its "
+                                   "thrust (thrust_vac_kn, or engine_thrust_vac_kn with "
+                                   "engine_count): its mass flow sets how much core propellant "
+                                   "burns beside the boosters"),
+                                 path);
+          return FALSE;
+        }
+    }
 
   if (d->baseline != NULL)
     {
@@ -774,9 +796,13 @@ static int
 design_format_version (const SwDesign *d)
 {
   for (; d != NULL; d = d->baseline)
-    for (guint i = 0; i < d->n_stages && i < SW_MAX_STAGES; i++)
-      if (sw_propellant_is_used (&d->stages[i].propellant))
+    {
+      if (sw_boosters_is_used (&d->boosters))
         return 2;
+      for (guint i = 0; i < d->n_stages && i < SW_MAX_STAGES; i++)
+        if (sw_propellant_is_used (&d->stages[i].propellant))
+          return 2;
+    }
   return 1;
 }
 
@@ -849,6 +875,7 @@ build_design (JsonBuilder *b, const SwDesign *d, gboolean is_baseline)
   sw_propulsion_save_design (b, &d->ascent);
   sw_uncertainty_save_design (b, &d->uncertainty);
   sw_economics_save_design (b, &d->economics);
+  sw_boosters_save (b, &d->boosters);
 
   if (d->baseline != NULL && !is_baseline)
     {

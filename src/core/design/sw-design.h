@@ -8,6 +8,7 @@
 
 #include <json-glib/json-glib.h>
 
+#include "sw-boosters.h"
 #include "sw-economics.h"
 #include "sw-propellant.h"
 #include "sw-propulsion.h"
@@ -57,6 +58,7 @@ struct _SwDesign {
   SwDesignAscent ascent;           /* optional design-level ascent keys */
   SwUncertainty uncertainty;       /* optional Monte Carlo spreads */
   SwEconomics economics;           /* optional cost, reuse and decision keys */
+  SwBoosters  boosters;            /* optional strap-on boosters (count 0: none) */
   SwDesign   *baseline;            /* owned, may be NULL: a pinned earlier design */
 };
 

@@ -138,6 +138,8 @@ static const SwLimit limits[SW_N_LIMITS] = {
     "tank volume beyond the propellant's, as a fraction of it; 0.02 to 0.05 is common practice" },
   [SW_LIMIT_COMPONENT_DENSITY] = { "oxidizer_density_kg_m3", "kg/m^3", 10.0, 5000.0, FALSE,
     "density of a propellant component (also fuel_density_kg_m3); liquid hydrogen is about 71, N2O4 about 1441" },
+  [SW_LIMIT_BOOSTER_COUNT] = { "count", "", 0.0, 12.0, FALSE,
+    "whole number of strap-on boosters; 0 is no boosters; more than 12 around one core is not a concept we size" },
 };
 
 const SwLimit *
@@ -168,9 +170,9 @@ static const char *const limit_fields[SW_N_LIMITS] = {
   [SW_LIMIT_INCLINATION] = "`mission.orbit.inclination_deg`",
   [SW_LIMIT_SITE_LATITUDE] = "`mission.orbit.site_latitude_deg`",
   [SW_LIMIT_LOSSES] = "`mission.losses_m_s`",
-  [SW_LIMIT_ISP_VAC] = "`stages[].isp_vac_s`",
-  [SW_LIMIT_ISP_SL] = "`stages[].isp_sl_s`",
-  [SW_LIMIT_STRUCTURAL_COEFFICIENT] = "`stages[].structural_coefficient`",
+  [SW_LIMIT_ISP_VAC] = "`stages[].isp_vac_s`, `boosters.isp_vac_s`",
+  [SW_LIMIT_ISP_SL] = "`stages[].isp_sl_s`, `boosters.isp_sl_s`",
+  [SW_LIMIT_STRUCTURAL_COEFFICIENT] = "`stages[].structural_coefficient`, `boosters.structural_coefficient`",
   [SW_LIMIT_DELTA_V_SHARE] = "`stages[].delta_v_share`",
   [SW_LIMIT_STAGE_COUNT] = "`stages` (entries)",
   [SW_LIMIT_NAME_LENGTH] = "`name`, `stages[].name`",
@@ -189,9 +191,9 @@ static const char *const limit_fields[SW_N_LIMITS] = {
   [SW_LIMIT_LOSSES_SIGMA] = "`uncertainty.losses.sigma_m_s`",
   [SW_LIMIT_LOSSES_HALF_RANGE] = "`uncertainty.losses.half_range_m_s`",
   [SW_LIMIT_SENSITIVITY_STEP] = "`stagewright-cli sensitivity --step` (`step_percent`)",
-  [SW_LIMIT_THRUST_VAC] = "`stages[].thrust_vac_kn`",
+  [SW_LIMIT_THRUST_VAC] = "`stages[].thrust_vac_kn`, `boosters.thrust_vac_kn` (per booster)",
   [SW_LIMIT_ENGINE_THRUST_VAC] = "`stages[].engine_thrust_vac_kn`",
-  [SW_LIMIT_DIAMETER] = "`stages[].diameter_m`",
+  [SW_LIMIT_DIAMETER] = "`stages[].diameter_m`, `boosters.diameter_m`",
   [SW_LIMIT_DRAG_POINTS] = "`stages[].drag_coefficients` (pairs)",
   [SW_LIMIT_DRAG_MACH] = "`stages[].drag_coefficients[][0]` (mach)",
   [SW_LIMIT_DRAG_CD] = "`stages[].drag_coefficients[][1]` (cd)",
@@ -224,10 +226,11 @@ static const char *const limit_fields[SW_N_LIMITS] = {
   [SW_LIMIT_REFURBISHMENT] = "`economics.recovery.refurbishment_fraction`",
   [SW_LIMIT_FLIGHTS_PER_STAGE] = "`economics.recovery.flights_per_stage`",
   [SW_LIMIT_DECISION_WEIGHT] = "`economics.decision_weights` (`liftoff_mass`, `development`, `cost_per_flight`, `failure`)",
-  [SW_LIMIT_PROPELLANT_LOAD] = "`stages[].propellant_kg`",
-  [SW_LIMIT_MIXTURE_RATIO] = "`stages[].mixture_ratio`, `stages[].propellant.mixture_ratio`",
-  [SW_LIMIT_ULLAGE] = "`stages[].ullage_fraction`",
-  [SW_LIMIT_COMPONENT_DENSITY] = "`stages[].propellant.oxidizer_density_kg_m3`, `stages[].propellant.fuel_density_kg_m3`",
+  [SW_LIMIT_PROPELLANT_LOAD] = "`stages[].propellant_kg`, `boosters.propellant_kg` (per booster)",
+  [SW_LIMIT_MIXTURE_RATIO] = "`stages[].mixture_ratio`, `stages[].propellant.mixture_ratio`, `boosters.mixture_ratio`",
+  [SW_LIMIT_ULLAGE] = "`stages[].ullage_fraction`, `boosters.ullage_fraction`",
+  [SW_LIMIT_COMPONENT_DENSITY] = "`stages[].propellant.oxidizer_density_kg_m3`, `stages[].propellant.fuel_density_kg_m3` (and the same under `boosters.propellant`)",
+  [SW_LIMIT_BOOSTER_COUNT] = "`boosters.count`",
 };
 
 /* A bound as the README shows it: up to ten significant digits, thousands

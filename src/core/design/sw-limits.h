@@ -78,6 +78,8 @@ typedef enum {
   SW_LIMIT_MIXTURE_RATIO,
   SW_LIMIT_ULLAGE,
   SW_LIMIT_COMPONENT_DENSITY,
+  /* strap-on boosters (design level, format version 2) */
+  SW_LIMIT_BOOSTER_COUNT,
   SW_N_LIMITS
 } SwLimitId;
 

@@ -5,6 +5,7 @@
 
 #include "sw-phases.h"
 
+#include "sw-booster-sizing.h"
 #include "sw-fixed-vehicle.h"
 
 #include <glib/gi18n-lib.h>
@@ -21,11 +22,36 @@ sw_sizing_phases (const SwDesign *design, const SwSizing *sizing, SwPhase *phase
 
   if (!sizing->feasible)
     return 0;
-  for (guint i = 0; i < sizing->n_stages && i < design->n_stages; i++)
+  if (sizing->boosters.present)
+    {
+      const SwBoosterResult *b = &sizing->boosters;
+      SwPhase *p = &phases[n++];
+
+      memset (p, 0, sizeof *p);
+      p->stage = 0;
+      p->boosters = TRUE;
+      p->delta_v_m_s = b->phase_delta_v_m_s;
+      p->exhaust_velocity_m_s = b->mixed_exhaust_velocity_m_s;
+      p->initial_mass_kg = b->phase_initial_mass_kg;
+      p->final_mass_kg = b->phase_final_mass_kg;
+      p->duration_s = b->phase_duration_s;
+      p = &phases[n++];
+      memset (p, 0, sizeof *p);
+      p->stage = 0;
+      p->delta_v_m_s = b->core_phase_delta_v_m_s;
+      p->exhaust_velocity_m_s = sizing->stages[0].exhaust_velocity_m_s;
+      p->initial_mass_kg = b->core_phase_initial_mass_kg;
+      p->final_mass_kg = sizing->stages[0].burnout_mass_kg;
+      p->duration_s = b->core_phase_duration_s;
+    }
+  for (guint i = sizing->boosters.present ? 1 : 0;
+       i < sizing->n_stages && i < design->n_stages; i++)
     {
       const SwStageResult *r = &sizing->stages[i];
       const SwStage *st = &design->stages[i];
       SwPhase *p = &phases[n++];
+
+      p->boosters = FALSE;
       guint engines = st->reliability.has_engine_count ? st->reliability.engine_count : 0;
       double thrust = sw_stage_thrust_vac_n (&st->propulsion, engines);
 
@@ -39,6 +65,29 @@ sw_sizing_phases (const SwDesign *design, const SwSizing *sizing, SwPhase *phase
                         : NAN;
     }
   return n;
+}
+
+char *
+sw_phase_dup_name (const SwDesign *design, const SwPhase *phase)
+{
+  g_return_val_if_fail (design != NULL && phase != NULL, NULL);
+  g_return_val_if_fail (phase->stage < design->n_stages, NULL);
+
+  if (phase->boosters)
+    /* TRANSLATORS: phase 0 of a vehicle with strap-on boosters: "Boosters + Stage 1". */
+    return g_strdup_printf (_("%s + %s"), design->boosters.name,
+                            design->stages[phase->stage].name);
+  return g_strdup (design->stages[phase->stage].name);
+}
+
+void
+sw_sizing_booster_shape (const SwDesign *design, const SwSizing *sizing, SwStageShape *out)
+{
+  g_return_if_fail (design != NULL && sizing != NULL && out != NULL);
+
+  sw_stage_shape (&design->boosters.propellant,
+                  sizing->boosters.present ? sizing->boosters.propellant_mass_kg : NAN,
+                  design->boosters.has_diameter ? design->boosters.diameter_m : NAN, out);
 }
 
 double
@@ -91,6 +140,35 @@ sw_design_performance (const SwDesign *design, SwPerformance *out, GError **erro
   if (!sw_design_required_delta_v (design, &dv, error))
     return FALSE;
   out->delta_v_m_s = dv;
+
+  /* Boosters: their load must be fixed too; the phases' rocket equation. */
+  if (design->boosters.count > 0)
+    {
+      SwParallelVehicle pv;
+
+      if (!design->boosters.propellant.has_propellant_kg)
+        {
+          g_set_error (error, SW_ERROR, SW_ERROR_VALUE,
+                       _("boosters.propellant_kg: the payload capability needs a vehicle that "
+                         "exists, with a fixed propellant load on the boosters too"));
+          return FALSE;
+        }
+      if (!sw_parallel_vehicle_from_design (&pv, design, error))
+        return FALSE;
+      if (!sw_parallel_payload (&pv, dv, &payload, &out->empty_delta_v_m_s) || !(payload > 0.0))
+        {
+          g_snprintf (out->reason, sizeof out->reason,
+                      _("The vehicle cannot reach the %.0f m/s required even with no payload: "
+                        "empty, it gives %.0f m/s."),
+                      dv, out->empty_delta_v_m_s);
+          sw_size_parallel (&pv, 0.0, dv, design->split, &out->sizing);
+          return TRUE;
+        }
+      out->reachable = TRUE;
+      out->payload_kg = payload;
+      sw_size_parallel (&pv, payload, dv, design->split, &out->sizing);
+      return TRUE;
+    }
 
   memset (&v, 0, sizeof v);
   v.n_stages = design->n_stages;

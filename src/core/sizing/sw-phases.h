@@ -9,8 +9,12 @@
 
 G_BEGIN_DECLS
 
+/* The most phases a vehicle has: one per stage, and phase 0 with boosters. */
+#define SW_MAX_PHASES (SW_MAX_STAGES + 1)
+
 typedef struct {
-  guint  stage;                    /* index of the stage that burns */
+  guint  stage;                    /* index of the stage that burns (0: the core) */
+  gboolean boosters;               /* phase 0: the boosters burn beside the core */
   double delta_v_m_s;
   double exhaust_velocity_m_s;
   double initial_mass_kg;
@@ -18,13 +22,24 @@ typedef struct {
   double duration_s;               /* propellant over vacuum mass flow; NAN without thrust */
 } SwPhase;
 
-/* The phases of @sizing (SW_MAX_STAGES entries); returns their count, 0 when
- * the sizing is infeasible. */
+/* The phases of @sizing (SW_MAX_PHASES entries); returns their count, 0 when
+ * the sizing is infeasible.  With boosters the first is phase 0 (boosters
+ * and core, stage 0, boosters TRUE), then the core's own phase (stage 0),
+ * then the upper stages. */
 guint    sw_sizing_phases (const SwDesign *design, const SwSizing *sizing, SwPhase *phases);
 
 /* The diameter of stage @stage: its own, or the first one given below it
  * (as the ascent model has it); NAN when none is given. */
 double   sw_stage_effective_diameter (const SwDesign *design, guint stage);
+
+/* The phase's name for people: the stage's name, and for phase 0
+ * "BOOSTERS + CORE" (the boosters' and the core's names). */
+char    *sw_phase_dup_name (const SwDesign *design, const SwPhase *phase);
+
+/* The shape of one booster with the propellant of @sizing (its own
+ * diameter_m, NAN when none is given). */
+void     sw_sizing_booster_shape (const SwDesign *design, const SwSizing *sizing,
+                                  SwStageShape *out);
 
 /* The shape of stage @stage with the propellant of @sizing. */
 void     sw_sizing_stage_shape (const SwDesign *design, const SwSizing *sizing, guint stage,

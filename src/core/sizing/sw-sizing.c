@@ -662,7 +662,7 @@ sw_sizing_get_shares (const SwSizing *sizing, double *shares)
 }
 
 gboolean
-sw_size_design (const SwDesign *design, SwSizing *out, GError **error)
+sw_size_design_serial (const SwDesign *design, SwSizing *out, GError **error)
 {
   SwStageSet set;
   double dv;

@@ -27,6 +27,32 @@ struct _SwStageResult {
   gboolean fixed;               /* a fixed propellant load: not sized */
 };
 
+/* The strap-on boosters of a sizing (sw-booster-sizing.h); present FALSE
+ * without boosters.  Masses per booster unless named total. */
+typedef struct {
+  gboolean present;
+  guint    count;
+  gboolean fixed;                  /* a fixed load per booster (not sized) */
+  gboolean crossfeed;
+  double   exhaust_velocity_m_s;   /* the boosters' c = Isp_vac g0 */
+  double   propellant_mass_kg;     /* per booster */
+  double   structural_mass_kg;     /* per booster */
+  double   booster_mass_kg;        /* per booster: propellant + structure */
+  double   total_mass_kg;          /* all boosters */
+  double   thrust_vac_n;           /* per booster */
+  /* phase 0: boosters and core together */
+  double   mixed_exhaust_velocity_m_s;   /* sum F / sum mdot */
+  double   phase_delta_v_m_s;
+  double   phase_initial_mass_kg;  /* liftoff */
+  double   phase_final_mass_kg;    /* at booster burnout, before the boosters drop */
+  double   phase_duration_s;
+  double   core_propellant_in_phase_kg;  /* core propellant burnt in phase 0 (0 with crossfeed) */
+  /* the core's own phase, after the boosters drop */
+  double   core_phase_delta_v_m_s;
+  double   core_phase_initial_mass_kg;
+  double   core_phase_duration_s;
+} SwBoosterResult;
+
 struct _SwSizing {
   gboolean feasible;
   char     reason[SW_REASON_MAX];  /* "" when feasible */
@@ -43,6 +69,10 @@ struct _SwSizing {
   guint    n_fixed;                /* stages with a fixed propellant load */
   guint    n_stages;
   SwStageResult stages[SW_MAX_STAGES];
+  /* With boosters stage 0 is the core: its delta-v is that of phase 0 and
+   * of its own phase together, its initial mass the liftoff mass (boosters
+   * included), its mass ratio liftoff over core burnout. */
+  SwBoosterResult boosters;
 };
 
 /* The stage inputs of one sizing, in firing order. */
@@ -88,8 +118,11 @@ void     sw_size_with_fixed (const SwStageSet *set, const double *fixed_propella
                              SwSizing *out);
 
 /* The design's own sizing (required delta-v from its mission; the stages'
- * propellant_kg as fixed loads). */
+ * propellant_kg as fixed loads; with boosters sw_size_parallel(), see
+ * sw-booster-sizing.h, where this is defined). */
 gboolean sw_size_design (const SwDesign *design, SwSizing *out, GError **error);
+/* The same for the serial stages alone (the boosters ignored). */
+gboolean sw_size_design_serial (const SwDesign *design, SwSizing *out, GError **error);
 
 /* The delta-v share of each stage in @sizing, into @shares (SW_MAX_STAGES
  * values): the split on screen, for sw_design_take_manual_shares ().  A

@@ -43,6 +43,11 @@ sw_sizing_total (const SwSizing *s, SwTotal total)
       for (guint i = 0; i < s->n_stages; i++)
         sum += total == SW_TOTAL_PROPELLANT ? s->stages[i].propellant_mass_kg
                                             : s->stages[i].structural_mass_kg;
+      /* The boosters' too: the totals add up to the liftoff mass. */
+      if (s->boosters.present)
+        sum += s->boosters.count * (total == SW_TOTAL_PROPELLANT
+                                      ? s->boosters.propellant_mass_kg
+                                      : s->boosters.structural_mass_kg);
       return sum;
     case SW_TOTAL_STAGE_COUNT:
       return s->n_stages;

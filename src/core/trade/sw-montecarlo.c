@@ -195,6 +195,13 @@ prepare (const SwDesign *design, const SwUncertainty *spreads, McJob *job, SwSiz
          GError **error)
 {
   memset (job, 0, sizeof *job);
+  if (design->boosters.count > 0)
+    {
+      g_set_error (error, SW_ERROR, SW_ERROR_VALUE,
+                   _("boosters: the Monte Carlo is not run for a design with strap-on boosters "
+                     "yet (its resizing knows serial stages only)."));
+      return FALSE;
+    }
   if (!sw_size_design (design, sizing, error))
     return FALSE;
   sw_stage_set_from_design (&job->set, design);

@@ -137,6 +137,13 @@ sw_sensitivity_compute (const SwDesign *design, double step, SwSensitivityTable 
                    step * 100.0);
       return FALSE;
     }
+  if (design->boosters.count > 0)
+    {
+      g_set_error (error, SW_ERROR, SW_ERROR_VALUE,
+                   _("boosters: the sensitivities are not computed for a design with strap-on "
+                     "boosters yet (their resizing knows serial stages only)."));
+      return FALSE;
+    }
   if (!sw_size_design (design, &sizing, error))
     return FALSE;
   out->step = step;

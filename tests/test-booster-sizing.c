@@ -1,0 +1,419 @@
+/* SPDX-License-Identifier: GPL-3.0-or-later */
+/* Tests of sw-booster-sizing: the phases of a vehicle with strap-on boosters
+ * against a hand calculation from the formulas of the reference notes
+ * (shared/reference-values.md, "Parallel staging": NPTEL "Space
+ * Technology", module 3, lecture 4, and Sutton and Biblarz, multiple
+ * parallel propulsion; the crossfeed rule is the notes' own derivation); the
+ * sized optimum against a brute-force grid; the machinery without boosters
+ * against the exact Lagrange optimum (Curtis, Orbital Mechanics for
+ * Engineering Students, sec. 11.6, as sw_size computes it); zero boosters
+ * against no key. */
+#include "config.h"
+
+#include "sw-booster-sizing.h"
+#include "sw-design.h"
+#include "sw-design-fields.h"
+#include "sw-phases.h"
+#include "sw-sizing.h"
+
+#include <math.h>
+#include <string.h>
+
+static void
+assert_rel (double got, double want, double rel)
+{
+  if (!(fabs (got - want) <= rel * fabs (want)))
+    g_error ("got %.12g, want %.12g within %g relative", got, want, rel);
+}
+
+/* Three stages (core + two upper), orbit-class delta-v, two boosters. */
+static SwDesign *
+booster_design (guint count, gboolean crossfeed)
+{
+  SwDesign *d = sw_design_new ();
+  static const double isp[] = { 300.0, 340.0, 350.0 };
+  static const double eps[] = { 0.08, 0.10, 0.12 };
+
+  g_strlcpy (d->name, "test", sizeof d->name);
+  d->payload_kg = 5000.0;
+  d->mission.kind = SW_MISSION_DELTA_V;
+  d->mission.delta_v_m_s = 9500.0;
+  d->split = SW_SPLIT_OPTIMAL;
+  d->n_stages = 3;
+  for (guint i = 0; i < 3; i++)
+    {
+      sw_stage_init_default (&d->stages[i], i);
+      d->stages[i].isp_vac_s = isp[i];
+      d->stages[i].has_isp_sl = FALSE;
+      d->stages[i].isp_sl_s = 0.0;
+      d->stages[i].structural_coefficient = eps[i];
+    }
+  d->stages[0].propulsion.present = TRUE;
+  d->stages[0].propulsion.has_thrust = TRUE;
+  d->stages[0].propulsion.thrust_vac_kn = 3000.0;
+  d->boosters.count = count;
+  if (count > 0)
+    {
+      sw_boosters_init_default (&d->boosters);
+      d->boosters.isp_vac_s = 275.0;
+      d->boosters.structural_coefficient = 0.11;
+      d->boosters.thrust_vac_kn = 2000.0;
+      d->boosters.crossfeed = crossfeed;
+    }
+  g_assert_true (sw_design_validate (d, NULL, NULL));
+  return d;
+}
+
+/* Every load fixed: the phases against the reference formulas written out
+ * here once more. */
+static void
+check_fixed_hand (gboolean crossfeed)
+{
+  g_autoptr (SwDesign) d = booster_design (2, crossfeed);
+  const double g0 = 9.80665;
+  const double pb = 40000.0, p1 = 150000.0, p2 = 30000.0, p3 = 6000.0;
+  double sb = pb * 0.11 / 0.89, s1 = p1 * 0.08 / 0.92, s2 = p2 * 0.10 / 0.90;
+  double s3 = p3 * 0.12 / 0.88;
+  double cb = 275.0 * g0, c1 = 300.0 * g0, c2 = 340.0 * g0, c3 = 350.0 * g0;
+  double fb = 2.0e6, f1 = 3.0e6;
+  double mdotb = fb / cb, mdot1 = f1 / c1;
+  double c_mix = (f1 + 2 * fb) / (mdot1 + 2 * mdotb);
+  double m_up2 = 5000.0 + p3 + s3;             /* above stage 2 */
+  double m_up = m_up2 + p2 + s2;               /* above the core */
+  double m0 = m_up + p1 + s1 + 2 * (pb + sb);
+  double tb, q, dv0, dv1, dv2, dv3, m1, total;
+  SwSizing sz;
+  SwPhase phases[SW_MAX_PHASES];
+  guint n;
+
+  if (crossfeed)
+    {
+      tb = 2 * pb / (2 * mdotb + mdot1);        /* phase 0 lasts M_b,prop / (mdot_b + mdot_core) */
+      q = 0.0;                                  /* the core starts its own phase full */
+    }
+  else
+    {
+      tb = pb / mdotb;                          /* booster burn time */
+      q = mdot1 * tb;                           /* core propellant burnt in phase 0 */
+    }
+  dv0 = c_mix * log (m0 / (m0 - 2 * pb - q));
+  m1 = m0 - 2 * pb - q - 2 * sb;
+  dv1 = c1 * log (m1 / (m1 - (p1 - q)));
+  dv2 = c2 * log ((m_up) / (m_up - p2));
+  dv3 = c3 * log ((m_up2) / (m_up2 - p3));
+  total = dv0 + dv1 + dv2 + dv3;
+
+  d->boosters.propellant.has_propellant_kg = TRUE;
+  d->boosters.propellant.propellant_kg = pb;
+  d->stages[0].propellant.has_propellant_kg = TRUE;
+  d->stages[0].propellant.propellant_kg = p1;
+  d->stages[1].propellant.has_propellant_kg = TRUE;
+  d->stages[1].propellant.propellant_kg = p2;
+  d->stages[2].propellant.has_propellant_kg = TRUE;
+  d->stages[2].propellant.propellant_kg = p3;
+  /* Just within reach: the required delta-v 10 m/s below what it gives. */
+  d->mission.delta_v_m_s = floor (total) - 10.0;
+  g_assert_true (sw_size_design (d, &sz, NULL));
+  g_assert_true (sz.feasible);
+  assert_rel (sz.liftoff_mass_kg, m0, 1e-12);
+  assert_rel (sz.boosters.mixed_exhaust_velocity_m_s, c_mix, 1e-12);
+  assert_rel (sz.boosters.phase_delta_v_m_s, dv0, 1e-12);
+  assert_rel (sz.boosters.phase_duration_s, tb, 1e-12);
+  assert_rel (sz.boosters.core_phase_delta_v_m_s, dv1, 1e-12);
+  assert_rel (sz.stages[1].delta_v_m_s, dv2, 1e-9);
+  assert_rel (sz.stages[2].delta_v_m_s, dv3, 1e-9);
+  assert_rel (sz.boosters.total_mass_kg, 2 * (pb + sb), 1e-12);
+  n = sw_sizing_phases (d, &sz, phases);
+  g_assert_cmpuint (n, ==, 4);
+  g_assert_true (phases[0].boosters);
+  g_assert_false (phases[1].boosters);
+  assert_rel (phases[0].delta_v_m_s, dv0, 1e-12);
+  assert_rel (phases[0].initial_mass_kg, m0, 1e-12);
+  assert_rel (phases[0].final_mass_kg, m0 - 2 * pb - q, 1e-12);
+  assert_rel (phases[1].initial_mass_kg, m1, 1e-12);
+  assert_rel (phases[1].delta_v_m_s, dv1, 1e-12);
+  assert_rel (phases[1].duration_s, (p1 - q) / mdot1, 1e-12);
+  assert_rel (phases[2].delta_v_m_s, dv2, 1e-9);
+  assert_rel (phases[3].delta_v_m_s, dv3, 1e-9);
+  /* The vehicle does not reach 20 m/s more than it gives: an answer with a reason. */
+  d->mission.delta_v_m_s = ceil (total) + 20.0;
+  g_assert_true (sw_size_design (d, &sz, NULL));
+  g_assert_false (sz.feasible);
+  g_assert_nonnull (strstr (sz.reason, "short of"));
+}
+
+static void
+test_fixed_hand (void)
+{
+  check_fixed_hand (FALSE);
+}
+
+static void
+test_fixed_hand_crossfeed (void)
+{
+  check_fixed_hand (TRUE);
+}
+
+/* The core's load that gives @dv with the other loads: bisection on the
+ * rocket equation of sw_parallel_liftoff_mass (monotone in the core's load
+ * for these vehicles).  NAN when none does. */
+static double
+core_for (const SwParallelVehicle *v, double payload, double pb, double d_up, double dv)
+{
+  double lo = 0.0, hi = 1e8, got;
+
+  /* The smallest core load the boosters allow (it must outlast them). */
+  if (v->count > 0 && !v->crossfeed)
+    lo = v->core_thrust_n / v->set.exhaust_velocity_m_s[0]
+         * (pb * v->booster_exhaust_velocity_m_s / v->booster_thrust_n);
+  if (!isfinite (sw_parallel_liftoff_mass (v, payload, pb, lo, d_up, &got)) || got >= dv)
+    return NAN;
+  if (!isfinite (sw_parallel_liftoff_mass (v, payload, pb, hi, d_up, &got)) || got < dv)
+    return NAN;
+  for (int i = 0; i < 200; i++)
+    {
+      double mid = 0.5 * (lo + hi);
+      sw_parallel_liftoff_mass (v, payload, pb, mid, d_up, &got);
+      if (got < dv)
+        lo = mid;
+      else
+        hi = mid;
+    }
+  return 0.5 * (lo + hi);
+}
+
+/* Sized boosters: the minimiser's liftoff mass against a brute-force grid
+ * over the boosters' load and the upper stages' delta-v (the core from a
+ * bisection): never above the grid's best, and close to it. */
+static void
+check_grid (gboolean crossfeed)
+{
+  g_autoptr (SwDesign) d = booster_design (2, crossfeed);
+  SwParallelVehicle v;
+  SwSizing sz;
+  double best = HUGE_VAL, best_pb = NAN, best_dup = NAN;
+  const guint n = 80;
+
+  g_assert_true (sw_size_design (d, &sz, NULL));
+  g_assert_true (sz.feasible);
+  g_assert_true (sz.boosters.present);
+  g_assert_false (sz.boosters.fixed);
+  g_assert_true (sw_parallel_vehicle_from_design (&v, d, NULL));
+  for (guint i = 1; i <= n; i++)
+    for (guint j = 1; j <= n; j++)
+      {
+        double pb = 40000.0 * i / n;   /* a fixed range, not centred on the answer */
+        double dup = 9500.0 * j / (n + 1);
+        double p1 = core_for (&v, 5000.0, pb, dup, 9500.0);
+        double m = isfinite (p1) ? sw_parallel_liftoff_mass (&v, 5000.0, pb, p1, dup, NULL) : NAN;
+        if (isfinite (m) && m < best)
+          {
+            best = m;
+            best_pb = pb;
+            best_dup = dup;
+          }
+      }
+  g_test_message ("optimum %.3f kg (boosters %.1f kg each), grid %.3f kg at %.1f kg, %.1f m/s",
+                  sz.liftoff_mass_kg, sz.boosters.propellant_mass_kg, best, best_pb, best_dup);
+  g_assert_true (isfinite (best));
+  g_assert_cmpfloat (sz.liftoff_mass_kg, <=, best * (1.0 + 1e-9));
+  g_assert_cmpfloat (sz.liftoff_mass_kg, >=, best * (1.0 - 2e-3));
+  /* The answer's phases add up to the mission's delta-v. */
+  {
+    SwPhase phases[SW_MAX_PHASES];
+    guint np = sw_sizing_phases (d, &sz, phases);
+    double sum = 0.0;
+    g_assert_cmpuint (np, ==, 4);
+    for (guint k = 0; k < np; k++)
+      sum += phases[k].delta_v_m_s;
+    assert_rel (sum, 9500.0, 1e-9);
+  }
+}
+
+static void
+test_grid (void)
+{
+  check_grid (FALSE);
+}
+
+static void
+test_grid_crossfeed (void)
+{
+  check_grid (TRUE);
+}
+
+/* Without boosters the minimiser finds the exact Lagrange optimum. */
+static void
+test_no_boosters_is_lagrange (void)
+{
+  for (guint n_st = 1; n_st <= 4; n_st++)
+    {
+      g_autoptr (SwDesign) d = booster_design (0, FALSE);
+      SwParallelVehicle v;
+      SwSizing exact, mine;
+      SwStageSet set;
+
+      d->n_stages = MIN (n_st, 3);
+      if (n_st == 4)
+        {
+          d->n_stages = 3;
+          d->stages[2].structural_coefficient = 0.2;   /* a stage the optimum gives little */
+        }
+      g_assert_true (sw_parallel_vehicle_from_design (&v, d, NULL));
+      sw_stage_set_from_design (&set, d);
+      sw_size (&set, d->payload_kg, d->n_stages == 1 ? 5000.0 : 9500.0, SW_SPLIT_OPTIMAL,
+               &exact);
+      sw_size_parallel (&v, d->payload_kg, d->n_stages == 1 ? 5000.0 : 9500.0,
+                        SW_SPLIT_OPTIMAL, &mine);
+      g_assert_true (exact.feasible && mine.feasible);
+      g_test_message ("%u stages: Lagrange %.9f kg, minimiser %.9f kg", d->n_stages,
+                      exact.liftoff_mass_kg, mine.liftoff_mass_kg);
+      assert_rel (mine.liftoff_mass_kg, exact.liftoff_mass_kg, 1e-10);
+      for (guint i = 0; i < d->n_stages; i++)
+        {
+          g_assert_cmpfloat (fabs (mine.stages[i].delta_v_m_s - exact.stages[i].delta_v_m_s),
+                             <, 0.05);
+          assert_rel (mine.stages[i].initial_mass_kg, exact.stages[i].initial_mass_kg, 1e-6);
+        }
+      g_assert_false (mine.boosters.present);
+    }
+}
+
+/* Zero boosters is the same design as no key: equal designs, the same
+ * sizing bit for bit, the same saved file. */
+static void
+test_zero_is_no_key (void)
+{
+  g_autoptr (SwDesign) with = booster_design (2, FALSE);
+  g_autoptr (SwDesign) none = booster_design (0, FALSE);
+  g_autoptr (SwDesign) loaded = NULL;
+  g_autofree char *a = NULL, *b = NULL;
+  g_autoptr (GError) error = NULL;
+  SwSizing s1, s2;
+  const char *text =
+    "{\"format\":\"stagewright-design\",\"version\":2,\"name\":\"test\",\"payload_kg\":5000,"
+    "\"mission\":{\"delta_v_m_s\":9500},\"split\":\"optimal\",\"stages\":["
+    "{\"name\":\"Stage 1\",\"isp_vac_s\":300,\"structural_coefficient\":0.08,"
+    "\"thrust_vac_kn\":3000},"
+    "{\"name\":\"Stage 2\",\"isp_vac_s\":340,\"structural_coefficient\":0.1},"
+    "{\"name\":\"Stage 3\",\"isp_vac_s\":350,\"structural_coefficient\":0.12}],"
+    "\"boosters\":{\"count\":0,\"isp_vac_s\":275,\"structural_coefficient\":0.11,"
+    "\"thrust_vac_kn\":2000}}";
+
+  with->boosters.count = 0;
+  g_assert_true (sw_design_equal (with, none));
+  g_assert_true (sw_size_design (with, &s1, NULL));
+  g_assert_true (sw_size_design (none, &s2, NULL));
+  g_assert_true (memcmp (&s1, &s2, sizeof s1) == 0);
+  a = sw_design_to_data (with, NULL);
+  b = sw_design_to_data (none, NULL);
+  g_assert_cmpstr (a, ==, b);
+  g_assert_null (strstr (a, "boosters"));
+
+  loaded = sw_design_load_data (text, -1, "zero.stagewright", NULL, &error);
+  g_assert_no_error (error);
+  g_assert_true (sw_design_equal (loaded, none));
+  g_assert_true (sw_size_design (loaded, &s1, NULL));
+  g_assert_true (memcmp (&s1, &s2, sizeof s1) == 0);
+}
+
+/* Boosters lighten the vehicle here (they give phase 0 for the price of
+ * their structure), and a load saved comes back. */
+static void
+test_round_trip_and_effect (void)
+{
+  g_autoptr (SwDesign) d = booster_design (4, FALSE);
+  g_autoptr (SwDesign) none = booster_design (0, FALSE);
+  g_autoptr (SwDesign) back = NULL;
+  g_autofree char *data = sw_design_to_data (d, NULL);
+  g_autoptr (GError) error = NULL;
+  SwSizing with, without;
+
+  back = sw_design_load_data (data, -1, "mem", NULL, &error);
+  g_assert_no_error (error);
+  g_assert_true (sw_design_equal (back, d));
+  g_assert_nonnull (strstr (data, "\"version\" : 2"));
+  g_assert_true (sw_size_design (d, &with, NULL));
+  g_assert_true (sw_size_design (none, &without, NULL));
+  g_assert_true (with.feasible && without.feasible);
+  g_test_message ("4 boosters: %.0f kg; none: %.0f kg", with.liftoff_mass_kg,
+                  without.liftoff_mass_kg);
+  g_assert_cmpuint (with.boosters.count, ==, 4);
+  assert_rel (with.boosters.total_mass_kg, 4 * with.boosters.booster_mass_kg, 1e-12);
+  /* The liftoff mass is the stack plus the boosters. */
+  assert_rel (with.liftoff_mass_kg,
+              with.stages[0].payload_mass_kg + with.stages[0].stage_mass_kg
+              + with.boosters.total_mass_kg, 1e-12);
+}
+
+/* Fixed boosters that alone give more than the mission needs: an answer
+ * with a reason, not a crash or a NaN without one. */
+static void
+test_too_much (void)
+{
+  g_autoptr (SwDesign) d = booster_design (2, FALSE);
+  SwSizing sz;
+
+  d->boosters.propellant.has_propellant_kg = TRUE;
+  d->boosters.propellant.propellant_kg = 5.0e6;
+  d->mission.delta_v_m_s = 1500.0;
+  g_assert_true (sw_size_design (d, &sz, NULL));
+  g_assert_false (sz.feasible);
+  g_assert_cmpuint (strlen (sz.reason), >, 0);
+}
+
+/* Payload capability of a vehicle with every load fixed, boosters
+ * included: against a bisection on the sizing's feasibility. */
+static void
+test_performance (void)
+{
+  g_autoptr (SwDesign) d = booster_design (2, FALSE);
+  SwPerformance perf;
+  double lo = 0.0, hi = 50000.0;
+
+  d->boosters.propellant.has_propellant_kg = TRUE;
+  d->boosters.propellant.propellant_kg = 40000.0;
+  d->stages[0].propellant.has_propellant_kg = TRUE;
+  d->stages[0].propellant.propellant_kg = 150000.0;
+  d->stages[1].propellant.has_propellant_kg = TRUE;
+  d->stages[1].propellant.propellant_kg = 30000.0;
+  d->stages[2].propellant.has_propellant_kg = TRUE;
+  d->stages[2].propellant.propellant_kg = 6000.0;
+  d->mission.delta_v_m_s = 9000.0;
+  g_assert_true (sw_design_performance (d, &perf, NULL));
+  g_assert_true (perf.reachable);
+  for (int i = 0; i < 100; i++)
+    {
+      SwSizing sz;
+      double mid = 0.5 * (lo + hi);
+      d->payload_kg = mid;
+      g_assert_true (sw_size_design (d, &sz, NULL));
+      if (sz.feasible)
+        lo = mid;
+      else
+        hi = mid;
+    }
+  g_test_message ("payload %.6f kg, bisection %.6f kg", perf.payload_kg, lo);
+  g_assert_cmpfloat (fabs (perf.payload_kg - lo), <, 1e-6 * lo);
+  g_assert_true (perf.sizing.feasible);
+  g_assert_true (perf.sizing.boosters.present);
+  /* Sized boosters: not a vehicle that exists. */
+  d->boosters.propellant.has_propellant_kg = FALSE;
+  g_assert_false (sw_design_performance (d, &perf, NULL));
+}
+
+int
+main (int argc, char **argv)
+{
+  g_test_init (&argc, &argv, NULL);
+  g_test_add_func ("/core/booster-sizing/fixed-hand", test_fixed_hand);
+  g_test_add_func ("/core/booster-sizing/fixed-hand-crossfeed", test_fixed_hand_crossfeed);
+  g_test_add_func ("/core/booster-sizing/grid", test_grid);
+  g_test_add_func ("/core/booster-sizing/grid-crossfeed", test_grid_crossfeed);
+  g_test_add_func ("/core/booster-sizing/no-boosters-is-lagrange", test_no_boosters_is_lagrange);
+  g_test_add_func ("/core/booster-sizing/zero-is-no-key", test_zero_is_no_key);
+  g_test_add_func ("/core/booster-sizing/round-trip", test_round_trip_and_effect);
+  g_test_add_func ("/core/booster-sizing/too-much", test_too_much);
+  g_test_add_func ("/core/booster-sizing/performance", test_performance);
+  return g_test_run ();
+}
