@@ -370,60 +370,63 @@ test_no_data (void)
 }
 
 /* The first cairo drawing in @node's tree (borrowed), NULL if none. */
-static GskRenderNode *
-first_cairo_node (GskRenderNode *node)
+static void
+collect_cairo_nodes (GskRenderNode *node, GPtrArray *out)
 {
   if (node == NULL)
-    return NULL;
+    return;
   switch (gsk_render_node_get_node_type (node))
     {
     case GSK_CAIRO_NODE:
-      return node;
+      g_ptr_array_add (out, gsk_render_node_ref (node));
+      break;
     case GSK_CONTAINER_NODE:
       for (guint i = 0; i < gsk_container_node_get_n_children (node); i++)
-        {
-          GskRenderNode *found = first_cairo_node (gsk_container_node_get_child (node, i));
-          if (found != NULL)
-            return found;
-        }
-      return NULL;
+        collect_cairo_nodes (gsk_container_node_get_child (node, i), out);
+      break;
     case GSK_TRANSFORM_NODE:
-      return first_cairo_node (gsk_transform_node_get_child (node));
+      collect_cairo_nodes (gsk_transform_node_get_child (node), out);
+      break;
     case GSK_CLIP_NODE:
-      return first_cairo_node (gsk_clip_node_get_child (node));
+      collect_cairo_nodes (gsk_clip_node_get_child (node), out);
+      break;
     case GSK_ROUNDED_CLIP_NODE:
-      return first_cairo_node (gsk_rounded_clip_node_get_child (node));
+      collect_cairo_nodes (gsk_rounded_clip_node_get_child (node), out);
+      break;
     case GSK_OPACITY_NODE:
-      return first_cairo_node (gsk_opacity_node_get_child (node));
+      collect_cairo_nodes (gsk_opacity_node_get_child (node), out);
+      break;
     case GSK_DEBUG_NODE:
-      return first_cairo_node (gsk_debug_node_get_child (node));
+      collect_cairo_nodes (gsk_debug_node_get_child (node), out);
+      break;
     default:
-      return NULL;
+      break;
     }
 }
 
-/* The plot's current drawing as the renderer gets it (a new reference). */
-static GskRenderNode *
+/* The plot's current drawing as the renderer gets it: its layers' cairo
+ * nodes in order (frame, data, notes), new references. */
+static GPtrArray *
 plot_drawing (GtkWidget *plot)
 {
   GdkPaintable *paintable = gtk_widget_paintable_new (plot);
   GtkSnapshot *snapshot = gtk_snapshot_new ();
-  GskRenderNode *node, *found;
+  GPtrArray *layers = g_ptr_array_new_with_free_func ((GDestroyNotify) gsk_render_node_unref);
+  GskRenderNode *node;
 
   gdk_paintable_snapshot (paintable, snapshot, WIDTH, HEIGHT);
   node = gtk_snapshot_free_to_node (snapshot);
-  found = first_cairo_node (node);
-  if (found != NULL)
-    gsk_render_node_ref (found);
+  collect_cairo_nodes (node, layers);
   if (node != NULL)
     gsk_render_node_unref (node);
   g_object_unref (paintable);
-  return found;
+  return layers;
 }
 
 /* The same data given again (as every phase of an edit does) is not drawn
  * again: the renderer gets the very same drawing, so it rasterises nothing;
- * a change of one value, of the highlight or of the size draws anew. */
+ * a change of one value or of the highlight draws the data anew, and only
+ * the data when the axes stay: the frame (title, legend, axes) is kept. */
 static void
 test_drawing_kept (void)
 {
@@ -432,38 +435,50 @@ test_drawing_kept (void)
   static const double y2[] = { 5.0, 7.5, 6.0 };
   GtkWidget *plot = sw_plot_new ();
   GtkWidget *window;
-  GskRenderNode *first, *again, *changed, *highlighted;
+  g_autoptr (GPtrArray) first = NULL, again = NULL, changed = NULL, highlighted = NULL;
 
   sw_plot_set_x_axis (SW_PLOT (plot), "x", FALSE);
   sw_plot_set_y_axis (SW_PLOT (plot), "y", FALSE);
+  sw_plot_set_y_range (SW_PLOT (plot), 4.0, 8.0);
   sw_plot_add_series (SW_PLOT (plot), "s", x, y, 3, SW_PLOT_LINE, 0);
   window = show_plot (plot);
   first = plot_drawing (plot);
-  g_assert_nonnull (first);
+  /* Frame and data; no notes without markers or limit lines. */
+  g_assert_cmpuint (first->len, ==, 2);
 
   sw_plot_clear (SW_PLOT (plot));
+  sw_plot_set_y_range (SW_PLOT (plot), 4.0, 8.0);
   sw_plot_add_series (SW_PLOT (plot), "s", x, y, 3, SW_PLOT_LINE, 0);
   widget_render_settle ();
   again = plot_drawing (plot);
-  g_assert_true (again == first);
+  g_assert_cmpuint (again->len, ==, first->len);
+  for (guint i = 0; i < first->len; i++)
+    g_assert_true (again->pdata[i] == first->pdata[i]);
 
   sw_plot_clear (SW_PLOT (plot));
+  sw_plot_set_y_range (SW_PLOT (plot), 4.0, 8.0);
   sw_plot_add_series (SW_PLOT (plot), "s", x, y2, 3, SW_PLOT_LINE, 0);
   widget_render_settle ();
   changed = plot_drawing (plot);
-  g_assert_nonnull (changed);
-  g_assert_true (changed != first);
+  g_assert_cmpuint (changed->len, ==, 2);
+  g_assert_true (changed->pdata[0] == first->pdata[0]);
+  g_assert_true (changed->pdata[1] != first->pdata[1]);
 
   sw_plot_set_series_highlighted (SW_PLOT (plot), 0, TRUE);
   widget_render_settle ();
   highlighted = plot_drawing (plot);
-  g_assert_nonnull (highlighted);
-  g_assert_true (highlighted != changed);
+  g_assert_cmpuint (highlighted->len, ==, 2);
+  g_assert_true (highlighted->pdata[0] == changed->pdata[0]);
+  g_assert_true (highlighted->pdata[1] != changed->pdata[1]);
 
-  gsk_render_node_unref (first);
-  gsk_render_node_unref (again);
-  gsk_render_node_unref (changed);
-  gsk_render_node_unref (highlighted);
+  /* A new axis range draws the frame anew. */
+  sw_plot_set_y_range (SW_PLOT (plot), 0.0, 10.0);
+  widget_render_settle ();
+  g_clear_pointer (&again, g_ptr_array_unref);
+  again = plot_drawing (plot);
+  g_assert_cmpuint (again->len, ==, 2);
+  g_assert_true (again->pdata[0] != highlighted->pdata[0]);
+
   gtk_window_destroy (GTK_WINDOW (window));
 }
 

@@ -8,6 +8,7 @@
 
 #include "gui-test-env.h"
 #include "sw-totals.h"
+#include "widget-render.h"
 
 #include <math.h>
 #include <string.h>
@@ -185,6 +186,83 @@ test_format_delta (void)
   g_free (s);
 }
 
+static GtkLabel *
+find_label (GtkWidget *w, const char *text)
+{
+  if (GTK_IS_LABEL (w) && g_strcmp0 (gtk_label_get_text (GTK_LABEL (w)), text) == 0)
+    return GTK_LABEL (w);
+  for (GtkWidget *c = gtk_widget_get_first_child (w); c != NULL; c = gtk_widget_get_next_sibling (c))
+    {
+      GtkLabel *found = find_label (c, text);
+      if (found != NULL)
+        return found;
+    }
+  return NULL;
+}
+
+/* At every edit the verdict goes from "checking the ascent" (one line) to
+ * "short of the orbit" (two lines) when the ascent arrives.  The totals
+ * keep their height, so the notebook under them does not move, which would
+ * lay out and repaint the plots at every phase of every edit.  Tried at
+ * widths where the two texts take one and two lines. */
+static void
+test_steady_height (void)
+{
+  static const int widths[] = { 1100, 1000, 900, 800, 700, 640, 600 };
+  g_autoptr (SwDesign) d = demo ("medium-cargo.stagewright");
+  g_autoptr (SwAnalysis) pending = NULL, flown = NULL;
+  SwAnalysisOptions o;
+  guint tried = 0;
+
+  sw_analysis_options_init (&o);
+  o.montecarlo = FALSE;
+  o.band = FALSE;
+  o.ascent = TRUE;
+  pending = sw_analysis_new (d, 1, &o, NULL);
+  g_assert_nonnull (pending);
+  g_assert_true (pending->ascent_pending);
+  flown = sw_analysis_add_ascent (pending, NULL);
+  g_assert_nonnull (flown);
+
+  for (guint i = 0; i < G_N_ELEMENTS (widths); i++)
+    {
+      GtkWidget *t = sw_totals_new ();
+      GtkWidget *box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 0);
+      GtkWidget *window;
+      GtkLabel *label;
+      int lines_p, lines_f, h_p, h_f, label_p, label_f;
+
+      gtk_widget_set_valign (t, GTK_ALIGN_START);
+      gtk_box_append (GTK_BOX (box), t);
+      sw_totals_set_result (SW_TOTALS (t), pending);
+      window = widget_render_show (box, widths[i], 400);
+      widget_render_settle ();
+      label = find_label (t, sw_totals_get_text (SW_TOTALS (t), SW_TOTALS_STATUS));
+      g_assert_nonnull (label);
+      lines_p = pango_layout_get_line_count (gtk_label_get_layout (label));
+      h_p = gtk_widget_get_height (t);
+      label_p = gtk_widget_get_height (GTK_WIDGET (label));
+
+      sw_totals_set_result (SW_TOTALS (t), flown);
+      widget_render_settle ();
+      g_assert_true (label == find_label (t, sw_totals_get_text (SW_TOTALS (t), SW_TOTALS_STATUS)));
+      lines_f = pango_layout_get_line_count (gtk_label_get_layout (label));
+      h_f = gtk_widget_get_height (t);
+      label_f = gtk_widget_get_height (GTK_WIDGET (label));
+      g_test_message ("width %d: %d line(s) %d px, then %d line(s) %d px; totals %d then %d px",
+                      widths[i], lines_p, label_p, lines_f, label_f, h_p, h_f);
+      if (lines_p == 1 && lines_f == 2)
+        {
+          tried++;
+          g_assert_cmpint (label_p, ==, label_f);
+          g_assert_cmpint (h_p, ==, h_f);
+        }
+      gtk_window_destroy (GTK_WINDOW (window));
+    }
+  if (tried == 0)
+    g_test_skip ("no width gave one line, then two");
+}
+
 int
 main (int argc, char **argv)
 {
@@ -198,6 +276,7 @@ main (int argc, char **argv)
   g_test_add_func ("/totals/capability", test_capability);
   g_test_add_func ("/totals/infeasible", test_infeasible);
   g_test_add_func ("/totals/format-delta", test_format_delta);
+  g_test_add_func ("/totals/steady-height", test_steady_height);
   status = g_test_run ();
   sw_gui_test_env_finish (g_steal_pointer (&tmp));
   return status;

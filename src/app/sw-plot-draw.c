@@ -30,6 +30,276 @@ sw_plot_set_source (cairo_t *cr, const GdkRGBA *c, double alpha)
   cairo_set_source_rgba (cr, c->red, c->green, c->blue, c->alpha * alpha);
 }
 
+
+/* ---- Layers ---------------------------------------------------------------
+ * The drawing is made of three layers: the frame (title, legend, grid, axes,
+ * ticks and their labels), the data (bands, bars, series) and the notes on
+ * top (limit lines, markers and their labels).  Each layer is recorded with
+ * a hash of every operation it draws (the path in cairo's own fixed-point
+ * units of 1/256 px, the paint, the text and where it goes); a layer that
+ * comes out the same as last time keeps its old render node, so the
+ * renderer, which compares nodes, repaints nothing there.  A changed data or
+ * notes layer is clipped to the box its ink covers, so the repaint is
+ * limited to that box: a marker that moves repaints around the marker, not
+ * the whole plot. */
+
+typedef struct {
+  guint64         hash;
+  gboolean        want_ink;  /* whether to track the ink's box */
+  gboolean        have_ink;
+  graphene_rect_t ink;       /* in the layer's coordinates */
+} LayerState;
+
+static cairo_user_data_key_t layer_state_key;
+
+static LayerState *
+layer_state (cairo_t *cr)
+{
+  return cairo_get_user_data (cr, &layer_state_key);
+}
+
+static gint64
+fixed_coord (double v)
+{
+  /* cairo's conversion to 24.8 fixed point rounds to nearest-even, as
+   * nearbyint does in the default rounding mode. */
+  return isfinite (v) ? (gint64) nearbyint (CLAMP (v, -1e9, 1e9) * 256.0) : G_MININT64;
+}
+
+static void
+layer_hash_double (LayerState *st, double v)
+{
+  st->hash = sw_plot_key_bytes (st->hash, &v, sizeof v);
+}
+
+static void
+layer_add_ink (LayerState *st, cairo_t *cr, double x0, double y0, double x1, double y1)
+{
+  double xs[4] = { x0, x1, x1, x0 }, ys[4] = { y0, y0, y1, y1 };
+  double lo_x = INFINITY, lo_y = INFINITY, hi_x = -INFINITY, hi_y = -INFINITY;
+  graphene_rect_t r;
+
+  if (!(x1 > x0) || !(y1 > y0))
+    return;
+  for (int i = 0; i < 4; i++)
+    {
+      cairo_user_to_device (cr, &xs[i], &ys[i]);
+      lo_x = MIN (lo_x, xs[i]);
+      lo_y = MIN (lo_y, ys[i]);
+      hi_x = MAX (hi_x, xs[i]);
+      hi_y = MAX (hi_y, ys[i]);
+    }
+  r = GRAPHENE_RECT_INIT (lo_x, lo_y, hi_x - lo_x, hi_y - lo_y);
+  if (st->have_ink)
+    graphene_rect_union (&st->ink, &r, &st->ink);
+  else
+    st->ink = r;
+  st->have_ink = TRUE;
+}
+
+/* The paint of the next operation: source colour, operator, line style. */
+static void
+layer_hash_paint (LayerState *st, cairo_t *cr, int op)
+{
+  double r, g, b, a, dash[16], offset;
+  int n_dash = cairo_get_dash_count (cr);
+  cairo_matrix_t m;
+
+  st->hash = sw_plot_key_int (st->hash, op);
+  if (cairo_pattern_get_rgba (cairo_get_source (cr), &r, &g, &b, &a) == CAIRO_STATUS_SUCCESS)
+    {
+      layer_hash_double (st, r);
+      layer_hash_double (st, g);
+      layer_hash_double (st, b);
+      layer_hash_double (st, a);
+    }
+  else
+    st->hash = sw_plot_key_int (st->hash, -1);
+  st->hash = sw_plot_key_int (st->hash, cairo_get_operator (cr));
+  layer_hash_double (st, cairo_get_line_width (cr));
+  st->hash = sw_plot_key_int (st->hash, cairo_get_line_join (cr));
+  st->hash = sw_plot_key_int (st->hash, cairo_get_line_cap (cr));
+  st->hash = sw_plot_key_int (st->hash, cairo_get_fill_rule (cr));
+  st->hash = sw_plot_key_int (st->hash, n_dash);
+  if (n_dash > 0 && n_dash <= (int) G_N_ELEMENTS (dash))
+    {
+      cairo_get_dash (cr, dash, &offset);
+      st->hash = sw_plot_key_bytes (st->hash, dash, sizeof (double) * n_dash);
+      layer_hash_double (st, offset);
+    }
+  cairo_get_matrix (cr, &m);
+  st->hash = sw_plot_key_bytes (st->hash, &m, sizeof m);
+}
+
+static void
+layer_hash_path (LayerState *st, cairo_t *cr)
+{
+  cairo_path_t *path = cairo_copy_path (cr);
+
+  for (int i = 0; i < path->num_data; i += path->data[i].header.length)
+    {
+      st->hash = sw_plot_key_int (st->hash, path->data[i].header.type);
+      for (int j = 1; j < path->data[i].header.length; j++)
+        {
+          st->hash = sw_plot_key_int (st->hash, fixed_coord (path->data[i + j].point.x));
+          st->hash = sw_plot_key_int (st->hash, fixed_coord (path->data[i + j].point.y));
+        }
+    }
+  cairo_path_destroy (path);
+}
+
+static void
+layer_stroke_op (cairo_t *cr, gboolean preserve)
+{
+  LayerState *st = layer_state (cr);
+
+  if (st != NULL)
+    {
+      layer_hash_paint (st, cr, 1);
+      layer_hash_path (st, cr);
+      if (st->want_ink)
+        {
+          /* The path's box and a line width all round: more than joins
+           * and caps of these marks reach (cheaper than the exact
+           * cairo_stroke_extents). */
+          double x0, y0, x1, y1, lw = cairo_get_line_width (cr) + 1.0;
+          cairo_path_extents (cr, &x0, &y0, &x1, &y1);
+          layer_add_ink (st, cr, x0 - lw, y0 - lw, x1 + lw, y1 + lw);
+        }
+    }
+  if (preserve)
+    cairo_stroke_preserve (cr);
+  else
+    cairo_stroke (cr);
+}
+
+static void
+layer_fill_op (cairo_t *cr, gboolean preserve)
+{
+  LayerState *st = layer_state (cr);
+
+  if (st != NULL)
+    {
+      layer_hash_paint (st, cr, 2);
+      layer_hash_path (st, cr);
+      if (st->want_ink)
+        {
+          double x0, y0, x1, y1;
+          cairo_path_extents (cr, &x0, &y0, &x1, &y1);
+          layer_add_ink (st, cr, x0 - 1.0, y0 - 1.0, x1 + 1.0, y1 + 1.0);
+        }
+    }
+  if (preserve)
+    cairo_fill_preserve (cr);
+  else
+    cairo_fill (cr);
+}
+
+#define layer_stroke(cr) layer_stroke_op ((cr), FALSE)
+#define layer_fill(cr) layer_fill_op ((cr), FALSE)
+#define layer_fill_preserve(cr) layer_fill_op ((cr), TRUE)
+
+/* pango_cairo_show_layout at the current point, hashed: the text, its
+ * attributes and wrapping, where it goes and in which colour. */
+static void
+layer_show_layout (cairo_t *cr, PangoLayout *layout)
+{
+  LayerState *st = layer_state (cr);
+
+  if (st != NULL)
+    {
+      PangoAttrList *attrs = pango_layout_get_attributes (layout);
+      g_autofree char *attr_text = attrs != NULL ? pango_attr_list_to_string (attrs) : NULL;
+      double x = 0.0, y = 0.0;
+
+      layer_hash_paint (st, cr, 3);
+      if (cairo_has_current_point (cr))
+        cairo_get_current_point (cr, &x, &y);
+      st->hash = sw_plot_key_int (st->hash, fixed_coord (x));
+      st->hash = sw_plot_key_int (st->hash, fixed_coord (y));
+      st->hash = sw_plot_key_str (st->hash, pango_layout_get_text (layout));
+      st->hash = sw_plot_key_str (st->hash, attr_text);
+      st->hash = sw_plot_key_int (st->hash, pango_layout_get_width (layout));
+      st->hash = sw_plot_key_int (st->hash, pango_layout_get_height (layout));
+      st->hash = sw_plot_key_int (st->hash, pango_layout_get_wrap (layout));
+      st->hash = sw_plot_key_int (st->hash, pango_layout_get_ellipsize (layout));
+      st->hash = sw_plot_key_int (st->hash, pango_layout_get_alignment (layout));
+      if (st->want_ink)
+        {
+          PangoRectangle ink, logical;
+          pango_layout_get_pixel_extents (layout, &ink, &logical);
+          layer_add_ink (st, cr, x + MIN (ink.x, logical.x), y + MIN (ink.y, logical.y),
+                         x + MAX (ink.x + ink.width, logical.x + logical.width),
+                         y + MAX (ink.y + ink.height, logical.y + logical.height));
+        }
+    }
+  pango_cairo_show_layout (cr, layout);
+}
+
+typedef void (*LayerDrawFunc) (SwPlot *self, cairo_t *cr, const Colors *c, int width, int height);
+
+/* Records layer @which with @draw; keeps the old node if the new one hashes
+ * the same.  With @clip_to_ink the node is clipped to the box its ink
+ * covers (rounded out, one pixel more for antialiasing), which the
+ * renderer then repaints alone when the layer changes. */
+static void
+update_layer (SwPlot *self, guint which, LayerDrawFunc draw, const Colors *c, int width,
+              int height, gboolean clip_to_ink)
+{
+  graphene_rect_t all = GRAPHENE_RECT_INIT (0, 0, width, height);
+  LayerState st = { G_GUINT64_CONSTANT (14695981039346656037), clip_to_ink, FALSE,
+                    { { 0, 0 }, { 0, 0 } } };
+  GskRenderNode *node = gsk_cairo_node_new (&all);
+  cairo_t *cr = gsk_cairo_node_get_draw_context (node);
+
+  st.hash = sw_plot_key_int (st.hash, width);
+  st.hash = sw_plot_key_int (st.hash, height);
+  st.hash = sw_plot_key_int (st.hash, gtk_widget_get_scale_factor (GTK_WIDGET (self)));
+  cairo_set_user_data (cr, &layer_state_key, &st, NULL);
+  draw (self, cr, c, width, height);
+  cairo_set_user_data (cr, &layer_state_key, NULL, NULL);
+  cairo_destroy (cr);
+
+  if (self->layers[which] != NULL && self->layer_keys[which] == st.hash)
+    {
+      gsk_render_node_unref (node);
+      return;
+    }
+  g_clear_pointer (&self->layers[which], gsk_render_node_unref);
+  self->layer_keys[which] = st.hash;
+  if (clip_to_ink && !st.have_ink)
+    {
+      /* Nothing drawn. */
+      gsk_render_node_unref (node);
+      return;
+    }
+  if (clip_to_ink)
+    {
+      graphene_rect_t box;
+      double x0 = floor (st.ink.origin.x) - 1.0, y0 = floor (st.ink.origin.y) - 1.0;
+      double x1 = ceil (st.ink.origin.x + st.ink.size.width) + 1.0;
+      double y1 = ceil (st.ink.origin.y + st.ink.size.height) + 1.0;
+
+      box = GRAPHENE_RECT_INIT (x0, y0, x1 - x0, y1 - y0);
+      if (!graphene_rect_intersection (&box, &all, &box))
+        {
+          gsk_render_node_unref (node);
+          return;
+        }
+      self->layers[which] = gsk_clip_node_new (node, &box);
+      gsk_render_node_unref (node);
+    }
+  else
+    self->layers[which] = node;
+}
+
+void
+sw_plot_clear_layers (SwPlot *self)
+{
+  for (guint i = 0; i < G_N_ELEMENTS (self->layers); i++)
+    g_clear_pointer (&self->layers[i], gsk_render_node_unref);
+}
+
 /* Drawing helpers */
 
 static void
@@ -127,12 +397,87 @@ sw_plot_map_point (SwPlot *self, double x, double y, double *px, double *py)
   return isfinite (*px) && isfinite (*py);
 }
 
+/* A polyline's points closer than this to the straight line through their
+ * neighbours are left out: a fraction of a pixel, invisible, but a curve of
+ * hundreds of points then strokes as a few dozen segments. */
+#define SIMPLIFY_TOLERANCE_PX 0.05
+
+typedef struct {
+  GArray *pts;    /* graphene_point_t of the current sub-path */
+} SubPath;
+
+/* Ramer-Douglas-Peucker: marks in @keep the points of @p[a..b] to keep. */
+static void
+simplify (const graphene_point_t *p, guint a, guint b, double tol, gboolean *keep)
+{
+  double dx, dy, len, worst = -1.0;
+  guint at = a;
+
+  if (b <= a + 1)
+    return;
+  dx = p[b].x - p[a].x;
+  dy = p[b].y - p[a].y;
+  len = hypot (dx, dy);
+  for (guint i = a + 1; i < b; i++)
+    {
+      double d = len > 0.0 ? fabs (dy * (p[i].x - p[a].x) - dx * (p[i].y - p[a].y)) / len
+                           : hypot (p[i].x - p[a].x, p[i].y - p[a].y);
+      if (d > worst)
+        {
+          worst = d;
+          at = i;
+        }
+    }
+  if (worst <= tol)
+    return;
+  keep[at] = TRUE;
+  simplify (p, a, at, tol, keep);
+  simplify (p, at, b, tol, keep);
+}
+
+static void
+subpath_flush (cairo_t *cr, SubPath *sp)
+{
+  graphene_point_t *p = (graphene_point_t *) (void *) sp->pts->data;
+  guint n = sp->pts->len;
+  g_autofree gboolean *keep = NULL;
+
+  if (n == 0)
+    return;
+  keep = g_new0 (gboolean, n);
+  keep[0] = keep[n - 1] = TRUE;
+  simplify (p, 0, n - 1, SIMPLIFY_TOLERANCE_PX, keep);
+  cairo_move_to (cr, p[0].x, p[0].y);
+  for (guint i = 1; i < n; i++)
+    if (keep[i])
+      cairo_line_to (cr, p[i].x, p[i].y);
+  g_array_set_size (sp->pts, 0);
+}
+
+static void
+subpath_move_to (cairo_t *cr, SubPath *sp, double x, double y)
+{
+  graphene_point_t q = GRAPHENE_POINT_INIT (x, y);
+
+  subpath_flush (cr, sp);
+  g_array_append_val (sp->pts, q);
+}
+
+static void
+subpath_line_to (SubPath *sp, double x, double y)
+{
+  graphene_point_t q = GRAPHENE_POINT_INIT (x, y);
+
+  g_array_append_val (sp->pts, q);
+}
+
 static void
 draw_polyline (SwPlot *self, cairo_t *cr, const double *x, const double *y, guint n)
 {
   graphene_rect_t clip = self->area;
   gboolean have_prev = FALSE, pen_at_prev = FALSE;
   double px = 0, py = 0;
+  SubPath sp = { g_array_sized_new (FALSE, FALSE, sizeof (graphene_point_t), n) };
 
   graphene_rect_inset (&clip, -3.0, -3.0);
   for (guint k = 0; k < n; k++)
@@ -149,8 +494,8 @@ draw_polyline (SwPlot *self, cairo_t *cr, const double *x, const double *y, guin
           if (clip_segment (&clip, &ax, &ay, &bx, &by))
             {
               if (!pen_at_prev || ax != px || ay != py)
-                cairo_move_to (cr, ax, ay);
-              cairo_line_to (cr, bx, by);
+                subpath_move_to (cr, &sp, ax, ay);
+              subpath_line_to (&sp, bx, by);
               pen_at_prev = bx == qx && by == qy;
             }
           else
@@ -160,15 +505,22 @@ draw_polyline (SwPlot *self, cairo_t *cr, const double *x, const double *y, guin
       py = qy;
       have_prev = TRUE;
     }
+  subpath_flush (cr, &sp);
+  g_array_unref (sp.pts);
 }
 
 void
 sw_plot_get_colors (SwPlot *self, Colors *c)
 {
-  sw_plot_style_fg (GTK_WIDGET (self), &c->fg);
-  sw_plot_style_bg (GTK_WIDGET (self), &c->bg);
-  for (int i = 0; i < N_PALETTE; i++)
-    sw_plot_palette_color (GTK_WIDGET (self), i, &c->palette[i]);
+  if (!self->colors_valid)
+    {
+      sw_plot_style_fg (GTK_WIDGET (self), &self->colors.fg);
+      sw_plot_style_bg (GTK_WIDGET (self), &self->colors.bg);
+      for (int i = 0; i < N_PALETTE; i++)
+        sw_plot_palette_color (GTK_WIDGET (self), i, &self->colors.palette[i]);
+      self->colors_valid = TRUE;
+    }
+  *c = self->colors;
 }
 
 const GdkRGBA *
@@ -188,7 +540,7 @@ draw_legend_sample (cairo_t *cr, const Colors *c, const LegendEntry *e, double x
     {
       sw_plot_set_source (cr, col, e->band ? 0.25 : 0.75);
       cairo_rectangle (cr, x + 4.0, y + 3.0, LEGEND_SAMPLE - 8.0, h - 6.0);
-      cairo_fill (cr);
+      layer_fill (cr);
       return;
     }
   sw_plot_set_source (cr, col, 1.0);
@@ -199,13 +551,13 @@ draw_legend_sample (cairo_t *cr, const Colors *c, const LegendEntry *e, double x
       set_dash_for (cr, e->color, 1.0);
       cairo_move_to (cr, x, cy);
       cairo_line_to (cr, x + LEGEND_SAMPLE, cy);
-      cairo_stroke (cr);
+      layer_stroke (cr);
       cairo_restore (cr);
     }
   if (e->style != SW_PLOT_LINE)
     {
       draw_shape (cr, shape_for (e->color), x + LEGEND_SAMPLE / 2.0, cy, 4.0);
-      cairo_fill (cr);
+      layer_fill (cr);
     }
 }
 
@@ -240,7 +592,7 @@ sw_plot_draw_legend (SwPlot *self, cairo_t *cr, double left, double top, double 
           draw_legend_sample (cr, &c, e, x, y, th);
           sw_plot_set_source (cr, &c.fg, 1.0);
           cairo_move_to (cr, x + LEGEND_SAMPLE + 6.0, y);
-          pango_cairo_show_layout (cr, layout);
+          layer_show_layout (cr, layout);
         }
       g_object_unref (layout);
       x += item_w + 18.0;
@@ -266,17 +618,17 @@ sw_plot_draw_boxed_text (cairo_t *cr, PangoLayout *layout, double x, double y, c
   pango_layout_get_pixel_size (layout, &w, &h);
   sw_plot_set_source (cr, &c->bg, 0.88);
   cairo_rectangle (cr, x - 3.0, y - 1.0, w + 6.0, h + 2.0);
-  cairo_fill (cr);
+  layer_fill (cr);
   if (frame != NULL)
     {
       sw_plot_set_source (cr, frame, 1.0);
       cairo_set_line_width (cr, 1.0);
       cairo_rectangle (cr, x - 3.5, y - 1.5, w + 7.0, h + 3.0);
-      cairo_stroke (cr);
+      layer_stroke (cr);
     }
   sw_plot_set_source (cr, text, 1.0);
   cairo_move_to (cr, x, y);
-  pango_cairo_show_layout (cr, layout);
+  layer_show_layout (cr, layout);
 }
 
 /* Places a label near (px, py), trying the four quadrants, inside the area. */
@@ -354,7 +706,7 @@ draw_axes (SwPlot *self, cairo_t *cr, const Colors *c)
       sw_plot_set_source (cr, &c->fg, t->major ? 0.13 : 0.06);
       cairo_move_to (cr, px, a->origin.y);
       cairo_line_to (cr, px, a->origin.y + a->size.height);
-      cairo_stroke (cr);
+      layer_stroke (cr);
     }
   for (guint i = 0; i < self->y.ticks->len; i++)
     {
@@ -365,20 +717,20 @@ draw_axes (SwPlot *self, cairo_t *cr, const Colors *c)
       sw_plot_set_source (cr, &c->fg, t->major ? 0.13 : 0.06);
       cairo_move_to (cr, a->origin.x, py);
       cairo_line_to (cr, a->origin.x + a->size.width, py);
-      cairo_stroke (cr);
+      layer_stroke (cr);
     }
 
   /* Frame: the two axes stronger */
   sw_plot_set_source (cr, &c->fg, 0.25);
   cairo_rectangle (cr, round (a->origin.x) + 0.5, round (a->origin.y) + 0.5,
                    round (a->size.width), round (a->size.height));
-  cairo_stroke (cr);
+  layer_stroke (cr);
   sw_plot_set_source (cr, &c->fg, 0.8);
   cairo_move_to (cr, round (a->origin.x) + 0.5, round (a->origin.y) + 0.5);
   cairo_line_to (cr, round (a->origin.x) + 0.5, round (a->origin.y + a->size.height) + 0.5);
   cairo_line_to (cr, round (a->origin.x + a->size.width) + 0.5,
                  round (a->origin.y + a->size.height) + 0.5);
-  cairo_stroke (cr);
+  layer_stroke (cr);
 
   /* Ticks and labels */
   for (guint i = 0; i < self->x.ticks->len; i++)
@@ -389,7 +741,7 @@ draw_axes (SwPlot *self, cairo_t *cr, const Colors *c)
       sw_plot_set_source (cr, &c->fg, 0.8);
       cairo_move_to (cr, px, y0);
       cairo_line_to (cr, px, y0 + (t->labelled ? TICK_LEN : TICK_LEN / 2.0));
-      cairo_stroke (cr);
+      layer_stroke (cr);
       if (t->labelled)
         {
           PangoLayout *layout = sw_plot_make_text (self, t->text);
@@ -398,7 +750,7 @@ draw_axes (SwPlot *self, cairo_t *cr, const Colors *c)
           sw_plot_set_source (cr, &c->fg, 1.0);
           cairo_move_to (cr, CLAMP (px - w / 2.0, 0.0, self->layout_width - w),
                          y0 + TICK_LEN + 2.0);
-          pango_cairo_show_layout (cr, layout);
+          layer_show_layout (cr, layout);
           g_object_unref (layout);
         }
     }
@@ -410,7 +762,7 @@ draw_axes (SwPlot *self, cairo_t *cr, const Colors *c)
       sw_plot_set_source (cr, &c->fg, 0.8);
       cairo_move_to (cr, x0, py);
       cairo_line_to (cr, x0 - (t->labelled ? TICK_LEN : TICK_LEN / 2.0), py);
-      cairo_stroke (cr);
+      layer_stroke (cr);
       if (t->labelled)
         {
           PangoLayout *layout = sw_plot_make_text (self, t->text);
@@ -418,7 +770,7 @@ draw_axes (SwPlot *self, cairo_t *cr, const Colors *c)
           pango_layout_get_pixel_size (layout, &w, &h);
           sw_plot_set_source (cr, &c->fg, 1.0);
           cairo_move_to (cr, x0 - TICK_LEN - 4.0 - w, py - h / 2.0);
-          pango_cairo_show_layout (cr, layout);
+          layer_show_layout (cr, layout);
           g_object_unref (layout);
         }
     }
@@ -442,7 +794,7 @@ draw_axes (SwPlot *self, cairo_t *cr, const Colors *c)
           pango_layout_get_pixel_size (layout, &w, &h);
           sw_plot_set_source (cr, &c->fg, 1.0);
           cairo_move_to (cr, a->origin.x - TICK_LEN - 4.0 - cw, py - h / 2.0);
-          pango_cairo_show_layout (cr, layout);
+          layer_show_layout (cr, layout);
           g_object_unref (layout);
         }
     }
@@ -456,7 +808,7 @@ draw_axes (SwPlot *self, cairo_t *cr, const Colors *c)
       pango_layout_get_pixel_size (layout, &w, NULL);
       cairo_move_to (cr, a->origin.x + (a->size.width - w) / 2.0,
                      self->layout_height - MARGIN - th);
-      pango_cairo_show_layout (cr, layout);
+      layer_show_layout (cr, layout);
       g_object_unref (layout);
     }
   if (self->y.label != NULL)
@@ -467,7 +819,7 @@ draw_axes (SwPlot *self, cairo_t *cr, const Colors *c)
       cairo_save (cr);
       cairo_move_to (cr, MARGIN, a->origin.y + (a->size.height + w) / 2.0);
       cairo_rotate (cr, -G_PI / 2.0);
-      pango_cairo_show_layout (cr, layout);
+      layer_show_layout (cr, layout);
       cairo_restore (cr);
       g_object_unref (layout);
     }
@@ -508,7 +860,7 @@ draw_bands (SwPlot *self, cairo_t *cr, const Colors *c)
               cairo_line_to (cr, px, CLAMP (py, -1e5, 1e5));
             }
           cairo_close_path (cr);
-          cairo_fill (cr);
+          layer_fill (cr);
         }
     }
 }
@@ -538,10 +890,10 @@ draw_bars (SwPlot *self, cairo_t *cr, const Colors *c, Series *s, guint slot, gu
           px = px - spacing * 0.45 + slot * w;
           sw_plot_set_source (cr, col, 0.7);
           cairo_rectangle (cr, px, MIN (py, base), w, fabs (base - py));
-          cairo_fill_preserve (cr);
+          layer_fill_preserve (cr);
           sw_plot_set_source (cr, col, 1.0);
           cairo_set_line_width (cr, 1.0);
-          cairo_stroke (cr);
+          layer_stroke (cr);
         }
     }
   else
@@ -559,10 +911,10 @@ draw_bars (SwPlot *self, cairo_t *cr, const Colors *c, Series *s, guint slot, gu
           py = sw_plot_axis_map (&self->y, k) - slot_h * 0.35 + slot * h;
           sw_plot_set_source (cr, col, 0.7);
           cairo_rectangle (cr, MIN (px, base), py, fabs (px - base), h);
-          cairo_fill_preserve (cr);
+          layer_fill_preserve (cr);
           sw_plot_set_source (cr, col, 1.0);
           cairo_set_line_width (cr, 1.0);
-          cairo_stroke (cr);
+          layer_stroke (cr);
         }
     }
 }
@@ -589,7 +941,7 @@ draw_series (SwPlot *self, cairo_t *cr, const Colors *c)
       cairo_set_line_width (cr, 1.0);
       cairo_move_to (cr, px, self->area.origin.y);
       cairo_line_to (cr, px, self->area.origin.y + self->area.size.height);
-      cairo_stroke (cr);
+      layer_stroke (cr);
     }
 
   /* Bars under lines; highlighted series last, on top. */
@@ -620,7 +972,7 @@ draw_series (SwPlot *self, cairo_t *cr, const Colors *c)
             sw_plot_set_source (cr, col, alpha);
             cairo_new_path (cr);
             draw_polyline (self, cr, s->x, s->y, s->n);
-            cairo_stroke (cr);
+            layer_stroke (cr);
             cairo_restore (cr);
           }
         if (s->style != SW_PLOT_LINE)
@@ -634,10 +986,10 @@ draw_series (SwPlot *self, cairo_t *cr, const Colors *c)
                   continue;
                 draw_shape (cr, shape_for (s->color), px, py, s->highlighted ? 5.5 : 4.5);
                 sw_plot_set_source (cr, col, alpha);
-                cairo_fill_preserve (cr);
+                layer_fill_preserve (cr);
                 sw_plot_set_source (cr, &c->bg, 0.9);
                 cairo_set_line_width (cr, 1.0);
-                cairo_stroke (cr);
+                layer_stroke (cr);
               }
           }
       }
@@ -666,7 +1018,7 @@ draw_vlines (SwPlot *self, cairo_t *cr, const Colors *c, Placer *pl)
       sw_plot_set_source (cr, col, 1.0);
       cairo_move_to (cr, px, a->origin.y);
       cairo_line_to (cr, px, a->origin.y + a->size.height);
-      cairo_stroke (cr);
+      layer_stroke (cr);
       cairo_restore (cr);
     }
 
@@ -750,10 +1102,10 @@ draw_markers (SwPlot *self, cairo_t *cr, const Colors *c, Placer *pl)
           cairo_new_path (cr);
           cairo_arc (cr, px, py, 7.5, 0, 2 * G_PI);
           sw_plot_set_source (cr, &c->bg, 1.0);
-          cairo_fill (cr);
+          layer_fill (cr);
           cairo_arc (cr, px, py, 6.0, 0, 2 * G_PI);
           sw_plot_set_source (cr, &c->fg, 1.0);
-          cairo_fill (cr);
+          layer_fill (cr);
           break;
         case SW_MARKER_INFEASIBLE:
           cairo_set_line_width (cr, 5.0);
@@ -762,14 +1114,14 @@ draw_markers (SwPlot *self, cairo_t *cr, const Colors *c, Placer *pl)
           cairo_line_to (cr, px + 6, py + 6);
           cairo_move_to (cr, px + 6, py - 6);
           cairo_line_to (cr, px - 6, py + 6);
-          cairo_stroke (cr);
+          layer_stroke (cr);
           cairo_set_line_width (cr, 2.5);
           sw_plot_set_source (cr, &c->palette[1], 1.0);
           cairo_move_to (cr, px - 6, py - 6);
           cairo_line_to (cr, px + 6, py + 6);
           cairo_move_to (cr, px + 6, py - 6);
           cairo_line_to (cr, px - 6, py + 6);
-          cairo_stroke (cr);
+          layer_stroke (cr);
           break;
         case SW_MARKER_BASELINE:
         default:
@@ -777,7 +1129,7 @@ draw_markers (SwPlot *self, cairo_t *cr, const Colors *c, Placer *pl)
           cairo_arc (cr, px, py, 6.0, 0, 2 * G_PI);
           sw_plot_set_source (cr, &c->fg, 1.0);
           cairo_set_line_width (cr, 2.0);
-          cairo_stroke (cr);
+          layer_stroke (cr);
           break;
         }
       if (m->label != NULL && m->label[0] != '\0')
@@ -790,7 +1142,7 @@ draw_markers (SwPlot *self, cairo_t *cr, const Colors *c, Placer *pl)
             markup = g_markup_printf_escaped ("<b>%s</b>", m->label);
           else
             markup = g_markup_escape_text (m->label, -1);
-          layout = sw_plot_make_layout (self, markup);
+          layout = sw_plot_make_markup (self, markup);
           if (off_scale)
             place_label_below (self, pl, layout, px, py, 9.0, &lx, &ly);
           else
@@ -802,28 +1154,23 @@ draw_markers (SwPlot *self, cairo_t *cr, const Colors *c, Placer *pl)
     }
 }
 
-/* Everything but the hover readout, recorded into @snapshot. */
+/* The frame layer: title, legend, grid, axes, ticks and their labels, or
+ * the title and the note that there is nothing to plot. */
 static void
-draw_plot (SwPlot *self, GtkSnapshot *snapshot, int width, int height, const Colors *cc)
+draw_frame_layer (SwPlot *self, cairo_t *cr, const Colors *c, int width, int height)
 {
-  Colors c = *cc;
-  PangoLayout *title;
-  Placer pl;
-  cairo_t *cr;
+  PangoLayout *title = sw_plot_title_layout (self);
 
-  cr = gtk_snapshot_append_cairo (snapshot, &GRAPHENE_RECT_INIT (0, 0, width, height));
-
-  title = sw_plot_title_layout (self);
   if (title != NULL)
     {
       int w;
       pango_layout_get_pixel_size (title, &w, NULL);
-      sw_plot_set_source (cr, &c.fg, 1.0);
+      sw_plot_set_source (cr, &c->fg, 1.0);
       /* Centred over the plot area when it fits, else from the left margin
        * (the layout wraps at the widget's width). */
       cairo_move_to (cr, CLAMP (self->area.origin.x + (self->area.size.width - w) / 2.0, MARGIN,
                                 MAX (MARGIN, width - MARGIN - w)), MARGIN);
-      pango_cairo_show_layout (cr, title);
+      layer_show_layout (cr, title);
       g_object_unref (title);
     }
   if (!sw_plot_has_data (self))
@@ -836,30 +1183,71 @@ draw_plot (SwPlot *self, GtkSnapshot *snapshot, int width, int height, const Col
       pango_layout_set_wrap (layout, PANGO_WRAP_WORD_CHAR);
       pango_layout_set_alignment (layout, PANGO_ALIGN_CENTER);
       pango_layout_get_pixel_size (layout, &w, &h);
-      sw_plot_set_source (cr, &c.fg, 0.6);
+      sw_plot_set_source (cr, &c->fg, 0.6);
       cairo_move_to (cr, MARGIN, (height - h) / 2.0);
-      pango_cairo_show_layout (cr, layout);
+      layer_show_layout (cr, layout);
       g_object_unref (layout);
-      cairo_destroy (cr);
       return;
     }
   sw_plot_draw_legend (self, cr, MARGIN, self->legend_top, width - 2 * MARGIN);
-  draw_axes (self, cr, &c);
+  draw_axes (self, cr, c);
+}
 
+/* The data layer: bands, bars and series, clipped to the plot area. */
+static void
+draw_data_layer (SwPlot *self, cairo_t *cr, const Colors *c, int width, int height)
+{
+  LayerState *st = layer_state (cr);
+
+  if (!sw_plot_has_data (self))
+    return;
   cairo_save (cr);
   cairo_rectangle (cr, self->area.origin.x, self->area.origin.y,
                    self->area.size.width, self->area.size.height);
   cairo_clip (cr);
-  draw_bands (self, cr, &c);
-  draw_series (self, cr, &c);
+  if (st != NULL)
+    {
+      st->hash = sw_plot_key_bytes (st->hash, &self->area, sizeof self->area);
+      /* Nothing is drawn outside the area, and the curves cross it. */
+      st->want_ink = FALSE;
+      st->have_ink = TRUE;
+      st->ink = self->area;
+    }
+  draw_bands (self, cr, c);
+  draw_series (self, cr, c);
   cairo_restore (cr);
+}
 
+/* The notes layer: limit lines, markers and their labels, placed so that no
+ * label covers another or a mark. */
+static void
+draw_notes_layer (SwPlot *self, cairo_t *cr, const Colors *c, int width, int height)
+{
+  Placer pl;
+
+  if (!sw_plot_has_data (self))
+    return;
   pl.rects = g_array_new (FALSE, FALSE, sizeof (graphene_rect_t));
-  draw_vlines (self, cr, &c, &pl);
-  draw_markers (self, cr, &c, &pl);
+  draw_vlines (self, cr, c, &pl);
+  draw_markers (self, cr, c, &pl);
   g_array_unref (pl.rects);
+}
 
-  cairo_destroy (cr);
+/* Everything but the hover readout: the three layers, each kept if it
+ * came out the same. */
+static GskRenderNode *
+draw_plot (SwPlot *self, int width, int height, const Colors *c)
+{
+  GskRenderNode *nodes[G_N_ELEMENTS (self->layers)];
+  guint n = 0;
+
+  update_layer (self, 0, draw_frame_layer, c, width, height, FALSE);
+  update_layer (self, 1, draw_data_layer, c, width, height, TRUE);
+  update_layer (self, 2, draw_notes_layer, c, width, height, TRUE);
+  for (guint i = 0; i < G_N_ELEMENTS (self->layers); i++)
+    if (self->layers[i] != NULL)
+      nodes[n++] = self->layers[i];
+  return gsk_container_node_new (nodes, n);
 }
 
 void
@@ -876,11 +1264,8 @@ sw_plot_snapshot (GtkWidget *widget, GtkSnapshot *snapshot)
   sw_plot_get_colors (self, &c);
   if (self->drawing == NULL || self->drawing_width != width || self->drawing_height != height)
     {
-      GtkSnapshot *own = gtk_snapshot_new ();
-
       g_clear_pointer (&self->drawing, gsk_render_node_unref);
-      draw_plot (self, own, width, height, &c);
-      self->drawing = gtk_snapshot_free_to_node (own);
+      self->drawing = draw_plot (self, width, height, &c);
       self->drawing_width = width;
       self->drawing_height = height;
     }

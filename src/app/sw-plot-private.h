@@ -49,6 +49,12 @@ typedef struct {
   int    color;
 } VLine;
 
+typedef struct {
+  GdkRGBA fg;
+  GdkRGBA bg;
+  GdkRGBA palette[N_PALETTE];
+} Colors;
+
 struct _SwPlot {
   GtkWidget  parent_instance;
 
@@ -82,17 +88,21 @@ struct _SwPlot {
   int            drawing_height;
   gboolean       drawing_dirty;
 
+  /* The drawing's layers (SW_PLOT_N_LAYERS: frame, data, notes), each kept
+   * while it comes out the same, so the renderer repaints only the layers
+   * that changed, within their bounds (sw-plot-draw.c). */
+  GskRenderNode *layers[3];
+  guint64        layer_keys[3];
+
+  /* The theme's colours, looked up again only after a style change. */
+  Colors         colors;
+  gboolean       colors_valid;
+
   /* Hover */
   gboolean  hovering;
   double    hover_x;
   double    hover_y;
 };
-
-typedef struct {
-  GdkRGBA fg;
-  GdkRGBA bg;
-  GdkRGBA palette[N_PALETTE];
-} Colors;
 
 /* Label boxes that must not overlap one another. */
 typedef struct {
@@ -110,8 +120,11 @@ typedef struct {
 PangoLayout *sw_plot_make_layout (SwPlot *self, const char *markup);
 /* A shared, cached layout (a new reference): do not change it. */
 PangoLayout *sw_plot_make_text (SwPlot *self, const char *text);
+/* The same for markup. */
+PangoLayout *sw_plot_make_markup (SwPlot *self, const char *markup);
 /* A layout of one's own, to set a width or ellipsize. */
 PangoLayout *sw_plot_make_text_fresh (SwPlot *self, const char *text);
+/* Shared and cached too: do not change it. */
 PangoLayout *sw_plot_title_layout (SwPlot *self);
 GArray      *sw_plot_legend_entries (SwPlot *self);
 double       sw_plot_text_height (SwPlot *self);
@@ -124,7 +137,13 @@ void         sw_plot_check_inputs (SwPlot *self);
 /* Whether anything can be drawn on the axes (series, bands, markers). */
 gboolean     sw_plot_has_data (SwPlot *self);
 
+/* FNV-1a hashing for the drawing's keys. */
+guint64      sw_plot_key_bytes (guint64 h, const void *data, gsize n);
+guint64      sw_plot_key_str (guint64 h, const char *s);
+guint64      sw_plot_key_int (guint64 h, gint64 v);
+
 /* sw-plot-draw.c */
+void           sw_plot_clear_layers (SwPlot *self);
 /* Lays out (or with @cr, draws) the legend rows; returns their height. */
 double         sw_plot_draw_legend (SwPlot *self, cairo_t *cr, double left, double top,
                                     double width);

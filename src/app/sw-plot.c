@@ -173,6 +173,22 @@ sw_plot_make_text (SwPlot *self, const char *text)
 }
 
 PangoLayout *
+sw_plot_make_markup (SwPlot *self, const char *markup)
+{
+  g_autofree char *key = g_strconcat ("\x03", markup, NULL);
+  PangoLayout *layout = g_hash_table_lookup (self->text_cache, key);
+
+  if (layout == NULL)
+    {
+      if (g_hash_table_size (self->text_cache) >= TEXT_CACHE_MAX)
+        g_hash_table_remove_all (self->text_cache);
+      layout = sw_plot_make_layout (self, markup);
+      g_hash_table_insert (self->text_cache, g_steal_pointer (&key), layout);
+    }
+  return g_object_ref (layout);
+}
+
+PangoLayout *
 sw_plot_make_text_fresh (SwPlot *self, const char *text)
 {
   return gtk_widget_create_pango_layout (GTK_WIDGET (self), text);
@@ -182,20 +198,29 @@ PangoLayout *
 sw_plot_title_layout (SwPlot *self)
 {
   g_autofree char *markup = NULL;
+  g_autofree char *key = NULL;
   PangoLayout *layout;
   int width;
 
   if (self->title == NULL || self->title[0] == '\0')
     return NULL;
+  width = gtk_widget_get_width (GTK_WIDGET (self));
+  /* Kept in the text cache by title and width (a title rarely changes). */
+  key = g_strdup_printf ("\x02%d\x02%s", width, self->title);
+  layout = g_hash_table_lookup (self->text_cache, key);
+  if (layout != NULL)
+    return g_object_ref (layout);
   markup = g_markup_printf_escaped ("<span weight='bold' size='large'>%s</span>", self->title);
   layout = sw_plot_make_layout (self, markup);
   /* A long title wraps at the widget's width instead of being cut. */
-  width = gtk_widget_get_width (GTK_WIDGET (self));
   if (width > 2 * MARGIN)
     {
       pango_layout_set_width (layout, (int) ((width - 2 * MARGIN) * PANGO_SCALE));
       pango_layout_set_wrap (layout, PANGO_WRAP_WORD_CHAR);
     }
+  if (g_hash_table_size (self->text_cache) >= TEXT_CACHE_MAX)
+    g_hash_table_remove_all (self->text_cache);
+  g_hash_table_insert (self->text_cache, g_steal_pointer (&key), g_object_ref (layout));
   return layout;
 }
 
@@ -331,8 +356,8 @@ plot_layout (SwPlot *self, int width, int height)
 }
 
 /* FNV-1a over the bytes of everything the drawing is made of. */
-static guint64
-key_bytes (guint64 h, const void *data, gsize n)
+guint64
+sw_plot_key_bytes (guint64 h, const void *data, gsize n)
 {
   const guchar *p = data;
 
@@ -341,32 +366,32 @@ key_bytes (guint64 h, const void *data, gsize n)
   return h;
 }
 
-static guint64
-key_str (guint64 h, const char *s)
+guint64
+sw_plot_key_str (guint64 h, const char *s)
 {
   /* NULL and "" differ; the terminator separates neighbours. */
-  return s == NULL ? key_bytes (h, "\1", 1) : key_bytes (h, s, strlen (s) + 1);
+  return s == NULL ? sw_plot_key_bytes (h, "\1", 1) : sw_plot_key_bytes (h, s, strlen (s) + 1);
 }
 
-static guint64
-key_int (guint64 h, gint64 v)
+guint64
+sw_plot_key_int (guint64 h, gint64 v)
 {
-  return key_bytes (h, &v, sizeof v);
+  return sw_plot_key_bytes (h, &v, sizeof v);
 }
 
 static guint64
 key_axis (guint64 h, const SwPlotAxis *a)
 {
-  h = key_str (h, a->label);
-  h = key_int (h, a->log);
-  h = key_int (h, a->integer);
-  h = key_bytes (h, &a->fixed_min, sizeof (double));
-  h = key_bytes (h, &a->fixed_max, sizeof (double));
-  h = key_str (h, a->prefix);
-  h = key_str (h, a->spec);
-  h = key_str (h, a->suffix);
-  h = key_bytes (h, &a->scale, sizeof (double));
-  return key_int (h, a->ticks_bare);
+  h = sw_plot_key_str (h, a->label);
+  h = sw_plot_key_int (h, a->log);
+  h = sw_plot_key_int (h, a->integer);
+  h = sw_plot_key_bytes (h, &a->fixed_min, sizeof (double));
+  h = sw_plot_key_bytes (h, &a->fixed_max, sizeof (double));
+  h = sw_plot_key_str (h, a->prefix);
+  h = sw_plot_key_str (h, a->spec);
+  h = sw_plot_key_str (h, a->suffix);
+  h = sw_plot_key_bytes (h, &a->scale, sizeof (double));
+  return sw_plot_key_int (h, a->ticks_bare);
 }
 
 static guint64
@@ -376,55 +401,55 @@ drawing_key (SwPlot *self)
   Colors c;
 
   sw_plot_get_colors (self, &c);
-  h = key_bytes (h, &c, sizeof c);
-  h = key_int (h, gtk_widget_get_scale_factor (GTK_WIDGET (self)));
-  h = key_str (h, self->title);
-  h = key_str (h, self->empty_text);
+  h = sw_plot_key_bytes (h, &c, sizeof c);
+  h = sw_plot_key_int (h, gtk_widget_get_scale_factor (GTK_WIDGET (self)));
+  h = sw_plot_key_str (h, self->title);
+  h = sw_plot_key_str (h, self->empty_text);
   h = key_axis (h, &self->x);
   h = key_axis (h, &self->y);
-  h = key_int (h, self->series->len);
+  h = sw_plot_key_int (h, self->series->len);
   for (guint i = 0; i < self->series->len; i++)
     {
       const Series *s = g_ptr_array_index (self->series, i);
-      h = key_str (h, s->name);
-      h = key_int (h, s->n);
-      h = key_bytes (h, s->x, sizeof (double) * s->n);
-      h = key_bytes (h, s->y, sizeof (double) * s->n);
-      h = key_int (h, s->style);
-      h = key_int (h, s->color);
-      h = key_int (h, s->highlighted);
+      h = sw_plot_key_str (h, s->name);
+      h = sw_plot_key_int (h, s->n);
+      h = sw_plot_key_bytes (h, s->x, sizeof (double) * s->n);
+      h = sw_plot_key_bytes (h, s->y, sizeof (double) * s->n);
+      h = sw_plot_key_int (h, s->style);
+      h = sw_plot_key_int (h, s->color);
+      h = sw_plot_key_int (h, s->highlighted);
     }
-  h = key_int (h, self->bands->len);
+  h = sw_plot_key_int (h, self->bands->len);
   for (guint i = 0; i < self->bands->len; i++)
     {
       const Band *b = g_ptr_array_index (self->bands, i);
-      h = key_str (h, b->name);
-      h = key_int (h, b->n);
-      h = key_bytes (h, b->x, sizeof (double) * b->n);
-      h = key_bytes (h, b->lo, sizeof (double) * b->n);
-      h = key_bytes (h, b->hi, sizeof (double) * b->n);
-      h = key_int (h, b->color);
+      h = sw_plot_key_str (h, b->name);
+      h = sw_plot_key_int (h, b->n);
+      h = sw_plot_key_bytes (h, b->x, sizeof (double) * b->n);
+      h = sw_plot_key_bytes (h, b->lo, sizeof (double) * b->n);
+      h = sw_plot_key_bytes (h, b->hi, sizeof (double) * b->n);
+      h = sw_plot_key_int (h, b->color);
     }
-  h = key_int (h, self->markers->len);
+  h = sw_plot_key_int (h, self->markers->len);
   for (guint i = 0; i < self->markers->len; i++)
     {
       const Marker *m = g_ptr_array_index (self->markers, i);
-      h = key_bytes (h, &m->x, sizeof (double));
-      h = key_bytes (h, &m->y, sizeof (double));
-      h = key_str (h, m->label);
-      h = key_int (h, m->kind);
+      h = sw_plot_key_bytes (h, &m->x, sizeof (double));
+      h = sw_plot_key_bytes (h, &m->y, sizeof (double));
+      h = sw_plot_key_str (h, m->label);
+      h = sw_plot_key_int (h, m->kind);
     }
-  h = key_int (h, self->vlines->len);
+  h = sw_plot_key_int (h, self->vlines->len);
   for (guint i = 0; i < self->vlines->len; i++)
     {
       const VLine *v = g_ptr_array_index (self->vlines, i);
-      h = key_bytes (h, &v->x, sizeof (double));
-      h = key_str (h, v->label);
-      h = key_int (h, v->color);
+      h = sw_plot_key_bytes (h, &v->x, sizeof (double));
+      h = sw_plot_key_str (h, v->label);
+      h = sw_plot_key_int (h, v->color);
     }
-  h = key_int (h, self->categories != NULL ? (gint64) g_strv_length (self->categories) : -1);
+  h = sw_plot_key_int (h, self->categories != NULL ? (gint64) g_strv_length (self->categories) : -1);
   for (guint i = 0; self->categories != NULL && self->categories[i] != NULL; i++)
-    h = key_str (h, self->categories[i]);
+    h = sw_plot_key_str (h, self->categories[i]);
   return h;
 }
 
@@ -442,6 +467,7 @@ sw_plot_check_inputs (SwPlot *self)
   self->drawing_key = key;
   self->layout_valid = FALSE;
   g_clear_pointer (&self->drawing, gsk_render_node_unref);
+  /* The layers stay: each is kept if it comes out the same (sw-plot-draw.c). */
 }
 
 void
@@ -493,8 +519,10 @@ sw_plot_css_changed (GtkWidget *widget, GtkCssStyleChange *change)
   GTK_WIDGET_CLASS (sw_plot_parent_class)->css_changed (widget, change);
   /* The font may have changed. */
   g_hash_table_remove_all (SW_PLOT (widget)->text_cache);
+  SW_PLOT (widget)->colors_valid = FALSE;
   SW_PLOT (widget)->layout_valid = FALSE;
   g_clear_pointer (&SW_PLOT (widget)->drawing, gsk_render_node_unref);
+  sw_plot_clear_layers (SW_PLOT (widget));
   invalidate (SW_PLOT (widget));
 }
 
@@ -550,6 +578,7 @@ sw_plot_finalize (GObject *object)
   g_free (self->empty_text);
   g_hash_table_unref (self->text_cache);
   g_clear_pointer (&self->drawing, gsk_render_node_unref);
+  sw_plot_clear_layers (self);
   sw_plot_axis_clear (&self->x);
   sw_plot_axis_clear (&self->y);
   g_ptr_array_unref (self->series);

@@ -45,6 +45,11 @@ typedef struct {
 struct _SwStackView {
   GtkWidget  parent_instance;
 
+  /* Shaped texts by markup (and wrap width), kept from one result to the
+   * next: the legend, and the labels whose figures did not change, are
+   * not shaped again (see cached_label). */
+  GHashTable *text_cache;
+
   SwAnalysis  *result;
   int        selected;
   int        hover_border;
@@ -204,6 +209,37 @@ make_label (SwStackView *self, const char *markup)
 
   pango_layout_set_markup (layout, markup, -1);
   return layout;
+}
+
+#define TEXT_CACHE_MAX 256
+
+/* A shared layout of @markup (a new reference; callers must not change
+ * it), wrapped between words at @wrap_width when it is wider, unless
+ * @wrap_width is negative. */
+static PangoLayout *
+cached_label (SwStackView *self, const char *markup, double wrap_width)
+{
+  g_autofree char *key = g_strdup_printf ("%.17g\x01%s", wrap_width, markup);
+  PangoLayout *layout = g_hash_table_lookup (self->text_cache, key);
+
+  if (layout == NULL)
+    {
+      int lw;
+      if (g_hash_table_size (self->text_cache) >= TEXT_CACHE_MAX)
+        g_hash_table_remove_all (self->text_cache);
+      layout = make_label (self, markup);
+      pango_layout_get_pixel_size (layout, &lw, NULL);
+      if (wrap_width >= 0.0 && lw > wrap_width)
+        {
+          /* Wrapped between words, never inside a word or a number and its
+           * unit (glued by the caller): a piece wider than the column runs
+           * over rather than break as "2,007 m/" + "s". */
+          pango_layout_set_wrap (layout, PANGO_WRAP_WORD);
+          pango_layout_set_width (layout, (int) (wrap_width * PANGO_SCALE));
+        }
+      g_hash_table_insert (self->text_cache, g_steal_pointer (&key), layout);
+    }
+  return g_object_ref (layout);
 }
 
 /* Thrust-to-weight at ignition, computed on the worker: as flown when the
@@ -384,17 +420,8 @@ make_labels (SwStackView *self, gboolean compact, double max_width, double *widt
       int lw, lh;
 
       g_clear_object (&it->label);
-      it->label = make_label (self, markup);
+      it->label = cached_label (self, markup, MAX (max_width, 0.0));
       pango_layout_get_pixel_size (it->label, &lw, &lh);
-      if (lw > max_width)
-        {
-          /* Wrapped between words, never inside a word or a number and its
-           * unit (glued above): a piece wider than the column runs over
-           * rather than break as "2,007 m/" + "s". */
-          pango_layout_set_wrap (it->label, PANGO_WRAP_WORD);
-          pango_layout_set_width (it->label, (int) (max_width * PANGO_SCALE));
-          pango_layout_get_pixel_size (it->label, &lw, &lh);
-        }
       it->label_h = lh;
       *width = MAX (*width, lw);
     }
@@ -412,7 +439,7 @@ layout_message (SwStackView *self, const char *markup, double width)
 static double
 legend_height (SwStackView *self)
 {
-  PangoLayout *probe = gtk_widget_create_pango_layout (GTK_WIDGET (self), "Mg");
+  PangoLayout *probe = cached_label (self, "Mg", -1.0);
   int h;
 
   pango_layout_get_pixel_size (probe, NULL, &h);
@@ -866,7 +893,7 @@ static void
 draw_simple_text (SwStackView *self, cairo_t *cr, const char *markup, double x, double y,
                   double *w_out)
 {
-  PangoLayout *layout = make_label (self, markup);
+  PangoLayout *layout = cached_label (self, markup, -1.0);
   int w;
 
   pango_layout_get_pixel_size (layout, &w, NULL);
@@ -923,7 +950,7 @@ legend_run (SwStackView *self, cairo_t *cr, const Colors *c, int width)
     }
   for (guint i = 0; i < 3; i++)
     {
-      PangoLayout *probe = make_label (self, names[i]);
+      PangoLayout *probe = cached_label (self, names[i], -1.0);
       int tw;
 
       pango_layout_get_pixel_size (probe, &tw, NULL);
@@ -1457,7 +1484,10 @@ static void
 sw_stack_view_css_changed (GtkWidget *widget, GtkCssStyleChange *change)
 {
   GTK_WIDGET_CLASS (sw_stack_view_parent_class)->css_changed (widget, change);
-  /* The font may have changed: draw again even if the texts did not. */
+  /* The font may have changed: shape and draw again even if the texts did
+   * not. */
+  if (SW_STACK_VIEW (widget)->text_cache != NULL)
+    g_hash_table_remove_all (SW_STACK_VIEW (widget)->text_cache);
   g_clear_pointer (&SW_STACK_VIEW (widget)->drawing, gsk_render_node_unref);
   invalidate (SW_STACK_VIEW (widget));
 }
@@ -1647,6 +1677,7 @@ sw_stack_view_dispose (GObject *object)
   clear_layout (self);
   g_clear_pointer (&self->drawing, gsk_render_node_unref);
   g_clear_pointer (&self->result, sw_analysis_unref);
+  g_clear_pointer (&self->text_cache, g_hash_table_unref);
   G_OBJECT_CLASS (sw_stack_view_parent_class)->dispose (object);
 }
 
@@ -1729,6 +1760,8 @@ sw_stack_view_init (SwStackView *self)
   GtkGesture *drag = gtk_gesture_drag_new ();
   GtkEventController *motion = gtk_event_controller_motion_new ();
   GtkEventController *key = gtk_event_controller_key_new ();
+
+  self->text_cache = g_hash_table_new_full (g_str_hash, g_str_equal, g_free, g_object_unref);
 
   self->selected = -1;
   self->hover_border = -1;

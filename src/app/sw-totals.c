@@ -35,6 +35,24 @@ struct _SwTotals {
 
 G_DEFINE_FINAL_TYPE (SwTotals, sw_totals, GTK_TYPE_WIDGET)
 
+/* Keeps @label at least @lines lines of its font high. */
+static void
+reserve_lines (GtkWidget *label, int lines)
+{
+  g_autoptr (GString) probe_text = g_string_new ("Mg");
+  PangoLayout *probe;
+  int height, current;
+
+  for (int i = 1; i < lines; i++)
+    g_string_append (probe_text, "\nMg");
+  probe = gtk_widget_create_pango_layout (label, probe_text->str);
+  pango_layout_get_pixel_size (probe, NULL, &height);
+  g_object_unref (probe);
+  gtk_widget_get_size_request (label, NULL, &current);
+  if (current != height)
+    gtk_widget_set_size_request (label, -1, height);
+}
+
 /* The state's icon and style ("ok", "note", "warn", "bad"), and the text. */
 static void
 set_status (SwTotals *self, const char *page, const char *text)
@@ -48,6 +66,11 @@ set_status (SwTotals *self, const char *page, const char *text)
 
   if (g_strcmp0 (gtk_label_get_text (self->status_label), text) != 0)
     gtk_label_set_text (self->status_label, text);
+  /* Two lines high even when the verdict takes one ("pending" before the
+   * ascent, "short of the orbit" after it): the totals keep their height,
+   * so the plots below them do not move, nor get laid out and repainted,
+   * at every phase of every edit.  A longer text still wraps in full. */
+  reserve_lines (GTK_WIDGET (self->status_label), 2);
   if (g_strcmp0 (self->status_page, page) == 0)
     return;
   for (guint i = 0; i < G_N_ELEMENTS (icons); i++)
@@ -271,10 +294,12 @@ sw_totals_set_result (SwTotals *self, SwAnalysis *result)
 }
 
 static void
-set_row (GtkWidget *box, GtkLabel *label, const char *text)
+set_row (GtkWidget *box, GtkLabel *label, const char *text, int lines)
 {
   if (g_strcmp0 (gtk_label_get_text (label), text != NULL ? text : "") != 0)
     gtk_label_set_text (label, text != NULL ? text : "");
+  if (lines > 1)
+    reserve_lines (GTK_WIDGET (label), lines);
   gtk_widget_set_visible (box, text != NULL);
 }
 
@@ -282,8 +307,11 @@ void
 sw_totals_set_ascent (SwTotals *self, const char *note, const char *warnings)
 {
   g_return_if_fail (SW_IS_TOTALS (self));
-  set_row (self->ascent_note_box, self->ascent_note_label, note);
-  set_row (self->ascent_warning_box, self->ascent_warning_label, warnings);
+  set_row (self->ascent_note_box, self->ascent_note_label, note, 1);
+  /* The warnings change from one line to two between the phases of an
+   * edit (as flown, or from the sized masses): two lines high for the same
+   * reason as the verdict. */
+  set_row (self->ascent_warning_box, self->ascent_warning_label, warnings, 2);
 }
 
 const char *
