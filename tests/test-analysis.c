@@ -233,9 +233,10 @@ test_trade_uses_loop_losses (void)
    * tolerance below, so this test can tell the two apart. */
   g_assert_cmpfloat (fabs (flown->trade_losses_m_s - guess), >, 20.0);
 
+  /* The loop's vehicle: its losses and its fairing jettison point. */
   looped = sw_design_copy (d);
-  looped->mission.losses_m_s = flown->ascent->loop_sized_losses_m_s;
-  looped->mission.has_losses = TRUE;
+  sw_ascent_apply_loop (looped, flown->ascent);
+  g_assert_cmpfloat (looped->mission.losses_m_s, ==, flown->ascent->loop_sized_losses_m_s);
   g_assert_true (sw_size_design (looped, &check, &error));
   g_assert_no_error (error);
   g_assert_true (check.feasible);

@@ -80,7 +80,7 @@ variant_design (const Variant *v)
   /* Thrust from the wanted thrust-to-weight: sea-level thrust is
    * T_vac Isp_sl / Isp_vac. */
   d->stages[0].propulsion.thrust_vac_kn
-    = v->tw * (s.stages[0].initial_mass_kg + fairing) * G0 * isp_vac[0] / isp_sl[0] / 1000.0;
+    = v->tw * s.stages[0].initial_mass_kg * G0 * isp_vac[0] / isp_sl[0] / 1000.0;
   for (guint i = 1; i < v->stages; i++)
     d->stages[i].propulsion.thrust_vac_kn
       = v->upper_tw * s.stages[i].initial_mass_kg * G0 / 1000.0;

@@ -193,8 +193,13 @@ test_mass_flow_and_burn_time (void)
   g_assert_cmpfloat_with_epsilon (st[0].mass_flow_kg_s, fv0 / (320.0 * 9.80665), 1e-9);
   g_assert_cmpfloat_with_epsilon (st[0].burn_time_s,
                                   s.stages[0].propellant_mass_kg / st[0].mass_flow_kg_s, 1e-9);
-  /* Liftoff: sea-level thrust against the sized mass plus the fairing. */
-  w0 = (s.stages[0].initial_mass_kg + 400.0) * 9.80665;
+  /* Liftoff: sea-level thrust against the sized mass, which carries the
+   * 400 kg fairing (dropped by default at the second stage's ignition). */
+  g_assert_cmpfloat (s.fairing.mass_kg, ==, 400.0);
+  g_assert_cmpuint (s.fairing.stage, ==, 1);
+  g_assert_cmpfloat (s.stages[1].initial_mass_kg - s.stages[1].payload_mass_kg
+                     - s.stages[1].stage_mass_kg, ==, 400.0);
+  w0 = s.stages[0].initial_mass_kg * 9.80665;
   g_assert_cmpfloat_with_epsilon (st[0].ignition_thrust_to_weight, fv0 * 285.0 / 320.0 / w0,
                                   1e-12);
   g_assert_cmpfloat_with_epsilon (st[1].ignition_thrust_to_weight,

@@ -350,22 +350,22 @@ test_no_overlap (void)
 
 
 /* medium-cargo.stagewright at its 1,500 m/s loss allowance (see test_numbers). */
-#define LIFTOFF_KG 124086.93
-#define LIFTOFF_GROUPED "124,087"
-#define LIFTOFF_T "124.1 t"
+#define LIFTOFF_KG 129000.81
+#define LIFTOFF_GROUPED "129,001"
+#define LIFTOFF_T "129.0 t"
 #define REQUIRED_DV "8,885 m/s"
 #define STAGE1_DV "3,542"
 #define STAGE1_SHARE "39.9 %"
 #define STAGE1_RATIO "2.911"
-#define STAGE1_PROP "81.5"
-#define STAGE1_STRUCT "4.7"
-#define STAGE1_IGN "124.1"
+#define STAGE1_PROP "84.7"
+#define STAGE1_STRUCT "4.9"
+#define STAGE1_IGN "129.0"
 #define STAGE2_DV "5,343"
 #define STAGE2_SHARE "60.1 %"
 #define STAGE2_RATIO "3.356"
 #define STAGE2_PROP "26.6"
 #define STAGE2_STRUCT "3.3"
-#define STAGE2_IGN "37.9"
+#define STAGE2_IGN "39.4"
 /* ---- the numbers on the page -------------------------------------------- */
 
 /* Every text of the page with its ink box (device space = points). */
@@ -580,7 +580,16 @@ test_numbers (void)
       double want = exp (dv / (9.80665 * isp));
       g_assert_cmpfloat (fabs (ratio - want), <, 0.0005 + want * 0.5 / (9.80665 * isp) + 1e-9);
       /* Mass ratio = ignition / (ignition - propellant), to the 0.05 t of
-       * the printed masses. */
+       * the printed masses; the second stage's ignition mass carries the
+       * 1.5 t fairing, which the sizing drops at its ignition (the default
+       * jettison point, sw-sizing.h), so its ratio leaves it out. */
+      if (i == 1)
+        {
+          g_assert_cmpfloat (a->sizing.fairing.mass_kg, ==, 1500.0);
+          g_assert_cmpuint (a->sizing.fairing.stage, ==, 1);
+          g_assert_cmpfloat (a->sizing.fairing.fraction, ==, 0.0);
+          ign -= 1.5;
+        }
       g_assert_cmpfloat (fabs (ign / (ign - prop) - ratio), <,
                          ratio * 0.1 / (ign - prop) + 0.0005);
       /* eps = structure / (structure + propellant) */

@@ -1132,6 +1132,94 @@ test_eps_form_strings (void)
     }
 }
 
+/* The fairing in the sizing, checked by hand with the rocket equation
+ * (Tsiolkovsky, dv = c ln(m_initial / m_final), applied burn phase by burn
+ * phase).  Two stages, manual split 3,500 + 4,000 m/s, 1,000 kg payload, a
+ * 200 kg fairing that the second stage drops after half its propellant:
+ *   second stage: phase a burns mp/2 with the fairing on, then the fairing
+ *   (200 kg) goes, phase b burns the other mp/2; dv_a + dv_b = 4,000 m/s;
+ *   first stage: its payload is the second stage at ignition, fairing on.
+ * The liftoff mass lies between the vehicle that drops the fairing at the
+ * second stage's ignition and the one that carries it to its burnout, and
+ * those two are plain sizings: the fairing as part of the first stage's
+ * payload, or of the second stage's. */
+static void
+test_fairing_carried (void)
+{
+  SwStageSet set;
+  SwSizing s, s0, s1;
+  const double P = 1000.0, F = 200.0, dv[2] = { 3500.0, 4000.0 };
+  double c2, mp, m0, m1, bo, dva, dvb, lo, hi;
+
+  memset (&set, 0, sizeof set);
+  set.n_stages = 2;
+  set.exhaust_velocity_m_s[0] = 2800.0;
+  set.exhaust_velocity_m_s[1] = 3200.0;
+  set.structural_coefficient[0] = 0.08;
+  set.structural_coefficient[1] = 0.10;
+  set.share[0] = dv[0] / (dv[0] + dv[1]);
+  set.share[1] = dv[1] / (dv[0] + dv[1]);
+  set.fairing = (SwFairingCarry) { F, 1, 0.5 };
+  sw_size (&set, P, dv[0] + dv[1], SW_SPLIT_MANUAL, &s);
+  g_assert_true (s.feasible);
+  g_assert_cmpfloat (s.fairing.mass_kg, ==, F);
+
+  /* The second stage, phase by phase. */
+  c2 = set.exhaust_velocity_m_s[1];
+  mp = s.stages[1].propellant_mass_kg;
+  m0 = s.stages[1].initial_mass_kg;
+  bo = s.stages[1].burnout_mass_kg;
+  g_assert_cmpfloat_with_epsilon (m0, P + F + mp + s.stages[1].structural_mass_kg, 1e-9);
+  g_assert_cmpfloat_with_epsilon (bo, P + s.stages[1].structural_mass_kg, 1e-9);
+  g_assert_cmpfloat_with_epsilon (s.stages[1].structural_mass_kg / (mp + s.stages[1].structural_mass_kg),
+                                  0.10, 1e-12);
+  m1 = m0 - 0.5 * mp;                       /* end of phase a, fairing still on */
+  dva = c2 * log (m0 / m1);
+  dvb = c2 * log ((m1 - F) / bo);           /* phase b starts without the fairing */
+  g_assert_cmpfloat_with_epsilon (dva + dvb, dv[1], 1e-6);
+  g_assert_cmpfloat_with_epsilon (s.stages[1].delta_v_m_s, dv[1], 1e-9);
+  g_assert_cmpfloat_with_epsilon (s.stages[1].mass_ratio, exp (dv[1] / c2), 1e-12);
+
+  /* The first stage carries the second at ignition, fairing included. */
+  g_assert_cmpfloat_with_epsilon (s.stages[0].payload_mass_kg, m0, 1e-9);
+  g_assert_cmpfloat_with_epsilon (set.exhaust_velocity_m_s[0]
+                                    * log (s.stages[0].initial_mass_kg
+                                           / s.stages[0].burnout_mass_kg),
+                                  dv[0], 1e-6);
+  g_assert_cmpfloat_with_epsilon (s.liftoff_mass_kg,
+                                  P + F + s.stages[0].stage_mass_kg + s.stages[1].stage_mass_kg,
+                                  1e-6);
+  /* The same number from the split alone (the Monte Carlo's route). */
+  g_assert_cmpfloat_with_epsilon (sw_liftoff_mass_for_split (&set, P, dv), s.liftoff_mass_kg,
+                                  1e-6 * s.liftoff_mass_kg);
+
+  /* Bounds: dropped at ignition (fraction 0) and at burnout (1), each a plain
+   * sizing without a fairing in the set. */
+  set.fairing.fraction = 0.0;
+  sw_size (&set, P, dv[0] + dv[1], SW_SPLIT_MANUAL, &s0);
+  set.fairing.fraction = 1.0;
+  sw_size (&set, P, dv[0] + dv[1], SW_SPLIT_MANUAL, &s1);
+  lo = s0.liftoff_mass_kg;
+  hi = s1.liftoff_mass_kg;
+  g_assert_cmpfloat (lo, <, s.liftoff_mass_kg);
+  g_assert_cmpfloat (s.liftoff_mass_kg, <, hi);
+  {
+    SwStageSet bare = set;
+    SwSizing top, whole;
+    double n1 = exp (dv[0] / 2800.0), n2 = exp (dv[1] / c2);
+    double m2 = P * n2 * 0.9 / (1.0 - n2 * 0.1);             /* second stage over P */
+    double m2f = (P + F) * n2 * 0.9 / (1.0 - n2 * 0.1);      /* ... over P + F */
+
+    bare.fairing.mass_kg = 0.0;
+    sw_size (&bare, P, dv[0] + dv[1], SW_SPLIT_MANUAL, &top);
+    sw_size (&bare, P + F, dv[0] + dv[1], SW_SPLIT_MANUAL, &whole);
+    g_assert_cmpfloat_with_epsilon (top.stages[1].initial_mass_kg, m2, 1e-9 * m2);
+    g_assert_cmpfloat_with_epsilon (lo, (m2 + F) * n1 * 0.92 / (1.0 - n1 * 0.08), 1e-9 * lo);
+    g_assert_cmpfloat_with_epsilon (hi, m2f * n1 * 0.92 / (1.0 - n1 * 0.08), 1e-9 * hi);
+    g_assert_cmpfloat_with_epsilon (hi, whole.liftoff_mass_kg, 1e-9 * hi);
+  }
+}
+
 int
 main (int argc, char **argv)
 {
@@ -1162,6 +1250,7 @@ main (int argc, char **argv)
   g_test_add_func ("/core/sizing/optimal-split-at-vehicle-limit",
                    test_optimal_split_at_vehicle_limit);
   g_test_add_func ("/core/sizing/design-size", test_design_size);
+  g_test_add_func ("/core/sizing/fairing-carried", test_fairing_carried);
   g_test_add_func ("/core/sizing/eps-definitions", test_eps_definitions);
   g_test_add_func ("/core/sizing/eps-round-trips", test_eps_round_trips);
   g_test_add_func ("/core/sizing/eps-form-range", test_eps_form_range);

@@ -152,7 +152,7 @@ ascent_to_json (const SwAnalysis *a)
   sw_cli_add_number (b, "delta_v_margin_m_s", r->delta_v_margin_m_s);
   sw_cli_add_number (b, "delta_v_missing_m_s", r->delta_v_missing_m_s);
   sw_cli_add_number (b, "propellant_beyond_load_kg", r->propellant_beyond_load_kg);
-  sw_cli_add_number (b, "liftoff_mass_kg", r->sizing.liftoff_mass_kg + r->fairing_mass_kg);
+  sw_cli_add_number (b, "liftoff_mass_kg", sw_ascent_liftoff_mass (r));
   sw_cli_add_number (b, "liftoff_thrust_to_weight", r->liftoff_thrust_to_weight);
   sw_cli_add_number (b, "max_q_pa", r->max_q_pa);
   sw_cli_add_number (b, "max_q_time_s", r->max_q_time_s);
@@ -174,6 +174,14 @@ ascent_to_json (const SwAnalysis *a)
   sw_cli_add_number (b, "altitude_km", r->fairing_dropped ? r->fairing.altitude_m / 1000.0 : NAN);
   sw_cli_add_number (b, "dynamic_pressure_pa",
                      r->fairing_dropped ? r->fairing.dynamic_pressure_pa : NAN);
+  /* Where the flight dropped it (stage index, share of that stage's
+   * propellant burnt), and where the sizing assumed it (sw-sizing.h). */
+  sw_cli_add_number (b, "stage", r->fairing_dropped ? (double) r->fairing_stage : NAN);
+  sw_cli_add_number (b, "propellant_fraction", r->fairing_propellant_fraction);
+  sw_cli_add_number (b, "sized_stage", r->sizing.fairing.mass_kg > 0.0
+                                         ? (double) r->sizing.fairing.stage : NAN);
+  sw_cli_add_number (b, "sized_propellant_fraction", r->sizing.fairing.mass_kg > 0.0
+                                                       ? r->sizing.fairing.fraction : NAN);
   json_builder_end_object (b);
 
   if (r->sizing.boosters.present)
@@ -315,10 +323,14 @@ print_ascent (const SwDesign *d, const SwAscentResult *r)
       g_print (_("Loss model: allowance of %s m/s (the sizing's)\n"), al);
     }
   {
-    g_autofree char *lm = fmt (r->sizing.liftoff_mass_kg / 1000.0, 3);
+    g_autofree char *lm = fmt (sw_ascent_liftoff_mass (r) / 1000.0, 3);
     g_autofree char *tw = fmt (r->liftoff_thrust_to_weight, 3);
-    g_print (_("Liftoff mass: %s t sized + %s kg fairing    thrust-to-weight at liftoff: %s\n"),
-             lm, sw_cli_num (r->fairing_mass_kg, 0), tw);
+    if (r->fairing_mass_kg > 0.0)
+      g_print (_("Liftoff mass: %s t, the %s kg fairing included    thrust-to-weight at "
+                 "liftoff: %s\n"),
+               lm, sw_cli_num (r->fairing_mass_kg, 0), tw);
+    else
+      g_print (_("Liftoff mass: %s t    thrust-to-weight at liftoff: %s\n"), lm, tw);
   }
   g_print ("\n");
 

@@ -659,6 +659,9 @@ sw_analysis_add_montecarlo (const SwAnalysis *prev, GCancellable *cancellable)
 
       looped->mission.losses_m_s = r->trade_losses_m_s;
       looped->mission.has_losses = TRUE;
+      /* ... and its fairing jettison point (sw-sizing.h). */
+      if (r->ascent != NULL && r->ascent->closed_loop)
+        sw_ascent_apply_loop (looped, r->ascent);
       run_montecarlo (r, looped, cancellable);
     }
   else
@@ -735,8 +738,8 @@ sw_analysis_add_ascent (const SwAnalysis *prev, GCancellable *cancellable)
           g_autoptr (SwDesign) looped = sw_design_copy (r->design);
           g_autofree char *v = NULL;
 
-          looped->mission.losses_m_s = ascent->loop_sized_losses_m_s;
-          looped->mission.has_losses = TRUE;
+          /* The loop's losses and its fairing jettison point (sw-sizing.h). */
+          sw_ascent_apply_loop (looped, ascent);
           /* The estimated coefficients of the vehicle as the loop sized it. */
           sw_mass_estimate_design (looped, &r->mass_estimate);
           r->has_sensitivity = sw_sensitivity_compute (looped, r->sensitivity_step,

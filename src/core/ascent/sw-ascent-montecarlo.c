@@ -63,14 +63,23 @@ run_sample (Job *job, SwDesign *work, gsl_rng *r, guint index)
     {
       SwStageResult *st = &sz.stages[i];
       double prop = st->propellant_mass_kg, eps = work->stages[i].structural_coefficient;
+      double c = work->stages[i].isp_vac_s * SW_G0;
+      /* The stage that drops the fairing carries it for the sizing's share
+       * of its propellant (sw-sizing.h, SwFairingCarry). */
+      gboolean drops = sz.fairing.mass_kg > 0.0 && (guint) i == sz.fairing.stage;
+      double F = drops ? sz.fairing.mass_kg : 0.0, left = (1.0 - sz.fairing.fraction) * prop;
 
       st->payload_mass_kg = above;
       st->structural_mass_kg = prop > 0.0 ? prop * eps / (1.0 - eps) : st->structural_mass_kg;
-      st->initial_mass_kg = above + prop + st->structural_mass_kg;
-      st->burnout_mass_kg = st->initial_mass_kg - prop;
-      st->delta_v_m_s = prop > 0.0 ? work->stages[i].isp_vac_s * SW_G0
-                                     * log (st->initial_mass_kg / st->burnout_mass_kg)
-                                   : 0.0;
+      st->initial_mass_kg = above + prop + st->structural_mass_kg + F;
+      st->burnout_mass_kg = st->initial_mass_kg - prop - F;
+      if (!(prop > 0.0))
+        st->delta_v_m_s = 0.0;
+      else if (drops)
+        st->delta_v_m_s = c * log (st->initial_mass_kg / (st->burnout_mass_kg + left + F))
+                          + c * log ((st->burnout_mass_kg + left) / st->burnout_mass_kg);
+      else
+        st->delta_v_m_s = c * log (st->initial_mass_kg / st->burnout_mass_kg);
       total += st->delta_v_m_s;
       above = st->initial_mass_kg;
     }
@@ -204,8 +213,7 @@ sw_ascent_montecarlo_run (const SwDesign *design, guint samples, guint32 seed, g
                        _("The Monte Carlo needs the nominal vehicle: %s"), loop->reason);
           return NULL;
         }
-      nominal->mission.losses_m_s = loop->loop_sized_losses_m_s;
-      nominal->mission.has_losses = TRUE;
+      sw_ascent_apply_loop (nominal, loop);
     }
   if (!sw_size_design (nominal, &job.sizing, error))
     return NULL;

@@ -94,6 +94,8 @@ typedef struct {
   double   coast;
   double   burn_time;
   double   dv_sized;
+  double   sz_fairing;             /* the fairing the sizing put on this stage at ignition */
+  double   sz_fairing_burn;        /* propellant the sizing burns before dropping it */
   SwStagePropulsion aero;
 } SwFlightStage;
 
@@ -139,6 +141,7 @@ typedef struct {
   double          b_c_mix;         /* phase 0's exhaust velocity (sizing) */
   double          b_dv0;           /* phase 0's sized delta-v */
   double          b_m1;            /* mass at the start of the core's own phase (sizing) */
+  gboolean        fairing_sized;   /* the sizing carried the fairing (sz_fairing) */
 } SwFlightModel;
 
 /* Everything that changes along a flight: a plain struct, so a flight can be
@@ -156,6 +159,8 @@ typedef struct {
   double        T_guide;           /* nominal duration of the guided flight */
   gboolean      fairing_on;
   gboolean      fairing_dropped;
+  guint         fairing_stage;     /* the stage at the bottom when it was dropped */
+  double        fairing_fraction;  /* of that stage's propellant burnt by then */
   gboolean      pitched_over;
   SwAscentPoint fairing_pt;
   double        max_q;

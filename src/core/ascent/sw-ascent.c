@@ -777,6 +777,19 @@ sw_flight_run (SwFlightSim *s)
           s->f.fairing_on = FALSE;
           s->f.fairing_dropped = TRUE;
           point_of (s, s->f.t, s->f.y, &s->f.fairing_pt);
+          {
+            const SwFlightSegment *sg = &m->seg[s->f.seg];
+            const SwFlightStage *fs = &m->st[sg->stage];
+            double load = fs->m_ignition - fs->m_burnout;
+
+            s->f.fairing_stage = sg->stage;
+            s->f.fairing_fraction = 0.0;
+            if (sg->is_virtual)
+              s->f.fairing_fraction = 1.0;
+            else if (sg->burning && load > 0.0)
+              s->f.fairing_fraction = CLAMP ((fs->m_ignition - (s->f.y[SW_Y_M] - m->fairing_mass))
+                                             / load, 0.0, 1.0);
+          }
           s->f.y[SW_Y_M] -= m->fairing_mass;
           break;
         case EV_GUIDE_START:
@@ -1011,9 +1024,25 @@ sw_flight_model_build (SwFlightModel *m, const SwDesign *d, const SwSizing *sz,
       if (st->propulsion.has_diameter)
         diameter = st->propulsion.diameter_m;
       ms->fires = r->propellant_mass_kg > 0.0 && !r->unused;
-      ms->m_ignition = r->initial_mass_kg;
-      ms->m_burnout = r->burnout_mass_kg;
-      ms->m_after = r->payload_mass_kg;
+      /* The flight adds the fairing while it is on: its masses leave out
+       * what the sizing carried (sw-sizing.h, SwFairingCarry). */
+      if (sz->fairing.mass_kg > 0.0 && i <= sz->fairing.stage)
+        {
+          double F = sz->fairing.mass_kg;
+          ms->sz_fairing = F;
+          ms->sz_fairing_burn = i < sz->fairing.stage
+                                  ? r->propellant_mass_kg
+                                  : sz->fairing.fraction * r->propellant_mass_kg;
+          ms->m_ignition = r->initial_mass_kg - F;
+          ms->m_burnout = r->burnout_mass_kg - (i < sz->fairing.stage ? F : 0.0);
+          ms->m_after = r->payload_mass_kg - (i < sz->fairing.stage ? F : 0.0);
+        }
+      else
+        {
+          ms->m_ignition = r->initial_mass_kg;
+          ms->m_burnout = r->burnout_mass_kg;
+          ms->m_after = r->payload_mass_kg;
+        }
       ms->thrust_vac = sw_stage_thrust_vac_n (&st->propulsion, count);
       ms->isp_vac = st->isp_vac_s;
       ms->isp_sl = st->has_isp_sl ? st->isp_sl_s : st->isp_vac_s;
@@ -1079,6 +1108,7 @@ sw_flight_model_build (SwFlightModel *m, const SwDesign *d, const SwSizing *sz,
   m->sized_total = sz->n_stages > 0 && sz->n_fixed == sz->n_stages
                      ? sz->delta_v_m_s + sz->margin_m_s : sz->delta_v_m_s;
 
+  m->fairing_sized = sz->fairing.mass_kg > 0.0;
   if (d->ascent.has_fairing_mass && d->ascent.fairing_mass_kg > 0.0)
     {
       m->fairing_mass = d->ascent.fairing_mass_kg;
@@ -1216,12 +1246,34 @@ sw_ascent_result_new (void)
   r->max_q_pa = r->max_q_time_s = r->max_q_altitude_m = NAN;
   r->max_axial_g = r->max_axial_g_time_s = r->liftoff_thrust_to_weight = NAN;
   r->max_q_alpha_kpa_deg = NAN;
+  r->fairing_propellant_fraction = NAN;
   r->pitch_over_time_s = r->pitch_kick_deg = r->guidance_start_s = NAN;
   r->steering_start_deg = r->steering_end_deg = NAN;
   r->loop_sized_losses_m_s = NAN;
   r->final_time_s = r->final_radius_m = r->final_downrange_m = NAN;
   r->final_radial_velocity_m_s = r->final_horizontal_velocity_m_s = r->final_mass_kg = NAN;
   return r;
+}
+
+void
+sw_ascent_apply_loop (SwDesign *design, const SwAscentResult *loop)
+{
+  g_return_if_fail (design != NULL && loop != NULL);
+
+  design->mission.losses_m_s = loop->loop_sized_losses_m_s;
+  design->mission.has_losses = TRUE;
+  design->ascent.has_flown_fairing = loop->sizing.fairing.mass_kg > 0.0;
+  design->ascent.flown_fairing_stage = loop->sizing.fairing.stage;
+  design->ascent.flown_fairing_fraction = loop->sizing.fairing.fraction;
+}
+
+double
+sw_ascent_liftoff_mass (const SwAscentResult *result)
+{
+  g_return_val_if_fail (result != NULL, NAN);
+
+  return result->sizing.liftoff_mass_kg
+         + (result->sizing.fairing.mass_kg > 0.0 ? 0.0 : result->fairing_mass_kg);
 }
 
 void
@@ -1296,13 +1348,19 @@ orbit_of (const double *y, double *perigee_km, double *apogee_km)
 }
 
 /* The rocket-equation delta-v of the sized vehicle up to the state @y in
- * segment @seg, fairing removed (see sw-ascent.h). */
+ * segment @seg (see sw-ascent.h): the sized delta-v of the stages burnt out,
+ * and of the stage burning, what the sizing's model gives for the propellant
+ * it has burnt, with the fairing where the sizing carries it (where the flight
+ * carries it does not matter here: a later drop than the sizing's shows as
+ * the fairing loss). */
 double
 sw_flight_sized_delta_v (const SwFlightModel *m, guint seg, const double *y, gboolean fairing_on)
 {
   const SwFlightSegment *sg = &m->seg[MIN (seg, m->n_seg - 1)];
+  const SwFlightStage *st;
   guint k = sg->stage;
   double dv = 0.0, mass = y[SW_Y_M] - (fairing_on ? m->fairing_mass : 0.0);
+  double m0, burnt, b, F;
 
   /* Stage 0 with boosters: phase 0, then the core's own phase. */
   if (k == 0 && m->has_boosters)
@@ -1312,7 +1370,16 @@ sw_flight_sized_delta_v (const SwFlightModel *m, guint seg, const double *y, gbo
   for (guint i = 0; i < k; i++)
     if (m->st[i].fires)
       dv += m->st[i].dv_sized;
-  return dv + m->st[k].c * log (m->st[k].m_ignition / mass);
+  st = &m->st[k];
+  if (!(st->sz_fairing > 0.0))
+    return dv + st->c * log (st->m_ignition / mass);
+  m0 = st->m_ignition;
+  F = st->sz_fairing;
+  burnt = m0 - mass;
+  b = st->sz_fairing_burn;
+  if (burnt <= b)
+    return dv + st->c * log ((m0 + F) / (m0 + F - burnt));
+  return dv + st->c * log ((m0 + F) / (m0 + F - b)) + st->c * log ((m0 - b) / (m0 - burnt));
 }
 
 void
@@ -1353,6 +1420,8 @@ sw_flight_fill_result (const SwFlightSim *s, SwOutcome out, SwAscentResult *res)
   res->fairing = f->fairing_pt;
   res->boosters_dropped = f->boosters_dropped;
   res->boosters = f->boosters_pt;
+  res->fairing_stage = f->fairing_dropped ? f->fairing_stage : 0;
+  res->fairing_propellant_fraction = f->fairing_dropped ? f->fairing_fraction : NAN;
   if (f->pitched_over)
     res->pitch_over_time_s = f->t_po;
 
@@ -1523,7 +1592,8 @@ sw_ascent_stage_figures (const SwDesign *design, const SwSizing *sizing, SwAscen
       o->fires = sizing->feasible && r->propellant_mass_kg > 0.0 && !r->unused;
       o->burn_time_s = sizing->feasible ? r->propellant_mass_kg / o->mass_flow_kg_s : NAN;
       o->coast_s = st->propulsion.has_coast ? st->propulsion.coast_before_ignition_s : 0.0;
-      mass = r->initial_mass_kg + (i == 0 ? fairing : 0.0);
+      /* A sizing that carries the fairing has it in its masses already. */
+      mass = r->initial_mass_kg + (i == 0 && !(sizing->fairing.mass_kg > 0.0) ? fairing : 0.0);
       o->ignition_mass_kg = sizing->feasible ? mass : NAN;
       o->ignition_thrust_to_weight = sizing->feasible
                                      ? (i == 0 ? o->thrust_sl_n : o->thrust_vac_n)

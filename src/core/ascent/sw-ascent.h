@@ -10,7 +10,8 @@
  * losses here are defined the same way:
  *     losses = (rocket-equation delta-v the SIZED vehicle must carry to just
  *               reach the orbit in the simulation) - ideal.
- * The rocket-equation delta-v is computed with the sized masses (no fairing):
+ * The rocket-equation delta-v is computed with the sized masses, the fairing
+ * where the sizing carries it (sw-sizing.h, SwFairingCarry):
  * the full sized delta-v of every stage burnt out, plus c ln(m_ignition /
  * m_cutoff) of the stage that cuts off, plus the cost of cancelling the site's
  * velocity across the orbit plane (the 2-D model flies in the plane; that
@@ -29,7 +30,9 @@
  *   drag      integral of D / m dt
  *   steering  integral of (T / m)(1 - cos alpha) dt, alpha between thrust and air velocity
  *   pressure  integral of (T_vac - T) / m dt, the back-pressure thrust deficit
- *   fairing   the rocket-equation delta-v lost to carrying the fairing
+ *   fairing   the rocket-equation delta-v lost to carrying the fairing longer than the
+ *             sizing assumed (negative: dropped earlier); 0 when the flight drops it where
+ *             the sizing does
  *   raising   with a transfer (ascent.insertion_altitude_km): the cutoff speed above
  *             the target's circular speed plus the circularisation burn at apogee
  *             (impulsive); 0 for direct insertion
@@ -205,6 +208,8 @@ struct _SwAscentResult {
   SwAscentPoint fairing;
   gboolean boosters_dropped;       /* strap-on boosters, dropped at their burnout */
   SwAscentPoint boosters;
+  guint    fairing_stage;                /* the stage burning (or about to) at the drop */
+  double   fairing_propellant_fraction;  /* of its propellant burnt by then; NAN: not dropped */
 
   /* guidance */
   double   pitch_over_time_s;
@@ -240,6 +245,16 @@ struct _SwAscentResult {
 };
 
 void sw_ascent_options_init (SwAscentOptions *options);
+
+/* Make @design (a working copy) the closed loop's vehicle: the losses it
+ * was sized with and its fairing jettison point (sw-sizing.h).  Sizing the
+ * copy then gives loop->sizing. */
+void sw_ascent_apply_loop (SwDesign *design, const SwAscentResult *loop);
+
+/* The mass at liftoff of the vehicle flown: the sizing's liftoff mass, which
+ * includes the fairing (sw-sizing.h, SwFairingCarry); for a sizing made
+ * without it, the fairing is added. */
+double sw_ascent_liftoff_mass (const SwAscentResult *result);
 
 /* Checks that the design has what the simulation needs (thrust on every
  * stage that fires, sea-level Isp and diameter on the first, an orbit

@@ -48,7 +48,16 @@ typedef struct {
   double          history[SW_ASCENT_LOOP_MAX];
   double          F[SW_ASCENT_LOOP_MAX];         /* F at history[i], NAN if failed */
   double          mass[SW_ASCENT_LOOP_MAX];
+  guint           fairing_stage[SW_ASCENT_LOOP_MAX];     /* the sizing's jettison point */
+  double          fairing_fraction[SW_ASCENT_LOOP_MAX];  /* per pass */
   guint           n;
+  /* The fairing: where the sizing drops it (from the first pass that
+   * flies, the flown jettison), and where the last pass dropped it. */
+  guint           f_stage;
+  double          f_fraction;
+  gboolean        flown_dropped;
+  guint           flown_stage;
+  double          flown_fraction;
   gboolean        failed;       /* the last pass gave no answer: why[] says why */
   gboolean        full;         /* out of passes */
   gboolean        aborted;      /* error or cancelled: *error is set */
@@ -66,7 +75,8 @@ pass (Loop *lp, double L)
 
   lp->failed = FALSE;
   for (guint i = 0; i < lp->n; i++)
-    if (lp->history[i] == L)
+    if (lp->history[i] == L && lp->fairing_stage[i] == lp->f_stage
+        && lp->fairing_fraction[i] == lp->f_fraction)
       {
         lp->failed = !isfinite (lp->F[i]);
         return lp->F[i];
@@ -78,11 +88,16 @@ pass (Loop *lp, double L)
     }
   lp->work->mission.losses_m_s = L;
   lp->work->mission.has_losses = TRUE;
+  lp->work->ascent.has_flown_fairing = TRUE;
+  lp->work->ascent.flown_fairing_stage = lp->f_stage;
+  lp->work->ascent.flown_fairing_fraction = lp->f_fraction;
   if (!sw_size_design (lp->work, &sizing, lp->error))
     {
       lp->aborted = TRUE;
       return NAN;
     }
+  lp->fairing_stage[lp->n] = lp->f_stage;
+  lp->fairing_fraction[lp->n] = lp->f_fraction;
   lp->history[lp->n] = L;
   lp->F[lp->n] = NAN;
   lp->mass[lp->n] = sizing.liftoff_mass_kg;
@@ -114,6 +129,9 @@ pass (Loop *lp, double L)
         sw_ascent_result_free (r);
       return NAN;
     }
+  lp->flown_dropped = r->fairing_dropped;
+  lp->flown_stage = r->fairing_stage;
+  lp->flown_fraction = r->fairing_propellant_fraction;
   F = r->losses_m_s - L;
   lp->F[lp->n - 1] = F;
   if (lp->res == NULL || !isfinite (lp->res_F) || fabs (F) <= fabs (lp->res_F))
@@ -149,6 +167,7 @@ sw_ascent_close_loop (const SwDesign *design, const SwAscentOptions *options,
   double L_fail = NAN;               /* the least allowance known not to fly */
   char fail_why[SW_ASCENT_REASON_MAX] = "";
   gboolean converged = FALSE, bracketed = FALSE, first_down = TRUE;
+  guint rounds = 0;
 
   g_return_val_if_fail (design != NULL, NULL);
 
@@ -164,8 +183,22 @@ sw_ascent_close_loop (const SwDesign *design, const SwAscentOptions *options,
 
   L0 = design->mission.has_losses ? design->mission.losses_m_s : SW_ASCENT_FIRST_GUESS_LOSSES;
   L0 = CLAMP (L0, 0.0, L_max);
+  {
+    SwFairingCarry def;
+
+    sw_fairing_carry_default (design, design->n_stages, &def);
+    lp.f_stage = def.stage;
+    lp.f_fraction = def.fraction;
+  }
 
   /* 1. A flyable allowance. */
+restart:
+  Lb = Fb = NAN;
+  slope = -0.5;
+  L_fail = NAN;
+  fail_why[0] = '\0';
+  converged = bracketed = FALSE;
+  first_down = TRUE;
   La = L0;
   Fa = pass (&lp, La);
   for (double step = 500.0; lp.failed && !lp.aborted && !lp.full; step *= 2.0)
@@ -186,7 +219,6 @@ sw_ascent_close_loop (const SwDesign *design, const SwAscentOptions *options,
                   fail_why);
       goto done;
     }
-
   /* 2. The bracket [lo, hi] with F(lo) > 0 > F(hi). */
   if (Fa > 0.0 && fabs (Fa) >= INNER_TOLERANCE)
     {
@@ -422,6 +454,24 @@ sw_ascent_close_loop (const SwDesign *design, const SwAscentOptions *options,
     }
 
 done:
+  /* The fairing: the sizing drops it by default at the second stage's
+   * ignition (sw-sizing.h).  When the converged flight drops it elsewhere
+   * and that costs more than the loop's inner tolerance (its fairing loss),
+   * the loop runs again from the converged allowance with the fairing
+   * sized where this flight drops it; twice more at most. */
+  if (converged && lp.res != NULL && lp.res->fairing_dropped && rounds < 2
+      && fabs (lp.res->fairing_loss_m_s) > INNER_TOLERANCE
+      && (lp.res->fairing_stage != lp.f_stage
+          || lp.res->fairing_propellant_fraction != lp.f_fraction))
+    {
+      rounds++;
+      lp.f_stage = lp.res->fairing_stage;
+      lp.f_fraction = lp.res->fairing_propellant_fraction;
+      L0 = lp.res_L;
+      g_clear_pointer (&lp.res, sw_ascent_result_free);
+      lp.res_F = NAN;
+      goto restart;
+    }
   if (lp.res == NULL)
     {
       /* No pass at all (should not happen): report the failure plainly. */

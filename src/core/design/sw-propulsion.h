@@ -63,6 +63,12 @@ typedef struct {
   gboolean has_pitch_kick;
   gboolean has_insertion_altitude;
   gboolean has_max_q_alpha;
+  /* Not a key of the file (never loaded or saved): where a flown ascent
+   * dropped the fairing, for the sizing of the closed loop's vehicle
+   * (sw-sizing.h, SwFairingCarry; set on working copies only). */
+  gboolean has_flown_fairing;
+  guint    flown_fairing_stage;
+  double   flown_fairing_fraction;
 } SwDesignAscent;
 
 extern const char *const sw_propulsion_stage_keys[];

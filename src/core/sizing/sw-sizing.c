@@ -13,11 +13,28 @@
 #include <math.h>
 
 void
+sw_fairing_carry_default (const SwDesign *design, guint n_stages, SwFairingCarry *out)
+{
+  g_return_if_fail (design != NULL && out != NULL);
+
+  out->mass_kg = design->ascent.has_fairing_mass && design->ascent.fairing_mass_kg > 0.0
+                   ? design->ascent.fairing_mass_kg : 0.0;
+  out->stage = n_stages >= 2 ? 1 : 0;
+  out->fraction = n_stages >= 2 ? 0.0 : 1.0;
+  if (design->ascent.has_flown_fairing && n_stages > 0)
+    {
+      out->stage = MIN (design->ascent.flown_fairing_stage, n_stages - 1);
+      out->fraction = CLAMP (design->ascent.flown_fairing_fraction, 0.0, 1.0);
+    }
+}
+
+void
 sw_stage_set_from_design (SwStageSet *set, const SwDesign *design)
 {
   g_return_if_fail (set != NULL && design != NULL);
 
   set->n_stages = MIN (design->n_stages, SW_MAX_STAGES);
+  sw_fairing_carry_default (design, set->n_stages, &set->fairing);
   for (guint i = 0; i < set->n_stages; i++)
     {
       set->exhaust_velocity_m_s[i] = design->stages[i].isp_vac_s * SW_G0;
@@ -33,6 +50,7 @@ sw_stage_set_extend (SwStageSet *set, const SwDesign *design, guint n_stages)
 
   n_stages = CLAMP (n_stages, 1, SW_MAX_STAGES);
   set->n_stages = n_stages;
+  sw_fairing_carry_default (design, n_stages, &set->fairing);
   for (guint k = 0; k < n_stages; k++)
     {
       const SwStage *src = &design->stages[MIN (k, design->n_stages - 1)];
@@ -119,6 +137,70 @@ brent_root (gsl_function *fn, double lo, double hi, double epsabs, double epsrel
   return x;
 }
 
+/* ---- the fairing ------------------------------------------------------- */
+
+/* Is stage @i of @set the one that drops the fairing?  (The stages below it
+ * carry the fairing as part of their payload.) */
+static gboolean
+drops_fairing (const SwStageSet *set, guint i)
+{
+  return set->fairing.mass_kg > 0.0 && i == set->fairing.stage;
+}
+
+/* The rocket-equation delta-v of a stage of propellant @mp and structure
+ * @ms over @P (everything above, no fairing) that carries the fairing @F for
+ * the first @phi of its propellant:
+ *   c ln((P + ms + mp + F) / (P + ms + (1 - phi) mp + F))
+ *   + c ln((P + ms + (1 - phi) mp) / (P + ms)). */
+static double
+fairing_stage_delta_v (double c, double P, double ms, double mp, double F, double phi)
+{
+  double left = (1.0 - phi) * mp;
+
+  return c * log ((P + ms + mp + F) / (P + ms + left + F)) + c * log ((P + ms + left) / (P + ms));
+}
+
+/* The standard stage: ignition mass over @P for mass ratio @n. */
+static double
+stage_ignition_mass (double P, double n, double eps)
+{
+  return P * n * (1.0 - eps) / (1.0 - n * eps);
+}
+
+typedef struct {
+  double c, eps, P, F, phi, dv;
+} FairingStageParams;
+
+static double
+fairing_stage_residual (double mp, void *data)
+{
+  const FairingStageParams *q = data;
+  double ms = mp * q->eps / (1.0 - q->eps);
+  return fairing_stage_delta_v (q->c, q->P, ms, mp, q->F, q->phi) - q->dv;
+}
+
+/* The stage that drops the fairing, sized to give @dv over @P: its
+ * propellant solves fairing_stage_delta_v = dv, bracketed by the stage
+ * over P alone (phi = 0) and over P + F (phi = 1), Brent's method (GSL).
+ * Returns the propellant; the stage's structure is mp eps / (1 - eps). */
+static double
+fairing_stage_propellant (double c, double eps, double P, double F, double phi, double dv)
+{
+  double n = exp (dv / c), lo, hi;
+  FairingStageParams q = { c, eps, P, F, CLAMP (phi, 0.0, 1.0), dv };
+  gsl_function fn = { fairing_stage_residual, &q };
+
+  if (!(dv > 0.0))
+    return 0.0;
+  lo = stage_ignition_mass (P, n, eps) * (1.0 - 1.0 / n);
+  hi = stage_ignition_mass (P + F, n, eps) * (1.0 - 1.0 / n);
+  if (q.phi <= 0.0)
+    return lo;
+  if (q.phi >= 1.0 || !(hi > lo))
+    return hi;
+  return brent_root (&fn, lo, hi, 1e-9, 1e-13);
+}
+
 gboolean
 sw_optimal_split (const SwStageSet *set, double delta_v_m_s,
                   double *stage_delta_v, double *multiplier_s_m)
@@ -165,11 +247,19 @@ sw_liftoff_mass_for_split (const SwStageSet *set, double payload_kg, const doubl
 
   for (int i = (int) set->n_stages - 1; i >= 0; i--)
     {
-      double eps = set->structural_coefficient[i];
-      double n = exp (stage_delta_v[i] / set->exhaust_velocity_m_s[i]);
+      double eps = set->structural_coefficient[i], c = set->exhaust_velocity_m_s[i];
+      double n = exp (stage_delta_v[i] / c);
       if (!(stage_delta_v[i] >= 0.0) || !(n * eps < 1.0))
         return NAN;
-      m *= n * (1.0 - eps) / (1.0 - n * eps);
+      if (drops_fairing (set, (guint) i))
+        {
+          double F = set->fairing.mass_kg;
+          double mp = fairing_stage_propellant (c, eps, m, F, set->fairing.fraction,
+                                                stage_delta_v[i]);
+          m += mp / (1.0 - eps) + F;
+        }
+      else
+        m = stage_ignition_mass (m, n, eps);
     }
   return m;
 }
@@ -203,6 +293,21 @@ explain_unused (SwSizing *out, const SwDesign *names, guint n)
       }
 }
 
+/* The figures of the stage that drops the fairing, of propellant @mp over
+ * @P (no fairing): its ignition mass carries the fairing, its burnout mass
+ * does not. */
+static void
+set_fairing_stage (SwStageResult *r, const SwStageSet *set, double P, double mp)
+{
+  double eps = set->structural_coefficient[set->fairing.stage];
+
+  r->propellant_mass_kg = mp;
+  r->structural_mass_kg = mp > 0.0 ? mp * eps / (1.0 - eps) : 0.0;
+  r->stage_mass_kg = r->propellant_mass_kg + r->structural_mass_kg;
+  r->initial_mass_kg = P + r->stage_mass_kg + set->fairing.mass_kg;
+  r->burnout_mass_kg = P + r->structural_mass_kg;
+}
+
 static void
 size_with_names (const SwStageSet *set, const SwDesign *names, double payload_kg,
                  double delta_v_m_s, SwSplitMode split, SwSizing *out)
@@ -224,6 +329,7 @@ size_with_names (const SwStageSet *set, const SwDesign *names, double payload_kg
   out->multiplier_s_m = NAN;
   out->delta_v_limit_m_s = vehicle_limit (set);
   out->margin_m_s = out->delta_v_limit_m_s - delta_v_m_s;
+  out->fairing = set->fairing;
 
   for (guint i = 0; i < n; i++)
     {
@@ -318,15 +424,23 @@ size_with_names (const SwStageSet *set, const SwDesign *names, double payload_kg
       SwStageResult *r = &out->stages[i];
       double eps = set->structural_coefficient[i];
       double nr = r->mass_ratio;
-      double m0 = m_above * nr * (1.0 - eps) / (1.0 - nr * eps);
 
       r->payload_mass_kg = m_above;
-      r->initial_mass_kg = m0;
-      r->burnout_mass_kg = m0 / nr;
-      r->propellant_mass_kg = m0 - r->burnout_mass_kg;
+      if (drops_fairing (set, (guint) i))
+        {
+          set_fairing_stage (r, set, m_above,
+                             fairing_stage_propellant (r->exhaust_velocity_m_s, eps, m_above,
+                                                       set->fairing.mass_kg,
+                                                       set->fairing.fraction, dv[i]));
+          m_above = r->initial_mass_kg;
+          continue;
+        }
+      r->initial_mass_kg = stage_ignition_mass (m_above, nr, eps);
+      r->burnout_mass_kg = r->initial_mass_kg / nr;
+      r->propellant_mass_kg = r->initial_mass_kg - r->burnout_mass_kg;
       r->structural_mass_kg = r->unused ? 0.0 : r->burnout_mass_kg - m_above;
       r->stage_mass_kg = r->propellant_mass_kg + r->structural_mass_kg;
-      m_above = m0;
+      m_above = r->initial_mass_kg;
     }
   out->liftoff_mass_kg = m_above;
   out->payload_fraction = payload_kg / m_above;
@@ -413,8 +527,17 @@ fixed_total (const FixedProblem *p, double payload_kg, double d, double *dv)
       if (is_fixed (p->fixed_kg, (guint) i))
         {
           double mp = p->fixed_kg[i], ms = mp * eps / (1.0 - eps);
-          m0 = m_above + mp + ms;
-          dv[i] = c * log (m0 / (m0 - mp));
+          if (drops_fairing (p->set, (guint) i))
+            {
+              m0 = m_above + mp + ms + p->set->fairing.mass_kg;
+              dv[i] = fairing_stage_delta_v (c, m_above, ms, mp, p->set->fairing.mass_kg,
+                                             p->set->fairing.fraction);
+            }
+          else
+            {
+              m0 = m_above + mp + ms;
+              dv[i] = c * log (m0 / (m0 - mp));
+            }
         }
       else
         {
@@ -423,7 +546,13 @@ fixed_total (const FixedProblem *p, double payload_kg, double d, double *dv)
           n = exp (dv[i] / c);
           if (!(n * eps < 1.0))
             return NAN;
-          m0 = m_above * n * (1.0 - eps) / (1.0 - n * eps);
+          if (drops_fairing (p->set, (guint) i))
+            m0 = m_above + fairing_stage_propellant (c, eps, m_above, p->set->fairing.mass_kg,
+                                                     p->set->fairing.fraction, dv[i])
+                           / (1.0 - eps)
+                 + p->set->fairing.mass_kg;
+          else
+            m0 = stage_ignition_mass (m_above, n, eps);
         }
       total += dv[i];
       m_above = m0;
@@ -477,6 +606,7 @@ size_fixed (const SwStageSet *set, const double *fixed_kg, const SwDesign *names
   out->feasible = TRUE;
   out->infeasible_stage = -1;
   out->multiplier_s_m = NAN;
+  out->fairing = set->fairing;
 
   for (guint i = 0; i < n; i++)
     {
@@ -591,7 +721,20 @@ size_fixed (const SwStageSet *set, const double *fixed_kg, const SwDesign *names
       r->delta_v_m_s = dv[i];
       r->delta_v_share = delta_v_m_s > 0.0 ? dv[i] / delta_v_m_s : 0.0;
       r->payload_mass_kg = m_above;
-      if (r->fixed)
+      if (drops_fairing (set, (guint) i))
+        {
+          double c = r->exhaust_velocity_m_s;
+          r->mass_ratio = exp (dv[i] / c);
+          r->unused = !r->fixed && split == SW_SPLIT_OPTIMAL && dv[i] <= 0.0;
+          if (r->unused)
+            out->n_unused++;
+          set_fairing_stage (r, set, m_above,
+                             r->fixed ? fixed_kg[i]
+                                      : fairing_stage_propellant (c, eps, m_above,
+                                                                  set->fairing.mass_kg,
+                                                                  set->fairing.fraction, dv[i]));
+        }
+      else if (r->fixed)
         {
           r->propellant_mass_kg = fixed_kg[i];
           r->structural_mass_kg = fixed_kg[i] * eps / (1.0 - eps);
@@ -664,6 +807,17 @@ sw_sizing_get_shares (const SwSizing *sizing, double *shares)
 gboolean
 sw_size_design_serial (const SwDesign *design, SwSizing *out, GError **error)
 {
+  SwFairingCarry def;
+
+  g_return_val_if_fail (design != NULL && out != NULL, FALSE);
+  sw_fairing_carry_default (design, design->n_stages, &def);
+  return sw_size_design_fairing (design, def.stage, def.fraction, out, error);
+}
+
+gboolean
+sw_size_design_fairing (const SwDesign *design, guint fairing_stage, double fairing_fraction,
+                        SwSizing *out, GError **error)
+{
   SwStageSet set;
   double dv;
 
@@ -677,6 +831,8 @@ sw_size_design_serial (const SwDesign *design, SwSizing *out, GError **error)
   if (!sw_design_required_delta_v (design, &dv, error))
     return FALSE;
   sw_stage_set_from_design (&set, design);
+  set.fairing.stage = MIN (fairing_stage, set.n_stages - 1);
+  set.fairing.fraction = isfinite (fairing_fraction) ? CLAMP (fairing_fraction, 0.0, 1.0) : 0.0;
   for (guint i = 0; i < design->n_stages && i < SW_MAX_STAGES; i++)
     if (design->stages[i].propellant.has_propellant_kg)
       {

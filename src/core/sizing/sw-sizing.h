@@ -10,18 +10,33 @@ G_BEGIN_DECLS
 
 #define SW_REASON_MAX 256
 
+/* The fairing in the sizing.  The fairing is mass that the stages below
+ * its jettison carry: every stage that fires before the jettison stage
+ * carries it through its whole burn, and the jettison stage carries it for
+ * the first @fraction of its propellant (0: dropped at its ignition, 1: at
+ * its burnout).  Without a flown ascent the sizing assumes the default of
+ * sw_fairing_carry_default (); the closed loop takes the jettison point
+ * from its flown ascent (README, "The fairing in the sizing"). */
+typedef struct {
+  double mass_kg;               /* 0: no fairing */
+  guint  stage;                 /* index of the stage during whose burn it is dropped */
+  double fraction;              /* of that stage's propellant burnt with it, 0..1 */
+} SwFairingCarry;
+
 struct _SwStageResult {
   double delta_v_m_s;
   double delta_v_share;
   double exhaust_velocity_m_s;  /* c = Isp_vac g0 */
   double delta_v_limit_m_s;     /* c ln(1/eps) */
-  double mass_ratio;            /* n = m_initial / m_burnout */
+  double mass_ratio;            /* n = m_initial / m_burnout; for the stage that drops the
+                                 * fairing during its burn, exp(delta-v / c) */
   double propellant_mass_kg;
   double structural_mass_kg;
   double stage_mass_kg;         /* propellant + structure */
   double payload_mass_kg;       /* everything above this stage */
-  double initial_mass_kg;       /* at ignition, everything above included */
-  double burnout_mass_kg;
+  double initial_mass_kg;       /* at ignition, everything above included (the fairing
+                                 * while it is carried) */
+  double burnout_mass_kg;       /* the fairing included below its jettison stage */
   gboolean feasible;
   gboolean unused;              /* optimal split gave it no delta-v */
   gboolean fixed;               /* a fixed propellant load: not sized */
@@ -68,6 +83,7 @@ struct _SwSizing {
   guint    n_unused;               /* stages given no delta-v by the optimum */
   guint    n_fixed;                /* stages with a fixed propellant load */
   guint    n_stages;
+  SwFairingCarry fairing;          /* how the sizing carried the fairing (mass 0: none) */
   SwStageResult stages[SW_MAX_STAGES];
   /* With boosters stage 0 is the core: its delta-v is that of phase 0 and
    * of its own phase together, its initial mass the liftoff mass (boosters
@@ -81,7 +97,16 @@ typedef struct {
   double exhaust_velocity_m_s[SW_MAX_STAGES];
   double structural_coefficient[SW_MAX_STAGES];
   double share[SW_MAX_STAGES];      /* manual split only */
+  SwFairingCarry fairing;           /* mass 0: none (sw_stage_set_from_design fills it) */
 } SwStageSet;
+
+/* The design's fairing with the default jettison point: dropped at the
+ * ignition of the second stage (carried by the first stage's whole burn;
+ * common practice: fairings are dropped early in the second stage's burn,
+ * once the heating allows), or, on a one-stage vehicle, carried to burnout;
+ * or where the design's working copy says a flown ascent dropped it
+ * (design->ascent.has_flown_fairing, set by the closed loop). */
+void     sw_fairing_carry_default (const SwDesign *design, guint n_stages, SwFairingCarry *out);
 
 void     sw_stage_set_from_design (SwStageSet *set, const SwDesign *design);
 /* The hypothetical @n_stages vehicle of the stage-count trade: stage k takes
@@ -123,6 +148,11 @@ void     sw_size_with_fixed (const SwStageSet *set, const double *fixed_propella
 gboolean sw_size_design (const SwDesign *design, SwSizing *out, GError **error);
 /* The same for the serial stages alone (the boosters ignored). */
 gboolean sw_size_design_serial (const SwDesign *design, SwSizing *out, GError **error);
+/* The serial sizing with the fairing dropped in stage @fairing_stage after
+ * @fairing_fraction of its propellant (the flown jettison point); the
+ * serial sizing above takes the default jettison point (SwFairingCarry). */
+gboolean sw_size_design_fairing (const SwDesign *design, guint fairing_stage,
+                                 double fairing_fraction, SwSizing *out, GError **error);
 
 /* The delta-v share of each stage in @sizing, into @shares (SW_MAX_STAGES
  * values): the split on screen, for sw_design_take_manual_shares ().  A
@@ -136,7 +166,8 @@ gboolean sw_optimal_split (const SwStageSet *set, double delta_v_m_s,
                            double *stage_delta_v, double *multiplier_s_m);
 
 /* Liftoff mass for given per-stage delta-v (no feasibility text), NAN when a
- * stage cannot deliver its share.  Used by tests and the minimiser check. */
+ * stage cannot deliver its share; the set's fairing included.  Used by the
+ * Monte Carlo, tests and the minimiser check. */
 double   sw_liftoff_mass_for_split (const SwStageSet *set, double payload_kg,
                                     const double *stage_delta_v);
 
