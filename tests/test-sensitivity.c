@@ -12,6 +12,7 @@
 
 #include <gsl/gsl_deriv.h>
 #include <math.h>
+#include <string.h>
 
 static void
 curtis_set (SwStageSet *set)
@@ -21,6 +22,7 @@ curtis_set (SwStageSet *set)
    * eps 0.10/0.15/0.20, in firing order the 400 s stage first. */
   const double isp[] = { 400, 350, 300 }, eps[] = { 0.10, 0.15, 0.20 };
 
+  memset (set, 0, sizeof *set);    /* no fairing */
   set->n_stages = 3;
   for (guint i = 0; i < 3; i++)
     {
@@ -33,6 +35,7 @@ curtis_set (SwStageSet *set)
 static void
 random_set (GRand *rand, SwStageSet *set)
 {
+  memset (set, 0, sizeof *set);    /* no fairing */
   set->n_stages = (guint) g_rand_int_range (rand, 1, 6);
   for (guint i = 0; i < set->n_stages; i++)
     {

@@ -40,6 +40,7 @@ void sw_ascent_result_add_note (SwAscentResult *result, const char *format, ...)
 #define SW_RE SW_WGS84_A           /* the sphere of the model, as in the budget */
 #define SW_DEG (G_PI / 180.0)
 #define SW_NY 12                   /* the state: */
+#define SW_NY_LEAN 5               /* r, downrange, vr, vt, m: all a trial flight needs */
 enum { SW_Y_R, SW_Y_S, SW_Y_VR, SW_Y_VT, SW_Y_M,       /* r, downrange, vr, vt, m */
        SW_Y_LG, SW_Y_LD, SW_Y_LS, SW_Y_LP, SW_Y_LE,    /* loss integrals, engines' delta-v */
        SW_Y_LGA,                                       /* gravity loss, air-relative angle */
@@ -201,6 +202,13 @@ typedef struct {
   gsl_odeiv2_step    *step;
   gsl_odeiv2_control *ctl;
   gsl_odeiv2_evolve  *evo;
+  /* Lean flights (the solvers' trials) integrate the state only, not the
+   * loss integrals, which only the flight reported needs: the same
+   * integrator on the first SW_NY_LEAN components. */
+  gboolean            lean;
+  gsl_odeiv2_step    *step_lean;
+  gsl_odeiv2_control *ctl_lean;
+  gsl_odeiv2_evolve  *evo_lean;
   gsl_root_fsolver   *root;
   GArray             *samples;
   guint               n_runs;      /* trajectories flown */
@@ -217,6 +225,10 @@ SwBuildStatus sw_flight_model_build (SwFlightModel *m, const SwDesign *d, const 
                                      GError **error);
 void          sw_flight_init (SwFlightSim *s, const SwFlightModel *m);
 void          sw_flight_clear (SwFlightSim *s);
+/* Relative tolerance of the integrator (both the full and the lean one). */
+void          sw_flight_set_rtol (SwFlightSim *s, double rtol);
+/* Lean flights leave the loss integrals (y[SW_NY_LEAN..]) untouched. */
+void          sw_flight_set_lean (SwFlightSim *s, gboolean lean);
 void          sw_flight_start (SwFlightSim *s, double r, double vr, double vt, double mass,
                                SwSteer steer);
 SwOutcome     sw_flight_run (SwFlightSim *s);

@@ -688,6 +688,9 @@ sw_ascent_solve_sized (const SwDesign *design, const SwSizing *sizing,
       return g_steal_pointer (&res);
     }
 
+  /* The trials need the state only; the flight reported below has every
+   * integral. */
+  sw_flight_set_lean (s, TRUE);
   /* The vertical rise is the same for every kick: fly it once. */
   {
     start_on_pad (s, SW_STEER_VERTICAL);
@@ -731,13 +734,13 @@ sw_ascent_solve_sized (const SwDesign *design, const SwSizing *sizing,
        * tolerance asked for. */
       sv->tol = 1e-3;
       if (SEARCH_RTOL > opt.rtol)
-        gsl_odeiv2_control_init (s->ctl, 1e-6, SEARCH_RTOL, 1.0, 0.0);
+        sw_flight_set_rtol (s, SEARCH_RTOL);
       ok = optimise_kick (sv, start, !warm, &kick, &at_edge) && !sv->cancelled;
       /* A warm start that found nothing: the full search from the grid. */
       if (!ok && warm && !sv->cancelled)
         ok = optimise_kick (sv, start, TRUE, &kick, &at_edge) && !sv->cancelled;
       sv->tol = 1e-4;
-      gsl_odeiv2_control_init (s->ctl, 1e-6, sv->model.opt.rtol, 1.0, 0.0);
+      sw_flight_set_rtol (s, sv->model.opt.rtol);
       if (ok)
         ok = solve_for_kick (sv, kick);
       res->pitch_kick_solved = TRUE;
@@ -774,6 +777,7 @@ sw_ascent_solve_sized (const SwDesign *design, const SwSizing *sizing,
 
   /* The flight to report, from liftoff, recorded. */
   {
+    sw_flight_set_lean (s, FALSE);
     s->record = opt.record;
     s->kick = kick;
     s->tan_s = tan (clamp_psi (sv->psi[0]));
