@@ -9,6 +9,8 @@
 #include "config.h"
 
 #include "sw-application.h"
+#include "sw-ascent-montecarlo.h"
+#include "sw-format.h"
 #include "sw-number-field.h"
 #include "sw-sizing.h"
 #include "sw-stage-thrust.h"
@@ -397,6 +399,114 @@ test_wheel_trade_page (void)
   g_assert_cmpfloat (gtk_spin_button_get_value (GTK_SPIN_BUTTON (seed)), ==,
                      (double) before->uncertainty.seed + 1.0);
   gtk_popover_popdown (GTK_POPOVER (popover));
+  sw_test_window_close (w);
+}
+
+/* The trade page's switch for the simulated Monte Carlo, by real key
+ * events on the focused switch: on, it flies the samples on a worker thread
+ * with a progress bar and shows the margin's percentiles and the reserve;
+ * off while flying, it cancels and shows nothing stale. */
+typedef struct {
+  SwSimulatedMc *mc;
+  SwSimulatedMcState state;
+} McWait;
+
+static gboolean
+mc_in_state (gpointer data)
+{
+  McWait *w = data;
+  return sw_simulated_mc_get_state (w->mc) == w->state;
+}
+
+static gboolean
+switch_on (gpointer data)
+{
+  return gtk_switch_get_active (GTK_SWITCH (data));
+}
+
+static gboolean
+switch_off (gpointer data)
+{
+  return !gtk_switch_get_active (GTK_SWITCH (data));
+}
+
+/* Space on the focused switch; GTK turns it at the end of its animation. */
+static void
+press_switch (SwWindow *w, GtkWidget *toggle)
+{
+  gboolean was = gtk_switch_get_active (GTK_SWITCH (toggle));
+
+  focus_field (w, toggle);
+  xdo ("key", "--clearmodifiers", "space", NULL);
+  sw_test_wait_until (was ? switch_off : switch_on, toggle, 10000, "the switch to turn");
+}
+
+static void
+test_simulated_mc (void)
+{
+  SwWindow *w = window_with_demo ("small-sat-launcher.stagewright");
+  SwTradePage *page;
+  SwSimulatedMc *mc;
+  GtkWidget *toggle;
+  g_autoptr (SwDesign) d = sw_design_copy (doc_design (w));
+  McWait wait;
+  guint cancelled;
+
+  /* 200 samples with spreads on Isp and structure (the design's keys). */
+  d->uncertainty.samples = 200;
+  d->uncertainty.isp = (SwSpread) { SW_SPREAD_NORMAL, 1.0 };
+  d->uncertainty.structural_coefficient = (SwSpread) { SW_SPREAD_UNIFORM, 5.0 };
+  sw_document_commit (sw_window_get_document (w), sw_design_copy (d), NULL);
+  g_assert_true (sw_window_show_page (w, "trade"));
+  sw_test_wait_until (sw_test_result_drawn, w, 60000, "the trade page to be drawn");
+  page = sw_window_get_trade_page (w);
+  mc = sw_trade_page_get_simulated_mc (page);
+  toggle = sw_simulated_mc_get_switch (mc);
+  wait.mc = mc;
+  g_assert_cmpint (sw_simulated_mc_get_state (mc), ==, SW_SIMULATED_MC_OFF);
+  g_assert_true (gtk_widget_get_sensitive (toggle));
+  g_assert_nonnull (strstr (sw_simulated_mc_get_text (mc), "Off:"));
+
+  /* On, then off while it flies: cancelled, nothing shown. */
+  press_switch (w, toggle);
+  g_assert_true (gtk_switch_get_active (GTK_SWITCH (toggle)));
+  g_assert_cmpint (sw_simulated_mc_get_state (mc), ==, SW_SIMULATED_MC_RUNNING);
+  g_assert_nonnull (strstr (sw_simulated_mc_get_text (mc), "Flying 200 ascents"));
+  cancelled = sw_simulated_mc_get_runs_cancelled (mc);
+  press_switch (w, toggle);
+  g_assert_false (gtk_switch_get_active (GTK_SWITCH (toggle)));
+  g_assert_cmpint (sw_simulated_mc_get_state (mc), ==, SW_SIMULATED_MC_OFF);
+  g_assert_cmpuint (sw_simulated_mc_get_runs_cancelled (mc), ==, cancelled + 1);
+  g_usleep (300000);
+  drain ();
+  g_assert_cmpint (sw_simulated_mc_get_state (mc), ==, SW_SIMULATED_MC_OFF);
+  g_assert_null (strstr (sw_simulated_mc_get_text (mc), "percentile"));
+
+  /* On again, to the end: the percentiles, the chance and the reserve. */
+  press_switch (w, toggle);
+  g_assert_cmpint (sw_simulated_mc_get_state (mc), ==, SW_SIMULATED_MC_RUNNING);
+  wait.state = SW_SIMULATED_MC_DONE;
+  sw_test_wait_until (mc_in_state, &wait, 240000, "the simulated Monte Carlo to finish");
+  g_assert_nonnull (strstr (sw_simulated_mc_get_text (mc),
+                            "Delta-v margin over 200 simulated ascents: 5th percentile "));
+  g_assert_nonnull (strstr (sw_simulated_mc_get_text (mc), "Reaches the orbit in "));
+  g_assert_cmpfloat (sw_simulated_mc_get_fraction (mc), ==, 1.0);
+  /* The same flights as the core's, seeded: the median margin as text. */
+  {
+    g_autoptr (SwAscentMonteCarlo) core = NULL;
+    g_autoptr (GError) error = NULL;
+    g_autofree char *median = NULL, *want = NULL;
+
+    core = sw_ascent_montecarlo_run (doc_design (w), 200, d->uncertainty.seed, 2, NULL, NULL,
+                                     NULL, &error);
+    g_assert_no_error (error);
+    median = sw_format_speed (core->p50_margin_m_s);
+    want = g_strdup_printf ("median %s,", median);
+    g_assert_nonnull (strstr (sw_simulated_mc_get_text (mc), want));
+  }
+  /* The design is not changed by any of it. */
+  assert_unchanged (w, d);
+  maybe_shot (w, "simulated-mc.png");
   sw_test_window_close (w);
 }
 
@@ -1034,6 +1144,7 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/input/wheel-every-field", test_wheel_every_field);
   g_test_add_func ("/gui/input/every-shortcut-in-field", test_every_shortcut_in_field);
   g_test_add_func ("/gui/input/stage-keys-in-spins", test_stage_keys_in_spins);
+  g_test_add_func ("/gui/input/simulated-mc", test_simulated_mc);
   g_test_add_func ("/gui/input/dependent-field", test_dependent_field);
   g_test_add_func ("/gui/input/undo-in-field", test_undo_in_field);
   g_test_add_func ("/gui/input/first-start", test_first_start);

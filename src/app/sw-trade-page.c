@@ -6,6 +6,7 @@
 #include "sw-trade-page.h"
 
 #include "sw-number-field.h"
+#include "sw-simulated-mc.h"
 
 #include "sw-design-fields.h"
 #include "sw-format.h"
@@ -36,6 +37,8 @@ struct _SwTradePage {
   double       lines[3];
 
   GtkWidget     *scroller;
+  GtkWidget     *cards;
+  SwSimulatedMc *simulated_mc;   /* the switch for a simulated ascent per sample */
   GtkSpinButton *step_spin;
   GtkSpinButton *samples_spin;
   GtkSpinButton *seed_spin;
@@ -675,6 +678,10 @@ sw_trade_page_set_result (SwTradePage *self, SwAnalysis *result)
     return;
   g_clear_pointer (&self->result, sw_analysis_unref);
   self->result = result != NULL ? sw_analysis_ref (result) : NULL;
+  /* A new design restarts (or cancels) the simulated Monte Carlo at once,
+   * shown or not; later phases of the same design change nothing. */
+  if (result != NULL && result->ok)
+    sw_simulated_mc_set_design (self->simulated_mc, result->design);
   /* Behind another page the cards' labels would cost the window a
    * relayout on every edit: the page catches up when it is shown. */
   self->stale = TRUE;
@@ -857,6 +864,7 @@ sw_trade_page_class_init (SwTradePageClass *klass)
   gtk_widget_class_set_css_name (widget_class, "sw-trade-page");
 #define CHILD(name) gtk_widget_class_bind_template_child (widget_class, SwTradePage, name)
   CHILD (scroller);
+  CHILD (cards);
   CHILD (step_spin);
   CHILD (samples_spin);
   CHILD (seed_spin);
@@ -911,7 +919,19 @@ sw_trade_page_init (SwTradePage *self)
 
   self->updating--;
 
+  /* Below the cards: the Monte Carlo with a simulated ascent per sample. */
+  self->simulated_mc = SW_SIMULATED_MC (sw_simulated_mc_new ());
+  gtk_box_insert_child_after (GTK_BOX (gtk_widget_get_parent (self->cards)),
+                              GTK_WIDGET (self->simulated_mc), self->cards);
+
   show_result (self);
+}
+
+SwSimulatedMc *
+sw_trade_page_get_simulated_mc (SwTradePage *self)
+{
+  g_return_val_if_fail (SW_IS_TRADE_PAGE (self), NULL);
+  return self->simulated_mc;
 }
 
 GtkWidget *

@@ -12,6 +12,7 @@
 #include "sw-document.h"
 #include "sw-plot.h"
 #include "sw-analysis.h"
+#include "sw-simulated-mc.h"
 
 G_BEGIN_DECLS
 
@@ -62,6 +63,8 @@ void       sw_trade_page_set_step (SwTradePage *self, double step);
 SwPlot    *sw_trade_page_get_plot (SwTradePage *self, SwTradePlot which);
 /* The Monte Carlo samples and seed fields (for the tests). */
 GtkWidget *sw_trade_page_get_samples_field (SwTradePage *self);
+/* The switch and answer of the Monte Carlo with a simulated ascent. */
+SwSimulatedMc *sw_trade_page_get_simulated_mc (SwTradePage *self);
 GtkWidget *sw_trade_page_get_seed_field (SwTradePage *self);
 GtkWidget *sw_trade_page_get_field (SwTradePage *self, SwTradeField field);
 const char *sw_trade_page_get_card_text (SwTradePage *self, SwTradeCard card);
