@@ -540,6 +540,62 @@ test_warnings (void)
 
 /* ---- main -------------------------------------------------------------- */
 
+/* The optimised steering on demand: the button flies it on a worker thread
+ * (the main loop keeps turning), the answer names the saving over the guided
+ * law the page shows; a newer edit cancels a run and clears the answer. */
+static gboolean
+optimised_done (gpointer data)
+{
+  SwOptimisedSteering *o = data;
+  return !sw_optimised_steering_is_running (o) && sw_optimised_steering_get_answer (o)->done;
+}
+
+static void
+test_optimised_steering (void)
+{
+  SwWindow *w = window_new ();
+  SwOptimisedSteering *o;
+  const SwAscentOptimised *ans;
+  const SwAnalysis *r;
+  g_autofree char *saving = NULL;
+
+  load_demo (w, "small-sat-launcher.stagewright");
+  g_assert_true (sw_window_show_page (w, "ascent"));
+  o = sw_ascent_page_get_optimised (page (w));
+  r = sw_window_get_shown_result (w);
+  g_assert_nonnull (r->ascent);
+  g_assert_true (gtk_widget_get_sensitive (sw_optimised_steering_get_button (o)));
+  g_assert_false (sw_optimised_steering_get_answer (o)->done);
+
+  /* Started, then a newer edit: cancelled, no answer. */
+  g_signal_emit_by_name (sw_optimised_steering_get_button (o), "clicked");
+  g_assert_true (sw_optimised_steering_is_running (o));
+  set_payload (w, r->design->payload_kg + 1.0);
+  wait_ascent (w);
+  g_assert_false (sw_optimised_steering_is_running (o));
+  g_assert_false (sw_optimised_steering_get_answer (o)->done);
+  g_assert_null (strstr (sw_optimised_steering_get_text (o), "saves"));
+
+  /* To the end. */
+  r = sw_window_get_shown_result (w);
+  g_signal_emit_by_name (sw_optimised_steering_get_button (o), "clicked");
+  sw_test_wait_until (optimised_done, o, ASCENT_WAIT_MS, "the optimised steering");
+  ans = sw_optimised_steering_get_answer (o);
+  g_assert_cmpfloat (ans->guided_needed_m_s, ==, r->ascent->delta_v_needed_m_s);
+  g_assert_cmpfloat (ans->saving_m_s, >=, -0.05);
+  saving = sw_format_speed (MAX (ans->saving_m_s, 0.0));
+  if (ans->improved)
+    {
+      g_autofree char *want = g_strdup_printf ("Optimised steering saves %s over the guided law",
+                                               saving);
+      g_assert_nonnull (strstr (sw_optimised_steering_get_text (o), want));
+    }
+  else
+    g_assert_nonnull (strstr (sw_optimised_steering_get_text (o), "found no saving"));
+  assert_no_nan (sw_optimised_steering_get_text (o));
+  sw_test_window_close (w);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -559,6 +615,7 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/ascent/core-numbers", test_core_numbers);
   g_test_add_func ("/gui/ascent/no-propulsion", test_no_propulsion);
   g_test_add_func ("/gui/ascent/warnings", test_warnings);
+  g_test_add_func ("/gui/ascent/optimised-steering", test_optimised_steering);
 
   status = g_test_run ();
   sw_gui_test_env_finish (tmp_dir);

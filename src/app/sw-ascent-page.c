@@ -37,6 +37,7 @@ struct _SwAscentPage {
   GtkWidget     *warnings_box;
   GtkLabel      *warnings_label;
   GtkWidget     *figures_grid;
+  SwOptimisedSteering *optimised;  /* on demand, below the figures */
   GtkLabel      *orbit_caption;
   GtkLabel      *orbit_label;
   GtkLabel      *rotation_label;
@@ -838,6 +839,9 @@ sw_ascent_page_set_result (SwAscentPage *self, SwAnalysis *result)
       flown_changed = TRUE;
     }
   update (self, flown_changed);
+  sw_optimised_steering_set_flight (self->optimised,
+                                    self->flown != NULL ? self->flown->design : NULL,
+                                    self->flown != NULL ? self->flown->ascent : NULL);
 }
 
 /* The limits live in the adjustments, bound to the settings when the page
@@ -881,6 +885,13 @@ sw_ascent_page_set_settings (SwAscentPage *self, GSettings *settings)
 }
 
 /* ---- accessors --------------------------------------------------------- */
+
+SwOptimisedSteering *
+sw_ascent_page_get_optimised (SwAscentPage *self)
+{
+  g_return_val_if_fail (SW_IS_ASCENT_PAGE (self), NULL);
+  return self->optimised;
+}
 
 const char *
 sw_ascent_page_get_note (SwAscentPage *self)
@@ -1054,5 +1065,8 @@ sw_ascent_page_init (SwAscentPage *self)
   g_signal_connect_swapped (self->max_g_adjustment, "value-changed",
                             G_CALLBACK (limits_changed_cb), self);
   setup_plots (self);
+  self->optimised = SW_OPTIMISED_STEERING (sw_optimised_steering_new ());
+  gtk_box_insert_child_after (GTK_BOX (gtk_widget_get_parent (self->figures_grid)),
+                              GTK_WIDGET (self->optimised), self->figures_grid);
   update (self, TRUE);
 }

@@ -10,6 +10,7 @@
 
 #include <gtk/gtk.h>
 
+#include "sw-optimised-steering.h"
 #include "sw-plot.h"
 #include "sw-analysis.h"
 
@@ -53,6 +54,8 @@ void        sw_ascent_page_set_settings (SwAscentPage *self, GSettings *settings
  * the limits, one per line; NULL when there is none.  Signal
  * "summary-changed" when either changes. */
 const char *sw_ascent_page_get_note (SwAscentPage *self);
+/* The optimised steering, on demand (for tests). */
+SwOptimisedSteering *sw_ascent_page_get_optimised (SwAscentPage *self);
 const char *sw_ascent_page_get_warnings (SwAscentPage *self);
 
 /* The warnings of @result against the limits (@max_q_pa in Pa, @max_g in g0),

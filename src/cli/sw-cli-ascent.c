@@ -17,11 +17,18 @@
 
 static gboolean opt_json;
 static char *opt_csv;
+static gboolean opt_optimise;
+/* The optimised steering of this run (--optimise-steering), or NULL. */
+static const SwAscentOptimised *optimised;
+static SwAscentResult optimised_copy;
 
 static GOptionEntry ascent_entries[] = {
   { "json", 0, 0, G_OPTION_ARG_NONE, &opt_json, N_("Print JSON for machines"), NULL },
   { "csv", 0, 0, G_OPTION_ARG_FILENAME, &opt_csv, N_("Write the time series to FILE (CSV)"),
     "FILE" },
+  { "optimise-steering", 0, 0, G_OPTION_ARG_NONE, &opt_optimise,
+    N_("Also optimise the steering (slow) and give its delta-v saving over the guided law"),
+    NULL },
   { NULL }
 };
 
@@ -209,6 +216,39 @@ ascent_to_json (const SwAnalysis *a)
   json_builder_set_member_name (b, "simulations");
   json_builder_add_int_value (b, r->guidance_iterations);
   json_builder_end_object (b);
+
+  json_builder_set_member_name (b, "optimised_steering");
+  if (optimised != NULL && optimised->done)
+    {
+      json_builder_begin_object (b);
+      sw_cli_add_number (b, "guided_delta_v_needed_m_s", optimised->guided_needed_m_s);
+      sw_cli_add_number (b, "delta_v_needed_m_s", optimised->needed_m_s);
+      sw_cli_add_number (b, "saving_m_s", optimised->saving_m_s);
+      add_bool (b, "improved", optimised->improved);
+      sw_cli_add_number (b, "pitch_kick_deg", optimised->kick_deg);
+      json_builder_set_member_name (b, "knots");
+      json_builder_begin_array (b);
+      for (guint k = 0; k < optimised->n_knots; k++)
+        {
+          json_builder_begin_object (b);
+          sw_cli_add_number (b, "time_fraction", optimised->knot_time_fraction[k]);
+          sw_cli_add_number (b, "tan_pitch_offset", optimised->knot_tan_offset[k]);
+          json_builder_end_object (b);
+        }
+      json_builder_end_array (b);
+      sw_cli_add_number (b, "perigee_km", optimised->perigee_km);
+      sw_cli_add_number (b, "apogee_km", optimised->apogee_km);
+      sw_cli_add_number (b, "cutoff_flight_path_deg", optimised->cutoff_flight_path_deg);
+      sw_cli_add_number (b, "max_q_alpha_kpa_deg", optimised->max_q_alpha_kpa_deg);
+      sw_cli_add_number (b, "max_q_alpha_guided_kpa_deg", optimised->max_q_alpha_guided_kpa_deg);
+      json_builder_set_member_name (b, "steering_solves");
+      json_builder_add_int_value (b, optimised->evaluations);
+      json_builder_set_member_name (b, "simulations");
+      json_builder_add_int_value (b, optimised->flights);
+      json_builder_end_object (b);
+    }
+  else
+    json_builder_add_null_value (b);
 
   json_builder_set_member_name (b, "closed_loop");
   if (r->closed_loop)
@@ -532,6 +572,8 @@ sw_cli_ascent (int argc, char **argv)
 
   opt_json = FALSE;
   opt_csv = NULL;
+  opt_optimise = FALSE;
+  optimised = NULL;
   if (!sw_cli_parse ("ascent", ascent_entries, &argc, &argv, 1, &code))
     return code;
   csv = g_steal_pointer (&opt_csv);
@@ -562,6 +604,20 @@ sw_cli_ascent (int argc, char **argv)
     }
   if (csv != NULL && !write_csv (csv, d, r))
     return SW_EXIT_FAILURE;
+  if (opt_optimise)
+    {
+      /* Into a copy of the flight's figures: the analysis's ascent stays
+       * as it is. */
+      g_autoptr (GError) error = NULL;
+
+      memcpy (&optimised_copy, r, sizeof optimised_copy);
+      if (!sw_ascent_optimise_steering (d, &optimised_copy, NULL, &error))
+        {
+          g_printerr (_("error: %s: %s\n"), argv[1], error->message);
+          return SW_EXIT_FAILURE;
+        }
+      optimised = &optimised_copy.optimised;
+    }
   if (opt_json)
     {
       g_autoptr (JsonNode) node = ascent_to_json (a);
@@ -572,6 +628,21 @@ sw_cli_ascent (int argc, char **argv)
       sw_cli_print_verdict (a);
       g_print ("\n");
       print_ascent (d, r);
+      if (optimised != NULL && optimised->done && isfinite (optimised->needed_m_s))
+        {
+          g_autofree char *sv = sw_format_speed (MAX (optimised->saving_m_s, 0.0));
+          g_autofree char *gn = sw_format_speed (optimised->guided_needed_m_s);
+          g_autofree char *on = sw_format_speed (optimised->needed_m_s);
+          g_print ("\n");
+          if (optimised->improved)
+            g_print (_("Optimised steering saves %s over the guided law (delta-v needed %s "
+                       "against %s).\n"), sv, on, gn);
+          else
+            g_print (_("Optimised steering found no saving over the guided law (delta-v "
+                       "needed %s against %s).\n"), on, gn);
+        }
+      else if (optimised != NULL && optimised->done)
+        g_print (_("\nOptimised steering: no better steering reached the orbit.\n"));
     }
   return SW_EXIT_OK;
 }

@@ -194,6 +194,13 @@ typedef struct {
   double              kick;        /* rad */
   double              tan_s;       /* linear tangent: tan(pitch) at the start ... */
   double              tan_e;       /* ... and at the nominal end */
+  /* The optimised steering's knots: tan(pitch) of the linear-tangent law
+   * plus a piecewise-linear bump, knot_dtan[k] at knot_tau[k] (fractions of
+   * the nominal guided time, increasing, inside (0, 1)); 0 knots: the
+   * guided law. */
+  guint               n_knots;
+  double              knot_tau[SW_ASCENT_MAX_KNOTS];
+  double              knot_dtan[SW_ASCENT_MAX_KNOTS];
   gboolean            stop_at_po;
   gboolean            stop_at_guide;
   gboolean            record;

@@ -187,7 +187,18 @@ derive (const SwFlightSim *s, double t, const double *y, Derived *d)
         /* Linear tangent: tan(psi) runs linearly in time from tan(psi_start)
          * at the start of guidance to tan(psi_end) at the nominal end of the
          * last burn (Bryson and Ho's law for a flat Earth in vacuum). */
-        double tp = s->tan_s + (s->tan_e - s->tan_s) * (t - s->f.t_guide) / s->f.T_guide;
+        double tau = (t - s->f.t_guide) / s->f.T_guide;
+        double tp = s->tan_s + (s->tan_e - s->tan_s) * tau;
+
+        /* The optimised steering's bumps: hats between the neighbouring
+         * knots (0 and 1 at the ends). */
+        for (guint k = 0; k < s->n_knots; k++)
+          {
+            double a = k > 0 ? s->knot_tau[k - 1] : 0.0, c = s->knot_tau[k];
+            double b = k + 1 < s->n_knots ? s->knot_tau[k + 1] : 1.0;
+            if (tau > a && tau < b)
+              tp += s->knot_dtan[k] * (tau <= c ? (tau - a) / (c - a) : (b - tau) / (b - c));
+          }
         double dt = t - s->f.t_guide;
         double off = dt < s->f.blend_s ? s->f.psi_stage - atan (s->tan_s) : 0.0;
         gboolean blend = fabs (off) > m->pitch_rate * dt;
@@ -1275,6 +1286,10 @@ sw_ascent_result_new (void)
   r->max_axial_g = r->max_axial_g_time_s = r->liftoff_thrust_to_weight = NAN;
   r->max_q_alpha_kpa_deg = NAN;
   r->fairing_propellant_fraction = NAN;
+  r->optimised.guided_needed_m_s = r->optimised.needed_m_s = r->optimised.saving_m_s = NAN;
+  r->optimised.perigee_km = r->optimised.apogee_km = NAN;
+  r->optimised.cutoff_flight_path_deg = r->optimised.max_q_alpha_kpa_deg = NAN;
+  r->optimised.kick_deg = r->optimised.max_q_alpha_guided_kpa_deg = NAN;
   r->pitch_over_time_s = r->pitch_kick_deg = r->guidance_start_s = NAN;
   r->steering_start_deg = r->steering_end_deg = NAN;
   r->loop_sized_losses_m_s = NAN;

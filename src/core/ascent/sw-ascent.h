@@ -145,6 +145,34 @@ typedef struct {
 } SwAscentStage;
 
 #define SW_ASCENT_REASON_MAX 768
+#define SW_ASCENT_MAX_KNOTS 4
+
+/* The optimised steering (sw_ascent_optimise_steering): direct shooting
+ * over the pitch kick and the offsets of tan(pitch) at knots inside the
+ * guided flight (one at each upper stage's ignition after the first guided
+ * one; one halfway when a single stage is guided), the two linear-tangent
+ * angles solved for the orbit at every trial; GSL's Nelder-Mead simplex
+ * minimises the delta-v needed (the propellant used to reach the orbit).
+ * The user's q-alpha limit (ascent.max_q_alpha_kpa_deg) holds as in every
+ * flight (the attitude is clamped to it). */
+typedef struct {
+  gboolean done;                 /* it ran (the guided ascent flew) */
+  gboolean improved;             /* saving_m_s > 0.1 m/s */
+  double   guided_needed_m_s;    /* the guided law's delta-v needed */
+  double   needed_m_s;           /* the optimised steering's */
+  double   saving_m_s;           /* guided - optimised */
+  double   kick_deg;
+  guint    n_knots;
+  double   knot_time_fraction[SW_ASCENT_MAX_KNOTS];
+  double   knot_tan_offset[SW_ASCENT_MAX_KNOTS];
+  double   perigee_km;           /* the optimised flight's orbit */
+  double   apogee_km;
+  double   cutoff_flight_path_deg;
+  double   max_q_alpha_kpa_deg;
+  double   max_q_alpha_guided_kpa_deg;  /* after guidance starts, where the limit holds */
+  guint    evaluations;          /* steering solves of the simplex */
+  guint    flights;
+} SwAscentOptimised;
 #define SW_ASCENT_LOOP_MAX 24
 
 typedef struct _SwAscentResult SwAscentResult;
@@ -220,6 +248,10 @@ struct _SwAscentResult {
   double   steering_end_deg;         /* ... and at the nominal end of the last burn */
   guint    guidance_iterations;      /* trajectory simulations spent */
 
+  /* optimised steering (filled by sw_ascent_optimise_steering; done FALSE
+   * until then) */
+  SwAscentOptimised optimised;
+
   /* the vehicle flown */
   SwSizing sizing;
   guint    n_stages;
@@ -250,6 +282,14 @@ void sw_ascent_options_init (SwAscentOptions *options);
  * was sized with and its fairing jettison point (sw-sizing.h).  Sizing the
  * copy then gives loop->sizing. */
 void sw_ascent_apply_loop (SwDesign *design, const SwAscentResult *loop);
+
+/* Optimises the steering of the vehicle of @result (a guided ascent of
+ * @design that reached the cutoff: status reached or short) and fills
+ * result->optimised.  Slow (hundreds of trial flights): a later phase, on
+ * demand.  FALSE with @error when cancelled; TRUE with optimised.done FALSE
+ * when there is nothing to optimise (no guided flight). */
+gboolean sw_ascent_optimise_steering (const SwDesign *design, SwAscentResult *result,
+                                      GCancellable *cancellable, GError **error);
 
 /* The mass at liftoff of the vehicle flown: the sizing's liftoff mass, which
  * includes the fairing (sw-sizing.h, SwFairingCarry); for a sizing made

@@ -16,6 +16,7 @@
 #include <glib/gi18n-lib.h>
 #include <gsl/gsl_errno.h>
 #include <gsl/gsl_min.h>
+#include <gsl/gsl_multimin.h>
 #include <gsl/gsl_multiroots.h>
 #include <math.h>
 #include <string.h>
@@ -835,4 +836,244 @@ sw_ascent_solve (const SwDesign *design, const SwAscentOptions *options,
   if (!sw_size_design (design, &sizing, error))
     return NULL;
   return sw_ascent_solve_sized (design, &sizing, options, NULL, cancellable, error);
+}
+
+/* ---- optimised steering ------------------------------------------------ */
+
+typedef struct {
+  Solver *sv;
+  double  best;
+  double  best_x[1 + SW_ASCENT_MAX_KNOTS];
+  guint   evaluations;
+} Optimise;
+
+#define OPT_FAILED 1.0e7
+
+/* x = (kick in deg, tan offsets at the knots): the delta-v needed with the
+ * two linear-tangent angles solved for the orbit. */
+static double
+optimise_objective (const gsl_vector *x, void *data)
+{
+  Optimise *op = data;
+  Solver *sv = op->sv;
+  double kick = gsl_vector_get (x, 0), value;
+
+  if (sv->cancelled || g_cancellable_is_cancelled (sv->cancellable))
+    {
+      sv->cancelled = TRUE;
+      return OPT_FAILED;
+    }
+  op->evaluations++;
+  for (guint k = 0; k < sv->sim.n_knots; k++)
+    {
+      double dk = gsl_vector_get (x, 1 + k);
+      if (!isfinite (dk) || fabs (dk) > 2.0)
+        return OPT_FAILED + fabs (dk);
+      sv->sim.knot_dtan[k] = dk;
+    }
+  if (!(kick > 0.05 && kick < 30.0))
+    return OPT_FAILED + fabs (kick);
+  value = solve_for_kick (sv, kick * SW_DEG) ? sv->needed : OPT_FAILED + kick;
+  if (value < op->best)
+    {
+      op->best = value;
+      for (guint i = 0; i < x->size; i++)
+        op->best_x[i] = gsl_vector_get (x, i);
+    }
+  return value;
+}
+
+gboolean
+sw_ascent_optimise_steering (const SwDesign *design, SwAscentResult *result,
+                             GCancellable *cancellable, GError **error)
+{
+  SwAscentOptimised *out;
+  g_autoptr (SwAscentResult) flown = NULL;
+  SwAscentOptions opt;
+  Optimise op = { 0 };
+  Solver *sv;
+  SwFlightSim *s;
+  SwOutcome o;
+  gsl_multimin_fminimizer *min;
+  gsl_multimin_function fn;
+  gsl_vector *x, *step;
+  guint n_upper = 0, dim;
+  double t_total = 0.0, t_at = 0.0;
+
+  g_return_val_if_fail (design != NULL && result != NULL, FALSE);
+
+  out = &result->optimised;
+  memset (out, 0, sizeof *out);
+  out->guided_needed_m_s = out->needed_m_s = out->saving_m_s = NAN;
+  out->perigee_km = out->apogee_km = out->cutoff_flight_path_deg = NAN;
+  out->max_q_alpha_kpa_deg = out->kick_deg = NAN;
+  if (result->status != SW_ASCENT_REACHED && result->status != SW_ASCENT_SHORT)
+    return TRUE;
+  if (g_cancellable_set_error_if_cancelled (cancellable, error))
+    return FALSE;
+
+  sw_ascent_gsl_errors_as_status ();
+  sw_ascent_options_init (&opt);
+  opt.record = FALSE;
+  flown = sw_ascent_result_new ();
+  sv = g_new0 (Solver, 1);
+  sv->cancellable = cancellable;
+  sv->best_short = G_MAXDOUBLE;
+  sv->best_fall_alt = -G_MAXDOUBLE;
+  if (sw_flight_model_build (&sv->model, design, &result->sizing, &opt, flown, error)
+      != SW_BUILD_OK)
+    {
+      g_free (sv);
+      return error == NULL || *error == NULL;
+    }
+  s = &sv->sim;
+  sw_flight_init (s, &sv->model);
+
+  /* The knots: each upper stage's ignition after the first guided one, at
+   * its nominal time; halfway when one stage is guided. */
+  for (guint i = 0; i < sv->model.n_seg; i++)
+    {
+      const SwFlightSegment *sg = &sv->model.seg[i];
+      if (sg->stage == sv->model.first || sg->is_virtual)
+        continue;
+      t_total += sg->duration;
+    }
+  for (guint i = 0; i < sv->model.n_seg && s->n_knots < SW_ASCENT_MAX_KNOTS; i++)
+    {
+      const SwFlightSegment *sg = &sv->model.seg[i];
+      if (sg->stage == sv->model.first || sg->is_virtual)
+        continue;
+      if (i > 0 && sv->model.seg[i - 1].stage != sg->stage
+          && sv->model.seg[i - 1].stage != sv->model.first && t_at > 0.0)
+        s->knot_tau[s->n_knots++] = t_at / MAX (t_total, 1.0);
+      if (sg->burning)
+        n_upper++;
+      t_at += sg->duration;
+    }
+  if (s->n_knots == 0)
+    s->knot_tau[s->n_knots++] = 0.5;
+  for (guint k = 0; k < s->n_knots; k++)
+    s->knot_dtan[k] = 0.0;
+
+  /* The trials as the guided solve flies them: lean, at the search
+   * tolerance, from the pitch-over, warm from the guided steering. */
+  sw_flight_set_lean (s, TRUE);
+  sw_flight_set_rtol (s, SEARCH_RTOL);
+  sv->tol = 1e-3;
+  start_on_pad (s, SW_STEER_VERTICAL);
+  s->stop_at_po = TRUE;
+  s->stop_at_guide = TRUE;
+  if (sw_flight_run (s) == SW_OUT_PITCH_OVER)
+    {
+      sv->po_snap = s->f;
+      sv->have_po = TRUE;
+    }
+  sv->psi[0] = result->steering_start_deg * SW_DEG;
+  sv->psi[1] = result->steering_end_deg * SW_DEG;
+  sv->have_psi = isfinite (sv->psi[0]) && isfinite (sv->psi[1]);
+
+  dim = 1 + s->n_knots;
+  x = gsl_vector_alloc (dim);
+  step = gsl_vector_alloc (dim);
+  gsl_vector_set (x, 0, result->pitch_kick_deg);
+  /* A kick the design gives (ascent.pitch_kick_deg) is held. */
+  gsl_vector_set (step, 0, design->ascent.has_pitch_kick
+                             ? 0.0 : MAX (0.1 * result->pitch_kick_deg, 0.1));
+  for (guint k = 0; k < s->n_knots; k++)
+    {
+      gsl_vector_set (x, 1 + k, 0.0);
+      gsl_vector_set (step, 1 + k, 0.2);
+    }
+  op.sv = sv;
+  op.best = G_MAXDOUBLE;
+  fn.n = dim;
+  fn.f = optimise_objective;
+  fn.params = &op;
+  min = gsl_multimin_fminimizer_alloc (gsl_multimin_fminimizer_nmsimplex2, dim);
+  if (sv->have_po && gsl_multimin_fminimizer_set (min, &fn, x, step) == GSL_SUCCESS)
+    for (int iter = 0; iter < 80 && !sv->cancelled; iter++)
+      {
+        if (gsl_multimin_fminimizer_iterate (min) != GSL_SUCCESS)
+          break;
+        /* Stop when the simplex has shrunk to 0.02 in its units (deg of kick,
+         * tan offset): the needed delta-v is flat there to a few 0.1 m/s. */
+        if (gsl_multimin_test_size (gsl_multimin_fminimizer_size (min), 0.005) == GSL_SUCCESS)
+          break;
+      }
+  gsl_multimin_fminimizer_free (min);
+  gsl_vector_free (x);
+  gsl_vector_free (step);
+
+  if (sv->cancelled || g_cancellable_is_cancelled (cancellable))
+    {
+      sw_flight_clear (s);
+      g_free (sv);
+      g_cancellable_set_error_if_cancelled (cancellable, error);
+      return FALSE;
+    }
+
+  /* The best point, solved at the full tolerance and flown with every
+   * integral, as the guided flight is. */
+  out->done = TRUE;
+  out->guided_needed_m_s = result->delta_v_needed_m_s;
+  out->evaluations = op.evaluations;
+  if (op.best < OPT_FAILED)
+    {
+      for (guint k = 0; k < s->n_knots; k++)
+        s->knot_dtan[k] = op.best_x[1 + k];
+      sv->tol = 1e-4;
+      sw_flight_set_rtol (s, sv->model.opt.rtol);
+      if (solve_for_kick (sv, op.best_x[0] * SW_DEG))
+        {
+          sw_flight_set_lean (s, FALSE);
+          s->record = TRUE;
+          g_array_set_size (s->samples, 0);
+          s->kick = op.best_x[0] * SW_DEG;
+          s->tan_s = tan (clamp_psi (sv->psi[0]));
+          s->tan_e = tan (clamp_psi (sv->psi[1]));
+          s->stop_at_po = s->stop_at_guide = FALSE;
+          start_on_pad (s, SW_STEER_VERTICAL);
+          o = sw_flight_run (s);
+          sw_flight_fill_result (s, o, flown);
+          if (o == SW_OUT_CUTOFF)
+            {
+              out->needed_m_s = flown->delta_v_needed_m_s;
+              out->saving_m_s = out->guided_needed_m_s - out->needed_m_s;
+              out->improved = out->saving_m_s > 0.1;
+              out->kick_deg = op.best_x[0];
+              out->n_knots = s->n_knots;
+              for (guint k = 0; k < s->n_knots; k++)
+                {
+                  out->knot_time_fraction[k] = s->knot_tau[k];
+                  out->knot_tan_offset[k] = s->knot_dtan[k];
+                }
+              out->perigee_km = flown->perigee_km;
+              out->apogee_km = flown->apogee_km;
+              out->cutoff_flight_path_deg = flown->cutoff.flight_path_deg;
+              out->max_q_alpha_kpa_deg = flown->max_q_alpha_kpa_deg;
+              /* q alpha in the guided flight, from the samples: alpha is the
+               * pitch less the flight-path angle against the air. */
+              out->max_q_alpha_guided_kpa_deg = 0.0;
+              for (guint i = 0; i < s->samples->len; i++)
+                {
+                  const SwAscentSample *p = &g_array_index (s->samples, SwAscentSample, i);
+                  double gam, alpha;
+
+                  if (p->time_s < s->f.t_guide || p->air_speed_m_s < 1.0 || p->thrust_n <= 0.0)
+                    continue;
+                  gam = asin (CLAMP (p->speed_m_s * sin (p->flight_path_deg * SW_DEG)
+                                     / p->air_speed_m_s, -1.0, 1.0)) / SW_DEG;
+                  alpha = p->pitch_deg - gam;
+                  out->max_q_alpha_guided_kpa_deg = MAX (out->max_q_alpha_guided_kpa_deg,
+                                                         p->dynamic_pressure_pa * fabs (alpha)
+                                                         / 1000.0);
+                }
+            }
+        }
+    }
+  out->flights = s->n_runs;
+  (void) n_upper;
+  sw_flight_clear (s);
+  g_free (sv);
+  return TRUE;
 }
