@@ -389,9 +389,10 @@ test_shape_follows_loop (void)
   g_assert_cmpfloat (a->shape.height_m, ==, v.height_m);
   /* A bigger vehicle than the first guess's: taller. */
   g_assert_cmpfloat (a->shape.height_m, >, fast->shape.height_m);
+  /* The loop's vehicle: its losses and its fairing jettison point. */
   looped = sw_design_copy (d);
-  looped->mission.losses_m_s = a->ascent->loop_sized_losses_m_s;
-  looped->mission.has_losses = TRUE;
+  sw_ascent_apply_loop (looped, a->ascent);
+  g_assert_cmpfloat (looped->mission.losses_m_s, ==, a->ascent->loop_sized_losses_m_s);
   sw_mass_estimate_design (looped, &m);
   g_assert_true (a->mass_estimate.ok);
   for (guint i = 0; i < d->n_stages; i++)

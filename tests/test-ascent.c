@@ -1063,6 +1063,9 @@ test_fixed_vehicle_margin (void)
   double above, gives = 0.0;
 
   g_assert_no_error (error);
+  /* The fairing rides on the first stage and goes at the second stage's
+   * ignition (the sizing's default jettison point, sw-sizing.h). */
+  g_assert_true (d->n_stages >= 2);
   above = d->payload_kg;
   for (int i = (int) d->n_stages - 1; i >= 0; i--)
     {
@@ -1071,6 +1074,8 @@ test_fixed_vehicle_margin (void)
       double ms = mp * st->structural_coefficient / (1.0 - st->structural_coefficient);
       gives += st->isp_vac_s * 9.80665 * log ((above + mp + ms) / (above + ms));
       above += mp + ms;
+      if (i == 1 && d->ascent.has_fairing_mass)
+        above += d->ascent.fairing_mass_kg;
     }
   sw_ascent_options_init (&o);
   o.record = FALSE;

@@ -71,6 +71,10 @@ hand_delta_v (const SwDesign *d, double payload)
 
       dv += st->isp_vac_s * 9.80665 * log (m0 / mf);
       above = m0;
+      /* The fairing rides on the first stage and goes at the second
+       * stage's ignition (the sizing's default jettison point). */
+      if (i == 1 && d->ascent.has_fairing_mass)
+        above += d->ascent.fairing_mass_kg;
     }
   return dv;
 }

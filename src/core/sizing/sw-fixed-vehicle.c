@@ -19,6 +19,7 @@ sw_fixed_vehicle_from_sizing (SwFixedVehicle *vehicle, const SwSizing *sizing)
   if (!sizing->feasible)
     return FALSE;
   vehicle->n_stages = sizing->n_stages;
+  vehicle->fairing = sizing->fairing;
   for (guint i = 0; i < sizing->n_stages; i++)
     {
       vehicle->exhaust_velocity_m_s[i] = sizing->stages[i].exhaust_velocity_m_s;
@@ -45,6 +46,18 @@ sw_fixed_vehicle_delta_v (const SwFixedVehicle *v, double payload_kg)
           dv += v->exhaust_velocity_m_s[i] * log (m0 / mf);
         }
       above = m0;
+      /* The fairing (sw-sizing.h): the stage that drops it carries it for
+       * the first share of its propellant, the stages below it all along. */
+      if (v->fairing.mass_kg > 0.0 && (guint) i == v->fairing.stage)
+        {
+          double F = v->fairing.mass_kg, mp = v->propellant_mass_kg[i];
+          double left = (1.0 - CLAMP (v->fairing.fraction, 0.0, 1.0)) * mp;
+
+          if (mp > 0.0)
+            dv += v->exhaust_velocity_m_s[i] * (log ((m0 + F) / (mf + left + F))
+                                                - log (m0 / (mf + left)));
+          above = m0 + F;
+        }
     }
   return dv;
 }

@@ -14,6 +14,7 @@ typedef struct {
   double exhaust_velocity_m_s[SW_MAX_STAGES];
   double propellant_mass_kg[SW_MAX_STAGES];
   double structural_mass_kg[SW_MAX_STAGES];
+  SwFairingCarry fairing;          /* mass 0: none (sw-sizing.h) */
 } SwFixedVehicle;
 
 /* The vehicle of a feasible sizing; FALSE when @sizing is infeasible. */

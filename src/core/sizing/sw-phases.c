@@ -172,6 +172,7 @@ sw_design_performance (const SwDesign *design, SwPerformance *out, GError **erro
 
   memset (&v, 0, sizeof v);
   v.n_stages = design->n_stages;
+  sw_fairing_carry_default (design, design->n_stages, &v.fairing);
   for (guint i = 0; i < design->n_stages; i++)
     {
       const SwStage *st = &design->stages[i];
