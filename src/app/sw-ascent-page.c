@@ -623,7 +623,7 @@ show_losses (SwPlot *plot, const SwAscentResult *a)
     { _("Drag"), a->drag_loss_m_s },
     { _("Steering"), a->steering_loss_m_s },
     { _("Back-pressure"), a->pressure_loss_m_s },
-    { _("Fairing carried"), a->fairing_loss_m_s },
+    { _("Fairing dropped off plan"), a->fairing_loss_m_s },
     { _("Orbit raising"), a->raising_loss_m_s },
     /* Thrust and drag act against the air, gravity against the inertial
      * velocity: the README's "turning atmosphere" term. */

@@ -417,7 +417,7 @@ print_ascent (const SwDesign *d, const SwAscentResult *r)
       g_print (_("  drag loss                  %9s\n"), sw_cli_num (r->drag_loss_m_s, 1));
       g_print (_("  steering loss              %9s\n"), sw_cli_num (r->steering_loss_m_s, 1));
       g_print (_("  back-pressure thrust loss  %9s\n"), sw_cli_num (r->pressure_loss_m_s, 1));
-      g_print (_("  fairing carried            %9s\n"), sw_cli_num (r->fairing_loss_m_s, 1));
+      g_print (_("  fairing dropped off plan   %9s\n"), sw_cli_num (r->fairing_loss_m_s, 1));
       if (isfinite (r->circularization_m_s))
         g_print (_("  orbit raising              %9s   (incl. %s m/s circularisation)\n"),
                  sw_cli_num (r->raising_loss_m_s, 1), sw_cli_num (r->circularization_m_s, 1));
