@@ -17,7 +17,7 @@
              "    { \"isp_vac_s\": 340, \"structural_coefficient\": 0.1 } ]"
 
 static const char *full_json = HEAD ",\n"
-  "  \"economics\": { \"work_year_cost\": 250000, \"production_run\": 40,\n"
+  "  \"economics\": { \"work_year_cost\": 250000, \"currency\": \"k€\", \"production_run\": 40,\n"
   "    \"learning_rate\": 0.85,\n"
   "    \"cost_coefficients\": { \"stage_development_factor\": 90, \"engine_unit_exponent\": 0.5 },\n"
   "    \"engine_types\": [ { \"name\": \"Lower\", \"dry_mass_kg\": 1100, \"on_stages\": [0] },\n"
@@ -77,6 +77,8 @@ test_load_and_round_trip (void)
   e = &d->economics;
   g_assert_true (e->present);
   g_assert_cmpfloat (e->work_year_cost, ==, 250000.0);
+  g_assert_cmpstr (e->currency, ==, "k€");
+  g_assert_cmpstr (sw_economics_currency_label (e), ==, "k€");
   g_assert_cmpuint (e->production_run, ==, 40);
   g_assert_cmpfloat (e->coefficients[SW_CER_STAGE_DEV_FACTOR], ==, 90.0);
   g_assert_cmpfloat (e->coefficients[SW_CER_STAGE_DEV_EXPONENT], ==, 0.555);
@@ -140,6 +142,12 @@ test_errors (void)
                 "economics.recovery.mode: \"parachute\" is not a recovery mode");
   expect_error ("{ \"decision_weights\": { \"failure\": -1 } }",
                 "economics.decision_weights.failure: -1 is outside the accepted range 0 to 100");
+  expect_error ("{ \"currency\": [\"EUR\"] }", "economics.currency: expected text, found an array");
+  /* Sixteen characters pass (the limit counts characters, not bytes). */
+  expect_error ("{ \"currency\": \"€€€€€€€€€€€€€€€€€\" }",
+                "economics.currency: the label is 17 characters long; at most 16 are accepted");
+  expect_error ("{ \"currency\": \"EUR\\t\" }",
+                "economics.currency: the label holds a control character");
   expect_error ("{ \"engine_types\": [ { \"dry_mass_kg\": 100, \"developed\": 1 } ] }",
                 "economics.engine_types[0].developed: expected true or false, found a number");
 }
@@ -194,6 +202,55 @@ test_named_edits (void)
   g_assert_cmpint (d->economics.recovery_mode, ==, SW_RECOVERY_LAUNCH_SITE);
 }
 
+/* The currency label's named edit: up to 16 characters (UTF-8, not bytes),
+ * saved and read back, equal designs compare equal; too long or with a
+ * line break, refused with the key named and nothing changed; "" leaves
+ * it out and the neutral label applies. */
+static void
+test_currency (void)
+{
+  g_autoptr (GError) error = NULL;
+  g_autoptr (SwDesign) d = load (HEAD " }", NULL, &error);
+  g_autoptr (SwDesign) other = NULL;
+  g_autoptr (SwDesign) back = NULL;
+  g_autofree char *data = NULL;
+  SwEconomics before;
+  gsize len;
+
+  g_assert_no_error (error);
+  g_assert_cmpstr (sw_economics_currency_label (&d->economics), ==, "money units");
+  g_assert_true (sw_economics_set_currency (&d->economics, "longer label one", NULL));
+  g_assert_true (sw_economics_set_currency (&d->economics, "€€€€€€€€€€€€€€€€", &error));
+  g_assert_no_error (error);
+  g_assert_true (d->economics.present);
+  data = sw_design_to_data (d, &len);
+  g_assert_nonnull (strstr (data, "\"currency\" : \"€€€€€€€€€€€€€€€€\""));
+  back = load (data, NULL, &error);
+  g_assert_no_error (error);
+  g_assert_true (sw_design_equal (d, back));
+  /* The same label set on another copy by the edit: equal. */
+  other = load (HEAD " }", NULL, NULL);
+  g_assert_true (sw_economics_set_currency (&other->economics, "€€€€€€€€€€€€€€€€", NULL));
+  g_assert_true (sw_design_equal (d, other));
+
+  before = d->economics;
+  g_assert_false (sw_economics_set_currency (&d->economics, "€€€€€€€€€€€€€€€€€", &error));
+  g_assert_error (error, SW_ERROR, SW_ERROR_RANGE);
+  g_assert_cmpstr (error->message, ==,
+                   "economics.currency: the label is 17 characters long; at most 16 are accepted");
+  g_clear_error (&error);
+  g_assert_false (sw_economics_set_currency (&d->economics, "k\nEUR", &error));
+  g_assert_nonnull (strstr (error->message, "control character"));
+  g_clear_error (&error);
+  g_assert_true (memcmp (&before, &d->economics, sizeof before) == 0);
+
+  g_assert_true (sw_economics_set_currency (&d->economics, "", NULL));
+  g_assert_cmpstr (sw_economics_currency_label (&d->economics), ==, "money units");
+  g_free (data);
+  data = sw_design_to_data (d, &len);
+  g_assert_null (strstr (data, "currency"));
+}
+
 int
 main (int argc, char **argv)
 {
@@ -203,5 +260,6 @@ main (int argc, char **argv)
   g_test_add_func ("/core/economics/errors", test_errors);
   g_test_add_func ("/core/economics/unknown-keys-warn", test_unknown_keys_warn);
   g_test_add_func ("/core/economics/named-edits", test_named_edits);
+  g_test_add_func ("/core/economics/currency", test_currency);
   return g_test_run ();
 }

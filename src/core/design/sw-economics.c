@@ -14,7 +14,7 @@
 const char *const sw_economics_design_keys[] = { "economics", NULL };
 
 static const char *const economics_keys[] = {
-  "work_year_cost", "production_run", "learning_rate", "cost_coefficients", "engine_types",
+  "work_year_cost", "currency", "production_run", "learning_rate", "cost_coefficients", "engine_types",
   "developed_stages", "engine_mass_fraction", "recovery", "decision_weights", NULL
 };
 static const char *const engine_keys[] = { "name", "dry_mass_kg", "on_stages", "developed", NULL };
@@ -278,6 +278,57 @@ load_engine_types (JsonObject *obj, const char *file, const char *prefix, SwEcon
   return TRUE;
 }
 
+/* Why @text cannot be a currency label, or NULL. */
+static char *
+currency_problem (const char *text)
+{
+  const SwLimit *l = sw_limit_get (SW_LIMIT_CURRENCY_LENGTH);
+  glong n;
+
+  if (!g_utf8_validate (text, -1, NULL))
+    return g_strdup (_("the text is not valid UTF-8"));
+  n = g_utf8_strlen (text, -1);
+  if (n > (glong) l->max || strlen (text) >= SW_ECONOMICS_CURRENCY_BYTES)
+    return g_strdup_printf (_("the label is %ld characters long; at most %.0f are accepted"), n,
+                            l->max);
+  for (const char *p = text; *p != '\0'; p = g_utf8_next_char (p))
+    if (g_unichar_iscntrl (g_utf8_get_char (p)))
+      return g_strdup (_("the label holds a control character (a line break or tab)"));
+  return NULL;
+}
+
+gboolean
+sw_economics_set_currency (SwEconomics *econ, const char *text, GError **error)
+{
+  g_autofree char *problem = NULL;
+
+  g_return_val_if_fail (econ != NULL && text != NULL, FALSE);
+  if ((problem = currency_problem (text)) != NULL)
+    {
+      g_set_error (error, SW_ERROR, SW_ERROR_RANGE, "economics.currency: %s", problem);
+      return FALSE;
+    }
+  /* The whole buffer, so that equal labels compare equal byte for byte. */
+  memset (econ->currency, 0, sizeof econ->currency);
+  g_strlcpy (econ->currency, text, sizeof econ->currency);
+  econ->present = TRUE;
+  return TRUE;
+}
+
+const char *
+sw_economics_currency_label (const SwEconomics *econ)
+{
+  g_return_val_if_fail (econ != NULL, "");
+  return econ->currency[0] != '\0' ? econ->currency : _("money units");
+}
+
+const char *
+sw_economics_money_note (void)
+{
+  return _("Money is the effort in work-years times the design's cost of a work-year: an "
+           "estimate for comparing concepts, never a quote.");
+}
+
 static gboolean
 load_recovery (JsonObject *obj, const char *file, const char *prefix, SwEconomics *econ,
                GPtrArray *warnings, GError **error)
@@ -380,6 +431,21 @@ sw_economics_load_design (JsonObject *root, const char *file, const char *prefix
     return FALSE;
   if (present)
     econ->production_run = (guint) run;
+  {
+    const char *currency = NULL;
+    g_autofree char *problem = NULL;
+
+    if (!sw_optional_read_string (obj, "currency", file, path, &currency, error))
+      return FALSE;
+    if (currency != NULL && (problem = currency_problem (currency)) != NULL)
+      {
+        g_autofree char *cp = sw_optional_path (path, "currency");
+        sw_optional_set_error (error, SW_ERROR_RANGE, file, "%s: %s", cp, problem);
+        return FALSE;
+      }
+    if (currency != NULL)
+      g_strlcpy (econ->currency, currency, sizeof econ->currency);
+  }
   if (!sw_optional_read_number (obj, "learning_rate", file, path, SW_LIMIT_LEARNING_RATE, FALSE,
                                 &econ->learning_rate, &present, error)
       || !sw_optional_read_number (obj, "engine_mass_fraction", file, path,
@@ -438,6 +504,11 @@ sw_economics_save_design (JsonBuilder *b, const SwEconomics *econ)
   json_builder_begin_object (b);
   if (econ->has_work_year_cost)
     sw_optional_add_number (b, "work_year_cost", econ->work_year_cost);
+  if (econ->currency[0] != '\0')
+    {
+      json_builder_set_member_name (b, "currency");
+      json_builder_add_string_value (b, econ->currency);
+    }
   json_builder_set_member_name (b, "production_run");
   json_builder_add_int_value (b, econ->production_run);
   sw_optional_add_number (b, "learning_rate", econ->learning_rate);
@@ -510,6 +581,15 @@ sw_economics_validate (const SwEconomics *econ, guint n_stages, const char *file
   weights[1] = econ->weight_development;
   weights[2] = econ->weight_cost_per_flight;
   weights[3] = econ->weight_failure;
+  {
+    g_autofree char *problem = currency_problem (econ->currency);
+    if (problem != NULL)
+      {
+        g_autofree char *cp = sw_optional_path (path, "currency");
+        sw_optional_set_error (error, SW_ERROR_RANGE, file, "%s: %s", cp, problem);
+        return FALSE;
+      }
+  }
   if ((econ->has_work_year_cost
        && !sw_optional_check (SW_LIMIT_WORK_YEAR_COST, econ->work_year_cost, file, path, error))
       || !sw_optional_check (SW_LIMIT_PRODUCTION_RUN, econ->production_run, file, path, error)

@@ -5,7 +5,7 @@
  * recovery of the first stage and the weighting of the stage-count decision.
  *
  *   "economics": {
- *     "work_year_cost": 300000,
+ *     "work_year_cost": 300000, "currency": "kEUR",
  *     "production_run": 20, "learning_rate": 0.9,
  *     "cost_coefficients": { "stage_development_factor": 100, ... },
  *     "engine_types": [ { "name": "E1", "dry_mass_kg": 1200,
@@ -33,6 +33,8 @@
 G_BEGIN_DECLS
 
 #define SW_ECONOMICS_MAX_ENGINE_TYPES SW_MAX_STAGES
+/* Bytes of the currency label, room for its limit in characters. */
+#define SW_ECONOMICS_CURRENCY_BYTES 72
 
 /* The coefficients of the cost model, in one table (sw_cost_coefficient_info). */
 typedef enum {
@@ -72,6 +74,7 @@ typedef struct {
   gboolean present;               /* the object was given */
   gboolean has_work_year_cost;
   double   work_year_cost;        /* money per work-year; valid when has_work_year_cost */
+  char     currency[SW_ECONOMICS_CURRENCY_BYTES]; /* label of the money unit, "" none */
   guint    production_run;        /* vehicles built */
   double   learning_rate;         /* S: unit cost falls to S per doubling */
   double   coefficients[SW_N_CER];
@@ -144,6 +147,15 @@ double   sw_economics_get_number (const SwEconomics *econ, SwEconNumber key);
 /* The named edit: sets the key (whole numbers for whole keys), marks the
  * object present; FALSE, nothing changed, when @value is outside its limit. */
 gboolean sw_economics_set_number (SwEconomics *econ, SwEconNumber key, double value);
+/* The named edit of the currency label: FALSE (with @error naming the key),
+ * nothing changed, when @text is longer than its limit or holds a control
+ * character.  "" leaves the label out. */
+gboolean sw_economics_set_currency (SwEconomics *econ, const char *text, GError **error);
+/* The label to print beside money: the design's currency, or a neutral
+ * "money units" (translated) when it has none. */
+const char *sw_economics_currency_label (const SwEconomics *econ);
+/* The one caution printed wherever money is shown. */
+const char *sw_economics_money_note (void);
 /* The named edit of the recovery mode. */
 void     sw_economics_set_recovery_mode (SwEconomics *econ, SwRecoveryMode mode);
 

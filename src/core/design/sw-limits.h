@@ -73,6 +73,7 @@ typedef enum {
   SW_LIMIT_REFURBISHMENT,
   SW_LIMIT_FLIGHTS_PER_STAGE,
   SW_LIMIT_DECISION_WEIGHT,
+  SW_LIMIT_CURRENCY_LENGTH,
   /* propellant and fixed loads (per stage, format version 2) */
   SW_LIMIT_PROPELLANT_LOAD,
   SW_LIMIT_MIXTURE_RATIO,

@@ -16,7 +16,46 @@
 #include <string.h>
 
 #define PARAM_LIST "payload_kg, mission.delta_v_m_s, mission.losses_m_s, " \
-                   "stages[N].isp_vac_s, stages[N].structural_coefficient"
+                   "mission.orbit.inclination_deg, " \
+                   "mission.orbit.site_latitude_deg, stages[N].isp_vac_s, " \
+                   "stages[N].structural_coefficient, economics.production_run, " \
+                   "economics.learning_rate, economics.engine_mass_fraction, " \
+                   "economics.cost_coefficients.KEY"
+
+/* The economics keys a carpet can vary: those of the cost model (the
+ * recovery and weighting keys change no carpet output). */
+static const struct {
+  SwEconNumber key;
+  const char  *label;
+} econ_params[] = {
+  { SW_ECON_PRODUCTION_RUN, N_("Vehicles built") },
+  { SW_ECON_LEARNING_RATE, N_("Learning rate") },
+  { SW_ECON_CER_FIRST + SW_CER_STAGE_DEV_FACTOR, N_("Stage development factor a") },
+  { SW_ECON_CER_FIRST + SW_CER_STAGE_DEV_EXPONENT, N_("Stage development exponent x") },
+  { SW_ECON_CER_FIRST + SW_CER_STAGE_UNIT_FACTOR, N_("Stage first-unit factor b") },
+  { SW_ECON_CER_FIRST + SW_CER_STAGE_UNIT_EXPONENT, N_("Stage first-unit exponent y") },
+  { SW_ECON_CER_FIRST + SW_CER_ENGINE_DEV_FACTOR, N_("Engine development factor a") },
+  { SW_ECON_CER_FIRST + SW_CER_ENGINE_DEV_EXPONENT, N_("Engine development exponent x") },
+  { SW_ECON_CER_FIRST + SW_CER_ENGINE_UNIT_FACTOR, N_("Engine first-unit factor b") },
+  { SW_ECON_CER_FIRST + SW_CER_ENGINE_UNIT_EXPONENT, N_("Engine first-unit exponent y") },
+  { SW_ECON_CER_FIRST + SW_CER_SYSTEMS_BASE, N_("Systems factor per stage") },
+  { SW_ECON_ENGINE_MASS_FRACTION, N_("Engines in a stage's dry mass") },
+};
+
+static int
+econ_param_index (SwEconNumber key)
+{
+  for (guint i = 0; i < G_N_ELEMENTS (econ_params); i++)
+    if (econ_params[i].key == key)
+      return (int) i;
+  return -1;
+}
+
+static gboolean
+is_orbit_param (SwCarpetParamKind kind)
+{
+  return kind == SW_CARPET_PARAM_LOSSES || kind == SW_CARPET_PARAM_INCLINATION || kind == SW_CARPET_PARAM_SITE_LATITUDE;
+}
 
 gboolean
 sw_carpet_param_parse (const char *text, const SwDesign *design, SwCarpetAxis *axis,
@@ -29,12 +68,34 @@ sw_carpet_param_parse (const char *text, const SwDesign *design, SwCarpetAxis *a
   g_return_val_if_fail (text != NULL && design != NULL && axis != NULL, FALSE);
 
   axis->stage = 0;
+  axis->econ = 0;
   if (strcmp (text, "payload_kg") == 0)
     axis->kind = SW_CARPET_PARAM_PAYLOAD;
   else if (strcmp (text, "mission.delta_v_m_s") == 0)
     axis->kind = SW_CARPET_PARAM_DELTA_V;
   else if (strcmp (text, "mission.losses_m_s") == 0)
     axis->kind = SW_CARPET_PARAM_LOSSES;
+  else if (strcmp (text, "mission.orbit.inclination_deg") == 0)
+    axis->kind = SW_CARPET_PARAM_INCLINATION;
+  else if (strcmp (text, "mission.orbit.site_latitude_deg") == 0)
+    axis->kind = SW_CARPET_PARAM_SITE_LATITUDE;
+  else if (g_str_has_prefix (text, "economics."))
+    {
+      int found = -1;
+      for (guint i = 0; i < G_N_ELEMENTS (econ_params) && found < 0; i++)
+        if (strcmp (text + strlen ("economics."),
+                    sw_economics_number_path (econ_params[i].key)) == 0)
+          found = (int) i;
+      if (found < 0)
+        {
+          g_set_error (error, SW_ERROR, SW_ERROR_USAGE,
+                       _("%s: not a parameter of the carpet plot; use one of %s"), text,
+                       PARAM_LIST);
+          return FALSE;
+        }
+      axis->kind = SW_CARPET_PARAM_ECONOMICS;
+      axis->econ = econ_params[found].key;
+    }
   else if (sscanf (text, "stages[%u].%63[a-z_]%n", &stage, key, &consumed) == 2
            && text[consumed] == '\0'
            && (strcmp (key, "isp_vac_s") == 0 || strcmp (key, "structural_coefficient") == 0))
@@ -63,7 +124,7 @@ sw_carpet_param_parse (const char *text, const SwDesign *design, SwCarpetAxis *a
                    text);
       return FALSE;
     }
-  if (axis->kind == SW_CARPET_PARAM_LOSSES && design->mission.kind != SW_MISSION_ORBIT)
+  if (is_orbit_param (axis->kind) && design->mission.kind != SW_MISSION_ORBIT)
     {
       g_set_error (error, SW_ERROR, SW_ERROR_USAGE,
                    _("%s: the design's mission is a delta-v; vary mission.delta_v_m_s instead"),
@@ -84,6 +145,12 @@ sw_carpet_param_dup_name (const SwCarpetAxis *axis)
       return g_strdup ("mission.delta_v_m_s");
     case SW_CARPET_PARAM_LOSSES:
       return g_strdup ("mission.losses_m_s");
+    case SW_CARPET_PARAM_INCLINATION:
+      return g_strdup ("mission.orbit.inclination_deg");
+    case SW_CARPET_PARAM_SITE_LATITUDE:
+      return g_strdup ("mission.orbit.site_latitude_deg");
+    case SW_CARPET_PARAM_ECONOMICS:
+      return g_strdup_printf ("economics.%s", sw_economics_number_path (axis->econ));
     case SW_CARPET_PARAM_ISP_VAC:
       return g_strdup_printf ("stages[%u].isp_vac_s", axis->stage);
     case SW_CARPET_PARAM_STRUCTURAL_COEFFICIENT:
@@ -103,6 +170,15 @@ sw_carpet_param_dup_label (const SwCarpetAxis *axis)
       return g_strdup (_("Mission delta-v"));
     case SW_CARPET_PARAM_LOSSES:
       return g_strdup (_("Loss allowance"));
+    case SW_CARPET_PARAM_INCLINATION:
+      return g_strdup (_("Orbit inclination"));
+    case SW_CARPET_PARAM_SITE_LATITUDE:
+      return g_strdup (_("Launch site latitude"));
+    case SW_CARPET_PARAM_ECONOMICS:
+      {
+        int k = econ_param_index (axis->econ);
+        return g_strdup (k >= 0 ? _(econ_params[k].label) : "?");
+      }
     case SW_CARPET_PARAM_ISP_VAC:
       return g_strdup_printf (_("Vacuum Isp, stage %u"), axis->stage + 1);
     case SW_CARPET_PARAM_STRUCTURAL_COEFFICIENT:
@@ -136,11 +212,17 @@ sw_carpet_output_from_string (const char *text, SwCarpetOutput *output)
   return FALSE;
 }
 
-static SwLimitId
-axis_limit (const SwCarpetAxis *axis)
+SwLimitId
+sw_carpet_param_limit (const SwCarpetAxis *axis)
 {
   switch (axis->kind)
     {
+    case SW_CARPET_PARAM_INCLINATION:
+      return SW_LIMIT_INCLINATION;
+    case SW_CARPET_PARAM_SITE_LATITUDE:
+      return SW_LIMIT_SITE_LATITUDE;
+    case SW_CARPET_PARAM_ECONOMICS:
+      return sw_economics_number_limit (axis->econ);
     case SW_CARPET_PARAM_PAYLOAD:
       return SW_LIMIT_PAYLOAD;
     case SW_CARPET_PARAM_DELTA_V:
@@ -159,7 +241,7 @@ gboolean
 sw_carpet_axis_check (const SwCarpetAxis *axis, const SwDesign *design, GError **error)
 {
   g_autofree char *name = sw_carpet_param_dup_name (axis);
-  SwLimitId id = axis_limit (axis);
+  SwLimitId id = sw_carpet_param_limit (axis);
   const SwLimit *l = sw_limit_get (id);
 
   if (axis->n < 2 || axis->n > SW_CARPET_MAX_POINTS)
@@ -198,11 +280,141 @@ sw_carpet_axis_check (const SwCarpetAxis *axis, const SwDesign *design, GError *
 double
 sw_carpet_axis_value (const SwCarpetAxis *axis, guint i)
 {
+  double v;
+
   if (axis->n < 2)
-    return axis->min;
-  if (i + 1 >= axis->n)
-    return axis->max;
-  return axis->min + (axis->max - axis->min) * i / (axis->n - 1);
+    v = axis->min;
+  else if (i + 1 >= axis->n)
+    v = axis->max;
+  else
+    v = axis->min + (axis->max - axis->min) * i / (axis->n - 1);
+  return sw_carpet_param_is_whole (axis) ? round (v) : v;
+}
+
+gboolean
+sw_carpet_param_is_whole (const SwCarpetAxis *axis)
+{
+  return axis->kind == SW_CARPET_PARAM_ECONOMICS && sw_economics_number_is_whole (axis->econ);
+}
+
+gboolean
+sw_carpet_param_equal (const SwCarpetAxis *a, const SwCarpetAxis *b)
+{
+  if (a->kind != b->kind)
+    return FALSE;
+  if (a->kind == SW_CARPET_PARAM_ISP_VAC || a->kind == SW_CARPET_PARAM_STRUCTURAL_COEFFICIENT)
+    return a->stage == b->stage;
+  if (a->kind == SW_CARPET_PARAM_ECONOMICS)
+    return a->econ == b->econ;
+  return TRUE;
+}
+
+const char *
+sw_carpet_param_unit (const SwCarpetAxis *axis)
+{
+  const SwLimit *l = sw_limit_get (sw_carpet_param_limit (axis));
+
+  /* "flights" and "characters" are counts, not units to print by values. */
+  return l != NULL ? l->unit : "";
+}
+
+guint
+sw_carpet_list_params (const SwDesign *design, SwCarpetOutput output, SwCarpetAxis *out,
+                       guint max)
+{
+  guint n = 0;
+
+#define ADD(k, s, e)                                                                     \
+  G_STMT_START                                                                           \
+  {                                                                                      \
+    if (n < max)                                                                         \
+      {                                                                                  \
+        memset (&out[n], 0, sizeof out[n]);                                              \
+        out[n].kind = (k);                                                               \
+        out[n].stage = (s);                                                              \
+        out[n].econ = (e);                                                               \
+      }                                                                                  \
+    n++;                                                                                 \
+  }                                                                                      \
+  G_STMT_END
+
+  g_return_val_if_fail (design != NULL, 0);
+  for (guint i = 0; i < design->n_stages; i++)
+    {
+      ADD (SW_CARPET_PARAM_STRUCTURAL_COEFFICIENT, i, 0);
+      ADD (SW_CARPET_PARAM_ISP_VAC, i, 0);
+    }
+  ADD (SW_CARPET_PARAM_PAYLOAD, 0, 0);
+  if (design->mission.kind == SW_MISSION_DELTA_V)
+    ADD (SW_CARPET_PARAM_DELTA_V, 0, 0);
+  else
+    {
+      ADD (SW_CARPET_PARAM_LOSSES, 0, 0);
+      ADD (SW_CARPET_PARAM_INCLINATION, 0, 0);
+      ADD (SW_CARPET_PARAM_SITE_LATITUDE, 0, 0);
+    }
+  if (output == SW_CARPET_DEVELOPMENT || output == SW_CARPET_COST_PER_FLIGHT)
+    for (guint i = 0; i < G_N_ELEMENTS (econ_params); i++)
+      ADD (SW_CARPET_PARAM_ECONOMICS, 0, econ_params[i].key);
+#undef ADD
+  return MIN (n, max);
+}
+
+void
+sw_carpet_axis_default_range (SwCarpetAxis *axis, const SwDesign *design)
+{
+  const SwLimit *l = sw_limit_get (sw_carpet_param_limit (axis));
+  double v = sw_carpet_design_value (axis, design), lo, hi;
+  /* The smallest step above an exclusive lower limit that prints cleanly. */
+  double floor_ = l->min_exclusive ? l->min + MAX (1e-3, fabs (l->max - l->min) * 1e-4) : l->min;
+
+  switch (axis->kind)
+    {
+    case SW_CARPET_PARAM_ISP_VAC:
+      lo = 0.85 * v;
+      hi = 1.15 * v;
+      if (design->stages[axis->stage].has_isp_sl)
+        lo = MAX (lo, design->stages[axis->stage].isp_sl_s);
+      break;
+    case SW_CARPET_PARAM_INCLINATION:
+      lo = MAX (fabs (design->mission.site_latitude_deg), v - 30.0);
+      hi = MIN (180.0 - fabs (design->mission.site_latitude_deg), v + 30.0);
+      break;
+    case SW_CARPET_PARAM_SITE_LATITUDE:
+      lo = v - 20.0;
+      hi = v + 20.0;
+      break;
+    case SW_CARPET_PARAM_LOSSES:
+      lo = 0.5 * v;
+      hi = 1.5 * v;
+      if (!(hi > lo))
+        {
+          lo = 0.0;
+          hi = 2000.0;
+        }
+      break;
+    default:
+      lo = 0.5 * v;
+      hi = 1.5 * v;
+      break;
+    }
+  if (!isfinite (lo) || !isfinite (hi) || !(hi > lo))
+    {
+      lo = floor_;
+      hi = l->max;
+    }
+  axis->min = CLAMP (lo, floor_, l->max);
+  axis->max = CLAMP (hi, floor_, l->max);
+  if (sw_carpet_param_is_whole (axis))
+    {
+      axis->min = ceil (axis->min);
+      axis->max = floor (axis->max);
+    }
+  if (!(axis->max > axis->min))
+    {
+      axis->min = floor_;
+      axis->max = l->max;
+    }
 }
 
 double
@@ -219,6 +431,12 @@ sw_carpet_design_value (const SwCarpetAxis *axis, const SwDesign *design)
         SwBudget budget;
         return sw_design_budget (design, &budget, NULL) ? budget.losses_m_s : NAN;
       }
+    case SW_CARPET_PARAM_INCLINATION:
+      return design->mission.inclination_deg;
+    case SW_CARPET_PARAM_SITE_LATITUDE:
+      return design->mission.site_latitude_deg;
+    case SW_CARPET_PARAM_ECONOMICS:
+      return sw_economics_get_number (&design->economics, axis->econ);
     case SW_CARPET_PARAM_ISP_VAC:
       return design->stages[axis->stage].isp_vac_s;
     case SW_CARPET_PARAM_STRUCTURAL_COEFFICIENT:
@@ -242,6 +460,15 @@ sw_carpet_apply (const SwCarpetAxis *axis, SwDesign *design, double value)
       design->mission.losses_m_s = value;
       design->mission.has_losses = TRUE;
       break;
+    case SW_CARPET_PARAM_INCLINATION:
+      design->mission.inclination_deg = value;
+      break;
+    case SW_CARPET_PARAM_SITE_LATITUDE:
+      design->mission.site_latitude_deg = value;
+      break;
+    case SW_CARPET_PARAM_ECONOMICS:
+      sw_economics_set_number (&design->economics, axis->econ, value);
+      break;
     case SW_CARPET_PARAM_ISP_VAC:
       design->stages[axis->stage].isp_vac_s = value;
       break;
@@ -251,13 +478,17 @@ sw_carpet_apply (const SwCarpetAxis *axis, SwDesign *design, double value)
     }
 }
 
-/* The inputs of one sizing, the cheap copy the grid varies. */
+/* The inputs of one sizing, the cheap copy the grid varies.  The mission
+ * and the economics are varied in @scratch, a shallow copy of the design
+ * (no notes, no baseline) read by the budget and the cost model. */
 typedef struct {
   SwStageSet set;
   double fixed_kg[SW_MAX_STAGES];     /* the design's fixed loads; 0: sized */
   gboolean any_fixed;
   double payload_kg;
   double delta_v_m_s;
+  SwMission mission;
+  SwEconomics economics;
 } Point;
 
 /* The payload at which the point's vehicle weighs @liftoff_kg.  Without a
@@ -308,6 +539,17 @@ point_apply (const SwCarpetAxis *axis, Point *p, double value, double dv_without
       break;
     case SW_CARPET_PARAM_LOSSES:
       p->delta_v_m_s = dv_without_losses + value;
+      p->mission.losses_m_s = value;
+      p->mission.has_losses = TRUE;
+      break;
+    case SW_CARPET_PARAM_INCLINATION:
+      p->mission.inclination_deg = value;
+      break;
+    case SW_CARPET_PARAM_SITE_LATITUDE:
+      p->mission.site_latitude_deg = value;
+      break;
+    case SW_CARPET_PARAM_ECONOMICS:
+      sw_economics_set_number (&p->economics, axis->econ, value);
       break;
     case SW_CARPET_PARAM_ISP_VAC:
       p->set.exhaust_velocity_m_s[axis->stage] = value * SW_G0;
@@ -318,14 +560,28 @@ point_apply (const SwCarpetAxis *axis, Point *p, double value, double dv_without
     }
 }
 
+/* The orbit's budget depends on the axis: computed again at every point. */
+static gboolean
+needs_budget (SwCarpetParamKind kind)
+{
+  return kind == SW_CARPET_PARAM_INCLINATION || kind == SW_CARPET_PARAM_SITE_LATITUDE;
+}
+
 static double
-point_output (const SwDesign *design, const SwCarpet *c, const Point *p, SwSplitMode split,
-              double design_liftoff)
+point_output (SwDesign *scratch, const SwCarpet *c, Point *p, SwSplitMode split,
+              double design_liftoff, gboolean budget)
 {
   SwSizing sizing;
   SwCostVehicle vehicle;
   SwCost cost;
 
+  if (budget)
+    {
+      /* An inclination the site cannot reach does not close. */
+      scratch->mission = p->mission;
+      if (!sw_design_required_delta_v (scratch, &p->delta_v_m_s, NULL))
+        return NAN;
+    }
   /* The design's fixed propellant loads are honoured (sw_size_with_fixed
    * is sw_size bit for bit without them). */
   sw_size_with_fixed (&p->set, p->fixed_kg, p->payload_kg, p->delta_v_m_s, split, &sizing);
@@ -337,8 +593,9 @@ point_output (const SwDesign *design, const SwCarpet *c, const Point *p, SwSplit
       return point_payload_at_mass (p, split, &sizing, design_liftoff);
     case SW_CARPET_DEVELOPMENT:
     case SW_CARPET_COST_PER_FLIGHT:
-      sw_cost_vehicle_from_sizing (&vehicle, &sizing, design);
-      sw_cost_compute (design, &vehicle, &cost);
+      scratch->economics = p->economics;
+      sw_cost_vehicle_from_sizing (&vehicle, &sizing, scratch);
+      sw_cost_compute (scratch, &vehicle, &cost);
       return c->output == SW_CARPET_DEVELOPMENT ? cost.development_work_years
                                                 : cost.cost_per_flight_work_years;
     case SW_CARPET_LIFTOFF_MASS:
@@ -351,8 +608,10 @@ SwCarpet *
 sw_carpet_compute (const SwDesign *design, const SwCarpetOptions *options, GError **error)
 {
   g_autoptr (SwCarpet) c = NULL;
+  g_autofree SwDesign *scratch = NULL;
   Point base, row;
   double dv_without_losses = 0.0, design_liftoff;
+  gboolean budget;
   SwSizing own;
 
   g_return_val_if_fail (design != NULL && options != NULL && design->n_stages > 0, NULL);
@@ -360,13 +619,28 @@ sw_carpet_compute (const SwDesign *design, const SwCarpetOptions *options, GErro
   if (!sw_carpet_axis_check (&options->x, design, error)
       || !sw_carpet_axis_check (&options->y, design, error))
     return NULL;
-  if (options->x.kind == options->y.kind && options->x.stage == options->y.stage)
+  if (sw_carpet_param_equal (&options->x, &options->y))
     {
       g_set_error (error, SW_ERROR, SW_ERROR_USAGE,
                    _("The two axes of a carpet plot must be different parameters."));
       return NULL;
     }
+  if ((options->x.kind == SW_CARPET_PARAM_ECONOMICS
+       || options->y.kind == SW_CARPET_PARAM_ECONOMICS)
+      && options->output != SW_CARPET_DEVELOPMENT && options->output != SW_CARPET_COST_PER_FLIGHT)
+    {
+      g_set_error (error, SW_ERROR, SW_ERROR_USAGE,
+                   _("The cost model's keys change only the cost outputs (development, "
+                     "cost_per_flight), not %s."),
+                   sw_carpet_output_to_string (options->output));
+      return NULL;
+    }
+  budget = needs_budget (options->x.kind) || needs_budget (options->y.kind);
 
+  /* A shallow copy: the heap members are not the scratch's to free. */
+  scratch = g_memdup2 (design, sizeof *design);
+  scratch->notes = NULL;
+  scratch->baseline = NULL;
   sw_stage_set_from_design (&base.set, design);
   base.any_fixed = FALSE;
   for (guint i = 0; i < SW_MAX_STAGES; i++)
@@ -376,14 +650,16 @@ sw_carpet_compute (const SwDesign *design, const SwCarpetOptions *options, GErro
       base.any_fixed = base.any_fixed || base.fixed_kg[i] > 0.0;
     }
   base.payload_kg = design->payload_kg;
+  base.mission = design->mission;
+  base.economics = design->economics;
   if (!sw_design_required_delta_v (design, &base.delta_v_m_s, error))
     return NULL;
   if (design->mission.kind == SW_MISSION_ORBIT)
     {
-      SwBudget budget;
-      if (!sw_design_budget (design, &budget, error))
+      SwBudget b;
+      if (!sw_design_budget (design, &b, error))
         return NULL;
-      dv_without_losses = budget.delta_v_m_s - budget.losses_m_s;
+      dv_without_losses = b.delta_v_m_s - b.losses_m_s;
     }
   sw_size_with_fixed (&base.set, base.fixed_kg, base.payload_kg, base.delta_v_m_s, design->split,
                       &own);
@@ -397,7 +673,8 @@ sw_carpet_compute (const SwDesign *design, const SwCarpetOptions *options, GErro
   c->feasible = g_new (gboolean, (gsize) c->x.n * c->y.n);
   c->design_x = sw_carpet_design_value (&c->x, design);
   c->design_y = sw_carpet_design_value (&c->y, design);
-  c->design_value = point_output (design, c, &base, design->split, design_liftoff);
+  row = base;
+  c->design_value = point_output (scratch, c, &row, design->split, design_liftoff, FALSE);
 
   for (guint j = 0; j < c->y.n; j++)
     {
@@ -411,7 +688,7 @@ sw_carpet_compute (const SwDesign *design, const SwCarpetOptions *options, GErro
           gsize k = (gsize) j * c->x.n + i;
 
           point_apply (&c->x, &p, sw_carpet_axis_value (&c->x, i), dv_without_losses);
-          c->values[k] = point_output (design, c, &p, design->split, design_liftoff);
+          c->values[k] = point_output (scratch, c, &p, design->split, design_liftoff, budget);
           c->feasible[k] = isfinite (c->values[k]);
           if (!c->feasible[k])
             {

@@ -1,6 +1,13 @@
 /* SPDX-License-Identifier: GPL-3.0-or-later */
 /* sw-carpet.h: a carpet plot's grid.  Two numeric inputs of the design (an
- * axis each: parameter, range, point count) are varied over a grid; at every
+ * axis each: parameter, range, point count) are varied over a grid: the
+ * payload, the mission (delta-v, or the orbit's inclination, the site's
+ * latitude and the loss allowance), each stage's vacuum Isp and structural
+ * coefficient, and for the cost outputs the cost model's numeric keys
+ * (production run, learning rate, coefficients, engine share).  Not the
+ * orbit's altitude: the budget's ideal delta-v is the circular speed at the
+ * altitude, and the climb is in the loss allowance, so a grid over altitude
+ * would show a higher orbit as cheaper.  At every
  * point the vehicle is sized with the design's split and one output taken:
  * liftoff mass, the payload of a vehicle of the design's own liftoff mass,
  * development effort or cost per flight (work-years, expendable).  A point
@@ -13,6 +20,7 @@
 #include <gio/gio.h>
 
 #include "sw-design.h"
+#include "sw-limits.h"
 #include "sw-types.h"
 
 G_BEGIN_DECLS
@@ -25,11 +33,15 @@ typedef enum {
   SW_CARPET_PARAM_LOSSES,             /* mission.losses_m_s */
   SW_CARPET_PARAM_ISP_VAC,            /* stages[i].isp_vac_s */
   SW_CARPET_PARAM_STRUCTURAL_COEFFICIENT, /* stages[i].structural_coefficient */
+  SW_CARPET_PARAM_INCLINATION,        /* mission.orbit.inclination_deg (orbit missions) */
+  SW_CARPET_PARAM_SITE_LATITUDE,      /* mission.orbit.site_latitude_deg */
+  SW_CARPET_PARAM_ECONOMICS,          /* economics.<key> (cost outputs only) */
 } SwCarpetParamKind;
 
 typedef struct {
   SwCarpetParamKind kind;
   guint  stage;                       /* for the stage parameters */
+  SwEconNumber econ;                  /* for SW_CARPET_PARAM_ECONOMICS */
   double min;
   double max;
   guint  n;                           /* points, 2..SW_CARPET_MAX_POINTS */
@@ -78,6 +90,23 @@ gboolean    sw_carpet_output_from_string (const char *text, SwCarpetOutput *outp
 /* Checks the axis's range against the parameter's limit and its count. */
 gboolean    sw_carpet_axis_check (const SwCarpetAxis *axis, const SwDesign *design,
                                   GError **error);
+/* The limit of the parameter's key (its range and unit). */
+SwLimitId   sw_carpet_param_limit (const SwCarpetAxis *axis);
+/* The unit shown beside the parameter's values ("s", "kg", "" for none). */
+const char *sw_carpet_param_unit (const SwCarpetAxis *axis);
+/* TRUE for a whole-number parameter (the production run): its grid values
+ * are rounded. */
+gboolean    sw_carpet_param_is_whole (const SwCarpetAxis *axis);
+/* TRUE when the two axes are the same parameter. */
+gboolean    sw_carpet_param_equal (const SwCarpetAxis *a, const SwCarpetAxis *b);
+/* Every parameter the carpet can vary for @design and @output, into @out
+ * (up to @max, kind/stage/econ only); the count. */
+guint       sw_carpet_list_params (const SwDesign *design, SwCarpetOutput output,
+                                   SwCarpetAxis *out, guint max);
+/* A range around the design's value: 0.5 to 1.5 times for a structural
+ * coefficient and the economics keys, 0.85 to 1.15 times for an Isp, and
+ * so on, always inside the key's limit. */
+void        sw_carpet_axis_default_range (SwCarpetAxis *axis, const SwDesign *design);
 /* The value of grid index @i on @axis. */
 double      sw_carpet_axis_value (const SwCarpetAxis *axis, guint i);
 /* The parameter's value in @design. */
