@@ -27,7 +27,7 @@ static const char *design_json =
   "      \"engine_count\": 9, \"engine_reliability\": 0.995, \"engine_failures_tolerated\": 1 },\n"
   "    { \"name\": \"B\", \"isp_vac_s\": 345, \"structural_coefficient\": 0.09,\n"
   "      \"engine_reliability\": 0.993 } ],\n"
-  "  \"economics\": { \"production_run\": 30, \"work_year_cost\": 200000,\n"
+  "  \"economics\": { \"production_run\": 30, \"work_year_cost\": 200000, \"currency\": \"EUR\",\n"
   "    \"engine_types\": [ { \"name\": \"E1\", \"dry_mass_kg\": 900, \"on_stages\": [0, 1] } ],\n"
   "    \"recovery\": { \"mode\": \"launch_site\" } } }\n";
 
@@ -145,6 +145,8 @@ test_stages_json (void)
   /* The launch-site default, from memory (the reference notes' example). */
   check (o, "recovery_delta_v_m_s", 2750.0);
   check (o, "work_year_cost", 200000.0);
+  g_assert_cmpstr (json_object_get_string_member (o, "currency"), ==, "EUR");
+  g_assert_nonnull (strstr (json_object_get_string_member (o, "money_note"), "never a quote"));
   check (o, "design_liftoff_mass_kg", s.design_liftoff_mass_kg);
   g_assert_cmpint (json_object_get_int_member (o, "best_stage_count"), ==,
                    s.rows[s.best].n_stages);
@@ -221,6 +223,31 @@ test_stages_table (void)
   }
   g_assert_nonnull (strstr (r.out, "never a quote"));
   g_assert_nonnull (strstr (r.out, "Conceptual sizing only"));
+  /* Money in the design's currency, with the note that it is no quote. */
+  {
+    g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
+    SwStaging s;
+    g_autofree char *dev = NULL;
+    g_autofree char *line = NULL;
+
+    g_assert_true (sw_staging_compute (d, 6, &s, NULL));
+    dev = g_strdup_printf ("%.0f", s.rows[s.best].development_work_years * 200000.0);
+    /* The formatter groups thousands with commas in the C locale. */
+    for (int k = (int) strlen (dev) - 3; k > 0; k -= 3)
+      {
+        g_autofree char *head = g_strndup (dev, k);
+        g_autofree char *tail = g_strdup (dev + k);
+        g_free (dev);
+        dev = g_strconcat (head, ",", tail, NULL);
+      }
+    line = g_strdup_printf ("At 200,000 EUR per work-year, the best count: development %s EUR, "
+                            "per flight ", dev);
+    if (strstr (r.out, line) == NULL)
+      g_error ("no \"%s\" in:\n%s", line, r.out);
+    g_assert_nonnull (strstr (r.out, "Money is the effort in work-years times the design's cost "
+                                     "of a work-year: an estimate for comparing concepts, never "
+                                     "a quote.\n"));
+  }
   run_clear (&r);
 
   run_cli (&r, "stages", path, "--max-stages", "7", NULL);
@@ -369,10 +396,18 @@ test_export_csv (void)
   lines = g_strsplit (text, "\n", -1);
   g_assert_true (g_str_has_prefix (lines[0], "# Conceptual sizing only"));
   g_assert_cmpstr (lines[1] + 2, ==, s.weighting);
-  g_assert_true (g_str_has_prefix (lines[2], "stage_count,closes,closes_recovered,liftoff_mass_kg,"));
+  g_assert_cmpstr (lines[2], ==, "# money in EUR at 200000 EUR per work-year. Money is the effort "
+                                 "in work-years times the design's cost of a work-year: an "
+                                 "estimate for comparing concepts, never a quote.");
+  g_assert_true (g_str_has_prefix (lines[3], "stage_count,closes,closes_recovered,liftoff_mass_kg,"));
+  g_assert_true (g_str_has_suffix (lines[3], ",this_design,development_money,per_flight_money,"
+                                             "per_flight_recovered_money"));
   for (guint i = 0; i < 6; i++)
     {
-      g_auto (GStrv) f = g_strsplit (lines[3 + i], ",", -1);
+      g_auto (GStrv) f = g_strsplit (lines[4 + i], ",", -1);
+      const double money[] = { s.rows[i].development_work_years * 200000.0,
+                               s.rows[i].cost_per_flight_work_years * 200000.0,
+                               s.rows[i].cost_per_flight_reused_work_years * 200000.0 };
       const double core[] = { s.rows[i].liftoff_mass_kg, s.rows[i].liftoff_mass_reused_kg,
                               s.rows[i].payload_penalty_fraction,
                               s.rows[i].development_work_years,
@@ -382,7 +417,13 @@ test_export_csv (void)
                               s.rows[i].success_probability, s.rows[i].payload_fixed_size_kg,
                               s.rows[i].score };
 
-      g_assert_cmpuint (g_strv_length (f), ==, 15);
+      g_assert_cmpuint (g_strv_length (f), ==, 18);
+      for (guint k = 0; k < G_N_ELEMENTS (money); k++)
+        if (isfinite (money[k]))
+          g_assert_cmpfloat_with_epsilon (g_ascii_strtod (f[15 + k], NULL) / money[k], 1.0,
+                                          1e-13);
+        else
+          g_assert_cmpstr (f[15 + k], ==, "");
       g_assert_cmpint (atoi (f[0]), ==, i + 1);
       g_assert_cmpstr (f[13], ==, (int) i == s.best ? "true" : "false");
       g_assert_cmpstr (f[14], ==, i + 1 == 2 ? "true" : "false");

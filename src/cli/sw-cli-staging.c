@@ -62,6 +62,13 @@ stages_json (const SwDesign *d, const SwStaging *s)
     sw_cli_add_number (b, "recovery_delta_v_m_s", sw_economics_recovery_delta_v (&e));
   }
   sw_cli_add_number (b, "work_year_cost", s->work_year_cost);
+  json_builder_set_member_name (b, "currency");
+  if (d->economics.currency[0] != '\0')
+    json_builder_add_string_value (b, d->economics.currency);
+  else
+    json_builder_add_null_value (b);
+  json_builder_set_member_name (b, "money_note");
+  json_builder_add_string_value (b, sw_economics_money_note ());
   json_builder_set_member_name (b, "effort_note");
   json_builder_add_string_value (b, _(EFFORT_NOTE));
   json_builder_set_member_name (b, "fixed_loads_note");
@@ -189,9 +196,13 @@ stages_table (const SwDesign *d, const SwStaging *s)
                                                   : r->cost_per_flight_work_years)
                                                  * s->work_year_cost,
                                                0);
-      g_print (_("At the design's cost per work-year, the best count: development %s, per "
-                 "flight %s (money units of the design)\n"),
-               dev, cpf);
+      g_autofree char *wy = sw_format_number (s->work_year_cost, 0);
+      const char *cur = sw_economics_currency_label (&d->economics);
+
+      g_print (_("At %s %s per work-year, the best count: development %s %s, per flight %s "
+                 "%s\n"),
+               wy, cur, dev, cur, cpf, cur);
+      g_print ("%s\n", sw_economics_money_note ());
     }
   if (!s->reliability_given)
     g_print (_("No stage has reliability keys: the failure criterion is left out.\n"));

@@ -34,11 +34,25 @@ sw_csv_staging_decision (const SwAnalysis *b)
   g_string_append_printf (s, "# %s\n", st.weighting);
   if (st.fixed_note[0] != '\0')
     g_string_append_printf (s, "# %s %s\n", st.fixed_note, st.reuse_note);
+  /* The money columns' unit, in words: the label may hold commas. */
+  if (st.has_money)
+    {
+      char wy[G_ASCII_DTOSTR_BUF_SIZE];
+      const char *cur = sw_economics_currency_label (&b->design->economics);
+
+      g_ascii_formatd (wy, sizeof wy, "%.15g", st.work_year_cost);
+      g_string_append_printf (s, "# money in %s at %s %s per work-year. %s\n", cur, wy, cur,
+                              sw_economics_money_note ());
+    }
+  else
+    g_string_append (s, "# money: the design gives no cost of a work-year "
+                        "(economics.work_year_cost); effort in work-years only\n");
   g_string_append (s, "stage_count,closes,closes_recovered,liftoff_mass_kg,"
                       "liftoff_mass_recovered_kg,recovery_payload_penalty,"
                       "development_work_years,development_recovered_work_years,"
                       "per_flight_work_years,per_flight_recovered_work_years,mission_success,"
-                      "payload_at_design_liftoff_mass_kg,weighted_score,best,this_design\n");
+                      "payload_at_design_liftoff_mass_kg,weighted_score,best,this_design,"
+                      "development_money,per_flight_money,per_flight_recovered_money\n");
   for (guint i = 0; i < st.n_rows; i++)
     {
       const SwStagingRow *r = &st.rows[i];
@@ -55,8 +69,12 @@ sw_csv_staging_decision (const SwAnalysis *b)
       number (s, r->success_probability, FALSE);
       number (s, r->payload_fixed_size_kg, FALSE);
       number (s, r->score, FALSE);
-      g_string_append_printf (s, "%s,%s\n", (int) i == st.best ? "true" : "false",
+      g_string_append_printf (s, "%s,%s,", (int) i == st.best ? "true" : "false",
                               r->n_stages == st.design_stages ? "true" : "false");
+      number (s, st.has_money ? r->development_work_years * st.work_year_cost : NAN, FALSE);
+      number (s, st.has_money ? r->cost_per_flight_work_years * st.work_year_cost : NAN, FALSE);
+      number (s, st.has_money ? r->cost_per_flight_reused_work_years * st.work_year_cost : NAN,
+              TRUE);
     }
   return g_string_free (s, FALSE);
 }

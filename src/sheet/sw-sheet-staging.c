@@ -8,6 +8,7 @@
 
 #include "sw-sheet-staging.h"
 
+#include "sw-economics.h"
 #include "sw-format.h"
 #include "sw-sheet-private.h"
 #include "sw-staging.h"
@@ -30,9 +31,9 @@ has_fixed_load (const SwDesign *design)
 double
 sw_sheet_staging_height (const SwDesign *design)
 {
-  /* Heading, column titles, six rows, the weighting line (and the line on
-   * fixed loads). */
-  return 16.0 + ROW_H * (SW_STAGING_MAX_STAGES + 1) + 12.0
+  /* Heading, column titles, six rows, the weighting and money lines (and
+   * the line on fixed loads). */
+  return 16.0 + ROW_H * (SW_STAGING_MAX_STAGES + 1) + 12.0 + ROW_H
          + (has_fixed_load (design) ? ROW_H : 0.0);
 }
 
@@ -107,6 +108,9 @@ sw_sheet_draw_staging (cairo_t *cr, const SwDesign *design, double x, double y, 
 
   {
     TextStyle note = sw_sheet_style_w (6.0, FALSE, MUTED, PANGO_ALIGN_LEFT, w);
+    g_autofree char *money = NULL;
+    double money_y = ty + 1.0 + ROW_H;
+
     note.ellipsize = TRUE;
     sw_sheet_text_at (cr, statement, x, ty + 1.0, &note);
     for (guint i = 0; s.fixed_note[0] != '\0' && i < design->n_stages; i++)
@@ -119,7 +123,27 @@ sw_sheet_draw_staging (cairo_t *cr, const SwDesign *design, double x, double y, 
                                                       "design's and the recovered columns "
                                                       "included, sizes every stage."), i + 1);
           sw_sheet_text_at (cr, fixed, x, ty + 1.0 + ROW_H, &note);
+          money_y += ROW_H;
           break;
         }
+    /* Money only with the design's cost of a work-year, in its currency. */
+    if (s.has_money && s.best >= 0)
+      {
+        const SwStagingRow *r = &s.rows[s.best];
+        const char *cur = sw_economics_currency_label (&design->economics);
+        g_autofree char *wy = sw_format_number (s.work_year_cost, 0);
+        g_autofree char *dev = sw_format_number (r->development_work_years * s.work_year_cost, 0);
+        g_autofree char *cpf = sw_format_number ((s.design_reuses
+                                                    ? r->cost_per_flight_reused_work_years
+                                                    : r->cost_per_flight_work_years)
+                                                   * s.work_year_cost,
+                                                 0);
+        money = g_strdup_printf (_("At %s %s per work-year, the best count: development %s %s, "
+                                   "per flight %s %s. Never a quote."),
+                                 wy, cur, dev, cur, cpf, cur);
+      }
+    else
+      money = g_strdup (_("No cost of a work-year given: effort in work-years only."));
+    sw_sheet_text_at (cr, money, x, money_y, &note);
   }
 }
