@@ -6,6 +6,7 @@
 #include "config.h"
 
 #include "sw-analysis.h"
+#include "sw-economics.h"
 #include "sw-sheet.h"
 #include "sw-sheet-private.h"
 
@@ -83,6 +84,32 @@ test_panel_on_page (void)
   g_assert_true (has_prefix (boxes, "\342\226\270 this design; shaded: the best count; "
                                     "recovered: the first stage lands downrange. Weights: "
                                     "liftoff mass 1"));
+  /* The demo gives no cost of a work-year: no money, said so. */
+  g_assert_true (has_text (boxes, "No cost of a work-year given: effort in work-years only."));
+  sw_analysis_unref (a);
+
+  /* With one and a currency: the best count's money in that currency. */
+  g_assert_true (sw_economics_set_number (&d->economics, SW_ECON_WORK_YEAR_COST, 250000.0));
+  g_assert_true (sw_economics_set_currency (&d->economics, "kr", NULL));
+  a = sw_analysis_run (d, &o, NULL);
+  g_array_set_size (boxes, 0);
+  surface = cairo_recording_surface_create (CAIRO_CONTENT_COLOR, NULL);
+  cr = cairo_create (surface);
+  sw_sheet_private_record_text (cr, boxes);
+  sw_sheet_draw_page (cr, a, w, h);
+  sw_sheet_private_record_text (cr, NULL);
+  cairo_destroy (cr);
+  cairo_surface_destroy (surface);
+  g_assert_true (has_prefix (boxes, "At 250,000 kr per work-year, the best count: development "));
+  {
+    gboolean found = FALSE;
+    for (guint i = 0; i < boxes->len; i++)
+      {
+        const char *t = g_array_index (boxes, SwSheetTextBox, i).text;
+        found |= g_str_has_prefix (t, "At 250,000 kr") && g_str_has_suffix (t, " kr. Never a quote.");
+      }
+    g_assert_true (found);
+  }
   sw_analysis_unref (a);
 }
 

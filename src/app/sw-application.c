@@ -29,6 +29,7 @@ struct _SwApplication {
   int            shot_height;
   int            exit_status;
   guint          screenshot_timeout;
+  guint          screenshot_frames; /* frames left before the picture is taken */
   /* Hidden options for the end-to-end tests (tests/test-recovery-kill.c). */
   char         **test_edits;       /* --test-edit=FIELD=VALUE, in order */
   gboolean       test_edits_done;
@@ -143,11 +144,12 @@ screenshot_timeout_cb (gpointer data)
   return G_SOURCE_REMOVE;
 }
 
+static void screenshot_after_frames (SwApplication *self, SwWindow *window);
+static void screenshot_staging_ready_cb (SwStagingPage *page, SwApplication *self);
+
 static void
 screenshot_drawn_cb (SwWindow *window, guint64 serial, SwApplication *self)
 {
-  g_autoptr (GError) error = NULL;
-
   /* The first result of the design as loaded, not of the placeholder. */
   if (serial < sw_solver_get_posted_serial (sw_window_get_solver (window)))
     return;
@@ -157,6 +159,37 @@ screenshot_drawn_cb (SwWindow *window, guint64 serial, SwApplication *self)
           || sw_window_get_shown_result (window)->montecarlo_pending))
     return;
   g_signal_handlers_disconnect_by_func (window, screenshot_drawn_cb, self);
+  /* The staging page computes on its own worker once shown: the picture
+   * waits for its figures, then for a frame laid out with them. */
+  if (g_strcmp0 (self->page, "staging") == 0 || g_strcmp0 (self->page, "carpet") == 0)
+    {
+      SwStagingPage *page = sw_window_get_staging_page (window);
+      if (!sw_staging_page_is_ready (page) || sw_staging_page_is_busy (page))
+        {
+          g_signal_connect_object (page, "ready", G_CALLBACK (screenshot_staging_ready_cb), self,
+                                   0);
+          return;
+        }
+    }
+  screenshot_after_frames (self, window);
+}
+
+static void
+screenshot_staging_ready_cb (SwStagingPage *page, SwApplication *self)
+{
+  GtkRoot *root = gtk_widget_get_root (GTK_WIDGET (page));
+
+  if (sw_staging_page_is_busy (page) || !SW_IS_WINDOW (root))
+    return;
+  g_signal_handlers_disconnect_by_func (page, screenshot_staging_ready_cb, self);
+  screenshot_after_frames (self, SW_WINDOW (root));
+}
+
+static void
+screenshot_write (SwApplication *self, SwWindow *window)
+{
+  g_autoptr (GError) error = NULL;
+
   g_clear_handle_id (&self->screenshot_timeout, g_source_remove);
   if (!sw_application_write_png (GTK_WIDGET (window), self->screenshot, &error))
     {
@@ -164,6 +197,36 @@ screenshot_drawn_cb (SwWindow *window, guint64 serial, SwApplication *self)
       return;
     }
   gtk_window_destroy (GTK_WINDOW (window));
+}
+
+/* After a frame's paint, when everything is laid out: two frames after the
+ * last change, every view is drawn with it. */
+static void
+screenshot_after_paint_cb (GdkFrameClock *clock, SwWindow *window)
+{
+  SwApplication *self = SW_APPLICATION (gtk_window_get_application (GTK_WINDOW (window)));
+
+  if (self->screenshot_frames > 0)
+    {
+      self->screenshot_frames--;
+      gtk_widget_queue_draw (GTK_WIDGET (window));
+      return;
+    }
+  g_signal_handlers_disconnect_by_func (clock, screenshot_after_paint_cb, window);
+  screenshot_write (self, window);
+}
+
+static void
+screenshot_after_frames (SwApplication *self, SwWindow *window)
+{
+  GdkFrameClock *clock = gtk_widget_get_frame_clock (GTK_WIDGET (window));
+
+  if (g_strcmp0 (self->page, "carpet") == 0)
+    sw_staging_page_scroll_to_carpet (sw_window_get_staging_page (window));
+  self->screenshot_frames = 2;
+  g_signal_connect_object (clock, "after-paint", G_CALLBACK (screenshot_after_paint_cb), window,
+                           0);
+  gtk_widget_queue_draw (GTK_WIDGET (window));
 }
 
 static void
@@ -194,7 +257,8 @@ start_screenshot (SwApplication *self, GFile *file)
   if (self->page != NULL && !sw_window_show_page (window, self->page))
     {
       g_autofree char *message = g_strdup_printf (_("--page=%s: no such page (curves, working, "
-                                                    "ascent, trade)"), self->page);
+                                                    "ascent, trade, staging, carpet)"),
+                                                  self->page);
       screenshot_failed (self, message);
       gtk_window_destroy (GTK_WINDOW (window));
       return;
@@ -507,7 +571,8 @@ sw_application_init (SwApplication *self)
     { "screenshot-size", 0, 0, G_OPTION_ARG_STRING, NULL,
       N_("The window size for --screenshot instead of 1280×800"), N_("WIDTHxHEIGHT") },
     { "page", 0, 0, G_OPTION_ARG_STRING, NULL,
-      N_("Show PAGE first: curves, working, ascent or trade"), N_("PAGE") },
+      N_("Show PAGE first: curves, working, ascent, trade, staging or carpet (the staging "
+         "page scrolled to its carpet plot)"), N_("PAGE") },
     { "version", 0, 0, G_OPTION_ARG_NONE, NULL, N_("Print the version and quit"), NULL },
     /* For tests/test-recovery-kill.c only: not shown in --help. */
     { "test-edit", 0, G_OPTION_FLAG_HIDDEN, G_OPTION_ARG_STRING_ARRAY, NULL, NULL, NULL },

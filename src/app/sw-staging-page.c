@@ -23,12 +23,17 @@
 typedef struct {
   gint      ref;
   SwDesign *design;
-  GCancellable *cancellable;
+  GCancellable *cancellable;   /* a newer design: the whole job is dropped */
+  GCancellable *carpet_cancel; /* the Cancel button: the carpet only */
   GMutex    lock;
   double    progress;          /* 0..1, under lock */
+  gboolean  do_staging;        /* FALSE: the staging figures are copied in */
   SwStaging staging;
   gboolean  staging_ok;
+  SwCarpetOptions carpet_options;
   SwCarpet *carpet;
+  gboolean  carpet_cancelled;
+  char     *carpet_error;      /* why the grid was refused, or NULL */
 } Job;
 
 static Job *
@@ -45,7 +50,9 @@ job_unref (Job *job)
     return;
   sw_design_free (job->design);
   g_clear_object (&job->cancellable);
+  g_clear_object (&job->carpet_cancel);
   sw_carpet_free (job->carpet);
+  g_free (job->carpet_error);
   g_mutex_clear (&job->lock);
   g_free (job);
 }
@@ -55,9 +62,28 @@ struct _SwStagingPage {
   GtkWidget      *box;
   GtkWidget      *statement;
   GtkWidget      *decision;
+  GtkWidget      *money;
   GtkWidget      *carpet_title;
+  GtkWidget      *progress_row;
   GtkWidget      *progress;
+  GtkWidget      *carpet_button;
+  GtkWidget      *carpet_status;
+  GtkWidget      *carpet_output;
+  GtkWidget      *axis_param[2];
+  GtkWidget      *axis_min[2];
+  GtkWidget      *axis_max[2];
+  GtkWidget      *axis_n[2];
+  GtkWidget      *currency;
+  GtkWidget      *currency_error;
   GtkWidget      *carpet;
+  SwDesign       *design;       /* the design of the last result */
+  SwCarpetOutput  output;
+  SwCarpetAxis    axes[2];      /* the carpet's axes as the fields show them */
+  gboolean        axes_chosen;  /* set once from the design's defaults */
+  SwCarpetAxis    params[64];   /* the parameters the menus offer */
+  guint           n_params;
+  GtkWidget      *rule_field;   /* the field marked by a rule between fields */
+  char           *rule_message;
   GtkWidget      *scroller;
   SwDocument     *document;     /* the edits of the economics keys go here */
   guint           updating;     /* fields being filled from a result */
@@ -86,16 +112,20 @@ static void
 job_thread (GTask *task, gpointer source, gpointer data, GCancellable *cancellable)
 {
   Job *job = data;
-  SwCarpetOptions o;
+  SwCarpetOptions o = job->carpet_options;
+  g_autoptr (GError) error = NULL;
 
-  job->staging_ok = sw_staging_compute (job->design, SW_STAGING_MAX_STAGES, &job->staging, NULL);
-  sw_csv_carpet_default_axes (job->design, &o);
-  o.x.n = o.y.n = 50;
-  o.cancellable = cancellable;
+  if (job->do_staging)
+    job->staging_ok = sw_staging_compute (job->design, SW_STAGING_MAX_STAGES, &job->staging,
+                                          NULL);
+  o.cancellable = job->carpet_cancel;
   o.progress = job_progress_cb;
   o.progress_data = job;
-  if (o.x.min < o.x.max && o.y.min < o.y.max)
-    job->carpet = sw_carpet_compute (job->design, &o, NULL);
+  job->carpet = sw_carpet_compute (job->design, &o, &error);
+  if (job->carpet == NULL && g_error_matches (error, G_IO_ERROR, G_IO_ERROR_CANCELLED))
+    job->carpet_cancelled = TRUE;
+  else if (job->carpet == NULL)
+    job->carpet_error = g_strdup (error->message);
   g_task_return_boolean (task, !g_cancellable_is_cancelled (cancellable));
 }
 
@@ -117,18 +147,36 @@ progress_tick_cb (gpointer data)
   return G_SOURCE_CONTINUE;
 }
 
+enum { READY, N_SIGNALS };
+static guint signals[N_SIGNALS];
+
+static void update_money (SwStagingPage *self);
+
+static void
+set_carpet_status (SwStagingPage *self, const char *text, gboolean error)
+{
+  gtk_label_set_text (GTK_LABEL (self->carpet_status), text != NULL ? text : "");
+  gtk_widget_set_visible (self->carpet_status, text != NULL && text[0] != '\0');
+  if (error)
+    gtk_widget_add_css_class (self->carpet_status, "error");
+  else
+    gtk_widget_remove_css_class (self->carpet_status, "error");
+}
+
 static void
 job_done_cb (GObject *source, GAsyncResult *res, gpointer data)
 {
   SwStagingPage *self = SW_STAGING_PAGE (source);
   Job *job = data;
 
-  /* Only the newest job is shown; a cancelled one is dropped. */
+  /* Only the newest job is shown; one a newer design replaced is dropped. */
   if (g_task_propagate_boolean (G_TASK (res), NULL) && job == self->running)
     {
       g_clear_pointer (&self->shown, job_unref);
       self->shown = g_steal_pointer (&self->running);
-      gtk_widget_set_visible (self->progress, FALSE);
+      gtk_widget_set_visible (self->progress_row, FALSE);
+      gtk_button_set_label (GTK_BUTTON (self->carpet_button), _("Compute"));
+      gtk_widget_set_visible (self->carpet_button, self->shown->carpet == NULL);
       if (self->shown->staging_ok && self->shown->staging.fixed_note[0] != '\0')
         {
           g_autofree char *text = g_strconcat (self->shown->staging.weighting, " ",
@@ -139,18 +187,313 @@ job_done_cb (GObject *source, GAsyncResult *res, gpointer data)
       else
         gtk_label_set_text (GTK_LABEL (self->statement),
                             self->shown->staging_ok ? self->shown->staging.weighting : "");
+      if (self->shown->carpet_cancelled)
+        set_carpet_status (self, _("Cancelled: the carpet is not drawn. Press Compute to "
+                                   "compute it."), FALSE);
+      else if (self->shown->carpet_error != NULL)
+        set_carpet_status (self, self->shown->carpet_error, TRUE);
+      else
+        set_carpet_status (self, NULL, FALSE);
+      update_money (self);
       gtk_widget_queue_draw (self->decision);
       gtk_widget_queue_draw (self->carpet);
+      g_signal_emit (self, signals[READY], 0);
     }
   job_unref (job);
+}
+
+/* Starts the worker on the page's design with the carpet's current axes;
+ * the staging figures are computed again only for a new design. */
+static void
+start_job (SwStagingPage *self)
+{
+  g_autoptr (GTask) task = NULL;
+  Job *job;
+
+  if (self->design == NULL)
+    return;
+  if (self->running != NULL)
+    {
+      g_cancellable_cancel (self->running->cancellable);
+      g_cancellable_cancel (self->running->carpet_cancel);
+      g_clear_pointer (&self->running, job_unref);
+    }
+  job = g_new0 (Job, 1);
+  job->ref = 1;
+  g_mutex_init (&job->lock);
+  job->design = sw_design_copy (self->design);
+  job->cancellable = g_cancellable_new ();
+  job->carpet_cancel = g_cancellable_new ();
+  job->carpet_options.x = self->axes[0];
+  job->carpet_options.y = self->axes[1];
+  job->carpet_options.output = self->output;
+  job->do_staging = !(self->shown != NULL && self->shown->staging_ok
+                      && sw_design_equal (self->shown->design, self->design));
+  if (!job->do_staging)
+    {
+      job->staging = self->shown->staging;
+      job->staging_ok = TRUE;
+    }
+  self->running = job;
+  task = g_task_new (self, job->cancellable, job_done_cb, job_ref (job));
+  g_task_set_source_tag (task, start_job);
+  g_task_set_name (task, "staging decision and carpet");
+  g_task_set_task_data (task, job_ref (job), (GDestroyNotify) job_unref);
+  g_task_run_in_thread (task, job_thread);
+  gtk_progress_bar_set_fraction (GTK_PROGRESS_BAR (self->progress), 0.0);
+  gtk_widget_set_visible (self->progress_row, TRUE);
+  gtk_button_set_label (GTK_BUTTON (self->carpet_button), _("Cancel"));
+  gtk_widget_set_visible (self->carpet_button, TRUE);
+  set_carpet_status (self, NULL, FALSE);
+  if (self->progress_id == 0)
+    self->progress_id = g_timeout_add (50, progress_tick_cb, self);
+}
+
+static void
+carpet_button_cb (GtkButton *button, SwStagingPage *self)
+{
+  if (self->running != NULL)
+    g_cancellable_cancel (self->running->carpet_cancel);
+  else
+    start_job (self);
+}
+
+/* ---- the carpet's controls ---------------------------------------------- */
+
+static char *
+axis_label_with_unit (const SwCarpetAxis *axis)
+{
+  g_autofree char *label = sw_carpet_param_dup_label (axis);
+  const char *unit = sw_carpet_param_unit (axis);
+
+  return unit[0] != '\0' ? g_strdup_printf ("%s (%s)", label, unit) : g_steal_pointer (&label);
+}
+
+static int
+param_index (SwStagingPage *self, const SwCarpetAxis *axis)
+{
+  for (guint i = 0; i < self->n_params; i++)
+    if (sw_carpet_param_equal (&self->params[i], axis))
+      return (int) i;
+  return -1;
+}
+
+/* The menus hold the parameters of the design and output; rebuilt only
+ * when that list changes (a stage added, a cost output chosen). */
+static void
+sync_param_menus (SwStagingPage *self)
+{
+  SwCarpetAxis list[G_N_ELEMENTS (self->params)];
+  guint n = sw_carpet_list_params (self->design, self->output, list, G_N_ELEMENTS (list));
+  gboolean same = n == self->n_params;
+
+  for (guint i = 0; same && i < n; i++)
+    same = sw_carpet_param_equal (&list[i], &self->params[i]);
+  if (same)
+    return;
+  memcpy (self->params, list, n * sizeof list[0]);
+  self->n_params = n;
+  /* A new model selects its first item: not the user's choice. */
+  self->updating++;
+  for (guint a = 0; a < 2; a++)
+    {
+      g_autoptr (GtkStringList) strings = gtk_string_list_new (NULL);
+      for (guint i = 0; i < n; i++)
+        {
+          g_autofree char *label = axis_label_with_unit (&list[i]);
+          gtk_string_list_append (strings, label);
+        }
+      gtk_drop_down_set_model (GTK_DROP_DOWN (self->axis_param[a]), G_LIST_MODEL (strings));
+    }
+  self->updating--;
+}
+
+/* The fields of axis @a from self->axes[a], without emitting. */
+static void
+fill_axis (SwStagingPage *self, guint a)
+{
+  const SwCarpetAxis *axis = &self->axes[a];
+  const SwLimit *l = sw_limit_get (sw_carpet_param_limit (axis));
+  gboolean whole = sw_carpet_param_is_whole (axis);
+  int k = param_index (self, axis);
+
+  self->updating++;
+  if (k >= 0)
+    gtk_drop_down_set_selected (GTK_DROP_DOWN (self->axis_param[a]), (guint) k);
+  for (guint f = 0; f < 2; f++)
+    {
+      SwNumberField *field = SW_NUMBER_FIELD (f == 0 ? self->axis_min[a] : self->axis_max[a]);
+      double span = l->max - l->min;
+      sw_number_field_set_range (field, l->min, l->max, l->min_exclusive, l->unit,
+                                 whole ? 0 : 4, whole ? 1.0 : span / 100.0);
+      sw_number_field_set_whole (field, whole);
+      sw_number_field_reset (field, f == 0 ? axis->min : axis->max);
+    }
+  sw_number_field_reset (SW_NUMBER_FIELD (self->axis_n[a]), axis->n);
+  self->updating--;
+}
+
+/* A parameter for axis @a other than the other axis's: the first in the list. */
+static void
+choose_other_param (SwStagingPage *self, guint a)
+{
+  for (guint i = 0; i < self->n_params; i++)
+    if (!sw_carpet_param_equal (&self->params[i], &self->axes[1 - a]))
+      {
+        guint n = self->axes[a].n;
+        self->axes[a] = self->params[i];
+        self->axes[a].n = n;
+        sw_carpet_axis_default_range (&self->axes[a], self->design);
+        return;
+      }
+}
+
+/* The axes for a new design: the first stage's structural coefficient
+ * across and the top stage's vacuum Isp up at first; afterwards the
+ * user's choice, each axis kept while the design still has it and its
+ * range is still accepted. */
+static void
+sync_axes (SwStagingPage *self)
+{
+  sync_param_menus (self);
+  /* Until the user picks, the axes follow the design. */
+  if (!self->axes_chosen)
+    {
+      SwCarpetOptions o;
+      sw_csv_carpet_default_axes (self->design, &o);
+      self->axes[0] = o.x;
+      self->axes[1] = o.y;
+      self->axes[0].n = self->axes[1].n = 50;
+    }
+  for (guint a = 0; a < 2; a++)
+    {
+      if (param_index (self, &self->axes[a]) < 0)
+        choose_other_param (self, a);
+      else if (!sw_carpet_axis_check (&self->axes[a], self->design, NULL))
+        sw_carpet_axis_default_range (&self->axes[a], self->design);
+      fill_axis (self, a);
+    }
+}
+
+/* Reads the fields of both axes; marks the field at fault and returns
+ * FALSE when the grid cannot be computed (the carpet stays as it is). */
+static void
+rule_error (SwStagingPage *self, GtkWidget *field, const char *message)
+{
+  g_free (self->rule_message);
+  self->rule_message = g_strdup (message);
+  self->rule_field = field;
+  sw_number_field_set_error (SW_NUMBER_FIELD (field), message);
+}
+
+static gboolean
+read_axes (SwStagingPage *self)
+{
+  SwCarpetAxis axes[2] = { self->axes[0], self->axes[1] };
+
+  /* A rule between the fields is checked again from scratch: its mark
+   * goes (unless the field has since got an error of its own). */
+  if (self->rule_field != NULL
+      && g_strcmp0 (sw_number_field_get_error (SW_NUMBER_FIELD (self->rule_field)),
+                    self->rule_message) == 0)
+    sw_number_field_set_error (SW_NUMBER_FIELD (self->rule_field), NULL);
+  self->rule_field = NULL;
+  set_carpet_status (self, NULL, FALSE);
+
+  for (guint a = 0; a < 2; a++)
+    {
+      double lo = sw_number_field_get_value (SW_NUMBER_FIELD (self->axis_min[a]));
+      double hi = sw_number_field_get_value (SW_NUMBER_FIELD (self->axis_max[a]));
+      double n = sw_number_field_get_value (SW_NUMBER_FIELD (self->axis_n[a]));
+      g_autoptr (GError) error = NULL;
+
+      if (sw_number_field_get_error (SW_NUMBER_FIELD (self->axis_min[a])) != NULL
+          || sw_number_field_get_error (SW_NUMBER_FIELD (self->axis_max[a])) != NULL
+          || sw_number_field_get_error (SW_NUMBER_FIELD (self->axis_n[a])) != NULL)
+        return FALSE;
+      if (!(lo < hi))
+        {
+          rule_error (self, self->axis_max[a], _("The upper end must be above the lower end."));
+          return FALSE;
+        }
+      axes[a].min = lo;
+      axes[a].max = hi;
+      axes[a].n = (guint) n;
+      if (!sw_carpet_axis_check (&axes[a], self->design, &error))
+        {
+          rule_error (self, self->axis_min[a], error->message);
+          return FALSE;
+        }
+    }
+  if (sw_carpet_param_equal (&axes[0], &axes[1]))
+    {
+      set_carpet_status (self, _("The two axes of a carpet plot must be different parameters."),
+                         TRUE);
+      return FALSE;
+    }
+  self->axes[0] = axes[0];
+  self->axes[1] = axes[1];
+  return TRUE;
+}
+
+static void
+axis_field_cb (SwNumberField *field, SwStagingPage *self)
+{
+  if (self->updating > 0 || self->design == NULL)
+    return;
+  self->axes_chosen = TRUE;
+  if (read_axes (self))
+    start_job (self);
+}
+
+static void
+axis_param_cb (GtkDropDown *dd, GParamSpec *pspec, SwStagingPage *self)
+{
+  guint a = dd == GTK_DROP_DOWN (self->axis_param[0]) ? 0 : 1;
+  guint k = gtk_drop_down_get_selected (dd);
+  guint n = self->axes[a].n;
+
+  if (self->updating > 0 || self->design == NULL || k >= self->n_params)
+    return;
+  self->axes_chosen = TRUE;
+  self->axes[a] = self->params[k];
+  self->axes[a].n = n;
+  sw_carpet_axis_default_range (&self->axes[a], self->design);
+  fill_axis (self, a);
+  if (sw_carpet_param_equal (&self->axes[0], &self->axes[1]))
+    {
+      set_carpet_status (self, _("The two axes of a carpet plot must be different parameters."),
+                         TRUE);
+      return;
+    }
+  if (read_axes (self))
+    start_job (self);
+}
+
+static void
+output_cb (GtkDropDown *dd, GParamSpec *pspec, SwStagingPage *self)
+{
+  if (self->updating > 0 || self->design == NULL)
+    return;
+  self->output = (SwCarpetOutput) gtk_drop_down_get_selected (dd);
+  self->axes_chosen = TRUE;
+  gtk_label_set_text (GTK_LABEL (self->carpet_title),
+                      self->output == SW_CARPET_LIFTOFF_MASS
+                        ? _("Carpet plot: liftoff mass, contour lines")
+                        : self->output == SW_CARPET_PAYLOAD
+                            ? _("Carpet plot: payload of a vehicle of this design's liftoff "
+                                "mass, contour lines")
+                            : self->output == SW_CARPET_DEVELOPMENT
+                                ? _("Carpet plot: development effort, contour lines")
+                                : _("Carpet plot: cost per flight (expendable), contour lines"));
+  sync_axes (self);
+  if (read_axes (self))
+    start_job (self);
 }
 
 void
 sw_staging_page_set_result (SwStagingPage *self, SwAnalysis *result)
 {
-  g_autoptr (GTask) task = NULL;
-  Job *job;
-
   g_return_if_fail (SW_IS_STAGING_PAGE (self));
 
   /* Hidden, the page only keeps the newest analysis and works when it is
@@ -163,19 +506,19 @@ sw_staging_page_set_result (SwStagingPage *self, SwAnalysis *result)
     }
   /* The figures depend on the design only: a later phase of the same
    * design (Monte Carlo, ascent) changes nothing here. */
-  if (result != NULL && result->design != NULL)
-    {
-      Job *last = self->running != NULL ? self->running : self->shown;
-      if (last != NULL && sw_design_equal (last->design, result->design))
-        return;
-    }
+  if (result != NULL && result->design != NULL && self->design != NULL
+      && sw_design_equal (self->design, result->design))
+    return;
   if (self->running != NULL)
     {
       g_cancellable_cancel (self->running->cancellable);
+      g_cancellable_cancel (self->running->carpet_cancel);
       g_clear_pointer (&self->running, job_unref);
     }
   if (result == NULL || result->design == NULL || result->design->n_stages == 0)
     return;
+  g_clear_pointer (&self->design, sw_design_free);
+  self->design = sw_design_copy (result->design);
   /* The fields show the design the figures come from. */
   self->updating++;
   for (guint k = 0; k < SW_N_ECON_NUMBERS; k++)
@@ -185,22 +528,12 @@ sw_staging_page_set_result (SwStagingPage *self, SwAnalysis *result)
       sw_number_field_reset (SW_NUMBER_FIELD (self->fields[k]), v * scale);
     }
   gtk_drop_down_set_selected (GTK_DROP_DOWN (self->mode), result->design->economics.recovery_mode);
+  gtk_editable_set_text (GTK_EDITABLE (self->currency), result->design->economics.currency);
+  gtk_widget_remove_css_class (self->currency, "error");
+  gtk_widget_set_visible (self->currency_error, FALSE);
   self->updating--;
-  job = g_new0 (Job, 1);
-  job->ref = 1;
-  g_mutex_init (&job->lock);
-  job->design = sw_design_copy (result->design);
-  job->cancellable = g_cancellable_new ();
-  self->running = job;
-  task = g_task_new (self, job->cancellable, job_done_cb, job_ref (job));
-  g_task_set_source_tag (task, sw_staging_page_set_result);
-  g_task_set_name (task, "staging decision and carpet");
-  g_task_set_task_data (task, job_ref (job), (GDestroyNotify) job_unref);
-  g_task_run_in_thread (task, job_thread);
-  gtk_progress_bar_set_fraction (GTK_PROGRESS_BAR (self->progress), 0.0);
-  gtk_widget_set_visible (self->progress, TRUE);
-  if (self->progress_id == 0)
-    self->progress_id = g_timeout_add (50, progress_tick_cb, self);
+  sync_axes (self);
+  start_job (self);
 }
 
 void
@@ -269,6 +602,150 @@ mode_cb (GtkDropDown *dd, GParamSpec *pspec, SwStagingPage *self)
       return;
     }
   sw_document_commit (self->document, d, "staging:mode");
+}
+
+/* The currency label: a named edit on Enter or when the field loses focus;
+ * too long or with a control character, marked and nothing changed. */
+static void
+currency_commit (SwStagingPage *self)
+{
+  g_autoptr (GError) error = NULL;
+  const char *text = gtk_editable_get_text (GTK_EDITABLE (self->currency));
+  SwDesign *d;
+
+  if (self->updating > 0 || self->document == NULL)
+    return;
+  d = sw_document_dup_design (self->document);
+  if (!sw_economics_set_currency (&d->economics, text, &error))
+    {
+      gtk_widget_add_css_class (self->currency, "error");
+      gtk_label_set_text (GTK_LABEL (self->currency_error), error->message);
+      gtk_widget_set_visible (self->currency_error, TRUE);
+      sw_design_free (d);
+      return;
+    }
+  gtk_widget_remove_css_class (self->currency, "error");
+  gtk_widget_set_visible (self->currency_error, FALSE);
+  if (sw_design_equal (d, sw_document_get_design (self->document)))
+    {
+      sw_design_free (d);
+      return;
+    }
+  sw_document_commit (self->document, d, "staging:currency");
+}
+
+static void
+currency_activate_cb (GtkEntry *entry, SwStagingPage *self)
+{
+  currency_commit (self);
+}
+
+static void
+currency_focus_leave_cb (GtkEventControllerFocus *focus, SwStagingPage *self)
+{
+  currency_commit (self);
+}
+
+/* Money beside the effort: the best count's at the design's cost of a
+ * work-year, in its currency, never as a quote. */
+static void
+update_money (SwStagingPage *self)
+{
+  const SwStaging *s;
+  g_autofree char *text = NULL;
+
+  if (self->shown == NULL || !self->shown->staging_ok)
+    {
+      gtk_label_set_text (GTK_LABEL (self->money), "");
+      return;
+    }
+  s = &self->shown->staging;
+  if (s->has_money && s->best >= 0)
+    {
+      const SwStagingRow *r = &s->rows[s->best];
+      const char *cur = sw_economics_currency_label (&self->shown->design->economics);
+      g_autofree char *wy = sw_format_number (s->work_year_cost, 0);
+      g_autofree char *dev = sw_format_number (r->development_work_years * s->work_year_cost, 0);
+      g_autofree char *cpf = sw_format_number ((s->design_reuses
+                                                  ? r->cost_per_flight_reused_work_years
+                                                  : r->cost_per_flight_work_years)
+                                                 * s->work_year_cost,
+                                               0);
+      text = g_strdup_printf (_("At %s %s per work-year, the best count (%u stages): development "
+                                "%s %s, per flight %s %s. %s"),
+                              wy, cur, r->n_stages, dev, cur, cpf, cur,
+                              sw_economics_money_note ());
+    }
+  else
+    text = g_strdup (_("No cost of a work-year given: effort in work-years only (set it below "
+                       "to see money)."));
+  gtk_label_set_text (GTK_LABEL (self->money), text);
+}
+
+const SwCarpet *
+sw_staging_page_get_carpet (SwStagingPage *self)
+{
+  g_return_val_if_fail (SW_IS_STAGING_PAGE (self), NULL);
+  return self->shown != NULL ? self->shown->carpet : NULL;
+}
+
+GtkWidget *
+sw_staging_page_get_carpet_control (SwStagingPage *self, SwCarpetControl control, guint axis)
+{
+  g_return_val_if_fail (SW_IS_STAGING_PAGE (self) && axis < 2, NULL);
+  switch (control)
+    {
+    case SW_CARPET_CONTROL_PARAM:
+      return self->axis_param[axis];
+    case SW_CARPET_CONTROL_MIN:
+      return self->axis_min[axis];
+    case SW_CARPET_CONTROL_MAX:
+      return self->axis_max[axis];
+    case SW_CARPET_CONTROL_POINTS:
+      return self->axis_n[axis];
+    case SW_CARPET_CONTROL_OUTPUT:
+      return self->carpet_output;
+    case SW_CARPET_CONTROL_BUTTON:
+      return self->carpet_button;
+    case SW_CARPET_CONTROL_STATUS:
+      return self->carpet_status;
+    case SW_CARPET_CONTROL_CURRENCY:
+    default:
+      return self->currency;
+    }
+}
+
+/* The parameter at @index of the axes' menus. */
+gboolean
+sw_staging_page_get_param (SwStagingPage *self, guint index, SwCarpetAxis *out)
+{
+  g_return_val_if_fail (SW_IS_STAGING_PAGE (self) && out != NULL, FALSE);
+  if (index >= self->n_params)
+    return FALSE;
+  *out = self->params[index];
+  return TRUE;
+}
+
+gboolean
+sw_staging_page_is_busy (SwStagingPage *self)
+{
+  g_return_val_if_fail (SW_IS_STAGING_PAGE (self), FALSE);
+  return self->running != NULL;
+}
+
+void
+sw_staging_page_scroll_to_carpet (SwStagingPage *self)
+{
+  GtkAdjustment *adj;
+  graphene_point_t p;
+
+  g_return_if_fail (SW_IS_STAGING_PAGE (self));
+  adj = gtk_scrolled_window_get_vadjustment (GTK_SCROLLED_WINDOW (self->scroller));
+  /* The plot's foot at the foot of the view, the controls above it. */
+  if (gtk_widget_compute_point (self->carpet, self->box,
+                                &GRAPHENE_POINT_INIT (0, gtk_widget_get_height (self->carpet)),
+                                &p))
+    gtk_adjustment_set_value (adj, p.y + 8.0 - gtk_adjustment_get_page_size (adj));
 }
 
 gboolean
@@ -506,12 +983,97 @@ draw_decision (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointe
                 }
             }
         }
+      /* A stage count whose vehicle does not close: a grey cross on the
+       * axis, so that a missing point is not read as a gap in the data. */
+      set_rgba (cr, &fg, 0.55);
+      cairo_set_line_width (cr, 1.5);
+      for (guint i = 0; i < s->n_rows; i++)
+        if (!s->rows[i].feasible && !isfinite (row_value (&s->rows[i], panels[p].offset)))
+          {
+            double cx = sw_plot_axis_map (&xa, s->rows[i].n_stages), cy = plot_b - 7.0;
+            cairo_move_to (cr, cx - 4, cy - 4);
+            cairo_line_to (cr, cx + 4, cy + 4);
+            cairo_move_to (cr, cx - 4, cy + 4);
+            cairo_line_to (cr, cx + 4, cy - 4);
+            cairo_stroke (cr);
+          }
       cairo_set_line_width (cr, 1.0);
       set_rgba (cr, &fg, 0.8);
       show_text (cr, layout, _("stages"), (plot_l + plot_r) / 2.0, y0 + panel_h - 2.0, 0.5, 1.0);
       sw_plot_axis_clear (&xa);
       sw_plot_axis_clear (&ya);
     }
+
+  /* The key, in the sixth place of the grid; its lines wrap to the place. */
+  {
+    double kx = left + (n_panels % cols) * panel_w + 16.0, ky = (n_panels / cols) * panel_h + 14.0;
+    const double dash[] = { 5.0, 3.0 }, mdash[] = { 4.0, 3.0 };
+    g_autofree char *rec = g_strdup_printf (_("first stage recovered, %s"),
+                                            s->reuse_mode == SW_RECOVERY_LAUNCH_SITE
+                                              ? _("returns to the launch site")
+                                              : _("lands downrange"));
+    g_autofree char *best = s->best >= 0
+                              ? g_strdup_printf (_("best under the weights: %u stages"),
+                                                 s->rows[s->best].n_stages)
+                              : g_strdup (_("no stage count closes"));
+    g_autofree char *own = g_strdup_printf (_("this design: %u stages"), s->design_stages);
+    const char *texts[5] = { _("expendable"), rec, best, own, _("does not close") };
+    int tw = (int) MAX (40.0, panel_w - 16.0 - 36.0 - 4.0);
+
+    pango_layout_set_width (layout, tw * PANGO_SCALE);
+    pango_layout_set_wrap (layout, PANGO_WRAP_WORD_CHAR);
+    for (guint k = 0; k < G_N_ELEMENTS (texts); k++)
+      {
+        int th;
+        double cy;
+
+        pango_layout_set_text (layout, texts[k], -1);
+        pango_layout_get_pixel_size (layout, NULL, &th);
+        cy = ky + MIN (th, 18) / 2.0;
+        switch (k)
+          {
+          case 0:
+          case 1:
+            set_rgba (cr, k == 0 ? &c_exp : &c_rec, 1.0);
+            cairo_set_line_width (cr, 2.0);
+            cairo_set_dash (cr, dash, k == 1 ? 2 : 0, 0.0);
+            cairo_move_to (cr, kx, cy);
+            cairo_line_to (cr, kx + 28, cy);
+            cairo_stroke (cr);
+            cairo_set_dash (cr, NULL, 0, 0.0);
+            cairo_arc (cr, kx + 14, cy, 3.0, 0, 2 * G_PI);
+            cairo_fill (cr);
+            break;
+          case 2:
+            set_rgba (cr, &c_best, 0.25);
+            cairo_rectangle (cr, kx + 6, cy - 9, 16, 18);
+            cairo_fill (cr);
+            break;
+          case 3:
+            set_rgba (cr, &c_mark, 1.0);
+            cairo_set_line_width (cr, 1.0);
+            cairo_set_dash (cr, mdash, 2, 0.0);
+            cairo_move_to (cr, kx + 14, cy - 9);
+            cairo_line_to (cr, kx + 14, cy + 9);
+            cairo_stroke (cr);
+            cairo_set_dash (cr, NULL, 0, 0.0);
+            break;
+          default:
+            set_rgba (cr, &fg, 0.55);
+            cairo_set_line_width (cr, 1.5);
+            cairo_move_to (cr, kx + 10, cy - 4);
+            cairo_line_to (cr, kx + 18, cy + 4);
+            cairo_move_to (cr, kx + 10, cy + 4);
+            cairo_line_to (cr, kx + 18, cy - 4);
+            cairo_stroke (cr);
+            break;
+          }
+        set_rgba (cr, &fg, 1.0);
+        cairo_move_to (cr, kx + 36, ky);
+        pango_cairo_show_layout (cr, layout);
+        ky += MAX (th, 18) + 5.0;
+      }
+  }
 }
 
 /* Contour lines by marching squares, linear interpolation on each edge. */
@@ -553,64 +1115,127 @@ contour (cairo_t *cr, const SwCarpet *c, const SwPlotAxis *xa, const SwPlotAxis 
   cairo_stroke (cr);
 }
 
+/* A contour level's text: masses by the one formatter, effort in work-years. */
+static char *
+level_text (SwCarpetOutput output, double level)
+{
+  if (output == SW_CARPET_DEVELOPMENT || output == SW_CARPET_COST_PER_FLIGHT)
+    {
+      g_autofree char *n = sw_format_number (level, 0);
+      return g_strdup_printf (_("%s wy"), n);
+    }
+  return sw_format_mass (level);
+}
+
+static const char *
+output_words (SwCarpetOutput output)
+{
+  switch (output)
+    {
+    case SW_CARPET_PAYLOAD:
+      return _("lines: payload of a vehicle of this design's liftoff mass (kg or t)");
+    case SW_CARPET_DEVELOPMENT:
+      return _("lines: development effort (wy: work-years)");
+    case SW_CARPET_COST_PER_FLIGHT:
+      return _("lines: cost per flight, expendable (wy: work-years)");
+    case SW_CARPET_LIFTOFF_MASS:
+    default:
+      return _("lines: liftoff mass (kg or t)");
+    }
+}
+
+/* Text on a patch of the background, so that no line runs through it. */
+static void
+show_text_boxed (cairo_t *cr, PangoLayout *layout, const char *text, double x, double y,
+                 double align_x, double align_y, const GdkRGBA *bg, const GdkRGBA *fg)
+{
+  int w, h;
+
+  pango_layout_set_text (layout, text, -1);
+  pango_layout_get_pixel_size (layout, &w, &h);
+  set_rgba (cr, bg, 0.85);
+  cairo_rectangle (cr, x - align_x * w - 2, y - align_y * h, w + 4, h);
+  cairo_fill (cr);
+  set_rgba (cr, fg, 1.0);
+  cairo_move_to (cr, x - align_x * w, y - align_y * h);
+  pango_cairo_show_layout (cr, layout);
+}
+
 static void
 draw_carpet (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointer data)
 {
   SwStagingPage *self = data;
   GtkWidget *w = GTK_WIDGET (area);
   g_autoptr (PangoLayout) layout = gtk_widget_create_pango_layout (w, NULL);
-  GdkRGBA fg, line, mark;
+  GdkRGBA fg, bg, line, mark;
   const SwCarpet *c;
   SwPlotAxis xa, ya;
-  double l = 70.0, r = width - 16.0, t = 10.0, b = height - 44.0, lo = INFINITY, hi = -INFINITY;
-  double step;
+  double l = 84.0, r = width - 16.0, t = 10.0, b = height - 58.0, lo = INFINITY, hi = -INFINITY;
+  double step, mx = NAN, my = NAN;
+  int text_h;
   g_autofree char *xn = NULL, *yn = NULL;
 
   sw_plot_style_fg (w, &fg);
+  sw_plot_style_bg (w, &bg);
   sw_plot_palette_color (w, 0, &line);
   sw_plot_palette_color (w, 4, &mark);
   if (self->shown == NULL || self->shown->carpet == NULL)
     {
       set_rgba (cr, &fg, 0.7);
-      show_text (cr, layout, _("Computing the carpet…"), width / 2.0, height / 2.0, 0.5, 0.5);
+      show_text (cr, layout,
+                 self->running != NULL ? _("Computing the carpet…")
+                                       : _("No carpet: see the message above."),
+                 width / 2.0, height / 2.0, 0.5, 0.5);
       return;
     }
   c = self->shown->carpet;
+  pango_layout_set_text (layout, "0", -1);
+  pango_layout_get_pixel_size (layout, NULL, &text_h);
   sw_plot_axis_init (&xa);
-  sw_plot_axis_set_format (&xa, "%.3g", 1.0);
+  sw_plot_axis_set_format (&xa, "%.4g", 1.0);
   xa.fixed_min = c->x.min;
   xa.fixed_max = c->x.max;
+  xa.integer = sw_carpet_param_is_whole (&c->x);
   sw_plot_axis_compute (&xa, c->x.min, c->x.max, l, r, TRUE, measure_cb, layout);
   sw_plot_axis_init (&ya);
-  sw_plot_axis_set_format (&ya, _("%.0f s"), 1.0);
+  sw_plot_axis_set_format (&ya, "%.4g", 1.0);
   ya.fixed_min = c->y.min;
   ya.fixed_max = c->y.max;
+  ya.integer = sw_carpet_param_is_whole (&c->y);
   sw_plot_axis_compute (&ya, c->y.min, c->y.max, b, t, FALSE, measure_cb, layout);
+  if (isfinite (c->design_x) && isfinite (c->design_y))
+    {
+      mx = sw_plot_axis_map (&xa, c->design_x);
+      my = sw_plot_axis_map (&ya, c->design_y);
+    }
 
   /* Infeasible cells hatched. */
   cairo_save (cr);
   cairo_rectangle (cr, l, t, r - l, b - t);
   cairo_clip (cr);
-  for (guint j = 0; j < c->y.n; j++)
-    for (guint i = 0; i < c->x.n; i++)
-      if (!c->feasible[j * c->x.n + i])
-        {
-          double dx = (r - l) / (c->x.n - 1), dy = (b - t) / (c->y.n - 1);
-          double cx = sw_plot_axis_map (&xa, sw_carpet_axis_value (&c->x, i));
-          double cy = sw_plot_axis_map (&ya, sw_carpet_axis_value (&c->y, j));
-          cairo_rectangle (cr, cx - dx / 2, cy - dy / 2, dx, dy);
-        }
-  cairo_clip (cr);
-  set_rgba (cr, &fg, 0.45);
-  for (double k = -(b - t); k < (r - l); k += 8.0)
+  if (c->n_infeasible > 0)
     {
-      cairo_move_to (cr, l + k, b);
-      cairo_line_to (cr, l + k + (b - t), t);
+      for (guint j = 0; j < c->y.n; j++)
+        for (guint i = 0; i < c->x.n; i++)
+          if (!c->feasible[j * c->x.n + i])
+            {
+              double dx = (r - l) / (c->x.n - 1), dy = (b - t) / (c->y.n - 1);
+              double cx = sw_plot_axis_map (&xa, sw_carpet_axis_value (&c->x, i));
+              double cy = sw_plot_axis_map (&ya, sw_carpet_axis_value (&c->y, j));
+              cairo_rectangle (cr, cx - dx / 2, cy - dy / 2, dx, dy);
+            }
+      cairo_clip (cr);
+      set_rgba (cr, &fg, 0.45);
+      for (double k = -(b - t); k < (r - l); k += 8.0)
+        {
+          cairo_move_to (cr, l + k, b);
+          cairo_line_to (cr, l + k + (b - t), t);
+        }
+      cairo_stroke (cr);
     }
-  cairo_stroke (cr);
   cairo_restore (cr);
 
-  /* Contours at nice levels of liftoff mass. */
+  /* Contours at nice levels. */
   for (guint k = 0; k < c->x.n * c->y.n; k++)
     if (isfinite (c->values[k]))
       {
@@ -620,32 +1245,49 @@ draw_carpet (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointer 
   if (isfinite (lo) && hi > lo)
     {
       step = sw_plot_nice_step (hi - lo, 8.0);
-      set_rgba (cr, &line, 1.0);
       cairo_set_line_width (cr, 1.5);
       for (double level = ceil (lo / step) * step; level <= hi; level += step)
         {
-          g_autofree char *label = sw_format_mass (level);
+          g_autofree char *label = level_text (c->output, level);
+          set_rgba (cr, &line, 1.0);
           contour (cr, c, &xa, &ya, level);
-          /* The level's label where its line crosses the middle row. */
-          for (guint i = 0; i + 1 < c->x.n; i++)
+          /* The level's label where its line crosses the middle row, or
+           * the row a third up when that would sit on the design's mark. */
+          for (guint pass = 0; pass < 2; pass++)
             {
-              guint j = c->y.n / 2;
-              double a = c->values[j * c->x.n + i], bb = c->values[j * c->x.n + i + 1];
-              if (isfinite (a) && isfinite (bb) && (a < level) != (bb < level))
+              guint j = pass == 0 ? c->y.n / 2 : c->y.n / 5;
+              gboolean done = FALSE;
+              for (guint i = 0; i + 1 < c->x.n && !done; i++)
                 {
-                  double tt = (level - a) / (bb - a);
-                  double xv = sw_carpet_axis_value (&c->x, i)
-                              + tt * (c->x.max - c->x.min) / (c->x.n - 1);
-                  set_rgba (cr, &fg, 1.0);
-                  show_text (cr, layout, label, sw_plot_axis_map (&xa, xv) + 2,
-                             sw_plot_axis_map (&ya, sw_carpet_axis_value (&c->y, j)), 0.0, 1.0);
-                  set_rgba (cr, &line, 1.0);
-                  break;
+                  double a = c->values[j * c->x.n + i], bb = c->values[j * c->x.n + i + 1];
+                  if (isfinite (a) && isfinite (bb) && (a < level) != (bb < level))
+                    {
+                      double tt = (level - a) / (bb - a);
+                      double xv = sw_carpet_axis_value (&c->x, i)
+                                  + tt * (sw_carpet_axis_value (&c->x, i + 1)
+                                          - sw_carpet_axis_value (&c->x, i));
+                      double px = sw_plot_axis_map (&xa, xv);
+                      double py = sw_plot_axis_map (&ya, sw_carpet_axis_value (&c->y, j));
+                      done = TRUE;
+                      if (isfinite (mx) && fabs (px - mx) < 90.0 && fabs (py - my) < 30.0)
+                        break;
+                      {
+                        /* Inside the frame, clear of the tick labels. */
+                        int lw;
+                        pango_layout_set_text (layout, label, -1);
+                        pango_layout_get_pixel_size (layout, &lw, NULL);
+                        px = CLAMP (px, l + lw / 2.0 + 3.0, r - lw / 2.0 - 3.0);
+                      }
+                      show_text_boxed (cr, layout, label, px, py, 0.5, 0.5, &bg, &fg);
+                      pass = 2;
+                    }
                 }
+              if (!done)
+                break;
             }
         }
     }
-  /* Frame, ticks, axis names. */
+  /* Frame, ticks, axis names with units. */
   cairo_set_line_width (cr, 1.0);
   set_rgba (cr, &fg, 0.8);
   cairo_rectangle (cr, l, t, r - l, b - t);
@@ -653,35 +1295,61 @@ draw_carpet (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointer 
   for (guint k = 0; k < xa.ticks->len; k++)
     {
       const SwPlotTick *tk = &g_array_index (xa.ticks, SwPlotTick, k);
+      double tx = sw_plot_axis_map (&xa, tk->value);
+      if (tx < l - 0.5 || tx > r + 0.5)
+        continue;
+      cairo_move_to (cr, tx, b);
+      cairo_line_to (cr, tx, b + 3);
+      cairo_stroke (cr);
       if (tk->labelled && tk->text != NULL)
-        show_text (cr, layout, tk->text, sw_plot_axis_map (&xa, tk->value), b + 2, 0.5, 0.0);
+        show_text (cr, layout, tk->text, tx, b + 3, 0.5, 0.0);
     }
   for (guint k = 0; k < ya.ticks->len; k++)
     {
       const SwPlotTick *tk = &g_array_index (ya.ticks, SwPlotTick, k);
+      double ty = sw_plot_axis_map (&ya, tk->value);
+      if (ty < t - 0.5 || ty > b + 0.5)
+        continue;
+      cairo_move_to (cr, l - 3, ty);
+      cairo_line_to (cr, l, ty);
+      cairo_stroke (cr);
       if (tk->labelled && tk->text != NULL)
-        show_text (cr, layout, tk->text, l - 4, sw_plot_axis_map (&ya, tk->value), 1.0, 0.5);
+        show_text (cr, layout, tk->text, l - 5, ty, 1.0, 0.5);
     }
-  xn = sw_carpet_param_dup_label (&c->x);
-  yn = sw_carpet_param_dup_label (&c->y);
+  xn = axis_label_with_unit (&c->x);
+  yn = axis_label_with_unit (&c->y);
+  set_rgba (cr, &fg, 1.0);
+  show_text (cr, layout, xn, (l + r) / 2, b + 4 + text_h, 0.5, 0.0);
+  cairo_save (cr);
+  cairo_translate (cr, 4, (t + b) / 2);
+  cairo_rotate (cr, -G_PI / 2);
+  show_text (cr, layout, yn, 0, 0, 0.5, 0.0);
+  cairo_restore (cr);
   {
-    g_autofree char *axes = g_strdup_printf (_("across: %s   up: %s   hatched: the vehicle "
-                                               "does not close"),
-                                             xn, yn);
-    show_text (cr, layout, axes, (l + r) / 2, height - 2, 0.5, 1.0);
+    g_autofree char *legend = g_strdup_printf (_("%s; hatched: the vehicle does not close; "
+                                                 "✕: this design"),
+                                               output_words (c->output));
+    set_rgba (cr, &fg, 0.8);
+    show_text (cr, layout, legend, (l + r) / 2, height - 2, 0.5, 1.0);
   }
-  /* This design. */
-  if (isfinite (c->design_x) && isfinite (c->design_y))
+  /* This design, its label on the background. */
+  if (isfinite (mx) && mx >= l - 0.5 && mx <= r + 0.5 && my >= t - 0.5 && my <= b + 0.5)
     {
-      double dx = sw_plot_axis_map (&xa, c->design_x), dy = sw_plot_axis_map (&ya, c->design_y);
+      double lx = mx + 10 < r - 90 ? mx + 10 : mx - 10;
       set_rgba (cr, &mark, 1.0);
       cairo_set_line_width (cr, 2.5);
-      cairo_move_to (cr, dx - 6, dy - 6);
-      cairo_line_to (cr, dx + 6, dy + 6);
-      cairo_move_to (cr, dx - 6, dy + 6);
-      cairo_line_to (cr, dx + 6, dy - 6);
+      cairo_move_to (cr, mx - 6, my - 6);
+      cairo_line_to (cr, mx + 6, my + 6);
+      cairo_move_to (cr, mx - 6, my + 6);
+      cairo_line_to (cr, mx + 6, my - 6);
       cairo_stroke (cr);
-      show_text (cr, layout, _("this design"), dx + 8, dy - 8, 0.0, 1.0);
+      show_text_boxed (cr, layout, _("this design"), lx, my - 8, lx > mx ? 0.0 : 1.0, 1.0,
+                       &bg, &mark);
+    }
+  else if (isfinite (c->design_x) && isfinite (c->design_y))
+    {
+      set_rgba (cr, &mark, 1.0);
+      show_text (cr, layout, _("this design lies outside the ranges"), r - 4, t + 2, 1.0, 0.0);
     }
   sw_plot_axis_clear (&xa);
   sw_plot_axis_clear (&ya);
@@ -693,10 +1361,15 @@ sw_staging_page_dispose (GObject *object)
   SwStagingPage *self = SW_STAGING_PAGE (object);
 
   if (self->running != NULL)
-    g_cancellable_cancel (self->running->cancellable);
+    {
+      g_cancellable_cancel (self->running->cancellable);
+      g_cancellable_cancel (self->running->carpet_cancel);
+    }
   g_clear_pointer (&self->running, job_unref);
   g_clear_pointer (&self->shown, job_unref);
   g_clear_pointer (&self->pending, sw_analysis_unref);
+  g_clear_pointer (&self->design, sw_design_free);
+  g_clear_pointer (&self->rule_message, g_free);
   g_clear_handle_id (&self->progress_id, g_source_remove);
   g_clear_object (&self->document);
   g_clear_pointer (&self->scroller, gtk_widget_unparent);
@@ -723,6 +1396,8 @@ sw_staging_page_class_init (SwStagingPageClass *klass)
   GTK_WIDGET_CLASS (klass)->map = sw_staging_page_map;
   gtk_widget_class_set_layout_manager_type (GTK_WIDGET_CLASS (klass), GTK_TYPE_BIN_LAYOUT);
   gtk_widget_class_set_css_name (GTK_WIDGET_CLASS (klass), "swstagingpage");
+  signals[READY] = g_signal_new ("ready", G_TYPE_FROM_CLASS (klass), G_SIGNAL_RUN_LAST, 0, NULL,
+                                 NULL, NULL, G_TYPE_NONE, 0);
 }
 
 static void
@@ -742,8 +1417,7 @@ sw_staging_page_init (SwStagingPage *self)
   gtk_scrolled_window_set_child (GTK_SCROLLED_WINDOW (self->scroller), self->box);
 
   heading = gtk_label_new (_("The staging decision: one to six serial stages (boosters are not "
-                             "modelled yet). Solid: expendable; dashed: first stage recovered. "
-                             "Shaded: the best count; dashed line: this design."));
+                             "modelled yet), each sized for this design's payload and mission."));
   gtk_label_set_wrap (GTK_LABEL (heading), TRUE);
   gtk_label_set_xalign (GTK_LABEL (heading), 0.0);
   gtk_box_append (GTK_BOX (self->box), heading);
@@ -751,8 +1425,12 @@ sw_staging_page_init (SwStagingPage *self)
   gtk_label_set_wrap (GTK_LABEL (self->statement), TRUE);
   gtk_label_set_xalign (GTK_LABEL (self->statement), 0.0);
   gtk_box_append (GTK_BOX (self->box), self->statement);
+  self->money = gtk_label_new ("");
+  gtk_label_set_wrap (GTK_LABEL (self->money), TRUE);
+  gtk_label_set_xalign (GTK_LABEL (self->money), 0.0);
+  gtk_box_append (GTK_BOX (self->box), self->money);
   self->decision = gtk_drawing_area_new ();
-  gtk_widget_set_size_request (self->decision, 300, 420);
+  gtk_widget_set_size_request (self->decision, 300, 330);
   gtk_widget_set_vexpand (self->decision, TRUE);
   gtk_drawing_area_set_draw_func (GTK_DRAWING_AREA (self->decision), draw_decision, self, NULL);
   gtk_box_append (GTK_BOX (self->box), self->decision);
@@ -766,12 +1444,82 @@ sw_staging_page_init (SwStagingPage *self)
 
   self->carpet_title = gtk_label_new (_("Carpet plot: liftoff mass, contour lines"));
   gtk_label_set_xalign (GTK_LABEL (self->carpet_title), 0.0);
+  gtk_widget_add_css_class (self->carpet_title, "heading");
   gtk_box_append (GTK_BOX (self->box), self->carpet_title);
+  {
+    /* What to draw, and over which two inputs: a row per axis. */
+    const char *outputs[] = { N_("Liftoff mass"), N_("Payload of a vehicle of this liftoff mass"),
+                              N_("Development effort"), N_("Cost per flight (expendable)"),
+                              NULL };
+    const char *shown_outputs[5];
+    const char *axis_names[2] = { N_("Across"), N_("Up") };
+    GtkWidget *grid = gtk_grid_new ();
+
+    gtk_grid_set_column_spacing (GTK_GRID (grid), 6);
+    gtk_grid_set_row_spacing (GTK_GRID (grid), 4);
+    for (guint i = 0; i < 4; i++)
+      shown_outputs[i] = _(outputs[i]);
+    shown_outputs[4] = NULL;
+    self->carpet_output = gtk_drop_down_new_from_strings (shown_outputs);
+    g_signal_connect (self->carpet_output, "notify::selected", G_CALLBACK (output_cb), self);
+    gtk_grid_attach (GTK_GRID (grid), gtk_label_new (_("Contours of")), 0, 0, 1, 1);
+    gtk_grid_attach (GTK_GRID (grid), self->carpet_output, 1, 0, 6, 1);
+    for (guint a = 0; a < 2; a++)
+      {
+        GtkWidget *name = gtk_label_new (_(axis_names[a]));
+        GtkWidget *from = gtk_label_new (_("from")), *to = gtk_label_new (_("to"));
+        GtkWidget *points = gtk_label_new (_("points"));
+
+        gtk_label_set_xalign (GTK_LABEL (name), 0.0);
+        self->axis_param[a] = gtk_drop_down_new (NULL, NULL);
+        gtk_widget_set_hexpand (self->axis_param[a], TRUE);
+        g_signal_connect (self->axis_param[a], "notify::selected", G_CALLBACK (axis_param_cb),
+                          self);
+        self->axis_min[a] = sw_number_field_new ();
+        self->axis_max[a] = sw_number_field_new ();
+        self->axis_n[a] = sw_number_field_new ();
+        sw_number_field_set_range (SW_NUMBER_FIELD (self->axis_n[a]), 2, SW_CARPET_MAX_POINTS,
+                                   FALSE, "", 0, 1.0);
+        sw_number_field_set_whole (SW_NUMBER_FIELD (self->axis_n[a]), TRUE);
+        g_signal_connect (self->axis_min[a], "value-committed", G_CALLBACK (axis_field_cb), self);
+        g_signal_connect (self->axis_max[a], "value-committed", G_CALLBACK (axis_field_cb), self);
+        g_signal_connect (self->axis_n[a], "value-committed", G_CALLBACK (axis_field_cb), self);
+        /* Two rows an axis, so that the controls fit the page's width. */
+        gtk_grid_attach (GTK_GRID (grid), name, 0, 1 + 2 * a, 1, 1);
+        gtk_grid_attach (GTK_GRID (grid), self->axis_param[a], 1, 1 + 2 * a, 6, 1);
+        gtk_grid_attach (GTK_GRID (grid), from, 1, 2 + 2 * a, 1, 1);
+        gtk_grid_attach (GTK_GRID (grid), self->axis_min[a], 2, 2 + 2 * a, 1, 1);
+        gtk_grid_attach (GTK_GRID (grid), to, 3, 2 + 2 * a, 1, 1);
+        gtk_grid_attach (GTK_GRID (grid), self->axis_max[a], 4, 2 + 2 * a, 1, 1);
+        gtk_grid_attach (GTK_GRID (grid), self->axis_n[a], 5, 2 + 2 * a, 1, 1);
+        gtk_grid_attach (GTK_GRID (grid), points, 6, 2 + 2 * a, 1, 1);
+      }
+    gtk_box_append (GTK_BOX (self->box), grid);
+  }
+  self->progress_row = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 6);
   self->progress = gtk_progress_bar_new ();
-  gtk_widget_set_visible (self->progress, FALSE);
-  gtk_box_append (GTK_BOX (self->box), self->progress);
+  gtk_widget_set_hexpand (self->progress, TRUE);
+  gtk_widget_set_valign (self->progress, GTK_ALIGN_CENTER);
+  gtk_box_append (GTK_BOX (self->progress_row), self->progress);
+  gtk_widget_set_visible (self->progress_row, FALSE);
+  gtk_box_append (GTK_BOX (self->box), self->progress_row);
+  self->carpet_button = gtk_button_new_with_label (_("Cancel"));
+  g_signal_connect (self->carpet_button, "clicked", G_CALLBACK (carpet_button_cb), self);
+  gtk_widget_set_visible (self->carpet_button, FALSE);
+  gtk_widget_set_halign (self->carpet_button, GTK_ALIGN_START);
+  self->carpet_status = gtk_label_new ("");
+  gtk_label_set_wrap (GTK_LABEL (self->carpet_status), TRUE);
+  gtk_label_set_xalign (GTK_LABEL (self->carpet_status), 0.0);
+  gtk_widget_set_visible (self->carpet_status, FALSE);
+  gtk_widget_set_hexpand (self->carpet_status, TRUE);
+  {
+    GtkWidget *row = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 6);
+    gtk_box_append (GTK_BOX (row), self->carpet_button);
+    gtk_box_append (GTK_BOX (row), self->carpet_status);
+    gtk_box_append (GTK_BOX (self->box), row);
+  }
   self->carpet = gtk_drawing_area_new ();
-  gtk_widget_set_size_request (self->carpet, 300, 380);
+  gtk_widget_set_size_request (self->carpet, 300, 420);
   gtk_widget_set_vexpand (self->carpet, TRUE);
   gtk_drawing_area_set_draw_func (GTK_DRAWING_AREA (self->carpet), draw_carpet, self, NULL);
   gtk_box_append (GTK_BOX (self->box), self->carpet);
@@ -814,7 +1562,8 @@ sw_staging_page_init (SwStagingPage *self)
         gboolean percent = sw_limit_get (id)->max <= 1.0;
         GtkWidget *label = gtk_label_new (_(labels[k]));
         GtkWidget *field = sw_number_field_new ();
-        int row = (int) k + 1, col = 0;
+        /* The currency and its message follow the cost of a work-year. */
+        int row = (int) k + (k == SW_ECON_WORK_YEAR_COST ? 1 : 3), col = 0;
 
         gtk_label_set_xalign (GTK_LABEL (label), 0.0);
         sw_number_field_set_limit (SW_NUMBER_FIELD (field), id, percent ? 100.0 : 1.0,
@@ -837,6 +1586,26 @@ sw_staging_page_init (SwStagingPage *self)
     g_signal_connect (self->mode, "notify::selected", G_CALLBACK (mode_cb), self);
     gtk_grid_attach (GTK_GRID (grid), gtk_label_new (_("First stage")), 0, 0, 1, 1);
     gtk_grid_attach (GTK_GRID (grid), self->mode, 1, 0, 1, 1);
+    {
+      GtkWidget *label = gtk_label_new (_("Currency"));
+      GtkEventController *focus = gtk_event_controller_focus_new ();
+
+      gtk_label_set_xalign (GTK_LABEL (label), 0.0);
+      self->currency = gtk_entry_new ();
+      gtk_entry_set_placeholder_text (GTK_ENTRY (self->currency), _("money units"));
+      gtk_entry_set_max_length (GTK_ENTRY (self->currency), 0);
+      g_signal_connect (self->currency, "activate", G_CALLBACK (currency_activate_cb), self);
+      g_signal_connect (focus, "leave", G_CALLBACK (currency_focus_leave_cb), self);
+      gtk_widget_add_controller (self->currency, focus);
+      self->currency_error = gtk_label_new ("");
+      gtk_label_set_xalign (GTK_LABEL (self->currency_error), 0.0);
+      gtk_label_set_wrap (GTK_LABEL (self->currency_error), TRUE);
+      gtk_widget_add_css_class (self->currency_error, "error");
+      gtk_widget_set_visible (self->currency_error, FALSE);
+      gtk_grid_attach (GTK_GRID (grid), label, 0, 2, 1, 1);
+      gtk_grid_attach (GTK_GRID (grid), self->currency, 1, 2, 1, 1);
+      gtk_grid_attach (GTK_GRID (grid), self->currency_error, 1, 3, 1, 1);
+    }
     gtk_label_set_wrap (GTK_LABEL (title), TRUE);
     gtk_label_set_xalign (GTK_LABEL (title), 0.0);
     gtk_box_append (GTK_BOX (self->box), title);

@@ -2,16 +2,21 @@
 /* sw-staging-page.h: the staging decision (small multiples of liftoff mass,
  * development effort, cost per flight, mission success and payload against
  * stage count, on one shared x scale, this design marked, the best count
- * highlighted, the weighting stated) and a carpet plot of liftoff mass over
- * the first stage's structural coefficient and the top stage's vacuum Isp
- * (contour lines, infeasible points hatched, this design marked).  Both are
- * computed on a worker thread from a copy of the design; a newer result
- * cancels the older work; the carpet reports its progress. */
+ * highlighted, the weighting stated, money in the design's currency when
+ * it gives the cost of a work-year) and a carpet plot: two inputs the user
+ * picks (any parameter sw_carpet_list_params() offers), their ranges and
+ * point counts in validated fields, and the output (liftoff mass, payload
+ * of a vehicle of this liftoff mass, development effort, cost per flight),
+ * drawn as contour lines, infeasible points hatched, this design marked.
+ * Both are computed on a worker thread from a copy of the design; a newer
+ * result cancels the older work; the carpet reports its progress and can
+ * be cancelled.  "ready" is emitted each time new figures are shown. */
 #pragma once
 
 #include <gtk/gtk.h>
 
 #include "sw-analysis.h"
+#include "sw-carpet.h"
 #include "sw-document.h"
 #include "sw-economics.h"
 
@@ -33,5 +38,28 @@ GtkWidget *sw_staging_page_get_engine_types (SwStagingPage *self);
 gboolean   sw_staging_page_is_ready (SwStagingPage *self);
 /* The weighting statement shown (for tests). */
 const char *sw_staging_page_get_weighting (SwStagingPage *self);
+
+typedef enum {
+  SW_CARPET_CONTROL_PARAM,     /* GtkDropDown of an axis */
+  SW_CARPET_CONTROL_MIN,       /* SwNumberField of an axis */
+  SW_CARPET_CONTROL_MAX,
+  SW_CARPET_CONTROL_POINTS,
+  SW_CARPET_CONTROL_OUTPUT,    /* GtkDropDown, SwCarpetOutput order */
+  SW_CARPET_CONTROL_BUTTON,    /* Cancel while computing, Compute after a cancel */
+  SW_CARPET_CONTROL_STATUS,    /* GtkLabel: why the carpet is not drawn */
+  SW_CARPET_CONTROL_CURRENCY,  /* GtkEntry of economics.currency */
+} SwCarpetControl;
+
+/* Test API: the carpet's controls (@axis 0 across, 1 up), the grid shown
+ * (NULL before the first or after a cancel), a parameter of the menus,
+ * whether the worker runs. */
+GtkWidget      *sw_staging_page_get_carpet_control (SwStagingPage *self, SwCarpetControl control,
+                                                    guint axis);
+const SwCarpet *sw_staging_page_get_carpet (SwStagingPage *self);
+gboolean        sw_staging_page_get_param (SwStagingPage *self, guint index, SwCarpetAxis *out);
+gboolean        sw_staging_page_is_busy (SwStagingPage *self);
+/* Scrolls the page so that the whole carpet plot shows, its controls above
+ * it as far as they fit (for --page=carpet). */
+void            sw_staging_page_scroll_to_carpet (SwStagingPage *self);
 
 G_END_DECLS

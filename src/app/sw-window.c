@@ -680,7 +680,7 @@ sw_window_show_page (SwWindow *self, const char *name)
     page = GTK_WIDGET (self->working_view);
   else if (g_strcmp0 (name, "trade") == 0)
     page = GTK_WIDGET (self->trade_page);
-  else if (g_strcmp0 (name, "staging") == 0)
+  else if (g_strcmp0 (name, "staging") == 0 || g_strcmp0 (name, "carpet") == 0)
     page = GTK_WIDGET (self->staging_page);
   else if (g_strcmp0 (name, "curves") == 0)
     page = gtk_notebook_get_nth_page (self->notebook, 0);
