@@ -2,20 +2,29 @@
 /* GUI tests of the staging-decision page: its figures come from the worker
  * (the weighting shown is the core's statement for the design), a newer
  * result replaces an older one still running, a page destroyed while its
- * worker runs does not crash, and the window shows the page by name.  Run
- * under Xvfb with the cairo renderer (suite 'gui'). */
+ * worker runs does not crash, and the window shows the page by name.  The
+ * carpet's picker driven by real input (xdotool through XTEST): two other
+ * parameters, their ranges typed, the grid equal to individual sizings at
+ * sampled points; a range the wrong way round or outside the key's limit
+ * marked and nothing computed; Cancel; the currency label typed.  Run
+ * under Xvfb with the cairo renderer, X11 backend (suite 'gui'). */
 #include "config.h"
 
 #include "sw-design-edit.h"
 #include "sw-design-fields.h"
 #include "sw-limits.h"
 #include "sw-engine-types-editor.h"
+#include "sw-carpet.h"
+#include "sw-application.h"
 #include "sw-number-field.h"
+#include "sw-sizing.h"
 #include "sw-staging-page.h"
 #include "sw-window-private.h"
 
 #include "gui-test-env.h"
 
+#include <gdk/x11/gdkx.h>
+#include <math.h>
 #include <string.h>
 
 static char *tmp_dir;
@@ -266,6 +275,337 @@ test_engine_types_editor (void)
   sw_test_window_close (w);
 }
 
+/* ---- real input (as tests/test-gui-input.c) ------------------------------ */
+
+static void
+drain (void)
+{
+  for (int round = 0; round < 3; round++)
+    {
+      gdk_display_sync (gdk_display_get_default ());
+      while (g_main_context_pending (NULL))
+        g_main_context_iteration (NULL, FALSE);
+    }
+}
+
+static void
+xdo (const char *first, ...)
+{
+  g_autoptr (GPtrArray) argv = g_ptr_array_new ();
+  g_autoptr (GError) error = NULL;
+  g_autofree char *err = NULL;
+  int status = 0;
+  va_list ap;
+
+  g_ptr_array_add (argv, (char *) "timeout");
+  g_ptr_array_add (argv, (char *) "10");
+  g_ptr_array_add (argv, (char *) "xdotool");
+  va_start (ap, first);
+  for (const char *a = first; a != NULL; a = va_arg (ap, const char *))
+    g_ptr_array_add (argv, (char *) a);
+  va_end (ap);
+  g_ptr_array_add (argv, NULL);
+  if (!g_spawn_sync (NULL, (char **) argv->pdata, NULL, G_SPAWN_SEARCH_PATH
+                     | G_SPAWN_STDOUT_TO_DEV_NULL, NULL, NULL, NULL, &err, &status, &error))
+    g_error ("xdotool: %s", error->message);
+  if (!g_spawn_check_wait_status (status, &error))
+    g_error ("xdotool %s: %s (%s)", first, error->message, err);
+  drain ();
+}
+
+static gboolean
+is_active (gpointer data)
+{
+  return gtk_window_is_active (GTK_WINDOW (data));
+}
+
+static gboolean
+mapped (gpointer data)
+{
+  return gtk_widget_get_mapped (GTK_WIDGET (data));
+}
+
+static void
+focus_widget (SwWindow *w, GtkWidget *widget)
+{
+  GdkSurface *surface = gtk_native_get_surface (GTK_NATIVE (w));
+  g_autofree char *xid = g_strdup_printf ("%lu",
+                                          (unsigned long) gdk_x11_surface_get_xid (surface));
+  GtkWidget *focus;
+
+  xdo ("windowfocus", "--sync", xid, NULL);
+  sw_test_wait_until (is_active, w, 10000, "the window to be active");
+  g_assert_true (gtk_widget_grab_focus (widget));
+  drain ();
+  focus = gtk_root_get_focus (GTK_ROOT (w));
+  g_assert_true (focus == widget || gtk_widget_is_ancestor (focus, widget));
+}
+
+/* Types @text into @field as a user does (select all, delete, type, Enter). */
+static void
+type_into (SwWindow *w, GtkWidget *field, const char *text)
+{
+  focus_widget (w, field);
+  xdo ("key", "--clearmodifiers", "ctrl+a", "BackSpace", NULL);
+  if (text[0] != '\0')
+    xdo ("type", "--delay", "2", "--", text, NULL);
+  xdo ("key", "Return", NULL);
+}
+
+/* Picks item @index of a drop-down with the keyboard: open, Home, Down
+ * @index times, Enter. */
+static void
+pick (SwWindow *w, GtkWidget *dd, guint index)
+{
+  focus_widget (w, dd);
+  xdo ("key", "space", NULL);
+  g_usleep (100000);
+  drain ();
+  xdo ("key", "Home", NULL);
+  for (guint i = 0; i < index; i++)
+    xdo ("key", "Down", NULL);
+  xdo ("key", "Return", NULL);
+  g_usleep (100000);
+  drain ();
+}
+
+static gboolean
+carpet_shown_cb (gpointer data)
+{
+  SwStagingPage *page = data;
+  return !sw_staging_page_is_busy (page) && sw_staging_page_is_ready (page);
+}
+
+static guint
+param_index_of (SwStagingPage *page, SwCarpetParamKind kind, guint stage)
+{
+  SwCarpetAxis a;
+
+  for (guint i = 0; sw_staging_page_get_param (page, i, &a); i++)
+    if (a.kind == kind && a.stage == stage)
+      return i;
+  g_assert_not_reached ();
+}
+
+/* The value at grid point (i, j) as `size` gives it: a copy of the design
+ * with both inputs set, sized alone. */
+static double
+individual_mass (const SwDesign *d, const SwCarpet *c, guint i, guint j)
+{
+  g_autoptr (SwDesign) copy = sw_design_copy (d);
+  SwSizing s;
+
+  sw_carpet_apply (&c->x, copy, sw_carpet_axis_value (&c->x, i));
+  sw_carpet_apply (&c->y, copy, sw_carpet_axis_value (&c->y, j));
+  /* A design `size` refuses (an orbit the site cannot reach) does not close. */
+  if (!sw_design_validate (copy, NULL, NULL))
+    return NAN;
+  g_assert_true (sw_size_design (copy, &s, NULL));
+  return s.feasible ? s.liftoff_mass_kg : NAN;
+}
+
+/* Every grid point against its own sizing; the counts of points that do
+ * and do not close. */
+static void
+check_grid (const SwDesign *d, const SwCarpet *c, guint *n_good, guint *n_bad)
+{
+  *n_good = *n_bad = 0;
+  for (guint j = 0; j < c->y.n; j++)
+    for (guint i = 0; i < c->x.n; i++)
+      {
+        double want = individual_mass (d, c, i, j);
+        double v = c->values[j * c->x.n + i];
+        if (isnan (want))
+          {
+            g_assert_false (c->feasible[j * c->x.n + i]);
+            (*n_bad)++;
+          }
+        else
+          {
+            g_assert_true (c->feasible[j * c->x.n + i]);
+            g_assert_cmpfloat_with_epsilon (v / want, 1.0, 1e-12);
+            (*n_good)++;
+          }
+      }
+}
+
+static SwNumberField *
+ctl (SwStagingPage *page, SwCarpetControl c, guint axis)
+{
+  return SW_NUMBER_FIELD (sw_staging_page_get_carpet_control (page, c, axis));
+}
+
+static void
+test_carpet_picker (void)
+{
+  SwWindow *w = sw_window_new (NULL);
+  g_autofree char *path = g_build_filename (SOURCE_DESIGNS_DIR,
+                                            "skelloway-upgrade-study.stagewright", NULL);
+  g_autoptr (GFile) file = g_file_new_for_path (path);
+  SwStagingPage *page = sw_window_get_staging_page (w);
+  SwDocument *doc = sw_window_get_document (w);
+  const SwCarpet *c, *before;
+  guint n_bad = 0, n_good = 0;
+
+  gtk_window_set_default_size (GTK_WINDOW (w), 1280, 900);
+  gtk_window_present (GTK_WINDOW (w));
+  g_assert_true (sw_window_load (w, file));
+  sw_test_wait_until (mapped, w, 10000, "the window to map");
+  sw_test_wait_until (sw_test_result_drawn, w, 60000, "the first result to be drawn");
+  g_assert_true (sw_window_show_page (w, "staging"));
+  sw_test_wait_until (carpet_shown_cb, page, 30000, "the first carpet");
+  c = sw_staging_page_get_carpet (page);
+  g_assert_nonnull (c);
+  /* At first: the first stage's structural coefficient across, the top
+   * stage's vacuum Isp up. */
+  g_assert_cmpint (c->x.kind, ==, SW_CARPET_PARAM_STRUCTURAL_COEFFICIENT);
+  g_assert_cmpint (c->y.kind, ==, SW_CARPET_PARAM_ISP_VAC);
+  g_assert_cmpuint (c->y.stage, ==, 2);
+
+  /* Across: the second stage's structural coefficient; up: the first
+   * stage's vacuum Isp; both picked from their menus with the keyboard. */
+  pick (w, sw_staging_page_get_carpet_control (page, SW_CARPET_CONTROL_PARAM, 0),
+        param_index_of (page, SW_CARPET_PARAM_STRUCTURAL_COEFFICIENT, 1));
+  sw_test_wait_until (carpet_shown_cb, page, 30000, "the carpet over the new x");
+  pick (w, sw_staging_page_get_carpet_control (page, SW_CARPET_CONTROL_PARAM, 1),
+        param_index_of (page, SW_CARPET_PARAM_ISP_VAC, 0));
+  sw_test_wait_until (carpet_shown_cb, page, 30000, "the carpet over the new y");
+  c = sw_staging_page_get_carpet (page);
+  g_assert_cmpint (c->x.kind, ==, SW_CARPET_PARAM_STRUCTURAL_COEFFICIENT);
+  g_assert_cmpuint (c->x.stage, ==, 1);
+  g_assert_cmpint (c->y.kind, ==, SW_CARPET_PARAM_ISP_VAC);
+  g_assert_cmpuint (c->y.stage, ==, 0);
+
+  /* Ranges and counts typed; a wide structural coefficient so that part of
+   * the grid does not close. */
+  type_into (w, GTK_WIDGET (ctl (page, SW_CARPET_CONTROL_MAX, 0)), "0.5");
+  type_into (w, GTK_WIDGET (ctl (page, SW_CARPET_CONTROL_MIN, 0)), "0.05");
+  type_into (w, GTK_WIDGET (ctl (page, SW_CARPET_CONTROL_POINTS, 0)), "31");
+  type_into (w, GTK_WIDGET (ctl (page, SW_CARPET_CONTROL_MIN, 1)), "285");
+  type_into (w, GTK_WIDGET (ctl (page, SW_CARPET_CONTROL_MAX, 1)), "340");
+  type_into (w, GTK_WIDGET (ctl (page, SW_CARPET_CONTROL_POINTS, 1)), "23");
+  sw_test_wait_until (carpet_shown_cb, page, 30000, "the carpet over the typed ranges");
+  c = sw_staging_page_get_carpet (page);
+  g_assert_cmpfloat (c->x.min, ==, 0.05);
+  g_assert_cmpfloat (c->x.max, ==, 0.5);
+  g_assert_cmpuint (c->x.n, ==, 31);
+  g_assert_cmpfloat (c->y.min, ==, 285.0);
+  g_assert_cmpfloat (c->y.max, ==, 340.0);
+  g_assert_cmpuint (c->y.n, ==, 23);
+  g_assert_cmpint (c->output, ==, SW_CARPET_LIFTOFF_MASS);
+  /* Every point equals the sizing of the design with the two inputs set. */
+  check_grid (sw_document_get_design (doc), c, &n_good, &n_bad);
+  g_assert_cmpuint (n_good, ==, 31 * 23);
+  g_assert_cmpfloat (c->design_x, ==, sw_document_get_design (doc)->stages[1].structural_coefficient);
+
+  /* The site's latitude across, the orbit's inclination up: an orbit less
+   * inclined than the site's latitude cannot be reached directly, so that
+   * part of the grid does not close (and is hatched). */
+  pick (w, sw_staging_page_get_carpet_control (page, SW_CARPET_CONTROL_PARAM, 0),
+        param_index_of (page, SW_CARPET_PARAM_SITE_LATITUDE, 0));
+  sw_test_wait_until (carpet_shown_cb, page, 30000, "the carpet over the latitude");
+  pick (w, sw_staging_page_get_carpet_control (page, SW_CARPET_CONTROL_PARAM, 1),
+        param_index_of (page, SW_CARPET_PARAM_INCLINATION, 0));
+  sw_test_wait_until (carpet_shown_cb, page, 30000, "the carpet over the inclination");
+  type_into (w, GTK_WIDGET (ctl (page, SW_CARPET_CONTROL_MIN, 0)), "0");
+  type_into (w, GTK_WIDGET (ctl (page, SW_CARPET_CONTROL_MAX, 0)), "70");
+  type_into (w, GTK_WIDGET (ctl (page, SW_CARPET_CONTROL_MIN, 1)), "30");
+  type_into (w, GTK_WIDGET (ctl (page, SW_CARPET_CONTROL_MAX, 1)), "110");
+  sw_test_wait_until (carpet_shown_cb, page, 30000, "the carpet over the typed orbit ranges");
+  c = sw_staging_page_get_carpet (page);
+  g_assert_cmpint (c->x.kind, ==, SW_CARPET_PARAM_SITE_LATITUDE);
+  g_assert_cmpint (c->y.kind, ==, SW_CARPET_PARAM_INCLINATION);
+  g_assert_cmpfloat (c->x.max, ==, 70.0);
+  g_assert_cmpfloat (c->y.min, ==, 30.0);
+  check_grid (sw_document_get_design (doc), c, &n_good, &n_bad);
+  g_assert_cmpuint (n_bad, >, 0);
+  g_assert_cmpuint (n_good, >, 0);
+  g_assert_cmpuint (n_bad, ==, c->n_infeasible);
+  {
+    const char *dir = g_getenv ("SW_TEST_SHOT_DIR");
+    if (dir != NULL)
+      {
+        g_autofree char *shot = g_build_filename (dir, "carpet-picked.png", NULL);
+        g_autoptr (GError) error = NULL;
+        sw_staging_page_scroll_to_carpet (page);
+        for (guint i = 0; i < 20; i++)
+          {
+            g_usleep (20000);
+            drain ();
+          }
+        if (!sw_application_write_png (GTK_WIDGET (w), shot, &error))
+          g_test_message ("%s: %s", shot, error->message);
+      }
+  }
+
+  /* The upper end below the lower: marked on the field, nothing computed,
+   * the grid as it was. */
+  before = c;
+  type_into (w, GTK_WIDGET (ctl (page, SW_CARPET_CONTROL_MAX, 0)), "-10");
+  g_assert_false (sw_staging_page_is_busy (page));
+  g_assert_true (sw_staging_page_get_carpet (page) == before);
+  g_assert_cmpstr (sw_number_field_get_error (ctl (page, SW_CARPET_CONTROL_MAX, 0)), ==,
+                   "The upper end must be above the lower end.");
+  /* Outside the key's limit (a latitude of 95 deg): refused by the field
+   * with the accepted range. */
+  type_into (w, GTK_WIDGET (ctl (page, SW_CARPET_CONTROL_MIN, 0)), "95");
+  g_assert_false (sw_staging_page_is_busy (page));
+  g_assert_true (sw_staging_page_get_carpet (page) == before);
+  g_assert_nonnull (strstr (sw_number_field_get_error (ctl (page, SW_CARPET_CONTROL_MIN, 0)),
+                            "95 is out of range. Accepted: \342\210\22289.9 to 89.9 deg"));
+  /* Letters in a count: refused too. */
+  type_into (w, GTK_WIDGET (ctl (page, SW_CARPET_CONTROL_POINTS, 1)), "many");
+  g_assert_false (sw_staging_page_is_busy (page));
+  g_assert_true (sw_staging_page_get_carpet (page) == before);
+  /* A valid upper end clears the rule's mark and computes again. */
+  type_into (w, GTK_WIDGET (ctl (page, SW_CARPET_CONTROL_MIN, 0)), "10");
+  type_into (w, GTK_WIDGET (ctl (page, SW_CARPET_CONTROL_POINTS, 1)), "23");
+  type_into (w, GTK_WIDGET (ctl (page, SW_CARPET_CONTROL_MAX, 0)), "60");
+  g_assert_null (sw_number_field_get_error (ctl (page, SW_CARPET_CONTROL_MAX, 0)));
+  sw_test_wait_until (carpet_shown_cb, page, 30000, "the carpet after the fix");
+  g_assert_cmpfloat (sw_staging_page_get_carpet (page)->x.max, ==, 60.0);
+  /* No edit of the carpet ever changes the design. */
+  g_assert_false (sw_document_get_modified (doc));
+
+  /* Cost per flight: the cost model's keys join the menus. */
+  pick (w, sw_staging_page_get_carpet_control (page, SW_CARPET_CONTROL_OUTPUT, 0),
+        SW_CARPET_COST_PER_FLIGHT);
+  sw_test_wait_until (carpet_shown_cb, page, 30000, "the cost carpet");
+  g_assert_cmpint (sw_staging_page_get_carpet (page)->output, ==, SW_CARPET_COST_PER_FLIGHT);
+  {
+    SwCarpetAxis a;
+    gboolean econ = FALSE;
+    for (guint i = 0; sw_staging_page_get_param (page, i, &a); i++)
+      econ |= a.kind == SW_CARPET_PARAM_ECONOMICS;
+    g_assert_true (econ);
+  }
+
+  /* Cancel: a 500 x 500 grid, cancelled at once; no carpet, said so. */
+  g_assert_true (sw_number_field_enter (ctl (page, SW_CARPET_CONTROL_POINTS, 0), "500"));
+  g_assert_true (sw_number_field_enter (ctl (page, SW_CARPET_CONTROL_POINTS, 1), "500"));
+  g_assert_true (sw_staging_page_is_busy (page));
+  g_signal_emit_by_name (sw_staging_page_get_carpet_control (page, SW_CARPET_CONTROL_BUTTON, 0),
+                         "clicked");
+  sw_test_wait_until (carpet_shown_cb, page, 30000, "the cancelled carpet");
+  g_assert_null (sw_staging_page_get_carpet (page));
+  g_assert_true (g_str_has_prefix (gtk_label_get_text (GTK_LABEL (
+                   sw_staging_page_get_carpet_control (page, SW_CARPET_CONTROL_STATUS, 0))),
+                   "Cancelled"));
+
+  /* The currency label typed: one named edit; too long, marked, unchanged. */
+  type_into (w, sw_staging_page_get_carpet_control (page, SW_CARPET_CONTROL_CURRENCY, 0),
+             "kEUR");
+  g_assert_cmpstr (sw_document_get_design (doc)->economics.currency, ==, "kEUR");
+  type_into (w, sw_staging_page_get_carpet_control (page, SW_CARPET_CONTROL_CURRENCY, 0),
+             "seventeen letters");
+  g_assert_cmpstr (sw_document_get_design (doc)->economics.currency, ==, "kEUR");
+  g_assert_true (gtk_widget_has_css_class (
+    sw_staging_page_get_carpet_control (page, SW_CARPET_CONTROL_CURRENCY, 0), "error"));
+  g_assert_true (sw_document_undo (doc));
+  g_assert_cmpstr (sw_document_get_design (doc)->economics.currency, ==, "");
+  sw_test_window_close (w);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -275,6 +615,7 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/staging-page/shows-worker-result", test_page_shows_worker_result);
   g_test_add_func ("/gui/staging-page/window-has-page", test_window_has_page);
   g_test_add_func ("/gui/staging-page/engine-types-editor", test_engine_types_editor);
+  g_test_add_func ("/gui/staging-page/carpet-picker", test_carpet_picker);
   status = g_test_run ();
   sw_gui_test_env_finish (tmp_dir);
   return status;

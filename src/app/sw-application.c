@@ -25,6 +25,7 @@ struct _SwApplication {
   GtkApplication parent_instance;
   char          *screenshot;       /* --screenshot=FILE */
   char          *page;             /* --page=NAME */
+  char          *carpet;           /* --carpet=X,Y[,OUTPUT] */
   int            shot_width;       /* --screenshot-size=WxH */
   int            shot_height;
   int            exit_status;
@@ -229,6 +230,39 @@ screenshot_after_frames (SwApplication *self, SwWindow *window)
   gtk_widget_queue_draw (GTK_WIDGET (window));
 }
 
+/* --carpet=X,Y[,OUTPUT]: each axis PARAM:MIN:MAX:N as the CLI's carpet
+ * command reads it, for the design just loaded. */
+static gboolean
+choose_carpet (SwApplication *self, SwWindow *window)
+{
+  const SwDesign *d = sw_document_get_design (sw_window_get_document (window));
+  g_auto (GStrv) parts = g_strsplit (self->carpet, ",", -1);
+  g_autoptr (GError) error = NULL;
+  SwCarpetAxis x = { 0 }, y = { 0 };
+  SwCarpetOutput output = SW_CARPET_LIFTOFF_MASS;
+  guint n = g_strv_length (parts);
+
+  if ((n != 2 && n != 3)
+      || (n == 3 && !sw_carpet_output_from_string (parts[2], &output)))
+    {
+      g_autofree char *m = g_strdup_printf (_("--carpet=%s: expected X,Y or X,Y,OUTPUT, each "
+                                              "axis PARAM:MIN:MAX:N, OUTPUT liftoff_mass, "
+                                              "payload, development or cost_per_flight"),
+                                            self->carpet);
+      screenshot_failed (self, m);
+      return FALSE;
+    }
+  if (!sw_carpet_axis_parse ("--carpet", parts[0], d, &x, &error)
+      || !sw_carpet_axis_parse ("--carpet", parts[1], d, &y, &error)
+      || !sw_carpet_axis_check (&x, d, &error) || !sw_carpet_axis_check (&y, d, &error))
+    {
+      screenshot_failed (self, error->message);
+      return FALSE;
+    }
+  sw_staging_page_choose_carpet (sw_window_get_staging_page (window), &x, &y, output);
+  return TRUE;
+}
+
 static void
 start_screenshot (SwApplication *self, GFile *file)
 {
@@ -251,6 +285,11 @@ start_screenshot (SwApplication *self, GFile *file)
     {
       const char *message = sw_window_get_message (window, NULL);
       screenshot_failed (self, message != NULL ? message : _("the design could not be opened"));
+      gtk_window_destroy (GTK_WINDOW (window));
+      return;
+    }
+  if (self->carpet != NULL && !choose_carpet (self, window))
+    {
       gtk_window_destroy (GTK_WINDOW (window));
       return;
     }
@@ -443,6 +482,7 @@ sw_application_handle_local_options (GApplication *app, GVariantDict *options)
     }
   g_variant_dict_lookup (options, "screenshot", "^ay", &self->screenshot);
   g_variant_dict_lookup (options, "page", "s", &self->page);
+  g_variant_dict_lookup (options, "carpet", "s", &self->carpet);
   if (g_variant_dict_contains (options, "screenshot-size"))
     {
       g_autofree char *size = NULL;
@@ -541,6 +581,7 @@ sw_application_finalize (GObject *object)
   g_clear_handle_id (&self->test_timeout, g_source_remove);
   g_free (self->screenshot);
   g_free (self->page);
+  g_free (self->carpet);
   g_strfreev (self->test_edits);
   g_free (self->test_dump);
   G_OBJECT_CLASS (sw_application_parent_class)->finalize (object);
@@ -573,6 +614,9 @@ sw_application_init (SwApplication *self)
     { "page", 0, 0, G_OPTION_ARG_STRING, NULL,
       N_("Show PAGE first: curves, working, ascent, trade, staging or carpet (the staging "
          "page scrolled to its carpet plot)"), N_("PAGE") },
+    { "carpet", 0, 0, G_OPTION_ARG_STRING, NULL,
+      N_("With --screenshot: the carpet plot's axes and output, as the CLI's carpet command "
+         "takes them"), N_("X,Y[,OUTPUT]") },
     { "version", 0, 0, G_OPTION_ARG_NONE, NULL, N_("Print the version and quit"), NULL },
     /* For tests/test-recovery-kill.c only: not shown in --help. */
     { "test-edit", 0, G_OPTION_FLAG_HIDDEN, G_OPTION_ARG_STRING_ARRAY, NULL, NULL, NULL },

@@ -79,7 +79,8 @@ struct _SwStagingPage {
   SwDesign       *design;       /* the design of the last result */
   SwCarpetOutput  output;
   SwCarpetAxis    axes[2];      /* the carpet's axes as the fields show them */
-  gboolean        axes_chosen;  /* set once from the design's defaults */
+  gboolean        axes_chosen;  /* the user picked: chosen[] holds the choice */
+  SwCarpetAxis    chosen[2];    /* kept while a design lacks the parameter */
   SwCarpetAxis    params[64];   /* the parameters the menus offer */
   guint           n_params;
   GtkWidget      *rule_field;   /* the field marked by a rule between fields */
@@ -355,6 +356,15 @@ choose_other_param (SwStagingPage *self, guint a)
 static void
 sync_axes (SwStagingPage *self)
 {
+  gtk_label_set_text (GTK_LABEL (self->carpet_title),
+                      self->output == SW_CARPET_LIFTOFF_MASS
+                        ? _("Carpet plot: liftoff mass, contour lines")
+                        : self->output == SW_CARPET_PAYLOAD
+                            ? _("Carpet plot: payload of a vehicle of this design's liftoff "
+                                "mass, contour lines")
+                            : self->output == SW_CARPET_DEVELOPMENT
+                                ? _("Carpet plot: development effort, contour lines")
+                                : _("Carpet plot: cost per flight (expendable), contour lines"));
   sync_param_menus (self);
   /* Until the user picks, the axes follow the design. */
   if (!self->axes_chosen)
@@ -364,6 +374,11 @@ sync_axes (SwStagingPage *self)
       self->axes[0] = o.x;
       self->axes[1] = o.y;
       self->axes[0].n = self->axes[1].n = 50;
+    }
+  else
+    {
+      self->axes[0] = self->chosen[0];
+      self->axes[1] = self->chosen[1];
     }
   for (guint a = 0; a < 2; a++)
     {
@@ -433,7 +448,23 @@ read_axes (SwStagingPage *self)
     }
   self->axes[0] = axes[0];
   self->axes[1] = axes[1];
+  if (self->axes_chosen)
+    {
+      self->chosen[0] = axes[0];
+      self->chosen[1] = axes[1];
+    }
   return TRUE;
+}
+
+/* From the first pick on, the axes are the user's. */
+static void
+mark_chosen (SwStagingPage *self)
+{
+  if (self->axes_chosen)
+    return;
+  self->chosen[0] = self->axes[0];
+  self->chosen[1] = self->axes[1];
+  self->axes_chosen = TRUE;
 }
 
 static void
@@ -441,7 +472,7 @@ axis_field_cb (SwNumberField *field, SwStagingPage *self)
 {
   if (self->updating > 0 || self->design == NULL)
     return;
-  self->axes_chosen = TRUE;
+  mark_chosen (self);
   if (read_axes (self))
     start_job (self);
 }
@@ -455,10 +486,11 @@ axis_param_cb (GtkDropDown *dd, GParamSpec *pspec, SwStagingPage *self)
 
   if (self->updating > 0 || self->design == NULL || k >= self->n_params)
     return;
-  self->axes_chosen = TRUE;
+  mark_chosen (self);
   self->axes[a] = self->params[k];
   self->axes[a].n = n;
   sw_carpet_axis_default_range (&self->axes[a], self->design);
+  self->chosen[a] = self->axes[a];
   fill_axis (self, a);
   if (sw_carpet_param_equal (&self->axes[0], &self->axes[1]))
     {
@@ -476,16 +508,8 @@ output_cb (GtkDropDown *dd, GParamSpec *pspec, SwStagingPage *self)
   if (self->updating > 0 || self->design == NULL)
     return;
   self->output = (SwCarpetOutput) gtk_drop_down_get_selected (dd);
-  self->axes_chosen = TRUE;
-  gtk_label_set_text (GTK_LABEL (self->carpet_title),
-                      self->output == SW_CARPET_LIFTOFF_MASS
-                        ? _("Carpet plot: liftoff mass, contour lines")
-                        : self->output == SW_CARPET_PAYLOAD
-                            ? _("Carpet plot: payload of a vehicle of this design's liftoff "
-                                "mass, contour lines")
-                            : self->output == SW_CARPET_DEVELOPMENT
-                                ? _("Carpet plot: development effort, contour lines")
-                                : _("Carpet plot: cost per flight (expendable), contour lines"));
+  mark_chosen (self);
+
   sync_axes (self);
   if (read_axes (self))
     start_job (self);
@@ -680,6 +704,26 @@ update_money (SwStagingPage *self)
     text = g_strdup (_("No cost of a work-year given: effort in work-years only (set it below "
                        "to see money)."));
   gtk_label_set_text (GTK_LABEL (self->money), text);
+}
+
+void
+sw_staging_page_choose_carpet (SwStagingPage *self, const SwCarpetAxis *x, const SwCarpetAxis *y,
+                               SwCarpetOutput output)
+{
+  g_return_if_fail (SW_IS_STAGING_PAGE (self) && x != NULL && y != NULL);
+  self->axes[0] = self->chosen[0] = *x;
+  self->axes[1] = self->chosen[1] = *y;
+  self->output = output;
+  self->axes_chosen = TRUE;
+  self->updating++;
+  gtk_drop_down_set_selected (GTK_DROP_DOWN (self->carpet_output), output);
+  self->updating--;
+  if (self->design != NULL)
+    {
+      sync_axes (self);
+      if (read_axes (self))
+        start_job (self);
+    }
 }
 
 const SwCarpet *
@@ -1161,6 +1205,71 @@ show_text_boxed (cairo_t *cr, PangoLayout *layout, const char *text, double x, d
   pango_cairo_show_layout (cr, layout);
 }
 
+/* A contour level's label where its line crosses the middle column (lines
+ * that run across) or the middle row (lines that run up), else a quarter
+ * in; never on the design's mark or on a label already placed. */
+static void
+place_level_label (cairo_t *cr, PangoLayout *layout, const SwCarpet *c, const SwPlotAxis *xa,
+                   const SwPlotAxis *ya, double level, const char *label, double mx, double my,
+                   GArray *placed, const GdkRGBA *bg, const GdkRGBA *fg)
+{
+  const guint cols[] = { c->x.n / 2, c->x.n / 4, (3 * c->x.n) / 4 };
+  const guint rows[] = { c->y.n / 2, c->y.n / 5, (4 * c->y.n) / 5 };
+  double l = MIN (xa->p0, xa->p1), r = MAX (xa->p0, xa->p1);
+  double t = MIN (ya->p0, ya->p1), b = MAX (ya->p0, ya->p1);
+  int lw, lh;
+
+  pango_layout_set_text (layout, label, -1);
+  pango_layout_get_pixel_size (layout, &lw, &lh);
+  for (guint pass = 0; pass < 6; pass++)
+    {
+      gboolean along_column = pass % 2 == 0;
+      guint fixed = along_column ? cols[pass / 2] : rows[pass / 2];
+      guint n = along_column ? c->y.n : c->x.n;
+
+      for (guint k = 0; k + 1 < n; k++)
+        {
+          gsize i0 = along_column ? (gsize) k * c->x.n + fixed : (gsize) fixed * c->x.n + k;
+          gsize i1 = along_column ? i0 + c->x.n : i0 + 1;
+          double a = c->values[i0], bb = c->values[i1], tt, px, py;
+          graphene_rect_t box;
+          gboolean clear = TRUE;
+
+          if (!isfinite (a) || !isfinite (bb) || (a < level) == (bb < level))
+            continue;
+          tt = (level - a) / (bb - a);
+          if (along_column)
+            {
+              px = sw_plot_axis_map (xa, sw_carpet_axis_value (&c->x, fixed));
+              py = sw_plot_axis_map (ya, sw_carpet_axis_value (&c->y, k)
+                                           + tt * (sw_carpet_axis_value (&c->y, k + 1)
+                                                   - sw_carpet_axis_value (&c->y, k)));
+            }
+          else
+            {
+              px = sw_plot_axis_map (xa, sw_carpet_axis_value (&c->x, k)
+                                           + tt * (sw_carpet_axis_value (&c->x, k + 1)
+                                                   - sw_carpet_axis_value (&c->x, k)));
+              py = sw_plot_axis_map (ya, sw_carpet_axis_value (&c->y, fixed));
+            }
+          /* Inside the frame, clear of the tick labels. */
+          px = CLAMP (px, l + lw / 2.0 + 3.0, r - lw / 2.0 - 3.0);
+          py = CLAMP (py, t + lh / 2.0 + 1.0, b - lh / 2.0 - 1.0);
+          graphene_rect_init (&box, px - lw / 2.0 - 4.0, py - lh / 2.0 - 2.0, lw + 8.0, lh + 4.0);
+          if (isfinite (mx) && fabs (px - mx) < lw / 2.0 + 80.0 && fabs (py - my) < lh + 12.0)
+            clear = FALSE;
+          for (guint q = 0; q < placed->len && clear; q++)
+            clear = !graphene_rect_intersection (&box, &g_array_index (placed, graphene_rect_t, q),
+                                                 NULL);
+          if (!clear)
+            continue;
+          g_array_append_val (placed, box);
+          show_text_boxed (cr, layout, label, px, py, 0.5, 0.5, bg, fg);
+          return;
+        }
+    }
+}
+
 static void
 draw_carpet (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointer data)
 {
@@ -1244,6 +1353,7 @@ draw_carpet (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointer 
       }
   if (isfinite (lo) && hi > lo)
     {
+      GArray *placed = g_array_new (FALSE, FALSE, sizeof (graphene_rect_t));
       step = sw_plot_nice_step (hi - lo, 8.0);
       cairo_set_line_width (cr, 1.5);
       for (double level = ceil (lo / step) * step; level <= hi; level += step)
@@ -1251,41 +1361,9 @@ draw_carpet (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointer 
           g_autofree char *label = level_text (c->output, level);
           set_rgba (cr, &line, 1.0);
           contour (cr, c, &xa, &ya, level);
-          /* The level's label where its line crosses the middle row, or
-           * the row a third up when that would sit on the design's mark. */
-          for (guint pass = 0; pass < 2; pass++)
-            {
-              guint j = pass == 0 ? c->y.n / 2 : c->y.n / 5;
-              gboolean done = FALSE;
-              for (guint i = 0; i + 1 < c->x.n && !done; i++)
-                {
-                  double a = c->values[j * c->x.n + i], bb = c->values[j * c->x.n + i + 1];
-                  if (isfinite (a) && isfinite (bb) && (a < level) != (bb < level))
-                    {
-                      double tt = (level - a) / (bb - a);
-                      double xv = sw_carpet_axis_value (&c->x, i)
-                                  + tt * (sw_carpet_axis_value (&c->x, i + 1)
-                                          - sw_carpet_axis_value (&c->x, i));
-                      double px = sw_plot_axis_map (&xa, xv);
-                      double py = sw_plot_axis_map (&ya, sw_carpet_axis_value (&c->y, j));
-                      done = TRUE;
-                      if (isfinite (mx) && fabs (px - mx) < 90.0 && fabs (py - my) < 30.0)
-                        break;
-                      {
-                        /* Inside the frame, clear of the tick labels. */
-                        int lw;
-                        pango_layout_set_text (layout, label, -1);
-                        pango_layout_get_pixel_size (layout, &lw, NULL);
-                        px = CLAMP (px, l + lw / 2.0 + 3.0, r - lw / 2.0 - 3.0);
-                      }
-                      show_text_boxed (cr, layout, label, px, py, 0.5, 0.5, &bg, &fg);
-                      pass = 2;
-                    }
-                }
-              if (!done)
-                break;
-            }
+          place_level_label (cr, layout, c, &xa, &ya, level, label, mx, my, placed, &bg, &fg);
         }
+      g_array_unref (placed);
     }
   /* Frame, ticks, axis names with units. */
   cairo_set_line_width (cr, 1.0);

@@ -58,6 +58,10 @@ GtkWidget      *sw_staging_page_get_carpet_control (SwStagingPage *self, SwCarpe
 const SwCarpet *sw_staging_page_get_carpet (SwStagingPage *self);
 gboolean        sw_staging_page_get_param (SwStagingPage *self, guint index, SwCarpetAxis *out);
 gboolean        sw_staging_page_is_busy (SwStagingPage *self);
+/* The carpet's axes and output as if the user had picked them (for
+ * --carpet with --screenshot); taken into the fields when a design comes. */
+void            sw_staging_page_choose_carpet (SwStagingPage *self, const SwCarpetAxis *x,
+                                               const SwCarpetAxis *y, SwCarpetOutput output);
 /* Scrolls the page so that the whole carpet plot shows, its controls above
  * it as far as they fit (for --page=carpet). */
 void            sw_staging_page_scroll_to_carpet (SwStagingPage *self);

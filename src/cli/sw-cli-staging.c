@@ -265,48 +265,6 @@ output_unit (SwCarpetOutput o)
   return o == SW_CARPET_DEVELOPMENT || o == SW_CARPET_COST_PER_FLIGHT ? "work-years" : "kg";
 }
 
-/* "PARAM:MIN:MAX:N" into an axis; an error names the option and the text. */
-static gboolean
-parse_axis (const char *option, const char *text, const SwDesign *d, SwCarpetAxis *axis,
-            GError **error)
-{
-  g_auto (GStrv) parts = NULL;
-  char *end = NULL;
-  guint64 n = 0;
-
-  if (text == NULL)
-    {
-      g_set_error (error, SW_ERROR, SW_ERROR_USAGE, _("%s is required (PARAM:MIN:MAX:N)"),
-                   option);
-      return FALSE;
-    }
-  parts = g_strsplit (text, ":", -1);
-  if (g_strv_length (parts) != 4)
-    {
-      g_set_error (error, SW_ERROR, SW_ERROR_USAGE,
-                   _("%s %s: expected PARAM:MIN:MAX:N, e.g. stages[0].isp_vac_s:280:340:50"),
-                   option, text);
-      return FALSE;
-    }
-  if (!sw_carpet_param_parse (parts[0], d, axis, error))
-    return FALSE;
-  axis->min = g_ascii_strtod (parts[1], &end);
-  if (end == parts[1] || *end != '\0' || !isfinite (axis->min))
-    goto bad_number;
-  axis->max = g_ascii_strtod (parts[2], &end);
-  if (end == parts[2] || *end != '\0' || !isfinite (axis->max))
-    goto bad_number;
-  if (!g_ascii_string_to_unsigned (parts[3], 10, 0, 100000, &n, NULL))
-    goto bad_number;
-  axis->n = (guint) n;
-  return TRUE;
-
-bad_number:
-  g_set_error (error, SW_ERROR, SW_ERROR_USAGE,
-               _("%s %s: MIN and MAX must be numbers and N a whole number"), option, text);
-  return FALSE;
-}
-
 static void
 carpet_axis_json (JsonBuilder *b, const char *key, const SwCarpetAxis *a)
 {
@@ -441,7 +399,8 @@ sw_cli_carpet (int argc, char **argv)
     }
   if ((d = sw_cli_load (argv[1])) == NULL)
     return SW_EXIT_USAGE;
-  if (!parse_axis ("--x", opt_x, d, &o.x, &error) || !parse_axis ("--y", opt_y, d, &o.y, &error)
+  if (!sw_carpet_axis_parse ("--x", opt_x, d, &o.x, &error)
+      || !sw_carpet_axis_parse ("--y", opt_y, d, &o.y, &error)
       || (c = sw_carpet_compute (d, &o, &error)) == NULL)
     {
       g_printerr (_("stagewright-cli carpet: %s: %s\n"), argv[1], error->message);

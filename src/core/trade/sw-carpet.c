@@ -134,6 +134,48 @@ sw_carpet_param_parse (const char *text, const SwDesign *design, SwCarpetAxis *a
   return TRUE;
 }
 
+gboolean
+sw_carpet_axis_parse (const char *option, const char *text, const SwDesign *design,
+                      SwCarpetAxis *axis, GError **error)
+{
+  g_auto (GStrv) parts = NULL;
+  char *end = NULL;
+  guint64 n = 0;
+
+  g_return_val_if_fail (option != NULL && design != NULL && axis != NULL, FALSE);
+  if (text == NULL)
+    {
+      g_set_error (error, SW_ERROR, SW_ERROR_USAGE, _("%s is required (PARAM:MIN:MAX:N)"),
+                   option);
+      return FALSE;
+    }
+  parts = g_strsplit (text, ":", -1);
+  if (g_strv_length (parts) != 4)
+    {
+      g_set_error (error, SW_ERROR, SW_ERROR_USAGE,
+                   _("%s %s: expected PARAM:MIN:MAX:N, e.g. stages[0].isp_vac_s:280:340:50"),
+                   option, text);
+      return FALSE;
+    }
+  if (!sw_carpet_param_parse (parts[0], design, axis, error))
+    return FALSE;
+  axis->min = g_ascii_strtod (parts[1], &end);
+  if (end == parts[1] || *end != '\0' || !isfinite (axis->min))
+    goto bad_number;
+  axis->max = g_ascii_strtod (parts[2], &end);
+  if (end == parts[2] || *end != '\0' || !isfinite (axis->max))
+    goto bad_number;
+  if (!g_ascii_string_to_unsigned (parts[3], 10, 0, 100000, &n, NULL))
+    goto bad_number;
+  axis->n = (guint) n;
+  return TRUE;
+
+bad_number:
+  g_set_error (error, SW_ERROR, SW_ERROR_USAGE,
+               _("%s %s: MIN and MAX must be numbers and N a whole number"), option, text);
+  return FALSE;
+}
+
 char *
 sw_carpet_param_dup_name (const SwCarpetAxis *axis)
 {

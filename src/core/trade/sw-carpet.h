@@ -81,6 +81,11 @@ typedef struct {
  * the text and lists the parameters. */
 gboolean    sw_carpet_param_parse (const char *text, const SwDesign *design, SwCarpetAxis *axis,
                                    GError **error);
+/* "PARAM:MIN:MAX:N" into @axis (parameter, range, count; the range is
+ * checked by sw_carpet_axis_check(), not here).  Errors start with
+ * @option and the text ("--x stages[0].isp_vac_s:300: expected ..."). */
+gboolean    sw_carpet_axis_parse (const char *option, const char *text, const SwDesign *design,
+                                  SwCarpetAxis *axis, GError **error);
 /* The parameter's name as sw_carpet_param_parse() reads it (owned). */
 char       *sw_carpet_param_dup_name (const SwCarpetAxis *axis);
 /* The same in plain words for people ("Vacuum Isp, stage 3"), translated. */
