@@ -24,8 +24,10 @@
 #include "gui-test-env.h"
 
 #include <gdk/x11/gdkx.h>
+#include <glib/gstdio.h>
 #include <math.h>
 #include <string.h>
+#include <sys/wait.h>
 
 static char *tmp_dir;
 
@@ -606,6 +608,102 @@ test_carpet_picker (void)
   sw_test_window_close (w);
 }
 
+/* Runs the window binary (env SW_APP) with @args under Xvfb's display. */
+static int
+run_app (char **err, const char *first, ...)
+{
+  g_autoptr (GPtrArray) argv = g_ptr_array_new ();
+  g_autoptr (GError) error = NULL;
+  int status = 0;
+  va_list ap;
+
+  g_ptr_array_add (argv, (char *) "timeout");
+  g_ptr_array_add (argv, (char *) "120");
+  g_ptr_array_add (argv, (char *) g_getenv ("SW_APP"));
+  va_start (ap, first);
+  for (const char *a = first; a != NULL; a = va_arg (ap, const char *))
+    g_ptr_array_add (argv, (char *) a);
+  va_end (ap);
+  g_ptr_array_add (argv, NULL);
+  g_assert_nonnull (g_getenv ("SW_APP"));
+  g_assert_true (g_spawn_sync (NULL, (char **) argv->pdata, NULL, G_SPAWN_SEARCH_PATH
+                               | G_SPAWN_STDOUT_TO_DEV_NULL, NULL, NULL, NULL, err, &status,
+                               &error));
+  g_assert_no_error (error);
+  return WIFEXITED (status) ? WEXITSTATUS (status) : -1;
+}
+
+/* --screenshot with --page=staging and --page=carpet (and --carpet) writes
+ * the picture once the page's worker is done; a bad page or carpet is an
+ * error naming what is accepted. */
+static void
+test_screenshot_pages (void)
+{
+  g_autofree char *design = g_build_filename (SOURCE_DESIGNS_DIR,
+                                              "skelloway-upgrade-study.stagewright", NULL);
+  /* The second carpet, 500 x 500 points of cost per flight, takes about a
+   * second on the worker: longer than the window's own first result. */
+  const char *pages[] = { "--page=staging", "--page=carpet" };
+  const char *carpets[] = { "--carpet=mission.orbit.site_latitude_deg:0:70:20,"
+                            "mission.orbit.inclination_deg:30:110:20",
+                            "--carpet=mission.orbit.site_latitude_deg:0:70:500,"
+                            "mission.orbit.inclination_deg:30:110:500,cost_per_flight" };
+
+  for (guint i = 0; i < G_N_ELEMENTS (pages); i++)
+    {
+      g_autofree char *png = g_build_filename (tmp_dir, "shot.png", NULL);
+      g_autofree char *shot = g_strdup_printf ("--screenshot=%s", png);
+      g_autofree char *err = NULL;
+      g_autoptr (GdkTexture) texture = NULL;
+      g_autoptr (GError) error = NULL;
+      g_autofree guchar *data = g_malloc (1280 * 800 * 4);
+      guint dark = 0, total = 0;
+
+      g_assert_cmpint (run_app (&err, shot, pages[i], carpets[i], design, NULL), ==, 0);
+      texture = gdk_texture_new_from_filename (png, &error);
+      g_assert_no_error (error);
+      g_assert_cmpint (gdk_texture_get_width (texture), ==, 1280);
+      g_assert_cmpint (gdk_texture_get_height (texture), ==, 800);
+      gdk_texture_download (texture, data, 1280 * 4);
+      g_unlink (png);
+      if (i == 0)
+        continue;
+      /* The corner of the plot where the site's latitude exceeds the
+       * orbit's inclination (above 60 deg, below 40 deg) is hatched once
+       * the grid is shown; before, the plot holds only "Computing". This
+       * reads the picture's layout at 1280 x 800 (the carpet's foot at
+       * the foot of the view, its right edge 30 px from the window's). */
+      for (int y = 690; y < 730; y++)
+        for (int x = 1190; x < 1240; x++)
+          {
+            const guchar *px = data + (gsize) y * 1280 * 4 + x * 4;
+            dark += px[0] + px[1] + px[2] < 3 * 200;
+            total++;
+          }
+      g_test_message ("%u of %u pixels in the hatched corner are dark", dark, total);
+      g_assert_cmpuint (dark * 20, >, total);
+    }
+  {
+    g_autofree char *png = g_build_filename (tmp_dir, "none.png", NULL);
+    g_autofree char *shot = g_strdup_printf ("--screenshot=%s", png);
+    g_autofree char *err = NULL;
+
+    g_assert_cmpint (run_app (&err, shot, "--page=stagin", design, NULL), ==, 1);
+    g_assert_nonnull (strstr (err, "--page=stagin: no such page (curves, working, ascent, "
+                                   "trade, staging, carpet)"));
+    g_clear_pointer (&err, g_free);
+    g_assert_cmpint (run_app (&err, shot, "--page=carpet", "--carpet=payload_kg:1:2:3", design,
+                              NULL), ==, 1);
+    g_assert_nonnull (strstr (err, "expected X,Y or X,Y,OUTPUT"));
+    g_clear_pointer (&err, g_free);
+    g_assert_cmpint (run_app (&err, shot, "--page=carpet",
+                              "--carpet=payload_kg:100:200:5,stages[9].isp_vac_s:300:320:5", design,
+                              NULL), ==, 1);
+    g_assert_nonnull (strstr (err, "stages[9].isp_vac_s: the design has 3 stages"));
+    g_assert_false (g_file_test (png, G_FILE_TEST_EXISTS));
+  }
+}
+
 int
 main (int argc, char **argv)
 {
@@ -616,6 +714,7 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/staging-page/window-has-page", test_window_has_page);
   g_test_add_func ("/gui/staging-page/engine-types-editor", test_engine_types_editor);
   g_test_add_func ("/gui/staging-page/carpet-picker", test_carpet_picker);
+  g_test_add_func ("/gui/staging-page/screenshot-pages", test_screenshot_pages);
   status = g_test_run ();
   sw_gui_test_env_finish (tmp_dir);
   return status;
