@@ -147,6 +147,29 @@ test_stages_json (void)
   check (o, "work_year_cost", 200000.0);
   g_assert_cmpstr (json_object_get_string_member (o, "currency"), ==, "EUR");
   g_assert_nonnull (strstr (json_object_get_string_member (o, "money_note"), "never a quote"));
+  /* Every economics key, in force, nested as in the file. */
+  {
+    JsonObject *e = json_object_get_object_member (o, "economics");
+    JsonArray *types = json_object_get_array_member (e, "engine_types");
+    JsonArray *on = json_object_get_array_member (json_array_get_object_element (types, 0),
+                                                  "on_stages");
+
+    g_assert_cmpstr (json_object_get_string_member (e, "currency"), ==, "EUR");
+    g_assert_cmpint (json_object_get_int_member (e, "production_run"), ==, 30);
+    check (e, "work_year_cost", 200000.0);
+    check (e, "learning_rate", d->economics.learning_rate);
+    check (json_object_get_object_member (e, "cost_coefficients"), "systems_factor_per_stage",
+           1.04);
+    g_assert_cmpstr (json_object_get_string_member (json_object_get_object_member (e, "recovery"),
+                                                    "mode"), ==, "launch_site");
+    check (json_object_get_object_member (e, "recovery"), "recovery_delta_v_m_s", 2750.0);
+    check (json_object_get_object_member (e, "decision_weights"), "failure", 1.0);
+    g_assert_cmpuint (json_array_get_length (types), ==, 1);
+    g_assert_cmpuint (json_array_get_length (on), ==, 2);
+    g_assert_cmpint (json_array_get_int_element (on, 1), ==, 1);
+    g_assert_cmpuint (json_array_get_length (json_object_get_array_member (e, "developed_stages")),
+                      ==, 0);
+  }
   check (o, "design_liftoff_mass_kg", s.design_liftoff_mass_kg);
   g_assert_cmpint (json_object_get_int_member (o, "best_stage_count"), ==,
                    s.rows[s.best].n_stages);

@@ -41,6 +41,66 @@ add_money (JsonBuilder *b, const SwStaging *s, const char *key, double work_year
   sw_cli_add_number (b, key, s->has_money ? work_years * s->work_year_cost : NAN);
 }
 
+/* The design's economics keys in force (defaults filled in), nested as in
+ * the file: every key of the object is shown. */
+static JsonNode *
+economics_node (const SwEconomics *e)
+{
+  g_autoptr (JsonObject) root = json_object_new ();
+  JsonArray *types = json_array_new (), *developed = json_array_new ();
+
+  for (guint k = 0; k < SW_N_ECON_NUMBERS; k++)
+    {
+      g_auto (GStrv) parts = g_strsplit (sw_economics_number_path (k), ".", 2);
+      JsonObject *o = root;
+      const char *key = parts[0];
+      double v = sw_economics_get_number (e, k);
+
+      if (parts[1] != NULL)
+        {
+          if (!json_object_has_member (root, parts[0]))
+            json_object_set_object_member (root, parts[0], json_object_new ());
+          o = json_object_get_object_member (root, parts[0]);
+          key = parts[1];
+        }
+      if (isfinite (v) && sw_economics_number_is_whole (k))
+        json_object_set_int_member (o, key, (gint64) v);
+      else if (isfinite (v))
+        json_object_set_double_member (o, key, v);
+      else
+        json_object_set_null_member (o, key);
+    }
+  if (e->currency[0] != '\0')
+    json_object_set_string_member (root, "currency", e->currency);
+  else
+    json_object_set_null_member (root, "currency");
+  json_object_set_string_member (json_object_get_object_member (root, "recovery"), "mode",
+                                 sw_recovery_mode_to_string (e->recovery_mode));
+  for (guint i = 0; i < e->n_engine_types; i++)
+    {
+      JsonObject *t = json_object_new ();
+      JsonArray *on = json_array_new ();
+      json_object_set_string_member (t, "name", e->engine_types[i].name);
+      json_object_set_double_member (t, "dry_mass_kg", e->engine_types[i].dry_mass_kg);
+      for (guint k = 0; k < SW_MAX_STAGES; k++)
+        if (e->engine_types[i].stage_mask & (1u << k))
+          json_array_add_int_element (on, k);
+      json_object_set_array_member (t, "on_stages", on);
+      json_object_set_boolean_member (t, "developed", e->engine_types[i].developed);
+      json_array_add_object_element (types, t);
+    }
+  json_object_set_array_member (root, "engine_types", types);
+  for (guint k = 0; k < SW_MAX_STAGES; k++)
+    if (e->developed_stages & (1u << k))
+      json_array_add_int_element (developed, k);
+  json_object_set_array_member (root, "developed_stages", developed);
+  {
+    JsonNode *node = json_node_new (JSON_NODE_OBJECT);
+    json_node_set_object (node, root);
+    return node;
+  }
+}
+
 static void
 stages_json (const SwDesign *d, const SwStaging *s)
 {
@@ -69,6 +129,8 @@ stages_json (const SwDesign *d, const SwStaging *s)
     json_builder_add_null_value (b);
   json_builder_set_member_name (b, "money_note");
   json_builder_add_string_value (b, sw_economics_money_note ());
+  json_builder_set_member_name (b, "economics");
+  json_builder_add_value (b, economics_node (&d->economics));
   json_builder_set_member_name (b, "effort_note");
   json_builder_add_string_value (b, _(EFFORT_NOTE));
   json_builder_set_member_name (b, "fixed_loads_note");
