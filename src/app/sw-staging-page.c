@@ -1279,9 +1279,10 @@ draw_carpet (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointer 
   GdkRGBA fg, bg, line, mark;
   const SwCarpet *c;
   SwPlotAxis xa, ya;
-  double l = 84.0, r = width - 16.0, t = 10.0, b = height - 58.0, lo = INFINITY, hi = -INFINITY;
+  double l = 84.0, r = width - 16.0, t = 10.0, b, lo = INFINITY, hi = -INFINITY;
   double step, mx = NAN, my = NAN;
-  int text_h;
+  int text_h, legend_h = 0;
+  g_autoptr (PangoLayout) legend_layout = NULL;
   g_autofree char *xn = NULL, *yn = NULL;
 
   sw_plot_style_fg (w, &fg);
@@ -1300,6 +1301,19 @@ draw_carpet (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointer 
   c = self->shown->carpet;
   pango_layout_set_text (layout, "0", -1);
   pango_layout_get_pixel_size (layout, NULL, &text_h);
+  /* The key under the axis names, wrapped to the width: its own layout. */
+  legend_layout = gtk_widget_create_pango_layout (w, NULL);
+  {
+    g_autofree char *legend = g_strdup_printf (_("%s; hatched: the vehicle does not close; "
+                                                 "✕: this design"),
+                                               output_words (c->output));
+    pango_layout_set_text (legend_layout, legend, -1);
+    pango_layout_set_width (legend_layout, (int) MAX (40.0, width - 8.0) * PANGO_SCALE);
+    pango_layout_set_wrap (legend_layout, PANGO_WRAP_WORD);
+    pango_layout_set_alignment (legend_layout, PANGO_ALIGN_CENTER);
+    pango_layout_get_pixel_size (legend_layout, NULL, &legend_h);
+  }
+  b = height - legend_h - 2.0 * text_h - 12.0;
   sw_plot_axis_init (&xa);
   sw_plot_axis_set_format (&xa, "%.4g", 1.0);
   xa.fixed_min = c->x.min;
@@ -1403,13 +1417,9 @@ draw_carpet (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointer 
   cairo_rotate (cr, -G_PI / 2);
   show_text (cr, layout, yn, 0, 0, 0.5, 0.0);
   cairo_restore (cr);
-  {
-    g_autofree char *legend = g_strdup_printf (_("%s; hatched: the vehicle does not close; "
-                                                 "✕: this design"),
-                                               output_words (c->output));
-    set_rgba (cr, &fg, 0.8);
-    show_text (cr, layout, legend, (l + r) / 2, height - 2, 0.5, 1.0);
-  }
+  set_rgba (cr, &fg, 0.8);
+  cairo_move_to (cr, 4.0, height - 2.0 - legend_h);
+  pango_cairo_show_layout (cr, legend_layout);
   /* This design, its label on the background. */
   if (isfinite (mx) && mx >= l - 0.5 && mx <= r + 0.5 && my >= t - 0.5 && my <= b + 0.5)
     {
