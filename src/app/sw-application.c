@@ -209,6 +209,10 @@ screenshot_after_paint_cb (GdkFrameClock *clock, SwWindow *window)
 
   if (self->screenshot_frames > 0)
     {
+      /* Scrolled once the page is laid out with its figures (the progress
+       * bar gone), then drawn again. */
+      if (self->screenshot_frames == 2 && g_strcmp0 (self->page, "carpet") == 0)
+        sw_staging_page_scroll_to_carpet (sw_window_get_staging_page (window));
       self->screenshot_frames--;
       gtk_widget_queue_draw (GTK_WIDGET (window));
       return;
@@ -222,9 +226,7 @@ screenshot_after_frames (SwApplication *self, SwWindow *window)
 {
   GdkFrameClock *clock = gtk_widget_get_frame_clock (GTK_WIDGET (window));
 
-  if (g_strcmp0 (self->page, "carpet") == 0)
-    sw_staging_page_scroll_to_carpet (sw_window_get_staging_page (window));
-  self->screenshot_frames = 2;
+  self->screenshot_frames = 3;
   g_signal_connect_object (clock, "after-paint", G_CALLBACK (screenshot_after_paint_cb), window,
                            0);
   gtk_widget_queue_draw (GTK_WIDGET (window));
