@@ -17,6 +17,23 @@ expect (char *got, const char *want)
   g_free (got);
 }
 
+/* Money to three significant figures: never more digits than an estimate
+ * is worth. */
+static void
+test_money (void)
+{
+  setlocale (LC_NUMERIC, "C");
+  expect (sw_format_money (2582952134.0), "2,580,000,000");
+  expect (sw_format_money (34748275.0), "34,700,000");
+  expect (sw_format_money (999.6), "1,000");
+  expect (sw_format_money (123.4), "123");
+  expect (sw_format_money (12.34), "12.3");
+  expect (sw_format_money (0.01234), "0.0123");
+  expect (sw_format_money (0.0), "0");
+  expect (sw_format_money (-4567.0), "\342\210\222" "4,570");
+  expect (sw_format_money (NAN), SW_NO_VALUE);
+}
+
 static void
 test_mass_rule (void)
 {
@@ -104,6 +121,7 @@ main (int argc, char **argv)
 {
   g_test_init (&argc, &argv, NULL);
   g_test_add_func ("/core/format/mass-rule", test_mass_rule);
+  g_test_add_func ("/core/format/money", test_money);
   g_test_add_func ("/core/format/no-signed-zero", test_no_signed_zero);
   g_test_add_func ("/core/format/units", test_units);
   g_test_add_func ("/core/format/german-locale", test_german_locale);

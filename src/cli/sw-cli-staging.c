@@ -252,12 +252,11 @@ stages_table (const SwDesign *d, const SwStaging *s)
   if (s->has_money && s->best >= 0)
     {
       const SwStagingRow *r = &s->rows[s->best];
-      g_autofree char *dev = sw_format_number (r->development_work_years * s->work_year_cost, 0);
-      g_autofree char *cpf = sw_format_number ((s->design_reuses
+      g_autofree char *dev = sw_format_money (r->development_work_years * s->work_year_cost);
+      g_autofree char *cpf = sw_format_money ((s->design_reuses
                                                   ? r->cost_per_flight_reused_work_years
                                                   : r->cost_per_flight_work_years)
-                                                 * s->work_year_cost,
-                                               0);
+                                                 * s->work_year_cost);
       g_autofree char *wy = sw_format_number (s->work_year_cost, 0);
       const char *cur = sw_economics_currency_label (&d->economics);
 

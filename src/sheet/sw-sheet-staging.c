@@ -132,12 +132,11 @@ sw_sheet_draw_staging (cairo_t *cr, const SwDesign *design, double x, double y, 
         const SwStagingRow *r = &s.rows[s.best];
         const char *cur = sw_economics_currency_label (&design->economics);
         g_autofree char *wy = sw_format_number (s.work_year_cost, 0);
-        g_autofree char *dev = sw_format_number (r->development_work_years * s.work_year_cost, 0);
-        g_autofree char *cpf = sw_format_number ((s.design_reuses
+        g_autofree char *dev = sw_format_money (r->development_work_years * s.work_year_cost);
+        g_autofree char *cpf = sw_format_money ((s.design_reuses
                                                     ? r->cost_per_flight_reused_work_years
                                                     : r->cost_per_flight_work_years)
-                                                   * s.work_year_cost,
-                                                 0);
+                                                   * s.work_year_cost);
         money = g_strdup_printf (_("At %s %s per work-year, the best count: development %s %s, "
                                    "per flight %s %s. Never a quote."),
                                  wy, cur, dev, cur, cpf, cur);

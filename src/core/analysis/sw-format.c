@@ -64,6 +64,20 @@ sw_format_number (double value, int decimals)
 }
 
 char *
+sw_format_money (double value)
+{
+  double scale;
+
+  if (!isfinite (value) || value == 0.0)
+    return sw_format_number (value, 0);
+  /* Three significant figures; below 100 the decimals that keep them. */
+  scale = pow (10.0, floor (log10 (fabs (value))) - 2.0);
+  if (scale >= 1.0)
+    return sw_format_number (round (value / scale) * scale, 0);
+  return sw_format_number (value, (int) CLAMP (-floor (log10 (scale) + 0.5), 0, 9));
+}
+
+char *
 sw_format_signed (double value, int decimals)
 {
   g_autofree char *n = NULL;

@@ -25,6 +25,9 @@ G_BEGIN_DECLS
 
 /* A plain number with @decimals decimals and digit grouping: "1,234.5". */
 char       *sw_format_number (double value, int decimals);
+/* An estimate of money to three significant figures, grouped:
+ * 2,582,952,134 -> "2,580,000,000"; never more digits than it is worth. */
+char       *sw_format_money (double value);
 /* The same with "+" or "−" in front (none for a value that rounds to 0). */
 char       *sw_format_signed (double value, int decimals);
 
