@@ -18,7 +18,8 @@
 #define PARAM_LIST "payload_kg, mission.delta_v_m_s, mission.losses_m_s, " \
                    "mission.orbit.inclination_deg, " \
                    "mission.orbit.site_latitude_deg, stages[N].isp_vac_s, " \
-                   "stages[N].structural_coefficient, economics.production_run, " \
+                   "stages[N].structural_coefficient, stages[N].propellant_kg (a fixed " \
+                   "load), economics.production_run, " \
                    "economics.learning_rate, economics.engine_mass_fraction, " \
                    "economics.cost_coefficients.KEY"
 
@@ -98,7 +99,8 @@ sw_carpet_param_parse (const char *text, const SwDesign *design, SwCarpetAxis *a
     }
   else if (sscanf (text, "stages[%u].%63[a-z_]%n", &stage, key, &consumed) == 2
            && text[consumed] == '\0'
-           && (strcmp (key, "isp_vac_s") == 0 || strcmp (key, "structural_coefficient") == 0))
+           && (strcmp (key, "isp_vac_s") == 0 || strcmp (key, "structural_coefficient") == 0
+               || strcmp (key, "propellant_kg") == 0))
     {
       if (stage >= design->n_stages)
         {
@@ -109,7 +111,16 @@ sw_carpet_param_parse (const char *text, const SwDesign *design, SwCarpetAxis *a
         }
       axis->stage = stage;
       axis->kind = strcmp (key, "isp_vac_s") == 0 ? SW_CARPET_PARAM_ISP_VAC
-                                                  : SW_CARPET_PARAM_STRUCTURAL_COEFFICIENT;
+                   : strcmp (key, "propellant_kg") == 0 ? SW_CARPET_PARAM_PROPELLANT_LOAD
+                                                        : SW_CARPET_PARAM_STRUCTURAL_COEFFICIENT;
+      if (axis->kind == SW_CARPET_PARAM_PROPELLANT_LOAD
+          && !design->stages[stage].propellant.has_propellant_kg)
+        {
+          g_set_error (error, SW_ERROR, SW_ERROR_USAGE,
+                       _("%s: the stage is sized, it has no fixed propellant load to vary"),
+                       text);
+          return FALSE;
+        }
     }
   else
     {
@@ -195,6 +206,8 @@ sw_carpet_param_dup_name (const SwCarpetAxis *axis)
       return g_strdup_printf ("economics.%s", sw_economics_number_path (axis->econ));
     case SW_CARPET_PARAM_ISP_VAC:
       return g_strdup_printf ("stages[%u].isp_vac_s", axis->stage);
+    case SW_CARPET_PARAM_PROPELLANT_LOAD:
+      return g_strdup_printf ("stages[%u].propellant_kg", axis->stage);
     case SW_CARPET_PARAM_STRUCTURAL_COEFFICIENT:
     default:
       return g_strdup_printf ("stages[%u].structural_coefficient", axis->stage);
@@ -223,6 +236,8 @@ sw_carpet_param_dup_label (const SwCarpetAxis *axis)
       }
     case SW_CARPET_PARAM_ISP_VAC:
       return g_strdup_printf (_("Vacuum Isp, stage %u"), axis->stage + 1);
+    case SW_CARPET_PARAM_PROPELLANT_LOAD:
+      return g_strdup_printf (_("Fixed propellant load, stage %u"), axis->stage + 1);
     case SW_CARPET_PARAM_STRUCTURAL_COEFFICIENT:
     default:
       return g_strdup_printf (_("Structural coefficient, stage %u"), axis->stage + 1);
@@ -265,6 +280,8 @@ sw_carpet_param_limit (const SwCarpetAxis *axis)
       return SW_LIMIT_SITE_LATITUDE;
     case SW_CARPET_PARAM_ECONOMICS:
       return sw_economics_number_limit (axis->econ);
+    case SW_CARPET_PARAM_PROPELLANT_LOAD:
+      return SW_LIMIT_PROPELLANT_LOAD;
     case SW_CARPET_PARAM_PAYLOAD:
       return SW_LIMIT_PAYLOAD;
     case SW_CARPET_PARAM_DELTA_V:
@@ -344,7 +361,8 @@ sw_carpet_param_equal (const SwCarpetAxis *a, const SwCarpetAxis *b)
 {
   if (a->kind != b->kind)
     return FALSE;
-  if (a->kind == SW_CARPET_PARAM_ISP_VAC || a->kind == SW_CARPET_PARAM_STRUCTURAL_COEFFICIENT)
+  if (a->kind == SW_CARPET_PARAM_ISP_VAC || a->kind == SW_CARPET_PARAM_STRUCTURAL_COEFFICIENT
+      || a->kind == SW_CARPET_PARAM_PROPELLANT_LOAD)
     return a->stage == b->stage;
   if (a->kind == SW_CARPET_PARAM_ECONOMICS)
     return a->econ == b->econ;
@@ -385,6 +403,8 @@ sw_carpet_list_params (const SwDesign *design, SwCarpetOutput output, SwCarpetAx
     {
       ADD (SW_CARPET_PARAM_STRUCTURAL_COEFFICIENT, i, 0);
       ADD (SW_CARPET_PARAM_ISP_VAC, i, 0);
+      if (design->stages[i].propellant.has_propellant_kg)
+        ADD (SW_CARPET_PARAM_PROPELLANT_LOAD, i, 0);
     }
   ADD (SW_CARPET_PARAM_PAYLOAD, 0, 0);
   if (design->mission.kind == SW_MISSION_DELTA_V)
@@ -479,6 +499,8 @@ sw_carpet_design_value (const SwCarpetAxis *axis, const SwDesign *design)
       return design->mission.site_latitude_deg;
     case SW_CARPET_PARAM_ECONOMICS:
       return sw_economics_get_number (&design->economics, axis->econ);
+    case SW_CARPET_PARAM_PROPELLANT_LOAD:
+      return design->stages[axis->stage].propellant.propellant_kg;
     case SW_CARPET_PARAM_ISP_VAC:
       return design->stages[axis->stage].isp_vac_s;
     case SW_CARPET_PARAM_STRUCTURAL_COEFFICIENT:
@@ -510,6 +532,10 @@ sw_carpet_apply (const SwCarpetAxis *axis, SwDesign *design, double value)
       break;
     case SW_CARPET_PARAM_ECONOMICS:
       sw_economics_set_number (&design->economics, axis->econ, value);
+      break;
+    case SW_CARPET_PARAM_PROPELLANT_LOAD:
+      design->stages[axis->stage].propellant.propellant_kg = value;
+      design->stages[axis->stage].propellant.has_propellant_kg = TRUE;
       break;
     case SW_CARPET_PARAM_ISP_VAC:
       design->stages[axis->stage].isp_vac_s = value;
@@ -592,6 +618,9 @@ point_apply (const SwCarpetAxis *axis, Point *p, double value, double dv_without
       break;
     case SW_CARPET_PARAM_ECONOMICS:
       sw_economics_set_number (&p->economics, axis->econ, value);
+      break;
+    case SW_CARPET_PARAM_PROPELLANT_LOAD:
+      p->fixed_kg[axis->stage] = value;
       break;
     case SW_CARPET_PARAM_ISP_VAC:
       p->set.exhaust_velocity_m_s[axis->stage] = value * SW_G0;

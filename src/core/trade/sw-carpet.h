@@ -36,6 +36,7 @@ typedef enum {
   SW_CARPET_PARAM_INCLINATION,        /* mission.orbit.inclination_deg (orbit missions) */
   SW_CARPET_PARAM_SITE_LATITUDE,      /* mission.orbit.site_latitude_deg */
   SW_CARPET_PARAM_ECONOMICS,          /* economics.<key> (cost outputs only) */
+  SW_CARPET_PARAM_PROPELLANT_LOAD,    /* stages[i].propellant_kg (a stage with a fixed load) */
 } SwCarpetParamKind;
 
 typedef struct {
