@@ -1404,7 +1404,13 @@ draw_carpet (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointer 
       cairo_line_to (cr, tx, b + 3);
       cairo_stroke (cr);
       if (tk->labelled && tk->text != NULL)
-        show_text (cr, layout, tk->text, tx, b + 3, 0.5, 0.0);
+        {
+          /* The last label kept inside the drawing. */
+          int tw;
+          pango_layout_set_text (layout, tk->text, -1);
+          pango_layout_get_pixel_size (layout, &tw, NULL);
+          show_text (cr, layout, tk->text, MIN (tx, width - 2.0 - tw / 2.0), b + 3, 0.5, 0.0);
+        }
     }
   for (guint k = 0; k < ya.ticks->len; k++)
     {
@@ -1542,6 +1548,8 @@ sw_staging_page_init (SwStagingPage *self)
 
   self->carpet_title = gtk_label_new (_("Carpet plot: liftoff mass, contour lines"));
   gtk_label_set_xalign (GTK_LABEL (self->carpet_title), 0.0);
+  /* Wrapped: the longest title must not widen the window. */
+  gtk_label_set_wrap (GTK_LABEL (self->carpet_title), TRUE);
   gtk_widget_add_css_class (self->carpet_title, "heading");
   gtk_box_append (GTK_BOX (self->box), self->carpet_title);
   {
