@@ -194,6 +194,7 @@ typedef struct {
   double              kick;        /* rad */
   double              tan_s;       /* linear tangent: tan(pitch) at the start ... */
   double              tan_e;       /* ... and at the nominal end */
+  double              psi_s;       /* atan (tan_s), set by sw_flight_run */
   /* The optimised steering's knots: tan(pitch) of the linear-tangent law
    * plus a piecewise-linear bump, knot_dtan[k] at knot_tau[k] (fractions of
    * the nominal guided time, increasing, inside (0, 1)); 0 knots: the
@@ -216,6 +217,11 @@ typedef struct {
   gsl_odeiv2_step    *step_lean;
   gsl_odeiv2_control *ctl_lean;
   gsl_odeiv2_evolve  *evo_lean;
+  /* A solver's search (sw_flight_set_coarse): the lean flights with GSL's
+   * Cash-Karp 4(5) stepper, cheaper per step than the 8(9) one; its
+   * error at the search's tolerance is a smooth bias, not noise. */
+  gboolean            coarse;
+  gsl_odeiv2_step    *step_coarse;
   gsl_root_fsolver   *root;
   GArray             *samples;
   guint               n_runs;      /* trajectories flown */
@@ -234,6 +240,8 @@ void          sw_flight_init (SwFlightSim *s, const SwFlightModel *m);
 void          sw_flight_clear (SwFlightSim *s);
 /* Relative tolerance of the integrator (both the full and the lean one). */
 void          sw_flight_set_rtol (SwFlightSim *s, double rtol);
+/* Lean flights with the search's stepper (see SwFlightSim.coarse). */
+void          sw_flight_set_coarse (SwFlightSim *s, gboolean coarse);
 /* Lean flights leave the loss integrals (y[SW_NY_LEAN..]) untouched. */
 void          sw_flight_set_lean (SwFlightSim *s, gboolean lean);
 void          sw_flight_start (SwFlightSim *s, double r, double vr, double vt, double mass,

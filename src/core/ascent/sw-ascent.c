@@ -33,8 +33,9 @@
  * is reserved, see sw-ascent.h).  The Earth is a sphere of the WGS 84
  * equatorial radius, as in the budget.  GSL's adaptive Runge-Kutta-Prince-
  * Dormand 8(9) integrates from event to event; an event (pitch-over, fairing
- * drop, cutoff, impact, max-Q) is located inside the step that crosses it by
- * Brent's method on the state re-integrated from the step's start. */
+ * drop, cutoff, impact, max-Q) is located inside the step that crosses it on
+ * the state re-integrated from the step's start: aimed at with the step's
+ * Hermite interpolant, bracketed by Newton steps, Brent's method if need be. */
 
 
 #define KICK_RAMP_S 4.0              /* the thrust tilts to the kick angle over 4 s */
@@ -84,6 +85,14 @@ static const SwFlightSegment *
 current_segment (const SwFlightSim *s)
 {
   return &s->m->seg[MIN (s->f.seg, s->m->n_seg - 1)];
+}
+
+/* The stepper of the lean flights: Cash-Karp 4(5) for a solver's search,
+ * Prince-Dormand 8(9) otherwise. */
+static gsl_odeiv2_step *
+lean_step (const SwFlightSim *s)
+{
+  return s->coarse ? s->step_coarse : s->step_lean;
 }
 
 static void
@@ -200,7 +209,7 @@ derive (const SwFlightSim *s, double t, const double *y, Derived *d)
               tp += s->knot_dtan[k] * (tau <= c ? (tau - a) / (c - a) : (b - tau) / (b - c));
           }
         double dt = t - s->f.t_guide;
-        double off = dt < s->f.blend_s ? s->f.psi_stage - atan (s->tan_s) : 0.0;
+        double off = dt < s->f.blend_s ? s->f.psi_stage - s->psi_s : 0.0;
         gboolean blend = fabs (off) > m->pitch_rate * dt;
         gboolean limit = m->q_alpha_max > 0.0 && d->q > 0.0 && d->v_rel > 1e-6
                          && m->q_alpha_max / d->q < G_PI;
@@ -455,6 +464,7 @@ typedef struct {
   const double *y0;
   double y[SW_NY];
   double yerr[SW_NY];
+  const double *f0;                /* the derivatives at t0 (may be NULL) */
 } Locate;
 
 static void
@@ -462,8 +472,8 @@ state_after (Locate *l, double tau)
 {
   memcpy (l->y, l->y0, sizeof l->y);
   if (tau > 0.0)
-    gsl_odeiv2_step_apply (l->s->lean ? l->s->step_lean : l->s->step, l->t0, tau, l->y,
-                           l->yerr, NULL, NULL, &l->s->sys);
+    gsl_odeiv2_step_apply (l->s->lean ? lean_step (l->s) : l->s->step, l->t0, tau, l->y,
+                           l->yerr, l->f0, NULL, &l->s->sys);
 }
 
 static double
@@ -475,34 +485,156 @@ locate_fn (double tau, void *data)
   return event_value (l->s, l->e, l->t0 + tau, l->y);
 }
 
-/* The time after t0 at which event @e happens, within (0, dt]: the upper end
- * of Brent's bracket, so the event has just happened there. */
-static double
-locate (SwFlightSim *s, EventId e, double t0, const double *y0, double dt)
-{
-  Locate l = { s, e, t0, y0 };
-  gsl_function fn = { locate_fn, &l };
-  double g0 = event_value (s, e, t0, y0);
-  double g1 = locate_fn (dt, &l);
-  double lo = 0.0, hi = dt;
+/* The step's cubic Hermite interpolant (the states and derivatives at both
+ * ends): a cheap stand-in for the state inside the step, used only to aim
+ * the integrator's own steps at the event. */
+typedef struct {
+  const SwFlightSim *s;
+  EventId e;
+  double t0;
+  double dt;
+  const double *y0;
+  const double *y1;
+  double f0[SW_NY];
+  double f1[SW_NY];
+  double y[SW_NY];
+} Hermite;
 
+static double
+hermite_fn (double tau, void *data)
+{
+  Hermite *hm = data;
+  double u = tau / hm->dt, v = 1.0 - u;
+  double a = (1.0 + 2.0 * u) * v * v, b = u * v * v * hm->dt;
+  double c = u * u * (3.0 - 2.0 * u), d = -u * u * v * hm->dt;
+
+  for (int i = 0; i < SW_NY_LEAN; i++)
+    hm->y[i] = a * hm->y0[i] + b * hm->f0[i] + c * hm->y1[i] + d * hm->f1[i];
+  for (int i = SW_NY_LEAN; i < SW_NY; i++)
+    hm->y[i] = hm->y0[i];
+  return event_value (hm->s, hm->e, hm->t0 + tau, hm->y);
+}
+
+/* The event's rate of change along the flight at (t, y): central
+ * differences over +-d s along the state's derivative there. */
+static double
+event_slope (SwFlightSim *s, EventId e, double t, const double *y, double d)
+{
+  double f[SW_NY], yp[SW_NY], ym[SW_NY];
+
+  if (rhs (t, y, f, s) != GSL_SUCCESS)
+    return NAN;
+  for (int i = 0; i < SW_NY; i++)
+    {
+      double fi = i < (int) s->sys.dimension ? f[i] : 0.0;
+      yp[i] = y[i] + d * fi;
+      ym[i] = y[i] - d * fi;
+    }
+  return (event_value (s, e, t + d, yp) - event_value (s, e, t - d, ym)) / (2.0 * d);
+}
+
+/* The time after t0 at which event @e happens, within (0, dt]: the upper end
+ * of a bracket no wider than the tolerance, so the event has just happened
+ * there; @y_hi gets the state there.  @y1 is the state at t0 + dt (the step
+ * the integrator took), @g0 and @g1 the event's values at both ends.
+ *
+ * The root is aimed at on the step's Hermite interpolant, then found with
+ * the integrator's own steps from t0: Newton steps (the event's slope from
+ * the derivatives at the state reached), each aimed 0.3 of the tolerance past the root, until a state past
+ * the event lies within the tolerance of the root by its own Newton step
+ * (usually the first); Brent's method on the integrator's steps, in the
+ * bracket found so far, if that does not happen in a few steps. */
+static double
+locate (SwFlightSim *s, EventId e, double t0, const double *y0, const double *y1, double dt,
+        double g0, double g1, double *y_hi)
+{
+  /* 0.1 us for the flight reported; 10 us for a solver's trial (8 cm along
+   * the path at orbital speed, against its 10 m tolerance). */
+  const double tol = s->lean ? 1e-5 : 1e-7;
+  Hermite hm = { s, e, t0, dt, y0, y1 };
+  Locate l = { s, e, t0, y0 };
+  double lo = 0.0, hi = dt, x;
+
+  memcpy (y_hi, y1, sizeof (double) * SW_NY);
   if (!crossed (s, e, g0, g1))
     return dt;
-  gsl_root_fsolver_set (s->root, &fn, 0.0, dt);
-  for (int i = 0; i < 80; i++)
+  if (rhs (t0, y0, hm.f0, s) != GSL_SUCCESS || rhs (t0 + dt, y1, hm.f1, s) != GSL_SUCCESS)
+    goto brent;
+  l.f0 = hm.f0;
+
+  /* The root of the interpolant (its ends are the step's own states). */
+  {
+    gsl_function fn = { hermite_fn, &hm };
+    double a = 0.0, b = dt;
+
+    if (gsl_root_fsolver_set (s->root, &fn, 0.0, dt) != GSL_SUCCESS)
+      goto brent;
+    for (int i = 0; i < 60; i++)
+      {
+        if (gsl_root_fsolver_iterate (s->root) != GSL_SUCCESS)
+          goto brent;
+        a = gsl_root_fsolver_x_lower (s->root);
+        b = gsl_root_fsolver_x_upper (s->root);
+        if (gsl_root_test_interval (a, b, 0.01 * tol, 0.0) == GSL_SUCCESS)
+          break;
+      }
+    x = 0.5 * (a + b);
+  }
+
+  /* Newton steps on the integrator's own states, each aimed 0.3 of the
+   * tolerance past the root: done at a state past the event whose own
+   * Newton step back to the root is shorter than the tolerance. */
+  x += 0.3 * tol;
+  for (int i = 0; i < 5 && hi - lo > tol; i++)
     {
-      gsl_root_fsolver_iterate (s->root);
-      lo = gsl_root_fsolver_x_lower (s->root);
-      hi = gsl_root_fsolver_x_upper (s->root);
-      /* 0.1 us for the flight reported; 10 us for a solver's trial (8 cm
-       * along the path at orbital speed, against its 10 m tolerance). */
-      if (gsl_root_test_interval (lo, hi, s->lean ? 1e-5 : 1e-7, 0.0) == GSL_SUCCESS)
-        break;
+      double gx, slope, back, d = MIN (1e-3, 0.25 * (hi - lo));
+
+      if (!(x > lo && x < hi))
+        x = 0.5 * (lo + hi);
+      gx = locate_fn (x, &l);
+      if (!isfinite (gx))
+        goto brent;
+      slope = event_slope (s, e, t0 + x, l.y, d);
+      back = gx / slope;
+      if (crossed (s, e, g0, gx))
+        {
+          hi = x;
+          memcpy (y_hi, l.y, sizeof l.y);
+          if (isfinite (back) && back >= 0.0 && back < tol)
+            return hi;
+        }
+      else
+        lo = x;
+      x = x - back + 0.3 * tol;
     }
-  /* Make sure the state at hi is past the event. */
-  if (!crossed (s, e, g0, locate_fn (hi, &l)))
-    hi = dt;
-  return hi;
+  if (hi - lo <= tol)
+    return hi;
+
+brent:
+  /* Brent's method on the integrator's steps, within what is known. */
+  {
+    gsl_function fn = { locate_fn, &l };
+
+    if (gsl_root_fsolver_set (s->root, &fn, lo, hi) != GSL_SUCCESS)
+      return hi;
+    for (int i = 0; i < 80; i++)
+      {
+        gsl_root_fsolver_iterate (s->root);
+        lo = gsl_root_fsolver_x_lower (s->root);
+        hi = gsl_root_fsolver_x_upper (s->root);
+        if (gsl_root_test_interval (lo, hi, tol, 0.0) == GSL_SUCCESS)
+          break;
+      }
+    /* Make sure the state at hi is past the event. */
+    if (crossed (s, e, g0, locate_fn (hi, &l)))
+      memcpy (y_hi, l.y, sizeof l.y);
+    else
+      {
+        hi = dt;
+        memcpy (y_hi, y1, sizeof (double) * SW_NY);
+      }
+    return hi;
+  }
 }
 
 /* ---- flying ------------------------------------------------------------ */
@@ -511,7 +643,7 @@ static void
 reset_integrator (SwFlightSim *s)
 {
   gsl_odeiv2_evolve_reset (s->lean ? s->evo_lean : s->evo);
-  gsl_odeiv2_step_reset (s->lean ? s->step_lean : s->step);
+  gsl_odeiv2_step_reset (s->lean ? lean_step (s) : s->step);
 }
 
 static void
@@ -597,7 +729,7 @@ advance (SwFlightSim *s, double t_end, gboolean *failed)
 
   while (s->f.t < t_end)
     {
-      double t0 = s->f.t, y0[SW_NY], h = s->f.h;
+      double t0 = s->f.t, y0[SW_NY], y_best[SW_NY], h = s->f.h;
       Derived dnow;
       EventId best = EV_NONE;
       double best_tau = G_MAXDOUBLE;
@@ -607,7 +739,7 @@ advance (SwFlightSim *s, double t_end, gboolean *failed)
       if (s->record)
         h = MIN (h, s->m->opt.sample_interval_s);
       status = s->lean
-                 ? gsl_odeiv2_evolve_apply (s->evo_lean, s->ctl_lean, s->step_lean, &s->sys,
+                 ? gsl_odeiv2_evolve_apply (s->evo_lean, s->ctl_lean, lean_step (s), &s->sys,
                                             &s->f.t, t_end, &h, s->f.y)
                  : gsl_odeiv2_evolve_apply (s->evo, s->ctl, s->step, &s->sys, &s->f.t, t_end, &h,
                                         s->f.y);
@@ -629,21 +761,21 @@ advance (SwFlightSim *s, double t_end, gboolean *failed)
           g1 = event_value_at (s, e, s->f.t, s->f.y, &dnow);
           if (crossed (s, e, g_prev[e], g1))
             {
-              double tau = locate (s, e, t0, y0, s->f.t - t0);
+              double y_at[SW_NY];
+              double tau = locate (s, e, t0, y0, s->f.y, s->f.t - t0, g_prev[e], g1, y_at);
               if (tau < best_tau)
                 {
                   best_tau = tau;
                   best = e;
+                  memcpy (y_best, y_at, sizeof y_best);
                 }
             }
           g_prev[e] = g1;
         }
       if (best != EV_NONE)
         {
-          Locate l = { s, best, t0, y0 };
-          state_after (&l, best_tau);
           s->f.t = t0 + best_tau;
-          memcpy (s->f.y, l.y, sizeof l.y);
+          memcpy (s->f.y, y_best, sizeof y_best);
           reset_integrator (s);
           track (s);
           return best;
@@ -760,6 +892,7 @@ sw_flight_run (SwFlightSim *s)
   const SwFlightModel *m = s->m;
 
   s->n_runs++;
+  s->psi_s = atan (s->tan_s);
   reset_integrator (s);
   for (;;)
     {
@@ -871,6 +1004,7 @@ sw_flight_init (SwFlightSim *s, const SwFlightModel *m)
   }
   s->evo = gsl_odeiv2_evolve_alloc (SW_NY);
   s->step_lean = gsl_odeiv2_step_alloc (gsl_odeiv2_step_rk8pd, SW_NY_LEAN);
+  s->step_coarse = gsl_odeiv2_step_alloc (gsl_odeiv2_step_rkck, SW_NY_LEAN);
   s->ctl_lean = gsl_odeiv2_control_standard_new (1e-6, m->opt.rtol, 1.0, 0.0);
   s->evo_lean = gsl_odeiv2_evolve_alloc (SW_NY_LEAN);
   s->root = gsl_root_fsolver_alloc (gsl_root_fsolver_brent);
@@ -882,6 +1016,12 @@ sw_flight_set_rtol (SwFlightSim *s, double rtol)
 {
   gsl_odeiv2_control_init (s->ctl, 1e-6, rtol, 1.0, 0.0);
   gsl_odeiv2_control_init (s->ctl_lean, 1e-6, rtol, 1.0, 0.0);
+}
+
+void
+sw_flight_set_coarse (SwFlightSim *s, gboolean coarse)
+{
+  s->coarse = coarse;
 }
 
 void
@@ -898,6 +1038,7 @@ sw_flight_clear (SwFlightSim *s)
   g_clear_pointer (&s->ctl, gsl_odeiv2_control_free);
   g_clear_pointer (&s->evo, gsl_odeiv2_evolve_free);
   g_clear_pointer (&s->step_lean, gsl_odeiv2_step_free);
+  g_clear_pointer (&s->step_coarse, gsl_odeiv2_step_free);
   g_clear_pointer (&s->ctl_lean, gsl_odeiv2_control_free);
   g_clear_pointer (&s->evo_lean, gsl_odeiv2_evolve_free);
   g_clear_pointer (&s->root, gsl_root_fsolver_free);

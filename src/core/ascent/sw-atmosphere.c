@@ -73,12 +73,14 @@ static const double upper_rho[] = {
 };
 #define N_UPPER G_N_ELEMENTS (upper_z_km)
 
+/* ln p and ln rho between the knots: GSL's Steffen interpolant, kept as the
+ * cubic of each interval (its Hermite form, with the slopes at the knots
+ * that GSL's interpolation gives), so the hot path evaluates it without
+ * GSL's search and calls. */
 typedef struct {
-  gsl_interp *ln_p;
-  gsl_interp *ln_rho;
   double z[N_UPPER];
-  double lp[N_UPPER];
-  double lr[N_UPPER];
+  double lp[N_UPPER - 1][4];     /* d + x (c + x (b + x a)), x = z - z[i] */
+  double lr[N_UPPER - 1][4];
 } Upper;
 
 double
@@ -103,6 +105,27 @@ layered (double z, double *t_m, double *p)
     *p = layers[i].p * exp (-GMR * (h - layers[i].h) / layers[i].t);
 }
 
+static void
+steffen_cubics (const double *z, const double *y, double (*out)[4])
+{
+  gsl_interp *it = gsl_interp_alloc (gsl_interp_steffen, N_UPPER);
+  double yp[N_UPPER];
+
+  gsl_interp_init (it, z, y, N_UPPER);
+  for (guint i = 0; i < N_UPPER; i++)
+    yp[i] = gsl_interp_eval_deriv (it, z, y, z[i], NULL);
+  for (guint i = 0; i + 1 < N_UPPER; i++)
+    {
+      double h = z[i + 1] - z[i], slope = (y[i + 1] - y[i]) / h;
+
+      out[i][0] = (yp[i] + yp[i + 1] - 2.0 * slope) / h / h;
+      out[i][1] = (3.0 * slope - 2.0 * yp[i] - yp[i + 1]) / h;
+      out[i][2] = yp[i];
+      out[i][3] = y[i];
+    }
+  gsl_interp_free (it);
+}
+
 static const Upper *
 upper_table (void)
 {
@@ -111,22 +134,35 @@ upper_table (void)
 
   if (g_once_init_enter (&init))
     {
-      double t_m, p;
+      double t_m, p, lp[N_UPPER], lr[N_UPPER];
 
       layered (SW_ATMOSPHERE_LAYERED_TOP_M, &t_m, &p);
       for (guint i = 0; i < N_UPPER; i++)
         {
           upper.z[i] = upper_z_km[i];
-          upper.lp[i] = log (i == 0 ? p : upper_p[i]);
-          upper.lr[i] = log (i == 0 ? p * M0 / (R_STAR * t_m) : upper_rho[i]);
+          lp[i] = log (i == 0 ? p : upper_p[i]);
+          lr[i] = log (i == 0 ? p * M0 / (R_STAR * t_m) : upper_rho[i]);
         }
-      upper.ln_p = gsl_interp_alloc (gsl_interp_steffen, N_UPPER);
-      upper.ln_rho = gsl_interp_alloc (gsl_interp_steffen, N_UPPER);
-      gsl_interp_init (upper.ln_p, upper.z, upper.lp, N_UPPER);
-      gsl_interp_init (upper.ln_rho, upper.z, upper.lr, N_UPPER);
+      steffen_cubics (upper.z, lp, upper.lp);
+      steffen_cubics (upper.z, lr, upper.lr);
       g_once_init_leave (&init, 1);
     }
   return &upper;
+}
+
+/* Pressure and density from 86 to 1000 km. */
+static void
+upper_at (double z_km, double *p, double *rho)
+{
+  const Upper *u = upper_table ();
+  guint i = 0;
+  double x;
+
+  while (i + 2 < N_UPPER && z_km >= u->z[i + 1])
+    i++;
+  x = z_km - u->z[i];
+  *p = exp (u->lp[i][3] + x * (u->lp[i][2] + x * (u->lp[i][1] + x * u->lp[i][0])));
+  *rho = exp (u->lr[i][3] + x * (u->lr[i][2] + x * (u->lr[i][1] + x * u->lr[i][0])));
 }
 
 /* The standard's kinetic temperature above 86 km (closed forms; from memory). */
@@ -189,10 +225,10 @@ sw_atmosphere_at (double altitude_m, SwAtmosphere *out)
     }
   else
     {
-      const Upper *u = upper_table ();
       double z_km = MIN (z, SW_ATMOSPHERE_MAX_ALTITUDE_M) / 1000.0;
-      double p = exp (gsl_interp_eval (u->ln_p, u->z, u->lp, z_km, NULL));
-      double rho = exp (gsl_interp_eval (u->ln_rho, u->z, u->lr, z_km, NULL));
+      double p, rho;
+
+      upper_at (z_km, &p, &rho);
 
       out->temperature_k = upper_temperature (z_km);
       out->speed_of_sound_m_s = sqrt (GAMMA * p / rho);
@@ -227,10 +263,9 @@ sw_atmosphere_flight (double altitude_m, double *pressure_pa, double *density_kg
           return;
         }
       {
-        const Upper *u = upper_table ();
-        double z_km = z / 1000.0;
-        double p = exp (gsl_interp_eval (u->ln_p, u->z, u->lp, z_km, NULL));
-        double rho = exp (gsl_interp_eval (u->ln_rho, u->z, u->lr, z_km, NULL));
+        double p, rho;
+
+        upper_at (z / 1000.0, &p, &rho);
 
         *pressure_pa = p;
         *density_kg_m3 = rho;

@@ -22,7 +22,7 @@
 #include <string.h>
 
 #define PSI_LIMIT (80.0 * SW_DEG)
-#define SEARCH_RTOL 1e-5
+#define SEARCH_RTOL 1e-6
 #define JACOBIAN_STEP 2e-4           /* rad */
 
 /* ---- guidance ---------------------------------------------------------- */
@@ -735,12 +735,16 @@ sw_ascent_solve_sized (const SwDesign *design, const SwSizing *sizing,
        * tolerance asked for. */
       sv->tol = 1e-3;
       if (SEARCH_RTOL > opt.rtol)
-        sw_flight_set_rtol (s, SEARCH_RTOL);
+        {
+          sw_flight_set_rtol (s, SEARCH_RTOL);
+          sw_flight_set_coarse (s, TRUE);
+        }
       ok = optimise_kick (sv, start, !warm, &kick, &at_edge) && !sv->cancelled;
       /* A warm start that found nothing: the full search from the grid. */
       if (!ok && warm && !sv->cancelled)
         ok = optimise_kick (sv, start, TRUE, &kick, &at_edge) && !sv->cancelled;
       sv->tol = 1e-4;
+      sw_flight_set_coarse (s, FALSE);
       sw_flight_set_rtol (s, sv->model.opt.rtol);
       if (ok)
         ok = solve_for_kick (sv, kick);
