@@ -39,12 +39,15 @@ typedef struct {
   const SwDesign *design;
   SwDesign       *work;
   const SwAscentOptions *options;
+  SwAscentOptions pass_options; /* the passes fly unrecorded */
+  gboolean        record;       /* the caller wants the time series */
   SwAscentHints   hints;
   GCancellable   *cancellable;
   GError        **error;
   SwAscentResult *res;          /* the result of the pass nearest to F = 0 */
   double          res_L;        /* the losses it was sized with */
   double          res_F;
+  guint           res_i;        /* its pass */
   double          history[SW_ASCENT_LOOP_MAX];
   double          F[SW_ASCENT_LOOP_MAX];         /* F at history[i], NAN if failed */
   double          mass[SW_ASCENT_LOOP_MAX];
@@ -103,7 +106,7 @@ pass (Loop *lp, double L)
   lp->mass[lp->n] = sizing.liftoff_mass_kg;
   lp->n++;
 
-  r = sw_ascent_solve_sized (lp->work, &sizing, lp->options, &lp->hints, lp->cancellable,
+  r = sw_ascent_solve_sized (lp->work, &sizing, &lp->pass_options, &lp->hints, lp->cancellable,
                              lp->error);
   if (r == NULL)
     {
@@ -124,6 +127,7 @@ pass (Loop *lp, double L)
           lp->res = r;
           lp->res_L = L;
           lp->res_F = NAN;
+          lp->res_i = lp->n - 1;
         }
       else
         sw_ascent_result_free (r);
@@ -140,10 +144,56 @@ pass (Loop *lp, double L)
       lp->res = r;
       lp->res_L = L;
       lp->res_F = F;
+      lp->res_i = lp->n - 1;
     }
   else
     sw_ascent_result_free (r);
   return F;
+}
+
+/* The passes fly without the time series (whose 1 s samples hold the
+ * integrator to 1 s steps); the pass the loop answers with is flown again,
+ * recorded: the same sizing, pitch kick and steering, so the same flight.
+ * FALSE on error or cancellation. */
+static gboolean
+record_answer (Loop *lp)
+{
+  SwAscentResult *r = lp->res, *again;
+  SwAscentHints hints = { 0 };
+  SwAscentOptions opt;
+
+  if (!lp->record || r == NULL
+      || (r->status != SW_ASCENT_REACHED && r->status != SW_ASCENT_SHORT))
+    return TRUE;
+  if (lp->options != NULL)
+    opt = *lp->options;
+  else
+    sw_ascent_options_init (&opt);
+  lp->work->mission.losses_m_s = lp->history[lp->res_i];
+  lp->work->mission.has_losses = TRUE;
+  lp->work->ascent.has_flown_fairing = TRUE;
+  lp->work->ascent.flown_fairing_stage = lp->fairing_stage[lp->res_i];
+  lp->work->ascent.flown_fairing_fraction = lp->fairing_fraction[lp->res_i];
+  hints.have_kick = hints.hold_kick = !lp->work->ascent.has_pitch_kick;
+  hints.kick_rad = r->pitch_kick_deg * G_PI / 180.0;
+  hints.have_psi = TRUE;
+  hints.psi[0] = r->steering_start_deg * G_PI / 180.0;
+  hints.psi[1] = r->steering_end_deg * G_PI / 180.0;
+  again = sw_ascent_solve_sized (lp->work, &r->sizing, &opt, &hints, lp->cancellable, lp->error);
+  if (again == NULL)
+    return FALSE;
+  if (again->status != SW_ASCENT_REACHED && again->status != SW_ASCENT_SHORT)
+    {
+      /* Should not happen: keep the unrecorded answer. */
+      sw_ascent_result_free (again);
+      return TRUE;
+    }
+  again->pitch_kick_solved = r->pitch_kick_solved;
+  again->guidance_iterations = r->guidance_iterations + again->guidance_iterations;
+  g_strlcpy (again->notes, r->notes, sizeof again->notes);
+  sw_ascent_result_free (r);
+  lp->res = again;
+  return TRUE;
 }
 
 static double
@@ -180,6 +230,12 @@ sw_ascent_close_loop (const SwDesign *design, const SwAscentOptions *options,
   lp.options = options;
   lp.cancellable = cancellable;
   lp.error = error;
+  if (options != NULL)
+    lp.pass_options = *options;
+  else
+    sw_ascent_options_init (&lp.pass_options);
+  lp.record = lp.pass_options.record;
+  lp.pass_options.record = FALSE;
 
   L0 = design->mission.has_losses ? design->mission.losses_m_s : SW_ASCENT_FIRST_GUESS_LOSSES;
   L0 = CLAMP (L0, 0.0, L_max);
@@ -472,6 +528,8 @@ done:
       lp.res_F = NAN;
       goto restart;
     }
+  if (!record_answer (&lp))
+    goto aborted;
   if (lp.res == NULL)
     {
       /* No pass at all (should not happen): report the failure plainly. */
