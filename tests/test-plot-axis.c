@@ -181,6 +181,117 @@ test_rounds_to_zero (void)
   sw_plot_axis_clear (&axis);
 }
 
+/* Copies of the tick values and texts, to compare two layouts. */
+static char *
+ticks_text (const SwPlotAxis *axis)
+{
+  GString *s = g_string_new (NULL);
+
+  for (guint i = 0; i < axis->ticks->len; i++)
+    {
+      SwPlotTick *t = &g_array_index (axis->ticks, SwPlotTick, i);
+      g_string_append_printf (s, "%.17g:%d:%d:%s;", t->value, t->major, t->labelled, t->text);
+    }
+  return g_string_free (s, FALSE);
+}
+
+/* Hysteresis on a linear axis (the sweep's delta-v axis, 0 to about twice
+ * the design's delta-v): a small change of the data keeps the range and
+ * every tick; data that leave the range, or shrink to less than
+ * SW_PLOT_AXIS_HOLD_FILL of it, get a new one, which again holds them. */
+static void
+test_hold_linear (void)
+{
+  SwPlotAxis axis;
+  g_autofree char *first = NULL, *again = NULL;
+  double v0, v1;
+
+  sw_plot_axis_init (&axis);
+  sw_plot_axis_set_format (&axis, "%.0f km/s", 1000.0);
+  sw_plot_axis_compute (&axis, 0.0, 18300.0, 60.0, 1200.0, TRUE, measure, NULL);
+  v0 = axis.v0;
+  v1 = axis.v1;
+  /* Rounded out to a tick: 0 to 20 km/s (1140 px: about 13 steps wanted,
+   * 1 km/s, whose labels crowd one another, so 2 km/s). */
+  g_assert_cmpfloat (v0, ==, 0.0);
+  g_assert_cmpfloat_with_epsilon (v1, 20000.0, 1e-6);
+  first = ticks_text (&axis);
+  sw_plot_axis_hold (&axis);
+
+  /* Without holding, 0..16,100 gives 0..17 km/s (checked below): held, it
+   * stays 0..20 with the same ticks. */
+  sw_plot_axis_compute (&axis, 0.0, 16100.0, 60.0, 1200.0, TRUE, measure, NULL);
+  again = ticks_text (&axis);
+  g_assert_cmpfloat (axis.v0, ==, v0);
+  g_assert_cmpfloat (axis.v1, ==, v1);
+  g_assert_cmpstr (again, ==, first);
+  sw_plot_axis_hold (&axis);
+
+  /* The data leave the range: a new one that holds them. */
+  sw_plot_axis_compute (&axis, 0.0, 21500.0, 60.0, 1200.0, TRUE, measure, NULL);
+  g_assert_cmpfloat (axis.v1, >=, 21500.0);
+  g_assert_cmpfloat (axis.v1, !=, v1);
+  sw_plot_axis_hold (&axis);
+  v1 = axis.v1;
+
+  /* The data shrink to less than the fill: a new, smaller range. */
+  sw_plot_axis_compute (&axis, 0.0, 0.5 * v1, 60.0, 1200.0, TRUE, measure, NULL);
+  g_assert_cmpfloat (axis.v1, <, v1);
+  g_assert_cmpfloat (axis.v1, >=, 0.5 * v1);
+
+  /* A fixed end is exact, held or not. */
+  sw_plot_axis_hold (&axis);
+  axis.fixed_max = 12345.0;
+  sw_plot_axis_compute (&axis, 0.0, 12000.0, 60.0, 1200.0, TRUE, measure, NULL);
+  g_assert_cmpfloat (axis.v1, ==, 12345.0);
+
+  /* Released, the range follows the data alone again. */
+  axis.fixed_max = NAN;
+  sw_plot_axis_compute (&axis, 0.0, 20000.0, 60.0, 1200.0, TRUE, measure, NULL);
+  sw_plot_axis_hold (&axis);
+  sw_plot_axis_release (&axis);
+  sw_plot_axis_compute (&axis, 0.0, 16100.0, 60.0, 1200.0, TRUE, measure, NULL);
+  g_assert_cmpfloat_with_epsilon (axis.v1, 17000.0, 1e-6);
+  sw_plot_axis_clear (&axis);
+}
+
+/* Hysteresis on a log axis (the liftoff masses): the fill is measured in
+ * decades. */
+static void
+test_hold_log (void)
+{
+  SwPlotAxis axis;
+  g_autofree char *first = NULL, *again = NULL;
+
+  sw_plot_axis_init (&axis);
+  axis.log = TRUE;
+  sw_plot_axis_compute (&axis, 6000.0, 6.0e6, 600.0, 40.0, FALSE, measure, NULL);
+  /* 1-2-5 rounded outwards: 5,000 to 10,000,000. */
+  g_assert_cmpfloat_with_epsilon (axis.v0, 5000.0, 1e-6);
+  g_assert_cmpfloat_with_epsilon (axis.v1, 1.0e7, 1e-3);
+  first = ticks_text (&axis);
+  sw_plot_axis_hold (&axis);
+
+  /* A heavier payload: still inside, three of 3.3 decades. */
+  sw_plot_axis_compute (&axis, 7900.0, 7.9e6, 600.0, 40.0, FALSE, measure, NULL);
+  again = ticks_text (&axis);
+  g_assert_cmpfloat_with_epsilon (axis.v0, 5000.0, 1e-6);
+  g_assert_cmpfloat_with_epsilon (axis.v1, 1.0e7, 1e-3);
+  g_assert_cmpstr (again, ==, first);
+  sw_plot_axis_hold (&axis);
+
+  /* Past the top: a new range up to 20,000,000. */
+  sw_plot_axis_compute (&axis, 7900.0, 1.2e7, 600.0, 40.0, FALSE, measure, NULL);
+  g_assert_cmpfloat_with_epsilon (axis.v1, 2.0e7, 1e-3);
+  sw_plot_axis_hold (&axis);
+
+  /* One decade of 3.6: less than the fill, a new range 10,000 to 100,000. */
+  sw_plot_axis_compute (&axis, 1.0e4, 1.0e5, 600.0, 40.0, FALSE, measure, NULL);
+  g_assert_cmpfloat_with_epsilon (axis.v0, 1.0e4, 1e-6);
+  g_assert_cmpfloat_with_epsilon (axis.v1, 1.0e5, 1e-6);
+  sw_plot_axis_clear (&axis);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -192,5 +303,7 @@ main (int argc, char **argv)
   g_test_add_func ("/app/plot-axis/nice-step", test_nice_step);
   g_test_add_func ("/app/plot-axis/texts", test_texts);
   g_test_add_func ("/app/plot-axis/rounds-to-zero", test_rounds_to_zero);
+  g_test_add_func ("/app/plot-axis/hold-linear", test_hold_linear);
+  g_test_add_func ("/app/plot-axis/hold-log", test_hold_log);
   return g_test_run ();
 }

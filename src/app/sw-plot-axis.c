@@ -188,6 +188,8 @@ sw_plot_axis_init (SwPlotAxis *axis)
   memset (axis, 0, sizeof *axis);
   axis->fixed_min = NAN;
   axis->fixed_max = NAN;
+  axis->region_min = NAN;
+  axis->region_max = NAN;
   axis->ticks = g_array_new (FALSE, TRUE, sizeof (SwPlotTick));
   g_array_set_clear_func (axis->ticks, tick_clear);
   sw_plot_axis_set_format (axis, NULL, 1.0);
@@ -235,6 +237,41 @@ nice_125_ceil (double v)
   double r = v / mag;
 
   return (r <= 1.0 + 1e-9 ? 1.0 : r <= 2.0 + 1e-9 ? 2.0 : r <= 5.0 + 1e-9 ? 5.0 : 10.0) * mag;
+}
+
+void
+sw_plot_axis_hold (SwPlotAxis *axis)
+{
+  axis->held = TRUE;
+  axis->held_v0 = axis->v0;
+  axis->held_v1 = axis->v1;
+  axis->held_step = axis->step;
+  axis->held_length = fabs (axis->p1 - axis->p0);
+}
+
+void
+sw_plot_axis_release (SwPlotAxis *axis)
+{
+  axis->held = FALSE;
+}
+
+/* Whether the held range still suits data from @a to @b: it holds them and
+ * they fill enough of it. */
+static gboolean
+hold_fits (const SwPlotAxis *axis, double a, double b)
+{
+  double h0, h1, t0, t1, tol;
+
+  if (!axis->held || !sw_plot_axis_valid (axis, axis->held_v0)
+      || !sw_plot_axis_valid (axis, axis->held_v1) || !(axis->held_v1 > axis->held_v0)
+      || !sw_plot_axis_valid (axis, a) || !sw_plot_axis_valid (axis, b))
+    return FALSE;
+  h0 = axis_t (axis, axis->held_v0);
+  h1 = axis_t (axis, axis->held_v1);
+  t0 = axis_t (axis, a);
+  t1 = axis_t (axis, b);
+  tol = 1e-9 * (h1 - h0);
+  return t0 >= h0 - tol && t1 <= h1 + tol && t1 - t0 >= SW_PLOT_AXIS_HOLD_FILL * (h1 - h0);
 }
 
 /* Ticks */
@@ -317,8 +354,11 @@ sw_plot_axis_compute (SwPlotAxis *axis, double min, double max, double p0, doubl
   gboolean auto_max = !(isfinite (axis->fixed_max) && sw_plot_axis_valid (axis, axis->fixed_max));
   double a = min, b = max;
 
+  double forced_step = 0.0;
+
   axis->p0 = p0;
   axis->p1 = p1;
+  axis->step = 0.0;
   g_array_set_size (axis->ticks, 0);
 
   if (!(a <= b))
@@ -362,6 +402,17 @@ sw_plot_axis_compute (SwPlotAxis *axis, double min, double max, double p0, doubl
         }
     }
 
+  /* Automatic ends: the held range while it suits the data, with its
+   * step when the axis is as long as it was. */
+  if (auto_min && auto_max && hold_fits (axis, a, b))
+    {
+      a = axis->held_v0;
+      b = axis->held_v1;
+      auto_min = auto_max = FALSE;
+      if (axis->held_step > 0.0 && fabs (axis->held_length - length) < 0.5)
+        forced_step = axis->held_step;
+    }
+
   if (axis->log && b / a >= 4.0)
     {
       /* Wide log axis: decades, minor ticks at 2..9. */
@@ -390,8 +441,9 @@ sw_plot_axis_compute (SwPlotAxis *axis, double min, double max, double p0, doubl
   for (double count = MAX (length / spacing, 1.0); ; count *= 0.6)
     {
       /* Counts: whole numbers only, never 0.5 ... 8.5. */
-      double step = axis->integer ? MAX (sw_plot_nice_step (b - a, count), 1.0)
-                                  : sw_plot_nice_step (b - a, count);
+      double step = forced_step > 0.0 ? forced_step
+                    : axis->integer ? MAX (sw_plot_nice_step (b - a, count), 1.0)
+                                    : sw_plot_nice_step (b - a, count);
       double lo = auto_min ? floor (a / step + 1e-9) * step : a;
       double hi = auto_max ? ceil (b / step - 1e-9) * step : b;
       double mant = step / pow (10.0, floor (log10 (step) + 1e-9));
@@ -406,6 +458,7 @@ sw_plot_axis_compute (SwPlotAxis *axis, double min, double max, double p0, doubl
         hi = lo + step;
       axis->v0 = lo;
       axis->v1 = hi;
+      axis->step = step;
       g_array_set_size (axis->ticks, 0);
       for (double k = ceil (lo / minor - 1e-9); k * minor <= hi + minor * 1e-9; k++)
         {
@@ -424,7 +477,7 @@ sw_plot_axis_compute (SwPlotAxis *axis, double min, double max, double p0, doubl
               prev = p;
             }
         }
-      if (closest >= widest + (horizontal ? 16.0 : 6.0) || count < 1.5)
+      if (closest >= widest + (horizontal ? 16.0 : 6.0) || count < 1.5 || forced_step > 0.0)
         break;
     }
   axis_choose_labels (axis, horizontal, FALSE, measure, user_data);

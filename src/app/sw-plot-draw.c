@@ -120,6 +120,7 @@ layer_hash_paint (LayerState *st, cairo_t *cr, int op)
   st->hash = sw_plot_key_int (st->hash, cairo_get_line_join (cr));
   st->hash = sw_plot_key_int (st->hash, cairo_get_line_cap (cr));
   st->hash = sw_plot_key_int (st->hash, cairo_get_fill_rule (cr));
+  st->hash = sw_plot_key_int (st->hash, cairo_get_antialias (cr));
   st->hash = sw_plot_key_int (st->hash, n_dash);
   if (n_dash > 0 && n_dash <= (int) G_N_ELEMENTS (dash))
     {
@@ -695,7 +696,10 @@ draw_axes (SwPlot *self, cairo_t *cr, const Colors *c)
   double th = sw_plot_text_height (self);
   gboolean cat = sw_plot_categorical_y (self);
 
-  /* Grid */
+  /* Grid and frame: axis-aligned lines of one pixel on pixel centres, drawn
+   * without antialiasing (the same pixels, cheaper to rasterise). */
+  cairo_save (cr);
+  cairo_set_antialias (cr, CAIRO_ANTIALIAS_NONE);
   cairo_set_line_width (cr, 1.0);
   for (guint i = 0; i < self->x.ticks->len; i++)
     {
@@ -731,6 +735,8 @@ draw_axes (SwPlot *self, cairo_t *cr, const Colors *c)
   cairo_line_to (cr, round (a->origin.x + a->size.width) + 0.5,
                  round (a->origin.y + a->size.height) + 0.5);
   layer_stroke (cr);
+  cairo_restore (cr);
+  cairo_set_line_width (cr, 1.0);
 
   /* Ticks and labels */
   for (guint i = 0; i < self->x.ticks->len; i++)
@@ -1206,16 +1212,15 @@ draw_data_layer (SwPlot *self, cairo_t *cr, const Colors *c, int width, int heig
                    self->area.size.width, self->area.size.height);
   cairo_clip (cr);
   if (st != NULL)
-    {
-      st->hash = sw_plot_key_bytes (st->hash, &self->area, sizeof self->area);
-      /* Nothing is drawn outside the area, and the curves cross it. */
-      st->want_ink = FALSE;
-      st->have_ink = TRUE;
-      st->ink = self->area;
-    }
+    st->hash = sw_plot_key_bytes (st->hash, &self->area, sizeof self->area);
   draw_bands (self, cr, c);
   draw_series (self, cr, c);
   cairo_restore (cr);
+  /* Nothing is drawn outside the area: the layer's box is the ink's within
+   * it, so curves that keep to part of the area repaint only that part. */
+  if (st != NULL && st->have_ink
+      && !graphene_rect_intersection (&st->ink, &self->area, &st->ink))
+    st->have_ink = FALSE;
 }
 
 /* The notes layer: limit lines, markers and their labels, placed so that no

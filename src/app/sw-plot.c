@@ -322,6 +322,17 @@ plot_layout (SwPlot *self, int width, int height)
   bottom = height - MARGIN - (self->x.label != NULL ? th + 4.0 : 0.0) - th - TICK_LEN - 4.0;
   right = width - MARGIN - 12.0;
   data_extent (self, &ex, &ey);
+  /* A region to show replaces the data's extent on its axis. */
+  if (isfinite (self->x.region_min) && isfinite (self->x.region_max))
+    {
+      ex.min = MIN (self->x.region_min, self->x.region_max);
+      ex.max = MAX (self->x.region_min, self->x.region_max);
+    }
+  if (isfinite (self->y.region_min) && isfinite (self->y.region_max))
+    {
+      ey.min = MIN (self->y.region_min, self->y.region_max);
+      ey.max = MAX (self->y.region_min, self->y.region_max);
+    }
 
   /* Two passes: the width of the y labels depends on the ticks, which
    * depend on the height, which does not depend on the width. */
@@ -352,6 +363,14 @@ plot_layout (SwPlot *self, int width, int height)
         }
       if (cat)
         y_tick_w = sw_plot_category_width (self);
+    }
+  /* The ranges now shown are held for the next layout (sw-plot-axis.h):
+   * an edit that moves the data a little redraws the data, not the axes. */
+  if (sw_plot_has_data (self))
+    {
+      sw_plot_axis_hold (&self->x);
+      if (!cat)
+        sw_plot_axis_hold (&self->y);
     }
 }
 
@@ -387,6 +406,8 @@ key_axis (guint64 h, const SwPlotAxis *a)
   h = sw_plot_key_int (h, a->integer);
   h = sw_plot_key_bytes (h, &a->fixed_min, sizeof (double));
   h = sw_plot_key_bytes (h, &a->fixed_max, sizeof (double));
+  h = sw_plot_key_bytes (h, &a->region_min, sizeof (double));
+  h = sw_plot_key_bytes (h, &a->region_max, sizeof (double));
   h = sw_plot_key_str (h, a->prefix);
   h = sw_plot_key_str (h, a->spec);
   h = sw_plot_key_str (h, a->suffix);
@@ -731,6 +752,27 @@ sw_plot_set_x_range (SwPlot *self, double min, double max)
   g_return_if_fail (SW_IS_PLOT (self));
   self->x.fixed_min = min;
   self->x.fixed_max = max;
+  self->x.region_min = self->x.region_max = NAN;
+  invalidate (self);
+}
+
+void
+sw_plot_set_x_region (SwPlot *self, double min, double max)
+{
+  g_return_if_fail (SW_IS_PLOT (self));
+  self->x.fixed_min = self->x.fixed_max = NAN;
+  self->x.region_min = min;
+  self->x.region_max = max;
+  invalidate (self);
+}
+
+void
+sw_plot_set_y_region (SwPlot *self, double min, double max)
+{
+  g_return_if_fail (SW_IS_PLOT (self));
+  self->y.fixed_min = self->y.fixed_max = NAN;
+  self->y.region_min = min;
+  self->y.region_max = max;
   invalidate (self);
 }
 
@@ -740,6 +782,7 @@ sw_plot_set_y_range (SwPlot *self, double min, double max)
   g_return_if_fail (SW_IS_PLOT (self));
   self->y.fixed_min = min;
   self->y.fixed_max = max;
+  self->y.region_min = self->y.region_max = NAN;
   invalidate (self);
 }
 

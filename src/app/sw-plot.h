@@ -37,6 +37,12 @@ void  sw_plot_set_y_axis (SwPlot *self, const char *label, gboolean log_scale);
 /* Fixed ranges; NAN for automatic. */
 void  sw_plot_set_x_range (SwPlot *self, double min, double max);
 void  sw_plot_set_y_range (SwPlot *self, double min, double max);
+/* Regions to show at least, in place of the data's extent (NAN: none): the
+ * ends are automatic, rounded outwards to a tick and, like every automatic
+ * range, held while what they must show stays inside and fills enough of
+ * it (sw-plot-axis.h), so that a small edit does not move the axis. */
+void  sw_plot_set_x_region (SwPlot *self, double min, double max);
+void  sw_plot_set_y_region (SwPlot *self, double min, double max);
 /* Copies the data.  Non-finite points break the line (are skipped). @color_index
  * picks the palette entry (-1: next); returns the series index. */
 guint sw_plot_add_series (SwPlot *self, const char *name, const double *x, const double *y,

@@ -30,6 +30,8 @@ typedef enum {
   ITEM_PAYLOAD,
 } ItemKind;
 
+enum { PART_LEGEND, PART_COLUMN, PART_SCALE, PART_LABEL0, N_PARTS = PART_LABEL0 + SW_MAX_STAGES + 1 };
+
 typedef struct {
   ItemKind        kind;
   int             stage;        /* firing order; -1 for the payload */
@@ -97,6 +99,13 @@ struct _SwStackView {
    * neither records nor rasterises it again. */
   GskRenderNode *drawing;
   guint64        drawing_key;
+
+  /* The plain mass picture in parts, each a node over the box it draws in,
+   * kept while its own key is the same: an edit repaints the stack's
+   * column and the labels and scale that changed, not the legend or the
+   * empty space between them (draw_stack_parts). */
+  GskRenderNode *parts[N_PARTS];
+  guint64        part_keys[N_PARTS];
 };
 
 enum {
@@ -1240,12 +1249,212 @@ draw_to_scale (SwStackView *self, cairo_t *cr, const Colors *c, int width, int h
   g_object_unref (layout);
 }
 
+
+static guint64 key_bytes (guint64 h, const void *data, gsize n);
+static guint64 key_layout (guint64 h, PangoLayout *layout);
+
+static void
+clear_parts (SwStackView *self)
+{
+  for (guint i = 0; i < N_PARTS; i++)
+    g_clear_pointer (&self->parts[i], gsk_render_node_unref);
+}
+
+/* Whether the picture is the plain one drawn in parts: sized, in masses,
+ * without a message, baseline, boosters or a border under the pointer
+ * (those draw across the parts' boxes: the whole view is one node then). */
+static gboolean
+parts_apply (SwStackView *self)
+{
+  return self->result != NULL && self->result->ok && !self->to_scale && self->message == NULL
+         && self->n_base == 0 && self->px2_per_kg > 0.0 && self->geom.n == self->n_items
+         && self->geom.n_boosters == 0 && self->hover_border < 0 && self->drag_lower < 0;
+}
+
+/* Part @which in @box: the kept node if @key is the same, else a new one
+ * from @cr's drawing (NULL: record it).  Returns the cairo context to draw
+ * the new node with, or NULL when the kept one stands. */
+static cairo_t *
+part_begin (SwStackView *self, guint which, const graphene_rect_t *box, guint64 key)
+{
+  GskRenderNode *node;
+
+  if (self->parts[which] != NULL && self->part_keys[which] == key)
+    return NULL;
+  g_clear_pointer (&self->parts[which], gsk_render_node_unref);
+  self->part_keys[which] = key;
+  node = gsk_cairo_node_new (box);
+  self->parts[which] = node;
+  return gsk_cairo_node_get_draw_context (node);
+}
+
+static guint64
+key_colors (const Colors *c, int width, int height)
+{
+  guint64 h = G_GUINT64_CONSTANT (14695981039346656037);
+  int size[2] = { width, height };
+
+  h = key_bytes (h, size, sizeof size);
+  return key_bytes (h, c, sizeof *c);
+}
+
+static void
+draw_label (SwStackView *self, cairo_t *cr, const Item *it, const Colors *c);
+static void
+draw_selection (SwStackView *self, cairo_t *cr, const Item *it, const Colors *c);
+static void
+draw_scale (SwStackView *self, cairo_t *cr, const Colors *c, int width, int height);
+
+static void
+draw_stack_parts (SwStackView *self, GtkSnapshot *snapshot, int width, int height,
+                  const Colors *c)
+{
+  guint64 base = key_colors (c, width, height);
+  graphene_rect_t box, col;
+  gboolean have_col = FALSE;
+  cairo_t *cr;
+  guint64 h;
+
+  /* The legend, above the stack. */
+  box = GRAPHENE_RECT_INIT (0, 0, width, MAX (self->top_y, 1.0));
+  h = key_bytes (base, &self->top_y, sizeof self->top_y);
+  h = key_bytes (h, &self->result->sizing.feasible, sizeof self->result->sizing.feasible);
+  if ((cr = part_begin (self, PART_LEGEND, &box, h)) != NULL)
+    {
+      draw_legend (self, cr, c);
+      cairo_destroy (cr);
+    }
+
+  /* The column: the blocks and the selection's frame around them. */
+  for (guint i = 0; i < self->n_items; i++)
+    {
+      const graphene_rect_t *rc = &self->items[i].rect;
+      const SwStackBox *b = &self->geom.box[i];
+      graphene_rect_t gb = GRAPHENE_RECT_INIT (b->x, b->y, b->width, b->height);
+      if (rc->size.width <= 0.0)
+        continue;
+      if (have_col)
+        graphene_rect_union (&col, rc, &col);
+      else
+        col = *rc;
+      have_col = TRUE;
+      graphene_rect_union (&col, &gb, &col);
+    }
+  h = key_bytes (base, &self->geom, sizeof self->geom);
+  h = key_bytes (h, &self->selected, sizeof self->selected);
+  for (guint i = 0; i < self->n_items; i++)
+    {
+      h = key_bytes (h, &self->items[i].kind, sizeof self->items[i].kind);
+      h = key_bytes (h, &self->items[i].stage, sizeof self->items[i].stage);
+      h = key_bytes (h, &self->items[i].rect, sizeof self->items[i].rect);
+    }
+  if (have_col)
+    {
+      /* Out to whole pixels and past the selection's frame (4 px out,
+       * 2 px wide). */
+      double x0 = floor (col.origin.x) - 8.0, y0 = floor (col.origin.y) - 8.0;
+      double x1 = ceil (col.origin.x + col.size.width) + 8.0;
+      double y1 = ceil (col.origin.y + col.size.height) + 8.0;
+      box = GRAPHENE_RECT_INIT (x0, y0, x1 - x0, y1 - y0);
+      if ((cr = part_begin (self, PART_COLUMN, &box, h)) != NULL)
+        {
+          for (guint i = 0; i < self->n_items; i++)
+            if (self->items[i].rect.size.width > 0.0)
+              draw_item (self, cr, &self->items[i], c);
+          for (guint i = 0; i < self->n_items; i++)
+            if (self->items[i].stage >= 0 && self->items[i].stage == self->selected)
+              {
+                const graphene_rect_t *rc = &self->items[i].rect;
+                set_source_alpha (cr, &c->select, 1.0);
+                cairo_set_line_width (cr, 2.0);
+                cairo_rectangle (cr, rc->origin.x - 4.0, rc->origin.y - 4.0,
+                                 rc->size.width + 8.0, rc->size.height + 8.0);
+                cairo_stroke (cr);
+              }
+          cairo_destroy (cr);
+        }
+    }
+  else
+    g_clear_pointer (&self->parts[PART_COLUMN], gsk_render_node_unref);
+
+  /* Each label with its leader, from the block to the right edge. */
+  for (guint i = 0; i < G_N_ELEMENTS (self->items); i++)
+    {
+      const Item *it = &self->items[i];
+      double by, y0, y1, x0;
+      int lw, lh;
+
+      if (i >= self->n_items || it->label == NULL || it->rect.size.width <= 0.0)
+        {
+          g_clear_pointer (&self->parts[PART_LABEL0 + i], gsk_render_node_unref);
+          continue;
+        }
+      by = it->rect.origin.y + it->rect.size.height / 2.0;
+      pango_layout_get_pixel_size (it->label, &lw, &lh);
+      y0 = floor (MIN (by, it->label_y)) - 4.0;
+      y1 = ceil (MAX (by, it->label_y + MAX (it->label_h, lh))) + 4.0;
+      x0 = floor (MIN (it->rect.origin.x + it->rect.size.width, self->label_x - 10.0)) - 2.0;
+      box = GRAPHENE_RECT_INIT (x0, y0, MAX (width - x0, 1.0), y1 - y0);
+      h = key_bytes (base, &it->rect, sizeof it->rect);
+      h = key_bytes (h, &it->kind, sizeof it->kind);
+      h = key_bytes (h, &it->label_y, sizeof it->label_y);
+      h = key_bytes (h, &it->label_h, sizeof it->label_h);
+      h = key_layout (h, it->label);
+      h = key_bytes (h, &self->label_x, sizeof self->label_x);
+      h = key_bytes (h, &self->stack_right, sizeof self->stack_right);
+      {
+        gboolean sel = it->stage >= 0 && it->stage == self->selected;
+        h = key_bytes (h, &sel, sizeof sel);
+      }
+      if ((cr = part_begin (self, PART_LABEL0 + i, &box, h)) != NULL)
+        {
+          draw_label (self, cr, it, c);
+          if (it->stage >= 0 && it->stage == self->selected)
+            {
+              /* The selection's bar beside the label. */
+              set_source_alpha (cr, &c->select, 1.0);
+              cairo_rectangle (cr, self->label_x - 10.0, it->label_y, 4.0, it->label_h);
+              cairo_fill (cr);
+            }
+          cairo_destroy (cr);
+        }
+    }
+
+  /* The scale square and its caption, below the stack. */
+  {
+    double side = sqrt (self->scale_ref_kg * self->px2_per_kg);
+    double y0 = floor (MIN (self->bottom_y, height - MARGIN - side)) - 2.0;
+    y0 = MAX (y0, 0.0);
+    box = GRAPHENE_RECT_INIT (0, y0, width, height - y0);
+    h = key_bytes (base, &self->scale_ref_kg, sizeof (double));
+    h = key_bytes (h, &self->px2_per_kg, sizeof (double));
+    h = key_bytes (h, &self->bottom_y, sizeof (double));
+    h = key_bytes (h, &self->result->sizing.liftoff_mass_kg, sizeof (double));
+    h = key_bytes (h, &self->result->sizing.payload_fraction, sizeof (double));
+    if ((cr = part_begin (self, PART_SCALE, &box, h)) != NULL)
+      {
+        draw_scale (self, cr, c, width, height);
+        cairo_destroy (cr);
+      }
+  }
+
+  for (guint i = 0; i < N_PARTS; i++)
+    if (self->parts[i] != NULL)
+      gtk_snapshot_append_node (snapshot, self->parts[i]);
+}
+
 static void
 draw_stack (SwStackView *self, GtkSnapshot *snapshot, int width, int height, const Colors *cc)
 {
   Colors c = *cc;
   cairo_t *cr;
 
+  if (parts_apply (self))
+    {
+      draw_stack_parts (self, snapshot, width, height, cc);
+      return;
+    }
+  clear_parts (self);
   cr = gtk_snapshot_append_cairo (snapshot, &GRAPHENE_RECT_INIT (0, 0, width, height));
 
   if (self->result == NULL)
@@ -1489,6 +1698,7 @@ sw_stack_view_css_changed (GtkWidget *widget, GtkCssStyleChange *change)
   if (SW_STACK_VIEW (widget)->text_cache != NULL)
     g_hash_table_remove_all (SW_STACK_VIEW (widget)->text_cache);
   g_clear_pointer (&SW_STACK_VIEW (widget)->drawing, gsk_render_node_unref);
+  clear_parts (SW_STACK_VIEW (widget));
   invalidate (SW_STACK_VIEW (widget));
 }
 
@@ -1676,6 +1886,7 @@ sw_stack_view_dispose (GObject *object)
 
   clear_layout (self);
   g_clear_pointer (&self->drawing, gsk_render_node_unref);
+  clear_parts (self);
   g_clear_pointer (&self->result, sw_analysis_unref);
   g_clear_pointer (&self->text_cache, g_hash_table_unref);
   G_OBJECT_CLASS (sw_stack_view_parent_class)->dispose (object);

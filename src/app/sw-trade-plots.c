@@ -146,12 +146,21 @@ sw_trade_plots_show_sweep (SwPlot *plot, SwAnalysis *r)
   if (sw->n_curves > 0)
     x_hi = MAX (x_hi, 1.1 * sw->curves[0].delta_v_limit_m_s);
   x_hi = MIN (x_hi, 1.02 * x_max);
-  sw_plot_set_x_range (plot, 0.0, x_hi > 0.0 ? x_hi : NAN);
+  /* Regions rather than exact ranges: rounded out to ticks and held while
+   * an edit keeps them inside (sw-plot.h), so the axes stay put and an edit
+   * redraws the curves alone. */
+  if (x_hi > 0.0)
+    sw_plot_set_x_region (plot, 0.0, x_hi);
+  else
+    sw_plot_set_x_range (plot, NAN, NAN);
   y_lo = r->sizing.payload_kg;
   y_hi = 1000.0 * y_lo;
   if (r->sizing.feasible && isfinite (r->sizing.liftoff_mass_kg))
     y_hi = MAX (y_hi, 10.0 * r->sizing.liftoff_mass_kg);
-  sw_plot_set_y_range (plot, y_lo, y_hi);
+  if (y_lo > 0.0 && isfinite (y_hi))
+    sw_plot_set_y_region (plot, y_lo, y_hi);
+  else
+    sw_plot_set_y_range (plot, NAN, NAN);
 
   sw_trade_plots_add_baseline (plot, r, 1);
   if (sw_trade_plots_current_point (r, 1, &cx, &cy))
