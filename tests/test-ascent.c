@@ -4,6 +4,7 @@
 #include "config.h"
 
 #include "sw-ascent.h"
+#include "sw-format.h"
 #include "sw-ascent-montecarlo.h"
 #include "sw-atmosphere.h"
 #include "sw-budget.h"
@@ -865,6 +866,13 @@ test_bad_propulsion (void)
     g_assert_nonnull (strstr (r->reason, "cannot lift off"));
     g_assert_nonnull (strstr (r->reason, "thrust-to-weight"));
     g_assert_cmpfloat (r->liftoff_thrust_to_weight, <, 1.0);
+    /* The mass through the one formatter (unit by its rule, digits
+     * grouped), not a raw "%.1f t". */
+    {
+      g_autofree char *m = sw_format_mass (r->stages[0].ignition_mass_kg);
+      g_autofree char *expect = g_strdup_printf ("against %s with the fairing", m);
+      g_assert_nonnull (strstr (r->reason, expect));
+    }
     /* The stage figures are still there for the views. */
     g_assert_cmpfloat (r->stages[0].burn_time_s, >, 0.0);
   }

@@ -7,6 +7,7 @@
 #include "sw-ascent.h"
 
 #include "sw-ascent-private.h"
+#include "sw-format.h"
 #include "sw-limits.h"
 
 #include <glib/gi18n-lib.h>
@@ -114,11 +115,29 @@ pass (Loop *lp, double L)
       return NAN;
     }
   if (!sizing.feasible)
-    g_snprintf (lp->why, sizeof lp->why, _("sized for %.0f m/s of losses the vehicle is "
-                                          "infeasible: %s"), L, sizing.reason);
+    {
+      g_autofree char *losses = sw_format_speed (L);
+      /* Translators: %s are a speed ("1,500 m/s") and the sizing's reason */
+      g_snprintf (lp->why, sizeof lp->why, _("sized for %s of losses the vehicle is "
+                                            "infeasible: %s"), losses, sizing.reason);
+    }
   else if (r->status != SW_ASCENT_REACHED && r->status != SW_ASCENT_SHORT)
-    g_snprintf (lp->why, sizeof lp->why, _("sized for %.0f m/s of losses (liftoff mass %.1f t): "
-                                          "%s"), L, sizing.liftoff_mass_kg / 1000.0, r->reason);
+    {
+      g_autofree char *losses = sw_format_speed (L);
+      g_autofree char *why = sw_format_clause (r->reason);
+
+      if (sizing.liftoff_mass_kg > 0.0 && isfinite (sizing.liftoff_mass_kg))
+        {
+          g_autofree char *mass = sw_format_mass (sizing.liftoff_mass_kg);
+          /* Translators: a speed ("1,500 m/s"), a mass ("155.1 t") and the
+           * ascent's reason, which starts with a small letter */
+          g_snprintf (lp->why, sizeof lp->why, _("sized for %s of losses (liftoff mass %s): %s"),
+                      losses, mass, why);
+        }
+      else
+        /* Translators: a speed ("1,500 m/s") and the ascent's reason */
+        g_snprintf (lp->why, sizeof lp->why, _("sized for %s of losses: %s"), losses, why);
+    }
   if (!sizing.feasible || (r->status != SW_ASCENT_REACHED && r->status != SW_ASCENT_SHORT))
     {
       lp->failed = TRUE;
@@ -323,12 +342,24 @@ restart:
                 }
               if (Fx >= Fp)
                 {
-                  g_snprintf (lp.why, sizeof lp.why,
-                              _("no allowance reaches the orbit: the least the vehicle lacks "
-                                "is about %.0f m/s, sized for %.0f m/s of losses (liftoff mass "
-                                "%.1f t)"),
-                              Fp, Lp, lp.mass[0] > 0.0 ? lp.res->sizing.liftoff_mass_kg / 1000.0
-                                                       : NAN);
+                  double m0 = lp.mass[0] > 0.0 ? lp.res->sizing.liftoff_mass_kg : NAN;
+                  g_autofree char *lack = sw_format_speed (Fp);
+                  g_autofree char *losses = sw_format_speed (Lp);
+
+                  if (m0 > 0.0 && isfinite (m0))
+                    {
+                      g_autofree char *mass = sw_format_mass (m0);
+                      /* Translators: two speeds ("850 m/s") and a mass ("155.1 t") */
+                      g_snprintf (lp.why, sizeof lp.why,
+                                  _("no allowance reaches the orbit: the least the vehicle lacks "
+                                    "is about %s, sized for %s of losses (liftoff mass %s)"),
+                                  lack, losses, mass);
+                    }
+                  else
+                    /* Translators: two speeds ("850 m/s", "1,500 m/s") */
+                    g_snprintf (lp.why, sizeof lp.why,
+                                _("no allowance reaches the orbit: the least the vehicle lacks "
+                                  "is about %s, sized for %s of losses"), lack, losses);
                   lp.failed = TRUE;
                   break;
                 }
