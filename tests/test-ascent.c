@@ -4,6 +4,7 @@
 #include "config.h"
 
 #include "sw-ascent.h"
+#include "sw-format.h"
 #include "sw-ascent-montecarlo.h"
 #include "sw-atmosphere.h"
 #include "sw-budget.h"
@@ -473,6 +474,32 @@ static const char *three_stage_loop =
   "    \"diameter_m\": 1.8, \"coast_before_ignition_s\": 8 } ],"
   "  \"ascent\": { \"fairing_mass_kg\": 350, \"fairing_jettison_altitude_km\": 105 } }";
 
+/* A closed loop that cannot succeed (the first stage never lifts off):
+ * the reason prints the masses and speeds through the one formatter (digit
+ * groups, the unit by the formatter's rule, never "0.0 t") and the ascent's
+ * own reason, joined after a colon, starts with a small letter. */
+static void
+test_loop_reason_words (void)
+{
+  g_autoptr (SwDesign) d = load (TWO_STAGE ("1500", "simulate", "300", "220", ""));
+  g_autoptr (SwAscentResult) r = NULL;
+  g_autoptr (GError) error = NULL;
+  g_autoptr (GRegex) mass = g_regex_new ("\\(liftoff mass [0-9]{1,3}(,[0-9]{3})*(\\.[0-9])? (t|kg)\\)",
+                                         0, 0, NULL);
+  g_autoptr (GRegex) raw = g_regex_new ("[0-9]{4,}(\\.[0-9]+)? (t|kg|m/s)", 0, 0, NULL);
+
+  r = sw_ascent_fly_design (d, NULL, &error);
+  g_assert_no_error (error);
+  g_assert_false (r->loop_converged);
+  g_test_message ("%s", r->reason);
+  g_assert_nonnull (strstr (r->reason, ": the vehicle cannot lift off"));
+  g_assert_null (strstr (r->reason, ": The vehicle"));
+  g_assert_null (strstr (r->reason, "0.0 t"));
+  g_assert_true (g_regex_match (mass, r->reason, 0, NULL));
+  /* No number of four digits or more without its digit groups. */
+  g_assert_false (g_regex_match (raw, r->reason, 0, NULL));
+}
+
 static void
 test_loop_first_guess (void)
 {
@@ -865,6 +892,13 @@ test_bad_propulsion (void)
     g_assert_nonnull (strstr (r->reason, "cannot lift off"));
     g_assert_nonnull (strstr (r->reason, "thrust-to-weight"));
     g_assert_cmpfloat (r->liftoff_thrust_to_weight, <, 1.0);
+    /* The mass through the one formatter (unit by its rule, digits
+     * grouped), not a raw "%.1f t". */
+    {
+      g_autofree char *m = sw_format_mass (r->stages[0].ignition_mass_kg);
+      g_autofree char *expect = g_strdup_printf ("against %s with the fairing", m);
+      g_assert_nonnull (strstr (r->reason, expect));
+    }
     /* The stage figures are still there for the views. */
     g_assert_cmpfloat (r->stages[0].burn_time_s, >, 0.0);
   }
@@ -1102,6 +1136,7 @@ main (int argc, char **argv)
   g_test_add_func ("/core/ascent/two-stage-losses", test_two_stage_losses);
   g_test_add_func ("/core/ascent/allowance-shortfall", test_allowance_shortfall);
   g_test_add_func ("/core/ascent/loop-first-guess", test_loop_first_guess);
+  g_test_add_func ("/core/ascent/loop-reason-words", test_loop_reason_words);
   g_test_add_func ("/core/ascent/retrograde-liftoff", test_retrograde_liftoff);
   g_test_add_func ("/core/ascent/staging-attitude", test_staging_attitude);
   g_test_add_func ("/core/ascent/montecarlo-simulated", test_montecarlo_simulated);

@@ -12,6 +12,7 @@
 #include <glib/gstdio.h>
 #include <string.h>
 #include <sys/wait.h>
+#include <unistd.h>
 
 #define CLI_TIMEOUT_S 60
 
@@ -75,6 +76,76 @@ test_size_text (void)
   assert_line (out, "Headroom to the stages' delta-v limit (no payload): 10,469 m/s");
 }
 
+/* A vehicle for 10,000 t of payload (the limit): stage masses of nine and
+ * more digits keep the stage table's columns aligned, every right edge of
+ * the header at the same character as in each stage row. */
+static void
+test_size_huge (void)
+{
+  g_autofree char *src = demo ("medium-cargo.stagewright");
+  g_autofree char *text = NULL;
+  g_autofree char *path = NULL;
+  g_autoptr (GRegex) re = g_regex_new ("\"payload_kg\": *[0-9.]+", 0, 0, NULL);
+  g_autofree char *big = NULL;
+  int fd;
+
+  g_assert_true (g_file_get_contents (src, &text, NULL, NULL));
+  big = g_regex_replace_literal (re, text, -1, 0, "\"payload_kg\": 10000000", 0, NULL);
+  g_assert_cmpstr (big, !=, text);
+  fd = g_file_open_tmp ("sw-huge-XXXXXX.stagewright", &path, NULL);
+  g_assert_cmpint (fd, >=, 0);
+  close (fd);
+  g_assert_true (g_file_set_contents (path, big, -1, NULL));
+  {
+    const char *args[] = { "size", "--no-ascent", path, NULL };
+    g_autofree char *out = run_cli (args);
+    g_auto (GStrv) lines = g_strsplit (out, "\n", -1);
+    char **header = NULL;
+    guint rows = 0;
+
+    /* About 160,000 t at liftoff (nine digits of kilograms and more): the
+     * scale is what the test is about. */
+    g_assert_true (g_regex_match_simple ("[0-9]{3},[0-9]{3},[0-9]{3}\\.[0-9] ", out, 0, 0));
+    for (guint i = 0; lines[i] != NULL; i++)
+      {
+        /* Right edges of the columns: a character other than a space
+         * followed by a space or the end. */
+        g_autofree char *edges = NULL;
+        const char *l = lines[i];
+        GString *e = g_string_new (NULL);
+        glong n = g_utf8_strlen (l, -1);
+
+        for (glong c = 0; c < n; c++)
+          {
+            gunichar ch = g_utf8_get_char (g_utf8_offset_to_pointer (l, c));
+            gunichar next = c + 1 < n ? g_utf8_get_char (g_utf8_offset_to_pointer (l, c + 1)) : ' ';
+            if (ch != ' ' && next == ' ')
+              g_string_append_printf (e, "%ld ", c);
+          }
+        edges = g_string_free (e, FALSE);
+        if (g_str_has_prefix (l, "#   stage"))
+          header = g_strsplit (edges, " ", -1);
+        else if (header != NULL && (g_str_has_prefix (l, "1   ") || g_str_has_prefix (l, "2   ")))
+          {
+            g_auto (GStrv) row = g_strsplit (edges, " ", -1);
+            guint nr = g_strv_length (row);
+            /* The last nine columns (numbers, right-aligned) end where
+             * their headings end (the list ends in an empty string). */
+            g_assert_cmpuint (nr, >=, 11);
+            for (guint k = 2; k <= 10; k++)
+              if (!g_strv_contains ((const char *const *) header, row[nr - k]))
+                g_error ("a column ends at character %s, no heading does:\n%s", row[nr - k],
+                         out);
+            rows++;
+          }
+      }
+    g_assert_nonnull (header);
+    g_strfreev (header);
+    g_assert_cmpuint (rows, ==, 2);
+  }
+  g_unlink (path);
+}
+
 static void
 test_sensitivity_text (void)
 {
@@ -119,6 +190,7 @@ main (int argc, char **argv)
 {
   g_test_init (&argc, &argv, NULL);
   g_test_add_func ("/cli-text/size", test_size_text);
+  g_test_add_func ("/cli-text/size-huge", test_size_huge);
   g_test_add_func ("/cli-text/sensitivity", test_sensitivity_text);
   g_test_add_func ("/cli-text/ascent-fairing", test_ascent_fairing);
   return g_test_run ();

@@ -116,6 +116,29 @@ test_cautions (void)
   g_assert_nonnull (strstr (c, "local regulations"));
 }
 
+/* A reason joined after a colon starts with a small letter; symbols and
+ * abbreviations in capitals keep theirs. */
+static void
+test_clause (void)
+{
+  static const struct { const char *in, *out; } cases[] = {
+    { "No ascent: the first stage never reaches", "no ascent: the first stage never reaches" },
+    { "The vehicle cannot lift off.", "the vehicle cannot lift off." },
+    { "A stage", "a stage" },
+    { "T/W below 1", "T/W below 1" },
+    { "Isp too low", "Isp too low" },
+    { "ΔV short", "ΔV short" },
+    { "already small", "already small" },
+    { "", "" },
+  };
+
+  for (guint i = 0; i < G_N_ELEMENTS (cases); i++)
+    {
+      g_autofree char *c = sw_format_clause (cases[i].in);
+      g_assert_cmpstr (c, ==, cases[i].out);
+    }
+}
+
 int
 main (int argc, char **argv)
 {
@@ -126,5 +149,6 @@ main (int argc, char **argv)
   g_test_add_func ("/core/format/units", test_units);
   g_test_add_func ("/core/format/german-locale", test_german_locale);
   g_test_add_func ("/core/format/cautions", test_cautions);
+  g_test_add_func ("/core/format/clause", test_clause);
   return g_test_run ();
 }

@@ -612,6 +612,23 @@ test_glue_units (void)
   g_assert_cmpstr (c, ==, "unused: no propellant");
 }
 
+/* A label too wide for its column puts its figures on lines of their own,
+ * so no line ends in a lone separator ("32.6 t ·"); the title keeps its
+ * "2 · Upper". */
+static void
+test_break_at_separators (void)
+{
+  g_autofree char *a = sw_stack_break_at_separators ("<b>2 · Upper</b>\n29.9 t · Δv 2,007 m/s\n"
+                                                     "mass ratio 3.356 · T/W 0.80 at ignition");
+  g_autofree char *b = sw_stack_break_at_separators ("<b>1 · Core</b> · 32.6 t · Δv 3,494 m/s");
+  g_autofree char *c = sw_stack_break_at_separators ("<b>Payload</b>\n8,000 kg");
+
+  g_assert_cmpstr (a, ==, "<b>2 · Upper</b>\n29.9 t\nΔv 2,007 m/s\nmass ratio 3.356\n"
+                          "T/W 0.80 at ignition");
+  g_assert_cmpstr (b, ==, "<b>1 · Core</b>\n32.6 t\nΔv 3,494 m/s");
+  g_assert_cmpstr (c, ==, "<b>Payload</b>\n8,000 kg");
+}
+
 /* The cairo drawings in @node's tree, in order, appended to @out (new
  * references). */
 static void
@@ -895,6 +912,7 @@ main (int argc, char **argv)
   gtk_test_init (&argc, &argv, NULL);
 
   g_test_add_func ("/gui/stack-view/glue-units", test_glue_units);
+  g_test_add_func ("/gui/stack-view/break-at-separators", test_break_at_separators);
   g_test_add_func ("/gui/stack-view/tw-of-shown-vehicle", test_tw_of_shown_vehicle);
   g_test_add_func ("/gui/stack-view/drawing-kept", test_drawing_kept);
   g_test_add_func ("/gui/stack-view/to-scale-pixels", test_to_scale_pixels);

@@ -924,6 +924,32 @@ test_stage_count_labels (void)
   sw_trade_plots_show_stage_count (SW_PLOT (plot), r);
   g_assert_cmpuint (labelled_markers (SW_PLOT (plot), &crosses), ==, infeasible > 0 ? 2 : 1);
   g_assert_cmpuint (crosses, ==, infeasible);
+  /* Tonnes for a vehicle of tonnes. */
+  {
+    g_autofree char *t = sw_plot_axis_format (&SW_PLOT (plot)->y, 20000.0, 0, FALSE);
+    g_assert_cmpstr (t, ==, "20 t");
+  }
+  sw_analysis_unref (r);
+
+  /* A 100 g payload on a small vehicle: the mass axis in kilograms by the
+   * formatter's rule (below 10 t), never "0.006 t". */
+  d->payload_kg = 0.1;
+  d->mission.delta_v_m_s = 7000.0;
+  r = sw_analysis_run (d, NULL, NULL);
+  g_assert_true (r->sizing.feasible);
+  g_assert_cmpfloat (r->sizing.liftoff_mass_kg, <, 1000.0);
+  sw_trade_plots_show_stage_count (SW_PLOT (plot), r);
+  {
+    g_autofree char *six = sw_plot_axis_format (&SW_PLOT (plot)->y, 6.0, 0, FALSE);
+    g_autofree char *fifty = sw_plot_axis_format (&SW_PLOT (plot)->y, 50.0, 0, FALSE);
+    g_assert_cmpstr (six, ==, "6 kg");
+    g_assert_cmpstr (fifty, ==, "50 kg");
+  }
+  sw_trade_plots_show_sweep (SW_PLOT (plot), r);
+  {
+    g_autofree char *six = sw_plot_axis_format (&SW_PLOT (plot)->y, 6.0, 0, FALSE);
+    g_assert_cmpstr (six, ==, "6 kg");
+  }
   sw_analysis_unref (r);
   g_object_unref (plot);
 }

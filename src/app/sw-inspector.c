@@ -9,6 +9,7 @@
 #include "sw-design-fields.h"
 #include "sw-format.h"
 #include "sw-limits.h"
+#include "sw-narrow.h"
 #include "sw-number-field.h"
 #include "sw-sizing.h"
 #include "sw-stage-thrust.h"
@@ -2236,6 +2237,9 @@ sw_inspector_init (SwInspector *self)
   route_undo (GTK_WIDGET (self->drag_entry));
   route_undo (GTK_WIDGET (self->propellant_name_entry));
   configure_eps_spin (self);
+  /* Long translated captions and choices wrap or ellipsize: the window's
+   * minimum width never depends on the language. */
+  sw_narrow_texts (GTK_WIDGET (self));
 
   update_actions (self);
 }

@@ -222,6 +222,21 @@ make_label (SwStackView *self, const char *markup)
 
 #define TEXT_CACHE_MAX 256
 
+/* @markup with each " · " after the stage's bold title made a line break:
+ * a label too wide for its column shows its figures one per line instead
+ * of wrapping after a separator.  The title ("1 · Core") keeps its own. */
+char *
+sw_stack_break_at_separators (const char *markup)
+{
+  const char *after = strstr (markup, "</b>");
+  const char *from = after != NULL ? after + strlen ("</b>") : markup;
+  g_autofree char *head = g_strndup (markup, from - markup);
+  g_auto (GStrv) parts = g_strsplit (from, " · ", -1);
+  g_autofree char *tail = g_strjoinv ("\n", parts);
+
+  return g_strconcat (head, tail, NULL);
+}
+
 /* A shared layout of @markup (a new reference; callers must not change
  * it), wrapped between words at @wrap_width when it is wider, unless
  * @wrap_width is negative. */
@@ -237,6 +252,15 @@ cached_label (SwStackView *self, const char *markup, double wrap_width)
       if (g_hash_table_size (self->text_cache) >= TEXT_CACHE_MAX)
         g_hash_table_remove_all (self->text_cache);
       layout = make_label (self, markup);
+      pango_layout_get_pixel_size (layout, &lw, NULL);
+      if (wrap_width >= 0.0 && lw > wrap_width)
+        {
+          /* Too wide: the parts joined by " · " go on lines of their own
+           * first, so no line ends in a lone separator ("32.6 t ·"). */
+          g_autofree char *lines = sw_stack_break_at_separators (markup);
+          g_object_unref (layout);
+          layout = make_label (self, lines);
+        }
       pango_layout_get_pixel_size (layout, &lw, NULL);
       if (wrap_width >= 0.0 && lw > wrap_width)
         {
@@ -539,6 +563,13 @@ scale_layout (SwStackView *self, int width, int height)
 
       it->label = make_label (self, markup);
       pango_layout_get_pixel_size (it->label, &lw, &lh);
+      if (lw > max_label_w)
+        {
+          g_autofree char *lines = sw_stack_break_at_separators (markup);
+          g_object_unref (it->label);
+          it->label = make_label (self, lines);
+          pango_layout_get_pixel_size (it->label, &lw, &lh);
+        }
       if (lw > max_label_w)
         {
           pango_layout_set_wrap (it->label, PANGO_WRAP_WORD);

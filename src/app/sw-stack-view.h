@@ -69,4 +69,8 @@ gboolean   sw_stack_view_get_booster_rect (SwStackView *self, guint index,
  *        owner edits the design (split becomes manual) and posts a solve;
  *        @finished is TRUE on release (one undo step per drag). */
 
+/* @markup of a stage label with each " · " after its bold title made a
+ * line break (for a label too wide for its column). */
+char *sw_stack_break_at_separators (const char *markup);
+
 G_END_DECLS

@@ -5,6 +5,7 @@
 
 #include "sw-trade-page.h"
 
+#include "sw-narrow.h"
 #include "sw-number-field.h"
 #include "sw-simulated-mc.h"
 
@@ -917,6 +918,9 @@ sw_trade_page_init (SwTradePage *self)
   setup_spin (self->eps_width, self->eps_unit, SW_LIMIT_SPREAD_SIGMA_PERCENT, 1, 0.5, 5.0);
   setup_spin (self->losses_width, self->losses_unit, SW_LIMIT_LOSSES_SIGMA, 0, 10.0, 100.0);
 
+  /* Long translated button labels wrap: the window's minimum width never
+   * depends on the language. */
+  sw_narrow_texts (GTK_WIDGET (self));
   self->updating--;
 
   /* Below the cards: the Monte Carlo with a simulated ascent per sample. */

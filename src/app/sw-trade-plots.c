@@ -20,12 +20,26 @@ sw_trade_plots_current_point (SwAnalysis *r, guint which, double *x, double *y)
   return TRUE;
 }
 
+/* Tick labels of a mass axis whose largest value is @top_kg, in the unit
+ * the formatter's rule gives that mass (sw_format_mass: kilograms below
+ * 10 t, tonnes from there), so a small design reads "6 kg", not
+ * "0.006 t". */
+static void
+set_mass_format (SwPlot *plot, double top_kg)
+{
+  if (isfinite (top_kg) && top_kg > 0.0 && top_kg < 9999.5)
+    /* Translators: tick labels of a mass axis in kilograms */
+    sw_plot_set_y_format (plot, _("%.3g kg"), 1.0);
+  else
+    /* Translators: tick labels of a mass axis in tonnes */
+    sw_plot_set_y_format (plot, _("%.3g t"), 1000.0);
+}
+
 static void
 setup_mass_axis (SwPlot *plot)
 {
   sw_plot_set_y_axis (plot, _("Liftoff mass"), TRUE);
-  /* Translators: tick labels of a mass axis in tonnes */
-  sw_plot_set_y_format (plot, _("%.3g t"), 1000.0);
+  set_mass_format (plot, NAN);
 }
 
 void
@@ -62,6 +76,7 @@ sw_trade_plots_show_stage_count (SwPlot *plot, SwAnalysis *r)
   /* Counts without a solution have no mass: their crosses sit above the
    * highest mass shown. */
   y_top = y_top > 0.0 ? y_top * 2.0 : r->sizing.payload_kg * 100.0;
+  set_mass_format (plot, y_top);
   /* Masses all alike (no delta-v to give): a range of its own, since an
    * automatic log axis over one value has no span to divide. */
   {
@@ -161,6 +176,7 @@ sw_trade_plots_show_sweep (SwPlot *plot, SwAnalysis *r)
     sw_plot_set_y_region (plot, y_lo, y_hi);
   else
     sw_plot_set_y_range (plot, NAN, NAN);
+  set_mass_format (plot, y_hi);
 
   sw_trade_plots_add_baseline (plot, r, 1);
   if (sw_trade_plots_current_point (r, 1, &cx, &cy))
@@ -219,7 +235,6 @@ show_payload_curve (SwPlot *plot, SwAnalysis *r, gboolean altitude)
       sw_plot_set_x_format (plot, _("%.0f°"), 1.0);
     }
   sw_plot_set_y_axis (plot, _("Payload"), FALSE);
-  sw_plot_set_y_format (plot, _("%.3g t"), 1000.0);
   sw_plot_set_empty_text (plot, _("No payload: the vehicle reaches none of these orbits."));
   for (guint i = 0; i < c->n_points; i++)
     {
@@ -230,6 +245,7 @@ show_payload_curve (SwPlot *plot, SwAnalysis *r, gboolean altitude)
     }
   if (r->performance.reachable)
     y_max = MAX (y_max, r->performance.payload_kg);
+  set_mass_format (plot, 1.1 * y_max);
   /* The grid, widened to this design's orbit when it lies outside. */
   if (c->n_points > 0)
     {

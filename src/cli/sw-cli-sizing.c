@@ -332,28 +332,72 @@ print_sizing_table (const SwAnalysis *a)
       g_autofree char *eta = sw_format_number (s->multiplier_s_m * 1000.0, 6);
       g_print (_("Lagrange multiplier eta: %s s/km\n"), eta);
     }
-  g_print ("\n%-3s %-20s %6s %6s %9s %6s %8s %12s %11s %13s %12s\n", "#", _("stage"), "Isp_v",
-           "eps", "dv m/s", _("share"), "n", _("propellant"), _("structure"), _("initial kg"),
-           _("burnout kg"));
-  /* Firing order, the first stage first. */
-  for (guint i = 0; i < s->n_stages; i++)
-    {
-      const SwStageResult *r = &s->stages[i];
-      g_autofree char *mp = sw_format_number (r->propellant_mass_kg, 1);
-      g_autofree char *ms = sw_format_number (r->structural_mass_kg, 1);
-      g_autofree char *m0 = sw_format_number (r->initial_mass_kg, 1);
-      g_autofree char *mf = sw_format_number (r->burnout_mass_kg, 1);
-      g_autofree char *sdv = sw_format_number (r->delta_v_m_s, 1);
-      g_autofree char *share = sw_format_number (r->delta_v_share, 3);
-      g_autofree char *n = sw_format_number (r->mass_ratio, 4);
-      g_autofree char *isp = sw_format_number (d->stages[i].isp_vac_s, 1);
-      g_autofree char *eps = sw_format_number (d->stages[i].structural_coefficient, 4);
-      g_autofree char *name = sw_cli_cell (d->stages[i].name, 20);
-      g_print ("%-3u %s %6s %6s %9s %6s %8s %12s %11s %13s %12s%s\n", i + 1, name, isp, eps, sdv,
-               share, n, mp, ms, m0, mf,
-               !r->feasible ? _("  INFEASIBLE") : r->unused ? _("  (unused)")
-               : r->fixed ? _("  (fixed load)") : "");
-    }
+  /* Each column as wide as its widest cell, counted in characters (a
+   * minus sign or a German digit group is one), so a huge vehicle keeps
+   * the columns aligned. */
+  {
+    enum { N_COLS = 11 };
+    static const int min_width[N_COLS] = { 3, 20, 6, 6, 9, 6, 8, 12, 11, 13, 12 };
+    g_autoptr (GPtrArray) rows = g_ptr_array_new_with_free_func ((GDestroyNotify) g_strfreev);
+    int width[N_COLS];
+
+    g_ptr_array_add (rows, g_strdupv ((char *[]) { "#", _("stage"), "Isp_v", "eps", "dv m/s",
+                                                   _("share"), "n", _("propellant"),
+                                                   _("structure"), _("initial kg"),
+                                                   _("burnout kg"), "", NULL }));
+    /* Firing order, the first stage first. */
+    for (guint i = 0; i < s->n_stages; i++)
+      {
+        const SwStageResult *r = &s->stages[i];
+        char **row = g_new0 (char *, N_COLS + 2);
+
+        row[0] = g_strdup_printf ("%u", i + 1);
+        row[1] = sw_cli_cell (d->stages[i].name, 20);
+        row[2] = sw_format_number (d->stages[i].isp_vac_s, 1);
+        row[3] = sw_format_number (d->stages[i].structural_coefficient, 4);
+        row[4] = sw_format_number (r->delta_v_m_s, 1);
+        row[5] = sw_format_number (r->delta_v_share, 3);
+        row[6] = sw_format_number (r->mass_ratio, 4);
+        row[7] = sw_format_number (r->propellant_mass_kg, 1);
+        row[8] = sw_format_number (r->structural_mass_kg, 1);
+        row[9] = sw_format_number (r->initial_mass_kg, 1);
+        row[10] = sw_format_number (r->burnout_mass_kg, 1);
+        row[11] = g_strdup (!r->feasible ? _("  INFEASIBLE") : r->unused ? _("  (unused)")
+                            : r->fixed ? _("  (fixed load)") : "");
+        g_ptr_array_add (rows, row);
+      }
+    for (int c = 0; c < N_COLS; c++)
+      {
+        width[c] = min_width[c];
+        for (guint k = 0; k < rows->len; k++)
+          width[c] = MAX (width[c], (int) g_utf8_strlen (((char **) rows->pdata[k])[c], -1));
+      }
+    g_print ("\n");
+    for (guint k = 0; k < rows->len; k++)
+      {
+        char **row = rows->pdata[k];
+        GString *line = g_string_new (NULL);
+
+        for (int c = 0; c < N_COLS; c++)
+          {
+            int pad = width[c] - (int) g_utf8_strlen (row[c], -1);
+            gboolean left = c < 2;
+
+            if (c > 0)
+              g_string_append_c (line, ' ');
+            if (!left)
+              for (int j = 0; j < pad; j++)
+                g_string_append_c (line, ' ');
+            g_string_append (line, row[c]);
+            if (left && c < N_COLS - 1)
+              for (int j = 0; j < pad; j++)
+                g_string_append_c (line, ' ');
+          }
+        g_string_append (line, row[N_COLS]);
+        g_print ("%s\n", line->str);
+        g_string_free (line, TRUE);
+      }
+  }
   if (s->boosters.present && s->feasible)
     {
       const SwBoosterResult *r = &s->boosters;

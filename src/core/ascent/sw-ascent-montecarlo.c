@@ -8,6 +8,7 @@
 #include "sw-ascent-montecarlo.h"
 
 #include "sw-ascent-private.h"
+#include "sw-format.h"
 #include "sw-sizing.h"
 
 #include <glib/gi18n-lib.h>
@@ -209,8 +210,9 @@ sw_ascent_montecarlo_run (const SwDesign *design, guint samples, guint32 seed, g
         return NULL;
       if (!loop->loop_converged)
         {
+          g_autofree char *why = sw_format_clause (loop->reason);
           g_set_error (error, SW_ERROR, SW_ERROR_VALUE,
-                       _("The Monte Carlo needs the nominal vehicle: %s"), loop->reason);
+                       _("The Monte Carlo needs the nominal vehicle: %s"), why);
           return NULL;
         }
       sw_ascent_apply_loop (nominal, loop);
@@ -222,8 +224,9 @@ sw_ascent_montecarlo_run (const SwDesign *design, guint samples, guint32 seed, g
     return NULL;
   if (nres->status != SW_ASCENT_REACHED && nres->status != SW_ASCENT_SHORT)
     {
+      g_autofree char *why = sw_format_clause (nres->reason);
       g_set_error (error, SW_ERROR, SW_ERROR_VALUE,
-                   _("The Monte Carlo needs a nominal vehicle that flies: %s"), nres->reason);
+                   _("The Monte Carlo needs a nominal vehicle that flies: %s"), why);
       return NULL;
     }
   job.hints.hold_kick = TRUE;

@@ -6,6 +6,7 @@
 #include "sw-ascent.h"
 
 #include "sw-ascent-private.h"
+#include "sw-format.h"
 #include "sw-atmosphere.h"
 #include "sw-budget.h"
 #include "sw-propulsion.h"
@@ -1391,12 +1392,16 @@ sw_flight_model_build (SwFlightModel *m, const SwDesign *d, const SwSizing *sz,
       if (!(thrust > mass * g))
         {
           res->status = SW_ASCENT_NO_SOLUTION;
+          g_autofree char *tw = sw_format_ratio (res->liftoff_thrust_to_weight, 3);
+          g_autofree char *kn = sw_format_number (thrust / 1000.0, 0);
+          g_autofree char *mass_text = sw_format_mass (mass);
+          /* Translators: a ratio ("0.452"), a thrust in kN ("1,250") and a
+           * mass ("155.1 t") */
           g_snprintf (res->reason, sizeof res->reason,
-                      _("The vehicle cannot lift off: its thrust-to-weight at liftoff is %.3f "
-                        "(%.0f kN at sea level against %.1f t with the fairing); it must "
+                      _("The vehicle cannot lift off: its thrust-to-weight at liftoff is %s "
+                        "(%s kN at sea level against %s with the fairing); it must "
                         "exceed 1, and common practice is 1.2 to 1.5. Give the first stage "
-                        "more thrust or the vehicle less mass."),
-                      res->liftoff_thrust_to_weight, thrust / 1000.0, mass / 1000.0);
+                        "more thrust or the vehicle less mass."), tw, kn, mass_text);
           return SW_BUILD_INFEASIBLE;
         }
     }

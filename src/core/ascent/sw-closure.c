@@ -7,6 +7,7 @@
 #include "sw-ascent.h"
 
 #include "sw-ascent-private.h"
+#include "sw-format.h"
 #include "sw-limits.h"
 
 #include <glib/gi18n-lib.h>
@@ -114,11 +115,29 @@ pass (Loop *lp, double L)
       return NAN;
     }
   if (!sizing.feasible)
-    g_snprintf (lp->why, sizeof lp->why, _("sized for %.0f m/s of losses the vehicle is "
-                                          "infeasible: %s"), L, sizing.reason);
+    {
+      g_autofree char *losses = sw_format_speed (L);
+      /* Translators: %s are a speed ("1,500 m/s") and the sizing's reason */
+      g_snprintf (lp->why, sizeof lp->why, _("sized for %s of losses the vehicle is "
+                                            "infeasible: %s"), losses, sizing.reason);
+    }
   else if (r->status != SW_ASCENT_REACHED && r->status != SW_ASCENT_SHORT)
-    g_snprintf (lp->why, sizeof lp->why, _("sized for %.0f m/s of losses (liftoff mass %.1f t): "
-                                          "%s"), L, sizing.liftoff_mass_kg / 1000.0, r->reason);
+    {
+      g_autofree char *losses = sw_format_speed (L);
+      g_autofree char *why = sw_format_clause (r->reason);
+
+      if (sizing.liftoff_mass_kg > 0.0 && isfinite (sizing.liftoff_mass_kg))
+        {
+          g_autofree char *mass = sw_format_mass (sizing.liftoff_mass_kg);
+          /* Translators: a speed ("1,500 m/s"), a mass ("155.1 t") and the
+           * ascent's reason, which starts with a small letter */
+          g_snprintf (lp->why, sizeof lp->why, _("sized for %s of losses (liftoff mass %s): %s"),
+                      losses, mass, why);
+        }
+      else
+        /* Translators: a speed ("1,500 m/s") and the ascent's reason */
+        g_snprintf (lp->why, sizeof lp->why, _("sized for %s of losses: %s"), losses, why);
+    }
   if (!sizing.feasible || (r->status != SW_ASCENT_REACHED && r->status != SW_ASCENT_SHORT))
     {
       lp->failed = TRUE;
@@ -270,9 +289,10 @@ restart:
     goto aborted;
   if (lp.failed || lp.full)
     {
+      g_autofree char *upto = sw_format_speed (L0);
+      /* Translators: a speed ("1,500 m/s") and why the last try failed */
       g_snprintf (lp.why, sizeof lp.why,
-                  _("no allowance from 0 to %.0f m/s gives a vehicle that flies; %s"), L0,
-                  fail_why);
+                  _("no allowance from 0 to %s gives a vehicle that flies; %s"), upto, fail_why);
       goto done;
     }
   /* 2. The bracket [lo, hi] with F(lo) > 0 > F(hi). */
@@ -304,9 +324,10 @@ restart:
 
               if (Lp <= 0.0)
                 {
+                  g_autofree char *lack = sw_format_speed (Fp);
                   g_snprintf (lp.why, sizeof lp.why,
                               _("no allowance reaches the orbit: sized with no loss allowance "
-                                "the vehicle lacks %.0f m/s"), Fp);
+                                "the vehicle lacks %s"), lack);
                   lp.failed = TRUE;
                   break;
                 }
@@ -323,12 +344,24 @@ restart:
                 }
               if (Fx >= Fp)
                 {
-                  g_snprintf (lp.why, sizeof lp.why,
-                              _("no allowance reaches the orbit: the least the vehicle lacks "
-                                "is about %.0f m/s, sized for %.0f m/s of losses (liftoff mass "
-                                "%.1f t)"),
-                              Fp, Lp, lp.mass[0] > 0.0 ? lp.res->sizing.liftoff_mass_kg / 1000.0
-                                                       : NAN);
+                  double m0 = lp.mass[0] > 0.0 ? lp.res->sizing.liftoff_mass_kg : NAN;
+                  g_autofree char *lack = sw_format_speed (Fp);
+                  g_autofree char *losses = sw_format_speed (Lp);
+
+                  if (m0 > 0.0 && isfinite (m0))
+                    {
+                      g_autofree char *mass = sw_format_mass (m0);
+                      /* Translators: two speeds ("850 m/s") and a mass ("155.1 t") */
+                      g_snprintf (lp.why, sizeof lp.why,
+                                  _("no allowance reaches the orbit: the least the vehicle lacks "
+                                    "is about %s, sized for %s of losses (liftoff mass %s)"),
+                                  lack, losses, mass);
+                    }
+                  else
+                    /* Translators: two speeds ("850 m/s", "1,500 m/s") */
+                    g_snprintf (lp.why, sizeof lp.why,
+                                _("no allowance reaches the orbit: the least the vehicle lacks "
+                                  "is about %s, sized for %s of losses"), lack, losses);
                   lp.failed = TRUE;
                   break;
                 }
@@ -360,10 +393,12 @@ restart:
               Ln = MIN (Ln, L_max);
               if (Ln - Lc < 0.5)
                 {
+                  g_autofree char *losses = sw_format_speed (Lc);
+                  g_autofree char *lack = sw_format_speed (Fc);
                   g_snprintf (lp.why, sizeof lp.why,
-                              _("no allowance reaches the orbit: sized for %.0f m/s of losses "
-                                "the vehicle still lacks %.0f m/s, and %s"),
-                              Lc, Fc, isfinite (L_fail) ? fail_why
+                              _("no allowance reaches the orbit: sized for %s of losses "
+                                "the vehicle still lacks %s, and %s"),
+                              losses, lack, isfinite (L_fail) ? fail_why
                                       : _("larger allowances lie beyond the accepted range"));
                   lp.failed = TRUE;
                   break;
@@ -396,10 +431,11 @@ restart:
                 }
               if (Fn >= Fc)
                 {
+                  g_autofree char *lack = sw_format_speed (Fc);
+                  g_autofree char *losses = sw_format_speed (Lc);
                   g_snprintf (lp.why, sizeof lp.why,
                               _("no allowance reaches the orbit: the least the vehicle lacks "
-                                "is about %.0f m/s, sized for %.0f m/s of losses"),
-                              Fc, Lc);
+                                "is about %s, sized for %s of losses"), lack, losses);
                   lp.failed = TRUE;
                   break;
                 }
@@ -422,9 +458,10 @@ restart:
       first_down = FALSE;
       if (La - Lb < 0.5)
         {
+          g_autofree char *spare = sw_format_speed (-Fa);
           g_snprintf (lp.why, sizeof lp.why,
-                      _("the vehicle sized with no loss allowance already has %.0f m/s to "
-                        "spare"), -Fa);
+                      _("the vehicle sized with no loss allowance already has %s to spare"),
+                      spare);
           lp.failed = TRUE;
           break;
         }
@@ -503,10 +540,15 @@ restart:
       else if (lp.failed)
         /* lp.why says why */;
       else
-        g_snprintf (lp.why, sizeof lp.why,
-                    _("the simulated losses jump by %.1f m/s across %.2f m/s of sizing "
-                      "allowance, near %.0f m/s"),
-                    fabs (lp.res_F), hi - lo, lo);
+        {
+          g_autofree char *jump = sw_format_number (fabs (lp.res_F), 1);
+          g_autofree char *near = sw_format_speed (lo);
+          /* Translators: a speed jump ("12.3"), a small span ("0.50") and a
+           * speed ("1,500 m/s") */
+          g_snprintf (lp.why, sizeof lp.why,
+                      _("the simulated losses jump by %s m/s across %.2f m/s of sizing "
+                        "allowance, near %s"), jump, hi - lo, near);
+        }
     }
 
 done:

@@ -608,6 +608,17 @@ sw_economics_validate (const SwEconomics *econ, guint n_stages, const char *file
 
       if (!sw_optional_check (SW_LIMIT_ENGINE_DRY_MASS, t->dry_mass_kg, file, ep, error))
         return FALSE;
+      /* The window names an engine type by its name: two with one name
+       * could not be told apart (renaming refuses it too). */
+      for (guint j = 0; j < i; j++)
+        if (g_strcmp0 (econ->engine_types[j].name, t->name) == 0)
+          {
+            sw_optional_set_error (error, SW_ERROR_VALUE, file,
+                                   _("%s.name: engine_types[%u] is already called \"%s\"; "
+                                     "each engine type needs a name of its own"),
+                                   ep, j, t->name);
+            return FALSE;
+          }
       if (t->stage_mask >> n_stages != 0)
         {
           sw_optional_set_error (error, SW_ERROR_RANGE, file,

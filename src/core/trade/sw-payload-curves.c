@@ -7,6 +7,7 @@
 
 #include "sw-ascent.h"
 #include "sw-budget.h"
+#include "sw-format.h"
 #include "sw-limits.h"
 
 #include <glib/gi18n-lib.h>
@@ -130,7 +131,8 @@ flown_losses (const SwDesign *design, double altitude_km, double inclination_deg
   if ((res->status != SW_ASCENT_REACHED && res->status != SW_ASCENT_SHORT)
       || !isfinite (res->losses_m_s))
     {
-      g_snprintf (reason, SW_REASON_MAX, _("the ascent could not be flown: %s"), res->reason);
+      g_autofree char *why = sw_format_clause (res->reason);
+      g_snprintf (reason, SW_REASON_MAX, _("the ascent could not be flown: %s"), why);
       return NAN;
     }
   return res->losses_m_s;

@@ -50,6 +50,13 @@ char       *sw_format_volume_m3 (double m3);            /* "64.9 m³", "1,250 m�
 /* printf-style with one double; SW_NO_VALUE when @value is not finite. */
 char       *sw_format_value (const char *format, double value) G_GNUC_FORMAT (1);
 
+/* @sentence made a clause to follow a colon or a semicolon: its first
+ * letter in lower case ("No ascent: …" -> "no ascent: …"), unless the first
+ * word is an abbreviation or a symbol in capitals ("T/W", "Isp", "ΔV" stay).
+ * German nouns keep their capital: the translation decides through the
+ * "clause-lowercase" message (see the code). */
+char       *sw_format_clause (const char *sentence);
+
 /* The cautions every export, report and the About dialog carry (translated).
  * One sentence pair, written once. */
 const char *sw_format_cautions (void);

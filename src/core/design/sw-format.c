@@ -247,6 +247,39 @@ sw_format_value (const char *format, double value)
 #pragma GCC diagnostic pop
 }
 
+char *
+sw_format_clause (const char *sentence)
+{
+  const char *second;
+  gunichar first, next;
+  GString *s;
+
+  if (sentence == NULL)
+    return g_strdup ("");
+  /* Translators: "yes" if a sentence joined after a colon starts with a
+   * small letter in your language ("…: no ascent"); anything else keeps
+   * the sentence's first letter as it is (German: nouns keep capitals, so
+   * translate this as "no"). */
+  if (g_strcmp0 (C_("clause-lowercase", "yes"), "yes") != 0)
+    return g_strdup (sentence);
+  if (!g_utf8_validate (sentence, -1, NULL) || *sentence == '\0')
+    return g_strdup (sentence);
+  first = g_utf8_get_char (sentence);
+  second = g_utf8_next_char (sentence);
+  next = *second != '\0' ? g_utf8_get_char (second) : 0;
+  /* "T/W", "Isp"?  Only a plain capitalised word is lowered: the next
+   * character a small letter or a space. */
+  if (!g_unichar_isupper (first) || !(g_unichar_islower (next) || next == ' '))
+    return g_strdup (sentence);
+  /* "Isp": a known abbreviation written with one capital. */
+  if (g_str_has_prefix (sentence, "Isp"))
+    return g_strdup (sentence);
+  s = g_string_new (NULL);
+  g_string_append_unichar (s, g_unichar_tolower (first));
+  g_string_append (s, second);
+  return g_string_free (s, FALSE);
+}
+
 const char *
 sw_format_cautions (void)
 {
