@@ -572,19 +572,26 @@ sw_sheet_draw_tornado (cairo_t *cr, const SwDesign *design, const SwSensitivityT
 
       /* Two lines: what, then which stage. */
       {
+        gboolean booster = it->param == SW_SENS_BOOSTER_ISP
+                           || it->param == SW_SENS_BOOSTER_STRUCTURAL_COEFFICIENT;
         const char *what = it->param == SW_SENS_PAYLOAD ? _("Payload")
                            : it->param == SW_SENS_DELTA_V ? _("Required \316\224v")
-                           : it->param == SW_SENS_ISP ? _("Isp")
+                           : it->param == SW_SENS_ISP || it->param == SW_SENS_BOOSTER_ISP
+                             ? _("Isp")
                            : _("Structural coefficient");
-        if (it->stage >= 0 && row_h >= 14.0)
+        if ((it->stage >= 0 || booster) && row_h >= 14.0)
           {
-            g_autofree char *which = g_strdup_printf (_("stage %d \302\267 %s"), it->stage + 1,
-                                                      design->stages[it->stage].name);
+            g_autofree char *which = booster
+                                       ? g_strdup_printf (_("boosters \302\267 %s"),
+                                                          design->boosters.name)
+                                       : g_strdup_printf (_("stage %d \302\267 %s"),
+                                                          it->stage + 1,
+                                                          design->stages[it->stage].name);
             TextStyle ws = sw_sheet_style_w (6.3, FALSE, MUTED, PANGO_ALIGN_LEFT, label_w - 4);
             sw_sheet_text_centered_v (cr, what, x, cy - 3.6, &lab);
             sw_sheet_text_centered_v (cr, which, x, cy + 4.2, &ws);
           }
-        else if (it->stage >= 0)
+        else if (it->stage >= 0 || booster)
           {
             g_autofree char *label = sw_sensitivity_dup_label (design, it);
             sw_sheet_text_centered_v (cr, label, x, cy, &lab);
