@@ -305,6 +305,57 @@ test_fixed_load_note (void)
                        && isnan (fixed.points[k].liftoff_mass_kg)));
 }
 
+/* With strap-on boosters: besides the serial curve, the same boosters beside
+ * 1..N stages.  Its point at the design's own count is the design's sizing
+ * (the window's "this design" sits on it), and its point at another count
+ * is the sizing of the design with that many stages (the curve's rule: the
+ * top stage repeated), both through sw_size_design. */
+static void
+test_stage_curve_with_boosters (void)
+{
+  for (int fixed = 1; fixed >= 0; fixed--)
+    {
+      g_autoptr (SwDesign) d = two_stage_design (9300.0);
+      g_autoptr (SwDesign) three = NULL;
+      SwStageCurve curve, serial;
+      SwSizing own, s3;
+
+      d->stages[0].propulsion.thrust_vac_kn = 1300.0;
+      d->stages[0].propulsion.has_thrust = TRUE;
+      d->boosters.count = 4;
+      g_strlcpy (d->boosters.name, "Sides", sizeof d->boosters.name);
+      d->boosters.isp_vac_s = 275.0;
+      d->boosters.structural_coefficient = 0.11;
+      d->boosters.thrust_vac_kn = 800.0;
+      d->boosters.propellant.has_propellant_kg = fixed;
+      d->boosters.propellant.propellant_kg = fixed ? 12000.0 : 0.0;
+      g_assert_true (sw_design_validate (d, "curve.stagewright", NULL));
+
+      sw_stage_curve_compute (d, 9300.0, 6, &curve);
+      g_assert_cmpuint (curve.booster_count, ==, 4);
+      g_assert_cmpstr (curve.booster_note, !=, "");
+      g_assert_true (sw_size_design (d, &own, NULL));
+      g_assert_true (own.feasible && curve.booster_points[1].feasible);
+      assert_rel (curve.booster_points[1].liftoff_mass_kg, own.liftoff_mass_kg, 1e-9);
+
+      three = sw_design_copy (d);
+      three->stages[2] = three->stages[1];
+      three->n_stages = 3;
+      g_assert_true (sw_size_design (three, &s3, NULL));
+      g_assert_true (s3.feasible && curve.booster_points[2].feasible);
+      assert_rel (curve.booster_points[2].liftoff_mass_kg, s3.liftoff_mass_kg, 1e-9);
+
+      /* The serial points stay those of the stages without boosters. */
+      d->boosters.count = 0;
+      sw_stage_curve_compute (d, 9300.0, 6, &serial);
+      g_assert_cmpuint (serial.booster_count, ==, 0);
+      g_assert_cmpstr (serial.booster_note, ==, "");
+      for (guint k = 0; k < 6; k++)
+        if (serial.points[k].feasible)
+          assert_rel (curve.points[k].liftoff_mass_kg, serial.points[k].liftoff_mass_kg, 1e-12);
+    }
+}
+
 int
 main (int argc, char **argv)
 {
@@ -318,6 +369,7 @@ main (int argc, char **argv)
   g_test_add_func ("/core/curves/sweep-extends-top-stage", test_sweep_extends_top_stage);
   g_test_add_func ("/core/curves/sweep-clamps", test_sweep_clamps);
   g_test_add_func ("/core/curves/fixed-load-note", test_fixed_load_note);
+  g_test_add_func ("/core/curves/stage-curve-with-boosters", test_stage_curve_with_boosters);
 
   return g_test_run ();
 }

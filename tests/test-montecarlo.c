@@ -385,6 +385,116 @@ test_cancellable (void)
   g_thread_join (canceller);
 }
 
+/* Two stages and four strap-ons (invented; the shape of the demo
+ * four-booster-cargo); %s is the boosters' fixed load or nothing. */
+static const char *booster_json =
+  "{ \"format\": \"stagewright-design\", \"version\": 2, \"name\": \"mc boosters\",\n"
+  "  \"payload_kg\": 6000, \"mission\": { \"delta_v_m_s\": 9300 }, \"split\": \"optimal\",\n"
+  "  \"stages\": [\n"
+  "    { \"isp_vac_s\": 320, \"structural_coefficient\": 0.07, \"thrust_vac_kn\": 1300 },\n"
+  "    { \"isp_vac_s\": 345, \"structural_coefficient\": 0.09 } ],\n"
+  "  \"boosters\": { \"count\": 4, \"isp_vac_s\": 275, \"structural_coefficient\": 0.11,\n"
+  "                  \"thrust_vac_kn\": 800%s },\n"
+  "  \"uncertainty\": { \"seed\": 7,\n"
+  "    \"isp_vac\": { \"distribution\": \"normal\", \"sigma_percent\": 0.2 },\n"
+  "    \"structural_coefficient\": { \"distribution\": \"uniform\", \"half_range_percent\": 2 },\n"
+  "    \"losses\": { \"distribution\": \"normal\", \"sigma_m_s\": 20 } } }";
+
+static SwDesign *
+booster_design (gboolean fixed_boosters)
+{
+  g_autofree char *json = g_strdup_printf (booster_json,
+                                           fixed_boosters ? ", \"propellant_kg\": 30000" : "");
+  g_autoptr (GError) error = NULL;
+  SwDesign *d = load (json, &error);
+
+  g_assert_no_error (error);
+  return d;
+}
+
+/* Boosters with a fixed load: the samples re-size the phased vehicle (the
+ * boosters kept).  Small spreads: the mean liftoff mass lies near the
+ * nominal, the payload of the built vehicle near the required one, and the
+ * spread agrees with first-order propagation through the sensitivity
+ * table's derivatives (the boosters' Isp and structure included). */
+static void
+test_boosters_fixed (void)
+{
+  g_autoptr (SwDesign) d = booster_design (TRUE);
+  const guint n = 4000;
+  SwSensitivityTable t;
+  SwMonteCarlo mc, two;
+  double var = 0.0, se;
+
+  g_assert_true (sw_sensitivity_compute (d, 0.05, &t, NULL));
+  g_assert_true (t.feasible);
+  for (guint i = 0; i < t.n_items; i++)
+    {
+      const SwSensitivity *it = &t.items[i];
+      double u = 0.0;
+
+      if (it->param == SW_SENS_ISP || it->param == SW_SENS_BOOSTER_ISP)
+        u = it->value * 0.002;
+      else if (it->param == SW_SENS_STRUCTURAL_COEFFICIENT
+               || it->param == SW_SENS_BOOSTER_STRUCTURAL_COEFFICIENT)
+        u = it->value * 0.02 / sqrt (3.0);
+      else if (it->param == SW_SENS_DELTA_V)
+        u = 20.0;
+      var += pow (it->derivative * u, 2);
+    }
+  g_assert_true (sw_montecarlo_run (d, NULL, n, TRUE, 7, 0, &mc, NULL, NULL, NULL));
+  g_assert_true (mc.nominal_feasible);
+  g_assert_cmpfloat (mc.infeasible_fraction, ==, 0.0);
+  g_assert_cmpfloat (mc.nominal_liftoff_kg, ==, t.liftoff_mass_kg);
+  se = mc.liftoff.sd / sqrt (n);
+  g_test_message ("boosters fixed: mean - nominal = %.4g kg (standard error %.3g kg); "
+                  "sd / propagated - 1 = %.3g", mc.liftoff.mean - mc.nominal_liftoff_kg, se,
+                  mc.liftoff.sd / sqrt (var) - 1.0);
+  /* Four standard errors, plus the second-order bias: below 1e-4 of the
+   * mass at these spreads (the curvature measured by the tornado). */
+  g_assert_cmpfloat (fabs (mc.liftoff.mean - mc.nominal_liftoff_kg), <,
+                     4.0 * se + 1e-4 * mc.nominal_liftoff_kg);
+  /* The sample sd's relative standard error is 1/sqrt(2 (N - 1)), 1.1 % at
+   * N = 4000 (common practice): three of them. */
+  g_assert_cmpfloat (fabs (mc.liftoff.sd / sqrt (var) - 1.0), <, 3.0 / sqrt (2.0 * (n - 1)));
+  /* Question 2: the vehicle as built carries about the required payload on
+   * average and falls short about half of the time. */
+  g_assert_cmpuint (mc.payload.n, ==, n);
+  g_assert_cmpfloat (fabs (mc.payload.mean - d->payload_kg), <,
+                     4.0 * mc.payload.sd / sqrt (n) + 1e-3 * d->payload_kg);
+  g_assert_cmpfloat (mc.p_negative_margin, >, 0.4);
+  g_assert_cmpfloat (mc.p_negative_margin, <, 0.6);
+  /* The thread count changes nothing. */
+  g_assert_true (sw_montecarlo_run (d, NULL, 600, TRUE, 7, 1, &mc, NULL, NULL, NULL));
+  g_assert_true (sw_montecarlo_run (d, NULL, 600, TRUE, 7, 2, &two, NULL, NULL, NULL));
+  g_assert_cmpmem (&mc.liftoff, sizeof mc.liftoff, &two.liftoff, sizeof two.liftoff);
+  g_assert_cmpmem (&mc.payload, sizeof mc.payload, &two.payload, sizeof two.payload);
+}
+
+/* Sized boosters: their load is re-optimised per sample (a few hundred
+ * samples: each is an optimisation).  The mean lies near the nominal. */
+static void
+test_boosters_sized (void)
+{
+  g_autoptr (SwDesign) d = booster_design (FALSE);
+  const guint n = 200;
+  SwMonteCarlo mc;
+  SwSizing s;
+
+  g_assert_true (sw_size_design (d, &s, NULL));
+  g_assert_true (s.feasible && s.boosters.present && !s.boosters.fixed);
+  g_assert_true (sw_montecarlo_run (d, NULL, n, TRUE, 7, 0, &mc, NULL, NULL, NULL));
+  g_assert_cmpfloat (mc.nominal_liftoff_kg, ==, s.liftoff_mass_kg);
+  g_assert_cmpuint (mc.liftoff.n, ==, n);
+  g_test_message ("boosters sized: mean - nominal = %.4g kg, sd %.4g kg",
+                  mc.liftoff.mean - mc.nominal_liftoff_kg, mc.liftoff.sd);
+  g_assert_cmpfloat (mc.liftoff.sd, >, 0.0);
+  g_assert_cmpfloat (fabs (mc.liftoff.mean - mc.nominal_liftoff_kg), <,
+                     4.0 * mc.liftoff.sd / sqrt (n) + 1e-4 * mc.nominal_liftoff_kg);
+  g_assert_cmpfloat (fabs (mc.payload.mean - d->payload_kg), <,
+                     4.0 * mc.payload.sd / sqrt (n) + 1e-3 * d->payload_kg);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -399,5 +509,7 @@ main (int argc, char **argv)
   g_test_add_func ("/core/montecarlo/band", test_band);
   g_test_add_func ("/core/montecarlo/keys", test_keys);
   g_test_add_func ("/core/montecarlo/cancellable", test_cancellable);
+  g_test_add_func ("/core/montecarlo/boosters-fixed", test_boosters_fixed);
+  g_test_add_func ("/core/montecarlo/boosters-sized", test_boosters_sized);
   return g_test_run ();
 }

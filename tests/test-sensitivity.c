@@ -359,6 +359,150 @@ test_table (void)
   g_assert_error (error, SW_ERROR, SW_ERROR_USAGE);
 }
 
+/* An invented two-stage vehicle with four strap-ons (the shape of the demo
+ * four-booster-cargo, with a loss allowance so no ascent is flown). */
+static const char *booster_json =
+  "{ \"format\": \"stagewright-design\", \"version\": 2, \"name\": \"Strap-on test\",\n"
+  "  \"payload_kg\": 6000, \"split\": \"optimal\",\n"
+  "  \"mission\": { \"orbit\": { \"altitude_km\": 400, \"inclination_deg\": 45,\n"
+  "                 \"site_latitude_deg\": 40 }, \"losses_m_s\": 1600 },\n"
+  "  \"stages\": [\n"
+  "    { \"name\": \"Core\", \"isp_vac_s\": 320, \"structural_coefficient\": 0.07,\n"
+  "      \"thrust_vac_kn\": 1300 },\n"
+  "    { \"name\": \"Upper\", \"isp_vac_s\": 345, \"structural_coefficient\": 0.09 } ],\n"
+  "  \"boosters\": { \"name\": \"Sides\", \"count\": 4, \"isp_vac_s\": 275,\n"
+  "    \"structural_coefficient\": 0.11, \"thrust_vac_kn\": 800%s } }";
+
+static SwDesign *
+booster_design (gboolean fixed_boosters)
+{
+  g_autofree char *json = g_strdup_printf (booster_json,
+                                           fixed_boosters ? ", \"propellant_kg\": 30000" : "");
+  g_autoptr (GError) error = NULL;
+  SwDesign *d = sw_design_load_data (json, -1, "boosters.stagewright", NULL, &error);
+
+  g_assert_no_error (error);
+  return d;
+}
+
+/* The design with one input of the table times @factor (a design edit, so
+ * the sizing below is sw_size_design's own); the liftoff mass, NAN when
+ * infeasible. */
+static double
+edited_mass (const SwDesign *d, const SwSensitivity *it, double factor)
+{
+  g_autoptr (SwDesign) e = sw_design_copy (d);
+  SwSizing s;
+
+  switch (it->param)
+    {
+    case SW_SENS_PAYLOAD:
+      e->payload_kg *= factor;
+      break;
+    case SW_SENS_DELTA_V:
+      /* The required delta-v is ideal + losses: move the losses. */
+      e->mission.losses_m_s += (factor - 1.0) * it->value;
+      break;
+    case SW_SENS_ISP:
+      e->stages[it->stage].isp_vac_s *= factor;
+      break;
+    case SW_SENS_STRUCTURAL_COEFFICIENT:
+      e->stages[it->stage].structural_coefficient *= factor;
+      break;
+    case SW_SENS_BOOSTER_ISP:
+      e->boosters.isp_vac_s *= factor;
+      break;
+    case SW_SENS_BOOSTER_STRUCTURAL_COEFFICIENT:
+    default:
+      e->boosters.structural_coefficient *= factor;
+      break;
+    }
+  g_assert_true (sw_size_design (e, &s, NULL));
+  return s.feasible ? s.liftoff_mass_kg : NAN;
+}
+
+/* With boosters, fixed or sized: the table has the boosters' two items;
+ * every derivative agrees with a central difference of two direct sizings
+ * of the edited design (step 0.3 %, three times the table's own), and every
+ * tornado bar is the direct sizing of the design edited by the step. */
+static void
+test_boosters_against_direct_sizings (void)
+{
+  for (int fixed = 1; fixed >= 0; fixed--)
+    {
+      g_autoptr (SwDesign) d = booster_design (fixed);
+      g_autoptr (GError) error = NULL;
+      SwSensitivityTable t;
+      SwSizing s;
+      guint booster_items = 0;
+
+      g_assert_true (sw_size_design (d, &s, NULL));
+      g_assert_true (s.feasible && s.boosters.present);
+      g_assert_true (sw_sensitivity_compute (d, 0.05, &t, &error));
+      g_assert_no_error (error);
+      g_assert_true (t.feasible);
+      g_assert_cmpuint (t.n_items, ==, 4 + 2 * d->n_stages);
+      g_assert_cmpfloat (t.liftoff_mass_kg, ==, s.liftoff_mass_kg);
+      for (guint i = 0; i < t.n_items; i++)
+        {
+          const SwSensitivity *it = &t.items[i];
+          double h = 0.003;
+          double fd = (edited_mass (d, it, 1.0 + h) - edited_mass (d, it, 1.0 - h))
+                      / (2.0 * h * it->value);
+          double plus = edited_mass (d, it, 1.05), minus = edited_mass (d, it, 0.95);
+
+          booster_items += it->param == SW_SENS_BOOSTER_ISP
+                           || it->param == SW_SENS_BOOSTER_STRUCTURAL_COEFFICIENT;
+          g_test_message ("%s boosters, %s stage %d: derivative %.8g, direct %.8g",
+                          fixed ? "fixed" : "sized", sw_sens_param_to_string (it->param),
+                          it->stage, it->derivative, fd);
+          /* A central difference errs by h^2 times the third derivative over
+           * 6: about 1e-5 of the derivative at h = 0.3 % on a smooth function
+           * (common practice). */
+          g_assert_cmpfloat (fabs (it->derivative - fd), <, 1e-3 * fabs (fd));
+          g_assert_true (it->plus_feasible && it->minus_feasible);
+          g_assert_cmpfloat (fabs (it->plus_kg - (plus - s.liftoff_mass_kg)), <,
+                             1e-7 * s.liftoff_mass_kg);
+          g_assert_cmpfloat (fabs (it->minus_kg - (minus - s.liftoff_mass_kg)), <,
+                             1e-7 * s.liftoff_mass_kg);
+          /* A higher Isp lightens the vehicle; more payload, delta-v or
+           * structure make it heavier (common practice). */
+          if (it->param == SW_SENS_ISP || it->param == SW_SENS_BOOSTER_ISP)
+            g_assert_cmpfloat (it->derivative, <, 0.0);
+          else
+            g_assert_cmpfloat (it->derivative, >, 0.0);
+        }
+      g_assert_cmpuint (booster_items, ==, 2);
+      /* The top stage's dry mass and the payload are interchangeable. */
+      g_assert_cmpfloat (fabs (t.exchange_ratio[d->n_stages - 1] - 1.0), <, 1e-6);
+      g_assert_cmpfloat (t.exchange_ratio[0], >, 0.0);
+      g_assert_cmpfloat (t.exchange_ratio[0], <, 1.0);
+    }
+}
+
+/* Sized boosters: every relation of the parallel-staging formulas
+ * (shared/reference-values.md, "Parallel staging") is a ratio of masses, and
+ * the thrusts enter only as F_core / F_b, so the liftoff mass is homogeneous
+ * of degree 1 in the payload (Euler): dm0/dP = m0/P, elasticity 1. */
+static void
+test_boosters_payload_homogeneous (void)
+{
+  g_autoptr (SwDesign) d = booster_design (FALSE);
+  SwSensitivityTable t;
+  guint found = 0;
+
+  g_assert_true (sw_sensitivity_compute (d, 0.05, &t, NULL));
+  for (guint i = 0; i < t.n_items; i++)
+    if (t.items[i].param == SW_SENS_PAYLOAD)
+      {
+        found++;
+        g_assert_cmpfloat (fabs (t.items[i].derivative - t.liftoff_mass_kg / t.payload_kg), <,
+                           1e-6 * t.liftoff_mass_kg / t.payload_kg);
+        g_assert_cmpfloat (fabs (t.items[i].elasticity - 1.0), <, 1e-6);
+      }
+  g_assert_cmpuint (found, ==, 1);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -371,5 +515,9 @@ main (int argc, char **argv)
   g_test_add_func ("/core/sensitivity/exchange-ratios", test_exchange_ratios);
   g_test_add_func ("/core/sensitivity/exchange-vs-resizing", test_exchange_ratio_vs_resizing);
   g_test_add_func ("/core/sensitivity/table", test_table);
+  g_test_add_func ("/core/sensitivity/boosters-vs-direct-sizings",
+                   test_boosters_against_direct_sizings);
+  g_test_add_func ("/core/sensitivity/boosters-payload-homogeneous",
+                   test_boosters_payload_homogeneous);
   return g_test_run ();
 }

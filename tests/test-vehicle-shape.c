@@ -207,6 +207,60 @@ test_no_shape_says_why (void)
   assert_near (v.stages[1].diameter_m, 3.7, 0.0);
 }
 
+/* Strap-on boosters beside the core: one booster's length is the shape of
+ * its own propellant load (sized or fixed) at its diameter, which without
+ * its own is half the core's; boosters without a propellant leave the
+ * vehicle without a shape, and say so. */
+static void
+test_boosters_shape (void)
+{
+  static const char *json =
+    "{ \"format\": \"stagewright-design\", \"version\": 2, \"name\": \"b\",\n"
+    "  \"payload_kg\": 6000, \"mission\": { \"delta_v_m_s\": 9300 }, \"split\": \"optimal\",\n"
+    "  \"stages\": [ { \"isp_vac_s\": 320, \"structural_coefficient\": 0.07,\n"
+    "      \"thrust_vac_kn\": 1300, \"diameter_m\": 3.6, \"propellant\": \"lox-kerosene\" },\n"
+    "    { \"isp_vac_s\": 345, \"structural_coefficient\": 0.09,\n"
+    "      \"propellant\": \"lox-kerosene\" } ],\n"
+    "  \"boosters\": { \"count\": 4, \"isp_vac_s\": 275, \"structural_coefficient\": 0.11,\n"
+    "    \"thrust_vac_kn\": 800, \"propellant_kg\": 30000%s } }";
+  double thin_length = NAN;
+  const char *variants[] = { ", \"propellant\": \"solid-composite\", \"diameter_m\": 1.6",
+                             ", \"propellant\": \"solid-composite\"", "" };
+
+  for (guint k = 0; k < G_N_ELEMENTS (variants); k++)
+    {
+      g_autofree char *text = g_strdup_printf (json, variants[k]);
+      g_autoptr (GError) error = NULL;
+      g_autoptr (SwDesign) d = sw_design_load_data (text, -1, "b.stagewright", NULL, &error);
+      SwVehicleShape v;
+      SwStageShape want;
+      SwSizing s;
+      double dia = k == 0 ? 1.6 : 1.8;
+
+      g_assert_no_error (error);
+      g_assert_true (sw_size_design (d, &s, NULL));
+      g_assert_true (s.feasible && s.boosters.present);
+      sw_vehicle_shape_compute (d, &s, &v);
+      if (k == 2)
+        {
+          g_assert_false (v.complete);
+          g_assert_nonnull (strstr (v.reason, "boosters"));
+          g_assert_cmpuint (v.n_boosters, ==, 0);
+          continue;
+        }
+      g_assert_true (v.complete);
+      g_assert_cmpuint (v.n_boosters, ==, 4);
+      assert_near (v.booster_diameter_m, dia, 0.0);
+      sw_stage_shape (&d->boosters.propellant, 30000.0, dia, &want);
+      g_assert_true (want.has_length);
+      assert_near (v.booster_length_m, want.length_m, 1e-12);
+      /* The same load in a wider booster (1.8 m against 1.6 m) is shorter. */
+      if (k == 1)
+        g_assert_cmpfloat (v.booster_length_m, <, thin_length);
+      thin_length = v.booster_length_m;
+    }
+}
+
 int
 main (int argc, char **argv)
 {
@@ -216,5 +270,6 @@ main (int argc, char **argv)
   g_test_add_func ("/vehicle-shape/tank-area-quadrature", test_tank_area_quadrature);
   g_test_add_func ("/vehicle-shape/height", test_vehicle_height);
   g_test_add_func ("/vehicle-shape/no-shape-says-why", test_no_shape_says_why);
+  g_test_add_func ("/vehicle-shape/boosters", test_boosters_shape);
   return g_test_run ();
 }

@@ -46,8 +46,9 @@ void
 sw_trade_plots_show_stage_count (SwPlot *plot, SwAnalysis *r)
 {
   const SwStageCurve *curve;
-  double x[SW_MAX_STAGES], y[SW_MAX_STAGES];
+  double x[SW_MAX_STAGES], y[SW_MAX_STAGES], yb[SW_MAX_STAGES];
   double y_top = 0.0, cx, cy;
+  gboolean boosters;
 
   g_return_if_fail (SW_IS_PLOT (plot));
 
@@ -64,12 +65,17 @@ sw_trade_plots_show_stage_count (SwPlot *plot, SwAnalysis *r)
     return;
 
   curve = &r->stage_curve;
+  boosters = curve->booster_count > 0;
   for (guint k = 0; k < curve->n_points; k++)
     {
       x[k] = curve->points[k].stages;
       y[k] = curve->points[k].feasible ? curve->points[k].liftoff_mass_kg : NAN;
+      yb[k] = boosters && curve->booster_points[k].feasible
+                ? curve->booster_points[k].liftoff_mass_kg : NAN;
       if (isfinite (y[k]))
         y_top = MAX (y_top, y[k]);
+      if (isfinite (yb[k]))
+        y_top = MAX (y_top, yb[k]);
     }
   if (r->sizing.feasible && isfinite (r->sizing.liftoff_mass_kg))
     y_top = MAX (y_top, r->sizing.liftoff_mass_kg);
@@ -82,16 +88,35 @@ sw_trade_plots_show_stage_count (SwPlot *plot, SwAnalysis *r)
   {
     double y_min = INFINITY, y_max = 0.0;
     for (guint k = 0; k < curve->n_points; k++)
-      if (isfinite (y[k]) && y[k] > 0.0)
+      for (guint j = 0; j < 2; j++)
         {
-          y_min = MIN (y_min, y[k]);
-          y_max = MAX (y_max, y[k]);
+          double v = j == 0 ? y[k] : yb[k];
+          if (isfinite (v) && v > 0.0)
+            {
+              y_min = MIN (y_min, v);
+              y_max = MAX (y_max, v);
+            }
         }
     if (isfinite (y_min) && y_max < 1.05 * y_min)
       sw_plot_set_y_range (plot, y_min / 2.0, y_max * 2.0);
   }
   sw_trade_plots_add_band (plot, r);
-  sw_plot_add_series (plot, _("Optimal split"), x, y, curve->n_points, SW_PLOT_LINE_POINTS, 0);
+  if (boosters)
+    {
+      /* Translators: the stage-count curve of a design with strap-ons: the
+       * same stages without them */
+      g_autofree char *with = g_strdup_printf (g_dngettext (GETTEXT_PACKAGE,
+                                                            "With %u booster (this design's)",
+                                                            "With %u boosters (this design's)",
+                                                            curve->booster_count),
+                                               curve->booster_count);
+      sw_plot_add_series (plot, _("Serial, no boosters"), x, y, curve->n_points,
+                          SW_PLOT_LINE_POINTS, 0);
+      sw_plot_add_series (plot, with, x, yb, curve->n_points, SW_PLOT_LINE_POINTS, 1);
+    }
+  else
+    sw_plot_add_series (plot, _("Optimal split"), x, y, curve->n_points, SW_PLOT_LINE_POINTS,
+                        0);
   sw_trade_plots_add_baseline (plot, r, 0);
   /* One label for the crosses, never one per cross: side by side, the
    * labels of neighbouring counts were printed over each other. */

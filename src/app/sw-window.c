@@ -199,6 +199,13 @@ solved_cb (SwWindow *self, SwAnalysis *result)
     }
   {
     const char *note = sw_trade_plots_note (result);
+    g_autofree char *joined = NULL;
+
+    if (result->ok && !result->payload_curves.applies
+        && result->stage_curve.booster_note[0] != '\0')
+      note = joined = note[0] != '\0'
+                        ? g_strconcat (note, " ", result->stage_curve.booster_note, NULL)
+                        : g_strdup (result->stage_curve.booster_note);
     if (g_strcmp0 (gtk_label_get_text (self->curves_note), note) != 0)
       gtk_label_set_text (self->curves_note, note);
     gtk_widget_set_visible (GTK_WIDGET (self->curves_note), note[0] != '\0');

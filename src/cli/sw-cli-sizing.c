@@ -772,6 +772,27 @@ sw_cli_curve (int argc, char **argv)
           json_builder_end_object (b);
         }
       json_builder_end_array (b);
+      /* With boosters: the same boosters beside 1..N stages (null without). */
+      json_builder_set_member_name (b, "boosters_note");
+      json_builder_add_string_value (b, curve->booster_note);
+      json_builder_set_member_name (b, "points_with_boosters");
+      if (curve->booster_count == 0)
+        json_builder_add_null_value (b);
+      else
+        {
+          json_builder_begin_array (b);
+          for (guint i = 0; i < n; i++)
+            {
+              json_builder_begin_object (b);
+              json_builder_set_member_name (b, "stages");
+              json_builder_add_int_value (b, curve->booster_points[i].stages);
+              json_builder_set_member_name (b, "feasible");
+              json_builder_add_boolean_value (b, curve->booster_points[i].feasible);
+              sw_cli_add_number (b, "liftoff_mass_kg", curve->booster_points[i].liftoff_mass_kg);
+              json_builder_end_object (b);
+            }
+          json_builder_end_array (b);
+        }
       sw_cli_finish_json (b);
       return SW_EXIT_OK;
     }
@@ -789,6 +810,19 @@ sw_cli_curve (int argc, char **argv)
       g_autofree char *l = sw_format_number (curve->points[i].delta_v_limit_m_s, 1);
       g_print ("%-7u %16s %16s  %s\n", curve->points[i].stages, m, l,
                curve->points[i].feasible ? "" : _("infeasible: beyond the delta-v limit"));
+    }
+  if (curve->booster_count > 0)
+    {
+      g_print (g_dngettext (GETTEXT_PACKAGE, "\nWith this design's %u booster:\n",
+                            "\nWith this design's %u boosters:\n", curve->booster_count),
+               curve->booster_count);
+      for (guint i = 0; i < n; i++)
+        {
+          g_autofree char *m = sw_format_number (curve->booster_points[i].liftoff_mass_kg, 1);
+          g_print ("%-7u %16s  %s\n", curve->booster_points[i].stages, m,
+                   curve->booster_points[i].feasible ? "" : _("infeasible"));
+        }
+      g_print (_("\nNote: %s\n"), curve->booster_note);
     }
   if (curve->note[0] != '\0')
     g_print (_("\nNote: %s\n"), curve->note);

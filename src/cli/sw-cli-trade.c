@@ -42,6 +42,7 @@ unit_of (SwSensParam p)
     case SW_SENS_DELTA_V:
       return "kg/(m/s)";
     case SW_SENS_ISP:
+    case SW_SENS_BOOSTER_ISP:
       return "kg/s";
     case SW_SENS_STRUCTURAL_COEFFICIENT:
     default:

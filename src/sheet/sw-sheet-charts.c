@@ -204,6 +204,12 @@ sw_sheet_draw_stage_curve (cairo_t *cr, const SwStageCurve *curve, const SwMcBan
       vmin = MIN (vmin, design_point);
       vmax = MAX (vmax, design_point);
     }
+  for (guint i = 0; curve->booster_count > 0 && i < curve->n_points; i++)
+    if (curve->booster_points[i].feasible)
+      {
+        vmin = MIN (vmin, curve->booster_points[i].liftoff_mass_kg);
+        vmax = MAX (vmax, curve->booster_points[i].liftoff_mass_kg);
+      }
   for (guint i = 0; band != NULL && i < band->n_points; i++)
     {
       if (isfinite (band->p05[i]))
@@ -234,6 +240,9 @@ sw_sheet_draw_stage_curve (cairo_t *cr, const SwStageCurve *curve, const SwMcBan
   /* Room at the top for the axis title and the infeasible markers. */
   a.y += 14.0;
   a.h -= 14.0;
+  /* With boosters the legend takes two lines. */
+  if (curve->booster_count > 0)
+    a.h -= 10.0;
 
   draw_log_y_axis (cr, &a);
   {
@@ -342,6 +351,39 @@ sw_sheet_draw_stage_curve (cairo_t *cr, const SwStageCurve *curve, const SwMcBan
       sw_sheet_set_color (cr, ACCENT, 1.0);
       cairo_fill (cr);
     }
+  /* With boosters: the same boosters beside 1..N stages, dashed in the
+   * colour of this design's point, which lies on it. */
+  if (curve->booster_count > 0)
+    {
+      double dash[] = { 4.0, 2.0 };
+      first = TRUE;
+      cairo_set_dash (cr, dash, 2, 0);
+      sw_sheet_set_color (cr, SECOND, 1.0);
+      cairo_set_line_width (cr, 1.4);
+      for (guint i = 0; i < MIN (curve->n_points, a.n); i++)
+        {
+          const SwStageCountPoint *p = &curve->booster_points[i];
+          if (!p->feasible)
+            {
+              first = TRUE;
+              continue;
+            }
+          if (first)
+            cairo_move_to (cr, ax_x (&a, p->stages), ax_y (&a, p->liftoff_mass_kg));
+          else
+            cairo_line_to (cr, ax_x (&a, p->stages), ax_y (&a, p->liftoff_mass_kg));
+          first = FALSE;
+        }
+      cairo_stroke (cr);
+      cairo_set_dash (cr, NULL, 0, 0);
+      for (guint i = 0; i < MIN (curve->n_points, a.n); i++)
+        if (curve->booster_points[i].feasible)
+          {
+            cairo_arc (cr, ax_x (&a, curve->booster_points[i].stages),
+                       ax_y (&a, curve->booster_points[i].liftoff_mass_kg), 1.8, 0, 2 * G_PI);
+            cairo_fill (cr);
+          }
+    }
   /* This design where it is: with a split by hand or an equal split it lies
    * above the optimal curve. */
   if (isfinite (design_point) && design_point > 0.0 && design_stages >= 1
@@ -360,21 +402,38 @@ sw_sheet_draw_stage_curve (cairo_t *cr, const SwStageCurve *curve, const SwMcBan
   /* Legend: one line under the axis, where no curve can run; each marker is
    * drawn in the colour it has in the plot. */
   {
-    LegendItem items[5];
+    LegendItem items[6];
     guint n = 0;
     gboolean infeasible = FALSE;
+    g_autofree char *with = NULL;
 
     for (guint i = 0; i < curve->n_points; i++)
       infeasible = infeasible || !curve->points[i].feasible;
     items[n++] = (LegendItem) { LEGEND_DOT, SECOND, _("this design") };
-    items[n++] = (LegendItem) { LEGEND_LINE, ACCENT, _("optimal split") };
+    if (curve->booster_count > 0)
+      {
+        with = g_strdup_printf (g_dngettext (GETTEXT_PACKAGE, "with %u booster",
+                                             "with %u boosters", curve->booster_count),
+                                curve->booster_count);
+        items[n++] = (LegendItem) { LEGEND_DASH, SECOND, with };
+        items[n++] = (LegendItem) { LEGEND_LINE, ACCENT, _("serial, no boosters") };
+      }
+    else
+      items[n++] = (LegendItem) { LEGEND_LINE, ACCENT, _("optimal split") };
     if (band != NULL)
       items[n++] = (LegendItem) { LEGEND_BAND, ACCENT, _("5\342\200\22395 % band") };
     if (baseline != NULL)
       items[n++] = (LegendItem) { LEGEND_DASH, BASELINE, _("baseline") };
     if (infeasible)
       items[n++] = (LegendItem) { LEGEND_CROSS, BAD, _("not feasible") };
-    draw_legend (cr, items, n, x, a.y + a.h + 21.0, w);
+    if (curve->booster_count > 0)
+      {
+        /* The three lines of the plot, then the rest. */
+        draw_legend (cr, items, 3, x, a.y + a.h + 21.0, w);
+        draw_legend (cr, items + 3, n - 3, x, a.y + a.h + 31.0, w);
+      }
+    else
+      draw_legend (cr, items, n, x, a.y + a.h + 21.0, w);
   }
   (void) lab;
 }
@@ -572,19 +631,26 @@ sw_sheet_draw_tornado (cairo_t *cr, const SwDesign *design, const SwSensitivityT
 
       /* Two lines: what, then which stage. */
       {
+        gboolean booster = it->param == SW_SENS_BOOSTER_ISP
+                           || it->param == SW_SENS_BOOSTER_STRUCTURAL_COEFFICIENT;
         const char *what = it->param == SW_SENS_PAYLOAD ? _("Payload")
                            : it->param == SW_SENS_DELTA_V ? _("Required \316\224v")
-                           : it->param == SW_SENS_ISP ? _("Isp")
+                           : it->param == SW_SENS_ISP || it->param == SW_SENS_BOOSTER_ISP
+                             ? _("Isp")
                            : _("Structural coefficient");
-        if (it->stage >= 0 && row_h >= 14.0)
+        if ((it->stage >= 0 || booster) && row_h >= 14.0)
           {
-            g_autofree char *which = g_strdup_printf (_("stage %d \302\267 %s"), it->stage + 1,
-                                                      design->stages[it->stage].name);
+            g_autofree char *which = booster
+                                       ? g_strdup_printf (_("boosters \302\267 %s"),
+                                                          design->boosters.name)
+                                       : g_strdup_printf (_("stage %d \302\267 %s"),
+                                                          it->stage + 1,
+                                                          design->stages[it->stage].name);
             TextStyle ws = sw_sheet_style_w (6.3, FALSE, MUTED, PANGO_ALIGN_LEFT, label_w - 4);
             sw_sheet_text_centered_v (cr, what, x, cy - 3.6, &lab);
             sw_sheet_text_centered_v (cr, which, x, cy + 4.2, &ws);
           }
-        else if (it->stage >= 0)
+        else if (it->stage >= 0 || booster)
           {
             g_autofree char *label = sw_sensitivity_dup_label (design, it);
             sw_sheet_text_centered_v (cr, label, x, cy, &lab);

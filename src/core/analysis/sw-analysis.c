@@ -504,18 +504,9 @@ prepare_trade (SwAnalysis *r)
   for (guint i = 0; i < r->sizing.n_stages; i++)
     fixed = fixed || r->sizing.stages[i].fixed;
   r->sensitivity_step = r->options.sensitivity_step;
-  /* Boosters: the sensitivities' and the Monte Carlo's resizing is the
-   * serial one (the stages' Lagrange split); it would leave the boosters
-   * out.  Left out, and said so. */
-  if (design->boosters.count > 0 && !fixed)
-    {
-      fixed = TRUE;
-      g_strlcpy (r->montecarlo_error,
-                 _("Sensitivities and the Monte Carlo are not computed for a design with "
-                   "strap-on boosters yet: their resizing knows serial stages only."),
-                 sizeof r->montecarlo_error);
-    }
-  else if (fixed)
+  /* With boosters both go through the phased sizing (sized boosters
+   * re-optimised, fixed ones kept). */
+  if (fixed)
     g_strlcpy (r->montecarlo_error,
                _("Sensitivities and the Monte Carlo are not computed for a design with a "
                  "fixed propellant load: they resize every stage."),

@@ -5,6 +5,8 @@
 
 #include "sw-curves.h"
 
+#include "sw-booster-sizing.h"
+
 #include <glib/gi18n-lib.h>
 #include <math.h>
 
@@ -48,6 +50,43 @@ sw_stage_curve_compute (const SwDesign *design, double delta_v_m_s, guint max_st
       p->feasible = sizing.feasible;
       p->liftoff_mass_kg = sizing.feasible ? sizing.liftoff_mass_kg : NAN;
       p->delta_v_limit_m_s = sizing.delta_v_limit_m_s;
+    }
+  out->booster_count = 0;
+  out->booster_note[0] = '\0';
+  if (design->boosters.count > 0)
+    {
+      SwParallelVehicle v;
+
+      /* Without the core's thrust the design does not size: no curve. */
+      if (!sw_parallel_vehicle_from_design (&v, design, NULL))
+        return;
+      out->booster_count = v.count;
+      g_snprintf (out->booster_note, sizeof out->booster_note,
+                  g_dngettext (GETTEXT_PACKAGE,
+                               "The stage-count curve is drawn twice: with this design's %u "
+                               "booster beside the core (this design sits on it) and for "
+                               "serial stages without it. The delta-v curves are serial "
+                               "vehicles only: this design's point lies off them.",
+                               "The stage-count curve is drawn twice: with this design's %u "
+                               "boosters beside the core (this design sits on it) and for "
+                               "serial stages without them. The delta-v curves are serial "
+                               "vehicles only: this design's point lies off them.",
+                               v.count),
+                  v.count);
+      for (guint i = 0; i < SW_MAX_STAGES; i++)
+        v.fixed_kg[i] = 0.0;
+      for (guint n = 1; n <= max_stages; n++)
+        {
+          SwSizing sizing;
+          SwStageCountPoint *p = &out->booster_points[n - 1];
+
+          sw_stage_set_extend (&v.set, design, n);
+          sw_size_parallel (&v, design->payload_kg, delta_v_m_s, SW_SPLIT_OPTIMAL, &sizing);
+          p->stages = n;
+          p->feasible = sizing.feasible;
+          p->liftoff_mass_kg = sizing.feasible ? sizing.liftoff_mass_kg : NAN;
+          p->delta_v_limit_m_s = sizing.delta_v_limit_m_s;
+        }
     }
 }
 

@@ -24,6 +24,14 @@ struct _SwStageCurve {
   double payload_kg;
   guint  n_points;
   SwStageCountPoint points[SW_MAX_STAGES];
+  /* A design with strap-on boosters: the same boosters (sized, or with
+   * their fixed load) beside a core of N = 1..n_points stages, each stage
+   * sized (sw_size_parallel, optimal split).  points[] stay the serial
+   * vehicles without boosters.  booster_count 0: no such curve. */
+  guint  booster_count;
+  SwStageCountPoint booster_points[SW_MAX_STAGES];
+  /* With boosters: which curves have them ("" without). */
+  char   booster_note[SW_REASON_MAX];
 };
 
 typedef struct {

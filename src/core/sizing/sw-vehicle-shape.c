@@ -82,6 +82,29 @@ sw_vehicle_shape_compute (const SwDesign *design, const SwSizing *sizing, SwVehi
                           "to see the vehicle to scale."), i + 1, st->name);
         }
     }
+  /* The boosters: their tanks from their propellant, their own diameter or
+   * half the core's (the rule of their drag area). */
+  if (out->complete && design->boosters.count > 0 && sizing->boosters.present)
+    {
+      SwStageShape bs;
+      double d = design->boosters.has_diameter ? design->boosters.diameter_m
+                                               : 0.5 * out->stages[0].diameter_m;
+
+      sw_stage_shape (&design->boosters.propellant, sizing->boosters.propellant_mass_kg, d, &bs);
+      if (!bs.valid || !bs.has_length)
+        {
+          out->complete = FALSE;
+          g_strlcpy (out->reason,
+                     _("The boosters have no propellant: choose one to see their tanks and "
+                       "the vehicle to scale."), sizeof out->reason);
+        }
+      else
+        {
+          out->n_boosters = design->boosters.count;
+          out->booster_diameter_m = d;
+          out->booster_length_m = bs.length_m;
+        }
+    }
   if (!out->complete)
     return;
 

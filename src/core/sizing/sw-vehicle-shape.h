@@ -51,9 +51,11 @@ typedef struct {
   double   fairing_base_m;
   double   height_m;               /* base of stage 1 to the fairing's tip */
   double   max_diameter_m;
-  /* Boosters beside the core: none yet in the model.  When the design gains
-   * strap-on boosters, fill these and the drawings put them beside the core
-   * (sw-stack-drawing.c draws n_boosters cylinders of this size). */
+  /* Strap-on boosters beside the core (sw-stack-drawing.c draws them): one
+   * booster's length from its propellant (the tanks of sw_stage_shape) and
+   * its diameter (its own, or half the core's, as for its drag area); the
+   * shape is not complete when the boosters have no propellant.  0 and NAN
+   * without boosters. */
   guint    n_boosters;
   double   booster_diameter_m;
   double   booster_length_m;

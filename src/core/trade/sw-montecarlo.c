@@ -5,6 +5,7 @@
 
 #include "sw-montecarlo.h"
 
+#include "sw-booster-sizing.h"
 #include "sw-fixed-vehicle.h"
 #include "sw-sizing.h"
 
@@ -25,6 +26,11 @@ typedef struct {
   SwUncertainty  unc;
   gboolean       have_vehicle;
   SwFixedVehicle vehicle;      /* nominal propellant loads (question 2) */
+  /* A design with strap-on boosters: each sample re-sizes the phased
+   * vehicle (sized boosters re-optimised, fixed ones kept). */
+  gboolean       parallel;
+  SwParallelVehicle pv;
+  SwParallelVehicle pv_fixed;  /* every load at its nominal value (question 2) */
   guint          samples;
   guint32        seed;
   double        *liftoff;      /* per sample, NAN when infeasible */
@@ -38,6 +44,7 @@ run_sample (const McJob *job, gsl_rng *r, guint index)
 {
   SwStageSet s = job->set;
   double dvs[SW_MAX_STAGES], dv = job->delta_v_m_s, m = NAN;
+  double booster_c = NAN, booster_eps = NAN;
   gboolean ok = TRUE;
 
   for (guint i = 0; i < s.n_stages; i++)
@@ -48,6 +55,15 @@ run_sample (const McJob *job, gsl_rng *r, guint index)
                                                  job->set.structural_coefficient[i], 1e-4,
                                                  0.95);
     }
+  /* The boosters' draws come after the stages' so that a serial design
+   * draws the same numbers as before. */
+  if (job->parallel)
+    {
+      double c = job->pv.booster_exhaust_velocity_m_s;
+      booster_c = sw_spread_draw_scaled (r, &job->unc.isp, c, 0.05 * c, INFINITY);
+      booster_eps = sw_spread_draw_scaled (r, &job->unc.structural_coefficient,
+                                           job->pv.booster_structural_coefficient, 1e-4, 0.95);
+    }
   for (int tries = 0; tries < 64; tries++)
     {
       double d = dv + sw_spread_draw (r, &job->unc.losses);
@@ -56,6 +72,35 @@ run_sample (const McJob *job, gsl_rng *r, guint index)
           dv = d;
           break;
         }
+    }
+
+  if (job->parallel)
+    {
+      SwParallelVehicle w = job->pv;
+      SwSizing sizing;
+
+      w.set = s;
+      w.booster_exhaust_velocity_m_s = booster_c;
+      w.booster_structural_coefficient = booster_eps;
+      sw_size_parallel (&w, job->payload_kg, dv, job->split, &sizing);
+      job->liftoff[index] = sizing.feasible ? sizing.liftoff_mass_kg : NAN;
+      if (job->payload != NULL)
+        {
+          double p = NAN;
+
+          w = job->pv_fixed;
+          for (guint i = 0; i < s.n_stages; i++)
+            {
+              w.set.exhaust_velocity_m_s[i] = s.exhaust_velocity_m_s[i];
+              w.set.structural_coefficient[i] = s.structural_coefficient[i];
+            }
+          w.booster_exhaust_velocity_m_s = booster_c;
+          w.booster_structural_coefficient = booster_eps;
+          if (!sw_parallel_payload (&w, dv, &p, NULL))
+            p = NAN;
+          job->payload[index] = p;
+        }
+      return;
     }
 
   switch (job->split)
@@ -113,7 +158,13 @@ worker (gpointer data)
       first = block * SW_MC_BLOCK;
       last = MIN (first + SW_MC_BLOCK, job->samples);
       for (guint i = first; i < last; i++)
-        run_sample (job, r, i);
+        {
+          /* A phased sample takes milliseconds: a newer edit should not
+           * wait for the rest of the block. */
+          if (job->parallel && g_cancellable_is_cancelled (job->cancellable))
+            break;
+          run_sample (job, r, i);
+        }
     }
   gsl_rng_free (r);
   return NULL;
@@ -191,19 +242,18 @@ sw_mc_summarise (const double *values, guint n, SwMcSummary *out)
 }
 
 static gboolean
-prepare (const SwDesign *design, const SwUncertainty *spreads, McJob *job, SwSizing *sizing,
-         GError **error)
+prepare (const SwDesign *design, const SwUncertainty *spreads, gboolean band, McJob *job,
+         SwSizing *sizing, GError **error)
 {
   memset (job, 0, sizeof *job);
-  if (design->boosters.count > 0)
-    {
-      g_set_error (error, SW_ERROR, SW_ERROR_VALUE,
-                   _("boosters: the Monte Carlo is not run for a design with strap-on boosters "
-                     "yet (its resizing knows serial stages only)."));
-      return FALSE;
-    }
   if (!sw_size_design (design, sizing, error))
     return FALSE;
+  if (design->boosters.count > 0 && !band)
+    {
+      if (!sw_parallel_vehicle_from_design (&job->pv, design, error))
+        return FALSE;
+      job->parallel = TRUE;
+    }
   sw_stage_set_from_design (&job->set, design);
   job->split = design->split;
   job->payload_kg = design->payload_kg;
@@ -236,7 +286,7 @@ sw_montecarlo_run_cancellable (const SwDesign *design, const SwUncertainty *spre
   g_return_val_if_fail (design != NULL && out != NULL, FALSE);
 
   memset (out, 0, sizeof *out);
-  if (!prepare (design, spreads, &job, &sizing, error))
+  if (!prepare (design, spreads, FALSE, &job, &sizing, error))
     return FALSE;
   job.samples = samples > 0 ? samples : sw_uncertainty_samples (&job.unc);
   job.seed = use_seed ? seed : sw_uncertainty_seed (&job.unc);
@@ -249,7 +299,17 @@ sw_montecarlo_run_cancellable (const SwDesign *design, const SwUncertainty *spre
     }
   liftoff = g_new (double, job.samples);
   job.liftoff = liftoff;
-  job.have_vehicle = sw_fixed_vehicle_from_sizing (&job.vehicle, &sizing);
+  if (job.parallel)
+    {
+      job.have_vehicle = sizing.feasible;
+      job.pv_fixed = job.pv;
+      for (guint i = 0; i < sizing.n_stages; i++)
+        job.pv_fixed.fixed_kg[i] = sizing.stages[i].propellant_mass_kg;
+      if (job.pv.count > 0)
+        job.pv_fixed.booster_fixed_kg = sizing.boosters.propellant_mass_kg;
+    }
+  else
+    job.have_vehicle = sw_fixed_vehicle_from_sizing (&job.vehicle, &sizing);
   if (job.have_vehicle)
     payload = job.payload = g_new (double, job.samples);
 
@@ -327,7 +387,9 @@ sw_montecarlo_band_cancellable (const SwDesign *design, const SwUncertainty *spr
   g_return_val_if_fail (design != NULL && out != NULL, FALSE);
 
   memset (out, 0, sizeof *out);
-  if (!prepare (design, spreads, &job, &sizing, error))
+  /* The band belongs to the stage-count curve, a serial vehicle's: the
+   * design's stages without the boosters. */
+  if (!prepare (design, spreads, TRUE, &job, &sizing, error))
     return FALSE;
   max_stages = CLAMP (max_stages, 1, SW_MAX_STAGES);
   job.samples = samples > 0 ? samples : sw_uncertainty_samples (&job.unc);

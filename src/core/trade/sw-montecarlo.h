@@ -11,6 +11,10 @@
  * is negative when the built vehicle falls short.  The nominal vehicle has a
  * margin of zero by construction, so symmetric spreads put about half of the
  * samples below zero: the 5th percentile tells the reserve to carry.
+ * With strap-on boosters their Isp and structural coefficient are sampled too
+ * (same spreads) and both questions go through the phased vehicle
+ * (sw_size_parallel: sized boosters re-optimised per sample, fixed ones kept;
+ * sw_parallel_payload for question 2).
  *
  * Samples run in blocks of SW_MC_BLOCK on all cores; each block draws from its
  * own GSL generator seeded from (seed, block index), every sample is stored
@@ -59,7 +63,8 @@ typedef struct {
 } SwMonteCarlo;
 
 /* The stage-count band: liftoff-mass percentiles of the N-stage vehicle of
- * the stage-count curve (stage k takes design stage min(k, n)). */
+ * the stage-count curve (stage k takes design stage min(k, n); serial, as
+ * the curve: boosters are left out). */
 typedef struct {
   guint  n_points;
   guint  samples;

@@ -5,6 +5,7 @@
 
 #include "sw-sensitivity.h"
 
+#include "sw-booster-sizing.h"
 #include "sw-fixed-vehicle.h"
 
 #include <glib/gi18n-lib.h>
@@ -105,6 +106,150 @@ sw_sensitivity_finite (const SwStageSet *set, double payload_kg, double delta_v_
   return (up - down) / (2.0 * h * x);
 }
 
+/* ---- designs with strap-on boosters: the phased vehicle re-sized ------- */
+
+static double
+parallel_value (const SwParallelVehicle *v, double payload, double dv, SwSensParam param,
+                int stage)
+{
+  switch (param)
+    {
+    case SW_SENS_PAYLOAD:
+      return payload;
+    case SW_SENS_DELTA_V:
+      return dv;
+    case SW_SENS_ISP:
+      return v->set.exhaust_velocity_m_s[stage] / SW_G0;
+    case SW_SENS_STRUCTURAL_COEFFICIENT:
+      return v->set.structural_coefficient[stage];
+    case SW_SENS_BOOSTER_ISP:
+      return v->booster_exhaust_velocity_m_s / SW_G0;
+    case SW_SENS_BOOSTER_STRUCTURAL_COEFFICIENT:
+    default:
+      return v->booster_structural_coefficient;
+    }
+}
+
+/* The liftoff mass re-sized with one input times @factor; NAN when no
+ * vehicle closes. */
+static double
+parallel_mass (const SwParallelVehicle *v, double payload, double dv, SwSplitMode split,
+               SwSensParam param, int stage, double factor)
+{
+  SwParallelVehicle w = *v;
+  SwSizing sizing;
+  double eps = 0.0;
+
+  switch (param)
+    {
+    case SW_SENS_PAYLOAD:
+      payload *= factor;
+      break;
+    case SW_SENS_DELTA_V:
+      dv *= factor;
+      break;
+    case SW_SENS_ISP:
+      w.set.exhaust_velocity_m_s[stage] *= factor;
+      break;
+    case SW_SENS_STRUCTURAL_COEFFICIENT:
+      eps = w.set.structural_coefficient[stage] *= factor;
+      break;
+    case SW_SENS_BOOSTER_ISP:
+      w.booster_exhaust_velocity_m_s *= factor;
+      break;
+    case SW_SENS_BOOSTER_STRUCTURAL_COEFFICIENT:
+    default:
+      eps = w.booster_structural_coefficient *= factor;
+      break;
+    }
+  if (!(eps < 1.0))
+    return NAN;
+  sw_size_parallel (&w, payload, dv, split, &sizing);
+  return sizing.feasible ? sizing.liftoff_mass_kg : NAN;
+}
+
+/* Payload lost per kg of dry mass on each stage of the vehicle as sized,
+ * every load fixed (the boosters' too); the dry mass is added by raising
+ * the stage's structural coefficient, since the phased vehicle takes each
+ * structure as load x eps / (1 - eps). */
+static void
+parallel_exchange_ratios (const SwParallelVehicle *v, const SwSizing *sizing, double *ratios)
+{
+  SwParallelVehicle f = *v;
+  double p0, added = 1e-4 * sizing->liftoff_mass_kg;
+
+  for (guint i = 0; i < SW_MAX_STAGES; i++)
+    ratios[i] = NAN;
+  for (guint i = 0; i < sizing->n_stages; i++)
+    {
+      f.fixed_kg[i] = sizing->stages[i].propellant_mass_kg;
+      if (f.fixed_kg[i] > 0.0)
+        added = MIN (added, 0.01 * sizing->stages[i].structural_mass_kg);
+    }
+  added = MAX (added, 1e-6 * sizing->liftoff_mass_kg);
+  if (f.count > 0)
+    f.booster_fixed_kg = sizing->boosters.propellant_mass_kg;
+  if (!sw_parallel_payload (&f, sizing->delta_v_m_s, &p0, NULL))
+    return;
+  for (guint i = 0; i < sizing->n_stages; i++)
+    {
+      SwParallelVehicle g = f;
+      double s = sizing->stages[i].structural_mass_kg + added, p;
+
+      if (!(f.fixed_kg[i] > 0.0))
+        continue;
+      g.set.structural_coefficient[i] = s / (s + f.fixed_kg[i]);
+      if (sw_parallel_payload (&g, sizing->delta_v_m_s, &p, NULL))
+        ratios[i] = (p0 - p) / added;
+    }
+}
+
+static gboolean
+compute_with_boosters (const SwDesign *design, const SwSizing *sizing, double step,
+                       SwSensitivityTable *out, GError **error)
+{
+  SwParallelVehicle v;
+  double payload = sizing->payload_kg, dv = sizing->delta_v_m_s, h = SW_SENSITIVITY_FD_STEP;
+
+  if (!sw_parallel_vehicle_from_design (&v, design, error))
+    return FALSE;
+  for (int k = -2; k < 2 * (int) v.set.n_stages + 2; k++)
+    {
+      SwSensitivity *it = &out->items[out->n_items++];
+      double m_minus, m_plus;
+
+      it->stage = -1;
+      if (k == -2)
+        it->param = SW_SENS_PAYLOAD;
+      else if (k == -1)
+        it->param = SW_SENS_DELTA_V;
+      else if (k < 2 * (int) v.set.n_stages)
+        {
+          it->stage = k / 2;
+          it->param = k % 2 == 0 ? SW_SENS_ISP : SW_SENS_STRUCTURAL_COEFFICIENT;
+        }
+      else
+        it->param = k % 2 == 0 ? SW_SENS_BOOSTER_ISP : SW_SENS_BOOSTER_STRUCTURAL_COEFFICIENT;
+      it->value = parallel_value (&v, payload, dv, it->param, it->stage);
+      it->derivative = (parallel_mass (&v, payload, dv, design->split, it->param, it->stage,
+                                       1.0 + h)
+                        - parallel_mass (&v, payload, dv, design->split, it->param, it->stage,
+                                         1.0 - h))
+                       / (2.0 * h * it->value);
+      it->elasticity = it->value / sizing->liftoff_mass_kg * it->derivative;
+      m_minus = parallel_mass (&v, payload, dv, design->split, it->param, it->stage, 1.0 - step);
+      m_plus = parallel_mass (&v, payload, dv, design->split, it->param, it->stage, 1.0 + step);
+      it->minus_feasible = isfinite (m_minus);
+      it->plus_feasible = isfinite (m_plus);
+      it->minus_kg = m_minus - sizing->liftoff_mass_kg;
+      it->plus_kg = m_plus - sizing->liftoff_mass_kg;
+      it->effect_kg = it->minus_feasible && it->plus_feasible
+                        ? MAX (fabs (it->minus_kg), fabs (it->plus_kg)) : INFINITY;
+    }
+  parallel_exchange_ratios (&v, sizing, out->exchange_ratio);
+  return TRUE;
+}
+
 static int
 compare_effect (gconstpointer a, gconstpointer b, gpointer data)
 {
@@ -137,13 +282,6 @@ sw_sensitivity_compute (const SwDesign *design, double step, SwSensitivityTable 
                    step * 100.0);
       return FALSE;
     }
-  if (design->boosters.count > 0)
-    {
-      g_set_error (error, SW_ERROR, SW_ERROR_VALUE,
-                   _("boosters: the sensitivities are not computed for a design with strap-on "
-                     "boosters yet (their resizing knows serial stages only)."));
-      return FALSE;
-    }
   if (!sw_size_design (design, &sizing, error))
     return FALSE;
   out->step = step;
@@ -156,6 +294,13 @@ sw_sensitivity_compute (const SwDesign *design, double step, SwSensitivityTable 
     out->exchange_ratio[i] = NAN;
   if (!sizing.feasible)
     return TRUE;
+
+  if (design->boosters.count > 0)
+    {
+      if (!compute_with_boosters (design, &sizing, step, out, error))
+        return FALSE;
+      goto rank;
+    }
 
   sw_stage_set_from_design (&set, design);
   sw_sensitivity_analytic (&set, &sizing, &d_payload, &d_dv, d_isp, d_eps);
@@ -197,9 +342,6 @@ sw_sensitivity_compute (const SwDesign *design, double step, SwSensitivityTable 
       it->effect_kg = it->minus_feasible && it->plus_feasible
                         ? MAX (fabs (it->minus_kg), fabs (it->plus_kg)) : INFINITY;
     }
-  for (guint i = 0; i < out->n_items; i++)
-    out->ranked[i] = i;
-  g_qsort_with_data (out->ranked, out->n_items, sizeof out->ranked[0], compare_effect, out);
 
   /* Exchange ratios by the root finder; the step is small against every
    * stage's structure yet far above the solver's tolerance. */
@@ -215,6 +357,11 @@ sw_sensitivity_compute (const SwDesign *design, double step, SwSensitivityTable 
         for (guint i = 0; i < SW_MAX_STAGES; i++)
           out->exchange_ratio[i] = NAN;
     }
+
+rank:
+  for (guint i = 0; i < out->n_items; i++)
+    out->ranked[i] = i;
+  g_qsort_with_data (out->ranked, out->n_items, sizeof out->ranked[0], compare_effect, out);
   return TRUE;
 }
 
@@ -229,6 +376,10 @@ sw_sens_param_to_string (SwSensParam param)
       return "delta_v";
     case SW_SENS_ISP:
       return "isp_vac";
+    case SW_SENS_BOOSTER_ISP:
+      return "booster_isp_vac";
+    case SW_SENS_BOOSTER_STRUCTURAL_COEFFICIENT:
+      return "booster_structural_coefficient";
     case SW_SENS_STRUCTURAL_COEFFICIENT:
     default:
       return "structural_coefficient";
@@ -249,6 +400,13 @@ sw_sensitivity_dup_label (const SwDesign *design, const SwSensitivity *item)
     case SW_SENS_ISP:
       what = _("Isp");
       break;
+    case SW_SENS_BOOSTER_ISP:
+    case SW_SENS_BOOSTER_STRUCTURAL_COEFFICIENT:
+      what = item->param == SW_SENS_BOOSTER_ISP ? _("Isp") : _("Structural coeff.");
+      if (design != NULL && design->boosters.name[0] != '\0')
+        /* Translators: "Isp, boosters (Name)" */
+        return g_strdup_printf (_("%s, boosters (%s)"), what, design->boosters.name);
+      return g_strdup_printf (_("%s, boosters"), what);
     case SW_SENS_STRUCTURAL_COEFFICIENT:
     default:
       what = _("Structural coeff.");

@@ -13,18 +13,22 @@
 G_BEGIN_DECLS
 
 #define SW_SENSITIVITY_DEFAULT_STEP 0.05
-#define SW_SENSITIVITY_MAX_ITEMS (2 + 2 * SW_MAX_STAGES)
+#define SW_SENSITIVITY_MAX_ITEMS (4 + 2 * SW_MAX_STAGES)
+/* Relative step of the central differences of a design with boosters. */
+#define SW_SENSITIVITY_FD_STEP 1e-3
 
 typedef enum {
   SW_SENS_PAYLOAD,
   SW_SENS_DELTA_V,
   SW_SENS_ISP,
   SW_SENS_STRUCTURAL_COEFFICIENT,
+  SW_SENS_BOOSTER_ISP,                    /* the strap-on boosters' (stage -1) */
+  SW_SENS_BOOSTER_STRUCTURAL_COEFFICIENT,
 } SwSensParam;
 
 typedef struct {
   SwSensParam param;
-  int      stage;          /* firing-order index, or -1 for payload and delta-v */
+  int      stage;          /* firing-order index, or -1 for payload, delta-v and boosters */
   double   value;          /* nominal value (kg, m/s, s or dimensionless) */
   double   derivative;     /* d(liftoff mass)/d(value), kg per unit of value */
   double   elasticity;     /* (value / liftoff mass) x derivative: percent per percent */
@@ -63,7 +67,14 @@ void     sw_sensitivity_analytic (const SwStageSet *set, const SwSizing *sizing,
 double   sw_sensitivity_finite (const SwStageSet *set, double payload_kg, double delta_v_m_s,
                                 SwSplitMode split, SwSensParam param, int stage, double h);
 
-/* The full table of @design with a relative tornado @step (0.05 = 5 %). */
+/* The full table of @design with a relative tornado @step (0.05 = 5 %).
+ * With strap-on boosters every figure comes from re-sizing the phased vehicle
+ * (sw_size_parallel: sized boosters re-optimised, fixed ones kept; the
+ * core's and the boosters' thrust kept): the derivatives are central
+ * differences of relative step SW_SENSITIVITY_FD_STEP, the boosters' Isp and
+ * structural coefficient are two more items, and the exchange ratios come
+ * from the payload of the vehicle with its loads fixed (sw_parallel_payload),
+ * dry mass added by raising the stage's structural coefficient. */
 gboolean sw_sensitivity_compute (const SwDesign *design, double step, SwSensitivityTable *out,
                                  GError **error);
 
