@@ -187,6 +187,36 @@ test_staging_fixed_note (void)
   g_assert_cmpstr (st.fixed_note, ==, "");
 }
 
+/* Every row is a serial vehicle: with strap-on boosters no row is the
+ * design (its liftoff mass is not on any row), and the table says so; the
+ * serial design's own row is its stage count. */
+static void
+test_staging_boosters_no_row (void)
+{
+  g_autoptr (GError) error = NULL;
+  g_autofree char *path = g_build_filename (g_getenv ("SW_SOURCE_ROOT"), "data", "designs",
+                                            "four-booster-cargo.stagewright", NULL);
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, &error);
+  g_autoptr (SwDesign) serial = load (design_json);
+  SwStaging st;
+  SwSizing own;
+
+  g_assert_no_error (error);
+  g_assert_cmpuint (d->boosters.count, ==, 4);
+  g_assert_true (sw_staging_compute (d, 6, &st, NULL));
+  g_assert_cmpuint (st.design_stages, ==, d->n_stages);
+  g_assert_cmpuint (st.design_row, ==, 0);
+  g_assert_nonnull (strstr (st.fixed_note, "4 strap-on boosters, so no row is this design"));
+  /* The design's own stage count as a serial vehicle is another vehicle. */
+  g_assert_true (sw_size_design (d, &own, NULL));
+  g_assert_cmpfloat (fabs (st.rows[d->n_stages - 1].liftoff_mass_kg - own.liftoff_mass_kg), >,
+                     1000.0);
+
+  g_assert_true (sw_staging_compute (serial, 6, &st, NULL));
+  g_assert_cmpuint (st.design_row, ==, serial->n_stages);
+  g_assert_cmpstr (st.fixed_note, ==, "");
+}
+
 int
 main (int argc, char **argv)
 {
@@ -195,5 +225,6 @@ main (int argc, char **argv)
   g_test_add_func ("/core/staging/best-under-weighting", test_best_under_weighting);
   g_test_add_func ("/core/staging/defaults", test_defaults);
   g_test_add_func ("/core/staging/fixed-load-note", test_staging_fixed_note);
+  g_test_add_func ("/core/staging/boosters-no-row", test_staging_boosters_no_row);
   return g_test_run ();
 }

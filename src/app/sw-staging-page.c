@@ -952,9 +952,9 @@ draw_decision (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointe
           cairo_rectangle (cr, bx - half, plot_t, 2.0 * half, plot_b - plot_t);
           cairo_fill (cr);
         }
-      if (s->design_stages >= 1 && s->design_stages <= SW_STAGING_MAX_STAGES)
+      if (s->design_row >= 1 && s->design_row <= SW_STAGING_MAX_STAGES)
         {
-          double dx = sw_plot_axis_map (&xa, s->design_stages);
+          double dx = sw_plot_axis_map (&xa, s->design_row);
           const double dash[] = { 4.0, 3.0 };
           set_rgba (cr, &c_mark, 1.0);
           cairo_set_dash (cr, dash, 2, 0.0);
@@ -1059,7 +1059,9 @@ draw_decision (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointe
                               ? g_strdup_printf (_("best under the weights: %u stages"),
                                                  s->rows[s->best].n_stages)
                               : g_strdup (_("no stage count closes"));
-    g_autofree char *own = g_strdup_printf (_("this design: %u stages"), s->design_stages);
+    g_autofree char *own = s->design_row > 0
+                             ? g_strdup_printf (_("this design: %u stages"), s->design_row)
+                             : g_strdup (_("this design has boosters: no row is it"));
     const char *texts[5] = { _("expendable"), rec, best, own, _("does not close") };
     int tw = (int) MAX (40.0, panel_w - 16.0 - 36.0 - 4.0);
 

@@ -111,6 +111,11 @@ stages_json (const SwDesign *d, const SwStaging *s)
   json_builder_add_string_value (b, d->name);
   json_builder_set_member_name (b, "design_stage_count");
   json_builder_add_int_value (b, s->design_stages);
+  json_builder_set_member_name (b, "design_row");
+  if (s->design_row > 0)
+    json_builder_add_int_value (b, s->design_row);
+  else
+    json_builder_add_null_value (b);
   sw_cli_add_number (b, "design_liftoff_mass_kg", s->design_liftoff_mass_kg);
   json_builder_set_member_name (b, "design_recovers_first_stage");
   json_builder_add_boolean_value (b, s->design_reuses);
@@ -241,7 +246,7 @@ stages_table (const SwDesign *d, const SwStaging *s)
 
       if ((int) i == s->best)
         mark[0] = '*';
-      if (r->n_stages == s->design_stages)
+      if (r->n_stages == s->design_row)
         mark[1] = '>';
       g_print ("%-3s %-2u %s %s %s %s %s %s %s %s %s %s\n", mark, r->n_stages,
                m, mr, pen, dev, devr, cpf, cpfr, rel, pay, score);
@@ -270,7 +275,7 @@ stages_table (const SwDesign *d, const SwStaging *s)
   g_print (_("Stage counts above the design's repeat its top stage; boosters are not "
              "modelled yet.\n"));
   if (s->fixed_note[0] != '\0')
-    g_print ("%s %s\n", s->fixed_note, s->reuse_note);
+    g_print ("%s%s%s\n", s->fixed_note, s->reuse_note[0] != '\0' ? " " : "", s->reuse_note);
   g_print ("\n%s\n", sw_format_cautions ());
 }
 

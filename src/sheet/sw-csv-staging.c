@@ -33,7 +33,8 @@ sw_csv_staging_decision (const SwAnalysis *b)
   s = sw_csv_begin (NULL);
   g_string_append_printf (s, "# %s\n", st.weighting);
   if (st.fixed_note[0] != '\0')
-    g_string_append_printf (s, "# %s %s\n", st.fixed_note, st.reuse_note);
+    g_string_append_printf (s, "# %s%s%s\n", st.fixed_note, st.reuse_note[0] != '\0' ? " " : "",
+                            st.reuse_note);
   /* The money columns' unit, in words: the label may hold commas. */
   if (st.has_money)
     {
@@ -70,7 +71,7 @@ sw_csv_staging_decision (const SwAnalysis *b)
       number (s, r->payload_fixed_size_kg, FALSE);
       number (s, r->score, FALSE);
       g_string_append_printf (s, "%s,%s,", (int) i == st.best ? "true" : "false",
-                              r->n_stages == st.design_stages ? "true" : "false");
+                              r->n_stages == st.design_row ? "true" : "false");
       number (s, st.has_money ? r->development_work_years * st.work_year_cost : NAN, FALSE);
       number (s, st.has_money ? r->cost_per_flight_work_years * st.work_year_cost : NAN, FALSE);
       number (s, st.has_money ? r->cost_per_flight_reused_work_years * st.work_year_cost : NAN,

@@ -22,6 +22,8 @@
 static gboolean
 has_fixed_load (const SwDesign *design)
 {
+  if (design != NULL && design->boosters.count > 0)
+    return TRUE;    /* the line says that no row is this design */
   for (guint i = 0; design != NULL && i < design->n_stages; i++)
     if (design->stages[i].propellant.has_propellant_kg)
       return TRUE;
@@ -81,7 +83,7 @@ sw_sheet_draw_staging (cairo_t *cr, const SwDesign *design, double x, double y, 
           cairo_rectangle (cr, x, ty - 0.5, w, ROW_H);
           cairo_fill (cr);
         }
-      cells[0] = g_strdup_printf ("%s%u", r->n_stages == s.design_stages ? "▸ " : "",
+      cells[0] = g_strdup_printf ("%s%u", r->n_stages == s.design_row ? "▸ " : "",
                                   r->n_stages);
       cells[1] = sw_format_mass (r->liftoff_mass_kg);
       cells[2] = sw_format_mass (r->liftoff_mass_reused_kg);
@@ -113,7 +115,17 @@ sw_sheet_draw_staging (cairo_t *cr, const SwDesign *design, double x, double y, 
 
     note.ellipsize = TRUE;
     sw_sheet_text_at (cr, statement, x, ty + 1.0, &note);
-    for (guint i = 0; s.fixed_note[0] != '\0' && i < design->n_stages; i++)
+    if (design->boosters.count > 0)
+      {
+        /* Translators: the short form of the staging table's note on a
+         * design with strap-on boosters */
+        sw_sheet_text_at (cr, _("Every row is a serial vehicle without this design's "
+                                "strap-on boosters: no row is this design."),
+                          x, ty + 1.0 + ROW_H, &note);
+        money_y += ROW_H;
+      }
+    for (guint i = 0; design->boosters.count == 0 && s.fixed_note[0] != '\0'
+                      && i < design->n_stages; i++)
       if (design->stages[i].propellant.has_propellant_kg)
         {
           /* Translators: %u is a stage number; the short form of the staging

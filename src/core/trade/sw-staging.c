@@ -73,6 +73,7 @@ sw_staging_compute (const SwDesign *design, guint max_stages, SwStaging *out, GE
   memset (out, 0, sizeof *out);
   out->n_rows = CLAMP (max_stages, 1, SW_STAGING_MAX_STAGES);
   out->design_stages = design->n_stages;
+  out->design_row = design->boosters.count > 0 ? 0 : design->n_stages;
   out->design_reuses = e->recovery_mode != SW_RECOVERY_NONE;
   out->reuse_mode = out->design_reuses ? e->recovery_mode : SW_RECOVERY_DOWNRANGE;
   out->weight_liftoff_mass = e->weight_liftoff_mass;
@@ -87,16 +88,31 @@ sw_staging_compute (const SwDesign *design, guint max_stages, SwStaging *out, GE
     return FALSE;
   out->design_liftoff_mass_kg = own.feasible ? own.liftoff_mass_kg : NAN;
 
+  if (design->boosters.count > 0)
+    /* Translators: %u is the number of strap-on boosters */
+    g_snprintf (out->fixed_note, sizeof out->fixed_note,
+                g_dngettext (GETTEXT_PACKAGE,
+                             "Every row is a serial vehicle without this design's %u strap-on "
+                             "booster, so no row is this design.",
+                             "Every row is a serial vehicle without this design's %u strap-on "
+                             "boosters, so no row is this design.",
+                             design->boosters.count),
+                design->boosters.count);
   sw_reliability_curve_compute (design, out->n_rows, &rel);
   out->reliability_given = rel.given;
   for (guint i = 0; i < design->n_stages; i++)
     if (design->stages[i].propellant.has_propellant_kg)
       {
         /* Translators: %u is a stage number, %s its name */
-        g_snprintf (out->fixed_note, sizeof out->fixed_note,
+        char fixed[SW_REASON_MAX];
+
+        g_snprintf (fixed, sizeof fixed,
                     _("Every stage count is sized from the payload up, this design's own "
                       "included: the fixed propellant load of stage %u (%s) is not applied."),
                     i + 1, design->stages[i].name);
+        if (out->fixed_note[0] != '\0')
+          g_strlcat (out->fixed_note, " ", sizeof out->fixed_note);
+        g_strlcat (out->fixed_note, fixed, sizeof out->fixed_note);
         g_strlcpy (out->reuse_note, _("The recovered columns resize every stage too."),
                    sizeof out->reuse_note);
         break;

@@ -52,6 +52,9 @@ typedef struct {
   guint    n_rows;                       /* stage counts 1..n_rows */
   SwStagingRow rows[SW_STAGING_MAX_STAGES];
   guint    design_stages;                /* the design's own stage count */
+  guint    design_row;                   /* the stage count of the row that is this
+                                          * design; 0 when no row is (a design with
+                                          * strap-on boosters: every row is serial) */
   int      best;                         /* index of the best row, -1 if none closes */
   SwRecoveryMode reuse_mode;             /* the design's, or downrange when expendable */
   gboolean design_reuses;                /* the design recovers its first stage */
