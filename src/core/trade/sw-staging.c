@@ -145,6 +145,9 @@ sw_staging_compute (const SwDesign *design, guint max_stages, SwStaging *out, GE
                           ? design->split : SW_SPLIT_OPTIMAL,
                         e, out->reuse_mode, &reuse);
       row->feasible = reuse.expendable.feasible;
+      /* A vehicle that does not close flies no mission: no success figure. */
+      if (!row->feasible)
+        row->success_probability = NAN;
       row->reused_feasible = reuse.reusable.feasible;
       g_strlcpy (row->reason, reuse.expendable.reason, sizeof row->reason);
       if (row->feasible)
