@@ -177,12 +177,20 @@ mass_committed_cb (SwNumberField *field, SwEngineTypesEditor *self)
   commit (self, d);
 }
 
-/* A check refused by the core goes back to what the design says. */
+/* A check's edit: @done commits @d; a refusal frees it and puts the check
+ * back to what the design says, with the core's message. */
 static void
-revert_check (SwEngineTypesEditor *self, GtkWidget *check, gboolean active, GError *error)
+finish_toggle (SwEngineTypesEditor *self, GtkCheckButton *check, SwDesign *d, gboolean done,
+               const GError *error)
 {
+  if (done)
+    {
+      commit (self, d);
+      return;
+    }
+  sw_design_free (d);
   self->updating++;
-  gtk_check_button_set_active (GTK_CHECK_BUTTON (check), active);
+  gtk_check_button_set_active (check, !gtk_check_button_get_active (check));
   self->updating--;
   show_message (self, short_message (error->message));
 }
@@ -191,60 +199,46 @@ static void
 on_stage_toggled_cb (GtkCheckButton *check, SwEngineTypesEditor *self)
 {
   g_autoptr (GError) error = NULL;
-  guint i = index_of (GTK_WIDGET (check), "sw-type");
-  guint stage = index_of (GTK_WIDGET (check), "sw-stage");
-  gboolean on = gtk_check_button_get_active (check);
   SwDesign *d;
+  gboolean done;
 
   if (!editing_ok (self))
     return;
   d = sw_document_dup_design (self->document);
-  if (!sw_design_set_engine_type_on_stage (d, i, stage, on, &error))
-    {
-      sw_design_free (d);
-      revert_check (self, GTK_WIDGET (check), !on, error);
-      return;
-    }
-  commit (self, d);
+  done = sw_design_set_engine_type_on_stage (d, index_of (GTK_WIDGET (check), "sw-type"),
+                                             index_of (GTK_WIDGET (check), "sw-stage"),
+                                             gtk_check_button_get_active (check), &error);
+  finish_toggle (self, check, d, done, error);
 }
 
 static void
 type_developed_toggled_cb (GtkCheckButton *check, SwEngineTypesEditor *self)
 {
   g_autoptr (GError) error = NULL;
-  gboolean on = gtk_check_button_get_active (check);
   SwDesign *d;
+  gboolean done;
 
   if (!editing_ok (self))
     return;
   d = sw_document_dup_design (self->document);
-  if (!sw_design_set_engine_type_developed (d, index_of (GTK_WIDGET (check), "sw-type"), on,
-                                            &error))
-    {
-      sw_design_free (d);
-      revert_check (self, GTK_WIDGET (check), !on, error);
-      return;
-    }
-  commit (self, d);
+  done = sw_design_set_engine_type_developed (d, index_of (GTK_WIDGET (check), "sw-type"),
+                                              gtk_check_button_get_active (check), &error);
+  finish_toggle (self, check, d, done, error);
 }
 
 static void
 stage_developed_toggled_cb (GtkCheckButton *check, SwEngineTypesEditor *self)
 {
   g_autoptr (GError) error = NULL;
-  gboolean on = gtk_check_button_get_active (check);
   SwDesign *d;
+  gboolean done;
 
   if (!editing_ok (self))
     return;
   d = sw_document_dup_design (self->document);
-  if (!sw_design_set_stage_developed (d, index_of (GTK_WIDGET (check), "sw-stage"), on, &error))
-    {
-      sw_design_free (d);
-      revert_check (self, GTK_WIDGET (check), !on, error);
-      return;
-    }
-  commit (self, d);
+  done = sw_design_set_stage_developed (d, index_of (GTK_WIDGET (check), "sw-stage"),
+                                        gtk_check_button_get_active (check), &error);
+  finish_toggle (self, check, d, done, error);
 }
 
 static void
