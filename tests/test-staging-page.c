@@ -361,8 +361,13 @@ pick (SwWindow *w, GtkWidget *dd, guint index)
 {
   focus_widget (w, dd);
   xdo ("key", "space", NULL);
-  g_usleep (100000);
-  drain ();
+  /* Time for the list to open and take the keys, even under the
+   * sanitizers' slower build. */
+  for (guint k = 0; k < 4; k++)
+    {
+      g_usleep (100000);
+      drain ();
+    }
   xdo ("key", "Home", NULL);
   for (guint i = 0; i < index; i++)
     xdo ("key", "Down", NULL);
@@ -376,6 +381,30 @@ carpet_shown_cb (gpointer data)
 {
   SwStagingPage *page = data;
   return !sw_staging_page_is_busy (page) && sw_staging_page_is_ready (page);
+}
+
+/* The carpet shown, computed, over the axis picked: @axis 0 across, 1 up. */
+typedef struct {
+  SwStagingPage *page;
+  guint axis;
+  SwCarpetParamKind kind;
+  guint stage;
+} AxisWait;
+
+static gboolean
+carpet_over_cb (gpointer data)
+{
+  const AxisWait *aw = data;
+  const SwCarpet *c;
+  const SwCarpetAxis *a;
+
+  if (!carpet_shown_cb (aw->page))
+    return FALSE;
+  c = sw_staging_page_get_carpet (aw->page);
+  if (c == NULL)
+    return FALSE;
+  a = aw->axis == 0 ? &c->x : &c->y;
+  return a->kind == aw->kind && a->stage == aw->stage;
 }
 
 static guint
@@ -466,12 +495,17 @@ test_carpet_picker (void)
 
   /* Across: the second stage's structural coefficient; up: the first
    * stage's vacuum Isp; both picked from their menus with the keyboard. */
-  pick (w, sw_staging_page_get_carpet_control (page, SW_CARPET_CONTROL_PARAM, 0),
-        param_index_of (page, SW_CARPET_PARAM_STRUCTURAL_COEFFICIENT, 1));
-  sw_test_wait_until (carpet_shown_cb, page, 30000, "the carpet over the new x");
-  pick (w, sw_staging_page_get_carpet_control (page, SW_CARPET_CONTROL_PARAM, 1),
-        param_index_of (page, SW_CARPET_PARAM_ISP_VAC, 0));
-  sw_test_wait_until (carpet_shown_cb, page, 30000, "the carpet over the new y");
+  {
+    AxisWait new_x = { page, 0, SW_CARPET_PARAM_STRUCTURAL_COEFFICIENT, 1 };
+    AxisWait new_y = { page, 1, SW_CARPET_PARAM_ISP_VAC, 0 };
+
+    pick (w, sw_staging_page_get_carpet_control (page, SW_CARPET_CONTROL_PARAM, 0),
+          param_index_of (page, SW_CARPET_PARAM_STRUCTURAL_COEFFICIENT, 1));
+    sw_test_wait_until (carpet_over_cb, &new_x, 30000, "the carpet over the new x");
+    pick (w, sw_staging_page_get_carpet_control (page, SW_CARPET_CONTROL_PARAM, 1),
+          param_index_of (page, SW_CARPET_PARAM_ISP_VAC, 0));
+    sw_test_wait_until (carpet_over_cb, &new_y, 30000, "the carpet over the new y");
+  }
   c = sw_staging_page_get_carpet (page);
   g_assert_cmpint (c->x.kind, ==, SW_CARPET_PARAM_STRUCTURAL_COEFFICIENT);
   g_assert_cmpuint (c->x.stage, ==, 1);
@@ -503,12 +537,17 @@ test_carpet_picker (void)
   /* The site's latitude across, the orbit's inclination up: an orbit less
    * inclined than the site's latitude cannot be reached directly, so that
    * part of the grid does not close (and is hatched). */
-  pick (w, sw_staging_page_get_carpet_control (page, SW_CARPET_CONTROL_PARAM, 0),
-        param_index_of (page, SW_CARPET_PARAM_SITE_LATITUDE, 0));
-  sw_test_wait_until (carpet_shown_cb, page, 30000, "the carpet over the latitude");
-  pick (w, sw_staging_page_get_carpet_control (page, SW_CARPET_CONTROL_PARAM, 1),
-        param_index_of (page, SW_CARPET_PARAM_INCLINATION, 0));
-  sw_test_wait_until (carpet_shown_cb, page, 30000, "the carpet over the inclination");
+  {
+    AxisWait lat = { page, 0, SW_CARPET_PARAM_SITE_LATITUDE, 0 };
+    AxisWait inc = { page, 1, SW_CARPET_PARAM_INCLINATION, 0 };
+
+    pick (w, sw_staging_page_get_carpet_control (page, SW_CARPET_CONTROL_PARAM, 0),
+          param_index_of (page, SW_CARPET_PARAM_SITE_LATITUDE, 0));
+    sw_test_wait_until (carpet_over_cb, &lat, 30000, "the carpet over the latitude");
+    pick (w, sw_staging_page_get_carpet_control (page, SW_CARPET_CONTROL_PARAM, 1),
+          param_index_of (page, SW_CARPET_PARAM_INCLINATION, 0));
+    sw_test_wait_until (carpet_over_cb, &inc, 30000, "the carpet over the inclination");
+  }
   type_into (w, GTK_WIDGET (ctl (page, SW_CARPET_CONTROL_MIN, 0)), "0");
   type_into (w, GTK_WIDGET (ctl (page, SW_CARPET_CONTROL_MAX, 0)), "70");
   type_into (w, GTK_WIDGET (ctl (page, SW_CARPET_CONTROL_MIN, 1)), "30");
