@@ -411,6 +411,21 @@ typedef struct {
   SwSimulatedMcState state;
 } McWait;
 
+typedef struct {
+  SwSimulatedMc *mc;
+  guint cancelled;
+} CancelWait;
+
+/* The worker's cancelled run reported back (it may take a moment under the
+ * sanitizers). */
+static gboolean
+mc_cancelled_cb (gpointer data)
+{
+  const CancelWait *cw = data;
+
+  return sw_simulated_mc_get_runs_cancelled (cw->mc) >= cw->cancelled;
+}
+
 static gboolean
 mc_in_state (gpointer data)
 {
@@ -476,6 +491,10 @@ test_simulated_mc (void)
   press_switch (w, toggle);
   g_assert_false (gtk_switch_get_active (GTK_SWITCH (toggle)));
   g_assert_cmpint (sw_simulated_mc_get_state (mc), ==, SW_SIMULATED_MC_OFF);
+  {
+    CancelWait cw = { mc, cancelled + 1 };
+    sw_test_wait_until (mc_cancelled_cb, &cw, 30000, "the cancelled run to report back");
+  }
   g_assert_cmpuint (sw_simulated_mc_get_runs_cancelled (mc), ==, cancelled + 1);
   g_usleep (300000);
   drain ();
