@@ -354,25 +354,119 @@ type_into (SwWindow *w, GtkWidget *field, const char *text)
   xdo ("key", "Return", NULL);
 }
 
+/* The drop-down's own list: its popover child. */
+static GtkWidget *
+popover_of (GtkWidget *dd)
+{
+  for (GtkWidget *c = gtk_widget_get_first_child (dd); c != NULL;
+       c = gtk_widget_get_next_sibling (c))
+    if (GTK_IS_POPOVER (c))
+      return c;
+  return NULL;
+}
+
+/* The list is open and holds the keyboard focus. */
+static gboolean
+list_open_cb (gpointer data)
+{
+  GtkWidget *pop = popover_of (data);
+  GtkWidget *focus;
+
+  if (pop == NULL || !gtk_widget_get_mapped (pop))
+    return FALSE;
+  focus = gtk_root_get_focus (gtk_widget_get_root (data));
+  return focus != NULL && (focus == pop || gtk_widget_is_ancestor (focus, pop));
+}
+
+typedef struct {
+  GtkWidget *dd;
+  guint index;
+} PickWait;
+
+static gboolean
+picked_cb (gpointer data)
+{
+  const PickWait *pw = data;
+  GtkWidget *pop = popover_of (pw->dd);
+
+  return (pop == NULL || !gtk_widget_get_mapped (pop))
+         && gtk_drop_down_get_selected (GTK_DROP_DOWN (pw->dd)) == pw->index;
+}
+
+static gboolean
+count_tick_cb (GtkWidget *widget, GdkFrameClock *clock, gpointer data)
+{
+  guint *ticks = data;
+
+  (*ticks)++;
+  return G_SOURCE_CONTINUE;
+}
+
+static gboolean
+ticks_cb (gpointer data)
+{
+  return *(guint *) data >= 3;
+}
+
+typedef struct {
+  GtkWidget *root;
+  GtkWidget *was;
+} FocusWait;
+
+static gboolean
+focus_moved_cb (gpointer data)
+{
+  const FocusWait *fw = data;
+
+  return gtk_root_get_focus (GTK_ROOT (fw->root)) != fw->was;
+}
+
 /* Picks item @index of a drop-down with the keyboard: open, Home, Down
- * @index times, Enter. */
+ * @index times, Enter. Each step waits for the window to have taken the
+ * last (the list laid out and drawn, the focus moved a row), so that the
+ * sanitizers' slower build sees the same keys. */
 static void
 pick (SwWindow *w, GtkWidget *dd, guint index)
 {
+  PickWait pw = { dd, index };
+  guint ticks = 0;
+  guint tick_id;
+  GtkWidget *pop;
+
   focus_widget (w, dd);
   xdo ("key", "space", NULL);
-  /* Time for the list to open and take the keys, even under the
-   * sanitizers' slower build. */
-  for (guint k = 0; k < 4; k++)
+  sw_test_wait_until (list_open_cb, dd, 20000, "the drop-down's list to open");
+  pop = popover_of (dd);
+  tick_id = gtk_widget_add_tick_callback (pop, count_tick_cb, &ticks, NULL);
+  sw_test_wait_until (ticks_cb, &ticks, 20000, "the list to be drawn");
+  gtk_widget_remove_tick_callback (pop, tick_id);
+  drain ();
+  xdo ("key", "Home", NULL);
+  for (guint k = 0; k < 3; k++)
     {
-      g_usleep (100000);
+      g_usleep (50000);
       drain ();
     }
-  xdo ("key", "Home", NULL);
   for (guint i = 0; i < index; i++)
-    xdo ("key", "Down", NULL);
+    {
+      FocusWait fw = { GTK_WIDGET (w), gtk_root_get_focus (GTK_ROOT (w)) };
+      xdo ("key", "Down", NULL);
+      sw_test_wait_until (focus_moved_cb, &fw, 20000, "the list's focus to move a row");
+    }
   xdo ("key", "Return", NULL);
-  g_usleep (100000);
+  {
+    gint64 end = g_get_monotonic_time () + 20 * G_USEC_PER_SEC;
+    while (!picked_cb (&pw) && g_get_monotonic_time () < end)
+      g_main_context_iteration (NULL, FALSE);
+    if (!picked_cb (&pw))
+      {
+        GtkWidget *focus = gtk_root_get_focus (gtk_widget_get_root (dd));
+        g_error ("picking item %u: after 20 s the list is %s, item %u selected, focus on a %s",
+                 index, gtk_widget_get_mapped (pop) ? "open" : "closed",
+                 gtk_drop_down_get_selected (GTK_DROP_DOWN (dd)),
+                 focus != NULL ? G_OBJECT_TYPE_NAME (focus) : "nothing");
+      }
+  }
   drain ();
 }
 

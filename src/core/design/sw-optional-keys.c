@@ -130,7 +130,9 @@ sw_optional_read_number_full (JsonObject *obj, const char *key, const char *file
     }
   if (limit != SW_OPTIONAL_NO_LIMIT && !sw_optional_check (limit, v, file, prefix, error))
     return FALSE;
-  *value = v;
+  /* A written "-0" reads as minus zero; store plain zero, so that saving and
+   * loading again gives the same design bit for bit. */
+  *value = v == 0.0 ? 0.0 : v;
   if (present != NULL)
     *present = TRUE;
   return TRUE;

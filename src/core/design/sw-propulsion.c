@@ -95,6 +95,8 @@ load_drag_table (JsonObject *obj, const char *file, const char *path, SwStagePro
               return FALSE;
             }
           v[k] = json_node_get_double (e);
+          if (v[k] == 0.0)
+            v[k] = 0.0; /* no minus zero: saving and loading again must match */
         }
       prop->drag_mach[i] = v[0];
       prop->drag_cd[i] = v[1];
