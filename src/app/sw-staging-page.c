@@ -194,7 +194,9 @@ job_done_cb (GObject *source, GAsyncResult *res, gpointer data)
       else if (self->shown->carpet_error != NULL)
         set_carpet_status (self, self->shown->carpet_error, TRUE);
       else
-        set_carpet_status (self, NULL, FALSE);
+        /* What the grid leaves out (a simulate design's allowance), or nothing. */
+        set_carpet_status (self, self->shown->carpet != NULL ? self->shown->carpet->note : NULL,
+                           FALSE);
       update_money (self);
       gtk_widget_queue_draw (self->decision);
       gtk_widget_queue_draw (self->carpet);

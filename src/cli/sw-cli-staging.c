@@ -370,6 +370,8 @@ carpet_json (const SwDesign *d, const SwCarpet *c)
   json_builder_end_object (b);
   json_builder_set_member_name (b, "points_not_closing");
   json_builder_add_int_value (b, c->n_infeasible);
+  json_builder_set_member_name (b, "note");
+  json_builder_add_string_value (b, c->note);
   /* One array per y value, x increasing; null where the vehicle does not close. */
   json_builder_set_member_name (b, "rows");
   json_builder_begin_array (b);
@@ -432,6 +434,8 @@ carpet_table (const SwDesign *d, const SwCarpet *c)
     }
   if (c->output == SW_CARPET_DEVELOPMENT || c->output == SW_CARPET_COST_PER_FLIGHT)
     g_print ("\n%s\n", _(EFFORT_NOTE));
+  if (c->note[0] != '\0')
+    g_print ("\n%s\n", c->note);
   g_print ("\n%s\n", sw_format_cautions ());
 }
 

@@ -41,6 +41,10 @@ typedef struct {
   gboolean      have_psi;
   double        needed;          /* delta-v needed, the objective of the kick */
   SwOutcome     last_outcome;
+  gboolean      fdf_failed;      /* guide_fdf found no orbit (GSL's hybridsj does not
+                                  * pass that on from its set) */
+  double        last_psi[2];     /* the steering of the last flight flown from guide_snap */
+  gboolean      have_last;       /* the simulator is at the end of that flight */
   double        tol;             /* of the steering residuals (10 km and deg units) */
   guint         orbits;          /* trial flights that reached the cutoff energy */
   double        best_short;      /* least delta-v shortfall of a trial that missed the
@@ -80,6 +84,9 @@ fly_guided (Solver *sv, const double *psi)
   s->tan_e = tan (clamp_psi (psi[1]));
   s->stop_at_po = s->stop_at_guide = FALSE;
   sv->last_outcome = sw_flight_run (s);
+  sv->last_psi[0] = psi[0];
+  sv->last_psi[1] = psi[1];
+  sv->have_last = TRUE;
   if (sv->last_outcome == SW_OUT_CUTOFF)
     {
       sv->orbits++;
@@ -158,7 +165,10 @@ guide_fdf (const gsl_vector *x, void *data, gsl_vector *f, gsl_matrix *J)
     }
   /* Every trial falls short of orbit: no slope to follow from here. */
   if (!any_orbit)
-    return GSL_EDOM;
+    {
+      sv->fdf_failed = TRUE;
+      return GSL_EDOM;
+    }
   gsl_vector_set (f, 0, r0[0]);
   gsl_vector_set (f, 1, r0[1]);
   return GSL_SUCCESS;
@@ -187,7 +197,8 @@ solve_steering (Solver *sv, const double *guess, double *psi)
   gsl_vector_set (x, 0, guess[0]);
   gsl_vector_set (x, 1, guess[1]);
   solver = gsl_multiroot_fdfsolver_alloc (gsl_multiroot_fdfsolver_hybridsj, 2);
-  if (gsl_multiroot_fdfsolver_set (solver, &fdf, x) != GSL_SUCCESS)
+  sv->fdf_failed = FALSE;
+  if (gsl_multiroot_fdfsolver_set (solver, &fdf, x) != GSL_SUCCESS || sv->fdf_failed)
     {
       gsl_multiroot_fdfsolver_free (solver);
       gsl_vector_free (x);
@@ -207,15 +218,19 @@ solve_steering (Solver *sv, const double *guess, double *psi)
           sv->cancelled = TRUE;
           break;
         }
-      if (gsl_multiroot_fdfsolver_iterate (solver) != GSL_SUCCESS)
+      if (gsl_multiroot_fdfsolver_iterate (solver) != GSL_SUCCESS || sv->fdf_failed)
         break;
     }
   psi[0] = gsl_vector_get (solver->x, 0);
   psi[1] = gsl_vector_get (solver->x, 1);
   if (ok)
     {
-      /* Leave the simulator at the solution, and make sure it is an orbit. */
-      ok = fly_guided (sv, psi) == SW_OUT_CUTOFF;
+      /* Leave the simulator at the solution, and make sure it is an orbit
+       * (no new flight when the last one flown was that solution). */
+      if (sv->have_last && sv->last_psi[0] == psi[0] && sv->last_psi[1] == psi[1])
+        ok = sv->last_outcome == SW_OUT_CUTOFF;
+      else
+        ok = fly_guided (sv, psi) == SW_OUT_CUTOFF;
     }
   gsl_multiroot_fdfsolver_free (solver);
   gsl_vector_free (x);
@@ -284,6 +299,8 @@ solve_for_kick (Solver *sv, double kick)
   SwFlightSim *s = &sv->sim;
   const double guesses[][2] = { { 0.0, 0.0 }, { 30.0, -10.0 }, { 10.0, 10.0 } };
   double psi[2];
+  int tried = -1;                /* the quick starts flown, in order (deterministic:
+                                  * one that failed fails again) */
   SwOutcome o;
 
   sv->kick = kick;
@@ -295,6 +312,7 @@ solve_for_kick (Solver *sv, double kick)
   s->stop_at_po = FALSE;
   s->stop_at_guide = TRUE;
   o = sw_flight_run (s);
+  sv->have_last = FALSE;
   if (o != SW_OUT_GUIDE)
     {
       /* The first stage fell back: remember how high the best kick got. */
@@ -327,6 +345,7 @@ solve_for_kick (Solver *sv, double kick)
       double g[2] = { (i == 0 ? sv->guide_gamma / SW_DEG : guesses[i][0]) * SW_DEG,
                       guesses[i][1] * SW_DEG };
 
+      tried = (int) i;
       if (solve_steering (sv, g, psi))
         goto solved;
     }
@@ -347,7 +366,7 @@ solved:
     gboolean moved = psi[1] > psi[0] + 1.0 * SW_DEG;
 
     if (moved)
-      for (guint i = 0; i < G_N_ELEMENTS (guesses) && !sv->cancelled; i++)
+      for (guint i = (guint) (tried + 1); i < G_N_ELEMENTS (guesses) && !sv->cancelled; i++)
         {
           double g[2] = { (i == 0 ? sv->guide_gamma / SW_DEG : guesses[i][0]) * SW_DEG,
                           guesses[i][1] * SW_DEG }, alt[2];
@@ -568,7 +587,9 @@ optimise_kick (Solver *sv, double start, gboolean grid, double *best_kick, gbool
       if (status != GSL_SUCCESS)
         break;
       /* The optimum is flat: stop when the kick is pinned to 0.05 deg or
-       * the needed delta-v has stopped improving by 0.05 m/s twice. */
+       * the needed delta-v has stopped improving by 0.1 m/s twice (once
+       * leaves the closed loop's outer search more noise to fight: more
+       * passes in all). */
       calm = before - gsl_min_fminimizer_f_minimum (min) < 0.1 ? calm + 1 : 0;
       if (calm >= 2
           || gsl_min_test_interval (gsl_min_fminimizer_x_lower (min),

@@ -5,8 +5,11 @@
 
 #include "sw-carpet.h"
 
+#include "sw-booster-sizing.h"
 #include "sw-budget.h"
 #include "sw-cost.h"
+#include "sw-format.h"
+#include "sw-payload-curves.h"
 #include "sw-limits.h"
 #include "sw-sizing.h"
 
@@ -16,10 +19,12 @@
 #include <string.h>
 
 #define PARAM_LIST "payload_kg, mission.delta_v_m_s, mission.losses_m_s, " \
-                   "mission.orbit.inclination_deg, " \
+                   "mission.orbit.altitude_km, mission.orbit.inclination_deg, " \
                    "mission.orbit.site_latitude_deg, stages[N].isp_vac_s, " \
                    "stages[N].structural_coefficient, stages[N].propellant_kg (a fixed " \
-                   "load), economics.production_run, " \
+                   "load), boosters.count, boosters.isp_vac_s, " \
+                   "boosters.structural_coefficient, boosters.thrust_vac_kn, " \
+                   "boosters.propellant_kg (a fixed load), economics.production_run, " \
                    "economics.learning_rate, economics.engine_mass_fraction, " \
                    "economics.cost_coefficients.KEY"
 
@@ -55,8 +60,29 @@ econ_param_index (SwEconNumber key)
 static gboolean
 is_orbit_param (SwCarpetParamKind kind)
 {
-  return kind == SW_CARPET_PARAM_LOSSES || kind == SW_CARPET_PARAM_INCLINATION || kind == SW_CARPET_PARAM_SITE_LATITUDE;
+  return kind == SW_CARPET_PARAM_LOSSES || kind == SW_CARPET_PARAM_INCLINATION
+         || kind == SW_CARPET_PARAM_SITE_LATITUDE || kind == SW_CARPET_PARAM_ALTITUDE;
 }
+
+static gboolean
+is_booster_param (SwCarpetParamKind kind)
+{
+  return kind == SW_CARPET_PARAM_BOOSTER_COUNT || kind == SW_CARPET_PARAM_BOOSTER_ISP_VAC
+         || kind == SW_CARPET_PARAM_BOOSTER_STRUCTURAL_COEFFICIENT
+         || kind == SW_CARPET_PARAM_BOOSTER_THRUST
+         || kind == SW_CARPET_PARAM_BOOSTER_PROPELLANT_LOAD;
+}
+
+static const struct {
+  SwCarpetParamKind kind;
+  const char       *name;
+} booster_names[] = {
+  { SW_CARPET_PARAM_BOOSTER_COUNT, "boosters.count" },
+  { SW_CARPET_PARAM_BOOSTER_ISP_VAC, "boosters.isp_vac_s" },
+  { SW_CARPET_PARAM_BOOSTER_STRUCTURAL_COEFFICIENT, "boosters.structural_coefficient" },
+  { SW_CARPET_PARAM_BOOSTER_THRUST, "boosters.thrust_vac_kn" },
+  { SW_CARPET_PARAM_BOOSTER_PROPELLANT_LOAD, "boosters.propellant_kg" },
+};
 
 gboolean
 sw_carpet_param_parse (const char *text, const SwDesign *design, SwCarpetAxis *axis,
@@ -78,6 +104,37 @@ sw_carpet_param_parse (const char *text, const SwDesign *design, SwCarpetAxis *a
     axis->kind = SW_CARPET_PARAM_LOSSES;
   else if (strcmp (text, "mission.orbit.inclination_deg") == 0)
     axis->kind = SW_CARPET_PARAM_INCLINATION;
+  else if (strcmp (text, "mission.orbit.altitude_km") == 0)
+    axis->kind = SW_CARPET_PARAM_ALTITUDE;
+  else if (g_str_has_prefix (text, "boosters."))
+    {
+      int found = -1;
+      for (guint i = 0; i < G_N_ELEMENTS (booster_names) && found < 0; i++)
+        if (strcmp (text, booster_names[i].name) == 0)
+          found = (int) i;
+      if (found < 0)
+        {
+          g_set_error (error, SW_ERROR, SW_ERROR_USAGE,
+                       _("%s: not a parameter of the carpet plot; use one of %s"), text,
+                       PARAM_LIST);
+          return FALSE;
+        }
+      if (design->boosters.count == 0)
+        {
+          g_set_error (error, SW_ERROR, SW_ERROR_USAGE,
+                       _("%s: the design has no strap-on boosters"), text);
+          return FALSE;
+        }
+      axis->kind = booster_names[found].kind;
+      if (axis->kind == SW_CARPET_PARAM_BOOSTER_PROPELLANT_LOAD
+          && !design->boosters.propellant.has_propellant_kg)
+        {
+          g_set_error (error, SW_ERROR, SW_ERROR_USAGE,
+                       _("%s: the boosters are sized, they have no fixed propellant load to "
+                         "vary"), text);
+          return FALSE;
+        }
+    }
   else if (strcmp (text, "mission.orbit.site_latitude_deg") == 0)
     axis->kind = SW_CARPET_PARAM_SITE_LATITUDE;
   else if (g_str_has_prefix (text, "economics."))
@@ -200,6 +257,17 @@ sw_carpet_param_dup_name (const SwCarpetAxis *axis)
       return g_strdup ("mission.losses_m_s");
     case SW_CARPET_PARAM_INCLINATION:
       return g_strdup ("mission.orbit.inclination_deg");
+    case SW_CARPET_PARAM_ALTITUDE:
+      return g_strdup ("mission.orbit.altitude_km");
+    case SW_CARPET_PARAM_BOOSTER_COUNT:
+    case SW_CARPET_PARAM_BOOSTER_ISP_VAC:
+    case SW_CARPET_PARAM_BOOSTER_STRUCTURAL_COEFFICIENT:
+    case SW_CARPET_PARAM_BOOSTER_THRUST:
+    case SW_CARPET_PARAM_BOOSTER_PROPELLANT_LOAD:
+      for (guint i = 0; i < G_N_ELEMENTS (booster_names); i++)
+        if (booster_names[i].kind == axis->kind)
+          return g_strdup (booster_names[i].name);
+      return g_strdup ("boosters");
     case SW_CARPET_PARAM_SITE_LATITUDE:
       return g_strdup ("mission.orbit.site_latitude_deg");
     case SW_CARPET_PARAM_ECONOMICS:
@@ -227,6 +295,18 @@ sw_carpet_param_dup_label (const SwCarpetAxis *axis)
       return g_strdup (_("Loss allowance"));
     case SW_CARPET_PARAM_INCLINATION:
       return g_strdup (_("Orbit inclination"));
+    case SW_CARPET_PARAM_ALTITUDE:
+      return g_strdup (_("Orbit altitude"));
+    case SW_CARPET_PARAM_BOOSTER_COUNT:
+      return g_strdup (_("Number of boosters"));
+    case SW_CARPET_PARAM_BOOSTER_ISP_VAC:
+      return g_strdup (_("Vacuum Isp, boosters"));
+    case SW_CARPET_PARAM_BOOSTER_STRUCTURAL_COEFFICIENT:
+      return g_strdup (_("Structural coefficient, boosters"));
+    case SW_CARPET_PARAM_BOOSTER_THRUST:
+      return g_strdup (_("Thrust per booster"));
+    case SW_CARPET_PARAM_BOOSTER_PROPELLANT_LOAD:
+      return g_strdup (_("Fixed propellant load per booster"));
     case SW_CARPET_PARAM_SITE_LATITUDE:
       return g_strdup (_("Launch site latitude"));
     case SW_CARPET_PARAM_ECONOMICS:
@@ -276,6 +356,18 @@ sw_carpet_param_limit (const SwCarpetAxis *axis)
     {
     case SW_CARPET_PARAM_INCLINATION:
       return SW_LIMIT_INCLINATION;
+    case SW_CARPET_PARAM_ALTITUDE:
+      return SW_LIMIT_ALTITUDE;
+    case SW_CARPET_PARAM_BOOSTER_COUNT:
+      return SW_LIMIT_BOOSTER_COUNT;
+    case SW_CARPET_PARAM_BOOSTER_ISP_VAC:
+      return SW_LIMIT_ISP_VAC;
+    case SW_CARPET_PARAM_BOOSTER_STRUCTURAL_COEFFICIENT:
+      return SW_LIMIT_STRUCTURAL_COEFFICIENT;
+    case SW_CARPET_PARAM_BOOSTER_THRUST:
+      return SW_LIMIT_THRUST_VAC;
+    case SW_CARPET_PARAM_BOOSTER_PROPELLANT_LOAD:
+      return SW_LIMIT_PROPELLANT_LOAD;
     case SW_CARPET_PARAM_SITE_LATITUDE:
       return SW_LIMIT_SITE_LATITUDE;
     case SW_CARPET_PARAM_ECONOMICS:
@@ -333,6 +425,20 @@ sw_carpet_axis_check (const SwCarpetAxis *axis, const SwDesign *design, GError *
                    design->stages[axis->stage].isp_sl_s);
       return FALSE;
     }
+  if (axis->kind == SW_CARPET_PARAM_BOOSTER_ISP_VAC && design->boosters.has_isp_sl
+      && axis->min < design->boosters.isp_sl_s)
+    {
+      g_set_error (error, SW_ERROR, SW_ERROR_RANGE,
+                   _("%s: the range starts below the boosters' sea-level Isp of %g s"), name,
+                   design->boosters.isp_sl_s);
+      return FALSE;
+    }
+  if (is_booster_param (axis->kind) && design->boosters.count == 0)
+    {
+      g_set_error (error, SW_ERROR, SW_ERROR_USAGE, _("%s: the design has no strap-on boosters"),
+                   name);
+      return FALSE;
+    }
   return TRUE;
 }
 
@@ -353,7 +459,8 @@ sw_carpet_axis_value (const SwCarpetAxis *axis, guint i)
 gboolean
 sw_carpet_param_is_whole (const SwCarpetAxis *axis)
 {
-  return axis->kind == SW_CARPET_PARAM_ECONOMICS && sw_economics_number_is_whole (axis->econ);
+  return axis->kind == SW_CARPET_PARAM_BOOSTER_COUNT
+         || (axis->kind == SW_CARPET_PARAM_ECONOMICS && sw_economics_number_is_whole (axis->econ));
 }
 
 gboolean
@@ -406,12 +513,22 @@ sw_carpet_list_params (const SwDesign *design, SwCarpetOutput output, SwCarpetAx
       if (design->stages[i].propellant.has_propellant_kg)
         ADD (SW_CARPET_PARAM_PROPELLANT_LOAD, i, 0);
     }
+  if (design->boosters.count > 0)
+    {
+      ADD (SW_CARPET_PARAM_BOOSTER_COUNT, 0, 0);
+      ADD (SW_CARPET_PARAM_BOOSTER_STRUCTURAL_COEFFICIENT, 0, 0);
+      ADD (SW_CARPET_PARAM_BOOSTER_ISP_VAC, 0, 0);
+      ADD (SW_CARPET_PARAM_BOOSTER_THRUST, 0, 0);
+      if (design->boosters.propellant.has_propellant_kg)
+        ADD (SW_CARPET_PARAM_BOOSTER_PROPELLANT_LOAD, 0, 0);
+    }
   ADD (SW_CARPET_PARAM_PAYLOAD, 0, 0);
   if (design->mission.kind == SW_MISSION_DELTA_V)
     ADD (SW_CARPET_PARAM_DELTA_V, 0, 0);
   else
     {
       ADD (SW_CARPET_PARAM_LOSSES, 0, 0);
+      ADD (SW_CARPET_PARAM_ALTITUDE, 0, 0);
       ADD (SW_CARPET_PARAM_INCLINATION, 0, 0);
       ADD (SW_CARPET_PARAM_SITE_LATITUDE, 0, 0);
     }
@@ -437,6 +554,20 @@ sw_carpet_axis_default_range (SwCarpetAxis *axis, const SwDesign *design)
       hi = 1.15 * v;
       if (design->stages[axis->stage].has_isp_sl)
         lo = MAX (lo, design->stages[axis->stage].isp_sl_s);
+      break;
+    case SW_CARPET_PARAM_BOOSTER_ISP_VAC:
+      lo = 0.85 * v;
+      hi = 1.15 * v;
+      if (design->boosters.has_isp_sl)
+        lo = MAX (lo, design->boosters.isp_sl_s);
+      break;
+    case SW_CARPET_PARAM_BOOSTER_COUNT:
+      lo = 1.0;
+      hi = MAX (2.0 * v, 4.0);
+      break;
+    case SW_CARPET_PARAM_ALTITUDE:
+      lo = MAX (150.0, 0.5 * v);
+      hi = MAX (lo + 100.0, 2.0 * v);
       break;
     case SW_CARPET_PARAM_INCLINATION:
       lo = MAX (fabs (design->mission.site_latitude_deg), v - 30.0);
@@ -479,6 +610,19 @@ sw_carpet_axis_default_range (SwCarpetAxis *axis, const SwDesign *design)
     }
 }
 
+/* The orbit moved to @altitude_km: the allowance (the budget's, 0 without
+ * one) moves by the change in the climb's energy, as in the payload curves. */
+static void
+altitude_apply (SwMission *m, double altitude_km)
+{
+  double losses = m->has_losses ? m->losses_m_s : 0.0;
+
+  losses += sw_payload_climb_m_s (altitude_km) - sw_payload_climb_m_s (m->altitude_km);
+  m->losses_m_s = MAX (losses, 0.0);
+  m->has_losses = TRUE;
+  m->altitude_km = altitude_km;
+}
+
 double
 sw_carpet_design_value (const SwCarpetAxis *axis, const SwDesign *design)
 {
@@ -495,6 +639,18 @@ sw_carpet_design_value (const SwCarpetAxis *axis, const SwDesign *design)
       }
     case SW_CARPET_PARAM_INCLINATION:
       return design->mission.inclination_deg;
+    case SW_CARPET_PARAM_ALTITUDE:
+      return design->mission.altitude_km;
+    case SW_CARPET_PARAM_BOOSTER_COUNT:
+      return design->boosters.count;
+    case SW_CARPET_PARAM_BOOSTER_ISP_VAC:
+      return design->boosters.isp_vac_s;
+    case SW_CARPET_PARAM_BOOSTER_STRUCTURAL_COEFFICIENT:
+      return design->boosters.structural_coefficient;
+    case SW_CARPET_PARAM_BOOSTER_THRUST:
+      return design->boosters.thrust_vac_kn;
+    case SW_CARPET_PARAM_BOOSTER_PROPELLANT_LOAD:
+      return design->boosters.propellant.propellant_kg;
     case SW_CARPET_PARAM_SITE_LATITUDE:
       return design->mission.site_latitude_deg;
     case SW_CARPET_PARAM_ECONOMICS:
@@ -527,6 +683,25 @@ sw_carpet_apply (const SwCarpetAxis *axis, SwDesign *design, double value)
     case SW_CARPET_PARAM_INCLINATION:
       design->mission.inclination_deg = value;
       break;
+    case SW_CARPET_PARAM_ALTITUDE:
+      altitude_apply (&design->mission, value);
+      break;
+    case SW_CARPET_PARAM_BOOSTER_COUNT:
+      design->boosters.count = (guint) value;
+      break;
+    case SW_CARPET_PARAM_BOOSTER_ISP_VAC:
+      design->boosters.isp_vac_s = value;
+      break;
+    case SW_CARPET_PARAM_BOOSTER_STRUCTURAL_COEFFICIENT:
+      design->boosters.structural_coefficient = value;
+      break;
+    case SW_CARPET_PARAM_BOOSTER_THRUST:
+      design->boosters.thrust_vac_kn = value;
+      break;
+    case SW_CARPET_PARAM_BOOSTER_PROPELLANT_LOAD:
+      design->boosters.propellant.propellant_kg = value;
+      design->boosters.propellant.has_propellant_kg = TRUE;
+      break;
     case SW_CARPET_PARAM_SITE_LATITUDE:
       design->mission.site_latitude_deg = value;
       break;
@@ -553,6 +728,8 @@ typedef struct {
   SwStageSet set;
   double fixed_kg[SW_MAX_STAGES];     /* the design's fixed loads; 0: sized */
   gboolean any_fixed;
+  gboolean parallel;                  /* the design has boosters: sized as a parallel vehicle */
+  SwParallelVehicle pv;               /* its boosters and core thrust (set, fixed_kg unused) */
   double payload_kg;
   double delta_v_m_s;
   SwMission mission;
@@ -564,6 +741,21 @@ typedef struct {
  * fixed stage weighs the same whatever it carries), so the secant method
  * closes in on the mass, which rises with the payload.  NAN when no
  * vehicle of that mass closes. */
+static void
+point_size (const Point *p, double payload_kg, SwSplitMode split, SwSizing *out)
+{
+  if (p->parallel && p->pv.count > 0)
+    {
+      SwParallelVehicle v = p->pv;
+
+      v.set = p->set;
+      memcpy (v.fixed_kg, p->fixed_kg, sizeof v.fixed_kg);
+      sw_size_parallel (&v, payload_kg, p->delta_v_m_s, split, out);
+    }
+  else
+    sw_size_with_fixed (&p->set, p->fixed_kg, payload_kg, p->delta_v_m_s, split, out);
+}
+
 static double
 point_payload_at_mass (const Point *p, SwSplitMode split, const SwSizing *at_payload,
                        double liftoff_kg)
@@ -571,14 +763,15 @@ point_payload_at_mass (const Point *p, SwSplitMode split, const SwSizing *at_pay
   double x0 = p->payload_kg, f0 = at_payload->liftoff_mass_kg - liftoff_kg;
   double x1 = p->payload_kg * liftoff_kg / at_payload->liftoff_mass_kg, f1;
 
-  if (!p->any_fixed)
+  /* Boosters' burn times follow from their absolute thrust: not linear. */
+  if (!p->any_fixed && !(p->parallel && p->pv.count > 0))
     return x1;
   for (guint k = 0; k < 60; k++)
     {
       SwSizing s;
       double x2;
 
-      sw_size_with_fixed (&p->set, p->fixed_kg, x1, p->delta_v_m_s, split, &s);
+      point_size (p, x1, split, &s);
       if (!s.feasible)
         return NAN;
       f1 = s.liftoff_mass_kg - liftoff_kg;
@@ -613,6 +806,24 @@ point_apply (const SwCarpetAxis *axis, Point *p, double value, double dv_without
     case SW_CARPET_PARAM_INCLINATION:
       p->mission.inclination_deg = value;
       break;
+    case SW_CARPET_PARAM_ALTITUDE:
+      altitude_apply (&p->mission, value);
+      break;
+    case SW_CARPET_PARAM_BOOSTER_COUNT:
+      p->pv.count = (guint) value;
+      break;
+    case SW_CARPET_PARAM_BOOSTER_ISP_VAC:
+      p->pv.booster_exhaust_velocity_m_s = value * SW_G0;
+      break;
+    case SW_CARPET_PARAM_BOOSTER_STRUCTURAL_COEFFICIENT:
+      p->pv.booster_structural_coefficient = value;
+      break;
+    case SW_CARPET_PARAM_BOOSTER_THRUST:
+      p->pv.booster_thrust_n = value * 1000.0;
+      break;
+    case SW_CARPET_PARAM_BOOSTER_PROPELLANT_LOAD:
+      p->pv.booster_fixed_kg = value;
+      break;
     case SW_CARPET_PARAM_SITE_LATITUDE:
       p->mission.site_latitude_deg = value;
       break;
@@ -635,7 +846,8 @@ point_apply (const SwCarpetAxis *axis, Point *p, double value, double dv_without
 static gboolean
 needs_budget (SwCarpetParamKind kind)
 {
-  return kind == SW_CARPET_PARAM_INCLINATION || kind == SW_CARPET_PARAM_SITE_LATITUDE;
+  return kind == SW_CARPET_PARAM_INCLINATION || kind == SW_CARPET_PARAM_SITE_LATITUDE
+         || kind == SW_CARPET_PARAM_ALTITUDE;
 }
 
 static double
@@ -655,7 +867,7 @@ point_output (SwDesign *scratch, const SwCarpet *c, Point *p, SwSplitMode split,
     }
   /* The design's fixed propellant loads are honoured (sw_size_with_fixed
    * is sw_size bit for bit without them). */
-  sw_size_with_fixed (&p->set, p->fixed_kg, p->payload_kg, p->delta_v_m_s, split, &sizing);
+  point_size (p, p->payload_kg, split, &sizing);
   if (!sizing.feasible)
     return NAN;
   switch (c->output)
@@ -709,6 +921,7 @@ sw_carpet_compute (const SwDesign *design, const SwCarpetOptions *options, GErro
   budget = needs_budget (options->x.kind) || needs_budget (options->y.kind);
 
   /* A shallow copy: the heap members are not the scratch's to free. */
+  memset (&base, 0, sizeof base);
   scratch = g_memdup2 (design, sizeof *design);
   scratch->notes = NULL;
   scratch->baseline = NULL;
@@ -720,6 +933,9 @@ sw_carpet_compute (const SwDesign *design, const SwCarpetOptions *options, GErro
                            ? design->stages[i].propellant.propellant_kg : 0.0;
       base.any_fixed = base.any_fixed || base.fixed_kg[i] > 0.0;
     }
+  base.parallel = design->boosters.count > 0;
+  if (base.parallel && !sw_parallel_vehicle_from_design (&base.pv, design, error))
+    return NULL;
   base.payload_kg = design->payload_kg;
   base.mission = design->mission;
   base.economics = design->economics;
@@ -732,8 +948,7 @@ sw_carpet_compute (const SwDesign *design, const SwCarpetOptions *options, GErro
         return NULL;
       dv_without_losses = b.delta_v_m_s - b.losses_m_s;
     }
-  sw_size_with_fixed (&base.set, base.fixed_kg, base.payload_kg, base.delta_v_m_s, design->split,
-                      &own);
+  point_size (&base, base.payload_kg, design->split, &own);
   design_liftoff = own.feasible ? own.liftoff_mass_kg : NAN;
 
   c = g_new0 (SwCarpet, 1);
@@ -746,6 +961,23 @@ sw_carpet_compute (const SwDesign *design, const SwCarpetOptions *options, GErro
   c->design_y = sw_carpet_design_value (&c->y, design);
   row = base;
   c->design_value = point_output (scratch, c, &row, design->split, design_liftoff, FALSE);
+  if (design->mission.kind == SW_MISSION_ORBIT && design->mission.loss_model == SW_LOSS_SIMULATE)
+    {
+      SwBudget b;
+      g_autofree char *losses = sw_design_budget (design, &b, NULL)
+                                  ? sw_format_speed (b.losses_m_s) : g_strdup ("?");
+      /* Translators: %s is a speed ("2,500 m/s") */
+      g_snprintf (c->note, sizeof c->note,
+                  _("Every point is sized with the loss allowance of %s, the design's first "
+                    "guess for its closed loop: no ascent is flown at the points."), losses);
+    }
+  if (design->boosters.count > 0
+      && (c->output == SW_CARPET_DEVELOPMENT || c->output == SW_CARPET_COST_PER_FLIGHT))
+    {
+      if (c->note[0] != '\0')
+        g_strlcat (c->note, " ", sizeof c->note);
+      g_strlcat (c->note, _("The cost model leaves the strap-on boosters out."), sizeof c->note);
+    }
 
   for (guint j = 0; j < c->y.n; j++)
     {

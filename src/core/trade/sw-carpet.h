@@ -3,11 +3,16 @@
  * axis each: parameter, range, point count) are varied over a grid: the
  * payload, the mission (delta-v, or the orbit's inclination, the site's
  * latitude and the loss allowance), each stage's vacuum Isp and structural
- * coefficient, and for the cost outputs the cost model's numeric keys
- * (production run, learning rate, coefficients, engine share).  Not the
- * orbit's altitude: the budget's ideal delta-v is the circular speed at the
- * altitude, and the climb is in the loss allowance, so a grid over altitude
- * would show a higher orbit as cheaper.  At every
+ * coefficient, the boosters' count, vacuum Isp, structural coefficient,
+ * thrust and fixed load (designs with boosters), and for the cost outputs
+ * the cost model's numeric keys (production run, learning rate,
+ * coefficients, engine share).  The orbit's altitude moves the loss
+ * allowance with it: the budget's ideal delta-v is the circular speed at
+ * the altitude and the climb is in the allowance, so at another altitude
+ * the allowance changes by the climb's energy (sw_payload_climb_m_s(), as
+ * the payload curves do); without that a higher orbit would look cheaper.
+ * A design with boosters is sized as sw_size_design() sizes it (the
+ * parallel vehicle, sw-booster-sizing.h).  At every
  * point the vehicle is sized with the design's split and one output taken:
  * liftoff mass, the payload of a vehicle of the design's own liftoff mass,
  * development effort or cost per flight (work-years, expendable).  A point
@@ -37,6 +42,13 @@ typedef enum {
   SW_CARPET_PARAM_SITE_LATITUDE,      /* mission.orbit.site_latitude_deg */
   SW_CARPET_PARAM_ECONOMICS,          /* economics.<key> (cost outputs only) */
   SW_CARPET_PARAM_PROPELLANT_LOAD,    /* stages[i].propellant_kg (a stage with a fixed load) */
+  SW_CARPET_PARAM_ALTITUDE,           /* mission.orbit.altitude_km (orbit missions); the
+                                       * loss allowance moves with the climb's energy */
+  SW_CARPET_PARAM_BOOSTER_COUNT,      /* boosters.count (designs with boosters) */
+  SW_CARPET_PARAM_BOOSTER_ISP_VAC,    /* boosters.isp_vac_s */
+  SW_CARPET_PARAM_BOOSTER_STRUCTURAL_COEFFICIENT, /* boosters.structural_coefficient */
+  SW_CARPET_PARAM_BOOSTER_THRUST,     /* boosters.thrust_vac_kn */
+  SW_CARPET_PARAM_BOOSTER_PROPELLANT_LOAD, /* boosters.propellant_kg (a fixed load) */
 } SwCarpetParamKind;
 
 typedef struct {
@@ -76,6 +88,7 @@ typedef struct {
   double         design_x;            /* the design's own values, to mark it */
   double         design_y;
   double         design_value;        /* NAN when the design does not close */
+  char           note[512];           /* what the grid leaves out, in plain words; "" none */
 } SwCarpet;
 
 /* "stages[1].isp_vac_s" and the like into @kind and @stage; an error names
