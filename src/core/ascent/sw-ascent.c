@@ -710,6 +710,63 @@ track (SwFlightSim *s)
   track_derived (s, &d);
 }
 
+/* The recorded flight: samples inside the step from (t0, y0) to (t1, y1),
+ * every sample interval after t0 and before @t_stop (the step's end, or an
+ * event inside it), on the step's cubic Hermite interpolant (the states and
+ * the derivatives at both ends; every component, the loss integrals
+ * included).  The integrator's step is then set by its tolerance alone,
+ * not by the sampling (a 1 s cap made the recorded flight cost as much as
+ * a dozen trial flights); the samples keep their spacing. */
+static void
+record_inside_step (SwFlightSim *s, double t0, const double *y0, double t1, const double *y1,
+                    double t_stop)
+{
+  const double interval = s->m->opt.sample_interval_s;
+  const double dt = t1 - t0;
+  const size_t n = s->sys.dimension;
+  double f0[SW_NY], f1[SW_NY], t_keep, y_keep[SW_NY], ya[SW_NY], yb[SW_NY];
+
+  if (!(dt > 0.0) || !(t0 + interval < t_stop - 1e-9))
+    return;
+  /* Copies: either end may be the simulator's own state, written below. */
+  memcpy (ya, y0, sizeof ya);
+  memcpy (yb, y1, sizeof yb);
+  y0 = ya;
+  y1 = yb;
+  if (rhs (t0, y0, f0, s) != GSL_SUCCESS || rhs (t1, y1, f1, s) != GSL_SUCCESS)
+    return;
+  t_keep = s->f.t;
+  memcpy (y_keep, s->f.y, sizeof y_keep);
+  for (double ts = t0 + interval; ts < t_stop - 1e-9; ts += interval)
+    {
+      double u = (ts - t0) / dt, v = 1.0 - u;
+      double a = (1.0 + 2.0 * u) * v * v, b = u * v * v * dt;
+      double c = u * u * (3.0 - 2.0 * u), d = -u * u * v * dt;
+
+      for (size_t i = 0; i < n; i++)
+        s->f.y[i] = a * y0[i] + b * f0[i] + c * y1[i] + d * f1[i];
+      s->f.t = ts;
+      /* The peaks that are no event (altitude, q alpha) see the samples
+       * too; max-Q and the largest acceleration stay on the integrator's
+       * own states and events. */
+      if (!current_segment (s)->is_virtual)
+        {
+          Derived dd;
+
+          derive (s, ts, s->f.y, &dd);
+          s->f.max_alt = MAX (s->f.max_alt, dd.h);
+          if (dd.thrust > 0.0 && dd.v_rel > 1e-6)
+            {
+              double cq = (dd.sin_psi * dd.vr + dd.cos_psi * dd.vt_rel) / dd.v_rel;
+              s->f.max_q_alpha = MAX (s->f.max_q_alpha, dd.q * acos (CLAMP (cq, -1.0, 1.0)));
+            }
+        }
+      record_sample (s);
+    }
+  s->f.t = t_keep;
+  memcpy (s->f.y, y_keep, sizeof y_keep);
+}
+
 /* Integrates to @t_end or to the first event; *failed on integrator trouble. */
 static EventId
 advance (SwFlightSim *s, double t_end, gboolean *failed)
@@ -737,8 +794,6 @@ advance (SwFlightSim *s, double t_end, gboolean *failed)
       int status;
 
       memcpy (y0, s->f.y, sizeof y0);
-      if (s->record)
-        h = MIN (h, s->m->opt.sample_interval_s);
       status = s->lean
                  ? gsl_odeiv2_evolve_apply (s->evo_lean, s->ctl_lean, lean_step (s), &s->sys,
                                             &s->f.t, t_end, &h, s->f.y)
@@ -773,6 +828,12 @@ advance (SwFlightSim *s, double t_end, gboolean *failed)
             }
           g_prev[e] = g1;
         }
+      /* Inside a step cut by an event, the interpolant ends at the event's
+       * own state (the step beyond it may cross a change of the dynamics). */
+      if (s->record && best != EV_NONE)
+        record_inside_step (s, t0, y0, t0 + best_tau, y_best, t0 + best_tau);
+      else if (s->record)
+        record_inside_step (s, t0, y0, s->f.t, s->f.y, s->f.t);
       if (best != EV_NONE)
         {
           s->f.t = t0 + best_tau;
