@@ -43,6 +43,8 @@ typedef struct {
   SwOutcome     last_outcome;
   gboolean      fdf_failed;      /* guide_fdf found no orbit (GSL's hybridsj does not
                                   * pass that on from its set) */
+  double        last_short;      /* speed the last flight lacked for the orbit's energy, m/s
+                                  * (0 when it reached it) */
   double        last_psi[2];     /* the steering of the last flight flown from guide_snap */
   gboolean      have_last;       /* the simulator is at the end of that flight */
   double        tol;             /* of the steering residuals (10 km and deg units) */
@@ -84,6 +86,7 @@ fly_guided (Solver *sv, const double *psi)
   s->tan_e = tan (clamp_psi (psi[1]));
   s->stop_at_po = s->stop_at_guide = FALSE;
   sv->last_outcome = sw_flight_run (s);
+  sv->last_short = 0.0;
   sv->last_psi[0] = psi[0];
   sv->last_psi[1] = psi[1];
   sv->have_last = TRUE;
@@ -99,6 +102,8 @@ fly_guided (Solver *sv, const double *psi)
       double r = s->f.y[SW_Y_R], v = hypot (s->f.y[SW_Y_VR], s->f.y[SW_Y_VT]);
       double e = 2.0 * (sv->model.e_target + SW_WGS84_MU / MAX (r, SW_RE));
       double short_m_s = sqrt (MAX (e, 0.0)) - v;
+
+      sv->last_short = short_m_s;
 
       if (isfinite (short_m_s) && short_m_s < sv->best_short)
         {
@@ -154,6 +159,14 @@ guide_fdf (const gsl_vector *x, void *data, gsl_vector *f, gsl_matrix *J)
   /* Forward differences with a step well above the integrator's noise. */
   any_orbit = fly_guided (sv, psi) == SW_OUT_CUTOFF;
   residuals (sv, sv->last_outcome, r0);
+  /* Far from the orbit's energy (more than 1 m/s of speed short), steering
+   * changes of JACOBIAN_STEP (0.01 deg) cannot reach it either: no slope to
+   * follow, without flying them. */
+  if (!any_orbit && isfinite (sv->last_short) && sv->last_short > 1.0)
+    {
+      sv->fdf_failed = TRUE;
+      return GSL_EDOM;
+    }
   for (int j = 0; j < 2; j++)
     {
       double p[2] = { psi[0], psi[1] };
