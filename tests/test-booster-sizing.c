@@ -230,6 +230,125 @@ check_grid (gboolean crossfeed)
   }
 }
 
+/* The upper stages' delta-v that makes up @dv with the core's load @p1 and
+ * the boosters' @pb: bisection on sw_parallel_liftoff_mass (the vehicle's
+ * delta-v rises with the upper stages' share).  NAN when none does. */
+static double
+upper_for (const SwParallelVehicle *v, double payload, double pb, double p1, double dv)
+{
+  double lo = 1e-6, hi = dv, got;
+
+  if (!isfinite (sw_parallel_liftoff_mass (v, payload, pb, p1, hi, &got)) || got < dv)
+    return NAN;
+  if (isfinite (sw_parallel_liftoff_mass (v, payload, pb, p1, lo, &got)) && got >= dv)
+    return lo;
+  for (int i = 0; i < 200; i++)
+    {
+      double mid = 0.5 * (lo + hi);
+      if (!isfinite (sw_parallel_liftoff_mass (v, payload, pb, p1, mid, &got)) || got < dv)
+        lo = mid;
+      else
+        hi = mid;
+    }
+  return hi;
+}
+
+/* Sized boosters on a fixed core: the booster load of least liftoff mass
+ * against a brute-force scan of the load (the upper stages' delta-v from a
+ * bisection for each); with the upper stages fixed too, the least load that
+ * gives the delta-v, against a bisection. */
+static void
+test_fixed_core_sized_boosters (void)
+{
+  g_autoptr (SwDesign) d = booster_design (2, FALSE);
+  SwParallelVehicle v;
+  SwSizing sz;
+  double best = HUGE_VAL, best_pb = NAN;
+  const guint n = 400;
+
+  d->stages[0].propellant.has_propellant_kg = TRUE;
+  d->stages[0].propellant.propellant_kg = 90000.0;
+  g_assert_true (sw_design_validate (d, NULL, NULL));
+  g_assert_true (sw_size_design (d, &sz, NULL));
+  g_assert_true (sz.feasible);
+  g_assert_false (sz.boosters.fixed);
+  assert_rel (sz.stages[0].propellant_mass_kg, 90000.0, 1e-12);
+  g_assert_true (sw_parallel_vehicle_from_design (&v, d, NULL));
+  for (guint i = 1; i <= n; i++)
+    {
+      double pb = 60000.0 * i / n;   /* a fixed range, not centred on the answer */
+      double dup = upper_for (&v, 5000.0, pb, 90000.0, 9500.0);
+      double m = isfinite (dup) ? sw_parallel_liftoff_mass (&v, 5000.0, pb, 90000.0, dup, NULL)
+                                : NAN;
+      if (isfinite (m) && m < best)
+        {
+          best = m;
+          best_pb = pb;
+        }
+    }
+  g_test_message ("fixed core: optimum %.3f kg (boosters %.1f kg each), scan %.3f kg at %.1f kg",
+                  sz.liftoff_mass_kg, sz.boosters.propellant_mass_kg, best, best_pb);
+  g_assert_true (isfinite (best));
+  g_assert_cmpfloat (sz.liftoff_mass_kg, <=, best * (1.0 + 1e-9));
+  g_assert_cmpfloat (sz.liftoff_mass_kg, >=, best * (1.0 - 1e-3));
+  {
+    SwPhase phases[SW_MAX_PHASES];
+    guint np = sw_sizing_phases (d, &sz, phases);
+    double sum = 0.0;
+    for (guint k = 0; k < np; k++)
+      sum += phases[k].delta_v_m_s;
+    assert_rel (sum, 9500.0, 1e-9);
+  }
+
+  /* Every stage fixed, the boosters sized: the least booster load that
+   * gives the delta-v (the mission asks 300 m/s more than the vehicle
+   * gives with 10 kg boosters). */
+  {
+    double lo = NAN, hi = NAN, got, need, pb;
+    d->stages[1].propellant.has_propellant_kg = TRUE;
+    d->stages[1].propellant.propellant_kg = 30000.0;
+    d->stages[2].propellant.has_propellant_kg = TRUE;
+    d->stages[2].propellant.propellant_kg = 8000.0;
+    g_assert_true (sw_parallel_vehicle_from_design (&v, d, NULL));
+    g_assert_true (isfinite (sw_parallel_liftoff_mass (&v, 5000.0, 10.0, 90000.0, 0.0, &got)));
+    need = got + 300.0;
+    d->mission.delta_v_m_s = need;
+    g_assert_true (sw_design_validate (d, NULL, NULL));
+    g_assert_true (sw_size_design (d, &sz, NULL));
+    g_assert_true (sz.feasible);
+    /* An upward scan in 10 kg steps for the first load that is enough,
+     * then bisection. */
+    for (pb = 10.0; pb < 1e6; pb += 10.0)
+      {
+        if (isfinite (sw_parallel_liftoff_mass (&v, 5000.0, pb, 90000.0, 0.0, &got))
+            && got >= need)
+          {
+            hi = pb;
+            lo = pb - 10.0;
+            break;
+          }
+      }
+    g_assert_true (isfinite (hi));
+    for (int i = 0; i < 200; i++)
+      {
+        double mid = 0.5 * (lo + hi);
+        if (!isfinite (sw_parallel_liftoff_mass (&v, 5000.0, mid, 90000.0, 0.0, &got))
+            || got < need)
+          lo = mid;
+        else
+          hi = mid;
+      }
+    g_test_message ("all stages fixed: boosters %.3f kg each, bisection %.3f kg",
+                    sz.boosters.propellant_mass_kg, hi);
+    assert_rel (sz.boosters.propellant_mass_kg, hi, 1e-8);
+    /* Asked for more than the core can carry the boosters to: a reason. */
+    d->mission.delta_v_m_s = 20000.0;
+    g_assert_true (sw_size_design (d, &sz, NULL));
+    g_assert_false (sz.feasible);
+    g_assert_nonnull (strstr (sz.reason, "no load of the boosters"));
+  }
+}
+
 static void
 test_grid (void)
 {
@@ -409,6 +528,8 @@ main (int argc, char **argv)
   g_test_add_func ("/core/booster-sizing/fixed-hand", test_fixed_hand);
   g_test_add_func ("/core/booster-sizing/fixed-hand-crossfeed", test_fixed_hand_crossfeed);
   g_test_add_func ("/core/booster-sizing/grid", test_grid);
+  g_test_add_func ("/core/booster-sizing/fixed-core-sized-boosters",
+                   test_fixed_core_sized_boosters);
   g_test_add_func ("/core/booster-sizing/grid-crossfeed", test_grid_crossfeed);
   g_test_add_func ("/core/booster-sizing/no-boosters-is-lagrange", test_no_boosters_is_lagrange);
   g_test_add_func ("/core/booster-sizing/zero-is-no-key", test_zero_is_no_key);

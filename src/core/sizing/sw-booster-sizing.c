@@ -5,6 +5,8 @@
 
 #include "sw-booster-sizing.h"
 
+#include "sw-format.h"
+
 #include <glib/gi18n-lib.h>
 #include <gsl/gsl_errno.h>
 #include <gsl/gsl_min.h>
@@ -667,6 +669,149 @@ upper_residual (double d_up, void *data)
   return d_given + g.dv0 + g.dv1 - u->delta_v;
 }
 
+/* With the core's load fixed and the boosters' @pb: the sized upper
+ * stages' delta-v that makes up the mission (a scan, then Brent's root).
+ * FALSE when none does. */
+static gboolean
+fixed_core_upper (const SwParallelVehicle *v, double payload_kg, double delta_v_m_s, double pb,
+                  double p1, SwSplitMode split, double *d_up)
+{
+  UpperRoot u = { v, payload_kg, delta_v_m_s, pb, p1, split };
+  gsl_function fn = { upper_residual, &u };
+  double lo = delta_v_m_s * 1e-9, hi = NAN;
+
+  for (int j = 1; j <= 64; j++)
+    {
+      double x = delta_v_m_s * j / 64.0;
+      double f = upper_residual (x, &u);
+      if (isfinite (f) && f >= 0.0)
+        {
+          hi = x;
+          break;
+        }
+      if (isfinite (f))
+        lo = x;
+    }
+  if (isnan (hi) || !isfinite (upper_residual (lo, &u)))
+    return FALSE;
+  *d_up = brent_root (&fn, lo, hi);
+  return TRUE;
+}
+
+/* Sized boosters on a fixed core: for a booster load, the liftoff mass of
+ * the vehicle that makes up the mission (the sized upper stages' delta-v
+ * from fixed_core_upper(); with every upper stage fixed, the vehicle as it
+ * is when its delta-v is enough).  NAN when it does not. */
+typedef struct {
+  const SwParallelVehicle *v;
+  double payload, delta_v, p1;
+  SwSplitMode split;
+  gboolean upper_sized;
+} FixedCore;
+
+static double
+fixed_core_given (const FixedCore *fc, double pb)
+{
+  double given;
+  double m = sw_parallel_liftoff_mass (fc->v, fc->payload, pb, fc->p1, 0.0, &given);
+  return isfinite (m) ? given - fc->delta_v : NAN;
+}
+
+static double
+fixed_core_mass (double pb, void *data)
+{
+  const FixedCore *fc = data;
+  double d_up = 0.0, d_given, m_up;
+  Group g;
+
+  if (fc->upper_sized)
+    {
+      if (!fixed_core_upper (fc->v, fc->payload, fc->delta_v, pb, fc->p1, fc->split, &d_up))
+        return NAN;
+    }
+  else
+    {
+      double r = fixed_core_given (fc, pb);
+      if (!(r >= 0.0))
+        return NAN;
+    }
+  m_up = upper_mass (fc->v, fc->payload, d_up, fc->split, NULL, &d_given);
+  if (!isfinite (m_up) || !group_eval (fc->v, m_up, pb, fc->p1, &g))
+    return NAN;
+  return g.m0;
+}
+
+static double
+fixed_core_residual (double pb, void *data)
+{
+  return fixed_core_given (data, pb);
+}
+
+/* The boosters' load for a fixed core: with sized upper stages the load of
+ * least liftoff mass (a grid up to where the vehicle stops closing or its
+ * mass climbs, then Brent's minimiser); with fixed upper stages the least
+ * load whose delta-v is enough (liftoff mass rises with the load), from a
+ * scan and Brent's root.  NAN when no load makes up the mission. */
+static double
+fixed_core_boosters (const FixedCore *fc, double *pb_out)
+{
+  double prev = HUGE_VAL, top = NAN, pb = 1e-3 * (fc->payload + fc->p1);
+  gboolean seen = FALSE;
+
+  if (!fc->upper_sized)
+    {
+      double lo = 0.0, flo = fixed_core_residual (0.0, (gpointer) fc);
+      for (int j = 0; j < 60; j++, pb *= 1.5)
+        {
+          double f = fixed_core_residual (pb, (gpointer) fc);
+          if (isfinite (f) && f >= 0.0)
+            {
+              gsl_function fn = { fixed_core_residual, (gpointer) fc };
+              if (!(isfinite (flo) && flo < 0.0))
+                {
+                  *pb_out = pb;
+                  return fixed_core_mass (pb, (gpointer) fc);
+                }
+              *pb_out = brent_root (&fn, lo, pb);
+              /* The root's upper side: enough delta-v, not a hair short. */
+              if (!(fixed_core_residual (*pb_out, (gpointer) fc) >= 0.0))
+                *pb_out *= 1.0 + 1e-10;
+              if (!(fixed_core_residual (*pb_out, (gpointer) fc) >= 0.0))
+                *pb_out = pb;
+              return fixed_core_mass (*pb_out, (gpointer) fc);
+            }
+          if (isfinite (f))
+            {
+              lo = pb;
+              flo = f;
+            }
+        }
+      return NAN;
+    }
+  for (int j = 0; j < 60; j++, pb *= 2.0)
+    {
+      double m = fixed_core_mass (pb, (gpointer) fc);
+      if (isfinite (m))
+        {
+          seen = TRUE;
+          if (m > prev)
+            {
+              top = pb;
+              break;
+            }
+          prev = m;
+        }
+      else if (seen)
+        {
+          top = pb;
+          break;
+        }
+    }
+  if (isnan (top))
+    return NAN;
+  return minimise (fixed_core_mass, (gpointer) fc, 0.0, top, BOOSTER_GRID, pb_out);
+}
+
 void
 sw_size_parallel (const SwParallelVehicle *v, double payload_kg, double delta_v_m_s,
                   SwSplitMode split, SwSizing *out)
@@ -722,35 +867,38 @@ sw_size_parallel (const SwParallelVehicle *v, double payload_kg, double delta_v_
       p1 = v->fixed_kg[0];
       if (v->count > 0 && !(v->booster_fixed_kg > 0.0))
         {
-          set_infeasible (out, _("Sized boosters on a fixed core are not modelled yet; give "
-                                 "the boosters a fixed propellant load too."));
+          /* Sized boosters on a fixed core. */
+          FixedCore fc = { v, payload_kg, delta_v_m_s, p1, split, kind == UPPER_SIZED };
+
+          if (!isfinite (fixed_core_boosters (&fc, &pb)))
+            {
+              char reason[SW_REASON_MAX];
+              g_autofree char *req = sw_format_speed (delta_v_m_s);
+              /* Translators: %s is a speed ("9,500 m/s") */
+              g_snprintf (reason, sizeof reason,
+                          _("With the core's load fixed, no load of the boosters gives the "
+                            "%s required (the core must also outlast the boosters)."), req);
+              set_infeasible (out, reason);
+              return;
+            }
+          if (kind == UPPER_SIZED
+              && !fixed_core_upper (v, payload_kg, delta_v_m_s, pb, p1, split, &d_up))
+            {
+              set_infeasible (out, _("The upper stages' delta-v could not be found."));
+              return;
+            }
+          fill (v, payload_kg, d_up, pb, p1, split, out);
           return;
         }
       pb = v->count > 0 ? v->booster_fixed_kg : 0.0;
       if (kind == UPPER_SIZED)
         {
-          UpperRoot u = { v, payload_kg, delta_v_m_s, pb, p1, split };
-          gsl_function fn = { upper_residual, &u };
-          double lo = delta_v_m_s * 1e-9, hi = NAN;
-          for (int j = 1; j <= 64; j++)
-            {
-              double x = delta_v_m_s * j / 64.0;
-              double f = upper_residual (x, &u);
-              if (isfinite (f) && f >= 0.0)
-                {
-                  hi = x;
-                  break;
-                }
-              if (isfinite (f))
-                lo = x;
-            }
-          if (isnan (hi) || !isfinite (upper_residual (lo, &u)))
+          if (!fixed_core_upper (v, payload_kg, delta_v_m_s, pb, p1, split, &d_up))
             {
               set_infeasible (out, _("With the core's and the boosters' loads fixed, the upper "
                                      "stages cannot make up the rest of the delta-v."));
               return;
             }
-          d_up = brent_root (&fn, lo, hi);
         }
       else
         {

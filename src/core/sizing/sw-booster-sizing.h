@@ -24,9 +24,12 @@
  * equal and manual splits the core and the upper stages take the delta-v of
  * the serial split (the core's including phase 0); only the boosters' load
  * is then chosen.  With the core's load fixed, the upper stages' delta-v is
- * the root instead (boosters fixed), or every load is fixed.  A fixed core
- * with sized boosters, and fixed stages under the equal or manual split, are
- * infeasible answers that say so (not modelled yet). */
+ * the root instead (boosters fixed), or every load is fixed.  On a fixed
+ * core, sized boosters take the load of least liftoff mass (that root for
+ * each load, a grid and Brent's minimiser over the load), or with every
+ * stage fixed the least load whose delta-v is enough (a scan and Brent's
+ * root).  Fixed stages under the equal or manual split are an infeasible
+ * answer that says so (not modelled yet). */
 #pragma once
 
 #include "sw-sizing.h"
