@@ -349,6 +349,69 @@ test_fixed_core_sized_boosters (void)
   }
 }
 
+/* The equal and manual splits with boosters, with and without a fixed
+ * stage among the sized ones: the sized stages' delta-v (the core's counting
+ * phase 0) in the split's proportions, the phases adding up to the mission
+ * (the definitions of the splits, sw-sizing.h). */
+static void
+test_splits_with_fixed (void)
+{
+  for (guint k = 0; k < 4; k++)
+    {
+      g_autoptr (SwDesign) d = booster_design (2, FALSE);
+      gboolean manual = k % 2 == 1, fixed = k >= 2;
+      SwSizing sz;
+      SwPhase phases[SW_MAX_PHASES];
+      double sum = 0.0, w[3] = { 1.0, 1.0, 1.0 };
+      guint np;
+
+      d->boosters.propellant.has_propellant_kg = TRUE;
+      d->boosters.propellant.propellant_kg = 20000.0;
+      d->split = manual ? SW_SPLIT_MANUAL : SW_SPLIT_EQUAL;
+      if (manual)
+        {
+          d->stages[0].delta_v_share = w[0] = 0.5;
+          d->stages[1].delta_v_share = w[1] = 0.3;
+          d->stages[2].delta_v_share = w[2] = 0.2;
+          for (guint i = 0; i < 3; i++)
+            d->stages[i].has_share = TRUE;
+        }
+      if (fixed)
+        {
+          d->stages[1].propellant.has_propellant_kg = TRUE;
+          d->stages[1].propellant.propellant_kg = 25000.0;
+          /* The manual shares add up to 1 over the sized stages. */
+          if (manual)
+            {
+              d->stages[0].delta_v_share = w[0] = 0.7;
+              d->stages[1].delta_v_share = w[1] = 0.0;
+              d->stages[2].delta_v_share = w[2] = 0.3;
+            }
+        }
+      {
+        g_autoptr (GError) error = NULL;
+        if (!sw_design_validate (d, NULL, &error))
+          g_error ("%s", error->message);
+      }
+      g_assert_true (sw_size_design (d, &sz, NULL));
+      g_assert_true (sz.feasible);
+      np = sw_sizing_phases (d, &sz, phases);
+      for (guint i = 0; i < np; i++)
+        sum += phases[i].delta_v_m_s;
+      assert_rel (sum, 9500.0, 1e-9);
+      /* The sized stages in proportion: core against the top stage (and
+       * the middle one when it is sized too). */
+      assert_rel (sz.stages[0].delta_v_m_s / sz.stages[2].delta_v_m_s, w[0] / w[2], 1e-7);
+      if (!fixed)
+        assert_rel (sz.stages[1].delta_v_m_s / sz.stages[2].delta_v_m_s, w[1] / w[2], 1e-7);
+      else
+        assert_rel (sz.stages[1].propellant_mass_kg, 25000.0, 1e-12);
+      g_test_message ("%s%s: stage delta-v %.1f %.1f %.1f m/s", manual ? "manual" : "equal",
+                      fixed ? ", middle stage fixed" : "", sz.stages[0].delta_v_m_s,
+                      sz.stages[1].delta_v_m_s, sz.stages[2].delta_v_m_s);
+    }
+}
+
 static void
 test_grid (void)
 {
@@ -528,6 +591,7 @@ main (int argc, char **argv)
   g_test_add_func ("/core/booster-sizing/fixed-hand", test_fixed_hand);
   g_test_add_func ("/core/booster-sizing/fixed-hand-crossfeed", test_fixed_hand_crossfeed);
   g_test_add_func ("/core/booster-sizing/grid", test_grid);
+  g_test_add_func ("/core/booster-sizing/splits-with-fixed", test_splits_with_fixed);
   g_test_add_func ("/core/booster-sizing/fixed-core-sized-boosters",
                    test_fixed_core_sized_boosters);
   g_test_add_func ("/core/booster-sizing/grid-crossfeed", test_grid_crossfeed);

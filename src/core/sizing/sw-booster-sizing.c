@@ -174,9 +174,14 @@ upper_kind (const SwParallelVehicle *v)
   return UPPER_FIXED;
 }
 
+/* The upper stages as a serial set.  Their manual shares are scaled to add
+ * up to 1 over the sized upper stages, as sw_size_with_fixed() takes them
+ * (the design's shares add up to 1 with the core's). */
 static void
 upper_set (const SwParallelVehicle *v, SwStageSet *up, double *fixed)
 {
+  double sum = 0.0;
+
   memset (up, 0, sizeof *up);
   up->n_stages = v->set.n_stages - 1;
   for (guint i = 1; i < v->set.n_stages; i++)
@@ -185,7 +190,12 @@ upper_set (const SwParallelVehicle *v, SwStageSet *up, double *fixed)
       up->structural_coefficient[i - 1] = v->set.structural_coefficient[i];
       up->share[i - 1] = v->set.share[i];
       fixed[i - 1] = v->fixed_kg[i];
+      if (!(v->fixed_kg[i] > 0.0))
+        sum += v->set.share[i];
     }
+  if (sum > 0.0)
+    for (guint i = 0; i < up->n_stages; i++)
+      up->share[i] /= sum;
 }
 
 /* The mass of everything above the core with the upper stages giving
@@ -669,6 +679,72 @@ upper_residual (double d_up, void *data)
   return d_given + g.dv0 + g.dv1 - u->delta_v;
 }
 
+/* The equal or manual split with a sized core and fixed upper stages among
+ * sized ones: the sized stages (the core, its delta-v counting phase 0, and
+ * the sized upper stages) take the delta-v the fixed stages leave in the
+ * split's proportions (equal, or their manual shares).  With the upper
+ * stages asked for T, they give T, of which the sized ones D(T) (the fixed
+ * ones give the rest, by the rocket equation, sw_size_with_fixed()); the
+ * core takes delta_v - T.  So T solves
+ *   (delta_v - T) W_up - w_core D(T) = 0,
+ * w the sized stages' weights (1 each, or the shares); a scan brackets the
+ * root and Brent's method ends it. */
+typedef struct {
+  const SwParallelVehicle *v;
+  double payload, delta_v, w_core, w_up;
+  SwSplitMode split;
+} SplitRoot;
+
+static double
+split_residual (double t, void *data)
+{
+  const SplitRoot *r = data;
+  SwSizing sz;
+  double d_given, sized = 0.0;
+
+  if (!isfinite (upper_mass (r->v, r->payload, t, r->split, &sz, &d_given)))
+    return NAN;
+  for (guint i = 0; i < sz.n_stages; i++)
+    if (!sz.stages[i].fixed)
+      sized += sz.stages[i].delta_v_m_s;
+  return (r->delta_v - t) * r->w_up - r->w_core * sized;
+}
+
+static gboolean
+split_upper (const SwParallelVehicle *v, double payload_kg, double delta_v_m_s,
+             SwSplitMode split, double *d_up)
+{
+  SplitRoot r = { v, payload_kg, delta_v_m_s, 0.0, 0.0, split };
+  gsl_function fn = { split_residual, &r };
+  double lo = NAN, flo = NAN;
+
+  r.w_core = split == SW_SPLIT_EQUAL ? 1.0 : v->set.share[0];
+  for (guint i = 1; i < v->set.n_stages; i++)
+    if (!(v->fixed_kg[i] > 0.0))
+      r.w_up += split == SW_SPLIT_EQUAL ? 1.0 : v->set.share[i];
+  if (!(r.w_core > 0.0) || !(r.w_up > 0.0))
+    return FALSE;
+  for (int j = 1; j < 256; j++)
+    {
+      double t = delta_v_m_s * j / 256.0, f = split_residual (t, &r);
+      if (!isfinite (f))
+        continue;
+      if (isfinite (flo) && (flo > 0.0) != (f > 0.0))
+        {
+          *d_up = brent_root (&fn, lo, t);
+          return TRUE;
+        }
+      if (f == 0.0)
+        {
+          *d_up = t;
+          return TRUE;
+        }
+      lo = t;
+      flo = f;
+    }
+  return FALSE;
+}
+
 /* With the core's load fixed and the boosters' @pb: the sized upper
  * stages' delta-v that makes up the mission (a scan, then Brent's root).
  * FALSE when none does. */
@@ -854,13 +930,6 @@ sw_size_parallel (const SwParallelVehicle *v, double payload_kg, double delta_v_
     }
   kind = upper_kind (v);
 
-  if (any_fixed && split != SW_SPLIT_OPTIMAL)
-    {
-      set_infeasible (out, _("Boosters with fixed stages are sized under the optimal split "
-                             "only; choose the optimal split."));
-      return;
-    }
-
   if (v->fixed_kg[0] > 0.0)
     {
       /* The core is fixed. */
@@ -927,10 +996,16 @@ sw_size_parallel (const SwParallelVehicle *v, double payload_kg, double delta_v_
     }
   else
     {
-      if (kind == UPPER_SIZED)
+      if (kind == UPPER_SIZED && !any_fixed)
         {
           double share0 = split == SW_SPLIT_EQUAL ? 1.0 / n : v->set.share[0];
           d_up = delta_v_m_s * (1.0 - share0);
+        }
+      else if (kind == UPPER_SIZED && !split_upper (v, payload_kg, delta_v_m_s, split, &d_up))
+        {
+          set_infeasible (out, _("No division of the delta-v gives the sized stages their "
+                                 "split beside the fixed stages."));
+          return;
         }
       m = best_for_upper (&c, d_up, &pb);
     }

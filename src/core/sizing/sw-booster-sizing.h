@@ -28,8 +28,10 @@
  * core, sized boosters take the load of least liftoff mass (that root for
  * each load, a grid and Brent's minimiser over the load), or with every
  * stage fixed the least load whose delta-v is enough (a scan and Brent's
- * root).  Fixed stages under the equal or manual split are an infeasible
- * answer that says so (not modelled yet). */
+ * root).  Under the equal and manual splits with fixed stages the sized
+ * stages (the core counting phase 0) take what the fixed ones leave, in the
+ * split's proportions (the manual shares of the upper stages scaled to add
+ * up to 1 over the sized ones). */
 #pragma once
 
 #include "sw-sizing.h"
