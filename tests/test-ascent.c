@@ -175,6 +175,15 @@ test_boosters_closed_loop (void)
                   r->loop_sized_losses_m_s, r->sizing.liftoff_mass_kg, r->boosters.time_s);
   /* The drop comes at the boosters' burn time. */
   g_assert_cmpfloat (fabs (r->boosters.time_s - r->sizing.boosters.phase_duration_s), <, 1e-6);
+  /* The sizing carries the 900 kg fairing where the flight drops it: the
+   * same liftoff mass, and no fairing term left in the losses (24 m/s when
+   * the booster sizing left the fairing out). */
+  g_assert_cmpfloat (d->ascent.fairing_mass_kg, ==, 900.0);
+  g_assert_cmpfloat (r->sizing.fairing.mass_kg, ==, 900.0);
+  g_assert_cmpfloat (sw_ascent_liftoff_mass (r), ==, r->sizing.liftoff_mass_kg);
+  g_test_message ("fairing term %.3f m/s, dropped in stage %u", r->fairing_loss_m_s,
+                  r->fairing_stage + 1);
+  g_assert_cmpfloat (fabs (r->fairing_loss_m_s), <, 1.0);
 }
 
 static void

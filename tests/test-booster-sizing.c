@@ -142,6 +142,105 @@ check_fixed_hand (gboolean crossfeed)
   g_assert_nonnull (strstr (sz.reason, "short of"));
 }
 
+/* A fairing on the vehicle with boosters, by hand: dropped above the core
+ * (the default, at the second stage's ignition) it is mass on the core and
+ * the boosters; dropped during the core's flight (where a flown ascent says)
+ * it is carried until that fraction of the core's whole mass loss (boosters
+ * included) is gone, the burn in two parts around the drop.  Rocket
+ * equation per part (any rocket propulsion text, e.g. Sutton, Rocket
+ * Propulsion Elements, ch. 4; from memory). */
+static void
+test_fairing_hand (void)
+{
+  g_autoptr (SwDesign) d = booster_design (2, FALSE);
+  const double g0 = 9.80665, F = 1200.0;
+  const double pb = 40000.0, p1 = 150000.0, p2 = 30000.0, p3 = 6000.0;
+  double sb = pb * 0.11 / 0.89, s1 = p1 * 0.08 / 0.92, s2 = p2 * 0.10 / 0.90;
+  double s3 = p3 * 0.12 / 0.88;
+  double cb = 275.0 * g0, c1 = 300.0 * g0, c2 = 340.0 * g0;
+  double fb = 2.0e6, f1 = 3.0e6;
+  double mdotb = fb / cb, mdot1 = f1 / c1;
+  double c_mix = (f1 + 2 * fb) / (mdot1 + 2 * mdotb);
+  double m_up2 = 5000.0 + p3 + s3, m_up = m_up2 + p2 + s2;
+  double tb = pb / mdotb, q = mdot1 * tb;
+  SwSizing sz;
+
+  d->boosters.propellant.has_propellant_kg = TRUE;
+  d->boosters.propellant.propellant_kg = pb;
+  d->stages[0].propellant.has_propellant_kg = TRUE;
+  d->stages[0].propellant.propellant_kg = p1;
+  d->stages[1].propellant.has_propellant_kg = TRUE;
+  d->stages[1].propellant.propellant_kg = p2;
+  d->stages[2].propellant.has_propellant_kg = TRUE;
+  d->stages[2].propellant.propellant_kg = p3;
+  d->ascent.present = TRUE;
+  d->ascent.has_fairing_mass = TRUE;
+  d->ascent.fairing_mass_kg = F;
+  d->ascent.has_fairing_altitude = TRUE;
+  d->ascent.fairing_jettison_altitude_km = 110.0;
+  d->mission.delta_v_m_s = 1000.0;
+  {
+    g_autoptr (GError) error = NULL;
+    if (!sw_design_validate (d, NULL, &error))
+      g_error ("%s", error->message);
+  }
+
+  /* Default: dropped at the second stage's ignition. */
+  {
+    double m0 = m_up + F + p1 + s1 + 2 * (pb + sb);
+    double dv0 = c_mix * log (m0 / (m0 - 2 * pb - q));
+    double m1 = m0 - 2 * pb - q - 2 * sb;
+    double dv1 = c1 * log (m1 / (m1 - (p1 - q)));
+    /* Stage 2 drops it at ignition: its delta-v is over the mass without it. */
+    double dv2 = c2 * log (m_up / (m_up - p2));
+
+    g_assert_true (sw_size_design (d, &sz, NULL));
+    g_assert_true (sz.feasible);
+    assert_rel (sz.liftoff_mass_kg, m0, 1e-12);
+    assert_rel (sz.boosters.phase_delta_v_m_s, dv0, 1e-12);
+    assert_rel (sz.boosters.core_phase_delta_v_m_s, dv1, 1e-12);
+    assert_rel (sz.stages[1].delta_v_m_s, dv2, 1e-9);
+  }
+  /* Dropped during the core's own phase, after 80 % of the core's whole
+   * mass loss. */
+  {
+    double loss = p1 + 2 * (pb + sb), lj = 0.8 * loss;
+    double m0 = m_up + F + p1 + s1 + 2 * (pb + sb);      /* with the fairing */
+    double burnt0 = 2 * pb + q, b = lj - burnt0 - 2 * sb; /* core propellant burnt with it */
+    double dv0 = c_mix * log (m0 / (m0 - burnt0));
+    double m1 = m0 - F - burnt0 - 2 * sb;                 /* without it */
+    double dv1 = c1 * (log ((m1 + F) / (m1 + F - b)) + log ((m1 - b) / (m1 - (p1 - q))));
+
+    g_assert_cmpfloat (b, >, 0.0);
+    d->ascent.has_flown_fairing = TRUE;
+    d->ascent.flown_fairing_stage = 0;
+    d->ascent.flown_fairing_fraction = 0.8;
+    g_assert_true (sw_size_design (d, &sz, NULL));
+    g_assert_true (sz.feasible);
+    assert_rel (sz.liftoff_mass_kg, m0, 1e-12);
+    assert_rel (sz.boosters.phase_delta_v_m_s, dv0, 1e-12);
+    assert_rel (sz.boosters.core_phase_delta_v_m_s, dv1, 1e-12);
+    assert_rel (sz.stages[1].delta_v_m_s, c2 * log (m_up / (m_up - p2)), 1e-9);
+  }
+  /* Dropped in phase 0, after 10 % of that loss. */
+  {
+    double loss = p1 + 2 * (pb + sb), lj = 0.1 * loss;
+    double m0 = m_up + F + p1 + s1 + 2 * (pb + sb);
+    double burnt0 = 2 * pb + q;
+    double dv0 = c_mix * (log (m0 / (m0 - lj)) + log ((m0 - F - lj) / (m0 - F - burnt0)));
+    double m1 = m0 - F - burnt0 - 2 * sb;
+    double dv1 = c1 * log (m1 / (m1 - (p1 - q)));
+
+    g_assert_cmpfloat (lj, <, burnt0);
+    d->ascent.flown_fairing_fraction = 0.1;
+    g_assert_true (sw_size_design (d, &sz, NULL));
+    g_assert_true (sz.feasible);
+    assert_rel (sz.liftoff_mass_kg, m0, 1e-12);
+    assert_rel (sz.boosters.phase_delta_v_m_s, dv0, 1e-12);
+    assert_rel (sz.boosters.core_phase_delta_v_m_s, dv1, 1e-12);
+  }
+}
+
 static void
 test_fixed_hand (void)
 {
@@ -590,6 +689,7 @@ main (int argc, char **argv)
   g_test_init (&argc, &argv, NULL);
   g_test_add_func ("/core/booster-sizing/fixed-hand", test_fixed_hand);
   g_test_add_func ("/core/booster-sizing/fixed-hand-crossfeed", test_fixed_hand_crossfeed);
+  g_test_add_func ("/core/booster-sizing/fairing-hand", test_fairing_hand);
   g_test_add_func ("/core/booster-sizing/grid", test_grid);
   g_test_add_func ("/core/booster-sizing/splits-with-fixed", test_splits_with_fixed);
   g_test_add_func ("/core/booster-sizing/fixed-core-sized-boosters",

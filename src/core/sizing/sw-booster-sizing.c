@@ -107,19 +107,57 @@ core_in_phase0 (const SwParallelVehicle *v, double pb)
   return v->core_thrust_n / c1 * (pb * v->booster_exhaust_velocity_m_s / v->booster_thrust_n);
 }
 
+/* The fairing dropped during the core's flight (its jettison stage is the
+ * core, stage 0; a jettison above it is the upper stages' to carry, and
+ * then it is in @m_up).  The fraction is of the core's whole mass loss from
+ * liftoff to its burnout, the boosters' propellant and dropped structure
+ * included, as the flown ascent measures it; the fairing is on until that
+ * much mass is gone.  *@F its mass (0: not the core's), *@lj the loss at
+ * the jettison. */
+static void
+core_fairing (const SwParallelVehicle *v, double loss_to_burnout, double *F, double *lj)
+{
+  const SwFairingCarry *fc = &v->set.fairing;
+
+  *F = 0.0;
+  *lj = 0.0;
+  if (fc->mass_kg > 0.0 && fc->stage == 0)
+    {
+      *F = fc->mass_kg;
+      *lj = CLAMP (fc->fraction, 0.0, 1.0) * loss_to_burnout;
+    }
+}
+
+/* c ln (m_a / m_b) over a burn from @ma to @mb (without the fairing) that
+ * carries the fairing @F until @lj of the burn's own mass loss @from
+ * onwards is gone: the burn in two parts around the jettison. */
+static double
+burn_with_fairing (double c, double ma, double mb, double F, double from, double lj)
+{
+  double burnt = ma - mb, with = CLAMP (lj - from, 0.0, burnt);
+
+  if (!(F > 0.0) || !(lj > from))
+    return c * log (ma / mb);
+  return c * (log ((ma + F) / (ma + F - with)) + log ((ma - with) / mb));
+}
+
 /* FALSE when the loads make no vehicle (the core burns out before the
- * boosters, a mass not positive). */
+ * boosters, a mass not positive).  The masses in @g leave out a fairing
+ * that the core drops (core_fairing ()), except m0, the liftoff mass. */
 static gboolean
 group_eval (const SwParallelVehicle *v, double m_up, double pb, double p1, Group *g)
 {
   double c1 = v->set.exhaust_velocity_m_s[0];
   double k = (double) v->count;
   gboolean boosters = v->count > 0 && pb > 0.0;
+  double F, lj, m0;
 
   memset (g, 0, sizeof *g);
   g->s1 = structure_of (p1, v->set.structural_coefficient[0]);
   g->sb = boosters ? structure_of (pb, v->booster_structural_coefficient) : 0.0;
-  g->m0 = m_up + p1 + g->s1 + (boosters ? k * (pb + g->sb) : 0.0);
+  m0 = m_up + p1 + g->s1 + (boosters ? k * (pb + g->sb) : 0.0);
+  core_fairing (v, p1 + (boosters ? k * (pb + g->sb) : 0.0), &F, &lj);
+  g->m0 = m0;
   g->c_mix = c1;
   if (boosters)
     {
@@ -140,20 +178,22 @@ group_eval (const SwParallelVehicle *v, double m_up, double pb, double p1, Group
             return FALSE;
         }
       g->burnt0 = k * pb + g->q;
-      g->m0_end = g->m0 - g->burnt0;
+      g->m0_end = m0 - g->burnt0;
       if (!(g->m0_end > 0.0))
         return FALSE;
-      g->dv0 = g->c_mix * log (g->m0 / g->m0_end);
+      g->dv0 = burn_with_fairing (g->c_mix, m0, g->m0_end, F, 0.0, lj);
       g->m1 = g->m0_end - k * g->sb;
     }
   else
     {
-      g->m0_end = g->m0;
-      g->m1 = g->m0;
+      g->m0_end = m0;
+      g->m1 = m0;
     }
   if (!(g->m1 - (p1 - g->q) > 0.0))
     return FALSE;
-  g->dv1 = c1 * log (g->m1 / (g->m1 - (p1 - g->q)));
+  g->dv1 = burn_with_fairing (c1, g->m1, g->m1 - (p1 - g->q), F, g->burnt0 + k * g->sb, lj);
+  /* The liftoff mass carries the fairing. */
+  g->m0 = m0 + F;
   g->t1 = isfinite (v->core_thrust_n) && v->core_thrust_n > 0.0
             ? (p1 - g->q) / (v->core_thrust_n / c1) : NAN;
   return TRUE;
@@ -196,6 +236,13 @@ upper_set (const SwParallelVehicle *v, SwStageSet *up, double *fixed)
   if (sum > 0.0)
     for (guint i = 0; i < up->n_stages; i++)
       up->share[i] /= sum;
+  /* A fairing dropped above the core is the upper stages' to carry (and
+   * then part of the mass on the core). */
+  if (v->set.fairing.mass_kg > 0.0 && v->set.fairing.stage >= 1)
+    {
+      up->fairing = v->set.fairing;
+      up->fairing.stage = v->set.fairing.stage - 1;
+    }
 }
 
 /* The mass of everything above the core with the upper stages giving
@@ -215,6 +262,23 @@ upper_mass (const SwParallelVehicle *v, double payload, double d_up, SwSplitMode
   if (kind == UPPER_NONE)
     return payload;
   upper_set (v, &up, fixed);
+  if (kind == UPPER_FIXED && up.fairing.mass_kg > 0.0)
+    {
+      /* Every upper stage fixed, the fairing on them: the serial sizing
+       * with fixed loads gives what they give (asked for nothing). */
+      if (sizing == NULL)
+        sizing = &local;
+      sw_size_with_fixed (&up, fixed, payload, 0.0, split, sizing);
+      if (!sizing->feasible)
+        return NAN;
+      if (d_up_out != NULL)
+        {
+          *d_up_out = 0.0;
+          for (guint i = 0; i < sizing->n_stages; i++)
+            *d_up_out += sizing->stages[i].delta_v_m_s;
+        }
+      return sizing->liftoff_mass_kg;
+    }
   if (kind == UPPER_FIXED)
     {
       double m = payload, dv = 0.0;
@@ -566,6 +630,7 @@ fill (const SwParallelVehicle *v, double payload, double d_up, double pb, double
   r->fixed = v->fixed_kg[0] > 0.0;
   out->liftoff_mass_kg = g.m0;
   out->payload_fraction = payload / g.m0;
+  out->fairing = v->set.fairing;
   for (guint i = 0; i < v->set.n_stages; i++)
     {
       out->stages[i].delta_v_share = out->delta_v_m_s > 0.0
