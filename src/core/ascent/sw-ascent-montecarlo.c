@@ -8,6 +8,7 @@
 #include "sw-ascent-montecarlo.h"
 
 #include "sw-ascent-private.h"
+#include "sw-booster-sizing.h"
 #include "sw-format.h"
 #include "sw-sizing.h"
 
@@ -35,6 +36,48 @@ typedef struct {
   GError             *error;       /* the first error of a worker */
 } Job;
 
+/* A vehicle with strap-on boosters, built: every load (stages and boosters)
+ * fixed at the nominal vehicle's, the fairing carried where the nominal
+ * sizing carries it, the structure from @work's structural coefficients;
+ * the phases and masses as the parallel sizing gives them for a vehicle
+ * whose loads are all fixed (sw-booster-sizing.h), with @payload_kg.
+ * out->delta_v_m_s is what the vehicle gives.  FALSE when it makes no
+ * vehicle. */
+static gboolean
+rebuild_parallel (const SwSizing *nominal, SwDesign *work, double payload_kg, SwSizing *out)
+{
+  SwParallelVehicle v;
+  double total = 0.0;
+
+  for (guint i = 0; i < work->n_stages; i++)
+    {
+      if (!(nominal->stages[i].propellant_mass_kg > 0.0))
+        return FALSE;
+      work->stages[i].propellant.has_propellant_kg = TRUE;
+      work->stages[i].propellant.propellant_kg = nominal->stages[i].propellant_mass_kg;
+    }
+  if (!(nominal->boosters.propellant_mass_kg > 0.0))
+    return FALSE;
+  work->boosters.propellant.has_propellant_kg = TRUE;
+  work->boosters.propellant.propellant_kg = nominal->boosters.propellant_mass_kg;
+  work->ascent.has_flown_fairing = nominal->fairing.mass_kg > 0.0;
+  work->ascent.flown_fairing_stage = nominal->fairing.stage;
+  work->ascent.flown_fairing_fraction = nominal->fairing.fraction;
+  if (!sw_parallel_vehicle_from_design (&v, work, NULL))
+    return FALSE;
+  /* Every load fixed: feasible when it gives the 1 m/s asked. */
+  sw_size_parallel (&v, payload_kg, 1.0, work->split, out);
+  if (!out->feasible)
+    return FALSE;
+  for (guint i = 0; i < out->n_stages; i++)
+    total += out->stages[i].delta_v_m_s;
+  /* What the vehicle gives (the flight takes the requirement plus the
+   * margin of an all-fixed sizing as the vehicle's delta-v). */
+  out->delta_v_m_s = total;
+  out->margin_m_s = 0.0;
+  return TRUE;
+}
+
 /* One sample: the vehicle with drawn Isp and structural coefficients, flown. */
 static void
 run_sample (Job *job, SwDesign *work, gsl_rng *r, guint index)
@@ -57,6 +100,20 @@ run_sample (Job *job, SwDesign *work, gsl_rng *r, guint index)
       work->stages[i].isp_vac_s = d->stages[i].isp_vac_s * f;
       work->stages[i].isp_sl_s = d->stages[i].isp_sl_s * f;
       work->stages[i].structural_coefficient = eps;
+    }
+  if (d->boosters.count > 0)
+    {
+      /* The boosters draw from the same spreads, after the stages. */
+      double f = sw_spread_draw_scaled (r, &u->isp, 1.0, 0.05, INFINITY);
+      double eps = sw_spread_draw_scaled (r, &u->structural_coefficient,
+                                          d->boosters.structural_coefficient, 1e-4, 0.95);
+
+      work->boosters.isp_vac_s = d->boosters.isp_vac_s * f;
+      work->boosters.isp_sl_s = d->boosters.isp_sl_s * f;
+      work->boosters.structural_coefficient = eps;
+      if (!rebuild_parallel (&job->sizing, work, d->payload_kg, &sz))
+        return;
+      goto fly;
     }
   /* The masses from the top down: the propellant loads are the nominal
    * vehicle's, the structure follows the drawn eps. */
@@ -87,6 +144,7 @@ run_sample (Job *job, SwDesign *work, gsl_rng *r, guint index)
   sz.delta_v_m_s = total;
   sz.liftoff_mass_kg = above;
 
+fly:
   res = sw_ascent_solve_sized (work, &sz, &job->opt, &hints, job->cancellable, &error);
   if (res == NULL)
     {
@@ -178,16 +236,6 @@ sw_ascent_montecarlo_run (const SwDesign *design, guint samples, guint32 seed, g
 
   if (!sw_ascent_check_inputs (design, error))
     return NULL;
-  if (design->boosters.count > 0)
-    {
-      /* Each sample rebuilds the stack from the drawn structural
-       * coefficients, stage by stage; boosters beside the core are not in
-       * that rebuild yet. */
-      g_set_error (error, SW_ERROR, SW_ERROR_VALUE,
-                   _("boosters: the simulated Monte Carlo is not run for a design with strap-on "
-                     "boosters yet (its samples rebuild serial stages only)."));
-      return NULL;
-    }
   if (samples == 0)
     {
       g_set_error (error, SW_ERROR, SW_ERROR_VALUE, _("The Monte Carlo needs at least one sample."));
@@ -233,8 +281,24 @@ sw_ascent_montecarlo_run (const SwDesign *design, guint samples, guint32 seed, g
   mc->nominal_margin_m_s = nres->delta_v_margin_m_s;
   mc->nominal_losses_m_s = nres->losses_m_s;
   mc->sized_losses_m_s = nominal->mission.losses_m_s;
-  /* Delta-v lost per kg of payload: d/dp of sum c ln(m0 / mf). */
-  for (guint i = 0; i < nominal->n_stages; i++)
+  /* Delta-v lost per kg of payload: d/dp of sum c ln(m0 / mf); with
+   * boosters, by a difference over 1 kg of the built vehicle. */
+  if (nominal->boosters.count > 0)
+    {
+      g_autoptr (SwDesign) built = sw_design_copy (nominal);
+      SwSizing a, b;
+
+      if (!rebuild_parallel (&job.sizing, built, nominal->payload_kg, &a)
+          || !rebuild_parallel (&job.sizing, built, nominal->payload_kg + 1.0, &b))
+        {
+          g_set_error (error, SW_ERROR, SW_ERROR_VALUE,
+                       _("The Monte Carlo needs the nominal vehicle with its boosters built "
+                         "(every stage with propellant)."));
+          return NULL;
+        }
+      dvdp = a.delta_v_m_s - b.delta_v_m_s;
+    }
+  for (guint i = 0; i < nominal->n_stages && nominal->boosters.count == 0; i++)
     {
       const SwStageResult *st = &job.sizing.stages[i];
       if (st->propellant_mass_kg > 0.0 && !st->unused)

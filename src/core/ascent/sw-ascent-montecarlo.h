@@ -7,7 +7,10 @@
  * sample draws every stage's Isp and structural coefficient from the
  * design's spreads (the "uncertainty" object; the losses spread is not used:
  * the losses are flown), rebuilds the stage masses (structure = propellant
- * eps / (1 - eps)) and flies the ascent: the pitch kick held at the nominal
+ * eps / (1 - eps); with strap-on boosters their Isp and structural
+ * coefficient are drawn too, and the phases rebuilt as the parallel sizing
+ * of the all-fixed vehicle gives them) and flies the ascent: the pitch kick
+ * held at the nominal
  * vehicle's optimum, the upper-stage steering solved for the orbit.  Its
  * delta-v margin is the sample's rocket-equation delta-v less the ideal
  * delta-v and the losses it flew (sw-ascent.h).

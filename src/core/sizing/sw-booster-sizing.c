@@ -290,8 +290,11 @@ upper_mass (const SwParallelVehicle *v, double payload, double d_up, SwSplitMode
         }
       if (d_up_out != NULL)
         *d_up_out = dv;
+      /* Asked for nothing, the serial sizing of fixed stages gives each
+       * its delta-v (asked for dv itself, a rounding short would make it
+       * infeasible). */
       if (sizing != NULL)
-        sw_size_with_fixed (&up, fixed, payload, dv, split, sizing);
+        sw_size_with_fixed (&up, fixed, payload, 0.0, split, sizing);
       return m;
     }
   if (sizing == NULL)
@@ -631,13 +634,23 @@ fill (const SwParallelVehicle *v, double payload, double d_up, double pb, double
   out->liftoff_mass_kg = g.m0;
   out->payload_fraction = payload / g.m0;
   out->fairing = v->set.fairing;
-  for (guint i = 0; i < v->set.n_stages; i++)
-    {
-      out->stages[i].delta_v_share = out->delta_v_m_s > 0.0
-                                       ? out->stages[i].delta_v_m_s / out->delta_v_m_s : 0.0;
-      if (out->stages[i].fixed)
-        out->n_fixed++;
-    }
+  {
+    double given = 0.0;
+
+    for (guint i = 0; i < v->set.n_stages; i++)
+      {
+        out->stages[i].delta_v_share = out->delta_v_m_s > 0.0
+                                         ? out->stages[i].delta_v_m_s / out->delta_v_m_s : 0.0;
+        if (out->stages[i].fixed)
+          out->n_fixed++;
+        given += out->stages[i].delta_v_m_s;
+      }
+    /* Every stage fixed: the margin is what the vehicle gives beyond the
+     * requirement, as sw_size_with_fixed() has it (the ascent counts the
+     * vehicle's delta-v as the requirement plus this margin). */
+    if (out->n_fixed == v->set.n_stages)
+      out->margin_m_s = given - out->delta_v_m_s;
+  }
   if (out->boosters.present)
     {
       SwBoosterResult *b = &out->boosters;
