@@ -220,6 +220,20 @@ test_fairing_hand (void)
     assert_rel (sz.liftoff_mass_kg, m0, 1e-12);
     assert_rel (sz.boosters.phase_delta_v_m_s, dv0, 1e-12);
     assert_rel (sz.boosters.core_phase_delta_v_m_s, dv1, 1e-12);
+    /* The phases as the tables print them: the vehicle's masses with the
+     * fairing while it is on, the drop inside the core's phase. */
+    {
+      SwPhase ph[SW_MAX_PHASES];
+      guint np = sw_sizing_phases (d, &sz, ph);
+      g_assert_cmpuint (np, ==, 4);
+      assert_rel (ph[0].final_mass_kg, m0 - burnt0, 1e-12);
+      g_assert_true (isnan (ph[0].fairing_drop_mass_kg));
+      assert_rel (ph[1].initial_mass_kg, m1 + F, 1e-12);
+      assert_rel (ph[1].fairing_drop_mass_kg, m1 + F - b, 1e-12);
+      assert_rel (ph[1].delta_v_m_s,
+                  c1 * (log (ph[1].initial_mass_kg / ph[1].fairing_drop_mass_kg)
+                        + log ((ph[1].fairing_drop_mass_kg - F) / ph[1].final_mass_kg)), 1e-12);
+    }
     assert_rel (sz.stages[1].delta_v_m_s, c2 * log (m_up / (m_up - p2)), 1e-9);
   }
   /* Dropped in phase 0, after 10 % of that loss. */

@@ -324,13 +324,46 @@ build_text (SwWorkingView *self, gboolean for_copy)
           formula (s, "q = ṁ_core·t_b = %s kg %s", q, _("(core propellant burnt)"));
         }
       formula (s, "c_mix = (F + k·F_b)/(ṁ_core + k·ṁ_b) = %s m/s", cmix);
-      formula (s, "M0 = m_above + m_p + m_s + k·(m_p,b + m_s,b) = %s kg", m0);
-      formula (s, "Δv_0 = c_mix·ln(M0/(M0 − k·m_p,b − q))");
-      formula (s, "     = %s × ln(%s / %s) = %s m/s", cmix, m0, m0e, dv0);
+      if (b->fairing_phase == 0)
+        formula (s, "M0 = m_above + m_p + m_s + k·(m_p,b + m_s,b) = %s kg", m0);
+      else
+        {
+          g_autofree char *ff = KG (b->fairing_mass_kg);
+          /* Translators: the fairing's mass and the phase it is dropped in */
+          formula (s, _("fairing m_f = %s kg, dropped in %s"), ff,
+                   b->fairing_phase == 1 ? _("this phase") : _("the core's own phase"));
+          formula (s, "M0 = m_above + m_p + m_s + k·(m_p,b + m_s,b) + m_f = %s kg", m0);
+        }
+      if (b->fairing_phase == 1)
+        {
+          g_autofree char *mj = KG (b->fairing_drop_mass_kg);
+          g_autofree char *mj2 = KG (b->fairing_drop_mass_kg - b->fairing_mass_kg);
+          formula (s, _("M_f = the mass when the fairing drops = %s kg"), mj);
+          formula (s, "Δv_0 = c_mix·(ln(M0/M_f) + ln((M_f − m_f)/(M0 − m_f − k·m_p,b − q)))");
+          formula (s, "     = %s × (ln(%s / %s) + ln(%s / %s)) = %s m/s", cmix, m0, mj, mj2,
+                   m0e, dv0);
+        }
+      else
+        {
+          formula (s, "Δv_0 = c_mix·ln(M0/(M0 − k·m_p,b − q))");
+          formula (s, "     = %s × ln(%s / %s) = %s m/s", cmix, m0, m0e, dv0);
+        }
       head (s, _("The core alone, after the boosters drop"));
       formula (s, "M1 = M0 − k·m_p,b − q − k·m_s,b = %s kg", m1);
-      formula (s, "Δv_1 = c·ln(M1/(m_above + m_s))");
-      formula (s, "     = %s × ln(%s / %s) = %s m/s", c, m1, mb, dv1);
+      if (b->fairing_phase == 2)
+        {
+          g_autofree char *mj = KG (b->fairing_drop_mass_kg);
+          g_autofree char *mj2 = KG (b->fairing_drop_mass_kg - b->fairing_mass_kg);
+          formula (s, _("M_f = the mass when the fairing drops = %s kg"), mj);
+          formula (s, "Δv_1 = c·(ln(M1/M_f) + ln((M_f − m_f)/(m_above + m_s)))");
+          formula (s, "     = %s × (ln(%s / %s) + ln(%s / %s)) = %s m/s", c, m1, mj, mj2, mb,
+                   dv1);
+        }
+      else
+        {
+          formula (s, "Δv_1 = c·ln(M1/(m_above + m_s))");
+          formula (s, "     = %s × ln(%s / %s) = %s m/s", c, m1, mb, dv1);
+        }
       head (s, _("Stage delta-v"));
       formula (s, "Δv = Δv_0 + Δv_1 = %s m/s", dv);
       formula (s, _("(%s of the required delta-v)"), share);

@@ -73,6 +73,7 @@ add_phases (JsonBuilder *b, const SwDesign *d, const SwSizing *s)
       sw_cli_add_number (b, "exhaust_velocity_m_s", phases[k].exhaust_velocity_m_s);
       sw_cli_add_number (b, "initial_mass_kg", phases[k].initial_mass_kg);
       sw_cli_add_number (b, "final_mass_kg", phases[k].final_mass_kg);
+      sw_cli_add_number (b, "fairing_drop_mass_kg", phases[k].fairing_drop_mass_kg);
       sw_cli_add_number (b, "duration_s", phases[k].duration_s);
       json_builder_end_object (b);
     }
@@ -435,6 +436,13 @@ print_sizing_table (const SwAnalysis *a)
           g_autofree char *pt = isfinite (phases[k].duration_s)
                                   ? sw_format_number (phases[k].duration_s, 1) : g_strdup ("-");
           g_print ("%s %9s %9s %14s %14s %9s\n", cell, pdv, pc, p0, pf, pt);
+          if (isfinite (phases[k].fairing_drop_mass_kg))
+            {
+              g_autofree char *fm = sw_format_number (phases[k].fairing_mass_kg, 1);
+              g_autofree char *fd = sw_format_number (phases[k].fairing_drop_mass_kg, 1);
+              g_print (_("    the fairing (%s kg) drops during this phase, at %s kg: its "
+                         "delta-v is the burn before the drop plus the burn after\n"), fm, fd);
+            }
         }
     }
   g_print ("\n");

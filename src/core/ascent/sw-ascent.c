@@ -1329,7 +1329,9 @@ sw_flight_model_build (SwFlightModel *m, const SwDesign *d, const SwSizing *sz,
       m->b_dry = b->count * b->structural_mass_kg;
       m->b_c_mix = b->mixed_exhaust_velocity_m_s;
       m->b_dv0 = b->phase_delta_v_m_s;
-      m->b_m1 = b->core_phase_initial_mass_kg;
+      /* Without a fairing the core drops in its own phase (the flight
+       * takes the fairing off the mass it compares). */
+      m->b_m1 = b->core_phase_initial_mass_kg - (b->fairing_phase == 2 ? b->fairing_mass_kg : 0.0);
       if (!m->st[0].fires || !(b->phase_duration_s > 0.0))
         {
           res->status = SW_ASCENT_NOT_SIMULATED;

@@ -667,6 +667,27 @@ fill (const SwParallelVehicle *v, double payload, double d_up, double pb, double
       b->core_phase_delta_v_m_s = g.dv1;
       b->core_phase_initial_mass_kg = g.m1;
       b->core_phase_duration_s = g.t1;
+      b->fairing_phase = 0;
+      b->fairing_mass_kg = 0.0;
+      b->fairing_drop_mass_kg = NAN;
+      {
+        double F, lj;
+
+        core_fairing (v, p1 + v->count * (pb + g.sb), &F, &lj);
+        if (F > 0.0 && lj < g.burnt0)
+          {
+            b->fairing_phase = 1;
+            b->fairing_drop_mass_kg = g.m0 - lj;
+          }
+        else if (F > 0.0)
+          {
+            b->fairing_phase = 2;
+            b->phase_final_mass_kg += F;
+            b->core_phase_initial_mass_kg += F;
+            b->fairing_drop_mass_kg = g.m1 + F - MAX (0.0, lj - g.burnt0 - v->count * g.sb);
+          }
+        b->fairing_mass_kg = F;
+      }
     }
 }
 

@@ -35,6 +35,8 @@ sw_sizing_phases (const SwDesign *design, const SwSizing *sizing, SwPhase *phase
       p->initial_mass_kg = b->phase_initial_mass_kg;
       p->final_mass_kg = b->phase_final_mass_kg;
       p->duration_s = b->phase_duration_s;
+      p->fairing_mass_kg = b->fairing_phase == 1 ? b->fairing_mass_kg : NAN;
+      p->fairing_drop_mass_kg = b->fairing_phase == 1 ? b->fairing_drop_mass_kg : NAN;
       p = &phases[n++];
       memset (p, 0, sizeof *p);
       p->stage = 0;
@@ -43,6 +45,8 @@ sw_sizing_phases (const SwDesign *design, const SwSizing *sizing, SwPhase *phase
       p->initial_mass_kg = b->core_phase_initial_mass_kg;
       p->final_mass_kg = sizing->stages[0].burnout_mass_kg;
       p->duration_s = b->core_phase_duration_s;
+      p->fairing_mass_kg = b->fairing_phase == 2 ? b->fairing_mass_kg : NAN;
+      p->fairing_drop_mass_kg = b->fairing_phase == 2 ? b->fairing_drop_mass_kg : NAN;
     }
   for (guint i = sizing->boosters.present ? 1 : 0;
        i < sizing->n_stages && i < design->n_stages; i++)
@@ -63,6 +67,16 @@ sw_sizing_phases (const SwDesign *design, const SwSizing *sizing, SwPhase *phase
       p->duration_s = isfinite (thrust) && thrust > 0.0
                         ? r->propellant_mass_kg / sw_propulsion_mass_flow (thrust, st->isp_vac_s)
                         : NAN;
+      p->fairing_mass_kg = p->fairing_drop_mass_kg = NAN;
+      /* The stage that drops the fairing during its burn (after the
+       * sizing's fraction of its propellant). */
+      if (sizing->fairing.mass_kg > 0.0 && sizing->fairing.stage == i
+          && !(sizing->boosters.present && i == 0))
+        {
+          p->fairing_mass_kg = sizing->fairing.mass_kg;
+          p->fairing_drop_mass_kg = r->initial_mass_kg
+                                    - sizing->fairing.fraction * r->propellant_mass_kg;
+        }
     }
   return n;
 }

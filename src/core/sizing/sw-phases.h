@@ -20,6 +20,12 @@ typedef struct {
   double initial_mass_kg;
   double final_mass_kg;
   double duration_s;               /* propellant over vacuum mass flow; NAN without thrust */
+  /* The fairing dropped during this phase: its mass and the vehicle's mass
+   * just before it drops (NAN both when it does not drop here).  The
+   * phase's delta-v is then the burn before the drop plus the burn after,
+   * not c ln(initial / final). */
+  double fairing_mass_kg;
+  double fairing_drop_mass_kg;
 } SwPhase;
 
 /* The phases of @sizing (SW_MAX_PHASES entries); returns their count, 0 when

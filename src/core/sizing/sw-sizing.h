@@ -66,6 +66,13 @@ typedef struct {
   double   core_phase_delta_v_m_s;
   double   core_phase_initial_mass_kg;
   double   core_phase_duration_s;
+  /* A fairing the core drops (SwFairingCarry stage 0): 1 in phase 0, 2 in
+   * the core's own phase, 0 none (dropped above the core, or no fairing).
+   * The phases' masses above are the vehicle's, the fairing included while
+   * it is on; drop_mass the vehicle's mass just before it drops. */
+  guint    fairing_phase;
+  double   fairing_mass_kg;
+  double   fairing_drop_mass_kg;
 } SwBoosterResult;
 
 struct _SwSizing {
