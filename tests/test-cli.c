@@ -359,7 +359,7 @@ test_size_verdicts (void)
   /* Two stages of c ln(1/eps) = 300 g0 ln 10 = 6,774 m/s each give at most
    * 13,548 m/s (hand-worked with g0 = 9.80665): 14 km/s is out of reach. */
   check_verdict (infeasible, NULL, "infeasible",
-                 (const char *const[]) { "14000", "13548", NULL }, "Not feasible: ");
+                 (const char *const[]) { "14,000 m/s", "13,548 m/s", NULL }, "Not feasible: ");
   /* No flight (a delta-v mission), so no "reaches the orbit, but": paper
    * only, with the broken limit said in the reason. */
   check_verdict (weak, NULL, "paper-only",

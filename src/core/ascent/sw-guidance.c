@@ -8,6 +8,7 @@
 #include "config.h"
 
 #include "sw-ascent.h"
+#include "sw-format.h"
 
 #include "sw-ascent-private.h"
 #include "sw-budget.h"
@@ -628,10 +629,10 @@ describe_failure (Solver *sv, SwAscentResult *res, gboolean fixed_kick)
   res->status = SW_ASCENT_NO_SOLUTION;
   if (!sv->have_po)
     g_snprintf (res->reason, sizeof res->reason,
-                _("No ascent: the first stage never reaches the pitch-over speed of %.0f m/s "
+                _("No ascent: the first stage never reaches the pitch-over speed of %s "
                   "(thrust-to-weight %.2f at liftoff); flying straight up it ends at T+%.0f s, "
                   "%.1f km."),
-                m->pitch_over_speed, res->liftoff_thrust_to_weight, f->t,
+                SW_SPEED (m->pitch_over_speed), res->liftoff_thrust_to_weight, f->t,
                 (f->y[SW_Y_R] - SW_RE) / 1000.0);
   else if (!sv->any_guide)
     g_snprintf (res->reason, sizeof res->reason,
@@ -644,18 +645,18 @@ describe_failure (Solver *sv, SwAscentResult *res, gboolean fixed_kick)
     g_snprintf (res->reason, sizeof res->reason,
                 _("No ascent: %s no steering of the upper stages reaches the energy of the "
                   "%.0f km orbit, even with extra propellant in the last stage down to 5 %% of "
-                  "its burnout mass: the best trial (kick %.2f deg) lacks %.0f m/s of speed. "
+                  "its burnout mass: the best trial (kick %.2f deg) lacks %s of speed. "
                   "The upper stages lack thrust or propellant: check their ignition "
                   "thrust-to-weight."),
                 kicks, (m->r_target - SW_RE) / 1000.0, sv->best_short_kick / SW_DEG,
-                MAX (sv->best_short, 0.0));
+                SW_SPEED (MAX (sv->best_short, 0.0)));
   else
     g_snprintf (res->reason, sizeof res->reason,
                 _("No ascent: %s the upper stages reach the energy of the %.0f km orbit, but "
                   "no steering found puts the cutoff at that altitude with a level flight "
-                  "path (the last attempt ends at T+%.0f s, %.1f km up at %.0f m/s)."),
+                  "path (the last attempt ends at T+%.0f s, %.1f km up at %s)."),
                 kicks, (m->r_target - SW_RE) / 1000.0, f->t, (f->y[SW_Y_R] - SW_RE) / 1000.0,
-                hypot (f->y[SW_Y_VR], f->y[SW_Y_VT]));
+                SW_SPEED (hypot (f->y[SW_Y_VR], f->y[SW_Y_VT])));
 }
 
 SwAscentResult *

@@ -158,6 +158,15 @@ sw_format_speed (double m_s)
   return with_unit (m_s, 0, C_("unit", "m/s"), FALSE);
 }
 
+const char *
+sw_format_speed_into (char *buf, gsize size, double m_s)
+{
+  g_autofree char *text = sw_format_speed (m_s);
+
+  g_strlcpy (buf, text, size);
+  return buf;
+}
+
 char *
 sw_format_length_m (double m)
 {

@@ -34,6 +34,11 @@ char       *sw_format_signed (double value, int decimals);
 char       *sw_format_mass (double kg);                 /* "8,000 kg", "312.4 t" */
 char       *sw_format_mass_delta (double kg);           /* "+3.2 t", "−850 kg" */
 char       *sw_format_speed (double m_s);               /* "9,400 m/s" */
+/* The same into @buf (for a message built with g_snprintf; the result is
+ * @buf): sw_format_speed_into ((char[SW_SPEED_TEXT]) { 0 }, SW_SPEED_TEXT, v). */
+#define SW_SPEED_TEXT 48
+const char *sw_format_speed_into (char *buf, gsize size, double m_s);
+#define SW_SPEED(v) sw_format_speed_into ((char[SW_SPEED_TEXT]) { 0 }, SW_SPEED_TEXT, (v))
 char       *sw_format_speed_delta (double m_s);         /* "+1,811 m/s" */
 char       *sw_format_percent (double fraction, int decimals);  /* 0.0123, 2 -> "1.23 %" */
 char       *sw_format_probability (double p);           /* "95.1 %"; "99.91 %" near 1 */

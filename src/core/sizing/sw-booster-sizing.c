@@ -1076,8 +1076,8 @@ sw_size_parallel (const SwParallelVehicle *v, double payload_kg, double delta_v_
             {
               char reason[SW_REASON_MAX];
               g_snprintf (reason, sizeof reason,
-                          _("The fixed vehicle gives %.0f m/s, short of the %.0f m/s "
-                            "required."), given, delta_v_m_s);
+                          _("The fixed vehicle gives %s, short of the %s "
+                            "required."), SW_SPEED (given), SW_SPEED (delta_v_m_s));
               set_infeasible (out, reason);
               return;
             }
@@ -1112,9 +1112,9 @@ sw_size_parallel (const SwParallelVehicle *v, double payload_kg, double delta_v_
     {
       char reason[SW_REASON_MAX];
       g_snprintf (reason, sizeof reason,
-                  _("No loads of the core%s give the %.0f m/s required: the stages and "
+                  _("No loads of the core%s give the %s required: the stages and "
                     "boosters reach less even with no payload."),
-                  v->count > 0 ? _(" and boosters") : "", delta_v_m_s);
+                  v->count > 0 ? _(" and boosters") : "", SW_SPEED (delta_v_m_s));
       set_infeasible (out, reason);
       return;
     }

@@ -4,6 +4,7 @@
 #include "config.h"
 
 #include "sw-phases.h"
+#include "sw-format.h"
 
 #include "sw-booster-sizing.h"
 #include "sw-fixed-vehicle.h"
@@ -172,9 +173,9 @@ sw_design_performance (const SwDesign *design, SwPerformance *out, GError **erro
       if (!sw_parallel_payload (&pv, dv, &payload, &out->empty_delta_v_m_s) || !(payload > 0.0))
         {
           g_snprintf (out->reason, sizeof out->reason,
-                      _("The vehicle cannot reach the %.0f m/s required even with no payload: "
-                        "empty, it gives %.0f m/s."),
-                      dv, out->empty_delta_v_m_s);
+                      _("The vehicle cannot reach the %s required even with no payload: "
+                        "empty, it gives %s."),
+                      SW_SPEED (dv), SW_SPEED (out->empty_delta_v_m_s));
           sw_size_parallel (&pv, 0.0, dv, design->split, &out->sizing);
           return TRUE;
         }
@@ -201,9 +202,9 @@ sw_design_performance (const SwDesign *design, SwPerformance *out, GError **erro
   if (!sw_fixed_vehicle_payload (&v, dv, &payload) || !(payload > 0.0))
     {
       g_snprintf (out->reason, sizeof out->reason,
-                  _("The vehicle cannot reach the %.0f m/s required even with no payload: "
-                    "empty, it gives %.0f m/s."),
-                  dv, out->empty_delta_v_m_s);
+                  _("The vehicle cannot reach the %s required even with no payload: "
+                    "empty, it gives %s."),
+                  SW_SPEED (dv), SW_SPEED (out->empty_delta_v_m_s));
       sw_size_with_fixed (&set, fixed_kg, 0.0, dv, design->split, &out->sizing);
       return TRUE;
     }

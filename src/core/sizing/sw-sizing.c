@@ -4,6 +4,7 @@
 #include "config.h"
 
 #include "sw-sizing.h"
+#include "sw-format.h"
 
 #include "sw-budget.h"
 
@@ -355,10 +356,10 @@ size_with_names (const SwStageSet *set, const SwDesign *names, double payload_kg
         {
           out->feasible = FALSE;
           g_snprintf (out->reason, sizeof out->reason,
-                      _("The required delta-v of %.0f m/s is at or beyond the limit of "
-                        "%.0f m/s that these %u stages reach even when empty of payload "
+                      _("The required delta-v of %s is at or beyond the limit of "
+                        "%s that these %u stages reach even when empty of payload "
                         "(the sum of c ln(1/eps) over the stages)."),
-                      delta_v_m_s, out->delta_v_limit_m_s, n);
+                      SW_SPEED (delta_v_m_s), SW_SPEED (out->delta_v_limit_m_s), n);
           /* No split exists: every per-stage figure is undefined (NAN, never
            * the zeros of the memset). */
           for (guint i = 0; i < n; i++)
@@ -392,9 +393,9 @@ size_with_names (const SwStageSet *set, const SwDesign *names, double payload_kg
               out->infeasible_stage = (int) i;
               stage_label (names, i, label, sizeof label);
               g_snprintf (out->reason, sizeof out->reason,
-                          _("%s must give %.0f m/s but cannot give more than %.0f m/s: its "
+                          _("%s must give %s but cannot give more than %s: its "
                             "mass ratio would reach 1/eps = %.2f even with no payload."),
-                          label, dv[i], r->delta_v_limit_m_s,
+                          label, SW_SPEED (dv[i]), SW_SPEED (r->delta_v_limit_m_s),
                           1.0 / set->structural_coefficient[i]);
             }
         }
@@ -406,8 +407,8 @@ size_with_names (const SwStageSet *set, const SwDesign *names, double payload_kg
         {
           size_t len = strlen (out->reason);
           g_snprintf (out->reason + len, sizeof out->reason - len,
-                      _(" The whole vehicle reaches at most %.0f m/s."),
-                      out->delta_v_limit_m_s);
+                      _(" The whole vehicle reaches at most %s."),
+                      SW_SPEED (out->delta_v_limit_m_s));
         }
       for (guint i = 0; i < n; i++)
         {
@@ -640,9 +641,9 @@ size_fixed (const SwStageSet *set, const double *fixed_kg, const SwDesign *names
       if (!(total0 >= delta_v_m_s))
         {
           g_snprintf (out->reason, sizeof out->reason,
-                      _("The fixed stages give %.0f m/s with this payload; the mission needs "
-                        "%.0f m/s."),
-                      total0, delta_v_m_s);
+                      _("The fixed stages give %s with this payload; the mission needs "
+                        "%s."),
+                      SW_SPEED (total0), SW_SPEED (delta_v_m_s));
           fixed_infeasible (out, n);
           return;
         }
@@ -650,10 +651,10 @@ size_fixed (const SwStageSet *set, const double *fixed_kg, const SwDesign *names
   else if (total0 > delta_v_m_s)
     {
       g_snprintf (out->reason, sizeof out->reason,
-                  _("The fixed stages alone give %.0f m/s, more than the %.0f m/s required: "
+                  _("The fixed stages alone give %s, more than the %s required: "
                     "nothing is left for the sized stages.  Remove a sized stage or size a "
                     "fixed one."),
-                  total0, delta_v_m_s);
+                  SW_SPEED (total0), SW_SPEED (delta_v_m_s));
       out->margin_m_s = out->delta_v_limit_m_s - delta_v_m_s;
       fixed_infeasible (out, n);
       return;
@@ -682,9 +683,9 @@ size_fixed (const SwStageSet *set, const double *fixed_kg, const SwDesign *names
       if (isnan (hi))
         {
           g_snprintf (out->reason, sizeof out->reason,
-                      _("The vehicle cannot reach the %.0f m/s required: with its fixed "
-                        "stages it gives at most about %.0f m/s."),
-                      delta_v_m_s, MAX (best, total0));
+                      _("The vehicle cannot reach the %s required: with its fixed "
+                        "stages it gives at most about %s."),
+                      SW_SPEED (delta_v_m_s), SW_SPEED (MAX (best, total0)));
           out->margin_m_s = MAX (best, total0) - delta_v_m_s;
           fixed_infeasible (out, n);
           return;
@@ -702,7 +703,7 @@ size_fixed (const SwStageSet *set, const double *fixed_kg, const SwDesign *names
   if (!isfinite (fixed_total (&p, payload_kg, d, dv)))
     {
       g_snprintf (out->reason, sizeof out->reason,
-                  _("No split of the sized stages gives the %.0f m/s required."), delta_v_m_s);
+                  _("No split of the sized stages gives the %s required."), SW_SPEED (delta_v_m_s));
       fixed_infeasible (out, n);
       return;
     }

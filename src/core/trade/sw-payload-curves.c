@@ -202,8 +202,8 @@ sw_payload_point_compute (const SwDesign *design, double altitude_km, double inc
   /* Not settled: the last figures stand, and say so. */
   if (out->reason[0] == '\0')
     g_snprintf (out->reason, sizeof out->reason,
-                _("the flown losses did not settle within %.0f m/s in %d flights"),
-                LOOP_TOLERANCE_M_S, LOOP_MAX);
+                _("the flown losses did not settle within %s in %d flights"),
+                SW_SPEED (LOOP_TOLERANCE_M_S), LOOP_MAX);
 }
 
 static gboolean
@@ -284,13 +284,13 @@ sw_payload_curves_compute (const SwDesign *design, const double *altitudes_km, g
                sizeof out->note);
   else
     g_snprintf (out->note, sizeof out->note,
-                _("Every point uses the %s of %.0f m/s at the design's altitude, moved at "
+                _("Every point uses the %s of %s at the design's altitude, moved at "
                   "other altitudes by the change in the climb's energy (the budget's ideal "
                   "delta-v counts the orbital speed, not the climb); the command line's "
                   "performance --simulate flies each point instead."),
                 m->loss_model == SW_LOSS_SIMULATE ? _("first-guess loss allowance")
                                                   : _("design's loss allowance"),
-                m->has_losses ? m->losses_m_s
-                : m->loss_model == SW_LOSS_SIMULATE ? SW_PAYLOAD_FIRST_GUESS_LOSSES_M_S : 0.0);
+                SW_SPEED (m->has_losses ? m->losses_m_s
+                : m->loss_model == SW_LOSS_SIMULATE ? SW_PAYLOAD_FIRST_GUESS_LOSSES_M_S : 0.0));
   return TRUE;
 }
