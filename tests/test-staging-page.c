@@ -408,31 +408,49 @@ ticks_cb (gpointer data)
   return *(guint *) data >= 3;
 }
 
+/* The focused row shows @text: a label with it inside the focus widget. */
+static gboolean
+has_label (GtkWidget *widget, const char *text)
+{
+  if (GTK_IS_LABEL (widget) && g_strcmp0 (gtk_label_get_text (GTK_LABEL (widget)), text) == 0)
+    return TRUE;
+  for (GtkWidget *c = gtk_widget_get_first_child (widget); c != NULL;
+       c = gtk_widget_get_next_sibling (c))
+    if (has_label (c, text))
+      return TRUE;
+  return FALSE;
+}
+
 typedef struct {
   GtkWidget *root;
-  GtkWidget *was;
-} FocusWait;
+  const char *text;
+} RowWait;
 
 static gboolean
-focus_moved_cb (gpointer data)
+row_focused_cb (gpointer data)
 {
-  const FocusWait *fw = data;
+  const RowWait *rw = data;
+  GtkWidget *focus = gtk_root_get_focus (GTK_ROOT (rw->root));
 
-  return gtk_root_get_focus (GTK_ROOT (fw->root)) != fw->was;
+  return focus != NULL && has_label (focus, rw->text);
 }
 
 /* Picks item @index of a drop-down with the keyboard: open, Home, Down
- * @index times, Enter. Each step waits for the window to have taken the
- * last (the list laid out and drawn, the focus moved a row), so that the
- * sanitizers' slower build sees the same keys. */
+ * @index times, Enter.  Each step waits for the window to have taken the
+ * last: the list laid out and drawn, then the row the key leads to focused
+ * (its label read from the drop-down's own list), so that a slow build on
+ * a busy machine sees the same keys. */
 static void
 pick (SwWindow *w, GtkWidget *dd, guint index)
 {
   PickWait pw = { dd, index };
+  GListModel *model = gtk_drop_down_get_model (GTK_DROP_DOWN (dd));
   guint ticks = 0;
   guint tick_id;
   GtkWidget *pop;
 
+  g_assert_true (GTK_IS_STRING_LIST (model));
+  g_assert_cmpuint (index, <, g_list_model_get_n_items (model));
   focus_widget (w, dd);
   xdo ("key", "space", NULL);
   sw_test_wait_until (list_open_cb, dd, 20000, "the drop-down's list to open");
@@ -441,17 +459,12 @@ pick (SwWindow *w, GtkWidget *dd, guint index)
   sw_test_wait_until (ticks_cb, &ticks, 20000, "the list to be drawn");
   gtk_widget_remove_tick_callback (pop, tick_id);
   drain ();
-  xdo ("key", "Home", NULL);
-  for (guint k = 0; k < 3; k++)
+  for (guint i = 0; i <= index; i++)
     {
-      g_usleep (50000);
-      drain ();
-    }
-  for (guint i = 0; i < index; i++)
-    {
-      FocusWait fw = { GTK_WIDGET (w), gtk_root_get_focus (GTK_ROOT (w)) };
-      xdo ("key", "Down", NULL);
-      sw_test_wait_until (focus_moved_cb, &fw, 20000, "the list's focus to move a row");
+      RowWait rw = { GTK_WIDGET (w),
+                     gtk_string_list_get_string (GTK_STRING_LIST (model), i) };
+      xdo ("key", i == 0 ? "Home" : "Down", NULL);
+      sw_test_wait_until (row_focused_cb, &rw, 20000, "the list's focus on the row the key leads to");
     }
   xdo ("key", "Return", NULL);
   {
