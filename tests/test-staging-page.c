@@ -426,13 +426,27 @@ typedef struct {
   const char *text;
 } RowWait;
 
+static guint
+count_labels (GtkWidget *widget)
+{
+  guint n = GTK_IS_LABEL (widget) ? 1 : 0;
+
+  for (GtkWidget *c = gtk_widget_get_first_child (widget); c != NULL;
+       c = gtk_widget_get_next_sibling (c))
+    n += count_labels (c);
+  return n;
+}
+
+/* The keyboard focus is on one row (not on the list around the rows, which
+ * holds every label) and that row shows the text. */
 static gboolean
 row_focused_cb (gpointer data)
 {
   const RowWait *rw = data;
   GtkWidget *focus = gtk_root_get_focus (GTK_ROOT (rw->root));
 
-  return focus != NULL && has_label (focus, rw->text);
+  return focus != NULL && !GTK_IS_LIST_VIEW (focus) && count_labels (focus) == 1
+         && has_label (focus, rw->text);
 }
 
 /* Picks item @index of a drop-down with the keyboard: open, Home, Down
