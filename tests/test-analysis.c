@@ -341,18 +341,24 @@ test_closed_loop_sizing (void)
 }
 
 /* A stage with a fixed propellant load: the sensitivities and the Monte
- * Carlo, which resize every stage, are left out and say why, rather than
- * describing another vehicle. */
+ * Carlo size every perturbed design as sw_size_design does (the fixed stage
+ * keeps its load), so they are computed and say nothing is missing; the
+ * liftoff mass stays their output.  Every stage fixed (the as-built demo):
+ * they are of the payload capability, whose nominal value is the one the
+ * analysis reports (sw_design_performance). */
 static void
 test_fixed_stage_trades (void)
 {
   g_autoptr (SwDesign) d = demo ("small-sat-launcher.stagewright");
-  g_autoptr (SwAnalysis) plain = NULL, fixed = NULL;
+  g_autoptr (SwDesign) built = demo ("sallowmere-as-built.stagewright");
+  g_autoptr (SwAnalysis) plain = NULL, fixed = NULL, all = NULL, run = NULL;
+  SwAnalysisOptions o;
 
   d->uncertainty.samples = 200;
   plain = sw_analysis_new (d, 1, NULL, NULL);
   g_assert_true (plain->sizing.feasible);
   g_assert_true (plain->has_sensitivity);
+  g_assert_false (plain->sensitivity.capability);
   g_assert_cmpstr (plain->montecarlo_error, ==, "");
 
   d->stages[2].propellant.has_propellant_kg = TRUE;
@@ -360,11 +366,66 @@ test_fixed_stage_trades (void)
   fixed = sw_analysis_new (d, 2, NULL, NULL);
   g_assert_true (fixed->sizing.feasible);
   g_assert_true (fixed->sizing.stages[2].fixed);
-  g_assert_false (fixed->has_sensitivity);
-  g_assert_false (fixed->montecarlo_pending);
-  g_assert_nonnull (strstr (fixed->montecarlo_error, "fixed propellant load"));
+  g_assert_true (fixed->has_sensitivity);
+  g_assert_false (fixed->all_fixed);
+  g_assert_false (fixed->sensitivity.capability);
+  g_assert_cmpfloat (fixed->sensitivity.liftoff_mass_kg, ==, fixed->sizing.liftoff_mass_kg);
+  g_assert_true (fixed->montecarlo_pending);
+  g_assert_cmpstr (fixed->montecarlo_error, ==, "");
+
+  sw_analysis_options_init (&o);
+  o.ascent = FALSE;
+  o.montecarlo_always = TRUE;
+  o.montecarlo_samples = 300;
+  all = sw_analysis_new (built, 3, &o, NULL);
+  g_assert_true (all->all_fixed);
+  g_assert_true (all->has_performance && all->performance.reachable);
+  g_assert_true (all->has_sensitivity);
+  g_assert_true (all->sensitivity.capability);
+  /* The one liftoff mass (the demo carries a fairing) is the sizing's. */
+  g_assert_cmpfloat (fabs (all->sensitivity.liftoff_mass_kg - all->sizing.liftoff_mass_kg), <,
+                     1e-9 * all->sizing.liftoff_mass_kg);
+  g_assert_cmpfloat (fabs (all->sensitivity.payload_capability_kg - all->performance.payload_kg),
+                     <, 1e-9 * all->performance.payload_kg);
+  run = sw_analysis_run (built, &o, NULL);
+  g_assert_true (run->has_montecarlo);
+  g_assert_true (run->montecarlo.all_fixed);
+  g_assert_cmpuint (run->montecarlo.margin.n, ==, 300);
+  /* No spread: every sample is the nominal vehicle, whose margin at the
+   * nominal payload is the sizing's. */
+  g_assert_cmpfloat (fabs (run->montecarlo.margin.mean - run->sizing.margin_m_s), <, 1e-6);
+  g_assert_cmpfloat (fabs (run->montecarlo.payload.mean - all->performance.payload_kg), <,
+                     1e-6 * all->performance.payload_kg);
+  g_assert_cmpfloat (run->montecarlo_success, ==, 1.0);
 }
 
+/* A vehicle that exists, on a "simulate" design: the closed loop's losses
+ * (and fairing jettison point) reach the sensitivities and the Monte Carlo,
+ * and the capability they start from is the one in the totals. */
+static void
+test_fixed_loads_loop (void)
+{
+  g_autoptr (SwDesign) d = demo ("sallowmere-as-built.stagewright");
+  g_autoptr (SwAnalysis) a = NULL;
+  SwAnalysisOptions o;
+
+  d->mission.loss_model = SW_LOSS_SIMULATE;
+  sw_analysis_options_init (&o);
+  o.montecarlo_always = TRUE;
+  o.montecarlo_samples = 200;
+  a = sw_analysis_run (d, &o, NULL);
+  g_assert_nonnull (a);
+  g_assert_true (a->sized_by_ascent);
+  g_assert_true (a->trade_losses_simulated);
+  g_assert_nonnull (strstr (a->trade_losses_note, "closed-loop"));
+  g_assert_true (a->has_sensitivity && a->sensitivity.capability);
+  g_assert_true (a->has_performance && a->performance.reachable);
+  g_assert_cmpfloat (fabs (a->sensitivity.payload_capability_kg - a->performance.payload_kg), <,
+                     1e-9 * a->performance.payload_kg);
+  g_assert_true (a->has_montecarlo && a->montecarlo.all_fixed);
+  g_assert_cmpfloat (fabs (a->montecarlo.nominal_capability_kg - a->performance.payload_kg), <,
+                     1e-6 * a->performance.payload_kg);
+}
 
 /* The shape and the estimated structural coefficients follow the sizing in
  * force: after the closed loop of a "simulate" design, the loop's vehicle
@@ -414,6 +475,7 @@ main (int argc, char **argv)
   g_test_add_func ("/analysis/trade-losses-note", test_trade_losses_note);
   g_test_add_func ("/analysis/closed-loop-sizing", test_closed_loop_sizing);
   g_test_add_func ("/analysis/fixed-stage-trades", test_fixed_stage_trades);
+  g_test_add_func ("/analysis/fixed-loads-loop", test_fixed_loads_loop);
   g_test_add_func ("/analysis/shape-follows-loop", test_shape_follows_loop);
   return g_test_run ();
 }

@@ -697,6 +697,82 @@ test_performance (void)
   g_assert_false (sw_design_performance (d, &perf, NULL));
 }
 
+
+/* The fixed-loads vehicle of the trade studies (sw_fixed_loads_payload and
+ * _delta_v): without boosters the delta-v is the rocket equation written out
+ * here once more (no fairing), and the payload the one at which it equals
+ * the requirement; with fixed boosters the payload is the performance's and
+ * the delta-v at it the requirement.  sw_design_all_fixed says whether every
+ * load (the boosters' too) is fixed. */
+static void
+test_fixed_loads (void)
+{
+  g_autoptr (SwDesign) d = booster_design (0, FALSE);
+  g_autoptr (SwDesign) b = booster_design (2, FALSE);
+  static const double prop[] = { 150000.0, 30000.0, 6000.0 };
+  SwParallelVehicle v;
+  SwPerformance perf;
+  double hand = 0.0, above = 1000.0, p;
+
+  g_assert_false (sw_design_all_fixed (d));
+  for (guint i = 0; i < 3; i++)
+    {
+      d->stages[i].propellant.has_propellant_kg = TRUE;
+      d->stages[i].propellant.propellant_kg = prop[i];
+      b->stages[i].propellant = d->stages[i].propellant;
+    }
+  g_assert_true (sw_design_all_fixed (d));
+  /* Boosters sized: not a vehicle that exists. */
+  g_assert_false (sw_design_all_fixed (b));
+  b->boosters.propellant.has_propellant_kg = TRUE;
+  b->boosters.propellant.propellant_kg = 40000.0;
+  g_assert_true (sw_design_all_fixed (b));
+
+  g_assert_true (sw_parallel_vehicle_from_design (&v, d, NULL));
+  for (int i = 2; i >= 0; i--)
+    {
+      double eps = d->stages[i].structural_coefficient;
+      double mf = above + prop[i] * eps / (1.0 - eps);
+
+      hand += d->stages[i].isp_vac_s * SW_G0 * log ((mf + prop[i]) / mf);
+      above = mf + prop[i];
+    }
+  assert_rel (sw_fixed_loads_delta_v (&v, 1000.0), hand, 1e-12);
+  p = sw_fixed_loads_payload (&v, 9000.0);
+  assert_rel (sw_fixed_loads_delta_v (&v, p), 9000.0, 1e-9);
+  d->mission.delta_v_m_s = 9000.0;
+  g_assert_true (sw_design_performance (d, &perf, NULL));
+  assert_rel (p, perf.payload_kg, 1e-9);
+  /* A sized stage: no such vehicle. */
+  v.fixed_kg[1] = 0.0;
+  g_assert_true (isnan (sw_fixed_loads_payload (&v, 9000.0)));
+  g_assert_true (isnan (sw_fixed_loads_delta_v (&v, 1000.0)));
+
+  b->mission.delta_v_m_s = 9000.0;
+  g_assert_true (sw_parallel_vehicle_from_design (&v, b, NULL));
+  g_assert_true (sw_design_performance (b, &perf, NULL));
+  g_assert_true (perf.reachable);
+  p = sw_fixed_loads_payload (&v, 9000.0);
+  assert_rel (p, perf.payload_kg, 1e-9);
+  assert_rel (sw_fixed_loads_delta_v (&v, p), 9000.0, 1e-9);
+  /* More payload, less delta-v. */
+  g_assert_cmpfloat (sw_fixed_loads_delta_v (&v, p + 100.0), <, 9000.0);
+  /* The liftoff mass is the sizing's, at a payload that fits. */
+  {
+    SwSizing s;
+
+    b->payload_kg = 0.5 * p;
+    g_assert_true (sw_size_design (b, &s, NULL));
+    g_assert_true (s.feasible);
+    assert_rel (sw_fixed_loads_liftoff_mass (&v, b->payload_kg), s.liftoff_mass_kg, 1e-12);
+    g_assert_true (sw_parallel_vehicle_from_design (&v, d, NULL));
+    d->payload_kg = 1000.0;
+    g_assert_true (sw_size_design (d, &s, NULL));
+    g_assert_true (s.feasible);
+    assert_rel (sw_fixed_loads_liftoff_mass (&v, 1000.0), s.liftoff_mass_kg, 1e-12);
+  }
+}
+
 int
 main (int argc, char **argv)
 {
@@ -714,5 +790,6 @@ main (int argc, char **argv)
   g_test_add_func ("/core/booster-sizing/round-trip", test_round_trip_and_effect);
   g_test_add_func ("/core/booster-sizing/too-much", test_too_much);
   g_test_add_func ("/core/booster-sizing/performance", test_performance);
+  g_test_add_func ("/core/booster-sizing/fixed-loads", test_fixed_loads);
   return g_test_run ();
 }

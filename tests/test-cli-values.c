@@ -255,12 +255,48 @@ test_montecarlo_values (void)
                                   1e-9 * mc.required_payload_kg);
 }
 
+/* Every load fixed: the JSON says so and gives the payload capability and
+ * the delta-v margin at the nominal payload, as the core computes them. */
+static void
+test_montecarlo_all_fixed (void)
+{
+  const guint samples = 300;
+  g_autofree char *path = demo ("sallowmere-as-built.stagewright");
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
+  g_autoptr (JsonNode) keep = NULL;
+  JsonObject *o;
+  JsonArray *outputs;
+  SwMonteCarlo mc;
+  Run r;
+
+  g_assert_nonnull (d);
+  g_assert_true (sw_montecarlo_run (d, NULL, samples, TRUE, 9, 2, &mc, NULL, NULL, NULL));
+  g_assert_true (mc.all_fixed);
+  run_cli (&r, "montecarlo", "--json", "--samples", "300", "--seed", "9", "--threads", "2", path,
+           NULL);
+  g_assert_cmpint (r.code, ==, 0);
+  o = parse (r.out, &keep);
+  g_assert_true (json_object_get_boolean_member (o, "all_fixed"));
+  outputs = array (o, "outputs");
+  g_assert_cmpuint (json_array_get_length (outputs), ==, 2);
+  g_assert_cmpstr (json_array_get_string_element (outputs, 0), ==, "payload_capability_kg");
+  g_assert_cmpstr (json_array_get_string_element (outputs, 1), ==, "delta_v_margin_m_s");
+  check (o, "nominal_payload_capability_kg", mc.nominal_capability_kg);
+  check (o, "nominal_delta_v_margin_m_s", mc.nominal_margin_m_s);
+  check_summary (o, "payload_capability_kg", &mc.payload);
+  check_summary (o, "delta_v_margin_m_s", &mc.margin);
+  run_clear (&r);
+}
+
 /* ---- sensitivity ------------------------------------------------------------ */
 
 static void
 test_sensitivity_values (void)
 {
-  const char *const designs[] = { "medium-cargo.stagewright", "small-sat-launcher.stagewright" };
+  /* Sized; a fixed upper stage; every load fixed (the payload capability's). */
+  const char *const designs[] = { "medium-cargo.stagewright", "small-sat-launcher.stagewright",
+                                  "sallowmere-kestrune-upper-stage.stagewright",
+                                  "sallowmere-as-built.stagewright" };
 
   for (guint k = 0; k < G_N_ELEMENTS (designs); k++)
     {
@@ -282,6 +318,14 @@ test_sensitivity_values (void)
       o = parse (r.out, &keep);
       check (o, "liftoff_mass_kg", t.liftoff_mass_kg);
       check (o, "step_percent", 3.0);
+      g_assert_cmpstr (json_object_get_string_member (o, "output"), ==,
+                       t.capability ? "payload_capability_kg" : "liftoff_mass_kg");
+      g_assert_cmpint (t.capability, ==, k == 3);
+      if (t.capability)
+        check (o, "payload_capability_kg", t.payload_capability_kg);
+      else
+        g_assert_true (JSON_NODE_HOLDS_NULL (json_object_get_member (o,
+                                                                     "payload_capability_kg")));
       params = array (o, "parameters");
       g_assert_cmpuint (json_array_get_length (params), ==, t.n_items);
       for (guint i = 0; i < t.n_items; i++)
@@ -741,6 +785,7 @@ test_csv_values (void)
       check_cell (&c, r, "elasticity", it->elasticity);
       check_cell (&c, r, "minus_step_kg", it->minus_kg);
       check_cell (&c, r, "plus_step_kg", it->plus_kg);
+      g_assert_cmpstr (cell (&c, r, "output"), ==, "liftoff_mass_kg");
     }
   csv_clear (&c);
 
@@ -813,6 +858,72 @@ test_csv_values (void)
   for (guint i = 0; i < G_N_ELEMENTS (files); i++)
     {
       g_autofree char *f = g_build_filename (dir, files[i], NULL);
+      g_unlink (f);
+    }
+  g_assert_cmpint (g_rmdir (dir), ==, 0);
+}
+
+/* Every load fixed: sensitivity.csv says its figures are of the payload
+ * capability, and uncertainty-histogram.csv gives the capability and the
+ * delta-v margin (bins the core's), no liftoff mass. */
+static void
+test_csv_all_fixed (void)
+{
+  g_autofree char *demo_file = demo ("sallowmere-as-built.stagewright");
+  g_autofree char *dir = g_dir_make_tmp ("sw-cli-csv-XXXXXX", NULL);
+  g_autofree char *path = g_build_filename (dir, "built.stagewright", NULL);
+  g_autoptr (SwDesign) d = sw_design_load (demo_file, NULL, NULL);
+  g_autoptr (GError) error = NULL;
+  g_autoptr (GDir) listing = NULL;
+  SwMonteCarlo mc;
+  const char *name;
+  guint margin_rows = 0;
+  Csv c;
+  Run run;
+
+  g_assert_nonnull (d);
+  d->uncertainty.present = TRUE;
+  d->uncertainty.has_samples = TRUE;
+  d->uncertainty.samples = 400;
+  d->uncertainty.isp.kind = SW_SPREAD_NORMAL;
+  d->uncertainty.isp.width = 1.0;
+  g_assert_true (sw_design_save (d, path, &error));
+  g_assert_no_error (error);
+  g_assert_true (sw_montecarlo_run (d, NULL, 0, FALSE, 0, 2, &mc, NULL, NULL, NULL));
+  g_assert_true (mc.all_fixed);
+
+  run_cli (&run, "export", "--csv", dir, "--no-ascent", path, NULL);
+  g_assert_cmpint (run.code, ==, 0);
+  run_clear (&run);
+  csv_read (&c, dir, "sensitivity.csv");
+  g_assert_cmpuint (c.rows->len, >, 0);
+  for (guint r = 0; r < c.rows->len; r++)
+    g_assert_cmpstr (cell (&c, r, "output"), ==, "payload_capability_kg");
+  csv_clear (&c);
+  csv_read (&c, dir, "uncertainty-histogram.csv");
+  for (guint r = 0; r < c.rows->len; r++)
+    {
+      const char *q = cell (&c, r, "quantity");
+      guint bin = (guint) atoi (cell (&c, r, "bin"));
+
+      g_assert_cmpstr (q, !=, "liftoff_mass_kg");
+      g_assert_cmpuint (bin, >=, 1);
+      g_assert_cmpuint (bin, <=, SW_MC_BINS);
+      if (g_strcmp0 (q, "delta_v_margin_m_s") == 0)
+        {
+          g_assert_cmpuint ((guint) atoi (cell (&c, r, "count")), ==, mc.margin.bins[bin - 1]);
+          margin_rows++;
+        }
+      else
+        g_assert_cmpuint ((guint) atoi (cell (&c, r, "count")), ==, mc.payload.bins[bin - 1]);
+    }
+  g_assert_cmpuint (margin_rows, ==, SW_MC_BINS);
+  csv_clear (&c);
+
+  listing = g_dir_open (dir, 0, NULL);
+  while ((name = g_dir_read_name (listing)) != NULL)
+    {
+      g_autofree char *f = g_build_filename (dir, name, NULL);
       g_unlink (f);
     }
   g_assert_cmpint (g_rmdir (dir), ==, 0);
@@ -972,12 +1083,14 @@ main (int argc, char **argv)
   /* A hang anywhere fails the run instead of waiting for meson's timeout. */
   alarm (4 * CLI_TIMEOUT_S);
   g_test_add_func ("/cli-values/montecarlo", test_montecarlo_values);
+  g_test_add_func ("/cli-values/montecarlo-all-fixed", test_montecarlo_all_fixed);
   g_test_add_func ("/cli-values/sensitivity", test_sensitivity_values);
   g_test_add_func ("/cli-values/reliability", test_reliability_values);
   g_test_add_func ("/cli-values/ascent", test_ascent_values);
   g_test_add_func ("/cli-values/atmosphere", test_atmosphere_values);
   g_test_add_func ("/cli-values/fairing-liftoff", test_fairing_liftoff_agrees);
   g_test_add_func ("/cli-values/csv", test_csv_values);
+  g_test_add_func ("/cli-values/csv-all-fixed", test_csv_all_fixed);
   g_test_add_func ("/cli-values/atmosphere-text", test_atmosphere_text);
   g_test_add_func ("/cli-values/montecarlo-text", test_montecarlo_text);
   g_test_add_func ("/cli-values/german-message", test_german_message);

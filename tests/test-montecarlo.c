@@ -6,9 +6,12 @@
 
 #include "sw-design.h"
 #include "sw-montecarlo.h"
+#include "sw-phases.h"
 #include "sw-sensitivity.h"
 #include "sw-sizing.h"
 
+#include <gsl/gsl_rng.h>
+#include <gsl/gsl_sort.h>
 #include <gsl/gsl_statistics_double.h>
 #include <math.h>
 #include <string.h>
@@ -495,6 +498,321 @@ test_boosters_sized (void)
                      4.0 * mc.payload.sd / sqrt (n) + 1e-3 * d->payload_kg);
 }
 
+
+/* ---- fixed propellant loads: every sample recomputed by hand ------------ */
+
+/* Three stages on a delta-v mission (no fairing); the fixed load keys of
+ * the three stages follow. */
+static const char *fixed_json =
+  "{ \"format\": \"stagewright-design\", \"version\": 2, \"name\": \"mc fixed\",\n"
+  "  \"payload_kg\": %s, \"mission\": { \"delta_v_m_s\": 9000 }, \"split\": \"optimal\",\n"
+  "  \"stages\": [\n"
+  "    { \"isp_vac_s\": 300, \"structural_coefficient\": 0.08%s },\n"
+  "    { \"isp_vac_s\": 330, \"structural_coefficient\": 0.10%s },\n"
+  "    { \"isp_vac_s\": 345, \"structural_coefficient\": 0.12%s } ],\n"
+  "  \"uncertainty\": { \"seed\": 31,\n"
+  "    \"isp_vac\": { \"distribution\": \"normal\", \"sigma_percent\": 1.0 },\n"
+  "    \"structural_coefficient\": { \"distribution\": \"uniform\", \"half_range_percent\": 6 },\n"
+  "    \"losses\": { \"distribution\": \"normal\", \"sigma_m_s\": 100 } } }";
+
+static SwDesign *
+fixed_design (const char *payload, const char *one, const char *two, const char *three)
+{
+  g_autofree char *json = g_strdup_printf (fixed_json, payload, one, two, three);
+  g_autoptr (GError) error = NULL;
+  SwDesign *d = load (json, &error);
+
+  g_assert_no_error (error);
+  return d;
+}
+
+/* The inputs of sample @index: the same generator and stream seed as the
+ * core (blocks of SW_MC_BLOCK samples, each from sw_uncertainty_stream_seed
+ * of its block), drawn in the documented order (each stage's Isp, then its
+ * structural coefficient; then the losses, drawn again while the delta-v is
+ * not positive). */
+static void
+draw_sample (const SwDesign *d, guint32 seed, guint index, double *c, double *eps, double *dv,
+             double *booster_c, double *booster_eps)
+{
+  gsl_rng *r = gsl_rng_alloc (gsl_rng_mt19937);
+  const SwUncertainty *u = &d->uncertainty;
+  double nominal_dv;
+
+  g_assert_true (sw_design_required_delta_v (d, &nominal_dv, NULL));
+  gsl_rng_set (r, sw_uncertainty_stream_seed (seed, index / SW_MC_BLOCK));
+  for (guint k = 0; k <= index % SW_MC_BLOCK; k++)
+    {
+      for (guint i = 0; i < d->n_stages; i++)
+        {
+          double c0 = d->stages[i].isp_vac_s * SW_G0;
+
+          c[i] = sw_spread_draw_scaled (r, &u->isp, c0, 0.05 * c0, INFINITY);
+          eps[i] = sw_spread_draw_scaled (r, &u->structural_coefficient,
+                                          d->stages[i].structural_coefficient, 1e-4, 0.95);
+        }
+      /* The boosters' two after the stages' (sw-montecarlo.h). */
+      if (d->boosters.count > 0)
+        {
+          double c0 = d->boosters.isp_vac_s * SW_G0;
+
+          *booster_c = sw_spread_draw_scaled (r, &u->isp, c0, 0.05 * c0, INFINITY);
+          *booster_eps = sw_spread_draw_scaled (r, &u->structural_coefficient,
+                                                d->boosters.structural_coefficient, 1e-4, 0.95);
+        }
+      *dv = nominal_dv;
+      for (int tries = 0; tries < 64; tries++)
+        {
+          double x = nominal_dv + sw_spread_draw (r, &u->losses);
+          if (x > 0.0)
+            {
+              *dv = x;
+              break;
+            }
+        }
+    }
+  gsl_rng_free (r);
+}
+
+/* The rocket equation summed by hand over stages of loads @prop (structure
+ * prop eps / (1 - eps)) with @payload on top. */
+static double
+hand_delta_v (guint n, const double *c, const double *eps, const double *prop, double payload)
+{
+  double above = payload, dv = 0.0;
+
+  for (int i = (int) n - 1; i >= 0; i--)
+    {
+      double mf = above + prop[i] * eps[i] / (1.0 - eps[i]);
+
+      dv += c[i] * log ((mf + prop[i]) / mf);
+      above = mf + prop[i];
+    }
+  return dv;
+}
+
+/* The payload at which that vehicle gives @dv, by bisection (NAN when even
+ * a payload of zero falls short). */
+static double
+hand_capability (guint n, const double *c, const double *eps, const double *prop, double dv)
+{
+  double lo = 0.0, hi = 1e3;
+
+  if (hand_delta_v (n, c, eps, prop, 0.0) < dv)
+    return NAN;
+  while (hand_delta_v (n, c, eps, prop, hi) > dv)
+    hi *= 2.0;
+  for (int k = 0; k < 200 && hi - lo > 1e-11 * hi; k++)
+    {
+      double mid = 0.5 * (lo + hi);
+      if (hand_delta_v (n, c, eps, prop, mid) > dv)
+        lo = mid;
+      else
+        hi = mid;
+    }
+  return 0.5 * (lo + hi);
+}
+
+/* Mean and percentiles of the finite values of @v against a summary. */
+static void
+assert_summary_matches (const double *v, guint n, const SwMcSummary *s, double tol)
+{
+  g_autofree double *w = g_new (double, n);
+  guint k = 0;
+
+  for (guint i = 0; i < n; i++)
+    if (isfinite (v[i]))
+      w[k++] = v[i];
+  g_assert_cmpuint (s->n, ==, k);
+  g_assert_cmpuint (k, >, 1);
+  gsl_sort (w, 1, k);
+  g_assert_cmpfloat (fabs (s->mean - gsl_stats_mean (w, 1, k)), <, tol);
+  g_assert_cmpfloat (fabs (s->p05 - gsl_stats_quantile_from_sorted_data (w, 1, k, 0.05)), <, tol);
+  g_assert_cmpfloat (fabs (s->p50 - gsl_stats_quantile_from_sorted_data (w, 1, k, 0.50)), <, tol);
+  g_assert_cmpfloat (fabs (s->p95 - gsl_stats_quantile_from_sorted_data (w, 1, k, 0.95)), <, tol);
+}
+
+/* A fixed top stage: each sample's liftoff mass is the sizing of the design
+ * edited to the sample's inputs (sw_size_design, the fixed stage keeping its
+ * load), each sample's payload of the built vehicle the hand bisection on
+ * the rocket equation; the run's mean and percentiles are those of the
+ * recomputed samples.  600 samples over three blocks, two threads. */
+static void
+test_fixed_stage_by_hand (void)
+{
+  g_autoptr (SwDesign) d = fixed_design ("1500", "", "", ", \"propellant_kg\": 9000");
+  const guint n = 600;
+  const guint32 seed = 31;
+  g_autofree double *liftoff = g_new (double, n), *payload = g_new (double, n);
+  g_autofree double *l_hand = g_new (double, n), *p_hand = g_new (double, n);
+  SwMonteCarlo mc;
+  SwSizing nominal;
+  double prop[SW_MAX_STAGES];
+  guint short_of = 0;
+
+  g_assert_true (sw_size_design (d, &nominal, NULL));
+  g_assert_true (nominal.feasible);
+  for (guint i = 0; i < d->n_stages; i++)
+    prop[i] = nominal.stages[i].propellant_mass_kg;
+  g_assert_true (sw_montecarlo_run (d, NULL, n, TRUE, seed, 2, &mc, liftoff, payload, NULL));
+  g_assert_false (mc.all_fixed);
+  g_assert_cmpuint (mc.margin.n, ==, 0);
+  for (guint k = 0; k < n; k++)
+    {
+      g_autoptr (SwDesign) e = sw_design_copy (d);
+      double c[SW_MAX_STAGES], eps[SW_MAX_STAGES], dv;
+      SwSizing s;
+
+      draw_sample (d, seed, k, c, eps, &dv, NULL, NULL);
+      for (guint i = 0; i < d->n_stages; i++)
+        {
+          e->stages[i].isp_vac_s = c[i] / SW_G0;
+          e->stages[i].structural_coefficient = eps[i];
+        }
+      e->mission.delta_v_m_s = dv;
+      g_assert_true (sw_size_design (e, &s, NULL));
+      l_hand[k] = s.feasible ? s.liftoff_mass_kg : NAN;
+      if (s.feasible)
+        g_assert_cmpfloat (s.stages[2].propellant_mass_kg, ==, 9000.0);
+      p_hand[k] = hand_capability (d->n_stages, c, eps, prop, dv);
+      g_assert_cmpint (isfinite (liftoff[k]), ==, isfinite (l_hand[k]));
+      if (isfinite (l_hand[k]))
+        g_assert_cmpfloat (fabs (liftoff[k] - l_hand[k]), <, 1e-7 * l_hand[k]);
+      g_assert_cmpfloat (fabs (payload[k] - p_hand[k]), <, 1e-6 * d->payload_kg);
+      short_of += !(p_hand[k] >= d->payload_kg);
+    }
+  assert_summary_matches (l_hand, n, &mc.liftoff, 1e-7 * nominal.liftoff_mass_kg);
+  assert_summary_matches (p_hand, n, &mc.payload, 1e-6 * d->payload_kg);
+  g_assert_cmpfloat (fabs (mc.p_negative_margin - (double) short_of / n), <=, 1.0 / n);
+  /* The spreads move the liftoff mass (not a constant test). */
+  g_assert_cmpfloat (mc.liftoff.sd, >, 1e-3 * mc.liftoff.mean);
+}
+
+/* Every load fixed: the liftoff mass is one number, so the outputs are the
+ * payload capability (hand bisection on the rocket equation at the sampled
+ * inputs) and the delta-v margin at the nominal payload (the hand rocket
+ * equation less the sampled requirement), whether or not the nominal
+ * payload fits; the run's means and percentiles are the recomputed ones,
+ * and the chance that the payload fits is the share of positive margins. */
+static void
+test_all_fixed_by_hand (void)
+{
+  for (int heavy = 0; heavy < 2; heavy++)
+    {
+      /* 6,931 kg is the nominal capability (test-sensitivity's bisection):
+       * 6,500 kg fits mostly, 7,200 kg mostly not. */
+      g_autoptr (SwDesign) d = fixed_design (heavy ? "7200" : "6500",
+                                             ", \"propellant_kg\": 150000",
+                                             ", \"propellant_kg\": 30000",
+                                             ", \"propellant_kg\": 9000");
+      const guint n = 600;
+      const guint32 seed = 5;
+      g_autofree double *payload = g_new (double, n), *margin = g_new (double, n);
+      g_autofree double *p_hand = g_new (double, n), *m_hand = g_new (double, n);
+      double prop[3] = { 150000, 30000, 9000 }, c0[3], eps0[3], dv0;
+      SwMonteCarlo mc;
+      guint negative = 0;
+
+      g_assert_true (sw_design_required_delta_v (d, &dv0, NULL));
+      for (guint i = 0; i < 3; i++)
+        {
+          c0[i] = d->stages[i].isp_vac_s * SW_G0;
+          eps0[i] = d->stages[i].structural_coefficient;
+        }
+      g_assert_true (sw_montecarlo_run_margins (d, NULL, n, TRUE, seed, 2, &mc, NULL, payload,
+                                                margin, NULL));
+      g_assert_true (mc.all_fixed);
+      g_assert_cmpfloat (fabs (mc.nominal_capability_kg
+                               - hand_capability (3, c0, eps0, prop, dv0)), <, 1e-6 * 7000);
+      g_assert_cmpfloat (fabs (mc.nominal_margin_m_s
+                               - (hand_delta_v (3, c0, eps0, prop, d->payload_kg) - dv0)), <,
+                         1e-6);
+      for (guint k = 0; k < n; k++)
+        {
+          double c[SW_MAX_STAGES], eps[SW_MAX_STAGES], dv;
+
+          draw_sample (d, seed, k, c, eps, &dv, NULL, NULL);
+          p_hand[k] = hand_capability (3, c, eps, prop, dv);
+          m_hand[k] = hand_delta_v (3, c, eps, prop, d->payload_kg) - dv;
+          g_assert_cmpfloat (fabs (payload[k] - p_hand[k]), <, 1e-6 * d->payload_kg);
+          g_assert_cmpfloat (fabs (margin[k] - m_hand[k]), <, 1e-6);
+          negative += m_hand[k] < 0.0;
+          /* The payload fits exactly when the margin is not negative. */
+          g_assert_cmpint (m_hand[k] >= 0.0, ==, p_hand[k] >= d->payload_kg);
+        }
+      assert_summary_matches (p_hand, n, &mc.payload, 1e-6 * d->payload_kg);
+      assert_summary_matches (m_hand, n, &mc.margin, 1e-6);
+      g_test_message ("payload %.0f kg: capability mean %.1f kg, margin mean %.1f m/s, "
+                      "P(fits) %.3f", d->payload_kg, mc.payload.mean, mc.margin.mean,
+                      1.0 - mc.p_negative_margin);
+      g_assert_cmpfloat (fabs (mc.p_negative_margin - (double) negative / n), <=, 0.5 / n);
+      /* Not a constant test: the spreads move both outputs, and the two
+       * payloads sit on either side of the median capability. */
+      g_assert_cmpfloat (mc.margin.sd, >, 10.0);
+      if (heavy)
+        g_assert_cmpfloat (mc.p_negative_margin, >, 0.5);
+      else
+        g_assert_cmpfloat (mc.p_negative_margin, <, 0.5);
+    }
+}
+
+/* Every load fixed, with boosters: each sample's payload capability is the
+ * payload capability (sw_design_performance, the phases' own root) of the
+ * design edited to the sample's inputs, and the delta-v margin at the
+ * nominal payload is not negative exactly when that capability reaches the
+ * nominal payload. */
+static void
+test_all_fixed_boosters_by_hand (void)
+{
+  g_autofree char *json = g_strdup_printf (booster_json, ", \"propellant_kg\": 30000");
+  g_autoptr (SwDesign) d = load (json, NULL);
+  const guint n = 300;
+  const guint32 seed = 11;
+  g_autofree double *payload = g_new (double, n), *margin = g_new (double, n);
+  g_autofree double *p_hand = g_new (double, n);
+  SwMonteCarlo mc;
+
+  g_assert_nonnull (d);
+  d->stages[0].propellant.has_propellant_kg = TRUE;
+  d->stages[0].propellant.propellant_kg = 90000.0;
+  d->stages[1].propellant.has_propellant_kg = TRUE;
+  d->stages[1].propellant.propellant_kg = 20000.0;
+  /* Near the nominal capability (about 7,200 kg), so that both sides of
+   * "fits" are sampled. */
+  d->payload_kg = 7200.0;
+  g_assert_true (sw_montecarlo_run_margins (d, NULL, n, TRUE, seed, 2, &mc, NULL, payload,
+                                            margin, NULL));
+  g_assert_true (mc.all_fixed);
+  for (guint k = 0; k < n; k++)
+    {
+      g_autoptr (SwDesign) e = sw_design_copy (d);
+      double c[SW_MAX_STAGES], eps[SW_MAX_STAGES], dv, bc = NAN, beps = NAN;
+      SwPerformance perf;
+
+      draw_sample (d, seed, k, c, eps, &dv, &bc, &beps);
+      for (guint i = 0; i < d->n_stages; i++)
+        {
+          e->stages[i].isp_vac_s = c[i] / SW_G0;
+          e->stages[i].structural_coefficient = eps[i];
+        }
+      e->boosters.isp_vac_s = bc / SW_G0;
+      e->boosters.structural_coefficient = beps;
+      e->mission.delta_v_m_s = dv;
+      g_assert_true (sw_design_performance (e, &perf, NULL));
+      p_hand[k] = perf.reachable ? perf.payload_kg : NAN;
+      g_assert_cmpint (isfinite (payload[k]), ==, isfinite (p_hand[k]));
+      if (isfinite (p_hand[k]))
+        g_assert_cmpfloat (fabs (payload[k] - p_hand[k]), <, 1e-6 * d->payload_kg);
+      g_assert_cmpint (margin[k] >= 0.0, ==, p_hand[k] >= d->payload_kg);
+    }
+  assert_summary_matches (p_hand, n, &mc.payload, 1e-6 * d->payload_kg);
+  g_test_message ("boosters fixed: capability mean %.1f kg, margin mean %.2f m/s, P(fits) %.3f",
+                  mc.payload.mean, mc.margin.mean, 1.0 - mc.p_negative_margin);
+  g_assert_cmpfloat (mc.payload.sd, >, 0.0);
+  g_assert_cmpfloat (mc.p_negative_margin, >, 0.05);
+  g_assert_cmpfloat (mc.p_negative_margin, <, 0.95);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -511,5 +829,9 @@ main (int argc, char **argv)
   g_test_add_func ("/core/montecarlo/cancellable", test_cancellable);
   g_test_add_func ("/core/montecarlo/boosters-fixed", test_boosters_fixed);
   g_test_add_func ("/core/montecarlo/boosters-sized", test_boosters_sized);
+  g_test_add_func ("/core/montecarlo/fixed-stage-by-hand", test_fixed_stage_by_hand);
+  g_test_add_func ("/core/montecarlo/all-fixed-by-hand", test_all_fixed_by_hand);
+  g_test_add_func ("/core/montecarlo/all-fixed-boosters-by-hand",
+                   test_all_fixed_boosters_by_hand);
   return g_test_run ();
 }

@@ -232,6 +232,83 @@ test_tornado_boosters (void)
   sw_test_window_close (w);
 }
 
+/* Fixed propellant loads: a fixed upper stage keeps the liftoff mass as
+ * the tornado's and the histogram's output; every load fixed (the as-built
+ * demo) makes them the payload capability's, and the cards say which.  The
+ * page's numbers are the core's. */
+static void
+test_fixed_loads (void)
+{
+  SwWindow *w = window_new ();
+  g_autofree char *dir = g_dir_make_tmp ("sw-trade-XXXXXX", NULL);
+  g_autofree char *path = g_build_filename (dir, "fixed.stagewright", NULL);
+  const char *const demos[] = { "sallowmere-kestrune-upper-stage.stagewright",
+                                "sallowmere-as-built.stagewright" };
+
+  for (guint k = 0; k < G_N_ELEMENTS (demos); k++)
+    {
+      g_autofree char *demo = demo_path (demos[k]);
+      g_autoptr (SwDesign) d = sw_design_load (demo, NULL, NULL);
+      g_autoptr (GError) error = NULL;
+      const double *minus, *plus;
+      const char *const *labels;
+      double lines[3];
+      SwSensitivityTable t;
+      SwMonteCarlo mc;
+      SwAnalysis *r;
+      guint n;
+
+      g_assert_nonnull (d);
+      d->uncertainty.present = TRUE;
+      d->uncertainty.has_samples = TRUE;
+      d->uncertainty.samples = 300;
+      d->uncertainty.isp.kind = SW_SPREAD_NORMAL;
+      d->uncertainty.isp.width = 1.0;
+      d->uncertainty.losses.kind = SW_SPREAD_NORMAL;
+      d->uncertainty.losses.width = 80.0;
+      g_assert_true (sw_design_save (d, path, &error));
+      g_assert_no_error (error);
+      load_file (w, path);
+      show_trade (w);
+      r = sw_window_get_shown_result (w);
+
+      g_assert_true (sw_sensitivity_compute (doc_design (w), r->sensitivity_step, &t, &error));
+      g_assert_no_error (error);
+      g_assert_cmpint (t.capability, ==, k == 1);
+      n = sw_trade_page_get_tornado (page (w), &minus, &plus, &labels);
+      g_assert_cmpuint (n, ==, t.n_items);
+      g_assert_cmpuint (n, ==, k == 1 ? 5 : 6);
+      for (guint i = 0; i < n; i++)
+        {
+          g_assert_cmpfloat (minus[i], ==, t.items[t.ranked[i]].minus_kg);
+          g_assert_cmpfloat (plus[i], ==, t.items[t.ranked[i]].plus_kg);
+        }
+
+      g_assert_true (sw_montecarlo_run (doc_design (w), NULL, 0, FALSE, 0, 1, &mc, NULL, NULL,
+                                        &error));
+      g_assert_no_error (error);
+      g_assert_true (r->has_montecarlo);
+      g_assert_cmpint (mc.all_fixed, ==, k == 1);
+      g_assert_true (sw_trade_page_get_percentile_lines (page (w), lines));
+      g_assert_cmpfloat (lines[1], ==, k == 1 ? mc.payload.p50 : mc.liftoff.p50);
+      if (k == 1)
+        {
+          g_autofree char *lo = sw_format_speed (mc.margin.p05);
+          g_assert_nonnull (strstr (sw_trade_page_get_card_text (page (w),
+                                                                 SW_TRADE_CARD_SPREAD), lo));
+        }
+      {
+        g_autofree char *fits = sw_format_probability (1.0 - mc.p_negative_margin);
+        g_assert_cmpstr (sw_trade_page_get_card_text (page (w), SW_TRADE_CARD_SHORTFALL), ==,
+                         fits);
+      }
+    }
+  g_unlink (path);
+  g_rmdir (dir);
+  sw_test_window_close (w);
+}
+
+
 static void
 test_tornado (void)
 {
@@ -687,6 +764,7 @@ main (int argc, char **argv)
 
   g_test_add_func ("/gui/trade/tornado", test_tornado);
   g_test_add_func ("/gui/trade/tornado-boosters", test_tornado_boosters);
+  g_test_add_func ("/gui/trade/fixed-loads", test_fixed_loads);
   g_test_add_func ("/gui/trade/histogram", test_histogram);
   g_test_add_func ("/gui/trade/baseline", test_baseline);
   g_test_add_func ("/gui/trade/export", test_export);

@@ -55,8 +55,10 @@ struct _SwTradePage {
   GtkLabel      *driver_caption;
   GtkLabel      *driver_value;
   GtkLabel      *driver_detail;
+  GtkLabel      *spread_caption;
   GtkLabel      *spread_value;
   GtkLabel      *spread_detail;
+  GtkLabel      *shortfall_caption;
   GtkLabel      *shortfall_value;
   GtkLabel      *shortfall_detail;
   GtkLabel      *success_value;
@@ -290,10 +292,21 @@ show_tornado (SwTradePage *self, SwAnalysis *r)
   g_clear_pointer (&self->row_labels, g_strfreev);
 
   step_text = step_percent (r);
-  /* Translators: %s is the step in percent, e.g. "5" */
-  title = g_strdup_printf (_("Liftoff mass change, each input ±%s %%"), step_text);
-  sw_plot_set_title (self->tornado_plot, title);
-  sw_plot_set_x_axis (self->tornado_plot, _("Change of the liftoff mass"), FALSE);
+  /* A vehicle that exists: its liftoff mass is fixed, the payload moves. */
+  if (r != NULL && r->ok && t->capability)
+    {
+      /* Translators: %s is the step in percent, e.g. "5" */
+      title = g_strdup_printf (_("Payload capability change, each input ±%s %%"), step_text);
+      sw_plot_set_title (self->tornado_plot, title);
+      sw_plot_set_x_axis (self->tornado_plot, _("Change of the payload capability"), FALSE);
+    }
+  else
+    {
+      /* Translators: %s is the step in percent, e.g. "5" */
+      title = g_strdup_printf (_("Liftoff mass change, each input ±%s %%"), step_text);
+      sw_plot_set_title (self->tornado_plot, title);
+      sw_plot_set_x_axis (self->tornado_plot, _("Change of the liftoff mass"), FALSE);
+    }
   sw_plot_set_y_axis (self->tornado_plot, NULL, FALSE);
 
   if (r != NULL && r->ok && r->has_sensitivity)
@@ -360,7 +373,10 @@ show_tornado (SwTradePage *self, SwAnalysis *r)
 static void
 show_histogram (SwTradePage *self, SwAnalysis *r)
 {
-  const SwMcSummary *s = r != NULL ? &r->montecarlo.liftoff : NULL;
+  /* A vehicle that exists: the payload capability, its liftoff mass fixed. */
+  gboolean capability = r != NULL && r->ok && r->all_fixed;
+  const SwMcSummary *s = r == NULL ? NULL
+                         : capability ? &r->montecarlo.payload : &r->montecarlo.liftoff;
   double x[SW_MC_BINS], y[SW_MC_BINS], width;
   g_autofree char *title = NULL, *samples = NULL;
   static const char *const names[3] = { N_("5th"), N_("median"), N_("95th") };
@@ -378,13 +394,16 @@ show_histogram (SwTradePage *self, SwAnalysis *r)
       gtk_spinner_set_spinning (self->histogram_spinner, TRUE);
     }
   else if (!sw_uncertainty_has_spread (&r->design->uncertainty))
-    empty = _("No uncertainty spreads in this design. Set them under “Uncertainty…” to see "
-              "how far the liftoff mass spreads.");
+    empty = capability ? _("No uncertainty spreads in this design. Set them under "
+                           "“Uncertainty…” to see how far the payload capability spreads.")
+                       : _("No uncertainty spreads in this design. Set them under "
+                           "“Uncertainty…” to see how far the liftoff mass spreads.");
   else if (!r->has_montecarlo)
     empty = r->montecarlo_error[0] != '\0' ? r->montecarlo_error
                                            : _("The Monte Carlo did not run.");
   else if (s->n == 0 || !(s->bin_hi > s->bin_lo))
-    empty = _("No sample closes: the spread inputs leave no feasible vehicle.");
+    empty = capability ? _("In no sample does the vehicle reach the required delta-v.")
+                       : _("No sample closes: the spread inputs leave no feasible vehicle.");
   else
     empty = NULL;
 
@@ -397,10 +416,24 @@ show_histogram (SwTradePage *self, SwAnalysis *r)
 
   samples = sw_format_number (s->n, 0);
   /* Translators: %s is the number of samples, e.g. "10,000" */
-  title = g_strdup_printf (_("Liftoff mass over %s samples"), samples);
+  if (capability)
+    {
+      /* Translators: %s is the number of samples, e.g. "10,000" */
+      title = g_strdup_printf (_("Payload capability over %s samples"), samples);
+      sw_plot_set_x_axis (self->histogram_plot,
+                          _("Payload that reaches the required delta-v"), FALSE);
+      if (s->max < 5000.0)
+        sw_plot_set_x_format (self->histogram_plot, _("%.0f kg"), 1.0);
+      else
+        sw_plot_set_x_format (self->histogram_plot, _("%.3g t"), 1000.0);
+    }
+  else
+    {
+      title = g_strdup_printf (_("Liftoff mass over %s samples"), samples);
+      sw_plot_set_x_axis (self->histogram_plot, _("Liftoff mass for the payload"), FALSE);
+      sw_plot_set_x_format (self->histogram_plot, _("%.3g t"), 1000.0);
+    }
   sw_plot_set_title (self->histogram_plot, title);
-  sw_plot_set_x_axis (self->histogram_plot, _("Liftoff mass for the payload"), FALSE);
-  sw_plot_set_x_format (self->histogram_plot, _("%.3g t"), 1000.0);
   sw_plot_set_y_axis (self->histogram_plot, _("Share of the samples"), FALSE);
   /* Translators: tick labels of a share axis in percent */
   sw_plot_set_y_format (self->histogram_plot, _("%.0f %%"), 1.0);
@@ -505,8 +538,12 @@ show_cards (SwTradePage *self, SwAnalysis *r)
 
   /* The largest effect. */
   step_text = step_percent (r);
-  /* Translators: %s is the tornado's step in percent */
-  caption = g_strdup_printf (_("Largest effect of ±%s %% on the liftoff mass"), step_text);
+  if (r != NULL && r->ok && r->all_fixed)
+    /* Translators: %s is the tornado's step in percent */
+    caption = g_strdup_printf (_("Largest effect of ±%s %% on the capability"), step_text);
+  else
+    /* Translators: %s is the tornado's step in percent */
+    caption = g_strdup_printf (_("Largest effect of ±%s %% on the liftoff mass"), step_text);
   set_label (self->driver_caption, caption);
   if (r != NULL && r->ok && r->has_sensitivity && r->sensitivity.n_items > 0)
     {
@@ -519,16 +556,48 @@ show_cards (SwTradePage *self, SwAnalysis *r)
   else
     {
       value = g_strdup (SW_NO_VALUE);
-      detail = g_strdup (r != NULL && r->ok ? _("The design does not close: no sensitivities.")
-                                            : "");
+      detail = g_strdup (r == NULL || !r->ok ? ""
+                         : r->all_fixed ? _("The vehicle carries no payload to the mission: "
+                                            "no sensitivities.")
+                         : _("The design does not close: no sensitivities."));
     }
   set_label (self->driver_value, value);
   set_label (self->driver_detail, detail);
   g_clear_pointer (&value, g_free);
   g_clear_pointer (&detail, g_free);
 
-  /* The spread of the liftoff mass and the shortfall. */
-  if (r != NULL && r->ok && r->has_montecarlo && r->montecarlo.liftoff.n > 0)
+  /* The spread of the liftoff mass and the shortfall; for a vehicle that
+   * exists, the delta-v margin at the nominal payload and the chance the
+   * nominal payload fits. */
+  set_label (self->spread_caption, r != NULL && r->ok && r->all_fixed
+                                     ? _("Delta-v margin, 5th to 95th percentile")
+                                     : _("Liftoff mass, 5th to 95th percentile"));
+  set_label (self->shortfall_caption, r != NULL && r->ok && r->all_fixed
+                                        ? _("Chance the nominal payload fits")
+                                        : _("Chance the payload is carried, no reserve"));
+  gtk_widget_set_tooltip_text (GTK_WIDGET (self->shortfall_caption),
+                               r != NULL && r->ok && r->all_fixed
+                               ? _("Share of the samples in which the vehicle (every "
+                                   "propellant load fixed) reaches the required delta-v "
+                                   "with the nominal payload")
+                               : _("Share of the samples in which the vehicle as sized (its "
+                                   "propellant loads fixed) carries less than the required "
+                                   "payload"));
+  if (r != NULL && r->ok && r->has_montecarlo && r->montecarlo.all_fixed
+      && r->montecarlo.margin.n > 0)
+    {
+      const SwMonteCarlo *mc = &r->montecarlo;
+      g_autofree char *lo = sw_format_speed (mc->margin.p05);
+      g_autofree char *hi = sw_format_speed (mc->margin.p95);
+      g_autofree char *mean = sw_format_speed (mc->margin.mean);
+      g_autofree char *n = sw_format_number (mc->samples, 0);
+
+      value = g_strdup_printf ("%s – %s", lo, hi);
+      /* Translators: a speed; number of samples; seed */
+      detail = g_strdup_printf (_("at the nominal payload; mean %s (%s samples, seed %u)"),
+                                mean, n, mc->seed);
+    }
+  else if (r != NULL && r->ok && r->has_montecarlo && r->montecarlo.liftoff.n > 0)
     {
       const SwMonteCarlo *mc = &r->montecarlo;
       g_autofree char *lo = sw_format_mass (mc->liftoff.p05);
@@ -568,7 +637,16 @@ show_cards (SwTradePage *self, SwAnalysis *r)
       /* What a manager asks: how likely is the payload carried as the vehicle
        * is sized, and what reserve makes it 95 %. */
       value = sw_format_probability (r->montecarlo_success);
-      if (mc->reserve_95_kg > 0.0)
+      if (mc->all_fixed && mc->reserve_95_kg >= mc->required_payload_kg)
+        detail = g_strdup (_("Even with no payload it falls short in more than 5 percent of "
+                             "cases"));
+      else if (mc->all_fixed && mc->reserve_95_kg > 0.0)
+        /* Translators: %s is a mass */
+        detail = g_strdup_printf (_("A payload %s lighter raises it to 95 %%"), reserve);
+      else if (mc->all_fixed)
+        detail = g_strdup (_("The capability exceeds the payload in at least 95 percent of "
+                             "cases"));
+      else if (mc->reserve_95_kg > 0.0)
         /* Translators: %s is a mass */
         detail = g_strdup_printf (_("Holding back %s of payload capacity raises it to 95 %%"),
                                   reserve);
@@ -881,8 +959,10 @@ sw_trade_page_class_init (SwTradePageClass *klass)
   CHILD (driver_caption);
   CHILD (driver_value);
   CHILD (driver_detail);
+  CHILD (spread_caption);
   CHILD (spread_value);
   CHILD (spread_detail);
+  CHILD (shortfall_caption);
   CHILD (shortfall_value);
   CHILD (shortfall_detail);
   CHILD (success_value);

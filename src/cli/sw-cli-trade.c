@@ -35,6 +35,7 @@ static GOptionEntry sensitivity_entries[] = {
 static const char *
 unit_of (SwSensParam p)
 {
+  /* The same units for the payload capability's table (kg of payload). */
   switch (p)
     {
     case SW_SENS_PAYLOAD:
@@ -91,6 +92,8 @@ sw_cli_sensitivity (int argc, char **argv)
       t.step = o.sensitivity_step;
       t.liftoff_mass_kg = NAN;
     }
+  if (!a->has_sensitivity && !t.capability)
+    t.payload_capability_kg = NAN;
 
   if (opt_json)
     {
@@ -99,7 +102,13 @@ sw_cli_sensitivity (int argc, char **argv)
       json_builder_begin_object (b);
       json_builder_set_member_name (b, "feasible");
       json_builder_add_boolean_value (b, t.feasible);
+      /* What the derivatives and the steps are of. */
+      json_builder_set_member_name (b, "output");
+      json_builder_add_string_value (b, t.capability ? "payload_capability_kg"
+                                                     : "liftoff_mass_kg");
       sw_cli_add_number (b, "liftoff_mass_kg", t.liftoff_mass_kg);
+      sw_cli_add_number (b, "payload_capability_kg", t.capability ? t.payload_capability_kg
+                                                                  : NAN);
       sw_cli_add_number (b, "step_percent", t.step * 100.0);
       sw_cli_add_number (b, "losses_used_m_s", a->trade_losses_m_s);
       json_builder_set_member_name (b, "losses_from_closed_loop");
@@ -149,9 +158,11 @@ sw_cli_sensitivity (int argc, char **argv)
     }
 
   g_print (_("Design: %s\n"), d->name);
-  if (!t.feasible && a->sizing.feasible && a->montecarlo_error[0] != '\0')
+  if (!t.feasible && t.capability)
     {
-      g_print ("%s\n\n%s\n", a->montecarlo_error, sw_format_cautions ());
+      g_print (_("The vehicle carries no payload to the mission (every propellant load is "
+                 "fixed): no sensitivities.\n\n%s\n"),
+               sw_format_cautions ());
       return SW_EXIT_OK;
     }
   if (!t.feasible)
@@ -159,13 +170,20 @@ sw_cli_sensitivity (int argc, char **argv)
       g_print (_("The design is infeasible: no sensitivities.\n\n%s\n"), sw_format_cautions ());
       return SW_EXIT_OK;
     }
-  g_print (_("Liftoff mass %s kg; tornado step +-%g %%, largest effect first\n"),
-           sw_cli_num (t.liftoff_mass_kg, 1), t.step * 100.0);
+  if (t.capability)
+    g_print (_("Every propellant load is fixed, so the liftoff mass (%s kg) does not change: "
+               "the table is of the payload capability, %s kg (nominal payload %s kg).\n"
+               "Tornado step +-%g %%, largest effect first; dP/dx in kg of payload per unit\n"),
+             sw_cli_num (t.liftoff_mass_kg, 1), sw_cli_num (t.payload_capability_kg, 1),
+             sw_cli_num (d->payload_kg, 1), t.step * 100.0);
+  else
+    g_print (_("Liftoff mass %s kg; tornado step +-%g %%, largest effect first\n"),
+             sw_cli_num (t.liftoff_mass_kg, 1), t.step * 100.0);
   if (a->trade_losses_note[0] != '\0')
     g_print ("%s\n", a->trade_losses_note);
   g_print ("\n");
-  g_print ("%-3s %-40s %12s %14s %-9s %10s %12s %12s\n", "#", "parameter", "value", "dm0/dx",
-           "unit", "elasticity", "-step kg", "+step kg");
+  g_print ("%-3s %-40s %12s %14s %-9s %10s %12s %12s\n", "#", "parameter", "value",
+           t.capability ? "dP/dx" : "dm0/dx", "unit", "elasticity", "-step kg", "+step kg");
   for (guint r = 0; r < t.n_items; r++)
     {
       const SwSensitivity *it = &t.items[t.ranked[r]];
@@ -442,6 +460,37 @@ sw_cli_montecarlo (int argc, char **argv)
       json_builder_add_string_value (b, "payload margin = payload that the nominal vehicle "
                                         "(fixed propellant loads) carries to the sampled "
                                         "delta-v minus the required payload");
+      /* A vehicle that exists: its payload capability and its delta-v
+       * margin at the nominal payload (the liftoff mass is constant). */
+      json_builder_set_member_name (b, "all_fixed");
+      json_builder_add_boolean_value (b, mc.all_fixed);
+      json_builder_set_member_name (b, "outputs");
+      json_builder_begin_array (b);
+      if (mc.all_fixed)
+        {
+          json_builder_add_string_value (b, "payload_capability_kg");
+          json_builder_add_string_value (b, "delta_v_margin_m_s");
+        }
+      else
+        {
+          json_builder_add_string_value (b, "liftoff_mass_kg");
+          json_builder_add_string_value (b, "fixed_vehicle_payload_kg");
+        }
+      json_builder_end_array (b);
+      if (mc.all_fixed)
+        {
+          sw_cli_add_number (b, "nominal_payload_capability_kg", mc.nominal_capability_kg);
+          sw_cli_add_number (b, "nominal_delta_v_margin_m_s", mc.nominal_margin_m_s);
+          add_summary (b, "payload_capability_kg", &mc.payload);
+          add_summary (b, "delta_v_margin_m_s", &mc.margin);
+        }
+      else
+        {
+          json_builder_set_member_name (b, "payload_capability_kg");
+          json_builder_add_null_value (b);
+          json_builder_set_member_name (b, "delta_v_margin_m_s");
+          json_builder_add_null_value (b);
+        }
       sw_cli_finish_json (b);
       return SW_EXIT_OK;
     }
@@ -454,6 +503,33 @@ sw_cli_montecarlo (int argc, char **argv)
            spread_text (&mc.spreads.isp, "%", b1, sizeof b1),
            spread_text (&mc.spreads.structural_coefficient, "%", b2, sizeof b2),
            spread_text (&mc.spreads.losses, "m/s", b3, sizeof b3));
+  if (mc.all_fixed)
+    {
+      g_autofree char *res = sw_cli_format (mc.reserve_95_kg, 1);
+      g_autofree char *chance = sw_format_probability (a->montecarlo_success);
+
+      g_print (_("Every propellant load is fixed: the liftoff mass (%s kg) is the same in every "
+                 "sample, so the outputs are the payload capability and the delta-v margin at "
+                 "the nominal payload.\n\n"),
+               sw_cli_num (mc.nominal_liftoff_kg, 1));
+      print_summary (_("Payload capability (payload at which the vehicle's delta-v equals the "
+                       "sampled required delta-v)"),
+                     &mc.payload, "kg");
+      g_print (_("  nominal %s kg; nominal payload %s kg; reserve for 95 %% confidence: %s kg\n"),
+               sw_cli_num (mc.nominal_capability_kg, 1), sw_cli_num (mc.required_payload_kg, 1),
+               res);
+      g_print (_("  the nominal payload fits in %s of the samples\n"), chance);
+      if (mc.payload.n > 0 && mc.payload.min < 0.0)
+        g_print (_("  (a negative capability is the mass by which the vehicle falls short of "
+                   "the sampled delta-v even with no payload)\n"));
+      g_print ("\n");
+      print_summary (_("Delta-v margin at the nominal payload (the vehicle's delta-v less the "
+                       "sampled required delta-v)"),
+                     &mc.margin, "m/s");
+      g_print (_("  nominal %s m/s\n"), sw_cli_num (mc.nominal_margin_m_s, 1));
+      g_print ("\n%s\n", sw_format_cautions ());
+      return SW_EXIT_OK;
+    }
   print_summary ("Liftoff mass needed for the payload", &mc.liftoff, "kg");
   {
     g_autofree char *nom = sw_cli_format (mc.nominal_liftoff_kg, 1);

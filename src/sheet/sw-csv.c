@@ -193,8 +193,10 @@ sw_csv_tornado (const SwAnalysis *b)
 
   if (!b->has_sensitivity || !t->feasible)
     return NULL;
+  /* output: what the derivatives and steps are of (a vehicle whose every
+   * load is fixed has a constant liftoff mass: its payload capability). */
   s = sw_csv_begin ("rank,parameter,stage,label,value,derivative_kg_per_unit,elasticity,"
-                 "step_percent,minus_step_kg,plus_step_kg,exchange_ratio_kg_per_kg");
+                 "step_percent,minus_step_kg,plus_step_kg,exchange_ratio_kg_per_kg,output");
   for (guint r = 0; r < t->n_items; r++)
     {
       const SwSensitivity *it = &t->items[t->ranked[r]];
@@ -213,7 +215,8 @@ sw_csv_tornado (const SwAnalysis *b)
       csv_number (s, it->minus_kg, FALSE);
       csv_number (s, it->plus_kg, FALSE);
       csv_number (s, it->param == SW_SENS_STRUCTURAL_COEFFICIENT && it->stage >= 0
-                       ? t->exchange_ratio[it->stage] : NAN, TRUE);
+                       ? t->exchange_ratio[it->stage] : NAN, FALSE);
+      csv_text (s, t->capability ? "payload_capability_kg" : "liftoff_mass_kg", TRUE);
     }
   return g_string_free (s, FALSE);
 }
@@ -227,10 +230,14 @@ sw_csv_histogram (const SwAnalysis *b)
   if (!b->has_montecarlo)
     return NULL;
   s = sw_csv_begin ("quantity,bin,lower,upper,count");
-  for (guint q = 0; q < 2; q++)
+  /* A vehicle that exists: its liftoff mass is one value; its payload
+   * capability (the fixed vehicle's payload) and delta-v margin at the
+   * nominal payload are the outputs. */
+  for (guint q = mc->all_fixed ? 1 : 0; q < (mc->all_fixed ? 3u : 2u); q++)
     {
-      const SwMcSummary *sum = q == 0 ? &mc->liftoff : &mc->payload;
-      const char *name = q == 0 ? "liftoff_mass_kg" : "fixed_vehicle_payload_kg";
+      const SwMcSummary *sum = q == 0 ? &mc->liftoff : q == 1 ? &mc->payload : &mc->margin;
+      const char *name = q == 0 ? "liftoff_mass_kg"
+                         : q == 1 ? "fixed_vehicle_payload_kg" : "delta_v_margin_m_s";
       double width = (sum->bin_hi - sum->bin_lo) / SW_MC_BINS;
 
       for (guint i = 0; sum->n > 0 && i < SW_MC_BINS; i++)

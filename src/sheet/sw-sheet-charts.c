@@ -692,8 +692,11 @@ sw_sheet_draw_tornado (cairo_t *cr, const SwDesign *design, const SwSensitivityT
     g_autofree char *minus = sw_format_percent (-t->step, dec);
     g_autofree char *plus = sw_format_percent (t->step, dec);
     /* Translators: two steps such as "−5 %" and "5 %" */
-    g_autofree char *text = g_strdup_printf (_("liftoff mass change for each input at %s "
-                                               "(blue) and +%s (amber)"), minus, plus);
+    g_autofree char *text = t->capability
+                              ? g_strdup_printf (_("payload capability change for each input "
+                                                   "at %s (blue) and +%s (amber)"), minus, plus)
+                              : g_strdup_printf (_("liftoff mass change for each input at %s "
+                                                   "(blue) and +%s (amber)"), minus, plus);
     TextStyle st = sw_sheet_style_w (6.5, FALSE, MUTED, PANGO_ALIGN_CENTER, w);
     sw_sheet_text_at (cr, text, x, y + rows * row_h + 2.0, &st);
   }

@@ -293,7 +293,19 @@ draw_totals (const Page *p, const SwAnalysis *a, double x, double y, double w, d
   if (a->reliability.given)
     ADD_ROW (_("Mission success (reliability)"), sw_format_probability (a->reliability.mission),
              NULL, INK);
-  if (a->has_montecarlo && isfinite (a->montecarlo_success))
+  if (a->has_montecarlo && isfinite (a->montecarlo_success) && a->montecarlo.all_fixed)
+    {
+      /* A vehicle that exists: the chance its nominal payload fits, and the
+       * spread of its delta-v margin with that payload. */
+      g_autofree char *lo = sw_format_speed (a->montecarlo.margin.p05);
+      g_autofree char *hi = sw_format_speed (a->montecarlo.margin.p95);
+
+      ADD_ROW (_("Nominal payload fits"),
+               sw_format_probability (a->montecarlo_success), NULL,
+               a->montecarlo_success >= 0.95 ? GOOD : INK);
+      ADD_ROW (_("Δv margin, 5th to 95th"), g_strdup_printf ("%s – %s", lo, hi), NULL, INK);
+    }
+  else if (a->has_montecarlo && isfinite (a->montecarlo_success))
     {
       ADD_ROW (_("Payload fits, no reserve"),
                sw_format_probability (a->montecarlo_success), NULL,
@@ -514,7 +526,19 @@ draw_uncertainty (const Page *p, const SwAnalysis *a, double x, double y, double
   /* Translators: a sample count, then three spreads */
   spreads = g_strdup_printf (_("%s samples. Spreads: Isp %s, structural coefficient %s, "
                                "losses %s."), count, si, sc, sl);
-  if (isfinite (a->montecarlo_success))
+  if (mc->all_fixed && isfinite (a->montecarlo_success))
+    {
+      g_autofree char *chance = sw_format_probability (a->montecarlo_success);
+      g_autofree char *m05 = sw_format_speed (mc->margin.p05);
+      g_autofree char *m50 = sw_format_speed (mc->margin.p50);
+
+      /* Translators: a probability; two speeds */
+      line1 = g_strdup_printf (_("Every load fixed: one liftoff mass. The nominal payload fits "
+                                 "in %s of cases; Δv margin with it: %s (5th percentile), %s "
+                                 "(median)."),
+                               chance, m05, m50);
+    }
+  else if (isfinite (a->montecarlo_success))
     {
       g_autofree char *chance = sw_format_probability (a->montecarlo_success);
       g_autofree char *res = sw_format_mass (mc->reserve_95_kg);
@@ -528,6 +552,15 @@ draw_uncertainty (const Page *p, const SwAnalysis *a, double x, double y, double
     line1 = g_strdup (_("The nominal design is not feasible: no vehicle to test."));
   yy += text_at (cr, line1, x, yy, &st) + 1.0;
   yy += text_at (cr, spreads, x, yy, &mu) + 2.0;
+  if (mc->all_fixed)
+    {
+      tonnes = use_tonnes (mc->payload.bin_hi);
+      axis = g_strdup (tonnes ? _("capability, t (dashed: payload)")
+                              : _("capability, kg (dashed: payload)"));
+      sw_sheet_draw_histogram (cr, &mc->payload, mc->required_payload_kg, axis, x, yy, w,
+                               y + h - yy);
+      return;
+    }
   tonnes = use_tonnes (mc->liftoff.bin_hi);
   axis = g_strdup (tonnes ? _("liftoff mass, t (dashed: as designed)")
                           : _("liftoff mass, kg (dashed: as designed)"));
@@ -582,7 +615,7 @@ sw_sheet_draw_page (cairo_t *cr, const SwAnalysis *a, double width, double heigh
   /* The totals panel grows with its figures; the charts share the rest. */
   {
     guint rows = 8 + (a->reliability.given ? 1 : 0) + (a->has_montecarlo ? 2 : 0)
-                 + (a->ascent != NULL ? 3 : 0);
+                 + (a->ascent != NULL ? 3 : 0) + (a->has_performance ? 1 : 0);
     double needed = 60.0 + (has_baseline (a) ? 23.0 : 0.0) + rows * 11.0;
     top_h = CLAMP (needed, avail * 0.34, avail * 0.46);
   }
@@ -636,18 +669,16 @@ sw_sheet_draw_page (cairo_t *cr, const SwAnalysis *a, double width, double heigh
   /* Uncertainty and the ranked sensitivities. */
   draw_uncertainty (&p, a, p.x, y, col, bottom_h);
   {
-    double hy = heading (cr, _("What moves the liftoff mass most"), p.x + col + 18.0, y, col);
+    double hy = heading (cr, a->all_fixed ? _("What moves the payload capability most")
+                                          : _("What moves the liftoff mass most"),
+                         p.x + col + 18.0, y, col);
     if (a->has_sensitivity)
       sw_sheet_draw_tornado (cr, a->design, &a->sensitivity, 6, p.x + col + 18.0, y + hy + 2.0,
                              col, bottom_h - hy - 2.0);
-    else if (a->sizing.feasible && a->montecarlo_error[0] != '\0')
-      /* Feasible but left out (boosters, a fixed load): the reason. */
-      note_in_box (cr, a->montecarlo_error, p.x + col + 18.0, y + hy, col, bottom_h - hy);
     else
-      note_in_box (cr, a->sizing.n_fixed > 0
-                         ? _("No sensitivities: they resize every stage, and this design has a "
-                             "fixed propellant load.")
-                         : _("No sensitivities: the design is not feasible."),
+      note_in_box (cr, a->all_fixed ? _("No sensitivities: the vehicle carries no payload to "
+                                        "the mission.")
+                                    : _("No sensitivities: the design is not feasible."),
                    p.x + col + 18.0, y + hy, col, bottom_h - hy);
   }
   cairo_restore (cr);

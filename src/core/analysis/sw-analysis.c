@@ -336,19 +336,6 @@ update_verdict (SwAnalysis *r)
 
 /* The note of a design whose trade studies use its allowance as given; for a
  * simulate design, says it is the first guess and why. */
-/* A stage with a fixed propellant load: no sensitivities or Monte Carlo
- * (they resize every stage), so there is no loss basis to state. */
-static gboolean
-sizing_has_fixed (const SwSizing *sizing)
-{
-  if (sizing->boosters.present)
-    return TRUE;
-  for (guint i = 0; i < sizing->n_stages; i++)
-    if (sizing->stages[i].fixed)
-      return TRUE;
-  return FALSE;
-}
-
 static void
 note_trade_losses (SwAnalysis *r)
 {
@@ -359,8 +346,11 @@ note_trade_losses (SwAnalysis *r)
   r->trade_losses_simulated = FALSE;
   r->trade_losses_m_s = m->kind == SW_MISSION_ORBIT ? (m->has_losses ? m->losses_m_s : 0.0)
                                                     : NAN;
+  /* With boosters the trade studies are not run again with the closed
+   * loop's losses (each phased sizing takes milliseconds), so there is no
+   * loss basis to state (left as it was). */
   if (m->kind != SW_MISSION_ORBIT || m->loss_model != SW_LOSS_SIMULATE
-      || sizing_has_fixed (&r->sizing))
+      || r->sizing.boosters.present)
     return;
   v = sw_format_speed (r->trade_losses_m_s);
   if (r->ascent_pending)
@@ -496,22 +486,14 @@ prepare_trade (SwAnalysis *r)
   const SwDesign *design = r->design;
   g_autoptr (GError) error = NULL;
 
-  gboolean fixed = FALSE;
-
-  /* The sensitivities and the Monte Carlo resize every stage; with a fixed
-   * propellant load they would describe another vehicle, so they are left
-   * out and say why. */
-  for (guint i = 0; i < r->sizing.n_stages; i++)
-    fixed = fixed || r->sizing.stages[i].fixed;
   r->sensitivity_step = r->options.sensitivity_step;
-  /* With boosters both go through the phased sizing (sized boosters
-   * re-optimised, fixed ones kept). */
-  if (fixed)
-    g_strlcpy (r->montecarlo_error,
-               _("Sensitivities and the Monte Carlo are not computed for a design with a "
-                 "fixed propellant load: they resize every stage."),
-               sizeof r->montecarlo_error);
-  if (r->sizing.feasible && !fixed)
+  /* Both size every perturbed design as sw_size_design does: fixed loads
+   * kept, the sized stages (and sized boosters) re-sized.  A vehicle that
+   * exists (every load fixed) has a constant liftoff mass: its tables are of
+   * the payload capability and the delta-v margin, feasible or not at the
+   * nominal payload. */
+  r->all_fixed = sw_design_all_fixed (design);
+  if (r->sizing.feasible || r->all_fixed)
     r->has_sensitivity = sw_sensitivity_compute (design, r->sensitivity_step, &r->sensitivity,
                                                  NULL)
                          && r->sensitivity.feasible;
@@ -533,7 +515,7 @@ prepare_trade (SwAnalysis *r)
         g_strlcpy (r->baseline_error, error->message, sizeof r->baseline_error);
     }
   compare_with_baseline (r);
-  r->montecarlo_pending = r->options.montecarlo && !fixed
+  r->montecarlo_pending = r->options.montecarlo
                           && (r->options.montecarlo_always
                               || sw_uncertainty_has_spread (&design->uncertainty));
 }
@@ -650,8 +632,9 @@ sw_analysis_add_montecarlo (const SwAnalysis *prev, GCancellable *cancellable)
 
       looped->mission.losses_m_s = r->trade_losses_m_s;
       looped->mission.has_losses = TRUE;
-      /* ... and its fairing jettison point (sw-sizing.h). */
-      if (r->ascent != NULL && r->ascent->closed_loop)
+      /* ... and its fairing jettison point (sw-sizing.h); not for a vehicle
+       * that exists (see sw_analysis_add_ascent). */
+      if (r->ascent != NULL && r->ascent->closed_loop && !r->all_fixed)
         sw_ascent_apply_loop (looped, r->ascent);
       run_montecarlo (r, looped, cancellable);
     }
@@ -704,8 +687,6 @@ sw_analysis_add_ascent (const SwAnalysis *prev, GCancellable *cancellable)
   if (ascent->closed_loop && ascent->loop_converged && ascent->sizing.feasible
       && ascent->sizing.n_stages == prev->sizing.n_stages)
     {
-      gboolean fixed = sizing_has_fixed (&ascent->sizing);
-
       r->sizing = ascent->sizing;
       r->delta_v_m_s = ascent->sizing.delta_v_m_s;
       r->headroom_m_s = r->sizing.margin_m_s;
@@ -722,15 +703,24 @@ sw_analysis_add_ascent (const SwAnalysis *prev, GCancellable *cancellable)
       r->has_stage_figures = sw_ascent_stage_figures (r->design, &r->sizing, r->stage_figures,
                                                       NULL);
       /* One loss model everywhere: the trade studies again, with the
-       * closed loop's losses (the design as sized by the loop); a fixed
-       * propellant load has none (see prepare_trade). */
-      if (!fixed)
+       * closed loop's losses (the design as sized by the loop); not with
+       * boosters (see note_trade_losses). */
+      if (!ascent->sizing.boosters.present)
         {
           g_autoptr (SwDesign) looped = sw_design_copy (r->design);
           g_autofree char *v = NULL;
 
-          /* The loop's losses and its fairing jettison point (sw-sizing.h). */
-          sw_ascent_apply_loop (looped, ascent);
+          /* The loop's losses and its fairing jettison point (sw-sizing.h).
+           * A vehicle that exists: the losses only, as its payload
+           * capability in the totals takes them (performance_with_loop_losses),
+           * so that the tables start from the figure shown. */
+          if (r->all_fixed)
+            {
+              looped->mission.losses_m_s = ascent->loop_sized_losses_m_s;
+              looped->mission.has_losses = TRUE;
+            }
+          else
+            sw_ascent_apply_loop (looped, ascent);
           /* The estimated coefficients of the vehicle as the loop sized it. */
           sw_mass_estimate_design (looped, &r->mass_estimate);
           r->has_sensitivity = sw_sensitivity_compute (looped, r->sensitivity_step,

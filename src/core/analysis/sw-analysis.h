@@ -141,9 +141,14 @@ struct _SwAnalysis {
    * simulation that found a steering). */
   double    simulated_margin_m_s;
 
-  /* Trade studies. */
+  /* Trade studies.  all_fixed: every load is fixed (sw_design_all_fixed),
+   * so the liftoff mass is constant: the sensitivities are of the payload
+   * capability (sensitivity.capability) and the Monte Carlo gives the
+   * capability and the delta-v margin at the nominal payload
+   * (montecarlo.all_fixed), computed whether or not the payload fits. */
+  gboolean  all_fixed;
   double    sensitivity_step;  /* the tornado's relative step */
-  gboolean  has_sensitivity;   /* the sizing closes */
+  gboolean  has_sensitivity;   /* the sizing closes (all_fixed: the capability is positive) */
   SwSensitivityTable sensitivity;
   SwReliability reliability;   /* .given: some stage has reliability keys */
   SwReliabilityCurve reliability_curve;

@@ -213,3 +213,96 @@ sw_design_performance (const SwDesign *design, SwPerformance *out, GError **erro
   sw_size_with_fixed (&set, fixed_kg, payload, dv, design->split, &out->sizing);
   return TRUE;
 }
+
+gboolean
+sw_design_all_fixed (const SwDesign *design)
+{
+  g_return_val_if_fail (design != NULL, FALSE);
+
+  if (design->n_stages == 0)
+    return FALSE;
+  for (guint i = 0; i < design->n_stages; i++)
+    if (!design->stages[i].propellant.has_propellant_kg)
+      return FALSE;
+  return design->boosters.count == 0 || design->boosters.propellant.has_propellant_kg;
+}
+
+static gboolean
+serial_of_fixed_loads (const SwParallelVehicle *v, SwFixedVehicle *out)
+{
+  memset (out, 0, sizeof *out);
+  out->n_stages = v->set.n_stages;
+  out->fairing = v->set.fairing;
+  for (guint i = 0; i < v->set.n_stages; i++)
+    {
+      double eps = v->set.structural_coefficient[i];
+
+      if (!(v->fixed_kg[i] > 0.0) || !(eps < 1.0))
+        return FALSE;
+      out->exhaust_velocity_m_s[i] = v->set.exhaust_velocity_m_s[i];
+      out->propellant_mass_kg[i] = v->fixed_kg[i];
+      out->structural_mass_kg[i] = v->fixed_kg[i] * eps / (1.0 - eps);
+    }
+  return TRUE;
+}
+
+double
+sw_fixed_loads_payload (const SwParallelVehicle *v, double delta_v_m_s)
+{
+  SwFixedVehicle f;
+  double p = NAN;
+
+  g_return_val_if_fail (v != NULL, NAN);
+
+  if (v->count > 0)
+    return sw_parallel_payload (v, delta_v_m_s, &p, NULL) ? p : NAN;
+  if (!serial_of_fixed_loads (v, &f) || !sw_fixed_vehicle_payload (&f, delta_v_m_s, &p))
+    return NAN;
+  return p;
+}
+
+double
+sw_fixed_loads_delta_v (const SwParallelVehicle *v, double payload_kg)
+{
+  SwFixedVehicle f;
+  double dv = NAN;
+
+  g_return_val_if_fail (v != NULL, NAN);
+
+  if (v->count > 0)
+    {
+      if (!(v->booster_fixed_kg > 0.0) || !(v->fixed_kg[0] > 0.0)
+          || !isfinite (sw_parallel_liftoff_mass (v, payload_kg, v->booster_fixed_kg,
+                                                  v->fixed_kg[0], 0.0, &dv)))
+        return NAN;
+      for (guint i = 1; i < v->set.n_stages; i++)
+        if (!(v->fixed_kg[i] > 0.0))
+          return NAN;
+      return dv;
+    }
+  if (!serial_of_fixed_loads (v, &f))
+    return NAN;
+  return sw_fixed_vehicle_delta_v (&f, payload_kg);
+}
+
+double
+sw_fixed_loads_liftoff_mass (const SwParallelVehicle *v, double payload_kg)
+{
+  double m = payload_kg + MAX (v->set.fairing.mass_kg, 0.0);
+
+  g_return_val_if_fail (v != NULL, NAN);
+
+  for (guint i = 0; i < v->set.n_stages; i++)
+    {
+      if (!(v->fixed_kg[i] > 0.0))
+        return NAN;
+      m += v->fixed_kg[i] / (1.0 - v->set.structural_coefficient[i]);
+    }
+  if (v->count > 0)
+    {
+      if (!(v->booster_fixed_kg > 0.0))
+        return NAN;
+      m += v->count * v->booster_fixed_kg / (1.0 - v->booster_structural_coefficient);
+    }
+  return m;
+}

@@ -4,6 +4,7 @@
  * (sw-propellant.h) and diameter. */
 #pragma once
 
+#include "sw-booster-sizing.h"
 #include "sw-propellant.h"
 #include "sw-sizing.h"
 
@@ -68,5 +69,25 @@ typedef struct {
 } SwPerformance;
 
 gboolean sw_design_performance (const SwDesign *design, SwPerformance *out, GError **error);
+
+/* TRUE when every stage, and the boosters when there are any, has a fixed
+ * propellant load: a vehicle that exists, whose liftoff mass the sizing does
+ * not change (its outputs are the payload capability and the delta-v margin). */
+gboolean sw_design_all_fixed (const SwDesign *design);
+
+/* A vehicle of fixed loads as the phased vehicle (sw-booster-sizing.h)
+ * carries it: every fixed_kg > 0, and booster_fixed_kg > 0 with boosters
+ * (each structure load eps / (1 - eps), the set's fairing).  The payload it
+ * carries to @delta_v_m_s: without boosters the serial rocket equation
+ * (sw_fixed_vehicle_payload; may be negative: short even empty, by that
+ * mass), with boosters sw_parallel_payload (NAN when short even empty).
+ * NAN when a load is not fixed. */
+double   sw_fixed_loads_payload (const SwParallelVehicle *v, double delta_v_m_s);
+/* The delta-v of that vehicle with @payload_kg on top (NAN when a burnout
+ * mass is not positive or a load is not fixed). */
+double   sw_fixed_loads_delta_v (const SwParallelVehicle *v, double payload_kg);
+/* Its liftoff mass with @payload_kg: the payload, the fairing, every stage's
+ * and booster's load over (1 - eps); whether or not it reaches a mission. */
+double   sw_fixed_loads_liftoff_mass (const SwParallelVehicle *v, double payload_kg);
 
 G_END_DECLS

@@ -589,6 +589,22 @@ fixed_infeasible (SwSizing *out, guint n)
     }
 }
 
+/* Every fixed stage above (firing after) every sized one. */
+static gboolean
+fixed_on_top (const SwStageSet *set, const double *fixed_kg)
+{
+  gboolean seen_fixed = FALSE;
+
+  for (guint i = 0; i < set->n_stages; i++)
+    {
+      if (is_fixed (fixed_kg, i))
+        seen_fixed = TRUE;
+      else if (seen_fixed)
+        return FALSE;
+    }
+  return seen_fixed;
+}
+
 static void
 size_fixed (const SwStageSet *set, const double *fixed_kg, const SwDesign *names,
             double payload_kg, double delta_v_m_s, SwSplitMode split, SwSizing *out)
@@ -659,6 +675,14 @@ size_fixed (const SwStageSet *set, const double *fixed_kg, const SwDesign *names
       fixed_infeasible (out, n);
       return;
     }
+  else if (total0 < delta_v_m_s && fixed_on_top (set, fixed_kg)
+           && delta_v_m_s - total0 < d_max
+           && fabs (fixed_residual (delta_v_m_s - total0, &fp)) <= 1e-12 * delta_v_m_s)
+    /* Every fixed stage fires after every sized one: the fixed stages'
+     * delta-v does not depend on the sized stages below them, so the sized
+     * stages give exactly the rest (no search; the Monte Carlo sizes
+     * thousands of such vehicles). */
+    d = delta_v_m_s - total0;
   else if (total0 < delta_v_m_s)
     {
       /* Scan up from D = 0 to the first point that reaches the requirement

@@ -138,7 +138,9 @@ void     sw_size (const SwStageSet *set, double payload_kg, double delta_v_m_s,
  *            carry a fixed payload); with a fixed stage below a sized one it
  *            is the sized stages' own optimum, not the vehicle's.
  * The sized stages' delta-v D solves D + sum of the fixed stages' delta-v(D)
- * = @delta_v_m_s (a scan from D = 0, then Brent's method, GSL).  Fixed stages
+ * = @delta_v_m_s (a scan from D = 0, then Brent's method, GSL; with every
+ * fixed stage above every sized one the fixed stages' delta-v does not depend
+ * on D, and D is the rest directly).  Fixed stages
  * that alone give more than @delta_v_m_s with the sized stages empty, or a
  * vehicle that never reaches it, are infeasible answers with a reason.  With
  * every stage fixed the vehicle is feasible when it reaches @delta_v_m_s;

@@ -7,6 +7,7 @@
 
 #include "sw-booster-sizing.h"
 #include "sw-fixed-vehicle.h"
+#include "sw-phases.h"
 #include "sw-sizing.h"
 
 #include <glib/gi18n-lib.h>
@@ -31,6 +32,13 @@ typedef struct {
   gboolean       parallel;
   SwParallelVehicle pv;
   SwParallelVehicle pv_fixed;  /* every load at its nominal value (question 2) */
+  /* A serial design with a fixed load: question 1 through sw_size_with_fixed. */
+  gboolean       has_fixed;
+  double         fixed_kg[SW_MAX_STAGES];
+  /* Every load fixed: question 2 and the margin from the design's loads. */
+  gboolean       all_fixed;
+  SwParallelVehicle pv_all;
+  double        *margin;       /* per sample when all_fixed, else NULL */
   guint          samples;
   guint32        seed;
   double        *liftoff;      /* per sample, NAN when infeasible */
@@ -74,6 +82,26 @@ run_sample (const McJob *job, gsl_rng *r, guint index)
         }
     }
 
+  if (job->all_fixed && job->payload != NULL)
+    {
+      SwParallelVehicle w = job->pv_all;
+
+      w.set.n_stages = s.n_stages;
+      for (guint i = 0; i < s.n_stages; i++)
+        {
+          w.set.exhaust_velocity_m_s[i] = s.exhaust_velocity_m_s[i];
+          w.set.structural_coefficient[i] = s.structural_coefficient[i];
+        }
+      if (job->parallel)
+        {
+          w.booster_exhaust_velocity_m_s = booster_c;
+          w.booster_structural_coefficient = booster_eps;
+        }
+      job->payload[index] = sw_fixed_loads_payload (&w, dv);
+      if (job->margin != NULL)
+        job->margin[index] = sw_fixed_loads_delta_v (&w, job->payload_kg) - dv;
+    }
+
   if (job->parallel)
     {
       SwParallelVehicle w = job->pv;
@@ -84,7 +112,7 @@ run_sample (const McJob *job, gsl_rng *r, guint index)
       w.booster_structural_coefficient = booster_eps;
       sw_size_parallel (&w, job->payload_kg, dv, job->split, &sizing);
       job->liftoff[index] = sizing.feasible ? sizing.liftoff_mass_kg : NAN;
-      if (job->payload != NULL)
+      if (job->payload != NULL && !job->all_fixed)
         {
           double p = NAN;
 
@@ -103,26 +131,34 @@ run_sample (const McJob *job, gsl_rng *r, guint index)
       return;
     }
 
-  switch (job->split)
+  if (job->has_fixed)
     {
-    case SW_SPLIT_EQUAL:
-      for (guint i = 0; i < s.n_stages; i++)
-        dvs[i] = dv / s.n_stages;
-      break;
-    case SW_SPLIT_MANUAL:
-      for (guint i = 0; i < s.n_stages; i++)
-        dvs[i] = s.share[i] * dv;
-      break;
-    case SW_SPLIT_OPTIMAL:
-    default:
-      ok = sw_optimal_split (&s, dv, dvs, NULL);
-      break;
+      SwSizing sizing;
+
+      sw_size_with_fixed (&s, job->fixed_kg, job->payload_kg, dv, job->split, &sizing);
+      m = sizing.feasible ? sizing.liftoff_mass_kg : NAN;
     }
-  if (ok)
+  else
+    switch (job->split)
+      {
+      case SW_SPLIT_EQUAL:
+        for (guint i = 0; i < s.n_stages; i++)
+          dvs[i] = dv / s.n_stages;
+        break;
+      case SW_SPLIT_MANUAL:
+        for (guint i = 0; i < s.n_stages; i++)
+          dvs[i] = s.share[i] * dv;
+        break;
+      case SW_SPLIT_OPTIMAL:
+      default:
+        ok = sw_optimal_split (&s, dv, dvs, NULL);
+        break;
+      }
+  if (ok && !job->has_fixed)
     m = sw_liftoff_mass_for_split (&s, job->payload_kg, dvs);
   job->liftoff[index] = isfinite (m) ? m : NAN;
 
-  if (job->payload != NULL)
+  if (job->payload != NULL && !job->all_fixed)
     {
       SwFixedVehicle v = job->vehicle;
       double p = NAN;
@@ -255,6 +291,19 @@ prepare (const SwDesign *design, const SwUncertainty *spreads, gboolean band, Mc
       job->parallel = TRUE;
     }
   sw_stage_set_from_design (&job->set, design);
+  /* The band is the stage-count curve's, which sizes every stage. */
+  for (guint i = 0; !band && !job->parallel && i < design->n_stages; i++)
+    if (design->stages[i].propellant.has_propellant_kg)
+      {
+        job->has_fixed = TRUE;
+        job->fixed_kg[i] = design->stages[i].propellant.propellant_kg;
+      }
+  if (!band && sw_design_all_fixed (design))
+    {
+      if (!sw_parallel_vehicle_from_design (&job->pv_all, design, error))
+        return FALSE;
+      job->all_fixed = TRUE;
+    }
   job->split = design->split;
   job->payload_kg = design->payload_kg;
   job->delta_v_m_s = sizing->delta_v_m_s;
@@ -271,6 +320,21 @@ sw_montecarlo_run (const SwDesign *design, const SwUncertainty *spreads, guint s
                                         liftoff_samples, payload_samples, NULL, error);
 }
 
+static gboolean run_full (const SwDesign *design, const SwUncertainty *spreads, guint samples,
+                          gboolean use_seed, guint32 seed, guint threads, SwMonteCarlo *out,
+                          double *liftoff_samples, double *payload_samples,
+                          double *margin_samples, GCancellable *cancellable, GError **error);
+
+gboolean
+sw_montecarlo_run_margins (const SwDesign *design, const SwUncertainty *spreads, guint samples,
+                           gboolean use_seed, guint32 seed, guint threads, SwMonteCarlo *out,
+                           double *liftoff_samples, double *payload_samples,
+                           double *margin_samples, GError **error)
+{
+  return run_full (design, spreads, samples, use_seed, seed, threads, out, liftoff_samples,
+                   payload_samples, margin_samples, NULL, error);
+}
+
 gboolean
 sw_montecarlo_run_cancellable (const SwDesign *design, const SwUncertainty *spreads,
                                guint samples, gboolean use_seed, guint32 seed, guint threads,
@@ -278,9 +342,19 @@ sw_montecarlo_run_cancellable (const SwDesign *design, const SwUncertainty *spre
                                double *payload_samples, GCancellable *cancellable,
                                GError **error)
 {
+  return run_full (design, spreads, samples, use_seed, seed, threads, out, liftoff_samples,
+                   payload_samples, NULL, cancellable, error);
+}
+
+static gboolean
+run_full (const SwDesign *design, const SwUncertainty *spreads, guint samples,
+          gboolean use_seed, guint32 seed, guint threads, SwMonteCarlo *out,
+          double *liftoff_samples, double *payload_samples, double *margin_samples,
+          GCancellable *cancellable, GError **error)
+{
   McJob job;
   SwSizing sizing;
-  g_autofree double *liftoff = NULL, *payload = NULL;
+  g_autofree double *liftoff = NULL, *payload = NULL, *margin = NULL;
   guint infeasible = 0, short_of = 0;
 
   g_return_val_if_fail (design != NULL && out != NULL, FALSE);
@@ -310,6 +384,12 @@ sw_montecarlo_run_cancellable (const SwDesign *design, const SwUncertainty *spre
     }
   else
     job.have_vehicle = sw_fixed_vehicle_from_sizing (&job.vehicle, &sizing);
+  /* A vehicle that exists is tested whether or not the payload fits. */
+  if (job.all_fixed)
+    {
+      job.have_vehicle = TRUE;
+      margin = job.margin = g_new (double, job.samples);
+    }
   if (job.have_vehicle)
     payload = job.payload = g_new (double, job.samples);
 
@@ -344,12 +424,27 @@ sw_montecarlo_run_cancellable (const SwDesign *design, const SwUncertainty *spre
     }
   else
     sw_mc_summarise (NULL, 0, &out->payload);
+  out->all_fixed = job.all_fixed;
+  out->nominal_capability_kg = NAN;
+  out->nominal_margin_m_s = NAN;
+  sw_mc_summarise (margin, margin != NULL ? job.samples : 0, &out->margin);
+  if (job.all_fixed)
+    {
+      out->nominal_capability_kg = sw_fixed_loads_payload (&job.pv_all, sizing.delta_v_m_s);
+      out->nominal_margin_m_s = sw_fixed_loads_delta_v (&job.pv_all, design->payload_kg)
+                                - sizing.delta_v_m_s;
+      /* The one liftoff mass, whether or not the nominal payload fits. */
+      out->nominal_liftoff_kg = sw_fixed_loads_liftoff_mass (&job.pv_all, design->payload_kg);
+    }
 
   if (liftoff_samples != NULL)
     memcpy (liftoff_samples, liftoff, job.samples * sizeof *liftoff);
   if (payload_samples != NULL)
     for (guint i = 0; i < job.samples; i++)
       payload_samples[i] = payload != NULL ? payload[i] : NAN;
+  if (margin_samples != NULL)
+    for (guint i = 0; i < job.samples; i++)
+      margin_samples[i] = margin != NULL ? margin[i] : NAN;
   return TRUE;
 }
 

@@ -15,6 +15,15 @@
  * (same spreads) and both questions go through the phased vehicle
  * (sw_size_parallel: sized boosters re-optimised per sample, fixed ones kept;
  * sw_parallel_payload for question 2).
+ * A stage with a fixed propellant load (propellant_kg) keeps it in question
+ * 1: each sample is sized as sw_size_design sizes it (sw_size_with_fixed),
+ * the sized stages taking the rest of the delta-v.
+ * A vehicle that exists (every load fixed, sw_design_all_fixed) has one
+ * liftoff mass whatever the sample: its outputs are question 2's payload,
+ * which is then its payload capability, taken from the design's loads
+ * whether or not the nominal payload fits, and the delta-v margin at the
+ * required payload (the vehicle's delta-v with that payload less the
+ * sampled required delta-v; SwMonteCarlo.margin).
  *
  * Samples run in blocks of SW_MC_BLOCK on all cores; each block draws from its
  * own GSL generator seeded from (seed, block index), every sample is stored
@@ -50,7 +59,7 @@ typedef struct {
   guint    threads;                 /* threads used */
   SwUncertainty spreads;            /* the spreads used */
   gboolean nominal_feasible;
-  double   nominal_liftoff_kg;      /* NAN when infeasible */
+  double   nominal_liftoff_kg;      /* NAN when infeasible (every load fixed: always given) */
   double   required_payload_kg;
   double   nominal_delta_v_m_s;
   /* Question 1 over the feasible samples. */
@@ -60,6 +69,12 @@ typedef struct {
   SwMcSummary payload;
   double   p_negative_margin;       /* fraction of samples with payload < required */
   double   reserve_95_kg;           /* required - p05 of payload: the reserve for 95 % */
+  /* Every load fixed (sw_design_all_fixed): payload is the capability, and
+   * margin the delta-v margin at the required payload (m/s; n = 0 otherwise). */
+  gboolean all_fixed;
+  SwMcSummary margin;
+  double   nominal_capability_kg;   /* the nominal vehicle's; NAN unless all_fixed */
+  double   nominal_margin_m_s;      /* ... its delta-v margin at the required payload */
 } SwMonteCarlo;
 
 /* The stage-count band: liftoff-mass percentiles of the N-stage vehicle of
@@ -77,6 +92,9 @@ typedef struct {
 } SwMcBand;
 
 /* Runs the design's spreads (@spreads overrides them when not NULL).
+ * sw_montecarlo_run_margins: the same, with @margin_samples (may be NULL)
+ * receiving every sample's delta-v margin of a vehicle that exists (NAN
+ * otherwise). 
  * @samples and @seed override the design's when @samples > 0 / @use_seed;
  * @threads 0 = all cores.  @liftoff_samples and @payload_samples, when not
  * NULL, receive every sample in index order (NAN for an infeasible one);
@@ -85,6 +103,12 @@ gboolean sw_montecarlo_run (const SwDesign *design, const SwUncertainty *spreads
                             guint samples, gboolean use_seed, guint32 seed, guint threads,
                             SwMonteCarlo *out, double *liftoff_samples,
                             double *payload_samples, GError **error);
+
+gboolean sw_montecarlo_run_margins (const SwDesign *design, const SwUncertainty *spreads,
+                                    guint samples, gboolean use_seed, guint32 seed,
+                                    guint threads, SwMonteCarlo *out, double *liftoff_samples,
+                                    double *payload_samples, double *margin_samples,
+                                    GError **error);
 
 gboolean sw_montecarlo_band (const SwDesign *design, const SwUncertainty *spreads,
                              guint max_stages, guint samples, guint32 seed, guint threads,

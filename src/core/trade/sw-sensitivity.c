@@ -7,6 +7,7 @@
 
 #include "sw-booster-sizing.h"
 #include "sw-fixed-vehicle.h"
+#include "sw-phases.h"
 
 #include <glib/gi18n-lib.h>
 #include <math.h>
@@ -48,9 +49,11 @@ sw_sensitivity_analytic (const SwStageSet *set, const SwSizing *sizing, double *
     *d_payload = m0 / sizing->payload_kg;
 }
 
+/* @fixed_kg (NULL: none) the design's fixed loads, as sw_size_design takes
+ * them (sw_size_with_fixed). */
 static double
-perturbed_mass (const SwStageSet *set, double payload, double dv, SwSplitMode split,
-                SwSensParam param, int stage, double factor)
+perturbed_mass_fixed (const SwStageSet *set, const double *fixed_kg, double payload, double dv,
+                      SwSplitMode split, SwSensParam param, int stage, double factor)
 {
   SwStageSet s = *set;
   SwSizing sizing;
@@ -73,8 +76,18 @@ perturbed_mass (const SwStageSet *set, double payload, double dv, SwSplitMode sp
     }
   if (!(s.structural_coefficient[MAX (stage, 0)] < 1.0))
     return NAN;
-  sw_size (&s, payload, dv, split, &sizing);
+  if (fixed_kg != NULL)
+    sw_size_with_fixed (&s, fixed_kg, payload, dv, split, &sizing);
+  else
+    sw_size (&s, payload, dv, split, &sizing);
   return sizing.feasible ? sizing.liftoff_mass_kg : NAN;
+}
+
+static double
+perturbed_mass (const SwStageSet *set, double payload, double dv, SwSplitMode split,
+                SwSensParam param, int stage, double factor)
+{
+  return perturbed_mass_fixed (set, NULL, payload, dv, split, param, stage, factor);
 }
 
 static double
@@ -250,62 +263,185 @@ compute_with_boosters (const SwDesign *design, const SwSizing *sizing, double st
   return TRUE;
 }
 
-static int
-compare_effect (gconstpointer a, gconstpointer b, gpointer data)
-{
-  const SwSensitivityTable *t = data;
-  double ea = t->items[*(const guint *) a].effect_kg, eb = t->items[*(const guint *) b].effect_kg;
+/* ---- a serial design with a fixed propellant load ------------------------ */
 
-  if (ea != eb)
-    return ea > eb ? -1 : 1;
-  /* Stable order for ties: the table order. */
-  return (int) *(const guint *) a - (int) *(const guint *) b;
-}
-
-gboolean
-sw_sensitivity_compute (const SwDesign *design, double step, SwSensitivityTable *out,
-                        GError **error)
+/* Re-sized as sw_size_design sizes it; derivatives by central differences
+ * (the analytic forms assume every stage sized). */
+static void
+compute_with_fixed (const SwDesign *design, const SwSizing *sizing, double step,
+                    SwSensitivityTable *out)
 {
   SwStageSet set;
-  SwSizing sizing;
-  SwFixedVehicle vehicle;
-  double d_payload, d_dv, d_isp[SW_MAX_STAGES], d_eps[SW_MAX_STAGES];
-  double added;
-
-  g_return_val_if_fail (design != NULL && out != NULL, FALSE);
-
-  memset (out, 0, sizeof *out);
-  if (!(step > 0.0 && step < 1.0))
-    {
-      g_set_error (error, SW_ERROR, SW_ERROR_USAGE,
-                   _("The sensitivity step must lie between 0 and 100 percent, not %g percent."),
-                   step * 100.0);
-      return FALSE;
-    }
-  if (!sw_size_design (design, &sizing, error))
-    return FALSE;
-  out->step = step;
-  out->feasible = sizing.feasible;
-  out->liftoff_mass_kg = sizing.liftoff_mass_kg;
-  out->payload_kg = sizing.payload_kg;
-  out->delta_v_m_s = sizing.delta_v_m_s;
-  out->n_stages = sizing.n_stages;
-  for (guint i = 0; i < SW_MAX_STAGES; i++)
-    out->exchange_ratio[i] = NAN;
-  if (!sizing.feasible)
-    return TRUE;
-
-  if (design->boosters.count > 0)
-    {
-      if (!compute_with_boosters (design, &sizing, step, out, error))
-        return FALSE;
-      goto rank;
-    }
+  double fixed_kg[SW_MAX_STAGES] = { 0 };
+  double payload = sizing->payload_kg, dv = sizing->delta_v_m_s, h = SW_SENSITIVITY_FD_STEP;
 
   sw_stage_set_from_design (&set, design);
-  sw_sensitivity_analytic (&set, &sizing, &d_payload, &d_dv, d_isp, d_eps);
-
+  for (guint i = 0; i < design->n_stages; i++)
+    fixed_kg[i] = design->stages[i].propellant.has_propellant_kg
+                    ? design->stages[i].propellant.propellant_kg : 0.0;
   for (int k = -2; k < 2 * (int) set.n_stages; k++)
+    {
+      SwSensitivity *it = &out->items[out->n_items++];
+      double m_minus, m_plus;
+
+      it->stage = -1;
+      if (k == -2)
+        it->param = SW_SENS_PAYLOAD;
+      else if (k == -1)
+        it->param = SW_SENS_DELTA_V;
+      else
+        {
+          it->stage = k / 2;
+          it->param = k % 2 == 0 ? SW_SENS_ISP : SW_SENS_STRUCTURAL_COEFFICIENT;
+        }
+      it->value = nominal_value (&set, payload, dv, it->param, it->stage);
+      it->derivative = (perturbed_mass_fixed (&set, fixed_kg, payload, dv, design->split,
+                                              it->param, it->stage, 1.0 + h)
+                        - perturbed_mass_fixed (&set, fixed_kg, payload, dv, design->split,
+                                                it->param, it->stage, 1.0 - h))
+                       / (2.0 * h * it->value);
+      it->elasticity = it->value / sizing->liftoff_mass_kg * it->derivative;
+      m_minus = perturbed_mass_fixed (&set, fixed_kg, payload, dv, design->split, it->param,
+                                      it->stage, 1.0 - step);
+      m_plus = perturbed_mass_fixed (&set, fixed_kg, payload, dv, design->split, it->param,
+                                     it->stage, 1.0 + step);
+      it->minus_feasible = isfinite (m_minus);
+      it->plus_feasible = isfinite (m_plus);
+      it->minus_kg = m_minus - sizing->liftoff_mass_kg;
+      it->plus_kg = m_plus - sizing->liftoff_mass_kg;
+      it->effect_kg = it->minus_feasible && it->plus_feasible
+                        ? MAX (fabs (it->minus_kg), fabs (it->plus_kg)) : INFINITY;
+    }
+}
+
+/* ---- a vehicle that exists: the payload capability ---------------------- */
+
+/* The capability with one input times @factor; NAN when it is not positive
+ * (the vehicle then carries no payload to the mission). */
+static double
+capability_of (const SwParallelVehicle *v, double dv, SwSensParam param, int stage,
+               double factor)
+{
+  SwParallelVehicle w = *v;
+  double eps = 0.0, p;
+
+  switch (param)
+    {
+    case SW_SENS_DELTA_V:
+      dv *= factor;
+      break;
+    case SW_SENS_ISP:
+      w.set.exhaust_velocity_m_s[stage] *= factor;
+      break;
+    case SW_SENS_STRUCTURAL_COEFFICIENT:
+      eps = w.set.structural_coefficient[stage] *= factor;
+      break;
+    case SW_SENS_BOOSTER_ISP:
+      w.booster_exhaust_velocity_m_s *= factor;
+      break;
+    case SW_SENS_BOOSTER_STRUCTURAL_COEFFICIENT:
+      eps = w.booster_structural_coefficient *= factor;
+      break;
+    case SW_SENS_PAYLOAD:
+    default:
+      break;
+    }
+  if (!(eps < 1.0))
+    return NAN;
+  p = sw_fixed_loads_payload (&w, dv);
+  return p > 0.0 ? p : NAN;
+}
+
+static gboolean
+compute_capability (const SwDesign *design, double step, SwSensitivityTable *out,
+                    GError **error)
+{
+  SwParallelVehicle v;
+  SwPerformance perf;
+  SwSizing at_cap;
+  SwFixedVehicle vehicle;
+  double dv, cap, h = SW_SENSITIVITY_FD_STEP;
+  int n_items;
+
+  if (!sw_design_performance (design, &perf, error)
+      || !sw_parallel_vehicle_from_design (&v, design, error))
+    return FALSE;
+  out->capability = TRUE;
+  out->feasible = perf.reachable;
+  /* Defined whether or not the nominal payload fits. */
+  out->liftoff_mass_kg = sw_fixed_loads_liftoff_mass (&v, design->payload_kg);
+  out->payload_capability_kg = perf.payload_kg;
+  dv = out->delta_v_m_s = perf.delta_v_m_s;
+  if (!perf.reachable)
+    return TRUE;
+  cap = perf.payload_kg;
+  /* The delta-v, each stage's Isp and eps, the boosters' two. */
+  n_items = 1 + 2 * (int) v.set.n_stages + (v.count > 0 ? 2 : 0);
+  for (int k = 0; k < n_items; k++)
+    {
+      SwSensitivity *it = &out->items[out->n_items++];
+      double p_minus, p_plus;
+
+      it->stage = -1;
+      if (k == 0)
+        it->param = SW_SENS_DELTA_V;
+      else if (k - 1 < 2 * (int) v.set.n_stages)
+        {
+          it->stage = (k - 1) / 2;
+          it->param = (k - 1) % 2 == 0 ? SW_SENS_ISP : SW_SENS_STRUCTURAL_COEFFICIENT;
+        }
+      else
+        it->param = (k - 1) % 2 == 0 ? SW_SENS_BOOSTER_ISP
+                                     : SW_SENS_BOOSTER_STRUCTURAL_COEFFICIENT;
+      it->value = parallel_value (&v, design->payload_kg, dv, it->param, it->stage);
+      it->derivative = (capability_of (&v, dv, it->param, it->stage, 1.0 + h)
+                        - capability_of (&v, dv, it->param, it->stage, 1.0 - h))
+                       / (2.0 * h * it->value);
+      it->elasticity = it->value / cap * it->derivative;
+      p_minus = capability_of (&v, dv, it->param, it->stage, 1.0 - step);
+      p_plus = capability_of (&v, dv, it->param, it->stage, 1.0 + step);
+      it->minus_feasible = isfinite (p_minus);
+      it->plus_feasible = isfinite (p_plus);
+      it->minus_kg = p_minus - cap;
+      it->plus_kg = p_plus - cap;
+      it->effect_kg = it->minus_feasible && it->plus_feasible
+                        ? MAX (fabs (it->minus_kg), fabs (it->plus_kg)) : INFINITY;
+    }
+  /* The exchange ratios at the capability (the payload that just reaches
+   * the required delta-v), as for any vehicle with its loads fixed; sized a
+   * hair below it, so that the sizing closes whatever the root's last bit. */
+  if (v.count > 0)
+    sw_size_parallel (&v, cap * (1.0 - 1e-9), dv, design->split, &at_cap);
+  else
+    sw_size_with_fixed (&v.set, v.fixed_kg, cap * (1.0 - 1e-9), dv, design->split, &at_cap);
+  if (!at_cap.feasible)
+    return TRUE;
+  if (v.count > 0)
+    parallel_exchange_ratios (&v, &at_cap, out->exchange_ratio);
+  else if (sw_fixed_vehicle_from_sizing (&vehicle, &at_cap))
+    {
+      double added = 1e-4 * at_cap.liftoff_mass_kg;
+
+      for (guint i = 0; i < vehicle.n_stages; i++)
+        added = MIN (added, 0.01 * vehicle.structural_mass_kg[i]);
+      added = MAX (added, 1e-6 * at_cap.liftoff_mass_kg);
+      if (!sw_fixed_vehicle_exchange_ratios (&vehicle, dv, added, out->exchange_ratio))
+        for (guint i = 0; i < SW_MAX_STAGES; i++)
+          out->exchange_ratio[i] = NAN;
+    }
+  return TRUE;
+}
+
+/* Every stage sized: the analytic derivatives, the tornado by re-sizing. */
+static void
+analytic_items (const SwDesign *design, const SwStageSet *set, const SwSizing *sizing,
+                double step, SwSensitivityTable *out)
+{
+  double d_payload, d_dv, d_isp[SW_MAX_STAGES], d_eps[SW_MAX_STAGES];
+
+  sw_sensitivity_analytic (set, sizing, &d_payload, &d_dv, d_isp, d_eps);
+
+  for (int k = -2; k < 2 * (int) set->n_stages; k++)
     {
       SwSensitivity *it = &out->items[out->n_items++];
       double m_minus, m_plus;
@@ -328,20 +464,84 @@ sw_sensitivity_compute (const SwDesign *design, double step, SwSensitivityTable 
           it->param = k % 2 == 0 ? SW_SENS_ISP : SW_SENS_STRUCTURAL_COEFFICIENT;
           it->derivative = k % 2 == 0 ? d_isp[it->stage] : d_eps[it->stage];
         }
-      it->value = nominal_value (&set, sizing.payload_kg, sizing.delta_v_m_s, it->param,
+      it->value = nominal_value (set, sizing->payload_kg, sizing->delta_v_m_s, it->param,
                                  it->stage);
-      it->elasticity = it->value / sizing.liftoff_mass_kg * it->derivative;
-      m_minus = perturbed_mass (&set, sizing.payload_kg, sizing.delta_v_m_s, design->split,
+      it->elasticity = it->value / sizing->liftoff_mass_kg * it->derivative;
+      m_minus = perturbed_mass (set, sizing->payload_kg, sizing->delta_v_m_s, design->split,
                                 it->param, it->stage, 1.0 - step);
-      m_plus = perturbed_mass (&set, sizing.payload_kg, sizing.delta_v_m_s, design->split,
+      m_plus = perturbed_mass (set, sizing->payload_kg, sizing->delta_v_m_s, design->split,
                                it->param, it->stage, 1.0 + step);
       it->minus_feasible = isfinite (m_minus);
       it->plus_feasible = isfinite (m_plus);
-      it->minus_kg = m_minus - sizing.liftoff_mass_kg;
-      it->plus_kg = m_plus - sizing.liftoff_mass_kg;
+      it->minus_kg = m_minus - sizing->liftoff_mass_kg;
+      it->plus_kg = m_plus - sizing->liftoff_mass_kg;
       it->effect_kg = it->minus_feasible && it->plus_feasible
                         ? MAX (fabs (it->minus_kg), fabs (it->plus_kg)) : INFINITY;
     }
+}
+
+static int
+compare_effect (gconstpointer a, gconstpointer b, gpointer data)
+{
+  const SwSensitivityTable *t = data;
+  double ea = t->items[*(const guint *) a].effect_kg, eb = t->items[*(const guint *) b].effect_kg;
+
+  if (ea != eb)
+    return ea > eb ? -1 : 1;
+  /* Stable order for ties: the table order. */
+  return (int) *(const guint *) a - (int) *(const guint *) b;
+}
+
+gboolean
+sw_sensitivity_compute (const SwDesign *design, double step, SwSensitivityTable *out,
+                        GError **error)
+{
+  SwStageSet set;
+  SwSizing sizing;
+  SwFixedVehicle vehicle;
+  double added;
+
+  g_return_val_if_fail (design != NULL && out != NULL, FALSE);
+
+  memset (out, 0, sizeof *out);
+  if (!(step > 0.0 && step < 1.0))
+    {
+      g_set_error (error, SW_ERROR, SW_ERROR_USAGE,
+                   _("The sensitivity step must lie between 0 and 100 percent, not %g percent."),
+                   step * 100.0);
+      return FALSE;
+    }
+  if (!sw_size_design (design, &sizing, error))
+    return FALSE;
+  out->step = step;
+  out->feasible = sizing.feasible;
+  out->liftoff_mass_kg = sizing.liftoff_mass_kg;
+  out->payload_kg = sizing.payload_kg;
+  out->delta_v_m_s = sizing.delta_v_m_s;
+  out->n_stages = sizing.n_stages;
+  out->payload_capability_kg = NAN;
+  for (guint i = 0; i < SW_MAX_STAGES; i++)
+    out->exchange_ratio[i] = NAN;
+  if (sw_design_all_fixed (design))
+    {
+      if (!compute_capability (design, step, out, error))
+        return FALSE;
+      goto rank;
+    }
+  if (!sizing.feasible)
+    return TRUE;
+
+  if (design->boosters.count > 0)
+    {
+      if (!compute_with_boosters (design, &sizing, step, out, error))
+        return FALSE;
+      goto rank;
+    }
+  sw_stage_set_from_design (&set, design);
+  if (sizing.n_fixed > 0)
+    compute_with_fixed (design, &sizing, step, out);
+  else
+    analytic_items (design, &set, &sizing, step, out);
 
   /* Exchange ratios by the root finder; the step is small against every
    * stage's structure yet far above the solver's tolerance. */

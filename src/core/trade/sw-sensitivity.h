@@ -3,7 +3,10 @@
  * derivatives of the liftoff mass with respect to the payload, the required
  * delta-v and every stage's Isp and structural coefficient; the tornado data
  * (liftoff mass change for a plus-or-minus step, ranked); and the payload
- * exchange ratios of the vehicle as sized (fixed propellant loads). */
+ * exchange ratios of the vehicle as sized (fixed propellant loads).
+ * A vehicle that exists (every load fixed, sw_design_all_fixed) has a
+ * constant liftoff mass: its table is of the payload capability instead
+ * (SwSensitivityTable.capability). */
 #pragma once
 
 #include "sw-design.h"
@@ -30,6 +33,8 @@ typedef struct {
   SwSensParam param;
   int      stage;          /* firing-order index, or -1 for payload, delta-v and boosters */
   double   value;          /* nominal value (kg, m/s, s or dimensionless) */
+  /* Of the liftoff mass; with SwSensitivityTable.capability of the payload
+   * capability instead (kg of payload). */
   double   derivative;     /* d(liftoff mass)/d(value), kg per unit of value */
   double   elasticity;     /* (value / liftoff mass) x derivative: percent per percent */
   double   minus_kg;       /* liftoff mass change at value x (1 - step); NAN if infeasible */
@@ -41,6 +46,12 @@ typedef struct {
 
 typedef struct {
   gboolean feasible;       /* the nominal design; nothing else is filled when FALSE */
+  /* A vehicle that exists (sw_design_all_fixed): every item is of the
+   * payload capability (the payload at which the vehicle's delta-v equals
+   * the required delta-v), feasible is "the capability is positive", and
+   * the payload is no item (the capability does not depend on it). */
+  gboolean capability;
+  double   payload_capability_kg;   /* NAN unless capability */
   double   liftoff_mass_kg;
   double   payload_kg;
   double   delta_v_m_s;
@@ -68,6 +79,13 @@ double   sw_sensitivity_finite (const SwStageSet *set, double payload_kg, double
                                 SwSplitMode split, SwSensParam param, int stage, double h);
 
 /* The full table of @design with a relative tornado @step (0.05 = 5 %).
+ * A serial design with a fixed propellant load: every figure by re-sizing
+ * the perturbed stages as sw_size_design does (sw_size_with_fixed: the fixed
+ * stages keep their loads, the sized ones take the rest), the derivatives
+ * by central differences of relative step SW_SENSITIVITY_FD_STEP.
+ * Every load fixed: the payload capability of the perturbed vehicle
+ * (sw_fixed_loads_payload), central differences the same way; a side whose
+ * capability is not positive is infeasible.
  * With strap-on boosters every figure comes from re-sizing the phased vehicle
  * (sw_size_parallel: sized boosters re-optimised, fixed ones kept; the
  * core's and the boosters' thrust kept): the derivatives are central
