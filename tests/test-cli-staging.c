@@ -529,6 +529,8 @@ test_stages_boosters (void)
   g_assert_cmpstr (json_object_get_string_member (o, "design_row_arrangement"), ==, "boosters");
   g_assert_cmpint (json_object_get_int_member (o, "booster_count"), ==, 4);
   g_assert_cmpstr (json_object_get_string_member (o, "boosters_note"), ==, s.boosters_note);
+  g_assert_cmpstr (json_object_get_string_member (o, "losses_note"), ==, s.losses_note);
+  g_assert_cmpstr (s.losses_note, !=, "");
   g_assert_cmpstr (json_object_get_string_member (o, "best_arrangement"), ==,
                    sw_arrangement_to_string (s.rows[s.best].arrangement));
   rows = json_object_get_array_member (o, "by_stage_count");

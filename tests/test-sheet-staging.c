@@ -166,6 +166,9 @@ test_panel_with_boosters (void)
                                     "this design's 4 boosters beside the core; success counts "
                                     "the boosters as perfect"));
   g_assert_false (has_prefix (boxes, "Every row is a serial vehicle"));
+  g_assert_true (has_prefix (boxes, "No row checks the thrust at liftoff: the core alone lifts "
+                                    "none of the serial rows (at most 0."));
+  g_assert_true (has_prefix (boxes, "Every row is sized with the loss allowance of 2,500 m/s"));
 
   /* The panel's texts: on the page, and no two overlapping. */
   for (guint i = 0; i < boxes->len; i++)

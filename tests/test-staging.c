@@ -228,6 +228,23 @@ test_staging_booster_rows (void)
   g_assert_nonnull (strstr (st.boosters_note, "the one of 2 stages is this design"));
   g_assert_nonnull (strstr (st.boosters_note, "counts the boosters as perfect"));
   g_assert_nonnull (strstr (st.weighting, "serial and with boosters alike"));
+  /* No row checks the thrust: the core's 1,300 kN (vacuum, the demo's key)
+   * over the lightest closing serial row's weight, by hand. */
+  {
+    double lightest = INFINITY;
+    for (guint i = 0; i < 6; i++)
+      if (st.rows[i].feasible)
+        lightest = MIN (lightest, st.rows[i].liftoff_mass_kg);
+    g_assert_cmpfloat_with_epsilon (st.core_thrust_to_weight_max,
+                                    1300e3 / (lightest * 9.80665), 1e-12);
+    g_assert_cmpfloat (st.core_thrust_to_weight_max, <, 1.0);
+    g_assert_nonnull (strstr (st.boosters_note, "the core's engines alone lift none of the "
+                                                "serial rows"));
+  }
+
+  /* A simulate design: the rows use its first-guess allowance, said so. */
+  g_assert_nonnull (strstr (st.losses_note, "loss allowance of 2,500 m/s, the design's first "
+                                            "guess for its closed loop"));
 
   /* The design's row is the design, at its own liftoff mass and payload. */
   g_assert_true (sw_size_design (d, &own, NULL));
@@ -333,6 +350,8 @@ test_staging_booster_rows (void)
   g_assert_cmpint (st.design_arrangement, ==, SW_ARRANGEMENT_SERIAL);
   g_assert_cmpstr (st.boosters_note, ==, "");
   g_assert_cmpstr (st.fixed_note, ==, "");
+  g_assert_cmpstr (st.losses_note, ==, "");
+  g_assert_true (isnan (st.core_thrust_to_weight_max));
 }
 
 int

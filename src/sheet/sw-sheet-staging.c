@@ -68,7 +68,7 @@ sw_sheet_staging_height (const SwDesign *design)
   /* Heading, column titles, the rows, the weighting and money lines (and
    * the lines on boosters and on fixed loads). */
   return 16.0 + row_height (design) * (rows + 1) + 12.0 + note_height (design)
-         + (has_boosters (design) ? WEIGHTING_H + note_height (design) : 0.0)
+         + (has_boosters (design) ? WEIGHTING_H + 2.0 * note_height (design) : 0.0)
          + (has_fixed_load (design) ? note_height (design) : 0.0)
          + (has_losses_note (design) ? note_height (design) : 0.0);
 }
@@ -197,6 +197,24 @@ sw_sheet_draw_staging (cairo_t *cr, const SwDesign *design, double x, double y, 
                                                    "recovered: the core, boosters expended."),
                                                  s.booster_count);
         sw_sheet_text_at (cr, with, x, money_y, &note);
+        money_y += note_h;
+        g_autofree char *thrust = NULL;
+
+        if (s.core_thrust_to_weight_max < 1.0)
+          /* Translators: %.2f is a ratio of thrust to weight */
+          thrust = g_strdup_printf (_("No row checks the thrust at liftoff: the core alone lifts "
+                                      "none of the serial rows (at most %.2f times their weight, "
+                                      "vacuum thrust)."),
+                                    s.core_thrust_to_weight_max);
+        else if (s.core_thrust_to_weight_min < 1.0)
+          /* Translators: %.2f and %.2f are ratios of thrust to weight */
+          thrust = g_strdup_printf (_("No row checks the thrust at liftoff: the core alone lifts "
+                                      "only some serial rows (%.2f to %.2f times their weight, "
+                                      "vacuum thrust)."),
+                                    s.core_thrust_to_weight_min, s.core_thrust_to_weight_max);
+        else
+          thrust = g_strdup (_("No row checks the thrust at liftoff (rocket-equation sizing)."));
+        sw_sheet_text_at (cr, thrust, x, money_y, &note);
         money_y += note_h;
       }
     for (guint i = 0; s.fixed_note[0] != '\0' && i < design->n_stages; i++)

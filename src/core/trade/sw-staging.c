@@ -177,6 +177,7 @@ sw_staging_compute (const SwDesign *design, guint max_stages, SwStaging *out, GE
   out->has_money = e->has_work_year_cost;
   out->work_year_cost = e->has_work_year_cost ? e->work_year_cost : NAN;
   out->best = -1;
+  out->core_thrust_to_weight_min = out->core_thrust_to_weight_max = NAN;
 
   if (!sw_size_design (design, &own, error))
     return FALSE;
@@ -271,6 +272,46 @@ sw_staging_compute (const SwDesign *design, guint max_stages, SwStaging *out, GE
           else
             sw_parallel_payload_at_mass (&pv, dv, split, out->design_liftoff_mass_kg, guess,
                                          &row->payload_fixed_size_kg);
+        }
+    }
+
+  /* No row checks the thrust: say so when the core alone lifts not every
+   * serial row (vacuum thrust over the liftoff weight). */
+  if (out->booster_count > 0 && isfinite (pv.core_thrust_n) && pv.core_thrust_n > 0.0)
+    {
+      double lo = INFINITY, hi = -INFINITY;
+      char thrust[SW_REASON_MAX];
+
+      for (guint i = 0; i < out->n_counts; i++)
+        if (out->rows[i].feasible)
+          {
+            double tw = pv.core_thrust_n / (out->rows[i].liftoff_mass_kg * SW_G0);
+            lo = MIN (lo, tw);
+            hi = MAX (hi, tw);
+          }
+      if (isfinite (lo))
+        {
+          out->core_thrust_to_weight_min = lo;
+          out->core_thrust_to_weight_max = hi;
+        }
+      if (lo < 1.0)
+        {
+          if (hi < 1.0)
+            /* Translators: %.2f is a ratio of thrust to weight */
+            g_snprintf (thrust, sizeof thrust,
+                        _("No row checks the thrust: the core's engines alone lift none of the "
+                          "serial rows (at most %.2f times their weight at liftoff, vacuum "
+                          "thrust)."),
+                        hi);
+          else
+            /* Translators: %.2f and %.2f are ratios of thrust to weight */
+            g_snprintf (thrust, sizeof thrust,
+                        _("No row checks the thrust: the core's engines alone lift only some of "
+                          "the serial rows (%.2f to %.2f times their weight at liftoff, vacuum "
+                          "thrust)."),
+                        lo, hi);
+          g_strlcat (out->boosters_note, " ", sizeof out->boosters_note);
+          g_strlcat (out->boosters_note, thrust, sizeof out->boosters_note);
         }
     }
 

@@ -26,6 +26,9 @@
  *     reliability keys), so it is the serial figure of the same stages;
  *   - the recovered columns recover the core (stage 1) as a serial first
  *     stage is recovered and expend the boosters (sw_reuse_compute_parallel).
+ * No row checks the thrust (rocket-equation sizing): without its boosters
+ * the core may not lift a serial row, and boosters_note then says so with
+ * the core's vacuum thrust over the serial rows' liftoff weight. 
  * The score divides each criterion by its best value over every row that
  * closes, serial and with boosters alike, so both sets are weighed on the
  * same criteria and the best row is the lowest sum over both. */
@@ -96,8 +99,14 @@ typedef struct {
   char     fixed_note[SW_REASON_MAX];
   char     reuse_note[SW_REASON_MAX];
   /* With boosters: which rows are which, and what the booster rows leave
-   * out (the boosters' reliability); "" without boosters. */
-  char     boosters_note[2 * SW_REASON_MAX];
+   * out (the boosters' reliability); that no row checks the thrust, with
+   * the core's thrust-to-weight at liftoff when it lifts not every serial
+   * row; "" without boosters. */
+  char     boosters_note[4 * SW_REASON_MAX];
+  /* With boosters: the core's vacuum thrust over the liftoff weight of the
+   * serial rows that close, least and most; NAN otherwise. */
+  double   core_thrust_to_weight_min;
+  double   core_thrust_to_weight_max;
   /* A design whose losses come from the simulated ascent: every row is
    * sized with its first-guess allowance (no ascent is flown for a row),
    * so its own row may differ from the closed loop's sizing; "" otherwise. */
