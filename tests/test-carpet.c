@@ -206,6 +206,34 @@ test_boosters_and_altitude (void)
     g_assert_no_error (error);
     check_samples (d, c);
   }
+  /* The cost outputs include the boosters (sw-cost.h): the design's point
+   * is the cost model on the sizing with its boosters, above the same
+   * vehicle with them taken out, and the note no longer says they are left
+   * out.  Over the booster count the development effort is flat in the
+   * count only through the boosters' masses: one set is developed once. */
+  {
+    SwCarpetOptions o = { 0 };
+    g_autoptr (SwCarpet) c = NULL;
+    SwSizing own;
+    SwCostVehicle v;
+    SwCost with, without;
+
+    axis (&o.x, d, "boosters.count", 2, 6, 3);
+    axis (&o.y, d, "economics.production_run", 5, 20, 4);
+    o.output = SW_CARPET_DEVELOPMENT;
+    c = sw_carpet_compute (d, &o, &error);
+    g_assert_no_error (error);
+    check_samples (d, c);
+    g_assert_null (strstr (c->note, "leaves the strap-on boosters out"));
+    g_assert_true (sw_size_design (d, &own, NULL));
+    sw_cost_vehicle_from_sizing (&v, &own, d);
+    g_assert_cmpuint (v.booster_count, ==, d->boosters.count);
+    sw_cost_compute (d, &v, &with);
+    g_assert_cmpfloat_with_epsilon (c->design_value / with.development_work_years, 1.0, 1e-12);
+    v.booster_count = 0;
+    sw_cost_compute (d, &v, &without);
+    g_assert_cmpfloat (with.development_work_years, >, without.development_work_years * 1.05);
+  }
   /* The altitude's allowance by hand: the climb's energy per unit mass,
    * sqrt(2 mu / a - mu / r) - sqrt(mu / r) (energy equation, Curtis, Orbital
    * Mechanics for Engineering Students, ch. 2; from memory). */

@@ -429,7 +429,7 @@ test_export_csv (void)
                                  "estimate for comparing concepts, never a quote.");
   g_assert_true (g_str_has_prefix (lines[3], "stage_count,closes,closes_recovered,liftoff_mass_kg,"));
   g_assert_true (g_str_has_suffix (lines[3], ",this_design,development_money,per_flight_money,"
-                                             "per_flight_recovered_money"));
+                                             "per_flight_recovered_money,arrangement"));
   for (guint i = 0; i < 6; i++)
     {
       g_auto (GStrv) f = g_strsplit (lines[4 + i], ",", -1);
@@ -445,7 +445,8 @@ test_export_csv (void)
                               s.rows[i].success_probability, s.rows[i].payload_fixed_size_kg,
                               s.rows[i].score };
 
-      g_assert_cmpuint (g_strv_length (f), ==, 18);
+      g_assert_cmpuint (g_strv_length (f), ==, 19);
+      g_assert_cmpstr (f[18], ==, "serial");
       for (guint k = 0; k < G_N_ELEMENTS (money); k++)
         if (isfinite (money[k]))
           g_assert_cmpfloat_with_epsilon (g_ascii_strtod (f[15 + k], NULL) / money[k], 1.0,
@@ -502,6 +503,118 @@ test_export_csv (void)
   g_unlink (path);
 }
 
+/* A design with strap-on boosters: `stages --json` has the serial rows and
+ * then the rows with the boosters, every number the core's; the design's
+ * row is the booster row of its stage count; the table heads each set and
+ * the CSV names each row's arrangement. */
+static void
+test_stages_boosters (void)
+{
+  g_autofree char *path = g_build_filename (g_getenv ("SW_SOURCE_ROOT"), "data", "designs",
+                                            "four-booster-cargo.stagewright", NULL);
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
+  g_autoptr (JsonNode) keep = NULL;
+  g_autoptr (GError) error = NULL;
+  JsonObject *o;
+  JsonArray *rows;
+  SwStaging s;
+  Run r;
+
+  g_assert_nonnull (d);
+  g_assert_true (sw_staging_compute (d, 6, &s, NULL));
+  run_cli (&r, "stages", path, "--json", NULL);
+  g_assert_cmpint (r.code, ==, 0);
+  o = parse (r.out, &keep);
+  g_assert_cmpint (json_object_get_int_member (o, "design_row"), ==, 2);
+  g_assert_cmpstr (json_object_get_string_member (o, "design_row_arrangement"), ==, "boosters");
+  g_assert_cmpint (json_object_get_int_member (o, "booster_count"), ==, 4);
+  g_assert_cmpstr (json_object_get_string_member (o, "boosters_note"), ==, s.boosters_note);
+  g_assert_cmpstr (json_object_get_string_member (o, "losses_note"), ==, s.losses_note);
+  g_assert_cmpstr (s.losses_note, !=, "");
+  g_assert_cmpstr (json_object_get_string_member (o, "best_arrangement"), ==,
+                   sw_arrangement_to_string (s.rows[s.best].arrangement));
+  rows = json_object_get_array_member (o, "by_stage_count");
+  g_assert_cmpuint (json_array_get_length (rows), ==, 12);
+  for (guint i = 0; i < 12; i++)
+    {
+      JsonObject *row = json_array_get_object_element (rows, i);
+      const SwStagingRow *c = &s.rows[i];
+
+      g_assert_cmpint (json_object_get_int_member (row, "stage_count"), ==, i % 6 + 1);
+      g_assert_cmpstr (json_object_get_string_member (row, "arrangement"), ==,
+                       i < 6 ? "serial" : "boosters");
+      g_assert_cmpint (json_object_get_boolean_member (row, "this_design"), ==, i == 7);
+      check (row, "liftoff_mass_kg", c->liftoff_mass_kg);
+      check (row, "liftoff_mass_recovered_kg", c->liftoff_mass_reused_kg);
+      check (row, "development_work_years", c->development_work_years);
+      check (row, "per_flight_work_years", c->cost_per_flight_work_years);
+      check (row, "payload_at_design_liftoff_mass_kg", c->payload_fixed_size_kg);
+      check (row, "weighted_score", c->score);
+    }
+  /* The design's row carries the design's payload at its liftoff mass. */
+  check (json_array_get_object_element (rows, 7), "payload_at_design_liftoff_mass_kg",
+         d->payload_kg);
+  run_clear (&r);
+
+  run_cli (&r, "stages", path, NULL);
+  g_assert_cmpint (r.code, ==, 0);
+  g_assert_nonnull (strstr (r.out, "Serial stages, no boosters:\n"));
+  g_assert_nonnull (strstr (r.out, "With this design's 4 strap-on boosters:\n"));
+  g_assert_nonnull (strstr (r.out, "* best row   > this design (with its boosters)"));
+  g_assert_nonnull (strstr (r.out, s.boosters_note));
+  g_assert_null (strstr (r.out, "not modelled yet"));
+  /* One mark of this design, after the booster heading. */
+  {
+    const char *with = strstr (r.out, "With this design's");
+    const char *mark = strstr (r.out, ">  2 ");
+    g_assert_nonnull (mark);
+    g_assert_true (mark > with);
+    g_assert_null (strstr (mark + 1, ">  "));
+  }
+  run_clear (&r);
+
+  {
+    g_autofree char *dir = g_dir_make_tmp ("sw-cli-staging-XXXXXX", &error);
+    g_autofree char *decision = g_build_filename (dir, "stage-decision.csv", NULL);
+    g_autofree char *text = NULL;
+    g_auto (GStrv) lines = NULL;
+    guint row = 0;
+
+    g_assert_no_error (error);
+    run_cli (&r, "export", path, "--csv", dir, "--no-montecarlo", "--no-ascent", NULL);
+    g_assert_cmpint (r.code, ==, 0);
+    run_clear (&r);
+    g_assert_true (g_file_get_contents (decision, &text, NULL, &error));
+    lines = g_strsplit (text, "\n", -1);
+    for (guint k = 0; lines[k] != NULL && lines[k][0] != '\0'; k++)
+      {
+        g_auto (GStrv) f = NULL;
+        if (lines[k][0] == '#' || g_str_has_prefix (lines[k], "stage_count,"))
+          continue;
+        f = g_strsplit (lines[k], ",", -1);
+        g_assert_cmpuint (g_strv_length (f), ==, 19);
+        g_assert_cmpstr (f[18], ==, row < 6 ? "serial" : "boosters");
+        g_assert_cmpstr (f[14], ==, row == 7 ? "true" : "false");
+        if (isfinite (s.rows[row].liftoff_mass_kg))
+          g_assert_cmpfloat_with_epsilon (g_ascii_strtod (f[3], NULL) / s.rows[row].liftoff_mass_kg,
+                                          1.0, 1e-13);
+        row++;
+      }
+    g_assert_cmpuint (row, ==, 12);
+    g_assert_nonnull (strstr (text, s.boosters_note));
+    {
+      g_autoptr (GDir) gd = g_dir_open (dir, 0, NULL);
+      const char *name;
+      while ((name = g_dir_read_name (gd)) != NULL)
+        {
+          g_autofree char *p = g_build_filename (dir, name, NULL);
+          g_unlink (p);
+        }
+    }
+    g_rmdir (dir);
+  }
+}
+
 int
 main (int argc, char **argv)
 {
@@ -511,5 +624,6 @@ main (int argc, char **argv)
   g_test_add_func ("/cli/staging/carpet-json-csv", test_carpet_json_csv);
   g_test_add_func ("/cli/staging/carpet-errors", test_carpet_errors);
   g_test_add_func ("/cli/staging/export-csv", test_export_csv);
+  g_test_add_func ("/cli/staging/stages-boosters", test_stages_boosters);
   return g_test_run ();
 }

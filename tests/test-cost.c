@@ -198,6 +198,111 @@ test_production_run (void)
   g_assert_cmpfloat_with_epsilon (sw_cost_to_money (&reused, 2.0), 500000.0, 1e-6);
 }
 
+/* Strap-on boosters as elements (sw-cost.h): two 11 t stages sharing one
+ * 1 t engine type, and four boosters of 5 t dry each, whose own engine is
+ * engine_mass_fraction 0.25 of it (1,250 kg), the booster element the other
+ * 3,750 kg.  Closed forms worked by hand (python, from the published form
+ * with the default coefficients, which are from memory): with f0 = 1.04^3
+ * (the booster set one more element),
+ *   development = 1.04^3 (2 x 100 x 10000^0.555 + 277 x 1000^0.48
+ *                         + 100 x 3750^0.555 + 277 x 1250^0.48) = 66,301.54
+ *   first vehicle = 2 x 1.265 x 10000^0.59 + 2 x 1.9 x 1000^0.535
+ *                   + 4 (1.265 x 3750^0.59 + 1.9 x 1250^0.535) = 1,727.370
+ *   production over 10 vehicles at S = 0.9: each element's first unit times
+ *   the learning sum over its own units (stages 10 each, the shared engine
+ *   20, boosters and their engines 40): 12,352.07 work-years.
+ * The learning sums are checked against the plain loop of q^B as well. */
+static void
+test_boosters_as_elements (void)
+{
+  g_autoptr (SwDesign) d = two_stage_design ();
+  SwCostVehicle v = { 0 };
+  SwCost four, one, none;
+  double b = log (0.9) / log (2.0), l40 = 0.0;
+
+  d->economics.production_run = 10;
+  d->economics.learning_rate = 0.9;
+  d->economics.n_engine_types = 1;
+  g_strlcpy (d->economics.engine_types[0].name, "E", SW_NAME_MAX);
+  d->economics.engine_types[0].dry_mass_kg = 1000.0;
+  d->economics.engine_types[0].stage_mask = 0x3;
+  v.n_stages = 2;
+  v.dry_mass_kg[0] = v.dry_mass_kg[1] = 11000.0;
+  v.engine_count[0] = v.engine_count[1] = 1;
+  v.booster_count = 4;
+  v.booster_dry_mass_kg = 5000.0;
+  sw_cost_compute (d, &v, &four);
+
+  g_assert_cmpfloat_with_epsilon (four.systems_factor, 1.04 * 1.04 * 1.04, 1e-12);
+  g_assert_cmpfloat_with_epsilon (four.booster_mass_kg, 3750.0, 1e-9);
+  g_assert_cmpint (four.booster_engine, >=, 0);
+  g_assert_cmpfloat_with_epsilon (four.engines[four.booster_engine].dry_mass_kg, 1250.0, 1e-9);
+  g_assert_cmpuint (four.engines[four.booster_engine].per_vehicle, ==, 4);
+  g_assert_cmpfloat_with_epsilon (four.booster_development_work_years, 9629.137, 1e-3);
+  g_assert_cmpfloat_with_epsilon (four.engines[four.booster_engine].development_work_years,
+                                  8491.738, 1e-3);
+  g_assert_cmpfloat_with_epsilon (four.development_work_years, 66301.54, 0.01);
+  g_assert_cmpfloat_with_epsilon (four.first_vehicle_work_years, 1727.370, 1e-3);
+  g_assert_cmpfloat_with_epsilon (four.production_work_years, 12352.07, 0.01);
+  g_assert_cmpfloat_with_epsilon (four.cost_per_flight_work_years, 1235.207, 1e-3);
+  for (guint q = 1; q <= 40; q++)
+    l40 += pow (q, b);
+  g_assert_cmpfloat_with_epsilon (sw_cost_learning_total (0.9, 40), l40, 1e-9);
+  g_assert_cmpfloat_with_epsilon (l40, 26.54271, 1e-5);
+
+  /* Developed once, built four times per vehicle: one booster needs the
+   * same development, and a quarter of the booster units. */
+  v.booster_count = 1;
+  sw_cost_compute (d, &v, &one);
+  g_assert_cmpfloat_with_epsilon (one.development_work_years, four.development_work_years,
+                                  1e-9 * four.development_work_years);
+  g_assert_cmpfloat_with_epsilon (four.first_vehicle_work_years - one.first_vehicle_work_years,
+                                  3.0 * (1.265 * pow (3750.0, 0.59) + 1.9 * pow (1250.0, 0.535)),
+                                  1e-9);
+  g_assert_cmpfloat (four.production_work_years, >, one.production_work_years);
+  /* Four boosters cost less than four times one booster's production: they
+   * learn over 40 units, not 10. */
+  {
+    double unit = 1.265 * pow (3750.0, 0.59) + 1.9 * pow (1250.0, 0.535);
+    g_assert_cmpfloat_with_epsilon (four.production_work_years - one.production_work_years,
+                                    unit * (l40 - sw_cost_learning_total (0.9, 10)), 1e-6);
+    g_assert_cmpfloat (four.production_work_years - one.production_work_years, <,
+                       3.0 * unit * sw_cost_learning_total (0.9, 10));
+  }
+
+  /* Without boosters: two elements fewer and f0 = 1.04^2. */
+  v.booster_count = 0;
+  sw_cost_compute (d, &v, &none);
+  g_assert_cmpint (none.booster_engine, ==, -1);
+  g_assert_cmpfloat_with_epsilon (none.development_work_years,
+                                  1.04 * 1.04 * (2.0 * 100.0 * pow (10000.0, 0.555)
+                                                 + 277.0 * pow (1000.0, 0.48)),
+                                  1e-6);
+}
+
+/* The vehicle of a sizing with boosters carries them: count and one
+ * booster's structure (its dry mass), as the sizing gives them. */
+static void
+test_vehicle_from_sizing_boosters (void)
+{
+  g_autoptr (GError) error = NULL;
+  g_autofree char *path = g_build_filename (g_getenv ("SW_SOURCE_ROOT") != NULL
+                                              ? g_getenv ("SW_SOURCE_ROOT") : ".",
+                                            "data", "designs", "four-booster-cargo.stagewright",
+                                            NULL);
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, &error);
+  SwSizing sizing;
+  SwCostVehicle v;
+
+  g_assert_no_error (error);
+  g_assert_true (sw_size_design (d, &sizing, NULL));
+  g_assert_true (sizing.boosters.present);
+  sw_cost_vehicle_from_sizing (&v, &sizing, d);
+  g_assert_cmpuint (v.booster_count, ==, 4);
+  /* The demo's fixed load: 30,000 kg at eps 0.11, structure 30000 x 0.11 / 0.89. */
+  g_assert_cmpfloat_with_epsilon (v.booster_dry_mass_kg, 30000.0 * 0.11 / 0.89, 1e-6);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -208,5 +313,7 @@ main (int argc, char **argv)
   g_test_add_func ("/core/cost/engine-out-binomials", test_engine_out_binomials);
   g_test_add_func ("/core/cost/shared-engine-developed-once", test_shared_engine_developed_once);
   g_test_add_func ("/core/cost/production-run", test_production_run);
+  g_test_add_func ("/core/cost/boosters-as-elements", test_boosters_as_elements);
+  g_test_add_func ("/core/cost/vehicle-from-sizing-boosters", test_vehicle_from_sizing_boosters);
   return g_test_run ();
 }

@@ -113,10 +113,100 @@ test_panel_on_page (void)
   sw_analysis_unref (a);
 }
 
+/* A design with strap-on boosters: the panel has the serial rows and the
+ * rows with the boosters, the design's row (2 + boosters) marked with the
+ * sizing's liftoff mass, the weighting whole (not cut), the boosters'
+ * assumptions stated; no text of the panel leaves the page or overlaps
+ * another. */
+static void
+test_panel_with_boosters (void)
+{
+  g_autofree char *path = g_build_filename (SOURCE_DESIGNS_DIR, "four-booster-cargo.stagewright",
+                                            NULL);
+  g_autoptr (GError) error = NULL;
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, &error);
+  g_autoptr (GArray) boxes = g_array_new (FALSE, FALSE, sizeof (SwSheetTextBox));
+  g_autofree char *mass = NULL;
+  SwAnalysisOptions o;
+  SwAnalysis *a;
+  cairo_surface_t *surface;
+  cairo_t *cr;
+  double w, h, top = -1.0, bottom = -1.0;
+
+  g_assert_no_error (error);
+  sw_analysis_options_init (&o);
+  o.montecarlo = FALSE;
+  o.ascent = FALSE;
+  a = sw_analysis_run (d, &o, NULL);
+  g_array_set_clear_func (boxes, box_clear);
+  surface = cairo_recording_surface_create (CAIRO_CONTENT_COLOR, NULL);
+  cr = cairo_create (surface);
+  sw_sheet_paper_size (SW_PAPER_A4, &w, &h);
+  sw_sheet_private_record_text (cr, boxes);
+  sw_sheet_draw_page (cr, a, w, h);
+  sw_sheet_private_record_text (cr, NULL);
+  cairo_destroy (cr);
+  cairo_surface_destroy (surface);
+
+  g_assert_true (has_text (boxes, "Staging decision, serial and with boosters (work-years: an "
+                                  "estimate, never a quote)"));
+  g_assert_true (has_text (boxes, "\342\226\270 2 + boosters"));
+  g_assert_true (has_text (boxes, "6 + boosters"));
+  g_assert_true (has_text (boxes, "1 + boosters"));
+  g_assert_false (has_text (boxes, "\342\226\270 2"));
+  /* The design's row shows the sizing's liftoff mass, as the totals do. */
+  mass = g_strdup_printf ("%.1f t", a->sizing.liftoff_mass_kg / 1000.0);
+  g_assert_cmpuint (count_text (boxes, mass), >=, 2);
+  g_assert_true (has_text (boxes, "\342\226\270 this design; shaded: the best row; recovered: "
+                                  "the first stage lands downrange."));
+  g_assert_true (has_text (boxes, "Weights: liftoff mass 1, development effort 1, cost per flight "
+                                  "(expendable) 1; each criterion divided by its best row, serial "
+                                  "and with boosters alike, the lowest sum wins."));
+  g_assert_true (has_prefix (boxes, "\342\200\234+ boosters\342\200\235: the same stages with "
+                                    "this design's 4 boosters beside the core; success counts "
+                                    "the boosters as perfect"));
+  g_assert_false (has_prefix (boxes, "Every row is a serial vehicle"));
+  g_assert_true (has_prefix (boxes, "No row checks the thrust at liftoff: the core alone lifts "
+                                    "none of the serial rows (at most 0."));
+  g_assert_true (has_prefix (boxes, "Every row is sized with the loss allowance of 2,500 m/s"));
+
+  /* The panel's texts: on the page, and no two overlapping. */
+  for (guint i = 0; i < boxes->len; i++)
+    {
+      const SwSheetTextBox *b = &g_array_index (boxes, SwSheetTextBox, i);
+      if (g_str_has_prefix (b->text, "Staging decision"))
+        top = b->y;
+      if (g_str_has_prefix (b->text, "No cost of a work-year given"))
+        bottom = b->y + b->h;
+    }
+  g_assert_cmpfloat (top, >, 0.0);
+  g_assert_cmpfloat (bottom, >, top);
+  for (guint i = 0; i < boxes->len; i++)
+    {
+      const SwSheetTextBox *b = &g_array_index (boxes, SwSheetTextBox, i);
+      if (b->y < top || b->y + b->h > bottom + 0.01)
+        continue;
+      g_assert_cmpfloat (b->x, >=, 0.0);
+      g_assert_cmpfloat (b->x + b->w, <=, w);
+      for (guint k = i + 1; k < boxes->len; k++)
+        {
+          const SwSheetTextBox *c = &g_array_index (boxes, SwSheetTextBox, k);
+          gboolean overlap = b->x < c->x + c->w && c->x < b->x + b->w
+                             && b->y < c->y + c->h && c->y < b->y + b->h;
+          if (c->y < top || c->y + c->h > bottom + 0.01)
+            continue;
+          if (overlap)
+            g_error ("\"%s\" overlaps \"%s\"", b->text, c->text);
+        }
+    }
+  sw_analysis_unref (a);
+}
+
 int
 main (int argc, char **argv)
 {
   g_test_init (&argc, &argv, NULL);
   g_test_add_func ("/sheet/staging/panel-on-page", test_panel_on_page);
+  g_test_add_func ("/sheet/staging/panel-with-boosters", test_panel_with_boosters);
   return g_test_run ();
 }

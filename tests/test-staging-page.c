@@ -869,6 +869,44 @@ test_screenshot_pages (void)
   }
 }
 
+/* A design with strap-on boosters: the page shows the core's statement
+ * with the boosters' note (which rows are which, what they leave out) and
+ * draws the two sets of rows without a GTK warning. */
+static void
+test_page_boosters (void)
+{
+  g_autofree char *path = g_build_filename (SOURCE_DESIGNS_DIR, "four-booster-cargo.stagewright",
+                                            NULL);
+  g_autoptr (GError) error = NULL;
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, &error);
+  GtkWidget *win = gtk_window_new ();
+  GtkWidget *page = sw_staging_page_new ();
+  const char *text;
+  SwAnalysis *a;
+
+  g_assert_no_error (error);
+  gtk_window_set_child (GTK_WINDOW (win), page);
+  gtk_window_set_default_size (GTK_WINDOW (win), 1000, 900);
+  gtk_window_present (GTK_WINDOW (win));
+  a = analyse (d);
+  sw_staging_page_set_result (SW_STAGING_PAGE (page), a);
+  sw_test_wait_until (ready_cb, page, 30000, "the staging page's worker");
+  text = sw_staging_page_get_weighting (SW_STAGING_PAGE (page));
+  g_assert_nonnull (strstr (text, "each criterion divided by its best row, serial and with "
+                                  "boosters alike"));
+  g_assert_nonnull (strstr (text, "the one of 2 stages is this design"));
+  g_assert_nonnull (strstr (text, "counts the boosters as perfect"));
+  /* Let the drawing run. */
+  for (guint i = 0; i < 20; i++)
+    {
+      g_usleep (5000);
+      while (g_main_context_iteration (NULL, FALSE))
+        ;
+    }
+  gtk_window_destroy (GTK_WINDOW (win));
+  sw_analysis_unref (a);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -877,6 +915,7 @@ main (int argc, char **argv)
   tmp_dir = sw_gui_test_env_init (&argc, &argv, "sw-staging-page-XXXXXX");
   g_test_add_func ("/gui/staging-page/shows-worker-result", test_page_shows_worker_result);
   g_test_add_func ("/gui/staging-page/window-has-page", test_window_has_page);
+  g_test_add_func ("/gui/staging-page/boosters", test_page_boosters);
   g_test_add_func ("/gui/staging-page/engine-types-editor", test_engine_types_editor);
   g_test_add_func ("/gui/staging-page/carpet-picker", test_carpet_picker);
   g_test_add_func ("/gui/staging-page/screenshot-pages", test_screenshot_pages);

@@ -4,6 +4,8 @@
  * fixed-vehicle root finder (GSL Brent), an independent route. */
 #include "config.h"
 
+#include "sw-booster-sizing.h"
+#include "sw-cost.h"
 #include "sw-curves.h"
 #include "sw-design.h"
 #include "sw-fixed-vehicle.h"
@@ -189,11 +191,14 @@ test_staging_fixed_note (void)
   g_assert_cmpstr (st.fixed_note, ==, "");
 }
 
-/* Every row is a serial vehicle: with strap-on boosters no row is the
- * design (its liftoff mass is not on any row), and the table says so; the
- * serial design's own row is its stage count. */
+/* A design with strap-on boosters has its serial rows and, after them, its
+ * booster rows, sized as sw_size_design sizes the design; the booster row
+ * of its stage count is the design.  Each figure against the module that
+ * owns it: the stage-count curve's booster points (sw-curves.c), the cost
+ * model on the row's sizing (boosters included), the parallel sizing at the
+ * payload the root finder gives; the serial design keeps its one set. */
 static void
-test_staging_boosters_no_row (void)
+test_staging_booster_rows (void)
 {
   g_autoptr (GError) error = NULL;
   g_autofree char *path = g_build_filename (g_getenv ("SW_SOURCE_ROOT"), "data", "designs",
@@ -202,21 +207,151 @@ test_staging_boosters_no_row (void)
   g_autoptr (SwDesign) serial = load (design_json);
   SwStaging st;
   SwSizing own;
+  SwStageCurve curve;
+  SwParallelVehicle pv;
+  double dv;
+  int argmin = -1;
 
   g_assert_no_error (error);
   g_assert_cmpuint (d->boosters.count, ==, 4);
   g_assert_true (sw_staging_compute (d, 6, &st, NULL));
+  g_assert_cmpuint (st.n_counts, ==, 6);
+  g_assert_cmpuint (st.n_rows, ==, 12);
+  g_assert_cmpuint (st.booster_count, ==, 4);
   g_assert_cmpuint (st.design_stages, ==, d->n_stages);
-  g_assert_cmpuint (st.design_row, ==, 0);
-  g_assert_nonnull (strstr (st.fixed_note, "4 strap-on boosters, so no row is this design"));
-  /* The design's own stage count as a serial vehicle is another vehicle. */
+  g_assert_cmpuint (st.design_row, ==, d->n_stages);
+  g_assert_cmpint (st.design_arrangement, ==, SW_ARRANGEMENT_BOOSTERS);
+  g_assert_cmpint (st.design_index, ==, 6 + (int) d->n_stages - 1);
+  g_assert_true (sw_staging_row (&st, SW_ARRANGEMENT_BOOSTERS, 2) == &st.rows[st.design_index]);
+  g_assert_cmpstr (sw_arrangement_to_string (st.rows[0].arrangement), ==, "serial");
+  g_assert_cmpstr (sw_arrangement_to_string (st.rows[6].arrangement), ==, "boosters");
+  g_assert_nonnull (strstr (st.boosters_note, "the one of 2 stages is this design"));
+  g_assert_nonnull (strstr (st.boosters_note, "counts the boosters as perfect"));
+  g_assert_nonnull (strstr (st.weighting, "serial and with boosters alike"));
+  /* No row checks the thrust: the core's 1,300 kN (vacuum, the demo's key)
+   * over the lightest closing serial row's weight, by hand. */
+  {
+    double lightest = INFINITY;
+    for (guint i = 0; i < 6; i++)
+      if (st.rows[i].feasible)
+        lightest = MIN (lightest, st.rows[i].liftoff_mass_kg);
+    g_assert_cmpfloat_with_epsilon (st.core_thrust_to_weight_max,
+                                    1300e3 / (lightest * 9.80665), 1e-12);
+    g_assert_cmpfloat (st.core_thrust_to_weight_max, <, 1.0);
+    g_assert_nonnull (strstr (st.boosters_note, "the core's engines alone lift none of the "
+                                                "serial rows"));
+  }
+
+  /* A simulate design: the rows use its first-guess allowance, said so. */
+  g_assert_nonnull (strstr (st.losses_note, "loss allowance of 2,500 m/s, the design's first "
+                                            "guess for its closed loop"));
+
+  /* The design's row is the design, at its own liftoff mass and payload. */
   g_assert_true (sw_size_design (d, &own, NULL));
+  g_assert_true (own.boosters.present);
+  g_assert_cmpfloat_with_epsilon (st.rows[st.design_index].liftoff_mass_kg / own.liftoff_mass_kg,
+                                  1.0, 1e-12);
+  g_assert_cmpfloat_with_epsilon (st.design_liftoff_mass_kg, own.liftoff_mass_kg, 1e-6);
+  g_assert_cmpfloat_with_epsilon (st.rows[st.design_index].payload_fixed_size_kg,
+                                  d->payload_kg, 1e-6);
+  /* The serial row of the same count is another vehicle. */
   g_assert_cmpfloat (fabs (st.rows[d->n_stages - 1].liftoff_mass_kg - own.liftoff_mass_kg), >,
                      1000.0);
 
+  /* Every booster row against the stage-count curve's booster points (the
+   * design's split is optimal, as the curve's). */
+  g_assert_true (sw_design_required_delta_v (d, &dv, NULL));
+  sw_stage_curve_compute (d, dv, 6, &curve);
+  g_assert_true (sw_parallel_vehicle_from_design (&pv, d, NULL));
+  for (guint i = 0; i < SW_MAX_STAGES; i++)
+    pv.fixed_kg[i] = 0.0;
+  for (guint n = 1; n <= 6; n++)
+    {
+      const SwStagingRow *r = sw_staging_row (&st, SW_ARRANGEMENT_BOOSTERS, n);
+      SwSizing sizing, check;
+      SwCostVehicle v;
+      SwCost cost, bare;
+
+      g_assert_nonnull (r);
+      g_assert_cmpint (r->feasible, ==, curve.booster_points[n - 1].feasible);
+      if (!r->feasible)
+        {
+          g_assert_true (isnan (r->liftoff_mass_kg));
+          g_assert_true (isnan (r->payload_fixed_size_kg));
+          continue;
+        }
+      g_assert_cmpfloat_with_epsilon (r->liftoff_mass_kg / curve.booster_points[n - 1].liftoff_mass_kg,
+                                      1.0, 1e-9);
+      /* Costs: the cost model on the row's sizing, boosters included. */
+      sw_stage_set_extend (&pv.set, d, n);
+      sw_size_parallel (&pv, d->payload_kg, dv, SW_SPLIT_OPTIMAL, &sizing);
+      sw_cost_vehicle_from_sizing (&v, &sizing, d);
+      g_assert_cmpuint (v.booster_count, ==, 4);
+      sw_cost_compute (d, &v, &cost);
+      g_assert_cmpfloat_with_epsilon (r->development_work_years / cost.development_work_years,
+                                      1.0, 1e-9);
+      g_assert_cmpfloat_with_epsilon (r->cost_per_flight_work_years
+                                        / cost.cost_per_flight_work_years, 1.0, 1e-9);
+      v.booster_count = 0;
+      sw_cost_compute (d, &v, &bare);
+      g_assert_cmpfloat (r->development_work_years, >, bare.development_work_years);
+      g_assert_cmpfloat (r->cost_per_flight_work_years, >, bare.cost_per_flight_work_years);
+      /* The fixed-size payload: the vehicle sized for it weighs the
+       * design's liftoff mass. */
+      sw_size_parallel (&pv, r->payload_fixed_size_kg, dv, SW_SPLIT_OPTIMAL, &check);
+      g_assert_true (check.feasible);
+      g_assert_cmpfloat_with_epsilon (check.liftoff_mass_kg / own.liftoff_mass_kg, 1.0, 1e-7);
+      /* Mission success: the boosters counted as perfect, so the serial
+       * figure of the same stages (here none: no reliability keys). */
+      g_assert_true (isnan (r->success_probability));
+      /* The core recovered: heavier, a payload penalty. */
+      if (r->reused_feasible)
+        {
+          g_assert_cmpfloat (r->liftoff_mass_reused_kg, >, r->liftoff_mass_kg);
+          g_assert_cmpfloat (r->payload_penalty_fraction, >, 0.0);
+          g_assert_cmpfloat (r->payload_penalty_fraction, <, 1.0);
+        }
+    }
+  /* Not linear in the payload: at three stages the root differs from the
+   * ratio of the masses. */
+  {
+    const SwStagingRow *r = sw_staging_row (&st, SW_ARRANGEMENT_BOOSTERS, 3);
+    double linear = d->payload_kg * own.liftoff_mass_kg / r->liftoff_mass_kg;
+    g_assert_cmpfloat (fabs (r->payload_fixed_size_kg - linear), >, 1.0);
+  }
+
+  /* The best row is the lowest score over both sets. */
+  for (guint i = 0; i < st.n_rows; i++)
+    if (isfinite (st.rows[i].score)
+        && (argmin < 0 || st.rows[i].score < st.rows[argmin].score))
+      argmin = (int) i;
+  g_assert_cmpint (st.best, ==, argmin);
+
+  /* With reliability keys the booster rows carry the serial figure. */
+  for (guint i = 0; i < d->n_stages; i++)
+    {
+      d->stages[i].reliability.present = TRUE;
+      d->stages[i].reliability.has_engine_reliability = TRUE;
+      d->stages[i].reliability.engine_reliability = 0.99;
+    }
+  g_assert_true (sw_staging_compute (d, 6, &st, NULL));
+  g_assert_true (st.reliability_given);
+  g_assert_true (isfinite (sw_staging_row (&st, SW_ARRANGEMENT_BOOSTERS, 2)->success_probability));
+  for (guint n = 2; n <= 6; n++)
+    if (sw_staging_row (&st, SW_ARRANGEMENT_BOOSTERS, n)->feasible)
+      g_assert_cmpfloat (sw_staging_row (&st, SW_ARRANGEMENT_BOOSTERS, n)->success_probability,
+                         ==, sw_staging_row (&st, SW_ARRANGEMENT_SERIAL, n)->success_probability);
+
+  /* A serial design: one set of rows, its own count the design. */
   g_assert_true (sw_staging_compute (serial, 6, &st, NULL));
+  g_assert_cmpuint (st.n_rows, ==, 6);
   g_assert_cmpuint (st.design_row, ==, serial->n_stages);
+  g_assert_cmpint (st.design_index, ==, (int) serial->n_stages - 1);
+  g_assert_cmpint (st.design_arrangement, ==, SW_ARRANGEMENT_SERIAL);
+  g_assert_cmpstr (st.boosters_note, ==, "");
   g_assert_cmpstr (st.fixed_note, ==, "");
+  g_assert_cmpstr (st.losses_note, ==, "");
+  g_assert_true (isnan (st.core_thrust_to_weight_max));
 }
 
 int
@@ -227,6 +362,6 @@ main (int argc, char **argv)
   g_test_add_func ("/core/staging/best-under-weighting", test_best_under_weighting);
   g_test_add_func ("/core/staging/defaults", test_defaults);
   g_test_add_func ("/core/staging/fixed-load-note", test_staging_fixed_note);
-  g_test_add_func ("/core/staging/boosters-no-row", test_staging_boosters_no_row);
+  g_test_add_func ("/core/staging/booster-rows", test_staging_booster_rows);
   return g_test_run ();
 }

@@ -178,12 +178,23 @@ job_done_cb (GObject *source, GAsyncResult *res, gpointer data)
       gtk_widget_set_visible (self->progress_row, FALSE);
       gtk_button_set_label (GTK_BUTTON (self->carpet_button), _("Compute"));
       gtk_widget_set_visible (self->carpet_button, self->shown->carpet == NULL);
-      if (self->shown->staging_ok && self->shown->staging.fixed_note[0] != '\0')
+      if (self->shown->staging_ok && (self->shown->staging.fixed_note[0] != '\0'
+                                      || self->shown->staging.boosters_note[0] != '\0'
+                                      || self->shown->staging.losses_note[0] != '\0'))
         {
-          g_autofree char *text = g_strconcat (self->shown->staging.weighting, " ",
-                                               self->shown->staging.fixed_note, " ",
-                                               self->shown->staging.reuse_note, NULL);
-          gtk_label_set_text (GTK_LABEL (self->statement), text);
+          const SwStaging *st = &self->shown->staging;
+          g_autoptr (GString) text = g_string_new (st->weighting);
+
+          g_string_append_c (text, '.');
+          if (st->boosters_note[0] != '\0')
+            g_string_append_printf (text, " %s", st->boosters_note);
+          if (st->fixed_note[0] != '\0')
+            g_string_append_printf (text, " %s", st->fixed_note);
+          if (st->reuse_note[0] != '\0')
+            g_string_append_printf (text, " %s", st->reuse_note);
+          if (st->losses_note[0] != '\0')
+            g_string_append_printf (text, " %s", st->losses_note);
+          gtk_label_set_text (GTK_LABEL (self->statement), text->str);
         }
       else
         gtk_label_set_text (GTK_LABEL (self->statement),
@@ -198,6 +209,12 @@ job_done_cb (GObject *source, GAsyncResult *res, gpointer data)
         set_carpet_status (self, self->shown->carpet != NULL ? self->shown->carpet->note : NULL,
                            FALSE);
       update_money (self);
+      /* The key of a design with boosters has two more entries, and two
+       * sets of lines share the panels: a taller drawing. */
+      gtk_widget_set_size_request (self->decision, 300,
+                                   self->shown->staging_ok
+                                       && self->shown->staging.booster_count > 0
+                                     ? 520 : 330);
       gtk_widget_queue_draw (self->decision);
       gtk_widget_queue_draw (self->carpet);
       g_signal_emit (self, signals[READY], 0);
@@ -696,10 +713,16 @@ update_money (SwStagingPage *self)
                                                   ? r->cost_per_flight_reused_work_years
                                                   : r->cost_per_flight_work_years)
                                                  * s->work_year_cost);
-      text = g_strdup_printf (_("At %s %s per work-year, the best count (%u stages): development "
-                                "%s %s, per flight %s %s. %s"),
-                              wy, cur, r->n_stages, dev, cur, cpf, cur,
-                              sw_economics_money_note ());
+      if (r->arrangement == SW_ARRANGEMENT_BOOSTERS)
+        text = g_strdup_printf (_("At %s %s per work-year, the best row (%u stages with the "
+                                  "boosters): development %s %s, per flight %s %s. %s"),
+                                wy, cur, r->n_stages, dev, cur, cpf, cur,
+                                sw_economics_money_note ());
+      else
+        text = g_strdup_printf (_("At %s %s per work-year, the best count (%u stages): "
+                                  "development %s %s, per flight %s %s. %s"),
+                                wy, cur, r->n_stages, dev, cur, cpf, cur,
+                                sw_economics_money_note ());
     }
   else
     text = g_strdup (_("No cost of a work-year given: effort in work-years only (set it below "
@@ -873,8 +896,9 @@ draw_decision (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointe
   };
   const guint n_panels = G_N_ELEMENTS (panels);
   g_autoptr (PangoLayout) layout = gtk_widget_create_pango_layout (w, NULL);
-  GdkRGBA fg, c_exp, c_rec, c_best, c_mark;
+  GdkRGBA fg, c_exp, c_rec, c_best, c_mark, c_boost;
   const SwStaging *s;
+  const SwStagingRow *own_row;
   double panel_w, panel_h, left = 8.0;
   const guint cols = 3;
 
@@ -883,6 +907,7 @@ draw_decision (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointe
   sw_plot_palette_color (w, 1, &c_rec);
   sw_plot_palette_color (w, 2, &c_best);
   sw_plot_palette_color (w, 4, &c_mark);
+  sw_plot_palette_color (w, 3, &c_boost);
   if (self->shown == NULL || !self->shown->staging_ok)
     {
       set_rgba (cr, &fg, 0.7);
@@ -891,6 +916,7 @@ draw_decision (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointe
       return;
     }
   s = &self->shown->staging;
+  own_row = s->design_index >= 0 ? &s->rows[s->design_index] : NULL;
   /* Three panels a row, two rows: every panel the same x scale. */
   panel_w = (width - left) / cols;
   panel_h = height / 2.0;
@@ -954,9 +980,9 @@ draw_decision (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointe
           cairo_rectangle (cr, bx - half, plot_t, 2.0 * half, plot_b - plot_t);
           cairo_fill (cr);
         }
-      if (s->design_row >= 1 && s->design_row <= SW_STAGING_MAX_STAGES)
+      if (own_row != NULL)
         {
-          double dx = sw_plot_axis_map (&xa, s->design_row);
+          double dx = sw_plot_axis_map (&xa, own_row->n_stages);
           const double dash[] = { 4.0, 3.0 };
           set_rgba (cr, &c_mark, 1.0);
           cairo_set_dash (cr, dash, 2, 0.0);
@@ -987,55 +1013,82 @@ draw_decision (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointe
           if (tk->labelled && tk->text != NULL)
             show_text (cr, layout, tk->text, plot_l - 4.0, ty, 1.0, 0.5);
         }
-      /* The series: expendable solid, recovered dashed; a cross where the
-       * vehicle does not close. */
-      for (guint k = 0; k < 2; k++)
-        {
-          gsize off = k == 0 ? panels[p].offset : panels[p].offset2;
-          gboolean pen = FALSE;
-          const double dash[] = { 5.0, 3.0 };
+      /* The series: expendable solid, recovered dashed; the rows with the
+       * design's boosters in their own colour with square markers (dotted
+       * when the core is recovered), drawn first so that the serial ones
+       * stay on top where they coincide (mission success). */
+      for (int a = s->booster_count > 0 ? 1 : 0; a >= 0; a--)
+        for (guint k = 0; k < 2; k++)
+          {
+            SwArrangement arr = a == 1 ? SW_ARRANGEMENT_BOOSTERS : SW_ARRANGEMENT_SERIAL;
+            gsize off = k == 0 ? panels[p].offset : panels[p].offset2;
+            gboolean pen = FALSE;
+            const double dash[] = { 5.0, 3.0 }, dot[] = { 2.0, 2.5 };
 
-          if (k == 1 && off == 0)
-            continue;
-          set_rgba (cr, k == 0 ? &c_exp : &c_rec, 1.0);
-          cairo_set_line_width (cr, 2.0);
-          cairo_set_dash (cr, dash, k == 1 ? 2 : 0, 0.0);
-          for (guint i = 0; i < s->n_rows; i++)
-            {
-              double v = row_value (&s->rows[i], off);
-              double px = sw_plot_axis_map (&xa, s->rows[i].n_stages);
-              if (!isfinite (v))
-                {
-                  pen = FALSE;
+            if (k == 1 && off == 0)
+              continue;
+            set_rgba (cr, a == 1 ? &c_boost : k == 0 ? &c_exp : &c_rec, 1.0);
+            cairo_set_line_width (cr, 2.0);
+            if (k == 1)
+              cairo_set_dash (cr, a == 1 ? dot : dash, 2, 0.0);
+            for (guint i = 0; i < s->n_rows; i++)
+              {
+                double v = row_value (&s->rows[i], off);
+                double px = sw_plot_axis_map (&xa, s->rows[i].n_stages);
+                if (s->rows[i].arrangement != arr)
                   continue;
-                }
-              if (pen)
-                cairo_line_to (cr, px, sw_plot_axis_map (&ya, v));
-              else
-                cairo_move_to (cr, px, sw_plot_axis_map (&ya, v));
-              pen = TRUE;
-            }
+                if (!isfinite (v))
+                  {
+                    pen = FALSE;
+                    continue;
+                  }
+                if (pen)
+                  cairo_line_to (cr, px, sw_plot_axis_map (&ya, v));
+                else
+                  cairo_move_to (cr, px, sw_plot_axis_map (&ya, v));
+                pen = TRUE;
+              }
+            cairo_stroke (cr);
+            cairo_set_dash (cr, NULL, 0, 0.0);
+            for (guint i = 0; i < s->n_rows; i++)
+              {
+                double v = row_value (&s->rows[i], off);
+                double px = sw_plot_axis_map (&xa, s->rows[i].n_stages);
+                if (s->rows[i].arrangement != arr || !isfinite (v))
+                  continue;
+                if (a == 1)
+                  cairo_rectangle (cr, px - 3.5, sw_plot_axis_map (&ya, v) - 3.5, 7.0, 7.0);
+                else
+                  cairo_arc (cr, px, sw_plot_axis_map (&ya, v), 3.0, 0, 2 * G_PI);
+                cairo_fill (cr);
+              }
+          }
+      /* This design's own point, ringed. */
+      if (own_row != NULL && isfinite (row_value (own_row, panels[p].offset)))
+        {
+          set_rgba (cr, &c_mark, 1.0);
+          cairo_set_line_width (cr, 1.5);
+          cairo_new_sub_path (cr);
+          cairo_arc (cr, sw_plot_axis_map (&xa, own_row->n_stages),
+                     sw_plot_axis_map (&ya, row_value (own_row, panels[p].offset)), 6.5, 0,
+                     2 * G_PI);
           cairo_stroke (cr);
-          cairo_set_dash (cr, NULL, 0, 0.0);
-          for (guint i = 0; i < s->n_rows; i++)
-            {
-              double v = row_value (&s->rows[i], off);
-              if (isfinite (v))
-                {
-                  cairo_arc (cr, sw_plot_axis_map (&xa, s->rows[i].n_stages),
-                             sw_plot_axis_map (&ya, v), 3.0, 0, 2 * G_PI);
-                  cairo_fill (cr);
-                }
-            }
         }
-      /* A stage count whose vehicle does not close: a grey cross on the
-       * axis, so that a missing point is not read as a gap in the data. */
-      set_rgba (cr, &fg, 0.55);
+      /* A stage count whose vehicle does not close: a cross on the axis,
+       * grey for a serial vehicle, in the boosters' colour a little higher
+       * for one with them, so that a missing point is not read as a gap in
+       * the data. */
       cairo_set_line_width (cr, 1.5);
       for (guint i = 0; i < s->n_rows; i++)
         if (!s->rows[i].feasible && !isfinite (row_value (&s->rows[i], panels[p].offset)))
           {
-            double cx = sw_plot_axis_map (&xa, s->rows[i].n_stages), cy = plot_b - 7.0;
+            gboolean boost = s->rows[i].arrangement == SW_ARRANGEMENT_BOOSTERS;
+            double cx = sw_plot_axis_map (&xa, s->rows[i].n_stages);
+            double cy = plot_b - (boost ? 18.0 : 7.0);
+            if (boost)
+              set_rgba (cr, &c_boost, 1.0);
+            else
+              set_rgba (cr, &fg, 0.55);
             cairo_move_to (cr, cx - 4, cy - 4);
             cairo_line_to (cr, cx + 4, cy + 4);
             cairo_move_to (cr, cx - 4, cy + 4);
@@ -1057,14 +1110,37 @@ draw_decision (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointe
                                             s->reuse_mode == SW_RECOVERY_LAUNCH_SITE
                                               ? _("returns to the launch site")
                                               : _("lands downrange"));
-    g_autofree char *best = s->best >= 0
-                              ? g_strdup_printf (_("best under the weights: %u stages"),
+    g_autofree char *best = s->best < 0
+                              ? g_strdup (_("no stage count closes"))
+                              : s->rows[s->best].arrangement == SW_ARRANGEMENT_BOOSTERS
+                              ? g_strdup_printf (_("best under the weights: %u stages with the "
+                                                   "boosters"),
                                                  s->rows[s->best].n_stages)
-                              : g_strdup (_("no stage count closes"));
-    g_autofree char *own = s->design_row > 0
+                              : s->booster_count > 0
+                              ? g_strdup_printf (_("best under the weights: %u serial stages"),
+                                                 s->rows[s->best].n_stages)
+                              : g_strdup_printf (_("best under the weights: %u stages"),
+                                                 s->rows[s->best].n_stages);
+    g_autofree char *own = own_row == NULL
                              ? g_strdup_printf (_("this design: %u stages"), s->design_row)
-                             : g_strdup (_("this design has boosters: no row is it"));
-    const char *texts[5] = { _("expendable"), rec, best, own, _("does not close") };
+                             : own_row->arrangement == SW_ARRANGEMENT_BOOSTERS
+                             ? g_strdup_printf (_("this design (ringed): %u stages + "
+                                                  "boosters"),
+                                                own_row->n_stages)
+                             : g_strdup_printf (_("this design (ringed): %u stages"),
+                                                own_row->n_stages);
+    /* Translators: %u is the number of strap-on boosters */
+    g_autofree char *boost = g_strdup_printf (g_dngettext (GETTEXT_PACKAGE,
+                                                           "with the %u booster; dotted: core "
+                                                           "recovered",
+                                                           "with the %u boosters; dotted: core "
+                                                           "recovered",
+                                                           s->booster_count),
+                                              s->booster_count);
+    const char *texts[6] = { s->booster_count > 0 ? _("serial, expendable") : _("expendable"),
+                             rec, boost, best, own,
+                             s->booster_count > 0 ? _("does not close (grey: serial)")
+                                                  : _("does not close") };
     int tw = (int) MAX (40.0, panel_w - 16.0 - 36.0 - 4.0);
 
     pango_layout_set_width (layout, tw * PANGO_SCALE);
@@ -1073,6 +1149,9 @@ draw_decision (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointe
       {
         int th;
         double cy;
+
+        if (k == 2 && s->booster_count == 0)
+          continue;
 
         pango_layout_set_text (layout, texts[k], -1);
         pango_layout_get_pixel_size (layout, NULL, &th);
@@ -1092,11 +1171,28 @@ draw_decision (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointe
             cairo_fill (cr);
             break;
           case 2:
+            {
+              const double dot[] = { 2.0, 2.5 };
+              set_rgba (cr, &c_boost, 1.0);
+              cairo_set_line_width (cr, 2.0);
+              cairo_move_to (cr, kx, cy - 3);
+              cairo_line_to (cr, kx + 28, cy - 3);
+              cairo_stroke (cr);
+              cairo_set_dash (cr, dot, 2, 0.0);
+              cairo_move_to (cr, kx, cy + 4);
+              cairo_line_to (cr, kx + 28, cy + 4);
+              cairo_stroke (cr);
+              cairo_set_dash (cr, NULL, 0, 0.0);
+              cairo_rectangle (cr, kx + 10.5, cy - 6.5, 7.0, 7.0);
+              cairo_fill (cr);
+            }
+            break;
+          case 3:
             set_rgba (cr, &c_best, 0.25);
             cairo_rectangle (cr, kx + 6, cy - 9, 16, 18);
             cairo_fill (cr);
             break;
-          case 3:
+          case 4:
             set_rgba (cr, &c_mark, 1.0);
             cairo_set_line_width (cr, 1.0);
             cairo_set_dash (cr, mdash, 2, 0.0);
@@ -1104,6 +1200,13 @@ draw_decision (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointe
             cairo_line_to (cr, kx + 14, cy + 9);
             cairo_stroke (cr);
             cairo_set_dash (cr, NULL, 0, 0.0);
+            if (own_row != NULL)
+              {
+                cairo_set_line_width (cr, 1.5);
+                cairo_new_sub_path (cr);
+                cairo_arc (cr, kx + 14, cy, 6.5, 0, 2 * G_PI);
+                cairo_stroke (cr);
+              }
             break;
           default:
             set_rgba (cr, &fg, 0.55);
@@ -1524,8 +1627,9 @@ sw_staging_page_init (SwStagingPage *self)
   gtk_widget_set_margin_bottom (self->box, 8);
   gtk_scrolled_window_set_child (GTK_SCROLLED_WINDOW (self->scroller), self->box);
 
-  heading = gtk_label_new (_("The staging decision: one to six serial stages (boosters are not "
-                             "modelled yet), each sized for this design's payload and mission."));
+  heading = gtk_label_new (_("The staging decision: one to six serial stages and, for a design "
+                             "with strap-on boosters, one to six stages with its boosters beside "
+                             "the core, each sized for this design's payload and mission."));
   gtk_label_set_wrap (GTK_LABEL (heading), TRUE);
   gtk_label_set_xalign (GTK_LABEL (heading), 0.0);
   gtk_box_append (GTK_BOX (self->box), heading);

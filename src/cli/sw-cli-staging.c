@@ -112,10 +112,18 @@ stages_json (const SwDesign *d, const SwStaging *s)
   json_builder_set_member_name (b, "design_stage_count");
   json_builder_add_int_value (b, s->design_stages);
   json_builder_set_member_name (b, "design_row");
-  if (s->design_row > 0)
+  if (s->design_index >= 0)
     json_builder_add_int_value (b, s->design_row);
   else
     json_builder_add_null_value (b);
+  json_builder_set_member_name (b, "design_row_arrangement");
+  json_builder_add_string_value (b, sw_arrangement_to_string (s->design_arrangement));
+  json_builder_set_member_name (b, "booster_count");
+  json_builder_add_int_value (b, s->booster_count);
+  json_builder_set_member_name (b, "boosters_note");
+  json_builder_add_string_value (b, s->boosters_note);
+  json_builder_set_member_name (b, "losses_note");
+  json_builder_add_string_value (b, s->losses_note);
   sw_cli_add_number (b, "design_liftoff_mass_kg", s->design_liftoff_mass_kg);
   json_builder_set_member_name (b, "design_recovers_first_stage");
   json_builder_add_boolean_value (b, s->design_reuses);
@@ -156,6 +164,11 @@ stages_json (const SwDesign *d, const SwStaging *s)
     json_builder_add_int_value (b, s->rows[s->best].n_stages);
   else
     json_builder_add_null_value (b);
+  json_builder_set_member_name (b, "best_arrangement");
+  if (s->best >= 0)
+    json_builder_add_string_value (b, sw_arrangement_to_string (s->rows[s->best].arrangement));
+  else
+    json_builder_add_null_value (b);
   json_builder_set_member_name (b, "by_stage_count");
   json_builder_begin_array (b);
   for (guint i = 0; i < s->n_rows; i++)
@@ -166,7 +179,9 @@ stages_json (const SwDesign *d, const SwStaging *s)
       json_builder_set_member_name (b, "stage_count");
       json_builder_add_int_value (b, r->n_stages);
       json_builder_set_member_name (b, "arrangement");
-      json_builder_add_string_value (b, "serial");
+      json_builder_add_string_value (b, sw_arrangement_to_string (r->arrangement));
+      json_builder_set_member_name (b, "this_design");
+      json_builder_add_boolean_value (b, (int) i == s->design_index);
       json_builder_set_member_name (b, "closes");
       json_builder_add_boolean_value (b, r->feasible);
       json_builder_set_member_name (b, "closes_recovered");
@@ -246,13 +261,30 @@ stages_table (const SwDesign *d, const SwStaging *s)
 
       if ((int) i == s->best)
         mark[0] = '*';
-      if (r->n_stages == s->design_row)
+      if ((int) i == s->design_index)
         mark[1] = '>';
+      if (s->booster_count > 0 && (i == 0 || i == s->n_counts))
+        {
+          /* Translators: %u is the number of strap-on boosters */
+          g_autofree char *with = g_strdup_printf (g_dngettext (GETTEXT_PACKAGE,
+                                                                "With this design's %u "
+                                                                "strap-on booster:",
+                                                                "With this design's %u "
+                                                                "strap-on boosters:",
+                                                                s->booster_count),
+                                                   s->booster_count);
+          g_print ("%s\n", i == 0 ? _("Serial stages, no boosters:") : with);
+        }
       g_print ("%-3s %-2u %s %s %s %s %s %s %s %s %s %s\n", mark, r->n_stages,
                m, mr, pen, dev, devr, cpf, cpfr, rel, pay, score);
     }
   g_print ("\n");
-  g_print (_("* best stage count   > this design's stage count   wy: work-years\n"));
+  if (s->booster_count > 0)
+    g_print (_("* best row   > this design (with its boosters)   wy: work-years\n"));
+  else
+    g_print (_("* best stage count   > this design's stage count   wy: work-years\n"));
+  if (s->boosters_note[0] != '\0')
+    g_print ("%s\n", s->boosters_note);
   g_print ("%s\n", s->weighting);
   if (s->has_money && s->best >= 0)
     {
@@ -272,10 +304,11 @@ stages_table (const SwDesign *d, const SwStaging *s)
     }
   if (!s->reliability_given)
     g_print (_("No stage has reliability keys: the failure criterion is left out.\n"));
-  g_print (_("Stage counts above the design's repeat its top stage; boosters are not "
-             "modelled yet.\n"));
+  g_print (_("Stage counts above the design's repeat its top stage.\n"));
   if (s->fixed_note[0] != '\0')
     g_print ("%s%s%s\n", s->fixed_note, s->reuse_note[0] != '\0' ? " " : "", s->reuse_note);
+  if (s->losses_note[0] != '\0')
+    g_print ("%s\n", s->losses_note);
   g_print ("\n%s\n", sw_format_cautions ());
 }
 

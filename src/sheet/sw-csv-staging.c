@@ -35,6 +35,10 @@ sw_csv_staging_decision (const SwAnalysis *b)
   if (st.fixed_note[0] != '\0')
     g_string_append_printf (s, "# %s%s%s\n", st.fixed_note, st.reuse_note[0] != '\0' ? " " : "",
                             st.reuse_note);
+  if (st.boosters_note[0] != '\0')
+    g_string_append_printf (s, "# %s\n", st.boosters_note);
+  if (st.losses_note[0] != '\0')
+    g_string_append_printf (s, "# %s\n", st.losses_note);
   /* The money columns' unit, in words: the label may hold commas. */
   if (st.has_money)
     {
@@ -53,7 +57,8 @@ sw_csv_staging_decision (const SwAnalysis *b)
                       "development_work_years,development_recovered_work_years,"
                       "per_flight_work_years,per_flight_recovered_work_years,mission_success,"
                       "payload_at_design_liftoff_mass_kg,weighted_score,best,this_design,"
-                      "development_money,per_flight_money,per_flight_recovered_money\n");
+                      "development_money,per_flight_money,per_flight_recovered_money,"
+                      "arrangement\n");
   for (guint i = 0; i < st.n_rows; i++)
     {
       const SwStagingRow *r = &st.rows[i];
@@ -71,11 +76,12 @@ sw_csv_staging_decision (const SwAnalysis *b)
       number (s, r->payload_fixed_size_kg, FALSE);
       number (s, r->score, FALSE);
       g_string_append_printf (s, "%s,%s,", (int) i == st.best ? "true" : "false",
-                              r->n_stages == st.design_row ? "true" : "false");
+                              (int) i == st.design_index ? "true" : "false");
       number (s, st.has_money ? r->development_work_years * st.work_year_cost : NAN, FALSE);
       number (s, st.has_money ? r->cost_per_flight_work_years * st.work_year_cost : NAN, FALSE);
       number (s, st.has_money ? r->cost_per_flight_reused_work_years * st.work_year_cost : NAN,
-              TRUE);
+              FALSE);
+      g_string_append_printf (s, "%s\n", sw_arrangement_to_string (r->arrangement));
     }
   return g_string_free (s, FALSE);
 }

@@ -17,26 +17,60 @@
 #include <math.h>
 
 #define ROW_H 9.5
+/* With boosters: twelve rows, a little closer. */
+#define ROW_H_BOOSTERS 7.2
+#define NOTE_H_BOOSTERS 7.6
+/* With boosters the weighting has a line of its own, wrapped to two. */
+#define WEIGHTING_H 15.2
+
+static gboolean
+has_boosters (const SwDesign *design)
+{
+  return design != NULL && design->boosters.count > 0;
+}
+
+/* A design whose losses come from the simulated ascent: one more line says
+ * that the rows use its first-guess allowance. */
+static gboolean
+has_losses_note (const SwDesign *design)
+{
+  return design != NULL && design->mission.kind == SW_MISSION_ORBIT
+         && design->mission.loss_model == SW_LOSS_SIMULATE;
+}
 
 /* A fixed propellant load is not applied to the table: one more line says so. */
 static gboolean
 has_fixed_load (const SwDesign *design)
 {
-  if (design != NULL && design->boosters.count > 0)
-    return TRUE;    /* the line says that no row is this design */
   for (guint i = 0; design != NULL && i < design->n_stages; i++)
     if (design->stages[i].propellant.has_propellant_kg)
       return TRUE;
   return FALSE;
 }
 
+static double
+row_height (const SwDesign *design)
+{
+  return has_boosters (design) ? ROW_H_BOOSTERS : ROW_H;
+}
+
+static double
+note_height (const SwDesign *design)
+{
+  return has_boosters (design) ? NOTE_H_BOOSTERS : ROW_H;
+}
+
 double
 sw_sheet_staging_height (const SwDesign *design)
 {
-  /* Heading, column titles, six rows, the weighting and money lines (and
-   * the line on fixed loads). */
-  return 16.0 + ROW_H * (SW_STAGING_MAX_STAGES + 1) + 12.0 + ROW_H
-         + (has_fixed_load (design) ? ROW_H : 0.0);
+  guint rows = has_boosters (design) ? 2 * SW_STAGING_MAX_STAGES : SW_STAGING_MAX_STAGES;
+
+  /* Heading, column titles, the rows, the weighting and money lines (and
+   * the lines on boosters and on fixed loads). */
+  return 16.0 + row_height (design) * (rows + 1) + 12.0 + note_height (design)
+         + (has_boosters (design) ? WEIGHTING_H + 2.0 * note_height (design) : 0.0)
+         + (has_fixed_load (design) ? note_height (design) : 0.0)
+         + (has_losses_note (design) ? note_height (design) : 0.0);
 }
 
 void
@@ -46,14 +80,21 @@ sw_sheet_draw_staging (cairo_t *cr, const SwDesign *design, double x, double y, 
   const char *titles[] = { N_("stages"), N_("liftoff"), N_("recovered"), N_("development"),
                            N_("per flight"), N_("per flight, rec."), N_("success"),
                            N_("payload, this mass") };
-  const double widths[] = { 0.07, 0.12, 0.12, 0.14, 0.12, 0.14, 0.11, 0.18 };
+  const double serial_widths[] = { 0.07, 0.12, 0.12, 0.14, 0.12, 0.14, 0.11, 0.18 };
+  const double booster_widths[] = { 0.14, 0.11, 0.11, 0.13, 0.11, 0.14, 0.10, 0.16 };
+  const double *widths = has_boosters (design) ? booster_widths : serial_widths;
+  const double row_h = row_height (design), note_h = note_height (design);
+  const double font = has_boosters (design) ? 6.0 : 6.5;
   SwStaging s;
   double hy, cx, ty;
-  TextStyle head = sw_sheet_style_w (6.5, TRUE, MUTED, PANGO_ALIGN_RIGHT, 0);
+  TextStyle head;
   g_autofree char *statement = NULL;
 
-  hy = sw_sheet_heading (cr, _("Staging decision (serial stages; effort in work-years: an "
-                               "estimate, never a quote)"),
+  hy = sw_sheet_heading (cr, has_boosters (design)
+                               ? _("Staging decision, serial and with boosters (work-years: an "
+                                   "estimate, never a quote)")
+                               : _("Staging decision (serial stages; effort in work-years: an "
+                                   "estimate, never a quote)"),
                          x, y, w);
   if (design == NULL || !sw_staging_compute (design, SW_STAGING_MAX_STAGES, &s, NULL))
     {
@@ -61,6 +102,7 @@ sw_sheet_draw_staging (cairo_t *cr, const SwDesign *design, double x, double y, 
                             h - hy);
       return;
     }
+  head = sw_sheet_style_w (font, TRUE, MUTED, PANGO_ALIGN_RIGHT, 0);
   ty = y + hy;
   cx = x;
   for (guint c = 0; c < G_N_ELEMENTS (titles); c++)
@@ -69,22 +111,36 @@ sw_sheet_draw_staging (cairo_t *cr, const SwDesign *design, double x, double y, 
       sw_sheet_text_at (cr, _(titles[c]), cx, ty, &head);
       cx += widths[c] * w;
     }
-  ty += ROW_H;
+  ty += row_h;
   for (guint i = 0; i < s.n_rows; i++)
     {
       const SwStagingRow *r = &s.rows[i];
       gboolean best = (int) i == s.best;
-      TextStyle st = sw_sheet_style_w (6.5, best, best ? ACCENT : INK, PANGO_ALIGN_RIGHT, 0);
+      TextStyle st = sw_sheet_style_w (font, best, best ? ACCENT : INK, PANGO_ALIGN_RIGHT, 0);
       char *cells[8];
 
       if (best)
         {
           sw_sheet_set_color (cr, ACCENT_LIGHT, 1.0);
-          cairo_rectangle (cr, x, ty - 0.5, w, ROW_H);
+          cairo_rectangle (cr, x, ty - 0.5, w, row_h);
           cairo_fill (cr);
         }
-      cells[0] = g_strdup_printf ("%s%u", r->n_stages == s.design_row ? "▸ " : "",
-                                  r->n_stages);
+      if (i == s.n_counts && s.n_rows > s.n_counts)
+        {
+          /* A rule between the serial rows and the booster rows. */
+          sw_sheet_set_color (cr, MUTED, 1.0);
+          cairo_set_line_width (cr, 0.4);
+          cairo_move_to (cr, x, ty - 0.5);
+          cairo_line_to (cr, x + w, ty - 0.5);
+          cairo_stroke (cr);
+        }
+      if (r->arrangement == SW_ARRANGEMENT_BOOSTERS)
+        /* Translators: a stage count with the design's strap-on boosters,
+         * in a narrow column of the sheet ("2 + boosters") */
+        cells[0] = g_strdup_printf (_("%s%u + boosters"), (int) i == s.design_index ? "▸ " : "",
+                                    r->n_stages);
+      else
+        cells[0] = g_strdup_printf ("%s%u", (int) i == s.design_index ? "▸ " : "", r->n_stages);
       cells[1] = sw_format_mass (r->liftoff_mass_kg);
       cells[2] = sw_format_mass (r->liftoff_mass_reused_kg);
       cells[3] = sw_format_number (r->development_work_years, 0);
@@ -100,32 +156,68 @@ sw_sheet_draw_staging (cairo_t *cr, const SwDesign *design, double x, double y, 
           cx += widths[c] * w;
           g_free (cells[c]);
         }
-      ty += ROW_H;
+      ty += row_h;
     }
-  statement = g_strdup_printf (_("▸ this design; shaded: the best count; recovered: the first "
-                                 "stage %s. %s."),
-                               s.reuse_mode == SW_RECOVERY_LAUNCH_SITE
-                                 ? _("returns to the launch site") : _("lands downrange"),
-                               s.weighting);
+  if (s.booster_count > 0)
+    statement = g_strdup_printf (_("▸ this design; shaded: the best row; recovered: the first "
+                                   "stage %s."),
+                                 s.reuse_mode == SW_RECOVERY_LAUNCH_SITE
+                                   ? _("returns to the launch site") : _("lands downrange"));
+  else
+    statement = g_strdup_printf (_("▸ this design; shaded: the best count; recovered: the first "
+                                   "stage %s. %s."),
+                                 s.reuse_mode == SW_RECOVERY_LAUNCH_SITE
+                                   ? _("returns to the launch site") : _("lands downrange"),
+                                 s.weighting);
 
   {
     TextStyle note = sw_sheet_style_w (6.0, FALSE, MUTED, PANGO_ALIGN_LEFT, w);
     g_autofree char *money = NULL;
-    double money_y = ty + 1.0 + ROW_H;
+    double money_y = ty + 1.0 + note_h;
 
     note.ellipsize = TRUE;
     sw_sheet_text_at (cr, statement, x, ty + 1.0, &note);
-    if (design->boosters.count > 0)
+    if (s.booster_count > 0)
       {
-        /* Translators: the short form of the staging table's note on a
-         * design with strap-on boosters */
-        sw_sheet_text_at (cr, _("Every row is a serial vehicle without this design's "
-                                "strap-on boosters: no row is this design."),
-                          x, ty + 1.0 + ROW_H, &note);
-        money_y += ROW_H;
+        /* The weighting in full, wrapped: the score spans both sets of rows. */
+        TextStyle wrapped = note;
+        g_autofree char *weighting = g_strconcat (s.weighting, ".", NULL);
+
+        wrapped.ellipsize = FALSE;
+        sw_sheet_text_at (cr, weighting, x, money_y, &wrapped);
+        money_y += WEIGHTING_H;
       }
-    for (guint i = 0; design->boosters.count == 0 && s.fixed_note[0] != '\0'
-                      && i < design->n_stages; i++)
+    if (s.booster_count > 0)
+      {
+        /* Translators: %u is the number of boosters; the short form of the
+         * staging table's note on a design with strap-on boosters */
+        g_autofree char *with = g_strdup_printf (_("“+ boosters”: the same stages with this "
+                                                   "design's %u boosters beside the core; "
+                                                   "success counts the boosters as perfect; "
+                                                   "recovered: the core, boosters expended."),
+                                                 s.booster_count);
+        sw_sheet_text_at (cr, with, x, money_y, &note);
+        money_y += note_h;
+        g_autofree char *thrust = NULL;
+
+        if (s.core_thrust_to_weight_max < 1.0)
+          /* Translators: %.2f is a ratio of thrust to weight */
+          thrust = g_strdup_printf (_("No row checks the thrust at liftoff: the core alone lifts "
+                                      "none of the serial rows (at most %.2f times their weight, "
+                                      "vacuum thrust)."),
+                                    s.core_thrust_to_weight_max);
+        else if (s.core_thrust_to_weight_min < 1.0)
+          /* Translators: %.2f and %.2f are ratios of thrust to weight */
+          thrust = g_strdup_printf (_("No row checks the thrust at liftoff: the core alone lifts "
+                                      "only some serial rows (%.2f to %.2f times their weight, "
+                                      "vacuum thrust)."),
+                                    s.core_thrust_to_weight_min, s.core_thrust_to_weight_max);
+        else
+          thrust = g_strdup (_("No row checks the thrust at liftoff (rocket-equation sizing)."));
+        sw_sheet_text_at (cr, thrust, x, money_y, &note);
+        money_y += note_h;
+      }
+    for (guint i = 0; s.fixed_note[0] != '\0' && i < design->n_stages; i++)
       if (design->stages[i].propellant.has_propellant_kg)
         {
           /* Translators: %u is a stage number; the short form of the staging
@@ -134,10 +226,15 @@ sw_sheet_draw_staging (cairo_t *cr, const SwDesign *design, double x, double y, 
                                                       "is not applied: every row, this "
                                                       "design's and the recovered columns "
                                                       "included, sizes every stage."), i + 1);
-          sw_sheet_text_at (cr, fixed, x, ty + 1.0 + ROW_H, &note);
-          money_y += ROW_H;
+          sw_sheet_text_at (cr, fixed, x, money_y, &note);
+          money_y += note_h;
           break;
         }
+    if (s.losses_note[0] != '\0')
+      {
+        sw_sheet_text_at (cr, s.losses_note, x, money_y, &note);
+        money_y += note_h;
+      }
     /* Money only with the design's cost of a work-year, in its currency. */
     if (s.has_money && s.best >= 0)
       {

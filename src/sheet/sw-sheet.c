@@ -619,7 +619,9 @@ sw_sheet_draw_page (cairo_t *cr, const SwAnalysis *a, double width, double heigh
     double needed = 60.0 + (has_baseline (a) ? 23.0 : 0.0) + rows * 11.0;
     top_h = CLAMP (needed, avail * 0.34, avail * 0.46);
   }
-  chart_h = (avail - top_h) * 0.49;
+  /* With boosters the staging panel has twice the rows: the charts keep
+   * their height, the uncertainty and sensitivity panels give it up. */
+  chart_h = (avail - top_h) * (a->design->boosters.count > 0 ? 0.56 : 0.49);
   bottom_h = avail - top_h - chart_h;
   col = (p.w - 18.0) / 2.0;
 

@@ -758,6 +758,101 @@ sw_parallel_payload (const SwParallelVehicle *v, double delta_v_m_s, double *pay
   return TRUE;
 }
 
+typedef struct {
+  const SwParallelVehicle *v;
+  double delta_v, liftoff;
+  SwSplitMode split;
+  guint evaluations;
+} MassRoot;
+
+static double
+mass_residual (double payload, void *data)
+{
+  MassRoot *r = data;
+  SwSizing s;
+
+  r->evaluations++;
+  sw_size_parallel (r->v, payload, r->delta_v, r->split, &s);
+  return s.feasible ? s.liftoff_mass_kg - r->liftoff : NAN;
+}
+
+gboolean
+sw_parallel_payload_at_mass (const SwParallelVehicle *v, double delta_v_m_s, SwSplitMode split,
+                             double liftoff_mass_kg, double guess_kg, double *payload_kg)
+{
+  MassRoot r = { v, delta_v_m_s, liftoff_mass_kg, split, 0 };
+  gsl_function fn = { mass_residual, &r };
+  gsl_root_fsolver *solver;
+  double lo, hi, flo, fhi;
+  int status = GSL_CONTINUE;
+
+  g_return_val_if_fail (v != NULL && payload_kg != NULL, FALSE);
+
+  *payload_kg = NAN;
+  if (!(liftoff_mass_kg > 0.0) || !(guess_kg > 0.0))
+    return FALSE;
+  /* The liftoff mass rises with the payload: step out from the guess by a
+   * factor 1.25 until the mass is bracketed. */
+  lo = hi = guess_kg;
+  flo = fhi = mass_residual (guess_kg, &r);
+  if (!isfinite (flo))
+    {
+      /* Too heavy to close: come down until it does. */
+      for (int k = 0; k < 60 && !isfinite (fhi); k++)
+        fhi = mass_residual (hi *= 0.5, &r);
+      if (!isfinite (fhi))
+        return FALSE;
+      lo = hi;
+      flo = fhi;
+    }
+  for (int k = 0; k < 80 && flo > 0.0; k++)
+    {
+      hi = lo;
+      fhi = flo;
+      lo /= 1.25;
+      flo = mass_residual (lo, &r);
+      if (!isfinite (flo))
+        return FALSE;
+    }
+  for (int k = 0; k < 80 && isfinite (fhi) && fhi < 0.0; k++)
+    {
+      lo = hi;
+      flo = fhi;
+      hi *= 1.25;
+      fhi = mass_residual (hi, &r);
+    }
+  if (!(flo <= 0.0))
+    return FALSE;               /* even a tiny payload weighs more */
+  if (!isfinite (fhi))
+    {
+      /* Between the last closing payload and one that does not close:
+       * halve towards the closing side until a bracket is found. */
+      double a = lo;
+      for (int k = 0; k < 60 && !isfinite (fhi); k++)
+        fhi = mass_residual (hi = 0.5 * (a + hi), &r);
+      if (!(fhi >= 0.0))
+        return FALSE;           /* the heaviest vehicle that closes is lighter */
+    }
+  if (flo == 0.0 || fhi == 0.0)
+    {
+      *payload_kg = flo == 0.0 ? lo : hi;
+      return TRUE;
+    }
+  solver = gsl_root_fsolver_alloc (gsl_root_fsolver_brent);
+  gsl_root_fsolver_set (solver, &fn, lo, hi);
+  for (int iter = 0; iter < 100 && status == GSL_CONTINUE; iter++)
+    {
+      if (gsl_root_fsolver_iterate (solver) != GSL_SUCCESS)
+        break;
+      status = gsl_root_test_interval (gsl_root_fsolver_x_lower (solver),
+                                       gsl_root_fsolver_x_upper (solver), 0.0, 1e-8);
+    }
+  if (status == GSL_SUCCESS)
+    *payload_kg = gsl_root_fsolver_root (solver);
+  gsl_root_fsolver_free (solver);
+  return status == GSL_SUCCESS;
+}
+
 /* The upper stages' delta-v such that the whole vehicle gives @delta_v with
  * every load of the first group fixed (the core fixed, boosters fixed). */
 typedef struct {

@@ -77,4 +77,14 @@ double   sw_parallel_liftoff_mass (const SwParallelVehicle *v, double payload_kg
 gboolean sw_parallel_payload (const SwParallelVehicle *v, double delta_v_m_s, double *payload_kg,
                               double *empty_delta_v_m_s);
 
+/* The payload with which the vehicle, sized by sw_size_parallel() for
+ * @delta_v_m_s with @split, weighs @liftoff_mass_kg at liftoff: GSL's Brent
+ * root, bracketed by steps of 25 % from @guess_kg (> 0).  Not linear in the
+ * payload with boosters: their thrust is absolute, so their burn time and
+ * the core's share of phase 0 do not scale with the vehicle.  FALSE (and
+ * NAN) when no payload gives that mass. */
+gboolean sw_parallel_payload_at_mass (const SwParallelVehicle *v, double delta_v_m_s,
+                                      SwSplitMode split, double liftoff_mass_kg,
+                                      double guess_kg, double *payload_kg);
+
 G_END_DECLS

@@ -971,13 +971,6 @@ sw_carpet_compute (const SwDesign *design, const SwCarpetOptions *options, GErro
                   _("Every point is sized with the loss allowance of %s, the design's first "
                     "guess for its closed loop: no ascent is flown at the points."), losses);
     }
-  if (design->boosters.count > 0
-      && (c->output == SW_CARPET_DEVELOPMENT || c->output == SW_CARPET_COST_PER_FLIGHT))
-    {
-      if (c->note[0] != '\0')
-        g_strlcat (c->note, " ", sizeof c->note);
-      g_strlcat (c->note, _("The cost model leaves the strap-on boosters out."), sizeof c->note);
-    }
 
   for (guint j = 0; j < c->y.n; j++)
     {

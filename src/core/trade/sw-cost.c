@@ -80,6 +80,12 @@ sw_cost_vehicle_from_sizing (SwCostVehicle *vehicle, const SwSizing *sizing,
       vehicle->dry_mass_kg[k] = sizing->stages[k].structural_mass_kg;
       vehicle->engine_count[k] = MAX (in.engine_count, 1);
     }
+  if (sizing->boosters.present && sizing->boosters.count > 0
+      && isfinite (sizing->boosters.structural_mass_kg))
+    {
+      vehicle->booster_count = sizing->boosters.count;
+      vehicle->booster_dry_mass_kg = sizing->boosters.structural_mass_kg;
+    }
 }
 
 /* The design stage whose economics keys stage @k of the trade takes. */
@@ -103,7 +109,11 @@ sw_cost_compute (const SwDesign *design, const SwCostVehicle *vehicle, SwCost *o
   c = e->coefficients;
   memset (out, 0, sizeof *out);
   out->n_stages = MIN (vehicle->n_stages, SW_MAX_STAGES);
-  out->systems_factor = sw_cost_systems_factor (c[SW_CER_SYSTEMS_BASE], out->n_stages);
+  out->booster_count = vehicle->booster_count;
+  out->booster_engine = -1;
+  /* The booster set is one more element of the vehicle (see the header). */
+  out->systems_factor = sw_cost_systems_factor (c[SW_CER_SYSTEMS_BASE],
+                                                out->n_stages + (out->booster_count > 0 ? 1 : 0));
   q = MAX (e->production_run, 1);
   out->flights = q;
 
@@ -154,6 +164,29 @@ sw_cost_compute (const SwDesign *design, const SwCostVehicle *vehicle, SwCost *o
       engine_units[type] += stage_units[k] * n_eng;
     }
 
+  /* The boosters: one booster element and its own engine, each developed
+   * once and built count times per vehicle. */
+  if (out->booster_count > 0)
+    {
+      double dry = MAX (vehicle->booster_dry_mass_kg, 0.0);
+      SwCostEngine *en = &out->engines[out->n_engines];
+
+      out->booster_engine = (int) out->n_engines++;
+      g_strlcpy (en->name, _("Engine of the boosters"), sizeof en->name);
+      en->dry_mass_kg = e->engine_mass_fraction * dry;
+      en->developed = FALSE;
+      en->used = TRUE;
+      en->per_vehicle = out->booster_count;
+      engine_units[out->booster_engine] = out->booster_count * q;
+      out->booster_mass_kg = MAX (dry - en->dry_mass_kg, 0.0);
+      out->booster_development_work_years
+        = sw_cost_development (c[SW_CER_STAGE_DEV_FACTOR], c[SW_CER_STAGE_DEV_EXPONENT],
+                               out->booster_mass_kg);
+      out->booster_first_unit_work_years
+        = sw_cost_first_unit (c[SW_CER_STAGE_UNIT_FACTOR], c[SW_CER_STAGE_UNIT_EXPONENT],
+                              out->booster_mass_kg);
+    }
+
   for (guint i = 0; i < out->n_engines; i++)
     {
       SwCostEngine *en = &out->engines[i];
@@ -171,6 +204,7 @@ sw_cost_compute (const SwDesign *design, const SwCostVehicle *vehicle, SwCost *o
   /* Development: every element once. */
   for (guint k = 0; k < out->n_stages; k++)
     out->development_work_years += out->stage_development_work_years[k];
+  out->development_work_years += out->booster_development_work_years;
   for (guint i = 0; i < out->n_engines; i++)
     out->development_work_years += out->engines[i].development_work_years;
   out->development_work_years *= out->systems_factor;
@@ -181,6 +215,13 @@ sw_cost_compute (const SwDesign *design, const SwCostVehicle *vehicle, SwCost *o
       out->first_vehicle_work_years += out->stage_first_unit_work_years[k];
       out->production_work_years += out->stage_first_unit_work_years[k]
                                     * sw_cost_learning_total (e->learning_rate, stage_units[k]);
+    }
+  if (out->booster_count > 0)
+    {
+      out->first_vehicle_work_years += out->booster_count * out->booster_first_unit_work_years;
+      out->production_work_years += out->booster_first_unit_work_years
+                                    * sw_cost_learning_total (e->learning_rate,
+                                                              out->booster_count * q);
     }
   for (guint i = 0; i < out->n_engines; i++)
     {

@@ -13,7 +13,23 @@
  * several stages is developed once and produced for all of them.  A stage
  * without an engine type has its own engine, of mass engine_mass_fraction of
  * the stage's dry mass.  Operations, launch site, insurance and the like are
- * not in the model.  The figures are estimates of effort, never a quote. */
+ * not in the model.  The figures are estimates of effort, never a quote.
+ *
+ * Strap-on boosters (our choice of how they enter the published form): the
+ * booster set is two elements, developed once however many a vehicle
+ * carries.  The booster element is one booster's dry mass less its engine,
+ * costed with the stage relationships (a M^x, b M^y); the booster's engine
+ * is an engine of its own, of engine_mass_fraction of the booster's dry
+ * mass (as for a stage without an engine type; the economics keys give the
+ * boosters no engine type and no "developed" mark, so both are always
+ * developed), costed with the engine relationships.  Each is built count
+ * times per vehicle, so its learning curve runs over count x production-run
+ * units.  The systems factor counts the booster set as one more element:
+ * f0 = base^(N + 1) (the published model's N counts the vehicle's major
+ * elements, strap-ons included; from memory).  The published model has
+ * relationships of its own for solid motors (from memory); they are not
+ * used: a solid booster is costed as a liquid stage with an engine.
+ * Boosters are never recovered here (recovery is of the first stage). */
 #pragma once
 
 #include "sw-design.h"
@@ -23,8 +39,8 @@
 G_BEGIN_DECLS
 
 /* Engine elements: the design's engine types, then one own engine per stage
- * that has no type. */
-#define SW_COST_MAX_ENGINES (SW_ECONOMICS_MAX_ENGINE_TYPES + SW_MAX_STAGES)
+ * that has no type, then the boosters' engine. */
+#define SW_COST_MAX_ENGINES (SW_ECONOMICS_MAX_ENGINE_TYPES + SW_MAX_STAGES + 1)
 
 /* What the cost model needs of a vehicle. */
 typedef struct {
@@ -32,6 +48,8 @@ typedef struct {
   double dry_mass_kg[SW_MAX_STAGES];    /* structure, engines and landing gear */
   guint  engine_count[SW_MAX_STAGES];
   gboolean recovered_first_stage;       /* stage 0 flies flights_per_stage times */
+  guint  booster_count;                 /* strap-on boosters; 0: none */
+  double booster_dry_mass_kg;           /* one booster: structure and its engine */
 } SwCostVehicle;
 
 typedef struct {
@@ -53,6 +71,11 @@ typedef struct {
   guint  n_engines;
   SwCostEngine engines[SW_COST_MAX_ENGINES];
   int    engine_of_stage[SW_MAX_STAGES];             /* index into engines */
+  guint  booster_count;                              /* 0: no booster elements */
+  double booster_mass_kg;                            /* one booster less its engine */
+  double booster_development_work_years;             /* a M^x, before f0 */
+  double booster_first_unit_work_years;              /* b M^y, one booster */
+  int    booster_engine;                             /* index into engines; -1 none */
   double development_work_years;                     /* f0 * sum */
   double first_vehicle_work_years;                   /* every element's first unit */
   double production_work_years;                      /* the whole run, learning included */
@@ -74,7 +97,9 @@ double   sw_cost_learning_unit (double learning_rate, double unit);
 double   sw_cost_learning_total (double learning_rate, guint units);
 
 /* The vehicle of a sizing, the engine counts from the design's reliability
- * keys (stage k of the sizing taking design stage min(k, n - 1)). */
+ * keys (stage k of the sizing taking design stage min(k, n - 1)); the
+ * boosters from the sizing's (SwSizing.boosters: count and one booster's
+ * structural mass) when it has any. */
 void     sw_cost_vehicle_from_sizing (SwCostVehicle *vehicle, const SwSizing *sizing,
                                       const SwDesign *design);
 

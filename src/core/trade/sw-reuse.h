@@ -16,6 +16,7 @@
  * propellant taken from the first stage's load). */
 #pragma once
 
+#include "sw-booster-sizing.h"
 #include "sw-design.h"
 #include "sw-sizing.h"
 #include "sw-types.h"
@@ -53,5 +54,14 @@ double   sw_reuse_effective_eps (double eps, double hardware_fraction, double de
 gboolean sw_reuse_compute (const SwStageSet *set, double payload_kg, double delta_v_m_s,
                            SwSplitMode split, const SwEconomics *econ, SwRecoveryMode mode,
                            SwReuse *out);
+
+/* The same for a vehicle with strap-on boosters (sw_size_parallel): the
+ * core (stage 0) is recovered, the boosters are expended.  The payload at
+ * the expendable liftoff mass is the root of the sizing (Brent), not the
+ * linear ratio; payload_same_tanks_kg is not computed (NAN). */
+gboolean sw_reuse_compute_parallel (const SwParallelVehicle *v, double payload_kg,
+                                    double delta_v_m_s, SwSplitMode split,
+                                    const SwEconomics *econ, SwRecoveryMode mode,
+                                    SwReuse *out);
 
 G_END_DECLS

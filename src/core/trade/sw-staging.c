@@ -5,9 +5,12 @@
 
 #include "sw-staging.h"
 
+#include "sw-booster-sizing.h"
+#include "sw-budget.h"
 #include "sw-cost.h"
 #include "sw-economics.h"
 #include "sw-fixed-vehicle.h"
+#include "sw-format.h"
 #include "sw-reliability.h"
 #include "sw-reuse.h"
 #include "sw-sizing.h"
@@ -55,12 +58,101 @@ append_weight (GString *text, double weight, const char *what)
   g_string_append_printf (text, "%s %g", what, weight);
 }
 
+const char *
+sw_arrangement_to_string (SwArrangement arrangement)
+{
+  return arrangement == SW_ARRANGEMENT_BOOSTERS ? "boosters" : "serial";
+}
+
+const SwStagingRow *
+sw_staging_row (const SwStaging *staging, SwArrangement arrangement, guint n_stages)
+{
+  g_return_val_if_fail (staging != NULL, NULL);
+  for (guint i = 0; i < staging->n_rows; i++)
+    if (staging->rows[i].arrangement == arrangement && staging->rows[i].n_stages == n_stages)
+      return &staging->rows[i];
+  return NULL;
+}
+
+/* A row's figures from the expendable and recovered sizings. */
+static void
+fill_row (SwStagingRow *row, const SwDesign *design, const SwReuse *reuse)
+{
+  row->feasible = reuse->expendable.feasible;
+  /* A vehicle that does not close flies no mission: no success figure. */
+  if (!row->feasible)
+    row->success_probability = NAN;
+  row->reused_feasible = reuse->reusable.feasible;
+  g_strlcpy (row->reason, reuse->expendable.reason, sizeof row->reason);
+  if (row->feasible)
+    {
+      row->liftoff_mass_kg = reuse->expendable.liftoff_mass_kg;
+      row_costs (design, &reuse->expendable, FALSE, &row->development_work_years,
+                 &row->cost_per_flight_work_years);
+    }
+  if (row->reused_feasible)
+    {
+      SwCostVehicle vehicle;
+      SwCost cost;
+
+      row->liftoff_mass_reused_kg = reuse->reusable.liftoff_mass_kg;
+      row->payload_penalty_fraction = reuse->payload_penalty_fraction;
+      sw_cost_vehicle_from_sizing (&vehicle, &reuse->reusable, design);
+      /* The cost model takes the landed dry mass, not the recovery
+       * propellant the sizing carries as inert mass. */
+      vehicle.dry_mass_kg[0] = reuse->first_stage_dry_kg;
+      vehicle.recovered_first_stage = TRUE;
+      sw_cost_compute (design, &vehicle, &cost);
+      row->development_reused_work_years = cost.development_work_years;
+      row->cost_per_flight_reused_work_years = cost.cost_per_flight_work_years;
+    }
+}
+
+static void
+init_row (SwStagingRow *row, guint n, SwArrangement arrangement, const SwReliabilityCurve *rel)
+{
+  row->n_stages = n;
+  row->arrangement = arrangement;
+  row->liftoff_mass_kg = row->liftoff_mass_reused_kg = NAN;
+  row->payload_penalty_fraction = NAN;
+  row->development_work_years = row->development_reused_work_years = NAN;
+  row->cost_per_flight_work_years = row->cost_per_flight_reused_work_years = NAN;
+  /* With boosters: the boosters counted as perfect (no reliability keys). */
+  row->success_probability = rel->given ? rel->mission[n - 1] : NAN;
+  row->payload_fixed_size_kg = NAN;
+  row->score = NAN;
+}
+
+static void
+boosters_note (SwStaging *out, const SwDesign *design)
+{
+  g_autofree char *which = NULL;
+  const char *rest;
+
+  /* Translators: %u is the number of strap-on boosters, %u then a stage count */
+  which = g_strdup_printf (g_dngettext (GETTEXT_PACKAGE,
+                                        "Rows \"with boosters\" carry this design's %u strap-on "
+                                        "booster beside the core; the one of %u stages is this "
+                                        "design. The serial rows are the same stages without it.",
+                                        "Rows \"with boosters\" carry this design's %u strap-on "
+                                        "boosters beside the core; the one of %u stages is this "
+                                        "design. The serial rows are the same stages without "
+                                        "them.",
+                                        design->boosters.count),
+                           design->boosters.count, design->n_stages);
+  rest = _("Mission success counts the boosters as perfect (they have no reliability keys); "
+           "the recovered columns of the booster rows recover the core and expend the "
+           "boosters.");
+  g_snprintf (out->boosters_note, sizeof out->boosters_note, "%s %s", which, rest);
+}
+
 gboolean
 sw_staging_compute (const SwDesign *design, guint max_stages, SwStaging *out, GError **error)
 {
   const SwEconomics *e;
   SwReliabilityCurve rel;
   SwSizing own;
+  SwParallelVehicle pv;
   double dv, failure_best, best_score = INFINITY;
   double best_mass, best_dev, best_cost;
   g_autoptr (GString) text = g_string_new (NULL);
@@ -71,9 +163,11 @@ sw_staging_compute (const SwDesign *design, guint max_stages, SwStaging *out, GE
     return FALSE;
   e = &design->economics;
   memset (out, 0, sizeof *out);
-  out->n_rows = CLAMP (max_stages, 1, SW_STAGING_MAX_STAGES);
+  out->n_counts = CLAMP (max_stages, 1, SW_STAGING_MAX_STAGES);
+  out->n_rows = out->n_counts;
   out->design_stages = design->n_stages;
-  out->design_row = design->boosters.count > 0 ? 0 : design->n_stages;
+  out->design_row = design->n_stages;
+  out->design_index = -1;
   out->design_reuses = e->recovery_mode != SW_RECOVERY_NONE;
   out->reuse_mode = out->design_reuses ? e->recovery_mode : SW_RECOVERY_DOWNRANGE;
   out->weight_liftoff_mass = e->weight_liftoff_mass;
@@ -83,100 +177,141 @@ sw_staging_compute (const SwDesign *design, guint max_stages, SwStaging *out, GE
   out->has_money = e->has_work_year_cost;
   out->work_year_cost = e->has_work_year_cost ? e->work_year_cost : NAN;
   out->best = -1;
+  out->core_thrust_to_weight_min = out->core_thrust_to_weight_max = NAN;
 
   if (!sw_size_design (design, &own, error))
     return FALSE;
   out->design_liftoff_mass_kg = own.feasible ? own.liftoff_mass_kg : NAN;
 
-  if (design->boosters.count > 0)
-    /* Translators: %u is the number of strap-on boosters */
-    g_snprintf (out->fixed_note, sizeof out->fixed_note,
-                g_dngettext (GETTEXT_PACKAGE,
-                             "Every row is a serial vehicle without this design's %u strap-on "
-                             "booster, so no row is this design.",
-                             "Every row is a serial vehicle without this design's %u strap-on "
-                             "boosters, so no row is this design.",
-                             design->boosters.count),
-                design->boosters.count);
-  sw_reliability_curve_compute (design, out->n_rows, &rel);
+  /* sw_size_design has checked the core's thrust. */
+  if (design->boosters.count > 0 && sw_parallel_vehicle_from_design (&pv, design, NULL))
+    {
+      out->booster_count = design->boosters.count;
+      out->design_arrangement = SW_ARRANGEMENT_BOOSTERS;
+      out->n_rows = 2 * out->n_counts;
+      boosters_note (out, design);
+      for (guint i = 0; i < SW_MAX_STAGES; i++)
+        pv.fixed_kg[i] = 0.0;
+    }
+  if (design->n_stages <= out->n_counts)
+    out->design_index = (int) (design->n_stages - 1)
+                        + (out->booster_count > 0 ? (int) out->n_counts : 0);
+  if (design->mission.kind == SW_MISSION_ORBIT && design->mission.loss_model == SW_LOSS_SIMULATE)
+    {
+      SwBudget b;
+      g_autofree char *losses = sw_design_budget (design, &b, NULL)
+                                  ? sw_format_speed (b.losses_m_s) : g_strdup ("?");
+      /* Translators: %s is a speed ("2,500 m/s") */
+      g_snprintf (out->losses_note, sizeof out->losses_note,
+                  _("Every row is sized with the loss allowance of %s, the design's first guess "
+                    "for its closed loop; the totals use the closed loop's losses."),
+                  losses);
+    }
+  sw_reliability_curve_compute (design, out->n_counts, &rel);
   out->reliability_given = rel.given;
   for (guint i = 0; i < design->n_stages; i++)
     if (design->stages[i].propellant.has_propellant_kg)
       {
         /* Translators: %u is a stage number, %s its name */
-        char fixed[SW_REASON_MAX];
-
-        g_snprintf (fixed, sizeof fixed,
+        g_snprintf (out->fixed_note, sizeof out->fixed_note,
                     _("Every stage count is sized from the payload up, this design's own "
                       "included: the fixed propellant load of stage %u (%s) is not applied."),
                     i + 1, design->stages[i].name);
-        if (out->fixed_note[0] != '\0')
-          g_strlcat (out->fixed_note, " ", sizeof out->fixed_note);
-        g_strlcat (out->fixed_note, fixed, sizeof out->fixed_note);
         g_strlcpy (out->reuse_note, _("The recovered columns resize every stage too."),
                    sizeof out->reuse_note);
         break;
       }
 
-  for (guint n = 1; n <= out->n_rows; n++)
+  for (guint n = 1; n <= out->n_counts; n++)
     {
       SwStagingRow *row = &out->rows[n - 1];
       SwStageSet set;
       SwReuse reuse;
+      SwSplitMode split = n == design->n_stages || design->split != SW_SPLIT_MANUAL
+                            ? design->split : SW_SPLIT_OPTIMAL;
 
-      row->n_stages = n;
-      row->arrangement = SW_ARRANGEMENT_SERIAL;
-      row->liftoff_mass_kg = row->liftoff_mass_reused_kg = NAN;
-      row->payload_penalty_fraction = NAN;
-      row->development_work_years = row->development_reused_work_years = NAN;
-      row->cost_per_flight_work_years = row->cost_per_flight_reused_work_years = NAN;
-      row->success_probability = rel.given ? rel.mission[n - 1] : NAN;
-      row->payload_fixed_size_kg = NAN;
-      row->score = NAN;
-
+      init_row (row, n, SW_ARRANGEMENT_SERIAL, &rel);
       /* The design's own stages as they are (a manual split keeps its
        * shares); other counts with the stage-count curve's rule. */
       if (n == design->n_stages)
         sw_stage_set_from_design (&set, design);
       else
         sw_stage_set_extend (&set, design, n);
-      sw_reuse_compute (&set, design->payload_kg, dv,
-                        n == design->n_stages || design->split != SW_SPLIT_MANUAL
-                          ? design->split : SW_SPLIT_OPTIMAL,
-                        e, out->reuse_mode, &reuse);
-      row->feasible = reuse.expendable.feasible;
-      /* A vehicle that does not close flies no mission: no success figure. */
-      if (!row->feasible)
-        row->success_probability = NAN;
-      row->reused_feasible = reuse.reusable.feasible;
-      g_strlcpy (row->reason, reuse.expendable.reason, sizeof row->reason);
-      if (row->feasible)
-        {
-          row->liftoff_mass_kg = reuse.expendable.liftoff_mass_kg;
-          row_costs (design, &reuse.expendable, FALSE, &row->development_work_years,
-                     &row->cost_per_flight_work_years);
-          /* Sizing is linear in the payload: the vehicle of the design's
-           * liftoff mass carries payload times the ratio of the masses.
-           * The fixed-vehicle root finder gives the same (tests check). */
-          if (isfinite (out->design_liftoff_mass_kg))
-            row->payload_fixed_size_kg = design->payload_kg * out->design_liftoff_mass_kg
-                                         / row->liftoff_mass_kg;
-        }
-      if (row->reused_feasible)
-        {
-          SwCostVehicle vehicle;
-          SwCost cost;
+      sw_reuse_compute (&set, design->payload_kg, dv, split, e, out->reuse_mode, &reuse);
+      fill_row (row, design, &reuse);
+      /* Sizing is linear in the payload: the vehicle of the design's
+       * liftoff mass carries payload times the ratio of the masses.  The
+       * fixed-vehicle root finder gives the same (tests check). */
+      if (row->feasible && isfinite (out->design_liftoff_mass_kg))
+        row->payload_fixed_size_kg = design->payload_kg * out->design_liftoff_mass_kg
+                                     / row->liftoff_mass_kg;
+    }
 
-          row->liftoff_mass_reused_kg = reuse.reusable.liftoff_mass_kg;
-          row->payload_penalty_fraction = reuse.payload_penalty_fraction;
-          sw_cost_vehicle_from_sizing (&vehicle, &reuse.reusable, design);
-          /* The cost model takes the landed dry mass, not the recovery
-           * propellant the sizing carries as inert mass. */
-          vehicle.dry_mass_kg[0] = reuse.first_stage_dry_kg;
-          vehicle.recovered_first_stage = TRUE;
-          sw_cost_compute (design, &vehicle, &cost);
-          row->development_reused_work_years = cost.development_work_years;
-          row->cost_per_flight_reused_work_years = cost.cost_per_flight_work_years;
+  for (guint n = 1; out->booster_count > 0 && n <= out->n_counts; n++)
+    {
+      SwStagingRow *row = &out->rows[out->n_counts + n - 1];
+      SwReuse reuse;
+      SwSplitMode split = n == design->n_stages || design->split != SW_SPLIT_MANUAL
+                            ? design->split : SW_SPLIT_OPTIMAL;
+
+      init_row (row, n, SW_ARRANGEMENT_BOOSTERS, &rel);
+      if (n == design->n_stages)
+        sw_stage_set_from_design (&pv.set, design);
+      else
+        sw_stage_set_extend (&pv.set, design, n);
+      sw_reuse_compute_parallel (&pv, design->payload_kg, dv, split, e, out->reuse_mode, &reuse);
+      fill_row (row, design, &reuse);
+      /* Not linear with boosters (their thrust is absolute): the root. */
+      if (row->feasible && isfinite (out->design_liftoff_mass_kg))
+        {
+          double guess = design->payload_kg * out->design_liftoff_mass_kg / row->liftoff_mass_kg;
+          if (n == design->n_stages
+              && fabs (row->liftoff_mass_kg - out->design_liftoff_mass_kg)
+                   <= 1e-12 * out->design_liftoff_mass_kg)
+            row->payload_fixed_size_kg = design->payload_kg;
+          else
+            sw_parallel_payload_at_mass (&pv, dv, split, out->design_liftoff_mass_kg, guess,
+                                         &row->payload_fixed_size_kg);
+        }
+    }
+
+  /* No row checks the thrust: say so when the core alone lifts not every
+   * serial row (vacuum thrust over the liftoff weight). */
+  if (out->booster_count > 0 && isfinite (pv.core_thrust_n) && pv.core_thrust_n > 0.0)
+    {
+      double lo = INFINITY, hi = -INFINITY;
+      char thrust[SW_REASON_MAX];
+
+      for (guint i = 0; i < out->n_counts; i++)
+        if (out->rows[i].feasible)
+          {
+            double tw = pv.core_thrust_n / (out->rows[i].liftoff_mass_kg * SW_G0);
+            lo = MIN (lo, tw);
+            hi = MAX (hi, tw);
+          }
+      if (isfinite (lo))
+        {
+          out->core_thrust_to_weight_min = lo;
+          out->core_thrust_to_weight_max = hi;
+        }
+      if (lo < 1.0)
+        {
+          if (hi < 1.0)
+            /* Translators: %.2f is a ratio of thrust to weight */
+            g_snprintf (thrust, sizeof thrust,
+                        _("No row checks the thrust: the core's engines alone lift none of the "
+                          "serial rows (at most %.2f times their weight at liftoff, vacuum "
+                          "thrust)."),
+                        hi);
+          else
+            /* Translators: %.2f and %.2f are ratios of thrust to weight */
+            g_snprintf (thrust, sizeof thrust,
+                        _("No row checks the thrust: the core's engines alone lift only some of "
+                          "the serial rows (%.2f to %.2f times their weight at liftoff, vacuum "
+                          "thrust)."),
+                        lo, hi);
+          g_strlcat (out->boosters_note, " ", sizeof out->boosters_note);
+          g_strlcat (out->boosters_note, thrust, sizeof out->boosters_note);
         }
     }
 
@@ -229,8 +364,15 @@ sw_staging_compute (const SwDesign *design, guint max_stages, SwStaging *out, GE
     append_weight (text, out->weight_failure, _("failure probability"));
   if (text->len == 0)
     g_string_append (text, _("no criterion weighted"));
-  g_snprintf (out->weighting, sizeof out->weighting,
-              _("Weights: %s; each criterion divided by its best stage count, the lowest sum wins"),
-              text->str);
+  if (out->booster_count > 0)
+    g_snprintf (out->weighting, sizeof out->weighting,
+                _("Weights: %s; each criterion divided by its best row, serial and with "
+                  "boosters alike, the lowest sum wins"),
+                text->str);
+  else
+    g_snprintf (out->weighting, sizeof out->weighting,
+                _("Weights: %s; each criterion divided by its best stage count, the lowest sum "
+                  "wins"),
+                text->str);
   return TRUE;
 }

@@ -11,9 +11,27 @@
  *   - a score under the design's weighting: each criterion divided by its
  *     best value over the feasible stage counts, times its weight, summed;
  *     the lowest score is the best stage count.
- * Fixed propellant loads are not applied (fixed_note says so).
- * Boosters are not modelled yet: a row is a serial vehicle.  The row type
- * has room for the vehicle's arrangement so that booster rows can be added. */
+ * Fixed propellant loads of the stages are not applied (fixed_note says so).
+ *
+ * A design with strap-on boosters has two sets of rows: the serial rows
+ * (1..n stages, no boosters) and the booster rows (1..n stages as core and
+ * upper stages with the design's boosters beside the core, sized as
+ * sw_size_design sizes the design: sw_size_parallel, the boosters' fixed
+ * load kept, the stage-count curve's rule for the stages).  The booster row
+ * of the design's stage count is this design (design_index).  Booster rows:
+ *   - costs include the boosters (sw-cost.h);
+ *   - the payload of the fixed-size vehicle is the root of the sizing
+ *     (sw_parallel_payload_at_mass, GSL Brent), not the linear ratio;
+ *   - mission success counts the boosters as perfect (they have no
+ *     reliability keys), so it is the serial figure of the same stages;
+ *   - the recovered columns recover the core (stage 1) as a serial first
+ *     stage is recovered and expend the boosters (sw_reuse_compute_parallel).
+ * No row checks the thrust (rocket-equation sizing): without its boosters
+ * the core may not lift a serial row, and boosters_note then says so with
+ * the core's vacuum thrust over the serial rows' liftoff weight. 
+ * The score divides each criterion by its best value over every row that
+ * closes, serial and with boosters alike, so both sets are weighed on the
+ * same criteria and the best row is the lowest sum over both. */
 #pragma once
 
 #include "sw-cost.h"
@@ -24,10 +42,12 @@
 G_BEGIN_DECLS
 
 #define SW_STAGING_MAX_STAGES 6
+#define SW_STAGING_MAX_ROWS (2 * SW_STAGING_MAX_STAGES)
 #define SW_STAGING_WEIGHTING_MAX 320
 
 typedef enum {
   SW_ARRANGEMENT_SERIAL,          /* stages one above the other */
+  SW_ARRANGEMENT_BOOSTERS,        /* core and upper stages with the design's boosters */
 } SwArrangement;
 
 typedef struct {
@@ -49,12 +69,16 @@ typedef struct {
 } SwStagingRow;
 
 typedef struct {
-  guint    n_rows;                       /* stage counts 1..n_rows */
-  SwStagingRow rows[SW_STAGING_MAX_STAGES];
+  guint    n_rows;                       /* every row: the serial rows, then the
+                                          * booster rows (a design with boosters) */
+  guint    n_counts;                     /* stage counts 1..n_counts in each set */
+  SwStagingRow rows[SW_STAGING_MAX_ROWS];
   guint    design_stages;                /* the design's own stage count */
   guint    design_row;                   /* the stage count of the row that is this
-                                          * design; 0 when no row is (a design with
-                                          * strap-on boosters: every row is serial) */
+                                          * design (its arrangement below) */
+  SwArrangement design_arrangement;      /* boosters for a design with boosters */
+  int      design_index;                 /* index of that row; -1 beyond n_counts */
+  guint    booster_count;                /* the design's boosters; 0: serial rows only */
   int      best;                         /* index of the best row, -1 if none closes */
   SwRecoveryMode reuse_mode;             /* the design's, or downrange when expendable */
   gboolean design_reuses;                /* the design recovers its first stage */
@@ -74,7 +98,26 @@ typedef struct {
    * the recovered columns (sw-reuse.h resizes every stage too). */
   char     fixed_note[SW_REASON_MAX];
   char     reuse_note[SW_REASON_MAX];
+  /* With boosters: which rows are which, and what the booster rows leave
+   * out (the boosters' reliability); that no row checks the thrust, with
+   * the core's thrust-to-weight at liftoff when it lifts not every serial
+   * row; "" without boosters. */
+  char     boosters_note[4 * SW_REASON_MAX];
+  /* With boosters: the core's vacuum thrust over the liftoff weight of the
+   * serial rows that close, least and most; NAN otherwise. */
+  double   core_thrust_to_weight_min;
+  double   core_thrust_to_weight_max;
+  /* A design whose losses come from the simulated ascent: every row is
+   * sized with its first-guess allowance (no ascent is flown for a row),
+   * so its own row may differ from the closed loop's sizing; "" otherwise. */
+  char     losses_note[SW_REASON_MAX];
 } SwStaging;
+
+/* The row of @n_stages in @arrangement, or NULL. */
+const SwStagingRow *sw_staging_row (const SwStaging *staging, SwArrangement arrangement,
+                                    guint n_stages);
+/* "serial" or "boosters", the CLI's and the CSV's word. */
+const char *sw_arrangement_to_string (SwArrangement arrangement);
 
 /* The decision table for 1..@max_stages (clamped to 1..6).  FALSE (with
  * @error) only when the design's mission has no delta-v. */
