@@ -465,6 +465,9 @@ pick (SwWindow *w, GtkWidget *dd, guint index)
 
   g_assert_true (GTK_IS_STRING_LIST (model));
   g_assert_cmpuint (index, <, g_list_model_get_n_items (model));
+  /* The pointer away from where the list opens: the list selects the row
+   * under the pointer as it hovers, and Enter takes that one. */
+  xdo ("mousemove", "1", "1", NULL);
   focus_widget (w, dd);
   xdo ("key", "space", NULL);
   sw_test_wait_until (list_open_cb, dd, 20000, "the drop-down's list to open");
