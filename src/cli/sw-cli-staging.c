@@ -205,6 +205,7 @@ stages_json (const SwDesign *d, const SwStaging *s)
       sw_cli_add_number (b, "mission_success", r->success_probability);
       sw_cli_add_number (b, "payload_at_design_liftoff_mass_kg", r->payload_fixed_size_kg);
       sw_cli_add_number (b, "weighted_score", r->score);
+      sw_cli_add_number (b, "liftoff_thrust_to_weight", r->liftoff_thrust_to_weight);
       json_builder_end_object (b);
     }
   json_builder_end_array (b);

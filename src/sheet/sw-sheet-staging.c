@@ -202,18 +202,19 @@ sw_sheet_draw_staging (cairo_t *cr, const SwDesign *design, double x, double y, 
 
         if (s.core_thrust_to_weight_max < 1.0)
           /* Translators: %.2f is a ratio of thrust to weight */
-          thrust = g_strdup_printf (_("No row checks the thrust at liftoff: the core alone lifts "
-                                      "none of the serial rows (at most %.2f times their weight, "
-                                      "vacuum thrust)."),
+          thrust = g_strdup_printf (_("The core alone lifts none of the serial rows (at most "
+                                      "%.2f times their weight, vacuum thrust): none is a "
+                                      "candidate for the best row."),
                                     s.core_thrust_to_weight_max);
         else if (s.core_thrust_to_weight_min < 1.0)
           /* Translators: %.2f and %.2f are ratios of thrust to weight */
-          thrust = g_strdup_printf (_("No row checks the thrust at liftoff: the core alone lifts "
-                                      "only some serial rows (%.2f to %.2f times their weight, "
-                                      "vacuum thrust)."),
+          thrust = g_strdup_printf (_("The core alone lifts only some serial rows (%.2f to "
+                                      "%.2f times their weight, vacuum thrust): those it cannot "
+                                      "lift are no candidates for the best row."),
                                     s.core_thrust_to_weight_min, s.core_thrust_to_weight_max);
         else
-          thrust = g_strdup (_("No row checks the thrust at liftoff (rocket-equation sizing)."));
+          thrust = g_strdup (_("Rows the liftoff thrust cannot lift are no candidates for the "
+                               "best row."));
         sw_sheet_text_at (cr, thrust, x, money_y, &note);
         money_y += note_h;
       }

@@ -155,6 +155,7 @@ sw_staging_compute (const SwDesign *design, guint max_stages, SwStaging *out, GE
   SwParallelVehicle pv;
   double dv, failure_best, best_score = INFINITY;
   double best_mass, best_dev, best_cost;
+  guint grounded = 0;
   g_autoptr (GString) text = g_string_new (NULL);
 
   g_return_val_if_fail (design != NULL && out != NULL && design->n_stages > 0, FALSE);
@@ -275,8 +276,8 @@ sw_staging_compute (const SwDesign *design, guint max_stages, SwStaging *out, GE
         }
     }
 
-  /* No row checks the thrust: say so when the core alone lifts not every
-   * serial row (vacuum thrust over the liftoff weight). */
+  /* Say so when the core alone lifts not every serial row (vacuum thrust
+   * over the liftoff weight; such rows are no candidates for the best). */
   if (out->booster_count > 0 && isfinite (pv.core_thrust_n) && pv.core_thrust_n > 0.0)
     {
       double lo = INFINITY, hi = -INFINITY;
@@ -299,21 +300,39 @@ sw_staging_compute (const SwDesign *design, guint max_stages, SwStaging *out, GE
           if (hi < 1.0)
             /* Translators: %.2f is a ratio of thrust to weight */
             g_snprintf (thrust, sizeof thrust,
-                        _("No row checks the thrust: the core's engines alone lift none of the "
-                          "serial rows (at most %.2f times their weight at liftoff, vacuum "
-                          "thrust)."),
+                        _("The core's engines alone lift none of the serial rows (at most "
+                          "%.2f times their weight at liftoff, vacuum thrust): none of them is "
+                          "a candidate for the best row."),
                         hi);
           else
             /* Translators: %.2f and %.2f are ratios of thrust to weight */
             g_snprintf (thrust, sizeof thrust,
-                        _("No row checks the thrust: the core's engines alone lift only some of "
-                          "the serial rows (%.2f to %.2f times their weight at liftoff, vacuum "
-                          "thrust)."),
+                        _("The core's engines alone lift only some of the serial rows (%.2f "
+                          "to %.2f times their weight at liftoff, vacuum thrust): those they "
+                          "cannot lift are no candidates for the best row."),
                         lo, hi);
           g_strlcat (out->boosters_note, " ", sizeof out->boosters_note);
           g_strlcat (out->boosters_note, thrust, sizeof out->boosters_note);
         }
     }
+
+  /* The liftoff thrust over each row's weight (vacuum thrust, the design's
+   * first stage and, in a booster row, its boosters). */
+  {
+    const SwStage *first = &design->stages[0];
+    guint engines = first->reliability.has_engine_count ? first->reliability.engine_count : 0;
+    double f1 = sw_stage_thrust_vac_n (&first->propulsion, engines);
+    double fb = design->boosters.count * design->boosters.thrust_vac_kn * 1000.0;
+
+    for (guint i = 0; i < out->n_rows; i++)
+      {
+        SwStagingRow *row = &out->rows[i];
+        double f = f1 + (row->arrangement == SW_ARRANGEMENT_BOOSTERS ? fb : 0.0);
+
+        row->liftoff_thrust_to_weight = row->feasible && isfinite (f1) && f1 > 0.0
+                                          ? f / (row->liftoff_mass_kg * SW_G0) : NAN;
+      }
+  }
 
   /* The score: each criterion relative to its best stage count. */
   best_mass = best_of (out, G_STRUCT_OFFSET (SwStagingRow, liftoff_mass_kg));
@@ -348,6 +367,12 @@ sw_staging_compute (const SwDesign *design, guint max_stages, SwStaging *out, GE
       if (rel.given && failure_best > 0.0)
         score += out->weight_failure * (1.0 - row->success_probability) / failure_best;
       row->score = score;
+      /* A row the design's thrust cannot lift is no candidate. */
+      if (row->liftoff_thrust_to_weight < 1.0)
+        {
+          grounded++;
+          continue;
+        }
       if (score < best_score)
         {
           best_score = score;
@@ -374,5 +399,9 @@ sw_staging_compute (const SwDesign *design, guint max_stages, SwStaging *out, GE
                 _("Weights: %s; each criterion divided by its best stage count, the lowest sum "
                   "wins"),
                 text->str);
+  if (grounded > 0)
+    g_strlcat (out->weighting,
+               _("; rows the design's liftoff thrust cannot lift (vacuum thrust below their "
+                 "weight) are not candidates"), sizeof out->weighting);
   return TRUE;
 }

@@ -26,9 +26,12 @@
  *     reliability keys), so it is the serial figure of the same stages;
  *   - the recovered columns recover the core (stage 1) as a serial first
  *     stage is recovered and expend the boosters (sw_reuse_compute_parallel).
- * No row checks the thrust (rocket-equation sizing): without its boosters
- * the core may not lift a serial row, and boosters_note then says so with
- * the core's vacuum thrust over the serial rows' liftoff weight. 
+ * The sizing is the rocket equation; the thrust is checked after it: a row
+ * whose liftoff weight the design's thrust (first stage, vacuum, and the
+ * boosters in a booster row) does not exceed is no candidate for the best
+ * row, and the weighting says so; without its boosters the core may not
+ * lift a serial row, and boosters_note then says so with the core's vacuum
+ * thrust over the serial rows' liftoff weight.
  * The score divides each criterion by its best value over every row that
  * closes, serial and with boosters alike, so both sets are weighed on the
  * same criteria and the best row is the lowest sum over both. */
@@ -66,6 +69,12 @@ typedef struct {
   double   success_probability;          /* NAN without reliability keys */
   double   payload_fixed_size_kg;        /* at the design's liftoff mass */
   double   score;                        /* lower is better */
+  /* The design's liftoff thrust (the first stage's vacuum thrust, and the
+   * boosters' in a booster row) over the row's liftoff weight; NAN when the
+   * design gives no first-stage thrust or the row does not close.  A row
+   * below 1 cannot leave the pad with that thrust: it is no candidate for
+   * the best row. */
+  double   liftoff_thrust_to_weight;
 } SwStagingRow;
 
 typedef struct {
