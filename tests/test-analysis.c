@@ -280,6 +280,18 @@ test_trade_losses_note (void)
   b = sw_analysis_run (allowance, &o, NULL);
   g_assert_cmpstr (b->trade_losses_note, ==, "");
   g_assert_false (b->trade_losses_simulated);
+
+  /* A simulate design with boosters: its trade studies keep the first
+   * guess, and the note says so plainly (with or without the ascent). */
+  {
+    g_autoptr (SwDesign) fb = demo ("four-booster-cargo.stagewright");
+    g_autoptr (SwAnalysis) c = sw_analysis_run (fb, &o, NULL);
+
+    g_assert_cmpint (fb->mission.loss_model, ==, SW_LOSS_SIMULATE);
+    g_assert_nonnull (strstr (c->trade_losses_note, "first-guess allowance of 2,500 m/s"));
+    g_assert_nonnull (strstr (c->trade_losses_note, "strap-on boosters"));
+    g_assert_false (c->trade_losses_simulated);
+  }
 }
 
 /* "loss_model": "simulate": after the ascent phase the analysis carries the

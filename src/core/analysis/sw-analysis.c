@@ -346,14 +346,19 @@ note_trade_losses (SwAnalysis *r)
   r->trade_losses_simulated = FALSE;
   r->trade_losses_m_s = m->kind == SW_MISSION_ORBIT ? (m->has_losses ? m->losses_m_s : 0.0)
                                                     : NAN;
-  /* With boosters the trade studies are not run again with the closed
-   * loop's losses (each phased sizing takes milliseconds), so there is no
-   * loss basis to state (left as it was). */
-  if (m->kind != SW_MISSION_ORBIT || m->loss_model != SW_LOSS_SIMULATE
-      || r->sizing.boosters.present)
+  if (m->kind != SW_MISSION_ORBIT || m->loss_model != SW_LOSS_SIMULATE)
     return;
   v = sw_format_speed (r->trade_losses_m_s);
-  if (r->ascent_pending)
+  /* With boosters the trade studies are not run again with the closed
+   * loop's losses (each phased sizing takes milliseconds, a Monte Carlo of
+   * sized boosters seconds): said plainly. */
+  if (r->sizing.boosters.present)
+    /* Translators: %s is a speed such as "2,500 m/s" */
+    g_snprintf (r->trade_losses_note, sizeof r->trade_losses_note,
+                _("Sensitivities and Monte Carlo use the first-guess allowance of %s of losses: "
+                  "for a design with strap-on boosters they are not run again with the closed "
+                  "loop's losses."), v);
+  else if (r->ascent_pending)
     /* Translators: %s is a speed such as "1,600 m/s" */
     g_snprintf (r->trade_losses_note, sizeof r->trade_losses_note,
                 _("Sensitivities and Monte Carlo use the first-guess allowance of %s of losses "
