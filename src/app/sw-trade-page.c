@@ -420,8 +420,13 @@ show_histogram (SwTradePage *self, SwAnalysis *r)
     {
       /* Translators: %s is the number of samples, e.g. "10,000" */
       title = g_strdup_printf (_("Payload capability over %s samples"), samples);
+      /* A sample short even with no payload has a negative capability:
+       * the axis says what that means. */
       sw_plot_set_x_axis (self->histogram_plot,
-                          _("Payload that reaches the required delta-v"), FALSE);
+                          s->min < 0.0
+                            ? _("Payload that reaches the required delta-v (below 0: short even "
+                                "when empty)")
+                            : _("Payload that reaches the required delta-v"), FALSE);
       if (s->max < 5000.0)
         sw_plot_set_x_format (self->histogram_plot, _("%.0f kg"), 1.0);
       else
