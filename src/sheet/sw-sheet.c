@@ -266,7 +266,8 @@ draw_totals (const Page *p, const SwAnalysis *a, double x, double y, double w, d
       gboolean low = tw < a->options.min_thrust_to_weight;
       g_autofree char *v = sw_format_ratio (tw, 2);
       g_autofree char *lim = sw_format_ratio (a->options.min_thrust_to_weight, 2);
-      ADD_ROW (_("Thrust-to-weight at liftoff"),
+      /* Translators: a row label of the sheet's narrow totals column; keep it short */
+      ADD_ROW (C_("sheet row", "Thrust-to-weight at liftoff"),
                low ? g_strdup_printf (_("%s, below the limit of %s"), v, lim) : g_strdup (v),
                NULL, low ? BAD : INK);
     }
@@ -389,7 +390,8 @@ draw_stage_table (const Page *p, const SwAnalysis *a, double y)
   heads[3] = _("\316\265");
   heads[4] = _("\316\224v, m/s");
   heads[5] = _("Share");
-  heads[6] = _("Mass ratio");
+  /* Translators: a column heading of the sheet's stage table; keep it short */
+  heads[6] = C_("sheet column", "Mass ratio");
   heads[7] = tonnes ? _("Prop., t") : _("Prop., kg");
   heads[8] = tonnes ? _("Struct., t") : _("Struct., kg");
   heads[9] = tonnes ? _("Ignition, t") : _("Ignition, kg");
