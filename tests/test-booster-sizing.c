@@ -64,6 +64,21 @@ booster_design (guint count, gboolean crossfeed)
   return d;
 }
 
+/* Every load fixed: @pb per booster, the three stages' loads. */
+static void
+fix_loads (SwDesign *d, double pb, double p1, double p2, double p3)
+{
+  const double p[] = { p1, p2, p3 };
+
+  d->boosters.propellant.has_propellant_kg = TRUE;
+  d->boosters.propellant.propellant_kg = pb;
+  for (guint i = 0; i < G_N_ELEMENTS (p); i++)
+    {
+      d->stages[i].propellant.has_propellant_kg = TRUE;
+      d->stages[i].propellant.propellant_kg = p[i];
+    }
+}
+
 /* Every load fixed: the phases against the reference formulas written out
  * here once more. */
 static void
@@ -103,14 +118,7 @@ check_fixed_hand (gboolean crossfeed)
   dv3 = c3 * log ((m_up2) / (m_up2 - p3));
   total = dv0 + dv1 + dv2 + dv3;
 
-  d->boosters.propellant.has_propellant_kg = TRUE;
-  d->boosters.propellant.propellant_kg = pb;
-  d->stages[0].propellant.has_propellant_kg = TRUE;
-  d->stages[0].propellant.propellant_kg = p1;
-  d->stages[1].propellant.has_propellant_kg = TRUE;
-  d->stages[1].propellant.propellant_kg = p2;
-  d->stages[2].propellant.has_propellant_kg = TRUE;
-  d->stages[2].propellant.propellant_kg = p3;
+  fix_loads (d, pb, p1, p2, p3);
   /* Just within reach: the required delta-v 10 m/s below what it gives. */
   d->mission.delta_v_m_s = floor (total) - 10.0;
   g_assert_true (sw_size_design (d, &sz, NULL));
@@ -165,14 +173,7 @@ test_fairing_hand (void)
   double tb = pb / mdotb, q = mdot1 * tb;
   SwSizing sz;
 
-  d->boosters.propellant.has_propellant_kg = TRUE;
-  d->boosters.propellant.propellant_kg = pb;
-  d->stages[0].propellant.has_propellant_kg = TRUE;
-  d->stages[0].propellant.propellant_kg = p1;
-  d->stages[1].propellant.has_propellant_kg = TRUE;
-  d->stages[1].propellant.propellant_kg = p2;
-  d->stages[2].propellant.has_propellant_kg = TRUE;
-  d->stages[2].propellant.propellant_kg = p3;
+  fix_loads (d, pb, p1, p2, p3);
   d->ascent.present = TRUE;
   d->ascent.has_fairing_mass = TRUE;
   d->ascent.fairing_mass_kg = F;
