@@ -281,17 +281,96 @@ test_trade_losses_note (void)
   g_assert_cmpstr (b->trade_losses_note, ==, "");
   g_assert_false (b->trade_losses_simulated);
 
-  /* A simulate design with boosters: its trade studies keep the first
-   * guess, and the note says so plainly (with or without the ascent). */
+  /* A simulate design with boosters, not flown: the same note as a serial
+   * one (flown, it takes the loop's losses: test_booster_trade_uses_loop_losses). */
   {
     g_autoptr (SwDesign) fb = demo ("four-booster-cargo.stagewright");
     g_autoptr (SwAnalysis) c = sw_analysis_run (fb, &o, NULL);
 
     g_assert_cmpint (fb->mission.loss_model, ==, SW_LOSS_SIMULATE);
     g_assert_nonnull (strstr (c->trade_losses_note, "first-guess allowance of 2,500 m/s"));
-    g_assert_nonnull (strstr (c->trade_losses_note, "strap-on boosters"));
+    g_assert_nonnull (strstr (c->trade_losses_note, "the ascent was not simulated"));
     g_assert_false (c->trade_losses_simulated);
   }
+}
+
+/* A "simulate" design with strap-on boosters (the four-booster demo, fixed
+ * boosters and sized stages): after the closed loop its sensitivities, its
+ * Monte Carlo and its estimated coefficients (the boosters' included) are
+ * those of the loop's vehicle, as a serial design's are
+ * (test_trade_uses_loop_losses); the first phase's were of the first guess.
+ * The check values come from sizing the loop's design directly. */
+static void
+test_booster_trade_uses_loop_losses (void)
+{
+  g_autoptr (SwDesign) d = demo ("four-booster-cargo.stagewright");
+  g_autoptr (SwDesign) looped = NULL;
+  g_autoptr (SwAnalysis) fast = NULL, mc = NULL, flown = NULL, run = NULL;
+  g_autoptr (GError) error = NULL;
+  SwAnalysisOptions o;
+  SwSizing check;
+  SwMassEstimate m;
+  double guess;
+
+  g_assert_cmpint (d->mission.loss_model, ==, SW_LOSS_SIMULATE);
+  g_assert_cmpuint (d->boosters.count, >, 0);
+  guess = d->mission.losses_m_s;
+  sw_analysis_options_init (&o);
+  o.montecarlo_always = TRUE;
+  o.montecarlo_samples = 200;
+  o.montecarlo_use_seed = TRUE;
+  o.montecarlo_seed = 7;
+  o.band = FALSE;
+  o.threads = 1;
+
+  fast = sw_analysis_new (d, 1, &o, NULL);
+  g_assert_true (fast->ok && fast->ascent_pending && fast->has_sensitivity);
+  g_assert_false (fast->trade_losses_simulated);
+  g_assert_nonnull (strstr (fast->trade_losses_note, "until the simulated ascent closes"));
+  mc = sw_analysis_add_montecarlo (fast, NULL);
+  g_assert_true (mc->has_montecarlo);
+  flown = sw_analysis_add_ascent (mc, NULL);
+  g_assert_true (flown->ascent->closed_loop && flown->ascent->loop_converged);
+  g_assert_true (flown->sized_by_ascent && flown->sizing.boosters.present);
+  g_assert_true (flown->trade_losses_simulated);
+  g_assert_cmpfloat (flown->trade_losses_m_s, ==, flown->ascent->loop_sized_losses_m_s);
+  g_assert_nonnull (strstr (flown->trade_losses_note, "closed-loop losses"));
+  /* The loop's losses differ from the first guess (2,500 m/s) by more than
+   * the tolerances below can hide. */
+  g_assert_cmpfloat (fabs (flown->trade_losses_m_s - guess), >, 5.0);
+
+  looped = sw_design_copy (d);
+  sw_ascent_apply_loop (looped, flown->ascent);
+  g_assert_true (sw_size_design (looped, &check, &error));
+  g_assert_no_error (error);
+  g_assert_true (check.feasible && check.boosters.present);
+  g_assert_cmpfloat_with_epsilon (check.liftoff_mass_kg, flown->sizing.liftoff_mass_kg,
+                                  1e-6 * check.liftoff_mass_kg);
+  g_assert_true (flown->has_sensitivity);
+  g_assert_cmpfloat_with_epsilon (flown->sensitivity.liftoff_mass_kg, check.liftoff_mass_kg,
+                                  1e-6 * check.liftoff_mass_kg);
+  g_assert_cmpfloat (fabs (fast->sensitivity.liftoff_mass_kg - check.liftoff_mass_kg), >,
+                     100.0);
+  g_assert_true (flown->has_montecarlo);
+  g_assert_cmpfloat_with_epsilon (flown->montecarlo.nominal_liftoff_kg, check.liftoff_mass_kg,
+                                  1e-6 * check.liftoff_mass_kg);
+  g_assert_cmpfloat (fabs (mc->montecarlo.nominal_liftoff_kg - check.liftoff_mass_kg), >,
+                     100.0);
+  /* The estimate of the loop's vehicle, the boosters' included. */
+  sw_mass_estimate_design (looped, &m);
+  g_assert_true (m.ok && m.has_boosters && flown->mass_estimate.has_boosters);
+  g_assert_cmpfloat (flown->mass_estimate.boosters.structural_coefficient, ==,
+                     m.boosters.structural_coefficient);
+  g_assert_cmpfloat (flown->mass_estimate.stages[0].structural_coefficient, ==,
+                     m.stages[0].structural_coefficient);
+
+  /* sw_analysis_run flies first and runs the Monte Carlo once, with the
+   * loop's losses: the same nominal vehicle. */
+  run = sw_analysis_run (d, &o, NULL);
+  g_assert_true (run->trade_losses_simulated && run->has_montecarlo);
+  g_assert_cmpfloat_with_epsilon (run->montecarlo.nominal_liftoff_kg, check.liftoff_mass_kg,
+                                  1e-6 * check.liftoff_mass_kg);
+  g_assert_cmpfloat (run->montecarlo.liftoff.mean, ==, flown->montecarlo.liftoff.mean);
 }
 
 /* "loss_model": "simulate": after the ascent phase the analysis carries the
@@ -485,6 +564,8 @@ main (int argc, char **argv)
   g_test_add_func ("/analysis/cancel-and-phases", test_cancel_and_phases);
   g_test_add_func ("/analysis/trade-uses-loop-losses", test_trade_uses_loop_losses);
   g_test_add_func ("/analysis/trade-losses-note", test_trade_losses_note);
+  g_test_add_func ("/analysis/booster-trade-uses-loop-losses",
+                   test_booster_trade_uses_loop_losses);
   g_test_add_func ("/analysis/closed-loop-sizing", test_closed_loop_sizing);
   g_test_add_func ("/analysis/fixed-stage-trades", test_fixed_stage_trades);
   g_test_add_func ("/analysis/fixed-loads-loop", test_fixed_loads_loop);

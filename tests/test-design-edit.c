@@ -689,6 +689,65 @@ test_accept_structural_coefficients (void)
   g_assert_true (sw_design_equal (d, before));
 }
 
+/* The boosters' estimate joins the stages' in one edit: rounded to 4
+ * decimals alike, NAN keeps it, all or nothing when either is out of range,
+ * and an estimate for boosters the design does not have is refused. */
+static void
+test_accept_estimated_coefficients (void)
+{
+  static const double shares[] = { 0.6, 0.4 };
+  g_autoptr (SwDesign) d = manual_design (2, shares);
+  g_autoptr (SwDesign) before = NULL;
+  g_autoptr (GError) error = NULL;
+  double eps[2] = { NAN, NAN };
+  double good[2] = { 0.05, 0.08 };
+  gboolean changed = TRUE;
+
+  /* Without boosters: NAN for them keeps the design as it is. */
+  g_assert_true (sw_design_accept_estimated_coefficients (d, eps, 2, NAN, &changed, &error));
+  g_assert_no_error (error);
+  g_assert_false (changed);
+  before = sw_design_copy (d);
+  g_assert_false (sw_design_accept_estimated_coefficients (d, good, 2, 0.14, &changed, &error));
+  g_assert_error (error, SW_ERROR, SW_ERROR_RANGE);
+  g_assert_nonnull (strstr (error->message, "boosters.structural_coefficient"));
+  g_assert_true (sw_design_equal (d, before));
+  g_clear_error (&error);
+
+  d->boosters.count = 2;
+  sw_boosters_init_default (&d->boosters);
+  d->boosters.structural_coefficient = 0.11;
+  g_clear_pointer (&before, sw_design_free);
+  before = sw_design_copy (d);
+  /* Only the boosters move: 0.144574 rounds to 0.1446. */
+  g_assert_true (sw_design_accept_estimated_coefficients (d, eps, 2, 0.144574, &changed,
+                                                          &error));
+  g_assert_no_error (error);
+  g_assert_true (changed);
+  g_assert_cmpfloat (d->boosters.structural_coefficient, ==, 0.1446);
+  g_assert_cmpfloat (d->stages[0].structural_coefficient, ==,
+                     before->stages[0].structural_coefficient);
+  /* The same again moves nothing. */
+  g_assert_true (sw_design_accept_estimated_coefficients (d, eps, 2, 0.144574, &changed,
+                                                          &error));
+  g_assert_false (changed);
+  /* Out of range (limits table 0.01 to 0.6): nothing moves, the stages'
+   * good values included. */
+  g_clear_pointer (&before, sw_design_free);
+  before = sw_design_copy (d);
+  g_assert_false (sw_design_accept_estimated_coefficients (d, good, 2, 0.71, &changed, &error));
+  g_assert_error (error, SW_ERROR, SW_ERROR_RANGE);
+  g_assert_nonnull (strstr (error->message, "boosters.structural_coefficient"));
+  g_assert_true (sw_design_equal (d, before));
+  g_clear_error (&error);
+  /* Stages and boosters together. */
+  g_assert_true (sw_design_accept_estimated_coefficients (d, good, 2, 0.12, &changed, &error));
+  g_assert_true (changed);
+  g_assert_cmpfloat (d->stages[0].structural_coefficient, ==, 0.05);
+  g_assert_cmpfloat (d->stages[1].structural_coefficient, ==, 0.08);
+  g_assert_cmpfloat (d->boosters.structural_coefficient, ==, 0.12);
+}
+
 /* The economics object's stage indices follow their stages: engine type A
  * on stages {0, 1}, B on {3}, stages {2, 3} developed, in a 4-stage design.
  * Each expected mask is worked out by hand beside the call. */
@@ -769,6 +828,8 @@ main (int argc, char **argv)
   g_test_add_func ("/core/design-edit/baseline", test_baseline);
   g_test_add_func ("/core/design-edit/accept-structural-coefficients",
                    test_accept_structural_coefficients);
+  g_test_add_func ("/core/design-edit/accept-estimated-coefficients",
+                   test_accept_estimated_coefficients);
   g_test_add_func ("/core/design-edit/economics-follow-stages", test_economics_follow_stages);
   return g_test_run ();
 }

@@ -869,6 +869,51 @@ test_shape_and_estimate (void)
   sw_test_window_close (w);
 }
 
+/* Strap-on boosters: the core's working shows one booster's breakdown with
+ * its sources, and "Use estimated ε" takes the boosters' estimate with the
+ * stages' in one undo step (the four-booster demo). */
+static void
+test_booster_estimate (void)
+{
+  SwWindow *w = window_new ();
+  SwDocument *doc = sw_window_get_document (w);
+  g_autoptr (SwDesign) before = NULL;
+  g_autofree char *text = NULL;
+  SwAnalysis *r;
+  double eps[2], booster;
+
+  load_demo (w, "four-booster-cargo.stagewright");
+  r = sw_window_get_shown_result (w);
+  g_assert_true (r->ok && r->mass_estimate.ok && r->mass_estimate.has_boosters);
+  g_assert_true (r->mass_estimate.boosters.estimated);
+  sw_window_show_page (w, "working");
+  sw_working_view_set_selected (sw_window_get_working_view (w), 0);
+  text = sw_working_view_dup_text (sw_window_get_working_view (w));
+  g_test_message ("%s", text);
+  g_assert_nonnull (strstr (text, "structural coefficient estimated, per booster"));
+  g_assert_nonnull (strstr (text, "Nose cone"));
+  g_assert_nonnull (strstr (text, "Attachment"));
+  g_assert_nonnull (strstr (text, "Motor case"));
+  g_assert_nonnull (strstr (text, "every stage and the boosters (design → estimate):"));
+  g_assert_null (strstr (text, "nan"));
+
+  r = sw_window_get_shown_result (w);
+  before = sw_document_dup_design (doc);
+  for (guint i = 0; i < 2; i++)
+    eps[i] = round (r->mass_estimate.stages[i].structural_coefficient * 1e4) / 1e4;
+  booster = round (r->mass_estimate.boosters.structural_coefficient * 1e4) / 1e4;
+  g_assert_cmpfloat (booster, !=, before->boosters.structural_coefficient);
+  g_assert_true (gtk_widget_activate_action (GTK_WIDGET (w), "design.accept-eps-estimate", NULL));
+  wait_shown (w);
+  for (guint i = 0; i < 2; i++)
+    g_assert_cmpfloat (sw_document_get_design (doc)->stages[i].structural_coefficient, ==,
+                       eps[i]);
+  g_assert_cmpfloat (sw_document_get_design (doc)->boosters.structural_coefficient, ==, booster);
+  g_assert_true (sw_document_undo (doc));
+  g_assert_true (sw_design_equal (sw_document_get_design (doc), before));
+  sw_test_window_close (w);
+}
+
 /* The stage-count plot labels its crosses once: with a design that does
  * not close and several counts without a solution, the labels of
  * neighbouring crosses were printed over each other. */
@@ -977,6 +1022,7 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/window/min-width-extremes", test_min_width_extremes);
   g_test_add_func ("/gui/window/close-unsaved", test_close_unsaved);
   g_test_add_func ("/gui/window/shape-and-estimate", test_shape_and_estimate);
+  g_test_add_func ("/gui/window/booster-estimate", test_booster_estimate);
   g_test_add_func ("/gui/window/stage-count-labels", test_stage_count_labels);
 
   status = g_test_run ();

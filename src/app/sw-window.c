@@ -124,30 +124,34 @@ update_title (SwWindow *self)
  * belong to the design as it is now and the design would take them (NAN for
  * a stage that was not estimated).  FALSE otherwise. */
 static gboolean
-eps_estimate_applicable (SwWindow *self, double *eps, gboolean *changes)
+eps_estimate_applicable (SwWindow *self, double *eps, double *booster_eps, gboolean *changes)
 {
   const SwAnalysis *r = self->result;
   const SwDesign *now = sw_document_get_design (self->document);
+  const SwMassEstimate *m = r != NULL ? &r->mass_estimate : NULL;
   g_autoptr (SwDesign) d = NULL;
 
-  if (r == NULL || !r->ok || !r->mass_estimate.ok || !r->mass_estimate.any_estimated
-      || r->mass_estimate.n_stages != now->n_stages || !sw_design_equal (r->design, now))
+  if (r == NULL || !r->ok || !m->ok || !m->any_estimated
+      || m->n_stages != now->n_stages || !sw_design_equal (r->design, now))
     return FALSE;
   for (guint i = 0; i < now->n_stages; i++)
-    eps[i] = r->mass_estimate.stages[i].estimated
-             ? r->mass_estimate.stages[i].structural_coefficient : NAN;
+    eps[i] = m->stages[i].estimated ? m->stages[i].structural_coefficient : NAN;
+  *booster_eps = m->has_boosters && m->boosters.estimated ? m->boosters.structural_coefficient
+                                                          : NAN;
   d = sw_design_copy (now);
-  return sw_design_accept_structural_coefficients (d, eps, now->n_stages, changes, NULL);
+  return sw_design_accept_estimated_coefficients (d, eps, now->n_stages, *booster_eps, changes,
+                                                  NULL);
 }
 
 static void
 update_actions (SwWindow *self)
 {
-  double eps[SW_MAX_STAGES];
+  double eps[SW_MAX_STAGES], booster_eps;
   gboolean changes = FALSE;
 
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "design.accept-eps-estimate",
-                                 eps_estimate_applicable (self, eps, &changes) && changes);
+                                 eps_estimate_applicable (self, eps, &booster_eps, &changes)
+                                 && changes);
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "design.undo",
                                  sw_document_can_undo (self->document));
   gtk_widget_action_set_enabled (GTK_WIDGET (self), "design.redo",
@@ -501,19 +505,20 @@ page_action (GtkWidget *widget, const char *name, GVariant *param)
 }
 
 /* The structural coefficients estimated from the mass-estimating
- * relationships replace the design's: one named core edit, one undo step. */
+ * relationships replace the design's, the boosters' included: one named
+ * core edit, one undo step. */
 static void
 accept_eps_estimate_action (GtkWidget *widget, const char *name, GVariant *param)
 {
   SwWindow *self = SW_WINDOW (widget);
-  double eps[SW_MAX_STAGES];
+  double eps[SW_MAX_STAGES], booster_eps;
   gboolean changes = FALSE;
   g_autoptr (SwDesign) d = NULL;
 
-  if (!eps_estimate_applicable (self, eps, &changes) || !changes)
+  if (!eps_estimate_applicable (self, eps, &booster_eps, &changes) || !changes)
     return;
   d = sw_document_dup_design (self->document);
-  if (!sw_design_accept_structural_coefficients (d, eps, d->n_stages, NULL, NULL))
+  if (!sw_design_accept_estimated_coefficients (d, eps, d->n_stages, booster_eps, NULL, NULL))
     return;
   sw_document_commit (self->document, g_steal_pointer (&d), NULL);
 }

@@ -183,8 +183,9 @@ append_mass_estimate (GString *s, const SwAnalysis *r, guint i)
       formula (s, "%s", _("outside the accepted range of the structural coefficient: it "
                           "cannot be used"));
   }
-  /* What "Use estimated ε" does to every stage. */
-  formula (s, "%s", _("every stage (design → estimate):"));
+  /* What "Use estimated ε" does to every stage (and the boosters). */
+  formula (s, "%s", m->has_boosters ? _("every stage and the boosters (design → estimate):")
+                                    : _("every stage (design → estimate):"));
   for (guint k = 0; k < m->n_stages && k < r->design->n_stages; k++)
     {
       const SwStageEstimate *o = &m->stages[k];
@@ -196,6 +197,76 @@ append_mass_estimate (GString *s, const SwAnalysis *r, guint i)
         formula (s, _("  %u %s: %s (kept: %s)"), k + 1, r->design->stages[k].name, was,
                  o->reason);
     }
+  if (m->has_boosters)
+    {
+      const SwStageEstimate *o = &m->boosters;
+      g_autofree char *was = RATIO (o->design_coefficient);
+      g_autofree char *est = o->estimated ? RATIO (o->structural_coefficient) : NULL;
+      if (o->estimated)
+        formula (s, "  B %s: %s → %s", r->design->boosters.name, was, est);
+      else
+        formula (s, _("  B %s: %s (kept: %s)"), r->design->boosters.name, was, o->reason);
+    }
+}
+
+/* One strap-on booster's structure from the mass-estimating relationships
+ * (sw-mass-estimate.h: a nose cone and the attachment in place of an
+ * interstage), each with its source; shown with the core's working. */
+static void
+append_booster_estimate (GString *s, const SwAnalysis *r)
+{
+  const SwMassEstimate *m = &r->mass_estimate;
+  const SwStageEstimate *e = &m->boosters;
+
+  if (!m->ok || !m->has_boosters)
+    return;
+  g_string_append_c (s, '\n');
+  /* Translators: %s is the boosters' name */
+  g_string_append_printf (s, _("%s: structural coefficient estimated, per booster\n"),
+                          r->design->boosters.name);
+  if (!e->estimated)
+    {
+      formula (s, _("not estimated: %s"), e->reason);
+      return;
+    }
+  {
+    g_autofree char *t = sw_format_number (e->thrust_n / 1000.0, 1);
+    g_autofree char *ar = sw_format_number (e->area_ratio, 0);
+    g_autofree char *d = M (e->diameter_m);
+    g_autofree char *a = M (e->nose_area_m2);
+    g_autofree char *l = M (e->length_m);
+
+    if (e->item_kg[SW_MER_MOTOR_CASE] > 0.0)
+      formula (s, _("thrust %s kN per booster (solid: the motor case in place of tanks and "
+                    "engine)"), t);
+    else
+      formula (s, _("thrust %s kN per booster, one engine, area ratio %s (assumed)"), t, ar);
+    formula (s, _("diameter D = %s m%s, length %s m; nose cone 1.2·D long, side area %s m²"), d,
+             r->design->boosters.has_diameter ? "" : _(" (half the core's)"), l, a);
+  }
+  for (guint k = 0; k < SW_N_MER; k++)
+    {
+      g_autofree char *kg = NULL;
+      if (e->item_kg[k] == 0.0)
+        continue;
+      kg = KG (e->item_kg[k]);
+      formula (s, "%-17s %12s kg   %s", sw_mer_item_label (k), kg, sw_mer_item_source (k));
+    }
+  {
+    g_autofree char *ms = KG (e->structural_mass_kg);
+    g_autofree char *mp = KG (e->propellant_mass_kg);
+    g_autofree char *eps = RATIO (e->structural_coefficient);
+    g_autofree char *was = RATIO (e->design_coefficient);
+    formula (s, _("m_s = %s kg with m_p = %s kg: ε = %s (the design says %s)"), ms, mp, eps,
+             was);
+    if (m->boosters_load_held)
+      formula (s, "%s", _("their load held at the design's own sizing, as the split is; "
+                          "accepting the estimate lets the sizing choose it again"));
+    if (!sw_limit_contains (SW_LIMIT_STRUCTURAL_COEFFICIENT, round (e->structural_coefficient
+                                                                    * 1e4) / 1e4))
+      formula (s, "%s", _("outside the accepted range of the structural coefficient: it "
+                          "cannot be used"));
+  }
 }
 
 static char *
@@ -374,6 +445,9 @@ build_text (SwWorkingView *self, gboolean for_copy)
       head (s, _("Vehicle"));
       formula (s, _("liftoff mass (M0, boosters included) = %s kg"), lift);
       formula (s, _("payload fraction = %s / %s = %s"), pl, lift, frac);
+      append_shape (s, r, i);
+      append_mass_estimate (s, r, i);
+      append_booster_estimate (s, r);
       if (for_copy)
         {
           g_string_append_c (s, '\n');

@@ -106,8 +106,37 @@ add_vehicle_shape (JsonBuilder *b, const SwVehicleShape *v)
   json_builder_end_object (b);
 }
 
+/* One stage's or booster's estimate: its figures and the items. */
+static void
+add_one_estimate (JsonBuilder *b, const char *name, const SwMassEstimate *m,
+                  const SwStageEstimate *e)
+{
+  gboolean shown = m->ok && e->estimated;
+
+  json_builder_begin_object (b);
+  json_builder_set_member_name (b, "name");
+  json_builder_add_string_value (b, name);
+  json_builder_set_member_name (b, "estimated");
+  json_builder_add_boolean_value (b, shown);
+  add_string_or_null (b, "reason", e->estimated ? NULL : e->reason);
+  sw_cli_add_number (b, "structural_coefficient", shown ? e->structural_coefficient : NAN);
+  sw_cli_add_number (b, "design_structural_coefficient", e->design_coefficient);
+  sw_cli_add_number (b, "structural_mass_kg", shown ? e->structural_mass_kg : NAN);
+  sw_cli_add_number (b, "propellant_mass_kg", shown ? e->propellant_mass_kg : NAN);
+  sw_cli_add_number (b, "thrust_n", shown ? e->thrust_n : NAN);
+  json_builder_set_member_name (b, "thrust_assumed");
+  json_builder_add_boolean_value (b, e->thrust_assumed);
+  sw_cli_add_number (b, "area_ratio", shown ? e->area_ratio : NAN);
+  json_builder_set_member_name (b, "items_kg");
+  json_builder_begin_object (b);
+  for (guint k = 0; k < SW_N_MER; k++)
+    sw_cli_add_number (b, sw_mer_item_key (k), shown ? e->item_kg[k] : NAN);
+  json_builder_end_object (b);
+}
+
 /* "eps_estimate": the structural coefficients of the mass-estimating
- * relationships at their fixed point with the sizing. */
+ * relationships at their fixed point with the sizing; with boosters a
+ * "boosters" object (per booster, its count beside), else null. */
 static void
 add_eps_estimate (JsonBuilder *b, const SwDesign *d, const SwMassEstimate *m)
 {
@@ -123,31 +152,24 @@ add_eps_estimate (JsonBuilder *b, const SwDesign *d, const SwMassEstimate *m)
   json_builder_begin_array (b);
   for (guint i = 0; i < m->n_stages && i < d->n_stages; i++)
     {
-      const SwStageEstimate *e = &m->stages[i];
-      gboolean shown = m->ok && e->estimated;
-
-      json_builder_begin_object (b);
-      json_builder_set_member_name (b, "name");
-      json_builder_add_string_value (b, d->stages[i].name);
-      json_builder_set_member_name (b, "estimated");
-      json_builder_add_boolean_value (b, shown);
-      add_string_or_null (b, "reason", e->estimated ? NULL : e->reason);
-      sw_cli_add_number (b, "structural_coefficient", shown ? e->structural_coefficient : NAN);
-      sw_cli_add_number (b, "design_structural_coefficient", e->design_coefficient);
-      sw_cli_add_number (b, "structural_mass_kg", shown ? e->structural_mass_kg : NAN);
-      sw_cli_add_number (b, "propellant_mass_kg", shown ? e->propellant_mass_kg : NAN);
-      sw_cli_add_number (b, "thrust_n", shown ? e->thrust_n : NAN);
-      json_builder_set_member_name (b, "thrust_assumed");
-      json_builder_add_boolean_value (b, e->thrust_assumed);
-      sw_cli_add_number (b, "area_ratio", shown ? e->area_ratio : NAN);
-      json_builder_set_member_name (b, "items_kg");
-      json_builder_begin_object (b);
-      for (guint k = 0; k < SW_N_MER; k++)
-        sw_cli_add_number (b, sw_mer_item_key (k), shown ? e->item_kg[k] : NAN);
-      json_builder_end_object (b);
+      add_one_estimate (b, d->stages[i].name, m, &m->stages[i]);
       json_builder_end_object (b);
     }
   json_builder_end_array (b);
+  json_builder_set_member_name (b, "boosters");
+  if (m->has_boosters)
+    {
+      add_one_estimate (b, d->boosters.name, m, &m->boosters);
+      json_builder_set_member_name (b, "count");
+      json_builder_add_int_value (b, d->boosters.count);
+      sw_cli_add_number (b, "nose_cone_side_area_m2",
+                         m->ok && m->boosters.estimated ? m->boosters.nose_area_m2 : NAN);
+      sw_cli_add_number (b, "diameter_m",
+                         m->ok && m->boosters.estimated ? m->boosters.diameter_m : NAN);
+      json_builder_end_object (b);
+    }
+  else
+    json_builder_add_null_value (b);
   json_builder_set_member_name (b, "sources");
   json_builder_begin_object (b);
   for (guint k = 0; k < SW_N_MER; k++)
@@ -474,6 +496,17 @@ print_sizing_table (const SwAnalysis *a)
                 g_print (_("  %u: %s (file %s)"), i + 1, est, was);
               else
                 g_print (_("  %u: not estimated"), i + 1);
+            }
+          if (a->mass_estimate.has_boosters)
+            {
+              const SwStageEstimate *e = &a->mass_estimate.boosters;
+              g_autofree char *was = sw_format_number (e->design_coefficient, 4);
+              g_autofree char *est = sw_format_number (e->structural_coefficient, 4);
+              if (e->estimated)
+                /* Translators: the boosters' estimated structural coefficient, then the file's */
+                g_print (_("  boosters: %s (file %s)"), est, was);
+              else
+                g_print ("%s", _("  boosters: not estimated"));
             }
           g_print ("\n");
         }

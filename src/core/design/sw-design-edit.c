@@ -405,8 +405,16 @@ gboolean
 sw_design_accept_structural_coefficients (SwDesign *design, const double *eps, guint n,
                                           gboolean *changed, GError **error)
 {
+  return sw_design_accept_estimated_coefficients (design, eps, n, NAN, changed, error);
+}
+
+gboolean
+sw_design_accept_estimated_coefficients (SwDesign *design, const double *eps, guint n,
+                                         double booster_eps, gboolean *changed, GError **error)
+{
   const SwLimit *lim = sw_limit_get (SW_LIMIT_STRUCTURAL_COEFFICIENT);
   double rounded[SW_MAX_STAGES];
+  double booster_rounded;
   gboolean moved = FALSE;
 
   g_return_val_if_fail (design != NULL && (eps != NULL || n == 0), FALSE);
@@ -438,11 +446,34 @@ sw_design_accept_structural_coefficients (SwDesign *design, const double *eps, g
           return FALSE;
         }
     }
+  booster_rounded = design->boosters.structural_coefficient;
+  if (!isnan (booster_eps))
+    {
+      if (design->boosters.count == 0)
+        {
+          g_set_error (error, SW_ERROR, SW_ERROR_RANGE,
+                       _("(design): boosters.structural_coefficient: an estimate for boosters "
+                         "the design does not have"));
+          return FALSE;
+        }
+      booster_rounded = round (booster_eps * 1e4) / 1e4;
+      if (!isfinite (booster_rounded)
+          || !sw_limit_contains (SW_LIMIT_STRUCTURAL_COEFFICIENT, booster_rounded))
+        {
+          g_set_error (error, SW_ERROR, SW_ERROR_RANGE,
+                       _("(design): boosters.structural_coefficient: the estimate %g is "
+                         "outside the accepted range %g to %g"),
+                       booster_eps, lim->min, lim->max);
+          return FALSE;
+        }
+    }
   for (guint i = 0; i < n; i++)
     {
       moved = moved || rounded[i] != design->stages[i].structural_coefficient;
       design->stages[i].structural_coefficient = rounded[i];
     }
+  moved = moved || booster_rounded != design->boosters.structural_coefficient;
+  design->boosters.structural_coefficient = booster_rounded;
   if (changed != NULL)
     *changed = moved;
   return TRUE;

@@ -108,6 +108,13 @@ gboolean sw_design_set_stage_has_isp_sl (SwDesign *design, guint index, gboolean
 gboolean sw_design_accept_structural_coefficients (SwDesign *design, const double *eps,
                                                    guint n, gboolean *changed,
                                                    GError **error);
+/* The same with the boosters' estimated coefficient @booster_eps too (NAN
+ * keeps the design's; a number for a design without boosters is an error
+ * naming boosters.structural_coefficient), rounded and checked alike, all or
+ * nothing with the stages' (one edit, one undo step in the window). */
+gboolean sw_design_accept_estimated_coefficients (SwDesign *design, const double *eps, guint n,
+                                                  double booster_eps, gboolean *changed,
+                                                  GError **error);
 
 /* ---- the baseline ------------------------------------------------------ */
 

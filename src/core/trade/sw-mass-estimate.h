@@ -27,6 +27,33 @@
  * A stage without thrust_vac_kn takes the thrust its default ignition
  * thrust-to-weight gives (sw-stage-thrust.h), marked as assumed.
  *
+ * Strap-on boosters ("boosters"), per booster, with its own propellant,
+ * thrust and diameter (its own, or half the core's, as the vehicle shape
+ * and the drag area take it):
+ *   tanks, insulation, engines, thrust structure as a stage (one engine of
+ *                     the booster's thrust, area ratio SW_MER_AREA_RATIO_
+ *                     FIRST: it fires from the ground); a solid booster the
+ *                     motor case in their place
+ *   nose cone         4.95 A^1.15, the fairing relationship (Akin 2016) on
+ *                     the side area A of a cone of the booster's diameter
+ *                     and SW_MER_BOOSTER_NOSE_PER_DIAMETER diameters long
+ *                     (our assumption: a booster's nose is a small fairing;
+ *                     the length is our choice, the proportion the drawings
+ *                     use)
+ *   attachment        2.55e-4 F_b, the thrust-structure relationship (Akin
+ *                     2016) again on the booster's thrust (our assumption:
+ *                     the fittings carry the booster's thrust into the core;
+ *                     no published relationship for them is at hand)
+ *   avionics, wiring  as a stage, on one booster's gross mass and length
+ * No interstage: nothing stands on a booster.  The boosters' coefficient
+ * joins the fixed point with the stages'.  Fixed boosters keep their load;
+ * sized ones keep the load of the design's own sizing (the load of least
+ * liftoff mass with the design's coefficients), held like the split below
+ * and for the same reason: re-choosing it each round with a coefficient that
+ * rises as the booster shrinks (its engine and fittings do not) runs away to
+ * no booster at all (a coefficient near 1 in a trial).  Accepting the
+ * estimate lets the sizing choose their load again.
+ *
  * The fixed point: size with the coefficients, estimate the structure from
  * the sized masses, eps = Ms / (Ms + Mp), size again, until no coefficient
  * moves by more than 1e-10.  The delta-v split is held at the design's own
@@ -50,6 +77,8 @@ G_BEGIN_DECLS
 #define SW_MER_AREA_RATIO_UPPER 60.0
 #define SW_MER_TOLERANCE 1e-10
 #define SW_MER_MAX_ITERATIONS 200
+/* A booster's nose cone, in booster diameters (our choice, see above). */
+#define SW_MER_BOOSTER_NOSE_PER_DIAMETER 1.2
 
 typedef enum {
   SW_MER_TANKS,
@@ -60,6 +89,8 @@ typedef enum {
   SW_MER_AVIONICS,
   SW_MER_WIRING,
   SW_MER_MOTOR_CASE,
+  SW_MER_NOSE_CONE,                /* boosters only */
+  SW_MER_ATTACHMENT,               /* boosters only */
   SW_N_MER
 } SwMerItem;
 
@@ -79,6 +110,8 @@ typedef struct {
   double   tank_volume_m3;
   double   tank_area_m2;
   double   interstage_area_m2;
+  double   nose_area_m2;            /* boosters: the nose cone's side area; else 0 */
+  double   diameter_m;              /* the diameter the areas used; NAN without */
   double   length_m;
 } SwStageEstimate;
 
@@ -90,10 +123,16 @@ typedef struct {
   double   residual;               /* largest coefficient change of the last step */
   guint    n_stages;
   SwStageEstimate stages[SW_MAX_STAGES];
+  /* One booster (masses per booster), when the design has boosters; its
+   * engine_count is 1 and its interstage_area_m2 0. */
+  gboolean has_boosters;
+  gboolean boosters_load_held;     /* sized boosters, their load held (see above) */
+  SwStageEstimate boosters;
   double   liftoff_mass_kg;        /* sized with the estimated coefficients */
 } SwMassEstimate;
 
-/* The fixed point for @design (see above). */
+/* The fixed point for @design (see above).  "any_estimated" counts the
+ * boosters too. */
 void        sw_mass_estimate_design (const SwDesign *design, SwMassEstimate *out);
 
 /* One relationship each (the published forms, for tests and the working). */
