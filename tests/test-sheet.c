@@ -348,6 +348,66 @@ test_no_overlap (void)
     }
 }
 
+/* Every text the page draws, one per line. */
+static char *
+page_text (SwAnalysis *a)
+{
+  g_autoptr (GArray) boxes = g_array_new (FALSE, FALSE, sizeof (SwSheetTextBox));
+  cairo_surface_t *surface = cairo_recording_surface_create (CAIRO_CONTENT_COLOR, NULL);
+  cairo_t *cr = cairo_create (surface);
+  GString *s = g_string_new (NULL);
+  double w, h;
+
+  g_array_set_clear_func (boxes, box_clear);
+  sw_sheet_paper_size (SW_PAPER_A4, &w, &h);
+  sw_sheet_private_record_text (cr, boxes);
+  sw_sheet_draw_page (cr, a, w, h);
+  sw_sheet_private_record_text (cr, NULL);
+  cairo_destroy (cr);
+  cairo_surface_destroy (surface);
+  for (guint i = 0; i < boxes->len; i++)
+    g_string_append_printf (s, "%s\n", g_array_index (boxes, SwSheetTextBox, i).text);
+  return g_string_free (s, FALSE);
+}
+
+/* A vehicle that exists, with spreads wide enough that some samples fall
+ * short even with no payload: its capability histogram runs below 0, and
+ * the axis says what that means on a line of its own, overprinting
+ * nothing; without such samples the line is not there. */
+static void
+test_negative_capability_axis (void)
+{
+  g_autofree char *path = g_build_filename (g_getenv ("SW_SOURCE_ROOT"), "data", "designs",
+                                            "sallowmere-as-built.stagewright", NULL);
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
+  g_autoptr (SwAnalysis) a = NULL, b = NULL;
+  g_autofree char *text = NULL;
+  SwAnalysisOptions o;
+
+  g_assert_nonnull (d);
+  d->uncertainty.present = TRUE;
+  d->uncertainty.losses.kind = SW_SPREAD_NORMAL;
+  d->uncertainty.losses.width = 1000.0;
+  d->uncertainty.has_samples = TRUE;
+  d->uncertainty.samples = 4000;
+  sw_analysis_options_init (&o);
+  o.ascent = FALSE;
+  o.band_samples = 500;
+  a = sw_analysis_run (d, &o, NULL);
+  g_assert_true (a->has_montecarlo && a->montecarlo.all_fixed);
+  g_assert_cmpfloat (a->montecarlo.payload.min, <, 0.0);
+  check_no_overlap (a);
+  text = page_text (a);
+  g_assert_nonnull (strstr (text, "below 0: short even when empty"));
+
+  d->uncertainty.losses.width = 50.0;
+  b = sw_analysis_run (d, &o, NULL);
+  g_assert_cmpfloat (b->montecarlo.payload.min, >, 0.0);
+  g_clear_pointer (&text, g_free);
+  text = page_text (b);
+  g_assert_null (strstr (text, "below 0"));
+}
+
 
 /* medium-cargo.stagewright at its 1,500 m/s loss allowance (see test_numbers). */
 #define LIFTOFF_KG 129000.81
@@ -1022,6 +1082,7 @@ main (int argc, char **argv)
   g_test_add_func ("/sheet/svg-well-formed", test_svg_well_formed);
   g_test_add_func ("/sheet/csv", test_csv);
   g_test_add_func ("/sheet/no-overlap", test_no_overlap);
+  g_test_add_func ("/sheet/negative-capability-axis", test_negative_capability_axis);
   g_test_add_func ("/sheet/thrust-to-weight-warning", test_thrust_to_weight_warning);
   g_test_add_func ("/sheet/numbers", test_numbers);
   g_test_add_func ("/sheet/font-sizes", test_font_sizes);

@@ -579,10 +579,30 @@ sw_sheet_draw_histogram (cairo_t *cr, const SwMcSummary *s, double reference,
                                  : sw_format_number (s->bin_hi, 0);
     TextStyle l = sw_sheet_style_w (6.8, FALSE, MUTED, PANGO_ALIGN_LEFT, 80);
     TextStyle r = sw_sheet_style_w (6.8, FALSE, MUTED, PANGO_ALIGN_RIGHT, 80);
-    TextStyle c = sw_sheet_style_w (6.8, FALSE, MUTED, PANGO_ALIGN_CENTER, pw - 120);
+    TextStyle c;
+    double ends = 0.0, side;
+
+    /* The title takes the width the two end numbers leave, centred. */
+    for (guint k = 0; k < 2; k++)
+      {
+        PangoLayout *layout = sw_sheet_layout (cr, k == 0 ? lo : hi, &l);
+        int lw, lh;
+        pango_layout_get_pixel_size (layout, &lw, &lh);
+        ends = MAX (ends, lw);
+        g_object_unref (layout);
+      }
+    side = MIN (ends + 6.0, 60.0);
+    c = sw_sheet_style_w (6.8, FALSE, MUTED, PANGO_ALIGN_CENTER, pw - 2.0 * side);
     sw_sheet_text_at (cr, lo, px, py + ph + 2.0, &l);
     sw_sheet_text_at (cr, hi, px + pw - 80, py + ph + 2.0, &r);
-    sw_sheet_text_at (cr, axis_label, px + 60, py + ph + 2.0, &c);
+    /* A title of two lines ("\n" between them: what a negative value
+     * means) is drawn line by line, each whole words only. */
+    {
+      g_auto (GStrv) lines = g_strsplit (axis_label, "\n", 2);
+      double ly = py + ph + 2.0;
+      for (guint k = 0; lines[k] != NULL; k++)
+        ly += sw_sheet_text_at (cr, lines[k], px + side, ly, &c);
+    }
   }
   (void) tick;
 }

@@ -559,6 +559,14 @@ draw_uncertainty (const Page *p, const SwAnalysis *a, double x, double y, double
       tonnes = use_tonnes (mc->payload.bin_hi);
       axis = g_strdup (tonnes ? _("capability, t (dashed: payload)")
                               : _("capability, kg (dashed: payload)"));
+      /* A sample short even with no payload has a negative capability: the
+       * axis says what that means, on a line of its own (as the window's
+       * trade page says it). */
+      if (mc->payload.n > 0 && mc->payload.min < 0.0)
+        {
+          g_autofree char *one = g_steal_pointer (&axis);
+          axis = g_strdup_printf ("%s\n%s", one, _("below 0: short even when empty"));
+        }
       sw_sheet_draw_histogram (cr, &mc->payload, mc->required_payload_kg, axis, x, yy, w,
                                y + h - yy);
       return;
