@@ -249,6 +249,60 @@ test_shape_and_phases (void)
   g_rmdir (dir);
 }
 
+/* The boosters' estimated structural coefficient in `size --json`: the
+ * four-booster demo's "eps_estimate.boosters", key by key, is the core's
+ * estimate (one booster); the stages carry the booster-only items as 0; a
+ * design without boosters has null there. */
+static void
+test_booster_estimate (void)
+{
+  g_autofree char *path = g_build_filename (g_getenv ("SW_DESIGNS_DIR"),
+                                            "four-booster-cargo.stagewright", NULL);
+  g_autofree char *plain_path = g_build_filename (g_getenv ("SW_DESIGNS_DIR"),
+                                                  "small-sat-launcher.stagewright", NULL);
+  g_autofree char *out = run_size_json (path);
+  g_autofree char *plain_out = run_size_json (plain_path);
+  g_autoptr (JsonNode) root = parse (out);
+  g_autoptr (JsonNode) plain = parse (plain_out);
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
+  JsonObject *ee = json_object_get_object_member (json_node_get_object (root), "eps_estimate");
+  JsonObject *b, *items, *st;
+  SwMassEstimate m;
+
+  g_assert_nonnull (d);
+  sw_mass_estimate_design (d, &m);
+  g_assert_true (m.ok && m.has_boosters && m.boosters.estimated);
+  b = json_object_get_object_member (ee, "boosters");
+  g_assert_nonnull (b);
+  g_assert_cmpstr (json_object_get_string_member (b, "name"), ==, d->boosters.name);
+  g_assert_true (json_object_get_boolean_member (b, "estimated"));
+  g_assert_cmpint (json_object_get_int_member (b, "count"), ==, 4);
+  check (b, "structural_coefficient", m.boosters.structural_coefficient);
+  check (b, "design_structural_coefficient", 0.11);
+  check (b, "structural_mass_kg", m.boosters.structural_mass_kg);
+  check (b, "propellant_mass_kg", 30000.0);
+  check (b, "thrust_n", 800000.0);
+  check (b, "diameter_m", 1.6);
+  check (b, "nose_cone_side_area_m2", m.boosters.nose_area_m2);
+  items = json_object_get_object_member (b, "items_kg");
+  for (guint k = 0; k < SW_N_MER; k++)
+    check (items, sw_mer_item_key (k), m.boosters.item_kg[k]);
+  /* A solid booster: its motor case is 0.135 of its 30 t (Akin 2016). */
+  check (items, "motor_case", m.boosters.item_kg[SW_MER_MOTOR_CASE]);
+  g_assert_cmpfloat (fabs (m.boosters.item_kg[SW_MER_MOTOR_CASE] - 4050.0), <, 1e-9);
+  st = json_object_get_object_member (json_array_get_object_element (
+                                        json_object_get_array_member (ee, "stages"), 0),
+                                      "items_kg");
+  check (st, "nose_cone", 0.0);
+  check (st, "attachment", 0.0);
+  g_assert_nonnull (strstr (json_object_get_string_member (
+                              json_object_get_object_member (ee, "sources"), "nose_cone"),
+                            "our assumption"));
+
+  ee = json_object_get_object_member (json_node_get_object (plain), "eps_estimate");
+  g_assert_true (JSON_NODE_HOLDS_NULL (json_object_get_member (ee, "boosters")));
+}
+
 /* A version-1 demo: every stage "fixed": false, no shape keys, phases as
  * the stages. */
 static void
@@ -532,6 +586,7 @@ main (int argc, char **argv)
   g_test_init (&argc, &argv, NULL);
   g_test_add_func ("/cli-shape/shape-and-phases", test_shape_and_phases);
   g_test_add_func ("/cli-shape/version-one-demo", test_version_one_demo);
+  g_test_add_func ("/cli-shape/booster-estimate", test_booster_estimate);
   g_test_add_func ("/cli-shape/performance", test_performance);
   g_test_add_func ("/cli-shape/performance-curves", test_performance_curves);
   g_test_add_func ("/cli-shape/payload-curves-csv", test_payload_curves_csv);
