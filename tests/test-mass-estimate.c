@@ -334,6 +334,18 @@ test_booster_breakdown (void)
   g_assert_cmpfloat (m.boosters.structural_coefficient, >, 0.12);
   g_assert_cmpfloat (m.boosters.structural_coefficient, <, 0.16);
 
+  /* Without a diameter of their own nor the core's, the same. */
+  d->boosters.propellant.kind = SW_PROPELLANT_LOX_KEROSENE;
+  d->boosters.has_diameter = FALSE;
+  d->stages[0].propulsion.has_diameter = FALSE;
+  sw_mass_estimate_design (d, &m);
+  g_assert_true (m.has_boosters);
+  g_assert_false (m.boosters.estimated);
+  g_assert_nonnull (strstr (m.boosters.reason, "nose cone"));
+  assert_near (m.boosters.structural_coefficient, 0.08, 0.0);
+  d->boosters.has_diameter = TRUE;
+  d->stages[0].propulsion.has_diameter = TRUE;
+
   /* Without a propellant the boosters keep the design's and say why. */
   d->boosters.propellant.kind = SW_PROPELLANT_NONE;
   sw_mass_estimate_design (d, &m);

@@ -172,11 +172,16 @@ propulsion_items (const SwStagePropellant *prop, const SwStageShape *shape, doub
 /* What keeps a stage or booster from being estimated (FALSE and e->reason),
  * from its shape and load. */
 static gboolean
-can_estimate (const SwStageShape *shape, double mp, double eps, SwStageEstimate *e)
+can_estimate (const SwStageShape *shape, double mp, double eps, gboolean booster,
+              SwStageEstimate *e)
 {
   if (!shape->valid)
     g_snprintf (e->reason, sizeof e->reason,
                 _("no propellant given: the tanks cannot be estimated; keeps %g"), eps);
+  else if (!shape->has_length && booster)
+    g_snprintf (e->reason, sizeof e->reason,
+                _("no diameter given (nor has the core one): the tank and nose cone areas "
+                  "cannot be estimated; keeps %g"), eps);
   else if (!shape->has_length)
     g_snprintf (e->reason, sizeof e->reason,
                 _("no diameter given: the tank and interstage areas cannot be estimated; "
@@ -222,7 +227,7 @@ estimate_stage (const SwDesign *design, const SwSizing *sizing, guint i, SwStage
     e->thrust_n = sw_default_ignition_tw (i) * SW_G0 * r->initial_mass_kg;
 
   sw_sizing_stage_shape (design, sizing, i, &shape);
-  if (!can_estimate (&shape, mp, st->structural_coefficient, e))
+  if (!can_estimate (&shape, mp, st->structural_coefficient, FALSE, e))
     return;
   propulsion_items (&st->propellant, &shape, d, mp, e);
   if (i + 1 < design->n_stages)
@@ -259,7 +264,7 @@ estimate_booster (const SwDesign *design, const SwSizing *sizing, SwStageEstimat
   e->interstage_area_m2 = 0.0;
 
   sw_stage_shape (&b->propellant, mp, d, &shape);
-  if (!can_estimate (&shape, mp, b->structural_coefficient, e))
+  if (!can_estimate (&shape, mp, b->structural_coefficient, TRUE, e))
     return;
   propulsion_items (&b->propellant, &shape, d, mp, e);
   e->nose_area_m2 = sw_frustum_side_area (d, 0.0, SW_MER_BOOSTER_NOSE_PER_DIAMETER * d);
