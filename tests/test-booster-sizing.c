@@ -125,6 +125,10 @@ check_fixed_hand (gboolean crossfeed)
   g_assert_true (sz.feasible);
   assert_rel (sz.liftoff_mass_kg, m0, 1e-12);
   assert_rel (sz.boosters.mixed_exhaust_velocity_m_s, c_mix, 1e-12);
+  /* The mass flows the working shows: F / c of each. */
+  assert_rel (sz.boosters.mass_flow_kg_s, mdotb, 1e-12);
+  assert_rel (sz.boosters.core_mass_flow_kg_s, mdot1, 1e-12);
+  assert_rel (sz.boosters.core_thrust_vac_n, f1, 1e-12);
   assert_rel (sz.boosters.phase_delta_v_m_s, dv0, 1e-12);
   assert_rel (sz.boosters.phase_duration_s, tb, 1e-12);
   assert_rel (sz.boosters.core_phase_delta_v_m_s, dv1, 1e-12);

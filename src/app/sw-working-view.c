@@ -341,10 +341,9 @@ build_text (SwWorkingView *self, gboolean for_copy)
   if (i == 0 && sz->boosters.present && sz->feasible)
     {
       const SwBoosterResult *b = &sz->boosters;
-      guint engines = st->reliability.has_engine_count ? st->reliability.engine_count : 0;
-      double f1 = sw_stage_thrust_vac_n (&st->propulsion, engines);
-      double mdot1 = f1 / sr->exhaust_velocity_m_s;
-      double mdotb = b->thrust_vac_n / b->exhaust_velocity_m_s;
+      double f1 = b->core_thrust_vac_n;
+      double mdot1 = b->core_mass_flow_kg_s;
+      double mdotb = b->mass_flow_kg_s;
       g_autofree char *cb = MS (b->exhaust_velocity_m_s);
       g_autofree char *epsb = RATIO (d->boosters.structural_coefficient);
       g_autofree char *fb = sw_format_number (b->thrust_vac_n / 1000.0, 1);

@@ -1121,6 +1121,9 @@ sw_size_parallel (const SwParallelVehicle *v, double payload_kg, double delta_v_
       out->boosters.crossfeed = v->crossfeed;
       out->boosters.exhaust_velocity_m_s = v->booster_exhaust_velocity_m_s;
       out->boosters.thrust_vac_n = v->booster_thrust_n;
+      out->boosters.core_thrust_vac_n = v->core_thrust_n;
+      out->boosters.mass_flow_kg_s = v->booster_thrust_n / v->booster_exhaust_velocity_m_s;
+      out->boosters.core_mass_flow_kg_s = v->core_thrust_n / v->set.exhaust_velocity_m_s[0];
     }
   kind = upper_kind (v);
 

@@ -55,6 +55,9 @@ typedef struct {
   double   booster_mass_kg;        /* per booster: propellant + structure */
   double   total_mass_kg;          /* all boosters */
   double   thrust_vac_n;           /* per booster */
+  double   core_thrust_vac_n;      /* the core's (stage 0's), vacuum */
+  double   mass_flow_kg_s;         /* per booster: F_b / c_b */
+  double   core_mass_flow_kg_s;    /* the core's: F / c */
   /* phase 0: boosters and core together */
   double   mixed_exhaust_velocity_m_s;   /* sum F / sum mdot */
   double   phase_delta_v_m_s;
