@@ -5,6 +5,7 @@
 
 #include "sw-staging-page.h"
 
+#include "sw-analysis.h"
 #include "sw-carpet.h"
 #include "sw-csv-staging.h"
 #include "sw-document.h"
@@ -23,6 +24,10 @@
 typedef struct {
   gint      ref;
   SwDesign *design;
+  /* The design the staging table sizes: the closed loop's vehicle
+   * (sw_analysis_dup_trade_design) once the analysis has its losses, or
+   * NULL for the design itself.  Views never compute: the analysis says. */
+  SwDesign *looped;
   GCancellable *cancellable;   /* a newer design: the whole job is dropped */
   GCancellable *carpet_cancel; /* the Cancel button: the carpet only */
   GMutex    lock;
@@ -49,6 +54,7 @@ job_unref (Job *job)
   if (!g_atomic_int_dec_and_test (&job->ref))
     return;
   sw_design_free (job->design);
+  g_clear_pointer (&job->looped, sw_design_free);
   g_clear_object (&job->cancellable);
   g_clear_object (&job->carpet_cancel);
   sw_carpet_free (job->carpet);
@@ -77,6 +83,7 @@ struct _SwStagingPage {
   GtkWidget      *currency_error;
   GtkWidget      *carpet;
   SwDesign       *design;       /* the design of the last result */
+  SwDesign       *looped;       /* its closed loop's vehicle, or NULL (Job) */
   SwCarpetOutput  output;
   SwCarpetAxis    axes[2];      /* the carpet's axes as the fields show them */
   gboolean        axes_chosen;  /* the user picked: chosen[] holds the choice */
@@ -117,8 +124,11 @@ job_thread (GTask *task, gpointer source, gpointer data, GCancellable *cancellab
   g_autoptr (GError) error = NULL;
 
   if (job->do_staging)
-    job->staging_ok = sw_staging_compute (job->design, SW_STAGING_MAX_STAGES, &job->staging,
-                                          NULL);
+    job->staging_ok = job->looped != NULL
+                        ? sw_staging_compute_looped (job->looped, SW_STAGING_MAX_STAGES,
+                                                     &job->staging, NULL)
+                        : sw_staging_compute (job->design, SW_STAGING_MAX_STAGES, &job->staging,
+                                              NULL);
   o.cancellable = job->carpet_cancel;
   o.progress = job_progress_cb;
   o.progress_data = job;
@@ -242,13 +252,17 @@ start_job (SwStagingPage *self)
   job->ref = 1;
   g_mutex_init (&job->lock);
   job->design = sw_design_copy (self->design);
+  job->looped = self->looped != NULL ? sw_design_copy (self->looped) : NULL;
   job->cancellable = g_cancellable_new ();
   job->carpet_cancel = g_cancellable_new ();
   job->carpet_options.x = self->axes[0];
   job->carpet_options.y = self->axes[1];
   job->carpet_options.output = self->output;
   job->do_staging = !(self->shown != NULL && self->shown->staging_ok
-                      && sw_design_equal (self->shown->design, self->design));
+                      && sw_design_equal (self->shown->design, self->design)
+                      && (self->shown->looped == NULL) == (self->looped == NULL)
+                      && (self->looped == NULL
+                          || sw_design_equal (self->shown->looped, self->looped)));
   if (!job->do_staging)
     {
       job->staging = self->shown->staging;
@@ -547,11 +561,24 @@ sw_staging_page_set_result (SwStagingPage *self, SwAnalysis *result)
       self->pending = result != NULL ? sw_analysis_ref (result) : NULL;
       return;
     }
-  /* The figures depend on the design only: a later phase of the same
-   * design (Monte Carlo, ascent) changes nothing here. */
+  /* The figures depend on the design only, and for a "simulate" design on
+   * the closed loop's losses: a later phase of the same design changes
+   * nothing here unless it is the one that closed the loop. */
+  if (result != NULL && result->design != NULL && self->design != NULL
+      && sw_design_equal (self->design, result->design)
+      && (self->looped != NULL) == result->trade_losses_simulated)
+    return;
   if (result != NULL && result->design != NULL && self->design != NULL
       && sw_design_equal (self->design, result->design))
-    return;
+    {
+      /* The same design, its loop now closed: the table again, the
+       * fields and the carpet's axes as they are. */
+      g_clear_pointer (&self->looped, sw_design_free);
+      if (result->trade_losses_simulated)
+        self->looped = sw_analysis_dup_trade_design (result);
+      start_job (self);
+      return;
+    }
   if (self->running != NULL)
     {
       g_cancellable_cancel (self->running->cancellable);
@@ -562,6 +589,9 @@ sw_staging_page_set_result (SwStagingPage *self, SwAnalysis *result)
     return;
   g_clear_pointer (&self->design, sw_design_free);
   self->design = sw_design_copy (result->design);
+  g_clear_pointer (&self->looped, sw_design_free);
+  if (result->trade_losses_simulated)
+    self->looped = sw_analysis_dup_trade_design (result);
   /* The fields show the design the figures come from. */
   self->updating++;
   for (guint k = 0; k < SW_N_ECON_NUMBERS; k++)
@@ -1580,6 +1610,7 @@ sw_staging_page_dispose (GObject *object)
   g_clear_pointer (&self->shown, job_unref);
   g_clear_pointer (&self->pending, sw_analysis_unref);
   g_clear_pointer (&self->design, sw_design_free);
+  g_clear_pointer (&self->looped, sw_design_free);
   g_clear_pointer (&self->rule_message, g_free);
   g_clear_handle_id (&self->progress_id, g_source_remove);
   g_clear_object (&self->document);

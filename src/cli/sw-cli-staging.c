@@ -7,6 +7,7 @@
 
 #include "sw-cli.h"
 
+#include "sw-analysis.h"
 #include "sw-carpet.h"
 #include "sw-csv-staging.h"
 #include "sw-economics.h"
@@ -333,7 +334,22 @@ sw_cli_stages (int argc, char **argv)
     }
   if ((d = sw_cli_load (argv[1])) == NULL)
     return SW_EXIT_USAGE;
-  if (!sw_staging_compute (d, (guint) opt_max_stages, &s, &error))
+  if (d->mission.kind == SW_MISSION_ORBIT && d->mission.loss_model == SW_LOSS_SIMULATE)
+    {
+      /* The closed loop sizes such a design, as in size and the window:
+       * the table takes its losses (its own row is then size's vehicle). */
+      SwAnalysisOptions o;
+      g_autoptr (SwAnalysis) a = NULL;
+
+      sw_analysis_options_init (&o);
+      o.montecarlo = FALSE;
+      o.ascent = TRUE;
+      a = sw_analysis_run (d, &o, NULL);
+      if (a->ok ? !sw_analysis_staging (a, (guint) opt_max_stages, &s, &error)
+                : !sw_staging_compute (d, (guint) opt_max_stages, &s, &error))
+        return sw_cli_input_error (argv[1], error);
+    }
+  else if (!sw_staging_compute (d, (guint) opt_max_stages, &s, &error))
     return sw_cli_input_error (argv[1], error);
   if (opt_json)
     stages_json (d, &s);

@@ -28,7 +28,7 @@ sw_csv_staging_decision (const SwAnalysis *b)
   GString *s;
 
   g_return_val_if_fail (b != NULL && b->design != NULL, NULL);
-  if (!sw_staging_compute (b->design, SW_STAGING_MAX_STAGES, &st, NULL))
+  if (!sw_analysis_staging (b, SW_STAGING_MAX_STAGES, &st, NULL))
     return NULL;
   s = sw_csv_begin (NULL);
   g_string_append_printf (s, "# %s\n", st.weighting);

@@ -30,7 +30,7 @@ has_boosters (const SwDesign *design)
 }
 
 /* A design whose losses come from the simulated ascent: one more line says
- * that the rows use its first-guess allowance. */
+ * which losses the rows use (the first guess or the closed loop's). */
 static gboolean
 has_losses_note (const SwDesign *design)
 {
@@ -74,9 +74,10 @@ sw_sheet_staging_height (const SwDesign *design)
 }
 
 void
-sw_sheet_draw_staging (cairo_t *cr, const SwDesign *design, double x, double y, double w,
+sw_sheet_draw_staging (cairo_t *cr, const SwAnalysis *analysis, double x, double y, double w,
                        double h)
 {
+  const SwDesign *design = analysis != NULL ? analysis->design : NULL;
   const char *titles[] = { N_("stages"), N_("liftoff"), N_("recovered"), N_("development"),
                            N_("per flight"), N_("per flight, rec."), N_("success"),
                            N_("payload, this mass") };
@@ -96,7 +97,7 @@ sw_sheet_draw_staging (cairo_t *cr, const SwDesign *design, double x, double y, 
                                : _("Staging decision (serial stages; effort in work-years: an "
                                    "estimate, never a quote)"),
                          x, y, w);
-  if (design == NULL || !sw_staging_compute (design, SW_STAGING_MAX_STAGES, &s, NULL))
+  if (design == NULL || !sw_analysis_staging (analysis, SW_STAGING_MAX_STAGES, &s, NULL))
     {
       sw_sheet_note_in_box (cr, _("Not computed: the mission has no delta-v."), x, y + hy, w,
                             h - hy);

@@ -146,8 +146,25 @@ boosters_note (SwStaging *out, const SwDesign *design)
   g_snprintf (out->boosters_note, sizeof out->boosters_note, "%s %s", which, rest);
 }
 
+static gboolean staging_compute (const SwDesign *design, guint max_stages, gboolean looped,
+                                 SwStaging *out, GError **error);
+
 gboolean
 sw_staging_compute (const SwDesign *design, guint max_stages, SwStaging *out, GError **error)
+{
+  return staging_compute (design, max_stages, FALSE, out, error);
+}
+
+gboolean
+sw_staging_compute_looped (const SwDesign *looped, guint max_stages, SwStaging *out,
+                           GError **error)
+{
+  return staging_compute (looped, max_stages, TRUE, out, error);
+}
+
+static gboolean
+staging_compute (const SwDesign *design, guint max_stages, gboolean looped, SwStaging *out,
+                 GError **error)
 {
   const SwEconomics *e;
   SwReliabilityCurve rel;
@@ -202,11 +219,18 @@ sw_staging_compute (const SwDesign *design, guint max_stages, SwStaging *out, GE
       SwBudget b;
       g_autofree char *losses = sw_design_budget (design, &b, NULL)
                                   ? sw_format_speed (b.losses_m_s) : g_strdup ("?");
-      /* Translators: %s is a speed ("2,500 m/s") */
-      g_snprintf (out->losses_note, sizeof out->losses_note,
-                  _("Every row is sized with the loss allowance of %s, the design's first guess "
-                    "for its closed loop; the totals use the closed loop's losses."),
-                  losses);
+      if (looped)
+        /* Translators: %s is a speed ("1,868 m/s") */
+        g_snprintf (out->losses_note, sizeof out->losses_note,
+                    _("Every row is sized with the closed loop's losses of %s, flown by this "
+                      "design's own vehicle; the other stage counts are not flown."),
+                    losses);
+      else
+        /* Translators: %s is a speed ("2,500 m/s") */
+        g_snprintf (out->losses_note, sizeof out->losses_note,
+                    _("Every row is sized with the loss allowance of %s, the design's first "
+                      "guess for its closed loop; the totals use the closed loop's losses."),
+                    losses);
     }
   sw_reliability_curve_compute (design, out->n_counts, &rel);
   out->reliability_given = rel.given;

@@ -116,9 +116,12 @@ typedef struct {
    * serial rows that close, least and most; NAN otherwise. */
   double   core_thrust_to_weight_min;
   double   core_thrust_to_weight_max;
-  /* A design whose losses come from the simulated ascent: every row is
-   * sized with its first-guess allowance (no ascent is flown for a row),
-   * so its own row may differ from the closed loop's sizing; "" otherwise. */
+  /* A design whose losses come from the simulated ascent: which losses
+   * every row is sized with (no ascent is flown for a row).  From
+   * sw_staging_compute, the first-guess allowance (its own row may then
+   * differ from the closed loop's sizing); from sw_staging_compute_looped,
+   * the closed loop's losses of the design's own vehicle (its own row is
+   * the closed loop's sizing); "" otherwise. */
   char     losses_note[SW_REASON_MAX];
 } SwStaging;
 
@@ -132,5 +135,11 @@ const char *sw_arrangement_to_string (SwArrangement arrangement);
  * @error) only when the design's mission has no delta-v. */
 gboolean sw_staging_compute (const SwDesign *design, guint max_stages, SwStaging *out,
                              GError **error);
+/* The same for a design made the closed loop's vehicle (a copy given the
+ * loop's losses and fairing point by sw_ascent_apply_loop, as the analysis
+ * does for its trade studies: sw_analysis_staging); only the losses note
+ * differs.  This design's row is then the closed loop's sizing. */
+gboolean sw_staging_compute_looped (const SwDesign *looped, guint max_stages, SwStaging *out,
+                                    GError **error);
 
 G_END_DECLS
