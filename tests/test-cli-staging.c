@@ -651,6 +651,73 @@ test_stages_simulated (void)
   run_clear (&r);
 }
 
+/* `carpet --json` of a cost output carries the grid in money: each point
+ * its work-years times the design's work_year_cost ("money_rows"), the
+ * design's own point equal to `stages`' per-flight money of this design;
+ * the CSV has the money column; a mass output has none (null). */
+static void
+test_carpet_money (void)
+{
+  g_autofree char *path = write_design ();
+  g_autoptr (JsonNode) keep = NULL, keep_stages = NULL, keep_mass = NULL;
+  JsonObject *o, *stages, *own = NULL, *mass;
+  JsonArray *rows, *money, *list;
+  Run r;
+
+  run_cli (&r, "carpet", path, "--x", "stages[0].structural_coefficient:0.03:0.2:5", "--y",
+           "stages[1].isp_vac_s:320:380:4", "--output", "cost_per_flight", "--json", NULL);
+  g_assert_cmpint (r.code, ==, 0);
+  o = parse (r.out, &keep);
+  g_assert_cmpfloat (json_object_get_double_member (o, "work_year_cost"), ==, 200000.0);
+  g_assert_cmpstr (json_object_get_string_member (o, "currency"), ==, "EUR");
+  g_assert_nonnull (strstr (json_object_get_string_member (o, "money_note"), "never a quote"));
+  rows = json_object_get_array_member (o, "rows");
+  money = json_object_get_array_member (o, "money_rows");
+  g_assert_cmpuint (json_array_get_length (money), ==, 4);
+  for (guint j = 0; j < 4; j++)
+    for (guint i = 0; i < 5; i++)
+      {
+        JsonNode *v = json_array_get_element (json_array_get_array_element (rows, j), i);
+        JsonNode *m = json_array_get_element (json_array_get_array_element (money, j), i);
+
+        g_assert_cmpint (JSON_NODE_HOLDS_NULL (v), ==, JSON_NODE_HOLDS_NULL (m));
+        if (!JSON_NODE_HOLDS_NULL (v))
+          g_assert_cmpfloat_with_epsilon (json_node_get_double (m)
+                                            / (json_node_get_double (v) * 200000.0),
+                                          1.0, 1e-15);
+      }
+  run_clear (&r);
+
+  run_cli (&r, "stages", path, "--json", NULL);
+  g_assert_cmpint (r.code, ==, 0);
+  stages = parse (r.out, &keep_stages);
+  list = json_object_get_array_member (stages, "by_stage_count");
+  for (guint i = 0; i < json_array_get_length (list); i++)
+    if (json_object_get_boolean_member (json_array_get_object_element (list, i), "this_design"))
+      own = json_array_get_object_element (list, i);
+  g_assert_nonnull (own);
+  g_assert_cmpfloat_with_epsilon (json_object_get_double_member (
+                                    json_object_get_object_member (o, "this_design"), "money")
+                                    / json_object_get_double_member (own, "per_flight_money"),
+                                  1.0, 1e-9);
+  run_clear (&r);
+
+  run_cli (&r, "carpet", path, "--x", "stages[0].structural_coefficient:0.03:0.2:3", "--y",
+           "stages[1].isp_vac_s:320:380:2", "--output", "cost_per_flight", "--csv", NULL);
+  g_assert_cmpint (r.code, ==, 0);
+  g_assert_nonnull (strstr (r.out, ",cost_per_flight_work_years,cost_per_flight_money,closes\n"));
+  run_clear (&r);
+
+  run_cli (&r, "carpet", path, "--x", "stages[0].structural_coefficient:0.03:0.2:3", "--y",
+           "stages[1].isp_vac_s:320:380:2", "--json", NULL);
+  g_assert_cmpint (r.code, ==, 0);
+  mass = parse (r.out, &keep_mass);
+  g_assert_true (json_object_get_null_member (mass, "money_rows"));
+  g_assert_true (json_object_get_null_member (mass, "work_year_cost"));
+  run_clear (&r);
+  g_unlink (path);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -662,5 +729,6 @@ main (int argc, char **argv)
   g_test_add_func ("/cli/staging/export-csv", test_export_csv);
   g_test_add_func ("/cli/staging/stages-boosters", test_stages_boosters);
   g_test_add_func ("/cli/staging/stages-simulated", test_stages_simulated);
+  g_test_add_func ("/cli/staging/carpet-money", test_carpet_money);
   return g_test_run ();
 }

@@ -507,6 +507,25 @@ carpet_shown_cb (gpointer data)
   return !sw_staging_page_is_busy (page) && sw_staging_page_is_ready (page);
 }
 
+/* The carpet shown has its grid in money. */
+static gboolean
+carpet_money_cb (gpointer data)
+{
+  SwStagingPage *page = data;
+  const SwCarpet *c = sw_staging_page_get_carpet (page);
+
+  return carpet_shown_cb (data) && c != NULL && c->has_money;
+}
+
+static gboolean
+carpet_no_money_cb (gpointer data)
+{
+  SwStagingPage *page = data;
+  const SwCarpet *c = sw_staging_page_get_carpet (page);
+
+  return carpet_shown_cb (data) && c != NULL && !c->has_money;
+}
+
 /* The carpet shown, computed, over the axis picked: @axis 0 across, 1 up. */
 typedef struct {
   SwStagingPage *page;
@@ -743,6 +762,33 @@ test_carpet_picker (void)
     for (guint i = 0; sw_staging_page_get_param (page, i, &a); i++)
       econ |= a.kind == SW_CARPET_PARAM_ECONOMICS;
     g_assert_true (econ);
+  }
+
+  /* Without a cost per work-year no money is offered; with one, the
+   * option names the currency and draws the money grid (no warning). */
+  {
+    GtkWidget *money = sw_staging_page_get_carpet_control (page, SW_CARPET_CONTROL_MONEY, 0);
+    SwDesign *d = sw_document_dup_design (doc);
+
+    g_assert_false (sw_staging_page_get_carpet (page)->has_money);
+    g_assert_false (gtk_widget_get_visible (money));
+    g_assert_true (sw_economics_set_number (&d->economics, SW_ECON_WORK_YEAR_COST, 150000.0));
+    sw_document_commit (doc, d, NULL);
+    sw_test_wait_until (carpet_money_cb, page, 60000, "the carpet in money");
+    c = sw_staging_page_get_carpet (page);
+    g_assert_cmpfloat (c->money[0], ==, c->values[0] * 150000.0);
+    g_assert_true (gtk_widget_get_visible (money));
+    g_assert_nonnull (strstr (gtk_check_button_get_label (GTK_CHECK_BUTTON (money)),
+                              "money units"));
+    g_assert_false (gtk_check_button_get_active (GTK_CHECK_BUTTON (money)));
+    g_assert_true (gtk_widget_activate (money));
+    g_assert_true (gtk_check_button_get_active (GTK_CHECK_BUTTON (money)));
+    drain ();
+    /* A view option: the design is as it was. */
+    g_assert_cmpfloat (sw_document_get_design (doc)->economics.work_year_cost, ==, 150000.0);
+    g_assert_true (sw_document_undo (doc));
+    sw_test_wait_until (carpet_no_money_cb, page, 60000, "the carpet in work-years again");
+    g_assert_false (gtk_widget_get_visible (money));
   }
 
   /* Cancel: a 500 x 500 grid, cancelled at once; no carpet, said so. */

@@ -75,6 +75,7 @@ struct _SwStagingPage {
   GtkWidget      *carpet_button;
   GtkWidget      *carpet_status;
   GtkWidget      *carpet_output;
+  GtkWidget      *carpet_money;  /* cost contours in money (the carpet's money grid) */
   GtkWidget      *axis_param[2];
   GtkWidget      *axis_min[2];
   GtkWidget      *axis_max[2];
@@ -162,6 +163,7 @@ enum { READY, N_SIGNALS };
 static guint signals[N_SIGNALS];
 
 static void update_money (SwStagingPage *self);
+static void sync_money_option (SwStagingPage *self);
 
 static void
 set_carpet_status (SwStagingPage *self, const char *text, gboolean error)
@@ -219,6 +221,7 @@ job_done_cb (GObject *source, GAsyncResult *res, gpointer data)
         set_carpet_status (self, self->shown->carpet != NULL ? self->shown->carpet->note : NULL,
                            FALSE);
       update_money (self);
+      sync_money_option (self);
       /* The key of a design with boosters has two more entries, and two
        * sets of lines share the panels: a taller drawing. */
       gtk_widget_set_size_request (self->decision, 300,
@@ -536,6 +539,30 @@ axis_param_cb (GtkDropDown *dd, GParamSpec *pspec, SwStagingPage *self)
 }
 
 static void
+money_toggled_cb (GtkCheckButton *button, SwStagingPage *self)
+{
+  gtk_widget_queue_draw (self->carpet);
+}
+
+/* The money option: offered when the carpet shown has a money grid, its
+ * label naming the currency. */
+static void
+sync_money_option (SwStagingPage *self)
+{
+  const SwCarpet *c = self->shown != NULL ? self->shown->carpet : NULL;
+  gboolean has = c != NULL && c->has_money;
+
+  if (has)
+    {
+      g_autofree char *label
+        = g_strdup_printf (_("Cost in money (%s), not work-years"),
+                           c->currency[0] != '\0' ? c->currency : _("money units"));
+      gtk_check_button_set_label (GTK_CHECK_BUTTON (self->carpet_money), label);
+    }
+  gtk_widget_set_visible (self->carpet_money, has);
+}
+
+static void
 output_cb (GtkDropDown *dd, GParamSpec *pspec, SwStagingPage *self)
 {
   if (self->updating > 0 || self->design == NULL)
@@ -807,6 +834,8 @@ sw_staging_page_get_carpet_control (SwStagingPage *self, SwCarpetControl control
       return self->carpet_button;
     case SW_CARPET_CONTROL_STATUS:
       return self->carpet_status;
+    case SW_CARPET_CONTROL_MONEY:
+      return self->carpet_money;
     case SW_CARPET_CONTROL_CURRENCY:
     default:
       return self->currency;
@@ -1258,15 +1287,14 @@ draw_decision (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointe
 
 /* Contour lines by marching squares, linear interpolation on each edge. */
 static void
-contour (cairo_t *cr, const SwCarpet *c, const SwPlotAxis *xa, const SwPlotAxis *ya,
-         double level)
+contour (cairo_t *cr, const SwCarpet *c, const double *grid, const SwPlotAxis *xa,
+         const SwPlotAxis *ya, double level)
 {
   for (guint j = 0; j + 1 < c->y.n; j++)
     for (guint i = 0; i + 1 < c->x.n; i++)
       {
-        const double v[4] = { c->values[j * c->x.n + i], c->values[j * c->x.n + i + 1],
-                              c->values[(j + 1) * c->x.n + i + 1],
-                              c->values[(j + 1) * c->x.n + i] };
+        const double v[4] = { grid[j * c->x.n + i], grid[j * c->x.n + i + 1],
+                              grid[(j + 1) * c->x.n + i + 1], grid[(j + 1) * c->x.n + i] };
         const double cx[4] = { i, i + 1, i + 1, i }, cy[4] = { j, j, j + 1, j + 1 };
         double px[4], py[4];
         guint n = 0;
@@ -1295,10 +1323,19 @@ contour (cairo_t *cr, const SwCarpet *c, const SwPlotAxis *xa, const SwPlotAxis 
   cairo_stroke (cr);
 }
 
-/* A contour level's text: masses by the one formatter, effort in work-years. */
+/* A contour level's text: masses by the one formatter, effort in
+ * work-years, money (@money) with the carpet's currency. */
 static char *
-level_text (SwCarpetOutput output, double level)
+level_text (const SwCarpet *c, gboolean money, double level)
 {
+  SwCarpetOutput output = c->output;
+
+  if (money)
+    {
+      g_autofree char *n = sw_format_money (level);
+      return g_strdup_printf ("%s %s", n, c->currency[0] != '\0' ? c->currency
+                                                                   : _("money units"));
+    }
   if (output == SW_CARPET_DEVELOPMENT || output == SW_CARPET_COST_PER_FLIGHT)
     {
       g_autofree char *n = sw_format_number (level, 0);
@@ -1324,6 +1361,22 @@ output_words (SwCarpetOutput output)
     }
 }
 
+/* The key of money contours: what they are and that they are no quote. */
+static char *
+money_words (const SwCarpet *c)
+{
+  g_autofree char *wy = sw_format_number (c->work_year_cost, 0);
+  const char *cur = c->currency[0] != '\0' ? c->currency : _("money units");
+
+  if (c->output == SW_CARPET_DEVELOPMENT)
+    /* Translators: %s a currency, %s a cost of a work-year, %s the currency again */
+    return g_strdup_printf (_("lines: development cost in %s (work-years at %s %s each: an "
+                              "estimate, never a quote)"), cur, wy, cur);
+  /* Translators: %s a currency, %s a cost of a work-year, %s the currency again */
+  return g_strdup_printf (_("lines: cost per flight, expendable, in %s (work-years at %s %s "
+                            "each: an estimate, never a quote)"), cur, wy, cur);
+}
+
 /* Text on a patch of the background, so that no line runs through it. */
 static void
 show_text_boxed (cairo_t *cr, PangoLayout *layout, const char *text, double x, double y,
@@ -1345,9 +1398,9 @@ show_text_boxed (cairo_t *cr, PangoLayout *layout, const char *text, double x, d
  * that run across) or the middle row (lines that run up), else a quarter
  * in; never on the design's mark or on a label already placed. */
 static void
-place_level_label (cairo_t *cr, PangoLayout *layout, const SwCarpet *c, const SwPlotAxis *xa,
-                   const SwPlotAxis *ya, double level, const char *label, double mx, double my,
-                   GArray *placed, const GdkRGBA *bg, const GdkRGBA *fg)
+place_level_label (cairo_t *cr, PangoLayout *layout, const SwCarpet *c, const double *grid,
+                   const SwPlotAxis *xa, const SwPlotAxis *ya, double level, const char *label,
+                   double mx, double my, GArray *placed, const GdkRGBA *bg, const GdkRGBA *fg)
 {
   const guint cols[] = { c->x.n / 2, c->x.n / 4, (3 * c->x.n) / 4 };
   const guint rows[] = { c->y.n / 2, c->y.n / 5, (4 * c->y.n) / 5 };
@@ -1367,7 +1420,7 @@ place_level_label (cairo_t *cr, PangoLayout *layout, const SwCarpet *c, const Sw
         {
           gsize i0 = along_column ? (gsize) k * c->x.n + fixed : (gsize) fixed * c->x.n + k;
           gsize i1 = along_column ? i0 + c->x.n : i0 + 1;
-          double a = c->values[i0], bb = c->values[i1], tt, px, py;
+          double a = grid[i0], bb = grid[i1], tt, px, py;
           graphene_rect_t box;
           gboolean clear = TRUE;
 
@@ -1420,6 +1473,8 @@ draw_carpet (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointer 
   int text_h, legend_h = 0;
   g_autoptr (PangoLayout) legend_layout = NULL;
   g_autofree char *xn = NULL, *yn = NULL;
+  gboolean money;
+  const double *grid;
 
   sw_plot_style_fg (w, &fg);
   sw_plot_style_bg (w, &bg);
@@ -1435,14 +1490,18 @@ draw_carpet (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointer 
       return;
     }
   c = self->shown->carpet;
+  money = c->has_money && gtk_widget_get_visible (self->carpet_money)
+          && gtk_check_button_get_active (GTK_CHECK_BUTTON (self->carpet_money));
+  grid = money ? c->money : c->values;
   pango_layout_set_text (layout, "0", -1);
   pango_layout_get_pixel_size (layout, NULL, &text_h);
   /* The key under the axis names, wrapped to the width: its own layout. */
   legend_layout = gtk_widget_create_pango_layout (w, NULL);
   {
+    g_autofree char *words = money ? money_words (c) : g_strdup (output_words (c->output));
     g_autofree char *legend = g_strdup_printf (_("%s; hatched: the vehicle does not close; "
                                                  "✕: this design"),
-                                               output_words (c->output));
+                                               words);
     pango_layout_set_text (legend_layout, legend, -1);
     pango_layout_set_width (legend_layout, (int) MAX (40.0, width - 8.0) * PANGO_SCALE);
     pango_layout_set_wrap (legend_layout, PANGO_WRAP_WORD);
@@ -1507,10 +1566,10 @@ draw_carpet (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointer 
 
   /* Contours at nice levels. */
   for (guint k = 0; k < c->x.n * c->y.n; k++)
-    if (isfinite (c->values[k]))
+    if (isfinite (grid[k]))
       {
-        lo = MIN (lo, c->values[k]);
-        hi = MAX (hi, c->values[k]);
+        lo = MIN (lo, grid[k]);
+        hi = MAX (hi, grid[k]);
       }
   if (isfinite (lo) && hi > lo)
     {
@@ -1519,10 +1578,11 @@ draw_carpet (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointer 
       cairo_set_line_width (cr, 1.5);
       for (double level = ceil (lo / step) * step; level <= hi; level += step)
         {
-          g_autofree char *label = level_text (c->output, level);
+          g_autofree char *label = level_text (c, money, level);
           set_rgba (cr, &line, 1.0);
-          contour (cr, c, &xa, &ya, level);
-          place_level_label (cr, layout, c, &xa, &ya, level, label, mx, my, placed, &bg, &fg);
+          contour (cr, c, grid, &xa, &ya, level);
+          place_level_label (cr, layout, c, grid, &xa, &ya, level, label, mx, my, placed, &bg,
+                             &fg);
         }
       g_array_unref (placed);
     }
@@ -1739,6 +1799,12 @@ sw_staging_page_init (SwStagingPage *self)
         gtk_grid_attach (GTK_GRID (grid), self->axis_n[a], 5, 2 + 2 * a, 1, 1);
         gtk_grid_attach (GTK_GRID (grid), points, 6, 2 + 2 * a, 1, 1);
       }
+    /* A view option, not a design key: the contours of the same grid in
+     * money; shown when the carpet has it. */
+    self->carpet_money = gtk_check_button_new_with_label (_("Cost in money"));
+    gtk_widget_set_visible (self->carpet_money, FALSE);
+    g_signal_connect (self->carpet_money, "toggled", G_CALLBACK (money_toggled_cb), self);
+    gtk_grid_attach (GTK_GRID (grid), self->carpet_money, 1, 5, 6, 1);
     gtk_box_append (GTK_BOX (self->box), grid);
   }
   self->progress_row = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 6);

@@ -48,6 +48,8 @@ typedef enum {
   SW_CARPET_CONTROL_BUTTON,    /* Cancel while computing, Compute after a cancel */
   SW_CARPET_CONTROL_STATUS,    /* GtkLabel: why the carpet is not drawn */
   SW_CARPET_CONTROL_CURRENCY,  /* GtkEntry of economics.currency */
+  SW_CARPET_CONTROL_MONEY,     /* GtkCheckButton: cost contours in money (a cost output of a
+                                * design with a cost per work-year; hidden otherwise) */
 } SwCarpetControl;
 
 /* Test API: the carpet's controls (@axis 0 across, 1 up), the grid shown

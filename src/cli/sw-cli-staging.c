@@ -417,6 +417,7 @@ carpet_json (const SwDesign *d, const SwCarpet *c)
   sw_cli_add_number (b, "x", c->design_x);
   sw_cli_add_number (b, "y", c->design_y);
   sw_cli_add_number (b, "value", c->design_value);
+  sw_cli_add_number (b, "money", c->design_money);
   json_builder_end_object (b);
   json_builder_set_member_name (b, "points_not_closing");
   json_builder_add_int_value (b, c->n_infeasible);
@@ -439,6 +440,37 @@ carpet_json (const SwDesign *d, const SwCarpet *c)
       json_builder_end_array (b);
     }
   json_builder_end_array (b);
+  /* A cost output with a cost per work-year: the same grid in money (the
+   * design's currency, or null without one); null otherwise. */
+  sw_cli_add_number (b, "work_year_cost", c->work_year_cost);
+  json_builder_set_member_name (b, "currency");
+  if (c->currency[0] != '\0')
+    json_builder_add_string_value (b, c->currency);
+  else
+    json_builder_add_null_value (b);
+  json_builder_set_member_name (b, "money_rows");
+  if (c->has_money)
+    {
+      json_builder_begin_array (b);
+      for (guint j = 0; j < c->y.n; j++)
+        {
+          json_builder_begin_array (b);
+          for (guint i = 0; i < c->x.n; i++)
+            {
+              double v = c->money[j * c->x.n + i];
+              if (isfinite (v))
+                json_builder_add_double_value (b, v);
+              else
+                json_builder_add_null_value (b);
+            }
+          json_builder_end_array (b);
+        }
+      json_builder_end_array (b);
+      json_builder_set_member_name (b, "money_note");
+      json_builder_add_string_value (b, sw_economics_money_note ());
+    }
+  else
+    json_builder_add_null_value (b);
   if (c->output == SW_CARPET_DEVELOPMENT || c->output == SW_CARPET_COST_PER_FLIGHT)
     {
       json_builder_set_member_name (b, "effort_note");
@@ -481,6 +513,30 @@ carpet_table (const SwDesign *d, const SwCarpet *c)
           g_print (" %s", v);
         }
       g_print ("\n");
+    }
+  if (c->has_money)
+    {
+      g_autofree char *wy = sw_format_number (c->work_year_cost, 0);
+      g_autofree char *dm = sw_format_money (c->design_money);
+      const char *cur = c->currency[0] != '\0' ? c->currency : _("money units");
+
+      /* Translators: %s a cost of a work-year, %s a currency, %s a cost, %s the currency */
+      g_print (_("\nIn money at %s %s per work-year (this design: %s %s):\n"), wy, cur, dm, cur);
+      g_print ("%12s", "");
+      for (guint i = 0; i < c->x.n; i++)
+        g_print (" %16.6g", sw_carpet_axis_value (&c->x, i));
+      g_print ("\n");
+      for (guint j = 0; j < c->y.n; j++)
+        {
+          g_print ("%12.6g", sw_carpet_axis_value (&c->y, j));
+          for (guint i = 0; i < c->x.n; i++)
+            {
+              g_autofree char *v = cell (sw_format_money (c->money[j * c->x.n + i]), 16);
+              g_print (" %s", v);
+            }
+          g_print ("\n");
+        }
+      g_print ("%s\n", sw_economics_money_note ());
     }
   if (c->output == SW_CARPET_DEVELOPMENT || c->output == SW_CARPET_COST_PER_FLIGHT)
     g_print ("\n%s\n", _(EFFORT_NOTE));
