@@ -121,6 +121,16 @@ test_window_has_page (void)
     g_assert_true (sw_document_undo (doc));
     g_assert_cmpint (sw_document_get_design (doc)->economics.recovery_mode, ==,
                      SW_RECOVERY_NONE);
+    /* The boosters' mode: a named edit of its own, the first stage's
+     * untouched; undone in one step. */
+    gtk_drop_down_set_selected (GTK_DROP_DOWN (sw_staging_page_get_booster_mode (page)), 1);
+    g_assert_cmpint (sw_document_get_design (doc)->economics.booster_recovery_mode, ==,
+                     SW_RECOVERY_DOWNRANGE);
+    g_assert_cmpint (sw_document_get_design (doc)->economics.recovery_mode, ==,
+                     SW_RECOVERY_NONE);
+    g_assert_true (sw_document_undo (doc));
+    g_assert_cmpint (sw_document_get_design (doc)->economics.booster_recovery_mode, ==,
+                     SW_RECOVERY_NONE);
   }
   sw_test_window_close (w);
 }

@@ -98,6 +98,7 @@ struct _SwStagingPage {
   guint           updating;     /* fields being filled from a result */
   GtkWidget      *fields[SW_N_ECON_NUMBERS];
   GtkWidget      *mode;
+  GtkWidget      *booster_mode;  /* economics.recovery.booster_mode */
   GtkWidget      *engine_types;  /* SwEngineTypesEditor: the economics lists */
   Job            *running;      /* the newest job, until it is shown */
   Job            *shown;        /* the job whose figures are drawn */
@@ -628,6 +629,8 @@ sw_staging_page_set_result (SwStagingPage *self, SwAnalysis *result)
       sw_number_field_reset (SW_NUMBER_FIELD (self->fields[k]), v * scale);
     }
   gtk_drop_down_set_selected (GTK_DROP_DOWN (self->mode), result->design->economics.recovery_mode);
+  gtk_drop_down_set_selected (GTK_DROP_DOWN (self->booster_mode),
+                              result->design->economics.booster_recovery_mode);
   gtk_editable_set_text (GTK_EDITABLE (self->currency), result->design->economics.currency);
   gtk_widget_remove_css_class (self->currency, "error");
   gtk_widget_set_visible (self->currency_error, FALSE);
@@ -663,6 +666,13 @@ sw_staging_page_get_mode (SwStagingPage *self)
 {
   g_return_val_if_fail (SW_IS_STAGING_PAGE (self), NULL);
   return self->mode;
+}
+
+GtkWidget *
+sw_staging_page_get_booster_mode (SwStagingPage *self)
+{
+  g_return_val_if_fail (SW_IS_STAGING_PAGE (self), NULL);
+  return self->booster_mode;
 }
 
 /* A field's value into the design through the named edit, one undo step
@@ -702,6 +712,23 @@ mode_cb (GtkDropDown *dd, GParamSpec *pspec, SwStagingPage *self)
       return;
     }
   sw_document_commit (self->document, d, "staging:mode");
+}
+
+static void
+booster_mode_cb (GtkDropDown *dd, GParamSpec *pspec, SwStagingPage *self)
+{
+  SwDesign *d;
+
+  if (self->updating > 0 || self->document == NULL)
+    return;
+  d = sw_document_dup_design (self->document);
+  sw_economics_set_booster_recovery_mode (&d->economics, gtk_drop_down_get_selected (dd));
+  if (sw_design_equal (d, sw_document_get_design (self->document)))
+    {
+      sw_design_free (d);
+      return;
+    }
+  sw_document_commit (self->document, d, "staging:booster-mode");
 }
 
 /* The currency label: a named edit on Enter or when the field loses focus;
@@ -1165,10 +1192,15 @@ draw_decision (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointe
   {
     double kx = left + (n_panels % cols) * panel_w + 16.0, ky = (n_panels / cols) * panel_h + 14.0;
     const double dash[] = { 5.0, 3.0 }, mdash[] = { 4.0, 3.0 };
-    g_autofree char *rec = g_strdup_printf (_("first stage recovered, %s"),
-                                            s->reuse_mode == SW_RECOVERY_LAUNCH_SITE
-                                              ? _("returns to the launch site")
-                                              : _("lands downrange"));
+    g_autofree char *words = sw_staging_dup_recovery_words (s);
+    g_autofree char *rec = s->booster_reuse_mode == SW_RECOVERY_NONE
+                             ? g_strdup_printf (_("first stage recovered, %s"),
+                                                s->reuse_mode == SW_RECOVERY_LAUNCH_SITE
+                                                  ? _("returns to the launch site")
+                                                  : _("lands downrange"))
+                             /* Translators: %s says how the first stage and the boosters are
+                              * recovered */
+                             : g_strdup_printf (_("recovered: %s"), words);
     g_autofree char *best = s->best < 0
                               ? g_strdup (_("no stage count closes"))
                               : s->rows[s->best].arrangement == SW_ARRANGEMENT_BOOSTERS
@@ -1189,13 +1221,20 @@ draw_decision (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointe
                              : g_strdup_printf (_("this design (ringed): %u stages"),
                                                 own_row->n_stages);
     /* Translators: %u is the number of strap-on boosters */
-    g_autofree char *boost = g_strdup_printf (g_dngettext (GETTEXT_PACKAGE,
-                                                           "with the %u booster; dotted: core "
-                                                           "recovered",
-                                                           "with the %u boosters; dotted: core "
-                                                           "recovered",
-                                                           s->booster_count),
-                                              s->booster_count);
+    g_autofree char *boost = s->booster_reuse_mode == SW_RECOVERY_NONE
+      ? g_strdup_printf (g_dngettext (GETTEXT_PACKAGE,
+                                      "with the %u booster; dotted: core recovered",
+                                      "with the %u boosters; dotted: core recovered",
+                                      s->booster_count),
+                         s->booster_count)
+      /* Translators: %u is the number of strap-on boosters */
+      : g_strdup_printf (g_dngettext (GETTEXT_PACKAGE,
+                                      "with the %u booster; dotted: recovered as this design "
+                                      "recovers",
+                                      "with the %u boosters; dotted: recovered as this design "
+                                      "recovers",
+                                      s->booster_count),
+                         s->booster_count);
     const char *texts[6] = { s->booster_count > 0 ? _("serial, expendable") : _("expendable"),
                              rec, boost, best, own,
                              s->booster_count > 0 ? _("does not close (grey: serial)")
@@ -1850,6 +1889,7 @@ sw_staging_page_init (SwStagingPage *self)
       [SW_ECON_CER_FIRST + SW_CER_SYSTEMS_BASE] = N_("Systems factor per stage"),
       [SW_ECON_ENGINE_MASS_FRACTION] = N_("Engines in a stage's dry mass"),
       [SW_ECON_RECOVERY_DELTA_V] = N_("Recovery delta-v"),
+      [SW_ECON_BOOSTER_RECOVERY_DELTA_V] = N_("Boosters' recovery delta-v"),
       [SW_ECON_LANDING_HARDWARE] = N_("Landing hardware"),
       [SW_ECON_REFURBISHMENT] = N_("Refurbishment"),
       [SW_ECON_FLIGHTS_PER_STAGE] = N_("Flights per stage"),
@@ -1874,7 +1914,9 @@ sw_staging_page_init (SwStagingPage *self)
         GtkWidget *label = gtk_label_new (_(labels[k]));
         GtkWidget *field = sw_number_field_new ();
         /* The currency and its message follow the cost of a work-year. */
-        int row = (int) k + (k == SW_ECON_WORK_YEAR_COST ? 1 : 3), col = 0;
+        /* ... and the boosters' mode comes before their delta-v. */
+        int row = (int) k + (k == SW_ECON_WORK_YEAR_COST ? 1 : 3)
+                  + (k >= SW_ECON_BOOSTER_RECOVERY_DELTA_V ? 1 : 0), col = 0;
 
         gtk_label_set_xalign (GTK_LABEL (label), 0.0);
         sw_number_field_set_limit (SW_NUMBER_FIELD (field), id, percent ? 100.0 : 1.0,
@@ -1897,6 +1939,24 @@ sw_staging_page_init (SwStagingPage *self)
     g_signal_connect (self->mode, "notify::selected", G_CALLBACK (mode_cb), self);
     gtk_grid_attach (GTK_GRID (grid), gtk_label_new (_("First stage")), 0, 0, 1, 1);
     gtk_grid_attach (GTK_GRID (grid), self->mode, 1, 0, 1, 1);
+    {
+      /* The strap-on boosters' recovery (economics.recovery.booster_mode). */
+      const char *bmodes[] = { N_("Boosters expended"), N_("Boosters land downrange"),
+                               N_("Boosters return to the launch site"), NULL };
+      const char *bshown[4];
+      GtkWidget *label = gtk_label_new (_("Boosters"));
+
+      for (guint i = 0; i < 3; i++)
+        bshown[i] = _(bmodes[i]);
+      bshown[3] = NULL;
+      gtk_label_set_xalign (GTK_LABEL (label), 0.0);
+      self->booster_mode = gtk_drop_down_new_from_strings (bshown);
+      g_signal_connect (self->booster_mode, "notify::selected", G_CALLBACK (booster_mode_cb),
+                        self);
+      gtk_grid_attach (GTK_GRID (grid), label, 0, SW_ECON_BOOSTER_RECOVERY_DELTA_V + 3, 1, 1);
+      gtk_grid_attach (GTK_GRID (grid), self->booster_mode, 1,
+                       SW_ECON_BOOSTER_RECOVERY_DELTA_V + 3, 1, 1);
+    }
     {
       GtkWidget *label = gtk_label_new (_("Currency"));
       GtkEventController *focus = gtk_event_controller_focus_new ();

@@ -32,6 +32,8 @@ void       sw_staging_page_set_document (SwStagingPage *self, SwDocument *docume
 /* Test API: the field of a numeric economics key, the recovery-mode menu. */
 GtkWidget *sw_staging_page_get_field (SwStagingPage *self, SwEconNumber key);
 GtkWidget *sw_staging_page_get_mode (SwStagingPage *self);
+/* The boosters' recovery mode (economics.recovery.booster_mode). */
+GtkWidget *sw_staging_page_get_booster_mode (SwStagingPage *self);
 /* The SwEngineTypesEditor: engine types and developed stages. */
 GtkWidget *sw_staging_page_get_engine_types (SwStagingPage *self);
 /* Test API: TRUE once the worker's figures for the last result are shown. */

@@ -77,6 +77,9 @@ economics_node (const SwEconomics *e)
     json_object_set_null_member (root, "currency");
   json_object_set_string_member (json_object_get_object_member (root, "recovery"), "mode",
                                  sw_recovery_mode_to_string (e->recovery_mode));
+  json_object_set_string_member (json_object_get_object_member (root, "recovery"),
+                                 "booster_mode",
+                                 sw_recovery_mode_to_string (e->booster_recovery_mode));
   for (guint i = 0; i < e->n_engine_types; i++)
     {
       JsonObject *t = json_object_new ();
@@ -135,6 +138,13 @@ stages_json (const SwDesign *d, const SwStaging *s)
     e.recovery_mode = s->reuse_mode;
     sw_cli_add_number (b, "recovery_delta_v_m_s", sw_economics_recovery_delta_v (&e));
   }
+  json_builder_set_member_name (b, "design_recovers_boosters");
+  json_builder_add_boolean_value (b, s->booster_reuse_mode != SW_RECOVERY_NONE);
+  json_builder_set_member_name (b, "booster_recovery_mode");
+  json_builder_add_string_value (b, sw_recovery_mode_to_string (s->booster_reuse_mode));
+  sw_cli_add_number (b, "booster_recovery_delta_v_m_s",
+                     s->booster_reuse_mode != SW_RECOVERY_NONE
+                       ? sw_economics_booster_recovery_delta_v (&d->economics) : 0.0);
   sw_cli_add_number (b, "work_year_cost", s->work_year_cost);
   json_builder_set_member_name (b, "currency");
   if (d->economics.currency[0] != '\0')
@@ -195,6 +205,8 @@ stages_json (const SwDesign *d, const SwStaging *s)
       sw_cli_add_number (b, "liftoff_mass_kg", r->liftoff_mass_kg);
       sw_cli_add_number (b, "liftoff_mass_recovered_kg", r->liftoff_mass_reused_kg);
       sw_cli_add_number (b, "recovery_payload_penalty", r->payload_penalty_fraction);
+      sw_cli_add_number (b, "recovery_propellant_kg", r->recovery_propellant_kg);
+      sw_cli_add_number (b, "booster_recovery_propellant_kg", r->booster_recovery_propellant_kg);
       sw_cli_add_number (b, "development_work_years", r->development_work_years);
       sw_cli_add_number (b, "development_recovered_work_years", r->development_reused_work_years);
       sw_cli_add_number (b, "per_flight_work_years", r->cost_per_flight_work_years);
@@ -237,10 +249,24 @@ stages_table (const SwDesign *d, const SwStaging *s)
   e.recovery_mode = s->reuse_mode;
   dvrec = sw_format_speed (sw_economics_recovery_delta_v (&e));
   g_print (_("Design: %s (%u stages)\n"), d->name, s->design_stages);
-  g_print (_("Recovered column: first stage %s, recovery delta-v %s%s\n"),
-           s->reuse_mode == SW_RECOVERY_LAUNCH_SITE ? _("returns to the launch site")
-                                                    : _("lands downrange"),
-           dvrec, s->design_reuses ? "" : _(" (the design itself is expendable)"));
+  if (s->reuse_mode == SW_RECOVERY_NONE)
+    g_print (_("Recovered column: first stage expended\n"));
+  else
+    g_print (_("Recovered column: first stage %s, recovery delta-v %s%s\n"),
+             s->reuse_mode == SW_RECOVERY_LAUNCH_SITE ? _("returns to the launch site")
+                                                      : _("lands downrange"),
+             dvrec, s->design_reuses ? "" : _(" (the design itself is expendable)"));
+  if (s->booster_reuse_mode != SW_RECOVERY_NONE)
+    {
+      g_autofree char *bdv = sw_format_speed (sw_economics_booster_recovery_delta_v (
+                                                &d->economics));
+      /* Translators: %s how the boosters land, %s a speed */
+      g_print (_("Recovered column, rows with boosters: the boosters %s, recovery delta-v %s "
+                 "each\n"),
+               s->booster_reuse_mode == SW_RECOVERY_LAUNCH_SITE
+                 ? _("return to the launch site") : _("land downrange"),
+               bdv);
+    }
   g_print ("%s\n\n", _(EFFORT_NOTE));
   g_print ("%-3s %-2s %12s %12s %8s %11s %11s %10s %10s %9s %12s %7s\n", "", _("N"),
            _("liftoff"), _("recovered"), _("penalty"), _("develop wy"), _("dev rec wy"),

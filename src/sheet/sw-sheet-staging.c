@@ -159,7 +159,14 @@ sw_sheet_draw_staging (cairo_t *cr, const SwAnalysis *analysis, double x, double
         }
       ty += row_h;
     }
-  if (s.booster_count > 0)
+  if (s.booster_count > 0 && s.booster_reuse_mode != SW_RECOVERY_NONE)
+    {
+      g_autofree char *words = sw_staging_dup_recovery_words (&s);
+      /* Translators: %s says how the first stage and the boosters are recovered */
+      statement = g_strdup_printf (_("▸ this design; shaded: the best row; recovered: %s."),
+                                   words);
+    }
+  else if (s.booster_count > 0)
     statement = g_strdup_printf (_("▸ this design; shaded: the best row; recovered: the first "
                                    "stage %s."),
                                  s.reuse_mode == SW_RECOVERY_LAUNCH_SITE
@@ -192,11 +199,16 @@ sw_sheet_draw_staging (cairo_t *cr, const SwAnalysis *analysis, double x, double
       {
         /* Translators: %u is the number of boosters; the short form of the
          * staging table's note on a design with strap-on boosters */
-        g_autofree char *with = g_strdup_printf (_("“+ boosters”: the same stages with this "
-                                                   "design's %u boosters beside the core; "
-                                                   "success counts the boosters as perfect; "
-                                                   "recovered: the core, boosters expended."),
-                                                 s.booster_count);
+        g_autofree char *with = s.booster_reuse_mode == SW_RECOVERY_NONE
+          ? g_strdup_printf (_("“+ boosters”: the same stages with this design's %u boosters "
+                               "beside the core; success counts the boosters as perfect; "
+                               "recovered: the core, boosters expended."),
+                             s.booster_count)
+          /* Translators: %u is the number of boosters */
+          : g_strdup_printf (_("“+ boosters”: the same stages with this design's %u boosters "
+                               "beside the core; success counts the boosters as perfect; "
+                               "recovered: as this design recovers them."),
+                             s.booster_count);
         sw_sheet_text_at (cr, with, x, money_y, &note);
         money_y += note_h;
         g_autofree char *thrust = NULL;
