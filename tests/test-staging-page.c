@@ -91,6 +91,58 @@ test_page_shows_worker_result (void)
     }
 }
 
+/* A "simulate" design: the fast phase's table uses the first guess; once
+ * the ascent phase has closed the loop, the page sizes the table again with
+ * the loop's losses, and this design's row is the totals' liftoff mass. */
+static gboolean
+looped_cb (gpointer data)
+{
+  const SwStaging *s = sw_staging_page_get_staging (SW_STAGING_PAGE (data));
+
+  return sw_staging_page_is_ready (SW_STAGING_PAGE (data)) && s != NULL
+         && strstr (s->losses_note, "closed loop's losses") != NULL;
+}
+
+static void
+test_page_follows_loop (void)
+{
+  g_autofree char *path = g_build_filename (SOURCE_DESIGNS_DIR,
+                                            "three-stage-simulated.stagewright", NULL);
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
+  g_autoptr (SwAnalysis) fast = NULL, flown = NULL;
+  GtkWidget *win = gtk_window_new ();
+  GtkWidget *page = sw_staging_page_new ();
+  const SwStaging *s;
+  SwAnalysisOptions o;
+
+  g_assert_nonnull (d);
+  gtk_window_set_child (GTK_WINDOW (win), page);
+  gtk_window_set_default_size (GTK_WINDOW (win), 1000, 900);
+  gtk_window_present (GTK_WINDOW (win));
+  sw_analysis_options_init (&o);
+  o.montecarlo = FALSE;
+  fast = sw_analysis_new (d, 1, &o, NULL);
+  g_assert_true (fast->ascent_pending);
+  flown = sw_analysis_add_ascent (fast, NULL);
+  g_assert_true (flown->sized_by_ascent && flown->trade_losses_simulated);
+
+  sw_staging_page_set_result (SW_STAGING_PAGE (page), fast);
+  sw_test_wait_until (ready_cb, page, 20000, "the first-guess table");
+  s = sw_staging_page_get_staging (SW_STAGING_PAGE (page));
+  g_assert_nonnull (strstr (s->losses_note, "first guess"));
+  g_assert_cmpfloat_with_epsilon (s->rows[2].liftoff_mass_kg / fast->sizing.liftoff_mass_kg, 1.0,
+                                  1e-9);
+
+  sw_staging_page_set_result (SW_STAGING_PAGE (page), flown);
+  sw_test_wait_until (looped_cb, page, 20000, "the closed loop's table");
+  s = sw_staging_page_get_staging (SW_STAGING_PAGE (page));
+  g_assert_cmpfloat_with_epsilon (s->rows[2].liftoff_mass_kg / flown->sizing.liftoff_mass_kg,
+                                  1.0, 1e-9);
+  g_assert_cmpfloat (fabs (flown->sizing.liftoff_mass_kg / fast->sizing.liftoff_mass_kg - 1.0),
+                     >, 0.03);
+  gtk_window_destroy (GTK_WINDOW (win));
+}
+
 static void
 test_window_has_page (void)
 {
@@ -974,6 +1026,7 @@ main (int argc, char **argv)
   tmp_dir = sw_gui_test_env_init (&argc, &argv, "sw-staging-page-XXXXXX");
   g_test_add_func ("/gui/staging-page/shows-worker-result", test_page_shows_worker_result);
   g_test_add_func ("/gui/staging-page/window-has-page", test_window_has_page);
+  g_test_add_func ("/gui/staging-page/follows-loop", test_page_follows_loop);
   g_test_add_func ("/gui/staging-page/boosters", test_page_boosters);
   g_test_add_func ("/gui/staging-page/engine-types-editor", test_engine_types_editor);
   g_test_add_func ("/gui/staging-page/carpet-picker", test_carpet_picker);

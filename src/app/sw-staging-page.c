@@ -909,6 +909,13 @@ sw_staging_page_is_ready (SwStagingPage *self)
   return self->running == NULL && self->shown != NULL;
 }
 
+const SwStaging *
+sw_staging_page_get_staging (SwStagingPage *self)
+{
+  g_return_val_if_fail (SW_IS_STAGING_PAGE (self), NULL);
+  return self->shown != NULL && self->shown->staging_ok ? &self->shown->staging : NULL;
+}
+
 const char *
 sw_staging_page_get_weighting (SwStagingPage *self)
 {

@@ -36,6 +36,8 @@ GtkWidget *sw_staging_page_get_mode (SwStagingPage *self);
 GtkWidget *sw_staging_page_get_booster_mode (SwStagingPage *self);
 /* The SwEngineTypesEditor: engine types and developed stages. */
 GtkWidget *sw_staging_page_get_engine_types (SwStagingPage *self);
+/* Test API: the staging figures shown, or NULL before the first. */
+const SwStaging *sw_staging_page_get_staging (SwStagingPage *self);
 /* Test API: TRUE once the worker's figures for the last result are shown. */
 gboolean   sw_staging_page_is_ready (SwStagingPage *self);
 /* The weighting statement shown (for tests). */
