@@ -552,6 +552,46 @@ test_shape_follows_loop (void)
                        m.stages[i].structural_coefficient);
 }
 
+/* The staging table of a "simulate" design takes the closed loop's losses
+ * once the analysis has them: this design's row is the liftoff mass of the
+ * totals (the closed loop's sizing), not of the first guess; before the
+ * loop closes the rows use the first guess and say so. */
+static void
+test_staging_follows_loop (void)
+{
+  g_autoptr (SwDesign) d = demo ("three-stage-simulated.stagewright");
+  g_autoptr (SwAnalysis) fast = NULL, a = NULL;
+  SwAnalysisOptions o;
+  SwStaging first, looped;
+  double closed;
+
+  sw_analysis_options_init (&o);
+  o.montecarlo = FALSE;
+  fast = sw_analysis_new (d, 1, &o, NULL);
+  a = sw_analysis_run (d, &o, NULL);
+  g_assert_true (fast->ok && !fast->trade_losses_simulated);
+  g_assert_true (a->sized_by_ascent && a->trade_losses_simulated);
+  closed = a->sizing.liftoff_mass_kg;
+
+  g_assert_true (sw_analysis_staging (fast, 6, &first, NULL));
+  g_assert_true (sw_analysis_staging (a, 6, &looped, NULL));
+  g_assert_cmpint (looped.design_index, ==, 2);
+  /* This design's row and the design's liftoff mass are the totals'. */
+  g_assert_cmpfloat_with_epsilon (looped.rows[2].liftoff_mass_kg / closed, 1.0, 1e-9);
+  g_assert_cmpfloat_with_epsilon (looped.design_liftoff_mass_kg / closed, 1.0, 1e-9);
+  /* Its payload at its own liftoff mass is its payload. */
+  g_assert_cmpfloat_with_epsilon (looped.rows[2].payload_fixed_size_kg / d->payload_kg, 1.0,
+                                  1e-9);
+  /* The first guess is far enough from the loop for the test to tell
+   * (about 41.5 t against 45.0 t). */
+  g_assert_cmpfloat (fabs (first.rows[2].liftoff_mass_kg / closed - 1.0), >, 0.03);
+  g_assert_cmpfloat_with_epsilon (first.rows[2].liftoff_mass_kg / fast->sizing.liftoff_mass_kg,
+                                  1.0, 1e-9);
+  g_assert_nonnull (strstr (first.losses_note, "first guess"));
+  g_assert_nonnull (strstr (looped.losses_note, "closed loop's losses"));
+  g_assert_null (strstr (looped.losses_note, "first guess"));
+}
+
 int
 main (int argc, char **argv)
 {
@@ -570,5 +610,6 @@ main (int argc, char **argv)
   g_test_add_func ("/analysis/fixed-stage-trades", test_fixed_stage_trades);
   g_test_add_func ("/analysis/fixed-loads-loop", test_fixed_loads_loop);
   g_test_add_func ("/analysis/shape-follows-loop", test_shape_follows_loop);
+  g_test_add_func ("/analysis/staging-follows-loop", test_staging_follows_loop);
   return g_test_run ();
 }

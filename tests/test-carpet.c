@@ -7,6 +7,8 @@
 #include "sw-carpet.h"
 #include "sw-cost.h"
 #include "sw-design.h"
+#include "sw-economics.h"
+#include "sw-staging.h"
 #include "sw-sizing.h"
 
 #include <math.h>
@@ -629,6 +631,81 @@ test_bad_axes (void)
   g_clear_error (&error);
 }
 
+/* The cost outputs in money: each point's money is its work-years times
+ * the design's cost of a work-year, and equals the cost model run on the
+ * individual sizing of the point; the design's own point equals the
+ * staging table's row of this design (the `stages` figures).  Not for the
+ * mass outputs, nor without a cost per work-year. */
+static void
+test_money (void)
+{
+  g_autoptr (SwDesign) d = load (orbit_json);
+  const SwCarpetOutput outputs[] = { SW_CARPET_DEVELOPMENT, SW_CARPET_COST_PER_FLIGHT };
+  const guint samples[][2] = { { 0, 0 }, { 3, 2 }, { 6, 4 }, { 2, 3 } };
+  const double wyc = 250000.0;
+  SwStaging st;
+
+  g_assert_true (sw_economics_set_number (&d->economics, SW_ECON_WORK_YEAR_COST, wyc));
+  g_assert_true (sw_economics_set_currency (&d->economics, "kDemo", NULL));
+  g_assert_true (sw_staging_compute (d, 6, &st, NULL));
+  g_assert_cmpint (st.design_index, ==, 2);
+  for (guint o = 0; o < G_N_ELEMENTS (outputs); o++)
+    {
+      SwCarpetOptions opt = { 0 };
+      g_autoptr (SwCarpet) c = NULL;
+      const SwStagingRow *own = &st.rows[st.design_index];
+      double own_wy = outputs[o] == SW_CARPET_DEVELOPMENT ? own->development_work_years
+                                                          : own->cost_per_flight_work_years;
+
+      axis (&opt.x, d, "stages[0].structural_coefficient", 0.04, 0.16, 7);
+      axis (&opt.y, d, "stages[1].isp_vac_s", 300.0, 460.0, 5);
+      opt.output = outputs[o];
+      c = sw_carpet_compute (d, &opt, NULL);
+      g_assert_nonnull (c);
+      g_assert_true (c->has_money);
+      g_assert_nonnull (c->money);
+      g_assert_cmpfloat (c->work_year_cost, ==, wyc);
+      g_assert_cmpstr (c->currency, ==, "kDemo");
+      for (guint k = 0; k < G_N_ELEMENTS (samples); k++)
+        {
+          guint i = samples[k][0], j = samples[k][1];
+          double money = c->money[j * c->x.n + i];
+          double wy = individual (d, c, i, j);
+
+          g_assert_true (isfinite (wy) && wy > 0.0);
+          g_assert_cmpfloat (money, ==, c->values[j * c->x.n + i] * wyc);
+          g_assert_cmpfloat_with_epsilon (money / (wy * wyc), 1.0, 1e-12);
+        }
+      /* The design's own point: the staging table's row of this design. */
+      g_assert_true (isfinite (own_wy));
+      g_assert_cmpfloat_with_epsilon (c->design_money / (own_wy * wyc), 1.0, 1e-9);
+    }
+  {
+    SwCarpetOptions opt = { 0 };
+    g_autoptr (SwCarpet) c = NULL;
+
+    axis (&opt.x, d, "stages[0].structural_coefficient", 0.04, 0.16, 4);
+    axis (&opt.y, d, "stages[1].isp_vac_s", 300.0, 460.0, 4);
+    opt.output = SW_CARPET_LIFTOFF_MASS;
+    c = sw_carpet_compute (d, &opt, NULL);
+    g_assert_false (c->has_money);
+    g_assert_null (c->money);
+    g_assert_true (isnan (c->design_money) && isnan (c->work_year_cost));
+  }
+  {
+    g_autoptr (SwDesign) plain = load (orbit_json);
+    SwCarpetOptions opt = { 0 };
+    g_autoptr (SwCarpet) c = NULL;
+
+    axis (&opt.x, plain, "stages[0].structural_coefficient", 0.04, 0.16, 4);
+    axis (&opt.y, plain, "stages[1].isp_vac_s", 300.0, 460.0, 4);
+    opt.output = SW_CARPET_DEVELOPMENT;
+    c = sw_carpet_compute (plain, &opt, NULL);
+    g_assert_false (c->has_money);
+    g_assert_null (c->money);
+  }
+}
+
 int
 main (int argc, char **argv)
 {
@@ -642,5 +719,6 @@ main (int argc, char **argv)
   g_test_add_func ("/core/carpet/bad-axes", test_bad_axes);
   g_test_add_func ("/core/carpet/fixed-loads-honoured", test_fixed_loads_honoured);
   g_test_add_func ("/core/carpet/boosters-and-altitude", test_boosters_and_altitude);
+  g_test_add_func ("/core/carpet/money", test_money);
   return g_test_run ();
 }

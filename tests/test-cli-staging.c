@@ -6,6 +6,8 @@
  * that names the option.  Runs the built program (env SW_CLI). */
 #include "config.h"
 
+#include "sw-analysis.h"
+
 #include "sw-carpet.h"
 #include "sw-design.h"
 #include "sw-staging.h"
@@ -517,11 +519,25 @@ test_stages_boosters (void)
   g_autoptr (GError) error = NULL;
   JsonObject *o;
   JsonArray *rows;
-  SwStaging s;
+  SwStaging s, first;
   Run r;
 
   g_assert_nonnull (d);
-  g_assert_true (sw_staging_compute (d, 6, &s, NULL));
+  /* A simulate design: `stages` flies the closed loop first, as the
+   * analysis does, and sizes the rows with its losses. */
+  {
+    SwAnalysisOptions ao;
+    g_autoptr (SwAnalysis) a = NULL;
+
+    sw_analysis_options_init (&ao);
+    ao.montecarlo = FALSE;
+    a = sw_analysis_run (d, &ao, NULL);
+    g_assert_true (a->ok && a->trade_losses_simulated);
+    g_assert_true (sw_analysis_staging (a, 6, &s, NULL));
+  }
+  g_assert_nonnull (strstr (s.losses_note, "closed loop's losses"));
+  /* `export --no-ascent` flies no loop: its CSV is the first guess's. */
+  g_assert_true (sw_staging_compute (d, 6, &first, NULL));
   run_cli (&r, "stages", path, "--json", NULL);
   g_assert_cmpint (r.code, ==, 0);
   o = parse (r.out, &keep);
@@ -595,13 +611,14 @@ test_stages_boosters (void)
         g_assert_cmpuint (g_strv_length (f), ==, 19);
         g_assert_cmpstr (f[18], ==, row < 6 ? "serial" : "boosters");
         g_assert_cmpstr (f[14], ==, row == 7 ? "true" : "false");
-        if (isfinite (s.rows[row].liftoff_mass_kg))
-          g_assert_cmpfloat_with_epsilon (g_ascii_strtod (f[3], NULL) / s.rows[row].liftoff_mass_kg,
-                                          1.0, 1e-13);
+        if (isfinite (first.rows[row].liftoff_mass_kg))
+          g_assert_cmpfloat_with_epsilon (g_ascii_strtod (f[3], NULL)
+                                            / first.rows[row].liftoff_mass_kg, 1.0, 1e-13);
         row++;
       }
     g_assert_cmpuint (row, ==, 12);
-    g_assert_nonnull (strstr (text, s.boosters_note));
+    g_assert_nonnull (strstr (text, first.boosters_note));
+    g_assert_nonnull (strstr (text, first.losses_note));
     {
       g_autoptr (GDir) gd = g_dir_open (dir, 0, NULL);
       const char *name;
@@ -615,6 +632,109 @@ test_stages_boosters (void)
   }
 }
 
+/* A "simulate" design: `stages` sizes its rows with the closed loop's
+ * losses, as `size` sizes the design, so this design's row is size's
+ * liftoff mass (45.0 t for the demo, where the first guess gives 41.5 t). */
+static void
+test_stages_simulated (void)
+{
+  g_autofree char *path = g_build_filename (g_getenv ("SW_SOURCE_ROOT"), "data", "designs",
+                                            "three-stage-simulated.stagewright", NULL);
+  g_autoptr (JsonNode) keep_size = NULL, keep_stages = NULL;
+  JsonObject *size, *stages, *row;
+  double m0;
+  Run r;
+
+  run_cli (&r, "size", path, "--json", NULL);
+  g_assert_cmpint (r.code, ==, 0);
+  size = parse (r.out, &keep_size);
+  g_assert_true (json_object_get_boolean_member (size, "sized_with_simulated_losses"));
+  m0 = json_object_get_double_member (size, "liftoff_mass_kg");
+  run_clear (&r);
+
+  run_cli (&r, "stages", path, "--json", NULL);
+  g_assert_cmpint (r.code, ==, 0);
+  stages = parse (r.out, &keep_stages);
+  row = json_array_get_object_element (json_object_get_array_member (stages, "by_stage_count"),
+                                       2);
+  g_assert_true (json_object_get_boolean_member (row, "this_design"));
+  g_assert_cmpfloat_with_epsilon (json_object_get_double_member (row, "liftoff_mass_kg") / m0,
+                                  1.0, 1e-12);
+  g_assert_cmpfloat_with_epsilon (json_object_get_double_member (stages,
+                                                                 "design_liftoff_mass_kg") / m0,
+                                  1.0, 1e-12);
+  g_assert_nonnull (strstr (json_object_get_string_member (stages, "losses_note"),
+                            "closed loop's losses"));
+  run_clear (&r);
+}
+
+/* `carpet --json` of a cost output carries the grid in money: each point
+ * its work-years times the design's work_year_cost ("money_rows"), the
+ * design's own point equal to `stages`' per-flight money of this design;
+ * the CSV has the money column; a mass output has none (null). */
+static void
+test_carpet_money (void)
+{
+  g_autofree char *path = write_design ();
+  g_autoptr (JsonNode) keep = NULL, keep_stages = NULL, keep_mass = NULL;
+  JsonObject *o, *stages, *own = NULL, *mass;
+  JsonArray *rows, *money, *list;
+  Run r;
+
+  run_cli (&r, "carpet", path, "--x", "stages[0].structural_coefficient:0.03:0.2:5", "--y",
+           "stages[1].isp_vac_s:320:380:4", "--output", "cost_per_flight", "--json", NULL);
+  g_assert_cmpint (r.code, ==, 0);
+  o = parse (r.out, &keep);
+  g_assert_cmpfloat (json_object_get_double_member (o, "work_year_cost"), ==, 200000.0);
+  g_assert_cmpstr (json_object_get_string_member (o, "currency"), ==, "EUR");
+  g_assert_nonnull (strstr (json_object_get_string_member (o, "money_note"), "never a quote"));
+  rows = json_object_get_array_member (o, "rows");
+  money = json_object_get_array_member (o, "money_rows");
+  g_assert_cmpuint (json_array_get_length (money), ==, 4);
+  for (guint j = 0; j < 4; j++)
+    for (guint i = 0; i < 5; i++)
+      {
+        JsonNode *v = json_array_get_element (json_array_get_array_element (rows, j), i);
+        JsonNode *m = json_array_get_element (json_array_get_array_element (money, j), i);
+
+        g_assert_cmpint (JSON_NODE_HOLDS_NULL (v), ==, JSON_NODE_HOLDS_NULL (m));
+        if (!JSON_NODE_HOLDS_NULL (v))
+          g_assert_cmpfloat_with_epsilon (json_node_get_double (m)
+                                            / (json_node_get_double (v) * 200000.0),
+                                          1.0, 1e-15);
+      }
+  run_clear (&r);
+
+  run_cli (&r, "stages", path, "--json", NULL);
+  g_assert_cmpint (r.code, ==, 0);
+  stages = parse (r.out, &keep_stages);
+  list = json_object_get_array_member (stages, "by_stage_count");
+  for (guint i = 0; i < json_array_get_length (list); i++)
+    if (json_object_get_boolean_member (json_array_get_object_element (list, i), "this_design"))
+      own = json_array_get_object_element (list, i);
+  g_assert_nonnull (own);
+  g_assert_cmpfloat_with_epsilon (json_object_get_double_member (
+                                    json_object_get_object_member (o, "this_design"), "money")
+                                    / json_object_get_double_member (own, "per_flight_money"),
+                                  1.0, 1e-9);
+  run_clear (&r);
+
+  run_cli (&r, "carpet", path, "--x", "stages[0].structural_coefficient:0.03:0.2:3", "--y",
+           "stages[1].isp_vac_s:320:380:2", "--output", "cost_per_flight", "--csv", NULL);
+  g_assert_cmpint (r.code, ==, 0);
+  g_assert_nonnull (strstr (r.out, ",cost_per_flight_work_years,cost_per_flight_money,closes\n"));
+  run_clear (&r);
+
+  run_cli (&r, "carpet", path, "--x", "stages[0].structural_coefficient:0.03:0.2:3", "--y",
+           "stages[1].isp_vac_s:320:380:2", "--json", NULL);
+  g_assert_cmpint (r.code, ==, 0);
+  mass = parse (r.out, &keep_mass);
+  g_assert_true (json_object_get_null_member (mass, "money_rows"));
+  g_assert_true (json_object_get_null_member (mass, "work_year_cost"));
+  run_clear (&r);
+  g_unlink (path);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -625,5 +745,7 @@ main (int argc, char **argv)
   g_test_add_func ("/cli/staging/carpet-errors", test_carpet_errors);
   g_test_add_func ("/cli/staging/export-csv", test_export_csv);
   g_test_add_func ("/cli/staging/stages-boosters", test_stages_boosters);
+  g_test_add_func ("/cli/staging/stages-simulated", test_stages_simulated);
+  g_test_add_func ("/cli/staging/carpet-money", test_carpet_money);
   return g_test_run ();
 }

@@ -303,6 +303,58 @@ test_vehicle_from_sizing_boosters (void)
   g_assert_cmpfloat_with_epsilon (v.booster_dry_mass_kg, 30000.0 * 0.11 / 0.89, 1e-6);
 }
 
+/* Recovered boosters: 4 boosters x 10 vehicles flown 10 times each need
+ * ceil(40 / 10) = 4 boosters and 4 booster engines; the other 36 booster
+ * flights each ready a used booster at 0.1 of its first-unit cost (element
+ * and engine).  By hand from the model's own first-unit figures and the
+ * learning sums as plain loops of q^B (B = log2 0.9): the production
+ * differs from the expended boosters' by exactly
+ *   (b1 + e1) (L(4) - L(40)) + 36 x 0.1 x (b1 + e1).
+ * Development is unchanged; nothing else moves. */
+static void
+test_recovered_boosters (void)
+{
+  g_autoptr (SwDesign) d = two_stage_design ();
+  SwCostVehicle v = { 0 };
+  SwCost exp_, rec;
+  double b = log (0.9) / log (2.0), l4 = 0.0, l40 = 0.0, first, expected;
+
+  d->economics.production_run = 10;
+  d->economics.learning_rate = 0.9;
+  d->economics.flights_per_stage = 10;
+  d->economics.refurbishment_fraction = 0.1;
+  v.n_stages = 2;
+  v.dry_mass_kg[0] = v.dry_mass_kg[1] = 11000.0;
+  v.engine_count[0] = v.engine_count[1] = 1;
+  v.booster_count = 4;
+  v.booster_dry_mass_kg = 5000.0;
+  sw_cost_compute (d, &v, &exp_);
+  v.recovered_boosters = TRUE;
+  sw_cost_compute (d, &v, &rec);
+
+  g_assert_cmpuint (exp_.booster_units, ==, 40);
+  g_assert_cmpuint (rec.booster_units, ==, 4);
+  for (guint q = 1; q <= 40; q++)
+    {
+      l40 += pow (q, b);
+      if (q <= 4)
+        l4 += pow (q, b);
+    }
+  first = rec.booster_first_unit_work_years + rec.engines[rec.booster_engine].first_unit_work_years;
+  expected = first * (l4 - l40) + 36.0 * 0.1 * first;
+  g_assert_cmpfloat_with_epsilon ((rec.production_work_years - exp_.production_work_years)
+                                    / expected, 1.0, 1e-9);
+  g_assert_cmpfloat (rec.production_work_years, <, exp_.production_work_years);
+  g_assert_cmpfloat (rec.development_work_years, ==, exp_.development_work_years);
+  g_assert_cmpfloat_with_epsilon (rec.cost_per_flight_work_years,
+                                  rec.production_work_years / 10.0, 1e-12);
+  /* One flight per booster: as many built as expended, no refurbishment. */
+  d->economics.flights_per_stage = 1;
+  sw_cost_compute (d, &v, &rec);
+  g_assert_cmpuint (rec.booster_units, ==, 40);
+  g_assert_cmpfloat (rec.production_work_years, ==, exp_.production_work_years);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -313,6 +365,7 @@ main (int argc, char **argv)
   g_test_add_func ("/core/cost/engine-out-binomials", test_engine_out_binomials);
   g_test_add_func ("/core/cost/shared-engine-developed-once", test_shared_engine_developed_once);
   g_test_add_func ("/core/cost/production-run", test_production_run);
+  g_test_add_func ("/core/cost/recovered-boosters", test_recovered_boosters);
   g_test_add_func ("/core/cost/boosters-as-elements", test_boosters_as_elements);
   g_test_add_func ("/core/cost/vehicle-from-sizing-boosters", test_vehicle_from_sizing_boosters);
   return g_test_run ();

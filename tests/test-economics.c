@@ -200,6 +200,30 @@ test_named_edits (void)
     }
   sw_economics_set_recovery_mode (&d->economics, SW_RECOVERY_LAUNCH_SITE);
   g_assert_cmpint (d->economics.recovery_mode, ==, SW_RECOVERY_LAUNCH_SITE);
+
+  /* The boosters' recovery mode: its own named edit, saved and read back;
+   * expendable boosters leave the key out of the file. */
+  {
+    g_autoptr (SwDesign) back = NULL;
+    g_autofree char *data = NULL, *plain = NULL;
+    gsize len;
+
+    sw_economics_set_booster_recovery_mode (&d->economics, SW_RECOVERY_NONE);
+    plain = sw_design_to_data (d, &len);
+    g_assert_null (strstr (plain, "\"booster_mode\""));
+    sw_economics_set_booster_recovery_mode (&d->economics, SW_RECOVERY_LAUNCH_SITE);
+    g_assert_cmpint (d->economics.booster_recovery_mode, ==, SW_RECOVERY_LAUNCH_SITE);
+    /* The first stage's mode is its own. */
+    g_assert_cmpint (d->economics.recovery_mode, ==, SW_RECOVERY_LAUNCH_SITE);
+    sw_economics_set_recovery_mode (&d->economics, SW_RECOVERY_NONE);
+    g_assert_cmpint (d->economics.booster_recovery_mode, ==, SW_RECOVERY_LAUNCH_SITE);
+    data = sw_design_to_data (d, &len);
+    g_assert_nonnull (strstr (data, "\"booster_mode\" : \"launch_site\""));
+    back = load (data, NULL, &error);
+    g_assert_no_error (error);
+    g_assert_cmpint (back->economics.booster_recovery_mode, ==, SW_RECOVERY_LAUNCH_SITE);
+    g_assert_cmpint (back->economics.recovery_mode, ==, SW_RECOVERY_NONE);
+  }
 }
 
 /* The currency label's named edit: up to 16 characters (UTF-8, not bytes),

@@ -811,6 +811,8 @@ text_key_widget (SwWindow *w, const char *path)
     return sw_trade_page_get_field (trade, SW_TRADE_FIELD_LOSSES_KIND);
   if (g_strcmp0 (path, "economics.recovery.mode") == 0)
     return sw_staging_page_get_mode (staging);
+  if (g_strcmp0 (path, "economics.recovery.booster_mode") == 0)
+    return sw_staging_page_get_booster_mode (staging);
   if (g_strcmp0 (path, "economics.currency") == 0)
     return sw_staging_page_get_carpet_control (staging, SW_CARPET_CONTROL_CURRENCY, 0);
   if (g_strcmp0 (path, "economics.engine_types[].name") == 0)

@@ -91,6 +91,58 @@ test_page_shows_worker_result (void)
     }
 }
 
+/* A "simulate" design: the fast phase's table uses the first guess; once
+ * the ascent phase has closed the loop, the page sizes the table again with
+ * the loop's losses, and this design's row is the totals' liftoff mass. */
+static gboolean
+looped_cb (gpointer data)
+{
+  const SwStaging *s = sw_staging_page_get_staging (SW_STAGING_PAGE (data));
+
+  return sw_staging_page_is_ready (SW_STAGING_PAGE (data)) && s != NULL
+         && strstr (s->losses_note, "closed loop's losses") != NULL;
+}
+
+static void
+test_page_follows_loop (void)
+{
+  g_autofree char *path = g_build_filename (SOURCE_DESIGNS_DIR,
+                                            "three-stage-simulated.stagewright", NULL);
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
+  g_autoptr (SwAnalysis) fast = NULL, flown = NULL;
+  GtkWidget *win = gtk_window_new ();
+  GtkWidget *page = sw_staging_page_new ();
+  const SwStaging *s;
+  SwAnalysisOptions o;
+
+  g_assert_nonnull (d);
+  gtk_window_set_child (GTK_WINDOW (win), page);
+  gtk_window_set_default_size (GTK_WINDOW (win), 1000, 900);
+  gtk_window_present (GTK_WINDOW (win));
+  sw_analysis_options_init (&o);
+  o.montecarlo = FALSE;
+  fast = sw_analysis_new (d, 1, &o, NULL);
+  g_assert_true (fast->ascent_pending);
+  flown = sw_analysis_add_ascent (fast, NULL);
+  g_assert_true (flown->sized_by_ascent && flown->trade_losses_simulated);
+
+  sw_staging_page_set_result (SW_STAGING_PAGE (page), fast);
+  sw_test_wait_until (ready_cb, page, 20000, "the first-guess table");
+  s = sw_staging_page_get_staging (SW_STAGING_PAGE (page));
+  g_assert_nonnull (strstr (s->losses_note, "first guess"));
+  g_assert_cmpfloat_with_epsilon (s->rows[2].liftoff_mass_kg / fast->sizing.liftoff_mass_kg, 1.0,
+                                  1e-9);
+
+  sw_staging_page_set_result (SW_STAGING_PAGE (page), flown);
+  sw_test_wait_until (looped_cb, page, 20000, "the closed loop's table");
+  s = sw_staging_page_get_staging (SW_STAGING_PAGE (page));
+  g_assert_cmpfloat_with_epsilon (s->rows[2].liftoff_mass_kg / flown->sizing.liftoff_mass_kg,
+                                  1.0, 1e-9);
+  g_assert_cmpfloat (fabs (flown->sizing.liftoff_mass_kg / fast->sizing.liftoff_mass_kg - 1.0),
+                     >, 0.03);
+  gtk_window_destroy (GTK_WINDOW (win));
+}
+
 static void
 test_window_has_page (void)
 {
@@ -120,6 +172,16 @@ test_window_has_page (void)
                      SW_RECOVERY_LAUNCH_SITE);
     g_assert_true (sw_document_undo (doc));
     g_assert_cmpint (sw_document_get_design (doc)->economics.recovery_mode, ==,
+                     SW_RECOVERY_NONE);
+    /* The boosters' mode: a named edit of its own, the first stage's
+     * untouched; undone in one step. */
+    gtk_drop_down_set_selected (GTK_DROP_DOWN (sw_staging_page_get_booster_mode (page)), 1);
+    g_assert_cmpint (sw_document_get_design (doc)->economics.booster_recovery_mode, ==,
+                     SW_RECOVERY_DOWNRANGE);
+    g_assert_cmpint (sw_document_get_design (doc)->economics.recovery_mode, ==,
+                     SW_RECOVERY_NONE);
+    g_assert_true (sw_document_undo (doc));
+    g_assert_cmpint (sw_document_get_design (doc)->economics.booster_recovery_mode, ==,
                      SW_RECOVERY_NONE);
   }
   sw_test_window_close (w);
@@ -507,6 +569,25 @@ carpet_shown_cb (gpointer data)
   return !sw_staging_page_is_busy (page) && sw_staging_page_is_ready (page);
 }
 
+/* The carpet shown has its grid in money. */
+static gboolean
+carpet_money_cb (gpointer data)
+{
+  SwStagingPage *page = data;
+  const SwCarpet *c = sw_staging_page_get_carpet (page);
+
+  return carpet_shown_cb (data) && c != NULL && c->has_money;
+}
+
+static gboolean
+carpet_no_money_cb (gpointer data)
+{
+  SwStagingPage *page = data;
+  const SwCarpet *c = sw_staging_page_get_carpet (page);
+
+  return carpet_shown_cb (data) && c != NULL && !c->has_money;
+}
+
 /* The carpet shown, computed, over the axis picked: @axis 0 across, 1 up. */
 typedef struct {
   SwStagingPage *page;
@@ -745,6 +826,33 @@ test_carpet_picker (void)
     g_assert_true (econ);
   }
 
+  /* Without a cost per work-year no money is offered; with one, the
+   * option names the currency and draws the money grid (no warning). */
+  {
+    GtkWidget *money = sw_staging_page_get_carpet_control (page, SW_CARPET_CONTROL_MONEY, 0);
+    SwDesign *d = sw_document_dup_design (doc);
+
+    g_assert_false (sw_staging_page_get_carpet (page)->has_money);
+    g_assert_false (gtk_widget_get_visible (money));
+    g_assert_true (sw_economics_set_number (&d->economics, SW_ECON_WORK_YEAR_COST, 150000.0));
+    sw_document_commit (doc, d, NULL);
+    sw_test_wait_until (carpet_money_cb, page, 60000, "the carpet in money");
+    c = sw_staging_page_get_carpet (page);
+    g_assert_cmpfloat (c->money[0], ==, c->values[0] * 150000.0);
+    g_assert_true (gtk_widget_get_visible (money));
+    g_assert_nonnull (strstr (gtk_check_button_get_label (GTK_CHECK_BUTTON (money)),
+                              "money units"));
+    g_assert_false (gtk_check_button_get_active (GTK_CHECK_BUTTON (money)));
+    g_assert_true (gtk_widget_activate (money));
+    g_assert_true (gtk_check_button_get_active (GTK_CHECK_BUTTON (money)));
+    drain ();
+    /* A view option: the design is as it was. */
+    g_assert_cmpfloat (sw_document_get_design (doc)->economics.work_year_cost, ==, 150000.0);
+    g_assert_true (sw_document_undo (doc));
+    sw_test_wait_until (carpet_no_money_cb, page, 60000, "the carpet in work-years again");
+    g_assert_false (gtk_widget_get_visible (money));
+  }
+
   /* Cancel: a 500 x 500 grid, cancelled at once; no carpet, said so. */
   g_assert_true (sw_number_field_enter (ctl (page, SW_CARPET_CONTROL_POINTS, 0), "500"));
   g_assert_true (sw_number_field_enter (ctl (page, SW_CARPET_CONTROL_POINTS, 1), "500"));
@@ -918,6 +1026,7 @@ main (int argc, char **argv)
   tmp_dir = sw_gui_test_env_init (&argc, &argv, "sw-staging-page-XXXXXX");
   g_test_add_func ("/gui/staging-page/shows-worker-result", test_page_shows_worker_result);
   g_test_add_func ("/gui/staging-page/window-has-page", test_window_has_page);
+  g_test_add_func ("/gui/staging-page/follows-loop", test_page_follows_loop);
   g_test_add_func ("/gui/staging-page/boosters", test_page_boosters);
   g_test_add_func ("/gui/staging-page/engine-types-editor", test_engine_types_editor);
   g_test_add_func ("/gui/staging-page/carpet-picker", test_carpet_picker);

@@ -5,6 +5,7 @@
 
 #include "sw-staging-page.h"
 
+#include "sw-analysis.h"
 #include "sw-carpet.h"
 #include "sw-csv-staging.h"
 #include "sw-document.h"
@@ -23,6 +24,10 @@
 typedef struct {
   gint      ref;
   SwDesign *design;
+  /* The design the staging table sizes: the closed loop's vehicle
+   * (sw_analysis_dup_trade_design) once the analysis has its losses, or
+   * NULL for the design itself.  Views never compute: the analysis says. */
+  SwDesign *looped;
   GCancellable *cancellable;   /* a newer design: the whole job is dropped */
   GCancellable *carpet_cancel; /* the Cancel button: the carpet only */
   GMutex    lock;
@@ -49,6 +54,7 @@ job_unref (Job *job)
   if (!g_atomic_int_dec_and_test (&job->ref))
     return;
   sw_design_free (job->design);
+  g_clear_pointer (&job->looped, sw_design_free);
   g_clear_object (&job->cancellable);
   g_clear_object (&job->carpet_cancel);
   sw_carpet_free (job->carpet);
@@ -69,6 +75,7 @@ struct _SwStagingPage {
   GtkWidget      *carpet_button;
   GtkWidget      *carpet_status;
   GtkWidget      *carpet_output;
+  GtkWidget      *carpet_money;  /* cost contours in money (the carpet's money grid) */
   GtkWidget      *axis_param[2];
   GtkWidget      *axis_min[2];
   GtkWidget      *axis_max[2];
@@ -77,6 +84,7 @@ struct _SwStagingPage {
   GtkWidget      *currency_error;
   GtkWidget      *carpet;
   SwDesign       *design;       /* the design of the last result */
+  SwDesign       *looped;       /* its closed loop's vehicle, or NULL (Job) */
   SwCarpetOutput  output;
   SwCarpetAxis    axes[2];      /* the carpet's axes as the fields show them */
   gboolean        axes_chosen;  /* the user picked: chosen[] holds the choice */
@@ -90,6 +98,7 @@ struct _SwStagingPage {
   guint           updating;     /* fields being filled from a result */
   GtkWidget      *fields[SW_N_ECON_NUMBERS];
   GtkWidget      *mode;
+  GtkWidget      *booster_mode;  /* economics.recovery.booster_mode */
   GtkWidget      *engine_types;  /* SwEngineTypesEditor: the economics lists */
   Job            *running;      /* the newest job, until it is shown */
   Job            *shown;        /* the job whose figures are drawn */
@@ -117,8 +126,11 @@ job_thread (GTask *task, gpointer source, gpointer data, GCancellable *cancellab
   g_autoptr (GError) error = NULL;
 
   if (job->do_staging)
-    job->staging_ok = sw_staging_compute (job->design, SW_STAGING_MAX_STAGES, &job->staging,
-                                          NULL);
+    job->staging_ok = job->looped != NULL
+                        ? sw_staging_compute_looped (job->looped, SW_STAGING_MAX_STAGES,
+                                                     &job->staging, NULL)
+                        : sw_staging_compute (job->design, SW_STAGING_MAX_STAGES, &job->staging,
+                                              NULL);
   o.cancellable = job->carpet_cancel;
   o.progress = job_progress_cb;
   o.progress_data = job;
@@ -152,6 +164,7 @@ enum { READY, N_SIGNALS };
 static guint signals[N_SIGNALS];
 
 static void update_money (SwStagingPage *self);
+static void sync_money_option (SwStagingPage *self);
 
 static void
 set_carpet_status (SwStagingPage *self, const char *text, gboolean error)
@@ -209,6 +222,7 @@ job_done_cb (GObject *source, GAsyncResult *res, gpointer data)
         set_carpet_status (self, self->shown->carpet != NULL ? self->shown->carpet->note : NULL,
                            FALSE);
       update_money (self);
+      sync_money_option (self);
       /* The key of a design with boosters has two more entries, and two
        * sets of lines share the panels: a taller drawing. */
       gtk_widget_set_size_request (self->decision, 300,
@@ -242,13 +256,17 @@ start_job (SwStagingPage *self)
   job->ref = 1;
   g_mutex_init (&job->lock);
   job->design = sw_design_copy (self->design);
+  job->looped = self->looped != NULL ? sw_design_copy (self->looped) : NULL;
   job->cancellable = g_cancellable_new ();
   job->carpet_cancel = g_cancellable_new ();
   job->carpet_options.x = self->axes[0];
   job->carpet_options.y = self->axes[1];
   job->carpet_options.output = self->output;
   job->do_staging = !(self->shown != NULL && self->shown->staging_ok
-                      && sw_design_equal (self->shown->design, self->design));
+                      && sw_design_equal (self->shown->design, self->design)
+                      && (self->shown->looped == NULL) == (self->looped == NULL)
+                      && (self->looped == NULL
+                          || sw_design_equal (self->shown->looped, self->looped)));
   if (!job->do_staging)
     {
       job->staging = self->shown->staging;
@@ -522,6 +540,30 @@ axis_param_cb (GtkDropDown *dd, GParamSpec *pspec, SwStagingPage *self)
 }
 
 static void
+money_toggled_cb (GtkCheckButton *button, SwStagingPage *self)
+{
+  gtk_widget_queue_draw (self->carpet);
+}
+
+/* The money option: offered when the carpet shown has a money grid, its
+ * label naming the currency. */
+static void
+sync_money_option (SwStagingPage *self)
+{
+  const SwCarpet *c = self->shown != NULL ? self->shown->carpet : NULL;
+  gboolean has = c != NULL && c->has_money;
+
+  if (has)
+    {
+      g_autofree char *label
+        = g_strdup_printf (_("Cost in money (%s), not work-years"),
+                           c->currency[0] != '\0' ? c->currency : _("money units"));
+      gtk_check_button_set_label (GTK_CHECK_BUTTON (self->carpet_money), label);
+    }
+  gtk_widget_set_visible (self->carpet_money, has);
+}
+
+static void
 output_cb (GtkDropDown *dd, GParamSpec *pspec, SwStagingPage *self)
 {
   if (self->updating > 0 || self->design == NULL)
@@ -547,11 +589,24 @@ sw_staging_page_set_result (SwStagingPage *self, SwAnalysis *result)
       self->pending = result != NULL ? sw_analysis_ref (result) : NULL;
       return;
     }
-  /* The figures depend on the design only: a later phase of the same
-   * design (Monte Carlo, ascent) changes nothing here. */
+  /* The figures depend on the design only, and for a "simulate" design on
+   * the closed loop's losses: a later phase of the same design changes
+   * nothing here unless it is the one that closed the loop. */
+  if (result != NULL && result->design != NULL && self->design != NULL
+      && sw_design_equal (self->design, result->design)
+      && (self->looped != NULL) == result->trade_losses_simulated)
+    return;
   if (result != NULL && result->design != NULL && self->design != NULL
       && sw_design_equal (self->design, result->design))
-    return;
+    {
+      /* The same design, its loop now closed: the table again, the
+       * fields and the carpet's axes as they are. */
+      g_clear_pointer (&self->looped, sw_design_free);
+      if (result->trade_losses_simulated)
+        self->looped = sw_analysis_dup_trade_design (result);
+      start_job (self);
+      return;
+    }
   if (self->running != NULL)
     {
       g_cancellable_cancel (self->running->cancellable);
@@ -562,6 +617,9 @@ sw_staging_page_set_result (SwStagingPage *self, SwAnalysis *result)
     return;
   g_clear_pointer (&self->design, sw_design_free);
   self->design = sw_design_copy (result->design);
+  g_clear_pointer (&self->looped, sw_design_free);
+  if (result->trade_losses_simulated)
+    self->looped = sw_analysis_dup_trade_design (result);
   /* The fields show the design the figures come from. */
   self->updating++;
   for (guint k = 0; k < SW_N_ECON_NUMBERS; k++)
@@ -571,6 +629,8 @@ sw_staging_page_set_result (SwStagingPage *self, SwAnalysis *result)
       sw_number_field_reset (SW_NUMBER_FIELD (self->fields[k]), v * scale);
     }
   gtk_drop_down_set_selected (GTK_DROP_DOWN (self->mode), result->design->economics.recovery_mode);
+  gtk_drop_down_set_selected (GTK_DROP_DOWN (self->booster_mode),
+                              result->design->economics.booster_recovery_mode);
   gtk_editable_set_text (GTK_EDITABLE (self->currency), result->design->economics.currency);
   gtk_widget_remove_css_class (self->currency, "error");
   gtk_widget_set_visible (self->currency_error, FALSE);
@@ -606,6 +666,13 @@ sw_staging_page_get_mode (SwStagingPage *self)
 {
   g_return_val_if_fail (SW_IS_STAGING_PAGE (self), NULL);
   return self->mode;
+}
+
+GtkWidget *
+sw_staging_page_get_booster_mode (SwStagingPage *self)
+{
+  g_return_val_if_fail (SW_IS_STAGING_PAGE (self), NULL);
+  return self->booster_mode;
 }
 
 /* A field's value into the design through the named edit, one undo step
@@ -645,6 +712,23 @@ mode_cb (GtkDropDown *dd, GParamSpec *pspec, SwStagingPage *self)
       return;
     }
   sw_document_commit (self->document, d, "staging:mode");
+}
+
+static void
+booster_mode_cb (GtkDropDown *dd, GParamSpec *pspec, SwStagingPage *self)
+{
+  SwDesign *d;
+
+  if (self->updating > 0 || self->document == NULL)
+    return;
+  d = sw_document_dup_design (self->document);
+  sw_economics_set_booster_recovery_mode (&d->economics, gtk_drop_down_get_selected (dd));
+  if (sw_design_equal (d, sw_document_get_design (self->document)))
+    {
+      sw_design_free (d);
+      return;
+    }
+  sw_document_commit (self->document, d, "staging:booster-mode");
 }
 
 /* The currency label: a named edit on Enter or when the field loses focus;
@@ -777,6 +861,8 @@ sw_staging_page_get_carpet_control (SwStagingPage *self, SwCarpetControl control
       return self->carpet_button;
     case SW_CARPET_CONTROL_STATUS:
       return self->carpet_status;
+    case SW_CARPET_CONTROL_MONEY:
+      return self->carpet_money;
     case SW_CARPET_CONTROL_CURRENCY:
     default:
       return self->currency;
@@ -821,6 +907,13 @@ sw_staging_page_is_ready (SwStagingPage *self)
 {
   g_return_val_if_fail (SW_IS_STAGING_PAGE (self), FALSE);
   return self->running == NULL && self->shown != NULL;
+}
+
+const SwStaging *
+sw_staging_page_get_staging (SwStagingPage *self)
+{
+  g_return_val_if_fail (SW_IS_STAGING_PAGE (self), NULL);
+  return self->shown != NULL && self->shown->staging_ok ? &self->shown->staging : NULL;
 }
 
 const char *
@@ -1106,10 +1199,15 @@ draw_decision (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointe
   {
     double kx = left + (n_panels % cols) * panel_w + 16.0, ky = (n_panels / cols) * panel_h + 14.0;
     const double dash[] = { 5.0, 3.0 }, mdash[] = { 4.0, 3.0 };
-    g_autofree char *rec = g_strdup_printf (_("first stage recovered, %s"),
-                                            s->reuse_mode == SW_RECOVERY_LAUNCH_SITE
-                                              ? _("returns to the launch site")
-                                              : _("lands downrange"));
+    g_autofree char *words = sw_staging_dup_recovery_words (s);
+    g_autofree char *rec = s->booster_reuse_mode == SW_RECOVERY_NONE
+                             ? g_strdup_printf (_("first stage recovered, %s"),
+                                                s->reuse_mode == SW_RECOVERY_LAUNCH_SITE
+                                                  ? _("returns to the launch site")
+                                                  : _("lands downrange"))
+                             /* Translators: %s says how the first stage and the boosters are
+                              * recovered */
+                             : g_strdup_printf (_("recovered: %s"), words);
     g_autofree char *best = s->best < 0
                               ? g_strdup (_("no stage count closes"))
                               : s->rows[s->best].arrangement == SW_ARRANGEMENT_BOOSTERS
@@ -1130,13 +1228,20 @@ draw_decision (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointe
                              : g_strdup_printf (_("this design (ringed): %u stages"),
                                                 own_row->n_stages);
     /* Translators: %u is the number of strap-on boosters */
-    g_autofree char *boost = g_strdup_printf (g_dngettext (GETTEXT_PACKAGE,
-                                                           "with the %u booster; dotted: core "
-                                                           "recovered",
-                                                           "with the %u boosters; dotted: core "
-                                                           "recovered",
-                                                           s->booster_count),
-                                              s->booster_count);
+    g_autofree char *boost = s->booster_reuse_mode == SW_RECOVERY_NONE
+      ? g_strdup_printf (g_dngettext (GETTEXT_PACKAGE,
+                                      "with the %u booster; dotted: core recovered",
+                                      "with the %u boosters; dotted: core recovered",
+                                      s->booster_count),
+                         s->booster_count)
+      /* Translators: %u is the number of strap-on boosters */
+      : g_strdup_printf (g_dngettext (GETTEXT_PACKAGE,
+                                      "with the %u booster; dotted: recovered as this design "
+                                      "recovers",
+                                      "with the %u boosters; dotted: recovered as this design "
+                                      "recovers",
+                                      s->booster_count),
+                         s->booster_count);
     const char *texts[6] = { s->booster_count > 0 ? _("serial, expendable") : _("expendable"),
                              rec, boost, best, own,
                              s->booster_count > 0 ? _("does not close (grey: serial)")
@@ -1228,15 +1333,14 @@ draw_decision (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointe
 
 /* Contour lines by marching squares, linear interpolation on each edge. */
 static void
-contour (cairo_t *cr, const SwCarpet *c, const SwPlotAxis *xa, const SwPlotAxis *ya,
-         double level)
+contour (cairo_t *cr, const SwCarpet *c, const double *grid, const SwPlotAxis *xa,
+         const SwPlotAxis *ya, double level)
 {
   for (guint j = 0; j + 1 < c->y.n; j++)
     for (guint i = 0; i + 1 < c->x.n; i++)
       {
-        const double v[4] = { c->values[j * c->x.n + i], c->values[j * c->x.n + i + 1],
-                              c->values[(j + 1) * c->x.n + i + 1],
-                              c->values[(j + 1) * c->x.n + i] };
+        const double v[4] = { grid[j * c->x.n + i], grid[j * c->x.n + i + 1],
+                              grid[(j + 1) * c->x.n + i + 1], grid[(j + 1) * c->x.n + i] };
         const double cx[4] = { i, i + 1, i + 1, i }, cy[4] = { j, j, j + 1, j + 1 };
         double px[4], py[4];
         guint n = 0;
@@ -1265,10 +1369,19 @@ contour (cairo_t *cr, const SwCarpet *c, const SwPlotAxis *xa, const SwPlotAxis 
   cairo_stroke (cr);
 }
 
-/* A contour level's text: masses by the one formatter, effort in work-years. */
+/* A contour level's text: masses by the one formatter, effort in
+ * work-years, money (@money) with the carpet's currency. */
 static char *
-level_text (SwCarpetOutput output, double level)
+level_text (const SwCarpet *c, gboolean money, double level)
 {
+  SwCarpetOutput output = c->output;
+
+  if (money)
+    {
+      g_autofree char *n = sw_format_money (level);
+      return g_strdup_printf ("%s %s", n, c->currency[0] != '\0' ? c->currency
+                                                                   : _("money units"));
+    }
   if (output == SW_CARPET_DEVELOPMENT || output == SW_CARPET_COST_PER_FLIGHT)
     {
       g_autofree char *n = sw_format_number (level, 0);
@@ -1294,6 +1407,22 @@ output_words (SwCarpetOutput output)
     }
 }
 
+/* The key of money contours: what they are and that they are no quote. */
+static char *
+money_words (const SwCarpet *c)
+{
+  g_autofree char *wy = sw_format_number (c->work_year_cost, 0);
+  const char *cur = c->currency[0] != '\0' ? c->currency : _("money units");
+
+  if (c->output == SW_CARPET_DEVELOPMENT)
+    /* Translators: %s a currency, %s a cost of a work-year, %s the currency again */
+    return g_strdup_printf (_("lines: development cost in %s (work-years at %s %s each: an "
+                              "estimate, never a quote)"), cur, wy, cur);
+  /* Translators: %s a currency, %s a cost of a work-year, %s the currency again */
+  return g_strdup_printf (_("lines: cost per flight, expendable, in %s (work-years at %s %s "
+                            "each: an estimate, never a quote)"), cur, wy, cur);
+}
+
 /* Text on a patch of the background, so that no line runs through it. */
 static void
 show_text_boxed (cairo_t *cr, PangoLayout *layout, const char *text, double x, double y,
@@ -1315,9 +1444,9 @@ show_text_boxed (cairo_t *cr, PangoLayout *layout, const char *text, double x, d
  * that run across) or the middle row (lines that run up), else a quarter
  * in; never on the design's mark or on a label already placed. */
 static void
-place_level_label (cairo_t *cr, PangoLayout *layout, const SwCarpet *c, const SwPlotAxis *xa,
-                   const SwPlotAxis *ya, double level, const char *label, double mx, double my,
-                   GArray *placed, const GdkRGBA *bg, const GdkRGBA *fg)
+place_level_label (cairo_t *cr, PangoLayout *layout, const SwCarpet *c, const double *grid,
+                   const SwPlotAxis *xa, const SwPlotAxis *ya, double level, const char *label,
+                   double mx, double my, GArray *placed, const GdkRGBA *bg, const GdkRGBA *fg)
 {
   const guint cols[] = { c->x.n / 2, c->x.n / 4, (3 * c->x.n) / 4 };
   const guint rows[] = { c->y.n / 2, c->y.n / 5, (4 * c->y.n) / 5 };
@@ -1337,7 +1466,7 @@ place_level_label (cairo_t *cr, PangoLayout *layout, const SwCarpet *c, const Sw
         {
           gsize i0 = along_column ? (gsize) k * c->x.n + fixed : (gsize) fixed * c->x.n + k;
           gsize i1 = along_column ? i0 + c->x.n : i0 + 1;
-          double a = c->values[i0], bb = c->values[i1], tt, px, py;
+          double a = grid[i0], bb = grid[i1], tt, px, py;
           graphene_rect_t box;
           gboolean clear = TRUE;
 
@@ -1390,6 +1519,8 @@ draw_carpet (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointer 
   int text_h, legend_h = 0;
   g_autoptr (PangoLayout) legend_layout = NULL;
   g_autofree char *xn = NULL, *yn = NULL;
+  gboolean money;
+  const double *grid;
 
   sw_plot_style_fg (w, &fg);
   sw_plot_style_bg (w, &bg);
@@ -1405,14 +1536,18 @@ draw_carpet (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointer 
       return;
     }
   c = self->shown->carpet;
+  money = c->has_money && gtk_widget_get_visible (self->carpet_money)
+          && gtk_check_button_get_active (GTK_CHECK_BUTTON (self->carpet_money));
+  grid = money ? c->money : c->values;
   pango_layout_set_text (layout, "0", -1);
   pango_layout_get_pixel_size (layout, NULL, &text_h);
   /* The key under the axis names, wrapped to the width: its own layout. */
   legend_layout = gtk_widget_create_pango_layout (w, NULL);
   {
+    g_autofree char *words = money ? money_words (c) : g_strdup (output_words (c->output));
     g_autofree char *legend = g_strdup_printf (_("%s; hatched: the vehicle does not close; "
                                                  "✕: this design"),
-                                               output_words (c->output));
+                                               words);
     pango_layout_set_text (legend_layout, legend, -1);
     pango_layout_set_width (legend_layout, (int) MAX (40.0, width - 8.0) * PANGO_SCALE);
     pango_layout_set_wrap (legend_layout, PANGO_WRAP_WORD);
@@ -1477,10 +1612,10 @@ draw_carpet (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointer 
 
   /* Contours at nice levels. */
   for (guint k = 0; k < c->x.n * c->y.n; k++)
-    if (isfinite (c->values[k]))
+    if (isfinite (grid[k]))
       {
-        lo = MIN (lo, c->values[k]);
-        hi = MAX (hi, c->values[k]);
+        lo = MIN (lo, grid[k]);
+        hi = MAX (hi, grid[k]);
       }
   if (isfinite (lo) && hi > lo)
     {
@@ -1489,10 +1624,11 @@ draw_carpet (GtkDrawingArea *area, cairo_t *cr, int width, int height, gpointer 
       cairo_set_line_width (cr, 1.5);
       for (double level = ceil (lo / step) * step; level <= hi; level += step)
         {
-          g_autofree char *label = level_text (c->output, level);
+          g_autofree char *label = level_text (c, money, level);
           set_rgba (cr, &line, 1.0);
-          contour (cr, c, &xa, &ya, level);
-          place_level_label (cr, layout, c, &xa, &ya, level, label, mx, my, placed, &bg, &fg);
+          contour (cr, c, grid, &xa, &ya, level);
+          place_level_label (cr, layout, c, grid, &xa, &ya, level, label, mx, my, placed, &bg,
+                             &fg);
         }
       g_array_unref (placed);
     }
@@ -1580,6 +1716,7 @@ sw_staging_page_dispose (GObject *object)
   g_clear_pointer (&self->shown, job_unref);
   g_clear_pointer (&self->pending, sw_analysis_unref);
   g_clear_pointer (&self->design, sw_design_free);
+  g_clear_pointer (&self->looped, sw_design_free);
   g_clear_pointer (&self->rule_message, g_free);
   g_clear_handle_id (&self->progress_id, g_source_remove);
   g_clear_object (&self->document);
@@ -1708,6 +1845,12 @@ sw_staging_page_init (SwStagingPage *self)
         gtk_grid_attach (GTK_GRID (grid), self->axis_n[a], 5, 2 + 2 * a, 1, 1);
         gtk_grid_attach (GTK_GRID (grid), points, 6, 2 + 2 * a, 1, 1);
       }
+    /* A view option, not a design key: the contours of the same grid in
+     * money; shown when the carpet has it. */
+    self->carpet_money = gtk_check_button_new_with_label (_("Cost in money"));
+    gtk_widget_set_visible (self->carpet_money, FALSE);
+    g_signal_connect (self->carpet_money, "toggled", G_CALLBACK (money_toggled_cb), self);
+    gtk_grid_attach (GTK_GRID (grid), self->carpet_money, 1, 5, 6, 1);
     gtk_box_append (GTK_BOX (self->box), grid);
   }
   self->progress_row = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 6);
@@ -1753,6 +1896,7 @@ sw_staging_page_init (SwStagingPage *self)
       [SW_ECON_CER_FIRST + SW_CER_SYSTEMS_BASE] = N_("Systems factor per stage"),
       [SW_ECON_ENGINE_MASS_FRACTION] = N_("Engines in a stage's dry mass"),
       [SW_ECON_RECOVERY_DELTA_V] = N_("Recovery delta-v"),
+      [SW_ECON_BOOSTER_RECOVERY_DELTA_V] = N_("Boosters' recovery delta-v"),
       [SW_ECON_LANDING_HARDWARE] = N_("Landing hardware"),
       [SW_ECON_REFURBISHMENT] = N_("Refurbishment"),
       [SW_ECON_FLIGHTS_PER_STAGE] = N_("Flights per stage"),
@@ -1777,7 +1921,9 @@ sw_staging_page_init (SwStagingPage *self)
         GtkWidget *label = gtk_label_new (_(labels[k]));
         GtkWidget *field = sw_number_field_new ();
         /* The currency and its message follow the cost of a work-year. */
-        int row = (int) k + (k == SW_ECON_WORK_YEAR_COST ? 1 : 3), col = 0;
+        /* ... and the boosters' mode comes before their delta-v. */
+        int row = (int) k + (k == SW_ECON_WORK_YEAR_COST ? 1 : 3)
+                  + (k >= SW_ECON_BOOSTER_RECOVERY_DELTA_V ? 1 : 0), col = 0;
 
         gtk_label_set_xalign (GTK_LABEL (label), 0.0);
         sw_number_field_set_limit (SW_NUMBER_FIELD (field), id, percent ? 100.0 : 1.0,
@@ -1800,6 +1946,24 @@ sw_staging_page_init (SwStagingPage *self)
     g_signal_connect (self->mode, "notify::selected", G_CALLBACK (mode_cb), self);
     gtk_grid_attach (GTK_GRID (grid), gtk_label_new (_("First stage")), 0, 0, 1, 1);
     gtk_grid_attach (GTK_GRID (grid), self->mode, 1, 0, 1, 1);
+    {
+      /* The strap-on boosters' recovery (economics.recovery.booster_mode). */
+      const char *bmodes[] = { N_("Boosters expended"), N_("Boosters land downrange"),
+                               N_("Boosters return to the launch site"), NULL };
+      const char *bshown[4];
+      GtkWidget *label = gtk_label_new (_("Boosters"));
+
+      for (guint i = 0; i < 3; i++)
+        bshown[i] = _(bmodes[i]);
+      bshown[3] = NULL;
+      gtk_label_set_xalign (GTK_LABEL (label), 0.0);
+      self->booster_mode = gtk_drop_down_new_from_strings (bshown);
+      g_signal_connect (self->booster_mode, "notify::selected", G_CALLBACK (booster_mode_cb),
+                        self);
+      gtk_grid_attach (GTK_GRID (grid), label, 0, SW_ECON_BOOSTER_RECOVERY_DELTA_V + 3, 1, 1);
+      gtk_grid_attach (GTK_GRID (grid), self->booster_mode, 1,
+                       SW_ECON_BOOSTER_RECOVERY_DELTA_V + 3, 1, 1);
+    }
     {
       GtkWidget *label = gtk_label_new (_("Currency"));
       GtkEventController *focus = gtk_event_controller_focus_new ();

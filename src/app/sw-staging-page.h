@@ -32,8 +32,12 @@ void       sw_staging_page_set_document (SwStagingPage *self, SwDocument *docume
 /* Test API: the field of a numeric economics key, the recovery-mode menu. */
 GtkWidget *sw_staging_page_get_field (SwStagingPage *self, SwEconNumber key);
 GtkWidget *sw_staging_page_get_mode (SwStagingPage *self);
+/* The boosters' recovery mode (economics.recovery.booster_mode). */
+GtkWidget *sw_staging_page_get_booster_mode (SwStagingPage *self);
 /* The SwEngineTypesEditor: engine types and developed stages. */
 GtkWidget *sw_staging_page_get_engine_types (SwStagingPage *self);
+/* Test API: the staging figures shown, or NULL before the first. */
+const SwStaging *sw_staging_page_get_staging (SwStagingPage *self);
 /* Test API: TRUE once the worker's figures for the last result are shown. */
 gboolean   sw_staging_page_is_ready (SwStagingPage *self);
 /* The weighting statement shown (for tests). */
@@ -48,6 +52,8 @@ typedef enum {
   SW_CARPET_CONTROL_BUTTON,    /* Cancel while computing, Compute after a cancel */
   SW_CARPET_CONTROL_STATUS,    /* GtkLabel: why the carpet is not drawn */
   SW_CARPET_CONTROL_CURRENCY,  /* GtkEntry of economics.currency */
+  SW_CARPET_CONTROL_MONEY,     /* GtkCheckButton: cost contours in money (a cost output of a
+                                * design with a cost per work-year; hidden otherwise) */
 } SwCarpetControl;
 
 /* Test API: the carpet's controls (@axis 0 across, 1 up), the grid shown

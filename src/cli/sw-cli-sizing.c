@@ -52,6 +52,29 @@ fast_options (SwAnalysisOptions *o)
   o->ascent = FALSE;
 }
 
+/* The design's recovery keys in force ("recovery"): the first stage's and
+ * the boosters' mode and recovery delta-v (the mode's default when the
+ * file gives none; 0 when expended).  The figures are `stages`'. */
+static void
+add_recovery (JsonBuilder *b, const SwDesign *d)
+{
+  const SwEconomics *e = &d->economics;
+
+  json_builder_set_member_name (b, "recovery");
+  json_builder_begin_object (b);
+  json_builder_set_member_name (b, "mode");
+  json_builder_add_string_value (b, sw_recovery_mode_to_string (e->recovery_mode));
+  sw_cli_add_number (b, "recovery_delta_v_m_s", sw_economics_recovery_delta_v (e));
+  json_builder_set_member_name (b, "booster_mode");
+  json_builder_add_string_value (b, sw_recovery_mode_to_string (e->booster_recovery_mode));
+  sw_cli_add_number (b, "booster_recovery_delta_v_m_s", sw_economics_booster_recovery_delta_v (e));
+  sw_cli_add_number (b, "landing_hardware_fraction", e->landing_hardware_fraction);
+  sw_cli_add_number (b, "refurbishment_fraction", e->refurbishment_fraction);
+  json_builder_set_member_name (b, "flights_per_stage");
+  json_builder_add_int_value (b, e->flights_per_stage);
+  json_builder_end_object (b);
+}
+
 /* The "phases" array of @s. */
 static void
 add_phases (JsonBuilder *b, const SwDesign *d, const SwSizing *s)
@@ -324,6 +347,7 @@ sizing_to_json (const SwAnalysis *a)
   add_phases (b, d, s);
   add_vehicle_shape (b, &a->shape);
   add_eps_estimate (b, d, &a->mass_estimate);
+  add_recovery (b, d);
   json_builder_set_member_name (b, "caution");
   json_builder_add_string_value (b, sw_format_cautions ());
   json_builder_end_object (b);

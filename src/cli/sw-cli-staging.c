@@ -7,6 +7,7 @@
 
 #include "sw-cli.h"
 
+#include "sw-analysis.h"
 #include "sw-carpet.h"
 #include "sw-csv-staging.h"
 #include "sw-economics.h"
@@ -76,6 +77,9 @@ economics_node (const SwEconomics *e)
     json_object_set_null_member (root, "currency");
   json_object_set_string_member (json_object_get_object_member (root, "recovery"), "mode",
                                  sw_recovery_mode_to_string (e->recovery_mode));
+  json_object_set_string_member (json_object_get_object_member (root, "recovery"),
+                                 "booster_mode",
+                                 sw_recovery_mode_to_string (e->booster_recovery_mode));
   for (guint i = 0; i < e->n_engine_types; i++)
     {
       JsonObject *t = json_object_new ();
@@ -134,6 +138,13 @@ stages_json (const SwDesign *d, const SwStaging *s)
     e.recovery_mode = s->reuse_mode;
     sw_cli_add_number (b, "recovery_delta_v_m_s", sw_economics_recovery_delta_v (&e));
   }
+  json_builder_set_member_name (b, "design_recovers_boosters");
+  json_builder_add_boolean_value (b, s->booster_reuse_mode != SW_RECOVERY_NONE);
+  json_builder_set_member_name (b, "booster_recovery_mode");
+  json_builder_add_string_value (b, sw_recovery_mode_to_string (s->booster_reuse_mode));
+  sw_cli_add_number (b, "booster_recovery_delta_v_m_s",
+                     s->booster_reuse_mode != SW_RECOVERY_NONE
+                       ? sw_economics_booster_recovery_delta_v (&d->economics) : 0.0);
   sw_cli_add_number (b, "work_year_cost", s->work_year_cost);
   json_builder_set_member_name (b, "currency");
   if (d->economics.currency[0] != '\0')
@@ -194,6 +205,8 @@ stages_json (const SwDesign *d, const SwStaging *s)
       sw_cli_add_number (b, "liftoff_mass_kg", r->liftoff_mass_kg);
       sw_cli_add_number (b, "liftoff_mass_recovered_kg", r->liftoff_mass_reused_kg);
       sw_cli_add_number (b, "recovery_payload_penalty", r->payload_penalty_fraction);
+      sw_cli_add_number (b, "recovery_propellant_kg", r->recovery_propellant_kg);
+      sw_cli_add_number (b, "booster_recovery_propellant_kg", r->booster_recovery_propellant_kg);
       sw_cli_add_number (b, "development_work_years", r->development_work_years);
       sw_cli_add_number (b, "development_recovered_work_years", r->development_reused_work_years);
       sw_cli_add_number (b, "per_flight_work_years", r->cost_per_flight_work_years);
@@ -236,10 +249,24 @@ stages_table (const SwDesign *d, const SwStaging *s)
   e.recovery_mode = s->reuse_mode;
   dvrec = sw_format_speed (sw_economics_recovery_delta_v (&e));
   g_print (_("Design: %s (%u stages)\n"), d->name, s->design_stages);
-  g_print (_("Recovered column: first stage %s, recovery delta-v %s%s\n"),
-           s->reuse_mode == SW_RECOVERY_LAUNCH_SITE ? _("returns to the launch site")
-                                                    : _("lands downrange"),
-           dvrec, s->design_reuses ? "" : _(" (the design itself is expendable)"));
+  if (s->reuse_mode == SW_RECOVERY_NONE)
+    g_print (_("Recovered column: first stage expended\n"));
+  else
+    g_print (_("Recovered column: first stage %s, recovery delta-v %s%s\n"),
+             s->reuse_mode == SW_RECOVERY_LAUNCH_SITE ? _("returns to the launch site")
+                                                      : _("lands downrange"),
+             dvrec, s->design_reuses ? "" : _(" (the design itself is expendable)"));
+  if (s->booster_reuse_mode != SW_RECOVERY_NONE)
+    {
+      g_autofree char *bdv = sw_format_speed (sw_economics_booster_recovery_delta_v (
+                                                &d->economics));
+      /* Translators: %s how the boosters land, %s a speed */
+      g_print (_("Recovered column, rows with boosters: the boosters %s, recovery delta-v %s "
+                 "each\n"),
+               s->booster_reuse_mode == SW_RECOVERY_LAUNCH_SITE
+                 ? _("return to the launch site") : _("land downrange"),
+               bdv);
+    }
   g_print ("%s\n\n", _(EFFORT_NOTE));
   g_print ("%-3s %-2s %12s %12s %8s %11s %11s %10s %10s %9s %12s %7s\n", "", _("N"),
            _("liftoff"), _("recovered"), _("penalty"), _("develop wy"), _("dev rec wy"),
@@ -333,7 +360,22 @@ sw_cli_stages (int argc, char **argv)
     }
   if ((d = sw_cli_load (argv[1])) == NULL)
     return SW_EXIT_USAGE;
-  if (!sw_staging_compute (d, (guint) opt_max_stages, &s, &error))
+  if (d->mission.kind == SW_MISSION_ORBIT && d->mission.loss_model == SW_LOSS_SIMULATE)
+    {
+      /* The closed loop sizes such a design, as in size and the window:
+       * the table takes its losses (its own row is then size's vehicle). */
+      SwAnalysisOptions o;
+      g_autoptr (SwAnalysis) a = NULL;
+
+      sw_analysis_options_init (&o);
+      o.montecarlo = FALSE;
+      o.ascent = TRUE;
+      a = sw_analysis_run (d, &o, NULL);
+      if (a->ok ? !sw_analysis_staging (a, (guint) opt_max_stages, &s, &error)
+                : !sw_staging_compute (d, (guint) opt_max_stages, &s, &error))
+        return sw_cli_input_error (argv[1], error);
+    }
+  else if (!sw_staging_compute (d, (guint) opt_max_stages, &s, &error))
     return sw_cli_input_error (argv[1], error);
   if (opt_json)
     stages_json (d, &s);
@@ -401,6 +443,7 @@ carpet_json (const SwDesign *d, const SwCarpet *c)
   sw_cli_add_number (b, "x", c->design_x);
   sw_cli_add_number (b, "y", c->design_y);
   sw_cli_add_number (b, "value", c->design_value);
+  sw_cli_add_number (b, "money", c->design_money);
   json_builder_end_object (b);
   json_builder_set_member_name (b, "points_not_closing");
   json_builder_add_int_value (b, c->n_infeasible);
@@ -423,6 +466,37 @@ carpet_json (const SwDesign *d, const SwCarpet *c)
       json_builder_end_array (b);
     }
   json_builder_end_array (b);
+  /* A cost output with a cost per work-year: the same grid in money (the
+   * design's currency, or null without one); null otherwise. */
+  sw_cli_add_number (b, "work_year_cost", c->work_year_cost);
+  json_builder_set_member_name (b, "currency");
+  if (c->currency[0] != '\0')
+    json_builder_add_string_value (b, c->currency);
+  else
+    json_builder_add_null_value (b);
+  json_builder_set_member_name (b, "money_rows");
+  if (c->has_money)
+    {
+      json_builder_begin_array (b);
+      for (guint j = 0; j < c->y.n; j++)
+        {
+          json_builder_begin_array (b);
+          for (guint i = 0; i < c->x.n; i++)
+            {
+              double v = c->money[j * c->x.n + i];
+              if (isfinite (v))
+                json_builder_add_double_value (b, v);
+              else
+                json_builder_add_null_value (b);
+            }
+          json_builder_end_array (b);
+        }
+      json_builder_end_array (b);
+      json_builder_set_member_name (b, "money_note");
+      json_builder_add_string_value (b, sw_economics_money_note ());
+    }
+  else
+    json_builder_add_null_value (b);
   if (c->output == SW_CARPET_DEVELOPMENT || c->output == SW_CARPET_COST_PER_FLIGHT)
     {
       json_builder_set_member_name (b, "effort_note");
@@ -465,6 +539,30 @@ carpet_table (const SwDesign *d, const SwCarpet *c)
           g_print (" %s", v);
         }
       g_print ("\n");
+    }
+  if (c->has_money)
+    {
+      g_autofree char *wy = sw_format_number (c->work_year_cost, 0);
+      g_autofree char *dm = sw_format_money (c->design_money);
+      const char *cur = c->currency[0] != '\0' ? c->currency : _("money units");
+
+      /* Translators: %s a cost of a work-year, %s a currency, %s a cost, %s the currency */
+      g_print (_("\nIn money at %s %s per work-year (this design: %s %s):\n"), wy, cur, dm, cur);
+      g_print ("%12s", "");
+      for (guint i = 0; i < c->x.n; i++)
+        g_print (" %16.6g", sw_carpet_axis_value (&c->x, i));
+      g_print ("\n");
+      for (guint j = 0; j < c->y.n; j++)
+        {
+          g_print ("%12.6g", sw_carpet_axis_value (&c->y, j));
+          for (guint i = 0; i < c->x.n; i++)
+            {
+              g_autofree char *v = cell (sw_format_money (c->money[j * c->x.n + i]), 16);
+              g_print (" %s", v);
+            }
+          g_print ("\n");
+        }
+      g_print ("%s\n", sw_economics_money_note ());
     }
   if (c->output == SW_CARPET_DEVELOPMENT || c->output == SW_CARPET_COST_PER_FLIGHT)
     g_print ("\n%s\n", _(EFFORT_NOTE));

@@ -28,7 +28,7 @@ sw_csv_staging_decision (const SwAnalysis *b)
   GString *s;
 
   g_return_val_if_fail (b != NULL && b->design != NULL, NULL);
-  if (!sw_staging_compute (b->design, SW_STAGING_MAX_STAGES, &st, NULL))
+  if (!sw_analysis_staging (b, SW_STAGING_MAX_STAGES, &st, NULL))
     return NULL;
   s = sw_csv_begin (NULL);
   g_string_append_printf (s, "# %s\n", st.weighting);
@@ -117,8 +117,22 @@ sw_csv_carpet_text (const SwCarpet *c)
   gboolean effort = c->output == SW_CARPET_DEVELOPMENT || c->output == SW_CARPET_COST_PER_FLIGHT;
   GString *s = sw_csv_begin (NULL);
 
-  g_string_append_printf (s, "%s,%s,%s_%s,closes\n", xn, yn,
-                          sw_carpet_output_to_string (c->output), effort ? "work_years" : "kg");
+  /* A cost output with a cost per work-year: one more column, the same
+   * cost in money (named by the output: "development_money"). */
+  if (c->has_money)
+    {
+      const char *o = sw_carpet_output_to_string (c->output);
+      char wy[G_ASCII_DTOSTR_BUF_SIZE];
+
+      g_ascii_formatd (wy, sizeof wy, "%.15g", c->work_year_cost);
+      g_string_append_printf (s, "# %s_money = %s_work_years x %s (%s per work-year); %s\n", o,
+                              o, wy, c->currency[0] != '\0' ? c->currency : "money units",
+                              sw_economics_money_note ());
+    }
+  g_string_append_printf (s, "%s,%s,%s_%s,%s%s%scloses\n", xn, yn,
+                          sw_carpet_output_to_string (c->output), effort ? "work_years" : "kg",
+                          c->has_money ? sw_carpet_output_to_string (c->output) : "",
+                          c->has_money ? "_money" : "", c->has_money ? "," : "");
   for (guint j = 0; j < c->y.n; j++)
     for (guint i = 0; i < c->x.n; i++)
       {
@@ -127,6 +141,8 @@ sw_csv_carpet_text (const SwCarpet *c)
         number (s, sw_carpet_axis_value (&c->x, i), FALSE);
         number (s, sw_carpet_axis_value (&c->y, j), FALSE);
         number (s, v, FALSE);
+        if (c->has_money)
+          number (s, c->money[j * c->x.n + i], FALSE);
         g_string_append (s, isfinite (v) ? "true\n" : "false\n");
       }
   return g_string_free (s, FALSE);

@@ -30,7 +30,7 @@ has_boosters (const SwDesign *design)
 }
 
 /* A design whose losses come from the simulated ascent: one more line says
- * that the rows use its first-guess allowance. */
+ * which losses the rows use (the first guess or the closed loop's). */
 static gboolean
 has_losses_note (const SwDesign *design)
 {
@@ -74,9 +74,10 @@ sw_sheet_staging_height (const SwDesign *design)
 }
 
 void
-sw_sheet_draw_staging (cairo_t *cr, const SwDesign *design, double x, double y, double w,
+sw_sheet_draw_staging (cairo_t *cr, const SwAnalysis *analysis, double x, double y, double w,
                        double h)
 {
+  const SwDesign *design = analysis != NULL ? analysis->design : NULL;
   const char *titles[] = { N_("stages"), N_("liftoff"), N_("recovered"), N_("development"),
                            N_("per flight"), N_("per flight, rec."), N_("success"),
                            N_("payload, this mass") };
@@ -96,7 +97,7 @@ sw_sheet_draw_staging (cairo_t *cr, const SwDesign *design, double x, double y, 
                                : _("Staging decision (serial stages; effort in work-years: an "
                                    "estimate, never a quote)"),
                          x, y, w);
-  if (design == NULL || !sw_staging_compute (design, SW_STAGING_MAX_STAGES, &s, NULL))
+  if (design == NULL || !sw_analysis_staging (analysis, SW_STAGING_MAX_STAGES, &s, NULL))
     {
       sw_sheet_note_in_box (cr, _("Not computed: the mission has no delta-v."), x, y + hy, w,
                             h - hy);
@@ -158,7 +159,14 @@ sw_sheet_draw_staging (cairo_t *cr, const SwDesign *design, double x, double y, 
         }
       ty += row_h;
     }
-  if (s.booster_count > 0)
+  if (s.booster_count > 0 && s.booster_reuse_mode != SW_RECOVERY_NONE)
+    {
+      g_autofree char *words = sw_staging_dup_recovery_words (&s);
+      /* Translators: %s says how the first stage and the boosters are recovered */
+      statement = g_strdup_printf (_("▸ this design; shaded: the best row; recovered: %s."),
+                                   words);
+    }
+  else if (s.booster_count > 0)
     statement = g_strdup_printf (_("▸ this design; shaded: the best row; recovered: the first "
                                    "stage %s."),
                                  s.reuse_mode == SW_RECOVERY_LAUNCH_SITE
@@ -191,11 +199,16 @@ sw_sheet_draw_staging (cairo_t *cr, const SwDesign *design, double x, double y, 
       {
         /* Translators: %u is the number of boosters; the short form of the
          * staging table's note on a design with strap-on boosters */
-        g_autofree char *with = g_strdup_printf (_("“+ boosters”: the same stages with this "
-                                                   "design's %u boosters beside the core; "
-                                                   "success counts the boosters as perfect; "
-                                                   "recovered: the core, boosters expended."),
-                                                 s.booster_count);
+        g_autofree char *with = s.booster_reuse_mode == SW_RECOVERY_NONE
+          ? g_strdup_printf (_("“+ boosters”: the same stages with this design's %u boosters "
+                               "beside the core; success counts the boosters as perfect; "
+                               "recovered: the core, boosters expended."),
+                             s.booster_count)
+          /* Translators: %u is the number of boosters */
+          : g_strdup_printf (_("“+ boosters”: the same stages with this design's %u boosters "
+                               "beside the core; success counts the boosters as perfect; "
+                               "recovered: as this design recovers them."),
+                             s.booster_count);
         sw_sheet_text_at (cr, with, x, money_y, &note);
         money_y += note_h;
         g_autofree char *thrust = NULL;

@@ -4,14 +4,17 @@
 
 #include <cairo.h>
 
+#include "sw-analysis.h"
 #include "sw-design.h"
 
 G_BEGIN_DECLS
 
 /* The panel's height in points. */
 double sw_sheet_staging_height (const SwDesign *design);
-/* Computes the staging decision of @design and draws it in the box. */
-void   sw_sheet_draw_staging (cairo_t *cr, const SwDesign *design, double x, double y, double w,
-                              double h);
+/* Computes the staging decision of the analysed design (sw_analysis_staging:
+ * with the closed loop's losses once the analysis has them) and draws it in
+ * the box. */
+void   sw_sheet_draw_staging (cairo_t *cr, const SwAnalysis *analysis, double x, double y,
+                              double w, double h);
 
 G_END_DECLS

@@ -652,7 +652,7 @@ sw_sheet_draw_page (cairo_t *cr, const SwAnalysis *a, double width, double heigh
 
   draw_stage_table (&p, a, y);
   y += table_h + gap;
-  sw_sheet_draw_staging (cr, a->design, p.x, y, p.w, sw_sheet_staging_height (a->design));
+  sw_sheet_draw_staging (cr, a, p.x, y, p.w, sw_sheet_staging_height (a->design));
   y += sw_sheet_staging_height (a->design) + gap;
 
   /* The two curves side by side: mass and risk against stage count. */

@@ -778,3 +778,37 @@ sw_analysis_run (const SwDesign *design, const SwAnalysisOptions *options,
     }
   return g_steal_pointer (&r);
 }
+
+/* ---- the design of the trade studies ------------------------------------ */
+
+SwDesign *
+sw_analysis_dup_trade_design (const SwAnalysis *analysis)
+{
+  SwDesign *d;
+
+  g_return_val_if_fail (analysis != NULL && analysis->design != NULL, NULL);
+
+  d = sw_design_copy (analysis->design);
+  if (!analysis->trade_losses_simulated)
+    return d;
+  /* As sw_analysis_add_ascent runs the trades again: the loop's losses,
+   * and its fairing point unless the vehicle exists (all loads fixed). */
+  d->mission.losses_m_s = analysis->trade_losses_m_s;
+  d->mission.has_losses = TRUE;
+  if (analysis->ascent != NULL && analysis->ascent->closed_loop && !analysis->all_fixed)
+    sw_ascent_apply_loop (d, analysis->ascent);
+  return d;
+}
+
+gboolean
+sw_analysis_staging (const SwAnalysis *analysis, guint max_stages, SwStaging *out,
+                     GError **error)
+{
+  g_autoptr (SwDesign) d = NULL;
+
+  g_return_val_if_fail (analysis != NULL && analysis->design != NULL && out != NULL, FALSE);
+
+  d = sw_analysis_dup_trade_design (analysis);
+  return analysis->trade_losses_simulated ? sw_staging_compute_looped (d, max_stages, out, error)
+                                          : sw_staging_compute (d, max_stages, out, error);
+}

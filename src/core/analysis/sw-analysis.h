@@ -34,6 +34,7 @@
 #include "sw-reliability.h"
 #include "sw-sensitivity.h"
 #include "sw-sizing.h"
+#include "sw-staging.h"
 #include "sw-vehicle-shape.h"
 
 G_BEGIN_DECLS
@@ -204,6 +205,16 @@ SwAnalysis *sw_analysis_run (const SwDesign *design, const SwAnalysisOptions *op
 /* The fast phase with the default options (for tests and previews). */
 SwAnalysis *sw_analysis_compute (const SwDesign *design, guint64 serial,
                                  GCancellable *cancellable);
+
+/* A copy of the analysed design as the trade studies use it: with the
+ * closed loop's losses (and its fairing jettison point, sw_ascent_apply_loop)
+ * once trade_losses_simulated, else the design as it is. */
+SwDesign   *sw_analysis_dup_trade_design (const SwAnalysis *analysis);
+/* The staging decision (sw-staging.h) of the analysed design, with the
+ * closed loop's losses once the analysis has them (trade_losses_simulated),
+ * so that this design's row is the sizing in the totals. */
+gboolean    sw_analysis_staging (const SwAnalysis *analysis, guint max_stages, SwStaging *out,
+                                 GError **error);
 
 /* A new analysis equal to @analysis (the heap parts shared). */
 SwAnalysis *sw_analysis_copy (const SwAnalysis *analysis);

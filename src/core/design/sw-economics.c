@@ -20,7 +20,7 @@ static const char *const economics_keys[] = {
 static const char *const engine_keys[] = { "name", "dry_mass_kg", "on_stages", "developed", NULL };
 static const char *const recovery_keys[] = {
   "mode", "recovery_delta_v_m_s", "landing_hardware_fraction", "refurbishment_fraction",
-  "flights_per_stage", NULL
+  "flights_per_stage", "booster_mode", "booster_recovery_delta_v_m_s", NULL
 };
 static const char *const weight_keys[] = {
   "liftoff_mass", "development", "cost_per_flight", "failure", NULL
@@ -92,6 +92,20 @@ sw_economics_recovery_delta_v (const SwEconomics *econ)
     default:
       return 0.0;
     }
+}
+
+double
+sw_economics_booster_recovery_delta_v (const SwEconomics *econ)
+{
+  SwEconomics as_core;
+
+  g_return_val_if_fail (econ != NULL, NAN);
+  /* The first stage's defaults per mode (from memory): the same rule. */
+  memset (&as_core, 0, sizeof as_core);
+  as_core.recovery_mode = econ->booster_recovery_mode;
+  as_core.has_recovery_delta_v = econ->has_booster_recovery_delta_v;
+  as_core.recovery_delta_v_m_s = econ->booster_recovery_delta_v_m_s;
+  return sw_economics_recovery_delta_v (&as_core);
 }
 
 int
@@ -356,6 +370,23 @@ load_recovery (JsonObject *obj, const char *file, const char *prefix, SwEconomic
                              mp, mode);
       return FALSE;
     }
+  mode = NULL;
+  if (!sw_optional_read_string (ro, "booster_mode", file, path, &mode, error))
+    return FALSE;
+  if (mode != NULL && !sw_recovery_mode_from_string (mode, &econ->booster_recovery_mode))
+    {
+      g_autofree char *mp = sw_optional_path (path, "booster_mode");
+      sw_optional_set_error (error, SW_ERROR_VALUE, file,
+                             _("%s: \"%s\" is not a recovery mode; use \"expendable\", "
+                               "\"downrange\" or \"launch_site\""),
+                             mp, mode);
+      return FALSE;
+    }
+  if (!sw_optional_read_number (ro, "booster_recovery_delta_v_m_s", file, path,
+                                SW_LIMIT_BOOSTER_RECOVERY_DELTA_V, FALSE,
+                                &econ->booster_recovery_delta_v_m_s,
+                                &econ->has_booster_recovery_delta_v, error))
+    return FALSE;
   if (!sw_optional_read_number (ro, "recovery_delta_v_m_s", file, path, SW_LIMIT_RECOVERY_DELTA_V,
                                 FALSE, &econ->recovery_delta_v_m_s, &econ->has_recovery_delta_v,
                                 error)
@@ -552,6 +583,15 @@ sw_economics_save_design (JsonBuilder *b, const SwEconomics *econ)
   sw_optional_add_number (b, "refurbishment_fraction", econ->refurbishment_fraction);
   json_builder_set_member_name (b, "flights_per_stage");
   json_builder_add_int_value (b, econ->flights_per_stage);
+  /* Left out for expendable boosters: such a file is as before. */
+  if (econ->booster_recovery_mode != SW_RECOVERY_NONE)
+    {
+      json_builder_set_member_name (b, "booster_mode");
+      json_builder_add_string_value (b, sw_recovery_mode_to_string (econ->booster_recovery_mode));
+    }
+  if (econ->has_booster_recovery_delta_v)
+    sw_optional_add_number (b, "booster_recovery_delta_v_m_s",
+                            econ->booster_recovery_delta_v_m_s);
   json_builder_end_object (b);
   json_builder_set_member_name (b, "decision_weights");
   json_builder_begin_object (b);
@@ -648,6 +688,9 @@ sw_economics_validate (const SwEconomics *econ, guint n_stages, const char *file
   if ((econ->has_recovery_delta_v
        && !sw_optional_check (SW_LIMIT_RECOVERY_DELTA_V, econ->recovery_delta_v_m_s, file, rpath,
                               error))
+      || (econ->has_booster_recovery_delta_v
+          && !sw_optional_check (SW_LIMIT_BOOSTER_RECOVERY_DELTA_V,
+                                 econ->booster_recovery_delta_v_m_s, file, rpath, error))
       || !sw_optional_check (SW_LIMIT_LANDING_HARDWARE, econ->landing_hardware_fraction, file,
                              rpath, error)
       || !sw_optional_check (SW_LIMIT_REFURBISHMENT, econ->refurbishment_fraction, file, rpath,
@@ -696,6 +739,8 @@ static const struct {
     FALSE },
   [SW_ECON_RECOVERY_DELTA_V] = { "recovery.recovery_delta_v_m_s", SW_LIMIT_RECOVERY_DELTA_V,
     FALSE },
+  [SW_ECON_BOOSTER_RECOVERY_DELTA_V] = { "recovery.booster_recovery_delta_v_m_s",
+    SW_LIMIT_BOOSTER_RECOVERY_DELTA_V, FALSE },
   [SW_ECON_LANDING_HARDWARE] = { "recovery.landing_hardware_fraction", SW_LIMIT_LANDING_HARDWARE,
     FALSE },
   [SW_ECON_REFURBISHMENT] = { "recovery.refurbishment_fraction", SW_LIMIT_REFURBISHMENT, FALSE },
@@ -744,6 +789,8 @@ number_slot (SwEconomics *e, SwEconNumber key)
       return &e->engine_mass_fraction;
     case SW_ECON_RECOVERY_DELTA_V:
       return &e->recovery_delta_v_m_s;
+    case SW_ECON_BOOSTER_RECOVERY_DELTA_V:
+      return &e->booster_recovery_delta_v_m_s;
     case SW_ECON_LANDING_HARDWARE:
       return &e->landing_hardware_fraction;
     case SW_ECON_REFURBISHMENT:
@@ -777,6 +824,8 @@ sw_economics_get_number (const SwEconomics *econ, SwEconNumber key)
       return econ->flights_per_stage;
     case SW_ECON_RECOVERY_DELTA_V:
       return sw_economics_recovery_delta_v (econ);
+    case SW_ECON_BOOSTER_RECOVERY_DELTA_V:
+      return sw_economics_booster_recovery_delta_v (econ);
     default:
       return *number_slot ((SwEconomics *) econ, key);
     }
@@ -806,6 +855,8 @@ sw_economics_set_number (SwEconomics *econ, SwEconNumber key, double value)
         econ->has_work_year_cost = TRUE;
       else if (key == SW_ECON_RECOVERY_DELTA_V)
         econ->has_recovery_delta_v = TRUE;
+      else if (key == SW_ECON_BOOSTER_RECOVERY_DELTA_V)
+        econ->has_booster_recovery_delta_v = TRUE;
       else if (key >= SW_ECON_CER_FIRST && key < SW_ECON_CER_FIRST + SW_N_CER)
         econ->coefficients_set |= G_GUINT64_CONSTANT (1) << (key - SW_ECON_CER_FIRST);
       break;
@@ -819,4 +870,12 @@ sw_economics_set_recovery_mode (SwEconomics *econ, SwRecoveryMode mode)
   g_return_if_fail (econ != NULL && mode <= SW_RECOVERY_LAUNCH_SITE);
   econ->present = TRUE;
   econ->recovery_mode = mode;
+}
+
+void
+sw_economics_set_booster_recovery_mode (SwEconomics *econ, SwRecoveryMode mode)
+{
+  g_return_if_fail (econ != NULL && mode <= SW_RECOVERY_LAUNCH_SITE);
+  econ->present = TRUE;
+  econ->booster_recovery_mode = mode;
 }

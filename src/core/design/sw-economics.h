@@ -14,10 +14,19 @@
  *     "engine_mass_fraction": 0.25,
  *     "recovery": { "mode": "downrange", "recovery_delta_v_m_s": 950,
  *                   "landing_hardware_fraction": 0.1,
- *                   "refurbishment_fraction": 0.1, "flights_per_stage": 10 },
+ *                   "refurbishment_fraction": 0.1, "flights_per_stage": 10,
+ *                   "booster_mode": "downrange",
+ *                   "booster_recovery_delta_v_m_s": 950 },
  *     "decision_weights": { "liftoff_mass": 1, "development": 1,
  *                           "cost_per_flight": 1, "failure": 1 }
  *   }
+ *
+ * "booster_mode" recovers the strap-on boosters ("expendable", the default,
+ * "downrange" or "launch_site"), independently of the first stage's "mode";
+ * "booster_recovery_delta_v_m_s" is their recovery delta-v, left out the
+ * same defaults per mode as the first stage's (from memory).  The boosters
+ * share the landing hardware fraction, the refurbishment fraction and the
+ * flights per stage with the first stage.
  *
  * Stage indices are 0-based, as in the error paths (stages[0] lifts off).
  * Every key is optional; left out, the defaults below apply.  The cost model
@@ -89,6 +98,9 @@ typedef struct {
   double   landing_hardware_fraction;
   double   refurbishment_fraction;
   guint    flights_per_stage;
+  SwRecoveryMode booster_recovery_mode;   /* the strap-on boosters' */
+  gboolean has_booster_recovery_delta_v;
+  double   booster_recovery_delta_v_m_s;  /* valid when has_booster_recovery_delta_v */
   double   weight_liftoff_mass;
   double   weight_development;
   double   weight_cost_per_flight;
@@ -114,6 +126,9 @@ const SwCerInfo *sw_cer_info (SwCerId id);
 void     sw_economics_init (SwEconomics *econ);
 /* The recovery delta-v in force: the given one, or the mode's default. */
 double   sw_economics_recovery_delta_v (const SwEconomics *econ);
+/* The same for the boosters (booster_mode, booster_recovery_delta_v_m_s);
+ * 0 when they are expendable and no delta-v is given. */
+double   sw_economics_booster_recovery_delta_v (const SwEconomics *econ);
 /* The engine type stage @stage uses, or -1. */
 int      sw_economics_engine_type_of_stage (const SwEconomics *econ, guint stage);
 
@@ -128,6 +143,7 @@ typedef enum {
   SW_ECON_CER_FIRST,                  /* + SwCerId, SW_N_CER of them */
   SW_ECON_ENGINE_MASS_FRACTION = SW_ECON_CER_FIRST + SW_N_CER,
   SW_ECON_RECOVERY_DELTA_V,
+  SW_ECON_BOOSTER_RECOVERY_DELTA_V,
   SW_ECON_LANDING_HARDWARE,
   SW_ECON_REFURBISHMENT,
   SW_ECON_FLIGHTS_PER_STAGE,
@@ -158,6 +174,8 @@ const char *sw_economics_currency_label (const SwEconomics *econ);
 const char *sw_economics_money_note (void);
 /* The named edit of the recovery mode. */
 void     sw_economics_set_recovery_mode (SwEconomics *econ, SwRecoveryMode mode);
+/* The named edit of the boosters' recovery mode. */
+void     sw_economics_set_booster_recovery_mode (SwEconomics *econ, SwRecoveryMode mode);
 
 gboolean sw_economics_load_design (JsonObject *root, const char *file, const char *prefix,
                                    SwEconomics *econ, GPtrArray *warnings, GError **error);

@@ -995,6 +995,19 @@ sw_carpet_compute (const SwDesign *design, const SwCarpetOptions *options, GErro
       if (options->progress != NULL)
         options->progress ((double) (j + 1) / c->y.n, options->progress_data);
     }
+  /* The cost outputs in money, at the design's cost of a work-year. */
+  c->work_year_cost = c->design_money = NAN;
+  if ((c->output == SW_CARPET_DEVELOPMENT || c->output == SW_CARPET_COST_PER_FLIGHT)
+      && design->economics.has_work_year_cost)
+    {
+      c->has_money = TRUE;
+      c->work_year_cost = design->economics.work_year_cost;
+      g_strlcpy (c->currency, design->economics.currency, sizeof c->currency);
+      c->money = g_new (double, (gsize) c->x.n * c->y.n);
+      for (gsize k = 0; k < (gsize) c->x.n * c->y.n; k++)
+        c->money[k] = c->feasible[k] ? c->values[k] * c->work_year_cost : NAN;
+      c->design_money = c->design_value * c->work_year_cost;
+    }
   return g_steal_pointer (&c);
 }
 
@@ -1005,5 +1018,6 @@ sw_carpet_free (SwCarpet *carpet)
     return;
   g_free (carpet->values);
   g_free (carpet->feasible);
+  g_free (carpet->money);
   g_free (carpet);
 }

@@ -15,7 +15,8 @@
  * parallel vehicle, sw-booster-sizing.h).  At every
  * point the vehicle is sized with the design's split and one output taken:
  * liftoff mass, the payload of a vehicle of the design's own liftoff mass,
- * development effort or cost per flight (work-years, expendable).  A point
+ * development effort or cost per flight (work-years, expendable; in money
+ * too when the design gives a cost per work-year).  A point
  * whose vehicle does not close is infeasible (value NAN, flag cleared).
  * The design's fixed propellant loads (propellant_kg) are honoured at every
  * point; the payload output then solves for the mass by the secant method.
@@ -25,6 +26,7 @@
 #include <gio/gio.h>
 
 #include "sw-design.h"
+#include "sw-economics.h"
 #include "sw-limits.h"
 #include "sw-types.h"
 
@@ -89,6 +91,16 @@ typedef struct {
   double         design_y;
   double         design_value;        /* NAN when the design does not close */
   char           note[512];           /* what the grid leaves out, in plain words; "" none */
+  /* A cost output (development, cost per flight) of a design whose
+   * economics give a cost per work-year: the same grid in money, each
+   * point's work-years times work_year_cost (an estimate, never a quote;
+   * sw_economics_money_note), in the design's currency.  has_money FALSE:
+   * money NULL, work_year_cost and design_money NAN, currency "". */
+  gboolean       has_money;
+  double         work_year_cost;
+  char           currency[SW_ECONOMICS_CURRENCY_BYTES]; /* the design's label, "" none */
+  double        *money;               /* as values; NAN where the vehicle does not close */
+  double         design_money;
 } SwCarpet;
 
 /* "stages[1].isp_vac_s" and the like into @kind and @stage; an error names

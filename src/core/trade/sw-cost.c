@@ -177,7 +177,12 @@ sw_cost_compute (const SwDesign *design, const SwCostVehicle *vehicle, SwCost *o
       en->developed = FALSE;
       en->used = TRUE;
       en->per_vehicle = out->booster_count;
-      engine_units[out->booster_engine] = out->booster_count * q;
+      /* Recovered: each booster flies flights_per_stage times. */
+      out->booster_units = out->booster_count * q;
+      if (vehicle->recovered_boosters)
+        out->booster_units = (out->booster_count * q + e->flights_per_stage - 1)
+                             / MAX (e->flights_per_stage, 1);
+      engine_units[out->booster_engine] = out->booster_units;
       out->booster_mass_kg = MAX (dry - en->dry_mass_kg, 0.0);
       out->booster_development_work_years
         = sw_cost_development (c[SW_CER_STAGE_DEV_FACTOR], c[SW_CER_STAGE_DEV_EXPONENT],
@@ -221,7 +226,7 @@ sw_cost_compute (const SwDesign *design, const SwCostVehicle *vehicle, SwCost *o
       out->first_vehicle_work_years += out->booster_count * out->booster_first_unit_work_years;
       out->production_work_years += out->booster_first_unit_work_years
                                     * sw_cost_learning_total (e->learning_rate,
-                                                              out->booster_count * q);
+                                                              out->booster_units);
     }
   for (guint i = 0; i < out->n_engines; i++)
     {
@@ -237,6 +242,15 @@ sw_cost_compute (const SwDesign *design, const SwCostVehicle *vehicle, SwCost *o
       double first = out->stage_first_unit_work_years[0]
                      + MAX (vehicle->engine_count[0], 1) * en->first_unit_work_years;
       refurbish = (double) (q - stage_units[0]) * e->refurbishment_fraction * first;
+    }
+  if (vehicle->recovered_boosters && out->booster_count > 0)
+    {
+      /* Every booster flight that does not use a new booster readies a
+       * used one (the element and its engine). */
+      const SwCostEngine *en = &out->engines[out->booster_engine];
+      double first = out->booster_first_unit_work_years + en->first_unit_work_years;
+      refurbish += (double) (out->booster_count * q - out->booster_units)
+                   * e->refurbishment_fraction * first;
     }
   out->production_work_years += refurbish;
   out->cost_per_flight_work_years = out->production_work_years / q;

@@ -29,7 +29,13 @@
  * elements, strap-ons included; from memory).  The published model has
  * relationships of its own for solid motors (from memory); they are not
  * used: a solid booster is costed as a liquid stage with an engine.
- * Boosters are never recovered here (recovery is of the first stage). */
+ * Recovered boosters (recovered_boosters, the economics' "booster_mode"):
+ * each booster flies flights_per_stage times, so the run builds
+ * ceil(count x run / flights) boosters and booster engines in place of
+ * count x run (the fleet shared among the vehicles), and every booster
+ * flight that does not use a new booster readies a used one at
+ * refurbishment_fraction of a booster's first-unit cost (element and
+ * engine), as for a recovered first stage. */
 #pragma once
 
 #include "sw-design.h"
@@ -49,7 +55,9 @@ typedef struct {
   guint  engine_count[SW_MAX_STAGES];
   gboolean recovered_first_stage;       /* stage 0 flies flights_per_stage times */
   guint  booster_count;                 /* strap-on boosters; 0: none */
-  double booster_dry_mass_kg;           /* one booster: structure and its engine */
+  double booster_dry_mass_kg;           /* one booster: structure and its engine
+                                         * (and landing gear when recovered) */
+  gboolean recovered_boosters;          /* each booster flies flights_per_stage times */
 } SwCostVehicle;
 
 typedef struct {
@@ -75,6 +83,7 @@ typedef struct {
   double booster_mass_kg;                            /* one booster less its engine */
   double booster_development_work_years;             /* a M^x, before f0 */
   double booster_first_unit_work_years;              /* b M^y, one booster */
+  guint  booster_units;                              /* boosters built over the run */
   int    booster_engine;                             /* index into engines; -1 none */
   double development_work_years;                     /* f0 * sum */
   double first_vehicle_work_years;                   /* every element's first unit */

@@ -13,7 +13,14 @@
  * payload penalty is stated two ways: the same liftoff mass re-optimised
  * (sizing is linear in the payload, so payload scales with 1 / liftoff mass),
  * and the expendable vehicle's own tanks flown with recovery (the recovery
- * propellant taken from the first stage's load). */
+ * propellant taken from the first stage's load).
+ *
+ * Strap-on boosters (sw_reuse_compute_parallel) are recovered when the
+ * design's economics say so ("booster_mode", SwEconomics), by the same
+ * formula on each booster's own dry mass and exhaust velocity, with their
+ * own recovery delta-v and the first stage's landing hardware fraction:
+ * the boosters' structural coefficient rises as the stage's does, and the
+ * parallel vehicle is sized again (booster loads and split re-optimised). */
 #pragma once
 
 #include "sw-booster-sizing.h"
@@ -39,6 +46,18 @@ typedef struct {
   double payload_same_liftoff_kg;      /* reusable vehicle at the expendable liftoff mass */
   double payload_penalty_fraction;     /* 1 - that / payload */
   double payload_same_tanks_kg;        /* the expendable vehicle flown with recovery */
+  /* The strap-on boosters, per booster (sw_reuse_compute_parallel with
+   * boosters; expended, booster_mode NONE, no recovery propellant or
+   * hardware; without boosters NONE and the masses NAN). */
+  SwRecoveryMode booster_mode;
+  double booster_delta_v_m_s;
+  double booster_exhaust_velocity_m_s;
+  double booster_propellant_ratio;
+  double booster_eps_expendable;
+  double booster_eps_effective;
+  double booster_dry_kg;               /* reusable: structure and landing hardware */
+  double booster_landing_hardware_kg;
+  double booster_recovery_propellant_kg;
 } SwReuse;
 
 /* m_rec / m_dry = exp(dv / c) - 1. */
@@ -56,9 +75,10 @@ gboolean sw_reuse_compute (const SwStageSet *set, double payload_kg, double delt
                            SwReuse *out);
 
 /* The same for a vehicle with strap-on boosters (sw_size_parallel): the
- * core (stage 0) is recovered, the boosters are expended.  The payload at
- * the expendable liftoff mass is the root of the sizing (Brent), not the
- * linear ratio; payload_same_tanks_kg is not computed (NAN). */
+ * core (stage 0) is recovered with @mode, the boosters with the economics'
+ * booster_recovery_mode (expended when it is SW_RECOVERY_NONE).  The
+ * payload at the expendable liftoff mass is the root of the sizing (Brent),
+ * not the linear ratio; payload_same_tanks_kg is not computed (NAN). */
 gboolean sw_reuse_compute_parallel (const SwParallelVehicle *v, double payload_kg,
                                     double delta_v_m_s, SwSplitMode split,
                                     const SwEconomics *econ, SwRecoveryMode mode,

@@ -58,6 +58,25 @@ append_weight (GString *text, double weight, const char *what)
   g_string_append_printf (text, "%s %g", what, weight);
 }
 
+char *
+sw_staging_dup_recovery_words (const SwStaging *staging)
+{
+  const char *core, *boosters;
+
+  g_return_val_if_fail (staging != NULL, NULL);
+  core = staging->reuse_mode == SW_RECOVERY_LAUNCH_SITE ? _("first stage returns to the launch site")
+         : staging->reuse_mode == SW_RECOVERY_DOWNRANGE ? _("first stage lands downrange")
+         : _("first stage expended");
+  if (staging->booster_count == 0)
+    return g_strdup (core);
+  boosters = staging->booster_reuse_mode == SW_RECOVERY_LAUNCH_SITE
+               ? _("boosters return to the launch site")
+             : staging->booster_reuse_mode == SW_RECOVERY_DOWNRANGE ? _("boosters land downrange")
+             : _("boosters expended");
+  /* Translators: how the first stage and the boosters are recovered */
+  return g_strdup_printf (_("%s, %s"), core, boosters);
+}
+
 const char *
 sw_arrangement_to_string (SwArrangement arrangement)
 {
@@ -97,11 +116,21 @@ fill_row (SwStagingRow *row, const SwDesign *design, const SwReuse *reuse)
 
       row->liftoff_mass_reused_kg = reuse->reusable.liftoff_mass_kg;
       row->payload_penalty_fraction = reuse->payload_penalty_fraction;
+      if (reuse->mode != SW_RECOVERY_NONE)
+        row->recovery_propellant_kg = reuse->recovery_propellant_kg;
+      if (reuse->booster_mode != SW_RECOVERY_NONE)
+        row->booster_recovery_propellant_kg = reuse->booster_recovery_propellant_kg;
       sw_cost_vehicle_from_sizing (&vehicle, &reuse->reusable, design);
       /* The cost model takes the landed dry mass, not the recovery
-       * propellant the sizing carries as inert mass. */
+       * propellant the sizing carries as inert mass (first stage and
+       * boosters alike). */
       vehicle.dry_mass_kg[0] = reuse->first_stage_dry_kg;
-      vehicle.recovered_first_stage = TRUE;
+      vehicle.recovered_first_stage = reuse->mode != SW_RECOVERY_NONE;
+      if (reuse->booster_mode != SW_RECOVERY_NONE && vehicle.booster_count > 0)
+        {
+          vehicle.booster_dry_mass_kg = reuse->booster_dry_kg;
+          vehicle.recovered_boosters = TRUE;
+        }
       sw_cost_compute (design, &vehicle, &cost);
       row->development_reused_work_years = cost.development_work_years;
       row->cost_per_flight_reused_work_years = cost.cost_per_flight_work_years;
@@ -115,6 +144,7 @@ init_row (SwStagingRow *row, guint n, SwArrangement arrangement, const SwReliabi
   row->arrangement = arrangement;
   row->liftoff_mass_kg = row->liftoff_mass_reused_kg = NAN;
   row->payload_penalty_fraction = NAN;
+  row->recovery_propellant_kg = row->booster_recovery_propellant_kg = NAN;
   row->development_work_years = row->development_reused_work_years = NAN;
   row->cost_per_flight_work_years = row->cost_per_flight_reused_work_years = NAN;
   /* With boosters: the boosters counted as perfect (no reliability keys). */
@@ -140,14 +170,40 @@ boosters_note (SwStaging *out, const SwDesign *design)
                                         "them.",
                                         design->boosters.count),
                            design->boosters.count, design->n_stages);
-  rest = _("Mission success counts the boosters as perfect (they have no reliability keys); "
-           "the recovered columns of the booster rows recover the core and expend the "
-           "boosters.");
+  if (out->booster_reuse_mode == SW_RECOVERY_NONE)
+    rest = _("Mission success counts the boosters as perfect (they have no reliability keys); "
+             "the recovered columns of the booster rows recover the core and expend the "
+             "boosters.");
+  else if (out->reuse_mode == SW_RECOVERY_NONE)
+    rest = _("Mission success counts the boosters as perfect (they have no reliability keys); "
+             "the recovered columns of the booster rows recover the boosters as this design "
+             "does and expend the core.");
+  else
+    rest = _("Mission success counts the boosters as perfect (they have no reliability keys); "
+             "the recovered columns of the booster rows recover the core and the boosters as "
+             "this design does.");
   g_snprintf (out->boosters_note, sizeof out->boosters_note, "%s %s", which, rest);
 }
 
+static gboolean staging_compute (const SwDesign *design, guint max_stages, gboolean looped,
+                                 SwStaging *out, GError **error);
+
 gboolean
 sw_staging_compute (const SwDesign *design, guint max_stages, SwStaging *out, GError **error)
+{
+  return staging_compute (design, max_stages, FALSE, out, error);
+}
+
+gboolean
+sw_staging_compute_looped (const SwDesign *looped, guint max_stages, SwStaging *out,
+                           GError **error)
+{
+  return staging_compute (looped, max_stages, TRUE, out, error);
+}
+
+static gboolean
+staging_compute (const SwDesign *design, guint max_stages, gboolean looped, SwStaging *out,
+                 GError **error)
 {
   const SwEconomics *e;
   SwReliabilityCurve rel;
@@ -169,8 +225,15 @@ sw_staging_compute (const SwDesign *design, guint max_stages, SwStaging *out, GE
   out->design_stages = design->n_stages;
   out->design_row = design->n_stages;
   out->design_index = -1;
-  out->design_reuses = e->recovery_mode != SW_RECOVERY_NONE;
-  out->reuse_mode = out->design_reuses ? e->recovery_mode : SW_RECOVERY_DOWNRANGE;
+  /* A design that recovers something: the recovered columns as it does
+   * (boosters only: the core expended); an expendable design: the first
+   * stage landing downrange, to show what recovery would cost. */
+  out->booster_reuse_mode = design->boosters.count > 0 ? e->booster_recovery_mode
+                                                       : SW_RECOVERY_NONE;
+  out->design_reuses = e->recovery_mode != SW_RECOVERY_NONE
+                       || out->booster_reuse_mode != SW_RECOVERY_NONE;
+  out->reuse_mode = e->recovery_mode != SW_RECOVERY_NONE ? e->recovery_mode
+                    : out->design_reuses ? SW_RECOVERY_NONE : SW_RECOVERY_DOWNRANGE;
   out->weight_liftoff_mass = e->weight_liftoff_mass;
   out->weight_development = e->weight_development;
   out->weight_cost_per_flight = e->weight_cost_per_flight;
@@ -202,11 +265,18 @@ sw_staging_compute (const SwDesign *design, guint max_stages, SwStaging *out, GE
       SwBudget b;
       g_autofree char *losses = sw_design_budget (design, &b, NULL)
                                   ? sw_format_speed (b.losses_m_s) : g_strdup ("?");
-      /* Translators: %s is a speed ("2,500 m/s") */
-      g_snprintf (out->losses_note, sizeof out->losses_note,
-                  _("Every row is sized with the loss allowance of %s, the design's first guess "
-                    "for its closed loop; the totals use the closed loop's losses."),
-                  losses);
+      if (looped)
+        /* Translators: %s is a speed ("1,868 m/s") */
+        g_snprintf (out->losses_note, sizeof out->losses_note,
+                    _("Every row is sized with the closed loop's losses of %s, flown by this "
+                      "design's own vehicle; the other stage counts are not flown."),
+                    losses);
+      else
+        /* Translators: %s is a speed ("2,500 m/s") */
+        g_snprintf (out->losses_note, sizeof out->losses_note,
+                    _("Every row is sized with the loss allowance of %s, the design's first "
+                      "guess for its closed loop; the totals use the closed loop's losses."),
+                    losses);
     }
   sw_reliability_curve_compute (design, out->n_counts, &rel);
   out->reliability_given = rel.given;
@@ -383,8 +453,11 @@ sw_staging_compute (const SwDesign *design, guint max_stages, SwStaging *out, GE
   append_weight (text, out->weight_liftoff_mass, _("liftoff mass"));
   append_weight (text, out->weight_development, _("development effort"));
   append_weight (text, out->weight_cost_per_flight,
-                 out->design_reuses ? _("cost per flight (first stage reused)")
-                                    : _("cost per flight (expendable)"));
+                 !out->design_reuses ? _("cost per flight (expendable)")
+                 : out->booster_reuse_mode == SW_RECOVERY_NONE
+                   ? _("cost per flight (first stage reused)")
+                 : out->reuse_mode == SW_RECOVERY_NONE ? _("cost per flight (boosters reused)")
+                 : _("cost per flight (first stage and boosters reused)"));
   if (rel.given)
     append_weight (text, out->weight_failure, _("failure probability"));
   if (text->len == 0)

@@ -25,7 +25,10 @@
  *   - mission success counts the boosters as perfect (they have no
  *     reliability keys), so it is the serial figure of the same stages;
  *   - the recovered columns recover the core (stage 1) as a serial first
- *     stage is recovered and expend the boosters (sw_reuse_compute_parallel).
+ *     stage is recovered, and the boosters when the design recovers them
+ *     (economics "booster_mode"), else expend them (sw_reuse_compute_parallel);
+ *     a design that recovers its boosters only has its core expended there
+ *     (and its serial rows' recovered columns equal the expendable ones).
  * The sizing is the rocket equation; the thrust is checked after it: a row
  * whose liftoff weight the design's thrust (first stage, vacuum, and the
  * boosters in a booster row) does not exceed is no candidate for the best
@@ -62,6 +65,9 @@ typedef struct {
   double   liftoff_mass_kg;              /* NAN when infeasible, as every figure below */
   double   liftoff_mass_reused_kg;
   double   payload_penalty_fraction;     /* recovery, at the same liftoff mass */
+  double   recovery_propellant_kg;       /* the recovered first stage's; NAN when it is
+                                          * expended in the recovered columns */
+  double   booster_recovery_propellant_kg; /* per recovered booster; NAN otherwise */
   double   development_work_years;
   double   development_reused_work_years;
   double   cost_per_flight_work_years;
@@ -89,8 +95,13 @@ typedef struct {
   int      design_index;                 /* index of that row; -1 beyond n_counts */
   guint    booster_count;                /* the design's boosters; 0: serial rows only */
   int      best;                         /* index of the best row, -1 if none closes */
-  SwRecoveryMode reuse_mode;             /* the design's, or downrange when expendable */
-  gboolean design_reuses;                /* the design recovers its first stage */
+  SwRecoveryMode reuse_mode;             /* the first stage's in the recovered columns: the
+                                          * design's; downrange for a design that recovers
+                                          * nothing; none for one that recovers its boosters
+                                          * only */
+  SwRecoveryMode booster_reuse_mode;     /* the boosters' in the recovered columns: the
+                                          * design's (none without boosters) */
+  gboolean design_reuses;                /* the design recovers its first stage or boosters */
   gboolean reliability_given;
   double   design_liftoff_mass_kg;       /* NAN when the design does not close */
   double   weight_liftoff_mass;
@@ -116,15 +127,22 @@ typedef struct {
    * serial rows that close, least and most; NAN otherwise. */
   double   core_thrust_to_weight_min;
   double   core_thrust_to_weight_max;
-  /* A design whose losses come from the simulated ascent: every row is
-   * sized with its first-guess allowance (no ascent is flown for a row),
-   * so its own row may differ from the closed loop's sizing; "" otherwise. */
+  /* A design whose losses come from the simulated ascent: which losses
+   * every row is sized with (no ascent is flown for a row).  From
+   * sw_staging_compute, the first-guess allowance (its own row may then
+   * differ from the closed loop's sizing); from sw_staging_compute_looped,
+   * the closed loop's losses of the design's own vehicle (its own row is
+   * the closed loop's sizing); "" otherwise. */
   char     losses_note[SW_REASON_MAX];
 } SwStaging;
 
 /* The row of @n_stages in @arrangement, or NULL. */
 const SwStagingRow *sw_staging_row (const SwStaging *staging, SwArrangement arrangement,
                                     guint n_stages);
+/* What the recovered columns recover, in words for the views ("first stage
+ * lands downrange, boosters expended"; the boosters named only when the
+ * design has some); translated, owned. */
+char       *sw_staging_dup_recovery_words (const SwStaging *staging);
 /* "serial" or "boosters", the CLI's and the CSV's word. */
 const char *sw_arrangement_to_string (SwArrangement arrangement);
 
@@ -132,5 +150,11 @@ const char *sw_arrangement_to_string (SwArrangement arrangement);
  * @error) only when the design's mission has no delta-v. */
 gboolean sw_staging_compute (const SwDesign *design, guint max_stages, SwStaging *out,
                              GError **error);
+/* The same for a design made the closed loop's vehicle (a copy given the
+ * loop's losses and fairing point by sw_ascent_apply_loop, as the analysis
+ * does for its trade studies: sw_analysis_staging); only the losses note
+ * differs.  This design's row is then the closed loop's sizing. */
+gboolean sw_staging_compute_looped (const SwDesign *looped, guint max_stages, SwStaging *out,
+                                    GError **error);
 
 G_END_DECLS
