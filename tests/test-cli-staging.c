@@ -735,6 +735,45 @@ test_carpet_money (void)
   g_unlink (path);
 }
 
+/* A "simulate" design: `carpet` flies the closed loop first, as `stages`
+ * does, and sizes every point with its losses, so this design's value is
+ * size's liftoff mass (45.0 t for the demo, where the first guess gives
+ * 41.5 t), and the note says which losses the points use. */
+static void
+test_carpet_simulated (void)
+{
+  g_autofree char *path = g_build_filename (g_getenv ("SW_SOURCE_ROOT"), "data", "designs",
+                                            "three-stage-simulated.stagewright", NULL);
+  g_autoptr (JsonNode) keep_size = NULL, keep_carpet = NULL;
+  JsonObject *size, *carpet, *own;
+  double m0;
+  Run r;
+
+  run_cli (&r, "size", path, "--json", NULL);
+  g_assert_cmpint (r.code, ==, 0);
+  size = parse (r.out, &keep_size);
+  g_assert_true (json_object_get_boolean_member (size, "sized_with_simulated_losses"));
+  m0 = json_object_get_double_member (size, "liftoff_mass_kg");
+  run_clear (&r);
+
+  run_cli (&r, "carpet", path, "--x", "stages[0].structural_coefficient:0.05:0.12:4", "--y",
+           "stages[2].isp_vac_s:320:360:3", "--json", NULL);
+  g_assert_cmpint (r.code, ==, 0);
+  carpet = parse (r.out, &keep_carpet);
+  own = json_object_get_object_member (carpet, "this_design");
+  g_assert_cmpfloat_with_epsilon (json_object_get_double_member (own, "value") / m0, 1.0, 1e-12);
+  g_assert_nonnull (strstr (json_object_get_string_member (carpet, "note"),
+                            "closed loop's losses"));
+  run_clear (&r);
+
+  /* The table says the same. */
+  run_cli (&r, "carpet", path, "--x", "stages[0].structural_coefficient:0.05:0.12:4", "--y",
+           "stages[2].isp_vac_s:320:360:3", NULL);
+  g_assert_cmpint (r.code, ==, 0);
+  g_assert_nonnull (strstr (r.out, "Every point is sized with the closed loop's losses of"));
+  run_clear (&r);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -746,6 +785,7 @@ main (int argc, char **argv)
   g_test_add_func ("/cli/staging/export-csv", test_export_csv);
   g_test_add_func ("/cli/staging/stages-boosters", test_stages_boosters);
   g_test_add_func ("/cli/staging/stages-simulated", test_stages_simulated);
+  g_test_add_func ("/cli/staging/carpet-simulated", test_carpet_simulated);
   g_test_add_func ("/cli/staging/carpet-money", test_carpet_money);
   return g_test_run ();
 }

@@ -91,9 +91,10 @@ test_page_shows_worker_result (void)
     }
 }
 
-/* A "simulate" design: the fast phase's table uses the first guess; once
- * the ascent phase has closed the loop, the page sizes the table again with
- * the loop's losses, and this design's row is the totals' liftoff mass. */
+/* A "simulate" design: the fast phase's table and carpet use the first
+ * guess; once the ascent phase has closed the loop, the page sizes the
+ * table and the carpet again with the loop's losses, and this design's row
+ * and the carpet's mark are the totals' liftoff mass. */
 static gboolean
 looped_cb (gpointer data)
 {
@@ -113,6 +114,7 @@ test_page_follows_loop (void)
   GtkWidget *win = gtk_window_new ();
   GtkWidget *page = sw_staging_page_new ();
   const SwStaging *s;
+  const SwCarpet *c;
   SwAnalysisOptions o;
 
   g_assert_nonnull (d);
@@ -132,12 +134,28 @@ test_page_follows_loop (void)
   g_assert_nonnull (strstr (s->losses_note, "first guess"));
   g_assert_cmpfloat_with_epsilon (s->rows[2].liftoff_mass_kg / fast->sizing.liftoff_mass_kg, 1.0,
                                   1e-9);
+  /* The carpet's mark is the table's row: the first guess, and it says so. */
+  c = sw_staging_page_get_carpet (SW_STAGING_PAGE (page));
+  g_assert_nonnull (c);
+  g_assert_cmpfloat_with_epsilon (c->design_value / fast->sizing.liftoff_mass_kg, 1.0, 1e-9);
+  g_assert_nonnull (strstr (c->note, "first guess"));
+  g_assert_cmpstr (gtk_label_get_text (GTK_LABEL (sw_staging_page_get_carpet_control (
+                     SW_STAGING_PAGE (page), SW_CARPET_CONTROL_STATUS, 0))), ==, c->note);
 
   sw_staging_page_set_result (SW_STAGING_PAGE (page), flown);
   sw_test_wait_until (looped_cb, page, 20000, "the closed loop's table");
   s = sw_staging_page_get_staging (SW_STAGING_PAGE (page));
   g_assert_cmpfloat_with_epsilon (s->rows[2].liftoff_mass_kg / flown->sizing.liftoff_mass_kg,
                                   1.0, 1e-9);
+  /* The carpet computed again with the loop's losses: its mark is the
+   * table's row and the totals' liftoff mass, and its note says so. */
+  c = sw_staging_page_get_carpet (SW_STAGING_PAGE (page));
+  g_assert_nonnull (c);
+  g_assert_cmpfloat_with_epsilon (c->design_value / flown->sizing.liftoff_mass_kg, 1.0, 1e-9);
+  g_assert_cmpfloat_with_epsilon (c->design_value / s->rows[2].liftoff_mass_kg, 1.0, 1e-9);
+  g_assert_nonnull (strstr (c->note, "closed loop's losses"));
+  g_assert_cmpstr (gtk_label_get_text (GTK_LABEL (sw_staging_page_get_carpet_control (
+                     SW_STAGING_PAGE (page), SW_CARPET_CONTROL_STATUS, 0))), ==, c->note);
   g_assert_cmpfloat (fabs (flown->sizing.liftoff_mass_kg / fast->sizing.liftoff_mass_kg - 1.0),
                      >, 0.03);
   gtk_window_destroy (GTK_WINDOW (win));

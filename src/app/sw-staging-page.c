@@ -24,7 +24,7 @@
 typedef struct {
   gint      ref;
   SwDesign *design;
-  /* The design the staging table sizes: the closed loop's vehicle
+  /* The design the staging table and the carpet size: the closed loop's vehicle
    * (sw_analysis_dup_trade_design) once the analysis has its losses, or
    * NULL for the design itself.  Views never compute: the analysis says. */
   SwDesign *looped;
@@ -134,7 +134,9 @@ job_thread (GTask *task, gpointer source, gpointer data, GCancellable *cancellab
   o.cancellable = job->carpet_cancel;
   o.progress = job_progress_cb;
   o.progress_data = job;
-  job->carpet = sw_carpet_compute (job->design, &o, &error);
+  /* The same design as the table: the closed loop's vehicle once known. */
+  job->carpet = job->looped != NULL ? sw_carpet_compute_looped (job->looped, &o, &error)
+                                    : sw_carpet_compute (job->design, &o, &error);
   if (job->carpet == NULL && g_error_matches (error, G_IO_ERROR, G_IO_ERROR_CANCELLED))
     job->carpet_cancelled = TRUE;
   else if (job->carpet == NULL)
@@ -599,8 +601,8 @@ sw_staging_page_set_result (SwStagingPage *self, SwAnalysis *result)
   if (result != NULL && result->design != NULL && self->design != NULL
       && sw_design_equal (self->design, result->design))
     {
-      /* The same design, its loop now closed: the table again, the
-       * fields and the carpet's axes as they are. */
+      /* The same design, its loop now closed: the table and the carpet
+       * again, the fields and the carpet's axes as they are. */
       g_clear_pointer (&self->looped, sw_design_free);
       if (result->trade_losses_simulated)
         self->looped = sw_analysis_dup_trade_design (result);

@@ -602,8 +602,28 @@ sw_cli_carpet (int argc, char **argv)
   if ((d = sw_cli_load (argv[1])) == NULL)
     return SW_EXIT_USAGE;
   if (!sw_carpet_axis_parse ("--x", opt_x, d, &o.x, &error)
-      || !sw_carpet_axis_parse ("--y", opt_y, d, &o.y, &error)
-      || (c = sw_carpet_compute (d, &o, &error)) == NULL)
+      || !sw_carpet_axis_parse ("--y", opt_y, d, &o.y, &error))
+    {
+      g_printerr (_("stagewright-cli carpet: %s: %s\n"), argv[1], error->message);
+      return SW_EXIT_USAGE;
+    }
+  if (d->mission.kind == SW_MISSION_ORBIT && d->mission.loss_model == SW_LOSS_SIMULATE)
+    {
+      /* The closed loop sizes such a design, as in size, stages and the
+       * window: every point takes its losses (this design's point is then
+       * size's vehicle). */
+      SwAnalysisOptions ao;
+      g_autoptr (SwAnalysis) a = NULL;
+
+      sw_analysis_options_init (&ao);
+      ao.montecarlo = FALSE;
+      ao.ascent = TRUE;
+      a = sw_analysis_run (d, &ao, NULL);
+      c = a->ok ? sw_analysis_carpet (a, &o, &error) : sw_carpet_compute (d, &o, &error);
+    }
+  else
+    c = sw_carpet_compute (d, &o, &error);
+  if (c == NULL)
     {
       g_printerr (_("stagewright-cli carpet: %s: %s\n"), argv[1], error->message);
       return SW_EXIT_USAGE;

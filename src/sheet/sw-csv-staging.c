@@ -158,6 +158,8 @@ sw_csv_carpet (const SwAnalysis *b)
   sw_csv_carpet_default_axes (b->design, &o);
   if (!(o.x.min < o.x.max) || !(o.y.min < o.y.max))
     return NULL;
-  c = sw_carpet_compute (b->design, &o, NULL);
+  /* With the closed loop's losses once the analysis has them (the staging
+   * table's route: this design's point is the totals' vehicle). */
+  c = sw_analysis_carpet (b, &o, NULL);
   return c != NULL ? sw_csv_carpet_text (c) : NULL;
 }

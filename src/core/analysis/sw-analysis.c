@@ -812,3 +812,15 @@ sw_analysis_staging (const SwAnalysis *analysis, guint max_stages, SwStaging *ou
   return analysis->trade_losses_simulated ? sw_staging_compute_looped (d, max_stages, out, error)
                                           : sw_staging_compute (d, max_stages, out, error);
 }
+
+SwCarpet *
+sw_analysis_carpet (const SwAnalysis *analysis, const SwCarpetOptions *options, GError **error)
+{
+  g_autoptr (SwDesign) d = NULL;
+
+  g_return_val_if_fail (analysis != NULL && analysis->design != NULL && options != NULL, NULL);
+
+  d = sw_analysis_dup_trade_design (analysis);
+  return analysis->trade_losses_simulated ? sw_carpet_compute_looped (d, options, error)
+                                          : sw_carpet_compute (d, options, error);
+}

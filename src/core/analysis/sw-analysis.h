@@ -24,6 +24,7 @@
 
 #include "sw-ascent.h"
 #include "sw-budget.h"
+#include "sw-carpet.h"
 #include "sw-comparison.h"
 #include "sw-curves.h"
 #include "sw-design.h"
@@ -215,6 +216,12 @@ SwDesign   *sw_analysis_dup_trade_design (const SwAnalysis *analysis);
  * so that this design's row is the sizing in the totals. */
 gboolean    sw_analysis_staging (const SwAnalysis *analysis, guint max_stages, SwStaging *out,
                                  GError **error);
+/* The carpet grid (sw-carpet.h) of the analysed design, the same way: with
+ * the closed loop's losses as a fixed allowance at every point and its
+ * fairing point once the analysis has them, so that this design's value is
+ * the sizing in the totals. */
+SwCarpet   *sw_analysis_carpet (const SwAnalysis *analysis, const SwCarpetOptions *options,
+                                GError **error);
 
 /* A new analysis equal to @analysis (the heap parts shared). */
 SwAnalysis *sw_analysis_copy (const SwAnalysis *analysis);

@@ -887,8 +887,72 @@ point_output (SwDesign *scratch, const SwCarpet *c, Point *p, SwSplitMode split,
     }
 }
 
+static SwCarpet *carpet_compute (const SwDesign *design, const SwCarpetOptions *options,
+                                 gboolean looped, GError **error);
+
 SwCarpet *
 sw_carpet_compute (const SwDesign *design, const SwCarpetOptions *options, GError **error)
+{
+  return carpet_compute (design, options, FALSE, error);
+}
+
+SwCarpet *
+sw_carpet_compute_looped (const SwDesign *looped, const SwCarpetOptions *options,
+                          GError **error)
+{
+  return carpet_compute (looped, options, TRUE, error);
+}
+
+/* Which losses the points of a simulate design are sized with, in plain
+ * words: the closed loop's (@looped) or the first guess; the loss axis
+ * itself, when it is one, varies them. */
+static void
+losses_note (SwCarpet *c, const SwDesign *design, gboolean looped)
+{
+  SwBudget b;
+  g_autofree char *losses = sw_design_budget (design, &b, NULL)
+                              ? sw_format_speed (b.losses_m_s) : g_strdup ("?");
+  gboolean axis = c->x.kind == SW_CARPET_PARAM_LOSSES || c->y.kind == SW_CARPET_PARAM_LOSSES;
+
+  if (looped && axis)
+    /* Translators: %s is a speed ("1,868 m/s") */
+    g_snprintf (c->note, sizeof c->note,
+                _("The losses are an axis here; this design is marked at the closed loop's "
+                  "losses of %s, flown by its own vehicle. No ascent is flown at the points."),
+                losses);
+  else if (looped)
+    /* Translators: %s is a speed ("1,868 m/s") */
+    g_snprintf (c->note, sizeof c->note,
+                _("Every point is sized with the closed loop's losses of %s as a fixed "
+                  "allowance, flown by this design's own vehicle; no ascent is flown at the "
+                  "points."),
+                losses);
+  else if (axis)
+    /* Translators: %s is a speed ("2,500 m/s") */
+    g_snprintf (c->note, sizeof c->note,
+                _("The losses are an axis here; this design is marked at the loss allowance of "
+                  "%s, the design's first guess for its closed loop. No ascent is flown at the "
+                  "points."),
+                losses);
+  else
+    /* Translators: %s is a speed ("2,500 m/s") */
+    g_snprintf (c->note, sizeof c->note,
+                _("Every point is sized with the loss allowance of %s, the design's first "
+                  "guess for its closed loop: no ascent is flown at the points."), losses);
+  /* The altitude axis moves the allowance (altitude_apply), unless the
+   * losses are the other axis. */
+  if (!axis && (c->x.kind == SW_CARPET_PARAM_ALTITUDE || c->y.kind == SW_CARPET_PARAM_ALTITUDE))
+    {
+      gsize n = strlen (c->note);
+
+      g_snprintf (c->note + n, sizeof c->note - n, " %s",
+                  _("At other altitudes the allowance moves with the climb's energy."));
+    }
+}
+
+static SwCarpet *
+carpet_compute (const SwDesign *design, const SwCarpetOptions *options, gboolean looped,
+                GError **error)
 {
   g_autoptr (SwCarpet) c = NULL;
   g_autofree SwDesign *scratch = NULL;
@@ -962,15 +1026,7 @@ sw_carpet_compute (const SwDesign *design, const SwCarpetOptions *options, GErro
   row = base;
   c->design_value = point_output (scratch, c, &row, design->split, design_liftoff, FALSE);
   if (design->mission.kind == SW_MISSION_ORBIT && design->mission.loss_model == SW_LOSS_SIMULATE)
-    {
-      SwBudget b;
-      g_autofree char *losses = sw_design_budget (design, &b, NULL)
-                                  ? sw_format_speed (b.losses_m_s) : g_strdup ("?");
-      /* Translators: %s is a speed ("2,500 m/s") */
-      g_snprintf (c->note, sizeof c->note,
-                  _("Every point is sized with the loss allowance of %s, the design's first "
-                    "guess for its closed loop: no ascent is flown at the points."), losses);
-    }
+    losses_note (c, design, looped);
 
   for (guint j = 0; j < c->y.n; j++)
     {

@@ -90,7 +90,11 @@ typedef struct {
   double         design_x;            /* the design's own values, to mark it */
   double         design_y;
   double         design_value;        /* NAN when the design does not close */
-  char           note[512];           /* what the grid leaves out, in plain words; "" none */
+  /* What the grid leaves out, in plain words; "" none.  A design whose
+   * losses come from the simulated ascent: which losses every point is
+   * sized with (no ascent is flown at a point), the first-guess allowance
+   * (sw_carpet_compute) or the closed loop's (sw_carpet_compute_looped). */
+  char           note[512];
   /* A cost output (development, cost per flight) of a design whose
    * economics give a cost per work-year: the same grid in money, each
    * point's work-years times work_year_cost (an estimate, never a quote;
@@ -149,6 +153,13 @@ void        sw_carpet_apply (const SwCarpetAxis *axis, SwDesign *design, double 
  * for a bad axis or a mission without delta-v. */
 SwCarpet   *sw_carpet_compute (const SwDesign *design, const SwCarpetOptions *options,
                                GError **error);
+/* The same for a design made the closed loop's vehicle (a copy given the
+ * loop's losses and fairing point by sw_ascent_apply_loop, as the analysis
+ * does for its trade studies: sw_analysis_carpet): every point is sized with
+ * the loop's losses as a fixed allowance and its fairing point; only the
+ * note differs.  This design's value is then the closed loop's sizing. */
+SwCarpet   *sw_carpet_compute_looped (const SwDesign *looped, const SwCarpetOptions *options,
+                                      GError **error);
 void        sw_carpet_free (SwCarpet *carpet);
 
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (SwCarpet, sw_carpet_free)
