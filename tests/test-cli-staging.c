@@ -772,6 +772,12 @@ test_carpet_simulated (void)
   g_assert_cmpint (r.code, ==, 0);
   g_assert_nonnull (strstr (r.out, "Every point is sized with the closed loop's losses of"));
   run_clear (&r);
+  /* ... and the CSV, as a comment line above the header. */
+  run_cli (&r, "carpet", path, "--x", "stages[0].structural_coefficient:0.05:0.12:4", "--y",
+           "stages[2].isp_vac_s:320:360:3", "--csv", NULL);
+  g_assert_cmpint (r.code, ==, 0);
+  g_assert_nonnull (strstr (r.out, "\n# Every point is sized with the closed loop's losses of"));
+  run_clear (&r);
 }
 
 int

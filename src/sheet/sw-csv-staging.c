@@ -129,6 +129,10 @@ sw_csv_carpet_text (const SwCarpet *c)
                               o, wy, c->currency[0] != '\0' ? c->currency : "money units",
                               sw_economics_money_note ());
     }
+  /* What the grid leaves out (which losses a simulate design's points use),
+   * as the staging table's CSV carries its notes. */
+  if (c->note[0] != '\0')
+    g_string_append_printf (s, "# %s\n", c->note);
   g_string_append_printf (s, "%s,%s,%s_%s,%s%s%scloses\n", xn, yn,
                           sw_carpet_output_to_string (c->output), effort ? "work_years" : "kg",
                           c->has_money ? sw_carpet_output_to_string (c->output) : "",
