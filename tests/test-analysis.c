@@ -518,6 +518,44 @@ test_fixed_loads_loop (void)
                      1e-6 * a->performance.payload_kg);
 }
 
+/* The payload curves' note says what the points use: the losses move with
+ * the climb's energy, so the payload falls with altitude, and the note
+ * says so (it once said it rises), before the closed loop and after. */
+static void
+check_payload_note (const SwAnalysis *a, const char *losses)
+{
+  const SwPayloadCurve *alt = &a->payload_curves.altitude;
+
+  g_assert_true (a->payload_curves.applies);
+  g_assert_nonnull (strstr (a->payload_curves.note, losses));
+  g_assert_nonnull (strstr (a->payload_curves.note, "climb's energy"));
+  g_assert_null (strstr (a->payload_curves.note, "rises"));
+  g_assert_cmpuint (alt->n_points, >=, 2);
+  for (guint i = 1; i < alt->n_points; i++)
+    if (alt->points[i].reachable && alt->points[i - 1].reachable)
+      g_assert_cmpfloat (alt->points[i].payload_kg, <, alt->points[i - 1].payload_kg);
+}
+
+static void
+test_payload_curve_note (void)
+{
+  g_autoptr (SwDesign) d = demo ("sallowmere-as-built.stagewright");
+  g_autoptr (SwAnalysis) a = NULL, b = NULL;
+  SwAnalysisOptions o;
+
+  sw_analysis_options_init (&o);
+  o.montecarlo = FALSE;
+  o.ascent = FALSE;
+  a = sw_analysis_run (d, &o, NULL);
+  check_payload_note (a, "design's loss allowance");
+
+  d->mission.loss_model = SW_LOSS_SIMULATE;
+  o.ascent = TRUE;
+  b = sw_analysis_run (d, &o, NULL);
+  g_assert_true (b->sized_by_ascent);
+  check_payload_note (b, "closed loop's losses");
+}
+
 /* The shape and the estimated structural coefficients follow the sizing in
  * force: after the closed loop of a "simulate" design, the loop's vehicle
  * (the demo names its propellants and diameters). */
@@ -691,6 +729,7 @@ main (int argc, char **argv)
   g_test_add_func ("/analysis/closed-loop-sizing", test_closed_loop_sizing);
   g_test_add_func ("/analysis/fixed-stage-trades", test_fixed_stage_trades);
   g_test_add_func ("/analysis/fixed-loads-loop", test_fixed_loads_loop);
+  g_test_add_func ("/analysis/payload-curve-note", test_payload_curve_note);
   g_test_add_func ("/analysis/shape-follows-loop", test_shape_follows_loop);
   g_test_add_func ("/analysis/staging-follows-loop", test_staging_follows_loop);
   g_test_add_func ("/analysis/carpet-follows-loop", test_carpet_follows_loop);

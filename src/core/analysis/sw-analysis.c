@@ -397,33 +397,7 @@ prepare_performance (SwAnalysis *r, GCancellable *cancellable)
   sw_payload_curves_compute (r->design, o->payload_altitudes_km, o->n_payload_altitudes,
                              o->payload_inclinations_deg, o->n_payload_inclinations,
                              o->payload_simulate, cancellable, &r->payload_curves);
-  /* The same words as the core's, with the speed formatted for people. */
-  if (r->payload_curves.applies && !o->payload_simulate)
-    {
-      const SwMission *m = &r->design->mission;
-      g_autofree char *v = sw_format_speed (m->has_losses ? m->losses_m_s
-                                            : m->loss_model == SW_LOSS_SIMULATE
-                                              ? SW_PAYLOAD_FIRST_GUESS_LOSSES_M_S : 0.0);
-
-      if (m->loss_model == SW_LOSS_SIMULATE)
-        /* Translators: %s is a speed such as "1,800 m/s" */
-        g_snprintf (r->payload_curves.note, sizeof r->payload_curves.note,
-                    _("Every point uses the first-guess loss allowance of %s. The budget's "
-                      "ideal delta-v is the orbital speed only, not the climb, so at a fixed "
-                      "allowance the payload rises with altitude; the command line's "
-                      "performance --simulate flies each point and counts the climb in its "
-                      "losses."),
-                    v);
-      else
-        /* Translators: %s is a speed such as "2,380 m/s" */
-        g_snprintf (r->payload_curves.note, sizeof r->payload_curves.note,
-                    _("Every point uses the design's loss allowance of %s. The budget's ideal "
-                      "delta-v is the orbital speed only, not the climb, so at a fixed "
-                      "allowance the payload rises with altitude; the command line's "
-                      "performance --simulate flies each point and counts the climb in its "
-                      "losses."),
-                    v);
-    }
+  /* The core's note says which losses every point uses. */
 }
 
 /* After the closed loop of a "loss_model": "simulate" design: the payload
@@ -455,11 +429,10 @@ performance_with_loop_losses (SwAnalysis *r, double losses_m_s, GCancellable *ca
       v = sw_format_speed (losses_m_s);
       /* Translators: %s is a speed such as "2,364 m/s" */
       g_snprintf (r->payload_curves.note, sizeof r->payload_curves.note,
-                  _("Every point uses the closed loop's losses at this design's orbit, %s. The "
-                    "budget's ideal delta-v is the orbital speed only, not the climb, so at "
-                    "fixed losses the payload rises with altitude; the command line's "
-                    "performance --simulate flies each point and counts the climb in its "
-                    "losses."),
+                  _("Every point uses the closed loop's losses of %s at the design's "
+                    "altitude, moved at other altitudes by the change in the climb's energy "
+                    "(the budget's ideal delta-v counts the orbital speed, not the climb); "
+                    "the command line's performance --simulate flies each point instead."),
                   v);
     }
 }
