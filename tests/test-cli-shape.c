@@ -193,6 +193,27 @@ test_shape_and_phases (void)
     /* The upper stage has no thrust: no duration. */
     g_assert_true (JSON_NODE_HOLDS_NULL (json_object_get_member (pc, "duration_s")));
   }
+  /* The propellant keys as in force, from the file: the catalogue's
+   * LOX/methane with its ratio and the 4 % ullage given; the user's own
+   * "mine" with the densities and ratio given. */
+  {
+    JsonObject *b = json_array_get_object_element (stages, 1);
+    JsonObject *c = json_array_get_object_element (stages, 2);
+    const SwPropellantInfo *lm = sw_propellant_info (SW_PROPELLANT_LOX_METHANE);
+
+    g_assert_cmpstr (json_object_get_string_member (b, "propellant"), ==, "lox-methane");
+    g_assert_false (json_object_get_boolean_member (b, "propellant_custom"));
+    check (b, "mixture_ratio", lm->mixture_ratio);
+    check (b, "ullage_fraction", 0.04);
+    check (b, "oxidizer_density_kg_m3", lm->oxidizer_density_kg_m3);
+    check (b, "fuel_density_kg_m3", lm->fuel_density_kg_m3);
+    g_assert_cmpstr (json_object_get_string_member (c, "propellant"), ==, "mine");
+    g_assert_true (json_object_get_boolean_member (c, "propellant_custom"));
+    check (c, "mixture_ratio", 5.5);
+    check (c, "oxidizer_density_kg_m3", 1141.17);
+    check (c, "fuel_density_kg_m3", 70.83);
+    check (c, "ullage_fraction", 0.03);
+  }
   /* The vehicle's shape and the estimated structural coefficients: the
    * core's values, key by key. */
   {

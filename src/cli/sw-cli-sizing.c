@@ -205,6 +205,37 @@ add_eps_estimate (JsonBuilder *b, const SwDesign *d, const SwMassEstimate *m)
 }
 
 /* The "boosters" object of @s (nothing without boosters). */
+
+/* A stage's or the boosters' propellant keys as in force: the propellant's
+ * name (null without one), the mixture ratio (null for a solid), the ullage
+ * fraction and the bulk densities (a liquid's two, a solid's one), the
+ * catalogue's or the user's own (propellant_custom). */
+static void
+add_propellant_keys (JsonBuilder *b, const SwStagePropellant *p)
+{
+  const SwPropellantInfo *info = sw_propellant_info (p->kind);
+  double ox, fu, mr;
+  gboolean solid;
+
+  json_builder_set_member_name (b, "propellant");
+  if (p->kind == SW_PROPELLANT_CUSTOM)
+    json_builder_add_string_value (b, p->custom_name);
+  else if (info != NULL)
+    json_builder_add_string_value (b, info->key);
+  else
+    json_builder_add_null_value (b);
+  if (p->kind == SW_PROPELLANT_NONE)
+    return;
+  sw_propellant_effective (p, &ox, &fu, &mr, &solid);
+  sw_cli_add_number (b, "mixture_ratio", solid ? NAN : mr);
+  sw_cli_add_number (b, "ullage_fraction", sw_propellant_ullage (p));
+  sw_cli_add_number (b, "oxidizer_density_kg_m3", solid ? NAN : ox);
+  sw_cli_add_number (b, "fuel_density_kg_m3", solid ? NAN : fu);
+  sw_cli_add_number (b, "solid_density_kg_m3", solid ? ox : NAN);
+  json_builder_set_member_name (b, "propellant_custom");
+  json_builder_add_boolean_value (b, p->kind == SW_PROPELLANT_CUSTOM);
+}
+
 static void
 add_boosters (JsonBuilder *b, const SwDesign *d, const SwSizing *s)
 {
@@ -234,26 +265,11 @@ add_boosters (JsonBuilder *b, const SwDesign *d, const SwSizing *s)
   sw_cli_add_number (b, "mixed_exhaust_velocity_m_s", r->mixed_exhaust_velocity_m_s);
   sw_cli_add_number (b, "core_propellant_in_phase_0_kg", r->core_propellant_in_phase_kg);
   sw_cli_add_number (b, "diameter_m", d->boosters.has_diameter ? d->boosters.diameter_m : NAN);
-  json_builder_set_member_name (b, "propellant");
-  {
-    const SwStagePropellant *p = &d->boosters.propellant;
-    const SwPropellantInfo *info = sw_propellant_info (p->kind);
-    if (p->kind == SW_PROPELLANT_CUSTOM)
-      json_builder_add_string_value (b, p->custom_name);
-    else if (info != NULL)
-      json_builder_add_string_value (b, info->key);
-    else
-      json_builder_add_null_value (b);
-  }
+  add_propellant_keys (b, &d->boosters.propellant);
   if (d->boosters.propellant.kind != SW_PROPELLANT_NONE)
     {
       SwStageShape shape;
-      double ox, fu, mr;
-      gboolean solid;
 
-      sw_propellant_effective (&d->boosters.propellant, &ox, &fu, &mr, &solid);
-      sw_cli_add_number (b, "mixture_ratio", solid ? NAN : mr);
-      sw_cli_add_number (b, "ullage_fraction", sw_propellant_ullage (&d->boosters.propellant));
       sw_sizing_booster_shape (d, s, &shape);
       sw_cli_add_number (b, "propellant_volume_m3", shape.propellant_volume_m3);
       sw_cli_add_number (b, "tank_volume_m3", shape.tank_volume_m3);
@@ -320,6 +336,7 @@ sizing_to_json (const SwAnalysis *a)
       sw_cli_add_number (b, "burnout_mass_kg", r->burnout_mass_kg);
       json_builder_set_member_name (b, "fixed");
       json_builder_add_boolean_value (b, r->fixed);
+      add_propellant_keys (b, &d->stages[i].propellant);
       if (d->stages[i].propellant.kind != SW_PROPELLANT_NONE && i < a->shape.n_stages)
         {
           const SwStageGeometry *g = &a->shape.stages[i];
