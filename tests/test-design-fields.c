@@ -457,6 +457,28 @@ test_propellant_name (void)
   g_assert_error (error, SW_ERROR, SW_ERROR_USAGE);
   g_clear_error (&error);
   g_assert_cmpstr (d->stages[0].propellant.custom_name, ==, long_name);
+
+  /* The boosters' own propellant: the same rules, and boosters needed. */
+  g_assert_false (sw_design_set_booster_propellant_name (d, "mine", &error));
+  g_assert_error (error, SW_ERROR, SW_ERROR_MISSING);
+  g_assert_nonnull (strstr (error->message, "boosters.propellant.name"));
+  g_clear_error (&error);
+  g_assert_true (sw_design_field_set (d, SW_FIELD_THRUST_VAC, 0, 2000.0, NULL));
+  g_assert_true (sw_design_field_set (d, SW_FIELD_BOOSTER_COUNT, 0, 2.0, NULL));
+  g_assert_false (sw_design_set_booster_propellant_name (d, "mine", &error));
+  g_assert_error (error, SW_ERROR, SW_ERROR_VALUE);
+  g_assert_nonnull (strstr (error->message, "boosters.propellant.name"));
+  g_clear_error (&error);
+  g_assert_true (sw_design_set_booster_propellant (d, SW_PROPELLANT_CUSTOM, NULL));
+  g_assert_false (sw_design_set_booster_propellant_name (d, " ", &error));
+  g_assert_error (error, SW_ERROR, SW_ERROR_RANGE);
+  g_clear_error (&error);
+  g_assert_true (sw_design_set_booster_propellant_name (d, "Booster mix", &error));
+  g_assert_no_error (error);
+  g_assert_cmpstr (d->boosters.propellant.custom_name, ==, "Booster mix");
+  /* The stage's own propellant keeps its name. */
+  g_assert_cmpstr (d->stages[0].propellant.custom_name, ==, long_name);
+  assert_round_trip (d);
 }
 
 /* Engine types and developed stages: every list edit of the economics

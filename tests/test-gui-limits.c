@@ -787,6 +787,16 @@ text_key_widget (SwWindow *w, const char *path)
     { "stages[].propellant.name", "propellant-name" },
   };
 
+  static const struct { const char *path; SwInspectorField field; } booster_keys[] = {
+    { "boosters.name", SW_INSPECTOR_BOOSTER_NAME },
+    { "boosters.crossfeed", SW_INSPECTOR_BOOSTER_CROSSFEED },
+    { "boosters.propellant", SW_INSPECTOR_BOOSTER_PROPELLANT },
+    { "boosters.propellant.name", SW_INSPECTOR_BOOSTER_PROPELLANT_NAME },
+  };
+
+  for (guint k = 0; k < G_N_ELEMENTS (booster_keys); k++)
+    if (g_strcmp0 (path, booster_keys[k].path) == 0)
+      return widget (w, booster_keys[k].field);
   if (g_str_has_prefix (path, "baseline."))
     return find_widget (GTK_WIDGET (w), NULL, "design.pin-baseline");
   for (guint k = 0; k < G_N_ELEMENTS (stage_keys); k++)
@@ -848,6 +858,13 @@ test_every_text_and_list_key_has_a_widget (void)
   g_assert_true (sw_design_set_propellant (d, 0, SW_PROPELLANT_CUSTOM, NULL));
   g_assert_true (sw_design_set_propellant_name (d, 0, "Own mix", NULL));
   g_assert_true (sw_design_set_propellant (d, 1, SW_PROPELLANT_LOX_KEROSENE, NULL));
+  /* Boosters burning a propellant of the user's own, fed from the core. */
+  g_assert_true (sw_design_field_set (d, SW_FIELD_BOOSTER_COUNT, 0, 2.0, NULL));
+  /* A fixed load: this test is about widgets, not a long booster sizing. */
+  g_assert_true (sw_design_field_set (d, SW_FIELD_BOOSTER_PROPELLANT_LOAD, 0, 5000.0, NULL));
+  g_assert_true (sw_design_set_booster_crossfeed (d, TRUE, NULL));
+  g_assert_true (sw_design_set_booster_propellant (d, SW_PROPELLANT_CUSTOM, NULL));
+  g_assert_true (sw_design_set_booster_propellant_name (d, "Booster mix", NULL));
   g_assert_true (sw_design_set_spread (d, 0, SW_SPREAD_NORMAL, 1.0, NULL));
   g_assert_true (sw_design_set_spread (d, 1, SW_SPREAD_UNIFORM, 5.0, NULL));
   g_assert_true (sw_design_set_spread (d, 2, SW_SPREAD_NORMAL, 100.0, NULL));
@@ -862,6 +879,7 @@ test_every_text_and_list_key_has_a_widget (void)
   /* The walk sees the keys this test set up. */
   g_assert_true (g_hash_table_contains (leaves, "economics.engine_types[].on_stages[]"));
   g_assert_true (g_hash_table_contains (leaves, "stages[].propellant.name"));
+  g_assert_true (g_hash_table_contains (leaves, "boosters.propellant.name"));
   g_assert_true (g_hash_table_contains (leaves, "uncertainty.losses.distribution"));
   g_assert_true (g_hash_table_contains (leaves, "economics.currency"));
 

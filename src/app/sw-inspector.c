@@ -119,6 +119,7 @@ struct _SwInspector {
   SwNumberField *booster_diameter_field;
   GtkCheckButton *booster_crossfeed_check;
   GtkDropDown   *booster_propellant_dropdown;
+  GtkEntry      *booster_propellant_name_entry;   /* their own propellant's name */
   SwNumberField *booster_mixture_field;
   SwNumberField *booster_ullage_field;
   SwNumberField *booster_oxidizer_field;
@@ -1185,6 +1186,40 @@ booster_name_leave_cb (GtkEventControllerFocus *controller, SwInspector *self)
     booster_name_commit (self);
 }
 
+/* The name of the boosters' own propellant: committed on Enter or when the
+ * field is left; a refused name is marked (its tooltip says why) and
+ * changes nothing. */
+static void
+booster_propellant_name_commit (SwInspector *self)
+{
+  g_autoptr (SwDesign) d = NULL;
+  g_autoptr (GError) error = NULL;
+  GtkWidget *entry = GTK_WIDGET (self->booster_propellant_name_entry);
+  const char *text = gtk_editable_get_text (GTK_EDITABLE (entry));
+  const SwStagePropellant *prop = &design (self)->boosters.propellant;
+
+  if (!editing_ok (self) || design (self)->boosters.count == 0
+      || prop->kind != SW_PROPELLANT_CUSTOM || g_strcmp0 (text, prop->custom_name) == 0)
+    return;
+  d = sw_document_dup_design (self->document);
+  if (!sw_design_set_booster_propellant_name (d, text, &error))
+    {
+      gtk_widget_add_css_class (entry, "error");
+      gtk_widget_set_tooltip_text (entry, field_message (error->message));
+      return;
+    }
+  gtk_widget_remove_css_class (entry, "error");
+  gtk_widget_set_tooltip_text (entry, _("The name of the boosters' own propellant"));
+  commit (self, g_steal_pointer (&d), NULL);
+}
+
+static void
+booster_propellant_name_leave_cb (GtkEventControllerFocus *controller, SwInspector *self)
+{
+  if (gtk_widget_get_mapped (GTK_WIDGET (self)))
+    booster_propellant_name_commit (self);
+}
+
 static void
 booster_crossfeed_cb (SwInspector *self)
 {
@@ -1316,6 +1351,19 @@ build_boosters (SwInspector *self, GtkWidget *box)
                      0, row, 1, 1);
     gtk_grid_attach (grid, GTK_WIDGET (self->booster_propellant_dropdown), 1, row++, 2, 1);
   }
+  self->booster_propellant_name_entry = GTK_ENTRY (gtk_entry_new ());
+  gtk_editable_set_enable_undo (GTK_EDITABLE (self->booster_propellant_name_entry), FALSE);
+  tip = _("The name of the boosters' own propellant");
+  gtk_widget_set_tooltip_text (GTK_WIDGET (self->booster_propellant_name_entry), tip);
+  g_signal_connect_swapped (self->booster_propellant_name_entry, "activate",
+                            G_CALLBACK (booster_propellant_name_commit), self);
+  controller = gtk_event_controller_focus_new ();
+  g_signal_connect (controller, "leave", G_CALLBACK (booster_propellant_name_leave_cb), self);
+  gtk_widget_add_controller (GTK_WIDGET (self->booster_propellant_name_entry), controller);
+  gtk_grid_attach (grid, caption (_("Propellant name"), tip,
+                                  GTK_WIDGET (self->booster_propellant_name_entry)),
+                   0, row, 1, 1);
+  gtk_grid_attach (grid, GTK_WIDGET (self->booster_propellant_name_entry), 1, row++, 2, 1);
   self->booster_mixture_field = add_number_row (self, grid, row++, _("Mixture ratio O/F"),
                                                 _("Oxidizer over fuel by mass, in place of the "
                                                   "propellant's own"),
@@ -1357,6 +1405,18 @@ update_boosters (SwInspector *self, const SwDesign *d)
     gtk_editable_set_text (GTK_EDITABLE (self->booster_name_entry), b->name);
   gtk_check_button_set_active (self->booster_crossfeed_check, b->crossfeed);
   gtk_drop_down_set_selected (self->booster_propellant_dropdown, b->propellant.kind);
+  {
+    GtkWidget *entry = GTK_WIDGET (self->booster_propellant_name_entry);
+    const char *name = b->propellant.kind == SW_PROPELLANT_CUSTOM ? b->propellant.custom_name : "";
+
+    gtk_widget_set_sensitive (entry, b->propellant.kind == SW_PROPELLANT_CUSTOM);
+    if (g_strcmp0 (gtk_editable_get_text (GTK_EDITABLE (entry)), name) != 0
+        && (b->propellant.kind != SW_PROPELLANT_CUSTOM || !focus_within (entry)))
+      {
+        gtk_editable_set_text (GTK_EDITABLE (entry), name);
+        gtk_widget_remove_css_class (entry, "error");
+      }
+  }
   self->updating--;
 #define SHOW(field, key) \
   sw_number_field_set_value (field, sw_design_field_get (d, key, 0, &v) ? v : NAN)
@@ -2021,6 +2081,8 @@ sw_inspector_get_field (SwInspector *self, SwInspectorField field)
     case SW_INSPECTOR_BOOSTER_DIAMETER: return GTK_WIDGET (self->booster_diameter_field);
     case SW_INSPECTOR_BOOSTER_CROSSFEED: return GTK_WIDGET (self->booster_crossfeed_check);
     case SW_INSPECTOR_BOOSTER_PROPELLANT: return GTK_WIDGET (self->booster_propellant_dropdown);
+    case SW_INSPECTOR_BOOSTER_PROPELLANT_NAME:
+      return GTK_WIDGET (self->booster_propellant_name_entry);
     case SW_INSPECTOR_BOOSTER_MIXTURE_RATIO: return GTK_WIDGET (self->booster_mixture_field);
     case SW_INSPECTOR_BOOSTER_ULLAGE: return GTK_WIDGET (self->booster_ullage_field);
     case SW_INSPECTOR_BOOSTER_OXIDIZER_DENSITY: return GTK_WIDGET (self->booster_oxidizer_field);
@@ -2236,6 +2298,8 @@ sw_inspector_init (SwInspector *self)
   route_undo (GTK_WIDGET (self->stage_name_entry));
   route_undo (GTK_WIDGET (self->drag_entry));
   route_undo (GTK_WIDGET (self->propellant_name_entry));
+  route_undo (GTK_WIDGET (self->booster_name_entry));
+  route_undo (GTK_WIDGET (self->booster_propellant_name_entry));
   configure_eps_spin (self);
   /* Long translated captions and choices wrap or ellipsize: the window's
    * minimum width never depends on the language. */

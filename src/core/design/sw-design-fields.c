@@ -990,20 +990,11 @@ check_value (const char *path, SwLimitId limit, double value, gboolean whole, GE
   return TRUE;
 }
 
-gboolean
-sw_design_set_propellant_name (SwDesign *design, guint stage, const char *name, GError **error)
+/* The name of @prop, a propellant of the user's own, at @path. */
+static gboolean
+set_own_propellant_name (SwStagePropellant *prop, const char *path, const char *name,
+                         GError **error)
 {
-  g_autofree char *path = g_strdup_printf ("stages[%u].propellant.name", stage);
-  SwStagePropellant *prop;
-
-  g_return_val_if_fail (design != NULL && name != NULL, FALSE);
-  if (stage >= design->n_stages)
-    {
-      g_set_error (error, SW_ERROR, SW_ERROR_USAGE, _("stages[%u]: the design has %u stages"),
-                   stage, design->n_stages);
-      return FALSE;
-    }
-  prop = &design->stages[stage].propellant;
   if (prop->kind != SW_PROPELLANT_CUSTOM)
     {
       g_set_error (error, SW_ERROR, SW_ERROR_VALUE,
@@ -1022,6 +1013,31 @@ sw_design_set_propellant_name (SwDesign *design, guint stage, const char *name, 
   memset (prop->custom_name, 0, sizeof prop->custom_name);
   g_strlcpy (prop->custom_name, name, sizeof prop->custom_name);
   return TRUE;
+}
+
+gboolean
+sw_design_set_propellant_name (SwDesign *design, guint stage, const char *name, GError **error)
+{
+  g_autofree char *path = g_strdup_printf ("stages[%u].propellant.name", stage);
+
+  g_return_val_if_fail (design != NULL && name != NULL, FALSE);
+  if (stage >= design->n_stages)
+    {
+      g_set_error (error, SW_ERROR, SW_ERROR_USAGE, _("stages[%u]: the design has %u stages"),
+                   stage, design->n_stages);
+      return FALSE;
+    }
+  return set_own_propellant_name (&design->stages[stage].propellant, path, name, error);
+}
+
+gboolean
+sw_design_set_booster_propellant_name (SwDesign *design, const char *name, GError **error)
+{
+  g_return_val_if_fail (design != NULL && name != NULL, FALSE);
+  if (!check_has_boosters (design, "propellant.name", error))
+    return FALSE;
+  return set_own_propellant_name (&design->boosters.propellant, "boosters.propellant.name", name,
+                                  error);
 }
 
 /* ---- economics: engine types and developed stages ---------------------- */

@@ -146,6 +146,9 @@ gboolean  sw_design_set_spread (SwDesign *design, guint which, SwSpreadKind kind
  * bytes of UTF-8, not blank.  Refused for a catalogue propellant. */
 gboolean  sw_design_set_propellant_name (SwDesign *design, guint stage, const char *name,
                                          GError **error);
+/* "boosters.propellant.name": the same for the boosters (which they need). */
+gboolean  sw_design_set_booster_propellant_name (SwDesign *design, const char *name,
+                                                 GError **error);
 
 /* The "economics" object's lists.  Each refuses (FALSE, design unchanged,
  * @error naming the key) an index out of range; none changes another key. */
