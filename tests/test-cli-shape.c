@@ -231,6 +231,7 @@ test_shape_and_phases (void)
     g_assert_true (JSON_NODE_HOLDS_NULL (json_object_get_member (vs, "reason")));
     check (vs, "height_m", v.height_m);
     check (vs, "max_diameter_m", v.max_diameter_m);
+    check (vs, "width_m", v.width_m);
     check (vs, "fairing_length_m", v.fairing_length_m);
     check (vs, "fairing_diameter_m", v.fairing_diameter_m);
     g_assert_true (json_object_get_boolean_member (ee, "converged"));

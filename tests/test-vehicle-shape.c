@@ -164,6 +164,7 @@ test_vehicle_height (void)
   assert_near (v.fairing_base_m, b->base_m + b->shape.length_m, 1e-9);
   assert_near (v.height_m, a->shape.length_m + 1.11 + b->shape.length_m + 6.25, 1e-9);
   assert_near (v.max_diameter_m, 3.7, 0.0);
+  assert_near (v.width_m, 3.7, 0.0);
   g_assert_cmpuint (v.n_boosters, ==, 0);
 }
 
@@ -251,6 +252,9 @@ test_boosters_shape (void)
       g_assert_true (v.complete);
       g_assert_cmpuint (v.n_boosters, ==, 4);
       assert_near (v.booster_diameter_m, dia, 0.0);
+      /* Seen from the side: the core with a booster on each side. */
+      assert_near (v.max_diameter_m, 3.6, 0.0);
+      assert_near (v.width_m, 3.6 + 2.0 * dia, 1e-12);
       sw_stage_shape (&d->boosters.propellant, 30000.0, dia, &want);
       g_assert_true (want.has_length);
       assert_near (v.booster_length_m, want.length_m, 1e-12);

@@ -1235,7 +1235,7 @@ draw_to_scale (SwStackView *self, cairo_t *cr, const Colors *c, int width, int h
   g_autofree char *bar = sw_format_length_m (g->bar_m);
   g_autofree char *person = sw_scale_person_label ();
   g_autofree char *tall = sw_format_length_m (v->height_m);
-  g_autofree char *wide = sw_format_length_m (v->max_diameter_m);
+  g_autofree char *wide = sw_format_length_m (v->width_m);
   g_autofree char *raw = NULL, *caption = NULL;
   PangoLayout *layout;
   int tw, th;
@@ -1270,7 +1270,10 @@ draw_to_scale (SwStackView *self, cairo_t *cr, const Colors *c, int width, int h
   draw_text (cr, layout, g->person.x, g->person.y - th - 2.0);
   g_object_unref (layout);
 
-  raw = g_markup_printf_escaped (_("To scale: <b>%s</b> tall, %s wide"), tall, wide);
+  raw = v->n_boosters > 0
+          ? g_markup_printf_escaped (_("To scale: <b>%s</b> tall, %s wide across the boosters"),
+                                     tall, wide)
+          : g_markup_printf_escaped (_("To scale: <b>%s</b> tall, %s wide"), tall, wide);
   caption = sw_stack_glue_units (raw);
   layout = make_label (self, caption);
   pango_layout_set_width (layout, (int) ((width - 2 * MARGIN) * PANGO_SCALE));

@@ -124,6 +124,7 @@ add_vehicle_shape (JsonBuilder *b, const SwVehicleShape *v)
   add_string_or_null (b, "reason", v->complete ? NULL : v->reason);
   sw_cli_add_number (b, "height_m", v->height_m);
   sw_cli_add_number (b, "max_diameter_m", v->max_diameter_m);
+  sw_cli_add_number (b, "width_m", v->width_m);
   sw_cli_add_number (b, "fairing_diameter_m", v->fairing_diameter_m);
   sw_cli_add_number (b, "fairing_length_m", v->fairing_length_m);
   json_builder_end_object (b);
@@ -520,9 +521,15 @@ print_sizing_table (const SwAnalysis *a)
       if (a->shape.complete)
         {
           g_autofree char *h = sw_format_length_m (a->shape.height_m);
-          g_autofree char *w = sw_format_length_m (a->shape.max_diameter_m);
-          g_print (_("Shape: %s tall with its fairing, %s wide (tanks and lengths: --json)\n"),
-                   h, w);
+          g_autofree char *w = sw_format_length_m (a->shape.width_m);
+          g_autofree char *core = sw_format_length_m (a->shape.max_diameter_m);
+          if (a->shape.n_boosters > 0)
+            /* Translators: a length, a length, the core's diameter */
+            g_print (_("Shape: %s tall with its fairing, %s wide across the boosters "
+                       "(stages %s; tanks and lengths: --json)\n"), h, w, core);
+          else
+            g_print (_("Shape: %s tall with its fairing, %s wide (tanks and lengths: --json)\n"),
+                     h, w);
         }
       if (a->mass_estimate.ok)
         {

@@ -49,6 +49,7 @@ sw_vehicle_shape_compute (const SwDesign *design, const SwSizing *sizing, SwVehi
   out->fairing_diameter_m = out->fairing_cylinder_m = NAN;
   out->fairing_length_m = out->fairing_base_m = out->height_m = NAN;
   out->max_diameter_m = NAN;
+  out->width_m = NAN;
   out->booster_diameter_m = out->booster_length_m = NAN;
   out->n_stages = MIN (design->n_stages, sizing->n_stages);
   out->complete = out->n_stages > 0 && sizing->feasible;
@@ -129,4 +130,9 @@ sw_vehicle_shape_compute (const SwDesign *design, const SwSizing *sizing, SwVehi
   out->fairing_length_m = SW_FAIRING_LENGTH_PER_DIAMETER * out->fairing_diameter_m;
   out->fairing_base_m = z;
   out->height_m = z + out->fairing_length_m;
+  out->width_m = out->max_diameter_m;
+  if (out->n_boosters > 0)
+    out->width_m = MAX (out->width_m, out->stages[0].diameter_m
+                                        + (out->n_boosters >= 2 ? 2.0 : 1.0)
+                                          * out->booster_diameter_m);
 }

@@ -50,7 +50,11 @@ typedef struct {
   double   fairing_length_m;
   double   fairing_base_m;
   double   height_m;               /* base of stage 1 to the fairing's tip */
-  double   max_diameter_m;
+  double   max_diameter_m;           /* of the stages and the fairing */
+  /* The vehicle's width seen from the side: the stages', or with boosters
+   * the core's diameter plus a booster on each side (one with one booster)
+   * when that is wider, as the to-scale drawing shows them. */
+  double   width_m;
   /* Strap-on boosters beside the core (sw-stack-drawing.c draws them): one
    * booster's length from its propellant (the tanks of sw_stage_shape) and
    * its diameter (its own, or half the core's, as for its drag area); the
