@@ -193,27 +193,27 @@ job_done_cb (GObject *source, GAsyncResult *res, gpointer data)
       gtk_widget_set_visible (self->progress_row, FALSE);
       gtk_button_set_label (GTK_BUTTON (self->carpet_button), _("Compute"));
       gtk_widget_set_visible (self->carpet_button, self->shown->carpet == NULL);
-      if (self->shown->staging_ok && (self->shown->staging.fixed_note[0] != '\0'
-                                      || self->shown->staging.boosters_note[0] != '\0'
-                                      || self->shown->staging.losses_note[0] != '\0'))
+      if (self->shown->staging_ok)
         {
           const SwStaging *st = &self->shown->staging;
-          g_autoptr (GString) text = g_string_new (st->weighting);
+          g_autoptr (GString) notes = g_string_new (NULL);
+          g_autofree char *unrecovered = sw_staging_dup_unrecovered_note (st);
+          const char *parts[] = { st->boosters_note, st->fixed_note, st->reuse_note,
+                                  st->losses_note, unrecovered };
 
-          g_string_append_c (text, '.');
-          if (st->boosters_note[0] != '\0')
-            g_string_append_printf (text, " %s", st->boosters_note);
-          if (st->fixed_note[0] != '\0')
-            g_string_append_printf (text, " %s", st->fixed_note);
-          if (st->reuse_note[0] != '\0')
-            g_string_append_printf (text, " %s", st->reuse_note);
-          if (st->losses_note[0] != '\0')
-            g_string_append_printf (text, " %s", st->losses_note);
-          gtk_label_set_text (GTK_LABEL (self->statement), text->str);
+          for (guint k = 0; k < G_N_ELEMENTS (parts); k++)
+            if (parts[k] != NULL && parts[k][0] != '\0')
+              g_string_append_printf (notes, " %s", parts[k]);
+          if (notes->len > 0)
+            {
+              g_autofree char *text = g_strdup_printf ("%s.%s", st->weighting, notes->str);
+              gtk_label_set_text (GTK_LABEL (self->statement), text);
+            }
+          else
+            gtk_label_set_text (GTK_LABEL (self->statement), st->weighting);
         }
       else
-        gtk_label_set_text (GTK_LABEL (self->statement),
-                            self->shown->staging_ok ? self->shown->staging.weighting : "");
+        gtk_label_set_text (GTK_LABEL (self->statement), "");
       if (self->shown->carpet_cancelled)
         set_carpet_status (self, _("Cancelled: the carpet is not drawn. Press Compute to "
                                    "compute it."), FALSE);

@@ -202,6 +202,11 @@ stages_json (const SwDesign *d, const SwStaging *s)
         json_builder_add_null_value (b);
       else
         json_builder_add_string_value (b, r->reason);
+      json_builder_set_member_name (b, "why_not_recovered");
+      if (r->reused_feasible || !r->feasible)
+        json_builder_add_null_value (b);
+      else
+        json_builder_add_string_value (b, r->reused_reason);
       sw_cli_add_number (b, "liftoff_mass_kg", r->liftoff_mass_kg);
       sw_cli_add_number (b, "liftoff_mass_recovered_kg", r->liftoff_mass_reused_kg);
       sw_cli_add_number (b, "recovery_payload_penalty", r->payload_penalty_fraction);
@@ -330,6 +335,11 @@ stages_table (const SwDesign *d, const SwStaging *s)
                wy, cur, dev, cur, cpf, cur);
       g_print ("%s\n", sw_economics_money_note ());
     }
+  {
+    g_autofree char *unrecovered = sw_staging_dup_unrecovered_note (s);
+    if (unrecovered != NULL)
+      g_print ("%s\n", unrecovered);
+  }
   if (!s->reliability_given)
     g_print (_("No stage has reliability keys: the failure criterion is left out.\n"));
   g_print (_("Stage counts above the design's repeat its top stage.\n"));

@@ -39,6 +39,11 @@ sw_csv_staging_decision (const SwAnalysis *b)
     g_string_append_printf (s, "# %s\n", st.boosters_note);
   if (st.losses_note[0] != '\0')
     g_string_append_printf (s, "# %s\n", st.losses_note);
+  {
+    g_autofree char *unrecovered = sw_staging_dup_unrecovered_note (&st);
+    if (unrecovered != NULL)
+      g_string_append_printf (s, "# %s\n", unrecovered);
+  }
   /* The money columns' unit, in words: the label may hold commas. */
   if (st.has_money)
     {

@@ -9,6 +9,7 @@
 #include "sw-economics.h"
 #include "sw-fixed-vehicle.h"
 
+#include <glib/gi18n-lib.h>
 #include <math.h>
 #include <string.h>
 
@@ -103,6 +104,18 @@ begin (SwReuse *out, SwRecoveryMode mode, const SwEconomics *econ, double eps,
 static gboolean
 finish (SwReuse *out, const Recovery *core)
 {
+  /* A recovered first stage that the split leaves without delta-v is no
+   * first stage: nothing is recovered, and such a vehicle is not the one
+   * the recovered columns describe. */
+  if (out->reusable.feasible && out->mode != SW_RECOVERY_NONE
+      && (out->reusable.stages[0].unused || !(out->reusable.stages[0].delta_v_m_s > 0.0)))
+    {
+      out->reusable.feasible = FALSE;
+      g_strlcpy (out->reusable.reason,
+                 _("the recovered first stage is optimised away (it would give no delta-v), "
+                   "so there is no first stage to recover"),
+                 sizeof out->reusable.reason);
+    }
   if (out->reusable.feasible)
     inert_split (out->reusable.stages[0].structural_mass_kg, core, &out->first_stage_dry_kg,
                  &out->recovery_propellant_kg, &out->landing_hardware_kg);

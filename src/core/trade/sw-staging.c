@@ -103,6 +103,8 @@ fill_row (SwStagingRow *row, const SwDesign *design, const SwReuse *reuse)
     row->success_probability = NAN;
   row->reused_feasible = reuse->reusable.feasible;
   g_strlcpy (row->reason, reuse->expendable.reason, sizeof row->reason);
+  if (row->feasible && !row->reused_feasible)
+    g_strlcpy (row->reused_reason, reuse->reusable.reason, sizeof row->reused_reason);
   if (row->feasible)
     {
       row->liftoff_mass_kg = reuse->expendable.liftoff_mass_kg;
@@ -477,4 +479,31 @@ staging_compute (const SwDesign *design, guint max_stages, gboolean looped, SwSt
                _("; rows the design's liftoff thrust cannot lift (vacuum thrust below their "
                  "weight) are not candidates"), sizeof out->weighting);
   return TRUE;
+}
+
+char *
+sw_staging_dup_unrecovered_note (const SwStaging *staging)
+{
+  GString *s = NULL;
+
+  g_return_val_if_fail (staging != NULL, NULL);
+  for (guint i = 0; i < staging->n_rows; i++)
+    {
+      const SwStagingRow *r = &staging->rows[i];
+
+      if (!r->feasible || r->reused_feasible || r->reused_reason[0] == '\0')
+        continue;
+      if (s == NULL)
+        s = g_string_new (NULL);
+      else
+        g_string_append_c (s, ' ');
+      g_string_append_printf (s,
+                              r->arrangement == SW_ARRANGEMENT_BOOSTERS
+                                /* Translators: a stage count, then why */
+                                ? _("No recovered figures for %u stages with boosters: %s.")
+                                /* Translators: a stage count, then why */
+                                : _("No recovered figures for %u serial stages: %s."),
+                              r->n_stages, r->reused_reason);
+    }
+  return s != NULL ? g_string_free (s, FALSE) : NULL;
 }

@@ -62,6 +62,7 @@ typedef struct {
   gboolean feasible;                     /* the expendable vehicle closes */
   gboolean reused_feasible;              /* the vehicle with recovery closes */
   char     reason[SW_REASON_MAX];        /* "" when feasible */
+  char     reused_reason[SW_REASON_MAX]; /* why the recovered vehicle does not close; "" */
   double   liftoff_mass_kg;              /* NAN when infeasible, as every figure below */
   double   liftoff_mass_reused_kg;
   double   payload_penalty_fraction;     /* recovery, at the same liftoff mass */
@@ -139,6 +140,10 @@ typedef struct {
 /* The row of @n_stages in @arrangement, or NULL. */
 const SwStagingRow *sw_staging_row (const SwStaging *staging, SwArrangement arrangement,
                                     guint n_stages);
+/* The rows that close expendable but have no recovered figures, and why,
+ * in one sentence each for the views; NULL when there is none. */
+char *sw_staging_dup_unrecovered_note (const SwStaging *staging);
+
 /* What the recovered columns recover, in words for the views ("first stage
  * lands downrange, boosters expended"; the boosters named only when the
  * design has some); translated, owned. */
