@@ -270,6 +270,25 @@ test_boosters_as_elements (void)
                        3.0 * unit * sw_cost_learning_total (0.9, 10));
   }
 
+  /* Boosters marked developed (economics "developed_boosters"): neither
+   * the booster element nor its engine costs development, the systems
+   * factor still counts the set, and production is unchanged (the hand
+   * figures above less 9,629.137 and 8,491.738 before f0). */
+  {
+    SwCost dev;
+
+    v.booster_count = 4;
+    d->economics.developed_boosters = TRUE;
+    sw_cost_compute (d, &v, &dev);
+    d->economics.developed_boosters = FALSE;
+    g_assert_cmpfloat (dev.booster_development_work_years, ==, 0.0);
+    g_assert_cmpfloat (dev.engines[dev.booster_engine].development_work_years, ==, 0.0);
+    g_assert_cmpfloat_with_epsilon (dev.systems_factor, 1.04 * 1.04 * 1.04, 1e-12);
+    g_assert_cmpfloat_with_epsilon (dev.development_work_years,
+                                    66301.54 - 1.04 * 1.04 * 1.04 * (9629.137 + 8491.738), 0.01);
+    g_assert_cmpfloat_with_epsilon (dev.production_work_years, four.production_work_years, 1e-9);
+  }
+
   /* Without boosters: two elements fewer and f0 = 1.04^2. */
   v.booster_count = 0;
   sw_cost_compute (d, &v, &none);

@@ -4,6 +4,7 @@
 #include "config.h"
 
 #include "sw-design.h"
+#include "sw-design-fields.h"
 #include "sw-economics.h"
 
 #include <math.h>
@@ -23,7 +24,7 @@ static const char *full_json = HEAD ",\n"
   "    \"engine_types\": [ { \"name\": \"Lower\", \"dry_mass_kg\": 1100, \"on_stages\": [0] },\n"
   "                        { \"name\": \"Upper\", \"dry_mass_kg\": 400, \"on_stages\": [1, 2],\n"
   "                          \"developed\": true } ],\n"
-  "    \"developed_stages\": [2], \"engine_mass_fraction\": 0.3,\n"
+  "    \"developed_stages\": [2], \"developed_boosters\": true, \"engine_mass_fraction\": 0.3,\n"
   "    \"recovery\": { \"mode\": \"launch_site\", \"recovery_delta_v_m_s\": 2500,\n"
   "                  \"landing_hardware_fraction\": 0.12, \"refurbishment_fraction\": 0.05,\n"
   "                  \"flights_per_stage\": 15 },\n"
@@ -89,6 +90,7 @@ test_load_and_round_trip (void)
   g_assert_cmpint (sw_economics_engine_type_of_stage (e, 0), ==, 0);
   g_assert_cmpint (sw_economics_engine_type_of_stage (e, 2), ==, 1);
   g_assert_cmpuint (e->developed_stages, ==, 0x4);
+  g_assert_true (e->developed_boosters);
   g_assert_cmpint (e->recovery_mode, ==, SW_RECOVERY_LAUNCH_SITE);
   g_assert_cmpfloat (sw_economics_recovery_delta_v (e), ==, 2500.0);
   g_assert_cmpuint (e->flights_per_stage, ==, 15);
@@ -136,6 +138,8 @@ test_errors (void)
   expect_error ("{ \"engine_types\": [ { \"dry_mass_kg\": 100, \"on_stages\": [0] },"
                 " { \"dry_mass_kg\": 50, \"on_stages\": [1, 0] } ] }",
                 "economics.engine_types[1].on_stages: a stage already uses another engine type");
+  expect_error ("{ \"developed_boosters\": 1 }",
+                "economics.developed_boosters: expected true or false, found a number");
   expect_error ("{ \"developed_stages\": [\"first\"] }",
                 "economics.developed_stages[0]: expected a stage index, found a string");
   expect_error ("{ \"recovery\": { \"mode\": \"parachute\" } }",
@@ -200,6 +204,33 @@ test_named_edits (void)
     }
   sw_economics_set_recovery_mode (&d->economics, SW_RECOVERY_LAUNCH_SITE);
   g_assert_cmpint (d->economics.recovery_mode, ==, SW_RECOVERY_LAUNCH_SITE);
+
+  /* The boosters already developed: refused without boosters, then set,
+   * saved and read back; false leaves the key out. */
+  {
+    g_autoptr (SwDesign) back = NULL;
+    g_autofree char *data = NULL, *plain = NULL;
+    gsize len;
+
+    g_assert_false (sw_design_set_boosters_developed (d, TRUE, &error));
+    g_assert_nonnull (error);
+    g_assert_nonnull (strstr (error->message, "economics.developed_boosters"));
+    g_clear_error (&error);
+    g_assert_false (d->economics.developed_boosters);
+    plain = sw_design_to_data (d, &len);
+    g_assert_null (strstr (plain, "developed_boosters"));
+    g_assert_true (sw_design_field_set (d, SW_FIELD_THRUST_VAC, 0, 2000.0, NULL));
+    g_assert_true (sw_design_field_set (d, SW_FIELD_BOOSTER_COUNT, 0, 2.0, NULL));
+    g_assert_true (sw_design_set_boosters_developed (d, TRUE, &error));
+    g_assert_no_error (error);
+    data = sw_design_to_data (d, &len);
+    g_assert_nonnull (strstr (data, "\"developed_boosters\" : true"));
+    back = load (data, NULL, &error);
+    g_assert_no_error (error);
+    g_assert_true (back->economics.developed_boosters);
+    g_assert_true (sw_design_set_boosters_developed (d, FALSE, NULL));
+    g_assert_false (d->economics.developed_boosters);
+  }
 
   /* The boosters' recovery mode: its own named edit, saved and read back;
    * expendable boosters leave the key out of the file. */

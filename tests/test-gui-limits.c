@@ -831,6 +831,8 @@ text_key_widget (SwWindow *w, const char *path)
     return sw_engine_types_editor_get_widget (engines, 0, SW_ENGINE_TYPE_DEVELOPED);
   if (g_strcmp0 (path, "economics.engine_types[].on_stages[]") == 0)
     return sw_engine_types_editor_get_stage_check (engines, 0, 0);
+  if (g_strcmp0 (path, "economics.developed_boosters") == 0)
+    return sw_engine_types_editor_get_boosters_developed (engines);
   if (g_strcmp0 (path, "economics.developed_stages[]") == 0)
     return sw_engine_types_editor_get_developed_stage (engines, 0);
   return NULL;
@@ -865,6 +867,7 @@ test_every_text_and_list_key_has_a_widget (void)
   g_assert_true (sw_design_set_booster_crossfeed (d, TRUE, NULL));
   g_assert_true (sw_design_set_booster_propellant (d, SW_PROPELLANT_CUSTOM, NULL));
   g_assert_true (sw_design_set_booster_propellant_name (d, "Booster mix", NULL));
+  g_assert_true (sw_design_set_boosters_developed (d, TRUE, NULL));
   g_assert_true (sw_design_set_spread (d, 0, SW_SPREAD_NORMAL, 1.0, NULL));
   g_assert_true (sw_design_set_spread (d, 1, SW_SPREAD_UNIFORM, 5.0, NULL));
   g_assert_true (sw_design_set_spread (d, 2, SW_SPREAD_NORMAL, 100.0, NULL));
@@ -880,6 +883,7 @@ test_every_text_and_list_key_has_a_widget (void)
   g_assert_true (g_hash_table_contains (leaves, "economics.engine_types[].on_stages[]"));
   g_assert_true (g_hash_table_contains (leaves, "stages[].propellant.name"));
   g_assert_true (g_hash_table_contains (leaves, "boosters.propellant.name"));
+  g_assert_true (g_hash_table_contains (leaves, "economics.developed_boosters"));
   g_assert_true (g_hash_table_contains (leaves, "uncertainty.losses.distribution"));
   g_assert_true (g_hash_table_contains (leaves, "economics.currency"));
 

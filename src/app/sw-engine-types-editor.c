@@ -31,6 +31,7 @@ struct _SwEngineTypesEditor {
   GtkWidget  *removes[MAX_TYPES];
   GtkWidget  *on_stage[MAX_TYPES][SW_MAX_STAGES];
   GtkWidget  *stage_developed[SW_MAX_STAGES];
+  GtkWidget  *boosters_developed;  /* shown when the design has boosters */
 };
 
 G_DEFINE_FINAL_TYPE (SwEngineTypesEditor, sw_engine_types_editor, GTK_TYPE_WIDGET)
@@ -238,6 +239,20 @@ stage_developed_toggled_cb (GtkCheckButton *check, SwEngineTypesEditor *self)
   d = sw_document_dup_design (self->document);
   done = sw_design_set_stage_developed (d, index_of (GTK_WIDGET (check), "sw-stage"),
                                         gtk_check_button_get_active (check), &error);
+  finish_toggle (self, check, d, done, error);
+}
+
+static void
+boosters_developed_toggled_cb (GtkCheckButton *check, SwEngineTypesEditor *self)
+{
+  g_autoptr (GError) error = NULL;
+  SwDesign *d;
+  gboolean done;
+
+  if (!editing_ok (self))
+    return;
+  d = sw_document_dup_design (self->document);
+  done = sw_design_set_boosters_developed (d, gtk_check_button_get_active (check), &error);
   finish_toggle (self, check, d, done, error);
 }
 
@@ -472,6 +487,9 @@ show_design (SwEngineTypesEditor *self, const SwDesign *d)
       for (guint i = 0; i < e->n_engine_types && i < MAX_TYPES; i++)
         gtk_widget_set_tooltip_text (self->on_stage[i][s], tip);
     }
+  gtk_widget_set_visible (self->boosters_developed, d->boosters.count > 0);
+  gtk_check_button_set_active (GTK_CHECK_BUTTON (self->boosters_developed),
+                               e->developed_boosters);
   gtk_widget_set_sensitive (self->add_button, e->n_engine_types < MAX_TYPES);
   self->updating--;
 }
@@ -537,6 +555,13 @@ sw_engine_types_editor_get_developed_stage (SwEngineTypesEditor *self, guint sta
 }
 
 GtkWidget *
+sw_engine_types_editor_get_boosters_developed (SwEngineTypesEditor *self)
+{
+  g_return_val_if_fail (SW_IS_ENGINE_TYPES_EDITOR (self), NULL);
+  return self->boosters_developed;
+}
+
+GtkWidget *
 sw_engine_types_editor_get_add_button (SwEngineTypesEditor *self)
 {
   g_return_val_if_fail (SW_IS_ENGINE_TYPES_EDITOR (self), NULL);
@@ -589,6 +614,12 @@ sw_engine_types_editor_init (SwEngineTypesEditor *self)
   gtk_widget_set_halign (self->add_button, GTK_ALIGN_START);
   g_signal_connect (self->add_button, "clicked", G_CALLBACK (add_clicked_cb), self);
   gtk_box_append (GTK_BOX (self->box), self->add_button);
+  self->boosters_developed = gtk_check_button_new_with_label (
+    _("Boosters and their engine already developed (no development effort)"));
+  gtk_widget_set_visible (self->boosters_developed, FALSE);
+  g_signal_connect (self->boosters_developed, "toggled",
+                    G_CALLBACK (boosters_developed_toggled_cb), self);
+  gtk_box_append (GTK_BOX (self->box), self->boosters_developed);
   self->message = gtk_label_new (NULL);
   gtk_label_set_wrap (GTK_LABEL (self->message), TRUE);
   gtk_label_set_xalign (GTK_LABEL (self->message), 0.0);

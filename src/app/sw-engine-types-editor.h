@@ -35,6 +35,8 @@ GtkWidget *sw_engine_types_editor_get_stage_check (SwEngineTypesEditor *self, gu
                                                    guint stage);
 /* GtkCheckButton: stage @stage already developed. */
 GtkWidget *sw_engine_types_editor_get_developed_stage (SwEngineTypesEditor *self, guint stage);
+/* The check box of "developed_boosters" (hidden without boosters). */
+GtkWidget *sw_engine_types_editor_get_boosters_developed (SwEngineTypesEditor *self);
 GtkWidget *sw_engine_types_editor_get_add_button (SwEngineTypesEditor *self);
 /* GtkLabel: the last refusal, hidden when there is none. */
 GtkWidget *sw_engine_types_editor_get_message (SwEngineTypesEditor *self);

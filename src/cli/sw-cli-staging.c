@@ -98,6 +98,7 @@ economics_node (const SwEconomics *e)
     if (e->developed_stages & (1u << k))
       json_array_add_int_element (developed, k);
   json_object_set_array_member (root, "developed_stages", developed);
+  json_object_set_boolean_member (root, "developed_boosters", e->developed_boosters);
   {
     JsonNode *node = json_node_new (JSON_NODE_OBJECT);
     json_node_set_object (node, root);

@@ -1203,6 +1203,22 @@ sw_design_set_engine_type_developed (SwDesign *design, guint index, gboolean dev
 }
 
 gboolean
+sw_design_set_boosters_developed (SwDesign *design, gboolean developed, GError **error)
+{
+  g_return_val_if_fail (design != NULL, FALSE);
+  if (design->boosters.count == 0)
+    {
+      g_set_error (error, SW_ERROR, SW_ERROR_MISSING,
+                   _("economics.developed_boosters: the design has no boosters; set "
+                     "boosters.count first"));
+      return FALSE;
+    }
+  design->economics.developed_boosters = developed;
+  design->economics.present = TRUE;
+  return TRUE;
+}
+
+gboolean
 sw_design_set_stage_developed (SwDesign *design, guint stage, gboolean developed,
                                GError **error)
 {

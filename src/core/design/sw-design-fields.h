@@ -169,6 +169,10 @@ gboolean  sw_design_set_engine_type_on_stage (SwDesign *design, guint index, gui
 gboolean  sw_design_set_engine_type_developed (SwDesign *design, guint index,
                                                gboolean developed, GError **error);
 /* "economics.developed_stages": stage @stage already developed or not. */
+/* "economics.developed_boosters": the boosters and their engine already
+ * developed (refused without boosters). */
+gboolean  sw_design_set_boosters_developed (SwDesign *design, gboolean developed,
+                                            GError **error);
 gboolean  sw_design_set_stage_developed (SwDesign *design, guint stage, gboolean developed,
                                          GError **error);
 

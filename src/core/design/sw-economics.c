@@ -15,7 +15,7 @@ const char *const sw_economics_design_keys[] = { "economics", NULL };
 
 static const char *const economics_keys[] = {
   "work_year_cost", "currency", "production_run", "learning_rate", "cost_coefficients", "engine_types",
-  "developed_stages", "engine_mass_fraction", "recovery", "decision_weights", NULL
+  "developed_stages", "developed_boosters", "engine_mass_fraction", "recovery", "decision_weights", NULL
 };
 static const char *const engine_keys[] = { "name", "dry_mass_kg", "on_stages", "developed", NULL };
 static const char *const recovery_keys[] = {
@@ -214,6 +214,28 @@ load_stage_list (JsonObject *obj, const char *key, const char *file, const char 
   return TRUE;
 }
 
+/* The optional true-or-false @key of @obj at @path into @out (left as it
+ * is when the key is absent). */
+static gboolean
+load_bool (JsonObject *obj, const char *key, const char *file, const char *path,
+           gboolean *out, GError **error)
+{
+  JsonNode *node = json_object_get_member (obj, key);
+
+  if (node == NULL)
+    return TRUE;
+  if (json_node_get_node_type (node) != JSON_NODE_VALUE
+      || json_node_get_value_type (node) != G_TYPE_BOOLEAN)
+    {
+      g_autofree char *p = sw_optional_path (path, key);
+      sw_optional_set_error (error, SW_ERROR_TYPE, file, _("%s: expected true or false, found %s"),
+                             p, sw_optional_node_type_name (node));
+      return FALSE;
+    }
+  *out = json_node_get_boolean (node);
+  return TRUE;
+}
+
 static gboolean
 load_engine_types (JsonObject *obj, const char *file, const char *prefix, SwEconomics *econ,
                    GPtrArray *warnings, GError **error)
@@ -243,7 +265,6 @@ load_engine_types (JsonObject *obj, const char *file, const char *prefix, SwEcon
       JsonObject *eo;
       const char *name = NULL;
       gboolean has_mass = FALSE;
-      JsonNode *dev;
 
       if (json_node_get_node_type (e) != JSON_NODE_OBJECT)
         {
@@ -273,20 +294,8 @@ load_engine_types (JsonObject *obj, const char *file, const char *prefix, SwEcon
                                          &has_mass, error)
           || !load_stage_list (eo, "on_stages", file, ep, &t->stage_mask, error))
         return FALSE;
-      dev = json_object_get_member (eo, "developed");
-      if (dev != NULL)
-        {
-          if (json_node_get_node_type (dev) != JSON_NODE_VALUE
-              || json_node_get_value_type (dev) != G_TYPE_BOOLEAN)
-            {
-              g_autofree char *dp = sw_optional_path (ep, "developed");
-              sw_optional_set_error (error, SW_ERROR_TYPE, file,
-                                     _("%s: expected true or false, found %s"), dp,
-                                     sw_optional_node_type_name (dev));
-              return FALSE;
-            }
-          t->developed = json_node_get_boolean (dev);
-        }
+      if (!load_bool (eo, "developed", file, ep, &t->developed, error))
+        return FALSE;
     }
   econ->n_engine_types = n;
   return TRUE;
@@ -508,6 +517,7 @@ sw_economics_load_design (JsonObject *root, const char *file, const char *prefix
 
   return load_engine_types (obj, file, path, econ, warnings, error)
          && load_stage_list (obj, "developed_stages", file, path, &econ->developed_stages, error)
+         && load_bool (obj, "developed_boosters", file, path, &econ->developed_boosters, error)
          && load_recovery (obj, file, path, econ, warnings, error)
          && load_weights (obj, file, path, econ, warnings, error);
 }
@@ -572,6 +582,11 @@ sw_economics_save_design (JsonBuilder *b, const SwEconomics *econ)
     }
   if (econ->developed_stages != 0)
     add_stage_list (b, "developed_stages", econ->developed_stages);
+  if (econ->developed_boosters)
+    {
+      json_builder_set_member_name (b, "developed_boosters");
+      json_builder_add_boolean_value (b, TRUE);
+    }
   sw_optional_add_number (b, "engine_mass_fraction", econ->engine_mass_fraction);
   json_builder_set_member_name (b, "recovery");
   json_builder_begin_object (b);

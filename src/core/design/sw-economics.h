@@ -10,7 +10,7 @@
  *     "cost_coefficients": { "stage_development_factor": 100, ... },
  *     "engine_types": [ { "name": "E1", "dry_mass_kg": 1200,
  *                         "on_stages": [0, 1], "developed": false } ],
- *     "developed_stages": [ 2 ],
+ *     "developed_stages": [ 2 ], "developed_boosters": false,
  *     "engine_mass_fraction": 0.25,
  *     "recovery": { "mode": "downrange", "recovery_delta_v_m_s": 950,
  *                   "landing_hardware_fraction": 0.1,
@@ -91,6 +91,8 @@ typedef struct {
   guint    n_engine_types;
   SwEngineType engine_types[SW_ECONOMICS_MAX_ENGINE_TYPES];
   guint32  developed_stages;      /* bit i: stage i already developed */
+  gboolean developed_boosters;    /* the strap-on boosters (and their engine) already
+                                   * developed; no effect without boosters */
   double   engine_mass_fraction;  /* engines' share of a stage's dry mass, no engine type */
   SwRecoveryMode recovery_mode;
   gboolean has_recovery_delta_v;

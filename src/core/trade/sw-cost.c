@@ -165,7 +165,8 @@ sw_cost_compute (const SwDesign *design, const SwCostVehicle *vehicle, SwCost *o
     }
 
   /* The boosters: one booster element and its own engine, each developed
-   * once and built count times per vehicle. */
+   * once (or not at all when the design marks them developed) and built
+   * count times per vehicle. */
   if (out->booster_count > 0)
     {
       double dry = MAX (vehicle->booster_dry_mass_kg, 0.0);
@@ -174,7 +175,7 @@ sw_cost_compute (const SwDesign *design, const SwCostVehicle *vehicle, SwCost *o
       out->booster_engine = (int) out->n_engines++;
       g_strlcpy (en->name, _("Engine of the boosters"), sizeof en->name);
       en->dry_mass_kg = e->engine_mass_fraction * dry;
-      en->developed = FALSE;
+      en->developed = e->developed_boosters;
       en->used = TRUE;
       en->per_vehicle = out->booster_count;
       /* Recovered: each booster flies flights_per_stage times. */
@@ -185,8 +186,10 @@ sw_cost_compute (const SwDesign *design, const SwCostVehicle *vehicle, SwCost *o
       engine_units[out->booster_engine] = out->booster_units;
       out->booster_mass_kg = MAX (dry - en->dry_mass_kg, 0.0);
       out->booster_development_work_years
-        = sw_cost_development (c[SW_CER_STAGE_DEV_FACTOR], c[SW_CER_STAGE_DEV_EXPONENT],
-                               out->booster_mass_kg);
+        = e->developed_boosters ? 0.0
+                                : sw_cost_development (c[SW_CER_STAGE_DEV_FACTOR],
+                                                       c[SW_CER_STAGE_DEV_EXPONENT],
+                                                       out->booster_mass_kg);
       out->booster_first_unit_work_years
         = sw_cost_first_unit (c[SW_CER_STAGE_UNIT_FACTOR], c[SW_CER_STAGE_UNIT_EXPONENT],
                               out->booster_mass_kg);

@@ -20,9 +20,10 @@
  * carries.  The booster element is one booster's dry mass less its engine,
  * costed with the stage relationships (a M^x, b M^y); the booster's engine
  * is an engine of its own, of engine_mass_fraction of the booster's dry
- * mass (as for a stage without an engine type; the economics keys give the
- * boosters no engine type and no "developed" mark, so both are always
- * developed), costed with the engine relationships.  Each is built count
+ * mass (as for a stage without an engine type: the economics keys give the
+ * boosters no engine type), costed with the engine relationships.  The
+ * economics key "developed_boosters" marks both already developed (no
+ * development effort, still produced).  Each is built count
  * times per vehicle, so its learning curve runs over count x production-run
  * units.  The systems factor counts the booster set as one more element:
  * f0 = base^(N + 1) (the published model's N counts the vehicle's major

@@ -485,25 +485,39 @@ char *
 sw_staging_dup_unrecovered_note (const SwStaging *staging)
 {
   GString *s = NULL;
+  gboolean done[SW_STAGING_MAX_ROWS] = { FALSE };
 
   g_return_val_if_fail (staging != NULL, NULL);
-  for (guint i = 0; i < staging->n_rows; i++)
+  /* One sentence per arrangement and reason, naming its stage counts. */
+  for (guint i = 0; i < staging->n_rows && i < SW_STAGING_MAX_ROWS; i++)
     {
       const SwStagingRow *r = &staging->rows[i];
+      g_autoptr (GString) counts = NULL;
 
-      if (!r->feasible || r->reused_feasible || r->reused_reason[0] == '\0')
+      if (done[i] || !r->feasible || r->reused_feasible || r->reused_reason[0] == '\0')
         continue;
+      counts = g_string_new (NULL);
+      for (guint j = i; j < staging->n_rows && j < SW_STAGING_MAX_ROWS; j++)
+        {
+          const SwStagingRow *o = &staging->rows[j];
+          if (o->feasible && !o->reused_feasible && o->arrangement == r->arrangement
+              && strcmp (o->reused_reason, r->reused_reason) == 0)
+            {
+              g_string_append_printf (counts, "%s%u", counts->len > 0 ? ", " : "", o->n_stages);
+              done[j] = TRUE;
+            }
+        }
       if (s == NULL)
         s = g_string_new (NULL);
       else
         g_string_append_c (s, ' ');
       g_string_append_printf (s,
                               r->arrangement == SW_ARRANGEMENT_BOOSTERS
-                                /* Translators: a stage count, then why */
-                                ? _("No recovered figures for %u stages with boosters: %s.")
-                                /* Translators: a stage count, then why */
-                                : _("No recovered figures for %u serial stages: %s."),
-                              r->n_stages, r->reused_reason);
+                                /* Translators: stage counts ("4, 5"), then why */
+                                ? _("No recovered figures for %s stages with boosters: %s.")
+                                /* Translators: stage counts ("4, 5"), then why */
+                                : _("No recovered figures for %s serial stages: %s."),
+                              counts->str, r->reused_reason);
     }
   return s != NULL ? g_string_free (s, FALSE) : NULL;
 }
