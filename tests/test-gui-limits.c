@@ -677,6 +677,10 @@ test_every_key_has_a_field (void)
           found = sw_engine_types_editor_get_stage_check (engines, 0, 0);
           g_assert_nonnull (sw_engine_types_editor_get_developed_stage (engines, 0));
           break;
+        case SW_LIMIT_PROPELLANT_NAME_LENGTH:
+          found = widget (w, SW_INSPECTOR_PROPELLANT_NAME);
+          g_assert_nonnull (widget (w, SW_INSPECTOR_BOOSTER_PROPELLANT_NAME));
+          break;
         case SW_LIMIT_CURRENCY_LENGTH:
           found = sw_staging_page_get_carpet_control (sw_window_get_staging_page (w),
                                                       SW_CARPET_CONTROL_CURRENCY, 0);

@@ -4,6 +4,7 @@
 
 #include "sw-design.h"
 #include "sw-limits.h"
+#include "sw-propellant.h"
 
 #include <math.h>
 #include <stdlib.h>
@@ -50,6 +51,9 @@ test_table_complete (void)
   for (guint k = 0; k < G_N_ELEMENTS (format_keys); k++)
     if (limit_by_key (format_keys[k]) == NULL)
       g_error ("no limit for the format's key %s", format_keys[k]);
+  /* The propellant name's limit fits the buffer the design keeps it in. */
+  g_assert_cmpfloat (sw_limit_get (SW_LIMIT_PROPELLANT_NAME_LENGTH)->max, ==,
+                     SW_PROPELLANT_NAME_MAX - 1);
 }
 
 /* The ranges hold what the trade uses and exclude what physics forbids. */

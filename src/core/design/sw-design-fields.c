@@ -1001,13 +1001,13 @@ set_own_propellant_name (SwStagePropellant *prop, const char *path, const char *
                    _("%s: only a propellant of your own has a name to edit"), path);
       return FALSE;
     }
-  if (!check_text (path, name, SW_PROPELLANT_NAME_MAX - 1, error))
+  if (!check_text (path, name, sw_limit_get (SW_LIMIT_PROPELLANT_NAME_LENGTH)->max, error))
     return FALSE;
   if (is_blank (name))
     {
       g_set_error (error, SW_ERROR, SW_ERROR_RANGE,
                    _("%s: a propellant's name takes 1 to %d bytes"), path,
-                   SW_PROPELLANT_NAME_MAX - 1);
+                   (int) sw_limit_get (SW_LIMIT_PROPELLANT_NAME_LENGTH)->max);
       return FALSE;
     }
   memset (prop->custom_name, 0, sizeof prop->custom_name);

@@ -143,6 +143,8 @@ static const SwLimit limits[SW_N_LIMITS] = {
     "tank volume beyond the propellant's, as a fraction of it; 0.02 to 0.05 is common practice" },
   [SW_LIMIT_COMPONENT_DENSITY] = { "oxidizer_density_kg_m3", "kg/m^3", 10.0, 5000.0, FALSE,
     "density of a propellant component (also fuel_density_kg_m3); liquid hydrogen is about 71, N2O4 about 1441" },
+  [SW_LIMIT_PROPELLANT_NAME_LENGTH] = { "propellant.name", "bytes", 1.0, 63.0,
+    FALSE, "the name of a propellant of the user's own: a label for the tables and the sheet" },
   [SW_LIMIT_BOOSTER_COUNT] = { "count", "", 0.0, 12.0, FALSE,
     "whole number of strap-on boosters; 0 is no boosters; more than 12 around one core is not a concept we size" },
 };
@@ -237,6 +239,7 @@ static const char *const limit_fields[SW_N_LIMITS] = {
   [SW_LIMIT_MIXTURE_RATIO] = "`stages[].mixture_ratio`, `stages[].propellant.mixture_ratio`, `boosters.mixture_ratio`",
   [SW_LIMIT_ULLAGE] = "`stages[].ullage_fraction`, `boosters.ullage_fraction`",
   [SW_LIMIT_COMPONENT_DENSITY] = "`stages[].propellant.oxidizer_density_kg_m3`, `stages[].propellant.fuel_density_kg_m3` (and the same under `boosters.propellant`)",
+  [SW_LIMIT_PROPELLANT_NAME_LENGTH] = "`stages[].propellant.name`, `boosters.propellant.name`",
   [SW_LIMIT_BOOSTER_COUNT] = "`boosters.count`",
 };
 

@@ -80,6 +80,7 @@ typedef enum {
   SW_LIMIT_MIXTURE_RATIO,
   SW_LIMIT_ULLAGE,
   SW_LIMIT_COMPONENT_DENSITY,
+  SW_LIMIT_PROPELLANT_NAME_LENGTH,
   /* strap-on boosters (design level, format version 2) */
   SW_LIMIT_BOOSTER_COUNT,
   SW_N_LIMITS

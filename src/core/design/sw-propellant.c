@@ -80,11 +80,11 @@ load_custom (JsonObject *obj, const char *file, const char *path, SwStagePropell
       }
   if (!sw_optional_read_string_full (obj, "name", file, path, TRUE, &name, error))
     return FALSE;
-  if (strlen (name) >= SW_PROPELLANT_NAME_MAX || name[0] == '\0')
+  if (!sw_limit_contains (SW_LIMIT_PROPELLANT_NAME_LENGTH, (double) strlen (name)))
     {
       sw_optional_set_error (error, SW_ERROR_RANGE, file,
                              _("%s: a propellant's name takes 1 to %d bytes"), name_path,
-                             SW_PROPELLANT_NAME_MAX - 1);
+                             (int) sw_limit_get (SW_LIMIT_PROPELLANT_NAME_LENGTH)->max);
       return FALSE;
     }
   g_strlcpy (prop->custom_name, name, sizeof prop->custom_name);
@@ -180,7 +180,7 @@ sw_propellant_validate_stage (const SwStagePropellant *prop, const char *file,
     {
       sw_optional_set_error (error, SW_ERROR_RANGE, file,
                              _("%s.name: a propellant's name takes 1 to %d bytes"), ppath,
-                             SW_PROPELLANT_NAME_MAX - 1);
+                             (int) sw_limit_get (SW_LIMIT_PROPELLANT_NAME_LENGTH)->max);
       return FALSE;
     }
   if (prop->has_mixture_ratio && prop->kind == SW_PROPELLANT_SOLID_COMPOSITE)
