@@ -9,6 +9,7 @@
 #include "sw-curves.h"
 #include "sw-design.h"
 #include "sw-fixed-vehicle.h"
+#include "sw-format.h"
 #include "sw-reliability.h"
 #include "sw-staging.h"
 
@@ -105,6 +106,18 @@ test_columns (void)
         g_assert_cmpfloat_with_epsilon (row->payload_fixed_size_kg / payload, 1.0, 1e-6);
       }
     }
+  /* The window's sentence on this design's payload penalty: the row's own
+   * figure, formatted. */
+  {
+    g_autofree char *note = sw_staging_dup_penalty_note (&s);
+    g_autofree char *pct = sw_format_percent (s.rows[s.design_index].payload_penalty_fraction, 1);
+
+    g_assert_cmpint (s.design_index, ==, 1);
+    g_assert_true (s.rows[1].payload_penalty_fraction > 0.0);
+    g_assert_nonnull (note);
+    g_assert_nonnull (strstr (note, pct));
+    g_assert_nonnull (strstr (note, "less payload"));
+  }
   /* One stage does not reach 9.3 km/s with eps 0.06 and 310 s (c ln(1/eps)
    * = 8553 m/s); two and more do. */
   g_assert_false (s.rows[0].feasible);

@@ -198,7 +198,8 @@ job_done_cb (GObject *source, GAsyncResult *res, gpointer data)
           const SwStaging *st = &self->shown->staging;
           g_autoptr (GString) notes = g_string_new (NULL);
           g_autofree char *unrecovered = sw_staging_dup_unrecovered_note (st);
-          const char *parts[] = { st->boosters_note, st->fixed_note, st->reuse_note,
+          g_autofree char *penalty = sw_staging_dup_penalty_note (st);
+          const char *parts[] = { penalty, st->boosters_note, st->fixed_note, st->reuse_note,
                                   st->losses_note, unrecovered };
 
           for (guint k = 0; k < G_N_ELEMENTS (parts); k++)

@@ -521,3 +521,24 @@ sw_staging_dup_unrecovered_note (const SwStaging *staging)
     }
   return s != NULL ? g_string_free (s, FALSE) : NULL;
 }
+
+char *
+sw_staging_dup_penalty_note (const SwStaging *staging)
+{
+  const SwStagingRow *own;
+  g_autofree char *words = NULL;
+  g_autofree char *pct = NULL;
+
+  g_return_val_if_fail (staging != NULL, NULL);
+  if (staging->design_index < 0)
+    return NULL;
+  own = &staging->rows[staging->design_index];
+  if (!own->feasible || !own->reused_feasible || !isfinite (own->payload_penalty_fraction))
+    return NULL;
+  words = sw_staging_dup_recovery_words (staging);
+  pct = sw_format_percent (own->payload_penalty_fraction, 1);
+  /* Translators: how the stages are recovered, then a percentage */
+  return g_strdup_printf (_("Recovered (%s), this design's vehicle carries %s less payload at "
+                            "the same liftoff mass."),
+                          words, pct);
+}

@@ -144,6 +144,11 @@ const SwStagingRow *sw_staging_row (const SwStaging *staging, SwArrangement arra
  * in one sentence each for the views; NULL when there is none. */
 char *sw_staging_dup_unrecovered_note (const SwStaging *staging);
 
+/* This design's payload penalty of recovery, in one sentence for the views
+ * ("Recovered (first stage lands downrange), this design's vehicle carries
+ * 10.9 % less payload at the same liftoff mass."); NULL without a figure. */
+char *sw_staging_dup_penalty_note (const SwStaging *staging);
+
 /* What the recovered columns recover, in words for the views ("first stage
  * lands downrange, boosters expended"; the boosters named only when the
  * design has some); translated, owned. */
