@@ -147,6 +147,26 @@ check_fixed_hand (gboolean crossfeed)
   assert_rel (phases[1].duration_s, (p1 - q) / mdot1, 1e-12);
   assert_rel (phases[2].delta_v_m_s, dv2, 1e-9);
   assert_rel (phases[3].delta_v_m_s, dv3, 1e-9);
+  /* The stages' limit with no payload: the same formulas with the payload
+   * taken off (every load fixed, so each stage gives its own loads' delta-v,
+   * not c ln(1/eps)); the headroom is that less the requirement, and what
+   * the vehicle gives with its payload is the total above. */
+  {
+    double e_up2 = p3 + s3, e_up = e_up2 + p2 + s2;
+    double e0 = e_up + p1 + s1 + 2 * (pb + sb);
+    double e1 = e0 - 2 * pb - q - 2 * sb;
+    double l3 = c3 * log (e_up2 / s3);          /* = c3 ln(1/eps3): nothing above it */
+    double l2 = c2 * log (e_up / (e_up - p2));
+    double l1 = c_mix * log (e0 / (e0 - 2 * pb - q)) + c1 * log (e1 / (e1 - (p1 - q)));
+
+    assert_rel (l3, c3 * log (1.0 / 0.12), 1e-12);
+    assert_rel (sz.stages[2].delta_v_limit_m_s, l3, 1e-9);
+    assert_rel (sz.stages[1].delta_v_limit_m_s, l2, 1e-9);
+    assert_rel (sz.stages[0].delta_v_limit_m_s, l1, 1e-12);
+    assert_rel (sz.delta_v_limit_m_s, l1 + l2 + l3, 1e-9);
+    assert_rel (sz.margin_m_s, l1 + l2 + l3 - d->mission.delta_v_m_s, 1e-9);
+    assert_rel (sz.delta_v_given_m_s, total, 1e-9);
+  }
   /* The vehicle does not reach 20 m/s more than it gives: an answer with a reason. */
   d->mission.delta_v_m_s = ceil (total) + 20.0;
   g_assert_true (sw_size_design (d, &sz, NULL));
