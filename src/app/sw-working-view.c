@@ -549,9 +549,13 @@ build_text (SwWorkingView *self, gboolean for_copy)
               g_autofree char *mf = KG (sz->fairing.mass_kg);
               g_autofree char *phi = sw_format_percent (sz->fairing.fraction, 0);
 
-              /* Translators: the fairing's mass, and the share of this stage's
-               * propellant burnt before it drops */
-              formula (s, _("the fairing m_f = %s kg drops after %s of m_p"), mf, phi);
+              if (sz->fairing.fraction > 0.0)
+                /* Translators: the fairing's mass, and the share of this stage's
+                 * propellant burnt before it drops */
+                formula (s, _("the fairing m_f = %s kg drops after φ = %s of m_p"), mf, phi);
+              else
+                /* Translators: the fairing's mass */
+                formula (s, _("the fairing m_f = %s kg drops at ignition (φ = 0)"), mf);
               formula (s, "m0 = m_above + m_p + m_s + m_f = %s kg", m0);
               formula (s, "m_b = m_above + m_s = %s kg", mb);
               head (s, _("Stage delta-v (rocket equation on the load, in two parts\n"
@@ -576,7 +580,7 @@ build_text (SwWorkingView *self, gboolean for_copy)
         g_autofree char *limit = MS (sr->delta_v_limit_m_s);
         head (s, _("Stage limit with no payload"));
         formula (s, _("the rocket equation on its load with only the fixed\n"
-                      "  stages and the fairing above it = %s m/s"), limit);
+                      "  stages above it (and the fairing while on) = %s m/s"), limit);
       }
       g_string_append_c (s, '\n');
       if (!sz->feasible)
