@@ -426,6 +426,28 @@ test_fixed_core_sized_boosters (void)
     }
   g_test_message ("fixed core: optimum %.3f kg (boosters %.1f kg each), scan %.3f kg at %.1f kg",
                   sz.liftoff_mass_kg, sz.boosters.propellant_mass_kg, best, best_pb);
+  /* The core's delta-v limit with no payload is the most the fixed core and
+   * sized boosters give with nothing above (the sized upper stages empty):
+   * against a brute-force scan of the booster load (the core must outlast
+   * the boosters, so the scan stops where no vehicle exists); the upper
+   * stages add their c ln(1/eps). */
+  {
+    double most = -HUGE_VAL;
+    for (guint i = 1; i <= 4000; i++)
+      {
+        double dv, pb = 200000.0 * i / 4000;
+        double m = sw_parallel_liftoff_mass (&v, 1e-9, pb, 90000.0, 1e-9, &dv);
+        if (isfinite (m))
+          most = MAX (most, dv - 1e-9);
+      }
+    g_test_message ("core limit %.3f m/s, scan %.3f m/s", sz.stages[0].delta_v_limit_m_s, most);
+    g_assert_cmpfloat (sz.stages[0].delta_v_limit_m_s, >=, most - 1e-6);
+    g_assert_cmpfloat (sz.stages[0].delta_v_limit_m_s, <=, most + 0.5);
+    assert_rel (sz.delta_v_limit_m_s, sz.stages[0].delta_v_limit_m_s
+                                      + 340.0 * SW_G0 * log (1.0 / 0.10)
+                                      + 350.0 * SW_G0 * log (1.0 / 0.12), 1e-12);
+    assert_rel (sz.margin_m_s, sz.delta_v_limit_m_s - 9500.0, 1e-12);
+  }
   g_assert_true (isfinite (best));
   g_assert_cmpfloat (sz.liftoff_mass_kg, <=, best * (1.0 + 1e-9));
   g_assert_cmpfloat (sz.liftoff_mass_kg, >=, best * (1.0 - 1e-3));
