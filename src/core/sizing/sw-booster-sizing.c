@@ -576,6 +576,15 @@ typedef struct {
   double m_up;
 } LimitCtx;
 
+static gboolean
+any_upper_fixed (const SwParallelVehicle *v)
+{
+  for (guint i = 1; i < v->set.n_stages; i++)
+    if (v->fixed_kg[i] > 0.0)
+      return TRUE;
+  return FALSE;
+}
+
 /* Minus the core group's delta-v with booster load @pb (no payload). */
 static double
 limit_minus_dv (double pb, void *data)
@@ -611,11 +620,26 @@ parallel_limit (const SwParallelVehicle *v, SwSplitMode split, double *core_limi
       SwSizing s;
 
       upper_set (v, &up, fixed);
-      sw_size_with_fixed (&up, fixed, 0.0, 0.0, split, &s);
-      upper = s.delta_v_limit_m_s;
-      if (stages != NULL)
-        for (guint i = 0; i < up.n_stages; i++)
-          stages[i + 1].delta_v_limit_m_s = s.stages[i].delta_v_limit_m_s;
+      if (upper_kind (v) == UPPER_SIZED && !any_upper_fixed (v))
+        {
+          /* Every upper stage sized: each its c ln(1/eps) (the serial
+           * sizing's figure, without a solve on every call). */
+          for (guint i = 0; i < up.n_stages; i++)
+            {
+              double l = up.exhaust_velocity_m_s[i] * log (1.0 / up.structural_coefficient[i]);
+              upper += l;
+              if (stages != NULL)
+                stages[i + 1].delta_v_limit_m_s = l;
+            }
+        }
+      else
+        {
+          sw_size_with_fixed (&up, fixed, 0.0, 0.0, split, &s);
+          upper = s.delta_v_limit_m_s;
+          if (stages != NULL)
+            for (guint i = 0; i < up.n_stages; i++)
+              stages[i + 1].delta_v_limit_m_s = s.stages[i].delta_v_limit_m_s;
+        }
       for (guint i = 0; i < up.n_stages; i++)
         if (fixed[i] > 0.0)
           m_up0 += fixed[i] + structure_of (fixed[i], up.structural_coefficient[i]);
@@ -699,7 +723,7 @@ fill (const SwParallelVehicle *v, double payload, double d_up, double pb, double
         out->n_unused++;
     }
   r->exhaust_velocity_m_s = c1;
-  parallel_limit (v, split, &r->delta_v_limit_m_s, NULL);
+  /* r->delta_v_limit_m_s: set by sw_size_parallel () (parallel_limit ()). */
   r->delta_v_m_s = g.dv0 + g.dv1;
   r->propellant_mass_kg = p1;
   r->structural_mass_kg = g.s1;
