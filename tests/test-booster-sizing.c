@@ -147,6 +147,26 @@ check_fixed_hand (gboolean crossfeed)
   assert_rel (phases[1].duration_s, (p1 - q) / mdot1, 1e-12);
   assert_rel (phases[2].delta_v_m_s, dv2, 1e-9);
   assert_rel (phases[3].delta_v_m_s, dv3, 1e-9);
+  /* The stages' limit with no payload: the same formulas with the payload
+   * taken off (every load fixed, so each stage gives its own loads' delta-v,
+   * not c ln(1/eps)); the headroom is that less the requirement, and what
+   * the vehicle gives with its payload is the total above. */
+  {
+    double e_up2 = p3 + s3, e_up = e_up2 + p2 + s2;
+    double e0 = e_up + p1 + s1 + 2 * (pb + sb);
+    double e1 = e0 - 2 * pb - q - 2 * sb;
+    double l3 = c3 * log (e_up2 / s3);          /* = c3 ln(1/eps3): nothing above it */
+    double l2 = c2 * log (e_up / (e_up - p2));
+    double l1 = c_mix * log (e0 / (e0 - 2 * pb - q)) + c1 * log (e1 / (e1 - (p1 - q)));
+
+    assert_rel (l3, c3 * log (1.0 / 0.12), 1e-12);
+    assert_rel (sz.stages[2].delta_v_limit_m_s, l3, 1e-9);
+    assert_rel (sz.stages[1].delta_v_limit_m_s, l2, 1e-9);
+    assert_rel (sz.stages[0].delta_v_limit_m_s, l1, 1e-12);
+    assert_rel (sz.delta_v_limit_m_s, l1 + l2 + l3, 1e-9);
+    assert_rel (sz.margin_m_s, l1 + l2 + l3 - d->mission.delta_v_m_s, 1e-9);
+    assert_rel (sz.delta_v_given_m_s, total, 1e-9);
+  }
   /* The vehicle does not reach 20 m/s more than it gives: an answer with a reason. */
   d->mission.delta_v_m_s = ceil (total) + 20.0;
   g_assert_true (sw_size_design (d, &sz, NULL));
@@ -406,6 +426,28 @@ test_fixed_core_sized_boosters (void)
     }
   g_test_message ("fixed core: optimum %.3f kg (boosters %.1f kg each), scan %.3f kg at %.1f kg",
                   sz.liftoff_mass_kg, sz.boosters.propellant_mass_kg, best, best_pb);
+  /* The core's delta-v limit with no payload is the most the fixed core and
+   * sized boosters give with nothing above (the sized upper stages empty):
+   * against a brute-force scan of the booster load (the core must outlast
+   * the boosters, so the scan stops where no vehicle exists); the upper
+   * stages add their c ln(1/eps). */
+  {
+    double most = -HUGE_VAL;
+    for (guint i = 1; i <= 4000; i++)
+      {
+        double dv, pb = 200000.0 * i / 4000;
+        double m = sw_parallel_liftoff_mass (&v, 1e-9, pb, 90000.0, 1e-9, &dv);
+        if (isfinite (m))
+          most = MAX (most, dv - 1e-9);
+      }
+    g_test_message ("core limit %.3f m/s, scan %.3f m/s", sz.stages[0].delta_v_limit_m_s, most);
+    g_assert_cmpfloat (sz.stages[0].delta_v_limit_m_s, >=, most - 1e-6);
+    g_assert_cmpfloat (sz.stages[0].delta_v_limit_m_s, <=, most + 0.5);
+    assert_rel (sz.delta_v_limit_m_s, sz.stages[0].delta_v_limit_m_s
+                                      + 340.0 * SW_G0 * log (1.0 / 0.10)
+                                      + 350.0 * SW_G0 * log (1.0 / 0.12), 1e-12);
+    assert_rel (sz.margin_m_s, sz.delta_v_limit_m_s - 9500.0, 1e-12);
+  }
   g_assert_true (isfinite (best));
   g_assert_cmpfloat (sz.liftoff_mass_kg, <=, best * (1.0 + 1e-9));
   g_assert_cmpfloat (sz.liftoff_mass_kg, >=, best * (1.0 - 1e-3));

@@ -76,6 +76,33 @@ test_size_text (void)
   assert_line (out, "Headroom to the stages' delta-v limit (no payload): 10,469 m/s");
 }
 
+/* Every load fixed (sallowmere-as-built): the headroom is to the stages'
+ * limit with no payload, each stage on its own load.  By hand (rocket
+ * equation, g0 = 9.80665 m/s^2, structure = load eps/(1 - eps)): stage 2,
+ * nothing above it, 342 g0 ln(1/0.11) = 7,402.9 m/s; stage 1 carries stage 2
+ * (16,000 / 0.89 = 17,977.5 kg) and the 400 kg fairing, its structure
+ * 90,000 x 0.075 / 0.925 = 7,297.3 kg: 312 g0 ln(115,674.8 / 25,674.8) =
+ * 4,605.6 m/s; the limit 12,008.6 m/s less the required 9,722.2 m/s (ideal
+ * 7,342.2 + 2,380 allowance) = 2,286 m/s.  The notes of the trades name
+ * both fixed stages. */
+static void
+test_fixed_text (void)
+{
+  g_autofree char *path = demo ("sallowmere-as-built.stagewright");
+  const char *size[] = { "size", "--no-ascent", path, NULL };
+  const char *stages[] = { "stages", path, NULL };
+  const char *curve[] = { "curve", path, NULL };
+  g_autofree char *out = run_cli (size);
+  g_autofree char *st = run_cli (stages);
+  g_autofree char *cv = run_cli (curve);
+
+  assert_line (out, "Headroom to the stages' delta-v limit (no payload): 2,286 m/s");
+  g_assert_nonnull (strstr (st, "the fixed propellant loads of stages 1 (Sallowmere first "
+                                "stage) and 2 (Kestrune upper stage) are not applied"));
+  g_assert_nonnull (strstr (cv, "the fixed propellant loads of stages 1 (Sallowmere first "
+                                "stage) and 2 (Kestrune upper stage) are not applied"));
+}
+
 /* A vehicle for 10,000 t of payload (the limit): stage masses of nine and
  * more digits keep the stage table's columns aligned, every right edge of
  * the header at the same character as in each stage row. */
@@ -191,6 +218,7 @@ main (int argc, char **argv)
   g_test_init (&argc, &argv, NULL);
   g_test_add_func ("/cli-text/size", test_size_text);
   g_test_add_func ("/cli-text/size-huge", test_size_huge);
+  g_test_add_func ("/cli-text/fixed", test_fixed_text);
   g_test_add_func ("/cli-text/sensitivity", test_sensitivity_text);
   g_test_add_func ("/cli-text/ascent-fairing", test_ascent_fairing);
   return g_test_run ();

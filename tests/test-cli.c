@@ -200,6 +200,20 @@ check_size_json (const char *path)
   assert_same (number_or_nan (obj, "payload_fraction"), s.payload_fraction);
   assert_same (number_or_nan (obj, "delta_v_m_s"), s.delta_v_m_s);
   assert_same (number_or_nan (obj, "delta_v_limit_m_s"), s.delta_v_limit_m_s);
+  assert_same (number_or_nan (obj, "delta_v_given_m_s"), s.delta_v_given_m_s);
+  /* One headroom: the stages' limit with no payload less the requirement,
+   * the limit the stages' own added up (fixed loads or not). */
+  assert_same (number_or_nan (obj, "headroom_to_limit_m_s"), s.margin_m_s);
+  assert_same (number_or_nan (obj, "margin_m_s"), s.margin_m_s);
+  g_assert_cmpfloat (fabs (s.margin_m_s - (s.delta_v_limit_m_s - s.delta_v_m_s)), <=,
+                     1e-9 * s.delta_v_limit_m_s);
+  {
+    JsonArray *st = json_object_get_array_member (obj, "stages");
+    double sum = 0.0;
+    for (guint i = 0; i < json_array_get_length (st); i++)
+      sum += number_or_nan (json_array_get_object_element (st, i), "delta_v_limit_m_s");
+    g_assert_cmpfloat (fabs (sum - s.delta_v_limit_m_s), <=, 1e-9 * s.delta_v_limit_m_s);
+  }
 
   stages = json_object_get_array_member (obj, "stages");
   g_assert_cmpuint (json_array_get_length (stages), ==, d->n_stages);
@@ -429,6 +443,50 @@ test_size_table (void)
 }
 
 /* An infeasible design is an answer: exit 0, feasible false, null masses. */
+/* Fixed stages with sized boosters: the boosters are sized to give exactly
+ * the requirement, so what the vehicle gives is the requirement; the
+ * headroom is to the stages' limit with no payload (the core on its load
+ * with the boosters' best load and the fixed upper stage above), not ~0. */
+static void
+test_size_fixed_sized_boosters (void)
+{
+  static const char text[] =
+    "{ \"format\": \"stagewright-design\", \"version\": 2, \"name\": \"Fixed core\",\n"
+    "  \"payload_kg\": 6000, \"mission\": { \"delta_v_m_s\": 9800 }, \"split\": \"optimal\",\n"
+    "  \"stages\": [ { \"name\": \"Core\", \"isp_vac_s\": 320, \"structural_coefficient\": 0.07,\n"
+    "                  \"thrust_vac_kn\": 1300, \"propellant_kg\": 150000 },\n"
+    "                { \"name\": \"Upper\", \"isp_vac_s\": 345, \"structural_coefficient\": 0.09,\n"
+    "                  \"thrust_vac_kn\": 420, \"propellant_kg\": 25000 } ],\n"
+    "  \"boosters\": { \"name\": \"Strap-ons\", \"count\": 4, \"isp_vac_s\": 275,\n"
+    "                 \"structural_coefficient\": 0.11, \"thrust_vac_kn\": 800 } }\n";
+  g_autofree char *dir = g_dir_make_tmp ("sw-test-cli-XXXXXX", NULL);
+  g_autofree char *path = write_tmp (dir, "fixed-core.stagewright", text);
+  g_autoptr (JsonNode) root = NULL;
+  JsonObject *obj;
+  double limit, headroom, given, up;
+  Run r;
+
+  check_size_json (path);
+  run_cli (&r, "size", "--json", "--no-ascent", path, NULL);
+  g_assert_cmpint (r.code, ==, 0);
+  root = parse (r.out);
+  obj = json_node_get_object (root);
+  g_assert_true (json_object_get_boolean_member (obj, "feasible"));
+  limit = json_object_get_double_member (obj, "delta_v_limit_m_s");
+  headroom = json_object_get_double_member (obj, "headroom_to_limit_m_s");
+  given = json_object_get_double_member (obj, "delta_v_given_m_s");
+  g_assert_cmpfloat (fabs (headroom - (limit - 9800.0)), <, 1e-6);
+  g_assert_cmpfloat (headroom, >, 1000.0);
+  g_assert_cmpfloat (fabs (given - 9800.0), <, 1e-3);
+  /* The upper stage, nothing above it: 345 g0 ln(1/0.09) by hand. */
+  up = number_or_nan (json_array_get_object_element (json_object_get_array_member (obj, "stages"),
+                                                     1), "delta_v_limit_m_s");
+  g_assert_cmpfloat (fabs (up - 345.0 * 9.80665 * log (1.0 / 0.09)), <, 1e-6);
+  run_clear (&r);
+  g_remove (path);
+  g_rmdir (dir);
+}
+
 static void
 test_size_infeasible (void)
 {
@@ -802,6 +860,7 @@ main (int argc, char **argv)
   g_test_add_func ("/cli/size-verdicts", test_size_verdicts);
   g_test_add_func ("/cli/size-limit-options", test_size_limit_options);
   g_test_add_func ("/cli/size-infeasible", test_size_infeasible);
+  g_test_add_func ("/cli/size-fixed-sized-boosters", test_size_fixed_sized_boosters);
   g_test_add_func ("/cli/curve-json", test_curve_json);
   g_test_add_func ("/cli/budget-json", test_budget_json);
   g_test_add_func ("/cli/exit-codes", test_exit_codes);

@@ -303,6 +303,20 @@ test_fixed_load_note (void)
     g_assert_true (plain.points[k].liftoff_mass_kg == fixed.points[k].liftoff_mass_kg
                    || (isnan (plain.points[k].liftoff_mass_kg)
                        && isnan (fixed.points[k].liftoff_mass_kg)));
+
+  /* Every fixed stage is named, not only the first; long names fit. */
+  d->stages[0].propellant.has_propellant_kg = TRUE;
+  d->stages[0].propellant.propellant_kg = 90000.0;
+  for (guint i = 0; i < 2; i++)
+    {
+      memset (d->stages[i].name, 'x', SW_NAME_MAX - 1);
+      d->stages[i].name[SW_NAME_MAX - 1] = '\0';
+    }
+  d->stages[1].name[0] = 'y';
+  sw_stage_curve_compute (d, 9000.0, SW_MAX_STAGES, &fixed);
+  g_assert_nonnull (strstr (fixed.note, "the fixed propellant loads of stages 1 (xxx"));
+  g_assert_nonnull (strstr (fixed.note, "x) and 2 (yxx"));
+  g_assert_true (g_str_has_suffix (fixed.note, "has no such stages."));
 }
 
 /* With strap-on boosters: besides the serial curve, the same boosters beside

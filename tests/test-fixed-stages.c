@@ -163,11 +163,73 @@ test_infeasible (void)
    * each stage giving what it gives; infeasible when it falls short. */
   sw_size_with_fixed (&set, all, 1000.0, 5000.0, SW_SPLIT_OPTIMAL, &s);
   g_assert_true (s.feasible);
-  g_assert_cmpfloat (s.margin_m_s, >, 0.0);
-  assert_rel (s.stages[0].delta_v_m_s + s.stages[1].delta_v_m_s, 5000.0 + s.margin_m_s, 1e-12);
+  g_assert_cmpfloat (s.delta_v_given_m_s, >, 5000.0);
+  assert_rel (s.stages[0].delta_v_m_s + s.stages[1].delta_v_m_s, s.delta_v_given_m_s, 1e-12);
   sw_size_with_fixed (&set, all, 1000.0, 20000.0, SW_SPLIT_OPTIMAL, &s);
   g_assert_false (s.feasible);
   g_assert_nonnull (strstr (s.reason, "fixed stages give"));
+}
+
+/* The stages' delta-v limit with no payload, by hand from the rocket
+ * equation (Tsiolkovsky, dv = c ln(m0/mf); structure = load eps/(1 - eps)):
+ * a fixed stage gives what its own load gives with no payload and the fixed
+ * stages above it, not c ln(1/eps); a sized stage its c ln(1/eps).  The
+ * headroom is that limit less the requirement; what the vehicle gives with
+ * its payload is separate (delta_v_given_m_s). */
+static void
+test_limit_no_payload (void)
+{
+  const double isp[] = { 300.0, 340.0 }, eps[] = { 0.08, 0.10 };
+  const double all[] = { 100000.0, 20000.0 }, bottom[] = { 100000.0, 0.0 };
+  const double top[] = { 0.0, 20000.0 };
+  const double c1 = 300.0 * 9.80665, c2 = 340.0 * 9.80665;
+  /* Hand figures: stage 2 = 20,000 kg / (1 - 0.10) = 22,222.22 kg full,
+   * 2,222.22 kg empty; stage 1's structure 100,000 x 0.08 / 0.92 =
+   * 8,695.65 kg. */
+  const double m2 = 20000.0 / 0.90, s2 = 20000.0 * 0.10 / 0.90, s1 = 100000.0 * 0.08 / 0.92;
+  const double top_empty = c2 * log (m2 / s2);                    /* = c2 ln 10 = 7,677.4 m/s */
+  const double first_empty = c1 * log ((m2 + 100000.0 + s1) / (m2 + s1));  /* 4,246.0 m/s */
+  const double given = c2 * log ((1000.0 + m2) / (1000.0 + s2))
+                       + c1 * log ((1000.0 + m2 + 100000.0 + s1) / (1000.0 + m2 + s1));
+  SwStageSet set;
+  SwSizing s;
+
+  set_init (&set, 2, isp, eps);
+  assert_rel (top_empty, 7677.42, 1e-5);
+  assert_rel (first_empty, 4246.0, 1e-4);
+
+  sw_size_with_fixed (&set, all, 1000.0, 5000.0, SW_SPLIT_OPTIMAL, &s);
+  g_assert_true (s.feasible);
+  assert_rel (s.stages[1].delta_v_limit_m_s, top_empty, 1e-12);
+  assert_rel (s.stages[0].delta_v_limit_m_s, first_empty, 1e-12);
+  assert_rel (s.delta_v_limit_m_s, top_empty + first_empty, 1e-12);
+  assert_rel (s.margin_m_s, top_empty + first_empty - 5000.0, 1e-12);
+  assert_rel (s.delta_v_given_m_s, given, 1e-12);
+  /* Not the sum of c ln(1/eps) (15,108 m/s), nor the delta-v with the payload. */
+  g_assert_cmpfloat (fabs (s.delta_v_limit_m_s - (c1 * log (1 / 0.08) + c2 * log (10.0))), >, 3000.0);
+  g_assert_cmpfloat (fabs (s.delta_v_limit_m_s - given), >, 100.0);
+
+  /* The same when the vehicle falls short: the headroom is negative. */
+  sw_size_with_fixed (&set, all, 1000.0, 13000.0, SW_SPLIT_OPTIMAL, &s);
+  g_assert_false (s.feasible);
+  assert_rel (s.margin_m_s, top_empty + first_empty - 13000.0, 1e-12);
+  g_assert_true (isnan (s.delta_v_given_m_s));
+
+  /* A fixed first stage below a sized top one: empty of payload the sized
+   * stage is empty too, so the fixed one gives c ln(1/eps); the sized one
+   * its c ln(1/eps). */
+  sw_size_with_fixed (&set, bottom, 1000.0, 9000.0, SW_SPLIT_OPTIMAL, &s);
+  g_assert_true (s.feasible);
+  assert_rel (s.stages[0].delta_v_limit_m_s, c1 * log (1.0 / 0.08), 1e-12);
+  assert_rel (s.delta_v_limit_m_s, c1 * log (1.0 / 0.08) + c2 * log (10.0), 1e-12);
+  assert_rel (s.margin_m_s, s.delta_v_limit_m_s - 9000.0, 1e-12);
+  assert_rel (s.delta_v_given_m_s, 9000.0, 1e-9);
+
+  /* A fixed top stage on a sized first one. */
+  sw_size_with_fixed (&set, top, 1000.0, 9300.0, SW_SPLIT_OPTIMAL, &s);
+  g_assert_true (s.feasible);
+  assert_rel (s.delta_v_limit_m_s, c1 * log (1.0 / 0.08) + top_empty, 1e-12);
+  assert_rel (s.margin_m_s, s.delta_v_limit_m_s - 9300.0, 1e-12);
 }
 
 /* Without a fixed stage the answer is sw_size()'s, bit for bit. */
@@ -248,6 +310,7 @@ main (int argc, char **argv)
   g_test_add_func ("/fixed-stages/optimal-against-grid", test_optimal_against_grid);
   g_test_add_func ("/fixed-stages/bottom-equal", test_fixed_bottom_equal);
   g_test_add_func ("/fixed-stages/infeasible", test_infeasible);
+  g_test_add_func ("/fixed-stages/limit-no-payload", test_limit_no_payload);
   g_test_add_func ("/fixed-stages/no-fixed-unchanged", test_no_fixed_is_unchanged);
   g_test_add_func ("/fixed-stages/design", test_design_fixed);
   g_test_add_func ("/fixed-stages/take-shares", test_take_shares_with_fixed);

@@ -914,6 +914,77 @@ test_booster_estimate (void)
   sw_test_window_close (w);
 }
 
+/* Fixed propellant loads in the working: the two demos with fixed stages
+ * say which stages are fixed and how the sized ones were split, show a
+ * fixed stage's delta-v from the rocket equation on its load, and give the
+ * sizing's limit with no payload and its headroom (not the sum of
+ * c ln(1/eps), not the delta-v with the payload). */
+static char *
+working_text (SwWindow *w, int stage)
+{
+  char *text;
+
+  sw_working_view_set_selected (sw_window_get_working_view (w), stage);
+  text = sw_working_view_dup_text (sw_window_get_working_view (w));
+  g_test_message ("%s", text);
+  g_assert_null (strstr (text, "nan"));
+  return text;
+}
+
+static void
+test_fixed_working (void)
+{
+  SwWindow *w = window_new ();
+  SwAnalysis *r;
+
+  sw_window_show_page (w, "working");
+  load_demo (w, "sallowmere-as-built.stagewright");
+  r = sw_window_get_shown_result (w);
+  g_assert_true (r->ok && r->sizing.feasible && r->sizing.n_fixed == 2);
+  for (int i = 0; i < 2; i++)
+    {
+      g_autofree char *text = working_text (w, i);
+      g_autofree char *lim = sw_format_number (r->sizing.delta_v_limit_m_s, 1);
+      g_autofree char *head = sw_format_number (r->sizing.margin_m_s, 1);
+      g_autofree char *given = sw_format_number (r->sizing.delta_v_given_m_s, 1);
+      g_autofree char *dv = sw_format_number (r->sizing.stages[i].delta_v_m_s, 1);
+      g_autofree char *slim = sw_format_number (r->sizing.stages[i].delta_v_limit_m_s, 1);
+
+      g_assert_nonnull (strstr (text, "Split: none; every load is fixed (stages 1, 2)"));
+      g_assert_null (strstr (text, "Lagrange"));
+      g_assert_nonnull (strstr (text, "Fixed propellant load (this stage is not sized)"));
+      g_assert_nonnull (strstr (text, dv));
+      g_assert_nonnull (strstr (text, slim));
+      g_assert_nonnull (strstr (text, lim));
+      g_assert_nonnull (strstr (text, head));
+      g_assert_nonnull (strstr (text, given));
+      g_assert_null (strstr (text, "Σ c_i·ln(1/ε_i) ="));
+    }
+  /* The limit is the stages' own no-payload figures added up, above what
+   * the vehicle gives with its payload. */
+  g_assert_cmpfloat (fabs (r->sizing.delta_v_limit_m_s - r->sizing.stages[0].delta_v_limit_m_s
+                           - r->sizing.stages[1].delta_v_limit_m_s), <, 1e-6);
+  g_assert_cmpfloat (r->sizing.delta_v_limit_m_s, >, r->sizing.delta_v_given_m_s + 1000.0);
+
+  load_demo (w, "sallowmere-kestrune-upper-stage.stagewright");
+  r = sw_window_get_shown_result (w);
+  g_assert_true (r->ok && r->sizing.feasible && r->sizing.n_fixed == 1);
+  {
+    g_autofree char *sized = working_text (w, 0);
+    g_autofree char *fixed = working_text (w, 1);
+    g_autofree char *lim = sw_format_number (r->sizing.delta_v_limit_m_s, 1);
+
+    g_assert_nonnull (strstr (sized, "among the sized stages: 1\nFixed load (not sized): 2"));
+    g_assert_nonnull (strstr (sized, "Lagrange multiplier (the same for every sized stage)"));
+    g_assert_null (strstr (sized, "the same for every stage"));
+    g_assert_nonnull (strstr (sized, lim));
+    g_assert_null (strstr (sized, "delta-v with this payload"));
+    g_assert_nonnull (strstr (fixed, "Fixed propellant load (this stage is not sized)"));
+    g_assert_null (strstr (fixed, "Lagrange multiplier ("));
+  }
+  sw_test_window_close (w);
+}
+
 /* The stage-count plot labels its crosses once: with a design that does
  * not close and several counts without a solution, the labels of
  * neighbouring crosses were printed over each other. */
@@ -1023,6 +1094,7 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/window/close-unsaved", test_close_unsaved);
   g_test_add_func ("/gui/window/shape-and-estimate", test_shape_and_estimate);
   g_test_add_func ("/gui/window/booster-estimate", test_booster_estimate);
+  g_test_add_func ("/gui/window/fixed-working", test_fixed_working);
   g_test_add_func ("/gui/window/stage-count-labels", test_stage_count_labels);
 
   status = g_test_run ();

@@ -269,6 +269,34 @@ append_booster_estimate (GString *s, const SwAnalysis *r)
   }
 }
 
+/* The stages' delta-v limit with no payload and the headroom to it, as the
+ * sizing has them (sw-sizing.h); with a fixed stage, what the vehicle gives
+ * with its payload too. */
+static void
+append_vehicle_limit (GString *s, const SwSizing *sz)
+{
+  g_autofree char *lim = MS (sz->delta_v_limit_m_s);
+  g_autofree char *margin = MS (sz->margin_m_s);
+
+  if (sz->n_fixed == 0 && !sz->boosters.present)
+    formula (s, _("delta-v limit Σ c_i·ln(1/ε_i) = %s m/s"), lim);
+  else if (sz->n_fixed == 0)
+    formula (s, _("stages' delta-v limit with no payload (Σ c_i·ln(1/ε_i),\n"
+                  "  the boosters not counted) = %s m/s"), lim);
+  else
+    formula (s, _("stages' delta-v limit with no payload (sized stages\n"
+                  "  c·ln(1/ε), fixed ones the rocket equation on their\n"
+                  "  loads) = %s m/s"), lim);
+  formula (s, _("headroom to the limit = %s m/s"), margin);
+  /* Only a vehicle with nothing sized gives more than the requirement. */
+  if (sz->n_fixed == sz->n_stages && (!sz->boosters.present || sz->boosters.fixed)
+      && isfinite (sz->delta_v_given_m_s))
+    {
+      g_autofree char *given = MS (sz->delta_v_given_m_s);
+      formula (s, _("delta-v with this payload = %s m/s"), given);
+    }
+}
+
 static char *
 build_text (SwWorkingView *self, gboolean for_copy)
 {
@@ -305,9 +333,45 @@ build_text (SwWorkingView *self, gboolean for_copy)
                         ? (sz->boosters.present ? _("optimal (numerical minimum, with boosters)")
                                                 : _("optimal (Lagrange multiplier)"))
                         : sz->split == SW_SPLIT_EQUAL ? _("equal") : _("manual");
+    gboolean nothing_sized = sz->n_fixed == sz->n_stages
+                             && (!sz->boosters.present || sz->boosters.fixed);
     /* Translators: header of the working; stage number, count, name */
     g_string_append_printf (s, _("Stage %u of %u: %s\n"), i + 1, d->n_stages, st->name);
-    g_string_append_printf (s, _("Split: %s\n"), split);
+    if (sz->n_fixed == 0)
+      g_string_append_printf (s, _("Split: %s\n"), split);
+    else
+      {
+        GString *fixed = g_string_new (NULL), *sized = g_string_new (NULL);
+
+        for (guint k = 0; k < sz->n_stages; k++)
+          {
+            GString *to = sz->stages[k].fixed ? fixed : sized;
+            if (to->len > 0)
+              g_string_append (to, ", ");
+            g_string_append_printf (to, "%u", k + 1);
+          }
+        if (sz->boosters.present && !sz->boosters.fixed)
+          {
+            if (sized->len > 0)
+              g_string_append (sized, ", ");
+            g_string_append (sized, _("the boosters"));
+          }
+        else if (sz->boosters.present)
+          g_string_append (fixed, _(", the boosters"));
+        if (nothing_sized)
+          /* Translators: %s is a list of stage numbers ("1, 2") */
+          g_string_append_printf (s, _("Split: none; every load is fixed (stages %s):\n"
+                                       "each stage gives the rocket equation on its load\n"),
+                                  fixed->str);
+        else
+          /* Translators: the split of the sized stages (%s: "optimal (Lagrange
+           * multiplier)"), the sized stages' numbers ("1, 3"), the fixed ones' */
+          g_string_append_printf (s, _("Split: %s among the sized stages: %s\n"
+                                       "Fixed load (not sized): %s\n"),
+                                  split, sized->str, fixed->str);
+        g_string_free (fixed, TRUE);
+        g_string_free (sized, TRUE);
+      }
     g_string_append_printf (s, _("Required delta-v Δv = %s m/s; g0 = 9.80665 m/s² (exact)\n"),
                             total);
     if (r->has_budget && isfinite (r->budget.ideal_delta_v_m_s))
@@ -373,11 +437,18 @@ build_text (SwWorkingView *self, gboolean for_copy)
       /* Translators: %u boosters named %s */
       g_string_append_printf (s, _("With %u strap-on boosters (%s) beside this stage\n"
                                    "(parallel staging)\n"), b->count, d->boosters.name);
-      g_string_append (s, b->fixed ? _("The boosters' load is fixed; the core's load gives\n"
-                                       "the required delta-v.\n")
-                                   : _("The boosters' load and the split are the minimum of\n"
-                                       "the liftoff mass found numerically (GSL), not the\n"
-                                       "Lagrange formula.\n"));
+      if (sr->fixed && b->fixed)
+        g_string_append (s, _("The core's and the boosters' loads are fixed: this\n"
+                              "stage gives the rocket equation on them.\n"));
+      else if (sr->fixed)
+        g_string_append (s, _("The core's load is fixed; the boosters' load is the\n"
+                              "minimum of the liftoff mass found numerically (GSL).\n"));
+      else
+        g_string_append (s, b->fixed ? _("The boosters' load is fixed; the core's load gives\n"
+                                         "the required delta-v.\n")
+                                     : _("The boosters' load and the split are the minimum of\n"
+                                         "the liftoff mass found numerically (GSL), not the\n"
+                                         "Lagrange formula.\n"));
       head (s, _("Boosters"));
       formula (s, "c_b = %s m/s, ε_b = %s, F_b = %s kN", cb, epsb, fb);
       formula (s, "m_p,b = %s kg, m_s,b = %s kg", pb, sb);
@@ -444,9 +515,92 @@ build_text (SwWorkingView *self, gboolean for_copy)
       head (s, _("Vehicle"));
       formula (s, _("liftoff mass (M0, boosters included) = %s kg"), lift);
       formula (s, _("payload fraction = %s / %s = %s"), pl, lift, frac);
+      append_vehicle_limit (s, sz);
       append_shape (s, r, i);
       append_mass_estimate (s, r, i);
       append_booster_estimate (s, r);
+      if (for_copy)
+        {
+          g_string_append_c (s, '\n');
+          g_string_append (s, sw_format_cautions ());
+          g_string_append_c (s, '\n');
+        }
+      return g_string_free (s, FALSE);
+    }
+
+  if (sr->fixed)
+    {
+      g_autofree char *load = KG (st->propellant.propellant_kg);
+
+      g_string_append_c (s, '\n');
+      head (s, _("Fixed propellant load (this stage is not sized)"));
+      formula (s, "m_p = %s kg %s", load, _("(given)"));
+      if (sz->feasible)
+        {
+          g_autofree char *above = KG (sr->payload_mass_kg);
+          g_autofree char *ms = KG (sr->structural_mass_kg);
+          g_autofree char *m0 = KG (sr->initial_mass_kg);
+          g_autofree char *mb = KG (sr->burnout_mass_kg);
+
+          formula (s, "m_s = m_p·ε/(1 − ε) = %s kg", ms);
+          formula (s, "m_above = %s kg %s", above, _("(everything above this stage)"));
+          if (sz->fairing.mass_kg > 0.0 && sz->fairing.stage == i)
+            {
+              g_autofree char *mf = KG (sz->fairing.mass_kg);
+              g_autofree char *phi = sw_format_percent (sz->fairing.fraction, 0);
+
+              if (sz->fairing.fraction > 0.0)
+                /* Translators: the fairing's mass, and the share of this stage's
+                 * propellant burnt before it drops */
+                formula (s, _("the fairing m_f = %s kg drops after φ = %s of m_p"), mf, phi);
+              else
+                /* Translators: the fairing's mass */
+                formula (s, _("the fairing m_f = %s kg drops at ignition (φ = 0)"), mf);
+              formula (s, "m0 = m_above + m_p + m_s + m_f = %s kg", m0);
+              formula (s, "m_b = m_above + m_s = %s kg", mb);
+              head (s, _("Stage delta-v (rocket equation on the load, in two parts\n"
+                         "around the fairing's drop)"));
+              formula (s, "Δv = c·ln((m0)/(m0 − φ·m_p)) + c·ln((m0 − φ·m_p − m_f)/m_b)");
+              formula (s, "   = %s m/s", dv);
+            }
+          else
+            {
+              formula (s, "m0 = m_above + m_p + m_s = %s kg", m0);
+              formula (s, "m_b = m0 − m_p = %s kg", mb);
+              head (s, _("Stage delta-v (rocket equation on the load)"));
+              formula (s, "Δv = c·ln(m0/m_b) = %s m/s × ln(%s / %s)", c, m0, mb);
+              formula (s, "   = %s m/s", dv);
+            }
+          {
+            g_autofree char *share = sw_format_percent (sr->delta_v_share, 1);
+            formula (s, _("(%s of the required delta-v)"), share);
+          }
+        }
+      {
+        g_autofree char *limit = MS (sr->delta_v_limit_m_s);
+        head (s, _("Stage limit with no payload"));
+        formula (s, _("the rocket equation on its load with only the fixed\n"
+                      "  stages above it (and the fairing while on) = %s m/s"), limit);
+      }
+      g_string_append_c (s, '\n');
+      if (!sz->feasible)
+        g_string_append_printf (s, _("No masses: the vehicle does not close.\n%s\n"),
+                                sz->reason);
+      else
+        {
+          g_autofree char *lift = KG (sz->liftoff_mass_kg);
+          g_autofree char *pl = KG (sz->payload_kg);
+          g_autofree char *frac = sw_format_percent (sz->payload_fraction, 3);
+
+          head (s, _("Vehicle"));
+          formula (s, _("liftoff mass (m0 of stage 1) = %s kg"), lift);
+          formula (s, _("payload fraction = %s / %s = %s"), pl, lift, frac);
+          append_vehicle_limit (s, sz);
+          if (sz->reason[0] != '\0')
+            g_string_append_printf (s, "\n%s\n", sz->reason);
+        }
+      append_shape (s, r, i);
+      append_mass_estimate (s, r, i);
       if (for_copy)
         {
           g_string_append_c (s, '\n');
@@ -460,7 +614,8 @@ build_text (SwWorkingView *self, gboolean for_copy)
     {
       g_autofree char *eta = sw_format_value ("%.5e", sz->multiplier_s_m);
 
-      head (s, _("Lagrange multiplier (the same for every stage)"));
+      head (s, sz->n_fixed > 0 ? _("Lagrange multiplier (the same for every sized stage)")
+                               : _("Lagrange multiplier (the same for every stage)"));
       formula (s, "η = %s s/m", eta);
       head (s, _("Mass ratio at the optimum"));
       formula (s, "n = (c·η − 1)/(c·ε·η)");
@@ -506,8 +661,6 @@ build_text (SwWorkingView *self, gboolean for_copy)
       g_autofree char *lift = KG (sz->liftoff_mass_kg);
       g_autofree char *pl = KG (sz->payload_kg);
       g_autofree char *frac = sw_format_percent (sz->payload_fraction, 3);
-      g_autofree char *lim = MS (sz->delta_v_limit_m_s);
-      g_autofree char *margin = MS (sz->margin_m_s);
 
       head (s, _("Mass above this stage (payload and upper stages)"));
       formula (s, "m_above = %s kg", above);
@@ -528,8 +681,7 @@ build_text (SwWorkingView *self, gboolean for_copy)
       head (s, _("Vehicle"));
       formula (s, _("liftoff mass (m0 of stage 1) = %s kg"), lift);
       formula (s, _("payload fraction = %s / %s = %s"), pl, lift, frac);
-      formula (s, _("delta-v limit Σ c_i·ln(1/ε_i) = %s m/s"), lim);
-      formula (s, _("margin to the limit = %s m/s"), margin);
+      append_vehicle_limit (s, sz);
       if (sz->reason[0] != '\0')
         g_string_append_printf (s, "\n%s\n", sz->reason);
     }

@@ -307,6 +307,9 @@ sizing_to_json (const SwAnalysis *a)
    * the simulated margin is the one that says whether the vehicle flies. */
   sw_cli_add_number (b, "margin_m_s", s->margin_m_s);
   sw_cli_add_number (b, "headroom_to_limit_m_s", a->headroom_m_s);
+  /* What the stages give with the payload: the requirement, or more when
+   * every load is fixed (null when infeasible). */
+  sw_cli_add_number (b, "delta_v_given_m_s", s->delta_v_given_m_s);
   sw_cli_add_number (b, "simulated_margin_m_s", a->simulated_margin_m_s);
   sw_cli_add_number (b, "liftoff_thrust_to_weight",
                      a->ascent != NULL ? a->ascent->liftoff_thrust_to_weight

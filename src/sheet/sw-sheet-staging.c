@@ -231,19 +231,30 @@ sw_sheet_draw_staging (cairo_t *cr, const SwAnalysis *analysis, double x, double
         sw_sheet_text_at (cr, thrust, x, money_y, &note);
         money_y += note_h;
       }
-    for (guint i = 0; s.fixed_note[0] != '\0' && i < design->n_stages; i++)
-      if (design->stages[i].propellant.has_propellant_kg)
-        {
-          /* Translators: %u is a stage number; the short form of the staging
+    if (s.fixed_note[0] != '\0')
+      {
+        char list[SW_FIXED_NOTE_MAX];
+        guint n_fixed = sw_fixed_stages_text (design, FALSE, list, sizeof list);
+        g_autofree char *fixed = NULL;
+
+        if (n_fixed == 1)
+          /* Translators: %s is a stage number; the short form of the staging
            * table's note on fixed loads */
-          g_autofree char *fixed = g_strdup_printf (_("The fixed propellant load of stage %u "
-                                                      "is not applied: every row, this "
-                                                      "design's and the recovered columns "
-                                                      "included, sizes every stage."), i + 1);
-          sw_sheet_text_at (cr, fixed, x, money_y, &note);
-          money_y += note_h;
-          break;
-        }
+          fixed = g_strdup_printf (_("The fixed propellant load of stage %s is not applied: "
+                                     "every row, this design's and the recovered columns "
+                                     "included, sizes every stage."), list);
+        else if (n_fixed > 1)
+          /* Translators: %s is a list of stage numbers ("1 and 2"); the short
+           * form of the staging table's note on fixed loads */
+          fixed = g_strdup_printf (_("The fixed propellant loads of stages %s are not applied: "
+                                     "every row, this design's and the recovered columns "
+                                     "included, sizes every stage."), list);
+        if (fixed != NULL)
+          {
+            sw_sheet_text_at (cr, fixed, x, money_y, &note);
+            money_y += note_h;
+          }
+      }
     if (s.losses_note[0] != '\0')
       {
         sw_sheet_text_at (cr, s.losses_note, x, money_y, &note);

@@ -1346,11 +1346,12 @@ sw_flight_model_build (SwFlightModel *m, const SwDesign *d, const SwSizing *sz,
       g_strlcpy (res->reason, _("No ascent: no stage carries propellant."), sizeof res->reason);
       return SW_BUILD_INFEASIBLE;
     }
-  /* A vehicle whose every stage is fixed gives what its loads give, the
-   * required delta-v plus the sizing's margin (sw_size_with_fixed); a sized
-   * stage takes up the rest, so otherwise it gives the requirement. */
+  /* A vehicle whose every stage is fixed gives what its loads give
+   * (sw_size_with_fixed); a sized stage takes up the rest, so otherwise it
+   * gives the requirement. */
   m->sized_total = sz->n_stages > 0 && sz->n_fixed == sz->n_stages
-                     ? sz->delta_v_m_s + sz->margin_m_s : sz->delta_v_m_s;
+                   && isfinite (sz->delta_v_given_m_s)
+                     ? sz->delta_v_given_m_s : sz->delta_v_m_s;
 
   m->fairing_sized = sz->fairing.mass_kg > 0.0;
   if (d->ascent.has_fairing_mass && d->ascent.fairing_mass_kg > 0.0)

@@ -569,6 +569,108 @@ mass_for_upper (double d_up, void *data)
   return best_for_upper (data, d_up, &pb);
 }
 
+/* ---- the stages' delta-v limit with no payload ---------------------------- */
+
+typedef struct {
+  const SwParallelVehicle *v;
+  double m_up;
+} LimitCtx;
+
+static gboolean
+any_upper_fixed (const SwParallelVehicle *v)
+{
+  for (guint i = 1; i < v->set.n_stages; i++)
+    if (v->fixed_kg[i] > 0.0)
+      return TRUE;
+  return FALSE;
+}
+
+/* Minus the core group's delta-v with booster load @pb (no payload). */
+static double
+limit_minus_dv (double pb, void *data)
+{
+  const LimitCtx *lc = data;
+  Group g;
+
+  if (!group_eval (lc->v, lc->m_up, pb, lc->v->fixed_kg[0], &g))
+    return NAN;
+  return -(g.dv0 + g.dv1);
+}
+
+/* The stages' delta-v limit with no payload (sw-sizing.h): the upper
+ * stages' by the serial rule (sw_size_with_fixed ()); a fixed core's is the
+ * rocket equation on its load with its boosters (their fixed load, or the
+ * sized load that gives the most: without crossfeed the core must outlast
+ * them) and only the fixed upper stages and the fairing above it (sized
+ * upper stages are empty with no payload); a sized core's is c ln(1/eps),
+ * the boosters not counted (at that limit the core outweighs any booster).
+ * *@core_limit the core's part; @stages (may be NULL) gets the upper
+ * stages' own limits. */
+static double
+parallel_limit (const SwParallelVehicle *v, SwSplitMode split, double *core_limit,
+                SwStageResult *stages)
+{
+  double upper = 0.0, m_up0 = 0.0, p1 = v->fixed_kg[0];
+
+  *core_limit = v->set.exhaust_velocity_m_s[0] * log (1.0 / v->set.structural_coefficient[0]);
+  if (v->set.n_stages >= 2)
+    {
+      SwStageSet up;
+      double fixed[SW_MAX_STAGES] = { 0 };
+      SwSizing s;
+
+      upper_set (v, &up, fixed);
+      if (upper_kind (v) == UPPER_SIZED && !any_upper_fixed (v))
+        {
+          /* Every upper stage sized: each its c ln(1/eps) (the serial
+           * sizing's figure, without a solve on every call). */
+          for (guint i = 0; i < up.n_stages; i++)
+            {
+              double l = up.exhaust_velocity_m_s[i] * log (1.0 / up.structural_coefficient[i]);
+              upper += l;
+              if (stages != NULL)
+                stages[i + 1].delta_v_limit_m_s = l;
+            }
+        }
+      else
+        {
+          sw_size_with_fixed (&up, fixed, 0.0, 0.0, split, &s);
+          upper = s.delta_v_limit_m_s;
+          if (stages != NULL)
+            for (guint i = 0; i < up.n_stages; i++)
+              stages[i + 1].delta_v_limit_m_s = s.stages[i].delta_v_limit_m_s;
+        }
+      for (guint i = 0; i < up.n_stages; i++)
+        if (fixed[i] > 0.0)
+          m_up0 += fixed[i] + structure_of (fixed[i], up.structural_coefficient[i]);
+      m_up0 += up.fairing.mass_kg;
+    }
+  if (p1 > 0.0)
+    {
+      LimitCtx lc = { v, m_up0 };
+      Group g;
+
+      if (v->count == 0 || v->booster_fixed_kg > 0.0)
+        {
+          if (group_eval (v, m_up0, v->count > 0 ? v->booster_fixed_kg : 0.0, p1, &g))
+            *core_limit = g.dv0 + g.dv1;
+        }
+      else
+        {
+          double c1 = v->set.exhaust_velocity_m_s[0], pb_best;
+          double top = v->crossfeed
+                         ? 100.0 * p1
+                         : p1 * v->booster_thrust_n * c1
+                             / (v->core_thrust_n * v->booster_exhaust_velocity_m_s);
+          double m = minimise (limit_minus_dv, &lc, 0.0, top, BOOSTER_GRID, &pb_best);
+
+          if (isfinite (m))
+            *core_limit = -m;
+        }
+    }
+  return upper + *core_limit;
+}
+
 /* ---- the answer -------------------------------------------------------- */
 
 static void
@@ -577,6 +679,7 @@ set_infeasible (SwSizing *out, const char *reason)
   out->feasible = FALSE;
   g_strlcpy (out->reason, reason, sizeof out->reason);
   out->liftoff_mass_kg = out->payload_fraction = NAN;
+  out->delta_v_given_m_s = NAN;
   for (guint i = 0; i < out->n_stages; i++)
     {
       SwStageResult *r = &out->stages[i];
@@ -620,7 +723,7 @@ fill (const SwParallelVehicle *v, double payload, double d_up, double pb, double
         out->n_unused++;
     }
   r->exhaust_velocity_m_s = c1;
-  r->delta_v_limit_m_s = c1 * log (1.0 / v->set.structural_coefficient[0]);
+  /* r->delta_v_limit_m_s: set by sw_size_parallel () (parallel_limit ()). */
   r->delta_v_m_s = g.dv0 + g.dv1;
   r->propellant_mass_kg = p1;
   r->structural_mass_kg = g.s1;
@@ -645,11 +748,9 @@ fill (const SwParallelVehicle *v, double payload, double d_up, double pb, double
           out->n_fixed++;
         given += out->stages[i].delta_v_m_s;
       }
-    /* Every stage fixed: the margin is what the vehicle gives beyond the
-     * requirement, as sw_size_with_fixed() has it (the ascent counts the
-     * vehicle's delta-v as the requirement plus this margin). */
-    if (out->n_fixed == v->set.n_stages)
-      out->margin_m_s = given - out->delta_v_m_s;
+    /* What the stages give with this payload (more than the requirement
+     * only when every stage and the boosters are fixed). */
+    out->delta_v_given_m_s = given;
   }
   if (out->boosters.present)
     {
@@ -1109,10 +1210,11 @@ sw_size_parallel (const SwParallelVehicle *v, double payload_kg, double delta_v_
       out->stages[i].delta_v_limit_m_s = v->set.exhaust_velocity_m_s[i]
                                          * log (1.0 / v->set.structural_coefficient[i]);
       out->stages[i].fixed = v->fixed_kg[i] > 0.0;
-      out->delta_v_limit_m_s += out->stages[i].delta_v_limit_m_s;
       any_fixed = any_fixed || v->fixed_kg[i] > 0.0;
     }
+  out->delta_v_limit_m_s = parallel_limit (v, split, &out->stages[0].delta_v_limit_m_s, out->stages);
   out->margin_m_s = out->delta_v_limit_m_s - delta_v_m_s;
+  out->delta_v_given_m_s = NAN;
   if (v->count > 0)
     {
       out->boosters.present = TRUE;

@@ -10,21 +10,49 @@
 #include <glib/gi18n-lib.h>
 #include <math.h>
 
+guint
+sw_fixed_stages_text (const SwDesign *design, gboolean names, char *buf, gsize size)
+{
+  guint idx[SW_MAX_STAGES], n = 0;
+  g_autoptr (GString) s = g_string_new (NULL);
+
+  for (guint i = 0; i < design->n_stages && i < SW_MAX_STAGES; i++)
+    if (design->stages[i].propellant.has_propellant_kg)
+      idx[n++] = i;
+  for (guint k = 0; k < n; k++)
+    {
+      if (k > 0)
+        /* Translators: between the last two items of a list of stages */
+        g_string_append (s, k + 1 == n ? _(" and ") : ", ");
+      if (names)
+        g_string_append_printf (s, "%u (%s)", idx[k] + 1, design->stages[idx[k]].name);
+      else
+        g_string_append_printf (s, "%u", idx[k] + 1);
+    }
+  g_strlcpy (buf, s->str, size);
+  return n;
+}
+
 void
 sw_curves_fixed_note (const SwDesign *design, char *note)
 {
+  char list[SW_FIXED_NOTE_MAX];
+  guint n = sw_fixed_stages_text (design, TRUE, list, sizeof list);
+
   note[0] = '\0';
-  for (guint i = 0; i < design->n_stages; i++)
-    if (design->stages[i].propellant.has_propellant_kg)
-      {
-        /* Translators: %u is a stage number, %s its name */
-        g_snprintf (note, SW_REASON_MAX,
-                    _("These curves size every stage from the payload up; the fixed "
-                      "propellant load of stage %u (%s) is not applied, since a vehicle with "
-                      "another stage count or delta-v has no such stage."),
-                    i + 1, design->stages[i].name);
-        return;
-      }
+  if (n == 1)
+    /* Translators: %s is a stage number and its name, "2 (Upper stage)" */
+    g_snprintf (note, SW_FIXED_NOTE_MAX,
+                _("These curves size every stage from the payload up; the fixed "
+                  "propellant load of stage %s is not applied, since a vehicle with "
+                  "another stage count or delta-v has no such stage."), list);
+  else if (n > 1)
+    /* Translators: %s is a list of stage numbers with their names,
+     * "1 (First stage) and 2 (Upper stage)" */
+    g_snprintf (note, SW_FIXED_NOTE_MAX,
+                _("These curves size every stage from the payload up; the fixed "
+                  "propellant loads of stages %s are not applied, since a vehicle with "
+                  "another stage count or delta-v has no such stages."), list);
 }
 
 void

@@ -16,10 +16,14 @@ typedef struct {
   double   delta_v_limit_m_s;
 } SwStageCountPoint;
 
+/* A note naming every fixed stage: room for the text and each stage's
+ * number and name. */
+#define SW_FIXED_NOTE_MAX (SW_REASON_MAX + SW_MAX_STAGES * (SW_NAME_MAX + 8))
+
 struct _SwStageCurve {
   /* Why a design's fixed propellant loads do not apply to the curve (the
    * curve sizes every stage); "" when the design has none. */
-  char   note[SW_REASON_MAX];
+  char   note[SW_FIXED_NOTE_MAX];
   double delta_v_m_s;
   double payload_kg;
   guint  n_points;
@@ -43,7 +47,7 @@ typedef struct {
 } SwSweepCurve;
 
 struct _SwSweep {
-  char   note[SW_REASON_MAX];      /* as SwStageCurve's */
+  char   note[SW_FIXED_NOTE_MAX];  /* as SwStageCurve's */
   double payload_kg;
   guint  n_curves;
   SwSweepCurve curves[SW_SWEEP_CURVES];
@@ -52,8 +56,14 @@ struct _SwSweep {
 /* The curves size every stage of hypothetical 1..N-stage vehicles from the
  * payload up: a fixed propellant load (propellant_kg) is not applied, since
  * a vehicle with another stage count or delta-v has no such stage; @note
- * (SW_REASON_MAX) says so, naming the first fixed stage, or is "". */
+ * (SW_FIXED_NOTE_MAX) says so, naming every fixed stage, or is "". */
 void     sw_curves_fixed_note (const SwDesign *design, char *note);
+
+/* The design's stages with a fixed propellant load as words for a note:
+ * "1 (Name)", "1 (Name) and 2 (Name)", "1, 2 and 3 (...)", the names left
+ * out when @names is FALSE ("1 and 2").  Returns how many there are (0:
+ * @buf is ""). */
+guint    sw_fixed_stages_text (const SwDesign *design, gboolean names, char *buf, gsize size);
 
 /* Optimal split for N = 1..@max_stages (at most SW_MAX_STAGES). */
 void     sw_stage_curve_compute (const SwDesign *design, double delta_v_m_s,

@@ -330,6 +330,7 @@ size_with_names (const SwStageSet *set, const SwDesign *names, double payload_kg
   out->multiplier_s_m = NAN;
   out->delta_v_limit_m_s = vehicle_limit (set);
   out->margin_m_s = out->delta_v_limit_m_s - delta_v_m_s;
+  out->delta_v_given_m_s = delta_v_m_s;
   out->fairing = set->fairing;
 
   for (guint i = 0; i < n; i++)
@@ -355,6 +356,7 @@ size_with_names (const SwStageSet *set, const SwDesign *names, double payload_kg
       if (!sw_optimal_split (set, delta_v_m_s, dv, &out->multiplier_s_m))
         {
           out->feasible = FALSE;
+          out->delta_v_given_m_s = NAN;
           g_snprintf (out->reason, sizeof out->reason,
                       _("The required delta-v of %s is at or beyond the limit of "
                         "%s that these %u stages reach even when empty of payload "
@@ -416,6 +418,7 @@ size_with_names (const SwStageSet *set, const SwDesign *names, double payload_kg
           r->propellant_mass_kg = r->structural_mass_kg = r->stage_mass_kg = NAN;
           r->payload_mass_kg = r->initial_mass_kg = r->burnout_mass_kg = NAN;
         }
+      out->delta_v_given_m_s = NAN;
       return;
     }
 
@@ -579,6 +582,7 @@ fixed_infeasible (SwSizing *out, guint n)
 {
   out->feasible = FALSE;
   out->liftoff_mass_kg = out->payload_fraction = NAN;
+  out->delta_v_given_m_s = NAN;
   for (guint i = 0; i < n; i++)
     {
       SwStageResult *r = &out->stages[i];
@@ -648,12 +652,26 @@ size_fixed (const SwStageSet *set, const double *fixed_kg, const SwDesign *names
   total0 = fixed_total (&p, payload_kg, 0.0, dv);
   if (p.sized.n_stages > 0)
     d_max = fixed_split_limit (&p);
-  out->delta_v_limit_m_s = total0 + d_max;
+  /* The limit with no payload: each fixed stage gives the rocket equation
+   * on its own load with only the fixed stages (and the fairing) above it
+   * (the sized ones are empty, so massless), each sized one its
+   * c ln(1/eps); the vehicle's is the sum of the stages', as without a
+   * fixed stage. */
+  {
+    double dv0[SW_MAX_STAGES] = { 0 };
+    double limit0 = fixed_total (&p, 0.0, 0.0, dv0);
+
+    out->delta_v_limit_m_s = limit0 + vehicle_limit (&p.sized);
+    for (guint i = 0; i < n; i++)
+      if (out->stages[i].fixed)
+        out->stages[i].delta_v_limit_m_s = dv0[i];
+    out->margin_m_s = out->delta_v_limit_m_s - delta_v_m_s;
+  }
+  out->delta_v_given_m_s = total0;
 
   if (p.sized.n_stages == 0)
     {
       d = 0.0;
-      out->margin_m_s = total0 - delta_v_m_s;
       if (!(total0 >= delta_v_m_s))
         {
           g_snprintf (out->reason, sizeof out->reason,
@@ -671,7 +689,6 @@ size_fixed (const SwStageSet *set, const double *fixed_kg, const SwDesign *names
                     "nothing is left for the sized stages.  Remove a sized stage or size a "
                     "fixed one."),
                   SW_SPEED (total0), SW_SPEED (delta_v_m_s));
-      out->margin_m_s = out->delta_v_limit_m_s - delta_v_m_s;
       fixed_infeasible (out, n);
       return;
     }
@@ -710,7 +727,6 @@ size_fixed (const SwStageSet *set, const double *fixed_kg, const SwDesign *names
                       _("The vehicle cannot reach the %s required: with its fixed "
                         "stages it gives at most about %s."),
                       SW_SPEED (delta_v_m_s), SW_SPEED (MAX (best, total0)));
-          out->margin_m_s = MAX (best, total0) - delta_v_m_s;
           fixed_infeasible (out, n);
           return;
         }
@@ -721,8 +737,6 @@ size_fixed (const SwStageSet *set, const double *fixed_kg, const SwDesign *names
           d = brent_root (&fn, lo, hi, 1e-10, 1e-12);
         }
     }
-  if (p.sized.n_stages > 0)
-    out->margin_m_s = out->delta_v_limit_m_s - delta_v_m_s;
 
   if (!isfinite (fixed_total (&p, payload_kg, d, dv)))
     {
@@ -784,6 +798,9 @@ size_fixed (const SwStageSet *set, const double *fixed_kg, const SwDesign *names
     }
   out->liftoff_mass_kg = m_above;
   out->payload_fraction = payload_kg / m_above;
+  out->delta_v_given_m_s = 0.0;
+  for (guint i = 0; i < n; i++)
+    out->delta_v_given_m_s += dv[i];
 
   explain_unused (out, names, n);
 }

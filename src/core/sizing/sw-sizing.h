@@ -27,7 +27,7 @@ struct _SwStageResult {
   double delta_v_m_s;
   double delta_v_share;
   double exhaust_velocity_m_s;  /* c = Isp_vac g0 */
-  double delta_v_limit_m_s;     /* c ln(1/eps) */
+  double delta_v_limit_m_s;     /* c ln(1/eps); a fixed stage's: its own load, no payload */
   double mass_ratio;            /* n = m_initial / m_burnout; for the stage that drops the
                                  * fairing during its burn, exp(delta-v / c) */
   double propellant_mass_kg;
@@ -87,8 +87,17 @@ struct _SwSizing {
   double   payload_kg;
   double   payload_fraction;
   double   delta_v_m_s;
-  double   delta_v_limit_m_s;      /* sum of c_i ln(1/eps_i) */
-  double   margin_m_s;             /* limit - delta_v */
+  /* The stages' delta-v limit with no payload, the sum of the stages'
+   * own (SwStageResult): a sized stage's is c ln(1/eps), a fixed stage's
+   * the rocket equation on its own load with only the fixed stages (and the
+   * fairing) above it; with every stage sized the sum of c_i ln(1/eps_i).
+   * With boosters the core's counts them when its load is fixed
+   * (sw-booster-sizing.c, parallel_limit ()). */
+  double   delta_v_limit_m_s;
+  double   margin_m_s;             /* the headroom: limit - delta_v, always */
+  /* The delta-v the stages give with this payload: the requirement, or
+   * more when every stage is fixed; NAN when infeasible. */
+  double   delta_v_given_m_s;
   double   multiplier_s_m;         /* Lagrange multiplier eta (s/m); NAN unless optimal */
   guint    n_unused;               /* stages given no delta-v by the optimum */
   guint    n_fixed;                /* stages with a fixed propellant load */

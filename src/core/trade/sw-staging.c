@@ -282,18 +282,29 @@ staging_compute (const SwDesign *design, guint max_stages, gboolean looped, SwSt
     }
   sw_reliability_curve_compute (design, out->n_counts, &rel);
   out->reliability_given = rel.given;
-  for (guint i = 0; i < design->n_stages; i++)
-    if (design->stages[i].propellant.has_propellant_kg)
+  {
+    char list[SW_FIXED_NOTE_MAX];
+    guint n_fixed = sw_fixed_stages_text (design, TRUE, list, sizeof list);
+
+    if (n_fixed > 0)
       {
-        /* Translators: %u is a stage number, %s its name */
-        g_snprintf (out->fixed_note, sizeof out->fixed_note,
-                    _("Every stage count is sized from the payload up, this design's own "
-                      "included: the fixed propellant load of stage %u (%s) is not applied."),
-                    i + 1, design->stages[i].name);
+        if (n_fixed == 1)
+          /* Translators: %s is a stage number and its name, "2 (Upper stage)" */
+          g_snprintf (out->fixed_note, sizeof out->fixed_note,
+                      _("Every stage count is sized from the payload up, this design's own "
+                        "included: the fixed propellant load of stage %s is not applied."),
+                      list);
+        else
+          /* Translators: %s is a list of stage numbers with their names,
+           * "1 (First stage) and 2 (Upper stage)" */
+          g_snprintf (out->fixed_note, sizeof out->fixed_note,
+                      _("Every stage count is sized from the payload up, this design's own "
+                        "included: the fixed propellant loads of stages %s are not applied."),
+                      list);
         g_strlcpy (out->reuse_note, _("The recovered columns resize every stage too."),
                    sizeof out->reuse_note);
-        break;
       }
+  }
 
   for (guint n = 1; n <= out->n_counts; n++)
     {

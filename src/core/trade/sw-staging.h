@@ -40,6 +40,7 @@
  * same criteria and the best row is the lowest sum over both. */
 #pragma once
 
+#include "sw-curves.h"
 #include "sw-cost.h"
 #include "sw-design.h"
 #include "sw-reuse.h"
@@ -117,7 +118,7 @@ typedef struct {
    * stage (the stage-count curve's rule); these say so plainly ("" when the
    * design has no fixed load).  fixed_note: the stage counts; reuse_note:
    * the recovered columns (sw-reuse.h resizes every stage too). */
-  char     fixed_note[SW_REASON_MAX];
+  char     fixed_note[SW_FIXED_NOTE_MAX];
   char     reuse_note[SW_REASON_MAX];
   /* With boosters: which rows are which, and what the booster rows leave
    * out (the boosters' reliability); that no row checks the thrust, with
