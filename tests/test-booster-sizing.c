@@ -15,6 +15,7 @@
 #include "sw-design-fields.h"
 #include "sw-phases.h"
 #include "sw-sizing.h"
+#include "sw-stage-thrust.h"
 
 #include <math.h>
 #include <string.h>
@@ -849,6 +850,28 @@ test_boosters_optimised_away (void)
   }
 }
 
+/* The cluster's liftoff thrust-to-weight (the inspector shows it beside the
+ * core's own): core and boosters' vacuum thrust over the sizing's liftoff
+ * weight, by hand; none without boosters or with boosters optimised away. */
+static void
+test_liftoff_tw_with_boosters (void)
+{
+  g_autoptr (SwDesign) d = booster_design (2, FALSE);
+  SwSizing sz;
+
+  g_assert_true (sw_size_design (d, &sz, NULL));
+  g_assert_true (sz.feasible);
+  assert_rel (sw_design_liftoff_tw_with_boosters (d),
+              (3000e3 + 2 * 2000e3) / (9.80665 * sz.liftoff_mass_kg), 1e-12);
+  assert_rel (sw_design_ignition_tw (d, 0), 3000e3 / (9.80665 * sz.liftoff_mass_kg), 1e-12);
+  d->boosters.isp_vac_s = 220.0;
+  d->boosters.has_isp_sl = FALSE;
+  d->boosters.structural_coefficient = 0.25;
+  g_assert_true (isnan (sw_design_liftoff_tw_with_boosters (d)));
+  d->boosters.count = 0;
+  g_assert_true (isnan (sw_design_liftoff_tw_with_boosters (d)));
+}
+
 /* Every stage fixed and the vehicle enough without its boosters: the least
  * booster load that is enough is none, so the sized boosters are optimised
  * away (before, a first scan load of some tens of kilograms was taken). */
@@ -898,6 +921,8 @@ main (int argc, char **argv)
   g_test_add_func ("/core/booster-sizing/performance", test_performance);
   g_test_add_func ("/core/booster-sizing/fixed-loads", test_fixed_loads);
   g_test_add_func ("/core/booster-sizing/optimised-away", test_boosters_optimised_away);
+  g_test_add_func ("/core/booster-sizing/liftoff-tw-with-boosters",
+                   test_liftoff_tw_with_boosters);
   g_test_add_func ("/core/booster-sizing/optimised-away-fixed-core",
                    test_boosters_away_fixed_core);
   return g_test_run ();
