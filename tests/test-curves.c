@@ -355,6 +355,8 @@ test_stage_curve_with_boosters (void)
            * boosters (sw-booster-sizing.h), on the curve as in the sizing. */
           g_assert_false (s3.feasible);
           g_assert_true (s3.boosters.optimised_away);
+          g_assert_nonnull (strstr (curve.booster_note, "At 3, 4, 5, 6 stages the sized boosters "
+                                                        "are optimised away"));
         }
 
       /* The serial points stay those of the stages without boosters. */
