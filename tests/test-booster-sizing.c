@@ -15,6 +15,7 @@
 #include "sw-design-fields.h"
 #include "sw-phases.h"
 #include "sw-sizing.h"
+#include "sw-stage-thrust.h"
 
 #include <math.h>
 #include <string.h>
@@ -820,6 +821,129 @@ test_fixed_loads (void)
   }
 }
 
+/* Sized boosters that do not pay (low Isp, heavy structure): the optimum
+ * gives them no propellant.  A vehicle whose boosters carry nothing is not a
+ * vehicle with boosters, so the sizing says so (infeasible, with the mass of
+ * the vehicle without them) and never counts their thrust.  The evidence is
+ * a brute-force grid over positive booster loads and the upper stages'
+ * delta-v: no vehicle with boosters is lighter than the exact Lagrange
+ * optimum without them (Curtis, sec. 11.6, as sw_size computes it). */
+static void
+test_boosters_optimised_away (void)
+{
+  g_autoptr (SwDesign) d = booster_design (2, FALSE);
+  g_autoptr (SwDesign) bare = NULL;
+  SwParallelVehicle v;
+  SwSizing sz, without;
+  double best = HUGE_VAL;
+  const guint n = 40;
+
+  d->boosters.isp_vac_s = 220.0;
+  d->boosters.has_isp_sl = FALSE;
+  d->boosters.structural_coefficient = 0.25;
+  g_assert_true (sw_design_validate (d, NULL, NULL));
+  bare = sw_design_copy (d);
+  bare->boosters.count = 0;
+  g_assert_true (sw_size_design (bare, &without, NULL));
+  g_assert_true (without.feasible);
+  g_assert_true (sw_parallel_vehicle_from_design (&v, d, NULL));
+  for (guint i = 1; i <= n; i++)
+    for (guint j = 1; j <= n; j++)
+      {
+        double pb = 40000.0 * i / n;
+        double dup = 9500.0 * j / (n + 1);
+        double p1 = core_for (&v, 5000.0, pb, dup, 9500.0);
+        double m = isfinite (p1) ? sw_parallel_liftoff_mass (&v, 5000.0, pb, p1, dup, NULL) : NAN;
+        if (isfinite (m))
+          best = MIN (best, m);
+      }
+  g_test_message ("without boosters %.3f kg, best grid point with boosters %.3f kg",
+                  without.liftoff_mass_kg, best);
+  g_assert_cmpfloat (best, >, without.liftoff_mass_kg);
+
+  g_assert_true (sw_size_design (d, &sz, NULL));
+  g_assert_false (sz.feasible);
+  g_assert_true (sz.boosters.present);
+  g_assert_true (sz.boosters.optimised_away);
+  g_assert_nonnull (strstr (sz.reason, "optimised away"));
+  g_assert_nonnull (strstr (sz.reason, "boosters.propellant_kg"));
+  assert_rel (sz.boosters.without_liftoff_mass_kg, without.liftoff_mass_kg, 1e-12);
+  g_assert_true (isnan (sz.liftoff_mass_kg));
+  g_assert_true (isnan (sz.boosters.propellant_mass_kg));
+  /* The phased machinery on its own says the same (no design-level mass). */
+  sw_size_parallel (&v, 5000.0, 9500.0, SW_SPLIT_OPTIMAL, &sz);
+  g_assert_false (sz.feasible);
+  g_assert_true (sz.boosters.optimised_away);
+  /* The same boosters with a load of their own: a vehicle with boosters,
+   * heavier than the one without (they do not pay, but they fly). */
+  d->boosters.propellant.has_propellant_kg = TRUE;
+  d->boosters.propellant.propellant_kg = 5000.0;
+  g_assert_true (sw_size_design (d, &sz, NULL));
+  g_assert_true (sz.feasible);
+  g_assert_false (sz.boosters.optimised_away);
+  g_assert_cmpfloat (sz.liftoff_mass_kg, >, without.liftoff_mass_kg);
+  /* Good boosters (the grid test's) are not optimised away. */
+  {
+    g_autoptr (SwDesign) good = booster_design (2, FALSE);
+    g_assert_true (sw_size_design (good, &sz, NULL));
+    g_assert_true (sz.feasible);
+    g_assert_false (sz.boosters.optimised_away);
+    g_assert_cmpfloat (sz.boosters.propellant_mass_kg, >, 1000.0);
+  }
+}
+
+/* The cluster's liftoff thrust-to-weight (the inspector shows it beside the
+ * core's own): core and boosters' vacuum thrust over the sizing's liftoff
+ * weight, by hand; none without boosters or with boosters optimised away. */
+static void
+test_liftoff_tw_with_boosters (void)
+{
+  g_autoptr (SwDesign) d = booster_design (2, FALSE);
+  SwSizing sz;
+
+  g_assert_true (sw_size_design (d, &sz, NULL));
+  g_assert_true (sz.feasible);
+  assert_rel (sw_design_liftoff_tw_with_boosters (d),
+              (3000e3 + 2 * 2000e3) / (9.80665 * sz.liftoff_mass_kg), 1e-12);
+  assert_rel (sw_design_ignition_tw (d, 0), 3000e3 / (9.80665 * sz.liftoff_mass_kg), 1e-12);
+  d->boosters.isp_vac_s = 220.0;
+  d->boosters.has_isp_sl = FALSE;
+  d->boosters.structural_coefficient = 0.25;
+  g_assert_true (isnan (sw_design_liftoff_tw_with_boosters (d)));
+  d->boosters.count = 0;
+  g_assert_true (isnan (sw_design_liftoff_tw_with_boosters (d)));
+}
+
+/* Every stage fixed and the vehicle enough without its boosters: the least
+ * booster load that is enough is none, so the sized boosters are optimised
+ * away (before, a first scan load of some tens of kilograms was taken). */
+static void
+test_boosters_away_fixed_core (void)
+{
+  g_autoptr (SwDesign) d = booster_design (2, FALSE);
+  SwParallelVehicle v;
+  SwSizing sz;
+  double got;
+
+  fix_loads (d, 1.0, 90000.0, 30000.0, 8000.0);
+  d->boosters.propellant.has_propellant_kg = FALSE;
+  g_assert_true (sw_parallel_vehicle_from_design (&v, d, NULL));
+  v.count = 0;
+  g_assert_true (isfinite (sw_parallel_liftoff_mass (&v, 5000.0, 0.0, 90000.0, 0.0, &got)));
+  d->mission.delta_v_m_s = got - 100.0;
+  g_assert_true (sw_design_validate (d, NULL, NULL));
+  g_assert_true (sw_size_design (d, &sz, NULL));
+  g_assert_false (sz.feasible);
+  g_assert_true (sz.boosters.optimised_away);
+  g_assert_nonnull (strstr (sz.reason, "optimised away"));
+  /* 300 m/s more than the vehicle gives alone: the boosters carry a load. */
+  d->mission.delta_v_m_s = got + 300.0;
+  g_assert_true (sw_size_design (d, &sz, NULL));
+  g_assert_true (sz.feasible);
+  g_assert_false (sz.boosters.optimised_away);
+  g_assert_cmpfloat (sz.boosters.propellant_mass_kg, >, 100.0);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -838,5 +962,10 @@ main (int argc, char **argv)
   g_test_add_func ("/core/booster-sizing/too-much", test_too_much);
   g_test_add_func ("/core/booster-sizing/performance", test_performance);
   g_test_add_func ("/core/booster-sizing/fixed-loads", test_fixed_loads);
+  g_test_add_func ("/core/booster-sizing/optimised-away", test_boosters_optimised_away);
+  g_test_add_func ("/core/booster-sizing/liftoff-tw-with-boosters",
+                   test_liftoff_tw_with_boosters);
+  g_test_add_func ("/core/booster-sizing/optimised-away-fixed-core",
+                   test_boosters_away_fixed_core);
   return g_test_run ();
 }

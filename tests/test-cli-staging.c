@@ -787,6 +787,94 @@ test_carpet_simulated (void)
   run_clear (&r);
 }
 
+/* The strap-on demo with its boosters sized: from three stages up the
+ * optimum leaves the boosters empty.  `stages` marks those rows, prints no
+ * figure for them, names them in the note and never picks one as the best;
+ * `size` of the three-stage vehicle says plainly that its boosters are
+ * optimised away instead of showing "0.0 kg" boosters and a vehicle that
+ * counts their thrust. */
+static void
+test_stages_boosters_optimised_away (void)
+{
+  g_autofree char *demo = g_build_filename (g_getenv ("SW_SOURCE_ROOT"), "data", "designs",
+                                            "four-booster-cargo.stagewright", NULL);
+  g_autoptr (SwDesign) d = sw_design_load (demo, NULL, NULL);
+  g_autoptr (JsonNode) keep = NULL;
+  g_autoptr (GError) error = NULL;
+  g_autofree char *path = NULL;
+  JsonObject *o;
+  JsonArray *rows;
+  SwStaging s;
+  guint away = 0;
+  int fd;
+  Run r;
+
+  g_assert_nonnull (d);
+  d->boosters.propellant.has_propellant_kg = FALSE;
+  d->mission.loss_model = SW_LOSS_ALLOWANCE;
+  g_assert_true (sw_design_validate (d, NULL, NULL));
+  fd = g_file_open_tmp ("sw-cli-away-XXXXXX.stagewright", &path, &error);
+  g_assert_no_error (error);
+  close (fd);
+  g_assert_true (sw_design_save (d, path, &error));
+  g_assert_no_error (error);
+  g_assert_true (sw_staging_compute (d, 6, &s, NULL));
+
+  run_cli (&r, "stages", path, "--json", NULL);
+  g_assert_cmpint (r.code, ==, 0);
+  o = parse (r.out, &keep);
+  rows = json_object_get_array_member (o, "by_stage_count");
+  g_assert_cmpuint (json_array_get_length (rows), ==, 12);
+  for (guint i = 0; i < 12; i++)
+    {
+      JsonObject *row = json_array_get_object_element (rows, i);
+      gboolean is_away = json_object_get_boolean_member (row, "boosters_optimised_away");
+
+      g_assert_cmpint (is_away, ==, s.rows[i].boosters_optimised_away);
+      if (is_away)
+        {
+          away++;
+          g_assert_cmpuint (i, >=, 6);
+          g_assert_false (json_object_get_boolean_member (row, "closes"));
+          g_assert_nonnull (strstr (json_object_get_string_member (row, "why_not"),
+                                    "optimised away"));
+          g_assert_true (json_node_is_null (json_object_get_member (row, "liftoff_mass_kg")));
+          g_assert_true (json_node_is_null (json_object_get_member (row,
+                                                                    "liftoff_thrust_to_weight")));
+        }
+    }
+  g_assert_cmpuint (away, >=, 1);
+  /* The best row: the design's own, two stages with their boosters. */
+  g_assert_cmpstr (json_object_get_string_member (o, "best_arrangement"), ==, "boosters");
+  g_assert_cmpint (json_object_get_int_member (o, "best_stage_count"), ==, 2);
+  g_assert_nonnull (strstr (json_object_get_string_member (o, "boosters_note"),
+                            "optimised away"));
+  run_clear (&r);
+
+  run_cli (&r, "stages", path, NULL);
+  g_assert_cmpint (r.code, ==, 0);
+  g_assert_nonnull (strstr (r.out, "*>  2 "));
+  g_assert_null (strstr (r.out, "*   3 "));
+  g_assert_nonnull (strstr (r.out, "With boosters at 3, 4, 5, 6 stages the sized boosters are "
+                                   "optimised away"));
+  run_clear (&r);
+
+  /* Three stages (the top stage repeated): the sizing says why. */
+  d->stages[2] = d->stages[1];
+  g_strlcpy (d->stages[2].name, "third", sizeof d->stages[2].name);
+  d->n_stages = 3;
+  d->stages[0].delta_v_share = d->stages[1].delta_v_share = d->stages[2].delta_v_share = 1.0 / 3;
+  g_assert_true (sw_design_validate (d, NULL, NULL));
+  g_assert_true (sw_design_save (d, path, &error));
+  g_assert_no_error (error);
+  run_cli (&r, "size", path, NULL);
+  g_assert_nonnull (strstr (r.out, "The sized boosters are optimised away"));
+  g_assert_null (strstr (r.out, "0.0 kg propellant"));
+  g_assert_null (strstr (r.out, "-0.0"));
+  run_clear (&r);
+  g_unlink (path);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -797,6 +885,8 @@ main (int argc, char **argv)
   g_test_add_func ("/cli/staging/carpet-errors", test_carpet_errors);
   g_test_add_func ("/cli/staging/export-csv", test_export_csv);
   g_test_add_func ("/cli/staging/stages-boosters", test_stages_boosters);
+  g_test_add_func ("/cli/staging/stages-boosters-optimised-away",
+                   test_stages_boosters_optimised_away);
   g_test_add_func ("/cli/staging/stages-simulated", test_stages_simulated);
   g_test_add_func ("/cli/staging/carpet-simulated", test_carpet_simulated);
   g_test_add_func ("/cli/staging/carpet-money", test_carpet_money);

@@ -65,6 +65,12 @@ test_no_signed_zero (void)
   expect (sw_format_mass_delta (3200.0), "+3,200 kg");
   expect (sw_format_mass_delta (-12340.0), "\342\210\222" "12.3 t");
   expect (sw_format_distance_km (-20.0), "0.0 km");
+  /* The block-buffer form the ascent's messages use (a flight that ends a
+   * hair below the ground once read "-0.0 km"). */
+  g_assert_cmpstr (SW_KM (-0.004), ==, "0.0 km");
+  g_assert_cmpstr (SW_KM (-2500.0), ==, "\342\210\222" "2.5 km");
+  g_assert_cmpstr (SW_KM (185300.0), ==, "185.3 km");
+  g_assert_cmpstr (SW_KM (NAN), ==, SW_NO_VALUE);
   expect (sw_format_number (-0.04, 1), "0.0");
   expect (sw_format_number (-0.06, 1), "\342\210\222" "0.1");
   expect (sw_format_speed_delta (1811.4), "+1,811 m/s");

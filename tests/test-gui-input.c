@@ -740,6 +740,59 @@ test_boosters (void)
   sw_test_window_close (w);
 }
 
+/* With boosters, stage 1's T/W field is the core's thrust alone over the
+ * whole vehicle at liftoff: its caption says so and the cluster's figure
+ * (the boosters' vacuum thrust too) stands beside it, both against the
+ * design's own sizing by hand (the demo's 1,300 kN core and 4 x 800 kN
+ * boosters).  A T/W typed there sets the core's thrust only.  An upper
+ * stage, or no boosters, keeps "T/W at ignition". */
+static void
+test_booster_core_tw (void)
+{
+  SwWindow *w = window_with_demo ("four-booster-cargo.stagewright");
+  SwInspector *insp = sw_window_get_inspector (w);
+  SwNumberField *tw = field (w, SW_INSPECTOR_TW);
+  GtkWidget *caption = gtk_widget_get_prev_sibling (GTK_WIDGET (tw));
+  GtkWidget *note = gtk_widget_get_next_sibling (GTK_WIDGET (tw));
+  SwSizing sz;
+  double m0, with;
+  g_autofree char *want = NULL, *ratio = NULL;
+
+  sw_inspector_set_selected (insp, 0);
+  drain ();
+  g_assert_true (GTK_IS_LABEL (caption) && GTK_IS_LABEL (note));
+  g_assert_true (sw_size_design (doc_design (w), &sz, NULL));
+  g_assert_true (sz.feasible);
+  m0 = sz.liftoff_mass_kg;
+  g_assert_cmpfloat_with_epsilon (sw_number_field_get_value (tw), 1300e3 / (9.80665 * m0), 1e-9);
+  with = (1300e3 + 4 * 800e3) / (9.80665 * m0);
+  g_assert_cmpfloat_with_epsilon (sw_design_liftoff_tw_with_boosters (doc_design (w)), with, 1e-12);
+  g_assert_cmpstr (gtk_label_get_text (GTK_LABEL (caption)), ==, "T/W at ignition, core alone");
+  ratio = sw_format_ratio (with, 2);
+  want = g_strdup_printf ("with boosters %s", ratio);
+  g_assert_cmpstr (gtk_label_get_text (GTK_LABEL (note)), ==, want);
+  maybe_shot (w, "input-booster-core-tw.png");
+
+  /* Typed, the core's thrust follows; the boosters' stays. */
+  focus_field (w, GTK_WIDGET (tw));
+  retype ("0.5");
+  xdo ("key", "Return", NULL);
+  g_assert_null (sw_number_field_get_error (tw));
+  g_assert_cmpfloat (doc_design (w)->boosters.thrust_vac_kn, ==, 800.0);
+  /* From the sizing as it was when typed: with boosters the core's mass
+   * flow moves the sizing, so the new T/W is near 0.5, not exactly. */
+  g_assert_cmpfloat_with_epsilon (doc_design (w)->stages[0].propulsion.thrust_vac_kn,
+                                  0.5 * 9.80665 * m0 / 1000.0, 1e-6);
+  g_assert_cmpfloat_with_epsilon (sw_design_ignition_tw (doc_design (w), 0), 0.5, 0.01);
+
+  /* An upper stage: the plain caption, nothing beside. */
+  sw_inspector_set_selected (insp, 1);
+  drain ();
+  g_assert_cmpstr (gtk_label_get_text (GTK_LABEL (caption)), ==, "T/W at ignition");
+  g_assert_cmpstr (gtk_label_get_text (GTK_LABEL (note)), ==, "");
+  sw_test_window_close (w);
+}
+
 static void
 test_parse (void)
 {
@@ -1177,6 +1230,7 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/input/new-stage-flies", test_new_stage_flies);
   g_test_add_func ("/gui/input/to-scale-clicks", test_to_scale_clicks);
   g_test_add_func ("/gui/input/boosters", test_boosters);
+  g_test_add_func ("/gui/input/booster-core-tw", test_booster_core_tw);
 
   status = g_test_run ();
   sw_gui_test_env_finish (tmp_dir);

@@ -429,6 +429,89 @@ test_staging_unrecovered_row (void)
   g_assert_nonnull (strstr (note, "6 serial stages"));
 }
 
+/* The demo with strap-ons, its boosters sized (no propellant_kg): from
+ * three stages up the optimum gives them no propellant.  Those booster rows
+ * are no vehicle with boosters: they do not close, carry no thrust-to-weight
+ * (the boosters' thrust is never counted for boosters that burn nothing),
+ * are named in the note and are never the best row.  The evidence that the
+ * boosters do not pay there comes from another route: the same stages with a
+ * small fixed booster load (1 % of the serial vehicle over the boosters)
+ * weigh more than the serial vehicle. */
+static void
+test_staging_boosters_optimised_away (void)
+{
+  g_autoptr (GError) error = NULL;
+  g_autofree char *path = g_build_filename (g_getenv ("SW_SOURCE_ROOT"), "data", "designs",
+                                            "four-booster-cargo.stagewright", NULL);
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, &error);
+  SwStaging st;
+  SwParallelVehicle pv;
+  double dv;
+  guint away = 0;
+
+  g_assert_no_error (error);
+  d->boosters.propellant.has_propellant_kg = FALSE;
+  d->mission.loss_model = SW_LOSS_ALLOWANCE;
+  g_assert_true (sw_design_validate (d, NULL, NULL));
+  g_assert_cmpuint (d->n_stages, ==, 2);
+  g_assert_true (sw_staging_compute (d, 6, &st, NULL));
+  g_assert_true (sw_design_required_delta_v (d, &dv, NULL));
+  g_assert_true (sw_parallel_vehicle_from_design (&pv, d, NULL));
+  for (guint i = 0; i < SW_MAX_STAGES; i++)
+    pv.fixed_kg[i] = 0.0;
+  for (guint n = 2; n <= 6; n++)
+    {
+      const SwStagingRow *r = sw_staging_row (&st, SW_ARRANGEMENT_BOOSTERS, n);
+      SwParallelVehicle bare, small;
+      SwSizing s0, s1;
+
+      sw_stage_set_extend (&pv.set, d, n);
+      bare = small = pv;
+      bare.count = 0;
+      sw_size_parallel (&bare, d->payload_kg, dv, SW_SPLIT_OPTIMAL, &s0);
+      g_assert_true (s0.feasible);
+      small.booster_fixed_kg = 0.01 * s0.liftoff_mass_kg / pv.count;
+      sw_size_parallel (&small, d->payload_kg, dv, SW_SPLIT_OPTIMAL, &s1);
+      g_test_message ("%u stages: away %d; without boosters %.1f kg, with 1 %% boosters %.1f kg",
+                      n, r->boosters_optimised_away, s0.liftoff_mass_kg, s1.liftoff_mass_kg);
+      if (r->boosters_optimised_away)
+        {
+          away++;
+          g_assert_false (r->feasible);
+          g_assert_true (isnan (r->liftoff_mass_kg));
+          g_assert_true (isnan (r->liftoff_thrust_to_weight));
+          g_assert_true (isnan (r->score));
+          g_assert_nonnull (strstr (r->reason, "optimised away"));
+          g_assert_true (s1.feasible);
+          g_assert_cmpfloat (s1.liftoff_mass_kg, >, s0.liftoff_mass_kg);
+        }
+      else
+        {
+          /* A closing booster row carries boosters with a real load. */
+          SwSizing sz;
+          g_assert_true (r->feasible);
+          sw_size_parallel (&pv, d->payload_kg, dv, SW_SPLIT_OPTIMAL, &sz);
+          g_assert_true (sz.feasible);
+          g_assert_cmpfloat (sz.boosters.total_mass_kg, >, 1e-3 * sz.liftoff_mass_kg);
+        }
+    }
+  g_assert_cmpuint (away, >=, 1);
+  g_assert_false (sw_staging_row (&st, SW_ARRANGEMENT_BOOSTERS, 2)->boosters_optimised_away);
+  g_assert_nonnull (strstr (st.boosters_note, "optimised away"));
+  g_assert_nonnull (strstr (st.boosters_note, "no candidates"));
+  /* The best row is a vehicle that lifts off, and never an emptied one. */
+  g_assert_cmpint (st.best, >=, 0);
+  g_assert_false (st.rows[st.best].boosters_optimised_away);
+  g_assert_true (st.rows[st.best].feasible);
+  g_assert_cmpfloat (st.rows[st.best].liftoff_thrust_to_weight, >=, 1.0);
+  for (guint i = 0; i < st.n_rows; i++)
+    if (st.rows[i].boosters_optimised_away)
+      g_assert_cmpint (st.best, !=, (int) i);
+  /* Serial rows are never marked so. */
+  for (guint i = 0; i < st.n_counts; i++)
+    g_assert_false (st.rows[i].boosters_optimised_away);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -439,5 +522,6 @@ main (int argc, char **argv)
   g_test_add_func ("/core/staging/fixed-load-note", test_staging_fixed_note);
   g_test_add_func ("/core/staging/booster-rows", test_staging_booster_rows);
   g_test_add_func ("/core/staging/unrecovered-row", test_staging_unrecovered_row);
+  g_test_add_func ("/core/staging/boosters-optimised-away", test_staging_boosters_optimised_away);
   return g_test_run ();
 }

@@ -84,6 +84,8 @@ struct _SwInspector {
   SwNumberField *engine_thrust_field;
   SwNumberField *engine_count_field;
   SwNumberField *tw_field;
+  GtkLabel *tw_caption;           /* with boosters, stage 1's says it is the core alone */
+  GtkLabel *tw_note;              /* there, the cluster's liftoff T/W beside the field */
   SwNumberField *diameter_field;
   GtkDropDown   *propellant_dropdown;     /* SwPropellantKind order */
   GtkEntry      *propellant_name_entry;   /* a propellant of the user's own */
@@ -1540,6 +1542,10 @@ build_sections (SwInspector *self)
                                      "1.2 for an upper stage"),
                                    SW_N_FIELDS, SW_N_LIMITS, 2, 0.05, NULL);
   sw_number_field_set_range (self->tw_field, 0.0, SW_TW_MAX, TRUE, "", 2, 0.05);
+  self->tw_caption = GTK_LABEL (gtk_grid_get_child_at (grid, 0, row - 1));
+  self->tw_note = GTK_LABEL (gtk_grid_get_child_at (grid, 2, row - 1));
+  gtk_label_set_wrap (self->tw_note, TRUE);
+  gtk_label_set_max_width_chars (self->tw_note, 9);
   g_signal_connect (self->tw_field, "value-committed", G_CALLBACK (tw_cb), self);
   self->diameter_field = add_number_row (self, grid, row++, _("_Diameter"),
                                          _("Outer diameter, the drag reference area; an upper "
@@ -1751,6 +1757,37 @@ update_extra_stage_fields (SwInspector *self, const SwDesign *d, guint i, gboole
   show (self->engine_count_field,
         sw_design_field_get (d, SW_FIELD_ENGINE_COUNT, i, &v) ? v : NAN);
   show (self->tw_field, sw_design_ignition_tw (d, i));
+  if (i == 0 && d->boosters.count > 0)
+    {
+      /* The field is the core's thrust alone over the whole vehicle at
+       * liftoff; the cluster's figure (boosters' thrust too) goes beside it. */
+      double with = sw_design_liftoff_tw_with_boosters (d);
+      g_autofree char *ratio = sw_format_ratio (with, 2);
+      /* Translators: beside the core's own T/W field, %s is the liftoff
+       * thrust-to-weight with the boosters ("1.71") */
+      g_autofree char *note = isfinite (with) ? g_strdup_printf (_("with boosters %s"), ratio)
+                                              : g_strdup ("");
+      const char *tip = _("The core's vacuum thrust alone over the weight of the whole vehicle "
+                          "at liftoff, boosters included; beside it, the same with the "
+                          "boosters' vacuum thrust added. Type a value to set the core's thrust "
+                          "from it; the boosters' thrust is not changed");
+
+      gtk_label_set_text_with_mnemonic (self->tw_caption, _("T/W at _ignition, core alone"));
+      gtk_widget_set_tooltip_text (GTK_WIDGET (self->tw_caption), tip);
+      gtk_widget_set_tooltip_text (GTK_WIDGET (self->tw_field), tip);
+      gtk_label_set_text (self->tw_note, note);
+    }
+  else
+    {
+      const char *tip = _("Vacuum thrust over the weight of the stage and everything above it "
+                          "at ignition. Type a value to set the thrust from it; common practice "
+                          "is 1.2 to 1.5 at liftoff and 0.6 to 1.2 for an upper stage");
+
+      gtk_label_set_text_with_mnemonic (self->tw_caption, _("T/W at _ignition"));
+      gtk_widget_set_tooltip_text (GTK_WIDGET (self->tw_caption), tip);
+      gtk_widget_set_tooltip_text (GTK_WIDGET (self->tw_field), tip);
+      gtk_label_set_text (self->tw_note, "");
+    }
   show (self->diameter_field, sw_design_field_get (d, SW_FIELD_DIAMETER, i, &v) ? v : NAN);
   show (self->coast_field, sw_design_field_get (d, SW_FIELD_COAST, i, &v) ? v : NAN);
   gtk_widget_set_sensitive (GTK_WIDGET (self->coast_field), i > 0);

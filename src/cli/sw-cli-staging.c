@@ -198,6 +198,8 @@ stages_json (const SwDesign *d, const SwStaging *s)
       json_builder_add_boolean_value (b, r->feasible);
       json_builder_set_member_name (b, "closes_recovered");
       json_builder_add_boolean_value (b, r->reused_feasible);
+      json_builder_set_member_name (b, "boosters_optimised_away");
+      json_builder_add_boolean_value (b, r->boosters_optimised_away);
       json_builder_set_member_name (b, "why_not");
       if (r->feasible)
         json_builder_add_null_value (b);

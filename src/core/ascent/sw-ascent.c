@@ -1776,14 +1776,14 @@ sw_flight_fill_result (const SwFlightSim *s, SwOutcome out, SwAscentResult *res)
             g_snprintf (res->reason, sizeof res->reason,
                         _("The vehicle falls short of the %.0f km orbit by %s of "
                           "delta-v: the simulated losses are %s where the sizing "
-                          "allowed %s. The last stage burns out at T+%.0f s, %.0f km "
+                          "allowed %s. The last stage burns out at T+%.0f s, %s "
                           "up at %s (perigee %.0f km); flown on to the cutoff with %.0f kg "
                           "of propellant beyond its load, to measure the shortfall."),
                         m->r_target / 1000.0 - SW_RE / 1000.0, SW_SPEED (res->delta_v_missing_m_s),
                         SW_SPEED (res->losses_m_s), SW_SPEED (m->sized_total - m->ideal), f->t_real_bo,
-                        (f->y_real_bo[SW_Y_R] - SW_RE) / 1000.0,
-                        SW_SPEED (hypot (f->y_real_bo[SW_Y_VR], f->y_real_bo[SW_Y_VT])), res->perigee_km,
-                        res->propellant_beyond_load_kg);
+                        SW_KM (f->y_real_bo[SW_Y_R] - SW_RE),
+                        SW_SPEED (hypot (f->y_real_bo[SW_Y_VR], f->y_real_bo[SW_Y_VT])),
+                        res->perigee_km, res->propellant_beyond_load_kg);
           else
             g_snprintf (res->reason, sizeof res->reason,
                         _("The vehicle reaches the %.0f km orbit in the plane but lacks %.1f "

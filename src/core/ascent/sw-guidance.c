@@ -631,16 +631,16 @@ describe_failure (Solver *sv, SwAscentResult *res, gboolean fixed_kick)
     g_snprintf (res->reason, sizeof res->reason,
                 _("No ascent: the first stage never reaches the pitch-over speed of %s "
                   "(thrust-to-weight %.2f at liftoff); flying straight up it ends at T+%.0f s, "
-                  "%.1f km."),
+                  "%s."),
                 SW_SPEED (m->pitch_over_speed), res->liftoff_thrust_to_weight, f->t,
-                (f->y[SW_Y_R] - SW_RE) / 1000.0);
+                SW_KM (f->y[SW_Y_R] - SW_RE));
   else if (!sv->any_guide)
     g_snprintf (res->reason, sizeof res->reason,
                 _("No ascent: %s the vehicle falls back to the ground before the first stage "
                   "burns out (thrust-to-weight %.2f at liftoff; the best kick, %.2f deg, "
-                  "reaches %.1f km). The first stage lacks thrust or burns too short."),
+                  "reaches %s). The first stage lacks thrust or burns too short."),
                 kicks, res->liftoff_thrust_to_weight, sv->best_fall_kick / SW_DEG,
-                sv->best_fall_alt / 1000.0);
+                SW_KM (sv->best_fall_alt));
   else if (!sv->any_energy && sv->best_short < G_MAXDOUBLE)
     g_snprintf (res->reason, sizeof res->reason,
                 _("No ascent: %s no steering of the upper stages reaches the energy of the "
@@ -654,8 +654,8 @@ describe_failure (Solver *sv, SwAscentResult *res, gboolean fixed_kick)
     g_snprintf (res->reason, sizeof res->reason,
                 _("No ascent: %s the upper stages reach the energy of the %.0f km orbit, but "
                   "no steering found puts the cutoff at that altitude with a level flight "
-                  "path (the last attempt ends at T+%.0f s, %.1f km up at %s)."),
-                kicks, (m->r_target - SW_RE) / 1000.0, f->t, (f->y[SW_Y_R] - SW_RE) / 1000.0,
+                  "path (the last attempt ends at T+%.0f s, %s up at %s)."),
+                kicks, (m->r_target - SW_RE) / 1000.0, f->t, SW_KM (f->y[SW_Y_R] - SW_RE),
                 SW_SPEED (hypot (f->y[SW_Y_VR], f->y[SW_Y_VT])));
 }
 

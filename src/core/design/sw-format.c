@@ -219,6 +219,15 @@ sw_format_distance_km (double m)
   return with_unit (m / 1000.0, 1, C_("unit", "km"), FALSE);
 }
 
+const char *
+sw_format_distance_km_into (char *buf, gsize size, double m)
+{
+  g_autofree char *text = sw_format_distance_km (m);
+
+  g_strlcpy (buf, text, size);
+  return buf;
+}
+
 char *
 sw_format_pressure_kpa (double pa)
 {

@@ -44,6 +44,11 @@ char       *sw_format_percent (double fraction, int decimals);  /* 0.0123, 2 -> 
 char       *sw_format_probability (double p);           /* "95.1 %"; "99.91 %" near 1 */
 char       *sw_format_duration (double s);              /* "152.3 s" */
 char       *sw_format_distance_km (double m);           /* metres in, "185.0 km" */
+/* The same into @buf, as SW_SPEED: SW_KM (altitude_m) in a g_snprintf
+ * message ("0.0 km", never "-0.0 km"; a negative one with U+2212). */
+#define SW_KM_TEXT 48
+const char *sw_format_distance_km_into (char *buf, gsize size, double m);
+#define SW_KM(m) sw_format_distance_km_into ((char[SW_KM_TEXT]) { 0 }, SW_KM_TEXT, (m))
 char       *sw_format_pressure_kpa (double pa);         /* pascals in, "32.4 kPa" */
 char       *sw_format_accel_g (double g);               /* "3.85 g" */
 char       *sw_format_ratio (double ratio, int decimals);  /* "1.350" */

@@ -33,6 +33,25 @@ sw_size_design (const SwDesign *design, SwSizing *out, GError **error)
       || !sw_design_required_delta_v (design, &dv, error))
     return FALSE;
   sw_size_parallel (&v, design->payload_kg, dv, design->split, out);
+  if (out->boosters.optimised_away)
+    {
+      /* Say what the design weighs without its boosters, sized as it
+       * would be with the key removed. */
+      g_autoptr (SwDesign) bare = sw_design_copy (design);
+      SwSizing without;
+
+      bare->boosters.count = 0;
+      if (sw_size_design_serial (bare, &without, NULL) && without.feasible)
+        {
+          g_autofree char *mass = sw_format_mass (without.liftoff_mass_kg);
+          out->boosters.without_liftoff_mass_kg = without.liftoff_mass_kg;
+          /* Translators: %s is a mass ("198.7 t") */
+          g_snprintf (out->reason, sizeof out->reason,
+                      _("The sized boosters are optimised away: the lightest vehicle gives them "
+                        "no propellant (%s at liftoff without them). Fix their load "
+                        "(boosters.propellant_kg) or remove them."), mass);
+        }
+    }
   return TRUE;
 }
 
@@ -1183,6 +1202,31 @@ fixed_core_boosters (const FixedCore *fc, double *pb_out)
   return minimise (fixed_core_mass, (gpointer) fc, 0.0, top, BOOSTER_GRID, pb_out);
 }
 
+/* Sized boosters that the optimum @pb leaves (next to) empty: the vehicle
+ * with no booster propellant, @m_without, is as light as the one with @pb,
+ * @m_with (within rounding), or the boosters carry less than a millionth of
+ * it.  Then the boosters are optimised away: the sizing says so and gives
+ * no vehicle with boosters (their thrust would be counted at liftoff for
+ * boosters that burn nothing). */
+static gboolean
+boosters_away (const SwParallelVehicle *v, double pb, double m_with, double m_without)
+{
+  if (v->count == 0 || v->booster_fixed_kg > 0.0 || !isfinite (m_without))
+    return FALSE;
+  if (!(pb > 0.0) || !isfinite (m_with))
+    return TRUE;
+  return m_without <= m_with * (1.0 + 1e-10) || v->count * pb < 1e-6 * m_with;
+}
+
+static void
+set_boosters_away (SwSizing *out)
+{
+  set_infeasible (out, _("The sized boosters are optimised away: the lightest vehicle gives them "
+                         "no propellant. Fix their load (boosters.propellant_kg) or remove "
+                         "them."));
+  out->boosters.optimised_away = TRUE;
+}
+
 void
 sw_size_parallel (const SwParallelVehicle *v, double payload_kg, double delta_v_m_s,
                   SwSplitMode split, SwSizing *out)
@@ -1226,6 +1270,7 @@ sw_size_parallel (const SwParallelVehicle *v, double payload_kg, double delta_v_
       out->boosters.core_thrust_vac_n = v->core_thrust_n;
       out->boosters.mass_flow_kg_s = v->booster_thrust_n / v->booster_exhaust_velocity_m_s;
       out->boosters.core_mass_flow_kg_s = v->core_thrust_n / v->set.exhaust_velocity_m_s[0];
+      out->boosters.without_liftoff_mass_kg = NAN;
     }
   kind = upper_kind (v);
 
@@ -1247,6 +1292,11 @@ sw_size_parallel (const SwParallelVehicle *v, double payload_kg, double delta_v_
                           _("With the core's load fixed, no load of the boosters gives the "
                             "%s required (the core must also outlast the boosters)."), req);
               set_infeasible (out, reason);
+              return;
+            }
+          if (boosters_away (v, pb, fixed_core_mass (pb, &fc), fixed_core_mass (0.0, &fc)))
+            {
+              set_boosters_away (out);
               return;
             }
           if (kind == UPPER_SIZED
@@ -1322,6 +1372,14 @@ sw_size_parallel (const SwParallelVehicle *v, double payload_kg, double delta_v_
     double d_given;
     Ctx cc = c;
     cc.m_up = upper_mass (v, payload_kg, d_up, split, NULL, &d_given);
+    cc.d_up = d_given;
+    cc.hint = 0.0;
+    if (v->count > 0 && !(v->booster_fixed_kg > 0.0)
+        && boosters_away (v, pb, mass_for_booster (pb, &cc), mass_for_booster (0.0, &cc)))
+      {
+        set_boosters_away (out);
+        return;
+      }
     if (solve_core (v, cc.m_up, pb, delta_v_m_s - d_given, &p1) != CORE_OK)
       {
         set_infeasible (out, _("The core's load could not be found."));

@@ -84,6 +84,7 @@ sw_stage_curve_compute (const SwDesign *design, double delta_v_m_s, guint max_st
   if (design->boosters.count > 0)
     {
       SwParallelVehicle v;
+      g_autoptr (GString) away = g_string_new (NULL);
 
       /* Without the core's thrust the design does not size: no curve. */
       if (!sw_parallel_vehicle_from_design (&v, design, NULL))
@@ -114,6 +115,20 @@ sw_stage_curve_compute (const SwDesign *design, double delta_v_m_s, guint max_st
           p->feasible = sizing.feasible;
           p->liftoff_mass_kg = sizing.feasible ? sizing.liftoff_mass_kg : NAN;
           p->delta_v_limit_m_s = sizing.delta_v_limit_m_s;
+          if (sizing.boosters.optimised_away)
+            g_string_append_printf (away, "%s%u", away->len > 0 ? ", " : "", n);
+        }
+      if (away->len > 0)
+        {
+          char text[SW_REASON_MAX];
+
+          /* Translators: %s is a list of stage counts ("3, 4, 5") */
+          g_snprintf (text, sizeof text,
+                      _("At %s stages the sized boosters are optimised away (the lightest "
+                        "vehicle gives them no propellant): the curve with boosters has no "
+                        "point there."), away->str);
+          g_strlcat (out->booster_note, " ", sizeof out->booster_note);
+          g_strlcat (out->booster_note, text, sizeof out->booster_note);
         }
     }
 }

@@ -35,7 +35,7 @@ struct _SwStageCurve {
   guint  booster_count;
   SwStageCountPoint booster_points[SW_MAX_STAGES];
   /* With boosters: which curves have them ("" without). */
-  char   booster_note[SW_REASON_MAX];
+  char   booster_note[2 * SW_REASON_MAX];
 };
 
 typedef struct {

@@ -76,6 +76,13 @@ typedef struct {
   guint    fairing_phase;
   double   fairing_mass_kg;
   double   fairing_drop_mass_kg;
+  /* Sized boosters that the optimum gives no propellant (the vehicle is
+   * as light or lighter without them): the sizing is then infeasible with
+   * a reason that says so, since a vehicle whose boosters carry nothing is
+   * not a vehicle with boosters; without_liftoff_mass_kg is the same
+   * vehicle sized without them (NAN otherwise). */
+  gboolean optimised_away;
+  double   without_liftoff_mass_kg;
 } SwBoosterResult;
 
 struct _SwSizing {

@@ -87,3 +87,21 @@ sw_design_ignition_tw (const SwDesign *design, guint stage)
     return NAN;
   return thrust_n / (SW_G0 * mass);
 }
+
+double
+sw_design_liftoff_tw_with_boosters (const SwDesign *design)
+{
+  const SwStage *core;
+  double mass, thrust_n;
+
+  g_return_val_if_fail (design != NULL, NAN);
+  if (design->boosters.count == 0 || design->n_stages == 0)
+    return NAN;
+  core = &design->stages[0];
+  thrust_n = sw_stage_thrust_vac_n (&core->propulsion, core->reliability.has_engine_count
+                                                        ? core->reliability.engine_count : 1);
+  if (!isfinite (thrust_n) || !ignition_mass (design, 0, &mass, NULL))
+    return NAN;
+  thrust_n += design->boosters.count * design->boosters.thrust_vac_kn * 1000.0;
+  return thrust_n / (SW_G0 * mass);
+}

@@ -31,4 +31,11 @@ gboolean sw_design_set_thrust_for_tw (SwDesign *design, guint stage, double tw, 
  * without a thrust or a feasible sizing. */
 double   sw_design_ignition_tw (const SwDesign *design, guint stage);
 
+/* With strap-on boosters, the liftoff thrust-to-weight of the whole cluster:
+ * the core's and the boosters' vacuum thrust over the liftoff weight (g0)
+ * of the design's sizing, the same mass sw_design_ignition_tw() takes for
+ * stage 0 (which is the core's thrust alone).  NAN without boosters, without
+ * the core's thrust or a feasible sizing. */
+double   sw_design_liftoff_tw_with_boosters (const SwDesign *design);
+
 G_END_DECLS

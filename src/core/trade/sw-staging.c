@@ -102,6 +102,7 @@ fill_row (SwStagingRow *row, const SwDesign *design, const SwReuse *reuse)
   if (!row->feasible)
     row->success_probability = NAN;
   row->reused_feasible = reuse->reusable.feasible;
+  row->boosters_optimised_away = !row->feasible && reuse->expendable.boosters.optimised_away;
   g_strlcpy (row->reason, reuse->expendable.reason, sizeof row->reason);
   if (row->feasible && !row->reused_feasible)
     g_strlcpy (row->reused_reason, reuse->reusable.reason, sizeof row->reused_reason);
@@ -358,6 +359,38 @@ staging_compute (const SwDesign *design, guint max_stages, gboolean looped, SwSt
                                          &row->payload_fixed_size_kg);
         }
     }
+
+  /* Booster rows whose sized boosters are optimised away: say which. */
+  {
+    g_autoptr (GString) counts = g_string_new (NULL);
+    guint away = 0;
+
+    for (guint n = 1; out->booster_count > 0 && n <= out->n_counts; n++)
+      if (out->rows[out->n_counts + n - 1].boosters_optimised_away)
+        {
+          g_string_append_printf (counts, "%s%u", away > 0 ? ", " : "", n);
+          away++;
+        }
+    if (away > 0)
+      {
+        char away_text[SW_REASON_MAX];
+
+        /* Translators: %s is a list of stage counts ("3, 4, 5"); the sentence
+         * follows the note on the booster rows */
+        g_snprintf (away_text, sizeof away_text,
+                    g_dngettext (GETTEXT_PACKAGE,
+                                 "With boosters at %s stages the sized boosters are optimised away "
+                                 "(the lightest vehicle gives them no propellant): that row is no "
+                                 "vehicle with boosters, left empty and no candidate.",
+                                 "With boosters at %s stages the sized boosters are optimised away "
+                                 "(the lightest vehicle gives them no propellant): those rows are no "
+                                 "vehicle with boosters, left empty and no candidates.",
+                                 away),
+                    counts->str);
+        g_strlcat (out->boosters_note, " ", sizeof out->boosters_note);
+        g_strlcat (out->boosters_note, away_text, sizeof out->boosters_note);
+      }
+  }
 
   /* Say so when the core alone lifts not every serial row (vacuum thrust
    * over the liftoff weight; such rows are no candidates for the best). */

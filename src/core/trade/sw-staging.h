@@ -83,6 +83,10 @@ typedef struct {
    * below 1 cannot leave the pad with that thrust: it is no candidate for
    * the best row. */
   double   liftoff_thrust_to_weight;
+  /* A booster row whose sized boosters the optimum leaves empty: the row
+   * does not close (it is no vehicle with boosters, see sw-booster-sizing.h)
+   * and boosters_note names its stage count. */
+  gboolean boosters_optimised_away;
 } SwStagingRow;
 
 typedef struct {
