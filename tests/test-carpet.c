@@ -706,6 +706,40 @@ test_money (void)
   }
 }
 
+/* A whole-number axis never repeats a value: "boosters.count:0.5:3:4"
+ * would give 1, 1, 2, 3 (seen), so it is refused with the most points the
+ * range allows; with that many the values are 1, 2, 3.  The default range
+ * of a whole-number axis has at most one point per value. */
+static void
+test_whole_axis_distinct (void)
+{
+  g_autofree char *path = g_build_filename (g_getenv ("SW_SOURCE_ROOT"),
+                                            "data", "designs", "four-booster-cargo.stagewright",
+                                            NULL);
+  g_autoptr (GError) error = NULL;
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, &error);
+  SwCarpetAxis a = { 0 };
+
+  g_assert_no_error (error);
+  g_assert_true (sw_carpet_axis_parse ("--x", "boosters.count:0.5:3:4", d, &a, &error));
+  g_assert_false (sw_carpet_axis_check (&a, d, &error));
+  g_assert_error (error, SW_ERROR, SW_ERROR_USAGE);
+  g_assert_nonnull (strstr (error->message, "boosters.count takes whole numbers"));
+  g_assert_nonnull (strstr (error->message, "give at most 3 points"));
+  g_clear_error (&error);
+  a.n = 3;
+  g_assert_true (sw_carpet_axis_check (&a, d, &error));
+  g_assert_no_error (error);
+  for (guint i = 0; i < 3; i++)
+    g_assert_cmpfloat (sw_carpet_axis_value (&a, i), ==, 1.0 + i);
+
+  a.n = 50;
+  sw_carpet_axis_default_range (&a, d);
+  g_assert_cmpuint (a.n, ==, (guint) (a.max - a.min) + 1);
+  g_assert_true (sw_carpet_axis_check (&a, d, &error));
+  g_assert_no_error (error);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -717,6 +751,7 @@ main (int argc, char **argv)
   g_test_add_func ("/core/carpet/fixed-load-parameter", test_fixed_load_parameter);
   g_test_add_func ("/core/carpet/cancel-and-progress", test_cancel_and_progress);
   g_test_add_func ("/core/carpet/bad-axes", test_bad_axes);
+  g_test_add_func ("/core/carpet/whole-axis-distinct", test_whole_axis_distinct);
   g_test_add_func ("/core/carpet/fixed-loads-honoured", test_fixed_loads_honoured);
   g_test_add_func ("/core/carpet/boosters-and-altitude", test_boosters_and_altitude);
   g_test_add_func ("/core/carpet/money", test_money);

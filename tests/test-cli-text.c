@@ -212,11 +212,39 @@ test_ascent_fairing (void)
   g_assert_null (strstr (out2, "\nFairing:"));
 }
 
+/* Names are printed whole, the columns as wide as the longest (seen cut:
+ * "Sallowmere first sta", "Harrowmere strap-ons + Brind"); --help's usage
+ * line names the program and the command once. */
+static void
+test_whole_names (void)
+{
+  g_autofree char *built = demo ("sallowmere-as-built.stagewright");
+  g_autofree char *cargo = demo ("four-booster-cargo.stagewright");
+  const char *size_built[] = { "size", built, NULL };
+  const char *ascent_built[] = { "ascent", built, NULL };
+  const char *size_cargo[] = { "size", cargo, NULL };
+  const char *help[] = { "size", "--help", NULL };
+  g_autofree char *out = run_cli (size_built);
+  g_autofree char *asc = run_cli (ascent_built);
+  g_autofree char *phases = run_cli (size_cargo);
+  g_autofree char *usage = run_cli (help);
+
+  g_assert_nonnull (strstr (out, "\n1   Sallowmere first stage  312.0 0.0750"));
+  g_assert_nonnull (strstr (out, "\n2   Kestrune upper stage    342.0 0.1100"));
+  g_assert_nonnull (strstr (asc, "\n1   Sallowmere first stage      1,600"));
+  g_assert_nonnull (strstr (phases, "\nHarrowmere strap-ons + Brindlemark core   2,570.4"));
+  /* The boosters' line lines up with the stage rows' names. */
+  g_assert_nonnull (strstr (phases, "\nB   Harrowmere strap-ons  275.0 0.1100"));
+  g_assert_nonnull (strstr (usage, "stagewright-cli size [OPTION"));
+  g_assert_null (strstr (usage, "size size"));
+}
+
 int
 main (int argc, char **argv)
 {
   g_test_init (&argc, &argv, NULL);
   g_test_add_func ("/cli-text/size", test_size_text);
+  g_test_add_func ("/cli-text/whole-names", test_whole_names);
   g_test_add_func ("/cli-text/size-huge", test_size_huge);
   g_test_add_func ("/cli-text/fixed", test_fixed_text);
   g_test_add_func ("/cli-text/sensitivity", test_sensitivity_text);

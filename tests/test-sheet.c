@@ -8,11 +8,14 @@
 #include "sw-limits.h"
 #include "sw-sheet.h"
 #include "sw-sheet-private.h"
+#include "sw-staging.h"
 #include "sw-text-fit.h"
 
 #include <cairo.h>
 #include <pango/pangocairo.h>
+#include <glib/gi18n-lib.h>
 #include <glib/gstdio.h>
+#include <locale.h>
 #include <math.h>
 #include <string.h>
 
@@ -320,30 +323,112 @@ check_no_overlap (SwAnalysis *a)
       }
 }
 
+/* Every statement whole: no text the page draws is cut ("…"), the title
+ * (the design's name) is drawn whole, and so is the staging panel's
+ * weighting statement (as the staging decision states it). */
+static void
+check_whole (SwAnalysis *a)
+{
+  g_autoptr (GArray) boxes = g_array_new (FALSE, FALSE, sizeof (SwSheetTextBox));
+  cairo_surface_t *surface = cairo_recording_surface_create (CAIRO_CONTENT_COLOR, NULL);
+  cairo_t *cr = cairo_create (surface);
+  gboolean title = FALSE, weighting = FALSE;
+  SwStaging st;
+  double w, h;
+
+  g_array_set_clear_func (boxes, box_clear);
+  sw_sheet_paper_size (SW_PAPER_A4, &w, &h);
+  sw_sheet_private_record_text (cr, boxes);
+  sw_sheet_draw_page (cr, a, w, h);
+  sw_sheet_private_record_text (cr, NULL);
+  cairo_destroy (cr);
+  cairo_surface_destroy (surface);
+  g_assert_true (sw_analysis_staging (a, SW_STAGING_MAX_STAGES, &st, NULL));
+  g_assert_cmpuint (strlen (st.weighting), >, 20);
+  for (guint i = 0; i < boxes->len; i++)
+    {
+      const char *t = g_array_index (boxes, SwSheetTextBox, i).text;
+
+      if (strstr (t, "\342\200\246") != NULL)  /* U+2026 */
+        g_error ("%s: \"%s\" is cut", a->design->name, t);
+      if (strcmp (t, a->design->name) == 0)
+        title = TRUE;
+      if (strstr (t, st.weighting) != NULL)
+        weighting = TRUE;
+    }
+  if (!title)
+    g_error ("%s: the title is not drawn whole", a->design->name);
+  if (!weighting)
+    g_error ("%s: the weighting \"%s\" is not drawn whole", a->design->name, st.weighting);
+}
+
+static const char *const demos[] = {
+  "all-solid-concept.stagewright", "skelloway-upgrade-study.stagewright",
+  "medium-cargo.stagewright", "small-sat-launcher.stagewright",
+  "three-stage-simulated.stagewright", "sallowmere-kestrune-upper-stage.stagewright",
+  "sallowmere-as-built.stagewright", "four-booster-cargo.stagewright",
+};
+
+static SwAnalysis *
+demo_briefing (const char *basename)
+{
+  g_autofree char *path = g_build_filename (g_getenv ("SW_SOURCE_ROOT"), "data", "designs",
+                                            basename, NULL);
+  g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
+  SwAnalysisOptions o;
+
+  g_assert_nonnull (d);
+  sw_analysis_options_init (&o);
+  o.band_samples = 500;
+  return sw_analysis_run (d, &o, NULL);
+}
+
+/* In English and, where the machine has the locale, in German (the longer
+ * words): every demo's sheet says everything whole, overprinting nothing. */
+static void
+test_whole_text (void)
+{
+  g_autofree char *old = g_strdup (setlocale (LC_ALL, NULL));
+  g_autofree char *old_language = g_strdup (g_getenv ("LANGUAGE"));
+
+  for (guint i = 0; i < G_N_ELEMENTS (demos); i++)
+    {
+      g_autoptr (SwAnalysis) a = demo_briefing (demos[i]);
+      check_whole (a);
+    }
+  g_assert_nonnull (g_getenv ("SW_LOCALE_DIR"));
+  if (setlocale (LC_ALL, "de_DE.UTF-8") == NULL)
+    {
+      setlocale (LC_ALL, old);
+      g_test_skip ("no de_DE.UTF-8 locale on this machine: German not checked");
+      return;
+    }
+  g_setenv ("LANGUAGE", "de", TRUE);
+  bindtextdomain (GETTEXT_PACKAGE, g_getenv ("SW_LOCALE_DIR"));
+  bind_textdomain_codeset (GETTEXT_PACKAGE, "UTF-8");
+  /* The catalogue is there: a sheet string comes out in German. */
+  g_assert_cmpstr (g_dgettext (GETTEXT_PACKAGE, "Stages, in firing order"), !=,
+                   "Stages, in firing order");
+  for (guint i = 0; i < G_N_ELEMENTS (demos); i++)
+    {
+      g_autoptr (SwAnalysis) a = demo_briefing (demos[i]);
+      check_whole (a);
+      check_no_overlap (a);
+    }
+  setlocale (LC_ALL, old);
+  if (old_language != NULL)
+    g_setenv ("LANGUAGE", old_language, TRUE);
+}
+
 static void
 test_no_overlap (void)
 {
-  static const char *const demos[] = {
-    "all-solid-concept.stagewright", "skelloway-upgrade-study.stagewright",
-    "medium-cargo.stagewright", "small-sat-launcher.stagewright",
-    "three-stage-simulated.stagewright", "sallowmere-kestrune-upper-stage.stagewright",
-    "sallowmere-as-built.stagewright", "four-booster-cargo.stagewright",
-  };
   g_autoptr (SwAnalysis) trade = briefing (WITH_MONTECARLO | WITH_BAND);
 
   check_no_overlap (trade);
   for (guint i = 0; i < G_N_ELEMENTS (demos); i++)
     {
-      g_autofree char *path = g_build_filename (g_getenv ("SW_SOURCE_ROOT"), "data", "designs",
-                                                demos[i], NULL);
-      g_autoptr (SwDesign) d = sw_design_load (path, NULL, NULL);
-      g_autoptr (SwAnalysis) a = NULL;
-      SwAnalysisOptions o;
-
-      g_assert_nonnull (d);
-      sw_analysis_options_init (&o);
-      o.band_samples = 500;
-      a = sw_analysis_run (d, &o, NULL);
+      g_autoptr (SwAnalysis) a = demo_briefing (demos[i]);
       check_no_overlap (a);
     }
 }
@@ -939,8 +1024,9 @@ test_legend_markers (void)
 
   for (guint i = 0; i < G_N_ELEMENTS (items); i++)
     {
-      /* The stage-count chart's legend: the row of "optimal split" (the
-       * reliability chart has a "this design" of its own). */
+      /* The stage-count chart's legend: the row of "optimal split" or the
+       * one under it (a legend too wide for one row takes two), in the left
+       * column (the reliability chart has a "this design" of its own). */
       const SwSheetTextBox *row = need_box (boxes, items[0].text), *b = NULL;
       /* The ink starts a fraction of a point right of the layout's origin. */
       double mx, cy;
@@ -950,8 +1036,8 @@ test_legend_markers (void)
       for (guint j = 0; j < boxes->len && b == NULL; j++)
         {
           const SwSheetTextBox *c = &g_array_index (boxes, SwSheetTextBox, j);
-          if (strcmp (c->text, items[i].text) == 0
-              && fabs (c->y + c->h / 2.0 - (row->y + row->h / 2.0)) < 2.0)
+          double dy = c->y + c->h / 2.0 - (row->y + row->h / 2.0);
+          if (strcmp (c->text, items[i].text) == 0 && dy > -2.0 && dy < 12.0 && c->x < w / 2.0)
             b = c;
         }
       if (b == NULL)
@@ -1044,6 +1130,56 @@ test_text_fit_words (void)
   cairo_surface_destroy (surface);
 }
 
+/* A label a little too long is set smaller, whole, down to the given
+ * smallest size; too long even then, it is cut between words at its own
+ * size. */
+static void
+test_text_fit_shrink (void)
+{
+  cairo_surface_t *surface = cairo_image_surface_create (CAIRO_FORMAT_ARGB32, 10, 10);
+  cairo_t *cr = cairo_create (surface);
+  PangoLayout *layout = pango_cairo_create_layout (cr);
+  PangoFontDescription *fd = pango_font_description_from_string ("DejaVu Sans");
+  const char *text = "Headroom to the stages' limit";
+  int full;
+
+  pango_font_description_set_absolute_size (fd, 10.0 * PANGO_SCALE);
+  pango_layout_set_font_description (layout, fd);
+  pango_layout_set_text (layout, text, -1);
+  pango_layout_get_size (layout, &full, NULL);
+
+  /* Room for all of it: the same size. */
+  pango_layout_set_font_description (layout, fd);
+  g_assert_true (sw_text_fit_shrink (layout, text, full, 1, 8.0));
+  g_assert_cmpstr (pango_layout_get_text (layout), ==, text);
+  g_assert_cmpint (pango_font_description_get_size (pango_layout_get_font_description (layout)),
+                   ==, 10 * PANGO_SCALE);
+  /* 10 % short: whole, at 9 pt or a little below (width goes with size). */
+  pango_layout_set_font_description (layout, fd);
+  g_assert_true (sw_text_fit_shrink (layout, text, full * 9 / 10, 1, 8.0));
+  g_assert_cmpstr (pango_layout_get_text (layout), ==, text);
+  g_assert_cmpint (pango_font_description_get_size (pango_layout_get_font_description (layout)),
+                   <=, 9 * PANGO_SCALE);
+  g_assert_cmpint (pango_font_description_get_size (pango_layout_get_font_description (layout)),
+                   >=, 8 * PANGO_SCALE);
+  /* Half the room: not whole even at 8 pt, so cut between words at 10 pt. */
+  pango_layout_set_font_description (layout, fd);
+  g_assert_true (sw_text_fit_shrink (layout, text, full / 2, 1, 8.0));
+  g_assert_true (g_str_has_suffix (pango_layout_get_text (layout), "\342\200\246"));
+  g_assert_cmpint (pango_font_description_get_size (pango_layout_get_font_description (layout)),
+                   ==, 10 * PANGO_SCALE);
+  /* Two lines of room at half the width: whole, at its own size. */
+  pango_layout_set_font_description (layout, fd);
+  g_assert_true (sw_text_fit_shrink (layout, text, full * 6 / 10, 2, 8.0));
+  g_assert_cmpstr (pango_layout_get_text (layout), ==, text);
+  g_assert_cmpint (pango_layout_get_line_count (layout), ==, 2);
+
+  pango_font_description_free (fd);
+  g_object_unref (layout);
+  cairo_destroy (cr);
+  cairo_surface_destroy (surface);
+}
+
 /* A vehicle of some 155,000 t: the stage-count axis reads "7×10⁵", never
  * the C library's "7e+05" (seen on the sheet). */
 static void
@@ -1082,6 +1218,7 @@ main (int argc, char **argv)
   g_test_add_func ("/sheet/svg-well-formed", test_svg_well_formed);
   g_test_add_func ("/sheet/csv", test_csv);
   g_test_add_func ("/sheet/no-overlap", test_no_overlap);
+  g_test_add_func ("/sheet/whole-text", test_whole_text);
   g_test_add_func ("/sheet/negative-capability-axis", test_negative_capability_axis);
   g_test_add_func ("/sheet/thrust-to-weight-warning", test_thrust_to_weight_warning);
   g_test_add_func ("/sheet/numbers", test_numbers);
@@ -1089,6 +1226,7 @@ main (int argc, char **argv)
   g_test_add_func ("/sheet/axis-units", test_axis_units);
   g_test_add_func ("/sheet/legend-markers", test_legend_markers);
   g_test_add_func ("/sheet/text-fit-words", test_text_fit_words);
+  g_test_add_func ("/sheet/text-fit-shrink", test_text_fit_shrink);
   g_test_add_func ("/sheet/huge-ticks", test_huge_ticks);
   status = g_test_run ();
   remove_tree (tmpdir);

@@ -264,6 +264,80 @@ test_steady_height (void)
     g_test_skip ("no width gave one line, then two");
 }
 
+static GtkInscription *
+find_inscription (GtkWidget *w, const char *text)
+{
+  if (GTK_IS_INSCRIPTION (w) && g_strcmp0 (gtk_inscription_get_text (GTK_INSCRIPTION (w)), text) == 0)
+    return GTK_INSCRIPTION (w);
+  for (GtkWidget *c = gtk_widget_get_first_child (w); c != NULL; c = gtk_widget_get_next_sibling (c))
+    {
+      GtkInscription *found = find_inscription (c, text);
+      if (found != NULL)
+        return found;
+    }
+  return NULL;
+}
+
+/* The line of the stages' limit and the headroom is whole in a narrow
+ * window (seen cut at 1280 x 800: "Stages' limit …, headroom…"), down to a
+ * 1,024 px window: it has two lines of room, and at its width its text,
+ * wrapped as a label wraps it, takes no more; the totals keep one height
+ * from the sizing to the flown ascent. */
+static void
+test_limit_line_whole (void)
+{
+  static const int widths[] = { 1600, 1280, 1024 };
+  g_autoptr (SwDesign) d = demo ("four-booster-cargo.stagewright");
+  g_autoptr (SwAnalysis) pending = NULL, flown = NULL;
+  SwAnalysisOptions o;
+
+  sw_analysis_options_init (&o);
+  o.montecarlo = FALSE;
+  o.band = FALSE;
+  o.ascent = TRUE;
+  pending = sw_analysis_new (d, 1, &o, NULL);
+  g_assert_nonnull (pending);
+  flown = sw_analysis_add_ascent (pending, NULL);
+  g_assert_nonnull (flown);
+
+  for (guint i = 0; i < G_N_ELEMENTS (widths); i++)
+    {
+      GtkWidget *t = sw_totals_new ();
+      GtkWidget *box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 0);
+      GtkWidget *window;
+      GtkInscription *limit;
+      PangoLayout *layout;
+      const char *text;
+      int h_p, h_f;
+
+      gtk_widget_set_valign (t, GTK_ALIGN_START);
+      gtk_box_append (GTK_BOX (box), t);
+      sw_totals_set_result (SW_TOTALS (t), pending);
+      /* The totals' column of the window is about half its width. */
+      window = widget_render_show (box, widths[i] / 2, 400);
+      widget_render_settle ();
+      h_p = gtk_widget_get_height (t);
+      sw_totals_set_result (SW_TOTALS (t), flown);
+      widget_render_settle ();
+      h_f = gtk_widget_get_height (t);
+      g_assert_cmpint (h_p, ==, h_f);
+      text = sw_totals_get_text (SW_TOTALS (t), SW_TOTALS_LIMIT);
+      g_assert_nonnull (strstr (text, "headroom"));
+      limit = find_inscription (t, text);
+      g_assert_nonnull (limit);
+      g_assert_cmpuint (gtk_inscription_get_min_lines (limit), ==, 2);
+      layout = gtk_widget_create_pango_layout (GTK_WIDGET (limit), text);
+      pango_layout_set_width (layout, gtk_widget_get_width (GTK_WIDGET (limit)) * PANGO_SCALE);
+      pango_layout_set_wrap (layout, PANGO_WRAP_WORD_CHAR);
+      g_test_message ("width %d: the limit line is %d px wide, %d line(s)", widths[i] / 2,
+                      gtk_widget_get_width (GTK_WIDGET (limit)),
+                      pango_layout_get_line_count (layout));
+      g_assert_cmpint (pango_layout_get_line_count (layout), <=, 2);
+      g_object_unref (layout);
+      gtk_window_destroy (GTK_WINDOW (window));
+    }
+}
+
 int
 main (int argc, char **argv)
 {
@@ -278,6 +352,7 @@ main (int argc, char **argv)
   g_test_add_func ("/totals/infeasible", test_infeasible);
   g_test_add_func ("/totals/format-delta", test_format_delta);
   g_test_add_func ("/totals/steady-height", test_steady_height);
+  g_test_add_func ("/totals/limit-line-whole", test_limit_line_whole);
   status = g_test_run ();
   sw_gui_test_env_finish (g_steal_pointer (&tmp));
   return status;

@@ -291,7 +291,10 @@ fmt (double v, int decimals)
 static void
 print_stage_table (const SwDesign *d, const SwAscentStage *st, guint n, gboolean simulated)
 {
-  g_print ("%-3s %-20s %10s %9s %8s %7s %6s %7s %7s", "#", "stage", "thrust kN", "mdot kg/s",
+  guint name_w = sw_cli_names_width (d, 20);
+  g_autofree char *head = sw_cli_cell ("stage", name_w);
+
+  g_print ("%-3s %s %10s %9s %8s %7s %6s %7s %7s", "#", head, "thrust kN", "mdot kg/s",
            "burn s", "coast s", "T/W", "T/W end", "ign T+");
   if (simulated)
     g_print (" %7s %8s %9s %7s", "end T+", "end km", "end m/s", "end deg");
@@ -306,7 +309,7 @@ print_stage_table (const SwDesign *d, const SwAscentStage *st, guint n, gboolean
       g_autofree char *tw = fmt (s->ignition_thrust_to_weight, 2);
       g_autofree char *twb = fmt (s->burnout_thrust_to_weight, 2);
       g_autofree char *it = fmt (simulated ? s->ignition.time_s : NAN, 1);
-      g_autofree char *name = sw_cli_cell (d->stages[i].name, 20);
+      g_autofree char *name = sw_cli_cell (d->stages[i].name, name_w);
 
       g_print ("%-3u %s %10s %9s %8s %7s %6s %7s %7s", i + 1, name, thr, md, bt, co, tw, twb, it);
       if (simulated)

@@ -400,6 +400,8 @@ print_sizing_table (const SwAnalysis *a)
       g_autofree char *eta = sw_format_number (s->multiplier_s_m * 1000.0, 6);
       g_print (_("Lagrange multiplier eta: %s s/km\n"), eta);
     }
+  guint name_w = 20;
+
   /* Each column as wide as its widest cell, counted in characters (a
    * minus sign or a German digit group is one), so a huge vehicle keeps
    * the columns aligned. */
@@ -420,7 +422,7 @@ print_sizing_table (const SwAnalysis *a)
         char **row = g_new0 (char *, N_COLS + 2);
 
         row[0] = g_strdup_printf ("%u", i + 1);
-        row[1] = sw_cli_cell (d->stages[i].name, 20);
+        row[1] = g_strdup (d->stages[i].name);
         row[2] = sw_format_number (d->stages[i].isp_vac_s, 1);
         row[3] = sw_format_number (d->stages[i].structural_coefficient, 4);
         row[4] = sw_format_number (r->delta_v_m_s, 1);
@@ -440,6 +442,9 @@ print_sizing_table (const SwAnalysis *a)
         for (guint k = 0; k < rows->len; k++)
           width[c] = MAX (width[c], (int) g_utf8_strlen (((char **) rows->pdata[k])[c], -1));
       }
+    /* The boosters' line below lines up with the names. */
+    name_w = (guint) MAX (width[1], (int) sw_cli_names_width (d, 20));
+    width[1] = (int) name_w;
     g_print ("\n");
     for (guint k = 0; k < rows->len; k++)
       {
@@ -469,7 +474,7 @@ print_sizing_table (const SwAnalysis *a)
   if (s->boosters.present && s->feasible)
     {
       const SwBoosterResult *r = &s->boosters;
-      g_autofree char *name = sw_cli_cell (d->boosters.name, 20);
+      g_autofree char *name = sw_cli_cell (d->boosters.name, name_w);
       g_autofree char *mp = sw_format_number (r->propellant_mass_kg, 1);
       g_autofree char *ms = sw_format_number (r->structural_mass_kg, 1);
       g_autofree char *mt = sw_format_number (r->total_mass_kg, 1);
@@ -490,12 +495,22 @@ print_sizing_table (const SwAnalysis *a)
       SwPhase phases[SW_MAX_PHASES];
       guint n_phases = sw_sizing_phases (d, s, phases);
 
-      g_print ("\n%-28s %9s %9s %14s %14s %9s\n", _("phase"), "dv m/s", "c m/s",
+      g_autofree char *phase_head = NULL;
+      guint phase_w = 28;
+
+      /* The column as wide as the longest phase's name. */
+      for (guint k = 0; k < n_phases; k++)
+        {
+          g_autofree char *pname = sw_phase_dup_name (d, &phases[k]);
+          phase_w = MAX (phase_w, (guint) g_utf8_strlen (pname, -1));
+        }
+      phase_head = sw_cli_cell (_("phase"), phase_w);
+      g_print ("\n%s %9s %9s %14s %14s %9s\n", phase_head, "dv m/s", "c m/s",
                _("initial kg"), _("final kg"), _("time s"));
       for (guint k = 0; k < n_phases; k++)
         {
           g_autofree char *pname = sw_phase_dup_name (d, &phases[k]);
-          g_autofree char *cell = sw_cli_cell (pname, 28);
+          g_autofree char *cell = sw_cli_cell (pname, phase_w);
           g_autofree char *pdv = sw_format_number (phases[k].delta_v_m_s, 1);
           g_autofree char *pc = sw_format_number (phases[k].exhaust_velocity_m_s, 1);
           g_autofree char *p0 = sw_format_number (phases[k].initial_mass_kg, 1);

@@ -182,7 +182,17 @@ sw_cli_sensitivity (int argc, char **argv)
   if (a->trade_losses_note[0] != '\0')
     g_print ("%s\n", a->trade_losses_note);
   g_print ("\n");
-  g_print ("%-3s %-40s %12s %14s %-9s %10s %12s %12s\n", "#", "parameter", "value",
+  guint label_w = 40, name_w = sw_cli_names_width (d, 28);
+  g_autofree char *label_head = NULL;
+
+  /* The parameter column as wide as its longest label. */
+  for (guint r = 0; r < t.n_items; r++)
+    {
+      g_autofree char *label = sw_sensitivity_dup_label (d, &t.items[r]);
+      label_w = MAX (label_w, (guint) g_utf8_strlen (label, -1));
+    }
+  label_head = sw_cli_cell ("parameter", label_w);
+  g_print ("%-3s %s %12s %14s %-9s %10s %12s %12s\n", "#", label_head, "value",
            t.capability ? "dP/dx" : "dm0/dx", "unit", "elasticity", "-step kg", "+step kg");
   for (guint r = 0; r < t.n_items; r++)
     {
@@ -192,7 +202,7 @@ sw_cli_sensitivity (int argc, char **argv)
                                                : g_strdup ("infeasible");
       g_autofree char *pl = it->plus_feasible ? sw_cli_format (it->plus_kg, 1)
                                               : g_strdup ("infeasible");
-      g_autofree char *cell = sw_cli_cell (label, 40);
+      g_autofree char *cell = sw_cli_cell (label, label_w);
       g_print ("%-3u %s %12.5g %14.5g %-9s %10s %12s %12s\n", r + 1, cell, it->value,
                it->derivative, unit_of (it->param), sw_cli_num (it->elasticity, 3), mi, pl);
     }
@@ -201,7 +211,7 @@ sw_cli_sensitivity (int argc, char **argv)
   for (guint i = 0; i < t.n_stages; i++)
     {
       g_autofree char *x = sw_cli_format (t.exchange_ratio[i], 4);
-      g_autofree char *name = sw_cli_cell (d->stages[i].name, 28);
+      g_autofree char *name = sw_cli_cell (d->stages[i].name, name_w);
       g_print (_("  stage %u %s %10s kg/kg\n"), i + 1, name, x);
     }
   g_print ("\n%s\n", sw_format_cautions ());
@@ -641,7 +651,10 @@ sw_cli_reliability (int argc, char **argv)
     }
 
   g_print (_("Design: %s\n\n"), d->name);
-  g_print ("%-3s %-24s %7s %9s %9s %9s %10s %10s %11s\n", "#", "stage", "engines", "r_engine",
+  guint name_w = sw_cli_names_width (d, 24);
+  g_autofree char *head = sw_cli_cell ("stage", name_w);
+
+  g_print ("%-3s %s %7s %9s %9s %9s %10s %10s %11s\n", "#", head, "engines", "r_engine",
            "tolerated", "ignition", "engines P", "stage P", "separation");
   for (guint i = 0; i < r.n_stages; i++)
     {
@@ -650,7 +663,7 @@ sw_cli_reliability (int argc, char **argv)
                                                 : g_strdup ("-");
 
       sw_reliability_inputs (&d->stages[i].reliability, &in);
-      g_autofree char *name = sw_cli_cell (d->stages[i].name, 24);
+      g_autofree char *name = sw_cli_cell (d->stages[i].name, name_w);
       g_print ("%-3u %s %7u %9s %9u %9s %10s %10s %11s\n", i + 1,
                name, in.engine_count, sw_cli_num (in.engine_reliability, 5), in.failures_tolerated,
                sw_cli_num (in.ignition_reliability, 5), sw_cli_num (r.engines[i], 6),

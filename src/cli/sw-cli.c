@@ -59,9 +59,14 @@ sw_cli_parse (const char *name, GOptionEntry *entries, int *argc, char ***argv,
               int n_positional, int *exit_code)
 {
   const SwCliCommand *cmd = find_command (name);
-  g_autofree char *param = g_strdup_printf ("%s %s", cmd->name, cmd->args);
-  g_autoptr (GOptionContext) ctx = g_option_context_new (param);
+  g_autofree char *prgname = g_strdup_printf ("stagewright-cli %s", cmd->name);
+  g_autoptr (GOptionContext) ctx = g_option_context_new (cmd->args);
   g_autoptr (GError) error = NULL;
+
+  /* --help's usage line: "stagewright-cli size [OPTION…] FILE" (GOption
+   * puts the program's name before the options, the arguments after). */
+  if (g_get_prgname () == NULL)
+    g_set_prgname (prgname);
 
   g_option_context_set_summary (ctx, _(cmd->summary));
   g_option_context_set_description (ctx, sw_format_cautions ());
@@ -220,12 +225,23 @@ sw_cli_cell (const char *text, guint width)
   GString *s = g_string_new (NULL);
   guint n = 0;
 
-  /* Whole characters: a cut inside one would print invalid UTF-8. */
-  for (const char *p = text; *p != '\0' && n < width; p = g_utf8_next_char (p), n++)
-    g_string_append_len (s, p, g_utf8_next_char (p) - p);
-  for (; n < width; n++)
+  /* Whole: a name cut short hides which stage a row is. */
+  g_string_append (s, text);
+  for (n = (guint) g_utf8_strlen (text, -1); n < width; n++)
     g_string_append_c (s, ' ');
   return g_string_free (s, FALSE);
+}
+
+guint
+sw_cli_names_width (const SwDesign *d, guint min)
+{
+  guint w = min;
+
+  for (guint i = 0; i < d->n_stages; i++)
+    w = MAX (w, (guint) g_utf8_strlen (d->stages[i].name, -1));
+  if (d->boosters.count > 0)
+    w = MAX (w, (guint) g_utf8_strlen (d->boosters.name, -1));
+  return w;
 }
 
 static void

@@ -50,9 +50,13 @@ SwAnalysis *sw_cli_analyse (const char *filename, const SwAnalysisOptions *optio
 void      sw_cli_add_verdict (JsonBuilder *b, const SwAnalysis *a);
 /* The verdict as the first line of a text report. */
 void      sw_cli_print_verdict (const SwAnalysis *a);
-/* A text cell of a table: at most @width characters (not bytes, so a name
- * is never cut inside a character), padded with spaces to @width. */
+/* A text cell of a table: @text whole, padded with spaces to @width
+ * characters (not bytes); a longer text is never cut (size the column
+ * with sw_cli_names_width()). */
 char     *sw_cli_cell (const char *text, guint width);
+/* A column for the stages' (and boosters') names: the longest name in
+ * characters, at least @min. */
+guint     sw_cli_names_width (const SwDesign *d, guint min);
 /* The cautions printed under every report. */
 extern const char *sw_cli_caution;
 /* A bundled demo design, under the install prefix (SW_DESIGNS_DIR overrides). */

@@ -88,9 +88,11 @@ draw_log_y_axis (cairo_t *cr, const Axes *a)
   const double *steps = wide ? coarse : fine;
   guint n_steps = wide ? G_N_ELEMENTS (coarse) : G_N_ELEMENTS (fine);
   int k0 = (int) floor (a->lo), k1 = (int) ceil (a->hi);
+  double last_y = INFINITY;
 
-  for (int k = k0; k <= k1; k++)
-    for (guint s = 0; s < n_steps; s++)
+  /* From the top down: on a short axis the highest tick is kept. */
+  for (int k = k1; k >= k0; k--)
+    for (guint s = n_steps; s-- > 0;)
       {
         double v = steps[s] * pow (10.0, k), t = log10 (v), yy;
         g_autofree char *label = NULL;
@@ -101,6 +103,11 @@ draw_log_y_axis (cairo_t *cr, const Axes *a)
         if (a->hi - a->lo > 3.0 && s != 0)
           continue;
         yy = ax_y (a, v);
+        /* A short axis: a tick too close to the one below is left out,
+         * so no two labels are printed over each other. */
+        if (fabs (last_y - yy) < 6.5)
+          continue;
+        last_y = yy;
         sw_sheet_rule (cr, a->x, a->x + a->w, yy, GRID, 0.5);
         label = tick_label (v / 1000.0);
         sw_sheet_text_centered_v (cr, label, a->x - 37.0, yy, &tick);
@@ -114,6 +121,24 @@ typedef struct {
   guint32     color;
   const char *text;
 } LegendItem;
+
+/* The width of a legend row (as draw_legend lays it out). */
+static double
+legend_width (cairo_t *cr, const LegendItem *items, guint n)
+{
+  TextStyle st = sw_sheet_style (6.5, FALSE, MUTED);
+  double total = 0.0;
+
+  for (guint i = 0; i < n; i++)
+    {
+      PangoLayout *l = sw_sheet_layout (cr, items[i].text, &st);
+      int lw, lh;
+      pango_layout_get_size (l, &lw, &lh);
+      g_object_unref (l);
+      total += 12.0 + (double) lw / PANGO_SCALE + (i + 1 < n ? 9.0 : 0.0);
+    }
+  return total;
+}
 
 /* A centred row of markers and words, the markers drawn like the plot's. */
 static void
@@ -186,6 +211,35 @@ sw_sheet_draw_stage_curve (cairo_t *cr, const SwStageCurve *curve, const SwMcBan
   double vmin = INFINITY, vmax = 0.0;
   gboolean any = FALSE, first = TRUE;
   TextStyle lab = sw_sheet_style (6.8, FALSE, MUTED);
+  LegendItem items[6];
+  guint n = 0, first_line;
+  gboolean infeasible = FALSE, two_lines;
+  g_autofree char *with = NULL;
+
+  for (guint i = 0; i < curve->n_points; i++)
+    infeasible = infeasible || !curve->points[i].feasible;
+  items[n++] = (LegendItem) { LEGEND_DOT, SECOND, _("this design") };
+  if (curve->booster_count > 0)
+    {
+      with = g_strdup_printf (g_dngettext (GETTEXT_PACKAGE, "with %u booster",
+                                           "with %u boosters", curve->booster_count),
+                              curve->booster_count);
+      items[n++] = (LegendItem) { LEGEND_DASH, SECOND, with };
+      items[n++] = (LegendItem) { LEGEND_LINE, ACCENT, _("serial, no boosters") };
+    }
+  else
+    items[n++] = (LegendItem) { LEGEND_LINE, ACCENT, _("optimal split") };
+  if (band != NULL)
+    items[n++] = (LegendItem) { LEGEND_BAND, ACCENT, _("5\342\200\22395 % band") };
+  if (baseline != NULL)
+    items[n++] = (LegendItem) { LEGEND_DASH, BASELINE, _("baseline") };
+  if (infeasible)
+    items[n++] = (LegendItem) { LEGEND_CROSS, BAD, _("not feasible") };
+  /* Two lines with boosters (the three lines of the plot, then the rest),
+   * or when one line would run out of the panel (the plot's lines, then
+   * the rest). */
+  first_line = curve->booster_count > 0 ? 3 : 2;
+  two_lines = n > first_line && (curve->booster_count > 0 || legend_width (cr, items, n) > w);
 
   for (guint i = 0; i < curve->n_points; i++)
     if (curve->points[i].feasible)
@@ -240,8 +294,7 @@ sw_sheet_draw_stage_curve (cairo_t *cr, const SwStageCurve *curve, const SwMcBan
   /* Room at the top for the axis title and the infeasible markers. */
   a.y += 14.0;
   a.h -= 14.0;
-  /* With boosters the legend takes two lines. */
-  if (curve->booster_count > 0)
+  if (two_lines)
     a.h -= 10.0;
 
   draw_log_y_axis (cr, &a);
@@ -402,35 +455,10 @@ sw_sheet_draw_stage_curve (cairo_t *cr, const SwStageCurve *curve, const SwMcBan
   /* Legend: one line under the axis, where no curve can run; each marker is
    * drawn in the colour it has in the plot. */
   {
-    LegendItem items[6];
-    guint n = 0;
-    gboolean infeasible = FALSE;
-    g_autofree char *with = NULL;
-
-    for (guint i = 0; i < curve->n_points; i++)
-      infeasible = infeasible || !curve->points[i].feasible;
-    items[n++] = (LegendItem) { LEGEND_DOT, SECOND, _("this design") };
-    if (curve->booster_count > 0)
+    if (two_lines)
       {
-        with = g_strdup_printf (g_dngettext (GETTEXT_PACKAGE, "with %u booster",
-                                             "with %u boosters", curve->booster_count),
-                                curve->booster_count);
-        items[n++] = (LegendItem) { LEGEND_DASH, SECOND, with };
-        items[n++] = (LegendItem) { LEGEND_LINE, ACCENT, _("serial, no boosters") };
-      }
-    else
-      items[n++] = (LegendItem) { LEGEND_LINE, ACCENT, _("optimal split") };
-    if (band != NULL)
-      items[n++] = (LegendItem) { LEGEND_BAND, ACCENT, _("5\342\200\22395 % band") };
-    if (baseline != NULL)
-      items[n++] = (LegendItem) { LEGEND_DASH, BASELINE, _("baseline") };
-    if (infeasible)
-      items[n++] = (LegendItem) { LEGEND_CROSS, BAD, _("not feasible") };
-    if (curve->booster_count > 0)
-      {
-        /* The three lines of the plot, then the rest. */
-        draw_legend (cr, items, 3, x, a.y + a.h + 21.0, w);
-        draw_legend (cr, items + 3, n - 3, x, a.y + a.h + 31.0, w);
+        draw_legend (cr, items, first_line, x, a.y + a.h + 21.0, w);
+        draw_legend (cr, items + first_line, n - first_line, x, a.y + a.h + 31.0, w);
       }
     else
       draw_legend (cr, items, n, x, a.y + a.h + 21.0, w);
@@ -667,12 +695,29 @@ sw_sheet_draw_tornado (cairo_t *cr, const SwDesign *design, const SwSensitivityT
                                                           it->stage + 1,
                                                           design->stages[it->stage].name);
             TextStyle ws = sw_sheet_style_w (6.3, FALSE, MUTED, PANGO_ALIGN_LEFT, label_w - 4);
+
+            /* A name too long for the column: the stage number alone (the
+             * stage table names the stages). */
+            if (!sw_sheet_fits (cr, which, &ws))
+              {
+                g_free (which);
+                which = booster ? g_strdup (_("boosters"))
+                                : g_strdup_printf (_("stage %u"), (guint) it->stage + 1);
+              }
             sw_sheet_text_centered_v (cr, what, x, cy - 3.6, &lab);
             sw_sheet_text_centered_v (cr, which, x, cy + 4.2, &ws);
           }
         else if (it->stage >= 0 || booster)
           {
             g_autofree char *label = sw_sensitivity_dup_label (design, it);
+
+            /* One line: with the stage's name when it fits whole, else
+             * without it (the stage table names the stages). */
+            if (!sw_sheet_fits (cr, label, &lab))
+              {
+                g_free (label);
+                label = sw_sensitivity_dup_label (NULL, it);
+              }
             sw_sheet_text_centered_v (cr, label, x, cy, &lab);
           }
         else

@@ -37,7 +37,11 @@ typedef struct {
   guint32  color;
   PangoAlignment align;
   double   width;         /* wrap or align within; <= 0: no width */
-  gboolean ellipsize;     /* one line, ellipsized at width */
+  gboolean ellipsize;     /* fitted to width: whole, a little smaller if need be,
+                             else cut between words */
+  int      max_lines;     /* with ellipsize: lines it may wrap to (0: one) */
+  double   min_size;      /* with ellipsize: smallest size tried (0: 80 % of size,
+                             not below 6 pt) */
 } TextStyle;
 
 void         sw_sheet_set_color (cairo_t *cr, guint32 hex, double alpha);
@@ -45,6 +49,8 @@ PangoLayout *sw_sheet_layout (cairo_t *cr, const char *text, const TextStyle *st
 /* Draws @layout with its top left at @x, @y in the source colour: every text
  * of the sheet (and of the shared stack drawing) goes through here. */
 void         sw_sheet_show_layout (cairo_t *cr, PangoLayout *layout, double x, double y);
+/* Whether @text would be drawn whole in @st (not cut between words). */
+gboolean     sw_sheet_fits (cairo_t *cr, const char *text, const TextStyle *st);
 /* Draws @text with its top at @y; returns its height. */
 double       sw_sheet_text_at (cairo_t *cr, const char *text, double x, double y,
                                const TextStyle *st);

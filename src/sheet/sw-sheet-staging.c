@@ -22,6 +22,9 @@
 #define NOTE_H_BOOSTERS 7.6
 /* With boosters the weighting has a line of its own, wrapped to two. */
 #define WEIGHTING_H 15.2
+/* Serial: the legend and the weighting share up to three wrapped lines. */
+#define SERIAL_STATEMENT_LINES 3
+#define SERIAL_LINE_H 7.6
 
 static gboolean
 has_boosters (const SwDesign *design)
@@ -60,22 +63,74 @@ note_height (const SwDesign *design)
   return has_boosters (design) ? NOTE_H_BOOSTERS : ROW_H;
 }
 
-double
-sw_sheet_staging_height (const SwDesign *design)
+/* The legend line under the rows (serial: with the weighting). */
+static char *
+dup_statement (const SwStaging *s)
 {
+  if (s->booster_count > 0 && s->booster_reuse_mode != SW_RECOVERY_NONE)
+    {
+      g_autofree char *words = sw_staging_dup_recovery_words (s);
+      /* Translators: %s says how the first stage and the boosters are recovered */
+      return g_strdup_printf (_("▸ this design; shaded: the best row; recovered: %s."), words);
+    }
+  if (s->booster_count > 0)
+    return g_strdup_printf (_("▸ this design; shaded: the best row; recovered: the first "
+                              "stage %s."),
+                            s->reuse_mode == SW_RECOVERY_LAUNCH_SITE
+                              ? _("returns to the launch site") : _("lands downrange"));
+  return g_strdup_printf (_("▸ this design; shaded: the best count; recovered: the first "
+                            "stage %s. %s."),
+                          s->reuse_mode == SW_RECOVERY_LAUNCH_SITE
+                            ? _("returns to the launch site") : _("lands downrange"),
+                          s->weighting);
+}
+
+static TextStyle
+serial_statement_style (double w)
+{
+  TextStyle st = sw_sheet_style_w (6.0, FALSE, MUTED, PANGO_ALIGN_LEFT, w);
+
+  st.max_lines = SERIAL_STATEMENT_LINES;
+  return st;
+}
+
+/* Serial: the lines the legend and the weighting take (one to three). */
+static guint
+serial_statement_lines (cairo_t *cr, const SwStaging *s, double w)
+{
+  g_autofree char *statement = NULL;
+  TextStyle st = serial_statement_style (w);
+  PangoLayout *layout;
+  guint lines;
+
+  if (cr == NULL || s == NULL || s->booster_count > 0)
+    return 1;
+  statement = dup_statement (s);
+  layout = sw_sheet_layout (cr, statement, &st);
+  lines = (guint) CLAMP (pango_layout_get_line_count (layout), 1, SERIAL_STATEMENT_LINES);
+  g_object_unref (layout);
+  return lines;
+}
+
+double
+sw_sheet_staging_height (cairo_t *cr, const SwAnalysis *analysis, const SwStaging *s, double w)
+{
+  const SwDesign *design = analysis != NULL ? analysis->design : NULL;
   guint rows = has_boosters (design) ? 2 * SW_STAGING_MAX_STAGES : SW_STAGING_MAX_STAGES;
 
   /* Heading, column titles, the rows, the weighting and money lines (and
    * the lines on boosters and on fixed loads). */
   return 16.0 + row_height (design) * (rows + 1) + 12.0 + note_height (design)
-         + (has_boosters (design) ? WEIGHTING_H + 2.0 * note_height (design) : 0.0)
+         + (has_boosters (design) ? WEIGHTING_H + 2.0 * note_height (design)
+                                  : serial_statement_lines (cr, s, w) * SERIAL_LINE_H
+                                      - note_height (design))
          + (has_fixed_load (design) ? note_height (design) : 0.0)
          + (has_losses_note (design) ? note_height (design) : 0.0);
 }
 
 void
-sw_sheet_draw_staging (cairo_t *cr, const SwAnalysis *analysis, double x, double y, double w,
-                       double h)
+sw_sheet_draw_staging (cairo_t *cr, const SwAnalysis *analysis, const SwStaging *computed,
+                       double x, double y, double w, double h)
 {
   const SwDesign *design = analysis != NULL ? analysis->design : NULL;
   const char *titles[] = { N_("stages"), N_("liftoff"), N_("recovered"), N_("development"),
@@ -97,12 +152,13 @@ sw_sheet_draw_staging (cairo_t *cr, const SwAnalysis *analysis, double x, double
                                : _("Staging decision (serial stages; effort in work-years: an "
                                    "estimate, never a quote)"),
                          x, y, w);
-  if (design == NULL || !sw_analysis_staging (analysis, SW_STAGING_MAX_STAGES, &s, NULL))
+  if (design == NULL || computed == NULL)
     {
       sw_sheet_note_in_box (cr, _("Not computed: the mission has no delta-v."), x, y + hy, w,
                             h - hy);
       return;
     }
+  s = *computed;
   head = sw_sheet_style_w (font, TRUE, MUTED, PANGO_ALIGN_RIGHT, 0);
   ty = y + hy;
   cx = x;
@@ -159,39 +215,23 @@ sw_sheet_draw_staging (cairo_t *cr, const SwAnalysis *analysis, double x, double
         }
       ty += row_h;
     }
-  if (s.booster_count > 0 && s.booster_reuse_mode != SW_RECOVERY_NONE)
-    {
-      g_autofree char *words = sw_staging_dup_recovery_words (&s);
-      /* Translators: %s says how the first stage and the boosters are recovered */
-      statement = g_strdup_printf (_("▸ this design; shaded: the best row; recovered: %s."),
-                                   words);
-    }
-  else if (s.booster_count > 0)
-    statement = g_strdup_printf (_("▸ this design; shaded: the best row; recovered: the first "
-                                   "stage %s."),
-                                 s.reuse_mode == SW_RECOVERY_LAUNCH_SITE
-                                   ? _("returns to the launch site") : _("lands downrange"));
-  else
-    statement = g_strdup_printf (_("▸ this design; shaded: the best count; recovered: the first "
-                                   "stage %s. %s."),
-                                 s.reuse_mode == SW_RECOVERY_LAUNCH_SITE
-                                   ? _("returns to the launch site") : _("lands downrange"),
-                                 s.weighting);
+  statement = dup_statement (&s);
 
   {
     TextStyle note = sw_sheet_style_w (6.0, FALSE, MUTED, PANGO_ALIGN_LEFT, w);
     g_autofree char *money = NULL;
-    double money_y = ty + 1.0 + note_h;
+    TextStyle wrapped = note, serial = serial_statement_style (w);
+    double money_y = ty + 1.0 + (s.booster_count > 0
+                                   ? note_h : serial_statement_lines (cr, &s, w) * SERIAL_LINE_H);
 
-    note.ellipsize = TRUE;
-    sw_sheet_text_at (cr, statement, x, ty + 1.0, &note);
+    /* The weighting whole, wrapped. */
+    wrapped.max_lines = 2;
+    sw_sheet_text_at (cr, statement, x, ty + 1.0, s.booster_count > 0 ? &note : &serial);
     if (s.booster_count > 0)
       {
         /* The weighting in full, wrapped: the score spans both sets of rows. */
-        TextStyle wrapped = note;
         g_autofree char *weighting = g_strconcat (s.weighting, ".", NULL);
 
-        wrapped.ellipsize = FALSE;
         sw_sheet_text_at (cr, weighting, x, money_y, &wrapped);
         money_y += WEIGHTING_H;
       }

@@ -8,6 +8,7 @@
 #include "sw-text-fit.h"
 
 #include <math.h>
+#include <string.h>
 
 #define FONT_FAMILY "DejaVu Sans, Sans"
 
@@ -149,8 +150,12 @@ sw_sheet_layout (cairo_t *cr, const char *text, const TextStyle *st)
   if (st->width > 0 && st->ellipsize)
     {
       pango_layout_set_alignment (layout, st->align);
-      /* One line; too long, it loses whole words, never half of one. */
-      sw_text_fit_words (layout, text, (int) (st->width * PANGO_SCALE), 1);
+      /* Whole, a little smaller if need be; only when even that does not
+       * fit it loses whole words, never half of one. */
+      double min_size = st->min_size > 0 ? st->min_size
+                                         : MIN (st->size, MAX (6.0, st->size * 0.8));
+      sw_text_fit_shrink (layout, text, (int) (st->width * PANGO_SCALE), MAX (st->max_lines, 1),
+                          min_size);
       return layout;
     }
   if (st->width > 0)
@@ -161,6 +166,17 @@ sw_sheet_layout (cairo_t *cr, const char *text, const TextStyle *st)
     }
   pango_layout_set_text (layout, text, -1);
   return layout;
+}
+
+/* Whether @text would be drawn whole (not cut) in @st. */
+gboolean
+sw_sheet_fits (cairo_t *cr, const char *text, const TextStyle *st)
+{
+  PangoLayout *layout = sw_sheet_layout (cr, text, st);
+  gboolean whole = strcmp (pango_layout_get_text (layout), text) == 0;
+
+  g_object_unref (layout);
+  return whole;
 }
 
 /* Draws @text with its top at @y; returns its height. */
@@ -193,14 +209,14 @@ sw_sheet_text_centered_v (cairo_t *cr, const char *text, double x, double cy, co
 TextStyle
 sw_sheet_style (double size, gboolean bold, guint32 color)
 {
-  TextStyle st = { size, bold, color, PANGO_ALIGN_LEFT, 0, FALSE };
+  TextStyle st = { size, bold, color, PANGO_ALIGN_LEFT, 0, FALSE, 0, 0.0 };
   return st;
 }
 
 TextStyle
 sw_sheet_style_w (double size, gboolean bold, guint32 color, PangoAlignment align, double width)
 {
-  TextStyle st = { size, bold, color, align, width, TRUE };
+  TextStyle st = { size, bold, color, align, width, TRUE, 0, 0.0 };
   return st;
 }
 
@@ -229,7 +245,7 @@ sw_sheet_heading (cairo_t *cr, const char *title, double x, double y, double w)
 void
 sw_sheet_note_in_box (cairo_t *cr, const char *text, double x, double y, double w, double h)
 {
-  TextStyle st = { 8.0, FALSE, MUTED, PANGO_ALIGN_CENTER, w - 16, FALSE };
+  TextStyle st = { 8.0, FALSE, MUTED, PANGO_ALIGN_CENTER, w - 16, FALSE, 0, 0.0 };
   PangoLayout *layout;
   int lw, lh;
 

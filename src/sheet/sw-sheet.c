@@ -95,7 +95,7 @@ draw_verdict (const Page *p, const SwAnalysis *a, double y)
   cairo_t *cr = p->cr;
   guint32 color = verdict_color (a->verdict.state);
   TextStyle title = style_w (11.0, TRUE, color, PANGO_ALIGN_LEFT, p->w - 16);
-  TextStyle reason = { 8.0, FALSE, INK, PANGO_ALIGN_LEFT, p->w - 16, FALSE };
+  TextStyle reason = { 8.0, FALSE, INK, PANGO_ALIGN_LEFT, p->w - 16, FALSE, 0, 0.0 };
   PangoLayout *l1 = make_layout (cr, sw_verdict_state_title (a->verdict.state), &title);
   PangoLayout *l2 = make_layout (cr, a->verdict.reason, &reason);
   int w1, h1, w2, h2;
@@ -123,8 +123,10 @@ draw_header (const Page *p, const SwAnalysis *a, double y)
 {
   const SwDesign *d = a->design;
   TextStyle kicker = style (8.0, TRUE, ACCENT);
-  TextStyle title = style_w (18.0, TRUE, INK, PANGO_ALIGN_LEFT, p->w - 120);
-  TextStyle right = style_w (8.0, FALSE, MUTED, PANGO_ALIGN_RIGHT, 150);
+  /* The full width: the date is on the first line, beside the kicker.  A
+   * long name is set a little smaller, then on two lines, whole. */
+  TextStyle title = style_w (18.0, TRUE, INK, PANGO_ALIGN_LEFT, p->w);
+  TextStyle right = style_w (8.0, FALSE, MUTED, PANGO_ALIGN_RIGHT, 200);
   TextStyle sub = style_w (8.5, FALSE, MUTED, PANGO_ALIGN_LEFT, p->w);
   g_autoptr (GDateTime) now = g_date_time_new_now_local ();
   g_autofree char *today = g_date_time_format (now, "%Y-%m-%d");
@@ -137,8 +139,11 @@ draw_header (const Page *p, const SwAnalysis *a, double y)
   double h;
 
   text_at (p->cr, _("LAUNCH VEHICLE CONCEPT \342\200\224 SIZING BRIEF"), p->x, y, &kicker);
-  date = g_strdup_printf (_("%s\nStagewright %s"), today, PACKAGE_VERSION);
-  text_at (p->cr, date, p->x + p->w - 150, y, &right);
+  /* Translators: the date, then the program's version, on the sheet's first line */
+  date = g_strdup_printf (_("%s  \302\267  Stagewright %s"), today, PACKAGE_VERSION);
+  text_at (p->cr, date, p->x + p->w - 200, y, &right);
+  title.max_lines = 2;
+  title.min_size = 15.0;
   h = text_at (p->cr, d->name[0] ? d->name : _("Untitled design"), p->x, y + 11.0, &title);
   y += 13.0 + h;
   y += draw_verdict (p, a, y) + 5.0;
@@ -319,7 +324,8 @@ draw_totals (const Page *p, const SwAnalysis *a, double x, double y, double w, d
 
   {
     double vx = x + w * 0.42, dx = x + w * 0.72;
-    double row_h = n > 0 ? CLAMP ((y + h - yy - (base ? 23.0 : 0.0)) / n, 9.6, 11.5) : 11.5;
+    /* Closer rows before any row is left out. */
+    double row_h = n > 0 ? CLAMP ((y + h - yy - (base ? 23.0 : 0.0)) / n, 8.8, 11.5) : 11.5;
     TextStyle val = style_w (7.8, TRUE, INK, PANGO_ALIGN_LEFT, (base ? dx : x + w) - vx - 4);
     TextStyle dst = style_w (7.2, FALSE, MUTED, PANGO_ALIGN_LEFT, x + w - dx);
 
@@ -455,6 +461,20 @@ draw_stage_table (const Page *p, const SwAnalysis *a, double y)
           /* Translators: the boosters' row of the stage table: "Boosters, 4x beside stage 1" */
           cells[1] = g_strdup_printf (_("%s, %u\303\227 beside stage 1"), d->boosters.name,
                                       b->count);
+          {
+            TextStyle st = cell;
+
+            st.width = (0.26 - 0.035) * p->w;
+            st.ellipsize = TRUE;
+            /* Too long for the column: the short form (the row is marked B). */
+            if (!sw_sheet_fits (cr, cells[1], &st))
+              {
+                g_free (cells[1]);
+                /* Translators: the boosters' row of the stage table, short
+                 * form: "Boosters, 4x" */
+                cells[1] = g_strdup_printf (_("%s, %u\303\227"), d->boosters.name, b->count);
+              }
+          }
           cells[2] = sw_format_number (d->boosters.isp_vac_s, 1);
           cells[3] = sw_format_number (d->boosters.structural_coefficient, 4);
           /* Phase 0's delta-v is in stage 1's: no figures of their own here. */
@@ -510,8 +530,8 @@ draw_uncertainty (const Page *p, const SwAnalysis *a, double x, double y, double
   double yy = y + heading (cr, _("Uncertainty (Monte Carlo)"), x, y, w);
   g_autofree char *line1 = NULL, *spreads = NULL, *count = NULL;
   g_autofree char *si = NULL, *sc = NULL, *sl = NULL;
-  TextStyle st = { 7.2, FALSE, INK, PANGO_ALIGN_LEFT, w, FALSE };
-  TextStyle mu = { 6.6, FALSE, MUTED, PANGO_ALIGN_LEFT, w, FALSE };
+  TextStyle st = { 7.2, FALSE, INK, PANGO_ALIGN_LEFT, w, FALSE, 0, 0.0 };
+  TextStyle mu = { 6.6, FALSE, MUTED, PANGO_ALIGN_LEFT, w, FALSE, 0, 0.0 };
   gboolean tonnes;
   g_autofree char *axis = NULL;
 
@@ -582,7 +602,7 @@ static double
 draw_footer (const Page *p, double bottom)
 {
   cairo_t *cr = p->cr;
-  TextStyle st = { 8.0, TRUE, INK, PANGO_ALIGN_LEFT, p->w - 16, FALSE };
+  TextStyle st = { 8.0, TRUE, INK, PANGO_ALIGN_LEFT, p->w - 16, FALSE, 0, 0.0 };
   TextStyle small = style_w (6.5, FALSE, MUTED, PANGO_ALIGN_LEFT, p->w);
   PangoLayout *layout = make_layout (cr, sw_format_cautions (), &st);
   int lw, lh;
@@ -610,7 +630,9 @@ sw_sheet_draw_page (cairo_t *cr, const SwAnalysis *a, double width, double heigh
 {
   double margin = 34.0;
   Page p = { cr, margin, width - 2 * margin };
-  double y, footer_top, avail, top_h, chart_h, bottom_h, table_h, gap = 12.0, col;
+  double y, footer_top, avail, top_h, chart_h, bottom_h, table_h, staging_h, gap = 12.0, col;
+  SwStaging staging;
+  gboolean have_staging;
 
   g_return_if_fail (cr != NULL && a != NULL);
 
@@ -621,7 +643,11 @@ sw_sheet_draw_page (cairo_t *cr, const SwAnalysis *a, double width, double heigh
   y = draw_header (&p, a, margin - 4.0);
   footer_top = draw_footer (&p, height - margin + 12.0);
   table_h = stage_table_height (a);
-  avail = footer_top - gap - y - table_h - 3 * gap - sw_sheet_staging_height (a->design) - gap;
+  /* The staging decision, computed once for the panel's height and drawing. */
+  have_staging = a->design != NULL
+                 && sw_analysis_staging (a, SW_STAGING_MAX_STAGES, &staging, NULL);
+  staging_h = sw_sheet_staging_height (cr, a, have_staging ? &staging : NULL, p.w);
+  avail = footer_top - gap - y - table_h - 3 * gap - staging_h - gap;
   /* The totals panel grows with its figures; the charts share the rest. */
   {
     guint rows = 8 + (a->reliability.given ? 1 : 0) + (a->has_montecarlo ? 2 : 0)
@@ -652,8 +678,8 @@ sw_sheet_draw_page (cairo_t *cr, const SwAnalysis *a, double width, double heigh
 
   draw_stage_table (&p, a, y);
   y += table_h + gap;
-  sw_sheet_draw_staging (cr, a, p.x, y, p.w, sw_sheet_staging_height (a->design));
-  y += sw_sheet_staging_height (a->design) + gap;
+  sw_sheet_draw_staging (cr, a, have_staging ? &staging : NULL, p.x, y, p.w, staging_h);
+  y += staging_h + gap;
 
   /* The two curves side by side: mass and risk against stage count. */
   {

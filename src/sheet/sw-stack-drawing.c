@@ -656,8 +656,10 @@ panel_text (cairo_t *cr, const char *text, double size, gboolean bold, double wi
   if (width > 0.0)
     {
       pango_layout_set_alignment (layout, align);
-      /* One line; a label too long loses whole words, never half of one. */
-      sw_text_fit_words (layout, text, (int) (width * PANGO_SCALE), 1);
+      /* One line, whole and a little smaller if need be; only a label
+       * too long even then loses whole words, never half of one. */
+      sw_text_fit_shrink (layout, text, (int) (width * PANGO_SCALE), 1,
+                          MIN (size, MAX (6.0, size * 0.8)));
     }
   else
     pango_layout_set_text (layout, text, -1);

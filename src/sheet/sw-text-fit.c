@@ -67,3 +67,38 @@ sw_text_fit_words (PangoLayout *layout, const char *text, int width, int max_lin
   pango_layout_set_text (layout, "", -1);
   return FALSE;
 }
+
+gboolean
+sw_text_fit_shrink (PangoLayout *layout, const char *text, int width, int max_lines,
+                    double min_size)
+{
+  const PangoFontDescription *orig;
+  PangoFontDescription *fd;
+  int size, floor_size, step = PANGO_SCALE / 4;
+
+  g_return_val_if_fail (PANGO_IS_LAYOUT (layout) && text != NULL, FALSE);
+
+  orig = pango_layout_get_font_description (layout);
+  if (orig == NULL)
+    return sw_text_fit_words (layout, text, width, max_lines);
+  fd = pango_font_description_copy (orig);
+  size = pango_font_description_get_size (fd);
+  floor_size = (int) (min_size * PANGO_SCALE);
+  /* Whole first, at the given size or a little smaller... */
+  for (int s = size; s >= floor_size && s > 0; s -= step)
+    {
+      pango_font_description_set_absolute_size (fd, s);
+      pango_layout_set_font_description (layout, fd);
+      if (sw_text_fit_words (layout, text, width, max_lines)
+          && strcmp (pango_layout_get_text (layout), text) == 0)
+        {
+          pango_font_description_free (fd);
+          return TRUE;
+        }
+    }
+  /* ...else at the given size, cut between words. */
+  pango_font_description_set_absolute_size (fd, size);
+  pango_layout_set_font_description (layout, fd);
+  pango_font_description_free (fd);
+  return sw_text_fit_words (layout, text, width, max_lines);
+}

@@ -18,4 +18,11 @@ G_BEGIN_DECLS
  * and "…" fit. */
 gboolean sw_text_fit_words (PangoLayout *layout, const char *text, int width, int max_lines);
 
+/* As sw_text_fit_words(), but a text that does not fit whole is first tried
+ * at smaller font sizes (the layout's font description must have an
+ * absolute size), in steps of a quarter point down to @min_size points; only
+ * when it does not fit whole even then is it cut, at the original size. */
+gboolean sw_text_fit_shrink (PangoLayout *layout, const char *text, int width, int max_lines,
+                             double min_size);
+
 G_END_DECLS

@@ -439,6 +439,19 @@ sw_carpet_axis_check (const SwCarpetAxis *axis, const SwDesign *design, GError *
                    name);
       return FALSE;
     }
+  /* A whole-number axis takes whole values: no value twice. */
+  for (guint i = 1; sw_carpet_param_is_whole (axis) && i < axis->n; i++)
+    if (!(sw_carpet_axis_value (axis, i) > sw_carpet_axis_value (axis, i - 1)))
+      {
+        double lo = round (axis->min), hi = round (axis->max);
+        guint distinct = hi >= lo ? (guint) (hi - lo) + 1 : 1;
+
+        g_set_error (error, SW_ERROR, SW_ERROR_USAGE,
+                     _("%s takes whole numbers: %u points from %g to %g would repeat values; "
+                       "give at most %u points"),
+                     name, axis->n, axis->min, axis->max, distinct);
+        return FALSE;
+      }
   return TRUE;
 }
 
@@ -608,6 +621,9 @@ sw_carpet_axis_default_range (SwCarpetAxis *axis, const SwDesign *design)
       axis->min = floor_;
       axis->max = l->max;
     }
+  /* Whole numbers: at most one point per value. */
+  if (sw_carpet_param_is_whole (axis) && axis->max - axis->min + 1.0 < axis->n)
+    axis->n = (guint) MAX (2.0, axis->max - axis->min + 1.0);
 }
 
 /* The orbit moved to @altitude_km: the allowance (the budget's, 0 without

@@ -140,7 +140,8 @@ guint       sw_carpet_list_params (const SwDesign *design, SwCarpetOutput output
                                    SwCarpetAxis *out, guint max);
 /* A range around the design's value: 0.5 to 1.5 times for a structural
  * coefficient and the economics keys, 0.85 to 1.15 times for an Isp, and
- * so on, always inside the key's limit. */
+ * so on, always inside the key's limit; a whole-number key gets at most one
+ * point per whole value. */
 void        sw_carpet_axis_default_range (SwCarpetAxis *axis, const SwDesign *design);
 /* The value of grid index @i on @axis. */
 double      sw_carpet_axis_value (const SwCarpetAxis *axis, guint i);
