@@ -4,6 +4,7 @@
 #include "config.h"
 
 #include "sw-engine-types-editor.h"
+#include "sw-widget-text.h"
 
 #include "sw-design-fields.h"
 #include "sw-economics.h"
@@ -300,7 +301,7 @@ stage_check (const SwDesign *d, guint stage)
 
   /* Translators: tooltip of a stage's check box; %u is the stage's number, %s its name */
   g_autofree char *tip = g_strdup_printf (_("Stage %u, %s"), stage + 1, d->stages[stage].name);
-  gtk_widget_set_tooltip_text (check, tip);
+  sw_widget_set_tooltip (check, tip);
   g_object_set_data (G_OBJECT (check), "sw-stage", GUINT_TO_POINTER (stage));
   return check;
 }
@@ -387,7 +388,7 @@ build_grid (SwEngineTypesEditor *self, const SwDesign *d)
       gtk_editable_set_enable_undo (GTK_EDITABLE (entry), FALSE);
       gtk_editable_set_width_chars (GTK_EDITABLE (entry), 10);
       gtk_widget_set_hexpand (entry, TRUE);
-      gtk_widget_set_tooltip_text (entry, _("The engine type's name: one engine design, "
+      sw_widget_set_tooltip (entry, _("The engine type's name: one engine design, "
                                             "developed once however many stages use it"));
       g_signal_connect (entry, "activate", G_CALLBACK (name_activate_cb), self);
       controller = gtk_event_controller_focus_new ();
@@ -408,14 +409,14 @@ build_grid (SwEngineTypesEditor *self, const SwDesign *d)
       self->masses[i] = mass;
 
       g_object_set_data (G_OBJECT (dev), "sw-type", GUINT_TO_POINTER (i));
-      gtk_widget_set_tooltip_text (dev, _("Already developed: the cost model counts no "
+      sw_widget_set_tooltip (dev, _("Already developed: the cost model counts no "
                                           "development effort for it"));
       g_signal_connect (dev, "toggled", G_CALLBACK (type_developed_toggled_cb), self);
       gtk_grid_attach (GTK_GRID (grid), dev, 2, row, 1, 1);
       self->developed[i] = dev;
 
       g_object_set_data (G_OBJECT (remove), "sw-type", GUINT_TO_POINTER (i));
-      gtk_widget_set_tooltip_text (remove, _("Remove this engine type"));
+      sw_widget_set_tooltip (remove, _("Remove this engine type"));
       gtk_accessible_update_property (GTK_ACCESSIBLE (remove), GTK_ACCESSIBLE_PROPERTY_LABEL,
                                       _("Remove this engine type"), -1);
       g_signal_connect (remove, "clicked", G_CALLBACK (remove_clicked_cb), self);
@@ -483,9 +484,9 @@ show_design (SwEngineTypesEditor *self, const SwDesign *d)
       g_autofree char *tip = g_strdup_printf (_("Stage %u, %s"), s + 1, d->stages[s].name);
       gtk_check_button_set_active (GTK_CHECK_BUTTON (self->stage_developed[s]),
                                    (e->developed_stages & (1u << s)) != 0);
-      gtk_widget_set_tooltip_text (self->stage_developed[s], tip);
+      sw_widget_set_tooltip (self->stage_developed[s], tip);
       for (guint i = 0; i < e->n_engine_types && i < MAX_TYPES; i++)
-        gtk_widget_set_tooltip_text (self->on_stage[i][s], tip);
+        sw_widget_set_tooltip (self->on_stage[i][s], tip);
     }
   gtk_widget_set_visible (self->boosters_developed, d->boosters.count > 0);
   gtk_check_button_set_active (GTK_CHECK_BUTTON (self->boosters_developed),

@@ -4,6 +4,7 @@
 #include "config.h"
 
 #include "sw-inspector.h"
+#include "sw-widget-text.h"
 
 #include "sw-design-edit.h"
 #include "sw-design-fields.h"
@@ -249,8 +250,8 @@ configure_eps_spin (SwInspector *self)
   sw_number_field_set_range (self->eps_spin, lo, hi, FALSE, "", digits,
                              self->eps_form == SW_EPS_WET_DRY_RATIO ? 0.1 : 0.001);
   gtk_label_set_text (self->eps_label, eps_form_label (self->eps_form));
-  gtk_widget_set_tooltip_text (GTK_WIDGET (self->eps_spin), eps_form_tooltip (self->eps_form));
-  gtk_widget_set_tooltip_text (GTK_WIDGET (self->eps_label), eps_form_tooltip (self->eps_form));
+  sw_widget_set_tooltip (GTK_WIDGET (self->eps_spin), eps_form_tooltip (self->eps_form));
+  sw_widget_set_tooltip (GTK_WIDGET (self->eps_label), eps_form_tooltip (self->eps_form));
   gtk_label_set_text (self->eps_unit, "");
   self->updating--;
 }
@@ -858,7 +859,7 @@ caption (const char *text, const char *tooltip, GtkWidget *mnemonic)
   gtk_label_set_max_width_chars (GTK_LABEL (label), 16);
   gtk_widget_set_valign (label, GTK_ALIGN_START);
   gtk_widget_set_margin_top (label, 8);
-  gtk_widget_set_tooltip_text (label, tooltip);
+  sw_widget_set_tooltip (label, tooltip);
   if (mnemonic != NULL)
     gtk_label_set_mnemonic_widget (GTK_LABEL (label), mnemonic);
   return label;
@@ -886,7 +887,7 @@ add_number_row (SwInspector *self, GtkGrid *grid, int row, const char *text, con
     }
   if (limit != SW_N_LIMITS)
     sw_number_field_set_limit (field, limit, 1.0, digits, step);
-  gtk_widget_set_tooltip_text (GTK_WIDGET (field), tooltip);
+  sw_widget_set_tooltip (GTK_WIDGET (field), tooltip);
   gtk_widget_set_hexpand (GTK_WIDGET (field), TRUE);
   unit = gtk_label_new (limit != SW_N_LIMITS ? sw_limit_get (limit)->unit : "");
   gtk_label_set_xalign (GTK_LABEL (unit), 0.0);
@@ -963,7 +964,7 @@ loss_model_changed_cb (SwInspector *self)
       gtk_drop_down_set_selected (self->loss_model_dropdown,
                                   design (self)->mission.loss_model == SW_LOSS_SIMULATE);
       self->updating--;
-      gtk_widget_set_tooltip_text (GTK_WIDGET (self->loss_model_dropdown), error->message);
+      sw_widget_set_tooltip (GTK_WIDGET (self->loss_model_dropdown), error->message);
       return;
     }
   commit (self, g_steal_pointer (&d), NULL);
@@ -989,7 +990,7 @@ propellant_changed_cb (SwInspector *self)
       gtk_drop_down_set_selected (self->propellant_dropdown,
                                   design (self)->stages[stage].propellant.kind);
       self->updating--;
-      gtk_widget_set_tooltip_text (GTK_WIDGET (self->propellant_dropdown), error->message);
+      sw_widget_set_tooltip (GTK_WIDGET (self->propellant_dropdown), error->message);
       return;
     }
   commit (self, g_steal_pointer (&d), NULL);
@@ -1173,7 +1174,7 @@ booster_name_commit (SwInspector *self)
   if (!sw_design_set_booster_name (d, text, &error))
     {
       gtk_widget_add_css_class (GTK_WIDGET (self->booster_name_entry), "error");
-      gtk_widget_set_tooltip_text (GTK_WIDGET (self->booster_name_entry),
+      sw_widget_set_tooltip (GTK_WIDGET (self->booster_name_entry),
                                    field_message (error->message));
       return;
     }
@@ -1207,11 +1208,11 @@ booster_propellant_name_commit (SwInspector *self)
   if (!sw_design_set_booster_propellant_name (d, text, &error))
     {
       gtk_widget_add_css_class (entry, "error");
-      gtk_widget_set_tooltip_text (entry, field_message (error->message));
+      sw_widget_set_tooltip (entry, field_message (error->message));
       return;
     }
   gtk_widget_remove_css_class (entry, "error");
-  gtk_widget_set_tooltip_text (entry, _("The name of the boosters' own propellant"));
+  sw_widget_set_tooltip (entry, _("The name of the boosters' own propellant"));
   commit (self, g_steal_pointer (&d), NULL);
 }
 
@@ -1237,7 +1238,7 @@ booster_crossfeed_cb (SwInspector *self)
       self->updating++;
       gtk_check_button_set_active (self->booster_crossfeed_check, design (self)->boosters.crossfeed);
       self->updating--;
-      gtk_widget_set_tooltip_text (GTK_WIDGET (self->booster_crossfeed_check), error->message);
+      sw_widget_set_tooltip (GTK_WIDGET (self->booster_crossfeed_check), error->message);
       return;
     }
   commit (self, g_steal_pointer (&d), NULL);
@@ -1260,7 +1261,7 @@ booster_propellant_cb (SwInspector *self)
       gtk_drop_down_set_selected (self->booster_propellant_dropdown,
                                   design (self)->boosters.propellant.kind);
       self->updating--;
-      gtk_widget_set_tooltip_text (GTK_WIDGET (self->booster_propellant_dropdown),
+      sw_widget_set_tooltip (GTK_WIDGET (self->booster_propellant_dropdown),
                                    error->message);
       return;
     }
@@ -1290,7 +1291,7 @@ build_boosters (SwInspector *self, GtkWidget *box)
   self->booster_name_entry = GTK_ENTRY (gtk_entry_new ());
   gtk_editable_set_enable_undo (GTK_EDITABLE (self->booster_name_entry), FALSE);
   tip = _("The boosters' name, shown in the tables and the stack");
-  gtk_widget_set_tooltip_text (GTK_WIDGET (self->booster_name_entry), tip);
+  sw_widget_set_tooltip (GTK_WIDGET (self->booster_name_entry), tip);
   g_signal_connect_swapped (self->booster_name_entry, "activate",
                             G_CALLBACK (booster_name_commit), self);
   controller = gtk_event_controller_focus_new ();
@@ -1330,7 +1331,7 @@ build_boosters (SwInspector *self, GtkWidget *box)
                                                  _("half the core's"));
   self->booster_crossfeed_check = GTK_CHECK_BUTTON (
     gtk_check_button_new_with_label (_("Crossfeed: the boosters feed the core's engines")));
-  gtk_widget_set_tooltip_text (GTK_WIDGET (self->booster_crossfeed_check),
+  sw_widget_set_tooltip (GTK_WIDGET (self->booster_crossfeed_check),
                                _("While the boosters burn, the core's engines draw on their "
                                  "propellant, so the core starts its own burn full"));
   g_signal_connect_swapped (self->booster_crossfeed_check, "notify::active",
@@ -1345,7 +1346,7 @@ build_boosters (SwInspector *self, GtkWidget *box)
     tip = _("What the boosters burn: with it and a diameter their tank volume and length "
             "follow");
     self->booster_propellant_dropdown = GTK_DROP_DOWN (gtk_drop_down_new_from_strings (propellants));
-    gtk_widget_set_tooltip_text (GTK_WIDGET (self->booster_propellant_dropdown), tip);
+    sw_widget_set_tooltip (GTK_WIDGET (self->booster_propellant_dropdown), tip);
     g_signal_connect_swapped (self->booster_propellant_dropdown, "notify::selected",
                               G_CALLBACK (booster_propellant_cb), self);
     gtk_grid_attach (grid, caption (_("Propellant"), tip,
@@ -1356,7 +1357,7 @@ build_boosters (SwInspector *self, GtkWidget *box)
   self->booster_propellant_name_entry = GTK_ENTRY (gtk_entry_new ());
   gtk_editable_set_enable_undo (GTK_EDITABLE (self->booster_propellant_name_entry), FALSE);
   tip = _("The name of the boosters' own propellant");
-  gtk_widget_set_tooltip_text (GTK_WIDGET (self->booster_propellant_name_entry), tip);
+  sw_widget_set_tooltip (GTK_WIDGET (self->booster_propellant_name_entry), tip);
   g_signal_connect_swapped (self->booster_propellant_name_entry, "activate",
                             G_CALLBACK (booster_propellant_name_commit), self);
   controller = gtk_event_controller_focus_new ();
@@ -1477,7 +1478,7 @@ build_sections (SwInspector *self)
   gtk_text_view_set_top_margin (self->notes_view, 4);
   gtk_text_view_set_bottom_margin (self->notes_view, 4);
   gtk_widget_set_size_request (GTK_WIDGET (self->notes_view), -1, 64);
-  gtk_widget_set_tooltip_text (GTK_WIDGET (self->notes_view),
+  sw_widget_set_tooltip (GTK_WIDGET (self->notes_view),
                                _("What the design is and where its numbers come from; saved in "
                                  "the file"));
   gtk_accessible_update_property (GTK_ACCESSIBLE (self->notes_view),
@@ -1502,7 +1503,7 @@ build_sections (SwInspector *self)
     (const char *const[]) { _("Allowance above"), _("Simulated ascent"), NULL }));
   gtk_label_set_mnemonic_widget (GTK_LABEL (self->loss_model_label),
                                  GTK_WIDGET (self->loss_model_dropdown));
-  gtk_widget_set_tooltip_text (GTK_WIDGET (self->loss_model_dropdown),
+  sw_widget_set_tooltip (GTK_WIDGET (self->loss_model_dropdown),
                                gtk_widget_get_tooltip_text (self->loss_model_label));
   g_signal_connect_swapped (self->loss_model_dropdown, "notify::selected",
                             G_CALLBACK (loss_model_changed_cb), self);
@@ -1565,7 +1566,7 @@ build_sections (SwInspector *self)
     const char *tip = _("What the stage burns: with it and a diameter the window knows the "
                         "stage's tank volumes and length");
     self->propellant_dropdown = GTK_DROP_DOWN (gtk_drop_down_new_from_strings (propellants));
-    gtk_widget_set_tooltip_text (GTK_WIDGET (self->propellant_dropdown), tip);
+    sw_widget_set_tooltip (GTK_WIDGET (self->propellant_dropdown), tip);
     g_signal_connect_swapped (self->propellant_dropdown, "notify::selected",
                               G_CALLBACK (propellant_changed_cb), self);
     gtk_grid_attach (grid, caption (_("Propellant"), tip, GTK_WIDGET (self->propellant_dropdown)),
@@ -1578,7 +1579,7 @@ build_sections (SwInspector *self)
 
     self->propellant_name_entry = GTK_ENTRY (gtk_entry_new ());
     gtk_editable_set_enable_undo (GTK_EDITABLE (self->propellant_name_entry), FALSE);
-    gtk_widget_set_tooltip_text (GTK_WIDGET (self->propellant_name_entry), tip);
+    sw_widget_set_tooltip (GTK_WIDGET (self->propellant_name_entry), tip);
     g_signal_connect_swapped (self->propellant_name_entry, "activate",
                               G_CALLBACK (propellant_name_commit), self);
     g_signal_connect (name_focus, "leave", G_CALLBACK (propellant_name_leave_cb), self);
@@ -1626,14 +1627,14 @@ build_sections (SwInspector *self)
     gtk_label_set_wrap (self->tanks_label, TRUE);
     gtk_label_set_max_width_chars (self->tanks_label, 24);
     gtk_widget_set_margin_top (GTK_WIDGET (self->tanks_label), 8);
-    gtk_widget_set_tooltip_text (GTK_WIDGET (self->tanks_label), tip);
+    sw_widget_set_tooltip (GTK_WIDGET (self->tanks_label), tip);
     gtk_grid_attach (grid, caption (_("Tanks"), tip, NULL), 0, row, 1, 1);
     gtk_grid_attach (grid, GTK_WIDGET (self->tanks_label), 1, row++, 2, 1);
   }
   self->drag_entry = GTK_ENTRY (gtk_entry_new ());
   gtk_entry_set_placeholder_text (self->drag_entry, _("generic slender-vehicle table"));
   gtk_editable_set_enable_undo (GTK_EDITABLE (self->drag_entry), FALSE);
-  gtk_widget_set_tooltip_text (GTK_WIDGET (self->drag_entry),
+  sw_widget_set_tooltip (GTK_WIDGET (self->drag_entry),
                                _("Drag coefficient against Mach number as mach:cd pairs "
                                  "separated by ';', Mach increasing, e.g. 0:0.3; 1.1:0.55; "
                                  "4:0.25. Empty: the generic table"));
@@ -1773,8 +1774,8 @@ update_extra_stage_fields (SwInspector *self, const SwDesign *d, guint i, gboole
                           "from it; the boosters' thrust is not changed");
 
       gtk_label_set_text_with_mnemonic (self->tw_caption, _("T/W at _ignition, core alone"));
-      gtk_widget_set_tooltip_text (GTK_WIDGET (self->tw_caption), tip);
-      gtk_widget_set_tooltip_text (GTK_WIDGET (self->tw_field), tip);
+      sw_widget_set_tooltip (GTK_WIDGET (self->tw_caption), tip);
+      sw_widget_set_tooltip (GTK_WIDGET (self->tw_field), tip);
       gtk_label_set_text (self->tw_note, note);
     }
   else
@@ -1784,8 +1785,8 @@ update_extra_stage_fields (SwInspector *self, const SwDesign *d, guint i, gboole
                           "is 1.2 to 1.5 at liftoff and 0.6 to 1.2 for an upper stage");
 
       gtk_label_set_text_with_mnemonic (self->tw_caption, _("T/W at _ignition"));
-      gtk_widget_set_tooltip_text (GTK_WIDGET (self->tw_caption), tip);
-      gtk_widget_set_tooltip_text (GTK_WIDGET (self->tw_field), tip);
+      sw_widget_set_tooltip (GTK_WIDGET (self->tw_caption), tip);
+      sw_widget_set_tooltip (GTK_WIDGET (self->tw_field), tip);
       gtk_label_set_text (self->tw_note, "");
     }
   show (self->diameter_field, sw_design_field_get (d, SW_FIELD_DIAMETER, i, &v) ? v : NAN);

@@ -2,6 +2,7 @@
 #include "config.h"
 
 #include "sw-narrow.h"
+#include "sw-widget-text.h"
 
 /* The shown choice: one line, ellipsized at the end. */
 static void
@@ -36,7 +37,7 @@ bind_cb (GtkSignalListItemFactory *factory, GtkListItem *item, gpointer data)
       const char *text = gtk_string_object_get_string (GTK_STRING_OBJECT (o));
       gtk_label_set_text (GTK_LABEL (label), text);
       /* An ellipsized choice can still be read in full. */
-      gtk_widget_set_tooltip_text (label, gtk_label_get_ellipsize (GTK_LABEL (label))
+      sw_widget_set_tooltip (label, gtk_label_get_ellipsize (GTK_LABEL (label))
                                             != PANGO_ELLIPSIZE_NONE ? text : NULL);
     }
 }

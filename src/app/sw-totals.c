@@ -4,6 +4,7 @@
 #include "config.h"
 
 #include "sw-totals.h"
+#include "sw-widget-text.h"
 
 #include "sw-format.h"
 
@@ -135,7 +136,7 @@ set_delta (GtkInscription *label, const char *text, const char *tooltip)
   gtk_widget_set_visible (GTK_WIDGET (label), text != NULL);
   if (g_strcmp0 (gtk_inscription_get_text (label), text) != 0)
     gtk_inscription_set_text (label, text);
-  gtk_widget_set_tooltip_text (GTK_WIDGET (label), tooltip);
+  sw_widget_set_tooltip (GTK_WIDGET (label), tooltip);
 }
 
 /* The change of each figure against the pinned baseline. */

@@ -4,6 +4,7 @@
 #include "config.h"
 
 #include "sw-trade-page.h"
+#include "sw-widget-text.h"
 
 #include "sw-narrow.h"
 #include "sw-number-field.h"
@@ -580,7 +581,7 @@ show_cards (SwTradePage *self, SwAnalysis *r)
   set_label (self->shortfall_caption, r != NULL && r->ok && r->all_fixed
                                         ? _("Chance the nominal payload fits")
                                         : _("Chance the payload is carried, no reserve"));
-  gtk_widget_set_tooltip_text (GTK_WIDGET (self->shortfall_caption),
+  sw_widget_set_tooltip (GTK_WIDGET (self->shortfall_caption),
                                r != NULL && r->ok && r->all_fixed
                                ? _("Share of the samples in which the vehicle (every "
                                    "propellant load fixed) reaches the required delta-v "
