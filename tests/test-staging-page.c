@@ -73,9 +73,19 @@ test_page_shows_worker_result (void)
   sw_staging_page_set_result (SW_STAGING_PAGE (page), a);
   sw_staging_page_set_result (SW_STAGING_PAGE (page), b);
   sw_test_wait_until (ready_cb, page, 20000, "the staging page's worker");
-  g_assert_cmpstr (sw_staging_page_get_weighting (SW_STAGING_PAGE (page)), ==,
-                   "Weights: liftoff mass 1, cost per flight (first stage reused) 1; each "
-                   "criterion divided by its best stage count, the lowest sum wins");
+  /* The weighting, then this design's payload penalty of recovery. */
+  {
+    g_autofree char *penalty
+      = sw_staging_dup_penalty_note (sw_staging_page_get_staging (SW_STAGING_PAGE (page)));
+    g_autofree char *want = NULL;
+
+    g_assert_nonnull (penalty);
+    g_assert_nonnull (strstr (penalty, "less payload at the same liftoff mass"));
+    want = g_strdup_printf ("Weights: liftoff mass 1, cost per flight (first stage reused) 1; "
+                            "each criterion divided by its best stage count, the lowest sum "
+                            "wins. %s", penalty);
+    g_assert_cmpstr (sw_staging_page_get_weighting (SW_STAGING_PAGE (page)), ==, want);
+  }
 
   /* A result, then the page goes away while its worker may still run. */
   sw_staging_page_set_result (SW_STAGING_PAGE (page), a);
