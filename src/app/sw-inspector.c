@@ -1739,7 +1739,7 @@ update_extra_stage_fields (SwInspector *self, const SwDesign *d, guint i, gboole
 {
   const SwStage *s = &d->stages[i];
   void (*show) (SwNumberField *, double) = reset ? sw_number_field_reset : sw_number_field_set_value;
-  double v;
+  double v, with;
   g_autofree char *drag = sw_design_dup_drag_text (d, i, decimal_mark ());
 
   show (self->thrust_field, s->propulsion.has_thrust ? s->propulsion.thrust_vac_kn : NAN);
@@ -1757,12 +1757,11 @@ update_extra_stage_fields (SwInspector *self, const SwDesign *d, guint i, gboole
         s->propulsion.has_engine_thrust ? s->propulsion.engine_thrust_vac_kn : NAN);
   show (self->engine_count_field,
         sw_design_field_get (d, SW_FIELD_ENGINE_COUNT, i, &v) ? v : NAN);
-  show (self->tw_field, sw_design_ignition_tw (d, i));
+  show (self->tw_field, sw_design_stage_tw (d, i, &with));
   if (i == 0 && d->boosters.count > 0)
     {
       /* The field is the core's thrust alone over the whole vehicle at
        * liftoff; the cluster's figure (boosters' thrust too) goes beside it. */
-      double with = sw_design_liftoff_tw_with_boosters (d);
       g_autofree char *ratio = sw_format_ratio (with, 2);
       /* Translators: beside the core's own T/W field, %s is the liftoff
        * thrust-to-weight with the boosters ("1.71") */

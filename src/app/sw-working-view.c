@@ -130,6 +130,38 @@ append_shape (GString *s, const SwAnalysis *r, guint i)
   }
 }
 
+/* An estimate's items, each with its source, and the coefficient they give
+ * against the design's. */
+static void
+append_estimate_total (GString *s, const SwStageEstimate *e)
+{
+  g_autofree char *ms = KG (e->structural_mass_kg);
+  g_autofree char *mp = KG (e->propellant_mass_kg);
+  g_autofree char *eps = RATIO (e->structural_coefficient);
+  g_autofree char *was = RATIO (e->design_coefficient);
+
+  for (guint k = 0; k < SW_N_MER; k++)
+    {
+      g_autofree char *kg = NULL;
+      if (e->item_kg[k] == 0.0)
+        continue;
+      kg = KG (e->item_kg[k]);
+      formula (s, "%-17s %12s kg   %s", sw_mer_item_label (k), kg, sw_mer_item_source (k));
+    }
+  formula (s, _("m_s = %s kg with m_p = %s kg: ε = %s (the design says %s)"), ms, mp, eps,
+           was);
+}
+
+/* An estimate the design could not take, rounded as accepting it rounds. */
+static void
+append_estimate_range (GString *s, const SwStageEstimate *e)
+{
+  if (!sw_limit_contains (SW_LIMIT_STRUCTURAL_COEFFICIENT,
+                          round (e->structural_coefficient * 1e4) / 1e4))
+    formula (s, "%s", _("outside the accepted range of the structural coefficient: it "
+                        "cannot be used"));
+}
+
 /* The stage's structure from the mass-estimating relationships at their
  * fixed point with the sizing (sw-mass-estimate.h), each with its source. */
 static void
@@ -160,29 +192,13 @@ append_mass_estimate (GString *s, const SwAnalysis *r, guint i)
              e->thrust_assumed ? _(" (from the default thrust-to-weight: no thrust given)") : "",
              e->engine_count, ar);
   }
-  for (guint k = 0; k < SW_N_MER; k++)
-    {
-      g_autofree char *kg = NULL;
-      if (e->item_kg[k] == 0.0)
-        continue;
-      kg = KG (e->item_kg[k]);
-      formula (s, "%-17s %12s kg   %s", sw_mer_item_label (k), kg, sw_mer_item_source (k));
-    }
+  append_estimate_total (s, e);
   {
-    g_autofree char *ms = KG (e->structural_mass_kg);
-    g_autofree char *mp = KG (e->propellant_mass_kg);
-    g_autofree char *eps = RATIO (e->structural_coefficient);
-    g_autofree char *was = RATIO (e->design_coefficient);
     g_autofree char *lift = sw_format_mass (m->liftoff_mass_kg);
-    formula (s, _("m_s = %s kg with m_p = %s kg: ε = %s (the design says %s)"), ms, mp, eps,
-             was);
     formula (s, _("fixed point after %u rounds with the split held; liftoff then %s"),
              m->iterations, lift);
-    if (!sw_limit_contains (SW_LIMIT_STRUCTURAL_COEFFICIENT, round (e->structural_coefficient
-                                                                    * 1e4) / 1e4))
-      formula (s, "%s", _("outside the accepted range of the structural coefficient: it "
-                          "cannot be used"));
   }
+  append_estimate_range (s, e);
   /* What "Use estimated ε" does to every stage (and the boosters). */
   formula (s, "%s", m->has_boosters ? _("every stage and the boosters (design → estimate):")
                                     : _("every stage (design → estimate):"));
@@ -244,29 +260,11 @@ append_booster_estimate (GString *s, const SwAnalysis *r)
     formula (s, _("diameter D = %s m%s, length %s m; nose cone 1.2·D long, side area %s m²"), d,
              r->design->boosters.has_diameter ? "" : _(" (half the core's)"), l, a);
   }
-  for (guint k = 0; k < SW_N_MER; k++)
-    {
-      g_autofree char *kg = NULL;
-      if (e->item_kg[k] == 0.0)
-        continue;
-      kg = KG (e->item_kg[k]);
-      formula (s, "%-17s %12s kg   %s", sw_mer_item_label (k), kg, sw_mer_item_source (k));
-    }
-  {
-    g_autofree char *ms = KG (e->structural_mass_kg);
-    g_autofree char *mp = KG (e->propellant_mass_kg);
-    g_autofree char *eps = RATIO (e->structural_coefficient);
-    g_autofree char *was = RATIO (e->design_coefficient);
-    formula (s, _("m_s = %s kg with m_p = %s kg: ε = %s (the design says %s)"), ms, mp, eps,
-             was);
-    if (m->boosters_load_held)
-      formula (s, "%s", _("their load held at the design's own sizing, as the split is; "
-                          "accepting the estimate lets the sizing choose it again"));
-    if (!sw_limit_contains (SW_LIMIT_STRUCTURAL_COEFFICIENT, round (e->structural_coefficient
-                                                                    * 1e4) / 1e4))
-      formula (s, "%s", _("outside the accepted range of the structural coefficient: it "
-                          "cannot be used"));
-  }
+  append_estimate_total (s, e);
+  if (m->boosters_load_held)
+    formula (s, "%s", _("their load held at the design's own sizing, as the split is; "
+                        "accepting the estimate lets the sizing choose it again"));
+  append_estimate_range (s, e);
 }
 
 /* The stages' delta-v limit with no payload and the headroom to it, as the
@@ -295,6 +293,23 @@ append_vehicle_limit (GString *s, const SwSizing *sz)
       g_autofree char *given = MS (sz->delta_v_given_m_s);
       formula (s, _("delta-v with this payload = %s m/s"), given);
     }
+}
+
+/* The vehicle's totals: liftoff mass, payload fraction, the limit and the
+ * sizing's reason when it gives one. */
+static void
+append_vehicle (GString *s, const SwSizing *sz)
+{
+  g_autofree char *lift = KG (sz->liftoff_mass_kg);
+  g_autofree char *pl = KG (sz->payload_kg);
+  g_autofree char *frac = sw_format_percent (sz->payload_fraction, 3);
+
+  head (s, _("Vehicle"));
+  formula (s, _("liftoff mass (m0 of stage 1) = %s kg"), lift);
+  formula (s, _("payload fraction = %s / %s = %s"), pl, lift, frac);
+  append_vehicle_limit (s, sz);
+  if (sz->reason[0] != '\0')
+    g_string_append_printf (s, "\n%s\n", sz->reason);
 }
 
 static char *
@@ -587,18 +602,7 @@ build_text (SwWorkingView *self, gboolean for_copy)
         g_string_append_printf (s, _("No masses: the vehicle does not close.\n%s\n"),
                                 sz->reason);
       else
-        {
-          g_autofree char *lift = KG (sz->liftoff_mass_kg);
-          g_autofree char *pl = KG (sz->payload_kg);
-          g_autofree char *frac = sw_format_percent (sz->payload_fraction, 3);
-
-          head (s, _("Vehicle"));
-          formula (s, _("liftoff mass (m0 of stage 1) = %s kg"), lift);
-          formula (s, _("payload fraction = %s / %s = %s"), pl, lift, frac);
-          append_vehicle_limit (s, sz);
-          if (sz->reason[0] != '\0')
-            g_string_append_printf (s, "\n%s\n", sz->reason);
-        }
+        append_vehicle (s, sz);
       append_shape (s, r, i);
       append_mass_estimate (s, r, i);
       if (for_copy)
@@ -658,9 +662,6 @@ build_text (SwWorkingView *self, gboolean for_copy)
       g_autofree char *mp = KG (sr->propellant_mass_kg);
       g_autofree char *ms = KG (sr->structural_mass_kg);
       g_autofree char *mst = KG (sr->stage_mass_kg);
-      g_autofree char *lift = KG (sz->liftoff_mass_kg);
-      g_autofree char *pl = KG (sz->payload_kg);
-      g_autofree char *frac = sw_format_percent (sz->payload_fraction, 3);
 
       head (s, _("Mass above this stage (payload and upper stages)"));
       formula (s, "m_above = %s kg", above);
@@ -678,12 +679,7 @@ build_text (SwWorkingView *self, gboolean for_copy)
       formula (s, "m_p + m_s = %s kg", mst);
       g_string_append_c (s, '\n');
 
-      head (s, _("Vehicle"));
-      formula (s, _("liftoff mass (m0 of stage 1) = %s kg"), lift);
-      formula (s, _("payload fraction = %s / %s = %s"), pl, lift, frac);
-      append_vehicle_limit (s, sz);
-      if (sz->reason[0] != '\0')
-        g_string_append_printf (s, "\n%s\n", sz->reason);
+      append_vehicle (s, sz);
     }
 
   append_shape (s, r, i);

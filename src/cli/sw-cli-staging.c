@@ -437,6 +437,28 @@ carpet_axis_json (JsonBuilder *b, const char *key, const SwCarpetAxis *a)
   json_builder_end_object (b);
 }
 
+/* One array per y value of @values (the grid of @c), x increasing; null
+ * where the vehicle does not close. */
+static void
+add_grid (JsonBuilder *b, const SwCarpet *c, const double *values)
+{
+  json_builder_begin_array (b);
+  for (guint j = 0; j < c->y.n; j++)
+    {
+      json_builder_begin_array (b);
+      for (guint i = 0; i < c->x.n; i++)
+        {
+          double v = values[j * c->x.n + i];
+          if (isfinite (v))
+            json_builder_add_double_value (b, v);
+          else
+            json_builder_add_null_value (b);
+        }
+      json_builder_end_array (b);
+    }
+  json_builder_end_array (b);
+}
+
 static void
 carpet_json (const SwDesign *d, const SwCarpet *c)
 {
@@ -464,21 +486,7 @@ carpet_json (const SwDesign *d, const SwCarpet *c)
   json_builder_add_string_value (b, c->note);
   /* One array per y value, x increasing; null where the vehicle does not close. */
   json_builder_set_member_name (b, "rows");
-  json_builder_begin_array (b);
-  for (guint j = 0; j < c->y.n; j++)
-    {
-      json_builder_begin_array (b);
-      for (guint i = 0; i < c->x.n; i++)
-        {
-          double v = c->values[j * c->x.n + i];
-          if (isfinite (v))
-            json_builder_add_double_value (b, v);
-          else
-            json_builder_add_null_value (b);
-        }
-      json_builder_end_array (b);
-    }
-  json_builder_end_array (b);
+  add_grid (b, c, c->values);
   /* A cost output with a cost per work-year: the same grid in money (the
    * design's currency, or null without one); null otherwise. */
   sw_cli_add_number (b, "work_year_cost", c->work_year_cost);
@@ -490,21 +498,7 @@ carpet_json (const SwDesign *d, const SwCarpet *c)
   json_builder_set_member_name (b, "money_rows");
   if (c->has_money)
     {
-      json_builder_begin_array (b);
-      for (guint j = 0; j < c->y.n; j++)
-        {
-          json_builder_begin_array (b);
-          for (guint i = 0; i < c->x.n; i++)
-            {
-              double v = c->money[j * c->x.n + i];
-              if (isfinite (v))
-                json_builder_add_double_value (b, v);
-              else
-                json_builder_add_null_value (b);
-            }
-          json_builder_end_array (b);
-        }
-      json_builder_end_array (b);
+      add_grid (b, c, c->money);
       json_builder_set_member_name (b, "money_note");
       json_builder_add_string_value (b, sw_economics_money_note ());
     }

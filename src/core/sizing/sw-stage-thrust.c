@@ -72,36 +72,40 @@ sw_design_set_thrust_for_tw (SwDesign *design, guint stage, double tw, GError **
 }
 
 double
-sw_design_ignition_tw (const SwDesign *design, guint stage)
+sw_design_stage_tw (const SwDesign *design, guint stage, double *with_boosters)
 {
   const SwStage *s;
   double mass, thrust_n;
 
   g_return_val_if_fail (design != NULL, NAN);
+  if (with_boosters != NULL)
+    *with_boosters = NAN;
   if (stage >= design->n_stages)
     return NAN;
   s = &design->stages[stage];
   thrust_n = sw_stage_thrust_vac_n (&s->propulsion, s->reliability.has_engine_count
                                                       ? s->reliability.engine_count : 1);
+  /* One sizing for both figures. */
   if (!isfinite (thrust_n) || !ignition_mass (design, stage, &mass, NULL))
     return NAN;
+  if (with_boosters != NULL && stage == 0 && design->boosters.count > 0)
+    *with_boosters = (thrust_n + design->boosters.count * design->boosters.thrust_vac_kn * 1000.0)
+                     / (SW_G0 * mass);
   return thrust_n / (SW_G0 * mass);
+}
+
+double
+sw_design_ignition_tw (const SwDesign *design, guint stage)
+{
+  return sw_design_stage_tw (design, stage, NULL);
 }
 
 double
 sw_design_liftoff_tw_with_boosters (const SwDesign *design)
 {
-  const SwStage *core;
-  double mass, thrust_n;
+  double with;
 
   g_return_val_if_fail (design != NULL, NAN);
-  if (design->boosters.count == 0 || design->n_stages == 0)
-    return NAN;
-  core = &design->stages[0];
-  thrust_n = sw_stage_thrust_vac_n (&core->propulsion, core->reliability.has_engine_count
-                                                        ? core->reliability.engine_count : 1);
-  if (!isfinite (thrust_n) || !ignition_mass (design, 0, &mass, NULL))
-    return NAN;
-  thrust_n += design->boosters.count * design->boosters.thrust_vac_kn * 1000.0;
-  return thrust_n / (SW_G0 * mass);
+  sw_design_stage_tw (design, 0, &with);
+  return with;
 }

@@ -37,5 +37,9 @@ double   sw_design_ignition_tw (const SwDesign *design, guint stage);
  * stage 0 (which is the core's thrust alone).  NAN without boosters, without
  * the core's thrust or a feasible sizing. */
 double   sw_design_liftoff_tw_with_boosters (const SwDesign *design);
+/* Both from one sizing: the stage's thrust-to-weight at ignition, and in
+ * @with_boosters (may be NULL; NAN unless stage 0 of a design with
+ * boosters) the cluster's at liftoff. */
+double   sw_design_stage_tw (const SwDesign *design, guint stage, double *with_boosters);
 
 G_END_DECLS

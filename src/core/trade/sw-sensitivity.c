@@ -143,6 +143,39 @@ parallel_value (const SwParallelVehicle *v, double payload, double dv, SwSensPar
     }
 }
 
+/* One input of the parallel vehicle @w (or the payload or delta-v) times
+ * @factor; FALSE when a structural coefficient reaches 1. */
+static gboolean
+perturb_parallel (SwParallelVehicle *w, double *payload, double *dv, SwSensParam param,
+                  int stage, double factor)
+{
+  double eps = 0.0;
+
+  switch (param)
+    {
+    case SW_SENS_PAYLOAD:
+      *payload *= factor;
+      break;
+    case SW_SENS_DELTA_V:
+      *dv *= factor;
+      break;
+    case SW_SENS_ISP:
+      w->set.exhaust_velocity_m_s[stage] *= factor;
+      break;
+    case SW_SENS_STRUCTURAL_COEFFICIENT:
+      eps = w->set.structural_coefficient[stage] *= factor;
+      break;
+    case SW_SENS_BOOSTER_ISP:
+      w->booster_exhaust_velocity_m_s *= factor;
+      break;
+    case SW_SENS_BOOSTER_STRUCTURAL_COEFFICIENT:
+    default:
+      eps = w->booster_structural_coefficient *= factor;
+      break;
+    }
+  return eps < 1.0;
+}
+
 /* The liftoff mass re-sized with one input times @factor; NAN when no
  * vehicle closes. */
 static double
@@ -151,31 +184,8 @@ parallel_mass (const SwParallelVehicle *v, double payload, double dv, SwSplitMod
 {
   SwParallelVehicle w = *v;
   SwSizing sizing;
-  double eps = 0.0;
 
-  switch (param)
-    {
-    case SW_SENS_PAYLOAD:
-      payload *= factor;
-      break;
-    case SW_SENS_DELTA_V:
-      dv *= factor;
-      break;
-    case SW_SENS_ISP:
-      w.set.exhaust_velocity_m_s[stage] *= factor;
-      break;
-    case SW_SENS_STRUCTURAL_COEFFICIENT:
-      eps = w.set.structural_coefficient[stage] *= factor;
-      break;
-    case SW_SENS_BOOSTER_ISP:
-      w.booster_exhaust_velocity_m_s *= factor;
-      break;
-    case SW_SENS_BOOSTER_STRUCTURAL_COEFFICIENT:
-    default:
-      eps = w.booster_structural_coefficient *= factor;
-      break;
-    }
-  if (!(eps < 1.0))
+  if (!perturb_parallel (&w, &payload, &dv, param, stage, factor))
     return NAN;
   sw_size_parallel (&w, payload, dv, split, &sizing);
   return sizing.feasible ? sizing.liftoff_mass_kg : NAN;
@@ -217,6 +227,20 @@ parallel_exchange_ratios (const SwParallelVehicle *v, const SwSizing *sizing, do
     }
 }
 
+/* The tornado's bar of @it from the liftoff masses with the input at
+ * 1 - step (@m_minus) and 1 + step (@m_plus), NAN where the vehicle does
+ * not close (the effect is then infinite). */
+static void
+set_swing (SwSensitivity *it, double m_minus, double m_plus, double liftoff_mass_kg)
+{
+  it->minus_feasible = isfinite (m_minus);
+  it->plus_feasible = isfinite (m_plus);
+  it->minus_kg = m_minus - liftoff_mass_kg;
+  it->plus_kg = m_plus - liftoff_mass_kg;
+  it->effect_kg = it->minus_feasible && it->plus_feasible
+                    ? MAX (fabs (it->minus_kg), fabs (it->plus_kg)) : INFINITY;
+}
+
 static gboolean
 compute_with_boosters (const SwDesign *design, const SwSizing *sizing, double step,
                        SwSensitivityTable *out, GError **error)
@@ -252,12 +276,7 @@ compute_with_boosters (const SwDesign *design, const SwSizing *sizing, double st
       it->elasticity = it->value / sizing->liftoff_mass_kg * it->derivative;
       m_minus = parallel_mass (&v, payload, dv, design->split, it->param, it->stage, 1.0 - step);
       m_plus = parallel_mass (&v, payload, dv, design->split, it->param, it->stage, 1.0 + step);
-      it->minus_feasible = isfinite (m_minus);
-      it->plus_feasible = isfinite (m_plus);
-      it->minus_kg = m_minus - sizing->liftoff_mass_kg;
-      it->plus_kg = m_plus - sizing->liftoff_mass_kg;
-      it->effect_kg = it->minus_feasible && it->plus_feasible
-                        ? MAX (fabs (it->minus_kg), fabs (it->plus_kg)) : INFINITY;
+      set_swing (it, m_minus, m_plus, sizing->liftoff_mass_kg);
     }
   parallel_exchange_ratios (&v, sizing, out->exchange_ratio);
   return TRUE;
@@ -305,12 +324,7 @@ compute_with_fixed (const SwDesign *design, const SwSizing *sizing, double step,
                                       it->stage, 1.0 - step);
       m_plus = perturbed_mass_fixed (&set, fixed_kg, payload, dv, design->split, it->param,
                                      it->stage, 1.0 + step);
-      it->minus_feasible = isfinite (m_minus);
-      it->plus_feasible = isfinite (m_plus);
-      it->minus_kg = m_minus - sizing->liftoff_mass_kg;
-      it->plus_kg = m_plus - sizing->liftoff_mass_kg;
-      it->effect_kg = it->minus_feasible && it->plus_feasible
-                        ? MAX (fabs (it->minus_kg), fabs (it->plus_kg)) : INFINITY;
+      set_swing (it, m_minus, m_plus, sizing->liftoff_mass_kg);
     }
 }
 
@@ -323,30 +337,9 @@ capability_of (const SwParallelVehicle *v, double dv, SwSensParam param, int sta
                double factor)
 {
   SwParallelVehicle w = *v;
-  double eps = 0.0, p;
+  double payload = 0.0, p;   /* the payload is what is found, not an input */
 
-  switch (param)
-    {
-    case SW_SENS_DELTA_V:
-      dv *= factor;
-      break;
-    case SW_SENS_ISP:
-      w.set.exhaust_velocity_m_s[stage] *= factor;
-      break;
-    case SW_SENS_STRUCTURAL_COEFFICIENT:
-      eps = w.set.structural_coefficient[stage] *= factor;
-      break;
-    case SW_SENS_BOOSTER_ISP:
-      w.booster_exhaust_velocity_m_s *= factor;
-      break;
-    case SW_SENS_BOOSTER_STRUCTURAL_COEFFICIENT:
-      eps = w.booster_structural_coefficient *= factor;
-      break;
-    case SW_SENS_PAYLOAD:
-    default:
-      break;
-    }
-  if (!(eps < 1.0))
+  if (!perturb_parallel (&w, &payload, &dv, param, stage, factor))
     return NAN;
   p = sw_fixed_loads_payload (&w, dv);
   return p > 0.0 ? p : NAN;
@@ -471,12 +464,7 @@ analytic_items (const SwDesign *design, const SwStageSet *set, const SwSizing *s
                                 it->param, it->stage, 1.0 - step);
       m_plus = perturbed_mass (set, sizing->payload_kg, sizing->delta_v_m_s, design->split,
                                it->param, it->stage, 1.0 + step);
-      it->minus_feasible = isfinite (m_minus);
-      it->plus_feasible = isfinite (m_plus);
-      it->minus_kg = m_minus - sizing->liftoff_mass_kg;
-      it->plus_kg = m_plus - sizing->liftoff_mass_kg;
-      it->effect_kg = it->minus_feasible && it->plus_feasible
-                        ? MAX (fabs (it->minus_kg), fabs (it->plus_kg)) : INFINITY;
+      set_swing (it, m_minus, m_plus, sizing->liftoff_mass_kg);
     }
 }
 
