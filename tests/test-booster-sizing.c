@@ -594,7 +594,7 @@ test_no_boosters_is_lagrange (void)
       g_autoptr (SwDesign) d = booster_design (0, FALSE);
       SwParallelVehicle v;
       SwSizing exact, mine;
-      SwStageSet set;
+      SwStageSet set = { 0 };
 
       d->n_stages = MIN (n_st, 3);
       if (n_st == 4)

@@ -329,7 +329,7 @@ test_fixed_loads_honoured (void)
           g_assert_cmpfloat_with_epsilon (c->design_value / own.liftoff_mass_kg, 1.0, 1e-12);
           /* Not the all-sized vehicle's mass: the fixed load counts. */
           {
-            SwStageSet set;
+            SwStageSet set = { 0 };
             sw_stage_set_from_design (&set, d);
             sw_size (&set, d->payload_kg, own.delta_v_m_s, d->split, &unfixed);
             g_assert_cmpfloat (fabs (c->design_value - unfixed.liftoff_mass_kg), >, 100.0);

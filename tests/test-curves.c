@@ -65,7 +65,7 @@ test_stage_curve_matches_sizing (void)
   for (guint n = 1; n <= SW_MAX_STAGES; n++)
     {
       const SwStageCountPoint *p = &curve.points[n - 1];
-      SwStageSet set;
+      SwStageSet set = { 0 };
       SwSizing s;
 
       hand_extend (d, n, &set);
@@ -122,7 +122,7 @@ test_stage_curve_other_splits (void)
       g_assert_cmpuint (curve.n_points, ==, SW_MAX_STAGES);
       for (guint n = 1; n <= SW_MAX_STAGES; n++)
         {
-          SwStageSet set;
+          SwStageSet set = { 0 };
           SwSizing s;
 
           hand_extend (d, n, &set);
@@ -183,7 +183,7 @@ test_sweep (void)
     {
       const SwSweepCurve *cv = &sweep->curves[c];
       guint n = c + 1, last = cv->n_points - 1;
-      SwStageSet set;
+      SwStageSet set = { 0 };
       double limit = 0.0;
       static const guint probes[] = { 1, 20, 77, 140, 180, 199 };
 
@@ -248,7 +248,7 @@ test_sweep_extends_top_stage (void)
   g_assert_cmpuint (sweep->n_curves, ==, 5);
   for (guint c = 0; c < 5; c++)
     {
-      SwStageSet set;
+      SwStageSet set = { 0 };
       double limit = 0.0;
       SwSizing s;
 

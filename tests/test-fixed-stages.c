@@ -44,7 +44,7 @@ test_fixed_top_by_hand (void)
   const double isp[] = { 300.0, 340.0 }, eps[] = { 0.08, 0.10 };
   const double fixed[] = { 0.0, 20000.0 };
   const double payload = 2000.0, dv = 9400.0;
-  SwStageSet set;
+  SwStageSet set = { 0 };
   SwSizing s;
   /* Hand calculation, from the inputs above. */
   double ms2 = 20000.0 * 0.10 / 0.90;                      /* 2222.22 kg */
@@ -83,7 +83,7 @@ test_optimal_against_grid (void)
   const double isp[] = { 290.0, 330.0, 450.0 }, eps[] = { 0.07, 0.09, 0.12 };
   const double fixed[] = { 0.0, 0.0, 15000.0 };
   const double payload = 3000.0, dv = 9500.0;
-  SwStageSet set;
+  SwStageSet set = { 0 };
   SwSizing s;
   double d, best = INFINITY;
 
@@ -118,7 +118,7 @@ test_fixed_bottom_equal (void)
 {
   const double isp[] = { 280.0, 320.0, 350.0 }, eps[] = { 0.08, 0.09, 0.11 };
   const double fixed[] = { 150000.0, 0.0, 0.0 };
-  SwStageSet set;
+  SwStageSet set = { 0 };
   SwSizing s;
   double m0;
 
@@ -142,7 +142,7 @@ test_infeasible (void)
   const double big[] = { 0.0, 200000.0 };     /* alone: more than 6 km/s with 100 kg on top */
   const double small[] = { 1000.0, 0.0 };
   const double all[] = { 100000.0, 20000.0 };
-  SwStageSet set;
+  SwStageSet set = { 0 };
   SwSizing s;
 
   set_init (&set, 2, isp, eps);
@@ -191,7 +191,7 @@ test_limit_no_payload (void)
   const double first_empty = c1 * log ((m2 + 100000.0 + s1) / (m2 + s1));  /* 4,246.0 m/s */
   const double given = c2 * log ((1000.0 + m2) / (1000.0 + s2))
                        + c1 * log ((1000.0 + m2 + 100000.0 + s1) / (1000.0 + m2 + s1));
-  SwStageSet set;
+  SwStageSet set = { 0 };
   SwSizing s;
 
   set_init (&set, 2, isp, eps);
@@ -238,7 +238,7 @@ test_no_fixed_is_unchanged (void)
 {
   const double isp[] = { 400.0, 350.0, 300.0 }, eps[] = { 0.10, 0.15, 0.20 };
   const double none[] = { 0.0, 0.0, 0.0 };
-  SwStageSet set;
+  SwStageSet set = { 0 };
   SwSizing a, b;
 
   set_init (&set, 3, isp, eps);
@@ -258,7 +258,7 @@ test_design_fixed (void)
 {
   g_autoptr (SwDesign) d = sw_design_new_default ();
   const double fixed[] = { 0.0, 12000.0 };
-  SwStageSet set;
+  SwStageSet set = { 0 };
   SwSizing a, b;
 
   d->stages[1].propellant.has_propellant_kg = TRUE;

@@ -110,7 +110,7 @@ test_sd_against_propagation (void)
   g_autoptr (SwDesign) d = load (design_json, NULL);
   SwUncertainty small = d->uncertainty;
   SwMonteCarlo mc;
-  SwStageSet set;
+  SwStageSet set = { 0 };
   SwSizing s;
   double d_dv, d_isp[SW_MAX_STAGES], d_eps[SW_MAX_STAGES], var = 0.0;
 
@@ -268,7 +268,7 @@ test_band (void)
   g_assert_cmpuint (band.n_points, ==, 6);
   for (guint i = 0; i < band.n_points; i++)
     {
-      SwStageSet set;
+      SwStageSet set = { 0 };
       SwSizing s;
       double dv = 9300.0;
 

@@ -46,7 +46,7 @@ three_stage_set (SwStageSet *set)
 static void
 test_downrange (void)
 {
-  SwStageSet set;
+  SwStageSet set = { 0 };
   SwEconomics e;
   SwReuse r;
   double ms, mp, eps_check;
@@ -94,7 +94,7 @@ test_downrange (void)
 static void
 test_launch_site_and_user_delta_v (void)
 {
-  SwStageSet set;
+  SwStageSet set = { 0 };
   SwEconomics e;
   SwReuse down, home, none;
 
@@ -127,7 +127,7 @@ test_launch_site_and_user_delta_v (void)
 static void
 test_infeasible (void)
 {
-  SwStageSet set;
+  SwStageSet set = { 0 };
   SwEconomics e;
   SwReuse r;
 

@@ -161,7 +161,7 @@ test_analytic_vs_gsl_deriv (void)
 static void
 test_analytic_vs_finite (void)
 {
-  SwStageSet set;
+  SwStageSet set = { 0 };
   g_autoptr (GRand) rand = g_rand_new_with_seed (7);
 
   curtis_set (&set);
@@ -183,7 +183,7 @@ test_analytic_vs_finite (void)
 static void
 test_payload_derivative_exact (void)
 {
-  SwStageSet set;
+  SwStageSet set = { 0 };
   SwSizing s;
   double d_p;
 
@@ -199,7 +199,7 @@ test_payload_derivative_exact (void)
 static void
 test_multiplier_is_delta_v_sensitivity (void)
 {
-  SwStageSet set;
+  SwStageSet set = { 0 };
   SwSizing s;
   double d_dv;
 
@@ -213,7 +213,7 @@ test_multiplier_is_delta_v_sensitivity (void)
 static void
 size_curtis_vehicle (SwSizing *s, SwFixedVehicle *v)
 {
-  SwStageSet set;
+  SwStageSet set = { 0 };
 
   curtis_set (&set);
   sw_size (&set, 5000.0, 10000.0, SW_SPLIT_OPTIMAL, s);
@@ -282,7 +282,7 @@ test_exchange_ratio_vs_resizing (void)
   for (guint k = 0; k < v.n_stages; k++)
     {
       SwFixedVehicle heavy = v;
-      SwStageSet set;
+      SwStageSet set = { 0 };
       SwSizing again;
       double p, above, dv_total = 0.0, dv[SW_MAX_STAGES];
 

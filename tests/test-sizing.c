@@ -127,7 +127,7 @@ static void
 test_g0 (void)
 {
   SwDesign *d = sw_design_new_default ();
-  SwStageSet set;
+  SwStageSet set = { 0 };
 
   /* Standard acceleration of gravity, 9.80665 m/s^2 exactly (3rd CGPM, 1901). */
   g_assert_cmpfloat (SW_G0, ==, 9.80665);
@@ -141,7 +141,7 @@ static void
 test_stage_set_from_design (void)
 {
   g_autoptr (SwDesign) d = sw_design_new ();
-  SwStageSet set;
+  SwStageSet set = { 0 };
 
   d->n_stages = 3;
   for (guint i = 0; i < 3; i++)
@@ -167,7 +167,7 @@ static void
 test_stage_set_extend (void)
 {
   g_autoptr (SwDesign) d = sw_design_new ();
-  SwStageSet set;
+  SwStageSet set = { 0 };
 
   d->n_stages = 2;
   d->stages[0].isp_vac_s = 300.0;
@@ -215,7 +215,7 @@ test_textbook_optimal (void)
   static const double ref_dv_km_s[] = { 5.937, 3.157, 0.906 };
   g_autoptr (SwDesign) d = sw_design_new ();
   g_autoptr (GError) error = NULL;
-  SwStageSet set;
+  SwStageSet set = { 0 };
   SwSizing s;
 
   d->payload_kg = 5000.0;
@@ -273,7 +273,7 @@ test_textbook_optimal_standard_g0 (void)
 {
   static const double isp[] = { 400.0, 350.0, 300.0 };
   static const double eps[] = { 0.10, 0.15, 0.20 };
-  SwStageSet set;
+  SwStageSet set = { 0 };
   SwSizing s;
 
   set_init (&set, 3, isp, eps, SW_G0);
@@ -291,7 +291,7 @@ test_textbook_single_stage (void)
 {
   static const double isp[] = { 350.0 };
   static const double eps[] = { 0.15 };
-  SwStageSet set;
+  SwStageSet set = { 0 };
   SwSizing s;
 
   /* c = 350 * 9.81, the book's exhaust velocity. */
@@ -551,7 +551,7 @@ test_equal_stages_equal_split (void)
   for (guint n = 1; n <= SW_MAX_STAGES; n++)
     {
       double isp[SW_MAX_STAGES], eps[SW_MAX_STAGES];
-      SwStageSet set;
+      SwStageSet set = { 0 };
       SwSizing opt, eq;
 
       for (guint i = 0; i < n; i++)
@@ -581,7 +581,7 @@ test_equal_c_different_eps (void)
 {
   static const double isp[] = { 340.0, 340.0, 340.0, 340.0 };
   static const double eps[] = { 0.05, 0.09, 0.12, 0.07 };
-  SwStageSet set;
+  SwStageSet set = { 0 };
   SwSizing s;
   double c = 340.0 * SW_G0;
 
@@ -614,7 +614,7 @@ test_identical_stages_limit (void)
     }
   for (guint n = 1; n <= SW_MAX_STAGES; n++)
     {
-      SwStageSet set;
+      SwStageSet set = { 0 };
       SwSizing below, beyond;
 
       set_init (&set, n, isp, eps, SW_G0);
@@ -637,7 +637,7 @@ test_linear_in_payload (void)
   static const double isp[] = { 300.0, 350.0, 450.0 };
   static const double eps[] = { 0.07, 0.09, 0.12 };
   static const SwSplitMode modes[] = { SW_SPLIT_EQUAL, SW_SPLIT_OPTIMAL, SW_SPLIT_MANUAL };
-  SwStageSet set;
+  SwStageSet set = { 0 };
 
   set_init (&set, 3, isp, eps, SW_G0);
   set.share[0] = 0.4;
@@ -743,7 +743,7 @@ test_tiny_delta_v (void)
 {
   static const double isp[] = { 300.0, 330.0, 450.0 };
   static const double eps[] = { 0.06, 0.08, 0.10 };
-  SwStageSet set;
+  SwStageSet set = { 0 };
   SwSizing s;
 
   set_init (&set, 3, isp, eps, SW_G0);
@@ -773,7 +773,7 @@ test_infeasible_beyond_limit (void)
   static const double isp[] = { 300.0, 320.0 };
   static const double eps[] = { 0.1, 0.12 };
   static const SwSplitMode modes[] = { SW_SPLIT_EQUAL, SW_SPLIT_OPTIMAL, SW_SPLIT_MANUAL };
-  SwStageSet set;
+  SwStageSet set = { 0 };
   SwSizing s;
   double limit;
 
@@ -854,7 +854,7 @@ test_infeasible_equal_split (void)
 {
   static const double isp[] = { 450.0, 260.0 };
   static const double eps[] = { 0.05, 0.25 };
-  SwStageSet set;
+  SwStageSet set = { 0 };
   SwSizing s;
   double weak = 260.0 * SW_G0 * log (4.0);   /* 3535 m/s */
 
@@ -888,7 +888,7 @@ test_liftoff_mass_for_split (void)
    * The values are printed to 0.1 g: 1e-7 relative covers their rounding. */
   static const double hand_m0[] = { 20177.5532, 6036.6600, 1677.1182 };
   static const double hand_mp[] = { 13151.0307, 3923.5876, 763.0929 };
-  SwStageSet set;
+  SwStageSet set = { 0 };
   double dv[3] = { 3000.0, 3500.0, 2500.0 };
   SwSizing s;
 
@@ -923,7 +923,7 @@ test_stage_at_its_limit (void)
 {
   static const double isp[] = { 300.0, 450.0 };
   static const double eps[] = { 0.1, 0.08 };
-  SwStageSet set;
+  SwStageSet set = { 0 };
   SwSizing s;
   double limit1;
 
@@ -958,7 +958,7 @@ test_optimal_split_at_vehicle_limit (void)
 {
   static const double isp[] = { 300.0, 320.0, 450.0 };
   static const double eps[] = { 0.1, 0.12, 0.09 };
-  SwStageSet set;
+  SwStageSet set = { 0 };
   SwSizing s;
   double dv[3], mult, limit;
 
@@ -989,7 +989,7 @@ test_design_size (void)
 {
   g_autoptr (SwDesign) d = sw_design_new_default ();
   g_autoptr (GError) error = NULL;
-  SwStageSet set;
+  SwStageSet set = { 0 };
   SwSizing s, ref;
   double dv;
 
@@ -1146,7 +1146,7 @@ test_eps_form_strings (void)
 static void
 test_fairing_carried (void)
 {
-  SwStageSet set;
+  SwStageSet set = { 0 };
   SwSizing s, s0, s1;
   const double P = 1000.0, F = 200.0, dv[2] = { 3500.0, 4000.0 };
   double c2, mp, m0, m1, bo, dva, dvb, lo, hi;

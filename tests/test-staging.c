@@ -89,7 +89,7 @@ test_columns (void)
       /* The fixed-size vehicle: the row's vehicle scaled to the design's
        * liftoff mass, its payload found by the root finder. */
       {
-        SwStageSet set;
+        SwStageSet set = { 0 };
         SwSizing sz;
         SwFixedVehicle fv;
         double payload, scale = own.liftoff_mass_kg / row->liftoff_mass_kg;
