@@ -7,6 +7,8 @@
 #include "config.h"
 
 #include "sw-plot.h"
+#include "sw-plot-private.h"
+#include "sw-raster.h"
 #include "widget-render.h"
 
 #include <math.h>
@@ -482,6 +484,119 @@ test_drawing_kept (void)
   gtk_window_destroy (GTK_WINDOW (window));
 }
 
+/* New data is drawn as soon as it is set, from an idle that runs before the
+ * frame clock's (which has a lower priority), and the frames then take that
+ * very drawing: they copy pixels, they draw nothing. */
+static void
+test_drawn_ahead (void)
+{
+  static const double x[] = { 1.0, 2.0, 3.0 };
+  static const double y[] = { 5.0, 7.0, 6.0 };
+  static const double y2[] = { 5.0, 6.5, 7.5 };
+  GtkWidget *plot = sw_plot_new ();
+  SwPlot *p = SW_PLOT (plot);
+  GtkWidget *window;
+  g_autoptr (GPtrArray) snapped = NULL;
+  GskRenderNode *ahead[G_N_ELEMENTS (p->layers)];
+
+  sw_plot_set_x_axis (p, "x", FALSE);
+  sw_plot_set_y_axis (p, "y", FALSE);
+  sw_plot_add_series (p, "s", x, y, 3, SW_PLOT_LINE, 0);
+  window = show_plot (plot);
+  widget_render_settle ();
+
+  sw_plot_clear (p);
+  sw_plot_add_series (p, "s", x, y2, 3, SW_PLOT_LINE, 0);
+  g_assert_cmpuint (p->prepare_id, !=, 0);
+  /* Each iteration dispatches the ready sources of the highest priority
+   * only, so no frame can come before the idle has run. */
+  while (p->prepare_id != 0)
+    g_main_context_iteration (NULL, FALSE);
+  g_assert_false (p->drawing_dirty);
+  g_assert_nonnull (p->drawing);
+  for (guint i = 0; i < G_N_ELEMENTS (p->layers); i++)
+    ahead[i] = p->layers[i];
+  g_assert_nonnull (ahead[1]);
+
+  /* The frames that follow show it as drawn. */
+  widget_render_settle ();
+  snapped = plot_drawing (plot);
+  g_assert_cmpuint (snapped->len, ==, 2);
+  g_assert_true (snapped->pdata[0] == ahead[0]);
+  g_assert_true (snapped->pdata[1] == ahead[1]);
+
+  gtk_window_destroy (GTK_WINDOW (window));
+}
+
+/* A drawing turned into pixels ahead of the frame (sw_raster_node) paints
+ * what the drawing itself paints, to within one level of rounding per
+ * channel: checked against cairo drawing the same recording directly, at
+ * scale 1 and 2, for a box that starts and ends between pixels. */
+static void
+test_raster_same_pixels (void)
+{
+  const graphene_rect_t box = GRAPHENE_RECT_INIT (3.4, 5.7, 120.3, 60.2);
+  static const double dash[] = { 5.0, 3.0 };
+  GskRenderNode *recorded = gsk_cairo_node_new (&box);
+  cairo_t *cr = gsk_cairo_node_get_draw_context (recorded);
+  PangoLayout *layout;
+
+  cairo_set_source_rgba (cr, 0.1, 0.4, 0.8, 0.7);
+  cairo_arc (cr, 40.0, 30.0, 17.3, 0.0, 2.0 * G_PI);
+  cairo_fill (cr);
+  cairo_set_source_rgb (cr, 0.9, 0.3, 0.1);
+  cairo_set_line_width (cr, 2.0);
+  cairo_set_dash (cr, dash, 2, 0.0);
+  cairo_move_to (cr, 5.0, 60.0);
+  cairo_curve_to (cr, 40.0, 10.0, 80.0, 70.0, 122.0, 8.0);
+  cairo_stroke (cr);
+  layout = pango_cairo_create_layout (cr);
+  pango_layout_set_text (layout, "Liftoff 129.0 t", -1);
+  cairo_move_to (cr, 50.0, 40.0);
+  pango_cairo_show_layout (cr, layout);
+  g_object_unref (layout);
+  cairo_destroy (cr);
+
+  for (int scale = 1; scale <= 2; scale++)
+    {
+      int w = 130 * scale, h = 70 * scale;
+      cairo_surface_t *direct = cairo_image_surface_create (CAIRO_FORMAT_ARGB32, w, h);
+      cairo_surface_t *via = cairo_image_surface_create (CAIRO_FORMAT_ARGB32, w, h);
+      GskRenderNode *node = sw_raster_node (recorded, &box, scale);
+      graphene_rect_t bounds;
+      const guint8 *a, *b;
+      int max_diff = 0, inked = 0;
+
+      gsk_render_node_get_bounds (node, &bounds);
+      g_assert_true (graphene_rect_contains_rect (&bounds, &box));
+      g_assert_cmpfloat (bounds.origin.x, ==, floor (bounds.origin.x));
+      g_assert_cmpfloat (bounds.size.width, ==, floor (bounds.size.width));
+      cairo_surface_set_device_scale (direct, scale, scale);
+      cairo_surface_set_device_scale (via, scale, scale);
+      cr = cairo_create (direct);
+      gsk_render_node_draw (recorded, cr);
+      cairo_destroy (cr);
+      cr = cairo_create (via);
+      gsk_render_node_draw (node, cr);
+      cairo_destroy (cr);
+      cairo_surface_flush (direct);
+      cairo_surface_flush (via);
+      a = cairo_image_surface_get_data (direct);
+      b = cairo_image_surface_get_data (via);
+      for (int i = 0; i < cairo_image_surface_get_stride (direct) * h; i++)
+        {
+          max_diff = MAX (max_diff, abs ((int) a[i] - (int) b[i]));
+          inked += a[i] != 0;
+        }
+      g_assert_cmpint (inked, >, 1000 * scale * scale);
+      g_assert_cmpint (max_diff, <=, 1);
+      gsk_render_node_unref (node);
+      cairo_surface_destroy (direct);
+      cairo_surface_destroy (via);
+    }
+  gsk_render_node_unref (recorded);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -489,6 +604,8 @@ main (int argc, char **argv)
 
   g_test_add_func ("/gui/plot/linear-mapping", test_linear_mapping);
   g_test_add_func ("/gui/plot/drawing-kept", test_drawing_kept);
+  g_test_add_func ("/gui/plot/drawn-ahead", test_drawn_ahead);
+  g_test_add_func ("/gui/raster/same-pixels", test_raster_same_pixels);
   g_test_add_func ("/gui/plot/flat-series", test_flat_series);
   g_test_add_func ("/gui/plot/log-decades", test_log_decades);
   g_test_add_func ("/gui/plot/points-drawn", test_points_drawn);

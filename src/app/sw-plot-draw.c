@@ -4,6 +4,7 @@
 #include "config.h"
 
 #include "sw-plot-private.h"
+#include "sw-raster.h"
 #include "sw-text-fit.h"
 
 #include <glib/gi18n.h>
@@ -257,6 +258,12 @@ update_layer (SwPlot *self, guint which, LayerDrawFunc draw, const Colors *c, in
   st.hash = sw_plot_key_int (st.hash, height);
   st.hash = sw_plot_key_int (st.hash, gtk_widget_get_scale_factor (GTK_WIDGET (self)));
   cairo_set_user_data (cr, &layer_state_key, &st, NULL);
+  /* Shapes with cairo's 4 x 4 supersampling rather than its finest: on
+   * screen the edges of 2 px curves and markers look the same, and the
+   * dashed curves of a plot rasterise in a third of the time (0.5 against
+   * 1.6 ms for the five of the delta-v plot).  Text keeps its own
+   * antialiasing (the font options). */
+  cairo_set_antialias (cr, CAIRO_ANTIALIAS_FAST);
   draw (self, cr, c, width, height);
   cairo_set_user_data (cr, &layer_state_key, NULL, NULL);
   cairo_destroy (cr);
@@ -287,11 +294,11 @@ update_layer (SwPlot *self, guint which, LayerDrawFunc draw, const Colors *c, in
           gsk_render_node_unref (node);
           return;
         }
-      self->layers[which] = gsk_clip_node_new (node, &box);
-      gsk_render_node_unref (node);
+      self->layers[which] = sw_raster_node (node, &box, gtk_widget_get_scale_factor (GTK_WIDGET (self)));
     }
   else
-    self->layers[which] = node;
+    self->layers[which] = sw_raster_node (node, &all, gtk_widget_get_scale_factor (GTK_WIDGET (self)));
+  gsk_render_node_unref (node);
 }
 
 void
@@ -1255,6 +1262,28 @@ draw_plot (SwPlot *self, int width, int height, const Colors *c)
   return gsk_container_node_new (nodes, n);
 }
 
+/* Lays out and draws the plot at its current size if its inputs changed:
+ * called as soon as they do (sw-plot.c), so that the frame that shows them
+ * only copies pixels, and again at the snapshot. */
+void
+sw_plot_prepare (SwPlot *self)
+{
+  int width = gtk_widget_get_width (GTK_WIDGET (self));
+  int height = gtk_widget_get_height (GTK_WIDGET (self));
+  Colors c;
+
+  if (width <= 0 || height <= 0)
+    return;
+  sw_plot_ensure_layout (self);
+  if (self->drawing != NULL && self->drawing_width == width && self->drawing_height == height)
+    return;
+  sw_plot_get_colors (self, &c);
+  g_clear_pointer (&self->drawing, gsk_render_node_unref);
+  self->drawing = draw_plot (self, width, height, &c);
+  self->drawing_width = width;
+  self->drawing_height = height;
+}
+
 void
 sw_plot_snapshot (GtkWidget *widget, GtkSnapshot *snapshot)
 {
@@ -1265,15 +1294,8 @@ sw_plot_snapshot (GtkWidget *widget, GtkSnapshot *snapshot)
 
   if (width <= 0 || height <= 0)
     return;
-  sw_plot_ensure_layout (self);
+  sw_plot_prepare (self);
   sw_plot_get_colors (self, &c);
-  if (self->drawing == NULL || self->drawing_width != width || self->drawing_height != height)
-    {
-      g_clear_pointer (&self->drawing, gsk_render_node_unref);
-      self->drawing = draw_plot (self, width, height, &c);
-      self->drawing_width = width;
-      self->drawing_height = height;
-    }
   if (self->drawing != NULL)
     gtk_snapshot_append_node (snapshot, self->drawing);
 

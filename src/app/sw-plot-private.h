@@ -87,6 +87,7 @@ struct _SwPlot {
   int            drawing_width;
   int            drawing_height;
   gboolean       drawing_dirty;
+  guint          prepare_id;   /* the idle that draws ahead of the frame */
 
   /* The drawing's layers (SW_PLOT_N_LAYERS: frame, data, notes), each kept
    * while it comes out the same, so the renderer repaints only the layers
@@ -132,6 +133,7 @@ double       sw_plot_category_width (SwPlot *self);
 guint        sw_plot_n_categories (SwPlot *self);
 gboolean     sw_plot_categorical_y (SwPlot *self);
 void         sw_plot_ensure_layout (SwPlot *self);
+void         sw_plot_prepare (SwPlot *self);
 /* Drops the layout and the kept drawing if the plot's inputs changed. */
 void         sw_plot_check_inputs (SwPlot *self);
 /* Whether anything can be drawn on the axes (series, bands, markers). */

@@ -4,6 +4,7 @@
 #include "config.h"
 
 #include "sw-plot-private.h"
+#include "sw-raster.h"
 
 #include <glib/gi18n.h>
 #include <math.h>
@@ -503,11 +504,20 @@ sw_plot_ensure_layout (SwPlot *self)
 }
 
 static void
+prepare (GtkWidget *widget)
+{
+  sw_plot_prepare (SW_PLOT (widget));
+}
+
+static void
 invalidate (SwPlot *self)
 {
-  /* The layout is redone only if the drawing's key changes (snapshot). */
+  /* The layout is redone only if the drawing's key changes.  The drawing
+   * is made as soon as the caller is done setting the inputs (an idle at
+   * the default priority runs before the frame clock's), not in the frame. */
   self->drawing_dirty = TRUE;
   gtk_widget_queue_draw (GTK_WIDGET (self));
+  sw_raster_schedule (GTK_WIDGET (self), &self->prepare_id, prepare);
 }
 
 static void
@@ -534,17 +544,30 @@ sw_plot_size_allocate (GtkWidget *widget, int width, int height, int baseline)
    * nothing here. */
 }
 
+/* Everything measured and drawn again: after a change of style (the font
+ * may have changed) or of scale (the drawing is pixels, sw-raster.h). */
+static void
+redraw_all (SwPlot *self)
+{
+  g_hash_table_remove_all (self->text_cache);
+  self->colors_valid = FALSE;
+  self->layout_valid = FALSE;
+  g_clear_pointer (&self->drawing, gsk_render_node_unref);
+  sw_plot_clear_layers (self);
+  invalidate (self);
+}
+
+static void
+scale_factor_cb (SwPlot *self, GParamSpec *pspec, gpointer data)
+{
+  redraw_all (self);
+}
+
 static void
 sw_plot_css_changed (GtkWidget *widget, GtkCssStyleChange *change)
 {
   GTK_WIDGET_CLASS (sw_plot_parent_class)->css_changed (widget, change);
-  /* The font may have changed. */
-  g_hash_table_remove_all (SW_PLOT (widget)->text_cache);
-  SW_PLOT (widget)->colors_valid = FALSE;
-  SW_PLOT (widget)->layout_valid = FALSE;
-  g_clear_pointer (&SW_PLOT (widget)->drawing, gsk_render_node_unref);
-  sw_plot_clear_layers (SW_PLOT (widget));
-  invalidate (SW_PLOT (widget));
+  redraw_all (SW_PLOT (widget));
 }
 
 /* GObject */
@@ -598,6 +621,7 @@ sw_plot_finalize (GObject *object)
   g_free (self->title);
   g_free (self->empty_text);
   g_hash_table_unref (self->text_cache);
+  g_clear_handle_id (&self->prepare_id, g_source_remove);
   g_clear_pointer (&self->drawing, gsk_render_node_unref);
   sw_plot_clear_layers (self);
   sw_plot_axis_clear (&self->x);
@@ -683,6 +707,7 @@ sw_plot_init (SwPlot *self)
   self->vlines = g_ptr_array_new_with_free_func (vline_free);
   self->text_cache = g_hash_table_new_full (g_str_hash, g_str_equal, g_free, g_object_unref);
   sw_plot_hover_setup (self);
+  g_signal_connect (self, "notify::scale-factor", G_CALLBACK (scale_factor_cb), NULL);
 }
 
 /* Public API */

@@ -4,6 +4,7 @@
 #include "config.h"
 
 #include "sw-stack-view.h"
+#include "sw-raster.h"
 
 #include "sw-format.h"
 #include "sw-plot.h"
@@ -99,6 +100,7 @@ struct _SwStackView {
    * neither records nor rasterises it again. */
   GskRenderNode *drawing;
   guint64        drawing_key;
+  guint          prepare_id;   /* the idle that draws ahead of the frame */
 
   /* The plain mass picture in parts, each a node over the box it draws in,
    * kept while its own key is the same: an edit repaints the stack's
@@ -106,6 +108,7 @@ struct _SwStackView {
    * empty space between them (draw_stack_parts). */
   GskRenderNode *parts[N_PARTS];
   guint64        part_keys[N_PARTS];
+  gboolean       part_new[N_PARTS];   /* recorded in this drawing, not yet rasterised */
 };
 
 enum {
@@ -836,11 +839,21 @@ ensure_layout (SwStackView *self)
     stack_layout (self, w, h);
 }
 
+static void sw_stack_view_prepare (GtkWidget *widget);
+
+/* A redraw, with the drawing made ahead of the frame (sw-raster.h). */
+static void
+queue_redraw (SwStackView *self)
+{
+  gtk_widget_queue_draw (GTK_WIDGET (self));
+  sw_raster_schedule (GTK_WIDGET (self), &self->prepare_id, sw_stack_view_prepare);
+}
+
 static void
 invalidate (SwStackView *self)
 {
   self->layout_valid = FALSE;
-  gtk_widget_queue_draw (GTK_WIDGET (self));
+  queue_redraw (self);
 }
 
 /* Hit testing */
@@ -1319,6 +1332,7 @@ part_begin (SwStackView *self, guint which, const graphene_rect_t *box, guint64 
   self->part_keys[which] = key;
   node = gsk_cairo_node_new (box);
   self->parts[which] = node;
+  self->part_new[which] = TRUE;
   return gsk_cairo_node_get_draw_context (node);
 }
 
@@ -1473,8 +1487,21 @@ draw_stack_parts (SwStackView *self, GtkSnapshot *snapshot, int width, int heigh
   }
 
   for (guint i = 0; i < N_PARTS; i++)
-    if (self->parts[i] != NULL)
-      gtk_snapshot_append_node (snapshot, self->parts[i]);
+    {
+      if (self->parts[i] != NULL && self->part_new[i])
+        {
+          GskRenderNode *recorded = self->parts[i];
+          graphene_rect_t bounds;
+
+          gsk_render_node_get_bounds (recorded, &bounds);
+          self->parts[i] = sw_raster_node (recorded, &bounds,
+                                           gtk_widget_get_scale_factor (GTK_WIDGET (self)));
+          gsk_render_node_unref (recorded);
+        }
+      self->part_new[i] = FALSE;
+      if (self->parts[i] != NULL)
+        gtk_snapshot_append_node (snapshot, self->parts[i]);
+    }
 }
 
 static void
@@ -1673,8 +1700,10 @@ drawing_key (SwStackView *self, int width, int height, const Colors *c)
   return h;
 }
 
+/* Lays out and draws the view if what it shows changed: ahead of the
+ * frame (queue_redraw) and again at the snapshot. */
 static void
-sw_stack_view_snapshot (GtkWidget *widget, GtkSnapshot *snapshot)
+sw_stack_view_prepare (GtkWidget *widget)
 {
   SwStackView *self = SW_STACK_VIEW (widget);
   int width = gtk_widget_get_width (widget);
@@ -1690,12 +1719,30 @@ sw_stack_view_snapshot (GtkWidget *widget, GtkSnapshot *snapshot)
   if (self->drawing == NULL || key != self->drawing_key)
     {
       GtkSnapshot *own = gtk_snapshot_new ();
+      gboolean in_parts = parts_apply (self);
 
       g_clear_pointer (&self->drawing, gsk_render_node_unref);
       draw_stack (self, own, width, height, &c);
       self->drawing = gtk_snapshot_free_to_node (own);
       self->drawing_key = key;
+      /* The parts are rasterised each on its own (draw_stack_parts); the
+       * whole-view drawing here. */
+      if (self->drawing != NULL && !in_parts)
+        {
+          GskRenderNode *recorded = self->drawing;
+          self->drawing = sw_raster_node (recorded, &GRAPHENE_RECT_INIT (0, 0, width, height),
+                                          gtk_widget_get_scale_factor (widget));
+          gsk_render_node_unref (recorded);
+        }
     }
+}
+
+static void
+sw_stack_view_snapshot (GtkWidget *widget, GtkSnapshot *snapshot)
+{
+  SwStackView *self = SW_STACK_VIEW (widget);
+
+  sw_stack_view_prepare (widget);
   if (self->drawing != NULL)
     gtk_snapshot_append_node (snapshot, self->drawing);
 }
@@ -1723,17 +1770,30 @@ sw_stack_view_size_allocate (GtkWidget *widget, int width, int height, int basel
    * of the window that leaves this view's size alone re-shapes no text. */
 }
 
+/* Everything shaped and drawn again, even if the texts did not change:
+ * after a change of style (the font may have changed) or of scale (the
+ * drawing is pixels, sw-raster.h). */
+static void
+redraw_all (SwStackView *self)
+{
+  if (self->text_cache != NULL)
+    g_hash_table_remove_all (self->text_cache);
+  g_clear_pointer (&self->drawing, gsk_render_node_unref);
+  clear_parts (self);
+  invalidate (self);
+}
+
 static void
 sw_stack_view_css_changed (GtkWidget *widget, GtkCssStyleChange *change)
 {
   GTK_WIDGET_CLASS (sw_stack_view_parent_class)->css_changed (widget, change);
-  /* The font may have changed: shape and draw again even if the texts did
-   * not. */
-  if (SW_STACK_VIEW (widget)->text_cache != NULL)
-    g_hash_table_remove_all (SW_STACK_VIEW (widget)->text_cache);
-  g_clear_pointer (&SW_STACK_VIEW (widget)->drawing, gsk_render_node_unref);
-  clear_parts (SW_STACK_VIEW (widget));
-  invalidate (SW_STACK_VIEW (widget));
+  redraw_all (SW_STACK_VIEW (widget));
+}
+
+static void
+scale_factor_cb (SwStackView *self, GParamSpec *pspec, gpointer data)
+{
+  redraw_all (self);
 }
 
 /* Tooltip */
@@ -1835,7 +1895,7 @@ drag_begin_cb (GtkGestureDrag *gesture, double x, double y, SwStackView *self)
   self->drag_lower = lower;
   /* The whole stack height stands for the whole delta-v. */
   self->drag_stack_height = self->stack_height;
-  gtk_widget_queue_draw (GTK_WIDGET (self));
+  queue_redraw (self);
 }
 
 static void
@@ -1858,7 +1918,7 @@ drag_end_cb (GtkGestureDrag *gesture, double dx, double dy, SwStackView *self)
   self->drag_lower = -1;
   g_signal_emit (self, signals[SHARE_DRAGGED], 0, lower, lower + 1,
                  -dy / self->drag_stack_height, TRUE);
-  gtk_widget_queue_draw (GTK_WIDGET (self));
+  queue_redraw (self);
 }
 
 static void
@@ -1869,7 +1929,7 @@ motion_cb (GtkEventControllerMotion *motion, double x, double y, SwStackView *se
   if (border != self->hover_border)
     {
       self->hover_border = border;
-      gtk_widget_queue_draw (GTK_WIDGET (self));
+      queue_redraw (self);
     }
   if (border >= 0 || self->drag_lower >= 0)
     gtk_widget_set_cursor_from_name (GTK_WIDGET (self), "ns-resize");
@@ -1885,7 +1945,7 @@ leave_cb (GtkEventControllerMotion *motion, SwStackView *self)
   if (self->hover_border >= 0)
     {
       self->hover_border = -1;
-      gtk_widget_queue_draw (GTK_WIDGET (self));
+      queue_redraw (self);
     }
 }
 
@@ -1918,6 +1978,7 @@ sw_stack_view_dispose (GObject *object)
 {
   SwStackView *self = SW_STACK_VIEW (object);
 
+  g_clear_handle_id (&self->prepare_id, g_source_remove);
   clear_layout (self);
   g_clear_pointer (&self->drawing, gsk_render_node_unref);
   clear_parts (self);
@@ -2014,6 +2075,7 @@ sw_stack_view_init (SwStackView *self)
 
   gtk_gesture_single_set_button (GTK_GESTURE_SINGLE (click), GDK_BUTTON_PRIMARY);
   g_signal_connect (click, "pressed", G_CALLBACK (click_pressed_cb), self);
+  g_signal_connect (self, "notify::scale-factor", G_CALLBACK (scale_factor_cb), NULL);
   gtk_widget_add_controller (widget, GTK_EVENT_CONTROLLER (click));
 
   gtk_gesture_single_set_button (GTK_GESTURE_SINGLE (drag), GDK_BUTTON_PRIMARY);
@@ -2099,7 +2161,7 @@ sw_stack_view_set_selected (SwStackView *self, int stage)
     return;
   self->selected = stage;
   g_object_notify_by_pspec (G_OBJECT (self), properties[PROP_SELECTED_STAGE]);
-  gtk_widget_queue_draw (GTK_WIDGET (self));
+  queue_redraw (self);
 }
 
 int
