@@ -264,6 +264,60 @@ test_steady_height (void)
     g_test_skip ("no width gave one line, then two");
 }
 
+/* A warning that comes and goes as a value is dragged across a limit: once
+ * shown, its row keeps its place (saying there are none now), so the
+ * totals keep their height and the plots below do not move; the texts for
+ * scripts still say there is no warning.  A new design forgets the row. */
+static void
+test_warning_row_kept (void)
+{
+  static const char *warning = "Liftoff thrust-to-weight 1.16 is below the limit of 1.20.";
+  g_autoptr (SwDesign) d = demo ("medium-cargo.stagewright");
+  g_autoptr (SwAnalysis) r = NULL;
+  SwAnalysisOptions o;
+  GtkWidget *t = sw_totals_new ();
+  GtkWidget *box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 0);
+  GtkWidget *window;
+  int h_none, h_warned, h_gone, h_forgotten;
+
+  sw_analysis_options_init (&o);
+  o.montecarlo = FALSE;
+  o.ascent = FALSE;
+  r = sw_analysis_new (d, 1, &o, NULL);
+  g_assert_nonnull (r);
+  gtk_widget_set_valign (t, GTK_ALIGN_START);
+  gtk_box_append (GTK_BOX (box), t);
+  sw_totals_set_result (SW_TOTALS (t), r);
+  window = widget_render_show (box, 900, 500);
+  widget_render_settle ();
+  h_none = gtk_widget_get_height (t);
+
+  sw_totals_set_ascent (SW_TOTALS (t), NULL, warning);
+  widget_render_settle ();
+  h_warned = gtk_widget_get_height (t);
+  g_assert_cmpstr (sw_totals_get_text (SW_TOTALS (t), SW_TOTALS_ASCENT_WARNINGS), ==, warning);
+  g_assert_cmpint (h_warned, >, h_none);
+
+  sw_totals_set_ascent (SW_TOTALS (t), NULL, NULL);
+  widget_render_settle ();
+  h_gone = gtk_widget_get_height (t);
+  g_assert_null (sw_totals_get_text (SW_TOTALS (t), SW_TOTALS_ASCENT_WARNINGS));
+  g_assert_nonnull (find_label (t, "No warnings now."));
+  g_assert_cmpint (h_gone, ==, h_warned);
+
+  sw_totals_set_ascent (SW_TOTALS (t), NULL, warning);
+  widget_render_settle ();
+  g_assert_cmpint (gtk_widget_get_height (t), ==, h_warned);
+  g_assert_cmpstr (sw_totals_get_text (SW_TOTALS (t), SW_TOTALS_ASCENT_WARNINGS), ==, warning);
+
+  sw_totals_set_ascent (SW_TOTALS (t), NULL, NULL);
+  sw_totals_forget_rows (SW_TOTALS (t));
+  widget_render_settle ();
+  h_forgotten = gtk_widget_get_height (t);
+  g_assert_cmpint (h_forgotten, ==, h_none);
+  gtk_window_destroy (GTK_WINDOW (window));
+}
+
 static GtkInscription *
 find_inscription (GtkWidget *w, const char *text)
 {
@@ -352,6 +406,7 @@ main (int argc, char **argv)
   g_test_add_func ("/totals/infeasible", test_infeasible);
   g_test_add_func ("/totals/format-delta", test_format_delta);
   g_test_add_func ("/totals/steady-height", test_steady_height);
+  g_test_add_func ("/totals/warning-row-kept", test_warning_row_kept);
   g_test_add_func ("/totals/limit-line-whole", test_limit_line_whole);
   status = g_test_run ();
   sw_gui_test_env_finish (g_steal_pointer (&tmp));

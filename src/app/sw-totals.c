@@ -27,7 +27,12 @@ struct _SwTotals {
   GtkWidget *ascent_note_box;
   GtkLabel  *ascent_note_label;
   GtkWidget *ascent_warning_box;
+  GtkWidget *ascent_warning_icon;
   GtkLabel  *ascent_warning_label;
+  /* The warnings' row keeps its place once it has shown a warning for this
+   * design (sw_totals_set_ascent), and whether it shows one now. */
+  gboolean   warning_row_kept;
+  gboolean   warnings_shown;
   GtkInscription *delta_caption;
   GtkInscription *liftoff_delta;
   GtkInscription *fraction_delta;
@@ -311,8 +316,39 @@ sw_totals_set_ascent (SwTotals *self, const char *note, const char *warnings)
   set_row (self->ascent_note_box, self->ascent_note_label, note, 1);
   /* The warnings change from one line to two between the phases of an
    * edit (as flown, or from the sized masses): two lines high for the same
-   * reason as the verdict. */
-  set_row (self->ascent_warning_box, self->ascent_warning_label, warnings, 2);
+   * reason as the verdict.  And once a warning has been shown for this
+   * design the row keeps its place when the warnings go (saying there are
+   * none), so that dragging a value back and forth across a limit does not
+   * move the plots below by a row each time, nor make them be laid out and
+   * drawn again at every crossing. */
+  if (warnings != NULL)
+    self->warning_row_kept = TRUE;
+  self->warnings_shown = warnings != NULL;
+  set_row (self->ascent_warning_box, self->ascent_warning_label,
+           warnings != NULL ? warnings : self->warning_row_kept ? _("No warnings now.") : NULL, 2);
+  /* Hidden but keeping its place: the text stays where the warnings were. */
+  gtk_widget_set_opacity (self->ascent_warning_icon, warnings != NULL ? 1.0 : 0.0);
+  if (warnings != NULL)
+    {
+      gtk_widget_remove_css_class (self->ascent_warning_box, "sw-status-none");
+      gtk_widget_remove_css_class (GTK_WIDGET (self->ascent_warning_label), "dim-label");
+      gtk_widget_add_css_class (self->ascent_warning_box, "sw-status-warn");
+    }
+  else
+    {
+      gtk_widget_remove_css_class (self->ascent_warning_box, "sw-status-warn");
+      gtk_widget_add_css_class (self->ascent_warning_box, "sw-status-none");
+      gtk_widget_add_css_class (GTK_WIDGET (self->ascent_warning_label), "dim-label");
+    }
+}
+
+void
+sw_totals_forget_rows (SwTotals *self)
+{
+  g_return_if_fail (SW_IS_TOTALS (self));
+  self->warning_row_kept = FALSE;
+  if (!self->warnings_shown)
+    gtk_widget_set_visible (self->ascent_warning_box, FALSE);
 }
 
 const char *
@@ -344,8 +380,7 @@ sw_totals_get_text (SwTotals *self, SwTotalsField field)
       return gtk_widget_get_visible (GTK_WIDGET (self->margin_delta))
              ? gtk_inscription_get_text (self->margin_delta) : NULL;
     case SW_TOTALS_ASCENT_WARNINGS:
-      return gtk_widget_get_visible (self->ascent_warning_box)
-             ? gtk_label_get_text (self->ascent_warning_label) : NULL;
+      return self->warnings_shown ? gtk_label_get_text (self->ascent_warning_label) : NULL;
     default: return NULL;
     }
 }
@@ -384,6 +419,7 @@ sw_totals_class_init (SwTotalsClass *klass)
   gtk_widget_class_bind_template_child (widget_class, SwTotals, ascent_note_box);
   gtk_widget_class_bind_template_child (widget_class, SwTotals, ascent_note_label);
   gtk_widget_class_bind_template_child (widget_class, SwTotals, ascent_warning_box);
+  gtk_widget_class_bind_template_child (widget_class, SwTotals, ascent_warning_icon);
   gtk_widget_class_bind_template_child (widget_class, SwTotals, ascent_warning_label);
   gtk_widget_class_bind_template_child (widget_class, SwTotals, delta_caption);
   gtk_widget_class_bind_template_child (widget_class, SwTotals, liftoff_delta);
