@@ -200,6 +200,40 @@ scripted_edit (SwInspector *insp, guint i)
   sw_number_field_commit_value (spin, value);
 }
 
+/* The machine's CPU time so far (all CPUs, in clock ticks) and the part of
+ * it a virtual machine's host took for other guests ("steal"): on a
+ * shared host the figures below move with it.  FALSE where /proc/stat
+ * cannot be read. */
+static gboolean
+machine_ticks (guint64 *total, guint64 *steal)
+{
+  g_autofree char *stat = NULL;
+  g_auto (GStrv) fields = NULL;
+  guint n;
+
+  *total = *steal = 0;
+  if (!g_file_get_contents ("/proc/stat", &stat, NULL, NULL) || !g_str_has_prefix (stat, "cpu "))
+    return FALSE;
+  *strchr (stat, '\n') = '\0';
+  fields = g_strsplit_set (stat + 4, " ", -1);
+  n = 0;
+  for (guint i = 0; fields[i] != NULL; i++)
+    {
+      guint64 v;
+      if (fields[i][0] == '\0')
+        continue;
+      v = g_ascii_strtoull (fields[i], NULL, 10);
+      /* user nice system idle iowait irq softirq steal (guest time is
+       * already in user) */
+      if (n < 8)
+        *total += v;
+      if (n == 7)
+        *steal = v;
+      n++;
+    }
+  return n >= 8;
+}
+
 static double
 resident_mb (void)
 {
@@ -226,6 +260,8 @@ main (int argc, char **argv)
   double frame_cpu[N_EDITS], layout_cpu[N_EDITS], snapshot_cpu[N_EDITS], render_cpu[N_EDITS];
   double median, p99, rss;
   guint frames_total = 0, frames_max = 0;
+  guint64 ticks0 = 0, steal0 = 0, ticks1 = 0, steal1 = 0;
+  gboolean have_ticks;
 
   g_setenv ("XDG_STATE_HOME", tmp, TRUE);
   g_setenv ("XDG_DATA_HOME", tmp, TRUE);
@@ -296,6 +332,7 @@ main (int argc, char **argv)
             N_WARMUP, warm_latency_max, warm_cpu_max);
   }
 
+  have_ticks = machine_ticks (&ticks0, &steal0);
   for (guint i = 0; i < N_EDITS; i++)
     {
       gint64 t0;
@@ -331,6 +368,7 @@ main (int argc, char **argv)
                 i, drawn.drawn_frames - frames0, n_solved_trace, i % 4, latency[i], to_views[i], to_frame[i], in_frame[i], frame_cpu[i], layout_cpu[i], snapshot_cpu[i], render_cpu[i]);
     }
   rss = resident_mb ();
+  have_ticks = have_ticks && machine_ticks (&ticks1, &steal1) && ticks1 > ticks0;
 
   gsl_sort (latency, 1, N_EDITS);
   median = gsl_stats_median_from_sorted_data (latency, 1, N_EDITS);
@@ -366,6 +404,10 @@ main (int argc, char **argv)
           gsl_stats_quantile_from_sorted_data (snapshot_cpu, 1, N_EDITS, 0.99),
           gsl_stats_median_from_sorted_data (render_cpu, 1, N_EDITS),
           gsl_stats_quantile_from_sorted_data (render_cpu, 1, N_EDITS, 0.99));
+  if (have_ticks)
+    printf ("  the machine's CPU time taken by its host for others (steal) during the timed edits: "
+            "%.0f %% (figures on a busy host are not comparable)\n",
+            100.0 * (double) (steal1 - steal0) / (double) (ticks1 - ticks0));
   printf ("Resident memory of the running application: %.1f MB (target <= 120 MB)\n", rss);
 
   /* Memory over many edits: each one solved and drawn before the next. */

@@ -484,6 +484,12 @@ test_drawing_kept (void)
   gtk_window_destroy (GTK_WINDOW (window));
 }
 
+static void
+count_paint_cb (GdkFrameClock *clock, guint *n)
+{
+  (*n)++;
+}
+
 /* New data is drawn as soon as it is set, from an idle that runs before the
  * frame clock's (which has a lower priority), and the frames then take that
  * very drawing: they copy pixels, they draw nothing. */
@@ -498,6 +504,9 @@ test_drawn_ahead (void)
   GtkWidget *window;
   g_autoptr (GPtrArray) snapped = NULL;
   GskRenderNode *ahead[G_N_ELEMENTS (p->layers)];
+  GdkFrameClock *clock;
+  guint paints = 0;
+  gulong id;
 
   sw_plot_set_x_axis (p, "x", FALSE);
   sw_plot_set_y_axis (p, "y", FALSE);
@@ -505,6 +514,8 @@ test_drawn_ahead (void)
   window = show_plot (plot);
   widget_render_settle ();
 
+  clock = gtk_widget_get_frame_clock (plot);
+  id = g_signal_connect (clock, "paint", G_CALLBACK (count_paint_cb), &paints);
   sw_plot_clear (p);
   sw_plot_add_series (p, "s", x, y2, 3, SW_PLOT_LINE, 0);
   g_assert_cmpuint (p->prepare_id, !=, 0);
@@ -512,6 +523,8 @@ test_drawn_ahead (void)
    * only, so no frame can come before the idle has run. */
   while (p->prepare_id != 0)
     g_main_context_iteration (NULL, FALSE);
+  g_assert_cmpuint (paints, ==, 0);
+  g_signal_handler_disconnect (clock, id);
   g_assert_false (p->drawing_dirty);
   g_assert_nonnull (p->drawing);
   for (guint i = 0; i < G_N_ELEMENTS (p->layers); i++)

@@ -732,6 +732,51 @@ test_drawing_kept (void)
   gtk_window_destroy (GTK_WINDOW (window));
 }
 
+static void
+count_paint_cb (GdkFrameClock *clock, guint *n)
+{
+  (*n)++;
+}
+
+/* A new result is drawn as soon as it is set, before any frame paints (an
+ * idle of higher priority than the frame clock's), and the frame shows that
+ * very drawing: it copies pixels, it draws nothing. */
+static void
+test_drawn_ahead (void)
+{
+  g_autoptr (SwAnalysis) first_result = widget_render_demo_result ("medium-cargo.stagewright");
+  g_autoptr (SwAnalysis) other_result = NULL;
+  g_autoptr (SwDesign) heavier = sw_design_copy (first_result->design);
+  g_autoptr (GPtrArray) shown = NULL;
+  GtkWidget *view = NULL;
+  GtkWidget *window;
+  GskRenderNode *before, *ahead;
+  GdkFrameClock *clock;
+  guint paints = 0, tries = 0;
+  gulong id;
+
+  heavier->payload_kg *= 1.5;
+  other_result = sw_analysis_compute (heavier, 1, NULL);
+  window = show_result (first_result, &view);
+  widget_render_settle ();
+  before = sw_stack_view_peek_drawing (SW_STACK_VIEW (view));
+  g_assert_nonnull (before);
+
+  clock = gtk_widget_get_frame_clock (view);
+  id = g_signal_connect (clock, "paint", G_CALLBACK (count_paint_cb), &paints);
+  sw_stack_view_set_result (SW_STACK_VIEW (view), other_result);
+  while (sw_stack_view_peek_drawing (SW_STACK_VIEW (view)) == before && tries++ < 1000)
+    g_main_context_iteration (NULL, FALSE);
+  ahead = sw_stack_view_peek_drawing (SW_STACK_VIEW (view));
+  g_assert_true (ahead != before);
+  g_assert_cmpuint (paints, ==, 0);
+  g_signal_handler_disconnect (clock, id);
+
+  shown = view_drawing (view);
+  g_assert_true (sw_stack_view_peek_drawing (SW_STACK_VIEW (view)) == ahead);
+  g_assert_cmpuint (shown->len, >=, 3);
+  gtk_window_destroy (GTK_WINDOW (window));
+}
 
 /* ---- the vehicle to scale ------------------------------------------------ */
 
@@ -915,6 +960,7 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/stack-view/break-at-separators", test_break_at_separators);
   g_test_add_func ("/gui/stack-view/tw-of-shown-vehicle", test_tw_of_shown_vehicle);
   g_test_add_func ("/gui/stack-view/drawing-kept", test_drawing_kept);
+  g_test_add_func ("/gui/stack-view/drawn-ahead", test_drawn_ahead);
   g_test_add_func ("/gui/stack-view/to-scale-pixels", test_to_scale_pixels);
   g_test_add_func ("/gui/stack-view/areas-small-launcher", test_areas_small);
   g_test_add_func ("/gui/stack-view/areas-medium-cargo", test_areas_medium);

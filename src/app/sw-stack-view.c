@@ -1737,6 +1737,13 @@ sw_stack_view_prepare (GtkWidget *widget)
     }
 }
 
+GskRenderNode *
+sw_stack_view_peek_drawing (SwStackView *self)
+{
+  g_return_val_if_fail (SW_IS_STACK_VIEW (self), NULL);
+  return self->drawing;
+}
+
 static void
 sw_stack_view_snapshot (GtkWidget *widget, GtkSnapshot *snapshot)
 {

@@ -60,6 +60,10 @@ gboolean   sw_stack_view_get_scale_bar (SwStackView *self, graphene_rect_t *rect
 gboolean   sw_stack_view_get_booster_rect (SwStackView *self, guint index,
                                            graphene_rect_t *rect, graphene_rect_t *structure);
 
+/* For tests: the drawing the next frame will show (drawn as soon as the
+ * view's inputs change, see sw-raster.h), or NULL. */
+GskRenderNode *sw_stack_view_peek_drawing (SwStackView *self);
+
 /* Signals:
  *   "stage-activated" (int stage)             a click selected a stage
  *   "share-dragged"   (int lower, int upper, double amount, gboolean finished)
