@@ -4,8 +4,60 @@
 #include "sw-raster.h"
 
 #include <math.h>
+#include <sys/mman.h>
 
 static cairo_user_data_key_t image_key;
+static cairo_user_data_key_t mapping_key;
+
+/* Images from this size on get pages of their own from the system, given
+ * back when the image goes.  From the heap, images of the changing sizes of
+ * the plots' ink boxes left it fragmented: the resident memory grew by
+ * about 0.2 MB per 1,000 edits, for good. */
+#define OWN_PAGES_FROM (64 * 1024)
+
+typedef struct {
+  void  *addr;
+  gsize  length;
+} Mapping;
+
+static void
+mapping_free (void *data)
+{
+  Mapping *m = data;
+
+  munmap (m->addr, m->length);
+  g_free (m);
+}
+
+/* A cleared ARGB image of @width x @height device pixels. */
+static cairo_surface_t *
+new_image (int width, int height)
+{
+  int stride = cairo_format_stride_for_width (CAIRO_FORMAT_ARGB32, width);
+  gsize length = (gsize) stride * (gsize) height;
+  cairo_surface_t *image;
+  Mapping *m;
+  void *addr;
+
+  if (stride <= 0 || length < OWN_PAGES_FROM)
+    return cairo_image_surface_create (CAIRO_FORMAT_ARGB32, width, height);
+  /* Anonymous pages come cleared. */
+  addr = mmap (NULL, length, PROT_READ | PROT_WRITE, MAP_PRIVATE | MAP_ANONYMOUS, -1, 0);
+  if (addr == MAP_FAILED)
+    return cairo_image_surface_create (CAIRO_FORMAT_ARGB32, width, height);
+  image = cairo_image_surface_create_for_data (addr, CAIRO_FORMAT_ARGB32, width, height, stride);
+  m = g_new (Mapping, 1);
+  m->addr = addr;
+  m->length = length;
+  if (cairo_surface_status (image) != CAIRO_STATUS_SUCCESS
+      || cairo_surface_set_user_data (image, &mapping_key, m, mapping_free) != CAIRO_STATUS_SUCCESS)
+    {
+      cairo_surface_destroy (image);
+      mapping_free (m);
+      return cairo_image_surface_create (CAIRO_FORMAT_ARGB32, width, height);
+    }
+  return image;
+}
 
 GskRenderNode *
 sw_raster_node (GskRenderNode *recorded, const graphene_rect_t *box, int scale)
@@ -20,7 +72,7 @@ sw_raster_node (GskRenderNode *recorded, const graphene_rect_t *box, int scale)
   scale = MAX (scale, 1);
   if (w <= 0 || h <= 0)
     return gsk_container_node_new (NULL, 0);
-  image = cairo_image_surface_create (CAIRO_FORMAT_ARGB32, w * scale, h * scale);
+  image = new_image (w * scale, h * scale);
   cairo_surface_set_device_scale (image, scale, scale);
   cr = cairo_create (image);
   cairo_translate (cr, -x0, -y0);
