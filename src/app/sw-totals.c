@@ -32,7 +32,7 @@ struct _SwTotals {
   /* The warnings' row keeps its place once it has shown a warning for this
    * design (sw_totals_set_ascent), and whether it shows one now. */
   gboolean   warning_row_kept;
-  gboolean   warnings_shown;
+  char      *warnings;   /* the warnings shown now, or NULL */
   GtkInscription *delta_caption;
   GtkInscription *liftoff_delta;
   GtkInscription *fraction_delta;
@@ -286,6 +286,8 @@ sw_totals_new (void)
   return g_object_new (SW_TYPE_TOTALS, NULL);
 }
 
+static void update_warning_row (SwTotals *self);
+
 void
 sw_totals_set_result (SwTotals *self, SwAnalysis *result)
 {
@@ -297,6 +299,9 @@ sw_totals_set_result (SwTotals *self, SwAnalysis *result)
   self->result = result != NULL ? sw_analysis_ref (result) : NULL;
   update (self);
   update_deltas (self);
+  /* "None yet" becomes "none" when the ascent arrives without warnings. */
+  if (self->warning_row_kept)
+    update_warning_row (self);
 }
 
 static void
@@ -307,6 +312,39 @@ set_row (GtkWidget *box, GtkLabel *label, const char *text, int lines)
   if (lines > 1)
     reserve_lines (GTK_WIDGET (label), lines);
   gtk_widget_set_visible (box, text != NULL);
+}
+
+/* The warnings' row: the warnings, or once the row has shown one for this
+ * design, that there are none (or none yet). */
+static void
+update_warning_row (SwTotals *self)
+{
+  const char *shown;
+
+  if (self->warnings != NULL)
+    shown = self->warnings;
+  else if (!self->warning_row_kept)
+    shown = NULL;
+  else if (self->result != NULL && self->result->ascent_pending)
+    /* Not "none": the flight's own limits are not checked yet. */
+    shown = _("No warnings so far; the ascent is still being checked.");
+  else
+    shown = _("No warnings now.");
+  set_row (self->ascent_warning_box, self->ascent_warning_label, shown, 2);
+  /* Hidden but keeping its place: the text stays where the warnings were. */
+  gtk_widget_set_opacity (self->ascent_warning_icon, self->warnings != NULL ? 1.0 : 0.0);
+  if (self->warnings != NULL)
+    {
+      gtk_widget_remove_css_class (self->ascent_warning_box, "sw-status-none");
+      gtk_widget_remove_css_class (GTK_WIDGET (self->ascent_warning_label), "dim-label");
+      gtk_widget_add_css_class (self->ascent_warning_box, "sw-status-warn");
+    }
+  else
+    {
+      gtk_widget_remove_css_class (self->ascent_warning_box, "sw-status-warn");
+      gtk_widget_add_css_class (self->ascent_warning_box, "sw-status-none");
+      gtk_widget_add_css_class (GTK_WIDGET (self->ascent_warning_label), "dim-label");
+    }
 }
 
 void
@@ -323,23 +361,9 @@ sw_totals_set_ascent (SwTotals *self, const char *note, const char *warnings)
    * drawn again at every crossing. */
   if (warnings != NULL)
     self->warning_row_kept = TRUE;
-  self->warnings_shown = warnings != NULL;
-  set_row (self->ascent_warning_box, self->ascent_warning_label,
-           warnings != NULL ? warnings : self->warning_row_kept ? _("No warnings now.") : NULL, 2);
-  /* Hidden but keeping its place: the text stays where the warnings were. */
-  gtk_widget_set_opacity (self->ascent_warning_icon, warnings != NULL ? 1.0 : 0.0);
-  if (warnings != NULL)
-    {
-      gtk_widget_remove_css_class (self->ascent_warning_box, "sw-status-none");
-      gtk_widget_remove_css_class (GTK_WIDGET (self->ascent_warning_label), "dim-label");
-      gtk_widget_add_css_class (self->ascent_warning_box, "sw-status-warn");
-    }
-  else
-    {
-      gtk_widget_remove_css_class (self->ascent_warning_box, "sw-status-warn");
-      gtk_widget_add_css_class (self->ascent_warning_box, "sw-status-none");
-      gtk_widget_add_css_class (GTK_WIDGET (self->ascent_warning_label), "dim-label");
-    }
+  g_free (self->warnings);
+  self->warnings = g_strdup (warnings);
+  update_warning_row (self);
 }
 
 void
@@ -347,8 +371,7 @@ sw_totals_forget_rows (SwTotals *self)
 {
   g_return_if_fail (SW_IS_TOTALS (self));
   self->warning_row_kept = FALSE;
-  if (!self->warnings_shown)
-    gtk_widget_set_visible (self->ascent_warning_box, FALSE);
+  update_warning_row (self);
 }
 
 const char *
@@ -380,7 +403,7 @@ sw_totals_get_text (SwTotals *self, SwTotalsField field)
       return gtk_widget_get_visible (GTK_WIDGET (self->margin_delta))
              ? gtk_inscription_get_text (self->margin_delta) : NULL;
     case SW_TOTALS_ASCENT_WARNINGS:
-      return self->warnings_shown ? gtk_label_get_text (self->ascent_warning_label) : NULL;
+      return self->warnings;
     default: return NULL;
     }
 }
@@ -391,6 +414,7 @@ sw_totals_dispose (GObject *object)
   SwTotals *self = SW_TOTALS (object);
 
   g_clear_pointer (&self->result, sw_analysis_unref);
+  g_clear_pointer (&self->warnings, g_free);
   gtk_widget_dispose_template (GTK_WIDGET (self), SW_TYPE_TOTALS);
   G_OBJECT_CLASS (sw_totals_parent_class)->dispose (object);
 }
