@@ -575,7 +575,7 @@ test_raster_same_pixels (void)
       int w = 130 * scale, h = 70 * scale;
       cairo_surface_t *direct = cairo_image_surface_create (CAIRO_FORMAT_ARGB32, w, h);
       cairo_surface_t *via = cairo_image_surface_create (CAIRO_FORMAT_ARGB32, w, h);
-      GskRenderNode *node = sw_raster_node (recorded, &box, scale);
+      GskRenderNode *node = sw_raster_node (gsk_render_node_ref (recorded), &box, scale);
       graphene_rect_t bounds;
       const guint8 *a, *b;
       int max_diff = 0, inked = 0;

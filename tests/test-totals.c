@@ -25,18 +25,41 @@ demo (const char *basename)
   return d;
 }
 
+/* The tests' analyses: no Monte Carlo, no uncertainty band; the ascent
+ * with @ascent. */
+static void
+test_options (SwAnalysisOptions *o, gboolean ascent)
+{
+  sw_analysis_options_init (o);
+  o->montecarlo = FALSE;
+  o->band = FALSE;
+  o->ascent = ascent;
+}
+
 static SwAnalysis *
 analyse (SwDesign *d, gboolean ascent)
 {
   SwAnalysisOptions o;
   SwAnalysis *a;
 
-  sw_analysis_options_init (&o);
-  o.montecarlo = FALSE;
-  o.band = FALSE;
-  o.ascent = ascent;
+  test_options (&o, ascent);
   a = sw_analysis_run (d, &o, NULL);
   g_assert_nonnull (a);
+  return a;
+}
+
+/* The first phase of an edit, as the window's worker delivers it: with
+ * @ascent the ascent is still to fly (ascent_pending). */
+static SwAnalysis *
+first_phase (SwDesign *d, guint64 serial, gboolean ascent)
+{
+  SwAnalysisOptions o;
+  SwAnalysis *a;
+
+  test_options (&o, ascent);
+  a = sw_analysis_new (d, serial, &o, NULL);
+  g_assert_nonnull (a);
+  g_assert_true (a->ascent_pending == ascent);
   return a;
 }
 
@@ -187,18 +210,31 @@ test_format_delta (void)
   g_free (s);
 }
 
-static GtkLabel *
-find_label (GtkWidget *w, const char *text)
+/* The first widget of @type (a label or an inscription) below @w that
+ * shows @text. */
+static GtkWidget *
+find_text (GtkWidget *w, GType type, const char *text)
 {
-  if (GTK_IS_LABEL (w) && g_strcmp0 (gtk_label_get_text (GTK_LABEL (w)), text) == 0)
-    return GTK_LABEL (w);
+  if (G_TYPE_CHECK_INSTANCE_TYPE (w, type))
+    {
+      const char *shown = GTK_IS_LABEL (w) ? gtk_label_get_text (GTK_LABEL (w))
+                                           : gtk_inscription_get_text (GTK_INSCRIPTION (w));
+      if (g_strcmp0 (shown, text) == 0)
+        return w;
+    }
   for (GtkWidget *c = gtk_widget_get_first_child (w); c != NULL; c = gtk_widget_get_next_sibling (c))
     {
-      GtkLabel *found = find_label (c, text);
+      GtkWidget *found = find_text (c, type, text);
       if (found != NULL)
         return found;
     }
   return NULL;
+}
+
+static GtkLabel *
+find_label (GtkWidget *w, const char *text)
+{
+  return (GtkLabel *) find_text (w, GTK_TYPE_LABEL, text);
 }
 
 /* At every edit the verdict goes from "checking the ascent" (one line) to
@@ -211,17 +247,9 @@ test_steady_height (void)
 {
   static const int widths[] = { 1100, 1000, 900, 800, 700, 640, 600 };
   g_autoptr (SwDesign) d = demo ("medium-cargo.stagewright");
-  g_autoptr (SwAnalysis) pending = NULL, flown = NULL;
-  SwAnalysisOptions o;
+  g_autoptr (SwAnalysis) pending = first_phase (d, 1, TRUE), flown = NULL;
   guint tried = 0;
 
-  sw_analysis_options_init (&o);
-  o.montecarlo = FALSE;
-  o.band = FALSE;
-  o.ascent = TRUE;
-  pending = sw_analysis_new (d, 1, &o, NULL);
-  g_assert_nonnull (pending);
-  g_assert_true (pending->ascent_pending);
   flown = sw_analysis_add_ascent (pending, NULL);
   g_assert_nonnull (flown);
 
@@ -284,20 +312,13 @@ test_warning_row_kept (void)
   static const char *warning = "Liftoff thrust-to-weight 1.16 is below the limit of 1.20.";
   g_autoptr (SwDesign) d = demo ("medium-cargo.stagewright");
   g_autoptr (SwAnalysis) r = NULL, pending = NULL;
-  SwAnalysisOptions o;
   GtkWidget *t = sw_totals_new ();
   GtkWidget *box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 0);
   GtkWidget *window;
   int h_none, h_warned, h_gone, h_forgotten;
 
-  sw_analysis_options_init (&o);
-  o.montecarlo = FALSE;
-  o.ascent = FALSE;
-  r = sw_analysis_new (d, 1, &o, NULL);
-  g_assert_nonnull (r);
-  o.ascent = TRUE;
-  pending = sw_analysis_new (d, 2, &o, NULL);
-  g_assert_nonnull (pending);
+  r = first_phase (d, 1, FALSE);
+  pending = first_phase (d, 2, TRUE);
   g_assert_true (pending->ascent_pending);
   gtk_widget_set_valign (t, GTK_ALIGN_START);
   gtk_box_append (GTK_BOX (box), t);
@@ -334,7 +355,7 @@ test_warning_row_kept (void)
   widget_render_settle ();
   g_assert_nonnull (find_label (t, "No warnings now."));
 
-  sw_totals_forget_rows (SW_TOTALS (t));
+  sw_totals_forget_warning_row (SW_TOTALS (t));
   h_forgotten = settle_height (t, h_warned);
   g_assert_cmpint (h_forgotten, ==, h_none);
   gtk_window_destroy (GTK_WINDOW (window));
@@ -343,15 +364,7 @@ test_warning_row_kept (void)
 static GtkInscription *
 find_inscription (GtkWidget *w, const char *text)
 {
-  if (GTK_IS_INSCRIPTION (w) && g_strcmp0 (gtk_inscription_get_text (GTK_INSCRIPTION (w)), text) == 0)
-    return GTK_INSCRIPTION (w);
-  for (GtkWidget *c = gtk_widget_get_first_child (w); c != NULL; c = gtk_widget_get_next_sibling (c))
-    {
-      GtkInscription *found = find_inscription (c, text);
-      if (found != NULL)
-        return found;
-    }
-  return NULL;
+  return (GtkInscription *) find_text (w, GTK_TYPE_INSCRIPTION, text);
 }
 
 /* The line of the stages' limit and the headroom is whole in a narrow
@@ -364,15 +377,8 @@ test_limit_line_whole (void)
 {
   static const int widths[] = { 1600, 1280, 1024 };
   g_autoptr (SwDesign) d = demo ("four-booster-cargo.stagewright");
-  g_autoptr (SwAnalysis) pending = NULL, flown = NULL;
-  SwAnalysisOptions o;
+  g_autoptr (SwAnalysis) pending = first_phase (d, 1, TRUE), flown = NULL;
 
-  sw_analysis_options_init (&o);
-  o.montecarlo = FALSE;
-  o.band = FALSE;
-  o.ascent = TRUE;
-  pending = sw_analysis_new (d, 1, &o, NULL);
-  g_assert_nonnull (pending);
   flown = sw_analysis_add_ascent (pending, NULL);
   g_assert_nonnull (flown);
 

@@ -298,7 +298,6 @@ update_layer (SwPlot *self, guint which, LayerDrawFunc draw, const Colors *c, in
     }
   else
     self->layers[which] = sw_raster_node (node, &all, gtk_widget_get_scale_factor (GTK_WIDGET (self)));
-  gsk_render_node_unref (node);
 }
 
 void

@@ -860,8 +860,7 @@ sw_plot_set_series_highlighted (SwPlot *self, guint series, gboolean highlighted
   if (s->highlighted == !!highlighted)
     return;
   s->highlighted = !!highlighted;
-  self->drawing_dirty = TRUE;
-  gtk_widget_queue_draw (GTK_WIDGET (self));
+  invalidate (self);
 }
 
 void

@@ -62,22 +62,35 @@ new_image (int width, int height)
 GskRenderNode *
 sw_raster_node (GskRenderNode *recorded, const graphene_rect_t *box, int scale)
 {
-  double x0 = floor (box->origin.x), y0 = floor (box->origin.y);
-  int w = (int) ceil (box->origin.x + box->size.width - x0);
-  int h = (int) ceil (box->origin.y + box->size.height - y0);
+  graphene_rect_t bounds;
+  double x0, y0;
+  int w, h;
   cairo_surface_t *image;
   GskRenderNode *node;
   cairo_t *cr;
 
+  if (box == NULL)
+    {
+      gsk_render_node_get_bounds (recorded, &bounds);
+      box = &bounds;
+    }
+  x0 = floor (box->origin.x);
+  y0 = floor (box->origin.y);
+  w = (int) ceil (box->origin.x + box->size.width - x0);
+  h = (int) ceil (box->origin.y + box->size.height - y0);
   scale = MAX (scale, 1);
   if (w <= 0 || h <= 0)
-    return gsk_container_node_new (NULL, 0);
+    {
+      gsk_render_node_unref (recorded);
+      return gsk_container_node_new (NULL, 0);
+    }
   image = new_image (w * scale, h * scale);
   cairo_surface_set_device_scale (image, scale, scale);
   cr = cairo_create (image);
   cairo_translate (cr, -x0, -y0);
   gsk_render_node_draw (recorded, cr);
   cairo_destroy (cr);
+  gsk_render_node_unref (recorded);
 
   node = gsk_cairo_node_new (&GRAPHENE_RECT_INIT (x0, y0, w, h));
   cr = gsk_cairo_node_get_draw_context (node);

@@ -14,8 +14,9 @@
 
 G_BEGIN_DECLS
 
-/* A node that paints @recorded's pixels within @box (whole pixels, at
- * @scale device pixels per unit), drawn now.  @recorded is not kept. */
+/* A node that paints @recorded's pixels within @box (NULL: @recorded's own
+ * bounds), rounded out to whole pixels, at @scale device pixels per unit,
+ * drawn now.  Takes @recorded. */
 GskRenderNode *sw_raster_node (GskRenderNode *recorded, const graphene_rect_t *box, int scale);
 
 /* Calls @prepare (@widget) from an idle at the default priority, once

@@ -1489,15 +1489,8 @@ draw_stack_parts (SwStackView *self, GtkSnapshot *snapshot, int width, int heigh
   for (guint i = 0; i < N_PARTS; i++)
     {
       if (self->parts[i] != NULL && self->part_new[i])
-        {
-          GskRenderNode *recorded = self->parts[i];
-          graphene_rect_t bounds;
-
-          gsk_render_node_get_bounds (recorded, &bounds);
-          self->parts[i] = sw_raster_node (recorded, &bounds,
-                                           gtk_widget_get_scale_factor (GTK_WIDGET (self)));
-          gsk_render_node_unref (recorded);
-        }
+        self->parts[i] = sw_raster_node (self->parts[i], NULL,
+                                         gtk_widget_get_scale_factor (GTK_WIDGET (self)));
       self->part_new[i] = FALSE;
       if (self->parts[i] != NULL)
         gtk_snapshot_append_node (snapshot, self->parts[i]);
@@ -1728,12 +1721,8 @@ sw_stack_view_prepare (GtkWidget *widget)
       /* The parts are rasterised each on its own (draw_stack_parts); the
        * whole-view drawing here. */
       if (self->drawing != NULL && !in_parts)
-        {
-          GskRenderNode *recorded = self->drawing;
-          self->drawing = sw_raster_node (recorded, &GRAPHENE_RECT_INIT (0, 0, width, height),
-                                          gtk_widget_get_scale_factor (widget));
-          gsk_render_node_unref (recorded);
-        }
+        self->drawing = sw_raster_node (self->drawing, &GRAPHENE_RECT_INIT (0, 0, width, height),
+                                        gtk_widget_get_scale_factor (widget));
     }
 }
 

@@ -367,7 +367,7 @@ sw_totals_set_ascent (SwTotals *self, const char *note, const char *warnings)
 }
 
 void
-sw_totals_forget_rows (SwTotals *self)
+sw_totals_forget_warning_row (SwTotals *self)
 {
   g_return_if_fail (SW_IS_TOTALS (self));
   self->warning_row_kept = FALSE;

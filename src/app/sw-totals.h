@@ -15,10 +15,10 @@ GtkWidget  *sw_totals_new (void);
 void        sw_totals_set_result (SwTotals *self, SwAnalysis *result);
 /* The ascent's note on the sizing and its warnings (one per line), from the
  * ascent page; NULL hides the row, or once the row has shown a warning for
- * this design says there are none now (see sw_totals_forget_rows()). */
+ * this design says there are none now (see sw_totals_forget_warning_row()). */
 void        sw_totals_set_ascent (SwTotals *self, const char *note, const char *warnings);
 /* A new design: the warnings' row no longer keeps its place. */
-void        sw_totals_forget_rows (SwTotals *self);
+void        sw_totals_forget_warning_row (SwTotals *self);
 
 /* For tests: the texts shown. */
 typedef enum {
