@@ -538,6 +538,76 @@ test_warnings (void)
   sw_test_window_close (w);
 }
 
+/* ---- a hidden page waits ----------------------------------------------- */
+
+/* Every label's text below @w, in order; not the optimised steering's
+ * line, which a newer flight changes at once (it cancels a run). */
+static void
+collect_texts (GtkWidget *w, GString *out)
+{
+  if (SW_IS_OPTIMISED_STEERING (w))
+    return;
+  if (GTK_IS_LABEL (w))
+    g_string_append_printf (out, "%s\n", gtk_label_get_text (GTK_LABEL (w)));
+  for (GtkWidget *c = gtk_widget_get_first_child (w); c != NULL; c = gtk_widget_get_next_sibling (c))
+    collect_texts (c, out);
+}
+
+static char *
+page_texts (SwWindow *w)
+{
+  GString *s = g_string_new (NULL);
+
+  collect_texts (GTK_WIDGET (page (w)), s);
+  return g_string_free (s, FALSE);
+}
+
+static gboolean
+page_mapped (gpointer data)
+{
+  return gtk_widget_get_mapped (GTK_WIDGET (page (data)));
+}
+
+/* Behind another page the ascent page changes nothing on screen when a new
+ * flight arrives (a label changed there would have the window laid out
+ * again at every result); the totals above get the flight's note at once;
+ * shown again, the page shows the newest flight before anything reads it. */
+static void
+test_hidden_page_waits (void)
+{
+  SwWindow *w = window_new ();
+  g_autofree char *shown = NULL, *hidden = NULL, *reshown = NULL, *note = NULL;
+  const char *read;
+
+  load_demo (w, "three-stage-simulated.stagewright");
+  g_assert_true (sw_window_show_page (w, "ascent"));
+  sw_test_wait_until (page_mapped, w, 5000, "the ascent page to be shown");
+  shown = page_texts (w);
+  note = g_strdup (sw_totals_get_text (sw_window_get_totals (w), SW_TOTALS_ASCENT_NOTE));
+  g_assert_nonnull (note);
+
+  g_assert_true (sw_window_show_page (w, "curves"));
+  set_payload (w, sw_window_get_shown_result (w)->design->payload_kg * 1.2);
+  wait_ascent (w);
+  g_assert_false (gtk_widget_get_mapped (GTK_WIDGET (page (w))));
+  hidden = page_texts (w);
+  g_assert_cmpstr (hidden, ==, shown);
+  g_assert_cmpstr (sw_totals_get_text (sw_window_get_totals (w), SW_TOTALS_ASCENT_NOTE), !=, note);
+
+  g_assert_true (sw_window_show_page (w, "ascent"));
+  sw_test_wait_until (page_mapped, w, 5000, "the ascent page to be shown again");
+  reshown = page_texts (w);
+  g_assert_cmpstr (reshown, !=, shown);
+  /* The accessors read what is on screen (they would catch the page up). */
+  read = sw_ascent_page_get_text (page (w), SW_ASCENT_PAGE_ORBIT);
+  g_assert_nonnull (strstr (reshown, read));
+  {
+    g_autofree char *after_read = page_texts (w);
+    g_assert_cmpstr (after_read, ==, reshown);
+  }
+  sw_test_window_close (w);
+}
+
 /* ---- main -------------------------------------------------------------- */
 
 /* The optimised steering on demand: the button flies it on a worker thread
@@ -616,6 +686,7 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/ascent/no-propulsion", test_no_propulsion);
   g_test_add_func ("/gui/ascent/warnings", test_warnings);
   g_test_add_func ("/gui/ascent/optimised-steering", test_optimised_steering);
+  g_test_add_func ("/gui/ascent/hidden-page-waits", test_hidden_page_waits);
 
   status = g_test_run ();
   sw_gui_test_env_finish (tmp_dir);

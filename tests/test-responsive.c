@@ -28,6 +28,8 @@
 #include <math.h>
 #include <stdio.h>
 #include <string.h>
+#include <stdlib.h>
+#include <unistd.h>
 
 #define MAX_GAP_MS 100.0
 #define TICK_MS 10
@@ -340,6 +342,67 @@ test_busy_worker (void)
   sw_test_window_close (w);
 }
 
+/* The nice values of this process's main thread and of its thread named
+ * "sw-solver" (G_MININT when not found), from /proc. */
+static void
+read_nice (int *own_nice, int *solver_nice)
+{
+  g_autoptr (GDir) dir = g_dir_open ("/proc/self/task", 0, NULL);
+  const char *tid;
+
+  *own_nice = *solver_nice = G_MININT;
+  while (dir != NULL && (tid = g_dir_read_name (dir)) != NULL)
+    {
+      g_autofree char *comm_path = g_build_filename ("/proc/self/task", tid, "comm", NULL);
+      g_autofree char *stat_path = g_build_filename ("/proc/self/task", tid, "stat", NULL);
+      g_autofree char *comm = NULL, *stat = NULL;
+      g_auto (GStrv) fields = NULL;
+      const char *after;
+      int nice;
+
+      if (!g_file_get_contents (comm_path, &comm, NULL, NULL)
+          || !g_file_get_contents (stat_path, &stat, NULL, NULL))
+        continue;
+      /* After the command in parentheses: state is field 3, nice field 19. */
+      after = strrchr (stat, ')');
+      g_assert_nonnull (after);
+      fields = g_strsplit (after + 2, " ", -1);
+      g_assert_cmpuint (g_strv_length (fields), >, 16);
+      nice = atoi (fields[16]);
+      if (g_str_has_prefix (comm, "sw-solver"))
+        *solver_nice = nice;
+      else if (g_ascii_strtoll (tid, NULL, 10) == getpid ())
+        *own_nice = nice;
+    }
+}
+
+/* The solver's thread runs below the window's priority (a nice value 5
+ * higher, on Linux), so that a frame and the display server showing it
+ * come before the background work on a busy machine. */
+static void
+test_solver_priority (void)
+{
+#ifdef __linux__
+  g_autoptr (SwSolver) solver = sw_solver_new ();
+  int own_nice, solver_nice, want;
+
+  /* The thread lowers its own priority as it starts. */
+  for (int i = 0; i < 200; i++)
+    {
+      read_nice (&own_nice, &solver_nice);
+      want = MIN (own_nice + 5, 19);
+      if (solver_nice == want)
+        break;
+      g_usleep (10000);
+    }
+  g_test_message ("main thread nice %d, solver thread nice %d", own_nice, solver_nice);
+  g_assert_cmpint (own_nice, !=, G_MININT);
+  g_assert_cmpint (solver_nice, ==, want);
+#else
+  g_test_skip ("per-thread priorities are Linux's");
+#endif
+}
+
 /* ---- main -------------------------------------------------------------- */
 
 int
@@ -350,6 +413,7 @@ main (int argc, char **argv)
   tmp_dir = sw_gui_test_env_init (&argc, &argv, "stagewright-busy-XXXXXX");
 
   g_test_add_func ("/gui/solver/busy-worker", test_busy_worker);
+  g_test_add_func ("/gui/solver/priority", test_solver_priority);
 
   status = g_test_run ();
   sw_gui_test_env_finish (tmp_dir);

@@ -7,6 +7,7 @@
 #include "config.h"
 
 #include "gui-test-env.h"
+#include "sw-steady-text.h"
 #include "sw-totals.h"
 #include "widget-render.h"
 
@@ -210,15 +211,15 @@ test_format_delta (void)
   g_free (s);
 }
 
-/* The first widget of @type (a label or an inscription) below @w that
- * shows @text. */
+/* The first widget of @type (a steady text or an inscription) below @w
+ * that shows @text. */
 static GtkWidget *
 find_text (GtkWidget *w, GType type, const char *text)
 {
   if (G_TYPE_CHECK_INSTANCE_TYPE (w, type))
     {
-      const char *shown = GTK_IS_LABEL (w) ? gtk_label_get_text (GTK_LABEL (w))
-                                           : gtk_inscription_get_text (GTK_INSCRIPTION (w));
+      const char *shown = SW_IS_STEADY_TEXT (w) ? sw_steady_text_get_text (SW_STEADY_TEXT (w))
+                                                : gtk_inscription_get_text (GTK_INSCRIPTION (w));
       if (g_strcmp0 (shown, text) == 0)
         return w;
     }
@@ -231,10 +232,10 @@ find_text (GtkWidget *w, GType type, const char *text)
   return NULL;
 }
 
-static GtkLabel *
-find_label (GtkWidget *w, const char *text)
+static SwSteadyText *
+find_steady (GtkWidget *w, const char *text)
 {
-  return (GtkLabel *) find_text (w, GTK_TYPE_LABEL, text);
+  return (SwSteadyText *) find_text (w, SW_TYPE_STEADY_TEXT, text);
 }
 
 /* At every edit the verdict goes from "checking the ascent" (one line) to
@@ -258,7 +259,7 @@ test_steady_height (void)
       GtkWidget *t = sw_totals_new ();
       GtkWidget *box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 0);
       GtkWidget *window;
-      GtkLabel *label;
+      SwSteadyText *label;
       int lines_p, lines_f, h_p, h_f, label_p, label_f;
 
       gtk_widget_set_valign (t, GTK_ALIGN_START);
@@ -266,16 +267,16 @@ test_steady_height (void)
       sw_totals_set_result (SW_TOTALS (t), pending);
       window = widget_render_show (box, widths[i], 400);
       widget_render_settle ();
-      label = find_label (t, sw_totals_get_text (SW_TOTALS (t), SW_TOTALS_STATUS));
+      label = find_steady (t, sw_totals_get_text (SW_TOTALS (t), SW_TOTALS_STATUS));
       g_assert_nonnull (label);
-      lines_p = pango_layout_get_line_count (gtk_label_get_layout (label));
+      lines_p = sw_steady_text_get_line_count (label);
       h_p = gtk_widget_get_height (t);
       label_p = gtk_widget_get_height (GTK_WIDGET (label));
 
       sw_totals_set_result (SW_TOTALS (t), flown);
       widget_render_settle ();
-      g_assert_true (label == find_label (t, sw_totals_get_text (SW_TOTALS (t), SW_TOTALS_STATUS)));
-      lines_f = pango_layout_get_line_count (gtk_label_get_layout (label));
+      g_assert_true (label == find_steady (t, sw_totals_get_text (SW_TOTALS (t), SW_TOTALS_STATUS)));
+      lines_f = sw_steady_text_get_line_count (label);
       h_f = gtk_widget_get_height (t);
       label_f = gtk_widget_get_height (GTK_WIDGET (label));
       g_test_message ("width %d: %d line(s) %d px, then %d line(s) %d px; totals %d then %d px",
@@ -336,7 +337,7 @@ test_warning_row_kept (void)
   widget_render_settle ();
   h_gone = gtk_widget_get_height (t);
   g_assert_null (sw_totals_get_text (SW_TOTALS (t), SW_TOTALS_ASCENT_WARNINGS));
-  g_assert_nonnull (find_label (t, "No warnings now."));
+  g_assert_nonnull (find_steady (t, "No warnings now."));
   g_assert_cmpint (h_gone, ==, h_warned);
 
   sw_totals_set_ascent (SW_TOTALS (t), NULL, warning);
@@ -348,16 +349,151 @@ test_warning_row_kept (void)
   sw_totals_set_result (SW_TOTALS (t), pending);
   sw_totals_set_ascent (SW_TOTALS (t), NULL, NULL);
   widget_render_settle ();
-  g_assert_nonnull (find_label (t, "No warnings so far; the ascent is still being checked."));
+  g_assert_nonnull (find_steady (t, "No warnings so far; the ascent is still being checked."));
   g_assert_null (sw_totals_get_text (SW_TOTALS (t), SW_TOTALS_ASCENT_WARNINGS));
   g_assert_cmpint (gtk_widget_get_height (t), ==, h_warned);
   sw_totals_set_result (SW_TOTALS (t), r);
   widget_render_settle ();
-  g_assert_nonnull (find_label (t, "No warnings now."));
+  g_assert_nonnull (find_steady (t, "No warnings now."));
 
-  sw_totals_forget_warning_row (SW_TOTALS (t));
+  sw_totals_forget_design (SW_TOTALS (t));
   h_forgotten = settle_height (t, h_warned);
   g_assert_cmpint (h_forgotten, ==, h_none);
+  gtk_window_destroy (GTK_WINDOW (window));
+}
+
+/* ---- the steady text ------------------------------------------------------ */
+
+/* A parent that counts how often it is measured: a child that has the
+ * window laid out again makes it measure again. */
+typedef struct { GtkWidget parent_instance; GtkWidget *child; guint measured; } TestCounter;
+typedef struct { GtkWidgetClass parent_class; } TestCounterClass;
+static GType test_counter_get_type (void);
+G_DEFINE_TYPE (TestCounter, test_counter, GTK_TYPE_WIDGET)
+
+static void
+test_counter_measure (GtkWidget *widget, GtkOrientation orientation, int for_size,
+                      int *minimum, int *natural, int *minimum_baseline, int *natural_baseline)
+{
+  TestCounter *self = (TestCounter *) widget;
+
+  self->measured++;
+  gtk_widget_measure (self->child, orientation, for_size, minimum, natural, NULL, NULL);
+}
+
+static GtkSizeRequestMode
+test_counter_get_request_mode (GtkWidget *widget)
+{
+  return GTK_SIZE_REQUEST_HEIGHT_FOR_WIDTH;
+}
+
+static void
+test_counter_size_allocate (GtkWidget *widget, int width, int height, int baseline)
+{
+  gtk_widget_allocate (((TestCounter *) widget)->child, width, height, -1, NULL);
+}
+
+static void
+test_counter_dispose (GObject *object)
+{
+  g_clear_pointer (&((TestCounter *) object)->child, gtk_widget_unparent);
+  G_OBJECT_CLASS (test_counter_parent_class)->dispose (object);
+}
+
+static void
+test_counter_class_init (TestCounterClass *klass)
+{
+  G_OBJECT_CLASS (klass)->dispose = test_counter_dispose;
+  GTK_WIDGET_CLASS (klass)->measure = test_counter_measure;
+  GTK_WIDGET_CLASS (klass)->get_request_mode = test_counter_get_request_mode;
+  GTK_WIDGET_CLASS (klass)->size_allocate = test_counter_size_allocate;
+}
+
+static void
+test_counter_init (TestCounter *self)
+{
+}
+
+/* TRUE when the two images differ in any pixel. */
+static gboolean
+images_differ (cairo_surface_t *a, cairo_surface_t *b)
+{
+  int h = cairo_image_surface_get_height (a), stride = cairo_image_surface_get_stride (a);
+
+  cairo_surface_flush (a);
+  cairo_surface_flush (b);
+  return h != cairo_image_surface_get_height (b) || stride != cairo_image_surface_get_stride (b)
+         || memcmp (cairo_image_surface_get_data (a), cairo_image_surface_get_data (b),
+                    (size_t) h * stride) != 0;
+}
+
+/* The verdict's text: a new text that fits the height it has is drawn
+ * without the window measuring anything again; a longer one gets its room,
+ * whole; a shorter one after it keeps that room (the plots below do not
+ * move); forgetting gives the room back. */
+static void
+test_steady_text (void)
+{
+  static const char *one = "Reaches the orbit.";
+  static const char *other = "Short of the orbit.";
+  static const char *longer =
+    "Does not reach the orbit. In the simulated ascent it falls 612 m/s short of the "
+    "400 km orbit; the largest loss is gravity, 1,404 m/s. Raise the thrust of the "
+    "first stage or its share of the delta-v.";
+  TestCounter *counter = g_object_new (test_counter_get_type (), NULL);
+  SwSteadyText *text = SW_STEADY_TEXT (sw_steady_text_new ());
+  GtkWidget *box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 0);
+  GtkWidget *window;
+  cairo_surface_t *before, *after;
+  int h1, h_long, lines;
+  guint measured;
+
+  counter->child = GTK_WIDGET (text);
+  gtk_widget_set_parent (GTK_WIDGET (text), GTK_WIDGET (counter));
+  gtk_widget_set_valign (GTK_WIDGET (counter), GTK_ALIGN_START);
+  gtk_box_append (GTK_BOX (box), GTK_WIDGET (counter));
+  sw_steady_text_set_text (text, one);
+  window = widget_render_show (box, 260, 300);
+  widget_render_settle ();
+  h1 = gtk_widget_get_height (GTK_WIDGET (text));
+  g_assert_cmpint (sw_steady_text_get_line_count (text), ==, 1);
+  g_assert_cmpint (h1, >, 0);
+
+  /* Another text of one line: drawn again, nothing measured. */
+  before = widget_render_window (window);
+  measured = counter->measured;
+  sw_steady_text_set_text (text, other);
+  widget_render_settle ();
+  after = widget_render_window (window);
+  g_assert_cmpuint (counter->measured, ==, measured);
+  g_assert_true (images_differ (before, after));
+  g_assert_cmpstr (sw_steady_text_get_text (text), ==, other);
+  cairo_surface_destroy (before);
+  cairo_surface_destroy (after);
+
+  /* A longer text: its room, every line of it. */
+  sw_steady_text_set_text (text, longer);
+  h_long = settle_height (GTK_WIDGET (text), h1);
+  lines = sw_steady_text_get_line_count (text);
+  g_test_message ("one line %d px; the longer text %d lines, %d px", h1, lines, h_long);
+  g_assert_cmpint (lines, >=, 3);
+  g_assert_cmpint (h_long, >=, lines * h1 - lines);
+  g_assert_cmpint (counter->measured, >, measured);
+
+  /* Back to one line: the room is kept, and nothing is measured again. */
+  measured = counter->measured;
+  sw_steady_text_set_text (text, one);
+  widget_render_settle ();
+  g_assert_cmpint (gtk_widget_get_height (GTK_WIDGET (text)), ==, h_long);
+  g_assert_cmpuint (counter->measured, ==, measured);
+
+  /* Forgotten (a new design): one line again. */
+  sw_steady_text_forget_height (text);
+  g_assert_cmpint (settle_height (GTK_WIDGET (text), h_long), ==, h1);
+
+  /* Two lines at least, even for one line of text. */
+  sw_steady_text_set_min_lines (text, 2);
+  g_assert_cmpint (settle_height (GTK_WIDGET (text), h1), >=, 2 * h1 - 2);
   gtk_window_destroy (GTK_WINDOW (window));
 }
 
@@ -436,6 +572,7 @@ main (int argc, char **argv)
   g_test_add_func ("/totals/steady-height", test_steady_height);
   g_test_add_func ("/totals/warning-row-kept", test_warning_row_kept);
   g_test_add_func ("/totals/limit-line-whole", test_limit_line_whole);
+  g_test_add_func ("/totals/steady-text", test_steady_text);
   status = g_test_run ();
   sw_gui_test_env_finish (g_steal_pointer (&tmp));
   return status;

@@ -27,6 +27,8 @@ struct _SwAscentPage {
   char          *note;
   char          *warnings;
   char          *stages_key;     /* the texts of the stage table as shown */
+  gboolean       stale;          /* a result not shown yet: the page was not mapped */
+  gboolean       stale_flown;    /* ... and it brought another flight */
 
   GtkWidget     *scroller;
   GtkBox        *status_box;
@@ -252,8 +254,6 @@ update_summary (SwAscentPage *self)
   self->note = g_steal_pointer (&note);
   g_free (self->warnings);
   self->warnings = g_steal_pointer (&warnings);
-  /* The note is shown in the totals above the page. */
-  set_text_box (self->warnings_box, self->warnings_label, self->warnings);
   if (changed)
     g_signal_emit (self, signals[SUMMARY_CHANGED], 0);
 }
@@ -805,7 +805,8 @@ update (SwAscentPage *self, gboolean flown_changed)
       update_plots (self);
     }
   update_stages (self);
-  update_summary (self);
+  /* The note is shown in the totals above the page. */
+  set_text_box (self->warnings_box, self->warnings_label, self->warnings);
 
   /* The flight of an older edit stays in view, veiled, while the newest
    * is simulated. */
@@ -813,6 +814,25 @@ update (SwAscentPage *self, gboolean flown_changed)
   gtk_widget_set_visible (self->figures_grid, self->flown != NULL);
   gtk_widget_set_visible (self->plots_grid, self->flown != NULL);
   gtk_widget_set_visible (self->veil, stale);
+}
+
+static void
+catch_up (SwAscentPage *self)
+{
+  if (!self->stale)
+    return;
+  update (self, self->stale_flown);
+  self->stale = FALSE;
+  self->stale_flown = FALSE;
+}
+
+static void
+sw_ascent_page_map (GtkWidget *widget)
+{
+  SwAscentPage *self = SW_ASCENT_PAGE (widget);
+
+  GTK_WIDGET_CLASS (sw_ascent_page_parent_class)->map (widget);
+  catch_up (self);
 }
 
 void
@@ -838,7 +858,14 @@ sw_ascent_page_set_result (SwAscentPage *self, SwAnalysis *result)
       g_clear_pointer (&self->flown, sw_analysis_unref);
       flown_changed = TRUE;
     }
-  update (self, flown_changed);
+  /* The summary reaches the totals at once, shown or not.  Behind another
+   * page the figures, table and plots would cost the window a relayout on
+   * every result: the page catches up when it is shown (or read). */
+  update_summary (self);
+  self->stale = TRUE;
+  self->stale_flown |= flown_changed;
+  if (gtk_widget_get_mapped (GTK_WIDGET (self)))
+    catch_up (self);
   sw_optimised_steering_set_flight (self->optimised,
                                     self->flown != NULL ? self->flown->design : NULL,
                                     self->flown != NULL ? self->flown->ascent : NULL);
@@ -849,8 +876,17 @@ sw_ascent_page_set_result (SwAscentPage *self, SwAnalysis *result)
 static void
 limits_changed_cb (SwAscentPage *self)
 {
-  update_plots (self);
   update_summary (self);
+  if (gtk_widget_get_mapped (GTK_WIDGET (self)) && !self->stale)
+    {
+      update_plots (self);
+      set_text_box (self->warnings_box, self->warnings_label, self->warnings);
+    }
+  else
+    {
+      self->stale = TRUE;
+      self->stale_flown = TRUE;
+    }
 }
 
 static void
@@ -911,6 +947,7 @@ const char *
 sw_ascent_page_get_text (SwAscentPage *self, SwAscentPageField field)
 {
   g_return_val_if_fail (SW_IS_ASCENT_PAGE (self), NULL);
+  catch_up (self);
 
   switch (field)
     {
@@ -938,6 +975,7 @@ sw_ascent_page_get_plot (SwAscentPage *self, SwAscentPlot which)
 {
   g_return_val_if_fail (SW_IS_ASCENT_PAGE (self), NULL);
   g_return_val_if_fail (which < SW_ASCENT_N_PLOTS, NULL);
+  catch_up (self);
   return self->plots[which];
 }
 
@@ -959,6 +997,7 @@ const char *
 sw_ascent_page_get_message (SwAscentPage *self)
 {
   g_return_val_if_fail (SW_IS_ASCENT_PAGE (self), NULL);
+  catch_up (self);
   return gtk_label_get_text (self->status_label);
 }
 
@@ -992,6 +1031,7 @@ sw_ascent_page_class_init (SwAscentPageClass *klass)
   GtkWidgetClass *widget_class = GTK_WIDGET_CLASS (klass);
 
   object_class->dispose = sw_ascent_page_dispose;
+  widget_class->map = sw_ascent_page_map;
 
   signals[SUMMARY_CHANGED] = g_signal_new ("summary-changed", G_TYPE_FROM_CLASS (klass),
                                            G_SIGNAL_RUN_LAST, 0, NULL, NULL, NULL,
@@ -1068,5 +1108,6 @@ sw_ascent_page_init (SwAscentPage *self)
   self->optimised = SW_OPTIMISED_STEERING (sw_optimised_steering_new ());
   gtk_box_insert_child_after (GTK_BOX (gtk_widget_get_parent (self->figures_grid)),
                               GTK_WIDGET (self->optimised), self->figures_grid);
+  update_summary (self);
   update (self, TRUE);
 }

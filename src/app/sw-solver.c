@@ -5,12 +5,21 @@
 
 #include "sw-solver.h"
 
+#ifdef __linux__
+#include <errno.h>
+#include <sys/resource.h>
+#include <sys/syscall.h>
+#include <unistd.h>
+#endif
+
 /* The Monte Carlo starts only after this long without a newer request: it
  * cannot be interrupted, and a drag must not wait for it. */
 #define MONTECARLO_DELAY_MS 150
 /* The same for the ascent, which a newer request does cancel (see
  * solve_ascent). */
 #define ASCENT_DELAY_MS 60
+/* How much lower than the window's the solver's priority is (a nice value). */
+#define SOLVER_NICE 5
 
 /* State shared by the object and its thread.  The thread never touches the
  * GObject: it reaches the owner only through a weak reference, and only on
@@ -205,10 +214,24 @@ solve_ascent (Shared *sh, SwAnalysis *fast, GCancellable *cancellable)
     }
 }
 
+/* The solver works in the background: a frame being drawn, and the display
+ * server showing it, come first.  On Linux a thread has its own nice value,
+ * and the threads it starts (the Monte Carlo's) inherit it. */
+static void
+lower_priority (void)
+{
+#ifdef __linux__
+  if (setpriority (PRIO_PROCESS, (id_t) syscall (SYS_gettid), SOLVER_NICE) != 0)
+    g_debug ("the solver keeps its priority: %s", g_strerror (errno));
+#endif
+}
+
 static gpointer
 worker_thread (gpointer data)
 {
   Shared *sh = data;
+
+  lower_priority ();
 
   for (;;)
     {

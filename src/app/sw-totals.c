@@ -4,6 +4,7 @@
 #include "config.h"
 
 #include "sw-totals.h"
+#include "sw-steady-text.h"
 #include "sw-widget-text.h"
 
 #include "sw-format.h"
@@ -22,13 +23,13 @@ struct _SwTotals {
   GtkInscription *limit_label;
   GtkWidget *status_box;
   GtkImage  *status_icon;
-  GtkLabel  *status_label;
+  SwSteadyText *status_label;
   const char *status_page;     /* "ok", "note", "warn" or "bad" */
   GtkWidget *ascent_note_box;
-  GtkLabel  *ascent_note_label;
+  SwSteadyText *ascent_note_label;
   GtkWidget *ascent_warning_box;
   GtkWidget *ascent_warning_icon;
-  GtkLabel  *ascent_warning_label;
+  SwSteadyText *ascent_warning_label;
   /* The warnings' row keeps its place once it has shown a warning for this
    * design (sw_totals_set_ascent), and whether it shows one now. */
   gboolean   warning_row_kept;
@@ -41,24 +42,6 @@ struct _SwTotals {
 
 G_DEFINE_FINAL_TYPE (SwTotals, sw_totals, GTK_TYPE_WIDGET)
 
-/* Keeps @label at least @lines lines of its font high. */
-static void
-reserve_lines (GtkWidget *label, int lines)
-{
-  g_autoptr (GString) probe_text = g_string_new ("Mg");
-  PangoLayout *probe;
-  int height, current;
-
-  for (int i = 1; i < lines; i++)
-    g_string_append (probe_text, "\nMg");
-  probe = gtk_widget_create_pango_layout (label, probe_text->str);
-  pango_layout_get_pixel_size (probe, NULL, &height);
-  g_object_unref (probe);
-  gtk_widget_get_size_request (label, NULL, &current);
-  if (current != height)
-    gtk_widget_set_size_request (label, -1, height);
-}
-
 /* The state's icon and style ("ok", "note", "warn", "bad"), and the text. */
 static void
 set_status (SwTotals *self, const char *page, const char *text)
@@ -70,13 +53,12 @@ set_status (SwTotals *self, const char *page, const char *text)
     { "bad", "dialog-error-symbolic" },
   };
 
-  if (g_strcmp0 (gtk_label_get_text (self->status_label), text) != 0)
-    gtk_label_set_text (self->status_label, text);
   /* Two lines high even when the verdict takes one ("pending" before the
-   * ascent, "short of the orbit" after it): the totals keep their height,
-   * so the plots below them do not move, nor get laid out and repainted,
-   * at every phase of every edit.  A longer text still wraps in full. */
-  reserve_lines (GTK_WIDGET (self->status_label), 2);
+   * ascent, "short of the orbit" after it), and never lower than it has
+   * been for this design: the totals keep their height, so the plots below
+   * them do not move, nor get laid out and repainted, at every phase of
+   * every edit.  A longer text still wraps in full. */
+  sw_steady_text_set_text (self->status_label, text);
   if (g_strcmp0 (self->status_page, page) == 0)
     return;
   for (guint i = 0; i < G_N_ELEMENTS (icons); i++)
@@ -305,12 +287,9 @@ sw_totals_set_result (SwTotals *self, SwAnalysis *result)
 }
 
 static void
-set_row (GtkWidget *box, GtkLabel *label, const char *text, int lines)
+set_row (GtkWidget *box, SwSteadyText *label, const char *text)
 {
-  if (g_strcmp0 (gtk_label_get_text (label), text != NULL ? text : "") != 0)
-    gtk_label_set_text (label, text != NULL ? text : "");
-  if (lines > 1)
-    reserve_lines (GTK_WIDGET (label), lines);
+  sw_steady_text_set_text (label, text);
   gtk_widget_set_visible (box, text != NULL);
 }
 
@@ -330,7 +309,7 @@ update_warning_row (SwTotals *self)
     shown = _("No warnings so far; the ascent is still being checked.");
   else
     shown = _("No warnings now.");
-  set_row (self->ascent_warning_box, self->ascent_warning_label, shown, 2);
+  set_row (self->ascent_warning_box, self->ascent_warning_label, shown);
   /* Hidden but keeping its place: the text stays where the warnings were. */
   gtk_widget_set_opacity (self->ascent_warning_icon, self->warnings != NULL ? 1.0 : 0.0);
   if (self->warnings != NULL)
@@ -351,7 +330,7 @@ void
 sw_totals_set_ascent (SwTotals *self, const char *note, const char *warnings)
 {
   g_return_if_fail (SW_IS_TOTALS (self));
-  set_row (self->ascent_note_box, self->ascent_note_label, note, 1);
+  set_row (self->ascent_note_box, self->ascent_note_label, note);
   /* The warnings change from one line to two between the phases of an
    * edit (as flown, or from the sized masses): two lines high for the same
    * reason as the verdict.  And once a warning has been shown for this
@@ -367,10 +346,13 @@ sw_totals_set_ascent (SwTotals *self, const char *note, const char *warnings)
 }
 
 void
-sw_totals_forget_warning_row (SwTotals *self)
+sw_totals_forget_design (SwTotals *self)
 {
   g_return_if_fail (SW_IS_TOTALS (self));
   self->warning_row_kept = FALSE;
+  sw_steady_text_forget_height (self->status_label);
+  sw_steady_text_forget_height (self->ascent_note_label);
+  sw_steady_text_forget_height (self->ascent_warning_label);
   update_warning_row (self);
 }
 
@@ -389,10 +371,10 @@ sw_totals_get_text (SwTotals *self, SwTotalsField field)
     case SW_TOTALS_STATUS_PAGE:
       return self->status_page;
     case SW_TOTALS_STATUS:
-      return gtk_label_get_text (self->status_label);
+      return sw_steady_text_get_text (self->status_label);
     case SW_TOTALS_ASCENT_NOTE:
       return gtk_widget_get_visible (self->ascent_note_box)
-             ? gtk_label_get_text (self->ascent_note_label) : NULL;
+             ? sw_steady_text_get_text (self->ascent_note_label) : NULL;
     case SW_TOTALS_LIFTOFF_DELTA:
       return gtk_widget_get_visible (GTK_WIDGET (self->liftoff_delta))
              ? gtk_inscription_get_text (self->liftoff_delta) : NULL;
@@ -427,6 +409,7 @@ sw_totals_class_init (SwTotalsClass *klass)
 
   object_class->dispose = sw_totals_dispose;
 
+  g_type_ensure (SW_TYPE_STEADY_TEXT);
   gtk_widget_class_set_template_from_resource (widget_class,
                                                "/org/stagewright/Stagewright/sw-totals.ui");
   gtk_widget_class_set_layout_manager_type (widget_class, GTK_TYPE_BIN_LAYOUT);

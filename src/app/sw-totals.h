@@ -15,10 +15,11 @@ GtkWidget  *sw_totals_new (void);
 void        sw_totals_set_result (SwTotals *self, SwAnalysis *result);
 /* The ascent's note on the sizing and its warnings (one per line), from the
  * ascent page; NULL hides the row, or once the row has shown a warning for
- * this design says there are none now (see sw_totals_forget_warning_row()). */
+ * this design says there are none now (see sw_totals_forget_design()). */
 void        sw_totals_set_ascent (SwTotals *self, const char *note, const char *warnings);
-/* A new design: the warnings' row no longer keeps its place. */
-void        sw_totals_forget_warning_row (SwTotals *self);
+/* A new design: the warnings' row no longer keeps its place, and the
+ * totals no longer keep the height they have had. */
+void        sw_totals_forget_design (SwTotals *self);
 
 /* For tests: the texts shown. */
 typedef enum {

@@ -387,7 +387,7 @@ flow_reset_cb (SwWindow *self, gboolean intro)
 {
   sw_inspector_set_intro (self->inspector, intro);
   sw_inspector_set_selected (self->inspector, 0);
-  sw_totals_forget_warning_row (self->totals);
+  sw_totals_forget_design (self->totals);
 }
 
 gboolean
