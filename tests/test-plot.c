@@ -607,6 +607,31 @@ test_raster_same_pixels (void)
       cairo_surface_destroy (direct);
       cairo_surface_destroy (via);
     }
+
+  /* An image's pages are kept for the next image when it goes (at scale 2
+   * this one is large enough to have pages of its own): the next image,
+   * of a drawing that paints nothing, must come out clear. */
+  {
+    GskRenderNode *first = sw_raster_node (gsk_render_node_ref (recorded), &box, 2);
+    GskRenderNode *blank;
+    cairo_surface_t *via = cairo_image_surface_create (CAIRO_FORMAT_ARGB32, 260, 140);
+    const guint8 *b;
+    int inked = 0;
+
+    gsk_render_node_unref (first);
+    blank = sw_raster_node (gsk_cairo_node_new (&box), &box, 2);
+    cairo_surface_set_device_scale (via, 2, 2);
+    cr = cairo_create (via);
+    gsk_render_node_draw (blank, cr);
+    cairo_destroy (cr);
+    cairo_surface_flush (via);
+    b = cairo_image_surface_get_data (via);
+    for (int i = 0; i < cairo_image_surface_get_stride (via) * 140; i++)
+      inked += b[i] != 0;
+    g_assert_cmpint (inked, ==, 0);
+    gsk_render_node_unref (blank);
+    cairo_surface_destroy (via);
+  }
   gsk_render_node_unref (recorded);
 }
 

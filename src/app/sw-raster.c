@@ -4,15 +4,16 @@
 #include "sw-raster.h"
 
 #include <math.h>
+#include <string.h>
 #include <sys/mman.h>
 
 static cairo_user_data_key_t image_key;
 static cairo_user_data_key_t mapping_key;
 
-/* Images from this size on get pages of their own from the system, given
- * back when the image goes.  From the heap, images of the changing sizes of
- * the plots' ink boxes left it fragmented: the resident memory grew by
- * about 0.2 MB per 1,000 edits, for good. */
+/* Images from this size on get pages of their own from the system (kept
+ * for the next images when they go, see below).  From the heap, images of
+ * the changing sizes of the plots' ink boxes left it fragmented: the
+ * resident memory grew by about 0.2 MB per 1,000 edits, for good. */
 #define OWN_PAGES_FROM (64 * 1024)
 
 typedef struct {
@@ -20,13 +21,115 @@ typedef struct {
   gsize  length;
 } Mapping;
 
+/* Pages given back by images that went, kept for the next images: taking
+ * fresh pages from the system for every image cost a page fault per 4 KB
+ * page, and giving them back stopped the other processor to flush its
+ * address cache (about 0.5 ms of each edit).  A few are kept, the
+ * smallest first to go, so the memory stays flat. */
+#define KEPT_MAPPINGS 12
+static Mapping *kept[KEPT_MAPPINGS];
+static guint n_kept;
+static gint64 last_take_us;
+static guint trim_id;
+G_LOCK_DEFINE_STATIC (kept);
+
+/* Gives every kept mapping back once no image has been made for a while:
+ * the window at rest holds only the pages its images use. */
+#define TRIM_AFTER_MS 2000
+
+static gboolean
+trim_cb (gpointer data)
+{
+  Mapping *out[KEPT_MAPPINGS];
+  guint n = 0;
+
+  G_LOCK (kept);
+  if (g_get_monotonic_time () - last_take_us < TRIM_AFTER_MS * G_TIME_SPAN_MILLISECOND)
+    {
+      G_UNLOCK (kept);
+      return G_SOURCE_CONTINUE;
+    }
+  while (n_kept > 0)
+    out[n++] = kept[--n_kept];
+  trim_id = 0;
+  G_UNLOCK (kept);
+  for (guint i = 0; i < n; i++)
+    {
+      munmap (out[i]->addr, out[i]->length);
+      g_free (out[i]);
+    }
+  return G_SOURCE_REMOVE;
+}
+
 static void
 mapping_free (void *data)
 {
   Mapping *m = data;
+  guint smallest = 0;
 
-  munmap (m->addr, m->length);
-  g_free (m);
+  G_LOCK (kept);
+  if (n_kept < KEPT_MAPPINGS)
+    {
+      kept[n_kept++] = m;
+      m = NULL;
+    }
+  else
+    {
+      for (guint i = 1; i < n_kept; i++)
+        if (kept[i]->length < kept[smallest]->length)
+          smallest = i;
+      if (kept[smallest]->length < m->length)
+        {
+          Mapping *out = kept[smallest];
+          kept[smallest] = m;
+          m = out;
+        }
+    }
+  G_UNLOCK (kept);
+  if (m != NULL)
+    {
+      munmap (m->addr, m->length);
+      g_free (m);
+    }
+}
+
+/* Pages for @length bytes: the smallest kept mapping that holds them and is
+ * not more than twice as large (cleared), or fresh ones (cleared by the
+ * system).  NULL when the system has none. */
+static Mapping *
+take_mapping (gsize length)
+{
+  Mapping *m = NULL;
+  guint best = G_MAXUINT;
+  void *addr;
+
+  G_LOCK (kept);
+  last_take_us = g_get_monotonic_time ();
+  if (trim_id == 0)
+    trim_id = g_timeout_add (TRIM_AFTER_MS, trim_cb, NULL);
+  for (guint i = 0; i < n_kept; i++)
+    if (kept[i]->length >= length && kept[i]->length / 2 <= length
+        && (best == G_MAXUINT || kept[i]->length < kept[best]->length))
+      best = i;
+  if (best != G_MAXUINT)
+    {
+      m = kept[best];
+      kept[best] = kept[--n_kept];
+    }
+  G_UNLOCK (kept);
+  if (m != NULL)
+    {
+      memset (m->addr, 0, length);
+      return m;
+    }
+  length = (length + 4095) & ~(gsize) 4095;
+  addr = mmap (NULL, length, PROT_READ | PROT_WRITE, MAP_PRIVATE | MAP_ANONYMOUS, -1, 0);
+  if (addr == MAP_FAILED)
+    return NULL;
+  m = g_new (Mapping, 1);
+  m->addr = addr;
+  m->length = length;
+  return m;
 }
 
 /* A cleared ARGB image of @width x @height device pixels. */
@@ -37,18 +140,10 @@ new_image (int width, int height)
   gsize length = (gsize) stride * (gsize) height;
   cairo_surface_t *image;
   Mapping *m;
-  void *addr;
 
-  if (stride <= 0 || length < OWN_PAGES_FROM)
+  if (stride <= 0 || length < OWN_PAGES_FROM || (m = take_mapping (length)) == NULL)
     return cairo_image_surface_create (CAIRO_FORMAT_ARGB32, width, height);
-  /* Anonymous pages come cleared. */
-  addr = mmap (NULL, length, PROT_READ | PROT_WRITE, MAP_PRIVATE | MAP_ANONYMOUS, -1, 0);
-  if (addr == MAP_FAILED)
-    return cairo_image_surface_create (CAIRO_FORMAT_ARGB32, width, height);
-  image = cairo_image_surface_create_for_data (addr, CAIRO_FORMAT_ARGB32, width, height, stride);
-  m = g_new (Mapping, 1);
-  m->addr = addr;
-  m->length = length;
+  image = cairo_image_surface_create_for_data (m->addr, CAIRO_FORMAT_ARGB32, width, height, stride);
   if (cairo_surface_status (image) != CAIRO_STATUS_SUCCESS
       || cairo_surface_set_user_data (image, &mapping_key, m, mapping_free) != CAIRO_STATUS_SUCCESS)
     {
