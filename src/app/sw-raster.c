@@ -106,7 +106,7 @@ take_mapping (gsize length)
   G_LOCK (kept);
   last_take_us = g_get_monotonic_time ();
   if (trim_id == 0)
-    trim_id = g_timeout_add (TRIM_AFTER_MS, trim_cb, NULL);
+    trim_id = g_timeout_add (TRIM_AFTER_MS / 4, trim_cb, NULL);
   for (guint i = 0; i < n_kept; i++)
     if (kept[i]->length >= length && kept[i]->length / 2 <= length
         && (best == G_MAXUINT || kept[i]->length < kept[best]->length))
