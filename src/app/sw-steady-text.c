@@ -22,6 +22,7 @@ struct _SwSteadyText {
   int          kept_width;
   int          kept_height;
   guint        fit_id;      /* asks for room once the allocation is done */
+  gboolean     fit_asked;   /* ... once per text */
   GtkWidget   *menu;        /* "Copy", on a secondary click */
 };
 
@@ -126,9 +127,14 @@ sw_steady_text_size_allocate (GtkWidget *widget, int width, int height, int base
       self->kept_height = 0;
     }
   self->kept_height = MAX (self->kept_height, MIN (needed, height));
-  /* A size measured for an earlier text, at a width not tried since. */
-  if (needed > height && self->fit_id == 0)
-    self->fit_id = g_idle_add_full (G_PRIORITY_HIGH_IDLE, fit_cb, self, NULL);
+  /* A size GTK measured for an earlier text and kept (at a width not
+   * tried since): measured again, once for each text, so that a parent
+   * that gives less than was asked for is not asked again and again. */
+  if (needed > height && !self->fit_asked)
+    {
+      self->fit_asked = TRUE;
+      self->fit_id = g_idle_add_full (G_PRIORITY_HIGH_IDLE, fit_cb, self, NULL);
+    }
   if (self->menu != NULL)
     gtk_popover_present (GTK_POPOVER (self->menu));
 }
@@ -225,6 +231,7 @@ sw_steady_text_set_text (SwSteadyText *self, const char *text)
   widget = GTK_WIDGET (self);
   g_free (self->text);
   self->text = g_strdup (text);
+  self->fit_asked = FALSE;
   if (self->layout != NULL)
     pango_layout_set_text (self->layout, text, -1);
   gtk_accessible_update_property (GTK_ACCESSIBLE (self), GTK_ACCESSIBLE_PROPERTY_LABEL, text, -1);
