@@ -608,6 +608,58 @@ test_hidden_page_waits (void)
   sw_test_window_close (w);
 }
 
+/* ---- a window at rest ---------------------------------------------------- */
+
+static void
+count_cb (GdkFrameClock *clock, guint *n)
+{
+  (*n)++;
+}
+
+static gboolean
+spin_done (gpointer data)
+{
+  *(gboolean *) data = TRUE;
+  return G_SOURCE_REMOVE;
+}
+
+/* Once the newest result is shown, a window at rest lays nothing out: each
+ * layout costs the frame's CPU and, on X11, a handful of round trips to the
+ * server.  (The ascent page's spinner, left spinning behind another page
+ * from the page's first "waiting", once had the window laid out at every
+ * frame, 60 times a second, for good.)  Both with the ascent page hidden
+ * and shown. */
+static void
+test_at_rest (void)
+{
+  SwWindow *w = window_new ();
+  GdkFrameClock *clock = gtk_widget_get_frame_clock (GTK_WIDGET (w));
+
+  load_demo (w, "three-stage-simulated.stagewright");
+  for (int shown = 0; shown <= 1; shown++)
+    {
+      guint layouts = 0;
+      gboolean done = FALSE;
+      gulong id;
+
+      g_assert_true (sw_window_show_page (w, shown ? "ascent" : "curves"));
+      /* The page change and what follows it settle first. */
+      g_timeout_add (500, spin_done, &done);
+      while (!done)
+        g_main_context_iteration (NULL, TRUE);
+      done = FALSE;
+      id = g_signal_connect (clock, "layout", G_CALLBACK (count_cb), &layouts);
+      g_timeout_add (1500, spin_done, &done);
+      while (!done)
+        g_main_context_iteration (NULL, TRUE);
+      g_signal_handler_disconnect (clock, id);
+      g_test_message ("ascent page %s: %u layouts in 1.5 s at rest",
+                      shown ? "shown" : "hidden", layouts);
+      g_assert_cmpuint (layouts, <=, 2);
+    }
+  sw_test_window_close (w);
+}
+
 /* ---- main -------------------------------------------------------------- */
 
 /* The optimised steering on demand: the button flies it on a worker thread
@@ -687,6 +739,7 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/ascent/warnings", test_warnings);
   g_test_add_func ("/gui/ascent/optimised-steering", test_optimised_steering);
   g_test_add_func ("/gui/ascent/hidden-page-waits", test_hidden_page_waits);
+  g_test_add_func ("/gui/ascent/at-rest", test_at_rest);
 
   status = g_test_run ();
   sw_gui_test_env_finish (tmp_dir);

@@ -262,11 +262,22 @@ update_summary (SwAscentPage *self)
 
 typedef enum { STATUS_OK, STATUS_NOTE, STATUS_SHORT, STATUS_BAD } StatusKind;
 
-static void
-set_busy (SwAscentPage *self, gboolean busy)
+/* The spinner turns only while the page is shown: a spinning spinner
+ * animates its style, which has the window laid out again at every frame,
+ * shown or not. */
+static gboolean
+busy (SwAscentPage *self)
 {
-  gtk_stack_set_visible_child_name (self->busy_stack, busy ? "busy" : "idle");
-  gtk_spinner_set_spinning (self->busy_spinner, busy);
+  return self->result == NULL || (self->result->ok && self->result->ascent_pending);
+}
+
+static void
+set_busy (SwAscentPage *self)
+{
+  gboolean on = busy (self);
+
+  gtk_stack_set_visible_child_name (self->busy_stack, on ? "busy" : "idle");
+  gtk_spinner_set_spinning (self->busy_spinner, on && gtk_widget_get_mapped (GTK_WIDGET (self)));
 }
 
 static void
@@ -296,7 +307,7 @@ update_status (SwAscentPage *self)
   g_autofree char *text = NULL, *orbit = NULL, *missing = NULL, *cutoff = NULL;
   StatusKind kind;
 
-  set_busy (self, r == NULL || (r->ok && r->ascent_pending));
+  set_busy (self);
   if (r == NULL)
     {
       set_status (self, STATUS_NOTE, _("Waiting for the first sizing…"));
@@ -833,6 +844,16 @@ sw_ascent_page_map (GtkWidget *widget)
 
   GTK_WIDGET_CLASS (sw_ascent_page_parent_class)->map (widget);
   catch_up (self);
+  set_busy (self);
+}
+
+static void
+sw_ascent_page_unmap (GtkWidget *widget)
+{
+  SwAscentPage *self = SW_ASCENT_PAGE (widget);
+
+  gtk_spinner_set_spinning (self->busy_spinner, FALSE);
+  GTK_WIDGET_CLASS (sw_ascent_page_parent_class)->unmap (widget);
 }
 
 void
@@ -1032,6 +1053,7 @@ sw_ascent_page_class_init (SwAscentPageClass *klass)
 
   object_class->dispose = sw_ascent_page_dispose;
   widget_class->map = sw_ascent_page_map;
+  widget_class->unmap = sw_ascent_page_unmap;
 
   signals[SUMMARY_CHANGED] = g_signal_new ("summary-changed", G_TYPE_FROM_CLASS (klass),
                                            G_SIGNAL_RUN_LAST, 0, NULL, NULL, NULL,
