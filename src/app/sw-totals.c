@@ -20,7 +20,7 @@ struct _SwTotals {
   GtkInscription *fraction_label;
   GtkInscription *margin_label;
   GtkInscription *required_label;
-  GtkInscription *limit_label;
+  SwSteadyText *limit_label;
   GtkWidget *status_box;
   GtkImage  *status_icon;
   SwSteadyText *status_label;
@@ -182,7 +182,7 @@ update (SwTotals *self)
       gtk_inscription_set_text (self->fraction_label, SW_NO_VALUE);
       gtk_inscription_set_text (self->margin_label, SW_NO_VALUE);
       gtk_inscription_set_text (self->required_label, "");
-      gtk_inscription_set_text (self->limit_label, "");
+      sw_steady_text_set_text (self->limit_label, "");
       set_status (self, "note", _("Sizing…"));
       return;
     }
@@ -192,7 +192,7 @@ update (SwTotals *self)
       gtk_inscription_set_text (self->fraction_label, SW_NO_VALUE);
       gtk_inscription_set_text (self->margin_label, SW_NO_VALUE);
       gtk_inscription_set_text (self->required_label, "");
-      gtk_inscription_set_text (self->limit_label, "");
+      sw_steady_text_set_text (self->limit_label, "");
       status = g_strdup_printf (_("Cannot size this design. %s"), r->error_message);
       set_status (self, "bad", status);
       return;
@@ -238,7 +238,7 @@ update (SwTotals *self)
   gtk_inscription_set_text (self->fraction_label, fraction);
   gtk_inscription_set_text (self->margin_label, margin);
   gtk_inscription_set_text (self->required_label, required);
-  gtk_inscription_set_text (self->limit_label, limit);
+  sw_steady_text_set_text (self->limit_label, limit);
 
   /* The verdict: icon and style by state, green only when the simulated
    * ascent reaches the orbit within the limits. */
@@ -351,6 +351,7 @@ sw_totals_forget_design (SwTotals *self)
   g_return_if_fail (SW_IS_TOTALS (self));
   self->warning_row_kept = FALSE;
   sw_steady_text_forget_height (self->status_label);
+  sw_steady_text_forget_height (self->limit_label);
   sw_steady_text_forget_height (self->ascent_note_label);
   sw_steady_text_forget_height (self->ascent_warning_label);
   update_warning_row (self);
@@ -367,7 +368,7 @@ sw_totals_get_text (SwTotals *self, SwTotalsField field)
     case SW_TOTALS_FRACTION: return gtk_inscription_get_text (self->fraction_label);
     case SW_TOTALS_MARGIN: return gtk_inscription_get_text (self->margin_label);
     case SW_TOTALS_REQUIRED: return gtk_inscription_get_text (self->required_label);
-    case SW_TOTALS_LIMIT: return gtk_inscription_get_text (self->limit_label);
+    case SW_TOTALS_LIMIT: return sw_steady_text_get_text (self->limit_label);
     case SW_TOTALS_STATUS_PAGE:
       return self->status_page;
     case SW_TOTALS_STATUS:
