@@ -11,6 +11,7 @@
 #include "sw-ascent.h"
 #include "sw-format.h"
 #include "sw-plot-private.h"
+#include "sw-spinner.h"
 #include "sw-window-private.h"
 
 #include "gui-test-env.h"
@@ -616,11 +617,15 @@ count_cb (GdkFrameClock *clock, guint *n)
   (*n)++;
 }
 
-static gboolean
-spin_done (gpointer data)
+/* Runs the main loop for @ms. */
+static void
+spin_ms (guint ms)
 {
-  *(gboolean *) data = TRUE;
-  return G_SOURCE_REMOVE;
+  gboolean done = FALSE;
+
+  g_timeout_add (ms, sw_test_flag_cb, &done);
+  while (!done)
+    g_main_context_iteration (NULL, TRUE);
 }
 
 /* Once the newest result is shown, a window at rest lays nothing out: each
@@ -639,25 +644,55 @@ test_at_rest (void)
   for (int shown = 0; shown <= 1; shown++)
     {
       guint layouts = 0;
-      gboolean done = FALSE;
       gulong id;
 
       g_assert_true (sw_window_show_page (w, shown ? "ascent" : "curves"));
       /* The page change and what follows it settle first. */
-      g_timeout_add (500, spin_done, &done);
-      while (!done)
-        g_main_context_iteration (NULL, TRUE);
-      done = FALSE;
+      spin_ms (500);
       id = g_signal_connect (clock, "layout", G_CALLBACK (count_cb), &layouts);
-      g_timeout_add (1500, spin_done, &done);
-      while (!done)
-        g_main_context_iteration (NULL, TRUE);
+      spin_ms (1500);
       g_signal_handler_disconnect (clock, id);
       g_test_message ("ascent page %s: %u layouts in 1.5 s at rest",
                       shown ? "shown" : "hidden", layouts);
       g_assert_cmpuint (layouts, <=, 2);
     }
   sw_test_window_close (w);
+}
+
+/* Every spinner of the window goes through sw_spinner_set_busy: busy, it
+ * turns only while mapped (behind another page its style animation would
+ * lay the window out at every frame), and turns again when shown. */
+static void
+test_spinner_while_shown (void)
+{
+  GtkWidget *window = gtk_window_new ();
+  GtkWidget *stack = gtk_stack_new ();
+  GtkWidget *spinner = gtk_spinner_new ();
+  GtkWidget *other = gtk_label_new ("another page");
+  GtkSpinner *sp = GTK_SPINNER (spinner);
+
+  gtk_stack_add_named (GTK_STACK (stack), spinner, "busy");
+  gtk_stack_add_named (GTK_STACK (stack), other, "other");
+  gtk_window_set_child (GTK_WINDOW (window), stack);
+  gtk_stack_set_visible_child (GTK_STACK (stack), other);
+  gtk_window_present (GTK_WINDOW (window));
+  spin_ms (200);
+
+  sw_spinner_set_busy (sp, TRUE);
+  g_assert_false (gtk_widget_get_mapped (spinner));
+  g_assert_false (gtk_spinner_get_spinning (sp));
+  gtk_stack_set_visible_child (GTK_STACK (stack), spinner);
+  spin_ms (100);
+  g_assert_true (gtk_widget_get_mapped (spinner));
+  g_assert_true (gtk_spinner_get_spinning (sp));
+  gtk_stack_set_visible_child (GTK_STACK (stack), other);
+  spin_ms (100);
+  g_assert_false (gtk_spinner_get_spinning (sp));
+  sw_spinner_set_busy (sp, FALSE);
+  gtk_stack_set_visible_child (GTK_STACK (stack), spinner);
+  spin_ms (100);
+  g_assert_false (gtk_spinner_get_spinning (sp));
+  gtk_window_destroy (GTK_WINDOW (window));
 }
 
 /* ---- main -------------------------------------------------------------- */
@@ -740,6 +775,7 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/ascent/optimised-steering", test_optimised_steering);
   g_test_add_func ("/gui/ascent/hidden-page-waits", test_hidden_page_waits);
   g_test_add_func ("/gui/ascent/at-rest", test_at_rest);
+  g_test_add_func ("/gui/spinner/turns-while-shown", test_spinner_while_shown);
 
   status = g_test_run ();
   sw_gui_test_env_finish (tmp_dir);

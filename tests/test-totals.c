@@ -211,31 +211,19 @@ test_format_delta (void)
   g_free (s);
 }
 
-/* The first widget of @type (a steady text or an inscription) below @w
- * that shows @text. */
-static GtkWidget *
-find_text (GtkWidget *w, GType type, const char *text)
+/* The first steady text below @w that shows @text. */
+static SwSteadyText *
+find_steady (GtkWidget *w, const char *text)
 {
-  if (G_TYPE_CHECK_INSTANCE_TYPE (w, type))
-    {
-      const char *shown = SW_IS_STEADY_TEXT (w) ? sw_steady_text_get_text (SW_STEADY_TEXT (w))
-                                                : gtk_inscription_get_text (GTK_INSCRIPTION (w));
-      if (g_strcmp0 (shown, text) == 0)
-        return w;
-    }
+  if (SW_IS_STEADY_TEXT (w) && g_strcmp0 (sw_steady_text_get_text (SW_STEADY_TEXT (w)), text) == 0)
+    return SW_STEADY_TEXT (w);
   for (GtkWidget *c = gtk_widget_get_first_child (w); c != NULL; c = gtk_widget_get_next_sibling (c))
     {
-      GtkWidget *found = find_text (c, type, text);
+      SwSteadyText *found = find_steady (c, text);
       if (found != NULL)
         return found;
     }
   return NULL;
-}
-
-static SwSteadyText *
-find_steady (GtkWidget *w, const char *text)
-{
-  return (SwSteadyText *) find_text (w, SW_TYPE_STEADY_TEXT, text);
 }
 
 /* At every edit the verdict goes from "checking the ascent" (one line) to

@@ -7,6 +7,7 @@
 
 #include "sw-format.h"
 #include "sw-number-field.h"
+#include "sw-spinner.h"
 
 #include <glib/gi18n.h>
 #include <math.h>
@@ -262,22 +263,11 @@ update_summary (SwAscentPage *self)
 
 typedef enum { STATUS_OK, STATUS_NOTE, STATUS_SHORT, STATUS_BAD } StatusKind;
 
-/* The spinner turns only while the page is shown: a spinning spinner
- * animates its style, which has the window laid out again at every frame,
- * shown or not. */
-static gboolean
-busy (SwAscentPage *self)
-{
-  return self->result == NULL || (self->result->ok && self->result->ascent_pending);
-}
-
 static void
-set_busy (SwAscentPage *self)
+set_busy (SwAscentPage *self, gboolean busy)
 {
-  gboolean on = busy (self);
-
-  gtk_stack_set_visible_child_name (self->busy_stack, on ? "busy" : "idle");
-  gtk_spinner_set_spinning (self->busy_spinner, on && gtk_widget_get_mapped (GTK_WIDGET (self)));
+  gtk_stack_set_visible_child_name (self->busy_stack, busy ? "busy" : "idle");
+  sw_spinner_set_busy (self->busy_spinner, busy);
 }
 
 static void
@@ -307,7 +297,7 @@ update_status (SwAscentPage *self)
   g_autofree char *text = NULL, *orbit = NULL, *missing = NULL, *cutoff = NULL;
   StatusKind kind;
 
-  set_busy (self);
+  set_busy (self, r == NULL || (r->ok && r->ascent_pending));
   if (r == NULL)
     {
       set_status (self, STATUS_NOTE, _("Waiting for the first sizing…"));
@@ -844,16 +834,6 @@ sw_ascent_page_map (GtkWidget *widget)
 
   GTK_WIDGET_CLASS (sw_ascent_page_parent_class)->map (widget);
   catch_up (self);
-  set_busy (self);
-}
-
-static void
-sw_ascent_page_unmap (GtkWidget *widget)
-{
-  SwAscentPage *self = SW_ASCENT_PAGE (widget);
-
-  gtk_spinner_set_spinning (self->busy_spinner, FALSE);
-  GTK_WIDGET_CLASS (sw_ascent_page_parent_class)->unmap (widget);
 }
 
 void
@@ -898,16 +878,10 @@ static void
 limits_changed_cb (SwAscentPage *self)
 {
   update_summary (self);
-  if (gtk_widget_get_mapped (GTK_WIDGET (self)) && !self->stale)
-    {
-      update_plots (self);
-      set_text_box (self->warnings_box, self->warnings_label, self->warnings);
-    }
-  else
-    {
-      self->stale = TRUE;
-      self->stale_flown = TRUE;
-    }
+  self->stale = TRUE;
+  self->stale_flown = TRUE;
+  if (gtk_widget_get_mapped (GTK_WIDGET (self)))
+    catch_up (self);
 }
 
 static void
@@ -1053,7 +1027,6 @@ sw_ascent_page_class_init (SwAscentPageClass *klass)
 
   object_class->dispose = sw_ascent_page_dispose;
   widget_class->map = sw_ascent_page_map;
-  widget_class->unmap = sw_ascent_page_unmap;
 
   signals[SUMMARY_CHANGED] = g_signal_new ("summary-changed", G_TYPE_FROM_CLASS (klass),
                                            G_SIGNAL_RUN_LAST, 0, NULL, NULL, NULL,

@@ -7,6 +7,7 @@
 
 #include "sw-csv.h"
 #include "sw-format.h"
+#include "sw-spinner.h"
 
 #include <glib/gi18n.h>
 #include <string.h>
@@ -185,7 +186,7 @@ update_sensitivity (SwExportDialog *self)
                             !busy && ok && (self->sheet_path != NULL || csv));
   gtk_widget_set_sensitive (GTK_WIDGET (self->csv_label), csv);
   gtk_widget_set_sensitive (GTK_WIDGET (self->csv_button), csv && !busy);
-  gtk_spinner_set_spinning (self->spinner, busy);
+  sw_spinner_set_busy (self->spinner, busy);
 }
 
 static void

@@ -6,6 +6,7 @@
 #include "sw-optimised-steering.h"
 
 #include "sw-format.h"
+#include "sw-spinner.h"
 
 #include <glib/gi18n.h>
 #include <math.h>
@@ -52,7 +53,7 @@ cancel (SwOptimisedSteering *self)
   if (self->cancellable != NULL)
     g_cancellable_cancel (self->cancellable);
   g_clear_object (&self->cancellable);
-  gtk_spinner_stop (self->spinner);
+  sw_spinner_set_busy (self->spinner, FALSE);
   gtk_widget_set_visible (GTK_WIDGET (self->spinner), FALSE);
 }
 
@@ -107,7 +108,7 @@ done_cb (GObject *source, GAsyncResult *result, gpointer user_data)
   if (c != NULL && c == self->cancellable)
     {
       g_clear_object (&self->cancellable);
-      gtk_spinner_stop (self->spinner);
+      sw_spinner_set_busy (self->spinner, FALSE);
       gtk_widget_set_visible (GTK_WIDGET (self->spinner), FALSE);
       gtk_widget_set_sensitive (GTK_WIDGET (self->button), TRUE);
       if (o != NULL)
@@ -136,7 +137,7 @@ clicked_cb (SwOptimisedSteering *self)
   self->cancellable = g_cancellable_new ();
   gtk_widget_set_sensitive (GTK_WIDGET (self->button), FALSE);
   gtk_widget_set_visible (GTK_WIDGET (self->spinner), TRUE);
-  gtk_spinner_start (self->spinner);
+  sw_spinner_set_busy (self->spinner, TRUE);
   set_text (self, _("Optimising the steering: a few hundred trial flights…"));
   task = g_task_new (NULL, self->cancellable, done_cb, g_object_ref (self));
   g_task_set_task_data (task, job, (GDestroyNotify) job_free);

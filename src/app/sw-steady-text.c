@@ -130,7 +130,7 @@ sw_steady_text_size_allocate (GtkWidget *widget, int width, int height, int base
   /* A size GTK measured for an earlier text and kept (at a width not
    * tried since): measured again, once for each text, so that a parent
    * that gives less than was asked for is not asked again and again. */
-  if (needed > height && !self->fit_asked)
+  if (needed > height && !self->fit_asked && self->fit_id == 0)
     {
       self->fit_asked = TRUE;
       self->fit_id = g_idle_add_full (G_PRIORITY_HIGH_IDLE, fit_cb, self, NULL);

@@ -9,6 +9,7 @@
 #include "sw-narrow.h"
 #include "sw-number-field.h"
 #include "sw-simulated-mc.h"
+#include "sw-spinner.h"
 
 #include "sw-design-fields.h"
 #include "sw-format.h"
@@ -385,14 +386,14 @@ show_histogram (SwTradePage *self, SwAnalysis *r)
 
   sw_plot_clear (self->histogram_plot);
   self->has_lines = FALSE;
-  gtk_spinner_set_spinning (self->histogram_spinner, FALSE);
+  sw_spinner_set_busy (self->histogram_spinner, FALSE);
 
   if (r == NULL || !r->ok)
     empty = _("No Monte Carlo: the design cannot be solved.");
   else if (r->montecarlo_pending)
     {
       empty = _("Running the Monte Carlo…");
-      gtk_spinner_set_spinning (self->histogram_spinner, TRUE);
+      sw_spinner_set_busy (self->histogram_spinner, TRUE);
     }
   else if (!sw_uncertainty_has_spread (&r->design->uncertainty))
     empty = capability ? _("No uncertainty spreads in this design. Set them under "
