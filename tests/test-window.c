@@ -1070,6 +1070,64 @@ test_stage_count_labels (void)
   g_object_unref (plot);
 }
 
+static void
+count_cb (GdkFrameClock *clock, guint *n)
+{
+  (*n)++;
+}
+
+static void
+spin_ms (guint ms)
+{
+  gboolean done = FALSE;
+
+  g_timeout_add (ms, sw_test_flag_cb, &done);
+  while (!done)
+    g_main_context_iteration (NULL, TRUE);
+}
+
+/* Choosing another stage in the stage list settles in a frame or two: no
+ * style fades on (a row's outline fades for 200 ms in the default theme),
+ * which would restyle the window and ask for its size at every frame, and
+ * each edit made meanwhile would pay for them (bench-gui). */
+static void
+test_selection_settles (void)
+{
+  g_autoptr (GtkCssProvider) css = gtk_css_provider_new ();
+  SwWindow *w;
+  GdkFrameClock *clock;
+  SwInspector *insp;
+
+  /* The application's own style rules, as it runs. */
+  gtk_css_provider_load_from_resource (css, "/org/stagewright/Stagewright/style.css");
+  gtk_style_context_add_provider_for_display (gdk_display_get_default (), GTK_STYLE_PROVIDER (css),
+                                              GTK_STYLE_PROVIDER_PRIORITY_APPLICATION);
+  w = window_new ();
+  clock = gtk_widget_get_frame_clock (GTK_WIDGET (w));
+  insp = sw_window_get_inspector (w);
+  load_demo (w, "medium-cargo.stagewright");
+  sw_test_wait_until (sw_test_result_complete, w, 120000, "the first result in full");
+  spin_ms (300);
+  for (int k = 0; k < 4; k++)
+    {
+      guint layouts = 0;
+      gulong id;
+
+      sw_inspector_set_selected (insp, (k + 1) % 2);
+      /* The frame that shows the selection. */
+      spin_ms (40);
+      id = g_signal_connect (clock, "layout", G_CALLBACK (count_cb), &layouts);
+      spin_ms (400);
+      g_signal_handler_disconnect (clock, id);
+      g_test_message ("stage %d selected: %u layouts in the 400 ms after its frame",
+                      (k + 1) % 2 + 1, layouts);
+      g_assert_cmpuint (layouts, <=, 2);
+    }
+  sw_test_window_close (w);
+  gtk_style_context_remove_provider_for_display (gdk_display_get_default (),
+                                                 GTK_STYLE_PROVIDER (css));
+}
+
 int
 main (int argc, char **argv)
 {
@@ -1096,6 +1154,7 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/window/booster-estimate", test_booster_estimate);
   g_test_add_func ("/gui/window/fixed-working", test_fixed_working);
   g_test_add_func ("/gui/window/stage-count-labels", test_stage_count_labels);
+  g_test_add_func ("/gui/window/selection-settles", test_selection_settles);
 
   status = g_test_run ();
   sw_gui_test_env_finish (tmp_dir);

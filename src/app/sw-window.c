@@ -19,6 +19,9 @@
 
 #include <glib/gi18n.h>
 #include <glib/gstdio.h>
+#ifdef GDK_WINDOWING_X11
+#include <gdk/x11/gdkx.h>
+#endif
 #include <errno.h>
 #include <string.h>
 
@@ -802,12 +805,36 @@ sw_window_close_request (GtkWindow *window)
   return GTK_WINDOW_CLASS (sw_window_parent_class)->close_request (window);
 }
 
+/* On X11 without a window manager (a virtual display, a kiosk), GDK asks
+ * the server twice at the end of every frame whether the window manager
+ * takes part in frame synchronisation: with none running the answer is
+ * never kept, and each question waits until the server has shown the
+ * frame (about 1 ms a frame under Xvfb).  No window manager, no
+ * synchronisation to wait for: it is switched off for this window.  With
+ * a window manager GDK keeps its answer and nothing changes.  (GDK cannot
+ * switch it on again, so a window manager started later paces this
+ * window by GDK's own timer.) */
+static void
+skip_absent_frame_sync (GtkWidget *widget)
+{
+#ifdef GDK_WINDOWING_X11
+  GdkSurface *surface = gtk_native_get_surface (GTK_NATIVE (widget));
+  GdkDisplay *display = gtk_widget_get_display (widget);
+
+  if (GDK_IS_X11_SURFACE (surface) && GDK_IS_X11_DISPLAY (display)
+      && !gdk_x11_screen_supports_net_wm_hint (gdk_x11_display_get_screen (display),
+                                               "_NET_WM_FRAME_DRAWN"))
+    gdk_x11_surface_set_frame_sync_enabled (surface, FALSE);
+#endif
+}
+
 static void
 sw_window_realize (GtkWidget *widget)
 {
   SwWindow *self = SW_WINDOW (widget);
 
   GTK_WIDGET_CLASS (sw_window_parent_class)->realize (widget);
+  skip_absent_frame_sync (widget);
   self->frame_clock = g_object_ref (gtk_widget_get_frame_clock (widget));
   g_signal_connect_object (self->frame_clock, "after-paint", G_CALLBACK (after_paint_cb), self,
                            G_CONNECT_SWAPPED);
