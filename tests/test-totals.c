@@ -8,6 +8,7 @@
 
 #include "gui-test-env.h"
 #include "sw-steady-text.h"
+#include "sw-tone-frame.h"
 #include "sw-totals.h"
 #include "widget-render.h"
 
@@ -226,6 +227,34 @@ find_steady (GtkWidget *w, const char *text)
   return NULL;
 }
 
+static SwToneFrame *
+find_tone_frame (GtkWidget *w)
+{
+  if (SW_IS_TONE_FRAME (w))
+    return SW_TONE_FRAME (w);
+  for (GtkWidget *c = gtk_widget_get_first_child (w); c != NULL; c = gtk_widget_get_next_sibling (c))
+    {
+      SwToneFrame *found = find_tone_frame (c);
+      if (found != NULL)
+        return found;
+    }
+  return NULL;
+}
+
+/* The classes of @w and its descendants, in order, as one string. */
+static void
+collect_classes (GtkWidget *w, GString *out)
+{
+  g_auto (GStrv) classes = gtk_widget_get_css_classes (w);
+
+  g_string_append_printf (out, "%s[", G_OBJECT_TYPE_NAME (w));
+  for (guint i = 0; classes != NULL && classes[i] != NULL; i++)
+    g_string_append_printf (out, "%s ", classes[i]);
+  g_string_append (out, "]");
+  for (GtkWidget *c = gtk_widget_get_first_child (w); c != NULL; c = gtk_widget_get_next_sibling (c))
+    collect_classes (c, out);
+}
+
 /* At every edit the verdict goes from "checking the ascent" (one line) to
  * "short of the orbit" (two lines) when the ascent arrives.  The totals
  * keep their height, so the notebook under them does not move, which would
@@ -304,8 +333,17 @@ test_warning_row_kept (void)
   GtkWidget *t = sw_totals_new ();
   GtkWidget *box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 0);
   GtkWidget *window;
+  g_autoptr (GtkCssProvider) css = gtk_css_provider_new ();
+  g_autoptr (GString) classes_warned = g_string_new (NULL);
+  g_autoptr (GString) classes_gone = g_string_new (NULL);
+  SwToneFrame *frame;
+  SwSteadyText *text;
   int h_none, h_warned, h_gone, h_forgotten;
 
+  /* The application's style: the faces' frames are drawn as it runs. */
+  gtk_css_provider_load_from_resource (css, "/org/stagewright/Stagewright/style.css");
+  gtk_style_context_add_provider_for_display (gdk_display_get_default (), GTK_STYLE_PROVIDER (css),
+                                              GTK_STYLE_PROVIDER_PRIORITY_APPLICATION);
   r = first_phase (d, 1, FALSE);
   pending = first_phase (d, 2, TRUE);
   g_assert_true (pending->ascent_pending);
@@ -320,6 +358,18 @@ test_warning_row_kept (void)
   h_warned = settle_height (t, h_none);
   g_assert_cmpstr (sw_totals_get_text (SW_TOTALS (t), SW_TOTALS_ASCENT_WARNINGS), ==, warning);
   g_assert_cmpint (h_warned, >, h_none);
+  /* Warned: the warning face (a dashed frame in the warning colour), the
+   * icon and the text in full. */
+  frame = find_tone_frame (t);
+  g_assert_nonnull (frame);
+  g_assert_true (gtk_widget_is_drawable (GTK_WIDGET (frame)));
+  g_assert_cmpuint (sw_tone_frame_get_face (frame), ==, 1);
+  g_assert_true (gtk_widget_has_css_class (sw_tone_frame_get_face_widget (frame, 1),
+                                           "sw-status-warn"));
+  text = find_steady (t, warning);
+  g_assert_nonnull (text);
+  g_assert_cmpfloat (gtk_widget_get_opacity (GTK_WIDGET (text)), ==, 1.0);
+  collect_classes (GTK_WIDGET (frame), classes_warned);
 
   sw_totals_set_ascent (SW_TOTALS (t), NULL, NULL);
   widget_render_settle ();
@@ -327,6 +377,13 @@ test_warning_row_kept (void)
   g_assert_null (sw_totals_get_text (SW_TOTALS (t), SW_TOTALS_ASCENT_WARNINGS));
   g_assert_nonnull (find_steady (t, "No warnings now."));
   g_assert_cmpint (h_gone, ==, h_warned);
+  /* None now: the quiet face and a dimmed text, without a change of style
+   * (which would restyle the window in the next frame): the same classes
+   * on every widget of the row. */
+  g_assert_cmpuint (sw_tone_frame_get_face (frame), ==, 0);
+  g_assert_cmpfloat (gtk_widget_get_opacity (GTK_WIDGET (text)), <, 1.0);
+  collect_classes (GTK_WIDGET (frame), classes_gone);
+  g_assert_cmpstr (classes_gone->str, ==, classes_warned->str);
 
   sw_totals_set_ascent (SW_TOTALS (t), NULL, warning);
   widget_render_settle ();
@@ -348,6 +405,8 @@ test_warning_row_kept (void)
   h_forgotten = settle_height (t, h_warned);
   g_assert_cmpint (h_forgotten, ==, h_none);
   gtk_window_destroy (GTK_WINDOW (window));
+  gtk_style_context_remove_provider_for_display (gdk_display_get_default (),
+                                                 GTK_STYLE_PROVIDER (css));
 }
 
 /* ---- the steady text ------------------------------------------------------ */

@@ -5,12 +5,18 @@
 
 #include "sw-totals.h"
 #include "sw-steady-text.h"
+#include "sw-tone-frame.h"
 #include "sw-widget-text.h"
 
 #include "sw-format.h"
 
 #include <glib/gi18n.h>
 #include <math.h>
+
+/* The warnings' row: its frame's faces (sw-totals.ui) and the quiet text's
+ * opacity, the theme's dim text (common practice: 0.55). */
+enum { FACE_QUIET, FACE_WARN };
+#define QUIET_OPACITY 0.55
 
 struct _SwTotals {
   GtkWidget  parent_instance;
@@ -310,20 +316,15 @@ update_warning_row (SwTotals *self)
   else
     shown = _("No warnings now.");
   set_row (self->ascent_warning_box, self->ascent_warning_label, shown);
-  /* Hidden but keeping its place: the text stays where the warnings were. */
+  /* Hidden but keeping its place: the text stays where the warnings were.
+   * Icon, text and frame change without a change of style (opacity, the
+   * frame's face): a repaint, not a restyle of the window in the next
+   * frame. */
   gtk_widget_set_opacity (self->ascent_warning_icon, self->warnings != NULL ? 1.0 : 0.0);
-  if (self->warnings != NULL)
-    {
-      gtk_widget_remove_css_class (self->ascent_warning_box, "sw-status-none");
-      gtk_widget_remove_css_class (GTK_WIDGET (self->ascent_warning_label), "dim-label");
-      gtk_widget_add_css_class (self->ascent_warning_box, "sw-status-warn");
-    }
-  else
-    {
-      gtk_widget_remove_css_class (self->ascent_warning_box, "sw-status-warn");
-      gtk_widget_add_css_class (self->ascent_warning_box, "sw-status-none");
-      gtk_widget_add_css_class (GTK_WIDGET (self->ascent_warning_label), "dim-label");
-    }
+  gtk_widget_set_opacity (GTK_WIDGET (self->ascent_warning_label),
+                          self->warnings != NULL ? 1.0 : QUIET_OPACITY);
+  sw_tone_frame_set_face (SW_TONE_FRAME (self->ascent_warning_box),
+                          self->warnings != NULL ? FACE_WARN : FACE_QUIET);
 }
 
 void
@@ -411,6 +412,7 @@ sw_totals_class_init (SwTotalsClass *klass)
   object_class->dispose = sw_totals_dispose;
 
   g_type_ensure (SW_TYPE_STEADY_TEXT);
+  g_type_ensure (SW_TYPE_TONE_FRAME);
   gtk_widget_class_set_template_from_resource (widget_class,
                                                "/org/stagewright/Stagewright/sw-totals.ui");
   gtk_widget_class_set_layout_manager_type (widget_class, GTK_TYPE_BIN_LAYOUT);
