@@ -74,6 +74,21 @@ xid_of (SwWindow *w)
   return g_strdup_printf ("%lu", (unsigned long) gdk_x11_surface_get_xid (surface));
 }
 
+/* Moves the pointer to (@x, @y) of the window @xid and waits until it is
+ * there.  xdotool's --sync waits for the pointer to move, forever when it
+ * is at the spot already (a field that a change of layout put under the
+ * pointer): it is first put a pixel beside it, without waiting. */
+static void
+pointer_to (const char *xid, int x, int y)
+{
+  g_autofree char *x1 = g_strdup_printf ("%d", x + 1);
+  g_autofree char *px = g_strdup_printf ("%d", x);
+  g_autofree char *py = g_strdup_printf ("%d", y);
+
+  xdo ("mousemove", "--window", xid, x1, py, NULL);
+  xdo ("mousemove", "--window", xid, "--sync", px, py, NULL);
+}
+
 static gboolean
 is_active (gpointer data)
 {
@@ -104,13 +119,10 @@ point_at (SwWindow *w, GtkWidget *widget)
                                              gtk_widget_get_height (widget) / 2.0);
   graphene_point_t out;
   double sx, sy;
-  g_autofree char *x = NULL, *y = NULL;
 
   g_assert_true (gtk_widget_compute_point (widget, GTK_WIDGET (w), &in, &out));
   gtk_native_get_surface_transform (GTK_NATIVE (w), &sx, &sy);
-  x = g_strdup_printf ("%d", (int) (out.x + sx));
-  y = g_strdup_printf ("%d", (int) (out.y + sy));
-  xdo ("mousemove", "--window", xid, "--sync", x, y, NULL);
+  pointer_to (xid, (int) (out.x + sx), (int) (out.y + sy));
 }
 
 /* Replaces the text of the focused field by typing, as a user does. */
@@ -848,13 +860,10 @@ point_at_xy (SwWindow *w, GtkWidget *widget, double x, double y)
   g_autofree char *xid = xid_of (w);
   graphene_point_t in = GRAPHENE_POINT_INIT (x, y), out;
   double sx, sy;
-  g_autofree char *px = NULL, *py = NULL;
 
   g_assert_true (gtk_widget_compute_point (widget, GTK_WIDGET (w), &in, &out));
   gtk_native_get_surface_transform (GTK_NATIVE (w), &sx, &sy);
-  px = g_strdup_printf ("%d", (int) (out.x + sx));
-  py = g_strdup_printf ("%d", (int) (out.y + sy));
-  xdo ("mousemove", "--window", xid, "--sync", px, py, NULL);
+  pointer_to (xid, (int) (out.x + sx), (int) (out.y + sy));
 }
 
 /* A click on "To scale" switches the stack view and the setting; a click

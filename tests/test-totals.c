@@ -227,14 +227,16 @@ find_steady (GtkWidget *w, const char *text)
   return NULL;
 }
 
+/* The frame whose first face is of class @face0. */
 static SwToneFrame *
-find_tone_frame (GtkWidget *w)
+find_tone_frame (GtkWidget *w, const char *face0)
 {
-  if (SW_IS_TONE_FRAME (w))
+  if (SW_IS_TONE_FRAME (w)
+      && gtk_widget_has_css_class (sw_tone_frame_get_face_widget (SW_TONE_FRAME (w), 0), face0))
     return SW_TONE_FRAME (w);
   for (GtkWidget *c = gtk_widget_get_first_child (w); c != NULL; c = gtk_widget_get_next_sibling (c))
     {
-      SwToneFrame *found = find_tone_frame (c);
+      SwToneFrame *found = find_tone_frame (c, face0);
       if (found != NULL)
         return found;
     }
@@ -360,7 +362,7 @@ test_warning_row_kept (void)
   g_assert_cmpint (h_warned, >, h_none);
   /* Warned: the warning face (a dashed frame in the warning colour), the
    * icon and the text in full. */
-  frame = find_tone_frame (t);
+  frame = find_tone_frame (t, "sw-status-none");
   g_assert_nonnull (frame);
   g_assert_true (gtk_widget_is_drawable (GTK_WIDGET (frame)));
   g_assert_cmpuint (sw_tone_frame_get_face (frame), ==, 1);
@@ -404,6 +406,60 @@ test_warning_row_kept (void)
   sw_totals_forget_design (SW_TOTALS (t));
   h_forgotten = settle_height (t, h_warned);
   g_assert_cmpint (h_forgotten, ==, h_none);
+  gtk_window_destroy (GTK_WINDOW (window));
+  gtk_style_context_remove_provider_for_display (gdk_display_get_default (),
+                                                 GTK_STYLE_PROVIDER (css));
+}
+
+/* A long verdict (a vehicle that cannot lift off: four lines at this
+ * width) and then a short one (two lines): the verdict keeps the height of
+ * the longer, so the plots under the totals stay where they are. */
+static void
+test_verdict_keeps_height (void)
+{
+  g_autoptr (SwDesign) d = demo ("medium-cargo.stagewright");
+  g_autoptr (SwAnalysis) heavy = NULL, light = NULL, pending = NULL;
+  GtkWidget *t = sw_totals_new ();
+  GtkWidget *box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 0);
+  GtkWidget *window;
+  SwSteadyText *label;
+  int lines_heavy, lines_light, h_heavy, h_light;
+  g_autoptr (GtkCssProvider) css = gtk_css_provider_new ();
+
+  /* The application's style: the verdict is bold when short of the orbit
+   * and not while the ascent is checked, a change of style at every edit. */
+  gtk_css_provider_load_from_resource (css, "/org/stagewright/Stagewright/style.css");
+  gtk_style_context_add_provider_for_display (gdk_display_get_default (), GTK_STYLE_PROVIDER (css),
+                                              GTK_STYLE_PROVIDER_PRIORITY_APPLICATION);
+  light = analyse (d, TRUE);
+  d->payload_kg = 14000.0;
+  heavy = analyse (d, TRUE);
+  d->payload_kg = 8000.0;
+  gtk_widget_set_valign (t, GTK_ALIGN_START);
+  gtk_box_append (GTK_BOX (box), t);
+  sw_totals_set_result (SW_TOTALS (t), heavy);
+  window = widget_render_show (box, 620, 500);
+  widget_render_settle ();
+  label = find_steady (t, sw_totals_get_text (SW_TOTALS (t), SW_TOTALS_STATUS));
+  g_assert_nonnull (label);
+  lines_heavy = sw_steady_text_get_line_count (label);
+  h_heavy = gtk_widget_get_height (GTK_WIDGET (label));
+
+  /* As the window shows an edit: first the sizing with its ascent still
+   * to fly (not bold), then the ascent (bold). */
+  pending = first_phase (d, 2, TRUE);
+  sw_totals_set_result (SW_TOTALS (t), pending);
+  widget_render_settle ();
+  g_assert_cmpint (gtk_widget_get_height (GTK_WIDGET (label)), ==, h_heavy);
+  sw_totals_set_result (SW_TOTALS (t), light);
+  widget_render_settle ();
+  g_assert_true (label == find_steady (t, sw_totals_get_text (SW_TOTALS (t), SW_TOTALS_STATUS)));
+  lines_light = sw_steady_text_get_line_count (label);
+  h_light = gtk_widget_get_height (GTK_WIDGET (label));
+  g_test_message ("cannot lift off: %d lines %d px; short of the orbit: %d lines, %d px",
+                  lines_heavy, h_heavy, lines_light, h_light);
+  g_assert_cmpint (lines_light, <, lines_heavy);
+  g_assert_cmpint (h_light, ==, h_heavy);
   gtk_window_destroy (GTK_WINDOW (window));
   gtk_style_context_remove_provider_for_display (gdk_display_get_default (),
                                                  GTK_STYLE_PROVIDER (css));
@@ -617,6 +673,7 @@ main (int argc, char **argv)
   g_test_add_func ("/totals/format-delta", test_format_delta);
   g_test_add_func ("/totals/steady-height", test_steady_height);
   g_test_add_func ("/totals/warning-row-kept", test_warning_row_kept);
+  g_test_add_func ("/totals/verdict-keeps-height", test_verdict_keeps_height);
   g_test_add_func ("/totals/limit-line-whole", test_limit_line_whole);
   g_test_add_func ("/totals/steady-text", test_steady_text);
   status = g_test_run ();

@@ -1448,7 +1448,7 @@ build_sections (SwInspector *self)
 {
   GtkWidget *box = self->content_box;
   GtkGrid *grid;
-  GtkWidget *frame, *label, *button, *intro_text;
+  GtkWidget *frame, *label, *button, *intro_text, *scroller;
   GtkEventController *controller;
   int row;
 
@@ -1477,7 +1477,6 @@ build_sections (SwInspector *self)
   gtk_text_view_set_right_margin (self->notes_view, 6);
   gtk_text_view_set_top_margin (self->notes_view, 4);
   gtk_text_view_set_bottom_margin (self->notes_view, 4);
-  gtk_widget_set_size_request (GTK_WIDGET (self->notes_view), -1, 64);
   sw_widget_set_tooltip (GTK_WIDGET (self->notes_view),
                                _("What the design is and where its numbers come from; saved in "
                                  "the file"));
@@ -1486,8 +1485,18 @@ build_sections (SwInspector *self)
   controller = gtk_event_controller_focus_new ();
   g_signal_connect (controller, "leave", G_CALLBACK (notes_leave_cb), self);
   gtk_widget_add_controller (GTK_WIDGET (self->notes_view), controller);
+  /* A fixed height (about five lines, in the font's size: style.css) that
+   * scrolls: the text view learns its full height only after it has laid
+   * out every line, and grew to it at the next layout of the inspector
+   * (choosing a stage, say), moving every field under the pointer. */
+  scroller = gtk_scrolled_window_new ();
+  gtk_scrolled_window_set_policy (GTK_SCROLLED_WINDOW (scroller), GTK_POLICY_NEVER,
+                                  GTK_POLICY_AUTOMATIC);
+  gtk_scrolled_window_set_propagate_natural_height (GTK_SCROLLED_WINDOW (scroller), FALSE);
+  gtk_widget_add_css_class (scroller, "sw-notes");
+  gtk_scrolled_window_set_child (GTK_SCROLLED_WINDOW (scroller), GTK_WIDGET (self->notes_view));
   frame = gtk_frame_new (NULL);
-  gtk_frame_set_child (GTK_FRAME (frame), GTK_WIDGET (self->notes_view));
+  gtk_frame_set_child (GTK_FRAME (frame), scroller);
   gtk_box_insert_child_after (GTK_BOX (box), frame, label);
   self->notes_message = GTK_LABEL (gtk_label_new (NULL));
   gtk_label_set_wrap (self->notes_message, TRUE);

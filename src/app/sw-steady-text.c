@@ -10,12 +10,20 @@
 /* Its width, in average characters: what it needs at least, and asks for. */
 #define MIN_CHARS 12
 #define NAT_CHARS 40
+/* Lines this close in height count as the same size (regular and bold). */
+#define SAME_LINE_PX 2
+/* Widths this close count as the same: the verdict's frame is a pixel
+ * wider on each side when the vehicle falls short, and its text a little
+ * narrower.  The height kept is a floor: a narrower text that needs more
+ * lines still gets them. */
+#define SAME_WIDTH_PX 8
 
 struct _SwSteadyText {
   GtkWidget    parent_instance;
   char        *text;
   PangoLayout *layout;      /* wrapped at the width last measured or given */
   int          min_lines;
+  gboolean     bold;        /* in bold type, without a change of style */
   int          line_px;     /* one line of the font, 0 until measured */
   int          char_px;     /* an average character, 0 until measured */
   /* The tallest it has been at this width since it was told to forget. */
@@ -31,6 +39,21 @@ G_DEFINE_FINAL_TYPE (SwSteadyText, sw_steady_text, GTK_TYPE_WIDGET)
 enum { PROP_0, PROP_TEXT, PROP_MIN_LINES, N_PROPS };
 static GParamSpec *props[N_PROPS];
 
+static void
+apply_bold (SwSteadyText *self)
+{
+  PangoAttrList *attrs = NULL;
+
+  if (self->bold)
+    {
+      attrs = pango_attr_list_new ();
+      pango_attr_list_insert (attrs, pango_attr_weight_new (PANGO_WEIGHT_BOLD));
+    }
+  pango_layout_set_attributes (self->layout, attrs);
+  if (attrs != NULL)
+    pango_attr_list_unref (attrs);
+}
+
 static PangoLayout *
 ensure_layout (SwSteadyText *self)
 {
@@ -38,6 +61,7 @@ ensure_layout (SwSteadyText *self)
     {
       self->layout = gtk_widget_create_pango_layout (GTK_WIDGET (self), self->text);
       pango_layout_set_wrap (self->layout, PANGO_WRAP_WORD_CHAR);
+      apply_bold (self);
     }
   return self->layout;
 }
@@ -99,7 +123,7 @@ sw_steady_text_measure (GtkWidget *widget, GtkOrientation orientation, int for_s
       int width = for_size >= 0 ? for_size : NAT_CHARS * self->char_px;
       int height = text_height (self, width);
 
-      if (for_size >= 0 && for_size == self->kept_width)
+      if (for_size >= 0 && ABS (for_size - self->kept_width) <= SAME_WIDTH_PX)
         height = MAX (height, self->kept_height);
       *minimum = *natural = height;
     }
@@ -121,11 +145,9 @@ sw_steady_text_size_allocate (GtkWidget *widget, int width, int height, int base
   SwSteadyText *self = SW_STEADY_TEXT (widget);
   int needed = text_height (self, width);
 
-  if (width != self->kept_width)
-    {
-      self->kept_width = width;
-      self->kept_height = 0;
-    }
+  if (ABS (width - self->kept_width) > SAME_WIDTH_PX)
+    self->kept_height = 0;
+  self->kept_width = width;
   self->kept_height = MAX (self->kept_height, MIN (needed, height));
   /* A size GTK measured for an earlier text and kept (at a width not
    * tried since): measured again, once for each text, so that a parent
@@ -153,13 +175,21 @@ sw_steady_text_snapshot (GtkWidget *widget, GtkSnapshot *snapshot)
   G_GNUC_END_IGNORE_DEPRECATIONS
 }
 
-/* A font, a text scale or a direction: measured and laid out afresh. */
+/* A font, a text scale or a direction: measured and laid out afresh.  The
+ * height kept stays while a line is about as high as before (the verdict
+ * turns bold and back at every edit that is short of the orbit: lines a
+ * pixel apart at most, a little wider); a line of another size starts it
+ * anew. */
 static void
 style_changed (SwSteadyText *self)
 {
+  int old_line_px = self->line_px;
+
   g_clear_object (&self->layout);
   self->line_px = self->char_px = 0;
-  self->kept_width = self->kept_height = 0;
+  ensure_metrics (self);
+  if (ABS (self->line_px - old_line_px) > SAME_LINE_PX)
+    self->kept_width = self->kept_height = 0;
   gtk_widget_queue_resize (GTK_WIDGET (self));
 }
 
@@ -265,6 +295,36 @@ sw_steady_text_set_min_lines (SwSteadyText *self, int lines)
   self->min_lines = lines;
   gtk_widget_queue_resize (GTK_WIDGET (self));
   g_object_notify_by_pspec (G_OBJECT (self), props[PROP_MIN_LINES]);
+}
+
+void
+sw_steady_text_set_bold (SwSteadyText *self, gboolean bold)
+{
+  GtkWidget *widget;
+  int width;
+
+  g_return_if_fail (SW_IS_STEADY_TEXT (self));
+
+  bold = !!bold;
+  if (self->bold == bold)
+    return;
+  self->bold = bold;
+  if (self->layout != NULL)
+    apply_bold (self);
+  /* As a new text: drawn again when it fits the height kept. */
+  widget = GTK_WIDGET (self);
+  width = gtk_widget_get_width (widget);
+  if (width > 0 && width == self->kept_width && text_height (self, width) <= self->kept_height)
+    gtk_widget_queue_draw (widget);
+  else
+    gtk_widget_queue_resize (widget);
+}
+
+gboolean
+sw_steady_text_get_bold (SwSteadyText *self)
+{
+  g_return_val_if_fail (SW_IS_STEADY_TEXT (self), FALSE);
+  return self->bold;
 }
 
 void

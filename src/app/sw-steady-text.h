@@ -22,6 +22,10 @@ void        sw_steady_text_set_text (SwSteadyText *self, const char *text);
 const char *sw_steady_text_get_text (SwSteadyText *self);
 /* At least this many lines high (1 by default). */
 void        sw_steady_text_set_min_lines (SwSteadyText *self, int lines);
+/* In bold type (the verdict of a vehicle that falls short), set without a
+ * change of style. */
+void        sw_steady_text_set_bold (SwSteadyText *self, gboolean bold);
+gboolean    sw_steady_text_get_bold (SwSteadyText *self);
 /* Gives back the height kept for longer texts shown before. */
 void        sw_steady_text_forget_height (SwSteadyText *self);
 /* For tests: the lines the text takes at its width. */

@@ -16,6 +16,8 @@
 /* The warnings' row: its frame's faces (sw-totals.ui) and the quiet text's
  * opacity, the theme's dim text (common practice: 0.55). */
 enum { FACE_QUIET, FACE_WARN };
+/* The verdict's states: its frame's faces and icons (sw-totals.ui). */
+enum { SW_STATUS_OK, SW_STATUS_NOTE, SW_STATUS_WARN, SW_STATUS_BAD, SW_N_STATUS };
 #define QUIET_OPACITY 0.55
 
 struct _SwTotals {
@@ -28,7 +30,7 @@ struct _SwTotals {
   GtkInscription *required_label;
   SwSteadyText *limit_label;
   GtkWidget *status_box;
-  GtkImage  *status_icon;
+  GtkWidget *status_icons[SW_N_STATUS];
   SwSteadyText *status_label;
   const char *status_page;     /* "ok", "note", "warn" or "bad" */
   GtkWidget *ascent_note_box;
@@ -48,16 +50,17 @@ struct _SwTotals {
 
 G_DEFINE_FINAL_TYPE (SwTotals, sw_totals, GTK_TYPE_WIDGET)
 
-/* The state's icon and style ("ok", "note", "warn", "bad"), and the text. */
+/* The verdict's states, in the order of its frame's faces and icons
+ * (sw-totals.ui). */
+static const char *const status_pages[SW_N_STATUS] = { "ok", "note", "warn", "bad" };
+
+/* The state's icon, frame and weight ("ok", "note", "warn", "bad"), and the
+ * text.  None of them changes the verdict's style or size: a new verdict
+ * is a repaint. */
 static void
 set_status (SwTotals *self, const char *page, const char *text)
 {
-  static const struct { const char *page, *icon; } icons[] = {
-    { "ok", "object-select-symbolic" },
-    { "note", "dialog-information-symbolic" },
-    { "warn", "dialog-warning-symbolic" },
-    { "bad", "dialog-error-symbolic" },
-  };
+  guint index = SW_STATUS_NOTE;
 
   /* Two lines high even when the verdict takes one ("pending" before the
    * ascent, "short of the orbit" after it), and never lower than it has
@@ -67,18 +70,15 @@ set_status (SwTotals *self, const char *page, const char *text)
   sw_steady_text_set_text (self->status_label, text);
   if (g_strcmp0 (self->status_page, page) == 0)
     return;
-  for (guint i = 0; i < G_N_ELEMENTS (icons); i++)
-    {
-      g_autofree char *css = g_strconcat ("sw-status-", icons[i].page, NULL);
-      if (g_str_equal (icons[i].page, page))
-        {
-          self->status_page = icons[i].page;
-          gtk_image_set_from_icon_name (self->status_icon, icons[i].icon);
-          gtk_widget_add_css_class (self->status_box, css);
-        }
-      else
-        gtk_widget_remove_css_class (self->status_box, css);
-    }
+  for (guint i = 0; i < SW_N_STATUS; i++)
+    if (g_str_equal (status_pages[i], page))
+      index = i;
+  self->status_page = status_pages[index];
+  sw_tone_frame_set_face (SW_TONE_FRAME (self->status_box), index);
+  for (guint i = 0; i < SW_N_STATUS; i++)
+    gtk_widget_set_opacity (self->status_icons[i], i == index ? 1.0 : 0.0);
+  /* Not feasible: bold as well as the hatched frame. */
+  sw_steady_text_set_bold (self->status_label, index == SW_STATUS_BAD);
 }
 
 char *
@@ -424,7 +424,14 @@ sw_totals_class_init (SwTotalsClass *klass)
   gtk_widget_class_bind_template_child (widget_class, SwTotals, required_label);
   gtk_widget_class_bind_template_child (widget_class, SwTotals, limit_label);
   gtk_widget_class_bind_template_child (widget_class, SwTotals, status_box);
-  gtk_widget_class_bind_template_child (widget_class, SwTotals, status_icon);
+  gtk_widget_class_bind_template_child_full (widget_class, "status_icon_ok", FALSE,
+                                            G_STRUCT_OFFSET (SwTotals, status_icons[SW_STATUS_OK]));
+  gtk_widget_class_bind_template_child_full (widget_class, "status_icon_note", FALSE,
+                                            G_STRUCT_OFFSET (SwTotals, status_icons[SW_STATUS_NOTE]));
+  gtk_widget_class_bind_template_child_full (widget_class, "status_icon_warn", FALSE,
+                                            G_STRUCT_OFFSET (SwTotals, status_icons[SW_STATUS_WARN]));
+  gtk_widget_class_bind_template_child_full (widget_class, "status_icon_bad", FALSE,
+                                            G_STRUCT_OFFSET (SwTotals, status_icons[SW_STATUS_BAD]));
   gtk_widget_class_bind_template_child (widget_class, SwTotals, status_label);
   gtk_widget_class_bind_template_child (widget_class, SwTotals, ascent_note_box);
   gtk_widget_class_bind_template_child (widget_class, SwTotals, ascent_note_label);
