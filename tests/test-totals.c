@@ -425,6 +425,9 @@ test_verdict_keeps_height (void)
   SwSteadyText *label;
   int lines_heavy, lines_light, h_heavy, h_light;
   g_autoptr (GtkCssProvider) css = gtk_css_provider_new ();
+  g_autoptr (GString) classes_heavy = g_string_new (NULL);
+  g_autoptr (GString) classes_pending = g_string_new (NULL);
+  SwToneFrame *frame;
 
   /* The application's style: the verdict is bold when short of the orbit
    * and not while the ascent is checked, a change of style at every edit. */
@@ -444,6 +447,12 @@ test_verdict_keeps_height (void)
   g_assert_nonnull (label);
   lines_heavy = sw_steady_text_get_line_count (label);
   h_heavy = gtk_widget_get_height (GTK_WIDGET (label));
+  /* Not feasible: the hatched face, in bold. */
+  frame = find_tone_frame (t, "sw-status-ok");
+  g_assert_nonnull (frame);
+  g_assert_cmpuint (sw_tone_frame_get_face (frame), ==, 3);
+  g_assert_true (sw_steady_text_get_bold (label));
+  collect_classes (GTK_WIDGET (frame), classes_heavy);
 
   /* As the window shows an edit: first the sizing with its ascent still
    * to fly (not bold), then the ascent (bold). */
@@ -451,6 +460,13 @@ test_verdict_keeps_height (void)
   sw_totals_set_result (SW_TOTALS (t), pending);
   widget_render_settle ();
   g_assert_cmpint (gtk_widget_get_height (GTK_WIDGET (label)), ==, h_heavy);
+  /* Checking the ascent: the note's face, not bold, and no change of
+   * style (which would restyle the window in the next frame) nor of icon
+   * (a resize): the same classes on every widget of the verdict. */
+  g_assert_cmpuint (sw_tone_frame_get_face (frame), ==, 1);
+  g_assert_false (sw_steady_text_get_bold (label));
+  collect_classes (GTK_WIDGET (frame), classes_pending);
+  g_assert_cmpstr (classes_pending->str, ==, classes_heavy->str);
   sw_totals_set_result (SW_TOTALS (t), light);
   widget_render_settle ();
   g_assert_true (label == find_steady (t, sw_totals_get_text (SW_TOTALS (t), SW_TOTALS_STATUS)));
@@ -600,6 +616,62 @@ test_steady_text (void)
   gtk_window_destroy (GTK_WINDOW (window));
 }
 
+/* The tone frame: its content inset by the faces' padding and border, a
+ * change of face drawn again without a measure, a face out of range
+ * ignored, and its faces as given. */
+static void
+test_tone_frame (void)
+{
+  g_autoptr (GtkCssProvider) css = gtk_css_provider_new ();
+  TestCounter *counter = g_object_new (test_counter_get_type (), NULL);
+  SwToneFrame *frame = SW_TONE_FRAME (sw_tone_frame_new ());
+  GtkWidget *child = gtk_label_new ("Reaches the orbit.");
+  GtkWidget *box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 0);
+  GtkWidget *window;
+  cairo_surface_t *before, *after;
+  g_autofree char *faces = NULL;
+  graphene_rect_t bounds;
+  guint measured;
+
+  gtk_css_provider_load_from_resource (css, "/org/stagewright/Stagewright/style.css");
+  gtk_style_context_add_provider_for_display (gdk_display_get_default (), GTK_STYLE_PROVIDER (css),
+                                              GTK_STYLE_PROVIDER_PRIORITY_APPLICATION);
+  sw_tone_frame_set_faces (frame, "sw-status-ok  sw-status-bad");
+  sw_tone_frame_set_child (frame, child);
+  g_object_get (frame, "faces", &faces, NULL);
+  g_assert_cmpstr (faces, ==, "sw-status-ok sw-status-bad");
+  counter->child = GTK_WIDGET (frame);
+  gtk_widget_set_parent (GTK_WIDGET (frame), GTK_WIDGET (counter));
+  gtk_widget_set_valign (GTK_WIDGET (counter), GTK_ALIGN_START);
+  gtk_box_append (GTK_BOX (box), GTK_WIDGET (counter));
+  window = widget_render_show (box, 300, 200);
+  widget_render_settle ();
+
+  /* style.css: padding 6 px by 10 px, a border of 2 px at most. */
+  g_assert_true (gtk_widget_compute_bounds (child, GTK_WIDGET (frame), &bounds));
+  g_assert_cmpfloat (bounds.origin.x, >=, 10.0);
+  g_assert_cmpfloat (bounds.origin.y, >=, 6.0);
+  g_assert_cmpfloat (bounds.origin.x + bounds.size.width, <=, gtk_widget_get_width (GTK_WIDGET (frame)) - 10.0);
+
+  before = widget_render_window (window);
+  measured = counter->measured;
+  sw_tone_frame_set_face (frame, 1);
+  widget_render_settle ();
+  after = widget_render_window (window);
+  g_assert_cmpuint (sw_tone_frame_get_face (frame), ==, 1);
+  g_assert_cmpuint (counter->measured, ==, measured);
+  g_assert_true (images_differ (before, after));
+  cairo_surface_destroy (before);
+  cairo_surface_destroy (after);
+
+  sw_tone_frame_set_face (frame, 2);
+  g_assert_cmpuint (sw_tone_frame_get_face (frame), ==, 1);
+  g_assert_null (sw_tone_frame_get_face_widget (frame, 2));
+  gtk_window_destroy (GTK_WINDOW (window));
+  gtk_style_context_remove_provider_for_display (gdk_display_get_default (),
+                                                 GTK_STYLE_PROVIDER (css));
+}
+
 /* The line of the stages' limit and the headroom is whole in a narrow
  * window (seen cut at 1280 x 800: "Stages' limit …, headroom…"), down to a
  * 1,024 px window: it has two lines of room, and at its width its text,
@@ -674,6 +746,7 @@ main (int argc, char **argv)
   g_test_add_func ("/totals/steady-height", test_steady_height);
   g_test_add_func ("/totals/warning-row-kept", test_warning_row_kept);
   g_test_add_func ("/totals/verdict-keeps-height", test_verdict_keeps_height);
+  g_test_add_func ("/totals/tone-frame", test_tone_frame);
   g_test_add_func ("/totals/limit-line-whole", test_limit_line_whole);
   g_test_add_func ("/totals/steady-text", test_steady_text);
   status = g_test_run ();

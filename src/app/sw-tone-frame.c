@@ -8,6 +8,7 @@
 struct _SwToneFrame {
   GtkWidget  parent_instance;
   GPtrArray *faces;   /* GtkWidget, one per tone; children of the frame */
+  char      *face_classes;   /* as given, one space between */
   guint      face;
   GtkWidget *child;
 };
@@ -102,6 +103,7 @@ sw_tone_frame_set_faces (SwToneFrame *self, const char *faces)
   g_return_if_fail (SW_IS_TONE_FRAME (self));
 
   drop_faces (self);
+  g_clear_pointer (&self->face_classes, g_free);
   classes = g_strsplit_set (faces != NULL ? faces : "", " ", -1);
   for (guint i = 0; classes[i] != NULL; i++)
     {
@@ -121,6 +123,14 @@ sw_tone_frame_set_faces (SwToneFrame *self, const char *faces)
       else
         gtk_widget_set_parent (face, GTK_WIDGET (self));
       g_ptr_array_add (self->faces, face);
+      if (self->face_classes == NULL)
+        self->face_classes = g_strdup (classes[i]);
+      else
+        {
+          char *more = g_strconcat (self->face_classes, " ", classes[i], NULL);
+          g_free (self->face_classes);
+          self->face_classes = more;
+        }
     }
   gtk_widget_queue_resize (GTK_WIDGET (self));
   g_object_notify_by_pspec (G_OBJECT (self), props[PROP_FACES]);
@@ -206,18 +216,7 @@ sw_tone_frame_get_property (GObject *object, guint id, GValue *value, GParamSpec
   switch (id)
     {
     case PROP_FACES:
-      {
-        GString *s = g_string_new (NULL);
-        /* The classes as given: each face's own, "sw-status" left out. */
-        for (guint i = 0; i < self->faces->len; i++)
-          {
-            g_auto (GStrv) classes = gtk_widget_get_css_classes (g_ptr_array_index (self->faces, i));
-            for (guint k = 0; classes != NULL && classes[k] != NULL; k++)
-              if (!g_str_equal (classes[k], "sw-status"))
-                g_string_append_printf (s, "%s%s", s->len > 0 ? " " : "", classes[k]);
-          }
-        g_value_take_string (value, g_string_free (s, FALSE));
-      }
+      g_value_set_string (value, self->face_classes);
       break;
     case PROP_FACE:
       g_value_set_uint (value, self->face);
@@ -244,6 +243,7 @@ static void
 sw_tone_frame_finalize (GObject *object)
 {
   g_ptr_array_unref (SW_TONE_FRAME (object)->faces);
+  g_free (SW_TONE_FRAME (object)->face_classes);
   G_OBJECT_CLASS (sw_tone_frame_parent_class)->finalize (object);
 }
 
