@@ -1128,6 +1128,42 @@ test_selection_settles (void)
                                                  GTK_STYLE_PROVIDER (css));
 }
 
+/* The notes take their full height once shown, not at the first layout
+ * of the inspector after (choosing a stage moved every field under the
+ * pointer as the notes grew). */
+static void
+test_notes_steady (void)
+{
+  SwWindow *w = sw_window_new (NULL);
+  SwInspector *insp = sw_window_get_inspector (w);
+  GtkWidget *notes = sw_inspector_get_field (insp, SW_INSPECTOR_NOTES);
+  GtkWidget *payload = sw_inspector_get_field (insp, SW_INSPECTOR_PAYLOAD);
+  g_autofree char *path = demo_path ("medium-cargo.stagewright");
+  g_autoptr (GFile) file = g_file_new_for_path (path);
+  graphene_point_t at, moved;
+  int h;
+
+  /* As the application opens a file it is given: loaded, then shown. */
+  g_assert_true (sw_window_load (w, file));
+  gtk_window_present (GTK_WINDOW (w));
+  sw_test_wait_until (sw_test_result_complete, w, 120000, "the first result in full");
+  spin_ms (500);
+  h = gtk_widget_get_height (notes);
+  g_assert_true (gtk_widget_compute_point (payload, GTK_WIDGET (w), &GRAPHENE_POINT_INIT (0, 0), &at));
+  sw_inspector_set_selected (insp, 1);
+  spin_ms (300);
+  sw_inspector_set_selected (insp, 0);
+  spin_ms (300);
+  g_assert_true (gtk_widget_compute_point (payload, GTK_WIDGET (w), &GRAPHENE_POINT_INIT (0, 0), &moved));
+  g_test_message ("notes %d px, then %d px; the payload field at y %.0f, then %.0f", h,
+                  gtk_widget_get_height (notes), at.y, moved.y);
+  g_assert_cmpint (gtk_widget_get_height (notes), ==, h);
+  g_assert_cmpfloat (moved.y, ==, at.y);
+  /* Its full text: more than the four lines it showed at first. */
+  g_assert_cmpint (h, >, 100);
+  sw_test_window_close (w);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -1155,6 +1191,7 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/window/fixed-working", test_fixed_working);
   g_test_add_func ("/gui/window/stage-count-labels", test_stage_count_labels);
   g_test_add_func ("/gui/window/selection-settles", test_selection_settles);
+  g_test_add_func ("/gui/window/notes-steady", test_notes_steady);
 
   status = g_test_run ();
   sw_gui_test_env_finish (tmp_dir);

@@ -76,6 +76,8 @@ struct _SwInspector {
   /* built in code: notes, loss model, propulsion, reliability, ascent */
   GtkWidget     *intro_box;
   GtkTextView   *notes_view;
+  guint          notes_fit_id;    /* tick callback: see notes_fit_tick */
+  guint          notes_fit_frames;
   GtkLabel      *notes_message;
   GtkDropDown   *loss_model_dropdown;
   GtkWidget     *loss_model_label;
@@ -1448,7 +1450,7 @@ build_sections (SwInspector *self)
 {
   GtkWidget *box = self->content_box;
   GtkGrid *grid;
-  GtkWidget *frame, *label, *button, *intro_text, *scroller;
+  GtkWidget *frame, *label, *button, *intro_text;
   GtkEventController *controller;
   int row;
 
@@ -1477,6 +1479,7 @@ build_sections (SwInspector *self)
   gtk_text_view_set_right_margin (self->notes_view, 6);
   gtk_text_view_set_top_margin (self->notes_view, 4);
   gtk_text_view_set_bottom_margin (self->notes_view, 4);
+  gtk_widget_set_size_request (GTK_WIDGET (self->notes_view), -1, 64);
   sw_widget_set_tooltip (GTK_WIDGET (self->notes_view),
                                _("What the design is and where its numbers come from; saved in "
                                  "the file"));
@@ -1485,18 +1488,8 @@ build_sections (SwInspector *self)
   controller = gtk_event_controller_focus_new ();
   g_signal_connect (controller, "leave", G_CALLBACK (notes_leave_cb), self);
   gtk_widget_add_controller (GTK_WIDGET (self->notes_view), controller);
-  /* A fixed height (about five lines, in the font's size: style.css) that
-   * scrolls: the text view learns its full height only after it has laid
-   * out every line, and grew to it at the next layout of the inspector
-   * (choosing a stage, say), moving every field under the pointer. */
-  scroller = gtk_scrolled_window_new ();
-  gtk_scrolled_window_set_policy (GTK_SCROLLED_WINDOW (scroller), GTK_POLICY_NEVER,
-                                  GTK_POLICY_AUTOMATIC);
-  gtk_scrolled_window_set_propagate_natural_height (GTK_SCROLLED_WINDOW (scroller), FALSE);
-  gtk_widget_add_css_class (scroller, "sw-notes");
-  gtk_scrolled_window_set_child (GTK_SCROLLED_WINDOW (scroller), GTK_WIDGET (self->notes_view));
   frame = gtk_frame_new (NULL);
-  gtk_frame_set_child (GTK_FRAME (frame), scroller);
+  gtk_frame_set_child (GTK_FRAME (frame), GTK_WIDGET (self->notes_view));
   gtk_box_insert_child_after (GTK_BOX (box), frame, label);
   self->notes_message = GTK_LABEL (gtk_label_new (NULL));
   gtk_label_set_wrap (self->notes_message, TRUE);
@@ -1852,6 +1845,34 @@ update_extra_stage_fields (SwInspector *self, const SwDesign *d, guint i, gboole
     }
 }
 
+/* A text view learns its full height only once it has laid out every
+ * line, a frame or two after it is shown, and does not ask for it: the
+ * notes grew at the next layout of the inspector (choosing a stage, say),
+ * moving every field under the pointer.  A few frames after new notes,
+ * they are measured again, so they take their height at once. */
+#define NOTES_FIT_FRAMES 3
+
+static gboolean
+notes_fit_tick (GtkWidget *widget, GdkFrameClock *clock, gpointer data)
+{
+  SwInspector *self = data;
+
+  if (++self->notes_fit_frames < NOTES_FIT_FRAMES)
+    return G_SOURCE_CONTINUE;
+  self->notes_fit_id = 0;
+  gtk_widget_queue_resize (widget);
+  return G_SOURCE_REMOVE;
+}
+
+static void
+notes_fit_later (SwInspector *self)
+{
+  self->notes_fit_frames = 0;
+  if (self->notes_fit_id == 0)
+    self->notes_fit_id = gtk_widget_add_tick_callback (GTK_WIDGET (self->notes_view),
+                                                       notes_fit_tick, self, NULL);
+}
+
 static void
 update_design_extra (SwInspector *self, const SwDesign *d)
 {
@@ -1864,7 +1885,10 @@ update_design_extra (SwInspector *self, const SwDesign *d)
   gtk_text_buffer_get_bounds (buffer, &start, &end);
   notes = gtk_text_buffer_get_text (buffer, &start, &end, FALSE);
   if (g_strcmp0 (notes, d->notes != NULL ? d->notes : "") != 0)
-    gtk_text_buffer_set_text (buffer, d->notes != NULL ? d->notes : "", -1);
+    {
+      gtk_text_buffer_set_text (buffer, d->notes != NULL ? d->notes : "", -1);
+      notes_fit_later (self);
+    }
 
   gtk_widget_set_visible (self->loss_model_label, orbit);
   gtk_widget_set_visible (GTK_WIDGET (self->loss_model_dropdown), orbit);
@@ -2171,6 +2195,11 @@ sw_inspector_dispose (GObject *object)
 
   if (self->document != NULL)
     g_signal_handlers_disconnect_by_func (self->document, document_changed_cb, self);
+  if (self->notes_fit_id != 0)
+    {
+      gtk_widget_remove_tick_callback (GTK_WIDGET (self->notes_view), self->notes_fit_id);
+      self->notes_fit_id = 0;
+    }
   g_clear_object (&self->document);
   g_clear_pointer (&self->result, sw_analysis_unref);
   g_clear_object (&self->settings);
