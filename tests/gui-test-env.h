@@ -81,6 +81,25 @@ sw_test_flag_cb (gpointer data)
   return G_SOURCE_REMOVE;
 }
 
+/* Runs the main loop for @ms. */
+static inline void
+sw_test_spin_ms (guint ms)
+{
+  gboolean done = FALSE;
+
+  g_timeout_add (ms, sw_test_flag_cb, &done);
+  while (!done)
+    g_main_context_iteration (NULL, TRUE);
+}
+
+/* A handler that counts its calls in the guint at @n (a frame clock's
+ * "layout", say). */
+static inline void
+sw_test_count_cb (gpointer instance, guint *n)
+{
+  (*n)++;
+}
+
 /* Runs the main loop until @cond holds; fails the test after @ms. */
 static inline void
 sw_test_wait_until (gboolean (*cond) (gpointer), gpointer data, guint ms, const char *what)

@@ -611,23 +611,6 @@ test_hidden_page_waits (void)
 
 /* ---- a window at rest ---------------------------------------------------- */
 
-static void
-count_cb (GdkFrameClock *clock, guint *n)
-{
-  (*n)++;
-}
-
-/* Runs the main loop for @ms. */
-static void
-spin_ms (guint ms)
-{
-  gboolean done = FALSE;
-
-  g_timeout_add (ms, sw_test_flag_cb, &done);
-  while (!done)
-    g_main_context_iteration (NULL, TRUE);
-}
-
 /* Once the newest result is shown, a window at rest lays nothing out: each
  * layout costs the frame's CPU and, on X11, a handful of round trips to the
  * server.  (The ascent page's spinner, left spinning behind another page
@@ -648,9 +631,9 @@ test_at_rest (void)
 
       g_assert_true (sw_window_show_page (w, shown ? "ascent" : "curves"));
       /* The page change and what follows it settle first. */
-      spin_ms (500);
-      id = g_signal_connect (clock, "layout", G_CALLBACK (count_cb), &layouts);
-      spin_ms (1500);
+      sw_test_spin_ms (500);
+      id = g_signal_connect (clock, "layout", G_CALLBACK (sw_test_count_cb), &layouts);
+      sw_test_spin_ms (1500);
       g_signal_handler_disconnect (clock, id);
       g_test_message ("ascent page %s: %u layouts in 1.5 s at rest",
                       shown ? "shown" : "hidden", layouts);
@@ -676,21 +659,21 @@ test_spinner_while_shown (void)
   gtk_window_set_child (GTK_WINDOW (window), stack);
   gtk_stack_set_visible_child (GTK_STACK (stack), other);
   gtk_window_present (GTK_WINDOW (window));
-  spin_ms (200);
+  sw_test_spin_ms (200);
 
   sw_spinner_set_busy (sp, TRUE);
   g_assert_false (gtk_widget_get_mapped (spinner));
   g_assert_false (gtk_spinner_get_spinning (sp));
   gtk_stack_set_visible_child (GTK_STACK (stack), spinner);
-  spin_ms (100);
+  sw_test_spin_ms (100);
   g_assert_true (gtk_widget_get_mapped (spinner));
   g_assert_true (gtk_spinner_get_spinning (sp));
   gtk_stack_set_visible_child (GTK_STACK (stack), other);
-  spin_ms (100);
+  sw_test_spin_ms (100);
   g_assert_false (gtk_spinner_get_spinning (sp));
   sw_spinner_set_busy (sp, FALSE);
   gtk_stack_set_visible_child (GTK_STACK (stack), spinner);
-  spin_ms (100);
+  sw_test_spin_ms (100);
   g_assert_false (gtk_spinner_get_spinning (sp));
   gtk_window_destroy (GTK_WINDOW (window));
 }

@@ -1070,22 +1070,6 @@ test_stage_count_labels (void)
   g_object_unref (plot);
 }
 
-static void
-count_cb (GdkFrameClock *clock, guint *n)
-{
-  (*n)++;
-}
-
-static void
-spin_ms (guint ms)
-{
-  gboolean done = FALSE;
-
-  g_timeout_add (ms, sw_test_flag_cb, &done);
-  while (!done)
-    g_main_context_iteration (NULL, TRUE);
-}
-
 /* Choosing another stage in the stage list settles in a frame or two: no
  * style fades on (a row's outline fades for 200 ms in the default theme),
  * which would restyle the window and ask for its size at every frame, and
@@ -1107,7 +1091,7 @@ test_selection_settles (void)
   insp = sw_window_get_inspector (w);
   load_demo (w, "medium-cargo.stagewright");
   sw_test_wait_until (sw_test_result_complete, w, 120000, "the first result in full");
-  spin_ms (300);
+  sw_test_spin_ms (300);
   for (int k = 0; k < 4; k++)
     {
       guint layouts = 0;
@@ -1115,9 +1099,9 @@ test_selection_settles (void)
 
       sw_inspector_set_selected (insp, (k + 1) % 2);
       /* The frame that shows the selection. */
-      spin_ms (40);
-      id = g_signal_connect (clock, "layout", G_CALLBACK (count_cb), &layouts);
-      spin_ms (400);
+      sw_test_spin_ms (40);
+      id = g_signal_connect (clock, "layout", G_CALLBACK (sw_test_count_cb), &layouts);
+      sw_test_spin_ms (400);
       g_signal_handler_disconnect (clock, id);
       g_test_message ("stage %d selected: %u layouts in the 400 ms after its frame",
                       (k + 1) % 2 + 1, layouts);
@@ -1147,13 +1131,13 @@ test_notes_steady (void)
   g_assert_true (sw_window_load (w, file));
   gtk_window_present (GTK_WINDOW (w));
   sw_test_wait_until (sw_test_result_complete, w, 120000, "the first result in full");
-  spin_ms (500);
+  sw_test_spin_ms (500);
   h = gtk_widget_get_height (notes);
   g_assert_true (gtk_widget_compute_point (payload, GTK_WIDGET (w), &GRAPHENE_POINT_INIT (0, 0), &at));
   sw_inspector_set_selected (insp, 1);
-  spin_ms (300);
+  sw_test_spin_ms (300);
   sw_inspector_set_selected (insp, 0);
-  spin_ms (300);
+  sw_test_spin_ms (300);
   g_assert_true (gtk_widget_compute_point (payload, GTK_WIDGET (w), &GRAPHENE_POINT_INIT (0, 0), &moved));
   g_test_message ("notes %d px, then %d px; the payload field at y %.0f, then %.0f", h,
                   gtk_widget_get_height (notes), at.y, moved.y);
