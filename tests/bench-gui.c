@@ -267,11 +267,7 @@ main (int argc, char **argv)
   g_setenv ("XDG_DATA_HOME", tmp, TRUE);
   g_setenv ("GSETTINGS_BACKEND", "memory", TRUE);
   gtk_init ();
-  css = gtk_css_provider_new ();
-  gtk_css_provider_load_from_resource (css, "/org/stagewright/Stagewright/style.css");
-  gtk_style_context_add_provider_for_display (gdk_display_get_default (),
-                                              GTK_STYLE_PROVIDER (css),
-                                              GTK_STYLE_PROVIDER_PRIORITY_APPLICATION);
+  css = sw_application_add_style (gdk_display_get_default ());
 
   the_drawn = &drawn;
   {

@@ -40,6 +40,7 @@ sw_test_remove_tree (const char *path)
 
 #include <gtk/gtk.h>
 
+#include "sw-application.h"
 #include "sw-window-private.h"
 
 /* Makes a temporary folder from @tmpl (g_dir_make_tmp), points the XDG
@@ -98,6 +99,23 @@ static inline void
 sw_test_count_cb (gpointer instance, guint *n)
 {
   (*n)++;
+}
+
+/* The application's style rules for one test (the faces' frames, the
+ * rows that do not fade): added, and taken away again with
+ * sw_test_remove_app_style. */
+static inline GtkCssProvider *
+sw_test_add_app_style (void)
+{
+  return sw_application_add_style (gdk_display_get_default ());
+}
+
+static inline void
+sw_test_remove_app_style (GtkCssProvider *css)
+{
+  gtk_style_context_remove_provider_for_display (gdk_display_get_default (),
+                                                 GTK_STYLE_PROVIDER (css));
+  g_object_unref (css);
 }
 
 /* Runs the main loop until @cond holds; fails the test after @ms. */

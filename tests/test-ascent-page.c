@@ -742,13 +742,7 @@ main (int argc, char **argv)
   int status;
 
   tmp_dir = sw_gui_test_env_init (&argc, &argv, "stagewright-ascent-gui-XXXXXX");
-  {
-    g_autoptr (GtkCssProvider) css = gtk_css_provider_new ();
-    gtk_css_provider_load_from_resource (css, "/org/stagewright/Stagewright/style.css");
-    gtk_style_context_add_provider_for_display (gdk_display_get_default (),
-                                                GTK_STYLE_PROVIDER (css),
-                                                GTK_STYLE_PROVIDER_PRIORITY_APPLICATION);
-  }
+  g_object_unref (sw_test_add_app_style ());
 
   g_test_add_func ("/gui/ascent/not-blocking", test_not_blocking);
   g_test_add_func ("/gui/ascent/newer-edit-cancels", test_newer_edit_cancels);

@@ -110,19 +110,27 @@ focus_field (SwWindow *w, GtkWidget *field)
   g_assert_true (focus == field || gtk_widget_is_ancestor (focus, field));
 }
 
-/* Moves the pointer to the middle of @widget. */
+/* Points at (@x, @y) of @widget's own coordinates, in the surface that
+ * shows it (the window's, or a popover's own). */
 static void
-point_at (SwWindow *w, GtkWidget *widget)
+point_at_xy (GtkWidget *widget, double x, double y)
 {
-  g_autofree char *xid = xid_of (w);
-  graphene_point_t in = GRAPHENE_POINT_INIT (gtk_widget_get_width (widget) / 2.0,
-                                             gtk_widget_get_height (widget) / 2.0);
-  graphene_point_t out;
+  GtkNative *native = gtk_widget_get_native (widget);
+  GdkSurface *surface = gtk_native_get_surface (native);
+  g_autofree char *xid = g_strdup_printf ("%lu", (unsigned long) gdk_x11_surface_get_xid (surface));
+  graphene_point_t in = GRAPHENE_POINT_INIT (x, y), out;
   double sx, sy;
 
-  g_assert_true (gtk_widget_compute_point (widget, GTK_WIDGET (w), &in, &out));
-  gtk_native_get_surface_transform (GTK_NATIVE (w), &sx, &sy);
+  g_assert_true (gtk_widget_compute_point (widget, GTK_WIDGET (native), &in, &out));
+  gtk_native_get_surface_transform (native, &sx, &sy);
   pointer_to (xid, (int) (out.x + sx), (int) (out.y + sy));
+}
+
+/* Moves the pointer to the middle of @widget. */
+static void
+point_at (GtkWidget *widget)
+{
+  point_at_xy (widget, gtk_widget_get_width (widget) / 2.0, gtk_widget_get_height (widget) / 2.0);
 }
 
 /* Replaces the text of the focused field by typing, as a user does. */
@@ -326,14 +334,14 @@ test_wheel (void)
 
   sw_inspector_set_selected (sw_window_get_inspector (w), 0);
   focus_field (w, GTK_WIDGET (field (w, SW_INSPECTOR_PAYLOAD)));
-  point_at (w, GTK_WIDGET (isp));
+  point_at (GTK_WIDGET (isp));
   xdo ("click", "--repeat", "3", "--delay", "30", "5", NULL);
   xdo ("click", "--repeat", "3", "--delay", "30", "4", NULL);
   assert_unchanged (w, before);
   g_assert_false (sw_document_can_undo (doc));
 
   focus_field (w, GTK_WIDGET (isp));
-  point_at (w, GTK_WIDGET (isp));
+  point_at (GTK_WIDGET (isp));
   xdo ("click", "--repeat", "3", "--delay", "30", "5", NULL);
   g_assert_cmpfloat (doc_design (w)->stages[0].isp_vac_s, ==, 335.0);
   /* Ctrl+Z with the focus in the field: one wheel step at a time. */
@@ -357,27 +365,6 @@ popover_mapped (gpointer data)
   return gtk_widget_get_mapped (GTK_WIDGET (data));
 }
 
-/* Moves the pointer to the middle of @widget in its own surface (a
- * popover has one of its own). */
-static void
-point_at_native (GtkWidget *widget)
-{
-  GtkNative *native = gtk_widget_get_native (widget);
-  GdkSurface *surface = gtk_native_get_surface (native);
-  g_autofree char *xid = g_strdup_printf ("%lu", (unsigned long) gdk_x11_surface_get_xid (surface));
-  graphene_point_t in = GRAPHENE_POINT_INIT (gtk_widget_get_width (widget) / 2.0,
-                                             gtk_widget_get_height (widget) / 2.0);
-  graphene_point_t out;
-  double sx, sy;
-  g_autofree char *x = NULL, *y = NULL;
-
-  g_assert_true (gtk_widget_compute_point (widget, GTK_WIDGET (native), &in, &out));
-  gtk_native_get_surface_transform (native, &sx, &sy);
-  x = g_strdup_printf ("%d", (int) (out.x + sx));
-  y = g_strdup_printf ("%d", (int) (out.y + sy));
-  xdo ("mousemove", "--window", xid, x, y, NULL);
-}
-
 static void
 test_wheel_trade_page (void)
 {
@@ -398,7 +385,7 @@ test_wheel_trade_page (void)
   before = sw_design_copy (doc_design (w));
   g_assert_true (gtk_widget_grab_focus (samples));
   drain ();
-  point_at_native (seed);
+  point_at (seed);
   xdo ("click", "--repeat", "3", "--delay", "30", "4", NULL);
   assert_unchanged (w, before);
   g_assert_cmpfloat (gtk_spin_button_get_value (GTK_SPIN_BUTTON (seed)), ==,
@@ -406,7 +393,7 @@ test_wheel_trade_page (void)
 
   g_assert_true (gtk_widget_grab_focus (seed));
   drain ();
-  point_at_native (seed);
+  point_at (seed);
   xdo ("click", "--delay", "30", "4", NULL);
   g_assert_cmpfloat (gtk_spin_button_get_value (GTK_SPIN_BUTTON (seed)), ==,
                      (double) before->uncertainty.seed + 1.0);
@@ -853,18 +840,6 @@ test_parse (void)
 }
 
 
-/* Point at (@x, @y) of @widget's own coordinates. */
-static void
-point_at_xy (SwWindow *w, GtkWidget *widget, double x, double y)
-{
-  g_autofree char *xid = xid_of (w);
-  graphene_point_t in = GRAPHENE_POINT_INIT (x, y), out;
-  double sx, sy;
-
-  g_assert_true (gtk_widget_compute_point (widget, GTK_WIDGET (w), &in, &out));
-  gtk_native_get_surface_transform (GTK_NATIVE (w), &sx, &sy);
-  pointer_to (xid, (int) (out.x + sx), (int) (out.y + sy));
-}
 
 /* A click on "To scale" switches the stack view and the setting; a click
  * on a stage there selects it; a drag there changes nothing (no share is
@@ -881,7 +856,7 @@ test_to_scale_clicks (void)
 
   g_assert_false (sw_stack_view_get_to_scale (SW_STACK_VIEW (view)));
   xdo ("windowfocus", "--sync", xid, NULL);
-  point_at (w, sw_window_get_scale_toggle (w));
+  point_at (sw_window_get_scale_toggle (w));
   xdo ("click", "1", NULL);
   g_assert_true (sw_stack_view_get_to_scale (SW_STACK_VIEW (view)));
   g_assert_true (g_settings_get_boolean (settings, "stack-to-scale"));
@@ -889,19 +864,19 @@ test_to_scale_clicks (void)
   maybe_shot (w, "to-scale.png");
 
   g_assert_true (sw_stack_view_get_block_rect (SW_STACK_VIEW (view), 1, &rc));
-  point_at_xy (w, view, rc.origin.x + rc.size.width / 2.0, rc.origin.y + rc.size.height / 2.0);
+  point_at_xy (view, rc.origin.x + rc.size.width / 2.0, rc.origin.y + rc.size.height / 2.0);
   xdo ("click", "1", NULL);
   g_assert_cmpint (sw_inspector_get_selected (sw_window_get_inspector (w)), ==, 1);
 
   /* Press on the joint between stages 1 and 2 and drag up: nothing moves. */
   g_assert_true (sw_stack_view_get_block_rect (SW_STACK_VIEW (view), 0, &lower));
-  point_at_xy (w, view, lower.origin.x + lower.size.width / 2.0, lower.origin.y + 1.0);
+  point_at_xy (view, lower.origin.x + lower.size.width / 2.0, lower.origin.y + 1.0);
   xdo ("mousedown", "1", NULL);
-  point_at_xy (w, view, lower.origin.x + lower.size.width / 2.0, lower.origin.y - 40.0);
+  point_at_xy (view, lower.origin.x + lower.size.width / 2.0, lower.origin.y - 40.0);
   xdo ("mouseup", "1", NULL);
   assert_unchanged (w, before);
 
-  point_at (w, sw_window_get_scale_toggle (w));
+  point_at (sw_window_get_scale_toggle (w));
   g_settings_set_boolean (settings, "stack-to-scale", FALSE);
   drain ();
   g_assert_false (sw_stack_view_get_to_scale (SW_STACK_VIEW (view)));
@@ -1020,7 +995,7 @@ wheel_over_fields (SwWindow *w, GtkWidget *root, const char *where)
           *v = number_value (fields->pdata[j]);
           g_ptr_array_add (values, v);
         }
-      point_at_native (f);
+      point_at (f);
       /* Up, checked, then down, checked: up and down together could cancel
        * out. */
       for (guint button = 4; button <= 5; button++)

@@ -212,35 +212,46 @@ test_format_delta (void)
   g_free (s);
 }
 
-/* The first steady text below @w that shows @text. */
-static SwSteadyText *
-find_steady (GtkWidget *w, const char *text)
+/* The first widget below @w (itself included) that @match accepts. */
+static GtkWidget *
+find_widget (GtkWidget *w, gboolean (*match) (GtkWidget *, const char *), const char *arg)
 {
-  if (SW_IS_STEADY_TEXT (w) && g_strcmp0 (sw_steady_text_get_text (SW_STEADY_TEXT (w)), text) == 0)
-    return SW_STEADY_TEXT (w);
+  if (match (w, arg))
+    return w;
   for (GtkWidget *c = gtk_widget_get_first_child (w); c != NULL; c = gtk_widget_get_next_sibling (c))
     {
-      SwSteadyText *found = find_steady (c, text);
+      GtkWidget *found = find_widget (c, match, arg);
       if (found != NULL)
         return found;
     }
   return NULL;
 }
 
+static gboolean
+steady_shows (GtkWidget *w, const char *text)
+{
+  return SW_IS_STEADY_TEXT (w) && g_strcmp0 (sw_steady_text_get_text (SW_STEADY_TEXT (w)), text) == 0;
+}
+
+/* The first steady text below @w that shows @text. */
+static SwSteadyText *
+find_steady (GtkWidget *w, const char *text)
+{
+  return (SwSteadyText *) find_widget (w, steady_shows, text);
+}
+
+static gboolean
+first_face_is (GtkWidget *w, const char *face0)
+{
+  return SW_IS_TONE_FRAME (w)
+         && gtk_widget_has_css_class (sw_tone_frame_get_face_widget (SW_TONE_FRAME (w), 0), face0);
+}
+
 /* The frame whose first face is of class @face0. */
 static SwToneFrame *
 find_tone_frame (GtkWidget *w, const char *face0)
 {
-  if (SW_IS_TONE_FRAME (w)
-      && gtk_widget_has_css_class (sw_tone_frame_get_face_widget (SW_TONE_FRAME (w), 0), face0))
-    return SW_TONE_FRAME (w);
-  for (GtkWidget *c = gtk_widget_get_first_child (w); c != NULL; c = gtk_widget_get_next_sibling (c))
-    {
-      SwToneFrame *found = find_tone_frame (c, face0);
-      if (found != NULL)
-        return found;
-    }
-  return NULL;
+  return (SwToneFrame *) find_widget (w, first_face_is, face0);
 }
 
 /* The classes of @w and its descendants, in order, as one string. */
@@ -335,7 +346,7 @@ test_warning_row_kept (void)
   GtkWidget *t = sw_totals_new ();
   GtkWidget *box = gtk_box_new (GTK_ORIENTATION_VERTICAL, 0);
   GtkWidget *window;
-  g_autoptr (GtkCssProvider) css = gtk_css_provider_new ();
+  GtkCssProvider *css;
   g_autoptr (GString) classes_warned = g_string_new (NULL);
   g_autoptr (GString) classes_gone = g_string_new (NULL);
   SwToneFrame *frame;
@@ -343,9 +354,7 @@ test_warning_row_kept (void)
   int h_none, h_warned, h_gone, h_forgotten;
 
   /* The application's style: the faces' frames are drawn as it runs. */
-  gtk_css_provider_load_from_resource (css, "/org/stagewright/Stagewright/style.css");
-  gtk_style_context_add_provider_for_display (gdk_display_get_default (), GTK_STYLE_PROVIDER (css),
-                                              GTK_STYLE_PROVIDER_PRIORITY_APPLICATION);
+  css = sw_test_add_app_style ();
   r = first_phase (d, 1, FALSE);
   pending = first_phase (d, 2, TRUE);
   g_assert_true (pending->ascent_pending);
@@ -407,8 +416,7 @@ test_warning_row_kept (void)
   h_forgotten = settle_height (t, h_warned);
   g_assert_cmpint (h_forgotten, ==, h_none);
   gtk_window_destroy (GTK_WINDOW (window));
-  gtk_style_context_remove_provider_for_display (gdk_display_get_default (),
-                                                 GTK_STYLE_PROVIDER (css));
+  sw_test_remove_app_style (css);
 }
 
 /* A long verdict (a vehicle that cannot lift off: four lines at this
@@ -424,16 +432,14 @@ test_verdict_keeps_height (void)
   GtkWidget *window;
   SwSteadyText *label;
   int lines_heavy, lines_light, h_heavy, h_light;
-  g_autoptr (GtkCssProvider) css = gtk_css_provider_new ();
+  GtkCssProvider *css;
   g_autoptr (GString) classes_heavy = g_string_new (NULL);
   g_autoptr (GString) classes_pending = g_string_new (NULL);
   SwToneFrame *frame;
 
   /* The application's style: the verdict is bold when short of the orbit
    * and not while the ascent is checked, a change of style at every edit. */
-  gtk_css_provider_load_from_resource (css, "/org/stagewright/Stagewright/style.css");
-  gtk_style_context_add_provider_for_display (gdk_display_get_default (), GTK_STYLE_PROVIDER (css),
-                                              GTK_STYLE_PROVIDER_PRIORITY_APPLICATION);
+  css = sw_test_add_app_style ();
   light = analyse (d, TRUE);
   d->payload_kg = 14000.0;
   heavy = analyse (d, TRUE);
@@ -477,8 +483,7 @@ test_verdict_keeps_height (void)
   g_assert_cmpint (lines_light, <, lines_heavy);
   g_assert_cmpint (h_light, ==, h_heavy);
   gtk_window_destroy (GTK_WINDOW (window));
-  gtk_style_context_remove_provider_for_display (gdk_display_get_default (),
-                                                 GTK_STYLE_PROVIDER (css));
+  sw_test_remove_app_style (css);
 }
 
 /* ---- the steady text ------------------------------------------------------ */
@@ -622,7 +627,7 @@ test_steady_text (void)
 static void
 test_tone_frame (void)
 {
-  g_autoptr (GtkCssProvider) css = gtk_css_provider_new ();
+  GtkCssProvider *css;
   TestCounter *counter = g_object_new (test_counter_get_type (), NULL);
   SwToneFrame *frame = SW_TONE_FRAME (sw_tone_frame_new ());
   GtkWidget *child = gtk_label_new ("Reaches the orbit.");
@@ -633,9 +638,7 @@ test_tone_frame (void)
   graphene_rect_t bounds;
   guint measured;
 
-  gtk_css_provider_load_from_resource (css, "/org/stagewright/Stagewright/style.css");
-  gtk_style_context_add_provider_for_display (gdk_display_get_default (), GTK_STYLE_PROVIDER (css),
-                                              GTK_STYLE_PROVIDER_PRIORITY_APPLICATION);
+  css = sw_test_add_app_style ();
   sw_tone_frame_set_faces (frame, "sw-status-ok  sw-status-bad");
   sw_tone_frame_set_child (frame, child);
   g_object_get (frame, "faces", &faces, NULL);
@@ -668,8 +671,7 @@ test_tone_frame (void)
   g_assert_cmpuint (sw_tone_frame_get_face (frame), ==, 1);
   g_assert_null (sw_tone_frame_get_face_widget (frame, 2));
   gtk_window_destroy (GTK_WINDOW (window));
-  gtk_style_context_remove_provider_for_display (gdk_display_get_default (),
-                                                 GTK_STYLE_PROVIDER (css));
+  sw_test_remove_app_style (css);
 }
 
 /* The line of the stages' limit and the headroom is whole in a narrow

@@ -1077,15 +1077,13 @@ test_stage_count_labels (void)
 static void
 test_selection_settles (void)
 {
-  g_autoptr (GtkCssProvider) css = gtk_css_provider_new ();
+  GtkCssProvider *css;
   SwWindow *w;
   GdkFrameClock *clock;
   SwInspector *insp;
 
   /* The application's own style rules, as it runs. */
-  gtk_css_provider_load_from_resource (css, "/org/stagewright/Stagewright/style.css");
-  gtk_style_context_add_provider_for_display (gdk_display_get_default (), GTK_STYLE_PROVIDER (css),
-                                              GTK_STYLE_PROVIDER_PRIORITY_APPLICATION);
+  css = sw_test_add_app_style ();
   w = window_new ();
   clock = gtk_widget_get_frame_clock (GTK_WIDGET (w));
   insp = sw_window_get_inspector (w);
@@ -1108,8 +1106,7 @@ test_selection_settles (void)
       g_assert_cmpuint (layouts, <=, 2);
     }
   sw_test_window_close (w);
-  gtk_style_context_remove_provider_for_display (gdk_display_get_default (),
-                                                 GTK_STYLE_PROVIDER (css));
+  sw_test_remove_app_style (css);
 }
 
 /* The notes take their full height once shown, not at the first layout

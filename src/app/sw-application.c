@@ -509,17 +509,25 @@ sw_application_handle_local_options (GApplication *app, GVariantDict *options)
   return -1;
 }
 
+GtkCssProvider *
+sw_application_add_style (GdkDisplay *display)
+{
+  GtkCssProvider *css = gtk_css_provider_new ();
+
+  g_return_val_if_fail (GDK_IS_DISPLAY (display), css);
+
+  gtk_css_provider_load_from_resource (css, "/org/stagewright/Stagewright/style.css");
+  gtk_style_context_add_provider_for_display (display, GTK_STYLE_PROVIDER (css),
+                                              GTK_STYLE_PROVIDER_PRIORITY_APPLICATION);
+  return css;
+}
+
 static void
 sw_application_startup (GApplication *app)
 {
-  g_autoptr (GtkCssProvider) css = gtk_css_provider_new ();
-
   G_APPLICATION_CLASS (sw_application_parent_class)->startup (app);
 
-  gtk_css_provider_load_from_resource (css, "/org/stagewright/Stagewright/style.css");
-  gtk_style_context_add_provider_for_display (gdk_display_get_default (),
-                                              GTK_STYLE_PROVIDER (css),
-                                              GTK_STYLE_PROVIDER_PRIORITY_APPLICATION);
+  g_object_unref (sw_application_add_style (gdk_display_get_default ()));
   gtk_window_set_default_icon_name (APP_ID);
 
   g_action_map_add_action_entries (G_ACTION_MAP (app), app_actions, G_N_ELEMENTS (app_actions),

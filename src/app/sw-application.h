@@ -22,6 +22,11 @@ GSettings     *sw_application_settings_new (void);
  * else the installed copy). */
 char          *sw_application_find_design (const char *basename);
 
+/* Adds the application's style rules (style.css) to @display, as the
+ * application does at start-up; returns them, for a caller (a test) that
+ * takes them away again with gtk_style_context_remove_provider_for_display. */
+GtkCssProvider *sw_application_add_style (GdkDisplay *display);
+
 /* Renders @widget offscreen with the cairo renderer and writes a PNG. */
 gboolean       sw_application_write_png (GtkWidget *widget, const char *filename,
                                          GError **error);

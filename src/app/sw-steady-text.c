@@ -246,19 +246,30 @@ sw_steady_text_new (void)
   return g_object_new (SW_TYPE_STEADY_TEXT, NULL);
 }
 
+/* After a new text or weight: when the height it has at this width holds
+ * it, drawn again, no layout (its measured size stays right for this
+ * width, since that is never below the height kept); else measured anew. */
+static void
+redraw_or_resize (SwSteadyText *self)
+{
+  GtkWidget *widget = GTK_WIDGET (self);
+  int width = gtk_widget_get_width (widget);
+
+  if (width > 0 && width == self->kept_width && text_height (self, width) <= self->kept_height)
+    gtk_widget_queue_draw (widget);
+  else
+    gtk_widget_queue_resize (widget);
+}
+
 void
 sw_steady_text_set_text (SwSteadyText *self, const char *text)
 {
-  GtkWidget *widget;
-  int width;
-
   g_return_if_fail (SW_IS_STEADY_TEXT (self));
 
   if (text == NULL)
     text = "";
   if (g_strcmp0 (self->text, text) == 0)
     return;
-  widget = GTK_WIDGET (self);
   g_free (self->text);
   self->text = g_strdup (text);
   self->fit_asked = FALSE;
@@ -267,14 +278,7 @@ sw_steady_text_set_text (SwSteadyText *self, const char *text)
   gtk_accessible_update_property (GTK_ACCESSIBLE (self), GTK_ACCESSIBLE_PROPERTY_LABEL, text, -1);
   g_object_notify_by_pspec (G_OBJECT (self), props[PROP_TEXT]);
 
-  /* The height it has at this width holds the new text: drawn again, no
-   * layout.  Its measured size stays right for this width, since that is
-   * never below the height kept. */
-  width = gtk_widget_get_width (widget);
-  if (width > 0 && width == self->kept_width && text_height (self, width) <= self->kept_height)
-    gtk_widget_queue_draw (widget);
-  else
-    gtk_widget_queue_resize (widget);
+  redraw_or_resize (self);
 }
 
 const char *
@@ -300,9 +304,6 @@ sw_steady_text_set_min_lines (SwSteadyText *self, int lines)
 void
 sw_steady_text_set_bold (SwSteadyText *self, gboolean bold)
 {
-  GtkWidget *widget;
-  int width;
-
   g_return_if_fail (SW_IS_STEADY_TEXT (self));
 
   bold = !!bold;
@@ -311,13 +312,7 @@ sw_steady_text_set_bold (SwSteadyText *self, gboolean bold)
   self->bold = bold;
   if (self->layout != NULL)
     apply_bold (self);
-  /* As a new text: drawn again when it fits the height kept. */
-  widget = GTK_WIDGET (self);
-  width = gtk_widget_get_width (widget);
-  if (width > 0 && width == self->kept_width && text_height (self, width) <= self->kept_height)
-    gtk_widget_queue_draw (widget);
-  else
-    gtk_widget_queue_resize (widget);
+  redraw_or_resize (self);
 }
 
 gboolean

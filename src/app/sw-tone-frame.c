@@ -99,11 +99,12 @@ void
 sw_tone_frame_set_faces (SwToneFrame *self, const char *faces)
 {
   g_auto (GStrv) classes = NULL;
+  GString *given;
 
   g_return_if_fail (SW_IS_TONE_FRAME (self));
 
   drop_faces (self);
-  g_clear_pointer (&self->face_classes, g_free);
+  given = g_string_new (NULL);
   classes = g_strsplit_set (faces != NULL ? faces : "", " ", -1);
   for (guint i = 0; classes[i] != NULL; i++)
     {
@@ -123,15 +124,10 @@ sw_tone_frame_set_faces (SwToneFrame *self, const char *faces)
       else
         gtk_widget_set_parent (face, GTK_WIDGET (self));
       g_ptr_array_add (self->faces, face);
-      if (self->face_classes == NULL)
-        self->face_classes = g_strdup (classes[i]);
-      else
-        {
-          char *more = g_strconcat (self->face_classes, " ", classes[i], NULL);
-          g_free (self->face_classes);
-          self->face_classes = more;
-        }
+      g_string_append_printf (given, "%s%s", given->len > 0 ? " " : "", classes[i]);
     }
+  g_free (self->face_classes);
+  self->face_classes = g_string_free (given, FALSE);
   gtk_widget_queue_resize (GTK_WIDGET (self));
   g_object_notify_by_pspec (G_OBJECT (self), props[PROP_FACES]);
 }

@@ -14,7 +14,8 @@
 #include <math.h>
 
 /* The warnings' row: its frame's faces (sw-totals.ui) and the quiet text's
- * opacity, the theme's dim text (common practice: 0.55). */
+ * opacity, that of the theme's dimmed text (GTK 4.8's default theme,
+ * $dim_label_opacity in gtk/theme/Default/_colors.scss: 0.55). */
 enum { FACE_QUIET, FACE_WARN };
 /* The verdict's states: its frame's faces and icons (sw-totals.ui). */
 enum { SW_STATUS_OK, SW_STATUS_NOTE, SW_STATUS_WARN, SW_STATUS_BAD, SW_N_STATUS };
@@ -53,6 +54,8 @@ G_DEFINE_FINAL_TYPE (SwTotals, sw_totals, GTK_TYPE_WIDGET)
 /* The verdict's states, in the order of its frame's faces and icons
  * (sw-totals.ui). */
 static const char *const status_pages[SW_N_STATUS] = { "ok", "note", "warn", "bad" };
+static const char *const status_icon_ids[SW_N_STATUS] = { "status_icon_ok", "status_icon_note",
+                                                          "status_icon_warn", "status_icon_bad" };
 
 /* The state's icon, frame and weight ("ok", "note", "warn", "bad"), and the
  * text.  None of them changes the verdict's style or size: a new verdict
@@ -424,14 +427,10 @@ sw_totals_class_init (SwTotalsClass *klass)
   gtk_widget_class_bind_template_child (widget_class, SwTotals, required_label);
   gtk_widget_class_bind_template_child (widget_class, SwTotals, limit_label);
   gtk_widget_class_bind_template_child (widget_class, SwTotals, status_box);
-  gtk_widget_class_bind_template_child_full (widget_class, "status_icon_ok", FALSE,
-                                            G_STRUCT_OFFSET (SwTotals, status_icons[SW_STATUS_OK]));
-  gtk_widget_class_bind_template_child_full (widget_class, "status_icon_note", FALSE,
-                                            G_STRUCT_OFFSET (SwTotals, status_icons[SW_STATUS_NOTE]));
-  gtk_widget_class_bind_template_child_full (widget_class, "status_icon_warn", FALSE,
-                                            G_STRUCT_OFFSET (SwTotals, status_icons[SW_STATUS_WARN]));
-  gtk_widget_class_bind_template_child_full (widget_class, "status_icon_bad", FALSE,
-                                            G_STRUCT_OFFSET (SwTotals, status_icons[SW_STATUS_BAD]));
+  for (guint i = 0; i < SW_N_STATUS; i++)
+    gtk_widget_class_bind_template_child_full (widget_class, status_icon_ids[i], FALSE,
+                                              G_STRUCT_OFFSET (SwTotals, status_icons)
+                                              + i * sizeof (GtkWidget *));
   gtk_widget_class_bind_template_child (widget_class, SwTotals, status_label);
   gtk_widget_class_bind_template_child (widget_class, SwTotals, ascent_note_box);
   gtk_widget_class_bind_template_child (widget_class, SwTotals, ascent_note_label);
