@@ -248,6 +248,13 @@ test_out_of_range (void)
   g_assert_cmpfloat (doc_design (w)->stages[0].isp_vac_s, ==, 338.0);
   g_assert_cmpstr (sw_number_field_get_error (isp), ==,
                    "-5 is out of range. Accepted: 50 to 1,000 s");
+  /* A huge value is quoted with a power of ten, not in the thirty-one
+   * digits of its binary value. */
+  retype ("1e30");
+  xdo ("key", "Return", NULL);
+  assert_unchanged (w, before);
+  g_assert_cmpstr (sw_number_field_get_error (isp), ==,
+                   "1e+30 is out of range. Accepted: 50 to 1,000 s");
   /* A valid value then goes in as one edit. */
   retype ("340");
   xdo ("key", "Return", NULL);

@@ -119,6 +119,9 @@ sw_number_parse (const char *text, const char *mark, const char *grouping, doubl
   return TRUE;
 }
 
+/* From here on a value is shown with a power of ten. */
+#define HUGE_SHOWN 1e15
+
 /* @value with at most @digits decimals, trailing zeros dropped, or more
  * digits when that would not show it exactly; the locale's mark. */
 static char *
@@ -131,20 +134,25 @@ format_value (double value, guint digits)
     return g_strdup ("");
   /* The C form, whatever LC_NUMERIC says; the locale's mark goes in below.
    * A value typed with a few more decimals than the field shows keeps them;
-   * a computed one (a share from the optimum) is rounded to @digits. */
-  for (guint d = digits; d <= digits + 3; d++)
-    {
-      char fmt[16];
-      g_snprintf (fmt, sizeof fmt, "%%.%uf", d);
-      g_ascii_formatd (buf, sizeof buf, fmt, value);
-      if (g_ascii_strtod (buf, NULL) == value)
-        break;
-      if (d == digits + 3)
-        {
-          g_snprintf (fmt, sizeof fmt, "%%.%uf", digits);
-          g_ascii_formatd (buf, sizeof buf, fmt, value);
-        }
-    }
+   * a computed one (a share from the optimum) is rounded to @digits.  A
+   * huge one (typed "1e30") in six figures and a power of ten, not the
+   * thirty-one digits of its binary value. */
+  if (fabs (value) >= HUGE_SHOWN)
+    g_ascii_formatd (buf, sizeof buf, "%.6g", value);
+  else
+    for (guint d = digits; d <= digits + 3; d++)
+      {
+        char fmt[16];
+        g_snprintf (fmt, sizeof fmt, "%%.%uf", d);
+        g_ascii_formatd (buf, sizeof buf, fmt, value);
+        if (g_ascii_strtod (buf, NULL) == value)
+          break;
+        if (d == digits + 3)
+          {
+            g_snprintf (fmt, sizeof fmt, "%%.%uf", digits);
+            g_ascii_formatd (buf, sizeof buf, fmt, value);
+          }
+      }
   if (strchr (buf, '.') != NULL && strchr (buf, 'e') == NULL)
     {
       char *e = buf + strlen (buf) - 1;
