@@ -19,6 +19,14 @@ G_BEGIN_DECLS
  * drawn now.  Takes @recorded. */
 GskRenderNode *sw_raster_node (GskRenderNode *recorded, const graphene_rect_t *box, int scale);
 
+/* One node with the pixels of @nodes (NULL entries skipped; nodes of
+ * sw_raster_node() are copied, others drawn) within @box, at @scale.  The
+ * renderer repaints a changed node over its whole box: one rectangle
+ * however many of @nodes changed, where apart each would be its own (see
+ * DEVELOPERS.md, "Damage in few rectangles").  Drawn now. */
+GskRenderNode *sw_raster_compose (GskRenderNode *const *nodes, guint n, const graphene_rect_t *box,
+                                  int scale);
+
 /* Calls @prepare (@widget) from an idle at the default priority, once
  * however often it is asked before it runs: after the caller has set all
  * of a result's inputs and before the frame that shows them.  @id holds the

@@ -12,6 +12,7 @@
 
 #include <glib/gi18n.h>
 #include <math.h>
+#include <string.h>
 
 /* Layout constants, in pixels. */
 #define MARGIN 12.0
@@ -109,6 +110,14 @@ struct _SwStackView {
   GskRenderNode *parts[N_PARTS];
   guint64        part_keys[N_PARTS];
   gboolean       part_new[N_PARTS];   /* recorded in this drawing, not yet rasterised */
+  /* The parts but the legend, copied into one node over the whole width
+   * from the highest of them down: GSK repaints it as one rectangle.  As
+   * parts of their own, the column and each label made rectangles whose
+   * edges cut those of the plots beside into bands; a frame with more than
+   * 30 rectangles GSK repaints whole (see DEVELOPERS.md, "Damage in few
+   * rectangles"). */
+  GskRenderNode *body;
+  GskRenderNode *body_of[N_PARTS];   /* the parts it was made of (not owned) */
 };
 
 enum {
@@ -1305,6 +1314,8 @@ clear_parts (SwStackView *self)
 {
   for (guint i = 0; i < N_PARTS; i++)
     g_clear_pointer (&self->parts[i], gsk_render_node_unref);
+  g_clear_pointer (&self->body, gsk_render_node_unref);
+  memset (self->body_of, 0, sizeof self->body_of);
 }
 
 /* Whether the picture is the plain one drawn in parts: sized, in masses,
@@ -1486,15 +1497,43 @@ draw_stack_parts (SwStackView *self, GtkSnapshot *snapshot, int width, int heigh
       }
   }
 
-  for (guint i = 0; i < N_PARTS; i++)
-    {
-      if (self->parts[i] != NULL && self->part_new[i])
-        self->parts[i] = sw_raster_node (self->parts[i], NULL,
-                                         gtk_widget_get_scale_factor (GTK_WIDGET (self)));
-      self->part_new[i] = FALSE;
-      if (self->parts[i] != NULL)
-        gtk_snapshot_append_node (snapshot, self->parts[i]);
-    }
+  {
+    int scale = gtk_widget_get_scale_factor (GTK_WIDGET (self));
+    gboolean body_new = self->body == NULL;
+    double top = height;
+
+    for (guint i = 0; i < N_PARTS; i++)
+      {
+        if (self->parts[i] != NULL && self->part_new[i])
+          {
+            self->parts[i] = sw_raster_node (self->parts[i], NULL, scale);
+            body_new = body_new || i != PART_LEGEND;
+          }
+        self->part_new[i] = FALSE;
+        /* A part gone (a stage fewer) changes the body too. */
+        body_new = body_new || (i != PART_LEGEND && self->parts[i] != self->body_of[i]);
+      }
+    /* The legend on its own; the rest in one node from the legend down
+     * (see "body" above). */
+    if (self->parts[PART_LEGEND] != NULL)
+      gtk_snapshot_append_node (snapshot, self->parts[PART_LEGEND]);
+    if (body_new)
+      {
+        g_clear_pointer (&self->body, gsk_render_node_unref);
+        for (guint i = 0; i < N_PARTS; i++)
+          if (i != PART_LEGEND && self->parts[i] != NULL)
+            {
+              graphene_rect_t b;
+              gsk_render_node_get_bounds (self->parts[i], &b);
+              top = MIN (top, b.origin.y);
+            }
+        top = MAX (floor (top), 0.0);
+        self->body = sw_raster_compose (self->parts + PART_COLUMN, N_PARTS - PART_COLUMN,
+                                        &GRAPHENE_RECT_INIT (0, top, width, height - top), scale);
+        memcpy (self->body_of, self->parts, sizeof self->body_of);
+      }
+    gtk_snapshot_append_node (snapshot, self->body);
+  }
 }
 
 static void
