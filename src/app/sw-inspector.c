@@ -56,7 +56,7 @@ struct _SwInspector {
   GtkToggleButton *split_optimal;
   GtkToggleButton *split_manual;
   GtkListBox    *stage_list;
-  GtkLabel      *stage_title;
+  GtkInscription *stage_title;
   GtkWidget     *stage_grid;
   GtkEntry      *stage_name_entry;
   SwNumberField *isp_vac_spin;
@@ -417,13 +417,13 @@ update_stage_fields (SwInspector *self)
   gtk_widget_set_sensitive (self->stage_extra, has);
   if (!has)
     {
-      gtk_label_set_text (self->stage_title, _("No stage selected"));
+      gtk_inscription_set_text (self->stage_title, _("No stage selected"));
       return;
     }
   s = &d->stages[self->selected];
   /* Translators: heading of the selected stage's fields: number and name */
   title = g_strdup_printf (_("Stage %d: %s"), self->selected + 1, s->name);
-  gtk_label_set_text (self->stage_title, title);
+  gtk_inscription_set_text (self->stage_title, title);
   if (g_strcmp0 (gtk_editable_get_text (GTK_EDITABLE (self->stage_name_entry)), s->name) != 0)
     gtk_editable_set_text (GTK_EDITABLE (self->stage_name_entry), s->name);
   set_field (self->isp_vac_spin, s->isp_vac_s);
