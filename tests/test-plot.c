@@ -635,6 +635,91 @@ test_raster_same_pixels (void)
   gsk_render_node_unref (recorded);
 }
 
+/* Nodes copied into one (sw_raster_compose, the stack view's body) paint
+ * what they paint apart, to within one level per channel, at scale 1 and 2:
+ * two rasterised nodes (copied as pixels) and one recorded node (drawn),
+ * on whole-pixel boxes inside a larger one. */
+static void
+test_raster_compose (void)
+{
+  const graphene_rect_t box_a = GRAPHENE_RECT_INIT (4, 6, 50, 30);
+  const graphene_rect_t box_b = GRAPHENE_RECT_INIT (60, 20, 70, 40);
+  const graphene_rect_t box_c = GRAPHENE_RECT_INIT (10, 45, 40, 20);
+  const graphene_rect_t all = GRAPHENE_RECT_INIT (0, 2, 140, 70);
+  GskRenderNode *a = gsk_cairo_node_new (&box_a);
+  GskRenderNode *b = gsk_cairo_node_new (&box_b);
+  GskRenderNode *c = gsk_cairo_node_new (&box_c);
+  PangoLayout *layout;
+  cairo_t *cr;
+
+  cr = gsk_cairo_node_get_draw_context (a);
+  cairo_set_source_rgba (cr, 0.2, 0.5, 0.7, 0.8);
+  cairo_arc (cr, 28.0, 21.0, 12.5, 0.0, 2.0 * G_PI);
+  cairo_fill (cr);
+  cairo_destroy (cr);
+  cr = gsk_cairo_node_get_draw_context (b);
+  cairo_set_source_rgb (cr, 0.1, 0.1, 0.1);
+  layout = pango_cairo_create_layout (cr);
+  pango_layout_set_text (layout, "2 \u00b7 upper\n29.9 t", -1);
+  cairo_move_to (cr, 62.0, 22.0);
+  pango_cairo_show_layout (cr, layout);
+  g_object_unref (layout);
+  cairo_destroy (cr);
+  cr = gsk_cairo_node_get_draw_context (c);
+  cairo_set_source_rgb (cr, 0.8, 0.6, 0.2);
+  cairo_rectangle (cr, 12.3, 47.6, 30.0, 14.2);
+  cairo_fill (cr);
+  cairo_destroy (cr);
+
+  for (int scale = 1; scale <= 2; scale++)
+    {
+      int w = 140 * scale, h = 80 * scale;
+      cairo_surface_t *direct = cairo_image_surface_create (CAIRO_FORMAT_ARGB32, w, h);
+      cairo_surface_t *via = cairo_image_surface_create (CAIRO_FORMAT_ARGB32, w, h);
+      GskRenderNode *parts[3];
+      GskRenderNode *node;
+      graphene_rect_t bounds;
+      const guint8 *pa, *pb;
+      int max_diff = 0, inked = 0;
+
+      parts[0] = sw_raster_node (gsk_render_node_ref (a), NULL, scale);
+      parts[1] = sw_raster_node (gsk_render_node_ref (b), NULL, scale);
+      parts[2] = gsk_render_node_ref (c);
+      node = sw_raster_compose (parts, 3, &all, scale);
+      gsk_render_node_get_bounds (node, &bounds);
+      g_assert_true (graphene_rect_equal (&bounds, &all));
+      cairo_surface_set_device_scale (direct, scale, scale);
+      cairo_surface_set_device_scale (via, scale, scale);
+      cr = cairo_create (direct);
+      gsk_render_node_draw (a, cr);
+      gsk_render_node_draw (b, cr);
+      gsk_render_node_draw (c, cr);
+      cairo_destroy (cr);
+      cr = cairo_create (via);
+      gsk_render_node_draw (node, cr);
+      cairo_destroy (cr);
+      cairo_surface_flush (direct);
+      cairo_surface_flush (via);
+      pa = cairo_image_surface_get_data (direct);
+      pb = cairo_image_surface_get_data (via);
+      for (int i = 0; i < cairo_image_surface_get_stride (direct) * h; i++)
+        {
+          max_diff = MAX (max_diff, abs ((int) pa[i] - (int) pb[i]));
+          inked += pa[i] != 0;
+        }
+      g_assert_cmpint (inked, >, 1000 * scale * scale);
+      g_assert_cmpint (max_diff, <=, 1);
+      for (guint i = 0; i < G_N_ELEMENTS (parts); i++)
+        gsk_render_node_unref (parts[i]);
+      gsk_render_node_unref (node);
+      cairo_surface_destroy (direct);
+      cairo_surface_destroy (via);
+    }
+  gsk_render_node_unref (a);
+  gsk_render_node_unref (b);
+  gsk_render_node_unref (c);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -644,6 +729,7 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/plot/drawing-kept", test_drawing_kept);
   g_test_add_func ("/gui/plot/drawn-ahead", test_drawn_ahead);
   g_test_add_func ("/gui/raster/same-pixels", test_raster_same_pixels);
+  g_test_add_func ("/gui/raster/compose", test_raster_compose);
   g_test_add_func ("/gui/plot/flat-series", test_flat_series);
   g_test_add_func ("/gui/plot/log-decades", test_log_decades);
   g_test_add_func ("/gui/plot/points-drawn", test_points_drawn);
