@@ -541,6 +541,56 @@ test_drawn_ahead (void)
   gtk_window_destroy (GTK_WINDOW (window));
 }
 
+/* Text at @x, @y (its top left) with the default font. */
+static void
+show_text (cairo_t *cr, double x, double y, const char *text)
+{
+  PangoLayout *layout = pango_cairo_create_layout (cr);
+
+  pango_layout_set_text (layout, text, -1);
+  cairo_move_to (cr, x, y);
+  pango_cairo_show_layout (cr, layout);
+  g_object_unref (layout);
+}
+
+/* Draws @expected (@n nodes, in turn) and @node each on a clear image of
+ * @width x @height units at @scale, and asserts that they paint the same to
+ * within one level per channel, and paint something. */
+static void
+assert_same_pixels (GskRenderNode *const *expected, guint n, GskRenderNode *node, int width,
+                    int height, int scale)
+{
+  int w = width * scale, h = height * scale;
+  cairo_surface_t *direct = cairo_image_surface_create (CAIRO_FORMAT_ARGB32, w, h);
+  cairo_surface_t *via = cairo_image_surface_create (CAIRO_FORMAT_ARGB32, w, h);
+  const guint8 *a, *b;
+  int max_diff = 0, inked = 0;
+  cairo_t *cr;
+
+  cairo_surface_set_device_scale (direct, scale, scale);
+  cairo_surface_set_device_scale (via, scale, scale);
+  cr = cairo_create (direct);
+  for (guint i = 0; i < n; i++)
+    gsk_render_node_draw (expected[i], cr);
+  cairo_destroy (cr);
+  cr = cairo_create (via);
+  gsk_render_node_draw (node, cr);
+  cairo_destroy (cr);
+  cairo_surface_flush (direct);
+  cairo_surface_flush (via);
+  a = cairo_image_surface_get_data (direct);
+  b = cairo_image_surface_get_data (via);
+  for (int i = 0; i < cairo_image_surface_get_stride (direct) * h; i++)
+    {
+      max_diff = MAX (max_diff, abs ((int) a[i] - (int) b[i]));
+      inked += a[i] != 0;
+    }
+  g_assert_cmpint (inked, >, 1000 * scale * scale);
+  g_assert_cmpint (max_diff, <=, 1);
+  cairo_surface_destroy (direct);
+  cairo_surface_destroy (via);
+}
+
 /* A drawing turned into pixels ahead of the frame (sw_raster_node) paints
  * what the drawing itself paints, to within one level of rounding per
  * channel: checked against cairo drawing the same recording directly, at
@@ -552,7 +602,6 @@ test_raster_same_pixels (void)
   static const double dash[] = { 5.0, 3.0 };
   GskRenderNode *recorded = gsk_cairo_node_new (&box);
   cairo_t *cr = gsk_cairo_node_get_draw_context (recorded);
-  PangoLayout *layout;
 
   cairo_set_source_rgba (cr, 0.1, 0.4, 0.8, 0.7);
   cairo_arc (cr, 40.0, 30.0, 17.3, 0.0, 2.0 * G_PI);
@@ -563,49 +612,20 @@ test_raster_same_pixels (void)
   cairo_move_to (cr, 5.0, 60.0);
   cairo_curve_to (cr, 40.0, 10.0, 80.0, 70.0, 122.0, 8.0);
   cairo_stroke (cr);
-  layout = pango_cairo_create_layout (cr);
-  pango_layout_set_text (layout, "Liftoff 129.0 t", -1);
-  cairo_move_to (cr, 50.0, 40.0);
-  pango_cairo_show_layout (cr, layout);
-  g_object_unref (layout);
+  show_text (cr, 50.0, 40.0, "Liftoff 129.0 t");
   cairo_destroy (cr);
 
   for (int scale = 1; scale <= 2; scale++)
     {
-      int w = 130 * scale, h = 70 * scale;
-      cairo_surface_t *direct = cairo_image_surface_create (CAIRO_FORMAT_ARGB32, w, h);
-      cairo_surface_t *via = cairo_image_surface_create (CAIRO_FORMAT_ARGB32, w, h);
       GskRenderNode *node = sw_raster_node (gsk_render_node_ref (recorded), &box, scale);
       graphene_rect_t bounds;
-      const guint8 *a, *b;
-      int max_diff = 0, inked = 0;
 
       gsk_render_node_get_bounds (node, &bounds);
       g_assert_true (graphene_rect_contains_rect (&bounds, &box));
       g_assert_cmpfloat (bounds.origin.x, ==, floor (bounds.origin.x));
       g_assert_cmpfloat (bounds.size.width, ==, floor (bounds.size.width));
-      cairo_surface_set_device_scale (direct, scale, scale);
-      cairo_surface_set_device_scale (via, scale, scale);
-      cr = cairo_create (direct);
-      gsk_render_node_draw (recorded, cr);
-      cairo_destroy (cr);
-      cr = cairo_create (via);
-      gsk_render_node_draw (node, cr);
-      cairo_destroy (cr);
-      cairo_surface_flush (direct);
-      cairo_surface_flush (via);
-      a = cairo_image_surface_get_data (direct);
-      b = cairo_image_surface_get_data (via);
-      for (int i = 0; i < cairo_image_surface_get_stride (direct) * h; i++)
-        {
-          max_diff = MAX (max_diff, abs ((int) a[i] - (int) b[i]));
-          inked += a[i] != 0;
-        }
-      g_assert_cmpint (inked, >, 1000 * scale * scale);
-      g_assert_cmpint (max_diff, <=, 1);
+      assert_same_pixels (&recorded, 1, node, 130, 70, scale);
       gsk_render_node_unref (node);
-      cairo_surface_destroy (direct);
-      cairo_surface_destroy (via);
     }
 
   /* An image's pages are kept for the next image when it goes (at scale 2
@@ -649,7 +669,6 @@ test_raster_compose (void)
   GskRenderNode *a = gsk_cairo_node_new (&box_a);
   GskRenderNode *b = gsk_cairo_node_new (&box_b);
   GskRenderNode *c = gsk_cairo_node_new (&box_c);
-  PangoLayout *layout;
   cairo_t *cr;
 
   cr = gsk_cairo_node_get_draw_context (a);
@@ -659,11 +678,7 @@ test_raster_compose (void)
   cairo_destroy (cr);
   cr = gsk_cairo_node_get_draw_context (b);
   cairo_set_source_rgb (cr, 0.1, 0.1, 0.1);
-  layout = pango_cairo_create_layout (cr);
-  pango_layout_set_text (layout, "2 \u00b7 upper\n29.9 t", -1);
-  cairo_move_to (cr, 62.0, 22.0);
-  pango_cairo_show_layout (cr, layout);
-  g_object_unref (layout);
+  show_text (cr, 62.0, 22.0, "2 \u00b7 upper\n29.9 t");
   cairo_destroy (cr);
   cr = gsk_cairo_node_get_draw_context (c);
   cairo_set_source_rgb (cr, 0.8, 0.6, 0.2);
@@ -673,14 +688,10 @@ test_raster_compose (void)
 
   for (int scale = 1; scale <= 2; scale++)
     {
-      int w = 140 * scale, h = 80 * scale;
-      cairo_surface_t *direct = cairo_image_surface_create (CAIRO_FORMAT_ARGB32, w, h);
-      cairo_surface_t *via = cairo_image_surface_create (CAIRO_FORMAT_ARGB32, w, h);
+      GskRenderNode *expected[3] = { a, b, c };
       GskRenderNode *parts[3];
       GskRenderNode *node;
       graphene_rect_t bounds;
-      const guint8 *pa, *pb;
-      int max_diff = 0, inked = 0;
 
       parts[0] = sw_raster_node (gsk_render_node_ref (a), NULL, scale);
       parts[1] = sw_raster_node (gsk_render_node_ref (b), NULL, scale);
@@ -688,32 +699,10 @@ test_raster_compose (void)
       node = sw_raster_compose (parts, 3, &all, scale);
       gsk_render_node_get_bounds (node, &bounds);
       g_assert_true (graphene_rect_equal (&bounds, &all));
-      cairo_surface_set_device_scale (direct, scale, scale);
-      cairo_surface_set_device_scale (via, scale, scale);
-      cr = cairo_create (direct);
-      gsk_render_node_draw (a, cr);
-      gsk_render_node_draw (b, cr);
-      gsk_render_node_draw (c, cr);
-      cairo_destroy (cr);
-      cr = cairo_create (via);
-      gsk_render_node_draw (node, cr);
-      cairo_destroy (cr);
-      cairo_surface_flush (direct);
-      cairo_surface_flush (via);
-      pa = cairo_image_surface_get_data (direct);
-      pb = cairo_image_surface_get_data (via);
-      for (int i = 0; i < cairo_image_surface_get_stride (direct) * h; i++)
-        {
-          max_diff = MAX (max_diff, abs ((int) pa[i] - (int) pb[i]));
-          inked += pa[i] != 0;
-        }
-      g_assert_cmpint (inked, >, 1000 * scale * scale);
-      g_assert_cmpint (max_diff, <=, 1);
+      assert_same_pixels (expected, 3, node, 140, 80, scale);
       for (guint i = 0; i < G_N_ELEMENTS (parts); i++)
         gsk_render_node_unref (parts[i]);
       gsk_render_node_unref (node);
-      cairo_surface_destroy (direct);
-      cairo_surface_destroy (via);
     }
   gsk_render_node_unref (a);
   gsk_render_node_unref (b);
