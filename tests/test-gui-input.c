@@ -609,6 +609,68 @@ test_undo_in_field (void)
   sw_test_window_close (w);
 }
 
+static gboolean
+question_shown (gpointer data)
+{
+  GListModel *tops = gtk_window_get_toplevels ();
+
+  for (guint i = 0; i < g_list_model_get_n_items (tops); i++)
+    {
+      g_autoptr (GObject) o = g_list_model_get_item (tops, i);
+      if (GTK_IS_MESSAGE_DIALOG (o) && gtk_window_get_transient_for (GTK_WINDOW (o)) == data)
+        return TRUE;
+    }
+  return FALSE;
+}
+
+/* Text typed in a field and not yet entered is not lost: Ctrl+S saves it
+ * (the field keeps the focus and its cursor), and closing the window asks
+ * about it. */
+static void
+test_typed_not_entered (void)
+{
+  g_autofree char *src = g_build_filename (SOURCE_DESIGNS_DIR, "medium-cargo.stagewright", NULL);
+  g_autofree char *path = g_build_filename (tmp_dir, "typed.stagewright", NULL);
+  g_autofree char *data = NULL;
+  g_autoptr (GFile) file = g_file_new_for_path (path);
+  g_autoptr (SwDesign) saved = NULL;
+  g_autoptr (GError) error = NULL;
+  SwWindow *w;
+  SwNumberField *payload;
+  GtkWidget *entry;
+  gsize length;
+
+  g_assert_true (g_file_get_contents (src, &data, &length, NULL));
+  g_assert_true (g_file_set_contents (path, data, (gssize) length, NULL));
+  w = sw_window_new (NULL);
+  gtk_window_set_default_size (GTK_WINDOW (w), 1280, 900);
+  gtk_window_present (GTK_WINDOW (w));
+  g_assert_true (sw_window_load (w, file));
+  sw_test_wait_until (mapped, w, 10000, "the window to map");
+  sw_test_wait_until (sw_test_result_drawn, w, 60000, "the first result to be drawn");
+  payload = field (w, SW_INSPECTOR_PAYLOAD);
+  entry = sw_number_field_get_entry (payload);
+
+  focus_field (w, GTK_WIDGET (payload));
+  retype ("9000");
+  xdo ("key", "Left", NULL);
+  xdo ("key", "ctrl+s", NULL);
+  drain ();
+  saved = sw_design_load (path, NULL, &error);
+  g_assert_no_error (error);
+  g_assert_cmpfloat (saved->payload_kg, ==, 9000.0);
+  g_assert_false (sw_document_get_modified (sw_window_get_document (w)));
+  g_assert_true (gtk_widget_is_focus (gtk_root_get_focus (GTK_ROOT (w)))
+                 && gtk_widget_is_ancestor (gtk_root_get_focus (GTK_ROOT (w)), entry));
+  g_assert_cmpint (gtk_editable_get_position (GTK_EDITABLE (entry)), ==, 3);
+
+  retype ("9100");
+  gtk_window_close (GTK_WINDOW (w));
+  sw_test_wait_until (question_shown, w, 5000, "the save question");
+  g_assert_cmpfloat (doc_design (w)->payload_kg, ==, 9100.0);
+  sw_test_window_close (w);
+}
+
 /* A first start shows an unsaved copy of a demo: the window says so, shows
  * its notes (they say it is invented) and offers New. */
 static void
@@ -1217,6 +1279,7 @@ main (int argc, char **argv)
   g_test_add_func ("/gui/input/simulated-mc", test_simulated_mc);
   g_test_add_func ("/gui/input/dependent-field", test_dependent_field);
   g_test_add_func ("/gui/input/undo-in-field", test_undo_in_field);
+  g_test_add_func ("/gui/input/typed-not-entered", test_typed_not_entered);
   g_test_add_func ("/gui/input/first-start", test_first_start);
   g_test_add_func ("/gui/input/new-stage-flies", test_new_stage_flies);
   g_test_add_func ("/gui/input/to-scale-clicks", test_to_scale_clicks);

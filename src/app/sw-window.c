@@ -434,15 +434,41 @@ sw_window_close_discarding (SwWindow *self)
 
 /* ---- actions ----------------------------------------------------------- */
 
+/* Commits what is typed in the focused field and not yet entered (Enter,
+ * Tab or leaving the field commit it), before the design is saved,
+ * exported, replaced or the window closed: else Ctrl+S saved the old value
+ * and closing lost the new one without asking.  The field loses and gets
+ * back the focus, which commits every kind of field the way leaving it
+ * does; its cursor and selection stay where they were.  Text that does not
+ * parse is marked on its field and changes nothing, as on leaving it. */
+static void
+commit_focused_edit (SwWindow *self)
+{
+  g_autoptr (GtkWidget) focus = gtk_root_get_focus (GTK_ROOT (self));
+  int start = 0, end = 0;
+
+  if (focus == NULL)
+    return;
+  g_object_ref (focus);
+  if (GTK_IS_EDITABLE (focus))
+    gtk_editable_get_selection_bounds (GTK_EDITABLE (focus), &start, &end);
+  gtk_window_set_focus (GTK_WINDOW (self), NULL);
+  if (gtk_widget_get_root (focus) == GTK_ROOT (self) && gtk_widget_is_sensitive (focus)
+      && gtk_widget_get_mapped (focus) && gtk_widget_grab_focus (focus) && GTK_IS_EDITABLE (focus))
+    gtk_editable_select_region (GTK_EDITABLE (focus), start, end);
+}
+
 static void
 new_action (GtkWidget *widget, const char *name, GVariant *param)
 {
+  commit_focused_edit (SW_WINDOW (widget));
   sw_file_flow_ask_then (SW_WINDOW (widget)->file_flow, SW_FILE_FLOW_NEW, NULL);
 }
 
 static void
 open_action (GtkWidget *widget, const char *name, GVariant *param)
 {
+  commit_focused_edit (SW_WINDOW (widget));
   sw_file_flow_ask_then (SW_WINDOW (widget)->file_flow, SW_FILE_FLOW_OPEN, NULL);
 }
 
@@ -450,18 +476,22 @@ static void
 open_recent_action (GtkWidget *widget, const char *name, GVariant *param)
 {
   g_autoptr (GFile) file = g_file_new_for_uri (g_variant_get_string (param, NULL));
+
+  commit_focused_edit (SW_WINDOW (widget));
   sw_file_flow_ask_then (SW_WINDOW (widget)->file_flow, SW_FILE_FLOW_OPEN_FILE, file);
 }
 
 static void
 save_action (GtkWidget *widget, const char *name, GVariant *param)
 {
+  commit_focused_edit (SW_WINDOW (widget));
   sw_file_flow_save (SW_WINDOW (widget)->file_flow);
 }
 
 static void
 save_as_action (GtkWidget *widget, const char *name, GVariant *param)
 {
+  commit_focused_edit (SW_WINDOW (widget));
   sw_file_flow_save_as (SW_WINDOW (widget)->file_flow);
 }
 
@@ -554,6 +584,7 @@ export_action (GtkWidget *widget, const char *name, GVariant *param)
 {
   SwWindow *self = SW_WINDOW (widget);
 
+  commit_focused_edit (self);
   if (self->export_dialog == NULL)
     {
       self->export_dialog = sw_export_dialog_new (GTK_WINDOW (self), self->result,
@@ -795,6 +826,8 @@ sw_window_close_request (GtkWindow *window)
 {
   SwWindow *self = SW_WINDOW (window);
 
+  if (!self->closing)
+    commit_focused_edit (self);
   if (!self->closing && !self->ephemeral && sw_document_get_modified (self->document))
     {
       sw_file_flow_ask_then (self->file_flow, SW_FILE_FLOW_CLOSE, NULL);
