@@ -629,6 +629,33 @@ test_break_at_separators (void)
   g_assert_cmpstr (c, ==, "<b>Payload</b>\n8,000 kg");
 }
 
+/* A stage name of one long word (no space to wrap at) is broken inside the
+ * word: running over, its label left the blocks no room, and the view drew
+ * empty boxes and said the vehicle was infeasible. */
+static void
+test_long_word_name (void)
+{
+  g_autoptr (SwAnalysis) first = widget_render_demo_result ("medium-cargo.stagewright");
+  g_autoptr (SwDesign) named = sw_design_copy (first->design);
+  g_autoptr (SwAnalysis) result = NULL;
+  graphene_rect_t block;
+  GtkWidget *view = NULL, *window;
+
+  g_strlcpy (named->stages[0].name, "CoreStageWithAVeryLongNameAndNoSpacesAnywhereAtAll",
+             sizeof named->stages[0].name);
+  result = sw_analysis_compute (named, 1, NULL);
+  g_assert_true (result->ok && result->sizing.feasible);
+  /* As wide as the stack's pane in a 1280 px window. */
+  view = sw_stack_view_new ();
+  sw_stack_view_set_result (SW_STACK_VIEW (view), result);
+  window = widget_render_show (view, 290, 700);
+  widget_render_settle ();
+  g_assert_cmpfloat (sw_stack_view_get_area_scale (SW_STACK_VIEW (view)), >, 0.0);
+  g_assert_true (sw_stack_view_get_block_rect (SW_STACK_VIEW (view), 0, &block));
+  g_assert_cmpfloat (block.size.width, >, 40.0);
+  gtk_window_destroy (GTK_WINDOW (window));
+}
+
 /* The cairo drawings in @node's tree, in order, appended to @out (new
  * references). */
 static void
@@ -970,6 +997,7 @@ main (int argc, char **argv)
 
   g_test_add_func ("/gui/stack-view/glue-units", test_glue_units);
   g_test_add_func ("/gui/stack-view/break-at-separators", test_break_at_separators);
+  g_test_add_func ("/gui/stack-view/long-word-name", test_long_word_name);
   g_test_add_func ("/gui/stack-view/tw-of-shown-vehicle", test_tw_of_shown_vehicle);
   g_test_add_func ("/gui/stack-view/drawing-kept", test_drawing_kept);
   g_test_add_func ("/gui/stack-view/drawn-ahead", test_drawn_ahead);

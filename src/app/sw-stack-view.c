@@ -276,11 +276,15 @@ cached_label (SwStackView *self, const char *markup, double wrap_width)
       pango_layout_get_pixel_size (layout, &lw, NULL);
       if (wrap_width >= 0.0 && lw > wrap_width)
         {
-          /* Wrapped between words, never inside a word or a number and its
-           * unit (glued by the caller): a piece wider than the column runs
-           * over rather than break as "2,007 m/" + "s". */
+          /* Wrapped between words, never inside a number and its unit
+           * (glued by the caller, "2,007 m/s").  Only a word wider than the
+           * column by itself (a long stage name without spaces) is broken
+           * inside: running over, it left the blocks no room at all. */
           pango_layout_set_wrap (layout, PANGO_WRAP_WORD);
           pango_layout_set_width (layout, (int) (wrap_width * PANGO_SCALE));
+          pango_layout_get_pixel_size (layout, &lw, NULL);
+          if (lw > wrap_width)
+            pango_layout_set_wrap (layout, PANGO_WRAP_WORD_CHAR);
         }
       g_hash_table_insert (self->text_cache, g_steal_pointer (&key), layout);
     }
@@ -1647,7 +1651,12 @@ draw_stack (SwStackView *self, GtkSnapshot *snapshot, int width, int height, con
   else
     {
       set_source_alpha (cr, &c.fg, 0.8);
-      draw_simple_text (self, cr, _("Not to scale: no masses while the vehicle is infeasible"),
+      /* Without a scale: the vehicle cannot be sized, or the view has no
+       * room for its blocks beside their labels. */
+      draw_simple_text (self, cr,
+                        self->result->sizing.feasible
+                          ? _("Not to scale: too little room for the blocks beside their labels")
+                          : _("Not to scale: no masses while the vehicle is infeasible"),
                         MARGIN, height - MARGIN - legend_height (self) + 8.0, NULL);
     }
 
