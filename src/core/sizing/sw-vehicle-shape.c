@@ -75,8 +75,8 @@ sw_vehicle_shape_compute (const SwDesign *design, const SwSizing *sizing, SwVehi
           out->complete = FALSE;
           if (!g->shape.valid)
             g_snprintf (out->reason, sizeof out->reason,
-                        _("Stage %u (%s) has no propellant: choose one to see its tanks and "
-                          "the vehicle to scale."), i + 1, st->name);
+                        _("Stage %u (%s) has no propellant type chosen: choose one to see "
+                          "its tanks and the vehicle to scale."), i + 1, st->name);
           else
             g_snprintf (out->reason, sizeof out->reason,
                         _("Stage %u (%s) has no diameter (nor has any stage below it): give one "
