@@ -438,6 +438,44 @@ test_remove_stage (void)
   }
 }
 
+/* A stage that becomes the first (the one below it removed, or moved
+ * above it) lifts off: it loses its coast before ignition, which the file
+ * format refuses on the first stage, and keeps the rest of its propulsion;
+ * the design stays one the loader takes.  An upper stage keeps its coast. */
+static void
+test_first_stage_lifts_off (void)
+{
+  static const double start[] = { 0.4, 0.35, 0.25 };
+
+  for (int how = 0; how < 2; how++)
+    {
+      g_autoptr (SwDesign) d = manual_design (3, start);
+      SwStagePropulsion *upper = &d->stages[1].propulsion;
+
+      upper->present = TRUE;
+      upper->has_thrust = TRUE;
+      upper->thrust_vac_kn = 300.0;
+      upper->has_coast = TRUE;
+      upper->coast_before_ignition_s = 4.0;
+      d->stages[2].propulsion.present = TRUE;
+      d->stages[2].propulsion.has_coast = TRUE;
+      d->stages[2].propulsion.coast_before_ignition_s = 9.0;
+      assert_valid (d);
+      if (how == 0)
+        g_assert_true (sw_design_remove_stage (d, 0));
+      else
+        g_assert_true (sw_design_move_stage (d, 1, 0));
+      g_assert_cmpstr (d->stages[0].name, ==, "B");
+      g_assert_false (d->stages[0].propulsion.has_coast);
+      g_assert_true (d->stages[0].propulsion.has_thrust);
+      g_assert_cmpfloat (d->stages[0].propulsion.thrust_vac_kn, ==, 300.0);
+      g_assert_true (d->stages[0].propulsion.present);
+      g_assert_true (d->stages[how == 0 ? 1 : 2].propulsion.has_coast);
+      g_assert_cmpfloat (d->stages[how == 0 ? 1 : 2].propulsion.coast_before_ignition_s, ==, 9.0);
+      assert_valid (d);
+    }
+}
+
 static void
 test_move_stage (void)
 {
@@ -821,6 +859,7 @@ main (int argc, char **argv)
   g_test_add_func ("/core/design-edit/duplicate-stage", test_duplicate_stage);
   g_test_add_func ("/core/design-edit/remove-stage", test_remove_stage);
   g_test_add_func ("/core/design-edit/move-stage", test_move_stage);
+  g_test_add_func ("/core/design-edit/first-stage-lifts-off", test_first_stage_lifts_off);
   g_test_add_func ("/core/design-edit/random-sequences", test_random_sequences);
   g_test_add_func ("/core/design-edit/names", test_names);
   g_test_add_func ("/core/design-edit/mission-kind", test_mission_kind);

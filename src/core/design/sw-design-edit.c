@@ -274,6 +274,23 @@ sw_design_duplicate_stage (SwDesign *design, guint index)
   return TRUE;
 }
 
+/* The first stage lifts off: a coast before ignition belongs to an upper
+ * stage (the file format refuses one on the first), so a stage that
+ * becomes the first (its lower stage removed or moved above it) loses its
+ * coast.  Else the design would not load back, and the window greys the
+ * first stage's coast field, so nobody could clear it. */
+static void
+first_stage_lifts_off (SwDesign *design)
+{
+  SwStagePropulsion *p = &design->stages[0].propulsion;
+
+  if (!p->has_coast)
+    return;
+  p->has_coast = FALSE;
+  p->coast_before_ignition_s = 0.0;
+  p->present = p->has_thrust || p->has_engine_thrust || p->has_diameter || p->n_drag > 0;
+}
+
 gboolean
 sw_design_remove_stage (SwDesign *design, guint index)
 {
@@ -288,6 +305,7 @@ sw_design_remove_stage (SwDesign *design, guint index)
   economics_remove_stage (&design->economics, index);
   if (design->split == SW_SPLIT_MANUAL)
     renormalise_shares (design);
+  first_stage_lifts_off (design);
   return TRUE;
 }
 
@@ -311,6 +329,7 @@ sw_design_move_stage (SwDesign *design, guint from, guint to)
              (from - to) * sizeof design->stages[0]);
   design->stages[to] = moving;
   economics_move_stage (&design->economics, from, to);
+  first_stage_lifts_off (design);
   return TRUE;
 }
 
