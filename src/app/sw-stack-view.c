@@ -355,7 +355,10 @@ item_label_markup (SwStackView *self, const Item *item, gboolean compact)
     case ITEM_UNUSED:
       if (compact)
         return g_strdup_printf (_("%s · unused"), title);
-      return g_strdup_printf (_("%s\nunused: no Δv at the optimum"), title);
+      /* The optimum may leave a stage nothing; another split was given so. */
+      if (r->design->split == SW_SPLIT_OPTIMAL)
+        return g_strdup_printf (_("%s\nunused: no Δv at the optimum"), title);
+      return g_strdup_printf (_("%s\nunused: no Δv in this split"), title);
     case ITEM_FAILING:
       {
         g_autofree char *limit = sw_format_speed (s->delta_v_limit_m_s);
@@ -1894,7 +1897,9 @@ query_tooltip_cb (SwStackView *self, int x, int y, gboolean keyboard, GtkTooltip
                               "Mass at ignition: %s, at burnout: %s%s%s"),
                             title, mass, prop, struc, dv, share, limit, ratio, m0, mb,
                             it->kind == ITEM_FAILING ? _("\n<b>⚠ Cannot deliver its Δv</b>") : "",
-                            it->kind == ITEM_UNUSED ? _("\nUnused: no Δv at the optimum") : "");
+                            it->kind != ITEM_UNUSED ? ""
+                            : r->design->split == SW_SPLIT_OPTIMAL ? _("\nUnused: no Δv at the optimum")
+                            : _("\nUnused: no Δv in this split"));
   if (isfinite (stage_tw (r, it->stage)) && r->has_stage_figures)
     {
       const SwAscentStage *f = &r->stage_figures[it->stage];
