@@ -713,6 +713,42 @@ test_carpet_follows_loop (void)
   g_assert_nonnull (strstr (by_losses->note, "losses are an axis"));
 }
 
+/* The thrust-to-weight at liftoff: the sized figure of the stage that
+ * lifts off, the first that burns.  With a manual split that leaves the
+ * first stage empty, the upper stage lifts the whole vehicle, and the
+ * sized figure is its own (within 2 % of the simulated ascent's, which
+ * then stands); the empty first stage's figure (its thrust over the same
+ * weight, more than twice as high) was shown beside the verdict's before. */
+static void
+test_liftoff_tw (void)
+{
+  g_autoptr (SwDesign) d = demo ("medium-cargo.stagewright");
+  g_autoptr (SwAnalysis) normal = sw_analysis_compute (d, 1, NULL);
+  g_autoptr (SwAnalysis) empty = NULL, flown = NULL;
+  double tw;
+
+  g_assert_true (normal->ok && normal->has_stage_figures);
+  g_assert_cmpfloat (sw_analysis_liftoff_tw (normal), ==,
+                     normal->stage_figures[0].ignition_thrust_to_weight);
+
+  d->split = SW_SPLIT_MANUAL;
+  d->stages[0].has_share = d->stages[1].has_share = TRUE;
+  d->stages[0].delta_v_share = 0.0;
+  d->stages[1].delta_v_share = 1.0;
+  empty = sw_analysis_compute (d, 2, NULL);
+  g_assert_true (empty->ok && empty->has_stage_figures);
+  g_assert_cmpfloat (empty->sizing.stages[0].propellant_mass_kg, ==, 0.0);
+  tw = sw_analysis_liftoff_tw (empty);
+  g_assert_cmpfloat (tw, ==, empty->stage_figures[1].ignition_thrust_to_weight);
+  g_assert_cmpfloat (tw, <, 0.5 * empty->stage_figures[0].ignition_thrust_to_weight);
+  flown = sw_analysis_add_ascent (empty, NULL);
+  g_assert_nonnull (flown);
+  g_assert_nonnull (flown->ascent);
+  g_assert_cmpfloat_with_epsilon (sw_analysis_liftoff_tw (flown), tw, 0.02 * tw);
+  g_assert_cmpfloat_with_epsilon (sw_analysis_liftoff_tw (flown),
+                                  flown->ascent->liftoff_thrust_to_weight, 1e-12);
+}
+
 int
 main (int argc, char **argv)
 {
@@ -722,6 +758,7 @@ main (int argc, char **argv)
   g_test_add_func ("/analysis/precedence", test_precedence);
   g_test_add_func ("/analysis/paper-only-with-limit", test_paper_only_with_limit);
   g_test_add_func ("/analysis/copy-shares", test_copy_shares);
+  g_test_add_func ("/analysis/liftoff-tw", test_liftoff_tw);
   g_test_add_func ("/analysis/cancel-and-phases", test_cancel_and_phases);
   g_test_add_func ("/analysis/trade-uses-loop-losses", test_trade_uses_loop_losses);
   g_test_add_func ("/analysis/trade-losses-note", test_trade_losses_note);

@@ -128,9 +128,11 @@ sw_ascent_warnings_text (const SwAnalysis *result, const SwAscentResult *ascent,
   GString *s = g_string_new (NULL);
   double tw = NAN;
 
-  if (result != NULL && result->ok && result->has_stage_figures)
-    tw = result->stage_figures[0].ignition_thrust_to_weight;
-  else if (ascent != NULL)
+  /* The figure the verdict and the sheet name (a stage the split leaves
+   * empty does not lift off). */
+  if (result != NULL && result->ok)
+    tw = sw_analysis_liftoff_tw (result);
+  if (!isfinite (tw) && ascent != NULL)
     tw = ascent->liftoff_thrust_to_weight;
 
   if (isfinite (tw) && tw < min_thrust_to_weight)

@@ -311,10 +311,7 @@ sizing_to_json (const SwAnalysis *a)
    * every load is fixed (null when infeasible). */
   sw_cli_add_number (b, "delta_v_given_m_s", s->delta_v_given_m_s);
   sw_cli_add_number (b, "simulated_margin_m_s", a->simulated_margin_m_s);
-  sw_cli_add_number (b, "liftoff_thrust_to_weight",
-                     a->ascent != NULL ? a->ascent->liftoff_thrust_to_weight
-                     : a->has_stage_figures ? a->stage_figures[0].ignition_thrust_to_weight
-                                            : NAN);
+  sw_cli_add_number (b, "liftoff_thrust_to_weight", sw_analysis_liftoff_tw (a));
   sw_cli_add_number (b, "lagrange_multiplier_s_m", s->multiplier_s_m);
   json_builder_set_member_name (b, "stages");
   json_builder_begin_array (b);

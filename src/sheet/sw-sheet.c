@@ -264,8 +264,7 @@ draw_totals (const Page *p, const SwAnalysis *a, double x, double y, double w, d
              NULL, MUTED);
 
   /* Thrust-to-weight at liftoff, against the user's limit. */
-  tw = a->ascent != NULL ? a->ascent->liftoff_thrust_to_weight
-       : a->has_stage_figures ? a->stage_figures[0].ignition_thrust_to_weight : NAN;
+  tw = sw_analysis_liftoff_tw (a);
   if (isfinite (tw))
     {
       gboolean low = tw < a->options.min_thrust_to_weight;

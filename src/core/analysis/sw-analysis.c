@@ -199,6 +199,22 @@ largest_loss (const SwAscentResult *a)
   return g_strdup_printf (_("the largest loss is %s, %s"), _(losses[best].name), v);
 }
 
+double
+sw_analysis_liftoff_tw (const SwAnalysis *r)
+{
+  guint first = 0;
+
+  g_return_val_if_fail (r != NULL, NAN);
+  if (r->ascent != NULL)
+    return r->ascent->liftoff_thrust_to_weight;
+  if (!r->has_stage_figures)
+    return NAN;
+  while (first + 1 < r->sizing.n_stages && first + 1 < SW_MAX_STAGES
+         && !(r->sizing.stages[first].propellant_mass_kg > 0.0))
+    first++;
+  return r->stage_figures[first].ignition_thrust_to_weight;
+}
+
 /* The limits the vehicle breaks, one sentence each; NULL when none. */
 static char *
 limits_broken (const SwAnalysis *r)
@@ -206,8 +222,7 @@ limits_broken (const SwAnalysis *r)
   const SwAnalysisOptions *o = &r->options;
   const SwAscentResult *a = r->ascent;
   GString *s = g_string_new (NULL);
-  double tw = a != NULL ? a->liftoff_thrust_to_weight
-              : r->has_stage_figures ? r->stage_figures[0].ignition_thrust_to_weight : NAN;
+  double tw = sw_analysis_liftoff_tw (r);
 
   if (isfinite (tw) && tw < o->min_thrust_to_weight)
     {

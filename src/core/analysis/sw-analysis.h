@@ -207,6 +207,12 @@ SwAnalysis *sw_analysis_run (const SwDesign *design, const SwAnalysisOptions *op
 SwAnalysis *sw_analysis_compute (const SwDesign *design, guint64 serial,
                                  GCancellable *cancellable);
 
+/* The thrust-to-weight at liftoff that every front end shows: the
+ * simulated ascent's once the analysis has it, else the sized figure of
+ * the stage that lifts off, the first one that burns (a stage the split
+ * leaves empty does not lift the vehicle).  NAN when neither is known. */
+double      sw_analysis_liftoff_tw (const SwAnalysis *analysis);
+
 /* A copy of the analysed design as the trade studies use it: with the
  * closed loop's losses (and its fairing jettison point, sw_ascent_apply_loop)
  * once trade_losses_simulated, else the design as it is. */
