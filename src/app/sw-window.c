@@ -444,12 +444,12 @@ sw_window_close_discarding (SwWindow *self)
 static void
 commit_focused_edit (SwWindow *self)
 {
-  g_autoptr (GtkWidget) focus = gtk_root_get_focus (GTK_ROOT (self));
+  GtkWidget *focused = gtk_root_get_focus (GTK_ROOT (self));
+  g_autoptr (GtkWidget) focus = focused != NULL ? g_object_ref (focused) : NULL;
   int start = 0, end = 0;
 
   if (focus == NULL)
     return;
-  g_object_ref (focus);
   if (GTK_IS_EDITABLE (focus))
     gtk_editable_get_selection_bounds (GTK_EDITABLE (focus), &start, &end);
   gtk_window_set_focus (GTK_WINDOW (self), NULL);

@@ -209,8 +209,7 @@ sw_analysis_liftoff_tw (const SwAnalysis *r)
     return r->ascent->liftoff_thrust_to_weight;
   if (!r->has_stage_figures)
     return NAN;
-  while (first + 1 < r->sizing.n_stages && first + 1 < SW_MAX_STAGES
-         && !(r->sizing.stages[first].propellant_mass_kg > 0.0))
+  while (first + 1 < r->sizing.n_stages && !(r->sizing.stages[first].propellant_mass_kg > 0.0))
     first++;
   return r->stage_figures[first].ignition_thrust_to_weight;
 }

@@ -288,7 +288,7 @@ first_stage_lifts_off (SwDesign *design)
     return;
   p->has_coast = FALSE;
   p->coast_before_ignition_s = 0.0;
-  p->present = p->has_thrust || p->has_engine_thrust || p->has_diameter || p->n_drag > 0;
+  sw_propulsion_update_present (p);
 }
 
 gboolean

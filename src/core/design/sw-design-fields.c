@@ -275,8 +275,7 @@ update_presence (SwDesign *d, SwDesignField f, guint i)
     case SW_FIELD_ENGINE_THRUST_VAC:
     case SW_FIELD_DIAMETER:
     case SW_FIELD_COAST:
-      p->present = p->has_thrust || p->has_engine_thrust || p->has_diameter || p->has_coast
-                   || p->n_drag > 0;
+      sw_propulsion_update_present (p);
       break;
     case SW_FIELD_ENGINE_COUNT:
     case SW_FIELD_ENGINE_RELIABILITY:
@@ -897,8 +896,7 @@ sw_design_set_drag_text (SwDesign *design, guint stage, const char *text, GError
       n++;
     }
   p->n_drag = n;
-  p->present = p->has_thrust || p->has_engine_thrust || p->has_diameter || p->has_coast
-               || p->n_drag > 0;
+  sw_propulsion_update_present (p);
   if (!check_whole_design (copy, error))
     return FALSE;
   design->stages[stage].propulsion = *p;

@@ -311,6 +311,13 @@ sw_propulsion_validate_design (const SwDesignAscent *a, const char *file, GError
 }
 
 void
+sw_propulsion_update_present (SwStagePropulsion *prop)
+{
+  prop->present = prop->has_thrust || prop->has_engine_thrust || prop->has_diameter
+                  || prop->has_coast || prop->n_drag > 0;
+}
+
+void
 sw_propulsion_save_stage (JsonBuilder *builder, const SwStagePropulsion *prop)
 {
   if (prop->has_thrust)

@@ -80,6 +80,8 @@ gboolean sw_propulsion_load_stage (JsonObject *obj, const char *file, const char
 gboolean sw_propulsion_load_design (JsonObject *root, const char *file,
                                     SwDesignAscent *ascent, GPtrArray *warnings, GError **error);
 void     sw_propulsion_save_stage (JsonBuilder *builder, const SwStagePropulsion *prop);
+/* Sets @prop's "present" from its keys, after an edit gave or took one. */
+void     sw_propulsion_update_present (SwStagePropulsion *prop);
 void     sw_propulsion_save_design (JsonBuilder *builder, const SwDesignAscent *ascent);
 
 /* Range and consistency checks of the keys in memory (what the loader checks;
